@@ -1,0 +1,15 @@
+package org.spectralsieve;
+
+import org.springframework.boot.SpringApplication;
+import org.springframework.boot.autoconfigure.SpringBootApplication;
+import org.springframework.boot.context.properties.ConfigurationPropertiesScan;
+
+/** Starts the web service; the same jar also answers command-line calls (see {@code cli}). */
+@SpringBootApplication
+@ConfigurationPropertiesScan
+public class SpectralSieveApplication {
+
+    public static void main(String[] args) {
+        SpringApplication.run(SpectralSieveApplication.class, args);
+    }
+}
