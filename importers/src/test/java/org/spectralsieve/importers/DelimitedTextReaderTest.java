@@ -89,6 +89,14 @@ class DelimitedTextReaderTest {
     }
 
     @Test
+    void quotedHeaderNamesAndFieldsAreUnquoted() throws ImportException {
+        ParsedSpectrum s = read("\"Wavelength (nm)\";\"Transmittance (%)\"\n\"300\";\"7.5\"\n400;91\n");
+
+        assertThat(s.yKind()).isEqualTo(YKind.TRANSMITTANCE_PERCENT);
+        assertThat(s.values()).containsExactly(7.5, 91.0);
+    }
+
+    @Test
     void commentsOfKeyValueFormBecomeMetadataInOrder() throws ImportException {
         ParsedSpectrum s = read("""
                 # Spectral Sieve curve v1
