@@ -58,7 +58,7 @@ class DelimitedTextReaderTest {
         assertThat(s.warnings()).isEmpty();
     }
 
-    // 1 µm = 1000 nm, 1 Å = 0.1 nm (SI Brochure, 9th ed., BIPM 2019)
+    // 1 µm = 1000 nm (SI prefixes, SI Brochure 9th ed., Table 7); 1 Å = 0.1 nm (SI Brochure 8th ed., Table 8; from memory)
     @Test
     void micrometreColumnIsConvertedToNanometres() throws ImportException {
         ParsedSpectrum s = read("wavelength_um,transmittance\n0.365,0.5\n0.405,0.6\n");
