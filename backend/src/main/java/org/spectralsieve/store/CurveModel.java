@@ -1,0 +1,315 @@
+package org.spectralsieve.store;
+
+import java.util.List;
+import org.spectralsieve.requirement.ThicknessSpec;
+import org.spectralsieve.requirement.Verdict;
+
+/**
+ * One curve under one requirement, in the store's model: every probe becomes a condition whose margin
+ * (in decades) is a straight line in thickness — falling for light that must pass, rising for light that
+ * must be blocked — because OD grows linearly with thickness (Beer–Lambert) on top of a fixed surface loss.
+ * Means of T are not lines; with a mean in the requirement the optimum is found by bisection instead.
+ *
+ * <p>With {@code pointsOnly} only the first probe of each clause is read (both edges of a cutoff window)
+ * and means are skipped: fewer conditions can only raise the worst margin, so the result bounds the full one.
+ */
+final class CurveModel {
+
+    /** Thickness tolerance of the bisections, in mm. */
+    private static final double TOLERANCE_MM = 1e-6;
+    private static final double SAME_THICKNESS_MM = 1e-9;
+
+    private final StoreSearch.Plan plan;
+    private final double d0;
+    private final boolean bulk;
+
+    // point conditions: margin(d) = intercept + slope·d
+    private int points;
+    private final double[] intercept;
+    private final double[] slope;
+    private final boolean[] pass;
+    private final boolean[] bound;
+    private boolean anyUnmeasured;
+
+    // mean conditions, only in a full evaluation
+    private final List<MeanCondition> means = new java.util.ArrayList<>();
+
+    CurveModel(StoreSearch.Plan plan, SpectralStore store, int curve, boolean pointsOnly) {
+        this.plan = plan;
+        this.d0 = store.thicknessMm(curve);
+        // as measured, even a bulk sample is read as it is: no thickness model between data and verdict
+        this.bulk = store.isBulk(curve) && plan.thickness.kind() != ThicknessSpec.Kind.AS_MEASURED;
+        int capacity = 0;
+        for (CompiledClause c : plan.clauses) {
+            capacity += pointsOnly ? Math.min(2, c.probes().size()) : c.probes().size();
+        }
+        intercept = new double[capacity];
+        slope = new double[capacity];
+        pass = new boolean[capacity];
+        bound = new boolean[capacity];
+        int model = store.indexModelOf(curve);
+        for (int c = 0; c < plan.clauses.size(); c++) {
+            CompiledClause clause = plan.clauses.get(c);
+            double[] loss = plan.surfaceLoss[model][c];
+            switch (clause.kind()) {
+                case EVERY_POINT_PASS, EVERY_POINT_BLOCK -> {
+                    boolean isPass = clause.kind() == CompiledClause.Kind.EVERY_POINT_PASS;
+                    int probes = pointsOnly ? 1 : clause.probes().size();
+                    for (int p = 0; p < probes; p++) {
+                        addPoint(store, curve, clause.probes().get(p), loss[p], clause.thresholdOd(), isPass);
+                    }
+                }
+                case CUTOFF -> {
+                    addPoint(store, curve, clause.probes().get(0), loss[0], clause.thresholdOd(), false);
+                    addPoint(store, curve, clause.probes().get(1), loss[1], clause.thresholdOd(), true);
+                }
+                case MEAN_PASS, MEAN_BLOCK -> {
+                    if (!pointsOnly) {
+                        means.add(MeanCondition.of(store, curve, clause, loss, d0));
+                    }
+                }
+            }
+        }
+    }
+
+    private void addPoint(SpectralStore store, int curve, Probe probe, double surfaceLoss, double thresholdOd,
+                          boolean isPass) {
+        if (!probe.onGrid()) {
+            anyUnmeasured = true;
+            return;
+        }
+        short lo = store.column(probe.lo())[curve];
+        short hi = store.column(probe.hi())[curve];
+        if (!OdCode.isMeasured(lo) || !OdCode.isMeasured(hi)) {
+            anyUnmeasured = true;
+            return;
+        }
+        double f = probe.fractionHi();
+        double od0 = (1 - f) * OdCode.opticalDensity(lo) + f * OdCode.opticalDensity(hi);
+        boolean isBound = OdCode.isBound(lo) || (f > 0 && OdCode.isBound(hi));
+        // OD(d) = s + a0·d/d0; a reading above the lossless ceiling (noise) means no absorption, not gain
+        double internal = Math.max(0, od0 - surfaceLoss);
+        double perMm = bulk ? internal / d0 : 0;
+        double base = bulk ? surfaceLoss : od0;
+        int i = points++;
+        pass[i] = isPass;
+        bound[i] = isBound;
+        if (isPass) {           // margin = thresholdOd − OD(d)
+            intercept[i] = thresholdOd - base;
+            slope[i] = -perMm;
+        } else {                // margin = OD(d) − thresholdOd
+            intercept[i] = base - thresholdOd;
+            slope[i] = perMm;
+        }
+    }
+
+    StoreSearch.Evaluation best() {
+        ThicknessSpec spec = plan.thickness;
+        switch (spec.kind()) {
+            case AS_MEASURED:
+                return at(d0, null, false);
+            case FIXED:
+                if (bulk) {
+                    return at(spec.minMm(), null, false);
+                }
+                return at(d0, null, Math.abs(spec.minMm() - d0) > SAME_THICKNESS_MM);
+            default:
+                if (!bulk) {
+                    return at(d0, null, d0 < spec.minMm() - SAME_THICKNESS_MM || d0 > spec.maxMm() + SAME_THICKNESS_MM);
+                }
+                double best = means.isEmpty() ? crossingOfLines(spec.minMm(), spec.maxMm())
+                        : crossingByBisection(spec.minMm(), spec.maxMm());
+                StoreSearch.Evaluation e = at(best, null, false);
+                if (e.verdict() != Verdict.MEETS) {
+                    return e;
+                }
+                return at(best, feasibleRange(spec.minMm(), spec.maxMm()), false);
+        }
+    }
+
+    /** The verdict and worst margin at thickness d (d0 means as measured). */
+    private StoreSearch.Evaluation at(double d, double[] range, boolean forcedUnverified) {
+        boolean misses = false;
+        boolean unverified = anyUnmeasured || forcedUnverified;
+        double worst = Double.POSITIVE_INFINITY;
+        for (int i = 0; i < points; i++) {
+            double margin = intercept[i] + slope[i] * d; // slope is 0 for a fixed layer
+            worst = Math.min(worst, margin);
+            if (bound[i] && pass[i]) {
+                // T is at most the bound: too dark even so proves a miss, otherwise nothing is proven
+                if (margin < 0) {
+                    misses = true;
+                } else {
+                    unverified = true;
+                }
+            } else if (bound[i]) {
+                // a block is proven when the bound itself is low enough; a higher bound cannot show it
+                if (margin < 0) {
+                    unverified = true;
+                }
+            } else if (margin < 0) {
+                misses = true;
+            }
+        }
+        for (MeanCondition mean : means) {
+            double margin = mean.margin(bulk ? d : d0, bulk);
+            if (mean.unmeasured()) {
+                unverified = true;
+                continue;
+            }
+            worst = Math.min(worst, margin);
+            if (mean.anyBound()) {
+                if (mean.pass() && margin < 0) {
+                    misses = true;
+                } else {
+                    unverified = true;
+                }
+            } else if (margin < 0) {
+                misses = true;
+            }
+        }
+        if (worst == Double.POSITIVE_INFINITY) {
+            worst = Double.NaN; // nothing measured to judge by
+        }
+        Verdict verdict = misses ? Verdict.MISSES : unverified ? Verdict.UNVERIFIED : Verdict.MEETS;
+        return new StoreSearch.Evaluation(verdict, worst, bulk ? d : d0, range);
+    }
+
+    /**
+     * Where the falling (pass) side meets the rising (block) side: with f the minimum of falling lines and g
+     * the minimum of rising ones, f ≥ g exactly for d ≤ max over rising j of min over falling i of d_ij.
+     */
+    private double crossingOfLines(double min, double max) {
+        boolean anyPass = false;
+        boolean anyBlock = false;
+        for (int i = 0; i < points; i++) {
+            if (slope[i] < 0 || (slope[i] == 0 && pass[i])) {
+                anyPass = true;
+            } else {
+                anyBlock = true;
+            }
+        }
+        if (!anyBlock) {
+            return min;
+        }
+        if (!anyPass) {
+            return max;
+        }
+        double crossing = Double.NEGATIVE_INFINITY;
+        for (int j = 0; j < points; j++) {
+            if (isFalling(j)) {
+                continue;
+            }
+            double firstMeeting = Double.POSITIVE_INFINITY;
+            for (int i = 0; i < points; i++) {
+                if (isFalling(i)) {
+                    firstMeeting = Math.min(firstMeeting, meeting(i, j));
+                }
+            }
+            crossing = Math.max(crossing, firstMeeting);
+        }
+        return Math.max(min, Math.min(max, crossing));
+    }
+
+    private boolean isFalling(int i) {
+        return slope[i] < 0 || (slope[i] == 0 && pass[i]);
+    }
+
+    /** The d up to which falling line i stays at or above rising line j. */
+    private double meeting(int i, int j) {
+        double closing = slope[j] - slope[i];
+        double gap = intercept[i] - intercept[j];
+        if (closing <= 0) {
+            return gap >= 0 ? Double.POSITIVE_INFINITY : Double.NEGATIVE_INFINITY;
+        }
+        return gap / closing;
+    }
+
+    private double crossingByBisection(double min, double max) {
+        if (sides(min)[0] <= sides(min)[1]) {
+            return min;
+        }
+        if (sides(max)[0] >= sides(max)[1]) {
+            return max;
+        }
+        double lo = min;
+        double hi = max;
+        while (hi - lo > TOLERANCE_MM) {
+            double mid = (lo + hi) / 2;
+            double[] s = sides(mid);
+            if (s[0] >= s[1]) {
+                lo = mid;
+            } else {
+                hi = mid;
+            }
+        }
+        return (lo + hi) / 2;
+    }
+
+    /** {minimum of falling margins, minimum of rising margins} at thickness d. */
+    private double[] sides(double d) {
+        double falling = Double.POSITIVE_INFINITY;
+        double rising = Double.POSITIVE_INFINITY;
+        for (int i = 0; i < points; i++) {
+            double margin = intercept[i] + slope[i] * d;
+            if (isFalling(i)) {
+                falling = Math.min(falling, margin);
+            } else {
+                rising = Math.min(rising, margin);
+            }
+        }
+        for (MeanCondition mean : means) {
+            if (mean.unmeasured()) {
+                continue;
+            }
+            double margin = mean.margin(d, true);
+            if (mean.pass()) {
+                falling = Math.min(falling, margin);
+            } else {
+                rising = Math.min(rising, margin);
+            }
+        }
+        return new double[] {falling, rising};
+    }
+
+    /** Thicknesses in [min, max] where every margin is at least zero; null when none. */
+    private double[] feasibleRange(double min, double max) {
+        double lo = min;
+        double hi = max;
+        if (means.isEmpty()) {
+            for (int i = 0; i < points; i++) {
+                if (slope[i] < 0) {
+                    hi = Math.min(hi, -intercept[i] / slope[i]);
+                } else if (slope[i] > 0) {
+                    lo = Math.max(lo, -intercept[i] / slope[i]);
+                } else if (intercept[i] < 0) {
+                    return null;
+                }
+            }
+        } else {
+            lo = firstThicknessWhere(min, max, false);
+            hi = firstThicknessWhere(min, max, true);
+        }
+        return lo <= hi ? new double[] {lo, hi} : null;
+    }
+
+    /** For the rising side: the least d with margin ≥ 0; for the falling side: the greatest. */
+    private double firstThicknessWhere(double min, double max, boolean fallingSide) {
+        int side = fallingSide ? 0 : 1;
+        if (fallingSide ? sides(max)[side] >= 0 : sides(min)[side] >= 0) {
+            return fallingSide ? max : min;
+        }
+        double lo = min;
+        double hi = max;
+        while (hi - lo > TOLERANCE_MM) {
+            double mid = (lo + hi) / 2;
+            boolean ok = sides(mid)[side] >= 0;
+            if (fallingSide == ok) {
+                lo = mid;
+            } else {
+                hi = mid;
+            }
+        }
+        return fallingSide ? lo : hi;
+    }
+}

@@ -1,0 +1,81 @@
+package org.spectralsieve.store;
+
+/**
+ * A mean-of-T clause on one curve: trapezoid mean over the band's probes, with each probe's OD following
+ * the same thickness model as point conditions.
+ */
+final class MeanCondition {
+
+    private final boolean pass;
+    private final double thresholdOd;
+    private final double[] surfaceLoss;
+    private final double[] od0;
+    private final double[] weight;
+    private final double d0;
+    private final boolean anyBound;
+    private final boolean unmeasured;
+
+    private MeanCondition(boolean pass, double thresholdOd, double[] surfaceLoss, double[] od0, double[] weight,
+                          double d0, boolean anyBound, boolean unmeasured) {
+        this.pass = pass;
+        this.thresholdOd = thresholdOd;
+        this.surfaceLoss = surfaceLoss;
+        this.od0 = od0;
+        this.weight = weight;
+        this.d0 = d0;
+        this.anyBound = anyBound;
+        this.unmeasured = unmeasured;
+    }
+
+    static MeanCondition of(SpectralStore store, int curve, CompiledClause clause, double[] loss, double d0) {
+        int n = clause.probes().size();
+        double[] od = new double[n];
+        double[] w = new double[n];
+        boolean anyBound = false;
+        boolean unmeasured = false;
+        for (int p = 0; p < n; p++) {
+            Probe probe = clause.probes().get(p);
+            w[p] = probe.weight();
+            if (!probe.onGrid()) {
+                unmeasured = true;
+                continue;
+            }
+            short lo = store.column(probe.lo())[curve];
+            short hi = store.column(probe.hi())[curve];
+            if (!OdCode.isMeasured(lo) || !OdCode.isMeasured(hi)) {
+                unmeasured = true;
+                continue;
+            }
+            double f = probe.fractionHi();
+            od[p] = (1 - f) * OdCode.opticalDensity(lo) + f * OdCode.opticalDensity(hi);
+            anyBound |= OdCode.isBound(lo) || (f > 0 && OdCode.isBound(hi));
+        }
+        return new MeanCondition(clause.kind() == CompiledClause.Kind.MEAN_PASS, clause.thresholdOd(), loss, od, w, d0,
+                anyBound, unmeasured);
+    }
+
+    /** Margin in decades at thickness d; a fixed layer ({@code rescale} false) keeps its measured ODs. */
+    double margin(double d, boolean rescale) {
+        double sum = 0;
+        double weights = 0;
+        for (int p = 0; p < od0.length; p++) {
+            double od = rescale ? surfaceLoss[p] + Math.max(0, od0[p] - surfaceLoss[p]) * d / d0 : od0[p];
+            sum += weight[p] * Math.pow(10, -od);
+            weights += weight[p];
+        }
+        double logMean = Math.log10(sum / weights);
+        return pass ? logMean + thresholdOd : -thresholdOd - logMean;
+    }
+
+    boolean pass() {
+        return pass;
+    }
+
+    boolean anyBound() {
+        return anyBound;
+    }
+
+    boolean unmeasured() {
+        return unmeasured;
+    }
+}

@@ -1,0 +1,274 @@
+package org.spectralsieve.store;
+
+import java.util.ArrayList;
+import java.util.Arrays;
+import java.util.HashMap;
+import java.util.List;
+import java.util.Map;
+import org.spectralsieve.optics.RefractiveIndex;
+import org.spectralsieve.spectrum.Curve;
+import org.spectralsieve.spectrum.WavelengthGrid;
+
+/**
+ * Every curve of the library on one common grid, wavelength-major, immutable once built. Rebuilt from
+ * the database at start and after each committed import; a search reads a consistent snapshot.
+ */
+public final class SpectralStore {
+
+    /** The default common grid: 1 nm over 190–1100 nm covers deep-UV windows through near-IR. */
+    public static final WavelengthGrid DEFAULT_GRID = new WavelengthGrid(190, 1100, 1);
+
+    private final WavelengthGrid grid;
+    private final double[] gridNm;
+    private final short[][] columns;
+    private final int size;
+    private final long[] sampleIds;
+    private final int[] materialOfCurve;
+    private final float[] thicknessMm;
+    private final boolean[] bulk;
+    private final boolean[] totalGeometry;
+    private final short[] indexModelOfCurve;
+    private final List<StoredMaterial> materials;
+    private final List<RefractiveIndex> indexModels;
+
+    private SpectralStore(Builder b) {
+        this.grid = b.grid;
+        this.gridNm = b.grid.points();
+        this.size = b.size;
+        // the builder hands its arrays over (it refuses further use), trimming only when it over-allocated,
+        // so a million-curve store is not held twice while it is built
+        this.columns = new short[gridNm.length][];
+        for (int w = 0; w < gridNm.length; w++) {
+            columns[w] = trimmed(b.columns[w], size);
+        }
+        this.sampleIds = b.sampleIds.length == size ? b.sampleIds : Arrays.copyOf(b.sampleIds, size);
+        this.materialOfCurve = b.materialOfCurve.length == size ? b.materialOfCurve : Arrays.copyOf(b.materialOfCurve, size);
+        this.thicknessMm = b.thicknessMm.length == size ? b.thicknessMm : Arrays.copyOf(b.thicknessMm, size);
+        this.bulk = b.bulk.length == size ? b.bulk : Arrays.copyOf(b.bulk, size);
+        this.totalGeometry = b.totalGeometry.length == size ? b.totalGeometry : Arrays.copyOf(b.totalGeometry, size);
+        this.indexModelOfCurve = b.indexModelOfCurve.length == size ? b.indexModelOfCurve
+                : Arrays.copyOf(b.indexModelOfCurve, size);
+        this.materials = List.copyOf(b.materials);
+        this.indexModels = List.copyOf(b.indexModels);
+    }
+
+    private static short[] trimmed(short[] column, int size) {
+        return column.length == size ? column : Arrays.copyOf(column, size);
+    }
+
+    public static Builder builder(WavelengthGrid grid, int expectedCurves) {
+        return new Builder(grid, expectedCurves);
+    }
+
+    public WavelengthGrid grid() {
+        return grid;
+    }
+
+    public int size() {
+        return size;
+    }
+
+    public long sampleId(int curve) {
+        return sampleIds[curve];
+    }
+
+    public StoredMaterial material(int curve) {
+        return materials.get(materialOfCurve[curve]);
+    }
+
+    int materialIndex(int curve) {
+        return materialOfCurve[curve];
+    }
+
+    int materialCount() {
+        return materials.size();
+    }
+
+    StoredMaterial materialAt(int materialIndex) {
+        return materials.get(materialIndex);
+    }
+
+    public double thicknessMm(int curve) {
+        return thicknessMm[curve];
+    }
+
+    public boolean isBulk(int curve) {
+        return bulk[curve];
+    }
+
+    public boolean isTotalGeometry(int curve) {
+        return totalGeometry[curve];
+    }
+
+    RefractiveIndex indexModel(int model) {
+        return indexModels.get(model);
+    }
+
+    int indexModelCount() {
+        return indexModels.size();
+    }
+
+    int indexModelOf(int curve) {
+        return indexModelOfCurve[curve];
+    }
+
+    double gridNm(int w) {
+        return gridNm[w];
+    }
+
+    int gridSize() {
+        return gridNm.length;
+    }
+
+    /** The column of one grid wavelength: entry i belongs to curve i. Not copied: searches read it in place. */
+    short[] column(int w) {
+        return columns[w];
+    }
+
+    /** The curve as the store holds it (quantized, on the grid, only where measured), for exact re-evaluation. */
+    public Curve curve(int curve) {
+        int first = -1;
+        int last = -1;
+        for (int w = 0; w < gridNm.length; w++) {
+            if (OdCode.isMeasured(columns[w][curve])) {
+                if (first < 0) {
+                    first = w;
+                }
+                last = w;
+            }
+        }
+        int n = last - first + 1;
+        double[] nm = new double[n];
+        double[] t = new double[n];
+        boolean[] below = new boolean[n];
+        double[] limits = new double[n];
+        for (int k = 0; k < n; k++) {
+            short code = columns[first + k][curve];
+            nm[k] = gridNm[first + k];
+            t[k] = OdCode.transmittance(code);
+            below[k] = OdCode.isBound(code);
+            limits[k] = below[k] ? t[k] : 0;
+        }
+        return Curve.of(nm, t, below, limits);
+    }
+
+    /** Bytes the store's arrays take per curve (columns and per-curve fields; shared tables excluded). */
+    public double bytesPerCurve() {
+        long perCurve = (long) gridNm.length * Short.BYTES + Long.BYTES + Integer.BYTES + Float.BYTES + 1 + 1 + Short.BYTES;
+        return size == 0 ? 0 : perCurve;
+    }
+
+    /** Collects curves; grows its arrays by doubling, so a million curves load without knowing the count. */
+    public static final class Builder {
+        private final WavelengthGrid grid;
+        private final double[] gridNm;
+        private short[][] columns;
+        private int size;
+        private long[] sampleIds;
+        private int[] materialOfCurve;
+        private float[] thicknessMm;
+        private boolean[] bulk;
+        private boolean[] totalGeometry;
+        private short[] indexModelOfCurve;
+        private final List<StoredMaterial> materials = new ArrayList<>();
+        private final Map<Long, Integer> materialIndexById = new HashMap<>();
+        private final List<RefractiveIndex> indexModels = new ArrayList<>();
+        private final Map<RefractiveIndex, Integer> indexModelIndex = new HashMap<>();
+
+        private boolean built;
+
+        private Builder(WavelengthGrid grid, int expectedCurves) {
+            this.grid = grid;
+            this.gridNm = grid.points();
+            int capacity = Math.max(16, expectedCurves);
+            columns = new short[gridNm.length][capacity];
+            sampleIds = new long[capacity];
+            materialOfCurve = new int[capacity];
+            thicknessMm = new float[capacity];
+            bulk = new boolean[capacity];
+            totalGeometry = new boolean[capacity];
+            indexModelOfCurve = new short[capacity];
+        }
+
+        /** Adds one sample's curve; grid points outside its measured range are stored as not measured. */
+        public Builder add(long sampleId, StoredMaterial material, double thicknessMm, boolean bulk,
+                           boolean totalGeometry, RefractiveIndex index, Curve curve) {
+            int i = nextSlot();
+            for (int w = 0; w < gridNm.length; w++) {
+                double nm = gridNm[w];
+                columns[w][i] = curve.covers(nm)
+                        ? OdCode.encode(curve.transmittanceAt(nm).getAsDouble(), curve.belowDetectionAt(nm))
+                        : OdCode.NOT_MEASURED;
+            }
+            record(i, sampleId, material, thicknessMm, bulk, totalGeometry, index);
+            return this;
+        }
+
+        /** Adds a curve already sampled on this store's grid (codes from {@link OdCode}); for generated libraries. */
+        public Builder addEncoded(long sampleId, StoredMaterial material, double thicknessMm, boolean bulk,
+                                  boolean totalGeometry, RefractiveIndex index, short[] codesOnGrid) {
+            if (codesOnGrid.length != gridNm.length) {
+                throw new IllegalArgumentException("expected " + gridNm.length + " codes, got " + codesOnGrid.length);
+            }
+            int i = nextSlot();
+            for (int w = 0; w < gridNm.length; w++) {
+                columns[w][i] = codesOnGrid[w];
+            }
+            record(i, sampleId, material, thicknessMm, bulk, totalGeometry, index);
+            return this;
+        }
+
+        private void record(int i, long sampleId, StoredMaterial material, double thickness, boolean isBulk,
+                            boolean total, RefractiveIndex index) {
+            if (!(thickness > 0)) {
+                throw new IllegalArgumentException("sample " + sampleId + ": thickness must be positive, got " + thickness);
+            }
+            sampleIds[i] = sampleId;
+            materialOfCurve[i] = materialIndexById.computeIfAbsent(material.id(), id -> {
+                materials.add(material);
+                return materials.size() - 1;
+            });
+            thicknessMm[i] = (float) thickness;
+            bulk[i] = isBulk;
+            totalGeometry[i] = total;
+            int model = indexModelIndex.computeIfAbsent(index, m -> {
+                indexModels.add(m);
+                return indexModels.size() - 1;
+            });
+            if (model > Short.MAX_VALUE) {
+                throw new IllegalStateException("more than " + Short.MAX_VALUE + " distinct refractive-index models");
+            }
+            indexModelOfCurve[i] = (short) model;
+            size++;
+        }
+
+        private int nextSlot() {
+            if (built) {
+                throw new IllegalStateException("this builder has already built its store");
+            }
+            if (size == sampleIds.length) {
+                int capacity = sampleIds.length * 2;
+                for (int w = 0; w < columns.length; w++) {
+                    columns[w] = Arrays.copyOf(columns[w], capacity);
+                }
+                sampleIds = Arrays.copyOf(sampleIds, capacity);
+                materialOfCurve = Arrays.copyOf(materialOfCurve, capacity);
+                thicknessMm = Arrays.copyOf(thicknessMm, capacity);
+                bulk = Arrays.copyOf(bulk, capacity);
+                totalGeometry = Arrays.copyOf(totalGeometry, capacity);
+                indexModelOfCurve = Arrays.copyOf(indexModelOfCurve, capacity);
+            }
+            return size;
+        }
+
+        public SpectralStore build() {
+            if (built) {
+                throw new IllegalStateException("this builder has already built its store");
+            }
+            built = true;
+            SpectralStore store = new SpectralStore(this);
+            columns = null; // handed over
+            return store;
+        }
+    }
+}

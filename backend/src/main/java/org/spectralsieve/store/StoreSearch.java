@@ -1,0 +1,236 @@
+package org.spectralsieve.store;
+
+import java.util.ArrayList;
+import java.util.Arrays;
+import java.util.Comparator;
+import java.util.List;
+import java.util.PriorityQueue;
+import java.util.stream.IntStream;
+import org.spectralsieve.optics.Fresnel;
+import org.spectralsieve.requirement.Clause;
+import org.spectralsieve.requirement.Requirement;
+import org.spectralsieve.requirement.ThicknessSpec;
+import org.spectralsieve.requirement.Verdict;
+
+/**
+ * Ranks the store's curves against a requirement in two passes.
+ *
+ * <p>Pass one reads, for every curve, only the point probes (one or two columns per clause) and gets
+ * an upper bound on how well the curve can do. Pass two evaluates every probe, but only for curves
+ * whose bound could still reach the result: first the best few by bound, then any other whose bound
+ * beats the worst row found. The result is the same as evaluating every probe of every curve.
+ *
+ * <p>Thickness model: the OD of a bulk sample at thickness d is s + a0·d/d0, where s = −2·log10(1 − R)
+ * is the loss at the two surfaces and a0 the internal absorbance at the measured thickness d0
+ * (Beer–Lambert). This drops the multiple-reflection term of the slab formula, worth at most
+ * −log10(1 − R²) (0.0016 decades for n ≤ 1.65); the returned rows are re-evaluated exactly by the caller.
+ */
+public final class StoreSearch {
+
+    /** How many rows beyond the limit pass two evaluates at first, so that the first cut is usually final. */
+    private static final int FIRST_CUT_FACTOR = 4;
+    private static final int CHUNKS = 64;
+
+    private final SpectralStore store;
+    private final Plan plan;
+
+    private StoreSearch(SpectralStore store, Requirement requirement) {
+        this.store = store;
+        this.plan = Plan.of(store, requirement);
+    }
+
+    public static StoreResult search(SpectralStore store, Requirement requirement, int limit) {
+        if (limit < 1) {
+            throw new IllegalArgumentException("limit must be at least 1, got " + limit);
+        }
+        return new StoreSearch(store, requirement).run(limit);
+    }
+
+    private StoreResult run(int limit) {
+        int n = store.size();
+        int[] bound = new int[n];
+        boolean[] eligible = new boolean[n];
+        int eligibleCount = boundPass(bound, eligible);
+
+        int[] bestKey = new int[store.materialCount()];
+        int[] bestCurve = new int[store.materialCount()];
+        Arrays.fill(bestKey, Integer.MIN_VALUE);
+        Arrays.fill(bestCurve, -1);
+        Evaluation[] evaluations = new Evaluation[n];
+        int refined = 0;
+
+        for (int curve : bestByBound(bound, eligible, limit * FIRST_CUT_FACTOR)) {
+            refined += refine(curve, evaluations, bestKey, bestCurve);
+        }
+        int cut = kthBest(bestKey, limit);
+        for (int curve = 0; curve < n; curve++) {
+            if (eligible[curve] && evaluations[curve] == null && bound[curve] >= cut) {
+                refined += refine(curve, evaluations, bestKey, bestCurve);
+            }
+        }
+        return new StoreResult(topRows(bestKey, bestCurve, evaluations, limit), eligibleCount, refined);
+    }
+
+    /** Pass one over all curves in parallel chunks; returns how many curves pass the filters. */
+    private int boundPass(int[] bound, boolean[] eligible) {
+        int n = store.size();
+        int chunk = Math.max(1024, (n + CHUNKS - 1) / CHUNKS);
+        return IntStream.range(0, (n + chunk - 1) / chunk).parallel().map(c -> {
+            int from = c * chunk;
+            int to = Math.min(n, from + chunk);
+            int count = 0;
+            for (int curve = from; curve < to; curve++) {
+                if (plan.admits(store, curve)) {
+                    eligible[curve] = true;
+                    bound[curve] = plan.boundKey(store, curve);
+                    count++;
+                }
+            }
+            return count;
+        }).sum();
+    }
+
+    private int refine(int curve, Evaluation[] evaluations, int[] bestKey, int[] bestCurve) {
+        Evaluation e = plan.evaluate(store, curve);
+        evaluations[curve] = e;
+        int material = store.materialIndex(curve);
+        if (better(e.key(), curve, bestKey[material], bestCurve[material])) {
+            bestKey[material] = e.key();
+            bestCurve[material] = curve;
+        }
+        return 1;
+    }
+
+    /** Higher key first; equal keys: the lower curve index (the earlier stored sample) wins, deterministically. */
+    private static boolean better(int key, int curve, int otherKey, int otherCurve) {
+        return otherCurve < 0 || key > otherKey || (key == otherKey && curve < otherCurve);
+    }
+
+    private int[] bestByBound(int[] bound, boolean[] eligible, int count) {
+        PriorityQueue<Integer> heap = new PriorityQueue<>(Comparator.comparingInt((Integer c) -> bound[c])
+                .thenComparing(Comparator.<Integer>reverseOrder()));
+        for (int curve = 0; curve < bound.length; curve++) {
+            if (!eligible[curve]) {
+                continue;
+            }
+            if (heap.size() < count) {
+                heap.add(curve);
+            } else if (bound[curve] > bound[heap.peek()]) {
+                heap.poll();
+                heap.add(curve);
+            }
+        }
+        return heap.stream().mapToInt(Integer::intValue).toArray();
+    }
+
+    /** The limit-th best material key so far; any curve whose bound is below it cannot enter the result. */
+    private static int kthBest(int[] bestKey, int limit) {
+        int[] keys = Arrays.stream(bestKey).filter(k -> k != Integer.MIN_VALUE).toArray();
+        if (keys.length < limit) {
+            return Integer.MIN_VALUE;
+        }
+        Arrays.sort(keys);
+        return keys[keys.length - limit];
+    }
+
+    private List<StoreHit> topRows(int[] bestKey, int[] bestCurve, Evaluation[] evaluations, int limit) {
+        List<Integer> materials = new ArrayList<>();
+        for (int m = 0; m < bestKey.length; m++) {
+            if (bestCurve[m] >= 0) {
+                materials.add(m);
+            }
+        }
+        // same order as the exact ranking: verdict, margin, then material name and sample id for ties
+        materials.sort(Comparator.<Integer>comparingInt(m -> -bestKey[m])
+                .thenComparing(m -> store.materialAt(m).name())
+                .thenComparingLong(m -> store.sampleId(bestCurve[m])));
+        List<StoreHit> hits = new ArrayList<>();
+        for (int m : materials.subList(0, Math.min(limit, materials.size()))) {
+            int curve = bestCurve[m];
+            Evaluation e = evaluations[curve];
+            hits.add(new StoreHit(curve, store.sampleId(curve), store.materialAt(m), e.verdict(), e.worstMargin(),
+                    e.thicknessMm(), e.thicknessRange()));
+        }
+        return hits;
+    }
+
+    /** A curve's result in the store's model. */
+    record Evaluation(Verdict verdict, double worstMargin, double thicknessMm, double[] thicknessRange) {
+        int key() {
+            return Keys.of(verdict, worstMargin);
+        }
+    }
+
+    /** Orders (verdict, margin) as one int: meets above unverified above misses, then margin, in 1e-4 decades. */
+    static final class Keys {
+        private static final double UNIT = 1e-4;
+        private static final int SPAN = 1 << 28;
+
+        private Keys() {
+        }
+
+        static int of(Verdict verdict, double margin) {
+            int category = switch (verdict) {
+                case MEETS -> 2;
+                case UNVERIFIED -> 1;
+                case MISSES -> 0;
+            };
+            double clamped = Double.isNaN(margin) ? -SPAN / 2.0 : Math.max(-SPAN / 2.0 + 1, Math.min(SPAN / 2.0 - 1, margin / UNIT));
+            return (category - 1) * SPAN + (int) Math.floor(clamped);
+        }
+    }
+
+    /** The requirement compiled against one store: probes located, surface losses per index model tabulated. */
+    static final class Plan {
+        final List<CompiledClause> clauses;
+        final ThicknessSpec thickness;
+        final String materialClass;
+        final Boolean totalGeometry;
+        /** surfaceLoss[model][clause][probe] in decades. */
+        final double[][][] surfaceLoss;
+
+        private Plan(List<CompiledClause> clauses, ThicknessSpec thickness, String materialClass, Boolean total,
+                     double[][][] surfaceLoss) {
+            this.clauses = clauses;
+            this.thickness = thickness;
+            this.materialClass = materialClass;
+            this.totalGeometry = total;
+            this.surfaceLoss = surfaceLoss;
+        }
+
+        static Plan of(SpectralStore store, Requirement r) {
+            List<CompiledClause> clauses = new ArrayList<>();
+            for (Clause clause : r.clauses()) {
+                clauses.add(CompiledClause.compile(store, clause));
+            }
+            double[][][] loss = new double[store.indexModelCount()][clauses.size()][];
+            for (int model = 0; model < loss.length; model++) {
+                for (int c = 0; c < clauses.size(); c++) {
+                    List<Probe> probes = clauses.get(c).probes();
+                    loss[model][c] = new double[probes.size()];
+                    for (int p = 0; p < probes.size(); p++) {
+                        double reflectance = Fresnel.reflectanceInAir(store.indexModel(model).at(probes.get(p).nm()));
+                        loss[model][c][p] = -2 * Math.log10(1 - reflectance);
+                    }
+                }
+            }
+            Boolean total = r.geometry().map(g -> g.equals("total")).orElse(null);
+            return new Plan(List.copyOf(clauses), r.thickness(), r.materialClass().orElse(null), total, loss);
+        }
+
+        boolean admits(SpectralStore store, int curve) {
+            if (totalGeometry != null && store.isTotalGeometry(curve) != totalGeometry) {
+                return false;
+            }
+            return materialClass == null || store.material(curve).materialClass().equals(materialClass);
+        }
+
+        int boundKey(SpectralStore store, int curve) {
+            return new CurveModel(this, store, curve, true).best().key();
+        }
+
+        Evaluation evaluate(SpectralStore store, int curve) {
+            return new CurveModel(this, store, curve, false).best();
+        }
+    }
+}
