@@ -43,6 +43,10 @@ public record SampleSpec(List<Layer> layers, Geometry geometry, String lot, doub
         return new SampleSpec(layers, geometry, lot, newLimit, startNm);
     }
 
+    public SampleSpec withLot(String newLot) {
+        return new SampleSpec(layers, geometry, newLot, detectionLimit, startNm);
+    }
+
     public SampleSpec startingAt(int newStartNm) {
         return new SampleSpec(layers, geometry, lot, detectionLimit, newStartNm);
     }
