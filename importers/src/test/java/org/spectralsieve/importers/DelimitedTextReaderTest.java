@@ -58,7 +58,7 @@ class DelimitedTextReaderTest {
         assertThat(s.warnings()).isEmpty();
     }
 
-    // 1 µm = 1000 nm, 1 Å = 0.1 nm (SI Brochure, 9th ed., BIPM 2019)
+    // 1 µm = 1000 nm (SI prefixes, SI Brochure 9th ed., Table 7); 1 Å = 0.1 nm (SI Brochure 8th ed., Table 8; from memory)
     @Test
     void micrometreColumnIsConvertedToNanometres() throws ImportException {
         ParsedSpectrum s = read("wavelength_um,transmittance\n0.365,0.5\n0.405,0.6\n");
@@ -86,6 +86,14 @@ class DelimitedTextReaderTest {
         ParsedSpectrum s = read("wavelength,%T\n365,50\n405,91\n");
 
         assertThat(s.transmittanceFractions()).containsExactly(0.5, 0.91);
+    }
+
+    @Test
+    void quotedHeaderNamesAndFieldsAreUnquoted() throws ImportException {
+        ParsedSpectrum s = read("\"Wavelength (nm)\";\"Transmittance (%)\"\n\"300\";\"7.5\"\n400;91\n");
+
+        assertThat(s.yKind()).isEqualTo(YKind.TRANSMITTANCE_PERCENT);
+        assertThat(s.values()).containsExactly(7.5, 91.0);
     }
 
     @Test
@@ -192,7 +200,8 @@ class DelimitedTextReaderTest {
             "extra column          | wavelength_nm,transmittance\\n300,0.1,7         | 2    | column 3        | acrylic-3mm.csv line 2, field 'column 3': unexpected: expected 2 columns separated by ',', found 3",
             "decreasing x          | # c\\nnm,transmittance\\n405,0.1\\n\\n404,0.2   | 5    | nm              | acrylic-3mm.csv line 5, field 'nm': wavelengths must be strictly increasing: line 5 (404.0 nm) follows line 3 (405.0 nm)",
             "duplicate x           | nm,transmittance\\n405,0.1\\n405,0.2             | 3    | nm              | acrylic-3mm.csv line 3, field 'nm': duplicate wavelength: line 3 (405.0 nm) repeats line 2 (405.0 nm)",
-            "no wavelength column  | colour,transmittance\\n1,0.1                    | 1    | colour          | acrylic-3mm.csv line 1, field 'colour': no wavelength column",
+            "no wavelength column  | colour,transmittance\\n1,0.1                    | 1    | colour          | acrylic-3mm.csv line 1, field 'colour': no wavelength column in header [colour, transmittance]; expected one of [wavelength_nm, wavelength, nm,",
+            "no value column       | wavelength,V\\n1,0.1                            | 1    |                 | acrylic-3mm.csv line 1: no value column in header [wavelength, V]; expected one of [transmittance, transmittance_percent,",
             "single row            | nm,transmittance\\n405,0.1                      | 2    |                 | acrylic-3mm.csv line 2: only 1 data row",
             "no data rows          | # thickness_mm: 3\\nwavelength_nm,transmittance  | 0    |                 | acrylic-3mm.csv: no data rows",
             "empty file            | \\n  \\n                                         | 0    |                 | acrylic-3mm.csv: empty file",

@@ -29,7 +29,8 @@ class ParsedSpectrumTest {
         assertThat(s.values()[1]).isEqualTo(value); // values stay as written
     }
 
-    // 1 µm = 1000 nm and 1 Å = 0.1 nm: SI Brochure, 9th ed. (BIPM 2019), prefixes; ångström Table 8 note.
+    // 1 µm = 1000 nm: SI prefixes (SI Brochure, 9th ed., BIPM 2019, Table 7); 1 Å = 0.1 nm: SI Brochure,
+    // 8th ed. (BIPM 2006), Table 8 (cited from memory).
     @ParameterizedTest
     @CsvSource({"MICROMETRE, 0.365, 365.0", "ANGSTROM, 3650, 365.0", "NANOMETRE, 405.5, 405.5"})
     void unitsConvertToNanometres(XUnit unit, double value, double nm) {
