@@ -90,6 +90,7 @@ function renderMaterials(materials) {
   const rows = materials.map((m) => {
     const tr = document.createElement('tr');
     tr.dataset.materialId = m.id;
+    tr.dataset.scaling = m.scaling;
     tr.tabIndex = 0;
     tr.setAttribute('aria-selected', String(state.material?.id === m.id));
     const name = document.createElement('td');
@@ -268,6 +269,7 @@ function redraw() {
   const curves = [...state.curves];
   if (state.rescaled) curves.push(state.rescaled.curve);
   state.plot = drawCurves(dom.chart, curves, dom.axisMode.value);
+  dom.chart.dataset.axisMode = dom.axisMode.value; // lets readers and tests tell which axis is drawn
 }
 
 // ---------- rescaling ----------
