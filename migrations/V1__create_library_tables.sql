@@ -11,12 +11,17 @@ CREATE TABLE material (
     tags              VARCHAR(1000) NOT NULL DEFAULT '',
     -- 'bulk': thickness can be rescaled (Beer-Lambert); 'fixed': a coating or laminate, never rescaled
     scaling           VARCHAR(10)  NOT NULL,
-    -- refractive-index model: 'constant' (index_n), 'sellmeier' (index_b, index_c) or 'table' (index_wavelengths_nm, index_n_values)
+    -- refractive-index model: 'constant' (index_n), 'sellmeier' (index_b, index_c in um^2, valid range)
+    -- or 'table' (index_table_nm, index_table_n); number lists are comma-separated, written with
+    -- Double.toString so they read back exactly
     index_kind        VARCHAR(20)  NOT NULL,
     index_n           DOUBLE PRECISION,
     index_b           VARCHAR(400),
     index_c           VARCHAR(400),
-    index_table       VARCHAR(8000),
+    index_valid_from_nm DOUBLE PRECISION,
+    index_valid_to_nm   DOUBLE PRECISION,
+    index_table_nm    VARCHAR(8000),
+    index_table_n     VARCHAR(8000),
     created_at        TIMESTAMP WITH TIME ZONE NOT NULL DEFAULT CURRENT_TIMESTAMP,
     CONSTRAINT material_scaling_known CHECK (scaling IN ('bulk', 'fixed')),
     CONSTRAINT material_index_known CHECK (index_kind IN ('constant', 'sellmeier', 'table'))

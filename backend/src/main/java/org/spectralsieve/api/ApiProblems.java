@@ -1,0 +1,101 @@
+package org.spectralsieve.api;
+
+import java.net.URI;
+import org.slf4j.Logger;
+import org.slf4j.LoggerFactory;
+import org.spectralsieve.ingest.IngestException;
+import org.spectralsieve.library.NotFoundException;
+import org.spectralsieve.library.NotRescalableException;
+import org.spectralsieve.spectrum.CurveException;
+import org.springframework.beans.TypeMismatchException;
+import org.springframework.http.HttpHeaders;
+import org.springframework.http.HttpStatus;
+import org.springframework.http.HttpStatusCode;
+import org.springframework.http.ProblemDetail;
+import org.springframework.http.ResponseEntity;
+import org.springframework.web.bind.annotation.ExceptionHandler;
+import org.springframework.web.bind.annotation.RestControllerAdvice;
+import org.springframework.web.context.request.WebRequest;
+import org.springframework.web.method.annotation.MethodArgumentTypeMismatchException;
+import org.springframework.web.servlet.mvc.method.annotation.ResponseEntityExceptionHandler;
+
+/**
+ * Every error leaves the API as an RFC 9457 problem detail. A user's mistake is a 4xx that says what
+ * to change; only a fault of ours becomes a 500, and then without internals.
+ */
+@RestControllerAdvice
+class ApiProblems extends ResponseEntityExceptionHandler {
+
+    private static final Logger log = LoggerFactory.getLogger(ApiProblems.class);
+
+    @ExceptionHandler(NotFoundException.class)
+    ProblemDetail notFound(NotFoundException e) {
+        ProblemDetail problem = problem(HttpStatus.NOT_FOUND, "Not found", e.getMessage(), "not-found");
+        problem.setProperty("resource", e.what());
+        problem.setProperty("id", e.id());
+        return problem;
+    }
+
+    @ExceptionHandler(BadParameterException.class)
+    ProblemDetail badParameter(BadParameterException e) {
+        ProblemDetail problem = problem(HttpStatus.BAD_REQUEST, "Bad parameter", e.getMessage(), "bad-parameter");
+        problem.setProperty("parameter", e.parameter());
+        return problem;
+    }
+
+    @ExceptionHandler(NotRescalableException.class)
+    ProblemDetail notRescalable(NotRescalableException e) {
+        ProblemDetail problem = problem(HttpStatus.BAD_REQUEST, "Layer cannot be rescaled", e.getMessage(), "not-rescalable");
+        problem.setProperty("parameter", "thicknessMm");
+        return problem;
+    }
+
+    @ExceptionHandler(IngestException.class)
+    ProblemDetail unreadableFile(IngestException e) {
+        ProblemDetail problem = problem(HttpStatus.BAD_REQUEST, "File cannot be stored", e.getMessage(), "bad-file");
+        problem.setProperty("file", e.sourceName());
+        problem.setProperty("field", e.field());
+        return problem;
+    }
+
+    /** The core refuses a computation on request data, e.g. a resampling grid beyond the measured range. */
+    @ExceptionHandler(CurveException.class)
+    ProblemDetail curveRefused(CurveException e) {
+        return problem(HttpStatus.BAD_REQUEST, "Curve cannot be computed as asked", e.getMessage(), "curve-refused");
+    }
+
+    @ExceptionHandler(Exception.class)
+    ProblemDetail unexpected(Exception e) {
+        log.error("Unexpected failure while answering a request", e);
+        return problem(HttpStatus.INTERNAL_SERVER_ERROR, "Internal error",
+                "The server failed to answer this request; the failure is logged.", "internal");
+    }
+
+    @Override
+    protected ResponseEntity<Object> handleTypeMismatch(TypeMismatchException e, HttpHeaders headers,
+                                                        HttpStatusCode status, WebRequest request) {
+        String name = e instanceof MethodArgumentTypeMismatchException m ? m.getName() : e.getPropertyName();
+        String expected = e.getRequiredType() == null ? "another type" : describe(e.getRequiredType());
+        ProblemDetail problem = problem(HttpStatus.BAD_REQUEST, "Bad parameter",
+                "parameter '" + name + "': expected " + expected + ", got '" + e.getValue() + "'", "bad-parameter");
+        problem.setProperty("parameter", name);
+        return ResponseEntity.badRequest().body(problem);
+    }
+
+    private static String describe(Class<?> type) {
+        if (type == Double.class || type == double.class) {
+            return "a number";
+        }
+        if (type == Long.class || type == long.class || type == Integer.class || type == int.class) {
+            return "a whole number";
+        }
+        return type.getSimpleName();
+    }
+
+    static ProblemDetail problem(HttpStatus status, String title, String detail, String type) {
+        ProblemDetail problem = ProblemDetail.forStatusAndDetail(status, detail);
+        problem.setTitle(title);
+        problem.setType(URI.create("/problems/" + type));
+        return problem;
+    }
+}

@@ -1,0 +1,75 @@
+package org.spectralsieve.api;
+
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+import java.util.OptionalDouble;
+import org.spectralsieve.library.Material;
+import org.spectralsieve.library.RefractiveIndexJson;
+import org.spectralsieve.library.SampleInfo;
+import org.spectralsieve.spectrum.Curve;
+import org.spectralsieve.spectrum.Cutoffs;
+
+/** JSON shapes of materials and samples (camelCase field names follow the record components). */
+final class MaterialResponses {
+
+    /** The lines a UV workshop asks about first: mercury 254/313/365/405, the LED peaks, and blue at 450. */
+    static final List<Integer> KEY_WAVELENGTHS_NM = List.of(254, 313, 365, 385, 395, 405, 450);
+    static final List<Integer> CUTOFF_LEVELS_PERCENT = List.of(1, 10, 50);
+
+    private MaterialResponses() {
+    }
+
+    record SampleSummary(long id, double thicknessMm, String geometry, String provenance) {
+        static SampleSummary of(SampleInfo s) {
+            return new SampleSummary(s.id(), s.thicknessMm(), s.geometry().label(), s.provenance().label());
+        }
+    }
+
+    record MaterialSummary(long id, String slug, String name, String materialClass, String scaling, List<String> tags,
+                           List<SampleSummary> samples) {
+        static MaterialSummary of(Material m) {
+            return new MaterialSummary(m.id(), m.slug(), m.name(), m.materialClass().label(), m.scaling().label(),
+                    m.tags(), m.samples().stream().map(SampleSummary::of).toList());
+        }
+    }
+
+    record SampleDetail(long id, double thicknessMm, String geometry, String provenance, String instrument,
+                        String measuredOn, String lot, String notes, double detectionLimit, List<Double> rangeNm,
+                        Map<String, Double> cutoffsNm, Map<String, Double> transmittanceAt,
+                        Map<String, Boolean> belowDetectionAt) {
+
+        static SampleDetail of(SampleInfo s, Curve curve) {
+            Map<String, Double> cutoffs = new LinkedHashMap<>();
+            for (int level : CUTOFF_LEVELS_PERCENT) {
+                cutoffs.put(String.valueOf(level), orNull(Cutoffs.cutoffNm(curve, level / 100.0)));
+            }
+            Map<String, Double> at = new LinkedHashMap<>();
+            Map<String, Boolean> below = new LinkedHashMap<>();
+            for (int nm : KEY_WAVELENGTHS_NM) {
+                OptionalDouble t = curve.transmittanceAt(nm);
+                at.put(String.valueOf(nm), orNull(t));
+                below.put(String.valueOf(nm), t.isPresent() ? curve.belowDetectionAt(nm) : null);
+            }
+            return new SampleDetail(s.id(), s.thicknessMm(), s.geometry().label(), s.provenance().label(),
+                    s.instrument(), s.measuredOn() == null ? null : s.measuredOn().toString(), s.lot(), s.notes(),
+                    s.detectionLimit(), List.of(curve.minWavelengthNm(), curve.maxWavelengthNm()), cutoffs, at, below);
+        }
+    }
+
+    record MaterialDetail(long id, String slug, String name, String materialClass, String description, String scaling,
+                          List<String> tags, Map<String, Object> refractiveIndex, List<SampleDetail> samples) {
+        static MaterialDetail of(Material m, List<SampleDetail> samples) {
+            return new MaterialDetail(m.id(), m.slug(), m.name(), m.materialClass().label(), m.description(),
+                    m.scaling().label(), m.tags(), RefractiveIndexJson.toJson(m.refractiveIndex()), samples);
+        }
+    }
+
+    record CurveResponse(long sampleId, double thicknessMm, boolean rescaled, double[] wavelengthsNm,
+                         double[] transmittance, boolean[] belowDetection, double detectionLimit) {
+    }
+
+    private static Double orNull(OptionalDouble value) {
+        return value.isPresent() ? value.getAsDouble() : null;
+    }
+}

@@ -1,0 +1,104 @@
+package org.spectralsieve.api;
+
+import java.util.LinkedHashMap;
+import java.util.Map;
+import org.spectralsieve.api.MaterialResponses.CurveResponse;
+import org.spectralsieve.importers.DelimitedTextWriter;
+import org.spectralsieve.library.SampleCurve;
+import org.spectralsieve.library.SampleCurves;
+import org.spectralsieve.spectrum.Curve;
+import org.spectralsieve.spectrum.WavelengthGrid;
+import org.springframework.http.HttpHeaders;
+import org.springframework.http.MediaType;
+import org.springframework.http.ResponseEntity;
+import org.springframework.web.bind.annotation.GetMapping;
+import org.springframework.web.bind.annotation.PathVariable;
+import org.springframework.web.bind.annotation.RequestMapping;
+import org.springframework.web.bind.annotation.RequestParam;
+import org.springframework.web.bind.annotation.RestController;
+
+/** One sample's curve, as JSON or as the project's own CSV, optionally rescaled and resampled. */
+@RestController
+@RequestMapping("/api/samples/{id}")
+class SampleController {
+
+    /** Thicker than any sheet on a workshop shelf by far; beyond it a request is a typo, not a design. */
+    static final double MAX_THICKNESS_MM = 1000;
+    static final double MIN_STEP_NM = 0.01;
+
+    private final SampleCurves curves;
+
+    SampleController(SampleCurves curves) {
+        this.curves = curves;
+    }
+
+    @GetMapping("/curve")
+    CurveResponse curve(@PathVariable("id") long id,
+                        @RequestParam(name = "thicknessMm", required = false) Double thicknessMm,
+                        @RequestParam(name = "from", required = false) Double from,
+                        @RequestParam(name = "to", required = false) Double to,
+                        @RequestParam(name = "step", required = false) Double step) {
+        SampleCurve result = fetch(id, thicknessMm, from, to, step);
+        Curve c = result.curve();
+        return new CurveResponse(id, result.thicknessMm(), result.rescaled(), c.wavelengthsNm(), c.transmittances(),
+                c.belowDetectionFlags(), c.maxDetectionLimit());
+    }
+
+    @GetMapping("/curve.csv")
+    ResponseEntity<String> curveCsv(@PathVariable("id") long id,
+                                    @RequestParam(name = "thicknessMm", required = false) Double thicknessMm,
+                                    @RequestParam(name = "from", required = false) Double from,
+                                    @RequestParam(name = "to", required = false) Double to,
+                                    @RequestParam(name = "step", required = false) Double step) {
+        SampleCurve result = fetch(id, thicknessMm, from, to, step);
+        Map<String, String> metadata = new LinkedHashMap<>();
+        metadata.put("material", result.material().slug());
+        metadata.put("material_name", result.material().name());
+        metadata.put("sample_id", String.valueOf(id));
+        metadata.put("thickness_mm", String.valueOf(result.thicknessMm()));
+        metadata.put("rescaled", String.valueOf(result.rescaled()));
+        metadata.put("geometry", result.sample().geometry().label());
+        metadata.put("provenance", result.sample().provenance().label());
+        metadata.put("detection_limit", String.valueOf(result.curve().maxDetectionLimit()));
+        if (!result.sample().notes().isBlank()) {
+            metadata.put("note", result.sample().notes());
+        }
+        Curve c = result.curve();
+        String csv = DelimitedTextWriter.write(metadata, c.wavelengthsNm(), c.transmittances(), c.belowDetectionFlags());
+        String fileName = result.material().slug() + "-" + result.thicknessMm() + "mm.csv";
+        return ResponseEntity.ok()
+                .contentType(new MediaType("text", "csv", java.nio.charset.StandardCharsets.UTF_8))
+                .header(HttpHeaders.CONTENT_DISPOSITION, "attachment; filename=\"" + fileName + "\"")
+                .body(csv);
+    }
+
+    private SampleCurve fetch(long id, Double thicknessMm, Double from, Double to, Double step) {
+        if (thicknessMm != null && !(thicknessMm > 0 && thicknessMm <= MAX_THICKNESS_MM)) {
+            throw new BadParameterException("thicknessMm", "must be above 0 and at most " + MAX_THICKNESS_MM
+                    + " mm, got " + thicknessMm);
+        }
+        return curves.get(id, thicknessMm, grid(from, to, step));
+    }
+
+    private static WavelengthGrid grid(Double from, Double to, Double step) {
+        if (from == null && to == null && step == null) {
+            return null;
+        }
+        if (from == null || to == null) {
+            throw new BadParameterException(from == null ? "from" : "to",
+                    "resampling needs both 'from' and 'to' (and optionally 'step', default 1 nm)");
+        }
+        double stepNm = step == null ? 1.0 : step;
+        if (!(stepNm >= MIN_STEP_NM)) {
+            throw new BadParameterException("step", "must be at least " + MIN_STEP_NM + " nm, got " + stepNm);
+        }
+        if (!(from < to)) {
+            throw new BadParameterException("to", "must be greater than 'from' (" + from + " nm), got " + to);
+        }
+        try {
+            return new WavelengthGrid(from, to, stepNm);
+        } catch (IllegalArgumentException e) {
+            throw new BadParameterException("step", e.getMessage());
+        }
+    }
+}

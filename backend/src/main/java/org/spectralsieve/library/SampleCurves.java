@@ -1,0 +1,38 @@
+package org.spectralsieve.library;
+
+import org.spectralsieve.optics.ThicknessRescaler;
+import org.spectralsieve.spectrum.Curve;
+import org.spectralsieve.spectrum.WavelengthGrid;
+
+/** Fetches a stored curve and applies what the user asked: rescaling to a thickness, then resampling. */
+public class SampleCurves {
+
+    private final JooqLibraryRepository library;
+
+    public SampleCurves(JooqLibraryRepository library) {
+        this.library = library;
+    }
+
+    /**
+     * @param thicknessMm the thickness to rescale to, or null for the sample as measured
+     * @param grid        the grid to resample onto, or null for the stored points
+     */
+    public SampleCurve get(long sampleId, Double thicknessMm, WavelengthGrid grid) {
+        SampleInfo sample = library.findSample(sampleId).orElseThrow(() -> new NotFoundException("sample", sampleId));
+        Material material = library.findMaterial(sample.materialId())
+                .orElseThrow(() -> new NotFoundException("material", sample.materialId()));
+        Curve curve = library.findCurve(sampleId).orElseThrow(() -> new NotFoundException("curve of sample", sampleId));
+
+        boolean rescale = thicknessMm != null && thicknessMm != sample.thicknessMm();
+        if (rescale && material.scaling() == Scaling.FIXED) {
+            throw new NotRescalableException(material.name(), sampleId);
+        }
+        if (rescale) {
+            curve = ThicknessRescaler.rescale(curve, sample.thicknessMm(), thicknessMm, material.refractiveIndex());
+        }
+        if (grid != null) {
+            curve = curve.resample(grid);
+        }
+        return new SampleCurve(material, sample, curve, rescale ? thicknessMm : sample.thicknessMm(), rescale);
+    }
+}

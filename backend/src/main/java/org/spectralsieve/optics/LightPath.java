@@ -1,0 +1,99 @@
+package org.spectralsieve.optics;
+
+import java.util.List;
+import org.spectralsieve.spectrum.Curve;
+import org.spectralsieve.spectrum.CurveException;
+import org.spectralsieve.spectrum.WavelengthGrid;
+
+/**
+ * Several separate parts one after another in a beam (window + mask film + cover), combined into one
+ * transmittance curve.
+ *
+ * <p>Model, per wavelength: each layer becomes a symmetric slab element — R from its index by Fresnel,
+ * K from its (rescaled) measured T by inverting the slab formula, element T and R from K and R — and
+ * the elements are chained with {@link OpticalElement#followedBy}: incoherent multiple reflections across
+ * air gaps. Incoherent, because the parts are much thicker than the coherence length of the lamps and LEDs
+ * in question, so interference averages out; air gaps, because the parts are separate pieces, not
+ * cemented. Inverting and re-forming the slab reproduces the layer's own T, so a path of one bulk layer
+ * equals {@link ThicknessRescaler#rescale} resampled onto the grid.
+ *
+ * <p>Detection: the path is below detection where any layer is, because T of the chain increases with
+ * every layer's T and an upper bound therefore stays a bound. The path's detection limit at a wavelength
+ * is the largest path T obtained by setting one layer at a time to its own detection limit.
+ */
+public final class LightPath {
+
+    private final List<Layer> layers;
+
+    private LightPath(List<Layer> layers) {
+        this.layers = layers;
+    }
+
+    public static LightPath of(List<Layer> layers) {
+        List<Layer> copy = List.copyOf(layers);
+        if (copy.isEmpty()) {
+            throw new IllegalArgumentException("a light path needs at least one layer");
+        }
+        return new LightPath(copy);
+    }
+
+    public static LightPath of(Layer... layers) {
+        return of(List.of(layers));
+    }
+
+    public List<Layer> layers() {
+        return layers;
+    }
+
+    /** Transmittance of the whole path on {@code grid}; every layer's curve must cover the grid. */
+    public Curve transmittance(WavelengthGrid grid) {
+        int count = layers.size();
+        Curve[] onGrid = new Curve[count];
+        for (int j = 0; j < count; j++) {
+            try {
+                onGrid[j] = layers.get(j).transmittanceOn(grid);
+            } catch (CurveException e) {
+                throw new CurveException("layer " + j + ": " + e.getMessage());
+            }
+        }
+        double[] nm = grid.points();
+        double[] t = new double[nm.length];
+        boolean[] below = new boolean[nm.length];
+        double[] limits = new double[nm.length];
+        for (int i = 0; i < nm.length; i++) {
+            double[] layerT = new double[count];
+            double[] layerR = new double[count];
+            for (int j = 0; j < count; j++) {
+                layerT[j] = onGrid[j].transmittance(i);
+                layerR[j] = Fresnel.reflectanceInAir(layers.get(j).index().at(nm[i]));
+                below[i] |= onGrid[j].belowDetection(i);
+            }
+            t[i] = chain(layerT, layerR);
+            limits[i] = detectionLimit(onGrid, i, layerT, layerR);
+        }
+        return Curve.of(nm, t, below, limits);
+    }
+
+    private static double detectionLimit(Curve[] onGrid, int i, double[] layerT, double[] layerR) {
+        double limit = 0;
+        for (int j = 0; j < onGrid.length; j++) {
+            double[] withLimit = layerT.clone();
+            withLimit[j] = onGrid[j].detectionLimit(i);
+            limit = Math.max(limit, chain(withLimit, layerR));
+        }
+        // a Curve's limit must stay under 1; only noisy T above the ceiling could get near it
+        return Math.min(limit, Math.nextDown(1.0));
+    }
+
+    private static double chain(double[] layerT, double[] layerR) {
+        OpticalElement path = element(layerT[0], layerR[0]);
+        for (int j = 1; j < layerT.length; j++) {
+            path = path.followedBy(element(layerT[j], layerR[j]));
+        }
+        return path.transmittance();
+    }
+
+    private static OpticalElement element(double t, double r) {
+        return OpticalElement.slab(Slab.internalFromTransmittance(t, r), r);
+    }
+}

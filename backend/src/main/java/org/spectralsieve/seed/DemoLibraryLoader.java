@@ -1,0 +1,127 @@
+package org.spectralsieve.seed;
+
+import java.io.IOException;
+import java.io.InputStream;
+import java.io.InputStreamReader;
+import java.io.StringReader;
+import java.io.UncheckedIOException;
+import java.nio.charset.StandardCharsets;
+import java.util.ArrayList;
+import java.util.List;
+import org.jooq.DSLContext;
+import org.slf4j.Logger;
+import org.slf4j.LoggerFactory;
+import org.spectralsieve.importers.DelimitedTextReader;
+import org.spectralsieve.importers.ImportException;
+import org.spectralsieve.importers.ParsedSpectrum;
+import org.spectralsieve.ingest.Checksums;
+import org.spectralsieve.ingest.CurveIngest;
+import org.spectralsieve.library.Geometry;
+import org.spectralsieve.library.JooqLibraryRepository;
+import org.spectralsieve.library.MaterialClass;
+import org.spectralsieve.library.NewMaterial;
+import org.spectralsieve.library.NewSample;
+import org.spectralsieve.library.Provenance;
+import org.spectralsieve.library.RefractiveIndexJson;
+import org.spectralsieve.library.Scaling;
+import org.springframework.core.io.Resource;
+import org.springframework.core.io.ResourceLoader;
+import tools.jackson.databind.JsonNode;
+import tools.jackson.databind.json.JsonMapper;
+
+/**
+ * Loads the demo library from {@code seed-materials/}: the catalogue names materials and samples, and
+ * every curve file goes through the same reader as a user's import. Each material and its samples are
+ * stored in one transaction, so a broken entry leaves nothing behind.
+ */
+public class DemoLibraryLoader {
+
+    private static final Logger log = LoggerFactory.getLogger(DemoLibraryLoader.class);
+
+    private final JooqLibraryRepository library;
+    private final DSLContext db;
+    private final ResourceLoader resources;
+    private final String location;
+
+    public DemoLibraryLoader(JooqLibraryRepository library, DSLContext db, ResourceLoader resources, String location) {
+        this.library = library;
+        this.db = db;
+        this.resources = resources;
+        this.location = location.endsWith("/") ? location : location + "/";
+    }
+
+    /** @return the number of samples stored */
+    public int load() {
+        JsonNode catalogue = readCatalogue();
+        int samples = 0;
+        for (JsonNode material : catalogue.path("materials")) {
+            samples += loadMaterial(material);
+        }
+        log.info("Demo library loaded: {} materials, {} samples ({})", catalogue.path("materials").size(), samples,
+                catalogue.path("notice").asString(""));
+        return samples;
+    }
+
+    private JsonNode readCatalogue() {
+        try (InputStream in = resource("catalogue.json").getInputStream()) {
+            return JsonMapper.builder().build().readTree(in);
+        } catch (IOException e) {
+            throw new UncheckedIOException("cannot read " + location + "catalogue.json", e);
+        }
+    }
+
+    private int loadMaterial(JsonNode m) {
+        String slug = m.path("slug").asString("");
+        NewMaterial material;
+        List<NewSample> samples = new ArrayList<>();
+        try {
+            material = new NewMaterial(slug, m.path("name").asString(""), MaterialClass.of(m.path("class").asString("")),
+                    m.path("description").asString(""), strings(m.path("tags")), Scaling.parse(m.path("scaling").asString("")),
+                    RefractiveIndexJson.fromJson(m.get("refractiveIndex")));
+            for (JsonNode s : m.path("samples")) {
+                samples.add(sample(s));
+            }
+        } catch (IllegalArgumentException e) {
+            throw new IllegalStateException("catalogue.json, material '" + slug + "': " + e.getMessage(), e);
+        }
+        db.transaction(tx -> {
+            long id = library.insertMaterial(material);
+            samples.forEach(sample -> library.insertSample(id, sample));
+        });
+        return samples.size();
+    }
+
+    private NewSample sample(JsonNode s) {
+        String file = s.path("file").asString("");
+        byte[] bytes = bytes(file);
+        ParsedSpectrum parsed;
+        try {
+            parsed = new DelimitedTextReader().read(file, new StringReader(new String(bytes, StandardCharsets.UTF_8)));
+        } catch (ImportException e) {
+            throw new IllegalArgumentException(e.getMessage(), e);
+        }
+        double limit = s.path("detectionLimit").asDouble(0);
+        return new NewSample(s.path("thicknessMm").asDouble(Double.NaN), Geometry.parse(s.path("geometry").asString("")),
+                Provenance.parse(s.path("provenance").asString("")), s.path("instrument").asString(""), null,
+                s.path("lot").asString(""), s.path("notes").asString(""), limit, CurveIngest.toCurve(parsed, limit),
+                file, Checksums.sha256(bytes));
+    }
+
+    private byte[] bytes(String file) {
+        try (InputStream in = resource(file).getInputStream()) {
+            return in.readAllBytes();
+        } catch (IOException e) {
+            throw new IllegalArgumentException("cannot read curve file " + location + file, e);
+        }
+    }
+
+    private Resource resource(String relative) {
+        return resources.getResource(location + relative);
+    }
+
+    private static List<String> strings(JsonNode array) {
+        List<String> list = new ArrayList<>();
+        array.forEach(item -> list.add(item.asString()));
+        return list;
+    }
+}

@@ -1,0 +1,275 @@
+package org.spectralsieve.spectrum;
+
+import java.util.Arrays;
+import java.util.OptionalDouble;
+
+/**
+ * An immutable measured or modelled transmittance curve T(λ).
+ *
+ * <p>Each point carries its own detection limit and a below-detection flag: a flagged point is an upper
+ * bound, not a value (the instrument could not tell it from its floor). Interpolation works in absorbance
+ * because transmittance of an absorbing sample varies exponentially with concentration and thickness, so
+ * straight lines in −log10 T stay closer to the truth than straight lines in T across an absorption edge.
+ * Nothing is ever extrapolated beyond the measured range.
+ */
+public final class Curve {
+
+    /** Upper end of accepted transmittance: noise on a clear sample reads slightly above 1, not 1.5. */
+    public static final double MAX_TRANSMITTANCE = 1.5;
+
+    /** Floor for T before taking the logarithm, so a reading of exactly 0 still interpolates (A = 12). */
+    public static final double ABSORBANCE_FLOOR_T = 1e-12;
+
+    private final double[] wavelengthsNm;
+    private final double[] transmittance;
+    private final boolean[] belowDetection;
+    private final double[] detectionLimits;
+
+    private Curve(double[] wavelengthsNm, double[] transmittance, boolean[] belowDetection,
+            double[] detectionLimits) {
+        this.wavelengthsNm = wavelengthsNm;
+        this.transmittance = transmittance;
+        this.belowDetection = belowDetection;
+        this.detectionLimits = detectionLimits;
+    }
+
+    /** Copies the arrays; all four must have the same length, at least 2. */
+    public static Curve of(double[] wavelengthsNm, double[] transmittance, boolean[] belowDetection,
+            double[] detectionLimits) {
+        requireNonNull("wavelengthsNm", wavelengthsNm);
+        requireNonNull("transmittance", transmittance);
+        requireNonNull("belowDetection", belowDetection);
+        requireNonNull("detectionLimits", detectionLimits);
+        int n = wavelengthsNm.length;
+        requireSameLength("transmittance", transmittance.length, n);
+        requireSameLength("belowDetection", belowDetection.length, n);
+        requireSameLength("detectionLimits", detectionLimits.length, n);
+        if (n < 2) {
+            throw new CurveException("a curve needs at least 2 points, got " + n);
+        }
+        for (int i = 0; i < n; i++) {
+            validatePoint(i, wavelengthsNm, transmittance[i], detectionLimits[i]);
+        }
+        return new Curve(wavelengthsNm.clone(), transmittance.clone(), belowDetection.clone(),
+                detectionLimits.clone());
+    }
+
+    /** One detection limit for all points; a point is below detection when T <= detectionLimit. */
+    public static Curve of(double[] wavelengthsNm, double[] transmittance, double detectionLimit) {
+        requireNonNull("wavelengthsNm", wavelengthsNm);
+        requireNonNull("transmittance", transmittance);
+        requireSameLength("transmittance", transmittance.length, wavelengthsNm.length);
+        validateDetectionLimit("detectionLimit", detectionLimit);
+        boolean[] below = new boolean[transmittance.length];
+        double[] limits = new double[transmittance.length];
+        for (int i = 0; i < transmittance.length; i++) {
+            below[i] = transmittance[i] <= detectionLimit;
+            limits[i] = detectionLimit;
+        }
+        return of(wavelengthsNm, transmittance, below, limits);
+    }
+
+    private static void validatePoint(int i, double[] wl, double t, double limit) {
+        double nm = wl[i];
+        if (!Double.isFinite(nm) || nm <= 0) {
+            throw new CurveException("wavelength at index " + i + " (" + nm + " nm) must be finite and > 0");
+        }
+        if (i > 0 && !(nm > wl[i - 1])) {
+            throw new CurveException("wavelength at index " + i + " (" + nm
+                    + " nm) is not greater than the previous one (" + wl[i - 1] + " nm)");
+        }
+        if (!Double.isFinite(t) || t < 0 || t > MAX_TRANSMITTANCE) {
+            throw new CurveException("transmittance at index " + i + " (" + t + " at " + nm
+                    + " nm) must be a finite fraction in [0, " + MAX_TRANSMITTANCE + "]");
+        }
+        validateDetectionLimit("detection limit at index " + i + " (" + nm + " nm)", limit);
+    }
+
+    private static void validateDetectionLimit(String what, double limit) {
+        if (!Double.isFinite(limit) || limit < 0 || limit >= 1) {
+            throw new CurveException(what + " is " + limit + ", must be a fraction in [0, 1)");
+        }
+    }
+
+    private static void requireNonNull(String name, Object array) {
+        if (array == null) {
+            throw new CurveException(name + " must not be null");
+        }
+    }
+
+    private static void requireSameLength(String name, int length, int expected) {
+        if (length != expected) {
+            throw new CurveException(name + " has " + length + " entries but wavelengthsNm has " + expected);
+        }
+    }
+
+    public int size() {
+        return wavelengthsNm.length;
+    }
+
+    public double wavelengthNm(int i) {
+        return wavelengthsNm[i];
+    }
+
+    public double transmittance(int i) {
+        return transmittance[i];
+    }
+
+    public boolean belowDetection(int i) {
+        return belowDetection[i];
+    }
+
+    public double detectionLimit(int i) {
+        return detectionLimits[i];
+    }
+
+    public double[] wavelengthsNm() {
+        return wavelengthsNm.clone();
+    }
+
+    public double[] transmittances() {
+        return transmittance.clone();
+    }
+
+    public boolean[] belowDetectionFlags() {
+        return belowDetection.clone();
+    }
+
+    public double[] detectionLimits() {
+        return detectionLimits.clone();
+    }
+
+    public double minWavelengthNm() {
+        return wavelengthsNm[0];
+    }
+
+    public double maxWavelengthNm() {
+        return wavelengthsNm[wavelengthsNm.length - 1];
+    }
+
+    public boolean covers(double nm) {
+        return nm >= minWavelengthNm() && nm <= maxWavelengthNm();
+    }
+
+    public boolean hasUniformDetectionLimit() {
+        for (double limit : detectionLimits) {
+            if (limit != detectionLimits[0]) {
+                return false;
+            }
+        }
+        return true;
+    }
+
+    public double maxDetectionLimit() {
+        return Arrays.stream(detectionLimits).max().orElseThrow();
+    }
+
+    /** Interpolated in absorbance between the neighbouring points; empty outside the measured range. */
+    public OptionalDouble transmittanceAt(double nm) {
+        if (!covers(nm)) {
+            return OptionalDouble.empty();
+        }
+        int hit = Arrays.binarySearch(wavelengthsNm, nm);
+        if (hit >= 0) {
+            return OptionalDouble.of(transmittance[hit]);
+        }
+        int upper = -hit - 1;
+        int lower = upper - 1;
+        double f = fraction(nm, lower, upper);
+        double a = absorbance(transmittance[lower]) * (1 - f) + absorbance(transmittance[upper]) * f;
+        return OptionalDouble.of(Math.pow(10.0, -a));
+    }
+
+    /**
+     * True if the point at {@code nm}, or either neighbour of an interpolated value, is below detection:
+     * a value interpolated towards an upper bound is itself only a bound. False outside the range.
+     */
+    public boolean belowDetectionAt(double nm) {
+        if (!covers(nm)) {
+            return false;
+        }
+        int hit = Arrays.binarySearch(wavelengthsNm, nm);
+        if (hit >= 0) {
+            return belowDetection[hit];
+        }
+        int upper = -hit - 1;
+        return belowDetection[upper - 1] || belowDetection[upper];
+    }
+
+    /**
+     * The curve on {@code grid}: T interpolated in absorbance, flags as {@link #belowDetectionAt}, limits
+     * interpolated linearly. Fails, naming the grid end, if the grid reaches outside the measured range.
+     */
+    public Curve resample(WavelengthGrid grid) {
+        double first = grid.at(0);
+        double last = grid.at(grid.size() - 1);
+        if (first < minWavelengthNm()) {
+            throw new CurveException("grid start " + first + " nm lies below the measured range "
+                    + rangeText() + "; curves are never extrapolated");
+        }
+        if (last > maxWavelengthNm()) {
+            throw new CurveException("grid end " + last + " nm lies above the measured range "
+                    + rangeText() + "; curves are never extrapolated");
+        }
+        int n = grid.size();
+        if (n < 2) {
+            throw new CurveException("grid " + grid + " has only " + n + " point; a curve needs 2");
+        }
+        double[] nm = grid.points();
+        double[] t = new double[n];
+        boolean[] below = new boolean[n];
+        double[] limits = new double[n];
+        for (int i = 0; i < n; i++) {
+            t[i] = transmittanceAt(nm[i]).orElseThrow();
+            below[i] = belowDetectionAt(nm[i]);
+            limits[i] = detectionLimitAt(nm[i]);
+        }
+        return new Curve(nm, t, below, limits);
+    }
+
+    private double detectionLimitAt(double nm) {
+        int hit = Arrays.binarySearch(wavelengthsNm, nm);
+        if (hit >= 0) {
+            return detectionLimits[hit];
+        }
+        int upper = -hit - 1;
+        int lower = upper - 1;
+        double f = fraction(nm, lower, upper);
+        return detectionLimits[lower] * (1 - f) + detectionLimits[upper] * f;
+    }
+
+    private double fraction(double nm, int lower, int upper) {
+        return (nm - wavelengthsNm[lower]) / (wavelengthsNm[upper] - wavelengthsNm[lower]);
+    }
+
+    /** −log10 T with T floored at {@link #ABSORBANCE_FLOOR_T}. */
+    static double absorbance(double t) {
+        return -Math.log10(Math.max(t, ABSORBANCE_FLOOR_T));
+    }
+
+    private String rangeText() {
+        return minWavelengthNm() + ".." + maxWavelengthNm() + " nm";
+    }
+
+    @Override
+    public boolean equals(Object o) {
+        return o instanceof Curve other
+                && Arrays.equals(wavelengthsNm, other.wavelengthsNm)
+                && Arrays.equals(transmittance, other.transmittance)
+                && Arrays.equals(belowDetection, other.belowDetection)
+                && Arrays.equals(detectionLimits, other.detectionLimits);
+    }
+
+    @Override
+    public int hashCode() {
+        int h = Arrays.hashCode(wavelengthsNm);
+        h = 31 * h + Arrays.hashCode(transmittance);
+        h = 31 * h + Arrays.hashCode(belowDetection);
+        return 31 * h + Arrays.hashCode(detectionLimits);
+    }
+
+    @Override
+    public String toString() {
+        return "Curve[" + size() + " points, " + rangeText() + "]";
+    }
+}

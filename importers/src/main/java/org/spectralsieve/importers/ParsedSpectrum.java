@@ -1,0 +1,180 @@
+package org.spectralsieve.importers;
+
+import java.util.Arrays;
+import java.util.Collections;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+import java.util.Objects;
+
+/**
+ * The neutral result of any importer: what the file said, before calibration or validation against a
+ * material. Wavelengths are already in nanometres; values are kept as written (their kind says how to
+ * read them) so that nothing is lost before the backend decides what to do with them.
+ *
+ * <p>Invariants (checked in {@link #of}): at least 2 points; all arrays of equal length; every number
+ * finite; wavelengths strictly increasing. Arrays are copied in and out, so an instance never changes.
+ */
+public final class ParsedSpectrum {
+
+    /** Fewer points cannot describe a curve (no interval to interpolate over). */
+    public static final int MIN_POINTS = 2;
+
+    private final String sourceName;
+    private final double[] wavelengthsNm;
+    private final double[] values;
+    private final boolean[] upperBounds;
+    private final YKind yKind;
+    private final XUnit xUnit;
+    private final Map<String, String> metadata;
+    private final List<String> warnings;
+
+    private ParsedSpectrum(String sourceName, double[] wavelengthsNm, double[] values, boolean[] upperBounds,
+            YKind yKind, XUnit xUnit, Map<String, String> metadata, List<String> warnings) {
+        this.sourceName = sourceName;
+        this.wavelengthsNm = wavelengthsNm;
+        this.values = values;
+        this.upperBounds = upperBounds;
+        this.yKind = yKind;
+        this.xUnit = xUnit;
+        this.metadata = metadata;
+        this.warnings = warnings;
+    }
+
+    /**
+     * @param wavelengthsNm wavelengths already converted to nm, strictly increasing
+     * @param values        y values as written in the file, of kind {@code yKind}
+     * @param upperBounds   true where the file marked the value as "at or below detection"; null = none
+     * @param xUnit         the unit the file used for x (for reporting; the array is in nm regardless)
+     * @param metadata      keys are lower-cased and trimmed; insertion order kept
+     * @throws IllegalArgumentException naming the bad index and value
+     */
+    public static ParsedSpectrum of(String sourceName, double[] wavelengthsNm, double[] values,
+            boolean[] upperBounds, YKind yKind, XUnit xUnit, Map<String, String> metadata,
+            List<String> warnings) {
+        Objects.requireNonNull(sourceName, "sourceName");
+        Objects.requireNonNull(wavelengthsNm, "wavelengthsNm");
+        Objects.requireNonNull(values, "values");
+        Objects.requireNonNull(yKind, "yKind");
+        Objects.requireNonNull(xUnit, "xUnit");
+        boolean[] bounds = upperBounds == null ? new boolean[values.length] : upperBounds.clone();
+        if (wavelengthsNm.length != values.length || bounds.length != values.length) {
+            throw new IllegalArgumentException("lengths differ: " + wavelengthsNm.length + " wavelengths, "
+                    + values.length + " values, " + bounds.length + " upper-bound flags");
+        }
+        if (values.length < MIN_POINTS) {
+            throw new IllegalArgumentException(
+                    "need at least " + MIN_POINTS + " points, got " + values.length);
+        }
+        double[] x = wavelengthsNm.clone();
+        double[] y = values.clone();
+        checkFiniteAndIncreasing(x, y);
+        return new ParsedSpectrum(sourceName, x, y, bounds, yKind, xUnit, normalise(metadata),
+                warnings == null ? List.of() : List.copyOf(warnings));
+    }
+
+    private static void checkFiniteAndIncreasing(double[] x, double[] y) {
+        for (int i = 0; i < x.length; i++) {
+            if (!Double.isFinite(x[i])) {
+                throw new IllegalArgumentException("wavelength at index " + i + " is not finite: " + x[i]);
+            }
+            if (!Double.isFinite(y[i])) {
+                throw new IllegalArgumentException("value at index " + i + " is not finite: " + y[i]);
+            }
+            if (i > 0 && !(x[i] > x[i - 1])) {
+                throw new IllegalArgumentException("wavelengths not strictly increasing at index " + i
+                        + ": " + x[i] + " nm follows " + x[i - 1] + " nm");
+            }
+        }
+    }
+
+    private static Map<String, String> normalise(Map<String, String> metadata) {
+        Map<String, String> copy = new LinkedHashMap<>();
+        if (metadata != null) {
+            metadata.forEach((k, v) -> copy.put(normaliseKey(k), Objects.requireNonNull(v, "metadata value")));
+        }
+        return Collections.unmodifiableMap(copy);
+    }
+
+    /** Metadata keys compare case-insensitively; storing them lower-cased makes lookups simple. */
+    static String normaliseKey(String key) {
+        return Objects.requireNonNull(key, "metadata key").trim().toLowerCase(Locale.ROOT);
+    }
+
+    public String sourceName() {
+        return sourceName;
+    }
+
+    /** Wavelengths in nm, strictly increasing (a copy). */
+    public double[] wavelengthsNm() {
+        return wavelengthsNm.clone();
+    }
+
+    /** Values as written in the file, of kind {@link #yKind()} (a copy). */
+    public double[] values() {
+        return values.clone();
+    }
+
+    /** True where the value is only an upper bound ("at or below detection"), a copy. */
+    public boolean[] upperBounds() {
+        return upperBounds.clone();
+    }
+
+    public YKind yKind() {
+        return yKind;
+    }
+
+    /** The x unit found in the file; {@link #wavelengthsNm()} is already converted from it. */
+    public XUnit xUnit() {
+        return xUnit;
+    }
+
+    /** Unmodifiable, in the order found; keys lower-cased and trimmed. */
+    public Map<String, String> metadata() {
+        return metadata;
+    }
+
+    /** Things the user should know that did not stop the import (e.g. a guessed y kind). */
+    public List<String> warnings() {
+        return warnings;
+    }
+
+    public int size() {
+        return values.length;
+    }
+
+    /** Values converted to transmittance fractions: %T / 100, or 10^−A for absorbance. */
+    public double[] transmittanceFractions() {
+        double[] t = new double[values.length];
+        for (int i = 0; i < t.length; i++) {
+            t[i] = yKind.toTransmittanceFraction(values[i]);
+        }
+        return t;
+    }
+
+    @Override
+    public boolean equals(Object o) {
+        return o instanceof ParsedSpectrum p
+                && sourceName.equals(p.sourceName)
+                && Arrays.equals(wavelengthsNm, p.wavelengthsNm)
+                && Arrays.equals(values, p.values)
+                && Arrays.equals(upperBounds, p.upperBounds)
+                && yKind == p.yKind
+                && xUnit == p.xUnit
+                && metadata.equals(p.metadata)
+                && warnings.equals(p.warnings);
+    }
+
+    @Override
+    public int hashCode() {
+        return Objects.hash(sourceName, Arrays.hashCode(wavelengthsNm), Arrays.hashCode(values), yKind, xUnit);
+    }
+
+    @Override
+    public String toString() {
+        return "ParsedSpectrum[" + sourceName + ", " + size() + " points, " + wavelengthsNm[0] + "–"
+                + wavelengthsNm[wavelengthsNm.length - 1] + " nm, " + yKind + " (x in " + xUnit + "), "
+                + metadata.size() + " metadata, " + warnings.size() + " warnings]";
+    }
+}
