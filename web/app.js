@@ -306,11 +306,12 @@ function setupRescale(material) {
 
 // The server owns the rule; ask it once so the page shows its own words for why a fixed layer
 // cannot be rescaled, instead of a second, possibly diverging, explanation written here.
+// (Twice the thickness: at its own thickness the server simply returns the measured curve.)
 async function explainFixedLayer(material) {
   const request = state.detailRequest;
   const sample = material.samples[0];
   try {
-    await api.getCurve(sample.id, sample.thicknessMm);
+    await api.getCurve(sample.id, sample.thicknessMm * 2);
     if (request !== state.detailRequest) return;
     dom.rescaleNote.textContent = 'Fixed layer: its transmittance does not scale with thickness.';
   } catch (problem) {

@@ -10,8 +10,6 @@ const UV_BANDS = [
   { from: 315, to: 400, fill: 'rgba(96, 84, 140, 0.04)', label: 'UV-A' },
 ];
 
-// OD of a point that passes nothing at all would be infinite; the axis stops here instead.
-const OD_CEILING = 8;
 
 export const AXIS_MODES = {
   linear: {
@@ -21,7 +19,8 @@ export const AXIS_MODES = {
   },
   od: {
     label: 'Optical density (−log₁₀ T)',
-    value: (t) => (t > 0 ? Math.min(-Math.log10(t), OD_CEILING) : OD_CEILING),
+    // T = 0 has no finite OD; such a point is left out rather than drawn at an invented height.
+    value: (t) => (t > 0 ? -Math.log10(t) : null),
     range: (u, min, max) => [0, Math.max(1, Math.ceil(max ?? 1))],
   },
 };
