@@ -150,6 +150,19 @@ class LibraryPageBrowserTest {
         assertThat(message.isDisplayed()).as("error area stays hidden, but shows: %s", message.getText()).isFalse();
     }
 
+    @Test
+    void unknownMaterialShowsTheServersProblemDetailInTheMessageArea() throws IOException {
+        driver.get("http://localhost:" + port + "/#material=987654321");
+
+        WebElement message = driver.findElement(By.id("message"));
+        wait.withMessage("waiting for the 404 problem detail to be shown");
+        wait.until(d -> message.isDisplayed());
+        // The page quotes the problem's status and its detail, which names the missing id.
+        assertThat(message.getText()).contains("404").contains("987654321");
+        assertThat(driver.findElement(By.id("material-detail")).isDisplayed()).isFalse();
+        screenshot("5-unknown-material");
+    }
+
     private int waitForRowCount(IntPredicate condition, String what) {
         wait.withMessage(() -> "waiting for " + what + "; rows now: " + rows().size()
                 + "; message: " + driver.findElement(By.id("message")).getText());
