@@ -1,6 +1,8 @@
 package org.spectralsieve.importers;
 
 import java.util.ArrayList;
+import java.util.Collections;
+import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
@@ -17,7 +19,8 @@ import java.util.regex.Pattern;
 record ColumnLayout(List<String> names, int xColumn, XUnit xUnit, int yColumn, Optional<YKind> yKind,
         List<String> ignored) {
 
-    private static final Map<String, XUnit> X_NAMES = Map.ofEntries(
+    /** Normalised names (see {@link #normalise}), in the order error messages list them. */
+    private static final Map<String, XUnit> X_NAMES = ordered(
             Map.entry("wavelength_nm", XUnit.NANOMETRE), Map.entry("wavelength", XUnit.NANOMETRE),
             Map.entry("nm", XUnit.NANOMETRE), Map.entry("lambda", XUnit.NANOMETRE),
             Map.entry("lambda_nm", XUnit.NANOMETRE),
@@ -26,7 +29,7 @@ record ColumnLayout(List<String> names, int xColumn, XUnit xUnit, int yColumn, O
             Map.entry("angstrom", XUnit.ANGSTROM), Map.entry("wavelength_angstrom", XUnit.ANGSTROM),
             Map.entry("wavelength_å", XUnit.ANGSTROM), Map.entry("å", XUnit.ANGSTROM));
 
-    private static final Map<String, YKind> Y_NAMES = Map.ofEntries(
+    private static final Map<String, YKind> Y_NAMES = ordered(
             Map.entry("transmittance", YKind.TRANSMITTANCE_FRACTION),
             Map.entry("transmittance_percent", YKind.TRANSMITTANCE_PERCENT),
             Map.entry("%t", YKind.TRANSMITTANCE_PERCENT), Map.entry("t%", YKind.TRANSMITTANCE_PERCENT),
@@ -40,6 +43,15 @@ record ColumnLayout(List<String> names, int xColumn, XUnit xUnit, int yColumn, O
     ColumnLayout {
         names = List.copyOf(names);
         ignored = List.copyOf(ignored);
+    }
+
+    @SafeVarargs
+    private static <V> Map<String, V> ordered(Map.Entry<String, V>... entries) {
+        Map<String, V> map = new LinkedHashMap<>();
+        for (Map.Entry<String, V> e : entries) {
+            map.put(e.getKey(), e.getValue());
+        }
+        return Collections.unmodifiableMap(map);
     }
 
     int columnCount() {
@@ -82,8 +94,7 @@ record ColumnLayout(List<String> names, int xColumn, XUnit xUnit, int yColumn, O
                     "no wavelength column in header " + header + "; expected one of " + X_NAMES.keySet());
         }
         if (y < 0) {
-            throw new ImportException(sourceName, line, header.get(Math.min(1, header.size() - 1)),
-                    "no value column in header " + header + "; expected one of " + Y_NAMES.keySet());
+            throw new ImportException(sourceName, line, null, "no value column in header " + header + "; expected one of " + Y_NAMES.keySet());
         }
         return new ColumnLayout(header, x, unit, y, Optional.of(kind), ignored);
     }

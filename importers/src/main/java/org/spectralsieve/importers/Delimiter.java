@@ -16,7 +16,8 @@ import org.apache.commons.csv.CSVRecord;
  * comma; else a semicolon means semicolon; else a tab means tab; else runs of spaces. Runs-of-spaces
  * mode also accepts tabs, because hand-edited text files often mix the two.
  *
- * <p>Comma, semicolon and tab lines are tokenised by commons-csv (so quoted header names work); a quoted
+ * <p>Comma, semicolon and tab lines holding a double quote are tokenised by commons-csv (so quoted header
+ * names work); others are split directly, which gives the same fields faster. A quoted
  * field cannot span lines, since data are read one line at a time to keep line numbers exact.
  */
 enum Delimiter {
@@ -61,6 +62,9 @@ enum Delimiter {
         if (this == WHITESPACE) {
             return List.of(BLANKS.split(line.strip()));
         }
+        if (line.indexOf('"') < 0) {
+            return splitUnquoted(line);
+        }
         try (CSVParser parser = format.parse(new StringReader(line))) {
             List<CSVRecord> records = parser.getRecords();
             if (records.size() != 1) {
@@ -72,6 +76,20 @@ enum Delimiter {
         } catch (IOException | UncheckedIOException e) {
             throw new IllegalArgumentException("cannot split into fields: " + e.getMessage(), e);
         }
+    }
+
+    /**
+     * Without quotes a plain split gives the same fields as commons-csv; a parser per line costs about
+     * ten times more, which matters for curves near the row cap.
+     */
+    private List<String> splitUnquoted(String line) {
+        List<String> fields = new ArrayList<>(4);
+        int start = 0;
+        for (int end; (end = line.indexOf(symbol, start)) >= 0; start = end + 1) {
+            fields.add(line.substring(start, end).strip());
+        }
+        fields.add(line.substring(start).strip());
+        return fields;
     }
 
     String describe() {
