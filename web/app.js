@@ -397,7 +397,6 @@ function wire() {
     event.preventDefault();
     applyRescale();
   });
-  dom.rescaleMm.addEventListener('change', applyRescale);
   dom.rescaleClear.addEventListener('click', clearRescale);
   followWidth(dom.chart, () => state.plot);
 }
