@@ -1,0 +1,133 @@
+package org.spectralsieve.seedmodel;
+
+import java.io.IOException;
+import java.io.UncheckedIOException;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.LinkedHashMap;
+import java.util.Map;
+import java.util.SortedMap;
+import java.util.TreeMap;
+import org.spectralsieve.importers.DelimitedTextWriter;
+import tools.jackson.databind.SerializationFeature;
+import tools.jackson.databind.json.JsonMapper;
+import tools.jackson.databind.node.ArrayNode;
+import tools.jackson.databind.node.ObjectNode;
+
+/**
+ * Writes the demo library — {@code catalogue.json} and {@code curves/*.csv} — deterministically, so the
+ * committed files can be checked against a fresh rendering byte for byte.
+ *
+ * <p>Run: {@code java -cp <classpath> org.spectralsieve.seedmodel.DemoLibraryWriter [folder]}, folder
+ * defaulting to {@code seed-materials}; see seed-materials/README.md for the full command.
+ */
+public final class DemoLibraryWriter {
+
+    public static final String CATALOGUE_FILE = "catalogue.json";
+
+    private static final JsonMapper JSON = JsonMapper.builder().enable(SerializationFeature.INDENT_OUTPUT).build();
+
+    private DemoLibraryWriter() {
+    }
+
+    public static void main(String[] args) throws IOException {
+        Path folder = Path.of(args.length > 0 ? args[0] : "seed-materials");
+        Map<String, String> files = render();
+        writeTo(folder, files);
+        System.out.println("wrote " + files.size() + " files to " + folder.toAbsolutePath().normalize());
+    }
+
+    /** Every file of the library, relative path → content, in path order. */
+    public static SortedMap<String, String> render() {
+        SortedMap<String, String> files = new TreeMap<>();
+        ObjectNode root = JSON.createObjectNode();
+        root.put("scenario", DemoCatalogue.SCENARIO);
+        root.put("notice", DemoCatalogue.NOTICE);
+        ArrayNode materials = root.putArray("materials");
+        for (MaterialSpec material : DemoCatalogue.materials()) {
+            materials.add(materialNode(material));
+            for (SampleSpec sample : material.samples()) {
+                files.put(material.curveFile(sample), curveFile(material, sample));
+            }
+        }
+        files.put(CATALOGUE_FILE, JSON.writeValueAsString(root) + "\n");
+        return files;
+    }
+
+    /** Writes the files, replacing older curve files so the folder holds exactly the rendered library. */
+    public static void writeTo(Path folder, Map<String, String> files) throws IOException {
+        Path curves = folder.resolve("curves");
+        Files.createDirectories(curves);
+        try (var old = Files.list(curves)) {
+            for (Path p : old.filter(p -> p.toString().endsWith(".csv")).toList()) {
+                Files.delete(p);
+            }
+        }
+        for (Map.Entry<String, String> e : files.entrySet()) {
+            Files.writeString(folder.resolve(e.getKey()), e.getValue(), StandardCharsets.UTF_8);
+        }
+    }
+
+    static String curveFile(MaterialSpec material, SampleSpec sample) {
+        ModelledCurve curve = SampleModeller.model(material.index(), sample);
+        Map<String, String> meta = new LinkedHashMap<>();
+        meta.put("material", material.slug());
+        meta.put("thickness_mm", sample.thicknessLabel());
+        meta.put("geometry", sample.geometry().label());
+        meta.put("provenance", "modelled");
+        meta.put("instrument", DemoCatalogue.INSTRUMENT);
+        meta.put("lot", sample.lot());
+        meta.put("detection_limit", Double.toString(sample.detectionLimit()));
+        meta.put("note", DemoCatalogue.NOTICE);
+        return DelimitedTextWriter.write(meta, curve.wavelengthsNm(), curve.transmittances(), curve.upperBounds());
+    }
+
+    private static ObjectNode materialNode(MaterialSpec m) {
+        ObjectNode node = JSON.createObjectNode();
+        node.put("slug", m.slug());
+        node.put("name", m.name());
+        node.put("class", m.materialClass().label());
+        node.put("description", m.description());
+        ArrayNode tags = node.putArray("tags");
+        m.tags().forEach(tags::add);
+        node.put("scaling", m.scaling().label());
+        node.set("refractiveIndex", indexNode(m.index()));
+        ArrayNode samples = node.putArray("samples");
+        for (SampleSpec s : m.samples()) {
+            ObjectNode sample = samples.addObject();
+            sample.put("file", m.curveFile(s));
+            sample.put("thicknessMm", s.thicknessMm());
+            sample.put("geometry", s.geometry().label());
+            sample.put("provenance", "modelled");
+            sample.put("instrument", DemoCatalogue.INSTRUMENT);
+            sample.put("lot", s.lot());
+            sample.put("notes", DemoCatalogue.NOTICE);
+            sample.put("detectionLimit", s.detectionLimit());
+        }
+        return node;
+    }
+
+    private static ObjectNode indexNode(IndexSpec index) {
+        ObjectNode node = JSON.createObjectNode();
+        if (index instanceof IndexSpec.Constant c) {
+            node.put("kind", "constant");
+            node.put("n", c.n());
+        } else if (index instanceof IndexSpec.Sellmeier s) {
+            node.put("kind", "sellmeier");
+            ArrayNode b = node.putArray("b");
+            s.index().b().forEach(b::add);
+            ArrayNode c = node.putArray("c");
+            s.index().cMicronsSquared().forEach(c::add);
+            node.put("validFromNm", s.index().validFromNm());
+            node.put("validToNm", s.index().validToNm());
+        } else if (index instanceof IndexSpec.Table t) {
+            node.put("kind", "table");
+            ArrayNode nm = node.putArray("wavelengthsNm");
+            t.wavelengthsNm().forEach(nm::add);
+            ArrayNode n = node.putArray("n");
+            t.n().forEach(n::add);
+        }
+        return node;
+    }
+}

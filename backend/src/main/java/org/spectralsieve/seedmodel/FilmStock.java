@@ -1,0 +1,122 @@
+package org.spectralsieve.seedmodel;
+
+import static org.spectralsieve.seedmodel.MaterialClass.FILM;
+import static org.spectralsieve.seedmodel.MaterialClass.MASK_FILM;
+import static org.spectralsieve.seedmodel.StockParts.PET;
+import static org.spectralsieve.seedmodel.StockParts.PET_INDEX;
+
+import java.util.List;
+
+/**
+ * Films and photo-stencil mask films. Photographic and mask bases are 4-mil (≈ 100 µm) polyester [S4];
+ * mask films are fixed constructions (base plus a dyed or printed layer).
+ */
+final class FilmStock {
+
+    private FilmStock() {
+    }
+
+    private static final double BASE_MM = 0.1;
+
+    private static Layer petBase() {
+        return new Layer("polyester base", BASE_MM, PET);
+    }
+
+    static List<MaterialSpec> materials() {
+        return List.of(
+                // WHY: PET absorbs up to ~320 nm [S31]; uncoated ceiling ≈ 88.6 % (derived, PRACTICE.md §1).
+                Stock.bulk("clear-pet-film", "Clear polyester film, roll stock", FILM,
+                        "Biaxially oriented PET film: opaque below about 310 nm, edge near 316–320 nm, about 88 % "
+                                + "in the visible. Modelled.",
+                        List.of("PET", "polyester", "film base"), PET_INDEX, PET, 0.05, 0.1, 0.25),
+                // WHY: FEP has high UV transmittance; vat film > 92 % when new [S39][S40]; ceiling 95.9 % (n ≈ 1.34).
+                Stock.bulk("fep-film", "FEP film, resin-vat and LED-cover stock", FILM,
+                        "Clear FEP fluoropolymer film: over 92 % from the UV-A through the visible, still high at "
+                                + "254 nm, falling towards 190 nm. Modelled new condition.",
+                        List.of("FEP", "fluoropolymer", "resin vat", "LED cover", "254 nm"), new IndexSpec.Constant(1.34),
+                        Absorption.of(new UrbachEdge(190, 4.0, 0.7), new FlatBackground(0.1)), 0.05, 0.127, 0.25),
+                // WHY: vat FEP fogs with use [S40]; fog is scatter, so it costs most in the violet and UV.
+                Stock.bulk("fep-film-fogged", "FEP film, ex-vat (fogged by use)", FILM,
+                        "The FEP stock after many prints: scatter haze lowers the direct beam, most of all at short "
+                                + "wavelengths. Regular geometry. Modelled ageing.",
+                        List.of("FEP", "fluoropolymer", "resin vat", "aged", "scattering"), new IndexSpec.Constant(1.34),
+                        Absorption.of(new UrbachEdge(190, 4.0, 0.7), new FlatBackground(0.1), new ScatterLoss(1.2, 1.5)),
+                        0.127),
+                // WHY: polyimide film is amber: opaque through the UV and violet, edge in the blue-green
+                // (common practice, no source); n ≈ 1.70 from memory.
+                Stock.bulk("polyimide-film", "Amber polyimide film, high-temperature tape stock", FILM,
+                        "Polyimide film: opaque below about 430 nm, thickness-dependent edge in 450–550 nm, clear "
+                                + "in the red. Modelled.",
+                        List.of("polyimide", "high temperature", "amber"), new IndexSpec.Constant(1.70),
+                        Absorption.of(new LogisticEdge(482, 3000, 0.3, 14)), 0.025, 0.05, 0.125),
+                // WHY: a matte-coated drafting film is a diffuser: read in total geometry, not rescalable [S47];
+                // its base is PET, which absorbs up to ~320 nm [S31].
+                Stock.withSamples(Stock.bulk("matte-drafting-film", "Matte drafting film, double-sided", FILM,
+                        "Polyester drafting film with a matte coating both sides: diffusing, total geometry, "
+                                + "PET edge near 320 nm. Modelled.",
+                        List.of("PET", "drafting film", "diffuser", "scattering", "vellum"), PET_INDEX,
+                        Absorption.of(new LogisticEdge(318, 500, 0.02, 4), new ScatterLoss(2.0, 0.5)), 0.075),
+                        s -> s.withGeometry(Geometry.TOTAL)),
+                // WHY: UV-blocking window film stops ~99 % of UV below 380 nm (common practice, no source); the
+                // absorber sits in the adhesive, so the film is a fixed construction.
+                Stock.fixed("uv-blocking-window-film", "UV-blocking clear window film", FILM,
+                        "Clear PET window film whose adhesive carries a UV absorber: under 1 % below about 380 nm, "
+                                + "clear in the visible. Modelled free film.",
+                        List.of("PET", "window film", "UV-blocking"), PET_INDEX,
+                        List.of(Stock.stack(new Layer("polyester film", 0.05, PET),
+                                new Layer("UV-absorbing adhesive", 0.025,
+                                        Absorption.of(new LogisticEdge(388, 2500, 0.05, 4)))))),
+                // WHY: a clean inkjet-film base passes ~80–88 % across 350–420 nm; its receptive coating lowers
+                // this (derived, PRACTICE.md §2).
+                Stock.fixed("inkjet-film-clear", "Inkjet positive film, unprinted", FILM,
+                        "Clear 100 µm polyester with an ink-receptive coating: about 80–85 % across 350–420 nm. "
+                                + "Modelled.",
+                        List.of("inkjet film", "film positive", "screen printing", "PET"), PET_INDEX,
+                        List.of(Stock.stack(petBase(), receptiveCoating()))),
+                // WHY: hand-cut red/amber masking films look transparent but have a UV density ≈ 4 [S3];
+                // floor 1e-5 models a double-monochromator reading so OD 4 is still a value.
+                maskFilm("red-masking-film", "Red hand-cut masking film",
+                        "Red dyed layer on 100 µm polyester: OD about 4 from the UV to 560 nm, clear red.",
+                        new LogisticEdge(585, 800, 0.5, 8), 1e-5),
+                maskFilm("amber-masking-film", "Amber hand-cut masking film",
+                        "Amber dyed layer on 100 µm polyester: OD about 4 from the UV to 500 nm, see-through at 550 nm.",
+                        new LogisticEdge(522, 800, 0.5, 6), 1e-5),
+                // WHY: a black stencil film is opaque across the UV and visible; dye blacks leak in the near
+                // infrared (common practice, no source). Floor 1e-4: only the leak is a value.
+                maskFilm("black-stencil-film", "Black photo-stencil film",
+                        "Black dyed layer on 100 µm polyester: beyond the floor of the instrument from the UV to "
+                                + "about 750 nm, leaking in the near infrared.",
+                        new LogisticEdge(790, 1500, 1, 15), 1e-4),
+                // WHY: a film positive's printed black should reach OD 3 over 350–420 nm [S3]; inkjet dye blacks
+                // sit near it and leak beyond 700 nm (common practice, no source).
+                Stock.withSamples(Stock.fixed("inkjet-film-printed-black", "Inkjet positive film, printed solid black",
+                        MASK_FILM,
+                        "The inkjet film with a solid black at the usual ink load: OD about 3 from the UV to 650 nm, "
+                                + "rising transmission beyond 700 nm. Modelled.",
+                        List.of("inkjet film", "film positive", "screen printing", "Dmax"), PET_INDEX,
+                        List.of(Stock.stack(petBase(), receptiveCoating(),
+                                new Layer("printed black ink", 0.005, Absorption.of(new LogisticEdge(690, 1380, 5, 20)))))),
+                        s -> s.withDetectionLimit(1e-4)),
+                // WHY: copier transparencies are the worst for density, so people double them up [S7].
+                Stock.fixed("toner-transparency-black", "Copier transparency, solid toner black", MASK_FILM,
+                        "Toner black on copier transparency film: OD about 2, far short of a stencil positive's "
+                                + "needs. Modelled.",
+                        List.of("transparency", "toner", "film positive", "screen printing"), PET_INDEX,
+                        List.of(Stock.stack(petBase(),
+                                new Layer("toner layer", 0.008, Absorption.of(new FlatBackground(575)))))));
+    }
+
+    /** Ink-receptive coating: a little absorption and haze, heavier towards the UV. */
+    private static Layer receptiveCoating() {
+        return new Layer("ink-receptive coating", 0.02,
+                Absorption.of(new FlatBackground(1.5), new ScatterLoss(1.0, 1.0)));
+    }
+
+    private static MaterialSpec maskFilm(String slug, String name, String description, LogisticEdge dye,
+                                         double detectionLimit) {
+        MaterialSpec m = Stock.fixed(slug, name, MASK_FILM, description + " Modelled.",
+                List.of("masking film", "mask film", "stencil", "screen printing", "hand-cut"), PET_INDEX,
+                List.of(Stock.stack(petBase(), new Layer("dyed masking layer", 0.012, Absorption.of(dye)))));
+        return Stock.withSamples(m, s -> s.withDetectionLimit(detectionLimit));
+    }
+}

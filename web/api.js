@@ -1,0 +1,89 @@
+// Thin client for the backend's JSON API. Every failure becomes an ApiProblem carrying the
+// RFC 9457 fields (title, detail, status, instance), so the page can always show *why*.
+
+export class ApiProblem extends Error {
+  constructor({ status, title, detail, instance, type }) {
+    super(detail ? `${title}: ${detail}` : title);
+    this.name = 'ApiProblem';
+    this.status = status;
+    this.title = title;
+    this.detail = detail;
+    this.instance = instance;
+    this.type = type;
+  }
+}
+
+// Relative URLs keep the page working when the app is served under a context path.
+const BASE = 'api';
+
+async function getJson(path) {
+  let response;
+  try {
+    response = await fetch(path, { headers: { Accept: 'application/json, application/problem+json' } });
+  } catch (networkError) {
+    throw new ApiProblem({
+      status: 0,
+      title: 'Server not reachable',
+      detail: `${networkError.message} (while fetching ${path})`,
+      instance: path,
+    });
+  }
+  if (!response.ok) {
+    throw await problemFrom(response, path);
+  }
+  try {
+    return await response.json();
+  } catch (parseError) {
+    throw new ApiProblem({
+      status: response.status,
+      title: 'Unreadable answer from the server',
+      detail: `${path} did not return valid JSON: ${parseError.message}`,
+      instance: path,
+    });
+  }
+}
+
+// A non-2xx answer: prefer the server's problem detail; fall back to the HTTP status line.
+async function problemFrom(response, path) {
+  let body = null;
+  const type = response.headers.get('content-type') || '';
+  if (type.includes('json')) {
+    try {
+      body = await response.json();
+    } catch {
+      body = null; // the status line below still tells the user what happened
+    }
+  }
+  return new ApiProblem({
+    status: body?.status ?? response.status,
+    title: body?.title || response.statusText || `HTTP ${response.status}`,
+    detail: body?.detail || `The server answered ${response.status} for ${path}.`,
+    instance: body?.instance || path,
+    type: body?.type,
+  });
+}
+
+function query(params) {
+  const search = new URLSearchParams();
+  for (const [key, value] of Object.entries(params)) {
+    if (value !== undefined && value !== null && value !== '') search.set(key, value);
+  }
+  const text = search.toString();
+  return text ? `?${text}` : '';
+}
+
+export function listMaterials({ text, materialClass } = {}) {
+  return getJson(`${BASE}/materials${query({ q: text, class: materialClass })}`);
+}
+
+export function getMaterial(id) {
+  return getJson(`${BASE}/materials/${encodeURIComponent(id)}`);
+}
+
+export function getCurve(sampleId, thicknessMm) {
+  return getJson(`${BASE}/samples/${encodeURIComponent(sampleId)}/curve${query({ thicknessMm })}`);
+}
+
+export function curveCsvUrl(sampleId) {
+  return `${BASE}/samples/${encodeURIComponent(sampleId)}/curve.csv`;
+}

@@ -1,0 +1,407 @@
+// The library page: list and filter materials, show one material's samples and curves,
+// rescale a bulk sample to another thickness. All numbers come from the API; nothing is computed here.
+import * as api from './api.js';
+import * as fmt from './format.js';
+import { drawCurves, followWidth } from './chart.js';
+
+const SAMPLE_COLOURS = ['#1d6a86', '#8a5a2b', '#4d7a37', '#7a3e6e', '#3d4f9a', '#9c4545', '#3c7f7a', '#6b6b2a'];
+const RESCALED_COLOUR = '#c2700f';
+const FILTER_DELAY_MS = 250;
+
+const el = (id) => document.getElementById(id);
+const dom = {
+  message: el('message'),
+  filterText: el('filter-text'),
+  filterClass: el('filter-class'),
+  count: el('material-count'),
+  materialRows: el('material-table').tBodies[0],
+  detail: el('material-detail'),
+  placeholder: el('detail-placeholder'),
+  name: el('detail-name'),
+  meta: el('detail-meta'),
+  description: el('detail-description'),
+  tags: el('detail-tags'),
+  index: el('detail-index'),
+  sampleRows: el('sample-table').tBodies[0],
+  axisMode: el('axis-mode'),
+  rescaleForm: el('rescale-form'),
+  rescaleFrom: el('rescale-from'),
+  rescaleMm: el('rescale-mm'),
+  rescaleApply: el('rescale-apply'),
+  rescaleClear: el('rescale-clear'),
+  rescaleNote: el('rescale-note'),
+  chart: el('curve-chart'),
+};
+
+const state = {
+  listRequest: 0,       // later answers win; an older answer arriving late is dropped
+  detailRequest: 0,
+  rescaleRequest: 0,
+  material: null,
+  curves: [],           // measured curves of the shown material, in sample order
+  rescaled: null,       // { curve, fromSample, thicknessMm } or null
+  plot: null,
+};
+
+// ---------- messages: every API failure is shown, never swallowed ----------
+
+function showProblem(problem, context) {
+  console.error(context, problem);
+  const title = problem.title || 'Something went wrong';
+  const status = problem.status ? ` (${problem.status})` : '';
+  const detail = problem.detail || problem.message || '';
+  dom.message.replaceChildren();
+  const text = document.createElement('div');
+  const heading = document.createElement('strong');
+  heading.textContent = `${context}: ${title}${status}`;
+  text.append(heading);
+  if (detail) {
+    const p = document.createElement('p');
+    p.textContent = detail;
+    text.append(p);
+  }
+  const close = document.createElement('button');
+  close.type = 'button';
+  close.className = 'quiet';
+  close.textContent = 'Dismiss';
+  close.addEventListener('click', clearMessage);
+  dom.message.append(text, close);
+  dom.message.hidden = false;
+}
+
+function clearMessage() {
+  dom.message.hidden = true;
+  dom.message.replaceChildren();
+}
+
+// ---------- library table ----------
+
+function fillClassOptions(materials) {
+  const classes = [...new Set(materials.map((m) => m.materialClass).filter(Boolean))].sort();
+  for (const c of classes) {
+    const option = document.createElement('option');
+    option.value = c;
+    option.textContent = c;
+    dom.filterClass.append(option);
+  }
+}
+
+function renderMaterials(materials) {
+  const rows = materials.map((m) => {
+    const tr = document.createElement('tr');
+    tr.dataset.materialId = m.id;
+    tr.dataset.scaling = m.scaling;
+    tr.tabIndex = 0;
+    tr.setAttribute('aria-selected', String(state.material?.id === m.id));
+    const name = document.createElement('td');
+    name.className = 'name';
+    name.textContent = m.name;
+    const cls = document.createElement('td');
+    cls.textContent = m.materialClass;
+    const thick = document.createElement('td');
+    thick.className = 'num';
+    thick.textContent = fmt.thicknesses(m.samples);
+    tr.append(name, cls, thick);
+    return tr;
+  });
+  dom.materialRows.replaceChildren(...rows);
+  const n = materials.length;
+  dom.count.textContent = n === 1 ? '1 material' : `${n} materials`;
+  if (n === 0) {
+    const tr = document.createElement('tr');
+    const td = document.createElement('td');
+    td.colSpan = 3;
+    td.className = 'empty';
+    td.textContent = 'No material matches this filter.';
+    tr.append(td);
+    dom.materialRows.append(tr);
+  }
+}
+
+async function loadMaterials({ fillClasses = false } = {}) {
+  const request = ++state.listRequest;
+  dom.count.textContent = 'Loading…';
+  try {
+    const materials = await api.listMaterials({
+      text: dom.filterText.value.trim(),
+      materialClass: dom.filterClass.value,
+    });
+    if (request !== state.listRequest) return;
+    if (fillClasses) fillClassOptions(materials);
+    renderMaterials(materials);
+  } catch (problem) {
+    if (request !== state.listRequest) return;
+    dom.count.textContent = 'The library could not be loaded.';
+    showProblem(problem, 'Loading the library');
+  }
+}
+
+let filterTimer = 0;
+function scheduleFilter() {
+  clearTimeout(filterTimer);
+  filterTimer = setTimeout(() => loadMaterials(), FILTER_DELAY_MS);
+}
+
+function markSelectedRow(id) {
+  for (const tr of dom.materialRows.querySelectorAll('tr[data-material-id]')) {
+    tr.setAttribute('aria-selected', String(tr.dataset.materialId === String(id)));
+  }
+}
+
+// ---------- material detail ----------
+
+function cell(text, className, title) {
+  const td = document.createElement('td');
+  td.textContent = text;
+  if (className) td.className = className;
+  if (title) td.title = title;
+  return td;
+}
+
+function sampleLabel(sample) {
+  return `${fmt.number(sample.thicknessMm)} mm ${sample.geometry}`;
+}
+
+function transmittanceCell(sample, wl) {
+  const t = sample.transmittanceAt?.[wl];
+  if (t === null || t === undefined) return cell('—', 'num muted', `${wl} nm is outside the measured range`);
+  if (sample.belowDetectionAt?.[wl]) {
+    const bound = Number.isFinite(sample.detectionLimit) ? sample.detectionLimit : t;
+    return cell(`≤ ${fmt.percent(bound)}`, 'num bound', 'below the detection limit: an upper bound, not a value');
+  }
+  return cell(fmt.percent(t), 'num');
+}
+
+function renderSamples(material) {
+  const rows = material.samples.map((s, i) => {
+    const tr = document.createElement('tr');
+    tr.dataset.sampleId = s.id;
+    const thick = cell(`${fmt.number(s.thicknessMm)} mm`, 'num');
+    const swatch = document.createElement('span');
+    swatch.className = 'swatch';
+    swatch.style.background = SAMPLE_COLOURS[i % SAMPLE_COLOURS.length];
+    thick.prepend(swatch);
+    const provenanceDetails = [s.instrument && `instrument: ${s.instrument}`, s.lot && `lot: ${s.lot}`, s.notes]
+      .filter(Boolean).join(' · ');
+    const provenance = cell(s.provenance, `provenance ${s.provenance}`, provenanceDetails || undefined);
+    if (provenanceDetails) {
+      const small = document.createElement('small');
+      small.textContent = provenanceDetails;
+      provenance.append(small);
+    }
+    tr.append(thick, cell(s.geometry), provenance);
+    for (const level of fmt.CUTOFF_LEVELS) {
+      const nm = s.cutoffsNm?.[level];
+      tr.append(nm === null || nm === undefined
+        ? cell('—', 'num muted', `T does not cross ${level} % in the measured range`)
+        : cell(fmt.nanometres(nm), 'num'));
+    }
+    for (const wl of fmt.REPORT_WAVELENGTHS_NM) tr.append(transmittanceCell(s, wl));
+    const link = document.createElement('a');
+    link.href = api.curveCsvUrl(s.id);
+    link.textContent = 'CSV';
+    link.setAttribute('download', `${material.slug || 'sample'}-${fmt.number(s.thicknessMm)}mm-${s.id}.csv`);
+    link.className = 'csv-link';
+    const data = document.createElement('td');
+    data.append(link);
+    tr.append(data);
+    return tr;
+  });
+  dom.sampleRows.replaceChildren(...rows);
+}
+
+function renderDetailHead(material) {
+  dom.name.textContent = material.name;
+  dom.meta.textContent = `${material.materialClass} · ${material.scaling === 'fixed'
+    ? 'fixed layer (does not scale with thickness)' : 'bulk (scales with thickness)'}`;
+  dom.description.textContent = material.description || '';
+  dom.tags.replaceChildren(...(material.tags || []).map((t) => {
+    const li = document.createElement('li');
+    li.textContent = t;
+    return li;
+  }));
+  dom.index.textContent = fmt.refractiveIndex(material.refractiveIndex);
+}
+
+async function selectMaterial(id) {
+  const request = ++state.detailRequest;
+  markSelectedRow(id);
+  try {
+    const material = await api.getMaterial(id);
+    if (request !== state.detailRequest) return;
+    state.material = material;
+    state.rescaled = null;
+    state.curves = [];
+    renderDetailHead(material);
+    renderSamples(material);
+    setupRescale(material);
+    dom.placeholder.hidden = true;
+    dom.detail.hidden = false;
+    history.replaceState(null, '', `#material=${encodeURIComponent(id)}`);
+    await loadCurves(material, request);
+  } catch (problem) {
+    if (request !== state.detailRequest) return;
+    showProblem(problem, 'Loading the material');
+  }
+}
+
+async function loadCurves(material, request) {
+  const results = await Promise.allSettled(material.samples.map((s) => api.getCurve(s.id)));
+  if (request !== state.detailRequest) return;
+  state.curves = [];
+  results.forEach((result, i) => {
+    const sample = material.samples[i];
+    if (result.status === 'fulfilled') {
+      state.curves.push({
+        ...result.value,
+        label: `${sampleLabel(sample)} (${sample.provenance})`,
+        color: SAMPLE_COLOURS[i % SAMPLE_COLOURS.length],
+      });
+    } else {
+      showProblem(result.reason, `Loading the curve of sample ${sampleLabel(sample)}`);
+    }
+  });
+  redraw();
+}
+
+function redraw() {
+  if (state.plot) state.plot.destroy();
+  const curves = [...state.curves];
+  if (state.rescaled) curves.push(state.rescaled.curve);
+  state.plot = drawCurves(dom.chart, curves, dom.axisMode.value);
+  dom.chart.dataset.axisMode = dom.axisMode.value; // lets readers and tests tell which axis is drawn
+}
+
+// ---------- rescaling ----------
+
+function setRescaleEnabled(enabled) {
+  for (const control of [dom.rescaleFrom, dom.rescaleMm, dom.rescaleApply, dom.rescaleClear]) {
+    control.disabled = !enabled;
+  }
+}
+
+function setupRescale(material) {
+  dom.rescaleFrom.replaceChildren(...material.samples.map((s) => {
+    const option = document.createElement('option');
+    option.value = s.id;
+    option.textContent = `from ${sampleLabel(s)}`;
+    return option;
+  }));
+  dom.rescaleMm.value = '';
+  dom.rescaleMm.title = '';
+  if (material.scaling !== 'fixed' && material.samples.length) {
+    setRescaleEnabled(true);
+    dom.rescaleNote.textContent = 'Bulk material: the curve is rescaled by the server (surface reflection '
+      + 'kept, absorption scaled with path length).';
+    return;
+  }
+  setRescaleEnabled(false);
+  if (!material.samples.length) {
+    dom.rescaleNote.textContent = 'No sample to rescale.';
+    return;
+  }
+  dom.rescaleNote.textContent = 'Fixed layer: rescaling is not offered.';
+  explainFixedLayer(material);
+}
+
+// The server owns the rule; ask it once so the page shows its own words for why a fixed layer
+// cannot be rescaled, instead of a second, possibly diverging, explanation written here.
+// (Twice the thickness: at its own thickness the server simply returns the measured curve.)
+async function explainFixedLayer(material) {
+  const request = state.detailRequest;
+  const sample = material.samples[0];
+  try {
+    await api.getCurve(sample.id, sample.thicknessMm * 2);
+    if (request !== state.detailRequest) return;
+    dom.rescaleNote.textContent = 'Fixed layer: its transmittance does not scale with thickness.';
+  } catch (problem) {
+    if (request !== state.detailRequest) return;
+    if (problem.status === 400) {
+      const reason = problem.detail || problem.title;
+      dom.rescaleNote.textContent = `Rescaling unavailable: ${reason}`;
+      dom.rescaleMm.title = reason;
+    } else {
+      showProblem(problem, 'Asking whether this layer can be rescaled');
+    }
+  }
+}
+
+async function applyRescale() {
+  const material = state.material;
+  if (!material || material.scaling === 'fixed') return;
+  const raw = dom.rescaleMm.value.trim();
+  if (raw === '') {
+    clearRescale();
+    return;
+  }
+  const thicknessMm = Number(raw);
+  if (!Number.isFinite(thicknessMm) || thicknessMm <= 0) {
+    showProblem({ title: 'Invalid thickness', detail: `“${raw}” is not a positive number of millimetres.` },
+      'Rescaling');
+    return;
+  }
+  const sample = material.samples.find((s) => String(s.id) === dom.rescaleFrom.value) || material.samples[0];
+  const request = ++state.rescaleRequest;
+  const detailRequest = state.detailRequest;
+  try {
+    const curve = await api.getCurve(sample.id, thicknessMm);
+    if (request !== state.rescaleRequest || detailRequest !== state.detailRequest) return;
+    state.rescaled = {
+      fromSample: sample,
+      thicknessMm,
+      curve: {
+        ...curve,
+        label: `rescaled to ${fmt.number(thicknessMm)} mm (from ${fmt.number(sample.thicknessMm)} mm)`,
+        color: RESCALED_COLOUR,
+        dash: [7, 4],
+      },
+    };
+    redraw();
+  } catch (problem) {
+    if (request !== state.rescaleRequest) return;
+    showProblem(problem, `Rescaling to ${fmt.number(thicknessMm)} mm`);
+  }
+}
+
+function clearRescale() {
+  dom.rescaleMm.value = '';
+  if (state.rescaled) {
+    state.rescaled = null;
+    redraw();
+  }
+}
+
+// ---------- wiring ----------
+
+function materialIdFromHash() {
+  const match = /material=([^&]+)/.exec(location.hash);
+  return match ? decodeURIComponent(match[1]) : null;
+}
+
+function wire() {
+  dom.filterText.addEventListener('input', scheduleFilter);
+  dom.filterClass.addEventListener('change', () => loadMaterials());
+  dom.materialRows.addEventListener('click', (event) => {
+    const row = event.target.closest('tr[data-material-id]');
+    if (row) selectMaterial(row.dataset.materialId);
+  });
+  dom.materialRows.addEventListener('keydown', (event) => {
+    const row = event.target.closest('tr[data-material-id]');
+    if (row && (event.key === 'Enter' || event.key === ' ')) {
+      event.preventDefault();
+      selectMaterial(row.dataset.materialId);
+    }
+  });
+  dom.axisMode.addEventListener('change', redraw);
+  dom.rescaleForm.addEventListener('submit', (event) => {
+    event.preventDefault();
+    applyRescale();
+  });
+  dom.rescaleClear.addEventListener('click', clearRescale);
+  followWidth(dom.chart, () => state.plot);
+}
+
+wire();
+loadMaterials({ fillClasses: true });
+const initial = materialIdFromHash();
+if (initial) selectMaterial(initial);
