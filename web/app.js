@@ -167,13 +167,14 @@ function transmittanceCell(sample, wl) {
   if (t === null || t === undefined) return cell('—', 'num muted', `${wl} nm is outside the measured range`);
   if (sample.belowDetectionAt?.[wl]) {
     const bound = Number.isFinite(sample.detectionLimit) ? sample.detectionLimit : t;
-    return cell(`≤ ${fmt.percent(bound)}`, 'num bound', 'below the detection limit: an upper bound, not a value');
+    return cell(`≤ ${fmt.percentNumber(bound)}`, 'num bound', 'below the detection limit: an upper bound, not a value');
   }
-  return cell(fmt.percent(t), 'num');
+  return cell(fmt.percentNumber(t), 'num');
 }
 
 function renderSamples(material) {
-  const rows = material.samples.map((s, i) => {
+  const columns = 3 + fmt.CUTOFF_LEVELS.length + fmt.REPORT_WAVELENGTHS_NM.length + 1;
+  const rows = material.samples.flatMap((s, i) => {
     const tr = document.createElement('tr');
     tr.dataset.sampleId = s.id;
     const thick = cell(`${fmt.number(s.thicknessMm)} mm`, 'num');
@@ -181,15 +182,7 @@ function renderSamples(material) {
     swatch.className = 'swatch';
     swatch.style.background = SAMPLE_COLOURS[i % SAMPLE_COLOURS.length];
     thick.prepend(swatch);
-    const provenanceDetails = [s.instrument && `instrument: ${s.instrument}`, s.lot && `lot: ${s.lot}`, s.notes]
-      .filter(Boolean).join(' · ');
-    const provenance = cell(s.provenance, `provenance ${s.provenance}`, provenanceDetails || undefined);
-    if (provenanceDetails) {
-      const small = document.createElement('small');
-      small.textContent = provenanceDetails;
-      provenance.append(small);
-    }
-    tr.append(thick, cell(s.geometry), provenance);
+    tr.append(thick, cell(s.geometry), cell(s.provenance, `provenance ${s.provenance}`));
     for (const level of fmt.CUTOFF_LEVELS) {
       const nm = s.cutoffsNm?.[level];
       tr.append(nm === null || nm === undefined
@@ -205,7 +198,25 @@ function renderSamples(material) {
     const data = document.createElement('td');
     data.append(link);
     tr.append(data);
-    return tr;
+
+    // Where the numbers come from, on a line of its own so the table stays narrow.
+    const about = [
+      s.instrument && `instrument: ${s.instrument}`,
+      s.lot && `lot: ${s.lot}`,
+      Array.isArray(s.rangeNm) && s.rangeNm.length === 2
+        && `measured ${fmt.number(s.rangeNm[0], 0)}–${fmt.number(s.rangeNm[1], 0)} nm`,
+      Number.isFinite(s.detectionLimit) && s.detectionLimit > 0
+        && `detection limit ${fmt.percent(s.detectionLimit)}`,
+      s.notes,
+    ].filter(Boolean).join(' · ');
+    if (!about) return [tr];
+    tr.classList.add('has-about');
+    const aboutRow = document.createElement('tr');
+    aboutRow.className = 'sample-about';
+    const aboutCell = cell(about);
+    aboutCell.colSpan = columns;
+    aboutRow.append(aboutCell);
+    return [tr, aboutRow];
   });
   dom.sampleRows.replaceChildren(...rows);
 }

@@ -11,6 +11,8 @@ const UV_BANDS = [
 ];
 
 
+const OD_VIEW_MAX = 10;
+
 export const AXIS_MODES = {
   linear: {
     label: 'Transmittance (%)',
@@ -21,7 +23,9 @@ export const AXIS_MODES = {
     label: 'Optical density (−log₁₀ T)',
     // T = 0 has no finite OD; such a point is left out rather than drawn at an invented height.
     value: (t) => (t > 0 ? -Math.log10(t) : null),
-    range: (u, min, max) => [0, Math.max(1, Math.ceil(max ?? 1))],
+    // A rescaled bound can reach OD in the hundreds; the view stops at OD_VIEW_MAX so the curves that
+    // matter stay readable. Values are not changed: the legend still reads them.
+    range: (u, min, max) => [0, Math.min(OD_VIEW_MAX, Math.max(1, Math.ceil(max ?? 1)))],
   },
 };
 
@@ -121,6 +125,17 @@ export function drawCurves(container, curves, modeKey) {
     hooks: { drawClear: [shadeBands] },
   };
   const plot = new uPlot(options, data, container);
+  let highest = -Infinity;
+  for (const column of data.slice(1)) {
+    for (const v of column) if (Number.isFinite(v) && v > highest) highest = v;
+  }
+  if (modeKey === 'od' && highest > OD_VIEW_MAX) {
+    const note = document.createElement('p');
+    note.className = 'hint';
+    note.textContent = `The axis stops at OD ${OD_VIEW_MAX}; some values lie above it `
+      + `(up to OD ${highest.toFixed(0)}), readable in the legend.`;
+    container.append(note);
+  }
   return plot;
 }
 

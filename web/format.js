@@ -16,11 +16,17 @@ export function thicknesses(samples) {
   const distinct = [...new Set((samples || []).map((s) => s.thicknessMm))]
     .filter((t) => Number.isFinite(t))
     .sort((a, b) => a - b);
-  return distinct.length ? `${distinct.map((t) => number(t)).join(' · ')} mm` : DASH;
+  return distinct.length ? `${distinct.map((t) => number(t)).join(' · ')}\u00a0mm` : DASH;
 }
 
 /** A transmittance fraction as percent, with enough digits to tell small values apart. */
 export function percent(fraction) {
+  const text = percentNumber(fraction);
+  return text === DASH ? text : `${text} %`;
+}
+
+/** As {@link percent} without the unit, for table columns whose header carries it. */
+export function percentNumber(fraction) {
   if (fraction === null || fraction === undefined || !Number.isFinite(fraction)) return DASH;
   const p = fraction * 100;
   let text;
@@ -28,7 +34,7 @@ export function percent(fraction) {
   else if (p >= 0.1) text = p.toFixed(2);
   else if (p === 0) text = '0';
   else text = String(Number(p.toPrecision(2)));
-  return `${text} %`;
+  return text;
 }
 
 export function nanometres(value) {

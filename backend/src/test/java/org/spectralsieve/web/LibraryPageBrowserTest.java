@@ -16,6 +16,7 @@ import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.BeforeEach;
 import org.junit.jupiter.api.Test;
 import org.openqa.selenium.By;
+import org.openqa.selenium.JavascriptExecutor;
 import org.openqa.selenium.Keys;
 import org.openqa.selenium.OutputType;
 import org.openqa.selenium.StaleElementReferenceException;
@@ -192,6 +193,11 @@ class LibraryPageBrowserTest {
     }
 
     private void screenshot(String name) throws IOException {
+        List<WebElement> chart = driver.findElements(By.cssSelector("#curve-chart canvas"));
+        if (!chart.isEmpty() && chart.get(0).isDisplayed()) {
+            // Screenshots show the viewport only; bring the chart into it.
+            ((JavascriptExecutor) driver).executeScript("arguments[0].scrollIntoView({block: 'center'})", chart.get(0));
+        }
         byte[] png = ((TakesScreenshot) driver).getScreenshotAs(OutputType.BYTES);
         Files.write(Files.createDirectories(OUTPUT).resolve(name + ".png"), png);
     }
