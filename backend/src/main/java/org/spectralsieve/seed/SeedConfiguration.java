@@ -4,7 +4,7 @@ import org.jooq.DSLContext;
 import org.slf4j.Logger;
 import org.slf4j.LoggerFactory;
 import org.spectralsieve.library.JooqLibraryRepository;
-import org.springframework.boot.ApplicationRunner;
+import org.springframework.beans.factory.SmartInitializingSingleton;
 import org.springframework.context.annotation.Bean;
 import org.springframework.context.annotation.Configuration;
 import org.springframework.core.io.ResourceLoader;
@@ -21,10 +21,14 @@ class SeedConfiguration {
         return new DemoLibraryLoader(library, db, resources, properties.location());
     }
 
+    /**
+     * Runs once every bean exists (so after the Flyway migration) but before the web server opens its port:
+     * the first request already sees the demo library.
+     */
     @Bean
-    ApplicationRunner loadDemoLibraryWhenEmpty(JooqLibraryRepository library, DemoLibraryLoader loader,
-                                               SeedProperties properties) {
-        return args -> {
+    SmartInitializingSingleton loadDemoLibraryWhenEmpty(JooqLibraryRepository library, DemoLibraryLoader loader,
+                                                        SeedProperties properties) {
+        return () -> {
             if (properties.loadOnEmpty() && library.countMaterials() == 0) {
                 loader.load();
             } else {
