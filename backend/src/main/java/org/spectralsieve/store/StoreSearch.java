@@ -43,10 +43,15 @@ public final class StoreSearch {
         if (limit < 1) {
             throw new IllegalArgumentException("limit must be at least 1, got " + limit);
         }
-        return new StoreSearch(store, requirement).run(limit);
+        return new StoreSearch(store, requirement).run(limit, false);
     }
 
-    private StoreResult run(int limit) {
+    /** The same search with every probe of every curve evaluated: the reference the bounded search must equal. */
+    static StoreResult searchExhaustively(SpectralStore store, Requirement requirement, int limit) {
+        return new StoreSearch(store, requirement).run(limit, true);
+    }
+
+    private StoreResult run(int limit, boolean exhaustive) {
         int n = store.size();
         int[] bound = new int[n];
         boolean[] eligible = new boolean[n];
@@ -62,7 +67,7 @@ public final class StoreSearch {
         for (int curve : bestByBound(bound, eligible, limit * FIRST_CUT_FACTOR)) {
             refined += refine(curve, evaluations, bestKey, bestCurve);
         }
-        int cut = kthBest(bestKey, limit);
+        int cut = exhaustive ? Integer.MIN_VALUE : kthBest(bestKey, limit);
         for (int curve = 0; curve < n; curve++) {
             if (eligible[curve] && evaluations[curve] == null && bound[curve] >= cut) {
                 refined += refine(curve, evaluations, bestKey, bestCurve);
