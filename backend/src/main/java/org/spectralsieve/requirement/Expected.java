@@ -70,26 +70,30 @@ record Expected(List<String> keywords, List<String> descriptions, String context
         return best;
     }
 
-    /** Edit distance, giving up (returning limit + 1) once the words' lengths alone rule a match out. */
+    /**
+     * Edit distance counting an adjacent swap as one edit (optimal string alignment), because "udner" and
+     * "mn" are the commonest slips; gives up (returning limit + 1) when the lengths alone rule a match out.
+     */
     static int levenshtein(String a, String b, int limit) {
         if (Math.abs(a.length() - b.length()) > limit) {
             return limit + 1;
         }
-        int[] previous = new int[b.length() + 1];
-        int[] current = new int[b.length() + 1];
+        int[][] d = new int[a.length() + 1][b.length() + 1];
+        for (int i = 0; i <= a.length(); i++) {
+            d[i][0] = i;
+        }
         for (int j = 0; j <= b.length(); j++) {
-            previous[j] = j;
+            d[0][j] = j;
         }
         for (int i = 1; i <= a.length(); i++) {
-            current[0] = i;
             for (int j = 1; j <= b.length(); j++) {
-                int substitution = previous[j - 1] + (a.charAt(i - 1) == b.charAt(j - 1) ? 0 : 1);
-                current[j] = Math.min(substitution, Math.min(previous[j], current[j - 1]) + 1);
+                int cost = a.charAt(i - 1) == b.charAt(j - 1) ? 0 : 1;
+                d[i][j] = Math.min(d[i - 1][j - 1] + cost, Math.min(d[i - 1][j], d[i][j - 1]) + 1);
+                if (i > 1 && j > 1 && a.charAt(i - 1) == b.charAt(j - 2) && a.charAt(i - 2) == b.charAt(j - 1)) {
+                    d[i][j] = Math.min(d[i][j], d[i - 2][j - 2] + 1);
+                }
             }
-            int[] swap = previous;
-            previous = current;
-            current = swap;
         }
-        return previous[b.length()];
+        return d[a.length()][b.length()];
     }
 }

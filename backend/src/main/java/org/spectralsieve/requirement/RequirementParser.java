@@ -171,7 +171,7 @@ public final class RequirementParser {
         double mm = value.doubleValue();
         if (!RequirementLimits.isThickness(mm)) {
             throw TokenCursor.outOfRange(number, "a thickness above 0 and at most "
-                    + SpectralClauseParser.plain(RequirementLimits.MAX_THICKNESS_MM) + " mm", number.quoted() + " mm");
+                    + SpectralClauseParser.plain(RequirementLimits.MAX_THICKNESS_MM) + " mm", "'" + number.text() + " mm'");
         }
         return mm;
     }

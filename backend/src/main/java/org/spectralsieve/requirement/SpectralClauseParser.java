@@ -192,7 +192,7 @@ final class SpectralClauseParser {
             case PERCENT -> {
                 double t = value.movePointLeft(2).doubleValue();
                 if (!RequirementLimits.isThreshold(t)) {
-                    throw TokenCursor.outOfRange(number, "a percentage above 0 and at most 100", number.quoted() + "%");
+                    throw TokenCursor.outOfRange(number, "a percentage above 0 and at most 100", "'" + number.text() + "%'");
                 }
                 yield t;
             }
@@ -239,7 +239,7 @@ final class SpectralClauseParser {
         double t = percent ? value.movePointLeft(2).doubleValue() : value.doubleValue();
         if (!RequirementLimits.isCutoffLevel(t)) {
             throw TokenCursor.outOfRange(number, "a cutoff level above 0 and below 100%",
-                    number.quoted() + (percent ? "%" : ""));
+                    "'" + number.text() + (percent ? "%" : "") + "'");
         }
         return t;
     }
