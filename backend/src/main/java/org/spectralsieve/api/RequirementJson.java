@@ -1,0 +1,254 @@
+package org.spectralsieve.api;
+
+import java.util.ArrayList;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+import java.util.Optional;
+import org.spectralsieve.requirement.Aggregate;
+import org.spectralsieve.requirement.Band;
+import org.spectralsieve.requirement.Clause;
+import org.spectralsieve.requirement.CutoffClause;
+import org.spectralsieve.requirement.Direction;
+import org.spectralsieve.requirement.Requirement;
+import org.spectralsieve.requirement.RequirementLimits;
+import org.spectralsieve.requirement.ThicknessSpec;
+import org.spectralsieve.requirement.ThresholdUnit;
+import org.spectralsieve.requirement.TransmittanceClause;
+import tools.jackson.databind.JsonNode;
+
+/**
+ * The structured JSON form of a requirement, for clients that build requirements from form fields
+ * rather than text. It accepts exactly what the text language can say (same limits), so every JSON
+ * requirement can also be shown as canonical text. Errors name the JSON path of the bad field.
+ *
+ * <pre>
+ * {"text": "...", "thickness": {"kind": "asMeasured"} | {"kind": "fixed", "mm": 3} | {"kind": "range", "minMm": 1, "maxMm": 6},
+ *  "materialClass": "plastic sheet" | null, "geometry": "regular" | "total" | null,
+ *  "clauses": [{"type": "transmittance", "direction": "pass" | "block", "aggregate": "everyPoint" | "mean",
+ *               "fromNm": 365, "toNm": 365, "thresholdT": 0.8, "unit": "percent" | "fraction" | "opticalDensity", "text": "..."},
+ *              {"type": "cutoff", "levelT": 0.5, "fromNm": 380, "toNm": 395, "text": "..."}]}
+ * </pre>
+ *
+ * On reading, a transmittance clause may give its threshold as {@code thresholdPercent} or
+ * {@code thresholdOd} instead of {@code thresholdT}; the unit then defaults to the one used.
+ */
+public final class RequirementJson {
+
+    private RequirementJson() {
+    }
+
+    public static Map<String, Object> toJson(Requirement requirement) {
+        Map<String, Object> json = new LinkedHashMap<>();
+        json.put("text", requirement.text());
+        json.put("thickness", thickness(requirement.thickness()));
+        json.put("materialClass", requirement.materialClass().orElse(null));
+        json.put("geometry", requirement.geometry().orElse(null));
+        json.put("clauses", requirement.clauses().stream().map(RequirementJson::clause).toList());
+        return json;
+    }
+
+    private static Map<String, Object> thickness(ThicknessSpec spec) {
+        Map<String, Object> json = new LinkedHashMap<>();
+        switch (spec.kind()) {
+            case AS_MEASURED -> json.put("kind", "asMeasured");
+            case FIXED -> {
+                json.put("kind", "fixed");
+                json.put("mm", spec.minMm());
+            }
+            case RANGE -> {
+                json.put("kind", "range");
+                json.put("minMm", spec.minMm());
+                json.put("maxMm", spec.maxMm());
+            }
+        }
+        return json;
+    }
+
+    private static Map<String, Object> clause(Clause clause) {
+        Map<String, Object> json = new LinkedHashMap<>();
+        if (clause instanceof TransmittanceClause t) {
+            json.put("type", "transmittance");
+            json.put("direction", t.direction() == Direction.PASS ? "pass" : "block");
+            json.put("aggregate", t.aggregate() == Aggregate.MEAN ? "mean" : "everyPoint");
+            json.put("fromNm", t.band().fromNm());
+            json.put("toNm", t.band().toNm());
+            json.put("thresholdT", t.thresholdT());
+            json.put("unit", UNITS.get(t.unit()));
+        } else {
+            CutoffClause c = (CutoffClause) clause;
+            json.put("type", "cutoff");
+            json.put("levelT", c.levelT());
+            json.put("fromNm", c.window().fromNm());
+            json.put("toNm", c.window().toNm());
+        }
+        json.put("text", clause.text());
+        return json;
+    }
+
+    private static final Map<ThresholdUnit, String> UNITS = Map.of(ThresholdUnit.PERCENT, "percent",
+            ThresholdUnit.FRACTION, "fraction", ThresholdUnit.OPTICAL_DENSITY, "opticalDensity");
+
+    /** @throws IllegalArgumentException naming the JSON path of the first bad field */
+    public static Requirement fromJson(JsonNode node) {
+        if (node == null || !node.isObject()) {
+            throw bad("(root)", "must be an object with 'clauses'");
+        }
+        JsonNode clausesNode = node.get("clauses");
+        if (clausesNode == null || !clausesNode.isArray() || clausesNode.isEmpty()) {
+            throw bad("clauses", "must be a non-empty list of clauses");
+        }
+        List<Clause> clauses = new ArrayList<>();
+        for (int i = 0; i < clausesNode.size(); i++) {
+            clauses.add(clause(clausesNode.get(i), "clauses[" + i + "]"));
+        }
+        ThicknessSpec thickness = thickness(node.get("thickness"));
+        Optional<String> materialClass = optionalString(node, "materialClass", "(root)")
+                .map(label -> check(label, RequirementLimits.isClassLabel(label), "materialClass",
+                        "must be 2-40 lower-case letters, digits, spaces or hyphens, without the word 'and'"));
+        Optional<String> geometry = optionalString(node, "geometry", "(root)")
+                .map(g -> check(g, RequirementLimits.GEOMETRIES.contains(g), "geometry",
+                        "must be one of " + RequirementLimits.GEOMETRIES + " or null"));
+        String text = optionalString(node, "text", "(root)").orElse("");
+        return new Requirement(clauses, thickness, materialClass, geometry, text);
+    }
+
+    private static Clause clause(JsonNode node, String path) {
+        if (node == null || !node.isObject()) {
+            throw bad(path, "must be an object with a 'type'");
+        }
+        String type = requiredString(node, "type", path);
+        String text = optionalString(node, "text", path).orElse("");
+        return switch (type) {
+            case "transmittance" -> transmittance(node, path, text);
+            case "cutoff" -> {
+                double level = node.has("levelT") ? number(node, "levelT", path) : 0.5;
+                check(level, RequirementLimits.isCutoffLevel(level), path + ".levelT",
+                        "must be a number above 0 and below 1");
+                Band window = band(node, path, true);
+                yield new CutoffClause(level, window, text);
+            }
+            default -> throw bad(path + ".type", "'" + type + "' is not one of [transmittance, cutoff]");
+        };
+    }
+
+    private static TransmittanceClause transmittance(JsonNode node, String path, String text) {
+        Direction direction = switch (requiredString(node, "direction", path)) {
+            case "pass" -> Direction.PASS;
+            case "block" -> Direction.BLOCK;
+            default -> throw bad(path + ".direction", "must be 'pass' or 'block'");
+        };
+        Aggregate aggregate = switch (optionalString(node, "aggregate", path).orElse("everyPoint")) {
+            case "everyPoint" -> Aggregate.EVERY_POINT;
+            case "mean" -> Aggregate.MEAN;
+            default -> throw bad(path + ".aggregate", "must be 'everyPoint' or 'mean'");
+        };
+        Band band = band(node, path, aggregate == Aggregate.MEAN);
+        List<String> given = List.of("thresholdT", "thresholdPercent", "thresholdOd").stream()
+                .filter(node::has).toList();
+        if (given.size() != 1) {
+            throw bad(path + ".thresholdT", "must be given (or thresholdPercent or thresholdOd), exactly one of them");
+        }
+        String field = given.get(0);
+        double value = number(node, field, path);
+        double thresholdT = switch (field) {
+            case "thresholdPercent" -> check(value, value > 0 && value <= 100, path + ".thresholdPercent",
+                    "must be a number above 0 and at most 100") / 100;
+            case "thresholdOd" -> Math.pow(10, -check(value, RequirementLimits.isOpticalDensity(value),
+                    path + ".thresholdOd", "must be a number above 0 and at most " + RequirementLimits.MAX_OPTICAL_DENSITY));
+            default -> check(value, RequirementLimits.isThreshold(value), path + ".thresholdT",
+                    "must be a number above 0 and at most 1");
+        };
+        String defaultUnit = field.equals("thresholdPercent") ? "percent"
+                : field.equals("thresholdOd") ? "opticalDensity" : "fraction";
+        String unitName = optionalString(node, "unit", path).orElse(defaultUnit);
+        ThresholdUnit unit = UNITS.entrySet().stream().filter(e -> e.getValue().equals(unitName))
+                .map(Map.Entry::getKey).findFirst()
+                .orElseThrow(() -> bad(path + ".unit", "must be 'percent', 'fraction' or 'opticalDensity'"));
+        if (unit == ThresholdUnit.OPTICAL_DENSITY) {
+            check(thresholdT, RequirementLimits.isOpticalDensity(RequirementLimits.densityForTransmittance(thresholdT)),
+                    path + "." + field, "must be an optical density above 0 and at most " + RequirementLimits.MAX_OPTICAL_DENSITY);
+        }
+        return new TransmittanceClause(direction, aggregate, band, thresholdT, unit, text);
+    }
+
+    private static Band band(JsonNode node, String path, boolean needRange) {
+        double from = wavelength(node, "fromNm", path);
+        double to = wavelength(node, "toNm", path);
+        if (needRange ? !(to > from) : !(to >= from)) {
+            throw bad(path + ".toNm", (needRange ? "must be above fromNm" : "must not be below fromNm")
+                    + " (" + from + "), got " + to);
+        }
+        return new Band(from, to);
+    }
+
+    private static double wavelength(JsonNode node, String field, String path) {
+        double nm = number(node, field, path);
+        return check(nm, RequirementLimits.isWavelength(nm), path + "." + field, "must be a wavelength from "
+                + RequirementLimits.MIN_WAVELENGTH_NM + " to " + RequirementLimits.MAX_WAVELENGTH_NM + " nm");
+    }
+
+    private static ThicknessSpec thickness(JsonNode node) {
+        if (node == null || node.isNull()) {
+            return ThicknessSpec.AS_MEASURED;
+        }
+        if (!node.isObject()) {
+            throw bad("thickness", "must be an object with a 'kind'");
+        }
+        return switch (requiredString(node, "kind", "thickness")) {
+            case "asMeasured" -> ThicknessSpec.AS_MEASURED;
+            case "fixed" -> ThicknessSpec.at(millimetres(node, "mm"));
+            case "range" -> {
+                double min = millimetres(node, "minMm");
+                double max = millimetres(node, "maxMm");
+                check(max, max >= min, "thickness.maxMm", "must not be below minMm (" + min + ")");
+                yield ThicknessSpec.range(min, max);
+            }
+            default -> throw bad("thickness.kind", "must be 'asMeasured', 'fixed' or 'range'");
+        };
+    }
+
+    private static double millimetres(JsonNode node, String field) {
+        double mm = number(node, field, "thickness");
+        return check(mm, RequirementLimits.isThickness(mm), "thickness." + field,
+                "must be a thickness above 0 and at most " + RequirementLimits.MAX_THICKNESS_MM + " mm");
+    }
+
+    private static double number(JsonNode node, String field, String path) {
+        JsonNode value = node.get(field);
+        if (value == null || !value.isNumber() || !Double.isFinite(value.doubleValue())) {
+            throw bad(path(path, field), "must be a number");
+        }
+        return value.doubleValue();
+    }
+
+    private static String requiredString(JsonNode node, String field, String path) {
+        return optionalString(node, field, path).orElseThrow(() -> bad(path(path, field), "must be given as a string"));
+    }
+
+    private static Optional<String> optionalString(JsonNode node, String field, String path) {
+        JsonNode value = node.get(field);
+        if (value == null || value.isNull()) {
+            return Optional.empty();
+        }
+        if (!value.isString()) {
+            throw bad(path(path, field), "must be a string");
+        }
+        return Optional.of(value.asString());
+    }
+
+    private static String path(String parent, String field) {
+        return "(root)".equals(parent) ? field : parent + "." + field;
+    }
+
+    private static <T> T check(T value, boolean ok, String path, String rule) {
+        if (!ok) {
+            throw bad(path, rule + ", got " + value);
+        }
+        return value;
+    }
+
+    private static IllegalArgumentException bad(String path, String problem) {
+        return new IllegalArgumentException(path + " " + problem);
+    }
+}

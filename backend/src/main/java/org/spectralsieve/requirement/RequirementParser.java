@@ -1,0 +1,226 @@
+package org.spectralsieve.requirement;
+
+import java.math.BigDecimal;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Locale;
+import java.util.Optional;
+import org.spectralsieve.requirement.Token.Kind;
+
+/**
+ * Reads the requirement language: plain-words clauses joined by "and" or commas, for example
+ * {@code passes over 80% at 365 nm and blocks under 1% at 405 nm, thickness 1 to 6 mm, class plastic sheet}.
+ *
+ * <pre>
+ * requirement = item { ( "," [ "and" ] | "and" ) item }
+ * item        = transmittance | cutoff | thickness | class | geometry      (see SpectralClauseParser)
+ * thickness   = "thickness" [ "at" ] ( "as" "measured" | mm [ "mm" ] ( "to" | "-" ) mm "mm" | mm "mm" )
+ *             | "at" mm "mm"
+ * class       = [ "material" ] "class" label        (label: the words up to the next "," or "and")
+ * geometry    = "geometry" ( "regular" | "total" )
+ * </pre>
+ *
+ * Keywords are case-insensitive. At least one spectral clause is required; thickness, class and
+ * geometry may each be given once. Every problem is a {@link RequirementSyntaxException}.
+ */
+public final class RequirementParser {
+
+    private static final String EXAMPLE = "'passes over 80% at 365 nm'";
+    private static final Expected ITEM = Expected.keywords("passes", "blocks", "mean", "OD", "cutoff", "over",
+            "under", "thickness", "at", "class", "geometry").because("to start a clause");
+
+    private final TokenCursor in;
+    private final SpectralClauseParser spectral;
+    private final List<Clause> clauses = new ArrayList<>();
+    private ThicknessSpec thickness = ThicknessSpec.AS_MEASURED;
+    private String thicknessText;
+    private String materialClass;
+    private String classText;
+    private String geometry;
+    private String geometryText;
+
+    private RequirementParser(String text) {
+        this.in = new TokenCursor(text);
+        this.spectral = new SpectralClauseParser(in);
+    }
+
+    /** @throws RequirementSyntaxException for any text that is not a valid requirement, null included */
+    public static Requirement parse(String text) {
+        if (text == null) {
+            throw new RequirementSyntaxException(0, "a requirement such as " + EXAMPLE, "nothing", null);
+        }
+        return new RequirementParser(text).requirement();
+    }
+
+    /** The canonical text of a requirement; {@code parse(render(r))} equals r apart from the text fields. */
+    public static String render(Requirement requirement) {
+        return RequirementRenderer.render(requirement);
+    }
+
+    private Requirement requirement() {
+        if (in.at(Kind.END)) {
+            throw in.error(Expected.described("a requirement such as " + EXAMPLE));
+        }
+        do {
+            item();
+        } while (separator());
+        if (!in.at(Kind.END)) {
+            throw in.error(Expected.keywords(",", "and").or("end of text").because("after a clause"));
+        }
+        if (clauses.isEmpty()) {
+            throw new RequirementSyntaxException(0, "a spectral clause such as " + EXAMPLE,
+                    "only '" + in.slice(0, in.text().length()) + "'", null);
+        }
+        String text = in.slice(0, in.text().length());
+        return TokenCursor.build(in.peek(), () -> new Requirement(clauses, thickness,
+                Optional.ofNullable(materialClass), Optional.ofNullable(geometry), text));
+    }
+
+    private boolean separator() {
+        if (in.at(Kind.COMMA)) {
+            in.next();
+            in.acceptWord("and");
+            return true;
+        }
+        return in.acceptWord("and");
+    }
+
+    private void item() {
+        Token first = in.peek();
+        String word = first.kind() == Kind.WORD ? first.lower() : "";
+        switch (word) {
+            case "passes", "pass", "blocks", "block" -> clauses.add(spectral.transmittance(first, in.next()));
+            case "mean", "od", "over", "above", "under", "below", "more", "less" ->
+                    clauses.add(spectral.transmittance(first, null));
+            case "cutoff", "cut-off" -> clauses.add(spectral.cutoff(first));
+            case "thickness" -> thickness(first);
+            case "class", "material" -> materialClass(first);
+            case "geometry" -> geometry(first);
+            case "at" -> atItem(first);
+            default -> otherItem(first);
+        }
+    }
+
+    /** "at least 80% …" continues a clause; "at 3 mm" is a thickness; "at 365 nm" lacks its level. */
+    private void atItem(Token first) {
+        Token second = in.peek(1);
+        if (second.kind() != Kind.NUMBER) {
+            clauses.add(spectral.transmittance(first, null));
+        } else if (SpectralClauseParser.isWavelengthUnit(in.peek(2))) {
+            throw new RequirementSyntaxException(first.start(), "a level such as 'passes over 80%' before the wavelength",
+                    "'" + in.slice(first.start(), in.peek(2).end()) + "'", null);
+        } else {
+            in.next();
+            setThickness(first, fixedThickness());
+        }
+    }
+
+    private void otherItem(Token first) {
+        boolean levelFirst = first.kind() == Kind.NUMBER;
+        if (levelFirst && (isCutoffWord(in.peek(1)) || in.peek(1).kind() == Kind.PERCENT && isCutoffWord(in.peek(2)))) {
+            clauses.add(spectral.cutoff(first));
+        } else if (levelFirst || first.kind() == Kind.AT_LEAST || first.kind() == Kind.AT_MOST) {
+            clauses.add(spectral.transmittance(first, null));
+        } else {
+            throw in.error(ITEM);
+        }
+    }
+
+    private static boolean isCutoffWord(Token t) {
+        return t.isWord("cutoff") || t.isWord("cut-off");
+    }
+
+    private void thickness(Token first) {
+        in.next();
+        in.acceptWord("at");
+        if (in.acceptWord("as")) {
+            in.expectWord(Expected.keywords("measured").after("as"), "measured");
+            setThickness(first, ThicknessSpec.AS_MEASURED);
+            return;
+        }
+        Token minToken = in.peek();
+        double min = millimetres(minToken, in.expectNumber(
+                Expected.keywords("as measured").or("a thickness in mm").after(first.text())));
+        boolean unit = in.acceptWord("mm");
+        boolean range = in.acceptWord("to") || in.at(Kind.DASH) && in.next() != null;
+        if (!range) {
+            if (!unit) {
+                in.expectWord(Expected.keywords("mm", "to", "-").after(minToken.text()), "mm");
+            }
+            setThickness(first, ThicknessSpec.at(min));
+            return;
+        }
+        Token maxToken = in.peek();
+        double max = millimetres(maxToken, in.expectNumber(Expected.described("a thickness in mm").after("to")));
+        in.expectWord(Expected.keywords("mm").after(maxToken.text()), "mm");
+        if (max < min) {
+            throw TokenCursor.outOfRange(maxToken, "a thickness not below " + SpectralClauseParser.plain(min)
+                    + " mm (a range runs from thin to thick)", maxToken.quoted());
+        }
+        setThickness(first, ThicknessSpec.range(min, max));
+    }
+
+    private ThicknessSpec fixedThickness() {
+        Token number = in.peek();
+        double mm = millimetres(number, in.expectNumber(Expected.described("a thickness in mm").after("at")));
+        in.expectWord(Expected.keywords("mm").after(number.text()), "mm");
+        return ThicknessSpec.at(mm);
+    }
+
+    private static double millimetres(Token number, BigDecimal value) {
+        double mm = value.doubleValue();
+        if (!RequirementLimits.isThickness(mm)) {
+            throw TokenCursor.outOfRange(number, "a thickness above 0 and at most "
+                    + SpectralClauseParser.plain(RequirementLimits.MAX_THICKNESS_MM) + " mm", "'" + number.text() + " mm'");
+        }
+        return mm;
+    }
+
+    private void setThickness(Token first, ThicknessSpec spec) {
+        String text = in.slice(first.start(), in.previous().end());
+        if (thicknessText != null) {
+            throw duplicate(first, "thickness statement", thicknessText);
+        }
+        thickness = spec;
+        thicknessText = text;
+    }
+
+    private void materialClass(Token first) {
+        if (classText != null) {
+            throw duplicate(first, "class filter", classText);
+        }
+        in.next();
+        if (first.isWord("material")) {
+            in.expectWord(Expected.keywords("class").after("material"), "class");
+        }
+        Token labelStart = in.peek();
+        while (!in.at(Kind.END) && !in.at(Kind.COMMA) && !in.atWord("and")) {
+            in.next();
+        }
+        if (in.previous().end() <= labelStart.start()) {
+            throw in.error(Expected.described("a class label such as 'plastic sheet'").after("class"));
+        }
+        String label = in.slice(labelStart.start(), in.previous().end())
+                .toLowerCase(Locale.ROOT).replaceAll("\\s+", " ");
+        if (!RequirementLimits.isClassLabel(label)) {
+            throw TokenCursor.outOfRange(labelStart, "a class label of 2 to 40 lower-case letters, digits, spaces"
+                    + " or hyphens", "'" + label + "'");
+        }
+        materialClass = label;
+        classText = in.slice(first.start(), in.previous().end());
+    }
+
+    private void geometry(Token first) {
+        if (geometryText != null) {
+            throw duplicate(first, "geometry filter", geometryText);
+        }
+        in.next();
+        geometry = in.expectWord(Expected.keywords("regular", "total").after("geometry"), "regular", "total").lower();
+        geometryText = in.slice(first.start(), in.previous().end());
+    }
+
+    private static RequirementSyntaxException duplicate(Token at, String what, String earlier) {
+        return new RequirementSyntaxException(at.start(), "at most one " + what,
+                "a second one after '" + earlier + "'", null);
+    }
+}

@@ -1,0 +1,106 @@
+package org.spectralsieve.api;
+
+import static org.assertj.core.api.Assertions.assertThat;
+import static org.assertj.core.api.Assertions.assertThatThrownBy;
+
+import java.util.Map;
+import org.junit.jupiter.params.ParameterizedTest;
+import org.junit.jupiter.params.provider.CsvSource;
+import org.junit.jupiter.params.provider.ValueSource;
+import org.junit.jupiter.api.Test;
+import org.spectralsieve.requirement.Direction;
+import org.spectralsieve.requirement.Requirement;
+import org.spectralsieve.requirement.RequirementParser;
+import org.spectralsieve.requirement.ThresholdUnit;
+import org.spectralsieve.requirement.TransmittanceClause;
+import tools.jackson.databind.JsonNode;
+import tools.jackson.databind.json.JsonMapper;
+
+/** The structured JSON form of a requirement; example wordings are trade presets (common practice, no source). */
+class RequirementJsonTest {
+
+    private static final JsonMapper MAPPER = JsonMapper.builder().build();
+
+    private static JsonNode tree(Object value) {
+        // through text, as a client would send it, not just through the in-memory tree
+        return MAPPER.readTree(MAPPER.writeValueAsString(value));
+    }
+
+    @ParameterizedTest(name = "{0}")
+    @ValueSource(strings = {
+            "passes over 80% at 365 nm and blocks under 1% at 405 nm",
+            "mean over 85% from 360 to 370 nm, thickness 1 to 6 mm, class plastic sheet, geometry regular",
+            "OD at least 4 from 190 to 315 nm, at 3 mm",
+            "OD at most 0.1 at 365 nm and passes over 0.8 at 0.4 µm",
+            "10% cutoff between 380 and 395 nm and mean under 5% from 280 to 315 nm, geometry total"})
+    void jsonRoundTripGivesBackTheSameRequirement(String text) {
+        Requirement requirement = RequirementParser.parse(text);
+        assertThat(RequirementJson.fromJson(tree(RequirementJson.toJson(requirement)))).isEqualTo(requirement);
+    }
+
+    @Test
+    void jsonUsesTheDocumentedCamelCaseShape() {
+        Requirement requirement = RequirementParser.parse("passes over 80% at 365 nm, cutoff between 380 and 395 nm, thickness 1 to 6 mm");
+        JsonNode json = tree(RequirementJson.toJson(requirement));
+        assertThat(json.get("thickness").get("kind").asString()).isEqualTo("range");
+        assertThat(json.get("thickness").get("maxMm").doubleValue()).isEqualTo(6);
+        assertThat(json.get("materialClass").isNull()).isTrue();
+        JsonNode pass = json.get("clauses").get(0);
+        assertThat(pass.get("type").asString()).isEqualTo("transmittance");
+        assertThat(pass.get("direction").asString()).isEqualTo("pass");
+        assertThat(pass.get("aggregate").asString()).isEqualTo("everyPoint");
+        assertThat(pass.get("unit").asString()).isEqualTo("percent");
+        assertThat(pass.get("thresholdT").doubleValue()).isEqualTo(0.8);
+        assertThat(pass.get("text").asString()).isEqualTo("passes over 80% at 365 nm");
+        assertThat(json.get("clauses").get(1).get("levelT").doubleValue()).isEqualTo(0.5);
+    }
+
+    @Test
+    void thresholdMayBeGivenAsOpticalDensity() {
+        // ANSI Z80.3-2001 §3.2: density = log10(1/T), so OD 3 is T = 0.001
+        Requirement r = RequirementJson.fromJson(MAPPER.readTree("""
+                {"clauses": [{"type": "transmittance", "direction": "block", "fromNm": 405, "toNm": 405, "thresholdOd": 3}]}"""));
+        TransmittanceClause clause = (TransmittanceClause) r.clauses().get(0);
+        assertThat(clause.direction()).isEqualTo(Direction.BLOCK);
+        assertThat(clause.unit()).isEqualTo(ThresholdUnit.OPTICAL_DENSITY);
+        assertThat(clause.thresholdT()).isCloseTo(0.001, org.assertj.core.data.Offset.offset(1e-15));
+    }
+
+    @ParameterizedTest(name = "{1}")
+    @CsvSource(delimiter = '|', textBlock = """
+            []                                                                                 | (root) must be an object
+            {"clauses": []}                                                                    | clauses must be a non-empty list
+            {"clauses": [{"type": "transmittance", "direction": "pass", "fromNm": 365, "toNm": 365, "thresholdT": 0.8}, {"type": "transmittance", "direction": "block", "fromNm": 405, "toNm": 405, "thresholdPercent": 120}]} | clauses[1].thresholdPercent must be a number above 0 and at most 100
+            {"clauses": [{"type": "spectral"}]}                                                | clauses[0].type 'spectral' is not one of
+            {"clauses": [{"type": "transmittance", "direction": "up", "fromNm": 365, "toNm": 365, "thresholdT": 0.8}]} | clauses[0].direction must be 'pass' or 'block'
+            {"clauses": [{"type": "transmittance", "direction": "pass", "fromNm": "365", "toNm": 365, "thresholdT": 0.8}]} | clauses[0].fromNm must be a number
+            {"clauses": [{"type": "transmittance", "direction": "pass", "fromNm": 50, "toNm": 365, "thresholdT": 0.8}]} | clauses[0].fromNm must be a wavelength from 100
+            {"clauses": [{"type": "transmittance", "direction": "pass", "fromNm": 400, "toNm": 350, "thresholdT": 0.8}]} | clauses[0].toNm must not be below fromNm
+            {"clauses": [{"type": "transmittance", "direction": "pass", "aggregate": "mean", "fromNm": 365, "toNm": 365, "thresholdT": 0.8}]} | clauses[0].toNm must be above fromNm
+            {"clauses": [{"type": "transmittance", "direction": "pass", "fromNm": 365, "toNm": 365, "thresholdT": 1.5}]} | clauses[0].thresholdT must be a number above 0 and at most 1
+            {"clauses": [{"type": "transmittance", "direction": "pass", "fromNm": 365, "toNm": 365}]} | clauses[0].thresholdT must be given
+            {"clauses": [{"type": "transmittance", "direction": "pass", "fromNm": 365, "toNm": 365, "thresholdT": 0.8, "unit": "decibel"}]} | clauses[0].unit must be
+            {"clauses": [{"type": "cutoff", "levelT": 1, "fromNm": 380, "toNm": 395}]}         | clauses[0].levelT must be a number above 0 and below 1
+            {"clauses": [{"type": "cutoff", "fromNm": 380, "toNm": 380}]}                      | clauses[0].toNm must be above fromNm
+            {"clauses": [{"type": "cutoff", "fromNm": 380, "toNm": 395}], "thickness": {"kind": "fixed", "mm": 0}} | thickness.mm must be a thickness above 0
+            {"clauses": [{"type": "cutoff", "fromNm": 380, "toNm": 395}], "thickness": {"kind": "range", "minMm": 6, "maxMm": 1}} | thickness.maxMm must not be below minMm
+            {"clauses": [{"type": "cutoff", "fromNm": 380, "toNm": 395}], "thickness": {"kind": "thick"}} | thickness.kind must be
+            {"clauses": [{"type": "cutoff", "fromNm": 380, "toNm": 395}], "materialClass": "Plastic Sheet!"} | materialClass must be 2-40 lower-case letters
+            {"clauses": [{"type": "cutoff", "fromNm": 380, "toNm": 395}], "geometry": "diffuse"} | geometry must be one of [regular, total]
+            {"clauses": [{"type": "cutoff", "fromNm": 380, "toNm": 395}], "text": 5}           | text must be a string
+            """)
+    void badFieldIsNamedByItsJsonPath(String json, String message) {
+        assertThatThrownBy(() -> RequirementJson.fromJson(MAPPER.readTree(json)))
+                .isInstanceOf(IllegalArgumentException.class)
+                .hasMessageStartingWith(message);
+    }
+
+    @Test
+    void nullMaterialClassAndGeometryMeanNoFilter() {
+        Requirement r = RequirementJson.fromJson(tree(Map.of("clauses", java.util.List.of(Map.of("type", "cutoff",
+                "fromNm", 380, "toNm", 395)))));
+        assertThat(r.materialClass()).isEmpty();
+        assertThat(r.geometry()).isEmpty();
+        assertThat(r.text()).isEmpty();
+    }
+}
