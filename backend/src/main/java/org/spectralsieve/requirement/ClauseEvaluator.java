@@ -1,0 +1,196 @@
+package org.spectralsieve.requirement;
+
+import java.util.List;
+import java.util.Objects;
+import java.util.OptionalDouble;
+import org.spectralsieve.spectrum.Curve;
+import org.spectralsieve.spectrum.Cutoffs;
+
+/**
+ * The exact (reference) judgement of one clause on one curve. Nothing is extrapolated and a reading at
+ * or below the detection limit is used only as an upper bound on T.
+ *
+ * <h2>Transmittance clauses</h2>
+ * <ul>
+ *   <li>Readings: every stored point strictly inside the band plus the two band ends, the ends
+ *       interpolated in absorbance ({@link Curve#transmittanceAt}).</li>
+ *   <li>EVERY_POINT: the worst point decides — the band minimum for a pass, the maximum for a block.
+ *       Each reading gets its own verdict; the clause misses if any reading misses, else is unverified if
+ *       any is, else meets. Value, margin and explanation are those of the worst reading among those
+ *       carrying the clause's verdict (so a missed clause reports the reading that proves the miss).</li>
+ *   <li>MEAN: the trapezoid mean of T over the same readings (straight lines in T between them, the usual
+ *       way band averages are taken; the band ends themselves come from absorbance interpolation). If any
+ *       reading is bounded, the mean of the bounds is an upper bound on the mean.</li>
+ *   <li>Bounds: a bounded reading u (true T <= u) proves a block when u <= threshold; it disproves a pass
+ *       when u < threshold; otherwise the clause is unverified — a bound never proves that light
+ *       passes, and a block threshold under the detection limit cannot be shown.</li>
+ *   <li>Range: a MEAN band, or a point, not wholly inside the measured range is unverified (value and
+ *       margin NaN). An EVERY_POINT band reaching partly outside is unverified unless its measured part
+ *       already proves a miss, in which case it misses: a miss proven by data is not an extrapolation.</li>
+ * </ul>
+ *
+ * <h2>Margins</h2>
+ * PASS log10(T / threshold), BLOCK log10(threshold / T), in decades, positive when met. <b>When the
+ * deciding value is a bound the margin is computed from the bound</b> and {@link ClauseResult#valueIsBound}
+ * is set: for a block it is a lower bound on the true margin, for a pass an upper bound. Clauses with no
+ * reading at all (outside the range, undetermined cutoff) have margin NaN.
+ *
+ * <h2>Cutoff clauses</h2>
+ * Value = {@link Cutoffs#cutoffNm}; meets when it lies in the window, misses when it lies outside or the
+ * curve has no cutoff while covering the window. Margin = min(log10(T(hi)/level), log10(level/T(lo))) at
+ * the window edges (positive when the edge falls through the level inside the window), clamped to the
+ * side of zero the verdict gives — only a non-monotone curve (a second crossing) needs the clamp. A
+ * window not wholly inside the measured range, or a walk stopped by an undetermined below-detection
+ * point, is unverified with margin NaN.
+ */
+public final class ClauseEvaluator {
+
+    private ClauseEvaluator() {
+    }
+
+    public static ClauseResult evaluate(Clause clause, Curve curve) {
+        Objects.requireNonNull(clause, "clause");
+        Objects.requireNonNull(curve, "curve");
+        CurveView view = new CurveView(curve);
+        if (clause instanceof TransmittanceClause t) {
+            return t.aggregate() == Aggregate.MEAN ? mean(t, view) : everyPoint(t, view);
+        }
+        return cutoff((CutoffClause) clause, view);
+    }
+
+    private static ClauseResult everyPoint(TransmittanceClause clause, CurveView view) {
+        Band band = clause.band();
+        List<Reading> readings = view.readings(band);
+        boolean covered = view.covers(band);
+        if (readings.isEmpty()) {
+            return ClauseResult.unjudgeable(clause, clause.thresholdT(), outside(band, view, false));
+        }
+        Verdict verdict = Verdict.MEETS;
+        for (Reading r : readings) {
+            verdict = Margins.combine(verdict, Margins.verdict(clause.direction(), r, clause.thresholdT()));
+        }
+        if (!covered && verdict != Verdict.MISSES) {
+            return ClauseResult.unjudgeable(clause, clause.thresholdT(), outside(band, view, true));
+        }
+        Reading worst = null;
+        double worstMargin = Double.POSITIVE_INFINITY;
+        for (Reading r : readings) {
+            if (Margins.verdict(clause.direction(), r, clause.thresholdT()) != verdict) {
+                continue;
+            }
+            double m = Margins.of(clause.direction(), r.judged(), clause.thresholdT());
+            if (worst == null || m < worstMargin) {
+                worst = r;
+                worstMargin = m;
+            }
+        }
+        String subject = band.isPoint()
+                ? "T at " + Wording.nm(worst.nm())
+                : (clause.direction() == Direction.PASS ? "lowest" : "highest") + " T in "
+                        + Wording.band(band) + " (at " + Wording.nm(worst.nm()) + ")";
+        String text = explain(subject, clause.direction(), worst.bounded(), worst.judged(), clause.thresholdT(),
+                verdict);
+        if (!covered) {
+            text += "; the band reaches outside the measured range " + view.rangeText();
+        }
+        return new ClauseResult(clause, worst.judged(), clause.thresholdT(), worstMargin, verdict, text,
+                worst.bounded());
+    }
+
+    private static ClauseResult mean(TransmittanceClause clause, CurveView view) {
+        Band band = clause.band();
+        if (!view.covers(band)) {
+            return ClauseResult.unjudgeable(clause, clause.thresholdT(),
+                    outside(band, view, view.covers(band.fromNm()) || view.covers(band.toNm())));
+        }
+        List<Reading> readings = view.readings(band);
+        double mean = CurveView.trapezoidMean(readings);
+        boolean bounded = readings.stream().anyMatch(Reading::bounded);
+        Reading asOne = new Reading(band.fromNm(), mean, bounded, mean);
+        Verdict verdict = Margins.verdict(clause.direction(), asOne, clause.thresholdT());
+        double margin = Margins.of(clause.direction(), mean, clause.thresholdT());
+        String text = explain("mean T over " + Wording.band(band), clause.direction(), bounded, mean,
+                clause.thresholdT(), verdict);
+        return new ClauseResult(clause, mean, clause.thresholdT(), margin, verdict, text, bounded);
+    }
+
+    private static String explain(String subject, Direction direction, boolean bounded, double t, double threshold,
+                                  Verdict verdict) {
+        String need = Wording.need(direction, threshold);
+        if (!bounded) {
+            return subject + " is " + Wording.percent(t) + ", needs " + need;
+        }
+        String head = subject + " is below the detection limit of " + Wording.percent(t);
+        if (verdict == Verdict.MEETS) {
+            return head + ", so it is " + need;
+        }
+        if (verdict == Verdict.MISSES) {
+            return head + ", so it cannot be " + need;
+        }
+        return direction == Direction.BLOCK
+                ? head + ": cannot show " + need + " (the clause asks for less than the detection limit can show)"
+                : head + ": a bound cannot show " + need;
+    }
+
+    private static String outside(Band band, CurveView view, boolean partly) {
+        String what = band.isPoint() ? Wording.band(band) : "band " + Wording.band(band);
+        return what + " lies " + (partly ? "partly " : "") + "outside the measured range " + view.rangeText();
+    }
+
+    private static ClauseResult cutoff(CutoffClause clause, CurveView view) {
+        Band window = clause.window();
+        double level = clause.levelT();
+        String need = "needs a cutoff (T = " + Wording.percent(level) + ") in " + Wording.band(window);
+        if (!view.covers(window)) {
+            boolean partly = view.covers(window.fromNm()) || view.covers(window.toNm());
+            return ClauseResult.unjudgeable(clause, level, "window " + Wording.band(window) + " lies "
+                    + (partly ? "partly " : "") + "outside the measured range " + view.rangeText());
+        }
+        Curve curve = view.curve();
+        OptionalDouble found = Cutoffs.cutoffNm(curve, level);
+        double edgeMargin = Math.min(
+                Margins.of(Direction.PASS, view.at(window.toNm()).judged(), level),
+                Margins.of(Direction.BLOCK, view.at(window.fromNm()).judged(), level));
+        if (found.isEmpty()) {
+            String why = whyNoCutoff(curve, level);
+            if (why == null) {
+                return ClauseResult.unjudgeable(clause, level, "the curve falls under its detection limit before"
+                        + " reaching " + Wording.percent(level) + ", so the cutoff cannot be placed; " + need);
+            }
+            return new ClauseResult(clause, Double.NaN, level, Math.min(edgeMargin, 0), Verdict.MISSES,
+                    why + "; " + need);
+        }
+        double nm = found.getAsDouble();
+        boolean inside = nm >= window.fromNm() && nm <= window.toNm();
+        double margin = inside ? Math.max(edgeMargin, 0) : Math.min(edgeMargin, 0);
+        return new ClauseResult(clause, nm, level, margin, inside ? Verdict.MEETS : Verdict.MISSES,
+                "cutoff (T = " + Wording.percent(level) + ") at " + Wording.nm(nm) + ", " + need);
+    }
+
+    /**
+     * Why {@link Cutoffs#cutoffNm} found nothing, for a curve covering the window; null when the walk
+     * stopped at an undetermined below-detection point (mirrors the walk's rules).
+     */
+    private static String whyNoCutoff(Curve curve, double level) {
+        int last = curve.size() - 1;
+        for (int i = last; i >= 0; i--) {
+            if (curve.belowDetection(i)) {
+                double bound = Math.max(curve.transmittance(i), curve.detectionLimit(i));
+                if (bound >= level) {
+                    return null;
+                }
+                return i == last ? longEndUnder(curve, level) : null;
+            }
+            if (curve.transmittance(i) < level) {
+                return i == last ? longEndUnder(curve, level) : null;
+            }
+        }
+        return "T stays at or over " + Wording.percent(level) + " across the measured range "
+                + Wording.span(curve.minWavelengthNm(), curve.maxWavelengthNm());
+    }
+
+    private static String longEndUnder(Curve curve, double level) {
+        return "T is already under " + Wording.percent(level) + " at the long end of the curve ("
+                + Wording.nm(curve.maxWavelengthNm()) + ")";
+    }
+}

@@ -1,0 +1,48 @@
+package org.spectralsieve.requirement;
+
+import java.util.List;
+import java.util.Objects;
+
+/**
+ * The judgement of one sample against a whole requirement.
+ *
+ * <p>{@code thicknessMm}: the thickness the clauses were judged at (the measured one, the asked one, or the
+ * recommended one in a range; NaN when not recorded). {@code feasibleMm}: for thickness as a design
+ * variable, the thicknesses within the asked range at which every clause is proven to hold; null when
+ * thickness is not a variable or no thickness works. {@code verdict}: MEETS only if every clause meets,
+ * MISSES if any misses, otherwise UNVERIFIED. {@code worstMarginDecades}: the smallest clause margin
+ * ignoring NaN (NaN when all are NaN); {@code bindingClauseIndex}: the index of that clause, −1 when none.
+ */
+public record SampleEvaluation(long sampleId, double thicknessMm, ThicknessInterval feasibleMm, Verdict verdict,
+                               double worstMarginDecades, int bindingClauseIndex, List<ClauseResult> clauses) {
+
+    public SampleEvaluation {
+        Objects.requireNonNull(verdict, "verdict");
+        clauses = List.copyOf(clauses);
+        if (bindingClauseIndex < -1 || bindingClauseIndex >= clauses.size()) {
+            throw new IllegalArgumentException("bindingClauseIndex " + bindingClauseIndex + " is not a clause index (0.."
+                    + (clauses.size() - 1) + ") or -1");
+        }
+    }
+
+    /** Verdict, worst margin and binding clause derived from the clause results. */
+    public static SampleEvaluation of(long sampleId, double thicknessMm, ThicknessInterval feasibleMm,
+                                      List<ClauseResult> clauses) {
+        if (clauses.isEmpty()) {
+            throw new IllegalArgumentException("sample " + sampleId + " was judged against no clause");
+        }
+        Verdict verdict = Verdict.MEETS;
+        double worst = Double.NaN;
+        int binding = -1;
+        for (int i = 0; i < clauses.size(); i++) {
+            ClauseResult r = clauses.get(i);
+            verdict = Margins.combine(verdict, r.verdict());
+            double m = r.marginDecades();
+            if (!Double.isNaN(m) && (binding < 0 || m < worst)) {
+                worst = m;
+                binding = i;
+            }
+        }
+        return new SampleEvaluation(sampleId, thicknessMm, feasibleMm, verdict, worst, binding, clauses);
+    }
+}

@@ -1,0 +1,157 @@
+package org.spectralsieve.requirement;
+
+import java.util.List;
+import org.spectralsieve.optics.Slab;
+
+/**
+ * One monotone condition on the thickness d of a bulk sample, as a margin in decades m(d): falling with d
+ * for pass-like conditions (more material, less light), rising for block-like ones. The condition holds
+ * where m(d) >= 0 — an interval reaching to one end of any range.
+ */
+abstract class ThicknessConstraint {
+
+    final boolean falling;
+    /** False when the data can never prove the condition (a pass judged on a bound). */
+    final boolean provable;
+
+    ThicknessConstraint(boolean falling, boolean provable) {
+        this.falling = falling;
+        this.provable = provable;
+    }
+
+    abstract double marginAt(double d);
+
+    /**
+     * The sub-interval of [min, max] where the condition holds, as {lo, hi}, or null when nowhere. By
+     * bisection on the monotone margin to {@link ThicknessSolver#TOLERANCE_MM}, returning the end on the
+     * holding side so the reported interval never contains a thickness that fails.
+     */
+    double[] holdsWithin(double min, double max) {
+        if (falling) {
+            if (marginAt(min) < 0) {
+                return null;
+            }
+            if (marginAt(max) >= 0) {
+                return new double[] {min, max};
+            }
+            double ok = min;
+            double bad = max;
+            while (bad - ok > ThicknessSolver.TOLERANCE_MM) {
+                double mid = 0.5 * (ok + bad);
+                if (marginAt(mid) >= 0) {
+                    ok = mid;
+                } else {
+                    bad = mid;
+                }
+            }
+            return new double[] {min, ok};
+        }
+        if (marginAt(max) < 0) {
+            return null;
+        }
+        if (marginAt(min) >= 0) {
+            return new double[] {min, max};
+        }
+        double bad = min;
+        double ok = max;
+        while (ok - bad > ThicknessSolver.TOLERANCE_MM) {
+            double mid = 0.5 * (ok + bad);
+            if (marginAt(mid) >= 0) {
+                ok = mid;
+            } else {
+                bad = mid;
+            }
+        }
+        return new double[] {ok, max};
+    }
+
+    /** T at one wavelength against a threshold. */
+    static final class AtWavelength extends ThicknessConstraint {
+
+        private final RescaledModel model;
+        private final double nm;
+        private final Direction direction;
+        private final double threshold;
+
+        AtWavelength(RescaledModel model, double nm, Direction direction, double threshold) {
+            super(direction == Direction.PASS, direction == Direction.BLOCK || !model.boundedAt(nm));
+            this.model = model;
+            this.nm = nm;
+            this.direction = direction;
+            this.threshold = threshold;
+        }
+
+        @Override
+        double marginAt(double d) {
+            return Margins.of(direction, model.judgedAt(nm, d), threshold);
+        }
+
+        /** At a stored wavelength the root is closed-form; between stored points, bisection. */
+        @Override
+        double[] holdsWithin(double min, double max) {
+            int i = model.indexOf(nm);
+            if (i < 0) {
+                return super.holdsWithin(min, max);
+            }
+            double r = model.reflectance(i);
+            double k0 = model.judgedInternal(i);
+            double d0 = model.measuredMm();
+            double ceiling = Slab.losslessTransmittance(r);
+            if (direction == Direction.PASS) {
+                if (k0 >= 1) {
+                    return ceiling >= threshold ? new double[] {min, max} : null;
+                }
+                double kStar = Slab.internalFromTransmittance(threshold, r);
+                if (k0 <= 0 || kStar >= 1) {
+                    return null;
+                }
+                // K0^(d/d0) >= K*  <=>  d <= d0 ln K* / ln K0  (ln K0 < 0)
+                double dMax = d0 * Math.log(kStar) / Math.log(k0);
+                return dMax < min ? null : new double[] {min, Math.min(dMax, max)};
+            }
+            if (k0 <= 0) {
+                return new double[] {min, max};
+            }
+            if (k0 >= 1) {
+                return ceiling <= threshold ? new double[] {min, max} : null;
+            }
+            double kStar = Slab.internalFromTransmittance(threshold, r);
+            if (kStar >= 1) {
+                return new double[] {min, max};
+            }
+            // K0^(d/d0) <= K*  <=>  d >= d0 ln K* / ln K0
+            double dMin = d0 * Math.log(kStar) / Math.log(k0);
+            return dMin > max ? null : new double[] {Math.max(min, dMin), max};
+        }
+    }
+
+    /** Trapezoid mean of T over a covered band against a threshold; the mean of non-increasing T(d) is non-increasing. */
+    static final class BandMean extends ThicknessConstraint {
+
+        private final RescaledModel model;
+        private final double[] nms;
+        private final Direction direction;
+        private final double threshold;
+
+        BandMean(RescaledModel model, List<Reading> readings, Direction direction, double threshold) {
+            super(direction == Direction.PASS,
+                    direction == Direction.BLOCK || readings.stream().noneMatch(Reading::bounded));
+            this.model = model;
+            this.nms = readings.stream().mapToDouble(Reading::nm).toArray();
+            this.direction = direction;
+            this.threshold = threshold;
+        }
+
+        @Override
+        double marginAt(double d) {
+            double area = 0;
+            double previous = model.judgedAt(nms[0], d);
+            for (int i = 1; i < nms.length; i++) {
+                double t = model.judgedAt(nms[i], d);
+                area += 0.5 * (previous + t) * (nms[i] - nms[i - 1]);
+                previous = t;
+            }
+            return Margins.of(direction, area / (nms[nms.length - 1] - nms[0]), threshold);
+        }
+    }
+}

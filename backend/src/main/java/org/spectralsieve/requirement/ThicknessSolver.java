@@ -1,0 +1,160 @@
+package org.spectralsieve.requirement;
+
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Objects;
+import org.spectralsieve.optics.RefractiveIndex;
+import org.spectralsieve.spectrum.Curve;
+
+/**
+ * Thickness as a design variable for a bulk sample: which thicknesses within [min, max] make every
+ * clause hold, and which one to recommend.
+ *
+ * <p>Each clause becomes monotone conditions on d ({@link ThicknessConstraint}): a pass reading bounds d
+ * from above, a block reading from below; a cutoff clause is a pass condition at the window's long end
+ * (T(hi) >= level) and a block condition at its short end (T(lo) <= level). At a stored wavelength the
+ * bound is closed-form: K* = slab inversion of the threshold (Smith, Modern Optical Engineering, eq. 10.5
+ * solved for K), K(d) = K0^(d/d0) (Beer–Lambert), so a pass needs d <= d0·ln(K*) / ln(K0) and a block
+ * d >= d0·ln(K*) / ln(K0). Band ends between stored points and band means are solved by bisection to
+ * {@link #TOLERANCE_MM}, keeping the holding side. A band is the intersection over its readings.
+ *
+ * <p>Recommendation: the worst margin is min(D(d), I(d)) with D the smallest falling (pass) margin and I
+ * the smallest rising (block) margin, so it peaks where D = I; found by bisection on D − I to
+ * {@link #TOLERANCE_MM}, at min when only pass conditions exist, at max when only block conditions exist.
+ * Taken over the feasible interval when there is one, else over [min, max] (the best achievable). Clauses
+ * that cannot be read at all (outside the measured range) do not vary with d and are left out of the
+ * recommendation; if nothing varies, the measured thickness clamped into [min, max] is recommended.
+ *
+ * <p>Detection limits: a below-detection point is rescaled as the bound it is (rescaling is increasing
+ * in T, so bounds stay bounds). A block proven by a bound at d stays proven for every thicker d; so a
+ * block condition solved from a bound gives a sufficient lower limit — thinner may also work, the data
+ * just cannot show it. A pass judged on a bound is never provable, so any clause with one makes the
+ * feasible interval empty, though its bound margin still guides the recommendation.
+ */
+public final class ThicknessSolver {
+
+    /** Thicknesses from bisection are within this of the true crossing (mm). */
+    public static final double TOLERANCE_MM = 1e-7;
+
+    private ThicknessSolver() {
+    }
+
+    /**
+     * @param feasibleMm where every clause is proven to hold, null when nowhere
+     * @param recommendedMm the thickness maximising the worst margin (inside {@code feasibleMm} when given)
+     */
+    public record Solution(ThicknessInterval feasibleMm, double recommendedMm) {
+    }
+
+    public static Solution solve(List<Clause> clauses, Curve measured, double measuredMm, RefractiveIndex index,
+                                 double minMm, double maxMm) {
+        Objects.requireNonNull(measured, "measured");
+        Objects.requireNonNull(index, "index");
+        if (!(measuredMm > 0) || !Double.isFinite(measuredMm)) {
+            throw new IllegalArgumentException("measuredMm must be a finite thickness > 0 mm, was " + measuredMm);
+        }
+        if (!(minMm > 0) || !Double.isFinite(maxMm) || !(maxMm >= minMm)) {
+            throw new IllegalArgumentException("thickness range must be positive and ordered, got " + minMm + " to "
+                    + maxMm + " mm");
+        }
+        RescaledModel model = new RescaledModel(measured, measuredMm, index);
+        CurveView view = new CurveView(measured);
+        List<ThicknessConstraint> constraints = new ArrayList<>();
+        boolean provable = true;
+        for (Clause clause : clauses) {
+            provable &= addConstraints(clause, model, view, constraints);
+        }
+        double lo = minMm;
+        double hi = maxMm;
+        boolean feasible = provable;
+        for (ThicknessConstraint c : constraints) {
+            if (!feasible) {
+                break;
+            }
+            double[] holds = c.provable ? c.holdsWithin(minMm, maxMm) : null;
+            if (holds == null) {
+                feasible = false;
+            } else {
+                lo = Math.max(lo, holds[0]);
+                hi = Math.min(hi, holds[1]);
+                feasible = lo <= hi;
+            }
+        }
+        if (feasible) {
+            return new Solution(new ThicknessInterval(lo, hi), recommend(constraints, lo, hi, measuredMm));
+        }
+        return new Solution(null, recommend(constraints, minMm, maxMm, measuredMm));
+    }
+
+    /** Adds the clause's conditions; false when the clause can never be proven whatever the thickness. */
+    private static boolean addConstraints(Clause clause, RescaledModel model, CurveView view,
+                                          List<ThicknessConstraint> out) {
+        if (clause instanceof TransmittanceClause t) {
+            boolean covered = view.covers(t.band());
+            List<Reading> readings = view.readings(t.band());
+            if (t.aggregate() == Aggregate.MEAN) {
+                if (covered) {
+                    out.add(new ThicknessConstraint.BandMean(model, readings, t.direction(), t.thresholdT()));
+                }
+            } else {
+                // the covered part of a partly covered band can still prove a miss, so it guides the choice
+                for (Reading r : readings) {
+                    out.add(new ThicknessConstraint.AtWavelength(model, r.nm(), t.direction(), t.thresholdT()));
+                }
+            }
+            return covered;
+        }
+        CutoffClause c = (CutoffClause) clause;
+        if (!view.covers(c.window())) {
+            return false;
+        }
+        out.add(new ThicknessConstraint.AtWavelength(model, c.window().toNm(), Direction.PASS, c.levelT()));
+        out.add(new ThicknessConstraint.AtWavelength(model, c.window().fromNm(), Direction.BLOCK, c.levelT()));
+        return true;
+    }
+
+    private static double recommend(List<ThicknessConstraint> constraints, double lo, double hi, double measuredMm) {
+        List<ThicknessConstraint> falling = constraints.stream().filter(c -> c.falling).toList();
+        List<ThicknessConstraint> rising = constraints.stream().filter(c -> !c.falling).toList();
+        if (falling.isEmpty() && rising.isEmpty()) {
+            return Math.min(hi, Math.max(lo, measuredMm));
+        }
+        if (rising.isEmpty()) {
+            return lo;
+        }
+        if (falling.isEmpty()) {
+            return hi;
+        }
+        if (gap(falling, rising, lo) <= 0) {
+            return lo;
+        }
+        if (gap(falling, rising, hi) >= 0) {
+            return hi;
+        }
+        double a = lo;
+        double b = hi;
+        while (b - a > TOLERANCE_MM) {
+            double mid = 0.5 * (a + b);
+            if (gap(falling, rising, mid) > 0) {
+                a = mid;
+            } else {
+                b = mid;
+            }
+        }
+        // of the two ends of the final bracket, the one with the larger worst margin
+        return worst(constraints, a) >= worst(constraints, b) ? a : b;
+    }
+
+    /** D(d) − I(d): positive while the pass side still has more room than the block side. */
+    private static double gap(List<ThicknessConstraint> falling, List<ThicknessConstraint> rising, double d) {
+        return worst(falling, d) - worst(rising, d);
+    }
+
+    private static double worst(List<ThicknessConstraint> constraints, double d) {
+        double m = Double.POSITIVE_INFINITY;
+        for (ThicknessConstraint c : constraints) {
+            m = Math.min(m, c.marginAt(d));
+        }
+        return m;
+    }
+}
