@@ -6,6 +6,7 @@ import org.slf4j.LoggerFactory;
 import org.spectralsieve.ingest.IngestException;
 import org.spectralsieve.library.NotFoundException;
 import org.spectralsieve.library.NotRescalableException;
+import org.spectralsieve.requirement.RequirementSyntaxException;
 import org.spectralsieve.spectrum.CurveException;
 import org.springframework.beans.TypeMismatchException;
 import org.springframework.http.HttpHeaders;
@@ -55,6 +56,16 @@ class ApiProblems extends ResponseEntityExceptionHandler {
         ProblemDetail problem = problem(HttpStatus.BAD_REQUEST, "File cannot be stored", e.getMessage(), "bad-file");
         problem.setProperty("file", e.sourceName());
         problem.setProperty("field", e.field());
+        return problem;
+    }
+
+    @ExceptionHandler(RequirementSyntaxException.class)
+    ProblemDetail requirementSyntax(RequirementSyntaxException e) {
+        ProblemDetail problem = problem(HttpStatus.BAD_REQUEST, "Requirement not understood", e.getMessage(), "requirement-syntax");
+        problem.setProperty("parameter", "requirement");
+        problem.setProperty("position", e.position());
+        problem.setProperty("expected", e.expected());
+        e.suggestion().ifPresent(s -> problem.setProperty("suggestion", s));
         return problem;
     }
 

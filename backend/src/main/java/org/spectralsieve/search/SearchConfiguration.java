@@ -1,0 +1,14 @@
+package org.spectralsieve.search;
+
+import org.spectralsieve.library.JooqLibraryRepository;
+import org.springframework.context.annotation.Bean;
+import org.springframework.context.annotation.Configuration;
+
+@Configuration
+class SearchConfiguration {
+
+    @Bean
+    SearchService searchService(JooqLibraryRepository library) {
+        return new SearchService(library);
+    }
+}
