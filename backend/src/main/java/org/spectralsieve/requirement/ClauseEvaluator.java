@@ -101,7 +101,7 @@ public final class ClauseEvaluator {
         Band band = clause.band();
         if (!view.covers(band)) {
             return ClauseResult.unjudgeable(clause, clause.thresholdT(),
-                    outside(band, view, view.covers(band.fromNm()) || view.covers(band.toNm())));
+                    outside(band, view, view.overlaps(band)));
         }
         List<Reading> readings = view.readings(band);
         double mean = CurveView.trapezoidMean(readings);
@@ -142,7 +142,7 @@ public final class ClauseEvaluator {
         double level = clause.levelT();
         String need = "needs a cutoff (T = " + Wording.percent(level) + ") in " + Wording.band(window);
         if (!view.covers(window)) {
-            boolean partly = view.covers(window.fromNm()) || view.covers(window.toNm());
+            boolean partly = view.overlaps(window);
             return ClauseResult.unjudgeable(clause, level, "window " + Wording.band(window) + " lies "
                     + (partly ? "partly " : "") + "outside the measured range " + view.rangeText());
         }

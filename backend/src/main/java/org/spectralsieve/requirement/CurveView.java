@@ -33,6 +33,11 @@ final class CurveView {
         return curve.covers(band.fromNm()) && curve.covers(band.toNm());
     }
 
+    /** Whether some of the band lies inside the measured range. */
+    boolean overlaps(Band band) {
+        return band.fromNm() <= curve.maxWavelengthNm() && band.toNm() >= curve.minWavelengthNm();
+    }
+
     String rangeText() {
         return Wording.span(curve.minWavelengthNm(), curve.maxWavelengthNm());
     }

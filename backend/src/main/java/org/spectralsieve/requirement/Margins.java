@@ -4,8 +4,10 @@ import org.spectralsieve.spectrum.Curve;
 
 /**
  * Margins in decades (optical-density units). PASS: log10(T / threshold); BLOCK: log10(threshold / T);
- * positive when the clause holds. T is floored at {@link Curve#ABSORBANCE_FLOOR_T} so that a reading of
- * exactly 0 gives a large finite margin rather than infinity, which would break bisection and sorting.
+ * positive when the clause holds. T is floored at {@link Curve#ABSORBANCE_FLOOR_T} (or at the threshold,
+ * if that is even smaller) so that a reading of exactly 0 gives a large finite margin rather than
+ * infinity, which would break bisection and sorting; flooring at no more than the threshold keeps the
+ * sign of the margin equal to whether the clause holds.
  */
 final class Margins {
 
@@ -13,7 +15,7 @@ final class Margins {
     }
 
     static double of(Direction direction, double t, double threshold) {
-        double floored = Math.max(t, Curve.ABSORBANCE_FLOOR_T);
+        double floored = Math.max(t, Math.min(Curve.ABSORBANCE_FLOOR_T, threshold));
         return direction == Direction.PASS
                 ? Math.log10(floored / threshold)
                 : Math.log10(threshold / floored);

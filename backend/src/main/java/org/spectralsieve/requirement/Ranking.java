@@ -11,6 +11,15 @@ public final class Ranking {
     private Ranking() {
     }
 
+    /** Evaluates every candidate with {@link SampleEvaluator} and ranks them. */
+    public static List<RankedRow> evaluateAndRank(List<Candidate> candidates, Requirement requirement, int limit) {
+        List<MaterialEvaluation> evaluations = new ArrayList<>(candidates.size());
+        for (Candidate candidate : candidates) {
+            evaluations.add(MaterialEvaluation.of(candidate, SampleEvaluator.evaluate(candidate, requirement)));
+        }
+        return rank(evaluations, limit);
+    }
+
     public static List<RankedRow> rank(List<MaterialEvaluation> evaluations, int limit) {
         if (limit < 0) {
             throw new IllegalArgumentException("limit must be >= 0, was " + limit);

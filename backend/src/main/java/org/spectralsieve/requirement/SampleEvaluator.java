@@ -69,7 +69,7 @@ public final class SampleEvaluator {
                 return judged(candidate.sampleId(), d0, null, clauses, candidate.measured());
             }
             return unverified(candidate.sampleId(), d0, clauses, "fixed layer measured at " + Wording.mm(d0)
-                    + " lies outside " + Wording.mm(min).replace(" mm", "") + "–" + Wording.mm(max)
+                    + " lies outside " + Wording.mmSpan(min, max)
                     + " and cannot be rescaled");
         }
         ThicknessSolver.Solution solution = ThicknessSolver.solve(clauses, candidate.measured(), d0,

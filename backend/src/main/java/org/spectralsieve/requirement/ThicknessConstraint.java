@@ -106,7 +106,7 @@ abstract class ThicknessConstraint {
                     return null;
                 }
                 // K0^(d/d0) >= K*  <=>  d <= d0 ln K* / ln K0  (ln K0 < 0)
-                double dMax = d0 * Math.log(kStar) / Math.log(k0);
+                double dMax = settle(d0 * Math.log(kStar) / Math.log(k0), -1);
                 return dMax < min ? null : new double[] {min, Math.min(dMax, max)};
             }
             if (k0 <= 0) {
@@ -120,8 +120,20 @@ abstract class ThicknessConstraint {
                 return new double[] {min, max};
             }
             // K0^(d/d0) <= K*  <=>  d >= d0 ln K* / ln K0
-            double dMin = d0 * Math.log(kStar) / Math.log(k0);
+            double dMin = settle(d0 * Math.log(kStar) / Math.log(k0), +1);
             return dMin > max ? null : new double[] {Math.max(min, dMin), max};
+        }
+
+        /**
+         * The closed-form root may land a rounding step on the failing side; nudge it (at most a few parts
+         * in 10¹²) toward the holding side so the interval end itself holds when judged on the rescaled curve.
+         */
+        private double settle(double root, int towardHolding) {
+            double d = root;
+            for (int i = 0; i < 16 && d > 0 && Double.isFinite(d) && marginAt(d) < 0; i++) {
+                d += towardHolding * Math.max(Math.ulp(d), Math.abs(d) * 1e-13);
+            }
+            return d;
         }
     }
 

@@ -22,6 +22,10 @@ final class Wording {
         return significant(mm, 4) + " mm";
     }
 
+    static String mmSpan(double fromMm, double toMm) {
+        return significant(fromMm, 4) + "–" + mm(toMm);
+    }
+
     static String span(double fromNm, double toNm) {
         return trimmed(fromNm) + "–" + nm(toNm);
     }

@@ -12,5 +12,21 @@
  * most 10) live in {@link org.spectralsieve.requirement.RequirementLimits}, shared with the JSON form.
  * Every rejected text raises {@link org.spectralsieve.requirement.RequirementSyntaxException} with a
  * 0-based character position.
+ *
+ * <p>Evaluation (the exact reference; a faster engine must agree with it):
+ * <ul>
+ *   <li>{@link org.spectralsieve.requirement.ClauseEvaluator} judges one clause on one curve: worst point
+ *       of a band, trapezoid mean, cutoff in a window; nothing extrapolated; bounds used as bounds. An
+ *       unverified clause carries the margin computed from its bound, or NaN when nothing could be read.</li>
+ *   <li>{@link org.spectralsieve.requirement.ThicknessSolver} treats thickness as a design variable for a
+ *       bulk sample: the interval of thicknesses where every clause is proven to hold, and the thickness
+ *       maximising the worst margin.</li>
+ *   <li>{@link org.spectralsieve.requirement.SampleEvaluator} applies the requirement's thickness rule
+ *       to one {@link org.spectralsieve.requirement.Candidate}; {@link org.spectralsieve.requirement.Ranking}
+ *       orders the results by {@link org.spectralsieve.requirement.RankingOrder}, one row per material.</li>
+ * </ul>
+ * Invariants: a MEETS clause has margin >= 0; a sample meets only if every clause meets and misses if
+ * any clause misses; expected misses are values with an explanation, never exceptions — exceptions are
+ * for invalid input and name the parameter and value.
  */
 package org.spectralsieve.requirement;

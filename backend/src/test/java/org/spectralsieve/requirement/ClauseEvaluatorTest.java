@@ -218,4 +218,20 @@ class ClauseEvaluatorTest {
         assertThat(r.verdict()).isEqualTo(Verdict.UNVERIFIED);
         assertThat(r.marginDecades()).isNaN();
     }
+
+    @Test
+    void meanOverABandWiderThanTheWholeCurveSaysPartlyOutside() {
+        Curve curve = Curve.of(new double[] {300, 400}, new double[] {0.5, 0.5}, 0);
+        ClauseResult r = ClauseEvaluator.evaluate(band(Direction.PASS, Aggregate.MEAN, 250, 450, 0.4), curve);
+        assertThat(r.explanation()).isEqualTo("band 250–450 nm lies partly outside the measured range 300–400 nm");
+    }
+
+    @Test
+    void blockThresholdUnderTheAbsorbanceFloorStillMeetsWithANonNegativeMargin() {
+        // OD 13 asked of a reading of exactly 0: met, and the margin keeps the sign of the verdict
+        Curve curve = Curve.of(new double[] {400, 410}, new double[] {0, 0.5}, 0);
+        ClauseResult r = ClauseEvaluator.evaluate(point(Direction.BLOCK, 400, 1e-13), curve);
+        assertThat(r.verdict()).isEqualTo(Verdict.MEETS);
+        assertThat(r.marginDecades()).isGreaterThanOrEqualTo(0);
+    }
 }

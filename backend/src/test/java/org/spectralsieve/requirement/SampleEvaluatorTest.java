@@ -103,4 +103,18 @@ class SampleEvaluatorTest {
                 ClauseEvaluatorTest.point(Direction.BLOCK, 405, 0.5)));
         assertThat(misses.verdict()).isEqualTo(Verdict.MISSES);
     }
+
+    @Test
+    void bulkCandidateWithoutARefractiveIndexIsRejectedNamingTheSample() {
+        org.assertj.core.api.Assertions.assertThatIllegalArgumentException()
+                .isThrownBy(() -> new Candidate(42, 1, "illustrative", EIGHTY, 2, true, null))
+                .withMessageContaining("sample 42");
+    }
+
+    @Test
+    void negativeThicknessIsRejectedQuotingTheValue() {
+        org.assertj.core.api.Assertions.assertThatIllegalArgumentException()
+                .isThrownBy(() -> new Candidate(43, 1, "illustrative", EIGHTY, -1, false, null))
+                .withMessageContaining("-1.0");
+    }
 }
