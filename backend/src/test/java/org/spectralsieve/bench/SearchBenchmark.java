@@ -1,0 +1,193 @@
+package org.spectralsieve.bench;
+
+import static org.spectralsieve.bench.BenchStats.ms;
+import static org.spectralsieve.bench.BenchStats.percentile;
+
+import java.sql.Connection;
+import java.sql.DriverManager;
+import java.sql.PreparedStatement;
+import java.sql.ResultSet;
+import java.sql.SQLException;
+import java.sql.Statement;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.stream.IntStream;
+import org.junit.jupiter.api.Test;
+import org.spectralsieve.requirement.Candidate;
+import org.spectralsieve.requirement.MaterialEvaluation;
+import org.spectralsieve.requirement.Ranking;
+import org.spectralsieve.requirement.Requirement;
+import org.spectralsieve.requirement.RequirementParser;
+import org.spectralsieve.requirement.SampleEvaluator;
+import org.spectralsieve.store.OdCode;
+import org.spectralsieve.store.SpectralStore;
+import org.spectralsieve.store.StoreHit;
+import org.spectralsieve.store.StoreResult;
+import org.spectralsieve.store.StoreSearch;
+import org.spectralsieve.store.StoredMaterial;
+import org.spectralsieve.store.SyntheticCurves;
+
+/**
+ * Requirement-search benchmark (run by {@code mvn -B -q -Pbench -pl backend -am verify}; not part of the
+ * test suite). Prints {@code BENCH ...} lines; asserts nothing about time.
+ *
+ * <p>One search = the store's bounded pass over every curve plus the exact re-evaluation of the returned
+ * rows, as the service does it. Switches: {@code -Dbench.sizes=10000,100000,1000000},
+ * {@code -Dbench.sqlSizes=10000}, {@code -Dbench.runs=41}, {@code -Dbench.sqlRuns=5}, {@code -Dbench.limit=20}.
+ */
+class SearchBenchmark {
+
+    static final String REQUIREMENT =
+            "passes over 80% at 365 nm and blocks under 1% at 405 nm and passes at least 70% from 380 to 400 nm";
+    private static final int BATCH = 8192;
+
+    @Test
+    void searchOverSyntheticLibraries() throws Exception {
+        int runs = BenchStats.intProperty("bench.runs", 41);
+        int limit = BenchStats.intProperty("bench.limit", 20);
+        Requirement fixed = RequirementParser.parse(REQUIREMENT);
+        Requirement solve = RequirementParser.parse(REQUIREMENT + ", thickness 1 to 6 mm");
+        int[] sqlSizes = BenchStats.intList("bench.sqlSizes", "10000");
+        for (int n : BenchStats.intList("bench.sizes", "10000,100000,1000000")) {
+            long before = BenchStats.usedHeapAfterGc();
+            SpectralStore store = syntheticStore(n, 20261202L);
+            long after = BenchStats.usedHeapAfterGc();
+            System.out.printf("BENCH memory curves=%d bytes_per_curve=%.0f%n", n, (after - before) / (double) n);
+
+            double fixedP50 = time(store, fixed, limit, runs, "fixed");
+            time(store, solve, limit, runs, "solve");
+            if (contains(sqlSizes, n)) {
+                double sqlP50 = sqlBaseline(n, 20261202L, BenchStats.intProperty("bench.sqlRuns", 5), limit);
+                System.out.printf("BENCH baseline-sql curves=%d p50_ms=%s ratio=%.0f%n", n, ms(sqlP50), sqlP50 / fixedP50);
+            }
+            store = null;
+        }
+    }
+
+    private static double time(SpectralStore store, Requirement requirement, int limit, int runs, String mode) {
+        for (int i = 0; i < 5; i++) {
+            search(store, requirement, limit); // warm-up: JIT and caches
+        }
+        double[] ms = new double[runs];
+        int refined = 0;
+        for (int i = 0; i < runs; i++) {
+            long t0 = System.nanoTime();
+            refined = search(store, requirement, limit);
+            ms[i] = (System.nanoTime() - t0) / 1e6;
+        }
+        System.out.printf("BENCH search curves=%d mode=%s p50_ms=%s p95_ms=%s refined=%d%n", store.size(), mode,
+                ms(percentile(ms, 50)), ms(percentile(ms, 95)), refined);
+        return percentile(ms, 50);
+    }
+
+    /** The service's path without the database: store search, then exact judgement of the returned rows. */
+    static int search(SpectralStore store, Requirement requirement, int limit) {
+        StoreResult result = StoreSearch.search(store, requirement, limit);
+        List<MaterialEvaluation> exact = new ArrayList<>();
+        for (StoreHit hit : result.hits()) {
+            Candidate c = new Candidate(hit.sampleId(), hit.material().id(), hit.material().name(), store.curve(hit.curve()),
+                    store.thicknessMm(hit.curve()), store.isBulk(hit.curve()), SyntheticCurves.INDICES[0]);
+            exact.add(MaterialEvaluation.of(c, SampleEvaluator.evaluate(c, requirement)));
+        }
+        if (Ranking.rank(exact, limit).isEmpty() && store.size() > 0) {
+            throw new IllegalStateException("no rows");
+        }
+        return result.refinedSamples();
+    }
+
+    /** n curves in materials of three samples each (a third of them bulk sheets, the rest films and coatings). */
+    static SpectralStore syntheticStore(int n, long seed) {
+        SyntheticCurves synthetic = new SyntheticCurves(seed, SpectralStore.DEFAULT_GRID);
+        SpectralStore.Builder builder = SpectralStore.builder(SpectralStore.DEFAULT_GRID, n);
+        for (int start = 0; start < n; start += BATCH) {
+            int count = Math.min(BATCH, n - start);
+            SyntheticCurves.Spec[] specs = new SyntheticCurves.Spec[count];
+            for (int k = 0; k < count; k++) {
+                specs[k] = synthetic.next();
+            }
+            short[][] codes = new short[count][];
+            IntStream.range(0, count).parallel().forEach(k -> codes[k] = synthetic.codes(specs[k]));
+            for (int k = 0; k < count; k++) {
+                int i = start + k;
+                int material = i / 3;
+                builder.addEncoded(i + 1L, new StoredMaterial(material + 1L, "material " + material, "plastic sheet"),
+                        specs[k].thicknessMm(), material % 3 != 2, false, SyntheticCurves.INDICES[specs[k].index()], codes[k]);
+            }
+        }
+        return builder.build();
+    }
+
+    /**
+     * The same requirement as straightforward SQL over the same curves stored one row per point in H2,
+     * with the index a competent engineer would add (primary key on wavelength then curve, so each
+     * wavelength is one contiguous range).
+     */
+    static double sqlBaseline(int n, long seed, int runs, int limit) throws SQLException {
+        try (Connection db = DriverManager.getConnection("jdbc:h2:mem:bench-sql-" + n, "sa", "")) {
+            try (Statement s = db.createStatement()) {
+                s.execute("CREATE TABLE curve (curve_id INT PRIMARY KEY, material_id INT NOT NULL)");
+                s.execute("CREATE TABLE point (nm SMALLINT NOT NULL, curve_id INT NOT NULL, t DOUBLE NOT NULL,"
+                        + " PRIMARY KEY (nm, curve_id))");
+            }
+            SyntheticCurves synthetic = new SyntheticCurves(seed, SpectralStore.DEFAULT_GRID);
+            double[] nm = SpectralStore.DEFAULT_GRID.points();
+            db.setAutoCommit(false);
+            try (PreparedStatement curve = db.prepareStatement("INSERT INTO curve VALUES (?, ?)");
+                 PreparedStatement point = db.prepareStatement("INSERT INTO point VALUES (?, ?, ?)")) {
+                for (int i = 0; i < n; i++) {
+                    short[] codes = synthetic.codes(synthetic.next());
+                    curve.setInt(1, i + 1);
+                    curve.setInt(2, i / 3 + 1);
+                    curve.addBatch();
+                    for (int w = 0; w < nm.length; w++) {
+                        point.setShort(1, (short) nm[w]);
+                        point.setInt(2, i + 1);
+                        point.setDouble(3, OdCode.transmittance(codes[w]));
+                        point.addBatch();
+                    }
+                    if (i % 200 == 199) {
+                        curve.executeBatch();
+                        point.executeBatch();
+                    }
+                }
+                curve.executeBatch();
+                point.executeBatch();
+            }
+            db.commit();
+            String sql = "SELECT c.material_id, c.curve_id,"
+                    + " LEAST(LOG10(a.t / 0.8), LOG10(0.01 / b.t), LOG10(m.tmin / 0.7)) AS worst"
+                    + " FROM curve c"
+                    + " JOIN point a ON a.nm = 365 AND a.curve_id = c.curve_id"
+                    + " JOIN point b ON b.nm = 405 AND b.curve_id = c.curve_id"
+                    + " JOIN (SELECT curve_id, MIN(t) AS tmin FROM point WHERE nm BETWEEN 380 AND 400 GROUP BY curve_id) m"
+                    + "   ON m.curve_id = c.curve_id"
+                    + " ORDER BY worst DESC LIMIT " + limit;
+            double[] ms = new double[runs];
+            for (int r = -1; r < runs; r++) {
+                long t0 = System.nanoTime();
+                int rows = 0;
+                try (Statement s = db.createStatement(); ResultSet rs = s.executeQuery(sql)) {
+                    while (rs.next()) {
+                        rows++;
+                    }
+                }
+                if (rows == 0) {
+                    throw new IllegalStateException("baseline query returned no rows");
+                }
+                if (r >= 0) {
+                    ms[r] = (System.nanoTime() - t0) / 1e6;
+                }
+            }
+            return percentile(ms, 50);
+        }
+    }
+
+    private static boolean contains(int[] values, int value) {
+        for (int v : values) {
+            if (v == value) {
+                return true;
+            }
+        }
+        return false;
+    }
+}
