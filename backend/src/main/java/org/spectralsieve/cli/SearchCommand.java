@@ -26,7 +26,7 @@ import tools.jackson.databind.json.JsonMapper;
 
 /** {@code search REQUIREMENT}: the ranked, explained shortlist, as a table or as the API's JSON. */
 @Command(name = "search", description = "Rank the library's materials against a requirement written in words,"
-        + " e.g. \"passes over 80% at 365 nm and blocks under 1% at 405 nm, thickness 1 to 6 mm\".")
+        + " e.g. \"passes over 80%% at 365 nm and blocks under 1%% at 405 nm, thickness 1 to 6 mm\".")
 final class SearchCommand implements Callable<Integer> {
 
     @Spec

@@ -42,7 +42,6 @@ public final class SieveCli {
         CommandLine cli = new CommandLine(new SieveCli())
                 .setOut(outWriter)
                 .setErr(errWriter)
-                .setExitCodeExceptionMapper(e -> e instanceof CliFailure f ? f.exitCode() : FAILED)
                 .setExecutionExceptionHandler(SieveCli::reportFailure);
         try {
             return cli.execute(args);
