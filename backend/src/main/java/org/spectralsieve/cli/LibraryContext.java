@@ -28,7 +28,8 @@ final class LibraryContext {
             "--logging.level.root=WARN",
             "--logging.level.org.springframework.boot.SpringApplication=OFF",
             "--logging.level.org.springframework.boot.diagnostics=OFF",
-            "--logging.level.org.springframework.context.support=OFF",
+            // the context class logs the failed refresh under its own name
+            "--logging.level.org.springframework.context.annotation.AnnotationConfigApplicationContext=OFF",
             "--logging.level.com.zaxxer.hikari=OFF");
 
     private LibraryContext() {
