@@ -54,6 +54,7 @@ export function initSearch(ui) {
   // ---------- parsing while typing ----------
 
   function scheduleParse() {
+    markStale();
     clearTimeout(state.parseTimer);
     state.parseTimer = setTimeout(parseNow, PARSE_DELAY_MS);
   }
@@ -100,6 +101,12 @@ export function initSearch(ui) {
       return li;
     }));
     dom.clauses.dataset.state = 'understood';
+  }
+
+  // Results shown for an earlier text stay readable but dimmed, so nobody takes them for the new one.
+  function markStale() {
+    const shown = dom.table.dataset.requirement;
+    dom.results.classList.toggle('stale', shown !== undefined && shown !== dom.text.value);
   }
 
   // ---------- a requirement the server could not read ----------
@@ -226,6 +233,7 @@ export function initSearch(ui) {
       rows.push(tr);
     }
     dom.rows.replaceChildren(...rows);
+    markStale();
   }
 
   function resultRows(result, requirement) {

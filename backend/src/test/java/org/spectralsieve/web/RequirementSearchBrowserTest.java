@@ -122,6 +122,15 @@ class RequirementSearchBrowserTest {
         assertThat(explained.getText()).contains("T at 254 nm is").contains("%");
         screenshot("search-1-fused-silica");
 
+        // Opening a result shows the existing material detail, the rescale box set to the thickness searched.
+        String silica = cells.get(1).getText();
+        first.findElement(By.cssSelector("button.material-link")).click();
+        wait.until(d -> silica.equals(d.findElement(By.id("detail-name")).getText()));
+        wait.until(d -> "3".equals(d.findElement(By.id("rescale-mm")).getDomProperty("value")));
+        wait.withMessage("waiting for the curve rescaled to the searched thickness");
+        wait.until(d -> d.findElements(By.cssSelector("#curve-chart .u-legend .u-label")).stream()
+                .anyMatch(label -> label.getDomProperty("textContent").startsWith("rescaled to 3 mm")));
+
         // A misspelt word: the server's detail is shown, the word is marked and its fix offered.
         text.sendKeys(Keys.chord(Keys.CONTROL, "a"), Keys.DELETE);
         text.sendKeys("blocks undr 1% at 405 nm");
@@ -143,11 +152,16 @@ class RequirementSearchBrowserTest {
                 .contains("Screening estimate from stored curves, not a certification");
         screenshot("search-3-fixed-and-blocking");
 
-        // A result opens the existing material detail.
-        WebElement top = driver.findElement(By.cssSelector("#results-table tr[data-result-material-id]"));
-        String name = top.findElement(By.cssSelector("button.material-link")).getText();
-        top.findElement(By.cssSelector("button.material-link")).click();
-        wait.until(d -> name.equals(d.findElement(By.id("detail-name")).getText()));
+        // An example written in optical density: its clause values are shown as OD, as it was written.
+        String odExample = "blocks to OD 3 or more from 350 to 420 nm";
+        driver.findElement(By.cssSelector("#requirement-examples button[data-example='" + odExample + "']")).click();
+        WebElement odFirst = waitForResultsFor(odExample);
+        assertThat(waitForClauses(2).get(0)).isEqualTo("OD ≥ 3 (T ≤ 0.1 %) over 350–420 nm");
+        odFirst.findElement(By.cssSelector("button.toggle")).click();
+        WebElement odClause = driver.findElement(By.cssSelector("#results-table tr.result-clauses:not([hidden]) tbody td.num"));
+        assertThat(odClause.getText()).startsWith("OD ");
+        screenshot("search-4-optical-density");
+
         WebElement message = driver.findElement(By.id("message"));
         assertThat(message.isDisplayed()).as("error area stays hidden, but shows: %s", message.getText()).isFalse();
     }
