@@ -272,6 +272,10 @@ public final class DelimitedTextReader {
                     throw new ImportException(source, lines[i], s.xName(), "wavelength must be positive, was " + raw[i]);
                 }
                 x[i] = s.unit().toNanometres(raw[i]);
+                if (!Double.isFinite(x[i]) || !(x[i] > 0)) {
+                    throw new ImportException(source, lines[i], s.xName(), raw[i] + " " + s.unit()
+                            + " is not a finite positive wavelength in nm (" + x[i] + ")");
+                }
             }
             int yk = layout.parsedIndex(s.y());
             XOrder.Ordered ordered = XOrder.order(source, s.xName(), x, new double[][] {table.column(yk)},
@@ -297,7 +301,7 @@ public final class DelimitedTextReader {
             }
             Optional<YKind> forced = options.yKind();
             if (forced.isPresent()) {
-                if (forced.get() != fromFile && (named.isPresent() || true)) {
+                if (forced.get() != fromFile) {
                     notes.add("y kind set to " + forced.get() + " by the read options; column '" + s.yName()
                             + "' suggests " + fromFile);
                 }
@@ -338,12 +342,9 @@ public final class DelimitedTextReader {
                                 + "their wavelengths differ (" + (i < cx.length ? cx[i] : "none") + " nm against "
                                 + x[i] + " nm in column '" + first.series().xName() + "')");
                     }
-                    sum[i] += c.ordered().values()[0][i];
+                    sum[i] += c.ordered().values()[0][i] / curves.size(); // divided first so huge values cannot overflow
                     bound[i] |= c.ordered().bounds()[0][i];
                 }
-            }
-            for (int i = 0; i < sum.length; i++) {
-                sum[i] /= curves.size();
             }
             Map<String, String> extra = new LinkedHashMap<>();
             extra.put("replicates", "mean of " + curves.size() + ": " + String.join(", ", names));

@@ -132,6 +132,9 @@ public final class RawCountsReader {
                 throw new ImportException(sourceName, lineNos[i], roles.xName, "wavelength must be positive, was " + raw[i]);
             }
             x[i] = roles.unit.toNanometres(raw[i]);
+            if (!Double.isFinite(x[i]) || !(x[i] > 0)) {
+                throw new ImportException(sourceName, lineNos[i], roles.xName, "not a finite positive wavelength: " + raw[i]);
+            }
         }
         int k = roles.columns.size();
         double[][] values = new double[k][];

@@ -109,7 +109,7 @@ final class XOrder {
             }
             runLength++;
             for (int c = 0; c < k; c++) {
-                ov[c][out] += values[c][i];
+                ov[c][out] += values[c][i] / runOf(x, i, reverse); // divide first: a sum of huge values would overflow
                 ob[c][out] &= bounds[c] != null && bounds[c][i];
             }
         }
@@ -122,11 +122,19 @@ final class XOrder {
     }
 
     private static void finishRun(double[][] ov, boolean[][] ob, int out, int runLength) {
-        if (out < 0) {
-            return;
+        // the mean is already complete: each value was divided by the length of its run
+    }
+
+    /** Length of the run of equal wavelengths that row i belongs to. */
+    private static int runOf(double[] x, int i, boolean reverse) {
+        int a = i;
+        int b = i;
+        while (a > 0 && x[a - 1] == x[i]) {
+            a--;
         }
-        for (double[] column : ov) {
-            column[out] /= runLength;
+        while (b < x.length - 1 && x[b + 1] == x[i]) {
+            b++;
         }
+        return b - a + 1;
     }
 }
