@@ -2,7 +2,7 @@
 // RFC 9457 fields (title, detail, status, instance), so the page can always show *why*.
 
 export class ApiProblem extends Error {
-  constructor({ status, title, detail, instance, type }) {
+  constructor({ status, title, detail, instance, type, properties }) {
     super(detail ? `${title}: ${detail}` : title);
     this.name = 'ApiProblem';
     this.status = status;
@@ -10,16 +10,22 @@ export class ApiProblem extends Error {
     this.detail = detail;
     this.instance = instance;
     this.type = type;
+    // Extension members of the problem (e.g. "position" and "suggestion" for a requirement the
+    // server could not read), kept as sent.
+    this.properties = properties || {};
   }
 }
 
 // Relative URLs keep the page working when the app is served under a context path.
 const BASE = 'api';
 
-async function getJson(path) {
+async function getJson(path, init = {}) {
   let response;
   try {
-    response = await fetch(path, { headers: { Accept: 'application/json, application/problem+json' } });
+    response = await fetch(path, {
+      ...init,
+      headers: { Accept: 'application/json, application/problem+json', ...(init.headers || {}) },
+    });
   } catch (networkError) {
     throw new ApiProblem({
       status: 0,
@@ -60,6 +66,7 @@ async function problemFrom(response, path) {
     detail: body?.detail || `The server answered ${response.status} for ${path}.`,
     instance: body?.instance || path,
     type: body?.type,
+    properties: body && typeof body === 'object' ? body : {},
   });
 }
 
@@ -86,4 +93,22 @@ export function getCurve(sampleId, thicknessMm) {
 
 export function curveCsvUrl(sampleId) {
   return `${BASE}/samples/${encodeURIComponent(sampleId)}/curve.csv`;
+}
+
+function postJson(path, body) {
+  return getJson(path, {
+    method: 'POST',
+    headers: { 'Content-Type': 'application/json' },
+    body: JSON.stringify(body),
+  });
+}
+
+/** The requirement text as the server reads it (structured clauses), or an ApiProblem locating the error. */
+export function parseRequirement(text) {
+  return postJson(`${BASE}/requirements/parse`, { requirement: text });
+}
+
+/** Ranked, explained shortlist for a requirement text. */
+export function search(text, limit) {
+  return postJson(`${BASE}/search`, { requirement: text, limit });
 }

@@ -1,8 +1,10 @@
-// The library page: list and filter materials, show one material's samples and curves,
-// rescale a bulk sample to another thickness. All numbers come from the API; nothing is computed here.
+// The library page: find materials for a requirement, list and filter materials, show one material's
+// samples and curves, rescale a bulk sample to another thickness. All numbers come from the API;
+// nothing is computed here.
 import * as api from './api.js';
 import * as fmt from './format.js';
 import { drawCurves, followWidth } from './chart.js';
+import { initSearch } from './search.js';
 
 const SAMPLE_COLOURS = ['#1d6a86', '#8a5a2b', '#4d7a37', '#7a3e6e', '#3d4f9a', '#9c4545', '#3c7f7a', '#6b6b2a'];
 const RESCALED_COLOUR = '#c2700f';
@@ -234,7 +236,12 @@ function renderDetailHead(material) {
   dom.index.textContent = fmt.refractiveIndex(material.refractiveIndex);
 }
 
-async function selectMaterial(id) {
+/**
+ * Opens a material. `rescaleTo` ({ sampleId, thicknessMm, reveal }) pre-fills the rescale box, e.g. with
+ * the thickness a requirement search recommended, drawn at once so the user sees that curve; `reveal`
+ * scrolls the detail into view (the search area sits above it).
+ */
+async function selectMaterial(id, rescaleTo = null) {
   const request = ++state.detailRequest;
   markSelectedRow(id);
   try {
@@ -246,10 +253,13 @@ async function selectMaterial(id) {
     renderDetailHead(material);
     renderSamples(material);
     setupRescale(material);
+    const prefilled = prefillRescale(material, rescaleTo);
     dom.placeholder.hidden = true;
     dom.detail.hidden = false;
     history.replaceState(null, '', `#material=${encodeURIComponent(id)}`);
+    if (rescaleTo?.reveal) dom.detail.scrollIntoView({ block: 'start' });
     await loadCurves(material, request);
+    if (prefilled && request === state.detailRequest) await applyRescale();
   } catch (problem) {
     if (request !== state.detailRequest) return;
     showProblem(problem, 'Loading the material');
@@ -313,6 +323,14 @@ function setupRescale(material) {
   }
   dom.rescaleNote.textContent = 'Fixed layer: rescaling is not offered.';
   explainFixedLayer(material);
+}
+
+function prefillRescale(material, rescaleTo) {
+  if (!rescaleTo || !Number.isFinite(rescaleTo.thicknessMm) || material.scaling === 'fixed') return false;
+  const from = material.samples.find((s) => String(s.id) === String(rescaleTo.sampleId));
+  if (from) dom.rescaleFrom.value = String(from.id);
+  dom.rescaleMm.value = fmt.number(rescaleTo.thicknessMm);
+  return true;
 }
 
 // The server owns the rule; ask it once so the page shows its own words for why a fixed layer
@@ -413,6 +431,13 @@ function wire() {
 }
 
 wire();
+initSearch({
+  showProblem,
+  clearMessage,
+  openMaterial(id, rescaleTo) {
+    selectMaterial(id, { ...rescaleTo, reveal: true });
+  },
+});
 loadMaterials({ fillClasses: true });
 const initial = materialIdFromHash();
 if (initial) selectMaterial(initial);

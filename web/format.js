@@ -66,3 +66,75 @@ export function refractiveIndex(model) {
       return `unknown model “${model.kind}”`;
   }
 }
+
+// ---------- requirements and search results ----------
+
+const MINUS = '\u2212';
+
+function band(fromNm, toNm) {
+  return fromNm === toNm ? `at ${number(fromNm, 1)} nm` : `over ${number(fromNm, 1)}–${number(toNm, 1)} nm`;
+}
+
+/** A threshold as the user wrote it: 0.8 → "80 %", 0.001 → "0.1 %" (no padding digits). */
+function thresholdPercent(t) {
+  return `${number(t * 100, 6)} %`;
+}
+
+function opticalDensity(t) {
+  return number(-Math.log10(t), 2);
+}
+
+/** One structured clause as the server understood it: "T ≥ 80 % at 365 nm", "OD ≥ 3 (T ≤ 0.1 %) over …". */
+export function clauseSummary(clause) {
+  if (clause.type === 'cutoff') {
+    return `cutoff (T = ${thresholdPercent(clause.levelT)}) within ${number(clause.fromNm, 1)}–${number(clause.toNm, 1)} nm`;
+  }
+  const pass = clause.direction === 'pass';
+  const mean = clause.aggregate === 'mean' ? 'mean ' : '';
+  const where = band(clause.fromNm, clause.toNm);
+  const t = clause.thresholdT;
+  if (clause.unit === 'opticalDensity') {
+    // Passing "to OD x" means absorbing at most that much; blocking means at least.
+    return `${mean}OD ${pass ? '≤' : '≥'} ${opticalDensity(t)} (T ${pass ? '≥' : '≤'} ${thresholdPercent(t)}) ${where}`;
+  }
+  const threshold = clause.unit === 'fraction' ? number(t, 6) : thresholdPercent(t);
+  return `${mean}T ${pass ? '≥' : '≤'} ${threshold} ${where}`;
+}
+
+/** The thickness part of a requirement, always shown so the user sees what the search assumes. */
+export function thicknessSummary(thickness) {
+  switch (thickness?.kind) {
+    case 'fixed':
+      return `thickness: ${number(thickness.mm)} mm (bulk curves rescaled)`;
+    case 'range':
+      return `thickness: design variable ${number(thickness.minMm)}–${number(thickness.maxMm)} mm`;
+    default:
+      return 'thickness: as measured';
+  }
+}
+
+/**
+ * A clause's value as the clause was written: %T, plain fraction, OD, or a cutoff wavelength. A bound
+ * (true T at most this) reads "≤ …" in T and "≥ …" in OD.
+ */
+export function clauseValue(result, clause) {
+  const v = result.value;
+  if (v === null || v === undefined || !Number.isFinite(v)) return DASH;
+  if (clause?.type === 'cutoff') return `${number(v, 1)} nm`;
+  const bound = result.valueIsBound;
+  if (clause?.unit === 'opticalDensity') {
+    if (v <= 0) return 'T = 0';
+    return `OD ${bound ? '≥ ' : ''}${opticalDensity(v)}`;
+  }
+  const text = clause?.unit === 'fraction' ? number(v, 6) : percent(v);
+  return bound ? `≤ ${text}` : text;
+}
+
+/** A margin in decades with its sign always written: "+0.061", "−0.088". */
+export function signedDecades(value) {
+  if (value === null || value === undefined || !Number.isFinite(value)) return DASH;
+  const digits = Math.abs(value) < 1 ? 3 : 2;
+  const text = Math.abs(value).toFixed(digits);
+  if (Number(text) === 0) return `±${text}`;
+  return `${value > 0 ? '+' : MINUS}${text}`;
+}

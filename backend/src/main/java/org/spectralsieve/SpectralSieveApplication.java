@@ -1,5 +1,6 @@
 package org.spectralsieve;
 
+import org.spectralsieve.cli.SieveCli;
 import org.springframework.boot.SpringApplication;
 import org.springframework.boot.autoconfigure.SpringBootApplication;
 import org.springframework.boot.context.properties.ConfigurationPropertiesScan;
@@ -10,6 +11,9 @@ import org.springframework.boot.context.properties.ConfigurationPropertiesScan;
 public class SpectralSieveApplication {
 
     public static void main(String[] args) {
+        if (SieveCli.handles(args)) {
+            System.exit(SieveCli.run(args, System.out, System.err));
+        }
         SpringApplication.run(SpectralSieveApplication.class, args);
     }
 }

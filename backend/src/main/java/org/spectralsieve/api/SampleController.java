@@ -1,9 +1,7 @@
 package org.spectralsieve.api;
 
-import java.util.LinkedHashMap;
-import java.util.Map;
 import org.spectralsieve.api.MaterialResponses.CurveResponse;
-import org.spectralsieve.importers.DelimitedTextWriter;
+import org.spectralsieve.export.SampleCurveCsv;
 import org.spectralsieve.library.SampleCurve;
 import org.spectralsieve.library.SampleCurves;
 import org.spectralsieve.spectrum.Curve;
@@ -22,8 +20,7 @@ import org.springframework.web.bind.annotation.RestController;
 @RequestMapping("/api/samples/{id}")
 class SampleController {
 
-    /** Thicker than any sheet on a workshop shelf by far; beyond it a request is a typo, not a design. */
-    static final double MAX_THICKNESS_MM = 1000;
+    static final double MAX_THICKNESS_MM = SampleCurves.MAX_THICKNESS_MM;
     static final double MIN_STEP_NM = 0.01;
 
     private final SampleCurves curves;
@@ -51,21 +48,8 @@ class SampleController {
                                     @RequestParam(name = "to", required = false) Double to,
                                     @RequestParam(name = "step", required = false) Double step) {
         SampleCurve result = fetch(id, thicknessMm, from, to, step);
-        Map<String, String> metadata = new LinkedHashMap<>();
-        metadata.put("material", result.material().slug());
-        metadata.put("material_name", result.material().name());
-        metadata.put("sample_id", String.valueOf(id));
-        metadata.put("thickness_mm", String.valueOf(result.thicknessMm()));
-        metadata.put("rescaled", String.valueOf(result.rescaled()));
-        metadata.put("geometry", result.sample().geometry().label());
-        metadata.put("provenance", result.sample().provenance().label());
-        metadata.put("detection_limit", String.valueOf(result.curve().maxDetectionLimit()));
-        if (!result.sample().notes().isBlank()) {
-            metadata.put("note", result.sample().notes());
-        }
-        Curve c = result.curve();
-        String csv = DelimitedTextWriter.write(metadata, c.wavelengthsNm(), c.transmittances(), c.belowDetectionFlags());
-        String fileName = result.material().slug() + "-" + result.thicknessMm() + "mm.csv";
+        String csv = SampleCurveCsv.write(result);
+        String fileName = SampleCurveCsv.fileName(result);
         return ResponseEntity.ok()
                 .contentType(new MediaType("text", "csv", java.nio.charset.StandardCharsets.UTF_8))
                 .header(HttpHeaders.CONTENT_DISPOSITION, "attachment; filename=\"" + fileName + "\"")

@@ -1,14 +1,8 @@
 package org.spectralsieve.api;
 
-import java.util.ArrayList;
-import java.util.LinkedHashMap;
-import java.util.List;
 import java.util.Map;
-import org.spectralsieve.requirement.ClauseResult;
-import org.spectralsieve.requirement.RankedRow;
 import org.spectralsieve.requirement.Requirement;
 import org.spectralsieve.requirement.RequirementParser;
-import org.spectralsieve.requirement.SampleEvaluation;
 import org.spectralsieve.search.SearchService;
 import org.spectralsieve.search.Shortlist;
 import org.springframework.web.bind.annotation.PostMapping;
@@ -22,8 +16,8 @@ import tools.jackson.databind.JsonNode;
 @RequestMapping("/api")
 class SearchController {
 
-    static final int DEFAULT_LIMIT = 20;
-    static final int MAX_LIMIT = 500;
+    static final int DEFAULT_LIMIT = SearchService.DEFAULT_LIMIT;
+    static final int MAX_LIMIT = SearchService.MAX_LIMIT;
 
     private final SearchService search;
 
@@ -41,12 +35,7 @@ class SearchController {
         Requirement requirement = requirementOf(body);
         int limit = limitOf(body);
         Shortlist shortlist = search.search(requirement, limit);
-        Map<String, Object> json = new LinkedHashMap<>();
-        json.put("requirement", RequirementJson.toJson(requirement));
-        json.put("results", shortlist.rows().stream().map(SearchController::row).toList());
-        json.put("evaluatedSamples", shortlist.evaluatedSamples());
-        json.put("tookMs", Math.round(shortlist.tookMs() * 1000) / 1000.0);
-        return json;
+        return ShortlistJson.toJson(shortlist);
     }
 
     /** The requirement as text ({@code "passes over 80% at 365 nm"}) or in its structured form. */
@@ -77,37 +66,5 @@ class SearchController {
             throw new BadParameterException("limit", "must be a whole number from 1 to " + MAX_LIMIT + ", got " + node);
         }
         return node.asInt();
-    }
-
-    private static Map<String, Object> row(RankedRow row) {
-        SampleEvaluation e = row.evaluation();
-        Map<String, Object> json = new LinkedHashMap<>();
-        json.put("rank", row.position());
-        json.put("materialId", row.materialId());
-        json.put("materialName", row.materialName());
-        json.put("sampleId", e.sampleId());
-        json.put("verdict", e.verdict().name().toLowerCase(java.util.Locale.ROOT));
-        json.put("thicknessMm", finiteOrNull(e.thicknessMm()));
-        json.put("thicknessRangeMm", e.feasibleMm() == null ? null : List.of(e.feasibleMm().loMm(), e.feasibleMm().hiMm()));
-        json.put("worstMarginDecades", finiteOrNull(e.worstMarginDecades()));
-        json.put("bindingClause", e.bindingClauseIndex() < 0 ? null : e.clauses().get(e.bindingClauseIndex()).clause().text());
-        List<Map<String, Object>> clauses = new ArrayList<>();
-        for (ClauseResult c : e.clauses()) {
-            Map<String, Object> clause = new LinkedHashMap<>();
-            clause.put("text", c.clause().text());
-            clause.put("value", finiteOrNull(c.value()));
-            clause.put("valueIsBound", c.valueIsBound());
-            clause.put("threshold", c.threshold());
-            clause.put("marginDecades", finiteOrNull(c.marginDecades()));
-            clause.put("verdict", c.verdict().name().toLowerCase(java.util.Locale.ROOT));
-            clause.put("explanation", c.explanation());
-            clauses.add(clause);
-        }
-        json.put("clauses", clauses);
-        return json;
-    }
-
-    private static Double finiteOrNull(double value) {
-        return Double.isFinite(value) ? value : null;
     }
 }

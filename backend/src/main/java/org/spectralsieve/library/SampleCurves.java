@@ -7,6 +7,9 @@ import org.spectralsieve.spectrum.WavelengthGrid;
 /** Fetches a stored curve and applies what the user asked: rescaling to a thickness, then resampling. */
 public class SampleCurves {
 
+    /** Thicker than any sheet on a workshop shelf by far; beyond it a request is a typo, not a design. */
+    public static final double MAX_THICKNESS_MM = 1000;
+
     private final JooqLibraryRepository library;
 
     public SampleCurves(JooqLibraryRepository library) {

@@ -30,6 +30,10 @@ import org.spectralsieve.store.StoredMaterial;
  */
 public class SearchService {
 
+    /** Shortlist length when the caller names none, and the most a caller may ask for (HTTP and command line). */
+    public static final int DEFAULT_LIMIT = 20;
+    public static final int MAX_LIMIT = 500;
+
     private final JooqLibraryRepository library;
     private final AtomicReference<Snapshot> snapshot = new AtomicReference<>();
 

@@ -3,7 +3,6 @@ package org.spectralsieve.importers;
 import java.io.BufferedReader;
 import java.io.IOException;
 import java.io.Reader;
-import java.nio.charset.CharacterCodingException;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
@@ -13,21 +12,23 @@ import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Optional;
-import java.util.regex.Matcher;
-import java.util.regex.Pattern;
 
 /**
- * Reads delimited text curves: the sieve curve CSV written by {@link DelimitedTextWriter}, and ordinary
- * two-column CSV/TSV files from users and instruments.
+ * Reads delimited text curves: the sieve curve CSV written by {@link DelimitedTextWriter}, and the
+ * CSV/TSV/blank-separated files users and instruments write.
  *
  * <ul>
- *   <li>{@code #} starts a comment; {@code # key: value} or {@code # key = value} is metadata.</li>
- *   <li>Blank lines are skipped. The delimiter is detected from the first non-comment line
- *       (see {@link Delimiter}).</li>
- *   <li>A first line whose first field is not a number is a header naming the columns' roles and kinds;
- *       without one, column 1 is x in nm, column 2 is y, and the y kind is guessed from the range.</li>
+ *   <li>Layout: comments, preamble, header and rows as described in {@link TextTable}; the delimiter
+ *       (comma, semicolon, tab, blanks, mixed tabs and spaces) and decimal mark as in {@link Delimiter}.</li>
+ *   <li>Column roles from header names ({@link ColumnRole}); without a header, column 1 is x in nm,
+ *       column 2 is y, and the y kind is guessed from the range.</li>
+ *   <li>Several value columns (replicates, x/y pairs): see {@link Replicates}.</li>
+ *   <li>x in nm, µm, Å or cm⁻¹, converted to nm. Rows are put in increasing wavelength order; a column
+ *       that changes direction, or repeats a wavelength, is refused ({@link XOrder}).</li>
+ *   <li>y kind: the read options win; else the name's kind; a transmittance column whose values
+ *       exceed {@value #PERCENT_LOOKING} is percent (with a warning when the name said fraction or
+ *       said nothing).</li>
  *   <li>A y value written {@code <0.001} is an upper bound ("at or below detection").</li>
- *   <li>x must be strictly increasing; at most {@value #MAX_ROWS} data rows.</li>
  * </ul>
  *
  * Every refusal is an {@link ImportException} naming source, line and field. Instances hold no state
@@ -40,10 +41,6 @@ public final class DelimitedTextReader {
 
     /** Above this a "fraction" is surely percent: T slightly over 1 occurs from noise, 1.5 does not. */
     static final double PERCENT_LOOKING = 1.5;
-
-    private static final Pattern METADATA = Pattern.compile("([A-Za-z][A-Za-z0-9_.\\- ]*?)\\s*[:=]\\s*(.*)");
-    private static final Pattern OWN_FORMAT = Pattern.compile("Spectral Sieve curve v(\\d+)");
-    private static final Pattern DECIMAL = Pattern.compile("[+-]?(\\d+\\.?\\d*|\\.\\d+)([eE][+-]?\\d+)?");
 
     private final int maxRows;
 
@@ -62,233 +59,315 @@ public final class DelimitedTextReader {
     }
 
     public ParsedSpectrum read(Path file, ReadOptions options) throws ImportException {
-        String name = String.valueOf(file.getFileName());
-        try (Reader in = Files.newBufferedReader(file, StandardCharsets.UTF_8)) {
-            return read(name, in, options);
-        } catch (IOException e) {
-            throw ImportException.ofSource(name, "cannot read: " + e.getMessage());
-        }
+        return first(readAll(file, options));
     }
 
     public ParsedSpectrum read(String sourceName, Reader in) throws ImportException {
         return read(sourceName, in, ReadOptions.defaults());
     }
 
+    /** One spectrum; with {@link Replicates#SEPARATE} the first, noting that {@link #readAll} gives all. */
     public ParsedSpectrum read(String sourceName, Reader in, ReadOptions options) throws ImportException {
-        BufferedReader lines = in instanceof BufferedReader b ? b : new BufferedReader(in);
-        Parse parse = new Parse(sourceName, options);
-        try {
-            String line;
-            while ((line = lines.readLine()) != null) {
-                parse.line(line);
-            }
-        } catch (CharacterCodingException e) {
-            throw new ImportException(sourceName, parse.lineNo + 1, null, "not UTF-8 text", e);
-        } catch (IOException e) {
-            throw new ImportException(sourceName, parse.lineNo + 1, null, "cannot read: " + e.getMessage(), e);
-        }
-        return parse.finish();
+        return first(readAll(sourceName, in, options));
     }
 
-    /** The state of one read: kept out of the reader so the reader itself stays shareable. */
-    private final class Parse {
+    /** All spectra of the file: one, unless the options ask for {@link Replicates#SEPARATE}. */
+    public List<ParsedSpectrum> readAll(Path file, ReadOptions options) throws ImportException {
+        String name = String.valueOf(file.getFileName());
+        try (Reader in = Files.newBufferedReader(file, StandardCharsets.UTF_8)) {
+            return readAll(name, in, options);
+        } catch (IOException e) {
+            throw ImportException.ofSource(name, "cannot read: " + e.getMessage());
+        }
+    }
+
+    public List<ParsedSpectrum> readAll(String sourceName, Reader in, ReadOptions options) throws ImportException {
+        BufferedReader lines = in instanceof BufferedReader b ? b : new BufferedReader(in, 1 << 16);
+        Layout layout = new Layout(sourceName, options.replicates());
+        TextTable table = TextTable.read(sourceName, lines, options.decimalMark(), maxRows, layout::choose);
+        return new Assembly(table, layout, options).spectra();
+    }
+
+    private static ParsedSpectrum first(List<ParsedSpectrum> all) {
+        ParsedSpectrum s = all.get(0);
+        if (all.size() == 1) {
+            return s;
+        }
+        List<String> warnings = new ArrayList<>(s.warnings());
+        warnings.add("the file holds " + all.size() + " replicates; this is the first (readAll returns all)");
+        return ParsedSpectrum.of(s.sourceName(), s.wavelengthsNm(), s.values(), s.upperBounds(), s.yKind(),
+                s.xUnit(), s.metadata(), warnings);
+    }
+
+    /** One x/y column pair; {@code role.yKind()} null when there is no header. */
+    private record Series(int x, int y, String xName, String yName, XUnit unit, ColumnRole role) {
+    }
+
+    /** Column roles, decided when the header is known. */
+    private static final class Layout {
         private final String source;
-        private final ReadOptions options;
-        private final Map<String, String> metadata = new LinkedHashMap<>();
-        private final List<String> warnings = new ArrayList<>();
-        private int lineNo;
-        private boolean seenContent;
-        private Delimiter delimiter;
-        private ColumnLayout layout;
-        private double[] x = new double[1024];
-        private double[] y = new double[1024];
-        private boolean[] bounds = new boolean[1024];
-        private int rows;
-        private int previousLine;
+        private final Replicates mode;
+        private final List<Series> series = new ArrayList<>();
+        private final List<String> notes = new ArrayList<>();
+        private int[] parsed;
 
-        Parse(String source, ReadOptions options) {
+        Layout(String source, Replicates mode) {
             this.source = source;
+            this.mode = mode;
+        }
+
+        TextTable.Selection choose(TextTable.Header header) throws ImportException {
+            List<String> names = header.names() == null ? positionalNames(header.columnCount()) : header.names();
+            if (header.names() == null) {
+                series.add(new Series(0, 1, names.get(0), names.get(1), XUnit.NANOMETRE,
+                        new ColumnRole(ColumnRole.Kind.Y, null, null, false)));
+            } else {
+                fromHeader(header, names);
+            }
+            boolean[] used = new boolean[names.size()];
+            List<Integer> columns = new ArrayList<>();
+            for (int i = 0; i < series.size(); i++) {
+                Series s = series.get(i);
+                if (i == 0 || mode != Replicates.FIRST) {
+                    addOnce(columns, s.x());
+                    addOnce(columns, s.y());
+                }
+                used[s.x()] = true;
+                used[s.y()] = true;
+            }
+            List<String> ignored = new ArrayList<>();
+            for (int c = 0; c < names.size(); c++) {
+                if (!used[c]) {
+                    ignored.add(names.get(c));
+                }
+            }
+            if (!ignored.isEmpty()) {
+                notes.add("line " + Math.max(header.line(), 1) + ": columns ignored (not a wavelength or value column): "
+                        + ignored);
+            }
+            if (series.size() > 1 && mode == Replicates.FIRST) {
+                List<String> unread = new ArrayList<>();
+                series.subList(1, series.size()).forEach(s -> unread.add(s.xName() + "/" + s.yName()));
+                notes.add(series.size() + " value columns found; only the first (" + series.get(0).xName() + "/"
+                        + series.get(0).yName() + ") is read; not read: " + unread
+                        + "; set replicates MEAN or SEPARATE in the read options to use them");
+            }
+            parsed = columns.stream().mapToInt(Integer::intValue).toArray();
+            return new TextTable.Selection(parsed, names);
+        }
+
+        private static void addOnce(List<Integer> columns, int c) {
+            if (!columns.contains(c)) {
+                columns.add(c);
+            }
+        }
+
+        private static List<String> positionalNames(int count) {
+            List<String> names = new ArrayList<>();
+            names.add("wavelength");
+            names.add("value");
+            for (int c = 2; c < count; c++) {
+                names.add("column " + (c + 1));
+            }
+            return names;
+        }
+
+        private void fromHeader(TextTable.Header header, List<String> names) throws ImportException {
+            int currentX = -1;
+            int firstX = -1;
+            List<Integer> orphans = new ArrayList<>(); // value columns before any wavelength column
+            ColumnRole[] roles = new ColumnRole[names.size()];
+            for (int c = 0; c < names.size(); c++) {
+                try {
+                    roles[c] = ColumnRole.of(names.get(c));
+                } catch (IllegalArgumentException e) {
+                    throw new ImportException(source, header.line(), names.get(c), e.getMessage());
+                }
+                if (roles[c].isX()) {
+                    currentX = c;
+                    firstX = firstX < 0 ? c : firstX;
+                } else if (roles[c].isY() && currentX >= 0) {
+                    series.add(series(names, roles, currentX, c));
+                } else if (roles[c].isY()) {
+                    orphans.add(c);
+                }
+            }
+            if (firstX < 0) {
+                throw new ImportException(source, header.line(), names.get(0), "no wavelength column in header "
+                        + names + "; expected one of " + ColumnRole.X_EXAMPLES);
+            }
+            for (int c : orphans) {
+                series.add(0, series(names, roles, firstX, c));
+            }
+            if (series.isEmpty()) {
+                throw new ImportException(source, header.line(), null, "no value column in header " + names
+                        + "; expected one of " + ColumnRole.Y_EXAMPLES);
+            }
+        }
+
+        private static Series series(List<String> names, ColumnRole[] roles, int x, int y) {
+            return new Series(x, y, names.get(x), names.get(y), roles[x].xUnit(), roles[y]);
+        }
+
+        int parsedIndex(int column) {
+            for (int k = 0; k < parsed.length; k++) {
+                if (parsed[k] == column) {
+                    return k;
+                }
+            }
+            throw new IllegalStateException("column " + column + " not parsed");
+        }
+    }
+
+    /** Turns the parsed table into spectra: units, order, kinds, replicates. */
+    private static final class Assembly {
+        private final TextTable table;
+        private final Layout layout;
+        private final ReadOptions options;
+        private final String source;
+
+        Assembly(TextTable table, Layout layout, ReadOptions options) {
+            this.table = table;
+            this.layout = layout;
             this.options = options;
+            this.source = table.source;
         }
 
-        void line(String raw) throws ImportException {
-            lineNo++;
-            String line = lineNo == 1 && raw.startsWith("\uFEFF") ? raw.substring(1) : raw;
-            String text = line.strip();
-            if (text.isEmpty()) {
-                return;
-            }
-            boolean first = !seenContent;
-            seenContent = true;
-            if (text.startsWith("#")) {
-                comment(text.substring(1).strip(), first);
-                return;
-            }
-            if (layout == null) {
-                delimiter = Delimiter.detect(text);
-                List<String> fields = split(text);
-                if (!isNumber(fields.get(0))) {
-                    layout = ColumnLayout.fromHeader(source, lineNo, fields);
-                    warnIgnored();
-                    return;
-                }
-                layout = ColumnLayout.positional(fields.size());
-                warnIgnored();
-            }
-            row(split(text));
-        }
-
-        private void comment(String body, boolean first) {
-            Matcher own = OWN_FORMAT.matcher(body);
-            if (own.matches()) {
-                if (!first || !own.group(1).equals("1")) {
-                    warnings.add("line " + lineNo + ": '" + body + "' read as sieve curve v1"
-                            + (first ? "" : " (it is not the first line)"));
-                }
-                return;
-            }
-            Matcher m = METADATA.matcher(body);
-            if (!m.matches()) {
-                return; // a plain comment
-            }
-            String key = ParsedSpectrum.normaliseKey(m.group(1));
-            String value = m.group(2).strip();
-            if (metadata.containsKey(key)) {
-                warnings.add("line " + lineNo + ": metadata '" + key + "' given again; the later value '"
-                        + value + "' replaces '" + metadata.get(key) + "'");
-            }
-            metadata.put(key, value);
-        }
-
-        private void warnIgnored() {
-            if (!layout.ignored().isEmpty()) {
-                warnings.add("line " + lineNo + ": columns ignored (not a wavelength or value column): "
-                        + layout.ignored());
-            }
-        }
-
-        private List<String> split(String text) throws ImportException {
-            try {
-                return delimiter.split(text);
-            } catch (IllegalArgumentException e) {
-                throw new ImportException(source, lineNo, null, e.getMessage());
-            }
-        }
-
-        private void row(List<String> fields) throws ImportException {
-            if (fields.size() < layout.columnCount()) {
-                String missing = layout.names().get(fields.size());
-                throw new ImportException(source, lineNo, missing, "missing: expected "
-                        + layout.columnCount() + " columns separated by " + delimiter.describe()
-                        + ", found " + fields.size());
-            }
-            if (fields.size() > layout.columnCount()) {
-                throw new ImportException(source, lineNo, "column " + (layout.columnCount() + 1),
-                        "unexpected: expected " + layout.columnCount() + " columns separated by "
-                                + delimiter.describe() + ", found " + fields.size());
-            }
-            if (rows == maxRows) {
-                throw new ImportException(source, lineNo, null, "more than " + maxRows
-                        + " data rows; a curve this long is surely not one spectrum (split or resample it)");
-            }
-            double wavelength = layout.xUnit().toNanometres(number(fields.get(layout.xColumn()), layout.xName()));
-            String yText = fields.get(layout.yColumn());
-            boolean bound = yText.startsWith("<");
-            double value = number(bound ? yText.substring(1).strip() : yText, layout.yName());
-            checkOrder(wavelength);
-            append(wavelength, value, bound);
-            previousLine = lineNo;
-        }
-
-        private void checkOrder(double wavelength) throws ImportException {
-            if (rows == 0 || wavelength > x[rows - 1]) {
-                return;
-            }
-            double before = x[rows - 1];
-            String where = "line " + lineNo + " (" + wavelength + " nm) ";
-            throw new ImportException(source, lineNo, layout.xName(), wavelength == before
-                    ? "duplicate wavelength: " + where + "repeats line " + previousLine + " (" + before + " nm)"
-                    : "wavelengths must be strictly increasing: " + where + "follows line " + previousLine
-                            + " (" + before + " nm)");
-        }
-
-        private double number(String text, String field) throws ImportException {
-            if (text.isEmpty()) {
-                throw new ImportException(source, lineNo, field, "empty");
-            }
-            if (!DECIMAL.matcher(text).matches()) {
-                String problem = isNonFiniteWord(text) ? "not a finite number: '" : "not a number: '";
-                throw new ImportException(source, lineNo, field, problem + text + "'");
-            }
-            double v = Double.parseDouble(text);
-            if (!Double.isFinite(v)) {
-                throw new ImportException(source, lineNo, field, "not a finite number: '" + text + "'");
-            }
-            return v;
-        }
-
-        private void append(double wavelength, double value, boolean bound) {
-            if (rows == x.length) {
-                int size = Math.min(Math.max(rows * 2, 16), maxRows);
-                x = Arrays.copyOf(x, size);
-                y = Arrays.copyOf(y, size);
-                bounds = Arrays.copyOf(bounds, size);
-            }
-            x[rows] = wavelength;
-            y[rows] = value;
-            bounds[rows] = bound;
-            rows++;
-        }
-
-        ParsedSpectrum finish() throws ImportException {
-            if (!seenContent) {
-                throw ImportException.ofSource(source, "empty file");
-            }
-            if (rows == 0) {
-                throw ImportException.ofSource(source, "no data rows");
-            }
-            if (rows < ParsedSpectrum.MIN_POINTS) {
-                throw new ImportException(source, previousLine, null,
+        List<ParsedSpectrum> spectra() throws ImportException {
+            if (table.rows() < ParsedSpectrum.MIN_POINTS) {
+                throw new ImportException(source, table.lastLine(), null,
                         "only 1 data row; a curve needs at least " + ParsedSpectrum.MIN_POINTS);
             }
-            double[] values = Arrays.copyOf(y, rows);
-            YKind kind = decideKind(values);
-            return ParsedSpectrum.of(source, Arrays.copyOf(x, rows), values, Arrays.copyOf(bounds, rows),
-                    kind, layout.xUnit(), metadata, warnings);
+            List<Series> all = layout.series;
+            int count = options.replicates() == Replicates.FIRST ? 1 : all.size();
+            List<Curve> curves = new ArrayList<>();
+            for (int i = 0; i < count; i++) {
+                curves.add(curve(all.get(i)));
+            }
+            if (options.replicates() == Replicates.MEAN && curves.size() > 1) {
+                return List.of(mean(curves));
+            }
+            List<ParsedSpectrum> out = new ArrayList<>();
+            for (int i = 0; i < curves.size(); i++) {
+                Map<String, String> extra = new LinkedHashMap<>();
+                if (curves.size() > 1) {
+                    extra.put("replicate", (i + 1) + " of " + curves.size());
+                    extra.put("columns", curves.get(i).series.xName() + ", " + curves.get(i).series.yName());
+                }
+                out.add(spectrum(curves.get(i), extra, List.of()));
+            }
+            return out;
         }
 
-        private YKind decideKind(double[] values) {
+        /** One series, in nm, increasing, with its y kind decided. */
+        private record Curve(Series series, XOrder.Ordered ordered, YKind kind, List<String> notes) {
+        }
+
+        private Curve curve(Series s) throws ImportException {
+            double[] raw = table.column(layout.parsedIndex(s.x()));
+            int[] lines = table.lines();
+            double[] x = new double[raw.length];
+            for (int i = 0; i < raw.length; i++) {
+                if (!(raw[i] > 0)) {
+                    throw new ImportException(source, lines[i], s.xName(), "wavelength must be positive, was " + raw[i]);
+                }
+                x[i] = s.unit().toNanometres(raw[i]);
+                if (!Double.isFinite(x[i]) || !(x[i] > 0)) {
+                    throw new ImportException(source, lines[i], s.xName(), raw[i] + " " + s.unit()
+                            + " is not a finite positive wavelength in nm (" + x[i] + ")");
+                }
+            }
+            int yk = layout.parsedIndex(s.y());
+            XOrder.Ordered ordered = XOrder.order(source, s.xName(), x, new double[][] {table.column(yk)},
+                    new boolean[][] {table.bounds(yk)}, lines, options.mergeDuplicates());
+            if (ordered.x().length < ParsedSpectrum.MIN_POINTS) {
+                throw ImportException.ofSource(source, "only 1 distinct wavelength after merging repeated rows");
+            }
+            List<String> notes = new ArrayList<>(ordered.notes());
+            YKind kind = decideKind(s, ordered.values()[0], notes);
+            return new Curve(s, ordered, kind, notes);
+        }
+
+        private YKind decideKind(Series s, double[] values, List<String> notes) {
             double max = Arrays.stream(values).max().orElseThrow();
+            Optional<YKind> named = s.role().namedKind();
+            YKind fromFile;
+            if (named.isEmpty()) {
+                fromFile = max > PERCENT_LOOKING ? YKind.TRANSMITTANCE_PERCENT : YKind.TRANSMITTANCE_FRACTION;
+            } else if (named.get() == YKind.TRANSMITTANCE_FRACTION && max > PERCENT_LOOKING) {
+                fromFile = YKind.TRANSMITTANCE_PERCENT;
+            } else {
+                fromFile = named.get();
+            }
             Optional<YKind> forced = options.yKind();
-            Optional<YKind> named = layout.yKind();
             if (forced.isPresent()) {
-                named.filter(k -> k != forced.get()).ifPresent(k -> warnings.add("y kind set to " + forced.get()
-                        + " by the read options; column '" + layout.yName() + "' suggests " + k));
+                if (forced.get() != fromFile) {
+                    notes.add("y kind set to " + forced.get() + " by the read options; column '" + s.yName()
+                            + "' suggests " + fromFile);
+                }
                 return forced.get();
             }
             if (named.isEmpty()) {
-                YKind guess = max > PERCENT_LOOKING ? YKind.TRANSMITTANCE_PERCENT : YKind.TRANSMITTANCE_FRACTION;
-                warnings.add("no header names the value column; y kind guessed as " + guess
+                notes.add("no header names the value column; y kind guessed as " + fromFile
                         + " from the largest value " + max + " (percent when above " + PERCENT_LOOKING
                         + "); set it in the read options if wrong");
-                return guess;
+            } else if (fromFile != named.get()) {
+                notes.add("column '" + s.yName() + "' " + (s.role().scaleNamed()
+                        ? "is labelled as a fraction, which contradicts its values: they reach "
+                        : "does not say percent or fraction; its values reach ") + max + " (above "
+                        + PERCENT_LOOKING + "), which looks like percent, so it is read as "
+                        + YKind.TRANSMITTANCE_PERCENT + "; set the y kind in the read options if wrong");
             }
-            if (named.get() == YKind.TRANSMITTANCE_FRACTION && max > PERCENT_LOOKING) {
-                warnings.add("column '" + layout.yName() + "' is read as a fraction, but values reach " + max
-                        + " (above " + PERCENT_LOOKING + "), which looks like percent; set the y kind to "
-                        + YKind.TRANSMITTANCE_PERCENT + " in the read options if so");
-            }
-            return named.get();
+            return fromFile;
         }
-    }
 
-    private static boolean isNumber(String text) {
-        String t = text.startsWith("<") ? text.substring(1).strip() : text;
-        return DECIMAL.matcher(t).matches() || isNonFiniteWord(t);
-    }
+        private ParsedSpectrum mean(List<Curve> curves) throws ImportException {
+            Curve first = curves.get(0);
+            double[] x = first.ordered().x();
+            double[] sum = new double[x.length];
+            boolean[] bound = new boolean[x.length];
+            List<String> names = new ArrayList<>();
+            for (Curve c : curves) {
+                names.add(c.series().yName());
+                if (c.kind() != first.kind()) {
+                    throw ImportException.ofSource(source, "replicates cannot be averaged: column '"
+                            + c.series().yName() + "' is " + c.kind() + ", column '" + first.series().yName()
+                            + "' is " + first.kind());
+                }
+                double[] cx = c.ordered().x();
+                for (int i = 0; i < x.length; i++) {
+                    if (cx.length != x.length || cx[i] != x[i]) {
+                        int line = c.ordered().lines()[Math.min(i, cx.length - 1)];
+                        throw new ImportException(source, line, c.series().xName(), "replicates cannot be averaged: "
+                                + "their wavelengths differ (" + (i < cx.length ? cx[i] : "none") + " nm against "
+                                + x[i] + " nm in column '" + first.series().xName() + "')");
+                    }
+                    sum[i] += c.ordered().values()[0][i] / curves.size(); // divided first so huge values cannot overflow
+                    bound[i] |= c.ordered().bounds()[0][i];
+                }
+            }
+            Map<String, String> extra = new LinkedHashMap<>();
+            extra.put("replicates", "mean of " + curves.size() + ": " + String.join(", ", names));
+            List<String> notes = new ArrayList<>();
+            for (Curve c : curves.subList(1, curves.size())) {
+                c.notes().stream().filter(n -> !first.notes().contains(n)).forEach(notes::add);
+            }
+            notes.add("values are the mean of " + curves.size() + " replicate columns " + names
+                    + " (an upper bound where any replicate was one)");
+            XOrder.Ordered merged = new XOrder.Ordered(x, new double[][] {sum}, new boolean[][] {bound},
+                    first.ordered().lines(), List.of());
+            return spectrum(new Curve(first.series(), merged, first.kind(), first.notes()), extra, notes);
+        }
 
-    private static boolean isNonFiniteWord(String text) {
-        String t = text.replaceFirst("^[+-]", "");
-        return t.equalsIgnoreCase("nan") || t.equalsIgnoreCase("infinity") || t.equalsIgnoreCase("inf");
+        private ParsedSpectrum spectrum(Curve c, Map<String, String> extraMetadata, List<String> extraNotes) {
+            Map<String, String> metadata = new LinkedHashMap<>(table.metadata);
+            metadata.putAll(extraMetadata);
+            List<String> warnings = new ArrayList<>(table.warnings);
+            warnings.addAll(layout.notes);
+            warnings.addAll(c.notes());
+            warnings.addAll(extraNotes);
+            return ParsedSpectrum.of(source, c.ordered().x(), c.ordered().values()[0], c.ordered().bounds()[0],
+                    c.kind(), c.series().unit(), metadata, warnings);
+        }
     }
 }

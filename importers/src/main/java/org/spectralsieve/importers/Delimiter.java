@@ -5,19 +5,26 @@ import java.io.StringReader;
 import java.io.UncheckedIOException;
 import java.util.ArrayList;
 import java.util.List;
-import java.util.regex.Pattern;
+import java.util.Optional;
 import org.apache.commons.csv.CSVFormat;
 import org.apache.commons.csv.CSVParser;
 import org.apache.commons.csv.CSVRecord;
 
 /**
- * How fields are separated, detected once from the first header or data line and then used for the
- * whole file. Detection is deliberately simple, in this order: a comma anywhere in the line means
- * comma; else a semicolon means semicolon; else a tab means tab; else runs of spaces. Runs-of-spaces
- * mode also accepts tabs, because hand-edited text files often mix the two.
+ * How fields are separated, detected once per file from the header line and the first data line, and
+ * then used for the whole file.
  *
- * <p>Comma, semicolon and tab lines holding a double quote are tokenised by commons-csv (so quoted header
- * names work); others are split directly, which gives the same fields faster. A quoted
+ * <p>Detection tries, in this order, semicolon, tab, comma and runs of blanks, each with a decimal
+ * point and then a decimal comma (never a comma inside comma-separated fields), and takes the first
+ * combination that splits the first data line into at least two numbers and the header into as many
+ * names. So {@code 365,5;12,3} is semicolon with decimal comma, {@code 365.5,12.3} is comma, and
+ * {@code 365,5 12,3} is blanks with decimal comma. Tab-separated files whose header and first row also
+ * split on blanks are read as blanks, because hand-edited files mix tabs and spaces; the blanks mode
+ * accepts both. When nothing fits, the old rule picks the delimiter (comma, semicolon, tab, blanks: the
+ * first present) and the row reader reports the bad field.
+ *
+ * <p>Comma, semicolon and tab lines holding a double quote are tokenised by commons-csv (so quoted
+ * header names work); others are split in place, which gives the same fields far faster. A quoted
  * field cannot span lines, since data are read one line at a time to keep line numbers exact.
  */
 enum Delimiter {
@@ -25,8 +32,6 @@ enum Delimiter {
     SEMICOLON(';'),
     TAB('\t'),
     WHITESPACE(' ');
-
-    private static final Pattern BLANKS = Pattern.compile("[ \\t]+");
 
     private final char symbol;
     private final CSVFormat format;
@@ -40,7 +45,75 @@ enum Delimiter {
                 .get();
     }
 
-    static Delimiter detect(String line) {
+    /** A delimiter and decimal mark that fit the file. */
+    record Choice(Delimiter delimiter, DecimalMark decimal) {
+    }
+
+    private static final Delimiter[] ORDER = {SEMICOLON, TAB, COMMA, WHITESPACE};
+
+    /**
+     * @param header   the header line, or null when the file has none
+     * @param dataLine the first data line
+     * @param forced   the decimal mark the user set, if any
+     */
+    static Choice detect(String header, String dataLine, Optional<DecimalMark> forced) {
+        LineFields data = new LineFields();
+        Choice firstFit = null;
+        for (Delimiter d : ORDER) {
+            for (DecimalMark mark : DecimalMark.values()) {
+                if (forced.isPresent() && forced.get() != mark || d == COMMA && mark == DecimalMark.COMMA) {
+                    continue;
+                }
+                if (!d.splitsIntoNumbers(dataLine, data, mark.symbol())) {
+                    continue;
+                }
+                Choice choice = new Choice(d, mark);
+                if (d == TAB && WHITESPACE.fits(header, dataLine, mark, data)) {
+                    choice = new Choice(WHITESPACE, mark);
+                }
+                if (header == null || choice.delimiter().headerCount(header) == data.count()) {
+                    return choice;
+                }
+                if (firstFit == null) {
+                    firstFit = choice;
+                }
+            }
+        }
+        return firstFit != null ? firstFit
+                : new Choice(simple(header != null ? header : dataLine), forced.orElse(DecimalMark.POINT));
+    }
+
+    private boolean fits(String header, String dataLine, DecimalMark mark, LineFields data) {
+        int tabCount = data.count();
+        boolean fits = splitsIntoNumbers(dataLine, data, mark.symbol()) && data.count() == tabCount
+                && (header == null || headerCount(header) == tabCount);
+        TAB.splitSafely(dataLine, data); // restore the tab split for the caller
+        return fits;
+    }
+
+    private boolean splitsIntoNumbers(String line, LineFields fields, char decimal) {
+        if (splitSafely(line, fields) < 2) {
+            return false;
+        }
+        for (int i = 0; i < fields.count(); i++) {
+            if (!fields.isNumber(i, decimal)) {
+                return false;
+            }
+        }
+        return true;
+    }
+
+    private int splitSafely(String line, LineFields fields) {
+        try {
+            split(line, fields);
+            return fields.count();
+        } catch (IllegalArgumentException e) {
+            return -1;
+        }
+    }
+
+    /** The rule before data-based detection: the first delimiter character present. */
+    static Delimiter simple(String line) {
         if (line.indexOf(',') >= 0) {
             return COMMA;
         }
@@ -54,17 +127,44 @@ enum Delimiter {
     }
 
     /**
-     * Splits one non-blank line into trimmed fields.
+     * Splits one non-blank line into trimmed fields held by {@code fields}.
      *
      * @throws IllegalArgumentException when the line cannot be tokenised (e.g. an unclosed quote)
      */
-    List<String> split(String line) {
+    void split(String line, LineFields fields) {
+        fields.reset(line);
         if (this == WHITESPACE) {
-            return List.of(BLANKS.split(line.strip()));
+            splitBlanks(line, fields);
+        } else if (line.indexOf('"') < 0) {
+            int start = 0;
+            for (int end; (end = line.indexOf(symbol, start)) >= 0; start = end + 1) {
+                fields.add(start, end);
+            }
+            fields.add(start, line.length());
+        } else {
+            fields.setQuoted(splitQuoted(line));
         }
-        if (line.indexOf('"') < 0) {
-            return splitUnquoted(line);
+    }
+
+    private static void splitBlanks(String line, LineFields fields) {
+        int n = line.length();
+        int i = 0;
+        while (true) {
+            while (i < n && LineFields.isBlank(line.charAt(i))) {
+                i++;
+            }
+            if (i == n) {
+                return;
+            }
+            int start = i;
+            while (i < n && !LineFields.isBlank(line.charAt(i))) {
+                i++;
+            }
+            fields.add(start, i);
         }
+    }
+
+    private List<String> splitQuoted(String line) {
         try (CSVParser parser = format.parse(new StringReader(line))) {
             List<CSVRecord> records = parser.getRecords();
             if (records.size() != 1) {
@@ -79,17 +179,32 @@ enum Delimiter {
     }
 
     /**
-     * Without quotes a plain split gives the same fields as commons-csv; a parser per line costs about
-     * ten times more, which matters for curves near the row cap.
+     * Header names. Blank-separated headers join a bracketed unit to the name before it, so that
+     * {@code Wavelength [nm] Transmittance (%)} gives two names, not four.
      */
-    private List<String> splitUnquoted(String line) {
-        List<String> fields = new ArrayList<>(4);
-        int start = 0;
-        for (int end; (end = line.indexOf(symbol, start)) >= 0; start = end + 1) {
-            fields.add(line.substring(start, end).strip());
+    List<String> splitHeader(String line) {
+        LineFields fields = new LineFields();
+        split(line, fields);
+        List<String> names = new ArrayList<>(fields.count());
+        for (int i = 0; i < fields.count(); i++) {
+            String name = fields.text(i);
+            boolean unit = name.startsWith("(") || name.startsWith("[");
+            if (this == WHITESPACE && unit && !names.isEmpty()) {
+                names.set(names.size() - 1, names.get(names.size() - 1) + " " + name);
+            } else {
+                names.add(name);
+            }
         }
-        fields.add(line.substring(start).strip());
-        return fields;
+        return names;
+    }
+
+    /** Field count of the header as {@link #splitHeader} reads it. */
+    int headerCount(String line) {
+        try {
+            return splitHeader(line).size();
+        } catch (IllegalArgumentException e) {
+            return -1;
+        }
     }
 
     String describe() {

@@ -149,16 +149,16 @@ class DelimitedTextReaderTest {
     }
 
     @Test
-    void percentLookingValuesUnderAFractionHeaderAreKeptWithAWarning() throws ImportException {
+    void percentLookingValuesUnderABareTransmittanceHeaderAreReadAsPercentWithAWarning() throws ImportException {
         ParsedSpectrum s = read("wavelength,transmittance\n300,7.2\n400,91.0\n");
 
-        assertThat(s.yKind()).isEqualTo(YKind.TRANSMITTANCE_FRACTION);
-        assertThat(s.warnings()).singleElement().asString().contains("'transmittance'", "91.0", "percent");
+        assertThat(s.yKind()).isEqualTo(YKind.TRANSMITTANCE_PERCENT);
+        assertThat(s.warnings()).singleElement().asString().contains("'transmittance'", "91.0", "looks like percent");
     }
 
     @Test
     void readOptionsForceTheYKind() throws ImportException {
-        ParsedSpectrum s = read("wavelength,transmittance\n300,7.2\n400,91.0\n",
+        ParsedSpectrum s = read("wavelength,absorbance\n300,7.2\n400,91.0\n",
                 ReadOptions.defaults().withYKind(YKind.TRANSMITTANCE_PERCENT));
 
         assertThat(s.yKind()).isEqualTo(YKind.TRANSMITTANCE_PERCENT);
@@ -198,7 +198,7 @@ class DelimitedTextReaderTest {
             "empty field           | wavelength_nm,transmittance\\n300,\\n310,0.1     | 2    | transmittance   | acrylic-3mm.csv line 2, field 'transmittance': empty",
             "missing column        | wavelength_nm,transmittance\\n300,0.1\\n310      | 3    | transmittance   | acrylic-3mm.csv line 3, field 'transmittance': missing: expected 2 columns separated by ',', found 1",
             "extra column          | wavelength_nm,transmittance\\n300,0.1,7         | 2    | column 3        | acrylic-3mm.csv line 2, field 'column 3': unexpected: expected 2 columns separated by ',', found 3",
-            "decreasing x          | # c\\nnm,transmittance\\n405,0.1\\n\\n404,0.2   | 5    | nm              | acrylic-3mm.csv line 5, field 'nm': wavelengths must be strictly increasing: line 5 (404.0 nm) follows line 3 (405.0 nm)",
+            "x turns back          | # c\\nnm,transmittance\\n405,0.1\\n\\n406,0.2\\n404,0.3 | 6 | nm       | acrylic-3mm.csv line 6, field 'nm': wavelengths are not monotonic: the order changes direction at line 6 (404.0 nm after 406.0 nm)",
             "duplicate x           | nm,transmittance\\n405,0.1\\n405,0.2             | 3    | nm              | acrylic-3mm.csv line 3, field 'nm': duplicate wavelength: line 3 (405.0 nm) repeats line 2 (405.0 nm)",
             "no wavelength column  | colour,transmittance\\n1,0.1                    | 1    | colour          | acrylic-3mm.csv line 1, field 'colour': no wavelength column in header [colour, transmittance]; expected one of [wavelength_nm, wavelength, nm,",
             "no value column       | wavelength,V\\n1,0.1                            | 1    |                 | acrylic-3mm.csv line 1: no value column in header [wavelength, V]; expected one of [transmittance, transmittance_percent,",

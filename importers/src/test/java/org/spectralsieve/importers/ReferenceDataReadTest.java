@@ -56,13 +56,13 @@ class ReferenceDataReadTest {
     }
 
     @Test
-    void clearAcrylicSheetWithoutOverrideWarnsThatItsFractionHeaderLooksLikePercent() throws ImportException {
+    void clearAcrylicSheetWithoutOverrideIsReadAsPercentWithAWarningThatItsHeaderNamesNoScale() throws ImportException {
         Optional<Path> file = locate();
         Assumptions.assumeTrue(file.isPresent(), "shared reference data not present: ../" + RELATIVE);
 
         ParsedSpectrum s = new DelimitedTextReader().read(file.get());
 
-        assertThat(s.yKind()).isEqualTo(YKind.TRANSMITTANCE_FRACTION);
+        assertThat(s.yKind()).isEqualTo(YKind.TRANSMITTANCE_PERCENT);
         assertThat(s.warnings()).anyMatch(w -> w.contains("looks like percent"));
     }
 }

@@ -1,0 +1,63 @@
+package org.spectralsieve.api;
+
+import java.util.ArrayList;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+import org.spectralsieve.requirement.ClauseResult;
+import org.spectralsieve.requirement.RankedRow;
+import org.spectralsieve.requirement.SampleEvaluation;
+import org.spectralsieve.search.Shortlist;
+
+/**
+ * The JSON form of a search answer, as {@code POST /api/search} returns it and {@code search --json}
+ * prints it: one shape for both, so a script can switch between them without a change.
+ * Non-finite numbers (no reading, no margin) become null, since JSON has no NaN.
+ */
+public final class ShortlistJson {
+
+    private ShortlistJson() {
+    }
+
+    public static Map<String, Object> toJson(Shortlist shortlist) {
+        Map<String, Object> json = new LinkedHashMap<>();
+        json.put("requirement", RequirementJson.toJson(shortlist.requirement()));
+        json.put("results", shortlist.rows().stream().map(ShortlistJson::row).toList());
+        json.put("evaluatedSamples", shortlist.evaluatedSamples());
+        json.put("tookMs", Math.round(shortlist.tookMs() * 1000) / 1000.0);
+        return json;
+    }
+
+    static Map<String, Object> row(RankedRow row) {
+        SampleEvaluation e = row.evaluation();
+        Map<String, Object> json = new LinkedHashMap<>();
+        json.put("rank", row.position());
+        json.put("materialId", row.materialId());
+        json.put("materialName", row.materialName());
+        json.put("sampleId", e.sampleId());
+        json.put("verdict", e.verdict().name().toLowerCase(Locale.ROOT));
+        json.put("thicknessMm", finiteOrNull(e.thicknessMm()));
+        json.put("thicknessRangeMm", e.feasibleMm() == null ? null : List.of(e.feasibleMm().loMm(), e.feasibleMm().hiMm()));
+        json.put("worstMarginDecades", finiteOrNull(e.worstMarginDecades()));
+        json.put("bindingClause", e.bindingClauseIndex() < 0 ? null : e.clauses().get(e.bindingClauseIndex()).clause().text());
+        List<Map<String, Object>> clauses = new ArrayList<>();
+        for (ClauseResult c : e.clauses()) {
+            Map<String, Object> clause = new LinkedHashMap<>();
+            clause.put("text", c.clause().text());
+            clause.put("value", finiteOrNull(c.value()));
+            clause.put("valueIsBound", c.valueIsBound());
+            clause.put("threshold", c.threshold());
+            clause.put("marginDecades", finiteOrNull(c.marginDecades()));
+            clause.put("verdict", c.verdict().name().toLowerCase(Locale.ROOT));
+            clause.put("explanation", c.explanation());
+            clauses.add(clause);
+        }
+        json.put("clauses", clauses);
+        return json;
+    }
+
+    private static Double finiteOrNull(double value) {
+        return Double.isFinite(value) ? value : null;
+    }
+}

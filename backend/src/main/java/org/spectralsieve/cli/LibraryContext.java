@@ -1,0 +1,77 @@
+package org.spectralsieve.cli;
+
+import java.sql.SQLException;
+import java.util.ArrayList;
+import java.util.List;
+import org.spectralsieve.SpectralSieveApplication;
+import org.springframework.boot.Banner;
+import org.springframework.boot.WebApplicationType;
+import org.springframework.boot.builder.SpringApplicationBuilder;
+import org.springframework.context.ConfigurableApplicationContext;
+
+/**
+ * The application context a command works in: the server's beans and database (Flyway migration and
+ * the first-start demo library included), without the web server, and quiet on stdout so that stdout
+ * carries only the command's answer.
+ */
+final class LibraryContext {
+
+    /** H2's "database may be already in use" (org.h2.api.ErrorCode.DATABASE_ALREADY_OPEN_1); H2 is runtime-only here. */
+    private static final int H2_DATABASE_ALREADY_OPEN = 90020;
+
+    /**
+     * Passed as command-line properties, which outrank application.properties. Logback writes to stdout, so
+     * only warnings pass, and the loggers that report a failed start are silenced: the command reports the
+     * failure itself, in one line instead of a stack trace.
+     */
+    private static final List<String> QUIET = List.of(
+            "--logging.level.root=WARN",
+            "--logging.level.org.springframework.boot.SpringApplication=OFF",
+            "--logging.level.org.springframework.boot.diagnostics=OFF",
+            // the context class logs the failed refresh under its own name
+            "--logging.level.org.springframework.context.annotation.AnnotationConfigApplicationContext=OFF",
+            "--logging.level.com.zaxxer.hikari=OFF");
+
+    private LibraryContext() {
+    }
+
+    /** @param dbUrl a JDBC URL, or null for the server's default (SIEVE_DB_URL, else the H2 file under ./data) */
+    static ConfigurableApplicationContext start(String dbUrl) {
+        List<String> args = new ArrayList<>(QUIET);
+        if (dbUrl != null) {
+            args.add("--spring.datasource.url=" + dbUrl);
+        }
+        try {
+            return new SpringApplicationBuilder(SpectralSieveApplication.class)
+                    .web(WebApplicationType.NONE)
+                    .bannerMode(Banner.Mode.OFF)
+                    .logStartupInfo(false)
+                    .run(args.toArray(String[]::new));
+        } catch (RuntimeException e) {
+            if (heldByAnotherProcess(e)) {
+                throw new CliFailure(SieveCli.FAILED, List.of(
+                        "the library database is in use by another process (is the Spectral Sieve server running?)",
+                        "An H2 file database opens in one process at a time: stop the server, or use its HTTP API,"
+                                + " or give another database with --db-url."));
+            }
+            throw new CliFailure(SieveCli.FAILED, "cannot open the library: " + rootMessage(e));
+        }
+    }
+
+    private static boolean heldByAnotherProcess(Throwable e) {
+        for (Throwable t = e; t != null; t = t.getCause() == t ? null : t.getCause()) {
+            if (t instanceof SQLException sql && sql.getErrorCode() == H2_DATABASE_ALREADY_OPEN) {
+                return true;
+            }
+        }
+        return false;
+    }
+
+    static String rootMessage(Throwable e) {
+        Throwable t = e;
+        while (t.getCause() != null && t.getCause() != t) {
+            t = t.getCause();
+        }
+        return t.getMessage() == null ? t.getClass().getSimpleName() : t.getMessage();
+    }
+}

@@ -1,0 +1,121 @@
+package org.spectralsieve.cli;
+
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Locale;
+import java.util.concurrent.Callable;
+import org.spectralsieve.api.ShortlistJson;
+import org.spectralsieve.requirement.ClauseResult;
+import org.spectralsieve.requirement.RankedRow;
+import org.spectralsieve.requirement.Requirement;
+import org.spectralsieve.requirement.RequirementParser;
+import org.spectralsieve.requirement.RequirementSyntaxException;
+import org.spectralsieve.requirement.SampleEvaluation;
+import org.spectralsieve.requirement.ThicknessSpec;
+import org.spectralsieve.search.SearchService;
+import org.spectralsieve.search.Shortlist;
+import org.springframework.context.ConfigurableApplicationContext;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
+import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.ParameterException;
+import picocli.CommandLine.Parameters;
+import picocli.CommandLine.Spec;
+import tools.jackson.databind.json.JsonMapper;
+
+/** {@code search REQUIREMENT}: the ranked, explained shortlist, as a table or as the API's JSON. */
+@Command(name = "search", description = "Rank the library's materials against a requirement written in words,"
+        + " e.g. \"passes over 80%% at 365 nm and blocks under 1%% at 405 nm, thickness 1 to 6 mm\".")
+final class SearchCommand implements Callable<Integer> {
+
+    @Spec
+    CommandSpec spec;
+
+    @Mixin
+    DatabaseOption database;
+
+    @Parameters(index = "0", paramLabel = "REQUIREMENT", description = "The requirement, quoted as one argument.")
+    String requirementText;
+
+    @Option(names = "--limit", paramLabel = "N", defaultValue = "" + SearchService.DEFAULT_LIMIT,
+            description = "Materials in the shortlist, 1 to " + SearchService.MAX_LIMIT + " (default: ${DEFAULT-VALUE}).")
+    int limit;
+
+    @Option(names = "--json", description = "Print the same JSON as POST /api/search instead of the table.")
+    boolean json;
+
+    @Override
+    public Integer call() {
+        if (limit < 1 || limit > SearchService.MAX_LIMIT) {
+            throw new ParameterException(spec.commandLine(),
+                    "--limit must be from 1 to " + SearchService.MAX_LIMIT + ", got " + limit);
+        }
+        // parsed before the database opens: a typo costs no start-up time
+        Requirement requirement = parse(requirementText);
+        Shortlist shortlist;
+        String jsonText = null;
+        try (ConfigurableApplicationContext context = LibraryContext.start(database.url)) {
+            shortlist = context.getBean(SearchService.class).search(requirement, limit);
+            if (json) {
+                // the context's mapper, configured as the API's, so both print numbers and nulls alike
+                jsonText = context.getBean(JsonMapper.class).writerWithDefaultPrettyPrinter()
+                        .writeValueAsString(ShortlistJson.toJson(shortlist));
+            }
+        }
+        if (json) {
+            spec.commandLine().getOut().println(jsonText);
+            spec.commandLine().getOut().flush();
+        } else {
+            table(shortlist).print(spec.commandLine().getOut());
+        }
+        return SieveCli.OK;
+    }
+
+    private static Requirement parse(String text) {
+        try {
+            return RequirementParser.parse(text);
+        } catch (RequirementSyntaxException e) {
+            throw new CliFailure(SieveCli.USAGE, RequirementErrorReport.lines(text, e));
+        }
+    }
+
+    static TextTable table(Shortlist shortlist) {
+        // the feasible range only exists where thickness is a design variable
+        boolean solving = shortlist.requirement().thickness().kind() == ThicknessSpec.Kind.RANGE;
+        List<String> columns = new ArrayList<>(List.of(">rank", "material", ">sample", ">mm", "verdict", ">worst margin"));
+        if (solving) {
+            columns.add("thickness range mm");
+        }
+        columns.add("binding clause");
+        TextTable table = new TextTable(columns);
+        for (RankedRow row : shortlist.rows()) {
+            table.add(cells(row, solving), explanations(row.evaluation()));
+        }
+        return table;
+    }
+
+    private static List<String> cells(RankedRow row, boolean solving) {
+        SampleEvaluation e = row.evaluation();
+        List<String> cells = new ArrayList<>(List.of(String.valueOf(row.position()), row.materialName(),
+                String.valueOf(e.sampleId()), Numbers.mm(e.thicknessMm()), verdict(e), Numbers.decades(e.worstMarginDecades())));
+        if (solving) {
+            cells.add(e.feasibleMm() == null ? Numbers.NONE
+                    : Numbers.mm(e.feasibleMm().loMm()) + " to " + Numbers.mm(e.feasibleMm().hiMm()));
+        }
+        cells.add(e.bindingClauseIndex() < 0 ? Numbers.NONE : e.clauses().get(e.bindingClauseIndex()).clause().text());
+        return cells;
+    }
+
+    private static List<String> explanations(SampleEvaluation e) {
+        List<String> lines = new ArrayList<>();
+        for (ClauseResult c : e.clauses()) {
+            lines.add(c.verdict().name().toLowerCase(Locale.ROOT) + ": " + c.explanation());
+        }
+        return lines;
+    }
+
+    private static String verdict(SampleEvaluation e) {
+        return e.verdict().name().toLowerCase(Locale.ROOT);
+    }
+}

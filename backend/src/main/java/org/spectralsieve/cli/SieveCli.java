@@ -1,0 +1,72 @@
+package org.spectralsieve.cli;
+
+import java.io.PrintStream;
+import java.io.PrintWriter;
+import java.nio.charset.StandardCharsets;
+import java.util.Set;
+import org.spectralsieve.SpectralSieveApplication;
+import picocli.CommandLine;
+import picocli.CommandLine.Command;
+
+/** The entry of the command line: parses the arguments, runs one command, returns its exit code. */
+@Command(name = "spectral-sieve", mixinStandardHelpOptions = true, scope = CommandLine.ScopeType.INHERIT,
+        versionProvider = SieveCli.Version.class,
+        description = "Search the transmittance library by requirement, list its materials, export a curve.",
+        subcommands = {SearchCommand.class, ExportCommand.class, MaterialsCommand.class, CommandLine.HelpCommand.class},
+        exitCodeListHeading = "%nExit codes:%n",
+        exitCodeList = {
+                "0:done",
+                "1:understood but cannot be carried out (no such sample, database in use, ...)",
+                "2:the command line cannot be read (bad option, requirement that does not parse)"})
+public final class SieveCli {
+
+    public static final int OK = 0;
+    public static final int FAILED = 1;
+    public static final int USAGE = 2;
+
+    /** First arguments that mean "run the command line" rather than "start the web service". */
+    private static final Set<String> ENTRY_WORDS = Set.of("search", "export", "materials", "help",
+            "--help", "-h", "--version", "-V");
+
+    private SieveCli() {
+    }
+
+    public static boolean handles(String[] args) {
+        return args.length > 0 && ENTRY_WORDS.contains(args[0]);
+    }
+
+    /** Runs one command in this process: what it prints goes to {@code out} and {@code err}. */
+    public static int run(String[] args, PrintStream out, PrintStream err) {
+        PrintWriter outWriter = new PrintWriter(out, true, StandardCharsets.UTF_8);
+        PrintWriter errWriter = new PrintWriter(err, true, StandardCharsets.UTF_8);
+        CommandLine cli = new CommandLine(new SieveCli())
+                .setOut(outWriter)
+                .setErr(errWriter)
+                .setExecutionExceptionHandler(SieveCli::reportFailure);
+        try {
+            return cli.execute(args);
+        } finally {
+            outWriter.flush();
+            errWriter.flush();
+        }
+    }
+
+    /** A command's failure is a message for the user, not a stack trace. */
+    private static int reportFailure(Exception e, CommandLine command, CommandLine.ParseResult parsed) {
+        PrintWriter err = command.getErr();
+        if (e instanceof CliFailure failure) {
+            failure.lines().forEach(err::println);
+            return failure.exitCode();
+        }
+        err.println("spectral-sieve " + command.getCommandName() + ": failed: " + LibraryContext.rootMessage(e));
+        return FAILED;
+    }
+
+    static final class Version implements CommandLine.IVersionProvider {
+        @Override
+        public String[] getVersion() {
+            String version = SpectralSieveApplication.class.getPackage().getImplementationVersion();
+            return new String[] {"Spectral Sieve " + (version == null ? "(development build)" : version)};
+        }
+    }
+}

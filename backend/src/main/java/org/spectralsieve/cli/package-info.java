@@ -1,0 +1,10 @@
+/**
+ * The command line of the same jar: {@code search}, {@code export} and {@code materials}, each a picocli
+ * command that starts the Spring context without a web server, uses the same beans as the HTTP API and
+ * prints plain text (or the API's JSON) on stdout and diagnostics on stderr.
+ *
+ * <p>Exit codes: 0 done; 1 understood but cannot be carried out (no such sample, a layer that cannot be
+ * rescaled, the database held by another process); 2 the command line cannot be read (bad option, a
+ * requirement text that does not parse). Thicknesses are in mm, margins in decades of transmittance.
+ */
+package org.spectralsieve.cli;

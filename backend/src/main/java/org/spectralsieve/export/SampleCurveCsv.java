@@ -1,0 +1,40 @@
+package org.spectralsieve.export;
+
+import java.util.LinkedHashMap;
+import java.util.Map;
+import org.spectralsieve.importers.DelimitedTextWriter;
+import org.spectralsieve.library.SampleCurve;
+import org.spectralsieve.spectrum.Curve;
+
+/**
+ * A sample's curve in the project's own CSV, with the metadata that lets the file stand alone (which
+ * material, which thickness, whether it was rescaled, how it was measured). Written the same way for
+ * the HTTP download and the command line, so a file from either reads back through the same importer.
+ */
+public final class SampleCurveCsv {
+
+    private SampleCurveCsv() {
+    }
+
+    public static String write(SampleCurve result) {
+        Map<String, String> metadata = new LinkedHashMap<>();
+        metadata.put("material", result.material().slug());
+        metadata.put("material_name", result.material().name());
+        metadata.put("sample_id", String.valueOf(result.sample().id()));
+        metadata.put("thickness_mm", String.valueOf(result.thicknessMm()));
+        metadata.put("rescaled", String.valueOf(result.rescaled()));
+        metadata.put("geometry", result.sample().geometry().label());
+        metadata.put("provenance", result.sample().provenance().label());
+        metadata.put("detection_limit", String.valueOf(result.curve().maxDetectionLimit()));
+        if (!result.sample().notes().isBlank()) {
+            metadata.put("note", result.sample().notes());
+        }
+        Curve c = result.curve();
+        return DelimitedTextWriter.write(metadata, c.wavelengthsNm(), c.transmittances(), c.belowDetectionFlags());
+    }
+
+    /** A file name that says what is inside: material slug and thickness. */
+    public static String fileName(SampleCurve result) {
+        return result.material().slug() + "-" + result.thicknessMm() + "mm.csv";
+    }
+}

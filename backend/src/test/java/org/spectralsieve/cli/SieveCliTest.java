@@ -1,0 +1,173 @@
+package org.spectralsieve.cli;
+
+import static org.assertj.core.api.Assertions.assertThat;
+
+import java.io.ByteArrayOutputStream;
+import java.io.PrintStream;
+import java.io.StringReader;
+import java.net.URI;
+import java.net.http.HttpClient;
+import java.net.http.HttpRequest;
+import java.net.http.HttpResponse;
+import java.nio.charset.StandardCharsets;
+import java.util.ArrayList;
+import java.util.Arrays;
+import java.util.List;
+import org.junit.jupiter.api.Test;
+import org.spectralsieve.importers.DelimitedTextReader;
+import org.spectralsieve.importers.ParsedSpectrum;
+import org.springframework.boot.test.context.SpringBootTest;
+import org.springframework.boot.test.web.server.LocalServerPort;
+import org.springframework.test.context.TestPropertySource;
+import tools.jackson.databind.JsonNode;
+import tools.jackson.databind.json.JsonMapper;
+
+/**
+ * The command line run in-process against an in-memory library. The web service runs beside it on the
+ * same in-memory database (one JVM shares it), so export can be compared with the API's curve.
+ */
+@SpringBootTest(webEnvironment = SpringBootTest.WebEnvironment.RANDOM_PORT)
+@TestPropertySource(properties = "spring.datasource.url=" + SieveCliTest.DB_URL)
+class SieveCliTest {
+
+    static final String DB_URL = "jdbc:h2:mem:cli-test;DB_CLOSE_DELAY=-1";
+    private static final String FUSED_SILICA_AT_254 = "passes over 80% at 254 nm, at 3 mm";
+    private static final JsonMapper JSON = JsonMapper.builder().build();
+
+    @LocalServerPort
+    int port;
+
+    private record Run(int exitCode, String out, String err) {
+        List<String> outLines() {
+            return out.lines().toList();
+        }
+    }
+
+    private static Run cli(String... args) {
+        ByteArrayOutputStream out = new ByteArrayOutputStream();
+        ByteArrayOutputStream err = new ByteArrayOutputStream();
+        List<String> all = new ArrayList<>(Arrays.asList(args));
+        if (!all.isEmpty() && !all.get(0).equals("help")) {
+            all.add("--db-url");
+            all.add(DB_URL);
+        }
+        int code = SieveCli.run(all.toArray(String[]::new), new PrintStream(out, true, StandardCharsets.UTF_8),
+                new PrintStream(err, true, StandardCharsets.UTF_8));
+        return new Run(code, out.toString(StandardCharsets.UTF_8), err.toString(StandardCharsets.UTF_8));
+    }
+
+    @Test
+    void uvGradeFusedSilicaHeadsTheTableForPassingAt254nmAt3mm() {
+        // common practice, no source: UV-grade fused silica passes 254 nm
+        Run run = cli("search", FUSED_SILICA_AT_254, "--limit", "5");
+
+        assertThat(run.exitCode()).as(run.err()).isZero();
+        List<String> lines = run.outLines();
+        assertThat(lines.get(0)).startsWith("rank").contains("material", "sample", "verdict", "worst margin", "binding clause");
+        String[] first = lines.get(1).trim().split(" {2,}");
+        assertThat(first[0]).isEqualTo("1");
+        assertThat(first[1].toLowerCase()).contains("fused silica").contains("uv");
+        assertThat(first[4]).isEqualTo("meets");
+        assertThat(first[5]).matches("\\+\\d\\.\\d{3}");
+        // the clause's explanation sits indented under its row
+        assertThat(lines.get(2)).startsWith("      meets: ").contains("254 nm");
+    }
+
+    @Test
+    void misspeltRequirementExitsTwoWithTheSuggestionAndACaretOnStderr() {
+        Run run = cli("search", "passes ovr 80% at 365 nm");
+
+        assertThat(run.exitCode()).isEqualTo(SieveCli.USAGE);
+        assertThat(run.out()).isEmpty();
+        List<String> err = run.err().lines().toList();
+        assertThat(err.get(0)).contains("position 7").contains("did you mean 'over'");
+        assertThat(err.get(1)).isEqualTo("  passes ovr 80% at 365 nm");
+        assertThat(err.get(2)).isEqualTo("  " + " ".repeat(7) + "^");
+    }
+
+    @Test
+    void unknownOptionExitsTwoWithPicocliMessage() {
+        Run run = cli("search", FUSED_SILICA_AT_254, "--limti", "3");
+
+        assertThat(run.exitCode()).isEqualTo(SieveCli.USAGE);
+        assertThat(run.err()).contains("--limti").contains("--limit");
+    }
+
+    @Test
+    void limitOutsideItsRangeExitsTwoNamingTheOption() {
+        Run run = cli("search", FUSED_SILICA_AT_254, "--limit", "0");
+
+        assertThat(run.exitCode()).isEqualTo(SieveCli.USAGE);
+        assertThat(run.err()).contains("--limit must be from 1 to 500, got 0");
+    }
+
+    @Test
+    void jsonOutputParsesWithAResultsArrayLikeTheApi() {
+        Run run = cli("search", FUSED_SILICA_AT_254, "--limit", "3", "--json");
+
+        assertThat(run.exitCode()).as(run.err()).isZero();
+        JsonNode json = JSON.readTree(run.out());
+        assertThat(json.path("results").isArray()).isTrue();
+        assertThat(json.path("results").size()).isBetween(1, 3);
+        assertThat(json.path("results").get(0).path("verdict").asString()).isEqualTo("meets");
+        assertThat(json.path("requirement").path("thickness").path("kind").asString()).isEqualTo("fixed");
+    }
+
+    @Test
+    void exportedCsvReadsBackWithAsManyPointsAsTheApiCurve() throws Exception {
+        long sampleId = JSON.readTree(cli("search", FUSED_SILICA_AT_254, "--limit", "1", "--json").out())
+                .path("results").get(0).path("sampleId").asLong();
+
+        Run run = cli("export", "--sample", String.valueOf(sampleId), "--thickness-mm", "5");
+
+        assertThat(run.exitCode()).as(run.err()).isZero();
+        ParsedSpectrum parsed = new DelimitedTextReader().read("export.csv", new StringReader(run.out()));
+        JsonNode apiCurve = get("/api/samples/" + sampleId + "/curve?thicknessMm=5");
+        assertThat(parsed.wavelengthsNm()).hasSize(apiCurve.path("wavelengthsNm").size());
+        assertThat(parsed.metadata()).containsEntry("sample_id", String.valueOf(sampleId)).containsEntry("rescaled", "true");
+    }
+
+    @Test
+    void exportOfAnUnknownSampleExitsOneNamingIt() {
+        Run run = cli("export", "--sample", "987654");
+
+        assertThat(run.exitCode()).isEqualTo(SieveCli.FAILED);
+        assertThat(run.err()).contains("987654");
+        assertThat(run.out()).isEmpty();
+    }
+
+    @Test
+    void materialsListsTheWholeDemoLibrary() {
+        Run run = cli("materials");
+
+        assertThat(run.exitCode()).as(run.err()).isZero();
+        List<String> lines = run.outLines();
+        assertThat(lines.get(0)).startsWith("id").contains("name", "class", "thicknesses mm");
+        assertThat(lines.size() - 1).isGreaterThanOrEqualTo(40);
+    }
+
+    @Test
+    void materialsFilteredByClassShowOnlyThatClass() {
+        Run run = cli("materials", "--class", "plastic sheet");
+
+        assertThat(run.exitCode()).as(run.err()).isZero();
+        List<String> rows = run.outLines().subList(1, run.outLines().size());
+        assertThat(rows).isNotEmpty().allSatisfy(row -> assertThat(row).contains("  plastic sheet  "));
+    }
+
+    @Test
+    void entryWordsDecideBetweenCommandLineAndWebService() {
+        assertThat(SieveCli.handles(new String[] {"search", "x"})).isTrue();
+        assertThat(SieveCli.handles(new String[] {"--help"})).isTrue();
+        assertThat(SieveCli.handles(new String[] {"--spring.profiles.active=postgres"})).isFalse();
+        assertThat(SieveCli.handles(new String[0])).isFalse();
+    }
+
+    private JsonNode get(String path) throws Exception {
+        HttpResponse<String> response = HttpClient.newHttpClient().send(
+                HttpRequest.newBuilder(URI.create("http://localhost:" + port + path)).GET().build(),
+                HttpResponse.BodyHandlers.ofString());
+        assertThat(response.statusCode()).as(response.body()).isEqualTo(200);
+        return JSON.readTree(response.body());
+    }
+}

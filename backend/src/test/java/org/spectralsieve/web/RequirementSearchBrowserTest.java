@@ -1,0 +1,195 @@
+package org.spectralsieve.web;
+
+import static org.assertj.core.api.Assertions.assertThat;
+import static org.junit.jupiter.api.Assumptions.assumeTrue;
+
+import java.io.IOException;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.time.Duration;
+import java.util.List;
+import java.util.Map;
+import java.util.UUID;
+import org.junit.jupiter.api.AfterAll;
+import org.junit.jupiter.api.BeforeAll;
+import org.junit.jupiter.api.Test;
+import org.openqa.selenium.By;
+import org.openqa.selenium.JavascriptExecutor;
+import org.openqa.selenium.Keys;
+import org.openqa.selenium.OutputType;
+import org.openqa.selenium.StaleElementReferenceException;
+import org.openqa.selenium.TakesScreenshot;
+import org.openqa.selenium.WebDriver;
+import org.openqa.selenium.WebElement;
+import org.openqa.selenium.chrome.ChromeDriver;
+import org.openqa.selenium.chrome.ChromeDriverService;
+import org.openqa.selenium.chrome.ChromeOptions;
+import org.openqa.selenium.support.ui.WebDriverWait;
+import org.springframework.boot.test.context.SpringBootTest;
+import org.springframework.boot.test.web.server.LocalServerPort;
+import org.springframework.test.context.TestPropertySource;
+
+/**
+ * The requirement search on the page, in a real headless Chromium against the whole application with
+ * its demo library: the clauses are shown as the server read them while typing, a search ranks the
+ * library, a misspelt word is located and fixed by one click. One browser session for all checks keeps
+ * the run short. Skipped (not failed) on machines without Chromium and its driver.
+ */
+@SpringBootTest(webEnvironment = SpringBootTest.WebEnvironment.RANDOM_PORT)
+@TestPropertySource(properties = "spring.datasource.url=jdbc:h2:mem:browser-search;DB_CLOSE_DELAY=-1")
+class RequirementSearchBrowserTest {
+
+    // Debian's packages put them here; -Dbrowser.chromium / -Dbrowser.chromedriver point elsewhere.
+    private static final Path CHROMIUM = Path.of(System.getProperty("browser.chromium", "/usr/bin/chromium"));
+    private static final Path CHROMEDRIVER =
+            Path.of(System.getProperty("browser.chromedriver", "/usr/bin/chromedriver"));
+    // Relative to the module directory surefire runs in, so the profile and screenshots stay under target/.
+    private static final Path OUTPUT = Path.of("target", "browser-test");
+    private static final Duration PATIENCE = Duration.ofSeconds(30);
+
+    private static WebDriver driver;
+    private static WebDriverWait wait;
+
+    @LocalServerPort
+    private int port;
+
+    @BeforeAll
+    static void startBrowser() throws IOException {
+        // Checked before the browser starts, so a machine without one pays nothing.
+        assumeTrue(Files.isExecutable(CHROMIUM),
+                "Browser test skipped: no Chromium at " + CHROMIUM + " (apt-get install chromium chromium-driver,"
+                        + " or set -Dbrowser.chromium)");
+        assumeTrue(Files.isExecutable(CHROMEDRIVER),
+                "Browser test skipped: no chromedriver at " + CHROMEDRIVER + " (apt-get install chromium-driver,"
+                        + " or set -Dbrowser.chromedriver)");
+        Path profile = Files.createDirectories(OUTPUT.resolve("profile-" + UUID.randomUUID())).toAbsolutePath();
+        // Naming the driver executable skips Selenium Manager (no download, no network).
+        ChromeDriverService service = new ChromeDriverService.Builder()
+                .usingDriverExecutable(CHROMEDRIVER.toFile())
+                .usingAnyFreePort()
+                // Chromium writes a dconf cache under $HOME even with its own profile; keep it in target/.
+                .withEnvironment(Map.of(
+                        "XDG_CACHE_HOME", profile.resolve("cache").toString(),
+                        "XDG_CONFIG_HOME", profile.resolve("config").toString()))
+                .build();
+        ChromeOptions options = new ChromeOptions();
+        options.setBinary(CHROMIUM.toFile());
+        options.addArguments("--headless", "--no-sandbox", "--disable-gpu", "--disable-dev-shm-usage",
+                "--window-size=1400,1300", "--user-data-dir=" + profile);
+        driver = new ChromeDriver(service, options);
+        wait = new WebDriverWait(driver, PATIENCE);
+        // The page replaces rows and lists as answers arrive; a stale element means "look again".
+        wait.ignoring(StaleElementReferenceException.class);
+    }
+
+    @AfterAll
+    static void stopBrowser() {
+        if (driver != null) {
+            driver.quit();
+        }
+    }
+
+    @Test
+    void searchShowsUnderstoodClausesRanksFusedSilicaFirstAtTwoFiftyFourAndFixesAMisspeltWordByOneClick()
+            throws IOException {
+        driver.get("http://localhost:" + port + "/");
+        WebElement text = driver.findElement(By.id("requirement-text"));
+        assertThat(driver.findElements(By.cssSelector("#requirement-examples button.chip")))
+                .as("example requirements offered").isNotEmpty();
+
+        // While typing, the server's reading appears: one transmittance clause and the thickness setting.
+        text.sendKeys("passes over 80% at 254 nm, at 3 mm");
+        List<String> clauses = waitForClauses(2);
+        assertThat(clauses).containsExactly("T ≥ 80 % at 254 nm", "thickness: 3 mm (bulk curves rescaled)");
+
+        // Enter searches. A UV-grade fused silica passes 254 nm at 3 mm (common practice, no source).
+        text.sendKeys(Keys.ENTER);
+        WebElement first = waitForResultsFor("passes over 80% at 254 nm, at 3 mm");
+        List<WebElement> cells = first.findElements(By.tagName("td"));
+        assertThat(cells.get(1).getText()).containsIgnoringCase("UV-grade").containsIgnoringCase("fused silica");
+        assertThat(first.getDomAttribute("data-verdict")).isEqualTo("meets");
+        assertThat(cells.get(2).getText()).contains("meets");
+        assertThat(cells.get(3).getText()).isEqualTo("3 mm");
+        assertThat(cells.get(4).getText()).as("worst margin written with its sign").startsWith("+");
+        assertThat(driver.findElement(By.id("search-summary")).getText()).matches("Evaluated \\d+ samples in .* ms.*");
+        assertThat(driver.findElement(By.id("search-caution")).isDisplayed())
+                .as("no caution for a requirement that only passes light").isFalse();
+
+        // A row opens to every clause's value, margin, verdict and explanation.
+        first.findElement(By.cssSelector("button.toggle")).click();
+        WebElement explained = driver.findElement(By.cssSelector("#results-table tr.result-clauses"));
+        wait.until(d -> explained.isDisplayed());
+        assertThat(explained.getText()).contains("T at 254 nm is").contains("%");
+        screenshot("search-1-fused-silica");
+
+        // Opening a result shows the existing material detail, the rescale box set to the thickness searched.
+        String silica = cells.get(1).getText();
+        first.findElement(By.cssSelector("button.material-link")).click();
+        wait.until(d -> silica.equals(d.findElement(By.id("detail-name")).getText()));
+        wait.until(d -> "3".equals(d.findElement(By.id("rescale-mm")).getDomProperty("value")));
+        wait.withMessage("waiting for the curve rescaled to the searched thickness");
+        wait.until(d -> d.findElements(By.cssSelector("#curve-chart .u-legend .u-label")).stream()
+                .anyMatch(label -> label.getDomProperty("textContent").startsWith("rescaled to 3 mm")));
+
+        // A misspelt word: the server's detail is shown, the word is marked and its fix offered.
+        text.sendKeys(Keys.chord(Keys.CONTROL, "a"), Keys.DELETE);
+        text.sendKeys("blocks undr 1% at 405 nm");
+        WebElement error = driver.findElement(By.id("requirement-error"));
+        wait.withMessage("waiting for the parse error to be shown");
+        wait.until(d -> error.isDisplayed());
+        assertThat(error.getText()).contains("undr");
+        assertThat(error.findElement(By.cssSelector(".marked-text mark")).getText()).isEqualTo("undr");
+        WebElement fix = error.findElement(By.cssSelector("button.suggestion"));
+        assertThat(fix.getText()).isEqualTo("under");
+        screenshot("search-2-misspelt");
+
+        fix.click();
+        assertThat(text.getDomProperty("value")).isEqualTo("blocks under 1% at 405 nm");
+        waitForResultsFor("blocks under 1% at 405 nm");
+        assertThat(error.isDisplayed()).as("error cleared once the text reads").isFalse();
+        assertThat(waitForClauses(2)).containsExactly("T ≤ 1 % at 405 nm", "thickness: as measured");
+        assertThat(driver.findElement(By.id("search-caution")).getText())
+                .contains("Screening estimate from stored curves, not a certification");
+        screenshot("search-3-fixed-and-blocking");
+
+        // An example written in optical density: its clause values are shown as OD, as it was written.
+        String odExample = "blocks to OD 3 or more from 350 to 420 nm";
+        driver.findElement(By.cssSelector("#requirement-examples button[data-example='" + odExample + "']")).click();
+        WebElement odFirst = waitForResultsFor(odExample);
+        assertThat(waitForClauses(2).get(0)).isEqualTo("OD ≥ 3 (T ≤ 0.1 %) over 350–420 nm");
+        odFirst.findElement(By.cssSelector("button.toggle")).click();
+        WebElement odClause = driver.findElement(By.cssSelector("#results-table tr.result-clauses:not([hidden]) tbody td.num"));
+        assertThat(odClause.getText()).startsWith("OD ");
+        screenshot("search-4-optical-density");
+
+        WebElement message = driver.findElement(By.id("message"));
+        assertThat(message.isDisplayed()).as("error area stays hidden, but shows: %s", message.getText()).isFalse();
+    }
+
+    private List<String> waitForClauses(int count) {
+        wait.withMessage(() -> "waiting for " + count + " understood clauses; now: " + clauseTexts()
+                + "; error: " + driver.findElement(By.id("requirement-error")).getText());
+        wait.until(d -> clauseTexts().size() == count);
+        return clauseTexts();
+    }
+
+    private List<String> clauseTexts() {
+        return driver.findElements(By.cssSelector("#requirement-clauses li")).stream().map(WebElement::getText).toList();
+    }
+
+    /** The first result row, once the table shows the answer to this requirement. */
+    private WebElement waitForResultsFor(String requirement) {
+        wait.withMessage(() -> "waiting for results of '" + requirement + "'; summary: "
+                + driver.findElement(By.id("search-summary")).getText()
+                + "; message: " + driver.findElement(By.id("message")).getText());
+        wait.until(d -> requirement.equals(d.findElement(By.id("results-table")).getDomAttribute("data-requirement"))
+                && !d.findElements(By.cssSelector("#results-table tr[data-result-material-id]")).isEmpty());
+        return driver.findElement(By.cssSelector("#results-table tr[data-result-material-id]"));
+    }
+
+    private void screenshot(String name) throws IOException {
+        ((JavascriptExecutor) driver).executeScript("window.scrollTo(0, 0)");
+        byte[] png = ((TakesScreenshot) driver).getScreenshotAs(OutputType.BYTES);
+        Files.write(Files.createDirectories(OUTPUT).resolve(name + ".png"), png);
+    }
+}

@@ -1,0 +1,111 @@
+package org.spectralsieve.importers;
+
+import static org.assertj.core.api.Assertions.assertThat;
+import static org.assertj.core.api.Assertions.fail;
+
+import java.io.StringReader;
+import java.util.ArrayList;
+import java.util.Arrays;
+import java.util.List;
+import java.util.Random;
+import org.junit.jupiter.api.Test;
+
+/** 5,000 mutations of valid illustrative files: the reader returns a spectrum or an ImportException, nothing else. */
+class FuzzedInputTest {
+
+    private static final String[] VALID = {
+        "# Spectral Sieve curve v1\n# thickness_mm: 3\nwavelength_nm,transmittance\n300,<0.001\n310,0.2\n320,0.5\n",
+        "Wavelength (nm);Transmittance(%);Std.Dev.\n190;0,01;0,002\n191;12,5;0,1\n192;50,25;0,2\n",
+        "# film offcut\nw.length.1 transmittance.1  w.length.2 transmittance.2\n190\t4.8\t190\t5.3\n191\t5.2\t191\t5.2\n",
+        "Operator: invented\nwavenumber (cm-1),A\n20000,0.5\n25000,1.5\n30000,2.5\n",
+        "365.5   12.3\n405\t80\n450  90\n",
+    };
+    private static final String[] HUGE = {"1e308", "-1e308", "1e999", "NaN", "Infinity", "-0", "4.9e-324", "", "<", "\"", ",", ";"};
+    private static final ReadOptions[] OPTIONS = {ReadOptions.defaults(),
+        ReadOptions.defaults().replicates(Replicates.MEAN).mergeDuplicates(true),
+        ReadOptions.defaults().decimalMark(DecimalMark.COMMA).replicates(Replicates.SEPARATE)};
+
+    @Test
+    void fiveThousandMutationsYieldASpectrumOrAnImportException() {
+        Random random = new Random(424242L);
+        DelimitedTextReader reader = new DelimitedTextReader();
+        int parsed = 0;
+        int refused = 0;
+        for (int k = 0; k < 5_000; k++) {
+            String text = mutate(VALID[random.nextInt(VALID.length)], random);
+            try {
+                List<ParsedSpectrum> all = reader.readAll("fuzz.csv", new StringReader(text), OPTIONS[k % OPTIONS.length]);
+                assertThat(all).isNotEmpty();
+                parsed++;
+            } catch (ImportException e) {
+                assertThat(e.getMessage()).startsWith("fuzz.csv");
+                refused++;
+            } catch (RuntimeException e) {
+                fail("mutation " + k + " threw " + e + " for input:\n" + text, e);
+            }
+        }
+        assertThat(parsed).isPositive();
+        assertThat(refused).isPositive();
+    }
+
+    private static String mutate(String valid, Random random) {
+        String text = valid;
+        int steps = 1 + random.nextInt(3);
+        for (int s = 0; s < steps; s++) {
+            text = switch (random.nextInt(6)) {
+                case 0 -> text.substring(0, random.nextInt(text.length() + 1)); // truncation
+                case 1 -> flipByte(text, random);
+                case 2 -> swapLines(text, random);
+                case 3 -> replaceToken(text, random);
+                case 4 -> "";
+                default -> duplicateLine(text, random);
+            };
+            if (text.isEmpty()) {
+                break;
+            }
+        }
+        return text;
+    }
+
+    private static String flipByte(String text, Random random) {
+        if (text.isEmpty()) {
+            return text;
+        }
+        char[] c = text.toCharArray();
+        int i = random.nextInt(c.length);
+        c[i] = (char) (c[i] ^ (1 << random.nextInt(7)));
+        return new String(c);
+    }
+
+    private static String swapLines(String text, Random random) {
+        List<String> lines = new ArrayList<>(Arrays.asList(text.split("\n", -1)));
+        if (lines.size() > 1) {
+            int a = random.nextInt(lines.size());
+            int b = random.nextInt(lines.size());
+            String t = lines.get(a);
+            lines.set(a, lines.get(b));
+            lines.set(b, t);
+        }
+        return String.join("\n", lines);
+    }
+
+    private static String duplicateLine(String text, Random random) {
+        List<String> lines = new ArrayList<>(Arrays.asList(text.split("\n", -1)));
+        int a = random.nextInt(lines.size());
+        lines.add(a, lines.get(a));
+        return String.join("\n", lines);
+    }
+
+    /** Replaces a run of digits with a huge number, NaN, an empty field or a stray delimiter. */
+    private static String replaceToken(String text, Random random) {
+        int start = random.nextInt(text.length() + 1);
+        while (start < text.length() && !Character.isDigit(text.charAt(start))) {
+            start++;
+        }
+        int end = start;
+        while (end < text.length() && (Character.isDigit(text.charAt(end)) || text.charAt(end) == '.')) {
+            end++;
+        }
+        return text.substring(0, start) + HUGE[random.nextInt(HUGE.length)] + text.substring(end);
+    }
+}

@@ -1,0 +1,383 @@
+// Requirement search: the user writes what a part must do in plain words; the server reads it
+// (shown back clause by clause while typing), ranks the library against it and explains each verdict.
+// The page only formats; every number and every verdict comes from the API.
+import * as api from './api.js';
+import * as fmt from './format.js';
+
+const PARSE_DELAY_MS = 300;
+
+// Presets as users word them (the trade's own requirements, PRACTICE.md §5), each checked against the
+// parser. The title says what the requirement is for.
+const EXAMPLES = [
+  { text: 'passes over 80% at 365 nm and blocks under 1% at 405 nm, thickness 1 to 6 mm',
+    use: 'keeps a 365 nm exposure free of violet; thickness left for the search to choose' },
+  { text: 'passes over 85% from 380 to 410 nm', use: 'window for a 395 nm LED curing head' },
+  { text: 'passes over 80% at 254 nm', use: 'germicidal lamp window or sleeve' },
+  { text: 'passes over 85% from 350 to 420 nm', use: 'exposure-unit glass for screen printing' },
+  { text: 'blocks to OD 3 or more from 350 to 420 nm', use: 'printed black of a film positive' },
+  { text: 'blocks under 1% from 300 to 500 nm and passes over 20% at 600 nm',
+    use: 'see-through lid for a 405 nm resin printer' },
+  { text: 'blocks under 0.1% from 380 to 420 nm', use: 'viewing window on a 385–405 nm LED curing box' },
+  { text: 'blocks under 1% at 405 nm and passes over 30% at 550 nm',
+    use: 'eyewear for work next to 405 nm printers' },
+];
+
+const VERDICTS = {
+  meets: { symbol: '✓', word: 'meets' },
+  unverified: { symbol: '?', word: 'unverified' },
+  misses: { symbol: '✗', word: 'misses' },
+};
+
+const el = (id) => document.getElementById(id);
+
+/**
+ * Wires the search area. `ui.showProblem(problem, context)` / `ui.clearMessage()` are the page's message
+ * area; `ui.openMaterial(id, { sampleId, thicknessMm })` opens the material detail.
+ */
+export function initSearch(ui) {
+  const dom = {
+    form: el('search-form'),
+    text: el('requirement-text'),
+    limit: el('search-limit'),
+    button: el('search-button'),
+    examples: el('requirement-examples'),
+    clauses: el('requirement-clauses'),
+    error: el('requirement-error'),
+    results: el('search-results'),
+    caution: el('search-caution'),
+    summary: el('search-summary'),
+    table: el('results-table'),
+    rows: el('results-table').tBodies[0],
+  };
+  const state = { parseRequest: 0, searchRequest: 0, parseTimer: 0, messageIsOurs: false };
+
+  // ---------- parsing while typing ----------
+
+  function scheduleParse() {
+    markStale();
+    clearTimeout(state.parseTimer);
+    state.parseTimer = setTimeout(parseNow, PARSE_DELAY_MS);
+  }
+
+  async function parseNow() {
+    clearTimeout(state.parseTimer);
+    const text = dom.text.value;
+    const request = ++state.parseRequest;
+    if (!text.trim()) {
+      renderClauses(null);
+      hideError();
+      return;
+    }
+    try {
+      const requirement = await api.parseRequirement(text);
+      if (request !== state.parseRequest) return;
+      renderClauses(requirement);
+      hideError();
+    } catch (problem) {
+      if (request !== state.parseRequest) return;
+      if (problem.status === 400) {
+        renderClauses(null);
+        showError(problem, text);
+      } else {
+        ui.showProblem(problem, 'Reading the requirement');
+      }
+    }
+  }
+
+  function renderClauses(requirement) {
+    if (!requirement) {
+      dom.clauses.replaceChildren();
+      dom.clauses.dataset.state = 'empty';
+      return;
+    }
+    const items = [...requirement.clauses.map(fmt.clauseSummary), fmt.thicknessSummary(requirement.thickness)];
+    if (requirement.materialClass) items.push(`class: ${requirement.materialClass}`);
+    if (requirement.geometry) items.push(`geometry: ${requirement.geometry}`);
+    dom.clauses.replaceChildren(...items.map((text, i) => {
+      const li = document.createElement('li');
+      li.textContent = text;
+      if (i < requirement.clauses.length) li.title = requirement.clauses[i].text;
+      else li.className = 'setting';
+      return li;
+    }));
+    dom.clauses.dataset.state = 'understood';
+  }
+
+  // Results shown for an earlier text stay readable but dimmed, so nobody takes them for the new one.
+  function markStale() {
+    const shown = dom.table.dataset.requirement;
+    dom.results.classList.toggle('stale', shown !== undefined && shown !== dom.text.value);
+  }
+
+  // ---------- a requirement the server could not read ----------
+
+  function hideError() {
+    dom.error.hidden = true;
+    dom.error.replaceChildren();
+    dom.text.removeAttribute('aria-invalid');
+  }
+
+  function showError(problem, text) {
+    const position = Number.isInteger(problem.properties.position) ? problem.properties.position : null;
+    const suggestion = typeof problem.properties.suggestion === 'string' ? problem.properties.suggestion : null;
+    const detail = document.createElement('p');
+    detail.className = 'error-detail';
+    detail.textContent = problem.detail || problem.title;
+    const parts = [detail];
+    if (position !== null) parts.push(markedText(text, position));
+    if (suggestion && position !== null) {
+      const fix = document.createElement('p');
+      fix.className = 'fix';
+      fix.append('Did you mean ');
+      const button = document.createElement('button');
+      button.type = 'button';
+      button.className = 'suggestion';
+      button.dataset.suggestion = suggestion;
+      button.textContent = suggestion;
+      button.title = `replace “${wordAt(text, position)}” with “${suggestion}” and search`;
+      button.addEventListener('click', () => applySuggestion(position, suggestion));
+      fix.append(button, '?');
+      parts.push(fix);
+    }
+    dom.error.replaceChildren(...parts);
+    dom.error.hidden = false;
+    dom.text.setAttribute('aria-invalid', 'true');
+  }
+
+  // The text again, in the input's font, with the character at `position` marked (an empty mark after
+  // the end when the server wanted more text), so the user sees where reading stopped.
+  function markedText(text, position) {
+    const line = document.createElement('p');
+    line.className = 'marked-text';
+    line.setAttribute('aria-label', `problem at character ${position + 1}`);
+    const at = Math.min(position, text.length);
+    const length = Math.max(1, wordAt(text, at).length);
+    const mark = document.createElement('mark');
+    mark.textContent = at < text.length ? text.slice(at, at + length) : '\u00a0';
+    line.append(text.slice(0, at), mark, text.slice(at + length));
+    return line;
+  }
+
+  function applySuggestion(position, suggestion) {
+    const text = dom.text.value;
+    const word = wordAt(text, position);
+    dom.text.value = text.slice(0, position) + suggestion + text.slice(position + word.length);
+    const caret = position + suggestion.length;
+    dom.text.focus();
+    dom.text.setSelectionRange(caret, caret);
+    hideError();
+    runSearch();
+  }
+
+  // ---------- searching ----------
+
+  async function runSearch() {
+    clearTimeout(state.parseTimer);
+    const text = dom.text.value;
+    if (!text.trim()) {
+      dom.text.focus();
+      parseNow();
+      return;
+    }
+    const limit = Number(dom.limit.value || 20);
+    if (!Number.isInteger(limit) || limit < 1 || limit > 500) {
+      showOurProblem({ title: 'Invalid limit', detail: `“${dom.limit.value}” is not a whole number from 1 to 500.` },
+        'Searching');
+      return;
+    }
+    const request = ++state.searchRequest;
+    ++state.parseRequest; // a parse still on its way would only repeat what the search answer says
+    dom.button.disabled = true;
+    dom.summary.textContent = 'Searching…';
+    try {
+      const answer = await api.search(text, limit);
+      if (request !== state.searchRequest) return;
+      if (state.messageIsOurs) {
+        ui.clearMessage();
+        state.messageIsOurs = false;
+      }
+      hideError();
+      renderClauses(answer.requirement);
+      renderResults(answer);
+    } catch (problem) {
+      if (request !== state.searchRequest) return;
+      dom.summary.textContent = 'The search did not run.';
+      if (problem.status === 400 && Number.isInteger(problem.properties.position)) showError(problem, text);
+      showOurProblem(problem, 'Searching');
+    } finally {
+      if (request === state.searchRequest) dom.button.disabled = false;
+    }
+  }
+
+  function showOurProblem(problem, context) {
+    ui.showProblem(problem, context);
+    state.messageIsOurs = true;
+  }
+
+  function renderResults(answer) {
+    const requirement = answer.requirement;
+    dom.results.hidden = false;
+    dom.caution.hidden = !blocksLight(requirement);
+    dom.table.dataset.requirement = requirement.text;
+    const n = answer.results.length;
+    dom.summary.textContent = `Evaluated ${answer.evaluatedSamples} samples in ${fmt.number(answer.tookMs, 1)} ms`
+      + ` · ${n === 1 ? '1 result' : `${n} results`} for “${requirement.text}”`;
+    const rows = answer.results.flatMap((result) => resultRows(result, requirement));
+    if (!rows.length) {
+      const tr = document.createElement('tr');
+      const td = document.createElement('td');
+      td.colSpan = 7;
+      td.className = 'empty';
+      td.textContent = 'No sample in the library can be judged against this requirement.';
+      tr.append(td);
+      rows.push(tr);
+    }
+    dom.rows.replaceChildren(...rows);
+    markStale();
+  }
+
+  function resultRows(result, requirement) {
+    const tr = document.createElement('tr');
+    tr.dataset.resultMaterialId = result.materialId;
+    tr.dataset.sampleId = result.sampleId;
+    tr.dataset.verdict = result.verdict;
+
+    const open = document.createElement('button');
+    open.type = 'button';
+    open.className = 'link material-link';
+    open.textContent = result.materialName;
+    const recommended = requirement.thickness.kind !== 'asMeasured' && Number.isFinite(result.thicknessMm);
+    open.title = recommended
+      ? `open this material, with the rescale box set to ${fmt.number(result.thicknessMm)} mm`
+      : 'open this material';
+    open.addEventListener('click', () => ui.openMaterial(result.materialId, {
+      sampleId: result.sampleId,
+      thicknessMm: recommended ? result.thicknessMm : null,
+    }));
+    const material = document.createElement('td');
+    material.className = 'name';
+    material.append(open);
+
+    const toggle = document.createElement('button');
+    toggle.type = 'button';
+    toggle.className = 'quiet toggle';
+    toggle.setAttribute('aria-expanded', 'false');
+    toggle.textContent = 'Details';
+    const details = clauseRow(result, requirement);
+    toggle.addEventListener('click', () => {
+      const show = details.hidden;
+      details.hidden = !show;
+      toggle.setAttribute('aria-expanded', String(show));
+    });
+    const toggleCell = document.createElement('td');
+    toggleCell.append(toggle);
+
+    tr.append(
+      cell(String(result.rank), 'num'),
+      material,
+      verdictCell(result.verdict),
+      cell(thicknessText(result)),
+      cell(fmt.signedDecades(result.worstMarginDecades), 'num margin'),
+      cell(result.bindingClause || '—', result.bindingClause ? 'binding' : 'muted'),
+      toggleCell,
+    );
+    return [tr, details];
+  }
+
+  function clauseRow(result, requirement) {
+    const tr = document.createElement('tr');
+    tr.className = 'result-clauses';
+    tr.hidden = true;
+    const td = document.createElement('td');
+    td.colSpan = 7;
+    const table = document.createElement('table');
+    table.className = 'data-table clause-table';
+    const head = document.createElement('thead');
+    head.innerHTML = '<tr><th scope="col">Clause</th><th scope="col" class="num">Value</th>'
+      + '<th scope="col" class="num">Margin (decades)</th><th scope="col">Verdict</th>'
+      + '<th scope="col">Explanation</th></tr>';
+    const body = document.createElement('tbody');
+    result.clauses.forEach((c, i) => {
+      const row = document.createElement('tr');
+      row.append(
+        cell(c.text),
+        cell(fmt.clauseValue(c, requirement.clauses[i]), c.valueIsBound ? 'num bound' : 'num',
+          c.valueIsBound ? 'at the detection limit: a bound, not a measurement' : ''),
+        cell(fmt.signedDecades(c.marginDecades), 'num margin'),
+        verdictCell(c.verdict),
+        cell(c.explanation, 'explanation'),
+      );
+      body.append(row);
+    });
+    table.append(head, body);
+    td.append(table);
+    tr.append(td);
+    return tr;
+  }
+
+  // ---------- wiring ----------
+
+  dom.examples.replaceChildren(...EXAMPLES.map((example) => {
+    const li = document.createElement('li');
+    const chip = document.createElement('button');
+    chip.type = 'button';
+    chip.className = 'chip';
+    chip.textContent = example.text;
+    chip.title = `Example: ${example.use}`;
+    chip.dataset.example = example.text;
+    chip.addEventListener('click', () => {
+      dom.text.value = example.text;
+      hideError();
+      runSearch();
+    });
+    li.append(chip);
+    return li;
+  }));
+  dom.text.addEventListener('input', scheduleParse);
+  dom.form.addEventListener('submit', (event) => {
+    event.preventDefault();
+    runSearch();
+  });
+  renderClauses(null);
+}
+
+/** Whether any clause asks for light to be kept out: then a safety caution belongs next to the results. */
+function blocksLight(requirement) {
+  return requirement.clauses.some((c) => c.direction === 'block' || c.unit === 'opticalDensity');
+}
+
+function thicknessText(result) {
+  const t = Number.isFinite(result.thicknessMm) ? `${fmt.number(result.thicknessMm)} mm` : '—';
+  const range = result.thicknessRangeMm;
+  if (!Array.isArray(range) || range.length !== 2) return t;
+  return `${t} (feasible ${fmt.number(range[0])}–${fmt.number(range[1])} mm)`;
+}
+
+function verdictCell(verdict) {
+  const known = VERDICTS[verdict] || { symbol: '•', word: verdict };
+  const td = document.createElement('td');
+  const badge = document.createElement('span');
+  badge.className = `verdict verdict-${verdict}`;
+  badge.dataset.verdict = verdict;
+  const symbol = document.createElement('span');
+  symbol.className = 'verdict-symbol';
+  symbol.setAttribute('aria-hidden', 'true');
+  symbol.textContent = known.symbol;
+  badge.append(symbol, known.word);
+  td.append(badge);
+  return td;
+}
+
+function cell(text, className, title) {
+  const td = document.createElement('td');
+  td.textContent = text;
+  if (className) td.className = className;
+  if (title) td.title = title;
+  return td;
+}
+
+/** The word (letters, digits, "%" or ".") starting at `position`, or the one character there. */
+function wordAt(text, position) {
+  const match = /^[\p{L}\p{N}%.]+/u.exec(text.slice(position));
+  return match ? match[0].replace(/\.$/, '') : text.slice(position, position + 1);
+}
