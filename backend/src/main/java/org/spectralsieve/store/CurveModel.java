@@ -10,7 +10,7 @@ import org.spectralsieve.requirement.Verdict;
  * must be blocked — because OD grows linearly with thickness (Beer–Lambert) on top of a fixed surface loss.
  * Means of T are not lines; with a mean in the requirement the optimum is found by bisection instead.
  *
- * <p>With {@code pointsOnly} only the first probe of each clause is read (both edges of a cutoff window)
+ * <p>With {@code pointsOnly} only the ends of each band are read (both edges of a cutoff window)
  * and means are skipped: fewer conditions can only raise the worst margin, so the result bounds the full one.
  */
 final class CurveModel {
@@ -54,9 +54,18 @@ final class CurveModel {
             switch (clause.kind()) {
                 case EVERY_POINT_PASS, EVERY_POINT_BLOCK -> {
                     boolean isPass = clause.kind() == CompiledClause.Kind.EVERY_POINT_PASS;
-                    int probes = pointsOnly ? 1 : clause.probes().size();
-                    for (int p = 0; p < probes; p++) {
-                        addPoint(store, curve, clause.probes().get(p), loss[p], clause.thresholdOd(), isPass);
+                    List<Probe> probes = clause.probes();
+                    if (pointsOnly) {
+                        // a band's two ends: where edges and bands usually decide it, at the cost of two columns
+                        int last = probes.size() - 1;
+                        addPoint(store, curve, probes.get(0), loss[0], clause.thresholdOd(), isPass);
+                        if (last > 0) {
+                            addPoint(store, curve, probes.get(last), loss[last], clause.thresholdOd(), isPass);
+                        }
+                    } else {
+                        for (int p = 0; p < probes.size(); p++) {
+                            addPoint(store, curve, probes.get(p), loss[p], clause.thresholdOd(), isPass);
+                        }
                     }
                 }
                 case CUTOFF -> {
