@@ -106,7 +106,7 @@ final class AsdfDecoder {
         char ch = c[p];
         boolean negative = ch >= 'j' && ch <= 'r';
         int digit = ch == '%' ? 0 : negative ? ch - 'j' + 1 : ch - 'J' + 1;
-        scan(c, p + 1, end, negative, digit, false, lineNo);
+        scan(c, p + 1, end, negative, digit, NumberScanner.NO_EXPONENT, lineNo);
         lastDelta = number.value;
         last += lastDelta;
         append(last, lineNo);
@@ -142,22 +142,22 @@ final class AsdfDecoder {
     private int absolute(char[] c, int p, int end, int lineNo, String what) throws ImportException {
         char ch = c[p];
         if (ch == '+' || ch == '-') {
-            scan(c, p + 1, end, ch == '-', -1, true, lineNo);
+            scan(c, p + 1, end, ch == '-', -1, NumberScanner.SIGNED_EXPONENT, lineNo);
         } else if ((ch >= '0' && ch <= '9') || ch == '.') {
-            scan(c, p, end, false, -1, true, lineNo);
+            scan(c, p, end, false, -1, NumberScanner.SIGNED_EXPONENT, lineNo);
         } else if (ch == '@') {
-            scan(c, p + 1, end, false, 0, false, lineNo);
+            scan(c, p + 1, end, false, 0, NumberScanner.NO_EXPONENT, lineNo);
         } else if (ch >= 'A' && ch <= 'I') {
-            scan(c, p + 1, end, false, ch - 'A' + 1, false, lineNo);
+            scan(c, p + 1, end, false, ch - 'A' + 1, NumberScanner.NO_EXPONENT, lineNo);
         } else if (ch >= 'a' && ch <= 'i') {
-            scan(c, p + 1, end, true, ch - 'a' + 1, false, lineNo);
+            scan(c, p + 1, end, true, ch - 'a' + 1, NumberScanner.NO_EXPONENT, lineNo);
         } else {
             throw error(lineNo, "expected " + what + ", found " + describe(ch));
         }
         return number.end;
     }
 
-    private void scan(char[] c, int p, int end, boolean negative, int digit, boolean exponent, int lineNo)
+    private void scan(char[] c, int p, int end, boolean negative, int digit, int exponent, int lineNo)
             throws ImportException {
         if (!number.scan(c, p, end, negative, digit, exponent)) {
             throw error(lineNo, number.problem + " at '" + new String(c, Math.max(0, p - 1),

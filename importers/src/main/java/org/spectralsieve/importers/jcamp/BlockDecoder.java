@@ -45,7 +45,7 @@ final class BlockDecoder {
         double[] x;
         double[] raw;
         int[] lines;
-        if (data.canonical().equals(Labels.XYDATA)) {
+        if (data.canonical().equals(Labels.XYDATA) && !form.equals("(XY..XY)")) {
             if (!form.equals("(X++(Y..Y))")) {
                 throw new ImportException(source, data.line(), Labels.field(data.name()),
                         "unsupported variable list '" + data.value() + "' (expected (X++(Y..Y)))");

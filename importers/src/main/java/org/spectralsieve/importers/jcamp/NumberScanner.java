@@ -23,6 +23,16 @@ final class NumberScanner {
         }
     }
 
+    /** No exponent: the number ends before any letter (ASDF pseudo-digits). */
+    static final int NO_EXPONENT = 0;
+    /**
+     * Only {@code E+nn}/{@code E-nn}: in an ASDF line a bare {@code E} is the SQZ digit +5, so
+     * {@code 2771E227} is X=2771 followed by the ordinate 5227, never 2771×10²²⁷.
+     */
+    static final int SIGNED_EXPONENT = 1;
+    /** Any exponent, as {@link Double#toString} writes it ({@code 1.0E10}): plain AFFN tables. */
+    static final int ANY_EXPONENT = 2;
+
     /** The value just scanned. */
     double value;
     /** Index of the first character after it. */
@@ -35,9 +45,9 @@ final class NumberScanner {
      * pseudo-digit or a plain sign). Returns false with {@link #problem} set when there is no number.
      *
      * @param firstDigit 0–9, or −1 when no digit has been seen yet (a plain sign or nothing)
-     * @param allowExponent only AFFN numbers may carry {@code E±nn}; in ASDF a bare E is a pseudo-digit
+     * @param exponent {@link #NO_EXPONENT}, {@link #SIGNED_EXPONENT} or {@link #ANY_EXPONENT}
      */
-    boolean scan(char[] c, int p, int limit, boolean negative, int firstDigit, boolean allowExponent) {
+    boolean scan(char[] c, int p, int limit, boolean negative, int firstDigit, int exponentRule) {
         problem = null;
         int start = p;
         long mantissa = firstDigit > 0 ? firstDigit : 0;
@@ -72,12 +82,14 @@ final class NumberScanner {
             return false;
         }
         int exponent = 0;
-        if (allowExponent && p + 1 < limit && (c[p] == 'E' || c[p] == 'e')) {
+        if (exponentRule != NO_EXPONENT && p + 1 < limit && (c[p] == 'E' || c[p] == 'e')) {
             int q = p + 1;
             boolean expNegative = false;
             if (c[q] == '+' || c[q] == '-') {
                 expNegative = c[q] == '-';
                 q++;
+            } else if (exponentRule == SIGNED_EXPONENT) {
+                q = limit; // not an exponent: leave the E to the caller
             }
             if (q < limit && c[q] >= '0' && c[q] <= '9') {
                 int e = 0;

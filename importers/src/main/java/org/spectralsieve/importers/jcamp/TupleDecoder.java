@@ -34,9 +34,9 @@ final class TupleDecoder {
             char ch = c[p];
             boolean ok;
             if (ch == '+' || ch == '-') {
-                ok = number.scan(c, p + 1, end, ch == '-', -1, true);
+                ok = number.scan(c, p + 1, end, ch == '-', -1, NumberScanner.ANY_EXPONENT);
             } else if ((ch >= '0' && ch <= '9') || ch == '.') {
-                ok = number.scan(c, p, end, false, -1, true);
+                ok = number.scan(c, p, end, false, -1, NumberScanner.ANY_EXPONENT);
             } else {
                 throw new ImportException(source, lineNo, field, "unexpected character "
                         + AsdfDecoder.describe(ch) + " at column " + (p - start + 1));
