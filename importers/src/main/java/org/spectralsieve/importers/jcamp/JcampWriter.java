@@ -48,7 +48,7 @@ public final class JcampWriter {
         label(out, "OWNER", find(meta, "OWNER", "unknown"));
         meta.forEach((key, value) -> {
             if (!OWN.contains(Labels.canonical(key))) {
-                label(out, key.strip().toUpperCase(Locale.ROOT), value);
+                label(out, key.strip().toUpperCase(Locale.ROOT), value, key);
             }
         });
         double min = Double.POSITIVE_INFINITY;
@@ -110,18 +110,23 @@ public final class JcampWriter {
 
     /** A value may span lines (the reader joins them) but no line may look like a label or a comment. */
     private static void label(StringBuilder out, String key, String value) {
-        Objects.requireNonNull(value, () -> "metadata value of '" + key + "'");
+        label(out, key, value, key);
+    }
+
+    /** {@code given} is the metadata key as the caller spelt it, quoted in messages. */
+    private static void label(StringBuilder out, String key, String value, String given) {
+        Objects.requireNonNull(value, () -> "metadata value of '" + given + "'");
         if (key.isEmpty() || key.contains("=") || key.contains("\n") || key.contains("\r")
                 || key.contains("$$")) {
-            throw new IllegalArgumentException("metadata key cannot be a JCAMP label: '" + key + "'");
+            throw new IllegalArgumentException("metadata key cannot be a JCAMP label: '" + given + "'");
         }
         if (value.contains("$$") || value.contains("\r")) {
-            throw new IllegalArgumentException("metadata value of '" + key + "' contains '$$' or a carriage"
+            throw new IllegalArgumentException("metadata value of '" + given + "' contains '$$' or a carriage"
                     + " return, which JCAMP-DX cannot carry: '" + value + "'");
         }
         for (String line : value.split("\n", -1)) {
             if (line.strip().startsWith("##")) {
-                throw new IllegalArgumentException("metadata value of '" + key + "' has a line starting with"
+                throw new IllegalArgumentException("metadata value of '" + given + "' has a line starting with"
                         + " '##', which would read back as a label: '" + value + "'");
             }
         }
