@@ -30,11 +30,13 @@ final class AsdfDecoder {
     private final NumberScanner number = new NumberScanner();
 
     final DoubleBuffer ordinates = new DoubleBuffer();
-    final IntBuffer pointLines = new IntBuffer();
+    /** Per data line: index of the first point it added (for error messages). */
+    final IntBuffer newPointStart = new IntBuffer();
     /** Per data line: the X written at its start (unscaled), its first point, its 1-based line number. */
     final DoubleBuffer lineX = new DoubleBuffer();
     final IntBuffer lineFirstPoint = new IntBuffer();
     final IntBuffer lineNumbers = new IntBuffer();
+    final IntBuffer newPointLine = new IntBuffer();
 
     private int lastKind = NONE;
     private double last;
@@ -60,6 +62,8 @@ final class AsdfDecoder {
         double x = number.value;
         boolean expectCheck = lastKind == DIFFERENCE;
         int firstPoint = ordinates.size();
+        newPointStart.add(firstPoint);
+        newPointLine.add(lineNo);
         boolean any = false;
         while (true) {
             p = skipSeparators(c, p, end);
@@ -178,7 +182,6 @@ final class AsdfDecoder {
             throw new ImportException(source, lineNo, limitField, "more than " + limit + " ordinates");
         }
         ordinates.add(v);
-        pointLines.add(lineNo);
     }
 
     private ImportException error(int lineNo, String problem) {

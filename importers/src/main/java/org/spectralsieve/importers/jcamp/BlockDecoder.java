@@ -30,7 +30,7 @@ final class BlockDecoder {
         Ldr data = draft.data;
         if (data == null) {
             return new JcampBlock(draft.index, draft.startLine, draft.endLine, draft.ldrs, null, new double[0],
-                    new double[0], new double[0], new int[0], new boolean[0], warnings);
+                    new double[0], new double[0], PointLines.none(), new boolean[0], warnings);
         }
         if (draft.extraTable) {
             warnings.add("block at line " + draft.startLine + " has more than one data table; only "
@@ -44,7 +44,7 @@ final class BlockDecoder {
         String form = data.value().replace(" ", "").replace("\t", "").toUpperCase(java.util.Locale.ROOT);
         double[] x;
         double[] raw;
-        int[] lines;
+        PointLines lines;
         if (data.canonical().equals(Labels.XYDATA) && !form.equals("(XY..XY)")) {
             if (!form.equals("(X++(Y..Y))")) {
                 throw new ImportException(source, data.line(), Labels.field(data.name()),
@@ -53,10 +53,10 @@ final class BlockDecoder {
             AsdfDecoder asdf = new AsdfDecoder(source, Labels.field(data.name()), limit, limitField);
             for (int k = 0; k < draft.dataLines.size(); k++) {
                 int i = draft.dataLines.get(k);
-                asdf.line(text.chars, text.start(i), text.endWithoutComment(i), TextLines.number(i));
+                asdf.line(text.chars, text.start(i), draft.dataEnds.get(k), TextLines.number(i));
             }
             raw = asdf.ordinates.toArray();
-            lines = asdf.pointLines.toArray();
+            lines = new PointLines(asdf.newPointStart, asdf.newPointLine);
             checkCount(nPoints, raw.length, data);
             x = new XGrid(source, draft, xFactor, asdf, warnings).abscissae();
         } else {
@@ -69,30 +69,30 @@ final class BlockDecoder {
             TupleDecoder tuples = new TupleDecoder(source, Labels.field(data.name()), width, limit);
             for (int k = 0; k < draft.dataLines.size(); k++) {
                 int i = draft.dataLines.get(k);
-                tuples.line(text.chars, text.start(i), text.endWithoutComment(i), TextLines.number(i));
+                tuples.line(text.chars, text.start(i), draft.dataEnds.get(k), TextLines.number(i));
             }
             tuples.finish();
             raw = tuples.y.toArray();
-            lines = tuples.pointLines.toArray();
+            lines = new PointLines(tuples.newPointStart, tuples.lineNumbers);
             checkCount(nPoints, raw.length, data);
             x = tuples.x.toArray();
             for (int i = 0; i < x.length; i++) {
-                x[i] = finite(x[i] * xFactor, lines[i], data, "x");
+                x[i] = finite(x[i] * xFactor, lines, i, data, "x");
             }
             checkEnds(x, lines, data);
         }
         double[] y = new double[raw.length];
         for (int i = 0; i < y.length; i++) {
-            y[i] = finite(raw[i] * yFactor, lines[i], data, "y");
+            y[i] = finite(raw[i] * yFactor, lines, i, data, "y");
         }
         warnAboutHeaderY(y, yFactor);
         return new JcampBlock(draft.index, draft.startLine, draft.endLine, draft.ldrs, data.canonical(), x, y,
                 raw, lines, BelowDetection.parse(source, draft, raw.length), warnings);
     }
 
-    private double finite(double v, int line, Ldr data, String what) throws ImportException {
+    private double finite(double v, PointLines lines, int i, Ldr data, String what) throws ImportException {
         if (!Double.isFinite(v)) {
-            throw new ImportException(source, line, Labels.field(data.name()), what + " out of range after scaling");
+            throw new ImportException(source, lines.lineOf(i), Labels.field(data.name()), what + " out of range after scaling");
         }
         return v;
     }
@@ -109,9 +109,9 @@ final class BlockDecoder {
     }
 
     /** Tables of pairs carry their own x; FIRSTX and LASTX must still name its ends. */
-    private void checkEnds(double[] x, int[] lines, Ldr data) throws ImportException {
-        checkEnd(Labels.FIRSTX, x[0], lines[0]);
-        checkEnd(Labels.LASTX, x[x.length - 1], lines[lines.length - 1]);
+    private void checkEnds(double[] x, PointLines lines, Ldr data) throws ImportException {
+        checkEnd(Labels.FIRSTX, x[0], lines.lineOf(0));
+        checkEnd(Labels.LASTX, x[x.length - 1], lines.lineOf(x.length - 1));
     }
 
     private void checkEnd(String label, double actual, int line) throws ImportException {

@@ -21,6 +21,8 @@ final class BlockScanner {
         final List<Ldr> ldrs = new ArrayList<>();
         Ldr data;
         final IntBuffer dataLines = new IntBuffer();
+        /** End of each data line without its comment, found once by the scanner. */
+        final IntBuffer dataEnds = new IntBuffer();
         boolean inData;
         boolean extraTable;
 
@@ -76,6 +78,7 @@ final class BlockScanner {
         }
         if (current.inData) {
             current.dataLines.add(i);
+            current.dataEnds.add(end);
         } else if (!current.ldrs.isEmpty()) {
             int last = current.ldrs.size() - 1;
             current.ldrs.set(last, current.ldrs.get(last).withMoreValue(new String(c, p, end - p).strip()));

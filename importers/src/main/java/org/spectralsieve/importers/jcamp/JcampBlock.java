@@ -22,12 +22,12 @@ public final class JcampBlock {
     private final double[] x;
     private final double[] y;
     private final double[] rawY;
-    private final int[] pointLines;
+    private final PointLines pointLines;
     private final boolean[] upperBounds;
     private final List<String> warnings;
 
     JcampBlock(int index, int startLine, int endLine, List<Ldr> ldrs, String dataLabel, double[] x,
-            double[] y, double[] rawY, int[] pointLines, boolean[] upperBounds, List<String> warnings) {
+            double[] y, double[] rawY, PointLines pointLines, boolean[] upperBounds, List<String> warnings) {
         this.index = index;
         this.startLine = startLine;
         this.endLine = endLine;
@@ -129,7 +129,7 @@ public final class JcampBlock {
 
     /** 1-based file line of point {@code i}. */
     int pointLine(int i) {
-        return pointLines[i];
+        return pointLines.lineOf(i);
     }
 
     @Override

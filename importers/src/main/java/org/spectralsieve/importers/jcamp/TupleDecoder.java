@@ -17,7 +17,9 @@ final class TupleDecoder {
 
     final DoubleBuffer x = new DoubleBuffer();
     final DoubleBuffer y = new DoubleBuffer();
-    final IntBuffer pointLines = new IntBuffer();
+    /** Per data line: index of the first tuple begun on it, and its line number. */
+    final IntBuffer newPointStart = new IntBuffer();
+    final IntBuffer lineNumbers = new IntBuffer();
     private int member;
     private int openLine;
 
@@ -29,6 +31,8 @@ final class TupleDecoder {
     }
 
     void line(char[] c, int start, int end, int lineNo) throws ImportException {
+        newPointStart.add(x.size());
+        lineNumbers.add(lineNo);
         int p = AsdfDecoder.skipSeparators(c, start, end);
         while (p < end) {
             char ch = c[p];
@@ -65,7 +69,6 @@ final class TupleDecoder {
             }
             openLine = lineNo;
             x.add(v);
-            pointLines.add(lineNo);
         } else if (member == 1) {
             y.add(v);
         }
