@@ -79,7 +79,7 @@ final class BlockDecoder {
             for (int i = 0; i < x.length; i++) {
                 x[i] = finite(x[i] * xFactor, lines, i, data, "x");
             }
-            checkEnds(x, lines, data);
+            checkEnds(x, lines);
         }
         double[] y = new double[raw.length];
         for (int i = 0; i < y.length; i++) {
@@ -109,7 +109,7 @@ final class BlockDecoder {
     }
 
     /** Tables of pairs carry their own x; FIRSTX and LASTX must still name its ends. */
-    private void checkEnds(double[] x, PointLines lines, Ldr data) throws ImportException {
+    private void checkEnds(double[] x, PointLines lines) throws ImportException {
         checkEnd(Labels.FIRSTX, x[0], lines.lineOf(0));
         checkEnd(Labels.LASTX, x[x.length - 1], lines.lineOf(x.length - 1));
     }
@@ -143,7 +143,8 @@ final class BlockDecoder {
         Optional<Ldr> l = ldr(label);
         if (l.isPresent()) {
             double declared = HeaderNumbers.number(source, l.get());
-            if (!(Math.abs(declared - actual) <= tolerance)) {
+            double allowed = Math.max(tolerance, HeaderNumbers.halfLastDecimal(l.get().value()));
+            if (!(Math.abs(declared - actual) <= allowed)) {
                 warnings.add("line " + l.get().line() + ": " + Labels.field(l.get().name()) + "=" + l.get().value()
                         + " but " + what + " is " + actual + " (data kept, header ignored)");
             }

@@ -68,6 +68,9 @@ final class BlockScanner {
         while (p < end && (c[p] == ' ' || c[p] == '\t')) {
             p++;
         }
+        if (p + 2 == end && c[p] == '#' && c[p + 1] == '#' && end < text.end(i)) {
+            return; // "##$$ …": a label-shaped comment line
+        }
         if (p + 1 < end && c[p] == '#' && c[p + 1] == '#') {
             label(i, p + 2, end);
             return;

@@ -113,6 +113,14 @@ class JcampReaderTest {
     }
 
     @Test
+    void labelShapedCommentLinesAreSkipped() throws ImportException {
+        ParsedSpectrum s = Jdx.read(Jdx.text("##$$ written by hand", "##XUNITS= NANOMETERS", "##YUNITS= ABSORBANCE",
+                "##XYPOINTS= (XY..XY)", "400 1", "##$$ between pairs", "401 2"));
+
+        assertThat(s.size()).isEqualTo(2);
+    }
+
+    @Test
     void deltaXPlacesPointsWhenLastXIsMissing() throws ImportException {
         ParsedSpectrum s = Jdx.read(Jdx.text("##XUNITS= NANOMETERS", "##YUNITS= ABSORBANCE", "##FIRSTX= 400",
                 "##DELTAX= 2", "##XYDATA= (X++(Y..Y))", "400 1 2 3"));

@@ -248,6 +248,15 @@ class JcampReferenceFilesTest {
     }
 
     @Test
+    void isopropanolWarnsOfItsWrongFirstYButNotOfItsRoundedExtrema() throws ImportException {
+        // SOURCES.md §3 isopropanol_ASDF: header FIRSTY=0 but the first decoded y is 0.03005; its MINY=-0.09
+        // and MAXY=0.37 are the decoded −0.0855 and 0.3689 rounded to two decimals, which is not an error
+        ParsedSpectrum s = reader.read(ReferenceFiles.require("jcamp-nzhagen-examples/isopropanol_ASDF.jdx"));
+
+        assertThat(s.warnings()).hasSize(1).allMatch(w -> w.contains("##FIRSTY=0"));
+    }
+
+    @Test
     void trailingCtrlZAfterEndIsIgnored() throws ImportException {
         // SOURCES.md §1 xyinc1: a DOS Ctrl-Z (0x1A) after ##END=, and ##JCAMP_DX spelt with an underscore
         ParsedSpectrum s = reader.read(ReferenceFiles.require("jcamp-lancashire/xyinc1.jdx"));
