@@ -2,6 +2,10 @@ package org.spectralsieve.importers.jcamp;
 
 import java.io.IOException;
 import java.io.Reader;
+import java.io.StringReader;
+import java.nio.ByteBuffer;
+import java.nio.charset.CharacterCodingException;
+import java.nio.charset.CodingErrorAction;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
@@ -82,14 +86,25 @@ public final class JcampReader {
     }
 
     /**
-     * JCAMP-DX is ASCII by the standard; real files carry Latin-1 signs (°, µ) in comments, so bytes
-     * are read as ISO-8859-1, which never fails and keeps every ASCII character as it is.
+     * JCAMP-DX is ASCII by the standard, but real files carry °, µ or Å in comments and titles, some as
+     * UTF-8 (what {@link JcampWriter}'s text becomes when saved by this project), older ones as
+     * Latin-1. Strict UTF-8 first; bytes that are not UTF-8 are read as ISO-8859-1, which accepts any
+     * byte and leaves ASCII unchanged.
      */
     private static Reader open(String name, Path file) throws ImportException {
+        byte[] bytes;
         try {
-            return Files.newBufferedReader(file, StandardCharsets.ISO_8859_1);
+            bytes = Files.readAllBytes(file);
         } catch (IOException e) {
             throw ImportException.ofSource(name, "cannot read: " + e.getMessage());
+        }
+        try {
+            return new StringReader(StandardCharsets.UTF_8.newDecoder()
+                    .onMalformedInput(CodingErrorAction.REPORT)
+                    .onUnmappableCharacter(CodingErrorAction.REPORT)
+                    .decode(ByteBuffer.wrap(bytes)).toString());
+        } catch (CharacterCodingException notUtf8) {
+            return new StringReader(new String(bytes, StandardCharsets.ISO_8859_1));
         }
     }
 

@@ -226,7 +226,7 @@ class JcampReferenceFilesTest {
 
     @Test
     void nanometreDataLabelledWavenumbersWarnWhenTheKindIsForced() throws ImportException {
-        // SOURCES.md §2 uv_ACD: XUNITS=1/CM but x = 210–650 (really nm); YUNITS ARBITRARY UNITS
+        // SOURCES.md §2, the UV-vis file with contradictory metadata: XUNITS=1/CM but x = 210–650 (really nm); YUNITS ARBITRARY UNITS
         java.nio.file.Path file = ReferenceFiles.require("jcamp-cheminfo/uv_ACD.jdx");
 
         assertThatThrownBy(() -> reader.read(file)).isInstanceOf(ImportException.class)

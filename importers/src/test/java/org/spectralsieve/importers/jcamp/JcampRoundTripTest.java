@@ -3,10 +3,14 @@ package org.spectralsieve.importers.jcamp;
 import static org.assertj.core.api.Assertions.assertThat;
 import static org.assertj.core.api.Assertions.assertThatThrownBy;
 
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
 import java.util.LinkedHashMap;
 import java.util.Map;
 import java.util.Random;
 import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
 import org.spectralsieve.importers.ImportException;
 import org.spectralsieve.importers.ParsedSpectrum;
 import org.spectralsieve.importers.XUnit;
@@ -53,6 +57,17 @@ class JcampRoundTripTest {
                 .containsEntry("path length", "0.125 mm")
                 .containsEntry("jcamp-dx", "5.01");
         assertThat(s.warnings()).isEmpty();
+    }
+
+    @Test
+    void savedAsUtf8OrLatin1TheTitleReadsBackFromAFile(@TempDir Path dir) throws Exception {
+        Map<String, String> metadata = Map.of("title", "illustrative film, 125 µm, 20 °C");
+        String text = JcampWriter.write(metadata, new double[] {300, 301}, new double[] {0.5, 0.6}, null);
+        Path utf8 = Files.writeString(dir.resolve("utf8.jdx"), text, StandardCharsets.UTF_8);
+        Path latin1 = Files.writeString(dir.resolve("latin1.jdx"), text, StandardCharsets.ISO_8859_1);
+
+        assertThat(new JcampReader().read(utf8).metadata()).containsEntry("title", "illustrative film, 125 µm, 20 °C");
+        assertThat(new JcampReader().read(latin1).metadata()).containsEntry("title", "illustrative film, 125 µm, 20 °C");
     }
 
     @Test
