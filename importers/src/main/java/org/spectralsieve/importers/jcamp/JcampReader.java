@@ -27,7 +27,10 @@ import org.spectralsieve.importers.YKind;
  * <p>XUNITS NANOMETERS, MICROMETERS, ANGSTROMS or 1/CM (λ = 10⁷/ν̃, no points invented); YUNITS
  * TRANSMITTANCE, ABSORBANCE or a percent-transmittance form, otherwise an error unless the options
  * force a y kind. When x runs downwards after conversion the arrays are reversed. Every label of the
- * chosen block except the data table becomes metadata under its name as written (lower-cased).
+ * chosen block except the data table becomes metadata under its name as written (lower-cased), plus
+ * {@code jcamp block} = the block's index. Values that disagree with the data without spoiling it
+ * (MINY, MAXY, FIRSTY, DELTAX; percent-looking values under a fraction unit; 1/CM over a range that
+ * looks like nanometres) become warnings.
  *
  * <p>Every refusal is an {@link ImportException} naming the file, line and label. Instances hold no
  * state and may be shared.
