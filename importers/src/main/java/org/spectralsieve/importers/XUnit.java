@@ -21,7 +21,8 @@ public enum XUnit {
 
     /**
      * Converts a value in this unit to nanometres. Ångström divides by ten instead of multiplying by
-     * 0.1 so that whole-ångström values land on the nearest double of the exact decimal result.
+     * 0.1 so that whole-ångström values land on the nearest double of the exact decimal result. A
+     * wavenumber of zero gives infinity; callers check the result is finite.
      */
     public double toNanometres(double value) {
         return switch (this) {

@@ -1,0 +1,276 @@
+package org.spectralsieve.importers.jcamp;
+
+import java.io.IOException;
+import java.io.Reader;
+import java.io.StringReader;
+import java.nio.ByteBuffer;
+import java.nio.charset.CharacterCodingException;
+import java.nio.charset.CodingErrorAction;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+import java.util.Optional;
+import org.spectralsieve.importers.ImportException;
+import org.spectralsieve.importers.ParsedSpectrum;
+import org.spectralsieve.importers.ReadOptions;
+import org.spectralsieve.importers.XUnit;
+import org.spectralsieve.importers.YKind;
+
+/**
+ * Reads JCAMP-DX 4.24 and 5.01 spectra: {@code ##XYDATA=(X++(Y..Y))} in AFFN or ASDF (SQZ, DIF, DUP,
+ * PAC), {@code ##XYPOINTS=(XY..XY)} and {@code ##PEAK TABLE=(XY..XY)}; LINK files with several blocks.
+ *
+ * <p>XUNITS NANOMETERS, MICROMETERS, ANGSTROMS or 1/CM (λ = 10⁷/ν̃, no points invented); YUNITS
+ * TRANSMITTANCE, ABSORBANCE or a percent-transmittance form, otherwise an error unless the options
+ * force a y kind. When x runs downwards after conversion the arrays are reversed. Every label of the
+ * chosen block except the data table becomes metadata under its name as written (lower-cased), plus
+ * {@code jcamp block} = the block's index. Values that disagree with the data without spoiling it
+ * (MINY, MAXY, FIRSTY, DELTAX; percent-looking values under a fraction unit; 1/CM over a range that
+ * looks like nanometres) become warnings.
+ *
+ * <p>Every refusal is an {@link ImportException} naming the file, line and label. Instances hold no
+ * state and may be shared.
+ */
+public final class JcampReader {
+
+    /** Above this a value declared as a transmittance fraction is surely percent (noise gives 1.05, not 1.5). */
+    static final double PERCENT_LOOKING = 1.5;
+
+    public ParsedSpectrum read(Path file) throws ImportException {
+        return read(file, JcampOptions.defaults());
+    }
+
+    public ParsedSpectrum read(Path file, JcampOptions options) throws ImportException {
+        String name = String.valueOf(file.getFileName());
+        try (Reader in = open(name, file)) {
+            return read(name, in, options);
+        } catch (IOException e) {
+            throw ImportException.ofSource(name, "cannot close: " + e.getMessage());
+        }
+    }
+
+    public ParsedSpectrum read(String sourceName, Reader in) throws ImportException {
+        return read(sourceName, in, JcampOptions.defaults());
+    }
+
+    public ParsedSpectrum read(String sourceName, Reader in, JcampOptions options) throws ImportException {
+        List<JcampBlock> blocks = blocks(sourceName, in);
+        return new SpectrumBuilder(sourceName, pick(sourceName, blocks, options), options.read()).build();
+    }
+
+    /** Every block of the file in order (for LINK files), each decoded and checked against its header. */
+    public List<JcampBlock> blocks(Path file) throws ImportException {
+        String name = String.valueOf(file.getFileName());
+        try (Reader in = open(name, file)) {
+            return blocks(name, in);
+        } catch (IOException e) {
+            throw ImportException.ofSource(name, "cannot close: " + e.getMessage());
+        }
+    }
+
+    /** Reads {@code in} to its end; does not close it (the caller opened it). */
+    public List<JcampBlock> blocks(String sourceName, Reader in) throws ImportException {
+        TextLines text;
+        try {
+            text = TextLines.read(in);
+        } catch (IOException e) {
+            throw new ImportException(sourceName, 0, null, "cannot read: " + e.getMessage(), e);
+        }
+        try {
+            return List.copyOf(new BlockScanner(sourceName, text).scan());
+        } catch (RuntimeException e) {
+            // a guard, not a path: any slip in the decoder must still reach the user as an import error
+            throw new ImportException(sourceName, 0, null, "cannot decode: " + e, e);
+        }
+    }
+
+    /**
+     * JCAMP-DX is ASCII by the standard, but real files carry °, µ or Å in comments and titles, some as
+     * UTF-8 (what {@link JcampWriter}'s text becomes when saved by this project), older ones as
+     * Latin-1. Strict UTF-8 first; bytes that are not UTF-8 are read as ISO-8859-1, which accepts any
+     * byte and leaves ASCII unchanged.
+     */
+    private static Reader open(String name, Path file) throws ImportException {
+        byte[] bytes;
+        try {
+            bytes = Files.readAllBytes(file);
+        } catch (IOException e) {
+            throw ImportException.ofSource(name, "cannot read: " + e.getMessage());
+        }
+        try {
+            return new StringReader(StandardCharsets.UTF_8.newDecoder()
+                    .onMalformedInput(CodingErrorAction.REPORT)
+                    .onUnmappableCharacter(CodingErrorAction.REPORT)
+                    .decode(ByteBuffer.wrap(bytes)).toString());
+        } catch (CharacterCodingException notUtf8) {
+            return new StringReader(new String(bytes, StandardCharsets.ISO_8859_1));
+        }
+    }
+
+    private static JcampBlock pick(String source, List<JcampBlock> blocks, JcampOptions options)
+            throws ImportException {
+        if (options.block().isPresent()) {
+            int i = options.block().getAsInt();
+            if (i >= blocks.size()) {
+                throw ImportException.ofSource(source, "block " + i + " asked for, the file has " + blocks.size()
+                        + " blocks (0…" + (blocks.size() - 1) + ")");
+            }
+            JcampBlock b = blocks.get(i);
+            if (!b.hasData()) {
+                throw new ImportException(source, b.startLine(), null, "block " + i + " ('" + b.title()
+                        + "') holds no ##XYDATA, ##XYPOINTS or ##PEAK TABLE");
+            }
+            return b;
+        }
+        for (JcampBlock b : blocks) {
+            if (b.hasData()) {
+                return b;
+            }
+        }
+        throw ImportException.ofSource(source, "no ##XYDATA, ##XYPOINTS or ##PEAK TABLE in any block"
+                + (blocks.isEmpty() ? " (no ## labels at all: not a JCAMP-DX file?)" : ""));
+    }
+
+    /** Interprets one decoded block: units, order, metadata. */
+    private static final class SpectrumBuilder {
+        private final String source;
+        private final JcampBlock block;
+        private final ReadOptions options;
+        private final List<String> warnings = new ArrayList<>();
+
+        SpectrumBuilder(String source, JcampBlock block, ReadOptions options) {
+            this.source = source;
+            this.block = block;
+            this.options = options;
+        }
+
+        ParsedSpectrum build() throws ImportException {
+            warnings.addAll(block.warnings());
+            XUnit xUnit = xUnit();
+            YKind yKind = yKind();
+            double[] x = block.x();
+            double[] y = block.y();
+            boolean[] bounds = block.upperBounds();
+            for (int i = 0; i < x.length; i++) {
+                double nm = xUnit.toNanometres(x[i]);
+                if (!(Double.isFinite(nm) && nm > 0)) {
+                    throw new ImportException(source, block.pointLine(i), block.dataLabel(), "x " + x[i]
+                            + " (point " + i + ") is not a positive wavelength in " + xUnit);
+                }
+                x[i] = nm;
+            }
+            if (x.length < ParsedSpectrum.MIN_POINTS) {
+                throw new ImportException(source, block.pointLine(0), block.dataLabel(), "only " + x.length
+                        + " point; a curve needs at least " + ParsedSpectrum.MIN_POINTS);
+            }
+            if (checkMonotonic(x) < 0) {
+                reverse(x);
+                reverse(y);
+                reverse(bounds);
+            }
+            warnAboutRanges(xUnit, yKind, block.x(), y);
+            try {
+                return ParsedSpectrum.of(source, x, y, bounds, yKind, xUnit, metadata(), warnings);
+            } catch (IllegalArgumentException e) {
+                throw new ImportException(source, block.startLine(), block.dataLabel(), e.getMessage(), e);
+            }
+        }
+
+        private XUnit xUnit() throws ImportException {
+            Optional<Ldr> l = block.ldr(Labels.XUNITS);
+            if (l.isEmpty()) {
+                throw new ImportException(source, block.startLine(), Labels.field(Labels.XUNITS),
+                        "missing: the block has no ##XUNITS=, so its x cannot be read as wavelengths");
+            }
+            return JcampUnits.xUnit(l.get().value()).orElseThrow(() -> new ImportException(source, l.get().line(),
+                    Labels.field(l.get().name()), "unknown x unit '" + l.get().value()
+                            + "' (known: NANOMETERS, MICROMETERS, ANGSTROMS, 1/CM)"));
+        }
+
+        private YKind yKind() throws ImportException {
+            Optional<Ldr> l = block.ldr(Labels.YUNITS);
+            Optional<YKind> declared = l.flatMap(u -> JcampUnits.yKind(u.value()));
+            if (options.yKind().isPresent()) {
+                YKind forced = options.yKind().get();
+                if (declared.isPresent() && declared.get() != forced) {
+                    warnings.add("YUNITS=" + l.get().value() + " overridden: read as " + forced);
+                }
+                return forced;
+            }
+            if (l.isEmpty()) {
+                throw new ImportException(source, block.startLine(), Labels.field(Labels.YUNITS),
+                        "missing: the block has no ##YUNITS=; choose the y kind when importing");
+            }
+            return declared.orElseThrow(() -> new ImportException(source, l.get().line(),
+                    Labels.field(l.get().name()), "unknown y unit '" + l.get().value() + "' (known: TRANSMITTANCE,"
+                            + " ABSORBANCE, %T / PERCENT TRANSMITTANCE); choose the y kind when importing"));
+        }
+
+        /** Returns +1 for increasing, −1 for decreasing; refuses a reversal, naming both lines. */
+        private int checkMonotonic(double[] x) throws ImportException {
+            int direction = x[1] > x[0] ? 1 : -1;
+            for (int i = 1; i < x.length; i++) {
+                double d = x[i] - x[i - 1];
+                if (!(direction > 0 ? d > 0 : d < 0)) {
+                    throw new ImportException(source, block.pointLine(i), block.dataLabel(), "x is not monotonic: "
+                            + "point " + i + " (line " + block.pointLine(i) + ") at " + x[i] + " nm follows point "
+                            + (i - 1) + " (line " + block.pointLine(i - 1) + ") at " + x[i - 1] + " nm, but the"
+                            + " data ran " + (direction > 0 ? "upwards" : "downwards") + " before");
+                }
+            }
+            return direction;
+        }
+
+        private void warnAboutRanges(XUnit xUnit, YKind yKind, double[] fileX, double[] y) {
+            if (xUnit == XUnit.WAVENUMBER_PER_CM) {
+                double lo = Math.min(fileX[0], fileX[fileX.length - 1]);
+                double hi = Math.max(fileX[0], fileX[fileX.length - 1]);
+                if (lo >= 150 && hi <= 1100) {
+                    warnings.add("XUNITS=1/CM but x runs " + lo + "–" + hi + ", a typical range of wavelengths in"
+                            + " nm: the units may be mislabelled");
+                }
+            }
+            if (yKind == YKind.TRANSMITTANCE_FRACTION) {
+                double max = Double.NEGATIVE_INFINITY;
+                for (double v : y) {
+                    max = Math.max(max, v);
+                }
+                if (max > PERCENT_LOOKING) {
+                    warnings.add("YUNITS say transmittance as a fraction but values reach " + max
+                            + ": looks like percent; force TRANSMITTANCE_PERCENT if so");
+                }
+            }
+        }
+
+        private Map<String, String> metadata() {
+            Map<String, String> m = new LinkedHashMap<>();
+            for (Ldr l : block.ldrs()) {
+                if (!Labels.isDataTable(l.canonical()) && !l.canonical().equals(Labels.BELOW_DETECTION)) {
+                    m.putIfAbsent(l.name(), l.value());
+                }
+            }
+            m.putIfAbsent("jcamp block", Integer.toString(block.index()));
+            return m;
+        }
+
+        private static void reverse(double[] a) {
+            for (int i = 0, j = a.length - 1; i < j; i++, j--) {
+                double t = a[i];
+                a[i] = a[j];
+                a[j] = t;
+            }
+        }
+
+        private static void reverse(boolean[] a) {
+            for (int i = 0, j = a.length - 1; i < j; i++, j--) {
+                boolean t = a[i];
+                a[i] = a[j];
+                a[j] = t;
+            }
+        }
+    }
+}
