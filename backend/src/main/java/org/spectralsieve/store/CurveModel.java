@@ -20,8 +20,6 @@ final class CurveModel {
     private static final double SAME_THICKNESS_MM = 1e-9;
 
     private final StoreSearch.Plan plan;
-    private final double d0;
-    private final boolean bulk;
 
     // point conditions: margin(d) = intercept + slope·d
     private int points;
@@ -34,11 +32,16 @@ final class CurveModel {
     // mean conditions, only in a full evaluation
     private final List<MeanCondition> means = new java.util.ArrayList<>();
 
-    CurveModel(StoreSearch.Plan plan, SpectralStore store, int curve, boolean pointsOnly) {
+    private final SpectralStore store;
+    private final boolean pointsOnly;
+    private double d0;
+    private boolean bulk;
+
+    /** One model per thread; {@link #load} points it at a curve without allocating, for the pass over every curve. */
+    CurveModel(StoreSearch.Plan plan, SpectralStore store, boolean pointsOnly) {
         this.plan = plan;
-        this.d0 = store.thicknessMm(curve);
-        // as measured, even a bulk sample is read as it is: no thickness model between data and verdict
-        this.bulk = store.isBulk(curve) && plan.thickness.kind() != ThicknessSpec.Kind.AS_MEASURED;
+        this.store = store;
+        this.pointsOnly = pointsOnly;
         int capacity = 0;
         for (CompiledClause c : plan.clauses) {
             capacity += pointsOnly ? Math.min(2, c.probes().size()) : c.probes().size();
@@ -47,14 +50,23 @@ final class CurveModel {
         slope = new double[capacity];
         pass = new boolean[capacity];
         bound = new boolean[capacity];
+    }
+
+    CurveModel load(int curve) {
+        this.d0 = store.thicknessMm(curve);
+        // as measured, even a bulk sample is read as it is: no thickness model between data and verdict
+        this.bulk = store.isBulk(curve) && plan.thickness.kind() != ThicknessSpec.Kind.AS_MEASURED;
+        points = 0;
+        anyUnmeasured = false;
+        means.clear();
         int model = store.indexModelOf(curve);
         for (int c = 0; c < plan.clauses.size(); c++) {
             CompiledClause clause = plan.clauses.get(c);
             double[] loss = plan.surfaceLoss[model][c];
+            List<Probe> probes = clause.probes();
             switch (clause.kind()) {
                 case EVERY_POINT_PASS, EVERY_POINT_BLOCK -> {
                     boolean isPass = clause.kind() == CompiledClause.Kind.EVERY_POINT_PASS;
-                    List<Probe> probes = clause.probes();
                     if (pointsOnly) {
                         // a band's two ends: where edges and bands usually decide it, at the cost of two columns
                         int last = probes.size() - 1;
@@ -69,8 +81,8 @@ final class CurveModel {
                     }
                 }
                 case CUTOFF -> {
-                    addPoint(store, curve, clause.probes().get(0), loss[0], clause.thresholdOd(), false);
-                    addPoint(store, curve, clause.probes().get(1), loss[1], clause.thresholdOd(), true);
+                    addPoint(store, curve, probes.get(0), loss[0], clause.thresholdOd(), false);
+                    addPoint(store, curve, probes.get(1), loss[1], clause.thresholdOd(), true);
                 }
                 case MEAN_PASS, MEAN_BLOCK -> {
                     if (!pointsOnly) {
@@ -79,6 +91,7 @@ final class CurveModel {
                 }
             }
         }
+        return this;
     }
 
     private void addPoint(SpectralStore store, int curve, Probe probe, double surfaceLoss, double thresholdOd,
@@ -112,38 +125,60 @@ final class CurveModel {
         }
     }
 
-    StoreSearch.Evaluation best() {
+    /** The ranking key of the best this curve can do, without allocating. */
+    int bestKey() {
         ThicknessSpec spec = plan.thickness;
+        double d = bestThickness(spec);
+        judge(d, forcedUnverified(spec));
+        return StoreSearch.Keys.of(verdict, worst);
+    }
+
+    private double bestThickness(ThicknessSpec spec) {
         switch (spec.kind()) {
             case AS_MEASURED:
-                return at(d0, null, false);
+                return d0;
             case FIXED:
-                if (bulk) {
-                    return at(spec.minMm(), null, false);
-                }
-                return at(d0, null, Math.abs(spec.minMm() - d0) > SAME_THICKNESS_MM);
+                return bulk ? spec.minMm() : d0;
             default:
                 if (!bulk) {
-                    return at(d0, null, d0 < spec.minMm() - SAME_THICKNESS_MM || d0 > spec.maxMm() + SAME_THICKNESS_MM);
+                    return d0;
                 }
-                double best = means.isEmpty() ? crossingOfLines(spec.minMm(), spec.maxMm())
+                return means.isEmpty() ? crossingOfLines(spec.minMm(), spec.maxMm())
                         : crossingByBisection(spec.minMm(), spec.maxMm());
-                StoreSearch.Evaluation e = at(best, null, false);
-                if (e.verdict() != Verdict.MEETS) {
-                    return e;
-                }
-                return at(best, feasibleRange(spec.minMm(), spec.maxMm()), false);
         }
     }
 
-    /** The verdict and worst margin at thickness d (d0 means as measured). */
-    private StoreSearch.Evaluation at(double d, double[] range, boolean forcedUnverified) {
+    private boolean forcedUnverified(ThicknessSpec spec) {
+        if (bulk || spec.kind() == ThicknessSpec.Kind.AS_MEASURED) {
+            return false;
+        }
+        // a fixed layer cannot be rescaled: only its own thickness can be judged
+        return d0 < spec.minMm() - SAME_THICKNESS_MM || d0 > spec.maxMm() + SAME_THICKNESS_MM;
+    }
+
+    StoreSearch.Evaluation best() {
+        ThicknessSpec spec = plan.thickness;
+        double d = bestThickness(spec);
+        judge(d, forcedUnverified(spec));
+        double[] range = null;
+        if (spec.kind() == ThicknessSpec.Kind.RANGE && bulk && verdict == Verdict.MEETS) {
+            range = feasibleRange(spec.minMm(), spec.maxMm());
+        }
+        return new StoreSearch.Evaluation(verdict, worst, d, range);
+    }
+
+    // the last judgement, kept in fields so the pass over every curve allocates nothing
+    private Verdict verdict;
+    private double worst;
+
+    /** The verdict and worst margin at thickness d (a fixed layer's margins do not depend on d). */
+    private void judge(double d, boolean forcedUnverified) {
         boolean misses = false;
         boolean unverified = anyUnmeasured || forcedUnverified;
-        double worst = Double.POSITIVE_INFINITY;
+        double lowest = Double.POSITIVE_INFINITY;
         for (int i = 0; i < points; i++) {
             double margin = intercept[i] + slope[i] * d; // slope is 0 for a fixed layer
-            worst = Math.min(worst, margin);
+            lowest = Math.min(lowest, margin);
             if (bound[i] && pass[i]) {
                 // T is at most the bound: too dark even so proves a miss, otherwise nothing is proven
                 if (margin < 0) {
@@ -161,12 +196,12 @@ final class CurveModel {
             }
         }
         for (MeanCondition mean : means) {
-            double margin = mean.margin(bulk ? d : d0, bulk);
+            double margin = mean.margin(d, bulk);
             if (mean.unmeasured()) {
                 unverified = true;
                 continue;
             }
-            worst = Math.min(worst, margin);
+            lowest = Math.min(lowest, margin);
             if (mean.anyBound()) {
                 if (mean.pass() && margin < 0) {
                     misses = true;
@@ -177,11 +212,8 @@ final class CurveModel {
                 misses = true;
             }
         }
-        if (worst == Double.POSITIVE_INFINITY) {
-            worst = Double.NaN; // nothing measured to judge by
-        }
-        Verdict verdict = misses ? Verdict.MISSES : unverified ? Verdict.UNVERIFIED : Verdict.MEETS;
-        return new StoreSearch.Evaluation(verdict, worst, bulk ? d : d0, range);
+        worst = lowest == Double.POSITIVE_INFINITY ? Double.NaN : lowest; // NaN: nothing measured to judge by
+        verdict = misses ? Verdict.MISSES : unverified ? Verdict.UNVERIFIED : Verdict.MEETS;
     }
 
     /**

@@ -1,10 +1,10 @@
 package org.spectralsieve.store;
 
 import java.util.ArrayList;
-import java.util.Arrays;
+import java.util.HashMap;
+import java.util.Map;
 import java.util.Comparator;
 import java.util.List;
-import java.util.PriorityQueue;
 import java.util.stream.IntStream;
 import org.spectralsieve.optics.Fresnel;
 import org.spectralsieve.requirement.Clause;
@@ -57,37 +57,33 @@ public final class StoreSearch {
         boolean[] eligible = new boolean[n];
         int eligibleCount = boundPass(bound, eligible);
 
-        int[] bestKey = new int[store.materialCount()];
-        int[] bestCurve = new int[store.materialCount()];
-        Arrays.fill(bestKey, Integer.MIN_VALUE);
-        Arrays.fill(bestCurve, -1);
-        Evaluation[] evaluations = new Evaluation[n];
-        int refined = 0;
-
+        Refinement refinement = new Refinement();
+        CurveModel full = new CurveModel(plan, store, false);
         for (int curve : bestByBound(bound, eligible, limit * FIRST_CUT_FACTOR)) {
-            refined += refine(curve, evaluations, bestKey, bestCurve);
+            refinement.add(curve, full);
         }
-        int cut = exhaustive ? Integer.MIN_VALUE : kthBest(bestKey, limit);
+        int cut = exhaustive ? Integer.MIN_VALUE : refinement.kthBestMaterialKey(limit);
         for (int curve = 0; curve < n; curve++) {
-            if (eligible[curve] && evaluations[curve] == null && bound[curve] >= cut) {
-                refined += refine(curve, evaluations, bestKey, bestCurve);
+            if (eligible[curve] && bound[curve] >= cut && !refinement.evaluations.containsKey(curve)) {
+                refinement.add(curve, full);
             }
         }
-        return new StoreResult(topRows(bestKey, bestCurve, evaluations, limit), eligibleCount, refined);
+        return new StoreResult(refinement.topRows(limit), eligibleCount, refinement.evaluations.size());
     }
 
-    /** Pass one over all curves in parallel chunks; returns how many curves pass the filters. */
+    /** Pass one over all curves in parallel chunks, one reusable model per chunk; returns how many pass the filters. */
     private int boundPass(int[] bound, boolean[] eligible) {
         int n = store.size();
         int chunk = Math.max(1024, (n + CHUNKS - 1) / CHUNKS);
         return IntStream.range(0, (n + chunk - 1) / chunk).parallel().map(c -> {
+            CurveModel model = new CurveModel(plan, store, true);
             int from = c * chunk;
             int to = Math.min(n, from + chunk);
             int count = 0;
             for (int curve = from; curve < to; curve++) {
                 if (plan.admits(store, curve)) {
                     eligible[curve] = true;
-                    bound[curve] = plan.boundKey(store, curve);
+                    bound[curve] = model.load(curve).bestKey();
                     count++;
                 }
             }
@@ -95,68 +91,109 @@ public final class StoreSearch {
         }).sum();
     }
 
-    private int refine(int curve, Evaluation[] evaluations, int[] bestKey, int[] bestCurve) {
-        Evaluation e = plan.evaluate(store, curve);
-        evaluations[curve] = e;
-        int material = store.materialIndex(curve);
-        if (better(e.key(), curve, bestKey[material], bestCurve[material])) {
-            bestKey[material] = e.key();
-            bestCurve[material] = curve;
+    /** The curves evaluated on every probe, and the best of them per material. */
+    private final class Refinement {
+        final Map<Integer, Evaluation> evaluations = new HashMap<>();
+        final Map<Integer, Integer> bestCurveOfMaterial = new HashMap<>();
+
+        void add(int curve, CurveModel full) {
+            Evaluation e = full.load(curve).best();
+            evaluations.put(curve, e);
+            bestCurveOfMaterial.merge(store.materialIndex(curve), curve,
+                    (kept, offered) -> better(e.key(), offered, evaluations.get(kept).key(), kept) ? offered : kept);
         }
-        return 1;
+
+        /** The limit-th best material key so far; a curve whose bound is below it cannot enter the result. */
+        int kthBestMaterialKey(int limit) {
+            if (bestCurveOfMaterial.size() < limit) {
+                return Integer.MIN_VALUE;
+            }
+            int[] keys = bestCurveOfMaterial.values().stream().mapToInt(c -> evaluations.get(c).key()).sorted().toArray();
+            return keys[keys.length - limit];
+        }
+
+        List<StoreHit> topRows(int limit) {
+            List<Integer> materials = new ArrayList<>(bestCurveOfMaterial.keySet());
+            // same order as the exact ranking: verdict, margin, then material name and sample id for ties
+            materials.sort(Comparator.<Integer>comparingInt(m -> -evaluations.get(bestCurveOfMaterial.get(m)).key())
+                    .thenComparing(m -> store.materialAt(m).name())
+                    .thenComparingLong(m -> store.sampleId(bestCurveOfMaterial.get(m))));
+            List<StoreHit> hits = new ArrayList<>();
+            for (int m : materials.subList(0, Math.min(limit, materials.size()))) {
+                int curve = bestCurveOfMaterial.get(m);
+                Evaluation e = evaluations.get(curve);
+                hits.add(new StoreHit(curve, store.sampleId(curve), store.materialAt(m), e.verdict(), e.worstMargin(),
+                        e.thicknessMm(), e.thicknessRange()));
+            }
+            return hits;
+        }
     }
 
     /** Higher key first; equal keys: the lower curve index (the earlier stored sample) wins, deterministically. */
     private static boolean better(int key, int curve, int otherKey, int otherCurve) {
-        return otherCurve < 0 || key > otherKey || (key == otherKey && curve < otherCurve);
+        return key > otherKey || (key == otherKey && curve < otherCurve);
     }
 
-    private int[] bestByBound(int[] bound, boolean[] eligible, int count) {
-        PriorityQueue<Integer> heap = new PriorityQueue<>(Comparator.comparingInt((Integer c) -> bound[c])
-                .thenComparing(Comparator.<Integer>reverseOrder()));
+    /**
+     * The {@code count} eligible curves with the highest bounds: a primitive min-heap of (bound, curve)
+     * packed in longs, so a million candidates cost no boxing.
+     */
+    private static int[] bestByBound(int[] bound, boolean[] eligible, int count) {
+        long[] heap = new long[count];
+        int size = 0;
         for (int curve = 0; curve < bound.length; curve++) {
             if (!eligible[curve]) {
                 continue;
             }
-            if (heap.size() < count) {
-                heap.add(curve);
-            } else if (bound[curve] > bound[heap.peek()]) {
-                heap.poll();
-                heap.add(curve);
+            // higher bound wins; at equal bounds the lower curve index wins
+            long packed = ((long) bound[curve] << 32) | (0xFFFFFFFFL & ~curve);
+            if (size < count) {
+                heap[size] = packed;
+                siftUp(heap, size++);
+            } else if (packed > heap[0]) {
+                heap[0] = packed;
+                siftDown(heap, size);
             }
         }
-        return heap.stream().mapToInt(Integer::intValue).toArray();
-    }
-
-    /** The limit-th best material key so far; any curve whose bound is below it cannot enter the result. */
-    private static int kthBest(int[] bestKey, int limit) {
-        int[] keys = Arrays.stream(bestKey).filter(k -> k != Integer.MIN_VALUE).toArray();
-        if (keys.length < limit) {
-            return Integer.MIN_VALUE;
+        int[] curves = new int[size];
+        for (int i = 0; i < size; i++) {
+            curves[i] = ~(int) heap[i];
         }
-        Arrays.sort(keys);
-        return keys[keys.length - limit];
+        return curves;
     }
 
-    private List<StoreHit> topRows(int[] bestKey, int[] bestCurve, Evaluation[] evaluations, int limit) {
-        List<Integer> materials = new ArrayList<>();
-        for (int m = 0; m < bestKey.length; m++) {
-            if (bestCurve[m] >= 0) {
-                materials.add(m);
+    private static void siftUp(long[] heap, int i) {
+        while (i > 0) {
+            int parent = (i - 1) / 2;
+            if (heap[parent] <= heap[i]) {
+                return;
             }
+            long t = heap[parent];
+            heap[parent] = heap[i];
+            heap[i] = t;
+            i = parent;
         }
-        // same order as the exact ranking: verdict, margin, then material name and sample id for ties
-        materials.sort(Comparator.<Integer>comparingInt(m -> -bestKey[m])
-                .thenComparing(m -> store.materialAt(m).name())
-                .thenComparingLong(m -> store.sampleId(bestCurve[m])));
-        List<StoreHit> hits = new ArrayList<>();
-        for (int m : materials.subList(0, Math.min(limit, materials.size()))) {
-            int curve = bestCurve[m];
-            Evaluation e = evaluations[curve];
-            hits.add(new StoreHit(curve, store.sampleId(curve), store.materialAt(m), e.verdict(), e.worstMargin(),
-                    e.thicknessMm(), e.thicknessRange()));
+    }
+
+    private static void siftDown(long[] heap, int size) {
+        int i = 0;
+        while (true) {
+            int left = 2 * i + 1;
+            int smallest = i;
+            if (left < size && heap[left] < heap[smallest]) {
+                smallest = left;
+            }
+            if (left + 1 < size && heap[left + 1] < heap[smallest]) {
+                smallest = left + 1;
+            }
+            if (smallest == i) {
+                return;
+            }
+            long t = heap[smallest];
+            heap[smallest] = heap[i];
+            heap[i] = t;
+            i = smallest;
         }
-        return hits;
     }
 
     /** A curve's result in the store's model. */
@@ -230,12 +267,5 @@ public final class StoreSearch {
             return materialClass == null || store.material(curve).materialClass().equals(materialClass);
         }
 
-        int boundKey(SpectralStore store, int curve) {
-            return new CurveModel(this, store, curve, true).best().key();
-        }
-
-        Evaluation evaluate(SpectralStore store, int curve) {
-            return new CurveModel(this, store, curve, false).best();
-        }
     }
 }
