@@ -109,6 +109,37 @@ final class CurveModel {
         double f = probe.fractionHi();
         double od0 = (1 - f) * OdCode.opticalDensity(lo) + f * OdCode.opticalDensity(hi);
         boolean isBound = OdCode.isBound(lo) || (f > 0 && OdCode.isBound(hi));
+        addDecoded(od0, isBound, surfaceLoss, thresholdOd, isPass);
+    }
+
+    /**
+     * Points the model at a curve whose point probes were already decoded column by column (the fast pass):
+     * {@code state[k]} is {@link #READ}, {@link #BOUND} or {@link #UNMEASURED} for point probe k of
+     * {@link StoreSearch.Plan#pointProbes}.
+     */
+    CurveModel loadDecoded(int curve, double[] od0, byte[] state) {
+        this.d0 = store.thicknessMm(curve);
+        this.bulk = store.isBulk(curve) && plan.thickness.kind() != ThicknessSpec.Kind.AS_MEASURED;
+        points = 0;
+        anyUnmeasured = false;
+        double[] loss = plan.pointProbeLoss[store.indexModelOf(curve)];
+        List<StoreSearch.PointProbe> probes = plan.pointProbes;
+        for (int k = 0; k < od0.length; k++) {
+            if (state[k] == UNMEASURED) {
+                anyUnmeasured = true;
+            } else {
+                StoreSearch.PointProbe probe = probes.get(k);
+                addDecoded(od0[k], state[k] == BOUND, loss[k], probe.thresholdOd(), probe.pass());
+            }
+        }
+        return this;
+    }
+
+    static final byte READ = 0;
+    static final byte BOUND = 1;
+    static final byte UNMEASURED = 2;
+
+    private void addDecoded(double od0, boolean isBound, double surfaceLoss, double thresholdOd, boolean isPass) {
         // OD(d) = s + a0·d/d0; a reading above the lossless ceiling (noise) means no absorption, not gain
         double internal = Math.max(0, od0 - surfaceLoss);
         double perMm = bulk ? internal / d0 : 0;

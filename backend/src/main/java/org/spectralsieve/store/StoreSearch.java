@@ -1,6 +1,7 @@
 package org.spectralsieve.store;
 
 import java.util.ArrayList;
+import java.util.Arrays;
 import java.util.HashMap;
 import java.util.Map;
 import java.util.Comparator;
@@ -29,7 +30,8 @@ public final class StoreSearch {
 
     /** How many rows beyond the limit pass two evaluates at first, so that the first cut is usually final. */
     private static final int FIRST_CUT_FACTOR = 4;
-    private static final int CHUNKS = 64;
+    /** Curves per task of the first pass: small enough that a chunk's decoded probes stay in cache. */
+    private static final int CHUNK = 2048;
 
     private final SpectralStore store;
     private final Plan plan;
@@ -71,24 +73,63 @@ public final class StoreSearch {
         return new StoreResult(refinement.topRows(limit), eligibleCount, refinement.evaluations.size());
     }
 
-    /** Pass one over all curves in parallel chunks, one reusable model per chunk; returns how many pass the filters. */
+    /**
+     * Pass one over all curves in parallel chunks. Within a chunk each point probe's column is decoded in
+     * one tight loop (sequential reads of one array), then each curve's bound comes from one reusable model.
+     * Returns how many curves pass the filters.
+     */
     private int boundPass(int[] bound, boolean[] eligible) {
         int n = store.size();
-        int chunk = Math.max(1024, (n + CHUNKS - 1) / CHUNKS);
-        return IntStream.range(0, (n + chunk - 1) / chunk).parallel().map(c -> {
+        int tasks = (n + CHUNK - 1) / CHUNK;
+        return IntStream.range(0, tasks).parallel().map(c -> {
+            int from = c * CHUNK;
+            int to = Math.min(n, from + CHUNK);
+            int probes = plan.pointProbes.size();
+            double[][] od = new double[probes][to - from];
+            byte[][] state = new byte[probes][to - from];
+            for (int k = 0; k < probes; k++) {
+                decode(plan.pointProbes.get(k).probe(), from, to, od[k], state[k]);
+            }
             CurveModel model = new CurveModel(plan, store, true);
-            int from = c * chunk;
-            int to = Math.min(n, from + chunk);
+            double[] curveOd = new double[probes];
+            byte[] curveState = new byte[probes];
             int count = 0;
             for (int curve = from; curve < to; curve++) {
-                if (plan.admits(store, curve)) {
-                    eligible[curve] = true;
-                    bound[curve] = model.load(curve).bestKey();
-                    count++;
+                if (!plan.admits(store, curve)) {
+                    continue;
                 }
+                for (int k = 0; k < probes; k++) {
+                    curveOd[k] = od[k][curve - from];
+                    curveState[k] = state[k][curve - from];
+                }
+                eligible[curve] = true;
+                bound[curve] = model.loadDecoded(curve, curveOd, curveState).bestKey();
+                count++;
             }
             return count;
         }).sum();
+    }
+
+    /** Decodes one probe for curves [from, to): OD interpolated between its two columns, and its state. */
+    private void decode(Probe probe, int from, int to, double[] od, byte[] state) {
+        if (!probe.onGrid()) {
+            Arrays.fill(state, CurveModel.UNMEASURED);
+            return;
+        }
+        short[] lo = store.column(probe.lo());
+        short[] hi = store.column(probe.hi());
+        double f = probe.fractionHi();
+        for (int curve = from, j = 0; curve < to; curve++, j++) {
+            short a = lo[curve];
+            short b = hi[curve];
+            if (a == OdCode.NOT_MEASURED || b == OdCode.NOT_MEASURED) {
+                state[j] = CurveModel.UNMEASURED;
+                continue;
+            }
+            od[j] = ((1 - f) * (a & OdCode.LEVEL_MASK) + f * (b & OdCode.LEVEL_MASK)) * OdCode.STEP;
+            boolean isBound = (a & OdCode.BOUND_BIT) != 0 || (f > 0 && (b & OdCode.BOUND_BIT) != 0);
+            state[j] = isBound ? CurveModel.BOUND : CurveModel.READ;
+        }
     }
 
     /** The curves evaluated on every probe, and the best of them per material. */
@@ -196,6 +237,10 @@ public final class StoreSearch {
         }
     }
 
+    /** A probe of the first pass, with what the clause asks of it. */
+    record PointProbe(Probe probe, double thresholdOd, boolean pass) {
+    }
+
     /** A curve's result in the store's model. */
     record Evaluation(Verdict verdict, double worstMargin, double thicknessMm, double[] thicknessRange) {
         int key() {
@@ -230,6 +275,9 @@ public final class StoreSearch {
         final Boolean totalGeometry;
         /** surfaceLoss[model][clause][probe] in decades. */
         final double[][][] surfaceLoss;
+        /** The probes the first pass reads, in the order the curve model adds them, and their losses per model. */
+        final List<PointProbe> pointProbes;
+        final double[][] pointProbeLoss;
 
         private Plan(List<CompiledClause> clauses, ThicknessSpec thickness, String materialClass, Boolean total,
                      double[][][] surfaceLoss) {
@@ -238,6 +286,37 @@ public final class StoreSearch {
             this.materialClass = materialClass;
             this.totalGeometry = total;
             this.surfaceLoss = surfaceLoss;
+            List<PointProbe> probes = new ArrayList<>();
+            List<int[]> lossIndex = new ArrayList<>();
+            for (int c = 0; c < clauses.size(); c++) {
+                CompiledClause clause = clauses.get(c);
+                List<Probe> p = clause.probes();
+                switch (clause.kind()) {
+                    case EVERY_POINT_PASS, EVERY_POINT_BLOCK -> {
+                        boolean pass = clause.kind() == CompiledClause.Kind.EVERY_POINT_PASS;
+                        probes.add(new PointProbe(p.get(0), clause.thresholdOd(), pass));
+                        lossIndex.add(new int[] {c, 0});
+                        if (p.size() > 1) {
+                            probes.add(new PointProbe(p.get(p.size() - 1), clause.thresholdOd(), pass));
+                            lossIndex.add(new int[] {c, p.size() - 1});
+                        }
+                    }
+                    case CUTOFF -> {
+                        probes.add(new PointProbe(p.get(0), clause.thresholdOd(), false));
+                        lossIndex.add(new int[] {c, 0});
+                        probes.add(new PointProbe(p.get(1), clause.thresholdOd(), true));
+                        lossIndex.add(new int[] {c, 1});
+                    }
+                    default -> { } // means are left to the full evaluation
+                }
+            }
+            this.pointProbes = List.copyOf(probes);
+            this.pointProbeLoss = new double[surfaceLoss.length][probes.size()];
+            for (int model = 0; model < surfaceLoss.length; model++) {
+                for (int k = 0; k < probes.size(); k++) {
+                    pointProbeLoss[model][k] = surfaceLoss[model][lossIndex.get(k)[0]][lossIndex.get(k)[1]];
+                }
+            }
         }
 
         static Plan of(SpectralStore store, Requirement r) {
