@@ -52,7 +52,11 @@ final class CurveModel {
         bound = new boolean[capacity];
     }
 
+    /** Points a full model at a curve: every probe of every clause, means included. */
     CurveModel load(int curve) {
+        if (pointsOnly) {
+            throw new IllegalStateException("a points-only model is loaded with loadDecoded");
+        }
         this.d0 = store.thicknessMm(curve);
         // as measured, even a bulk sample is read as it is: no thickness model between data and verdict
         this.bulk = store.isBulk(curve) && plan.thickness.kind() != ThicknessSpec.Kind.AS_MEASURED;
@@ -84,11 +88,7 @@ final class CurveModel {
                     addPoint(store, curve, probes.get(0), loss[0], clause.thresholdOd(), false);
                     addPoint(store, curve, probes.get(1), loss[1], clause.thresholdOd(), true);
                 }
-                case MEAN_PASS, MEAN_BLOCK -> {
-                    if (!pointsOnly) {
-                        means.add(MeanCondition.of(store, curve, clause, loss, d0));
-                    }
-                }
+                case MEAN_PASS, MEAN_BLOCK -> means.add(MeanCondition.of(store, curve, clause, loss, d0));
             }
         }
         return this;
@@ -204,28 +204,15 @@ final class CurveModel {
 
     /** The verdict and worst margin at thickness d (a fixed layer's margins do not depend on d). */
     private void judge(double d, boolean forcedUnverified) {
-        boolean misses = false;
-        boolean unverified = anyUnmeasured || forcedUnverified;
+        int bits = anyUnmeasured || forcedUnverified ? ProbeVerdict.UNVERIFIED : ProbeVerdict.HOLDS;
         double lowest = Double.POSITIVE_INFINITY;
         for (int i = 0; i < points; i++) {
             double margin = intercept[i] + slope[i] * d; // slope is 0 for a fixed layer
             lowest = Math.min(lowest, margin);
-            if (bound[i] && pass[i]) {
-                // T is at most the bound: too dark even so proves a miss, otherwise nothing is proven
-                if (margin < 0) {
-                    misses = true;
-                } else {
-                    unverified = true;
-                }
-            } else if (bound[i]) {
-                // a block is proven when the bound itself is low enough; a higher bound cannot show it
-                if (margin < 0) {
-                    unverified = true;
-                }
-            } else if (margin < 0) {
-                misses = true;
-            }
+            bits |= ProbeVerdict.of(margin, bound[i], pass[i]);
         }
+        boolean misses = (bits & ProbeVerdict.MISSES) != 0;
+        boolean unverified = (bits & ProbeVerdict.UNVERIFIED) != 0;
         for (MeanCondition mean : means) {
             double margin = mean.margin(d, bulk);
             if (mean.unmeasured()) {

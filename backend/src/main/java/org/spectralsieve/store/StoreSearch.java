@@ -90,6 +90,9 @@ public final class StoreSearch {
             for (int k = 0; k < probes; k++) {
                 decode(plan.pointProbes.get(k).probe(), from, to, od[k], state[k]);
             }
+            if (plan.thickness.kind() != ThicknessSpec.Kind.RANGE) {
+                return boundsAtOneThickness(from, to, od, state, bound, eligible);
+            }
             CurveModel model = new CurveModel(plan, store, true);
             double[] curveOd = new double[probes];
             byte[] curveState = new byte[probes];
@@ -108,6 +111,57 @@ public final class StoreSearch {
             }
             return count;
         }).sum();
+    }
+
+    /**
+     * The first pass when every curve is judged at one thickness (as measured, or one asked thickness):
+     * probe by probe over the chunk, so each step is a short loop over plain arrays. Same rules as
+     * {@link CurveModel} ({@link ProbeVerdict}); thickness model as in the class comment.
+     */
+    private int boundsAtOneThickness(int from, int to, double[][] od, byte[][] state, int[] bound, boolean[] eligible) {
+        int len = to - from;
+        double[] lowest = new double[len];
+        int[] bits = new int[len];
+        Arrays.fill(lowest, Double.POSITIVE_INFINITY);
+        boolean rescale = plan.thickness.kind() == ThicknessSpec.Kind.FIXED;
+        double target = plan.thickness.minMm();
+        for (int k = 0; k < od.length; k++) {
+            PointProbe probe = plan.pointProbes.get(k);
+            double threshold = probe.thresholdOd();
+            boolean pass = probe.pass();
+            double[] values = od[k];
+            byte[] states = state[k];
+            for (int j = 0; j < len; j++) {
+                if (states[j] == CurveModel.UNMEASURED) {
+                    bits[j] |= ProbeVerdict.UNVERIFIED;
+                    continue;
+                }
+                double value = values[j];
+                int curve = from + j;
+                if (rescale && store.isBulk(curve)) {
+                    double s = plan.pointProbeLoss[store.indexModelOf(curve)][k];
+                    value = s + Math.max(0, value - s) * target / store.thicknessMm(curve);
+                }
+                double margin = pass ? threshold - value : value - threshold;
+                lowest[j] = Math.min(lowest[j], margin);
+                bits[j] |= ProbeVerdict.of(margin, states[j] == CurveModel.BOUND, pass);
+            }
+        }
+        int count = 0;
+        for (int j = 0; j < len; j++) {
+            int curve = from + j;
+            if (!plan.admits(store, curve)) {
+                continue;
+            }
+            if (rescale && !store.isBulk(curve) && Math.abs(store.thicknessMm(curve) - target) > 1e-9) {
+                bits[j] |= ProbeVerdict.UNVERIFIED; // a fixed layer cannot be rescaled to the asked thickness
+            }
+            double worst = lowest[j] == Double.POSITIVE_INFINITY ? Double.NaN : lowest[j];
+            eligible[curve] = true;
+            bound[curve] = Keys.of(ProbeVerdict.combine(bits[j]), worst);
+            count++;
+        }
+        return count;
     }
 
     /** Decodes one probe for curves [from, to): OD interpolated between its two columns, and its state. */
