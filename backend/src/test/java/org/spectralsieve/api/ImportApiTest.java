@@ -166,4 +166,161 @@ class ImportApiTest {
 
         assertThat(problem.path("detail").asString()).contains(String.valueOf(MAX_POINTS)).contains("sieve.imports.max-points");
     }
+
+    private static Multipart newMaterialForm(String file, String text, String name) {
+        return Multipart.file(file, text).field("materialName", name).field("materialClass", "plastic sheet")
+                .field("scaling", "bulk").field("thicknessMm", 3).field("instrument", "bench spectrometer")
+                .field("measuredOn", "2026-03-02");
+    }
+
+    @Test
+    void storeUnderANewMaterialReturnsTheSampleAndKeepsTheOriginalBytes() throws Exception {
+        String csv = ImportFiles.percentCsv();
+        JsonNode stored = post(newMaterialForm("new-sheet.csv", csv, "Illustrative new sheet"), "/api/imports", 201);
+
+        assertThat(stored.path("duplicate").asBoolean()).isFalse();
+        assertThat(stored.path("newMaterial").asBoolean()).isTrue();
+        assertThat(stored.path("materialSlug").asString()).isEqualTo("illustrative-new-sheet");
+        assertThat(stored.path("sample").path("thicknessMm").asDouble()).isEqualTo(3.0);
+        assertThat(stored.path("sample").path("measuredOn").asString()).isEqualTo("2026-03-02");
+        assertThat(stored.path("warnings").toString()).contains("n = 1.5");
+        long sampleId = stored.path("sampleId").asLong();
+        assertThat(db.select(CURVE.POINT_COUNT).from(CURVE).where(CURVE.SAMPLE_ID.eq(sampleId)).fetchOne(CURVE.POINT_COUNT))
+                .isEqualTo(5);
+        HttpResponse<byte[]> source = java.net.http.HttpClient.newHttpClient().send(java.net.http.HttpRequest.newBuilder(
+                java.net.URI.create("http://localhost:" + port + "/api/samples/" + sampleId + "/source-file")).build(),
+                HttpResponse.BodyHandlers.ofByteArray());
+        assertThat(source.statusCode()).isEqualTo(200);
+        assertThat(new String(source.body(), StandardCharsets.UTF_8)).isEqualTo(csv);
+        // the stored curve is found by the next search (the search store was invalidated)
+        JsonNode material = getJson("/api/materials/" + stored.path("materialId").asLong());
+        assertThat(material.path("samples").size()).isEqualTo(1);
+    }
+
+    @Test
+    void storeUnderAnExistingMaterialThenTheSameFileAgainIsRecognisedAsDuplicate() throws Exception {
+        long materialId = post(newMaterialForm("base.csv", ImportFiles.csvWithThickness(2), "Illustrative base stock"),
+                "/api/imports", 201).path("materialId").asLong();
+        String second = ImportFiles.csvWithThickness(4);
+        Multipart form = Multipart.file("thicker.csv", second).field("materialId", materialId);
+
+        JsonNode first = post(form, "/api/imports", 201);
+        int samples = db.fetchCount(SAMPLE);
+        JsonNode again = post(Multipart.file("thicker-copy.csv", second).field("materialId", materialId), "/api/imports", 200);
+
+        assertThat(first.path("sample").path("thicknessMm").asDouble()).isEqualTo(4.0); // from the file's thickness_mm
+        assertThat(first.path("newMaterial").asBoolean()).isFalse();
+        assertThat(again.path("duplicate").asBoolean()).isTrue();
+        assertThat(again.path("sampleId").asLong()).isEqualTo(first.path("sampleId").asLong());
+        assertThat(db.fetchCount(SAMPLE)).isEqualTo(samples);
+    }
+
+    @Test
+    void sameFileAtAnotherThicknessIsANewSample() throws Exception {
+        String csv = "wavelength_nm,T\n300,0.3\n400,0.7\n";
+        long materialId = post(newMaterialForm("a.csv", csv, "Illustrative twin stock"), "/api/imports", 201)
+                .path("materialId").asLong();
+
+        JsonNode other = post(Multipart.file("a.csv", csv).field("materialId", materialId).field("thicknessMm", 6),
+                "/api/imports", 201);
+
+        assertThat(other.path("duplicate").asBoolean()).isFalse();
+    }
+
+    @Test
+    void refusedFileStoresNothingAtAll() throws Exception {
+        int materials = db.fetchCount(MATERIAL);
+        int samples = db.fetchCount(SAMPLE);
+        int curves = db.fetchCount(CURVE);
+        int files = db.fetchCount(SOURCE_FILE);
+
+        JsonNode problem = post(newMaterialForm("broken.csv", "wavelength_nm,T\n300,0.3\n310,x\n", "Illustrative never"),
+                "/api/imports", 400);
+
+        assertThat(problem.path("line").asInt()).isEqualTo(3);
+        assertThat(db.fetchCount(MATERIAL)).isEqualTo(materials);
+        assertThat(db.fetchCount(SAMPLE)).isEqualTo(samples);
+        assertThat(db.fetchCount(CURVE)).isEqualTo(curves);
+        assertThat(db.fetchCount(SOURCE_FILE)).isEqualTo(files);
+    }
+
+    @Test
+    void bulkMaterialWithoutThicknessIsRefusedNamingThicknessMm() throws Exception {
+        Multipart form = Multipart.file("no-thickness.csv", "wavelength_nm,T\n300,0.3\n400,0.7\n")
+                .field("materialName", "Illustrative thin").field("materialClass", "film").field("scaling", "bulk");
+
+        JsonNode problem = post(form, "/api/imports", 400);
+
+        assertThat(problem.path("parameter").asString()).isEqualTo("thicknessMm");
+    }
+
+    @Test
+    void unknownMaterialIdIsNotFound() throws Exception {
+        post(Multipart.file("a.csv", ImportFiles.percentCsv()).field("materialId", 987654).field("thicknessMm", 3),
+                "/api/imports", 404);
+    }
+
+    @Test
+    void batchZipReportsTheBadRowAndStoresTheRest() throws Exception {
+        byte[] zip = Zips.of(
+                "manifest.csv", """
+                        file,material,thickness,geometry,provenance,instrument,date,notes,class,scaling,index_n
+                        a-3mm.csv,Illustrative batch stock,3,regular,measured,bench,2026-03-02,first,plastic sheet,bulk,1.49
+                        broken.csv,Illustrative batch stock,4,,,,,,,,
+                        missing.csv,Illustrative batch stock,5,,,,,,,,
+                        a-6mm.csv,illustrative-batch-stock,6,,,,,,,,
+                        """,
+                "a-3mm.csv", "wavelength_nm,T\n300,0.3\n400,0.7\n",
+                "a-6mm.csv", "wavelength_nm,T\n300,0.09\n400,0.49\n",
+                "broken.csv", "wavelength_nm,T\n300,0.3\n310,oops\n",
+                "stray.csv", "wavelength_nm,T\n300,0.3\n400,0.7\n");
+
+        JsonNode report = post(Multipart.file("batch.zip", zip), "/api/imports/batch", 200);
+
+        JsonNode files = report.path("files");
+        assertThat(files.size()).isEqualTo(4);
+        assertThat(files.get(0).path("outcome").asString()).isEqualTo("STORED");
+        assertThat(files.get(1).path("outcome").asString()).isEqualTo("REFUSED");
+        assertThat(files.get(1).path("line").asInt()).isEqualTo(3);
+        assertThat(files.get(1).path("message").asString()).contains("broken.csv line 3", "field 'T'");
+        assertThat(files.get(2).path("outcome").asString()).isEqualTo("REFUSED");
+        assertThat(files.get(2).path("message").asString()).contains("missing.csv", "not in the zip");
+        assertThat(files.get(3).path("outcome").asString()).isEqualTo("STORED");
+        assertThat(files.get(3).path("materialId").asLong()).isEqualTo(files.get(0).path("materialId").asLong());
+        assertThat(report.path("notInManifest").toString()).contains("stray.csv");
+    }
+
+    @Test
+    void zipWithAnEntryLeavingTheUploadIsRefusedWholeAndStoresNothing() throws Exception {
+        int samples = db.fetchCount(SAMPLE);
+        byte[] zip = Zips.of("manifest.csv", "file,material,thickness\nok.csv,Illustrative slip,3\n",
+                "ok.csv", "wavelength_nm,T\n300,0.3\n400,0.7\n",
+                "../evil.csv", "wavelength_nm,T\n300,0.3\n400,0.7\n");
+
+        JsonNode problem = post(Multipart.file("slip.zip", zip), "/api/imports/batch", 400);
+
+        assertThat(problem.path("detail").asString()).contains("../evil.csv").contains("'..'");
+        assertThat(db.fetchCount(SAMPLE)).isEqualTo(samples);
+    }
+
+    @Test
+    void zipWithMoreEntriesThanAllowedIsRefusedNamingTheSetting() throws Exception {
+        String[] entries = new String[2 * (MAX_ENTRIES + 1)];
+        for (int i = 0; i <= MAX_ENTRIES; i++) {
+            entries[2 * i] = "f" + i + ".csv";
+            entries[2 * i + 1] = "wavelength_nm,T\n300,0.3\n400,0.7\n";
+        }
+
+        JsonNode problem = post(Multipart.file("many.zip", Zips.of(entries)), "/api/imports/batch", 400);
+
+        assertThat(problem.path("detail").asString()).contains("more than " + MAX_ENTRIES + " entries");
+        assertThat(problem.path("setting").asString()).isEqualTo("sieve.imports.max-zip-entries");
+    }
+
+    private JsonNode getJson(String path) throws Exception {
+        HttpResponse<String> r = java.net.http.HttpClient.newHttpClient().send(java.net.http.HttpRequest.newBuilder(
+                java.net.URI.create("http://localhost:" + port + path)).build(), HttpResponse.BodyHandlers.ofString());
+        assertThat(r.statusCode()).as(r.body()).isEqualTo(200);
+        return JSON.readTree(r.body());
+    }
 }
