@@ -104,6 +104,18 @@ public class JooqLibraryRepository {
         return db.transactionResult(tx -> insertSampleRows(tx.dsl(), materialId, sample));
     }
 
+    /** Stores a sample, its curve and the file it was read from together: all three rows or none. */
+    public long insertSample(long materialId, NewSample sample, SourceFile file) {
+        if (!file.sha256().equals(sample.sourceSha256())) {
+            throw new IllegalArgumentException("the sample's checksum " + sample.sourceSha256() + " is not the file's " + file.sha256());
+        }
+        return db.transactionResult(tx -> {
+            long id = insertSampleRows(tx.dsl(), materialId, sample);
+            insertSourceFile(tx.dsl(), id, file);
+            return id;
+        });
+    }
+
     /**
      * Stores an imported file in one transaction: the material when it is new, the sample, its curve
      * and the file's original bytes; afterwards either all of these rows exist or none does. When the

@@ -317,6 +317,20 @@ class ImportApiTest {
         assertThat(problem.path("setting").asString()).isEqualTo("sieve.imports.max-zip-entries");
     }
 
+    @Test
+    void demoLibrarySamplesKeepTheirCurveFileUnderTheCurvesChecksum() throws Exception {
+        long sampleId = db.select(SAMPLE.ID).from(SAMPLE).orderBy(SAMPLE.ID).limit(1).fetchOne(SAMPLE.ID);
+        String sha = db.select(CURVE.SOURCE_SHA256).from(CURVE).where(CURVE.SAMPLE_ID.eq(sampleId)).fetchOne(CURVE.SOURCE_SHA256);
+
+        HttpResponse<byte[]> source = java.net.http.HttpClient.newHttpClient().send(java.net.http.HttpRequest.newBuilder(
+                java.net.URI.create("http://localhost:" + port + "/api/samples/" + sampleId + "/source-file")).build(),
+                HttpResponse.BodyHandlers.ofByteArray());
+
+        assertThat(source.statusCode()).isEqualTo(200);
+        assertThat(org.spectralsieve.ingest.Checksums.sha256(source.body())).isEqualTo(sha);
+        assertThat(source.headers().firstValue("X-Checksum-SHA256")).contains(sha);
+    }
+
     private JsonNode getJson(String path) throws Exception {
         HttpResponse<String> r = java.net.http.HttpClient.newHttpClient().send(java.net.http.HttpRequest.newBuilder(
                 java.net.URI.create("http://localhost:" + port + path)).build(), HttpResponse.BodyHandlers.ofString());

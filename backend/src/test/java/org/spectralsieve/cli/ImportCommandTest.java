@@ -89,6 +89,11 @@ class ImportCommandTest {
     }
 
     @Test
+    void importIsACommandLineEntryWord() {
+        assertThat(SieveCli.handles(new String[] {"import", "batch.zip"})).isTrue();
+    }
+
+    @Test
     void progressBarFillsInTenths() {
         assertThat(ImportCommand.bar(0, 40)).isEqualTo("[..........] 0/40");
         assertThat(ImportCommand.bar(12, 40)).isEqualTo("[###.......] 12/40");
