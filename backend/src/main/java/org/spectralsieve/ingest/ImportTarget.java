@@ -15,6 +15,9 @@ public sealed interface ImportTarget {
      * @param refractiveIndex null when not known: a constant n = {@value ImportService#DEFAULT_INDEX} is
      *                        assumed, with a warning
      */
+    /** As long as material.description may be (V1 migration). */
+    int MAX_DESCRIPTION = 4000;
+
     record NewMaterial(String name, MaterialClass materialClass, Scaling scaling, RefractiveIndex refractiveIndex,
                        String description) implements ImportTarget {
         public NewMaterial {
@@ -25,6 +28,10 @@ public sealed interface ImportTarget {
             Objects.requireNonNull(materialClass, "materialClass");
             Objects.requireNonNull(scaling, "scaling");
             description = Objects.requireNonNullElse(description, "");
+            if (description.length() > MAX_DESCRIPTION) {
+                throw new ImportRequestException("description", "at most " + MAX_DESCRIPTION + " characters, got "
+                        + description.length());
+            }
         }
     }
 }
