@@ -3,6 +3,10 @@ package org.spectralsieve.api;
 import java.net.URI;
 import org.slf4j.Logger;
 import org.slf4j.LoggerFactory;
+import org.spectralsieve.importers.ImportException;
+import org.spectralsieve.ingest.ImportLimitException;
+import org.spectralsieve.ingest.ImportProperties;
+import org.spectralsieve.ingest.ImportRequestException;
 import org.spectralsieve.ingest.IngestException;
 import org.spectralsieve.library.NotFoundException;
 import org.spectralsieve.library.NotRescalableException;
@@ -18,6 +22,7 @@ import org.springframework.web.bind.annotation.ExceptionHandler;
 import org.springframework.web.bind.annotation.RestControllerAdvice;
 import org.springframework.web.context.request.WebRequest;
 import org.springframework.web.method.annotation.MethodArgumentTypeMismatchException;
+import org.springframework.web.multipart.MaxUploadSizeExceededException;
 import org.springframework.web.servlet.mvc.method.annotation.ResponseEntityExceptionHandler;
 
 /**
@@ -28,6 +33,52 @@ import org.springframework.web.servlet.mvc.method.annotation.ResponseEntityExcep
 class ApiProblems extends ResponseEntityExceptionHandler {
 
     private static final Logger log = LoggerFactory.getLogger(ApiProblems.class);
+
+    private final ImportProperties importLimits;
+
+    ApiProblems(ImportProperties importLimits) {
+        this.importLimits = importLimits;
+    }
+
+    /** A file that cannot be read: where exactly, so the user can open it at that line. */
+    @ExceptionHandler(ImportException.class)
+    ProblemDetail unreadable(ImportException e) {
+        ProblemDetail problem = problem(HttpStatus.BAD_REQUEST, "File cannot be read", e.getMessage(), "bad-file");
+        problem.setProperty("file", e.sourceName());
+        problem.setProperty("line", e.line() == 0 ? null : e.line());
+        problem.setProperty("field", e.field());
+        problem.setProperty("problem", e.problem());
+        return problem;
+    }
+
+    @ExceptionHandler(ImportLimitException.class)
+    ProblemDetail beyondLimit(ImportLimitException e) {
+        HttpStatus status = e.kind() == ImportLimitException.Kind.SIZE ? HttpStatus.CONTENT_TOO_LARGE : HttpStatus.BAD_REQUEST;
+        String type = e.kind() == ImportLimitException.Kind.PATH ? "unsafe-path" : "import-limit";
+        ProblemDetail problem = problem(status, e.kind() == ImportLimitException.Kind.PATH ? "Path outside the upload"
+                : "Import limit exceeded", e.getMessage(), type);
+        problem.setProperty("file", e.sourceName());
+        problem.setProperty("setting", e.setting());
+        return problem;
+    }
+
+    @ExceptionHandler(ImportRequestException.class)
+    ProblemDetail badImportField(ImportRequestException e) {
+        ProblemDetail problem = problem(HttpStatus.BAD_REQUEST, "Bad parameter", "parameter " + e.getMessage(), "bad-parameter");
+        problem.setProperty("parameter", e.field());
+        return problem;
+    }
+
+    /** Thrown by the multipart parser before any controller runs; the cap is ours, so name it. */
+    @Override
+    protected ResponseEntity<Object> handleMaxUploadSizeExceededException(MaxUploadSizeExceededException e,
+            HttpHeaders headers, HttpStatusCode status, WebRequest request) {
+        ProblemDetail problem = problem(HttpStatus.CONTENT_TOO_LARGE, "Upload too large", "the upload is larger than the "
+                + importLimits.maxFileBytes() + " bytes allowed (sieve.imports.max-file-bytes)", "import-limit");
+        problem.setProperty("setting", "sieve.imports.max-file-bytes");
+        problem.setProperty("maxBytes", importLimits.maxFileBytes());
+        return ResponseEntity.status(HttpStatus.CONTENT_TOO_LARGE).body(problem);
+    }
 
     @ExceptionHandler(NotFoundException.class)
     ProblemDetail notFound(NotFoundException e) {

@@ -11,12 +11,12 @@ import picocli.CommandLine.Command;
 /** The entry of the command line: parses the arguments, runs one command, returns its exit code. */
 @Command(name = "spectral-sieve", mixinStandardHelpOptions = true, scope = CommandLine.ScopeType.INHERIT,
         versionProvider = SieveCli.Version.class,
-        description = "Search the transmittance library by requirement, list its materials, export a curve.",
-        subcommands = {SearchCommand.class, ExportCommand.class, MaterialsCommand.class, CommandLine.HelpCommand.class},
+        description = "Search the transmittance library by requirement, list its materials, export a curve, import files.",
+        subcommands = {SearchCommand.class, ExportCommand.class, MaterialsCommand.class, ImportCommand.class, CommandLine.HelpCommand.class},
         exitCodeListHeading = "%nExit codes:%n",
         exitCodeList = {
                 "0:done",
-                "1:understood but cannot be carried out (no such sample, database in use, ...)",
+                "1:understood but cannot be carried out (no such sample, database in use, a refused import, ...)",
                 "2:the command line cannot be read (bad option, requirement that does not parse)"})
 public final class SieveCli {
 
@@ -25,7 +25,7 @@ public final class SieveCli {
     public static final int USAGE = 2;
 
     /** First arguments that mean "run the command line" rather than "start the web service". */
-    private static final Set<String> ENTRY_WORDS = Set.of("search", "export", "materials", "help",
+    private static final Set<String> ENTRY_WORDS = Set.of("search", "export", "materials", "import", "help",
             "--help", "-h", "--version", "-V");
 
     private SieveCli() {

@@ -3,6 +3,7 @@ package org.spectralsieve.library;
 import static org.spectralsieve.library.db.Tables.CURVE;
 import static org.spectralsieve.library.db.Tables.MATERIAL;
 import static org.spectralsieve.library.db.Tables.SAMPLE;
+import static org.spectralsieve.library.db.Tables.SOURCE_FILE;
 
 import java.util.ArrayList;
 import java.util.Arrays;
@@ -18,6 +19,7 @@ import org.jooq.impl.DSL;
 import org.spectralsieve.library.db.tables.records.CurveRecord;
 import org.spectralsieve.library.db.tables.records.MaterialRecord;
 import org.spectralsieve.library.db.tables.records.SampleRecord;
+import org.spectralsieve.library.db.tables.records.SourceFileRecord;
 import org.spectralsieve.optics.ConstantIndex;
 import org.spectralsieve.optics.RefractiveIndex;
 import org.spectralsieve.optics.SellmeierIndex;
@@ -87,8 +89,110 @@ public class JooqLibraryRepository {
         return curves;
     }
 
+    /** The material whose name equals {@code name} ignoring case (the oldest when several do). */
+    public Optional<Long> findMaterialIdByName(String name) {
+        return db.select(MATERIAL.ID).from(MATERIAL).where(DSL.lower(MATERIAL.NAME).eq(name.trim().toLowerCase(Locale.ROOT)))
+                .orderBy(MATERIAL.ID).limit(1).fetchOptional(MATERIAL.ID);
+    }
+
     public long insertMaterial(NewMaterial material) {
-        MaterialRecord row = db.newRecord(MATERIAL);
+        return insertMaterialRow(db, material);
+    }
+
+    /** Stores a sample and its curve together: either both rows exist afterwards or neither does. */
+    public long insertSample(long materialId, NewSample sample) {
+        return db.transactionResult(tx -> insertSampleRows(tx.dsl(), materialId, sample));
+    }
+
+    /** Stores a sample, its curve and the file it was read from together: all three rows or none. */
+    public long insertSample(long materialId, NewSample sample, SourceFile file) {
+        if (!file.sha256().equals(sample.sourceSha256())) {
+            throw new IllegalArgumentException("the sample's checksum " + sample.sourceSha256() + " is not the file's " + file.sha256());
+        }
+        return db.transactionResult(tx -> {
+            long id = insertSampleRows(tx.dsl(), materialId, sample);
+            insertSourceFile(tx.dsl(), id, file);
+            return id;
+        });
+    }
+
+    /**
+     * Stores an imported file in one transaction: the material when it is new, the sample, its curve
+     * and the file's original bytes; afterwards either all of these rows exist or none does. When the
+     * material already holds a sample at the same thickness whose curve came from a file with the same
+     * checksum, nothing is written and that sample is returned as a duplicate.
+     *
+     * @param existingMaterialId the material to store under, or null to create {@code newMaterial}
+     * @param newMaterial        used only when {@code existingMaterialId} is null; its slug is made unique
+     *                           by a numeric suffix when taken
+     * @throws NotFoundException when the existing material does not exist
+     */
+    public StoredImport storeImport(Long existingMaterialId, NewMaterial newMaterial, NewSample sample, SourceFile file) {
+        if ((existingMaterialId == null) == (newMaterial == null)) {
+            throw new IllegalArgumentException("give either an existing material id or a new material, not both or neither");
+        }
+        if (!file.sha256().equals(sample.sourceSha256())) {
+            throw new IllegalArgumentException("the sample's checksum " + sample.sourceSha256()
+                    + " is not the file's " + file.sha256());
+        }
+        return db.transactionResult(tx -> {
+            DSLContext t = tx.dsl();
+            long materialId;
+            String slug;
+            if (existingMaterialId != null) {
+                materialId = existingMaterialId;
+                slug = t.select(MATERIAL.SLUG).from(MATERIAL).where(MATERIAL.ID.eq(materialId)).fetchOptional(MATERIAL.SLUG)
+                        .orElseThrow(() -> new NotFoundException("material", existingMaterialId));
+                Optional<Long> same = findDuplicate(t, materialId, sample.sourceSha256(), sample.thicknessMm());
+                if (same.isPresent()) {
+                    return new StoredImport(materialId, slug, same.get(), true, false);
+                }
+            } else {
+                NewMaterial unique = withUniqueSlug(t, newMaterial);
+                materialId = insertMaterialRow(t, unique);
+                slug = unique.slug();
+            }
+            long sampleId = insertSampleRows(t, materialId, sample);
+            insertSourceFile(t, sampleId, file);
+            return new StoredImport(materialId, slug, sampleId, false, existingMaterialId == null);
+        });
+    }
+
+    /** The sample of this material at this thickness whose curve came from a file with this checksum. */
+    public Optional<Long> findDuplicate(long materialId, String sha256, double thicknessMm) {
+        return findDuplicate(db, materialId, sha256, thicknessMm);
+    }
+
+    private static Optional<Long> findDuplicate(DSLContext t, long materialId, String sha256, double thicknessMm) {
+        return t.select(SAMPLE.ID).from(CURVE).join(SAMPLE).on(SAMPLE.ID.eq(CURVE.SAMPLE_ID))
+                .where(CURVE.SOURCE_SHA256.eq(sha256))
+                .and(SAMPLE.MATERIAL_ID.eq(materialId))
+                .and(SAMPLE.THICKNESS_MM.eq(thicknessMm))
+                .orderBy(SAMPLE.ID).limit(1).fetchOptional(SAMPLE.ID);
+    }
+
+    /** The original bytes a sample was imported from; empty for samples stored without them. */
+    public Optional<SourceFile> findSourceFile(long sampleId) {
+        return db.selectFrom(SOURCE_FILE).where(SOURCE_FILE.SAMPLE_ID.eq(sampleId)).fetchOptional()
+                .map(r -> new SourceFile(r.getFileName(), r.getMediaType(), r.getFormat(), r.getBytes(), r.getSha256()));
+    }
+
+    private static NewMaterial withUniqueSlug(DSLContext t, NewMaterial m) {
+        String slug = m.slug();
+        for (int n = 2; t.fetchExists(MATERIAL, MATERIAL.SLUG.eq(slug)); n++) {
+            slug = m.slug() + "-" + n;
+        }
+        return new NewMaterial(slug, m.name(), m.materialClass(), m.description(), m.tags(), m.scaling(),
+                m.refractiveIndex());
+    }
+
+    /** A slug made from a material's name, for materials created by an import. */
+    public static String slugFor(String name) {
+        return Slugs.fromName(name);
+    }
+
+    private static long insertMaterialRow(DSLContext t, NewMaterial material) {
+        MaterialRecord row = t.newRecord(MATERIAL);
         row.setSlug(material.slug());
         row.setName(material.name());
         row.setMaterialClass(material.materialClass().label());
@@ -100,35 +204,47 @@ public class JooqLibraryRepository {
         return row.getId();
     }
 
-    /** Stores a sample and its curve together: either both rows exist afterwards or neither does. */
-    public long insertSample(long materialId, NewSample sample) {
-        return db.transactionResult(tx -> {
-            DSLContext t = tx.dsl();
-            SampleRecord row = t.newRecord(SAMPLE);
-            row.setMaterialId(materialId);
-            row.setThicknessMm(sample.thicknessMm());
-            row.setGeometry(sample.geometry().label());
-            row.setProvenance(sample.provenance().label());
-            row.setInstrument(sample.instrument());
-            row.setMeasuredOn(sample.measuredOn());
-            row.setLot(sample.lot());
-            row.setNotes(sample.notes());
-            row.setDetectionLimit(sample.detectionLimit());
-            row.store();
+    private static long insertSampleRows(DSLContext t, long materialId, NewSample sample) {
+        SampleRecord row = t.newRecord(SAMPLE);
+        row.setMaterialId(materialId);
+        row.setThicknessMm(sample.thicknessMm());
+        row.setGeometry(sample.geometry().label());
+        row.setProvenance(sample.provenance().label());
+        row.setInstrument(sample.instrument());
+        row.setMeasuredOn(sample.measuredOn());
+        row.setLot(sample.lot());
+        row.setNotes(sample.notes());
+        row.setDetectionLimit(sample.detectionLimit());
+        row.store();
 
-            Curve curve = sample.curve();
-            CurveRecord curveRow = t.newRecord(CURVE);
-            curveRow.setSampleId(row.getId());
-            curveRow.setPointCount(curve.size());
-            curveRow.setWavelengthsNm(PackedArrays.pack(curve.wavelengthsNm()));
-            curveRow.setTransmittance(PackedArrays.pack(curve.transmittances()));
-            curveRow.setBelowDetection(PackedArrays.pack(curve.belowDetectionFlags()));
-            curveRow.setDetectionLimits(perPointLimitsIfNeeded(curve, sample.detectionLimit()));
-            curveRow.setSourceFileName(sample.sourceFileName());
-            curveRow.setSourceSha256(sample.sourceSha256());
-            curveRow.store();
-            return row.getId();
-        });
+        Curve curve = sample.curve();
+        CurveRecord curveRow = t.newRecord(CURVE);
+        curveRow.setSampleId(row.getId());
+        curveRow.setPointCount(curve.size());
+        curveRow.setWavelengthsNm(PackedArrays.pack(curve.wavelengthsNm()));
+        curveRow.setTransmittance(PackedArrays.pack(curve.transmittances()));
+        curveRow.setBelowDetection(PackedArrays.pack(curve.belowDetectionFlags()));
+        curveRow.setDetectionLimits(perPointLimitsIfNeeded(curve, sample.detectionLimit()));
+        curveRow.setSourceFileName(sample.sourceFileName());
+        curveRow.setSourceSha256(sample.sourceSha256());
+        curveRow.store();
+        return row.getId();
+    }
+
+    /**
+     * The last write of an import, after the sample and curve rows; protected so that a test can make
+     * it fail and check that the transaction leaves no row behind.
+     */
+    protected void insertSourceFile(DSLContext t, long sampleId, SourceFile file) {
+        SourceFileRecord row = t.newRecord(SOURCE_FILE);
+        row.setSampleId(sampleId);
+        row.setFileName(file.fileName());
+        row.setMediaType(file.mediaType());
+        row.setFormat(file.format());
+        row.setSizeBytes((long) file.size());
+        row.setBytes(file.bytes());
+        row.setSha256(file.sha256());
+        row.store();
     }
 
     private static byte[] perPointLimitsIfNeeded(Curve curve, double sampleLimit) {

@@ -24,6 +24,7 @@ import org.spectralsieve.library.NewSample;
 import org.spectralsieve.library.Provenance;
 import org.spectralsieve.library.RefractiveIndexJson;
 import org.spectralsieve.library.Scaling;
+import org.spectralsieve.library.SourceFile;
 import org.springframework.core.io.Resource;
 import org.springframework.core.io.ResourceLoader;
 import tools.jackson.databind.JsonNode;
@@ -73,7 +74,7 @@ public class DemoLibraryLoader {
     private int loadMaterial(JsonNode m) {
         String slug = m.path("slug").asString("");
         NewMaterial material;
-        List<NewSample> samples = new ArrayList<>();
+        List<SeedSample> samples = new ArrayList<>();
         try {
             material = new NewMaterial(slug, m.path("name").asString(""), MaterialClass.of(m.path("class").asString("")),
                     m.path("description").asString(""), strings(m.path("tags")), Scaling.parse(m.path("scaling").asString("")),
@@ -86,12 +87,16 @@ public class DemoLibraryLoader {
         }
         db.transaction(tx -> {
             long id = library.insertMaterial(material);
-            samples.forEach(sample -> library.insertSample(id, sample));
+            samples.forEach(s -> library.insertSample(id, s.sample(), s.file()));
         });
         return samples.size();
     }
 
-    private NewSample sample(JsonNode s) {
+    /** A catalogue sample with the bytes of its curve file, kept like an imported file's. */
+    private record SeedSample(NewSample sample, SourceFile file) {
+    }
+
+    private SeedSample sample(JsonNode s) {
         String file = s.path("file").asString("");
         byte[] bytes = bytes(file);
         ParsedSpectrum parsed;
@@ -101,10 +106,12 @@ public class DemoLibraryLoader {
             throw new IllegalArgumentException(e.getMessage(), e);
         }
         double limit = s.path("detectionLimit").asDouble(0);
-        return new NewSample(s.path("thicknessMm").asDouble(Double.NaN), Geometry.parse(s.path("geometry").asString("")),
+        String sha256 = Checksums.sha256(bytes);
+        NewSample sample = new NewSample(s.path("thicknessMm").asDouble(Double.NaN), Geometry.parse(s.path("geometry").asString("")),
                 Provenance.parse(s.path("provenance").asString("")), s.path("instrument").asString(""), null,
                 s.path("lot").asString(""), s.path("notes").asString(""), limit, CurveIngest.toCurve(parsed, limit),
-                file, Checksums.sha256(bytes));
+                file, sha256);
+        return new SeedSample(sample, new SourceFile(file, "text/csv", "delimited", bytes, sha256));
     }
 
     private byte[] bytes(String file) {

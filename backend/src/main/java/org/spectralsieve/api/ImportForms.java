@@ -1,0 +1,86 @@
+package org.spectralsieve.api;
+
+import org.spectralsieve.ingest.ImportOptions;
+import org.spectralsieve.ingest.ImportRequestException;
+import org.spectralsieve.ingest.ImportTarget;
+import org.spectralsieve.ingest.OptionText;
+import org.spectralsieve.ingest.SampleFields;
+import org.spectralsieve.optics.ConstantIndex;
+
+/**
+ * The multipart form fields of the import endpoints, bound by name. All are text so that a bad value
+ * is refused by {@link OptionText} with a message naming the field, never by a type conversion.
+ */
+final class ImportForms {
+
+    private ImportForms() {
+    }
+
+    /**
+     * How to read the file; every field optional.
+     *
+     * @param format          delimited, jcamp-dx, raw-counts, datasheet-points (default: detected)
+     * @param yKind           percent, fraction, absorbance (default: detected)
+     * @param decimalMark     point or comma (default: detected)
+     * @param replicates      first (default), mean, separate
+     * @param mergeDuplicates true to average rows repeating a wavelength (default false: refused)
+     * @param detectionLimit  fraction in [0, 1); default the file's detection_limit, else 0
+     * @param strayLightFloor raw counts: fraction in [0, 1), default 0
+     * @param fullScale       raw counts: detector maximum count, default unknown
+     */
+    record ReadForm(String format, String yKind, String decimalMark, String replicates, String mergeDuplicates,
+                    String detectionLimit, String strayLightFloor, String fullScale) {
+        ImportOptions options() {
+            return OptionText.options(format, yKind, decimalMark, replicates, mergeDuplicates, detectionLimit,
+                    strayLightFloor, fullScale);
+        }
+    }
+
+    /**
+     * Where to store and what the sample is: either {@code materialId}, or {@code materialName} with
+     * {@code materialClass}, {@code scaling} (bulk|fixed) and optionally {@code indexN} and
+     * {@code description} for a new material.
+     */
+    record StoreForm(String materialId, String materialName, String materialClass, String scaling, String indexN,
+                     String description, String thicknessMm, String geometry, String provenance, String instrument,
+                     String measuredOn, String lot, String notes) {
+
+        ImportTarget target() {
+            boolean existing = materialId != null && !materialId.isBlank();
+            boolean fresh = materialName != null && !materialName.isBlank();
+            if (existing == fresh) {
+                throw new ImportRequestException(existing ? "materialName" : "materialId",
+                        "give either materialId (an existing material) or materialName with materialClass and scaling"
+                                + " (a new one), not " + (existing ? "both" : "neither"));
+            }
+            if (existing) {
+                try {
+                    return new ImportTarget.ExistingMaterial(Long.parseLong(materialId.strip()));
+                } catch (NumberFormatException e) {
+                    throw new ImportRequestException("materialId", "'" + materialId + "' is not a whole number");
+                }
+            }
+            ConstantIndex index = null;
+            var n = OptionText.number("indexN", indexN);
+            if (n.isPresent()) {
+                try {
+                    index = new ConstantIndex(n.getAsDouble());
+                } catch (IllegalArgumentException e) {
+                    throw new ImportRequestException("indexN", e.getMessage());
+                }
+            }
+            return new ImportTarget.NewMaterial(materialName, OptionText.materialClass("materialClass", materialClass),
+                    OptionText.scaling("scaling", scaling), index, description);
+        }
+
+        SampleFields fields() {
+            return new SampleFields(OptionText.positiveOrNull("thicknessMm", thicknessMm),
+                    OptionText.geometry("geometry", geometry), OptionText.provenance("provenance", provenance),
+                    blankToNull(instrument), OptionText.date("measuredOn", measuredOn), blankToNull(lot), blankToNull(notes));
+        }
+
+        private static String blankToNull(String s) {
+            return s == null || s.isBlank() ? null : s.strip();
+        }
+    }
+}

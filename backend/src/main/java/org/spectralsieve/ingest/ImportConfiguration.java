@@ -1,0 +1,21 @@
+package org.spectralsieve.ingest;
+
+import org.spectralsieve.library.JooqLibraryRepository;
+import org.spectralsieve.search.SearchService;
+import org.springframework.context.annotation.Bean;
+import org.springframework.context.annotation.Configuration;
+
+/** Wires the import services; they themselves know nothing of Spring. */
+@Configuration
+class ImportConfiguration {
+
+    @Bean
+    ImportService importService(JooqLibraryRepository library, SearchService search, ImportProperties limits) {
+        return new ImportService(library, search::invalidate, limits);
+    }
+
+    @Bean
+    BatchImport batchImport(ImportService imports, JooqLibraryRepository library, ImportProperties limits) {
+        return new BatchImport(imports, library, limits);
+    }
+}

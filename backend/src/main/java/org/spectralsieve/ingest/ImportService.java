@@ -1,0 +1,183 @@
+package org.spectralsieve.ingest;
+
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Objects;
+import org.spectralsieve.importers.ImportException;
+import org.spectralsieve.library.Geometry;
+import org.spectralsieve.library.JooqLibraryRepository;
+import org.spectralsieve.library.Material;
+import org.spectralsieve.library.NewMaterial;
+import org.spectralsieve.library.NewSample;
+import org.spectralsieve.library.NotFoundException;
+import org.spectralsieve.library.Provenance;
+import org.spectralsieve.library.Scaling;
+import org.spectralsieve.library.SourceFile;
+import org.spectralsieve.library.StoredImport;
+import org.spectralsieve.optics.ConstantIndex;
+import org.spectralsieve.optics.RefractiveIndex;
+
+/**
+ * Previews and stores single files. A store writes the material (when new), the sample, its curve and
+ * the original bytes in one transaction, so a refused or failed import leaves nothing behind; a file
+ * already stored for the same material and thickness (same SHA-256) is recognised and not stored again.
+ * After every commit the search store is dropped so that searches see the new curve.
+ */
+public final class ImportService {
+
+    /** Assumed when a new material comes without an index: typical of glasses and plastics (common practice, no source). */
+    public static final double DEFAULT_INDEX = 1.5;
+
+    static final int MAX_INSTRUMENT = 200;
+    static final int MAX_LOT = 100;
+    static final int MAX_NOTES = 4000;
+
+    private final JooqLibraryRepository library;
+    private final Runnable afterCommit;
+    private final ImportProperties limits;
+    private final FileImport reader;
+
+    /** @param afterCommit run after each committed import (the search service's invalidate) */
+    public ImportService(JooqLibraryRepository library, Runnable afterCommit, ImportProperties limits) {
+        this.library = Objects.requireNonNull(library, "library");
+        this.afterCommit = Objects.requireNonNull(afterCommit, "afterCommit");
+        this.limits = Objects.requireNonNull(limits, "limits");
+        this.reader = new FileImport(limits.maxPoints());
+    }
+
+    public ImportProperties limits() {
+        return limits;
+    }
+
+    /** Reads the file as {@link #store} would, without storing anything. */
+    public FilePreview preview(String fileName, byte[] bytes, ImportOptions options) throws ImportException {
+        String name = cleanName(fileName);
+        checkSize(name, bytes.length);
+        return reader.read(name, bytes, options);
+    }
+
+    /**
+     * @throws ImportException        the file cannot be read (file, line, field)
+     * @throws IngestException        it reads but cannot be a curve
+     * @throws ImportLimitException   beyond a configured limit
+     * @throws ImportRequestException a sample or material field is missing or wrong
+     * @throws NotFoundException      the existing material does not exist
+     */
+    public ImportResult store(String fileName, byte[] bytes, ImportOptions options, ImportTarget target,
+                              SampleFields fields) throws ImportException {
+        Objects.requireNonNull(target, "target");
+        Objects.requireNonNull(fields, "fields");
+        FilePreview preview = preview(fileName, bytes, options);
+        List<String> warnings = new ArrayList<>(preview.warnings());
+        Long existingId = null;
+        NewMaterial newMaterial = null;
+        Scaling scaling;
+        if (target instanceof ImportTarget.ExistingMaterial e) {
+            Material m = library.findMaterial(e.materialId()).orElseThrow(() -> new NotFoundException("material", e.materialId()));
+            existingId = m.id();
+            scaling = m.scaling();
+        } else {
+            ImportTarget.NewMaterial n = (ImportTarget.NewMaterial) target;
+            // a second material of the same name is almost always a re-import aimed at the wrong target
+            library.findMaterialIdByName(n.name()).ifPresent(id -> {
+                throw new ImportRequestException("materialName", "a material named '" + n.name()
+                        + "' already exists (id " + id + "); store under it with materialId=" + id + " or choose another name");
+            });
+            newMaterial = newMaterial(n, warnings);
+            scaling = n.scaling();
+        }
+        NewSample sample = sample(preview, fields, scaling, warnings);
+        SourceFile source = new SourceFile(preview.fileName(), preview.format().mediaType(), preview.format().label(), bytes,
+                preview.sha256());
+        StoredImport stored = library.storeImport(existingId, newMaterial, sample, source);
+        if (stored.duplicate()) {
+            warnings.add("this file (SHA-256 " + preview.sha256().substring(0, 12) + "…) is already stored for this"
+                    + " material at " + sample.thicknessMm() + " mm as sample " + stored.sampleId() + "; nothing was added");
+        } else {
+            afterCommit.run();
+        }
+        return new ImportResult(stored.materialId(), stored.materialSlug(), stored.newMaterial(),
+                library.findSample(stored.sampleId()).orElseThrow(), stored.duplicate(), preview, warnings);
+    }
+
+    private static NewMaterial newMaterial(ImportTarget.NewMaterial n, List<String> warnings) {
+        RefractiveIndex index = n.refractiveIndex();
+        if (index == null) {
+            index = new ConstantIndex(DEFAULT_INDEX);
+            warnings.add("no refractive index given for '" + n.name() + "': a constant n = " + DEFAULT_INDEX
+                    + " is assumed (typical of glasses and plastics); it only sets the surface reflection used when"
+                    + " rescaling to another thickness");
+        }
+        try {
+            return new NewMaterial(JooqLibraryRepository.slugFor(n.name()), n.name(), n.materialClass(), n.description(),
+                    List.of(), n.scaling(), index);
+        } catch (IllegalArgumentException e) {
+            throw new ImportRequestException("materialName", e.getMessage());
+        }
+    }
+
+    private static NewSample sample(FilePreview p, SampleFields f, Scaling scaling, List<String> warnings)
+            throws ImportException {
+        double thickness = thickness(p, f, scaling);
+        String instrument = f.instrument() != null ? f.instrument() : p.metadata().getOrDefault("instrument", "");
+        Provenance provenance = f.provenance() != null ? f.provenance() : p.provenance();
+        if (p.format() == ImportFormat.DATASHEET_POINTS && provenance != Provenance.DATASHEET) {
+            warnings.add("points read off a datasheet graph stored with provenance '" + provenance.label() + "' as asked");
+        }
+        return new NewSample(thickness, f.geometry() == null ? Geometry.REGULAR : f.geometry(), provenance,
+                limited("instrument", instrument, MAX_INSTRUMENT), f.measuredOn(), limited("lot", f.lot(), MAX_LOT),
+                limited("notes", f.notes(), MAX_NOTES), p.detectionLimit(), p.curve(), p.fileName(), p.sha256());
+    }
+
+    private static double thickness(FilePreview p, SampleFields f, Scaling scaling) throws ImportException {
+        if (f.thicknessMm() != null) {
+            double t = f.thicknessMm();
+            if (!(t > 0) || !Double.isFinite(t)) {
+                throw new ImportRequestException("thicknessMm", "must be a positive number of millimetres, got " + t);
+            }
+            return t;
+        }
+        String fromFile = p.metadata().get("thickness_mm");
+        if (fromFile != null) {
+            try {
+                double t = Double.parseDouble(fromFile.strip());
+                if (t > 0 && Double.isFinite(t)) {
+                    return t;
+                }
+            } catch (NumberFormatException e) {
+                // reported below
+            }
+            throw new ImportException(p.fileName(), 0, "thickness_mm", "must be a positive number of millimetres, was '"
+                    + fromFile + "'");
+        }
+        throw new ImportRequestException("thicknessMm", scaling == Scaling.BULK
+                ? "required for a bulk material: its curve is rescaled from this thickness"
+                : "required (the file gives no thickness_mm); for a fixed material it is recorded, never rescaled");
+    }
+
+    private static String limited(String field, String value, int max) {
+        if (value != null && value.length() > max) {
+            throw new ImportRequestException(field, "at most " + max + " characters, got " + value.length());
+        }
+        return value;
+    }
+
+    private void checkSize(String name, long size) {
+        if (size > limits.maxFileBytes()) {
+            throw new ImportLimitException(name, ImportLimitException.Kind.SIZE, "sieve.imports.max-file-bytes",
+                    "the file has " + size + " bytes, more than the " + limits.maxFileBytes()
+                            + " allowed (sieve.imports.max-file-bytes)");
+        }
+    }
+
+    /** The last path segment of an upload name, as browsers on some systems send the whole path. */
+    static String cleanName(String fileName) {
+        String name = fileName == null ? "" : fileName.strip();
+        name = name.substring(Math.max(name.lastIndexOf('/'), name.lastIndexOf('\\')) + 1);
+        name = name.replaceAll("\\p{Cntrl}", "");
+        if (name.isEmpty()) {
+            name = "upload";
+        }
+        return name.length() > SourceFile.MAX_NAME ? name.substring(name.length() - SourceFile.MAX_NAME) : name;
+    }
+}

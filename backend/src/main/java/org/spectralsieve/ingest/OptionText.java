@@ -1,0 +1,164 @@
+package org.spectralsieve.ingest;
+
+import java.time.LocalDate;
+import java.time.format.DateTimeParseException;
+import java.util.Locale;
+import java.util.Optional;
+import java.util.OptionalDouble;
+import org.spectralsieve.importers.DecimalMark;
+import org.spectralsieve.importers.Replicates;
+import org.spectralsieve.importers.YKind;
+import org.spectralsieve.library.Geometry;
+import org.spectralsieve.library.MaterialClass;
+import org.spectralsieve.library.Provenance;
+import org.spectralsieve.library.Scaling;
+
+/**
+ * Import options and sample fields as users write them (HTTP form fields, manifest cells), parsed in one
+ * place so both refuse the same mistakes with the same words. Blank means "not given"; every refusal is
+ * an {@link ImportRequestException} naming the field.
+ */
+public final class OptionText {
+
+    private OptionText() {
+    }
+
+    static boolean blank(String s) {
+        return s == null || s.isBlank();
+    }
+
+    public static Optional<ImportFormat> format(String field, String s) {
+        return blank(s) ? Optional.empty() : Optional.of(wrap(field, () -> ImportFormat.parse(s)));
+    }
+
+    /** {@code percent}, {@code fraction}, {@code absorbance} (also {@code od}), or the constant name. */
+    public static Optional<YKind> yKind(String field, String s) {
+        if (blank(s)) {
+            return Optional.empty();
+        }
+        return Optional.of(switch (s.strip().toLowerCase(Locale.ROOT).replace('-', '_')) {
+            case "percent", "%t", "transmittance_percent" -> YKind.TRANSMITTANCE_PERCENT;
+            case "fraction", "transmittance", "transmittance_fraction" -> YKind.TRANSMITTANCE_FRACTION;
+            case "absorbance", "od", "optical_density" -> YKind.ABSORBANCE;
+            default -> throw new ImportRequestException(field, "'" + s + "' is not one of percent, fraction, absorbance");
+        });
+    }
+
+    public static Optional<DecimalMark> decimalMark(String field, String s) {
+        if (blank(s)) {
+            return Optional.empty();
+        }
+        return Optional.of(switch (s.strip().toLowerCase(Locale.ROOT)) {
+            case "point", "." -> DecimalMark.POINT;
+            case "comma", "," -> DecimalMark.COMMA;
+            default -> throw new ImportRequestException(field, "'" + s + "' is not one of point, comma");
+        });
+    }
+
+    public static Replicates replicates(String field, String s) {
+        if (blank(s)) {
+            return Replicates.FIRST;
+        }
+        for (Replicates r : Replicates.values()) {
+            if (r.name().equalsIgnoreCase(s.strip())) {
+                return r;
+            }
+        }
+        throw new ImportRequestException(field, "'" + s + "' is not one of first, mean, separate");
+    }
+
+    public static boolean bool(String field, String s) {
+        if (blank(s)) {
+            return false;
+        }
+        return switch (s.strip().toLowerCase(Locale.ROOT)) {
+            case "true", "yes", "1", "on" -> true;
+            case "false", "no", "0", "off" -> false;
+            default -> throw new ImportRequestException(field, "'" + s + "' is not true or false");
+        };
+    }
+
+    public static OptionalDouble number(String field, String s) {
+        if (blank(s)) {
+            return OptionalDouble.empty();
+        }
+        try {
+            double v = Double.parseDouble(s.strip());
+            if (!Double.isFinite(v)) {
+                throw new NumberFormatException();
+            }
+            return OptionalDouble.of(v);
+        } catch (NumberFormatException e) {
+            throw new ImportRequestException(field, "'" + s + "' is not a number");
+        }
+    }
+
+    public static Double positiveOrNull(String field, String s) {
+        OptionalDouble v = number(field, s);
+        if (v.isPresent() && !(v.getAsDouble() > 0)) {
+            throw new ImportRequestException(field, "must be above 0, got " + s.strip());
+        }
+        return v.isPresent() ? v.getAsDouble() : null;
+    }
+
+    public static LocalDate date(String field, String s) {
+        if (blank(s)) {
+            return null;
+        }
+        try {
+            return LocalDate.parse(s.strip());
+        } catch (DateTimeParseException e) {
+            throw new ImportRequestException(field, "'" + s + "' is not a date written as YYYY-MM-DD");
+        }
+    }
+
+    public static Geometry geometry(String field, String s) {
+        return blank(s) ? null : wrap(field, () -> Geometry.parse(s));
+    }
+
+    public static Provenance provenance(String field, String s) {
+        return blank(s) ? null : wrap(field, () -> Provenance.parse(s));
+    }
+
+    public static Scaling scaling(String field, String s) {
+        if (blank(s)) {
+            throw new ImportRequestException(field, "a new material needs its scaling: bulk (rescaled by thickness) or"
+                    + " fixed (a coating or laminate, used only as measured)");
+        }
+        return wrap(field, () -> Scaling.parse(s));
+    }
+
+    public static MaterialClass materialClass(String field, String s) {
+        if (blank(s)) {
+            throw new ImportRequestException(field, "a new material needs its class, e.g. one of " + MaterialClass.KNOWN);
+        }
+        return wrap(field, () -> MaterialClass.of(s));
+    }
+
+    /** The import options from their text forms; the field names are those of the HTTP form. */
+    public static ImportOptions options(String format, String yKind, String decimalMark, String replicates,
+                                        String mergeDuplicates, String detectionLimit, String strayLightFloor,
+                                        String fullScale) {
+        return wrap("options", () -> new ImportOptions(format("format", format), yKind("yKind", yKind),
+                decimalMark("decimalMark", decimalMark), replicates("replicates", replicates),
+                bool("mergeDuplicates", mergeDuplicates), number("detectionLimit", detectionLimit),
+                number("strayLightFloor", strayLightFloor), number("fullScale", fullScale)));
+    }
+
+    private interface Parse<T> {
+        T get();
+    }
+
+    private static <T> T wrap(String field, Parse<T> parse) {
+        try {
+            return parse.get();
+        } catch (ImportRequestException e) {
+            throw e;
+        } catch (IllegalArgumentException e) {
+            String message = e.getMessage();
+            // ImportOptions names its own field first ("detectionLimit must be ..."); keep that name
+            String named = message.split(" ", 2)[0];
+            throw new ImportRequestException(field.equals("options") ? named : field, message);
+        }
+    }
+}

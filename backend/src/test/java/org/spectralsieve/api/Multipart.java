@@ -1,0 +1,61 @@
+package org.spectralsieve.api;
+
+import java.io.ByteArrayOutputStream;
+import java.net.URI;
+import java.net.http.HttpClient;
+import java.net.http.HttpRequest;
+import java.net.http.HttpResponse;
+import java.nio.charset.StandardCharsets;
+import java.util.LinkedHashMap;
+import java.util.Map;
+
+/** A multipart/form-data request body with one file part and text fields, for tests over real HTTP. */
+final class Multipart {
+
+    private static final HttpClient HTTP = HttpClient.newHttpClient();
+    private static final String BOUNDARY = "----sieve-test-boundary-7f3a";
+
+    private final String fileName;
+    private final byte[] bytes;
+    private final Map<String, String> fields = new LinkedHashMap<>();
+
+    private Multipart(String fileName, byte[] bytes) {
+        this.fileName = fileName;
+        this.bytes = bytes;
+    }
+
+    static Multipart file(String fileName, byte[] bytes) {
+        return new Multipart(fileName, bytes);
+    }
+
+    static Multipart file(String fileName, String text) {
+        return file(fileName, text.getBytes(StandardCharsets.UTF_8));
+    }
+
+    Multipart field(String name, Object value) {
+        fields.put(name, String.valueOf(value));
+        return this;
+    }
+
+    byte[] body() {
+        ByteArrayOutputStream out = new ByteArrayOutputStream();
+        fields.forEach((k, v) -> write(out, "--" + BOUNDARY + "\r\nContent-Disposition: form-data; name=\"" + k
+                + "\"\r\n\r\n" + v + "\r\n"));
+        write(out, "--" + BOUNDARY + "\r\nContent-Disposition: form-data; name=\"file\"; filename=\"" + fileName
+                + "\"\r\nContent-Type: application/octet-stream\r\n\r\n");
+        out.writeBytes(bytes);
+        write(out, "\r\n--" + BOUNDARY + "--\r\n");
+        return out.toByteArray();
+    }
+
+    HttpResponse<String> post(int port, String path) throws Exception {
+        HttpRequest request = HttpRequest.newBuilder(URI.create("http://localhost:" + port + path))
+                .header("Content-Type", "multipart/form-data; boundary=" + BOUNDARY)
+                .POST(HttpRequest.BodyPublishers.ofByteArray(body())).build();
+        return HTTP.send(request, HttpResponse.BodyHandlers.ofString());
+    }
+
+    private static void write(ByteArrayOutputStream out, String s) {
+        out.writeBytes(s.getBytes(StandardCharsets.UTF_8));
+    }
+}

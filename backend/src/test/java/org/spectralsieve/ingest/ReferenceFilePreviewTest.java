@@ -1,0 +1,61 @@
+package org.spectralsieve.ingest;
+
+import static org.assertj.core.api.Assertions.assertThat;
+import static org.assertj.core.api.Assertions.within;
+
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.Optional;
+import org.junit.jupiter.api.Assumptions;
+import org.junit.jupiter.api.Test;
+import org.spectralsieve.importers.YKind;
+
+/**
+ * Real files by other people, read from ../shared/reference-data beside the repository (never copied
+ * in); skipped with a message where that folder is absent. Expected values: reference-data/SOURCES.md.
+ */
+class ReferenceFilePreviewTest {
+
+    private static final String ROOT = "shared/reference-data";
+    private final FileImport reader = new FileImport(ImportProperties.defaults().maxPoints());
+
+    private static Path file(String relative) {
+        Optional<Path> root = Optional.empty();
+        for (Path dir = Path.of("").toAbsolutePath(); dir != null && root.isEmpty(); dir = dir.getParent()) {
+            root = Optional.of(dir.resolve(ROOT)).filter(Files::isDirectory);
+        }
+        Assumptions.assumeTrue(root.isPresent(), "shared reference data not present (no ../" + ROOT + " above "
+                + Path.of("").toAbsolutePath() + "); skipping the preview of " + relative);
+        Path file = root.get().resolve(relative);
+        Assumptions.assumeTrue(Files.isRegularFile(file), "reference file missing: " + file);
+        return file;
+    }
+
+    @Test
+    void measuredAcrylicCsvPreviewsAsDelimitedPercentWithSourcesValues() throws Exception {
+        Path f = file("measured-transmittance-aphalo/acrylic-clear-3mm.csv");
+
+        FilePreview p = reader.read(f.getFileName().toString(), Files.readAllBytes(f), ImportOptions.defaults());
+
+        // SOURCES.md section 8, acrylic-clear-3mm.csv: 190–1100 nm at 1 nm (911 points), T400 = 91.01 %
+        assertThat(p.format()).isEqualTo(ImportFormat.DELIMITED);
+        assertThat(p.yKind()).isEqualTo(YKind.TRANSMITTANCE_PERCENT);
+        assertThat(p.pointCount()).isEqualTo(911);
+        assertThat(p.curve().transmittance(400 - 190)).isCloseTo(0.9101, within(0.00005));
+    }
+
+    @Test
+    void jcampUvFilePreviewsByContentWithItsPointCount() throws Exception {
+        Path f = file("jcamp-cheminfo/uv.jdx");
+        ImportOptions percent = new ImportOptions(null, Optional.of(YKind.TRANSMITTANCE_PERCENT), null, null, false,
+                null, null, null);
+
+        FilePreview p = reader.read("uv-upload.txt", Files.readAllBytes(f), percent);
+
+        // SOURCES.md §2 uv.jdx: 501 points from 300 to 800 nm
+        assertThat(p.format()).isEqualTo(ImportFormat.JCAMP_DX);
+        assertThat(p.pointCount()).isEqualTo(501);
+        assertThat(p.curve().minWavelengthNm()).isEqualTo(300.0);
+        assertThat(p.curve().maxWavelengthNm()).isEqualTo(800.0);
+    }
+}
