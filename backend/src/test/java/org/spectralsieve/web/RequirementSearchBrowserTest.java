@@ -1,15 +1,12 @@
 package org.spectralsieve.web;
 
 import static org.assertj.core.api.Assertions.assertThat;
-import static org.junit.jupiter.api.Assumptions.assumeTrue;
 
 import java.io.IOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.time.Duration;
 import java.util.List;
-import java.util.Map;
-import java.util.UUID;
 import org.junit.jupiter.api.AfterAll;
 import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
@@ -21,9 +18,6 @@ import org.openqa.selenium.StaleElementReferenceException;
 import org.openqa.selenium.TakesScreenshot;
 import org.openqa.selenium.WebDriver;
 import org.openqa.selenium.WebElement;
-import org.openqa.selenium.chrome.ChromeDriver;
-import org.openqa.selenium.chrome.ChromeDriverService;
-import org.openqa.selenium.chrome.ChromeOptions;
 import org.openqa.selenium.support.ui.WebDriverWait;
 import org.springframework.boot.test.context.SpringBootTest;
 import org.springframework.boot.test.web.server.LocalServerPort;
@@ -39,12 +33,7 @@ import org.springframework.test.context.TestPropertySource;
 @TestPropertySource(properties = "spring.datasource.url=jdbc:h2:mem:browser-search;DB_CLOSE_DELAY=-1")
 class RequirementSearchBrowserTest {
 
-    // Debian's packages put them here; -Dbrowser.chromium / -Dbrowser.chromedriver point elsewhere.
-    private static final Path CHROMIUM = Path.of(System.getProperty("browser.chromium", "/usr/bin/chromium"));
-    private static final Path CHROMEDRIVER =
-            Path.of(System.getProperty("browser.chromedriver", "/usr/bin/chromedriver"));
-    // Relative to the module directory surefire runs in, so the profile and screenshots stay under target/.
-    private static final Path OUTPUT = Path.of("target", "browser-test");
+    private static final Path OUTPUT = HeadlessChromium.OUTPUT;
     private static final Duration PATIENCE = Duration.ofSeconds(30);
 
     private static WebDriver driver;
@@ -56,27 +45,8 @@ class RequirementSearchBrowserTest {
     @BeforeAll
     static void startBrowser() throws IOException {
         // Checked before the browser starts, so a machine without one pays nothing.
-        assumeTrue(Files.isExecutable(CHROMIUM),
-                "Browser test skipped: no Chromium at " + CHROMIUM + " (apt-get install chromium chromium-driver,"
-                        + " or set -Dbrowser.chromium)");
-        assumeTrue(Files.isExecutable(CHROMEDRIVER),
-                "Browser test skipped: no chromedriver at " + CHROMEDRIVER + " (apt-get install chromium-driver,"
-                        + " or set -Dbrowser.chromedriver)");
-        Path profile = Files.createDirectories(OUTPUT.resolve("profile-" + UUID.randomUUID())).toAbsolutePath();
-        // Naming the driver executable skips Selenium Manager (no download, no network).
-        ChromeDriverService service = new ChromeDriverService.Builder()
-                .usingDriverExecutable(CHROMEDRIVER.toFile())
-                .usingAnyFreePort()
-                // Chromium writes a dconf cache under $HOME even with its own profile; keep it in target/.
-                .withEnvironment(Map.of(
-                        "XDG_CACHE_HOME", profile.resolve("cache").toString(),
-                        "XDG_CONFIG_HOME", profile.resolve("config").toString()))
-                .build();
-        ChromeOptions options = new ChromeOptions();
-        options.setBinary(CHROMIUM.toFile());
-        options.addArguments("--headless", "--no-sandbox", "--disable-gpu", "--disable-dev-shm-usage",
-                "--window-size=1400,1300", "--user-data-dir=" + profile);
-        driver = new ChromeDriver(service, options);
+        HeadlessChromium.assumeInstalled();
+        driver = HeadlessChromium.start();
         wait = new WebDriverWait(driver, PATIENCE);
         // The page replaces rows and lists as answers arrive; a stale element means "look again".
         wait.ignoring(StaleElementReferenceException.class);
