@@ -19,8 +19,8 @@ public record SellmeierIndex(List<Double> b, List<Double> cMicronsSquared, doubl
             List.of(0.00467914826, 0.0135120631, 97.9340025),
             210, 3710);
 
-    /** N-BK7 borosilicate crown, glass-catalogue coefficients; range 0.3–2.5 µm (from memory). */
-    public static final SellmeierIndex N_BK7 = new SellmeierIndex(
+    /** Borosilicate crown of international glass code 517642 (nd 1.5168, Vd 64.2), glass-catalogue coefficients; range 0.3–2.5 µm (from memory). */
+    public static final SellmeierIndex CROWN_517642 = new SellmeierIndex(
             List.of(1.03961212, 0.231792344, 1.01046945),
             List.of(0.00600069867, 0.0200179144, 103.560653),
             300, 2500);

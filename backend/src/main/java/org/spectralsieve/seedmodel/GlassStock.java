@@ -71,7 +71,7 @@ final class GlassStock {
                         "Borosilicate crown of glass code 517642 with its catalogue Sellmeier dispersion; internal "
                                 + "transmittance near 1 above 350 nm. Modelled on a 250–1100 nm instrument range.",
                         List.of("optical glass", "crown", "window", "sellmeier"),
-                        new IndexSpec.Sellmeier(SellmeierIndex.N_BK7),
+                        new IndexSpec.Sellmeier(SellmeierIndex.CROWN_517642),
                         Absorption.of(new UrbachEdge(290, 0.29, 0.168), new FlatBackground(0.0003)), 2, 5, 10),
                         s -> s.startingAt(250)),
                 // WHY: dense flint glasses absorb further into the UVA than crowns (lead/titanium edge,

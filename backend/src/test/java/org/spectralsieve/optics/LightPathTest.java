@@ -22,8 +22,8 @@ class LightPathTest {
     void oneBulkLayerEqualsTheThicknessRescaler() {
         Curve measured = Curve.of(NM, new double[] {0.00005, 0.02, 0.6, 0.88}, 0.0001);
         WavelengthGrid grid = new WavelengthGrid(360, 420, 5);
-        Curve path = LightPath.of(Layer.bulk(measured, 2, 5, SellmeierIndex.N_BK7)).transmittance(grid);
-        Curve rescaled = ThicknessRescaler.rescale(measured, 2, 5, SellmeierIndex.N_BK7).resample(grid);
+        Curve path = LightPath.of(Layer.bulk(measured, 2, 5, SellmeierIndex.CROWN_517642)).transmittance(grid);
+        Curve rescaled = ThicknessRescaler.rescale(measured, 2, 5, SellmeierIndex.CROWN_517642).resample(grid);
         assertThat(path.belowDetectionFlags()).containsExactly(rescaled.belowDetectionFlags());
         for (int i = 0; i < grid.size(); i++) {
             assertThat(path.transmittance(i)).isCloseTo(rescaled.transmittance(i), within(1e-12));
