@@ -80,37 +80,61 @@ public final class StoreSearch {
      */
     private int boundPass(int[] bound, boolean[] eligible) {
         int n = store.size();
-        int tasks = (n + CHUNK - 1) / CHUNK;
-        return IntStream.range(0, tasks).parallel().map(c -> {
-            int from = c * CHUNK;
-            int to = Math.min(n, from + CHUNK);
-            int probes = plan.pointProbes.size();
-            double[][] od = new double[probes][to - from];
-            byte[][] state = new byte[probes][to - from];
-            for (int k = 0; k < probes; k++) {
-                decode(plan.pointProbes.get(k).probe(), from, to, od[k], state[k]);
-            }
-            if (plan.thickness.kind() != ThicknessSpec.Kind.RANGE) {
-                return boundsAtOneThickness(from, to, od, state, bound, eligible);
-            }
-            CurveModel model = new CurveModel(plan, store, true);
-            double[] curveOd = new double[probes];
-            byte[] curveState = new byte[probes];
+        int chunks = (n + CHUNK - 1) / CHUNK;
+        // a few tasks per core, each reusing its buffers over its run of chunks: allocating them per chunk
+        // cost as much as the arithmetic (tens of MB zeroed per query at a million curves)
+        int tasks = Math.max(1, Math.min(chunks, 4 * Runtime.getRuntime().availableProcessors()));
+        return IntStream.range(0, tasks).parallel().map(t -> {
+            Buffers buffers = new Buffers(plan.pointProbes.size());
             int count = 0;
-            for (int curve = from; curve < to; curve++) {
-                if (!plan.admits(store, curve)) {
-                    continue;
-                }
-                for (int k = 0; k < probes; k++) {
-                    curveOd[k] = od[k][curve - from];
-                    curveState[k] = state[k][curve - from];
-                }
-                eligible[curve] = true;
-                bound[curve] = model.loadDecoded(curve, curveOd, curveState).bestKey();
-                count++;
+            for (int c = t; c < chunks; c += tasks) {
+                int from = c * CHUNK;
+                count += boundChunk(from, Math.min(n, from + CHUNK), buffers, bound, eligible);
             }
             return count;
         }).sum();
+    }
+
+    /** Per-task scratch space of the first pass. */
+    private final class Buffers {
+        final double[][] od;
+        final byte[][] state;
+        final double[] lowest = new double[CHUNK];
+        final int[] bits = new int[CHUNK];
+        final double[] curveOd;
+        final byte[] curveState;
+        final CurveModel model = new CurveModel(plan, store, true);
+
+        Buffers(int probes) {
+            od = new double[probes][CHUNK];
+            state = new byte[probes][CHUNK];
+            curveOd = new double[probes];
+            curveState = new byte[probes];
+        }
+    }
+
+    private int boundChunk(int from, int to, Buffers b, int[] bound, boolean[] eligible) {
+        int probes = plan.pointProbes.size();
+        for (int k = 0; k < probes; k++) {
+            decode(plan.pointProbes.get(k).probe(), from, to, b.od[k], b.state[k]);
+        }
+        if (plan.thickness.kind() != ThicknessSpec.Kind.RANGE) {
+            return boundsAtOneThickness(from, to, b, bound, eligible);
+        }
+        int count = 0;
+        for (int curve = from; curve < to; curve++) {
+            if (!plan.admits(store, curve)) {
+                continue;
+            }
+            for (int k = 0; k < probes; k++) {
+                b.curveOd[k] = b.od[k][curve - from];
+                b.curveState[k] = b.state[k][curve - from];
+            }
+            eligible[curve] = true;
+            bound[curve] = b.model.loadDecoded(curve, b.curveOd, b.curveState).bestKey();
+            count++;
+        }
+        return count;
     }
 
     /**
@@ -118,11 +142,14 @@ public final class StoreSearch {
      * probe by probe over the chunk, so each step is a short loop over plain arrays. Same rules as
      * {@link CurveModel} ({@link ProbeVerdict}); thickness model as in the class comment.
      */
-    private int boundsAtOneThickness(int from, int to, double[][] od, byte[][] state, int[] bound, boolean[] eligible) {
+    private int boundsAtOneThickness(int from, int to, Buffers b, int[] bound, boolean[] eligible) {
         int len = to - from;
-        double[] lowest = new double[len];
-        int[] bits = new int[len];
-        Arrays.fill(lowest, Double.POSITIVE_INFINITY);
+        double[][] od = b.od;
+        byte[][] state = b.state;
+        double[] lowest = b.lowest;
+        int[] bits = b.bits;
+        Arrays.fill(lowest, 0, len, Double.POSITIVE_INFINITY);
+        Arrays.fill(bits, 0, len, 0);
         boolean rescale = plan.thickness.kind() == ThicknessSpec.Kind.FIXED;
         double target = plan.thickness.minMm();
         for (int k = 0; k < od.length; k++) {
