@@ -1,0 +1,123 @@
+package org.spectralsieve.weighting;
+
+import java.util.List;
+import java.util.Locale;
+import java.util.Optional;
+import java.util.function.DoubleUnaryOperator;
+
+/**
+ * A response (action spectrum, weighting) W(λ): how much a unit of power at λ counts for the thing that
+ * matters (skin, eye, a photoinitiator). Zero outside [{@link #minNm()}, {@link #maxNm()}], its defined
+ * range; weighted figures integrate over exactly that range.
+ */
+public final class Response {
+
+    /** The older 1987 variant used 139 here; the standard (ISO/CIE 17166) uses 140, continuous at 328 nm. */
+    static final double ERYTHEMA_UVA_CONSTANT = 140;
+
+    private static final Response ERYTHEMA = new Response("erythema", 250, 400,
+            "CIE erythema reference action spectrum, ISO/CIE 17166:2019 (CIE S 007/E-1998) form with 140 in the "
+                    + "UVA branch; 250-400 nm, 0 above 400 nm by convention", Response::erythema);
+    private static final Response ACTINIC_UV = tabulated("actinic-uv", "actinic-uv-hazard.txt",
+            "actinic UV hazard S(λ) (ICNIRP / ACGIH / IEC 62471), tabulated 180-400 nm, log-linear between rows");
+    private static final Response BLUE_LIGHT = tabulated("blue-light", "blue-light-hazard.txt",
+            "blue-light hazard B(λ) (IEC 62471 / CIE S 009), 380-700 nm, log-linear between rows");
+    private static final Response FLAT = flat(250, 400);
+
+    private final String name;
+    private final double minNm;
+    private final double maxNm;
+    private final String description;
+    private final DoubleUnaryOperator weight;
+
+    private Response(String name, double minNm, double maxNm, String description, DoubleUnaryOperator weight) {
+        if (!(minNm > 0 && maxNm > minNm && Double.isFinite(maxNm))) {
+            throw new IllegalArgumentException("response '" + name + "' range " + minNm + ".." + maxNm
+                    + " nm must be finite with 0 < min < max");
+        }
+        this.name = name;
+        this.minNm = minNm;
+        this.maxNm = maxNm;
+        this.description = description;
+        this.weight = weight;
+    }
+
+    private static Response tabulated(String name, String file, String description) {
+        WeightingTable table = WeightingTable.resource(file);
+        return new Response(name, table.minWavelengthNm(), table.maxWavelengthNm(),
+                description + "; source: " + table.source(), table::valueAt);
+    }
+
+    public static Response erythema() {
+        return ERYTHEMA;
+    }
+
+    public static Response actinicUv() {
+        return ACTINIC_UV;
+    }
+
+    public static Response blueLight() {
+        return BLUE_LIGHT;
+    }
+
+    /** Unweighted over 250-400 nm, the erythema range, so flat × flat compares with the UV figures. */
+    public static Response flat() {
+        return FLAT;
+    }
+
+    /** Unweighted (W = 1) over [minNm, maxNm]. */
+    public static Response flat(double minNm, double maxNm) {
+        return new Response("flat", minNm, maxNm, "unweighted, W = 1 over " + minNm + "-" + maxNm + " nm",
+                nm -> 1.0);
+    }
+
+    public static List<Response> catalogue() {
+        return List.of(ERYTHEMA, ACTINIC_UV, BLUE_LIGHT, FLAT);
+    }
+
+    /** Looks a catalogue response up by name, ignoring case. */
+    public static Optional<Response> named(String name) {
+        String key = name == null ? "" : name.strip().toLowerCase(Locale.ROOT);
+        return catalogue().stream().filter(r -> r.name.equals(key)).findFirst();
+    }
+
+    /** ISO/CIE 17166 s_er(λ): 1 up to 298 nm, then two decadic slopes meeting at 328 nm. */
+    static double erythema(double nm) {
+        if (nm < 250 || nm > 400) {
+            return 0;
+        }
+        if (nm <= 298) {
+            return 1;
+        }
+        if (nm <= 328) {
+            return Math.pow(10, 0.094 * (298 - nm));
+        }
+        return Math.pow(10, 0.015 * (ERYTHEMA_UVA_CONSTANT - nm));
+    }
+
+    public String name() {
+        return name;
+    }
+
+    public double minNm() {
+        return minNm;
+    }
+
+    public double maxNm() {
+        return maxNm;
+    }
+
+    public String description() {
+        return description;
+    }
+
+    /** W(λ); 0 outside the defined range. */
+    public double weightAt(double nm) {
+        return nm >= minNm && nm <= maxNm ? weight.applyAsDouble(nm) : 0;
+    }
+
+    @Override
+    public String toString() {
+        return "Response[" + name + ", " + minNm + ".." + maxNm + " nm]";
+    }
+}

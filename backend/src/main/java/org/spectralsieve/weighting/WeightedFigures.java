@@ -1,0 +1,222 @@
+package org.spectralsieve.weighting;
+
+import java.util.ArrayList;
+import java.util.List;
+import org.spectralsieve.spectrum.Curve;
+import org.spectralsieve.weighting.Figure.Bound;
+
+/**
+ * Figures of a transmittance curve under a source and a response. All integrals: trapezoid rule on a
+ * uniform grid (1 nm, or the emitter's finer {@link Emitter#stepNm()}), T read by
+ * {@link Curve#transmittanceAt} (interpolated in absorbance), never extrapolated.
+ */
+public final class WeightedFigures {
+
+    /** Lines a UV designer asks about: Hg 254 nm, Hg 313 nm, Hg/LED 365 nm, LED 405 nm. */
+    public static final double[] NAMED_LINES_NM = {254, 313, 365, 405};
+
+    /** Diffey's critical-wavelength integration range, nm (reference sheet §3). */
+    public static final double CRITICAL_FROM_NM = 290;
+    public static final double CRITICAL_TO_NM = 400;
+    public static final double CRITICAL_FRACTION = 0.9;
+
+    private static final double ABSORBANCE_FLOOR_T = Curve.ABSORBANCE_FLOOR_T;
+
+    private WeightedFigures() {
+    }
+
+    /** Everything the figures endpoint reports, for one emitter × response. */
+    public record Report(Figure effectiveTransmittance, Figure protectionFactor, Figure erythemalProtectionFactor,
+            Figure actinicUvProtectionFactor, List<Figure> bandMeans, Figure criticalWavelength,
+            List<Figure> opticalDensities) {
+
+        public Report {
+            bandMeans = List.copyOf(bandMeans);
+            opticalDensities = List.copyOf(opticalDensities);
+        }
+    }
+
+    public static Report report(Curve curve, Emitter emitter, Response response) {
+        List<Figure> bands = new ArrayList<>();
+        for (UvBand band : UvBand.values()) {
+            bands.add(meanTransmittance(curve, band));
+        }
+        List<Figure> ods = new ArrayList<>();
+        for (double nm : NAMED_LINES_NM) {
+            ods.add(opticalDensityAt(curve, nm));
+        }
+        return new Report(effectiveTransmittance(curve, emitter, response),
+                protectionFactor(curve, emitter, response),
+                protectionFactor(curve, Emitter.flat(), Response.erythema()),
+                protectionFactor(curve, Emitter.flat(), Response.actinicUv()),
+                bands, criticalWavelength(curve), ods);
+    }
+
+    /**
+     * ∫E·W·T dλ / ∫E·W dλ over the response's defined range (cut to where the emitter has power).
+     * An upper bound when any weighted point is below the detection limit.
+     */
+    public static Figure effectiveTransmittance(Curve curve, Emitter emitter, Response response) {
+        String name = "effectiveTransmittance";
+        double lo = Math.max(response.minNm(), emitter.minNm());
+        double hi = Math.min(response.maxNm(), emitter.maxNm());
+        if (!(hi > lo)) {
+            return Figure.unavailable(name, "fraction", "emitter " + emitter.name() + " (" + emitter.minNm() + "-"
+                    + emitter.maxNm() + " nm) has no power inside the range of response " + response.name() + " ("
+                    + response.minNm() + "-" + response.maxNm() + " nm)");
+        }
+        String gap = coverageGap(curve, lo, hi);
+        if (gap != null) {
+            return Figure.unavailable(name, "fraction", gap);
+        }
+        int n = intervals(lo, hi, emitter.stepNm());
+        double step = (hi - lo) / n;
+        double weighted = 0;
+        double passed = 0;
+        boolean bound = false;
+        for (int i = 0; i <= n; i++) {
+            double nm = i == n ? hi : lo + i * step;
+            double ew = emitter.powerAt(nm) * response.weightAt(nm) * trapezoidWeight(i, n);
+            if (ew > 0) {
+                weighted += ew;
+                passed += ew * curve.transmittanceAt(nm).orElseThrow();
+                bound |= curve.belowDetectionAt(nm);
+            }
+        }
+        if (!(weighted > 0)) {
+            return Figure.unavailable(name, "fraction", "emitter " + emitter.name() + " × response "
+                    + response.name() + " integrates to 0 over " + lo + "-" + hi + " nm");
+        }
+        return Figure.of(name, passed / weighted, "fraction", bound ? Bound.AT_MOST : Bound.VALUE,
+                emitter.name() + " × " + response.name() + ", " + lo + "-" + hi + " nm, trapezoid, step "
+                        + step + " nm");
+    }
+
+    /** 1 / effective transmittance; a lower bound when the transmittance is an upper bound. */
+    public static Figure protectionFactor(Curve curve, Emitter emitter, Response response) {
+        String name = "protectionFactor(" + emitter.name() + " × " + response.name() + ")";
+        Figure t = effectiveTransmittance(curve, emitter, response);
+        if (!t.available()) {
+            return Figure.unavailable(name, "1", t.note());
+        }
+        double value = t.value().getAsDouble();
+        if (value <= 0) {
+            return Figure.unavailable(name, "1", "effective transmittance is 0: the factor is unbounded");
+        }
+        return Figure.of(name, 1 / value, "1", t.bound() == Bound.AT_MOST ? Bound.AT_LEAST : Bound.VALUE,
+                "1 / effective transmittance; " + t.note());
+    }
+
+    /**
+     * Mean T over a band on a 1 nm trapezoid grid. UVC reaches down to 100 nm where no curve starts, so it
+     * is averaged over the covered part, which the note names; UVB and UVA need the whole band.
+     */
+    public static Figure meanTransmittance(Curve curve, UvBand band) {
+        String name = "meanTransmittance" + band.name();
+        double lo = band.fromNm();
+        double hi = band.toNm();
+        String note = band.name() + " " + lo + "-" + hi + " nm";
+        if (band == UvBand.UVC) {
+            lo = Math.max(lo, curve.minWavelengthNm());
+            hi = Math.min(hi, curve.maxWavelengthNm());
+            if (hi - lo < 1) {
+                return Figure.unavailable(name, "fraction", "curve (" + curve.minWavelengthNm() + "-"
+                        + curve.maxWavelengthNm() + " nm) covers less than 1 nm of " + note);
+            }
+            if (lo > band.fromNm() || hi < band.toNm()) {
+                note += ", averaged over the covered part " + lo + "-" + hi + " nm only";
+            }
+        } else {
+            String gap = coverageGap(curve, lo, hi);
+            if (gap != null) {
+                return Figure.unavailable(name, "fraction", gap);
+            }
+        }
+        int n = intervals(lo, hi, 1.0);
+        double step = (hi - lo) / n;
+        double sum = 0;
+        boolean bound = false;
+        for (int i = 0; i <= n; i++) {
+            double nm = i == n ? hi : lo + i * step;
+            sum += curve.transmittanceAt(nm).orElseThrow() * trapezoidWeight(i, n);
+            bound |= curve.belowDetectionAt(nm);
+        }
+        return Figure.of(name, sum / n, "fraction", bound ? Bound.AT_MOST : Bound.VALUE,
+                note + ", trapezoid, step " + step + " nm");
+    }
+
+    /**
+     * Diffey's λc: where ∫A dλ from 290 nm reaches 90 % of ∫A dλ over 290-400 nm, A = −log10 T. Trapezoid
+     * on a 1 nm grid, linear interpolation of the running integral inside the crossing interval (reference
+     * sheet §3). A negative A (T read above 1 from noise) counts as 0; T = 0 counts as A = 12.
+     */
+    public static Figure criticalWavelength(Curve curve) {
+        String name = "criticalWavelength";
+        String gap = coverageGap(curve, CRITICAL_FROM_NM, CRITICAL_TO_NM);
+        if (gap != null) {
+            return Figure.unavailable(name, "nm", gap);
+        }
+        int n = (int) Math.round(CRITICAL_TO_NM - CRITICAL_FROM_NM);
+        double[] running = new double[n + 1];
+        double previousA = absorbanceAt(curve, CRITICAL_FROM_NM);
+        boolean bound = curve.belowDetectionAt(CRITICAL_FROM_NM);
+        for (int i = 1; i <= n; i++) {
+            double nm = CRITICAL_FROM_NM + i;
+            double a = absorbanceAt(curve, nm);
+            bound |= curve.belowDetectionAt(nm);
+            running[i] = running[i - 1] + (previousA + a) / 2;
+            previousA = a;
+        }
+        if (!(running[n] > 0)) {
+            return Figure.unavailable(name, "nm", "no absorbance between 290 and 400 nm: λc is undefined");
+        }
+        double target = CRITICAL_FRACTION * running[n];
+        int i = 1;
+        while (running[i] < target) {
+            i++;
+        }
+        double lambda = CRITICAL_FROM_NM + i - 1 + (target - running[i - 1]) / (running[i] - running[i - 1]);
+        String note = "Diffey: ∫A from 290 nm reaches 90 % of ∫A over 290-400 nm; trapezoid, 1 nm";
+        if (bound) {
+            note += "; points below the detection limit enter with their stored (upper-bound) T, so their"
+                    + " absorbance is a lower bound and λc is approximate";
+        }
+        return Figure.of(name, lambda, "nm", Bound.VALUE, note);
+    }
+
+    /** OD = −log10 T at one wavelength; a lower bound when the point is below the detection limit. */
+    public static Figure opticalDensityAt(Curve curve, double nm) {
+        String name = "opticalDensity" + (nm == Math.rint(nm) ? String.valueOf((long) nm) : String.valueOf(nm));
+        var t = curve.transmittanceAt(nm);
+        if (t.isEmpty()) {
+            return Figure.unavailable(name, "OD", "curve (" + curve.minWavelengthNm() + "-" + curve.maxWavelengthNm()
+                    + " nm) does not reach " + nm + " nm; curves are never extrapolated");
+        }
+        double od = -Math.log10(Math.max(t.getAsDouble(), ABSORBANCE_FLOOR_T));
+        boolean below = curve.belowDetectionAt(nm);
+        return Figure.of(name, od, "OD", below ? Bound.AT_LEAST : Bound.VALUE,
+                "OD = -log10 T at " + nm + " nm" + (below ? ", below the detection limit" : ""));
+    }
+
+    private static double absorbanceAt(Curve curve, double nm) {
+        double t = curve.transmittanceAt(nm).orElseThrow();
+        return Math.max(0, -Math.log10(Math.max(t, ABSORBANCE_FLOOR_T)));
+    }
+
+    /** Null when the curve covers [lo, hi], else the reason. */
+    private static String coverageGap(Curve curve, double lo, double hi) {
+        if (curve.covers(lo) && curve.covers(hi)) {
+            return null;
+        }
+        return "curve covers " + curve.minWavelengthNm() + "-" + curve.maxWavelengthNm() + " nm; the figure needs "
+                + lo + "-" + hi + " nm and curves are never extrapolated";
+    }
+
+    private static int intervals(double lo, double hi, double maxStep) {
+        return Math.max(1, (int) Math.ceil((hi - lo) / maxStep - 1e-9));
+    }
+
+    private static double trapezoidWeight(int i, int n) {
+        return i == 0 || i == n ? 0.5 : 1.0;
+    }
+}

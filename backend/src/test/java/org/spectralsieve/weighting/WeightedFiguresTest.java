@@ -1,0 +1,163 @@
+package org.spectralsieve.weighting;
+
+import static org.assertj.core.api.Assertions.assertThat;
+import static org.assertj.core.api.Assertions.within;
+
+import java.util.ArrayList;
+import java.util.List;
+import java.util.function.DoubleUnaryOperator;
+import java.util.stream.Stream;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.params.ParameterizedTest;
+import org.junit.jupiter.params.provider.Arguments;
+import org.junit.jupiter.params.provider.CsvSource;
+import org.junit.jupiter.params.provider.MethodSource;
+import org.spectralsieve.spectrum.Curve;
+import org.spectralsieve.weighting.Figure.Bound;
+
+class WeightedFiguresTest {
+
+    /** A curve on a 1 nm grid over [from, to] with T given by the function. */
+    private static Curve curve(double from, double to, DoubleUnaryOperator t) {
+        int n = (int) Math.round(to - from) + 1;
+        double[] nm = new double[n];
+        double[] tr = new double[n];
+        for (int i = 0; i < n; i++) {
+            nm[i] = from + i;
+            tr[i] = t.applyAsDouble(nm[i]);
+        }
+        return Curve.of(nm, tr, 0);
+    }
+
+    private static Curve absorbance(DoubleUnaryOperator a) {
+        return curve(180, 1100, nm -> Math.pow(10, -a.applyAsDouble(nm)));
+    }
+
+    static Stream<Arguments> everyEmitterAndResponse() {
+        List<Arguments> all = new ArrayList<>();
+        for (Emitter e : EmitterCatalogue.all()) {
+            for (Response r : Response.catalogue()) {
+                all.add(Arguments.of(e.name(), r.name()));
+            }
+        }
+        return all.stream();
+    }
+
+    /** Definition (issue 5, reference sheet §2): a spectrally flat T gives effective T = T and PF = 1/T. */
+    @ParameterizedTest(name = "{0} × {1}")
+    @MethodSource("everyEmitterAndResponse")
+    void flatThirtyPercentFilterGivesThirtyPercentAndFactorOneOverPointThree(String emitter, String response) {
+        Curve flat = curve(180, 1100, nm -> 0.3);
+        Emitter e = EmitterCatalogue.named(emitter).orElseThrow();
+        Response r = Response.named(response).orElseThrow();
+        Figure t = WeightedFigures.effectiveTransmittance(flat, e, r);
+        Figure pf = WeightedFigures.protectionFactor(flat, e, r);
+        if (!t.available()) {
+            // only pairs that share no wavelengths may be unavailable, and they must say so
+            assertThat(t.note()).contains("has no power inside the range");
+            return;
+        }
+        assertThat(t.value().getAsDouble()).isCloseTo(0.3, within(1e-12));
+        assertThat(pf.value().getAsDouble()).isCloseTo(1 / 0.3, within(1e-11));
+        assertThat(t.bound()).isEqualTo(Bound.VALUE);
+    }
+
+    @Test
+    void everyUvEmitterHasPowerUnderErythemaAndActinicWeighting() {
+        Curve flat = curve(180, 1100, nm -> 0.3);
+        for (Emitter e : EmitterCatalogue.all()) {
+            assertThat(WeightedFigures.effectiveTransmittance(flat, e, Response.actinicUv()).available())
+                    .as(e.name()).isTrue();
+        }
+    }
+
+    /**
+     * Reference sheet §3, Diffey critical wavelength, 1 nm trapezoid, linear interpolation in the crossing
+     * interval: flat A → 389 nm (stated in the published description of the method); the three check
+     * curves → 335.45, 365.22, 385.95 nm (computed by the sheet from the same definition).
+     */
+    @ParameterizedTest
+    @CsvSource({"flat, 389.00", "step, 335.45", "linear, 365.22", "oneHalf, 385.95"})
+    void criticalWavelengthMatchesDiffeyCheckCurves(String shape, double expected) {
+        DoubleUnaryOperator a = switch (shape) {
+            case "flat" -> nm -> 0.7;
+            case "step" -> nm -> nm <= 340 ? 2 : 0;
+            case "linear" -> nm -> nm >= 400 ? 0 : nm <= 290 ? 2 : 2 * (400 - nm) / 110;
+            case "oneHalf" -> nm -> nm <= 320 ? 1 : 0.5;
+            default -> throw new IllegalArgumentException(shape);
+        };
+        Figure lc = WeightedFigures.criticalWavelength(absorbance(a));
+        assertThat(lc.value().getAsDouble()).isCloseTo(expected, within(0.005));
+    }
+
+    @Test
+    void criticalWavelengthNeedsTheWhole290To400Range() {
+        Figure lc = WeightedFigures.criticalWavelength(curve(300, 800, nm -> 0.5));
+        assertThat(lc.available()).isFalse();
+        assertThat(lc.note()).contains("needs 290.0-400.0 nm");
+    }
+
+    /** Reference sheet §6 (ANSI Z80.3-2001 §3.2, OD = log 1/τ): 0.8 → 0.096910, 0.5 → 0.301030, 1e-3 → 3. */
+    @ParameterizedTest
+    @CsvSource({"0.8, 0.096910", "0.5, 0.301030", "0.1, 1", "0.01, 2", "1e-3, 3", "1e-6, 6"})
+    void opticalDensityAtALineIsMinusLogTransmittance(double t, double od) {
+        Figure f = WeightedFigures.opticalDensityAt(curve(200, 500, nm -> t), 365);
+        assertThat(f.value().getAsDouble()).isCloseTo(od, within(5e-7));
+        assertThat(f.name()).isEqualTo("opticalDensity365");
+    }
+
+    @Test
+    void opticalDensityBelowDetectionIsALowerBound() {
+        Curve c = Curve.of(new double[] {300, 400}, new double[] {1e-4, 1e-4}, 1e-3);
+        assertThat(WeightedFigures.opticalDensityAt(c, 365).bound()).isEqualTo(Bound.AT_LEAST);
+        assertThat(WeightedFigures.protectionFactor(c, Emitter.flat(), Response.flat(300, 400)).bound())
+                .isEqualTo(Bound.AT_LEAST);
+    }
+
+    @Test
+    void figureOutsideTheCurveIsUnavailableWithAReason() {
+        Curve visible = curve(380, 800, nm -> 0.9);
+        Figure t = WeightedFigures.effectiveTransmittance(visible, Emitter.flat(), Response.erythema());
+        assertThat(t.available()).isFalse();
+        assertThat(t.note()).contains("never extrapolated");
+        assertThat(WeightedFigures.opticalDensityAt(visible, 254).available()).isFalse();
+        assertThat(WeightedFigures.meanTransmittance(visible, UvBand.UVB).available()).isFalse();
+    }
+
+    /** Definition of a mean on the trapezoid grid: T linear 0.2 → 0.9 over UVB averages to 0.55 exactly. */
+    @Test
+    void uvbMeanOfALinearRampIsItsMidpoint() {
+        Curve ramp = curve(280, 315, nm -> 0.2 + 0.7 * (nm - 280) / 35);
+        assertThat(WeightedFigures.meanTransmittance(ramp, UvBand.UVB).value().getAsDouble())
+                .isCloseTo(0.55, within(1e-12));
+    }
+
+    @Test
+    void uvcMeanIsTakenOverTheCoveredPartAndSaysSo() {
+        Figure uvc = WeightedFigures.meanTransmittance(curve(200, 400, nm -> 0.4), UvBand.UVC);
+        assertThat(uvc.value().getAsDouble()).isCloseTo(0.4, within(1e-12));
+        assertThat(uvc.note()).contains("covered part 200.0-280.0 nm only");
+    }
+
+    /**
+     * A blocker below 320 nm and clear above: the erythema-weighted T is the UVA share of the weighted
+     * flat spectrum, ∫_{319.5}^{400} s_er / ∫_{250}^{400} s_er, from the ISO/CIE 17166 formula integrated
+     * in closed form (three branches) — an independent check of the trapezoid integration.
+     */
+    @Test
+    void erythemalTransmittanceOfAnIdealEdgeMatchesTheClosedFormIntegral() {
+        Curve edge = curve(180, 1100, nm -> nm < 320 ? 0 : 1);
+        double k1 = 0.094 * Math.log(10);
+        double k2 = 0.015 * Math.log(10);
+        double b1 = 48; // 250..298, s = 1
+        double b2a = (1 - Math.exp(-k1 * 21.5)) / k1; // 298..319.5
+        double b2b = (Math.exp(-k1 * 21.5) - Math.exp(-k1 * 30)) / k1; // 319.5..328
+        double b3 = Math.pow(10, 0.015 * (140 - 328)) * (1 - Math.exp(-k2 * 72)) / k2; // 328..400
+        double expected = (b2b + b3) / (b1 + b2a + b2b + b3);
+        double got = WeightedFigures.effectiveTransmittance(edge, Emitter.flat(), Response.erythema())
+                .value().getAsDouble();
+        // on the 1 nm trapezoid a step between the 319 and 320 nm points acts as an edge at 319.5 nm (half
+        // the interval), so the closed form splits there; the remaining trapezoid error is well under 1 %
+        assertThat(got).isCloseTo(expected, within(expected * 0.01));
+    }
+}

@@ -1,0 +1,43 @@
+package org.spectralsieve.weighting;
+
+import static org.assertj.core.api.Assertions.assertThat;
+import static org.assertj.core.api.Assertions.assertThatThrownBy;
+
+import java.io.StringReader;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.params.ParameterizedTest;
+import org.junit.jupiter.params.provider.CsvSource;
+
+class WeightingTableTest {
+
+    private static WeightingTable read(String text) throws Exception {
+        return WeightingTable.read("t.txt", new StringReader(text));
+    }
+
+    @Test
+    void shippedTablesNameTheirSource() {
+        assertThat(WeightingTable.resource("actinic-uv-hazard.txt").source()).contains("ACGIH");
+        assertThat(WeightingTable.resource("blue-light-hazard.txt").source()).contains("IEC 62471");
+    }
+
+    @ParameterizedTest
+    @CsvSource(delimiter = '|', value = {
+        "# source: x\\n300 1\\n300 2\\n | t.txt:3: field wavelength_nm 300.0 is not greater",
+        "# source: x\\n300 1\\n310 0\\n | t.txt:3: field value is 0.0",
+        "# source: x\\n300 1\\n310 1,5\\n | t.txt:3: field value '1,5' is not a finite number",
+        "# source: x\\n300 1 2\\n | t.txt:2: expected 2 fields",
+        "300 1\\n310 2\\n | t.txt:1: no '# source:' line"})
+    void badTableIsRefusedWithFileAndLine(String text, String message) {
+        assertThatThrownBy(() -> read(text.replace("\\n", "\n")))
+                .isInstanceOf(WeightingTableException.class)
+                .hasMessageStartingWith(message);
+    }
+
+    @Test
+    void tableIsZeroOutsideItsRows() throws Exception {
+        WeightingTable t = read("# source: x\n300 1\n310 0.1\n");
+        assertThat(t.valueAt(299.9)).isZero();
+        assertThat(t.valueAt(310.1)).isZero();
+        assertThat(t.valueAt(305)).isCloseTo(Math.sqrt(0.1), org.assertj.core.api.Assertions.within(1e-12));
+    }
+}
