@@ -1,0 +1,110 @@
+package org.spectralsieve.api;
+
+import java.util.List;
+import java.util.Map;
+import java.util.stream.Collectors;
+import org.spectralsieve.library.SampleCurve;
+import org.spectralsieve.library.SampleCurves;
+import org.spectralsieve.weighting.Emitter;
+import org.spectralsieve.weighting.EmitterCatalogue;
+import org.spectralsieve.weighting.Figure;
+import org.spectralsieve.weighting.Response;
+import org.spectralsieve.weighting.WeightedFigures;
+import org.springframework.web.bind.annotation.GetMapping;
+import org.springframework.web.bind.annotation.PathVariable;
+import org.springframework.web.bind.annotation.RequestParam;
+import org.springframework.web.bind.annotation.RestController;
+
+/** The emitter and response catalogues, and a sample's weighted figures. */
+@RestController
+class WeightingController {
+
+    /** Carried by every answer here: these numbers screen materials, they do not certify equipment. */
+    static final String CAUTION = "Screening estimate from stored curves, not a certification of protective "
+            + "equipment; applicable standards, local codes and a qualified safety professional decide.";
+
+    private final SampleCurves curves;
+
+    WeightingController(SampleCurves curves) {
+        this.curves = curves;
+    }
+
+    record EmitterJson(String name, String kind, Map<String, Double> parameters, double[] rangeNm,
+            double integrationStepNm, String description) {
+
+        static EmitterJson of(Emitter e) {
+            return new EmitterJson(e.name(), e.kind(), e.parameters(), new double[] {e.minNm(), e.maxNm()},
+                    e.stepNm(), e.description());
+        }
+    }
+
+    record ResponseJson(String name, double[] rangeNm, String description) {
+
+        static ResponseJson of(Response r) {
+            return new ResponseJson(r.name(), new double[] {r.minNm(), r.maxNm()}, r.description());
+        }
+    }
+
+    record EmittersJson(List<EmitterJson> emitters, String caution) {
+    }
+
+    record ResponsesJson(List<ResponseJson> responses, String caution) {
+    }
+
+    /** value is null when the figure is not available; note then says why. */
+    record FigureJson(String name, Double value, String unit, String bound, boolean available, String note) {
+
+        static FigureJson of(Figure f) {
+            return new FigureJson(f.name(), f.available() ? f.value().getAsDouble() : null, f.unit(),
+                    f.bound().name().toLowerCase(java.util.Locale.ROOT).replace('_', '-'), f.available(), f.note());
+        }
+
+        static List<FigureJson> all(List<Figure> figures) {
+            return figures.stream().map(FigureJson::of).collect(Collectors.toList());
+        }
+    }
+
+    record FiguresJson(long sampleId, double thicknessMm, boolean rescaled, String emitter, String response,
+            FigureJson effectiveTransmittance, FigureJson protectionFactor, FigureJson erythemalProtectionFactor,
+            FigureJson actinicUvProtectionFactor, List<FigureJson> bandMeans, FigureJson criticalWavelength,
+            List<FigureJson> opticalDensities, String caution) {
+    }
+
+    @GetMapping("/api/emitters")
+    EmittersJson emitters() {
+        return new EmittersJson(EmitterCatalogue.all().stream().map(EmitterJson::of).toList(), CAUTION);
+    }
+
+    @GetMapping("/api/responses")
+    ResponsesJson responses() {
+        return new ResponsesJson(Response.catalogue().stream().map(ResponseJson::of).toList(), CAUTION);
+    }
+
+    @GetMapping("/api/samples/{id}/figures")
+    FiguresJson figures(@PathVariable("id") long id,
+                        @RequestParam(name = "thicknessMm", required = false) Double thicknessMm,
+                        @RequestParam(name = "emitter", required = false, defaultValue = "flat") String emitterName,
+                        @RequestParam(name = "response", required = false, defaultValue = "erythema") String responseName) {
+        if (thicknessMm != null && !(thicknessMm > 0 && thicknessMm <= SampleCurves.MAX_THICKNESS_MM)) {
+            throw new BadParameterException("thicknessMm", "must be above 0 and at most "
+                    + SampleCurves.MAX_THICKNESS_MM + " mm, got " + thicknessMm);
+        }
+        Emitter emitter = EmitterCatalogue.named(emitterName).orElseThrow(() -> new BadParameterException("emitter",
+                "unknown emitter '" + emitterName + "'; known: " + names(EmitterCatalogue.all().stream()
+                        .map(Emitter::name).toList())));
+        Response response = Response.named(responseName).orElseThrow(() -> new BadParameterException("response",
+                "unknown response '" + responseName + "'; known: " + names(Response.catalogue().stream()
+                        .map(Response::name).toList())));
+        SampleCurve sample = curves.get(id, thicknessMm, null);
+        WeightedFigures.Report r = WeightedFigures.report(sample.curve(), emitter, response);
+        return new FiguresJson(id, sample.thicknessMm(), sample.rescaled(), emitter.name(), response.name(),
+                FigureJson.of(r.effectiveTransmittance()), FigureJson.of(r.protectionFactor()),
+                FigureJson.of(r.erythemalProtectionFactor()), FigureJson.of(r.actinicUvProtectionFactor()),
+                FigureJson.all(r.bandMeans()), FigureJson.of(r.criticalWavelength()),
+                FigureJson.all(r.opticalDensities()), CAUTION);
+    }
+
+    private static String names(List<String> names) {
+        return String.join(", ", names);
+    }
+}
