@@ -20,6 +20,9 @@ public final class WeightedFigures {
     public static final double CRITICAL_TO_NM = 400;
     public static final double CRITICAL_FRACTION = 0.9;
 
+    /** Largest share of ∫E·W dλ that may fall outside the curve before a weighted figure is refused. */
+    public static final double MAX_UNCOVERED_SHARE = 0.01;
+
     private static final double ABSORBANCE_FLOOR_T = Curve.ABSORBANCE_FLOOR_T;
 
     private WeightedFigures() {
@@ -55,6 +58,11 @@ public final class WeightedFigures {
     /**
      * ∫E·W·T dλ / ∫E·W dλ over the response's defined range (cut to where the emitter has power).
      * An upper bound when any weighted point is below the detection limit.
+     *
+     * <p>Where the curve does not reach the whole range, nothing is extrapolated: if the part outside the
+     * curve holds at most {@link #MAX_UNCOVERED_SHARE} of ∫E·W dλ (the actinic S(λ) starts at 180 nm, curves
+     * at 190 nm, and 180-190 nm holds about 0.3 % of its flat-source weight), the ratio is taken over the
+     * covered part and the note gives the share left out; otherwise the figure is not available.
      */
     public static Figure effectiveTransmittance(Curve curve, Emitter emitter, Response response) {
         String name = "effectiveTransmittance";
@@ -65,31 +73,50 @@ public final class WeightedFigures {
                     + emitter.maxNm() + " nm) has no power inside the range of response " + response.name() + " ("
                     + response.minNm() + "-" + response.maxNm() + " nm)");
         }
-        String gap = coverageGap(curve, lo, hi);
-        if (gap != null) {
-            return Figure.unavailable(name, "fraction", gap);
-        }
         int n = intervals(lo, hi, emitter.stepNm());
         double step = (hi - lo) / n;
-        double weighted = 0;
+        double covered = 0;
+        double uncovered = 0;
         double passed = 0;
         boolean bound = false;
         for (int i = 0; i <= n; i++) {
             double nm = i == n ? hi : lo + i * step;
             double ew = emitter.powerAt(nm) * response.weightAt(nm) * trapezoidWeight(i, n);
-            if (ew > 0) {
-                weighted += ew;
-                passed += ew * curve.transmittanceAt(nm).orElseThrow();
-                bound |= curve.belowDetectionAt(nm);
+            if (!(ew > 0)) {
+                continue;
             }
+            var t = curve.transmittanceAt(nm);
+            if (t.isEmpty()) {
+                uncovered += ew;
+                continue;
+            }
+            covered += ew;
+            passed += ew * t.getAsDouble();
+            bound |= curve.belowDetectionAt(nm);
         }
-        if (!(weighted > 0)) {
+        double total = covered + uncovered;
+        if (!(total > 0)) {
             return Figure.unavailable(name, "fraction", "emitter " + emitter.name() + " × response "
                     + response.name() + " integrates to 0 over " + lo + "-" + hi + " nm");
         }
-        return Figure.of(name, passed / weighted, "fraction", bound ? Bound.AT_MOST : Bound.VALUE,
-                emitter.name() + " × " + response.name() + ", " + lo + "-" + hi + " nm, trapezoid, step "
-                        + step + " nm");
+        double share = uncovered / total;
+        if (share > MAX_UNCOVERED_SHARE || !(covered > 0)) {
+            return Figure.unavailable(name, "fraction", coverageGap(curve, lo, hi) + "; "
+                    + percent(share) + " of the weighted power lies outside the curve (at most "
+                    + percent(MAX_UNCOVERED_SHARE) + " may)");
+        }
+        String note = emitter.name() + " × " + response.name() + ", " + lo + "-" + hi + " nm, trapezoid, step "
+                + step + " nm";
+        if (uncovered > 0) {
+            note += "; taken over the curve's range " + Math.max(lo, curve.minWavelengthNm()) + "-"
+                    + Math.min(hi, curve.maxWavelengthNm()) + " nm only, leaving out " + percent(share)
+                    + " of the weighted power (not extrapolated)";
+        }
+        return Figure.of(name, passed / covered, "fraction", bound ? Bound.AT_MOST : Bound.VALUE, note);
+    }
+
+    private static String percent(double share) {
+        return String.format(java.util.Locale.ROOT, "%.2g %%", 100 * share);
     }
 
     /** 1 / effective transmittance; a lower bound when the transmittance is an upper bound. */

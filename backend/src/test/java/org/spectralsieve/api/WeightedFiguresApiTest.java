@@ -61,6 +61,7 @@ class WeightedFiguresApiTest {
         JsonNode f = figures(sampleId("UV-blocking clear window film"), "");
         assertThat(f.path("erythemalProtectionFactor").path("value").asDouble()).isGreaterThan(50);
         assertThat(f.path("criticalWavelength").path("value").asDouble()).isGreaterThan(370);
+        assertThat(f.path("actinicUvProtectionFactor").path("value").asDouble()).isGreaterThan(50);
         assertThat(f.path("bandMeans").get(1).path("name").asString()).isEqualTo("meanTransmittanceUVB");
         assertThat(f.path("bandMeans").get(0).path("note").asString()).contains("covered part");
     }

@@ -124,6 +124,27 @@ class WeightedFiguresTest {
         assertThat(WeightedFigures.meanTransmittance(visible, UvBand.UVB).available()).isFalse();
     }
 
+    /**
+     * Curves start at 190 nm, the actinic table at 180 nm; 180-190 nm holds under 1 % of the flat-source
+     * weight (table of reference sheet §4: S ≤ 0.019 there, ∫S ≈ 0.15 nm of ∫S ≈ 46 nm over 180-400 nm, 0.33 %), so the
+     * figure is taken over the covered part and says so. A flat T still gives exactly T.
+     */
+    @Test
+    void actinicFigureOfACurveFrom190NanometresLeavesOutTheSmallUncoveredShareAndSaysSo() {
+        Figure t = WeightedFigures.effectiveTransmittance(curve(190, 1100, nm -> 0.3), Emitter.flat(),
+                Response.actinicUv());
+        assertThat(t.value().getAsDouble()).isCloseTo(0.3, within(1e-12));
+        assertThat(t.note()).contains("190.0-400.0 nm only, leaving out");
+    }
+
+    @Test
+    void erythemalFigureOfACurveMissingMostOfItsWeightIsRefused() {
+        Figure t = WeightedFigures.effectiveTransmittance(curve(300, 1100, nm -> 0.3), Emitter.flat(),
+                Response.erythema());
+        assertThat(t.available()).isFalse();
+        assertThat(t.note()).contains("of the weighted power lies outside the curve");
+    }
+
     /** Definition of a mean on the trapezoid grid: T linear 0.2 → 0.9 over UVB averages to 0.55 exactly. */
     @Test
     void uvbMeanOfALinearRampIsItsMidpoint() {
