@@ -19,7 +19,7 @@ public final class Emitter {
     /** Second radiation constant c2 = h·c/k in nm·K (CODATA 2018; h, c and k are exact in the SI). */
     public static final double C2_NM_K = 1.438776877e7;
 
-    /** Low-pressure mercury lines used by {@link #mercury}, nm (NIST atomic spectra, air wavelengths). */
+    /** Low-pressure mercury lines used by {@link #mercury}, nm, as issue 5 names them (air wavelengths; from memory). */
     public static final double[] MERCURY_LINES_NM = {253.7, 365.0, 404.7, 435.8};
 
     /** Modelled width of each mercury line: far wider than the real line, narrower than any filter edge. */
