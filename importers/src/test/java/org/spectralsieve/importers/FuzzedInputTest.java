@@ -4,8 +4,6 @@ import static org.assertj.core.api.Assertions.assertThat;
 import static org.assertj.core.api.Assertions.fail;
 
 import java.io.StringReader;
-import java.util.ArrayList;
-import java.util.Arrays;
 import java.util.List;
 import java.util.Random;
 import org.junit.jupiter.api.Test;
@@ -55,10 +53,10 @@ class FuzzedInputTest {
             text = switch (random.nextInt(6)) {
                 case 0 -> text.substring(0, random.nextInt(text.length() + 1)); // truncation
                 case 1 -> flipByte(text, random);
-                case 2 -> swapLines(text, random);
+                case 2 -> TextMutations.swapLines(text, random);
                 case 3 -> replaceToken(text, random);
                 case 4 -> "";
-                default -> duplicateLine(text, random);
+                default -> TextMutations.duplicateLine(text, random);
             };
             if (text.isEmpty()) {
                 break;
@@ -77,24 +75,7 @@ class FuzzedInputTest {
         return new String(c);
     }
 
-    private static String swapLines(String text, Random random) {
-        List<String> lines = new ArrayList<>(Arrays.asList(text.split("\n", -1)));
-        if (lines.size() > 1) {
-            int a = random.nextInt(lines.size());
-            int b = random.nextInt(lines.size());
-            String t = lines.get(a);
-            lines.set(a, lines.get(b));
-            lines.set(b, t);
-        }
-        return String.join("\n", lines);
-    }
 
-    private static String duplicateLine(String text, Random random) {
-        List<String> lines = new ArrayList<>(Arrays.asList(text.split("\n", -1)));
-        int a = random.nextInt(lines.size());
-        lines.add(a, lines.get(a));
-        return String.join("\n", lines);
-    }
 
     /** Replaces a run of digits with a huge number, NaN, an empty field or a stray delimiter. */
     private static String replaceToken(String text, Random random) {

@@ -3,10 +3,9 @@ package org.spectralsieve.importers.jcamp;
 import static org.assertj.core.api.Assertions.assertThat;
 import static org.assertj.core.api.Assertions.fail;
 
-import java.util.ArrayList;
-import java.util.Arrays;
 import java.util.List;
 import java.util.Random;
+import org.spectralsieve.importers.TextMutations;
 import org.junit.jupiter.api.Test;
 import org.spectralsieve.importers.ImportException;
 
@@ -90,12 +89,12 @@ class JcampFuzzTest {
         return switch (kind) {
             case 0 -> text.substring(0, random.nextInt(text.length() + 1));
             case 1 -> flip(text, random, 1 + random.nextInt(5));
-            case 2 -> swapLines(text, random);
-            case 3 -> dropLine(text, random);
+            case 2 -> TextMutations.swapLines(text, random);
+            case 3 -> TextMutations.dropLine(text, random);
             case 4, 5 -> insert(text, random, INSERTS[random.nextInt(INSERTS.length)]);
-            case 6 -> random.nextInt(20) == 0 ? "" : duplicateLine(text, random);
+            case 6 -> random.nextInt(20) == 0 ? "" : TextMutations.duplicateLine(text, random);
             case 7 -> insert(text, random, Long.toString(random.nextLong()) + "." + random.nextInt(1000));
-            default -> flip(swapLines(text, random), random, 1);
+            default -> flip(TextMutations.swapLines(text, random), random, 1);
         };
     }
 
@@ -115,26 +114,6 @@ class JcampFuzzTest {
         return text.substring(0, at) + what + text.substring(at);
     }
 
-    private static String swapLines(String text, Random random) {
-        List<String> lines = new ArrayList<>(Arrays.asList(text.split("\n", -1)));
-        int a = random.nextInt(lines.size());
-        int b = random.nextInt(lines.size());
-        String t = lines.get(a);
-        lines.set(a, lines.get(b));
-        lines.set(b, t);
-        return String.join("\n", lines);
-    }
 
-    private static String dropLine(String text, Random random) {
-        List<String> lines = new ArrayList<>(Arrays.asList(text.split("\n", -1)));
-        lines.remove(random.nextInt(lines.size()));
-        return String.join("\n", lines);
-    }
 
-    private static String duplicateLine(String text, Random random) {
-        List<String> lines = new ArrayList<>(Arrays.asList(text.split("\n", -1)));
-        int a = random.nextInt(lines.size());
-        lines.add(a, lines.get(a));
-        return String.join("\n", lines);
-    }
 }
