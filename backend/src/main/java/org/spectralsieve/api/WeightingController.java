@@ -6,9 +6,9 @@ import java.util.stream.Collectors;
 import org.spectralsieve.library.SampleCurve;
 import org.spectralsieve.library.SampleCurves;
 import org.spectralsieve.weighting.Emitter;
-import org.spectralsieve.weighting.EmitterCatalogue;
 import org.spectralsieve.weighting.Figure;
 import org.spectralsieve.weighting.Response;
+import org.spectralsieve.weighting.SpectrumLookup;
 import org.spectralsieve.weighting.WeightedFigures;
 import org.springframework.web.bind.annotation.GetMapping;
 import org.springframework.web.bind.annotation.PathVariable;
@@ -24,9 +24,11 @@ class WeightingController {
             + "equipment; applicable standards, local codes and a qualified safety professional decide.";
 
     private final SampleCurves curves;
+    private final SpectrumLookup spectra;
 
-    WeightingController(SampleCurves curves) {
+    WeightingController(SampleCurves curves, SpectrumLookup spectra) {
         this.curves = curves;
+        this.spectra = spectra;
     }
 
     record EmitterJson(String name, String kind, Map<String, Double> parameters, double[] rangeNm,
@@ -72,12 +74,12 @@ class WeightingController {
 
     @GetMapping("/api/emitters")
     EmittersJson emitters() {
-        return new EmittersJson(EmitterCatalogue.all().stream().map(EmitterJson::of).toList(), CAUTION);
+        return new EmittersJson(spectra.emitters().stream().map(EmitterJson::of).toList(), CAUTION);
     }
 
     @GetMapping("/api/responses")
     ResponsesJson responses() {
-        return new ResponsesJson(Response.catalogue().stream().map(ResponseJson::of).toList(), CAUTION);
+        return new ResponsesJson(spectra.responses().stream().map(ResponseJson::of).toList(), CAUTION);
     }
 
     @GetMapping("/api/samples/{id}/figures")
@@ -89,11 +91,11 @@ class WeightingController {
             throw new BadParameterException("thicknessMm", "must be above 0 and at most "
                     + SampleCurves.MAX_THICKNESS_MM + " mm, got " + thicknessMm);
         }
-        Emitter emitter = EmitterCatalogue.named(emitterName).orElseThrow(() -> new BadParameterException("emitter",
-                "unknown emitter '" + emitterName + "'; known: " + names(EmitterCatalogue.all().stream()
+        Emitter emitter = spectra.emitter(emitterName).orElseThrow(() -> new BadParameterException("emitter",
+                "unknown emitter '" + emitterName + "'; known: " + names(spectra.emitters().stream()
                         .map(Emitter::name).toList())));
-        Response response = Response.named(responseName).orElseThrow(() -> new BadParameterException("response",
-                "unknown response '" + responseName + "'; known: " + names(Response.catalogue().stream()
+        Response response = spectra.response(responseName).orElseThrow(() -> new BadParameterException("response",
+                "unknown response '" + responseName + "'; known: " + names(spectra.responses().stream()
                         .map(Response::name).toList())));
         SampleCurve sample = curves.get(id, thicknessMm, null);
         WeightedFigures.Report r = WeightedFigures.report(sample.curve(), emitter, response);

@@ -130,6 +130,16 @@ public final class Emitter {
                         + "FWHM 40 nm", band.power);
     }
 
+    /**
+     * A measured or imported spectrum: relative power at the given wavelengths, straight lines between
+     * them, 0 outside. {@code description} should say where the data came from.
+     */
+    public static Emitter tabulated(String name, String description, double[] nm, double[] power) {
+        Tabulated table = new Tabulated("emitter '" + name + "'", nm, power);
+        return new Emitter(name, "tabulated", Map.of(), table.minNm(), table.maxNm(), table.stepNm(), description,
+                table::valueAt);
+    }
+
     static double planckRelative(double nm, double c2, double temperatureK) {
         double at560 = Math.expm1(c2 / (560 * temperatureK));
         double here = Math.expm1(c2 / (nm * temperatureK));

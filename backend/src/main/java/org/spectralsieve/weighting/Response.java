@@ -18,9 +18,9 @@ public final class Response {
     private static final Response ERYTHEMA = new Response("erythema", 250, 400,
             "CIE erythema reference action spectrum, ISO/CIE 17166:2019 (CIE S 007/E-1998) form with 140 in the "
                     + "UVA branch; 250-400 nm, 0 above 400 nm by convention", Response::erythema);
-    private static final Response ACTINIC_UV = tabulated("actinic-uv", "actinic-uv-hazard.txt",
+    private static final Response ACTINIC_UV = fromTable("actinic-uv", "actinic-uv-hazard.txt",
             "actinic UV hazard S(λ) (ICNIRP / ACGIH / IEC 62471), tabulated 180-400 nm, log-linear between rows");
-    private static final Response BLUE_LIGHT = tabulated("blue-light", "blue-light-hazard.txt",
+    private static final Response BLUE_LIGHT = fromTable("blue-light", "blue-light-hazard.txt",
             "blue-light hazard B(λ) (IEC 62471 / CIE S 009), 380-700 nm, log-linear between rows");
     private static final Response FLAT = flat(250, 400);
 
@@ -42,7 +42,7 @@ public final class Response {
         this.weight = weight;
     }
 
-    private static Response tabulated(String name, String file, String description) {
+    private static Response fromTable(String name, String file, String description) {
         WeightingTable table = WeightingTable.resource(file);
         return new Response(name, table.minWavelengthNm(), table.maxWavelengthNm(),
                 description + "; source: " + table.source(), table::valueAt);
@@ -69,6 +69,15 @@ public final class Response {
     public static Response flat(double minNm, double maxNm) {
         return new Response("flat", minNm, maxNm, "unweighted, W = 1 over " + minNm + "-" + maxNm + " nm",
                 nm -> 1.0);
+    }
+
+    /**
+     * A measured or imported response (a photoinitiator's absorbance, a sensor's responsivity): weights at
+     * the given wavelengths, straight lines between them, defined over the first to the last point.
+     */
+    public static Response tabulated(String name, String description, double[] nm, double[] weights) {
+        Tabulated table = new Tabulated("response '" + name + "'", nm, weights);
+        return new Response(name, table.minNm(), table.maxNm(), description, table::valueAt);
     }
 
     public static List<Response> catalogue() {
