@@ -9,6 +9,12 @@ public sealed interface Layer permits Layer.Bulk, Layer.Fixed {
     /** Measured curve of the part as it will sit in the path, on {@code grid}. */
     Curve transmittanceOn(WavelengthGrid grid);
 
+    /** Measured curve of the part as it will sit in the path, at increasing wavelengths inside its range. */
+    Curve transmittanceAt(double[] wavelengthsNm);
+
+    /** The part's curve as measured (before any change of thickness). */
+    Curve measured();
+
     RefractiveIndex index();
 
     static Bulk bulk(Curve measured, double measuredThicknessMm, double targetThicknessMm, RefractiveIndex index) {
@@ -36,6 +42,12 @@ public sealed interface Layer permits Layer.Bulk, Layer.Fixed {
             return ThicknessRescaler.rescale(measured, measuredThicknessMm, targetThicknessMm, index)
                     .resample(grid);
         }
+
+        @Override
+        public Curve transmittanceAt(double[] wavelengthsNm) {
+            return ThicknessRescaler.rescale(measured, measuredThicknessMm, targetThicknessMm, index)
+                    .resampleAt(wavelengthsNm);
+        }
     }
 
     /**
@@ -51,6 +63,11 @@ public sealed interface Layer permits Layer.Bulk, Layer.Fixed {
         @Override
         public Curve transmittanceOn(WavelengthGrid grid) {
             return measured.resample(grid);
+        }
+
+        @Override
+        public Curve transmittanceAt(double[] wavelengthsNm) {
+            return measured.resampleAt(wavelengthsNm);
         }
     }
 

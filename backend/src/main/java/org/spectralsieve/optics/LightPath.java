@@ -56,7 +56,61 @@ public final class LightPath {
                 throw new CurveException("layer " + j + ": " + e.getMessage());
             }
         }
-        double[] nm = grid.points();
+        return combine(grid.points(), onGrid);
+    }
+
+    /**
+     * Transmittance of the whole path at the layers' own wavelengths: every stored wavelength of every
+     * layer inside the range all layers cover, plus that range's two ends. Nothing a layer's curve shows
+     * is smoothed away by a coarser grid, and nothing is extrapolated.
+     *
+     * @throws CurveException when the layers' measured ranges share less than an interval
+     */
+    public Curve transmittance() {
+        return transmittanceAt(sharedWavelengths());
+    }
+
+    /** Transmittance of the whole path at increasing wavelengths every layer covers. */
+    public Curve transmittanceAt(double[] wavelengthsNm) {
+        int count = layers.size();
+        Curve[] onPoints = new Curve[count];
+        for (int j = 0; j < count; j++) {
+            try {
+                onPoints[j] = layers.get(j).transmittanceAt(wavelengthsNm);
+            } catch (CurveException e) {
+                throw new CurveException("layer " + j + ": " + e.getMessage());
+            }
+        }
+        return combine(wavelengthsNm.clone(), onPoints);
+    }
+
+    /** The union of the layers' stored wavelengths inside the range they all cover, with its ends. */
+    public double[] sharedWavelengths() {
+        double from = Double.NEGATIVE_INFINITY;
+        double to = Double.POSITIVE_INFINITY;
+        for (Layer layer : layers) {
+            from = Math.max(from, layer.measured().minWavelengthNm());
+            to = Math.min(to, layer.measured().maxWavelengthNm());
+        }
+        if (!(to > from)) {
+            throw new CurveException("the layers' measured ranges do not overlap (common part " + from + ".." + to
+                    + " nm); a light path is only known where every layer was measured");
+        }
+        java.util.TreeSet<Double> points = new java.util.TreeSet<>();
+        points.add(from);
+        points.add(to);
+        for (Layer layer : layers) {
+            for (double nm : layer.measured().wavelengthsNm()) {
+                if (nm > from && nm < to) {
+                    points.add(nm);
+                }
+            }
+        }
+        return points.stream().mapToDouble(Double::doubleValue).toArray();
+    }
+
+    private Curve combine(double[] nm, Curve[] onGrid) {
+        int count = layers.size();
         double[] t = new double[nm.length];
         boolean[] below = new boolean[nm.length];
         double[] limits = new double[nm.length];

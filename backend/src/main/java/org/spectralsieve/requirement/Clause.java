@@ -1,7 +1,15 @@
 package org.spectralsieve.requirement;
 
 /** One spectral condition of a requirement. {@code text} is the clause as the user wrote it (or a canonical rendering). */
-public sealed interface Clause permits TransmittanceClause, CutoffClause {
+public sealed interface Clause permits TransmittanceClause, CutoffClause, WeightedClause, CriticalWavelengthClause {
 
     String text();
+
+    /**
+     * Whether the clause reads the curve only at wavelengths of its own band or window (a transmittance or
+     * cutoff clause), as the in-memory store can judge it; weighted figures integrate over a whole source.
+     */
+    default boolean plain() {
+        return this instanceof TransmittanceClause || this instanceof CutoffClause;
+    }
 }

@@ -42,6 +42,9 @@ import org.spectralsieve.spectrum.Cutoffs;
  * side of zero the verdict gives — only a non-monotone curve (a second crossing) needs the clamp. A
  * window not wholly inside the measured range, or a walk stopped by an undetermined below-detection
  * point, is unverified with margin NaN.
+ *
+ * <h2>Weighted and critical-wavelength clauses</h2>
+ * See {@link FigureClauses}: the same verdict rules on an integrated figure.
  */
 public final class ClauseEvaluator {
 
@@ -54,6 +57,12 @@ public final class ClauseEvaluator {
         CurveView view = new CurveView(curve);
         if (clause instanceof TransmittanceClause t) {
             return t.aggregate() == Aggregate.MEAN ? mean(t, view) : everyPoint(t, view);
+        }
+        if (clause instanceof WeightedClause w) {
+            return FigureClauses.weighted(w, curve);
+        }
+        if (clause instanceof CriticalWavelengthClause c) {
+            return FigureClauses.critical(c, curve);
         }
         return cutoff((CutoffClause) clause, view);
     }
@@ -114,7 +123,7 @@ public final class ClauseEvaluator {
         return new ClauseResult(clause, mean, clause.thresholdT(), margin, verdict, text, bounded);
     }
 
-    private static String explain(String subject, Direction direction, boolean bounded, double t, double threshold,
+    static String explain(String subject, Direction direction, boolean bounded, double t, double threshold,
                                   Verdict verdict) {
         String need = Wording.need(direction, threshold);
         if (!bounded) {

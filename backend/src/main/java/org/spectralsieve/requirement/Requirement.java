@@ -5,12 +5,13 @@ import java.util.Objects;
 import java.util.Optional;
 
 /**
- * What the light path must do: spectral clauses (all must hold), what is said about thickness, and
- * filters on which samples count. {@code materialClass} is a class label as stored ("plastic sheet");
- * {@code geometry} is "regular" or "total".
+ * What the light path must do: spectral clauses (all must hold), what is said about thickness, filters on
+ * which samples count, and optionally a fixed part that stays in the path with every candidate.
+ * {@code materialClass} is a class label as stored ("plastic sheet"); {@code geometry} is "regular" or
+ * "total"; the thickness statement concerns the candidate, never the fixed layer.
  */
 public record Requirement(List<Clause> clauses, ThicknessSpec thickness, Optional<String> materialClass,
-                          Optional<String> geometry, String text) {
+                          Optional<String> geometry, Optional<FixedLayer> layer, String text) {
 
     public Requirement {
         clauses = List.copyOf(clauses);
@@ -20,6 +21,21 @@ public record Requirement(List<Clause> clauses, ThicknessSpec thickness, Optiona
         Objects.requireNonNull(thickness, "thickness");
         Objects.requireNonNull(materialClass, "materialClass");
         Objects.requireNonNull(geometry, "geometry");
+        Objects.requireNonNull(layer, "layer");
         text = Objects.requireNonNullElse(text, "");
+    }
+
+    /** A requirement without a fixed layer. */
+    public Requirement(List<Clause> clauses, ThicknessSpec thickness, Optional<String> materialClass,
+                       Optional<String> geometry, String text) {
+        this(clauses, thickness, materialClass, geometry, Optional.empty(), text);
+    }
+
+    /**
+     * Only transmittance and cutoff clauses on the candidate alone: what the in-memory store judges whole
+     * and the closed-form thickness solver handles.
+     */
+    public boolean plain() {
+        return layer.isEmpty() && clauses.stream().allMatch(Clause::plain);
     }
 }

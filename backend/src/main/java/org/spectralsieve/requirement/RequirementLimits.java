@@ -19,8 +19,11 @@ public final class RequirementLimits {
     /** Spectrophotometers read to OD 6-8 at best; OD 10 leaves margin without admitting nonsense. */
     public static final double MAX_OPTICAL_DENSITY = 10;
     public static final List<String> GEOMETRIES = List.of("regular", "total");
+    /** Longest material phrase of a fixed layer: a slug or a few words of a material's name. */
+    public static final int MAX_MATERIAL_WORDS_LENGTH = 80;
 
     private static final Pattern CLASS_LABEL = Pattern.compile("[a-z][a-z0-9 \\-]{0,38}[a-z0-9]");
+    private static final Pattern MATERIAL_WORDS = Pattern.compile("[\\p{Ll}\\p{Lo}0-9][\\p{Ll}\\p{Lo}0-9 .\\-]*");
     private static final Pattern AND_WORD = Pattern.compile("(^|\\s)and(\\s|$)");
 
     private RequirementLimits() {
@@ -52,6 +55,17 @@ public final class RequirementLimits {
      */
     public static boolean isClassLabel(String label) {
         return label != null && CLASS_LABEL.matcher(label).matches() && !AND_WORD.matcher(label).find();
+    }
+
+    /**
+     * The words naming a fixed layer's material as the text language writes them: lower-case letters,
+     * digits, spaces, points and hyphens, starting with a letter or digit, at most
+     * {@link #MAX_MATERIAL_WORDS_LENGTH} characters, single spaces, and no word "and" (which would end the
+     * phrase in text).
+     */
+    public static boolean isMaterialWords(String words) {
+        return words != null && words.length() <= MAX_MATERIAL_WORDS_LENGTH && MATERIAL_WORDS.matcher(words).matches()
+                && !words.contains("  ") && words.equals(words.strip()) && !AND_WORD.matcher(words).find();
     }
 
     /**

@@ -6,6 +6,7 @@ import java.util.List;
 import java.util.Locale;
 import java.util.Optional;
 import org.spectralsieve.requirement.Token.Kind;
+import org.spectralsieve.weighting.SpectrumLookup;
 
 /**
  * Reads the requirement language: plain-words clauses joined by "and" or commas, for example
@@ -13,24 +14,30 @@ import org.spectralsieve.requirement.Token.Kind;
  *
  * <pre>
  * requirement = item { ( "," [ "and" ] | "and" ) item }
- * item        = transmittance | cutoff | thickness | class | geometry      (see SpectralClauseParser)
+ * item        = transmittance | cutoff | preset | critical                (SpectralClauseParser, FigureClauseParser)
+ *             | thickness | class | geometry | layer
  * thickness   = "thickness" [ "at" ] ( "as" "measured" | mm [ "mm" ] ( "to" | "-" ) mm "mm" | mm "mm" )
  *             | "at" mm "mm"
  * class       = [ "material" ] "class" label        (label: the words up to the next "," or "and")
  * geometry    = "geometry" ( "regular" | "total" )
+ * layer       = ( "behind" | "on" ) mm "mm" material   (material: the words up to the next "," or "and")
  * </pre>
  *
- * Keywords are case-insensitive. At least one spectral clause is required; thickness, class and
- * geometry may each be given once. Every problem is a {@link RequirementSyntaxException}.
+ * Keywords are case-insensitive. At least one spectral clause is required; thickness, class, geometry and
+ * a fixed layer may each be given once. Emitter and response names are read against a
+ * {@link SpectrumLookup}; a layer's material words are kept as written and resolved against the library
+ * by the caller. Every problem is a {@link RequirementSyntaxException}.
  */
 public final class RequirementParser {
 
     private static final String EXAMPLE = "'passes over 80% at 365 nm'";
     private static final Expected ITEM = Expected.keywords("passes", "blocks", "mean", "OD", "cutoff", "over",
-            "under", "thickness", "at", "class", "geometry").because("to start a clause");
+            "under", "erythemal", "uv hazard", "critical wavelength", "thickness", "at", "class", "geometry", "behind",
+            "on").because("to start a clause");
 
     private final TokenCursor in;
     private final SpectralClauseParser spectral;
+    private final FigureClauseParser figures;
     private final List<Clause> clauses = new ArrayList<>();
     private ThicknessSpec thickness = ThicknessSpec.AS_MEASURED;
     private String thicknessText;
@@ -38,18 +45,33 @@ public final class RequirementParser {
     private String classText;
     private String geometry;
     private String geometryText;
+    private FixedLayer layer;
 
-    private RequirementParser(String text) {
+    private RequirementParser(String text, SpectrumLookup spectra) {
         this.in = new TokenCursor(text);
-        this.spectral = new SpectralClauseParser(in);
+        this.spectral = new SpectralClauseParser(in, new SpectrumNames(in, spectra));
+        this.figures = new FigureClauseParser(in, spectral, spectra);
     }
 
-    /** @throws RequirementSyntaxException for any text that is not a valid requirement, null included */
+    /**
+     * Reads a text naming only built-in emitters and responses; where imported spectra exist, use
+     * {@link #parse(String, SpectrumLookup)} with the application's lookup.
+     *
+     * @throws RequirementSyntaxException for any text that is not a valid requirement, null included
+     */
     public static Requirement parse(String text) {
+        return parse(text, SpectrumLookup.builtIn());
+    }
+
+    /**
+     * @param spectra where emitter and response names resolve
+     * @throws RequirementSyntaxException for any text that is not a valid requirement, null included
+     */
+    public static Requirement parse(String text, SpectrumLookup spectra) {
         if (text == null) {
             throw new RequirementSyntaxException(0, "a requirement such as " + EXAMPLE, "nothing", null);
         }
-        return new RequirementParser(text).requirement();
+        return new RequirementParser(text, java.util.Objects.requireNonNull(spectra, "spectra")).requirement();
     }
 
     /** The canonical text of a requirement; {@code parse(render(r))} equals r apart from the text fields. */
@@ -73,7 +95,7 @@ public final class RequirementParser {
         }
         String text = in.slice(0, in.text().length());
         return TokenCursor.build(in.peek(), () -> new Requirement(clauses, thickness,
-                Optional.ofNullable(materialClass), Optional.ofNullable(geometry), text));
+                Optional.ofNullable(materialClass), Optional.ofNullable(geometry), Optional.ofNullable(layer), text));
     }
 
     private boolean separator() {
@@ -93,6 +115,10 @@ public final class RequirementParser {
             case "mean", "od", "over", "above", "under", "below", "more", "less" ->
                     clauses.add(spectral.transmittance(first, null));
             case "cutoff", "cut-off" -> clauses.add(spectral.cutoff(first));
+            case "erythemal" -> clauses.add(figures.erythemal(first));
+            case "uv", "uv-hazard" -> clauses.add(figures.uvHazard(first));
+            case "critical" -> clauses.add(figures.criticalWavelength(first));
+            case "behind", "on" -> layer(first);
             case "thickness" -> thickness(first);
             case "class", "material" -> materialClass(first);
             case "geometry" -> geometry(first);
@@ -217,6 +243,40 @@ public final class RequirementParser {
         in.next();
         geometry = in.expectWord(Expected.keywords("regular", "total").after("geometry"), "regular", "total").lower();
         geometryText = in.slice(first.start(), in.previous().end());
+    }
+
+    /** "behind 4 mm float glass": the material is the words up to the next separator, as with a class label. */
+    private void layer(Token first) {
+        if (layer != null) {
+            throw duplicate(first, "fixed layer", layer.text());
+        }
+        in.next();
+        Token number = in.peek();
+        double mm = millimetres(number, in.expectNumber(Expected.described("the layer's thickness in mm, as in 'behind 4 mm"
+                + " clear float glass'").after(first.text())));
+        in.expectWord(Expected.keywords("mm").after(number.text()), "mm");
+        Token phraseStart = in.peek();
+        while (!in.at(Kind.END) && !in.at(Kind.COMMA) && !in.atWord("and")) {
+            Token t = in.peek();
+            if (t.kind() != Kind.WORD && t.kind() != Kind.NUMBER && t.kind() != Kind.DASH) {
+                throw TokenCursor.outOfRange(t, "a library material: its slug or words of its name", t.quoted());
+            }
+            in.next();
+        }
+        if (in.previous().end() <= phraseStart.start()) {
+            throw in.error(Expected.described("a library material, its slug or words of its name, such as"
+                    + " 'clear-float-glass'").after("mm"));
+        }
+        String words = in.slice(phraseStart.start(), in.previous().end()).toLowerCase(Locale.ROOT)
+                .replace('–', '-').replaceAll("\\s+", " ");
+        if (!RequirementLimits.isMaterialWords(words)) {
+            throw TokenCursor.outOfRange(phraseStart, "a library material of at most "
+                    + RequirementLimits.MAX_MATERIAL_WORDS_LENGTH + " characters of letters, digits, spaces, points or"
+                    + " hyphens", "'" + words + "'");
+        }
+        FixedLayer.Placement placement = first.isWord("behind") ? FixedLayer.Placement.BEHIND : FixedLayer.Placement.ON;
+        String text = in.slice(first.start(), in.previous().end());
+        layer = TokenCursor.build(first, () -> new FixedLayer(placement, mm, words, text));
     }
 
     private static RequirementSyntaxException duplicate(Token at, String what, String earlier) {

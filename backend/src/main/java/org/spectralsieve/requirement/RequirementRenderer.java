@@ -27,6 +27,7 @@ final class RequirementRenderer {
         }
         requirement.materialClass().ifPresent(label -> parts.add("class " + label));
         requirement.geometry().ifPresent(geometry -> parts.add("geometry " + geometry));
+        requirement.layer().ifPresent(layer -> parts.add(layer(layer)));
         return String.join(", ", parts);
     }
 
@@ -34,23 +35,49 @@ final class RequirementRenderer {
         if (clause instanceof TransmittanceClause t) {
             return transmittance(t);
         }
+        if (clause instanceof WeightedClause w) {
+            return weighted(w);
+        }
+        if (clause instanceof CriticalWavelengthClause c) {
+            return "critical wavelength " + (c.comparison() == Comparison.AT_LEAST ? "at least " : "at most ")
+                    + number(c.nm()) + " nm";
+        }
         CutoffClause c = (CutoffClause) clause;
         return (c.levelT() == 0.5 ? "cutoff " : "cutoff at " + percent(c.levelT()) + " ")
                 + "between " + number(c.window().fromNm()) + " and " + number(c.window().toNm()) + " nm";
     }
 
+    static String layer(FixedLayer layer) {
+        return (layer.placement() == FixedLayer.Placement.BEHIND ? "behind " : "on ") + number(layer.thicknessMm())
+                + " mm " + layer.material();
+    }
+
     private static String transmittance(TransmittanceClause t) {
-        boolean pass = t.direction() == Direction.PASS;
-        String start = t.aggregate() == Aggregate.MEAN ? "mean " : "";
-        String level = switch (t.unit()) {
-            case PERCENT -> (start.isEmpty() ? (pass ? "passes " : "blocks ") : "")
-                    + (pass ? "at least " : "at most ") + percent(t.thresholdT());
-            case FRACTION -> (start.isEmpty() ? (pass ? "passes " : "blocks ") : "")
-                    + (pass ? "at least " : "at most ") + number(t.thresholdT());
+        boolean mean = t.aggregate() == Aggregate.MEAN;
+        return (mean ? "mean " : "") + level(t.direction(), t.thresholdT(), t.unit(), !mean) + " " + band(t.band());
+    }
+
+    /** The level as the model holds it; {@code verb} puts "passes"/"blocks" before a percentage or fraction. */
+    private static String level(Direction direction, double thresholdT, ThresholdUnit unit, boolean verb) {
+        boolean pass = direction == Direction.PASS;
+        String start = verb ? (pass ? "passes " : "blocks ") : "";
+        return switch (unit) {
+            case PERCENT -> start + (pass ? "at least " : "at most ") + percent(thresholdT);
+            case FRACTION -> start + (pass ? "at least " : "at most ") + number(thresholdT);
             // a higher density lets less through, so blocking reads "OD at least"
-            case OPTICAL_DENSITY -> "OD " + (pass ? "at most " : "at least ") + density(t.thresholdT());
+            case OPTICAL_DENSITY -> "OD " + (pass ? "at most " : "at least ") + density(thresholdT);
         };
-        return start + level + " " + band(t.band());
+    }
+
+    /** Names are written as stored ("led-365"); the parser reads them back whatever separates their words. */
+    private static String weighted(WeightedClause w) {
+        Weighting.Spectral s = (Weighting.Spectral) w.weighting();
+        return switch (s.preset()) {
+            case ERYTHEMAL -> "erythemal " + level(w.direction(), w.thresholdT(), w.unit(), false);
+            case UV_HAZARD -> "uv hazard " + level(w.direction(), w.thresholdT(), w.unit(), false);
+            case EMITTER -> level(w.direction(), w.thresholdT(), w.unit(), true) + " of " + s.emitter().name()
+                    + s.response().map(r -> " weighted by " + r.name()).orElse("");
+        };
     }
 
     private static String band(Band band) {

@@ -2,30 +2,35 @@ package org.spectralsieve.requirement;
 
 import java.math.BigDecimal;
 import java.util.List;
+import java.util.Optional;
 import org.spectralsieve.requirement.Token.Kind;
+import org.spectralsieve.weighting.Emitter;
+import org.spectralsieve.weighting.Response;
 
 /**
  * The spectral clauses: transmittance levels over a wavelength or band, and cutoff windows.
  *
  * <pre>
  * transmittance = [ verb ] [ "mean" ] level band
+ *               | [ verb ] level "of" emitter [ "weighted" "by" response ]     (a WeightedClause)
  * level         = [ comparison ] [ "to" ] ( number [ "%" ] | "OD" [ comparison ] number ) [ "or" ( "more" | "less" ) ]
  * band          = "at" wavelength | "from" wavelength ( "to" | "-" ) wavelength | "between" wavelength "and" wavelength
  * cutoff        = [ number [ "%" ] ] "cutoff" [ "at" number [ "%" ] ] ( "from" … | "between" … )
  * </pre>
  *
+ * Emitter and response names are those of the lookup the text is read with ({@link SpectrumNames}).
  * A comparison says which side of the number T must lie on; with a percentage or fraction "over" means
  * passing and "under" blocking, with an optical density the reverse (a higher density lets less through).
  */
 final class SpectralClauseParser {
 
     /** Which side of the number the value must lie on, before translating to pass or block. */
-    private enum Sense { HIGHER, LOWER }
+    enum Sense { HIGHER, LOWER }
 
-    private record Level(Direction direction, double thresholdT, ThresholdUnit unit) {
+    record Level(Direction direction, double thresholdT, ThresholdUnit unit) {
     }
 
-    private record Wavelength(Token number, BigDecimal value, Token unit) {
+    record Wavelength(Token number, BigDecimal value, Token unit) {
     }
 
     static final List<String> HIGHER_WORDS = List.of("over", "above", "more than", "at least", ">=");
@@ -34,24 +39,51 @@ final class SpectralClauseParser {
             LOWER_WORDS.stream()).toList();
 
     private final TokenCursor in;
+    private final SpectrumNames names;
 
-    SpectralClauseParser(TokenCursor in) {
+    SpectralClauseParser(TokenCursor in, SpectrumNames names) {
         this.in = in;
+        this.names = names;
     }
 
-    /** A transmittance clause; {@code verb} is the already consumed "passes"/"blocks" token, or null. */
-    TransmittanceClause transmittance(Token start, Token verb) {
+    /**
+     * A transmittance clause, or a weighted one when the level is followed by "of"; {@code verb} is the
+     * already consumed "passes"/"blocks" token, or null.
+     */
+    Clause transmittance(Token start, Token verb) {
         Direction verbDirection = verb == null ? null
                 : verb.lower().startsWith("pass") ? Direction.PASS : Direction.BLOCK;
         boolean mean = in.acceptWord("mean");
         Level level = level(verb, verbDirection, mean);
+        if (in.atWord("of")) {
+            if (mean) {
+                throw in.error(Expected.keywords("from", "between")
+                        .because("(a weighted figure is an average already; 'mean' needs a band)"));
+            }
+            return weighted(start, level);
+        }
         Band band = band(mean, mean ? "a mean needs a band of two wavelengths" : "");
         String text = in.slice(start.start(), in.previous().end());
         return TokenCursor.build(start, () -> new TransmittanceClause(level.direction(),
                 mean ? Aggregate.MEAN : Aggregate.EVERY_POINT, band, level.thresholdT(), level.unit(), text));
     }
 
-    private Level level(Token verb, Direction verbDirection, boolean mean) {
+    /** "… of led 365 [weighted by erythema]": the emitter's light, weighted by the response if one is named. */
+    private WeightedClause weighted(Token start, Level level) {
+        in.next(); // "of"
+        Emitter emitter = names.emitter("of");
+        Optional<Response> response = Optional.empty();
+        if (in.acceptWord("weighted")) {
+            in.expectWord(Expected.keywords("by").after("weighted"), "by");
+            response = Optional.of(names.response("weighted by"));
+        }
+        Weighting weighting = Weighting.of(emitter, response);
+        String text = in.slice(start.start(), in.previous().end());
+        return TokenCursor.build(start, () -> new WeightedClause(level.direction(), level.thresholdT(), level.unit(),
+                weighting, text));
+    }
+
+    Level level(Token verb, Direction verbDirection, boolean mean) {
         Token comparisonToken = in.peek();
         Sense sense = comparison();
         if (sense == null && !(in.atWord("to") || in.atWord("od") || in.at(Kind.NUMBER))) {
@@ -137,7 +169,7 @@ final class SpectralClauseParser {
     }
 
     /** Reads "over", "at least", ">=" and the like; consumes nothing when no comparison stands there. */
-    private Sense comparison() {
+    Sense comparison() {
         Token t = in.peek();
         switch (t.kind()) {
             case AT_LEAST -> {
@@ -252,8 +284,8 @@ final class SpectralClauseParser {
         boolean between = in.atWord("between");
         if (!between && !in.atWord("from")) {
             Expected expected = needRange ? Expected.keywords("from", "between")
-                    : Expected.keywords("at", "from", "between");
-            throw in.error(why.isEmpty() ? expected.because("for the wavelength or band") : expected.because("(" + why + ")"));
+                    : Expected.keywords("at", "from", "between", "of");
+            throw in.error(why.isEmpty() ? expected.because("for the wavelength, band or source") : expected.because("(" + why + ")"));
         }
         in.next();
         Wavelength from = wavelength(false);
@@ -272,7 +304,7 @@ final class SpectralClauseParser {
         return new Band(fromNm, toNm);
     }
 
-    private Wavelength wavelength(boolean unitRequired) {
+    Wavelength wavelength(boolean unitRequired) {
         Token number = in.peek();
         BigDecimal value = in.expectNumber(Expected.described("a wavelength in nm").after(in.previous().text()));
         Expected units = Expected.keywords("nm", "µm", "um").after(number.text());
@@ -290,7 +322,7 @@ final class SpectralClauseParser {
     }
 
     /** The wavelength in nm, checked against the limits; a first wavelength without unit takes the second's. */
-    private static double nanometres(Wavelength w, Token fallbackUnit) {
+    static double nanometres(Wavelength w, Token fallbackUnit) {
         Token unit = w.unit() != null ? w.unit() : fallbackUnit;
         double nm = unit.isWord("nm") ? w.value().doubleValue() : w.value().movePointRight(3).doubleValue();
         if (!RequirementLimits.isWavelength(nm)) {

@@ -64,6 +64,43 @@ public final class ThicknessSolver {
         for (Clause clause : clauses) {
             provable &= addConstraints(clause, model, view, constraints);
         }
+        return solve(constraints, provable, minMm, maxMm, measuredMm);
+    }
+
+    /**
+     * The same for a requirement with weighted clauses or a fixed layer: plain clauses on the candidate
+     * alone keep their closed-form conditions; every other clause, and every clause judged through a
+     * stack, becomes one condition on the whole path at d, solved by bisection to {@link #TOLERANCE_MM}.
+     * Those are monotone too: every T of the path falls as the candidate thickens (the stack's T rises with
+     * each part's T), hence so do a band's worst point, its mean and any weighted figure; a cutoff again
+     * splits into its two edges. The critical wavelength is not monotone in general (it follows the shape
+     * of the absorbance, not its level), but with absorbance linear in d (Beer–Lambert, surfaces fixed) its
+     * condition is linear in d, so it is taken as monotone in the direction its margins at min and max show;
+     * the caller checks the interval's ends on the real curves.
+     */
+    static Solution solve(List<Clause> clauses, CandidatePath path, double minMm, double maxMm) {
+        Candidate candidate = path.candidate();
+        if (!(minMm > 0) || !Double.isFinite(maxMm) || !(maxMm >= minMm)) {
+            throw new IllegalArgumentException("thickness range must be positive and ordered, got " + minMm + " to "
+                    + maxMm + " mm");
+        }
+        RescaledModel model = path.stacked() ? null
+                : new RescaledModel(candidate.measured(), candidate.thicknessMm(), candidate.index());
+        CurveView view = new CurveView(candidate.measured());
+        // coverage and below-detection flags of the path do not depend on the candidate's thickness
+        CurveView pathView = new CurveView(path.asMeasured());
+        List<ThicknessConstraint> constraints = new ArrayList<>();
+        boolean provable = true;
+        for (Clause clause : clauses) {
+            provable &= model != null && clause.plain()
+                    ? addConstraints(clause, model, view, constraints)
+                    : PathConstraints.add(clause, path, pathView, minMm, maxMm, constraints);
+        }
+        return solve(constraints, provable, minMm, maxMm, candidate.thicknessMm());
+    }
+
+    private static Solution solve(List<ThicknessConstraint> constraints, boolean provable, double minMm, double maxMm,
+                                  double measuredMm) {
         double lo = minMm;
         double hi = maxMm;
         boolean feasible = provable;

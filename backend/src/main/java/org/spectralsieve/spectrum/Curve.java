@@ -215,7 +215,34 @@ public final class Curve {
         if (n < 2) {
             throw new CurveException("grid " + grid + " has only " + n + " point; a curve needs 2");
         }
-        double[] nm = grid.points();
+        return readAt(grid.points());
+    }
+
+    /**
+     * The curve read at the given increasing wavelengths, as {@link #resample(WavelengthGrid)} does on a
+     * grid; for points that are not evenly spaced, e.g. the union of two curves' own wavelengths. Fails,
+     * naming the wavelength, when one lies outside the measured range.
+     */
+    public Curve resampleAt(double[] wavelengthsNm) {
+        requireNonNull("wavelengthsNm", wavelengthsNm);
+        if (wavelengthsNm.length < 2) {
+            throw new CurveException("a curve needs at least 2 points, got " + wavelengthsNm.length);
+        }
+        for (int i = 0; i < wavelengthsNm.length; i++) {
+            if (!covers(wavelengthsNm[i])) {
+                throw new CurveException("wavelength " + wavelengthsNm[i] + " nm lies outside the measured range "
+                        + rangeText() + "; curves are never extrapolated");
+            }
+            if (i > 0 && !(wavelengthsNm[i] > wavelengthsNm[i - 1])) {
+                throw new CurveException("wavelength at index " + i + " (" + wavelengthsNm[i]
+                        + " nm) is not greater than the previous one (" + wavelengthsNm[i - 1] + " nm)");
+            }
+        }
+        return readAt(wavelengthsNm.clone());
+    }
+
+    private Curve readAt(double[] nm) {
+        int n = nm.length;
         double[] t = new double[n];
         boolean[] below = new boolean[n];
         double[] limits = new double[n];

@@ -49,10 +49,22 @@ class RequirementParserTest {
 
     /** The requirement with every text field emptied, so records compare on meaning alone. */
     static Requirement withoutTexts(Requirement r) {
-        List<Clause> clauses = r.clauses().stream().map(c -> c instanceof TransmittanceClause t
-                ? (Clause) new TransmittanceClause(t.direction(), t.aggregate(), t.band(), t.thresholdT(), t.unit(), "")
-                : new CutoffClause(((CutoffClause) c).levelT(), ((CutoffClause) c).window(), "")).toList();
-        return new Requirement(clauses, r.thickness(), r.materialClass(), r.geometry(), "");
+        List<Clause> clauses = r.clauses().stream().map(RequirementParserTest::withoutText).toList();
+        return new Requirement(clauses, r.thickness(), r.materialClass(), r.geometry(),
+                r.layer().map(l -> new FixedLayer(l.placement(), l.thicknessMm(), l.material(), "")), "");
+    }
+
+    private static Clause withoutText(Clause c) {
+        if (c instanceof TransmittanceClause t) {
+            return new TransmittanceClause(t.direction(), t.aggregate(), t.band(), t.thresholdT(), t.unit(), "");
+        }
+        if (c instanceof WeightedClause w) {
+            return new WeightedClause(w.direction(), w.thresholdT(), w.unit(), w.weighting(), "");
+        }
+        if (c instanceof CriticalWavelengthClause k) {
+            return new CriticalWavelengthClause(k.comparison(), k.nm(), "");
+        }
+        return new CutoffClause(((CutoffClause) c).levelT(), ((CutoffClause) c).window(), "");
     }
 
     static Stream<Arguments> validRequirements() {
@@ -195,7 +207,7 @@ class RequirementParserTest {
             at 365 nm                                              | 0  | a level such as 'passes over 80%' before the wavelength | -
             passes over 80% at 365 nm, class                       | 32 | a class label such as 'plastic sheet'         | -
             blocks udner 1% at 405 nm                              | 7  | after 'blocks'                                | under
-            passes over 80% frm 350 to 400 nm                      | 16 | 'at', 'from' or 'between'                     | from
+            passes over 80% frm 350 to 400 nm                      | 16 | 'at', 'from', 'between' or 'of'               | from
             OD at least 3 at 405 nm and passes OD 3 at 365 nm      | 35 | after 'passes … OD'                           | -
             """)
     void refusesMalformedTextAtThePositionOfTheProblem(String text, int position, String fragment, String suggestion) {

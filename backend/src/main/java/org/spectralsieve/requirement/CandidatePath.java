@@ -1,0 +1,80 @@
+package org.spectralsieve.requirement;
+
+import java.util.HashMap;
+import java.util.Map;
+import java.util.Optional;
+import org.spectralsieve.optics.ConstantIndex;
+import org.spectralsieve.optics.Layer;
+import org.spectralsieve.optics.LightPath;
+import org.spectralsieve.optics.RefractiveIndex;
+import org.spectralsieve.optics.ThicknessRescaler;
+import org.spectralsieve.spectrum.Curve;
+
+/**
+ * The light path a requirement judges for one candidate: the candidate at a thickness d (rescaled when it
+ * is bulk and d differs from the measured thickness), behind or on the requirement's fixed layer when
+ * there is one. The stack is a {@link LightPath} on the union of both parts' own wavelengths inside the
+ * range both cover, so neither curve is smoothed and nothing is extrapolated. Curves are kept per d: the
+ * thickness solver asks for the same thickness from several conditions.
+ */
+final class CandidatePath {
+
+    /** The index assumed for a non-bulk candidate stored without one: what import assumes too (n = 1.5). */
+    static final RefractiveIndex DEFAULT_INDEX = new ConstantIndex(1.5);
+    private static final int CACHE_LIMIT = 256;
+
+    private final Candidate candidate;
+    private final Optional<StackLayer> layer;
+    private final Map<Double, Curve> byThickness = new HashMap<>();
+
+    CandidatePath(Candidate candidate, Optional<StackLayer> layer) {
+        this.candidate = candidate;
+        this.layer = layer;
+    }
+
+    boolean stacked() {
+        return layer.isPresent();
+    }
+
+    Candidate candidate() {
+        return candidate;
+    }
+
+    /** The path as measured: the measured curve, stacked when there is a layer. */
+    Curve asMeasured() {
+        return stacked() ? cached(Double.NaN, () -> stack(candidate.measured())) : candidate.measured();
+    }
+
+    /**
+     * The path with a bulk candidate rescaled to thickness d (always rescaled, as the solver's model is,
+     * so a recommended thickness equal to the measured one reads the same curve as its neighbours); any
+     * other candidate as measured.
+     */
+    Curve at(double d) {
+        if (!candidate.bulk()) {
+            return asMeasured();
+        }
+        return cached(d, () -> {
+            Curve rescaled = ThicknessRescaler.rescale(candidate.measured(), candidate.thicknessMm(), d, candidate.index());
+            return stacked() ? stack(rescaled) : rescaled;
+        });
+    }
+
+    private Curve stack(Curve candidateCurve) {
+        RefractiveIndex index = candidate.index() != null ? candidate.index() : DEFAULT_INDEX;
+        return LightPath.of(Layer.fixed(candidateCurve, index), layer.orElseThrow().asLayer()).transmittance();
+    }
+
+    private Curve cached(double d, java.util.function.Supplier<Curve> compute) {
+        Curve hit = byThickness.get(d);
+        if (hit != null) {
+            return hit;
+        }
+        if (byThickness.size() >= CACHE_LIMIT) {
+            byThickness.clear();
+        }
+        Curve curve = compute.get();
+        byThickness.put(d, curve);
+        return curve;
+    }
+}

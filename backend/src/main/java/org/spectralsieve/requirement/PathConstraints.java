@@ -1,0 +1,103 @@
+package org.spectralsieve.requirement;
+
+import java.util.List;
+import java.util.function.DoubleUnaryOperator;
+
+/**
+ * Clauses as conditions on the candidate's thickness d, read on the whole light path at d
+ * ({@link CandidatePath#at}); see {@link ThicknessSolver#solve(List, CandidatePath, double, double)} for why
+ * each is monotone. Wavelengths, coverage and below-detection flags are those of the path as measured:
+ * rescaling keeps a curve's wavelengths and flags, and the stack's grid and flags come from its parts.
+ */
+final class PathConstraints {
+
+    private PathConstraints() {
+    }
+
+    /** Adds the clause's conditions; false when the clause can never be proven whatever the thickness. */
+    static boolean add(Clause clause, CandidatePath path, CurveView asMeasured, double minMm, double maxMm,
+                       List<ThicknessConstraint> out) {
+        if (clause instanceof TransmittanceClause t) {
+            return transmittance(t, path, asMeasured, out);
+        }
+        if (clause instanceof CutoffClause c) {
+            if (!asMeasured.covers(c.window())) {
+                return false;
+            }
+            out.add(point(path, c.window().toNm(), Direction.PASS, c.levelT(), asMeasured));
+            out.add(point(path, c.window().fromNm(), Direction.BLOCK, c.levelT(), asMeasured));
+            return true;
+        }
+        if (clause instanceof WeightedClause w) {
+            if (Double.isNaN(FigureClauses.weightedMargin(w, asMeasured.curve()))) {
+                return false;
+            }
+            out.add(new OnPath(w.direction() == Direction.PASS, FigureClauses.weightedProvable(w, asMeasured.curve()),
+                    d -> FigureClauses.weightedMargin(w, path.at(d))));
+            return FigureClauses.weightedProvable(w, asMeasured.curve());
+        }
+        CriticalWavelengthClause c = (CriticalWavelengthClause) clause;
+        DoubleUnaryOperator margin = d -> FigureClauses.criticalMargin(c, JudgedCurves.upperBounds(path.at(d)));
+        double atMin = margin.applyAsDouble(minMm);
+        double atMax = margin.applyAsDouble(maxMm);
+        if (Double.isNaN(atMin) || Double.isNaN(atMax)) {
+            return false;
+        }
+        boolean provable = FigureClauses.criticalProvable(asMeasured.curve());
+        out.add(new OnPath(atMax <= atMin, provable, margin));
+        return provable;
+    }
+
+    private static boolean transmittance(TransmittanceClause t, CandidatePath path, CurveView asMeasured,
+                                         List<ThicknessConstraint> out) {
+        List<Reading> readings = asMeasured.readings(t.band());
+        boolean covered = asMeasured.covers(t.band());
+        boolean pass = t.direction() == Direction.PASS;
+        boolean provable = !pass || readings.stream().noneMatch(Reading::bounded);
+        double[] nms = readings.stream().mapToDouble(Reading::nm).toArray();
+        if (t.aggregate() == Aggregate.MEAN) {
+            if (covered) {
+                out.add(new OnPath(pass, provable, d -> {
+                    List<Reading> now = new CurveView(path.at(d)).readings(t.band());
+                    return Margins.of(t.direction(), CurveView.trapezoidMean(now), t.thresholdT());
+                }));
+            }
+            return covered;
+        }
+        // the covered part of a partly covered band can still prove a miss, so it guides the choice
+        if (nms.length > 0) {
+            out.add(new OnPath(pass, provable, d -> {
+                CurveView view = new CurveView(path.at(d));
+                double worst = Double.POSITIVE_INFINITY;
+                for (double nm : nms) {
+                    worst = Math.min(worst, Margins.of(t.direction(), view.at(nm).judged(), t.thresholdT()));
+                }
+                return worst;
+            }));
+        }
+        return covered;
+    }
+
+    private static ThicknessConstraint point(CandidatePath path, double nm, Direction direction, double threshold,
+                                             CurveView asMeasured) {
+        boolean provable = direction == Direction.BLOCK || !asMeasured.at(nm).bounded();
+        return new OnPath(direction == Direction.PASS, provable,
+                d -> Margins.of(direction, new CurveView(path.at(d)).at(nm).judged(), threshold));
+    }
+
+    /** A condition whose margin is read on the path at d. */
+    static final class OnPath extends ThicknessConstraint {
+
+        private final DoubleUnaryOperator margin;
+
+        OnPath(boolean falling, boolean provable, DoubleUnaryOperator margin) {
+            super(falling, provable);
+            this.margin = margin;
+        }
+
+        @Override
+        double marginAt(double d) {
+            return margin.applyAsDouble(d);
+        }
+    }
+}
