@@ -11,6 +11,7 @@ import org.spectralsieve.ingest.IngestException;
 import org.spectralsieve.library.NotFoundException;
 import org.spectralsieve.library.NotRescalableException;
 import org.spectralsieve.requirement.RequirementSyntaxException;
+import org.spectralsieve.search.LayerResolutionException;
 import org.spectralsieve.spectrum.CurveException;
 import org.springframework.beans.TypeMismatchException;
 import org.springframework.http.HttpHeaders;
@@ -117,6 +118,38 @@ class ApiProblems extends ResponseEntityExceptionHandler {
         problem.setProperty("position", e.position());
         problem.setProperty("expected", e.expected());
         e.suggestion().ifPresent(s -> problem.setProperty("suggestion", s));
+        if (!e.suggestions().isEmpty()) {
+            problem.setProperty("suggestions", e.suggestions());
+        }
+        if (e.length() > 0) {
+            problem.setProperty("length", e.length());
+        }
+        return problem;
+    }
+
+    /** A fixed layer naming no single library sample: the choices, and a slug to write when one is likely. */
+    @ExceptionHandler(LayerResolutionException.class)
+    ProblemDetail layerUnresolved(LayerResolutionException e) {
+        String title = switch (e.reason()) {
+            case UNKNOWN -> "Layer material not found";
+            case AMBIGUOUS -> "Layer material ambiguous";
+            case THICKNESS -> "Layer not measured at that thickness";
+        };
+        ProblemDetail problem = problem(HttpStatus.BAD_REQUEST, title, e.getMessage(), "layer-material");
+        problem.setProperty("parameter", "requirement.layer");
+        problem.setProperty("layer", e.words());
+        problem.setProperty("choices", e.choices().stream().map(c -> java.util.Map.of("slug", c.slug(), "name", c.name(),
+                "detail", c.detail())).toList());
+        if (e.reason() != LayerResolutionException.Reason.THICKNESS && !e.choices().isEmpty()) {
+            problem.setProperty("suggestions", e.choices().stream().map(LayerResolutionException.Choice::slug).toList());
+            if (e.reason() == LayerResolutionException.Reason.UNKNOWN) {
+                problem.setProperty("suggestion", e.choices().get(0).slug());
+            }
+        }
+        if (e.position() >= 0) {
+            problem.setProperty("position", e.position());
+            problem.setProperty("length", e.length());
+        }
         return problem;
     }
 

@@ -8,13 +8,21 @@ import java.util.Optional;
 import org.spectralsieve.requirement.Aggregate;
 import org.spectralsieve.requirement.Band;
 import org.spectralsieve.requirement.Clause;
+import org.spectralsieve.requirement.Comparison;
+import org.spectralsieve.requirement.CriticalWavelengthClause;
 import org.spectralsieve.requirement.CutoffClause;
 import org.spectralsieve.requirement.Direction;
+import org.spectralsieve.requirement.FixedLayer;
 import org.spectralsieve.requirement.Requirement;
 import org.spectralsieve.requirement.RequirementLimits;
 import org.spectralsieve.requirement.ThicknessSpec;
 import org.spectralsieve.requirement.ThresholdUnit;
 import org.spectralsieve.requirement.TransmittanceClause;
+import org.spectralsieve.requirement.WeightedClause;
+import org.spectralsieve.requirement.Weighting;
+import org.spectralsieve.weighting.Emitter;
+import org.spectralsieve.weighting.Response;
+import org.spectralsieve.weighting.SpectrumLookup;
 import tools.jackson.databind.JsonNode;
 
 /**
@@ -25,13 +33,21 @@ import tools.jackson.databind.JsonNode;
  * <pre>
  * {"text": "...", "thickness": {"kind": "asMeasured"} | {"kind": "fixed", "mm": 3} | {"kind": "range", "minMm": 1, "maxMm": 6},
  *  "materialClass": "plastic sheet" | null, "geometry": "regular" | "total" | null,
+ *  "layer": {"placement": "behind" | "on", "thicknessMm": 4, "material": "clear float glass", "text": "..."} | null,
  *  "clauses": [{"type": "transmittance", "direction": "pass" | "block", "aggregate": "everyPoint" | "mean",
  *               "fromNm": 365, "toNm": 365, "thresholdT": 0.8, "unit": "percent" | "fraction" | "opticalDensity", "text": "..."},
- *              {"type": "cutoff", "levelT": 0.5, "fromNm": 380, "toNm": 395, "text": "..."}]}
+ *              {"type": "cutoff", "levelT": 0.5, "fromNm": 380, "toNm": 395, "text": "..."},
+ *              {"type": "weighted", "preset": "emitter" | "erythemal" | "uvHazard", "emitter": "led-365",
+ *               "response": "erythema" | null, "direction": "pass" | "block", "thresholdT": 0.85, "unit": "percent",
+ *               "rangeNm": [329, 401], "safetyFigure": false, "text": "..."},
+ *              {"type": "criticalWavelength", "comparison": "atLeast" | "atMost", "nm": 370, "text": "..."}]}
  * </pre>
  *
- * On reading, a transmittance clause may give its threshold as {@code thresholdPercent} or
- * {@code thresholdOd} instead of {@code thresholdT}; the unit then defaults to the one used.
+ * On reading, a transmittance or weighted clause may give its threshold as {@code thresholdPercent} or
+ * {@code thresholdOd} instead of {@code thresholdT}; the unit then defaults to the one used. A weighted
+ * clause's {@code emitter} and {@code response} are names resolved through the {@link SpectrumLookup}
+ * (a null response: flat over the emitter's range); the presets need neither. {@code rangeNm} and
+ * {@code safetyFigure} are written for the reader and ignored on reading.
  */
 public final class RequirementJson {
 
@@ -44,7 +60,17 @@ public final class RequirementJson {
         json.put("thickness", thickness(requirement.thickness()));
         json.put("materialClass", requirement.materialClass().orElse(null));
         json.put("geometry", requirement.geometry().orElse(null));
+        json.put("layer", requirement.layer().map(RequirementJson::layer).orElse(null));
         json.put("clauses", requirement.clauses().stream().map(RequirementJson::clause).toList());
+        return json;
+    }
+
+    private static Map<String, Object> layer(FixedLayer layer) {
+        Map<String, Object> json = new LinkedHashMap<>();
+        json.put("placement", layer.placement() == FixedLayer.Placement.BEHIND ? "behind" : "on");
+        json.put("thicknessMm", layer.thicknessMm());
+        json.put("material", layer.material());
+        json.put("text", layer.text());
         return json;
     }
 
@@ -75,6 +101,23 @@ public final class RequirementJson {
             json.put("toNm", t.band().toNm());
             json.put("thresholdT", t.thresholdT());
             json.put("unit", UNITS.get(t.unit()));
+        } else if (clause instanceof WeightedClause w) {
+            Weighting.Spectral weighting = (Weighting.Spectral) w.weighting();
+            Response response = weighting.effectiveResponse();
+            json.put("type", "weighted");
+            json.put("preset", PRESETS.get(weighting.preset()));
+            json.put("emitter", weighting.emitter().name());
+            json.put("response", weighting.response().map(Response::name).orElse(null));
+            json.put("direction", w.direction() == Direction.PASS ? "pass" : "block");
+            json.put("thresholdT", w.thresholdT());
+            json.put("unit", UNITS.get(w.unit()));
+            json.put("rangeNm", List.of(Math.max(response.minNm(), weighting.emitter().minNm()),
+                    Math.min(response.maxNm(), weighting.emitter().maxNm())));
+            json.put("safetyFigure", w.weighting().safetyFigure());
+        } else if (clause instanceof CriticalWavelengthClause c) {
+            json.put("type", "criticalWavelength");
+            json.put("comparison", c.comparison() == Comparison.AT_LEAST ? "atLeast" : "atMost");
+            json.put("nm", c.nm());
         } else {
             CutoffClause c = (CutoffClause) clause;
             json.put("type", "cutoff");
@@ -88,9 +131,19 @@ public final class RequirementJson {
 
     private static final Map<ThresholdUnit, String> UNITS = Map.of(ThresholdUnit.PERCENT, "percent",
             ThresholdUnit.FRACTION, "fraction", ThresholdUnit.OPTICAL_DENSITY, "opticalDensity");
+    private static final Map<Weighting.Preset, String> PRESETS = Map.of(Weighting.Preset.EMITTER, "emitter",
+            Weighting.Preset.ERYTHEMAL, "erythemal", Weighting.Preset.UV_HAZARD, "uvHazard");
 
-    /** @throws IllegalArgumentException naming the JSON path of the first bad field */
+    /** Reads a requirement naming only built-in emitters and responses. */
     public static Requirement fromJson(JsonNode node) {
+        return fromJson(node, SpectrumLookup.builtIn());
+    }
+
+    /**
+     * @param spectra where emitter and response names resolve
+     * @throws IllegalArgumentException naming the JSON path of the first bad field
+     */
+    public static Requirement fromJson(JsonNode node, SpectrumLookup spectra) {
         if (node == null || !node.isObject()) {
             throw bad("(root)", "must be an object with 'clauses'");
         }
@@ -100,7 +153,7 @@ public final class RequirementJson {
         }
         List<Clause> clauses = new ArrayList<>();
         for (int i = 0; i < clausesNode.size(); i++) {
-            clauses.add(clause(clausesNode.get(i), "clauses[" + i + "]"));
+            clauses.add(clause(clausesNode.get(i), "clauses[" + i + "]", spectra));
         }
         ThicknessSpec thickness = thickness(node.get("thickness"));
         Optional<String> materialClass = optionalString(node, "materialClass", "(root)")
@@ -110,10 +163,35 @@ public final class RequirementJson {
                 .map(g -> check(g, RequirementLimits.GEOMETRIES.contains(g), "geometry",
                         "must be one of " + RequirementLimits.GEOMETRIES + " or null"));
         String text = optionalString(node, "text", "(root)").orElse("");
-        return new Requirement(clauses, thickness, materialClass, geometry, text);
+        Optional<FixedLayer> layer = layer(node.get("layer"));
+        return new Requirement(clauses, thickness, materialClass, geometry, layer, text);
     }
 
-    private static Clause clause(JsonNode node, String path) {
+    private static Optional<FixedLayer> layer(JsonNode node) {
+        if (node == null || node.isNull()) {
+            return Optional.empty();
+        }
+        if (!node.isObject()) {
+            throw bad("layer", "must be an object with 'placement', 'thicknessMm' and 'material', or null");
+        }
+        FixedLayer.Placement placement = switch (optionalString(node, "placement", "layer").orElse("behind")) {
+            case "behind" -> FixedLayer.Placement.BEHIND;
+            case "on" -> FixedLayer.Placement.ON;
+            default -> throw bad("layer.placement", "must be 'behind' or 'on'");
+        };
+        double mm = number(node, "thicknessMm", "layer");
+        check(mm, RequirementLimits.isThickness(mm), "layer.thicknessMm",
+                "must be a thickness above 0 and at most " + RequirementLimits.MAX_THICKNESS_MM + " mm");
+        String material = requiredString(node, "material", "layer").strip().toLowerCase(java.util.Locale.ROOT)
+                .replaceAll("\\s+", " ");
+        check(material, RequirementLimits.isMaterialWords(material), "layer.material",
+                "must be a slug or words of a material's name: letters, digits, spaces, points or hyphens, at most "
+                        + RequirementLimits.MAX_MATERIAL_WORDS_LENGTH + " characters, without the word 'and'");
+        String text = optionalString(node, "text", "layer").orElse("");
+        return Optional.of(new FixedLayer(placement, mm, material, text));
+    }
+
+    private static Clause clause(JsonNode node, String path, SpectrumLookup spectra) {
         if (node == null || !node.isObject()) {
             throw bad(path, "must be an object with a 'type'");
         }
@@ -128,22 +206,69 @@ public final class RequirementJson {
                 Band window = band(node, path, true);
                 yield new CutoffClause(level, window, text);
             }
-            default -> throw bad(path + ".type", "'" + type + "' is not one of [transmittance, cutoff]");
+            case "weighted" -> weighted(node, path, text, spectra);
+            case "criticalWavelength" -> {
+                Comparison comparison = switch (requiredString(node, "comparison", path)) {
+                    case "atLeast" -> Comparison.AT_LEAST;
+                    case "atMost" -> Comparison.AT_MOST;
+                    default -> throw bad(path + ".comparison", "must be 'atLeast' or 'atMost'");
+                };
+                double nm = number(node, "nm", path);
+                check(nm, nm >= CriticalWavelengthClause.FROM_NM && nm <= CriticalWavelengthClause.TO_NM, path + ".nm",
+                        "must be a wavelength from 290 to 400 nm (a critical wavelength always lies there)");
+                yield new CriticalWavelengthClause(comparison, nm, text);
+            }
+            default -> throw bad(path + ".type", "'" + type + "' is not one of [transmittance, cutoff, weighted,"
+                    + " criticalWavelength]");
         };
     }
 
-    private static TransmittanceClause transmittance(JsonNode node, String path, String text) {
-        Direction direction = switch (requiredString(node, "direction", path)) {
+    private static WeightedClause weighted(JsonNode node, String path, String text, SpectrumLookup spectra) {
+        Direction direction = direction(node, path);
+        Weighting weighting = switch (optionalString(node, "preset", path).orElse("emitter")) {
+            case "erythemal" -> Weighting.erythemal(spectra);
+            case "uvHazard" -> Weighting.uvHazard(spectra);
+            case "emitter" -> {
+                String emitterName = requiredString(node, "emitter", path);
+                Emitter emitter = spectra.emitter(emitterName).orElseThrow(() -> bad(path + ".emitter",
+                        "'" + emitterName + "' is not a known emitter; known: "
+                                + String.join(", ", spectra.emitters().stream().map(Emitter::name).toList())));
+                Optional<Response> response = optionalString(node, "response", path).map(name -> spectra.response(name)
+                        .orElseThrow(() -> bad(path + ".response", "'" + name + "' is not a known response; known: "
+                                + String.join(", ", spectra.responses().stream().map(Response::name).toList()))));
+                yield Weighting.of(emitter, response);
+            }
+            default -> throw bad(path + ".preset", "must be 'emitter', 'erythemal' or 'uvHazard'");
+        };
+        Threshold threshold = threshold(node, path);
+        return new WeightedClause(direction, threshold.t(), threshold.unit(), weighting, text);
+    }
+
+    private static Direction direction(JsonNode node, String path) {
+        return switch (requiredString(node, "direction", path)) {
             case "pass" -> Direction.PASS;
             case "block" -> Direction.BLOCK;
             default -> throw bad(path + ".direction", "must be 'pass' or 'block'");
         };
+    }
+
+    private record Threshold(double t, ThresholdUnit unit) {
+    }
+
+    private static TransmittanceClause transmittance(JsonNode node, String path, String text) {
+        Direction direction = direction(node, path);
         Aggregate aggregate = switch (optionalString(node, "aggregate", path).orElse("everyPoint")) {
             case "everyPoint" -> Aggregate.EVERY_POINT;
             case "mean" -> Aggregate.MEAN;
             default -> throw bad(path + ".aggregate", "must be 'everyPoint' or 'mean'");
         };
         Band band = band(node, path, aggregate == Aggregate.MEAN);
+        Threshold threshold = threshold(node, path);
+        return new TransmittanceClause(direction, aggregate, band, threshold.t(), threshold.unit(), text);
+    }
+
+    /** thresholdT, thresholdPercent or thresholdOd (exactly one), and the unit, defaulting to the one used. */
+    private static Threshold threshold(JsonNode node, String path) {
         List<String> given = List.of("thresholdT", "thresholdPercent", "thresholdOd").stream()
                 .filter(node::has).toList();
         if (given.size() != 1) {
@@ -169,7 +294,7 @@ public final class RequirementJson {
             check(thresholdT, RequirementLimits.isOpticalDensity(RequirementLimits.densityForTransmittance(thresholdT)),
                     path + "." + field, "must be an optical density above 0 and at most " + RequirementLimits.MAX_OPTICAL_DENSITY);
         }
-        return new TransmittanceClause(direction, aggregate, band, thresholdT, unit, text);
+        return new Threshold(thresholdT, unit);
     }
 
     private static Band band(JsonNode node, String path, boolean needRange) {

@@ -7,13 +7,19 @@ import java.util.Locale;
 import java.util.Map;
 import org.spectralsieve.requirement.ClauseResult;
 import org.spectralsieve.requirement.RankedRow;
+import org.spectralsieve.requirement.Requirement;
 import org.spectralsieve.requirement.SampleEvaluation;
+import org.spectralsieve.requirement.StackLayer;
+import org.spectralsieve.requirement.WeightedClause;
 import org.spectralsieve.search.Shortlist;
 
 /**
  * The JSON form of a search answer, as {@code POST /api/search} returns it and {@code search --json}
  * prints it: one shape for both, so a script can switch between them without a change.
- * Non-finite numbers (no reading, no margin) become null, since JSON has no NaN.
+ * Non-finite numbers (no reading, no margin) become null, since JSON has no NaN. With a fixed layer,
+ * {@code layer} names the library sample that stood in every light path; with eye or skin safety figures
+ * (erythemal, UV hazard, blue-light weighting) the answer carries the same {@code caution} as the
+ * weighted-figures endpoint.
  */
 public final class ShortlistJson {
 
@@ -23,9 +29,32 @@ public final class ShortlistJson {
     public static Map<String, Object> toJson(Shortlist shortlist) {
         Map<String, Object> json = new LinkedHashMap<>();
         json.put("requirement", RequirementJson.toJson(shortlist.requirement()));
+        caution(shortlist.requirement()).ifPresent(c -> json.put("caution", c));
+        shortlist.layer().ifPresent(layer -> json.put("layer", layer(layer)));
         json.put("results", shortlist.rows().stream().map(ShortlistJson::row).toList());
         json.put("evaluatedSamples", shortlist.evaluatedSamples());
         json.put("tookMs", Math.round(shortlist.tookMs() * 1000) / 1000.0);
+        return json;
+    }
+
+    /** The screening caution, when the requirement asks for an eye or skin safety figure. */
+    public static java.util.Optional<String> caution(Requirement requirement) {
+        boolean safety = requirement.clauses().stream()
+                .anyMatch(c -> c instanceof WeightedClause w && w.weighting().safetyFigure());
+        return safety ? java.util.Optional.of(WeightingController.CAUTION) : java.util.Optional.empty();
+    }
+
+    private static Map<String, Object> layer(StackLayer layer) {
+        Map<String, Object> json = new LinkedHashMap<>();
+        json.put("materialId", layer.materialId());
+        json.put("materialName", layer.materialName());
+        json.put("materialSlug", layer.materialSlug());
+        json.put("sampleId", layer.sampleId());
+        json.put("measuredMm", layer.measuredMm());
+        json.put("thicknessMm", layer.spec().thicknessMm());
+        json.put("rescaled", layer.rescaled());
+        json.put("explanation", "every result is judged as a stack, " + layer.describe()
+                + ", with an air gap between the parts");
         return json;
     }
 

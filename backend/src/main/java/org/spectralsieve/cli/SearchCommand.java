@@ -12,8 +12,10 @@ import org.spectralsieve.requirement.RequirementParser;
 import org.spectralsieve.requirement.RequirementSyntaxException;
 import org.spectralsieve.requirement.SampleEvaluation;
 import org.spectralsieve.requirement.ThicknessSpec;
+import org.spectralsieve.search.LayerResolutionException;
 import org.spectralsieve.search.SearchService;
 import org.spectralsieve.search.Shortlist;
+import org.spectralsieve.weighting.SpectrumLookup;
 import org.springframework.context.ConfigurableApplicationContext;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
@@ -51,12 +53,18 @@ final class SearchCommand implements Callable<Integer> {
             throw new ParameterException(spec.commandLine(),
                     "--limit must be from 1 to " + SearchService.MAX_LIMIT + ", got " + limit);
         }
-        // parsed before the database opens: a typo costs no start-up time
-        Requirement requirement = parse(requirementText);
+        // read before the database opens, so a typo costs no start-up time; only a name that imported
+        // spectra might supply waits for the library's own lookup
+        preParse(requirementText);
         Shortlist shortlist;
         String jsonText = null;
         try (ConfigurableApplicationContext context = LibraryContext.start(database.url)) {
-            shortlist = context.getBean(SearchService.class).search(requirement, limit);
+            Requirement requirement = parse(requirementText, context.getBean(SpectrumLookup.class));
+            try {
+                shortlist = context.getBean(SearchService.class).search(requirement, limit);
+            } catch (LayerResolutionException e) {
+                throw new CliFailure(SieveCli.USAGE, layerProblem(e));
+            }
             if (json) {
                 // the context's mapper, configured as the API's, so both print numbers and nulls alike
                 jsonText = context.getBean(JsonMapper.class).writerWithDefaultPrettyPrinter()
@@ -68,16 +76,46 @@ final class SearchCommand implements Callable<Integer> {
             spec.commandLine().getOut().flush();
         } else {
             table(shortlist).print(spec.commandLine().getOut());
+            notes(shortlist).forEach(spec.commandLine().getOut()::println);
+            spec.commandLine().getOut().flush();
         }
         return SieveCli.OK;
     }
 
-    private static Requirement parse(String text) {
+    private static void preParse(String text) {
         try {
-            return RequirementParser.parse(text);
+            RequirementParser.parse(text, SpectrumLookup.builtIn());
+        } catch (RequirementSyntaxException e) {
+            if (!e.unknownSpectrum()) {
+                throw new CliFailure(SieveCli.USAGE, RequirementErrorReport.lines(text, e));
+            }
+        }
+    }
+
+    private static Requirement parse(String text, SpectrumLookup spectra) {
+        try {
+            return RequirementParser.parse(text, spectra);
         } catch (RequirementSyntaxException e) {
             throw new CliFailure(SieveCli.USAGE, RequirementErrorReport.lines(text, e));
         }
+    }
+
+    private static List<String> layerProblem(LayerResolutionException e) {
+        List<String> lines = new ArrayList<>();
+        lines.add("layer not resolved: " + e.getMessage());
+        for (LayerResolutionException.Choice c : e.choices()) {
+            lines.add("  " + c.slug() + "  " + c.name() + " (" + c.detail() + ")");
+        }
+        return lines;
+    }
+
+    /** Under the table: the sample used as the fixed layer, and the caution for safety figures. */
+    static List<String> notes(Shortlist shortlist) {
+        List<String> lines = new ArrayList<>();
+        shortlist.layer().ifPresent(layer -> lines.add("Light path: every result is judged as a stack, "
+                + layer.describe() + "."));
+        ShortlistJson.caution(shortlist.requirement()).ifPresent(c -> lines.add("Caution: " + c));
+        return lines;
     }
 
     static TextTable table(Shortlist shortlist) {

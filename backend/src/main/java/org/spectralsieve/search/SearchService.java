@@ -1,22 +1,34 @@
 package org.spectralsieve.search;
 
 import java.util.ArrayList;
+import java.util.Comparator;
+import java.util.HashMap;
+import java.util.LinkedHashMap;
 import java.util.LinkedHashSet;
 import java.util.List;
 import java.util.Map;
+import java.util.Optional;
 import java.util.Set;
 import java.util.concurrent.atomic.AtomicReference;
 import org.spectralsieve.library.JooqLibraryRepository;
 import org.spectralsieve.library.Material;
 import org.spectralsieve.library.SampleInfo;
 import org.spectralsieve.library.Scaling;
+import org.spectralsieve.requirement.Aggregate;
 import org.spectralsieve.requirement.Candidate;
+import org.spectralsieve.requirement.Direction;
+import org.spectralsieve.requirement.FixedLayer;
 import org.spectralsieve.requirement.MaterialEvaluation;
 import org.spectralsieve.requirement.RankedRow;
 import org.spectralsieve.requirement.Ranking;
 import org.spectralsieve.requirement.Requirement;
 import org.spectralsieve.requirement.SampleEvaluator;
+import org.spectralsieve.requirement.StackLayer;
+import org.spectralsieve.requirement.ThicknessSpec;
+import org.spectralsieve.requirement.TransmittanceClause;
+import org.spectralsieve.requirement.Verdict;
 import org.spectralsieve.spectrum.Curve;
+import org.spectralsieve.store.MissScreen;
 import org.spectralsieve.store.SpectralStore;
 import org.spectralsieve.store.StoreHit;
 import org.spectralsieve.store.StoreResult;
@@ -27,6 +39,16 @@ import org.spectralsieve.store.StoredMaterial;
  * Answers requirements: the in-memory store picks the materials that can be in the shortlist, then every
  * sample of those materials is judged exactly on its stored curve, and the exact judgements are ranked.
  * The store is derived from the database and rebuilt after every committed change.
+ *
+ * <p>Requirements the store cannot rank — weighted figures, a critical wavelength, a fixed layer — are
+ * judged exactly on every admitted sample, except samples the store proves to miss ({@link MissScreen}):
+ * those are judged only while their bound could still reach the shortlist. The screen uses the
+ * requirement's every-point transmittance clauses that remain necessary conditions on the candidate
+ * alone: without a layer, all of them (they are judged on the same curve); with a layer, only the passes,
+ * and only over bands inside the layer's range, because a layer can only lower T (the stack's T is at most
+ * each part's, T₁T₂/(1 − R₁R₂) ≤ T₁ since T₂ + R₂ ≤ 1), so a candidate too dark alone is too dark in the
+ * stack, while one too bright alone may be dark enough behind the layer. Thickness keeps the proof where
+ * T can only fall: a pass judged at or above the measured thickness, a block at or below it.
  */
 public class SearchService {
 
@@ -42,12 +64,15 @@ public class SearchService {
     }
 
     /** The store and the library it was built from, replaced whole so a search never sees half an update. */
-    private record Snapshot(SpectralStore store, Map<Long, Material> materials) {
+    private record Snapshot(SpectralStore store, Map<Long, Material> materials, Map<Long, SampleInfo> samples) {
     }
 
     public Shortlist search(Requirement requirement, int limit) {
         long started = System.nanoTime();
         Snapshot s = current();
+        if (!requirement.plain()) {
+            return searchExactly(s, requirement, limit, started);
+        }
         StoreResult picked = StoreSearch.search(s.store(), requirement, limit);
         Set<Long> materialIds = new LinkedHashSet<>();
         for (StoreHit hit : picked.hits()) {
@@ -56,19 +81,159 @@ public class SearchService {
         List<MaterialEvaluation> exact = new ArrayList<>();
         for (long materialId : materialIds) {
             Material material = s.materials().get(materialId);
-            for (SampleInfo sample : material.samples()) {
-                if (admits(requirement, material, sample)) {
-                    // the exact judgement reads the stored curve itself, not the store's quantized copy
-                    Curve curve = library.findCurve(sample.id()).orElseThrow();
-                    Candidate candidate = new Candidate(sample.id(), material.id(), material.name(), curve,
-                            sample.thicknessMm(), material.scaling() == Scaling.BULK, material.refractiveIndex());
-                    exact.add(MaterialEvaluation.of(candidate, SampleEvaluator.evaluate(candidate, requirement)));
-                }
-            }
+            exact.addAll(judge(material, requirement, Optional.empty()));
         }
         List<RankedRow> rows = Ranking.rank(exact, limit);
         double tookMs = (System.nanoTime() - started) / 1e6;
         return new Shortlist(requirement, rows, picked.evaluatedSamples(), tookMs);
+    }
+
+    /** Every admitted sample of the material, judged exactly on its stored curve (not the store's quantized copy). */
+    private List<MaterialEvaluation> judge(Material material, Requirement requirement, Optional<StackLayer> layer) {
+        List<MaterialEvaluation> out = new ArrayList<>();
+        for (SampleInfo sample : material.samples()) {
+            if (admits(requirement, material, sample)) {
+                Curve curve = library.findCurve(sample.id()).orElseThrow();
+                Candidate candidate = new Candidate(sample.id(), material.id(), material.name(), curve,
+                        sample.thicknessMm(), material.scaling() == Scaling.BULK, material.refractiveIndex());
+                out.add(MaterialEvaluation.of(candidate, SampleEvaluator.evaluate(candidate, requirement, layer)));
+            }
+        }
+        return out;
+    }
+
+    /**
+     * The exact evaluator on every admitted sample, with the store's proven misses held back: a material all
+     * of whose admitted samples are proven to miss has an exact result no better than (misses, its largest
+     * bound), so it is judged only while that could still beat the shortlist's last row. The answer is the
+     * one judging every admitted sample would give.
+     */
+    private Shortlist searchExactly(Snapshot s, Requirement requirement, int limit, long started) {
+        Optional<StackLayer> layer = requirement.layer().map(l -> resolveLayer(l, s));
+        Map<Long, Double> provenMiss = provenMisses(s, requirement, layer);
+        List<MaterialEvaluation> exact = new ArrayList<>();
+        Map<Material, Double> held = new LinkedHashMap<>();
+        int admitted = 0;
+        for (Material material : s.materials().values().stream().sorted(Comparator.comparingLong(Material::id)).toList()) {
+            double bound = Double.NEGATIVE_INFINITY;
+            boolean allMiss = true;
+            int count = 0;
+            for (SampleInfo sample : material.samples()) {
+                if (admits(requirement, material, sample)) {
+                    count++;
+                    Double b = provenMiss.get(sample.id());
+                    allMiss &= b != null;
+                    bound = b == null ? bound : Math.max(bound, b);
+                }
+            }
+            admitted += count;
+            if (count == 0) {
+                continue;
+            }
+            if (allMiss) {
+                held.put(material, bound);
+            } else {
+                exact.addAll(judge(material, requirement, layer));
+            }
+        }
+        List<RankedRow> rows = Ranking.rank(exact, limit);
+        List<Map.Entry<Material, Double>> byBound = new ArrayList<>(held.entrySet());
+        byBound.sort(Map.Entry.<Material, Double>comparingByValue().reversed());
+        for (Map.Entry<Material, Double> entry : byBound) {
+            if (!couldEnter(rows, limit, entry.getValue())) {
+                break; // bounds only fall from here on
+            }
+            exact.addAll(judge(entry.getKey(), requirement, layer));
+            rows = Ranking.rank(exact, limit);
+        }
+        double tookMs = (System.nanoTime() - started) / 1e6;
+        return new Shortlist(requirement, rows, admitted, tookMs, layer);
+    }
+
+    /** Whether a material that misses with a worst margin of at most {@code bound} could take a place in the rows. */
+    private static boolean couldEnter(List<RankedRow> rows, int limit, double bound) {
+        if (rows.size() < limit) {
+            return true;
+        }
+        RankedRow last = rows.get(rows.size() - 1);
+        if (last.evaluation().verdict() != Verdict.MISSES) {
+            return false;
+        }
+        double margin = last.evaluation().worstMarginDecades();
+        // a NaN margin ranks after every number; an equal one is decided by name, so it could enter
+        return Double.isNaN(margin) || bound >= margin;
+    }
+
+    /**
+     * Sample id → an upper bound (negative) on its exact worst margin, for samples the store proves to miss
+     * one of the requirement's screenable clauses (see the class comment).
+     */
+    private static Map<Long, Double> provenMisses(Snapshot s, Requirement requirement, Optional<StackLayer> layer) {
+        List<TransmittanceClause> screened = new ArrayList<>();
+        for (var clause : requirement.clauses()) {
+            if (clause instanceof TransmittanceClause t && t.aggregate() == Aggregate.EVERY_POINT
+                    && (layer.isEmpty() || t.direction() == Direction.PASS && insideLayer(t, layer.get()))) {
+                screened.add(t);
+            }
+        }
+        Map<Long, Double> out = new HashMap<>();
+        if (screened.isEmpty()) {
+            return out;
+        }
+        SpectralStore store = s.store();
+        double[][] bounds = MissScreen.marginBounds(store, screened);
+        for (int curve = 0; curve < store.size(); curve++) {
+            long sampleId = store.sampleId(curve);
+            SampleInfo sample = s.samples().get(sampleId);
+            Material material = s.materials().get(sample.materialId());
+            double bound = Double.POSITIVE_INFINITY;
+            for (int c = 0; c < screened.size(); c++) {
+                if (keepsProof(screened.get(c).direction(), requirement.thickness(), material, sample)) {
+                    bound = Math.min(bound, bounds[c][curve]);
+                }
+            }
+            if (bound < 0) {
+                out.put(sampleId, bound);
+            }
+        }
+        return out;
+    }
+
+    private static boolean insideLayer(TransmittanceClause t, StackLayer layer) {
+        return layer.curve().covers(t.band().fromNm()) && layer.curve().covers(t.band().toNm());
+    }
+
+    /**
+     * Whether a miss proven on the measured curve stays proven at the thickness the sample is judged at:
+     * T falls as a bulk sample thickens, so a pass stays missed when judged at or above the measured
+     * thickness and a block when judged at or below it; a fixed part only at its own thickness (elsewhere
+     * it is unverified, not missed).
+     */
+    private static boolean keepsProof(Direction direction, ThicknessSpec spec, Material material, SampleInfo sample) {
+        double d0 = sample.thicknessMm();
+        double same = SampleEvaluator.SAME_THICKNESS_MM;
+        if (spec.kind() == ThicknessSpec.Kind.AS_MEASURED) {
+            return true;
+        }
+        if (!(d0 > 0)) {
+            return false;
+        }
+        if (material.scaling() != Scaling.BULK) {
+            return spec.kind() == ThicknessSpec.Kind.FIXED ? Math.abs(spec.minMm() - d0) <= same
+                    : d0 >= spec.minMm() - same && d0 <= spec.maxMm() + same;
+        }
+        return direction == Direction.PASS ? spec.minMm() >= d0 - same : spec.maxMm() <= d0 + same;
+    }
+
+    /** The fixed layer's material and sample from the library, the curve as the layer will be used. */
+    private StackLayer resolveLayer(FixedLayer layer, Snapshot s) {
+        List<Material> materials = s.materials().values().stream().sorted(Comparator.comparingLong(Material::id)).toList();
+        LayerMatcher.Match match = LayerMatcher.resolve(layer, materials);
+        Material m = match.material();
+        SampleInfo sample = match.sample();
+        Curve curve = library.findCurve(sample.id()).orElseThrow();
+        return StackLayer.of(layer, m.id(), m.name(), m.slug(), sample.id(), curve, sample.thicknessMm(),
+                m.scaling() == Scaling.BULK, m.refractiveIndex());
     }
 
     private static boolean admits(Requirement r, Material m, SampleInfo s) {
@@ -101,8 +266,10 @@ public class SearchService {
         int samples = materials.stream().mapToInt(m -> m.samples().size()).sum();
         SpectralStore.Builder builder = SpectralStore.builder(SpectralStore.DEFAULT_GRID, samples);
         Map<Long, Material> byId = new java.util.HashMap<>();
+        Map<Long, SampleInfo> sampleById = new java.util.HashMap<>();
         for (Material m : materials) {
             byId.put(m.id(), m);
+            m.samples().forEach(sample -> sampleById.put(sample.id(), sample));
             StoredMaterial stored = new StoredMaterial(m.id(), m.name(), m.materialClass().label());
             for (SampleInfo sample : m.samples()) {
                 builder.add(sample.id(), stored, sample.thicknessMm(), m.scaling() == Scaling.BULK,
@@ -110,6 +277,6 @@ public class SearchService {
                         curves.get(sample.id()));
             }
         }
-        return new Snapshot(builder.build(), Map.copyOf(byId));
+        return new Snapshot(builder.build(), Map.copyOf(byId), Map.copyOf(sampleById));
     }
 }

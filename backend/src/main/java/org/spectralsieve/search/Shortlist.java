@@ -1,13 +1,25 @@
 package org.spectralsieve.search;
 
 import java.util.List;
+import java.util.Objects;
+import java.util.Optional;
 import org.spectralsieve.requirement.RankedRow;
 import org.spectralsieve.requirement.Requirement;
+import org.spectralsieve.requirement.StackLayer;
 
-/** The ranked, explained answer to one requirement. */
-public record Shortlist(Requirement requirement, List<RankedRow> rows, int evaluatedSamples, double tookMs) {
+/**
+ * The ranked, explained answer to one requirement; {@code layer} is the library sample that stood in
+ * every candidate's light path when the requirement names a fixed layer.
+ */
+public record Shortlist(Requirement requirement, List<RankedRow> rows, int evaluatedSamples, double tookMs,
+                        Optional<StackLayer> layer) {
 
     public Shortlist {
         rows = List.copyOf(rows);
+        Objects.requireNonNull(layer, "layer");
+    }
+
+    public Shortlist(Requirement requirement, List<RankedRow> rows, int evaluatedSamples, double tookMs) {
+        this(requirement, rows, evaluatedSamples, tookMs, Optional.empty());
     }
 }

@@ -401,6 +401,10 @@ public final class StoreSearch {
         }
 
         static Plan of(SpectralStore store, Requirement r) {
+            if (!r.plain()) {
+                throw new IllegalArgumentException("the store ranks transmittance and cutoff clauses on the candidate"
+                        + " alone; '" + r.text() + "' has weighted clauses or a fixed layer (see MissScreen)");
+            }
             List<CompiledClause> clauses = new ArrayList<>();
             for (Clause clause : r.clauses()) {
                 clauses.add(CompiledClause.compile(store, clause));

@@ -269,7 +269,9 @@ class RequirementParserTest {
                 "more", "less", "than", "at", "least", "most", "or", "to", "from", "between", "and", ",", "%", "-",
                 ">=", "<=", "≥", "cutoff", "cut-off", "thickness", "as", "measured", "mm", "nm", "µm", "um",
                 "class", "material", "plastic", "sheet", "geometry", "regular", "total", "0", "0.5", "1", "3",
-                "80", "100", "120", "365", "405", "0.365", "1e9", "99999999999999999999", "."};
+                "80", "100", "120", "365", "405", "0.365", "1e9", "99999999999999999999", ".",
+                "of", "led", "led-365", "weighted", "by", "erythema", "erythemal", "uv", "hazard", "uv-hazard",
+                "transmittance", "critical", "wavelength", "behind", "on", "float", "glass", "illuminant", "a"};
         Random random = new Random(20_240_607L);
         for (int i = 0; i < 20_000; i++) {
             StringBuilder text = new StringBuilder();

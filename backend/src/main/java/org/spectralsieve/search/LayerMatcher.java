@@ -1,0 +1,208 @@
+package org.spectralsieve.search;
+
+import java.util.ArrayList;
+import java.util.Arrays;
+import java.util.Comparator;
+import java.util.LinkedHashSet;
+import java.util.List;
+import java.util.Locale;
+import java.util.Set;
+import java.util.regex.Pattern;
+import org.spectralsieve.library.Geometry;
+import org.spectralsieve.library.Material;
+import org.spectralsieve.library.SampleInfo;
+import org.spectralsieve.library.Scaling;
+import org.spectralsieve.requirement.FixedLayer;
+
+/**
+ * Which library material and sample a fixed layer's words ("float glass", "clear-float-glass") name. One
+ * deterministic rule, in order:
+ * <ol>
+ *   <li>a material whose slug equals the words (spaces read as hyphens);</li>
+ *   <li>else one whose name equals them, ignoring case and punctuation;</li>
+ *   <li>else the materials whose name words or slug words include every one of the words, keeping those
+ *       with the fewest extra words (counted on the name or the slug, whichever has fewer). One left: that
+ *       material; several: ambiguous, the choices are listed and a slug is asked for; none: unknown, the
+ *       materials sharing the most words (or with the closest slug) are suggested.</li>
+ * </ol>
+ * Words are lower-case runs of letters and digits ("Low-E coated float glass" → low, e, coated, float,
+ * glass). The sample: among the material's regular-geometry samples (all samples if it has none), a bulk
+ * material's closest in thickness by ratio (it is rescaled from there), ties to the lower sample id; a
+ * fixed material's sample measured within {@link #FIXED_MATCH_MM} or {@link #FIXED_MATCH_RATIO} of the asked
+ * thickness (a coated or laminated part is named by its nominal thickness: 4.005 mm is "4 mm"), else the
+ * layer is refused, naming the thicknesses measured.
+ */
+final class LayerMatcher {
+
+    /** How far a fixed part's measured thickness may lie from the asked one and still be "that" part. */
+    static final double FIXED_MATCH_MM = 0.05;
+    static final double FIXED_MATCH_RATIO = 0.02;
+
+    private static final Pattern NOT_WORD = Pattern.compile("[^\\p{L}\\p{N}]+");
+    private static final int SUGGESTED = 5;
+
+    /** The resolved material and the sample to use. */
+    record Match(Material material, SampleInfo sample) {
+    }
+
+    private LayerMatcher() {
+    }
+
+    static Match resolve(FixedLayer layer, List<Material> materials) {
+        Material material = material(layer.material(), materials);
+        return new Match(material, sample(layer, material));
+    }
+
+    static Material material(String words, List<Material> materials) {
+        String asSlug = words.strip().replace(' ', '-');
+        for (Material m : materials) {
+            if (m.slug().equalsIgnoreCase(asSlug)) {
+                return m;
+            }
+        }
+        List<String> wanted = words(words);
+        for (Material m : materials) {
+            if (words(m.name()).equals(wanted)) {
+                return m;
+            }
+        }
+        Set<String> need = new LinkedHashSet<>(wanted);
+        int fewest = Integer.MAX_VALUE;
+        List<Material> best = new ArrayList<>();
+        for (Material m : materials) {
+            int extra = extraWords(need, m);
+            if (extra < fewest) {
+                fewest = extra;
+                best.clear();
+            }
+            if (extra == fewest && extra != Integer.MAX_VALUE) {
+                best.add(m);
+            }
+        }
+        if (best.size() == 1) {
+            return best.get(0);
+        }
+        if (best.isEmpty()) {
+            List<Material> near = closest(need, asSlug, materials);
+            throw new LayerResolutionException(LayerResolutionException.Reason.UNKNOWN, words,
+                    "no library material matches the layer '" + words + "'" + (near.isEmpty() ? ""
+                            : "; did you mean " + slugs(near) + "?") + " Write a material's slug or words of its name.",
+                    near.stream().map(LayerMatcher::choice).toList());
+        }
+        best.sort(Comparator.comparing(Material::slug));
+        throw new LayerResolutionException(LayerResolutionException.Reason.AMBIGUOUS, words,
+                "the layer '" + words + "' matches " + best.size() + " materials equally well: " + slugs(best)
+                        + "; write the slug of the one you mean", best.stream().map(LayerMatcher::choice).toList());
+    }
+
+    /** Extra words beyond the needed ones, on the name or the slug, whichever has fewer; MAX_VALUE when neither has them all. */
+    private static int extraWords(Set<String> need, Material m) {
+        int extra = Integer.MAX_VALUE;
+        for (List<String> words : List.of(words(m.name()), Arrays.asList(m.slug().toLowerCase(Locale.ROOT).split("-")))) {
+            Set<String> have = new LinkedHashSet<>(words);
+            if (have.containsAll(need)) {
+                extra = Math.min(extra, have.size() - need.size());
+            }
+        }
+        return extra;
+    }
+
+    /** Materials sharing the most words with the layer's, else those whose slug is a few edits away. */
+    private static List<Material> closest(Set<String> need, String asSlug, List<Material> materials) {
+        int most = 0;
+        List<Material> sharing = new ArrayList<>();
+        for (Material m : materials) {
+            Set<String> have = new LinkedHashSet<>(words(m.name()));
+            have.addAll(Arrays.asList(m.slug().split("-")));
+            have.retainAll(need);
+            if (have.size() > most) {
+                most = have.size();
+                sharing.clear();
+            }
+            if (have.size() == most && most > 0) {
+                sharing.add(m);
+            }
+        }
+        if (sharing.isEmpty()) {
+            for (Material m : materials) {
+                if (editDistance(asSlug.toLowerCase(Locale.ROOT), m.slug(), 3) <= 3) {
+                    sharing.add(m);
+                }
+            }
+        }
+        sharing.sort(Comparator.comparing(Material::slug));
+        return sharing.subList(0, Math.min(SUGGESTED, sharing.size()));
+    }
+
+    static SampleInfo sample(FixedLayer layer, Material material) {
+        List<SampleInfo> regular = material.samples().stream().filter(s -> s.geometry() == Geometry.REGULAR).toList();
+        List<SampleInfo> pool = regular.isEmpty() ? material.samples() : regular;
+        if (pool.isEmpty()) {
+            throw new LayerResolutionException(LayerResolutionException.Reason.THICKNESS, layer.material(),
+                    "the layer material " + material.slug() + " has no measured sample", List.of());
+        }
+        double asked = layer.thicknessMm();
+        Comparator<SampleInfo> closest = Comparator.<SampleInfo>comparingDouble(
+                s -> Math.abs(Math.log(s.thicknessMm() / asked))).thenComparingLong(SampleInfo::id);
+        if (material.scaling() == Scaling.BULK) {
+            return pool.stream().min(closest).orElseThrow();
+        }
+        double allowed = Math.max(FIXED_MATCH_MM, FIXED_MATCH_RATIO * asked);
+        return pool.stream().filter(s -> Math.abs(s.thicknessMm() - asked) <= allowed).min(closest)
+                .orElseThrow(() -> new LayerResolutionException(LayerResolutionException.Reason.THICKNESS,
+                        layer.material(), material.name() + " (" + material.slug() + ") is a fixed part, used only as"
+                        + " measured, and was measured at " + thicknesses(pool) + " mm, not "
+                        + plain(asked) + " mm; write one of those thicknesses",
+                        pool.stream().map(s -> new LayerResolutionException.Choice(material.slug(), material.name(),
+                                plain(s.thicknessMm()) + " mm")).toList()));
+    }
+
+    private static LayerResolutionException.Choice choice(Material m) {
+        return new LayerResolutionException.Choice(m.slug(), m.name(), m.materialClass().label());
+    }
+
+    static List<String> words(String text) {
+        List<String> words = new ArrayList<>();
+        for (String w : NOT_WORD.split(text.toLowerCase(Locale.ROOT))) {
+            if (!w.isEmpty()) {
+                words.add(w);
+            }
+        }
+        return words;
+    }
+
+    private static String slugs(List<Material> materials) {
+        return String.join(", ", materials.stream().map(Material::slug).toList());
+    }
+
+    private static String thicknesses(List<SampleInfo> samples) {
+        return String.join(", ", samples.stream().map(s -> plain(s.thicknessMm())).distinct().toList());
+    }
+
+    private static String plain(double mm) {
+        return java.math.BigDecimal.valueOf(mm).stripTrailingZeros().toPlainString();
+    }
+
+    /** Edit distance, giving up beyond {@code limit} (returns limit + 1). */
+    private static int editDistance(String a, String b, int limit) {
+        if (Math.abs(a.length() - b.length()) > limit) {
+            return limit + 1;
+        }
+        int[] previous = new int[b.length() + 1];
+        int[] current = new int[b.length() + 1];
+        for (int j = 0; j <= b.length(); j++) {
+            previous[j] = j;
+        }
+        for (int i = 1; i <= a.length(); i++) {
+            current[0] = i;
+            for (int j = 1; j <= b.length(); j++) {
+                int cost = a.charAt(i - 1) == b.charAt(j - 1) ? 0 : 1;
+                current[j] = Math.min(previous[j - 1] + cost, Math.min(previous[j], current[j - 1]) + 1);
+            }
+            int[] t = previous;
+            previous = current;
+            current = t;
+        }
+        return previous[b.length()];
+    }
+}
