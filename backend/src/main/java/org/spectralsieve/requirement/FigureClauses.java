@@ -12,7 +12,12 @@ import org.spectralsieve.weighting.WeightedFigures;
  *
  * <h2>Weighted clauses</h2>
  * Value: the effective transmittance of {@link Weighting}; margin in decades as for any transmittance,
- * PASS log10(T / threshold), BLOCK log10(threshold / T).
+ * PASS log10(T / threshold), BLOCK log10(threshold / T). Where weighted points lie below the detection
+ * limit the true figure lies between two figures: with those points at their upper bounds (U) and at 0
+ * (L), since the figure rises with every T. A pass is met when L reaches the threshold (proven by the
+ * measured points alone: no bound ever proves a pass) and missed when U falls short; a block is met
+ * when U is low enough and missed when L is already too high; otherwise unverified. The value and margin
+ * are L's for a met pass and a missed block, U's otherwise (flagged as a bound).
  *
  * <h2>Critical wavelength</h2>
  * Value: λc in nm ({@link WeightedFigures#criticalWavelength}). λc ≥ L exactly when the absorbance beyond
@@ -34,35 +39,85 @@ final class FigureClauses {
     private FigureClauses() {
     }
 
+    /** The figure's two ends on a curve: equal when no weighted point is below detection. */
+    record Span(double lower, double upper, boolean bounded, String note) {
+
+        /** The proven side for the verdict: L for a pass (what must be reached), U for a block (what must stay low). */
+        double provenFor(Direction direction) {
+            return direction == Direction.PASS ? lower : upper;
+        }
+    }
+
+    /** Null when the curve cannot give the figure; {@code why} then receives the reason. */
+    static Span span(WeightedClause clause, Curve curve, StringBuilder why) {
+        Figure upper = clause.weighting().figure(JudgedCurves.upperBounds(curve));
+        if (!upper.available()) {
+            if (why != null) {
+                why.append(upper.note());
+            }
+            return null;
+        }
+        boolean bounded = upper.bound() == Figure.Bound.AT_MOST;
+        double u = upper.value().getAsDouble();
+        double l = bounded ? clause.weighting().figure(JudgedCurves.lowerBounds(curve)).value().orElse(0) : u;
+        return new Span(Math.min(l, u), u, bounded, upper.note());
+    }
+
     static ClauseResult weighted(WeightedClause clause, Curve curve) {
         String subject = clause.weighting().describe();
-        Figure figure = clause.weighting().figure(JudgedCurves.upperBounds(curve));
-        if (!figure.available()) {
-            return ClauseResult.unjudgeable(clause, clause.thresholdT(), subject + " is not available: " + figure.note());
+        StringBuilder why = new StringBuilder();
+        Span span = span(clause, curve, why);
+        double threshold = clause.thresholdT();
+        if (span == null) {
+            return ClauseResult.unjudgeable(clause, threshold, subject + " is not available: " + why);
         }
-        double value = figure.value().getAsDouble();
-        boolean bounded = figure.bound() == Figure.Bound.AT_MOST;
-        Verdict verdict = Margins.verdict(clause.direction(), new Reading(Double.NaN, value, bounded, value),
-                clause.thresholdT());
-        double margin = Margins.of(clause.direction(), value, clause.thresholdT());
-        String text = ClauseEvaluator.explain(subject, clause.direction(), bounded, value, clause.thresholdT(), verdict);
-        if (figure.note().contains("leaving out")) {
-            text += " (" + figure.note().substring(figure.note().indexOf("taken over")) + ")";
+        Direction direction = clause.direction();
+        String need = Wording.need(direction, threshold);
+        Verdict verdict;
+        double value;
+        String text;
+        if (!span.bounded()) {
+            value = span.upper();
+            verdict = Margins.holds(direction, value, threshold) ? Verdict.MEETS : Verdict.MISSES;
+            text = subject + " is " + Wording.percent(value) + ", needs " + need;
+        } else if (Margins.holds(direction, span.provenFor(direction), threshold)) {
+            value = span.provenFor(direction);
+            verdict = Verdict.MEETS;
+            text = subject + " is " + (direction == Direction.PASS
+                    ? "at least " + Wording.percent(value) + " (points below the detection limit counted as 0)"
+                    : "at most " + Wording.percent(value) + " (points below the detection limit at their limit)")
+                    + ", so it is " + need;
+        } else if (!Margins.holds(direction, span.provenFor(direction == Direction.PASS ? Direction.BLOCK : Direction.PASS),
+                threshold)) {
+            value = span.provenFor(direction == Direction.PASS ? Direction.BLOCK : Direction.PASS);
+            verdict = Verdict.MISSES;
+            text = subject + " is " + (direction == Direction.PASS
+                    ? "at most " + Wording.percent(value) + " (points below the detection limit at their limit)"
+                    : "at least " + Wording.percent(value) + " (points below the detection limit counted as 0)")
+                    + ", so it cannot be " + need;
+        } else {
+            value = span.upper();
+            verdict = Verdict.UNVERIFIED;
+            text = subject + " lies between " + Wording.percent(span.lower()) + " and " + Wording.percent(span.upper())
+                    + " (points below the detection limit): cannot show " + need;
         }
-        return new ClauseResult(clause, value, clause.thresholdT(), margin, verdict, text, bounded);
+        double margin = Margins.of(direction, value, threshold);
+        if (span.note().contains("leaving out")) {
+            text += " (" + span.note().substring(span.note().indexOf("taken over")) + ")";
+        }
+        // an upper bound is reported as such; a met pass and a missed block stand on the lower end, a proven number
+        boolean valueIsBound = span.bounded() && value == span.upper() && value != span.lower();
+        return new ClauseResult(clause, value, threshold, margin, verdict, text, valueIsBound);
     }
 
-    /** The weighted figure's margin in decades on a curve, NaN when not available: what the thickness solver bisects. */
+    /**
+     * The margin the thickness solver bisects, NaN when the figure is not available: a pass on L (where a
+     * proof of the pass must come from), a block on U; both fall or rise with thickness like the figure.
+     */
     static double weightedMargin(WeightedClause clause, Curve curve) {
-        Figure figure = clause.weighting().figure(JudgedCurves.upperBounds(curve));
-        return figure.available() ? Margins.of(clause.direction(), figure.value().getAsDouble(), clause.thresholdT())
-                : Double.NaN;
-    }
-
-    /** Whether the weighted figure on this curve could ever be proven: available, and not a bound for a pass. */
-    static boolean weightedProvable(WeightedClause clause, Curve curve) {
-        Figure figure = clause.weighting().figure(JudgedCurves.upperBounds(curve));
-        return figure.available() && (clause.direction() == Direction.BLOCK || figure.bound() != Figure.Bound.AT_MOST);
+        Span span = span(clause, curve, null);
+        return span == null ? Double.NaN : Margins.of(clause.direction(), span.provenFor(clause.direction()),
+                clause.thresholdT());
     }
 
     static ClauseResult critical(CriticalWavelengthClause clause, Curve curve) {

@@ -32,9 +32,9 @@ final class PathConstraints {
             if (Double.isNaN(FigureClauses.weightedMargin(w, asMeasured.curve()))) {
                 return false;
             }
-            out.add(new OnPath(w.direction() == Direction.PASS, FigureClauses.weightedProvable(w, asMeasured.curve()),
-                    d -> FigureClauses.weightedMargin(w, path.at(d))));
-            return FigureClauses.weightedProvable(w, asMeasured.curve());
+            // provable either way: a pass on the figure's lower end, a block on its upper end
+            out.add(new OnPath(w.direction() == Direction.PASS, true, d -> FigureClauses.weightedMargin(w, path.at(d))));
+            return true;
         }
         CriticalWavelengthClause c = (CriticalWavelengthClause) clause;
         DoubleUnaryOperator margin = d -> FigureClauses.criticalMargin(c, JudgedCurves.upperBounds(path.at(d)));
