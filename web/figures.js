@@ -211,7 +211,7 @@ export function initFigures(ui) {
     const thickness = Number.isFinite(answer.thicknessMm) ? `${fmt.number(answer.thicknessMm)} mm` : 'the sample';
     const how = answer.rescaled ? ` (rescaled from the ${sampleThickness(choice)} sample)` : '';
     dom.status.textContent = figures.length
-      ? `${figures.length} figures for ${thickness}${how}, ${answer.emitter || dom.emitter.value} × `
+      ? `${figures.length} figure${figures.length === 1 ? '' : 's'} for ${thickness}${how}, ${answer.emitter || dom.emitter.value} × `
         + `${answer.response || dom.response.value}.`
       : 'The server sent no figures for this sample.';
   }
