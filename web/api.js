@@ -127,6 +127,8 @@ export function listResponses() {
  * A sample's weighted figures under one emitter × response, at `thicknessMm` when given (rescaled by the
  * server), else at the measured thickness.
  */
-export function getFigures(sampleId, { thicknessMm, emitter, response } = {}) {
-  return getJson(`${BASE}/samples/${encodeURIComponent(sampleId)}/figures${query({ thicknessMm, emitter, response })}`);
+export function getFigures(sampleId, { thicknessMm, emitter, response, convention, solar } = {}) {
+  return getJson(`${BASE}/samples/${encodeURIComponent(sampleId)}/figures${query({
+    thicknessMm, emitter, response, convention, solar,
+  })}`);
 }

@@ -33,6 +33,8 @@ const el = (id) => document.getElementById(id);
 /** Every figure in the answer with the member it came in; lists and one level of nested objects too. */
 function collectFigures(answer) {
   const found = [];
+  const category = sunglassFigure(answer?.sunglassCategory);
+  if (category) found.push({ key: 'sunglassCategory', figure: category });
   const visit = (key, value, depth) => {
     if (fmt.isFigure(value)) {
       found.push({ key, figure: value });
@@ -44,6 +46,24 @@ function collectFigures(answer) {
   };
   Object.entries(answer || {}).forEach(([key, value]) => visit(key, value, 0));
   return found;
+}
+
+/**
+ * The sunglass category comes as its own object (category number, description, range); shown as a row
+ * like the figures, with the range and the server's note as its note.
+ */
+function sunglassFigure(rating) {
+  if (!rating || typeof rating !== 'object' || fmt.isFigure(rating)) return null;
+  const known = Number.isFinite(rating.category);
+  const what = known ? `${rating.description}, τv ${rating.range} (${rating.standard})` : '';
+  return {
+    name: 'sunglassCategory',
+    value: known ? rating.category : null,
+    unit: 'category',
+    bound: rating.bound,
+    available: known,
+    note: [what, rating.note].filter(Boolean).join('; '),
+  };
 }
 
 function isHazard({ key, figure }, response) {
@@ -77,6 +97,8 @@ export function initFigures(ui) {
     sample: el('figure-sample'),
     emitter: el('figure-emitter'),
     response: el('figure-response'),
+    convention: el('figure-convention'),
+    solar: el('figure-solar'),
     emitterAbout: el('figure-emitter-about'),
     responseAbout: el('figure-response-about'),
     caution: el('figures-caution'),
@@ -115,6 +137,22 @@ export function initFigures(ui) {
     select.value = names.includes(previous) ? previous : names.includes(fallback) ? fallback : names[0] || '';
   }
 
+  /** Any emitter may serve as the reference solar spectrum; none is chosen until the user picks one. */
+  function fillSolarPicker(items) {
+    const previous = dom.solar.value;
+    const none = document.createElement('option');
+    none.value = '';
+    none.textContent = 'none';
+    dom.solar.replaceChildren(none, ...items.map((item) => {
+      const o = document.createElement('option');
+      o.value = item.name;
+      o.textContent = item.name;
+      if (item.description) o.title = item.description;
+      return o;
+    }));
+    dom.solar.value = items.some((i) => i.name === previous) ? previous : '';
+  }
+
   function describeChoices() {
     const describe = (select, what) => {
       // Descriptions come as sent, some cut short after a comma; end each with one full stop.
@@ -129,6 +167,7 @@ export function initFigures(ui) {
     const [emitters, responses] = await Promise.allSettled([api.listEmitters(), api.listResponses()]);
     if (emitters.status === 'fulfilled' && Array.isArray(emitters.value?.emitters)) {
       fillPicker(dom.emitter, emitters.value.emitters, DEFAULT_EMITTER);
+      fillSolarPicker(emitters.value.emitters);
     } else if (emitters.status === 'rejected') {
       ui.showProblem(emitters.reason, 'Loading the light sources');
     }
@@ -246,6 +285,8 @@ export function initFigures(ui) {
         thicknessMm: choice.thicknessMm,
         emitter: dom.emitter.value || DEFAULT_EMITTER,
         response: dom.response.value || DEFAULT_RESPONSE,
+        convention: dom.convention.value || undefined,
+        solar: dom.solar.value || undefined,
       });
       if (request !== state.request) return;
       if (ui.messageStartsWith(MESSAGE_CONTEXT)) ui.clearMessage();
@@ -259,7 +300,9 @@ export function initFigures(ui) {
     }
   }
 
-  for (const select of [dom.sample, dom.emitter, dom.response]) select.addEventListener('change', refresh);
+  for (const select of [dom.sample, dom.emitter, dom.response, dom.convention, dom.solar]) {
+    select.addEventListener('change', refresh);
+  }
   const catalogues = loadCatalogues();
 
   return {

@@ -166,7 +166,7 @@ const FIGURE_LABELS = {
 /** "UVA" → "UV-A", as the chart's bands are written; anything else as sent. */
 function bandLabel(band) {
   const match = /^UV[-_]?([ABC])(.*)$/i.exec(band);
-  return match ? `UV-${match[1].toUpperCase()}${match[2].replace(/^[-_]/, ' ')}` : band;
+  return match ? `UV-${match[1].toUpperCase()}${match[2].replace(/^[-_]/, ' ').replace(/^\((.*)\)$/, ' $1')}` : band;
 }
 
 /**

@@ -128,6 +128,42 @@ class WeightedFiguresBrowserTest {
     }
 
     @Test
+    void theBandConventionPickerSwitchesToTheDermatologyBandsAndTheFilterCategoryIsShown() throws Exception {
+        JsonNode material = material(UV_TRANSMITTING);
+        long sampleId = material.path("samples").get(0).path("id").asLong();
+        JsonNode cie = figures(sampleId, "emitter=flat&response=erythema");
+        JsonNode dermatology = figures(sampleId, "emitter=flat&response=erythema&convention=dermatology");
+        loadPage();
+        openMaterial(UV_TRANSMITTING);
+        waitForStatus("flat × erythema");
+        assertThat(driver.findElement(By.id("figures-table")).getText()).contains("UV-B 280-315 nm");
+
+        // The luminous transmittance and the category it falls in, as the API gives them.
+        assertThat(shownValue("luminousTransmittance"))
+                .isEqualTo(fractionAsShown(cie.path("luminousTransmittance")));
+        WebElement category = row("sunglassCategory");
+        assertThat(category.findElement(By.cssSelector("td.value")).getText())
+                .isEqualTo(String.valueOf(cie.path("sunglassCategory").path("category").asInt()));
+        assertThat(category.findElement(By.cssSelector("td.note")).getText())
+                .contains(cie.path("sunglassCategory").path("range").asString());
+        assertThat(category.getDomAttribute("class")).contains("hazard");
+
+        new Select(driver.findElement(By.id("figure-convention"))).selectByValue("dermatology");
+        wait.until(d -> d.findElement(By.id("figures-table")).getText().contains("UV-B 290-320 nm"));
+        JsonNode dermatologyUvb = null;
+        for (JsonNode band : dermatology.path("bandMeans")) {
+            if (band.path("name").asString().contains("UVB")) {
+                dermatologyUvb = band;
+            }
+        }
+        assertThat(dermatologyUvb).as("dermatology UVB band in the API answer").isNotNull();
+        String uvbName = dermatologyUvb.path("name").asString();
+        WebElement uvbRow = driver.findElement(By.cssSelector("#figures-table tr[data-name='" + uvbName + "']"));
+        assertThat(uvbRow.findElement(By.cssSelector("td.value")).getText()).isEqualTo(fractionAsShown(dermatologyUvb));
+        assertNoMessage();
+    }
+
+    @Test
     void aFigureTheCurveCannotGiveShowsTheServersReasonInsteadOfANumber() throws Exception {
         JsonNode material = material(STARTS_AT_250_NM);
         long sampleId = material.path("samples").get(0).path("id").asLong();
