@@ -62,7 +62,8 @@ function sunglassFigure(rating) {
     unit: 'category',
     bound: rating.bound,
     available: known,
-    note: [what, rating.note].filter(Boolean).join('; '),
+    // The server's note already names the category, its range and what was not checked.
+    note: rating.note || what,
   };
 }
 
