@@ -37,7 +37,7 @@ import tools.jackson.databind.JsonNode;
  *  "clauses": [{"type": "transmittance", "direction": "pass" | "block", "aggregate": "everyPoint" | "mean",
  *               "fromNm": 365, "toNm": 365, "thresholdT": 0.8, "unit": "percent" | "fraction" | "opticalDensity", "text": "..."},
  *              {"type": "cutoff", "levelT": 0.5, "fromNm": 380, "toNm": 395, "text": "..."},
- *              {"type": "weighted", "preset": "emitter" | "erythemal" | "uvHazard", "emitter": "led-365",
+ *              {"type": "weighted", "preset": "emitter" | "erythemal" | "uvHazard" | "luminous", "emitter": "led-365",
  *               "response": "erythema" | null, "direction": "pass" | "block", "thresholdT": 0.85, "unit": "percent",
  *               "rangeNm": [329, 401], "safetyFigure": false, "text": "..."},
  *              {"type": "criticalWavelength", "comparison": "atLeast" | "atMost", "nm": 370, "text": "..."}]}
@@ -46,7 +46,7 @@ import tools.jackson.databind.JsonNode;
  * On reading, a transmittance or weighted clause may give its threshold as {@code thresholdPercent} or
  * {@code thresholdOd} instead of {@code thresholdT}; the unit then defaults to the one used. A weighted
  * clause's {@code emitter} and {@code response} are names resolved through the {@link SpectrumLookup}
- * (a null response: flat over the emitter's range); the presets need neither. {@code rangeNm} and
+ * (a null response: flat over the emitter's range); the presets need neither (luminous writes both as null). {@code rangeNm} and
  * {@code safetyFigure} are written for the reader and ignored on reading.
  */
 public final class RequirementJson {
@@ -102,17 +102,21 @@ public final class RequirementJson {
             json.put("thresholdT", t.thresholdT());
             json.put("unit", UNITS.get(t.unit()));
         } else if (clause instanceof WeightedClause w) {
-            Weighting.Spectral weighting = (Weighting.Spectral) w.weighting();
-            Response response = weighting.effectiveResponse();
             json.put("type", "weighted");
-            json.put("preset", PRESETS.get(weighting.preset()));
-            json.put("emitter", weighting.emitter().name());
-            json.put("response", weighting.response().map(Response::name).orElse(null));
+            if (w.weighting() instanceof Weighting.Spectral weighting) {
+                json.put("preset", PRESETS.get(weighting.preset()));
+                json.put("emitter", weighting.emitter().name());
+                json.put("response", weighting.response().map(Response::name).orElse(null));
+            } else {
+                json.put("preset", "luminous");
+                json.put("emitter", null);
+                json.put("response", null);
+            }
             json.put("direction", w.direction() == Direction.PASS ? "pass" : "block");
             json.put("thresholdT", w.thresholdT());
             json.put("unit", UNITS.get(w.unit()));
-            json.put("rangeNm", List.of(Math.max(response.minNm(), weighting.emitter().minNm()),
-                    Math.min(response.maxNm(), weighting.emitter().maxNm())));
+            double[] range = w.weighting().rangeNm();
+            json.put("rangeNm", List.of(range[0], range[1]));
             json.put("safetyFigure", w.weighting().safetyFigure());
         } else if (clause instanceof CriticalWavelengthClause c) {
             json.put("type", "criticalWavelength");
@@ -228,6 +232,7 @@ public final class RequirementJson {
         Weighting weighting = switch (optionalString(node, "preset", path).orElse("emitter")) {
             case "erythemal" -> Weighting.erythemal(spectra);
             case "uvHazard" -> Weighting.uvHazard(spectra);
+            case "luminous" -> Weighting.luminous();
             case "emitter" -> {
                 String emitterName = requiredString(node, "emitter", path);
                 Emitter emitter = spectra.emitter(emitterName).orElseThrow(() -> bad(path + ".emitter",
@@ -238,7 +243,7 @@ public final class RequirementJson {
                                 + String.join(", ", spectra.responses().stream().map(Response::name).toList()))));
                 yield Weighting.of(emitter, response);
             }
-            default -> throw bad(path + ".preset", "must be 'emitter', 'erythemal' or 'uvHazard'");
+            default -> throw bad(path + ".preset", "must be 'emitter', 'erythemal', 'uvHazard' or 'luminous'");
         };
         Threshold threshold = threshold(node, path);
         return new WeightedClause(direction, threshold.t(), threshold.unit(), weighting, text);

@@ -7,7 +7,7 @@ import org.spectralsieve.weighting.SpectrumLookup;
  * The clauses on figures with a fixed name:
  *
  * <pre>
- * preset   = ( "erythemal" | "uv" "hazard" | "uv-hazard" ) [ "transmittance" ] level      (a WeightedClause)
+ * preset   = ( "erythemal" | "uv" "hazard" | "uv-hazard" | "luminous" ) [ "transmittance" ] level   (a WeightedClause)
  * critical = "critical" "wavelength" comparison wavelength                                (λc, 290-400 nm)
  * </pre>
  *
@@ -30,6 +30,12 @@ final class FigureClauseParser {
     WeightedClause erythemal(Token start) {
         in.next();
         return preset(start, Weighting.erythemal(spectra));
+    }
+
+    /** "luminous over 40%": τv; the first word is next. */
+    WeightedClause luminous(Token start) {
+        in.next();
+        return preset(start, Weighting.luminous());
     }
 
     /** "uv hazard under 0.1%" or "uv-hazard …": the first word is next. */

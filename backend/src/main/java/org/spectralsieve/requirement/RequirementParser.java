@@ -32,7 +32,7 @@ public final class RequirementParser {
 
     private static final String EXAMPLE = "'passes over 80% at 365 nm'";
     private static final Expected ITEM = Expected.keywords("passes", "blocks", "mean", "OD", "cutoff", "over",
-            "under", "erythemal", "uv hazard", "critical wavelength", "thickness", "at", "class", "geometry", "behind",
+            "under", "erythemal", "uv hazard", "luminous", "critical wavelength", "thickness", "at", "class", "geometry", "behind",
             "on").because("to start a clause");
 
     private final TokenCursor in;
@@ -117,6 +117,7 @@ public final class RequirementParser {
             case "cutoff", "cut-off" -> clauses.add(spectral.cutoff(first));
             case "erythemal" -> clauses.add(figures.erythemal(first));
             case "uv", "uv-hazard" -> clauses.add(figures.uvHazard(first));
+            case "luminous" -> clauses.add(figures.luminous(first));
             case "critical" -> clauses.add(figures.criticalWavelength(first));
             case "behind", "on" -> layer(first);
             case "thickness" -> thickness(first);

@@ -71,6 +71,9 @@ final class RequirementRenderer {
 
     /** Names are written as stored ("led-365"); the parser reads them back whatever separates their words. */
     private static String weighted(WeightedClause w) {
+        if (w.weighting() instanceof Weighting.Luminous) {
+            return "luminous " + level(w.direction(), w.thresholdT(), w.unit(), false);
+        }
         Weighting.Spectral s = (Weighting.Spectral) w.weighting();
         return switch (s.preset()) {
             case ERYTHEMAL -> "erythemal " + level(w.direction(), w.thresholdT(), w.unit(), false);

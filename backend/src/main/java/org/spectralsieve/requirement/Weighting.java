@@ -6,6 +6,7 @@ import java.util.Set;
 import org.spectralsieve.spectrum.Curve;
 import org.spectralsieve.weighting.Emitter;
 import org.spectralsieve.weighting.Figure;
+import org.spectralsieve.weighting.LuminousTransmittance;
 import org.spectralsieve.weighting.Response;
 import org.spectralsieve.weighting.SpectrumLookup;
 import org.spectralsieve.weighting.WeightedFigures;
@@ -14,7 +15,7 @@ import org.spectralsieve.weighting.WeightedFigures;
  * What a {@link WeightedClause} weights the curve by, resolved to the spectra themselves when the
  * requirement is read (names are looked up in a {@link SpectrumLookup}, never in a static catalogue).
  */
-public sealed interface Weighting permits Weighting.Spectral {
+public sealed interface Weighting permits Weighting.Spectral, Weighting.Luminous {
 
     /** The figure on a curve; the caller passes the curve with bounded points at their upper bounds. */
     Figure figure(Curve curve);
@@ -23,10 +24,13 @@ public sealed interface Weighting permits Weighting.Spectral {
     String describe();
 
     /**
-     * Whether the figure is an eye or skin safety figure (erythema, actinic UV hazard, blue-light hazard),
-     * which answers carry with the screening caution.
+     * Whether the figure is an eye or skin safety figure (erythema, actinic UV hazard, blue-light hazard,
+     * luminous transmittance as in sunglass categories), which answers carry with the screening caution.
      */
     boolean safetyFigure();
+
+    /** The wavelengths the figure integrates over, {from, to} in nm. */
+    double[] rangeNm();
 
     /** How the clause was written, kept for rendering: "of led-365 …", "erythemal …", "uv hazard …". */
     enum Preset { EMITTER, ERYTHEMAL, UV_HAZARD }
@@ -37,6 +41,11 @@ public sealed interface Weighting permits Weighting.Spectral {
     /** The emitter's light, unweighted over the emitter's own range or weighted by a response. */
     static Spectral of(Emitter emitter, Optional<Response> response) {
         return new Spectral(Preset.EMITTER, emitter, response);
+    }
+
+    /** "luminous": τv, CIE D65 weighted by V(λ) over 380-780 nm ({@link LuminousTransmittance}). */
+    static Luminous luminous() {
+        return new Luminous();
     }
 
     /** "erythemal": an equal-energy source weighted by the CIE erythema action spectrum (ISO/CIE 17166). */
@@ -100,6 +109,12 @@ public sealed interface Weighting permits Weighting.Spectral {
         }
 
         @Override
+        public double[] rangeNm() {
+            Response r = effectiveResponse();
+            return new double[] {Math.max(r.minNm(), emitter.minNm()), Math.min(r.maxNm(), emitter.maxNm())};
+        }
+
+        @Override
         public boolean safetyFigure() {
             return preset != Preset.EMITTER || response.map(r -> SAFETY_RESPONSES.contains(r.name())).orElse(false);
         }
@@ -119,6 +134,33 @@ public sealed interface Weighting permits Weighting.Spectral {
         @Override
         public String toString() {
             return "Spectral[" + preset + ", " + emitter.name() + ", " + response.map(Response::name).orElse("flat over emitter") + "]";
+        }
+    }
+
+    /**
+     * Luminous transmittance τv: Σ T·D65·V / Σ D65·V on the CIE 5 nm rows from 380 to 780 nm (ISO 8980-3,
+     * ISO 12312-1), as {@link LuminousTransmittance#of} computes it.
+     */
+    record Luminous() implements Weighting {
+
+        @Override
+        public Figure figure(Curve curve) {
+            return LuminousTransmittance.of(curve);
+        }
+
+        @Override
+        public String describe() {
+            return "luminous transmittance τv (CIE D65 × V(λ), 380–780 nm)";
+        }
+
+        @Override
+        public boolean safetyFigure() {
+            return true;
+        }
+
+        @Override
+        public double[] rangeNm() {
+            return new double[] {LuminousTransmittance.FROM_NM, LuminousTransmittance.TO_NM};
         }
     }
 }

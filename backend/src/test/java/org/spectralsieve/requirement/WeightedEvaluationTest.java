@@ -59,7 +59,8 @@ class WeightedEvaluationTest {
         // ISO/CIE 17166 (erythema) and the ICNIRP S(λ) definition: T_eff = ∫E·W·T dλ / ∫E·W dλ, so a T that does
         // not vary with λ factors out and T_eff = T (REFERENCE §2, "a flat T gives UPF = 1/T for any E(λ)")
         Curve curve = flat(0.3);
-        for (String text : List.of("erythemal under 50%", "uv hazard under 50%", "passes over 20% of led 365",
+        // luminous transmittance likewise: τv = Σ T·D65·V / Σ D65·V (ISO 8980-3, ISO 12312-1)
+        for (String text : List.of("erythemal under 50%", "uv hazard under 50%", "luminous over 20%", "passes over 20% of led 365",
                 "passes over 20% of led 395 weighted by blue-light", "passes over 20% of mercury low pressure")) {
             ClauseResult r = ClauseEvaluator.evaluate(weighted(text), curve);
             assertThat(r.value()).as(text).isCloseTo(0.3, within(1e-12));
