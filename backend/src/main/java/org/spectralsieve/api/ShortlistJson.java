@@ -33,6 +33,7 @@ public final class ShortlistJson {
         shortlist.layer().ifPresent(layer -> json.put("layer", layer(layer)));
         json.put("results", shortlist.rows().stream().map(ShortlistJson::row).toList());
         json.put("evaluatedSamples", shortlist.evaluatedSamples());
+        json.put("judgedExactly", shortlist.judgedExactly());
         json.put("tookMs", Math.round(shortlist.tookMs() * 1000) / 1000.0);
         return json;
     }

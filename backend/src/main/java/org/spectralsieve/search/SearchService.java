@@ -85,7 +85,7 @@ public class SearchService {
         }
         List<RankedRow> rows = Ranking.rank(exact, limit);
         double tookMs = (System.nanoTime() - started) / 1e6;
-        return new Shortlist(requirement, rows, picked.evaluatedSamples(), tookMs);
+        return new Shortlist(requirement, rows, picked.evaluatedSamples(), exact.size(), tookMs, Optional.empty());
     }
 
     /** Every admitted sample of the material, judged exactly on its stored curve (not the store's quantized copy). */
@@ -147,7 +147,7 @@ public class SearchService {
             rows = Ranking.rank(exact, limit);
         }
         double tookMs = (System.nanoTime() - started) / 1e6;
-        return new Shortlist(requirement, rows, admitted, tookMs, layer);
+        return new Shortlist(requirement, rows, admitted, exact.size(), tookMs, layer);
     }
 
     /** Whether a material that misses with a worst margin of at most {@code bound} could take a place in the rows. */
