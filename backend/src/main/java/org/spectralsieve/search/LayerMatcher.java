@@ -23,7 +23,7 @@ import org.spectralsieve.requirement.FixedLayer;
  *   <li>else the materials whose name words or slug words include every one of the words, keeping those
  *       with the fewest extra words (counted on the name or the slug, whichever has fewer). One left: that
  *       material; several: ambiguous, the choices are listed and a slug is asked for; none: unknown, the
- *       materials sharing the most words (or with the closest slug) are suggested.</li>
+ *       materials with the most of the words, typing slips allowed, are suggested.</li>
  * </ol>
  * Words are lower-case runs of letters and digits ("Low-E coated float glass" → low, e, coated, float,
  * glass). The sample: among the material's regular-geometry samples (all samples if it has none), a bulk
@@ -83,7 +83,7 @@ final class LayerMatcher {
             return best.get(0);
         }
         if (best.isEmpty()) {
-            List<Material> near = closest(need, asSlug, materials);
+            List<Material> near = closest(need, materials);
             throw new LayerResolutionException(LayerResolutionException.Reason.UNKNOWN, words,
                     "no library material matches the layer '" + words + "'" + (near.isEmpty() ? ""
                             : "; did you mean " + slugs(near) + "?") + " Write a material's slug or words of its name.",
@@ -107,31 +107,37 @@ final class LayerMatcher {
         return extra;
     }
 
-    /** Materials sharing the most words with the layer's, else those whose slug is a few edits away. */
-    private static List<Material> closest(Set<String> need, String asSlug, List<Material> materials) {
-        int most = 0;
-        List<Material> sharing = new ArrayList<>();
+    /**
+     * Materials whose words come closest: most of the layer's words found among the material's name or slug
+     * words, each exactly or within a typing slip (one edit, two for words of seven letters or more, an
+     * adjacent swap counting as one); then fewest extra words; then slug.
+     */
+    private static List<Material> closest(Set<String> need, List<Material> materials) {
+        record Scored(Material material, int found, int extra) {
+        }
+        List<Scored> scored = new ArrayList<>();
         for (Material m : materials) {
             Set<String> have = new LinkedHashSet<>(words(m.name()));
-            have.addAll(Arrays.asList(m.slug().split("-")));
-            have.retainAll(need);
-            if (have.size() > most) {
-                most = have.size();
-                sharing.clear();
-            }
-            if (have.size() == most && most > 0) {
-                sharing.add(m);
-            }
-        }
-        if (sharing.isEmpty()) {
-            for (Material m : materials) {
-                if (editDistance(asSlug.toLowerCase(Locale.ROOT), m.slug(), 3) <= 3) {
-                    sharing.add(m);
+            have.addAll(Arrays.asList(m.slug().toLowerCase(Locale.ROOT).split("-")));
+            int found = 0;
+            for (String word : need) {
+                if (have.stream().anyMatch(w -> close(word, w))) {
+                    found++;
                 }
             }
+            if (found > 0) {
+                int extra = Math.min(words(m.name()).size(), m.slug().split("-").length) - found;
+                scored.add(new Scored(m, found, extra));
+            }
         }
-        sharing.sort(Comparator.comparing(Material::slug));
-        return sharing.subList(0, Math.min(SUGGESTED, sharing.size()));
+        scored.sort(Comparator.comparingInt((Scored x) -> -x.found()).thenComparingInt(Scored::extra)
+                .thenComparing(x -> x.material().slug()));
+        return scored.stream().limit(SUGGESTED).map(Scored::material).toList();
+    }
+
+    private static boolean close(String written, String word) {
+        int allowed = written.length() >= 7 ? 2 : written.length() >= 4 ? 1 : 0;
+        return editDistance(written, word, allowed) <= allowed;
     }
 
     static SampleInfo sample(FixedLayer layer, Material material) {
@@ -183,26 +189,27 @@ final class LayerMatcher {
         return java.math.BigDecimal.valueOf(mm).stripTrailingZeros().toPlainString();
     }
 
-    /** Edit distance, giving up beyond {@code limit} (returns limit + 1). */
+    /** Edit distance with an adjacent swap as one edit (optimal string alignment); limit + 1 beyond {@code limit}. */
     private static int editDistance(String a, String b, int limit) {
         if (Math.abs(a.length() - b.length()) > limit) {
             return limit + 1;
         }
-        int[] previous = new int[b.length() + 1];
-        int[] current = new int[b.length() + 1];
+        int[][] d = new int[a.length() + 1][b.length() + 1];
+        for (int i = 0; i <= a.length(); i++) {
+            d[i][0] = i;
+        }
         for (int j = 0; j <= b.length(); j++) {
-            previous[j] = j;
+            d[0][j] = j;
         }
         for (int i = 1; i <= a.length(); i++) {
-            current[0] = i;
             for (int j = 1; j <= b.length(); j++) {
                 int cost = a.charAt(i - 1) == b.charAt(j - 1) ? 0 : 1;
-                current[j] = Math.min(previous[j - 1] + cost, Math.min(previous[j], current[j - 1]) + 1);
+                d[i][j] = Math.min(d[i - 1][j - 1] + cost, Math.min(d[i - 1][j], d[i][j - 1]) + 1);
+                if (i > 1 && j > 1 && a.charAt(i - 1) == b.charAt(j - 2) && a.charAt(i - 2) == b.charAt(j - 1)) {
+                    d[i][j] = Math.min(d[i][j], d[i - 2][j - 2] + 1);
+                }
             }
-            int[] t = previous;
-            previous = current;
-            current = t;
         }
-        return previous[b.length()];
+        return d[a.length()][b.length()];
     }
 }

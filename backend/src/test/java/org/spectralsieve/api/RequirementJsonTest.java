@@ -32,7 +32,11 @@ class RequirementJsonTest {
             "mean over 85% from 360 to 370 nm, thickness 1 to 6 mm, class plastic sheet, geometry regular",
             "OD at least 4 from 190 to 315 nm, at 3 mm",
             "OD at most 0.1 at 365 nm and passes over 0.8 at 0.4 µm",
-            "10% cutoff between 380 and 395 nm and mean under 5% from 280 to 315 nm, geometry total"})
+            "10% cutoff between 380 and 395 nm and mean under 5% from 280 to 315 nm, geometry total",
+            "passes over 85% of led 365 and passes over 60% of led 395 weighted by erythema, thickness 1 to 6 mm",
+            "erythemal under 1% and uv hazard OD 3 or more and luminous over 40% and critical wavelength over 370 nm",
+            "blocks under 1% at 405 nm and luminous at least 0.7, behind 4 mm clear float glass",
+            "on 0.112 mm amber-masking-film and passes over 50% at 600 nm"})
     void jsonRoundTripGivesBackTheSameRequirement(String text) {
         Requirement requirement = RequirementParser.parse(text);
         assertThat(RequirementJson.fromJson(tree(RequirementJson.toJson(requirement)))).isEqualTo(requirement);
@@ -88,11 +92,43 @@ class RequirementJsonTest {
             {"clauses": [{"type": "cutoff", "fromNm": 380, "toNm": 395}], "materialClass": "Plastic Sheet!"} | materialClass must be 2-40 lower-case letters
             {"clauses": [{"type": "cutoff", "fromNm": 380, "toNm": 395}], "geometry": "diffuse"} | geometry must be one of [regular, total]
             {"clauses": [{"type": "cutoff", "fromNm": 380, "toNm": 395}], "text": 5}           | text must be a string
+            {"clauses": [{"type": "weighted", "direction": "pass", "emitter": "led-366", "thresholdT": 0.8}]} | clauses[0].emitter 'led-366' is not a known emitter; known: led-365
+            {"clauses": [{"type": "weighted", "direction": "pass", "emitter": "led-365", "response": "tanning", "thresholdT": 0.8}]} | clauses[0].response 'tanning' is not a known response
+            {"clauses": [{"type": "weighted", "direction": "pass", "thresholdT": 0.8}]}         | clauses[0].emitter must be given
+            {"clauses": [{"type": "weighted", "preset": "sunburn", "direction": "block", "thresholdT": 0.01}]} | clauses[0].preset must be
+            {"clauses": [{"type": "weighted", "preset": "erythemal", "direction": "block"}]}    | clauses[0].thresholdT must be given
+            {"clauses": [{"type": "criticalWavelength", "comparison": "atLeast", "nm": 420}]}  | clauses[0].nm must be a wavelength from 290 to 400 nm
+            {"clauses": [{"type": "criticalWavelength", "comparison": "over", "nm": 370}]}     | clauses[0].comparison must be 'atLeast' or 'atMost'
+            {"clauses": [{"type": "cutoff", "fromNm": 380, "toNm": 395}], "layer": {"thicknessMm": 4}} | layer.material must be given
+            {"clauses": [{"type": "cutoff", "fromNm": 380, "toNm": 395}], "layer": {"thicknessMm": -1, "material": "glass"}} | layer.thicknessMm must be a thickness above 0
+            {"clauses": [{"type": "cutoff", "fromNm": 380, "toNm": 395}], "layer": {"placement": "under", "thicknessMm": 4, "material": "glass"}} | layer.placement must be
+            {"clauses": [{"type": "cutoff", "fromNm": 380, "toNm": 395}], "layer": {"thicknessMm": 4, "material": "glass, tinted"}} | layer.material must be a slug
+            {"clauses": [{"type": "cutoff", "fromNm": 380, "toNm": 395}], "layer": "glass"}   | layer must be an object
             """)
     void badFieldIsNamedByItsJsonPath(String json, String message) {
         assertThatThrownBy(() -> RequirementJson.fromJson(MAPPER.readTree(json)))
                 .isInstanceOf(IllegalArgumentException.class)
                 .hasMessageStartingWith(message);
+    }
+
+    @Test
+    void weightedClauseNamesItsSpectraAndTheirRange() {
+        Requirement requirement = RequirementParser.parse("passes over 85% of led 365 and erythemal under 1%");
+        JsonNode json = tree(RequirementJson.toJson(requirement));
+        JsonNode led = json.get("clauses").get(0);
+        assertThat(led.get("type").asString()).isEqualTo("weighted");
+        assertThat(led.get("preset").asString()).isEqualTo("emitter");
+        assertThat(led.get("emitter").asString()).isEqualTo("led-365");
+        assertThat(led.get("response").isNull()).isTrue();
+        // the unweighted range of a Gaussian LED model: peak ± 3 FWHM = 365 ± 36 nm (EmitterCatalogue: 12 nm FWHM)
+        assertThat(led.get("rangeNm").get(0).doubleValue()).isEqualTo(329);
+        assertThat(led.get("rangeNm").get(1).doubleValue()).isEqualTo(401);
+        assertThat(led.get("safetyFigure").asBoolean()).isFalse();
+        JsonNode erythemal = json.get("clauses").get(1);
+        assertThat(erythemal.get("preset").asString()).isEqualTo("erythemal");
+        assertThat(erythemal.get("response").asString()).isEqualTo("erythema");
+        assertThat(erythemal.get("safetyFigure").asBoolean()).isTrue();
+        assertThat(json.get("layer").isNull()).isTrue();
     }
 
     @Test

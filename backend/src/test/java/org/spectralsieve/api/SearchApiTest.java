@@ -133,6 +133,138 @@ class SearchApiTest {
         assertThat(broken.statusCode()).isEqualTo(400);
     }
 
+    @Test
+    void aSheetBehindClearFloatGlassIsJudgedAsAStackAndTheAnswerNamesTheGlassSample() throws Exception {
+        // the case: which sheet, behind a given window, blocks 405 nm and keeps the view bright;
+        // common practice, no source: tinted resin-printer lids block 405 nm and pass much of the visible
+        JsonNode answer = search("blocks under 1% at 405 nm and luminous over 70%, behind 4 mm clear float glass", 10);
+
+        JsonNode layer = answer.path("layer");
+        assertThat(layer.path("materialSlug").asString()).isEqualTo("clear-float-glass");
+        assertThat(layer.path("measuredMm").asDouble()).isEqualTo(4);
+        assertThat(layer.path("rescaled").asBoolean()).isFalse();
+        assertThat(layer.path("explanation").asString()).contains("Clear float glass").contains("sample "
+                + layer.path("sampleId").asLong());
+        assertThat(answer.path("requirement").path("layer").path("material").asString()).isEqualTo("clear float glass");
+        JsonNode first = answer.path("results").get(0);
+        assertThat(first.path("verdict").asString()).isEqualTo("meets");
+        assertThat(first.path("clauses").get(1).path("explanation").asString()).contains("luminous transmittance");
+        // luminous transmittance is an eye-safety figure (sunglass categories): the answer carries the caution
+        assertThat(answer.path("caution").asString()).contains("not a certification");
+        // the glass itself passes light at 405 nm: no row may be the glass alone
+        for (JsonNode row : answer.path("results")) {
+            assertThat(row.path("materialName").asString()).doesNotContain("glazier offcuts");
+        }
+    }
+
+    @Test
+    void theStackIsDarkerThanTheSheetAlone() throws Exception {
+        // a layer can only lower T (incoherent stack, T1·T2/(1 − R1·R2) ≤ T1): at 550 nm every sheet passes less behind glass
+        JsonNode alone = search("passes over 1% at 550 nm, class resin-tank sheet", 20);
+        JsonNode behind = search("passes over 1% at 550 nm, class resin-tank sheet, behind 4 mm clear float glass", 20);
+        java.util.Map<Long, Double> aloneBySample = new java.util.HashMap<>();
+        alone.path("results").forEach(r -> aloneBySample.put(r.path("sampleId").asLong(),
+                r.path("clauses").get(0).path("value").asDouble()));
+        int compared = 0;
+        for (JsonNode r : behind.path("results")) {
+            Double single = aloneBySample.get(r.path("sampleId").asLong());
+            if (single != null) {
+                assertThat(r.path("clauses").get(0).path("value").asDouble()).isLessThan(single);
+                compared++;
+            }
+        }
+        assertThat(compared).isPositive();
+    }
+
+    @Test
+    void aLayerNamingSeveralMaterialsIsA400ListingThemAndAskingForASlug() throws Exception {
+        HttpResponse<String> response = send("/api/search", body("blocks under 1% at 405 nm, behind 4 mm float glass", 5));
+        JsonNode problem = JSON.readTree(response.body());
+
+        assertThat(response.statusCode()).isEqualTo(400);
+        assertThat(problem.path("parameter").asString()).isEqualTo("requirement.layer");
+        assertThat(problem.path("detail").asString()).contains("write the slug");
+        List<String> slugs = new java.util.ArrayList<>();
+        problem.path("choices").forEach(c -> slugs.add(c.path("slug").asString()));
+        assertThat(slugs).contains("clear-float-glass", "weathered-float-glass");
+        assertThat(problem.path("position").asInt()).isEqualTo(39);
+        assertThat(problem.path("length").asInt()).isEqualTo("float glass".length());
+    }
+
+    @Test
+    void anUnknownLayerIsA400WithSuggestionsAtItsWords() throws Exception {
+        HttpResponse<String> response = send("/api/search", body("blocks under 1% at 405 nm, behind 4 mm clear flaot glass", 5));
+        JsonNode problem = JSON.readTree(response.body());
+
+        assertThat(response.statusCode()).isEqualTo(400);
+        assertThat(problem.path("title").asString()).isEqualTo("Layer material not found");
+        assertThat(problem.path("suggestion").asString()).isEqualTo("clear-float-glass");
+        assertThat(problem.path("position").asInt()).isEqualTo(39);
+        assertThat(problem.path("length").asInt()).isEqualTo("clear flaot glass".length());
+    }
+
+    @Test
+    void aFixedLayerAtAThicknessItWasNotMeasuredAtIsA400() throws Exception {
+        HttpResponse<String> response = send("/api/search", body("blocks under 1% at 405 nm, on 2 mm uv-coated-float-glass", 5));
+
+        assertThat(response.statusCode()).isEqualTo(400);
+        assertThat(JSON.readTree(response.body()).path("detail").asString()).contains("4.005");
+    }
+
+    @Test
+    void erythemalFiguresCarryTheCautionAndPlainPassesDoNot() throws Exception {
+        JsonNode erythemal = search("erythemal under 1% and passes over 80% of led 405, thickness 1 to 6 mm", 5);
+        JsonNode plain = search("passes over 85% of led 365", 5);
+
+        assertThat(erythemal.path("caution").asString()).contains("qualified safety professional");
+        assertThat(erythemal.path("results").get(0).path("verdict").asString()).isEqualTo("meets");
+        assertThat(erythemal.path("results").get(0).path("thicknessRangeMm").size()).isEqualTo(2);
+        assertThat(plain.has("caution")).isFalse();
+        assertThat(plain.path("results").get(0).path("verdict").asString()).isEqualTo("meets");
+    }
+
+    @Test
+    void parseShowsWeightedClausesTheCriticalWavelengthAndTheLayer() throws Exception {
+        JsonNode parsed = post("/api/requirements/parse", body("passes over 60% of LED 395 weighted by blue-light and"
+                + " uv hazard under 0.1% and critical wavelength over 370 nm, on 3 mm fused silica", 1));
+
+        JsonNode led = parsed.path("clauses").get(0);
+        assertThat(led.path("type").asString()).isEqualTo("weighted");
+        assertThat(led.path("emitter").asString()).isEqualTo("led-395");
+        assertThat(led.path("response").asString()).isEqualTo("blue-light");
+        assertThat(led.path("safetyFigure").asBoolean()).isTrue();
+        assertThat(parsed.path("clauses").get(1).path("preset").asString()).isEqualTo("uvHazard");
+        assertThat(parsed.path("clauses").get(2).path("comparison").asString()).isEqualTo("atLeast");
+        assertThat(parsed.path("layer").path("placement").asString()).isEqualTo("on");
+        assertThat(parsed.path("layer").path("thicknessMm").asDouble()).isEqualTo(3);
+    }
+
+    @Test
+    void misspeltEmitterIsA400WithThePositionAndTheClosestNames() throws Exception {
+        HttpResponse<String> response = send("/api/requirements/parse", body("passes over 85% of led 356", 1));
+        JsonNode problem = JSON.readTree(response.body());
+
+        assertThat(response.statusCode()).isEqualTo(400);
+        assertThat(problem.path("position").asInt()).isEqualTo(19);
+        assertThat(problem.path("length").asInt()).isEqualTo(7);
+        assertThat(problem.path("suggestion").asString()).isEqualTo("led-365");
+        assertThat(problem.path("expected").asString()).contains("an emitter name");
+    }
+
+    @Test
+    void structuredStackRequirementGivesTheSameShortlistAsItsText() throws Exception {
+        String text = "blocks under 1% at 405 nm and luminous over 70%, thickness 1 to 6 mm, behind 4 mm clear float glass";
+        ObjectNode request = JSON.createObjectNode();
+        request.set("requirement", post("/api/requirements/parse", body(text, 1)));
+        request.put("limit", 5);
+
+        JsonNode fromJson = post("/api/search", request.toString());
+        JsonNode fromText = search(text, 5);
+
+        assertThat(fromJson.path("results").toString()).isEqualTo(fromText.path("results").toString());
+        assertThat(fromJson.path("layer").path("sampleId").asLong()).isEqualTo(fromText.path("layer").path("sampleId").asLong());
+    }
+
     /** Checks one structured clause against a curve with plain loops and absorbance interpolation. */
     private static boolean holds(JsonNode clause, JsonNode curve) {
         double from = clause.path("fromNm").asDouble();
