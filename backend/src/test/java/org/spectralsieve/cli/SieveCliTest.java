@@ -102,6 +102,37 @@ class SieveCliTest {
     }
 
     @Test
+    void aStackSearchPrintsTheLayerSampleAndTheCautionUnderTheTable() {
+        Run run = cli("search", "blocks under 1% at 405 nm and luminous over 70%, behind 4 mm clear float glass",
+                "--limit", "3");
+
+        assertThat(run.exitCode()).as(run.err()).isZero();
+        List<String> lines = run.outLines();
+        assertThat(lines.get(0)).startsWith("rank");
+        assertThat(lines.get(1).trim().split(" {2,}")[4]).isEqualTo("meets");
+        assertThat(run.out()).contains("Light path: every result is judged as a stack, behind 4 mm Clear float glass")
+                .contains("clear-float-glass, sample ");
+        assertThat(lines.get(lines.size() - 1)).startsWith("Caution: ").contains("not a certification");
+    }
+
+    @Test
+    void anAmbiguousLayerExitsTwoListingTheChoices() {
+        Run run = cli("search", "blocks under 1% at 405 nm, behind 4 mm float glass");
+
+        assertThat(run.exitCode()).isEqualTo(SieveCli.USAGE);
+        assertThat(run.err()).contains("layer not resolved").contains("write the slug")
+                .contains("  clear-float-glass  Clear float glass, glazier offcuts");
+    }
+
+    @Test
+    void aMisspeltEmitterExitsTwoWithTheClosestName() {
+        Run run = cli("search", "passes over 85% of led 356");
+
+        assertThat(run.exitCode()).isEqualTo(SieveCli.USAGE);
+        assertThat(run.err()).contains("position 19").contains("did you mean 'led-365'");
+    }
+
+    @Test
     void jsonOutputParsesWithAResultsArrayLikeTheApi() {
         Run run = cli("search", FUSED_SILICA_AT_254, "--limit", "3", "--json");
 
