@@ -20,6 +20,9 @@ const EXAMPLES = [
   { text: 'blocks under 0.1% from 380 to 420 nm', use: 'viewing window on a 385–405 nm LED curing box' },
   { text: 'blocks under 1% at 405 nm and passes over 30% at 550 nm',
     use: 'eyewear for work next to 405 nm printers' },
+  { text: 'passes over 85% of led 395, thickness 1 to 6 mm', use: 'cover for a 395 nm LED head, by the LED\'s own light' },
+  { text: 'blocks under 1% at 405 nm and luminous over 70%, behind 4 mm clear float glass',
+    use: 'film for a window onto a 405 nm print room that keeps the view bright' },
 ];
 
 const VERDICTS = {
@@ -90,9 +93,10 @@ export function initSearch(ui) {
       dom.clauses.dataset.state = 'empty';
       return;
     }
-    const items = [...requirement.clauses.map(fmt.clauseSummary), fmt.thicknessSummary(requirement.thickness)];
+    const items = [...requirement.clauses.map(clauseSummary), fmt.thicknessSummary(requirement.thickness)];
     if (requirement.materialClass) items.push(`class: ${requirement.materialClass}`);
     if (requirement.geometry) items.push(`geometry: ${requirement.geometry}`);
+    if (requirement.layer) items.push(layerSummary(requirement.layer));
     dom.clauses.replaceChildren(...items.map((text, i) => {
       const li = document.createElement('li');
       li.textContent = text;
@@ -119,24 +123,34 @@ export function initSearch(ui) {
 
   function showError(problem, text) {
     const position = Number.isInteger(problem.properties.position) ? problem.properties.position : null;
-    const suggestion = typeof problem.properties.suggestion === 'string' ? problem.properties.suggestion : null;
+    // a multi-word name (an emitter, a layer's material) comes with its length; otherwise the word there
+    const length = Number.isInteger(problem.properties.length) && problem.properties.length > 0
+      ? problem.properties.length : null;
+    const suggestions = Array.isArray(problem.properties.suggestions)
+      ? problem.properties.suggestions.filter((x) => typeof x === 'string').slice(0, 5)
+      : typeof problem.properties.suggestion === 'string' ? [problem.properties.suggestion] : [];
     const detail = document.createElement('p');
     detail.className = 'error-detail';
     detail.textContent = problem.detail || problem.title;
     const parts = [detail];
-    if (position !== null) parts.push(markedText(text, position));
-    if (suggestion && position !== null) {
+    if (position !== null) parts.push(markedText(text, position, length));
+    if (suggestions.length && position !== null) {
       const fix = document.createElement('p');
       fix.className = 'fix';
       fix.append('Did you mean ');
-      const button = document.createElement('button');
-      button.type = 'button';
-      button.className = 'suggestion';
-      button.dataset.suggestion = suggestion;
-      button.textContent = suggestion;
-      button.title = `replace “${wordAt(text, position)}” with “${suggestion}” and search`;
-      button.addEventListener('click', () => applySuggestion(position, suggestion));
-      fix.append(button, '?');
+      const shown = spanAt(text, position, length);
+      suggestions.forEach((suggestion, i) => {
+        const button = document.createElement('button');
+        button.type = 'button';
+        button.className = 'suggestion';
+        button.dataset.suggestion = suggestion;
+        button.textContent = suggestion;
+        button.title = `replace “${shown}” with “${suggestion}” and search`;
+        button.addEventListener('click', () => applySuggestion(position, shown.length, suggestion));
+        if (i > 0) fix.append(i === suggestions.length - 1 ? ' or ' : ', ');
+        fix.append(button);
+      });
+      fix.append('?');
       parts.push(fix);
     }
     dom.error.replaceChildren(...parts);
@@ -146,22 +160,21 @@ export function initSearch(ui) {
 
   // The text again, in the input's font, with the character at `position` marked (an empty mark after
   // the end when the server wanted more text), so the user sees where reading stopped.
-  function markedText(text, position) {
+  function markedText(text, position, span) {
     const line = document.createElement('p');
     line.className = 'marked-text';
     line.setAttribute('aria-label', `problem at character ${position + 1}`);
     const at = Math.min(position, text.length);
-    const length = Math.max(1, wordAt(text, at).length);
+    const length = Math.max(1, spanAt(text, at, span).length);
     const mark = document.createElement('mark');
     mark.textContent = at < text.length ? text.slice(at, at + length) : '\u00a0';
     line.append(text.slice(0, at), mark, text.slice(at + length));
     return line;
   }
 
-  function applySuggestion(position, suggestion) {
+  function applySuggestion(position, length, suggestion) {
     const text = dom.text.value;
-    const word = wordAt(text, position);
-    dom.text.value = text.slice(0, position) + suggestion + text.slice(position + word.length);
+    dom.text.value = text.slice(0, position) + suggestion + text.slice(position + length);
     const caret = position + suggestion.length;
     dom.text.focus();
     dom.text.setSelectionRange(caret, caret);
@@ -217,11 +230,13 @@ export function initSearch(ui) {
   function renderResults(answer) {
     const requirement = answer.requirement;
     dom.results.hidden = false;
-    dom.caution.hidden = !blocksLight(requirement);
+    // the server adds a caution to answers with eye or skin safety figures; blocking light needs one too
+    dom.caution.hidden = !(blocksLight(requirement) || typeof answer.caution === 'string');
     dom.table.dataset.requirement = requirement.text;
     const n = answer.results.length;
     dom.summary.textContent = `Evaluated ${answer.evaluatedSamples} samples in ${fmt.number(answer.tookMs, 1)} ms`
-      + ` · ${n === 1 ? '1 result' : `${n} results`} for “${requirement.text}”`;
+      + ` · ${n === 1 ? '1 result' : `${n} results`} for “${requirement.text}”`
+      + (answer.layer ? ` · ${answer.layer.explanation}` : '');
     const rows = answer.results.flatMap((result) => resultRows(result, requirement));
     if (!rows.length) {
       const tr = document.createElement('tr');
@@ -301,7 +316,7 @@ export function initSearch(ui) {
       const row = document.createElement('tr');
       row.append(
         cell(c.text),
-        cell(fmt.clauseValue(c, requirement.clauses[i]), c.valueIsBound ? 'num bound' : 'num',
+        cell(clauseValue(c, requirement.clauses[i]), c.valueIsBound ? 'num bound' : 'num',
           c.valueIsBound ? 'at the detection limit: a bound, not a measurement' : ''),
         cell(fmt.signedDecades(c.marginDecades), 'num margin'),
         verdictCell(c.verdict),
@@ -341,6 +356,41 @@ export function initSearch(ui) {
   renderClauses(null);
 }
 
+// ---------- clauses the shared formatter does not know: weighted figures, critical wavelength, layer ----------
+
+const WEIGHTED_NAMES = { erythemal: 'erythemal T', uvHazard: 'UV-hazard T', luminous: 'luminous τv' };
+
+function weightedName(clause) {
+  if (WEIGHTED_NAMES[clause.preset]) return WEIGHTED_NAMES[clause.preset];
+  return clause.response ? `T of ${clause.emitter} × ${clause.response}` : `T of ${clause.emitter}`;
+}
+
+/** "T of led-365 ≥ 85 %", "erythemal T ≤ 1 %", "λc ≥ 370 nm"; other clauses as the shared formatter writes them. */
+function clauseSummary(clause) {
+  if (clause.type === 'criticalWavelength') {
+    return `critical wavelength λc ${clause.comparison === 'atLeast' ? '≥' : '≤'} ${fmt.number(clause.nm, 1)} nm`;
+  }
+  if (clause.type !== 'weighted') return fmt.clauseSummary(clause);
+  const pass = clause.direction === 'pass';
+  const t = clause.thresholdT;
+  const threshold = clause.unit === 'opticalDensity'
+    ? `OD ${pass ? '≤' : '≥'} ${fmt.number(-Math.log10(t), 2)}`
+    : `${pass ? '≥' : '≤'} ${clause.unit === 'fraction' ? fmt.number(t, 6) : `${fmt.number(t * 100, 6)} %`}`;
+  const range = Array.isArray(clause.rangeNm) ? ` (${fmt.number(clause.rangeNm[0], 0)}–${fmt.number(clause.rangeNm[1], 0)} nm)` : '';
+  return `${weightedName(clause)} ${threshold}${range}`;
+}
+
+function clauseValue(result, clause) {
+  if (clause?.type === 'criticalWavelength') {
+    return Number.isFinite(result.value) ? `${fmt.number(result.value, 1)} nm` : '—';
+  }
+  return fmt.clauseValue(result, clause?.type === 'weighted' ? { ...clause, type: 'transmittance' } : clause);
+}
+
+function layerSummary(layer) {
+  return `light path: ${layer.placement} ${fmt.number(layer.thicknessMm)} mm ${layer.material}`;
+}
+
 /** Whether any clause asks for light to be kept out: then a safety caution belongs next to the results. */
 function blocksLight(requirement) {
   return requirement.clauses.some((c) => c.direction === 'block' || c.unit === 'opticalDensity');
@@ -374,6 +424,11 @@ function cell(text, className, title) {
   if (className) td.className = className;
   if (title) td.title = title;
   return td;
+}
+
+/** The `span` characters at `position` when the server named them, else the word there. */
+function spanAt(text, position, span) {
+  return span ? text.slice(position, position + span) : wordAt(text, position);
 }
 
 /** The word (letters, digits, "%" or ".") starting at `position`, or the one character there. */

@@ -136,6 +136,40 @@ class RequirementSearchBrowserTest {
         assertThat(message.isDisplayed()).as("error area stays hidden, but shows: %s", message.getText()).isFalse();
     }
 
+    @Test
+    void aStackExampleShowsItsLayerAndAMisspeltLedNameIsReplacedWhole() throws IOException {
+        driver.get("http://localhost:" + port + "/");
+        WebElement text = driver.findElement(By.id("requirement-text"));
+
+        // The example for a film on a window: its clauses, the layer as a setting, the glass sample in the summary.
+        String stack = "blocks under 1% at 405 nm and luminous over 70%, behind 4 mm clear float glass";
+        driver.findElement(By.cssSelector("#requirement-examples button[data-example='" + stack + "']")).click();
+        WebElement first = waitForResultsFor(stack);
+        assertThat(waitForClauses(4)).containsExactly("T ≤ 1 % at 405 nm", "luminous τv ≥ 70 % (380–780 nm)",
+                "thickness: as measured", "light path: behind 4 mm clear float glass");
+        assertThat(first.getDomAttribute("data-verdict")).isEqualTo("meets");
+        assertThat(driver.findElement(By.id("search-summary")).getText())
+                .contains("judged as a stack, behind 4 mm Clear float glass").contains("clear-float-glass, sample");
+        assertThat(driver.findElement(By.id("search-caution")).isDisplayed())
+                .as("luminous transmittance is an eye-safety figure").isTrue();
+        screenshot("search-5-stack");
+
+        // A misspelt LED: both words are marked and the stored name replaces them in one click.
+        text.sendKeys(Keys.chord(Keys.CONTROL, "a"), Keys.DELETE);
+        text.sendKeys("passes over 85% of led 356");
+        WebElement error = driver.findElement(By.id("requirement-error"));
+        wait.withMessage("waiting for the parse error to be shown");
+        wait.until(d -> error.isDisplayed());
+        assertThat(error.findElement(By.cssSelector(".marked-text mark")).getText()).isEqualTo("led 356");
+        WebElement fix = error.findElement(By.cssSelector("button.suggestion"));
+        assertThat(fix.getText()).isEqualTo("led-365");
+        fix.click();
+        assertThat(text.getDomProperty("value")).isEqualTo("passes over 85% of led-365");
+        waitForResultsFor("passes over 85% of led-365");
+        assertThat(waitForClauses(2).get(0)).isEqualTo("T of led-365 ≥ 85 % (329–401 nm)");
+        screenshot("search-6-led-fixed");
+    }
+
     private List<String> waitForClauses(int count) {
         wait.withMessage(() -> "waiting for " + count + " understood clauses; now: " + clauseTexts()
                 + "; error: " + driver.findElement(By.id("requirement-error")).getText());
