@@ -25,7 +25,15 @@
  *       to one {@link org.spectralsieve.requirement.Candidate}; {@link org.spectralsieve.requirement.Ranking}
  *       orders the results by {@link org.spectralsieve.requirement.RankingOrder}, one row per material.</li>
  * </ul>
- * Invariants: a MEETS clause has margin >= 0; a sample meets only if every clause meets and misses if
+ * Weighted clauses ({@link org.spectralsieve.requirement.WeightedClause}: an emitter's light, a response,
+ * erythemal, UV hazard, luminous) and the critical wavelength are judged on integrated figures from
+ * {@code weighting} ({@link org.spectralsieve.requirement.FigureClauses}); a fixed layer
+ * ({@link org.spectralsieve.requirement.FixedLayer}, resolved by the caller to a
+ * {@link org.spectralsieve.requirement.StackLayer}) puts a library part in every candidate's light path
+ * ({@link org.spectralsieve.requirement.CandidatePath}). Emitter and response names resolve through the
+ * {@code SpectrumLookup} the text is read with, never a static catalogue.
+ *
+ * <p>Invariants: a MEETS clause has margin >= 0; a sample meets only if every clause meets and misses if
  * any clause misses; expected misses are values with an explanation, never exceptions — exceptions are
  * for invalid input and name the parameter and value.
  */
