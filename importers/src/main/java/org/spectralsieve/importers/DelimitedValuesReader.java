@@ -179,6 +179,10 @@ public final class DelimitedValuesReader {
                 if (candidates.size() == 1) {
                     return candidates.get(0);
                 }
+                if (candidates.isEmpty()) {
+                    throw new ImportException(source, line, null, "no value column: every column of " + names
+                            + " is a wavelength");
+                }
                 List<String> listed = new ArrayList<>();
                 candidates.forEach(c -> listed.add((c + 1) + ": " + names.get(c)));
                 throw new ImportException(source, line, null, candidates.size() + " columns could hold the values "

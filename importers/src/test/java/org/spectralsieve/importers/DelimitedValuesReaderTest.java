@@ -211,6 +211,11 @@ class DelimitedValuesReaderTest {
     }
 
     @Test
+    void aHeaderOfWavelengthsOnlyIsRefused() {
+        assertThat(refused("nm,um\n300,0.3\n400,0.4\n").problem()).contains("every column of [nm, um] is a wavelength");
+    }
+
+    @Test
     void aHeaderWithoutWavelengthColumnIsRefused() {
         ImportException e = refused("channel,power\n1,0.1\n2,0.2\n");
 
