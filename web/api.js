@@ -112,3 +112,23 @@ export function parseRequirement(text) {
 export function search(text, limit) {
   return postJson(`${BASE}/search`, { requirement: text, limit });
 }
+
+/** The light sources figures can be weighted with: { emitters: [...], caution }. */
+export function listEmitters() {
+  return getJson(`${BASE}/emitters`);
+}
+
+/** The response (action) spectra figures can be weighted with: { responses: [...], caution }. */
+export function listResponses() {
+  return getJson(`${BASE}/responses`);
+}
+
+/**
+ * A sample's weighted figures under one emitter × response, at `thicknessMm` when given (rescaled by the
+ * server), else at the measured thickness.
+ */
+export function getFigures(sampleId, { thicknessMm, emitter, response, convention, solar } = {}) {
+  return getJson(`${BASE}/samples/${encodeURIComponent(sampleId)}/figures${query({
+    thicknessMm, emitter, response, convention, solar,
+  })}`);
+}

@@ -1,10 +1,11 @@
 // The library page: find materials for a requirement, list and filter materials, show one material's
-// samples and curves, rescale a bulk sample to another thickness. All numbers come from the API;
-// nothing is computed here.
+// samples, curves and weighted figures, rescale a bulk sample to another thickness. All numbers come from
+// the API; nothing is computed here.
 import * as api from './api.js';
 import * as fmt from './format.js';
 import { drawCurves, followWidth } from './chart.js';
 import { initSearch } from './search.js';
+import { initFigures } from './figures.js';
 
 const SAMPLE_COLOURS = ['#1d6a86', '#8a5a2b', '#4d7a37', '#7a3e6e', '#3d4f9a', '#9c4545', '#3c7f7a', '#6b6b2a'];
 const RESCALED_COLOUR = '#c2700f';
@@ -75,6 +76,13 @@ function clearMessage() {
   dom.message.hidden = true;
   dom.message.replaceChildren();
 }
+
+/** Whether the message shown is one given with this context, so its owner may clear it once resolved. */
+function messageStartsWith(context) {
+  return !dom.message.hidden && dom.message.textContent.startsWith(context);
+}
+
+const figures = initFigures({ showProblem, clearMessage, messageStartsWith });
 
 // ---------- library table ----------
 
@@ -253,6 +261,7 @@ async function selectMaterial(id, rescaleTo = null) {
     renderDetailHead(material);
     renderSamples(material);
     setupRescale(material);
+    figures.showMaterial(material);
     const prefilled = prefillRescale(material, rescaleTo);
     dom.placeholder.hidden = true;
     dom.detail.hidden = false;
@@ -386,6 +395,7 @@ async function applyRescale() {
       },
     };
     redraw();
+    figures.showRescaled(state.rescaled);
   } catch (problem) {
     if (request !== state.rescaleRequest) return;
     showProblem(problem, `Rescaling to ${fmt.number(thicknessMm)} mm`);
@@ -397,6 +407,7 @@ function clearRescale() {
   if (state.rescaled) {
     state.rescaled = null;
     redraw();
+    figures.showRescaled(null);
   }
 }
 

@@ -138,3 +138,116 @@ export function signedDecades(value) {
   if (Number(text) === 0) return `±${text}`;
   return `${value > 0 ? '+' : MINUS}${text}`;
 }
+
+// ---------- weighted figures ----------
+// A figure as the API sends it: { name, value (null when not available), unit, bound, available, note }.
+
+/** True for anything shaped like a figure; other members of an answer are left alone. */
+export function isFigure(x) {
+  return x !== null && typeof x === 'object' && !Array.isArray(x) && typeof x.name === 'string'
+    && ('value' in x || 'available' in x);
+}
+
+/** A figure has a number to show only when the server says so and sent a finite value. */
+export function figureAvailable(figure) {
+  return figure.available !== false && Number.isFinite(figure.value);
+}
+
+// Labels for figures whose JSON member or name the page knows; any other figure is shown by its name.
+const FIGURE_LABELS = {
+  erythemalProtectionFactor: 'Erythemal protection factor, flat source',
+  actinicUvProtectionFactor: 'UV hazard protection factor (actinic), flat source',
+  criticalWavelength: 'Critical wavelength (90 % of UV absorbance reached)',
+  luminousTransmittance: 'Luminous transmittance',
+  sunglassCategory: 'Filter category by luminous transmittance',
+  upf: 'UPF, solar-weighted',
+};
+
+/** "UVA" → "UV-A", as the chart's bands are written; anything else as sent. */
+function bandLabel(band) {
+  const match = /^UV[-_]?([ABC])(.*)$/i.exec(band);
+  return match ? `UV-${match[1].toUpperCase()}${match[2].replace(/^[-_]/, ' ').replace(/^\((.*)\)$/, ' $1')}` : band;
+}
+
+/**
+ * A reader's label for a figure. `key` is the answer's member the figure came in (for figures in a list,
+ * the list's member); `pair` names the chosen emitter and response for the figures that depend on them.
+ */
+export function figureLabel(figure, key, { emitter, response } = {}) {
+  const pair = emitter && response ? `${emitter} × ${response}` : 'chosen source × response';
+  if (key === 'effectiveTransmittance') return `Effective transmittance, ${pair}`;
+  if (key === 'protectionFactor') return `Protection factor, ${pair}`;
+  const fixed = FIGURE_LABELS[key] || FIGURE_LABELS[figure.name];
+  if (fixed) return fixed;
+  const band = /^meanTransmittance[-_]?(.+)$/.exec(figure.name);
+  if (band) return `Mean transmittance, ${bandLabel(band[1])}`;
+  const line = /^opticalDensity[-_]?(\d+(?:\.\d+)?)$/.exec(figure.name);
+  if (line) return `Optical density at ${line[1]} nm`;
+  return figure.name;
+}
+
+const SUPERSCRIPT = { '-': '⁻', 0: '⁰', 1: '¹', 2: '²', 3: '³', 4: '⁴', 5: '⁵', 6: '⁶', 7: '⁷', 8: '⁸', 9: '⁹' };
+
+/**
+ * `digits` significant figures for a plain number: 1.0859 → "1.09", 824.3 → "824", 12 431 → "12 400"
+ * (thin-space thousands from five digits on), 3.2e7 → "3.2 × 10⁷".
+ */
+export function significant(value, digits = 3) {
+  if (value === null || value === undefined || !Number.isFinite(value)) return DASH;
+  if (value === 0) return '0';
+  const abs = Math.abs(value);
+  if (abs >= 1e6 || abs < 1e-3) {
+    let exponent = Math.floor(Math.log10(abs));
+    let mantissa = Number((value / 10 ** exponent).toPrecision(digits));
+    if (Math.abs(mantissa) >= 10) {
+      mantissa /= 10;
+      exponent += 1;
+    }
+    const power = String(exponent).replace(/[-0-9]/g, (c) => SUPERSCRIPT[c]);
+    return `${String(mantissa).replace('-', MINUS)} × 10${power}`;
+  }
+  const text = String(Number(value.toPrecision(digits)));
+  return abs >= 1e4 ? text.replace(/\B(?=(\d{3})+(?!\d))/g, '\u202f') : text;
+}
+
+function isProtectionFactor(figure, key) {
+  return /protectionFactor/i.test(key || '') || /^protectionFactor/i.test(figure.name);
+}
+
+/**
+ * A figure's value as text, its bound written in front ("≤ 0.12 %", "≥ 824×", "OD ≥ 3"), or null when the
+ * figure is not available (the caller shows the reason instead). Units: fraction as %, protection factors
+ * as "N×", UPF and other dimensionless figures as plain numbers, nm, OD; any other unit is appended.
+ */
+export function figureValue(figure, key) {
+  if (!figureAvailable(figure)) return null;
+  const v = figure.value;
+  const sign = figure.bound === 'at-most' ? '≤ ' : figure.bound === 'at-least' ? '≥ ' : '';
+  switch (figure.unit) {
+    case 'fraction':
+      return `${sign}${percent(v)}`;
+    case '%':
+      return `${sign}${number(v, 2)} %`;
+    case 'nm':
+      return `${sign}${number(v, 1)} nm`;
+    case 'OD':
+      return `OD ${sign}${number(v, 2)}`;
+    default:
+      break;
+  }
+  if (isProtectionFactor(figure, key)) {
+    const text = significant(v);
+    // "824×" reads as "824 times less"; a power of ten already carries a "×", so it stands alone.
+    return `${sign}${text}${text.includes('×') ? '' : '×'}`;
+  }
+  if (/category/i.test(`${key || ''} ${figure.name} ${figure.unit || ''}`)) return `${sign}${number(v, 0)}`;
+  const unit = figure.unit && figure.unit !== '1' ? ` ${figure.unit}` : '';
+  return `${sign}${significant(v)}${unit}`;
+}
+
+/** What a bound means, for a tooltip beside the sign. */
+export function boundMeaning(bound) {
+  if (bound === 'at-most') return 'upper bound: some points lie below the detection limit, the true value is at most this';
+  if (bound === 'at-least') return 'lower bound: some points lie below the detection limit, the true value is at least this';
+  return '';
+}

@@ -1,14 +1,20 @@
 package org.spectralsieve.api;
 
+import java.util.Arrays;
 import java.util.List;
+import java.util.Locale;
 import java.util.Map;
 import java.util.stream.Collectors;
 import org.spectralsieve.library.SampleCurve;
 import org.spectralsieve.library.SampleCurves;
 import org.spectralsieve.weighting.Emitter;
 import org.spectralsieve.weighting.Figure;
+import org.spectralsieve.weighting.LuminousTransmittance;
 import org.spectralsieve.weighting.Response;
 import org.spectralsieve.weighting.SpectrumLookup;
+import org.spectralsieve.weighting.SunglassCategory;
+import org.spectralsieve.weighting.UltravioletProtectionFactor;
+import org.spectralsieve.weighting.UvBand;
 import org.spectralsieve.weighting.WeightedFigures;
 import org.springframework.web.bind.annotation.GetMapping;
 import org.springframework.web.bind.annotation.PathVariable;
@@ -65,7 +71,7 @@ class WeightingController {
 
         static FigureJson of(Figure f) {
             return new FigureJson(f.name(), f.available() ? f.value().getAsDouble() : null, f.unit(),
-                    f.bound().name().toLowerCase(java.util.Locale.ROOT).replace('_', '-'), f.available(), f.note());
+                    f.bound().name().toLowerCase(Locale.ROOT).replace('_', '-'), f.available(), f.note());
         }
 
         static List<FigureJson> all(List<Figure> figures) {
@@ -73,10 +79,24 @@ class WeightingController {
         }
     }
 
+    /** category is null when τv is unknown or at most 3 %; range then is null too and note says why. */
+    record SunglassCategoryJson(Integer category, String description, String range, String standard, String bound,
+            String note) {
+
+        static SunglassCategoryJson of(SunglassCategory.Rating r) {
+            return new SunglassCategoryJson(r.category().map(SunglassCategory::number).orElse(null),
+                    r.category().map(SunglassCategory::description).orElse(null),
+                    r.category().map(SunglassCategory::rangeText).orElse(null), SunglassCategory.STANDARD,
+                    r.bound().name().toLowerCase(Locale.ROOT).replace('_', '-'), r.note());
+        }
+    }
+
     record FiguresJson(long sampleId, double thicknessMm, boolean rescaled, String emitter, String response,
-            FigureJson effectiveTransmittance, FigureJson protectionFactor, FigureJson erythemalProtectionFactor,
-            FigureJson actinicUvProtectionFactor, List<FigureJson> bandMeans, FigureJson criticalWavelength,
-            List<FigureJson> opticalDensities, String caution) {
+            String solar, FigureJson effectiveTransmittance, FigureJson protectionFactor,
+            FigureJson erythemalProtectionFactor, FigureJson actinicUvProtectionFactor, FigureJson upf,
+            String bandConvention, List<FigureJson> bandMeans, FigureJson criticalWavelength,
+            List<FigureJson> opticalDensities, FigureJson luminousTransmittance,
+            SunglassCategoryJson sunglassCategory, String caution) {
     }
 
     @GetMapping("/api/emitters")
@@ -93,7 +113,9 @@ class WeightingController {
     FiguresJson figures(@PathVariable("id") long id,
                         @RequestParam(name = "thicknessMm", required = false) Double thicknessMm,
                         @RequestParam(name = "emitter", required = false, defaultValue = "flat") String emitterName,
-                        @RequestParam(name = "response", required = false, defaultValue = "erythema") String responseName) {
+                        @RequestParam(name = "response", required = false, defaultValue = "erythema") String responseName,
+                        @RequestParam(name = "convention", required = false, defaultValue = "cie") String conventionName,
+                        @RequestParam(name = "solar", required = false) String solarName) {
         if (thicknessMm != null && !(thicknessMm > 0 && thicknessMm <= SampleCurves.MAX_THICKNESS_MM)) {
             throw new BadParameterException("thicknessMm", "must be above 0 and at most "
                     + SampleCurves.MAX_THICKNESS_MM + " mm, got " + thicknessMm);
@@ -104,13 +126,25 @@ class WeightingController {
         Response response = spectra.response(responseName).orElseThrow(() -> new BadParameterException("response",
                 "unknown response '" + responseName + "'; known: " + names(spectra.responses().stream()
                         .map(Response::name).toList())));
+        UvBand.Convention convention = UvBand.Convention.named(conventionName).orElseThrow(() ->
+                new BadParameterException("convention", "unknown band convention '" + conventionName + "'; known: "
+                        + names(Arrays.stream(UvBand.Convention.values()).map(UvBand.Convention::key)
+                                .toList())));
+        Emitter solar = solarName == null ? null : spectra.emitter(solarName).orElseThrow(() ->
+                new BadParameterException("solar", "unknown emitter '" + solarName + "' as reference solar spectrum;"
+                        + " known: " + names(spectra.emitters().stream().map(Emitter::name).toList())));
         SampleCurve sample = curves.get(id, thicknessMm, null);
-        WeightedFigures.Report r = WeightedFigures.report(sample.curve(), emitter, response);
+        WeightedFigures.Report r = WeightedFigures.report(sample.curve(), emitter, response, convention);
+        Figure upf = solar == null ? UltravioletProtectionFactor.withoutSolarSpectrum()
+                : UltravioletProtectionFactor.of(sample.curve(), solar);
+        Figure luminous = LuminousTransmittance.of(sample.curve());
         return new FiguresJson(id, sample.thicknessMm(), sample.rescaled(), emitter.name(), response.name(),
+                solar == null ? null : solar.name(),
                 FigureJson.of(r.effectiveTransmittance()), FigureJson.of(r.protectionFactor()),
                 FigureJson.of(r.erythemalProtectionFactor()), FigureJson.of(r.actinicUvProtectionFactor()),
-                FigureJson.all(r.bandMeans()), FigureJson.of(r.criticalWavelength()),
-                FigureJson.all(r.opticalDensities()), CAUTION);
+                FigureJson.of(upf), convention.description(), FigureJson.all(r.bandMeans()),
+                FigureJson.of(r.criticalWavelength()), FigureJson.all(r.opticalDensities()),
+                FigureJson.of(luminous), SunglassCategoryJson.of(SunglassCategory.rate(luminous)), CAUTION);
     }
 
     private static String names(List<String> names) {

@@ -25,6 +25,9 @@ public final class Emitter {
     /** Modelled width of each mercury line: far wider than the real line, narrower than any filter edge. */
     public static final double MERCURY_LINE_FWHM_NM = 1.0;
 
+    /** The shipped D65 table, a resource under {@code weighting/}. */
+    static final String D65_TABLE = "cie-illuminant-d65.txt";
+
     private static final double SIGMA_PER_FWHM = 1 / (2 * Math.sqrt(2 * Math.log(2)));
 
     private final String name;
@@ -68,6 +71,33 @@ public final class Emitter {
         return new Emitter(name, "led", params, peakNm - 3 * fwhmNm, peakNm + 3 * fwhmNm,
                 Math.min(1.0, fwhmNm / 10), "LED model: Gaussian, peak " + peakNm + " nm, FWHM " + fwhmNm + " nm",
                 nm -> gaussian(nm, peakNm, sigma));
+    }
+
+    /**
+     * An LED with a steeper short-wavelength side, as real LED spectra have: two half-Gaussians joined at
+     * the peak (1 there), the short side with the half width at half maximum {@code fwhmShortNm / 2}, the
+     * long side with {@code fwhmLongNm / 2}. Each side is half of a symmetric Gaussian of that full width,
+     * so the whole curve's full width at half maximum is (fwhmShortNm + fwhmLongNm) / 2 and equal widths
+     * give {@link #led}. Cut 3 of the side's widths from the peak on each side (2·10⁻¹¹ of the peak), step a
+     * tenth of the narrower width, at most 1 nm.
+     */
+    public static Emitter ledAsymmetric(String name, double peakNm, double fwhmShortNm, double fwhmLongNm) {
+        requirePositive("peakNm", peakNm);
+        requirePositive("fwhmShortNm", fwhmShortNm);
+        requirePositive("fwhmLongNm", fwhmLongNm);
+        double sigmaShort = fwhmShortNm * SIGMA_PER_FWHM;
+        double sigmaLong = fwhmLongNm * SIGMA_PER_FWHM;
+        double fwhm = (fwhmShortNm + fwhmLongNm) / 2;
+        Map<String, Double> params = new LinkedHashMap<>();
+        params.put("peakNm", peakNm);
+        params.put("fwhmShortNm", fwhmShortNm);
+        params.put("fwhmLongNm", fwhmLongNm);
+        params.put("fwhmNm", fwhm);
+        return new Emitter(name, "led", params, peakNm - 3 * fwhmShortNm, peakNm + 3 * fwhmLongNm,
+                Math.min(1.0, Math.min(fwhmShortNm, fwhmLongNm) / 10),
+                "LED model: two half-Gaussians joined at the peak " + peakNm + " nm, short side as a Gaussian of "
+                        + fwhmShortNm + " nm FWHM, long side of " + fwhmLongNm + " nm, overall FWHM " + fwhm + " nm",
+                nm -> gaussian(nm, peakNm, nm < peakNm ? sigmaShort : sigmaLong));
     }
 
     /**
@@ -120,6 +150,18 @@ public final class Emitter {
         return new Emitter("illuminant-a", "illuminant", Map.of(), 300, 830, 1.0,
                 "CIE standard illuminant A (Planck, c2 = 1.435e7 nm·K, 2848 K; 100 at 560 nm), 300-830 nm",
                 nm -> planckRelative(nm, 1.435e7, 2848));
+    }
+
+    /**
+     * CIE standard illuminant D65 (average daylight), the shipped 5 nm table {@code cie-illuminant-d65.txt}
+     * (300-830 nm, 100 at 560 nm), read along straight lines between rows; integrated on 1 nm.
+     */
+    public static Emitter d65() {
+        WeightingTable table = WeightingTable.resource(D65_TABLE);
+        return new Emitter("d65", "illuminant", Map.of(), table.minWavelengthNm(), table.maxWavelengthNm(), 1.0,
+                "CIE standard illuminant D65, 5 nm table " + table.minWavelengthNm() + "-" + table.maxWavelengthNm()
+                        + " nm, 100 at 560 nm, linear between rows; source: " + table.source(),
+                table::valueAt);
     }
 
     /** A broad UVA fluorescent tube, illustrative: a Gaussian phosphor band, 352 nm peak, 40 nm FWHM. */

@@ -19,6 +19,7 @@ public final class EmitterCatalogue {
             Emitter.mercury("mercury-low-pressure", 1.0, 0.02, 0.03, 0.04),
             Emitter.uvaTube(),
             Emitter.illuminantA(),
+            Emitter.d65(),
             Emitter.flat());
 
     private EmitterCatalogue() {

@@ -15,6 +15,9 @@ public final class Response {
     /** The older 1987 variant used 139 here; the standard (ISO/CIE 17166) uses 140, continuous at 328 nm. */
     static final double ERYTHEMA_UVA_CONSTANT = 140;
 
+    /** The shipped V(λ) table, a resource under {@code weighting/}. */
+    static final String PHOTOPIC_TABLE = "cie-1931-photopic-v.txt";
+
     private static final Response ERYTHEMA = new Response("erythema", 250, 400,
             "CIE erythema reference action spectrum, ISO/CIE 17166:2019 (CIE S 007/E-1998) form with 140 in the "
                     + "UVA branch; 250-400 nm, 0 above 400 nm by convention", Response::erythema);
@@ -22,6 +25,9 @@ public final class Response {
             "actinic UV hazard S(λ) (ICNIRP / ACGIH / IEC 62471), tabulated 180-400 nm, log-linear between rows");
     private static final Response BLUE_LIGHT = fromTable("blue-light", "blue-light-hazard.txt",
             "blue-light hazard B(λ) (IEC 62471 / CIE S 009), 380-700 nm, log-linear between rows");
+    private static final Response PHOTOPIC = fromTable("photopic", PHOTOPIC_TABLE,
+            "photopic luminous efficiency V(λ) = CIE 1931 2° ȳ(λ), 5 nm table 360-830 nm, 1 at 555 nm, linear "
+                    + "between rows");
     private static final Response FLAT = flat(250, 400);
 
     private final String name;
@@ -60,6 +66,11 @@ public final class Response {
         return BLUE_LIGHT;
     }
 
+    /** V(λ), the eye's daylight sensitivity, for lamps and filters judged by eye. */
+    public static Response photopic() {
+        return PHOTOPIC;
+    }
+
     /** Unweighted over 250-400 nm, the erythema range, so flat × flat compares with the UV figures. */
     public static Response flat() {
         return FLAT;
@@ -81,7 +92,7 @@ public final class Response {
     }
 
     public static List<Response> catalogue() {
-        return List.of(ERYTHEMA, ACTINIC_UV, BLUE_LIGHT, FLAT);
+        return List.of(ERYTHEMA, ACTINIC_UV, BLUE_LIGHT, PHOTOPIC, FLAT);
     }
 
     /** Looks a catalogue response up by name, ignoring case. */

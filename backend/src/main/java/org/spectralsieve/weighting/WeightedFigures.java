@@ -39,11 +39,13 @@ public final class WeightedFigures {
         }
     }
 
+    /** The report with band means in the CIE convention. */
     public static Report report(Curve curve, Emitter emitter, Response response) {
-        List<Figure> bands = new ArrayList<>();
-        for (UvBand band : UvBand.values()) {
-            bands.add(meanTransmittance(curve, band));
-        }
+        return report(curve, emitter, response, UvBand.Convention.CIE);
+    }
+
+    public static Report report(Curve curve, Emitter emitter, Response response, UvBand.Convention convention) {
+        List<Figure> bands = bandMeans(curve, convention);
         List<Figure> ods = new ArrayList<>();
         for (double nm : NAMED_LINES_NM) {
             ods.add(opticalDensityAt(curve, nm));
@@ -134,16 +136,27 @@ public final class WeightedFigures {
                 "1 / effective transmittance; " + t.note());
     }
 
+    /** Mean T in UVC, UVB and UVA of one convention, in that order. */
+    public static List<Figure> bandMeans(Curve curve, UvBand.Convention convention) {
+        List<Figure> means = new ArrayList<>();
+        for (UvBand band : convention.bands()) {
+            means.add(meanTransmittance(curve, band));
+        }
+        return means;
+    }
+
     /**
-     * Mean T over a band on a 1 nm trapezoid grid. UVC reaches down to 100 nm where no curve starts, so it
-     * is averaged over the covered part, which the note names; UVB and UVA need the whole band.
+     * Mean T over a band on a 1 nm trapezoid grid. UVC reaches down to 100 nm (CIE) or 200 nm where few
+     * curves start, so it is averaged over the covered part, which the note names; UVB and UVA need the
+     * whole band. The name carries the numeric band, e.g. {@code meanTransmittanceUVB(280-315 nm)},
+     * because the label alone means different wavelengths in the two conventions.
      */
     public static Figure meanTransmittance(Curve curve, UvBand band) {
-        String name = "meanTransmittance" + band.name();
+        String name = "meanTransmittance" + band.label() + "(" + band.wavelengthText() + ")";
         double lo = band.fromNm();
         double hi = band.toNm();
-        String note = band.name() + " " + lo + "-" + hi + " nm";
-        if (band == UvBand.UVC) {
+        String note = band.rangeText() + " (" + band.convention().key() + " convention)";
+        if (band.averagedOverCoveredPart()) {
             lo = Math.max(lo, curve.minWavelengthNm());
             hi = Math.min(hi, curve.maxWavelengthNm());
             if (hi - lo < 1) {

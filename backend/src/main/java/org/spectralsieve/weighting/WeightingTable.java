@@ -10,26 +10,58 @@ import java.nio.charset.StandardCharsets;
 import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
+import java.util.Locale;
 
 /**
- * A tabulated weighting function, read from a plain text file: {@code #} comment lines (one of them
- * {@code # source: …}, required, so no table ships without its origin), blank lines, and data rows of
- * exactly two numbers {@code wavelength_nm value} separated by white space. Wavelengths strictly increase;
- * values are finite and &gt; 0 because they are interpolated in log10. Numbers are parsed with
- * {@link Double#parseDouble}, which does not depend on the locale.
+ * A tabulated spectral function, read from a plain text file: {@code #} comment lines (one of them
+ * {@code # source: …}, required, so no table ships without its origin, continued on the following comment
+ * lines that start with {@code #} and two or more blanks; optionally one
+ * {@code # interpolation: log10} or {@code # interpolation: linear}, log10 when absent), blank lines, and
+ * data rows of exactly two numbers {@code wavelength_nm value} separated by white space. Wavelengths
+ * strictly increase; values are finite and &gt; 0 (a log10 table needs it, and no shipped table has a
+ * zero). Numbers are parsed with {@link Double#parseDouble}, which does not depend on the locale.
  */
 public final class WeightingTable {
 
+    /** How values between rows are read. */
+    public enum Interpolation {
+        /**
+         * Straight lines in log10 of the value: for hazard weightings that fall by decades across a few
+         * nm, where straight lines in the value would overweight the low side.
+         */
+        LOG10,
+        /** Straight lines in the value: what CIE 015 prescribes for its illuminant tables. */
+        LINEAR;
+
+        private static Interpolation declared(String file, int lineNo, String text) {
+            for (Interpolation i : values()) {
+                if (i.name().toLowerCase(Locale.ROOT).equals(text)) {
+                    return i;
+                }
+            }
+            throw new WeightingTableException(file + ":" + lineNo + ": field interpolation '" + text
+                    + "' is not one of log10, linear");
+        }
+    }
+
+    private static final String SOURCE = "source:";
+    private static final String INTERPOLATION = "interpolation:";
+
     private final String name;
     private final String source;
+    private final Interpolation interpolation;
     private final double[] wavelengthsNm;
+    private final double[] values;
     private final double[] log10Values;
 
-    private WeightingTable(String name, String source, double[] wavelengthsNm, double[] log10Values) {
+    private WeightingTable(String name, String source, Interpolation interpolation, double[] wavelengthsNm,
+            double[] values) {
         this.name = name;
         this.source = source;
+        this.interpolation = interpolation;
         this.wavelengthsNm = wavelengthsNm;
-        this.log10Values = log10Values;
+        this.values = values;
+        this.log10Values = Arrays.stream(values).map(Math::log10).toArray();
     }
 
     /** Reads {@code weighting/<fileName>} from the class path. */
@@ -50,6 +82,8 @@ public final class WeightingTable {
     public static WeightingTable read(String fileName, Reader reader) throws IOException {
         BufferedReader lines = new BufferedReader(reader);
         String source = null;
+        Interpolation interpolation = null;
+        boolean inSource = false;
         List<double[]> rows = new ArrayList<>();
         String line;
         int lineNo = 0;
@@ -58,11 +92,25 @@ public final class WeightingTable {
             String text = line.strip();
             if (text.startsWith("#")) {
                 String comment = text.substring(1).strip();
-                if (comment.startsWith("source:") && source == null) {
-                    source = comment.substring("source:".length()).strip();
+                if (inSource && text.startsWith("#  ") && !comment.isEmpty()) {
+                    source += " " + comment;
+                    continue;
+                }
+                inSource = false;
+                if (comment.startsWith(SOURCE) && source == null) {
+                    source = comment.substring(SOURCE.length()).strip();
+                    inSource = true;
+                } else if (comment.startsWith(INTERPOLATION)) {
+                    if (interpolation != null) {
+                        throw new WeightingTableException(fileName + ":" + lineNo
+                                + ": second '# interpolation:' line; a table is read one way only");
+                    }
+                    interpolation = Interpolation.declared(fileName, lineNo,
+                            comment.substring(INTERPOLATION.length()).strip());
                 }
                 continue;
             }
+            inSource = false;
             if (text.isEmpty()) {
                 continue;
             }
@@ -76,8 +124,9 @@ public final class WeightingTable {
                     + rows.size());
         }
         double[] nm = rows.stream().mapToDouble(r -> r[0]).toArray();
-        double[] logs = rows.stream().mapToDouble(r -> Math.log10(r[1])).toArray();
-        return new WeightingTable(fileName, source, nm, logs);
+        double[] values = rows.stream().mapToDouble(r -> r[1]).toArray();
+        return new WeightingTable(fileName, source, interpolation == null ? Interpolation.LOG10 : interpolation,
+                nm, values);
     }
 
     private static double[] row(String file, int lineNo, String text, double previousNm) {
@@ -97,7 +146,7 @@ public final class WeightingTable {
         }
         if (!(value > 0)) {
             throw new WeightingTableException(file + ":" + lineNo + ": field value is " + value
-                    + ", must be > 0 (interpolated in log10)");
+                    + ", must be > 0");
         }
         return new double[] {nm, value};
     }
@@ -123,6 +172,20 @@ public final class WeightingTable {
         return source;
     }
 
+    public Interpolation interpolation() {
+        return interpolation;
+    }
+
+    /** The rows' wavelengths, a copy. */
+    public double[] wavelengthsNm() {
+        return wavelengthsNm.clone();
+    }
+
+    /** The rows' values as written in the file, a copy. */
+    public double[] values() {
+        return values.clone();
+    }
+
     public double minWavelengthNm() {
         return wavelengthsNm[0];
     }
@@ -132,8 +195,7 @@ public final class WeightingTable {
     }
 
     /**
-     * Log-linear interpolation (straight lines in log10 of the value), because these functions fall by
-     * decades across a few nm and straight lines in the value would overweight the low side. 0 outside.
+     * The value at a row exactly as written; between rows by the table's {@link Interpolation}. 0 outside.
      */
     public double valueAt(double nm) {
         if (!(nm >= minWavelengthNm() && nm <= maxWavelengthNm())) {
@@ -141,17 +203,21 @@ public final class WeightingTable {
         }
         int hit = Arrays.binarySearch(wavelengthsNm, nm);
         if (hit >= 0) {
-            return Math.pow(10, log10Values[hit]);
+            return values[hit];
         }
         int upper = -hit - 1;
         int lower = upper - 1;
         double f = (nm - wavelengthsNm[lower]) / (wavelengthsNm[upper] - wavelengthsNm[lower]);
-        return Math.pow(10, log10Values[lower] * (1 - f) + log10Values[upper] * f);
+        return switch (interpolation) {
+            case LOG10 -> Math.pow(10, log10Values[lower] * (1 - f) + log10Values[upper] * f);
+            case LINEAR -> values[lower] * (1 - f) + values[upper] * f;
+        };
     }
 
     @Override
     public String toString() {
-        return "WeightingTable[" + name + ", " + wavelengthsNm.length + " rows, " + minWavelengthNm() + ".."
+        return "WeightingTable[" + name + ", " + interpolation.name().toLowerCase(Locale.ROOT) + ", "
+                + wavelengthsNm.length + " rows, " + minWavelengthNm() + ".."
                 + maxWavelengthNm() + " nm]";
     }
 }

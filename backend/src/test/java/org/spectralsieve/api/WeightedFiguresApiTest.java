@@ -30,7 +30,7 @@ class WeightedFiguresApiTest {
     void emitterCatalogueListsTheSeededSourcesWithTheCaution() throws Exception {
         JsonNode body = getJson("/api/emitters", 200);
         assertThat(body.path("caution").asString()).contains("not a certification of protective equipment");
-        assertThat(body.path("emitters").size()).isEqualTo(8);
+        assertThat(body.path("emitters").size()).isEqualTo(9);
         JsonNode led = body.path("emitters").get(0);
         assertThat(led.path("name").asString()).isEqualTo("led-365");
         assertThat(led.path("kind").asString()).isEqualTo("led");
@@ -62,7 +62,7 @@ class WeightedFiguresApiTest {
         assertThat(f.path("erythemalProtectionFactor").path("value").asDouble()).isGreaterThan(50);
         assertThat(f.path("criticalWavelength").path("value").asDouble()).isGreaterThan(370);
         assertThat(f.path("actinicUvProtectionFactor").path("value").asDouble()).isGreaterThan(50);
-        assertThat(f.path("bandMeans").get(1).path("name").asString()).isEqualTo("meanTransmittanceUVB");
+        assertThat(f.path("bandMeans").get(1).path("name").asString()).isEqualTo("meanTransmittanceUVB(280-315 nm)");
         assertThat(f.path("bandMeans").get(0).path("note").asString()).contains("covered part");
     }
 
@@ -77,6 +77,50 @@ class WeightedFiguresApiTest {
                 .isGreaterThan(thin.path("protectionFactor").path("value").asDouble());
     }
 
+    /**
+     * The silica window again: it absorbs nothing in the visible, so τv is its Fresnel transmittance,
+     * about 0.93 (n = 1.46, two faces: W. J. Smith, Modern Optical Engineering; reference sheet §7), which
+     * ISO 12312-1:2013 puts in category 0 (> 80 % to 100 %, reference sheet §5). Under any named solar
+     * spectrum a nearly flat T gives UPF near 1/T (sheet §2).
+     */
+    @Test
+    void clearWindowHasLuminousTransmittanceNearItsFresnelValueAndCategoryZero() throws Exception {
+        JsonNode f = figures(sampleId("UV-grade synthetic fused silica"), "&solar=d65");
+        double tv = f.path("luminousTransmittance").path("value").asDouble();
+        assertThat(tv).isBetween(0.91, 0.95);
+        assertThat(f.path("luminousTransmittance").path("note").asString()).contains("81 rows");
+        JsonNode category = f.path("sunglassCategory");
+        assertThat(category.path("category").asInt()).isZero();
+        assertThat(category.path("range").asString()).isEqualTo("ISO 12312-1:2013 category 0 (clear or very light"
+                + " tint): τv > 80 % to 100 %");
+        assertThat(f.path("solar").asString()).isEqualTo("d65");
+        assertThat(f.path("upf").path("value").asDouble()).isBetween(1 / 0.95, 1 / 0.89);
+        assertThat(f.path("upf").path("note").asString()).contains("solar spectrum d65");
+        assertThat(f.path("caution").asString()).contains("not a certification");
+    }
+
+    /** Common practice, no source: a smoked grey sheet passes less daylight than the clear sheet. */
+    @Test
+    void smokedGreySheetIsDarkerThanClearSheet() throws Exception {
+        double grey = figures(sampleId("Smoked grey acrylic"), "").path("luminousTransmittance").path("value")
+                .asDouble();
+        JsonNode clear = figures(sampleId("Clear cast acrylic sheet"), "");
+        assertThat(grey).isLessThan(clear.path("luminousTransmittance").path("value").asDouble());
+        assertThat(clear.path("upf").path("available").asBoolean()).isFalse();
+        assertThat(clear.path("upf").path("note").asString()).contains("reference solar spectrum must be named");
+    }
+
+    /** Reference sheet §10: the dermatology convention's bands are 290-320 and 320-400 nm. */
+    @Test
+    void dermatologyConventionNamesItsNumericBands() throws Exception {
+        JsonNode f = figures(sampleId("UV-blocking clear window film"), "&convention=dermatology");
+        assertThat(f.path("bandConvention").asString()).startsWith("dermatology: UVC 200-290 nm, UVB 290-320 nm");
+        assertThat(f.path("bandMeans").get(1).path("name").asString()).isEqualTo("meanTransmittanceUVB(290-320 nm)");
+        assertThat(f.path("bandMeans").get(2).path("name").asString()).isEqualTo("meanTransmittanceUVA(320-400 nm)");
+        assertThat(figures(sampleId("UV-blocking clear window film"), "").path("bandConvention").asString())
+                .startsWith("cie: UVC 100-280 nm");
+    }
+
     @Test
     void badParametersAreNamedInA400() throws Exception {
         long id = sampleId("UV-grade synthetic fused silica");
@@ -86,6 +130,10 @@ class WeightedFiguresApiTest {
                 .isEqualTo("response");
         assertThat(getJson("/api/samples/" + id + "/figures?thicknessMm=-1", 400).path("parameter").asString())
                 .isEqualTo("thicknessMm");
+        assertThat(getJson("/api/samples/" + id + "/figures?convention=iso", 400).path("parameter").asString())
+                .isEqualTo("convention");
+        assertThat(getJson("/api/samples/" + id + "/figures?solar=sunny", 400).path("parameter").asString())
+                .isEqualTo("solar");
         assertThat(getJson("/api/samples/999999/figures", 404).path("status").asInt()).isEqualTo(404);
     }
 

@@ -32,6 +32,45 @@ class EmitterTest {
         assertThat(right - left).isCloseTo(12, within(0.002));
     }
 
+    /**
+     * Definition of the asymmetric model (two half-Gaussians joined at the peak): the peak sits at peakNm,
+     * the half-maximum points lie fwhmShort/2 below and fwhmLong/2 above it, so the measured FWHM is
+     * (fwhmShort + fwhmLong) / 2. Found numerically by a 0.001 nm scan and bisection.
+     */
+    @Test
+    void asymmetricLedRecoversItsPeakAndBothHalfWidths() {
+        Emitter led = Emitter.ledAsymmetric("led-skew", 365, 9, 15);
+        double peakNm = 0;
+        double peak = 0;
+        for (double nm = 330; nm <= 410; nm += 0.001) {
+            if (led.powerAt(nm) > peak) {
+                peak = led.powerAt(nm);
+                peakNm = nm;
+            }
+        }
+        double left = halfPoint(led, peak, 330, peakNm);
+        double right = halfPoint(led, peak, 410, peakNm);
+        assertThat(peakNm).isCloseTo(365, within(0.001));
+        assertThat(peak).isCloseTo(1, within(1e-9));
+        assertThat(365 - left).isCloseTo(4.5, within(0.002));
+        assertThat(right - 365).isCloseTo(7.5, within(0.002));
+        assertThat(right - left).isCloseTo(12, within(0.002));
+        assertThat(led.parameters()).containsEntry("fwhmNm", 12.0);
+        assertThat(led.minNm()).isEqualTo(365 - 27.0);
+        assertThat(led.maxNm()).isEqualTo(365 + 45.0);
+    }
+
+    /** Equal widths give the symmetric model back (the definition's limiting case). */
+    @Test
+    void asymmetricLedWithEqualWidthsIsTheGaussianLed() {
+        Emitter skew = Emitter.ledAsymmetric("a", 395, 12, 12);
+        Emitter gauss = Emitter.led("b", 395, 12);
+        for (double nm = 360; nm <= 430; nm += 0.7) {
+            assertThat(skew.powerAt(nm)).isCloseTo(gauss.powerAt(nm), within(1e-15));
+        }
+        assertThatThrownBy(() -> Emitter.ledAsymmetric("x", 365, 10, -1)).hasMessageContaining("fwhmLongNm is -1.0");
+    }
+
     private static double halfPoint(Emitter e, double peak, double outside, double inside) {
         double lo = outside;
         double hi = inside;
@@ -121,7 +160,7 @@ class EmitterTest {
     @Test
     void catalogueHoldsTheSeededEmitters() {
         assertThat(EmitterCatalogue.all()).extracting(Emitter::name).containsExactly("led-365", "led-385",
-                "led-395", "led-405", "mercury-low-pressure", "uva-tube", "illuminant-a", "flat");
+                "led-395", "led-405", "mercury-low-pressure", "uva-tube", "illuminant-a", "d65", "flat");
         assertThat(EmitterCatalogue.named("LED-365")).get().extracting(Emitter::kind).isEqualTo("led");
     }
 

@@ -153,6 +153,30 @@ class WeightedFiguresTest {
                 .isCloseTo(0.55, within(1e-12));
     }
 
+    /**
+     * Reference sheet §10: the dermatology convention splits at 290 and 320 nm, CIE at 280 and 315 nm. A
+     * curve with T = 0.2 below 300 nm and 0.8 from 300 nm shows the difference in the UVB means.
+     */
+    @Test
+    void bandMeansFollowTheChosenConventionAndNameTheNumericBand() {
+        Curve c = curve(190, 1100, nm -> nm < 300 ? 0.2 : 0.8);
+        List<Figure> cie = WeightedFigures.bandMeans(c, UvBand.Convention.CIE);
+        List<Figure> derm = WeightedFigures.bandMeans(c, UvBand.Convention.DERMATOLOGY);
+        assertThat(cie).extracting(Figure::name).containsExactly("meanTransmittanceUVC(100-280 nm)",
+                "meanTransmittanceUVB(280-315 nm)", "meanTransmittanceUVA(315-400 nm)");
+        assertThat(derm).extracting(Figure::name).containsExactly("meanTransmittanceUVC(200-290 nm)",
+                "meanTransmittanceUVB(290-320 nm)", "meanTransmittanceUVA(320-400 nm)");
+        // trapezoid on 1 nm: CIE UVB 280..315 has 19 intervals at 0.2 (280-299), 1 mixed (299-300), 15 at 0.8
+        double cieUvb = (19 * 0.2 + 0.5 + 15 * 0.8) / 35;
+        double dermUvb = (9 * 0.2 + 0.5 + 20 * 0.8) / 30;
+        assertThat(cie.get(1).value().getAsDouble()).isCloseTo(cieUvb, within(1e-12));
+        assertThat(derm.get(1).value().getAsDouble()).isCloseTo(dermUvb, within(1e-12));
+        assertThat(derm.get(1).note()).startsWith("UVB 290-320 nm (dermatology convention)");
+        assertThat(derm.get(0).note()).doesNotContain("covered part");
+        assertThat(UvBand.Convention.named(" Dermatology ")).contains(UvBand.Convention.DERMATOLOGY);
+        assertThat(UvBand.Convention.named("iso")).isEmpty();
+    }
+
     @Test
     void uvcMeanIsTakenOverTheCoveredPartAndSaysSo() {
         Figure uvc = WeightedFigures.meanTransmittance(curve(200, 400, nm -> 0.4), UvBand.UVC);

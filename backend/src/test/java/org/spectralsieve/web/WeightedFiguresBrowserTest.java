@@ -1,0 +1,348 @@
+package org.spectralsieve.web;
+
+import static org.assertj.core.api.Assertions.assertThat;
+
+import java.io.IOException;
+import java.math.BigDecimal;
+import java.math.MathContext;
+import java.math.RoundingMode;
+import java.net.URI;
+import java.net.URLEncoder;
+import java.net.http.HttpClient;
+import java.net.http.HttpRequest;
+import java.net.http.HttpResponse;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.time.Duration;
+import org.junit.jupiter.api.AfterAll;
+import org.junit.jupiter.api.BeforeAll;
+import org.junit.jupiter.api.Test;
+import org.openqa.selenium.By;
+import org.openqa.selenium.JavascriptExecutor;
+import org.openqa.selenium.Keys;
+import org.openqa.selenium.OutputType;
+import org.openqa.selenium.StaleElementReferenceException;
+import org.openqa.selenium.WebDriver;
+import org.openqa.selenium.WebElement;
+import org.openqa.selenium.support.ui.Select;
+import org.openqa.selenium.support.ui.WebDriverWait;
+import org.springframework.boot.test.context.SpringBootTest;
+import org.springframework.boot.test.web.server.LocalServerPort;
+import org.springframework.test.context.TestPropertySource;
+import tools.jackson.databind.JsonNode;
+import tools.jackson.databind.json.JsonMapper;
+
+/**
+ * The weighted-figures section of the material view, in a real headless Chromium against the whole
+ * application with its (illustrative) demo library. Every number on the page is checked against what
+ * {@code GET /api/samples/{id}/figures} answers for the same sample, thickness, emitter and response, written
+ * with the page's own rule for fractions. One browser session for all tests keeps the run short. Skipped
+ * (not failed) on machines without Chromium and its driver.
+ */
+@SpringBootTest(webEnvironment = SpringBootTest.WebEnvironment.RANDOM_PORT)
+@TestPropertySource(properties = "spring.datasource.url=jdbc:h2:mem:browser-figures;DB_CLOSE_DELAY=-1")
+class WeightedFiguresBrowserTest {
+
+    private static final Duration PATIENCE = Duration.ofSeconds(30);
+    private static final HttpClient HTTP = HttpClient.newHttpClient();
+    private static final JsonMapper JSON = JsonMapper.builder().build();
+
+    /** Passes much of the UV-A, so erythema and the actinic S(λ) (which weights UV-B/C far more) differ. */
+    private static final String UV_TRANSMITTING = "UV-transmitting cast acrylic, lamp-cover grade";
+    /** Its curves start at 250 nm: the actinic table needs 180 nm, so the flat × actinic factor is refused. */
+    private static final String STARTS_AT_250_NM = "Optical crown glass windows";
+
+    private static WebDriver driver;
+    private static WebDriverWait wait;
+
+    @LocalServerPort
+    private int port;
+
+    @BeforeAll
+    static void startBrowser() throws IOException {
+        HeadlessChromium.assumeInstalled();
+        driver = HeadlessChromium.start();
+        wait = new WebDriverWait(driver, PATIENCE);
+        // The page replaces the table as answers arrive; a stale element means "look again".
+        wait.ignoring(StaleElementReferenceException.class);
+    }
+
+    @AfterAll
+    static void stopBrowser() {
+        if (driver != null) {
+            driver.quit();
+        }
+    }
+
+    @Test
+    void figuresFollowTheChosenResponseAndTheRescaledThicknessAndMatchTheApi() throws Exception {
+        JsonNode material = material(UV_TRANSMITTING);
+        long sampleId = material.path("samples").get(0).path("id").asLong();
+        loadPage();
+        openMaterial(UV_TRANSMITTING);
+
+        // Defaults: the first sample at its measured thickness, flat source × erythema.
+        waitForStatus("flat × erythema");
+        assertThat(new Select(driver.findElement(By.id("figure-sample"))).getFirstSelectedOption()
+                .getDomAttribute("value")).isEqualTo(String.valueOf(sampleId));
+        JsonNode erythema = figures(sampleId, "emitter=flat&response=erythema");
+        String erythemaShown = shownValue("effectiveTransmittance");
+        assertThat(erythemaShown).isEqualTo(fractionAsShown(erythema.path("effectiveTransmittance")));
+        assertThat(row("effectiveTransmittance").getText()).contains("Effective transmittance, flat × erythema");
+
+        // The caution is in view, in the server's words, and the erythemal figures point to it.
+        WebElement caution = driver.findElement(By.id("figures-caution"));
+        assertThat(caution.isDisplayed()).isTrue();
+        assertThat(caution.getText()).contains(erythema.path("caution").asString());
+        assertThat(row("erythemalProtectionFactor").getDomAttribute("class")).contains("hazard");
+        assertThat(row("effectiveTransmittance").getDomAttribute("class")).contains("hazard");
+        screenshot("figures-1-erythema");
+
+        // Another response: fetched anew, another number, the one the API gives for that response.
+        new Select(driver.findElement(By.id("figure-response"))).selectByValue("actinic-uv");
+        waitForStatus("flat × actinic-uv");
+        JsonNode actinic = figures(sampleId, "emitter=flat&response=actinic-uv");
+        assertThat(actinic.path("effectiveTransmittance").path("value").asDouble())
+                .isNotEqualTo(erythema.path("effectiveTransmittance").path("value").asDouble());
+        String actinicShown = shownValue("effectiveTransmittance");
+        assertThat(actinicShown).isEqualTo(fractionAsShown(actinic.path("effectiveTransmittance")))
+                .isNotEqualTo(erythemaShown);
+
+        // Rescaled in the chart: the figures follow that thickness, as the API computes it.
+        driver.findElement(By.id("rescale-mm")).sendKeys("5", Keys.ENTER);
+        waitForStatus("5 mm (rescaled");
+        assertThat(new Select(driver.findElement(By.id("figure-sample"))).getFirstSelectedOption().getText())
+                .startsWith("rescaled to 5 mm");
+        JsonNode thick = figures(sampleId, "thicknessMm=5&emitter=flat&response=actinic-uv");
+        assertThat(thick.path("rescaled").asBoolean()).isTrue();
+        assertThat(shownValue("effectiveTransmittance"))
+                .isEqualTo(fractionAsShown(thick.path("effectiveTransmittance")));
+        screenshot("figures-2-actinic-rescaled");
+
+        // Cleared: back to the measured sample.
+        driver.findElement(By.id("rescale-clear")).click();
+        waitForStatus("flat × actinic-uv");
+        wait.until(d -> !d.findElement(By.id("figures-status")).getText().contains("rescaled"));
+        assertThat(shownValue("effectiveTransmittance")).isEqualTo(actinicShown);
+        assertNoMessage();
+    }
+
+    @Test
+    void theBandConventionPickerSwitchesToTheDermatologyBandsAndTheFilterCategoryIsShown() throws Exception {
+        JsonNode material = material(UV_TRANSMITTING);
+        long sampleId = material.path("samples").get(0).path("id").asLong();
+        JsonNode cie = figures(sampleId, "emitter=flat&response=erythema");
+        JsonNode dermatology = figures(sampleId, "emitter=flat&response=erythema&convention=dermatology");
+        loadPage();
+        openMaterial(UV_TRANSMITTING);
+        waitForStatus("flat × erythema");
+        assertThat(driver.findElement(By.id("figures-table")).getText()).contains("UV-B 280-315 nm");
+
+        // The luminous transmittance and the category it falls in, as the API gives them.
+        assertThat(shownValue("luminousTransmittance"))
+                .isEqualTo(fractionAsShown(cie.path("luminousTransmittance")));
+        WebElement category = row("sunglassCategory");
+        assertThat(category.findElement(By.cssSelector("td.value")).getText())
+                .isEqualTo(String.valueOf(cie.path("sunglassCategory").path("category").asInt()));
+        assertThat(category.findElement(By.cssSelector("td.note")).getText())
+                .contains(cie.path("sunglassCategory").path("range").asString());
+        assertThat(category.getDomAttribute("class")).contains("hazard");
+
+        new Select(driver.findElement(By.id("figure-convention"))).selectByValue("dermatology");
+        wait.until(d -> d.findElement(By.id("figures-table")).getText().contains("UV-B 290-320 nm"));
+        JsonNode dermatologyUvb = null;
+        for (JsonNode band : dermatology.path("bandMeans")) {
+            if (band.path("name").asString().contains("UVB")) {
+                dermatologyUvb = band;
+            }
+        }
+        assertThat(dermatologyUvb).as("dermatology UVB band in the API answer").isNotNull();
+        String uvbName = dermatologyUvb.path("name").asString();
+        WebElement uvbRow = driver.findElement(By.cssSelector("#figures-table tr[data-name='" + uvbName + "']"));
+        assertThat(uvbRow.findElement(By.cssSelector("td.value")).getText()).isEqualTo(fractionAsShown(dermatologyUvb));
+        assertNoMessage();
+    }
+
+    @Test
+    void aFigureTheCurveCannotGiveShowsTheServersReasonInsteadOfANumber() throws Exception {
+        JsonNode material = material(STARTS_AT_250_NM);
+        long sampleId = material.path("samples").get(0).path("id").asLong();
+        JsonNode answer = figures(sampleId, "emitter=flat&response=erythema");
+        JsonNode refused = answer.path("actinicUvProtectionFactor");
+        assertThat(refused.path("available").asBoolean()).as("API refuses it for a curve from 250 nm").isFalse();
+
+        loadPage();
+        openMaterial(STARTS_AT_250_NM);
+        waitForStatus("flat × erythema");
+        WebElement row = row("actinicUvProtectionFactor");
+        assertThat(row.getDomAttribute("class")).contains("unavailable");
+        assertThat(row.findElement(By.cssSelector("td.value")).getText()).isEqualTo("not available");
+        assertThat(row.findElement(By.cssSelector("td.note")).getText())
+                .isEqualTo("Not available: " + refused.path("note").asString());
+        // The figures the curve can give are still there, with numbers.
+        assertThat(shownValue("effectiveTransmittance"))
+                .isEqualTo(fractionAsShown(answer.path("effectiveTransmittance")));
+        screenshot("figures-3-unavailable");
+        assertNoMessage();
+    }
+
+    @Test
+    void aRefusedEmitterShowsTheServersProblemDetailInTheMessageArea() throws Exception {
+        loadPage();
+        openMaterial(UV_TRANSMITTING);
+        waitForStatus("×");
+        // No picker offers an unknown name; put one in, as a stale page would after a catalogue change.
+        WebElement emitter = driver.findElement(By.id("figure-emitter"));
+        ((JavascriptExecutor) driver).executeScript(
+                "const o = document.createElement('option'); o.value = o.textContent = 'lamp-that-is-not-there';"
+                        + " arguments[0].append(o); arguments[0].value = o.value;"
+                        + " arguments[0].dispatchEvent(new Event('change'));", emitter);
+
+        WebElement message = driver.findElement(By.id("message"));
+        wait.withMessage("waiting for the 400 problem detail in the message area");
+        wait.until(d -> message.isDisplayed());
+        assertThat(message.getText()).contains("400").contains("lamp-that-is-not-there").contains("known:");
+        assertThat(driver.findElement(By.id("figures-status")).getText())
+                .startsWith("No figures:").contains("lamp-that-is-not-there");
+        assertThat(driver.findElements(By.cssSelector("#figures-table tbody tr[data-figure]"))).isEmpty();
+        screenshot("figures-4-refused");
+
+        // A known emitter again: figures return and the message goes.
+        new Select(emitter).selectByValue("led-365");
+        waitForStatus("led-365 ×");
+        wait.until(d -> !message.isDisplayed());
+        assertThat(shownValue("effectiveTransmittance")).endsWith("%");
+    }
+
+    /**
+     * Figures the server may add later, or members it may leave out, must not break the table: the page is
+     * given an answer with two extra figures and one figure fewer (the real answer, changed on its way in).
+     */
+    @Test
+    void figuresThePageDoesNotKnowYetAreShownByNameAndAMissingOneIsLeftOut() throws Exception {
+        loadPage();
+        ((JavascriptExecutor) driver).executeScript("""
+                const realFetch = window.fetch.bind(window);
+                window.fetch = async (url, init) => {
+                  const response = await realFetch(url, init);
+                  if (!String(url).includes('/figures') || !response.ok) return response;
+                  const answer = await response.json();
+                  delete answer.criticalWavelength;
+                  answer.luminousTransmittance = { name: 'luminousTransmittance', value: 0.25, unit: 'fraction',
+                      bound: 'value', available: true, note: 'added by the test' };
+                  answer.laterFigures = [{ name: 'someLaterFigure', value: 2.5, unit: 'lm/W', available: true }];
+                  return new Response(JSON.stringify(answer),
+                      { status: 200, headers: { 'Content-Type': 'application/json' } });
+                };""");
+        openMaterial(UV_TRANSMITTING);
+        waitForStatus("flat × erythema");
+
+        assertThat(driver.findElements(By.cssSelector("#figures-table tr[data-figure='criticalWavelength']"))).isEmpty();
+        WebElement luminous = row("luminousTransmittance");
+        assertThat(luminous.findElement(By.tagName("th")).getText()).startsWith("Luminous transmittance");
+        assertThat(luminous.getDomAttribute("class")).as("luminous figures carry the caution").contains("hazard");
+        assertThat(shownValue("luminousTransmittance")).isEqualTo("25.0 %");
+        WebElement later = row("laterFigures");
+        assertThat(later.findElement(By.tagName("th")).getText()).isEqualTo("someLaterFigure");
+        assertThat(shownValue("laterFigures")).isEqualTo("2.5 lm/W");
+        assertThat(later.findElement(By.xpath("ancestor::tbody")).getDomAttribute("data-group")).isEqualTo("other");
+        assertThat(shownValue("effectiveTransmittance")).endsWith("%");
+        assertNoMessage();
+    }
+
+    // ---------- the page's rule for fractions, mirrored (format.js percentNumber) ----------
+
+    /**
+     * A fraction as the page writes it: "≤ " for an upper bound, then percent with one decimal from 10 %,
+     * two from 0.1 %, else two significant digits, then " %". JavaScript's toFixed and toPrecision round
+     * the exact binary value half up, as BigDecimal of the double does.
+     */
+    static String fractionAsShown(JsonNode figure) {
+        assertThat(figure.path("unit").asString()).isEqualTo("fraction");
+        double p = figure.path("value").asDouble() * 100;
+        BigDecimal exact = new BigDecimal(p);
+        String text;
+        if (p >= 10) {
+            text = exact.setScale(1, RoundingMode.HALF_UP).toPlainString();
+        } else if (p >= 0.1) {
+            text = exact.setScale(2, RoundingMode.HALF_UP).toPlainString();
+        } else if (p == 0) {
+            text = "0";
+        } else {
+            text = exact.round(new MathContext(2, RoundingMode.HALF_UP)).stripTrailingZeros().toPlainString();
+        }
+        String bound = switch (figure.path("bound").asString()) {
+            case "at-most" -> "≤ ";
+            case "at-least" -> "≥ ";
+            default -> "";
+        };
+        return bound + text + " %";
+    }
+
+    // ---------- page helpers ----------
+
+    private void loadPage() {
+        driver.get("http://localhost:" + port + "/");
+    }
+
+    /** Clicks the material's row in the library table of the page already loaded. */
+    private void openMaterial(String nameStart) {
+        wait.withMessage("waiting for the library row of " + nameStart);
+        WebElement row = wait.until(d -> d.findElements(By.cssSelector("#material-table tr[data-material-id]"))
+                .stream().filter(r -> r.findElement(By.cssSelector("td")).getText().startsWith(nameStart))
+                .findFirst().orElse(null));
+        row.click();
+        wait.until(d -> d.findElement(By.id("detail-name")).getText().startsWith(nameStart));
+    }
+
+    private void waitForStatus(String part) {
+        WebElement status = driver.findElement(By.id("figures-status"));
+        wait.withMessage(() -> "waiting for the figures status to mention '" + part + "'; now: '"
+                + status.getText() + "'; message: " + driver.findElement(By.id("message")).getText());
+        wait.until(d -> status.getText().contains(part)
+                && "shown".equals(d.findElement(By.id("weighted-figures")).getDomAttribute("data-state")));
+    }
+
+    private WebElement row(String figureKey) {
+        return driver.findElement(By.cssSelector("#figures-table tr[data-figure='" + figureKey + "']"));
+    }
+
+    private String shownValue(String figureKey) {
+        return row(figureKey).findElement(By.cssSelector("td.value")).getText();
+    }
+
+    private void assertNoMessage() {
+        WebElement message = driver.findElement(By.id("message"));
+        assertThat(message.isDisplayed()).as("message area stays hidden, but shows: %s", message.getText()).isFalse();
+    }
+
+    private void screenshot(String name) throws IOException {
+        WebElement section = driver.findElement(By.id("weighted-figures"));
+        ((JavascriptExecutor) driver).executeScript("arguments[0].scrollIntoView({block: 'start'})", section);
+        byte[] png = section.getScreenshotAs(OutputType.BYTES);
+        Files.write(Files.createDirectories(HeadlessChromium.OUTPUT).resolve(name + ".png"), png);
+    }
+
+    // ---------- API helpers ----------
+
+    private JsonNode material(String nameStart) throws Exception {
+        JsonNode materials = getJson("/api/materials?q=" + URLEncoder.encode(nameStart, StandardCharsets.UTF_8));
+        for (JsonNode m : materials) {
+            if (m.path("name").asString().startsWith(nameStart)) {
+                return m;
+            }
+        }
+        throw new AssertionError("demo library has no material named " + nameStart + "…");
+    }
+
+    private JsonNode figures(long sampleId, String query) throws Exception {
+        return getJson("/api/samples/" + sampleId + "/figures?" + query);
+    }
+
+    private JsonNode getJson(String path) throws Exception {
+        HttpResponse<String> response = HTTP.send(HttpRequest.newBuilder(URI.create("http://localhost:" + port + path))
+                .GET().build(), HttpResponse.BodyHandlers.ofString());
+        assertThat(response.statusCode()).as(path + " → " + response.body()).isEqualTo(200);
+        return JSON.readTree(response.body());
+    }
+}

@@ -1,0 +1,341 @@
+// Weighted figures of one sample of the shown material: pick a source (emitter) and a response, the
+// server integrates and answers with figures; this module lays them out. Every figure-shaped member of the
+// answer is shown, those the page knows with a label and in their group, any other by its name, so a
+// figure the server adds later appears without a change here. No number is computed on the page.
+import * as api from './api.js';
+import * as fmt from './format.js';
+
+const DEFAULT_EMITTER = 'flat';
+const DEFAULT_RESPONSE = 'erythema';
+const MESSAGE_CONTEXT = 'Computing weighted figures';
+// Shown when an answer comes without its own caution: safety figures never appear without one.
+const FALLBACK_CAUTION = 'Screening estimate from stored curves, not a certification; applicable standards, '
+  + 'local codes and qualified safety professionals decide.';
+
+// Groups in reading order, by the answer's member a figure came in.
+const GROUPS = [
+  { id: 'chosen', title: 'Chosen source × response', keys: ['effectiveTransmittance', 'protectionFactor'] },
+  { id: 'screening', title: 'Eye and skin screening (fixed weightings)',
+    keys: ['erythemalProtectionFactor', 'actinicUvProtectionFactor', 'luminousTransmittance', 'sunglassCategory', 'upf'] },
+  { id: 'bands', title: 'Mean transmittance in the UV bands', keys: ['bandMeans'] },
+  { id: 'edge', title: 'Absorption edge', keys: ['criticalWavelength'] },
+  { id: 'lines', title: 'Optical density at lamp lines', keys: ['opticalDensities'] },
+  { id: 'other', title: 'Other figures', keys: [] },
+];
+
+// Figures about eyes or skin (erythema, UV hazard, blue light, luminous / sunglass category, UPF): these
+// carry the caution. Matched on the member, the figure's name and, for the chosen pair, the response.
+const HAZARD = /erythem|actinic|hazard|blue|luminous|sunglass|categor|photopic|upf|skin|eye|retina/i;
+const PAIR_KEYS = new Set(['effectiveTransmittance', 'protectionFactor']);
+
+const el = (id) => document.getElementById(id);
+
+/** Every figure in the answer with the member it came in; lists and one level of nested objects too. */
+function collectFigures(answer) {
+  const found = [];
+  const category = sunglassFigure(answer?.sunglassCategory);
+  if (category) found.push({ key: 'sunglassCategory', figure: category });
+  const visit = (key, value, depth) => {
+    if (fmt.isFigure(value)) {
+      found.push({ key, figure: value });
+    } else if (Array.isArray(value)) {
+      value.filter(fmt.isFigure).forEach((figure) => found.push({ key, figure }));
+    } else if (value && typeof value === 'object' && depth < 2) {
+      Object.entries(value).forEach(([, inner]) => visit(key, inner, depth + 1));
+    }
+  };
+  Object.entries(answer || {}).forEach(([key, value]) => visit(key, value, 0));
+  return found;
+}
+
+/**
+ * The sunglass category comes as its own object (category number, description, range); shown as a row
+ * like the figures, with the range and the server's note as its note.
+ */
+function sunglassFigure(rating) {
+  if (!rating || typeof rating !== 'object' || fmt.isFigure(rating)) return null;
+  const known = Number.isFinite(rating.category);
+  const what = known ? `${rating.description}, τv ${rating.range} (${rating.standard})` : '';
+  return {
+    name: 'sunglassCategory',
+    value: known ? rating.category : null,
+    unit: 'category',
+    bound: rating.bound,
+    available: known,
+    // The server's note already names the category, its range and what was not checked.
+    note: rating.note || what,
+  };
+}
+
+function isHazard({ key, figure }, response) {
+  return HAZARD.test(key) || HAZARD.test(figure.name) || (PAIR_KEYS.has(key) && HAZARD.test(response || ''));
+}
+
+function groupOf(entry, response) {
+  const known = GROUPS.find((g) => g.keys.includes(entry.key));
+  if (known) return known;
+  return isHazard(entry, response) ? GROUPS[1] : GROUPS[GROUPS.length - 1];
+}
+
+/** "2 mm regular" or "rescaled to 5 mm (from 2 mm)": the choice values carry sample id and thickness. */
+function choiceValue(sampleId, thicknessMm) {
+  return thicknessMm === undefined || thicknessMm === null ? String(sampleId) : `${sampleId}@${thicknessMm}`;
+}
+
+function parseChoice(value) {
+  if (!value) return null;
+  const [id, mm] = value.split('@');
+  return { sampleId: id, thicknessMm: mm === undefined ? undefined : Number(mm) };
+}
+
+/**
+ * Wires the weighted-figures section. `ui.showProblem(problem, context)` / `ui.clearMessage()` are the
+ * page's message area. Returns `showMaterial(material)` and `showRescaled(rescaled)` for the detail view.
+ */
+export function initFigures(ui) {
+  const dom = {
+    section: el('weighted-figures'),
+    sample: el('figure-sample'),
+    emitter: el('figure-emitter'),
+    response: el('figure-response'),
+    convention: el('figure-convention'),
+    solar: el('figure-solar'),
+    emitterAbout: el('figure-emitter-about'),
+    responseAbout: el('figure-response-about'),
+    caution: el('figures-caution'),
+    cautionText: el('figures-caution-text'),
+    status: el('figures-status'),
+    table: el('figures-table'),
+  };
+  const state = { request: 0, material: null, descriptions: new Map() };
+
+  // ---------- pickers ----------
+
+  /** Options from a catalogue; grouped by `origin` (built-in, imported, …) when the server sends one. */
+  function fillPicker(select, items, fallback) {
+    const previous = select.value || fallback;
+    const option = (item) => {
+      const o = document.createElement('option');
+      o.value = item.name;
+      o.textContent = item.name;
+      if (item.description) o.title = item.description;
+      state.descriptions.set(`${select.id}:${item.name}`, item.description || '');
+      return o;
+    };
+    const origins = [...new Set(items.map((i) => i.origin).filter(Boolean))];
+    if (origins.length) {
+      const groups = origins.map((origin) => {
+        const group = document.createElement('optgroup');
+        group.label = origin;
+        group.append(...items.filter((i) => i.origin === origin).map(option));
+        return group;
+      });
+      select.replaceChildren(...items.filter((i) => !i.origin).map(option), ...groups);
+    } else {
+      select.replaceChildren(...items.map(option));
+    }
+    const names = items.map((i) => i.name);
+    select.value = names.includes(previous) ? previous : names.includes(fallback) ? fallback : names[0] || '';
+  }
+
+  /** Any emitter may serve as the reference solar spectrum; none is chosen until the user picks one. */
+  function fillSolarPicker(items) {
+    const previous = dom.solar.value;
+    const none = document.createElement('option');
+    none.value = '';
+    none.textContent = 'none';
+    dom.solar.replaceChildren(none, ...items.map((item) => {
+      const o = document.createElement('option');
+      o.value = item.name;
+      o.textContent = item.name;
+      if (item.description) o.title = item.description;
+      return o;
+    }));
+    dom.solar.value = items.some((i) => i.name === previous) ? previous : '';
+  }
+
+  function describeChoices() {
+    const describe = (select, what) => {
+      // Descriptions come as sent, some cut short after a comma; end each with one full stop.
+      const text = (state.descriptions.get(`${select.id}:${select.value}`) || '').replace(/[\s.,;:]+$/, '');
+      return text ? `${what} ${select.value}: ${text}.` : '';
+    };
+    dom.emitterAbout.textContent = describe(dom.emitter, 'Source');
+    dom.responseAbout.textContent = describe(dom.response, 'Response');
+  }
+
+  async function loadCatalogues() {
+    const [emitters, responses] = await Promise.allSettled([api.listEmitters(), api.listResponses()]);
+    if (emitters.status === 'fulfilled' && Array.isArray(emitters.value?.emitters)) {
+      fillPicker(dom.emitter, emitters.value.emitters, DEFAULT_EMITTER);
+      fillSolarPicker(emitters.value.emitters);
+    } else if (emitters.status === 'rejected') {
+      ui.showProblem(emitters.reason, 'Loading the light sources');
+    }
+    if (responses.status === 'fulfilled' && Array.isArray(responses.value?.responses)) {
+      fillPicker(dom.response, responses.value.responses, DEFAULT_RESPONSE);
+    } else if (responses.status === 'rejected') {
+      ui.showProblem(responses.reason, 'Loading the response spectra');
+    }
+    describeChoices();
+  }
+
+  function sampleOption(sample) {
+    const o = document.createElement('option');
+    o.value = choiceValue(sample.id);
+    o.textContent = `${fmt.number(sample.thicknessMm)} mm ${sample.geometry || ''}`.trim();
+    return o;
+  }
+
+  // ---------- the table ----------
+
+  function row({ key, figure }, hazard, answer) {
+    const tr = document.createElement('tr');
+    tr.dataset.figure = key;
+    tr.dataset.name = figure.name;
+    const head = document.createElement('th');
+    head.scope = 'row';
+    head.textContent = fmt.figureLabel(figure, key, answer);
+    if (hazard) {
+      tr.classList.add('hazard');
+      const tag = document.createElement('span');
+      tag.className = 'hazard-tag';
+      tag.textContent = 'screening';
+      tag.title = answer.caution || FALLBACK_CAUTION;
+      head.append(' ', tag);
+      head.setAttribute('aria-describedby', 'figures-caution');
+    }
+    const value = document.createElement('td');
+    value.className = 'num value';
+    const note = document.createElement('td');
+    note.className = 'note';
+    note.textContent = figure.note || '';
+    const text = fmt.figureValue(figure, key);
+    if (text === null) {
+      tr.classList.add('unavailable');
+      value.textContent = 'not available';
+      value.title = figure.note || 'the server gave no value and no reason';
+      note.textContent = figure.note ? `Not available: ${figure.note}` : 'Not available (no reason given).';
+    } else {
+      value.textContent = text;
+      value.title = [fmt.boundMeaning(figure.bound), figure.note].filter(Boolean).join('; ');
+      if (figure.bound === 'at-most' || figure.bound === 'at-least') value.classList.add('bound');
+    }
+    tr.append(head, value, note);
+    return tr;
+  }
+
+  function render(answer, choice) {
+    const figures = collectFigures(answer);
+    const byGroup = new Map(GROUPS.map((g) => [g, []]));
+    for (const entry of figures) byGroup.get(groupOf(entry, answer.response)).push(entry);
+    const bodies = [];
+    for (const [group, entries] of byGroup) {
+      if (!entries.length) continue;
+      const body = document.createElement('tbody');
+      body.dataset.group = group.id;
+      const title = document.createElement('tr');
+      title.className = 'group';
+      const th = document.createElement('th');
+      th.scope = 'rowgroup';
+      th.colSpan = 3;
+      th.textContent = group.title;
+      title.append(th);
+      body.append(title, ...entries.map((e) => row(e, isHazard(e, answer.response), answer)));
+      bodies.push(body);
+    }
+    dom.table.querySelectorAll('tbody').forEach((b) => b.remove());
+    dom.table.append(...bodies);
+    dom.cautionText.textContent = answer.caution || FALLBACK_CAUTION;
+    dom.section.dataset.state = 'shown';
+    const thickness = Number.isFinite(answer.thicknessMm) ? `${fmt.number(answer.thicknessMm)} mm` : 'the sample';
+    const how = answer.rescaled ? ` (rescaled from the ${sampleThickness(choice)} sample)` : '';
+    dom.status.textContent = figures.length
+      ? `${figures.length} figure${figures.length === 1 ? '' : 's'} for ${thickness}${how}, ${answer.emitter || dom.emitter.value} × `
+        + `${answer.response || dom.response.value}.`
+      : 'The server sent no figures for this sample.';
+  }
+
+  function sampleThickness(choice) {
+    const sample = state.material?.samples.find((s) => String(s.id) === String(choice.sampleId));
+    return sample ? `${fmt.number(sample.thicknessMm)} mm` : 'measured';
+  }
+
+  function showNothing(reason, stateName) {
+    dom.table.querySelectorAll('tbody').forEach((b) => b.remove());
+    dom.section.dataset.state = stateName;
+    dom.status.textContent = reason;
+  }
+
+  // ---------- fetching: later answers win ----------
+
+  async function refresh() {
+    const choice = parseChoice(dom.sample.value);
+    if (!choice) {
+      state.request += 1;
+      showNothing('No sample to compute figures for.', 'empty');
+      return;
+    }
+    const request = ++state.request;
+    describeChoices();
+    dom.table.setAttribute('aria-busy', 'true');
+    dom.section.dataset.state = 'loading';
+    dom.status.textContent = 'Computing figures…';
+    try {
+      const answer = await api.getFigures(choice.sampleId, {
+        thicknessMm: choice.thicknessMm,
+        emitter: dom.emitter.value || DEFAULT_EMITTER,
+        response: dom.response.value || DEFAULT_RESPONSE,
+        convention: dom.convention.value || undefined,
+        solar: dom.solar.value || undefined,
+      });
+      if (request !== state.request) return;
+      if (ui.messageStartsWith(MESSAGE_CONTEXT)) ui.clearMessage();
+      render(answer, choice);
+    } catch (problem) {
+      if (request !== state.request) return;
+      showNothing(`No figures: ${problem.detail || problem.title || 'the server did not answer'}`, 'error');
+      ui.showProblem(problem, MESSAGE_CONTEXT);
+    } finally {
+      if (request === state.request) dom.table.removeAttribute('aria-busy');
+    }
+  }
+
+  for (const select of [dom.sample, dom.emitter, dom.response, dom.convention, dom.solar]) {
+    select.addEventListener('change', refresh);
+  }
+  const catalogues = loadCatalogues();
+
+  return {
+    /** A newly opened material: its samples in the picker, the first one chosen, figures fetched. */
+    async showMaterial(material) {
+      state.material = material;
+      dom.sample.replaceChildren(...(material.samples || []).map(sampleOption));
+      dom.sample.disabled = !material.samples?.length;
+      await catalogues; // the chosen emitter and response are known before the first fetch
+      if (state.material === material) await refresh();
+    },
+
+    /**
+     * The rescaled curve drawn in the chart ({ fromSample, thicknessMm }) or null when cleared: offered
+     * as a choice of its own and chosen, so the figures follow the thickness the user asked for.
+     */
+    async showRescaled(rescaled) {
+      const was = parseChoice(dom.sample.value);
+      dom.sample.querySelectorAll('option[data-rescaled]').forEach((o) => o.remove());
+      // Back to the sample it was rescaled from, not whichever option happens to come first.
+      if (was) dom.sample.value = choiceValue(was.sampleId);
+      if (rescaled) {
+        const o = document.createElement('option');
+        o.value = choiceValue(rescaled.fromSample.id, rescaled.thicknessMm);
+        o.dataset.rescaled = 'true';
+        o.textContent = `rescaled to ${fmt.number(rescaled.thicknessMm)} mm (from ${fmt.number(rescaled.fromSample.thicknessMm)} mm)`;
+        dom.sample.append(o);
+        dom.sample.value = o.value;
+      } else if (!dom.sample.value && dom.sample.options.length) {
+        dom.sample.selectedIndex = 0;
+      }
+      await refresh();
+    },
+  };
+}
