@@ -273,6 +273,31 @@ class ReferenceSpectrumApiTest {
         assertThat(full).isLessThan(sum);
     }
 
+    /**
+     * The imported solar spectrum serves as the UPF's reference spectrum ({@code solar=}). A flat T gives
+     * UPF = 1/T for any E(λ) (reference sheet §2: T = 0.02 → 50), so a film stored with T = 2 % over
+     * 250–450 nm must give 50 under G173 global.
+     */
+    @Test
+    void anImportedSolarSpectrumServesAsTheUpfReference() throws Exception {
+        Path g173 = referenceFile("astm-g173-pvlib/ASTMG173.csv");
+        importFile("emitters", g173, "solar-global-upf", Optional.of("global"), 201);
+        StringBuilder flat = new StringBuilder("wavelength_nm,transmittance\n");
+        for (int nm = 250; nm <= 450; nm += 10) {
+            flat.append(nm).append(",0.02\n");
+        }
+        HttpResponse<String> stored = Multipart.file("grey-film.csv", flat.toString())
+                .field("materialName", "Illustrative flat grey film").field("materialClass", "film")
+                .field("scaling", "fixed").field("thicknessMm", 0.1).post(port, "/api/imports");
+        assertThat(stored.statusCode()).as(stored.body()).isEqualTo(201);
+        long id = JSON.readTree(stored.body()).path("sampleId").asLong();
+
+        JsonNode f = getJson("/api/samples/" + id + "/figures?solar=solar-global-upf", 200);
+
+        assertThat(f.path("solar").asString()).isEqualTo("solar-global-upf");
+        assertThat(f.path("upf").path("value").asDouble()).isCloseTo(50.0, within(1e-9));
+    }
+
     // ---------------------------------------------------------------- refusals: 400 naming where, nothing stored
 
     @Test
