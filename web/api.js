@@ -132,3 +132,13 @@ export function getFigures(sampleId, { thicknessMm, emitter, response, conventio
     thicknessMm, emitter, response, convention, solar,
   })}`);
 }
+
+/** Imports a source (kind "emitters") or response ("responses") spectrum from a file; answers the stored spectrum. */
+export function importSpectrum(kind, { name, file, valueColumn, description }) {
+  const form = new FormData();
+  form.set('name', name);
+  form.set('file', file, file.name);
+  if (valueColumn) form.set('valueColumn', valueColumn);
+  if (description) form.set('description', description);
+  return getJson(`${BASE}/${encodeURIComponent(kind)}`, { method: 'POST', body: form });
+}

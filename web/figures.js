@@ -301,6 +301,43 @@ export function initFigures(ui) {
     }
   }
 
+  // ---------- importing a spectrum of one's own ----------
+
+  async function importSpectrum() {
+    const form = el('spectrum-import-form');
+    const status = el('spectrum-import-status');
+    const kind = el('spectrum-kind').value;
+    const file = el('spectrum-file').files[0];
+    const name = el('spectrum-name').value.trim();
+    if (!name || !file) {
+      status.textContent = !name ? 'Give the spectrum a name (lower-case letters, digits, - . _).'
+        : 'Choose the file to import.';
+      return;
+    }
+    status.textContent = `Importing ${file.name}…`;
+    try {
+      const stored = await api.importSpectrum(kind, {
+        name,
+        file,
+        valueColumn: el('spectrum-value-column').value.trim(),
+        description: el('spectrum-description').value.trim(),
+      });
+      const range = Array.isArray(stored.rangeNm) ? `, ${fmt.number(stored.rangeNm[0])}–${fmt.number(stored.rangeNm[1])} nm` : '';
+      const warnings = (stored.warnings || []).length ? ` Warnings: ${stored.warnings.join('; ')}` : '';
+      status.textContent = `Imported ${kind === 'emitters' ? 'source' : 'response'} ${stored.name}`
+        + ` (${stored.points} points${range}).${warnings}`;
+      form.reset();
+      el('spectrum-kind').value = kind;
+      await loadCatalogues();
+      (kind === 'emitters' ? dom.emitter : dom.response).value = stored.name;
+      await refresh();
+    } catch (problem) {
+      status.textContent = `Not imported: ${problem.detail || problem.title || 'the server did not answer'}`;
+    }
+  }
+
+  el('spectrum-import-form').addEventListener('submit', importSpectrum);
+
   for (const select of [dom.sample, dom.emitter, dom.response, dom.convention, dom.solar]) {
     select.addEventListener('change', refresh);
   }

@@ -37,20 +37,27 @@ class WeightingController {
         this.spectra = spectra;
     }
 
+    /** origin: "built-in" (a catalogue spectrum) or "imported" (see ReferenceSpectrumController). */
     record EmitterJson(String name, String kind, Map<String, Double> parameters, double[] rangeNm,
-            double integrationStepNm, String description) {
+            double integrationStepNm, String description, String origin) {
 
         static EmitterJson of(Emitter e) {
             return new EmitterJson(e.name(), e.kind(), e.parameters(), new double[] {e.minNm(), e.maxNm()},
-                    e.stepNm(), e.description());
+                    e.stepNm(), e.description(), originOf(SpectrumLookup.builtIn().emitter(e.name()).isPresent()));
         }
     }
 
-    record ResponseJson(String name, double[] rangeNm, String description) {
+    record ResponseJson(String name, double[] rangeNm, String description, String origin) {
 
         static ResponseJson of(Response r) {
-            return new ResponseJson(r.name(), new double[] {r.minNm(), r.maxNm()}, r.description());
+            return new ResponseJson(r.name(), new double[] {r.minNm(), r.maxNm()}, r.description(),
+                    originOf(SpectrumLookup.builtIn().response(r.name()).isPresent()));
         }
+    }
+
+    /** Imported spectra never take a built-in name, so the name tells the origin. */
+    static String originOf(boolean builtIn) {
+        return builtIn ? "built-in" : "imported";
     }
 
     record EmittersJson(List<EmitterJson> emitters, String caution) {

@@ -1,5 +1,5 @@
 /**
- * The command line of the same jar: {@code search}, {@code export} and {@code materials}, each a picocli
+ * The command line of the same jar: {@code search}, {@code export}, {@code materials}, {@code import} and {@code import-spectrum}, each a picocli
  * command that starts the Spring context without a web server, uses the same beans as the HTTP API and
  * prints plain text (or the API's JSON) on stdout and diagnostics on stderr.
  *

@@ -63,7 +63,7 @@ public final class FileImport {
      */
     public FilePreview read(String fileName, byte[] bytes, ImportOptions options) throws ImportException {
         List<String> warnings = new ArrayList<>();
-        String text = decode(fileName, bytes, warnings);
+        String text = decodeText(fileName, bytes, warnings);
         ImportFormat format = options.format().orElseGet(() -> detect(fileName, text));
         try {
             return switch (format) {
@@ -131,7 +131,11 @@ public final class FileImport {
         return false;
     }
 
-    private static String decode(String fileName, byte[] bytes, List<String> warnings) throws ImportException {
+    /**
+     * The file's text: strict UTF-8, else Latin-1 with a warning added to {@code warnings}; refused when
+     * empty or holding a NUL byte (binary). Shared with the import of reference spectra.
+     */
+    public static String decodeText(String fileName, byte[] bytes, List<String> warnings) throws ImportException {
         if (bytes.length == 0) {
             throw ImportException.ofSource(fileName, "the file is empty");
         }

@@ -171,7 +171,7 @@ public final class ImportService {
     }
 
     /** The last path segment of an upload name, as browsers on some systems send the whole path. */
-    static String cleanName(String fileName) {
+    public static String cleanName(String fileName) {
         String name = fileName == null ? "" : fileName.strip();
         name = name.substring(Math.max(name.lastIndexOf('/'), name.lastIndexOf('\\')) + 1);
         name = name.replaceAll("\\p{Cntrl}", "");

@@ -5,20 +5,21 @@ import java.nio.ByteOrder;
 
 /**
  * Curves are stored as packed little-endian float64 arrays rather than one row per point: a 5,000-point
- * curve is one 40 kB value that round-trips bit-exact and loads in a single read.
+ * curve is one 40 kB value that round-trips bit-exact and loads in a single read. Public because the
+ * imported reference spectra ({@code spectra}) are stored the same way.
  */
-final class PackedArrays {
+public final class PackedArrays {
 
     private PackedArrays() {
     }
 
-    static byte[] pack(double[] values) {
+    public static byte[] pack(double[] values) {
         ByteBuffer buffer = ByteBuffer.allocate(values.length * Double.BYTES).order(ByteOrder.LITTLE_ENDIAN);
         buffer.asDoubleBuffer().put(values);
         return buffer.array();
     }
 
-    static double[] unpackDoubles(byte[] bytes, int expectedCount, String column) {
+    public static double[] unpackDoubles(byte[] bytes, int expectedCount, String column) {
         if (bytes.length != expectedCount * Double.BYTES) {
             throw new IllegalStateException("column " + column + " holds " + bytes.length + " bytes, expected "
                     + expectedCount * Double.BYTES + " for " + expectedCount + " points");
@@ -28,7 +29,7 @@ final class PackedArrays {
         return values;
     }
 
-    static byte[] pack(boolean[] flags) {
+    public static byte[] pack(boolean[] flags) {
         byte[] bytes = new byte[flags.length];
         for (int i = 0; i < flags.length; i++) {
             bytes[i] = (byte) (flags[i] ? 1 : 0);
@@ -36,7 +37,7 @@ final class PackedArrays {
         return bytes;
     }
 
-    static boolean[] unpackFlags(byte[] bytes, int expectedCount, String column) {
+    public static boolean[] unpackFlags(byte[] bytes, int expectedCount, String column) {
         if (bytes.length != expectedCount) {
             throw new IllegalStateException("column " + column + " holds " + bytes.length + " flags, expected " + expectedCount);
         }

@@ -13,6 +13,7 @@ import java.net.http.HttpRequest;
 import java.net.http.HttpResponse;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
+import java.nio.file.Path;
 import java.time.Duration;
 import org.junit.jupiter.api.AfterAll;
 import org.junit.jupiter.api.BeforeAll;
@@ -161,6 +162,47 @@ class WeightedFiguresBrowserTest {
         WebElement uvbRow = driver.findElement(By.cssSelector("#figures-table tr[data-name='" + uvbName + "']"));
         assertThat(uvbRow.findElement(By.cssSelector("td.value")).getText()).isEqualTo(fractionAsShown(dermatologyUvb));
         assertNoMessage();
+    }
+
+    @Test
+    void aResponseImportedThroughThePageIsChosenAndGivesTheApisFigureAndABadFileIsRefusedWithItsLine()
+            throws Exception {
+        // A flat weight over 300-400 nm: its effective transmittance is the mean T over 300-400 nm, which
+        // the API computes the same way for the imported name (flat-T identity, ISO/CIE 17166 form of the
+        // weighted ratio; here only the page's wiring is under test, so the API is the reference).
+        Path good = Files.createTempFile("flat-300-400", ".csv");
+        StringBuilder csv = new StringBuilder("wavelength_nm,weight\n");
+        for (int nm = 300; nm <= 400; nm += 10) {
+            csv.append(nm).append(",1\n");
+        }
+        Files.writeString(good, csv.toString());
+        Path bad = Files.createTempFile("negative-weight", ".csv");
+        Files.writeString(bad, "wavelength_nm,weight\n300,1\n310,-2\n320,1\n");
+        JsonNode material = material(UV_TRANSMITTING);
+        long sampleId = material.path("samples").get(0).path("id").asLong();
+
+        loadPage();
+        openMaterial(UV_TRANSMITTING);
+        waitForStatus("flat × erythema");
+        driver.findElement(By.cssSelector("#spectrum-import summary")).click();
+        new Select(driver.findElement(By.id("spectrum-kind"))).selectByValue("responses");
+        driver.findElement(By.id("spectrum-name")).sendKeys("page-flat-300-400");
+        driver.findElement(By.id("spectrum-file")).sendKeys(good.toAbsolutePath().toString());
+        driver.findElement(By.id("spectrum-import-button")).click();
+        waitForStatus("flat × page-flat-300-400");
+        assertThat(driver.findElement(By.id("spectrum-import-status")).getText())
+                .startsWith("Imported response page-flat-300-400 (11 points");
+        JsonNode answer = figures(sampleId, "emitter=flat&response=page-flat-300-400");
+        assertThat(shownValue("effectiveTransmittance")).isEqualTo(fractionAsShown(answer.path("effectiveTransmittance")));
+
+        new Select(driver.findElement(By.id("spectrum-kind"))).selectByValue("responses");
+        driver.findElement(By.id("spectrum-name")).sendKeys("page-negative");
+        driver.findElement(By.id("spectrum-file")).sendKeys(bad.toAbsolutePath().toString());
+        driver.findElement(By.id("spectrum-import-button")).click();
+        WebElement status = driver.findElement(By.id("spectrum-import-status"));
+        wait.until(d -> status.getText().startsWith("Not imported:"));
+        assertThat(status.getText()).contains("3").containsIgnoringCase("negative");
+        assertThat(getJson("/api/responses").toString()).doesNotContain("page-negative");
     }
 
     @Test

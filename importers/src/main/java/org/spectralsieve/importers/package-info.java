@@ -27,6 +27,10 @@
  *       T = ((S − D)/t_S)/((R − D)/t_R), each dark at its capture's exposure; per-point detection limit
  *       3σ_dark/(R − D) scaled for exposure and scans, or the stray-light floor when larger; saturated
  *       points excluded; several exposures combined point by point (see {@code RawTransmittance});</li>
+ *   <li>relative spectra ({@link org.spectralsieve.importers.DelimitedValuesReader}, {@code
+ *       JcampReader.readValues} → {@link org.spectralsieve.importers.SpectrumValues}): a source's power or
+ *       a response's weights, the same layouts and x units as above, values kept as written (no percent
+ *       guess, no absorbance conversion), negative values and all-zero spectra refused;</li>
  *   <li>datasheet points ({@link org.spectralsieve.importers.DatasheetPointsReader}): sparse points read
  *       off a graph, stored as given, provenance "datasheet"; the backend interpolates them in absorbance.</li>
  * </ul>

@@ -46,6 +46,44 @@ class FuzzedInputTest {
         assertThat(refused).isPositive();
     }
 
+    private static final String[] VALID_SPECTRA = {
+        "# source: illustrative bench lamp\nwavelength_nm,relative power\n360,0.25\n365,1\n370,0.125\n",
+        "title line,,,\nwavelength,extraterrestrial,global,direct\n280,0.08,4.7E-23,2.5E-26\n280.5,0.09,1.2E-21,1.1E-24\n",
+        "Wavelength (um);Sensitivity\n0,35;0,5\n0,40;1,5\n",
+        "400\t10\n410\t30\n420\t5\n",
+    };
+    private static final SpectrumValuesOptions[] VALUE_OPTIONS = {SpectrumValuesOptions.defaults(),
+        SpectrumValuesOptions.defaults().valueColumn("global").mergeDuplicates(true),
+        SpectrumValuesOptions.defaults().valueColumn("2").xUnit(XUnit.MICROMETRE)};
+
+    /** The same mutations through the relative-spectrum reader: values with all invariants, or an ImportException. */
+    @Test
+    void fiveThousandMutationsOfSpectrumFilesYieldValuesOrAnImportException() {
+        Random random = new Random(737373L);
+        DelimitedValuesReader reader = new DelimitedValuesReader();
+        int parsed = 0;
+        int refused = 0;
+        for (int k = 0; k < 5_000; k++) {
+            String text = mutate(VALID_SPECTRA[random.nextInt(VALID_SPECTRA.length)], random);
+            try {
+                SpectrumValues v = reader.read("fuzz.csv", new StringReader(text), VALUE_OPTIONS[k % VALUE_OPTIONS.length]);
+                double[] nm = v.wavelengthsNm();
+                for (int i = 0; i < nm.length; i++) {
+                    assertThat(v.values()[i]).isNotNegative();
+                    assertThat(i == 0 || nm[i] > nm[i - 1]).isTrue();
+                }
+                parsed++;
+            } catch (ImportException e) {
+                assertThat(e.getMessage()).startsWith("fuzz.csv");
+                refused++;
+            } catch (RuntimeException e) {
+                fail("mutation " + k + " threw " + e + " for input:\n" + text, e);
+            }
+        }
+        assertThat(parsed).isPositive();
+        assertThat(refused).isPositive();
+    }
+
     private static String mutate(String valid, Random random) {
         String text = valid;
         int steps = 1 + random.nextInt(3);

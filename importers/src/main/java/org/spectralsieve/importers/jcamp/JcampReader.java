@@ -17,6 +17,8 @@ import java.util.Optional;
 import org.spectralsieve.importers.ImportException;
 import org.spectralsieve.importers.ParsedSpectrum;
 import org.spectralsieve.importers.ReadOptions;
+import org.spectralsieve.importers.SpectrumValues;
+import org.spectralsieve.importers.SpectrumValuesOptions;
 import org.spectralsieve.importers.XUnit;
 import org.spectralsieve.importers.YKind;
 
@@ -60,6 +62,20 @@ public final class JcampReader {
     public ParsedSpectrum read(String sourceName, Reader in, JcampOptions options) throws ImportException {
         List<JcampBlock> blocks = blocks(sourceName, in);
         return new SpectrumBuilder(sourceName, pick(sourceName, blocks, options), options.read()).build();
+    }
+
+    /**
+     * Reads one block as relative values (a source's power, a response's weights) instead of a
+     * transmittance: x units as for {@link #read}, {@code ##YUNITS=} recorded but not interpreted, values
+     * kept as written (no percent guess, absorbance not converted). A missing {@code ##XUNITS=} is allowed
+     * when the options give the x unit. Points flagged below detection are refused: a bound is no weight.
+     */
+    public SpectrumValues readValues(String sourceName, Reader in, SpectrumValuesOptions options)
+            throws ImportException {
+        List<JcampBlock> blocks = blocks(sourceName, in);
+        JcampOptions choice = options.jcampBlock().isPresent()
+                ? JcampOptions.defaults().withBlock(options.jcampBlock().getAsInt()) : JcampOptions.defaults();
+        return new SpectrumBuilder(sourceName, pick(sourceName, blocks, choice), choice.read()).buildValues(options);
     }
 
     /** Every block of the file in order (for LINK files), each decoded and checked against its header. */
@@ -152,9 +168,72 @@ public final class JcampReader {
             warnings.addAll(block.warnings());
             XUnit xUnit = xUnit();
             YKind yKind = yKind();
-            double[] x = block.x();
+            double[] x = nanometres(xUnit);
             double[] y = block.y();
             boolean[] bounds = block.upperBounds();
+            if (checkMonotonic(x) < 0) {
+                reverse(x);
+                reverse(y);
+                reverse(bounds);
+            }
+            warnAboutRanges(xUnit, yKind, block.x(), y);
+            try {
+                return ParsedSpectrum.of(source, x, y, bounds, yKind, xUnit, metadata(), warnings);
+            } catch (IllegalArgumentException e) {
+                throw new ImportException(source, block.startLine(), block.dataLabel(), e.getMessage(), e);
+            }
+        }
+
+        SpectrumValues buildValues(SpectrumValuesOptions options) throws ImportException {
+            warnings.addAll(block.warnings());
+            XUnit xUnit = valuesXUnit(options);
+            double[] x = nanometres(xUnit);
+            double[] y = block.y();
+            int[] lines = new int[x.length];
+            for (int i = 0; i < lines.length; i++) {
+                lines[i] = block.pointLine(i);
+            }
+            boolean[] bounds = block.upperBounds();
+            for (int i = 0; i < bounds.length; i++) {
+                if (bounds[i]) {
+                    throw new ImportException(source, lines[i], Labels.field(Labels.BELOW_DETECTION_AS_WRITTEN),
+                            "point " + i + " is marked below detection (an upper bound of a transmittance); a"
+                                    + " relative power or weight must be a plain value");
+                }
+            }
+            if (checkMonotonic(x) < 0) {
+                reverse(x);
+                reverse(y);
+                reverse(lines);
+            }
+            Optional<Ldr> yUnits = block.ldr(Labels.YUNITS);
+            yUnits.filter(u -> JcampUnits.yKind(u.value()).isPresent()).ifPresent(u -> warnings.add("YUNITS="
+                    + u.value() + ": the ordinates are read as relative values exactly as written; absorbance is"
+                    + " not converted to transmittance, percent is not divided by 100"));
+            if (options.valueColumn().isPresent()) {
+                warnings.add("value column '" + options.valueColumn().get() + "' ignored: a JCAMP-DX block has one"
+                        + " ordinate");
+            }
+            String field = block.dataLabel();
+            return SpectrumValues.of(source, x, y, lines, xUnit, field, metadata(), warnings);
+        }
+
+        /** The forced unit wins (with a note when XUNITS says otherwise); without either, refused. */
+        private XUnit valuesXUnit(SpectrumValuesOptions options) throws ImportException {
+            Optional<Ldr> l = block.ldr(Labels.XUNITS);
+            if (options.xUnit().isEmpty() || l.isEmpty()) {
+                return options.xUnit().isPresent() ? options.xUnit().get() : xUnit();
+            }
+            Optional<XUnit> declared = JcampUnits.xUnit(l.get().value());
+            if (declared.isEmpty() || declared.get() != options.xUnit().get()) {
+                warnings.add("XUNITS=" + l.get().value() + " overridden: x read in " + options.xUnit().get());
+            }
+            return options.xUnit().get();
+        }
+
+        /** x converted to nm; at least two points, each a positive wavelength. */
+        private double[] nanometres(XUnit xUnit) throws ImportException {
+            double[] x = block.x();
             for (int i = 0; i < x.length; i++) {
                 double nm = xUnit.toNanometres(x[i]);
                 if (!(Double.isFinite(nm) && nm > 0)) {
@@ -167,17 +246,7 @@ public final class JcampReader {
                 throw new ImportException(source, block.pointLine(0), block.dataLabel(), "only " + x.length
                         + " point; a curve needs at least " + ParsedSpectrum.MIN_POINTS);
             }
-            if (checkMonotonic(x) < 0) {
-                reverse(x);
-                reverse(y);
-                reverse(bounds);
-            }
-            warnAboutRanges(xUnit, yKind, block.x(), y);
-            try {
-                return ParsedSpectrum.of(source, x, y, bounds, yKind, xUnit, metadata(), warnings);
-            } catch (IllegalArgumentException e) {
-                throw new ImportException(source, block.startLine(), block.dataLabel(), e.getMessage(), e);
-            }
+            return x;
         }
 
         private XUnit xUnit() throws ImportException {
@@ -260,6 +329,14 @@ public final class JcampReader {
         private static void reverse(double[] a) {
             for (int i = 0, j = a.length - 1; i < j; i++, j--) {
                 double t = a[i];
+                a[i] = a[j];
+                a[j] = t;
+            }
+        }
+
+        private static void reverse(int[] a) {
+            for (int i = 0, j = a.length - 1; i < j; i++, j--) {
+                int t = a[i];
                 a[i] = a[j];
                 a[j] = t;
             }

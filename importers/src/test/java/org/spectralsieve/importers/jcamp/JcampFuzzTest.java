@@ -49,6 +49,33 @@ class JcampFuzzTest {
         assertThat(refusals).isPositive();
     }
 
+    /** The same mutations read as relative values (readValues): values or an ImportException, nothing else. */
+    @Test
+    void mutatedFilesGiveValuesOrAnImportExceptionOnly() {
+        List<String> seeds = List.of(asdfSeed(), writerSeed());
+        Random random = new Random(43L);
+        int values = 0;
+        int refusals = 0;
+        for (int i = 0; i < MUTATIONS; i++) {
+            String mutated = mutate(seeds.get(i % seeds.size()), random);
+            try {
+                new JcampReader().readValues(Jdx.SOURCE, new java.io.StringReader(mutated),
+                        org.spectralsieve.importers.SpectrumValuesOptions.defaults());
+                values++;
+            } catch (ImportException expected) {
+                assertThat(expected.getMessage()).startsWith(Jdx.SOURCE);
+                if (expected.getCause() instanceof RuntimeException slipped) {
+                    fail("mutation " + i + " reached the guard with " + slipped + " for:\n" + mutated, slipped);
+                }
+                refusals++;
+            } catch (RuntimeException | StackOverflowError | OutOfMemoryError e) {
+                fail("mutation " + i + " threw " + e + " for:\n" + mutated, e);
+            }
+        }
+        assertThat(values).isPositive();
+        assertThat(refusals).isPositive();
+    }
+
     @Test
     void bothSeedsAreValid() throws ImportException {
         // asdfSeed worked by hand: line 1 gives 10, 21, 43 … 505 (10 points); line 2 checks 505 and falls to
