@@ -265,6 +265,27 @@ class SearchApiTest {
         assertThat(fromJson.path("layer").path("sampleId").asLong()).isEqualTo(fromText.path("layer").path("sampleId").asLong());
     }
 
+    @Test
+    void anImportedResponseCanBeNamedInARequirement() throws Exception {
+        // an illustrative photoinitiator absorbance, imported as a response; names resolve through the application's
+        // lookup, so the requirement reads it like a built-in one
+        HttpResponse<String> imported = Multipart.file("initiator.csv", "# source: illustrative datasheet graph\n"
+                + "wavelength_nm,absorbance\n360,0.3\n380,1\n400,0.6\n420,0.05\n")
+                .field("name", "cure-initiator").post(port, "/api/responses");
+        assertThat(imported.statusCode()).as(imported.body()).isEqualTo(201);
+
+        JsonNode answer = search("passes over 80% of led 395 weighted by cure initiator, thickness 1 to 6 mm", 5);
+
+        JsonNode clause = answer.path("requirement").path("clauses").get(0);
+        assertThat(clause.path("response").asString()).isEqualTo("cure-initiator");
+        // the range integrated: the response's 360–420 nm within the LED's 359–431 nm
+        assertThat(clause.path("rangeNm").get(0).asDouble()).isEqualTo(360);
+        assertThat(clause.path("rangeNm").get(1).asDouble()).isEqualTo(420);
+        assertThat(answer.path("results").get(0).path("verdict").asString()).isEqualTo("meets");
+        assertThat(answer.path("results").get(0).path("clauses").get(0).path("explanation").asString())
+                .contains("weighted by cure-initiator");
+    }
+
     /** Checks one structured clause against a curve with plain loops and absorbance interpolation. */
     private static boolean holds(JsonNode clause, JsonNode curve) {
         double from = clause.path("fromNm").asDouble();
