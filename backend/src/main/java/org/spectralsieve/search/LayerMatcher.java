@@ -22,7 +22,9 @@ import org.spectralsieve.requirement.FixedLayer;
  *   <li>else one whose name equals them, ignoring case and punctuation;</li>
  *   <li>else the materials whose name words or slug words include every one of the words, keeping those
  *       with the fewest extra words (counted on the name or the slug, whichever has fewer). One left: that
- *       material; several: ambiguous, the choices are listed and a slug is asked for; none: unknown, the
+ *       material; several: the one whose extra slug words only say "the ordinary kind" ("clear", "plain",
+ *       "standard"…), so "float glass" is clear-float-glass rather than weathered-float-glass; if that does
+ *       not single one out, ambiguous: the choices are listed and a slug is asked for; none: unknown, the
  *       materials with the most of the words, typing slips allowed, are suggested.</li>
  * </ol>
  * Words are lower-case runs of letters and digits ("Low-E coated float glass" → low, e, coated, float,
@@ -40,6 +42,9 @@ final class LayerMatcher {
 
     private static final Pattern NOT_WORD = Pattern.compile("[^\\p{L}\\p{N}]+");
     private static final int SUGGESTED = 5;
+
+    /** Words that mark the ordinary, unmodified kind of a stock (common practice, no source). */
+    private static final Set<String> PLAIN_QUALIFIERS = Set.of("clear", "plain", "standard", "ordinary", "general");
 
     /** The resolved material and the sample to use. */
     record Match(Material material, SampleInfo sample) {
@@ -82,6 +87,10 @@ final class LayerMatcher {
         if (best.size() == 1) {
             return best.get(0);
         }
+        List<Material> plain = best.stream().filter(m -> onlyPlainQualifiers(need, m)).toList();
+        if (plain.size() == 1) {
+            return plain.get(0);
+        }
         if (best.isEmpty()) {
             List<Material> near = closest(need, materials);
             throw new LayerResolutionException(LayerResolutionException.Reason.UNKNOWN, words,
@@ -93,6 +102,17 @@ final class LayerMatcher {
         throw new LayerResolutionException(LayerResolutionException.Reason.AMBIGUOUS, words,
                 "the layer '" + words + "' matches " + best.size() + " materials equally well: " + slugs(best)
                         + "; write the slug of the one you mean", best.stream().map(LayerMatcher::choice).toList());
+    }
+
+    /**
+     * Whether the slug's words beyond the needed ones only say "the ordinary kind" ("clear float glass" for
+     * "float glass"), so that among equally close materials the unmodified stock is the one meant, not the
+     * weathered, tinted or coated variant. The answer names the material used either way.
+     */
+    private static boolean onlyPlainQualifiers(Set<String> need, Material m) {
+        Set<String> extra = new LinkedHashSet<>(Arrays.asList(m.slug().toLowerCase(Locale.ROOT).split("-")));
+        extra.removeAll(need);
+        return PLAIN_QUALIFIERS.containsAll(extra) && !extra.isEmpty();
     }
 
     /** Extra words beyond the needed ones, on the name or the slug, whichever has fewer; MAX_VALUE when neither has them all. */

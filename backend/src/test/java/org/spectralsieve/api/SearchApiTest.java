@@ -178,7 +178,8 @@ class SearchApiTest {
 
     @Test
     void aLayerNamingSeveralMaterialsIsA400ListingThemAndAskingForASlug() throws Exception {
-        HttpResponse<String> response = send("/api/search", body("blocks under 1% at 405 nm, behind 4 mm float glass", 5));
+        // "glass" alone: clear float, weathered float and dense flint glass are equally close, none plain stock
+        HttpResponse<String> response = send("/api/search", body("blocks under 1% at 405 nm, behind 4 mm glass", 5));
         JsonNode problem = JSON.readTree(response.body());
 
         assertThat(response.statusCode()).isEqualTo(400);
@@ -188,7 +189,16 @@ class SearchApiTest {
         problem.path("choices").forEach(c -> slugs.add(c.path("slug").asString()));
         assertThat(slugs).contains("clear-float-glass", "weathered-float-glass");
         assertThat(problem.path("position").asInt()).isEqualTo(39);
-        assertThat(problem.path("length").asInt()).isEqualTo("float glass".length());
+        assertThat(problem.path("length").asInt()).isEqualTo("glass".length());
+    }
+
+    @Test
+    void theIssuesOwnWordingFloatGlassMeansTheOrdinaryClearFloatGlass() throws Exception {
+        JsonNode answer = search("blocks under 1% at 405 nm and luminous over 70%, behind 4 mm float glass", 5);
+        JsonNode plain = search("blocks under 1% at 405 nm and luminous over 70%, behind 4 mm clear-float-glass", 5);
+        assertThat(answer.path("layer").path("materialSlug").asString()).isEqualTo("clear-float-glass");
+        assertThat(answer.path("results").size()).isPositive();
+        assertThat(answer.path("results").toString()).isEqualTo(plain.path("results").toString());
     }
 
     @Test

@@ -117,7 +117,7 @@ class SieveCliTest {
 
     @Test
     void anAmbiguousLayerExitsTwoListingTheChoices() {
-        Run run = cli("search", "blocks under 1% at 405 nm, behind 4 mm float glass");
+        Run run = cli("search", "blocks under 1% at 405 nm, behind 4 mm glass");
 
         assertThat(run.exitCode()).isEqualTo(SieveCli.USAGE);
         assertThat(run.err()).contains("layer not resolved").contains("write the slug")

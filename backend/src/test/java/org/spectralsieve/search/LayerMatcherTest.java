@@ -57,10 +57,18 @@ class LayerMatcherTest {
     }
 
     @Test
+    void aTieGoesToTheOrdinaryStockWhenOnlyItsExtraWordSaysSo() {
+        // "float glass": clear-float-glass and weathered-float-glass both have one extra slug word; "clear"
+        // only names the ordinary kind, "weathered" a variant (common practice, no source)
+        assertThat(LayerMatcher.material("float glass", LIBRARY).id()).isEqualTo(1);
+    }
+
+    @Test
     void aTieIsAmbiguousAndListsTheChoices() {
-        // "float glass": clear-float-glass and weathered-float-glass both have one extra slug word
+        // "glass": clear-float-glass and weathered-float-glass both have two extra slug words, and "float"
+        // is not a word of the ordinary kind, so neither is preferred
         LayerResolutionException e = catchThrowableOfType(LayerResolutionException.class,
-                () -> LayerMatcher.material("float glass", LIBRARY));
+                () -> LayerMatcher.material("glass", LIBRARY));
         assertThat(e.reason()).isEqualTo(LayerResolutionException.Reason.AMBIGUOUS);
         assertThat(e.choices()).extracting(LayerResolutionException.Choice::slug)
                 .containsExactly("clear-float-glass", "weathered-float-glass");
