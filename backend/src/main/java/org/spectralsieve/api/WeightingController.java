@@ -9,11 +9,11 @@ import org.spectralsieve.library.SampleCurve;
 import org.spectralsieve.library.SampleCurves;
 import org.spectralsieve.weighting.Emitter;
 import org.spectralsieve.weighting.Figure;
-import org.spectralsieve.weighting.LuminousTransmittance;
+import org.spectralsieve.weighting.FigureSheet;
+import org.spectralsieve.weighting.SafetyCaution;
 import org.spectralsieve.weighting.Response;
 import org.spectralsieve.weighting.SpectrumLookup;
 import org.spectralsieve.weighting.SunglassCategory;
-import org.spectralsieve.weighting.UltravioletProtectionFactor;
 import org.spectralsieve.weighting.UvBand;
 import org.spectralsieve.weighting.WeightedFigures;
 import org.springframework.web.bind.annotation.GetMapping;
@@ -26,8 +26,7 @@ import org.springframework.web.bind.annotation.RestController;
 class WeightingController {
 
     /** Carried by every answer here: these numbers screen materials, they do not certify equipment. */
-    static final String CAUTION = "Screening estimate from stored curves, not a certification of protective "
-            + "equipment; applicable standards, local codes and a qualified safety professional decide.";
+    static final String CAUTION = SafetyCaution.TEXT;
 
     private final SampleCurves curves;
     private final SpectrumLookup spectra;
@@ -134,17 +133,15 @@ class WeightingController {
                 new BadParameterException("solar", "unknown emitter '" + solarName + "' as reference solar spectrum;"
                         + " known: " + names(spectra.emitters().stream().map(Emitter::name).toList())));
         SampleCurve sample = curves.get(id, thicknessMm, null);
-        WeightedFigures.Report r = WeightedFigures.report(sample.curve(), emitter, response, convention);
-        Figure upf = solar == null ? UltravioletProtectionFactor.withoutSolarSpectrum()
-                : UltravioletProtectionFactor.of(sample.curve(), solar);
-        Figure luminous = LuminousTransmittance.of(sample.curve());
+        FigureSheet sheet = FigureSheet.of(sample.curve(), emitter, response, convention, solar);
+        WeightedFigures.Report r = sheet.report();
         return new FiguresJson(id, sample.thicknessMm(), sample.rescaled(), emitter.name(), response.name(),
                 solar == null ? null : solar.name(),
                 FigureJson.of(r.effectiveTransmittance()), FigureJson.of(r.protectionFactor()),
                 FigureJson.of(r.erythemalProtectionFactor()), FigureJson.of(r.actinicUvProtectionFactor()),
-                FigureJson.of(upf), convention.description(), FigureJson.all(r.bandMeans()),
+                FigureJson.of(sheet.upf()), convention.description(), FigureJson.all(r.bandMeans()),
                 FigureJson.of(r.criticalWavelength()), FigureJson.all(r.opticalDensities()),
-                FigureJson.of(luminous), SunglassCategoryJson.of(SunglassCategory.rate(luminous)), CAUTION);
+                FigureJson.of(sheet.luminousTransmittance()), SunglassCategoryJson.of(sheet.sunglassCategory()), CAUTION);
     }
 
     private static String names(List<String> names) {

@@ -11,10 +11,11 @@ import picocli.CommandLine.Command;
 /** The entry of the command line: parses the arguments, runs one command, returns its exit code. */
 @Command(name = "spectral-sieve", mixinStandardHelpOptions = true, scope = CommandLine.ScopeType.INHERIT,
         versionProvider = SieveCli.Version.class,
-        description = "Search the transmittance library by requirement, list its materials, export a curve, import files"
-                + " and emitter or response spectra.",
+        description = "Search the transmittance library by requirement, list its materials, export a curve, compute a"
+                + " sample's weighted figures, import files and emitter or response spectra.",
         subcommands = {SearchCommand.class, ExportCommand.class, MaterialsCommand.class, ImportCommand.class,
-                ImportSpectrumCommand.class, CommandLine.HelpCommand.class},
+                ImportSpectrumCommand.class, FiguresCommand.class,
+                CommandLine.HelpCommand.class},
         exitCodeListHeading = "%nExit codes:%n",
         exitCodeList = {
                 "0:done",
@@ -27,7 +28,7 @@ public final class SieveCli {
     public static final int USAGE = 2;
 
     /** First arguments that mean "run the command line" rather than "start the web service". */
-    private static final Set<String> ENTRY_WORDS = Set.of("search", "export", "materials", "import", "import-spectrum", "help",
+    private static final Set<String> ENTRY_WORDS = Set.of("search", "export", "materials", "import", "import-spectrum", "figures", "help",
             "--help", "-h", "--version", "-V");
 
     private SieveCli() {

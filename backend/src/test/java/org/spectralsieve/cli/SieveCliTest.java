@@ -159,6 +159,35 @@ class SieveCliTest {
     }
 
     @Test
+    void figuresPrintTheApisNumbersForTheChosenPairWithTheCaution() throws Exception {
+        long sampleId = JSON.readTree(cli("search", FUSED_SILICA_AT_254, "--limit", "1", "--json").out())
+                .path("results").get(0).path("sampleId").asLong();
+
+        Run run = cli("figures", "--sample", String.valueOf(sampleId), "--thickness-mm", "5",
+                "--emitter", "led-365", "--response", "flat", "--bands", "dermatology");
+
+        assertThat(run.exitCode()).as(run.err()).isZero();
+        JsonNode api = get("/api/samples/" + sampleId
+                + "/figures?thicknessMm=5&emitter=led-365&response=flat&convention=dermatology");
+        double effective = api.path("effectiveTransmittance").path("value").asDouble();
+        String expected = String.format(java.util.Locale.ROOT, "%.3g %%", 100 * effective);
+        assertThat(run.outLines()).anySatisfy(line -> assertThat(line).startsWith("effectiveTransmittance")
+                .contains(expected));
+        assertThat(run.out()).contains("meanTransmittanceUVB(290-320 nm)").contains("luminousTransmittance")
+                .contains("sunglassCategory").contains("(rescaled)");
+        assertThat(run.outLines().get(run.outLines().size() - 1)).startsWith("Caution: ").contains("not a certification");
+    }
+
+    @Test
+    void figuresWithAnUnknownResponseExitTwoListingTheKnownOnes() {
+        Run run = cli("figures", "--sample", "1", "--response", "erythemma");
+
+        assertThat(run.exitCode()).isEqualTo(SieveCli.USAGE);
+        assertThat(run.err()).contains("--response").contains("erythemma").contains("erythema");
+        assertThat(run.out()).isEmpty();
+    }
+
+    @Test
     void exportOfAnUnknownSampleExitsOneNamingIt() {
         Run run = cli("export", "--sample", "987654");
 

@@ -1,0 +1,131 @@
+package org.spectralsieve.cli;
+
+import java.util.Arrays;
+import java.util.List;
+import java.util.Locale;
+import java.util.concurrent.Callable;
+import org.spectralsieve.library.NotFoundException;
+import org.spectralsieve.library.NotRescalableException;
+import org.spectralsieve.library.SampleCurve;
+import org.spectralsieve.library.SampleCurves;
+import org.spectralsieve.weighting.Emitter;
+import org.spectralsieve.weighting.Figure;
+import org.spectralsieve.weighting.FigureSheet;
+import org.spectralsieve.weighting.Response;
+import org.spectralsieve.weighting.SafetyCaution;
+import org.spectralsieve.weighting.SpectrumLookup;
+import org.spectralsieve.weighting.SunglassCategory;
+import org.spectralsieve.weighting.UvBand;
+import org.springframework.context.ConfigurableApplicationContext;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
+import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.ParameterException;
+import picocli.CommandLine.Spec;
+
+/**
+ * {@code figures --sample ID}: the weighted figures of one sample (as measured or rescaled) for a source and
+ * a response, the same numbers as {@code GET /api/samples/{id}/figures}, as a table with the caution.
+ */
+@Command(name = "figures", description = "Weighted figures of one sample: effective transmittance for a source ×"
+        + " response, erythemal and UV-hazard protection factors, UPF under a named solar spectrum, luminous"
+        + " transmittance and filter category, UV band means, critical wavelength, OD at lamp lines.")
+final class FiguresCommand implements Callable<Integer> {
+
+    @Spec
+    CommandSpec spec;
+
+    @Mixin
+    DatabaseOption database;
+
+    @Option(names = "--sample", required = true, paramLabel = "ID", description = "Sample id (see search and materials).")
+    long sampleId;
+
+    @Option(names = "--thickness-mm", paramLabel = "MM", description = "Rescale to this thickness first (bulk materials only).")
+    Double thicknessMm;
+
+    @Option(names = "--emitter", defaultValue = "flat", paramLabel = "NAME",
+            description = "Source spectrum, built-in or imported (default: ${DEFAULT-VALUE}).")
+    String emitterName;
+
+    @Option(names = "--response", defaultValue = "erythema", paramLabel = "NAME",
+            description = "Response (weighting), built-in or imported (default: ${DEFAULT-VALUE}).")
+    String responseName;
+
+    @Option(names = "--bands", defaultValue = "cie", paramLabel = "CONVENTION",
+            description = "UV band limits: cie (280/315 nm) or dermatology (290/320 nm) (default: ${DEFAULT-VALUE}).")
+    String conventionName;
+
+    @Option(names = "--solar", paramLabel = "NAME", description = "Emitter to use as the reference solar spectrum for the UPF.")
+    String solarName;
+
+    @Override
+    public Integer call() {
+        if (thicknessMm != null && !(thicknessMm > 0 && thicknessMm <= SampleCurves.MAX_THICKNESS_MM)) {
+            throw new ParameterException(spec.commandLine(), "--thickness-mm must be above 0 and at most "
+                    + Numbers.mm(SampleCurves.MAX_THICKNESS_MM) + ", got " + thicknessMm);
+        }
+        UvBand.Convention convention = UvBand.Convention.named(conventionName).orElseThrow(() ->
+                new ParameterException(spec.commandLine(), "--bands: unknown convention '" + conventionName
+                        + "'; known: " + String.join(", ", Arrays.stream(UvBand.Convention.values())
+                                .map(UvBand.Convention::key).toList())));
+        SampleCurve sample;
+        FigureSheet sheet;
+        try (ConfigurableApplicationContext context = LibraryContext.start(database.url)) {
+            SpectrumLookup spectra = context.getBean(SpectrumLookup.class);
+            Emitter emitter = emitter(spectra, "--emitter", emitterName);
+            Response response = spectra.response(responseName).orElseThrow(() -> new ParameterException(
+                    spec.commandLine(), "--response: unknown response '" + responseName + "'; known: "
+                            + String.join(", ", spectra.responses().stream().map(Response::name).toList())));
+            Emitter solar = solarName == null ? null : emitter(spectra, "--solar", solarName);
+            sample = context.getBean(SampleCurves.class).get(sampleId, thicknessMm, null);
+            sheet = FigureSheet.of(sample.curve(), emitter, response, convention, solar);
+        } catch (NotFoundException | NotRescalableException e) {
+            throw new CliFailure(SieveCli.FAILED, e.getMessage());
+        }
+        print(sample, sheet);
+        return SieveCli.OK;
+    }
+
+    private Emitter emitter(SpectrumLookup spectra, String option, String name) {
+        return spectra.emitter(name).orElseThrow(() -> new ParameterException(spec.commandLine(), option
+                + ": unknown emitter '" + name + "'; known: "
+                + String.join(", ", spectra.emitters().stream().map(Emitter::name).toList())));
+    }
+
+    private void print(SampleCurve sample, FigureSheet sheet) {
+        var out = spec.commandLine().getOut();
+        out.println("Sample " + sampleId + " at " + Numbers.mm(sample.thicknessMm()) + " mm"
+                + (sample.rescaled() ? " (rescaled)" : " (as measured)") + ", " + emitterName + " × " + responseName);
+        TextTable table = new TextTable(List.of("figure", ">value", "how"));
+        for (Figure f : sheet.figures()) {
+            table.add(List.of(f.name(), value(f), f.note()));
+        }
+        SunglassCategory.Rating rating = sheet.sunglassCategory();
+        table.add(List.of("sunglassCategory", rating.category().map(c -> String.valueOf(c.number())).orElse("-"),
+                rating.note()));
+        table.print(out);
+        out.println("Caution: " + SafetyCaution.TEXT);
+        out.flush();
+    }
+
+    /** The value with its unit and bound ("≤ 34.5 %", "≥ 2.90", "383.8 nm", "OD ≥ 3.00"), or "not available". */
+    static String value(Figure f) {
+        if (!f.available()) {
+            return "not available";
+        }
+        double v = f.value().getAsDouble();
+        String sign = switch (f.bound()) {
+            case AT_MOST -> "≤ ";
+            case AT_LEAST -> "≥ ";
+            default -> "";
+        };
+        return switch (f.unit()) {
+            case "fraction" -> sign + String.format(Locale.ROOT, "%.3g %%", 100 * v);
+            case "nm" -> sign + String.format(Locale.ROOT, "%.1f nm", v);
+            case "OD" -> "OD " + sign + String.format(Locale.ROOT, "%.2f", v);
+            default -> sign + String.format(Locale.ROOT, "%.3g", v);
+        };
+    }
+}
