@@ -8,6 +8,7 @@ import java.util.stream.Collectors;
 import org.spectralsieve.library.SampleCurve;
 import org.spectralsieve.library.SampleCurves;
 import org.spectralsieve.weighting.Emitter;
+import org.spectralsieve.weighting.EmitterCatalogue;
 import org.spectralsieve.weighting.Figure;
 import org.spectralsieve.weighting.FigureSheet;
 import org.spectralsieve.weighting.SafetyCaution;
@@ -121,7 +122,7 @@ class WeightingController {
         }
         Emitter emitter = spectra.emitter(emitterName).orElseThrow(() -> new BadParameterException("emitter",
                 "unknown emitter '" + emitterName + "'; known: " + names(spectra.emitters().stream()
-                        .map(Emitter::name).toList())));
+                        .map(Emitter::name).toList()) + "; or describe one: " + EmitterCatalogue.PARAMETRIC_FORMS));
         Response response = spectra.response(responseName).orElseThrow(() -> new BadParameterException("response",
                 "unknown response '" + responseName + "'; known: " + names(spectra.responses().stream()
                         .map(Response::name).toList())));

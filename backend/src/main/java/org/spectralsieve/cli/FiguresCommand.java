@@ -9,6 +9,7 @@ import org.spectralsieve.library.NotRescalableException;
 import org.spectralsieve.library.SampleCurve;
 import org.spectralsieve.library.SampleCurves;
 import org.spectralsieve.weighting.Emitter;
+import org.spectralsieve.weighting.EmitterCatalogue;
 import org.spectralsieve.weighting.Figure;
 import org.spectralsieve.weighting.FigureSheet;
 import org.spectralsieve.weighting.Response;
@@ -91,7 +92,8 @@ final class FiguresCommand implements Callable<Integer> {
     private Emitter emitter(SpectrumLookup spectra, String option, String name) {
         return spectra.emitter(name).orElseThrow(() -> new ParameterException(spec.commandLine(), option
                 + ": unknown emitter '" + name + "'; known: "
-                + String.join(", ", spectra.emitters().stream().map(Emitter::name).toList())));
+                + String.join(", ", spectra.emitters().stream().map(Emitter::name).toList())
+                + "; or describe one: " + EmitterCatalogue.PARAMETRIC_FORMS));
     }
 
     private void print(SampleCurve sample, FigureSheet sheet) {

@@ -6,10 +6,12 @@ import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
+import java.util.Optional;
 import java.util.function.Function;
 import java.util.regex.Pattern;
 import org.spectralsieve.requirement.Token.Kind;
 import org.spectralsieve.weighting.Emitter;
+import org.spectralsieve.weighting.EmitterCatalogue;
 import org.spectralsieve.weighting.Response;
 import org.spectralsieve.weighting.SpectrumLookup;
 
@@ -24,6 +26,8 @@ final class SpectrumNames {
 
     /** How many names an error message lists before "…". */
     private static final int LISTED = 12;
+    /** Tokens a described emitter can take: "mercury 1 - 0.5 - 0.2 - 0.1" is nine. */
+    private static final int DESCRIBED_WORDS = 9;
     private static final Pattern LETTER_DIGIT = Pattern.compile("(?<=\\p{L})(?=\\p{N})|(?<=\\p{N})(?=\\p{L})");
     private static final Pattern SEPARATORS = Pattern.compile("[^\\p{L}\\p{N}.]+");
 
@@ -41,15 +45,18 @@ final class SpectrumNames {
         return SEPARATORS.matcher(spaced).replaceAll(" ").strip();
     }
 
+    /** A listed emitter, else one its words describe ("led 370 20", see {@link EmitterCatalogue#parametric}). */
     Emitter emitter(String after) {
-        return read(spectra.emitters(), Emitter::name, "an emitter", after);
+        return read(spectra.emitters(), Emitter::name, EmitterCatalogue::parametric,
+                "an emitter", " or a described one: " + EmitterCatalogue.PARAMETRIC_FORMS, after);
     }
 
     Response response(String after) {
-        return read(spectra.responses(), Response::name, "a response", after);
+        return read(spectra.responses(), Response::name, written -> Optional.empty(), "a response", "", after);
     }
 
-    private <T> T read(List<T> known, Function<T, String> name, String what, String after) {
+    private <T> T read(List<T> known, Function<T, String> name, Function<String, Optional<T>> described,
+                       String what, String otherForms, String after) {
         Map<String, T> byKey = new LinkedHashMap<>();
         int longest = 1;
         for (T item : known) {
@@ -59,19 +66,35 @@ final class SpectrumNames {
         }
         Token first = in.peek();
         List<Token> run = run(2 * longest + 1);
-        for (int length = run.size(); length >= 1; length--) {
-            if (run.get(length - 1).kind() == Kind.DASH) {
-                continue;
-            }
-            T match = byKey.get(key(words(run.subList(0, length))));
-            if (match != null) {
-                for (int i = 0; i < length; i++) {
-                    in.next();
-                }
-                return match;
+        int listedLength = 0;
+        T listed = null;
+        for (int length = run.size(); length >= 1 && listed == null; length--) {
+            if (run.get(length - 1).kind() != Kind.DASH) {
+                listed = byKey.get(key(words(run.subList(0, length))));
+                listedLength = listed == null ? 0 : length;
             }
         }
-        throw unknown(first, known.stream().map(name).toList(), what, after);
+        // A described name ("led 395 10 16") may extend a listed one ("led 395"): the longer reading wins.
+        List<Token> longer = run(DESCRIBED_WORDS);
+        for (int length = longer.size(); length > listedLength; length--) {
+            if (longer.get(length - 1).kind() != Kind.DASH) {
+                Optional<T> match = described.apply(key(words(longer.subList(0, length))));
+                if (match.isPresent()) {
+                    return consume(length, match.get());
+                }
+            }
+        }
+        if (listed != null) {
+            return consume(listedLength, listed);
+        }
+        throw unknown(first, known.stream().map(name).toList(), what, otherForms, after);
+    }
+
+    private <T> T consume(int tokens, T match) {
+        for (int i = 0; i < tokens; i++) {
+            in.next();
+        }
+        return match;
     }
 
     /** The tokens that could belong to a name: words, numbers and dashes, at most {@code max}. */
@@ -96,7 +119,8 @@ final class SpectrumNames {
     }
 
     /** The phrase the user wrote (up to a separator or "weighted"), the known names, and the close ones. */
-    private RequirementSyntaxException unknown(Token first, List<String> names, String what, String after) {
+    private RequirementSyntaxException unknown(Token first, List<String> names, String what, String otherForms,
+                                               String after) {
         List<Token> phrase = new ArrayList<>();
         for (Token t : run(40)) {
             if (t.isWord("and") || t.isWord("weighted")) {
@@ -106,7 +130,7 @@ final class SpectrumNames {
         }
         String listed = names.size() <= LISTED ? String.join(", ", names)
                 : String.join(", ", names.subList(0, LISTED)) + ", …";
-        String expected = what + " name (" + listed + ") after '" + after + "'";
+        String expected = what + " name (" + listed + ")" + otherForms + " after '" + after + "'";
         if (phrase.isEmpty()) {
             return new RequirementSyntaxException(first.start(), 0, expected, first.quoted(), List.of(), false);
         }

@@ -134,8 +134,13 @@ public final class Emitter {
 
     /** Planck's law, relative: 100 at 560 nm (the normalisation CIE uses for illuminant A). */
     public static Emitter blackbody(double temperatureK) {
+        return blackbody("blackbody-" + temperatureK + "K", temperatureK);
+    }
+
+    /** {@link #blackbody(double)} under a name of the caller's choosing. */
+    public static Emitter blackbody(String name, double temperatureK) {
         requirePositive("temperatureK", temperatureK);
-        return new Emitter("blackbody-" + temperatureK + "K", "blackbody", Map.of("temperatureK", temperatureK),
+        return new Emitter(name, "blackbody", Map.of("temperatureK", temperatureK),
                 TOOL_MIN_NM, TOOL_MAX_NM, 1.0, "blackbody (Planck) at " + temperatureK + " K, 100 at 560 nm",
                 nm -> planckRelative(nm, C2_NM_K, temperatureK));
     }

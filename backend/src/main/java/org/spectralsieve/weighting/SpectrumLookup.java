@@ -17,10 +17,15 @@ public interface SpectrumLookup {
     /** Every response, built-in ones first. */
     List<Response> responses();
 
-    /** Looks an emitter up by name, ignoring case and surrounding blanks. */
+    /**
+     * Looks an emitter up by name, ignoring case and surrounding blanks; a name not in the list may still
+     * describe one ({@link EmitterCatalogue#parametric}: {@code led-370-20}, {@code blackbody-3000k}, …).
+     */
     default Optional<Emitter> emitter(String name) {
         String key = key(name);
-        return emitters().stream().filter(e -> e.name().toLowerCase(Locale.ROOT).equals(key)).findFirst();
+        Optional<Emitter> listed = emitters().stream().filter(e -> e.name().toLowerCase(Locale.ROOT).equals(key))
+                .findFirst();
+        return listed.isPresent() ? listed : EmitterCatalogue.parametric(key);
     }
 
     /** Looks a response up by name, ignoring case and surrounding blanks. */

@@ -122,6 +122,20 @@ class WeightedFiguresApiTest {
     }
 
     @Test
+    void aDescribedLedIsComputedAndAnUnknownNameListsTheDescribedForms() throws Exception {
+        long id = sampleId("UV-grade synthetic fused silica");
+        JsonNode described = figures(id, "&emitter=led-372-15&response=flat");
+        assertThat(described.path("emitter").asString()).isEqualTo("led-372-15");
+        // only the name's reading is under test here: availability and the integration range
+        JsonNode t = described.path("effectiveTransmittance");
+        assertThat(t.path("available").asBoolean()).isTrue();
+        // the LED model is cut at peak ± 3 FWHM (327-417 nm), the flat response ends at 400 nm
+        assertThat(t.path("note").asString()).contains("327.0-400.0 nm");
+        assertThat(getJson("/api/samples/" + id + "/figures?emitter=lamp-9", 400).path("detail").asString())
+                .contains("led-<peak nm>-<FWHM nm>").contains("blackbody-<K>k");
+    }
+
+    @Test
     void badParametersAreNamedInA400() throws Exception {
         long id = sampleId("UV-grade synthetic fused silica");
         assertThat(getJson("/api/samples/" + id + "/figures?emitter=led-999", 400).path("parameter").asString())

@@ -130,6 +130,32 @@ class FigureClauseParserTest {
                 .isEqualTo(RequirementParserTest.withoutTexts(parsed));
     }
 
+    @ParameterizedTest(name = "{0}")
+    @org.junit.jupiter.params.provider.CsvSource(delimiter = '|', value = {
+            "passes over 50% of led 372 15                      | led-372-15",
+            "passes over 50% of LED-372-15 and blocks under 1% at 405 nm | led-372-15",
+            "passes over 50% of led 395 10 16 weighted by erythema | led-395-10-16",
+            "blocks under 5% of blackbody 3000 k                | blackbody-3000k",
+            "passes over 1% of mercury 1 0.5 0.2 0.1             | mercury-1-0.5-0.2-0.1"})
+    void aDescribedEmitterIsReadByItsNumbersAndRendersBackToItsName(String text, String emitterName) {
+        Requirement parsed = RequirementParser.parse(text, BUILT_IN);
+        WeightedClause clause = (WeightedClause) parsed.clauses().get(0);
+        Weighting.Spectral weighting = (Weighting.Spectral) clause.weighting();
+        assertThat(weighting.emitter().name()).isEqualTo(emitterName);
+        String rendered = RequirementParser.render(parsed);
+        assertThat(rendered).contains("of " + emitterName);
+        Requirement again = RequirementParser.parse(rendered, BUILT_IN);
+        assertThat(RequirementParser.render(again)).isEqualTo(rendered);
+        assertThat(again.clauses()).hasSameSizeAs(parsed.clauses());
+    }
+
+    @Test
+    void anUnknownEmitterNameTellsTheDescribedForms() {
+        RequirementSyntaxException e = org.assertj.core.api.Assertions.catchThrowableOfType(
+                RequirementSyntaxException.class, () -> RequirementParser.parse("passes over 50% of lamp 9", BUILT_IN));
+        assertThat(e.getMessage()).contains("led-<peak nm>").contains("blackbody-<K>k");
+    }
+
     @Test
     void renderingWritesStoredNamesAndInclusiveThresholds() {
         Requirement r = RequirementParser.parse("passes over 60% of LED 395 weighted by Erythema and uv hazard under 0.1%"
