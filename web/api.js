@@ -127,9 +127,9 @@ export function listResponses() {
  * A sample's weighted figures under one emitter × response, at `thicknessMm` when given (rescaled by the
  * server), else at the measured thickness.
  */
-export function getFigures(sampleId, { thicknessMm, emitter, response, convention, solar } = {}) {
+export function getFigures(sampleId, { thicknessMm, emitter, response, convention, solar, behind, behindMm } = {}) {
   return getJson(`${BASE}/samples/${encodeURIComponent(sampleId)}/figures${query({
-    thicknessMm, emitter, response, convention, solar,
+    thicknessMm, emitter, response, convention, solar, behind, behindMm,
   })}`);
 }
 

@@ -137,7 +137,10 @@ async function loadMaterials({ fillClasses = false } = {}) {
       materialClass: dom.filterClass.value,
     });
     if (request !== state.listRequest) return;
-    if (fillClasses) fillClassOptions(materials);
+    if (fillClasses) {
+      fillClassOptions(materials);
+      figures.offerParts(materials); // the whole library, before any filter narrows the list
+    }
     renderMaterials(materials);
   } catch (problem) {
     if (request !== state.listRequest) return;

@@ -100,6 +100,8 @@ export function initFigures(ui) {
     response: el('figure-response'),
     convention: el('figure-convention'),
     solar: el('figure-solar'),
+    behind: el('figure-behind'),
+    behindMm: el('figure-behind-mm'),
     emitterAbout: el('figure-emitter-about'),
     responseAbout: el('figure-response-about'),
     caution: el('figures-caution'),
@@ -249,7 +251,8 @@ export function initFigures(ui) {
     dom.cautionText.textContent = answer.caution || FALLBACK_CAUTION;
     dom.section.dataset.state = 'shown';
     const thickness = Number.isFinite(answer.thicknessMm) ? `${fmt.number(answer.thicknessMm)} mm` : 'the sample';
-    const how = answer.rescaled ? ` (rescaled from the ${sampleThickness(choice)} sample)` : '';
+    const how = (answer.rescaled ? ` (rescaled from the ${sampleThickness(choice)} sample)` : '')
+      + (answer.layer ? `; ${answer.layer}` : '');
     dom.status.textContent = figures.length
       ? `${figures.length} figure${figures.length === 1 ? '' : 's'} for ${thickness}${how}, ${answer.emitter || dom.emitter.value} × `
         + `${answer.response || dom.response.value}.`
@@ -288,6 +291,9 @@ export function initFigures(ui) {
         response: dom.response.value || DEFAULT_RESPONSE,
         convention: dom.convention.value || undefined,
         solar: dom.solar.value || undefined,
+        // a part in front of the sample: both fields or neither (the server says which one is missing)
+        behind: dom.behind.value.trim() || undefined,
+        behindMm: dom.behindMm.value.trim() || undefined,
       });
       if (request !== state.request) return;
       if (ui.messageStartsWith(MESSAGE_CONTEXT)) ui.clearMessage();
@@ -338,12 +344,22 @@ export function initFigures(ui) {
 
   el('spectrum-import-form').addEventListener('submit', importSpectrum);
 
-  for (const select of [dom.sample, dom.emitter, dom.response, dom.convention, dom.solar]) {
+  for (const select of [dom.sample, dom.emitter, dom.response, dom.convention, dom.solar, dom.behind, dom.behindMm]) {
     select.addEventListener('change', refresh);
   }
   const catalogues = loadCatalogues();
 
   return {
+    /** Library slugs offered for the "seen behind" part. */
+    offerParts(materials) {
+      el('figure-behind-choices').replaceChildren(...(materials || []).filter((m) => m.slug).map((m) => {
+        const o = document.createElement('option');
+        o.value = m.slug;
+        o.label = m.name;
+        return o;
+      }));
+    },
+
     /** A newly opened material: its samples in the picker, the first one chosen, figures fetched. */
     async showMaterial(material) {
       state.material = material;

@@ -7,6 +7,16 @@ import java.util.Map;
 import java.util.stream.Collectors;
 import org.spectralsieve.library.SampleCurve;
 import org.spectralsieve.library.SampleCurves;
+import org.spectralsieve.optics.ConstantIndex;
+import org.spectralsieve.optics.Layer;
+import org.spectralsieve.optics.LightPath;
+import org.spectralsieve.optics.RefractiveIndex;
+import org.spectralsieve.requirement.FixedLayer;
+import org.spectralsieve.requirement.StackLayer;
+import org.spectralsieve.search.LayerResolutionException;
+import org.spectralsieve.search.SearchService;
+import org.spectralsieve.spectrum.Curve;
+import org.spectralsieve.spectrum.CurveException;
 import org.spectralsieve.weighting.Emitter;
 import org.spectralsieve.weighting.EmitterCatalogue;
 import org.spectralsieve.weighting.Figure;
@@ -29,12 +39,17 @@ class WeightingController {
     /** Carried by every answer here: these numbers screen materials, they do not certify equipment. */
     static final String CAUTION = SafetyCaution.TEXT;
 
+    /** Index assumed for a part whose material has none recorded (a coating, a laminate): common glass and plastics. */
+    private static final RefractiveIndex UNRECORDED_INDEX = new ConstantIndex(1.5);
+
     private final SampleCurves curves;
     private final SpectrumLookup spectra;
+    private final SearchService search;
 
-    WeightingController(SampleCurves curves, SpectrumLookup spectra) {
+    WeightingController(SampleCurves curves, SpectrumLookup spectra, SearchService search) {
         this.curves = curves;
         this.spectra = spectra;
+        this.search = search;
     }
 
     /** origin: "built-in" (a catalogue spectrum) or "imported" (see ReferenceSpectrumController). */
@@ -96,7 +111,7 @@ class WeightingController {
             FigureJson erythemalProtectionFactor, FigureJson actinicUvProtectionFactor, FigureJson upf,
             String bandConvention, List<FigureJson> bandMeans, FigureJson criticalWavelength,
             List<FigureJson> opticalDensities, FigureJson luminousTransmittance,
-            SunglassCategoryJson sunglassCategory, String caution) {
+            SunglassCategoryJson sunglassCategory, String layer, String caution) {
     }
 
     @GetMapping("/api/emitters")
@@ -115,7 +130,9 @@ class WeightingController {
                         @RequestParam(name = "emitter", required = false, defaultValue = "flat") String emitterName,
                         @RequestParam(name = "response", required = false, defaultValue = "erythema") String responseName,
                         @RequestParam(name = "convention", required = false, defaultValue = "cie") String conventionName,
-                        @RequestParam(name = "solar", required = false) String solarName) {
+                        @RequestParam(name = "solar", required = false) String solarName,
+                        @RequestParam(name = "behind", required = false) String behind,
+                        @RequestParam(name = "behindMm", required = false) Double behindMm) {
         if (thicknessMm != null && !(thicknessMm > 0 && thicknessMm <= SampleCurves.MAX_THICKNESS_MM)) {
             throw new BadParameterException("thicknessMm", "must be above 0 and at most "
                     + SampleCurves.MAX_THICKNESS_MM + " mm, got " + thicknessMm);
@@ -134,7 +151,14 @@ class WeightingController {
                 new BadParameterException("solar", "unknown emitter '" + solarName + "' as reference solar spectrum;"
                         + " known: " + names(spectra.emitters().stream().map(Emitter::name).toList())));
         SampleCurve sample = curves.get(id, thicknessMm, null);
-        FigureSheet sheet = FigureSheet.of(sample.curve(), emitter, response, convention, solar);
+        Curve seen = sample.curve();
+        String layerText = null;
+        if (behind != null || behindMm != null) {
+            StackLayer layer = layer(behind, behindMm);
+            seen = throughLayer(sample, layer);
+            layerText = "figures of the stack: the sample " + layer.describe() + ", with an air gap between the parts";
+        }
+        FigureSheet sheet = FigureSheet.of(seen, emitter, response, convention, solar);
         WeightedFigures.Report r = sheet.report();
         return new FiguresJson(id, sample.thicknessMm(), sample.rescaled(), emitter.name(), response.name(),
                 solar == null ? null : solar.name(),
@@ -142,7 +166,41 @@ class WeightingController {
                 FigureJson.of(r.erythemalProtectionFactor()), FigureJson.of(r.actinicUvProtectionFactor()),
                 FigureJson.of(sheet.upf()), convention.description(), FigureJson.all(r.bandMeans()),
                 FigureJson.of(r.criticalWavelength()), FigureJson.all(r.opticalDensities()),
-                FigureJson.of(sheet.luminousTransmittance()), SunglassCategoryJson.of(sheet.sunglassCategory()), CAUTION);
+                FigureJson.of(sheet.luminousTransmittance()), SunglassCategoryJson.of(sheet.sunglassCategory()),
+                layerText, CAUTION);
+    }
+
+    /** The part named by {@code behind} (a slug or words of a name) at {@code behindMm}, as a requirement's layer. */
+    private StackLayer layer(String words, Double mm) {
+        if (words == null || words.isBlank() || mm == null) {
+            throw new BadParameterException(words == null || words.isBlank() ? "behind" : "behindMm",
+                    "a stack needs both behind (the part's slug or words of its name) and behindMm (its thickness)");
+        }
+        FixedLayer spec;
+        try {
+            spec = new FixedLayer(FixedLayer.Placement.BEHIND, mm, words.strip().toLowerCase(Locale.ROOT), "");
+        } catch (IllegalArgumentException e) {
+            throw new BadParameterException(Double.isFinite(mm) && mm > 0 && mm <= SampleCurves.MAX_THICKNESS_MM
+                    ? "behind" : "behindMm", e.getMessage());
+        }
+        try {
+            return search.resolveLayer(spec);
+        } catch (LayerResolutionException e) {
+            throw new BadParameterException("behind", e.getMessage());
+        }
+    }
+
+    /** The sample (as measured or rescaled) and the part across an air gap, on both curves' own wavelengths. */
+    private static Curve throughLayer(SampleCurve sample, StackLayer layer) {
+        RefractiveIndex index = sample.material().refractiveIndex() == null ? UNRECORDED_INDEX
+                : sample.material().refractiveIndex();
+        try {
+            return LightPath.of(Layer.fixed(sample.curve(), index), Layer.fixed(layer.curve(), layer.index()))
+                    .transmittance();
+        } catch (CurveException e) {
+            throw new BadParameterException("behind", "the sample and " + layer.materialSlug()
+                    + " share no wavelength range: " + e.getMessage());
+        }
     }
 
     private static String names(List<String> names) {

@@ -225,6 +225,17 @@ public class SearchService {
         return direction == Direction.PASS ? spec.minMm() >= d0 - same : spec.maxMm() <= d0 + same;
     }
 
+    /**
+     * A fixed layer resolved against the current library exactly as a requirement's layer is (same matching
+     * rule, same sample choice, rescaled the same way), for figures of a sample seen through that part.
+     *
+     * @throws LayerResolutionException when the words name no material, several, or a fixed part not
+     *                                  measured at that thickness
+     */
+    public StackLayer resolveLayer(FixedLayer layer) {
+        return resolveLayer(layer, current());
+    }
+
     /** The fixed layer's material and sample from the library, the curve as the layer will be used. */
     private StackLayer resolveLayer(FixedLayer layer, Snapshot s) {
         List<Material> materials = s.materials().values().stream().sorted(Comparator.comparingLong(Material::id)).toList();

@@ -136,6 +136,56 @@ class WeightedFiguresApiTest {
     }
 
     @Test
+    void aSampleBehindAWindowGetsTheFiguresOfTheStackWithinThePhysicalBounds() throws Exception {
+        long sheet = sampleId("UV-transmitting cast acrylic, lamp-cover grade");
+        long glass = sampleId("Clear float glass, glazier offcuts");
+        JsonNode alone = figures(sheet, "");
+        JsonNode stacked = figures(sheet, "&behind=float%20glass&behindMm=4");
+        JsonNode glassAlone = getJson("/api/samples/" + glass + "/figures?thicknessMm=4", 200);
+
+        assertThat(stacked.path("layer").asString()).contains("clear-float-glass").contains("air gap");
+        assertThat(alone.path("layer").isNull()).isTrue();
+        // Two parts across an air gap, per wavelength: T1·T2 ≤ T ≤ T1·T2 / (1 − R1·R2) with each part's
+        // R ≤ 1 − T (energy conservation; the incoherent two-element sum, e.g. Born & Wolf's pile of plates,
+        // from memory). Checked on T = 10^-OD at the lamp lines where all three are unbounded values.
+        int compared = 0;
+        for (int i = 0; i < stacked.path("opticalDensities").size(); i++) {
+            JsonNode s = stacked.path("opticalDensities").get(i);
+            JsonNode a = alone.path("opticalDensities").get(i);
+            JsonNode g = glassAlone.path("opticalDensities").get(i);
+            if (!"value".equals(s.path("bound").asString()) || !"value".equals(a.path("bound").asString())
+                    || !"value".equals(g.path("bound").asString())) {
+                continue;
+            }
+            double t = Math.pow(10, -s.path("value").asDouble());
+            double t1 = Math.pow(10, -a.path("value").asDouble());
+            double t2 = Math.pow(10, -g.path("value").asDouble());
+            assertThat(t).as(s.path("name").asString()).isBetween(t1 * t2 * (1 - 1e-9),
+                    t1 * t2 / (1 - (1 - t1) * (1 - t2)) * (1 + 1e-9));
+            compared++;
+        }
+        assertThat(compared).as("lamp lines with plain values in all three answers").isPositive();
+        assertThat(stacked.path("luminousTransmittance").path("value").asDouble())
+                .isLessThan(alone.path("luminousTransmittance").path("value").asDouble());
+        // the stack is a safety figure like any other: the caution stays
+        assertThat(stacked.path("caution").asString()).contains("not a certification");
+    }
+
+    @Test
+    void aStackWithoutItsThicknessOrWithAnUnknownPartIsA400NamingTheParameter() throws Exception {
+        long id = sampleId("Yellow resin-printer lid sheet");
+        assertThat(getJson("/api/samples/" + id + "/figures?behind=float%20glass", 400).path("parameter").asString())
+                .isEqualTo("behindMm");
+        assertThat(getJson("/api/samples/" + id + "/figures?behindMm=4", 400).path("parameter").asString())
+                .isEqualTo("behind");
+        JsonNode unknown = getJson("/api/samples/" + id + "/figures?behind=purple%20unicorn&behindMm=4", 400);
+        assertThat(unknown.path("parameter").asString()).isEqualTo("behind");
+        assertThat(unknown.path("detail").asString()).contains("purple unicorn");
+        assertThat(getJson("/api/samples/" + id + "/figures?behind=glass&behindMm=4", 400).path("detail").asString())
+                .contains("write the slug");
+    }
+
+    @Test
     void badParametersAreNamedInA400() throws Exception {
         long id = sampleId("UV-grade synthetic fused silica");
         assertThat(getJson("/api/samples/" + id + "/figures?emitter=led-999", 400).path("parameter").asString())

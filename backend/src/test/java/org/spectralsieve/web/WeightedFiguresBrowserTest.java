@@ -206,6 +206,32 @@ class WeightedFiguresBrowserTest {
     }
 
     @Test
+    void aPartNamedInFrontOfTheSampleGivesTheStacksFiguresAsTheApiDoes() throws Exception {
+        JsonNode material = material(UV_TRANSMITTING);
+        long sampleId = material.path("samples").get(0).path("id").asLong();
+        JsonNode stacked = figures(sampleId, "emitter=flat&response=erythema&behind=clear-float-glass&behindMm=4");
+        loadPage();
+        openMaterial(UV_TRANSMITTING);
+        waitForStatus("flat × erythema");
+        String alone = shownValue("luminousTransmittance");
+
+        driver.findElement(By.id("figure-behind")).sendKeys("clear-float-glass");
+        WebElement mm = driver.findElement(By.id("figure-behind-mm"));
+        mm.sendKeys("4", Keys.TAB);
+        waitForStatus("clear-float-glass");
+        assertThat(driver.findElement(By.id("figures-status")).getText()).contains(stacked.path("layer").asString());
+        assertThat(shownValue("luminousTransmittance"))
+                .isEqualTo(fractionAsShown(stacked.path("luminousTransmittance"))).isNotEqualTo(alone);
+        assertThat(shownValue("effectiveTransmittance")).isEqualTo(fractionAsShown(stacked.path("effectiveTransmittance")));
+
+        // the thickness cleared: the server names the missing parameter, the page shows it
+        mm.clear();
+        mm.sendKeys(Keys.TAB);
+        wait.until(d -> d.findElement(By.id("figures-status")).getText().contains("behindMm"));
+        assertThat(driver.findElement(By.id("message")).getText()).contains("behindMm");
+    }
+
+    @Test
     void aFigureTheCurveCannotGiveShowsTheServersReasonInsteadOfANumber() throws Exception {
         JsonNode material = material(STARTS_AT_250_NM);
         long sampleId = material.path("samples").get(0).path("id").asLong();
