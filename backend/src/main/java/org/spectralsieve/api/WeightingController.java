@@ -7,16 +7,10 @@ import java.util.Map;
 import java.util.stream.Collectors;
 import org.spectralsieve.library.SampleCurve;
 import org.spectralsieve.library.SampleCurves;
-import org.spectralsieve.optics.ConstantIndex;
-import org.spectralsieve.optics.Layer;
-import org.spectralsieve.optics.LightPath;
-import org.spectralsieve.optics.RefractiveIndex;
-import org.spectralsieve.requirement.FixedLayer;
 import org.spectralsieve.requirement.StackLayer;
-import org.spectralsieve.search.LayerResolutionException;
+import org.spectralsieve.search.PartInFront;
 import org.spectralsieve.search.SearchService;
 import org.spectralsieve.spectrum.Curve;
-import org.spectralsieve.spectrum.CurveException;
 import org.spectralsieve.weighting.Emitter;
 import org.spectralsieve.weighting.EmitterCatalogue;
 import org.spectralsieve.weighting.Figure;
@@ -38,9 +32,6 @@ class WeightingController {
 
     /** Carried by every answer here: these numbers screen materials, they do not certify equipment. */
     static final String CAUTION = SafetyCaution.TEXT;
-
-    /** Index assumed for a part whose material has none recorded (a coating, a laminate): common glass and plastics. */
-    private static final RefractiveIndex UNRECORDED_INDEX = new ConstantIndex(1.5);
 
     private final SampleCurves curves;
     private final SpectrumLookup spectra;
@@ -154,9 +145,13 @@ class WeightingController {
         Curve seen = sample.curve();
         String layerText = null;
         if (behind != null || behindMm != null) {
-            StackLayer layer = layer(behind, behindMm);
-            seen = throughLayer(sample, layer);
-            layerText = "figures of the stack: the sample " + layer.describe() + ", with an air gap between the parts";
+            try {
+                StackLayer part = PartInFront.resolve(search, behind, behindMm);
+                seen = PartInFront.through(sample, part);
+                layerText = PartInFront.describe(part);
+            } catch (PartInFront.Refused e) {
+                throw new BadParameterException(e.aboutThickness() ? "behindMm" : "behind", e.getMessage());
+            }
         }
         FigureSheet sheet = FigureSheet.of(seen, emitter, response, convention, solar);
         WeightedFigures.Report r = sheet.report();
@@ -168,39 +163,6 @@ class WeightingController {
                 FigureJson.of(r.criticalWavelength()), FigureJson.all(r.opticalDensities()),
                 FigureJson.of(sheet.luminousTransmittance()), SunglassCategoryJson.of(sheet.sunglassCategory()),
                 layerText, CAUTION);
-    }
-
-    /** The part named by {@code behind} (a slug or words of a name) at {@code behindMm}, as a requirement's layer. */
-    private StackLayer layer(String words, Double mm) {
-        if (words == null || words.isBlank() || mm == null) {
-            throw new BadParameterException(words == null || words.isBlank() ? "behind" : "behindMm",
-                    "a stack needs both behind (the part's slug or words of its name) and behindMm (its thickness)");
-        }
-        FixedLayer spec;
-        try {
-            spec = new FixedLayer(FixedLayer.Placement.BEHIND, mm, words.strip().toLowerCase(Locale.ROOT), "");
-        } catch (IllegalArgumentException e) {
-            throw new BadParameterException(Double.isFinite(mm) && mm > 0 && mm <= SampleCurves.MAX_THICKNESS_MM
-                    ? "behind" : "behindMm", e.getMessage());
-        }
-        try {
-            return search.resolveLayer(spec);
-        } catch (LayerResolutionException e) {
-            throw new BadParameterException("behind", e.getMessage());
-        }
-    }
-
-    /** The sample (as measured or rescaled) and the part across an air gap, on both curves' own wavelengths. */
-    private static Curve throughLayer(SampleCurve sample, StackLayer layer) {
-        RefractiveIndex index = sample.material().refractiveIndex() == null ? UNRECORDED_INDEX
-                : sample.material().refractiveIndex();
-        try {
-            return LightPath.of(Layer.fixed(sample.curve(), index), Layer.fixed(layer.curve(), layer.index()))
-                    .transmittance();
-        } catch (CurveException e) {
-            throw new BadParameterException("behind", "the sample and " + layer.materialSlug()
-                    + " share no wavelength range: " + e.getMessage());
-        }
     }
 
     private static String names(List<String> names) {

@@ -8,6 +8,10 @@ import org.spectralsieve.library.NotFoundException;
 import org.spectralsieve.library.NotRescalableException;
 import org.spectralsieve.library.SampleCurve;
 import org.spectralsieve.library.SampleCurves;
+import org.spectralsieve.requirement.StackLayer;
+import org.spectralsieve.search.PartInFront;
+import org.spectralsieve.search.SearchService;
+import org.spectralsieve.spectrum.Curve;
 import org.spectralsieve.weighting.Emitter;
 import org.spectralsieve.weighting.EmitterCatalogue;
 import org.spectralsieve.weighting.Figure;
@@ -58,8 +62,17 @@ final class FiguresCommand implements Callable<Integer> {
             description = "UV band limits: cie (280/315 nm) or dermatology (290/320 nm) (default: ${DEFAULT-VALUE}).")
     String conventionName;
 
+    @Option(names = "--behind", paramLabel = "PART",
+            description = "A library part in front of the sample (slug or words of its name): figures of the stack.")
+    String behind;
+
+    @Option(names = "--behind-mm", paramLabel = "MM", description = "Thickness of the --behind part.")
+    Double behindMm;
+
     @Option(names = "--solar", paramLabel = "NAME", description = "Emitter to use as the reference solar spectrum for the UPF.")
     String solarName;
+
+    private String stackText;
 
     @Override
     public Integer call() {
@@ -81,7 +94,18 @@ final class FiguresCommand implements Callable<Integer> {
                             + String.join(", ", spectra.responses().stream().map(Response::name).toList())));
             Emitter solar = solarName == null ? null : emitter(spectra, "--solar", solarName);
             sample = context.getBean(SampleCurves.class).get(sampleId, thicknessMm, null);
-            sheet = FigureSheet.of(sample.curve(), emitter, response, convention, solar);
+            Curve seen = sample.curve();
+            if (behind != null || behindMm != null) {
+                try {
+                    StackLayer part = PartInFront.resolve(context.getBean(SearchService.class), behind, behindMm);
+                    seen = PartInFront.through(sample, part);
+                    stackText = PartInFront.describe(part);
+                } catch (PartInFront.Refused e) {
+                    throw new ParameterException(spec.commandLine(), (e.aboutThickness() ? "--behind-mm: " : "--behind: ")
+                            + e.getMessage());
+                }
+            }
+            sheet = FigureSheet.of(seen, emitter, response, convention, solar);
         } catch (NotFoundException | NotRescalableException e) {
             throw new CliFailure(SieveCli.FAILED, e.getMessage());
         }
@@ -100,6 +124,9 @@ final class FiguresCommand implements Callable<Integer> {
         var out = spec.commandLine().getOut();
         out.println("Sample " + sampleId + " at " + Numbers.mm(sample.thicknessMm()) + " mm"
                 + (sample.rescaled() ? " (rescaled)" : " (as measured)") + ", " + emitterName + " × " + responseName);
+        if (stackText != null) {
+            out.println(stackText);
+        }
         TextTable table = new TextTable(List.of("figure", ">value", "how"));
         for (Figure f : sheet.figures()) {
             table.add(List.of(f.name(), value(f), f.note()));

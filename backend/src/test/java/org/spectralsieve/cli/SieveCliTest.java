@@ -179,6 +179,25 @@ class SieveCliTest {
     }
 
     @Test
+    void figuresBehindAPartNameTheStackAndMatchTheApi() throws Exception {
+        long sampleId = JSON.readTree(cli("search", FUSED_SILICA_AT_254, "--limit", "1", "--json").out())
+                .path("results").get(0).path("sampleId").asLong();
+
+        Run run = cli("figures", "--sample", String.valueOf(sampleId), "--behind", "float glass", "--behind-mm", "4");
+
+        assertThat(run.exitCode()).as(run.err()).isZero();
+        JsonNode api = get("/api/samples/" + sampleId + "/figures?behind=float%20glass&behindMm=4");
+        assertThat(run.outLines().get(1)).isEqualTo(api.path("layer").asString());
+        String expected = String.format(java.util.Locale.ROOT, "%.3g %%",
+                100 * api.path("luminousTransmittance").path("value").asDouble());
+        assertThat(run.outLines()).anySatisfy(line -> assertThat(line).startsWith("luminousTransmittance")
+                .contains(expected));
+        Run missing = cli("figures", "--sample", String.valueOf(sampleId), "--behind", "float glass");
+        assertThat(missing.exitCode()).isEqualTo(SieveCli.USAGE);
+        assertThat(missing.err()).contains("--behind-mm");
+    }
+
+    @Test
     void figuresWithAnUnknownResponseExitTwoListingTheKnownOnes() {
         Run run = cli("figures", "--sample", "1", "--response", "erythemma");
 
