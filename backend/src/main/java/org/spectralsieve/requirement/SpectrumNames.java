@@ -147,7 +147,7 @@ final class SpectrumNames {
         }
         List<Near> near = new ArrayList<>();
         for (String name : names) {
-            int d = Expected.levenshtein(writtenKey, key(name), allowed);
+            int d = EditDistance.between(writtenKey, key(name), allowed);
             if (d <= allowed) {
                 near.add(new Near(name, d));
             }

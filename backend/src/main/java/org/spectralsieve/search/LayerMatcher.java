@@ -12,6 +12,7 @@ import org.spectralsieve.library.Geometry;
 import org.spectralsieve.library.Material;
 import org.spectralsieve.library.SampleInfo;
 import org.spectralsieve.library.Scaling;
+import org.spectralsieve.requirement.EditDistance;
 import org.spectralsieve.requirement.FixedLayer;
 
 /**
@@ -157,7 +158,7 @@ final class LayerMatcher {
 
     private static boolean close(String written, String word) {
         int allowed = written.length() >= 7 ? 2 : written.length() >= 4 ? 1 : 0;
-        return editDistance(written, word, allowed) <= allowed;
+        return EditDistance.between(written, word, allowed) <= allowed;
     }
 
     static SampleInfo sample(FixedLayer layer, Material material) {
@@ -207,29 +208,5 @@ final class LayerMatcher {
 
     private static String plain(double mm) {
         return java.math.BigDecimal.valueOf(mm).stripTrailingZeros().toPlainString();
-    }
-
-    /** Edit distance with an adjacent swap as one edit (optimal string alignment); limit + 1 beyond {@code limit}. */
-    private static int editDistance(String a, String b, int limit) {
-        if (Math.abs(a.length() - b.length()) > limit) {
-            return limit + 1;
-        }
-        int[][] d = new int[a.length() + 1][b.length() + 1];
-        for (int i = 0; i <= a.length(); i++) {
-            d[i][0] = i;
-        }
-        for (int j = 0; j <= b.length(); j++) {
-            d[0][j] = j;
-        }
-        for (int i = 1; i <= a.length(); i++) {
-            for (int j = 1; j <= b.length(); j++) {
-                int cost = a.charAt(i - 1) == b.charAt(j - 1) ? 0 : 1;
-                d[i][j] = Math.min(d[i - 1][j - 1] + cost, Math.min(d[i - 1][j], d[i][j - 1]) + 1);
-                if (i > 1 && j > 1 && a.charAt(i - 1) == b.charAt(j - 2) && a.charAt(i - 2) == b.charAt(j - 1)) {
-                    d[i][j] = Math.min(d[i][j], d[i - 2][j - 2] + 1);
-                }
-            }
-        }
-        return d[a.length()][b.length()];
     }
 }
