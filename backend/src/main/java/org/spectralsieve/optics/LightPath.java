@@ -56,7 +56,8 @@ public final class LightPath {
                 throw new CurveException("layer " + j + ": " + e.getMessage());
             }
         }
-        return combine(grid.points(), onGrid);
+        double[] nm = grid.points();
+        return combine(nm, onGrid, reflectances(layers, nm));
     }
 
     /**
@@ -81,7 +82,7 @@ public final class LightPath {
                 throw new CurveException("layer " + j + ": " + e.getMessage());
             }
         }
-        return combine(wavelengthsNm.clone(), onPoints);
+        return combine(wavelengthsNm.clone(), onPoints, reflectances(layers, wavelengthsNm));
     }
 
     /** The union of the layers' stored wavelengths inside the range they all cover, with its ends. */
@@ -109,8 +110,25 @@ public final class LightPath {
         return points.stream().mapToDouble(Double::doubleValue).toArray();
     }
 
-    private Curve combine(double[] nm, Curve[] onGrid) {
-        int count = layers.size();
+    /** Surface reflectance in air of each layer ([layer][point]) at the given wavelengths. */
+    static double[][] reflectances(List<Layer> layers, double[] nm) {
+        double[][] r = new double[layers.size()][nm.length];
+        for (int j = 0; j < r.length; j++) {
+            RefractiveIndex index = layers.get(j).index();
+            for (int i = 0; i < nm.length; i++) {
+                r[j][i] = Fresnel.reflectanceInAir(index.at(nm[i]));
+            }
+        }
+        return r;
+    }
+
+    /**
+     * The path's curve from each layer's curve at the points {@code nm} and the layers' reflectances there
+     * ({@link #reflectances}); shared by {@link ThicknessSweep}, so a path built from precomputed parts is
+     * the same arithmetic, number for number.
+     */
+    static Curve combine(double[] nm, Curve[] onGrid, double[][] reflectances) {
+        int count = onGrid.length;
         double[] t = new double[nm.length];
         boolean[] below = new boolean[nm.length];
         double[] limits = new double[nm.length];
@@ -119,7 +137,7 @@ public final class LightPath {
             double[] layerR = new double[count];
             for (int j = 0; j < count; j++) {
                 layerT[j] = onGrid[j].transmittance(i);
-                layerR[j] = Fresnel.reflectanceInAir(layers.get(j).index().at(nm[i]));
+                layerR[j] = reflectances[j][i];
                 below[i] |= onGrid[j].belowDetection(i);
             }
             t[i] = chain(layerT, layerR);
