@@ -1,5 +1,6 @@
 package org.spectralsieve.optics;
 
+import java.util.Arrays;
 import java.util.List;
 import org.spectralsieve.spectrum.Curve;
 import org.spectralsieve.spectrum.CurveException;
@@ -97,17 +98,34 @@ public final class LightPath {
             throw new CurveException("the layers' measured ranges do not overlap (common part " + from + ".." + to
                     + " nm); a light path is only known where every layer was measured");
         }
-        java.util.TreeSet<Double> points = new java.util.TreeSet<>();
-        points.add(from);
-        points.add(to);
+        int total = 2;
+        for (Layer layer : layers) {
+            total += layer.measured().size();
+        }
+        double[] points = new double[total];
+        int count = 0;
+        points[count++] = from;
+        points[count++] = to;
         for (Layer layer : layers) {
             for (double nm : layer.measured().wavelengthsNm()) {
                 if (nm > from && nm < to) {
-                    points.add(nm);
+                    points[count++] = nm;
                 }
             }
         }
-        return points.stream().mapToDouble(Double::doubleValue).toArray();
+        return sortedDistinct(points, count);
+    }
+
+    /** The first {@code count} values in increasing order, each once (primitive sort, no boxing). */
+    private static double[] sortedDistinct(double[] values, int count) {
+        Arrays.sort(values, 0, count);
+        int distinct = 0;
+        for (int i = 0; i < count; i++) {
+            if (distinct == 0 || values[i] != values[distinct - 1]) {
+                values[distinct++] = values[i];
+            }
+        }
+        return Arrays.copyOf(values, distinct);
     }
 
     /** Surface reflectance in air of each layer ([layer][point]) at the given wavelengths. */
