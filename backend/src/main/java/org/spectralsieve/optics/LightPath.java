@@ -1,5 +1,6 @@
 package org.spectralsieve.optics;
 
+import java.util.Arrays;
 import java.util.List;
 import org.spectralsieve.spectrum.Curve;
 import org.spectralsieve.spectrum.CurveException;
@@ -56,7 +57,8 @@ public final class LightPath {
                 throw new CurveException("layer " + j + ": " + e.getMessage());
             }
         }
-        return combine(grid.points(), onGrid);
+        double[] nm = grid.points();
+        return combine(nm, onGrid, reflectances(layers, nm));
     }
 
     /**
@@ -81,7 +83,7 @@ public final class LightPath {
                 throw new CurveException("layer " + j + ": " + e.getMessage());
             }
         }
-        return combine(wavelengthsNm.clone(), onPoints);
+        return combine(wavelengthsNm.clone(), onPoints, reflectances(layers, wavelengthsNm));
     }
 
     /** The union of the layers' stored wavelengths inside the range they all cover, with its ends. */
@@ -96,21 +98,55 @@ public final class LightPath {
             throw new CurveException("the layers' measured ranges do not overlap (common part " + from + ".." + to
                     + " nm); a light path is only known where every layer was measured");
         }
-        java.util.TreeSet<Double> points = new java.util.TreeSet<>();
-        points.add(from);
-        points.add(to);
+        int total = 2;
+        for (Layer layer : layers) {
+            total += layer.measured().size();
+        }
+        double[] points = new double[total];
+        int count = 0;
+        points[count++] = from;
+        points[count++] = to;
         for (Layer layer : layers) {
             for (double nm : layer.measured().wavelengthsNm()) {
                 if (nm > from && nm < to) {
-                    points.add(nm);
+                    points[count++] = nm;
                 }
             }
         }
-        return points.stream().mapToDouble(Double::doubleValue).toArray();
+        return sortedDistinct(points, count);
     }
 
-    private Curve combine(double[] nm, Curve[] onGrid) {
-        int count = layers.size();
+    /** The first {@code count} values in increasing order, each once (primitive sort, no boxing). */
+    private static double[] sortedDistinct(double[] values, int count) {
+        Arrays.sort(values, 0, count);
+        int distinct = 0;
+        for (int i = 0; i < count; i++) {
+            if (distinct == 0 || values[i] != values[distinct - 1]) {
+                values[distinct++] = values[i];
+            }
+        }
+        return Arrays.copyOf(values, distinct);
+    }
+
+    /** Surface reflectance in air of each layer ([layer][point]) at the given wavelengths. */
+    static double[][] reflectances(List<Layer> layers, double[] nm) {
+        double[][] r = new double[layers.size()][nm.length];
+        for (int j = 0; j < r.length; j++) {
+            RefractiveIndex index = layers.get(j).index();
+            for (int i = 0; i < nm.length; i++) {
+                r[j][i] = Fresnel.reflectanceInAir(index.at(nm[i]));
+            }
+        }
+        return r;
+    }
+
+    /**
+     * The path's curve from each layer's curve at the points {@code nm} and the layers' reflectances there
+     * ({@link #reflectances}); shared by {@link ThicknessSweep}, so a path built from precomputed parts is
+     * the same arithmetic, number for number.
+     */
+    static Curve combine(double[] nm, Curve[] onGrid, double[][] reflectances) {
+        int count = onGrid.length;
         double[] t = new double[nm.length];
         boolean[] below = new boolean[nm.length];
         double[] limits = new double[nm.length];
@@ -119,7 +155,7 @@ public final class LightPath {
             double[] layerR = new double[count];
             for (int j = 0; j < count; j++) {
                 layerT[j] = onGrid[j].transmittance(i);
-                layerR[j] = Fresnel.reflectanceInAir(layers.get(j).index().at(nm[i]));
+                layerR[j] = reflectances[j][i];
                 below[i] |= onGrid[j].belowDetection(i);
             }
             t[i] = chain(layerT, layerR);

@@ -1,6 +1,7 @@
 package org.spectralsieve.requirement;
 
 import java.util.HashMap;
+import java.util.List;
 import java.util.Map;
 import java.util.Optional;
 import org.spectralsieve.optics.ConstantIndex;
@@ -8,6 +9,7 @@ import org.spectralsieve.optics.Layer;
 import org.spectralsieve.optics.LightPath;
 import org.spectralsieve.optics.RefractiveIndex;
 import org.spectralsieve.optics.ThicknessRescaler;
+import org.spectralsieve.optics.ThicknessSweep;
 import org.spectralsieve.spectrum.Curve;
 
 /**
@@ -15,7 +17,8 @@ import org.spectralsieve.spectrum.Curve;
  * is bulk and d differs from the measured thickness), behind or on the requirement's fixed layer when
  * there is one. The stack is a {@link LightPath} on the union of both parts' own wavelengths inside the
  * range both cover, so neither curve is smoothed and nothing is extrapolated. Curves are kept per d: the
- * thickness solver asks for the same thickness from several conditions.
+ * thickness solver asks for the same thickness from several conditions; a new d reuses the candidate's
+ * per-point reflectances and K0 and the layer's side of the stack ({@link ThicknessSweep}).
  */
 final class CandidatePath {
 
@@ -26,6 +29,7 @@ final class CandidatePath {
     private final Candidate candidate;
     private final Optional<StackLayer> layer;
     private final Map<Double, Curve> byThickness = new HashMap<>();
+    private ThicknessSweep sweep;
 
     CandidatePath(Candidate candidate, Optional<StackLayer> layer) {
         this.candidate = candidate;
@@ -54,10 +58,19 @@ final class CandidatePath {
         if (!candidate.bulk()) {
             return asMeasured();
         }
-        return cached(d, () -> {
-            Curve rescaled = ThicknessRescaler.rescale(candidate.measured(), candidate.thicknessMm(), d, candidate.index());
-            return stacked() ? stack(rescaled) : rescaled;
-        });
+        return cached(d, () -> sweep().path(d));
+    }
+
+    /**
+     * The same numbers as rescaling the measured curve ({@link ThicknessRescaler}) and stacking it
+     * ({@link LightPath}) anew for every d, with what does not depend on d computed once per candidate.
+     */
+    private ThicknessSweep sweep() {
+        if (sweep == null) {
+            List<Layer> fixed = layer.map(l -> List.<Layer>of(l.asLayer())).orElse(List.of());
+            sweep = new ThicknessSweep(candidate.measured(), candidate.thicknessMm(), candidate.index(), fixed);
+        }
+        return sweep;
     }
 
     private Curve stack(Curve candidateCurve) {

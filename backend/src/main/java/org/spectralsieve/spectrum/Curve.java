@@ -82,13 +82,20 @@ public final class Curve {
             throw new CurveException("transmittance at index " + i + " (" + t + " at " + nm
                     + " nm) must be a finite fraction in [0, " + MAX_TRANSMITTANCE + "]");
         }
-        validateDetectionLimit("detection limit at index " + i + " (" + nm + " nm)", limit);
+        if (!validDetectionLimit(limit)) {
+            // the message is built only on failure: curves are built in the thickness solver's inner loop
+            validateDetectionLimit("detection limit at index " + i + " (" + nm + " nm)", limit);
+        }
     }
 
     private static void validateDetectionLimit(String what, double limit) {
-        if (!Double.isFinite(limit) || limit < 0 || limit >= 1) {
+        if (!validDetectionLimit(limit)) {
             throw new CurveException(what + " is " + limit + ", must be a fraction in [0, 1)");
         }
+    }
+
+    private static boolean validDetectionLimit(double limit) {
+        return Double.isFinite(limit) && limit >= 0 && limit < 1;
     }
 
     private static void requireNonNull(String name, Object array) {
@@ -174,10 +181,13 @@ public final class Curve {
             return OptionalDouble.of(transmittance[hit]);
         }
         int upper = -hit - 1;
-        int lower = upper - 1;
-        double f = fraction(nm, lower, upper);
+        return OptionalDouble.of(interpolated(upper - 1, upper, fraction(nm, upper - 1, upper)));
+    }
+
+    /** T a fraction f of the way from point lower to point upper, linear in absorbance. */
+    private double interpolated(int lower, int upper, double f) {
         double a = absorbance(transmittance[lower]) * (1 - f) + absorbance(transmittance[upper]) * f;
-        return OptionalDouble.of(Math.pow(10.0, -a));
+        return Math.pow(10.0, -a);
     }
 
     /**
@@ -247,22 +257,22 @@ public final class Curve {
         boolean[] below = new boolean[n];
         double[] limits = new double[n];
         for (int i = 0; i < n; i++) {
-            t[i] = transmittanceAt(nm[i]).orElseThrow();
-            below[i] = belowDetectionAt(nm[i]);
-            limits[i] = detectionLimitAt(nm[i]);
+            // what transmittanceAt, belowDetectionAt and detectionLimitAt give, from one search
+            int hit = Arrays.binarySearch(wavelengthsNm, nm[i]);
+            if (hit >= 0) {
+                t[i] = transmittance[hit];
+                below[i] = belowDetection[hit];
+                limits[i] = detectionLimits[hit];
+            } else {
+                int upper = -hit - 1;
+                int lower = upper - 1;
+                double f = fraction(nm[i], lower, upper);
+                t[i] = interpolated(lower, upper, f);
+                below[i] = belowDetection[lower] || belowDetection[upper];
+                limits[i] = detectionLimits[lower] * (1 - f) + detectionLimits[upper] * f;
+            }
         }
         return new Curve(nm, t, below, limits);
-    }
-
-    private double detectionLimitAt(double nm) {
-        int hit = Arrays.binarySearch(wavelengthsNm, nm);
-        if (hit >= 0) {
-            return detectionLimits[hit];
-        }
-        int upper = -hit - 1;
-        int lower = upper - 1;
-        double f = fraction(nm, lower, upper);
-        return detectionLimits[lower] * (1 - f) + detectionLimits[upper] * f;
     }
 
     private double fraction(double nm, int lower, int upper) {

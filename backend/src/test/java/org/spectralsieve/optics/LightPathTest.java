@@ -86,4 +86,15 @@ class LightPathTest {
                 .isInstanceOf(CurveException.class).hasMessageStartingWith("layer 1: grid start 360.0 nm");
         assertThatThrownBy(() -> LightPath.of()).hasMessageContaining("at least one layer");
     }
+
+    @Test
+    void sharedWavelengthsAreTheSortedUnionOfStoredPointsInsideTheCommonRange() {
+        Curve a = Curve.of(new double[] {300, 310.5, 320, 330, 400}, new double[] {0.1, 0.2, 0.3, 0.4, 0.5}, 0.001);
+        Curve b = Curve.of(new double[] {305, 310.5, 315, 390, 410}, new double[] {0.5, 0.4, 0.3, 0.2, 0.1}, 0.001);
+        Curve c = Curve.of(new double[] {290, 320, 395}, new double[] {0.5, 0.5, 0.5}, 0.001);
+        LightPath path = LightPath.of(Layer.fixed(a, new ConstantIndex(1.5)), Layer.fixed(b, new ConstantIndex(1.5)),
+                Layer.fixed(c, new ConstantIndex(1.5)));
+        // common range 305..395 nm: its ends, then every stored point strictly inside, each once
+        assertThat(path.sharedWavelengths()).containsExactly(305, 310.5, 315, 320, 330, 390, 395);
+    }
 }

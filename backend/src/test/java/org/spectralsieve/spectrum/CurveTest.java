@@ -4,6 +4,7 @@ import static org.assertj.core.api.Assertions.assertThat;
 import static org.assertj.core.api.Assertions.assertThatThrownBy;
 import static org.assertj.core.api.Assertions.within;
 
+import java.util.Random;
 import org.junit.jupiter.api.Test;
 
 class CurveTest {
@@ -105,5 +106,47 @@ class CurveTest {
         Curve same = Curve.of(NM, new double[] {0.1, 0.2, 0.3, 0.4}, 0);
         assertThat(curve).isEqualTo(same).hasSameHashCodeAs(same);
         assertThat(curve).hasToString("Curve[4 points, 300.0..450.0 nm]");
+    }
+
+    @Test
+    void resamplingReadsWhatThePointReadersGiveAtEveryWavelength() {
+        // resampleAt searches once per point; it must equal transmittanceAt (absorbance interpolation),
+        // belowDetectionAt and the linear limit, read one at a time (exact equality, random curves)
+        Random random = new Random(11);
+        for (int trial = 0; trial < 200; trial++) {
+            int n = 2 + random.nextInt(40);
+            double[] nm = new double[n];
+            double[] t = new double[n];
+            boolean[] below = new boolean[n];
+            double[] limits = new double[n];
+            for (int i = 0; i < n; i++) {
+                nm[i] = (i == 0 ? 250 : nm[i - 1]) + 0.5 + 9 * random.nextDouble();
+                t[i] = random.nextInt(5) == 0 ? 0 : random.nextDouble();
+                limits[i] = 1e-4 * random.nextInt(30);
+                below[i] = t[i] <= limits[i];
+            }
+            Curve curve = Curve.of(nm, t, below, limits);
+            // stored points and points between them, in order
+            java.util.TreeSet<Double> points = new java.util.TreeSet<>(java.util.List.of(nm[0], nm[n - 1]));
+            for (int k = 0; k < 20; k++) {
+                points.add(random.nextBoolean() ? nm[random.nextInt(n)]
+                        : nm[0] + (nm[n - 1] - nm[0]) * random.nextDouble());
+            }
+            double[] at = points.stream().mapToDouble(Double::doubleValue).toArray();
+            Curve read = curve.resampleAt(at);
+            for (int k = 0; k < at.length; k++) {
+                assertThat(read.transmittance(k)).isEqualTo(curve.transmittanceAt(at[k]).getAsDouble());
+                assertThat(read.belowDetection(k)).isEqualTo(curve.belowDetectionAt(at[k]));
+                int hit = java.util.Arrays.binarySearch(nm, at[k]);
+                double limit = hit >= 0 ? limits[hit] : linear(nm, limits, -hit - 1, at[k]);
+                assertThat(read.detectionLimit(k)).isEqualTo(limit);
+            }
+        }
+    }
+
+    private static double linear(double[] nm, double[] values, int upper, double x) {
+        int lower = upper - 1;
+        double f = (x - nm[lower]) / (nm[upper] - nm[lower]);
+        return values[lower] * (1 - f) + values[upper] * f;
     }
 }

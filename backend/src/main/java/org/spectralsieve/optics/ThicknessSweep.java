@@ -1,0 +1,103 @@
+package org.spectralsieve.optics;
+
+import java.util.ArrayList;
+import java.util.List;
+import org.spectralsieve.spectrum.Curve;
+
+/**
+ * One bulk part read at many thicknesses, alone or in front of fixed parts: what a thickness solver asks for
+ * dozens of times per sample. Everything that does not depend on the thickness is computed once — each
+ * stored point's surface reflectance and internal transmittance K0 (of T and of the detection limit), and
+ * for a stack the shared wavelengths, the fixed parts' curves there and every part's reflectance there — so
+ * a thickness costs one Beer–Lambert power and one slab formula per stored point, plus the chain per shared
+ * point.
+ *
+ * <p>The numbers are those of the straightforward route, bit for bit: {@link #rescaled} equals
+ * {@link ThicknessRescaler#rescale} (same K0, same {@link BeerLambert#scaleInternal}, same
+ * {@link Slab#transmittance}), and {@link #path} equals {@code LightPath.of(Layer.fixed(rescaled(d), index),
+ * fixed...).transmittance()} (same shared wavelengths, same resampling, same {@code LightPath.combine}).
+ * Immutable after the stack's parts are first computed; not shared between threads.
+ */
+public final class ThicknessSweep {
+
+    private final Curve measured;
+    private final double measuredMm;
+    private final RefractiveIndex index;
+    private final List<Layer> fixed;
+    private final double[] reflectance;
+    private final double[] internal;
+    private final double[] internalAtLimit;
+    private Stack stack;
+
+    /** The fixed parts at the stack's shared wavelengths, with every part's reflectance there. */
+    private record Stack(double[] nm, Curve[] onShared, double[][] reflectances) {
+    }
+
+    /**
+     * @param fixed parts behind the bulk part, in order (empty: the part alone); each used as its
+     *              {@link Layer#transmittanceAt} gives
+     */
+    public ThicknessSweep(Curve measured, double measuredMm, RefractiveIndex index, List<Layer> fixed) {
+        BeerLambert.requireThickness("measuredMm", measuredMm);
+        this.measured = measured;
+        this.measuredMm = measuredMm;
+        this.index = index;
+        this.fixed = List.copyOf(fixed);
+        int n = measured.size();
+        reflectance = new double[n];
+        internal = new double[n];
+        internalAtLimit = new double[n];
+        for (int i = 0; i < n; i++) {
+            double r = Fresnel.reflectanceInAir(index.at(measured.wavelengthNm(i)));
+            reflectance[i] = r;
+            internal[i] = Slab.internalFromTransmittance(measured.transmittance(i), r);
+            internalAtLimit[i] = Slab.internalFromTransmittance(measured.detectionLimit(i), r);
+        }
+    }
+
+    /** The bulk part alone at {@code toMm}: equal to {@link ThicknessRescaler#rescale}. */
+    public Curve rescaled(double toMm) {
+        BeerLambert.requireThickness("toMm", toMm);
+        int n = measured.size();
+        double[] t = new double[n];
+        double[] limits = new double[n];
+        for (int i = 0; i < n; i++) {
+            t[i] = Slab.transmittance(BeerLambert.scaleInternal(internal[i], measuredMm, toMm), reflectance[i]);
+            limits[i] = Slab.transmittance(BeerLambert.scaleInternal(internalAtLimit[i], measuredMm, toMm), reflectance[i]);
+        }
+        return Curve.of(measured.wavelengthsNm(), t, measured.belowDetectionFlags(), limits);
+    }
+
+    /**
+     * The bulk part at {@code toMm} followed by the fixed parts (the part alone when there are none), on the
+     * parts' shared wavelengths as {@link LightPath#transmittance()} builds them.
+     *
+     * @throws org.spectralsieve.spectrum.CurveException when the parts' measured ranges do not overlap
+     */
+    public Curve path(double toMm) {
+        Curve alone = rescaled(toMm);
+        if (fixed.isEmpty()) {
+            return alone;
+        }
+        Stack s = stack();
+        Curve[] onShared = s.onShared().clone();
+        onShared[0] = alone.resampleAt(s.nm());
+        return LightPath.combine(s.nm().clone(), onShared, s.reflectances());
+    }
+
+    private Stack stack() {
+        if (stack == null) {
+            List<Layer> layers = new ArrayList<>();
+            // the measured curve has the wavelengths and range of every rescaled one
+            layers.add(Layer.fixed(measured, index));
+            layers.addAll(fixed);
+            double[] nm = LightPath.of(layers).sharedWavelengths();
+            Curve[] onShared = new Curve[layers.size()];
+            for (int j = 1; j < onShared.length; j++) {
+                onShared[j] = layers.get(j).transmittanceAt(nm);
+            }
+            stack = new Stack(nm, onShared, LightPath.reflectances(layers, nm));
+        }
+        return stack;
+    }
+}
