@@ -316,7 +316,7 @@ export function initFigures(ui) {
     const file = el('spectrum-file').files[0];
     const name = el('spectrum-name').value.trim();
     if (!name || !file) {
-      status.textContent = !name ? 'Give the spectrum a name (lower-case letters, digits, - . _).'
+      status.textContent = !name ? 'Give the spectrum a name (lower-case letters and digits, words joined by single dashes).'
         : 'Choose the file to import.';
       return;
     }

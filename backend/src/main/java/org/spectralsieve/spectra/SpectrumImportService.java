@@ -111,7 +111,7 @@ public final class SpectrumImportService {
     }
 
     private String checkName(SpectrumKind kind, String raw) {
-        String name = SpectrumNames.check("name", raw);
+        String name = ImportedNames.check("name", raw);
         if (lookup.isBuiltInName(name)) {
             throw new ImportRequestException("name", "'" + name + "' is the name of a built-in "
                     + (lookup.isBuiltIn(SpectrumKind.EMITTER, name) ? "emitter" : "response")

@@ -10,12 +10,12 @@ import org.spectralsieve.ingest.ImportRequestException;
  * query parameters and requirement text. Surrounding blanks and upper case are forgiven; anything else
  * is refused with the slug it could be.
  */
-final class SpectrumNames {
+final class ImportedNames {
 
     static final int MAX_LENGTH = 60;
     private static final Pattern SLUG = Pattern.compile("[a-z0-9]+(-[a-z0-9]+)*");
 
-    private SpectrumNames() {
+    private ImportedNames() {
     }
 
     /** @throws ImportRequestException naming {@code field} when the name is missing or not a slug */
