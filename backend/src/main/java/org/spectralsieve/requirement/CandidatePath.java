@@ -23,7 +23,7 @@ import org.spectralsieve.spectrum.Curve;
 final class CandidatePath {
 
     /** The index assumed for a non-bulk candidate stored without one: what import assumes too (n = 1.5). */
-    static final RefractiveIndex DEFAULT_INDEX = new ConstantIndex(1.5);
+    static final RefractiveIndex DEFAULT_INDEX = ConstantIndex.WHEN_UNRECORDED;
     private static final int CACHE_LIMIT = 256;
 
     private final Candidate candidate;

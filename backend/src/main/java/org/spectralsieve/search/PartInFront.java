@@ -18,9 +18,6 @@ import org.spectralsieve.spectrum.CurveException;
  */
 public final class PartInFront {
 
-    /** Index assumed for a sample whose material has none recorded (a coating, a laminate): glass and plastics. */
-    private static final RefractiveIndex UNRECORDED_INDEX = new ConstantIndex(1.5);
-
     /** A refused stack, naming the parameter ("part" for its words, "thickness" for its thickness). */
     public static final class Refused extends RuntimeException {
         private final boolean aboutThickness;
@@ -59,7 +56,7 @@ public final class PartInFront {
 
     /** The sample (as measured or rescaled) behind the part. */
     public static Curve through(SampleCurve sample, StackLayer part) {
-        RefractiveIndex index = sample.material().refractiveIndex() == null ? UNRECORDED_INDEX
+        RefractiveIndex index = sample.material().refractiveIndex() == null ? ConstantIndex.WHEN_UNRECORDED
                 : sample.material().refractiveIndex();
         try {
             return LightPath.of(Layer.fixed(sample.curve(), index), Layer.fixed(part.curve(), part.index()))
