@@ -30,14 +30,7 @@ class PostgresLibraryTest {
 
     @DynamicPropertySource
     static void database(DynamicPropertyRegistry registry) {
-        registry.add("spring.datasource.url", () -> System.getenv("SIEVE_TEST_POSTGRES_URL"));
-        registry.add("spring.datasource.username", () -> envOr("SIEVE_TEST_POSTGRES_USER", "sieve"));
-        registry.add("spring.datasource.password", () -> envOr("SIEVE_TEST_POSTGRES_PASSWORD", "sieve"));
-    }
-
-    private static String envOr(String name, String fallback) {
-        String value = System.getenv(name);
-        return value == null ? fallback : value;
+        TestPostgres.register(registry);
     }
 
     @Autowired

@@ -10,6 +10,7 @@ import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.condition.EnabledIfEnvironmentVariable;
 import org.spectralsieve.importers.ImportException;
 import org.spectralsieve.ingest.ImportRequestException;
+import org.spectralsieve.library.TestPostgres;
 import org.spectralsieve.weighting.Emitter;
 import org.springframework.beans.factory.annotation.Autowired;
 import org.springframework.boot.test.context.SpringBootTest;
@@ -32,14 +33,7 @@ class PostgresReferenceSpectrumTest {
 
     @DynamicPropertySource
     static void database(DynamicPropertyRegistry registry) {
-        registry.add("spring.datasource.url", () -> System.getenv("SIEVE_TEST_POSTGRES_URL"));
-        registry.add("spring.datasource.username", () -> envOr("SIEVE_TEST_POSTGRES_USER", "sieve"));
-        registry.add("spring.datasource.password", () -> envOr("SIEVE_TEST_POSTGRES_PASSWORD", "sieve"));
-    }
-
-    private static String envOr(String name, String fallback) {
-        String value = System.getenv(name);
-        return value == null ? fallback : value;
+        TestPostgres.register(registry);
     }
 
     @Autowired
