@@ -17,11 +17,12 @@ import java.util.List;
 import java.util.Locale;
 import java.util.Optional;
 import org.jooq.DSLContext;
-import org.junit.jupiter.api.Assumptions;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.spectralsieve.library.SampleCurves;
 import org.spectralsieve.spectrum.Curve;
+import org.spectralsieve.testsupport.ReadsSharedFolder;
+import org.spectralsieve.testsupport.SharedFolder;
 import org.spectralsieve.weighting.Emitter;
 import org.spectralsieve.weighting.Response;
 import org.spectralsieve.weighting.WeightedFigures;
@@ -214,8 +215,9 @@ class ReferenceSpectrumApiTest {
      * integrals), used only within the tool's 100–1100 nm.
      */
     @Test
+    @ReadsSharedFolder
     void theSolarReferenceSpectrumImportsWholeAndCountsWithinTheToolRange() throws Exception {
-        Path g173 = referenceFile("astm-g173-pvlib/ASTMG173.csv");
+        Path g173 = SharedFolder.referenceFile("astm-g173-pvlib/ASTMG173.csv");
         JsonNode s = importFile("emitters", g173, "solar-global", Optional.of("global"), 201);
 
         assertThat(s.path("points").asInt()).isEqualTo(2002);
@@ -246,9 +248,10 @@ class ReferenceSpectrumApiTest {
      * the 3 % between the two is the quadrature, not the data.
      */
     @Test
+    @ReadsSharedFolder
     void solarWeightedUvTransmittanceOfAMeasuredAcrylicSheetMatchesTheSourcesValue(@TempDir Path dir) throws Exception {
-        Path g173 = referenceFile("astm-g173-pvlib/ASTMG173.csv");
-        Path acrylic = referenceFile("measured-transmittance-aphalo/acrylic-clear-3mm.csv");
+        Path g173 = SharedFolder.referenceFile("astm-g173-pvlib/ASTMG173.csv");
+        Path acrylic = SharedFolder.referenceFile("measured-transmittance-aphalo/acrylic-clear-3mm.csv");
         Path wholeNanometres = dir.resolve("ASTMG173-1nm.csv");
         List<String> lines = Files.readAllLines(g173);
         List<String> kept = new ArrayList<>(lines.subList(0, 2));
@@ -279,8 +282,9 @@ class ReferenceSpectrumApiTest {
      * 250–450 nm must give 50 under G173 global.
      */
     @Test
+    @ReadsSharedFolder
     void anImportedSolarSpectrumServesAsTheUpfReference() throws Exception {
-        Path g173 = referenceFile("astm-g173-pvlib/ASTMG173.csv");
+        Path g173 = SharedFolder.referenceFile("astm-g173-pvlib/ASTMG173.csv");
         importFile("emitters", g173, "solar-global-upf", Optional.of("global"), 201);
         StringBuilder flat = new StringBuilder("wavelength_nm,transmittance\n");
         for (int nm = 250; nm <= 450; nm += 10) {
@@ -513,18 +517,6 @@ class ReferenceSpectrumApiTest {
             }
         }
         return sum;
-    }
-
-    private static Path referenceFile(String relative) {
-        Optional<Path> root = Optional.empty();
-        for (Path dir = Path.of("").toAbsolutePath(); dir != null && root.isEmpty(); dir = dir.getParent()) {
-            root = Optional.of(dir.resolve("shared/reference-data")).filter(Files::isDirectory);
-        }
-        Assumptions.assumeTrue(root.isPresent(), "shared reference data not present (no ../shared/reference-data above "
-                + Path.of("").toAbsolutePath() + "); skipping the check that reads " + relative);
-        Path file = root.get().resolve(relative);
-        Assumptions.assumeTrue(Files.isRegularFile(file), "reference file missing: " + file);
-        return file;
     }
 
     private URI uri(String path) {

@@ -6,34 +6,23 @@ import static org.assertj.core.api.Assertions.within;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.Optional;
-import org.junit.jupiter.api.Assumptions;
 import org.junit.jupiter.api.Test;
 import org.spectralsieve.importers.YKind;
+import org.spectralsieve.testsupport.ReadsSharedFolder;
+import org.spectralsieve.testsupport.SharedFolder;
 
 /**
  * Real files by other people, read from ../shared/reference-data beside the repository (never copied
  * in); skipped with a message where that folder is absent. Expected values: reference-data/SOURCES.md.
  */
+@ReadsSharedFolder
 class ReferenceFilePreviewTest {
 
-    private static final String ROOT = "shared/reference-data";
     private final FileImport reader = new FileImport(ImportProperties.defaults().maxPoints());
-
-    private static Path file(String relative) {
-        Optional<Path> root = Optional.empty();
-        for (Path dir = Path.of("").toAbsolutePath(); dir != null && root.isEmpty(); dir = dir.getParent()) {
-            root = Optional.of(dir.resolve(ROOT)).filter(Files::isDirectory);
-        }
-        Assumptions.assumeTrue(root.isPresent(), "shared reference data not present (no ../" + ROOT + " above "
-                + Path.of("").toAbsolutePath() + "); skipping the preview of " + relative);
-        Path file = root.get().resolve(relative);
-        Assumptions.assumeTrue(Files.isRegularFile(file), "reference file missing: " + file);
-        return file;
-    }
 
     @Test
     void measuredAcrylicCsvPreviewsAsDelimitedPercentWithSourcesValues() throws Exception {
-        Path f = file("measured-transmittance-aphalo/acrylic-clear-3mm.csv");
+        Path f = SharedFolder.referenceFile("measured-transmittance-aphalo/acrylic-clear-3mm.csv");
 
         FilePreview p = reader.read(f.getFileName().toString(), Files.readAllBytes(f), ImportOptions.defaults());
 
@@ -46,7 +35,7 @@ class ReferenceFilePreviewTest {
 
     @Test
     void jcampUvFilePreviewsByContentWithItsPointCount() throws Exception {
-        Path f = file("jcamp-cheminfo/uv.jdx");
+        Path f = SharedFolder.referenceFile("jcamp-cheminfo/uv.jdx");
         ImportOptions percent = new ImportOptions(null, Optional.of(YKind.TRANSMITTANCE_PERCENT), null, null, false,
                 null, null, null);
 

@@ -7,6 +7,7 @@ import java.io.IOException;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.CsvSource;
+import org.spectralsieve.testsupport.ReadsSharedFolder;
 import org.spectralsieve.weighting.ReferenceTables.Table;
 
 /**
@@ -69,6 +70,7 @@ class CieTablesTest {
      * (CIE 015 white point of D65; reference sheet §9 gives 95.0471 / 108.8829 for this sum).
      */
     @Test
+    @ReadsSharedFolder
     void d65WhitePointFromCieOneNanometreTables() throws IOException {
         Table d65 = ReferenceTables.referenceCsv("cie-1nm/d65.csv").between(360, 830);
         Table cmf = ReferenceTables.referenceCsv("cie-1nm/cmf1931.csv").between(360, 830);
@@ -85,6 +87,7 @@ class CieTablesTest {
      * 1 nm CMFs, 360-830 nm: X = 109.850, Z = 35.585 (sheet §9: 109.8503 / 35.5849).
      */
     @Test
+    @ReadsSharedFolder
     void illuminantAWhitePointFromTheAnalyticDefinition() throws IOException {
         Table cmf = ReferenceTables.referenceCsv("cie-1nm/cmf1931.csv").between(360, 830);
         double[] s = new double[cmf.nm().length];
@@ -102,6 +105,7 @@ class CieTablesTest {
      * between rows, gives the CIE value at every nm.
      */
     @Test
+    @ReadsSharedFolder
     void d65EmitterBetweenRowsMatchesTheCieOneNanometreTable() throws IOException {
         Table cie = ReferenceTables.referenceCsv("cie-datasets/CIE_std_illum_D65.csv");
         assertThat(cie.nm()).hasSize(531);
@@ -115,6 +119,7 @@ class CieTablesTest {
 
     /** At the 5 nm rows the shipped ȳ equals the CIE 1 nm ȳ (cie-1nm/cmf1931.csv) exactly. */
     @Test
+    @ReadsSharedFolder
     void shippedVAgreesWithTheCieOneNanometreTableAtItsRows() throws IOException {
         Table cmf = ReferenceTables.referenceCsv("cie-1nm/cmf1931.csv");
         int checked = 0;

@@ -8,9 +8,9 @@ import java.io.IOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.List;
-import java.util.Optional;
-import org.junit.jupiter.api.Assumptions;
 import org.junit.jupiter.api.Test;
+import org.spectralsieve.testsupport.ReadsSharedFolder;
+import org.spectralsieve.testsupport.SharedFolder;
 
 class EmitterTest {
 
@@ -127,10 +127,11 @@ class EmitterTest {
      * skipped where absent).
      */
     @Test
+    @ReadsSharedFolder
     void illuminantAMatchesTheCieOneNanometreTable() throws IOException {
         Emitter a = Emitter.illuminantA();
         assertThat(a.powerAt(560)).isCloseTo(100, within(1e-9));
-        Path table = referenceFile("cie-1nm/a.csv");
+        Path table = SharedFolder.referenceFile("cie-1nm/a.csv");
         List<String> lines = Files.readAllLines(table);
         int checked = 0;
         for (String line : lines) {
@@ -143,18 +144,6 @@ class EmitterTest {
             }
         }
         assertThat(checked).isEqualTo(471);
-    }
-
-    static Path referenceFile(String relative) {
-        Optional<Path> root = Optional.empty();
-        for (Path dir = Path.of("").toAbsolutePath(); dir != null && root.isEmpty(); dir = dir.getParent()) {
-            root = Optional.of(dir.resolve("shared/reference-data")).filter(Files::isDirectory);
-        }
-        Assumptions.assumeTrue(root.isPresent(), "shared reference data not present (no ../shared/reference-data"
-                + " above " + Path.of("").toAbsolutePath() + "); skipping the check against " + relative);
-        Path file = root.get().resolve(relative);
-        Assumptions.assumeTrue(Files.isRegularFile(file), "reference file missing: " + file);
-        return file;
     }
 
     @Test

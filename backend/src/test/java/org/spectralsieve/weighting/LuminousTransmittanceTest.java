@@ -11,8 +11,9 @@ import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.CsvSource;
 import org.junit.jupiter.params.provider.ValueSource;
 import org.spectralsieve.spectrum.Curve;
-import org.spectralsieve.weighting.ReferenceTables.Table;
+import org.spectralsieve.testsupport.ReadsSharedFolder;
 import org.spectralsieve.weighting.Figure.Bound;
+import org.spectralsieve.weighting.ReferenceTables.Table;
 
 class LuminousTransmittanceTest {
 
@@ -50,6 +51,7 @@ class LuminousTransmittanceTest {
      */
     @ParameterizedTest
     @CsvSource({"400, 0.99998", "450, 0.99457", "500, 0.92503", "550, 0.55757", "600, 0.15518", "650, 0.01357"})
+    @ReadsSharedFolder
     void idealEdgeOnTheCieOneNanometreTables(double edge, double expected) throws IOException {
         Table d65 = ReferenceTables.referenceCsv("cie-1nm/d65.csv");
         Table cmf = ReferenceTables.referenceCsv("cie-1nm/cmf1931.csv");

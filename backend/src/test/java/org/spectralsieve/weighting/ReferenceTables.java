@@ -6,6 +6,7 @@ import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
 import org.junit.jupiter.api.Assumptions;
+import org.spectralsieve.testsupport.SharedFolder;
 
 /**
  * Test-only readers for tables from outside the project: the CSV copies (CIE 1 nm tables, ASTM G173) in
@@ -45,9 +46,12 @@ final class ReferenceTables {
         }
     }
 
-    /** {@code wavelength,value[,value…]} lines (a non-numeric header line is skipped). */
+    /**
+     * {@code wavelength,value[,value…]} lines (a non-numeric header line is skipped) of a file in the shared
+     * reference data; the calling test must be marked {@code @ReadsSharedFolder}.
+     */
     static Table referenceCsv(String relative) throws IOException {
-        Path file = EmitterTest.referenceFile(relative);
+        Path file = SharedFolder.referenceFile(relative);
         List<double[]> rows = new ArrayList<>();
         for (String line : Files.readAllLines(file)) {
             String text = line.strip();

@@ -13,8 +13,9 @@ import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.Arguments;
 import org.junit.jupiter.params.provider.MethodSource;
 import org.spectralsieve.spectrum.Curve;
-import org.spectralsieve.weighting.ReferenceTables.Table;
+import org.spectralsieve.testsupport.ReadsSharedFolder;
 import org.spectralsieve.weighting.Figure.Bound;
+import org.spectralsieve.weighting.ReferenceTables.Table;
 
 class UltravioletProtectionFactorTest {
 
@@ -64,6 +65,7 @@ class UltravioletProtectionFactorTest {
     }
 
     @Test
+    @ReadsSharedFolder
     void flatTransmittanceUnderTheAstmG173GlobalSpectrum() throws IOException {
         Emitter solar = astmG173Global();
         for (double t : new double[] {0.1, 0.02, 0.0182}) {
@@ -80,6 +82,7 @@ class UltravioletProtectionFactorTest {
      * Every T is in [0.01, 1], so also 1 < UPF < 100.
      */
     @Test
+    @ReadsSharedFolder
     void stepFilterUnderTheAstmG173GlobalSpectrumLiesBetweenTheHandDerivedBounds() throws IOException {
         Emitter solar = astmG173Global();
         Table t = ReferenceTables.referenceCsv("astm-g173-pvlib/ASTMG173.csv").between(290, 400);

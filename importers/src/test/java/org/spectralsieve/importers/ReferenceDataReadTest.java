@@ -3,11 +3,10 @@ package org.spectralsieve.importers;
 import static org.assertj.core.api.Assertions.assertThat;
 import static org.assertj.core.api.Assertions.within;
 
-import java.nio.file.Files;
 import java.nio.file.Path;
-import java.util.Optional;
-import org.junit.jupiter.api.Assumptions;
 import org.junit.jupiter.api.Test;
+import org.spectralsieve.testsupport.ReadsSharedFolder;
+import org.spectralsieve.testsupport.SharedFolder;
 
 /**
  * Reads a real measured file from the shared reference data (never copied into the repository).
@@ -15,30 +14,17 @@ import org.junit.jupiter.api.Test;
  * header {@code Wavelength,Transmittance,StdDev}, T in percent, 190–1100 nm at 1 nm steps (so 911
  * points), T300 / T400 / T550 = 7.24 / 91.01 / 92.27 %, instrument floor written as 0.0100000…
  */
+@ReadsSharedFolder
 class ReferenceDataReadTest {
 
-    private static final String RELATIVE =
-            "shared/reference-data/measured-transmittance-aphalo/acrylic-clear-3mm.csv";
-
-    /** The data sit in ../shared next to the repository root; search upwards from the working directory. */
-    private static Optional<Path> locate() {
-        for (Path dir = Path.of("").toAbsolutePath(); dir != null; dir = dir.getParent()) {
-            Path candidate = dir.resolve(RELATIVE);
-            if (Files.isRegularFile(candidate)) {
-                return Optional.of(candidate);
-            }
-        }
-        return Optional.empty();
-    }
+    private static final String RELATIVE = "measured-transmittance-aphalo/acrylic-clear-3mm.csv";
 
     @Test
     void clearAcrylicSheetReadsWithSourcesMdValues() throws ImportException {
-        Optional<Path> file = locate();
-        Assumptions.assumeTrue(file.isPresent(), "shared reference data not present: ../" + RELATIVE
-                + " above " + Path.of("").toAbsolutePath());
+        Path file = SharedFolder.referenceFile(RELATIVE);
 
         // the header says "Transmittance" but SOURCES.md says the values are percent, so force the kind
-        ParsedSpectrum s = new DelimitedTextReader().read(file.get(),
+        ParsedSpectrum s = new DelimitedTextReader().read(file,
                 ReadOptions.defaults().withYKind(YKind.TRANSMITTANCE_PERCENT));
         double[] x = s.wavelengthsNm();
         double[] t = s.values();
@@ -57,10 +43,9 @@ class ReferenceDataReadTest {
 
     @Test
     void clearAcrylicSheetWithoutOverrideIsReadAsPercentWithAWarningThatItsHeaderNamesNoScale() throws ImportException {
-        Optional<Path> file = locate();
-        Assumptions.assumeTrue(file.isPresent(), "shared reference data not present: ../" + RELATIVE);
+        Path file = SharedFolder.referenceFile(RELATIVE);
 
-        ParsedSpectrum s = new DelimitedTextReader().read(file.get());
+        ParsedSpectrum s = new DelimitedTextReader().read(file);
 
         assertThat(s.yKind()).isEqualTo(YKind.TRANSMITTANCE_PERCENT);
         assertThat(s.warnings()).anyMatch(w -> w.contains("looks like percent"));

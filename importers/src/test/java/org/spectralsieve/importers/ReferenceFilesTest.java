@@ -10,6 +10,8 @@ import java.util.List;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.CsvSource;
+import org.spectralsieve.testsupport.ReadsSharedFolder;
+import org.spectralsieve.testsupport.SharedFolder;
 
 /**
  * Every measured-transmittance and DIY-spectrometer file of the shared reference data (never copied into
@@ -17,6 +19,7 @@ import org.junit.jupiter.params.provider.CsvSource;
  * percent, ranges, layouts) and section 9 (the DIY spectrometer exports). SOURCES.md rounds T to 0.01 %,
  * hence the 0.005 tolerance.
  */
+@ReadsSharedFolder
 class ReferenceFilesTest {
 
     private static final String APHALO = "measured-transmittance-aphalo/";
@@ -46,7 +49,7 @@ class ReferenceFilesTest {
             "pet-film-125um.txt                   | 190 | 800  | 0.3   | 91.3  | 92.1  | false"})
     void everyMeasuredFileReadsAsPercentWithTheSourcesValues(String name, double first, double last, double t300,
             double t400, double t550, boolean headerSaysPercent) throws ImportException {
-        ParsedSpectrum s = reader.read(ReferenceData.file(APHALO + name));
+        ParsedSpectrum s = reader.read(SharedFolder.referenceFile(APHALO + name));
 
         assertThat(s.yKind()).isEqualTo(YKind.TRANSMITTANCE_PERCENT);
         assertThat(s.xUnit()).isEqualTo(XUnit.NANOMETRE);
@@ -63,7 +66,7 @@ class ReferenceFilesTest {
 
     @Test
     void semicolonFilesAreDetectedAndTheirStdDevColumnIgnored() throws ImportException {
-        ParsedSpectrum s = reader.read(ReferenceData.file(APHALO + "instrument-blank.csv"));
+        ParsedSpectrum s = reader.read(SharedFolder.referenceFile(APHALO + "instrument-blank.csv"));
 
         // SOURCES.md §8: blank ≈100.03 throughout, up to 100.43
         assertThat(Arrays.stream(s.values()).max().orElseThrow()).isCloseTo(100.43, within(0.005));
@@ -72,7 +75,7 @@ class ReferenceFilesTest {
 
     @Test
     void darkFileSitsOnTheInstrumentFloorWithAMaximumOfPointFiveFour() throws ImportException {
-        ParsedSpectrum s = reader.read(ReferenceData.file(APHALO + "instrument-dark.csv"));
+        ParsedSpectrum s = reader.read(SharedFolder.referenceFile(APHALO + "instrument-dark.csv"));
 
         // SOURCES.md §8: floor 0.0100, max 0.54 (%T)
         assertThat(Arrays.stream(s.values()).min().orElseThrow()).isCloseTo(0.0100, within(1e-6));
@@ -81,7 +84,7 @@ class ReferenceFilesTest {
 
     @Test
     void ldpeReplicatePairsReadFirstByDefaultWithAWarningNamingTheSecond() throws ImportException {
-        ParsedSpectrum s = reader.read(ReferenceData.file(APHALO + "ldpe-film-50um.txt"));
+        ParsedSpectrum s = reader.read(SharedFolder.referenceFile(APHALO + "ldpe-film-50um.txt"));
 
         assertThat(s.warnings()).anyMatch(w -> w.contains("w.length.2/transmittance.2"));
         assertThat(s.metadata()).doesNotContainKey("replicate");
@@ -90,7 +93,7 @@ class ReferenceFilesTest {
 
     @Test
     void ldpeReplicatesReadSeparatelyOrAsTheirMean() throws ImportException {
-        Path file = ReferenceData.file(APHALO + "ldpe-film-50um.txt");
+        Path file = SharedFolder.referenceFile(APHALO + "ldpe-film-50um.txt");
 
         List<ParsedSpectrum> both = reader.readAll(file, ReadOptions.defaults().replicates(Replicates.SEPARATE));
         ParsedSpectrum mean = reader.read(file, ReadOptions.defaults().replicates(Replicates.MEAN));
@@ -107,7 +110,7 @@ class ReferenceFilesTest {
 
     @Test
     void acetateFileWithMixedTabsAndSpacesKeepsItsCommentsAsPlainRemarks() throws ImportException {
-        ParsedSpectrum s = reader.read(ReferenceData.file(APHALO + "acetate-film-115um.txt"));
+        ParsedSpectrum s = reader.read(SharedFolder.referenceFile(APHALO + "acetate-film-115um.txt"));
 
         assertThat(s.size()).isEqualTo(911);
         assertThat(s.metadata()).isEmpty(); // "# cellulose diacetate 0.115 mm thick" has no key: value form
@@ -115,8 +118,9 @@ class ReferenceFilesTest {
 
     @Test
     void diyLampExportIsNotATransmittanceFileAndSaysSo() {
-        ImportException e = catchThrowableOfType(ImportException.class,
-                () -> reader.read(ReferenceData.file(DIY + "Spectrum-20260313--130715.csv")));
+        Path lampExport = SharedFolder.referenceFile(DIY + "Spectrum-20260313--130715.csv");
+
+        ImportException e = catchThrowableOfType(ImportException.class, () -> reader.read(lampExport));
 
         assertThat(e.line()).isEqualTo(10); // 9 '#' lines, then the header
         assertThat(e.problem()).startsWith("no value column in header [Pixel, Wavelength, Measured, Dark]");
@@ -126,7 +130,7 @@ class ReferenceFilesTest {
     void diyLampExportReadsAsRawCapturesWithTheSourcesValues() throws ImportException {
         RawCounts raw = new RawCountsReader().withExposureMs(CaptureRole.SAMPLE, 1)
                 .withExposureMs(CaptureRole.DARK, 1)
-                .read(ReferenceData.file(DIY + "Spectrum-20260313--130715.csv"));
+                .read(SharedFolder.referenceFile(DIY + "Spectrum-20260313--130715.csv"));
 
         // SOURCES.md §9: 1280 pixels, 268.94–903.38 nm, Measured clipped at 0 (168 zeros), Dark mean 0.0713,
         // maximum at 523.35 nm
@@ -148,9 +152,11 @@ class ReferenceFilesTest {
 
     @Test
     void diyExportWithABadCalibrationIsRefusedAtBothTurningPoints() {
+        // resolved outside the lambda: a skip thrown inside it would be caught as the wrong exception
+        Path badCalibration = SharedFolder.referenceFile(DIY + "Spectrum-20260309--010902.csv");
+
         ImportException e = catchThrowableOfType(ImportException.class,
-                () -> new RawCountsReader().withExposureMs(CaptureRole.SAMPLE, 1)
-                        .read(ReferenceData.file(DIY + "Spectrum-20260309--010902.csv")));
+                () -> new RawCountsReader().withExposureMs(CaptureRole.SAMPLE, 1).read(badCalibration));
 
         // SOURCES.md §9: the axis runs 354.9 down, up to 626.2, down to 251.2 nm. The file itself turns at
         // line 27 (351.614689 after 351.612659) and line 418 (626.179283 after 626.186021).

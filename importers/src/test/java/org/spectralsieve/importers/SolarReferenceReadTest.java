@@ -5,6 +5,8 @@ import static org.assertj.core.api.Assertions.within;
 
 import java.nio.file.Path;
 import org.junit.jupiter.api.Test;
+import org.spectralsieve.testsupport.ReadsSharedFolder;
+import org.spectralsieve.testsupport.SharedFolder;
 
 /**
  * The ASTM G173-03 solar reference spectra from the shared reference data (never copied in), read as a
@@ -13,10 +15,11 @@ import org.junit.jupiter.api.Test;
  * 280–4000 nm in W m⁻² nm⁻¹; trapezoid integrals ETR 1347.93, global 1000.37, direct 900.14 W m⁻²;
  * global over 280–400 nm 46.10 W m⁻².
  */
+@ReadsSharedFolder
 class SolarReferenceReadTest {
 
     private static SpectrumValues read(String column) throws ImportException {
-        Path file = ReferenceData.file("astm-g173-pvlib/ASTMG173.csv");
+        Path file = SharedFolder.referenceFile("astm-g173-pvlib/ASTMG173.csv");
         return new DelimitedValuesReader().read(file, SpectrumValuesOptions.defaults().valueColumn(column));
     }
 

@@ -14,6 +14,8 @@ import org.spectralsieve.importers.ImportException;
 import org.spectralsieve.importers.ParsedSpectrum;
 import org.spectralsieve.importers.XUnit;
 import org.spectralsieve.importers.YKind;
+import org.spectralsieve.testsupport.ReadsSharedFolder;
+import org.spectralsieve.testsupport.SharedFolder;
 
 /**
  * Every JCAMP-DX file of the shared reference data decodes to the values its SOURCES.md gives
@@ -21,6 +23,7 @@ import org.spectralsieve.importers.YKind;
  * collector with a decoder checked against a second open-source JCAMP reader; SOURCES.md rounds them,
  * so each check allows half a unit in the last decimal written (0.1626 → ±0.00005).
  */
+@ReadsSharedFolder
 class JcampReferenceFilesTest {
 
     private final JcampReader reader = new JcampReader();
@@ -53,7 +56,7 @@ class JcampReferenceFilesTest {
             """)
     void referenceFileDecodesToSourcesMdValues(String file, int block, int n, String x0, String xLast, String y0,
             String yLast, String yMin, String yMax) throws ImportException {
-        List<JcampBlock> blocks = reader.blocks(ReferenceFiles.require(file));
+        List<JcampBlock> blocks = reader.blocks(SharedFolder.referenceFile(file));
         JcampBlock b = blocks.get(block);
         double[] x = b.x();
         double[] y = b.y();
@@ -81,7 +84,7 @@ class JcampReferenceFilesTest {
     @Test
     void dupinc1PeaksAt445NanometresAndItsWrongMinyOnlyWarns() throws ImportException {
         // SOURCES.md §1 dupinc1.jdx: max 3.3747 at 445.0 nm; header MINY=0.0604 disagrees with the data (0.0769)
-        ParsedSpectrum s = reader.read(ReferenceFiles.require("jcamp-lancashire/dupinc1.jdx"));
+        ParsedSpectrum s = reader.read(SharedFolder.referenceFile("jcamp-lancashire/dupinc1.jdx"));
         double[] x = s.wavelengthsNm();
         double[] a = s.values();
         int peak = 0;
@@ -121,8 +124,8 @@ class JcampReferenceFilesTest {
     void polystyreneInFixAndDifdupFormsHasIdenticalRawOrdinates() throws ImportException {
         // SOURCES.md §1 jtpolys/jtpolysd: raw integers identical (1844/1844); the scaled values differ by
         // ×1.001775 because jtpolysd writes YFACTOR 2.3884185791e-09 (a typo for 2.384185791e-09)
-        JcampBlock fix = reader.blocks(ReferenceFiles.require("jcamp-lancashire/jtpolys.jdx")).get(0);
-        JcampBlock difdup = reader.blocks(ReferenceFiles.require("jcamp-lancashire/jtpolysd.jdx")).get(0);
+        JcampBlock fix = reader.blocks(SharedFolder.referenceFile("jcamp-lancashire/jtpolys.jdx")).get(0);
+        JcampBlock difdup = reader.blocks(SharedFolder.referenceFile("jcamp-lancashire/jtpolysd.jdx")).get(0);
 
         assertThat(difdup.rawY()).containsExactly(fix.rawY());
         assertThat(difdup.y()[0] / fix.y()[0]).isCloseTo(1.001775, within(1e-6));
@@ -131,8 +134,8 @@ class JcampReferenceFilesTest {
     @Test
     void indeneAbsorbanceIsMinusLogOfItsTransmittanceFlooredAtOneThousandth() throws ImportException {
         // SOURCES.md §1 xyinc1/fixinc2: A = −log10(T) to ≤ 5e-5 at all 3601 points when T is floored at 1e-3
-        double[] t = reader.blocks(ReferenceFiles.require("jcamp-lancashire/xyinc1.jdx")).get(0).y();
-        double[] a = reader.blocks(ReferenceFiles.require("jcamp-lancashire/fixinc2.jdx")).get(0).y();
+        double[] t = reader.blocks(SharedFolder.referenceFile("jcamp-lancashire/xyinc1.jdx")).get(0).y();
+        double[] a = reader.blocks(SharedFolder.referenceFile("jcamp-lancashire/fixinc2.jdx")).get(0).y();
 
         assertThat(a).hasSameSizeAs(t).hasSize(3601);
         double worst = 0;
@@ -146,7 +149,7 @@ class JcampReferenceFilesTest {
     void descendingWavenumbersAreAlreadyAscendingWavelengths() throws ImportException {
         // SOURCES.md §1 sqzdupd1: 5000.03 → 499.96 cm⁻¹, y(first)=0.98287, y(last)=1.26502; λ = 10⁷/ν̃, so
         // falling wavenumbers are rising wavelengths and the file order is kept
-        ParsedSpectrum s = reader.read(ReferenceFiles.require("jcamp-lancashire/sqzdupd1.jdx"));
+        ParsedSpectrum s = reader.read(SharedFolder.referenceFile("jcamp-lancashire/sqzdupd1.jdx"));
         double[] x = s.wavelengthsNm();
         double[] y = s.values();
 
@@ -161,7 +164,7 @@ class JcampReferenceFilesTest {
     @Test
     void ascendingWavenumbersAreReversedSoWavelengthsIncrease() throws ImportException {
         // SOURCES.md §1 jtpolys: 447.48–4002.28 cm⁻¹ increasing, y(first)=0.981633, y(last)=0.986610
-        ParsedSpectrum s = reader.read(ReferenceFiles.require("jcamp-lancashire/jtpolys.jdx"));
+        ParsedSpectrum s = reader.read(SharedFolder.referenceFile("jcamp-lancashire/jtpolys.jdx"));
         double[] x = s.wavelengthsNm();
 
         assertThat(x[0]).isCloseTo(1e7 / 4002.28378, within(1e-6));
@@ -173,7 +176,7 @@ class JcampReferenceFilesTest {
     @Test
     void nearInfraredLinkFileConvertsToItsWavelengthRange() throws ImportException {
         // SOURCES.md §3 example_compound_file: 11995.21→3999.69 cm⁻¹ (≈833.7–2500.2 nm), block 1 by default
-        ParsedSpectrum s = reader.read(ReferenceFiles.require("jcamp-nzhagen-examples/example_compound_file.jdx"));
+        ParsedSpectrum s = reader.read(SharedFolder.referenceFile("jcamp-nzhagen-examples/example_compound_file.jdx"));
 
         assertThat(s.wavelengthsNm()[0]).isCloseTo(833.7, within(0.05));
         assertThat(s.wavelengthsNm()[s.size() - 1]).isCloseTo(2500.2, within(0.05));
@@ -184,7 +187,7 @@ class JcampReferenceFilesTest {
     @Test
     void linkFileReadsItsFirstSpectrumBlockUnlessAnotherIsChosen() throws ImportException {
         // SOURCES.md §2 uv-link: block 1 ABSORBANCE y(190)=−0.72973; block 2 is the VARIANCE (8.4e-5…1.3727)
-        java.nio.file.Path file = ReferenceFiles.require("jcamp-cheminfo/uv-link.jdx");
+        java.nio.file.Path file = SharedFolder.referenceFile("jcamp-cheminfo/uv-link.jdx");
 
         ParsedSpectrum first = reader.read(file);
         assertThat(first.values()[0]).isCloseTo(-0.72973, within(5e-6));
@@ -203,7 +206,7 @@ class JcampReferenceFilesTest {
     @Test
     void blockPackLinkKeepsEachBlocksOwnMetadataAndWarnsOfSwappedExtrema() throws ImportException {
         // SOURCES.md §1 blckpac1: five blocks, BLOCK_ID written inconsistently, header MAXY/MINY swapped
-        java.nio.file.Path file = ReferenceFiles.require("jcamp-lancashire/blckpac1.jdx");
+        java.nio.file.Path file = SharedFolder.referenceFile("jcamp-lancashire/blckpac1.jdx");
         List<JcampBlock> blocks = reader.blocks(file);
 
         assertThat(blocks).hasSize(6);
@@ -218,7 +221,7 @@ class JcampReferenceFilesTest {
     @Test
     void percentValuesUnderATransmittanceHeaderAreKeptButFlagged() throws ImportException {
         // SOURCES.md §1 pacdec1: TRANSMITTANCE header, values 86.31–101.89 (really percent)
-        ParsedSpectrum s = reader.read(ReferenceFiles.require("jcamp-lancashire/pacdec1.jdx"));
+        ParsedSpectrum s = reader.read(SharedFolder.referenceFile("jcamp-lancashire/pacdec1.jdx"));
 
         assertThat(s.yKind()).isEqualTo(YKind.TRANSMITTANCE_FRACTION);
         assertThat(s.warnings()).anyMatch(w -> w.contains("looks like percent"));
@@ -227,7 +230,7 @@ class JcampReferenceFilesTest {
     @Test
     void nanometreDataLabelledWavenumbersWarnWhenTheKindIsForced() throws ImportException {
         // SOURCES.md §2, the UV-vis file with contradictory metadata: XUNITS=1/CM but x = 210–650 (really nm); YUNITS ARBITRARY UNITS
-        java.nio.file.Path file = ReferenceFiles.require("jcamp-cheminfo/uv_ACD.jdx");
+        java.nio.file.Path file = SharedFolder.referenceFile("jcamp-cheminfo/uv_ACD.jdx");
 
         assertThatThrownBy(() -> reader.read(file)).isInstanceOf(ImportException.class)
                 .hasMessageContaining("line 20").hasMessageContaining("##YUNITS");
@@ -239,7 +242,7 @@ class JcampReferenceFilesTest {
     void peakTableWithFreeTextUnitsAndAStrayHeaderLineReads() throws ImportException {
         // SOURCES.md §2 uv.jdx: XUNITS "wavelength [nm]", a stray non-LDR line in the header, no newline
         // after ##END; its YUNITS "Reflectance" is not a transmittance, so the kind must be chosen
-        ParsedSpectrum s = reader.read(ReferenceFiles.require("jcamp-cheminfo/uv.jdx"),
+        ParsedSpectrum s = reader.read(SharedFolder.referenceFile("jcamp-cheminfo/uv.jdx"),
                 JcampOptions.defaults().withYKind(YKind.TRANSMITTANCE_PERCENT));
 
         assertThat(s.xUnit()).isEqualTo(XUnit.NANOMETRE);
@@ -251,7 +254,7 @@ class JcampReferenceFilesTest {
     void isopropanolWarnsOfItsWrongFirstYButNotOfItsRoundedExtrema() throws ImportException {
         // SOURCES.md §3 isopropanol_ASDF: header FIRSTY=0 but the first decoded y is 0.03005; its MINY=-0.09
         // and MAXY=0.37 are the decoded −0.0855 and 0.3689 rounded to two decimals, which is not an error
-        ParsedSpectrum s = reader.read(ReferenceFiles.require("jcamp-nzhagen-examples/isopropanol_ASDF.jdx"));
+        ParsedSpectrum s = reader.read(SharedFolder.referenceFile("jcamp-nzhagen-examples/isopropanol_ASDF.jdx"));
 
         assertThat(s.warnings()).hasSize(1).allMatch(w -> w.contains("##FIRSTY=0"));
     }
@@ -259,13 +262,13 @@ class JcampReferenceFilesTest {
     @Test
     void trailingCtrlZAfterEndIsIgnored() throws ImportException {
         // SOURCES.md §1 xyinc1: a DOS Ctrl-Z (0x1A) after ##END=, and ##JCAMP_DX spelt with an underscore
-        ParsedSpectrum s = reader.read(ReferenceFiles.require("jcamp-lancashire/xyinc1.jdx"));
+        ParsedSpectrum s = reader.read(SharedFolder.referenceFile("jcamp-lancashire/xyinc1.jdx"));
 
         assertThat(s.size()).isEqualTo(3601);
         assertThat(s.metadata()).containsKey("jcamp_dx");
     }
 
     private double[] rawOf(String file) throws ImportException {
-        return reader.blocks(ReferenceFiles.require(file)).get(0).rawY();
+        return reader.blocks(SharedFolder.referenceFile(file)).get(0).rawY();
     }
 }

@@ -1,0 +1,98 @@
+package org.spectralsieve.testsupport;
+
+import java.lang.StackWalker.StackFrame;
+import java.lang.reflect.AnnotatedElement;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.Optional;
+import org.junit.jupiter.api.Assumptions;
+
+/**
+ * The one place tests find the shared folder: published reference files and real measurements by other
+ * people ({@code reference-data/}, with its {@code SOURCES.md}), kept beside the repository as
+ * {@code ../shared} and never copied into it.
+ *
+ * <p>Where it is: the system property {@value #PROPERTY}, which the root POM sets for every module's tests
+ * to {@code ../shared} beside the repository and which {@code mvn test -Dsieve.shared-dir=DIR} overrides;
+ * without the property (a test started from an IDE that does not pass it) the folder beside the outermost
+ * directory holding a {@code pom.xml}, counted up from the working directory.
+ *
+ * <p>A missing folder or file skips the calling test (a JUnit assumption), saying what was looked for and
+ * where: a fresh clone has no {@code ../shared}, and its tests must still pass. Call it outside any
+ * {@code assertThatThrownBy}/{@code catchThrowable} lambda, which would catch the skip as a failure.
+ * Every caller must be marked {@link ReadsSharedFolder}; an unmarked one fails at once, because CI proves
+ * the skipping by running exactly the marked tests without the folder.
+ */
+public final class SharedFolder {
+
+    /** The one setting: the shared folder's path. */
+    public static final String PROPERTY = "sieve.shared-dir";
+
+    private static final StackWalker STACK = StackWalker.getInstance(StackWalker.Option.RETAIN_CLASS_REFERENCE);
+
+    private SharedFolder() {
+    }
+
+    /** The configured folder, whether or not it exists. */
+    public static Path root() {
+        String configured = System.getProperty(PROPERTY);
+        if (configured != null && !configured.isBlank()) {
+            return Path.of(configured).toAbsolutePath().normalize();
+        }
+        return besideRepository();
+    }
+
+    /** A file of {@code reference-data/} (e.g. {@code "cie-1nm/a.csv"}), or the calling test is skipped. */
+    public static Path referenceFile(String relative) {
+        return file("reference-data/" + relative);
+    }
+
+    /** A file of the shared folder (e.g. {@code "reference-data/cie-1nm/a.csv"}), or the calling test is skipped. */
+    public static Path file(String relative) {
+        requireMarkedCaller(relative);
+        Path root = root();
+        Assumptions.assumeTrue(Files.isDirectory(root), () -> "shared folder not present: no " + root
+                + " (../shared beside the repository, or -D" + PROPERTY + "=DIR); skipping this check of "
+                + relative);
+        Path file = root.resolve(relative);
+        Assumptions.assumeTrue(Files.isRegularFile(file), () -> "shared file not present: no " + file
+                + " (shared folder " + root + "); skipping this check");
+        return file;
+    }
+
+    /** {@code ../shared} beside the outermost directory, from the working directory up, that holds a pom.xml. */
+    private static Path besideRepository() {
+        Path repository = Path.of("").toAbsolutePath();
+        for (Path dir = repository; dir != null && Files.isRegularFile(dir.resolve("pom.xml")); dir = dir.getParent()) {
+            repository = dir;
+        }
+        return repository.resolveSibling("shared");
+    }
+
+    private static void requireMarkedCaller(String relative) {
+        boolean marked = STACK.walk(frames -> frames.anyMatch(SharedFolder::isMarked));
+        if (!marked) {
+            throw new IllegalStateException("a test reads the shared file " + relative + " but neither the test"
+                    + " method nor its class is marked @" + ReadsSharedFolder.class.getSimpleName()
+                    + "; mark it, so that CI's run without the shared folder checks that it skips");
+        }
+    }
+
+    private static boolean isMarked(StackFrame frame) {
+        for (Class<?> c = frame.getDeclaringClass(); c != null; c = c.getEnclosingClass()) {
+            if (c.isAnnotationPresent(ReadsSharedFolder.class)) {
+                return true;
+            }
+        }
+        return method(frame).map(m -> m.isAnnotationPresent(ReadsSharedFolder.class)).orElse(false);
+    }
+
+    private static Optional<AnnotatedElement> method(StackFrame frame) {
+        try {
+            return Optional.of(frame.getDeclaringClass().getDeclaredMethod(frame.getMethodName(),
+                    frame.getMethodType().parameterArray()));
+        } catch (NoSuchMethodException e) {
+            return Optional.empty(); // a constructor or class initialiser: only its class can be marked
+        }
+    }
+}

@@ -1,0 +1,90 @@
+package org.spectralsieve.testsupport;
+
+import static org.assertj.core.api.Assertions.assertThat;
+import static org.assertj.core.api.Assertions.assertThatThrownBy;
+
+import java.io.IOException;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import org.junit.jupiter.api.AfterEach;
+import org.junit.jupiter.api.BeforeEach;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+import org.opentest4j.TestAbortedException;
+
+/**
+ * The lookup every test of the project uses for {@code ../shared}. These tests are deliberately not
+ * marked: they make their own folders and must run (not skip) in CI's run without the shared folder;
+ * they call the lookup through {@link #lookUp}, which is marked as a reading test's method would be.
+ */
+class SharedFolderTest {
+
+    private String before;
+
+    @BeforeEach
+    void remember() {
+        before = System.getProperty(SharedFolder.PROPERTY);
+    }
+
+    @AfterEach
+    void restore() {
+        if (before == null) {
+            System.clearProperty(SharedFolder.PROPERTY);
+        } else {
+            System.setProperty(SharedFolder.PROPERTY, before);
+        }
+    }
+
+    @ReadsSharedFolder
+    private static Path lookUp(String relative) {
+        return SharedFolder.referenceFile(relative);
+    }
+
+    @Test
+    void aReferenceFileInTheConfiguredFolderIsFound(@TempDir Path shared) throws IOException {
+        Path file = Files.createDirectories(shared.resolve("reference-data/cie-1nm")).resolve("a.csv");
+        Files.writeString(file, "300,0.930483\n");
+        System.setProperty(SharedFolder.PROPERTY, shared.toString());
+
+        assertThat(lookUp("cie-1nm/a.csv")).isEqualTo(file);
+    }
+
+    @Test
+    void aMissingFolderSkipsTheTestSayingWhereItLooked(@TempDir Path parent) {
+        Path absent = parent.resolve("no-such-folder");
+        System.setProperty(SharedFolder.PROPERTY, absent.toString());
+
+        assertThatThrownBy(() -> lookUp("cie-1nm/a.csv")).isInstanceOf(TestAbortedException.class)
+                .hasMessageContaining("shared folder not present: no " + absent)
+                .hasMessageContaining("cie-1nm/a.csv");
+    }
+
+    @Test
+    void aMissingFileInAnEmptyFolderSkipsTheTestNamingTheFile(@TempDir Path empty) {
+        System.setProperty(SharedFolder.PROPERTY, empty.toString());
+
+        assertThatThrownBy(() -> lookUp("astm-g173-pvlib/ASTMG173.csv")).isInstanceOf(TestAbortedException.class)
+                .hasMessageContaining("shared file not present: no "
+                        + empty.resolve("reference-data/astm-g173-pvlib/ASTMG173.csv"));
+    }
+
+    @Test
+    void anUnmarkedCallerIsRefusedSoCiCannotLeaveItOutOfTheRunWithoutTheFolder(@TempDir Path shared) {
+        System.setProperty(SharedFolder.PROPERTY, shared.toString());
+
+        assertThatThrownBy(() -> SharedFolder.referenceFile("cie-1nm/a.csv"))
+                .isInstanceOf(IllegalStateException.class)
+                .hasMessageContaining("@ReadsSharedFolder");
+    }
+
+    @Test
+    void withoutThePropertyTheFolderBesideTheRepositoryIsUsed() {
+        System.clearProperty(SharedFolder.PROPERTY);
+        // Maven runs these tests in test-support/, one level below the repository root
+        Path module = Path.of("").toAbsolutePath();
+        assertThat(module.resolve("pom.xml")).exists();
+        assertThat(module.resolveSibling("pom.xml")).exists();
+
+        assertThat(SharedFolder.root()).isEqualTo(module.getParent().resolveSibling("shared"));
+    }
+}
