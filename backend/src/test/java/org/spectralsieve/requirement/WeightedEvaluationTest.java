@@ -302,7 +302,7 @@ class WeightedEvaluationTest {
 
     @Test
     void aLayerCanOnlyLowerTransmittanceAtEveryWavelength() {
-        // why a pass on the candidate alone is a necessary condition for the stack (DEVELOPERS, store soundness):
+        // why a pass on the candidate alone is a necessary condition for the stack (docs/store.md, "Store use"):
         // T1·T2/(1 − R1·R2) ≤ T1 because T2 + R2 ≤ 1 for any absorbing slab
         double[] nm = new double[911];
         double[] t = new double[nm.length];

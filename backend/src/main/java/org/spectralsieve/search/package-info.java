@@ -1,0 +1,13 @@
+/**
+ * Requirement search as the service runs it: {@link org.spectralsieve.search.SearchService} lets the
+ * in-memory store pick the shortlist (or prove misses, for requirements the store cannot rank) and then
+ * judges every sample of the picked materials exactly on its stored curve, so each row a user sees comes
+ * from the exact evaluator of {@code requirement}. The store is built from the database on the first
+ * search and dropped after every committed import ({@code invalidate()}).
+ *
+ * <p>{@link org.spectralsieve.search.LayerMatcher} resolves the words of a fixed layer ({@code behind 4 mm
+ * clear float glass}) to one material by one deterministic rule, or refuses with the choices or
+ * suggestions; {@link org.spectralsieve.search.PartInFront} does the same for the figures' {@code behind}.
+ * Detail: {@code docs/requirement-search.md} and {@code docs/store.md}.
+ */
+package org.spectralsieve.search;
