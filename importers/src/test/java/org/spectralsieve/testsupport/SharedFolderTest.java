@@ -80,7 +80,7 @@ class SharedFolderTest {
     @Test
     void withoutThePropertyTheFolderBesideTheRepositoryIsUsed() {
         System.clearProperty(SharedFolder.PROPERTY);
-        // Maven runs these tests in test-support/, one level below the repository root
+        // Maven runs these tests in importers/, one level below the repository root
         Path module = Path.of("").toAbsolutePath();
         assertThat(module.resolve("pom.xml")).exists();
         assertThat(module.resolveSibling("pom.xml")).exists();
