@@ -68,7 +68,7 @@ final class FilmStock {
                         List.of("PET", "window film", "UV-blocking"), PET_INDEX,
                         List.of(Stock.stack(new Layer("polyester film", 0.05, PET),
                                 new Layer("UV-absorbing adhesive", 0.025,
-                                        Absorption.of(new LogisticEdge(388, 2500, 0.05, 4)))))),
+                                        Absorption.of(StockParts.uvAbsorber(398, 2500, 0.05)))))),
                 // WHY: a clean inkjet-film base passes ~80–88 % across 350–420 nm; its receptive coating lowers
                 // this (derived, PRACTICE.md §2).
                 Stock.fixed("inkjet-film-clear", "Inkjet positive film, unprinted", FILM,

@@ -74,6 +74,20 @@ final class StockParts {
      */
     static final double UV_ABSORBER_ALPHA_PER_MM = 50;
 
+    /**
+     * Steepness of a UV absorber's edge as d(ln α)/dλ at its midpoint, 1/nm. Calibrated: the fitted
+     * polycarbonate and UV-filtering acrylic edges give 0.17 and 0.20. The slope belongs to the absorber
+     * molecule, not to how much of it a layer holds (α = concentration × its absorptivity), so thin
+     * absorber layers (lacquers, interlayers, cap layers, adhesives) share it.
+     */
+    static final double UV_ABSORBER_LOG_SLOPE_PER_NM = 0.18;
+
+    /** A UV absorber edge at {@code edgeNm} with the shared slope: logistic width = ln(α₋/α₊)/(4·slope). */
+    static LogisticEdge uvAbsorber(double edgeNm, double alphaBelowPerMm, double alphaAbovePerMm) {
+        double width = Math.log(alphaBelowPerMm / alphaAbovePerMm) / (4 * UV_ABSORBER_LOG_SLOPE_PER_NM);
+        return new LogisticEdge(edgeNm, alphaBelowPerMm, alphaAbovePerMm, width);
+    }
+
     /** Terephthalate absorption of PET: the strong band that closes the film below about 315 nm. */
     static final LogisticEdge PET_TEREPHTHALATE_EDGE = new LogisticEdge(330, 500, 1e-4, 12.5);
 
