@@ -24,10 +24,12 @@ final class FilmStock {
 
     static List<MaterialSpec> materials() {
         return List.of(
-                // WHY: PET absorbs up to ~320 nm [S31]; uncoated ceiling ≈ 88.6 % (derived, PRACTICE.md §1).
+                // WHY: PET absorbs up to ~320 nm [S31]; uncoated ceiling ≈ 88.6 % (derived, PRACTICE.md §1);
+                // measured PET film (0.125 mm) reaches 50 % near 323 nm over a 12 nm 1 %→50 % rise, then climbs
+                // slowly to its plateau by about 420 nm (calibrated, docs/demo-library.md).
                 Stock.bulk("clear-pet-film", "Clear polyester film, roll stock", FILM,
-                        "Biaxially oriented PET film: opaque below about 310 nm, edge near 316–320 nm, about 88 % "
-                                + "in the visible. Modelled.",
+                        "Biaxially oriented PET film: opaque below about 310 nm, 50 % near 320–325 nm, rising "
+                                + "slowly through 330–420 nm to about 88 % in the visible. Modelled.",
                         List.of("PET", "polyester", "film base"), PET_INDEX, PET, 0.05, 0.1, 0.25),
                 // WHY: FEP has high UV transmittance; vat film > 92 % when new [S39][S40]; ceiling 95.9 % (n ≈ 1.34).
                 Stock.bulk("fep-film", "FEP film, resin-vat and LED-cover stock", FILM,
@@ -42,20 +44,21 @@ final class FilmStock {
                         List.of("FEP", "fluoropolymer", "resin vat", "aged", "scattering"), new IndexSpec.Constant(1.34),
                         Absorption.of(new UrbachEdge(190, 4.0, 0.7), new FlatBackground(0.1), new ScatterLoss(1.2, 1.5)),
                         0.127),
-                // WHY: polyimide film is amber: opaque through the UV and violet, edge in the blue-green
-                // (common practice, no source); n ≈ 1.70 from memory.
+                // WHY: polyimide film is amber: opaque through the UV and violet, and its charge-transfer edge is
+                // a broad Urbach tail, so even thin film still absorbs at 500–550 nm; 50 % near 505 nm at 25 µm and
+                // near 555 nm at 125 µm (from memory of published film curves, no stored source); n ≈ 1.70 from memory.
                 Stock.bulk("polyimide-film", "Amber polyimide film, high-temperature tape stock", FILM,
-                        "Polyimide film: opaque below about 430 nm, thickness-dependent edge in 450–550 nm, clear "
-                                + "in the red. Modelled.",
+                        "Polyimide film: opaque below about 440 nm, a broad thickness-dependent edge through "
+                                + "460–600 nm (50 % near 505 nm at 25 µm, 555 nm at 125 µm), clear in the red. Modelled.",
                         List.of("polyimide", "high temperature", "amber"), new IndexSpec.Constant(1.70),
-                        Absorption.of(new LogisticEdge(482, 3000, 0.3, 14)), 0.025, 0.05, 0.125),
+                        Absorption.of(new UrbachEdge(505, 22, 0.14)), 0.025, 0.05, 0.125),
                 // WHY: a matte-coated drafting film is a diffuser: read in total geometry, not rescalable [S47];
                 // its base is PET, which absorbs up to ~320 nm [S31].
                 Stock.withSamples(Stock.bulk("matte-drafting-film", "Matte drafting film, double-sided", FILM,
                         "Polyester drafting film with a matte coating both sides: diffusing, total geometry, "
                                 + "PET edge near 320 nm. Modelled.",
                         List.of("PET", "drafting film", "diffuser", "scattering", "vellum"), PET_INDEX,
-                        Absorption.of(new LogisticEdge(318, 500, 0.02, 4), new ScatterLoss(2.0, 0.5)), 0.075),
+                        Absorption.of(StockParts.PET_TEREPHTHALATE_EDGE, StockParts.PET_TAIL, new ScatterLoss(2.0, 0.5)), 0.075),
                         s -> s.withGeometry(Geometry.TOTAL)),
                 // WHY: UV-blocking window film stops ~99 % of UV below 380 nm (common practice, no source); the
                 // absorber sits in the adhesive, so the film is a fixed construction.
@@ -65,7 +68,7 @@ final class FilmStock {
                         List.of("PET", "window film", "UV-blocking"), PET_INDEX,
                         List.of(Stock.stack(new Layer("polyester film", 0.05, PET),
                                 new Layer("UV-absorbing adhesive", 0.025,
-                                        Absorption.of(new LogisticEdge(388, 2500, 0.05, 4)))))),
+                                        Absorption.of(StockParts.uvAbsorber(398, 2500, 0.05)))))),
                 // WHY: a clean inkjet-film base passes ~80–88 % across 350–420 nm; its receptive coating lowers
                 // this (derived, PRACTICE.md §2).
                 Stock.fixed("inkjet-film-clear", "Inkjet positive film, unprinted", FILM,

@@ -64,12 +64,14 @@ final class GlassStock {
                         new IndexSpec.Constant(1.47),
                         Absorption.of(new UrbachEdge(285, 1.0, 0.12), new IronBand(0.05), new FlatBackground(0.0008)),
                         2, 3.3, 5),
-                // WHY: optical crown 517/642 type: λ80/λ5 ≈ 330/290 nm at 10 mm (glass colour code, from
-                // memory; PRACTICE.md [S46b] explains the code). Measured only from 250 nm.
-                Stock.withSamples(Stock.bulk("optical-crown-517642", "Optical crown glass windows (517/642 type)",
+                // WHY: a low-dispersion borosilicate crown optical glass: λ80/λ5 ≈ 330/290 nm at 10 mm (glass
+                // colour code, from memory; PRACTICE.md [S46b] explains the code). Measured only from 250 nm.
+                // Named generically: the trade reads a six-digit glass code as one maker's flagship grade.
+                Stock.withSamples(Stock.bulk("borosilicate-crown-windows", "Borosilicate crown optical glass windows",
                         OPTICAL_GLASS,
-                        "Borosilicate crown of glass code 517642 with its catalogue Sellmeier dispersion; internal "
-                                + "transmittance near 1 above 350 nm. Modelled on a 250–1100 nm instrument range.",
+                        "Low-dispersion borosilicate crown optical glass (n about 1.52 in the visible) with a "
+                                + "Sellmeier dispersion; internal transmittance near 1 above 350 nm. Modelled on a "
+                                + "250–1100 nm instrument range.",
                         List.of("optical glass", "crown", "window", "sellmeier"),
                         new IndexSpec.Sellmeier(SellmeierIndex.CROWN_517642),
                         Absorption.of(new UrbachEdge(290, 0.29, 0.168), new FlatBackground(0.0003)), 2, 5, 10),

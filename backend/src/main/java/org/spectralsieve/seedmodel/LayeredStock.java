@@ -21,9 +21,12 @@ final class LayeredStock {
     private static final Absorption UV_FUSED_SILICA =
             Absorption.of(new UrbachEdge(175, 1.0, 0.15), new FlatBackground(0.0003));
 
-    /** Clear lacquer with a UV absorber; blocks under 1 % below about 380 nm at 5 µm. */
+    /**
+     * Clear lacquer with a UV absorber; blocks under 1 % below about 380 nm at 5 µm. The edge has the
+     * calibrated absorber slope (StockParts.uvAbsorber), so the lacquer already takes some 20 % at 405 nm.
+     */
     private static Layer uvBlockingLacquer() {
-        return new Layer("UV-absorbing lacquer", 0.005, Absorption.of(new LogisticEdge(390, 2500, 0.5, 4)));
+        return new Layer("UV-absorbing lacquer", 0.005, Absorption.of(StockParts.uvAbsorber(404, 2500, 0.5)));
     }
 
     static List<MaterialSpec> materials() {
@@ -76,15 +79,16 @@ final class LayeredStock {
                 // WHY: outdoor polycarbonate uses a co-extruded UV-absorbing cap layer [S29]; the body itself is
                 // then a grade without absorber [S30].
                 Stock.fixed("polycarbonate-uv-capped", "Polycarbonate sheet with co-extruded UV cap", LAMINATE,
-                        "4 mm polycarbonate whose 50 µm cap layer holds the UV absorber: blocks to about 390 nm "
+                        "4 mm polycarbonate whose 50 µm cap layer holds the UV absorber: blocks to about 385 nm, like "
+                                + "the UV-stabilised sheet, "
                                 + "whichever face is lit. Modelled.",
                         List.of("polycarbonate", "PC", "co-extruded", "UV cap", "outdoor"), PC_INDEX,
-                        List.of(Stock.stack(new Layer("UV cap layer", 0.05, Absorption.of(new LogisticEdge(392, 1500, 0.01, 5))),
+                        List.of(Stock.stack(new Layer("UV cap layer", 0.05, Absorption.of(StockParts.uvAbsorber(404, 1500, 0.01))),
                                 new Layer("polycarbonate body", 3.95, PC_UNSTABILISED)))));
     }
 
     private static SampleSpec pvbLaminate(double paneMm, double interlayerMm) {
-        Absorption pvb = Absorption.of(new LogisticEdge(385, 800, 0.005, 5));
+        Absorption pvb = Absorption.of(StockParts.uvAbsorber(395, 800, 0.005));
         return Stock.stack(new Layer("clear float glass", paneMm, CLEAR_FLOAT),
                 new Layer("PVB interlayer", interlayerMm, pvb),
                 new Layer("clear float glass", paneMm, CLEAR_FLOAT));

@@ -51,7 +51,7 @@ class WeightedFiguresBrowserTest {
     /** Passes much of the UV-A, so erythema and the actinic S(λ) (which weights UV-B/C far more) differ. */
     private static final String UV_TRANSMITTING = "UV-transmitting cast acrylic, lamp-cover grade";
     /** Its curves start at 250 nm: the actinic table needs 180 nm, so the flat × actinic factor is refused. */
-    private static final String STARTS_AT_250_NM = "Optical crown glass windows";
+    private static final String STARTS_AT_250_NM = "Borosilicate crown optical glass windows";
 
     private static WebDriver driver;
     private static WebDriverWait wait;
