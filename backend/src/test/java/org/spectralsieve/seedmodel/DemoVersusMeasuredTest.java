@@ -11,11 +11,12 @@ import java.util.List;
 import java.util.OptionalDouble;
 import java.util.regex.Pattern;
 import java.util.stream.Stream;
-import org.junit.jupiter.api.Assumptions;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.MethodSource;
 import org.spectralsieve.spectrum.Curve;
+import org.spectralsieve.testsupport.ReadsSharedFolder;
+import org.spectralsieve.testsupport.SharedFolder;
 import org.spectralsieve.weighting.LuminousTransmittance;
 
 /**
@@ -68,6 +69,7 @@ class DemoVersusMeasuredTest {
         return counterparts().filter(Counterpart::widthCompared);
     }
 
+    @ReadsSharedFolder
     @ParameterizedTest(name = "{0}")
     @MethodSource("counterparts")
     void fiftyPercentPointLiesWithinThreeNanometresOfTheMeasuredSheet(Counterpart c) throws IOException {
@@ -77,6 +79,7 @@ class DemoVersusMeasuredTest {
                 .isCloseTo(fiftyPercentPoint(measured).orElseThrow(), within(FIFTY_PERCENT_POINT_TOLERANCE_NM));
     }
 
+    @ReadsSharedFolder
     @ParameterizedTest(name = "{0}")
     @MethodSource("counterpartsWithAnEdgeWidth")
     void absorberEdgeRisesFromOneToFiftyPercentOverTheMeasuredWidth(Counterpart c) throws IOException {
@@ -86,6 +89,7 @@ class DemoVersusMeasuredTest {
                 .isBetween(measuredWidth / WIDTH_FACTOR, measuredWidth * WIDTH_FACTOR);
     }
 
+    @ReadsSharedFolder
     @ParameterizedTest(name = "{0}")
     @MethodSource("counterparts")
     void transmittanceAtTheMercuryLinesAndTheVioletLedMatchesTheMeasuredSheet(Counterpart c) throws IOException {
@@ -99,6 +103,7 @@ class DemoVersusMeasuredTest {
         }
     }
 
+    @ReadsSharedFolder
     @ParameterizedTest(name = "{0}")
     @MethodSource("counterparts")
     void luminousTransmittanceMatchesTheMeasuredSheet(Counterpart c) throws IOException {
@@ -162,9 +167,7 @@ class DemoVersusMeasuredTest {
 
     /** First two numeric columns of a measured file (comma, semicolon, tab or space separated), percent → fraction. */
     private static Spectrum measured(Counterpart c) throws IOException {
-        Path file = measuredFolder().resolve(c.measuredFile());
-        Assumptions.assumeTrue(Files.isRegularFile(file), "measured file " + file + " is absent; skipping the "
-                + "comparison of the demo with it (see ../shared/reference-data/SOURCES.md §8)");
+        Path file = SharedFolder.referenceFile("measured-transmittance-aphalo/" + c.measuredFile());
         List<double[]> rows = new ArrayList<>();
         for (String line : Files.readAllLines(file)) {
             String[] cells = SEPARATORS.split(line.strip());
@@ -185,16 +188,6 @@ class DemoVersusMeasuredTest {
         } catch (NumberFormatException e) {
             return false;
         }
-    }
-
-    /** {@code sieve.shared-dir} (set by the build) or ../shared beside the repository; skips when absent. */
-    private static Path measuredFolder() {
-        String configured = System.getProperty("sieve.shared-dir");
-        Path shared = configured != null ? Path.of(configured) : Path.of("..", "..", "shared");
-        Path folder = shared.resolve("reference-data").resolve("measured-transmittance-aphalo");
-        Assumptions.assumeTrue(Files.isDirectory(folder), "no measured reference curves at " + folder.toAbsolutePath()
-                + " (../shared is not beside this checkout); skipping the demo-versus-measured comparison");
-        return folder;
     }
 
     // --- the figures compared -----------------------------------------------------------------------------
