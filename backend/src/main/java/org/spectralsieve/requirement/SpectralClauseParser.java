@@ -92,7 +92,7 @@ final class SpectralClauseParser {
         Verb kind = verb == null ? Verb.NONE : Verb.of(verb);
         boolean mean = in.acceptWord("mean");
         Level level = level(verb, kind, mean);
-        if (in.atWord("of") && in.peek(1).isWord("uv") && namesBandOrNothing(in.peek(2))) {
+        if (in.atWord("of") && in.peek(1).isWord("uv") && (isBandStart(in.peek(2)) || !names.emitterStartsWith("uv"))) {
             in.next(); // "of"
             Token uv = in.next();
             if (!isBandStart(in.peek())) {
@@ -113,13 +113,10 @@ final class SpectralClauseParser {
     }
 
     /**
-     * After "of UV": a band ("blocks 99.9% of UV from 290 to 400 nm"), or nothing, which is refused with the
-     * band to add. Anything else leaves the words to the emitter names, so an imported "uv lamp" stays reachable.
+     * "of UV" only says what the band is ("blocks 99.9% of UV from 290 to 400 nm"); the band decides, and
+     * must be named. The words go to the emitter names instead only when one starts with "uv" (an imported
+     * "UV lamp") and no band follows.
      */
-    private static boolean namesBandOrNothing(Token t) {
-        return isBandStart(t) || t.kind() == Kind.END || t.kind() == Kind.COMMA || t.isWord("and");
-    }
-
     private static boolean isBandStart(Token t) {
         return t.isWord("at") || t.isWord("from") || t.isWord("between");
     }
@@ -137,7 +134,7 @@ final class SpectralClauseParser {
                     + plain(UV_RATING_MAX_NM) + ", such as 'UV400' (blocking up to 400 nm)", number.quoted());
         }
         Level level = new Level(Direction.BLOCK, UV_RATING_DEFAULT_T, ThresholdUnit.PERCENT);
-        if (comparesOrCounts(in.peek())) {
+        if (!endsClause(in.peek())) {
             level = level(start, Verb.RATING, false);
         }
         Level read = level;
@@ -146,17 +143,9 @@ final class SpectralClauseParser {
                 new Band(UV_RATING_FROM_NM, nm), read.thresholdT(), read.unit(), text));
     }
 
-    /** Whether a level starts here: a comparison, "OD" or a number. */
-    private boolean comparesOrCounts(Token t) {
-        if (t.kind() == Kind.AT_LEAST || t.kind() == Kind.AT_MOST || t.kind() == Kind.NUMBER) {
-            return true;
-        }
-        Token second = in.peek(1);
-        return t.kind() == Kind.WORD && switch (t.lower()) {
-            case "od", "over", "above", "under", "below", "more", "less" -> true;
-            case "at" -> second.isWord("least") || second.isWord("most");
-            default -> false;
-        };
+    /** A separator or the end: a UV rating without its own level. */
+    private static boolean endsClause(Token t) {
+        return t.kind() == Kind.END || t.kind() == Kind.COMMA || t.isWord("and");
     }
 
     /** "… of led 365 [weighted by erythema]": the emitter's light, weighted by the response if one is named. */
