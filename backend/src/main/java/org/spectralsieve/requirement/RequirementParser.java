@@ -16,10 +16,12 @@ import org.spectralsieve.weighting.SpectrumLookup;
  *
  * <pre>
  * requirement = item { ( "," [ "and" ] | "and" ) item }
- * item        = transmittance | cutoff | preset | critical                (SpectralClauseParser, FigureClauseParser)
+ * item        = transmittance | rating | cutoff | preset | critical        (SpectralClauseParser, FigureClauseParser)
  *             | thickness | class | geometry | layer
- * thickness   = "thickness" [ "at" ] ( "as" "measured" | mm [ "mm" ] ( "to" | "-" ) mm "mm" | mm "mm" )
+ * thickness   = "thickness" [ "at" ] ( "as" "measured" | amount | ( "between" mm [ "mm" ] "and" | "from" mm [ "mm" ] ( "to" | "-" ) ) mm "mm" )
  *             | "at" mm "mm"
+ *             | amount "thick"                                          ("3 to 6 mm thick", "6 mm thick")
+ * amount      = mm [ "mm" ] ( "to" | "-" ) mm "mm" | mm "mm"
  * class       = [ "material" ] "class" label        (label: the words up to the next "," or "and")
  * geometry    = "geometry" ( "regular" | "total" )
  * layer       = ( "behind" | "on" ) mm "mm" material   (material: the words up to the next "," or "and")
@@ -27,8 +29,10 @@ import org.spectralsieve.weighting.SpectrumLookup;
  *
  * Keywords are case-insensitive. At least one spectral clause is required; thickness, class, geometry and
  * a fixed layer may each be given once. Emitter and response names are read against a
- * {@link SpectrumLookup}; a layer's material words are kept as written and resolved against the library
- * by the caller. Every problem is a {@link RequirementSyntaxException}.
+ * {@link SpectrumLookup}; a class label, when the caller passes the library's classes, must be one of them;
+ * a layer's material words are kept as written and resolved against the library by the caller. Every
+ * problem is a {@link RequirementSyntaxException}. docs/requirement-language.md describes the language
+ * and the readings of the trade's phrasing ("blocks 99%", "UV400").
  */
 public final class RequirementParser {
 

@@ -8,11 +8,13 @@ import org.spectralsieve.weighting.Emitter;
 import org.spectralsieve.weighting.Response;
 
 /**
- * The spectral clauses: transmittance levels over a wavelength or band, and cutoff windows.
+ * The spectral clauses: transmittance levels over a wavelength or band, UV ratings and cutoff windows.
  *
  * <pre>
- * transmittance = [ verb ] [ "mean" ] level band
+ * transmittance = [ verb ] [ "mean" ] level [ "of" "UV" ] band
  *               | [ verb ] level "of" emitter [ "weighted" "by" response ]     (a WeightedClause)
+ * verb          = "passes" | "blocks" | "transmits" | "transmittance" | "T"   (and "pass", "block", "transmit")
+ * rating        = "UV" number [ level ]                    ("UV400": blocks under 1% from 290 to 400 nm)
  * level         = [ comparison ] [ "to" ] ( number [ "%" ] | "OD" [ comparison ] number ) [ "or" ( "more" | "less" ) ]
  * band          = "at" wavelength | "from" wavelength ( "to" | "-" ) wavelength | "between" wavelength "and" wavelength
  * cutoff        = [ number [ "%" ] ] "cutoff" [ "at" number [ "%" ] ] ( "from" … | "between" … )
@@ -21,6 +23,10 @@ import org.spectralsieve.weighting.Response;
  * Emitter and response names are those of the lookup the text is read with ({@link SpectrumNames}).
  * A comparison says which side of the number T must lie on; with a percentage or fraction "over" means
  * passing and "under" blocking, with an optical density the reverse (a higher density lets less through).
+ * The verb may fix the side: "passes" alone means at least, "transmits" needs a comparison, and "blocks"
+ * reads a percentage or fraction as the trade does: "blocks under 1%" is what gets
+ * through, "blocks 99%" and "blocks over 99%" the share kept out, both T at most 1%; a level that would
+ * keep less than half the light out has two readings and is refused with both.
  */
 final class SpectralClauseParser {
 
