@@ -98,13 +98,8 @@ final class SpectralClauseParser {
         Verb kind = verb == null ? Verb.NONE : Verb.of(verb);
         boolean mean = in.acceptWord("mean");
         Level level = level(verb, kind, mean);
-        if (in.atWord("of") && in.peek(1).isWord("uv") && (isBandStart(in.peek(2)) || !names.emitterStartsWith("uv"))) {
-            in.next(); // "of"
-            Token uv = in.next();
-            if (!isBandStart(in.peek())) {
-                throw in.error(Expected.keywords("from", "between", "at").because("after 'of " + uv.text()
-                        + "' (name the band, as where UV starts differs: 280, 290 or 315 nm; e.g. 'from 290 to 400 nm')"));
-            }
+        if (atOfUv()) {
+            ofUv();
         } else if (in.atWord("of")) {
             if (mean) {
                 throw in.error(Expected.keywords("from", "between")
@@ -123,6 +118,21 @@ final class SpectralClauseParser {
      * must be named. The words go to the emitter names instead only when one starts with "uv" (an imported
      * "UV lamp") and no band follows.
      */
+    private boolean atOfUv() {
+        return in.atWord("of") && in.peek(1).isWord("uv")
+                && (isBandStart(in.peek(2)) || !names.emitterStartsWith("uv"));
+    }
+
+    /** Consumes "of UV", which must be followed by the band. */
+    private void ofUv() {
+        in.next(); // "of"
+        Token uv = in.next();
+        if (!isBandStart(in.peek())) {
+            throw in.error(Expected.keywords("from", "between", "at").because("after 'of " + uv.text()
+                    + "' (name the band, as where UV starts differs: 280, 290 or 315 nm; e.g. 'from 290 to 400 nm')"));
+        }
+    }
+
     private static boolean isBandStart(Token t) {
         return t.isWord("at") || t.isWord("from") || t.isWord("between");
     }
