@@ -15,6 +15,10 @@ import java.util.Optional;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.CsvSource;
+import java.util.stream.Stream;
+import org.spectralsieve.weighting.Emitter;
+import org.spectralsieve.weighting.EmitterCatalogue;
+import org.spectralsieve.weighting.Response;
 import org.spectralsieve.weighting.SpectrumLookup;
 
 /**
@@ -244,6 +248,25 @@ class TradePhrasingParserTest {
         RequirementSyntaxException e = refusal(text);
         assertThat(e.getMessage()).startsWith("at position " + position + ": expected ").contains(fragment);
         assertThat(e.suggestion()).isEqualTo("-".equals(suggestion) ? Optional.empty() : Optional.of(suggestion));
+    }
+
+    @Test
+    void anImportedEmitterNamedUvStaysReachableWhenNoBandFollows() {
+        SpectrumLookup withUvLamp = new SpectrumLookup() {
+            @Override
+            public List<Emitter> emitters() {
+                return Stream.concat(EmitterCatalogue.all().stream(), Stream.of(Emitter.led("uv-lamp", 370, 20))).toList();
+            }
+
+            @Override
+            public List<Response> responses() {
+                return Response.catalogue();
+            }
+        };
+        WeightedClause lamp = (WeightedClause) RequirementParser.parse("blocks 99% of UV lamp", withUvLamp).clauses().get(0);
+        assertThat(((Weighting.Spectral) lamp.weighting()).emitter().name()).isEqualTo("uv-lamp");
+        assertThat(RequirementParser.parse("blocks 99% of UV from 290 to 400 nm", withUvLamp).clauses().get(0))
+                .isInstanceOf(TransmittanceClause.class);
     }
 
     // ---- visible transmittance ----
