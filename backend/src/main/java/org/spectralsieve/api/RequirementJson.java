@@ -13,6 +13,7 @@ import org.spectralsieve.requirement.CriticalWavelengthClause;
 import org.spectralsieve.requirement.CutoffClause;
 import org.spectralsieve.requirement.Direction;
 import org.spectralsieve.requirement.FixedLayer;
+import org.spectralsieve.requirement.MaterialClassNames;
 import org.spectralsieve.requirement.Requirement;
 import org.spectralsieve.requirement.RequirementLimits;
 import org.spectralsieve.requirement.ThicknessSpec;
@@ -148,6 +149,20 @@ public final class RequirementJson {
      * @throws IllegalArgumentException naming the JSON path of the first bad field
      */
     public static Requirement fromJson(JsonNode node, SpectrumLookup spectra) {
+        return read(node, spectra, null);
+    }
+
+    /**
+     * Reads a requirement for a search of a library, whose {@code materialClass} must be one of
+     * {@code classes} (as the text language's class filter).
+     *
+     * @throws IllegalArgumentException naming the JSON path of the first bad field
+     */
+    public static Requirement fromJson(JsonNode node, SpectrumLookup spectra, List<String> classes) {
+        return read(node, spectra, List.copyOf(classes));
+    }
+
+    private static Requirement read(JsonNode node, SpectrumLookup spectra, List<String> classes) {
         if (node == null || !node.isObject()) {
             throw bad("(root)", "must be an object with 'clauses'");
         }
@@ -163,12 +178,24 @@ public final class RequirementJson {
         Optional<String> materialClass = optionalString(node, "materialClass", "(root)")
                 .map(label -> check(label, RequirementLimits.isClassLabel(label), "materialClass",
                         "must be 2-40 lower-case letters, digits, spaces or hyphens, without the word 'and'"));
+        materialClass.ifPresent(label -> knownClass(label, classes));
         Optional<String> geometry = optionalString(node, "geometry", "(root)")
                 .map(g -> check(g, RequirementLimits.GEOMETRIES.contains(g), "geometry",
                         "must be one of " + RequirementLimits.GEOMETRIES + " or null"));
         String text = optionalString(node, "text", "(root)").orElse("");
         Optional<FixedLayer> layer = layer(node.get("layer"));
         return new Requirement(clauses, thickness, materialClass, geometry, layer, text);
+    }
+
+    /** A class the library files no material under would search nothing: name the library's, and the close ones. */
+    private static void knownClass(String label, List<String> classes) {
+        if (classes == null || classes.contains(label)) {
+            return;
+        }
+        List<String> near = MaterialClassNames.near(label, classes);
+        throw bad("materialClass", "'" + label + "' is not a class of the library; its classes: "
+                + MaterialClassNames.listing(classes, classes.size())
+                + (near.isEmpty() ? "" : "; did you mean '" + String.join("' or '", near) + "'?"));
     }
 
     private static Optional<FixedLayer> layer(JsonNode node) {

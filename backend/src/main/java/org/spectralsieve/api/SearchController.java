@@ -1,5 +1,6 @@
 package org.spectralsieve.api;
 
+import java.util.List;
 import java.util.Map;
 import java.util.regex.Matcher;
 import java.util.regex.Pattern;
@@ -37,12 +38,12 @@ class SearchController {
 
     @PostMapping("/requirements/parse")
     Map<String, Object> parse(@RequestBody JsonNode body) {
-        return RequirementJson.toJson(requirementOf(body, spectra));
+        return RequirementJson.toJson(requirementOf(body, spectra, search.materialClasses()));
     }
 
     @PostMapping("/search")
     Map<String, Object> search(@RequestBody JsonNode body) {
-        Requirement requirement = requirementOf(body, spectra);
+        Requirement requirement = requirementOf(body, spectra, search.materialClasses());
         int limit = limitOf(body);
         Shortlist shortlist;
         try {
@@ -68,18 +69,21 @@ class SearchController {
         return e.at(start + words.start(1), words.end(1) - words.start(1));
     }
 
-    /** The requirement as text ({@code "passes over 80% at 365 nm"}) or in its structured form. */
-    static Requirement requirementOf(JsonNode body, SpectrumLookup spectra) {
+    /**
+     * The requirement as text ({@code "passes over 80% at 365 nm"}) or in its structured form; a class filter
+     * must name one of {@code classes}, the library's.
+     */
+    static Requirement requirementOf(JsonNode body, SpectrumLookup spectra, List<String> classes) {
         JsonNode node = body == null ? null : body.get("requirement");
         if (node == null || node.isNull()) {
             throw new BadParameterException("requirement", "give the requirement as text or in its structured form");
         }
         if (node.isString()) {
-            return RequirementParser.parse(node.asString(), spectra);
+            return RequirementParser.parse(node.asString(), spectra, classes);
         }
         if (node.isObject()) {
             try {
-                return RequirementJson.fromJson(node, spectra);
+                return RequirementJson.fromJson(node, spectra, classes);
             } catch (IllegalArgumentException e) {
                 throw new BadParameterException("requirement." + e.getMessage().split(" ", 2)[0], e.getMessage());
             }

@@ -59,9 +59,11 @@ final class SearchCommand implements Callable<Integer> {
         Shortlist shortlist;
         String jsonText = null;
         try (ConfigurableApplicationContext context = LibraryContext.start(database.url)) {
-            Requirement requirement = parse(requirementText, context.getBean(SpectrumLookup.class));
+            SearchService search = context.getBean(SearchService.class);
+            Requirement requirement = parse(requirementText, context.getBean(SpectrumLookup.class),
+                    search.materialClasses());
             try {
-                shortlist = context.getBean(SearchService.class).search(requirement, limit);
+                shortlist = search.search(requirement, limit);
             } catch (LayerResolutionException e) {
                 throw new CliFailure(SieveCli.USAGE, layerProblem(e));
             }
@@ -92,9 +94,9 @@ final class SearchCommand implements Callable<Integer> {
         }
     }
 
-    private static Requirement parse(String text, SpectrumLookup spectra) {
+    private static Requirement parse(String text, SpectrumLookup spectra, List<String> classes) {
         try {
-            return RequirementParser.parse(text, spectra);
+            return RequirementParser.parse(text, spectra, classes);
         } catch (RequirementSyntaxException e) {
             throw new CliFailure(SieveCli.USAGE, RequirementErrorReport.lines(text, e));
         }

@@ -7,7 +7,8 @@ import org.spectralsieve.weighting.SpectrumLookup;
  * The clauses on figures with a fixed name:
  *
  * <pre>
- * preset   = ( "erythemal" | "uv" "hazard" | "uv-hazard" | "luminous" ) [ "transmittance" ] level   (a WeightedClause)
+ * preset   = ( "erythemal" | "uv" "hazard" | "uv-hazard" | luminous ) [ "transmittance" ] level   (a WeightedClause)
+ * luminous = "luminous" | "visible" [ "light" ] | "vlt"                                  (all τv)
  * critical = "critical" "wavelength" comparison wavelength                                (λc, 290-400 nm)
  * </pre>
  *
@@ -32,9 +33,17 @@ final class FigureClauseParser {
         return preset(start, Weighting.erythemal(spectra));
     }
 
-    /** "luminous over 40%": τv; the first word is next. */
+    /**
+     * "luminous over 40%", "visible over 70%", "visible light transmittance over 70%", "VLT over 70%": τv;
+     * the first word is next. Eyewear and glazing call τv the visible (light) transmittance or VLT: the
+     * D65 × V(λ) weighted figure (REFERENCE.md §5, ISO 8980-3 / ISO 12311), not a level at every visible
+     * wavelength.
+     */
     WeightedClause luminous(Token start) {
-        in.next();
+        Token first = in.next();
+        if (first.isWord("visible")) {
+            in.acceptWord("light");
+        }
         return preset(start, Weighting.luminous());
     }
 
@@ -49,7 +58,7 @@ final class FigureClauseParser {
 
     private WeightedClause preset(Token start, Weighting weighting) {
         in.acceptWord("transmittance");
-        SpectralClauseParser.Level level = spectral.level(null, null, true);
+        SpectralClauseParser.Level level = spectral.level(null, SpectralClauseParser.Verb.NONE, true);
         String text = in.slice(start.start(), in.previous().end());
         return TokenCursor.build(start, () -> new WeightedClause(level.direction(), level.thresholdT(), level.unit(),
                 weighting, text));

@@ -2,8 +2,10 @@ package org.spectralsieve.requirement;
 
 import java.math.BigDecimal;
 import java.util.ArrayList;
+import java.util.Collection;
 import java.util.List;
 import java.util.Locale;
+import java.util.Objects;
 import java.util.Optional;
 import org.spectralsieve.requirement.Token.Kind;
 import org.spectralsieve.weighting.SpectrumLookup;
@@ -14,10 +16,12 @@ import org.spectralsieve.weighting.SpectrumLookup;
  *
  * <pre>
  * requirement = item { ( "," [ "and" ] | "and" ) item }
- * item        = transmittance | cutoff | preset | critical                (SpectralClauseParser, FigureClauseParser)
+ * item        = transmittance | rating | cutoff | preset | critical        (SpectralClauseParser, FigureClauseParser)
  *             | thickness | class | geometry | layer
- * thickness   = "thickness" [ "at" ] ( "as" "measured" | mm [ "mm" ] ( "to" | "-" ) mm "mm" | mm "mm" )
+ * thickness   = "thickness" [ "at" ] ( "as" "measured" | amount | ( "between" mm [ "mm" ] "and" | "from" mm [ "mm" ] ( "to" | "-" ) ) mm "mm" )
  *             | "at" mm "mm"
+ *             | amount "thick"                                          ("3 to 6 mm thick", "6 mm thick")
+ * amount      = mm [ "mm" ] ( "to" | "-" ) mm "mm" | mm "mm"
  * class       = [ "material" ] "class" label        (label: the words up to the next "," or "and")
  * geometry    = "geometry" ( "regular" | "total" )
  * layer       = ( "behind" | "on" ) mm "mm" material   (material: the words up to the next "," or "and")
@@ -25,19 +29,25 @@ import org.spectralsieve.weighting.SpectrumLookup;
  *
  * Keywords are case-insensitive. At least one spectral clause is required; thickness, class, geometry and
  * a fixed layer may each be given once. Emitter and response names are read against a
- * {@link SpectrumLookup}; a layer's material words are kept as written and resolved against the library
- * by the caller. Every problem is a {@link RequirementSyntaxException}.
+ * {@link SpectrumLookup}; a class label, when the caller passes the library's classes, must be one of them;
+ * a layer's material words are kept as written and resolved against the library by the caller. Every
+ * problem is a {@link RequirementSyntaxException}. docs/requirement-language.md describes the language
+ * and the readings of the trade's phrasing ("blocks 99%", "UV400").
  */
 public final class RequirementParser {
 
     private static final String EXAMPLE = "'passes over 80% at 365 nm'";
-    private static final Expected ITEM = Expected.keywords("passes", "blocks", "mean", "OD", "cutoff", "over",
-            "under", "erythemal", "uv hazard", "luminous", "critical wavelength", "thickness", "at", "class", "geometry", "behind",
-            "on").because("to start a clause");
+    private static final Expected ITEM = Expected.keywords("passes", "blocks", "transmits", "T", "mean", "OD",
+            "cutoff", "over", "under", "UV400", "erythemal", "uv hazard", "luminous", "visible", "critical wavelength",
+            "thickness", "at", "class", "geometry", "behind", "on").because("to start a clause");
+    /** How many class labels an error lists before "…". */
+    private static final int LISTED_CLASSES = 12;
 
     private final TokenCursor in;
     private final SpectralClauseParser spectral;
     private final FigureClauseParser figures;
+    /** The class labels a class filter may name, or null when the caller has no library to check against. */
+    private final List<String> knownClasses;
     private final List<Clause> clauses = new ArrayList<>();
     private ThicknessSpec thickness = ThicknessSpec.AS_MEASURED;
     private String thicknessText;
@@ -47,7 +57,8 @@ public final class RequirementParser {
     private String geometryText;
     private FixedLayer layer;
 
-    private RequirementParser(String text, SpectrumLookup spectra) {
+    private RequirementParser(String text, SpectrumLookup spectra, List<String> knownClasses) {
+        this.knownClasses = knownClasses;
         this.in = new TokenCursor(text);
         this.spectral = new SpectralClauseParser(in, new SpectrumNames(in, spectra));
         this.figures = new FigureClauseParser(in, spectral, spectra);
@@ -68,10 +79,27 @@ public final class RequirementParser {
      * @throws RequirementSyntaxException for any text that is not a valid requirement, null included
      */
     public static Requirement parse(String text, SpectrumLookup spectra) {
+        return read(text, spectra, null);
+    }
+
+    /**
+     * Reads a text for a search of a library: a class filter must name one of {@code materialClasses}
+     * (the classes the library's materials are filed under), else the error lists them and suggests the
+     * close ones, rather than the search quietly finding nothing.
+     *
+     * @param spectra         where emitter and response names resolve
+     * @param materialClasses the class labels a filter may name, as stored ("plastic sheet")
+     * @throws RequirementSyntaxException for any text that is not a valid requirement, null included
+     */
+    public static Requirement parse(String text, SpectrumLookup spectra, Collection<String> materialClasses) {
+        return read(text, spectra, List.copyOf(Objects.requireNonNull(materialClasses, "materialClasses")));
+    }
+
+    private static Requirement read(String text, SpectrumLookup spectra, List<String> knownClasses) {
         if (text == null) {
             throw new RequirementSyntaxException(0, "a requirement such as " + EXAMPLE, "nothing", null);
         }
-        return new RequirementParser(text, java.util.Objects.requireNonNull(spectra, "spectra")).requirement();
+        return new RequirementParser(text, Objects.requireNonNull(spectra, "spectra"), knownClasses).requirement();
     }
 
     /** The canonical text of a requirement; {@code parse(render(r))} equals r apart from the text fields. */
@@ -111,13 +139,15 @@ public final class RequirementParser {
         Token first = in.peek();
         String word = first.kind() == Kind.WORD ? first.lower() : "";
         switch (word) {
-            case "passes", "pass", "blocks", "block" -> clauses.add(spectral.transmittance(first, in.next()));
+            case "passes", "pass", "blocks", "block", "transmits", "transmit", "transmittance", "t" ->
+                    clauses.add(spectral.transmittance(first, in.next()));
             case "mean", "od", "over", "above", "under", "below", "more", "less" ->
                     clauses.add(spectral.transmittance(first, null));
             case "cutoff", "cut-off" -> clauses.add(spectral.cutoff(first));
             case "erythemal" -> clauses.add(figures.erythemal(first));
-            case "uv", "uv-hazard" -> clauses.add(figures.uvHazard(first));
-            case "luminous" -> clauses.add(figures.luminous(first));
+            case "uv", "uv-hazard" -> clauses.add(first.isWord("uv") && in.peek(1).kind() == Kind.NUMBER
+                    ? spectral.uvRating(first) : figures.uvHazard(first));
+            case "luminous", "visible", "vlt" -> clauses.add(figures.luminous(first));
             case "critical" -> clauses.add(figures.criticalWavelength(first));
             case "behind", "on" -> layer(first);
             case "thickness" -> thickness(first);
@@ -144,7 +174,9 @@ public final class RequirementParser {
 
     private void otherItem(Token first) {
         boolean levelFirst = first.kind() == Kind.NUMBER;
-        if (levelFirst && (isCutoffWord(in.peek(1)) || in.peek(1).kind() == Kind.PERCENT && isCutoffWord(in.peek(2)))) {
+        if (levelFirst && thicknessAhead()) {
+            trailingThickness(first);
+        } else if (levelFirst && (isCutoffWord(in.peek(1)) || in.peek(1).kind() == Kind.PERCENT && isCutoffWord(in.peek(2)))) {
             clauses.add(spectral.cutoff(first));
         } else if (levelFirst || first.kind() == Kind.AT_LEAST || first.kind() == Kind.AT_MOST) {
             clauses.add(spectral.transmittance(first, null));
@@ -165,26 +197,74 @@ public final class RequirementParser {
             setThickness(first, ThicknessSpec.AS_MEASURED);
             return;
         }
+        if (in.atWord("between") || in.atWord("from")) {
+            setThickness(first, bounded(in.next()));
+            return;
+        }
+        setThickness(first, amount(Expected.keywords("as measured", "between", "from").or("a thickness in mm")
+                .after(first.text())));
+    }
+
+    /** "3 mm", "3 to 6 mm", "3-6 mm", "3 mm to 6 mm"; {@code expected} says what fits if no number stands first. */
+    private ThicknessSpec amount(Expected expected) {
         Token minToken = in.peek();
-        double min = millimetres(minToken, in.expectNumber(
-                Expected.keywords("as measured").or("a thickness in mm").after(first.text())));
+        double min = millimetres(minToken, in.expectNumber(expected));
         boolean unit = in.acceptWord("mm");
         boolean range = in.acceptWord("to") || in.at(Kind.DASH) && in.next() != null;
         if (!range) {
             if (!unit) {
                 in.expectWord(Expected.keywords("mm", "to", "-").after(minToken.text()), "mm");
             }
-            setThickness(first, ThicknessSpec.at(min));
-            return;
+            return ThicknessSpec.at(min);
         }
+        return upTo(min, "to");
+    }
+
+    /** "between 3 and 6 mm", "from 3 to 6 mm"; {@code word} ("between" or "from") is consumed. */
+    private ThicknessSpec bounded(Token word) {
+        boolean between = word.isWord("between");
+        Token minToken = in.peek();
+        double min = millimetres(minToken, in.expectNumber(Expected.described("a thickness in mm").after(word.text())));
+        in.acceptWord("mm");
+        if (between) {
+            in.expectWord(Expected.keywords("and").after("between " + minToken.text()), "and");
+        } else if (!in.acceptWord("to")) {
+            in.expect(Kind.DASH, Expected.keywords("to", "-").after("from " + minToken.text()));
+        }
+        return upTo(min, between ? "and" : "to");
+    }
+
+    /** The upper end of a thickness range, after "to", "-" or "and". */
+    private ThicknessSpec upTo(double min, String after) {
         Token maxToken = in.peek();
-        double max = millimetres(maxToken, in.expectNumber(Expected.described("a thickness in mm").after("to")));
+        double max = millimetres(maxToken, in.expectNumber(Expected.described("a thickness in mm").after(after)));
         in.expectWord(Expected.keywords("mm").after(maxToken.text()), "mm");
         if (max < min) {
             throw TokenCursor.outOfRange(maxToken, "a thickness not below " + SpectralClauseParser.plain(min)
                     + " mm (a range runs from thin to thick)", maxToken.quoted());
         }
-        setThickness(first, ThicknessSpec.range(min, max));
+        return ThicknessSpec.range(min, max);
+    }
+
+    /**
+     * Whether the number ahead is a thickness written before its word ("6 mm thick", "3 to 6 mm thick"):
+     * a number followed by "mm", or two numbers joined by "to" or "-" and then "mm". No level has a unit
+     * in mm, so the shape alone decides, and a missing "thick" can be asked for by name.
+     */
+    private boolean thicknessAhead() {
+        if (in.peek(1).isWord("mm")) {
+            return true;
+        }
+        return (in.peek(1).isWord("to") || in.peek(1).kind() == Kind.DASH) && in.peek(2).kind() == Kind.NUMBER
+                && in.peek(3).isWord("mm");
+    }
+
+    /** "6 mm thick", "3 to 6 mm thick", "3-6 mm thick": the thickness statement with its word last. */
+    private void trailingThickness(Token first) {
+        ThicknessSpec spec = amount(Expected.described("a thickness in mm"));
+        in.expectWord(Expected.keywords("thick").because("after a thickness (or put the word first: 'thickness "
+                + in.slice(first.start(), in.previous().end()) + "')"), "thick");
+        setThickness(first, spec);
     }
 
     private ThicknessSpec fixedThickness() {
@@ -233,8 +313,20 @@ public final class RequirementParser {
             throw TokenCursor.outOfRange(labelStart, "a class label of 2 to 40 lower-case letters, digits, spaces"
                     + " or hyphens", "'" + label + "'");
         }
+        if (knownClasses != null && !knownClasses.contains(label)) {
+            throw unknownClass(labelStart, label);
+        }
         materialClass = label;
         classText = in.slice(first.start(), in.previous().end());
+    }
+
+    /** A class no material of the library is filed under: the library's classes, and the close ones. */
+    private RequirementSyntaxException unknownClass(Token labelStart, String label) {
+        int length = in.previous().end() - labelStart.start();
+        String expected = knownClasses.isEmpty() ? "no class filter (the library holds no materials yet)"
+                : "a material class of the library (" + MaterialClassNames.listing(knownClasses, LISTED_CLASSES) + ")";
+        return new RequirementSyntaxException(labelStart.start(), length, expected, "'" + label + "'",
+                MaterialClassNames.near(label, knownClasses), false);
     }
 
     private void geometry(Token first) {

@@ -57,10 +57,14 @@ final class RequirementRenderer {
         return (mean ? "mean " : "") + level(t.direction(), t.thresholdT(), t.unit(), !mean) + " " + band(t.band());
     }
 
-    /** The level as the model holds it; {@code verb} puts "passes"/"blocks" before a percentage or fraction. */
+    /**
+     * The level as the model holds it; {@code verb} puts "passes"/"blocks" before a percentage or fraction.
+     * A ceiling above 50% is written "transmits at most": the parser reads "blocks" only for levels that keep
+     * at least half the light out, since "blocks at most 99%" could also mean keeping 99% out.
+     */
     private static String level(Direction direction, double thresholdT, ThresholdUnit unit, boolean verb) {
         boolean pass = direction == Direction.PASS;
-        String start = verb ? (pass ? "passes " : "blocks ") : "";
+        String start = !verb ? "" : pass ? "passes " : thresholdT > 0.5 ? "transmits " : "blocks ";
         return switch (unit) {
             case PERCENT -> start + (pass ? "at least " : "at most ") + percent(thresholdT);
             case FRACTION -> start + (pass ? "at least " : "at most ") + number(thresholdT);

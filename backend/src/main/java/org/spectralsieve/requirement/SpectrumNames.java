@@ -45,6 +45,12 @@ final class SpectrumNames {
         return SEPARATORS.matcher(spaced).replaceAll(" ").strip();
     }
 
+    /** Whether a listed emitter's name starts with this word ("uv" for an imported "UV lamp"). */
+    boolean emitterStartsWith(String word) {
+        return spectra.emitters().stream().map(e -> key(e.name()))
+                .anyMatch(k -> k.equals(word) || k.startsWith(word + " "));
+    }
+
     /** A listed emitter, else one its words describe ("led 370 20", see {@link EmitterCatalogue#parametric}). */
     Emitter emitter(String after) {
         return read(spectra.emitters(), Emitter::name, EmitterCatalogue::parametric,

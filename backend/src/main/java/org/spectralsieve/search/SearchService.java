@@ -252,6 +252,14 @@ public class SearchService {
                 && r.geometry().map(g -> g.equals(s.geometry().label())).orElse(true);
     }
 
+    /**
+     * The class labels the library's materials are filed under, sorted: the classes a requirement's class
+     * filter may name (any other would search nothing).
+     */
+    public List<String> materialClasses() {
+        return current().materials().values().stream().map(m -> m.materialClass().label()).distinct().sorted().toList();
+    }
+
     /** Drops the derived store; the next search rebuilds it from the database. Call after every committed import. */
     public void invalidate() {
         snapshot.set(null);

@@ -13,6 +13,7 @@ import org.spectralsieve.requirement.Requirement;
 import org.spectralsieve.requirement.RequirementParser;
 import org.spectralsieve.requirement.ThresholdUnit;
 import org.spectralsieve.requirement.TransmittanceClause;
+import org.spectralsieve.weighting.SpectrumLookup;
 import tools.jackson.databind.JsonNode;
 import tools.jackson.databind.json.JsonMapper;
 
@@ -138,5 +139,47 @@ class RequirementJsonTest {
         assertThat(r.materialClass()).isEmpty();
         assertThat(r.geometry()).isEmpty();
         assertThat(r.text()).isEmpty();
+    }
+
+    @Test
+    void anUnknownMaterialClassIsRefusedListingTheLibrarysClassesAndTheCloseOne() {
+        JsonNode json = tree(Map.of("materialClass", "plastic", "clauses", java.util.List.of(Map.of("type", "cutoff",
+                "fromNm", 380, "toNm", 395))));
+        assertThatThrownBy(() -> RequirementJson.fromJson(json, SpectrumLookup.builtIn(),
+                java.util.List.of("film", "plastic sheet", "window glass")))
+                .isInstanceOf(IllegalArgumentException.class)
+                .hasMessage("materialClass 'plastic' is not a class of the library; its classes: film, plastic sheet,"
+                        + " window glass; did you mean 'plastic sheet'?");
+    }
+
+    @Test
+    void aKnownMaterialClassIsKept() {
+        JsonNode json = tree(Map.of("materialClass", "film", "clauses", java.util.List.of(Map.of("type", "cutoff",
+                "fromNm", 380, "toNm", 395))));
+        assertThat(RequirementJson.fromJson(json, SpectrumLookup.builtIn(), java.util.List.of("film")).materialClass())
+                .contains("film");
+    }
+
+    @ParameterizedTest(name = "{0}")
+    @ValueSource(strings = {"blocks 99% at 405 nm", "UV400 under 0.5%", "blocks 99.9% of UV from 290 to 400 nm",
+            "transmits under 70% at 550 nm and T > 80% at 365nm", "visible over 70%, 3 to 6 mm thick",
+            "blocks 99% of led 405, thickness between 3 and 6 mm"})
+    void theTradesPhrasingRoundTripsThroughJsonAndItsCanonicalText(String text) {
+        Requirement requirement = RequirementParser.parse(text);
+        Requirement fromJson = RequirementJson.fromJson(tree(RequirementJson.toJson(requirement)));
+        assertThat(fromJson).isEqualTo(requirement);
+        Requirement fromCanonical = RequirementParser.parse(RequirementParser.render(fromJson));
+        assertThat(RequirementJson.toJson(fromCanonical)).usingRecursiveComparison().ignoringFieldsMatchingRegexes(".*text")
+                .isEqualTo(RequirementJson.toJson(requirement));
+    }
+
+    @Test
+    void aStructuredBlockAboveHalfRendersAsATransmitsCeiling() {
+        JsonNode json = tree(Map.of("clauses", java.util.List.of(Map.of("type", "transmittance", "direction", "block",
+                "fromNm", 550, "toNm", 550, "thresholdPercent", 90))));
+        Requirement r = RequirementJson.fromJson(json);
+        assertThat(RequirementParser.render(r)).isEqualTo("transmits at most 90% at 550 nm");
+        assertThat(((TransmittanceClause) RequirementParser.parse(RequirementParser.render(r)).clauses().get(0)).thresholdT())
+                .isEqualTo(0.9);
     }
 }

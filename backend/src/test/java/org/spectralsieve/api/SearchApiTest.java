@@ -277,6 +277,73 @@ class SearchApiTest {
     }
 
     @Test
+    void blocksNinetyNinePercentIsReadAsAtMostOnePercentThrough() throws Exception {
+        // common practice, no source: "blocks 99 %" keeps 99 % out; read as T <= 99 % every film would meet
+        JsonNode parsed = post("/api/requirements/parse", body("blocks 99% at 405 nm", 1));
+        JsonNode clause = parsed.path("clauses").get(0);
+        assertThat(clause.path("direction").asString()).isEqualTo("block");
+        assertThat(clause.path("thresholdT").asDouble()).isEqualTo(0.01);
+    }
+
+    @Test
+    void anAmbiguousBlockingLevelIsA400ShowingBothReadings() throws Exception {
+        HttpResponse<String> response = send("/api/requirements/parse", body("blocks 1% at 405 nm", 1));
+        JsonNode problem = JSON.readTree(response.body());
+
+        assertThat(response.statusCode()).isEqualTo(400);
+        assertThat(problem.path("position").asInt()).isZero();
+        assertThat(problem.path("length").asInt()).isEqualTo("blocks 1%".length());
+        assertThat(problem.path("suggestions")).extracting(JsonNode::asString)
+                .containsExactly("blocks under 1%", "transmits under 99%");
+        assertThat(problem.path("expected").asString()).contains("transmittance at most 99%").contains("transmittance at most 1%");
+    }
+
+    @Test
+    void anUnknownClassIsA400ListingTheDemoLibrarysClasses() throws Exception {
+        String text = "blocks under 1% at 405 nm and luminous over 70%, class plastic";
+        HttpResponse<String> response = send("/api/search", body(text, 5));
+        JsonNode problem = JSON.readTree(response.body());
+
+        assertThat(response.statusCode()).isEqualTo(400);
+        assertThat(problem.path("position").asInt()).isEqualTo(text.indexOf("plastic"));
+        assertThat(problem.path("suggestion").asString()).isEqualTo("plastic sheet");
+        assertThat(problem.path("expected").asString()).contains("plastic sheet", "window glass", "resin-tank sheet");
+    }
+
+    @Test
+    void anUnknownClassInTheStructuredFormIsA400NamingTheField() throws Exception {
+        JsonNode structured = post("/api/requirements/parse", body("passes over 80% at 365 nm", 1));
+        ((ObjectNode) structured).put("materialClass", "plastic");
+        ObjectNode request = JSON.createObjectNode();
+        request.set("requirement", structured);
+        HttpResponse<String> response = send("/api/search", request.toString());
+        JsonNode problem = JSON.readTree(response.body());
+
+        assertThat(response.statusCode()).isEqualTo(400);
+        assertThat(problem.path("parameter").asString()).isEqualTo("requirement.materialClass");
+        assertThat(problem.path("detail").asString()).contains("did you mean 'plastic sheet'");
+    }
+
+    @Test
+    void theTradesPhrasingSearchesLikeItsCanonicalForm() throws Exception {
+        JsonNode trade = search("UV400 and visible over 70%, 1 to 6 mm thick, class plastic sheet", 5);
+        JsonNode canonical = search("blocks under 1% from 290 to 400 nm and luminous over 70%, thickness 1 to 6 mm,"
+                + " class plastic sheet", 5);
+        assertThat(trade.path("results").size()).isPositive();
+        assertThat(rowsOf(trade)).isEqualTo(rowsOf(canonical));
+    }
+
+    /** Each result row as "material, sample: verdict". */
+    private static List<String> rowsOf(JsonNode answer) {
+        List<String> rows = new java.util.ArrayList<>();
+        for (JsonNode row : answer.path("results")) {
+            rows.add(row.path("materialName").asString() + ", " + row.path("sampleId").asString() + ": "
+                    + row.path("verdict").asString());
+        }
+        return rows;
+    }
+
+    @Test
     void structuredStackRequirementGivesTheSameShortlistAsItsText() throws Exception {
         String text = "blocks under 1% at 405 nm and luminous over 70%, thickness 1 to 6 mm, behind 4 mm clear float glass";
         ObjectNode request = JSON.createObjectNode();

@@ -133,6 +133,26 @@ class SieveCliTest {
     }
 
     @Test
+    void anUnknownClassExitsTwoListingTheLibrarysClasses() {
+        Run run = cli("search", "blocks under 1% at 405 nm, class plastic");
+
+        assertThat(run.exitCode()).isEqualTo(SieveCli.USAGE);
+        assertThat(run.out()).isEmpty();
+        List<String> err = run.err().lines().toList();
+        assertThat(err.get(0)).contains("position 33").contains("a material class of the library (")
+                .contains("window glass").contains("did you mean 'plastic sheet'");
+        assertThat(err.get(2)).isEqualTo("  " + " ".repeat(33) + "^");
+    }
+
+    @Test
+    void anAmbiguousBlockingLevelExitsTwoShowingBothReadings() {
+        Run run = cli("search", "blocks 1% at 405 nm");
+
+        assertThat(run.exitCode()).isEqualTo(SieveCli.USAGE);
+        assertThat(run.err()).contains("'blocks under 1%'").contains("'transmits under 99%'");
+    }
+
+    @Test
     void jsonOutputParsesWithAResultsArrayLikeTheApi() {
         Run run = cli("search", FUSED_SILICA_AT_254, "--limit", "3", "--json");
 

@@ -271,7 +271,9 @@ class RequirementParserTest {
                 "class", "material", "plastic", "sheet", "geometry", "regular", "total", "0", "0.5", "1", "3",
                 "80", "100", "120", "365", "405", "0.365", "1e9", "99999999999999999999", ".",
                 "of", "led", "led-365", "weighted", "by", "erythema", "erythemal", "uv", "hazard", "uv-hazard",
-                "transmittance", "critical", "wavelength", "behind", "on", "float", "glass", "illuminant", "a"};
+                "transmittance", "critical", "wavelength", "behind", "on", "float", "glass", "illuminant", "a",
+                "transmits", "T", "t", ">", "<", "visible", "light", "vlt", "thick", "UV400", "UV", "400", "99", "99.9",
+                "50", "of UV", "between 3 and 6 mm", "3 to 6 mm thick"};
         Random random = new Random(20_240_607L);
         for (int i = 0; i < 20_000; i++) {
             StringBuilder text = new StringBuilder();

@@ -102,10 +102,10 @@ class WeightedEvaluationTest {
         assertThat(open.valueIsBound()).isTrue();
         assertThat(ClauseEvaluator.evaluate(weighted("passes over 85% of led 385"), curve).verdict()).isEqualTo(Verdict.MISSES);
         // the lower end is already above 70 %
-        assertThat(ClauseEvaluator.evaluate(weighted("blocks under 70% of led 385"), curve).verdict()).isEqualTo(Verdict.MISSES);
-        assertThat(ClauseEvaluator.evaluate(weighted("blocks under 79.4% of led 385"), curve).verdict())
+        assertThat(ClauseEvaluator.evaluate(weighted("transmits under 70% of led 385"), curve).verdict()).isEqualTo(Verdict.MISSES);
+        assertThat(ClauseEvaluator.evaluate(weighted("transmits under 79.4% of led 385"), curve).verdict())
                 .isEqualTo(Verdict.UNVERIFIED);
-        assertThat(ClauseEvaluator.evaluate(weighted("blocks under 85% of led 385"), curve).verdict()).isEqualTo(Verdict.MEETS);
+        assertThat(ClauseEvaluator.evaluate(weighted("transmits under 85% of led 385"), curve).verdict()).isEqualTo(Verdict.MEETS);
     }
 
     @Test

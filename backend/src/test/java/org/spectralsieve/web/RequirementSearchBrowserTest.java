@@ -170,6 +170,33 @@ class RequirementSearchBrowserTest {
         screenshot("search-6-led-fixed");
     }
 
+    @Test
+    void aBlockedShareIsShownAsItsCeilingAndAnAmbiguousOneOffersBothReadings() throws IOException {
+        driver.get("http://localhost:" + port + "/");
+        WebElement text = driver.findElement(By.id("requirement-text"));
+
+        // "blocks 99 %" keeps 99 % out (common practice, no source): the page shows the reading, T ≤ 1 %.
+        text.sendKeys("blocks 99% at 405 nm");
+        assertThat(waitForClauses(2)).containsExactly("T ≤ 1 % at 405 nm", "thickness: as measured");
+
+        // "blocks 1 %" reads two ways: the span is marked and each reading offered as a fix.
+        text.sendKeys(Keys.chord(Keys.CONTROL, "a"), Keys.DELETE);
+        text.sendKeys("blocks 1% at 405 nm");
+        WebElement error = driver.findElement(By.id("requirement-error"));
+        wait.withMessage("waiting for the two readings to be shown");
+        wait.until(d -> error.isDisplayed());
+        assertThat(error.getText()).contains("transmits under 99%").contains("blocks under 1%");
+        assertThat(error.findElement(By.cssSelector(".marked-text mark")).getText()).isEqualTo("blocks 1%");
+        List<WebElement> fixes = error.findElements(By.cssSelector("button.suggestion"));
+        assertThat(fixes).extracting(WebElement::getText).containsExactly("blocks under 1%", "transmits under 99%");
+        screenshot("search-7-two-readings");
+
+        fixes.get(0).click();
+        assertThat(text.getDomProperty("value")).isEqualTo("blocks under 1% at 405 nm");
+        waitForResultsFor("blocks under 1% at 405 nm");
+        assertThat(waitForClauses(2)).containsExactly("T ≤ 1 % at 405 nm", "thickness: as measured");
+    }
+
     private List<String> waitForClauses(int count) {
         wait.withMessage(() -> "waiting for " + count + " understood clauses; now: " + clauseTexts()
                 + "; error: " + driver.findElement(By.id("requirement-error")).getText());
