@@ -196,7 +196,8 @@ public final class WeightedFigures {
             gaps.add("about " + percent(responseShare) + " lies where emitter " + emitter.name() + " ("
                     + emitter.minNm() + "-" + emitter.maxNm() + " nm) has power outside the table of response "
                     + response.name() + " (" + response.minNm() + "-" + response.maxNm()
-                    + " nm; estimated with W held at the table's ends)");
+                    + " nm; estimated with W held at the table's ends; a table that ends with zeros where the"
+                    + " response has no weight leaves nothing out)");
         }
         if (gaps.isEmpty()) {
             gaps.add("the curve (" + curve.minWavelengthNm() + "-" + curve.maxWavelengthNm()
