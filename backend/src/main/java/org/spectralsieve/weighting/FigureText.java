@@ -21,9 +21,17 @@ public final class FigureText {
     private FigureText() {
     }
 
-    /** A transmittance fraction as the explanations print it: three significant digits, "79.6 %". */
+    /**
+     * A transmittance fraction with three significant digits: "79.6 %", "0.0181 %"; below 0.001 % in
+     * powers of ten, "9.06e-7 %", so that a long row of zeros does not pass for precision.
+     */
     public static String percent(double fraction) {
-        return significant(100 * fraction, 3) + " %";
+        double p = 100 * fraction;
+        if (p != 0 && Math.abs(p) < 1e-3) {
+            return String.format(java.util.Locale.ROOT, "%.2e", p).replaceAll("\\.?0+e", "e")
+                    .replaceAll("e-0*", "e-") + " %";
+        }
+        return significant(p, 3) + " %";
     }
 
     /** The two ends of a bounded transmittance, as described above; lower may be NaN when unknown. */
