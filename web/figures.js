@@ -220,8 +220,17 @@ export function initFigures(ui) {
       note.textContent = figure.note ? `Not available: ${figure.note}` : 'Not available (no reason given).';
     } else {
       value.textContent = text;
-      value.title = [fmt.boundMeaning(figure.bound), figure.note].filter(Boolean).join('; ');
+      const meaning = figure.stated ? 'points below the detection limit taken at 0 and at their limit; the true'
+        + ' value lies between' : fmt.boundMeaning(figure.bound);
+      value.title = [meaning, figure.note].filter(Boolean).join('; ');
       if (figure.bound === 'at-most' || figure.bound === 'at-least') value.classList.add('bound');
+      const caveats = fmt.figureCaveats(figure);
+      if (caveats.length) {
+        const strong = document.createElement('strong');
+        strong.className = 'caveat';
+        strong.textContent = caveats.join(' ');
+        note.prepend(strong, ' ');
+      }
     }
     tr.append(head, value, note);
     return tr;

@@ -221,6 +221,9 @@ function isProtectionFactor(figure, key) {
  */
 export function figureValue(figure, key) {
   if (!figureAvailable(figure)) return null;
+  // A bounded transmittance comes with both ends stated by the server, worded as the search's explanations
+  // word them ("79.6 %", "between 12.1 % and 13 %", "at most 0.1 %"), so the two never disagree in sign.
+  if (typeof figure.stated === 'string' && figure.stated) return figure.stated;
   const v = figure.value;
   const sign = figure.bound === 'at-most' ? '≤ ' : figure.bound === 'at-least' ? '≥ ' : '';
   switch (figure.unit) {
@@ -243,6 +246,21 @@ export function figureValue(figure, key) {
   if (/category/i.test(`${key || ''} ${figure.name} ${figure.unit || ''}`)) return `${sign}${number(v, 0)}`;
   const unit = figure.unit && figure.unit !== '1' ? ` ${figure.unit}` : '';
   return `${sign}${significant(v)}${unit}`;
+}
+
+/**
+ * What the page must not let pass unnoticed about a figure: the share of the weighted power it left out
+ * (outside the curve or the response's table) and a value capped at OD 12. Empty strings are left out.
+ */
+export function figureCaveats(figure) {
+  const caveats = [];
+  if (Number.isFinite(figure.outsideShare) && figure.outsideShare > 0) {
+    caveats.push(`Leaves out ${significant(100 * figure.outsideShare, 2)} % of the weighted power (not extrapolated).`);
+  }
+  if (/capped/i.test(figure.note || '')) {
+    caveats.push('Capped at OD 12: no transmittance measurement states more.');
+  }
+  return caveats;
 }
 
 /** What a bound means, for a tooltip beside the sign. */

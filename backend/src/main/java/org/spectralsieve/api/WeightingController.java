@@ -15,6 +15,7 @@ import org.spectralsieve.weighting.Emitter;
 import org.spectralsieve.weighting.EmitterCatalogue;
 import org.spectralsieve.weighting.Figure;
 import org.spectralsieve.weighting.FigureSheet;
+import org.spectralsieve.weighting.FigureText;
 import org.spectralsieve.weighting.SafetyCaution;
 import org.spectralsieve.weighting.Response;
 import org.spectralsieve.weighting.SpectrumLookup;
@@ -72,12 +73,21 @@ class WeightingController {
     record ResponsesJson(List<ResponseJson> responses, String caution) {
     }
 
-    /** value is null when the figure is not available; note then says why. */
-    record FigureJson(String name, Double value, String unit, String bound, boolean available, String note) {
+    /**
+     * value is null when the figure is not available; note then says why. A bounded figure may carry
+     * otherEnd (the figure with points below the detection limit at 0 instead of at their limit) and, for a
+     * transmittance, stated: both ends as the search's explanations print them ("79.6 %", "between 12.1 % and
+     * 13 %", "at most 0.1 %"). outsideShare is the share of the weighted power left out (outside the curve or
+     * the response's table), 0 when none.
+     */
+    record FigureJson(String name, Double value, String unit, String bound, boolean available, String note,
+            Double otherEnd, String stated, double outsideShare) {
 
         static FigureJson of(Figure f) {
             return new FigureJson(f.name(), f.available() ? f.value().getAsDouble() : null, f.unit(),
-                    f.bound().name().toLowerCase(Locale.ROOT).replace('_', '-'), f.available(), f.note());
+                    f.bound().name().toLowerCase(Locale.ROOT).replace('_', '-'), f.available(), f.note(),
+                    f.otherEnd().isPresent() ? f.otherEnd().getAsDouble() : null, FigureText.stated(f),
+                    f.outsideShare());
         }
 
         static List<FigureJson> all(List<Figure> figures) {

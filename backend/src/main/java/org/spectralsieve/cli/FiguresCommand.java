@@ -16,6 +16,7 @@ import org.spectralsieve.weighting.Emitter;
 import org.spectralsieve.weighting.EmitterCatalogue;
 import org.spectralsieve.weighting.Figure;
 import org.spectralsieve.weighting.FigureSheet;
+import org.spectralsieve.weighting.FigureText;
 import org.spectralsieve.weighting.Response;
 import org.spectralsieve.weighting.SafetyCaution;
 import org.spectralsieve.weighting.SpectrumLookup;
@@ -139,10 +140,17 @@ final class FiguresCommand implements Callable<Integer> {
         out.flush();
     }
 
-    /** The value with its unit and bound ("≤ 34.5 %", "≥ 2.90", "383.8 nm", "OD ≥ 3.00"), or "not available". */
+    /**
+     * The value with its unit and bound ("≥ 2.90", "383.8 nm", "OD ≥ 3.00"), a bounded transmittance by its
+     * two ends as the search states it ("79.6 %", "between 12.1 % and 13 %", "at most 0.1 %"), or "not available".
+     */
     static String value(Figure f) {
         if (!f.available()) {
             return "not available";
+        }
+        String stated = FigureText.stated(f);
+        if (stated != null) {
+            return stated;
         }
         double v = f.value().getAsDouble();
         String sign = switch (f.bound()) {

@@ -2,6 +2,7 @@ package org.spectralsieve.requirement;
 
 import org.spectralsieve.spectrum.Curve;
 import org.spectralsieve.weighting.Figure;
+import org.spectralsieve.weighting.FigureText;
 import org.spectralsieve.weighting.WeightedFigures;
 
 /**
@@ -17,7 +18,9 @@ import org.spectralsieve.weighting.WeightedFigures;
  * (L), since the figure rises with every T. A pass is met when L reaches the threshold (proven by the
  * measured points alone: no bound ever proves a pass) and missed when U falls short; a block is met
  * when U is low enough and missed when L is already too high; otherwise unverified. The value and margin
- * are L's for a met pass and a missed block, U's otherwise (flagged as a bound).
+ * are L's for a met pass and a missed block, U's otherwise (flagged as a bound). The explanation states
+ * both ends as the figures answer does ({@link FigureText#ends}), never one sign alone, so the search and
+ * the figures section cannot read "at least 79.6 %" and "≤ 79.6 %" for the same stack.
  *
  * <h2>Critical wavelength</h2>
  * Value: λc in nm ({@link WeightedFigures#criticalWavelength}). λc ≥ L exactly when the absorbance beyond
@@ -63,6 +66,15 @@ final class FigureClauses {
         return new Span(Math.min(l, u), u, bounded, upper.note());
     }
 
+    /**
+     * A bounded figure by both its ends, as the figures answer states it ({@link FigureText#ends}): "79.6 %"
+     * when they print alike, "at most U" when the lower end is 0, else "between L and U"; then what the ends are.
+     */
+    private static String ends(Span span) {
+        return FigureText.ends(span.lower(), span.upper()) + " (points below the detection limit taken at 0 and"
+                + " at their limit)";
+    }
+
     static ClauseResult weighted(WeightedClause clause, Curve curve) {
         String subject = clause.weighting().describe();
         StringBuilder why = new StringBuilder();
@@ -83,18 +95,12 @@ final class FigureClauses {
         } else if (Margins.holds(direction, span.provenFor(direction), threshold)) {
             value = span.provenFor(direction);
             verdict = Verdict.MEETS;
-            text = subject + " is " + (direction == Direction.PASS
-                    ? "at least " + Wording.percent(value) + " (points below the detection limit counted as 0)"
-                    : "at most " + Wording.percent(value) + " (points below the detection limit at their limit)")
-                    + ", so it is " + need;
+            text = subject + " is " + ends(span) + ", so it is " + need;
         } else if (!Margins.holds(direction, span.provenFor(direction == Direction.PASS ? Direction.BLOCK : Direction.PASS),
                 threshold)) {
             value = span.provenFor(direction == Direction.PASS ? Direction.BLOCK : Direction.PASS);
             verdict = Verdict.MISSES;
-            text = subject + " is " + (direction == Direction.PASS
-                    ? "at most " + Wording.percent(value) + " (points below the detection limit at their limit)"
-                    : "at least " + Wording.percent(value) + " (points below the detection limit counted as 0)")
-                    + ", so it cannot be " + need;
+            text = subject + " is " + ends(span) + ", so it cannot be " + need;
         } else {
             value = span.upper();
             verdict = Verdict.UNVERIFIED;
@@ -102,8 +108,8 @@ final class FigureClauses {
                     + " (points below the detection limit): cannot show " + need;
         }
         double margin = Margins.of(direction, value, threshold);
-        if (span.note().contains("leaving out")) {
-            text += " (" + span.note().substring(span.note().indexOf("taken over")) + ")";
+        if (span.note().contains("; leaving out")) {
+            text += " (" + span.note().substring(span.note().indexOf("; leaving out") + 2) + ")";
         }
         // an upper bound is reported as such; a met pass and a missed block stand on the lower end, a proven number
         boolean valueIsBound = span.bounded() && value == span.upper() && value != span.lower();

@@ -85,9 +85,9 @@ public sealed interface Weighting permits Weighting.Spectral, Weighting.Luminous
             }
         }
 
-        /** The response actually integrated: the named one, or flat over the emitter's range. */
+        /** The response actually integrated: the named one, or flat (W = 1 wherever the emitter has power). */
         public Response effectiveResponse() {
-            return response.orElseGet(() -> Response.flat(emitter.minNm(), emitter.maxNm()));
+            return response.orElseGet(Response::flat);
         }
 
         @Override

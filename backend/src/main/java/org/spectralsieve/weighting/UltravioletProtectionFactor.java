@@ -57,8 +57,9 @@ public final class UltravioletProtectionFactor {
                     + " nm");
         }
         if (!(passed > 0)) {
-            return Figure.unavailable(NAME, "1", "the curve passes no erythemally weighted " + spectrum
-                    + ": UPF is unbounded");
+            return Figure.of(NAME, StatedLimits.MAX_STATED_FACTOR, "1", Bound.AT_LEAST, "the curve passes no"
+                    + " erythemally weighted " + spectrum + "; stated as at least 1e12 (OD 12), since no transmittance"
+                    + " measurement states more");
         }
         String note = "Σ E·s_er / Σ E·s_er·T, E = " + spectrum + ", s_er = erythema (ISO/CIE 17166), plain sums "
                 + FROM_NM + "-" + TO_NM + " nm on a " + STEP_NM + " nm grid; no rating statistics (mean minus"

@@ -44,27 +44,62 @@ public final class WeightedFigures {
         return report(curve, emitter, response, UvBand.Convention.CIE);
     }
 
+    /**
+     * The report as answers state it. Every figure is computed on the curve with points below the detection
+     * limit at their limit ({@link BoundedCurves#upperBounds}, as the requirement judges), and a bounded
+     * transmittance or factor also carries its other end (those points at 0), so answers state both ends
+     * ({@link FigureText}); values beyond OD 12 are capped ({@link StatedLimits}).
+     */
     public static Report report(Curve curve, Emitter emitter, Response response, UvBand.Convention convention) {
-        List<Figure> bands = bandMeans(curve, convention);
+        Curve upper = BoundedCurves.upperBounds(curve);
+        Curve lower = BoundedCurves.lowerBounds(curve);
+        List<Figure> bands = new ArrayList<>();
+        List<Figure> lowerBands = bandMeans(lower, convention);
+        List<Figure> upperBands = bandMeans(upper, convention);
+        for (int i = 0; i < upperBands.size(); i++) {
+            bands.add(StatedLimits.transmittance(withEnd(upperBands.get(i), lowerBands.get(i))));
+        }
         List<Figure> ods = new ArrayList<>();
         for (double nm : NAMED_LINES_NM) {
-            ods.add(opticalDensityAt(curve, nm));
+            ods.add(StatedLimits.opticalDensity(opticalDensityAt(upper, nm), upper.transmittanceAt(nm).orElse(1)));
         }
-        return new Report(effectiveTransmittance(curve, emitter, response),
-                protectionFactor(curve, emitter, response),
-                protectionFactor(curve, Emitter.flat(), Response.erythema()),
-                protectionFactor(curve, Emitter.flat(), Response.actinicUv()),
-                bands, criticalWavelength(curve), ods);
+        return new Report(
+                StatedLimits.transmittance(withEnd(effectiveTransmittance(upper, emitter, response),
+                        effectiveTransmittance(lower, emitter, response))),
+                factorWithEnd(upper, lower, emitter, response),
+                factorWithEnd(upper, lower, Emitter.flat(), Response.erythema()),
+                factorWithEnd(upper, lower, Emitter.flat(), Response.actinicUv()),
+                bands, criticalWavelength(upper), ods);
+    }
+
+    /** The figure on the upper-bound curve with the lower-bound curve's value as its other end. */
+    static Figure withEnd(Figure upper, Figure lower) {
+        return upper.bound() == Bound.VALUE || !lower.available() ? upper
+                : upper.withOtherEnd(lower.value().getAsDouble());
+    }
+
+    private static Figure factorWithEnd(Curve upper, Curve lower, Emitter emitter, Response response) {
+        Figure factor = protectionFactor(upper, emitter, response);
+        Figure lowerT = effectiveTransmittance(lower, emitter, response);
+        if (factor.bound() != Bound.VALUE && lowerT.available() && lowerT.value().getAsDouble() > 0) {
+            factor = factor.withOtherEnd(1 / lowerT.value().getAsDouble());
+        }
+        return StatedLimits.factor(factor);
     }
 
     /**
      * ∫E·W·T dλ / ∫E·W dλ over the response's defined range (cut to where the emitter has power).
      * An upper bound when any weighted point is below the detection limit.
      *
-     * <p>Where the curve does not reach the whole range, nothing is extrapolated: if the part outside the
-     * curve holds at most {@link #MAX_UNCOVERED_SHARE} of ∫E·W dλ (the actinic S(λ) starts at 180 nm, curves
-     * at 190 nm, and 180-190 nm holds about 0.3 % of its flat-source weight), the ratio is taken over the
-     * covered part and the note gives the share left out; otherwise the figure is not available.
+     * <p>Nothing is truncated silently. Two parts of the weighted power can lie where the figure cannot
+     * see them: beyond the curve (curves are never extrapolated), and, for a response whose data merely
+     * ends ({@link Response#zeroOutsideByDefinition()} false: an imported table), where the emitter has power
+     * outside the response's range; that part is estimated with W held at the table's nearer end. When
+     * together they hold at most {@link #MAX_UNCOVERED_SHARE} of all the weighted power (the actinic S(λ)
+     * starts at 180 nm, curves at 190 nm: 0.3 % of its flat-source weight), the ratio is taken over the
+     * covered interval alone, numerator and normaliser on the same interval with their own trapezoid ends,
+     * and the figure carries the share left out ({@link Figure#outsideShare()}, and in its note); above
+     * that the figure is not available and says why.
      */
     public static Figure effectiveTransmittance(Curve curve, Emitter emitter, Response response) {
         String name = "effectiveTransmittance";
@@ -75,46 +110,100 @@ public final class WeightedFigures {
                     + emitter.maxNm() + " nm) has no power inside the range of response " + response.name() + " ("
                     + response.minNm() + "-" + response.maxNm() + " nm)");
         }
-        int n = intervals(lo, hi, emitter.stepNm());
-        double step = (hi - lo) / n;
-        double covered = 0;
-        double uncovered = 0;
-        double passed = 0;
-        boolean bound = false;
-        for (int i = 0; i <= n; i++) {
-            double nm = i == n ? hi : lo + i * step;
-            double ew = emitter.powerAt(nm) * response.weightAt(nm) * trapezoidWeight(i, n);
-            if (!(ew > 0)) {
-                continue;
-            }
-            var t = curve.transmittanceAt(nm);
-            if (t.isEmpty()) {
-                uncovered += ew;
-                continue;
-            }
-            covered += ew;
-            passed += ew * t.getAsDouble();
-            bound |= curve.belowDetectionAt(nm);
-        }
-        double total = covered + uncovered;
+        double step = emitter.stepNm();
+        double inside = integrate(lo, hi, step, nm -> emitter.powerAt(nm) * response.weightAt(nm));
+        double beyondResponse = response.zeroOutsideByDefinition() ? 0
+                : integrate(emitter.minNm(), lo, step, nm -> emitter.powerAt(nm) * response.weightAtNearestEnd(nm))
+                        + integrate(hi, emitter.maxNm(), step, nm -> emitter.powerAt(nm) * response.weightAtNearestEnd(nm));
+        double total = inside + beyondResponse;
         if (!(total > 0)) {
             return Figure.unavailable(name, "fraction", "emitter " + emitter.name() + " × response "
                     + response.name() + " integrates to 0 over " + lo + "-" + hi + " nm");
         }
-        double share = uncovered / total;
-        if (share > MAX_UNCOVERED_SHARE || !(covered > 0)) {
-            return Figure.unavailable(name, "fraction", coverageGap(curve, lo, hi) + "; "
-                    + percent(share) + " of the weighted power lies outside the curve (at most "
-                    + percent(MAX_UNCOVERED_SHARE) + " may)");
+        double from = Math.max(lo, curve.minWavelengthNm());
+        double to = Math.min(hi, curve.maxWavelengthNm());
+        Covered covered = to > from ? covered(curve, emitter, response, from, to) : Covered.NONE;
+        double beyondCurve = Math.max(0, inside - covered.weight());
+        // below 1e-12 the two integrals differ by rounding only: the same grid, the same terms
+        double curveShare = beyondCurve / total < 1e-12 ? 0 : beyondCurve / total;
+        double responseShare = beyondResponse / total;
+        double share = curveShare + responseShare;
+        if (share > MAX_UNCOVERED_SHARE || !(covered.weight() > 0)) {
+            return Figure.unavailable(name, "fraction", String.join("; ", gaps(curve, response, emitter, lo, hi,
+                    curveShare, responseShare)) + " (at most " + percent(MAX_UNCOVERED_SHARE) + " may be left out)");
         }
-        String note = emitter.name() + " × " + response.name() + ", " + lo + "-" + hi + " nm, trapezoid, step "
-                + step + " nm";
-        if (uncovered > 0) {
-            note += "; taken over the curve's range " + Math.max(lo, curve.minWavelengthNm()) + "-"
-                    + Math.min(hi, curve.maxWavelengthNm()) + " nm only, leaving out " + percent(share)
-                    + " of the weighted power (not extrapolated)";
+        String note = emitter.name() + " × " + response.name() + ", " + from + "-" + to + " nm, trapezoid, step "
+                + covered.stepNm() + " nm";
+        if (share > 0) {
+            note += "; leaving out " + percent(share) + " of the weighted power ("
+                    + String.join("; ", gaps(curve, response, emitter, lo, hi, curveShare, responseShare))
+                    + "; not extrapolated)";
         }
-        return Figure.of(name, passed / covered, "fraction", bound ? Bound.AT_MOST : Bound.VALUE, note);
+        Figure figure = Figure.of(name, covered.passed() / covered.weight(), "fraction",
+                covered.bound() ? Bound.AT_MOST : Bound.VALUE, note);
+        return share > 0 ? figure.withOutsideShare(Math.min(1, share)) : figure;
+    }
+
+    /** ∫E·W dλ, ∫E·W·T dλ and whether a weighted point is below detection, over [from, to] inside the curve. */
+    private record Covered(double weight, double passed, boolean bound, double stepNm) {
+        static final Covered NONE = new Covered(0, 0, false, 0);
+    }
+
+    private static Covered covered(Curve curve, Emitter emitter, Response response, double from, double to) {
+        int n = intervals(from, to, emitter.stepNm());
+        double step = (to - from) / n;
+        double weight = 0;
+        double passed = 0;
+        boolean bound = false;
+        for (int i = 0; i <= n; i++) {
+            double nm = i == n ? to : from + i * step;
+            double ew = emitter.powerAt(nm) * response.weightAt(nm) * trapezoidWeight(i, n);
+            if (!(ew > 0)) {
+                continue;
+            }
+            weight += ew;
+            passed += ew * curve.transmittanceAt(nm).orElseThrow();
+            bound |= curve.belowDetectionAt(nm);
+        }
+        return new Covered(weight * step, passed * step, bound, step);
+    }
+
+    /** Trapezoid ∫f over [from, to] on the largest uniform step not above maxStep; 0 for an empty interval. */
+    private static double integrate(double from, double to, double maxStep, java.util.function.DoubleUnaryOperator f) {
+        if (!(to > from)) {
+            return 0;
+        }
+        int n = intervals(from, to, maxStep);
+        double step = (to - from) / n;
+        double sum = 0;
+        for (int i = 0; i <= n; i++) {
+            double nm = i == n ? to : from + i * step;
+            sum += f.applyAsDouble(nm) * trapezoidWeight(i, n);
+        }
+        return sum * step;
+    }
+
+    /** What lies where the figure cannot see, each with its share of the weighted power. */
+    private static List<String> gaps(Curve curve, Response response, Emitter emitter, double lo, double hi,
+            double curveShare, double responseShare) {
+        List<String> gaps = new ArrayList<>();
+        if (curveShare > 0) {
+            gaps.add(percent(curveShare) + " of the weighted power lies outside the curve (curve "
+                    + curve.minWavelengthNm() + "-" + curve.maxWavelengthNm() + " nm, weighted range " + lo + "-" + hi
+                    + " nm; curves are never extrapolated)");
+        }
+        if (responseShare > 0) {
+            gaps.add("about " + percent(responseShare) + " lies where emitter " + emitter.name() + " ("
+                    + emitter.minNm() + "-" + emitter.maxNm() + " nm) has power outside the table of response "
+                    + response.name() + " (" + response.minNm() + "-" + response.maxNm()
+                    + " nm; estimated with W held at the table's ends; a table that ends with zeros where the"
+                    + " response has no weight leaves nothing out)");
+        }
+        if (gaps.isEmpty()) {
+            gaps.add("the curve (" + curve.minWavelengthNm() + "-" + curve.maxWavelengthNm()
+                    + " nm) holds none of the weighted power over " + lo + "-" + hi + " nm");
+        }
+        return gaps;
     }
 
     private static String percent(double share) {
@@ -130,10 +219,13 @@ public final class WeightedFigures {
         }
         double value = t.value().getAsDouble();
         if (value <= 0) {
-            return Figure.unavailable(name, "1", "effective transmittance is 0: the factor is unbounded");
+            // unbounded in arithmetic, but no measurement states more than OD 12 (StatedLimits)
+            return Figure.of(name, StatedLimits.MAX_STATED_FACTOR, "1", Bound.AT_LEAST, "effective transmittance"
+                    + " is 0; stated as at least 1e12 (OD 12), since no transmittance measurement states more; "
+                    + t.note()).withOutsideShare(t.outsideShare());
         }
         return Figure.of(name, 1 / value, "1", t.bound() == Bound.AT_MOST ? Bound.AT_LEAST : Bound.VALUE,
-                "1 / effective transmittance; " + t.note());
+                "1 / effective transmittance; " + t.note()).withOutsideShare(t.outsideShare());
     }
 
     /** Mean T in UVC, UVB and UVA of one convention, in that order. */

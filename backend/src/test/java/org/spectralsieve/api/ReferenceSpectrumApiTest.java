@@ -79,12 +79,15 @@ class ReferenceSpectrumApiTest {
     }
 
     /**
-     * A response of weight 1 over 300–400 nm is the built-in flat response restricted to that range, and
-     * with a flat emitter both are the plain mean of T over 300–400 nm (definition of a weighted mean with
-     * equal weights). Same grid, same weights, so equal to rounding: 1e-12.
+     * A response of weight 1 over 300–400 nm is a flat weight restricted to that range. Under led-365 (a
+     * Gaussian cut at 329–401 nm, all but a 7σ tail inside the table) it gives the figure of the built-in
+     * flat weight over 300–400 nm (same grid, same weights, so equal to rounding: 1e-12). Under the flat
+     * source, which has power from 100 to 1100 nm, the imported table is silent about most of that power:
+     * its data merely ends at 300 and 400 nm, so the figure is not available and says what lies outside,
+     * instead of quietly becoming the mean T over 300–400 nm.
      */
     @Test
-    void anImportedFlatResponseGivesTheBuiltInFlatFigureOverItsRange() throws Exception {
+    void anImportedBandResponseGivesTheBuiltInBandFigureAndRefusesASourceReachingFarBeyondIt() throws Exception {
         StringBuilder csv = new StringBuilder("wavelength_nm,weight\n");
         for (int nm = 300; nm <= 400; nm += 5) {
             csv.append(nm).append(",1\n");
@@ -93,13 +96,16 @@ class ReferenceSpectrumApiTest {
         long id = sampleId("Clear cast acrylic sheet");
         Curve curve = curves.get(id, null, null).curve();
 
-        double imported = figures(id, "flat", "flat-300-400").path("effectiveTransmittance").path("value").asDouble();
-        double builtIn = WeightedFigures.effectiveTransmittance(curve, Emitter.flat(), Response.flat(300, 400))
-                .value().getAsDouble();
-
+        double imported = figures(id, "led-365", "flat-300-400").path("effectiveTransmittance").path("value")
+                .asDouble();
+        double builtIn = WeightedFigures.effectiveTransmittance(curve, Emitter.led("led-365", 365, 12),
+                Response.flat(300, 400)).value().getAsDouble();
         assertThat(imported).isCloseTo(builtIn, within(1e-12));
-        assertThat(imported).isCloseTo(meanTransmittance(curve, 300, 400), within(1e-12));
         assertThat(imported).isBetween(0.0, 1.0);
+
+        JsonNode refused = figures(id, "flat", "flat-300-400").path("effectiveTransmittance");
+        assertThat(refused.path("available").asBoolean()).isFalse();
+        assertThat(refused.path("note").asString()).contains("outside the table of response flat-300-400");
     }
 
     /**
@@ -495,15 +501,6 @@ class ReferenceSpectrumApiTest {
     }
 
     /** Mean of T over [from, to] by the trapezoid rule on 1 nm steps, from the curve itself. */
-    private static double meanTransmittance(Curve curve, int from, int to) {
-        double sum = 0;
-        for (int nm = from; nm <= to; nm++) {
-            double w = nm == from || nm == to ? 0.5 : 1;
-            sum += w * curve.transmittanceAt(nm).orElseThrow();
-        }
-        return sum / (to - from);
-    }
-
     /** ∫ over the stored points that lie inside [from, to], trapezoid rule. */
     private static double trapezoid(JsonNode points, double from, double to) {
         JsonNode x = points.path("wavelengthsNm");

@@ -129,8 +129,8 @@ class WeightedFiguresApiTest {
         // only the name's reading is under test here: availability and the integration range
         JsonNode t = described.path("effectiveTransmittance");
         assertThat(t.path("available").asBoolean()).isTrue();
-        // the LED model is cut at peak ± 3 FWHM (327-417 nm), the flat response ends at 400 nm
-        assertThat(t.path("note").asString()).contains("327.0-400.0 nm");
+        // the LED model is cut at peak ± 3 FWHM (327-417 nm), and unweighted means flat over all of it
+        assertThat(t.path("note").asString()).contains("327.0-417.0 nm");
         assertThat(getJson("/api/samples/" + id + "/figures?emitter=lamp-9", 400).path("detail").asString())
                 .contains("led-<peak nm>-<FWHM nm>").contains("blackbody-<K>k");
     }
@@ -199,6 +199,68 @@ class WeightedFiguresApiTest {
         assertThat(getJson("/api/samples/" + id + "/figures?solar=sunny", 400).path("parameter").asString())
                 .isEqualTo("solar");
         assertThat(getJson("/api/samples/999999/figures", 404).path("status").asInt()).isEqualTo(404);
+    }
+
+    /**
+     * Unweighted means flat over the whole emitter, on both paths: the figures endpoint's led-405 × flat
+     * and the requirement's "of led 405" (and "… weighted by flat") integrate the same LED over its whole
+     * range (peak ± 3 FWHM, 369-441 nm, by the LED model's definition) and give the same number to 1e-9.
+     * The old flat response stopped at 400 nm and dropped 84 % of this LED's power.
+     */
+    @Test
+    void theFiguresEndpointAndTheRequirementAgreeOnAnUnweightedLed() throws Exception {
+        String material = "UV-filtering acrylic, framing grade";
+        for (String requirement : new String[] {"passes over 99.9% of led 405",
+                "passes over 99.9% of led 405 weighted by flat"}) {
+            JsonNode row = searchRow(requirement, material);
+            JsonNode clause = row.path("clauses").get(0);
+            JsonNode figure = figures(row.path("sampleId").asLong(), "&emitter=led-405&response=flat")
+                    .path("effectiveTransmittance");
+            assertThat(figure.path("note").asString()).contains("369.0-441.0 nm");
+            assertThat(clause.path("verdict").asString()).isEqualTo("misses");
+            // a missed pass is judged on the upper end, which is the figure's value (bounded or not)
+            assertThat(clause.path("value").asDouble()).as(requirement)
+                    .isCloseTo(figure.path("value").asDouble(), org.assertj.core.api.Assertions.within(1e-9));
+        }
+    }
+
+    /**
+     * Bounds keep their sign everywhere: a sample with points below the detection limit behind 4 mm clear
+     * float glass. The search's explanation of "luminous over 70%" and the figures answer's τv state the
+     * same ends (points below the limit at 0 and at their limit), never "at least" in one and "≤" in the other.
+     */
+    @Test
+    void theSearchAndTheFiguresStateABoundedStackedFigureAlike() throws Exception {
+        int compared = 0;
+        for (String material : new String[] {"Yellow resin-printer lid sheet", "UV-filtering acrylic, framing grade"}) {
+            JsonNode row = searchRow("luminous over 70%, behind 4 mm clear float glass", material);
+            String explanation = row.path("clauses").get(0).path("explanation").asString();
+            JsonNode tv = figures(row.path("sampleId").asLong(), "&behind=clear-float-glass&behindMm=4")
+                    .path("luminousTransmittance");
+            if (!"at-most".equals(tv.path("bound").asString())) {
+                continue;
+            }
+            String stated = tv.path("stated").asString();
+            assertThat(stated).isNotBlank().doesNotContain("≤");
+            assertThat(explanation).as(material).contains(" is " + stated + " (points below the detection limit")
+                    .doesNotContain("at least");
+            compared++;
+        }
+        assertThat(compared).as("demo stacks with a bounded τv").isPositive();
+    }
+
+    private JsonNode searchRow(String requirement, String materialName) throws Exception {
+        String body = JSON.writeValueAsString(java.util.Map.of("requirement", requirement, "limit", 200));
+        HttpResponse<String> response = HTTP.send(HttpRequest.newBuilder(URI.create("http://localhost:" + port
+                + "/api/search")).header("Content-Type", "application/json")
+                .POST(HttpRequest.BodyPublishers.ofString(body)).build(), HttpResponse.BodyHandlers.ofString());
+        assertThat(response.statusCode()).as(response.body()).isEqualTo(200);
+        for (JsonNode row : JSON.readTree(response.body()).path("results")) {
+            if (row.path("materialName").asString().startsWith(materialName)) {
+                return row;
+            }
+        }
+        throw new AssertionError("no row for " + materialName + " in the answer to " + requirement);
     }
 
     private JsonNode figures(long sampleId, String query) throws Exception {

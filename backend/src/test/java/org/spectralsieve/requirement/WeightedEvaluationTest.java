@@ -94,7 +94,9 @@ class WeightedEvaluationTest {
         ClauseResult met = ClauseEvaluator.evaluate(weighted("passes over 70% of led 385"), curve);
         assertThat(met.verdict()).as(met.explanation()).isEqualTo(Verdict.MEETS); // proven by the measured points alone
         assertThat(met.value()).isBetween(0.744, 0.792);
-        assertThat(met.explanation()).contains("at least").contains("counted as 0");
+        // both ends stated, as the figures answer states them (never "at least" here and "≤" there)
+        assertThat(met.explanation()).contains("between").contains("taken at 0 and at their limit")
+                .doesNotContain("at least");
         ClauseResult open = ClauseEvaluator.evaluate(weighted("passes over 79.4% of led 385"), curve);
         assertThat(open.verdict()).as(open.explanation()).isEqualTo(Verdict.UNVERIFIED);
         assertThat(open.explanation()).contains("lies between");
@@ -115,7 +117,7 @@ class WeightedEvaluationTest {
         ClauseResult erythemal = ClauseEvaluator.evaluate(weighted("erythemal under 1%"), edgeAt380(0.001));
         assertThat(erythemal.verdict()).as(erythemal.explanation()).isEqualTo(Verdict.MEETS);
         assertThat(erythemal.valueIsBound()).isTrue();
-        assertThat(erythemal.explanation()).contains("at most");
+        assertThat(erythemal.explanation()).contains("taken at 0 and at their limit");
         ClauseResult flatSource = ClauseEvaluator.evaluate(weighted("passes over 50% of flat"), edgeAt380(0.001));
         assertThat(flatSource.verdict()).isEqualTo(Verdict.UNVERIFIED); // flat reaches 100 nm, the curve starts at 190 nm
         assertThat(flatSource.marginDecades()).isNaN();

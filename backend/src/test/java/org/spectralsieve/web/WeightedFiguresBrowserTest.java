@@ -167,14 +167,16 @@ class WeightedFiguresBrowserTest {
     @Test
     void aResponseImportedThroughThePageIsChosenAndGivesTheApisFigureAndABadFileIsRefusedWithItsLine()
             throws Exception {
-        // A flat weight over 300-400 nm: its effective transmittance is the mean T over 300-400 nm, which
+        // A flat weight over 300-400 nm (falling to 0 at 290 and 410 nm), whose effective transmittance
         // the API computes the same way for the imported name (flat-T identity, ISO/CIE 17166 form of the
         // weighted ratio; here only the page's wiring is under test, so the API is the reference).
         Path good = Files.createTempFile("flat-300-400", ".csv");
-        StringBuilder csv = new StringBuilder("wavelength_nm,weight\n");
+        // zero at 290 and 410 nm: the table says where it has no weight, so no emitter power lies beyond it
+        StringBuilder csv = new StringBuilder("wavelength_nm,weight\n290,0\n");
         for (int nm = 300; nm <= 400; nm += 10) {
             csv.append(nm).append(",1\n");
         }
+        csv.append("410,0\n");
         Files.writeString(good, csv.toString());
         Path bad = Files.createTempFile("negative-weight", ".csv");
         Files.writeString(bad, "wavelength_nm,weight\n300,1\n310,-2\n320,1\n");
@@ -191,7 +193,7 @@ class WeightedFiguresBrowserTest {
         driver.findElement(By.id("spectrum-import-button")).click();
         waitForStatus("flat × page-flat-300-400");
         assertThat(driver.findElement(By.id("spectrum-import-status")).getText())
-                .startsWith("Imported response page-flat-300-400 (11 points");
+                .startsWith("Imported response page-flat-300-400 (13 points");
         JsonNode answer = figures(sampleId, "emitter=flat&response=page-flat-300-400");
         assertThat(shownValue("effectiveTransmittance")).isEqualTo(fractionAsShown(answer.path("effectiveTransmittance")));
 
@@ -327,6 +329,10 @@ class WeightedFiguresBrowserTest {
      */
     static String fractionAsShown(JsonNode figure) {
         assertThat(figure.path("unit").asString()).isEqualTo("fraction");
+        // a bounded transmittance is shown by both its ends, in the server's words (as the search states it)
+        if (figure.path("stated").isString() && !figure.path("stated").asString().isBlank()) {
+            return figure.path("stated").asString();
+        }
         double p = figure.path("value").asDouble() * 100;
         BigDecimal exact = new BigDecimal(p);
         String text;

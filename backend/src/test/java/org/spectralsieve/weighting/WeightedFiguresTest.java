@@ -47,7 +47,8 @@ class WeightedFiguresTest {
     @ParameterizedTest(name = "{0} × {1}")
     @MethodSource("everyEmitterAndResponse")
     void flatThirtyPercentFilterGivesThirtyPercentAndFactorOneOverPointThree(String emitter, String response) {
-        Curve flat = curve(180, 1100, nm -> 0.3);
+        // over the whole tool range: the flat response now weights every emitter wherever it has power
+        Curve flat = curve(100, 1100, nm -> 0.3);
         Emitter e = EmitterCatalogue.named(emitter).orElseThrow();
         Response r = Response.named(response).orElseThrow();
         Figure t = WeightedFigures.effectiveTransmittance(flat, e, r);
@@ -134,7 +135,150 @@ class WeightedFiguresTest {
         Figure t = WeightedFigures.effectiveTransmittance(curve(190, 1100, nm -> 0.3), Emitter.flat(),
                 Response.actinicUv());
         assertThat(t.value().getAsDouble()).isCloseTo(0.3, within(1e-12));
-        assertThat(t.note()).contains("190.0-400.0 nm only, leaving out");
+        assertThat(t.note()).contains("190.0-400.0 nm").contains("leaving out");
+        assertThat(t.outsideShare()).isBetween(0.002, 0.005);
+    }
+
+    /**
+     * The normaliser covers exactly the numerator's interval, 190-400 nm, with its own trapezoid ends: the
+     * share left out is ∫S over 180-190 nm / ∫S over 180-400 nm, here integrated independently on a 0.01 nm
+     * grid (S log-linear between the rows of reference sheet §4). Counting 190 nm as a full interior point
+     * puts half a grid interval outside the curve into the normaliser and the share comes out 2-3 % low.
+     */
+    @Test
+    void actinicNormaliserIntegratesOverTheSameIntervalAsTheNumerator() {
+        Response s = Response.actinicUv();
+        double outside = fineIntegral(s, 180, 190);
+        double all = fineIntegral(s, 180, 400);
+        Figure t = WeightedFigures.effectiveTransmittance(curve(190, 1100, nm -> 0.3), Emitter.flat(), s);
+        assertThat(t.outsideShare()).isCloseTo(outside / all, within(2e-3 * outside / all));
+        // a ramp in T distinguishes the two intervals in the value too: the figure is ∫S·T / ∫S over 190-400 nm
+        Curve ramp = curve(190, 1100, nm -> Math.min(1, (nm - 180) / 300));
+        double expected = fineIntegral(s, 190, 400, nm -> Math.min(1, (nm - 180) / 300)) / fineIntegral(s, 190, 400);
+        assertThat(WeightedFigures.effectiveTransmittance(ramp, Emitter.flat(), s).value().getAsDouble())
+                .isCloseTo(expected, within(1e-4 * expected));
+    }
+
+    private static double fineIntegral(Response r, double from, double to) {
+        return fineIntegral(r, from, to, nm -> 1);
+    }
+
+    private static double fineIntegral(Response r, double from, double to, DoubleUnaryOperator t) {
+        int n = (int) Math.round((to - from) / 0.01);
+        double h = (to - from) / n;
+        double sum = 0;
+        for (int i = 0; i <= n; i++) {
+            double nm = from + i * h;
+            sum += r.weightAt(nm) * t.applyAsDouble(nm) * (i == 0 || i == n ? 0.5 : 1);
+        }
+        return sum * h;
+    }
+
+    /**
+     * Unweighted means flat over the whole emitter: led-405 (Gaussian, 12 nm FWHM, cut at 369-441 nm) behind
+     * a long-pass curve, T = 0 up to 400 nm and 1 from 401 nm, passes the share of its power above the
+     * edge, which lies between 400 and 401 nm (T is interpolated in absorbance there): between Φ(4 / σ) and
+     * Φ(5 / σ) with σ = 12 / 2.3548 = 5.096 nm, i.e. Φ(0.785) = 0.784 and Φ(0.981) = 0.837 (normal table).
+     * The old flat response ended at 400 nm and gave 0.
+     */
+    @Test
+    void flatResponseWeightsTheWholeEmitterNotOnly250To400Nanometres() {
+        Curve longPass = curve(190, 1100, nm -> nm > 400 ? 1 : 0);
+        Figure t = WeightedFigures.effectiveTransmittance(longPass, EmitterCatalogue.named("led-405").orElseThrow(),
+                Response.flat());
+        assertThat(t.value().getAsDouble()).isBetween(0.784, 0.837);
+        assertThat(t.outsideShare()).isZero();
+        assertThat(t.note()).contains("369.0-441.0 nm");
+    }
+
+    /**
+     * An imported response that ends inside the emitter's band: what lies beyond its table is weight the
+     * figure cannot see. Held at the table's end value the estimate is exact for this flat table: a table
+     * flat at 1 over 300-400 nm under led-405 misses the share of the LED's power above 400 nm, 0.837 (as
+     * above): the figure is not available and says how much. A table that falls to 0 at its ends misses nothing.
+     */
+    @Test
+    void anImportedResponseThatEndsInsideTheEmittersBandIsNotAvailableAndSaysHowMuchItMisses() {
+        Emitter led = EmitterCatalogue.named("led-405").orElseThrow();
+        Curve clear = curve(190, 1100, nm -> 0.5);
+        Response cut = Response.tabulated("initiator", "test table", new double[] {300, 400}, new double[] {1, 1});
+        Figure t = WeightedFigures.effectiveTransmittance(clear, led, cut);
+        assertThat(t.available()).isFalse();
+        assertThat(t.note()).contains("outside the table of response initiator").contains("84 %");
+        Response fading = Response.tabulated("fading", "test table", new double[] {300, 350, 445},
+                new double[] {0, 1, 0});
+        Figure f = WeightedFigures.effectiveTransmittance(clear, led, fading);
+        assertThat(f.value().getAsDouble()).isCloseTo(0.5, within(1e-12));
+        assertThat(f.outsideShare()).isZero();
+        // the standard action spectra are 0 outside their tables by definition: nothing is missed
+        assertThat(WeightedFigures.effectiveTransmittance(clear, led, Response.erythema()).outsideShare()).isZero();
+    }
+
+    /**
+     * Between 1 % and 0 left out, the figure stands and carries the share: a table ending at 440 nm misses
+     * the LED's tail above it, 1 − Φ(35 / σ) ≈ 3e-12 of its power: far under 1 %, and reported as left out.
+     * One ending at 420 nm misses 1 − Φ(15 / σ) = 1 − Φ(2.94) = 0.0016 (normal table): under 1 %, carried.
+     */
+    @Test
+    void aSmallShareOutsideTheResponseIsCarriedByTheFigure() {
+        Emitter led = EmitterCatalogue.named("led-405").orElseThrow();
+        Response to420 = Response.tabulated("to-420", "test table", new double[] {300, 420}, new double[] {1, 1});
+        Figure t = WeightedFigures.effectiveTransmittance(curve(190, 1100, nm -> 0.5), led, to420);
+        assertThat(t.value().getAsDouble()).isCloseTo(0.5, within(1e-12));
+        assertThat(t.outsideShare()).isCloseTo(0.0016, within(0.0003));
+        assertThat(t.note()).contains("leaving out");
+    }
+
+    /**
+     * Reference sheet §6: OD = −log10 T, and no eyewear scale states more than LB10 (OD ≥ 10); the figures
+     * state at most OD 12. A sheet rescaled far beyond its data passes 10⁻³⁰: its protection factor is
+     * stated as at least 10¹², never 10³⁰, and its effective T as at most 10⁻¹², both saying they were capped.
+     */
+    @Test
+    void figuresNeverStateMoreThanOpticalDensityTwelve() {
+        Curve opaque = curve(190, 1100, nm -> 1e-30);
+        WeightedFigures.Report r = WeightedFigures.report(opaque, Emitter.flat(), Response.erythema());
+        assertThat(r.protectionFactor().value().getAsDouble()).isEqualTo(1e12);
+        assertThat(r.protectionFactor().bound()).isEqualTo(Bound.AT_LEAST);
+        assertThat(r.protectionFactor().note()).contains("capped");
+        assertThat(r.effectiveTransmittance().value().getAsDouble()).isEqualTo(1e-12);
+        assertThat(r.effectiveTransmittance().bound()).isEqualTo(Bound.AT_MOST);
+        assertThat(r.opticalDensities().get(0).value().getAsDouble()).isEqualTo(12);
+        assertThat(r.opticalDensities().get(0).bound()).isEqualTo(Bound.AT_LEAST);
+        assertThat(r.bandMeans().get(2).value().getAsDouble()).isEqualTo(1e-12);
+        // a figure within OD 12 is left as computed
+        WeightedFigures.Report clear = WeightedFigures.report(curve(190, 1100, nm -> 1e-6), Emitter.flat(),
+                Response.erythema());
+        assertThat(clear.protectionFactor().value().getAsDouble()).isCloseTo(1e6, within(1e-3));
+        assertThat(clear.protectionFactor().bound()).isEqualTo(Bound.VALUE);
+    }
+
+    /**
+     * A bounded figure carries both ends: points below the detection limit at their limit (U) and at 0 (L).
+     * Half the erythema range under a 1 % limit: U > L > 0, and the stated text names both ends.
+     */
+    @Test
+    void aBoundedFigureCarriesBothEndsAndIsStatedByThem() {
+        int n = 911;
+        double[] nm = new double[n];
+        double[] t = new double[n];
+        boolean[] below = new boolean[n];
+        double[] limits = new double[n];
+        for (int i = 0; i < n; i++) {
+            nm[i] = 190 + i;
+            below[i] = nm[i] < 300;
+            t[i] = below[i] ? 0.01 : 0.5;
+            limits[i] = 0.01;
+        }
+        Curve c = Curve.of(nm, t, below, limits);
+        Figure f = WeightedFigures.report(c, Emitter.flat(), Response.erythema()).effectiveTransmittance();
+        assertThat(f.bound()).isEqualTo(Bound.AT_MOST);
+        double lower = f.otherEnd().orElseThrow();
+        assertThat(lower).isGreaterThan(0).isLessThan(f.value().getAsDouble());
+        assertThat(FigureText.stated(f)).isEqualTo("between " + FigureText.percent(lower) + " and "
+                + FigureText.percent(f.value().getAsDouble()));
+        assertThat(FigureText.ends(0.7961, 0.7964)).isEqualTo("79.6 %");
+        assertThat(FigureText.ends(0, 0.001)).isEqualTo("at most 0.1 %");
     }
 
     @Test
