@@ -1,0 +1,34 @@
+package org.spectralsieve.requirement;
+
+import java.util.List;
+import java.util.Objects;
+
+/**
+ * Which stock thicknesses to buy when thickness is a design variable. {@code inside}: the material's
+ * stock sizes inside the feasible interval, each proven to meet, best worst margin first. When none is,
+ * {@code closestMiss} is the stock size in the asked range that comes closest (largest worst margin),
+ * and {@code missMm} how far it lies from the feasible interval (NaN when there is no interval); both
+ * null/NaN when the material states no stock sizes in the asked range.
+ */
+public record StockAdvice(List<StockFit> inside, StockFit closestMiss, double missMm) {
+
+    /** One stock size judged: its verdict and worst clause margin in decades (NaN when no clause could be read). */
+    public record StockFit(double thicknessMm, Verdict verdict, double worstMarginDecades) {
+        public StockFit {
+            Objects.requireNonNull(verdict, "verdict");
+        }
+    }
+
+    public static final StockAdvice NONE = new StockAdvice(List.of(), null, Double.NaN);
+
+    public StockAdvice {
+        inside = List.copyOf(inside);
+        if (!inside.isEmpty() && closestMiss != null) {
+            throw new IllegalArgumentException("a closest miss is given only when no stock size is inside");
+        }
+    }
+
+    public boolean any() {
+        return !inside.isEmpty() || closestMiss != null;
+    }
+}
