@@ -146,4 +146,22 @@ public record MadeThicknesses(Basis basis, List<Double> stockMm, double loMm, do
     public String stockList() {
         return stockMm.stream().map(Wording::plain).collect(Collectors.joining(", ")) + " mm";
     }
+
+    /**
+     * A short line for tables: "25–125 µm, stock 25, 50, 75, 125 µm", "stock 3 mm only", "1–12 mm assumed
+     * (2× the measured)". Films (everything under 1 mm) in µm, sheets in mm.
+     */
+    public String summary() {
+        boolean um = hiMm < 1;
+        java.util.function.DoubleFunction<String> n = mm -> Wording.plain(um ? mm * 1000 : mm);
+        String unit = um ? " µm" : " mm";
+        String stock = stockMm.stream().map(n::apply).collect(Collectors.joining(", "));
+        return switch (basis) {
+            case STATED_RANGE -> n.apply(loMm) + "–" + n.apply(hiMm) + unit + (stockMm.isEmpty() ? "" : ", stock " + stock + unit);
+            case STOCK_ONLY -> "stock " + stock + unit + " only";
+            case ASSUMED -> n.apply(loMm) + "–" + n.apply(hiMm) + unit + " assumed (" + Wording.plain(ASSUMED_FACTOR)
+                    + "× the measured)";
+            case UNLIMITED -> "not limited";
+        };
+    }
 }

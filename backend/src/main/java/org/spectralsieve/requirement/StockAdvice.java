@@ -31,4 +31,29 @@ public record StockAdvice(List<StockFit> inside, StockFit closestMiss, double mi
     public boolean any() {
         return !inside.isEmpty() || closestMiss != null;
     }
+
+    /**
+     * "stock sizes that meet, best margin first: 4 mm (margin 0.52 decades), 3 mm (0.31)" or "no stock size
+     * meets; 2 mm comes closest: worst margin −0.12 decades, 0.35 mm outside the feasible interval"; empty
+     * when there is no stock size to speak of.
+     */
+    public String describe() {
+        if (!inside.isEmpty()) {
+            StringBuilder out = new StringBuilder("stock sizes that meet, best margin first: ");
+            for (int i = 0; i < inside.size(); i++) {
+                StockFit f = inside.get(i);
+                out.append(i == 0 ? "" : ", ").append(Wording.mm(f.thicknessMm())).append(" (")
+                        .append(i == 0 ? "margin " : "").append(Wording.plain(f.worstMarginDecades()))
+                        .append(i == 0 ? " decades)" : ")");
+            }
+            return out.toString();
+        }
+        if (closestMiss == null) {
+            return "";
+        }
+        String how = Double.isNaN(closestMiss.worstMarginDecades()) ? "its clauses cannot be read there"
+                : "worst margin " + Wording.plain(closestMiss.worstMarginDecades()) + " decades";
+        String where = Double.isNaN(missMm) ? "" : ", " + Wording.mm(missMm) + " outside the feasible interval";
+        return "no stock size meets; " + Wording.mm(closestMiss.thicknessMm()) + " comes closest: " + how + where;
+    }
 }
