@@ -106,7 +106,10 @@ public record MadeThicknesses(Basis basis, List<Double> stockMm, double loMm, do
         return NominalThickness.within(d, loMm, hiMm);
     }
 
-    /** The part of [min, max] where parts exist (ends widened by the tolerance), null when none. */
+    /**
+     * The part of [min, max] where parts exist, null when none; a range just beyond an end (within
+     * {@link NominalThickness}) gives that end alone.
+     */
     public ThicknessInterval within(double minMm, double maxMm) {
         if (basis == Basis.UNLIMITED) {
             return new ThicknessInterval(minMm, maxMm);
@@ -115,9 +118,19 @@ public record MadeThicknesses(Basis basis, List<Double> stockMm, double loMm, do
             List<Double> inside = stockWithin(minMm, maxMm);
             return inside.isEmpty() ? null : new ThicknessInterval(minMm, maxMm);
         }
-        double lo = Math.max(minMm, loMm - NominalThickness.toleranceMm(loMm));
-        double hi = Math.min(maxMm, hiMm + NominalThickness.toleranceMm(hiMm));
-        return lo <= hi ? new ThicknessInterval(lo, hi) : null;
+        double lo = Math.max(minMm, loMm);
+        double hi = Math.min(maxMm, hiMm);
+        if (lo <= hi) {
+            return new ThicknessInterval(lo, hi);
+        }
+        // an asked range just beyond an end, within the nominal tolerance, is that end
+        if (maxMm < loMm && NominalThickness.same(maxMm, loMm)) {
+            return new ThicknessInterval(loMm, loMm);
+        }
+        if (minMm > hiMm && NominalThickness.same(minMm, hiMm)) {
+            return new ThicknessInterval(hiMm, hiMm);
+        }
+        return null;
     }
 
     /** The stock sizes inside [min, max] (ends with the tolerance), thinnest first. */

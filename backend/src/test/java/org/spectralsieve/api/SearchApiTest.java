@@ -228,7 +228,12 @@ class SearchApiTest {
 
         assertThat(erythemal.path("caution").asString()).contains("qualified safety professional");
         assertThat(erythemal.path("results").get(0).path("verdict").asString()).isEqualTo("meets");
-        assertThat(erythemal.path("results").get(0).path("thicknessRangeMm").size()).isEqualTo(2);
+        // a coated part judged as measured may head the list; the rescaled sheets among the rows give their interval
+        boolean anyInterval = false;
+        for (JsonNode row : erythemal.path("results")) {
+            anyInterval |= row.path("verdict").asString().equals("meets") && row.path("thicknessRangeMm").size() == 2;
+        }
+        assertThat(anyInterval).isTrue();
         assertThat(plain.has("caution")).isFalse();
         assertThat(plain.path("results").get(0).path("verdict").asString()).isEqualTo("meets");
     }
