@@ -9,29 +9,35 @@ import org.spectralsieve.spectrum.Curve;
 import org.spectralsieve.spectrum.CurveException;
 
 /**
- * Judges one candidate sample against a requirement, handling what the requirement says about thickness:
+ * Judges one candidate sample against a requirement, handling what the requirement says about thickness
+ * (rules in docs/thickness.md):
  * <ul>
  *   <li>AS_MEASURED: the measured curve.</li>
- *   <li>FIXED d: a bulk sample rescaled to d ({@link ThicknessRescaler}); a non-bulk layer (coating,
- *       laminate) only when measured at d (within {@link #SAME_THICKNESS_MM}) — otherwise every clause is
- *       UNVERIFIED with the reason, never rescaled and never called a miss: the layer might meet at d, the
- *       data just do not say.</li>
- *   <li>RANGE: a bulk sample goes through {@link ThicknessSolver} and is judged at the recommended
- *       thickness; the feasible interval is kept only if that judgement meets (a guard for non-monotone
- *       curves, where the cutoff edge test and the cutoff walk could disagree), and, for requirements
- *       solved on the whole path (weighted clauses, a fixed layer), only if both its ends meet too. A
- *       layer is judged as measured when its thickness lies in the range, else UNVERIFIED.</li>
+ *   <li>FIXED d: a sample measured at d ({@link NominalThickness}: 4.005 mm is "4 mm") is judged as
+ *       measured; a non-bulk part (coating, laminate) measured elsewhere is UNVERIFIED ("coated/laminated
+ *       part, measured only at …; not rescalable"), never rescaled and never called a miss; a bulk sample
+ *       is rescaled to d ({@link ThicknessRescaler}) only when the material is made at d
+ *       ({@link MadeThicknesses}), else UNVERIFIED ("made only 0.025–0.125 mm thick, not 6 mm").</li>
+ *   <li>RANGE: a bulk sample goes through {@link ThicknessSolver} over the asked range cut to the made
+ *       thicknesses and to the sample's span (the thicknesses it is the nearest measurement for, see
+ *       {@link MaterialJudge}), and is judged at the recommended thickness, or at the best stock size when
+ *       only stock sizes exist; stock sizes inside are judged for {@link StockAdvice}. The feasible
+ *       interval is kept only if that judgement meets (a guard for non-monotone curves, where the cutoff
+ *       edge test and the cutoff walk could disagree), and, for requirements solved on the whole path
+ *       (weighted clauses, a fixed layer), only if both its ends meet too. A non-bulk part is judged as
+ *       measured when its thickness lies in the range, else UNVERIFIED.</li>
  * </ul>
  * With a fixed layer ({@link StackLayer}) every clause is judged on the stack of the candidate (at the
  * thickness above) and the layer ({@link CandidatePath}); where their measured ranges do not overlap,
- * every clause is UNVERIFIED with the reason.
+ * every clause is UNVERIFIED with the reason. Rows that cannot be judged at the asked thickness use
+ * {@link ClauseResult#unjudgeable}, so the ranking can group them after the useful rows.
  *
  * <p>A sample without a recorded thickness is judged as measured in AS_MEASURED and UNVERIFIED otherwise.
  * The clause verdicts always come from {@link ClauseEvaluator} on the curve actually judged.
  */
 public final class SampleEvaluator {
 
-    /** Two thicknesses closer than this (mm) are the same thickness; rescaling by 1 changes nothing real. */
+    /** Two thicknesses closer than this (mm) are numerically the same (a fixed layer's own rescaling); parts are matched by {@link NominalThickness}. */
     public static final double SAME_THICKNESS_MM = 1e-9;
 
     private SampleEvaluator() {
