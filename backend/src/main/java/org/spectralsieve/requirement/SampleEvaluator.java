@@ -181,7 +181,13 @@ public final class SampleEvaluator {
      * The stock sizes proven to meet, best margin first; when none, the one that comes closest and how far
      * it lies from the feasible interval.
      */
-    static StockAdvice advise(List<StockAdvice.StockFit> fits, ThicknessInterval feasible) {
+    static StockAdvice advise(List<StockAdvice.StockFit> judged, ThicknessInterval feasible) {
+        // a stock size on the boundary of two samples' spans is judged by both: keep its better judgement
+        java.util.Map<Double, StockAdvice.StockFit> best = new java.util.TreeMap<>();
+        for (StockAdvice.StockFit f : judged) {
+            best.merge(f.thicknessMm(), f, (a, b) -> STOCK_ORDER.compare(a, b) <= 0 ? a : b);
+        }
+        List<StockAdvice.StockFit> fits = List.copyOf(best.values());
         List<StockAdvice.StockFit> inside = fits.stream().filter(f -> f.verdict() == Verdict.MEETS)
                 .sorted(STOCK_ORDER).toList();
         if (!inside.isEmpty() || fits.isEmpty()) {
