@@ -52,7 +52,12 @@ import org.spectralsieve.store.StoredMaterial;
  * and only over bands inside the layer's range, because a layer can only lower T (the stack's T is at most
  * each part's, T₁T₂/(1 − R₁R₂) ≤ T₁ since T₂ + R₂ ≤ 1), so a candidate too dark alone is too dark in the
  * stack, while one too bright alone may be dark enough behind the layer. Thickness keeps the proof where
- * T can only fall: a pass judged at or above the measured thickness, a block at or below it.
+ * T can only fall: a pass judged at or above the measured thickness, a block at or below it, any clause on
+ * a sample measured at the asked thickness; and a material is held back only where the asked thickness can
+ * be made for it (elsewhere its row is unverified, which ranks above a miss).
+ *
+ * <p>Each material's samples are judged together ({@link MaterialJudge}): the nearest measurement speaks
+ * for each thickness, and rescaling stays inside the thicknesses the material is made in ({@link #made}).
  */
 public class SearchService {
 
