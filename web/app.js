@@ -25,6 +25,7 @@ const dom = {
   description: el('detail-description'),
   tags: el('detail-tags'),
   index: el('detail-index'),
+  made: el('detail-made'),
   sampleRows: el('sample-table').tBodies[0],
   axisMode: el('axis-mode'),
   rescaleForm: el('rescale-form'),
@@ -245,6 +246,7 @@ function renderDetailHead(material) {
     return li;
   }));
   dom.index.textContent = fmt.refractiveIndex(material.refractiveIndex);
+  dom.made.textContent = fmt.madeThicknesses(material.madeThicknesses);
 }
 
 /**

@@ -269,3 +269,19 @@ export function boundMeaning(bound) {
   if (bound === 'at-least') return 'lower bound: some points lie below the detection limit, the true value is at least this';
   return '';
 }
+
+/**
+ * The thicknesses a material exists in, as the server states them: "25–125 µm; stock 25, 50, 125 µm" for
+ * a stated range, "stock 3 mm only", or the assumed rule in the server's words.
+ */
+export function madeThicknesses(made) {
+  if (!made) return '—';
+  const unit = made.unit === 'um' ? 'µm' : 'mm';
+  const stock = (made.stock || []).map((v) => number(v)).join(', ');
+  if (made.basis === 'stated') {
+    const range = `${number(made.range[0])}–${number(made.range[1])} ${unit}`;
+    return stock ? `${range}; stock ${stock} ${unit}` : range;
+  }
+  if (made.basis === 'stock only') return `stock ${stock} ${unit} only`;
+  return made.rule || '—';
+}

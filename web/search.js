@@ -291,7 +291,7 @@ export function initSearch(ui) {
       cell(String(result.rank), 'num'),
       material,
       verdictCell(result.verdict),
-      cell(thicknessText(result)),
+      thicknessCell(result),
       cell(fmt.signedDecades(result.worstMarginDecades), 'num margin'),
       cell(result.bindingClause || '—', result.bindingClause ? 'binding' : 'muted'),
       toggleCell,
@@ -401,6 +401,20 @@ function thicknessText(result) {
   const range = result.thicknessRangeMm;
   if (!Array.isArray(range) || range.length !== 2) return t;
   return `${t} (feasible ${fmt.number(range[0])}–${fmt.number(range[1])} mm)`;
+}
+
+/** The thickness judged, the feasible interval and, below them, which stock sizes to buy (server's words). */
+function thicknessCell(result) {
+  const td = cell(thicknessText(result));
+  const stock = result.stockThicknesses;
+  if (stock && stock.explanation) {
+    const note = document.createElement('div');
+    note.className = 'stock-advice muted';
+    note.dataset.stock = stock.meeting.length ? 'meeting' : 'closest-miss';
+    note.textContent = stock.explanation;
+    td.append(note);
+  }
+  return td;
 }
 
 function verdictCell(verdict) {

@@ -39,11 +39,12 @@ final class ImportForms {
     /**
      * Where to store and what the sample is: either {@code materialId}, or {@code materialName} with
      * {@code materialClass}, {@code scaling} (bulk|fixed) and optionally {@code indexN} and
-     * {@code description} for a new material.
+     * {@code description}, {@code stockThicknesses} ("2 3 6", "25 50 125 um") and {@code madeRange}
+     * ("1 to 12", "25-125 um") for a new material.
      */
     record StoreForm(String materialId, String materialName, String materialClass, String scaling, String indexN,
                      String description, String thicknessMm, String geometry, String provenance, String instrument,
-                     String measuredOn, String lot, String notes) {
+                     String measuredOn, String lot, String notes, String stockThicknesses, String madeRange) {
 
         ImportTarget target() {
             boolean existing = materialId != null && !materialId.isBlank();
@@ -70,7 +71,8 @@ final class ImportForms {
                 }
             }
             return new ImportTarget.NewMaterial(materialName, OptionText.materialClass("materialClass", materialClass),
-                    OptionText.scaling("scaling", scaling), index, description);
+                    OptionText.scaling("scaling", scaling), index, description,
+                    OptionText.thicknesses("stockThicknesses", stockThicknesses, "madeRange", madeRange));
         }
 
         SampleFields fields() {

@@ -6,6 +6,9 @@ import java.util.Map;
 import java.util.OptionalDouble;
 import org.spectralsieve.library.Material;
 import org.spectralsieve.library.RefractiveIndexJson;
+import org.spectralsieve.library.StatedThicknessesJson;
+import org.spectralsieve.requirement.MadeThicknesses;
+import org.spectralsieve.search.SearchService;
 import org.spectralsieve.library.SampleInfo;
 import org.spectralsieve.spectrum.Curve;
 import org.spectralsieve.spectrum.Cutoffs;
@@ -27,11 +30,30 @@ final class MaterialResponses {
     }
 
     record MaterialSummary(long id, String slug, String name, String materialClass, String scaling, List<String> tags,
-                           List<SampleSummary> samples) {
+                           Map<String, Object> madeThicknesses, List<SampleSummary> samples) {
         static MaterialSummary of(Material m) {
             return new MaterialSummary(m.id(), m.slug(), m.name(), m.materialClass().label(), m.scaling().label(),
-                    m.tags(), m.samples().stream().map(SampleSummary::of).toList());
+                    m.tags(), made(m), m.samples().stream().map(SampleSummary::of).toList());
         }
+    }
+
+    /**
+     * The thicknesses the material exists in: as stated ({@code unit}, {@code stock}, {@code range}, films in
+     * µm) and as judged ({@code basis}: stated, stock only or assumed; {@code judgedMm}: the span rescaling
+     * stays in; {@code rule}: the sentence a row outside it gives).
+     */
+    static Map<String, Object> made(Material m) {
+        Map<String, Object> json = new LinkedHashMap<>(StatedThicknessesJson.toJson(m.thicknesses()));
+        MadeThicknesses made = SearchService.made(m);
+        json.put("basis", switch (made.basis()) {
+            case STATED_RANGE -> "stated";
+            case STOCK_ONLY -> "stock only";
+            case ASSUMED -> "assumed";
+            case UNLIMITED -> "unknown";
+        });
+        json.put("judgedMm", made.basis() == MadeThicknesses.Basis.UNLIMITED ? null : List.of(made.loMm(), made.hiMm()));
+        json.put("rule", made.basis() == MadeThicknesses.Basis.UNLIMITED ? null : made.limitText());
+        return json;
     }
 
     record SampleDetail(long id, double thicknessMm, String geometry, String provenance, String instrument,
@@ -58,10 +80,11 @@ final class MaterialResponses {
     }
 
     record MaterialDetail(long id, String slug, String name, String materialClass, String description, String scaling,
-                          List<String> tags, Map<String, Object> refractiveIndex, List<SampleDetail> samples) {
+                          List<String> tags, Map<String, Object> refractiveIndex, Map<String, Object> madeThicknesses,
+                          List<SampleDetail> samples) {
         static MaterialDetail of(Material m, List<SampleDetail> samples) {
             return new MaterialDetail(m.id(), m.slug(), m.name(), m.materialClass().label(), m.description(),
-                    m.scaling().label(), m.tags(), RefractiveIndexJson.toJson(m.refractiveIndex()), samples);
+                    m.scaling().label(), m.tags(), RefractiveIndexJson.toJson(m.refractiveIndex()), made(m), samples);
         }
     }
 

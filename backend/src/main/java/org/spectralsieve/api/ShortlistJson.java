@@ -9,6 +9,7 @@ import org.spectralsieve.requirement.ClauseResult;
 import org.spectralsieve.requirement.RankedRow;
 import org.spectralsieve.requirement.Requirement;
 import org.spectralsieve.requirement.SampleEvaluation;
+import org.spectralsieve.requirement.StockAdvice;
 import org.spectralsieve.requirement.StackLayer;
 import org.spectralsieve.requirement.WeightedClause;
 import org.spectralsieve.search.Shortlist;
@@ -69,6 +70,7 @@ public final class ShortlistJson {
         json.put("verdict", e.verdict().name().toLowerCase(Locale.ROOT));
         json.put("thicknessMm", finiteOrNull(e.thicknessMm()));
         json.put("thicknessRangeMm", e.feasibleMm() == null ? null : List.of(e.feasibleMm().loMm(), e.feasibleMm().hiMm()));
+        json.put("stockThicknesses", stock(e.stockAdvice()));
         json.put("worstMarginDecades", finiteOrNull(e.worstMarginDecades()));
         json.put("bindingClause", e.bindingClauseIndex() < 0 ? null : e.clauses().get(e.bindingClauseIndex()).clause().text());
         List<Map<String, Object>> clauses = new ArrayList<>();
@@ -84,6 +86,31 @@ public final class ShortlistJson {
             clauses.add(clause);
         }
         json.put("clauses", clauses);
+        return json;
+    }
+
+    /**
+     * The stock sizes to buy when thickness was a design variable: those proven to meet, best margin first,
+     * or the one closest to meeting and how far it lies from the feasible interval; null when the material
+     * states no stock size in the asked range.
+     */
+    static Map<String, Object> stock(StockAdvice advice) {
+        if (!advice.any()) {
+            return null;
+        }
+        Map<String, Object> json = new LinkedHashMap<>();
+        json.put("meeting", advice.inside().stream().map(ShortlistJson::fit).toList());
+        json.put("closestMiss", advice.closestMiss() == null ? null : fit(advice.closestMiss()));
+        json.put("closestMissOutsideMm", finiteOrNull(advice.missMm()));
+        json.put("explanation", advice.describe());
+        return json;
+    }
+
+    private static Map<String, Object> fit(StockAdvice.StockFit f) {
+        Map<String, Object> json = new LinkedHashMap<>();
+        json.put("thicknessMm", f.thicknessMm());
+        json.put("verdict", f.verdict().name().toLowerCase(Locale.ROOT));
+        json.put("worstMarginDecades", finiteOrNull(f.worstMarginDecades()));
         return json;
     }
 

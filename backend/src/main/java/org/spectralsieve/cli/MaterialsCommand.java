@@ -5,6 +5,7 @@ import java.util.concurrent.Callable;
 import java.util.stream.Collectors;
 import org.spectralsieve.library.JooqLibraryRepository;
 import org.spectralsieve.library.Material;
+import org.spectralsieve.search.SearchService;
 import org.springframework.context.ConfigurableApplicationContext;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
@@ -13,8 +14,12 @@ import picocli.CommandLine.Option;
 import picocli.CommandLine.ParameterException;
 import picocli.CommandLine.Spec;
 
-/** {@code materials}: the library's materials with the thicknesses they were measured at. */
-@Command(name = "materials", description = "List the library's materials: id, name, class, measured thicknesses.")
+/**
+ * {@code materials}: the library's materials with the thicknesses they were measured at and those they are
+ * made in (stated, or the assumed rule; see docs/thickness.md).
+ */
+@Command(name = "materials", description = "List the library's materials: id, name, class, measured thicknesses,"
+        + " thicknesses made in.")
 final class MaterialsCommand implements Callable<Integer> {
 
     /** Same bound as the HTTP list: a longer text is a paste accident, not a search. */
@@ -41,10 +46,11 @@ final class MaterialsCommand implements Callable<Integer> {
         try (ConfigurableApplicationContext context = LibraryContext.start(database.url)) {
             materials = context.getBean(JooqLibraryRepository.class).findMaterials(materialClass, text);
         }
-        TextTable table = new TextTable(List.of(">id", "name", "class", "thicknesses mm"));
+        TextTable table = new TextTable(List.of(">id", "name", "class", "measured mm", "made in"));
         for (Material m : materials) {
             String thicknesses = m.samples().stream().map(s -> Numbers.mm(s.thicknessMm())).collect(Collectors.joining(", "));
-            table.add(List.of(String.valueOf(m.id()), m.name(), m.materialClass().label(), thicknesses));
+            table.add(List.of(String.valueOf(m.id()), m.name(), m.materialClass().label(), thicknesses,
+                    SearchService.made(m).summary()));
         }
         table.print(spec.commandLine().getOut());
         return SieveCli.OK;

@@ -149,6 +149,10 @@ final class SearchCommand implements Callable<Integer> {
 
     private static List<String> explanations(SampleEvaluation e) {
         List<String> lines = new ArrayList<>();
+        String stock = e.stockAdvice().describe();
+        if (!stock.isEmpty()) {
+            lines.add("stock: " + stock);
+        }
         for (ClauseResult c : e.clauses()) {
             lines.add(c.verdict().name().toLowerCase(Locale.ROOT) + ": " + c.explanation());
         }

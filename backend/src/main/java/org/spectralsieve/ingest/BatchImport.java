@@ -36,7 +36,8 @@ import org.spectralsieve.optics.ConstantIndex;
  *
  * {@code file} and {@code material} are required; {@code material} is a slug or name already in the
  * library, or the name of a new material, which then needs {@code class} and {@code scaling} (and may
- * give {@code index_n}, else n = 1.5 with a warning). Later rows find a material created by an earlier
+ * give {@code index_n}, else n = 1.5 with a warning, and the thicknesses it exists in: {@code stock}, stock
+ * sizes such as "2;3;6" or "25 50 125 um", and {@code made_range}, such as "1 to 12" or "25-125 um"). Later rows find a material created by an earlier
  * one by its name. Optional columns also: {@code lot}, {@code format}, {@code y_kind},
  * {@code detection_limit}. An unknown column refuses the manifest (a misspelt column would otherwise be
  * silently ignored).
@@ -55,7 +56,8 @@ public final class BatchImport {
 
     static final List<String> REQUIRED = List.of("file", "material");
     static final List<String> COLUMNS = List.of("file", "material", "thickness", "geometry", "provenance", "instrument",
-            "date", "notes", "lot", "class", "scaling", "index_n", "format", "y_kind", "detection_limit");
+            "date", "notes", "lot", "class", "scaling", "index_n", "format", "y_kind", "detection_limit", "stock",
+            "made_range");
 
     private final ImportService imports;
     private final JooqLibraryRepository library;
@@ -224,6 +226,7 @@ public final class BatchImport {
             }
         }
         return new ImportTarget.NewMaterial(material, OptionText.materialClass("class", row.get("class")),
-                OptionText.scaling("scaling", row.get("scaling")), index, "");
+                OptionText.scaling("scaling", row.get("scaling")), index, "",
+                OptionText.thicknesses("stock", row.get("stock"), "made_range", row.get("made_range")));
     }
 }

@@ -110,7 +110,7 @@ public final class ImportService {
         }
         try {
             return new NewMaterial(JooqLibraryRepository.slugFor(n.name()), n.name(), n.materialClass(), n.description(),
-                    List.of(), n.scaling(), index);
+                    List.of(), n.scaling(), index, n.thicknesses());
         } catch (IllegalArgumentException e) {
             throw new ImportRequestException("materialName", e.getMessage());
         }

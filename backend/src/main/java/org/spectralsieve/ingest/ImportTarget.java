@@ -3,6 +3,7 @@ package org.spectralsieve.ingest;
 import java.util.Objects;
 import org.spectralsieve.library.MaterialClass;
 import org.spectralsieve.library.Scaling;
+import org.spectralsieve.library.StatedThicknesses;
 import org.spectralsieve.optics.RefractiveIndex;
 
 /** Where an imported curve goes: under a material already in the library, or under a new one. */
@@ -19,8 +20,15 @@ public sealed interface ImportTarget {
     int MAX_DESCRIPTION = 4000;
 
     record NewMaterial(String name, MaterialClass materialClass, Scaling scaling, RefractiveIndex refractiveIndex,
-                       String description) implements ImportTarget {
+                       String description, StatedThicknesses thicknesses) implements ImportTarget {
+
+        public NewMaterial(String name, MaterialClass materialClass, Scaling scaling, RefractiveIndex refractiveIndex,
+                           String description) {
+            this(name, materialClass, scaling, refractiveIndex, description, StatedThicknesses.NONE);
+        }
+
         public NewMaterial {
+            Objects.requireNonNull(thicknesses, "thicknesses");
             if (name == null || name.isBlank()) {
                 throw new ImportRequestException("materialName", "a new material needs a name");
             }

@@ -1,6 +1,8 @@
 package org.spectralsieve.ingest;
 
 import java.time.LocalDate;
+import java.util.ArrayList;
+import java.util.List;
 import java.time.format.DateTimeParseException;
 import java.util.Locale;
 import java.util.Optional;
@@ -12,6 +14,7 @@ import org.spectralsieve.library.Geometry;
 import org.spectralsieve.library.MaterialClass;
 import org.spectralsieve.library.Provenance;
 import org.spectralsieve.library.Scaling;
+import org.spectralsieve.library.StatedThicknesses;
 
 /**
  * Import options and sample fields as users write them (HTTP form fields, manifest cells), parsed in one
@@ -25,6 +28,67 @@ public final class OptionText {
 
     static boolean blank(String s) {
         return s == null || s.isBlank();
+    }
+
+    /**
+     * The thicknesses a new material exists in, as written: stock sizes "2 3 6" or "25, 50, 125 um" (commas,
+     * semicolons or spaces between them) and a made range "1 to 12", "1-12 mm" or "25–125 µm"; mm unless
+     * the text ends in um or µm. Both blank: nothing stated (the assumed rule applies, see docs/thickness.md).
+     */
+    public static StatedThicknesses thicknesses(String stockField, String stock, String rangeField, String range) {
+        List<Double> stockMm = new ArrayList<>();
+        if (!blank(stock)) {
+            Measured m = unit(stock);
+            for (String part : m.text().split("[,;\\s]+")) {
+                if (!part.isBlank()) {
+                    stockMm.add(positive(stockField, part) / m.perMm());
+                }
+            }
+        }
+        double lo = Double.NaN;
+        double hi = Double.NaN;
+        if (!blank(range)) {
+            Measured m = unit(range);
+            String[] ends = m.text().strip().split("\\s*(?:\\bto\\b|–|(?<=\\d)\\s*-\\s*(?=\\d))\\s*");
+            if (ends.length != 2) {
+                throw new ImportRequestException(rangeField, "'" + range + "' is not a range like '1 to 12' or '25-125 um'");
+            }
+            lo = positive(rangeField, ends[0]) / m.perMm();
+            hi = positive(rangeField, ends[1]) / m.perMm();
+        }
+        try {
+            return new StatedThicknesses(stockMm, lo, hi);
+        } catch (IllegalArgumentException e) {
+            throw new ImportRequestException(blank(range) ? stockField : rangeField, e.getMessage());
+        }
+    }
+
+    /** The text without its unit, and how many of that unit make a millimetre. */
+    private record Measured(String text, double perMm) {
+    }
+
+    private static Measured unit(String s) {
+        String t = s.strip();
+        String lower = t.toLowerCase(Locale.ROOT);
+        for (String um : List.of("um", "µm", "μm")) {
+            if (lower.endsWith(um)) {
+                return new Measured(t.substring(0, t.length() - um.length()), 1000);
+            }
+        }
+        return new Measured(lower.endsWith("mm") ? t.substring(0, t.length() - 2) : t, 1);
+    }
+
+    private static double positive(String field, String number) {
+        double v;
+        try {
+            v = Double.parseDouble(number.strip());
+        } catch (NumberFormatException e) {
+            throw new ImportRequestException(field, "'" + number.strip() + "' is not a thickness");
+        }
+        if (!(v > 0) || !Double.isFinite(v)) {
+            throw new ImportRequestException(field, "a thickness must be a number > 0, got " + number.strip());
+        }
+        return v;
     }
 
     public static Optional<ImportFormat> format(String field, String s) {

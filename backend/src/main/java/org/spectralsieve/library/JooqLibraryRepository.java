@@ -183,7 +183,7 @@ public class JooqLibraryRepository {
             slug = m.slug() + "-" + n;
         }
         return new NewMaterial(slug, m.name(), m.materialClass(), m.description(), m.tags(), m.scaling(),
-                m.refractiveIndex());
+                m.refractiveIndex(), m.thicknesses());
     }
 
     /** A slug made from a material's name, for materials created by an import. */
@@ -200,6 +200,7 @@ public class JooqLibraryRepository {
         row.setTags(String.join(",", material.tags()));
         row.setScaling(material.scaling().label());
         writeIndex(row, material.refractiveIndex());
+        writeThicknesses(row, material.thicknesses());
         row.store();
         return row.getId();
     }
@@ -267,7 +268,7 @@ public class JooqLibraryRepository {
     private static Material toMaterial(MaterialRecord m, List<SampleInfo> samples) {
         List<String> tags = m.getTags().isBlank() ? List.of() : List.of(m.getTags().split(","));
         return new Material(m.getId(), m.getSlug(), m.getName(), MaterialClass.of(m.getMaterialClass()),
-                m.getDescription(), tags, Scaling.parse(m.getScaling()), readIndex(m), samples);
+                m.getDescription(), tags, Scaling.parse(m.getScaling()), readIndex(m), samples, readThicknesses(m));
     }
 
     static SampleInfo toSample(SampleRecord s) {
@@ -322,5 +323,20 @@ public class JooqLibraryRepository {
                     NumberLists.parse(m.getIndexTableN(), "material.index_table_n"));
             default -> throw new IllegalStateException("material " + m.getId() + " has unknown index kind " + m.getIndexKind());
         };
+    }
+
+    private static void writeThicknesses(MaterialRecord row, StatedThicknesses t) {
+        row.setStockThicknessesMm(t.stockMm().isEmpty() ? "" : NumberLists.format(t.stockMm()));
+        row.setMadeMinMm(t.rangeStated() ? t.minMm() : null);
+        row.setMadeMaxMm(t.rangeStated() ? t.maxMm() : null);
+    }
+
+    private static StatedThicknesses readThicknesses(MaterialRecord m) {
+        String stock = m.getStockThicknessesMm();
+        List<Double> stockMm = stock == null || stock.isBlank() ? List.of()
+                : NumberLists.parse(stock, "material.stock_thicknesses_mm");
+        Double min = m.getMadeMinMm();
+        Double max = m.getMadeMaxMm();
+        return new StatedThicknesses(stockMm, min == null ? Double.NaN : min, max == null ? Double.NaN : max);
     }
 }

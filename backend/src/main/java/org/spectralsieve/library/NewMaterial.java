@@ -7,7 +7,13 @@ import org.spectralsieve.optics.RefractiveIndex;
 
 /** A material to be stored; the database gives it its id. */
 public record NewMaterial(String slug, String name, MaterialClass materialClass, String description,
-                          List<String> tags, Scaling scaling, RefractiveIndex refractiveIndex) {
+                          List<String> tags, Scaling scaling, RefractiveIndex refractiveIndex,
+                          StatedThicknesses thicknesses) {
+
+    public NewMaterial(String slug, String name, MaterialClass materialClass, String description,
+                       List<String> tags, Scaling scaling, RefractiveIndex refractiveIndex) {
+        this(slug, name, materialClass, description, tags, scaling, refractiveIndex, StatedThicknesses.NONE);
+    }
 
     private static final Pattern SLUG = Pattern.compile("[a-z0-9][a-z0-9\\-]{0,118}[a-z0-9]");
 
@@ -21,6 +27,7 @@ public record NewMaterial(String slug, String name, MaterialClass materialClass,
         Objects.requireNonNull(materialClass, "materialClass");
         Objects.requireNonNull(scaling, "scaling");
         Objects.requireNonNull(refractiveIndex, "refractiveIndex");
+        Objects.requireNonNull(thicknesses, "thicknesses");
         description = Objects.requireNonNullElse(description, "");
         tags = List.copyOf(tags);
         for (String tag : tags) {

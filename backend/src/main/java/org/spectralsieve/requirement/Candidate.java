@@ -9,14 +9,22 @@ import org.spectralsieve.spectrum.Curve;
  * not recorded. {@code bulk}: the sample is a homogeneous absorber whose curve may be rescaled to another
  * thickness (Beer–Lambert); a coating or laminate is not bulk and is only ever judged as measured.
  * {@code index} is needed for bulk samples (surface reflection is stripped before rescaling), may be null
- * otherwise.
+ * otherwise. {@code made}: the thicknesses the material exists in ({@link MadeThicknesses}); every judgement
+ * at another thickness stays inside them.
  */
 public record Candidate(long sampleId, long materialId, String materialName, Curve measured, double thicknessMm,
-                        boolean bulk, RefractiveIndex index) {
+                        boolean bulk, RefractiveIndex index, MadeThicknesses made) {
+
+    /** A curve judged without a material record: no limit on thickness ({@link MadeThicknesses#UNLIMITED}). */
+    public Candidate(long sampleId, long materialId, String materialName, Curve measured, double thicknessMm,
+                     boolean bulk, RefractiveIndex index) {
+        this(sampleId, materialId, materialName, measured, thicknessMm, bulk, index, MadeThicknesses.UNLIMITED);
+    }
 
     public Candidate {
         Objects.requireNonNull(materialName, "materialName");
         Objects.requireNonNull(measured, "measured");
+        Objects.requireNonNull(made, "made");
         if (!Double.isNaN(thicknessMm) && !(thicknessMm > 0 && Double.isFinite(thicknessMm))) {
             throw new IllegalArgumentException("thicknessMm of sample " + sampleId
                     + " must be a finite thickness > 0 mm or NaN (not recorded), was " + thicknessMm);

@@ -11,11 +11,15 @@ public final class Ranking {
     private Ranking() {
     }
 
-    /** Evaluates every candidate with {@link SampleEvaluator} and ranks them. */
+    /** Evaluates every material's candidates with {@link MaterialJudge} and ranks them. */
     public static List<RankedRow> evaluateAndRank(List<Candidate> candidates, Requirement requirement, int limit) {
-        List<MaterialEvaluation> evaluations = new ArrayList<>(candidates.size());
+        Map<Long, List<Candidate>> byMaterial = new LinkedHashMap<>();
         for (Candidate candidate : candidates) {
-            evaluations.add(MaterialEvaluation.of(candidate, SampleEvaluator.evaluate(candidate, requirement)));
+            byMaterial.computeIfAbsent(candidate.materialId(), id -> new ArrayList<>()).add(candidate);
+        }
+        List<MaterialEvaluation> evaluations = new ArrayList<>(candidates.size());
+        for (List<Candidate> samples : byMaterial.values()) {
+            evaluations.addAll(MaterialJudge.evaluate(samples, requirement, java.util.Optional.empty()));
         }
         return rank(evaluations, limit);
     }

@@ -12,12 +12,21 @@ import java.util.Objects;
  * thickness is not a variable or no thickness works. {@code verdict}: MEETS only if every clause meets,
  * MISSES if any misses, otherwise UNVERIFIED. {@code worstMarginDecades}: the smallest clause margin
  * ignoring NaN (NaN when all are NaN); {@code bindingClauseIndex}: the index of that clause, −1 when none.
+ * {@code stockAdvice}: the stock sizes to buy when thickness was a design variable ({@link StockAdvice#NONE}
+ * otherwise).
  */
 public record SampleEvaluation(long sampleId, double thicknessMm, ThicknessInterval feasibleMm, Verdict verdict,
-                               double worstMarginDecades, int bindingClauseIndex, List<ClauseResult> clauses) {
+                               double worstMarginDecades, int bindingClauseIndex, List<ClauseResult> clauses,
+                               StockAdvice stockAdvice) {
+
+    public SampleEvaluation(long sampleId, double thicknessMm, ThicknessInterval feasibleMm, Verdict verdict,
+                            double worstMarginDecades, int bindingClauseIndex, List<ClauseResult> clauses) {
+        this(sampleId, thicknessMm, feasibleMm, verdict, worstMarginDecades, bindingClauseIndex, clauses, StockAdvice.NONE);
+    }
 
     public SampleEvaluation {
         Objects.requireNonNull(verdict, "verdict");
+        Objects.requireNonNull(stockAdvice, "stockAdvice");
         clauses = List.copyOf(clauses);
         if (bindingClauseIndex < -1 || bindingClauseIndex >= clauses.size()) {
             throw new IllegalArgumentException("bindingClauseIndex " + bindingClauseIndex + " is not a clause index (0.."
@@ -44,5 +53,11 @@ public record SampleEvaluation(long sampleId, double thicknessMm, ThicknessInter
             }
         }
         return new SampleEvaluation(sampleId, thicknessMm, feasibleMm, verdict, worst, binding, clauses);
+    }
+
+    /** The same judgement with the material's whole feasible interval and stock advice. */
+    public SampleEvaluation withThicknessAdvice(ThicknessInterval feasible, StockAdvice advice) {
+        return new SampleEvaluation(sampleId, thicknessMm, feasible, verdict, worstMarginDecades, bindingClauseIndex,
+                clauses, advice);
     }
 }

@@ -9,29 +9,35 @@ import org.spectralsieve.spectrum.Curve;
 import org.spectralsieve.spectrum.CurveException;
 
 /**
- * Judges one candidate sample against a requirement, handling what the requirement says about thickness:
+ * Judges one candidate sample against a requirement, handling what the requirement says about thickness
+ * (rules in docs/thickness.md):
  * <ul>
  *   <li>AS_MEASURED: the measured curve.</li>
- *   <li>FIXED d: a bulk sample rescaled to d ({@link ThicknessRescaler}); a non-bulk layer (coating,
- *       laminate) only when measured at d (within {@link #SAME_THICKNESS_MM}) — otherwise every clause is
- *       UNVERIFIED with the reason, never rescaled and never called a miss: the layer might meet at d, the
- *       data just do not say.</li>
- *   <li>RANGE: a bulk sample goes through {@link ThicknessSolver} and is judged at the recommended
- *       thickness; the feasible interval is kept only if that judgement meets (a guard for non-monotone
- *       curves, where the cutoff edge test and the cutoff walk could disagree), and, for requirements
- *       solved on the whole path (weighted clauses, a fixed layer), only if both its ends meet too. A
- *       layer is judged as measured when its thickness lies in the range, else UNVERIFIED.</li>
+ *   <li>FIXED d: a sample measured at d ({@link NominalThickness}: 4.005 mm is "4 mm") is judged as
+ *       measured; a non-bulk part (coating, laminate) measured elsewhere is UNVERIFIED ("coated/laminated
+ *       part, measured only at …; not rescalable"), never rescaled and never called a miss; a bulk sample
+ *       is rescaled to d ({@link ThicknessRescaler}) only when the material is made at d
+ *       ({@link MadeThicknesses}), else UNVERIFIED ("made only 0.025–0.125 mm thick, not 6 mm").</li>
+ *   <li>RANGE: a bulk sample goes through {@link ThicknessSolver} over the asked range cut to the made
+ *       thicknesses and to the sample's span (the thicknesses it is the nearest measurement for, see
+ *       {@link MaterialJudge}), and is judged at the recommended thickness, or at the best stock size when
+ *       only stock sizes exist; stock sizes inside are judged for {@link StockAdvice}. The feasible
+ *       interval is kept only if that judgement meets (a guard for non-monotone curves, where the cutoff
+ *       edge test and the cutoff walk could disagree), and, for requirements solved on the whole path
+ *       (weighted clauses, a fixed layer), only if both its ends meet too. A non-bulk part is judged as
+ *       measured when its thickness lies in the range, else UNVERIFIED.</li>
  * </ul>
  * With a fixed layer ({@link StackLayer}) every clause is judged on the stack of the candidate (at the
  * thickness above) and the layer ({@link CandidatePath}); where their measured ranges do not overlap,
- * every clause is UNVERIFIED with the reason.
+ * every clause is UNVERIFIED with the reason. Rows that cannot be judged at the asked thickness use
+ * {@link ClauseResult#unjudgeable}, so the ranking can group them after the useful rows.
  *
  * <p>A sample without a recorded thickness is judged as measured in AS_MEASURED and UNVERIFIED otherwise.
  * The clause verdicts always come from {@link ClauseEvaluator} on the curve actually judged.
  */
 public final class SampleEvaluator {
 
-    /** Two thicknesses closer than this (mm) are the same thickness; rescaling by 1 changes nothing real. */
+    /** Two thicknesses closer than this (mm) are numerically the same (a fixed layer's own rescaling); parts are matched by {@link NominalThickness}. */
     public static final double SAME_THICKNESS_MM = 1e-9;
 
     private SampleEvaluator() {
@@ -47,7 +53,20 @@ public final class SampleEvaluator {
      *              requirement names one
      */
     public static SampleEvaluation evaluate(Candidate candidate, Requirement requirement, Optional<StackLayer> layer) {
+        return evaluate(candidate, requirement, layer, WHOLE_AXIS);
+    }
+
+    /** Every thickness: the span of a sample that is its material's only one. */
+    public static final ThicknessInterval WHOLE_AXIS = new ThicknessInterval(Double.MIN_VALUE, Double.MAX_VALUE);
+
+    /**
+     * @param span the thicknesses this sample speaks for among its material's samples ({@link MaterialJudge});
+     *             thickness solving stays inside it
+     */
+    public static SampleEvaluation evaluate(Candidate candidate, Requirement requirement, Optional<StackLayer> layer,
+                                            ThicknessInterval span) {
         Objects.requireNonNull(candidate, "candidate");
+        Objects.requireNonNull(span, "span");
         Objects.requireNonNull(requirement, "requirement");
         Objects.requireNonNull(layer, "layer");
         if (requirement.layer().isPresent() != layer.isPresent()) {
@@ -57,7 +76,7 @@ public final class SampleEvaluator {
         }
         CandidatePath path = new CandidatePath(candidate, layer);
         try {
-            return evaluate(path, requirement);
+            return evaluate(path, requirement, span);
         } catch (CurveException e) {
             if (!path.stacked()) {
                 throw e;
@@ -68,7 +87,7 @@ public final class SampleEvaluator {
         }
     }
 
-    private static SampleEvaluation evaluate(CandidatePath path, Requirement requirement) {
+    private static SampleEvaluation evaluate(CandidatePath path, Requirement requirement, ThicknessInterval span) {
         Candidate candidate = path.candidate();
         ThicknessSpec spec = requirement.thickness();
         List<Clause> clauses = requirement.clauses();
@@ -83,34 +102,113 @@ public final class SampleEvaluator {
         if (spec.kind() == ThicknessSpec.Kind.FIXED) {
             return fixed(path, clauses, spec.minMm());
         }
-        return range(path, requirement, spec.minMm(), spec.maxMm());
+        return range(path, requirement, spec.minMm(), spec.maxMm(), span);
     }
 
+    /**
+     * One asked thickness: a sample measured at it ({@link NominalThickness}) is judged as measured; a
+     * coated or laminated part measured elsewhere, or a thickness the material is not made in, is
+     * unverified with the reason; otherwise the bulk sample is rescaled to the asked thickness.
+     */
     private static SampleEvaluation fixed(CandidatePath path, List<Clause> clauses, double asked) {
         Candidate candidate = path.candidate();
         double d0 = candidate.thicknessMm();
-        if (Math.abs(asked - d0) <= SAME_THICKNESS_MM) {
+        if (NominalThickness.same(d0, asked)) {
             return judged(candidate.sampleId(), d0, null, clauses, path.asMeasured());
         }
         if (!candidate.bulk()) {
-            return unverified(candidate.sampleId(), d0, clauses, "fixed layer measured at " + Wording.mm(d0)
-                    + " cannot be rescaled to " + Wording.mm(asked));
+            return unverified(candidate.sampleId(), d0, clauses, notRescalable(d0) + " to " + Wording.mm(asked));
+        }
+        if (!candidate.made().makes(asked)) {
+            return unverified(candidate.sampleId(), asked, clauses,
+                    candidate.made().limitText() + ", not " + Wording.mm(asked));
         }
         return judged(candidate.sampleId(), asked, null, clauses, path.at(asked));
     }
 
-    private static SampleEvaluation range(CandidatePath path, Requirement requirement, double min, double max) {
+    /** "coated/laminated part, measured only at 2.013 mm; not rescalable": the reason a non-bulk part gives. */
+    static String notRescalable(double measuredMm) {
+        return "coated/laminated part, measured only at " + Wording.mm(measuredMm) + "; not rescalable";
+    }
+
+    private static SampleEvaluation range(CandidatePath path, Requirement requirement, double min, double max,
+                                          ThicknessInterval span) {
         Candidate candidate = path.candidate();
         List<Clause> clauses = requirement.clauses();
         double d0 = candidate.thicknessMm();
         if (!candidate.bulk()) {
-            if (d0 >= min - SAME_THICKNESS_MM && d0 <= max + SAME_THICKNESS_MM) {
+            if (NominalThickness.within(d0, min, max)) {
                 return judged(candidate.sampleId(), d0, null, clauses, path.asMeasured());
             }
-            return unverified(candidate.sampleId(), d0, clauses, "fixed layer measured at " + Wording.mm(d0)
-                    + " lies outside " + Wording.mmSpan(min, max)
-                    + " and cannot be rescaled");
+            return unverified(candidate.sampleId(), d0, clauses, notRescalable(d0) + " to " + Wording.mmSpan(min, max));
         }
+        MadeThicknesses made = candidate.made();
+        ThicknessInterval inMade = made.within(min, max);
+        if (inMade == null) {
+            return unverified(candidate.sampleId(), d0, clauses,
+                    made.limitText() + ", none of " + Wording.mmSpan(min, max));
+        }
+        double lo = Math.max(inMade.loMm(), span.loMm());
+        double hi = Math.min(inMade.hiMm(), span.hiMm());
+        if (lo > hi || !made.continuous() && made.stockWithin(lo, hi).isEmpty()) {
+            return unverified(candidate.sampleId(), d0, clauses,
+                    "the material's other samples lie nearer to " + Wording.mmSpan(min, max));
+        }
+        SampleEvaluation solved = solved(path, requirement, lo, hi);
+        List<StockAdvice.StockFit> fits = new ArrayList<>();
+        for (double stock : made.stockWithin(lo, hi)) {
+            SampleEvaluation e = judged(candidate.sampleId(), stock, null, clauses, path.at(stock));
+            fits.add(new StockAdvice.StockFit(stock, e.verdict(), e.worstMarginDecades()));
+        }
+        StockAdvice advice = advise(fits, solved.feasibleMm());
+        if (made.continuous()) {
+            return solved.withThicknessAdvice(solved.feasibleMm(), advice);
+        }
+        // only the stock sizes exist: the row is the best of them, the interval stays as information
+        double best = fits.stream().min(STOCK_ORDER).orElseThrow().thicknessMm();
+        return judged(candidate.sampleId(), best, null, clauses, path.at(best))
+                .withThicknessAdvice(solved.feasibleMm(), advice);
+    }
+
+    /** Stock sizes in ranking order: meets first, then larger worst margin, NaN last, then thinner. */
+    static final java.util.Comparator<StockAdvice.StockFit> STOCK_ORDER = (a, b) -> {
+        int byRank = RankingOrder.compare(a.verdict(), a.worstMarginDecades(), "", 0,
+                b.verdict(), b.worstMarginDecades(), "", 0);
+        return byRank != 0 ? byRank : Double.compare(a.thicknessMm(), b.thicknessMm());
+    };
+
+    /**
+     * The stock sizes proven to meet, best margin first; when none, the one that comes closest and how far
+     * it lies from the feasible interval.
+     */
+    static StockAdvice advise(List<StockAdvice.StockFit> judged, ThicknessInterval feasible) {
+        // a stock size on the boundary of two samples' spans is judged by both: keep its better judgement
+        java.util.Map<Double, StockAdvice.StockFit> best = new java.util.TreeMap<>();
+        for (StockAdvice.StockFit f : judged) {
+            best.merge(f.thicknessMm(), f, (a, b) -> STOCK_ORDER.compare(a, b) <= 0 ? a : b);
+        }
+        List<StockAdvice.StockFit> fits = List.copyOf(best.values());
+        List<StockAdvice.StockFit> inside = fits.stream().filter(f -> f.verdict() == Verdict.MEETS)
+                .sorted(STOCK_ORDER).toList();
+        if (!inside.isEmpty() || fits.isEmpty()) {
+            return new StockAdvice(inside, null, Double.NaN);
+        }
+        StockAdvice.StockFit closest = fits.stream().min(STOCK_ORDER).orElseThrow();
+        return new StockAdvice(List.of(), closest, distance(closest.thicknessMm(), feasible));
+    }
+
+    /** How far d lies outside the interval (0 inside), NaN without an interval. */
+    static double distance(double d, ThicknessInterval interval) {
+        if (interval == null) {
+            return Double.NaN;
+        }
+        return Math.max(0, Math.max(interval.loMm() - d, d - interval.hiMm()));
+    }
+
+    private static SampleEvaluation solved(CandidatePath path, Requirement requirement, double min, double max) {
+        Candidate candidate = path.candidate();
+        List<Clause> clauses = requirement.clauses();
+        double d0 = candidate.thicknessMm();
         boolean onPath = !requirement.plain();
         ThicknessSolver.Solution solution = onPath
                 ? ThicknessSolver.solve(clauses, path, min, max)

@@ -22,6 +22,11 @@ final class Wording {
         return significant(mm, 4) + " mm";
     }
 
+    /** A thickness or factor as written, up to four significant digits, without unit. */
+    static String plain(double x) {
+        return significant(x, 4);
+    }
+
     static String mmSpan(double fromMm, double toMm) {
         return significant(fromMm, 4) + "–" + mm(toMm);
     }

@@ -14,6 +14,7 @@ import org.spectralsieve.library.SampleInfo;
 import org.spectralsieve.library.Scaling;
 import org.spectralsieve.requirement.EditDistance;
 import org.spectralsieve.requirement.FixedLayer;
+import org.spectralsieve.requirement.NominalThickness;
 
 /**
  * Which library material and sample a fixed layer's words ("float glass", "clear-float-glass") name. One
@@ -31,15 +32,11 @@ import org.spectralsieve.requirement.FixedLayer;
  * Words are lower-case runs of letters and digits ("Low-E coated float glass" → low, e, coated, float,
  * glass). The sample: among the material's regular-geometry samples (all samples if it has none), a bulk
  * material's closest in thickness by ratio (it is rescaled from there), ties to the lower sample id; a
- * fixed material's sample measured within {@link #FIXED_MATCH_MM} or {@link #FIXED_MATCH_RATIO} of the asked
- * thickness (a coated or laminated part is named by its nominal thickness: 4.005 mm is "4 mm"), else the
- * layer is refused, naming the thicknesses measured.
+ * fixed material's sample measured at the asked thickness by the one nominal-thickness rule shared with
+ * candidates ({@link NominalThickness}: a coated or laminated part is named by its nominal thickness, 4.005 mm
+ * is "4 mm"), else the layer is refused, naming the thicknesses measured.
  */
 final class LayerMatcher {
-
-    /** How far a fixed part's measured thickness may lie from the asked one and still be "that" part. */
-    static final double FIXED_MATCH_MM = 0.05;
-    static final double FIXED_MATCH_RATIO = 0.02;
 
     private static final Pattern NOT_WORD = Pattern.compile("[^\\p{L}\\p{N}]+");
     private static final int SUGGESTED = 5;
@@ -174,8 +171,7 @@ final class LayerMatcher {
         if (material.scaling() == Scaling.BULK) {
             return pool.stream().min(closest).orElseThrow();
         }
-        double allowed = Math.max(FIXED_MATCH_MM, FIXED_MATCH_RATIO * asked);
-        return pool.stream().filter(s -> Math.abs(s.thicknessMm() - asked) <= allowed).min(closest)
+        return pool.stream().filter(s -> NominalThickness.same(s.thicknessMm(), asked)).min(closest)
                 .orElseThrow(() -> new LayerResolutionException(LayerResolutionException.Reason.THICKNESS,
                         layer.material(), material.name() + " (" + material.slug() + ") is a fixed part, used only as"
                         + " measured, and was measured at " + thicknesses(pool) + " mm, not "

@@ -14,10 +14,14 @@ import org.spectralsieve.library.JooqLibraryRepository;
 import org.spectralsieve.library.Material;
 import org.spectralsieve.library.SampleInfo;
 import org.spectralsieve.library.Scaling;
+import org.spectralsieve.library.StatedThicknesses;
 import org.spectralsieve.requirement.Aggregate;
 import org.spectralsieve.requirement.Candidate;
 import org.spectralsieve.requirement.Direction;
 import org.spectralsieve.requirement.FixedLayer;
+import org.spectralsieve.requirement.MadeThicknesses;
+import org.spectralsieve.requirement.MaterialJudge;
+import org.spectralsieve.requirement.NominalThickness;
 import org.spectralsieve.requirement.MaterialEvaluation;
 import org.spectralsieve.requirement.RankedRow;
 import org.spectralsieve.requirement.Ranking;
@@ -48,7 +52,12 @@ import org.spectralsieve.store.StoredMaterial;
  * and only over bands inside the layer's range, because a layer can only lower T (the stack's T is at most
  * each part's, T₁T₂/(1 − R₁R₂) ≤ T₁ since T₂ + R₂ ≤ 1), so a candidate too dark alone is too dark in the
  * stack, while one too bright alone may be dark enough behind the layer. Thickness keeps the proof where
- * T can only fall: a pass judged at or above the measured thickness, a block at or below it.
+ * T can only fall: a pass judged at or above the measured thickness, a block at or below it, any clause on
+ * a sample measured at the asked thickness; and a material is held back only where the asked thickness can
+ * be made for it (elsewhere its row is unverified, which ranks above a miss).
+ *
+ * <p>Each material's samples are judged together ({@link MaterialJudge}): the nearest measurement speaks
+ * for each thickness, and rescaling stays inside the thicknesses the material is made in ({@link #made}).
  */
 public class SearchService {
 
@@ -88,18 +97,28 @@ public class SearchService {
         return new Shortlist(requirement, rows, picked.evaluatedSamples(), exact.size(), tookMs, Optional.empty());
     }
 
-    /** Every admitted sample of the material, judged exactly on its stored curve (not the store's quantized copy). */
+    /**
+     * The material's admitted samples, judged exactly on their stored curves (not the store's quantized
+     * copy), each where it is the nearest measurement ({@link MaterialJudge}).
+     */
     private List<MaterialEvaluation> judge(Material material, Requirement requirement, Optional<StackLayer> layer) {
-        List<MaterialEvaluation> out = new ArrayList<>();
+        MadeThicknesses made = made(material);
+        List<Candidate> candidates = new ArrayList<>();
         for (SampleInfo sample : material.samples()) {
             if (admits(requirement, material, sample)) {
                 Curve curve = library.findCurve(sample.id()).orElseThrow();
-                Candidate candidate = new Candidate(sample.id(), material.id(), material.name(), curve,
-                        sample.thicknessMm(), material.scaling() == Scaling.BULK, material.refractiveIndex());
-                out.add(MaterialEvaluation.of(candidate, SampleEvaluator.evaluate(candidate, requirement, layer)));
+                candidates.add(new Candidate(sample.id(), material.id(), material.name(), curve,
+                        sample.thicknessMm(), material.scaling() == Scaling.BULK, material.refractiveIndex(), made));
             }
         }
-        return out;
+        return candidates.isEmpty() ? List.of() : MaterialJudge.evaluate(candidates, requirement, layer);
+    }
+
+    /** The thicknesses a library material exists in: as its record states, else the assumed rule on its samples. */
+    public static MadeThicknesses made(Material material) {
+        StatedThicknesses t = material.thicknesses();
+        List<Double> measured = material.samples().stream().map(SampleInfo::thicknessMm).toList();
+        return MadeThicknesses.of(t.stockMm(), t.minMm(), t.maxMm(), measured);
     }
 
     /**
@@ -130,7 +149,7 @@ public class SearchService {
             if (count == 0) {
                 continue;
             }
-            if (allMiss) {
+            if (allMiss && madeFor(requirement.thickness(), material)) {
                 held.put(material, bound);
             } else {
                 exact.addAll(judge(material, requirement, layer));
@@ -211,18 +230,32 @@ public class SearchService {
      */
     private static boolean keepsProof(Direction direction, ThicknessSpec spec, Material material, SampleInfo sample) {
         double d0 = sample.thicknessMm();
-        double same = SampleEvaluator.SAME_THICKNESS_MM;
         if (spec.kind() == ThicknessSpec.Kind.AS_MEASURED) {
             return true;
         }
         if (!(d0 > 0)) {
             return false;
         }
-        if (material.scaling() != Scaling.BULK) {
-            return spec.kind() == ThicknessSpec.Kind.FIXED ? Math.abs(spec.minMm() - d0) <= same
-                    : d0 >= spec.minMm() - same && d0 <= spec.maxMm() + same;
+        if (spec.kind() == ThicknessSpec.Kind.FIXED && NominalThickness.same(d0, spec.minMm())) {
+            return true; // judged as measured
         }
-        return direction == Direction.PASS ? spec.minMm() >= d0 - same : spec.maxMm() <= d0 + same;
+        if (material.scaling() != Scaling.BULK) {
+            return spec.kind() == ThicknessSpec.Kind.RANGE && NominalThickness.within(d0, spec.minMm(), spec.maxMm());
+        }
+        return direction == Direction.PASS ? spec.minMm() >= d0 : spec.maxMm() <= d0;
+    }
+
+    /**
+     * Whether the material can be judged at the asked thickness at all: where it is not made, its rows are
+     * unverified (which ranks above a miss), so a proven miss on its curves says nothing about its row.
+     */
+    private static boolean madeFor(ThicknessSpec spec, Material material) {
+        MadeThicknesses made = made(material);
+        return switch (spec.kind()) {
+            case AS_MEASURED -> true;
+            case FIXED -> material.scaling() != Scaling.BULK || made.makes(spec.minMm());
+            case RANGE -> material.scaling() != Scaling.BULK || made.within(spec.minMm(), spec.maxMm()) != null;
+        };
     }
 
     /**
@@ -289,7 +322,7 @@ public class SearchService {
         for (Material m : materials) {
             byId.put(m.id(), m);
             m.samples().forEach(sample -> sampleById.put(sample.id(), sample));
-            StoredMaterial stored = new StoredMaterial(m.id(), m.name(), m.materialClass().label());
+            StoredMaterial stored = new StoredMaterial(m.id(), m.name(), m.materialClass().label(), made(m));
             for (SampleInfo sample : m.samples()) {
                 builder.add(sample.id(), stored, sample.thicknessMm(), m.scaling() == Scaling.BULK,
                         sample.geometry() == org.spectralsieve.library.Geometry.TOTAL, m.refractiveIndex(),

@@ -23,6 +23,7 @@ import org.spectralsieve.library.NewMaterial;
 import org.spectralsieve.library.NewSample;
 import org.spectralsieve.library.Provenance;
 import org.spectralsieve.library.RefractiveIndexJson;
+import org.spectralsieve.library.StatedThicknessesJson;
 import org.spectralsieve.library.Scaling;
 import org.spectralsieve.library.SourceFile;
 import org.springframework.core.io.Resource;
@@ -78,7 +79,8 @@ public class DemoLibraryLoader {
         try {
             material = new NewMaterial(slug, m.path("name").asString(""), MaterialClass.of(m.path("class").asString("")),
                     m.path("description").asString(""), strings(m.path("tags")), Scaling.parse(m.path("scaling").asString("")),
-                    RefractiveIndexJson.fromJson(m.get("refractiveIndex")));
+                    RefractiveIndexJson.fromJson(m.get("refractiveIndex")),
+                    StatedThicknessesJson.fromJson(m.get("madeThicknesses")));
             for (JsonNode s : m.path("samples")) {
                 samples.add(sample(s));
             }

@@ -83,6 +83,20 @@ public final class DemoLibraryWriter {
         return DelimitedTextWriter.write(meta, curve.wavelengthsNm(), curve.transmittances(), curve.upperBounds());
     }
 
+    /** {"unit": "um", "stock": [25, 50], "range": [25, 125]}: the shape StatedThicknessesJson reads. */
+    private static ObjectNode madeNode(MadeIn made) {
+        ObjectNode node = JSON.createObjectNode();
+        node.put("unit", made.unit());
+        ArrayNode stock = node.putArray("stock");
+        made.stock().forEach(stock::add);
+        if (made.range() != null) {
+            ArrayNode range = node.putArray("range");
+            range.add(made.range()[0]);
+            range.add(made.range()[1]);
+        }
+        return node;
+    }
+
     private static ObjectNode materialNode(MaterialSpec m) {
         ObjectNode node = JSON.createObjectNode();
         node.put("slug", m.slug());
@@ -93,6 +107,7 @@ public final class DemoLibraryWriter {
         m.tags().forEach(tags::add);
         node.put("scaling", m.scaling().label());
         node.set("refractiveIndex", indexNode(m.index()));
+        MadeIn.of(m.slug()).ifPresent(made -> node.set("madeThicknesses", madeNode(made)));
         ArrayNode samples = node.putArray("samples");
         for (SampleSpec s : m.samples()) {
             ObjectNode sample = samples.addObject();

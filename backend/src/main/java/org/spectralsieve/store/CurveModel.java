@@ -36,6 +36,7 @@ final class CurveModel {
     private final boolean pointsOnly;
     private double d0;
     private boolean bulk;
+    private int curve;
 
     /** One model per thread; {@link #load} points it at a curve without allocating, for the pass over every curve. */
     CurveModel(StoreSearch.Plan plan, SpectralStore store, boolean pointsOnly) {
@@ -57,9 +58,10 @@ final class CurveModel {
         if (pointsOnly) {
             throw new IllegalStateException("a points-only model is loaded with loadDecoded");
         }
+        this.curve = curve;
         this.d0 = store.thicknessMm(curve);
         // as measured, even a bulk sample is read as it is: no thickness model between data and verdict
-        this.bulk = store.isBulk(curve) && plan.thickness.kind() != ThicknessSpec.Kind.AS_MEASURED;
+        this.bulk = rescalable(curve);
         points = 0;
         anyUnmeasured = false;
         means.clear();
@@ -118,8 +120,9 @@ final class CurveModel {
      * {@link StoreSearch.Plan#pointProbes}.
      */
     CurveModel loadDecoded(int curve, double[] od0, byte[] state) {
+        this.curve = curve;
         this.d0 = store.thicknessMm(curve);
-        this.bulk = store.isBulk(curve) && plan.thickness.kind() != ThicknessSpec.Kind.AS_MEASURED;
+        this.bulk = rescalable(curve);
         points = 0;
         anyUnmeasured = false;
         double[] loss = plan.pointProbeLoss[store.indexModelOf(curve)];
@@ -133,6 +136,15 @@ final class CurveModel {
             }
         }
         return this;
+    }
+
+    /** Read through the thickness model: bulk, not as measured, and not measured at the one asked thickness. */
+    private boolean rescalable(int curve) {
+        ThicknessSpec spec = plan.thickness;
+        if (!store.isBulk(curve) || spec.kind() == ThicknessSpec.Kind.AS_MEASURED) {
+            return false;
+        }
+        return spec.kind() == ThicknessSpec.Kind.RANGE || plan.rescaledAt(store, curve);
     }
 
     static final byte READ = 0;
@@ -171,29 +183,32 @@ final class CurveModel {
             case FIXED:
                 return bulk ? spec.minMm() : d0;
             default:
-                if (!bulk) {
+                if (!bulk || !plan.rangeJudgeable(store, curve)) {
                     return d0;
                 }
-                return means.isEmpty() ? crossingOfLines(spec.minMm(), spec.maxMm())
-                        : crossingByBisection(spec.minMm(), spec.maxMm());
+                double[] range = plan.rangeOf(curve);
+                return means.isEmpty() ? crossingOfLines(range[0], range[1]) : crossingByBisection(range[0], range[1]);
         }
     }
 
     private boolean forcedUnverified(ThicknessSpec spec) {
-        if (bulk || spec.kind() == ThicknessSpec.Kind.AS_MEASURED) {
-            return false;
-        }
-        // a fixed layer cannot be rescaled: only its own thickness can be judged
-        return d0 < spec.minMm() - SAME_THICKNESS_MM || d0 > spec.maxMm() + SAME_THICKNESS_MM;
+        return switch (spec.kind()) {
+            case AS_MEASURED -> false;
+            // not rescalable, or not made at the asked thickness
+            case FIXED -> !plan.judgeableAt(store, curve, spec.minMm());
+            case RANGE -> !plan.rangeJudgeable(store, curve);
+        };
     }
 
     StoreSearch.Evaluation best() {
         ThicknessSpec spec = plan.thickness;
         double d = bestThickness(spec);
-        judge(d, forcedUnverified(spec));
+        boolean forced = forcedUnverified(spec);
+        judge(d, forced);
         double[] range = null;
-        if (spec.kind() == ThicknessSpec.Kind.RANGE && bulk && verdict == Verdict.MEETS) {
-            range = feasibleRange(spec.minMm(), spec.maxMm());
+        if (spec.kind() == ThicknessSpec.Kind.RANGE && bulk && !forced && verdict == Verdict.MEETS) {
+            double[] within = plan.rangeOf(curve);
+            range = feasibleRange(within[0], within[1]);
         }
         return new StoreSearch.Evaluation(verdict, worst, d, range);
     }

@@ -92,6 +92,30 @@ public final class SpectralStore {
         return thicknessMm[curve];
     }
 
+    /** The curve indices of each material, by material index: the samples the exact judgement weighs together. */
+    int[][] curvesByMaterial() {
+        int[][] cached = byMaterial;
+        if (cached == null) {
+            int[] counts = new int[materials.size()];
+            for (int c = 0; c < size; c++) {
+                counts[materialOfCurve[c]]++;
+            }
+            cached = new int[materials.size()][];
+            for (int m = 0; m < cached.length; m++) {
+                cached[m] = new int[counts[m]];
+            }
+            int[] filled = new int[materials.size()];
+            for (int c = 0; c < size; c++) {
+                int m = materialOfCurve[c];
+                cached[m][filled[m]++] = c;
+            }
+            byMaterial = cached;
+        }
+        return cached;
+    }
+
+    private volatile int[][] byMaterial;
+
     public boolean isBulk(int curve) {
         return bulk[curve];
     }

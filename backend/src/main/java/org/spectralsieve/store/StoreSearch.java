@@ -9,6 +9,11 @@ import java.util.List;
 import java.util.stream.IntStream;
 import org.spectralsieve.optics.Fresnel;
 import org.spectralsieve.requirement.Clause;
+import org.spectralsieve.requirement.MadeThicknesses;
+import org.spectralsieve.requirement.MaterialJudge;
+import org.spectralsieve.requirement.NominalThickness;
+import org.spectralsieve.requirement.SampleEvaluator;
+import org.spectralsieve.requirement.ThicknessInterval;
 import org.spectralsieve.requirement.Requirement;
 import org.spectralsieve.requirement.ThicknessSpec;
 import org.spectralsieve.requirement.Verdict;
@@ -126,13 +131,16 @@ public final class StoreSearch {
             if (!plan.admits(store, curve)) {
                 continue;
             }
+            count++;
+            if (!plan.judged(curve)) {
+                continue;
+            }
             for (int k = 0; k < probes; k++) {
                 b.curveOd[k] = b.od[k][curve - from];
                 b.curveState[k] = b.state[k][curve - from];
             }
             eligible[curve] = true;
             bound[curve] = b.model.loadDecoded(curve, b.curveOd, b.curveState).bestKey();
-            count++;
         }
         return count;
     }
@@ -150,7 +158,7 @@ public final class StoreSearch {
         int[] bits = b.bits;
         Arrays.fill(lowest, 0, len, Double.POSITIVE_INFINITY);
         Arrays.fill(bits, 0, len, 0);
-        boolean rescale = plan.thickness.kind() == ThicknessSpec.Kind.FIXED;
+        boolean fixed = plan.thickness.kind() == ThicknessSpec.Kind.FIXED;
         double target = plan.thickness.minMm();
         for (int k = 0; k < od.length; k++) {
             PointProbe probe = plan.pointProbes.get(k);
@@ -165,7 +173,7 @@ public final class StoreSearch {
                 }
                 double value = values[j];
                 int curve = from + j;
-                if (rescale && store.isBulk(curve)) {
+                if (plan.rescaledAt(store, curve)) {
                     double s = plan.pointProbeLoss[store.indexModelOf(curve)][k];
                     value = s + Math.max(0, value - s) * target / store.thicknessMm(curve);
                 }
@@ -180,13 +188,16 @@ public final class StoreSearch {
             if (!plan.admits(store, curve)) {
                 continue;
             }
-            if (rescale && !store.isBulk(curve) && Math.abs(store.thicknessMm(curve) - target) > 1e-9) {
-                bits[j] |= ProbeVerdict.UNVERIFIED; // a fixed layer cannot be rescaled to the asked thickness
+            count++; // admitted; judged only where it is its material's nearest measurement
+            if (!plan.judged(curve)) {
+                continue;
+            }
+            if (fixed && !plan.judgeableAt(store, curve, target)) {
+                bits[j] |= ProbeVerdict.UNVERIFIED; // not rescalable, or not made at the asked thickness
             }
             double worst = lowest[j] == Double.POSITIVE_INFINITY ? Double.NaN : lowest[j];
             eligible[curve] = true;
             bound[curve] = Keys.of(ProbeVerdict.combine(bits[j]), worst);
-            count++;
         }
         return count;
     }
@@ -359,6 +370,12 @@ public final class StoreSearch {
         /** The probes the first pass reads, in the order the curve model adds them, and their losses per model. */
         final List<PointProbe> pointProbes;
         final double[][] pointProbeLoss;
+        /**
+         * Per curve, the thicknesses it is judged over ({@link MaterialJudge#spans}, cut to the asked range
+         * and the made thicknesses for a range), null when its material's nearer samples speak instead;
+         * null as a whole when every curve is judged (as measured).
+         */
+        ThicknessInterval[] spans;
 
         private Plan(List<CompiledClause> clauses, ThicknessSpec thickness, String materialClass, Boolean total,
                      double[][][] surfaceLoss) {
@@ -421,7 +438,78 @@ public final class StoreSearch {
                 }
             }
             Boolean total = r.geometry().map(g -> g.equals("total")).orElse(null);
-            return new Plan(List.copyOf(clauses), r.thickness(), r.materialClass().orElse(null), total, loss);
+            Plan plan = new Plan(List.copyOf(clauses), r.thickness(), r.materialClass().orElse(null), total, loss);
+            plan.spans = plan.spans(store);
+            return plan;
+        }
+
+        /** The judged span of every curve, material by material among its admitted curves (as {@link MaterialJudge}). */
+        private ThicknessInterval[] spans(SpectralStore store) {
+            if (thickness.kind() == ThicknessSpec.Kind.AS_MEASURED) {
+                return null;
+            }
+            ThicknessInterval[] out = new ThicknessInterval[store.size()];
+            for (int[] curves : store.curvesByMaterial()) {
+                int[] admitted = java.util.Arrays.stream(curves).filter(c -> admits(store, c)).toArray();
+                if (admitted.length == 0) {
+                    continue;
+                }
+                double[] mm = java.util.Arrays.stream(admitted).mapToDouble(store::thicknessMm).toArray();
+                MadeThicknesses made = store.material(admitted[0]).made();
+                ThicknessInterval[] spans = MaterialJudge.spans(mm, store.isBulk(admitted[0]), made, thickness);
+                for (int i = 0; i < admitted.length; i++) {
+                    out[admitted[i]] = spans[i] == null ? null : judgedRange(spans[i], made);
+                }
+            }
+            return out;
+        }
+
+        /** For a range: the part of the span inside the asked range and the made thicknesses (the span itself when empty). */
+        private ThicknessInterval judgedRange(ThicknessInterval span, MadeThicknesses made) {
+            if (thickness.kind() != ThicknessSpec.Kind.RANGE) {
+                return span;
+            }
+            ThicknessInterval inMade = made.within(thickness.minMm(), thickness.maxMm());
+            if (inMade == null) {
+                return span;
+            }
+            double lo = Math.max(inMade.loMm(), span.loMm());
+            double hi = Math.min(inMade.hiMm(), span.hiMm());
+            return lo <= hi ? new ThicknessInterval(lo, hi) : span;
+        }
+
+        boolean judged(int curve) {
+            return spans == null || spans[curve] != null;
+        }
+
+        /** The thickness range a curve is solved over: the asked range cut to its span and the made thicknesses. */
+        double[] rangeOf(int curve) {
+            ThicknessInterval s = spans == null ? null : spans[curve];
+            return s == null || s == SampleEvaluator.WHOLE_AXIS ? new double[] {thickness.minMm(), thickness.maxMm()}
+                    : new double[] {Math.max(thickness.minMm(), s.loMm()), Math.min(thickness.maxMm(), s.hiMm())};
+        }
+
+        /** Whether a curve at one asked thickness d is read rescaled (bulk, not measured at d). */
+        boolean rescaledAt(SpectralStore store, int curve) {
+            return thickness.kind() == ThicknessSpec.Kind.FIXED && store.isBulk(curve)
+                    && !NominalThickness.same(store.thicknessMm(curve), thickness.minMm());
+        }
+
+        /** Whether a curve can be judged at thickness d: measured there, or bulk and made there. */
+        boolean judgeableAt(SpectralStore store, int curve, double d) {
+            double d0 = store.thicknessMm(curve);
+            if (NominalThickness.same(d0, d)) {
+                return true;
+            }
+            return store.isBulk(curve) && store.material(curve).made().makes(d);
+        }
+
+        /** Whether a range can be judged for the curve's material at all (bulk: made inside it). */
+        boolean rangeJudgeable(SpectralStore store, int curve) {
+            if (!store.isBulk(curve)) {
+                return NominalThickness.within(store.thicknessMm(curve), thickness.minMm(), thickness.maxMm());
+            }
+            return store.material(curve).made().within(thickness.minMm(), thickness.maxMm()) != null;
         }
 
         boolean admits(SpectralStore store, int curve) {

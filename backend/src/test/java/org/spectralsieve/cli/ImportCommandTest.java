@@ -69,6 +69,21 @@ class ImportCommandTest {
     }
 
     @Test
+    void aManifestRowStatesTheThicknessesANewFilmIsMadeIn(@TempDir Path dir) throws Exception {
+        write(dir, "manifest.csv", """
+                file,material,thickness,geometry,provenance,class,scaling,stock,made_range
+                film-50um.csv,Illustrative manifest film,0.05,regular,measured,film,bulk,25 50 125 um,25-125 um
+                """);
+        write(dir, "film-50um.csv", CURVE);
+
+        Run imported = cli("import", dir.toString());
+        assertThat(imported.exitCode()).as(imported.out() + imported.err()).isEqualTo(SieveCli.OK);
+
+        Run listed = cli("materials", "--q", "Illustrative manifest film");
+        assertThat(listed.out()).contains("25–125 µm, stock 25, 50, 125 µm");
+    }
+
+    @Test
     void zipWithAPathOutsideItExitsOneAndImportsNothing(@TempDir Path dir) throws Exception {
         Path zip = dir.resolve("slip.zip");
         Files.write(zip, Zips.of("manifest.csv", "file,material,thickness\n../evil.csv,x,1\n", "../evil.csv", CURVE));

@@ -241,7 +241,7 @@ class SieveCliTest {
 
         assertThat(run.exitCode()).as(run.err()).isZero();
         List<String> lines = run.outLines();
-        assertThat(lines.get(0)).startsWith("id").contains("name", "class", "thicknesses mm");
+        assertThat(lines.get(0)).startsWith("id").contains("name", "class", "measured mm", "made in");
         assertThat(lines.size() - 1).isGreaterThanOrEqualTo(40);
     }
 

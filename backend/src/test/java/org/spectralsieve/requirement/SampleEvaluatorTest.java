@@ -59,7 +59,7 @@ class SampleEvaluatorTest {
         assertThat(e.verdict()).isEqualTo(Verdict.UNVERIFIED);
         assertThat(e.worstMarginDecades()).isNaN();
         assertThat(e.bindingClauseIndex()).isEqualTo(-1);
-        assertThat(e.clauses().get(0).explanation()).isEqualTo("fixed layer measured at 0.1 mm cannot be rescaled to 3 mm");
+        assertThat(e.clauses().get(0).explanation()).isEqualTo("coated/laminated part, measured only at 0.1 mm; not rescalable to 3 mm");
     }
 
     @Test
@@ -77,7 +77,7 @@ class SampleEvaluatorTest {
         SampleEvaluation outside = SampleEvaluator.evaluate(layer(0.1), require(ThicknessSpec.range(1, 6), pass));
         assertThat(outside.verdict()).isEqualTo(Verdict.UNVERIFIED);
         assertThat(outside.clauses().get(0).explanation())
-                .isEqualTo("fixed layer measured at 0.1 mm lies outside 1–6 mm and cannot be rescaled");
+                .isEqualTo("coated/laminated part, measured only at 0.1 mm; not rescalable to 1–6 mm");
     }
 
     @Test

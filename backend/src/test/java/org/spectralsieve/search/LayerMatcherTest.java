@@ -97,7 +97,7 @@ class LayerMatcherTest {
 
     @Test
     void aFixedMaterialIsUsedOnlyNearItsMeasuredThickness() {
-        // a coated part is named by its nominal thickness: 4.005 mm is "4 mm" (within 0.05 mm or 2 %)
+        // a coated part is named by its nominal thickness: 4.005 mm is "4 mm" (NominalThickness: within 2 % or 0.002 mm)
         assertThat(LayerMatcher.resolve(layer(4, "uv-coated-float-glass"), LIBRARY).sample().thicknessMm()).isEqualTo(4.005);
         LayerResolutionException e = catchThrowableOfType(LayerResolutionException.class,
                 () -> LayerMatcher.resolve(layer(3, "uv-coated-float-glass"), LIBRARY));

@@ -14,11 +14,11 @@ import org.spectralsieve.library.SampleInfo;
 import org.spectralsieve.library.Scaling;
 import org.spectralsieve.requirement.Candidate;
 import org.spectralsieve.requirement.MaterialEvaluation;
+import org.spectralsieve.requirement.MaterialJudge;
 import org.spectralsieve.requirement.RankedRow;
 import org.spectralsieve.requirement.Ranking;
 import org.spectralsieve.requirement.Requirement;
 import org.spectralsieve.requirement.RequirementParser;
-import org.spectralsieve.requirement.SampleEvaluator;
 import org.spectralsieve.requirement.StackLayer;
 import org.springframework.beans.factory.annotation.Autowired;
 import org.springframework.boot.test.context.SpringBootTest;
@@ -83,14 +83,17 @@ class WeightedSearchPropertyTest {
                                              int limit) {
         List<MaterialEvaluation> all = new ArrayList<>();
         for (Material m : materials) {
+            List<Candidate> admitted = new ArrayList<>();
             for (SampleInfo s : m.samples()) {
-                boolean admitted = requirement.materialClass().map(c -> c.equals(m.materialClass().label())).orElse(true)
-                        && requirement.geometry().map(g -> g.equals(s.geometry().label())).orElse(true);
-                if (admitted) {
-                    Candidate c = new Candidate(s.id(), m.id(), m.name(), library.findCurve(s.id()).orElseThrow(),
-                            s.thicknessMm(), m.scaling() == Scaling.BULK, m.refractiveIndex());
-                    all.add(MaterialEvaluation.of(c, SampleEvaluator.evaluate(c, requirement, layer)));
+                if (requirement.materialClass().map(c -> c.equals(m.materialClass().label())).orElse(true)
+                        && requirement.geometry().map(g -> g.equals(s.geometry().label())).orElse(true)) {
+                    admitted.add(new Candidate(s.id(), m.id(), m.name(), library.findCurve(s.id()).orElseThrow(),
+                            s.thicknessMm(), m.scaling() == Scaling.BULK, m.refractiveIndex(), SearchService.made(m)));
                 }
+            }
+            // each material's samples judged together: the nearest measurement speaks for each thickness
+            if (!admitted.isEmpty()) {
+                all.addAll(MaterialJudge.evaluate(admitted, requirement, layer));
             }
         }
         return Ranking.rank(all, limit);

@@ -13,6 +13,7 @@ import org.spectralsieve.requirement.Band;
 import org.spectralsieve.requirement.Clause;
 import org.spectralsieve.requirement.CutoffClause;
 import org.spectralsieve.requirement.Direction;
+import org.spectralsieve.requirement.MadeThicknesses;
 import org.spectralsieve.requirement.Requirement;
 import org.spectralsieve.requirement.ThicknessSpec;
 import org.spectralsieve.requirement.ThresholdUnit;
@@ -142,6 +143,23 @@ class StoreSearchTest {
         assertThat(hits).extracting(StoreHit::verdict).containsExactly(Verdict.MEETS, Verdict.UNVERIFIED, Verdict.MISSES);
     }
 
+    @Test
+    void theStoreJudgesAtTheAskedThicknessOnlyWhereTheMaterialIsMadeAndOnTheNearestSample() {
+        SpectralStore.Builder b = SpectralStore.builder(GRID, 3);
+        StoredMaterial film = new StoredMaterial(1, "Illustrative amber film", "film",
+                MadeThicknesses.of(List.of(), 0.025, 0.125, List.of()));
+        StoredMaterial sheet = new StoredMaterial(2, "Illustrative sheet", "plastic sheet",
+                MadeThicknesses.of(List.of(), 1, 12, List.of()));
+        b.add(10, film, 0.025, true, false, new ConstantIndex(1.5), flat(0.5));
+        b.add(20, sheet, 2, true, false, new ConstantIndex(1.5), flat(0.5));
+        b.add(21, sheet, 6, true, false, new ConstantIndex(1.5), flat(0.3));
+        List<StoreHit> hits = StoreSearch.search(b.build(), requirement(ThicknessSpec.at(6), block(0.0001, 405)), 10).hits();
+
+        // the film is not rescaled ×240: unverified, not met; the sheet is judged on its own 6 mm sample
+        assertThat(hits).extracting(StoreHit::sampleId).containsExactlyInAnyOrder(10L, 21L);
+        assertThat(hits).filteredOn(h -> h.sampleId() == 10L).extracting(StoreHit::verdict).containsExactly(Verdict.UNVERIFIED);
+    }
+
     // ---- fixtures
 
     static SpectralStore randomStore(int curves, int materials, long seed) {
@@ -150,7 +168,10 @@ class StoreSearchTest {
         for (int i = 0; i < curves; i++) {
             SyntheticCurves.Spec spec = synthetic.next();
             int m = i % materials;
-            b.addEncoded(i + 1, new StoredMaterial(m + 1, "material " + m, m % 2 == 0 ? "film" : "plastic sheet"),
+            // every third material is made only 0.5–4 mm thick, so the bounded search meets the made limits too
+            MadeThicknesses made = m % 3 == 0 ? MadeThicknesses.of(List.of(1.0, 3.0), 0.5, 4, List.of())
+                    : MadeThicknesses.UNLIMITED;
+            b.addEncoded(i + 1, new StoredMaterial(m + 1, "material " + m, m % 2 == 0 ? "film" : "plastic sheet", made),
                     spec.thicknessMm(), m % 5 != 0, false, SyntheticCurves.INDICES[spec.index()], synthetic.codes(spec));
         }
         return b.build();

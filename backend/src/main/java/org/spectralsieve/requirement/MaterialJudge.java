@@ -1,0 +1,172 @@
+package org.spectralsieve.requirement;
+
+import java.util.ArrayList;
+import java.util.Comparator;
+import java.util.List;
+import java.util.Optional;
+import java.util.TreeSet;
+
+/**
+ * Judges one material's samples against a requirement, each sample only where it is the best evidence.
+ *
+ * <p>Which sample speaks for a thickness d: the one measured nearest to d, by thickness ratio (|ln(d/d₀)|),
+ * so a measurement at the asked thickness ({@link NominalThickness}) always wins over rescaling another
+ * sample. Each distinct measured thickness thus owns a span of the thickness axis, bounded by the
+ * geometric means of its neighbours ({@link #spans}); samples measured at the same thickness share it, and
+ * the ranking keeps the best of them, as it does across the samples of any material.
+ * <ul>
+ *   <li>as measured: every sample;</li>
+ *   <li>one asked thickness: the samples whose span holds it;</li>
+ *   <li>a range (bulk): the samples whose span meets the range inside the made thicknesses, each solved
+ *       only over that part; the material's feasible interval is the union of the pieces that touch, and
+ *       its stock advice is gathered over all of them;</li>
+ *   <li>a range (coated or laminated parts, never rescaled): the samples measured inside it, else the
+ *       nearest ones (unverified, with the reason).</li>
+ * </ul>
+ * Samples without a recorded thickness take part only when the material has no other.
+ */
+public final class MaterialJudge {
+
+    /** Pieces of feasible interval closer than this (mm) are one interval: the solver's bisection tolerance, twice. */
+    private static final double TOUCHING_MM = 2 * ThicknessSolver.TOLERANCE_MM;
+
+    private MaterialJudge() {
+    }
+
+    /** The evaluations of the samples that speak for the requirement's thickness; all from one material. */
+    public static List<MaterialEvaluation> evaluate(List<Candidate> samples, Requirement requirement,
+                                                    Optional<StackLayer> layer) {
+        List<MaterialEvaluation> out = new ArrayList<>();
+        for (Judged j : choose(samples, requirement.thickness())) {
+            out.add(MaterialEvaluation.of(j.candidate(), SampleEvaluator.evaluate(j.candidate(), requirement, layer, j.span())));
+        }
+        if (requirement.thickness().kind() != ThicknessSpec.Kind.RANGE || out.size() < 2) {
+            return out;
+        }
+        return merged(out);
+    }
+
+    /** A sample to judge and the thicknesses it speaks for. */
+    public record Judged(Candidate candidate, ThicknessInterval span) {
+    }
+
+    /** The samples judged for a thickness specification, with their spans. */
+    public static List<Judged> choose(List<Candidate> samples, ThicknessSpec spec) {
+        double[] thicknesses = samples.stream().mapToDouble(Candidate::thicknessMm).toArray();
+        boolean bulk = !samples.isEmpty() && samples.get(0).bulk();
+        MadeThicknesses made = samples.isEmpty() ? MadeThicknesses.UNLIMITED : samples.get(0).made();
+        ThicknessInterval[] spans = spans(thicknesses, bulk, made, spec);
+        List<Judged> out = new ArrayList<>();
+        for (int i = 0; i < spans.length; i++) {
+            if (spans[i] != null) {
+                out.add(new Judged(samples.get(i), spans[i]));
+            }
+        }
+        return out;
+    }
+
+    /**
+     * The same choice on bare numbers, for engines without candidates (the store): for the samples of one
+     * material measured at {@code thicknessMm} (NaN: not recorded), the span each is judged over, null for
+     * a sample that is not judged.
+     */
+    public static ThicknessInterval[] spans(double[] thicknessMm, boolean bulk, MadeThicknesses made, ThicknessSpec spec) {
+        int n = thicknessMm.length;
+        ThicknessInterval[] out = new ThicknessInterval[n];
+        double[] known = java.util.Arrays.stream(thicknessMm).filter(d -> !Double.isNaN(d)).toArray();
+        if (spec.kind() == ThicknessSpec.Kind.AS_MEASURED || known.length == 0) {
+            java.util.Arrays.fill(out, SampleEvaluator.WHOLE_AXIS);
+            return out;
+        }
+        boolean any = false;
+        for (int i = 0; i < n; i++) {
+            double d0 = thicknessMm[i];
+            if (Double.isNaN(d0)) {
+                continue;
+            }
+            ThicknessInterval span = span(d0, known);
+            boolean speaks = spec.kind() == ThicknessSpec.Kind.FIXED ? span.contains(spec.minMm())
+                    : bulk ? meetsMade(made, span, spec) : NominalThickness.within(d0, spec.minMm(), spec.maxMm());
+            if (speaks) {
+                out[i] = span;
+                any = true;
+            }
+        }
+        if (!any && spec.kind() == ThicknessSpec.Kind.RANGE) {
+            // nothing can be judged inside the range: the nearest samples say why
+            double nearest = java.util.Arrays.stream(known).map(d -> ratioDistance(d, spec)).min().orElseThrow();
+            for (int i = 0; i < n; i++) {
+                if (!Double.isNaN(thicknessMm[i]) && ratioDistance(thicknessMm[i], spec) == nearest) {
+                    out[i] = SampleEvaluator.WHOLE_AXIS;
+                }
+            }
+        }
+        return out;
+    }
+
+    /** Whether the sample's span meets the range inside the thicknesses the material is made in. */
+    private static boolean meetsMade(MadeThicknesses made, ThicknessInterval span, ThicknessSpec spec) {
+        ThicknessInterval inMade = made.within(spec.minMm(), spec.maxMm());
+        if (inMade == null) {
+            return false;
+        }
+        double lo = Math.max(inMade.loMm(), span.loMm());
+        double hi = Math.min(inMade.hiMm(), span.hiMm());
+        return lo <= hi && (made.continuous() || !made.stockWithin(lo, hi).isEmpty());
+    }
+
+    /** |ln| of how far d lies outside the range, as a thickness ratio (0 inside). */
+    private static double ratioDistance(double d, ThicknessSpec spec) {
+        return d < spec.minMm() ? Math.log(spec.minMm() / d) : d > spec.maxMm() ? Math.log(d / spec.maxMm()) : 0;
+    }
+
+    /**
+     * The thicknesses for which a sample measured at {@code d0} is the nearest by ratio among
+     * {@code measured}: from the geometric mean with the next thinner measured thickness to that with the
+     * next thicker one (the whole axis at the ends). Closed at both ends: at a boundary both samples are judged.
+     */
+    public static ThicknessInterval span(double d0, double[] measured) {
+        TreeSet<Double> distinct = new TreeSet<>();
+        for (double d : measured) {
+            distinct.add(d);
+        }
+        Double below = distinct.lower(d0);
+        Double above = distinct.higher(d0);
+        double lo = below == null ? Double.MIN_VALUE : Math.sqrt(below * d0);
+        double hi = above == null ? Double.MAX_VALUE : Math.sqrt(above * d0);
+        return new ThicknessInterval(lo, hi);
+    }
+
+    /** Every evaluation gets the material's whole feasible interval around its own, and the gathered stock advice. */
+    private static List<MaterialEvaluation> merged(List<MaterialEvaluation> evaluations) {
+        List<ThicknessInterval> pieces = evaluations.stream().map(e -> e.evaluation().feasibleMm())
+                .filter(java.util.Objects::nonNull).sorted(Comparator.comparingDouble(ThicknessInterval::loMm)).toList();
+        List<ThicknessInterval> joined = new ArrayList<>();
+        for (ThicknessInterval piece : pieces) {
+            ThicknessInterval last = joined.isEmpty() ? null : joined.get(joined.size() - 1);
+            if (last != null && piece.loMm() <= last.hiMm() + TOUCHING_MM) {
+                joined.set(joined.size() - 1, new ThicknessInterval(last.loMm(), Math.max(last.hiMm(), piece.hiMm())));
+            } else {
+                joined.add(piece);
+            }
+        }
+        List<StockAdvice.StockFit> fits = new ArrayList<>();
+        for (MaterialEvaluation e : evaluations) {
+            StockAdvice a = e.evaluation().stockAdvice();
+            fits.addAll(a.inside());
+            if (a.closestMiss() != null) {
+                fits.add(a.closestMiss());
+            }
+        }
+        List<MaterialEvaluation> out = new ArrayList<>();
+        for (MaterialEvaluation e : evaluations) {
+            ThicknessInterval own = e.evaluation().feasibleMm();
+            ThicknessInterval whole = own == null ? null : joined.stream()
+                    .filter(j -> j.loMm() <= own.loMm() && j.hiMm() >= own.hiMm()).findFirst().orElse(own);
+            ThicknessInterval nearest = whole != null ? whole : joined.isEmpty() ? null : joined.get(0);
+            out.add(new MaterialEvaluation(e.materialId(), e.materialName(),
+                    e.evaluation().withThicknessAdvice(whole, SampleEvaluator.advise(fits, nearest))));
+        }
+        return out;
+    }
+}
