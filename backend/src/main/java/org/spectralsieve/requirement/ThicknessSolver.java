@@ -145,7 +145,10 @@ public final class ThicknessSolver {
         if (!view.covers(c.window())) {
             return false;
         }
-        out.add(new ThicknessConstraint.AtWavelength(model, c.window().toNm(), Direction.PASS, c.levelT()));
+        // the cutoff is read from the curve's long end down: a clear point there that is only a bound at d
+        // leaves it undetermined, so the pass edge is provable only up to the least far thickness from the window on
+        out.add(new ThicknessConstraint.AtWavelength(model, c.window().toNm(), Direction.PASS, c.levelT(),
+                Math.min(model.farMmAt(c.window().toNm()), model.farMmFrom(c.window().fromNm()))));
         out.add(new ThicknessConstraint.AtWavelength(model, c.window().fromNm(), Direction.BLOCK, c.levelT()));
         return true;
     }
