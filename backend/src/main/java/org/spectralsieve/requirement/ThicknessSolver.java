@@ -30,6 +30,12 @@ import org.spectralsieve.spectrum.Curve;
  * block condition solved from a bound gives a sufficient lower limit — thinner may also work, the data
  * just cannot show it. A pass judged on a bound is never provable, so any clause with one makes the
  * feasible interval empty, though its bound margin still guides the recommendation.
+ *
+ * <p>Clear readings (at or near the lossless ceiling, {@link org.spectralsieve.optics.SlabReading}) keep
+ * their measured T at every thickness but become upper bounds beyond their far thickness, where the
+ * absorption the data cannot resolve is no longer negligible: a pass needing such a reading holds only up to
+ * that thickness ({@link ThicknessConstraint#provableUpToMm}); blocks are unaffected (a bound proves them).
+ * The same rule as the rescaled curve, so a thickness inside a reported interval meets when judged on it.
  */
 public final class ThicknessSolver {
 

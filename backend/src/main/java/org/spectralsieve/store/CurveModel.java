@@ -156,7 +156,9 @@ final class CurveModel {
         int i = points++;
         pass[i] = isPass;
         bound[i] = isBound;
-        farMm[i] = clear ? StoreSearch.Plan.farMm(od0, surfaceLoss, d0) : Double.POSITIVE_INFINITY;
+        // the far thickness is at least d0: only worth computing when the asked thicknesses reach past d0
+        farMm[i] = clear && plan.thickness.maxMm() > d0 ? StoreSearch.Plan.farMm(od0, surfaceLoss, d0)
+                : Double.POSITIVE_INFINITY;
         if (isPass) {           // margin = thresholdOd − OD(d)
             intercept[i] = thresholdOd - base;
             slope[i] = -perMm;

@@ -176,7 +176,8 @@ public final class StoreSearch {
                     double s = plan.pointProbeLoss[model][k];
                     if (value <= plan.pointProbeUnresolvedOd[model][k]) {
                         // a clear reading keeps its OD; far beyond its thickness it is only a bound
-                        isBound |= target > Plan.farMm(value, s, store.thicknessMm(curve));
+                        double d0 = store.thicknessMm(curve);
+                        isBound |= target > d0 && target > Plan.farMm(value, s, d0); // never a bound when thinner
                     } else {
                         value = s + Math.max(0, value - s) * target / store.thicknessMm(curve);
                     }
