@@ -11,7 +11,9 @@ import org.spectralsieve.spectrum.WavelengthGrid;
  * transmittance curve.
  *
  * <p>Model, per wavelength: each layer becomes a symmetric slab element — R from its index by Fresnel,
- * K from its (rescaled) measured T by inverting the slab formula, element T and R from K and R — and
+ * K from its (rescaled) measured T by inverting the slab formula ({@link SlabReading}: a reading at or
+ * above the lossless ceiling keeps its own T through an effective surface reflectance, so the element
+ * passes exactly what was measured), element T and R from K and R — and
  * the elements are chained with {@link OpticalElement#followedBy}: incoherent multiple reflections across
  * air gaps. Incoherent, because the parts are much thicker than the coherence length of the lamps and LEDs
  * in question, so interference averages out; air gaps, because the parts are separate pieces, not
@@ -184,6 +186,6 @@ public final class LightPath {
     }
 
     private static OpticalElement element(double t, double r) {
-        return OpticalElement.slab(Slab.internalFromTransmittance(t, r), r);
+        return SlabReading.of(t, r).element();
     }
 }

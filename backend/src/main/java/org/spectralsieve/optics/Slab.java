@@ -35,8 +35,9 @@ public final class Slab {
      * 2T / [(1−R)² + √((1−R)⁴ + 4R²T²)], which is the same number without cancellation for small R and
      * stays defined at R = 0.
      *
-     * <p>A measured T above the lossless ceiling (1 − R)/(1 + R) is noise or a too-high index guess on a
-     * clear sample, not a gain; it gives K = 1. T <= 0 gives K = 0.
+     * <p>The pure inversion: T at or above the lossless ceiling (1 − R)/(1 + R) gives K = 1, T <= 0 gives
+     * K = 0. Measured readings go through {@link SlabReading}, which keeps a reading at the ceiling exact
+     * with an effective surface reflectance instead of clipping it.
      */
     public static double internalFromTransmittance(double t, double r) {
         if (Double.isNaN(t) || Double.isInfinite(t)) {

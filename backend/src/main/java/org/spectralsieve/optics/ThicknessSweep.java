@@ -7,14 +7,13 @@ import org.spectralsieve.spectrum.Curve;
 /**
  * One bulk part read at many thicknesses, alone or in front of fixed parts: what a thickness solver asks for
  * dozens of times per sample. Everything that does not depend on the thickness is computed once — each
- * stored point's surface reflectance and internal transmittance K0 (of T and of the detection limit), and
+ * stored point's {@link SlabReading} (of T and of the detection limit), and
  * for a stack the shared wavelengths, the fixed parts' curves there and every part's reflectance there — so
  * a thickness costs one Beer–Lambert power and one slab formula per stored point, plus the chain per shared
  * point.
  *
  * <p>The numbers are those of the straightforward route, bit for bit: {@link #rescaled} equals
- * {@link ThicknessRescaler#rescale} (same K0, same {@link BeerLambert#scaleInternal}, same
- * {@link Slab#transmittance}), and {@link #path} equals {@code LightPath.of(Layer.fixed(rescaled(d), index),
+ * {@link ThicknessRescaler#rescale} (the same prepared readings, the same per-point rule), and {@link #path} equals {@code LightPath.of(Layer.fixed(rescaled(d), index),
  * fixed...).transmittance()} (same shared wavelengths, same resampling, same {@code LightPath.combine}).
  * Immutable after the stack's parts are first computed; not shared between threads.
  */
@@ -24,9 +23,7 @@ public final class ThicknessSweep {
     private final double measuredMm;
     private final RefractiveIndex index;
     private final List<Layer> fixed;
-    private final double[] reflectance;
-    private final double[] internal;
-    private final double[] internalAtLimit;
+    private final ThicknessRescaler.Prepared prepared;
     private Stack stack;
 
     /** The fixed parts at the stack's shared wavelengths, with every part's reflectance there. */
@@ -43,29 +40,12 @@ public final class ThicknessSweep {
         this.measuredMm = measuredMm;
         this.index = index;
         this.fixed = List.copyOf(fixed);
-        int n = measured.size();
-        reflectance = new double[n];
-        internal = new double[n];
-        internalAtLimit = new double[n];
-        for (int i = 0; i < n; i++) {
-            double r = Fresnel.reflectanceInAir(index.at(measured.wavelengthNm(i)));
-            reflectance[i] = r;
-            internal[i] = Slab.internalFromTransmittance(measured.transmittance(i), r);
-            internalAtLimit[i] = Slab.internalFromTransmittance(measured.detectionLimit(i), r);
-        }
+        this.prepared = ThicknessRescaler.prepare(measured, index);
     }
 
     /** The bulk part alone at {@code toMm}: equal to {@link ThicknessRescaler#rescale}. */
     public Curve rescaled(double toMm) {
-        BeerLambert.requireThickness("toMm", toMm);
-        int n = measured.size();
-        double[] t = new double[n];
-        double[] limits = new double[n];
-        for (int i = 0; i < n; i++) {
-            t[i] = Slab.transmittance(BeerLambert.scaleInternal(internal[i], measuredMm, toMm), reflectance[i]);
-            limits[i] = Slab.transmittance(BeerLambert.scaleInternal(internalAtLimit[i], measuredMm, toMm), reflectance[i]);
-        }
-        return Curve.of(measured.wavelengthsNm(), t, measured.belowDetectionFlags(), limits);
+        return prepared.at(measuredMm, toMm);
     }
 
     /**

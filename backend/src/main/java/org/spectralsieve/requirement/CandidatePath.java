@@ -30,6 +30,7 @@ final class CandidatePath {
     private final Optional<StackLayer> layer;
     private final Map<Double, Curve> byThickness = new HashMap<>();
     private ThicknessSweep sweep;
+    private RescaledModel readings;
 
     CandidatePath(Candidate candidate, Optional<StackLayer> layer) {
         this.candidate = candidate;
@@ -59,6 +60,46 @@ final class CandidatePath {
             return asMeasured();
         }
         return cached(d, () -> sweep().path(d));
+    }
+
+    /**
+     * The thickness beyond which the path's reading at {@code nm} (a wavelength the path as measured
+     * covers) is an upper bound because the candidate's reading there extrapolates an absorption its data
+     * cannot resolve: the nearer far thickness of the candidate at the path's stored neighbours of nm, as
+     * the path's below-detection flags combine ({@link Curve#belowDetectionAt}); +∞ for a candidate that is
+     * not rescaled.
+     */
+    double farMmOnPath(double nm) {
+        if (!candidate.bulk()) {
+            return Double.POSITIVE_INFINITY;
+        }
+        double[] grid = asMeasured().wavelengthsNm();
+        int hit = java.util.Arrays.binarySearch(grid, nm);
+        if (hit >= 0) {
+            return candidateFarMm(nm);
+        }
+        int hi = -hit - 1;
+        return Math.min(candidateFarMm(grid[hi - 1]), candidateFarMm(grid[hi]));
+    }
+
+    /** The least {@link #farMmOnPath} over the path's stored wavelengths at or beyond {@code nm} (for a cutoff). */
+    double farMmOnPathFrom(double nm) {
+        if (!candidate.bulk()) {
+            return Double.POSITIVE_INFINITY;
+        }
+        double far = Double.POSITIVE_INFINITY;
+        double[] grid = asMeasured().wavelengthsNm();
+        for (int i = grid.length - 1; i >= 0 && grid[i] >= nm; i--) {
+            far = Math.min(far, candidateFarMm(grid[i]));
+        }
+        return far;
+    }
+
+    private double candidateFarMm(double nm) {
+        if (readings == null) {
+            readings = new RescaledModel(candidate.measured(), candidate.thicknessMm(), candidate.index());
+        }
+        return candidate.measured().covers(nm) ? readings.farMmAt(nm) : Double.POSITIVE_INFINITY;
     }
 
     /**

@@ -7,7 +7,10 @@ import java.util.function.DoubleUnaryOperator;
  * Clauses as conditions on the candidate's thickness d, read on the whole light path at d
  * ({@link CandidatePath#at}); see {@link ThicknessSolver#solve(List, CandidatePath, double, double)} for why
  * each is monotone. Wavelengths, coverage and below-detection flags are those of the path as measured:
- * rescaling keeps a curve's wavelengths and flags, and the stack's grid and flags come from its parts.
+ * rescaling keeps a curve's wavelengths and flags, and the stack's grid and flags come from its parts —
+ * except that a reading of the candidate becomes a bound beyond its far thickness
+ * ({@link CandidatePath#farMmOnPath}), where a pass on it can no longer be proven. Weighted figures see
+ * that flag on the rescaled path itself (their lower end counts such a point as 0).
  */
 final class PathConstraints {
 
@@ -24,7 +27,8 @@ final class PathConstraints {
             if (!asMeasured.covers(c.window())) {
                 return false;
             }
-            out.add(point(path, c.window().toNm(), Direction.PASS, c.levelT(), asMeasured));
+            out.add(point(path, c.window().toNm(), Direction.PASS, c.levelT(), asMeasured,
+                    Math.min(path.farMmOnPath(c.window().toNm()), path.farMmOnPathFrom(c.window().fromNm()))));
             out.add(point(path, c.window().fromNm(), Direction.BLOCK, c.levelT(), asMeasured));
             return true;
         }
@@ -55,9 +59,10 @@ final class PathConstraints {
         boolean pass = t.direction() == Direction.PASS;
         boolean provable = !pass || readings.stream().noneMatch(Reading::bounded);
         double[] nms = readings.stream().mapToDouble(Reading::nm).toArray();
+        double far = java.util.Arrays.stream(nms).map(path::farMmOnPath).min().orElse(Double.POSITIVE_INFINITY);
         if (t.aggregate() == Aggregate.MEAN) {
             if (covered) {
-                out.add(new OnPath(pass, provable, d -> {
+                out.add(new OnPath(pass, provable, far, d -> {
                     List<Reading> now = new CurveView(path.at(d)).readings(t.band());
                     return Margins.of(t.direction(), CurveView.trapezoidMean(now), t.thresholdT());
                 }));
@@ -66,7 +71,7 @@ final class PathConstraints {
         }
         // the covered part of a partly covered band can still prove a miss, so it guides the choice
         if (nms.length > 0) {
-            out.add(new OnPath(pass, provable, d -> {
+            out.add(new OnPath(pass, provable, far, d -> {
                 CurveView view = new CurveView(path.at(d));
                 double worst = Double.POSITIVE_INFINITY;
                 for (double nm : nms) {
@@ -80,8 +85,13 @@ final class PathConstraints {
 
     private static ThicknessConstraint point(CandidatePath path, double nm, Direction direction, double threshold,
                                              CurveView asMeasured) {
+        return point(path, nm, direction, threshold, asMeasured, path.farMmOnPath(nm));
+    }
+
+    private static ThicknessConstraint point(CandidatePath path, double nm, Direction direction, double threshold,
+                                             CurveView asMeasured, double provableUpToMm) {
         boolean provable = direction == Direction.BLOCK || !asMeasured.at(nm).bounded();
-        return new OnPath(direction == Direction.PASS, provable,
+        return new OnPath(direction == Direction.PASS, provable, provableUpToMm,
                 d -> Margins.of(direction, new CurveView(path.at(d)).at(nm).judged(), threshold));
     }
 
@@ -91,7 +101,11 @@ final class PathConstraints {
         private final DoubleUnaryOperator margin;
 
         OnPath(boolean falling, boolean provable, DoubleUnaryOperator margin) {
-            super(falling, provable);
+            this(falling, provable, Double.POSITIVE_INFINITY, margin);
+        }
+
+        OnPath(boolean falling, boolean provable, double provableUpToMm, DoubleUnaryOperator margin) {
+            super(falling, provable, provableUpToMm);
             this.margin = margin;
         }
 

@@ -1,43 +1,41 @@
 package org.spectralsieve.requirement;
 
 import java.util.Arrays;
-import org.spectralsieve.optics.BeerLambert;
 import org.spectralsieve.optics.Fresnel;
 import org.spectralsieve.optics.RefractiveIndex;
-import org.spectralsieve.optics.Slab;
+import org.spectralsieve.optics.SlabReading;
 import org.spectralsieve.spectrum.Curve;
 
 /**
- * A bulk sample's readings as functions of thickness d, with the same arithmetic as
- * {@link org.spectralsieve.optics.ThicknessRescaler}: per stored point K0 = slab inversion of T (Smith eq.
- * 10.5 inverted), K(d) = K0^(d/d0) (Beer–Lambert), T(d) = slab T of K(d). Interpolated wavelengths are
- * absorbance-interpolated between rescaled neighbours, exactly as a rescaled {@link Curve} would be read.
- * Every T(d) is non-increasing in d, and so is every bound.
+ * A bulk sample's readings as functions of thickness d, with the same rule as
+ * {@link org.spectralsieve.optics.ThicknessRescaler}: every stored point is a {@link SlabReading} (Fresnel
+ * surfaces and Beer–Lambert for a resolved reading; an effective surface and no absorption for a reading
+ * at the lossless ceiling), T(d) its slab T. Interpolated wavelengths are absorbance-interpolated between
+ * rescaled neighbours, exactly as a rescaled {@link Curve} would be read. Every T(d) is non-increasing in
+ * d, and so is every bound. A reading is a bound where the measured point is below detection, or where d
+ * is beyond the point's far thickness (the rescaled curve flags it there too); an interpolated reading is
+ * a bound where either neighbour is.
  */
 final class RescaledModel {
 
     private final Curve curve;
     private final double[] wavelengths;
     private final double d0;
-    private final double[] reflectance;
-    private final double[] kValue;
-    private final double[] kUpper;
+    private final SlabReading[] value;
+    private final SlabReading[] judged;
 
     RescaledModel(Curve curve, double d0, RefractiveIndex index) {
         this.curve = curve;
         this.wavelengths = curve.wavelengthsNm();
         this.d0 = d0;
         int n = curve.size();
-        reflectance = new double[n];
-        kValue = new double[n];
-        kUpper = new double[n];
+        value = new SlabReading[n];
+        judged = new SlabReading[n];
         for (int i = 0; i < n; i++) {
             double r = Fresnel.reflectanceInAir(index.at(wavelengths[i]));
             double t = curve.transmittance(i);
-            double upper = curve.belowDetection(i) ? Math.max(t, curve.detectionLimit(i)) : t;
-            reflectance[i] = r;
-            kValue[i] = Slab.internalFromTransmittance(t, r);
-            kUpper[i] = Slab.internalFromTransmittance(upper, r);
+            value[i] = SlabReading.of(t, r);
+            judged[i] = curve.belowDetection(i) ? SlabReading.of(Math.max(t, curve.detectionLimit(i)), r) : value[i];
         }
     }
 
@@ -54,25 +52,52 @@ final class RescaledModel {
         return hit >= 0 ? hit : -1;
     }
 
-    double reflectance(int i) {
-        return reflectance[i];
+    /** The reading a verdict is based on at stored point i (of the bound when the point is below detection). */
+    SlabReading judged(int i) {
+        return judged[i];
     }
 
-    boolean bounded(int i) {
-        return curve.belowDetection(i);
-    }
-
-    /** K0 of the number a verdict is based on at stored point i (of the bound when bounded). */
-    double judgedInternal(int i) {
-        return curve.belowDetection(i) ? kUpper[i] : kValue[i];
-    }
-
-    /** Whether the reading at a covered wavelength is a bound (same rule as {@link Curve#belowDetectionAt}). */
-    boolean boundedAt(double nm) {
+    /** Whether the measured reading at a covered wavelength is a bound (same rule as {@link Curve#belowDetectionAt}). */
+    boolean measuredBoundAt(double nm) {
         return curve.belowDetectionAt(nm);
     }
 
-    /** The judged number (bound where bounded) at a covered wavelength, at thickness d. */
+    /**
+     * The thickness beyond which the reading at a covered wavelength is only an upper bound because it
+     * extrapolates an absorption the data cannot resolve (+∞ when it never is); for an interpolated reading
+     * the nearer of its neighbours' far thicknesses.
+     */
+    double farMmAt(double nm) {
+        int hit = Arrays.binarySearch(wavelengths, nm);
+        if (hit >= 0) {
+            return value[hit].farMm(d0);
+        }
+        int hi = -hit - 1;
+        return Math.min(value[hi - 1].farMm(d0), value[hi].farMm(d0));
+    }
+
+    /**
+     * The least far thickness of the stored points at or beyond {@code nm}: a cutoff is read from the long
+     * end of the curve down to its crossing, so a clear point there that turns into a bound leaves the
+     * cutoff undetermined.
+     */
+    double farMmFrom(double nm) {
+        double far = Double.POSITIVE_INFINITY;
+        for (int i = wavelengths.length - 1; i >= 0 && wavelengths[i] >= nm; i--) {
+            far = Math.min(far, value[i].farMm(d0));
+        }
+        return far;
+    }
+
+    /** Whether the reading at a covered wavelength, rescaled to d, is a bound. */
+    boolean boundedAt(double nm, double d) {
+        return curve.belowDetectionAt(nm) || d > farMmAt(nm);
+    }
+
+    /**
+     * The judged number (bound where bounded) at a covered wavelength, at thickness d. A reading that is a
+     * bound only for being far has its rescaled value as its bound, so the number does not depend on it.
+     */
     double judgedAt(double nm, double d) {
         int hit = Arrays.binarySearch(wavelengths, nm);
         if (hit >= 0) {
@@ -82,16 +107,12 @@ final class RescaledModel {
         int lo = hi - 1;
         double f = (nm - wavelengths[lo]) / (wavelengths[hi] - wavelengths[lo]);
         if (!curve.belowDetectionAt(nm)) {
-            return CurveView.interpolate(t(kValue[lo], lo, d), t(kValue[hi], hi, d), f);
+            return CurveView.interpolate(value[lo].transmittance(d0, d), value[hi].transmittance(d0, d), f);
         }
         return CurveView.interpolate(judgedAtIndex(lo, d), judgedAtIndex(hi, d), f);
     }
 
     double judgedAtIndex(int i, double d) {
-        return t(judgedInternal(i), i, d);
-    }
-
-    private double t(double k0, int i, double d) {
-        return Slab.transmittance(BeerLambert.scaleInternal(k0, d0, d), reflectance[i]);
+        return judged[i].transmittance(d0, d);
     }
 }

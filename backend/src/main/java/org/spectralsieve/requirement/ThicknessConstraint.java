@@ -2,6 +2,7 @@ package org.spectralsieve.requirement;
 
 import java.util.List;
 import org.spectralsieve.optics.Slab;
+import org.spectralsieve.optics.SlabReading;
 
 /**
  * One monotone condition on the thickness d of a bulk sample, as a margin in decades m(d): falling with d
@@ -14,12 +15,30 @@ abstract class ThicknessConstraint {
     /** False when the data can never prove the condition (a pass judged on a bound). */
     final boolean provable;
 
+    /**
+     * For a pass-like condition: the thickness beyond which a reading it needs is only an upper bound (an
+     * extrapolated absorption the data cannot resolve, {@link SlabReading#farMm}), so it cannot be proven
+     * there whatever the margin; +∞ when there is none. Block-like conditions are proven by bounds too.
+     */
+    final double provableUpToMm;
+
     ThicknessConstraint(boolean falling, boolean provable) {
+        this(falling, provable, Double.POSITIVE_INFINITY);
+    }
+
+    ThicknessConstraint(boolean falling, boolean provable, double provableUpToMm) {
         this.falling = falling;
         this.provable = provable;
+        this.provableUpToMm = falling ? provableUpToMm : Double.POSITIVE_INFINITY;
     }
 
     abstract double marginAt(double d);
+
+    /** [min, max] cut to where a pass-like condition can be proven; null when nowhere. */
+    final double[] provableWithin(double min, double max) {
+        double top = Math.min(max, provableUpToMm);
+        return top < min ? null : new double[] {min, top};
+    }
 
     /**
      * The sub-interval of [min, max] where the condition holds, as {lo, hi}, or null when nowhere. By
@@ -27,6 +46,14 @@ abstract class ThicknessConstraint {
      * holding side so the reported interval never contains a thickness that fails.
      */
     double[] holdsWithin(double min, double max) {
+        double[] provableRange = provableWithin(min, max);
+        if (provableRange == null) {
+            return null;
+        }
+        return holdsWithinByBisection(provableRange[0], provableRange[1]);
+    }
+
+    private double[] holdsWithinByBisection(double min, double max) {
         if (falling) {
             if (marginAt(min) < 0) {
                 return null;
@@ -74,7 +101,13 @@ abstract class ThicknessConstraint {
         private final double threshold;
 
         AtWavelength(RescaledModel model, double nm, Direction direction, double threshold) {
-            super(direction == Direction.PASS, direction == Direction.BLOCK || !model.boundedAt(nm));
+            this(model, nm, direction, threshold, model.farMmAt(nm));
+        }
+
+        /** @param provableUpToMm for a pass: beyond it a reading the clause needs is only a bound */
+        AtWavelength(RescaledModel model, double nm, Direction direction, double threshold, double provableUpToMm) {
+            super(direction == Direction.PASS, direction == Direction.BLOCK || !model.measuredBoundAt(nm),
+                    provableUpToMm);
             this.model = model;
             this.nm = nm;
             this.direction = direction;
@@ -86,20 +119,33 @@ abstract class ThicknessConstraint {
             return Margins.of(direction, model.judgedAt(nm, d), threshold);
         }
 
-        /** At a stored wavelength the root is closed-form; between stored points, bisection. */
+        /**
+         * At a stored wavelength the root is closed-form; between stored points, bisection. Either way a
+         * pass holds only up to the reading's far thickness ({@link #provableUpToMm}).
+         */
         @Override
         double[] holdsWithin(double min, double max) {
             int i = model.indexOf(nm);
             if (i < 0) {
                 return super.holdsWithin(min, max);
             }
-            double r = model.reflectance(i);
-            double k0 = model.judgedInternal(i);
+            double[] provableRange = provableWithin(min, max);
+            if (provableRange == null) {
+                return null;
+            }
+            return closedForm(i, provableRange[0], provableRange[1]);
+        }
+
+        private double[] closedForm(int i, double min, double max) {
+            SlabReading reading = model.judged(i);
+            double r = reading.reflectance();
+            double k0 = reading.internal();
             double d0 = model.measuredMm();
-            double ceiling = Slab.losslessTransmittance(r);
+            // T of a reading without absorption, as the rescaled curve computes it (its own T at every d)
+            double clear = Slab.transmittance(1, r);
             if (direction == Direction.PASS) {
                 if (k0 >= 1) {
-                    return ceiling >= threshold ? new double[] {min, max} : null;
+                    return clear >= threshold ? new double[] {min, max} : null;
                 }
                 double kStar = Slab.internalFromTransmittance(threshold, r);
                 if (k0 <= 0 || kStar >= 1) {
@@ -113,7 +159,7 @@ abstract class ThicknessConstraint {
                 return new double[] {min, max};
             }
             if (k0 >= 1) {
-                return ceiling <= threshold ? new double[] {min, max} : null;
+                return clear <= threshold ? new double[] {min, max} : null;
             }
             double kStar = Slab.internalFromTransmittance(threshold, r);
             if (kStar >= 1) {
@@ -147,7 +193,8 @@ abstract class ThicknessConstraint {
 
         BandMean(RescaledModel model, List<Reading> readings, Direction direction, double threshold) {
             super(direction == Direction.PASS,
-                    direction == Direction.BLOCK || readings.stream().noneMatch(Reading::bounded));
+                    direction == Direction.BLOCK || readings.stream().noneMatch(Reading::bounded),
+                    readings.stream().mapToDouble(r -> model.farMmAt(r.nm())).min().orElse(Double.POSITIVE_INFINITY));
             this.model = model;
             this.nms = readings.stream().mapToDouble(Reading::nm).toArray();
             this.direction = direction;

@@ -30,6 +30,12 @@ import org.spectralsieve.spectrum.Curve;
  * block condition solved from a bound gives a sufficient lower limit — thinner may also work, the data
  * just cannot show it. A pass judged on a bound is never provable, so any clause with one makes the
  * feasible interval empty, though its bound margin still guides the recommendation.
+ *
+ * <p>Clear readings (at or near the lossless ceiling, {@link org.spectralsieve.optics.SlabReading}) keep
+ * their measured T at every thickness but become upper bounds beyond their far thickness, where the
+ * absorption the data cannot resolve is no longer negligible: a pass needing such a reading holds only up to
+ * that thickness ({@link ThicknessConstraint#provableUpToMm}); blocks are unaffected (a bound proves them).
+ * The same rule as the rescaled curve, so a thickness inside a reported interval meets when judged on it.
  */
 public final class ThicknessSolver {
 
@@ -145,7 +151,10 @@ public final class ThicknessSolver {
         if (!view.covers(c.window())) {
             return false;
         }
-        out.add(new ThicknessConstraint.AtWavelength(model, c.window().toNm(), Direction.PASS, c.levelT()));
+        // the cutoff is read from the curve's long end down: a clear point there that is only a bound at d
+        // leaves it undetermined, so the pass edge is provable only up to the least far thickness from the window on
+        out.add(new ThicknessConstraint.AtWavelength(model, c.window().toNm(), Direction.PASS, c.levelT(),
+                Math.min(model.farMmAt(c.window().toNm()), model.farMmFrom(c.window().fromNm()))));
         out.add(new ThicknessConstraint.AtWavelength(model, c.window().fromNm(), Direction.BLOCK, c.levelT()));
         return true;
     }

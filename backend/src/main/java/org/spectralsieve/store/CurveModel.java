@@ -27,6 +27,8 @@ final class CurveModel {
     private final double[] slope;
     private final boolean[] pass;
     private final boolean[] bound;
+    /** Beyond this thickness the point is a bound too (a clear reading extrapolated far); +∞ when never. */
+    private final double[] farMm;
     private boolean anyUnmeasured;
 
     // mean conditions, only in a full evaluation
@@ -51,6 +53,7 @@ final class CurveModel {
         slope = new double[capacity];
         pass = new boolean[capacity];
         bound = new boolean[capacity];
+        farMm = new double[capacity];
     }
 
     /** Points a full model at a curve: every probe of every clause, means included. */
@@ -69,6 +72,7 @@ final class CurveModel {
         for (int c = 0; c < plan.clauses.size(); c++) {
             CompiledClause clause = plan.clauses.get(c);
             double[] loss = plan.surfaceLoss[model][c];
+            double[] clear = plan.unresolvedOd[model][c];
             List<Probe> probes = clause.probes();
             switch (clause.kind()) {
                 case EVERY_POINT_PASS, EVERY_POINT_BLOCK -> {
@@ -76,28 +80,29 @@ final class CurveModel {
                     if (pointsOnly) {
                         // a band's two ends: where edges and bands usually decide it, at the cost of two columns
                         int last = probes.size() - 1;
-                        addPoint(store, curve, probes.get(0), loss[0], clause.thresholdOd(), isPass);
+                        addPoint(store, curve, probes.get(0), loss[0], clear[0], clause.thresholdOd(), isPass);
                         if (last > 0) {
-                            addPoint(store, curve, probes.get(last), loss[last], clause.thresholdOd(), isPass);
+                            addPoint(store, curve, probes.get(last), loss[last], clear[last], clause.thresholdOd(),
+                                    isPass);
                         }
                     } else {
                         for (int p = 0; p < probes.size(); p++) {
-                            addPoint(store, curve, probes.get(p), loss[p], clause.thresholdOd(), isPass);
+                            addPoint(store, curve, probes.get(p), loss[p], clear[p], clause.thresholdOd(), isPass);
                         }
                     }
                 }
                 case CUTOFF -> {
-                    addPoint(store, curve, probes.get(0), loss[0], clause.thresholdOd(), false);
-                    addPoint(store, curve, probes.get(1), loss[1], clause.thresholdOd(), true);
+                    addPoint(store, curve, probes.get(0), loss[0], clear[0], clause.thresholdOd(), false);
+                    addPoint(store, curve, probes.get(1), loss[1], clear[1], clause.thresholdOd(), true);
                 }
-                case MEAN_PASS, MEAN_BLOCK -> means.add(MeanCondition.of(store, curve, clause, loss, d0));
+                case MEAN_PASS, MEAN_BLOCK -> means.add(MeanCondition.of(store, curve, clause, loss, clear, d0));
             }
         }
         return this;
     }
 
-    private void addPoint(SpectralStore store, int curve, Probe probe, double surfaceLoss, double thresholdOd,
-                          boolean isPass) {
+    private void addPoint(SpectralStore store, int curve, Probe probe, double surfaceLoss, double unresolvedOd,
+                          double thresholdOd, boolean isPass) {
         if (!probe.onGrid()) {
             anyUnmeasured = true;
             return;
@@ -111,7 +116,7 @@ final class CurveModel {
         double f = probe.fractionHi();
         double od0 = (1 - f) * OdCode.opticalDensity(lo) + f * OdCode.opticalDensity(hi);
         boolean isBound = OdCode.isBound(lo) || (f > 0 && OdCode.isBound(hi));
-        addDecoded(od0, isBound, surfaceLoss, thresholdOd, isPass);
+        addDecoded(od0, isBound, surfaceLoss, unresolvedOd, thresholdOd, isPass);
     }
 
     /**
@@ -126,13 +131,14 @@ final class CurveModel {
         points = 0;
         anyUnmeasured = false;
         double[] loss = plan.pointProbeLoss[store.indexModelOf(curve)];
+        double[] clear = plan.pointProbeUnresolvedOd[store.indexModelOf(curve)];
         List<StoreSearch.PointProbe> probes = plan.pointProbes;
         for (int k = 0; k < od0.length; k++) {
             if (state[k] == UNMEASURED) {
                 anyUnmeasured = true;
             } else {
                 StoreSearch.PointProbe probe = probes.get(k);
-                addDecoded(od0[k], state[k] == BOUND, loss[k], probe.thresholdOd(), probe.pass());
+                addDecoded(od0[k], state[k] == BOUND, loss[k], clear[k], probe.thresholdOd(), probe.pass());
             }
         }
         return this;
@@ -151,14 +157,20 @@ final class CurveModel {
     static final byte BOUND = 1;
     static final byte UNMEASURED = 2;
 
-    private void addDecoded(double od0, boolean isBound, double surfaceLoss, double thresholdOd, boolean isPass) {
-        // OD(d) = s + a0·d/d0; a reading above the lossless ceiling (noise) means no absorption, not gain
+    private void addDecoded(double od0, boolean isBound, double surfaceLoss, double unresolvedOd, double thresholdOd,
+                            boolean isPass) {
+        // OD(d) = s + a0·d/d0 for a resolved reading; a clear one (at most the OD of C − u) keeps its own OD
+        // and is a bound beyond its far thickness (SlabReading, the exact model's rule)
+        boolean clear = bulk && od0 <= unresolvedOd;
         double internal = Math.max(0, od0 - surfaceLoss);
-        double perMm = bulk ? internal / d0 : 0;
-        double base = bulk ? surfaceLoss : od0;
+        double perMm = bulk && !clear ? internal / d0 : 0;
+        double base = bulk && !clear ? surfaceLoss : od0;
         int i = points++;
         pass[i] = isPass;
         bound[i] = isBound;
+        // the far thickness is at least d0: only worth computing when the asked thicknesses reach past d0
+        farMm[i] = clear && plan.thickness.maxMm() > d0 ? StoreSearch.Plan.farMm(od0, surfaceLoss, d0)
+                : Double.POSITIVE_INFINITY;
         if (isPass) {           // margin = thresholdOd − OD(d)
             intercept[i] = thresholdOd - base;
             slope[i] = -perMm;
@@ -187,8 +199,38 @@ final class CurveModel {
                     return d0;
                 }
                 double[] range = plan.rangeOf(curve);
-                return means.isEmpty() ? crossingOfLines(range[0], range[1]) : crossingByBisection(range[0], range[1]);
+                double free = crossing(range[0], range[1]);
+                double cap = provableCap();
+                if (!(cap >= range[0] && cap < range[1])) {
+                    return free;
+                }
+                // beyond the cap a pass rests on a far clear reading (a bound): the best below it may rank higher
+                double capped = crossing(range[0], cap);
+                judge(free, false);
+                int freeKey = StoreSearch.Keys.of(verdict, worst);
+                judge(capped, false);
+                return StoreSearch.Keys.of(verdict, worst) > freeKey ? capped : free;
         }
+    }
+
+    private double crossing(double min, double max) {
+        return means.isEmpty() ? crossingOfLines(min, max) : crossingByBisection(min, max);
+    }
+
+    /** The thickness up to which every pass condition can still be proven (the least far thickness of one). */
+    private double provableCap() {
+        double cap = Double.POSITIVE_INFINITY;
+        for (int i = 0; i < points; i++) {
+            if (pass[i]) {
+                cap = Math.min(cap, farMm[i]);
+            }
+        }
+        for (MeanCondition mean : means) {
+            if (mean.pass()) {
+                cap = Math.min(cap, mean.farMm(bulk));
+            }
+        }
+        return cap;
     }
 
     private boolean forcedUnverified(ThicknessSpec spec) {
@@ -224,7 +266,7 @@ final class CurveModel {
         for (int i = 0; i < points; i++) {
             double margin = intercept[i] + slope[i] * d; // slope is 0 for a fixed layer
             lowest = Math.min(lowest, margin);
-            bits |= ProbeVerdict.of(margin, bound[i], pass[i]);
+            bits |= ProbeVerdict.of(margin, bound[i] || d > farMm[i], pass[i]);
         }
         boolean misses = (bits & ProbeVerdict.MISSES) != 0;
         boolean unverified = (bits & ProbeVerdict.UNVERIFIED) != 0;
@@ -235,7 +277,7 @@ final class CurveModel {
                 continue;
             }
             lowest = Math.min(lowest, margin);
-            if (mean.anyBound()) {
+            if (mean.anyBoundAt(d, bulk)) {
                 if (mean.pass() && margin < 0) {
                     misses = true;
                 } else {
@@ -350,6 +392,16 @@ final class CurveModel {
     private double[] feasibleRange(double min, double max) {
         double lo = min;
         double hi = max;
+        for (int i = 0; i < points; i++) {
+            if (pass[i]) {
+                hi = Math.min(hi, farMm[i]); // a pass on a far clear reading cannot be proven
+            }
+        }
+        for (MeanCondition mean : means) {
+            if (mean.pass()) {
+                hi = Math.min(hi, mean.farMm(bulk));
+            }
+        }
         if (means.isEmpty()) {
             for (int i = 0; i < points; i++) {
                 if (slope[i] < 0) {
@@ -362,7 +414,7 @@ final class CurveModel {
             }
         } else {
             lo = firstThicknessWhere(min, max, false);
-            hi = firstThicknessWhere(min, max, true);
+            hi = Math.min(hi, firstThicknessWhere(min, max, true));
         }
         return lo <= hi ? new double[] {lo, hi} : null;
     }

@@ -8,6 +8,8 @@ import java.util.Comparator;
 import java.util.List;
 import java.util.stream.IntStream;
 import org.spectralsieve.optics.Fresnel;
+import org.spectralsieve.optics.Slab;
+import org.spectralsieve.optics.SlabReading;
 import org.spectralsieve.requirement.Clause;
 import org.spectralsieve.requirement.MadeThicknesses;
 import org.spectralsieve.requirement.MaterialJudge;
@@ -30,6 +32,9 @@ import org.spectralsieve.requirement.Verdict;
  * is the loss at the two surfaces and a0 the internal absorbance at the measured thickness d0
  * (Beer–Lambert). This drops the multiple-reflection term of the slab formula, worth at most
  * −log10(1 − R²) (0.0016 decades for n ≤ 1.65); the returned rows are re-evaluated exactly by the caller.
+ * The rule for readings at or near the lossless ceiling is the exact model's ({@link SlabReading}): a
+ * reading with OD at most that of C − u keeps its own OD at every thickness, and is an upper bound beyond
+ * its far thickness d0·{@link SlabReading#farFactor} (see {@link Plan#unresolvedOd}).
  */
 public final class StoreSearch {
 
@@ -173,13 +178,21 @@ public final class StoreSearch {
                 }
                 double value = values[j];
                 int curve = from + j;
+                boolean isBound = states[j] == CurveModel.BOUND;
                 if (plan.rescaledAt(store, curve)) {
-                    double s = plan.pointProbeLoss[store.indexModelOf(curve)][k];
-                    value = s + Math.max(0, value - s) * target / store.thicknessMm(curve);
+                    int model = store.indexModelOf(curve);
+                    double s = plan.pointProbeLoss[model][k];
+                    if (value <= plan.pointProbeUnresolvedOd[model][k]) {
+                        // a clear reading keeps its OD; far beyond its thickness it is only a bound
+                        double d0 = store.thicknessMm(curve);
+                        isBound |= target > d0 && target > Plan.farMm(value, s, d0); // never a bound when thinner
+                    } else {
+                        value = s + Math.max(0, value - s) * target / store.thicknessMm(curve);
+                    }
                 }
                 double margin = pass ? threshold - value : value - threshold;
                 lowest[j] = Math.min(lowest[j], margin);
-                bits[j] |= ProbeVerdict.of(margin, states[j] == CurveModel.BOUND, pass);
+                bits[j] |= ProbeVerdict.of(margin, isBound, pass);
             }
         }
         int count = 0;
@@ -367,6 +380,11 @@ public final class StoreSearch {
         final Boolean totalGeometry;
         /** surfaceLoss[model][clause][probe] in decades. */
         final double[][][] surfaceLoss;
+        /**
+         * unresolvedOd[model][clause][probe]: the OD of C − u (lossless ceiling less the reading uncertainty,
+         * {@link SlabReading}); a reading at or below it shows no absorption the data can resolve.
+         */
+        final double[][][] unresolvedOd;
         /** The probes the first pass reads, in the order the curve model adds them, and their losses per model. */
         final List<PointProbe> pointProbes;
         final double[][] pointProbeLoss;
@@ -376,9 +394,11 @@ public final class StoreSearch {
          * null as a whole when every curve is judged (as measured).
          */
         ThicknessInterval[] spans;
+        final double[][] pointProbeUnresolvedOd;
 
         private Plan(List<CompiledClause> clauses, ThicknessSpec thickness, String materialClass, Boolean total,
-                     double[][][] surfaceLoss) {
+                     double[][][] surfaceLoss, double[][][] unresolvedOd) {
+            this.unresolvedOd = unresolvedOd;
             this.clauses = clauses;
             this.thickness = thickness;
             this.materialClass = materialClass;
@@ -410,9 +430,11 @@ public final class StoreSearch {
             }
             this.pointProbes = List.copyOf(probes);
             this.pointProbeLoss = new double[surfaceLoss.length][probes.size()];
+            this.pointProbeUnresolvedOd = new double[surfaceLoss.length][probes.size()];
             for (int model = 0; model < surfaceLoss.length; model++) {
                 for (int k = 0; k < probes.size(); k++) {
                     pointProbeLoss[model][k] = surfaceLoss[model][lossIndex.get(k)[0]][lossIndex.get(k)[1]];
+                    pointProbeUnresolvedOd[model][k] = unresolvedOd[model][lossIndex.get(k)[0]][lossIndex.get(k)[1]];
                 }
             }
         }
@@ -427,18 +449,23 @@ public final class StoreSearch {
                 clauses.add(CompiledClause.compile(store, clause));
             }
             double[][][] loss = new double[store.indexModelCount()][clauses.size()][];
+            double[][][] unresolved = new double[store.indexModelCount()][clauses.size()][];
             for (int model = 0; model < loss.length; model++) {
                 for (int c = 0; c < clauses.size(); c++) {
                     List<Probe> probes = clauses.get(c).probes();
                     loss[model][c] = new double[probes.size()];
+                    unresolved[model][c] = new double[probes.size()];
                     for (int p = 0; p < probes.size(); p++) {
                         double reflectance = Fresnel.reflectanceInAir(store.indexModel(model).at(probes.get(p).nm()));
                         loss[model][c][p] = -2 * Math.log10(1 - reflectance);
+                        unresolved[model][c][p] = -Math.log10(
+                                Slab.losslessTransmittance(reflectance) - SlabReading.READING_UNCERTAINTY);
                     }
                 }
             }
             Boolean total = r.geometry().map(g -> g.equals("total")).orElse(null);
-            Plan plan = new Plan(List.copyOf(clauses), r.thickness(), r.materialClass().orElse(null), total, loss);
+            Plan plan = new Plan(List.copyOf(clauses), r.thickness(), r.materialClass().orElse(null), total, loss,
+                    unresolved);
             plan.spans = plan.spans(store);
             return plan;
         }
@@ -510,6 +537,15 @@ public final class StoreSearch {
                 return NominalThickness.within(store.thicknessMm(curve), thickness.minMm(), thickness.maxMm());
             }
             return store.material(curve).made().within(thickness.minMm(), thickness.maxMm()) != null;
+        }
+
+        /**
+         * The far thickness ({@link SlabReading#farMm}) of a reading of OD {@code od0} at {@code d0} on a part
+         * whose two surfaces lose {@code surfaceLoss} decades: the exact model's rule, on the store's value.
+         */
+        static double farMm(double od0, double surfaceLoss, double d0) {
+            double reflectance = 1 - Math.pow(10, -surfaceLoss / 2);
+            return SlabReading.of(Math.pow(10, -od0), reflectance).farMm(d0);
         }
 
         boolean admits(SpectralStore store, int curve) {

@@ -54,7 +54,7 @@ class ThicknessRescalerTest {
             Curve rescaled = ThicknessRescaler.rescale(measured, 3, toMm, new ConstantIndex(1.49));
             assertThat(rescaled.belowDetectionFlags()).containsExactly(true, false, false);
             assertThat(rescaled.transmittance(0)).isLessThanOrEqualTo(rescaled.detectionLimit(0));
-            double expectedLimit = ThicknessRescaler.rescalePoint(0.001, Fresnel.reflectanceInAir(1.49), 3, toMm);
+            double expectedLimit = SlabReading.of(0.001, Fresnel.reflectanceInAir(1.49)).transmittance(3, toMm);
             assertThat(rescaled.detectionLimit(0)).isCloseTo(expectedLimit, within(1e-15));
         }
         Curve thicker = ThicknessRescaler.rescale(measured, 3, 6, new ConstantIndex(1.49));

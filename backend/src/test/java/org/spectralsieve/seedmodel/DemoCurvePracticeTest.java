@@ -14,6 +14,8 @@ import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.Arguments;
 import org.junit.jupiter.params.provider.MethodSource;
 import org.junit.jupiter.params.provider.ValueSource;
+import org.spectralsieve.optics.Fresnel;
+import org.spectralsieve.optics.SlabReading;
 import org.spectralsieve.optics.ThicknessRescaler;
 import org.spectralsieve.spectrum.Curve;
 import org.spectralsieve.spectrum.Cutoffs;
@@ -230,9 +232,21 @@ class DemoCurvePracticeTest {
         Curve three = curve("cast-acrylic-clear", 3);
         Curve six = curve("cast-acrylic-clear", 6);
         Curve rescaled = ThicknessRescaler.rescale(three, 3, 6, acrylic.index().toRefractiveIndex());
+        int resolved = 0;
         for (double nm = 360; nm <= 1100; nm += 20) {
-            assertThat(rescaled.transmittanceAt(nm).orElseThrow()).as(nm + " nm")
-                    .isCloseTo(six.transmittanceAt(nm).orElseThrow(), within(1e-5));
+            double r = Fresnel.reflectanceInAir(acrylic.index().toRefractiveIndex().at(nm));
+            double expected = six.transmittanceAt(nm).orElseThrow();
+            if (SlabReading.of(three.transmittanceAt(nm).orElseThrow(), r).resolved()) {
+                resolved++;
+                assertThat(rescaled.transmittanceAt(nm).orElseThrow()).as(nm + " nm").isCloseTo(expected, within(1e-5));
+            } else {
+                // a reading within 0.5 %T of the lossless ceiling shows no absorption a spectrophotometer can
+                // resolve: it is kept (docs/rescaling-model.md), within 0.01 decades of the modelled truth
+                assertThat(Math.abs(Math.log10(rescaled.transmittanceAt(nm).orElseThrow() / expected)))
+                        .as(nm + " nm").isLessThanOrEqualTo(SlabReading.RESOLVABLE_DECADES);
+                assertThat(rescaled.belowDetectionAt(nm)).as(nm + " nm").isFalse();
+            }
         }
+        assertThat(resolved).isGreaterThan(0);
     }
 }

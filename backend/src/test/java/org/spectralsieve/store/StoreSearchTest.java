@@ -7,9 +7,14 @@ import java.util.List;
 import java.util.Optional;
 import org.junit.jupiter.api.Test;
 import org.spectralsieve.optics.ConstantIndex;
+import org.spectralsieve.optics.Fresnel;
+import org.spectralsieve.optics.SlabReading;
 import org.spectralsieve.optics.Slab;
 import org.spectralsieve.requirement.Aggregate;
 import org.spectralsieve.requirement.Band;
+import org.spectralsieve.requirement.Candidate;
+import org.spectralsieve.requirement.SampleEvaluation;
+import org.spectralsieve.requirement.SampleEvaluator;
 import org.spectralsieve.requirement.Clause;
 import org.spectralsieve.requirement.CutoffClause;
 import org.spectralsieve.requirement.Direction;
@@ -124,6 +129,35 @@ class StoreSearchTest {
         assertThat(hit.verdict()).isEqualTo(Verdict.MEETS);
         assertThat(hit.thicknessRangeMm()[0]).isCloseTo((2 - s) / 0.5, within(0.01));
         assertThat(hit.thicknessRangeMm()[1]).isCloseTo(passIntercept / 0.01, within(0.05));
+    }
+
+    @Test
+    void aClearReadingKeepsItsValueNearItsThicknessAndIsOnlyABoundFarBeyondItAsInTheExactModel() {
+        // T = 0.95 on n = 1.5 (ceiling 2n/(n² + 1) = 0.9231, Smith eq. 10.6): no absorption the data can show,
+        // so the store keeps the reading (SlabReading) and, like the exact evaluator, calls a pass proven only
+        // up to the far thickness, where the hidden absorption reaches 0.01 decades
+        Curve clear = flat(0.95);
+        SpectralStore store = storeOf(clear, 2.0);
+        Candidate exact = new Candidate(1, 1, "Sample", clear, 2.0, true, new ConstantIndex(1.5));
+        double far = SlabReading.of(0.95, Fresnel.reflectanceInAir(1.5)).farMm(2.0);
+        assertThat(far).isBetween(6.0, 12.0); // about 4.4 times: u/T/ln 10 = 0.0023 decades per 2 mm
+
+        for (ThicknessSpec spec : List.of(ThicknessSpec.at(4), ThicknessSpec.at(far * 1.01), ThicknessSpec.at(40),
+                ThicknessSpec.range(1, 40))) {
+            Requirement r = requirement(spec, pass(0.9, 450), block(0.99, 600));
+            StoreHit hit = StoreSearch.search(store, r, 1).hits().get(0);
+            SampleEvaluation e = SampleEvaluator.evaluate(exact, r);
+
+            assertThat(hit.verdict()).as(spec.toString()).isEqualTo(e.verdict());
+            assertThat(hit.worstMarginDecades()).as(spec.toString()).isCloseTo(e.worstMarginDecades(), within(2e-3));
+        }
+        StoreHit range = StoreSearch.search(store, requirement(ThicknessSpec.range(1, 40), pass(0.9, 450)), 1)
+                .hits().get(0);
+        assertThat(range.verdict()).isEqualTo(Verdict.MEETS);
+        // the stored OD is quantized (OdCode): the far thickness follows to a few parts in 10⁴
+        assertThat(range.thicknessRangeMm()[1]).isCloseTo(far, within(far * 1e-3));
+        assertThat(StoreSearch.search(store, requirement(ThicknessSpec.at(40), pass(0.9, 450)), 1).hits().get(0)
+                .verdict()).isEqualTo(Verdict.UNVERIFIED);
     }
 
     @Test
