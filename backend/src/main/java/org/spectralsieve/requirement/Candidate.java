@@ -10,9 +10,16 @@ import org.spectralsieve.spectrum.Curve;
  * thickness (Beer–Lambert); a coating or laminate is not bulk and is only ever judged as measured.
  * {@code index} is needed for bulk samples (surface reflection is stripped before rescaling), may be null
  * otherwise.
+ *
+ * <p>{@code totalTransmittance}: the light judged includes diffusely scattered light (the sample, or a part
+ * in its light path, was measured in total geometry), so clauses about seeing through ({@link SeeThrough})
+ * cannot be judged on it unless the requirement accepts total transmittance. {@code notRescaledReason}:
+ * why a sample of an otherwise rescalable material is held at its measured thickness (diffuse or scattering
+ * samples: scatter is not absorption); null for the ordinary cases, where {@code bulk} alone decides. A
+ * sample with a reason is never bulk.
  */
 public record Candidate(long sampleId, long materialId, String materialName, Curve measured, double thicknessMm,
-                        boolean bulk, RefractiveIndex index) {
+                        boolean bulk, RefractiveIndex index, boolean totalTransmittance, String notRescaledReason) {
 
     public Candidate {
         Objects.requireNonNull(materialName, "materialName");
@@ -24,6 +31,16 @@ public record Candidate(long sampleId, long materialId, String materialName, Cur
         if (bulk && index == null) {
             throw new IllegalArgumentException("bulk sample " + sampleId + " needs a refractive index to be rescaled");
         }
+        if (bulk && notRescaledReason != null) {
+            throw new IllegalArgumentException("sample " + sampleId + " is marked bulk but also not rescaled ("
+                    + notRescaledReason + ")");
+        }
+    }
+
+    /** A regular-geometry sample whose rescaling the material's scaling alone decides. */
+    public Candidate(long sampleId, long materialId, String materialName, Curve measured, double thicknessMm,
+                     boolean bulk, RefractiveIndex index) {
+        this(sampleId, materialId, materialName, measured, thicknessMm, bulk, index, false, null);
     }
 
     public boolean thicknessKnown() {

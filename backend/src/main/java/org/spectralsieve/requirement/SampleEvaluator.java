@@ -26,6 +26,10 @@ import org.spectralsieve.spectrum.CurveException;
  * thickness above) and the layer ({@link CandidatePath}); where their measured ranges do not overlap,
  * every clause is UNVERIFIED with the reason.
  *
+ * <p>A diffuse or scattering sample ({@link Candidate#notRescaledReason()}) is held at its measured thickness
+ * like a fixed layer, with its own reason; a see-through clause on total transmittance is UNVERIFIED unless
+ * the requirement accepts it ({@link SeeThrough}).
+ *
  * <p>A sample without a recorded thickness is judged as measured in AS_MEASURED and UNVERIFIED otherwise.
  * The clause verdicts always come from {@link ClauseEvaluator} on the curve actually judged.
  */
@@ -57,7 +61,7 @@ public final class SampleEvaluator {
         }
         CandidatePath path = new CandidatePath(candidate, layer);
         try {
-            return evaluate(path, requirement);
+            return seenThrough(candidate, requirement, evaluate(path, requirement));
         } catch (CurveException e) {
             if (!path.stacked()) {
                 throw e;
@@ -93,8 +97,9 @@ public final class SampleEvaluator {
             return judged(candidate.sampleId(), d0, null, clauses, path.asMeasured());
         }
         if (!candidate.bulk()) {
-            return unverified(candidate.sampleId(), d0, clauses, "fixed layer measured at " + Wording.mm(d0)
-                    + " cannot be rescaled to " + Wording.mm(asked));
+            return unverified(candidate.sampleId(), d0, clauses, candidate.notRescaledReason() != null
+                    ? candidate.notRescaledReason() + " (measured at " + Wording.mm(d0) + ", asked " + Wording.mm(asked) + ")"
+                    : "fixed layer measured at " + Wording.mm(d0) + " cannot be rescaled to " + Wording.mm(asked));
         }
         return judged(candidate.sampleId(), asked, null, clauses, path.at(asked));
     }
@@ -107,9 +112,11 @@ public final class SampleEvaluator {
             if (d0 >= min - SAME_THICKNESS_MM && d0 <= max + SAME_THICKNESS_MM) {
                 return judged(candidate.sampleId(), d0, null, clauses, path.asMeasured());
             }
-            return unverified(candidate.sampleId(), d0, clauses, "fixed layer measured at " + Wording.mm(d0)
-                    + " lies outside " + Wording.mmSpan(min, max)
-                    + " and cannot be rescaled");
+            return unverified(candidate.sampleId(), d0, clauses, candidate.notRescaledReason() != null
+                    ? candidate.notRescaledReason() + " (measured at " + Wording.mm(d0) + ", outside "
+                            + Wording.mmSpan(min, max) + ")"
+                    : "fixed layer measured at " + Wording.mm(d0) + " lies outside " + Wording.mmSpan(min, max)
+                            + " and cannot be rescaled");
         }
         boolean onPath = !requirement.plain();
         ThicknessSolver.Solution solution = onPath
@@ -124,6 +131,29 @@ public final class SampleEvaluator {
             return SampleEvaluation.of(candidate.sampleId(), d, null, evaluation.clauses());
         }
         return evaluation;
+    }
+
+    /**
+     * A see-through clause judged on total transmittance is UNVERIFIED unless the requirement accepts total
+     * transmittance ({@link SeeThrough}); the figure stays in the explanation, with no margin to rank by.
+     */
+    private static SampleEvaluation seenThrough(Candidate candidate, Requirement requirement, SampleEvaluation judged) {
+        if (!candidate.totalTransmittance() || requirement.acceptsTotalTransmittance()) {
+            return judged;
+        }
+        List<ClauseResult> results = new ArrayList<>(judged.clauses().size());
+        boolean changed = false;
+        for (ClauseResult r : judged.clauses()) {
+            if (SeeThrough.needsRegular(r.clause()) && r.verdict() != Verdict.UNVERIFIED) {
+                results.add(new ClauseResult(r.clause(), r.value(), r.threshold(), Double.NaN, Verdict.UNVERIFIED,
+                        SeeThrough.REASON + " (on total transmittance: " + r.explanation() + ")", r.valueIsBound()));
+                changed = true;
+            } else {
+                results.add(r);
+            }
+        }
+        // no thickness is proven feasible while a clause is unverified
+        return changed ? SampleEvaluation.of(judged.sampleId(), judged.thicknessMm(), null, results) : judged;
     }
 
     private static boolean meets(List<Clause> clauses, Curve curve) {

@@ -11,9 +11,10 @@ import java.util.Optional;
 import java.util.Set;
 import java.util.concurrent.atomic.AtomicReference;
 import org.spectralsieve.library.JooqLibraryRepository;
+import org.spectralsieve.library.Geometry;
 import org.spectralsieve.library.Material;
 import org.spectralsieve.library.SampleInfo;
-import org.spectralsieve.library.Scaling;
+import org.spectralsieve.library.SampleRescaling;
 import org.spectralsieve.requirement.Aggregate;
 import org.spectralsieve.requirement.Candidate;
 import org.spectralsieve.requirement.Direction;
@@ -81,21 +82,30 @@ public class SearchService {
         List<MaterialEvaluation> exact = new ArrayList<>();
         for (long materialId : materialIds) {
             Material material = s.materials().get(materialId);
-            exact.addAll(judge(material, requirement, Optional.empty()));
+            exact.addAll(judge(material, requirement, Optional.empty(), false));
         }
         List<RankedRow> rows = Ranking.rank(exact, limit);
         double tookMs = (System.nanoTime() - started) / 1e6;
-        return new Shortlist(requirement, rows, picked.evaluatedSamples(), exact.size(), tookMs, Optional.empty());
+        return new Shortlist(requirement, rows, picked.evaluatedSamples(), exact.size(), tookMs, Optional.empty(),
+                geometries(s, rows));
     }
 
-    /** Every admitted sample of the material, judged exactly on its stored curve (not the store's quantized copy). */
-    private List<MaterialEvaluation> judge(Material material, Requirement requirement, Optional<StackLayer> layer) {
+    /**
+     * Every admitted sample of the material, judged exactly on its stored curve (not the store's quantized copy).
+     *
+     * @param diffuseLayer the requirement's fixed layer was measured in total geometry, so the light of every
+     *                     path includes scatter
+     */
+    private List<MaterialEvaluation> judge(Material material, Requirement requirement, Optional<StackLayer> layer,
+                                           boolean diffuseLayer) {
         List<MaterialEvaluation> out = new ArrayList<>();
         for (SampleInfo sample : material.samples()) {
             if (admits(requirement, material, sample)) {
                 Curve curve = library.findCurve(sample.id()).orElseThrow();
+                SampleRescaling rescaling = SampleRescaling.of(material, sample);
                 Candidate candidate = new Candidate(sample.id(), material.id(), material.name(), curve,
-                        sample.thicknessMm(), material.scaling() == Scaling.BULK, material.refractiveIndex());
+                        sample.thicknessMm(), rescaling.rescalable(), material.refractiveIndex(),
+                        sample.geometry() == Geometry.TOTAL || diffuseLayer, rescaling.reason());
                 out.add(MaterialEvaluation.of(candidate, SampleEvaluator.evaluate(candidate, requirement, layer)));
             }
         }
@@ -110,6 +120,7 @@ public class SearchService {
      */
     private Shortlist searchExactly(Snapshot s, Requirement requirement, int limit, long started) {
         Optional<StackLayer> layer = requirement.layer().map(l -> resolveLayer(l, s));
+        boolean diffuseLayer = layer.map(l -> s.samples().get(l.sampleId()).geometry() == Geometry.TOTAL).orElse(false);
         Map<Long, Double> provenMiss = provenMisses(s, requirement, layer);
         List<MaterialEvaluation> exact = new ArrayList<>();
         Map<Material, Double> held = new LinkedHashMap<>();
@@ -133,7 +144,7 @@ public class SearchService {
             if (allMiss) {
                 held.put(material, bound);
             } else {
-                exact.addAll(judge(material, requirement, layer));
+                exact.addAll(judge(material, requirement, layer, diffuseLayer));
             }
         }
         List<RankedRow> rows = Ranking.rank(exact, limit);
@@ -143,11 +154,11 @@ public class SearchService {
             if (!couldEnter(rows, limit, entry.getValue())) {
                 break; // bounds only fall from here on
             }
-            exact.addAll(judge(entry.getKey(), requirement, layer));
+            exact.addAll(judge(entry.getKey(), requirement, layer, diffuseLayer));
             rows = Ranking.rank(exact, limit);
         }
         double tookMs = (System.nanoTime() - started) / 1e6;
-        return new Shortlist(requirement, rows, admitted, exact.size(), tookMs, layer);
+        return new Shortlist(requirement, rows, admitted, exact.size(), tookMs, layer, geometries(s, rows));
     }
 
     /** Whether a material that misses with a worst margin of at most {@code bound} could take a place in the rows. */
@@ -207,7 +218,7 @@ public class SearchService {
      * Whether a miss proven on the measured curve stays proven at the thickness the sample is judged at:
      * T falls as a bulk sample thickens, so a pass stays missed when judged at or above the measured
      * thickness and a block when judged at or below it; a fixed part only at its own thickness (elsewhere
-     * it is unverified, not missed).
+     * it is unverified, not missed); so is a diffuse or scattering sample ({@link SampleRescaling}).
      */
     private static boolean keepsProof(Direction direction, ThicknessSpec spec, Material material, SampleInfo sample) {
         double d0 = sample.thicknessMm();
@@ -218,7 +229,7 @@ public class SearchService {
         if (!(d0 > 0)) {
             return false;
         }
-        if (material.scaling() != Scaling.BULK) {
+        if (!SampleRescaling.of(material, sample).rescalable()) {
             return spec.kind() == ThicknessSpec.Kind.FIXED ? Math.abs(spec.minMm() - d0) <= same
                     : d0 >= spec.minMm() - same && d0 <= spec.maxMm() + same;
         }
@@ -244,12 +255,22 @@ public class SearchService {
         SampleInfo sample = match.sample();
         Curve curve = library.findCurve(sample.id()).orElseThrow();
         return StackLayer.of(layer, m.id(), m.name(), m.slug(), sample.id(), curve, sample.thicknessMm(),
-                m.scaling() == Scaling.BULK, m.refractiveIndex());
+                SampleRescaling.of(m, sample).rescalable(), m.refractiveIndex());
     }
 
     private static boolean admits(Requirement r, Material m, SampleInfo s) {
         return r.materialClass().map(c -> c.equals(m.materialClass().label())).orElse(true)
-                && r.geometry().map(g -> g.equals(s.geometry().label())).orElse(true);
+                && r.admitsGeometry(s.geometry().label());
+    }
+
+    /** Sample id → geometry label ("regular" or "total") of every row's sample, for the answer to show. */
+    private static Map<Long, String> geometries(Snapshot s, List<RankedRow> rows) {
+        Map<Long, String> out = new HashMap<>();
+        for (RankedRow row : rows) {
+            long id = row.evaluation().sampleId();
+            out.put(id, s.samples().get(id).geometry().label());
+        }
+        return out;
     }
 
     /** Drops the derived store; the next search rebuilds it from the database. Call after every committed import. */
@@ -283,8 +304,9 @@ public class SearchService {
             m.samples().forEach(sample -> sampleById.put(sample.id(), sample));
             StoredMaterial stored = new StoredMaterial(m.id(), m.name(), m.materialClass().label());
             for (SampleInfo sample : m.samples()) {
-                builder.add(sample.id(), stored, sample.thicknessMm(), m.scaling() == Scaling.BULK,
-                        sample.geometry() == org.spectralsieve.library.Geometry.TOTAL, m.refractiveIndex(),
+                // the store rescales exactly what the exact evaluator rescales: never a diffuse or scattering sample
+                builder.add(sample.id(), stored, sample.thicknessMm(), SampleRescaling.of(m, sample).rescalable(),
+                        sample.geometry() == Geometry.TOTAL, m.refractiveIndex(),
                         curves.get(sample.id()));
             }
         }

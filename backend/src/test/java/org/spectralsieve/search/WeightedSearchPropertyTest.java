@@ -11,7 +11,8 @@ import org.junit.jupiter.api.Test;
 import org.spectralsieve.library.JooqLibraryRepository;
 import org.spectralsieve.library.Material;
 import org.spectralsieve.library.SampleInfo;
-import org.spectralsieve.library.Scaling;
+import org.spectralsieve.library.Geometry;
+import org.spectralsieve.library.SampleRescaling;
 import org.spectralsieve.requirement.Candidate;
 import org.spectralsieve.requirement.MaterialEvaluation;
 import org.spectralsieve.requirement.RankedRow;
@@ -85,10 +86,15 @@ class WeightedSearchPropertyTest {
         for (Material m : materials) {
             for (SampleInfo s : m.samples()) {
                 boolean admitted = requirement.materialClass().map(c -> c.equals(m.materialClass().label())).orElse(true)
-                        && requirement.geometry().map(g -> g.equals(s.geometry().label())).orElse(true);
+                        && requirement.admitsGeometry(s.geometry().label());
                 if (admitted) {
+                    // the shared rule: diffuse and scattering samples are held at their measured thickness
+                    SampleRescaling rescaling = SampleRescaling.of(m, s);
+                    boolean diffuseLayer = layer.map(l -> library.findSample(l.sampleId()).orElseThrow().geometry()
+                            == Geometry.TOTAL).orElse(false);
                     Candidate c = new Candidate(s.id(), m.id(), m.name(), library.findCurve(s.id()).orElseThrow(),
-                            s.thicknessMm(), m.scaling() == Scaling.BULK, m.refractiveIndex());
+                            s.thicknessMm(), rescaling.rescalable(), m.refractiveIndex(),
+                            s.geometry() == Geometry.TOTAL || diffuseLayer, rescaling.reason());
                     all.add(MaterialEvaluation.of(c, SampleEvaluator.evaluate(c, requirement, layer)));
                 }
             }
