@@ -3,6 +3,7 @@ package org.spectralsieve.search;
 import java.util.ArrayList;
 import java.util.Comparator;
 import java.util.HashMap;
+import java.util.HashSet;
 import java.util.LinkedHashMap;
 import java.util.LinkedHashSet;
 import java.util.List;
@@ -24,6 +25,7 @@ import org.spectralsieve.requirement.RankedRow;
 import org.spectralsieve.requirement.Ranking;
 import org.spectralsieve.requirement.Requirement;
 import org.spectralsieve.requirement.SampleEvaluator;
+import org.spectralsieve.requirement.SeeThrough;
 import org.spectralsieve.requirement.StackLayer;
 import org.spectralsieve.requirement.ThicknessSpec;
 import org.spectralsieve.requirement.TransmittanceClause;
@@ -84,7 +86,7 @@ public class SearchService {
             Material material = s.materials().get(materialId);
             exact.addAll(judge(material, requirement, Optional.empty(), false));
         }
-        List<RankedRow> rows = Ranking.rank(exact, limit);
+        List<RankedRow> rows = rank(s, requirement, exact, limit);
         double tookMs = (System.nanoTime() - started) / 1e6;
         return new Shortlist(requirement, rows, picked.evaluatedSamples(), exact.size(), tookMs, Optional.empty(),
                 geometries(s, rows));
@@ -147,18 +149,63 @@ public class SearchService {
                 exact.addAll(judge(material, requirement, layer, diffuseLayer));
             }
         }
-        List<RankedRow> rows = Ranking.rank(exact, limit);
+        List<RankedRow> rows = rank(s, requirement, exact, limit);
         List<Map.Entry<Material, Double>> byBound = new ArrayList<>(held.entrySet());
         byBound.sort(Map.Entry.<Material, Double>comparingByValue().reversed());
+        boolean grouped = diffuseLast(requirement);
         for (Map.Entry<Material, Double> entry : byBound) {
-            if (!couldEnter(rows, limit, entry.getValue())) {
+            // grouped: a material with a regular sample competes only with the regular rows, which come first
+            boolean regular = grouped && entry.getKey().samples().stream()
+                    .anyMatch(x -> admits(requirement, entry.getKey(), x) && x.geometry() == Geometry.REGULAR);
+            List<RankedRow> competing = regular ? Ranking.rank(regularOnly(s, exact), limit) : rows;
+            if (!couldEnter(competing, limit, entry.getValue())) {
+                if (grouped) {
+                    continue; // the two groups' bounds are not ordered together
+                }
                 break; // bounds only fall from here on
             }
             exact.addAll(judge(entry.getKey(), requirement, layer, diffuseLayer));
-            rows = Ranking.rank(exact, limit);
+            rows = rank(s, requirement, exact, limit);
         }
         double tookMs = (System.nanoTime() - started) / 1e6;
         return new Shortlist(requirement, rows, admitted, exact.size(), tookMs, layer, geometries(s, rows));
+    }
+
+    /**
+     * The ranked rows. When the requirement has a see-through clause and does not accept total transmittance
+     * ({@link SeeThrough}), samples measured in total geometry cannot show what it asks: their rows follow
+     * every row judged in regular geometry, so a diffuser that misses a block clause by less never heads a
+     * list of sheets to see through. Otherwise one ranking ({@link Ranking}).
+     */
+    private static List<RankedRow> rank(Snapshot s, Requirement requirement, List<MaterialEvaluation> exact, int limit) {
+        if (!diffuseLast(requirement)) {
+            return Ranking.rank(exact, limit);
+        }
+        List<MaterialEvaluation> regular = regularOnly(s, exact);
+        List<RankedRow> rows = new ArrayList<>(Ranking.rank(regular, limit));
+        if (rows.size() < limit) {
+            Set<Long> ranked = new HashSet<>();
+            regular.forEach(e -> ranked.add(e.materialId()));
+            List<MaterialEvaluation> diffuse = exact.stream()
+                    .filter(e -> !ranked.contains(e.materialId()) && !isRegular(s, e)).toList();
+            for (RankedRow row : Ranking.rank(diffuse, limit - rows.size())) {
+                rows.add(new RankedRow(rows.size() + 1, row.materialId(), row.materialName(), row.evaluation()));
+            }
+        }
+        return List.copyOf(rows);
+    }
+
+    /** Whether total-geometry rows go after the regular ones (see {@link #rank}). */
+    private static boolean diffuseLast(Requirement requirement) {
+        return !requirement.acceptsTotalTransmittance() && requirement.clauses().stream().anyMatch(SeeThrough::needsRegular);
+    }
+
+    private static List<MaterialEvaluation> regularOnly(Snapshot s, List<MaterialEvaluation> exact) {
+        return exact.stream().filter(e -> isRegular(s, e)).toList();
+    }
+
+    private static boolean isRegular(Snapshot s, MaterialEvaluation e) {
+        return s.samples().get(e.evaluation().sampleId()).geometry() == Geometry.REGULAR;
     }
 
     /** Whether a material that misses with a worst margin of at most {@code bound} could take a place in the rows. */

@@ -8,10 +8,10 @@ import java.util.Locale;
 import java.util.Optional;
 import java.util.Random;
 import org.junit.jupiter.api.Test;
+import org.spectralsieve.library.Geometry;
 import org.spectralsieve.library.JooqLibraryRepository;
 import org.spectralsieve.library.Material;
 import org.spectralsieve.library.SampleInfo;
-import org.spectralsieve.library.Geometry;
 import org.spectralsieve.library.SampleRescaling;
 import org.spectralsieve.requirement.Candidate;
 import org.spectralsieve.requirement.MaterialEvaluation;
@@ -99,7 +99,32 @@ class WeightedSearchPropertyTest {
                 }
             }
         }
-        return Ranking.rank(all, limit);
+        return groupDiffuseLast(requirement, all, limit);
+    }
+
+    /**
+     * The documented order (docs/geometry-and-edges.md): with a see-through clause not accepting total
+     * transmittance, materials with a regular-geometry sample rank first, the rest after them.
+     */
+    private List<RankedRow> groupDiffuseLast(Requirement requirement, List<MaterialEvaluation> all, int limit) {
+        boolean seeThrough = requirement.clauses().stream().anyMatch(c -> c.text().startsWith("luminous"));
+        if (!seeThrough || requirement.acceptsTotalTransmittance()) {
+            return Ranking.rank(all, limit);
+        }
+        List<MaterialEvaluation> regular = new ArrayList<>();
+        List<MaterialEvaluation> total = new ArrayList<>();
+        for (MaterialEvaluation e : all) {
+            boolean isTotal = library.findSample(e.evaluation().sampleId()).orElseThrow().geometry() == Geometry.TOTAL;
+            (isTotal ? total : regular).add(e);
+        }
+        List<RankedRow> rows = new ArrayList<>(Ranking.rank(regular, limit));
+        java.util.Set<Long> first = new java.util.HashSet<>();
+        regular.forEach(e -> first.add(e.materialId()));
+        for (RankedRow row : Ranking.rank(total.stream().filter(e -> !first.contains(e.materialId())).toList(),
+                limit - rows.size())) {
+            rows.add(new RankedRow(rows.size() + 1, row.materialId(), row.materialName(), row.evaluation()));
+        }
+        return rows;
     }
 
     private static String randomRequirement(Random random) {
