@@ -95,7 +95,11 @@ export function initSearch(ui) {
     }
     const items = [...requirement.clauses.map(clauseSummary), fmt.thicknessSummary(requirement.thickness)];
     if (requirement.materialClass) items.push(`class: ${requirement.materialClass}`);
-    if (requirement.geometry) items.push(`geometry: ${requirement.geometry}`);
+    if (requirement.geometry) {
+      items.push(requirement.geometry === 'any'
+        ? 'geometry: regular or total (total transmittance accepted for seeing through)'
+        : `geometry: ${requirement.geometry}${requirement.geometry === 'total' ? ' (total transmittance accepted)' : ''}`);
+    }
     if (requirement.layer) items.push(layerSummary(requirement.layer));
     dom.clauses.replaceChildren(...items.map((text, i) => {
       const li = document.createElement('li');

@@ -70,6 +70,19 @@ class GeometryAndEdgesApiTest {
     }
 
     @Test
+    void geometryAnyAdmitsBothGeometriesInTheStoresOwnSearch() throws Exception {
+        // a plain requirement goes through the in-memory store: "any" must not filter like "total" or "regular"
+        String plain = "passes over 20% at 254 nm";
+        int regularOnly = search(plain + ", geometry regular", 200).path("evaluatedSamples").asInt();
+        int totalOnly = search(plain + ", geometry total", 200).path("evaluatedSamples").asInt();
+
+        int any = search(plain + ", geometry any", 200).path("evaluatedSamples").asInt();
+
+        assertThat(totalOnly).isPositive();
+        assertThat(any).isEqualTo(regularOnly + totalOnly).isEqualTo(search(plain, 200).path("evaluatedSamples").asInt());
+    }
+
+    @Test
     void aDiffuseSampleIsJudgedOnlyAtItsMeasuredThicknessWithTheReason() throws Exception {
         // PTFE sheet is stored at 0.5 and 1 mm in total geometry; 2 mm would need Beer–Lambert on scatter ([S47])
         JsonNode results = search("passes over 20% at 254 nm, at 2 mm, geometry total", 30).path("results");
