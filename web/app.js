@@ -186,6 +186,24 @@ function transmittanceCell(sample, wl) {
   return cell(fmt.percentNumber(t), 'num');
 }
 
+/**
+ * The UV absorption edge at a level (where T rises through it out of the absorbing UV), followed by the end
+ * of that pass band for a band-pass sample: "309–386" for UV-pass black glass at 50 %.
+ */
+function edgeCell(sample, level) {
+  const edge = sample.cutoffsNm?.[level];
+  const end = sample.passBandEndsNm?.[level];
+  if (edge === null || edge === undefined) {
+    return cell('—', 'num muted', `T does not rise through ${level} % out of an absorbing region in the measured range`);
+  }
+  if (end === null || end === undefined) {
+    return cell(fmt.nanometres(edge), 'num', `UV absorption edge: T rises through ${level} % here and stays over it`);
+  }
+  return cell(`${fmt.nanometres(edge)}–${fmt.nanometres(end)}`, 'num band-pass',
+    `pass band: T rises through ${level} % at ${fmt.nanometres(edge)} nm (UV absorption edge) `
+    + `and falls back under it at ${fmt.nanometres(end)} nm`);
+}
+
 function renderSamples(material) {
   const columns = 3 + fmt.CUTOFF_LEVELS.length + fmt.REPORT_WAVELENGTHS_NM.length + 1;
   const rows = material.samples.flatMap((s, i) => {
@@ -197,12 +215,7 @@ function renderSamples(material) {
     swatch.style.background = SAMPLE_COLOURS[i % SAMPLE_COLOURS.length];
     thick.prepend(swatch);
     tr.append(thick, cell(s.geometry), cell(s.provenance, `provenance ${s.provenance}`));
-    for (const level of fmt.CUTOFF_LEVELS) {
-      const nm = s.cutoffsNm?.[level];
-      tr.append(nm === null || nm === undefined
-        ? cell('—', 'num muted', `T does not cross ${level} % in the measured range`)
-        : cell(fmt.nanometres(nm), 'num'));
-    }
+    for (const level of fmt.CUTOFF_LEVELS) tr.append(edgeCell(s, level));
     for (const wl of fmt.REPORT_WAVELENGTHS_NM) tr.append(transmittanceCell(s, wl));
     const link = document.createElement('a');
     link.href = api.curveCsvUrl(s.id);
@@ -319,15 +332,27 @@ function setupRescale(material) {
   dom.rescaleFrom.replaceChildren(...material.samples.map((s) => {
     const option = document.createElement('option');
     option.value = s.id;
-    option.textContent = `from ${sampleLabel(s)}`;
+    // a diffuse or scattering sample of a bulk material is held at its measured thickness; the server says why
+    option.disabled = material.scaling !== 'fixed' && s.rescalable === false;
+    option.textContent = `from ${sampleLabel(s)}${option.disabled ? ' (not rescaled)' : ''}`;
+    if (s.notRescaledReason) option.title = s.notRescaledReason;
     return option;
   }));
   dom.rescaleMm.value = '';
   dom.rescaleMm.title = '';
+  const held = material.samples.find((s) => s.notRescaledReason);
+  if (material.scaling !== 'fixed' && material.samples.length && !material.samples.some((s) => s.rescalable !== false)) {
+    setRescaleEnabled(false);
+    dom.rescaleNote.textContent = `Rescaling unavailable: ${held ? held.notRescaledReason : 'no sample can be rescaled'}.`;
+    return;
+  }
   if (material.scaling !== 'fixed' && material.samples.length) {
+    const first = material.samples.find((s) => s.rescalable !== false);
+    if (first) dom.rescaleFrom.value = String(first.id);
     setRescaleEnabled(true);
     dom.rescaleNote.textContent = 'Bulk material: the curve is rescaled by the server (surface reflection '
-      + 'kept, absorption scaled with path length).';
+      + 'kept, absorption scaled with path length).'
+      + (held ? ` Samples marked “not rescaled”: ${held.notRescaledReason}.` : '');
     return;
   }
   setRescaleEnabled(false);

@@ -95,7 +95,11 @@ export function initSearch(ui) {
     }
     const items = [...requirement.clauses.map(clauseSummary), fmt.thicknessSummary(requirement.thickness)];
     if (requirement.materialClass) items.push(`class: ${requirement.materialClass}`);
-    if (requirement.geometry) items.push(`geometry: ${requirement.geometry}`);
+    if (requirement.geometry) {
+      items.push(requirement.geometry === 'any'
+        ? 'geometry: regular or total (total transmittance accepted for seeing through)'
+        : `geometry: ${requirement.geometry}${requirement.geometry === 'total' ? ' (total transmittance accepted)' : ''}`);
+    }
     if (requirement.layer) items.push(layerSummary(requirement.layer));
     dom.clauses.replaceChildren(...items.map((text, i) => {
       const li = document.createElement('li');
@@ -241,7 +245,7 @@ export function initSearch(ui) {
     if (!rows.length) {
       const tr = document.createElement('tr');
       const td = document.createElement('td');
-      td.colSpan = 7;
+      td.colSpan = 8;
       td.className = 'empty';
       td.textContent = 'No sample in the library can be judged against this requirement.';
       tr.append(td);
@@ -292,6 +296,7 @@ export function initSearch(ui) {
       material,
       verdictCell(result.verdict),
       thicknessCell(result),
+      geometryCell(result.geometry),
       cell(fmt.signedDecades(result.worstMarginDecades), 'num margin'),
       cell(result.bindingClause || '—', result.bindingClause ? 'binding' : 'muted'),
       toggleCell,
@@ -304,7 +309,7 @@ export function initSearch(ui) {
     tr.className = 'result-clauses';
     tr.hidden = true;
     const td = document.createElement('td');
-    td.colSpan = 7;
+    td.colSpan = 8;
     const table = document.createElement('table');
     table.className = 'data-table clause-table';
     const head = document.createElement('thead');
@@ -394,6 +399,18 @@ function layerSummary(layer) {
 /** Whether any clause asks for light to be kept out: then a safety caution belongs next to the results. */
 function blocksLight(requirement) {
   return requirement.clauses.some((c) => c.direction === 'block' || c.unit === 'opticalDensity');
+}
+
+/** How the row's sample was measured: "regular" (direct beam, see-through) or "total" (scattered light included). */
+function geometryCell(geometry) {
+  const td = cell(geometry || '—', geometry === 'total' ? 'geometry diffuse' : 'geometry');
+  if (geometry === 'total') {
+    td.title = 'diffuse sample: total transmittance includes scattered light; not rescaled with thickness, '
+      + 'and not see-through unless the requirement says “geometry any”';
+  } else if (geometry === 'regular') {
+    td.title = 'regular transmittance: the direct beam only';
+  }
+  return td;
 }
 
 function thicknessText(result) {

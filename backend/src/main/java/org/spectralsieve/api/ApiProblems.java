@@ -98,7 +98,7 @@ class ApiProblems extends ResponseEntityExceptionHandler {
 
     @ExceptionHandler(NotRescalableException.class)
     ProblemDetail notRescalable(NotRescalableException e) {
-        ProblemDetail problem = problem(HttpStatus.BAD_REQUEST, "Layer cannot be rescaled", e.getMessage(), "not-rescalable");
+        ProblemDetail problem = problem(HttpStatus.BAD_REQUEST, "Sample cannot be rescaled", e.getMessage(), "not-rescalable");
         problem.setProperty("parameter", "thicknessMm");
         return problem;
     }

@@ -4,6 +4,7 @@ import java.util.List;
 import org.spectralsieve.api.MaterialResponses.MaterialDetail;
 import org.spectralsieve.api.MaterialResponses.MaterialSummary;
 import org.spectralsieve.api.MaterialResponses.SampleDetail;
+import org.spectralsieve.library.SampleRescaling;
 import org.spectralsieve.library.JooqLibraryRepository;
 import org.spectralsieve.library.Material;
 import org.spectralsieve.library.NotFoundException;
@@ -39,7 +40,7 @@ class MaterialController {
         Material material = library.findMaterial(id).orElseThrow(() -> new NotFoundException("material", id));
         List<SampleDetail> samples = material.samples().stream().map(s -> {
             Curve curve = library.findCurve(s.id()).orElseThrow(() -> new NotFoundException("curve of sample", s.id()));
-            return SampleDetail.of(s, curve);
+            return SampleDetail.of(s, curve, SampleRescaling.of(material, s));
         }).toList();
         return MaterialDetail.of(material, samples);
     }

@@ -10,6 +10,7 @@ import org.spectralsieve.library.StatedThicknessesJson;
 import org.spectralsieve.requirement.MadeThicknesses;
 import org.spectralsieve.search.SearchService;
 import org.spectralsieve.library.SampleInfo;
+import org.spectralsieve.library.SampleRescaling;
 import org.spectralsieve.spectrum.Curve;
 import org.spectralsieve.spectrum.Cutoffs;
 
@@ -56,15 +57,28 @@ final class MaterialResponses {
         return json;
     }
 
+    /**
+     * One sample with what a reader asks first. {@code cutoffsNm}: per level (1, 10, 50 %), the UV absorption
+     * edge, where T rises through the level out of the absorbing short-wavelength side ({@link Cutoffs}; the
+     * same wavelength a requirement's "cutoff between …" clause judges). {@code passBandEndsNm}: per level,
+     * where that first pass band falls back under the level (a band-pass material such as UV-pass black
+     * glass or a green tinted sheet); null for a long-pass curve. {@code rescalable}: whether the curve may
+     * be rescaled to another thickness; {@code notRescaledReason} says why not for a sample of a bulk
+     * material (a diffuse or scattering sample, {@link SampleRescaling}).
+     */
     record SampleDetail(long id, double thicknessMm, String geometry, String provenance, String instrument,
                         String measuredOn, String lot, String notes, double detectionLimit, List<Double> rangeNm,
-                        Map<String, Double> cutoffsNm, Map<String, Double> transmittanceAt,
-                        Map<String, Boolean> belowDetectionAt) {
+                        Map<String, Double> cutoffsNm, Map<String, Double> passBandEndsNm,
+                        Map<String, Double> transmittanceAt, Map<String, Boolean> belowDetectionAt,
+                        boolean rescalable, String notRescaledReason) {
 
-        static SampleDetail of(SampleInfo s, Curve curve) {
+        static SampleDetail of(SampleInfo s, Curve curve, SampleRescaling rescaling) {
             Map<String, Double> cutoffs = new LinkedHashMap<>();
+            Map<String, Double> bandEnds = new LinkedHashMap<>();
             for (int level : CUTOFF_LEVELS_PERCENT) {
-                cutoffs.put(String.valueOf(level), orNull(Cutoffs.cutoffNm(curve, level / 100.0)));
+                Cutoffs.Edges edges = Cutoffs.edges(curve, level / 100.0);
+                cutoffs.put(String.valueOf(level), orNull(edges.absorptionEdgeNm()));
+                bandEnds.put(String.valueOf(level), orNull(edges.passBandEndNm()));
             }
             Map<String, Double> at = new LinkedHashMap<>();
             Map<String, Boolean> below = new LinkedHashMap<>();
@@ -75,7 +89,8 @@ final class MaterialResponses {
             }
             return new SampleDetail(s.id(), s.thicknessMm(), s.geometry().label(), s.provenance().label(),
                     s.instrument(), s.measuredOn() == null ? null : s.measuredOn().toString(), s.lot(), s.notes(),
-                    s.detectionLimit(), List.of(curve.minWavelengthNm(), curve.maxWavelengthNm()), cutoffs, at, below);
+                    s.detectionLimit(), List.of(curve.minWavelengthNm(), curve.maxWavelengthNm()), cutoffs, bandEnds, at,
+                    below, rescaling.rescalable(), rescaling.reason());
         }
     }
 

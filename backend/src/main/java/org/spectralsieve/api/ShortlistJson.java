@@ -32,7 +32,7 @@ public final class ShortlistJson {
         json.put("requirement", RequirementJson.toJson(shortlist.requirement()));
         caution(shortlist.requirement()).ifPresent(c -> json.put("caution", c));
         shortlist.layer().ifPresent(layer -> json.put("layer", layer(layer)));
-        json.put("results", shortlist.rows().stream().map(ShortlistJson::row).toList());
+        json.put("results", shortlist.rows().stream().map(r -> row(r, shortlist.geometry(r))).toList());
         json.put("evaluatedSamples", shortlist.evaluatedSamples());
         json.put("judgedExactly", shortlist.judgedExactly());
         json.put("tookMs", Math.round(shortlist.tookMs() * 1000) / 1000.0);
@@ -60,13 +60,15 @@ public final class ShortlistJson {
         return json;
     }
 
-    static Map<String, Object> row(RankedRow row) {
+    /** @param geometry how the row's sample was measured: "regular" (direct beam) or "total" (with scatter) */
+    static Map<String, Object> row(RankedRow row, String geometry) {
         SampleEvaluation e = row.evaluation();
         Map<String, Object> json = new LinkedHashMap<>();
         json.put("rank", row.position());
         json.put("materialId", row.materialId());
         json.put("materialName", row.materialName());
         json.put("sampleId", e.sampleId());
+        json.put("geometry", geometry);
         json.put("verdict", e.verdict().name().toLowerCase(Locale.ROOT));
         json.put("thicknessMm", finiteOrNull(e.thicknessMm()));
         json.put("thicknessRangeMm", e.feasibleMm() == null ? null : List.of(e.feasibleMm().loMm(), e.feasibleMm().hiMm()));

@@ -3,6 +3,7 @@ package org.spectralsieve.cli;
 import java.util.Arrays;
 import java.util.List;
 import java.util.Locale;
+import java.util.OptionalDouble;
 import java.util.concurrent.Callable;
 import org.spectralsieve.library.NotFoundException;
 import org.spectralsieve.library.NotRescalableException;
@@ -12,6 +13,7 @@ import org.spectralsieve.requirement.StackLayer;
 import org.spectralsieve.search.PartInFront;
 import org.spectralsieve.search.SearchService;
 import org.spectralsieve.spectrum.Curve;
+import org.spectralsieve.spectrum.Cutoffs;
 import org.spectralsieve.weighting.Emitter;
 import org.spectralsieve.weighting.EmitterCatalogue;
 import org.spectralsieve.weighting.Figure;
@@ -74,6 +76,7 @@ final class FiguresCommand implements Callable<Integer> {
     String solarName;
 
     private String stackText;
+    private Curve seenCurve;
 
     @Override
     public Integer call() {
@@ -107,6 +110,7 @@ final class FiguresCommand implements Callable<Integer> {
                 }
             }
             sheet = FigureSheet.of(seen, emitter, response, convention, solar);
+            seenCurve = seen;
         } catch (NotFoundException | NotRescalableException e) {
             throw new CliFailure(SieveCli.FAILED, e.getMessage());
         }
@@ -124,7 +128,8 @@ final class FiguresCommand implements Callable<Integer> {
     private void print(SampleCurve sample, FigureSheet sheet) {
         var out = spec.commandLine().getOut();
         out.println("Sample " + sampleId + " at " + Numbers.mm(sample.thicknessMm()) + " mm"
-                + (sample.rescaled() ? " (rescaled)" : " (as measured)") + ", " + emitterName + " × " + responseName);
+                + (sample.rescaled() ? " (rescaled" : " (as measured") + ", " + sample.sample().geometry().label()
+                + " geometry), " + emitterName + " × " + responseName);
         if (stackText != null) {
             out.println(stackText);
         }
@@ -135,9 +140,26 @@ final class FiguresCommand implements Callable<Integer> {
         SunglassCategory.Rating rating = sheet.sunglassCategory();
         table.add(List.of("sunglassCategory", rating.category().map(c -> String.valueOf(c.number())).orElse("-"),
                 rating.note()));
+        addEdges(table, seenCurve);
         table.print(out);
         out.println("Caution: " + SafetyCaution.TEXT);
         out.flush();
+    }
+
+    /** The edges at 1, 10 and 50 %: the UV absorption edge (cutoff) and, for a band-pass curve, the band's end. */
+    static void addEdges(TextTable table, Curve curve) {
+        for (int percent : new int[] {1, 10, 50}) {
+            Cutoffs.Edges edges = Cutoffs.edges(curve, percent / 100.0);
+            table.add(List.of("cutoffAt" + percent + "Percent", nm(edges.absorptionEdgeNm()),
+                    "UV absorption edge: where T rises through " + percent + " % out of the absorbing short-wavelength"
+                            + " side (first pass band)"));
+            edges.passBandEndNm().ifPresent(end -> table.add(List.of("passBandEndAt" + percent + "Percent",
+                    nm(edges.passBandEndNm()), "band-pass: where that pass band falls back under " + percent + " %")));
+        }
+    }
+
+    private static String nm(OptionalDouble value) {
+        return value.isPresent() ? String.format(Locale.ROOT, "%.1f nm", value.getAsDouble()) : "none";
     }
 
     /**

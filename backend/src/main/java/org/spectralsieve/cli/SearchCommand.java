@@ -123,22 +123,23 @@ final class SearchCommand implements Callable<Integer> {
     static TextTable table(Shortlist shortlist) {
         // the feasible range only exists where thickness is a design variable
         boolean solving = shortlist.requirement().thickness().kind() == ThicknessSpec.Kind.RANGE;
-        List<String> columns = new ArrayList<>(List.of(">rank", "material", ">sample", ">mm", "verdict", ">worst margin"));
+        List<String> columns = new ArrayList<>(List.of(">rank", "material", ">sample", "geometry", ">mm", "verdict",
+                ">worst margin"));
         if (solving) {
             columns.add("thickness range mm");
         }
         columns.add("binding clause");
         TextTable table = new TextTable(columns);
         for (RankedRow row : shortlist.rows()) {
-            table.add(cells(row, solving), explanations(row.evaluation()));
+            table.add(cells(row, shortlist.geometry(row), solving), explanations(row.evaluation()));
         }
         return table;
     }
 
-    private static List<String> cells(RankedRow row, boolean solving) {
+    private static List<String> cells(RankedRow row, String geometry, boolean solving) {
         SampleEvaluation e = row.evaluation();
         List<String> cells = new ArrayList<>(List.of(String.valueOf(row.position()), row.materialName(),
-                String.valueOf(e.sampleId()), Numbers.mm(e.thicknessMm()), verdict(e), Numbers.decades(e.worstMarginDecades())));
+                String.valueOf(e.sampleId()), geometry == null ? Numbers.NONE : geometry, Numbers.mm(e.thicknessMm()), verdict(e), Numbers.decades(e.worstMarginDecades())));
         if (solving) {
             cells.add(e.feasibleMm() == null ? Numbers.NONE
                     : Numbers.mm(e.feasibleMm().loMm()) + " to " + Numbers.mm(e.feasibleMm().hiMm()));

@@ -27,8 +27,10 @@ public class SampleCurves {
         Curve curve = library.findCurve(sampleId).orElseThrow(() -> new NotFoundException("curve of sample", sampleId));
 
         boolean rescale = thicknessMm != null && thicknessMm != sample.thicknessMm();
-        if (rescale && material.scaling() == Scaling.FIXED) {
-            throw new NotRescalableException(material.name(), sampleId);
+        SampleRescaling rescaling = SampleRescaling.of(material, sample);
+        if (rescale && !rescaling.rescalable()) {
+            throw rescaling.reason() == null ? new NotRescalableException(material.name(), sampleId)
+                    : new NotRescalableException(material.name(), sampleId, rescaling.reason());
         }
         if (rescale) {
             curve = ThicknessRescaler.rescale(curve, sample.thicknessMm(), thicknessMm, material.refractiveIndex());

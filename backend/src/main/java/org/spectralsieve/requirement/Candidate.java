@@ -11,14 +11,35 @@ import org.spectralsieve.spectrum.Curve;
  * {@code index} is needed for bulk samples (surface reflection is stripped before rescaling), may be null
  * otherwise. {@code made}: the thicknesses the material exists in ({@link MadeThicknesses}); every judgement
  * at another thickness stays inside them.
+ *
+ * <p>{@code totalTransmittance}: the light judged includes diffusely scattered light (the sample, or a part
+ * in its light path, was measured in total geometry), so clauses about seeing through ({@link SeeThrough})
+ * cannot be judged on it unless the requirement accepts total transmittance. {@code notRescaledReason}:
+ * why a sample of an otherwise rescalable material is held at its measured thickness (diffuse or scattering
+ * samples: scatter is not absorption); null for the ordinary cases, where {@code bulk} alone decides. A
+ * sample with a reason is never bulk.
  */
 public record Candidate(long sampleId, long materialId, String materialName, Curve measured, double thicknessMm,
-                        boolean bulk, RefractiveIndex index, MadeThicknesses made) {
+                        boolean bulk, RefractiveIndex index, MadeThicknesses made, boolean totalTransmittance,
+                        String notRescaledReason) {
 
     /** A curve judged without a material record: no limit on thickness ({@link MadeThicknesses#UNLIMITED}). */
     public Candidate(long sampleId, long materialId, String materialName, Curve measured, double thicknessMm,
                      boolean bulk, RefractiveIndex index) {
         this(sampleId, materialId, materialName, measured, thicknessMm, bulk, index, MadeThicknesses.UNLIMITED);
+    }
+
+    /** A regular-geometry sample whose rescaling the material's scaling alone decides, within {@code made}. */
+    public Candidate(long sampleId, long materialId, String materialName, Curve measured, double thicknessMm,
+                     boolean bulk, RefractiveIndex index, MadeThicknesses made) {
+        this(sampleId, materialId, materialName, measured, thicknessMm, bulk, index, made, false, null);
+    }
+
+    /** Without a material record's thicknesses ({@link MadeThicknesses#UNLIMITED}), geometry stated. */
+    public Candidate(long sampleId, long materialId, String materialName, Curve measured, double thicknessMm,
+                     boolean bulk, RefractiveIndex index, boolean totalTransmittance, String notRescaledReason) {
+        this(sampleId, materialId, materialName, measured, thicknessMm, bulk, index, MadeThicknesses.UNLIMITED,
+                totalTransmittance, notRescaledReason);
     }
 
     public Candidate {
@@ -31,6 +52,10 @@ public record Candidate(long sampleId, long materialId, String materialName, Cur
         }
         if (bulk && index == null) {
             throw new IllegalArgumentException("bulk sample " + sampleId + " needs a refractive index to be rescaled");
+        }
+        if (bulk && notRescaledReason != null) {
+            throw new IllegalArgumentException("sample " + sampleId + " is marked bulk but also not rescaled ("
+                    + notRescaledReason + ")");
         }
     }
 

@@ -36,8 +36,9 @@ import org.spectralsieve.spectrum.Cutoffs;
  * reading at all (outside the range, undetermined cutoff) have margin NaN.
  *
  * <h2>Cutoff clauses</h2>
- * Value = {@link Cutoffs#cutoffNm}; meets when it lies in the window, misses when it lies outside or the
- * curve has no cutoff while covering the window. Margin = min(log10(T(hi)/level), log10(level/T(lo))) at
+ * Value = {@link Cutoffs#cutoffNm}, the UV absorption edge (the rising edge of the curve's first pass
+ * band from the short-wavelength side; for a band-pass curve not its red or infrared edge); meets when it
+ * lies in the window, misses when it lies outside or the curve has no cutoff while covering the window. Margin = min(log10(T(hi)/level), log10(level/T(lo))) at
  * the window edges (positive when the edge falls through the level inside the window), clamped to the
  * side of zero the verdict gives — only a non-monotone curve (a second crossing) needs the clamp. A
  * window not wholly inside the measured range, or a walk stopped by an undetermined below-detection
@@ -178,28 +179,15 @@ public final class ClauseEvaluator {
 
     /**
      * Why {@link Cutoffs#cutoffNm} found nothing, for a curve covering the window; null when the walk
-     * stopped at an undetermined below-detection point (mirrors the walk's rules).
+     * stopped at an undetermined below-detection point.
      */
     private static String whyNoCutoff(Curve curve, double level) {
-        int last = curve.size() - 1;
-        for (int i = last; i >= 0; i--) {
-            if (curve.belowDetection(i)) {
-                double bound = Math.max(curve.transmittance(i), curve.detectionLimit(i));
-                if (bound >= level) {
-                    return null;
-                }
-                return i == last ? longEndUnder(curve, level) : null;
-            }
-            if (curve.transmittance(i) < level) {
-                return i == last ? longEndUnder(curve, level) : null;
-            }
-        }
-        return "T stays at or over " + Wording.percent(level) + " across the measured range "
-                + Wording.span(curve.minWavelengthNm(), curve.maxWavelengthNm());
-    }
-
-    private static String longEndUnder(Curve curve, double level) {
-        return "T is already under " + Wording.percent(level) + " at the long end of the curve ("
-                + Wording.nm(curve.maxWavelengthNm()) + ")";
+        String range = Wording.span(curve.minWavelengthNm(), curve.maxWavelengthNm());
+        return switch (Cutoffs.whyNoCutoff(curve, level)) {
+            case ALWAYS_OVER -> "T stays at or over " + Wording.percent(level) + " across the measured range " + range;
+            case NEVER_RISES -> "T does not rise through " + Wording.percent(level) + " out of an absorbing region"
+                    + " within the measured range " + range;
+            case UNDETERMINED -> null;
+        };
     }
 }

@@ -8,7 +8,8 @@ import java.util.Optional;
  * What the light path must do: spectral clauses (all must hold), what is said about thickness, filters on
  * which samples count, and optionally a fixed part that stays in the path with every candidate.
  * {@code materialClass} is a class label as stored ("plastic sheet"); {@code geometry} is "regular" or
- * "total"; the thickness statement concerns the candidate, never the fixed layer.
+ * "total" (only samples measured so) or "any" (both, with total transmittance accepted for see-through
+ * clauses, see {@link SeeThrough}); the thickness statement concerns the candidate, never the fixed layer.
  */
 public record Requirement(List<Clause> clauses, ThicknessSpec thickness, Optional<String> materialClass,
                           Optional<String> geometry, Optional<FixedLayer> layer, String text) {
@@ -29,6 +30,22 @@ public record Requirement(List<Clause> clauses, ThicknessSpec thickness, Optiona
     public Requirement(List<Clause> clauses, ThicknessSpec thickness, Optional<String> materialClass,
                        Optional<String> geometry, String text) {
         this(clauses, thickness, materialClass, geometry, Optional.empty(), text);
+    }
+
+    /** The geometry word that admits both geometries and accepts total transmittance for see-through clauses. */
+    public static final String ANY_GEOMETRY = "any";
+
+    /** Whether a sample measured in this geometry ("regular" or "total") is admitted by the geometry filter. */
+    public boolean admitsGeometry(String sampleGeometry) {
+        return geometry.map(g -> g.equals(ANY_GEOMETRY) || g.equals(sampleGeometry)).orElse(true);
+    }
+
+    /**
+     * Whether see-through clauses may be judged on total transmittance: when the user asked for total-geometry
+     * samples ("geometry total") or for either geometry ("geometry any"); by default they need regular.
+     */
+    public boolean acceptsTotalTransmittance() {
+        return geometry.map(g -> !g.equals("regular")).orElse(false);
     }
 
     /**

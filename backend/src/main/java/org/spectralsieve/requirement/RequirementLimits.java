@@ -18,7 +18,7 @@ public final class RequirementLimits {
     public static final double MAX_THICKNESS_MM = 1000;
     /** Spectrophotometers read to OD 6-8 at best; OD 10 leaves margin without admitting nonsense. */
     public static final double MAX_OPTICAL_DENSITY = 10;
-    public static final List<String> GEOMETRIES = List.of("regular", "total");
+    public static final List<String> GEOMETRIES = List.of("regular", "total", Requirement.ANY_GEOMETRY);
     /** Longest material phrase of a fixed layer: a slug or a few words of a material's name. */
     public static final int MAX_MATERIAL_WORDS_LENGTH = 80;
 

@@ -23,7 +23,7 @@ import org.spectralsieve.weighting.SpectrumLookup;
  *             | amount "thick"                                          ("3 to 6 mm thick", "6 mm thick")
  * amount      = mm [ "mm" ] ( "to" | "-" ) mm "mm" | mm "mm"
  * class       = [ "material" ] "class" label        (label: the words up to the next "," or "and")
- * geometry    = "geometry" ( "regular" | "total" )
+ * geometry    = "geometry" ( "regular" | "total" | "any" )
  * layer       = ( "behind" | "on" ) mm "mm" material   (material: the words up to the next "," or "and")
  * </pre>
  *
@@ -334,7 +334,8 @@ public final class RequirementParser {
             throw duplicate(first, "geometry filter", geometryText);
         }
         in.next();
-        geometry = in.expectWord(Expected.keywords("regular", "total").after("geometry"), "regular", "total").lower();
+        geometry = in.expectWord(Expected.keywords("regular", "total", Requirement.ANY_GEOMETRY).after("geometry"),
+                "regular", "total", Requirement.ANY_GEOMETRY).lower();
         geometryText = in.slice(first.start(), in.previous().end());
     }
 

@@ -32,6 +32,10 @@ import org.spectralsieve.spectrum.CurveException;
  * every clause is UNVERIFIED with the reason. Rows that cannot be judged at the asked thickness use
  * {@link ClauseResult#unjudgeable}, so the ranking can group them after the useful rows.
  *
+ * <p>A diffuse or scattering sample ({@link Candidate#notRescaledReason()}) is held at its measured thickness
+ * like a fixed layer, with its own reason; a see-through clause on total transmittance is UNVERIFIED unless
+ * the requirement accepts it ({@link SeeThrough}).
+ *
  * <p>A sample without a recorded thickness is judged as measured in AS_MEASURED and UNVERIFIED otherwise.
  * The clause verdicts always come from {@link ClauseEvaluator} on the curve actually judged.
  */
@@ -76,7 +80,7 @@ public final class SampleEvaluator {
         }
         CandidatePath path = new CandidatePath(candidate, layer);
         try {
-            return evaluate(path, requirement, span);
+            return seenThrough(candidate, requirement, evaluate(path, requirement, span));
         } catch (CurveException e) {
             if (!path.stacked()) {
                 throw e;
@@ -117,7 +121,7 @@ public final class SampleEvaluator {
             return judged(candidate.sampleId(), d0, null, clauses, path.asMeasured());
         }
         if (!candidate.bulk()) {
-            return unverified(candidate.sampleId(), d0, clauses, notRescalable(d0) + " to " + Wording.mm(asked));
+            return unverified(candidate.sampleId(), d0, clauses, notRescalable(candidate) + " to " + Wording.mm(asked));
         }
         if (!candidate.made().makes(asked)) {
             return unverified(candidate.sampleId(), asked, clauses,
@@ -127,8 +131,12 @@ public final class SampleEvaluator {
     }
 
     /** "coated/laminated part, measured only at 2.013 mm; not rescalable": the reason a non-bulk part gives. */
-    static String notRescalable(double measuredMm) {
-        return "coated/laminated part, measured only at " + Wording.mm(measuredMm) + "; not rescalable";
+    /** Why a non-bulk candidate stays at its measured thickness: a diffuse sample's reason, or a coated part. */
+    static String notRescalable(Candidate candidate) {
+        String measured = Wording.mm(candidate.thicknessMm());
+        return candidate.notRescaledReason() != null
+                ? candidate.notRescaledReason() + "; measured only at " + measured + ", not rescalable"
+                : "coated/laminated part, measured only at " + measured + "; not rescalable";
     }
 
     private static SampleEvaluation range(CandidatePath path, Requirement requirement, double min, double max,
@@ -140,7 +148,7 @@ public final class SampleEvaluator {
             if (NominalThickness.within(d0, min, max)) {
                 return judged(candidate.sampleId(), d0, null, clauses, path.asMeasured());
             }
-            return unverified(candidate.sampleId(), d0, clauses, notRescalable(d0) + " to " + Wording.mmSpan(min, max));
+            return unverified(candidate.sampleId(), d0, clauses, notRescalable(candidate) + " to " + Wording.mmSpan(min, max));
         }
         MadeThicknesses made = candidate.made();
         ThicknessInterval inMade = made.within(min, max);
@@ -222,6 +230,29 @@ public final class SampleEvaluator {
             return SampleEvaluation.of(candidate.sampleId(), d, null, evaluation.clauses());
         }
         return evaluation;
+    }
+
+    /**
+     * A see-through clause judged on total transmittance is UNVERIFIED unless the requirement accepts total
+     * transmittance ({@link SeeThrough}); the figure stays in the explanation, with no margin to rank by.
+     */
+    private static SampleEvaluation seenThrough(Candidate candidate, Requirement requirement, SampleEvaluation judged) {
+        if (!candidate.totalTransmittance() || requirement.acceptsTotalTransmittance()) {
+            return judged;
+        }
+        List<ClauseResult> results = new ArrayList<>(judged.clauses().size());
+        boolean changed = false;
+        for (ClauseResult r : judged.clauses()) {
+            if (SeeThrough.needsRegular(r.clause()) && r.verdict() != Verdict.UNVERIFIED) {
+                results.add(new ClauseResult(r.clause(), r.value(), r.threshold(), Double.NaN, Verdict.UNVERIFIED,
+                        SeeThrough.REASON + " (on total transmittance: " + r.explanation() + ")", r.valueIsBound()));
+                changed = true;
+            } else {
+                results.add(r);
+            }
+        }
+        // no thickness is proven feasible while a clause is unverified
+        return changed ? SampleEvaluation.of(judged.sampleId(), judged.thicknessMm(), null, results) : judged;
     }
 
     private static boolean meets(List<Clause> clauses, Curve curve) {

@@ -11,7 +11,7 @@ import java.util.regex.Pattern;
 import org.spectralsieve.library.Geometry;
 import org.spectralsieve.library.Material;
 import org.spectralsieve.library.SampleInfo;
-import org.spectralsieve.library.Scaling;
+import org.spectralsieve.library.SampleRescaling;
 import org.spectralsieve.requirement.EditDistance;
 import org.spectralsieve.requirement.FixedLayer;
 import org.spectralsieve.requirement.NominalThickness;
@@ -30,11 +30,12 @@ import org.spectralsieve.requirement.NominalThickness;
  *       materials with the most of the words, typing slips allowed, are suggested.</li>
  * </ol>
  * Words are lower-case runs of letters and digits ("Low-E coated float glass" → low, e, coated, float,
- * glass). The sample: among the material's regular-geometry samples (all samples if it has none), a bulk
- * material's closest in thickness by ratio (it is rescaled from there), ties to the lower sample id; a
- * fixed material's sample measured at the asked thickness by the one nominal-thickness rule shared with
- * candidates ({@link NominalThickness}: a coated or laminated part is named by its nominal thickness, 4.005 mm
- * is "4 mm"), else the layer is refused, naming the thicknesses measured.
+ * glass). The sample: among the material's regular-geometry samples (all samples if it has none), a
+ * rescalable material's ({@link SampleRescaling}) closest in thickness by ratio (it is rescaled from there),
+ * ties to the lower sample id; a fixed, diffuse or scattering material's sample measured at the asked
+ * thickness by the one nominal-thickness rule shared with candidates ({@link NominalThickness}: a coated or
+ * laminated part is named by its nominal thickness, 4.005 mm is "4 mm"), else the layer is refused, naming the
+ * thicknesses measured.
  */
 final class LayerMatcher {
 
@@ -168,16 +169,23 @@ final class LayerMatcher {
         double asked = layer.thicknessMm();
         Comparator<SampleInfo> closest = Comparator.<SampleInfo>comparingDouble(
                 s -> Math.abs(Math.log(s.thicknessMm() / asked))).thenComparingLong(SampleInfo::id);
-        if (material.scaling() == Scaling.BULK) {
+        if (pool.stream().allMatch(s -> SampleRescaling.of(material, s).rescalable())) {
             return pool.stream().min(closest).orElseThrow();
         }
         return pool.stream().filter(s -> NominalThickness.same(s.thicknessMm(), asked)).min(closest)
                 .orElseThrow(() -> new LayerResolutionException(LayerResolutionException.Reason.THICKNESS,
-                        layer.material(), material.name() + " (" + material.slug() + ") is a fixed part, used only as"
-                        + " measured, and was measured at " + thicknesses(pool) + " mm, not "
+                        layer.material(), material.name() + " (" + material.slug() + ") is " + heldAsMeasured(material, pool)
+                        + ", and was measured at " + thicknesses(pool) + " mm, not "
                         + plain(asked) + " mm; write one of those thicknesses",
                         pool.stream().map(s -> new LayerResolutionException.Choice(material.slug(), material.name(),
                                 plain(s.thicknessMm()) + " mm")).toList()));
+    }
+
+    /** "a fixed part, used only as measured", or why a bulk material's samples are held at their measured thickness. */
+    private static String heldAsMeasured(Material material, List<SampleInfo> pool) {
+        return pool.stream().map(s -> SampleRescaling.of(material, s).reason()).filter(java.util.Objects::nonNull)
+                .findFirst().map(reason -> "used only as measured (" + reason + ")")
+                .orElse("a fixed part, used only as measured");
     }
 
     private static LayerResolutionException.Choice choice(Material m) {

@@ -3,6 +3,7 @@ package org.spectralsieve.search;
 import java.util.ArrayList;
 import java.util.Comparator;
 import java.util.HashMap;
+import java.util.HashSet;
 import java.util.LinkedHashMap;
 import java.util.LinkedHashSet;
 import java.util.List;
@@ -11,8 +12,10 @@ import java.util.Optional;
 import java.util.Set;
 import java.util.concurrent.atomic.AtomicReference;
 import org.spectralsieve.library.JooqLibraryRepository;
+import org.spectralsieve.library.Geometry;
 import org.spectralsieve.library.Material;
 import org.spectralsieve.library.SampleInfo;
+import org.spectralsieve.library.SampleRescaling;
 import org.spectralsieve.library.Scaling;
 import org.spectralsieve.library.StatedThicknesses;
 import org.spectralsieve.requirement.Aggregate;
@@ -27,6 +30,7 @@ import org.spectralsieve.requirement.RankedRow;
 import org.spectralsieve.requirement.Ranking;
 import org.spectralsieve.requirement.Requirement;
 import org.spectralsieve.requirement.SampleEvaluator;
+import org.spectralsieve.requirement.SeeThrough;
 import org.spectralsieve.requirement.StackLayer;
 import org.spectralsieve.requirement.ThicknessSpec;
 import org.spectralsieve.requirement.TransmittanceClause;
@@ -90,25 +94,32 @@ public class SearchService {
         List<MaterialEvaluation> exact = new ArrayList<>();
         for (long materialId : materialIds) {
             Material material = s.materials().get(materialId);
-            exact.addAll(judge(material, requirement, Optional.empty()));
+            exact.addAll(judge(material, requirement, Optional.empty(), false));
         }
-        List<RankedRow> rows = Ranking.rank(exact, limit);
+        List<RankedRow> rows = rank(s, requirement, exact, limit);
         double tookMs = (System.nanoTime() - started) / 1e6;
-        return new Shortlist(requirement, rows, picked.evaluatedSamples(), exact.size(), tookMs, Optional.empty());
+        return new Shortlist(requirement, rows, picked.evaluatedSamples(), exact.size(), tookMs, Optional.empty(),
+                geometries(s, rows));
     }
 
     /**
      * The material's admitted samples, judged exactly on their stored curves (not the store's quantized
      * copy), each where it is the nearest measurement ({@link MaterialJudge}).
+     *
+     * @param diffuseLayer the requirement's fixed layer was measured in total geometry, so the light of every
+     *                     path includes scatter
      */
-    private List<MaterialEvaluation> judge(Material material, Requirement requirement, Optional<StackLayer> layer) {
+    private List<MaterialEvaluation> judge(Material material, Requirement requirement, Optional<StackLayer> layer,
+                                           boolean diffuseLayer) {
         MadeThicknesses made = made(material);
         List<Candidate> candidates = new ArrayList<>();
         for (SampleInfo sample : material.samples()) {
             if (admits(requirement, material, sample)) {
                 Curve curve = library.findCurve(sample.id()).orElseThrow();
+                SampleRescaling rescaling = SampleRescaling.of(material, sample);
                 candidates.add(new Candidate(sample.id(), material.id(), material.name(), curve,
-                        sample.thicknessMm(), material.scaling() == Scaling.BULK, material.refractiveIndex(), made));
+                        sample.thicknessMm(), rescaling.rescalable(), material.refractiveIndex(), made,
+                        sample.geometry() == Geometry.TOTAL || diffuseLayer, rescaling.reason()));
             }
         }
         return candidates.isEmpty() ? List.of() : MaterialJudge.evaluate(candidates, requirement, layer);
@@ -129,6 +140,7 @@ public class SearchService {
      */
     private Shortlist searchExactly(Snapshot s, Requirement requirement, int limit, long started) {
         Optional<StackLayer> layer = requirement.layer().map(l -> resolveLayer(l, s));
+        boolean diffuseLayer = layer.map(l -> s.samples().get(l.sampleId()).geometry() == Geometry.TOTAL).orElse(false);
         Map<Long, Double> provenMiss = provenMisses(s, requirement, layer);
         List<MaterialEvaluation> exact = new ArrayList<>();
         Map<Material, Double> held = new LinkedHashMap<>();
@@ -152,21 +164,66 @@ public class SearchService {
             if (allMiss && madeFor(requirement.thickness(), material)) {
                 held.put(material, bound);
             } else {
-                exact.addAll(judge(material, requirement, layer));
+                exact.addAll(judge(material, requirement, layer, diffuseLayer));
             }
         }
-        List<RankedRow> rows = Ranking.rank(exact, limit);
+        List<RankedRow> rows = rank(s, requirement, exact, limit);
         List<Map.Entry<Material, Double>> byBound = new ArrayList<>(held.entrySet());
         byBound.sort(Map.Entry.<Material, Double>comparingByValue().reversed());
+        boolean grouped = diffuseLast(requirement);
         for (Map.Entry<Material, Double> entry : byBound) {
-            if (!couldEnter(rows, limit, entry.getValue())) {
+            // grouped: a material with a regular sample competes only with the regular rows, which come first
+            boolean regular = grouped && entry.getKey().samples().stream()
+                    .anyMatch(x -> admits(requirement, entry.getKey(), x) && x.geometry() == Geometry.REGULAR);
+            List<RankedRow> competing = regular ? Ranking.rank(regularOnly(s, exact), limit) : rows;
+            if (!couldEnter(competing, limit, entry.getValue())) {
+                if (grouped) {
+                    continue; // the two groups' bounds are not ordered together
+                }
                 break; // bounds only fall from here on
             }
-            exact.addAll(judge(entry.getKey(), requirement, layer));
-            rows = Ranking.rank(exact, limit);
+            exact.addAll(judge(entry.getKey(), requirement, layer, diffuseLayer));
+            rows = rank(s, requirement, exact, limit);
         }
         double tookMs = (System.nanoTime() - started) / 1e6;
-        return new Shortlist(requirement, rows, admitted, exact.size(), tookMs, layer);
+        return new Shortlist(requirement, rows, admitted, exact.size(), tookMs, layer, geometries(s, rows));
+    }
+
+    /**
+     * The ranked rows. When the requirement has a see-through clause and does not accept total transmittance
+     * ({@link SeeThrough}), samples measured in total geometry cannot show what it asks: their rows follow
+     * every row judged in regular geometry, so a diffuser that misses a block clause by less never heads a
+     * list of sheets to see through. Otherwise one ranking ({@link Ranking}).
+     */
+    private static List<RankedRow> rank(Snapshot s, Requirement requirement, List<MaterialEvaluation> exact, int limit) {
+        if (!diffuseLast(requirement)) {
+            return Ranking.rank(exact, limit);
+        }
+        List<MaterialEvaluation> regular = regularOnly(s, exact);
+        List<RankedRow> rows = new ArrayList<>(Ranking.rank(regular, limit));
+        if (rows.size() < limit) {
+            Set<Long> ranked = new HashSet<>();
+            regular.forEach(e -> ranked.add(e.materialId()));
+            List<MaterialEvaluation> diffuse = exact.stream()
+                    .filter(e -> !ranked.contains(e.materialId()) && !isRegular(s, e)).toList();
+            for (RankedRow row : Ranking.rank(diffuse, limit - rows.size())) {
+                rows.add(new RankedRow(rows.size() + 1, row.materialId(), row.materialName(), row.evaluation()));
+            }
+        }
+        return List.copyOf(rows);
+    }
+
+    /** Whether total-geometry rows go after the regular ones (see {@link #rank}). */
+    private static boolean diffuseLast(Requirement requirement) {
+        return !requirement.acceptsTotalTransmittance() && requirement.clauses().stream().anyMatch(SeeThrough::needsRegular);
+    }
+
+    private static List<MaterialEvaluation> regularOnly(Snapshot s, List<MaterialEvaluation> exact) {
+        return exact.stream().filter(e -> isRegular(s, e)).toList();
+    }
+
+    private static boolean isRegular(Snapshot s, MaterialEvaluation e) {
+        return s.samples().get(e.evaluation().sampleId()).geometry() == Geometry.REGULAR;
     }
 
     /** Whether a material that misses with a worst margin of at most {@code bound} could take a place in the rows. */
@@ -226,7 +283,7 @@ public class SearchService {
      * Whether a miss proven on the measured curve stays proven at the thickness the sample is judged at:
      * T falls as a bulk sample thickens, so a pass stays missed when judged at or above the measured
      * thickness and a block when judged at or below it; a fixed part only at its own thickness (elsewhere
-     * it is unverified, not missed).
+     * it is unverified, not missed); so is a diffuse or scattering sample ({@link SampleRescaling}).
      */
     private static boolean keepsProof(Direction direction, ThicknessSpec spec, Material material, SampleInfo sample) {
         double d0 = sample.thicknessMm();
@@ -239,8 +296,10 @@ public class SearchService {
         if (spec.kind() == ThicknessSpec.Kind.FIXED && NominalThickness.same(d0, spec.minMm())) {
             return true; // judged as measured
         }
-        if (material.scaling() != Scaling.BULK) {
+        if (!SampleRescaling.of(material, sample).rescalable()) {
+            // a coated part, or a diffuse or scattering sample: judged only at its own thickness
             return spec.kind() == ThicknessSpec.Kind.RANGE && NominalThickness.within(d0, spec.minMm(), spec.maxMm());
+        }
         }
         return direction == Direction.PASS ? spec.minMm() >= d0 : spec.maxMm() <= d0;
     }
@@ -277,12 +336,22 @@ public class SearchService {
         SampleInfo sample = match.sample();
         Curve curve = library.findCurve(sample.id()).orElseThrow();
         return StackLayer.of(layer, m.id(), m.name(), m.slug(), sample.id(), curve, sample.thicknessMm(),
-                m.scaling() == Scaling.BULK, m.refractiveIndex());
+                SampleRescaling.of(m, sample).rescalable(), m.refractiveIndex());
     }
 
     private static boolean admits(Requirement r, Material m, SampleInfo s) {
         return r.materialClass().map(c -> c.equals(m.materialClass().label())).orElse(true)
-                && r.geometry().map(g -> g.equals(s.geometry().label())).orElse(true);
+                && r.admitsGeometry(s.geometry().label());
+    }
+
+    /** Sample id → geometry label ("regular" or "total") of every row's sample, for the answer to show. */
+    private static Map<Long, String> geometries(Snapshot s, List<RankedRow> rows) {
+        Map<Long, String> out = new HashMap<>();
+        for (RankedRow row : rows) {
+            long id = row.evaluation().sampleId();
+            out.put(id, s.samples().get(id).geometry().label());
+        }
+        return out;
     }
 
     /**
@@ -324,8 +393,9 @@ public class SearchService {
             m.samples().forEach(sample -> sampleById.put(sample.id(), sample));
             StoredMaterial stored = new StoredMaterial(m.id(), m.name(), m.materialClass().label(), made(m));
             for (SampleInfo sample : m.samples()) {
-                builder.add(sample.id(), stored, sample.thicknessMm(), m.scaling() == Scaling.BULK,
-                        sample.geometry() == org.spectralsieve.library.Geometry.TOTAL, m.refractiveIndex(),
+                // the store rescales exactly what the exact evaluator rescales: never a diffuse or scattering sample
+                builder.add(sample.id(), stored, sample.thicknessMm(), SampleRescaling.of(m, sample).rescalable(),
+                        sample.geometry() == Geometry.TOTAL, m.refractiveIndex(),
                         curves.get(sample.id()));
             }
         }

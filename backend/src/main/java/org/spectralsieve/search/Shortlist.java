@@ -1,6 +1,7 @@
 package org.spectralsieve.search;
 
 import java.util.List;
+import java.util.Map;
 import java.util.Objects;
 import java.util.Optional;
 import org.spectralsieve.requirement.RankedRow;
@@ -12,12 +13,19 @@ import org.spectralsieve.requirement.StackLayer;
  * was evaluated on (after the class and geometry filters); {@code judgedExactly}: how many of them the
  * exact evaluator judged on their stored curves (the store ruled out the rest). {@code layer} is the
  * library sample that stood in every candidate's light path when the requirement names a fixed layer.
+ * {@code sampleGeometry}: how each row's sample was measured ("regular" or "total"), keyed by sample id.
  */
 public record Shortlist(Requirement requirement, List<RankedRow> rows, int evaluatedSamples, int judgedExactly,
-                        double tookMs, Optional<StackLayer> layer) {
+                        double tookMs, Optional<StackLayer> layer, Map<Long, String> sampleGeometry) {
 
     public Shortlist {
         rows = List.copyOf(rows);
         Objects.requireNonNull(layer, "layer");
+        sampleGeometry = Map.copyOf(sampleGeometry);
+    }
+
+    /** The geometry a row's sample was measured in: "regular", "total", or null when not known. */
+    public String geometry(RankedRow row) {
+        return sampleGeometry.get(row.evaluation().sampleId());
     }
 }

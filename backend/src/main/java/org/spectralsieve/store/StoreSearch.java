@@ -463,7 +463,8 @@ public final class StoreSearch {
                     }
                 }
             }
-            Boolean total = r.geometry().map(g -> g.equals("total")).orElse(null);
+            // null admits both geometries: no filter, or "geometry any"
+            Boolean total = r.admitsGeometry("regular") && r.admitsGeometry("total") ? null : !r.admitsGeometry("regular");
             Plan plan = new Plan(List.copyOf(clauses), r.thickness(), r.materialClass().orElse(null), total, loss,
                     unresolved);
             plan.spans = plan.spans(store);

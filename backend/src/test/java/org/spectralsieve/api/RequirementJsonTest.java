@@ -91,7 +91,7 @@ class RequirementJsonTest {
             {"clauses": [{"type": "cutoff", "fromNm": 380, "toNm": 395}], "thickness": {"kind": "range", "minMm": 6, "maxMm": 1}} | thickness.maxMm must not be below minMm
             {"clauses": [{"type": "cutoff", "fromNm": 380, "toNm": 395}], "thickness": {"kind": "thick"}} | thickness.kind must be
             {"clauses": [{"type": "cutoff", "fromNm": 380, "toNm": 395}], "materialClass": "Plastic Sheet!"} | materialClass must be 2-40 lower-case letters
-            {"clauses": [{"type": "cutoff", "fromNm": 380, "toNm": 395}], "geometry": "diffuse"} | geometry must be one of [regular, total]
+            {"clauses": [{"type": "cutoff", "fromNm": 380, "toNm": 395}], "geometry": "diffuse"} | geometry must be one of [regular, total, any]
             {"clauses": [{"type": "cutoff", "fromNm": 380, "toNm": 395}], "text": 5}           | text must be a string
             {"clauses": [{"type": "weighted", "direction": "pass", "emitter": "led-366", "thresholdT": 0.8}]} | clauses[0].emitter 'led-366' is not a known emitter; known: led-365
             {"clauses": [{"type": "weighted", "direction": "pass", "emitter": "led-365", "response": "tanning", "thresholdT": 0.8}]} | clauses[0].response 'tanning' is not a known response

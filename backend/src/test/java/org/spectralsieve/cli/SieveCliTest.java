@@ -63,12 +63,14 @@ class SieveCliTest {
 
         assertThat(run.exitCode()).as(run.err()).isZero();
         List<String> lines = run.outLines();
-        assertThat(lines.get(0)).startsWith("rank").contains("material", "sample", "verdict", "worst margin", "binding clause");
+        assertThat(lines.get(0)).startsWith("rank").contains("material", "sample", "geometry", "verdict", "worst margin",
+                "binding clause");
         String[] first = lines.get(1).trim().split(" {2,}");
         assertThat(first[0]).isEqualTo("1");
         assertThat(first[1].toLowerCase()).contains("fused silica").contains("uv");
-        assertThat(first[4]).isEqualTo("meets");
-        assertThat(first[5]).matches("\\+\\d\\.\\d{3}");
+        assertThat(first[3]).isEqualTo("regular");
+        assertThat(first[5]).isEqualTo("meets");
+        assertThat(first[6]).matches("\\+\\d\\.\\d{3}");
         // the clause's explanation sits indented under its row
         assertThat(lines.get(2)).startsWith("      meets: ").contains("254 nm");
     }
@@ -109,7 +111,8 @@ class SieveCliTest {
         assertThat(run.exitCode()).as(run.err()).isZero();
         List<String> lines = run.outLines();
         assertThat(lines.get(0)).startsWith("rank");
-        assertThat(lines.get(1).trim().split(" {2,}")[4]).isEqualTo("meets");
+        // columns: rank, material, sample, geometry, mm, verdict
+        assertThat(lines.get(1).trim().split(" {2,}")[5]).isEqualTo("meets");
         assertThat(run.out()).contains("Light path: every result is judged as a stack, behind 4 mm Clear float glass")
                 .contains("clear-float-glass, sample ");
         assertThat(lines.get(lines.size() - 1)).startsWith("Caution: ").contains("not a certification");
@@ -194,8 +197,22 @@ class SieveCliTest {
         assertThat(run.outLines()).anySatisfy(line -> assertThat(line).startsWith("effectiveTransmittance")
                 .contains(expected));
         assertThat(run.out()).contains("meanTransmittanceUVB(290-320 nm)").contains("luminousTransmittance")
-                .contains("sunglassCategory").contains("(rescaled)");
+                .contains("sunglassCategory").contains("(rescaled, regular geometry)");
+        // the named edges: fused silica is long-pass, so a UV absorption edge and no pass-band end
+        assertThat(run.out()).contains("cutoffAt50Percent").doesNotContain("passBandEndAt50Percent");
         assertThat(run.outLines().get(run.outLines().size() - 1)).startsWith("Caution: ").contains("not a certification");
+    }
+
+    @Test
+    void figuresRefuseToRescaleADiffuseSampleAndSayWhy() throws Exception {
+        // PTFE sheet is measured in total geometry: rescaling it would treat scatter as absorption ([S47])
+        long sampleId = JSON.readTree(cli("search", "passes over 20% at 254 nm, geometry total", "--limit", "1", "--json")
+                .out()).path("results").get(0).path("sampleId").asLong();
+
+        Run run = cli("figures", "--sample", String.valueOf(sampleId), "--thickness-mm", "7");
+
+        assertThat(run.exitCode()).isEqualTo(SieveCli.FAILED);
+        assertThat(run.err()).contains("scatter is not absorption");
     }
 
     @Test

@@ -195,7 +195,7 @@ class RequirementParserTest {
             blocks under 1% at 405 nm and                          | 29 | to start a clause, found end of text          | -
             passes over 80% at 365 nm blocks under 1% at 405 nm    | 26 | ',', 'and' or end of text after a clause      | -
             passes over 80% at 365 nm #                            | 26 | found '#' (U+0023)                            | -
-            geometry diffuse, passes over 80% at 365 nm            | 9  | 'regular' or 'total' after 'geometry'         | -
+            geometry diffuse, passes over 80% at 365 nm            | 9  | 'regular', 'total' or 'any' after 'geometry'  | -
             OD 12 at 405 nm                                        | 3  | an optical density above 0 and at most 10     | -
             thiknes 1 to 6 mm, passes over 80% at 365 nm           | 0  | to start a clause                             | thickness
             passes over 80% at 365 mn                              | 23 | 'nm', 'µm' or 'um'                            | nm

@@ -80,7 +80,8 @@ class RequirementSearchBrowserTest {
         assertThat(first.getDomAttribute("data-verdict")).isEqualTo("meets");
         assertThat(cells.get(2).getText()).contains("meets");
         assertThat(cells.get(3).getText()).isEqualTo("3 mm");
-        assertThat(cells.get(4).getText()).as("worst margin written with its sign").startsWith("+");
+        assertThat(cells.get(4).getText()).as("how the sample was measured").isEqualTo("regular");
+        assertThat(cells.get(5).getText()).as("worst margin written with its sign").startsWith("+");
         assertThat(driver.findElement(By.id("search-summary")).getText()).matches("Evaluated \\d+ samples in .* ms.*");
         assertThat(driver.findElement(By.id("search-caution")).isDisplayed())
                 .as("no caution for a requirement that only passes light").isFalse();
