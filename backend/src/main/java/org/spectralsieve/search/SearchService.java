@@ -300,7 +300,6 @@ public class SearchService {
             // a coated part, or a diffuse or scattering sample: judged only at its own thickness
             return spec.kind() == ThicknessSpec.Kind.RANGE && NominalThickness.within(d0, spec.minMm(), spec.maxMm());
         }
-        }
         return direction == Direction.PASS ? spec.minMm() >= d0 : spec.maxMm() <= d0;
     }
 
