@@ -77,16 +77,19 @@ final class RescaledModel {
     }
 
     /**
-     * The least far thickness of the stored points at or beyond {@code nm}: a cutoff is read from the long
-     * end of the curve down to its crossing, so a clear point there that turns into a bound leaves the
-     * cutoff undetermined.
+     * The least far thickness of the stored points from {@code fromNm} to {@code toNm}: a cutoff is read
+     * walking up from the short-wavelength side ({@link org.spectralsieve.spectrum.Cutoffs}), so a clear point
+     * inside its window that turns into a bound leaves the crossing undetermined; points beyond the window
+     * keep their values (a far bound is flagged at its own value), so they do not move the edge.
      */
-    double farMmFrom(double nm) {
+    double farMmBetween(double fromNm, double toNm) {
         double far = Double.POSITIVE_INFINITY;
-        for (int i = wavelengths.length - 1; i >= 0 && wavelengths[i] >= nm; i--) {
-            far = Math.min(far, value[i].farMm(d0));
+        for (int i = 0; i < wavelengths.length; i++) {
+            if (wavelengths[i] >= fromNm && wavelengths[i] <= toNm) {
+                far = Math.min(far, value[i].farMm(d0));
+            }
         }
-        return far;
+        return Math.min(far, Math.min(farMmAt(fromNm), farMmAt(toNm)));
     }
 
     /** Whether the reading at a covered wavelength, rescaled to d, is a bound. */

@@ -135,7 +135,7 @@ public final class SampleEvaluator {
     static String notRescalable(Candidate candidate) {
         String measured = Wording.mm(candidate.thicknessMm());
         return candidate.notRescaledReason() != null
-                ? candidate.notRescaledReason() + "; measured only at " + measured + ", not rescalable"
+                ? candidate.notRescaledReason() + "; measured at " + measured + ", not rescalable"
                 : "coated/laminated part, measured only at " + measured + "; not rescalable";
     }
 

@@ -151,10 +151,11 @@ public final class ThicknessSolver {
         if (!view.covers(c.window())) {
             return false;
         }
-        // the cutoff is read from the curve's long end down: a clear point there that is only a bound at d
-        // leaves it undetermined, so the pass edge is provable only up to the least far thickness from the window on
+        // the UV edge is read walking up from the short side: a clear point inside the window that is only a
+        // bound at d leaves the crossing undetermined, so the pass edge is provable only up to the least far
+        // thickness inside the window
         out.add(new ThicknessConstraint.AtWavelength(model, c.window().toNm(), Direction.PASS, c.levelT(),
-                Math.min(model.farMmAt(c.window().toNm()), model.farMmFrom(c.window().fromNm()))));
+                model.farMmBetween(c.window().fromNm(), c.window().toNm())));
         out.add(new ThicknessConstraint.AtWavelength(model, c.window().fromNm(), Direction.BLOCK, c.levelT()));
         return true;
     }
