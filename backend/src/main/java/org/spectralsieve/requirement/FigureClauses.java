@@ -79,26 +79,26 @@ final class FigureClauses {
         if (!span.bounded()) {
             value = span.upper();
             verdict = Margins.holds(direction, value, threshold) ? Verdict.MEETS : Verdict.MISSES;
-            text = subject + " is " + Wording.percent(value) + ", needs " + need;
+            text = subject + " is " + Wording.transmittance(value) + ", needs " + need;
         } else if (Margins.holds(direction, span.provenFor(direction), threshold)) {
             value = span.provenFor(direction);
             verdict = Verdict.MEETS;
             text = subject + " is " + (direction == Direction.PASS
                     ? "at least " + Wording.percent(value) + " (points below the detection limit counted as 0)"
-                    : "at most " + Wording.percent(value) + " (points below the detection limit at their limit)")
+                    : Wording.atMost(value) + " (points below the detection limit at their limit)")
                     + ", so it is " + need;
         } else if (!Margins.holds(direction, span.provenFor(direction == Direction.PASS ? Direction.BLOCK : Direction.PASS),
                 threshold)) {
             value = span.provenFor(direction == Direction.PASS ? Direction.BLOCK : Direction.PASS);
             verdict = Verdict.MISSES;
             text = subject + " is " + (direction == Direction.PASS
-                    ? "at most " + Wording.percent(value) + " (points below the detection limit at their limit)"
+                    ? Wording.atMost(value) + " (points below the detection limit at their limit)"
                     : "at least " + Wording.percent(value) + " (points below the detection limit counted as 0)")
                     + ", so it cannot be " + need;
         } else {
             value = span.upper();
             verdict = Verdict.UNVERIFIED;
-            text = subject + " lies between " + Wording.percent(span.lower()) + " and " + Wording.percent(span.upper())
+            text = subject + " lies between " + Wording.percent(span.lower()) + " and " + Wording.transmittance(span.upper())
                     + " (points below the detection limit): cannot show " + need;
         }
         double margin = Margins.of(direction, value, threshold);

@@ -1,6 +1,7 @@
 package org.spectralsieve.store;
 
 import java.util.List;
+import org.spectralsieve.requirement.Standing;
 import org.spectralsieve.requirement.ThicknessSpec;
 import org.spectralsieve.requirement.Verdict;
 
@@ -27,7 +28,12 @@ final class CurveModel {
     private final double[] slope;
     private final boolean[] pass;
     private final boolean[] bound;
+    private final int[] clauseOf;
     private boolean anyUnmeasured;
+    /** Full model only: clauses with a probe outside the measured data (judged only if a miss is proven). */
+    private final boolean[] clauseUnmeasured;
+    private final boolean[] missedClause;
+    private int loadingClause;
 
     // mean conditions, only in a full evaluation
     private final List<MeanCondition> means = new java.util.ArrayList<>();
@@ -50,6 +56,9 @@ final class CurveModel {
         slope = new double[capacity];
         pass = new boolean[capacity];
         bound = new boolean[capacity];
+        clauseOf = new int[capacity];
+        clauseUnmeasured = new boolean[plan.clauses.size()];
+        missedClause = new boolean[plan.clauses.size()];
     }
 
     /** Points a full model at a curve: every probe of every clause, means included. */
@@ -62,9 +71,11 @@ final class CurveModel {
         this.bulk = store.isBulk(curve) && plan.thickness.kind() != ThicknessSpec.Kind.AS_MEASURED;
         points = 0;
         anyUnmeasured = false;
+        java.util.Arrays.fill(clauseUnmeasured, false);
         means.clear();
         int model = store.indexModelOf(curve);
         for (int c = 0; c < plan.clauses.size(); c++) {
+            loadingClause = c;
             CompiledClause clause = plan.clauses.get(c);
             double[] loss = plan.surfaceLoss[model][c];
             List<Probe> probes = clause.probes();
@@ -98,12 +109,14 @@ final class CurveModel {
                           boolean isPass) {
         if (!probe.onGrid()) {
             anyUnmeasured = true;
+            clauseUnmeasured[loadingClause] = true;
             return;
         }
         short lo = store.column(probe.lo())[curve];
         short hi = store.column(probe.hi())[curve];
         if (!OdCode.isMeasured(lo) || !OdCode.isMeasured(hi)) {
             anyUnmeasured = true;
+            clauseUnmeasured[loadingClause] = true;
             return;
         }
         double f = probe.fractionHi();
@@ -147,6 +160,7 @@ final class CurveModel {
         int i = points++;
         pass[i] = isPass;
         bound[i] = isBound;
+        clauseOf[i] = loadingClause;
         if (isPass) {           // margin = thresholdOd − OD(d)
             intercept[i] = thresholdOd - base;
             slope[i] = -perMm;
@@ -161,7 +175,7 @@ final class CurveModel {
         ThicknessSpec spec = plan.thickness;
         double d = bestThickness(spec);
         judge(d, forcedUnverified(spec));
-        return StoreSearch.Keys.of(verdict, worst);
+        return StoreSearch.Keys.of(standing, worst);
     }
 
     private double bestThickness(ThicknessSpec spec) {
@@ -195,21 +209,61 @@ final class CurveModel {
         if (spec.kind() == ThicknessSpec.Kind.RANGE && bulk && verdict == Verdict.MEETS) {
             range = feasibleRange(spec.minMm(), spec.maxMm());
         }
-        return new StoreSearch.Evaluation(verdict, worst, d, range);
+        return new StoreSearch.Evaluation(verdict, standing, worst, d, range);
     }
 
     // the last judgement, kept in fields so the pass over every curve allocates nothing
     private Verdict verdict;
+    private Standing standing;
     private double worst;
 
-    /** The verdict and worst margin at thickness d (a fixed layer's margins do not depend on d). */
+    /**
+     * The verdict, group and worst margin at thickness d (a fixed layer's margins do not depend on d), in
+     * the exact order's terms ({@link org.spectralsieve.requirement.RankingOrder}): a miss is ranked by its
+     * worst missing reading and goes to the bounded-miss group when that reading is a bound; a curve with
+     * no clause judged (a fixed part asked at another thickness, every clause outside the data) goes last.
+     *
+     * <p>A points-only model gives an upper bound on the full model's key: it reads a subset of the
+     * probes, so its lowest margin and its lowest missing margin are at least the full ones, and it never
+     * demotes a miss to the bounded group nor (except for the thickness reason, which does not depend on
+     * the probes) a curve to the not-judged group, because the probes it skips could change either.
+     */
     private void judge(double d, boolean forcedUnverified) {
-        int bits = anyUnmeasured || forcedUnverified ? ProbeVerdict.UNVERIFIED : ProbeVerdict.HOLDS;
+        if (forcedUnverified) {
+            // the exact evaluator judges no clause of a fixed part asked at another thickness
+            verdict = Verdict.UNVERIFIED;
+            standing = Standing.NOT_JUDGED;
+            worst = Double.NaN;
+            return;
+        }
+        int bits = anyUnmeasured ? ProbeVerdict.UNVERIFIED : ProbeVerdict.HOLDS;
         double lowest = Double.POSITIVE_INFINITY;
+        double lowestMiss = Double.POSITIVE_INFINITY;
+        boolean lowestMissIsBound = false;
+        boolean[] missed = pointsOnly ? null : missedClause;
+        if (missed != null) {
+            java.util.Arrays.fill(missed, false);
+        }
+        boolean anyJudged = false;
         for (int i = 0; i < points; i++) {
             double margin = intercept[i] + slope[i] * d; // slope is 0 for a fixed layer
             lowest = Math.min(lowest, margin);
-            bits |= ProbeVerdict.of(margin, bound[i], pass[i]);
+            int v = ProbeVerdict.of(margin, bound[i], pass[i]);
+            bits |= v;
+            if (v == ProbeVerdict.MISSES) {
+                if (margin < lowestMiss) {
+                    lowestMiss = margin;
+                    lowestMissIsBound = bound[i];
+                }
+                if (missed != null) {
+                    missed[clauseOf[i]] = true;
+                }
+            }
+        }
+        if (missed != null) {
+            for (int i = 0; i < points; i++) {
+                anyJudged |= !clauseUnmeasured[clauseOf[i]] || missed[clauseOf[i]];
+            }
         }
         boolean misses = (bits & ProbeVerdict.MISSES) != 0;
         boolean unverified = (bits & ProbeVerdict.UNVERIFIED) != 0;
@@ -219,19 +273,28 @@ final class CurveModel {
                 unverified = true;
                 continue;
             }
+            anyJudged = true;
             lowest = Math.min(lowest, margin);
-            if (mean.anyBound()) {
-                if (mean.pass() && margin < 0) {
-                    misses = true;
-                } else {
-                    unverified = true;
-                }
-            } else if (margin < 0) {
+            boolean meanMisses = mean.anyBound() ? mean.pass() && margin < 0 : margin < 0;
+            if (meanMisses) {
                 misses = true;
+                if (margin < lowestMiss) {
+                    lowestMiss = margin;
+                    lowestMissIsBound = mean.anyBound();
+                }
+            } else if (mean.anyBound()) {
+                unverified = true;
             }
         }
-        worst = lowest == Double.POSITIVE_INFINITY ? Double.NaN : lowest; // NaN: nothing measured to judge by
         verdict = misses ? Verdict.MISSES : unverified ? Verdict.UNVERIFIED : Verdict.MEETS;
+        if (misses) {
+            worst = lowestMiss;
+            standing = lowestMissIsBound && !pointsOnly ? Standing.MISSES_ON_BOUND : Standing.MISSES;
+            return;
+        }
+        worst = lowest == Double.POSITIVE_INFINITY ? Double.NaN : lowest; // NaN: nothing measured to judge by
+        standing = !pointsOnly && !anyJudged ? Standing.NOT_JUDGED
+                : verdict == Verdict.MEETS ? Standing.MEETS : Standing.UNVERIFIED;
     }
 
     /**
