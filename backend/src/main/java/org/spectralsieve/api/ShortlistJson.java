@@ -108,7 +108,7 @@ public final class ShortlistJson {
             Map<String, Object> clause = new LinkedHashMap<>();
             clause.put("text", c.clause().text());
             boolean beyond = isTransmittance(c) && c.value() < StatedCurve.SMALLEST_STATED_T;
-            clause.put("value", beyond ? StatedCurve.SMALLEST_STATED_T : finiteOrNull(c.value()));
+            clause.put("value", beyond ? Double.valueOf(StatedCurve.SMALLEST_STATED_T) : finiteOrNull(c.value()));
             clause.put("valueIsBound", beyond || c.valueIsBound());
             clause.put("threshold", c.threshold());
             clause.put("marginDecades", finiteOrNull(c.marginDecades()));
