@@ -288,13 +288,34 @@ final class CurveModel {
         }
         verdict = misses ? Verdict.MISSES : unverified ? Verdict.UNVERIFIED : Verdict.MEETS;
         if (misses) {
-            worst = lowestMiss;
+            worst = pointsOnly && bulk && plan.thickness.kind() == ThicknessSpec.Kind.RANGE
+                    ? missBoundOverTheRange() : lowestMiss;
             standing = lowestMissIsBound && !pointsOnly ? Standing.MISSES_ON_BOUND : Standing.MISSES;
             return;
         }
         worst = lowest == Double.POSITIVE_INFINITY ? Double.NaN : lowest; // NaN: nothing measured to judge by
         standing = !pointsOnly && !anyJudged ? Standing.NOT_JUDGED
                 : verdict == Verdict.MEETS ? Standing.MEETS : Standing.UNVERIFIED;
+    }
+
+    /**
+     * For the points-only bound in a thickness range, where the full model may settle on another thickness
+     * than this one: an upper bound on the full model's lowest missing margin at any thickness. A probe
+     * that can miss (all but a bound on a block, which is never a miss) has a margin line; the full
+     * model's lowest missing margin at its thickness d is at most each such line of ours at d, so at most
+     * the least, over our lines, of the line's larger end in the range.
+     */
+    private double missBoundOverTheRange() {
+        double lo = plan.thickness.minMm();
+        double hi = plan.thickness.maxMm();
+        double least = Double.POSITIVE_INFINITY;
+        for (int i = 0; i < points; i++) {
+            if (bound[i] && !pass[i]) {
+                continue;
+            }
+            least = Math.min(least, Math.max(intercept[i] + slope[i] * lo, intercept[i] + slope[i] * hi));
+        }
+        return least;
     }
 
     /**
