@@ -161,6 +161,23 @@ class StoreSearchTest {
         assertThat(hits.get(0).worstMarginDecades()).isCloseTo(Math.log10(0.01 / 0.8), within(2e-4));
     }
 
+    @Test
+    void aFixedPartAskedAtAnotherThicknessComesAfterEveryMissInBothPasses() {
+        // a coating (not rescaled) measured at 1 mm, asked at 3 mm: nothing can be judged, so it ranks last
+        // (RankingOrder, our own definition), in the first pass over one thickness as in the full model
+        SpectralStore.Builder b = SpectralStore.builder(GRID, 2);
+        b.add(1, new StoredMaterial(1, "Coated film", "film"), 1, false, false, new ConstantIndex(1.5), flat(0.9));
+        b.add(2, new StoredMaterial(2, "Dark sheet", "plastic sheet"), 3, true, false, new ConstantIndex(1.5), flat(0.01));
+        SpectralStore store = b.build();
+        Requirement r = requirement(ThicknessSpec.at(3), pass(0.8, 365));
+
+        assertThat(StoreSearch.search(store, r, 1).hits()).extracting(StoreHit::sampleId).containsExactly(2L);
+        assertThat(StoreSearch.search(store, r, 2).hits()).extracting(StoreHit::sampleId).containsExactly(2L, 1L);
+        assertThat(StoreSearch.search(store, r, 2).hits()).extracting(StoreHit::sampleId, StoreHit::verdict)
+                .containsExactlyElementsOf(StoreSearch.searchExhaustively(store, r, 2).hits().stream()
+                        .map(h -> org.assertj.core.groups.Tuple.tuple(h.sampleId(), h.verdict())).toList());
+    }
+
     // ---- fixtures
 
     static SpectralStore randomStore(int curves, int materials, long seed) {
