@@ -241,7 +241,18 @@ export function initSearch(ui) {
     dom.summary.textContent = `Evaluated ${answer.evaluatedSamples} samples in ${fmt.number(answer.tookMs, 1)} ms`
       + ` · ${n === 1 ? '1 result' : `${n} results`} for “${requirement.text}”`
       + (answer.layer ? ` · ${answer.layer.explanation}` : '');
-    const rows = answer.results.flatMap((result) => resultRows(result, requirement));
+    // the rows come grouped (meets, unverified, misses, not judged); each group under the server's heading,
+    // the same words the command line prints, so a row with nothing judged never reads as a candidate
+    const headings = new Map((answer.groups || []).map((g) => [g.group, g.heading]));
+    let group = null;
+    const rows = answer.results.flatMap((result) => {
+      const out = resultRows(result, requirement);
+      if (result.group && result.group !== group) {
+        group = result.group;
+        out.unshift(groupRow(group, headings.get(group) || group));
+      }
+      return out;
+    });
     if (!rows.length) {
       const tr = document.createElement('tr');
       const td = document.createElement('td');
@@ -255,11 +266,24 @@ export function initSearch(ui) {
     markStale();
   }
 
+  function groupRow(group, heading) {
+    const tr = document.createElement('tr');
+    tr.className = 'result-group';
+    tr.dataset.group = group;
+    const th = document.createElement('th');
+    th.scope = 'rowgroup';
+    th.colSpan = 8;
+    th.textContent = heading;
+    tr.append(th);
+    return tr;
+  }
+
   function resultRows(result, requirement) {
     const tr = document.createElement('tr');
     tr.dataset.resultMaterialId = result.materialId;
     tr.dataset.sampleId = result.sampleId;
     tr.dataset.verdict = result.verdict;
+    tr.dataset.group = result.group || '';
 
     const open = document.createElement('button');
     open.type = 'button';
@@ -297,7 +321,10 @@ export function initSearch(ui) {
       verdictCell(result.verdict),
       thicknessCell(result),
       geometryCell(result.geometry),
-      cell(fmt.signedDecades(result.worstMarginDecades), 'num margin'),
+      result.worstMarginIsBound
+        ? cell(`≤ ${fmt.signedDecades(result.worstMarginDecades)}`, 'num margin bound',
+          'shown only by a detection limit: the true miss may be larger')
+        : cell(fmt.signedDecades(result.worstMarginDecades), 'num margin'),
       cell(result.bindingClause || '—', result.bindingClause ? 'binding' : 'muted'),
       toggleCell,
     );

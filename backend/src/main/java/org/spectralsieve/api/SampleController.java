@@ -5,6 +5,7 @@ import org.spectralsieve.export.SampleCurveCsv;
 import org.spectralsieve.library.SampleCurve;
 import org.spectralsieve.library.SampleCurves;
 import org.spectralsieve.spectrum.Curve;
+import org.spectralsieve.spectrum.StatedCurve;
 import org.spectralsieve.spectrum.WavelengthGrid;
 import org.springframework.http.HttpHeaders;
 import org.springframework.http.MediaType;
@@ -36,7 +37,7 @@ class SampleController {
                         @RequestParam(name = "to", required = false) Double to,
                         @RequestParam(name = "step", required = false) Double step) {
         SampleCurve result = fetch(id, thicknessMm, from, to, step);
-        Curve c = result.curve();
+        Curve c = StatedCurve.of(result.curve()); // nothing beneath OD 12, as the CSV
         return new CurveResponse(id, result.thicknessMm(), result.rescaled(), c.wavelengthsNm(), c.transmittances(),
                 c.belowDetectionFlags(), c.maxDetectionLimit());
     }

@@ -11,7 +11,10 @@ import org.spectralsieve.requirement.Requirement;
 import org.spectralsieve.requirement.SampleEvaluation;
 import org.spectralsieve.requirement.StockAdvice;
 import org.spectralsieve.requirement.StackLayer;
+import org.spectralsieve.requirement.Standing;
+import org.spectralsieve.requirement.TransmittanceClause;
 import org.spectralsieve.requirement.WeightedClause;
+import org.spectralsieve.spectrum.StatedCurve;
 import org.spectralsieve.search.Shortlist;
 
 /**
@@ -21,6 +24,12 @@ import org.spectralsieve.search.Shortlist;
  * {@code layer} names the library sample that stood in every light path; with eye or skin safety figures
  * (erythemal, UV hazard, blue-light weighting) the answer carries the same {@code caution} as the
  * weighted-figures endpoint.
+ *
+ * <p>Rows come in the order of {@link org.spectralsieve.requirement.RankingOrder}; {@code group} names the
+ * row's group ({@code meets}, {@code unverified}, {@code misses}, {@code not-judged}: no clause could be
+ * judged at the asked thickness or on the measured range) and {@code worstMarginIsBound} marks a miss
+ * shown only by a detection-limit bound, whose margin is an upper bound (the true miss may be larger).
+ * A transmittance under OD 12 is given as the bound 1e-12 ({@code valueIsBound}), never as 1e-236 or 0.
  */
 public final class ShortlistJson {
 
@@ -33,10 +42,31 @@ public final class ShortlistJson {
         caution(shortlist.requirement()).ifPresent(c -> json.put("caution", c));
         shortlist.layer().ifPresent(layer -> json.put("layer", layer(layer)));
         json.put("results", shortlist.rows().stream().map(r -> row(r, shortlist.geometry(r))).toList());
+        json.put("groups", groups(shortlist));
         json.put("evaluatedSamples", shortlist.evaluatedSamples());
         json.put("judgedExactly", shortlist.judgedExactly());
         json.put("tookMs", Math.round(shortlist.tookMs() * 1000) / 1000.0);
         return json;
+    }
+
+    /**
+     * The groups present, in order, each with its heading and row count: the page and the command line
+     * print these headings over the rows, so a not-judged row is never mistaken for a candidate.
+     */
+    private static List<Map<String, Object>> groups(Shortlist shortlist) {
+        Map<String, Integer> counts = new LinkedHashMap<>();
+        for (RankedRow row : shortlist.rows()) {
+            counts.merge(row.evaluation().standing().group(), 1, Integer::sum);
+        }
+        List<Map<String, Object>> groups = new ArrayList<>();
+        counts.forEach((group, count) -> {
+            Map<String, Object> json = new LinkedHashMap<>();
+            json.put("group", group);
+            json.put("heading", Standing.heading(group));
+            json.put("rows", count);
+            groups.add(json);
+        });
+        return groups;
     }
 
     /** The screening caution, when the requirement asks for an eye or skin safety figure. */
@@ -70,17 +100,20 @@ public final class ShortlistJson {
         json.put("sampleId", e.sampleId());
         json.put("geometry", geometry);
         json.put("verdict", e.verdict().name().toLowerCase(Locale.ROOT));
+        json.put("group", e.standing().group());
         json.put("thicknessMm", finiteOrNull(e.thicknessMm()));
         json.put("thicknessRangeMm", e.feasibleMm() == null ? null : List.of(e.feasibleMm().loMm(), e.feasibleMm().hiMm()));
         json.put("stockThicknesses", stock(e.stockAdvice()));
         json.put("worstMarginDecades", finiteOrNull(e.worstMarginDecades()));
+        json.put("worstMarginIsBound", e.standing().marginIsBound());
         json.put("bindingClause", e.bindingClauseIndex() < 0 ? null : e.clauses().get(e.bindingClauseIndex()).clause().text());
         List<Map<String, Object>> clauses = new ArrayList<>();
         for (ClauseResult c : e.clauses()) {
             Map<String, Object> clause = new LinkedHashMap<>();
             clause.put("text", c.clause().text());
-            clause.put("value", finiteOrNull(c.value()));
-            clause.put("valueIsBound", c.valueIsBound());
+            boolean beyond = isTransmittance(c) && c.value() < StatedCurve.SMALLEST_STATED_T;
+            clause.put("value", beyond ? Double.valueOf(StatedCurve.SMALLEST_STATED_T) : finiteOrNull(c.value()));
+            clause.put("valueIsBound", beyond || c.valueIsBound());
             clause.put("threshold", c.threshold());
             clause.put("marginDecades", finiteOrNull(c.marginDecades()));
             clause.put("verdict", c.verdict().name().toLowerCase(Locale.ROOT));
@@ -114,6 +147,11 @@ public final class ShortlistJson {
         json.put("verdict", f.verdict().name().toLowerCase(Locale.ROOT));
         json.put("worstMarginDecades", finiteOrNull(f.worstMarginDecades()));
         return json;
+    }
+
+    /** Whether the clause's value is a transmittance (not a wavelength in nm). */
+    private static boolean isTransmittance(ClauseResult c) {
+        return c.clause() instanceof TransmittanceClause || c.clause() instanceof WeightedClause;
     }
 
     private static Double finiteOrNull(double value) {

@@ -11,6 +11,7 @@ import org.spectralsieve.requirement.Requirement;
 import org.spectralsieve.requirement.RequirementParser;
 import org.spectralsieve.requirement.RequirementSyntaxException;
 import org.spectralsieve.requirement.SampleEvaluation;
+import org.spectralsieve.requirement.Standing;
 import org.spectralsieve.requirement.ThicknessSpec;
 import org.spectralsieve.search.LayerResolutionException;
 import org.spectralsieve.search.SearchService;
@@ -130,7 +131,14 @@ final class SearchCommand implements Callable<Integer> {
         }
         columns.add("binding clause");
         TextTable table = new TextTable(columns);
+        String group = null;
         for (RankedRow row : shortlist.rows()) {
+            // the rows come grouped (RankingOrder); each group gets the page's heading
+            String rowGroup = row.evaluation().standing().group();
+            if (!rowGroup.equals(group)) {
+                table.heading(Standing.heading(rowGroup));
+                group = rowGroup;
+            }
             table.add(cells(row, shortlist.geometry(row), solving), explanations(row.evaluation()));
         }
         return table;
@@ -139,7 +147,7 @@ final class SearchCommand implements Callable<Integer> {
     private static List<String> cells(RankedRow row, String geometry, boolean solving) {
         SampleEvaluation e = row.evaluation();
         List<String> cells = new ArrayList<>(List.of(String.valueOf(row.position()), row.materialName(),
-                String.valueOf(e.sampleId()), geometry == null ? Numbers.NONE : geometry, Numbers.mm(e.thicknessMm()), verdict(e), Numbers.decades(e.worstMarginDecades())));
+                String.valueOf(e.sampleId()), geometry == null ? Numbers.NONE : geometry, Numbers.mm(e.thicknessMm()), verdict(e), margin(e)));
         if (solving) {
             cells.add(e.feasibleMm() == null ? Numbers.NONE
                     : Numbers.mm(e.feasibleMm().loMm()) + " to " + Numbers.mm(e.feasibleMm().hiMm()));
@@ -158,6 +166,12 @@ final class SearchCommand implements Callable<Integer> {
             lines.add(c.verdict().name().toLowerCase(Locale.ROOT) + ": " + c.explanation());
         }
         return lines;
+    }
+
+    /** The worst margin; "≤" when it rests on a detection-limit bound (the true miss may be larger). */
+    private static String margin(SampleEvaluation e) {
+        String decades = Numbers.decades(e.worstMarginDecades());
+        return e.standing().marginIsBound() ? "≤ " + decades : decades;
     }
 
     private static String verdict(SampleEvaluation e) {

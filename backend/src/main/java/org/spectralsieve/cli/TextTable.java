@@ -17,7 +17,8 @@ final class TextTable {
     private final boolean[] rightAligned;
     private final List<Row> rows = new ArrayList<>();
 
-    private record Row(List<String> cells, List<String> details) {
+    /** A row of cells, or (cells null) a heading printed across the table. */
+    private record Row(List<String> cells, List<String> details, String heading) {
     }
 
     /** @param columns header names; a leading '>' marks a right-aligned column (and is not printed) */
@@ -34,11 +35,16 @@ final class TextTable {
             throw new IllegalArgumentException("row has " + cells.size() + " cells, the table " + headers.size()
                     + " columns: " + cells);
         }
-        rows.add(new Row(List.copyOf(cells), List.copyOf(details)));
+        rows.add(new Row(List.copyOf(cells), List.copyOf(details), null));
     }
 
     void add(List<String> cells) {
         add(cells, List.of());
+    }
+
+    /** A line printed across the table before the rows that follow, for groups of rows. */
+    void heading(String text) {
+        rows.add(new Row(null, List.of(), text));
     }
 
     void print(PrintWriter out) {
@@ -46,11 +52,17 @@ final class TextTable {
         for (int i = 0; i < widths.length; i++) {
             widths[i] = headers.get(i).length();
             for (Row row : rows) {
-                widths[i] = Math.max(widths[i], row.cells().get(i).length());
+                if (row.cells() != null) {
+                    widths[i] = Math.max(widths[i], row.cells().get(i).length());
+                }
             }
         }
         out.println(line(headers, widths));
         for (Row row : rows) {
+            if (row.cells() == null) {
+                out.println("-- " + row.heading());
+                continue;
+            }
             out.println(line(row.cells(), widths));
             row.details().forEach(d -> out.println(DETAIL_INDENT + d));
         }

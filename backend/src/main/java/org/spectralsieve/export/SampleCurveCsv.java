@@ -5,11 +5,14 @@ import java.util.Map;
 import org.spectralsieve.importers.DelimitedTextWriter;
 import org.spectralsieve.library.SampleCurve;
 import org.spectralsieve.spectrum.Curve;
+import org.spectralsieve.spectrum.StatedCurve;
 
 /**
  * A sample's curve in the project's own CSV, with the metadata that lets the file stand alone (which
  * material, which thickness, whether it was rescaled, how it was measured). Written the same way for
  * the HTTP download and the command line, so a file from either reads back through the same importer.
+ * Numbers go through {@link StatedCurve}: nothing beneath OD 12 (a curve rescaled to a thick part would
+ * otherwise write limits of 1e-236), and no {@code detection_limit} line when none is recorded (0).
  */
 public final class SampleCurveCsv {
 
@@ -25,11 +28,13 @@ public final class SampleCurveCsv {
         metadata.put("rescaled", String.valueOf(result.rescaled()));
         metadata.put("geometry", result.sample().geometry().label());
         metadata.put("provenance", result.sample().provenance().label());
-        metadata.put("detection_limit", String.valueOf(result.curve().maxDetectionLimit()));
+        Curve c = StatedCurve.of(result.curve());
+        if (c.maxDetectionLimit() > 0) {
+            metadata.put("detection_limit", String.valueOf(c.maxDetectionLimit()));
+        }
         if (!result.sample().notes().isBlank()) {
             metadata.put("note", result.sample().notes());
         }
-        Curve c = result.curve();
         return DelimitedTextWriter.write(metadata, c.wavelengthsNm(), c.transmittances(), c.belowDetectionFlags());
     }
 

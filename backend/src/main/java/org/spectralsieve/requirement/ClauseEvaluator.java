@@ -128,9 +128,12 @@ public final class ClauseEvaluator {
                                   Verdict verdict) {
         String need = Wording.need(direction, threshold);
         if (!bounded) {
-            return subject + " is " + Wording.percent(t) + ", needs " + need;
+            return subject + " is " + Wording.transmittance(t) + ", needs " + need;
         }
-        String head = subject + " is below the detection limit of " + Wording.percent(t);
+        // a detection limit rescaled to a thick part can fall to 1e-236 or to 0: say what can be said
+        String head = Wording.statable(t)
+                ? subject + " is below the detection limit of " + Wording.percent(t)
+                : subject + " is below a detection limit that is itself " + Wording.BEYOND_OD_12;
         if (verdict == Verdict.MEETS) {
             return head + ", so it is " + need;
         }

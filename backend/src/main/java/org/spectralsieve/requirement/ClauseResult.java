@@ -30,6 +30,11 @@ public record ClauseResult(Clause clause, double value, double threshold, double
         this(clause, value, threshold, marginDecades, verdict, explanation, false);
     }
 
+    /** Whether the data said nothing on this clause: no reading, no margin (see {@link #unjudgeable}). */
+    public boolean unjudged() {
+        return verdict == Verdict.UNVERIFIED && Double.isNaN(value) && Double.isNaN(marginDecades);
+    }
+
     /** A clause the data cannot judge at all (no reading): value and margin NaN. */
     static ClauseResult unjudgeable(Clause clause, double threshold, String explanation) {
         return new ClauseResult(clause, Double.NaN, threshold, Double.NaN, Verdict.UNVERIFIED, explanation, false);

@@ -91,7 +91,7 @@ final class FigureClauses {
         if (!span.bounded()) {
             value = span.upper();
             verdict = Margins.holds(direction, value, threshold) ? Verdict.MEETS : Verdict.MISSES;
-            text = subject + " is " + Wording.percent(value) + ", needs " + need;
+            text = subject + " is " + Wording.transmittance(value) + ", needs " + need;
         } else if (Margins.holds(direction, span.provenFor(direction), threshold)) {
             value = span.provenFor(direction);
             verdict = Verdict.MEETS;
@@ -104,7 +104,7 @@ final class FigureClauses {
         } else {
             value = span.upper();
             verdict = Verdict.UNVERIFIED;
-            text = subject + " lies between " + Wording.percent(span.lower()) + " and " + Wording.percent(span.upper())
+            text = subject + " lies between " + Wording.percent(span.lower()) + " and " + Wording.transmittance(span.upper())
                     + " (points below the detection limit): cannot show " + need;
         }
         double margin = Margins.of(direction, value, threshold);

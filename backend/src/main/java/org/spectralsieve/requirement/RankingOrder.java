@@ -6,10 +6,18 @@ import java.util.function.ToDoubleFunction;
 import java.util.function.ToLongFunction;
 
 /**
- * The one order of results, kept here so every engine ranks alike: MEETS, then UNVERIFIED, then MISSES;
- * within each, worst margin descending (the least-missing miss first), NaN margins last; ties by material
- * name (case-insensitive, then exact, so the order is total) and then sample id ascending. −0.0 and 0.0
- * count as equal.
+ * The one order of results, kept here so every engine ranks alike (docs/ranking.md):
+ * <ol>
+ *   <li>by {@link Standing}: meets, unverified (judged on some data), misses read from a value, misses
+ *       shown only by a detection-limit bound, and last the rows where no clause could be judged;</li>
+ *   <li>within a group, worst margin descending (the least-missing miss first; a bounded miss by its bound),
+ *       NaN margins last;</li>
+ *   <li>ties by material name (case-insensitive, then exact, so the order is total) and then sample id
+ *       ascending. −0.0 and 0.0 count as equal.</li>
+ * </ol>
+ * Why bounded misses go after every valued miss: a bound says only that T lies somewhere under it, and a
+ * rescaled detection limit can sit decades above the real value, so ranking by the bound would make a
+ * sample that passes almost nothing look nearly good enough.
  */
 public final class RankingOrder {
 
@@ -18,25 +26,25 @@ public final class RankingOrder {
 
     /** The order on material evaluations (used by {@link Ranking}). */
     public static final Comparator<MaterialEvaluation> MATERIAL_EVALUATIONS = of(
-            m -> m.evaluation().verdict(), m -> m.evaluation().worstMarginDecades(),
+            m -> m.evaluation().standing(), m -> m.evaluation().worstMarginDecades(),
             MaterialEvaluation::materialName, m -> m.evaluation().sampleId());
 
     private RankingOrder() {
     }
 
     /** The same order on any row type, for engines with their own result rows. */
-    public static <T> Comparator<T> of(Function<T, Verdict> verdict, ToDoubleFunction<T> worstMargin,
+    public static <T> Comparator<T> of(Function<T, Standing> standing, ToDoubleFunction<T> worstMargin,
                                        Function<T, String> materialName, ToLongFunction<T> sampleId) {
-        return (a, b) -> compare(verdict.apply(a), worstMargin.applyAsDouble(a), materialName.apply(a),
-                sampleId.applyAsLong(a), verdict.apply(b), worstMargin.applyAsDouble(b), materialName.apply(b),
+        return (a, b) -> compare(standing.apply(a), worstMargin.applyAsDouble(a), materialName.apply(a),
+                sampleId.applyAsLong(a), standing.apply(b), worstMargin.applyAsDouble(b), materialName.apply(b),
                 sampleId.applyAsLong(b));
     }
 
-    public static int compare(Verdict verdictA, double marginA, String nameA, long sampleA,
-                              Verdict verdictB, double marginB, String nameB, long sampleB) {
-        int byVerdict = Integer.compare(rank(verdictA), rank(verdictB));
-        if (byVerdict != 0) {
-            return byVerdict;
+    public static int compare(Standing standingA, double marginA, String nameA, long sampleA,
+                              Standing standingB, double marginB, String nameB, long sampleB) {
+        int byStanding = standingA.compareTo(standingB);
+        if (byStanding != 0) {
+            return byStanding;
         }
         int byMargin = marginDescendingNaNLast(marginA, marginB);
         if (byMargin != 0) {
@@ -44,14 +52,6 @@ public final class RankingOrder {
         }
         int byName = NAMES.compare(nameA, nameB);
         return byName != 0 ? byName : Long.compare(sampleA, sampleB);
-    }
-
-    private static int rank(Verdict verdict) {
-        return switch (verdict) {
-            case MEETS -> 0;
-            case UNVERIFIED -> 1;
-            case MISSES -> 2;
-        };
     }
 
     private static int marginDescendingNaNLast(double a, double b) {

@@ -11,7 +11,9 @@ import java.util.Objects;
  * variable, the thicknesses within the asked range at which every clause is proven to hold; null when
  * thickness is not a variable or no thickness works. {@code verdict}: MEETS only if every clause meets,
  * MISSES if any misses, otherwise UNVERIFIED. {@code worstMarginDecades}: the smallest clause margin
- * ignoring NaN (NaN when all are NaN); {@code bindingClauseIndex}: the index of that clause, −1 when none.
+ * ignoring NaN (NaN when all are NaN) — for a miss, the smallest margin among the clauses that fail, since
+ * a miss is bound by the clause it fails, not by one it cannot verify; {@code bindingClauseIndex}: the
+ * index of that clause, −1 when none. {@link #standing()} places the row in the shortlist's groups.
  * {@code stockAdvice}: the stock sizes to buy when thickness was a design variable ({@link StockAdvice#NONE}
  * otherwise).
  */
@@ -41,13 +43,16 @@ public record SampleEvaluation(long sampleId, double thicknessMm, ThicknessInter
             throw new IllegalArgumentException("sample " + sampleId + " was judged against no clause");
         }
         Verdict verdict = Verdict.MEETS;
+        for (ClauseResult r : clauses) {
+            verdict = Margins.combine(verdict, r.verdict());
+        }
         double worst = Double.NaN;
         int binding = -1;
         for (int i = 0; i < clauses.size(); i++) {
             ClauseResult r = clauses.get(i);
-            verdict = Margins.combine(verdict, r.verdict());
             double m = r.marginDecades();
-            if (!Double.isNaN(m) && (binding < 0 || m < worst)) {
+            boolean counts = verdict != Verdict.MISSES || r.verdict() == Verdict.MISSES;
+            if (counts && !Double.isNaN(m) && (binding < 0 || m < worst)) {
                 worst = m;
                 binding = i;
             }
@@ -59,5 +64,21 @@ public record SampleEvaluation(long sampleId, double thicknessMm, ThicknessInter
     public SampleEvaluation withThicknessAdvice(ThicknessInterval feasible, StockAdvice advice) {
         return new SampleEvaluation(sampleId, thicknessMm, feasible, verdict, worstMarginDecades, bindingClauseIndex,
                 clauses, advice);
+    }
+
+    /**
+     * The row's group in the shortlist ({@link Standing}): no clause judged at all comes last; a miss whose
+     * binding (worst failed) clause rests on a detection-limit bound comes after every miss read from a value.
+     */
+    public Standing standing() {
+        if (clauses.stream().allMatch(ClauseResult::unjudged)) {
+            return Standing.NOT_JUDGED;
+        }
+        return switch (verdict) {
+            case MEETS -> Standing.MEETS;
+            case UNVERIFIED -> Standing.UNVERIFIED;
+            case MISSES -> bindingClauseIndex >= 0 && clauses.get(bindingClauseIndex).valueIsBound()
+                    ? Standing.MISSES_ON_BOUND : Standing.MISSES;
+        };
     }
 }

@@ -3,15 +3,45 @@ package org.spectralsieve.requirement;
 import java.math.BigDecimal;
 import java.math.MathContext;
 import java.math.RoundingMode;
+import org.spectralsieve.spectrum.Curve;
 
-/** Numbers as the explanations print them: locale-independent, three significant digits, no trailing zeros. */
+/**
+ * Numbers as the explanations print them: locale-independent, three significant digits, no trailing zeros.
+ *
+ * <p>Transmittances found on a curve are stated down to OD 12 (T = 1e-12, {@link Curve#ABSORBANCE_FLOOR_T},
+ * the floor the margins already use) and no further: a rescaled reading or detection limit can reach
+ * 1e-236 or underflow to 0, numbers no instrument can support. Below that the text says so instead.
+ */
 final class Wording {
+
+    /** The smallest transmittance an explanation states as a number: OD 12. */
+    static final double SMALLEST_STATED_T = Curve.ABSORBANCE_FLOOR_T;
+    /** What an explanation says for a transmittance under {@link #SMALLEST_STATED_T}. */
+    static final String BEYOND_OD_12 = "below OD 12 (T < 1e-12), the most this tool states";
 
     private Wording() {
     }
 
     static String percent(double t) {
         return significant(t * 100, 3) + " %";
+    }
+
+    /**
+     * A transmittance read from a curve (a value, or a bound on one): as a percentage, or, under OD 12,
+     * {@link #BEYOND_OD_12} — never 1e-236 % or 0 %.
+     */
+    static String transmittance(double t) {
+        return statable(t) ? percent(t) : BEYOND_OD_12;
+    }
+
+    /** "at most 3 %", or {@link #BEYOND_OD_12} for an upper bound too small to state. */
+    static String atMost(double t) {
+        return statable(t) ? "at most " + percent(t) : BEYOND_OD_12;
+    }
+
+    /** Whether a transmittance is large enough to state as a number (at or above OD 12; NaN is left as is). */
+    static boolean statable(double t) {
+        return !(t < SMALLEST_STATED_T);
     }
 
     static String nm(double nm) {

@@ -23,7 +23,8 @@
  *       maximising the worst margin.</li>
  *   <li>{@link org.spectralsieve.requirement.SampleEvaluator} applies the requirement's thickness rule
  *       to one {@link org.spectralsieve.requirement.Candidate}; {@link org.spectralsieve.requirement.Ranking}
- *       orders the results by {@link org.spectralsieve.requirement.RankingOrder}, one row per material.</li>
+ *       orders the results by {@link org.spectralsieve.requirement.RankingOrder}, one row per material, in the
+ *       groups of {@link org.spectralsieve.requirement.Standing} (docs/ranking.md).</li>
  * </ul>
  * Weighted clauses ({@link org.spectralsieve.requirement.WeightedClause}: an emitter's light, a response,
  * erythemal, UV hazard, luminous) and the critical wavelength are judged on integrated figures from

@@ -31,10 +31,10 @@ import org.spectralsieve.requirement.Ranking;
 import org.spectralsieve.requirement.Requirement;
 import org.spectralsieve.requirement.SampleEvaluator;
 import org.spectralsieve.requirement.SeeThrough;
+import org.spectralsieve.requirement.Standing;
 import org.spectralsieve.requirement.StackLayer;
 import org.spectralsieve.requirement.ThicknessSpec;
 import org.spectralsieve.requirement.TransmittanceClause;
-import org.spectralsieve.requirement.Verdict;
 import org.spectralsieve.spectrum.Curve;
 import org.spectralsieve.store.MissScreen;
 import org.spectralsieve.store.SpectralStore;
@@ -226,14 +226,23 @@ public class SearchService {
         return s.samples().get(e.evaluation().sampleId()).geometry() == Geometry.REGULAR;
     }
 
-    /** Whether a material that misses with a worst margin of at most {@code bound} could take a place in the rows. */
+    /**
+     * Whether a material that misses with a worst margin of at most {@code bound} could take a place in the
+     * rows. Its best possible place is a miss read from a value with margin {@code bound}
+     * ({@link org.spectralsieve.requirement.Standing#MISSES}): the screen proves the miss on a reading above
+     * detection, so the row is never in a better group, and a worse group (a miss on a bound) only ranks lower.
+     */
     private static boolean couldEnter(List<RankedRow> rows, int limit, double bound) {
         if (rows.size() < limit) {
             return true;
         }
         RankedRow last = rows.get(rows.size() - 1);
-        if (last.evaluation().verdict() != Verdict.MISSES) {
+        Standing standing = last.evaluation().standing();
+        if (standing.compareTo(Standing.MISSES) < 0) {
             return false;
+        }
+        if (standing != Standing.MISSES) {
+            return true; // the last row is a bounded miss or not judged: any valued miss ranks above it
         }
         double margin = last.evaluation().worstMarginDecades();
         // a NaN margin ranks after every number; an equal one is decided by name, so it could enter

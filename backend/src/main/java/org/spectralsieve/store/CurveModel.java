@@ -1,6 +1,7 @@
 package org.spectralsieve.store;
 
 import java.util.List;
+import org.spectralsieve.requirement.Standing;
 import org.spectralsieve.requirement.ThicknessSpec;
 import org.spectralsieve.requirement.Verdict;
 
@@ -29,7 +30,12 @@ final class CurveModel {
     private final boolean[] bound;
     /** Beyond this thickness the point is a bound too (a clear reading extrapolated far); +∞ when never. */
     private final double[] farMm;
+    private final int[] clauseOf;
     private boolean anyUnmeasured;
+    /** Full model only: clauses with a probe outside the measured data (judged only if a miss is proven). */
+    private final boolean[] clauseUnmeasured;
+    private final boolean[] missedClause;
+    private int loadingClause;
 
     // mean conditions, only in a full evaluation
     private final List<MeanCondition> means = new java.util.ArrayList<>();
@@ -54,6 +60,9 @@ final class CurveModel {
         pass = new boolean[capacity];
         bound = new boolean[capacity];
         farMm = new double[capacity];
+        clauseOf = new int[capacity];
+        clauseUnmeasured = new boolean[plan.clauses.size()];
+        missedClause = new boolean[plan.clauses.size()];
     }
 
     /** Points a full model at a curve: every probe of every clause, means included. */
@@ -67,9 +76,11 @@ final class CurveModel {
         this.bulk = rescalable(curve);
         points = 0;
         anyUnmeasured = false;
+        java.util.Arrays.fill(clauseUnmeasured, false);
         means.clear();
         int model = store.indexModelOf(curve);
         for (int c = 0; c < plan.clauses.size(); c++) {
+            loadingClause = c;
             CompiledClause clause = plan.clauses.get(c);
             double[] loss = plan.surfaceLoss[model][c];
             double[] clear = plan.unresolvedOd[model][c];
@@ -105,12 +116,14 @@ final class CurveModel {
                           double thresholdOd, boolean isPass) {
         if (!probe.onGrid()) {
             anyUnmeasured = true;
+            clauseUnmeasured[loadingClause] = true;
             return;
         }
         short lo = store.column(probe.lo())[curve];
         short hi = store.column(probe.hi())[curve];
         if (!OdCode.isMeasured(lo) || !OdCode.isMeasured(hi)) {
             anyUnmeasured = true;
+            clauseUnmeasured[loadingClause] = true;
             return;
         }
         double f = probe.fractionHi();
@@ -171,6 +184,7 @@ final class CurveModel {
         // the far thickness is at least d0: only worth computing when the asked thicknesses reach past d0
         farMm[i] = clear && plan.thickness.maxMm() > d0 ? StoreSearch.Plan.farMm(od0, surfaceLoss, d0)
                 : Double.POSITIVE_INFINITY;
+        clauseOf[i] = loadingClause;
         if (isPass) {           // margin = thresholdOd − OD(d)
             intercept[i] = thresholdOd - base;
             slope[i] = -perMm;
@@ -185,7 +199,7 @@ final class CurveModel {
         ThicknessSpec spec = plan.thickness;
         double d = bestThickness(spec);
         judge(d, forcedUnverified(spec));
-        return StoreSearch.Keys.of(verdict, worst);
+        return StoreSearch.Keys.of(standing, worst);
     }
 
     private double bestThickness(ThicknessSpec spec) {
@@ -252,21 +266,62 @@ final class CurveModel {
             double[] within = plan.rangeOf(curve);
             range = feasibleRange(within[0], within[1]);
         }
-        return new StoreSearch.Evaluation(verdict, worst, d, range);
+        return new StoreSearch.Evaluation(verdict, standing, worst, d, range);
     }
 
     // the last judgement, kept in fields so the pass over every curve allocates nothing
     private Verdict verdict;
+    private Standing standing;
     private double worst;
 
-    /** The verdict and worst margin at thickness d (a fixed layer's margins do not depend on d). */
+    /**
+     * The verdict, group and worst margin at thickness d (a fixed layer's margins do not depend on d), in
+     * the exact order's terms ({@link org.spectralsieve.requirement.RankingOrder}): a miss is ranked by its
+     * worst missing reading and goes to the bounded-miss group when that reading is a bound; a curve with
+     * no clause judged (a fixed part asked at another thickness, every clause outside the data) goes last.
+     *
+     * <p>A points-only model gives an upper bound on the full model's key: it reads a subset of the
+     * probes, so its lowest margin and its lowest missing margin are at least the full ones, and it never
+     * demotes a miss to the bounded group nor (except for the thickness reason, which does not depend on
+     * the probes) a curve to the not-judged group, because the probes it skips could change either.
+     */
     private void judge(double d, boolean forcedUnverified) {
-        int bits = anyUnmeasured || forcedUnverified ? ProbeVerdict.UNVERIFIED : ProbeVerdict.HOLDS;
+        if (forcedUnverified) {
+            // the exact evaluator judges no clause of a fixed part asked at another thickness
+            verdict = Verdict.UNVERIFIED;
+            standing = Standing.NOT_JUDGED;
+            worst = Double.NaN;
+            return;
+        }
+        int bits = anyUnmeasured ? ProbeVerdict.UNVERIFIED : ProbeVerdict.HOLDS;
         double lowest = Double.POSITIVE_INFINITY;
+        double lowestMiss = Double.POSITIVE_INFINITY;
+        boolean lowestMissIsBound = false;
+        boolean[] missed = pointsOnly ? null : missedClause;
+        if (missed != null) {
+            java.util.Arrays.fill(missed, false);
+        }
+        boolean anyJudged = false;
         for (int i = 0; i < points; i++) {
             double margin = intercept[i] + slope[i] * d; // slope is 0 for a fixed layer
             lowest = Math.min(lowest, margin);
-            bits |= ProbeVerdict.of(margin, bound[i] || d > farMm[i], pass[i]);
+            boolean isBound = bound[i] || d > farMm[i];
+            int v = ProbeVerdict.of(margin, isBound, pass[i]);
+            bits |= v;
+            if (v == ProbeVerdict.MISSES) {
+                if (margin < lowestMiss) {
+                    lowestMiss = margin;
+                    lowestMissIsBound = isBound;
+                }
+                if (missed != null) {
+                    missed[clauseOf[i]] = true;
+                }
+            }
+        }
+        if (missed != null) {
+            for (int i = 0; i < points; i++) {
+                anyJudged |= !clauseUnmeasured[clauseOf[i]] || missed[clauseOf[i]];
+            }
         }
         boolean misses = (bits & ProbeVerdict.MISSES) != 0;
         boolean unverified = (bits & ProbeVerdict.UNVERIFIED) != 0;
@@ -276,19 +331,50 @@ final class CurveModel {
                 unverified = true;
                 continue;
             }
+            anyJudged = true;
             lowest = Math.min(lowest, margin);
-            if (mean.anyBoundAt(d, bulk)) {
-                if (mean.pass() && margin < 0) {
-                    misses = true;
-                } else {
-                    unverified = true;
-                }
-            } else if (margin < 0) {
+            boolean meanBound = mean.anyBoundAt(d, bulk);
+            boolean meanMisses = meanBound ? mean.pass() && margin < 0 : margin < 0;
+            if (meanMisses) {
                 misses = true;
+                if (margin < lowestMiss) {
+                    lowestMiss = margin;
+                    lowestMissIsBound = meanBound;
+                }
+            } else if (meanBound) {
+                unverified = true;
             }
         }
-        worst = lowest == Double.POSITIVE_INFINITY ? Double.NaN : lowest; // NaN: nothing measured to judge by
         verdict = misses ? Verdict.MISSES : unverified ? Verdict.UNVERIFIED : Verdict.MEETS;
+        if (misses) {
+            worst = pointsOnly && bulk && plan.thickness.kind() == ThicknessSpec.Kind.RANGE
+                    ? missBoundOverTheRange() : lowestMiss;
+            standing = lowestMissIsBound && !pointsOnly ? Standing.MISSES_ON_BOUND : Standing.MISSES;
+            return;
+        }
+        worst = lowest == Double.POSITIVE_INFINITY ? Double.NaN : lowest; // NaN: nothing measured to judge by
+        standing = !pointsOnly && !anyJudged ? Standing.NOT_JUDGED
+                : verdict == Verdict.MEETS ? Standing.MEETS : Standing.UNVERIFIED;
+    }
+
+    /**
+     * For the points-only bound in a thickness range, where the full model may settle on another thickness
+     * than this one: an upper bound on the full model's lowest missing margin at any thickness. A probe
+     * that can miss (all but a bound on a block, which is never a miss) has a margin line; the full
+     * model's lowest missing margin at its thickness d is at most each such line of ours at d, so at most
+     * the least, over our lines, of the line's larger end in the range.
+     */
+    private double missBoundOverTheRange() {
+        double lo = plan.thickness.minMm();
+        double hi = plan.thickness.maxMm();
+        double least = Double.POSITIVE_INFINITY;
+        for (int i = 0; i < points; i++) {
+            if (bound[i] && !pass[i]) {
+                continue;
+            }
+            least = Math.min(least, Math.max(intercept[i] + slope[i] * lo, intercept[i] + slope[i] * hi));
+        }
+        return least;
     }
 
     /**

@@ -16,7 +16,9 @@ import org.spectralsieve.requirement.MaterialJudge;
 import org.spectralsieve.requirement.NominalThickness;
 import org.spectralsieve.requirement.SampleEvaluator;
 import org.spectralsieve.requirement.ThicknessInterval;
+import org.spectralsieve.requirement.RankingOrder;
 import org.spectralsieve.requirement.Requirement;
+import org.spectralsieve.requirement.Standing;
 import org.spectralsieve.requirement.ThicknessSpec;
 import org.spectralsieve.requirement.Verdict;
 
@@ -110,6 +112,7 @@ public final class StoreSearch {
         final double[][] od;
         final byte[][] state;
         final double[] lowest = new double[CHUNK];
+        final double[] lowestMiss = new double[CHUNK];
         final int[] bits = new int[CHUNK];
         final double[] curveOd;
         final byte[] curveState;
@@ -160,8 +163,10 @@ public final class StoreSearch {
         double[][] od = b.od;
         byte[][] state = b.state;
         double[] lowest = b.lowest;
+        double[] lowestMiss = b.lowestMiss;
         int[] bits = b.bits;
         Arrays.fill(lowest, 0, len, Double.POSITIVE_INFINITY);
+        Arrays.fill(lowestMiss, 0, len, Double.POSITIVE_INFINITY);
         Arrays.fill(bits, 0, len, 0);
         boolean fixed = plan.thickness.kind() == ThicknessSpec.Kind.FIXED;
         double target = plan.thickness.minMm();
@@ -192,7 +197,11 @@ public final class StoreSearch {
                 }
                 double margin = pass ? threshold - value : value - threshold;
                 lowest[j] = Math.min(lowest[j], margin);
-                bits[j] |= ProbeVerdict.of(margin, isBound, pass);
+                int verdict = ProbeVerdict.of(margin, isBound, pass);
+                bits[j] |= verdict;
+                if (verdict == ProbeVerdict.MISSES) {
+                    lowestMiss[j] = Math.min(lowestMiss[j], margin);
+                }
             }
         }
         int count = 0;
@@ -205,12 +214,20 @@ public final class StoreSearch {
             if (!plan.judged(curve)) {
                 continue;
             }
+            eligible[curve] = true;
             if (fixed && !plan.judgeableAt(store, curve, target)) {
-                bits[j] |= ProbeVerdict.UNVERIFIED; // not rescalable, or not made at the asked thickness
+                // not rescalable, or not made at the asked thickness: no clause is judged
+                bound[curve] = Keys.of(Standing.NOT_JUDGED, Double.NaN);
+                continue;
+            }
+            // an upper bound on the full key, as in CurveModel: a miss stays in the valued-miss group
+            Verdict verdict = ProbeVerdict.combine(bits[j]);
+            if (verdict == Verdict.MISSES) {
+                bound[curve] = Keys.of(Standing.MISSES, lowestMiss[j]);
+                continue;
             }
             double worst = lowest[j] == Double.POSITIVE_INFINITY ? Double.NaN : lowest[j];
-            eligible[curve] = true;
-            bound[curve] = Keys.of(ProbeVerdict.combine(bits[j]), worst);
+            bound[curve] = Keys.of(verdict == Verdict.MEETS ? Standing.MEETS : Standing.UNVERIFIED, worst);
         }
         return count;
     }
@@ -347,28 +364,29 @@ public final class StoreSearch {
     }
 
     /** A curve's result in the store's model. */
-    record Evaluation(Verdict verdict, double worstMargin, double thicknessMm, double[] thicknessRange) {
+    record Evaluation(Verdict verdict, Standing standing, double worstMargin, double thicknessMm,
+                      double[] thicknessRange) {
         int key() {
-            return Keys.of(verdict, worstMargin);
+            return Keys.of(standing, worstMargin);
         }
     }
 
-    /** Orders (verdict, margin) as one int: meets above unverified above misses, then margin, in 1e-4 decades. */
+    /**
+     * Orders (group, margin) as one int, in the exact ranking's order ({@link RankingOrder}): the groups of
+     * {@link Standing} best first, then the margin in 1e-4 decades, NaN lowest within its group.
+     */
     static final class Keys {
         private static final double UNIT = 1e-4;
         private static final int SPAN = 1 << 28;
+        private static final int GROUPS = Standing.values().length;
 
         private Keys() {
         }
 
-        static int of(Verdict verdict, double margin) {
-            int category = switch (verdict) {
-                case MEETS -> 2;
-                case UNVERIFIED -> 1;
-                case MISSES -> 0;
-            };
+        static int of(Standing standing, double margin) {
+            int category = GROUPS - 1 - standing.ordinal(); // MEETS highest
             double clamped = Double.isNaN(margin) ? -SPAN / 2.0 : Math.max(-SPAN / 2.0 + 1, Math.min(SPAN / 2.0 - 1, margin / UNIT));
-            return (category - 1) * SPAN + (int) Math.floor(clamped);
+            return (category - GROUPS / 2) * SPAN + (int) Math.floor(clamped);
         }
     }
 

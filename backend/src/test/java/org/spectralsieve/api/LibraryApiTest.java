@@ -114,6 +114,24 @@ class LibraryApiTest {
     }
 
     @Test
+    void csvExportOfAThickRescaleNeverWritesNumbersBeneathOd12() throws Exception {
+        // a plastic sheet rescaled to 1000 mm: its UV transmittance and detection limit fall far beneath
+        // 1e-12 (to 1e-236 and below); files and curve JSON state them as "< 1e-12" (OD 12, our own floor)
+        long sampleId = firstSampleOf(firstMaterialId("plastic sheet")).path("id").asLong();
+        HttpResponse<String> csv = get("/api/samples/" + sampleId + "/curve.csv?thicknessMm=1000");
+        JsonNode json = getJson("/api/samples/" + sampleId + "/curve?thicknessMm=1000", 200);
+
+        assertThat(csv.statusCode()).isEqualTo(200);
+        ParsedSpectrum back = new DelimitedTextReader().read("export.csv", new StringReader(csv.body()));
+        assertThat(java.util.Arrays.stream(back.transmittanceFractions()).min().orElseThrow()).isGreaterThanOrEqualTo(1e-12);
+        assertThat(back.upperBounds()).contains(true);
+        assertThat(csv.body()).doesNotContainPattern("E-(1[3-9]|[2-9]\\d|\\d{3})");
+        assertThat(Double.parseDouble(back.metadata().get("detection_limit"))).isGreaterThanOrEqualTo(1e-12);
+        json.path("transmittance").forEach(t -> assertThat(t.asDouble()).isGreaterThanOrEqualTo(1e-12));
+        assertThat(json.path("detectionLimit").asDouble()).isGreaterThanOrEqualTo(1e-12);
+    }
+
+    @Test
     void unknownIdsAreNotFoundProblems() throws Exception {
         JsonNode material = getJson("/api/materials/999999", 404);
         JsonNode curve = getJson("/api/samples/999999/curve", 404);

@@ -66,9 +66,9 @@ class RankingTest {
 
     @Test
     void orderIsUsableOnAnyRowTypeWithTheSameResult() {
-        record Lite(Verdict v, double m, String name, long id) {
+        record Lite(Standing v, double m, String name, long id) {
         }
-        List<Lite> lite = new ArrayList<>(EXPECTED.stream().map(e -> new Lite(e.evaluation().verdict(),
+        List<Lite> lite = new ArrayList<>(EXPECTED.stream().map(e -> new Lite(e.evaluation().standing(),
                 e.evaluation().worstMarginDecades(), e.materialName(), e.evaluation().sampleId())).toList());
         Collections.shuffle(lite, new Random(7));
         lite.sort(RankingOrder.of(Lite::v, Lite::m, Lite::name, Lite::id));

@@ -161,20 +161,56 @@ class StoreSearchTest {
     }
 
     @Test
-    void oneRowPerMaterialAndMeetsBeforeUnverifiedBeforeMisses() {
-        SpectralStore.Builder b = SpectralStore.builder(GRID, 4);
+    void oneRowPerMaterialInTheExactOrdersGroups() {
+        // groups as RankingOrder (our own definition): meets, unverified on data, misses, nothing judged
+        SpectralStore.Builder b = SpectralStore.builder(GRID, 5);
         StoredMaterial good = new StoredMaterial(1, "Good", "film");
         StoredMaterial bad = new StoredMaterial(2, "Bad", "film");
         StoredMaterial unknown = new StoredMaterial(3, "Unknown", "film");
+        StoredMaterial outside = new StoredMaterial(4, "Outside", "film");
         b.add(10, good, 1, true, false, new ConstantIndex(1.5), flat(0.9));
         b.add(11, good, 2, true, false, new ConstantIndex(1.5), flat(0.85));
         b.add(20, bad, 1, true, false, new ConstantIndex(1.5), flat(0.1));
-        b.add(30, unknown, 1, true, false, new ConstantIndex(1.5),
+        // below a detection limit of 90 %: a bound over the 80 % asked cannot show that light passes
+        b.add(30, unknown, 1, true, false, new ConstantIndex(1.5), Curve.of(GRID.points(), constant(0.85), 0.9));
+        b.add(40, outside, 1, true, false, new ConstantIndex(1.5),
                 Curve.of(new double[] {500, 600}, new double[] {0.9, 0.9}, 0.001));
         List<StoreHit> hits = StoreSearch.search(b.build(), requirement(ThicknessSpec.AS_MEASURED, pass(0.8, 365)), 10).hits();
 
-        assertThat(hits).extracting(StoreHit::sampleId).containsExactly(10L, 30L, 20L);
-        assertThat(hits).extracting(StoreHit::verdict).containsExactly(Verdict.MEETS, Verdict.UNVERIFIED, Verdict.MISSES);
+        assertThat(hits).extracting(StoreHit::sampleId).containsExactly(10L, 30L, 20L, 40L);
+        assertThat(hits).extracting(StoreHit::verdict)
+                .containsExactly(Verdict.MEETS, Verdict.UNVERIFIED, Verdict.MISSES, Verdict.UNVERIFIED);
+    }
+
+    @Test
+    void aMissShownOnlyByABoundRanksAfterAMissReadFromAValue() {
+        // T below a detection limit of 8.94 % at 365 nm (margin at most log10(0.0894 / 0.8) = -0.95 decades)
+        // against a measured 1 % (margin log10(0.01 / 0.8) = -1.90): the measured miss comes first
+        SpectralStore.Builder b = SpectralStore.builder(GRID, 2);
+        b.add(1, new StoredMaterial(1, "Amber lid", "plastic sheet"), 3, true, false, new ConstantIndex(1.5),
+                Curve.of(GRID.points(), constant(0.0001), 0.0894));
+        b.add(2, new StoredMaterial(2, "Dark sheet", "plastic sheet"), 3, true, false, new ConstantIndex(1.5), flat(0.01));
+        List<StoreHit> hits = StoreSearch.search(b.build(), requirement(ThicknessSpec.AS_MEASURED, pass(0.8, 365)), 2).hits();
+
+        assertThat(hits).extracting(StoreHit::sampleId).containsExactly(2L, 1L);
+        assertThat(hits.get(0).worstMarginDecades()).isCloseTo(Math.log10(0.01 / 0.8), within(2e-4));
+    }
+
+    @Test
+    void aFixedPartAskedAtAnotherThicknessComesAfterEveryMissInBothPasses() {
+        // a coating (not rescaled) measured at 1 mm, asked at 3 mm: nothing can be judged, so it ranks last
+        // (RankingOrder, our own definition), in the first pass over one thickness as in the full model
+        SpectralStore.Builder b = SpectralStore.builder(GRID, 2);
+        b.add(1, new StoredMaterial(1, "Coated film", "film"), 1, false, false, new ConstantIndex(1.5), flat(0.9));
+        b.add(2, new StoredMaterial(2, "Dark sheet", "plastic sheet"), 3, true, false, new ConstantIndex(1.5), flat(0.01));
+        SpectralStore store = b.build();
+        Requirement r = requirement(ThicknessSpec.at(3), pass(0.8, 365));
+
+        assertThat(StoreSearch.search(store, r, 1).hits()).extracting(StoreHit::sampleId).containsExactly(2L);
+        assertThat(StoreSearch.search(store, r, 2).hits()).extracting(StoreHit::sampleId).containsExactly(2L, 1L);
+        assertThat(StoreSearch.search(store, r, 2).hits()).extracting(StoreHit::sampleId, StoreHit::verdict)
+                .containsExactlyElementsOf(StoreSearch.searchExhaustively(store, r, 2).hits().stream()
+                        .map(h -> org.assertj.core.groups.Tuple.tuple(h.sampleId(), h.verdict())).toList());
     }
 
     @Test

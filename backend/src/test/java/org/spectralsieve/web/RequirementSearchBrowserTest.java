@@ -82,6 +82,10 @@ class RequirementSearchBrowserTest {
         assertThat(cells.get(3).getText()).isEqualTo("3 mm");
         assertThat(cells.get(4).getText()).as("how the sample was measured").isEqualTo("regular");
         assertThat(cells.get(5).getText()).as("worst margin written with its sign").startsWith("+");
+        // rows come in groups under headings, the meets first (the same words as the command line's)
+        List<WebElement> groups = driver.findElements(By.cssSelector("#results-table tr.result-group"));
+        assertThat(groups.get(0).getText()).isEqualTo("Meets: the data prove every clause");
+        assertThat(groups).extracting(g -> g.getDomAttribute("data-group")).doesNotHaveDuplicates();
         assertThat(driver.findElement(By.id("search-summary")).getText()).matches("Evaluated \\d+ samples in .* ms.*");
         assertThat(driver.findElement(By.id("search-caution")).isDisplayed())
                 .as("no caution for a requirement that only passes light").isFalse();
