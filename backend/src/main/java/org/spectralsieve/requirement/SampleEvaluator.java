@@ -180,10 +180,19 @@ public final class SampleEvaluator {
 
     /** Stock sizes in ranking order: meets first, then larger worst margin, NaN last, then thinner. */
     static final java.util.Comparator<StockAdvice.StockFit> STOCK_ORDER = (a, b) -> {
-        int byRank = RankingOrder.compare(a.verdict(), a.worstMarginDecades(), "", 0,
-                b.verdict(), b.worstMarginDecades(), "", 0);
+        int byRank = RankingOrder.compare(standing(a.verdict()), a.worstMarginDecades(), "", 0,
+                standing(b.verdict()), b.worstMarginDecades(), "", 0);
         return byRank != 0 ? byRank : Double.compare(a.thicknessMm(), b.thicknessMm());
     };
+
+    /** A stock size's group: judged at a size the material is made in, so never "not judged". */
+    private static Standing standing(Verdict verdict) {
+        return switch (verdict) {
+            case MEETS -> Standing.MEETS;
+            case UNVERIFIED -> Standing.UNVERIFIED;
+            case MISSES -> Standing.MISSES;
+        };
+    }
 
     /**
      * The stock sizes proven to meet, best margin first; when none, the one that comes closest and how far

@@ -221,9 +221,9 @@ final class CurveModel {
                 // beyond the cap a pass rests on a far clear reading (a bound): the best below it may rank higher
                 double capped = crossing(range[0], cap);
                 judge(free, false);
-                int freeKey = StoreSearch.Keys.of(verdict, worst);
+                int freeKey = StoreSearch.Keys.of(standing, worst);
                 judge(capped, false);
-                return StoreSearch.Keys.of(verdict, worst) > freeKey ? capped : free;
+                return StoreSearch.Keys.of(standing, worst) > freeKey ? capped : free;
         }
     }
 
