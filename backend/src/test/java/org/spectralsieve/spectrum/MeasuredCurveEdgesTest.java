@@ -8,29 +8,21 @@ import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
-import java.util.Optional;
-import org.junit.jupiter.api.Assumptions;
 import org.junit.jupiter.api.Test;
+import org.spectralsieve.testsupport.ReadsSharedFolder;
+import org.spectralsieve.testsupport.SharedFolder;
 
 /**
  * The cutoff rule on real measured curves (../shared/reference-data/measured-transmittance-aphalo, never
  * copied into the repository; skipped with a message when absent). Expected 50 % points: SOURCES.md §8,
  * "the first rising crossing of 50 % T", computed there independently of this code.
  */
+@ReadsSharedFolder
 class MeasuredCurveEdgesTest {
-
-    private static final String FOLDER = "shared/reference-data/measured-transmittance-aphalo";
 
     /** The file as a curve: wavelength and T in percent, comma, semicolon, tab or space separated. */
     private static Curve measured(String name) throws IOException {
-        Optional<Path> root = Optional.empty();
-        for (Path dir = Path.of("").toAbsolutePath(); dir != null && root.isEmpty(); dir = dir.getParent()) {
-            root = Optional.of(dir.resolve(FOLDER)).filter(Files::isDirectory);
-        }
-        Assumptions.assumeTrue(root.isPresent(), "measured reference curves not present (no ../" + FOLDER
-                + " above " + Path.of("").toAbsolutePath() + "); skipping the cutoffs of " + name);
-        Path file = root.get().resolve(name);
-        Assumptions.assumeTrue(Files.isRegularFile(file), "reference file missing: " + file);
+        Path file = SharedFolder.referenceFile("measured-transmittance-aphalo/" + name);
         List<double[]> points = new ArrayList<>();
         for (String line : Files.readAllLines(file)) {
             String[] f = line.trim().split("[,;\\s]+");
