@@ -33,7 +33,7 @@ public record SlabReading(double reflectance, double internal, double farFactor)
      * Absolute uncertainty u of a transmittance reading near full transmission: ±0.5 %T, the photometric
      * accuracy UV-VIS spectrophotometers are commonly quoted with (±0.3 to ±0.5 %T; common practice, from
      * memory). Deliberately on the safe side of the repeatability real files show: the instrument blank in
-     * ../shared/reference-data/measured-transmittance-aphalo stays within ±0.08 %T of 100 % over 200–1000 nm
+     * ../shared/reference-data/measured-transmittance-… stays within ±0.08 %T of 100 % over 200–1000 nm
      * (±0.64 %T at the array's far ends), its StdDev column about 0.01–0.03 %T in the visible.
      */
     public static final double READING_UNCERTAINTY = 0.005;

@@ -257,7 +257,7 @@ class ReferenceSpectrumApiTest {
     @ReadsSharedFolder
     void solarWeightedUvTransmittanceOfAMeasuredAcrylicSheetMatchesTheSourcesValue(@TempDir Path dir) throws Exception {
         Path g173 = SharedFolder.referenceFile("astm-g173-pvlib/ASTMG173.csv");
-        Path acrylic = SharedFolder.referenceFile("measured-transmittance-aphalo/acrylic-clear-3mm.csv");
+        Path acrylic = SharedFolder.measuredSheet("acrylic-clear-3mm.csv");
         Path wholeNanometres = dir.resolve("ASTMG173-1nm.csv");
         List<String> lines = Files.readAllLines(g173);
         List<String> kept = new ArrayList<>(lines.subList(0, 2));

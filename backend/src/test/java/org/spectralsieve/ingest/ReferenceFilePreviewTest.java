@@ -22,7 +22,7 @@ class ReferenceFilePreviewTest {
 
     @Test
     void measuredAcrylicCsvPreviewsAsDelimitedPercentWithSourcesValues() throws Exception {
-        Path f = SharedFolder.referenceFile("measured-transmittance-aphalo/acrylic-clear-3mm.csv");
+        Path f = SharedFolder.measuredSheet("acrylic-clear-3mm.csv");
 
         FilePreview p = reader.read(f.getFileName().toString(), Files.readAllBytes(f), ImportOptions.defaults());
 

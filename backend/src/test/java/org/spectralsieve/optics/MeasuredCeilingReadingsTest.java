@@ -13,7 +13,7 @@ import org.spectralsieve.weighting.Figure;
 import org.spectralsieve.weighting.LuminousTransmittance;
 
 /**
- * The rescaling rule on real measured spectra (../shared/reference-data/measured-transmittance-aphalo,
+ * The rescaling rule on real measured spectra (../shared/reference-data/measured-transmittance-…,
  * SOURCES.md §8; skipped with a message when absent). Thicknesses are those the files state. Indices at
  * about 589 nm are handbook values from memory (PMMA 1.49, polycarbonate 1.585, soda-lime glass 1.52,
  * LDPE 1.51, cellulose acetate 1.48); PET 1.65 is the demo library's stated index for polyester film.

@@ -9,7 +9,7 @@ import org.spectralsieve.spectrum.Curve;
 import org.spectralsieve.testsupport.SharedFolder;
 
 /**
- * Measured transmittance files from ../shared/reference-data/measured-transmittance-aphalo (never copied into
+ * Measured transmittance files from ../shared/reference-data/measured-transmittance-… (never copied into
  * the repository; see its SOURCES.md §8), read plainly for the rescaling checks: the first two numbers of
  * each data line, T in percent, the instrument floor of 0.01 %T as the detection limit. A test that needs
  * them is skipped with a message when the folder is absent ({@link SharedFolder}; mark it @ReadsSharedFolder).
@@ -23,7 +23,7 @@ public final class MeasuredFiles {
     }
 
     public static Curve curve(String name) {
-        Path file = SharedFolder.referenceFile("measured-transmittance-aphalo/" + name);
+        Path file = SharedFolder.measuredSheet(name);
         try {
             return parse(Files.readAllLines(file));
         } catch (IOException e) {

@@ -12,7 +12,7 @@ import org.spectralsieve.spectrum.Curve;
 
 /**
  * Verdicts on a measured PET film that reads above its lossless ceiling (../shared/reference-data
- * measured-transmittance-aphalo/pet-film-125um.txt, 0.125 mm, SOURCES.md §8; skipped with a message when
+ * measured-transmittance-…/pet-film-125um.txt, 0.125 mm, SOURCES.md §8; skipped with a message when
  * absent; n = 1.65, the demo library's index for polyester film). The solver, the fixed-thickness verdict
  * and the rescaled curve follow one rule, so a thickness inside a reported interval meets and the measured
  * thickness meets exactly when the range around it does.

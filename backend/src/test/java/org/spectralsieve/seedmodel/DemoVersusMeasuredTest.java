@@ -20,7 +20,7 @@ import org.spectralsieve.testsupport.SharedFolder;
 import org.spectralsieve.weighting.LuminousTransmittance;
 
 /**
- * The demo plastics that have a measured counterpart in {@code ../shared/reference-data/measured-transmittance-aphalo}
+ * The demo plastics that have a measured counterpart in {@code ../shared/reference-data/measured-transmittance-…}
  * (open data, GPL ≥ 2, see its SOURCES.md §8: single samples on a diode-array spectrophotometer without an
  * integrating sphere, "reference values only") look like it: the tolerances below are what a practitioner
  * comparing a catalogue curve with a measured sheet of the same kind would accept. The measured files are
@@ -167,7 +167,7 @@ class DemoVersusMeasuredTest {
 
     /** First two numeric columns of a measured file (comma, semicolon, tab or space separated), percent → fraction. */
     private static Spectrum measured(Counterpart c) throws IOException {
-        Path file = SharedFolder.referenceFile("measured-transmittance-aphalo/" + c.measuredFile());
+        Path file = SharedFolder.measuredSheet(c.measuredFile());
         List<double[]> rows = new ArrayList<>();
         for (String line : Files.readAllLines(file)) {
             String[] cells = SEPARATORS.split(line.strip());

@@ -13,7 +13,7 @@ import org.spectralsieve.testsupport.ReadsSharedFolder;
 import org.spectralsieve.testsupport.SharedFolder;
 
 /**
- * The cutoff rule on real measured curves (../shared/reference-data/measured-transmittance-aphalo, never
+ * The cutoff rule on real measured curves (../shared/reference-data/measured-transmittance-…, never
  * copied into the repository; skipped with a message when absent). Expected 50 % points: SOURCES.md §8,
  * "the first rising crossing of 50 % T", computed there independently of this code.
  */
@@ -22,7 +22,7 @@ class MeasuredCurveEdgesTest {
 
     /** The file as a curve: wavelength and T in percent, comma, semicolon, tab or space separated. */
     private static Curve measured(String name) throws IOException {
-        Path file = SharedFolder.referenceFile("measured-transmittance-aphalo/" + name);
+        Path file = SharedFolder.measuredSheet(name);
         List<double[]> points = new ArrayList<>();
         for (String line : Files.readAllLines(file)) {
             String[] f = line.trim().split("[,;\\s]+");

@@ -17,11 +17,11 @@ import org.spectralsieve.testsupport.SharedFolder;
 @ReadsSharedFolder
 class ReferenceDataReadTest {
 
-    private static final String RELATIVE = "measured-transmittance-aphalo/acrylic-clear-3mm.csv";
+    private static final String SHEET = "acrylic-clear-3mm.csv";
 
     @Test
     void clearAcrylicSheetReadsWithSourcesMdValues() throws ImportException {
-        Path file = SharedFolder.referenceFile(RELATIVE);
+        Path file = SharedFolder.measuredSheet(SHEET);
 
         // the header says "Transmittance" but SOURCES.md says the values are percent, so force the kind
         ParsedSpectrum s = new DelimitedTextReader().read(file,
@@ -43,7 +43,7 @@ class ReferenceDataReadTest {
 
     @Test
     void clearAcrylicSheetWithoutOverrideIsReadAsPercentWithAWarningThatItsHeaderNamesNoScale() throws ImportException {
-        Path file = SharedFolder.referenceFile(RELATIVE);
+        Path file = SharedFolder.measuredSheet(SHEET);
 
         ParsedSpectrum s = new DelimitedTextReader().read(file);
 

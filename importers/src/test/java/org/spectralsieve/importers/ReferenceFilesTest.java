@@ -22,7 +22,6 @@ import org.spectralsieve.testsupport.SharedFolder;
 @ReadsSharedFolder
 class ReferenceFilesTest {
 
-    private static final String APHALO = "measured-transmittance-aphalo/";
     private static final String DIY = "diy-spectrometer/";
 
     private final DelimitedTextReader reader = new DelimitedTextReader();
@@ -49,7 +48,7 @@ class ReferenceFilesTest {
             "pet-film-125um.txt                   | 190 | 800  | 0.3   | 91.3  | 92.1  | false"})
     void everyMeasuredFileReadsAsPercentWithTheSourcesValues(String name, double first, double last, double t300,
             double t400, double t550, boolean headerSaysPercent) throws ImportException {
-        ParsedSpectrum s = reader.read(SharedFolder.referenceFile(APHALO + name));
+        ParsedSpectrum s = reader.read(SharedFolder.measuredSheet(name));
 
         assertThat(s.yKind()).isEqualTo(YKind.TRANSMITTANCE_PERCENT);
         assertThat(s.xUnit()).isEqualTo(XUnit.NANOMETRE);
@@ -66,7 +65,7 @@ class ReferenceFilesTest {
 
     @Test
     void semicolonFilesAreDetectedAndTheirStdDevColumnIgnored() throws ImportException {
-        ParsedSpectrum s = reader.read(SharedFolder.referenceFile(APHALO + "instrument-blank.csv"));
+        ParsedSpectrum s = reader.read(SharedFolder.measuredSheet("instrument-blank.csv"));
 
         // SOURCES.md §8: blank ≈100.03 throughout, up to 100.43
         assertThat(Arrays.stream(s.values()).max().orElseThrow()).isCloseTo(100.43, within(0.005));
@@ -75,7 +74,7 @@ class ReferenceFilesTest {
 
     @Test
     void darkFileSitsOnTheInstrumentFloorWithAMaximumOfPointFiveFour() throws ImportException {
-        ParsedSpectrum s = reader.read(SharedFolder.referenceFile(APHALO + "instrument-dark.csv"));
+        ParsedSpectrum s = reader.read(SharedFolder.measuredSheet("instrument-dark.csv"));
 
         // SOURCES.md §8: floor 0.0100, max 0.54 (%T)
         assertThat(Arrays.stream(s.values()).min().orElseThrow()).isCloseTo(0.0100, within(1e-6));
@@ -84,7 +83,7 @@ class ReferenceFilesTest {
 
     @Test
     void ldpeReplicatePairsReadFirstByDefaultWithAWarningNamingTheSecond() throws ImportException {
-        ParsedSpectrum s = reader.read(SharedFolder.referenceFile(APHALO + "ldpe-film-50um.txt"));
+        ParsedSpectrum s = reader.read(SharedFolder.measuredSheet("ldpe-film-50um.txt"));
 
         assertThat(s.warnings()).anyMatch(w -> w.contains("w.length.2/transmittance.2"));
         assertThat(s.metadata()).doesNotContainKey("replicate");
@@ -93,7 +92,7 @@ class ReferenceFilesTest {
 
     @Test
     void ldpeReplicatesReadSeparatelyOrAsTheirMean() throws ImportException {
-        Path file = SharedFolder.referenceFile(APHALO + "ldpe-film-50um.txt");
+        Path file = SharedFolder.measuredSheet("ldpe-film-50um.txt");
 
         List<ParsedSpectrum> both = reader.readAll(file, ReadOptions.defaults().replicates(Replicates.SEPARATE));
         ParsedSpectrum mean = reader.read(file, ReadOptions.defaults().replicates(Replicates.MEAN));
@@ -110,7 +109,7 @@ class ReferenceFilesTest {
 
     @Test
     void acetateFileWithMixedTabsAndSpacesKeepsItsCommentsAsPlainRemarks() throws ImportException {
-        ParsedSpectrum s = reader.read(SharedFolder.referenceFile(APHALO + "acetate-film-115um.txt"));
+        ParsedSpectrum s = reader.read(SharedFolder.measuredSheet("acetate-film-115um.txt"));
 
         assertThat(s.size()).isEqualTo(911);
         assertThat(s.metadata()).isEmpty(); // "# cellulose diacetate 0.115 mm thick" has no key: value form

@@ -47,6 +47,26 @@ public final class SharedFolder {
         return file("reference-data/" + relative);
     }
 
+    /**
+     * A file of the measured transmittance sheets ({@code reference-data/measured-transmittance-…/}, see its
+     * {@code SOURCES.md}), found by the folder's descriptive prefix so that tests name the data, not who
+     * published it; or the calling test is skipped.
+     */
+    public static Path measuredSheet(String name) {
+        requireMarkedCaller(name);
+        Path data = root().resolve("reference-data");
+        String folder = "measured-transmittance";
+        if (Files.isDirectory(data)) {
+            try (java.util.stream.Stream<Path> dirs = Files.list(data)) {
+                folder = dirs.filter(Files::isDirectory).map(p -> p.getFileName().toString())
+                        .filter(n -> n.startsWith("measured-transmittance")).sorted().findFirst().orElse(folder);
+            } catch (java.io.IOException e) {
+                throw new java.io.UncheckedIOException("cannot list " + data, e);
+            }
+        }
+        return referenceFile(folder + "/" + name);
+    }
+
     /** A file of the shared folder (e.g. {@code "reference-data/cie-1nm/a.csv"}), or the calling test is skipped. */
     public static Path file(String relative) {
         requireMarkedCaller(relative);
