@@ -269,11 +269,12 @@ public class SearchService {
         double[][] bounds = MissScreen.marginBounds(store, screened);
         for (int curve = 0; curve < store.size(); curve++) {
             long sampleId = store.sampleId(curve);
-            SampleInfo sample = s.samples().get(sampleId);
-            Material material = s.materials().get(sample.materialId());
+            double d0 = store.thicknessMm(curve);
+            // the store was built with SampleRescaling's answer for every curve: no need to ask it again per clause
+            boolean rescalable = store.isBulk(curve);
             double bound = Double.POSITIVE_INFINITY;
             for (int c = 0; c < screened.size(); c++) {
-                if (keepsProof(screened.get(c).direction(), requirement.thickness(), material, sample)) {
+                if (keepsProof(screened.get(c).direction(), requirement.thickness(), d0, rescalable)) {
                     bound = Math.min(bound, bounds[c][curve]);
                 }
             }
@@ -294,8 +295,7 @@ public class SearchService {
      * thickness and a block when judged at or below it; a fixed part only at its own thickness (elsewhere
      * it is unverified, not missed); so is a diffuse or scattering sample ({@link SampleRescaling}).
      */
-    private static boolean keepsProof(Direction direction, ThicknessSpec spec, Material material, SampleInfo sample) {
-        double d0 = sample.thicknessMm();
+    private static boolean keepsProof(Direction direction, ThicknessSpec spec, double d0, boolean rescalable) {
         if (spec.kind() == ThicknessSpec.Kind.AS_MEASURED) {
             return true;
         }
@@ -305,7 +305,7 @@ public class SearchService {
         if (spec.kind() == ThicknessSpec.Kind.FIXED && NominalThickness.same(d0, spec.minMm())) {
             return true; // judged as measured
         }
-        if (!SampleRescaling.of(material, sample).rescalable()) {
+        if (!rescalable) {
             // a coated part, or a diffuse or scattering sample: judged only at its own thickness
             return spec.kind() == ThicknessSpec.Kind.RANGE && NominalThickness.within(d0, spec.minMm(), spec.maxMm());
         }
