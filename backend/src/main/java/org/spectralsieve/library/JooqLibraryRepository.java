@@ -96,12 +96,25 @@ public class JooqLibraryRepository {
     }
 
     public long insertMaterial(NewMaterial material) {
-        return insertMaterialRow(db, material);
+        return db.transactionResult(tx -> {
+            long id = insertMaterialRow(tx.dsl(), material);
+            LibraryGeneration.bump(tx.dsl());
+            return id;
+        });
+    }
+
+    /** The library's change counter as committed now ({@link LibraryGeneration}): one primary-key read. */
+    public long generation() {
+        return LibraryGeneration.read(db);
     }
 
     /** Stores a sample and its curve together: either both rows exist afterwards or neither does. */
     public long insertSample(long materialId, NewSample sample) {
-        return db.transactionResult(tx -> insertSampleRows(tx.dsl(), materialId, sample));
+        return db.transactionResult(tx -> {
+            long id = insertSampleRows(tx.dsl(), materialId, sample);
+            LibraryGeneration.bump(tx.dsl());
+            return id;
+        });
     }
 
     /** Stores a sample, its curve and the file it was read from together: all three rows or none. */
@@ -112,6 +125,7 @@ public class JooqLibraryRepository {
         return db.transactionResult(tx -> {
             long id = insertSampleRows(tx.dsl(), materialId, sample);
             insertSourceFile(tx.dsl(), id, file);
+            LibraryGeneration.bump(tx.dsl());
             return id;
         });
     }
@@ -154,6 +168,7 @@ public class JooqLibraryRepository {
             }
             long sampleId = insertSampleRows(t, materialId, sample);
             insertSourceFile(t, sampleId, file);
+            LibraryGeneration.bump(t);
             return new StoredImport(materialId, slug, sampleId, false, existingMaterialId == null);
         });
     }

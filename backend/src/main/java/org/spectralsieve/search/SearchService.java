@@ -10,9 +10,12 @@ import java.util.List;
 import java.util.Map;
 import java.util.Optional;
 import java.util.Set;
+import java.util.concurrent.atomic.AtomicLong;
 import java.util.concurrent.atomic.AtomicReference;
+import java.util.function.LongConsumer;
 import org.spectralsieve.library.JooqLibraryRepository;
 import org.spectralsieve.library.Geometry;
+import org.spectralsieve.library.LibraryGeneration;
 import org.spectralsieve.library.Material;
 import org.spectralsieve.library.SampleInfo;
 import org.spectralsieve.library.SampleRescaling;
@@ -46,7 +49,9 @@ import org.spectralsieve.store.StoredMaterial;
 /**
  * Answers requirements: the in-memory store picks the materials that can be in the shortlist, then every
  * sample of those materials is judged exactly on its stored curve, and the exact judgements are ranked.
- * The store is derived from the database and rebuilt after every committed change.
+ * The store is derived from the database and rebuilt when the database changed, by this process or
+ * another: before each answer the library's change counter ({@link LibraryGeneration}) is read, and a
+ * snapshot read at an older number is rebuilt (see {@link #current()} and docs/freshness.md).
  *
  * <p>Requirements the store cannot rank — weighted figures, a critical wavelength, a fixed layer — are
  * judged exactly on every admitted sample, except samples the store proves to miss ({@link MissScreen}):
@@ -71,13 +76,37 @@ public class SearchService {
 
     private final JooqLibraryRepository library;
     private final AtomicReference<Snapshot> snapshot = new AtomicReference<>();
+    /** Raised by {@link #invalidate()}: a snapshot read before the last call is stale whatever its generation. */
+    private final AtomicLong invalidations = new AtomicLong();
+    /** One build at a time: concurrent searches that find the snapshot stale wait for one rebuild, not start many. */
+    private final Object building = new Object();
+    /** Runs between reading the library and installing the snapshot: a seam for the race test, else nothing. */
+    private final LongConsumer beforeInstall;
 
     public SearchService(JooqLibraryRepository library) {
-        this.library = library;
+        this(library, generation -> { });
     }
 
-    /** The store and the library it was built from, replaced whole so a search never sees half an update. */
-    private record Snapshot(SpectralStore store, Map<Long, Material> materials, Map<Long, SampleInfo> samples) {
+    /** @param beforeInstall called with the built snapshot's generation just before it is installed (tests) */
+    SearchService(JooqLibraryRepository library, LongConsumer beforeInstall) {
+        this.library = library;
+        this.beforeInstall = beforeInstall;
+    }
+
+    /**
+     * The store and the library it was built from, replaced whole so a search never sees half an update.
+     *
+     * @param generation    the library's change counter read before any table was: the snapshot holds at
+     *                      least every change committed up to that number (perhaps some later ones too)
+     * @param invalidations {@link #invalidations} read at the same moment
+     */
+    private record Snapshot(SpectralStore store, Map<Long, Material> materials, Map<Long, SampleInfo> samples,
+                            long generation, long invalidations) {
+
+        /** Read no earlier than {@code other}: both counters only grow, so a later read has both at least as large. */
+        boolean notOlderThan(Snapshot other) {
+            return generation >= other.generation && invalidations >= other.invalidations;
+        }
     }
 
     public Shortlist search(Requirement requirement, int limit) {
@@ -370,26 +399,69 @@ public class SearchService {
         return current().materials().values().stream().map(m -> m.materialClass().label()).distinct().sorted().toList();
     }
 
-    /** Drops the derived store; the next search rebuilds it from the database. Call after every committed import. */
+    /**
+     * Marks the derived store stale; the next search rebuilds it from the database. Every write path raises
+     * the database's change counter ({@link LibraryGeneration#bump}), which the next search notices anyway;
+     * this is the in-process signal for a write that does not (yet) raise it.
+     */
     public void invalidate() {
-        snapshot.set(null);
+        invalidations.incrementAndGet();
     }
 
+    /**
+     * The snapshot to answer from, rebuilt when the database's change counter has moved past the installed
+     * one's or {@link #invalidate()} was called since it was read. Costs one primary-key read per call (no
+     * throttle: a few tens of microseconds against a search's milliseconds, see docs/freshness.md), so a
+     * change committed by any process before this call is in the answer.
+     */
     private Snapshot current() {
+        long generation = library.generation();
         Snapshot s = snapshot.get();
-        if (s == null) {
-            synchronized (this) {
-                s = snapshot.get();
-                if (s == null) {
-                    s = build();
-                    snapshot.set(s);
-                }
+        if (fresh(s, generation)) {
+            return s;
+        }
+        synchronized (building) {
+            s = snapshot.get();
+            if (fresh(s, generation)) {
+                return s; // built by another search while this one waited
+            }
+            Snapshot built = build();
+            beforeInstall.accept(built.generation());
+            install(built);
+            // answer from what was just read even if a write landed meanwhile: it holds every change up to
+            // the moment this search began, and the next search sees the newer number and rebuilds
+            return built;
+        }
+    }
+
+    private boolean fresh(Snapshot s, long generation) {
+        return s != null && s.generation() >= generation && s.invalidations() == invalidations.get();
+    }
+
+    /**
+     * Installs the snapshot unless one read later is installed already: a compare-and-set that never
+     * replaces a newer snapshot with an older one, however the builds interleave.
+     */
+    private void install(Snapshot built) {
+        while (true) {
+            Snapshot installed = snapshot.get();
+            if (installed != null && !built.notOlderThan(installed)) {
+                return;
+            }
+            if (snapshot.compareAndSet(installed, built)) {
+                return;
             }
         }
-        return s;
     }
 
+    /**
+     * Reads the library into a new snapshot. The counters are read first, before any table: a write that
+     * commits after that read is either missing from the tables read (and the number says so: the next
+     * search rebuilds) or already in them (a rebuild too many, never a change missed).
+     */
     private Snapshot build() {
+        long invalidated = invalidations.get();
+        long generation = library.generation();
         List<Material> materials = library.findMaterials(null, null);
         Map<Long, Curve> curves = library.findAllCurves();
         int samples = materials.stream().mapToInt(m -> m.samples().size()).sum();
@@ -407,6 +479,6 @@ public class SearchService {
                         curves.get(sample.id()));
             }
         }
-        return new Snapshot(builder.build(), Map.copyOf(byId), Map.copyOf(sampleById));
+        return new Snapshot(builder.build(), Map.copyOf(byId), Map.copyOf(sampleById), generation, invalidated);
     }
 }

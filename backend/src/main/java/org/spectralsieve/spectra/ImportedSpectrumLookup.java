@@ -4,24 +4,24 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
 import java.util.Objects;
-import java.util.Optional;
 import java.util.Set;
 import java.util.TreeSet;
 import org.slf4j.Logger;
 import org.slf4j.LoggerFactory;
+import org.spectralsieve.library.LibraryGeneration;
 import org.spectralsieve.weighting.Emitter;
 import org.spectralsieve.weighting.Response;
 import org.spectralsieve.weighting.SpectrumLookup;
 
 /**
  * Built-in emitters and responses first, then the imported ones from the database. The imported ones are
- * turned into core {@link Emitter}s and {@link Response}s once and kept (a snapshot), read on first use
- * and again after each import or delete ({@link #refresh()}), so that a figure never costs a query.
+ * turned into core {@link Emitter}s and {@link Response}s once and kept (a snapshot), so that a figure
+ * costs no query for them. Each use reads the library's change counter ({@link LibraryGeneration}, one
+ * primary-key read) and reads the rows again when it moved, so a spectrum imported or deleted by another
+ * process (the command line on a shared database, another application node) is seen at once.
  *
  * <p>Built-in names win: an imported spectrum whose name a later release gave to a built-in one is
- * left out (it can still be deleted). A name that is not found triggers one reload before the answer
- * "unknown", so a spectrum imported by another process (the command line on a shared database) is
- * found too.
+ * left out (it can still be deleted).
  */
 public final class ImportedSpectrumLookup implements SpectrumLookup {
 
@@ -31,8 +31,12 @@ public final class ImportedSpectrumLookup implements SpectrumLookup {
     private final SpectrumLookup builtIn;
     private volatile Snapshot snapshot;
 
-    /** What the imported rows became, with the built-ins ahead of them. */
-    private record Snapshot(List<Emitter> emitters, List<Response> responses) {
+    /**
+     * What the imported rows became, with the built-ins ahead of them.
+     *
+     * @param generation the change counter read before the rows were
+     */
+    private record Snapshot(List<Emitter> emitters, List<Response> responses, long generation) {
     }
 
     public ImportedSpectrumLookup(ReferenceSpectrumRepository repository, SpectrumLookup builtIn) {
@@ -50,25 +54,7 @@ public final class ImportedSpectrumLookup implements SpectrumLookup {
         return snapshot().responses();
     }
 
-    @Override
-    public Optional<Emitter> emitter(String name) {
-        Optional<Emitter> hit = SpectrumLookup.super.emitter(name);
-        if (hit.isEmpty()) {
-            refresh();
-            hit = SpectrumLookup.super.emitter(name);
-        }
-        return hit;
-    }
-
-    @Override
-    public Optional<Response> response(String name) {
-        Optional<Response> hit = SpectrumLookup.super.response(name);
-        if (hit.isEmpty()) {
-            refresh();
-            hit = SpectrumLookup.super.response(name);
-        }
-        return hit;
-    }
+    // emitter(name) and response(name) search emitters() and responses(), which are current (see snapshot())
 
     /** The built-in catalogues alone. */
     public SpectrumLookup builtIn() {
@@ -93,8 +79,20 @@ public final class ImportedSpectrumLookup implements SpectrumLookup {
         return kind == SpectrumKind.EMITTER ? builtIn.emitter(name).isPresent() : builtIn.response(name).isPresent();
     }
 
-    /** Reads the imported spectra again; call after every committed import or delete. */
+    /**
+     * Reads the imported spectra again now. Not needed after an import or delete (those raise the change
+     * counter, which the next use notices); kept for a caller that wants the rows read at once.
+     */
     public synchronized void refresh() {
+        install(read());
+    }
+
+    /**
+     * The rows as a snapshot, the counter read first: a write committed after that read is either missing
+     * from the rows (and the number says so: the next use reads again) or already in them.
+     */
+    private Snapshot read() {
+        long generation = repository.generation();
         List<Emitter> emitters = new ArrayList<>(builtIn.emitters());
         List<Response> responses = new ArrayList<>(builtIn.responses());
         for (ReferenceSpectrum s : repository.findAll()) {
@@ -114,15 +112,31 @@ public final class ImportedSpectrumLookup implements SpectrumLookup {
                 log.error("imported {} '{}' (id {}) cannot be used: {}", s.kind().label(), s.name(), s.id(), e.getMessage());
             }
         }
-        snapshot = new Snapshot(List.copyOf(emitters), List.copyOf(responses));
+        return new Snapshot(List.copyOf(emitters), List.copyOf(responses), generation);
     }
 
-    private Snapshot snapshot() {
-        Snapshot s = snapshot;
-        if (s == null) {
-            refresh();
-            s = snapshot;
+    /** Callers hold this object's lock, so installs never interleave; an older read never replaces a newer one. */
+    private void install(Snapshot read) {
+        Snapshot installed = snapshot;
+        if (installed == null || read.generation() >= installed.generation()) {
+            snapshot = read;
         }
-        return s;
+    }
+
+    /** The installed snapshot if it is as new as the database, else a fresh read (one read for concurrent callers). */
+    private Snapshot snapshot() {
+        long generation = repository.generation();
+        Snapshot s = snapshot;
+        if (s != null && s.generation() >= generation) {
+            return s;
+        }
+        synchronized (this) {
+            s = snapshot;
+            if (s == null || s.generation() < generation) {
+                install(read());
+                s = snapshot;
+            }
+            return s;
+        }
     }
 }

@@ -10,6 +10,7 @@ import org.jooq.DSLContext;
 import org.jooq.Record;
 import org.jooq.SelectField;
 import org.spectralsieve.importers.SpectrumValues;
+import org.spectralsieve.library.LibraryGeneration;
 import org.spectralsieve.library.PackedArrays;
 import org.spectralsieve.library.SourceFile;
 import org.spectralsieve.library.db.tables.records.ReferenceSpectrumRecord;
@@ -51,7 +52,9 @@ public class ReferenceSpectrumRepository {
                         .and(REFERENCE_SPECTRUM.NAME.eq(s.name())))) {
                     throw new SpectrumNameTakenException(s.kind(), s.name());
                 }
-                return insertRow(t, s);
+                long stored = insertRow(t, s);
+                LibraryGeneration.bump(t);
+                return stored;
             });
             return find(s.kind(), s.name()).filter(r -> r.id() == id)
                     .orElseThrow(() -> new IllegalStateException("spectrum " + id + " stored but not found"));
@@ -122,9 +125,20 @@ public class ReferenceSpectrumRepository {
 
     /** @return true when a row was deleted */
     public boolean delete(SpectrumKind kind, String name) {
-        return db.deleteFrom(REFERENCE_SPECTRUM)
-                .where(REFERENCE_SPECTRUM.KIND.eq(kind.label()).and(REFERENCE_SPECTRUM.NAME.eq(name)))
-                .execute() > 0;
+        return db.transactionResult(tx -> {
+            boolean deleted = tx.dsl().deleteFrom(REFERENCE_SPECTRUM)
+                    .where(REFERENCE_SPECTRUM.KIND.eq(kind.label()).and(REFERENCE_SPECTRUM.NAME.eq(name)))
+                    .execute() > 0;
+            if (deleted) {
+                LibraryGeneration.bump(tx.dsl());
+            }
+            return deleted;
+        });
+    }
+
+    /** The library's change counter as committed now ({@link LibraryGeneration}), which imports and deletes raise. */
+    public long generation() {
+        return LibraryGeneration.read(db);
     }
 
     public int count() {

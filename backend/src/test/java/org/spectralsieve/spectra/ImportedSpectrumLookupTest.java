@@ -17,15 +17,16 @@ import org.spectralsieve.weighting.SpectrumLookup;
 /** Built-ins first, imported ones after them, from a freshly migrated H2 database. */
 class ImportedSpectrumLookupTest {
 
+    private JdbcDataSource dataSource;
     private ReferenceSpectrumRepository repository;
     private ImportedSpectrumLookup lookup;
 
     @BeforeEach
     void migrateFreshDatabase() {
-        JdbcDataSource ds = new JdbcDataSource();
-        ds.setURL("jdbc:h2:mem:" + UUID.randomUUID() + ";DB_CLOSE_DELAY=-1");
-        Flyway.configure().dataSource(ds).load().migrate();
-        repository = new ReferenceSpectrumRepository(DSL.using(ds, SQLDialect.H2));
+        dataSource = new JdbcDataSource();
+        dataSource.setURL("jdbc:h2:mem:" + UUID.randomUUID() + ";DB_CLOSE_DELAY=-1");
+        Flyway.configure().dataSource(dataSource).load().migrate();
+        repository = new ReferenceSpectrumRepository(DSL.using(dataSource, SQLDialect.H2));
         lookup = new ImportedSpectrumLookup(repository, SpectrumLookup.builtIn());
     }
 
@@ -47,14 +48,28 @@ class ImportedSpectrumLookupTest {
     }
 
     @Test
-    void aNameNotFoundReadsTheDatabaseAgainOnce() {
-        lookup.refresh();
-        // stored by another process: not in the snapshot yet
-        repository.insert(Spectra.of(SpectrumKind.EMITTER, "late-lamp", new double[] {400, 500}, new double[] {1, 1}));
-
+    void aSpectrumStoredOrDeletedBehindTheLookupsBackIsSeenOnItsNextUse() {
         assertThat(lookup.emitters()).extracting(Emitter::name).doesNotContain("late-lamp");
-        assertThat(lookup.emitter("late-lamp")).isPresent();
+        // stored through another repository on the same database, as another process would: no refresh() call
+        ReferenceSpectrumRepository elsewhere = new ReferenceSpectrumRepository(DSL.using(dataSource, SQLDialect.H2));
+        elsewhere.insert(Spectra.of(SpectrumKind.EMITTER, "late-lamp", new double[] {400, 500}, new double[] {1, 1}));
+
         assertThat(lookup.emitters()).extracting(Emitter::name).contains("late-lamp");
+        assertThat(lookup.emitter("late-lamp")).isPresent();
+
+        elsewhere.delete(SpectrumKind.EMITTER, "late-lamp");
+
+        assertThat(lookup.emitter("late-lamp")).isEmpty();
+    }
+
+    @Test
+    void anUnchangedLibraryIsNotReadAgain() {
+        repository.insert(Spectra.of(SpectrumKind.RESPONSE, "resist-c", new double[] {300, 400}, new double[] {1, 0.5}));
+        Response first = lookup.response("resist-c").orElseThrow();
+
+        // the same converted object: the rows were not read and converted again
+        assertThat(lookup.response("resist-c").orElseThrow()).isSameAs(first);
+        assertThat(lookup.responses()).contains(first);
     }
 
     @Test

@@ -1,0 +1,45 @@
+package org.spectralsieve.library;
+
+import static org.spectralsieve.library.db.Tables.LIBRARY_GENERATION;
+
+import org.jooq.DSLContext;
+
+/**
+ * The library's change counter (table {@code library_generation}, one row): every write transaction raises
+ * it, and every in-memory copy derived from the library remembers the number it was read at, so that a
+ * copy older than the database is noticed with one primary-key read — also when another process wrote
+ * (a command-line import while the server runs, another application node on PostgreSQL). See
+ * docs/freshness.md.
+ */
+public final class LibraryGeneration {
+
+    private static final int ROW = 1;
+
+    private LibraryGeneration() {
+    }
+
+    /**
+     * Raises the counter. Call it inside the write's own transaction (pass the transaction's context), once
+     * or more: the number then moves exactly when the write commits, and not at all when it rolls back.
+     * {@code UPDATE … SET n = n + 1} locks the row until commit, so concurrent writers queue on it and each
+     * commit leaves a larger number (PostgreSQL re-reads the committed row before adding; H2 waits for the
+     * lock). Call it as late in the transaction as convenient: the lock is held from here to the commit.
+     */
+    public static void bump(DSLContext tx) {
+        int rows = tx.update(LIBRARY_GENERATION)
+                .set(LIBRARY_GENERATION.N, LIBRARY_GENERATION.N.plus(1L))
+                .where(LIBRARY_GENERATION.ID.eq(ROW))
+                .execute();
+        if (rows != 1) {
+            throw new IllegalStateException("library_generation has no row " + ROW + "; the V7 migration puts it there");
+        }
+    }
+
+    /** The committed number: one read of one row by its primary key. */
+    public static long read(DSLContext db) {
+        return db.select(LIBRARY_GENERATION.N).from(LIBRARY_GENERATION).where(LIBRARY_GENERATION.ID.eq(ROW))
+                .fetchOptional(LIBRARY_GENERATION.N)
+                .orElseThrow(() -> new IllegalStateException("library_generation has no row " + ROW
+                        + "; the V7 migration puts it there"));
+    }
+}
