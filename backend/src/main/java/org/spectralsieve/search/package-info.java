@@ -3,7 +3,8 @@
  * in-memory store pick the shortlist (or prove misses, for requirements the store cannot rank) and then
  * judges every sample of the picked materials exactly on its stored curve, so each row a user sees comes
  * from the exact evaluator of {@code requirement}. The store is built from the database on the first
- * search and dropped after every committed import ({@code invalidate()}).
+ * search and rebuilt when the library's change counter has moved since ({@code library_generation}, read
+ * before every search, raised by every write of any process on the database): see {@code docs/freshness.md}.
  *
  * <p>{@link org.spectralsieve.search.LayerMatcher} resolves the words of a fixed layer ({@code behind 4 mm
  * clear float glass}) to one material by one deterministic rule, or refuses with the choices or
