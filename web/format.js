@@ -62,6 +62,9 @@ export function refractiveIndex(model) {
       return `tabulated, ${wl.length} points from ${number(wl[0], 0)} to ${number(wl[wl.length - 1], 0)} nm, `
         + `n ${number(Math.min(...n), 4)}–${number(Math.max(...n), 4)}`;
     }
+    case 'unusable':
+      // a stored model today's checks refuse (docs/validation.md): shown as stored, never used
+      return `cannot be used: ${model.stored} (${model.reason})`;
     default:
       return `unknown model “${model.kind}”`;
   }

@@ -8,7 +8,10 @@ import org.spectralsieve.ingest.ImportLimitException;
 import org.spectralsieve.ingest.ImportProperties;
 import org.spectralsieve.ingest.ImportRequestException;
 import org.spectralsieve.ingest.IngestException;
+import org.spectralsieve.library.FieldException;
 import org.spectralsieve.library.NotFoundException;
+import org.spectralsieve.library.UnusableRecordException;
+import org.spectralsieve.optics.UnusableIndexException;
 import org.spectralsieve.library.NotRescalableException;
 import org.spectralsieve.requirement.RequirementSyntaxException;
 import org.spectralsieve.search.LayerResolutionException;
@@ -157,6 +160,24 @@ class ApiProblems extends ResponseEntityExceptionHandler {
     @ExceptionHandler(CurveException.class)
     ProblemDetail curveRefused(CurveException e) {
         return problem(HttpStatus.BAD_REQUEST, "Curve cannot be computed as asked", e.getMessage(), "curve-refused");
+    }
+
+    /**
+     * A stored record the request needs fails today's checks (docs/validation.md): 409, the state of the
+     * library conflicts with the request, and the detail names the record and why; the record stays readable.
+     */
+    @ExceptionHandler({UnusableRecordException.class, UnusableIndexException.class})
+    ProblemDetail unusableRecord(RuntimeException e) {
+        return problem(HttpStatus.CONFLICT, "Stored record cannot be used", e.getMessage(), "stored-record-unusable");
+    }
+
+    /** A value of a record to be stored lies outside what may be stored; names the field. */
+    @ExceptionHandler(FieldException.class)
+    ProblemDetail badStoredField(FieldException e) {
+        ProblemDetail problem = problem(HttpStatus.BAD_REQUEST, "Bad parameter", "parameter '" + e.field() + "': "
+                + e.getMessage(), "bad-parameter");
+        problem.setProperty("parameter", e.field());
+        return problem;
     }
 
     @ExceptionHandler(Exception.class)

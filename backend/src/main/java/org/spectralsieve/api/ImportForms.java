@@ -5,6 +5,8 @@ import org.spectralsieve.ingest.ImportRequestException;
 import org.spectralsieve.ingest.ImportTarget;
 import org.spectralsieve.ingest.OptionText;
 import org.spectralsieve.ingest.SampleFields;
+import org.spectralsieve.library.NewMaterial;
+import org.spectralsieve.library.NewSample;
 import org.spectralsieve.optics.ConstantIndex;
 
 /**
@@ -70,19 +72,18 @@ final class ImportForms {
                     throw new ImportRequestException("indexN", e.getMessage());
                 }
             }
-            return new ImportTarget.NewMaterial(materialName, OptionText.materialClass("materialClass", materialClass),
-                    OptionText.scaling("scaling", scaling), index, description,
+            return new ImportTarget.NewMaterial(OptionText.line("materialName", materialName, NewMaterial.MAX_NAME),
+                    OptionText.materialClass("materialClass", materialClass), OptionText.scaling("scaling", scaling), index,
+                    OptionText.paragraph("description", description, NewMaterial.MAX_DESCRIPTION),
                     OptionText.thicknesses("stockThicknesses", stockThicknesses, "madeRange", madeRange));
         }
 
         SampleFields fields() {
-            return new SampleFields(OptionText.positiveOrNull("thicknessMm", thicknessMm),
+            return new SampleFields(OptionText.thicknessOrNull("thicknessMm", thicknessMm),
                     OptionText.geometry("geometry", geometry), OptionText.provenance("provenance", provenance),
-                    blankToNull(instrument), OptionText.date("measuredOn", measuredOn), blankToNull(lot), blankToNull(notes));
-        }
-
-        private static String blankToNull(String s) {
-            return s == null || s.isBlank() ? null : s.strip();
+                    OptionText.line("instrument", instrument, NewSample.MAX_INSTRUMENT),
+                    OptionText.date("measuredOn", measuredOn), OptionText.line("lot", lot, NewSample.MAX_LOT),
+                    OptionText.paragraph("notes", notes, NewSample.MAX_NOTES));
         }
     }
 }

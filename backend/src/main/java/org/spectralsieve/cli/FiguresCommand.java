@@ -6,6 +6,8 @@ import java.util.Locale;
 import java.util.OptionalDouble;
 import java.util.concurrent.Callable;
 import org.spectralsieve.library.NotFoundException;
+import org.spectralsieve.library.UnusableRecordException;
+import org.spectralsieve.optics.UnusableIndexException;
 import org.spectralsieve.library.NotRescalableException;
 import org.spectralsieve.library.SampleCurve;
 import org.spectralsieve.library.SampleCurves;
@@ -111,7 +113,7 @@ final class FiguresCommand implements Callable<Integer> {
             }
             sheet = FigureSheet.of(seen, emitter, response, convention, solar);
             seenCurve = seen;
-        } catch (NotFoundException | NotRescalableException e) {
+        } catch (NotFoundException | NotRescalableException | UnusableRecordException | UnusableIndexException e) {
             throw new CliFailure(SieveCli.FAILED, e.getMessage());
         }
         print(sample, sheet);

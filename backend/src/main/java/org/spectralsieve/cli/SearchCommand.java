@@ -15,6 +15,8 @@ import org.spectralsieve.requirement.Standing;
 import org.spectralsieve.requirement.ThicknessSpec;
 import org.spectralsieve.search.LayerResolutionException;
 import org.spectralsieve.search.SearchService;
+import org.spectralsieve.library.UnusableRecordException;
+import org.spectralsieve.optics.UnusableIndexException;
 import org.spectralsieve.search.Shortlist;
 import org.spectralsieve.weighting.SpectrumLookup;
 import org.springframework.context.ConfigurableApplicationContext;
@@ -67,6 +69,9 @@ final class SearchCommand implements Callable<Integer> {
                 shortlist = search.search(requirement, limit);
             } catch (LayerResolutionException e) {
                 throw new CliFailure(SieveCli.USAGE, layerProblem(e));
+            } catch (UnusableRecordException | UnusableIndexException e) {
+                // the part in front is a stored record that fails today's checks (docs/validation.md)
+                throw new CliFailure(SieveCli.FAILED, e.getMessage());
             }
             if (json) {
                 // the context's mapper, configured as the API's, so both print numbers and nulls alike

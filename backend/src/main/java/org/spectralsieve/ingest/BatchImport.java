@@ -22,6 +22,8 @@ import org.spectralsieve.importers.Replicates;
 import org.spectralsieve.ingest.BatchReport.FileReport;
 import org.spectralsieve.ingest.BatchReport.Outcome;
 import org.spectralsieve.library.JooqLibraryRepository;
+import org.spectralsieve.library.NewMaterial;
+import org.spectralsieve.library.NewSample;
 import org.spectralsieve.library.NotFoundException;
 import org.spectralsieve.optics.ConstantIndex;
 
@@ -187,9 +189,11 @@ public final class BatchImport {
                     OptionText.yKind("y_kind", row.get("y_kind")), Optional.empty(), Replicates.FIRST, false,
                     OptionText.number("detection_limit", row.get("detection_limit")), OptionalDouble.empty(),
                     OptionalDouble.empty());
-            SampleFields fields = new SampleFields(OptionText.positiveOrNull("thickness", row.get("thickness")),
+            SampleFields fields = new SampleFields(OptionText.thicknessOrNull("thickness", row.get("thickness")),
                     OptionText.geometry("geometry", row.get("geometry")), OptionText.provenance("provenance", row.get("provenance")),
-                    row.get("instrument"), OptionText.date("date", row.get("date")), row.get("lot"), row.get("notes"));
+                    OptionText.line("instrument", row.get("instrument"), NewSample.MAX_INSTRUMENT),
+                    OptionText.date("date", row.get("date")), OptionText.line("lot", row.get("lot"), NewSample.MAX_LOT),
+                    OptionText.paragraph("notes", row.get("notes"), NewSample.MAX_NOTES));
             byte[] bytes = source.read(file);
             ImportResult result = imports.store(file, bytes, options, target, fields);
             return new FileReport(row.line(), file, result.duplicate() ? Outcome.DUPLICATE : Outcome.STORED,
@@ -225,7 +229,8 @@ public final class BatchImport {
                 throw new ImportRequestException("index_n", e.getMessage());
             }
         }
-        return new ImportTarget.NewMaterial(material, OptionText.materialClass("class", row.get("class")),
+        return new ImportTarget.NewMaterial(OptionText.line("material", material, NewMaterial.MAX_NAME),
+                OptionText.materialClass("class", row.get("class")),
                 OptionText.scaling("scaling", row.get("scaling")), index, "",
                 OptionText.thicknesses("stock", row.get("stock"), "made_range", row.get("made_range")));
     }

@@ -4,6 +4,7 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.Objects;
 import org.spectralsieve.importers.ImportException;
+import org.spectralsieve.library.FieldException;
 import org.spectralsieve.library.Geometry;
 import org.spectralsieve.library.JooqLibraryRepository;
 import org.spectralsieve.library.Material;
@@ -15,6 +16,7 @@ import org.spectralsieve.library.Scaling;
 import org.spectralsieve.library.SourceFile;
 import org.spectralsieve.library.StoredImport;
 import org.spectralsieve.optics.ConstantIndex;
+import org.spectralsieve.optics.PhysicalRanges;
 import org.spectralsieve.optics.RefractiveIndex;
 
 /**
@@ -28,9 +30,12 @@ public final class ImportService {
     /** Assumed when a new material comes without an index: typical of glasses and plastics (common practice, no source). */
     public static final double DEFAULT_INDEX = 1.5;
 
-    static final int MAX_INSTRUMENT = 200;
-    static final int MAX_LOT = 100;
-    static final int MAX_NOTES = 4000;
+    static final int MAX_INSTRUMENT = NewSample.MAX_INSTRUMENT;
+    static final int MAX_LOT = NewSample.MAX_LOT;
+    static final int MAX_NOTES = NewSample.MAX_NOTES;
+
+    private static final String THICKNESS_RANGE = "must be a thickness from " + PhysicalRanges.MIN_THICKNESS_MM
+            + " mm (1 µm) to " + (long) PhysicalRanges.MAX_THICKNESS_MM + " mm";
 
     private final JooqLibraryRepository library;
     private final Runnable afterCommit;
@@ -111,6 +116,8 @@ public final class ImportService {
         try {
             return new NewMaterial(JooqLibraryRepository.slugFor(n.name()), n.name(), n.materialClass(), n.description(),
                     List.of(), n.scaling(), index, n.thicknesses());
+        } catch (FieldException e) {
+            throw new ImportRequestException(e.field().equals("name") ? "materialName" : e.field(), e.getMessage());
         } catch (IllegalArgumentException e) {
             throw new ImportRequestException("materialName", e.getMessage());
         }
@@ -124,16 +131,26 @@ public final class ImportService {
         if (p.format() == ImportFormat.DATASHEET_POINTS && provenance != Provenance.DATASHEET) {
             warnings.add("points read off a datasheet graph stored with provenance '" + provenance.label() + "' as asked");
         }
-        return new NewSample(thickness, f.geometry() == null ? Geometry.REGULAR : f.geometry(), provenance,
-                limited("instrument", instrument, MAX_INSTRUMENT), f.measuredOn(), limited("lot", f.lot(), MAX_LOT),
-                limited("notes", f.notes(), MAX_NOTES), p.detectionLimit(), p.curve(), p.fileName(), p.sha256());
+        try {
+            return new NewSample(thickness, f.geometry() == null ? Geometry.REGULAR : f.geometry(), provenance,
+                    limited("instrument", instrument, MAX_INSTRUMENT), f.measuredOn(), limited("lot", f.lot(), MAX_LOT),
+                    limited("notes", f.notes(), MAX_NOTES), p.detectionLimit(), p.curve(), p.fileName(), p.sha256());
+        } catch (FieldException e) {
+            // what the file says is the file's fault (named with the file); what the request says, the request's
+            boolean fromFile = e.field().equals("wavelength") || e.field().equals("detectionLimit")
+                    || e.field().equals("instrument") && f.instrument() == null;
+            if (fromFile) {
+                throw new IngestException(p.fileName(), e.field(), e.getMessage());
+            }
+            throw new ImportRequestException(e.field(), e.getMessage());
+        }
     }
 
     private static double thickness(FilePreview p, SampleFields f, Scaling scaling) throws ImportException {
         if (f.thicknessMm() != null) {
             double t = f.thicknessMm();
-            if (!(t > 0) || !Double.isFinite(t)) {
-                throw new ImportRequestException("thicknessMm", "must be a positive number of millimetres, got " + t);
+            if (!PhysicalRanges.isThicknessMm(t)) {
+                throw new ImportRequestException("thicknessMm", THICKNESS_RANGE + ", got " + t);
             }
             return t;
         }
@@ -141,14 +158,13 @@ public final class ImportService {
         if (fromFile != null) {
             try {
                 double t = Double.parseDouble(fromFile.strip());
-                if (t > 0 && Double.isFinite(t)) {
+                if (PhysicalRanges.isThicknessMm(t)) {
                     return t;
                 }
             } catch (NumberFormatException e) {
                 // reported below
             }
-            throw new ImportException(p.fileName(), 0, "thickness_mm", "must be a positive number of millimetres, was '"
-                    + fromFile + "'");
+            throw new ImportException(p.fileName(), 0, "thickness_mm", THICKNESS_RANGE + ", was '" + fromFile + "'");
         }
         throw new ImportRequestException("thicknessMm", scaling == Scaling.BULK
                 ? "required for a bulk material: its curve is rescaled from this thickness"
@@ -174,7 +190,8 @@ public final class ImportService {
     public static String cleanName(String fileName) {
         String name = fileName == null ? "" : fileName.strip();
         name = name.substring(Math.max(name.lastIndexOf('/'), name.lastIndexOf('\\')) + 1);
-        name = name.replaceAll("\\p{Cntrl}", "");
+        // control and bidirectional control characters could disguise the name where it is shown
+        name = name.replaceAll("[\\p{Cntrl}\u061C\u200E\u200F\u202A-\u202E\u2066-\u2069]", "");
         if (name.isEmpty()) {
             name = "upload";
         }

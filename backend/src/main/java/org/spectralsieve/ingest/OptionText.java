@@ -15,6 +15,9 @@ import org.spectralsieve.library.MaterialClass;
 import org.spectralsieve.library.Provenance;
 import org.spectralsieve.library.Scaling;
 import org.spectralsieve.library.StatedThicknesses;
+import org.spectralsieve.library.StoredText;
+import org.spectralsieve.library.FieldException;
+import org.spectralsieve.optics.PhysicalRanges;
 
 /**
  * Import options and sample fields as users write them (HTTP form fields, manifest cells), parsed in one
@@ -41,7 +44,7 @@ public final class OptionText {
             Measured m = unit(stock);
             for (String part : m.text().split("[,;\\s]+")) {
                 if (!part.isBlank()) {
-                    stockMm.add(positive(stockField, part) / m.perMm());
+                    stockMm.add(inRange(stockField, positive(stockField, part) / m.perMm()));
                 }
             }
         }
@@ -55,12 +58,23 @@ public final class OptionText {
             }
             lo = positive(rangeField, ends[0]) / m.perMm();
             hi = positive(rangeField, ends[1]) / m.perMm();
+            for (double end : new double[] {lo, hi}) {
+                inRange(rangeField, end);
+            }
         }
         try {
             return new StatedThicknesses(stockMm, lo, hi);
         } catch (IllegalArgumentException e) {
             throw new ImportRequestException(blank(range) ? stockField : rangeField, e.getMessage());
         }
+    }
+
+    private static double inRange(String field, double mm) {
+        if (!PhysicalRanges.isThicknessMm(mm)) {
+            throw new ImportRequestException(field, "a thickness must be from " + PhysicalRanges.MIN_THICKNESS_MM
+                    + " mm (1 µm) to " + (long) PhysicalRanges.MAX_THICKNESS_MM + " mm, got " + mm + " mm");
+        }
+        return mm;
     }
 
     /** The text without its unit, and how many of that unit make a millimetre. */
@@ -89,6 +103,48 @@ public final class OptionText {
             throw new ImportRequestException(field, "a thickness must be a number > 0, got " + number.strip());
         }
         return v;
+    }
+
+    /**
+     * A sample thickness in mm, or null when not given: a number within {@link PhysicalRanges} (1 µm to 1 m),
+     * so that a slip like 1e308 or 1e-300 is refused here, naming the field, instead of being stored.
+     */
+    public static Double thicknessOrNull(String field, String s) {
+        OptionalDouble v = number(field, s);
+        if (v.isEmpty()) {
+            return null;
+        }
+        if (!PhysicalRanges.isThicknessMm(v.getAsDouble())) {
+            throw new ImportRequestException(field, "a thickness must be from " + PhysicalRanges.MIN_THICKNESS_MM
+                    + " mm (1 µm) to " + (long) PhysicalRanges.MAX_THICKNESS_MM + " mm, got " + s.strip());
+        }
+        return v.getAsDouble();
+    }
+
+    /**
+     * A one-line text to be stored (a name, an instrument, a lot), stripped; null when blank. Refused, naming
+     * the field, when longer than its column or holding a control or bidirectional control character
+     * ({@link StoredText}).
+     */
+    public static String line(String field, String s, int maxLength) {
+        return text(field, s, maxLength, false);
+    }
+
+    /** As {@link #line}, for a text that may run over several lines (a description, notes). */
+    public static String paragraph(String field, String s, int maxLength) {
+        return text(field, s, maxLength, true);
+    }
+
+    private static String text(String field, String s, int maxLength, boolean multiLine) {
+        if (blank(s)) {
+            return null;
+        }
+        String t = s.strip();
+        try {
+            return multiLine ? StoredText.paragraph(field, t, maxLength) : StoredText.line(field, t, maxLength);
+        } catch (FieldException e) {
+            throw new ImportRequestException(field, e.getMessage().substring(field.length() + 1));
+        }
     }
 
     public static Optional<ImportFormat> format(String field, String s) {

@@ -12,6 +12,8 @@ import java.util.List;
 import java.util.Locale;
 import java.util.Map;
 import java.util.Optional;
+import org.slf4j.Logger;
+import org.slf4j.LoggerFactory;
 import org.jooq.Condition;
 import org.jooq.DSLContext;
 import org.jooq.Record;
@@ -24,6 +26,7 @@ import org.spectralsieve.optics.ConstantIndex;
 import org.spectralsieve.optics.RefractiveIndex;
 import org.spectralsieve.optics.SellmeierIndex;
 import org.spectralsieve.optics.TabulatedIndex;
+import org.spectralsieve.optics.UnusableIndex;
 import org.spectralsieve.spectrum.Curve;
 
 /**
@@ -31,6 +34,8 @@ import org.spectralsieve.spectrum.Curve;
  * records and core types, never generated jOOQ records.
  */
 public class JooqLibraryRepository {
+
+    private static final Logger LOG = LoggerFactory.getLogger(JooqLibraryRepository.class);
 
     private final DSLContext db;
 
@@ -58,7 +63,25 @@ public class JooqLibraryRepository {
         }
         List<MaterialRecord> materials = db.selectFrom(MATERIAL).where(where).orderBy(MATERIAL.NAME, MATERIAL.ID).fetch();
         Map<Long, List<SampleInfo>> samples = samplesOf(materials.stream().map(MaterialRecord::getId).toList());
-        return materials.stream().map(m -> toMaterial(m, samples.getOrDefault(m.getId(), List.of()))).toList();
+        List<Material> out = new ArrayList<>();
+        for (MaterialRecord m : materials) {
+            readable(m, samples.getOrDefault(m.getId(), List.of())).ifPresent(out::add);
+        }
+        return out;
+    }
+
+    /**
+     * A stored material as a record, or empty (and a warning in the log) when its row cannot be read at all
+     * (a class or scaling no longer known): one bad row must not take every listing and search with it.
+     * Numbers that fail today's checks are not a reason to leave it out: see {@link #readIndex}.
+     */
+    private static Optional<Material> readable(MaterialRecord m, List<SampleInfo> samples) {
+        try {
+            return Optional.of(toMaterial(m, samples));
+        } catch (RuntimeException e) {
+            LOG.warn("material " + m.getId() + " is left out: its stored row cannot be read (" + e.getMessage() + ")");
+            return Optional.empty();
+        }
     }
 
     public Optional<Material> findMaterial(long id) {
@@ -85,7 +108,15 @@ public class JooqLibraryRepository {
         Map<Long, Curve> curves = new LinkedHashMap<>();
         db.select(CURVE.asterisk(), SAMPLE.DETECTION_LIMIT).from(CURVE).join(SAMPLE).on(SAMPLE.ID.eq(CURVE.SAMPLE_ID))
                 .orderBy(CURVE.SAMPLE_ID).fetch()
-                .forEach(r -> curves.put(r.get(CURVE.SAMPLE_ID), toCurve(r)));
+                .forEach(r -> {
+                    try {
+                        curves.put(r.get(CURVE.SAMPLE_ID), toCurve(r));
+                    } catch (RuntimeException e) {
+                        // one unreadable curve row must not stop every search: its sample is left out of the store
+                        LOG.warn("the curve of sample " + r.get(CURVE.SAMPLE_ID) + " cannot be read and is left out of"
+                                + " searches: " + e.getMessage());
+                    }
+                });
         return curves;
     }
 
@@ -329,7 +360,30 @@ public class JooqLibraryRepository {
         }
     }
 
-    private static RefractiveIndex readIndex(MaterialRecord m) {
+    /**
+     * The stored index model; one that fails today's checks (a constant of 10¹⁶, a fit with a resonance in
+     * its range) is read as an {@link UnusableIndex} carrying the reason, so that the material and its
+     * measured curves stay readable while every computation that needs n refuses with that reason.
+     */
+    static RefractiveIndex readIndex(MaterialRecord m) {
+        try {
+            return checkedIndex(m);
+        } catch (RuntimeException e) {
+            return new UnusableIndex(storedIndexText(m), e.getMessage() == null ? e.toString() : e.getMessage());
+        }
+    }
+
+    private static String storedIndexText(MaterialRecord m) {
+        return switch (String.valueOf(m.getIndexKind())) {
+            case "constant" -> "constant n = " + m.getIndexN();
+            case "sellmeier" -> "Sellmeier B = " + m.getIndexB() + ", C = " + m.getIndexC() + ", valid "
+                    + m.getIndexValidFromNm() + ".." + m.getIndexValidToNm() + " nm";
+            case "table" -> "table of " + String.valueOf(m.getIndexTableN()).split(",").length + " values";
+            default -> "kind " + m.getIndexKind();
+        };
+    }
+
+    private static RefractiveIndex checkedIndex(MaterialRecord m) {
         return switch (m.getIndexKind()) {
             case "constant" -> new ConstantIndex(m.getIndexN());
             case "sellmeier" -> new SellmeierIndex(NumberLists.parse(m.getIndexB(), "material.index_b"),
@@ -346,7 +400,21 @@ public class JooqLibraryRepository {
         row.setMadeMaxMm(t.rangeStated() ? t.maxMm() : null);
     }
 
+    /**
+     * The stated thicknesses; when the stored ones fail today's checks they are not used (a warning in the
+     * log) and the material is judged by the assumed rule, as one stating none is.
+     */
     private static StatedThicknesses readThicknesses(MaterialRecord m) {
+        try {
+            return checkedThicknesses(m);
+        } catch (RuntimeException e) {
+            LOG.warn("material " + m.getId() + ": its stored stock or made thicknesses are not used ("
+                    + e.getMessage() + "); it is judged by the assumed rule");
+            return StatedThicknesses.NONE;
+        }
+    }
+
+    private static StatedThicknesses checkedThicknesses(MaterialRecord m) {
         String stock = m.getStockThicknessesMm();
         List<Double> stockMm = stock == null || stock.isBlank() ? List.of()
                 : NumberLists.parse(stock, "material.stock_thicknesses_mm");

@@ -15,25 +15,35 @@ public record NewMaterial(String slug, String name, MaterialClass materialClass,
         this(slug, name, materialClass, description, tags, scaling, refractiveIndex, StatedThicknesses.NONE);
     }
 
+    /** The lengths of the material table's columns (V1 migration). */
+    public static final int MAX_NAME = 200;
+    public static final int MAX_DESCRIPTION = 4000;
+    public static final int MAX_TAGS = 1000;
+
     private static final Pattern SLUG = Pattern.compile("[a-z0-9][a-z0-9\\-]{0,118}[a-z0-9]");
 
     public NewMaterial {
         if (slug == null || !SLUG.matcher(slug).matches()) {
             throw new IllegalArgumentException("slug '" + slug + "' must be 2-120 lower-case letters, digits or hyphens");
         }
-        if (name == null || name.isBlank() || name.length() > 200) {
-            throw new IllegalArgumentException("name must be 1-200 characters");
+        if (name == null || name.isBlank()) {
+            throw new FieldException("name", "must not be blank");
         }
+        StoredText.line("name", name, MAX_NAME);
         Objects.requireNonNull(materialClass, "materialClass");
         Objects.requireNonNull(scaling, "scaling");
         Objects.requireNonNull(refractiveIndex, "refractiveIndex");
         Objects.requireNonNull(thicknesses, "thicknesses");
-        description = Objects.requireNonNullElse(description, "");
+        description = StoredText.paragraph("description", Objects.requireNonNullElse(description, ""), MAX_DESCRIPTION);
         tags = List.copyOf(tags);
         for (String tag : tags) {
             if (tag.isBlank() || tag.contains(",")) {
-                throw new IllegalArgumentException("tag '" + tag + "' must be non-blank and contain no comma");
+                throw new FieldException("tags", "'" + tag + "' must be non-blank and contain no comma");
             }
+            StoredText.line("tags", tag, MAX_TAGS);
+        }
+        if (String.join(",", tags).length() > MAX_TAGS) {
+            throw new FieldException("tags", "must be at most " + MAX_TAGS + " characters together, with a comma between");
         }
     }
 }

@@ -8,6 +8,7 @@ import org.spectralsieve.optics.ConstantIndex;
 import org.spectralsieve.optics.RefractiveIndex;
 import org.spectralsieve.optics.SellmeierIndex;
 import org.spectralsieve.optics.TabulatedIndex;
+import org.spectralsieve.optics.UnusableIndex;
 import tools.jackson.databind.JsonNode;
 
 /**
@@ -35,6 +36,11 @@ public final class RefractiveIndexJson {
             json.put("kind", "table");
             json.put("wavelengthsNm", t.wavelengthsNm());
             json.put("n", t.n());
+        } else if (index instanceof UnusableIndex u) {
+            // a stored model today's checks refuse: shown as stored, with the reason, never used (docs/validation.md)
+            json.put("kind", "unusable");
+            json.put("stored", u.stored());
+            json.put("reason", u.reason());
         }
         return json;
     }

@@ -4,6 +4,8 @@ import java.util.Locale;
 import java.util.Objects;
 import java.util.Optional;
 import java.util.Set;
+import org.spectralsieve.optics.PhysicalRanges;
+import org.spectralsieve.optics.UnusableIndex;
 
 /**
  * Whether one stored sample may be rescaled to another thickness by Beer–Lambert, and why not: the one rule
@@ -40,6 +42,10 @@ public record SampleRescaling(boolean rescalable, String reason) {
     public static SampleRescaling of(Material material, SampleInfo sample) {
         Objects.requireNonNull(material, "material");
         Objects.requireNonNull(sample, "sample");
+        Optional<String> unusable = unusable(material, sample);
+        if (unusable.isPresent()) {
+            return new SampleRescaling(false, unusable.get());
+        }
         if (material.scaling() != Scaling.BULK) {
             return new SampleRescaling(false, null);
         }
@@ -50,6 +56,25 @@ public record SampleRescaling(boolean rescalable, String reason) {
                 .map(tag -> new SampleRescaling(false, "scattering material (tagged '" + tag
                         + "'): scatter is not absorption, so it is not rescaled"))
                 .orElse(new SampleRescaling(true, null));
+    }
+
+    /** Begins the reason of a sample whose stored record fails today's checks (docs/validation.md). */
+    public static final String NOT_COMPUTABLE = "could not be computed: ";
+
+    /**
+     * Why a stored sample cannot be rescaled or stacked at all, when its stored record fails today's checks:
+     * a thickness outside {@link PhysicalRanges}, or an index model that was refused on reading
+     * ({@link UnusableIndex}). Such a sample is still shown and judged as measured where nothing else is needed.
+     */
+    public static Optional<String> unusable(Material material, SampleInfo sample) {
+        if (!PhysicalRanges.isThicknessMm(sample.thicknessMm())) {
+            return Optional.of(NOT_COMPUTABLE + "the stored thickness " + sample.thicknessMm() + " mm lies outside "
+                    + PhysicalRanges.MIN_THICKNESS_MM + "–" + (long) PhysicalRanges.MAX_THICKNESS_MM + " mm");
+        }
+        if (material.refractiveIndex() instanceof UnusableIndex u) {
+            return Optional.of(NOT_COMPUTABLE + u.explanation());
+        }
+        return Optional.empty();
     }
 
     private static Optional<String> scatterTag(Material material) {

@@ -1,6 +1,7 @@
 package org.spectralsieve.library;
 
 import java.util.List;
+import org.spectralsieve.optics.PhysicalRanges;
 
 /**
  * The thicknesses a material's record states it exists in: stock thicknesses (mm, possibly none) and/or a
@@ -9,17 +10,25 @@ import java.util.List;
  */
 public record StatedThicknesses(List<Double> stockMm, double minMm, double maxMm) {
 
+    /** Stock sizes one material may list: far more than any maker offers, and they fit their column (V4). */
+    public static final int MAX_STOCK = 50;
+
     public static final StatedThicknesses NONE = new StatedThicknesses(List.of(), Double.NaN, Double.NaN);
 
     public StatedThicknesses {
         stockMm = stockMm.stream().sorted().distinct().toList();
+        if (stockMm.size() > MAX_STOCK) {
+            throw new IllegalArgumentException("at most " + MAX_STOCK + " stock thicknesses, got " + stockMm.size());
+        }
         for (double s : stockMm) {
-            if (!(s > 0) || !Double.isFinite(s)) {
-                throw new IllegalArgumentException("a stock thickness must be a number > 0 (mm), was " + s);
-            }
+            PhysicalRanges.requireThicknessMm("a stock thickness", s);
         }
         if (Double.isNaN(minMm) != Double.isNaN(maxMm)) {
             throw new IllegalArgumentException("a made range needs both ends (mm), got " + minMm + " to " + maxMm);
+        }
+        if (!Double.isNaN(minMm)) {
+            PhysicalRanges.requireThicknessMm("the made range's thinnest end", minMm);
+            PhysicalRanges.requireThicknessMm("the made range's thickest end", maxMm);
         }
         if (!Double.isNaN(minMm) && !(minMm > 0 && maxMm >= minMm && Double.isFinite(maxMm))) {
             throw new IllegalArgumentException("a made range runs from a thickness > 0 up to one not below it (mm), got "

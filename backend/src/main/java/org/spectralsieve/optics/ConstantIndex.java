@@ -10,9 +10,7 @@ public record ConstantIndex(double n) implements RefractiveIndex {
     public static final ConstantIndex WHEN_UNRECORDED = new ConstantIndex(1.5);
 
     public ConstantIndex {
-        if (!Double.isFinite(n) || n < 1) {
-            throw new IllegalArgumentException("refractive index n must be finite and >= 1, was " + n);
-        }
+        PhysicalRanges.requireIndex("refractive index n", n);
     }
 
     @Override

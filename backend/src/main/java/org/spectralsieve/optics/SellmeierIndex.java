@@ -43,11 +43,46 @@ public record SellmeierIndex(List<Double> b, List<Double> cMicronsSquared, doubl
             requireFinite("B at index " + i, b.get(i));
             requireFinite("C at index " + i, cMicronsSquared.get(i));
         }
-        requireFinite("validFromNm", validFromNm);
-        requireFinite("validToNm", validToNm);
-        if (!(validFromNm > 0 && validFromNm < validToNm)) {
+        PhysicalRanges.requireWavelengthNm("Sellmeier validFromNm", validFromNm);
+        PhysicalRanges.requireWavelengthNm("Sellmeier validToNm", validToNm);
+        if (!(validFromNm < validToNm)) {
             throw new IllegalArgumentException("validity range " + validFromNm + ".." + validToNm
-                    + " nm must be positive and increasing");
+                    + " nm must be increasing");
+        }
+        requirePhysicalOverValidRange(b, cMicronsSquared, validFromNm, validToNm);
+    }
+
+    /** Points at which a fit is evaluated over its stated range; with no resonance inside, n varies smoothly between them. */
+    private static final int CHECK_POINTS = 256;
+
+    /**
+     * The coefficients must describe a transparent material over the range they are stated for: no
+     * resonance (λ² = Ci) inside it, and n finite and within {@link PhysicalRanges#MIN_INDEX}..
+     * {@link PhysicalRanges#MAX_INDEX} at every checked point. A fit that fails this would turn every
+     * surface reflection computed from it into nonsense.
+     */
+    private static void requirePhysicalOverValidRange(List<Double> b, List<Double> c, double fromNm, double toNm) {
+        double lo2 = Math.pow(fromNm / 1000.0, 2);
+        double hi2 = Math.pow(toNm / 1000.0, 2);
+        for (int i = 0; i < c.size(); i++) {
+            if (c.get(i) >= lo2 && c.get(i) <= hi2) {
+                throw new IllegalArgumentException("Sellmeier C at index " + i + " (" + c.get(i) + " µm²) puts a resonance at "
+                        + Math.sqrt(c.get(i)) * 1000 + " nm, inside its stated valid range " + fromNm + ".." + toNm + " nm");
+            }
+        }
+        for (int k = 0; k <= CHECK_POINTS; k++) {
+            double nm = fromNm + (toNm - fromNm) * k / CHECK_POINTS;
+            double l2 = Math.pow(nm / 1000.0, 2);
+            double nSquared = 1;
+            for (int i = 0; i < b.size(); i++) {
+                nSquared += b.get(i) * l2 / (l2 - c.get(i));
+            }
+            double n = Math.sqrt(nSquared);
+            if (!PhysicalRanges.isIndex(n)) {
+                throw new IllegalArgumentException("Sellmeier coefficients give n = " + n + " at " + nm
+                        + " nm, inside their stated valid range " + fromNm + ".." + toNm + " nm; n must be from "
+                        + PhysicalRanges.MIN_INDEX + " to " + PhysicalRanges.MAX_INDEX + " there");
+            }
         }
     }
 

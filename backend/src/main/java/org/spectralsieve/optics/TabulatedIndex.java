@@ -21,18 +21,12 @@ public record TabulatedIndex(List<Double> wavelengthsNm, List<Double> n) impleme
         }
         for (int i = 0; i < n.size(); i++) {
             double nm = wavelengthsNm.get(i);
-            if (!Double.isFinite(nm) || nm <= 0) {
-                throw new IllegalArgumentException("index table wavelength at index " + i + " (" + nm
-                        + " nm) must be finite and > 0");
-            }
+            PhysicalRanges.requireWavelengthNm("index table wavelength at index " + i, nm);
             if (i > 0 && !(nm > wavelengthsNm.get(i - 1))) {
                 throw new IllegalArgumentException("index table wavelength at index " + i + " (" + nm
                         + " nm) is not greater than the previous one (" + wavelengthsNm.get(i - 1) + " nm)");
             }
-            if (!Double.isFinite(n.get(i)) || n.get(i) < 1) {
-                throw new IllegalArgumentException("index table n at index " + i + " (" + n.get(i) + " at "
-                        + nm + " nm) must be finite and >= 1");
-            }
+            PhysicalRanges.requireIndex("index table n at index " + i + " (" + nm + " nm)", n.get(i));
         }
     }
 

@@ -78,17 +78,36 @@ public final class SampleEvaluator {
                     ? "the requirement names a fixed layer ('" + requirement.layer().get().text() + "'); resolve it to a sample first"
                     : "a resolved layer was given for a requirement without one");
         }
-        CandidatePath path = new CandidatePath(candidate, layer);
         try {
-            return seenThrough(candidate, requirement, evaluate(path, requirement, span));
-        } catch (CurveException e) {
-            if (!path.stacked()) {
-                throw e;
+            CandidatePath path = new CandidatePath(candidate, layer);
+            try {
+                return seenThrough(candidate, requirement, evaluate(path, requirement, span));
+            } catch (CurveException e) {
+                if (!path.stacked()) {
+                    throw e;
+                }
+                // a stack is only known where both parts were measured: their ranges do not overlap
+                return unverified(candidate.sampleId(), candidate.thicknessMm(), requirement.clauses(),
+                        "no light path: " + e.getMessage());
             }
-            // a stack is only known where both parts were measured: their ranges do not overlap
-            return unverified(candidate.sampleId(), candidate.thicknessMm(), requirement.clauses(),
-                    "no light path: " + e.getMessage());
+        } catch (RuntimeException e) {
+            // one sample whose stored numbers defeat the computation (an index of 10¹⁶ stored before it was
+            // checked) must not take the whole search with it: its row says why and the others are judged
+            return notComputable(candidate.sampleId(), candidate.thicknessMm(), requirement.clauses(), e);
         }
+    }
+
+    /** Begins the reason of every row whose computation failed (docs/validation.md). */
+    public static final String NOT_COMPUTABLE = "could not be computed: ";
+
+    /**
+     * The row of a sample whose judgement failed: every clause UNVERIFIED with the failure's message, so
+     * that it ranks with the rows that cannot be judged and the search goes on.
+     */
+    public static SampleEvaluation notComputable(long sampleId, double thicknessMm, List<Clause> clauses, Throwable failure) {
+        String message = failure.getMessage() == null ? failure.getClass().getSimpleName() : failure.getMessage();
+        return unverified(sampleId, thicknessMm, clauses,
+                message.startsWith(NOT_COMPUTABLE) ? message : NOT_COMPUTABLE + message);
     }
 
     private static SampleEvaluation evaluate(CandidatePath path, Requirement requirement, ThicknessInterval span) {

@@ -21,6 +21,9 @@ import org.spectralsieve.library.SampleInfo;
 import org.spectralsieve.library.SampleRescaling;
 import org.spectralsieve.library.Scaling;
 import org.spectralsieve.library.StatedThicknesses;
+import org.spectralsieve.library.UnusableRecordException;
+import org.spectralsieve.optics.ConstantIndex;
+import org.spectralsieve.optics.PhysicalRanges;
 import org.spectralsieve.requirement.Aggregate;
 import org.spectralsieve.requirement.Candidate;
 import org.spectralsieve.requirement.Direction;
@@ -142,22 +145,46 @@ public class SearchService {
                                            boolean diffuseLayer) {
         MadeThicknesses made = made(material);
         List<Candidate> candidates = new ArrayList<>();
+        List<MaterialEvaluation> failed = new ArrayList<>();
         for (SampleInfo sample : material.samples()) {
             if (admits(requirement, material, sample)) {
-                Curve curve = library.findCurve(sample.id()).orElseThrow();
-                SampleRescaling rescaling = SampleRescaling.of(material, sample);
-                candidates.add(new Candidate(sample.id(), material.id(), material.name(), curve,
-                        sample.thicknessMm(), rescaling.rescalable(), material.refractiveIndex(), made,
-                        sample.geometry() == Geometry.TOTAL || diffuseLayer, rescaling.reason()));
+                try {
+                    Curve curve = library.findCurve(sample.id()).orElseThrow(
+                            () -> new IllegalStateException("the sample has no readable curve"));
+                    SampleRescaling rescaling = SampleRescaling.of(material, sample);
+                    candidates.add(new Candidate(sample.id(), material.id(), material.name(), curve,
+                            sample.thicknessMm(), rescaling.rescalable(), material.refractiveIndex(), made,
+                            sample.geometry() == Geometry.TOTAL || diffuseLayer, rescaling.reason()));
+                } catch (RuntimeException e) {
+                    failed.add(notComputable(material, sample.id(), sample.thicknessMm(), requirement, e));
+                }
             }
         }
-        return candidates.isEmpty() ? List.of() : MaterialJudge.evaluate(candidates, requirement, layer);
+        List<MaterialEvaluation> out = new ArrayList<>(failed);
+        if (!candidates.isEmpty()) {
+            try {
+                out.addAll(MaterialJudge.evaluate(candidates, requirement, layer));
+            } catch (RuntimeException e) {
+                // the material's samples are judged together: when that fails, each says why, the search goes on
+                candidates.forEach(c -> out.add(notComputable(material, c.sampleId(), c.thicknessMm(), requirement, e)));
+            }
+        }
+        return out;
+    }
+
+    /** An unverified row for a stored sample whose judgement failed, with the reason (docs/validation.md). */
+    private static MaterialEvaluation notComputable(Material material, long sampleId, double thicknessMm,
+                                                    Requirement requirement, RuntimeException e) {
+        return new MaterialEvaluation(material.id(), material.name(), SampleEvaluator.notComputable(sampleId,
+                Double.isFinite(thicknessMm) && thicknessMm > 0 ? thicknessMm : Double.NaN, requirement.clauses(), e));
     }
 
     /** The thicknesses a library material exists in: as its record states, else the assumed rule on its samples. */
     public static MadeThicknesses made(Material material) {
         StatedThicknesses t = material.thicknesses();
-        List<Double> measured = material.samples().stream().map(SampleInfo::thicknessMm).toList();
+        // a thickness stored before it was checked (1e-300 mm) says nothing about what is made
+        List<Double> measured = material.samples().stream().map(SampleInfo::thicknessMm)
+                .filter(PhysicalRanges::isThicknessMm).toList();
         return MadeThicknesses.of(t.stockMm(), t.minMm(), t.maxMm(), measured);
     }
 
@@ -371,7 +398,13 @@ public class SearchService {
         LayerMatcher.Match match = LayerMatcher.resolve(layer, materials);
         Material m = match.material();
         SampleInfo sample = match.sample();
-        Curve curve = library.findCurve(sample.id()).orElseThrow();
+        Optional<String> unusable = SampleRescaling.unusable(m, sample);
+        if (unusable.isPresent()) {
+            throw new UnusableRecordException("the part in front, sample " + sample.id() + " of '" + m.name() + "', "
+                    + unusable.get());
+        }
+        Curve curve = library.findCurve(sample.id()).orElseThrow(() -> new UnusableRecordException(
+                "the part in front, sample " + sample.id() + " of '" + m.name() + "', has no readable curve"));
         return StackLayer.of(layer, m.id(), m.name(), m.slug(), sample.id(), curve, sample.thicknessMm(),
                 SampleRescaling.of(m, sample).rescalable(), m.refractiveIndex());
     }
@@ -454,6 +487,11 @@ public class SearchService {
         }
     }
 
+    /** The nearest thickness inside the physical range, for a stored one outside it (never rescaled). */
+    private static double storableThickness(double mm) {
+        return mm > PhysicalRanges.MIN_THICKNESS_MM ? Math.min(mm, PhysicalRanges.MAX_THICKNESS_MM) : PhysicalRanges.MIN_THICKNESS_MM;
+    }
+
     /**
      * Reads the library into a new snapshot. The counters are read first, before any table: a write that
      * commits after that read is either missing from the tables read (and the number says so: the next
@@ -473,10 +511,18 @@ public class SearchService {
             m.samples().forEach(sample -> sampleById.put(sample.id(), sample));
             StoredMaterial stored = new StoredMaterial(m.id(), m.name(), m.materialClass().label(), made(m));
             for (SampleInfo sample : m.samples()) {
-                // the store rescales exactly what the exact evaluator rescales: never a diffuse or scattering sample
-                builder.add(sample.id(), stored, sample.thicknessMm(), SampleRescaling.of(m, sample).rescalable(),
-                        sample.geometry() == Geometry.TOTAL, m.refractiveIndex(),
-                        curves.get(sample.id()));
+                Curve curve = curves.get(sample.id());
+                if (curve == null) {
+                    continue; // unreadable (logged by the repository): judged only by the exact evaluator, which says why
+                }
+                // the store rescales exactly what the exact evaluator rescales: never a diffuse or scattering
+                // sample, nor one whose stored thickness or index fails today's checks (SampleRescaling.unusable):
+                // such a sample enters at a thickness and index the store can hold, never rescaled, and its
+                // exact row is unverified with the reason
+                boolean usable = SampleRescaling.unusable(m, sample).isEmpty();
+                builder.add(sample.id(), stored, usable ? sample.thicknessMm() : storableThickness(sample.thicknessMm()),
+                        SampleRescaling.of(m, sample).rescalable(), sample.geometry() == Geometry.TOTAL,
+                        usable ? m.refractiveIndex() : ConstantIndex.WHEN_UNRECORDED, curve);
             }
         }
         return new Snapshot(builder.build(), Map.copyOf(byId), Map.copyOf(sampleById), generation, invalidated);

@@ -109,10 +109,15 @@ public class DemoLibraryLoader {
         }
         double limit = s.path("detectionLimit").asDouble(0);
         String sha256 = Checksums.sha256(bytes);
-        NewSample sample = new NewSample(s.path("thicknessMm").asDouble(Double.NaN), Geometry.parse(s.path("geometry").asString("")),
+        NewSample sample;
+        try {
+            sample = new NewSample(s.path("thicknessMm").asDouble(Double.NaN), Geometry.parse(s.path("geometry").asString("")),
                 Provenance.parse(s.path("provenance").asString("")), s.path("instrument").asString(""), null,
                 s.path("lot").asString(""), s.path("notes").asString(""), limit, CurveIngest.toCurve(parsed, limit),
                 file, sha256);
+        } catch (IllegalArgumentException e) {
+            throw new IllegalArgumentException("sample " + file + ": " + e.getMessage(), e);
+        }
         return new SeedSample(sample, new SourceFile(file, "text/csv", "delimited", bytes, sha256));
     }
 

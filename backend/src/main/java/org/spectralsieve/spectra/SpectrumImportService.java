@@ -17,7 +17,9 @@ import org.spectralsieve.ingest.ImportProperties;
 import org.spectralsieve.ingest.ImportRequestException;
 import org.spectralsieve.ingest.ImportService;
 import org.spectralsieve.ingest.IngestException;
+import org.spectralsieve.library.FieldException;
 import org.spectralsieve.library.SourceFile;
+import org.spectralsieve.library.StoredText;
 import org.spectralsieve.weighting.Emitter;
 
 /**
@@ -71,10 +73,16 @@ public final class SpectrumImportService {
                     + Emitter.TOOL_MIN_NM + "–" + Emitter.TOOL_MAX_NM + " nm, the range this tool evaluates, so "
                     + used[0] + "–" + used[1] + " nm is used");
         }
-        NewReferenceSpectrum s = new NewReferenceSpectrum(kind, checked,
-                text("description", description, values, "description"),
-                text("provenance", provenanceNote, values, "source", "provenance"), values,
-                new SourceFile(file, format.mediaType(), format.label(), bytes, Checksums.sha256(bytes)));
+        NewReferenceSpectrum s;
+        try {
+            s = new NewReferenceSpectrum(kind, checked,
+                    text("description", description, values, "description"),
+                    text("provenance", provenanceNote, values, "source", "provenance"), values,
+                    new SourceFile(file, format.mediaType(), format.label(), bytes, Checksums.sha256(bytes)));
+        } catch (FieldException e) {
+            // the request's own texts are checked in text(); what is left came from the file
+            throw new IngestException(file, e.field(), e.getMessage());
+        }
         ReferenceSpectrum stored;
         try {
             stored = repository.insert(s);
@@ -181,13 +189,22 @@ public final class SpectrumImportService {
     /** The given text, else the first of the file's metadata keys that is present; at most 4000 characters. */
     private static String text(String field, String given, SpectrumValues v, String... metadataKeys) {
         String value = given == null ? "" : given.strip();
+        String from = null;
         for (int i = 0; value.isEmpty() && i < metadataKeys.length; i++) {
             value = v.metadata().getOrDefault(metadataKeys[i], "").strip();
+            from = metadataKeys[i];
         }
         if (value.length() > MAX_TEXT) {
             throw new ImportRequestException(field, "at most " + MAX_TEXT + " characters, got " + value.length());
         }
-        return value;
+        try {
+            return StoredText.paragraph(field, value, MAX_TEXT);
+        } catch (FieldException e) {
+            if (from != null && !value.isEmpty()) {
+                throw new IngestException(v.sourceName(), from, e.getMessage());
+            }
+            throw new ImportRequestException(field, e.getMessage());
+        }
     }
 
     private void checkSize(String file, long size) {
