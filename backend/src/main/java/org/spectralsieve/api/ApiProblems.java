@@ -11,6 +11,7 @@ import org.spectralsieve.ingest.IngestException;
 import org.spectralsieve.library.NotFoundException;
 import org.spectralsieve.library.NotRescalableException;
 import org.spectralsieve.requirement.RequirementSyntaxException;
+import org.spectralsieve.requirement.RequirementTooLargeException;
 import org.spectralsieve.search.LayerResolutionException;
 import org.spectralsieve.spectrum.CurveException;
 import org.springframework.beans.TypeMismatchException;
@@ -124,6 +125,17 @@ class ApiProblems extends ResponseEntityExceptionHandler {
         if (e.length() > 0) {
             problem.setProperty("length", e.length());
         }
+        return problem;
+    }
+
+    /** Refused before parsing or searching: says which bound and how far over it the request is. */
+    @ExceptionHandler(RequirementTooLargeException.class)
+    ProblemDetail requirementTooLarge(RequirementTooLargeException e) {
+        ProblemDetail problem = problem(HttpStatus.BAD_REQUEST, "Requirement too large", e.getMessage(), "requirement-too-large");
+        problem.setProperty("parameter", "requirement");
+        problem.setProperty("measure", e.measure().name().toLowerCase(java.util.Locale.ROOT));
+        problem.setProperty("limit", e.limit());
+        problem.setProperty("actual", e.actual());
         return problem;
     }
 
