@@ -20,12 +20,15 @@ import org.springframework.http.HttpStatus;
 import org.springframework.http.HttpStatusCode;
 import org.springframework.http.ProblemDetail;
 import org.springframework.http.ResponseEntity;
+import org.springframework.http.converter.HttpMessageNotReadableException;
 import org.springframework.web.bind.annotation.ExceptionHandler;
 import org.springframework.web.bind.annotation.RestControllerAdvice;
 import org.springframework.web.context.request.WebRequest;
 import org.springframework.web.method.annotation.MethodArgumentTypeMismatchException;
 import org.springframework.web.multipart.MaxUploadSizeExceededException;
 import org.springframework.web.servlet.mvc.method.annotation.ResponseEntityExceptionHandler;
+import tools.jackson.core.JacksonException;
+import tools.jackson.core.TokenStreamLocation;
 
 /**
  * Every error leaves the API as an RFC 9457 problem detail. A user's mistake is a 4xx that says what
@@ -55,7 +58,8 @@ class ApiProblems extends ResponseEntityExceptionHandler {
 
     @ExceptionHandler(ImportLimitException.class)
     ProblemDetail beyondLimit(ImportLimitException e) {
-        HttpStatus status = e.kind() == ImportLimitException.Kind.SIZE ? HttpStatus.CONTENT_TOO_LARGE : HttpStatus.BAD_REQUEST;
+        HttpStatus status = e.kind() == ImportLimitException.Kind.SIZE || e.kind() == ImportLimitException.Kind.RATIO
+                ? HttpStatus.CONTENT_TOO_LARGE : HttpStatus.BAD_REQUEST;
         String type = e.kind() == ImportLimitException.Kind.PATH ? "unsafe-path" : "import-limit";
         ProblemDetail problem = problem(status, e.kind() == ImportLimitException.Kind.PATH ? "Path outside the upload"
                 : "Import limit exceeded", e.getMessage(), type);
@@ -169,6 +173,42 @@ class ApiProblems extends ResponseEntityExceptionHandler {
     @ExceptionHandler(CurveException.class)
     ProblemDetail curveRefused(CurveException e) {
         return problem(HttpStatus.BAD_REQUEST, "Curve cannot be computed as asked", e.getMessage(), "curve-refused");
+    }
+
+    /**
+     * A body that is not JSON, or JSON of the wrong shape: where the parser stopped (line and column of
+     * the body, from the parser's own location) and what it expected there.
+     */
+    @Override
+    protected ResponseEntity<Object> handleHttpMessageNotReadable(HttpMessageNotReadableException e, HttpHeaders headers,
+                                                                  HttpStatusCode status, WebRequest request) {
+        JacksonException parse = null;
+        for (Throwable t = e; t != null && parse == null; t = t.getCause()) {
+            if (t instanceof JacksonException j) {
+                parse = j;
+            }
+        }
+        if (parse == null) {
+            ProblemDetail problem = problem(HttpStatus.BAD_REQUEST, "Body cannot be read",
+                    "the request body is missing or cannot be read as JSON", "bad-json");
+            return ResponseEntity.badRequest().body(problem);
+        }
+        TokenStreamLocation where = parse.getLocation();
+        String what = parse.getOriginalMessage() == null ? "not valid JSON" : parse.getOriginalMessage();
+        // the parser's message may quote a long stretch of the body; the position says enough
+        what = what.length() > 300 ? what.substring(0, 300) + "…" : what;
+        boolean located = where != null && where.getLineNr() > 0;
+        ProblemDetail problem = problem(HttpStatus.BAD_REQUEST, "Body is not valid JSON",
+                (located ? "line " + where.getLineNr() + ", column " + where.getColumnNr() + ": " : "") + what, "bad-json");
+        if (located) {
+            problem.setProperty("line", where.getLineNr());
+            problem.setProperty("column", where.getColumnNr());
+        }
+        String pointer = parse.getPathReference();
+        if (pointer != null && !pointer.isEmpty() && parse.getPath() != null && !parse.getPath().isEmpty()) {
+            problem.setProperty("field", pointer);
+        }
+        return ResponseEntity.badRequest().body(problem);
     }
 
     @ExceptionHandler(Exception.class)
