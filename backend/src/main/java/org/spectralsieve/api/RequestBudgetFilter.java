@@ -10,6 +10,7 @@ import java.util.LinkedHashMap;
 import java.util.Map;
 import java.util.Set;
 import org.spectralsieve.ingest.ImportGate;
+import org.spectralsieve.ingest.ImportProperties;
 import org.springframework.core.Ordered;
 import org.springframework.core.annotation.Order;
 import org.springframework.http.HttpHeaders;
@@ -34,9 +35,12 @@ class RequestBudgetFilter extends OncePerRequestFilter {
     private static final JsonMapper JSON = JsonMapper.builder().build();
 
     private final ImportGate gate;
+    private final long maxUploadBytes;
 
-    RequestBudgetFilter(ImportGate gate) {
+    RequestBudgetFilter(ImportGate gate, ImportProperties limits) {
         this.gate = gate;
+        // the multipart limits follow max-file-bytes; allow for the form's boundaries and fields
+        this.maxUploadBytes = limits.maxFileBytes() + 1024 * 1024;
     }
 
     @Override
@@ -61,6 +65,7 @@ class RequestBudgetFilter extends OncePerRequestFilter {
         try {
             turn = gate.enter();
         } catch (ImportGate.Busy busy) {
+            drain(request, response);
             response.setHeader(HttpHeaders.RETRY_AFTER, String.valueOf(busy.retryAfterSeconds()));
             refuse(response, 429, "Too many imports at once", busy.getMessage(), "imports-busy",
                     Map.of("retryAfterSeconds", busy.retryAfterSeconds(), "inFlight", busy.inFlight(),
@@ -69,6 +74,27 @@ class RequestBudgetFilter extends OncePerRequestFilter {
         }
         try (turn) {
             chain.doFilter(request, response);
+        }
+    }
+
+    /**
+     * Reads and discards the upload of a turned-away import (up to the upload limit, through a small buffer),
+     * so that a client still sending its body receives the 429 instead of a reset connection; beyond the
+     * limit the connection is closed.
+     */
+    private void drain(HttpServletRequest request, HttpServletResponse response) {
+        byte[] buffer = new byte[64 * 1024];
+        long read = 0;
+        try (var in = request.getInputStream()) {
+            for (int n = in.read(buffer); n >= 0; n = in.read(buffer)) {
+                read += n;
+                if (read > maxUploadBytes) {
+                    response.setHeader(HttpHeaders.CONNECTION, "close");
+                    return;
+                }
+            }
+        } catch (IOException e) {
+            response.setHeader(HttpHeaders.CONNECTION, "close");
         }
     }
 
@@ -83,8 +109,6 @@ class RequestBudgetFilter extends OncePerRequestFilter {
         response.setStatus(status);
         response.setContentType(ContainerProblems.MEDIA_TYPE);
         response.setCharacterEncoding(StandardCharsets.UTF_8.name());
-        // the body of a refused upload is not read; the connection is closed rather than drained
-        response.setHeader(HttpHeaders.CONNECTION, "close");
         response.getWriter().write(JSON.writeValueAsString(problem));
     }
 }
