@@ -183,8 +183,14 @@ class ApiProblems extends ResponseEntityExceptionHandler {
     protected ResponseEntity<Object> handleHttpMessageNotReadable(HttpMessageNotReadableException e, HttpHeaders headers,
                                                                   HttpStatusCode status, WebRequest request) {
         JacksonException parse = null;
-        for (Throwable t = e; t != null && parse == null; t = t.getCause()) {
-            if (t instanceof JacksonException j) {
+        for (Throwable t = e; t != null; t = t.getCause()) {
+            if (t instanceof JsonBodyTooLargeException tooLarge) {
+                ProblemDetail problem = problem(HttpStatus.CONTENT_TOO_LARGE, "JSON body too large", tooLarge.getMessage(),
+                        "request-too-large");
+                problem.setProperty("limit", RequestBudgetFilter.MAX_JSON_BYTES);
+                return ResponseEntity.status(HttpStatus.CONTENT_TOO_LARGE).body(problem);
+            }
+            if (parse == null && t instanceof JacksonException j) {
                 parse = j;
             }
         }

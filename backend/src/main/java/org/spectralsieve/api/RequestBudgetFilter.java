@@ -51,10 +51,14 @@ class RequestBudgetFilter extends OncePerRequestFilter {
             return;
         }
         String type = request.getContentType();
-        if (type != null && type.toLowerCase(java.util.Locale.ROOT).contains("json")
-                && request.getContentLengthLong() > MAX_JSON_BYTES) {
-            refuse(response, 413, "JSON body too large", "the request body has " + request.getContentLengthLong()
-                    + " bytes; at most " + MAX_JSON_BYTES + " are read", "request-too-large", Map.of("limit", MAX_JSON_BYTES));
+        if (type != null && type.toLowerCase(java.util.Locale.ROOT).contains("json")) {
+            if (request.getContentLengthLong() > MAX_JSON_BYTES) {
+                refuse(response, 413, "JSON body too large", "the request body has " + request.getContentLengthLong()
+                        + " bytes; at most " + MAX_JSON_BYTES + " are read", "request-too-large", Map.of("limit", MAX_JSON_BYTES));
+                return;
+            }
+            // a body without a length (chunked) is counted as it is read instead
+            chain.doFilter(new CappedBodyRequest(request, MAX_JSON_BYTES), response);
             return;
         }
         if (!IMPORT_PATHS.contains(request.getRequestURI())) {

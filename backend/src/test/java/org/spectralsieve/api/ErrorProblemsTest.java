@@ -73,4 +73,20 @@ class ErrorProblemsTest {
 
         assertThat(p.path("limit").asLong()).isEqualTo(RequestBudgetFilter.MAX_JSON_BYTES);
     }
+
+    @Test
+    void chunkedJsonBodyIsStoppedAtTheCapWhileBeingRead() throws Exception {
+        String chunk = "x".repeat(8000);
+        StringBuilder body = new StringBuilder();
+        String opening = "{\"requirement\": \"";
+        body.append(Integer.toHexString(opening.length())).append("\r\n").append(opening).append("\r\n");
+        for (int i = 0; i < 20; i++) {
+            body.append(Integer.toHexString(chunk.length())).append("\r\n").append(chunk).append("\r\n");
+        }
+        body.append("0\r\n\r\n");
+        JsonNode p = problem(RawHttp.send(port, "POST /api/search HTTP/1.1\nContent-Type: application/json\n"
+                + "Transfer-Encoding: chunked", body.toString().getBytes(StandardCharsets.US_ASCII)), 413);
+
+        assertThat(p.path("limit").asLong()).isEqualTo(RequestBudgetFilter.MAX_JSON_BYTES);
+    }
 }

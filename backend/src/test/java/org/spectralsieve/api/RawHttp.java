@@ -35,7 +35,7 @@ final class RawHttp {
                 h.append("\r\nHost: localhost");
             }
             h.append("\r\nConnection: close");
-            if (body != null) {
+            if (body != null && !head.toLowerCase(Locale.ROOT).contains("transfer-encoding:")) {
                 h.append("\r\nContent-Length: ").append(body.length);
             }
             h.append("\r\n\r\n");
