@@ -14,6 +14,7 @@ import org.spectralsieve.library.UnusableRecordException;
 import org.spectralsieve.optics.UnusableIndexException;
 import org.spectralsieve.library.NotRescalableException;
 import org.spectralsieve.requirement.RequirementSyntaxException;
+import org.spectralsieve.requirement.RequirementTooLargeException;
 import org.spectralsieve.search.LayerResolutionException;
 import org.spectralsieve.spectrum.CurveException;
 import org.springframework.beans.TypeMismatchException;
@@ -22,12 +23,15 @@ import org.springframework.http.HttpStatus;
 import org.springframework.http.HttpStatusCode;
 import org.springframework.http.ProblemDetail;
 import org.springframework.http.ResponseEntity;
+import org.springframework.http.converter.HttpMessageNotReadableException;
 import org.springframework.web.bind.annotation.ExceptionHandler;
 import org.springframework.web.bind.annotation.RestControllerAdvice;
 import org.springframework.web.context.request.WebRequest;
 import org.springframework.web.method.annotation.MethodArgumentTypeMismatchException;
 import org.springframework.web.multipart.MaxUploadSizeExceededException;
 import org.springframework.web.servlet.mvc.method.annotation.ResponseEntityExceptionHandler;
+import tools.jackson.core.JacksonException;
+import tools.jackson.core.TokenStreamLocation;
 
 /**
  * Every error leaves the API as an RFC 9457 problem detail. A user's mistake is a 4xx that says what
@@ -57,7 +61,8 @@ class ApiProblems extends ResponseEntityExceptionHandler {
 
     @ExceptionHandler(ImportLimitException.class)
     ProblemDetail beyondLimit(ImportLimitException e) {
-        HttpStatus status = e.kind() == ImportLimitException.Kind.SIZE ? HttpStatus.CONTENT_TOO_LARGE : HttpStatus.BAD_REQUEST;
+        HttpStatus status = e.kind() == ImportLimitException.Kind.SIZE || e.kind() == ImportLimitException.Kind.RATIO
+                ? HttpStatus.CONTENT_TOO_LARGE : HttpStatus.BAD_REQUEST;
         String type = e.kind() == ImportLimitException.Kind.PATH ? "unsafe-path" : "import-limit";
         ProblemDetail problem = problem(status, e.kind() == ImportLimitException.Kind.PATH ? "Path outside the upload"
                 : "Import limit exceeded", e.getMessage(), type);
@@ -130,6 +135,17 @@ class ApiProblems extends ResponseEntityExceptionHandler {
         return problem;
     }
 
+    /** Refused before parsing or searching: says which bound and how far over it the request is. */
+    @ExceptionHandler(RequirementTooLargeException.class)
+    ProblemDetail requirementTooLarge(RequirementTooLargeException e) {
+        ProblemDetail problem = problem(HttpStatus.BAD_REQUEST, "Requirement too large", e.getMessage(), "requirement-too-large");
+        problem.setProperty("parameter", "requirement");
+        problem.setProperty("measure", e.measure().name().toLowerCase(java.util.Locale.ROOT));
+        problem.setProperty("limit", e.limit());
+        problem.setProperty("actual", e.actual());
+        return problem;
+    }
+
     /** A fixed layer naming no single library sample: the choices, and a slug to write when one is likely. */
     @ExceptionHandler(LayerResolutionException.class)
     ProblemDetail layerUnresolved(LayerResolutionException e) {
@@ -178,6 +194,48 @@ class ApiProblems extends ResponseEntityExceptionHandler {
                 + e.getMessage(), "bad-parameter");
         problem.setProperty("parameter", e.field());
         return problem;
+    }
+
+    /**
+     * A body that is not JSON, or JSON of the wrong shape: where the parser stopped (line and column of
+     * the body, from the parser's own location) and what it expected there.
+     */
+    @Override
+    protected ResponseEntity<Object> handleHttpMessageNotReadable(HttpMessageNotReadableException e, HttpHeaders headers,
+                                                                  HttpStatusCode status, WebRequest request) {
+        JacksonException parse = null;
+        for (Throwable t = e; t != null; t = t.getCause()) {
+            if (t instanceof JsonBodyTooLargeException tooLarge) {
+                ProblemDetail problem = problem(HttpStatus.CONTENT_TOO_LARGE, "JSON body too large", tooLarge.getMessage(),
+                        "request-too-large");
+                problem.setProperty("limit", RequestBudgetFilter.MAX_JSON_BYTES);
+                return ResponseEntity.status(HttpStatus.CONTENT_TOO_LARGE).body(problem);
+            }
+            if (parse == null && t instanceof JacksonException j) {
+                parse = j;
+            }
+        }
+        if (parse == null) {
+            ProblemDetail problem = problem(HttpStatus.BAD_REQUEST, "Body cannot be read",
+                    "the request body is missing or cannot be read as JSON", "bad-json");
+            return ResponseEntity.badRequest().body(problem);
+        }
+        TokenStreamLocation where = parse.getLocation();
+        String what = parse.getOriginalMessage() == null ? "not valid JSON" : parse.getOriginalMessage();
+        // the parser's message may quote a long stretch of the body; the position says enough
+        what = what.length() > 300 ? what.substring(0, 300) + "…" : what;
+        boolean located = where != null && where.getLineNr() > 0;
+        ProblemDetail problem = problem(HttpStatus.BAD_REQUEST, "Body is not valid JSON",
+                (located ? "line " + where.getLineNr() + ", column " + where.getColumnNr() + ": " : "") + what, "bad-json");
+        if (located) {
+            problem.setProperty("line", where.getLineNr());
+            problem.setProperty("column", where.getColumnNr());
+        }
+        String pointer = parse.getPathReference();
+        if (pointer != null && !pointer.isEmpty() && parse.getPath() != null && !parse.getPath().isEmpty()) {
+            problem.setProperty("field", pointer);
+        }
+        return ResponseEntity.badRequest().body(problem);
     }
 
     @ExceptionHandler(Exception.class)

@@ -170,6 +170,7 @@ public final class RequirementJson {
         if (clausesNode == null || !clausesNode.isArray() || clausesNode.isEmpty()) {
             throw bad("clauses", "must be a non-empty list of clauses");
         }
+        RequirementLimits.checkClauseCount(clausesNode.size());
         List<Clause> clauses = new ArrayList<>();
         for (int i = 0; i < clausesNode.size(); i++) {
             clauses.add(clause(clausesNode.get(i), "clauses[" + i + "]", spectra));

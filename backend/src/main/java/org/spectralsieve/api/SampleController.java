@@ -23,6 +23,10 @@ class SampleController {
 
     static final double MAX_THICKNESS_MM = SampleCurves.MAX_THICKNESS_MM;
     static final double MIN_STEP_NM = 0.01;
+    /** A resampling grid lies within 0 to 100 µm: far beyond any stored curve, yet finite. */
+    static final double MAX_GRID_NM = 100_000;
+    /** Points of a resampled curve: as many as an import may store, so an answer is never larger than a file. */
+    static final int MAX_GRID_POINTS = 200_000;
 
     private final SampleCurves curves;
 
@@ -74,16 +78,28 @@ class SampleController {
                     "resampling needs both 'from' and 'to' (and optionally 'step', default 1 nm)");
         }
         double stepNm = step == null ? 1.0 : step;
-        if (!(stepNm >= MIN_STEP_NM)) {
-            throw new BadParameterException("step", "must be at least " + MIN_STEP_NM + " nm, got " + stepNm);
+        wavelengthParameter("from", from);
+        wavelengthParameter("to", to);
+        if (!(stepNm >= MIN_STEP_NM && stepNm <= MAX_GRID_NM)) {
+            throw new BadParameterException("step", "must be from " + MIN_STEP_NM + " to " + MAX_GRID_NM + " nm, got " + stepNm);
         }
         if (!(from < to)) {
             throw new BadParameterException("to", "must be greater than 'from' (" + from + " nm), got " + to);
+        }
+        if ((to - from) / stepNm > MAX_GRID_POINTS) {
+            throw new BadParameterException("step", "would give more than " + MAX_GRID_POINTS + " points from " + from
+                    + " to " + to + " nm; give a step of at least " + (to - from) / MAX_GRID_POINTS + " nm");
         }
         try {
             return new WavelengthGrid(from, to, stepNm);
         } catch (IllegalArgumentException e) {
             throw new BadParameterException("step", e.getMessage());
+        }
+    }
+
+    private static void wavelengthParameter(String name, double nm) {
+        if (!(nm >= 0 && nm <= MAX_GRID_NM)) {
+            throw new BadParameterException(name, "must be a wavelength from 0 to " + MAX_GRID_NM + " nm, got " + nm);
         }
     }
 }

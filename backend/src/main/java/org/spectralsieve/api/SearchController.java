@@ -7,6 +7,7 @@ import java.util.regex.Pattern;
 import org.spectralsieve.requirement.FixedLayer;
 import org.spectralsieve.requirement.Requirement;
 import org.spectralsieve.requirement.RequirementParser;
+import org.spectralsieve.requirement.RequirementTooLargeException;
 import org.spectralsieve.search.LayerResolutionException;
 import org.spectralsieve.search.SearchService;
 import org.spectralsieve.search.Shortlist;
@@ -84,6 +85,8 @@ class SearchController {
         if (node.isObject()) {
             try {
                 return RequirementJson.fromJson(node, spectra, classes);
+            } catch (RequirementTooLargeException e) {
+                throw e;
             } catch (IllegalArgumentException e) {
                 throw new BadParameterException("requirement." + e.getMessage().split(" ", 2)[0], e.getMessage());
             }
@@ -96,9 +99,10 @@ class SearchController {
         if (node == null || node.isNull()) {
             return DEFAULT_LIMIT;
         }
-        if (!node.isIntegralNumber() || node.asInt() < 1 || node.asInt() > MAX_LIMIT) {
+        // canConvertToInt first: 2147483648 or 1e30 must be refused, not overflow on the way to the check
+        if (!node.isIntegralNumber() || !node.canConvertToInt() || node.intValue() < 1 || node.intValue() > MAX_LIMIT) {
             throw new BadParameterException("limit", "must be a whole number from 1 to " + MAX_LIMIT + ", got " + node);
         }
-        return node.asInt();
+        return node.intValue();
     }
 }

@@ -10,6 +10,7 @@ import org.spectralsieve.requirement.RankedRow;
 import org.spectralsieve.requirement.Requirement;
 import org.spectralsieve.requirement.RequirementParser;
 import org.spectralsieve.requirement.RequirementSyntaxException;
+import org.spectralsieve.requirement.RequirementTooLargeException;
 import org.spectralsieve.requirement.SampleEvaluation;
 import org.spectralsieve.requirement.Standing;
 import org.spectralsieve.requirement.ThicknessSpec;
@@ -93,6 +94,8 @@ final class SearchCommand implements Callable<Integer> {
     private static void preParse(String text) {
         try {
             RequirementParser.parse(text, SpectrumLookup.builtIn());
+        } catch (RequirementTooLargeException e) {
+            throw new CliFailure(SieveCli.USAGE, List.of("requirement not read: " + e.getMessage()));
         } catch (RequirementSyntaxException e) {
             if (!e.unknownSpectrum()) {
                 throw new CliFailure(SieveCli.USAGE, RequirementErrorReport.lines(text, e));

@@ -83,14 +83,18 @@ public final class BatchImport {
                 throw new ImportLimitException(name, ImportLimitException.Kind.SIZE, "sieve.imports.max-zip-bytes",
                         "the zip has " + size + " bytes, more than the " + limits.maxZipBytes() + " allowed");
             }
-            return zip(name, Files.readAllBytes(path), progress);
+            try (BatchSource.Zip zip = BatchSource.Zip.open(ImportService.cleanName(name), path, limits)) {
+                return run(zip, progress);
+            }
         } catch (IOException e) {
             throw ImportException.ofSource(name, "cannot read: " + e.getMessage());
         }
     }
 
     public BatchReport zip(String name, byte[] zip, Progress progress) throws ImportException {
-        return run(new BatchSource.Zip(ImportService.cleanName(name), zip, limits), progress);
+        try (BatchSource.Zip source = BatchSource.Zip.of(ImportService.cleanName(name), zip, limits)) {
+            return run(source, progress);
+        }
     }
 
     private BatchReport run(BatchSource source, Progress progress) throws ImportException {

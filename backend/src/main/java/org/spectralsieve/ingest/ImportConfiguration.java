@@ -18,4 +18,10 @@ class ImportConfiguration {
     BatchImport batchImport(ImportService imports, JooqLibraryRepository library, ImportProperties limits) {
         return new BatchImport(imports, library, limits);
     }
+
+    /** One gate for every import endpoint, so that their memory is bounded together. */
+    @Bean
+    ImportGate importGate(ImportProperties limits) {
+        return ImportGate.of(limits);
+    }
 }

@@ -6,8 +6,11 @@ package org.spectralsieve.ingest;
  */
 public final class ImportLimitException extends RuntimeException {
 
-    /** What kind of limit: the HTTP layer answers 413 for {@link #SIZE}, 400 for the others. */
-    public enum Kind { SIZE, COUNT, PATH }
+    /**
+     * What kind of limit: the HTTP layer answers 413 for {@link #SIZE} and {@link #RATIO} (a zip entry that
+     * would inflate far beyond its compressed size), 400 for the others.
+     */
+    public enum Kind { SIZE, COUNT, PATH, RATIO }
 
     private final String sourceName;
     private final Kind kind;

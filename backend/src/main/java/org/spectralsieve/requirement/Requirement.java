@@ -19,6 +19,7 @@ public record Requirement(List<Clause> clauses, ThicknessSpec thickness, Optiona
         if (clauses.isEmpty()) {
             throw new IllegalArgumentException("a requirement needs at least one spectral clause");
         }
+        RequirementLimits.checkClauseCount(clauses.size());
         Objects.requireNonNull(thickness, "thickness");
         Objects.requireNonNull(materialClass, "materialClass");
         Objects.requireNonNull(geometry, "geometry");

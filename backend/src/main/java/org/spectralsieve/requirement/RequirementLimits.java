@@ -21,12 +21,38 @@ public final class RequirementLimits {
     public static final List<String> GEOMETRIES = List.of("regular", "total", Requirement.ANY_GEOMETRY);
     /** Longest material phrase of a fixed layer: a slug or a few words of a material's name. */
     public static final int MAX_MATERIAL_WORDS_LENGTH = 80;
+    /**
+     * Longest requirement text read. The longest sensible requirement (several weighted and spectral
+     * clauses, a thickness range, a class, a geometry and a fixed layer) is under 400 characters; 2000
+     * leaves room for wordy phrasing while parsing stays a matter of microseconds.
+     */
+    public static final int MAX_TEXT_LENGTH = 2000;
+    /**
+     * Most clauses in one requirement. Every clause is judged on every candidate sample (and solved for
+     * thickness), so the search's work grows with their number; a design brief rarely has more than ten.
+     */
+    public static final int MAX_CLAUSES = 24;
 
     private static final Pattern CLASS_LABEL = Pattern.compile("[a-z][a-z0-9 \\-]{0,38}[a-z0-9]");
     private static final Pattern MATERIAL_WORDS = Pattern.compile("[\\p{Ll}\\p{Lo}0-9][\\p{Ll}\\p{Lo}0-9 .\\-]*");
     private static final Pattern AND_WORD = Pattern.compile("(^|\\s)and(\\s|$)");
 
     private RequirementLimits() {
+    }
+
+    /** Refuses a text longer than {@link #MAX_TEXT_LENGTH} before anything reads it. */
+    public static void checkTextLength(String text) {
+        if (text != null && text.length() > MAX_TEXT_LENGTH) {
+            throw new RequirementTooLargeException(RequirementTooLargeException.Measure.CHARACTERS, text.length(),
+                    MAX_TEXT_LENGTH);
+        }
+    }
+
+    /** Refuses more than {@link #MAX_CLAUSES} clauses, counted before they are read one by one. */
+    public static void checkClauseCount(int clauses) {
+        if (clauses > MAX_CLAUSES) {
+            throw new RequirementTooLargeException(RequirementTooLargeException.Measure.CLAUSES, clauses, MAX_CLAUSES);
+        }
     }
 
     public static boolean isWavelength(double nm) {

@@ -99,6 +99,8 @@ public final class RequirementParser {
         if (text == null) {
             throw new RequirementSyntaxException(0, "a requirement such as " + EXAMPLE, "nothing", null);
         }
+        // before any tokenising: an oversized text is refused in constant time
+        RequirementLimits.checkTextLength(text);
         return new RequirementParser(text, Objects.requireNonNull(spectra, "spectra"), knownClasses).requirement();
     }
 

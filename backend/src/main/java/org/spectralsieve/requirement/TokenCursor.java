@@ -98,6 +98,8 @@ final class TokenCursor {
     static <T> T build(Token at, Supplier<T> constructor) {
         try {
             return constructor.get();
+        } catch (RequirementTooLargeException e) {
+            throw e; // a bound on the whole requirement, not a value at this token
         } catch (IllegalArgumentException e) {
             throw new RequirementSyntaxException(at.start(), "values the requirement model accepts", "'"
                     + e.getMessage() + "'", null);

@@ -13,7 +13,7 @@ import java.util.Map;
 final class Multipart {
 
     private static final HttpClient HTTP = HttpClient.newHttpClient();
-    private static final String BOUNDARY = "----sieve-test-boundary-7f3a";
+    static final String BOUNDARY = "----sieve-test-boundary-7f3a";
 
     private final String fileName;
     private final byte[] bytes;

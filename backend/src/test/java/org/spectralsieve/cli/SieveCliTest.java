@@ -90,6 +90,18 @@ class SieveCliTest {
     }
 
     @Test
+    void requirementBeyondTheLengthCapExitsTwoBeforeOpeningTheLibrary() {
+        String text = "passes over 80% at 365 nm and ".repeat(100) + "blocks under 1% at 405 nm";
+
+        Run run = cli("search", text);
+
+        assertThat(run.exitCode()).isEqualTo(SieveCli.USAGE);
+        assertThat(run.out()).isEmpty();
+        assertThat(run.err()).contains(text.length() + " characters").contains("at most "
+                + org.spectralsieve.requirement.RequirementLimits.MAX_TEXT_LENGTH);
+    }
+
+    @Test
     void unknownOptionExitsTwoWithPicocliMessage() {
         Run run = cli("search", FUSED_SILICA_AT_254, "--limti", "3");
 

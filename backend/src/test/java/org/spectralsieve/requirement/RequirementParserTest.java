@@ -257,10 +257,28 @@ class RequirementParserTest {
     }
 
     @Test
-    void tenThousandCharacterRequirementIsRead() {
+    void requirementLongerThanTheCapIsRefusedBeforeItIsRead() {
+        // 10,015 characters of valid clauses: refused by length alone, naming both numbers
         String text = "passes over 80% at 365 nm and ".repeat(333) + "blocks under 1% at 405 nm";
-        assertThat(text.length()).isGreaterThan(10_000);
-        assertThat(RequirementParser.parse(text).clauses()).hasSize(334);
+
+        assertThatThrownBy(() -> RequirementParser.parse(text)).isInstanceOfSatisfying(RequirementTooLargeException.class,
+                e -> {
+                    assertThat(e.measure()).isEqualTo(RequirementTooLargeException.Measure.CHARACTERS);
+                    assertThat(e.actual()).isEqualTo(text.length());
+                    assertThat(e.limit()).isEqualTo(RequirementLimits.MAX_TEXT_LENGTH);
+                });
+    }
+
+    @Test
+    void requirementWithMoreClausesThanTheCapIsRefusedAndOneAtTheCapIsRead() {
+        String clause = "passes over 80% at 365 nm and ";
+        String atCap = clause.repeat(RequirementLimits.MAX_CLAUSES - 1) + "blocks under 1% at 405 nm";
+        String overCap = clause.repeat(RequirementLimits.MAX_CLAUSES) + "blocks under 1% at 405 nm";
+        assertThat(overCap.length()).isLessThanOrEqualTo(RequirementLimits.MAX_TEXT_LENGTH);
+
+        assertThat(RequirementParser.parse(atCap).clauses()).hasSize(RequirementLimits.MAX_CLAUSES);
+        assertThatThrownBy(() -> RequirementParser.parse(overCap)).isInstanceOfSatisfying(RequirementTooLargeException.class,
+                e -> assertThat(e.actual()).isEqualTo(RequirementLimits.MAX_CLAUSES + 1));
     }
 
     @Test
@@ -299,6 +317,10 @@ class RequirementParserTest {
         } catch (RequirementSyntaxException e) {
             assertThat(e.position()).as(text).isBetween(0, text.length());
             assertThat(e.getMessage()).as(text).startsWith("at position " + e.position() + ": expected ");
+        } catch (RequirementTooLargeException e) {
+            // refused before reading: only a text beyond the cap, or with more clauses than judged
+            assertThat(text.length() > RequirementLimits.MAX_TEXT_LENGTH || e.measure() == RequirementTooLargeException.Measure.CLAUSES)
+                    .as(text).isTrue();
         } catch (RuntimeException e) {
             throw new AssertionError("'" + text + "' raised " + e, e);
         }
