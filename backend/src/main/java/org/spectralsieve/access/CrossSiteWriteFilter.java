@@ -11,6 +11,8 @@ import java.util.Locale;
 import java.util.Map;
 import java.util.Optional;
 import java.util.Set;
+import org.slf4j.Logger;
+import org.slf4j.LoggerFactory;
 import org.springframework.web.filter.OncePerRequestFilter;
 
 /**
@@ -32,6 +34,7 @@ import org.springframework.web.filter.OncePerRequestFilter;
  */
 public final class CrossSiteWriteFilter extends OncePerRequestFilter {
 
+    private static final Logger log = LoggerFactory.getLogger(CrossSiteWriteFilter.class);
     static final String FETCH_SITE = "Sec-Fetch-Site";
     private static final Set<String> SAFE_METHODS = Set.of("GET", "HEAD", "OPTIONS", "TRACE");
     private static final Set<String> OWN_FETCH_SITES = Set.of("same-origin", "none");
@@ -42,6 +45,8 @@ public final class CrossSiteWriteFilter extends OncePerRequestFilter {
         Optional<String> refusal = SAFE_METHODS.contains(request.getMethod().toUpperCase(Locale.ROOT))
                 ? Optional.empty() : refusal(request);
         if (refusal.isPresent()) {
+            // a page the user visited tried to change the library: worth a trace in the log
+            log.warn("Refused {} {}: {}", request.getMethod(), request.getRequestURI(), refusal.get());
             EdgeProblems.write(request, response, HttpServletResponse.SC_FORBIDDEN, "cross-site-write",
                     "Request from another site refused", refusal.get() + "; this tool accepts changes only from its"
                             + " own page or from clients that are not browsers (curl, scripts)",

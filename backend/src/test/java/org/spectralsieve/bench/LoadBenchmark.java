@@ -222,6 +222,7 @@ class LoadBenchmark {
     private record Library(List<Long> materials, List<Long> samples, List<Long> rescalable, long importMaterial) {
 
         private static final String BOUNDARY = "----sieve-load-bench-3c1d";
+        private static final int THICKNESS_STEPS = 9;
         private static final Map<Integer, byte[]> FILES = new ConcurrentHashMap<>();
 
         static Library prepare(HttpClient http, String base) throws Exception {
@@ -236,8 +237,8 @@ class LoadBenchmark {
             }
             List<Long> rescalable = new ArrayList<>();
             for (long s : samples) {
-                if (status(http, base + "/api/samples/" + s + "/curve?thicknessMm=4") == 200
-                        && status(http, base + "/api/samples/" + s + "/figures?thicknessMm=4&emitter=led-365") == 200
+                if (rescalableToEveryThickness(http, base, s)
+                        && status(http, base + "/api/samples/" + s + "/figures?thicknessMm=1.0&emitter=led-365") == 200
                         && status(http, base + "/api/samples/" + s + "/figures?emitter=led-365&response=actinic-uv") == 200) {
                     rescalable.add(s);
                 }
@@ -263,10 +264,25 @@ class LoadBenchmark {
             return new Library(materials, samples, rescalable, material);
         }
 
+        /** A fixed layer answers 200 at its measured thickness only, so every thickness the run asks for is tried. */
+        private static boolean rescalableToEveryThickness(HttpClient http, String base, long sample) throws Exception {
+            for (int k = 0; k < THICKNESS_STEPS; k++) {
+                if (status(http, base + "/api/samples/" + sample + "/curve?thicknessMm=" + thicknessMm(k)) != 200) {
+                    return false;
+                }
+            }
+            return true;
+        }
+
+        /** 1 to 5 mm in steps of 0.5 mm. */
+        private static double thicknessMm(int i) {
+            return 1 + Math.floorMod(i, THICKNESS_STEPS) * 0.5;
+        }
+
         HttpRequest request(String base, Kind kind, int i) {
             long sample = samples.get(Math.floorMod(i * 7919, samples.size()));
             long scalable = rescalable.get(Math.floorMod(i * 104729, rescalable.size()));
-            double mm = 1 + (i % 9) * 0.5;
+            double mm = thicknessMm(i);
             return switch (kind) {
                 case SEARCH_FIXED, SEARCH_THICKNESS, SEARCH_WEIGHTED, SEARCH_BEHIND -> search(base, kind);
                 case MATERIALS -> HttpRequest.newBuilder(URI.create(base + "/api/materials")).build();
