@@ -14,8 +14,6 @@ import org.spectralsieve.ingest.ImportService;
 import org.spectralsieve.library.JooqLibraryRepository;
 import org.spectralsieve.library.NotFoundException;
 import org.spectralsieve.library.SourceFile;
-import org.springframework.http.ContentDisposition;
-import org.springframework.http.HttpHeaders;
 import org.springframework.http.MediaType;
 import org.springframework.http.ResponseEntity;
 import org.springframework.web.bind.annotation.GetMapping;
@@ -80,10 +78,6 @@ class ImportController {
     @GetMapping("/api/samples/{id}/source-file")
     ResponseEntity<byte[]> sourceFile(@PathVariable("id") long id) {
         SourceFile f = library.findSourceFile(id).orElseThrow(() -> new NotFoundException("source file of sample", id));
-        return ResponseEntity.ok()
-                .contentType(MediaType.parseMediaType(f.mediaType()))
-                .header(HttpHeaders.CONTENT_DISPOSITION, ContentDisposition.attachment().filename(f.fileName()).build().toString())
-                .header("X-Checksum-SHA256", f.sha256())
-                .body(f.bytes());
+        return SourceFileDownload.of(f);
     }
 }

@@ -18,8 +18,6 @@ import org.spectralsieve.spectra.SpectrumKind;
 import org.spectralsieve.spectra.UnknownSpectrumException;
 import org.spectralsieve.weighting.Emitter;
 import org.spectralsieve.weighting.Response;
-import org.springframework.http.ContentDisposition;
-import org.springframework.http.HttpHeaders;
 import org.springframework.http.HttpStatus;
 import org.springframework.http.MediaType;
 import org.springframework.http.ProblemDetail;
@@ -166,11 +164,7 @@ class ReferenceSpectrumController {
         String key = key(name);
         SourceFile f = stored.findSourceFile(kind, key).orElseThrow(() -> new UnknownSpectrumException(kind, key,
                 spectra.isBuiltIn(kind, key) ? "it is built in and has no source file" : ""));
-        return ResponseEntity.ok()
-                .contentType(MediaType.parseMediaType(f.mediaType()))
-                .header(HttpHeaders.CONTENT_DISPOSITION, ContentDisposition.attachment().filename(f.fileName()).build().toString())
-                .header("X-Checksum-SHA256", f.sha256())
-                .body(f.bytes());
+        return SourceFileDownload.of(f);
     }
 
     @DeleteMapping(KINDS + "/{name}")

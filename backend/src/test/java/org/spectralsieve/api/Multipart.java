@@ -49,10 +49,16 @@ final class Multipart {
     }
 
     HttpResponse<String> post(int port, String path) throws Exception {
-        HttpRequest request = HttpRequest.newBuilder(URI.create("http://localhost:" + port + path))
+        return post(port, path, Map.of());
+    }
+
+    /** With extra request headers, e.g. the {@code Origin} and {@code Sec-Fetch-Site} a browser adds. */
+    HttpResponse<String> post(int port, String path, Map<String, String> headers) throws Exception {
+        HttpRequest.Builder request = HttpRequest.newBuilder(URI.create("http://localhost:" + port + path))
                 .header("Content-Type", "multipart/form-data; boundary=" + BOUNDARY)
-                .POST(HttpRequest.BodyPublishers.ofByteArray(body())).build();
-        return HTTP.send(request, HttpResponse.BodyHandlers.ofString());
+                .POST(HttpRequest.BodyPublishers.ofByteArray(body()));
+        headers.forEach(request::header);
+        return HTTP.send(request.build(), HttpResponse.BodyHandlers.ofString());
     }
 
     private static void write(ByteArrayOutputStream out, String s) {

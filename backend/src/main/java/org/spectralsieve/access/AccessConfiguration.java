@@ -1,0 +1,37 @@
+package org.spectralsieve.access;
+
+import org.springframework.beans.factory.annotation.Value;
+import org.springframework.boot.web.servlet.FilterRegistrationBean;
+import org.springframework.context.annotation.Bean;
+import org.springframework.context.annotation.Configuration;
+import org.springframework.core.Ordered;
+
+/** Installs the edge filters first in the chain, so a refused request is never parsed or logged further. */
+@Configuration(proxyBeanMethods = false)
+class AccessConfiguration {
+
+    @Bean
+    ListeningAddress listeningAddress(@Value("${server.address:}") String address) {
+        return new ListeningAddress(address);
+    }
+
+    @Bean
+    ListeningAddressReport listeningAddressReport(ListeningAddress address) {
+        return new ListeningAddressReport(address);
+    }
+
+    @Bean
+    FilterRegistrationBean<LoopbackHostFilter> loopbackHostFilter(ListeningAddress address) {
+        FilterRegistrationBean<LoopbackHostFilter> registration = new FilterRegistrationBean<>(new LoopbackHostFilter());
+        registration.setOrder(Ordered.HIGHEST_PRECEDENCE);
+        registration.setEnabled(address.isLoopback()); // opened to the network: its names are not known
+        return registration;
+    }
+
+    @Bean
+    FilterRegistrationBean<CrossSiteWriteFilter> crossSiteWriteFilter() {
+        FilterRegistrationBean<CrossSiteWriteFilter> registration = new FilterRegistrationBean<>(new CrossSiteWriteFilter());
+        registration.setOrder(Ordered.HIGHEST_PRECEDENCE + 1);
+        return registration;
+    }
+}

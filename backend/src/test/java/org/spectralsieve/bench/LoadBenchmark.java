@@ -1,0 +1,353 @@
+package org.spectralsieve.bench;
+
+import static org.spectralsieve.bench.BenchStats.ms;
+import static org.spectralsieve.bench.BenchStats.percentile;
+
+import java.io.ByteArrayOutputStream;
+import java.net.URI;
+import java.net.http.HttpClient;
+import java.net.http.HttpRequest;
+import java.net.http.HttpResponse;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.time.Duration;
+import java.util.ArrayList;
+import java.util.Collections;
+import java.util.EnumMap;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+import java.util.Random;
+import java.util.concurrent.ConcurrentHashMap;
+import java.util.concurrent.ConcurrentLinkedQueue;
+import java.util.concurrent.ExecutorService;
+import java.util.concurrent.Executors;
+import java.util.concurrent.TimeUnit;
+import java.util.concurrent.atomic.AtomicInteger;
+import org.junit.jupiter.api.Test;
+import org.spectralsieve.SpectralSieveApplication;
+import org.spectralsieve.ingest.Checksums;
+import org.springframework.boot.builder.SpringApplicationBuilder;
+import org.springframework.context.ConfigurableApplicationContext;
+import tools.jackson.databind.JsonNode;
+import tools.jackson.databind.json.JsonMapper;
+
+/**
+ * Load benchmark (run by {@code mvn -B -q -Pbench -pl backend -am verify}; not part of the test suite):
+ * the real service on loopback over an H2 file database holding the illustrative demo library, 50
+ * concurrent clients sending a fixed number of requests of a fixed mix (searches of several kinds, material
+ * and curve reads, weighted figures, imports). Prints {@code BENCH load clients=<c> requests=<n>
+ * errors=<e> ...} and per request kind {@code BENCH load-kind kind=<k> count p50_ms p95_ms p99_ms max_ms}.
+ *
+ * <p>An error is any answer other than the one the request must get (2xx; every request was tried once
+ * before the run, so a 4xx is a fault too) or a failed connection; 5xx are counted apart. After the run
+ * every import the server acknowledged (201) is read back, its original bytes by checksum and its curve,
+ * then again after the service was stopped and started on the same database; a missing one is
+ * {@code lost}. Nothing here asserts a time; the benchmark fails only when answers are wrong.
+ *
+ * <p>Switches: {@code -Dbench.loadRequests=2000}, {@code -Dbench.loadClients=50}.
+ */
+class LoadBenchmark {
+
+    private static final JsonMapper JSON = JsonMapper.builder().build();
+
+    enum Kind {
+        SEARCH_FIXED(14), SEARCH_THICKNESS(8), SEARCH_WEIGHTED(6), SEARCH_BEHIND(4),
+        MATERIALS(10), MATERIAL(12), CURVE(14), CURVE_RESCALED(8), FIGURES(10), FIGURES_RESCALED(4), IMPORT(10);
+
+        final int weight;
+
+        Kind(int weight) {
+            this.weight = weight;
+        }
+
+        String label() {
+            return name().toLowerCase(Locale.ROOT).replace('_', '-');
+        }
+    }
+
+    private static final Map<Kind, String> REQUIREMENTS = Map.of(
+            Kind.SEARCH_FIXED, "passes over 80% at 365 nm and blocks under 1% at 405 nm",
+            Kind.SEARCH_THICKNESS, "passes over 80% at 365 nm and blocks under 1% at 405 nm, thickness 1 to 6 mm",
+            Kind.SEARCH_WEIGHTED, "passes over 85% of led 365 and uv hazard under 0.1% and luminous over 70%",
+            Kind.SEARCH_BEHIND, "blocks under 1% at 405 nm and luminous over 70%, behind 4 mm clear float glass");
+
+    private record Outcome(Kind kind, int status, double ms, String failure) {
+    }
+
+    /** An import the server answered 201 for: what was sent and the sample it names. */
+    private record Acknowledged(long sampleId, String sha256) {
+    }
+
+    @Test
+    void fiftyClientsMixingSearchesReadsFiguresAndImports() throws Exception {
+        int requests = BenchStats.intProperty("bench.loadRequests", 2000);
+        int clients = BenchStats.intProperty("bench.loadClients", 50);
+        Path dir = Files.createTempDirectory("sieve-load-bench");
+        String dbUrl = "jdbc:h2:file:" + dir.resolve("sieve").toAbsolutePath() + ";AUTO_SERVER=FALSE";
+        HttpClient http = HttpClient.newBuilder().version(HttpClient.Version.HTTP_1_1)
+                .connectTimeout(Duration.ofSeconds(30)).build();
+
+        List<Acknowledged> acknowledged = Collections.synchronizedList(new ArrayList<>());
+        List<Outcome> outcomes;
+        long wallNanos;
+        try (ConfigurableApplicationContext app = start(dbUrl)) {
+            String base = "http://127.0.0.1:" + app.getEnvironment().getProperty("local.server.port");
+            Library library = Library.prepare(http, base);
+            Kind[] plan = plan(requests, new Random(20261203L));
+            AtomicInteger next = new AtomicInteger();
+            ConcurrentLinkedQueue<Outcome> done = new ConcurrentLinkedQueue<>();
+            ExecutorService pool = Executors.newFixedThreadPool(clients);
+            long t0 = System.nanoTime();
+            for (int c = 0; c < clients; c++) {
+                pool.submit(() -> {
+                    for (int i = next.getAndIncrement(); i < plan.length; i = next.getAndIncrement()) {
+                        done.add(send(http, base, library, plan[i], i, acknowledged));
+                    }
+                });
+            }
+            pool.shutdown();
+            if (!pool.awaitTermination(2, TimeUnit.HOURS)) {
+                throw new IllegalStateException("load run did not finish in 2 hours");
+            }
+            wallNanos = System.nanoTime() - t0;
+            outcomes = new ArrayList<>(done);
+            int lostLive = lost(http, base, acknowledged);
+            report(clients, outcomes, wallNanos, acknowledged.size(), lostLive, "live");
+        }
+        // the same database after a clean stop and start: acknowledged imports are still there
+        try (ConfigurableApplicationContext again = start(dbUrl)) {
+            String base = "http://127.0.0.1:" + again.getEnvironment().getProperty("local.server.port");
+            int lostRestart = lost(http, base, acknowledged);
+            System.out.printf("BENCH load-restart acknowledged=%d lost=%d%n", acknowledged.size(), lostRestart);
+            if (lostRestart > 0) {
+                throw new IllegalStateException(lostRestart + " acknowledged imports missing after restart");
+            }
+        }
+        long serverErrors = outcomes.stream().filter(o -> o.status() >= 500).count();
+        if (serverErrors > 0) {
+            throw new IllegalStateException(serverErrors + " answers were 5xx; see the BENCH load-failure lines");
+        }
+    }
+
+    private static ConfigurableApplicationContext start(String dbUrl) {
+        return new SpringApplicationBuilder(SpectralSieveApplication.class).run(
+                "--server.port=0", "--server.address=127.0.0.1", "--spring.datasource.url=" + dbUrl,
+                "--logging.level.root=WARN");
+    }
+
+    /** The kinds in a fixed, shuffled order with the weights' shares: every run sends the same mix. */
+    private static Kind[] plan(int requests, Random random) {
+        int total = 0;
+        for (Kind k : Kind.values()) {
+            total += k.weight;
+        }
+        List<Kind> plan = new ArrayList<>(requests);
+        for (Kind k : Kind.values()) {
+            int n = (int) Math.round((double) requests * k.weight / total);
+            for (int i = 0; i < n; i++) {
+                plan.add(k);
+            }
+        }
+        while (plan.size() < requests) {
+            plan.add(Kind.MATERIAL);
+        }
+        Collections.shuffle(plan, random);
+        return plan.subList(0, requests).toArray(Kind[]::new);
+    }
+
+    private static Outcome send(HttpClient http, String base, Library library, Kind kind, int i,
+                                List<Acknowledged> acknowledged) {
+        long t0 = System.nanoTime();
+        try {
+            HttpRequest request = library.request(base, kind, i);
+            HttpResponse<String> response = http.send(request, HttpResponse.BodyHandlers.ofString());
+            double ms = (System.nanoTime() - t0) / 1e6;
+            int status = response.statusCode();
+            boolean expected = kind == Kind.IMPORT ? status == 201 : status == 200;
+            if (kind == Kind.IMPORT && status == 201) {
+                acknowledged.add(new Acknowledged(JSON.readTree(response.body()).path("sampleId").asLong(),
+                        Checksums.sha256(Library.importFile(i))));
+            }
+            return new Outcome(kind, status, ms, expected ? null : abbreviate(response.body()));
+        } catch (Exception e) {
+            return new Outcome(kind, -1, (System.nanoTime() - t0) / 1e6, e.toString());
+        }
+    }
+
+    /** Acknowledged imports whose original bytes or curve cannot be read back. */
+    private static int lost(HttpClient http, String base, List<Acknowledged> acknowledged) throws Exception {
+        int lost = 0;
+        for (Acknowledged a : List.copyOf(acknowledged)) {
+            HttpResponse<byte[]> file = http.send(HttpRequest.newBuilder(URI.create(base + "/api/samples/" + a.sampleId()
+                    + "/source-file")).build(), HttpResponse.BodyHandlers.ofByteArray());
+            HttpResponse<String> curve = http.send(HttpRequest.newBuilder(URI.create(base + "/api/samples/" + a.sampleId()
+                    + "/curve")).build(), HttpResponse.BodyHandlers.ofString());
+            if (file.statusCode() != 200 || !Checksums.sha256(file.body()).equals(a.sha256()) || curve.statusCode() != 200) {
+                lost++;
+            }
+        }
+        return lost;
+    }
+
+    private static void report(int clients, List<Outcome> outcomes, long wallNanos, int acknowledged, int lost, String when) {
+        long errors = outcomes.stream().filter(o -> o.failure() != null).count();
+        long serverErrors = outcomes.stream().filter(o -> o.status() >= 500).count();
+        System.out.printf(Locale.ROOT, "BENCH load clients=%d requests=%d errors=%d server_errors=%d imports_acknowledged=%d"
+                        + " lost=%d wall_s=%.1f throughput_per_s=%.1f%n", clients, outcomes.size(), errors, serverErrors,
+                acknowledged, lost, wallNanos / 1e9, outcomes.size() / (wallNanos / 1e9));
+        Map<Kind, List<Double>> byKind = new EnumMap<>(Kind.class);
+        for (Outcome o : outcomes) {
+            byKind.computeIfAbsent(o.kind(), k -> new ArrayList<>()).add(o.ms());
+        }
+        byKind.forEach((kind, times) -> {
+            double[] t = times.stream().mapToDouble(Double::doubleValue).toArray();
+            System.out.printf("BENCH load-kind kind=%s count=%d p50_ms=%s p95_ms=%s p99_ms=%s max_ms=%s%n", kind.label(),
+                    t.length, ms(percentile(t, 50)), ms(percentile(t, 95)), ms(percentile(t, 99)), ms(percentile(t, 100)));
+        });
+        outcomes.stream().filter(o -> o.failure() != null).limit(10).forEach(o -> System.out.printf(
+                "BENCH load-failure kind=%s status=%d %s%n", o.kind().label(), o.status(), o.failure()));
+    }
+
+    private static String abbreviate(String body) {
+        String oneLine = body.replaceAll("\\s+", " ");
+        return oneLine.length() > 300 ? oneLine.substring(0, 300) + "…" : oneLine;
+    }
+
+    /**
+     * What the clients ask about: the demo library's samples (those that may be rescaled found by asking
+     * once), and one illustrative material the imports add samples to.
+     */
+    private record Library(List<Long> materials, List<Long> samples, List<Long> rescalable, long importMaterial) {
+
+        private static final String BOUNDARY = "----sieve-load-bench-3c1d";
+        private static final int THICKNESS_STEPS = 9;
+        private static final Map<Integer, byte[]> FILES = new ConcurrentHashMap<>();
+
+        static Library prepare(HttpClient http, String base) throws Exception {
+            JsonNode listing = JSON.readTree(get(http, base + "/api/materials"));
+            List<Long> materials = new ArrayList<>();
+            List<Long> samples = new ArrayList<>();
+            for (JsonNode m : listing.path("materials").isMissingNode() ? listing : listing.path("materials")) {
+                materials.add(m.path("id").asLong());
+                for (JsonNode s : m.path("samples")) {
+                    samples.add(s.path("id").asLong());
+                }
+            }
+            List<Long> rescalable = new ArrayList<>();
+            for (long s : samples) {
+                if (rescalableToEveryThickness(http, base, s)
+                        && status(http, base + "/api/samples/" + s + "/figures?thicknessMm=1.0&emitter=led-365") == 200
+                        && status(http, base + "/api/samples/" + s + "/figures?emitter=led-365&response=actinic-uv") == 200) {
+                    rescalable.add(s);
+                }
+            }
+            if (materials.isEmpty() || rescalable.isEmpty()) {
+                throw new IllegalStateException("demo library not loaded: " + materials.size() + " materials, "
+                        + rescalable.size() + " rescalable samples");
+            }
+            // one new bulk material outside the timed run; the timed imports add samples to it
+            HttpResponse<String> first = http.send(multipart(base, Map.of("materialName", "Illustrative load-test sheet",
+                    "materialClass", "plastic sheet", "scaling", "bulk", "indexN", "1.49", "thicknessMm", "3"),
+                    importFile(-1)), HttpResponse.BodyHandlers.ofString());
+            if (first.statusCode() != 201) {
+                throw new IllegalStateException("setup import refused: " + first.body());
+            }
+            long material = JSON.readTree(first.body()).path("materialId").asLong();
+            for (Kind k : REQUIREMENTS.keySet()) {
+                HttpResponse<String> r = http.send(search(base, k), HttpResponse.BodyHandlers.ofString());
+                if (r.statusCode() != 200) {
+                    throw new IllegalStateException(k + " requirement refused: " + r.body());
+                }
+            }
+            return new Library(materials, samples, rescalable, material);
+        }
+
+        /** A fixed layer answers 200 at its measured thickness only, so every thickness the run asks for is tried. */
+        private static boolean rescalableToEveryThickness(HttpClient http, String base, long sample) throws Exception {
+            for (int k = 0; k < THICKNESS_STEPS; k++) {
+                if (status(http, base + "/api/samples/" + sample + "/curve?thicknessMm=" + thicknessMm(k)) != 200) {
+                    return false;
+                }
+            }
+            return true;
+        }
+
+        /** 1 to 5 mm in steps of 0.5 mm. */
+        private static double thicknessMm(int i) {
+            return 1 + Math.floorMod(i, THICKNESS_STEPS) * 0.5;
+        }
+
+        HttpRequest request(String base, Kind kind, int i) {
+            long sample = samples.get(Math.floorMod(i * 7919, samples.size()));
+            long scalable = rescalable.get(Math.floorMod(i * 104729, rescalable.size()));
+            double mm = thicknessMm(i);
+            return switch (kind) {
+                case SEARCH_FIXED, SEARCH_THICKNESS, SEARCH_WEIGHTED, SEARCH_BEHIND -> search(base, kind);
+                case MATERIALS -> HttpRequest.newBuilder(URI.create(base + "/api/materials")).build();
+                case MATERIAL -> HttpRequest.newBuilder(URI.create(base + "/api/materials/"
+                        + materials.get(Math.floorMod(i * 31, materials.size())))).build();
+                case CURVE -> HttpRequest.newBuilder(URI.create(base + "/api/samples/" + sample + "/curve")).build();
+                case CURVE_RESCALED -> HttpRequest.newBuilder(URI.create(base + "/api/samples/" + scalable
+                        + "/curve?thicknessMm=" + mm)).build();
+                case FIGURES -> HttpRequest.newBuilder(URI.create(base + "/api/samples/" + scalable
+                        + "/figures?emitter=led-365&response=actinic-uv")).build();
+                case FIGURES_RESCALED -> HttpRequest.newBuilder(URI.create(base + "/api/samples/" + scalable
+                        + "/figures?emitter=led-365&thicknessMm=" + mm)).build();
+                case IMPORT -> multipart(base, Map.of("materialId", String.valueOf(importMaterial),
+                        "thicknessMm", String.valueOf(mm)), importFile(i));
+            };
+        }
+
+        private static HttpRequest search(String base, Kind kind) {
+            String body = "{\"requirement\": \"" + REQUIREMENTS.get(kind) + "\", \"limit\": 20}";
+            return HttpRequest.newBuilder(URI.create(base + "/api/search")).header("Content-Type", "application/json")
+                    .POST(HttpRequest.BodyPublishers.ofString(body)).build();
+        }
+
+        /**
+         * An invented sheet's curve, different for every request so that no import is a duplicate:
+         * a logistic absorption edge near 370 nm with a 0.1 % detection floor, 250–800 nm every 2 nm.
+         */
+        static byte[] importFile(int i) {
+            return FILES.computeIfAbsent(i, k -> {
+                StringBuilder csv = new StringBuilder("# sample: illustrative load-test sheet, request " + k + "\n"
+                        + "# detection_limit: 0.001\nwavelength_nm,transmittance\n");
+                double edge = 360 + Math.floorMod(k, 20);
+                for (int nm = 250; nm <= 800; nm += 2) {
+                    double t = 0.001 + 0.9 / (1 + Math.exp(-(nm - edge) / 6.0));
+                    csv.append(nm).append(',').append(String.format(Locale.ROOT, "%.6f", t)).append('\n');
+                }
+                return csv.toString().getBytes(StandardCharsets.UTF_8);
+            });
+        }
+
+        private static HttpRequest multipart(String base, Map<String, String> fields, byte[] file) {
+            ByteArrayOutputStream out = new ByteArrayOutputStream();
+            fields.forEach((k, v) -> out.writeBytes(("--" + BOUNDARY + "\r\nContent-Disposition: form-data; name=\"" + k
+                    + "\"\r\n\r\n" + v + "\r\n").getBytes(StandardCharsets.UTF_8)));
+            out.writeBytes(("--" + BOUNDARY + "\r\nContent-Disposition: form-data; name=\"file\"; filename=\"load.csv\""
+                    + "\r\nContent-Type: text/csv\r\n\r\n").getBytes(StandardCharsets.UTF_8));
+            out.writeBytes(file);
+            out.writeBytes(("\r\n--" + BOUNDARY + "--\r\n").getBytes(StandardCharsets.UTF_8));
+            return HttpRequest.newBuilder(URI.create(base + "/api/imports"))
+                    .header("Content-Type", "multipart/form-data; boundary=" + BOUNDARY)
+                    .POST(HttpRequest.BodyPublishers.ofByteArray(out.toByteArray())).build();
+        }
+
+        private static String get(HttpClient http, String url) throws Exception {
+            HttpResponse<String> r = http.send(HttpRequest.newBuilder(URI.create(url)).build(),
+                    HttpResponse.BodyHandlers.ofString());
+            if (r.statusCode() != 200) {
+                throw new IllegalStateException(url + " answered " + r.statusCode() + ": " + r.body());
+            }
+            return r.body();
+        }
+
+        private static int status(HttpClient http, String url) throws Exception {
+            return http.send(HttpRequest.newBuilder(URI.create(url)).build(), HttpResponse.BodyHandlers.discarding())
+                    .statusCode();
+        }
+    }
+}
