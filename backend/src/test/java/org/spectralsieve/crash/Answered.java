@@ -11,7 +11,9 @@ import org.spectralsieve.crash.CrashFiles.SentFile;
 /**
  * Everything the service acknowledged (answered 2xx), across all rounds: the ledger every restart is checked
  * against. An id is bound to the first file it was acknowledged for; a later acknowledgement of the same id
- * for another file or material is a reused id.
+ * for another file or material is a reused id. A new material or sample acknowledged after a restart must also
+ * get an id above every one acknowledged before it: H2's identity counters may skip values after a crash
+ * (they reserve them in blocks), but must never go back.
  */
 final class Answered {
 
@@ -28,7 +30,22 @@ final class Answered {
     private final Map<String, Spectrum> spectra = new ConcurrentHashMap<>();
     private final List<String> reused = new CopyOnWriteArrayList<>();
 
+    /** The highest ids acknowledged before the current round: a restarted process must hand out higher ones. */
+    private volatile long sampleIdsBefore;
+    private volatile long materialIdsBefore;
+
+    /** Called before each round's imports. */
+    void newRound() {
+        sampleIdsBefore = samples.keySet().stream().mapToLong(Long::longValue).max().orElse(0);
+        materialIdsBefore = materials.keySet().stream().mapToLong(Long::longValue).max().orElse(0);
+    }
+
     void sample(Sample s) {
+        if (s.sampleId() <= sampleIdsBefore && !samples.containsKey(s.sampleId())) {
+            reused.add("sample id " + s.sampleId() + " for " + s.file().name() + " (round " + s.round()
+                    + ") is not above the ids acknowledged before the restart (up to " + sampleIdsBefore
+                    + "): the id counter went back");
+        }
         Sample earlier = samples.putIfAbsent(s.sampleId(), s);
         if (earlier != null && !earlier.file().sha256().equals(s.file().sha256())) {
             reused.add("sample id " + s.sampleId() + " was acknowledged for " + earlier.file().name() + " (round "
@@ -38,6 +55,10 @@ final class Answered {
     }
 
     void material(long id, String name, int round) {
+        if (id <= materialIdsBefore && !materials.containsKey(id)) {
+            reused.add("material id " + id + " for '" + name + "' (round " + round + ") is not above the ids"
+                    + " acknowledged before the restart (up to " + materialIdsBefore + "): the id counter went back");
+        }
         String earlier = materials.putIfAbsent(id, name);
         if (earlier != null && !earlier.equals(name)) {
             reused.add("material id " + id + " was acknowledged for '" + earlier + "' and in round " + round

@@ -104,6 +104,7 @@ class AnsweredImportsSurviveKillTest {
                 if (round == rounds) {
                     break; // the last start only checks the last crash
                 }
+                answered.newRound();
                 boolean quiet = round % 4 == 3;
                 searchBeforeKill = runAndKill(server, client, random, quiet);
                 unanswered += client.unanswered.get();
