@@ -223,8 +223,10 @@ class AnsweredImportsSurviveKillTest {
                     .forEach(id -> problems.add("acknowledged material " + id + " is stored but not found by search"));
         }
         if (searchBeforeKill != null && !withoutTiming(search).equals(withoutTiming(searchBeforeKill))) {
-            problems.add("the search answered just before the kill differs from the one after restart:\n  before "
-                    + withoutTiming(searchBeforeKill) + "\n  after  " + withoutTiming(search));
+            problems.add("the search answered just before the kill differs from the one after restart: "
+                    + searchBeforeKill.path("results").size() + " rows before, " + search.path("results").size()
+                    + " after; judged " + searchBeforeKill.path("evaluatedSamples").asLong() + " before, "
+                    + search.path("evaluatedSamples").asLong() + " after");
         }
         spotCheck(client, answered, lost, random);
     }
