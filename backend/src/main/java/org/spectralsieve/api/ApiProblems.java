@@ -9,6 +9,7 @@ import org.spectralsieve.ingest.ImportProperties;
 import org.spectralsieve.ingest.ImportRequestException;
 import org.spectralsieve.ingest.IngestException;
 import org.spectralsieve.library.NotFoundException;
+import org.spectralsieve.library.RetiredException;
 import org.spectralsieve.library.NotRescalableException;
 import org.spectralsieve.requirement.RequirementSyntaxException;
 import org.spectralsieve.search.LayerResolutionException;
@@ -86,6 +87,16 @@ class ApiProblems extends ResponseEntityExceptionHandler {
         ProblemDetail problem = problem(HttpStatus.NOT_FOUND, "Not found", e.getMessage(), "not-found");
         problem.setProperty("resource", e.what());
         problem.setProperty("id", e.id());
+        return problem;
+    }
+
+    /** Acting on something retired (importing into a retired material): restore it first (docs/undo.md). */
+    @ExceptionHandler(RetiredException.class)
+    ProblemDetail retired(RetiredException e) {
+        ProblemDetail problem = problem(HttpStatus.CONFLICT, "Retired", e.getMessage(), "retired");
+        problem.setProperty("resource", e.what());
+        problem.setProperty("id", e.key());
+        problem.setProperty("retiredAt", e.retiredAt().toString());
         return problem;
     }
 

@@ -60,7 +60,7 @@ class PostgresReferenceSpectrumTest {
         }
         assertThat(back.createdAt()).isNotNull();
         assertThat(repository.findSourceFile(SpectrumKind.RESPONSE, s.name()).orElseThrow()).isEqualTo(s.file());
-        assertThat(repository.delete(SpectrumKind.RESPONSE, s.name())).isTrue();
+        assertThat(repository.retire(SpectrumKind.RESPONSE, s.name())).isPresent();
         assertThat(repository.find(SpectrumKind.RESPONSE, s.name())).isEmpty();
     }
 
