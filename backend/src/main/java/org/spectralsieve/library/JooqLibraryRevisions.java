@@ -9,6 +9,7 @@ import static org.spectralsieve.library.db.Tables.SAMPLE_REVISION;
 import java.time.Instant;
 import java.time.OffsetDateTime;
 import java.time.ZoneOffset;
+import java.time.temporal.ChronoUnit;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Optional;
@@ -72,7 +73,7 @@ public class JooqLibraryRevisions {
     public Retirement setRetired(Kind kind, long id, boolean retire) {
         return db.transactionResult(tx -> {
             DSLContext t = tx.dsl();
-            OffsetDateTime now = OffsetDateTime.now(ZoneOffset.UTC);
+            OffsetDateTime now = now();
             if (kind == Kind.SAMPLE) {
                 SampleRecord row = t.selectFrom(SAMPLE).where(SAMPLE.ID.eq(id)).forUpdate().fetchOptional()
                         .orElseThrow(() -> new NotFoundException("sample", id));
@@ -114,7 +115,7 @@ public class JooqLibraryRevisions {
             if (now.revision() == 1 && !t.fetchExists(SAMPLE_REVISION, SAMPLE_REVISION.SAMPLE_ID.eq(id))) {
                 insertSampleRevision(t, now, "", row.getCreatedAt());
             }
-            OffsetDateTime at = OffsetDateTime.now(ZoneOffset.UTC);
+            OffsetDateTime at = now();
             insertSampleRevision(t, next, correction.reason(), at);
             t.update(SAMPLE)
                     .set(SAMPLE.THICKNESS_MM, next.thicknessMm())
@@ -153,7 +154,7 @@ public class JooqLibraryRevisions {
                 insertMaterialRevision(t, id, 1, now.refractiveIndex(), now.thicknesses(), "", row.getCreatedAt());
             }
             int next = now.revision() + 1;
-            OffsetDateTime at = OffsetDateTime.now(ZoneOffset.UTC);
+            OffsetDateTime at = now();
             MaterialRevisionRecord stored = insertMaterialRevision(t, id, next, correction.indexFor(now),
                     correction.thicknessesFor(now), correction.reason(), at);
             MaterialRecord update = t.newRecord(MATERIAL);
@@ -230,6 +231,11 @@ public class JooqLibraryRevisions {
     public List<SampleInfo> retiredSamplesOf(long materialId) {
         return db.selectFrom(SAMPLE).where(SAMPLE.MATERIAL_ID.eq(materialId)).and(SAMPLE.RETIRED_AT.isNotNull())
                 .orderBy(SAMPLE.THICKNESS_MM, SAMPLE.ID).fetch().stream().map(JooqLibraryRepository::toSample).toList();
+    }
+
+    /** Now, to the microsecond both H2 and PostgreSQL keep, so the answer shows the instant stored. */
+    private static OffsetDateTime now() {
+        return OffsetDateTime.now(ZoneOffset.UTC).truncatedTo(ChronoUnit.MICROS);
     }
 
     private static void insertSampleRevision(DSLContext t, SampleInfo s, String reason, OffsetDateTime at) {

@@ -140,7 +140,7 @@ public class ReferenceSpectrumRepository {
                     .where(REFERENCE_SPECTRUM.KIND.eq(kind.label()).and(REFERENCE_SPECTRUM.NAME.eq(name)).and(IN_USE))
                     .forUpdate().fetchOptional(REFERENCE_SPECTRUM.ID);
             id.ifPresent(i -> t.update(REFERENCE_SPECTRUM)
-                    .set(REFERENCE_SPECTRUM.RETIRED_AT, OffsetDateTime.now(ZoneOffset.UTC))
+                    .set(REFERENCE_SPECTRUM.RETIRED_AT, OffsetDateTime.now(ZoneOffset.UTC).truncatedTo(java.time.temporal.ChronoUnit.MICROS))
                     .set(REFERENCE_SPECTRUM.RETIRED_KEY, i)
                     .where(REFERENCE_SPECTRUM.ID.eq(i)).execute());
             return id;
