@@ -142,3 +142,27 @@ export function importSpectrum(kind, { name, file, valueColumn, description }) {
   if (description) form.set('description', description);
   return getJson(`${BASE}/${encodeURIComponent(kind)}`, { method: 'POST', body: form });
 }
+
+// ---------- undo without loss (docs/undo.md): nothing is deleted, corrections are revisions ----------
+
+/** `kinds`: 'samples' or 'materials'. Answers { retiredAt, inUse, changed, note }. */
+export function retire(kinds, id) {
+  return postJson(`${BASE}/${kinds}/${encodeURIComponent(id)}/retire`, {});
+}
+
+export function restore(kinds, id) {
+  return postJson(`${BASE}/${kinds}/${encodeURIComponent(id)}/restore`, {});
+}
+
+/** `fields`: the values to change (text, as typed) and `reason`; answers the new revision. */
+export function correct(kinds, id, fields) {
+  return postJson(`${BASE}/${kinds}/${encodeURIComponent(id)}/revisions`, fields);
+}
+
+export function listRevisions(kinds, id) {
+  return getJson(`${BASE}/${kinds}/${encodeURIComponent(id)}/revisions`);
+}
+
+export function listRetiredMaterials() {
+  return getJson(`${BASE}/materials/retired`);
+}

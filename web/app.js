@@ -6,6 +6,7 @@ import * as fmt from './format.js';
 import { drawCurves, followWidth } from './chart.js';
 import { initSearch } from './search.js';
 import { initFigures } from './figures.js';
+import { initCuration, renderMaterialRecord, renderRetiredSamples, sampleControls } from './curation.js';
 
 const SAMPLE_COLOURS = ['#1d6a86', '#8a5a2b', '#4d7a37', '#7a3e6e', '#3d4f9a', '#9c4545', '#3c7f7a', '#6b6b2a'];
 const RESCALED_COLOUR = '#c2700f';
@@ -27,6 +28,8 @@ const dom = {
   index: el('detail-index'),
   made: el('detail-made'),
   sampleRows: el('sample-table').tBodies[0],
+  record: el('detail-record'),
+  retiredSamples: el('retired-samples'),
   axisMode: el('axis-mode'),
   rescaleForm: el('rescale-form'),
   rescaleFrom: el('rescale-from'),
@@ -205,7 +208,7 @@ function edgeCell(sample, level) {
 }
 
 function renderSamples(material) {
-  const columns = 3 + fmt.CUTOFF_LEVELS.length + fmt.REPORT_WAVELENGTHS_NM.length + 1;
+  const columns = 3 + fmt.CUTOFF_LEVELS.length + fmt.REPORT_WAVELENGTHS_NM.length + 2;
   const rows = material.samples.flatMap((s, i) => {
     const tr = document.createElement('tr');
     tr.dataset.sampleId = s.id;
@@ -225,6 +228,18 @@ function renderSamples(material) {
     const data = document.createElement('td');
     data.append(link);
     tr.append(data);
+    const { controls, formRow } = sampleControls(material, s, columns);
+    const record = document.createElement('td');
+    record.className = 'record-cell';
+    if (s.revision > 1) {
+      const revision = document.createElement('span');
+      revision.className = 'revision';
+      revision.textContent = `rev. ${s.revision} `;
+      revision.title = `revision ${s.revision} of this sample's metadata; earlier revisions are kept`;
+      record.append(revision);
+    }
+    record.append(...controls);
+    tr.append(record);
 
     // Where the numbers come from, on a line of its own so the table stays narrow.
     const about = [
@@ -235,15 +250,16 @@ function renderSamples(material) {
       Number.isFinite(s.detectionLimit) && s.detectionLimit > 0
         && `detection limit ${fmt.percent(s.detectionLimit)}`,
       s.notes,
+      s.revision > 1 && `revision ${s.revision} of its metadata (corrected; earlier revisions kept)`,
     ].filter(Boolean).join(' · ');
-    if (!about) return [tr];
+    if (!about) return [tr, formRow];
     tr.classList.add('has-about');
     const aboutRow = document.createElement('tr');
     aboutRow.className = 'sample-about';
     const aboutCell = cell(about);
     aboutCell.colSpan = columns;
     aboutRow.append(aboutCell);
-    return [tr, aboutRow];
+    return [tr, aboutRow, formRow];
   });
   dom.sampleRows.replaceChildren(...rows);
 }
@@ -260,6 +276,8 @@ function renderDetailHead(material) {
   }));
   dom.index.textContent = fmt.refractiveIndex(material.refractiveIndex);
   dom.made.textContent = fmt.madeThicknesses(material.madeThicknesses);
+  renderMaterialRecord(dom.record, material);
+  renderRetiredSamples(dom.retiredSamples, material);
 }
 
 /**
@@ -472,6 +490,14 @@ function wire() {
 }
 
 wire();
+initCuration({
+  showProblem,
+  clearMessage,
+  async reopen(id) {
+    await loadMaterials();
+    await selectMaterial(id);
+  },
+});
 initSearch({
   showProblem,
   clearMessage,

@@ -300,6 +300,15 @@ export function initSearch(ui) {
     const material = document.createElement('td');
     material.className = 'name';
     material.append(open);
+    if (result.sampleRevision > 1 || result.materialRevision > 1) {
+      // the row was judged on corrected metadata: say which revision (docs/undo.md)
+      const revision = document.createElement('span');
+      revision.className = 'revision';
+      revision.textContent = ` rev. ${result.sampleRevision}/${result.materialRevision}`;
+      revision.title = `judged on revision ${result.sampleRevision} of the sample's metadata and revision `
+        + `${result.materialRevision} of the material's index and made thicknesses`;
+      material.append(revision);
+    }
 
     const toggle = document.createElement('button');
     toggle.type = 'button';

@@ -12,6 +12,7 @@ import org.spectralsieve.library.FieldException;
 import org.spectralsieve.library.NotFoundException;
 import org.spectralsieve.library.UnusableRecordException;
 import org.spectralsieve.optics.UnusableIndexException;
+import org.spectralsieve.library.RetiredException;
 import org.spectralsieve.library.NotRescalableException;
 import org.spectralsieve.requirement.RequirementSyntaxException;
 import org.spectralsieve.requirement.RequirementTooLargeException;
@@ -94,6 +95,16 @@ class ApiProblems extends ResponseEntityExceptionHandler {
         ProblemDetail problem = problem(HttpStatus.NOT_FOUND, "Not found", e.getMessage(), "not-found");
         problem.setProperty("resource", e.what());
         problem.setProperty("id", e.id());
+        return problem;
+    }
+
+    /** Acting on something retired (importing into a retired material): restore it first (docs/undo.md). */
+    @ExceptionHandler(RetiredException.class)
+    ProblemDetail retired(RetiredException e) {
+        ProblemDetail problem = problem(HttpStatus.CONFLICT, "Retired", e.getMessage(), "retired");
+        problem.setProperty("resource", e.what());
+        problem.setProperty("id", e.key());
+        problem.setProperty("retiredAt", e.retiredAt().toString());
         return problem;
     }
 

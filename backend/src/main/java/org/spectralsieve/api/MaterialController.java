@@ -6,6 +6,7 @@ import org.spectralsieve.api.MaterialResponses.MaterialSummary;
 import org.spectralsieve.api.MaterialResponses.SampleDetail;
 import org.spectralsieve.library.SampleRescaling;
 import org.spectralsieve.library.JooqLibraryRepository;
+import org.spectralsieve.library.JooqLibraryRevisions;
 import org.spectralsieve.library.Material;
 import org.spectralsieve.library.NotFoundException;
 import org.spectralsieve.spectrum.Curve;
@@ -21,9 +22,11 @@ import org.springframework.web.bind.annotation.RestController;
 class MaterialController {
 
     private final JooqLibraryRepository library;
+    private final JooqLibraryRevisions revisions;
 
-    MaterialController(JooqLibraryRepository library) {
+    MaterialController(JooqLibraryRepository library, JooqLibraryRevisions revisions) {
         this.library = library;
+        this.revisions = revisions;
     }
 
     @GetMapping
@@ -42,6 +45,6 @@ class MaterialController {
             Curve curve = library.findCurve(s.id()).orElseThrow(() -> new NotFoundException("curve of sample", s.id()));
             return SampleDetail.of(s, curve, SampleRescaling.of(material, s));
         }).toList();
-        return MaterialDetail.of(material, samples);
+        return MaterialDetail.of(material, samples, revisions.retiredSamplesOf(id));
     }
 }

@@ -64,9 +64,10 @@ final class MaterialResponses {
      * where that first pass band falls back under the level (a band-pass material such as UV-pass black
      * glass or a green tinted sheet); null for a long-pass curve. {@code rescalable}: whether the curve may
      * be rescaled to another thickness; {@code notRescaledReason} says why not for a sample of a bulk
-     * material (a diffuse or scattering sample, {@link SampleRescaling}).
+     * material (a diffuse or scattering sample, {@link SampleRescaling}). {@code revision}: the revision
+     * of its metadata shown; {@code retiredAt}: when it was retired, null while in use (docs/undo.md).
      */
-    record SampleDetail(long id, double thicknessMm, String geometry, String provenance, String instrument,
+    record SampleDetail(long id, int revision, String retiredAt, double thicknessMm, String geometry, String provenance, String instrument,
                         String measuredOn, String lot, String notes, double detectionLimit, List<Double> rangeNm,
                         Map<String, Double> cutoffsNm, Map<String, Double> passBandEndsNm,
                         Map<String, Double> transmittanceAt, Map<String, Boolean> belowDetectionAt,
@@ -87,24 +88,51 @@ final class MaterialResponses {
                 at.put(String.valueOf(nm), orNull(t));
                 below.put(String.valueOf(nm), t.isPresent() ? curve.belowDetectionAt(nm) : null);
             }
-            return new SampleDetail(s.id(), s.thicknessMm(), s.geometry().label(), s.provenance().label(),
+            return new SampleDetail(s.id(), s.revision(), instant(s.retiredAt()), s.thicknessMm(), s.geometry().label(), s.provenance().label(),
                     s.instrument(), s.measuredOn() == null ? null : s.measuredOn().toString(), s.lot(), s.notes(),
                     s.detectionLimit(), List.of(curve.minWavelengthNm(), curve.maxWavelengthNm()), cutoffs, bandEnds, at,
                     below, rescaling.rescalable(), rescaling.reason());
         }
     }
 
-    record MaterialDetail(long id, String slug, String name, String materialClass, String description, String scaling,
-                          List<String> tags, Map<String, Object> refractiveIndex, Map<String, Object> madeThicknesses,
-                          List<SampleDetail> samples) {
-        static MaterialDetail of(Material m, List<SampleDetail> samples) {
-            return new MaterialDetail(m.id(), m.slug(), m.name(), m.materialClass().label(), m.description(),
-                    m.scaling().label(), m.tags(), RefractiveIndexJson.toJson(m.refractiveIndex()), made(m), samples);
+    /** A retired sample of a material in use or not: enough to find it and restore it (docs/undo.md). */
+    record RetiredSampleJson(long id, double thicknessMm, String geometry, int revision, String retiredAt) {
+        static RetiredSampleJson of(SampleInfo s) {
+            return new RetiredSampleJson(s.id(), s.thicknessMm(), s.geometry().label(), s.revision(), instant(s.retiredAt()));
         }
     }
 
-    record CurveResponse(long sampleId, double thicknessMm, boolean rescaled, double[] wavelengthsNm,
-                         double[] transmittance, boolean[] belowDetection, double detectionLimit) {
+    /**
+     * {@code revision}: the revision of its index and made thicknesses shown; {@code retiredAt}: when it was
+     * retired, null while in use; {@code retiredSamples}: its samples retired one by one (docs/undo.md).
+     */
+    record MaterialDetail(long id, String slug, String name, int revision, String retiredAt, String materialClass,
+                          String description, String scaling, List<String> tags, Map<String, Object> refractiveIndex,
+                          Map<String, Object> madeThicknesses, List<SampleDetail> samples,
+                          List<RetiredSampleJson> retiredSamples) {
+        static MaterialDetail of(Material m, List<SampleDetail> samples) {
+            return of(m, samples, List.of());
+        }
+
+        static MaterialDetail of(Material m, List<SampleDetail> samples, List<SampleInfo> retiredSamples) {
+            return new MaterialDetail(m.id(), m.slug(), m.name(), m.revision(), instant(m.retiredAt()),
+                    m.materialClass().label(), m.description(), m.scaling().label(), m.tags(),
+                    RefractiveIndexJson.toJson(m.refractiveIndex()), made(m), samples,
+                    retiredSamples.stream().map(RetiredSampleJson::of).toList());
+        }
+    }
+
+    static String instant(java.time.Instant t) {
+        return t == null ? null : t.toString();
+    }
+
+    /**
+     * {@code sampleRevision}, {@code materialRevision}: the revisions the curve was read through;
+     * {@code retiredAt}: when the sample (or its material) was retired, null while in use (docs/undo.md).
+     */
+    record CurveResponse(long sampleId, int sampleRevision, int materialRevision, String retiredAt, double thicknessMm,
+                         boolean rescaled, double[] wavelengthsNm, double[] transmittance, boolean[] belowDetection,
+                         double detectionLimit) {
     }
 
     private static Double orNull(OptionalDouble value) {

@@ -42,8 +42,10 @@ class SampleController {
                         @RequestParam(name = "step", required = false) Double step) {
         SampleCurve result = fetch(id, thicknessMm, from, to, step);
         Curve c = StatedCurve.of(result.curve()); // nothing beneath OD 12, as the CSV
-        return new CurveResponse(id, result.thicknessMm(), result.rescaled(), c.wavelengthsNm(), c.transmittances(),
-                c.belowDetectionFlags(), c.maxDetectionLimit());
+        java.time.Instant retired = result.sample().retired() ? result.sample().retiredAt() : result.material().retiredAt();
+        return new CurveResponse(id, result.sample().revision(), result.material().revision(),
+                MaterialResponses.instant(retired), result.thicknessMm(), result.rescaled(), c.wavelengthsNm(),
+                c.transmittances(), c.belowDetectionFlags(), c.maxDetectionLimit());
     }
 
     @GetMapping("/curve.csv")

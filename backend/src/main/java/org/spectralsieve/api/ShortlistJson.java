@@ -41,7 +41,8 @@ public final class ShortlistJson {
         json.put("requirement", RequirementJson.toJson(shortlist.requirement()));
         caution(shortlist.requirement()).ifPresent(c -> json.put("caution", c));
         shortlist.layer().ifPresent(layer -> json.put("layer", layer(layer)));
-        json.put("results", shortlist.rows().stream().map(r -> row(r, shortlist.geometry(r))).toList());
+        json.put("results", shortlist.rows().stream().map(r -> withRevisions(row(r, shortlist.geometry(r)),
+                shortlist.revisions(r))).toList());
         json.put("groups", groups(shortlist));
         json.put("evaluatedSamples", shortlist.evaluatedSamples());
         json.put("judgedExactly", shortlist.judgedExactly());
@@ -91,6 +92,22 @@ public final class ShortlistJson {
     }
 
     /** @param geometry how the row's sample was measured: "regular" (direct beam) or "total" (with scatter) */
+    /**
+     * The revisions of the row's sample and material it was judged on, after the sample id (docs/undo.md);
+     * null when not known.
+     */
+    private static Map<String, Object> withRevisions(Map<String, Object> row, Shortlist.Revisions revisions) {
+        Map<String, Object> json = new LinkedHashMap<>();
+        row.forEach((key, value) -> {
+            json.put(key, value);
+            if (key.equals("sampleId")) {
+                json.put("sampleRevision", revisions == null ? null : revisions.sample());
+                json.put("materialRevision", revisions == null ? null : revisions.material());
+            }
+        });
+        return json;
+    }
+
     static Map<String, Object> row(RankedRow row, String geometry) {
         SampleEvaluation e = row.evaluation();
         Map<String, Object> json = new LinkedHashMap<>();

@@ -107,7 +107,8 @@ class WeightingController {
         }
     }
 
-    record FiguresJson(long sampleId, double thicknessMm, boolean rescaled, String emitter, String response,
+    /** {@code sampleRevision}, {@code materialRevision}: the revisions the figures were computed with (docs/undo.md). */
+    record FiguresJson(long sampleId, int sampleRevision, int materialRevision, double thicknessMm, boolean rescaled, String emitter, String response,
             String solar, FigureJson effectiveTransmittance, FigureJson protectionFactor,
             FigureJson erythemalProtectionFactor, FigureJson actinicUvProtectionFactor, FigureJson upf,
             String bandConvention, List<FigureJson> bandMeans, FigureJson criticalWavelength,
@@ -165,7 +166,7 @@ class WeightingController {
         }
         FigureSheet sheet = FigureSheet.of(seen, emitter, response, convention, solar);
         WeightedFigures.Report r = sheet.report();
-        return new FiguresJson(id, sample.thicknessMm(), sample.rescaled(), emitter.name(), response.name(),
+        return new FiguresJson(id, sample.sample().revision(), sample.material().revision(), sample.thicknessMm(), sample.rescaled(), emitter.name(), response.name(),
                 solar == null ? null : solar.name(),
                 FigureJson.of(r.effectiveTransmittance()), FigureJson.of(r.protectionFactor()),
                 FigureJson.of(r.erythemalProtectionFactor()), FigureJson.of(r.actinicUvProtectionFactor()),

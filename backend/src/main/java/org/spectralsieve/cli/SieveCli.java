@@ -12,9 +12,11 @@ import picocli.CommandLine.Command;
 @Command(name = "spectral-sieve", mixinStandardHelpOptions = true, scope = CommandLine.ScopeType.INHERIT,
         versionProvider = SieveCli.Version.class,
         description = "Search the transmittance library by requirement, list its materials, export a curve, compute a"
-                + " sample's weighted figures, import files and emitter or response spectra.",
+                + " sample's weighted figures, import files and emitter or response spectra, retire, restore and correct"
+                + " them.",
         subcommands = {SearchCommand.class, ExportCommand.class, MaterialsCommand.class, ImportCommand.class,
                 ImportSpectrumCommand.class, FiguresCommand.class,
+                RetireCommand.class, RestoreCommand.class, CorrectCommand.class, RevisionsCommand.class,
                 CommandLine.HelpCommand.class},
         exitCodeListHeading = "%nExit codes:%n",
         exitCodeList = {
@@ -28,7 +30,8 @@ public final class SieveCli {
     public static final int USAGE = 2;
 
     /** First arguments that mean "run the command line" rather than "start the web service". */
-    private static final Set<String> ENTRY_WORDS = Set.of("search", "export", "materials", "import", "import-spectrum", "figures", "help",
+    private static final Set<String> ENTRY_WORDS = Set.of("search", "export", "materials", "import", "import-spectrum", "figures",
+            "retire", "restore", "correct", "revisions", "help",
             "--help", "-h", "--version", "-V");
 
     private SieveCli() {

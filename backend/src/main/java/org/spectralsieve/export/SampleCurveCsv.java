@@ -24,6 +24,13 @@ public final class SampleCurveCsv {
         metadata.put("material", result.material().slug());
         metadata.put("material_name", result.material().name());
         metadata.put("sample_id", String.valueOf(result.sample().id()));
+        // the revisions the curve is read through: a corrected thickness or limit changes what the numbers mean
+        metadata.put("sample_revision", String.valueOf(result.sample().revision()));
+        metadata.put("material_revision", String.valueOf(result.material().revision()));
+        if (result.sample().retired() || result.material().retired()) {
+            metadata.put("retired_at", String.valueOf(result.sample().retired() ? result.sample().retiredAt()
+                    : result.material().retiredAt()));
+        }
         metadata.put("thickness_mm", String.valueOf(result.thicknessMm()));
         metadata.put("rescaled", String.valueOf(result.rescaled()));
         metadata.put("geometry", result.sample().geometry().label());

@@ -25,6 +25,7 @@ import org.spectralsieve.library.JooqLibraryRepository;
 import org.spectralsieve.library.NewMaterial;
 import org.spectralsieve.library.NewSample;
 import org.spectralsieve.library.NotFoundException;
+import org.spectralsieve.library.RetiredException;
 import org.spectralsieve.optics.ConstantIndex;
 
 /**
@@ -202,7 +203,8 @@ public final class BatchImport {
             ImportResult result = imports.store(file, bytes, options, target, fields);
             return new FileReport(row.line(), file, result.duplicate() ? Outcome.DUPLICATE : Outcome.STORED,
                     result.materialId(), result.materialSlug(), result.sampleId(), null, result.warnings());
-        } catch (ImportException | IngestException | ImportLimitException | ImportRequestException | NotFoundException e) {
+        } catch (ImportException | IngestException | ImportLimitException | ImportRequestException | NotFoundException
+                 | RetiredException e) {
             return refused(row, file, e.getMessage());
         } catch (IllegalArgumentException e) {
             return refused(row, file, e.getMessage());

@@ -49,7 +49,7 @@ public class JooqLibraryRepository {
 
     /** Materials, optionally of one class and matching a free-text filter over name, description and tags. */
     public List<Material> findMaterials(String materialClass, String text) {
-        Condition where = DSL.trueCondition();
+        Condition where = MATERIAL.RETIRED_AT.isNull(); // a retired material is read by id only (docs/undo.md)
         if (materialClass != null && !materialClass.isBlank()) {
             where = where.and(MATERIAL.MATERIAL_CLASS.eq(materialClass.trim().toLowerCase(Locale.ROOT)));
         }
@@ -84,6 +84,7 @@ public class JooqLibraryRepository {
         }
     }
 
+    /** The material, retired or not, with its samples in use. */
     public Optional<Material> findMaterial(long id) {
         return db.selectFrom(MATERIAL).where(MATERIAL.ID.eq(id)).fetchOptional()
                 .map(m -> toMaterial(m, samplesOf(List.of(id)).getOrDefault(id, List.of())));
@@ -93,6 +94,7 @@ public class JooqLibraryRepository {
         return db.select(MATERIAL.ID).from(MATERIAL).where(MATERIAL.SLUG.eq(slug)).fetchOptional(MATERIAL.ID);
     }
 
+    /** The sample, retired or not, as its current revision states it. */
     public Optional<SampleInfo> findSample(long id) {
         return db.selectFrom(SAMPLE).where(SAMPLE.ID.eq(id)).fetchOptional().map(JooqLibraryRepository::toSample);
     }
@@ -103,10 +105,12 @@ public class JooqLibraryRepository {
                 .map(JooqLibraryRepository::toCurve);
     }
 
-    /** Every stored curve by sample id, for building derived stores. */
+    /** Every curve of a sample in use (neither it nor its material retired) by sample id, for derived stores. */
     public Map<Long, Curve> findAllCurves() {
         Map<Long, Curve> curves = new LinkedHashMap<>();
         db.select(CURVE.asterisk(), SAMPLE.DETECTION_LIMIT).from(CURVE).join(SAMPLE).on(SAMPLE.ID.eq(CURVE.SAMPLE_ID))
+                .join(MATERIAL).on(MATERIAL.ID.eq(SAMPLE.MATERIAL_ID))
+                .where(SAMPLE.RETIRED_AT.isNull()).and(MATERIAL.RETIRED_AT.isNull())
                 .orderBy(CURVE.SAMPLE_ID).fetch()
                 .forEach(r -> {
                     try {
@@ -120,9 +124,10 @@ public class JooqLibraryRepository {
         return curves;
     }
 
-    /** The material whose name equals {@code name} ignoring case (the oldest when several do). */
+    /** The material in use whose name equals {@code name} ignoring case (the oldest when several do). */
     public Optional<Long> findMaterialIdByName(String name) {
         return db.select(MATERIAL.ID).from(MATERIAL).where(DSL.lower(MATERIAL.NAME).eq(name.trim().toLowerCase(Locale.ROOT)))
+                .and(MATERIAL.RETIRED_AT.isNull())
                 .orderBy(MATERIAL.ID).limit(1).fetchOptional(MATERIAL.ID);
     }
 
@@ -186,8 +191,12 @@ public class JooqLibraryRepository {
             String slug;
             if (existingMaterialId != null) {
                 materialId = existingMaterialId;
-                slug = t.select(MATERIAL.SLUG).from(MATERIAL).where(MATERIAL.ID.eq(materialId)).fetchOptional(MATERIAL.SLUG)
-                        .orElseThrow(() -> new NotFoundException("material", existingMaterialId));
+                Record target = t.select(MATERIAL.SLUG, MATERIAL.RETIRED_AT).from(MATERIAL).where(MATERIAL.ID.eq(materialId))
+                        .fetchOptional().orElseThrow(() -> new NotFoundException("material", existingMaterialId));
+                if (target.get(MATERIAL.RETIRED_AT) != null) {
+                    throw new RetiredException("material", materialId, target.get(MATERIAL.RETIRED_AT).toInstant());
+                }
+                slug = target.get(MATERIAL.SLUG);
                 Optional<Long> same = findDuplicate(t, materialId, sample.sourceSha256(), sample.thicknessMm());
                 if (same.isPresent()) {
                     return new StoredImport(materialId, slug, same.get(), true, false);
@@ -214,6 +223,7 @@ public class JooqLibraryRepository {
                 .where(CURVE.SOURCE_SHA256.eq(sha256))
                 .and(SAMPLE.MATERIAL_ID.eq(materialId))
                 .and(SAMPLE.THICKNESS_MM.eq(thicknessMm))
+                .and(SAMPLE.RETIRED_AT.isNull()) // a retired sample does not hold its file: importing it again stores it anew
                 .orderBy(SAMPLE.ID).limit(1).fetchOptional(SAMPLE.ID);
     }
 
@@ -305,22 +315,27 @@ public class JooqLibraryRepository {
         if (materialIds.isEmpty()) {
             return byMaterial;
         }
-        db.selectFrom(SAMPLE).where(SAMPLE.MATERIAL_ID.in(materialIds))
+        db.selectFrom(SAMPLE).where(SAMPLE.MATERIAL_ID.in(materialIds)).and(SAMPLE.RETIRED_AT.isNull())
                 .orderBy(SAMPLE.THICKNESS_MM, SAMPLE.ID).fetch()
                 .forEach(s -> byMaterial.computeIfAbsent(s.getMaterialId(), k -> new ArrayList<>()).add(toSample(s)));
         return byMaterial;
     }
 
-    private static Material toMaterial(MaterialRecord m, List<SampleInfo> samples) {
+    static Material toMaterial(MaterialRecord m, List<SampleInfo> samples) {
         List<String> tags = m.getTags().isBlank() ? List.of() : List.of(m.getTags().split(","));
         return new Material(m.getId(), m.getSlug(), m.getName(), MaterialClass.of(m.getMaterialClass()),
-                m.getDescription(), tags, Scaling.parse(m.getScaling()), readIndex(m), samples, readThicknesses(m));
+                m.getDescription(), tags, Scaling.parse(m.getScaling()), readIndex(m), samples, readThicknesses(m),
+                m.getRevision(), instant(m.getRetiredAt()));
     }
 
     static SampleInfo toSample(SampleRecord s) {
         return new SampleInfo(s.getId(), s.getMaterialId(), s.getThicknessMm(), Geometry.parse(s.getGeometry()),
                 Provenance.parse(s.getProvenance()), s.getInstrument(), s.getMeasuredOn(), s.getLot(), s.getNotes(),
-                s.getDetectionLimit());
+                s.getDetectionLimit(), s.getRevision(), instant(s.getRetiredAt()));
+    }
+
+    static java.time.Instant instant(java.time.OffsetDateTime t) {
+        return t == null ? null : t.toInstant();
     }
 
     /** Reads a curve row joined with its sample's detection limit (used where no per-point limits are stored). */
@@ -336,11 +351,16 @@ public class JooqLibraryRepository {
         } else {
             limits = new double[n];
             Arrays.fill(limits, r.get(SAMPLE.DETECTION_LIMIT));
+            // a corrected detection limit (docs/undo.md) makes every value at or under it an upper bound; flags set
+            // at import stay set (they may come from the file's own markers), so the reading only grows more careful
+            for (int i = 0; i < n; i++) {
+                below[i] = below[i] || t[i] <= limits[i];
+            }
         }
         return Curve.of(nm, t, below, limits);
     }
 
-    private static void writeIndex(MaterialRecord row, RefractiveIndex index) {
+    static void writeIndex(MaterialRecord row, RefractiveIndex index) {
         // Java 17: no pattern switch yet, so an instanceof chain over the sealed hierarchy
         if (index instanceof ConstantIndex c) {
             row.setIndexKind("constant");
@@ -394,7 +414,7 @@ public class JooqLibraryRepository {
         };
     }
 
-    private static void writeThicknesses(MaterialRecord row, StatedThicknesses t) {
+    static void writeThicknesses(MaterialRecord row, StatedThicknesses t) {
         row.setStockThicknessesMm(t.stockMm().isEmpty() ? "" : NumberLists.format(t.stockMm()));
         row.setMadeMinMm(t.rangeStated() ? t.minMm() : null);
         row.setMadeMaxMm(t.rangeStated() ? t.maxMm() : null);
@@ -404,7 +424,7 @@ public class JooqLibraryRepository {
      * The stated thicknesses; when the stored ones fail today's checks they are not used (a warning in the
      * log) and the material is judged by the assumed rule, as one stating none is.
      */
-    private static StatedThicknesses readThicknesses(MaterialRecord m) {
+    static StatedThicknesses readThicknesses(MaterialRecord m) {
         try {
             return checkedThicknesses(m);
         } catch (RuntimeException e) {

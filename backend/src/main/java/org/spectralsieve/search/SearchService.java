@@ -131,7 +131,7 @@ public class SearchService {
         List<RankedRow> rows = rank(s, requirement, exact, limit);
         double tookMs = (System.nanoTime() - started) / 1e6;
         return new Shortlist(requirement, rows, picked.evaluatedSamples(), exact.size(), tookMs, Optional.empty(),
-                geometries(s, rows));
+                geometries(s, rows), revisions(s, rows));
     }
 
     /**
@@ -242,7 +242,8 @@ public class SearchService {
             rows = rank(s, requirement, exact, limit);
         }
         double tookMs = (System.nanoTime() - started) / 1e6;
-        return new Shortlist(requirement, rows, admitted, exact.size(), tookMs, layer, geometries(s, rows));
+        return new Shortlist(requirement, rows, admitted, exact.size(), tookMs, layer, geometries(s, rows),
+                revisions(s, rows));
     }
 
     /**
@@ -420,6 +421,16 @@ public class SearchService {
         for (RankedRow row : rows) {
             long id = row.evaluation().sampleId();
             out.put(id, s.samples().get(id).geometry().label());
+        }
+        return out;
+    }
+
+    /** Sample id → the revisions of every row's sample and material the row was judged on (docs/undo.md). */
+    private static Map<Long, Shortlist.Revisions> revisions(Snapshot s, List<RankedRow> rows) {
+        Map<Long, Shortlist.Revisions> out = new HashMap<>();
+        for (RankedRow row : rows) {
+            SampleInfo sample = s.samples().get(row.evaluation().sampleId());
+            out.put(sample.id(), new Shortlist.Revisions(sample.revision(), s.materials().get(sample.materialId()).revision()));
         }
         return out;
     }

@@ -14,14 +14,32 @@ import org.spectralsieve.requirement.StackLayer;
  * exact evaluator judged on their stored curves (the store ruled out the rest). {@code layer} is the
  * library sample that stood in every candidate's light path when the requirement names a fixed layer.
  * {@code sampleGeometry}: how each row's sample was measured ("regular" or "total"), keyed by sample id.
+ * {@code revisions}: the revision of each row's sample and of its material the row was judged on, keyed by
+ * sample id (docs/undo.md).
  */
 public record Shortlist(Requirement requirement, List<RankedRow> rows, int evaluatedSamples, int judgedExactly,
-                        double tookMs, Optional<StackLayer> layer, Map<Long, String> sampleGeometry) {
+                        double tookMs, Optional<StackLayer> layer, Map<Long, String> sampleGeometry,
+                        Map<Long, Revisions> revisions) {
+
+    /** Which revision of a row's sample and of its material the row was judged on. */
+    public record Revisions(int sample, int material) {
+    }
+
+    public Shortlist(Requirement requirement, List<RankedRow> rows, int evaluatedSamples, int judgedExactly,
+                     double tookMs, Optional<StackLayer> layer, Map<Long, String> sampleGeometry) {
+        this(requirement, rows, evaluatedSamples, judgedExactly, tookMs, layer, sampleGeometry, Map.of());
+    }
 
     public Shortlist {
         rows = List.copyOf(rows);
         Objects.requireNonNull(layer, "layer");
         sampleGeometry = Map.copyOf(sampleGeometry);
+        revisions = Map.copyOf(revisions);
+    }
+
+    /** The revisions a row was judged on, or null when not known. */
+    public Revisions revisions(RankedRow row) {
+        return revisions.get(row.evaluation().sampleId());
     }
 
     /** The geometry a row's sample was measured in: "regular", "total", or null when not known. */

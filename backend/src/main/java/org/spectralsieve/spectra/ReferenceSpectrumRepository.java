@@ -3,9 +3,12 @@ package org.spectralsieve.spectra;
 import static org.spectralsieve.library.db.Tables.REFERENCE_SPECTRUM;
 
 import java.sql.SQLException;
+import java.time.OffsetDateTime;
+import java.time.ZoneOffset;
 import java.util.List;
 import java.util.Objects;
 import java.util.Optional;
+import org.jooq.Condition;
 import org.jooq.DSLContext;
 import org.jooq.Record;
 import org.jooq.SelectField;
@@ -18,7 +21,8 @@ import org.spectralsieve.library.db.tables.records.ReferenceSpectrumRecord;
 /**
  * Imported reference spectra in the database (table {@code reference_spectrum}). All SQL goes through
  * jOOQ; callers see {@link ReferenceSpectrum} and {@link SourceFile}, never generated records. Rows are
- * inserted or deleted, never updated.
+ * inserted, then only ever retired or restored (docs/undo.md): every read but the retired listing sees the
+ * spectra in use, and no ordinary path deletes a row.
  */
 public class ReferenceSpectrumRepository {
 
@@ -31,6 +35,9 @@ public class ReferenceSpectrumRepository {
             REFERENCE_SPECTRUM.VALUE_COLUMN, REFERENCE_SPECTRUM.POINT_COUNT, REFERENCE_SPECTRUM.WAVELENGTHS_NM,
             REFERENCE_SPECTRUM.RELATIVE_VALUES, REFERENCE_SPECTRUM.SOURCE_FILE_NAME, REFERENCE_SPECTRUM.SOURCE_FORMAT,
             REFERENCE_SPECTRUM.SOURCE_SHA256, REFERENCE_SPECTRUM.CREATED_AT);
+
+    /** A spectrum in use: not retired (docs/undo.md). */
+    private static final Condition IN_USE = REFERENCE_SPECTRUM.RETIRED_KEY.eq(0L);
 
     private final DSLContext db;
 
@@ -49,7 +56,7 @@ public class ReferenceSpectrumRepository {
             long id = db.transactionResult(tx -> {
                 DSLContext t = tx.dsl();
                 if (t.fetchExists(REFERENCE_SPECTRUM, REFERENCE_SPECTRUM.KIND.eq(s.kind().label())
-                        .and(REFERENCE_SPECTRUM.NAME.eq(s.name())))) {
+                        .and(REFERENCE_SPECTRUM.NAME.eq(s.name())).and(IN_USE))) {
                     throw new SpectrumNameTakenException(s.kind(), s.name());
                 }
                 long stored = insertRow(t, s);
@@ -101,14 +108,14 @@ public class ReferenceSpectrumRepository {
 
     /** Every imported spectrum, emitters then responses, each by name. */
     public List<ReferenceSpectrum> findAll() {
-        return db.select(WITHOUT_BYTES).from(REFERENCE_SPECTRUM)
+        return db.select(WITHOUT_BYTES).from(REFERENCE_SPECTRUM).where(IN_USE)
                 .orderBy(REFERENCE_SPECTRUM.KIND, REFERENCE_SPECTRUM.NAME).fetch(ReferenceSpectrumRepository::toSpectrum);
     }
 
     /** @param name compared exactly: stored names are lower-case slugs */
     public Optional<ReferenceSpectrum> find(SpectrumKind kind, String name) {
         return db.select(WITHOUT_BYTES).from(REFERENCE_SPECTRUM)
-                .where(REFERENCE_SPECTRUM.KIND.eq(kind.label()).and(REFERENCE_SPECTRUM.NAME.eq(name)))
+                .where(REFERENCE_SPECTRUM.KIND.eq(kind.label()).and(REFERENCE_SPECTRUM.NAME.eq(name)).and(IN_USE))
                 .fetchOptional(ReferenceSpectrumRepository::toSpectrum);
     }
 
@@ -117,23 +124,92 @@ public class ReferenceSpectrumRepository {
         return db.select(REFERENCE_SPECTRUM.SOURCE_FILE_NAME, REFERENCE_SPECTRUM.SOURCE_FORMAT,
                         REFERENCE_SPECTRUM.SOURCE_BYTES, REFERENCE_SPECTRUM.SOURCE_SHA256)
                 .from(REFERENCE_SPECTRUM)
-                .where(REFERENCE_SPECTRUM.KIND.eq(kind.label()).and(REFERENCE_SPECTRUM.NAME.eq(name)))
+                .where(REFERENCE_SPECTRUM.KIND.eq(kind.label()).and(REFERENCE_SPECTRUM.NAME.eq(name)).and(IN_USE))
                 .fetchOptional(r -> new SourceFile(r.get(REFERENCE_SPECTRUM.SOURCE_FILE_NAME),
                         mediaType(r.get(REFERENCE_SPECTRUM.SOURCE_FORMAT)), r.get(REFERENCE_SPECTRUM.SOURCE_FORMAT),
                         r.get(REFERENCE_SPECTRUM.SOURCE_BYTES), r.get(REFERENCE_SPECTRUM.SOURCE_SHA256)));
     }
 
-    /** @return true when a row was deleted */
-    public boolean delete(SpectrumKind kind, String name) {
+    /**
+     * Retires the spectrum in use of this kind and name, in one statement: it is kept with its file, leaves
+     * every listing and lookup, and gives up its name (a new import may take it; docs/undo.md).
+     *
+     * @return the retired spectrum's id, empty when none in use has the name
+     */
+    public Optional<Long> retire(SpectrumKind kind, String name) {
         return db.transactionResult(tx -> {
-            boolean deleted = tx.dsl().deleteFrom(REFERENCE_SPECTRUM)
-                    .where(REFERENCE_SPECTRUM.KIND.eq(kind.label()).and(REFERENCE_SPECTRUM.NAME.eq(name)))
-                    .execute() > 0;
-            if (deleted) {
-                LibraryGeneration.bump(tx.dsl());
+            DSLContext t = tx.dsl();
+            Optional<Long> id = t.select(REFERENCE_SPECTRUM.ID).from(REFERENCE_SPECTRUM)
+                    .where(REFERENCE_SPECTRUM.KIND.eq(kind.label()).and(REFERENCE_SPECTRUM.NAME.eq(name)).and(IN_USE))
+                    .forUpdate().fetchOptional(REFERENCE_SPECTRUM.ID);
+            id.ifPresent(i -> t.update(REFERENCE_SPECTRUM)
+                    .set(REFERENCE_SPECTRUM.RETIRED_AT, OffsetDateTime.now(ZoneOffset.UTC).truncatedTo(java.time.temporal.ChronoUnit.MICROS))
+                    .set(REFERENCE_SPECTRUM.RETIRED_KEY, i)
+                    .where(REFERENCE_SPECTRUM.ID.eq(i)).execute());
+            if (id.isPresent()) {
+                LibraryGeneration.bump(t);
             }
-            return deleted;
+            return id;
         });
+    }
+
+    /**
+     * Puts a retired spectrum back in use under its name: the one with {@code id}, or when null the most
+     * recently retired of this kind and name.
+     *
+     * @return the restored spectrum, empty when no such retired one exists
+     * @throws SpectrumNameTakenException when a spectrum in use has the name now
+     */
+    public Optional<ReferenceSpectrum> restore(SpectrumKind kind, String name, Long id) {
+        try {
+            Optional<Long> restored = db.transactionResult(tx -> {
+                DSLContext t = tx.dsl();
+                var where = REFERENCE_SPECTRUM.KIND.eq(kind.label()).and(REFERENCE_SPECTRUM.NAME.eq(name))
+                        .and(REFERENCE_SPECTRUM.RETIRED_AT.isNotNull());
+                if (id != null) {
+                    where = where.and(REFERENCE_SPECTRUM.ID.eq(id));
+                }
+                Optional<Long> found = t.select(REFERENCE_SPECTRUM.ID).from(REFERENCE_SPECTRUM).where(where)
+                        .orderBy(REFERENCE_SPECTRUM.RETIRED_AT.desc(), REFERENCE_SPECTRUM.ID.desc()).limit(1)
+                        .fetchOptional(REFERENCE_SPECTRUM.ID);
+                if (found.isEmpty()) {
+                    return found;
+                }
+                if (t.fetchExists(REFERENCE_SPECTRUM, REFERENCE_SPECTRUM.KIND.eq(kind.label())
+                        .and(REFERENCE_SPECTRUM.NAME.eq(name)).and(IN_USE))) {
+                    throw new SpectrumNameTakenException(kind, name);
+                }
+                t.update(REFERENCE_SPECTRUM).setNull(REFERENCE_SPECTRUM.RETIRED_AT).set(REFERENCE_SPECTRUM.RETIRED_KEY, 0L)
+                        .where(REFERENCE_SPECTRUM.ID.eq(found.get())).execute();
+                LibraryGeneration.bump(t);
+                return found;
+            });
+            return restored.flatMap(i -> find(kind, name));
+        } catch (RuntimeException e) {
+            if (e instanceof SpectrumNameTakenException || isUniqueViolation(e)) {
+                throw new SpectrumNameTakenException(kind, name);
+            }
+            throw e;
+        }
+    }
+
+    /** One retired spectrum, without its points: enough to choose which to restore. */
+    public record Retired(long id, SpectrumKind kind, String name, String description, String sourceFileName,
+                          String sourceSha256, OffsetDateTime createdAt, OffsetDateTime retiredAt) {
+    }
+
+    /** The retired spectra of a kind, most recently retired first. */
+    public List<Retired> findRetired(SpectrumKind kind) {
+        return db.select(REFERENCE_SPECTRUM.ID, REFERENCE_SPECTRUM.NAME, REFERENCE_SPECTRUM.DESCRIPTION,
+                        REFERENCE_SPECTRUM.SOURCE_FILE_NAME, REFERENCE_SPECTRUM.SOURCE_SHA256,
+                        REFERENCE_SPECTRUM.CREATED_AT, REFERENCE_SPECTRUM.RETIRED_AT)
+                .from(REFERENCE_SPECTRUM)
+                .where(REFERENCE_SPECTRUM.KIND.eq(kind.label()).and(REFERENCE_SPECTRUM.RETIRED_AT.isNotNull()))
+                .orderBy(REFERENCE_SPECTRUM.RETIRED_AT.desc(), REFERENCE_SPECTRUM.ID.desc())
+                .fetch(r -> new Retired(r.get(REFERENCE_SPECTRUM.ID), kind, r.get(REFERENCE_SPECTRUM.NAME),
+                        r.get(REFERENCE_SPECTRUM.DESCRIPTION), r.get(REFERENCE_SPECTRUM.SOURCE_FILE_NAME),
+                        r.get(REFERENCE_SPECTRUM.SOURCE_SHA256), r.get(REFERENCE_SPECTRUM.CREATED_AT),
+                        r.get(REFERENCE_SPECTRUM.RETIRED_AT)));
     }
 
     /** The library's change counter as committed now ({@link LibraryGeneration}), which imports and deletes raise. */

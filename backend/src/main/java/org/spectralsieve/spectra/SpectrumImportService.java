@@ -23,7 +23,7 @@ import org.spectralsieve.library.StoredText;
 import org.spectralsieve.weighting.Emitter;
 
 /**
- * Imports and deletes reference spectra. An import checks the name first (a slug, no built-in name, not
+ * Imports, retires and restores reference spectra (nothing is deleted: docs/undo.md). An import checks the name first (a slug, no built-in name, not
  * taken), then reads the file with the importers, checks that the spectrum can weight anything inside
  * the tool's range, stores it with its file in one transaction and refreshes the lookup, so the next
  * figure can use it. A refused import stores nothing.
@@ -94,22 +94,43 @@ public final class SpectrumImportService {
     }
 
     /**
-     * Deletes an imported spectrum (even one a built-in of the same name now hides).
+     * Retires an imported spectrum (even one a built-in of the same name now hides): it leaves the listings
+     * and lookups, is kept with its file, and can be restored ({@link #restore}); its name is free for a new
+     * import. This is what {@code DELETE} does: no ordinary path deletes a row.
      *
-     * @throws ImportRequestException   for a built-in name: those cannot be deleted
-     * @throws UnknownSpectrumException when no spectrum of the kind has the name
+     * @throws ImportRequestException   for a built-in name: those cannot be retired
+     * @throws UnknownSpectrumException when no spectrum of the kind in use has the name
      */
     public void delete(SpectrumKind kind, String name) {
         String key = name == null ? "" : name.strip().toLowerCase(Locale.ROOT);
-        if (repository.delete(kind, key)) {
+        if (repository.retire(kind, key).isPresent()) {
             lookup.refresh();
             return;
         }
         if (lookup.isBuiltIn(kind, key)) {
             throw new ImportRequestException("name", "'" + key + "' is a built-in " + kind.label()
-                    + " and cannot be deleted; only imported ones can");
+                    + " and cannot be retired; only imported ones can");
         }
         throw new UnknownSpectrumException(kind, key, "imported " + kind.plural() + ": " + importedNames(kind));
+    }
+
+    /**
+     * Puts a retired spectrum back in use (the one with {@code id}, or the most recently retired of the name).
+     *
+     * @throws UnknownSpectrumException no retired spectrum of the kind has the name (and id)
+     * @throws ImportRequestException   a spectrum in use has the name now; retire it or import under another
+     */
+    public ReferenceSpectrum restore(SpectrumKind kind, String name, Long id) {
+        String key = name == null ? "" : name.strip().toLowerCase(Locale.ROOT);
+        try {
+            ReferenceSpectrum restored = repository.restore(kind, key, id).orElseThrow(() -> new UnknownSpectrumException(
+                    kind, key, "no retired " + kind.label() + " has this name" + (id == null ? "" : " and id " + id)));
+            lookup.refresh();
+            return restored;
+        } catch (SpectrumNameTakenException e) {
+            throw new ImportRequestException("name", "an imported " + kind.label() + " named '" + key
+                    + "' is in use; retire it first (DELETE /api/" + kind.plural() + "/" + key + ") to restore this one");
+        }
     }
 
     private String importedNames(SpectrumKind kind) {
@@ -133,7 +154,7 @@ public final class SpectrumImportService {
 
     private static ImportRequestException taken(SpectrumKind kind, String name) {
         return new ImportRequestException("name", "an imported " + kind.label() + " named '" + name
-                + "' already exists; delete it first (DELETE /api/" + kind.plural() + "/" + name
+                + "' already exists; retire it first (DELETE /api/" + kind.plural() + "/" + name
                 + ") or choose another name");
     }
 

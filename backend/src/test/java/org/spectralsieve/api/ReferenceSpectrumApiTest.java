@@ -35,7 +35,7 @@ import tools.jackson.databind.json.JsonMapper;
 
 /**
  * Imported emitters and responses through a real server over the (illustrative) demo library: import,
- * list, use in the figures, delete, and every refusal. Spectra written here are made up, except the
+ * list, use in the figures, retire (DELETE), and every refusal. Spectra written here are made up, except the
  * solar reference read from the shared reference data.
  */
 @SpringBootTest(webEnvironment = SpringBootTest.WebEnvironment.RANDOM_PORT)
@@ -187,7 +187,7 @@ class ReferenceSpectrumApiTest {
     }
 
     @Test
-    void deleteRemovesAnImportedSpectrumAndRefusesBuiltInOrUnknownNames() throws Exception {
+    void deleteRetiresAnImportedSpectrumAndRefusesBuiltInOrUnknownNames() throws Exception {
         importSpectrum("emitters", "spare.csv", "nm,power\n380,1\n390,1\n", "spare-lamp", 201);
         long id = sampleId("UV-grade synthetic fused silica");
         figures(id, "spare-lamp", "flat");
@@ -196,7 +196,9 @@ class ReferenceSpectrumApiTest {
 
         assertThat(getJson("/api/samples/" + id + "/figures?emitter=spare-lamp", 400).path("parameter").asString())
                 .isEqualTo("emitter");
-        assertThat(db.fetchCount(REFERENCE_SPECTRUM, REFERENCE_SPECTRUM.NAME.eq("spare-lamp"))).isZero();
+        // retired, not deleted (docs/undo.md): the row is kept, out of every lookup, and restorable
+        assertThat(db.fetchCount(REFERENCE_SPECTRUM, REFERENCE_SPECTRUM.NAME.eq("spare-lamp")
+                .and(REFERENCE_SPECTRUM.RETIRED_AT.isNotNull()))).isOne();
         JsonNode builtIn = json(send(HttpRequest.newBuilder(uri("/api/emitters/led-365")).DELETE()), 400);
         assertThat(builtIn.path("parameter").asString()).isEqualTo("name");
         JsonNode unknown = json(send(HttpRequest.newBuilder(uri("/api/emitters/spare-lamp")).DELETE()), 404);

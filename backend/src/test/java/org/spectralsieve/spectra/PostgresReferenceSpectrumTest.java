@@ -60,7 +60,7 @@ class PostgresReferenceSpectrumTest {
         }
         assertThat(back.createdAt()).isNotNull();
         assertThat(repository.findSourceFile(SpectrumKind.RESPONSE, s.name()).orElseThrow()).isEqualTo(s.file());
-        assertThat(repository.delete(SpectrumKind.RESPONSE, s.name())).isTrue();
+        assertThat(repository.retire(SpectrumKind.RESPONSE, s.name())).isPresent();
         assertThat(repository.find(SpectrumKind.RESPONSE, s.name())).isEmpty();
     }
 
@@ -96,5 +96,19 @@ class PostgresReferenceSpectrumTest {
         assertThat(repository.count()).isEqualTo(rows);
         imports.delete(SpectrumKind.EMITTER, name);
         assertThat(lookup.emitters()).extracting(Emitter::name).doesNotContain(name);
+    }
+
+    @Test
+    void aRetiredSpectrumGivesUpItsNameAndIsRestoredOnlyWhileTheNameIsFreeOnPostgres() {
+        // docs/undo.md: the name is unique among the spectra in use only (V6 changes the unique constraint)
+        String name = "pg-undo-lamp-" + RUN;
+        repository.insert(Spectra.random(SpectrumKind.EMITTER, name, 10, 21));
+        long first = repository.retire(SpectrumKind.EMITTER, name).orElseThrow();
+        repository.insert(Spectra.random(SpectrumKind.EMITTER, name, 10, 22));
+
+        assertThatThrownBy(() -> repository.restore(SpectrumKind.EMITTER, name, first))
+                .isInstanceOf(SpectrumNameTakenException.class);
+        repository.retire(SpectrumKind.EMITTER, name);
+        assertThat(repository.restore(SpectrumKind.EMITTER, name, first).orElseThrow().id()).isEqualTo(first);
     }
 }

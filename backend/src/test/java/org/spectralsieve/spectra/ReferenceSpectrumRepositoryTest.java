@@ -104,15 +104,18 @@ class ReferenceSpectrumRepositoryTest {
     }
 
     @Test
-    void deleteRemovesOnlyTheNamedSpectrumOfThatKind() {
+    void retiringHidesOnlyTheNamedSpectrumOfThatKindAndKeepsItsRow() {
         repository.insert(Spectra.random(SpectrumKind.EMITTER, "lamp-a", 10, 6));
         repository.insert(Spectra.random(SpectrumKind.RESPONSE, "lamp-a", 10, 7));
 
-        assertThat(repository.delete(SpectrumKind.EMITTER, "lamp-a")).isTrue();
-        assertThat(repository.delete(SpectrumKind.EMITTER, "lamp-a")).isFalse();
+        assertThat(repository.retire(SpectrumKind.EMITTER, "lamp-a")).isPresent();
+        assertThat(repository.retire(SpectrumKind.EMITTER, "lamp-a")).isEmpty();
 
         assertThat(repository.find(SpectrumKind.EMITTER, "lamp-a")).isEmpty();
         assertThat(repository.find(SpectrumKind.RESPONSE, "lamp-a")).isPresent();
+        assertThat(repository.count()).as("nothing deleted").isEqualTo(2);
+        assertThat(repository.findRetired(SpectrumKind.EMITTER)).extracting(ReferenceSpectrumRepository.Retired::name)
+                .containsExactly("lamp-a");
     }
 
     @Test

@@ -1,0 +1,22 @@
+package org.spectralsieve.curation;
+
+import org.jooq.DSLContext;
+import org.spectralsieve.library.JooqLibraryRevisions;
+import org.spectralsieve.search.SearchService;
+import org.springframework.context.annotation.Bean;
+import org.springframework.context.annotation.Configuration;
+
+/** Wires the curation service; it knows nothing of Spring. */
+@Configuration
+class CurationConfiguration {
+
+    @Bean
+    JooqLibraryRevisions libraryRevisions(DSLContext db) {
+        return new JooqLibraryRevisions(db);
+    }
+
+    @Bean
+    LibraryCuration libraryCuration(JooqLibraryRevisions revisions, SearchService search) {
+        return new LibraryCuration(revisions, search::invalidate);
+    }
+}
