@@ -3,6 +3,7 @@ package org.spectralsieve.backup;
 import java.io.BufferedInputStream;
 import java.io.IOException;
 import java.io.InputStream;
+import java.io.OutputStream;
 import java.nio.file.Path;
 import java.security.DigestInputStream;
 import java.security.MessageDigest;
@@ -22,7 +23,6 @@ import org.jooq.DSLContext;
 import org.jooq.Field;
 import org.jooq.Identity;
 import org.jooq.Table;
-import org.jooq.exception.DataAccessException;
 import org.jooq.impl.DSL;
 import org.spectralsieve.backup.ArchiveManifest.CurveChecksum;
 import org.spectralsieve.backup.ArchiveManifest.TableEntry;
@@ -203,21 +203,28 @@ public class LibraryRestore {
             boolean curveTable = TableRows.isCurveTable(table);
             MessageDigest digest = TableRows.sha256();
             long highest = 0;
+            ArchiveRefusedException rowFault = null;
             try (InputStream in = new DigestInputStream(new BufferedInputStream(zip.getInputStream(zip.getEntry(entry.entry()))),
                     digest)) {
                 BoundedLines lines = new BoundedLines(in, BoundedLines.MAX_LINE_BYTES);
-                for (String line = lines.next(); line != null; line = lines.next()) {
-                    Object[] values = decode(codec, entry, lines.lineNumber(), line);
-                    if (identityIndex >= 0) {
-                        highest = Math.max(highest, ((Number) values[identityIndex]).longValue());
+                try {
+                    for (String line = lines.next(); line != null; line = lines.next()) {
+                        Object[] values = decode(codec, entry, lines.lineNumber(), line);
+                        if (identityIndex >= 0) {
+                            highest = Math.max(highest, ((Number) values[identityIndex]).longValue());
+                        }
+                        if (curveTable) {
+                            curvesSeen.add(checkCurve(codec, values, expectedCurves, entry, lines.lineNumber()));
+                        }
                     }
-                    if (curveTable) {
-                        curvesSeen.add(checkCurve(codec, values, expectedCurves, entry, lines.lineNumber()));
+                    if (lines.lineNumber() != entry.rows()) {
+                        rowFault = new ArchiveRefusedException(entry.entry(), "entry '" + entry.entry() + "' holds "
+                                + lines.lineNumber() + " rows; the manifest says " + entry.rows());
                     }
-                }
-                if (lines.lineNumber() != entry.rows()) {
-                    throw new ArchiveRefusedException(entry.entry(), "entry '" + entry.entry() + "' holds "
-                            + lines.lineNumber() + " rows; the manifest says " + entry.rows());
+                } catch (ArchiveRefusedException e) {
+                    // read on to the end: a damaged entry is reported as such, by its checksum, not by its symptom
+                    rowFault = e;
+                    in.transferTo(OutputStream.nullOutputStream());
                 }
             } catch (IOException e) {
                 throw new ArchiveRefusedException(entry.entry(), "entry '" + entry.entry() + "' cannot be read: "
@@ -227,6 +234,9 @@ public class LibraryRestore {
             if (!actual.equalsIgnoreCase(entry.sha256())) {
                 throw new ArchiveRefusedException(entry.entry(), "entry '" + entry.entry() + "' has SHA-256 " + actual
                         + "; the manifest says " + entry.sha256() + " (the archive is damaged or was altered)");
+            }
+            if (rowFault != null) {
+                throw rowFault;
             }
             if (identityIndex >= 0) {
                 highestIds.put(table, highest);
@@ -330,7 +340,7 @@ public class LibraryRestore {
                 Object[] values = decode(codec, entry, lines.lineNumber(), line);
                 try {
                     tx.insertInto(table, fields).values(values).execute();
-                } catch (DataAccessException e) {
+                } catch (RuntimeException e) { // jOOQ's or, under Spring, Spring's translation of it
                     throw new RestoreFailedException(entry.entry(), lines.lineNumber(), "the database refused entry '"
                             + entry.entry() + "' line " + lines.lineNumber() + " (table " + entry.table() + "): "
                             + rootMessage(e) + "; nothing was restored", e);

@@ -12,9 +12,9 @@ import picocli.CommandLine.Command;
 @Command(name = "spectral-sieve", mixinStandardHelpOptions = true, scope = CommandLine.ScopeType.INHERIT,
         versionProvider = SieveCli.Version.class,
         description = "Search the transmittance library by requirement, list its materials, export a curve, compute a"
-                + " sample's weighted figures, import files and emitter or response spectra.",
+                + " sample's weighted figures, import files and emitter or response spectra, back the library up to one archive and restore it.",
         subcommands = {SearchCommand.class, ExportCommand.class, MaterialsCommand.class, ImportCommand.class,
-                ImportSpectrumCommand.class, FiguresCommand.class,
+                ImportSpectrumCommand.class, FiguresCommand.class, BackupCommand.class, RestoreCommand.class,
                 CommandLine.HelpCommand.class},
         exitCodeListHeading = "%nExit codes:%n",
         exitCodeList = {
@@ -28,7 +28,7 @@ public final class SieveCli {
     public static final int USAGE = 2;
 
     /** First arguments that mean "run the command line" rather than "start the web service". */
-    private static final Set<String> ENTRY_WORDS = Set.of("search", "export", "materials", "import", "import-spectrum", "figures", "help",
+    private static final Set<String> ENTRY_WORDS = Set.of("search", "export", "materials", "import", "import-spectrum", "figures", "backup", "restore", "help",
             "--help", "-h", "--version", "-V");
 
     private SieveCli() {
