@@ -24,7 +24,7 @@ import org.springframework.context.ConfigurableApplicationContext;
  * user import with its original file, and one imported emitter and response (invented bench readings),
  * backed up to one archive.
  */
-final class SourceLibrary {
+public final class SourceLibrary {
 
     static final String EMITTER = "bench-lamp-365";
     static final String RESPONSE = "bench-detector";
@@ -34,12 +34,21 @@ final class SourceLibrary {
     final ConfigurableApplicationContext context;
     final Path archive;
 
+    /** The archive the library was backed up to. */
+    public Path archive() {
+        return archive;
+    }
+
+    public ConfigurableApplicationContext context() {
+        return context;
+    }
+
     private SourceLibrary(ConfigurableApplicationContext context, Path archive) {
         this.context = context;
         this.archive = archive;
     }
 
-    static synchronized SourceLibrary get() {
+    public static synchronized SourceLibrary get() {
         if (instance == null) {
             instance = build();
         }
