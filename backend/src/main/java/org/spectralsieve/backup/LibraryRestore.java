@@ -47,6 +47,9 @@ import tools.jackson.databind.JsonNode;
  */
 public class LibraryRestore {
 
+    /** The manifest is read whole: room for about 300,000 curves' checksums, and no more (an archive is an upload). */
+    static final int MAX_MANIFEST_BYTES = 64 * 1024 * 1024;
+
     private final DSLContext db;
     private final Supplier<String> schemaVersion;
     private final Runnable afterCommit;
@@ -105,7 +108,12 @@ public class LibraryRestore {
         }
         ArchiveManifest manifest;
         try (InputStream in = zip.getInputStream(entry)) {
-            manifest = ArchiveManifest.fromJson(RowCodec.JSON.readTree(in));
+            byte[] bytes = in.readNBytes(MAX_MANIFEST_BYTES + 1);
+            if (bytes.length > MAX_MANIFEST_BYTES) {
+                throw new ArchiveRefusedException(ArchiveManifest.ENTRY, "the manifest is larger than "
+                        + MAX_MANIFEST_BYTES + " bytes");
+            }
+            manifest = ArchiveManifest.fromJson(RowCodec.JSON.readTree(bytes));
         } catch (JacksonException | IllegalArgumentException e) {
             throw new ArchiveRefusedException(ArchiveManifest.ENTRY, "the manifest cannot be read: " + e.getMessage());
         }
@@ -204,8 +212,8 @@ public class LibraryRestore {
             MessageDigest digest = TableRows.sha256();
             long highest = 0;
             ArchiveRefusedException rowFault = null;
-            try (InputStream in = new DigestInputStream(new BufferedInputStream(zip.getInputStream(zip.getEntry(entry.entry()))),
-                    digest)) {
+            try (InputStream in = new DigestInputStream(new BufferedInputStream(new AtMost(
+                    zip.getInputStream(zip.getEntry(entry.entry())), entry)), digest)) {
                 BoundedLines lines = new BoundedLines(in, BoundedLines.MAX_LINE_BYTES);
                 try {
                     for (String line = lines.next(); line != null; line = lines.next()) {
@@ -361,6 +369,42 @@ public class LibraryRestore {
                         + " database differently from the archive; nothing was restored", null);
             }
         });
+    }
+
+    /**
+     * An entry's bytes, refused once they run past the size its manifest states: a crafted entry that
+     * inflates without end costs no more than the manifest admits to.
+     */
+    private static final class AtMost extends java.io.FilterInputStream {
+        private final TableEntry entry;
+        private long read;
+
+        AtMost(InputStream in, TableEntry entry) {
+            super(in);
+            this.entry = entry;
+        }
+
+        @Override
+        public int read() throws IOException {
+            int b = super.read();
+            count(b < 0 ? 0 : 1);
+            return b;
+        }
+
+        @Override
+        public int read(byte[] buffer, int offset, int length) throws IOException {
+            int n = super.read(buffer, offset, length);
+            count(Math.max(n, 0));
+            return n;
+        }
+
+        private void count(int n) throws IOException {
+            read += n;
+            if (read > entry.bytes()) {
+                throw new IOException("it holds more than the " + entry.bytes() + " bytes the manifest states"
+                        + " (the archive is damaged or was altered)");
+            }
+        }
     }
 
     private static String rootMessage(Throwable e) {

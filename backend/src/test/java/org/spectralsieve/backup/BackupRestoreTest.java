@@ -90,9 +90,9 @@ class BackupRestoreTest {
 
     @Test
     void aChangedCurveIsRefusedByItsEntrysChecksumBeforeAnythingIsWritten() throws Exception {
-        // one digit of one stored value changed, the manifest left as written
+        // one bit of one stored value changed, the entry's length and the manifest left as they were
         Path tampered = Archives.altered(SourceLibrary.get().archive, folder.resolve("tampered.zip"), "curve",
-                text -> text.replaceFirst("\"point_count\":(\\d)", "\"point_count\":9$1"), false);
+                RowEdits::flipFirstTransmittanceByte, false);
 
         {
             ConfigurableApplicationContext target = empty;
@@ -100,6 +100,22 @@ class BackupRestoreTest {
                     .isInstanceOfSatisfying(ArchiveRefusedException.class,
                             e -> assertThat(e.entry()).endsWith("-curve.jsonl"))
                     .hasMessageContaining("SHA-256").hasMessageContaining("-curve.jsonl");
+            assertThat(RestoredLibrary.count(target.getBean(DSLContext.class))).isZero();
+        }
+    }
+
+    @Test
+    void anEntryLongerThanItsManifestStatesIsRefusedWhenItRunsPast() throws Exception {
+        // a digit added to one value: the entry no longer has the size the manifest states
+        Path longer = Archives.altered(SourceLibrary.get().archive, folder.resolve("longer.zip"), "sample",
+                text -> text.replaceFirst("\"id\":(\\d)", "\"id\":9$1"), false);
+
+        {
+            ConfigurableApplicationContext target = empty;
+            assertThatThrownBy(() -> target.getBean(LibraryRestore.class).restore(longer))
+                    .isInstanceOfSatisfying(ArchiveRefusedException.class,
+                            e -> assertThat(e.entry()).endsWith("-sample.jsonl"))
+                    .hasMessageContaining("bytes the manifest states");
             assertThat(RestoredLibrary.count(target.getBean(DSLContext.class))).isZero();
         }
     }
