@@ -37,7 +37,13 @@ final class LibraryContext {
 
     /** @param dbUrl a JDBC URL, or null for the server's default (SIEVE_DB_URL, else the H2 file under ./data) */
     static ConfigurableApplicationContext start(String dbUrl) {
+        return start(dbUrl, List.of());
+    }
+
+    /** @param settings further {@code --name=value} settings, e.g. to keep the demo library out of a restore's target */
+    static ConfigurableApplicationContext start(String dbUrl, List<String> settings) {
         List<String> args = new ArrayList<>(QUIET);
+        args.addAll(settings);
         if (dbUrl != null) {
             args.add("--spring.datasource.url=" + dbUrl);
         }

@@ -13,10 +13,11 @@ import picocli.CommandLine.Command;
         versionProvider = SieveCli.Version.class,
         description = "Search the transmittance library by requirement, list its materials, export a curve, compute a"
                 + " sample's weighted figures, import files and emitter or response spectra, retire, restore and correct"
-                + " them.",
+                + " them, back the library up to one archive and load it into an empty library.",
         subcommands = {SearchCommand.class, ExportCommand.class, MaterialsCommand.class, ImportCommand.class,
                 ImportSpectrumCommand.class, FiguresCommand.class,
                 RetireCommand.class, RestoreCommand.class, CorrectCommand.class, RevisionsCommand.class,
+                BackupCommand.class, RestoreBackupCommand.class,
                 CommandLine.HelpCommand.class},
         exitCodeListHeading = "%nExit codes:%n",
         exitCodeList = {
@@ -31,7 +32,7 @@ public final class SieveCli {
 
     /** First arguments that mean "run the command line" rather than "start the web service". */
     private static final Set<String> ENTRY_WORDS = Set.of("search", "export", "materials", "import", "import-spectrum", "figures",
-            "retire", "restore", "correct", "revisions", "help",
+            "retire", "restore", "correct", "revisions", "backup", "restore-backup", "help",
             "--help", "-h", "--version", "-V");
 
     private SieveCli() {

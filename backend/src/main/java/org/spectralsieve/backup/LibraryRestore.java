@@ -1,0 +1,418 @@
+package org.spectralsieve.backup;
+
+import java.io.BufferedInputStream;
+import java.io.IOException;
+import java.io.InputStream;
+import java.io.OutputStream;
+import java.nio.file.Path;
+import java.security.DigestInputStream;
+import java.security.MessageDigest;
+import java.util.ArrayList;
+import java.util.HashMap;
+import java.util.HexFormat;
+import java.util.LinkedHashMap;
+import java.util.LinkedHashSet;
+import java.util.List;
+import java.util.Map;
+import java.util.Set;
+import java.util.function.Supplier;
+import java.util.zip.ZipEntry;
+import java.util.zip.ZipException;
+import java.util.zip.ZipFile;
+import org.jooq.DSLContext;
+import org.jooq.Field;
+import org.jooq.Identity;
+import org.jooq.Table;
+import org.jooq.impl.DSL;
+import org.spectralsieve.backup.ArchiveManifest.CurveChecksum;
+import org.spectralsieve.backup.ArchiveManifest.TableEntry;
+import org.spectralsieve.library.db.Tables;
+import tools.jackson.core.JacksonException;
+import tools.jackson.databind.JsonNode;
+
+/**
+ * Loads an archive written by {@link LibraryBackup} into an empty library, in this order:
+ * <ol>
+ *   <li>read the manifest; refuse another format, a newer format version or another schema version;</li>
+ *   <li>refuse a library that holds any row;</li>
+ *   <li>check every entry before writing anything: its SHA-256, its row count, that every row reads as the
+ *       target's columns, and every curve's checksums against the manifest;</li>
+ *   <li>move each table's id counter past the highest id in the archive, so ids are never handed out again
+ *       (on H2 this is a statement that commits on its own, which is why it comes before the rows: on an
+ *       empty table it changes nothing but the next id);</li>
+ *   <li>insert every row in one transaction, parents first, re-check every curve as the database now holds
+ *       it, raise the library's change counter when the schema has one, and commit — or roll back all.</li>
+ * </ol>
+ * The archive is read twice (check, then write) from the file, never held in memory.
+ */
+public class LibraryRestore {
+
+    /** The manifest is read whole: room for about 300,000 curves' checksums, and no more (an archive is an upload). */
+    static final int MAX_MANIFEST_BYTES = 64 * 1024 * 1024;
+
+    private final DSLContext db;
+    private final Supplier<String> schemaVersion;
+    private final Runnable afterCommit;
+
+    /** @param afterCommit run once the restored library is committed (drop derived in-memory copies) */
+    public LibraryRestore(DSLContext db, Supplier<String> schemaVersion, Runnable afterCommit) {
+        this.db = db;
+        this.schemaVersion = schemaVersion;
+        this.afterCommit = afterCommit;
+    }
+
+    public record Summary(String schemaVersion, Map<String, Long> rowsByTable, int curves) {
+    }
+
+    /** The rows each library table holds now: all zero means a restore may go in. */
+    public Map<String, Long> rowCounts() {
+        return rowCounts(db);
+    }
+
+    private static Map<String, Long> rowCounts(DSLContext db) {
+        Map<String, Long> counts = new LinkedHashMap<>();
+        for (Table<?> table : LibraryTables.inDependencyOrder()) {
+            counts.put(LibraryTables.name(table), (long) db.fetchCount(table));
+        }
+        return counts;
+    }
+
+    /**
+     * @throws ArchiveRefusedException  the archive is unreadable, of another version, or does not match its manifest
+     * @throws LibraryNotEmptyException the library holds rows
+     * @throws RestoreFailedException   the database refused a row; nothing was written
+     */
+    public Summary restore(Path archive) {
+        try (ZipFile zip = new ZipFile(archive.toFile())) {
+            ArchiveManifest manifest = readManifest(zip);
+            Map<TableEntry, Table<?>> tables = match(manifest);
+            checkEntriesListed(zip, manifest);
+            refuseUnlessEmpty(db);
+            Map<Table<?>, Long> highestIds = verify(zip, manifest, tables);
+            raiseIdCounters(highestIds);
+            Summary summary = db.transactionResult(tx -> write(tx.dsl(), zip, manifest, tables));
+            afterCommit.run();
+            return summary;
+        } catch (ZipException e) {
+            throw new ArchiveRefusedException(null, "not a readable zip archive: " + e.getMessage());
+        } catch (IOException e) {
+            throw new ArchiveRefusedException(null, "cannot read the archive: " + e.getMessage());
+        }
+    }
+
+    private static ArchiveManifest readManifest(ZipFile zip) throws IOException {
+        ZipEntry entry = zip.getEntry(ArchiveManifest.ENTRY);
+        if (entry == null) {
+            throw new ArchiveRefusedException(ArchiveManifest.ENTRY, "the archive has no " + ArchiveManifest.ENTRY
+                    + " (is it a Spectral Sieve backup, and was it written to the end?)");
+        }
+        ArchiveManifest manifest;
+        try (InputStream in = zip.getInputStream(entry)) {
+            byte[] bytes = in.readNBytes(MAX_MANIFEST_BYTES + 1);
+            if (bytes.length > MAX_MANIFEST_BYTES) {
+                throw new ArchiveRefusedException(ArchiveManifest.ENTRY, "the manifest is larger than "
+                        + MAX_MANIFEST_BYTES + " bytes");
+            }
+            manifest = ArchiveManifest.fromJson(RowCodec.JSON.readTree(bytes));
+        } catch (JacksonException | IllegalArgumentException e) {
+            throw new ArchiveRefusedException(ArchiveManifest.ENTRY, "the manifest cannot be read: " + e.getMessage());
+        }
+        if (!ArchiveManifest.FORMAT.equals(manifest.format())) {
+            throw new ArchiveRefusedException(ArchiveManifest.ENTRY, "format '" + manifest.format()
+                    + "' is not a Spectral Sieve library archive (" + ArchiveManifest.FORMAT + ")");
+        }
+        if (manifest.formatVersion() < 1 || manifest.formatVersion() > ArchiveManifest.FORMAT_VERSION) {
+            throw new ArchiveRefusedException(ArchiveManifest.ENTRY, "archive format version " + manifest.formatVersion()
+                    + " is not one this program reads (1 to " + ArchiveManifest.FORMAT_VERSION + ")");
+        }
+        return manifest;
+    }
+
+    /** Each archive table paired with the target's table of that name, with the same columns; none left over. */
+    private Map<TableEntry, Table<?>> match(ArchiveManifest manifest) {
+        String target = schemaVersion.get();
+        if (!manifest.schemaVersion().equals(target)) {
+            throw new ArchiveRefusedException(ArchiveManifest.ENTRY, "the archive was written from a library at schema"
+                    + " version " + manifest.schemaVersion() + "; this database is at version " + target
+                    + ". Restore it with the program version that wrote it (into an empty library), then start this"
+                    + " version, which migrates it.");
+        }
+        Map<String, Table<?>> byName = new LinkedHashMap<>();
+        LibraryTables.inDependencyOrder().forEach(t -> byName.put(LibraryTables.name(t), t));
+        Map<TableEntry, Table<?>> pairs = new LinkedHashMap<>();
+        for (TableEntry entry : manifest.tables()) {
+            Table<?> table = byName.remove(entry.table());
+            if (table == null) {
+                throw new ArchiveRefusedException(entry.entry(), "table '" + entry.table() + "' is not in this library's"
+                        + " schema, or is listed twice");
+            }
+            List<String> expected = List.of(table.fields()).stream().map(LibraryTables::name).sorted().toList();
+            List<String> given = entry.columns().stream().map(ArchiveManifest.Column::name).sorted().toList();
+            if (!expected.equals(given)) {
+                throw new ArchiveRefusedException(entry.entry(), "table '" + entry.table() + "' has columns " + given
+                        + " in the archive and " + expected + " in this database");
+            }
+            pairs.put(entry, table);
+        }
+        if (!byName.isEmpty()) {
+            throw new ArchiveRefusedException(ArchiveManifest.ENTRY, "the manifest lists no entry for table(s) "
+                    + byName.keySet());
+        }
+        return pairs;
+    }
+
+    /** Every entry but the manifest is a listed table entry, and every listed entry is there. */
+    private static void checkEntriesListed(ZipFile zip, ArchiveManifest manifest) {
+        Set<String> listed = new LinkedHashSet<>();
+        manifest.tables().forEach(t -> listed.add(t.entry()));
+        Set<String> present = new LinkedHashSet<>();
+        zip.stream().map(ZipEntry::getName).forEach(present::add);
+        for (String name : present) {
+            if (!name.equals(ArchiveManifest.ENTRY) && !listed.contains(name)) {
+                throw new ArchiveRefusedException(name, "entry '" + name + "' is not listed in the manifest");
+            }
+        }
+        for (String name : listed) {
+            if (!present.contains(name)) {
+                throw new ArchiveRefusedException(name, "entry '" + name + "' is listed in the manifest but missing");
+            }
+        }
+    }
+
+    private static void refuseUnlessEmpty(DSLContext db) {
+        Map<String, Long> counts = rowCounts(db);
+        Map<String, Long> held = new LinkedHashMap<>();
+        counts.forEach((table, rows) -> {
+            if (rows > 0) {
+                held.put(table, rows);
+            }
+        });
+        if (!held.isEmpty()) {
+            throw new LibraryNotEmptyException(held);
+        }
+    }
+
+    /** Reads every entry once: checksum, rows, values and curves; returns each identity's highest id. */
+    private static Map<Table<?>, Long> verify(ZipFile zip, ArchiveManifest manifest, Map<TableEntry, Table<?>> tables)
+            throws IOException {
+        Map<Long, CurveChecksum> expectedCurves = new HashMap<>();
+        for (CurveChecksum c : manifest.curves()) {
+            if (expectedCurves.put(c.sampleId(), c) != null) {
+                throw new ArchiveRefusedException(ArchiveManifest.ENTRY, "curve of sample " + c.sampleId() + " listed twice");
+            }
+        }
+        Map<Table<?>, Long> highestIds = new LinkedHashMap<>();
+        Set<Long> curvesSeen = new LinkedHashSet<>();
+        for (Map.Entry<TableEntry, Table<?>> pair : tables.entrySet()) {
+            TableEntry entry = pair.getKey();
+            Table<?> table = pair.getValue();
+            RowCodec codec = new RowCodec(fieldsInArchiveOrder(entry, table));
+            int identityIndex = identityIndex(entry, table);
+            boolean curveTable = TableRows.isCurveTable(table);
+            MessageDigest digest = TableRows.sha256();
+            long highest = 0;
+            ArchiveRefusedException rowFault = null;
+            try (InputStream in = new DigestInputStream(new BufferedInputStream(new AtMost(
+                    zip.getInputStream(zip.getEntry(entry.entry())), entry)), digest)) {
+                BoundedLines lines = new BoundedLines(in, BoundedLines.MAX_LINE_BYTES);
+                try {
+                    for (String line = lines.next(); line != null; line = lines.next()) {
+                        Object[] values = decode(codec, entry, lines.lineNumber(), line);
+                        if (identityIndex >= 0) {
+                            highest = Math.max(highest, ((Number) values[identityIndex]).longValue());
+                        }
+                        if (curveTable) {
+                            curvesSeen.add(checkCurve(codec, values, expectedCurves, entry, lines.lineNumber()));
+                        }
+                    }
+                    if (lines.lineNumber() != entry.rows()) {
+                        rowFault = new ArchiveRefusedException(entry.entry(), "entry '" + entry.entry() + "' holds "
+                                + lines.lineNumber() + " rows; the manifest says " + entry.rows());
+                    }
+                } catch (ArchiveRefusedException e) {
+                    // read on to the end: a damaged entry is reported as such, by its checksum, not by its symptom
+                    rowFault = e;
+                    in.transferTo(OutputStream.nullOutputStream());
+                }
+            } catch (IOException e) {
+                throw new ArchiveRefusedException(entry.entry(), "entry '" + entry.entry() + "' cannot be read: "
+                        + e.getMessage());
+            }
+            String actual = HexFormat.of().formatHex(digest.digest());
+            if (!actual.equalsIgnoreCase(entry.sha256())) {
+                throw new ArchiveRefusedException(entry.entry(), "entry '" + entry.entry() + "' has SHA-256 " + actual
+                        + "; the manifest says " + entry.sha256() + " (the archive is damaged or was altered)");
+            }
+            if (rowFault != null) {
+                throw rowFault;
+            }
+            if (identityIndex >= 0) {
+                highestIds.put(table, highest);
+            }
+        }
+        expectedCurves.keySet().removeAll(curvesSeen);
+        if (!expectedCurves.isEmpty()) {
+            throw new ArchiveRefusedException(ArchiveManifest.ENTRY, "the manifest lists curves the archive lacks: samples "
+                    + expectedCurves.keySet().stream().sorted().limit(10).toList());
+        }
+        return highestIds;
+    }
+
+    private static Object[] decode(RowCodec codec, TableEntry entry, long line, String text) {
+        try {
+            return codec.decode(RowCodec.JSON.readTree(text));
+        } catch (JacksonException | IllegalArgumentException e) {
+            throw new ArchiveRefusedException(entry.entry(), line, "entry '" + entry.entry() + "' line " + line + ": "
+                    + e.getMessage());
+        }
+    }
+
+    /** The curve's checksums from the row as the archive holds it; returns its sample id. */
+    private static long checkCurve(RowCodec codec, Object[] values, Map<Long, CurveChecksum> expected, TableEntry entry,
+                                   long line) {
+        var row = DSL.using(org.jooq.SQLDialect.DEFAULT).newRecord(codec.fields().toArray(Field<?>[]::new));
+        row.fromArray(values);
+        long sampleId = row.get(Tables.CURVE.SAMPLE_ID);
+        CurveChecksum listed = expected.get(sampleId);
+        if (listed == null) {
+            throw new ArchiveRefusedException(entry.entry(), line, "entry '" + entry.entry() + "' line " + line
+                    + ": the curve of sample " + sampleId + " is not in the manifest's curve list");
+        }
+        String data = TableRows.curveDataSha256(row);
+        if (!data.equals(listed.dataSha256()) || !row.get(Tables.CURVE.SOURCE_SHA256).equals(listed.sourceSha256())
+                || row.get(Tables.CURVE.POINT_COUNT) != listed.points()) {
+            throw new ArchiveRefusedException(entry.entry(), line, "entry '" + entry.entry() + "' line " + line
+                    + ": the curve of sample " + sampleId + " does not match its checksums in the manifest");
+        }
+        return sampleId;
+    }
+
+    private static List<Field<?>> fieldsInArchiveOrder(TableEntry entry, Table<?> table) {
+        List<Field<?>> fields = new ArrayList<>();
+        for (ArchiveManifest.Column column : entry.columns()) {
+            for (Field<?> field : table.fields()) {
+                if (LibraryTables.name(field).equals(column.name())) {
+                    fields.add(field);
+                }
+            }
+        }
+        return fields;
+    }
+
+    private static int identityIndex(TableEntry entry, Table<?> table) {
+        Identity<?, ?> identity = table.getIdentity();
+        if (identity == null) {
+            return -1;
+        }
+        String name = LibraryTables.name(identity.getField());
+        for (int i = 0; i < entry.columns().size(); i++) {
+            if (entry.columns().get(i).name().equals(name)) {
+                return i;
+            }
+        }
+        return -1;
+    }
+
+    /**
+     * The next id of every identity column is set past the archive's highest, in statements of their own
+     * (each commits on H2). The same statement restarts an identity on H2 and on PostgreSQL.
+     */
+    private void raiseIdCounters(Map<Table<?>, Long> highestIds) {
+        highestIds.forEach((table, highest) -> {
+            if (highest > 0) {
+                db.execute("ALTER TABLE {0} ALTER COLUMN {1} RESTART WITH {2}", table,
+                        DSL.name(table.getIdentity().getField().getName()), DSL.inline(highest + 1));
+            }
+        });
+    }
+
+    private Summary write(DSLContext tx, ZipFile zip, ArchiveManifest manifest, Map<TableEntry, Table<?>> tables)
+            throws IOException {
+        refuseUnlessEmpty(tx); // again, inside the transaction: another restore may have won the race
+        Map<String, Long> rows = new LinkedHashMap<>();
+        for (Map.Entry<TableEntry, Table<?>> pair : tables.entrySet()) {
+            rows.put(pair.getKey().table(), insertRows(tx, zip, pair.getKey(), pair.getValue()));
+        }
+        recheckCurves(tx, manifest);
+        LibraryTables.bookkeeping("library_generation")
+                .ifPresent(generation -> tx.execute("UPDATE {0} SET n = n + 1", generation));
+        return new Summary(manifest.schemaVersion(), rows, manifest.curves().size());
+    }
+
+    private static long insertRows(DSLContext tx, ZipFile zip, TableEntry entry, Table<?> table) throws IOException {
+        List<Field<?>> fields = fieldsInArchiveOrder(entry, table);
+        RowCodec codec = new RowCodec(fields);
+        try (InputStream in = new BufferedInputStream(zip.getInputStream(zip.getEntry(entry.entry())))) {
+            BoundedLines lines = new BoundedLines(in, BoundedLines.MAX_LINE_BYTES);
+            for (String line = lines.next(); line != null; line = lines.next()) {
+                Object[] values = decode(codec, entry, lines.lineNumber(), line);
+                try {
+                    tx.insertInto(table, fields).values(values).execute();
+                } catch (RuntimeException e) { // jOOQ's or, under Spring, Spring's translation of it
+                    throw new RestoreFailedException(entry.entry(), lines.lineNumber(), "the database refused entry '"
+                            + entry.entry() + "' line " + lines.lineNumber() + " (table " + entry.table() + "): "
+                            + rootMessage(e) + "; nothing was restored", e);
+                }
+            }
+            return lines.lineNumber();
+        }
+    }
+
+    /** Every curve as the target database now holds it, against the manifest: bit-identical or nothing. */
+    private static void recheckCurves(DSLContext tx, ArchiveManifest manifest) {
+        Map<Long, String> expected = new HashMap<>();
+        manifest.curves().forEach(c -> expected.put(c.sampleId(), c.dataSha256()));
+        TableRows.forEach(tx, Tables.CURVE, row -> {
+            long sampleId = row.get(Tables.CURVE.SAMPLE_ID);
+            if (!TableRows.curveDataSha256(row).equals(expected.get(sampleId))) {
+                throw new RestoreFailedException(null, 0, "the curve of sample " + sampleId + " reads back from the"
+                        + " database differently from the archive; nothing was restored", null);
+            }
+        });
+    }
+
+    /**
+     * An entry's bytes, refused once they run past the size its manifest states: a crafted entry that
+     * inflates without end costs no more than the manifest admits to.
+     */
+    private static final class AtMost extends java.io.FilterInputStream {
+        private final TableEntry entry;
+        private long read;
+
+        AtMost(InputStream in, TableEntry entry) {
+            super(in);
+            this.entry = entry;
+        }
+
+        @Override
+        public int read() throws IOException {
+            int b = super.read();
+            count(b < 0 ? 0 : 1);
+            return b;
+        }
+
+        @Override
+        public int read(byte[] buffer, int offset, int length) throws IOException {
+            int n = super.read(buffer, offset, length);
+            count(Math.max(n, 0));
+            return n;
+        }
+
+        private void count(int n) throws IOException {
+            read += n;
+            if (read > entry.bytes()) {
+                throw new IOException("it holds more than the " + entry.bytes() + " bytes the manifest states"
+                        + " (the archive is damaged or was altered)");
+            }
+        }
+    }
+
+    private static String rootMessage(Throwable e) {
+        Throwable t = e;
+        while (t.getCause() != null && t.getCause() != t) {
+            t = t.getCause();
+        }
+        String message = t.getMessage() == null ? t.getClass().getSimpleName() : t.getMessage();
+        return message.lines().findFirst().orElse(message);
+    }
+}

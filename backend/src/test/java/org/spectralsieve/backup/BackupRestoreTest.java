@@ -1,0 +1,213 @@
+package org.spectralsieve.backup;
+
+import static org.assertj.core.api.Assertions.assertThat;
+import static org.assertj.core.api.Assertions.assertThatThrownBy;
+
+import java.io.IOException;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import org.jooq.DSLContext;
+import org.junit.jupiter.api.AfterAll;
+import org.junit.jupiter.api.BeforeAll;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.TestInstance;
+import org.junit.jupiter.api.io.TempDir;
+import org.spectralsieve.importers.ImportException;
+import org.spectralsieve.ingest.ImportFiles;
+import org.spectralsieve.ingest.ImportOptions;
+import org.spectralsieve.ingest.ImportResult;
+import org.spectralsieve.ingest.ImportService;
+import org.spectralsieve.ingest.ImportTarget;
+import org.spectralsieve.ingest.SampleFields;
+import org.spectralsieve.library.MaterialClass;
+import org.spectralsieve.library.Scaling;
+import org.spectralsieve.library.db.Tables;
+import org.spectralsieve.spectra.SpectrumImportOptions;
+import org.spectralsieve.spectra.SpectrumImportService;
+import org.spectralsieve.spectra.SpectrumKind;
+import org.springframework.context.ConfigurableApplicationContext;
+
+/** Backup of an H2 library restored into another H2 library, and the archives and targets a restore refuses. */
+@TestInstance(TestInstance.Lifecycle.PER_CLASS)
+class BackupRestoreTest {
+
+    @TempDir
+    Path folder;
+
+    /** One empty library for every refusal: each test also checks it is still empty afterwards. */
+    private ConfigurableApplicationContext empty;
+
+    @BeforeAll
+    void startEmptyLibrary() {
+        empty = LibraryApp.h2("refusals", false);
+    }
+
+    @AfterAll
+    void stopEmptyLibrary() {
+        empty.close();
+    }
+
+    @Test
+    void anH2LibraryRestoredIntoH2IsRowForRowAndBitForBitTheSameAndAnswersTheSame() throws Exception {
+        SourceLibrary source = SourceLibrary.get();
+        try (ConfigurableApplicationContext target = LibraryApp.h2("target", false)) {
+            LibraryRestore.Summary summary = target.getBean(LibraryRestore.class).restore(source.archive);
+
+            assertThat(summary.curves()).isPositive();
+            RestoredLibrary.assertSameAs(source.context, target);
+            assertNewRowsGetUnusedIds(target, source.context.getBean(DSLContext.class));
+        }
+    }
+
+    /** Ids are never handed out again: the next sample and spectrum get ids above every restored id. */
+    static void assertNewRowsGetUnusedIds(ConfigurableApplicationContext target, DSLContext source) throws ImportException {
+        ImportResult added = target.getBean(ImportService.class).store("after-restore.csv",
+                ImportFiles.csvWithThickness(2).getBytes(StandardCharsets.UTF_8), ImportOptions.defaults(),
+                new ImportTarget.NewMaterial("Illustrative sheet added after a restore", MaterialClass.of("plastic sheet"),
+                        Scaling.BULK, null, ""), SampleFields.thickness(2));
+        long spectrum = target.getBean(SpectrumImportService.class).importSpectrum(SpectrumKind.EMITTER,
+                "after-restore-lamp", "", "", "lamp.csv",
+                "wavelength_nm,power\n360,0\n365,1\n370,0\n".getBytes(StandardCharsets.UTF_8),
+                SpectrumImportOptions.defaults()).spectrum().id();
+
+        assertThat(added.materialId()).isGreaterThan(RestoredLibrary.highestId(source, Tables.MATERIAL)).isPositive();
+        assertThat(added.sampleId()).isGreaterThan(RestoredLibrary.highestId(source, Tables.SAMPLE));
+        assertThat(spectrum).isGreaterThan(RestoredLibrary.highestId(source, Tables.REFERENCE_SPECTRUM));
+    }
+
+    @Test
+    void aLibraryThatHoldsRowsIsRefusedAndKeepsItsRows() {
+        SourceLibrary source = SourceLibrary.get();
+        DSLContext db = source.context.getBean(DSLContext.class);
+        long before = RestoredLibrary.count(db);
+
+        assertThatThrownBy(() -> source.context.getBean(LibraryRestore.class).restore(source.archive))
+                .isInstanceOf(LibraryNotEmptyException.class)
+                .hasMessageContaining("not empty").hasMessageContaining("material");
+        assertThat(RestoredLibrary.count(db)).isEqualTo(before);
+    }
+
+    @Test
+    void aChangedCurveIsRefusedByItsEntrysChecksumBeforeAnythingIsWritten() throws Exception {
+        // one bit of one stored value changed, the entry's length and the manifest left as they were
+        Path tampered = Archives.altered(SourceLibrary.get().archive, folder.resolve("tampered.zip"), "curve",
+                RowEdits::flipFirstTransmittanceByte, false);
+
+        {
+            ConfigurableApplicationContext target = empty;
+            assertThatThrownBy(() -> target.getBean(LibraryRestore.class).restore(tampered))
+                    .isInstanceOfSatisfying(ArchiveRefusedException.class,
+                            e -> assertThat(e.entry()).endsWith("-curve.jsonl"))
+                    .hasMessageContaining("SHA-256").hasMessageContaining("-curve.jsonl");
+            assertThat(RestoredLibrary.count(target.getBean(DSLContext.class))).isZero();
+        }
+    }
+
+    @Test
+    void anEntryLongerThanItsManifestStatesIsRefusedWhenItRunsPast() throws Exception {
+        // a digit added to one value: the entry no longer has the size the manifest states
+        Path longer = Archives.altered(SourceLibrary.get().archive, folder.resolve("longer.zip"), "sample",
+                text -> text.replaceFirst("\"id\":(\\d)", "\"id\":9$1"), false);
+
+        {
+            ConfigurableApplicationContext target = empty;
+            assertThatThrownBy(() -> target.getBean(LibraryRestore.class).restore(longer))
+                    .isInstanceOfSatisfying(ArchiveRefusedException.class,
+                            e -> assertThat(e.entry()).endsWith("-sample.jsonl"))
+                    .hasMessageContaining("bytes the manifest states");
+            assertThat(RestoredLibrary.count(target.getBean(DSLContext.class))).isZero();
+        }
+    }
+
+    @Test
+    void aCurveChangedWithItsEntryChecksumIsRefusedByTheCurveChecksum() throws Exception {
+        // a flipped byte in a packed array, the entry's SHA-256 recomputed: only the curve's own checksum can tell
+        Path forged = Archives.altered(SourceLibrary.get().archive, folder.resolve("forged.zip"), "curve",
+                RowEdits::flipFirstTransmittanceByte, true);
+
+        {
+            ConfigurableApplicationContext target = empty;
+            assertThatThrownBy(() -> target.getBean(LibraryRestore.class).restore(forged))
+                    .isInstanceOfSatisfying(ArchiveRefusedException.class, e -> {
+                        assertThat(e.entry()).endsWith("-curve.jsonl");
+                        assertThat(e.line()).isEqualTo(1);
+                    })
+                    .hasMessageContaining("does not match its checksums");
+            assertThat(RestoredLibrary.count(target.getBean(DSLContext.class))).isZero();
+        }
+    }
+
+    @Test
+    void aFileThatIsNoArchiveOrHasNoManifestIsRefused() throws Exception {
+        Path text = Files.writeString(folder.resolve("notes.zip"), "not a zip");
+        Path noManifest = folder.resolve("no-manifest.zip");
+        var entries = Archives.read(SourceLibrary.get().archive);
+        entries.remove(ArchiveManifest.ENTRY);
+        Archives.write(entries, noManifest);
+
+        {
+            ConfigurableApplicationContext target = empty;
+            LibraryRestore restore = target.getBean(LibraryRestore.class);
+            assertThatThrownBy(() -> restore.restore(text)).isInstanceOf(ArchiveRefusedException.class)
+                    .hasMessageContaining("zip");
+            assertThatThrownBy(() -> restore.restore(noManifest)).isInstanceOfSatisfying(ArchiveRefusedException.class,
+                    e -> assertThat(e.entry()).isEqualTo("manifest.json"));
+            assertThat(RestoredLibrary.count(target.getBean(DSLContext.class))).isZero();
+        }
+    }
+
+    @Test
+    void aRestoreTheDatabaseRefusesMidwayLeavesTheLibraryEmptyAndAGoodArchiveStillGoesIn() throws Exception {
+        // the last table's first row breaks a CHECK constraint (an unknown spectrum kind) after every other
+        // table is written; the archive vouches for it, so only the database can refuse it
+        Path broken = Archives.altered(SourceLibrary.get().archive, folder.resolve("broken.zip"), "reference_spectrum",
+                text -> text.replaceFirst("\"kind\":\"emitter\"", "\"kind\":\"lamp\""), true);
+
+        try (ConfigurableApplicationContext target = LibraryApp.h2("midway", false)) {
+            DSLContext db = target.getBean(DSLContext.class);
+            LibraryRestore restore = target.getBean(LibraryRestore.class);
+            assertThatThrownBy(() -> restore.restore(broken))
+                    .isInstanceOfSatisfying(RestoreFailedException.class,
+                            e -> assertThat(e.entry()).endsWith("-reference_spectrum.jsonl"))
+                    .hasMessageContaining("nothing was restored");
+            assertThat(RestoredLibrary.count(db)).isZero();
+
+            restore.restore(SourceLibrary.get().archive);
+            RestoredLibrary.assertSameAs(SourceLibrary.get().context, target);
+        }
+    }
+
+    @Test
+    void anArchiveFromAnotherSchemaVersionIsRefusedNamingBothVersions() throws Exception {
+        var entries = Archives.read(SourceLibrary.get().archive);
+        var manifest = (tools.jackson.databind.node.ObjectNode) Archives.manifest(entries);
+        manifest.put("schemaVersion", "999");
+        entries.put(ArchiveManifest.ENTRY, RowCodec.JSON.writeValueAsBytes(manifest));
+        Path newer = folder.resolve("newer.zip");
+        Archives.write(entries, newer);
+
+        {
+            ConfigurableApplicationContext target = empty;
+            assertThatThrownBy(() -> target.getBean(LibraryRestore.class).restore(newer))
+                    .isInstanceOf(ArchiveRefusedException.class).hasMessageContaining("999");
+            assertThat(RestoredLibrary.count(target.getBean(DSLContext.class))).isZero();
+        }
+    }
+
+    @Test
+    void theManifestCountsEveryTableAndListsEveryCurve() throws IOException {
+        SourceLibrary source = SourceLibrary.get();
+        DSLContext db = source.context.getBean(DSLContext.class);
+        var manifest = Archives.manifest(Archives.read(source.archive));
+
+        assertThat(manifest.path("formatVersion").asInt()).isEqualTo(ArchiveManifest.FORMAT_VERSION);
+        assertThat(manifest.path("tables").size()).isEqualTo(LibraryTables.inDependencyOrder().size());
+        for (var t : manifest.path("tables")) {
+            var table = LibraryTables.inDependencyOrder().stream()
+                    .filter(x -> LibraryTables.name(x).equals(t.path("table").asString())).findFirst().orElseThrow();
+            assertThat(t.path("rows").asLong()).as(t.path("table").asString()).isEqualTo(db.fetchCount(table));
+        }
+        assertThat(manifest.path("curves").size()).isEqualTo(db.fetchCount(org.spectralsieve.library.db.Tables.CURVE));
+    }
+}
