@@ -1,5 +1,7 @@
 package org.spectralsieve.ingest;
 
+import org.spectralsieve.optics.PhysicalRanges;
+
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
@@ -7,7 +9,6 @@ import java.util.OptionalDouble;
 import java.util.Set;
 import org.spectralsieve.library.MaterialCorrection;
 import org.spectralsieve.library.SampleCorrection;
-import org.spectralsieve.library.SampleCurves;
 import org.spectralsieve.library.StatedThicknesses;
 import org.spectralsieve.optics.ConstantIndex;
 import org.spectralsieve.optics.RefractiveIndex;
@@ -40,9 +41,10 @@ public final class SampleCorrectionForm {
     public static SampleCorrection sample(Map<String, String> fields) {
         checkNames(fields, SAMPLE_FIELDS);
         Double thickness = OptionText.positiveOrNull("thicknessMm", fields.get("thicknessMm"));
-        if (thickness != null && thickness > SampleCurves.MAX_THICKNESS_MM) {
-            throw new ImportRequestException("thicknessMm", "must be at most " + SampleCurves.MAX_THICKNESS_MM
-                    + " mm, got " + thickness);
+        if (thickness != null && !PhysicalRanges.isThicknessMm(thickness)) {
+            // the range every stored thickness keeps (docs/validation.md), as an import's
+            throw new ImportRequestException("thicknessMm", "must be from " + PhysicalRanges.MIN_THICKNESS_MM + " to "
+                    + PhysicalRanges.MAX_THICKNESS_MM + " mm, got " + thickness);
         }
         OptionalDouble limit = OptionText.number("detectionLimit", fields.get("detectionLimit"));
         if (limit.isPresent() && !(limit.getAsDouble() >= 0 && limit.getAsDouble() < 1)) {

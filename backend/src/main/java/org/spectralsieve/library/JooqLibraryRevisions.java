@@ -89,6 +89,7 @@ public class JooqLibraryRevisions {
                 }
                 t.update(MATERIAL).set(MATERIAL.RETIRED_AT, retire ? now : null).where(MATERIAL.ID.eq(id)).execute();
             }
+            LibraryGeneration.bump(t);
             return new Retirement(kind, id, retire ? now.toInstant() : null, true);
         });
     }
@@ -127,6 +128,7 @@ public class JooqLibraryRevisions {
                     .set(SAMPLE.DETECTION_LIMIT, next.detectionLimit())
                     .set(SAMPLE.REVISION, next.revision())
                     .where(SAMPLE.ID.eq(id)).execute();
+            LibraryGeneration.bump(t);
             return toRevision(next, correction.reason(), at.toInstant(), true);
         });
     }
@@ -177,6 +179,7 @@ public class JooqLibraryRevisions {
                     .set(MATERIAL.MADE_MAX_MM, update.getMadeMaxMm())
                     .set(MATERIAL.REVISION, next)
                     .where(MATERIAL.ID.eq(id)).execute();
+            LibraryGeneration.bump(t);
             return toRevision(stored, true);
         });
     }

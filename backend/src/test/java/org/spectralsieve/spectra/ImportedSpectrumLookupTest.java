@@ -48,7 +48,7 @@ class ImportedSpectrumLookupTest {
     }
 
     @Test
-    void aSpectrumStoredOrDeletedBehindTheLookupsBackIsSeenOnItsNextUse() {
+    void aSpectrumStoredOrRetiredBehindTheLookupsBackIsSeenOnItsNextUse() {
         assertThat(lookup.emitters()).extracting(Emitter::name).doesNotContain("late-lamp");
         // stored through another repository on the same database, as another process would: no refresh() call
         ReferenceSpectrumRepository elsewhere = new ReferenceSpectrumRepository(DSL.using(dataSource, SQLDialect.H2));
@@ -57,7 +57,7 @@ class ImportedSpectrumLookupTest {
         assertThat(lookup.emitters()).extracting(Emitter::name).contains("late-lamp");
         assertThat(lookup.emitter("late-lamp")).isPresent();
 
-        elsewhere.delete(SpectrumKind.EMITTER, "late-lamp");
+        elsewhere.retire(SpectrumKind.EMITTER, "late-lamp");
 
         assertThat(lookup.emitter("late-lamp")).isEmpty();
     }
