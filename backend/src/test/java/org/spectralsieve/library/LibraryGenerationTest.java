@@ -77,6 +77,41 @@ class LibraryGenerationTest {
     }
 
     @Test
+    void retiringRestoringAndCorrectingRaiseTheCounter() {
+        long materialId = library.insertMaterial(material("curated"));
+        SourceFile a = file("wavelength_nm,T\n300,0.3\n400,0.8\n");
+        long sampleId = library.insertSample(materialId, sample(2, a), a);
+        JooqLibraryRevisions revisions = new JooqLibraryRevisions(db);
+        long start = library.generation();
+
+        revisions.setRetired(JooqLibraryRevisions.Kind.SAMPLE, sampleId, true);
+        assertThat(library.generation()).isEqualTo(start + 1);
+        revisions.setRetired(JooqLibraryRevisions.Kind.SAMPLE, sampleId, false);
+        assertThat(library.generation()).isEqualTo(start + 2);
+        revisions.setRetired(JooqLibraryRevisions.Kind.MATERIAL, materialId, true);
+        assertThat(library.generation()).isEqualTo(start + 3);
+
+        revisions.correctSample(sampleId, new SampleCorrection(2.1, null, null, null, null, null, null, "callipers"),
+                (now, next, perPoint) -> { });
+        assertThat(library.generation()).isEqualTo(start + 4);
+        revisions.correctMaterial(materialId, new MaterialCorrection(new ConstantIndex(1.5), null, "index checked"),
+                m -> { });
+        assertThat(library.generation()).isEqualTo(start + 5);
+    }
+
+    @Test
+    void retiringWhatIsRetiredAlreadyWritesNothingAndLeavesTheCounter() {
+        long materialId = library.insertMaterial(material("twice"));
+        JooqLibraryRevisions revisions = new JooqLibraryRevisions(db);
+        revisions.setRetired(JooqLibraryRevisions.Kind.MATERIAL, materialId, true);
+        long after = library.generation();
+
+        revisions.setRetired(JooqLibraryRevisions.Kind.MATERIAL, materialId, true);
+
+        assertThat(library.generation()).isEqualTo(after);
+    }
+
+    @Test
     void aRecognisedDuplicateWritesNothingAndLeavesTheCounter() {
         SourceFile f = file("wavelength_nm,T\n300,0.3\n400,0.8\n");
         StoredImport first = library.storeImport(null, material("twice"), sample(2, f), f);
