@@ -49,13 +49,15 @@ class BackupApiTest {
 
         assertThat(restored.statusCode()).as(restored.body()).isEqualTo(200);
         JsonNode answer = JSON.readTree(restored.body());
-        int materials = source.context().getBean(JooqLibraryRepository.class).findMaterials(null, null).size();
-        assertThat(answer.path("rows").path("material").asInt()).isEqualTo(materials);
+        JooqLibraryRepository sourceLibrary = source.context().getBean(JooqLibraryRepository.class);
+        long materialRows = sourceLibrary.countMaterials(); // retired ones too: the archive keeps them
+        int materials = sourceLibrary.findMaterials(null, null).size(); // in use: what the listing shows
+        assertThat(answer.path("rows").path("material").asLong()).isEqualTo(materialRows);
         assertThat(JSON.readTree(send("GET", "/api/materials", null, null).body()).size()).isEqualTo(materials);
 
         HttpResponse<String> again = send("POST", "/api/restore", "application/zip", archive);
         assertProblem(again, 409, "library-not-empty");
-        assertThat(JSON.readTree(again.body()).path("rows").path("material").asInt()).isEqualTo(materials);
+        assertThat(JSON.readTree(again.body()).path("rows").path("material").asLong()).isEqualTo(materialRows);
 
         HttpResponse<byte[]> backup = HTTP.send(HttpRequest.newBuilder(URI.create("http://localhost:" + port + "/api/backup"))
                 .GET().build(), HttpResponse.BodyHandlers.ofByteArray());

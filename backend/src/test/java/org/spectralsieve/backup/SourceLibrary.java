@@ -17,12 +17,18 @@ import org.spectralsieve.library.Scaling;
 import org.spectralsieve.spectra.SpectrumImportOptions;
 import org.spectralsieve.spectra.SpectrumImportService;
 import org.spectralsieve.spectra.SpectrumKind;
+import org.spectralsieve.curation.LibraryCuration;
+import org.spectralsieve.library.JooqLibraryRepository;
+import org.spectralsieve.library.JooqLibraryRevisions;
+import org.spectralsieve.library.MaterialCorrection;
+import org.spectralsieve.library.SampleCorrection;
+import org.spectralsieve.optics.ConstantIndex;
 import org.springframework.context.ConfigurableApplicationContext;
 
 /**
  * The library every restore test starts from, built once per test run: the illustrative demo library, one
- * user import with its original file, and one imported emitter and response (invented bench readings),
- * backed up to one archive.
+ * user import with its original file (corrected once, so revisions exist), one retired demo material, and
+ * one imported emitter and response (invented bench readings), backed up to one archive.
  */
 public final class SourceLibrary {
 
@@ -58,10 +64,19 @@ public final class SourceLibrary {
     private static SourceLibrary build() {
         ConfigurableApplicationContext context = LibraryApp.h2("source", true);
         try {
-            context.getBean(ImportService.class).store("workshop-sheet.csv",
+            var imported = context.getBean(ImportService.class).store("workshop-sheet.csv",
                     ImportFiles.percentCsv().getBytes(StandardCharsets.UTF_8), ImportOptions.defaults(),
                     new ImportTarget.NewMaterial("Illustrative workshop cast sheet", MaterialClass.of("plastic sheet"),
                             Scaling.BULK, null, ""), SampleFields.thickness(3));
+            // a corrected sample (two revision rows) and a retired material: the archive keeps both states
+            LibraryCuration curation = context.getBean(LibraryCuration.class);
+            curation.correct(imported.sample().id(), new SampleCorrection(3.05, null, null, null, null,
+                    "remeasured with callipers", null, "thickness remeasured"));
+            curation.correct(imported.materialId(), new MaterialCorrection(new ConstantIndex(1.49), null, "index stated"));
+            curation.retire(JooqLibraryRevisions.Kind.MATERIAL, imported.materialId());
+            curation.restore(JooqLibraryRevisions.Kind.MATERIAL, imported.materialId());
+            long retiredDemoMaterial = context.getBean(JooqLibraryRepository.class).findMaterials(null, null).get(0).id();
+            curation.retire(JooqLibraryRevisions.Kind.MATERIAL, retiredDemoMaterial);
             SpectrumImportService spectra = context.getBean(SpectrumImportService.class);
             // invented bench readings: a lamp peaking at 365 nm and a detector's relative response
             spectra.importSpectrum(SpectrumKind.EMITTER, EMITTER, "illustrative bench lamp", "invented", "lamp.csv",
