@@ -40,8 +40,8 @@ class WeightedFiguresApiTest {
 
     /**
      * A clear UV-grade silica window loses about 4 % at each face and absorbs almost nothing over
-     * 250-400 nm, so its erythemal factor is near 1/0.92 (lossless slab n = 1.5: T = 0.923, W. J. Smith,
-     * Modern Optical Engineering, Fresnel reflection at normal incidence; reference sheet §7).
+     * 250-400 nm, so its erythemal factor is near 1/0.92 (lossless slab n = 1.5: T = 0.923, Modern Optical Engineering,
+     * Fresnel reflection at normal incidence; reference sheet §7).
      */
     @Test
     void fusedSilicaErythemalProtectionFactorIsNearOneOverPointNineTwo() throws Exception {
@@ -79,7 +79,7 @@ class WeightedFiguresApiTest {
 
     /**
      * The silica window again: it absorbs nothing in the visible, so τv is its Fresnel transmittance,
-     * about 0.93 (n = 1.46, two faces: W. J. Smith, Modern Optical Engineering; reference sheet §7), which
+     * about 0.93 (n = 1.46, two faces: Modern Optical Engineering; reference sheet §7), which
      * ISO 12312-1:2013 puts in category 0 (> 80 % to 100 %, reference sheet §5). Under any named solar
      * spectrum a nearly flat T gives UPF near 1/T (sheet §2).
      */

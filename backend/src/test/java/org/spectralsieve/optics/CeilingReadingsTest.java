@@ -8,7 +8,7 @@ import org.junit.jupiter.api.Test;
 import org.spectralsieve.spectrum.Curve;
 
 /**
- * Readings at, near or above the lossless-slab ceiling 2n/(n² + 1) (Smith, Modern Optical Engineering, eq.
+ * Readings at, near or above the lossless-slab ceiling 2n/(n² + 1) (Modern Optical Engineering, eq.
  * 10.6), and the rescaling rule every thickness model uses ({@link SlabReading}): continuous in thickness,
  * equal to the measurement at the measured thickness, never rising, never a value where it extrapolates an
  * absorption the data cannot resolve, and stacks between T1·T2 and T1·T2/(1 − R1·R2). Random cases from fixed
@@ -20,7 +20,7 @@ class CeilingReadingsTest {
 
     @Test
     void losslessCeilingIsTwoNOverNSquaredPlusOne() {
-        // Smith eq. 10.6: T = 2n/(n² + 1); n = 1.65 (polyester film) gives 3.3/3.7225 = 0.88650
+        // Modern Optical Engineering eq. 10.6: T = 2n/(n² + 1); n = 1.65 (polyester film) gives 3.3/3.7225 = 0.88650
         double r = Fresnel.reflectanceInAir(1.65);
         assertThat(Slab.losslessTransmittance(r)).isCloseTo(2 * 1.65 / (1.65 * 1.65 + 1), within(1e-15));
         assertThat(Slab.losslessTransmittance(r)).isCloseTo(0.8865, within(0.00005));
@@ -137,7 +137,7 @@ class CeilingReadingsTest {
 
     @Test
     void aStackOfMeasuredPartsLiesBetweenTheProductAndTheProductOverOneMinusR1R2() {
-        // Smith eq. 10.5 for two elements: T = T1·T2/(1 − R1·R2); R_i ≤ 1 − T_i (energy), so
+        // Modern Optical Engineering eq. 10.5 for two elements: T = T1·T2/(1 − R1·R2); R_i ≤ 1 − T_i (energy), so
         // T1·T2 ≤ T ≤ T1·T2/(1 − (1 − T1)(1 − T2)), at every wavelength, for any parts and thicknesses
         Random random = new Random(20261207L);
         double[] nm = {380, 420, 460, 500, 540, 580, 620, 660, 700};

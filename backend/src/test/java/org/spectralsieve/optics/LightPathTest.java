@@ -33,7 +33,7 @@ class LightPathTest {
 
     @Test
     void twoLosslessPlatesWithAirGapMatchTheIncoherentPileOfPlates() {
-        // pile of m non-absorbing plates, incoherent: T = (1−R)/(1+(2m−1)R) (follows from Smith eq. 10.5
+        // pile of m non-absorbing plates, incoherent: T = (1−R)/(1+(2m−1)R) (follows from Modern Optical Engineering eq. 10.5
         // applied surface by surface; m = 1 gives eq. 10.6). For m = 2, R = 0.04: 0.96/1.12.
         double lossless = Slab.losslessTransmittance(0.04);
         WavelengthGrid grid = new WavelengthGrid(360, 420, 20);
@@ -44,14 +44,14 @@ class LightPathTest {
 
     @Test
     void elementCombinationIsTheTwoElementFormOfEquationTenPointFive() {
-        // Smith, Modern Optical Engineering, eq. 10.5 with the two surfaces replaced by whole elements
+        // Modern Optical Engineering, eq. 10.5 with the two surfaces replaced by whole elements
         OpticalElement a = new OpticalElement(0.5, 0.1, 0.2);
         OpticalElement b = new OpticalElement(0.6, 0.3, 0.05);
         OpticalElement ab = a.followedBy(b);
         assertThat(ab.transmittance()).isCloseTo(0.5 * 0.6 / (1 - 0.2 * 0.3), within(1e-15));
         assertThat(ab.reflectanceFront()).isCloseTo(0.1 + 0.25 * 0.3 / 0.94, within(1e-15));
         assertThat(ab.reflectanceBack()).isCloseTo(0.05 + 0.36 * 0.2 / 0.94, within(1e-15));
-        // a slab built surface by surface equals OpticalElement.slab (Smith eq. 10.5)
+        // a slab built surface by surface equals OpticalElement.slab (Modern Optical Engineering eq. 10.5)
         OpticalElement surface = new OpticalElement(0.96, 0.04, 0.04);
         OpticalElement bulk = new OpticalElement(0.5, 0, 0);
         OpticalElement slab = surface.followedBy(bulk).followedBy(surface);
@@ -62,7 +62,7 @@ class LightPathTest {
     @Test
     void strongAbsorbersInSeriesMultiplyUpToOneInterReflection() {
         // each measured T already includes its own surfaces; for strong absorbers each part reflects only
-        // its front surface R = 0.04, so T = T1·T2/(1 − R²) (two-element form of Smith eq. 10.5;
+        // its front surface R = 0.04, so T = T1·T2/(1 − R²) (two-element form of Modern Optical Engineering eq. 10.5;
         // REFERENCE §7: transmittances of stacked filters multiply, reflection handled separately)
         WavelengthGrid grid = new WavelengthGrid(360, 420, 20);
         Curve path = LightPath.of(Layer.fixed(flat(0.01), GLASS), Layer.fixed(flat(0.02), GLASS)).transmittance(grid);

@@ -108,7 +108,7 @@ class MeasuredCeilingReadingsTest {
     @Test
     void petBehindGlassPassesAtLeastTheProductOfTheTwoMeasuredParts() {
         // today's fault: PET behind glass gets τv 0.799, below the product of the measured parts (0.823);
-        // two parts in air: T1·T2 ≤ T ≤ T1·T2/(1 − R1·R2) with R ≤ 1 − T (Smith eq. 10.5, energy)
+        // two parts in air: T1·T2 ≤ T ≤ T1·T2/(1 − R1·R2) with R ≤ 1 − T (Modern Optical Engineering eq. 10.5, energy)
         Curve pet = MeasuredFiles.curve("pet-film-125um.txt");
         Curve glass = MeasuredFiles.curve("glass-dish-cover.csv");
         for (double d : new double[] {0.125, 0.25, 0.5}) {

@@ -54,7 +54,7 @@ class PhysicalRangesTest {
 
     @Test
     void publishedSellmeierFitsPassTheCheckOverTheirStatedRange() {
-        // Malitson 1965 fused silica over 210–3710 nm, crown 517642 over 300–2500 nm (REFERENCE §8)
+        // the published fused-silica Sellmeier fit (JOSA 55:1205, 1965) over 210–3710 nm, crown 517642 over 300–2500 nm (REFERENCE §8)
         assertThat(SellmeierIndex.FUSED_SILICA.at(210)).isBetween(1.0, 4.0);
         assertThat(SellmeierIndex.CROWN_517642.at(2500)).isBetween(1.0, 4.0);
     }

@@ -19,7 +19,7 @@ class ThicknessRescalerTest {
 
     @Test
     void twoMillimetreWindowAtEightyPercentPassesSixtyFourPointSixAtFiveMillimetres() {
-        // REFERENCE §7 worked example [C] (Smith, Modern Optical Engineering, eqs. 10.1, 10.5 + Beer–Lambert)
+        // REFERENCE §7 worked example [C] (Modern Optical Engineering, eqs. 10.1, 10.5 + Beer–Lambert)
         assertThat(rescaleOne(0.80, 2, 5, GLASS)).isCloseTo(0.645573, within(5e-7));
         // the naive T^(5/2) = 0.572433 is what this must not give
         assertThat(Math.pow(0.8, 2.5)).isCloseTo(0.572433, within(5e-7));
@@ -29,7 +29,7 @@ class ThicknessRescalerTest {
     @Test
     void colouredGlassFilterAtOneMillimetreConvertsToTwoPointTwoMillimetres() {
         // Glass-catalogue worked example (REFERENCE §7 [V], convention τ = P_d·τi): 59.8 % at 1.0 mm,
-        // P_d = 0.911 → 36.1 % at 2.2 mm. P_d ≈ (1−R)/(1+R) (Smith eq. 10.6) gives R = 0.089/1.911 and
+        // P_d = 0.911 → 36.1 % at 2.2 mm. P_d ≈ (1−R)/(1+R) (Modern Optical Engineering eq. 10.6) gives R = 0.089/1.911 and
         // n = (1+√R)/(1−√R) ≈ 1.550; the exact slab form must land within 0.1 % absolute.
         double r = (1 - 0.911) / (1 + 0.911);
         double n = (1 + Math.sqrt(r)) / (1 - Math.sqrt(r));
@@ -48,7 +48,7 @@ class ThicknessRescalerTest {
 
     @Test
     void belowDetectionStaysAnUpperBoundForThickerAndThinnerSlabs() {
-        // monotonicity of Smith eq. 10.5 in K and of K^(d2/d1): a bound maps to a bound
+        // monotonicity of Modern Optical Engineering eq. 10.5 in K and of K^(d2/d1): a bound maps to a bound
         Curve measured = Curve.of(new double[] {380, 400, 420}, new double[] {0.0005, 0.3, 0.85}, 0.001);
         for (double toMm : new double[] {6, 1.5}) {
             Curve rescaled = ThicknessRescaler.rescale(measured, 3, toMm, new ConstantIndex(1.49));
@@ -65,7 +65,7 @@ class ThicknessRescalerTest {
 
     @Test
     void rescalingToTheSameThicknessKeepsTheCurve() {
-        // identity of K^(d/d); Slab inversion and eq. 10.5 (Smith) are mutually inverse
+        // identity of K^(d/d); Slab inversion and eq. 10.5 (Modern Optical Engineering) are mutually inverse
         Curve measured = Curve.of(new double[] {380, 400, 420}, new double[] {0.01, 0.3, 0.85}, 0);
         Curve same = ThicknessRescaler.rescale(measured, 2, 2, SellmeierIndex.FUSED_SILICA);
         for (int i = 0; i < 3; i++) {

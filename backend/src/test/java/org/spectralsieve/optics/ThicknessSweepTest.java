@@ -12,7 +12,7 @@ import org.spectralsieve.spectrum.CurveException;
 /**
  * The precomputed sweep must give the very numbers of the straightforward route — rescale the measured
  * curve ({@link ThicknessRescaler}), then build the light path ({@link LightPath}) — for any curve,
- * thickness and fixed parts. Those routes are checked against Smith's slab and Beer–Lambert values in
+ * thickness and fixed parts. Those routes are checked against the handbook's slab and Beer–Lambert values in
  * {@link ThicknessRescalerTest} and {@link LightPathTest}; here equality is exact (Curve.equals compares
  * every double bit for bit), on random cases from a fixed seed.
  */

@@ -16,7 +16,7 @@ import org.spectralsieve.spectrum.Curve;
 class MadeThicknessesTest {
 
     private static final ConstantIndex GLASS = new ConstantIndex(1.5);
-    /** T = 0.80 at 2 mm, n = 1.5: REFERENCE §7 worked example (Smith eq. 10.5 + Beer–Lambert). */
+    /** T = 0.80 at 2 mm, n = 1.5: REFERENCE §7 worked example (Modern Optical Engineering eq. 10.5 + Beer–Lambert). */
     private static final Curve EIGHTY = Curve.of(new double[] {400, 410}, new double[] {0.8, 0.8}, 0);
     /** The same absorber at 5 mm: T(5 mm) = 0.645573 by that worked example. */
     private static final Curve AT_FIVE = Curve.of(new double[] {400, 410}, new double[] {0.645573, 0.645573}, 0);

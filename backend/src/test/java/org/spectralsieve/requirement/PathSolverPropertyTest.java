@@ -17,7 +17,7 @@ import org.spectralsieve.weighting.SpectrumLookup;
 
 /**
  * Thickness solving for requirements judged on the whole light path (weighted clauses, a fixed layer):
- * random absorption edges (internal transmittance a logistic step, n = 1.5, surfaces by Smith eq. 10.5)
+ * random absorption edges (internal transmittance a logistic step, n = 1.5, surfaces by Modern Optical Engineering eq. 10.5)
  * with random weighted and plain clauses, with and without a fixed plate in the path. Each answer is
  * re-judged on the path built here from {@link ThicknessRescaler} and {@link LightPath} (REFERENCE §7 and
  * incoherent stacking), clause by clause: the interval's ends hold, just outside them something fails,

@@ -40,7 +40,7 @@ class SampleEvaluatorTest {
 
     @Test
     void fixedThicknessRescalesABulkSampleThroughItsSurfaces() {
-        // REFERENCE §7 worked example (Smith eq. 10.5 + Beer–Lambert): T(2 mm) = 0.80, n = 1.5
+        // REFERENCE §7 worked example (Modern Optical Engineering eq. 10.5 + Beer–Lambert): T(2 mm) = 0.80, n = 1.5
         // → K(2 mm) = 0.867012 → K(5 mm) = 0.699942 → T(5 mm) = 0.645573
         SampleEvaluation meets = SampleEvaluator.evaluate(sheet(2),
                 require(ThicknessSpec.at(5), ClauseEvaluatorTest.point(Direction.PASS, 405, 0.64)));

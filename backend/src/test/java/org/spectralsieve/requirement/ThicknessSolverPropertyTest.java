@@ -16,7 +16,7 @@ import org.spectralsieve.spectrum.Cutoffs;
 
 /**
  * Random absorption edges (internal transmittance a logistic step at a random wavelength with random
- * steepness, n = 1.5 so R = 0.04, surfaces by Smith eq. 10.5) with random requirements. The solver's
+ * steepness, n = 1.5 so R = 0.04, surfaces by Modern Optical Engineering eq. 10.5) with random requirements. The solver's
  * answers are re-checked by a plain loop written here, independent of the evaluator, on
  * {@link ThicknessRescaler#rescale} of the curve — the thickness conversion of REFERENCE §7.
  */

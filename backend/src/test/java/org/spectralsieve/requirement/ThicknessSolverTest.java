@@ -12,9 +12,9 @@ import org.spectralsieve.spectrum.Curve;
 
 /**
  * Thickness as a design variable, worked by hand. Formulas: slab T = (1 − R)²K / (1 − R²K²) and its
- * inverse (W. J. Smith, Modern Optical Engineering, 4th ed., eq. 10.5; inversion REFERENCE §7);
- * Beer–Lambert scaling of internal transmittance τi(d2) = τi(d1)^(d2/d1) (Smith eqs. 10.2–10.3).
- * n = 1.5 gives R = 0.04 per surface (Smith eq. 10.1); n = 1 gives R = 0, so T = K and the arithmetic
+ * inverse (Modern Optical Engineering, 4th ed., eq. 10.5; inversion REFERENCE §7);
+ * Beer–Lambert scaling of internal transmittance τi(d2) = τi(d1)^(d2/d1) (Modern Optical Engineering eqs. 10.2–10.3).
+ * n = 1.5 gives R = 0.04 per surface (Modern Optical Engineering eq. 10.1); n = 1 gives R = 0, so T = K and the arithmetic
  * is plain Beer–Lambert.
  */
 class ThicknessSolverTest {

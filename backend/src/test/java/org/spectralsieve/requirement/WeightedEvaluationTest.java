@@ -22,7 +22,7 @@ class WeightedEvaluationTest {
 
     private static final SpectrumLookup SPECTRA = SpectrumLookup.builtIn();
     private static final ConstantIndex N15 = new ConstantIndex(1.5);
-    /** Single-surface reflectance at normal incidence, ((n − 1)/(n + 1))² (Fresnel; Smith, Modern Optical Engineering eq. 10.4). */
+    /** Single-surface reflectance at normal incidence, ((n − 1)/(n + 1))² (Fresnel; Modern Optical Engineering eq. 10.4). */
     private static final double R15 = 0.04;
 
     /** T constant from 190 to 1100 nm on a 1 nm grid, detection limit 0. */
@@ -179,7 +179,7 @@ class WeightedEvaluationTest {
 
     // ---- thickness as a design variable ----
 
-    /** K from a slab's T: positive root of R²T·K² + (1 − R)²K − T = 0 (Smith eq. 10.5 solved for K; REFERENCE §7). */
+    /** K from a slab's T: positive root of R²T·K² + (1 − R)²K − T = 0 (Modern Optical Engineering eq. 10.5 solved for K; REFERENCE §7). */
     private static double internal(double t, double r) {
         double a = r * r * t;
         double b = (1 - r) * (1 - r);
@@ -242,7 +242,7 @@ class WeightedEvaluationTest {
 
     @Test
     void aBulkLayerIsRescaledToTheAskedThicknessBeforeItJoinsThePath() {
-        // the layer's own 4 mm curve at 0.70; asked at 8 mm it becomes slab(K0², R) (Beer–Lambert, Smith eq. 10.5)
+        // the layer's own 4 mm curve at 0.70; asked at 8 mm it becomes slab(K0², R) (Beer–Lambert, Modern Optical Engineering eq. 10.5)
         double k0 = internal(0.70, R15);
         double k8 = k0 * k0;
         double layerAt8 = (1 - R15) * (1 - R15) * k8 / (1 - R15 * R15 * k8 * k8);
@@ -250,7 +250,7 @@ class WeightedEvaluationTest {
         assertThat(layer.rescaled()).isTrue();
         assertThat(layer.curve().transmittanceAt(500).getAsDouble()).isCloseTo(layerAt8, within(1e-12));
         // with a clear plate behind it: T1·T2 / (1 − R1·R2), each R the slab's total reflectance
-        // R_slab = R + (1 − R)²R·K² / (1 − R²K²) (Smith eq. 10.5)
+        // R_slab = R + (1 − R)²R·K² / (1 − R²K²) (Modern Optical Engineering eq. 10.5)
         double plate = (1 - R15) / (1 + R15);
         double rPlate = 1 - plate;
         double rLayer = R15 + (1 - R15) * (1 - R15) * R15 * k8 * k8 / (1 - R15 * R15 * k8 * k8);

@@ -70,7 +70,7 @@ class DemoCurvePracticeTest {
 
     @Test
     void standardAcrylicClosesItsUvbWindowWithThickness() {
-        // Beer–Lambert (Smith eq. 10.2): the few % that 3 mm passes at 313 nm must shrink steeply with
+        // Beer–Lambert (Modern Optical Engineering eq. 10.2): the few % that 3 mm passes at 313 nm must shrink steeply with
         // thickness; [S25] "thickness-dependent" transmission below 395 nm
         assertThat(t("cast-acrylic-clear", 6, 313)).isLessThan(t("cast-acrylic-clear", 3, 313) / 4);
     }
@@ -183,7 +183,7 @@ class DemoCurvePracticeTest {
     @ParameterizedTest(name = "{0}")
     @MethodSource("allSamples")
     void noRegularSampleExceedsTheLosslessSlabCeiling(String label, MaterialSpec m, SampleSpec s) {
-        // W. J. Smith, Modern Optical Engineering, eq. 10.6: a non-absorbing plate transmits at most 2n/(n²+1)
+        // Modern Optical Engineering, eq. 10.6: a non-absorbing plate transmits at most 2n/(n²+1)
         if (s.geometry() != Geometry.REGULAR) {
             return;
         }
@@ -225,7 +225,7 @@ class DemoCurvePracticeTest {
 
     @Test
     void bulkCurvesRescaleIntoEachOtherThroughTheOpticsCore() {
-        // Beer–Lambert with surface-loss correction (Smith eqs. 10.2–10.5; REFERENCE.md §7 worked example):
+        // Beer–Lambert with surface-loss correction (Modern Optical Engineering eqs. 10.2–10.5; REFERENCE.md §7 worked example):
         // the 3 mm acrylic curve rescaled to 6 mm must reproduce the modelled 6 mm curve wherever both are
         // well above the floor (six-digit rounding of the files allows 1e-5)
         MaterialSpec acrylic = BY_SLUG.get("cast-acrylic-clear");

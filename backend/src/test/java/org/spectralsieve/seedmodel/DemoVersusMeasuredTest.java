@@ -30,7 +30,7 @@ import org.spectralsieve.weighting.LuminousTransmittance;
  * <p>Definitions (the same as SOURCES.md's table): the 50 % point is the first rising crossing of 50 % from
  * the short-wavelength side, linear in T between grid points; the 1 %→50 % width walks from the 50 % point
  * toward shorter wavelengths to the first crossing of 1 %. A demo curve cannot pass more than its index's
- * lossless slab, 2n/(n²+1) (W. J. Smith, Modern Optical Engineering, eq. 10.6); where a measured file reads
+ * lossless slab, 2n/(n²+1) (Modern Optical Engineering, eq. 10.6); where a measured file reads
  * above that ceiling, the comparison uses the ceiling.
  */
 class DemoVersusMeasuredTest {

@@ -19,8 +19,8 @@ class SampleModellerTest {
 
     @ParameterizedTest(name = "K = {0} gives T = {1}")
     @CsvSource({"1.0, 0.923077", "0.9, 0.830516", "0.5, 0.460984", "0.1, 0.092161"})
-    void slabWithFourPercentSurfacesMatchesSmithEquationTenPointFive(double k, double expected) {
-        // REFERENCE.md §7 table (Smith, Modern Optical Engineering eq. 10.5): n = 1.5 → R = 0.04
+    void slabWithFourPercentSurfacesMatchesTheHandbookSlabEquation(double k, double expected) {
+        // REFERENCE.md §7 table (Modern Optical Engineering eq. 10.5): n = 1.5 → R = 0.04
         SampleSpec sample = oneMillimetre(new FlatBackground(-Math.log(k)));
         double t = SampleModeller.externalTransmittance(new IndexSpec.Constant(1.5), sample, 500);
         assertThat(t).isCloseTo(expected, within(1e-6));
@@ -54,7 +54,7 @@ class SampleModellerTest {
 
     @Test
     void doublingThicknessDoublesTheInternalAbsorbance() {
-        // Beer–Lambert, Smith eqs. 10.2–10.3: K(2d) = K(d)²
+        // Beer–Lambert, Modern Optical Engineering eqs. 10.2–10.3: K(2d) = K(d)²
         Absorption a = Absorption.of(new GaussianBand(450, 1.2, 80));
         assertThat(a.internalTransmittance(450, 6)).isCloseTo(Math.pow(a.internalTransmittance(450, 3), 2), within(1e-15));
     }

@@ -48,7 +48,7 @@ class CurveTest {
 
     @Test
     void midpointBetweenTenPercentAndOneTenthPercentIsOnePercentInAbsorbance() {
-        // Beer–Lambert: absorbance linear in path/concentration (Smith, Modern Optical Engineering,
+        // Beer–Lambert: absorbance linear in path/concentration (Modern Optical Engineering,
         // eqs. 10.2–10.3), so A = 1 and A = 3 average to A = 2, T = 0.01 (a linear average would give 0.0505)
         Curve curve = Curve.of(new double[] {400, 410}, new double[] {0.1, 0.001}, 0);
         assertThat(curve.transmittanceAt(405).orElseThrow()).isCloseTo(0.01, within(1e-12));

@@ -24,7 +24,7 @@ import org.spectralsieve.spectrum.Curve;
 /**
  * The store's proof of a miss must hold for the exact evaluator: on the stored curve itself (measured on
  * other wavelengths than the store's grid, with detection floors), and for a pass, in any stack with a
- * further part (a part can only lower T: T₁T₂/(1 − R₁R₂) ≤ T₁ when T₂ + R₂ ≤ 1, Smith eq. 10.5 for two
+ * further part (a part can only lower T: T₁T₂/(1 − R₁R₂) ≤ T₁ when T₂ + R₂ ≤ 1, Modern Optical Engineering eq. 10.5 for two
  * elements). Curves: the synthetic absorption edges and dye bands of {@link SyntheticCurves}.
  */
 class MissScreenTest {

@@ -92,7 +92,7 @@ class StoreSearchTest {
     @Test
     void solvesTheThicknessThatBlocksUnderOnePercent() {
         // Internal transmittance 0.5 at 2 mm, R = 0.04 (n = 1.5): T(2 mm) = (1-R)^2 K / (1 - R^2 K^2) = 0.460984
-        // (Smith, Modern Optical Engineering, eq. 10.5). Exact: K* = 0.010851 for T = 0.01, so
+        // (Modern Optical Engineering, eq. 10.5). Exact: K* = 0.010851 for T = 0.01, so
         // d = 2 mm x ln K* / ln 0.5 = 13.05 mm. The store drops the multiple-reflection term, which moves
         // the answer by about 0.01 mm here.
         double t0 = Slab.transmittance(0.5, 0.04);
@@ -133,7 +133,7 @@ class StoreSearchTest {
 
     @Test
     void aClearReadingKeepsItsValueNearItsThicknessAndIsOnlyABoundFarBeyondItAsInTheExactModel() {
-        // T = 0.95 on n = 1.5 (ceiling 2n/(n² + 1) = 0.9231, Smith eq. 10.6): no absorption the data can show,
+        // T = 0.95 on n = 1.5 (ceiling 2n/(n² + 1) = 0.9231, Modern Optical Engineering eq. 10.6): no absorption the data can show,
         // so the store keeps the reading (SlabReading) and, like the exact evaluator, calls a pass proven only
         // up to the far thickness, where the hidden absorption reaches 0.01 decades
         Curve clear = flat(0.95);
