@@ -65,6 +65,7 @@ public final class FileImport {
         List<String> warnings = new ArrayList<>();
         String text = decodeText(fileName, bytes, warnings);
         ImportFormat format = options.format().orElseGet(() -> detect(fileName, text));
+        CurveShapeCheck.refuseNonTransmittance(fileName, text, format, options);
         try {
             return switch (format) {
                 case JCAMP_DX -> fromSpectrum(format, bytes, jcamp(fileName, text, options), options, warnings);
