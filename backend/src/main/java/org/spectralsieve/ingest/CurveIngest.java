@@ -1,6 +1,8 @@
 package org.spectralsieve.ingest;
 
+import java.util.ArrayList;
 import java.util.Arrays;
+import java.util.List;
 import org.spectralsieve.importers.ParsedSpectrum;
 import org.spectralsieve.spectrum.Curve;
 import org.spectralsieve.spectrum.CurveException;
@@ -15,9 +17,20 @@ public final class CurveIngest {
     }
 
     /**
-     * @throws IngestException naming the file when the values cannot form a curve (e.g. T above 1.5)
+     * As {@link #toCurve(ParsedSpectrum, double, List)}, the warnings about out-of-range readings discarded
+     * (for callers that load files the project ships, which have none).
      */
     public static Curve toCurve(ParsedSpectrum parsed, double detectionLimit) {
+        return toCurve(parsed, detectionLimit, new ArrayList<>());
+    }
+
+    /**
+     * Readings below 0 or above 1 are kept and flagged as {@link OutOfRangeReadings} says, with a warning
+     * added to {@code warnings}.
+     *
+     * @throws IngestException naming the file when the values cannot form a curve (e.g. T far below 0)
+     */
+    public static Curve toCurve(ParsedSpectrum parsed, double detectionLimit, List<String> warnings) {
         if (!(detectionLimit >= 0 && detectionLimit < 1)) {
             throw new IngestException(parsed.sourceName(), "detection_limit",
                     "detection limit must be a fraction in [0, 1), got " + detectionLimit);
@@ -29,6 +42,7 @@ public final class CurveIngest {
         }
         double[] limits = new double[t.length];
         Arrays.fill(limits, detectionLimit);
+        OutOfRangeReadings.settle(parsed.sourceName(), parsed.wavelengthsNm(), t, below, limits, warnings);
         try {
             return Curve.of(parsed.wavelengthsNm(), t, below, limits);
         } catch (CurveException e) {

@@ -58,7 +58,7 @@ public final class FileImport {
 
     /**
      * @throws ImportException naming file, line and field when the file cannot be read
-     * @throws IngestException when it reads but cannot form a curve (e.g. T above 1.5)
+     * @throws IngestException when it reads but cannot form a curve (e.g. T far below 0)
      * @throws ImportLimitException when the curve has more points than allowed
      */
     public FilePreview read(String fileName, byte[] bytes, ImportOptions options) throws ImportException {
@@ -178,9 +178,9 @@ public final class FileImport {
                                      List<String> warnings) throws ImportException {
         checkPoints(s.sourceName(), s.size());
         double limit = o.detectionLimit().isPresent() ? o.detectionLimit().getAsDouble() : metadataLimit(s);
-        Curve curve = CurveIngest.toCurve(s, limit);
         List<String> all = new ArrayList<>(warnings);
         all.addAll(s.warnings());
+        Curve curve = CurveIngest.toCurve(s, limit, all);
         Provenance provenance = format == ImportFormat.DATASHEET_POINTS ? Provenance.DATASHEET : provenanceFrom(s.metadata());
         return new FilePreview(s.sourceName(), format, s.xUnit(), s.yKind(), curve, limit, provenance, s.metadata(), all,
                 Checksums.sha256(bytes));
@@ -207,14 +207,15 @@ public final class FileImport {
             limits[i] = Math.max(limits[i], floor);
             below[i] = below[i] || t[i] <= limits[i];
         }
+        List<String> all = new ArrayList<>(warnings);
+        all.addAll(s.warnings());
+        OutOfRangeReadings.settle(fileName, s.wavelengthsNm(), t, below, limits, all);
         Curve curve;
         try {
             curve = Curve.of(s.wavelengthsNm(), t, below, limits);
         } catch (CurveException e) {
             throw new IngestException(fileName, "transmittance", e.getMessage());
         }
-        List<String> all = new ArrayList<>(warnings);
-        all.addAll(s.warnings());
         return new FilePreview(fileName, ImportFormat.RAW_COUNTS, s.xUnit(), YKind.TRANSMITTANCE_FRACTION, curve,
                 Arrays.stream(limits).max().orElse(0), Provenance.MEASURED, s.metadata(), all, Checksums.sha256(bytes));
     }

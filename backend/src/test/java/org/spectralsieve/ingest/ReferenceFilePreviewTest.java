@@ -5,6 +5,7 @@ import static org.assertj.core.api.Assertions.within;
 
 import java.nio.file.Files;
 import java.nio.file.Path;
+import java.util.Arrays;
 import java.util.Optional;
 import org.junit.jupiter.api.Test;
 import org.spectralsieve.importers.YKind;
@@ -46,5 +47,19 @@ class ReferenceFilePreviewTest {
         assertThat(p.pointCount()).isEqualTo(501);
         assertThat(p.curve().minWavelengthNm()).isEqualTo(300.0);
         assertThat(p.curve().maxWavelengthNm()).isEqualTo(800.0);
+    }
+
+    @Test
+    void jcampTransmittanceWithNegativeNoiseImportsWholeWithItsNegativePointsAsBelowDetection() throws Exception {
+        Path f = SharedFolder.referenceFile("jcamp-lancashire/xyinc1.jdx");
+
+        FilePreview p = reader.read(f.getFileName().toString(), Files.readAllBytes(f), ImportOptions.defaults());
+
+        // SOURCES.md, xyinc1.jdx: 3601 points, T from -0.0023 (negative) to 0.7945; no point is dropped
+        assertThat(p.pointCount()).isEqualTo(3601);
+        assertThat(p.warnings()).anySatisfy(w -> assertThat(w).contains("readings below 0 %T")
+                .contains("noise around the floor"));
+        double lowestKept = Arrays.stream(p.curve().transmittances()).min().orElseThrow();
+        assertThat(lowestKept).as("every negative reading became a bound, none a negative T").isGreaterThanOrEqualTo(0);
     }
 }
