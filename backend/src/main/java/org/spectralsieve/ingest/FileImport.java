@@ -177,9 +177,15 @@ public final class FileImport {
                                      List<String> warnings) throws ImportException {
         checkPoints(s.sourceName(), s.size());
         double limit = o.detectionLimit().isPresent() ? o.detectionLimit().getAsDouble() : metadataLimit(s);
-        Curve curve = CurveIngest.toCurve(s, limit);
         List<String> all = new ArrayList<>(warnings);
         all.addAll(s.warnings());
+        // a clamped floor is a detection limit the file does not state; a stated limit is never lowered
+        var floor = InstrumentFloor.find(s.wavelengthsNm(), s.transmittanceFractions());
+        if (floor.isPresent() && floor.get().raise(limit) > limit) {
+            limit = floor.get().raise(limit);
+            all.add(floor.get().warning());
+        }
+        Curve curve = CurveIngest.toCurve(s, limit);
         Provenance provenance = format == ImportFormat.DATASHEET_POINTS ? Provenance.DATASHEET : provenanceFrom(s.metadata());
         return new FilePreview(s.sourceName(), format, s.xUnit(), s.yKind(), curve, limit, provenance, s.metadata(), all,
                 Checksums.sha256(bytes));
