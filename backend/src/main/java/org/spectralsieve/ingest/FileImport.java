@@ -180,6 +180,12 @@ public final class FileImport {
         double limit = o.detectionLimit().isPresent() ? o.detectionLimit().getAsDouble() : metadataLimit(s);
         List<String> all = new ArrayList<>(warnings);
         all.addAll(s.warnings());
+        // a clamped floor is a detection limit the file does not state; a stated limit is never lowered
+        var floor = InstrumentFloor.find(s.wavelengthsNm(), s.transmittanceFractions());
+        if (floor.isPresent() && floor.get().raise(limit) > limit) {
+            limit = floor.get().raise(limit);
+            all.add(floor.get().warning());
+        }
         Curve curve = CurveIngest.toCurve(s, limit, all);
         Provenance provenance = format == ImportFormat.DATASHEET_POINTS ? Provenance.DATASHEET : provenanceFrom(s.metadata());
         return new FilePreview(s.sourceName(), format, s.xUnit(), s.yKind(), curve, limit, provenance, s.metadata(), all,
