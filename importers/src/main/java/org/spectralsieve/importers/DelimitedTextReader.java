@@ -110,6 +110,9 @@ public final class DelimitedTextReader {
         private final List<Series> series = new ArrayList<>();
         private final List<String> notes = new ArrayList<>();
         private int[] parsed;
+        /** Set when the header has a wavelength column but no value column; raised after the x check. */
+        private ImportException noValueColumn;
+        private Series xOnly;
 
         Layout(String source, Replicates mode) {
             this.source = source;
@@ -123,6 +126,11 @@ public final class DelimitedTextReader {
                         new ColumnRole(ColumnRole.Kind.Y, null, null, false)));
             } else {
                 fromHeader(header, names);
+            }
+            if (noValueColumn != null) {
+                // read the wavelengths anyway: a broken axis is the more useful thing to report
+                parsed = new int[] {xOnly.x()};
+                return new TextTable.Selection(parsed, names);
             }
             boolean[] used = new boolean[names.size()];
             List<Integer> columns = new ArrayList<>();
@@ -200,8 +208,9 @@ public final class DelimitedTextReader {
                 series.add(0, series(names, roles, firstX, c));
             }
             if (series.isEmpty()) {
-                throw new ImportException(source, header.line(), null, "no value column in header " + names
+                noValueColumn = new ImportException(source, header.line(), null, "no value column in header " + names
                         + "; expected one of " + ColumnRole.Y_EXAMPLES);
+                xOnly = series(names, roles, firstX, firstX);
             }
         }
 
@@ -234,6 +243,10 @@ public final class DelimitedTextReader {
         }
 
         List<ParsedSpectrum> spectra() throws ImportException {
+            if (layout.noValueColumn != null) {
+                refuseTurningAxis(layout.xOnly);
+                throw layout.noValueColumn;
+            }
             if (table.rows() < ParsedSpectrum.MIN_POINTS) {
                 throw new ImportException(source, table.lastLine(), null,
                         "only 1 data row; a curve needs at least " + ParsedSpectrum.MIN_POINTS);
@@ -261,6 +274,24 @@ public final class DelimitedTextReader {
 
         /** One series, in nm, increasing, with its y kind decided. */
         private record Curve(Series series, XOrder.Ordered ordered, YKind kind, List<String> notes) {
+        }
+
+        /** Refuses a wavelength column that changes direction, naming the first line where it turns. */
+        private void refuseTurningAxis(Series s) throws ImportException {
+            double[] raw = table.column(layout.parsedIndex(s.x()));
+            int[] lines = table.lines();
+            int direction = 0;
+            for (int i = 1; i < raw.length; i++) {
+                double before = s.unit().toNanometres(raw[i - 1]);
+                double after = s.unit().toNanometres(raw[i]);
+                int step = Double.compare(after, before);
+                if (step != 0 && direction != 0 && step != direction) {
+                    throw new ImportException(source, lines[i], s.xName(), "the wavelength column goes "
+                            + (step < 0 ? "back" : "up again") + " from " + before + " nm to " + after
+                            + " nm at line " + lines[i] + "; a curve needs its wavelengths in one direction");
+                }
+                direction = step != 0 ? step : direction;
+            }
         }
 
         private Curve curve(Series s) throws ImportException {
