@@ -36,8 +36,9 @@ import org.spectralsieve.spectrum.CurveException;
  * or a header naming a {@code dark} or {@code reference} column is raw counts, {@code # axis:} or
  * {@code # provenance: datasheet} is datasheet points; otherwise delimited text.
  *
- * <p>Text is read as strict UTF-8, falling back to Latin-1 with a warning (older instrument software
- * writes Latin-1 µ and °). A file holding a NUL byte is refused as binary.
+ * <p>Text is read as UTF-16 when it starts with a UTF-16 byte-order mark (LE or BE; some instrument
+ * software saves "Unicode" text that way), otherwise as strict UTF-8, falling back to Latin-1 with a
+ * warning (older instrument software writes Latin-1 µ and °). A file holding a NUL byte is refused as binary.
  */
 public final class FileImport {
 
@@ -140,6 +141,13 @@ public final class FileImport {
         if (bytes.length == 0) {
             throw ImportException.ofSource(fileName, "the file is empty");
         }
+        // a byte-order mark is the only safe sign of UTF-16: without it, its NUL bytes look binary
+        if (bytes.length >= 2 && (bytes[0] & 0xFF) == 0xFF && (bytes[1] & 0xFF) == 0xFE) {
+            return utf16(fileName, bytes, StandardCharsets.UTF_16LE);
+        }
+        if (bytes.length >= 2 && (bytes[0] & 0xFF) == 0xFE && (bytes[1] & 0xFF) == 0xFF) {
+            return utf16(fileName, bytes, StandardCharsets.UTF_16BE);
+        }
         for (int i = 0; i < bytes.length; i++) {
             if (bytes[i] == 0) {
                 throw ImportException.ofSource(fileName, "not a text file (a NUL byte at offset " + i
@@ -152,6 +160,22 @@ public final class FileImport {
         } catch (CharacterCodingException e) {
             warnings.add("not valid UTF-8; read as Latin-1 (ISO 8859-1)");
             return new String(bytes, StandardCharsets.ISO_8859_1);
+        }
+    }
+
+    private static String utf16(String fileName, byte[] bytes, java.nio.charset.Charset charset)
+            throws ImportException {
+        try {
+            String text = charset.newDecoder().onMalformedInput(CodingErrorAction.REPORT)
+                    .onUnmappableCharacter(CodingErrorAction.REPORT)
+                    .decode(ByteBuffer.wrap(bytes, 2, bytes.length - 2)).toString();
+            if (text.isEmpty()) {
+                throw ImportException.ofSource(fileName, "the file is empty");
+            }
+            return text;
+        } catch (CharacterCodingException e) {
+            throw ImportException.ofSource(fileName, "starts with a " + charset.name()
+                    + " byte-order mark but is not valid " + charset.name());
         }
     }
 
