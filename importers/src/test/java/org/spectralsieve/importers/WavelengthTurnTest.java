@@ -4,7 +4,10 @@ import static org.assertj.core.api.Assertions.catchThrowableOfType;
 import static org.assertj.core.api.Assertions.assertThat;
 
 import java.io.StringReader;
+import java.nio.file.Path;
 import org.junit.jupiter.api.Test;
+import org.spectralsieve.testsupport.ReadsSharedFolder;
+import org.spectralsieve.testsupport.SharedFolder;
 
 /**
  * A wavelength axis that changes direction (a bad calibration fit can fold a pixel-to-wavelength map
@@ -59,5 +62,21 @@ class WavelengthTurnTest {
                 () -> new DelimitedTextReader().read("flat.csv", new StringReader(text)));
 
         assertThat(e.problem()).contains("no value column");
+    }
+
+    @Test
+    @ReadsSharedFolder
+    void theRealCaptureWithABadCalibrationIsReportedAsTurningNotAsLackingAValueColumn() {
+        // resolved outside the lambda: a skip thrown inside it would be caught as the wrong exception
+        Path badCalibration = SharedFolder.referenceFile("diy-spectrometer/Spectrum-20260309--010902.csv");
+
+        ImportException e = catchThrowableOfType(ImportException.class,
+                () -> new DelimitedTextReader().read(badCalibration, ReadOptions.defaults()));
+
+        // SOURCES.md §9: a non-monotonic axis from a bad calibration fit; the file first turns at line 27
+        // (351.614689 after 351.612659), as ReferenceFilesTest finds through the raw-counts reader
+        assertThat(e.line()).isEqualTo(27);
+        assertThat(e.problem()).contains("goes up again from 351.612659 nm to 351.614689 nm at line 27")
+                .doesNotContain("no value column");
     }
 }
