@@ -50,6 +50,18 @@ class ReferenceFilePreviewTest {
     }
 
     @Test
+    void jcampTimeSeriesPreviewWarnsThatFourOfItsFiveSpectraAreLeftOut() throws Exception {
+        Path f = SharedFolder.referenceFile("jcamp-lancashire/blckpac1.jdx");
+
+        FilePreview p = reader.read(f.getFileName().toString(), Files.readAllBytes(f), ImportOptions.defaults());
+
+        // SOURCES.md §1 blckpac1: five blocks of a time series, 176 points each; the first is read
+        assertThat(p.pointCount()).isEqualTo(176);
+        assertThat(p.warnings()).anySatisfy(w -> assertThat(w).contains("5 spectra", "Imported block 1 only",
+                "the other 4 were left out"));
+    }
+
+    @Test
     void jcampTransmittanceWithNegativeNoiseImportsWholeWithItsNegativePointsAsBelowDetection() throws Exception {
         Path f = SharedFolder.referenceFile("jcamp-lancashire/xyinc1.jdx");
 

@@ -61,7 +61,32 @@ public final class JcampReader {
 
     public ParsedSpectrum read(String sourceName, Reader in, JcampOptions options) throws ImportException {
         List<JcampBlock> blocks = blocks(sourceName, in);
-        return new SpectrumBuilder(sourceName, pick(sourceName, blocks, options), options.read()).build();
+        JcampBlock chosen = pick(sourceName, blocks, options);
+        return new SpectrumBuilder(sourceName, chosen, options.read(), leftOut(blocks, chosen)).build();
+    }
+
+    /**
+     * One warning when the file holds more spectra than the one read, listing each block with data (its
+     * index as the block option takes it, title, points and x range in the file's units), so that a
+     * time series or a compound file is never cut to its first spectrum without a word.
+     */
+    static List<String> leftOut(List<JcampBlock> blocks, JcampBlock chosen) {
+        List<JcampBlock> withData = blocks.stream().filter(JcampBlock::hasData).toList();
+        if (withData.size() < 2) {
+            return List.of();
+        }
+        StringBuilder w = new StringBuilder("the file holds " + withData.size() + " spectra: ");
+        for (int i = 0; i < withData.size(); i++) {
+            JcampBlock b = withData.get(i);
+            double[] x = b.x();
+            w.append(i == 0 ? "" : "; ").append("block ").append(b.index()).append(" '").append(b.title())
+                    .append("' (").append(x.length).append(" points, x ")
+                    .append(x.length == 0 ? "none" : x[0] + "–" + x[x.length - 1])
+                    .append(b.label(Labels.XUNITS).map(u -> " " + u).orElse("")).append(')');
+        }
+        w.append(". Imported block ").append(chosen.index()).append(" only; the other ").append(withData.size() - 1)
+                .append(withData.size() == 2 ? " was" : " were").append(" left out (choose one with the block option)");
+        return List.of(w.toString());
     }
 
     /**
@@ -75,7 +100,8 @@ public final class JcampReader {
         List<JcampBlock> blocks = blocks(sourceName, in);
         JcampOptions choice = options.jcampBlock().isPresent()
                 ? JcampOptions.defaults().withBlock(options.jcampBlock().getAsInt()) : JcampOptions.defaults();
-        return new SpectrumBuilder(sourceName, pick(sourceName, blocks, choice), choice.read()).buildValues(options);
+        JcampBlock chosen = pick(sourceName, blocks, choice);
+        return new SpectrumBuilder(sourceName, chosen, choice.read(), leftOut(blocks, chosen)).buildValues(options);
     }
 
     /** Every block of the file in order (for LINK files), each decoded and checked against its header. */
@@ -158,10 +184,11 @@ public final class JcampReader {
         private final ReadOptions options;
         private final List<String> warnings = new ArrayList<>();
 
-        SpectrumBuilder(String source, JcampBlock block, ReadOptions options) {
+        SpectrumBuilder(String source, JcampBlock block, ReadOptions options, List<String> fileWarnings) {
             this.source = source;
             this.block = block;
             this.options = options;
+            this.warnings.addAll(fileWarnings);
         }
 
         ParsedSpectrum build() throws ImportException {
