@@ -46,6 +46,13 @@ final class SourceFileDownload {
     /** The charset to label a text file with; empty for a binary one. */
     static Optional<Charset> textCharset(MediaType stored, byte[] bytes) {
         boolean text = stored.getType().equals("text") || stored.isCompatibleWith(MediaType.parseMediaType(JCAMP));
+        // a UTF-16 file is read by its byte-order mark (FileImport.decodeText), so it is labelled by it too
+        if (text && bytes.length >= 2 && (bytes[0] & 0xFF) == 0xFF && (bytes[1] & 0xFF) == 0xFE) {
+            return Optional.of(StandardCharsets.UTF_16LE);
+        }
+        if (text && bytes.length >= 2 && (bytes[0] & 0xFF) == 0xFE && (bytes[1] & 0xFF) == 0xFF) {
+            return Optional.of(StandardCharsets.UTF_16BE);
+        }
         if (!text || containsNul(bytes)) {
             return Optional.empty();
         }

@@ -85,7 +85,7 @@ public final class JcampReader {
                     .append(b.label(Labels.XUNITS).map(u -> " " + u).orElse("")).append(')');
         }
         w.append(". Imported block ").append(chosen.index()).append(" only; the other ").append(withData.size() - 1)
-                .append(withData.size() == 2 ? " was" : " were").append(" left out (choose one with the block option)");
+                .append(withData.size() == 2 ? " was" : " were").append(" left out (an emitter or response import takes a block option; a curve import reads the first block for now)");
         return List.of(w.toString());
     }
 
