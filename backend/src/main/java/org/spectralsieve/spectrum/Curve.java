@@ -11,6 +11,12 @@ import java.util.OptionalDouble;
  * because transmittance of an absorbing sample varies exponentially with concentration and thickness, so
  * straight lines in −log10 T stay closer to the truth than straight lines in T across an absorption edge.
  * Nothing is ever extrapolated beyond the measured range.
+ *
+ * <p>A curve may also carry a measurement uncertainty per point: one standard deviation in decadic
+ * absorbance ({@link #absorbanceUncertainty(int)}). Absorbance is the scale on which a measurement's error
+ * is closest to symmetric and on which Beer–Lambert rescaling is linear, so the uncertainty scales with the
+ * thickness just as the internal absorbance does. NaN at a point means "not known there"; a curve built
+ * without uncertainties answers NaN everywhere.
  */
 public final class Curve {
 
@@ -24,13 +30,16 @@ public final class Curve {
     private final double[] transmittance;
     private final boolean[] belowDetection;
     private final double[] detectionLimits;
+    /** One standard deviation in absorbance per point, NaN where unknown; null when none is known at all. */
+    private final double[] absorbanceSigma;
 
     private Curve(double[] wavelengthsNm, double[] transmittance, boolean[] belowDetection,
-            double[] detectionLimits) {
+            double[] detectionLimits, double[] absorbanceSigma) {
         this.wavelengthsNm = wavelengthsNm;
         this.transmittance = transmittance;
         this.belowDetection = belowDetection;
         this.detectionLimits = detectionLimits;
+        this.absorbanceSigma = absorbanceSigma;
     }
 
     /** Copies the arrays; all four must have the same length, at least 2. */
@@ -51,7 +60,35 @@ public final class Curve {
             validatePoint(i, wavelengthsNm, transmittance[i], detectionLimits[i]);
         }
         return new Curve(wavelengthsNm.clone(), transmittance.clone(), belowDetection.clone(),
-                detectionLimits.clone());
+                detectionLimits.clone(), null);
+    }
+
+    /**
+     * This curve with a measurement uncertainty per point: one standard deviation in decadic absorbance,
+     * finite and &ge; 0, or NaN where it is not known. An array of only NaN is the same as none.
+     */
+    public Curve withAbsorbanceUncertainty(double[] sigma) {
+        requireNonNull("absorbance uncertainty", sigma);
+        requireSameLength("absorbance uncertainty", sigma.length, size());
+        boolean any = false;
+        for (int i = 0; i < sigma.length; i++) {
+            double s = sigma[i];
+            if (Double.isNaN(s)) {
+                continue;
+            }
+            if (!Double.isFinite(s) || s < 0) {
+                throw new CurveException("absorbance uncertainty at index " + i + " (" + wavelengthsNm[i] + " nm) is "
+                        + s + ", must be a finite standard deviation >= 0 or NaN (unknown)");
+            }
+            any = true;
+        }
+        return new Curve(wavelengthsNm, transmittance, belowDetection, detectionLimits, any ? sigma.clone() : null);
+    }
+
+    /** This curve without any uncertainty. */
+    public Curve withoutUncertainty() {
+        return absorbanceSigma == null ? this
+                : new Curve(wavelengthsNm, transmittance, belowDetection, detectionLimits, null);
     }
 
     /** One detection limit for all points; a point is below detection when T <= detectionLimit. */
@@ -128,6 +165,47 @@ public final class Curve {
 
     public double detectionLimit(int i) {
         return detectionLimits[i];
+    }
+
+    /** True when at least one point has a known uncertainty. */
+    public boolean hasUncertainty() {
+        return absorbanceSigma != null;
+    }
+
+    /** One standard deviation in absorbance at point i; NaN when not known. */
+    public double absorbanceUncertainty(int i) {
+        return absorbanceSigma == null ? Double.NaN : absorbanceSigma[i];
+    }
+
+    /** All points' absorbance uncertainties (NaN where unknown); a fresh array. */
+    public double[] absorbanceUncertainties() {
+        if (absorbanceSigma == null) {
+            double[] unknown = new double[size()];
+            Arrays.fill(unknown, Double.NaN);
+            return unknown;
+        }
+        return absorbanceSigma.clone();
+    }
+
+    /**
+     * The absorbance uncertainty at {@code nm}, interpolated linearly between neighbours (a straight-line
+     * blend of two points' errors, the same weights the absorbance itself gets); empty outside the range or
+     * where either neighbour's uncertainty is unknown.
+     */
+    public OptionalDouble absorbanceUncertaintyAt(double nm) {
+        if (absorbanceSigma == null || !covers(nm)) {
+            return OptionalDouble.empty();
+        }
+        int hit = Arrays.binarySearch(wavelengthsNm, nm);
+        double s;
+        if (hit >= 0) {
+            s = absorbanceSigma[hit];
+        } else {
+            int upper = -hit - 1;
+            double f = fraction(nm, upper - 1, upper);
+            s = absorbanceSigma[upper - 1] * (1 - f) + absorbanceSigma[upper] * f;
+        }
+        return Double.isNaN(s) ? OptionalDouble.empty() : OptionalDouble.of(s);
     }
 
     public double[] wavelengthsNm() {
@@ -256,6 +334,7 @@ public final class Curve {
         double[] t = new double[n];
         boolean[] below = new boolean[n];
         double[] limits = new double[n];
+        double[] sigma = absorbanceSigma == null ? null : new double[n];
         for (int i = 0; i < n; i++) {
             // what transmittanceAt, belowDetectionAt and detectionLimitAt give, from one search
             int hit = Arrays.binarySearch(wavelengthsNm, nm[i]);
@@ -263,6 +342,9 @@ public final class Curve {
                 t[i] = transmittance[hit];
                 below[i] = belowDetection[hit];
                 limits[i] = detectionLimits[hit];
+                if (sigma != null) {
+                    sigma[i] = absorbanceSigma[hit];
+                }
             } else {
                 int upper = -hit - 1;
                 int lower = upper - 1;
@@ -270,9 +352,12 @@ public final class Curve {
                 t[i] = interpolated(lower, upper, f);
                 below[i] = belowDetection[lower] || belowDetection[upper];
                 limits[i] = detectionLimits[lower] * (1 - f) + detectionLimits[upper] * f;
+                if (sigma != null) {
+                    sigma[i] = absorbanceSigma[lower] * (1 - f) + absorbanceSigma[upper] * f;
+                }
             }
         }
-        return new Curve(nm, t, below, limits);
+        return new Curve(nm, t, below, limits, sigma);
     }
 
     private double fraction(double nm, int lower, int upper) {
@@ -294,7 +379,8 @@ public final class Curve {
                 && Arrays.equals(wavelengthsNm, other.wavelengthsNm)
                 && Arrays.equals(transmittance, other.transmittance)
                 && Arrays.equals(belowDetection, other.belowDetection)
-                && Arrays.equals(detectionLimits, other.detectionLimits);
+                && Arrays.equals(detectionLimits, other.detectionLimits)
+                && Arrays.equals(absorbanceSigma, other.absorbanceSigma);
     }
 
     @Override
@@ -302,7 +388,8 @@ public final class Curve {
         int h = Arrays.hashCode(wavelengthsNm);
         h = 31 * h + Arrays.hashCode(transmittance);
         h = 31 * h + Arrays.hashCode(belowDetection);
-        return 31 * h + Arrays.hashCode(detectionLimits);
+        h = 31 * h + Arrays.hashCode(detectionLimits);
+        return 31 * h + Arrays.hashCode(absorbanceSigma);
     }
 
     @Override

@@ -35,6 +35,10 @@ public final class StatedCurve {
                 changed = true;
             }
         }
-        return changed ? Curve.of(curve.wavelengthsNm(), t, below, limits) : curve;
+        if (!changed) {
+            return curve;
+        }
+        Curve stated = Curve.of(curve.wavelengthsNm(), t, below, limits);
+        return curve.hasUncertainty() ? stated.withAbsorbanceUncertainty(curve.absorbanceUncertainties()) : stated;
     }
 }
