@@ -39,6 +39,10 @@ import org.spectralsieve.spectrum.CurveException;
  * <p>Text is read as UTF-16 when it starts with a UTF-16 byte-order mark (LE or BE; some instrument
  * software saves "Unicode" text that way), otherwise as strict UTF-8, falling back to Latin-1 with a
  * warning (older instrument software writes Latin-1 µ and °). A file holding a NUL byte is refused as binary.
+ *
+ * <p>The curve holds the part of the file's axis that {@link KeptRange} chooses: the {@code from}/{@code to}
+ * options, else the whole axis without a {@link NoiseRegion} at either end; every point left out is counted
+ * in a warning, and the stored original file stays whole.
  */
 public final class FileImport {
 
@@ -204,6 +208,11 @@ public final class FileImport {
         double limit = o.detectionLimit().isPresent() ? o.detectionLimit().getAsDouble() : metadataLimit(s);
         List<String> all = new ArrayList<>(warnings);
         all.addAll(s.warnings());
+        // noise is judged on the file's whole axis as read, before any limit or flag changes a value
+        double[] axis = s.wavelengthsNm();
+        KeptRange kept = KeptRange.choose(axis, NoiseRegion.find(axis, s.transmittanceFractions()), o);
+        all.addAll(kept.warnings(axis));
+        s = kept.isWhole() ? s : s.slice(kept.firstIndex(), kept.lastIndex() + 1);
         // a clamped floor is a detection limit the file does not state; a stated limit is never lowered
         var floor = InstrumentFloor.find(s.wavelengthsNm(), s.transmittanceFractions());
         if (floor.isPresent() && floor.get().raise(limit) > limit) {
@@ -211,9 +220,10 @@ public final class FileImport {
             all.add(floor.get().warning());
         }
         Curve curve = CurveIngest.toCurve(s, limit, all);
+        InfraredOnly.warning(curve).ifPresent(all::add);
         Provenance provenance = format == ImportFormat.DATASHEET_POINTS ? Provenance.DATASHEET : provenanceFrom(s.metadata());
         return new FilePreview(s.sourceName(), format, s.xUnit(), s.yKind(), curve, limit, provenance, s.metadata(), all,
-                Checksums.sha256(bytes));
+                Checksums.sha256(bytes), kept);
     }
 
     private FilePreview rawCounts(String fileName, byte[] bytes, String text, ImportOptions o, List<String> warnings)
@@ -228,9 +238,15 @@ public final class FileImport {
         RawCountsResult result = new RawCountsReader().read(fileName, new StringReader(text)).transmittance(options);
         ParsedSpectrum s = result.spectrum();
         checkPoints(fileName, s.size());
-        double[] t = s.transmittanceFractions();
-        boolean[] below = s.upperBounds();
-        double[] limits = result.detectionLimits();
+        // raw counts are not searched for noise regions: their per-point 3σ limit already bounds low signal
+        double[] axis = s.wavelengthsNm();
+        KeptRange kept = KeptRange.choose(axis, List.of(), o);
+        int from = kept.firstIndex();
+        int to = kept.lastIndex() + 1;
+        double[] nm = Arrays.copyOfRange(axis, from, to);
+        double[] t = Arrays.copyOfRange(s.transmittanceFractions(), from, to);
+        boolean[] below = Arrays.copyOfRange(s.upperBounds(), from, to);
+        double[] limits = Arrays.copyOfRange(result.detectionLimits(), from, to);
         double floor = o.detectionLimit().orElse(0);
         for (int i = 0; i < t.length; i++) {
             // a limit set by the user can only raise the computed one: the 3σ limit is what the data supports
@@ -239,15 +255,18 @@ public final class FileImport {
         }
         List<String> all = new ArrayList<>(warnings);
         all.addAll(s.warnings());
-        OutOfRangeReadings.settle(fileName, s.wavelengthsNm(), t, below, limits, all);
+        all.addAll(kept.warnings(axis));
+        OutOfRangeReadings.settle(fileName, nm, t, below, limits, all);
         Curve curve;
         try {
-            curve = Curve.of(s.wavelengthsNm(), t, below, limits);
+            curve = Curve.of(nm, t, below, limits);
         } catch (CurveException e) {
             throw new IngestException(fileName, "transmittance", e.getMessage());
         }
+        InfraredOnly.warning(curve).ifPresent(all::add);
         return new FilePreview(fileName, ImportFormat.RAW_COUNTS, s.xUnit(), YKind.TRANSMITTANCE_FRACTION, curve,
-                Arrays.stream(limits).max().orElse(0), Provenance.MEASURED, s.metadata(), all, Checksums.sha256(bytes));
+                Arrays.stream(limits).max().orElse(0), Provenance.MEASURED, s.metadata(), all, Checksums.sha256(bytes),
+                kept);
     }
 
     private void checkPoints(String fileName, int points) {

@@ -144,6 +144,22 @@ public final class ParsedSpectrum {
         return values.length;
     }
 
+    /**
+     * The points {@code from} (inclusive) to {@code to} (exclusive), everything else kept: a keep range
+     * chosen by the user or around a noisy end. Every per-point array this class holds must be cut here.
+     *
+     * @throws IllegalArgumentException when fewer than {@link #MIN_POINTS} points would remain
+     */
+    public ParsedSpectrum slice(int from, int to) {
+        if (from < 0 || to > values.length || to - from < MIN_POINTS) {
+            throw new IllegalArgumentException("cannot keep points " + from + " to " + to + " of " + values.length
+                    + ": need at least " + MIN_POINTS);
+        }
+        return new ParsedSpectrum(sourceName, Arrays.copyOfRange(wavelengthsNm, from, to),
+                Arrays.copyOfRange(values, from, to), Arrays.copyOfRange(upperBounds, from, to), yKind, xUnit,
+                metadata, warnings);
+    }
+
     /** Values converted to transmittance fractions: %T / 100, or 10^−A for absorbance. */
     public double[] transmittanceFractions() {
         double[] t = new double[values.length];
