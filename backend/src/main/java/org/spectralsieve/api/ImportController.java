@@ -2,6 +2,7 @@ package org.spectralsieve.api;
 
 import java.io.IOException;
 import java.net.URI;
+import org.spectralsieve.api.ImportForms.KeepForm;
 import org.spectralsieve.api.ImportForms.ReadForm;
 import org.spectralsieve.api.ImportForms.StoreForm;
 import org.spectralsieve.api.ImportResponses.PreviewResponse;
@@ -27,7 +28,8 @@ import org.springframework.web.multipart.MultipartFile;
 /**
  * Imports over HTTP, all {@code multipart/form-data} with the file in part {@code file}:
  * <ul>
- *   <li>{@code POST /api/imports/preview}: read the file with the {@link ReadForm} options, store nothing;</li>
+ *   <li>{@code POST /api/imports/preview}: read the file with the {@link ReadForm} options and the {@link KeepForm}
+ *       range, store nothing;</li>
  *   <li>{@code POST /api/imports}: read and store it with the {@link StoreForm} target and sample fields
  *       (201 with the new sample; 200 with {@code duplicate: true} when the same file is already stored
  *       for that material and thickness);</li>
@@ -50,18 +52,21 @@ class ImportController {
     }
 
     @PostMapping(path = "/api/imports/preview", consumes = MediaType.MULTIPART_FORM_DATA_VALUE)
-    PreviewResponse preview(@RequestPart("file") MultipartFile file, @ModelAttribute ReadForm read)
-            throws ImportException, IOException {
-        return PreviewResponse.of(imports.preview(file.getOriginalFilename(), file.getBytes(), read.options()));
+    PreviewResponse preview(@RequestPart("file") MultipartFile file, @ModelAttribute ReadForm read,
+                            @ModelAttribute KeepForm keep) throws ImportException, IOException {
+        return PreviewResponse.of(imports.preview(file.getOriginalFilename(), file.getBytes(),
+                keep.applyTo(read.options())));
     }
 
     @PostMapping(path = "/api/imports", consumes = MediaType.MULTIPART_FORM_DATA_VALUE)
     ResponseEntity<StoreResponse> store(@RequestPart("file") MultipartFile file, @ModelAttribute ReadForm read,
-                                        @ModelAttribute StoreForm store) throws ImportException, IOException {
+                                        @ModelAttribute StoreForm store, @ModelAttribute KeepForm keep)
+            throws ImportException, IOException {
         // target and fields are checked before the file is read: a form mistake costs no parsing
         var target = store.target();
         var fields = store.fields();
-        ImportResult result = imports.store(file.getOriginalFilename(), file.getBytes(), read.options(), target, fields);
+        ImportResult result = imports.store(file.getOriginalFilename(), file.getBytes(), keep.applyTo(read.options()),
+                target, fields);
         StoreResponse body = StoreResponse.of(result);
         if (result.duplicate()) {
             return ResponseEntity.ok(body);

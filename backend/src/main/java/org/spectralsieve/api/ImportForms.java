@@ -39,6 +39,19 @@ final class ImportForms {
     }
 
     /**
+     * The part of the file's wavelength axis to keep, in nm; blank = the whole axis without a noise region
+     * at either end (see {@code ingest.KeptRange}).
+     *
+     * @param from shortest wavelength kept
+     * @param to   longest wavelength kept
+     */
+    record KeepForm(String from, String to) {
+        ImportOptions applyTo(ImportOptions options) {
+            return OptionText.keepRange(options, "from", from, "to", to);
+        }
+    }
+
+    /**
      * Where to store and what the sample is: either {@code materialId}, or {@code materialName} with
      * {@code materialClass}, {@code scaling} (bulk|fixed) and optionally {@code indexN} and
      * {@code description}, {@code stockThicknesses} ("2 3 6", "25 50 125 um") and {@code madeRange}

@@ -2,8 +2,11 @@ package org.spectralsieve.api;
 
 import java.util.List;
 import java.util.Map;
+import java.util.OptionalDouble;
 import org.spectralsieve.ingest.FilePreview;
 import org.spectralsieve.ingest.ImportResult;
+import org.spectralsieve.ingest.KeptRange;
+import org.spectralsieve.ingest.NoiseRegion;
 import org.spectralsieve.library.SampleInfo;
 import org.spectralsieve.spectrum.Curve;
 
@@ -22,13 +25,42 @@ final class ImportResponses {
 
     record PreviewResponse(String fileName, String format, String xUnit, String yKind, int pointCount,
                            List<Double> rangeNm, double detectionLimit, String provenance, String sha256,
-                           Map<String, String> metadata, List<String> warnings, CurveJson curve) {
+                           Map<String, String> metadata, List<String> warnings, CurveJson curve, KeepJson keep) {
         static PreviewResponse of(FilePreview p) {
             Curve c = p.curve();
             return new PreviewResponse(p.fileName(), p.format().label(), p.xUnit().name().toLowerCase(java.util.Locale.ROOT),
                     p.yKind().name().toLowerCase(java.util.Locale.ROOT), p.pointCount(),
                     List.of(c.minWavelengthNm(), c.maxWavelengthNm()), p.detectionLimit(), p.provenance().label(),
-                    p.sha256(), p.metadata(), p.warnings(), CurveJson.of(c));
+                    p.sha256(), p.metadata(), p.warnings(), CurveJson.of(c), KeepJson.of(p.keptRange()));
+        }
+    }
+
+    /**
+     * Which part of the file's axis the curve holds: the file's range and points, the kept range, the points
+     * left out on each side, the {@code from}/{@code to} asked for (null when not), the noise regions found,
+     * and the {@code from}/{@code to} that leaves them out (null when none was found).
+     */
+    record KeepJson(List<Double> fileRangeNm, int filePoints, List<Double> keptRangeNm, int leftOutBelow,
+                    int leftOutAbove, Double from, Double to, List<NoiseRegionJson> noiseRegions,
+                    Double suggestedFrom, Double suggestedTo) {
+        static KeepJson of(KeptRange k) {
+            return new KeepJson(List.of(k.fileFromNm(), k.fileToNm()), k.filePoints(),
+                    List.of(k.keptFromNm(), k.keptToNm()), k.leftOutBelow(), k.leftOutAbove(), orNull(k.fromNm()),
+                    orNull(k.toNm()), k.noiseRegions().stream().map(r -> NoiseRegionJson.of(r, k)).toList(),
+                    orNull(k.suggestedFromNm()), orNull(k.suggestedToNm()));
+        }
+
+        private static Double orNull(OptionalDouble v) {
+            return v.isPresent() ? v.getAsDouble() : null;
+        }
+    }
+
+    /** A noise region: its end (short|long), range, points, how many of them are kept, scatter (%T) and why. */
+    record NoiseRegionJson(String end, List<Double> rangeNm, int points, int keptPoints, double scatterPercent,
+                           String reason) {
+        static NoiseRegionJson of(NoiseRegion r, KeptRange k) {
+            return new NoiseRegionJson(r.end().label(), List.of(r.fromNm(), r.toNm()), r.points(), k.keptOf(r),
+                    r.scatter() * 100, r.reason());
         }
     }
 

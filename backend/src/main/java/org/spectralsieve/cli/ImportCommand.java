@@ -6,22 +6,26 @@ import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
+import java.util.OptionalDouble;
 import java.util.concurrent.Callable;
 import org.spectralsieve.importers.ImportException;
 import org.spectralsieve.ingest.BatchImport;
 import org.spectralsieve.ingest.BatchReport;
 import org.spectralsieve.ingest.ImportLimitException;
+import org.spectralsieve.ingest.ImportOptions;
 import org.springframework.context.ConfigurableApplicationContext;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Option;
 import picocli.CommandLine.ParameterException;
 import picocli.CommandLine.Parameters;
 import picocli.CommandLine.Spec;
 
 /** {@code import FOLDER-OR-ZIP}: every file its manifest.csv lists, each in its own transaction, with a report. */
 @Command(name = "import", description = "Import a folder or a .zip holding manifest.csv (columns file,material,"
-        + "thickness,geometry,provenance,instrument,date,notes; for a new material also class,scaling,index_n,stock,made_range)."
+        + "thickness,geometry,provenance,instrument,date,notes,from,to; for a new material also class,scaling,index_n,stock,"
+        + "made_range)."
         + " Prints a progress bar on stderr and one report line per file on stdout; exit 1 when any file is refused.")
 final class ImportCommand implements Callable<Integer> {
 
@@ -36,16 +40,26 @@ final class ImportCommand implements Callable<Integer> {
     @Parameters(index = "0", paramLabel = "FOLDER-OR-ZIP", description = "A folder or a .zip with manifest.csv at its top.")
     Path source;
 
+    @Option(names = "--from", paramLabel = "NM", description = "Keep only wavelengths from NM up, in every file whose"
+            + " manifest row has no 'from' cell (default: the whole axis, without a noise region at its ends).")
+    Double fromNm;
+
+    @Option(names = "--to", paramLabel = "NM", description = "Keep only wavelengths up to NM, in every file whose"
+            + " manifest row has no 'to' cell.")
+    Double toNm;
+
     @Override
     public Integer call() {
         boolean zip = Files.isRegularFile(source) && source.getFileName().toString().toLowerCase(Locale.ROOT).endsWith(".zip");
         if (!Files.isDirectory(source) && !zip) {
             throw new ParameterException(spec.commandLine(), "'" + source + "' is neither a folder nor a .zip file");
         }
+        BatchImport.KeepDefault keep = keepDefault();
         PrintWriter err = spec.commandLine().getErr();
         BatchReport report;
         try (ConfigurableApplicationContext context = LibraryContext.start(database.url)) {
-            report = context.getBean(BatchImport.class).run(source, (done, total, file) -> progress(err, done, total, file));
+            report = context.getBean(BatchImport.class).run(source, keep,
+                    (done, total, file) -> progress(err, done, total, file));
         } catch (ImportException | ImportLimitException e) {
             throw new CliFailure(SieveCli.FAILED, List.of("nothing imported: " + e.getMessage()));
         }
@@ -60,6 +74,20 @@ final class ImportCommand implements Callable<Integer> {
         }
         out.flush();
         return report.allStored() ? SieveCli.OK : SieveCli.FAILED;
+    }
+
+    /** {@code --from}/{@code --to}, refused before anything is opened when they cannot be a range. */
+    private BatchImport.KeepDefault keepDefault() {
+        try {
+            ImportOptions.defaults().withKeepRange(optional(fromNm), optional(toNm));
+        } catch (IllegalArgumentException e) {
+            throw new ParameterException(spec.commandLine(), "--" + e.getMessage());
+        }
+        return new BatchImport.KeepDefault(optional(fromNm), optional(toNm));
+    }
+
+    private static OptionalDouble optional(Double v) {
+        return v == null ? OptionalDouble.empty() : OptionalDouble.of(v);
     }
 
     /** Redrawn in place with a carriage return; the bar is as long on a log file as on a terminal. */

@@ -42,7 +42,8 @@ import org.spectralsieve.optics.ConstantIndex;
  * give {@code index_n}, else n = 1.5 with a warning, and the thicknesses it exists in: {@code stock}, stock
  * sizes such as "2;3;6" or "25 50 125 um", and {@code made_range}, such as "1 to 12" or "25-125 um"). Later rows find a material created by an earlier
  * one by its name. Optional columns also: {@code lot}, {@code format}, {@code y_kind},
- * {@code detection_limit}. An unknown column refuses the manifest (a misspelt column would otherwise be
+ * {@code detection_limit}, and {@code from}, {@code to}: the wavelengths (nm) to keep of that file, each
+ * replacing the batch-wide {@link KeepDefault} on its side. An unknown column refuses the manifest (a misspelt column would otherwise be
  * silently ignored).
  *
  * <p>Each row is imported in its own transaction: a refused row (unreadable file, missing file, bad
@@ -60,7 +61,20 @@ public final class BatchImport {
     static final List<String> REQUIRED = List.of("file", "material");
     static final List<String> COLUMNS = List.of("file", "material", "thickness", "geometry", "provenance", "instrument",
             "date", "notes", "lot", "class", "scaling", "index_n", "format", "y_kind", "detection_limit", "stock",
-            "made_range");
+            "made_range", "from", "to");
+
+    /**
+     * A keep range for every row of a batch (the CLI's {@code --from}/{@code --to}); a row's own {@code from}
+     * or {@code to} cell replaces it on that side.
+     */
+    public record KeepDefault(OptionalDouble fromNm, OptionalDouble toNm) {
+        public static final KeepDefault NONE = new KeepDefault(OptionalDouble.empty(), OptionalDouble.empty());
+
+        public KeepDefault {
+            fromNm = fromNm == null ? OptionalDouble.empty() : fromNm;
+            toNm = toNm == null ? OptionalDouble.empty() : toNm;
+        }
+    }
 
     private final ImportService imports;
     private final JooqLibraryRepository library;
@@ -74,8 +88,13 @@ public final class BatchImport {
 
     /** A folder, or a file ending in {@code .zip}. */
     public BatchReport run(Path path, Progress progress) throws ImportException {
+        return run(path, KeepDefault.NONE, progress);
+    }
+
+    /** A folder, or a file ending in {@code .zip}, every row keeping {@code keep} unless it says otherwise. */
+    public BatchReport run(Path path, KeepDefault keep, Progress progress) throws ImportException {
         if (Files.isDirectory(path)) {
-            return run(new BatchSource.Folder(path, limits), progress);
+            return run(new BatchSource.Folder(path, limits), keep, progress);
         }
         String name = String.valueOf(path.getFileName());
         try {
@@ -85,7 +104,7 @@ public final class BatchImport {
                         "the zip has " + size + " bytes, more than the " + limits.maxZipBytes() + " allowed");
             }
             try (BatchSource.Zip zip = BatchSource.Zip.open(ImportService.cleanName(name), path, limits)) {
-                return run(zip, progress);
+                return run(zip, keep, progress);
             }
         } catch (IOException e) {
             throw ImportException.ofSource(name, "cannot read: " + e.getMessage());
@@ -94,11 +113,11 @@ public final class BatchImport {
 
     public BatchReport zip(String name, byte[] zip, Progress progress) throws ImportException {
         try (BatchSource.Zip source = BatchSource.Zip.of(ImportService.cleanName(name), zip, limits)) {
-            return run(source, progress);
+            return run(source, KeepDefault.NONE, progress);
         }
     }
 
-    private BatchReport run(BatchSource source, Progress progress) throws ImportException {
+    private BatchReport run(BatchSource source, KeepDefault keep, Progress progress) throws ImportException {
         List<Row> rows = manifest(source);
         List<FileReport> reports = new ArrayList<>();
         Set<String> named = new LinkedHashSet<>();
@@ -106,7 +125,7 @@ public final class BatchImport {
             Row row = rows.get(i);
             progress.next(i, rows.size(), row.file());
             named.add(BatchSource.normalise(row.file()));
-            reports.add(importRow(source, row));
+            reports.add(importRow(source, row, keep));
         }
         progress.next(rows.size(), rows.size(), "");
         List<String> unlisted = source.files().stream().filter(f -> !named.contains(f)).toList();
@@ -176,7 +195,7 @@ public final class BatchImport {
         return rows;
     }
 
-    private FileReport importRow(BatchSource source, Row row) {
+    private FileReport importRow(BatchSource source, Row row, KeepDefault keep) {
         String file = row.file();
         try {
             if (row.cells().containsKey("_error")) {
@@ -194,6 +213,7 @@ public final class BatchImport {
                     OptionText.yKind("y_kind", row.get("y_kind")), Optional.empty(), Replicates.FIRST, false,
                     OptionText.number("detection_limit", row.get("detection_limit")), OptionalDouble.empty(),
                     OptionalDouble.empty());
+            options = keepRange(options, row, keep);
             SampleFields fields = new SampleFields(OptionText.thicknessOrNull("thickness", row.get("thickness")),
                     OptionText.geometry("geometry", row.get("geometry")), OptionText.provenance("provenance", row.get("provenance")),
                     OptionText.line("instrument", row.get("instrument"), NewSample.MAX_INSTRUMENT),
@@ -209,6 +229,17 @@ public final class BatchImport {
         } catch (IllegalArgumentException e) {
             return refused(row, file, e.getMessage());
         }
+    }
+
+    /** The row's {@code from}/{@code to} cells, each side falling back to the batch-wide default. */
+    private static ImportOptions keepRange(ImportOptions options, Row row, KeepDefault keep) {
+        String from = row.get("from") != null ? row.get("from") : text(keep.fromNm());
+        String to = row.get("to") != null ? row.get("to") : text(keep.toNm());
+        return OptionText.keepRange(options, "from", from, "to", to);
+    }
+
+    private static String text(OptionalDouble v) {
+        return v.isPresent() ? Double.toString(v.getAsDouble()) : null;
     }
 
     private static FileReport refused(Row row, String file, String message) {

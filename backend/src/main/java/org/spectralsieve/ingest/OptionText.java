@@ -265,6 +265,24 @@ public final class OptionText {
                 number("strayLightFloor", strayLightFloor), number("fullScale", fullScale)));
     }
 
+    /**
+     * {@code options} keeping only {@code from..to} (nm, either may be blank), refused naming the field when
+     * not a wavelength or when {@code from} is not shorter than {@code to}. The field names are given because
+     * the HTTP form says {@code from}/{@code to} and so does the manifest.
+     */
+    public static ImportOptions keepRange(ImportOptions options, String fromField, String from, String toField,
+                                          String to) {
+        OptionalDouble fromNm = number(fromField, from);
+        OptionalDouble toNm = number(toField, to);
+        try {
+            return options.withKeepRange(fromNm, toNm);
+        } catch (IllegalArgumentException e) {
+            // ImportOptions says "from must be …" or "to must be …": name the field it names
+            boolean aboutTo = e.getMessage().startsWith("to ");
+            throw new ImportRequestException(aboutTo ? toField : fromField, e.getMessage());
+        }
+    }
+
     private interface Parse<T> {
         T get();
     }
