@@ -142,14 +142,14 @@ public record KeptRange(double fileFromNm, double fileToNm, int filePoints, int 
         if (fromNm.isPresent()) {
             warnings.add("from " + nm(fromNm.getAsDouble()) + " nm: " + (leftOutBelow() == 0
                     ? "no point left out (the file starts at " + nm(fileFromNm) + " nm)"
-                    : leftOutBelow() + " points below it left out (" + nm(fileFromNm) + "–"
-                    + nm(wavelengthsNm[firstIndex - 1]) + " nm); the stored original file keeps them"));
+                    : points(leftOutBelow()) + " below it left out (" + span(fileFromNm, wavelengthsNm[firstIndex - 1])
+                    + "); the stored original file keeps them"));
         }
         if (toNm.isPresent()) {
             warnings.add("to " + nm(toNm.getAsDouble()) + " nm: " + (leftOutAbove() == 0
                     ? "no point left out (the file ends at " + nm(fileToNm) + " nm)"
-                    : leftOutAbove() + " points above it left out (" + nm(wavelengthsNm[lastIndex + 1]) + "–"
-                    + nm(fileToNm) + " nm); the stored original file keeps them"));
+                    : points(leftOutAbove()) + " above it left out (" + span(wavelengthsNm[lastIndex + 1], fileToNm)
+                    + "); the stored original file keeps them"));
         }
         for (NoiseRegion r : noiseRegions) {
             warnings.add(regionWarning(r));
@@ -173,6 +173,14 @@ public record KeptRange(double fileFromNm, double fileToNm, int filePoints, int 
                 : "to=" + nm(suggestedToNm.orElse(keptToNm));
         return head + ", " + kept + " of them kept as asked: " + r.reason() + "; verdicts resting on these points rest"
                 + " on noise (" + leaveOut + " leaves the region out)";
+    }
+
+    private static String points(int n) {
+        return n == 1 ? "1 point" : n + " points";
+    }
+
+    private static String span(double fromNm, double toNm) {
+        return fromNm == toNm ? "at " + nm(fromNm) + " nm" : nm(fromNm) + "–" + nm(toNm) + " nm";
     }
 
     /** A wavelength as the warnings write it: 190, 254.5. */

@@ -7,15 +7,15 @@ import java.util.Random;
  * Generated curves for the noise-region tests: an invented long-pass sheet (illustrative, no real product)
  * read at 1 nm, into which the noise of a real capture is injected where a test wants it.
  */
-final class NoisyCurves {
+public final class NoisyCurves {
 
-    static final int FIRST_NM = 190;
-    static final int LAST_NM = 800;
+    public static final int FIRST_NM = 190;
+    public static final int LAST_NM = 800;
 
     private NoisyCurves() {
     }
 
-    static double[] wavelengths() {
+    public static double[] wavelengths() {
         double[] nm = new double[LAST_NM - FIRST_NM + 1];
         for (int i = 0; i < nm.length; i++) {
             nm[i] = FIRST_NM + i;
@@ -24,7 +24,7 @@ final class NoisyCurves {
     }
 
     /** A smooth cut-on: T = 0.9 / (1 + e^−(λ−350)/8), near 0 below 300 nm, 0.9 above 400 nm. */
-    static double[] cleanTransmittance() {
+    public static double[] cleanTransmittance() {
         double[] nm = wavelengths();
         double[] t = new double[nm.length];
         for (int i = 0; i < t.length; i++) {
@@ -38,7 +38,7 @@ final class NoisyCurves {
      * diode array reports where its lamp and detector give almost no light (the range of a real capture's deep UV:
      * SOURCES.md §2, uv-link.jdx, y(190) = −0.73, max 1.12).
      */
-    static double[] withAbsorbanceNoise(double[] t, int fromNm, int toNm, long seed) {
+    public static double[] withAbsorbanceNoise(double[] t, int fromNm, int toNm, long seed) {
         Random random = new Random(seed);
         double[] noisy = t.clone();
         for (int nm = fromNm; nm <= toNm; nm++) {
@@ -48,7 +48,7 @@ final class NoisyCurves {
     }
 
     /** Adds Gaussian noise of {@code sigma} (a transmittance fraction) to every reading. */
-    static double[] withPhotometricNoise(double[] t, double sigma, long seed) {
+    public static double[] withPhotometricNoise(double[] t, double sigma, long seed) {
         Random random = new Random(seed);
         double[] noisy = t.clone();
         for (int i = 0; i < noisy.length; i++) {
@@ -58,7 +58,7 @@ final class NoisyCurves {
     }
 
     /** The curve as a delimited file of absorbance, as a diode-array program exports it. */
-    static String absorbanceCsv(double[] t) {
+    public static String absorbanceCsv(double[] t) {
         double[] nm = wavelengths();
         StringBuilder csv = new StringBuilder("# illustrative long-pass sheet, invented bench capture\nwavelength_nm,absorbance\n");
         for (int i = 0; i < nm.length; i++) {
@@ -67,7 +67,7 @@ final class NoisyCurves {
         return csv.toString();
     }
 
-    static int index(int nm) {
+    public static int index(int nm) {
         return nm - FIRST_NM;
     }
 }
