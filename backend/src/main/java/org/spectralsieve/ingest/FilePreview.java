@@ -18,10 +18,12 @@ import org.spectralsieve.spectrum.Curve;
  * @param detectionLimit the sample's limit (the largest per-point limit for raw counts)
  * @param provenance     what the file suggests (datasheet for datasheet points, else measured)
  * @param sha256         of the original bytes, the key that recognises a re-import
+ * @param blocks         JCAMP-DX: every block with data, in file order, marking those the import takes;
+ *                       empty for other formats
  */
 public record FilePreview(String fileName, ImportFormat format, XUnit xUnit, YKind yKind, Curve curve,
                           double detectionLimit, Provenance provenance, Map<String, String> metadata,
-                          List<String> warnings, String sha256) {
+                          List<String> warnings, String sha256, List<FileBlock> blocks) {
 
     public FilePreview {
         Objects.requireNonNull(fileName, "fileName");
@@ -29,6 +31,28 @@ public record FilePreview(String fileName, ImportFormat format, XUnit xUnit, YKi
         Objects.requireNonNull(curve, "curve");
         metadata = Collections.unmodifiableMap(new LinkedHashMap<>(metadata)); // file order kept
         warnings = List.copyOf(warnings);
+        blocks = blocks == null ? List.of() : List.copyOf(blocks);
+    }
+
+    /** A preview of a file without blocks (every format but JCAMP-DX). */
+    public FilePreview(String fileName, ImportFormat format, XUnit xUnit, YKind yKind, Curve curve,
+                       double detectionLimit, Provenance provenance, Map<String, String> metadata,
+                       List<String> warnings, String sha256) {
+        this(fileName, format, xUnit, yKind, curve, detectionLimit, provenance, metadata, warnings, sha256, List.of());
+    }
+
+    /** The same preview with its block list and more warnings. */
+    FilePreview withBlocks(List<FileBlock> list, List<String> moreWarnings) {
+        List<String> all = new java.util.ArrayList<>(warnings);
+        all.addAll(moreWarnings);
+        return new FilePreview(fileName, format, xUnit, yKind, curve, detectionLimit, provenance, metadata, all, sha256,
+                list);
+    }
+
+    /** The block this preview's curve was read from; empty for a file without blocks. */
+    public java.util.Optional<FileBlock> block() {
+        String index = metadata.get("jcamp block");
+        return blocks.stream().filter(b -> String.valueOf(b.number()).equals(index)).findFirst();
     }
 
     public int pointCount() {
