@@ -29,12 +29,15 @@ final class ImportForms {
      * @param detectionLimit  fraction in [0, 1); default the file's detection_limit, else 0
      * @param strayLightFloor raw counts: fraction in [0, 1), default 0
      * @param fullScale       raw counts: detector maximum count, default unknown
+     * @param block           JCAMP-DX: the block to read, numbered as the preview's block list (default: the first)
+     * @param eachBlock       JCAMP-DX: true to store every block as its own sample (default false)
      */
     record ReadForm(String format, String yKind, String decimalMark, String replicates, String mergeDuplicates,
-                    String detectionLimit, String strayLightFloor, String fullScale) {
+                    String detectionLimit, String strayLightFloor, String fullScale, String block, String eachBlock) {
         ImportOptions options() {
-            return OptionText.options(format, yKind, decimalMark, replicates, mergeDuplicates, detectionLimit,
+            ImportOptions o = OptionText.options(format, yKind, decimalMark, replicates, mergeDuplicates, detectionLimit,
                     strayLightFloor, fullScale);
+            return OptionText.withBlocks(o, "block", block, "eachBlock", eachBlock);
         }
     }
 

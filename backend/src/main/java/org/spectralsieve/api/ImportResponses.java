@@ -3,6 +3,7 @@ package org.spectralsieve.api;
 import java.util.List;
 import java.util.Map;
 import java.util.OptionalDouble;
+import org.spectralsieve.ingest.FileBlock;
 import org.spectralsieve.ingest.FilePreview;
 import org.spectralsieve.ingest.ImportResult;
 import org.spectralsieve.ingest.KeptRange;
@@ -23,15 +24,31 @@ final class ImportResponses {
         }
     }
 
+    /**
+     * One spectrum of a JCAMP-DX file: {@code number} is what the {@code block} field takes; {@code rangeNm} is
+     * null when the file's x unit is unknown; {@code taken} marks what the import would store; {@code problem}
+     * says why a block cannot be a transmittance curve (null when it can).
+     */
+    record BlockJson(int number, String title, int points, List<Double> rangeNm, String xUnits, String yUnits,
+                     boolean taken, String problem) {
+        static BlockJson of(FileBlock b) {
+            return new BlockJson(b.number(), b.title(), b.points(),
+                    b.fromNm() == null ? null : List.of(b.fromNm(), b.toNm()), b.xUnits(), b.yUnits(), b.taken(),
+                    b.problem());
+        }
+    }
+
     record PreviewResponse(String fileName, String format, String xUnit, String yKind, int pointCount,
                            List<Double> rangeNm, double detectionLimit, String provenance, String sha256,
-                           Map<String, String> metadata, List<String> warnings, CurveJson curve, KeepJson keep) {
+                           Map<String, String> metadata, List<String> warnings, CurveJson curve, KeepJson keep,
+                           List<BlockJson> blocks) {
         static PreviewResponse of(FilePreview p) {
             Curve c = p.curve();
             return new PreviewResponse(p.fileName(), p.format().label(), p.xUnit().name().toLowerCase(java.util.Locale.ROOT),
                     p.yKind().name().toLowerCase(java.util.Locale.ROOT), p.pointCount(),
                     List.of(c.minWavelengthNm(), c.maxWavelengthNm()), p.detectionLimit(), p.provenance().label(),
-                    p.sha256(), p.metadata(), p.warnings(), CurveJson.of(c), KeepJson.of(p.keptRange()));
+                    p.sha256(), p.metadata(), p.warnings(), CurveJson.of(c), KeepJson.of(p.keptRange()),
+                    p.blocks().stream().map(BlockJson::of).toList());
         }
     }
 
@@ -72,13 +89,29 @@ final class ImportResponses {
         }
     }
 
+    /**
+     * One sample an import stored or found: {@code block} and {@code blockTitle} are null for a file without
+     * blocks; {@code duplicate} true when it was already stored.
+     */
+    record SampleEntry(Integer block, String blockTitle, boolean duplicate, int pointCount, StoredSample sample) {
+    }
+
+    /**
+     * {@code sampleId}, {@code sample} and {@code pointCount} are the first sample's; {@code samples} lists every
+     * sample of the import (one per block with {@code eachBlock}).
+     */
     record StoreResponse(long sampleId, long materialId, String materialSlug, boolean newMaterial, boolean duplicate,
                          StoredSample sample, String fileName, String format, int pointCount, String sha256,
-                         List<String> warnings) {
+                         List<String> warnings, List<SampleEntry> samples) {
         static StoreResponse of(ImportResult r) {
             FilePreview p = r.preview();
+            List<SampleEntry> samples = r.blocks().isEmpty()
+                    ? List.of(new SampleEntry(null, null, r.duplicate(), p.pointCount(), StoredSample.of(r.sample())))
+                    : r.blocks().stream().map(b -> new SampleEntry(b.block(), b.title(), b.duplicate(), b.pointCount(),
+                            StoredSample.of(b.sample()))).toList();
             return new StoreResponse(r.sampleId(), r.materialId(), r.materialSlug(), r.newMaterial(), r.duplicate(),
-                    StoredSample.of(r.sample()), p.fileName(), p.format().label(), p.pointCount(), p.sha256(), r.warnings());
+                    StoredSample.of(r.sample()), p.fileName(), p.format().label(), p.pointCount(), p.sha256(), r.warnings(),
+                    samples);
         }
     }
 }

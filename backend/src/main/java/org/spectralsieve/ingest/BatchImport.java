@@ -42,8 +42,9 @@ import org.spectralsieve.optics.ConstantIndex;
  * give {@code index_n}, else n = 1.5 with a warning, and the thicknesses it exists in: {@code stock}, stock
  * sizes such as "2;3;6" or "25 50 125 um", and {@code made_range}, such as "1 to 12" or "25-125 um"). Later rows find a material created by an earlier
  * one by its name. Optional columns also: {@code lot}, {@code format}, {@code y_kind},
- * {@code detection_limit}, and {@code from}, {@code to}: the wavelengths (nm) to keep of that file, each
- * replacing the batch-wide {@link KeepDefault} on its side. An unknown column refuses the manifest (a misspelt column would otherwise be
+ * {@code detection_limit}, {@code from}, {@code to}: the wavelengths (nm) to keep of that file, each
+ * replacing the batch-wide {@link KeepDefault} on its side, and for a JCAMP-DX file {@code block} (the block number the preview lists) or
+ * {@code each_block} (true: every block its own sample, all in the row's one transaction). An unknown column refuses the manifest (a misspelt column would otherwise be
  * silently ignored).
  *
  * <p>Each row is imported in its own transaction: a refused row (unreadable file, missing file, bad
@@ -61,7 +62,7 @@ public final class BatchImport {
     static final List<String> REQUIRED = List.of("file", "material");
     static final List<String> COLUMNS = List.of("file", "material", "thickness", "geometry", "provenance", "instrument",
             "date", "notes", "lot", "class", "scaling", "index_n", "format", "y_kind", "detection_limit", "stock",
-            "made_range", "from", "to");
+            "made_range", "from", "to", "block", "each_block");
 
     /**
      * A keep range for every row of a batch (the CLI's {@code --from}/{@code --to}); a row's own {@code from}
@@ -214,6 +215,7 @@ public final class BatchImport {
                     OptionText.number("detection_limit", row.get("detection_limit")), OptionalDouble.empty(),
                     OptionalDouble.empty());
             options = keepRange(options, row, keep);
+            options = OptionText.withBlocks(options, "block", row.get("block"), "each_block", row.get("each_block"));
             SampleFields fields = new SampleFields(OptionText.thicknessOrNull("thickness", row.get("thickness")),
                     OptionText.geometry("geometry", row.get("geometry")), OptionText.provenance("provenance", row.get("provenance")),
                     OptionText.line("instrument", row.get("instrument"), NewSample.MAX_INSTRUMENT),
@@ -222,7 +224,8 @@ public final class BatchImport {
             byte[] bytes = source.read(file);
             ImportResult result = imports.store(file, bytes, options, target, fields);
             return new FileReport(row.line(), file, result.duplicate() ? Outcome.DUPLICATE : Outcome.STORED,
-                    result.materialId(), result.materialSlug(), result.sampleId(), null, result.warnings());
+                    result.materialId(), result.materialSlug(), result.sampleId(), null, result.warnings(),
+                    result.sampleIds());
         } catch (ImportException | IngestException | ImportLimitException | ImportRequestException | NotFoundException
                  | RetiredException e) {
             return refused(row, file, e.getMessage());

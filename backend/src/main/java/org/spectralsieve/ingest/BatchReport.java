@@ -22,11 +22,19 @@ public record BatchReport(String source, List<FileReport> files, List<String> no
      * @param line       the row's line in manifest.csv (the header is line 1)
      * @param sampleId   the stored (or, for a duplicate, the existing) sample; null when refused
      * @param message    why the row was refused; null otherwise
+     * @param sampleIds  every sample the row stored or found (several for a JCAMP-DX file imported block by
+     *                   block); empty when refused
      */
     public record FileReport(int line, String file, Outcome outcome, Long materialId, String material, Long sampleId,
-                             String message, List<String> warnings) {
+                             String message, List<String> warnings, List<Long> sampleIds) {
         public FileReport {
             warnings = List.copyOf(warnings);
+            sampleIds = sampleIds == null ? (sampleId == null ? List.of() : List.of(sampleId)) : List.copyOf(sampleIds);
+        }
+
+        public FileReport(int line, String file, Outcome outcome, Long materialId, String material, Long sampleId,
+                          String message, List<String> warnings) {
+            this(line, file, outcome, materialId, material, sampleId, message, warnings, null);
         }
     }
 

@@ -20,6 +20,8 @@ import org.spectralsieve.importers.RawCountsReader;
 import org.spectralsieve.importers.RawCountsResult;
 import org.spectralsieve.importers.ReadOptions;
 import org.spectralsieve.importers.YKind;
+import org.spectralsieve.importers.jcamp.BlockOutline;
+import org.spectralsieve.importers.jcamp.JcampBlock;
 import org.spectralsieve.importers.jcamp.JcampOptions;
 import org.spectralsieve.importers.jcamp.JcampReader;
 import org.spectralsieve.library.Provenance;
@@ -71,9 +73,10 @@ public final class FileImport {
         String text = decodeText(fileName, bytes, warnings);
         ImportFormat format = options.format().orElseGet(() -> detect(fileName, text));
         CurveShapeCheck.refuseNonTransmittance(fileName, text, format, options);
+        refuseBlocksOutsideJcamp(fileName, format, options);
         try {
             return switch (format) {
-                case JCAMP_DX -> fromSpectrum(format, bytes, jcamp(fileName, text, options), options, warnings);
+                case JCAMP_DX -> jcampPreview(fileName, bytes, text, options, warnings);
                 case DATASHEET_POINTS -> fromSpectrum(format, bytes,
                         new DatasheetPointsReader().read(fileName, new StringReader(text), readOptions(options)), options,
                         warnings);
@@ -194,12 +197,141 @@ public final class FileImport {
         return r;
     }
 
-    private static ParsedSpectrum jcamp(String fileName, String text, ImportOptions o) throws ImportException {
+    private static JcampOptions jcampOptions(ImportOptions o) {
         JcampOptions options = JcampOptions.defaults();
         if (o.yKind().isPresent()) {
             options = options.withYKind(o.yKind().get());
         }
-        return new JcampReader().read(fileName, new StringReader(text), options);
+        return options;
+    }
+
+    /** Only a JCAMP-DX file has blocks: a block option on another format is a mistake, not something to ignore. */
+    private static void refuseBlocksOutsideJcamp(String fileName, ImportFormat format, ImportOptions o) {
+        if (format != ImportFormat.JCAMP_DX && (o.block().isPresent() || o.eachBlock())) {
+            throw new ImportRequestException(o.block().isPresent() ? "block" : "eachBlock", "only a JCAMP-DX file holds"
+                    + " blocks; " + fileName + " is read as " + format.label());
+        }
+    }
+
+    /**
+     * A JCAMP-DX file: the block the options choose (the first with data by default) as the preview's curve,
+     * with the warning listing the blocks left out; with {@code eachBlock}, the first readable block's curve.
+     * Every block with data is listed, each tried as a transmittance curve so that the list says which
+     * cannot be one before anything is stored.
+     */
+    private FilePreview jcampPreview(String fileName, byte[] bytes, String text, ImportOptions o, List<String> warnings)
+            throws ImportException {
+        JcampReader reader = new JcampReader();
+        List<JcampBlock> all = reader.blocks(fileName, new StringReader(text));
+        List<JcampBlock> withData = all.stream().filter(JcampBlock::hasData).toList();
+        if (withData.isEmpty()) {
+            return fromSpectrum(ImportFormat.JCAMP_DX, bytes, reader.read(fileName, all, jcampOptions(o)), o, warnings);
+        }
+        requireKnownBlock(fileName, withData, o);
+        if (!o.eachBlock()) {
+            JcampBlock chosen = o.block().isPresent() ? all.get(o.block().getAsInt()) : withData.get(0);
+            FilePreview p = fromSpectrum(ImportFormat.JCAMP_DX, bytes,
+                    reader.read(fileName, all, jcampOptions(o).withBlock(chosen.index())), o, warnings);
+            Map<Integer, String> problems = problems(fileName, bytes, withData, chosen, o);
+            List<FileBlock> list = withData.stream().map(b -> FileBlock.of(BlockOutline.of(b), b == chosen,
+                    problems.get(b.index()))).toList();
+            return p.withBlocks(list, List.of());
+        }
+        Map<Integer, String> problems = problems(fileName, bytes, withData, null, o);
+        List<FileBlock> list = withData.stream().map(b -> FileBlock.of(BlockOutline.of(b), true,
+                problems.get(b.index()))).toList();
+        JcampBlock first = withData.stream().filter(b -> !problems.containsKey(b.index())).findFirst()
+                .orElseThrow(() -> new ImportException(fileName, withData.get(0).startLine(), null,
+                        eachBlockRefusal(list)));
+        FilePreview p = fromSpectrum(ImportFormat.JCAMP_DX, bytes, reader.readOne(fileName, first, jcampOptions(o)), o,
+                warnings);
+        List<String> more = new ArrayList<>();
+        more.add("each of the file's " + withData.size() + " blocks would be stored as its own sample of the material;"
+                + " this preview shows " + FileBlock.of(BlockOutline.of(first), true, null).label());
+        if (!problems.isEmpty()) {
+            more.add("an import with eachBlock would be refused: " + eachBlockRefusal(list));
+        }
+        return p.withBlocks(list, more);
+    }
+
+    /**
+     * Every block with data of a JCAMP-DX file, each read as its own curve for an import with
+     * {@code eachBlock}: all of them, or, when any cannot be a transmittance curve, an
+     * {@link ImportException} naming each such block and why, so that nothing is stored.
+     */
+    public List<FilePreview> readEachBlock(String fileName, byte[] bytes, ImportOptions options)
+            throws ImportException {
+        if (!options.eachBlock()) {
+            throw new IllegalArgumentException("readEachBlock needs options with eachBlock");
+        }
+        FilePreview listing = read(fileName, bytes, options); // refuses other formats and files without data
+        List<String> warnings = new ArrayList<>();
+        String text = decodeText(fileName, bytes, warnings);
+        List<FileBlock> list = listing.blocks();
+        if (list.stream().anyMatch(b -> !b.readable())) {
+            throw ImportException.ofSource(fileName, eachBlockRefusal(list));
+        }
+        JcampReader reader = new JcampReader();
+        List<JcampBlock> all = reader.blocks(fileName, new StringReader(text));
+        List<FilePreview> previews = new ArrayList<>();
+        for (FileBlock b : list) {
+            JcampBlock block = all.get(b.number());
+            previews.add(fromSpectrum(ImportFormat.JCAMP_DX, bytes, reader.readOne(fileName, block, jcampOptions(options)),
+                    options, warnings).withBlocks(list, List.of()));
+        }
+        return previews;
+    }
+
+    /** Refused when the number is not that of a block with data, naming the blocks there are. */
+    private static void requireKnownBlock(String fileName, List<JcampBlock> withData, ImportOptions o) {
+        if (o.block().isEmpty()) {
+            return;
+        }
+        int wanted = o.block().getAsInt();
+        if (withData.stream().noneMatch(b -> b.index() == wanted)) {
+            StringBuilder there = new StringBuilder();
+            for (JcampBlock b : withData) {
+                there.append(there.isEmpty() ? "" : ", ").append(FileBlock.of(BlockOutline.of(b), false, null).label());
+            }
+            throw new ImportRequestException("block", "block " + wanted + " is not a spectrum of " + fileName + "; its "
+                    + (withData.size() == 1 ? "only block with data is " : withData.size() + " blocks with data are ")
+                    + there + " (the numbers the preview lists)");
+        }
+    }
+
+    /** Why each block other than {@code skip} cannot be a transmittance curve, by block number; readable ones are absent. */
+    private Map<Integer, String> problems(String fileName, byte[] bytes, List<JcampBlock> blocks, JcampBlock skip,
+                                          ImportOptions o) {
+        Map<Integer, String> problems = new java.util.HashMap<>();
+        if (blocks.size() < 2 && skip != null) {
+            return problems;
+        }
+        JcampReader reader = new JcampReader();
+        for (JcampBlock b : blocks) {
+            if (b == skip) {
+                continue;
+            }
+            try {
+                fromSpectrum(ImportFormat.JCAMP_DX, bytes, reader.readOne(fileName, b, jcampOptions(o)), o, new ArrayList<>());
+            } catch (ImportException | IngestException | ImportLimitException | IllegalArgumentException e) {
+                problems.put(b.index(), e.getMessage());
+            }
+        }
+        return problems;
+    }
+
+    private static String eachBlockRefusal(List<FileBlock> list) {
+        StringBuilder why = new StringBuilder("eachBlock stores every block or none, and ");
+        List<FileBlock> bad = list.stream().filter(b -> !b.readable()).toList();
+        for (int i = 0; i < bad.size(); i++) {
+            why.append(i == 0 ? "" : "; ").append(bad.get(i).label()).append(" cannot be read as a transmittance curve: ")
+                    .append(bad.get(i).problem());
+        }
+        List<Integer> good = list.stream().filter(FileBlock::readable).map(FileBlock::number).toList();
+        why.append(good.isEmpty() ? ". No block of the file can be stored as a curve"
+                : ". Import the readable " + (good.size() == 1 ? "block" : "blocks") + " " + good
+                        + " one at a time with the block option");
+        return why.toString();
     }
 
     private FilePreview fromSpectrum(ImportFormat format, byte[] bytes, ParsedSpectrum s, ImportOptions o,

@@ -19,17 +19,27 @@ import org.spectralsieve.spectrum.Curve;
  * @param provenance     what the file suggests (datasheet for datasheet points, else measured)
  * @param sha256         of the original bytes, the key that recognises a re-import
  * @param keptRange      which part of the file's axis the curve holds (from/to, noise regions left out)
+ * @param blocks         JCAMP-DX: every block with data, in file order, marking those the import takes;
+ *                       empty for other formats
  */
 public record FilePreview(String fileName, ImportFormat format, XUnit xUnit, YKind yKind, Curve curve,
                           double detectionLimit, Provenance provenance, Map<String, String> metadata,
-                          List<String> warnings, String sha256, KeptRange keptRange) {
+                          List<String> warnings, String sha256, KeptRange keptRange, List<FileBlock> blocks) {
 
-    /** A preview of a file kept whole (no keep range asked for, no noise region looked for). */
+    /** A preview of a file kept whole (no keep range asked for, no noise region looked for), without blocks. */
     public FilePreview(String fileName, ImportFormat format, XUnit xUnit, YKind yKind, Curve curve,
                        double detectionLimit, Provenance provenance, Map<String, String> metadata,
                        List<String> warnings, String sha256) {
         this(fileName, format, xUnit, yKind, curve, detectionLimit, provenance, metadata, warnings, sha256,
-                KeptRange.whole(curve.wavelengthsNm()));
+                KeptRange.whole(curve.wavelengthsNm()), List.of());
+    }
+
+    /** A preview without blocks (every format but JCAMP-DX). */
+    public FilePreview(String fileName, ImportFormat format, XUnit xUnit, YKind yKind, Curve curve,
+                       double detectionLimit, Provenance provenance, Map<String, String> metadata,
+                       List<String> warnings, String sha256, KeptRange keptRange) {
+        this(fileName, format, xUnit, yKind, curve, detectionLimit, provenance, metadata, warnings, sha256,
+                keptRange, List.of());
     }
 
     public FilePreview {
@@ -39,6 +49,21 @@ public record FilePreview(String fileName, ImportFormat format, XUnit xUnit, YKi
         Objects.requireNonNull(keptRange, "keptRange");
         metadata = Collections.unmodifiableMap(new LinkedHashMap<>(metadata)); // file order kept
         warnings = List.copyOf(warnings);
+        blocks = blocks == null ? List.of() : List.copyOf(blocks);
+    }
+
+    /** The same preview with its block list and more warnings. */
+    FilePreview withBlocks(List<FileBlock> list, List<String> moreWarnings) {
+        List<String> all = new java.util.ArrayList<>(warnings);
+        all.addAll(moreWarnings);
+        return new FilePreview(fileName, format, xUnit, yKind, curve, detectionLimit, provenance, metadata, all, sha256,
+                keptRange, list);
+    }
+
+    /** The block this preview's curve was read from; empty for a file without blocks. */
+    public java.util.Optional<FileBlock> block() {
+        String index = metadata.get("jcamp block");
+        return blocks.stream().filter(b -> String.valueOf(b.number()).equals(index)).findFirst();
     }
 
     public int pointCount() {

@@ -14,6 +14,7 @@ import org.spectralsieve.library.NotFoundException;
 import org.spectralsieve.library.Provenance;
 import org.spectralsieve.library.Scaling;
 import org.spectralsieve.library.SourceFile;
+import org.spectralsieve.library.StoredBlocks;
 import org.spectralsieve.library.StoredImport;
 import org.spectralsieve.optics.ConstantIndex;
 import org.spectralsieve.optics.PhysicalRanges;
@@ -72,25 +73,21 @@ public final class ImportService {
                               SampleFields fields) throws ImportException {
         Objects.requireNonNull(target, "target");
         Objects.requireNonNull(fields, "fields");
-        FilePreview preview = preview(fileName, bytes, options);
-        List<String> warnings = new ArrayList<>(preview.warnings());
-        Long existingId = null;
-        NewMaterial newMaterial = null;
-        Scaling scaling;
-        if (target instanceof ImportTarget.ExistingMaterial e) {
-            Material m = library.findMaterial(e.materialId()).orElseThrow(() -> new NotFoundException("material", e.materialId()));
-            existingId = m.id();
-            scaling = m.scaling();
-        } else {
-            ImportTarget.NewMaterial n = (ImportTarget.NewMaterial) target;
-            // a second material of the same name is almost always a re-import aimed at the wrong target
-            library.findMaterialIdByName(n.name()).ifPresent(id -> {
-                throw new ImportRequestException("materialName", "a material named '" + n.name()
-                        + "' already exists (id " + id + "); store under it with materialId=" + id + " or choose another name");
-            });
-            newMaterial = newMaterial(n, warnings);
-            scaling = n.scaling();
+        if (options.eachBlock()) {
+            String name = cleanName(fileName);
+            checkSize(name, bytes.length);
+            return storeBlocks(reader.readEachBlock(name, bytes, options), bytes, target, fields);
         }
+        FilePreview preview = preview(fileName, bytes, options);
+        if (preview.blocks().size() > 1) {
+            // the blocks of one file share its checksum: only the block path tells them apart
+            return storeBlocks(List.of(preview), bytes, target, fields);
+        }
+        List<String> warnings = new ArrayList<>(preview.warnings());
+        Destination to = destination(target, warnings);
+        Long existingId = to.existingId();
+        NewMaterial newMaterial = to.newMaterial();
+        Scaling scaling = to.scaling();
         NewSample sample = sample(preview, fields, scaling, warnings);
         SourceFile source = new SourceFile(preview.fileName(), preview.format().mediaType(), preview.format().label(), bytes,
                 preview.sha256());
@@ -103,6 +100,65 @@ public final class ImportService {
         }
         return new ImportResult(stored.materialId(), stored.materialSlug(), stored.newMaterial(),
                 library.findSample(stored.sampleId()).orElseThrow(), stored.duplicate(), preview, warnings);
+    }
+
+    /** The material an import goes to: an existing one (its id) or a new one to create, and its scaling. */
+    private record Destination(Long existingId, NewMaterial newMaterial, Scaling scaling) {
+    }
+
+    private Destination destination(ImportTarget target, List<String> warnings) {
+        if (target instanceof ImportTarget.ExistingMaterial e) {
+            Material m = library.findMaterial(e.materialId()).orElseThrow(() -> new NotFoundException("material", e.materialId()));
+            return new Destination(m.id(), null, m.scaling());
+        }
+        ImportTarget.NewMaterial n = (ImportTarget.NewMaterial) target;
+        // a second material of the same name is almost always a re-import aimed at the wrong target
+        library.findMaterialIdByName(n.name()).ifPresent(id -> {
+            throw new ImportRequestException("materialName", "a material named '" + n.name()
+                    + "' already exists (id " + id + "); store under it with materialId=" + id + " or choose another name");
+        });
+        return new Destination(null, newMaterial(n, warnings), n.scaling());
+    }
+
+    /**
+     * Stores curves read from the blocks of one JCAMP-DX file (one chosen block, or each block), each as its
+     * own sample of the same material, in one transaction. When the file holds several spectra each
+     * sample's notes start with its block number and title, so that the samples can be told apart.
+     */
+    private ImportResult storeBlocks(List<FilePreview> previews, byte[] bytes, ImportTarget target, SampleFields fields)
+            throws ImportException {
+        List<String> warnings = new ArrayList<>();
+        Destination to = destination(target, warnings);
+        List<NewSample> samples = new ArrayList<>();
+        List<List<String>> perBlock = new ArrayList<>();
+        for (FilePreview p : previews) {
+            List<String> w = new ArrayList<>(p.warnings());
+            samples.add(sample(p, BlockNotes.withBlockNote(fields, p), to.scaling(), w));
+            perBlock.add(w);
+        }
+        warnings.addAll(0, BlockNotes.mergeWarnings(previews, perBlock));
+        FilePreview first = previews.get(0);
+        SourceFile source = new SourceFile(first.fileName(), first.format().mediaType(), first.format().label(), bytes,
+                first.sha256());
+        StoredBlocks stored = library.storeBlocks(to.existingId(), to.newMaterial(), samples, source);
+        List<ImportResult.BlockSample> blocks = new ArrayList<>();
+        for (int i = 0; i < previews.size(); i++) {
+            FilePreview p = previews.get(i);
+            StoredBlocks.Stored s = stored.samples().get(i);
+            FileBlock b = p.block().orElseThrow(() -> new IllegalStateException("a block preview without its block"));
+            if (s.duplicate()) {
+                warnings.add(b.label() + " of this file (SHA-256 " + p.sha256().substring(0, 12) + "…) is already stored"
+                        + " for this material at " + samples.get(i).thicknessMm() + " mm as sample " + s.sampleId()
+                        + "; it was not added again");
+            }
+            blocks.add(new ImportResult.BlockSample(b.number(), b.title(),
+                    library.findSample(s.sampleId()).orElseThrow(), s.duplicate(), p.pointCount()));
+        }
+        if (!stored.allDuplicates()) {
+            afterCommit.run();
+        }
+        return new ImportResult(stored.materialId(), stored.materialSlug(), stored.newMaterial(), blocks.get(0).sample(),
+                stored.allDuplicates(), first, warnings, blocks);
     }
 
     private static NewMaterial newMaterial(ImportTarget.NewMaterial n, List<String> warnings) {

@@ -283,6 +283,39 @@ public final class OptionText {
         }
     }
 
+    /**
+     * The options with the JCAMP-DX block choice added: {@code block} a block number as the preview lists it,
+     * {@code eachBlock} true to store every block as its own sample; the field names are those to name in a
+     * refusal (HTTP form or manifest column).
+     */
+    public static ImportOptions withBlocks(ImportOptions options, String blockField, String block, String eachField,
+                                           String each) {
+        java.util.OptionalInt chosen = blockNumber(blockField, block);
+        boolean all = bool(eachField, each);
+        if (chosen.isPresent() && all) {
+            throw new ImportRequestException(blockField, "give " + blockField + " (one block) or " + eachField
+                    + " (every block), not both");
+        }
+        return options.withBlocks(chosen, all);
+    }
+
+    /** A JCAMP-DX block number as the preview lists it (0 or more); empty when blank. */
+    public static java.util.OptionalInt blockNumber(String field, String s) {
+        if (blank(s)) {
+            return java.util.OptionalInt.empty();
+        }
+        try {
+            int n = Integer.parseInt(s.strip());
+            if (n >= 0) {
+                return java.util.OptionalInt.of(n);
+            }
+        } catch (NumberFormatException e) {
+            // reported below
+        }
+        throw new ImportRequestException(field, "'" + s.strip() + "' is not a block number as the preview lists them"
+                + " (0, 1, 2, …)");
+    }
+
     private interface Parse<T> {
         T get();
     }

@@ -213,6 +213,86 @@ public class JooqLibraryRepository {
         });
     }
 
+    /**
+     * Stores several curves read from one file, each as its own sample (the blocks of a JCAMP-DX file), in
+     * one transaction: the material when it is new, every sample, its curve and a copy of the file's bytes
+     * per sample (so that each sample keeps its original when another is retired); all of these rows or none.
+     * A curve the material already holds from the same file, at the same thickness and with exactly the same
+     * wavelengths and transmittances, is a duplicate: nothing is written for it and its sample is returned.
+     * The curve takes part in the match because the blocks of one file share its checksum.
+     *
+     * @throws NotFoundException when the existing material does not exist
+     */
+    public StoredBlocks storeBlocks(Long existingMaterialId, NewMaterial newMaterial, List<NewSample> samples,
+                                    SourceFile file) {
+        if ((existingMaterialId == null) == (newMaterial == null)) {
+            throw new IllegalArgumentException("give either an existing material id or a new material, not both or neither");
+        }
+        if (samples.isEmpty()) {
+            throw new IllegalArgumentException("no sample to store");
+        }
+        for (NewSample sample : samples) {
+            if (!file.sha256().equals(sample.sourceSha256())) {
+                throw new IllegalArgumentException("the sample's checksum " + sample.sourceSha256()
+                        + " is not the file's " + file.sha256());
+            }
+        }
+        return db.transactionResult(tx -> {
+            DSLContext t = tx.dsl();
+            long materialId;
+            String slug;
+            if (existingMaterialId != null) {
+                materialId = existingMaterialId;
+                Record target = t.select(MATERIAL.SLUG, MATERIAL.RETIRED_AT).from(MATERIAL).where(MATERIAL.ID.eq(materialId))
+                        .fetchOptional().orElseThrow(() -> new NotFoundException("material", existingMaterialId));
+                if (target.get(MATERIAL.RETIRED_AT) != null) {
+                    throw new RetiredException("material", materialId, target.get(MATERIAL.RETIRED_AT).toInstant());
+                }
+                slug = target.get(MATERIAL.SLUG);
+            } else {
+                NewMaterial unique = withUniqueSlug(t, newMaterial);
+                materialId = insertMaterialRow(t, unique);
+                slug = unique.slug();
+            }
+            // duplicates are matched against what was stored before this import, not against its own blocks
+            List<Optional<Long>> before = new ArrayList<>();
+            for (NewSample sample : samples) {
+                before.add(existingMaterialId == null ? Optional.empty() : findSameCurve(t, materialId, sample));
+            }
+            List<StoredBlocks.Stored> stored = new ArrayList<>();
+            boolean wrote = false;
+            for (int i = 0; i < samples.size(); i++) {
+                if (before.get(i).isPresent()) {
+                    stored.add(new StoredBlocks.Stored(before.get(i).get(), true));
+                    continue;
+                }
+                long sampleId = insertSampleRows(t, materialId, samples.get(i));
+                insertSourceFile(t, sampleId, file);
+                stored.add(new StoredBlocks.Stored(sampleId, false));
+                wrote = true;
+            }
+            if (wrote || existingMaterialId == null) {
+                LibraryGeneration.bump(t);
+            }
+            return new StoredBlocks(materialId, slug, existingMaterialId == null, stored);
+        });
+    }
+
+    /** A live sample of the material at the sample's thickness holding the same curve of the same file. */
+    private static Optional<Long> findSameCurve(DSLContext t, long materialId, NewSample sample) {
+        byte[] nm = PackedArrays.pack(sample.curve().wavelengthsNm());
+        byte[] tr = PackedArrays.pack(sample.curve().transmittances());
+        return t.select(SAMPLE.ID, CURVE.WAVELENGTHS_NM, CURVE.TRANSMITTANCE).from(CURVE).join(SAMPLE)
+                .on(SAMPLE.ID.eq(CURVE.SAMPLE_ID))
+                .where(CURVE.SOURCE_SHA256.eq(sample.sourceSha256()))
+                .and(SAMPLE.MATERIAL_ID.eq(materialId))
+                .and(SAMPLE.THICKNESS_MM.eq(sample.thicknessMm()))
+                .and(SAMPLE.RETIRED_AT.isNull())
+                .orderBy(SAMPLE.ID).fetch().stream()
+                .filter(r -> Arrays.equals(r.get(CURVE.WAVELENGTHS_NM), nm) && Arrays.equals(r.get(CURVE.TRANSMITTANCE), tr))
+                .map(r -> r.get(SAMPLE.ID)).findFirst();
+    }
+
     /** The sample of this material at this thickness whose curve came from a file with this checksum. */
     public Optional<Long> findDuplicate(long materialId, String sha256, double thicknessMm) {
         return findDuplicate(db, materialId, sha256, thicknessMm);

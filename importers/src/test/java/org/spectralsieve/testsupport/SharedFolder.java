@@ -67,6 +67,30 @@ public final class SharedFolder {
         return referenceFile(folder + "/" + name);
     }
 
+    /**
+     * The one file of {@code reference-data/} with this name, in whichever of its folders it lies, so that a
+     * test names the data and not a folder named after a person; or the calling test is skipped. Two files of
+     * that name are an error (the test would not know which it reads).
+     */
+    public static Path referenceFileNamed(String fileName) {
+        requireMarkedCaller(fileName);
+        Path data = root().resolve("reference-data");
+        java.util.List<Path> found = java.util.List.of();
+        if (Files.isDirectory(data)) {
+            try (java.util.stream.Stream<Path> files = Files.walk(data, 3)) {
+                found = files.filter(Files::isRegularFile).filter(f -> f.getFileName().toString().equals(fileName))
+                        .sorted().toList();
+            } catch (java.io.IOException e) {
+                throw new java.io.UncheckedIOException("cannot list " + data, e);
+            }
+        }
+        if (found.size() > 1) {
+            throw new IllegalStateException("reference-data holds " + found.size() + " files named " + fileName + ": "
+                    + found);
+        }
+        return found.isEmpty() ? referenceFile(fileName) : found.get(0);
+    }
+
     /** A file of the shared folder (e.g. {@code "reference-data/cie-1nm/a.csv"}), or the calling test is skipped. */
     public static Path file(String relative) {
         requireMarkedCaller(relative);

@@ -40,6 +40,29 @@ class SharedFolderTest {
         return SharedFolder.referenceFile(relative);
     }
 
+    @ReadsSharedFolder
+    private static Path lookUpNamed(String name) {
+        return SharedFolder.referenceFileNamed(name);
+    }
+
+    @Test
+    void aReferenceFileIsFoundByItsNameInWhicheverFolderItLies(@TempDir Path shared) throws IOException {
+        Path file = Files.createDirectories(shared.resolve("reference-data/some-collection")).resolve("series.jdx");
+        Files.writeString(file, "##TITLE= illustrative\n");
+        System.setProperty(SharedFolder.PROPERTY, shared.toString());
+
+        assertThat(lookUpNamed("series.jdx")).isEqualTo(file);
+    }
+
+    @Test
+    void aFileNameFoundNowhereSkipsTheTestNamingTheFile(@TempDir Path shared) throws IOException {
+        Files.createDirectories(shared.resolve("reference-data/some-collection"));
+        System.setProperty(SharedFolder.PROPERTY, shared.toString());
+
+        assertThatThrownBy(() -> lookUpNamed("series.jdx")).isInstanceOf(TestAbortedException.class)
+                .hasMessageContaining("series.jdx");
+    }
+
     @Test
     void aReferenceFileInTheConfiguredFolderIsFound(@TempDir Path shared) throws IOException {
         Path file = Files.createDirectories(shared.resolve("reference-data/cie-1nm")).resolve("a.csv");

@@ -60,9 +60,29 @@ public final class JcampReader {
     }
 
     public ParsedSpectrum read(String sourceName, Reader in, JcampOptions options) throws ImportException {
-        List<JcampBlock> blocks = blocks(sourceName, in);
+        return read(sourceName, blocks(sourceName, in), options);
+    }
+
+    /**
+     * Reads the block the options choose from blocks already decoded by {@link #blocks}, with the warning
+     * that lists the blocks left out; lets a caller that also lists or reads the other blocks decode once.
+     */
+    public ParsedSpectrum read(String sourceName, List<JcampBlock> blocks, JcampOptions options)
+            throws ImportException {
         JcampBlock chosen = pick(sourceName, blocks, options);
         return new SpectrumBuilder(sourceName, chosen, options.read(), leftOut(blocks, chosen)).build();
+    }
+
+    /**
+     * Reads one block of a file whose every block is imported on its own: as {@link #read}, without the
+     * warning about blocks left out (none is). The block's own warnings are kept.
+     */
+    public ParsedSpectrum readOne(String sourceName, JcampBlock block, JcampOptions options) throws ImportException {
+        if (!block.hasData()) {
+            throw new ImportException(sourceName, block.startLine(), null, "block " + block.index() + " ('"
+                    + block.title() + "') holds no ##XYDATA, ##XYPOINTS or ##PEAK TABLE");
+        }
+        return new SpectrumBuilder(sourceName, block, options.read(), List.of()).build();
     }
 
     /**
@@ -85,7 +105,8 @@ public final class JcampReader {
                     .append(b.label(Labels.XUNITS).map(u -> " " + u).orElse("")).append(')');
         }
         w.append(". Imported block ").append(chosen.index()).append(" only; the other ").append(withData.size() - 1)
-                .append(withData.size() == 2 ? " was" : " were").append(" left out (an emitter or response import takes a block option; a curve import reads the first block for now)");
+                .append(withData.size() == 2 ? " was" : " were").append(" left out (choose another with the block"
+                        + " option; a curve import can also store each block as its own sample with eachBlock)");
         return List.of(w.toString());
     }
 
