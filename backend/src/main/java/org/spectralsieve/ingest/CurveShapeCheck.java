@@ -58,6 +58,7 @@ final class CurveShapeCheck {
         }
         List<double[]> rows = new ArrayList<>();
         StringBuilder header = new StringBuilder();
+        StringBuilder columnNames = new StringBuilder(); // without comments: "# thickness: 125 µm" names no axis unit
         for (String raw : (Iterable<String>) text.lines()::iterator) {
             String line = raw.strip();
             if (line.isEmpty()) {
@@ -67,6 +68,9 @@ final class CurveShapeCheck {
             if (row == null) {
                 if (rows.isEmpty()) {
                     header.append(line).append('\n'); // comments and column names above the data
+                    if (!line.startsWith("#")) {
+                        columnNames.append(line).append('\n');
+                    }
                 }
                 continue;
             }
@@ -80,7 +84,9 @@ final class CurveShapeCheck {
         }
         String head = header.toString();
         checkTristimulus(fileName, rows);
-        checkAxis(fileName, rows, head);
+        if (options.xUnit().isEmpty() && options.xColumn().isEmpty()) {
+            checkAxis(fileName, rows, columnNames.toString()); // a user who set the x unit or column has said what the axis is
+        }
         checkMagnitude(fileName, rows, head, options);
     }
 
@@ -133,7 +139,7 @@ final class CurveShapeCheck {
         }
         String range = nm(min) + "–" + nm(max) + " nm";
         String hint = scale == 1 && max < AXIS_MIN_NM && min >= 0.05
-                ? " It looks like micrometres read as nanometres: name the unit in the header (e.g. wavelength_um)."
+                ? " It looks like micrometres read as nanometres: name the unit in the header (e.g. wavelength_um) or set the x unit (xUnit=um)."
                 : "";
         throw ImportException.ofSource(fileName, "its wavelength axis runs " + range
                 + ", entirely outside the 100–25,000 nm a transmittance curve here can cover, so it is not read"

@@ -187,14 +187,15 @@ public final class FileImport {
         if (o.decimalMark().isPresent()) {
             r = r.decimalMark(o.decimalMark().get());
         }
-        return r;
+        if (o.xUnit().isPresent()) {
+            r = r.xUnit(o.xUnit().get());
+        }
+        return r.columns(o.xColumn(), o.yColumn());
     }
 
     private static ParsedSpectrum jcamp(String fileName, String text, ImportOptions o) throws ImportException {
-        JcampOptions options = JcampOptions.defaults();
-        if (o.yKind().isPresent()) {
-            options = options.withYKind(o.yKind().get());
-        }
+        // the same overrides as delimited text: y kind, x unit (columns and a decimal comma are noted as not applying)
+        JcampOptions options = new JcampOptions(readOptions(o), JcampOptions.defaults().block());
         return new JcampReader().read(fileName, new StringReader(text), options);
     }
 
@@ -204,6 +205,7 @@ public final class FileImport {
         double limit = o.detectionLimit().isPresent() ? o.detectionLimit().getAsDouble() : metadataLimit(s);
         List<String> all = new ArrayList<>(warnings);
         all.addAll(s.warnings());
+        all.addAll(s.sampleMetadata().notes()); // a thickness or date the file gives but that cannot be used
         // a clamped floor is a detection limit the file does not state; a stated limit is never lowered
         var floor = InstrumentFloor.find(s.wavelengthsNm(), s.transmittanceFractions());
         if (floor.isPresent() && floor.get().raise(limit) > limit) {
@@ -239,6 +241,7 @@ public final class FileImport {
         }
         List<String> all = new ArrayList<>(warnings);
         all.addAll(s.warnings());
+        all.addAll(s.sampleMetadata().notes());
         OutOfRangeReadings.settle(fileName, s.wavelengthsNm(), t, below, limits, all);
         Curve curve;
         try {

@@ -135,6 +135,11 @@ public final class ParsedSpectrum {
         return metadata;
     }
 
+    /** Thickness, instrument and date of measurement as the metadata lines give them. */
+    public SampleMetadata sampleMetadata() {
+        return SampleMetadata.of(metadata);
+    }
+
     /** Things the user should know that did not stop the import (e.g. a guessed y kind). */
     public List<String> warnings() {
         return warnings;
