@@ -10,6 +10,7 @@ import java.util.Arrays;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
+import java.util.function.IntFunction;
 import java.util.regex.Pattern;
 import org.spectralsieve.importers.DatasheetPointsReader;
 import org.spectralsieve.importers.DelimitedTextReader;
@@ -46,6 +47,9 @@ public final class FileImport {
     private static final int SNIFF_LINES = 200;
     private static final Pattern CAPTURE_COLUMN = Pattern.compile("(dark|reference|ref)([ _@.-].*|\\d.*)?");
     private static final Pattern METADATA = Pattern.compile("#\\s*([A-Za-z_ ]+?)\\s*[:=]\\s*(.*)");
+    private static final Pattern LINE_BREAK = Pattern.compile("\r\n|\r|\n");
+    /** Longest line quoted in a message. */
+    private static final int QUOTED_LINE = 100;
 
     private final int maxPoints;
 
@@ -69,14 +73,14 @@ public final class FileImport {
         CurveShapeCheck.refuseNonTransmittance(fileName, text, format, options);
         try {
             return switch (format) {
-                case JCAMP_DX -> fromSpectrum(format, bytes, jcamp(fileName, text, options), options, warnings);
+                case JCAMP_DX -> fromSpectrum(format, bytes, jcamp(fileName, text, options), options, warnings, text);
                 case DATASHEET_POINTS -> fromSpectrum(format, bytes,
                         new DatasheetPointsReader().read(fileName, new StringReader(text), readOptions(options)), options,
-                        warnings);
+                        warnings, text);
                 case RAW_COUNTS -> rawCounts(fileName, bytes, text, options, warnings);
                 case DELIMITED -> fromSpectrum(format, bytes,
                         new DelimitedTextReader().read(fileName, new StringReader(text), readOptions(options)), options,
-                        warnings);
+                        warnings, text);
             };
         } catch (IllegalArgumentException e) {
             // readers validate their own results with IllegalArgumentException; for the user it is a bad file
@@ -200,7 +204,8 @@ public final class FileImport {
     }
 
     private FilePreview fromSpectrum(ImportFormat format, byte[] bytes, ParsedSpectrum s, ImportOptions o,
-                                     List<String> warnings) throws ImportException {
+                                     List<String> warnings, String text) throws ImportException {
+        IntFunction<String> lineText = lineText(text);
         checkPoints(s.sourceName(), s.size());
         double limit = o.detectionLimit().isPresent() ? o.detectionLimit().getAsDouble() : metadataLimit(s);
         List<String> all = new ArrayList<>(warnings);
@@ -212,10 +217,28 @@ public final class FileImport {
             limit = floor.get().raise(limit);
             all.add(floor.get().warning());
         }
-        Curve curve = CurveIngest.toCurve(s, limit, all);
+        Curve curve = CurveIngest.toCurve(s, limit, all, lineText);
         Provenance provenance = format == ImportFormat.DATASHEET_POINTS ? Provenance.DATASHEET : provenanceFrom(s.metadata());
         return new FilePreview(s.sourceName(), format, s.xUnit(), s.yKind(), curve, limit, provenance, s.metadata(), all,
                 Checksums.sha256(bytes));
+    }
+
+    /**
+     * The text of a 1-based line as the file has it (stripped), for quoting in a refusal; null when it is
+     * longer than {@value #QUOTED_LINE} characters (a packed JCAMP-DX line tells a reader nothing). Lines are
+     * split as {@link java.io.BufferedReader#readLine} splits them, so the numbers match the readers'.
+     */
+    static IntFunction<String> lineText(String text) {
+        return line -> {
+            String[] lines = LINE_BREAK.split(text, line + 1);
+            if (line < 1 || line > lines.length) {
+                return null;
+            }
+            String l = lines[line - 1];
+            int end = l.indexOf('\n');
+            l = (end >= 0 ? l.substring(0, end) : l).strip();
+            return l.length() <= QUOTED_LINE ? l : null;
+        };
     }
 
     private FilePreview rawCounts(String fileName, byte[] bytes, String text, ImportOptions o, List<String> warnings)

@@ -96,7 +96,7 @@ public final class DelimitedTextReader {
         List<String> warnings = new ArrayList<>(s.warnings());
         warnings.add("the file holds " + all.size() + " replicates; this is the first (readAll returns all)");
         return ParsedSpectrum.of(s.sourceName(), s.wavelengthsNm(), s.values(), s.upperBounds(), s.yKind(),
-                s.xUnit(), s.metadata(), warnings);
+                s.xUnit(), s.metadata(), warnings).withLines(s.lines());
     }
 
     /** One x/y column pair; {@code role.yKind()} null when there is no header. */
@@ -426,7 +426,7 @@ public final class DelimitedTextReader {
             warnings.addAll(c.notes());
             warnings.addAll(extraNotes);
             return ParsedSpectrum.of(source, c.ordered().x(), c.ordered().values()[0], c.ordered().bounds()[0],
-                    c.kind(), c.series().unit(), metadata, warnings);
+                    c.kind(), c.series().unit(), metadata, warnings).withLines(c.ordered().lines());
         }
     }
 }

@@ -201,14 +201,23 @@ public final class JcampReader {
             double[] x = nanometres(xUnit);
             double[] y = block.y();
             boolean[] bounds = block.upperBounds();
+            int[] lines = new int[x.length];
+            for (int i = 0; i < lines.length; i++) {
+                lines[i] = block.pointLine(i);
+                if (!Double.isFinite(y[i])) {
+                    throw new ImportException(source, lines[i], block.dataLabel(), "the y value at x = " + block.x()[i]
+                            + " is " + y[i] + " after YFACTOR is applied; not a finite number");
+                }
+            }
             if (checkMonotonic(x) < 0) {
                 reverse(x);
                 reverse(y);
                 reverse(bounds);
+                reverse(lines);
             }
             warnAboutRanges(xUnit, yKind, block.x(), y);
             try {
-                return ParsedSpectrum.of(source, x, y, bounds, yKind, xUnit, metadata(), warnings);
+                return ParsedSpectrum.of(source, x, y, bounds, yKind, xUnit, metadata(), warnings).withLines(lines);
             } catch (IllegalArgumentException e) {
                 throw new ImportException(source, block.startLine(), block.dataLabel(), e.getMessage(), e);
             }
