@@ -204,10 +204,6 @@ public final class JcampReader {
             int[] lines = new int[x.length];
             for (int i = 0; i < lines.length; i++) {
                 lines[i] = block.pointLine(i);
-                if (!Double.isFinite(y[i])) {
-                    throw new ImportException(source, lines[i], block.dataLabel(), "the y value at x = " + block.x()[i]
-                            + " is " + y[i] + " after YFACTOR is applied; not a finite number");
-                }
             }
             if (checkMonotonic(x) < 0) {
                 reverse(x);
