@@ -1,9 +1,12 @@
 package org.spectralsieve.ingest;
 
+import java.time.LocalDate;
+import java.time.ZoneOffset;
 import java.util.List;
 import java.util.Locale;
 import org.spectralsieve.importers.ImportException;
 import org.spectralsieve.importers.SampleMetadata;
+import org.spectralsieve.library.NewSample;
 import org.spectralsieve.library.Scaling;
 import org.spectralsieve.optics.PhysicalRanges;
 
@@ -52,7 +55,11 @@ final class FileSampleFields {
                     + file.instrument().get() + "'");
         }
         var measuredOn = given.measuredOn();
-        if (measuredOn == null) {
+        if (measuredOn == null && file.date().isPresent() && !plausible(file.date().get())) {
+            // a clock that was never set is common on instruments; the curve is still good
+            warnings.add("the file's date " + file.dateAsWritten().orElseThrow() + " is not used: a measurement date"
+                    + " must lie between " + NewSample.EARLIEST_MEASUREMENT + " and today");
+        } else if (measuredOn == null) {
             measuredOn = file.date().orElse(null);
         } else if (file.date().isPresent() && !file.date().get().equals(measuredOn)) {
             warnings.add("date of measurement " + measuredOn + " as given is stored; the file says "
@@ -73,6 +80,10 @@ final class FileSampleFields {
                 : "required; for a fixed material it is recorded, never rescaled";
         return unusable.map(t -> why + "; the file gives its thickness as '" + t.quoted() + "', which cannot be used: "
                 + t.problem().orElse("unreadable")).orElse(why + " (the file gives no thickness)");
+    }
+
+    private static boolean plausible(LocalDate date) {
+        return !date.isBefore(NewSample.EARLIEST_MEASUREMENT) && !date.isAfter(LocalDate.now(ZoneOffset.UTC));
     }
 
     private static boolean sameText(String a, String b) {

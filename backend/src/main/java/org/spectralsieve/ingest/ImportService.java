@@ -139,7 +139,8 @@ public final class ImportService {
         } catch (FieldException e) {
             // what the file says is the file's fault (named with the file); what the request says, the request's
             boolean fromFile = e.field().equals("wavelength") || e.field().equals("detectionLimit")
-                    || e.field().equals("instrument") && given.instrument() == null;
+                    || e.field().equals("instrument") && given.instrument() == null
+                    || e.field().equals("measuredOn") && given.measuredOn() == null;
             if (fromFile) {
                 throw new IngestException(p.fileName(), e.field(), e.getMessage());
             }

@@ -129,6 +129,14 @@ class FileMetadataFieldsTest {
     }
 
     @Test
+    void aFileDateInTheFutureIsNotUsedButTheCurveIsStored() throws ImportException {
+        ImportResult r = store("# thickness: 2 mm\n# date: 2999-01-01\n" + CURVE, none());
+
+        assertThat(r.sample().measuredOn()).isNull();
+        assertThat(r.warnings()).anyMatch(w -> w.contains("2999-01-01 is not used"));
+    }
+
+    @Test
     void anAmbiguousDateIsLeftOutWithAWarningInThePreview() throws ImportException {
         FilePreview p = imports.preview("bench.csv", ("# date: 03/04/2026\n" + CURVE).getBytes(StandardCharsets.UTF_8),
                 ImportOptions.defaults());
