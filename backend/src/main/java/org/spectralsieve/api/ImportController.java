@@ -3,6 +3,7 @@ package org.spectralsieve.api;
 import java.io.IOException;
 import java.net.URI;
 import org.spectralsieve.api.ImportForms.KeepForm;
+import org.spectralsieve.api.ImportForms.AxisForm;
 import org.spectralsieve.api.ImportForms.ReadForm;
 import org.spectralsieve.api.ImportForms.StoreForm;
 import org.spectralsieve.api.ImportResponses.PreviewResponse;
@@ -53,19 +54,21 @@ class ImportController {
 
     @PostMapping(path = "/api/imports/preview", consumes = MediaType.MULTIPART_FORM_DATA_VALUE)
     PreviewResponse preview(@RequestPart("file") MultipartFile file, @ModelAttribute ReadForm read,
-                            @ModelAttribute KeepForm keep) throws ImportException, IOException {
+                            @ModelAttribute KeepForm keep, @ModelAttribute AxisForm axes)
+            throws ImportException, IOException {
         return PreviewResponse.of(imports.preview(file.getOriginalFilename(), file.getBytes(),
-                keep.applyTo(read.options())));
+                axes.applyTo(keep.applyTo(read.options()))));
     }
 
     @PostMapping(path = "/api/imports", consumes = MediaType.MULTIPART_FORM_DATA_VALUE)
     ResponseEntity<StoreResponse> store(@RequestPart("file") MultipartFile file, @ModelAttribute ReadForm read,
-                                        @ModelAttribute StoreForm store, @ModelAttribute KeepForm keep)
+                                        @ModelAttribute StoreForm store, @ModelAttribute KeepForm keep,
+                                        @ModelAttribute AxisForm axes)
             throws ImportException, IOException {
         // target and fields are checked before the file is read: a form mistake costs no parsing
         var target = store.target();
         var fields = store.fields();
-        ImportResult result = imports.store(file.getOriginalFilename(), file.getBytes(), keep.applyTo(read.options()),
+        ImportResult result = imports.store(file.getOriginalFilename(), file.getBytes(), axes.applyTo(keep.applyTo(read.options())),
                 target, fields);
         StoreResponse body = StoreResponse.of(result);
         if (result.duplicate()) {

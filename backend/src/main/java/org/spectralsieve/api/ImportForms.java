@@ -55,6 +55,19 @@ final class ImportForms {
     }
 
     /**
+     * Corrections of what the file says about its axes; every field optional.
+     *
+     * @param xUnit   nm, um, angstrom, cm-1: the wavelength unit whatever the header or XUNITS say
+     * @param xColumn the wavelength column, counted from 1 (delimited text)
+     * @param yColumn the value column, counted from 1 (delimited text)
+     */
+    record AxisForm(String xUnit, String xColumn, String yColumn) {
+        ImportOptions applyTo(ImportOptions options) {
+            return OptionText.withAxes(options, "xUnit", xUnit, "xColumn", xColumn, "yColumn", yColumn);
+        }
+    }
+
+    /**
      * Where to store and what the sample is: either {@code materialId}, or {@code materialName} with
      * {@code materialClass}, {@code scaling} (bulk|fixed) and optionally {@code indexN} and
      * {@code description}, {@code stockThicknesses} ("2 3 6", "25 50 125 um") and {@code madeRange}

@@ -25,7 +25,7 @@ import picocli.CommandLine.Spec;
 /** {@code import FOLDER-OR-ZIP}: every file its manifest.csv lists, each in its own transaction, with a report. */
 @Command(name = "import", description = "Import a folder or a .zip holding manifest.csv (columns file,material,"
         + "thickness,geometry,provenance,instrument,date,notes,from,to; for a new material also class,scaling,index_n,stock,"
-        + "made_range; for a JCAMP-DX file with several spectra block or each_block)."
+        + "made_range; to correct a file x_unit,x_column,y_column,y_kind,decimal_mark; for a JCAMP-DX file with several spectra block or each_block)."
         + " Prints a progress bar on stderr and one report line per file on stdout; exit 1 when any file is refused.")
 final class ImportCommand implements Callable<Integer> {
 

@@ -43,8 +43,10 @@ import org.spectralsieve.optics.ConstantIndex;
  * sizes such as "2;3;6" or "25 50 125 um", and {@code made_range}, such as "1 to 12" or "25-125 um"). Later rows find a material created by an earlier
  * one by its name. Optional columns also: {@code lot}, {@code format}, {@code y_kind},
  * {@code detection_limit}, {@code from}, {@code to}: the wavelengths (nm) to keep of that file, each
- * replacing the batch-wide {@link KeepDefault} on its side, and for a JCAMP-DX file {@code block} (the block number the preview lists) or
- * {@code each_block} (true: every block its own sample, all in the row's one transaction). An unknown column refuses the manifest (a misspelt column would otherwise be
+ * replacing the batch-wide {@link KeepDefault} on its side, for a JCAMP-DX file {@code block} (the block number the
+ * preview lists) or {@code each_block} (true: every block its own sample, all in the row's one transaction), and
+ * corrections of what a file says about its axes: {@code x_unit} (nm, um, angstrom, cm-1), {@code x_column} and
+ * {@code y_column} (counted from 1), {@code decimal_mark} (point, comma). An unknown column refuses the manifest (a misspelt column would otherwise be
  * silently ignored).
  *
  * <p>Each row is imported in its own transaction: a refused row (unreadable file, missing file, bad
@@ -62,7 +64,8 @@ public final class BatchImport {
     static final List<String> REQUIRED = List.of("file", "material");
     static final List<String> COLUMNS = List.of("file", "material", "thickness", "geometry", "provenance", "instrument",
             "date", "notes", "lot", "class", "scaling", "index_n", "format", "y_kind", "detection_limit", "stock",
-            "made_range", "from", "to", "block", "each_block");
+            "made_range", "from", "to", "block", "each_block", "x_unit", "x_column", "y_column",
+            "decimal_mark");
 
     /**
      * A keep range for every row of a batch (the CLI's {@code --from}/{@code --to}); a row's own {@code from}
@@ -211,11 +214,14 @@ public final class BatchImport {
             }
             ImportTarget target = target(row, material);
             ImportOptions options = new ImportOptions(OptionText.format("format", row.get("format")),
-                    OptionText.yKind("y_kind", row.get("y_kind")), Optional.empty(), Replicates.FIRST, false,
+                    OptionText.yKind("y_kind", row.get("y_kind")),
+                    OptionText.decimalMark("decimal_mark", row.get("decimal_mark")), Replicates.FIRST, false,
                     OptionText.number("detection_limit", row.get("detection_limit")), OptionalDouble.empty(),
                     OptionalDouble.empty());
             options = keepRange(options, row, keep);
             options = OptionText.withBlocks(options, "block", row.get("block"), "each_block", row.get("each_block"));
+            options = OptionText.withAxes(options, "x_unit", row.get("x_unit"), "x_column", row.get("x_column"),
+                    "y_column", row.get("y_column"));
             SampleFields fields = new SampleFields(OptionText.thicknessOrNull("thickness", row.get("thickness")),
                     OptionText.geometry("geometry", row.get("geometry")), OptionText.provenance("provenance", row.get("provenance")),
                     OptionText.line("instrument", row.get("instrument"), NewSample.MAX_INSTRUMENT),

@@ -32,6 +32,9 @@ final class CurveShapeCheck {
             "(?im)^\\s*-?\\s*type:\\s*(tabulated\\s+(nk|n|k)|formula\\s*\\d*)\\s*$");
     private static final Pattern PERCENT_MARK = Pattern.compile("(?i)%|percent|pct");
     private static final Pattern MICROMETRE_MARK = Pattern.compile("(?i)µm|μm|\\bum\\b|micro|_um\\b");
+    /** Header names of axis columns: wavelength (also w.length, lambda, nm), wavenumber, pixel or index. */
+    private static final Pattern AXIS_NAME = Pattern.compile("(?i)wave|length|lambda|λ|^nm$|pixel|^index$");
+    private static final Pattern INDEX_NAME = Pattern.compile("(?i)pixel|^index$");
     private static final Pattern WAVENUMBER_MARK = Pattern.compile("(?i)cm-1|cm⁻¹|1/cm|wavenumber");
 
     private static final String SPECTRUM_IMPORT = "if it is an emitter or illuminant spectrum or a detector or"
@@ -58,6 +61,7 @@ final class CurveShapeCheck {
         }
         List<double[]> rows = new ArrayList<>();
         StringBuilder header = new StringBuilder();
+        StringBuilder columnNames = new StringBuilder(); // without comments: "# thickness: 125 µm" names no axis unit
         for (String raw : (Iterable<String>) text.lines()::iterator) {
             String line = raw.strip();
             if (line.isEmpty()) {
@@ -67,6 +71,9 @@ final class CurveShapeCheck {
             if (row == null) {
                 if (rows.isEmpty()) {
                     header.append(line).append('\n'); // comments and column names above the data
+                    if (!line.startsWith("#")) {
+                        columnNames.append(line).append('\n');
+                    }
                 }
                 continue;
             }
@@ -80,8 +87,10 @@ final class CurveShapeCheck {
         }
         String head = header.toString();
         checkTristimulus(fileName, rows);
-        checkAxis(fileName, rows, head);
-        checkMagnitude(fileName, rows, head, options);
+        if (options.xUnit().isEmpty() && options.xColumn().isEmpty()) {
+            checkAxis(fileName, rows, columnNames.toString()); // a user who set the x unit or column has said what the axis is
+        }
+        checkMagnitude(fileName, rows, head, valueColumns(columnNames.toString(), rows.get(0).length, options), options);
     }
 
     /** Three value columns peaking at clearly different wavelengths and falling near zero at both ends. */
@@ -124,16 +133,17 @@ final class CurveShapeCheck {
         double scale = MICROMETRE_MARK.matcher(head).find() ? 1000 : 1;
         double min = Double.POSITIVE_INFINITY;
         double max = Double.NEGATIVE_INFINITY;
+        int x = wavelengthColumn(head, rows.get(0).length);
         for (double[] r : rows) {
-            min = Math.min(min, r[0] * scale);
-            max = Math.max(max, r[0] * scale);
+            min = Math.min(min, r[x] * scale);
+            max = Math.max(max, r[x] * scale);
         }
         if (max >= AXIS_MIN_NM && min <= AXIS_MAX_NM) {
             return;
         }
         String range = nm(min) + "–" + nm(max) + " nm";
         String hint = scale == 1 && max < AXIS_MIN_NM && min >= 0.05
-                ? " It looks like micrometres read as nanometres: name the unit in the header (e.g. wavelength_um)."
+                ? " It looks like micrometres read as nanometres: name the unit in the header (e.g. wavelength_um) or set the x unit (xUnit=um)."
                 : "";
         throw ImportException.ofSource(fileName, "its wavelength axis runs " + range
                 + ", entirely outside the 100–25,000 nm a transmittance curve here can cover, so it is not read"
@@ -141,8 +151,51 @@ final class CurveShapeCheck {
     }
 
     /** Values far above 100 with no percent unit are not transmittance; an emission spectrum is the usual case. */
-    private static void checkMagnitude(String fileName, List<double[]> rows, String head, ImportOptions options)
-            throws ImportException {
+    /**
+     * The columns that hold values, 0-based: the chosen {@code yColumn}; else every column but the first, the
+     * chosen {@code xColumn} and those the header names as an axis (a second wavelength column of replicate
+     * pairs, a pixel number before the wavelength): their numbers are wavelengths or indices, not readings.
+     */
+    static boolean[] valueColumns(String columnNames, int count, ImportOptions options) {
+        boolean[] value = new boolean[count];
+        if (options.yColumn().isPresent()) {
+            int y = options.yColumn().getAsInt() - 1;
+            if (y < count) {
+                value[y] = true;
+            }
+            return value;
+        }
+        int x = options.xColumn().isPresent() ? options.xColumn().getAsInt() - 1 : wavelengthColumn(columnNames, count);
+        String[] names = names(columnNames);
+        for (int c = 0; c < count; c++) {
+            boolean axis = names.length == count && AXIS_NAME.matcher(names[c]).find();
+            value[c] = c != x && !axis;
+        }
+        return value;
+    }
+
+    /** The column names: the last line above the data that is not a comment, split at delimiters. */
+    private static String[] names(String columnNames) {
+        String[] lines = columnNames.strip().split("\n");
+        return lines[lines.length - 1].strip().split("\\s*[,;\\t]\\s*|\\s+");
+    }
+
+    /** The first column the header names as a wavelength (not a pixel or index), else the first column. */
+    private static int wavelengthColumn(String columnNames, int count) {
+        String[] names = names(columnNames.lines().filter(l -> !l.strip().startsWith("#"))
+                .reduce("", (a, b) -> a + "\n" + b));
+        if (names.length == count) {
+            for (int c = 0; c < count; c++) {
+                if (AXIS_NAME.matcher(names[c]).find() && !INDEX_NAME.matcher(names[c]).find()) {
+                    return c;
+                }
+            }
+        }
+        return 0;
+    }
+
+    private static void checkMagnitude(String fileName, List<double[]> rows, String head, boolean[] valueColumns,
+                                       ImportOptions options) throws ImportException {
         if (options.yKind().isPresent() && options.yKind().get() == YKind.ABSORBANCE) {
             return;
         }
@@ -151,8 +204,10 @@ final class CurveShapeCheck {
         }
         double max = Double.NEGATIVE_INFINITY;
         for (double[] r : rows) {
-            for (int c = 1; c < r.length; c++) {
-                max = Math.max(max, r[c]);
+            for (int c = 0; c < r.length && c < valueColumns.length; c++) {
+                if (valueColumns[c]) {
+                    max = Math.max(max, r[c]);
+                }
             }
         }
         if (max > PERCENT_CEILING) {

@@ -10,6 +10,7 @@ import java.util.Arrays;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
+import java.util.function.IntFunction;
 import java.util.regex.Pattern;
 import org.spectralsieve.importers.DatasheetPointsReader;
 import org.spectralsieve.importers.DelimitedTextReader;
@@ -52,6 +53,9 @@ public final class FileImport {
     private static final int SNIFF_LINES = 200;
     private static final Pattern CAPTURE_COLUMN = Pattern.compile("(dark|reference|ref)([ _@.-].*|\\d.*)?");
     private static final Pattern METADATA = Pattern.compile("#\\s*([A-Za-z_ ]+?)\\s*[:=]\\s*(.*)");
+    private static final Pattern LINE_BREAK = Pattern.compile("\r\n|\r|\n");
+    /** Longest line quoted in a message. */
+    private static final int QUOTED_LINE = 100;
 
     private final int maxPoints;
 
@@ -79,11 +83,11 @@ public final class FileImport {
                 case JCAMP_DX -> jcampPreview(fileName, bytes, text, options, warnings);
                 case DATASHEET_POINTS -> fromSpectrum(format, bytes,
                         new DatasheetPointsReader().read(fileName, new StringReader(text), readOptions(options)), options,
-                        warnings);
+                        warnings, text);
                 case RAW_COUNTS -> rawCounts(fileName, bytes, text, options, warnings);
                 case DELIMITED -> fromSpectrum(format, bytes,
                         new DelimitedTextReader().read(fileName, new StringReader(text), readOptions(options)), options,
-                        warnings);
+                        warnings, text);
             };
         } catch (IllegalArgumentException e) {
             // readers validate their own results with IllegalArgumentException; for the user it is a bad file
@@ -194,15 +198,15 @@ public final class FileImport {
         if (o.decimalMark().isPresent()) {
             r = r.decimalMark(o.decimalMark().get());
         }
-        return r;
+        if (o.xUnit().isPresent()) {
+            r = r.xUnit(o.xUnit().get());
+        }
+        return r.columns(o.xColumn(), o.yColumn());
     }
 
     private static JcampOptions jcampOptions(ImportOptions o) {
-        JcampOptions options = JcampOptions.defaults();
-        if (o.yKind().isPresent()) {
-            options = options.withYKind(o.yKind().get());
-        }
-        return options;
+        // the same overrides as delimited text: y kind, x unit (columns and a decimal comma are noted as not applying)
+        return new JcampOptions(readOptions(o), JcampOptions.defaults().block());
     }
 
     /** Only a JCAMP-DX file has blocks: a block option on another format is a mistake, not something to ignore. */
@@ -225,26 +229,26 @@ public final class FileImport {
         List<JcampBlock> all = reader.blocks(fileName, new StringReader(text));
         List<JcampBlock> withData = all.stream().filter(JcampBlock::hasData).toList();
         if (withData.isEmpty()) {
-            return fromSpectrum(ImportFormat.JCAMP_DX, bytes, reader.read(fileName, all, jcampOptions(o)), o, warnings);
+            return fromSpectrum(ImportFormat.JCAMP_DX, bytes, reader.read(fileName, all, jcampOptions(o)), o, warnings, text);
         }
         requireKnownBlock(fileName, withData, o);
         if (!o.eachBlock()) {
             JcampBlock chosen = o.block().isPresent() ? all.get(o.block().getAsInt()) : withData.get(0);
             FilePreview p = fromSpectrum(ImportFormat.JCAMP_DX, bytes,
-                    reader.read(fileName, all, jcampOptions(o).withBlock(chosen.index())), o, warnings);
-            Map<Integer, String> problems = problems(fileName, bytes, withData, chosen, o);
+                    reader.read(fileName, all, jcampOptions(o).withBlock(chosen.index())), o, warnings, text);
+            Map<Integer, String> problems = problems(fileName, bytes, text, withData, chosen, o);
             List<FileBlock> list = withData.stream().map(b -> FileBlock.of(BlockOutline.of(b), b == chosen,
                     problems.get(b.index()))).toList();
             return p.withBlocks(list, List.of());
         }
-        Map<Integer, String> problems = problems(fileName, bytes, withData, null, o);
+        Map<Integer, String> problems = problems(fileName, bytes, text, withData, null, o);
         List<FileBlock> list = withData.stream().map(b -> FileBlock.of(BlockOutline.of(b), true,
                 problems.get(b.index()))).toList();
         JcampBlock first = withData.stream().filter(b -> !problems.containsKey(b.index())).findFirst()
                 .orElseThrow(() -> new ImportException(fileName, withData.get(0).startLine(), null,
                         eachBlockRefusal(list)));
         FilePreview p = fromSpectrum(ImportFormat.JCAMP_DX, bytes, reader.readOne(fileName, first, jcampOptions(o)), o,
-                warnings);
+                warnings, text);
         List<String> more = new ArrayList<>();
         more.add("each of the file's " + withData.size() + " blocks would be stored as its own sample of the material;"
                 + " this preview shows " + FileBlock.of(BlockOutline.of(first), true, null).label());
@@ -277,7 +281,7 @@ public final class FileImport {
         for (FileBlock b : list) {
             JcampBlock block = all.get(b.number());
             previews.add(fromSpectrum(ImportFormat.JCAMP_DX, bytes, reader.readOne(fileName, block, jcampOptions(options)),
-                    options, warnings).withBlocks(list, List.of()));
+                    options, warnings, text).withBlocks(list, List.of()));
         }
         return previews;
     }
@@ -300,7 +304,7 @@ public final class FileImport {
     }
 
     /** Why each block other than {@code skip} cannot be a transmittance curve, by block number; readable ones are absent. */
-    private Map<Integer, String> problems(String fileName, byte[] bytes, List<JcampBlock> blocks, JcampBlock skip,
+    private Map<Integer, String> problems(String fileName, byte[] bytes, String text, List<JcampBlock> blocks, JcampBlock skip,
                                           ImportOptions o) {
         Map<Integer, String> problems = new java.util.HashMap<>();
         if (blocks.size() < 2 && skip != null) {
@@ -312,7 +316,7 @@ public final class FileImport {
                 continue;
             }
             try {
-                fromSpectrum(ImportFormat.JCAMP_DX, bytes, reader.readOne(fileName, b, jcampOptions(o)), o, new ArrayList<>());
+                fromSpectrum(ImportFormat.JCAMP_DX, bytes, reader.readOne(fileName, b, jcampOptions(o)), o, new ArrayList<>(), text);
             } catch (ImportException | IngestException | ImportLimitException | IllegalArgumentException e) {
                 problems.put(b.index(), e.getMessage());
             }
@@ -335,7 +339,8 @@ public final class FileImport {
     }
 
     private FilePreview fromSpectrum(ImportFormat format, byte[] bytes, ParsedSpectrum s, ImportOptions o,
-                                     List<String> warnings) throws ImportException {
+                                     List<String> warnings, String text) throws ImportException {
+        IntFunction<String> lineText = lineText(text);
         checkPoints(s.sourceName(), s.size());
         double limit = o.detectionLimit().isPresent() ? o.detectionLimit().getAsDouble() : metadataLimit(s);
         List<String> all = new ArrayList<>(warnings);
@@ -345,17 +350,36 @@ public final class FileImport {
         KeptRange kept = KeptRange.choose(axis, NoiseRegion.find(axis, s.transmittanceFractions()), o);
         all.addAll(kept.warnings(axis));
         s = kept.isWhole() ? s : s.slice(kept.firstIndex(), kept.lastIndex() + 1);
+        all.addAll(s.sampleMetadata().notes()); // a thickness or date the file gives but that cannot be used
         // a clamped floor is a detection limit the file does not state; a stated limit is never lowered
         var floor = InstrumentFloor.find(s.wavelengthsNm(), s.transmittanceFractions());
         if (floor.isPresent() && floor.get().raise(limit) > limit) {
             limit = floor.get().raise(limit);
             all.add(floor.get().warning());
         }
-        Curve curve = CurveIngest.toCurve(s, limit, all);
+        Curve curve = CurveIngest.toCurve(s, limit, all, lineText);
         InfraredOnly.warning(curve).ifPresent(all::add);
         Provenance provenance = format == ImportFormat.DATASHEET_POINTS ? Provenance.DATASHEET : provenanceFrom(s.metadata());
         return new FilePreview(s.sourceName(), format, s.xUnit(), s.yKind(), curve, limit, provenance, s.metadata(), all,
                 Checksums.sha256(bytes), kept);
+    }
+
+    /**
+     * The text of a 1-based line as the file has it (stripped), for quoting in a refusal; null when it is
+     * longer than {@value #QUOTED_LINE} characters (a packed JCAMP-DX line tells a reader nothing). Lines are
+     * split as {@link java.io.BufferedReader#readLine} splits them, so the numbers match the readers'.
+     */
+    static IntFunction<String> lineText(String text) {
+        return line -> {
+            String[] lines = LINE_BREAK.split(text, line + 1);
+            if (line < 1 || line > lines.length) {
+                return null;
+            }
+            String l = lines[line - 1];
+            int end = l.indexOf('\n');
+            l = (end >= 0 ? l.substring(0, end) : l).strip();
+            return l.length() <= QUOTED_LINE ? l : null;
+        };
     }
 
     private FilePreview rawCounts(String fileName, byte[] bytes, String text, ImportOptions o, List<String> warnings)
@@ -388,6 +412,7 @@ public final class FileImport {
         List<String> all = new ArrayList<>(warnings);
         all.addAll(s.warnings());
         all.addAll(kept.warnings(axis));
+        all.addAll(s.sampleMetadata().notes());
         OutOfRangeReadings.settle(fileName, nm, t, below, limits, all);
         Curve curve;
         try {

@@ -179,10 +179,11 @@ public final class ImportService {
         }
     }
 
-    private static NewSample sample(FilePreview p, SampleFields f, Scaling scaling, List<String> warnings)
+    private static NewSample sample(FilePreview p, SampleFields given, Scaling scaling, List<String> warnings)
             throws ImportException {
-        double thickness = thickness(p, f, scaling);
-        String instrument = f.instrument() != null ? f.instrument() : p.metadata().getOrDefault("instrument", "");
+        SampleFields f = FileSampleFields.complete(p, given, warnings);
+        double thickness = thickness(p, f, given.thicknessMm() == null, scaling);
+        String instrument = f.instrument() != null ? f.instrument() : "";
         Provenance provenance = f.provenance() != null ? f.provenance() : p.provenance();
         if (p.format() == ImportFormat.DATASHEET_POINTS && provenance != Provenance.DATASHEET) {
             warnings.add("points read off a datasheet graph stored with provenance '" + provenance.label() + "' as asked");
@@ -194,7 +195,8 @@ public final class ImportService {
         } catch (FieldException e) {
             // what the file says is the file's fault (named with the file); what the request says, the request's
             boolean fromFile = e.field().equals("wavelength") || e.field().equals("detectionLimit")
-                    || e.field().equals("instrument") && f.instrument() == null;
+                    || e.field().equals("instrument") && given.instrument() == null
+                    || e.field().equals("measuredOn") && given.measuredOn() == null;
             if (fromFile) {
                 throw new IngestException(p.fileName(), e.field(), e.getMessage());
             }
@@ -202,29 +204,16 @@ public final class ImportService {
         }
     }
 
-    private static double thickness(FilePreview p, SampleFields f, Scaling scaling) throws ImportException {
-        if (f.thicknessMm() != null) {
-            double t = f.thicknessMm();
-            if (!PhysicalRanges.isThicknessMm(t)) {
-                throw new ImportRequestException("thicknessMm", THICKNESS_RANGE + ", got " + t);
-            }
-            return t;
+    /** The given thickness, else the file's (already filled in by {@link FileSampleFields}), else refused. */
+    private static double thickness(FilePreview p, SampleFields f, boolean fromFile, Scaling scaling) {
+        if (f.thicknessMm() == null) {
+            throw new ImportRequestException("thicknessMm", FileSampleFields.missingThickness(p, scaling));
         }
-        String fromFile = p.metadata().get("thickness_mm");
-        if (fromFile != null) {
-            try {
-                double t = Double.parseDouble(fromFile.strip());
-                if (PhysicalRanges.isThicknessMm(t)) {
-                    return t;
-                }
-            } catch (NumberFormatException e) {
-                // reported below
-            }
-            throw new ImportException(p.fileName(), 0, "thickness_mm", THICKNESS_RANGE + ", was '" + fromFile + "'");
+        double t = f.thicknessMm();
+        if (!fromFile && !PhysicalRanges.isThicknessMm(t)) {
+            throw new ImportRequestException("thicknessMm", THICKNESS_RANGE + ", got " + t);
         }
-        throw new ImportRequestException("thicknessMm", scaling == Scaling.BULK
-                ? "required for a bulk material: its curve is rescaled from this thickness"
-                : "required (the file gives no thickness_mm); for a fixed material it is recorded, never rescaled");
+        return t;
     }
 
     private static String limited(String field, String value, int max) {

@@ -7,8 +7,10 @@ import java.time.format.DateTimeParseException;
 import java.util.Locale;
 import java.util.Optional;
 import java.util.OptionalDouble;
+import java.util.OptionalInt;
 import org.spectralsieve.importers.DecimalMark;
 import org.spectralsieve.importers.Replicates;
+import org.spectralsieve.importers.XUnit;
 import org.spectralsieve.importers.YKind;
 import org.spectralsieve.library.Geometry;
 import org.spectralsieve.library.MaterialClass;
@@ -173,6 +175,53 @@ public final class OptionText {
             case "comma", "," -> DecimalMark.COMMA;
             default -> throw new ImportRequestException(field, "'" + s + "' is not one of point, comma");
         });
+    }
+
+    /** {@code nm}, {@code um}/{@code µm}, {@code angstrom}/{@code å}, {@code cm-1}, or the constant name. */
+    public static Optional<XUnit> xUnit(String field, String s) {
+        if (blank(s)) {
+            return Optional.empty();
+        }
+        return Optional.of(switch (s.strip().toLowerCase(Locale.ROOT).replace('\u03bc', '\u00b5')) {
+            case "nm", "nanometre", "nanometer", "nanometres", "nanometers" -> XUnit.NANOMETRE;
+            case "um", "µm", "micrometre", "micrometer", "micrometres", "micrometers", "micron", "microns" ->
+                    XUnit.MICROMETRE;
+            case "angstrom", "angstroms", "å" -> XUnit.ANGSTROM;
+            case "cm-1", "1/cm", "wavenumber", "wavenumber_per_cm" -> XUnit.WAVENUMBER_PER_CM;
+            default -> throw new ImportRequestException(field, "'" + s + "' is not one of nm, um, angstrom, cm-1");
+        });
+    }
+
+    /** A column counted from 1, as a spreadsheet shows it; empty when blank. */
+    public static OptionalInt column(String field, String s) {
+        if (blank(s)) {
+            return OptionalInt.empty();
+        }
+        try {
+            int c = Integer.parseInt(s.strip());
+            if (c >= 1 && c <= 1024) {
+                return OptionalInt.of(c);
+            }
+        } catch (NumberFormatException e) {
+            // reported below
+        }
+        throw new ImportRequestException(field, "'" + s.strip() + "' is not a column number (1 for the first column)");
+    }
+
+    /**
+     * The axis overrides (x unit, wavelength column, value column) added to {@code options}; the field names
+     * are the caller's (HTTP form or manifest), so a refusal names the one the user wrote.
+     */
+    public static ImportOptions withAxes(ImportOptions options, String xUnitField, String xUnit, String xColumnField,
+                                         String xColumn, String yColumnField, String yColumn) {
+        Optional<XUnit> unit = xUnit(xUnitField, xUnit);
+        OptionalInt x = column(xColumnField, xColumn);
+        OptionalInt y = column(yColumnField, yColumn);
+        if (x.isPresent() && x.equals(y)) {
+            throw new ImportRequestException(yColumnField, xColumnField + " and " + yColumnField
+                    + " must be different columns, both are " + x.getAsInt());
+        }
+        return options.withAxes(unit, x, y);
     }
 
     public static Replicates replicates(String field, String s) {

@@ -1,6 +1,7 @@
 package org.spectralsieve.ingest;
 
 import java.util.List;
+import java.util.function.IntFunction;
 import java.util.Locale;
 import org.spectralsieve.spectrum.Curve;
 
@@ -50,6 +51,15 @@ final class OutOfRangeReadings {
      */
     static void settle(String sourceName, double[] nm, double[] t, boolean[] below, double[] limits,
                        List<String> warnings) {
+        settle(sourceName, nm, t, below, limits, warnings, i -> null);
+    }
+
+    /**
+     * As {@link #settle(String, double[], double[], boolean[], double[], List)}; {@code where} names point i as
+     * the file has it (its line and the value as written), or gives null, and is quoted in a refusal.
+     */
+    static void settle(String sourceName, double[] nm, double[] t, boolean[] below, double[] limits,
+                       List<String> warnings, IntFunction<String> where) {
         Span negative = new Span();
         Span beyondNoise = new Span();
         Span drift = new Span();
@@ -61,6 +71,7 @@ final class OutOfRangeReadings {
             }
             if (v < -NEGATIVE_NOISE_LIMIT) {
                 beyondNoise.add(nm[i], v);
+                beyondNoise.lowestAt = v == beyondNoise.lowest ? i : beyondNoise.lowestAt;
             } else if (v < 0) {
                 negative.add(nm[i], v);
             } else if (v > DRIFT_LIMIT) {
@@ -70,9 +81,11 @@ final class OutOfRangeReadings {
             }
         }
         if (beyondNoise.count > 0) {
+            String lowest = where.apply(beyondNoise.lowestAt);
             throw new IngestException(sourceName, "transmittance", beyondNoise.count + " readings below "
                     + pct(-NEGATIVE_NOISE_LIMIT) + " %T (lowest " + pct(beyondNoise.lowest) + " %T) " + beyondNoise.range()
-                    + ": more than noise, the dark or baseline correction is wrong there");
+                    + ": more than noise, the dark or baseline correction is wrong there"
+                    + (lowest == null ? "" : "; the lowest is at " + lowest));
         }
         if (negative.count > 0) {
             double noise = -negative.lowest;
@@ -116,6 +129,7 @@ final class OutOfRangeReadings {
     /** Count, wavelength range and extremes of one kind of reading. */
     private static final class Span {
         int count;
+        int lowestAt = -1;
         double fromNm = Double.POSITIVE_INFINITY;
         double toNm = Double.NEGATIVE_INFINITY;
         double lowest = Double.POSITIVE_INFINITY;

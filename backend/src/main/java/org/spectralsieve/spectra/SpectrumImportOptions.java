@@ -1,6 +1,5 @@
 package org.spectralsieve.spectra;
 
-import java.util.Locale;
 import java.util.Optional;
 import java.util.OptionalInt;
 import org.spectralsieve.importers.DecimalMark;
@@ -62,17 +61,7 @@ public record SpectrumImportOptions(Optional<ImportFormat> format, SpectrumValue
 
     /** {@code nm}, {@code um}/{@code µm}, {@code angstrom}/{@code å}, {@code cm-1}, or the constant name. */
     public static Optional<XUnit> xUnit(String field, String s) {
-        if (s == null || s.isBlank()) {
-            return Optional.empty();
-        }
-        return Optional.of(switch (s.strip().toLowerCase(Locale.ROOT).replace('\u03bc', '\u00b5')) {
-            case "nm", "nanometre", "nanometer", "nanometres", "nanometers" -> XUnit.NANOMETRE;
-            case "um", "µm", "micrometre", "micrometer", "micrometres", "micrometers", "micron", "microns" ->
-                    XUnit.MICROMETRE;
-            case "angstrom", "angstroms", "å" -> XUnit.ANGSTROM;
-            case "cm-1", "1/cm", "wavenumber", "wavenumber_per_cm" -> XUnit.WAVENUMBER_PER_CM;
-            default -> throw new ImportRequestException(field, "'" + s + "' is not one of nm, um, angstrom, cm-1");
-        });
+        return OptionText.xUnit(field, s);
     }
 
     private static OptionalInt blockIndex(String field, String s) {

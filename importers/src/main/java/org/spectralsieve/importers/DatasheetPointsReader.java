@@ -62,6 +62,6 @@ public final class DatasheetPointsReader {
         metadata.put("axis", axis);
         metadata.put("interpolation", "absorbance");
         return ParsedSpectrum.of(sourceName, s.wavelengthsNm(), v, s.upperBounds(), s.yKind(), s.xUnit(), metadata,
-                warnings);
+                warnings).withLines(s.lines());
     }
 }

@@ -83,7 +83,7 @@ public final class DelimitedTextReader {
 
     public List<ParsedSpectrum> readAll(String sourceName, Reader in, ReadOptions options) throws ImportException {
         BufferedReader lines = in instanceof BufferedReader b ? b : new BufferedReader(in, 1 << 16);
-        Layout layout = new Layout(sourceName, options.replicates());
+        Layout layout = new Layout(sourceName, options);
         TextTable table = TextTable.read(sourceName, lines, options.decimalMark(), maxRows, layout::choose);
         return new Assembly(table, layout, options).spectra();
     }
@@ -96,17 +96,18 @@ public final class DelimitedTextReader {
         List<String> warnings = new ArrayList<>(s.warnings());
         warnings.add("the file holds " + all.size() + " replicates; this is the first (readAll returns all)");
         return ParsedSpectrum.of(s.sourceName(), s.wavelengthsNm(), s.values(), s.upperBounds(), s.yKind(),
-                s.xUnit(), s.metadata(), warnings);
+                s.xUnit(), s.metadata(), warnings).withLines(s.lines());
     }
 
     /** One x/y column pair; {@code role.yKind()} null when there is no header. */
-    private record Series(int x, int y, String xName, String yName, XUnit unit, ColumnRole role) {
+    record Series(int x, int y, String xName, String yName, XUnit unit, ColumnRole role) {
     }
 
     /** Column roles, decided when the header is known. */
     private static final class Layout {
         private final String source;
         private final Replicates mode;
+        private final ReadOptions options;
         private final List<Series> series = new ArrayList<>();
         private final List<String> notes = new ArrayList<>();
         private int[] parsed;
@@ -114,19 +115,23 @@ public final class DelimitedTextReader {
         private ImportException noValueColumn;
         private Series xOnly;
 
-        Layout(String source, Replicates mode) {
+        Layout(String source, ReadOptions options) {
             this.source = source;
-            this.mode = mode;
+            this.options = options;
+            this.mode = options.columnsChosen() ? Replicates.FIRST : options.replicates();
         }
 
         TextTable.Selection choose(TextTable.Header header) throws ImportException {
             List<String> names = header.names() == null ? positionalNames(header.columnCount()) : header.names();
-            if (header.names() == null) {
+            if (options.columnsChosen()) {
+                series.add(ChosenColumns.series(source, header, names, options, notes));
+            } else if (header.names() == null) {
                 series.add(new Series(0, 1, names.get(0), names.get(1), XUnit.NANOMETRE,
                         new ColumnRole(ColumnRole.Kind.Y, null, null, false)));
             } else {
                 fromHeader(header, names);
             }
+            forceUnit();
             if (noValueColumn != null) {
                 // read the wavelengths anyway: a broken axis is the more useful thing to report
                 parsed = new int[] {xOnly.x()};
@@ -164,6 +169,25 @@ public final class DelimitedTextReader {
             return new TextTable.Selection(parsed, names);
         }
 
+        /** The unit the read options force replaces the header's, with a note when they differ. */
+        private void forceUnit() {
+            if (options.xUnit().isEmpty()) {
+                return;
+            }
+            XUnit forced = options.xUnit().get();
+            for (int i = 0; i < series.size(); i++) {
+                Series s = series.get(i);
+                if (s.unit() != forced) {
+                    notes.add("wavelength column '" + s.xName() + "' read in " + forced + " as the read options say"
+                            + (s.unit() == null ? "" : " (its header suggests " + s.unit() + ")"));
+                }
+                series.set(i, new Series(s.x(), s.y(), s.xName(), s.yName(), forced, s.role()));
+            }
+            if (xOnly != null) {
+                xOnly = new Series(xOnly.x(), xOnly.y(), xOnly.xName(), xOnly.yName(), forced, xOnly.role());
+            }
+        }
+
         private static void addOnce(List<Integer> columns, int c) {
             if (!columns.contains(c)) {
                 columns.add(c);
@@ -189,7 +213,11 @@ public final class DelimitedTextReader {
                 try {
                     roles[c] = ColumnRole.of(names.get(c));
                 } catch (IllegalArgumentException e) {
-                    throw new ImportException(source, header.line(), names.get(c), e.getMessage());
+                    if (options.xUnit().isEmpty()) {
+                        throw new ImportException(source, header.line(), names.get(c), e.getMessage()
+                                + "; or set the x unit in the read options");
+                    }
+                    roles[c] = new ColumnRole(ColumnRole.Kind.X, null, null, false); // the forced unit replaces it
                 }
                 if (roles[c].isX()) {
                     currentX = c;
@@ -398,7 +426,7 @@ public final class DelimitedTextReader {
             warnings.addAll(c.notes());
             warnings.addAll(extraNotes);
             return ParsedSpectrum.of(source, c.ordered().x(), c.ordered().values()[0], c.ordered().bounds()[0],
-                    c.kind(), c.series().unit(), metadata, warnings);
+                    c.kind(), c.series().unit(), metadata, warnings).withLines(c.ordered().lines());
         }
     }
 }

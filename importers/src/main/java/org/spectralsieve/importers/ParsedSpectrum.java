@@ -29,6 +29,8 @@ public final class ParsedSpectrum {
     private final XUnit xUnit;
     private final Map<String, String> metadata;
     private final List<String> warnings;
+    /** File line of each point (1-based), in wavelength order; 0 where unknown. */
+    private int[] lines;
 
     private ParsedSpectrum(String sourceName, double[] wavelengthsNm, double[] values, boolean[] upperBounds,
             YKind yKind, XUnit xUnit, Map<String, String> metadata, List<String> warnings) {
@@ -133,6 +135,35 @@ public final class ParsedSpectrum {
     /** Unmodifiable, in the order found; keys lower-cased and trimmed. */
     public Map<String, String> metadata() {
         return metadata;
+    }
+
+    /**
+     * This spectrum with the file line of each point (1-based, in the order of {@link #wavelengthsNm()}), so
+     * that a value refused later can be named by its line in the file instead of an array index.
+     */
+    public ParsedSpectrum withLines(int[] pointLines) {
+        if (pointLines.length != values.length) {
+            throw new IllegalArgumentException(pointLines.length + " line numbers for " + values.length + " points");
+        }
+        ParsedSpectrum copy = new ParsedSpectrum(sourceName, wavelengthsNm, values, upperBounds, yKind, xUnit, metadata,
+                warnings);
+        copy.lines = pointLines.clone();
+        return copy;
+    }
+
+    /** File lines of all points (a copy; zeros when the reader did not say). */
+    public int[] lines() {
+        return lines == null ? new int[values.length] : lines.clone();
+    }
+
+    /** The file line (1-based) of point {@code i}; 0 when the reader did not say. */
+    public int line(int i) {
+        return lines == null ? 0 : lines[i];
+    }
+
+    /** Thickness, instrument and date of measurement as the metadata lines give them. */
+    public SampleMetadata sampleMetadata() {
+        return SampleMetadata.of(metadata);
     }
 
     /** Things the user should know that did not stop the import (e.g. a guessed y kind). */

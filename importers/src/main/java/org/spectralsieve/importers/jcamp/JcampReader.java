@@ -214,19 +214,27 @@ public final class JcampReader {
 
         ParsedSpectrum build() throws ImportException {
             warnings.addAll(block.warnings());
+            overridesThatDoNotApply();
             XUnit xUnit = xUnit();
-            YKind yKind = yKind();
+            Optional<String> xContradiction = xContradiction(xUnit, block.x());
+            YKind yKind = yKind(xContradiction);
+            xContradiction.ifPresent(warnings::add);
             double[] x = nanometres(xUnit);
             double[] y = block.y();
             boolean[] bounds = block.upperBounds();
+            int[] lines = new int[x.length];
+            for (int i = 0; i < lines.length; i++) {
+                lines[i] = block.pointLine(i);
+            }
             if (checkMonotonic(x) < 0) {
                 reverse(x);
                 reverse(y);
                 reverse(bounds);
+                reverse(lines);
             }
             warnAboutRanges(xUnit, yKind, block.x(), y);
             try {
-                return ParsedSpectrum.of(source, x, y, bounds, yKind, xUnit, metadata(), warnings);
+                return ParsedSpectrum.of(source, x, y, bounds, yKind, xUnit, metadata(), warnings).withLines(lines);
             } catch (IllegalArgumentException e) {
                 throw new ImportException(source, block.startLine(), block.dataLabel(), e.getMessage(), e);
             }
@@ -297,18 +305,69 @@ public final class JcampReader {
             return x;
         }
 
+        /** The x unit the read options force wins over XUNITS, with a note when they differ. */
         private XUnit xUnit() throws ImportException {
             Optional<Ldr> l = block.ldr(Labels.XUNITS);
+            if (options.xUnit().isPresent()) {
+                XUnit forced = options.xUnit().get();
+                Optional<XUnit> declared = l.flatMap(u -> JcampUnits.xUnit(u.value()));
+                if (l.isPresent() && (declared.isEmpty() || declared.get() != forced)) {
+                    warnings.add("XUNITS=" + l.get().value() + " overridden: x read in " + forced
+                            + " as the x unit option says");
+                }
+                return forced;
+            }
             if (l.isEmpty()) {
                 throw new ImportException(source, block.startLine(), Labels.field(Labels.XUNITS),
-                        "missing: the block has no ##XUNITS=, so its x cannot be read as wavelengths");
+                        "missing: the block has no ##XUNITS=, so its x cannot be read as wavelengths; set the x"
+                                + " unit (xUnit: nm, um, angstrom or cm-1) when importing");
             }
             return JcampUnits.xUnit(l.get().value()).orElseThrow(() -> new ImportException(source, l.get().line(),
                     Labels.field(l.get().name()), "unknown x unit '" + l.get().value()
-                            + "' (known: NANOMETERS, MICROMETERS, ANGSTROMS, 1/CM)"));
+                            + "' (known: NANOMETERS, MICROMETERS, ANGSTROMS, 1/CM); set the x unit (xUnit: nm, um,"
+                            + " angstrom or cm-1) when importing"));
         }
 
-        private YKind yKind() throws ImportException {
+        /**
+         * XUNITS=1/CM over x values that all lie within 150–1100, the span of UV to near-infrared wavelengths in
+         * nm: as wavenumbers they would be far-infrared wavelengths of 9–67 µm, which a UV-visible file does not
+         * hold. Said as a warning (a far-infrared file is possible), naming the option that reads them as nm.
+         */
+        private Optional<String> xContradiction(XUnit xUnit, double[] fileX) {
+            if (xUnit != XUnit.WAVENUMBER_PER_CM || options.xUnit().isPresent()) {
+                return Optional.empty();
+            }
+            double lo = Math.min(fileX[0], fileX[fileX.length - 1]);
+            double hi = Math.max(fileX[0], fileX[fileX.length - 1]);
+            if (!(lo >= 150 && hi <= 1100)) {
+                return Optional.empty();
+            }
+            String xunits = block.ldr(Labels.XUNITS).map(Ldr::value).orElse("1/CM");
+            return Optional.of("XUNITS=" + xunits + " contradicts the x values: they run " + plain(lo) + "–"
+                    + plain(hi) + ", a range of UV to near-infrared wavelengths in nm, but read as wavenumbers they"
+                    + " are " + plain(Math.round(XUnit.WAVENUMBER_PER_CM.toNanometres(hi))) + "–"
+                    + plain(Math.round(XUnit.WAVENUMBER_PER_CM.toNanometres(lo)))
+                    + " nm (far infrared); if they are nanometres, set the x unit to nm (xUnit=nm)"
+                    + block.ldr(Labels.DATA_TYPE).map(t -> " (the file's DATA TYPE says " + t.value().strip() + ")")
+                            .orElse(""));
+        }
+
+        private static String plain(double v) {
+            return v == Math.rint(v) && Math.abs(v) < 1e15 ? Long.toString((long) v) : Double.toString(v);
+        }
+
+        /** Columns and a decimal comma apply to delimited text; a JCAMP-DX block has one x and one y. */
+        private void overridesThatDoNotApply() {
+            if (options.columnsChosen()) {
+                warnings.add("xColumn/yColumn ignored: a JCAMP-DX block has one abscissa and one ordinate");
+            }
+            if (options.decimalMark().filter(m -> m != org.spectralsieve.importers.DecimalMark.POINT).isPresent()) {
+                warnings.add("decimal mark option ignored: JCAMP-DX numbers are written with a decimal point");
+            }
+        }
+
+        private YKind yKind(Optional<String> xContradiction) throws ImportException {
+            String also = xContradiction.map(c -> ". Also: " + c).orElse("");
             Optional<Ldr> l = block.ldr(Labels.YUNITS);
             Optional<YKind> declared = l.flatMap(u -> JcampUnits.yKind(u.value()));
             if (options.yKind().isPresent()) {
@@ -320,11 +379,14 @@ public final class JcampReader {
             }
             if (l.isEmpty()) {
                 throw new ImportException(source, block.startLine(), Labels.field(Labels.YUNITS),
-                        "missing: the block has no ##YUNITS=; choose the y kind when importing");
+                        "missing: the block has no ##YUNITS=; set the y kind (yKind: absorbance, percent or"
+                                + " fraction) when importing" + also);
             }
             return declared.orElseThrow(() -> new ImportException(source, l.get().line(),
                     Labels.field(l.get().name()), "unknown y unit '" + l.get().value() + "' (known: TRANSMITTANCE,"
-                            + " ABSORBANCE, %T / PERCENT TRANSMITTANCE); choose the y kind when importing"));
+                            + " ABSORBANCE, %T / PERCENT TRANSMITTANCE): the values cannot be read as transmittance"
+                            + " without knowing; set the y kind (yKind: absorbance, percent or fraction) when"
+                            + " importing" + also));
         }
 
         /** Returns +1 for increasing, −1 for decreasing; refuses a reversal, naming both lines. */
@@ -343,14 +405,6 @@ public final class JcampReader {
         }
 
         private void warnAboutRanges(XUnit xUnit, YKind yKind, double[] fileX, double[] y) {
-            if (xUnit == XUnit.WAVENUMBER_PER_CM) {
-                double lo = Math.min(fileX[0], fileX[fileX.length - 1]);
-                double hi = Math.max(fileX[0], fileX[fileX.length - 1]);
-                if (lo >= 150 && hi <= 1100) {
-                    warnings.add("XUNITS=1/CM but x runs " + lo + "–" + hi + ", a typical range of wavelengths in"
-                            + " nm: the units may be mislabelled");
-                }
-            }
             if (yKind == YKind.TRANSMITTANCE_FRACTION) {
                 double max = Double.NEGATIVE_INFINITY;
                 for (double v : y) {

@@ -21,6 +21,7 @@ final class Labels {
     static final String MAXY = "MAXY";
     static final String XUNITS = "XUNITS";
     static final String YUNITS = "YUNITS";
+    static final String DATA_TYPE = "DATATYPE";
     /** The project's private label (JCAMP-DX private labels start with '$'). */
     static final String BELOW_DETECTION = "$SIEVEBELOWDETECTION";
     static final String BELOW_DETECTION_AS_WRITTEN = "$SIEVE BELOW DETECTION";

@@ -233,9 +233,30 @@ class JcampReferenceFilesTest {
         java.nio.file.Path file = SharedFolder.referenceFile("jcamp-cheminfo/uv_ACD.jdx");
 
         assertThatThrownBy(() -> reader.read(file)).isInstanceOf(ImportException.class)
-                .hasMessageContaining("line 20").hasMessageContaining("##YUNITS");
+                .hasMessageContaining("line 20").hasMessageContaining("##YUNITS")
+                .hasMessageContaining("yKind").hasMessageContaining("XUNITS=1/CM contradicts")
+                .hasMessageContaining("xUnit=nm");
         ParsedSpectrum s = reader.read(file, JcampOptions.defaults().withYKind(YKind.ABSORBANCE));
-        assertThat(s.warnings()).anyMatch(w -> w.contains("mislabelled"));
+        assertThat(s.warnings()).anyMatch(w -> w.contains("XUNITS=1/CM contradicts the x values: they run 210–650")
+                && w.contains("xUnit=nm"));
+    }
+
+    @Test
+    void nanometreDataLabelledWavenumbersImportWhenTheXUnitIsOverridden() throws ImportException {
+        // SOURCES.md §2 uv_ACD.jdx: x = 210–650 really nm, 881 points; decoded y(210)=2.925, y(650)=0.003, max 3.076
+        java.nio.file.Path file = SharedFolder.referenceFile("jcamp-cheminfo/uv_ACD.jdx");
+
+        ParsedSpectrum s = reader.read(file, new JcampOptions(org.spectralsieve.importers.ReadOptions.defaults()
+                .withYKind(YKind.ABSORBANCE).xUnit(XUnit.NANOMETRE), java.util.OptionalInt.empty()));
+
+        double[] nm = s.wavelengthsNm();
+        assertThat(s.size()).isEqualTo(881);
+        assertThat(nm[0]).isEqualTo(210.0);
+        assertThat(nm[880]).isEqualTo(650.0);
+        assertRounded("2.925", s.values()[0]);
+        assertRounded("0.003", s.values()[880]);
+        assertThat(s.warnings()).anyMatch(w -> w.contains("XUNITS=1/CM overridden"))
+                .noneMatch(w -> w.contains("contradicts"));
     }
 
     @Test
