@@ -14,13 +14,15 @@ import java.util.regex.Pattern;
  * folding case, blanks, dots and underscores, a bracketed or trailing unit, and a replicate number:
  * {@code Wavelength [nm]}, {@code wavelength_nm}, {@code w.length.2}, {@code nm} are all wavelengths in nm;
  * {@code Transmittance (%)}, {@code %T}, {@code T%} are percent; {@code Abs}, {@code A}, {@code OD} absorbance.
+ * {@code StdDev}, {@code Std.Dev.}, {@code sd}, {@code sigma}, {@code uncertainty} name a standard-deviation
+ * column ({@link Kind#SPREAD}), which belongs to the value column before it and is in that column's unit.
  *
  * @param yKind       for value columns; a bare "transmittance" gets FRACTION with {@code scaleNamed} false
  * @param scaleNamed  true when the name itself says percent or fraction (or absorbance)
  */
 record ColumnRole(Kind kind, XUnit xUnit, YKind yKind, boolean scaleNamed) {
 
-    enum Kind { X, Y, OTHER }
+    enum Kind { X, Y, SPREAD, OTHER }
 
     static final ColumnRole OTHER = new ColumnRole(Kind.OTHER, null, null, false);
 
@@ -38,6 +40,9 @@ record ColumnRole(Kind kind, XUnit xUnit, YKind yKind, boolean scaleNamed) {
             "t_%", "%_t", "pct_t");
     private static final Set<String> A_BASES = Set.of("absorbance", "abs", "a", "od", "optical_density",
             "absorbance_od", "o_d");
+    /** Names of a standard-deviation column (after folding: "Std.Dev." is std_dev, "StdDev" stddev). */
+    static final Set<String> SPREAD_BASES = Set.of("sd", "s_d", "std", "stdev", "stddev", "std_dev", "st_dev",
+            "std_deviation", "standard_deviation", "stdv", "sigma", "σ", "uncertainty");
     private static final Map<String, XUnit> X_UNITS = Map.ofEntries(
             Map.entry("nm", XUnit.NANOMETRE), Map.entry("nanometre", XUnit.NANOMETRE),
             Map.entry("nanometres", XUnit.NANOMETRE), Map.entry("nanometer", XUnit.NANOMETRE),
@@ -94,6 +99,9 @@ record ColumnRole(Kind kind, XUnit xUnit, YKind yKind, boolean scaleNamed) {
         if (unit == null && X_UNITS.containsKey(base)) {
             return new ColumnRole(Kind.X, X_UNITS.get(base), null, false);
         }
+        if (SPREAD_BASES.contains(base)) {
+            return new ColumnRole(Kind.SPREAD, null, null, false);
+        }
         if (PERCENT_BASES.contains(base)) {
             return new ColumnRole(Kind.Y, null, YKind.TRANSMITTANCE_PERCENT, true);
         }
@@ -138,6 +146,10 @@ record ColumnRole(Kind kind, XUnit xUnit, YKind yKind, boolean scaleNamed) {
 
     boolean isY() {
         return kind == Kind.Y;
+    }
+
+    boolean isSpread() {
+        return kind == Kind.SPREAD;
     }
 
     Optional<YKind> namedKind() {
