@@ -45,7 +45,7 @@ class SampleController {
         java.time.Instant retired = result.sample().retired() ? result.sample().retiredAt() : result.material().retiredAt();
         return new CurveResponse(id, result.sample().revision(), result.material().revision(),
                 MaterialResponses.instant(retired), result.thicknessMm(), result.rescaled(), c.wavelengthsNm(),
-                c.transmittances(), c.belowDetectionFlags(), c.maxDetectionLimit());
+                c.transmittances(), c.belowDetectionFlags(), c.maxDetectionLimit(), UncertaintyJson.of(c));
     }
 
     @GetMapping("/curve.csv")

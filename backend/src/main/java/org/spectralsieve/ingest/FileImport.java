@@ -200,6 +200,18 @@ public final class FileImport {
 
     private FilePreview fromSpectrum(ImportFormat format, byte[] bytes, ParsedSpectrum s, ImportOptions o,
                                      List<String> warnings) throws ImportException {
+        return withUncertainty(readSpectrum(format, bytes, s, o, warnings), s, o);
+    }
+
+    /** The preview with the measurement uncertainty of {@link MeasurementUncertainty} on its curve. */
+    private static FilePreview withUncertainty(FilePreview preview, ParsedSpectrum s, ImportOptions o) {
+        List<String> warnings = new ArrayList<>(preview.warnings());
+        var applied = MeasurementUncertainty.apply(s, preview.curve(), o.statedUncertainty(), warnings);
+        return preview.withUncertainty(applied, warnings);
+    }
+
+    private FilePreview readSpectrum(ImportFormat format, byte[] bytes, ParsedSpectrum s, ImportOptions o,
+                                     List<String> warnings) throws ImportException {
         checkPoints(s.sourceName(), s.size());
         double limit = o.detectionLimit().isPresent() ? o.detectionLimit().getAsDouble() : metadataLimit(s);
         List<String> all = new ArrayList<>(warnings);
@@ -246,8 +258,8 @@ public final class FileImport {
         } catch (CurveException e) {
             throw new IngestException(fileName, "transmittance", e.getMessage());
         }
-        return new FilePreview(fileName, ImportFormat.RAW_COUNTS, s.xUnit(), YKind.TRANSMITTANCE_FRACTION, curve,
-                Arrays.stream(limits).max().orElse(0), Provenance.MEASURED, s.metadata(), all, Checksums.sha256(bytes));
+        return withUncertainty(new FilePreview(fileName, ImportFormat.RAW_COUNTS, s.xUnit(), YKind.TRANSMITTANCE_FRACTION, curve,
+                Arrays.stream(limits).max().orElse(0), Provenance.MEASURED, s.metadata(), all, Checksums.sha256(bytes)), s, o);
     }
 
     private void checkPoints(String fileName, int points) {

@@ -282,6 +282,7 @@ public class JooqLibraryRepository {
         curveRow.setTransmittance(PackedArrays.pack(curve.transmittances()));
         curveRow.setBelowDetection(PackedArrays.pack(curve.belowDetectionFlags()));
         curveRow.setDetectionLimits(perPointLimitsIfNeeded(curve, sample.detectionLimit()));
+        curveRow.setAbsorbanceUncertainty(curve.hasUncertainty() ? PackedArrays.pack(curve.absorbanceUncertainties()) : null);
         curveRow.setSourceFileName(sample.sourceFileName());
         curveRow.setSourceSha256(sample.sourceSha256());
         curveRow.store();
@@ -357,7 +358,13 @@ public class JooqLibraryRepository {
                 below[i] = below[i] || t[i] <= limits[i];
             }
         }
-        return Curve.of(nm, t, below, limits);
+        Curve curve = Curve.of(nm, t, below, limits);
+        if (c.getAbsorbanceUncertainty() == null) {
+            return curve;
+        }
+        // validated as the other arrays: the length by unpack, each value (finite and >= 0, or NaN) by the curve
+        return curve.withAbsorbanceUncertainty(
+                PackedArrays.unpackDoubles(c.getAbsorbanceUncertainty(), n, "curve.absorbance_uncertainty"));
     }
 
     static void writeIndex(MaterialRecord row, RefractiveIndex index) {
