@@ -15,7 +15,9 @@ import java.util.regex.Pattern;
  * {@code Wavelength [nm]}, {@code wavelength_nm}, {@code w.length.2}, {@code nm} are all wavelengths in nm;
  * {@code Transmittance (%)}, {@code %T}, {@code T%} are percent; {@code Abs}, {@code A}, {@code OD} absorbance.
  * {@code StdDev}, {@code Std.Dev.}, {@code sd}, {@code sigma}, {@code uncertainty} name a standard-deviation
- * column ({@link Kind#SPREAD}), which belongs to the value column before it and is in that column's unit.
+ * column ({@link Kind#SPREAD}), which belongs to the value column before it and is in that column's unit,
+ * unless its name says otherwise: {@code absorbance_sd} or {@code sd (A)} is in absorbance, {@code sd (%)}
+ * in percent transmittance ({@code yKind} then holds that unit; null = the value column's).
  *
  * @param yKind       for value columns; a bare "transmittance" gets FRACTION with {@code scaleNamed} false
  * @param scaleNamed  true when the name itself says percent or fraction (or absorbance)
@@ -43,6 +45,9 @@ record ColumnRole(Kind kind, XUnit xUnit, YKind yKind, boolean scaleNamed) {
     /** Names of a standard-deviation column (after folding: "Std.Dev." is std_dev, "StdDev" stddev). */
     static final Set<String> SPREAD_BASES = Set.of("sd", "s_d", "std", "stdev", "stddev", "std_dev", "st_dev",
             "std_deviation", "standard_deviation", "stdv", "sigma", "σ", "uncertainty");
+    /** Standard deviations whose name says they are in absorbance, as the project's own CSV writes them. */
+    static final Set<String> ABSORBANCE_SPREAD_BASES = Set.of("absorbance_sd", "sd_absorbance", "absorbance_sigma",
+            "absorbance_uncertainty", "absorbance_std", "od_sd", "sd_od");
     private static final Map<String, XUnit> X_UNITS = Map.ofEntries(
             Map.entry("nm", XUnit.NANOMETRE), Map.entry("nanometre", XUnit.NANOMETRE),
             Map.entry("nanometres", XUnit.NANOMETRE), Map.entry("nanometer", XUnit.NANOMETRE),
@@ -99,8 +104,11 @@ record ColumnRole(Kind kind, XUnit xUnit, YKind yKind, boolean scaleNamed) {
         if (unit == null && X_UNITS.containsKey(base)) {
             return new ColumnRole(Kind.X, X_UNITS.get(base), null, false);
         }
+        if (ABSORBANCE_SPREAD_BASES.contains(base)) {
+            return new ColumnRole(Kind.SPREAD, null, YKind.ABSORBANCE, true);
+        }
         if (SPREAD_BASES.contains(base)) {
-            return new ColumnRole(Kind.SPREAD, null, null, false);
+            return new ColumnRole(Kind.SPREAD, null, spreadUnit(unit), unit != null && spreadUnit(unit) != null);
         }
         if (PERCENT_BASES.contains(base)) {
             return new ColumnRole(Kind.Y, null, YKind.TRANSMITTANCE_PERCENT, true);
@@ -116,6 +124,21 @@ record ColumnRole(Kind kind, XUnit xUnit, YKind yKind, boolean scaleNamed) {
             return new ColumnRole(Kind.Y, null, YKind.TRANSMITTANCE_FRACTION, fraction);
         }
         return OTHER;
+    }
+
+    /** The unit a standard-deviation column's name gives; null = the value column's. */
+    private static YKind spreadUnit(String unit) {
+        if (unit == null) {
+            return null;
+        }
+        String u = unit.replace(" ", "");
+        if (A_BASES.contains(u) || u.equals("a")) {
+            return YKind.ABSORBANCE;
+        }
+        if (PERCENT_UNITS.contains(u) || PERCENT_BASES.contains(u)) {
+            return YKind.TRANSMITTANCE_PERCENT;
+        }
+        return FRACTION_UNITS.contains(u) ? YKind.TRANSMITTANCE_FRACTION : null;
     }
 
     private static XUnit xUnit(String raw, String unit) {

@@ -126,6 +126,7 @@ public final class DelimitedTextReader {
         private final List<String> notes = new ArrayList<>();
         private int[] parsed;
         private List<String> names = List.of();
+        private ColumnRole[] roles = new ColumnRole[0];
         /** Set when the header has a wavelength column but no value column; raised after the x check. */
         private ImportException noValueColumn;
         private Series xOnly;
@@ -184,7 +185,9 @@ public final class DelimitedTextReader {
                         + "; set replicates MEAN or SEPARATE in the read options to use them");
             }
             parsed = columns.stream().mapToInt(Integer::intValue).toArray();
-            return new TextTable.Selection(parsed, names);
+            java.util.Set<Integer> spreads = new java.util.HashSet<>();
+            series.stream().filter(s -> s.sd() >= 0).forEach(s -> spreads.add(s.sd()));
+            return new TextTable.Selection(parsed, names, spreads);
         }
 
         private static void addOnce(List<Integer> columns, int c) {
@@ -207,7 +210,7 @@ public final class DelimitedTextReader {
             int currentX = -1;
             int firstX = -1;
             List<Integer> orphans = new ArrayList<>(); // value columns before any wavelength column
-            ColumnRole[] roles = new ColumnRole[names.size()];
+            roles = new ColumnRole[names.size()];
             for (int c = 0; c < names.size(); c++) {
                 try {
                     roles[c] = ColumnRole.of(names.get(c));
@@ -246,6 +249,10 @@ public final class DelimitedTextReader {
 
         private static Series series(List<String> names, ColumnRole[] roles, int x, int y) {
             return new Series(x, y, names.get(x), names.get(y), roles[x].xUnit(), roles[y]);
+        }
+
+        ColumnRole roleOf(int column) {
+            return roles[column];
         }
 
         String namesOf(int column) {
@@ -372,7 +379,7 @@ public final class DelimitedTextReader {
         private void refuseNegativeSpread(Series s, double[] sd, int[] lines) throws ImportException {
             String name = layout.namesOf(s.sd());
             for (int i = 0; i < sd.length; i++) {
-                if (!(sd[i] >= 0)) {
+                if (sd[i] < 0) {
                     throw new ImportException(source, lines[i], name, "a standard deviation cannot be negative, was "
                             + sd[i]);
                 }
@@ -481,9 +488,12 @@ public final class DelimitedTextReader {
             warnings.addAll(extraNotes);
             ParsedSpectrum s = ParsedSpectrum.of(source, c.ordered().x(), c.ordered().values()[0],
                     c.ordered().bounds()[0], c.kind(), c.series().unit(), metadata, warnings);
-            return c.hasSpread()
-                    ? s.withStandardDeviations(c.ordered().values()[1], "column '" + layout.namesOf(c.series().sd()) + "'")
-                    : s;
+            if (!c.hasSpread()) {
+                return s;
+            }
+            YKind named = layout.roleOf(c.series().sd()).yKind();
+            return s.withStandardDeviations(c.ordered().values()[1], named == null ? c.kind() : named,
+                    "column '" + layout.namesOf(c.series().sd()) + "'");
         }
     }
 }

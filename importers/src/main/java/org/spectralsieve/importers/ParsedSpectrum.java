@@ -38,10 +38,13 @@ public final class ParsedSpectrum {
     /** One standard deviation per point in the values' unit, NaN where unknown; null when the file gave none. */
     private final double[] standardDeviations;
     private final String standardDeviationOrigin;
+    /** The unit of the standard deviations: the values' kind unless the file said otherwise (e.g. "sd (A)"). */
+    private final YKind standardDeviationKind;
 
     private ParsedSpectrum(String sourceName, double[] wavelengthsNm, double[] values, boolean[] upperBounds,
             YKind yKind, XUnit xUnit, Map<String, String> metadata, List<String> warnings,
-            double[] standardDeviations, String standardDeviationOrigin) {
+            double[] standardDeviations, String standardDeviationOrigin, YKind standardDeviationKind) {
+        this.standardDeviationKind = standardDeviationKind;
         this.standardDeviations = standardDeviations;
         this.standardDeviationOrigin = standardDeviationOrigin;
         this.sourceName = sourceName;
@@ -83,7 +86,7 @@ public final class ParsedSpectrum {
         double[] y = values.clone();
         checkFiniteAndIncreasing(x, y);
         return new ParsedSpectrum(sourceName, x, y, bounds, yKind, xUnit, normalise(metadata),
-                warnings == null ? List.of() : List.copyOf(warnings), null, null);
+                warnings == null ? List.of() : List.copyOf(warnings), null, null, null);
     }
 
     /**
@@ -93,6 +96,15 @@ public final class ParsedSpectrum {
      * @throws IllegalArgumentException naming the bad index and value
      */
     public ParsedSpectrum withStandardDeviations(double[] sd, String origin) {
+        return withStandardDeviations(sd, yKind, origin);
+    }
+
+    /**
+     * As {@link #withStandardDeviations(double[], String)}, the standard deviations in {@code kind}'s unit
+     * (absorbance for a column named so, whatever the values are in).
+     */
+    public ParsedSpectrum withStandardDeviations(double[] sd, YKind kind, String origin) {
+        Objects.requireNonNull(kind, "kind");
         Objects.requireNonNull(sd, "sd");
         Objects.requireNonNull(origin, "origin");
         if (sd.length != values.length) {
@@ -106,13 +118,13 @@ public final class ParsedSpectrum {
             }
         }
         return new ParsedSpectrum(sourceName, wavelengthsNm, values, upperBounds, yKind, xUnit, metadata, warnings,
-                sd.clone(), origin);
+                sd.clone(), origin, kind);
     }
 
     /** This spectrum with other warnings, everything else (standard deviations included) kept. */
     public ParsedSpectrum withWarnings(List<String> newWarnings) {
         return new ParsedSpectrum(sourceName, wavelengthsNm, values, upperBounds, yKind, xUnit, metadata,
-                List.copyOf(newWarnings), standardDeviations, standardDeviationOrigin);
+                List.copyOf(newWarnings), standardDeviations, standardDeviationOrigin, standardDeviationKind);
     }
 
     /** True when the file gave a standard deviation (a column, or replicates' spread). */
@@ -128,6 +140,11 @@ public final class ParsedSpectrum {
             return none;
         }
         return standardDeviations.clone();
+    }
+
+    /** The unit of {@link #standardDeviations()}: {@link #yKind()} unless the file named another. */
+    public YKind standardDeviationKind() {
+        return standardDeviationKind == null ? yKind : standardDeviationKind;
     }
 
     /** Where the standard deviations came from, for the preview; empty when there are none. */
@@ -226,7 +243,8 @@ public final class ParsedSpectrum {
                 && metadata.equals(p.metadata)
                 && warnings.equals(p.warnings)
                 && Arrays.equals(standardDeviations, p.standardDeviations)
-                && Objects.equals(standardDeviationOrigin, p.standardDeviationOrigin);
+                && Objects.equals(standardDeviationOrigin, p.standardDeviationOrigin)
+                && standardDeviationKind() == p.standardDeviationKind();
     }
 
     @Override

@@ -198,14 +198,16 @@ public final class JcampReader {
             double[] x = nanometres(xUnit);
             double[] y = block.y();
             boolean[] bounds = block.upperBounds();
-            if (checkMonotonic(x) < 0) {
+            boolean reversed = checkMonotonic(x) < 0;
+            if (reversed) {
                 reverse(x);
                 reverse(y);
                 reverse(bounds);
             }
             warnAboutRanges(xUnit, yKind, block.x(), y);
             try {
-                return ParsedSpectrum.of(source, x, y, bounds, yKind, xUnit, metadata(), warnings);
+                return AbsorbanceSd.attach(source, block,
+                        ParsedSpectrum.of(source, x, y, bounds, yKind, xUnit, metadata(), warnings), reversed);
             } catch (IllegalArgumentException e) {
                 throw new ImportException(source, block.startLine(), block.dataLabel(), e.getMessage(), e);
             }
@@ -345,7 +347,8 @@ public final class JcampReader {
         private Map<String, String> metadata() {
             Map<String, String> m = new LinkedHashMap<>();
             for (Ldr l : block.ldrs()) {
-                if (!Labels.isDataTable(l.canonical()) && !l.canonical().equals(Labels.BELOW_DETECTION)) {
+                if (!Labels.isDataTable(l.canonical()) && !l.canonical().equals(Labels.BELOW_DETECTION)
+                        && !l.canonical().equals(Labels.ABSORBANCE_SD)) {
                     m.putIfAbsent(l.name(), l.value());
                 }
             }
