@@ -29,12 +29,15 @@ final class ImportForms {
      * @param detectionLimit  fraction in [0, 1); default the file's detection_limit, else 0
      * @param strayLightFloor raw counts: fraction in [0, 1), default 0
      * @param fullScale       raw counts: detector maximum count, default unknown
+     * @param uncertainty     the instrument's stated uncertainty (one standard deviation), "0.5%T" or "0.01A",
+     *                        used where the file has no standard-deviation column of its own
      */
     record ReadForm(String format, String yKind, String decimalMark, String replicates, String mergeDuplicates,
-                    String detectionLimit, String strayLightFloor, String fullScale) {
+                    String detectionLimit, String strayLightFloor, String fullScale, String uncertainty) {
         ImportOptions options() {
             return OptionText.options(format, yKind, decimalMark, replicates, mergeDuplicates, detectionLimit,
-                    strayLightFloor, fullScale);
+                    strayLightFloor, fullScale)
+                    .withStatedUncertainty(OptionText.statedUncertainty("uncertainty", uncertainty));
         }
     }
 

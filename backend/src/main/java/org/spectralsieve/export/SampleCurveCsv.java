@@ -42,7 +42,9 @@ public final class SampleCurveCsv {
         if (!result.sample().notes().isBlank()) {
             metadata.put("note", result.sample().notes());
         }
-        return DelimitedTextWriter.write(metadata, c.wavelengthsNm(), c.transmittances(), c.belowDetectionFlags());
+        // the measurement uncertainty, when the curve has one, as an absorbance_sd column (empty where unknown)
+        return DelimitedTextWriter.write(metadata, c.wavelengthsNm(), c.transmittances(), c.belowDetectionFlags(),
+                c.hasUncertainty() ? c.absorbanceUncertainties() : null);
     }
 
     /** A file name that says what is inside: material slug and thickness. */

@@ -42,7 +42,8 @@ import org.spectralsieve.optics.ConstantIndex;
  * give {@code index_n}, else n = 1.5 with a warning, and the thicknesses it exists in: {@code stock}, stock
  * sizes such as "2;3;6" or "25 50 125 um", and {@code made_range}, such as "1 to 12" or "25-125 um"). Later rows find a material created by an earlier
  * one by its name. Optional columns also: {@code lot}, {@code format}, {@code y_kind},
- * {@code detection_limit}. An unknown column refuses the manifest (a misspelt column would otherwise be
+ * {@code detection_limit}, {@code uncertainty} (the instrument's stated uncertainty for files without a
+ * standard-deviation column: "0.5%T" or "0.01A", docs/measurement-uncertainty.md). An unknown column refuses the manifest (a misspelt column would otherwise be
  * silently ignored).
  *
  * <p>Each row is imported in its own transaction: a refused row (unreadable file, missing file, bad
@@ -60,7 +61,7 @@ public final class BatchImport {
     static final List<String> REQUIRED = List.of("file", "material");
     static final List<String> COLUMNS = List.of("file", "material", "thickness", "geometry", "provenance", "instrument",
             "date", "notes", "lot", "class", "scaling", "index_n", "format", "y_kind", "detection_limit", "stock",
-            "made_range");
+            "made_range", "uncertainty");
 
     private final ImportService imports;
     private final JooqLibraryRepository library;
@@ -193,7 +194,8 @@ public final class BatchImport {
             ImportOptions options = new ImportOptions(OptionText.format("format", row.get("format")),
                     OptionText.yKind("y_kind", row.get("y_kind")), Optional.empty(), Replicates.FIRST, false,
                     OptionText.number("detection_limit", row.get("detection_limit")), OptionalDouble.empty(),
-                    OptionalDouble.empty());
+                    OptionalDouble.empty())
+                    .withStatedUncertainty(OptionText.statedUncertainty("uncertainty", row.get("uncertainty")));
             SampleFields fields = new SampleFields(OptionText.thicknessOrNull("thickness", row.get("thickness")),
                     OptionText.geometry("geometry", row.get("geometry")), OptionText.provenance("provenance", row.get("provenance")),
                     OptionText.line("instrument", row.get("instrument"), NewSample.MAX_INSTRUMENT),

@@ -14,7 +14,8 @@ import org.spectralsieve.spectrum.Curve;
  * absorbance, see {@link Curve#absorbanceUncertainty(int)}) from, first that applies:
  * <ol>
  *   <li>the file's own standard deviations ({@link ParsedSpectrum#standardDeviations()}: a standard-deviation
- *       column, or the spread of averaged replicates), in the unit of the file's values;</li>
+ *       column, or the spread of averaged replicates), in the unit of the file's values unless the column
+ *       names another ({@code absorbance_sd} as the project's own CSV writes it, {@code sd (A)});</li>
  *   <li>the instrument uncertainty the user states ({@link StatedUncertainty}), in %T or absorbance.</li>
  * </ol>
  * A file's own figures win over a stated one: they were measured on this sample. When both are given, a
@@ -54,7 +55,7 @@ public final class MeasurementUncertainty {
             stated.ifPresent(s -> warnings.add("the stated uncertainty " + text(s) + " was not used: the file gives its"
                     + " own (" + parsed.standardDeviationOrigin().orElse("standard deviations") + ")"));
             double[] sd = onCurvePoints(parsed, curve);
-            YKind kind = parsed.yKind();
+            YKind kind = parsed.standardDeviationKind();
             double[] sigma = new double[curve.size()];
             List<Integer> tooWide = new ArrayList<>();
             for (int i = 0; i < sigma.length; i++) {
