@@ -119,4 +119,18 @@ class StandardDeviationReadTest {
         assertThat(s.standardDeviationOrigin()).contains("column 'Std.Dev.'");
         assertThat(s.standardDeviations()[0]).isEqualTo(0.00361109561821178);
     }
+
+    @Test
+    @ReadsSharedFolder
+    void theTwoReplicateScansOfTheMeasuredFilmGiveTheStandardDeviationOfTheirMean() throws ImportException {
+        Path file = SharedFolder.measuredSheet("ldpe-film-50um.txt");
+
+        ParsedSpectrum s = reader.read(file, ReadOptions.defaults().replicates(Replicates.MEAN));
+
+        // first data line "190\t4.8\t190\t5.3" (SOURCES.md section 8: two replicate x/y pairs): mean 5.05 %T;
+        // for n = 2, s = |a − b|/√2 and s/√2 = |a − b|/2 = 0.25 %T
+        assertThat(s.values()[0]).isCloseTo(5.05, within(1e-12));
+        assertThat(s.standardDeviations()[0]).isCloseTo(0.25, within(1e-12));
+        assertThat(s.standardDeviationOrigin().orElseThrow()).contains("spread of 2 replicates");
+    }
 }
