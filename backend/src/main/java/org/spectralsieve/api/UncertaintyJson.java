@@ -28,7 +28,7 @@ record UncertaintyJson(String meaning, Double[] absorbance, Double[] transmittan
         Double[] high = new Double[n];
         for (int i = 0; i < n; i++) {
             double s = c.absorbanceUncertainty(i);
-            if (Double.isNaN(s)) {
+            if (Double.isNaN(s) || c.belowDetection(i)) { // a bound has no standard deviation
                 continue;
             }
             double t = c.transmittance(i);

@@ -37,7 +37,7 @@ public final class SampleCurveJcamp {
             metadata.put("$SIEVE DETECTION LIMIT", String.valueOf(c.maxDetectionLimit()));
         }
         return JcampWriter.write(metadata, c.wavelengthsNm(), c.transmittances(), c.belowDetectionFlags(),
-                c.hasUncertainty() ? c.absorbanceUncertainties() : null);
+                SampleCurveCsv.statedUncertainty(c));
     }
 
     /** The CSV's name with the JCAMP-DX extension. */

@@ -363,8 +363,13 @@ public class JooqLibraryRepository {
             return curve;
         }
         // validated as the other arrays: the length by unpack, each value (finite and >= 0, or NaN) by the curve
-        return curve.withAbsorbanceUncertainty(
-                PackedArrays.unpackDoubles(c.getAbsorbanceUncertainty(), n, "curve.absorbance_uncertainty"));
+        double[] sigma = PackedArrays.unpackDoubles(c.getAbsorbanceUncertainty(), n, "curve.absorbance_uncertainty");
+        Curve checked = curve.withAbsorbanceUncertainty(sigma);
+        for (int i = 0; i < n; i++) {
+            // a point a corrected detection limit turned into a bound has no standard deviation any more
+            sigma[i] = below[i] ? Double.NaN : sigma[i];
+        }
+        return checked.withAbsorbanceUncertainty(sigma);
     }
 
     static void writeIndex(MaterialRecord row, RefractiveIndex index) {

@@ -79,6 +79,22 @@ class StoredUncertaintyTest {
         assertThatThrownBy(() -> library.findCurve(sampleId)).hasMessageContaining("curve.absorbance_uncertainty");
     }
 
+    @Test
+    void aPointARaisedDetectionLimitMakesABoundLosesItsStandardDeviation() {
+        Curve curve = Curve.of(new double[] {300, 310}, new double[] {0.0008, 0.8}, 0.0001)
+                .withAbsorbanceUncertainty(new double[] {0.2, 0.002});
+        long sampleId = library.insertSample(library.insertMaterial(sheet("raised")), sample(curve));
+        // a corrected limit (docs/undo.md) of 0.001 puts T = 0.0008 under it: now only an upper bound
+        db.update(org.spectralsieve.library.db.Tables.SAMPLE).set(org.spectralsieve.library.db.Tables.SAMPLE.DETECTION_LIMIT, 0.001)
+                .execute();
+
+        Curve back = library.findCurve(sampleId).orElseThrow();
+
+        assertThat(back.belowDetection(0)).isTrue();
+        assertThat(back.absorbanceUncertainty(0)).isNaN();
+        assertThat(back.absorbanceUncertainty(1)).isEqualTo(0.002);
+    }
+
     private static NewMaterial sheet(String slug) {
         return new NewMaterial(slug, "Fernhollow test sheet " + slug + " (illustrative)", MaterialClass.of("plastic sheet"),
                 "", List.of("test"), Scaling.BULK, new ConstantIndex(1.49));
