@@ -31,12 +31,16 @@ final class ImportForms {
      * @param fullScale       raw counts: detector maximum count, default unknown
      * @param block           JCAMP-DX: the block to read, numbered as the preview's block list (default: the first)
      * @param eachBlock       JCAMP-DX: true to store every block as its own sample (default false)
+     * @param uncertainty     the instrument's stated uncertainty (one standard deviation), "0.5%T" or "0.01A",
+     *                        used where the file has no standard-deviation column of its own
      */
     record ReadForm(String format, String yKind, String decimalMark, String replicates, String mergeDuplicates,
-                    String detectionLimit, String strayLightFloor, String fullScale, String block, String eachBlock) {
+                    String detectionLimit, String strayLightFloor, String fullScale, String block, String eachBlock,
+                    String uncertainty) {
         ImportOptions options() {
             ImportOptions o = OptionText.options(format, yKind, decimalMark, replicates, mergeDuplicates, detectionLimit,
-                    strayLightFloor, fullScale);
+                    strayLightFloor, fullScale)
+                    .withStatedUncertainty(OptionText.statedUncertainty("uncertainty", uncertainty));
             return OptionText.withBlocks(o, "block", block, "eachBlock", eachBlock);
         }
     }

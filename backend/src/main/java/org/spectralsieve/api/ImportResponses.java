@@ -18,9 +18,11 @@ final class ImportResponses {
     }
 
     /** The curve as stored: transmittance fractions, true where a value is only an upper bound. */
-    record CurveJson(double[] wavelengthsNm, double[] transmittance, boolean[] belowDetection) {
+    /** {@code uncertainty} is null when the curve carries none ({@link UncertaintyJson}). */
+    record CurveJson(double[] wavelengthsNm, double[] transmittance, boolean[] belowDetection,
+                     UncertaintyJson uncertainty) {
         static CurveJson of(Curve c) {
-            return new CurveJson(c.wavelengthsNm(), c.transmittances(), c.belowDetectionFlags());
+            return new CurveJson(c.wavelengthsNm(), c.transmittances(), c.belowDetectionFlags(), UncertaintyJson.of(c));
         }
     }
 
@@ -41,14 +43,14 @@ final class ImportResponses {
     record PreviewResponse(String fileName, String format, String xUnit, String yKind, int pointCount,
                            List<Double> rangeNm, double detectionLimit, String provenance, String sha256,
                            Map<String, String> metadata, List<String> warnings, CurveJson curve, KeepJson keep,
-                           List<BlockJson> blocks) {
+                           List<BlockJson> blocks, String uncertaintySource) {
         static PreviewResponse of(FilePreview p) {
             Curve c = p.curve();
             return new PreviewResponse(p.fileName(), p.format().label(), p.xUnit().name().toLowerCase(java.util.Locale.ROOT),
                     p.yKind().name().toLowerCase(java.util.Locale.ROOT), p.pointCount(),
                     List.of(c.minWavelengthNm(), c.maxWavelengthNm()), p.detectionLimit(), p.provenance().label(),
                     p.sha256(), p.metadata(), p.warnings(), CurveJson.of(c), KeepJson.of(p.keptRange()),
-                    p.blocks().stream().map(BlockJson::of).toList());
+                    p.blocks().stream().map(BlockJson::of).toList(), p.uncertaintySource());
         }
     }
 

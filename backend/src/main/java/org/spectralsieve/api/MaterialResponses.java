@@ -132,7 +132,7 @@ final class MaterialResponses {
      */
     record CurveResponse(long sampleId, int sampleRevision, int materialRevision, String retiredAt, double thicknessMm,
                          boolean rescaled, double[] wavelengthsNm, double[] transmittance, boolean[] belowDetection,
-                         double detectionLimit) {
+                         double detectionLimit, UncertaintyJson uncertainty) {
     }
 
     private static Double orNull(OptionalDouble value) {

@@ -2,6 +2,7 @@ package org.spectralsieve.api;
 
 import org.spectralsieve.api.MaterialResponses.CurveResponse;
 import org.spectralsieve.export.SampleCurveCsv;
+import org.spectralsieve.export.SampleCurveJcamp;
 import org.spectralsieve.library.SampleCurve;
 import org.spectralsieve.library.SampleCurves;
 import org.spectralsieve.spectrum.Curve;
@@ -45,7 +46,7 @@ class SampleController {
         java.time.Instant retired = result.sample().retired() ? result.sample().retiredAt() : result.material().retiredAt();
         return new CurveResponse(id, result.sample().revision(), result.material().revision(),
                 MaterialResponses.instant(retired), result.thicknessMm(), result.rescaled(), c.wavelengthsNm(),
-                c.transmittances(), c.belowDetectionFlags(), c.maxDetectionLimit());
+                c.transmittances(), c.belowDetectionFlags(), c.maxDetectionLimit(), UncertaintyJson.of(c));
     }
 
     @GetMapping("/curve.csv")
@@ -61,6 +62,20 @@ class SampleController {
                 .contentType(new MediaType("text", "csv", java.nio.charset.StandardCharsets.UTF_8))
                 .header(HttpHeaders.CONTENT_DISPOSITION, "attachment; filename=\"" + fileName + "\"")
                 .body(csv);
+    }
+
+    /** The same curve as JCAMP-DX 5.01 ({@link SampleCurveJcamp}), its uncertainty in a private label. */
+    @GetMapping("/curve.jdx")
+    ResponseEntity<String> curveJcamp(@PathVariable("id") long id,
+                                      @RequestParam(name = "thicknessMm", required = false) Double thicknessMm,
+                                      @RequestParam(name = "from", required = false) Double from,
+                                      @RequestParam(name = "to", required = false) Double to,
+                                      @RequestParam(name = "step", required = false) Double step) {
+        SampleCurve result = fetch(id, thicknessMm, from, to, step);
+        return ResponseEntity.ok()
+                .contentType(new MediaType("chemical", "x-jcamp-dx", java.nio.charset.StandardCharsets.UTF_8))
+                .header(HttpHeaders.CONTENT_DISPOSITION, "attachment; filename=\"" + SampleCurveJcamp.fileName(result) + "\"")
+                .body(SampleCurveJcamp.write(result));
     }
 
     private SampleCurve fetch(long id, Double thicknessMm, Double from, Double to, Double step) {

@@ -57,7 +57,7 @@ final class TableRows {
 
     /**
      * A curve's stored arrays as they are (wavelengths, transmittance, below-detection flags, per-point
-     * detection limits when present), hashed in that order: equal hashes mean bit-identical curves.
+     * detection limits and absorbance uncertainties when present), hashed in that order: equal hashes mean bit-identical curves.
      */
     static String curveDataSha256(Record curve) {
         MessageDigest digest = sha256();
@@ -67,6 +67,11 @@ final class TableRows {
         byte[] limits = curve.get(Tables.CURVE.DETECTION_LIMITS);
         if (limits != null) {
             digest.update(limits);
+        }
+        // then the measurement uncertainty when present (V8); a curve without one hashes as it always did
+        byte[] sigma = curve.get(Tables.CURVE.ABSORBANCE_UNCERTAINTY);
+        if (sigma != null) {
+            digest.update(sigma);
         }
         return HexFormat.of().formatHex(digest.digest());
     }

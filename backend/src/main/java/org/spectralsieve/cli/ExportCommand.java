@@ -2,6 +2,7 @@ package org.spectralsieve.cli;
 
 import java.util.concurrent.Callable;
 import org.spectralsieve.export.SampleCurveCsv;
+import org.spectralsieve.export.SampleCurveJcamp;
 import org.spectralsieve.library.NotFoundException;
 import org.spectralsieve.library.NotRescalableException;
 import org.spectralsieve.library.SampleCurve;
@@ -20,10 +21,10 @@ import picocli.CommandLine.Spec;
 final class ExportCommand implements Callable<Integer> {
 
     /**
-     * Only the project's own CSV for now; an enum so picocli lists the choices and rejects others, in lower
-     * case because the help lists the constants as the words to type.
+     * The project's own CSV, or JCAMP-DX ({@code jdx}); an enum so picocli lists the choices and rejects
+     * others, in lower case because the help lists the constants as the words to type.
      */
-    enum Format { csv }
+    enum Format { csv, jdx }
 
     @Spec
     CommandSpec spec;
@@ -50,7 +51,7 @@ final class ExportCommand implements Callable<Integer> {
         String csv;
         try (ConfigurableApplicationContext context = LibraryContext.start(database.url)) {
             SampleCurve curve = context.getBean(SampleCurves.class).get(sampleId, thicknessMm, null);
-            csv = SampleCurveCsv.write(curve);
+            csv = format == Format.jdx ? SampleCurveJcamp.write(curve) : SampleCurveCsv.write(curve);
         } catch (NotFoundException | NotRescalableException e) {
             throw new CliFailure(SieveCli.FAILED, e.getMessage());
         }

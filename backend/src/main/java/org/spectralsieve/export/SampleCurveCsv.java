@@ -42,7 +42,25 @@ public final class SampleCurveCsv {
         if (!result.sample().notes().isBlank()) {
             metadata.put("note", result.sample().notes());
         }
-        return DelimitedTextWriter.write(metadata, c.wavelengthsNm(), c.transmittances(), c.belowDetectionFlags());
+        // the measurement uncertainty, when the curve has one, as an absorbance_sd column (empty where unknown)
+        return DelimitedTextWriter.write(metadata, c.wavelengthsNm(), c.transmittances(), c.belowDetectionFlags(),
+                statedUncertainty(c));
+    }
+
+    /**
+     * The curve's absorbance standard deviations as the exports write them, NaN (unknown) at every upper
+     * bound — a bound has no standard deviation, and a rescaled or stated curve may have made new ones; null
+     * when the curve carries none.
+     */
+    static double[] statedUncertainty(Curve c) {
+        if (!c.hasUncertainty()) {
+            return null;
+        }
+        double[] sigma = c.absorbanceUncertainties();
+        for (int i = 0; i < sigma.length; i++) {
+            sigma[i] = c.belowDetection(i) ? Double.NaN : sigma[i];
+        }
+        return sigma;
     }
 
     /** A file name that says what is inside: material slug and thickness. */

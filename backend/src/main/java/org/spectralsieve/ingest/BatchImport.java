@@ -46,7 +46,9 @@ import org.spectralsieve.optics.ConstantIndex;
  * replacing the batch-wide {@link KeepDefault} on its side, for a JCAMP-DX file {@code block} (the block number the
  * preview lists) or {@code each_block} (true: every block its own sample, all in the row's one transaction), and
  * corrections of what a file says about its axes: {@code x_unit} (nm, um, angstrom, cm-1), {@code x_column} and
- * {@code y_column} (counted from 1), {@code decimal_mark} (point, comma). An unknown column refuses the manifest (a misspelt column would otherwise be
+ * {@code y_column} (counted from 1), {@code decimal_mark} (point, comma), and {@code uncertainty} (the instrument's stated
+ * uncertainty for files without a standard-deviation column: "0.5%T" or "0.01A", docs/measurement-uncertainty.md).
+ * An unknown column refuses the manifest (a misspelt column would otherwise be
  * silently ignored).
  *
  * <p>Each row is imported in its own transaction: a refused row (unreadable file, missing file, bad
@@ -65,7 +67,7 @@ public final class BatchImport {
     static final List<String> COLUMNS = List.of("file", "material", "thickness", "geometry", "provenance", "instrument",
             "date", "notes", "lot", "class", "scaling", "index_n", "format", "y_kind", "detection_limit", "stock",
             "made_range", "from", "to", "block", "each_block", "x_unit", "x_column", "y_column",
-            "decimal_mark");
+            "decimal_mark", "uncertainty");
 
     /**
      * A keep range for every row of a batch (the CLI's {@code --from}/{@code --to}); a row's own {@code from}
@@ -217,7 +219,8 @@ public final class BatchImport {
                     OptionText.yKind("y_kind", row.get("y_kind")),
                     OptionText.decimalMark("decimal_mark", row.get("decimal_mark")), Replicates.FIRST, false,
                     OptionText.number("detection_limit", row.get("detection_limit")), OptionalDouble.empty(),
-                    OptionalDouble.empty());
+                    OptionalDouble.empty())
+                    .withStatedUncertainty(OptionText.statedUncertainty("uncertainty", row.get("uncertainty")));
             options = keepRange(options, row, keep);
             options = OptionText.withBlocks(options, "block", row.get("block"), "each_block", row.get("each_block"));
             options = OptionText.withAxes(options, "x_unit", row.get("x_unit"), "x_column", row.get("x_column"),

@@ -340,6 +340,18 @@ public final class FileImport {
 
     private FilePreview fromSpectrum(ImportFormat format, byte[] bytes, ParsedSpectrum s, ImportOptions o,
                                      List<String> warnings, String text) throws ImportException {
+        return withUncertainty(readSpectrum(format, bytes, s, o, warnings, text), s, o);
+    }
+
+    /** The preview with the measurement uncertainty of {@link MeasurementUncertainty} on its curve. */
+    private static FilePreview withUncertainty(FilePreview preview, ParsedSpectrum s, ImportOptions o) {
+        List<String> warnings = new ArrayList<>(preview.warnings());
+        var applied = MeasurementUncertainty.apply(s, preview.curve(), o.statedUncertainty(), warnings);
+        return preview.withUncertainty(applied, warnings);
+    }
+
+    private FilePreview readSpectrum(ImportFormat format, byte[] bytes, ParsedSpectrum s, ImportOptions o,
+                                     List<String> warnings, String text) throws ImportException {
         IntFunction<String> lineText = lineText(text);
         checkPoints(s.sourceName(), s.size());
         double limit = o.detectionLimit().isPresent() ? o.detectionLimit().getAsDouble() : metadataLimit(s);
@@ -421,9 +433,9 @@ public final class FileImport {
             throw new IngestException(fileName, "transmittance", e.getMessage());
         }
         InfraredOnly.warning(curve).ifPresent(all::add);
-        return new FilePreview(fileName, ImportFormat.RAW_COUNTS, s.xUnit(), YKind.TRANSMITTANCE_FRACTION, curve,
+        return withUncertainty(new FilePreview(fileName, ImportFormat.RAW_COUNTS, s.xUnit(), YKind.TRANSMITTANCE_FRACTION, curve,
                 Arrays.stream(limits).max().orElse(0), Provenance.MEASURED, s.metadata(), all, Checksums.sha256(bytes),
-                kept);
+                kept), s, o);
     }
 
     private void checkPoints(String fileName, int points) {

@@ -21,17 +21,20 @@ import org.spectralsieve.spectrum.Curve;
  * @param keptRange      which part of the file's axis the curve holds (from/to, noise regions left out)
  * @param blocks         JCAMP-DX: every block with data, in file order, marking those the import takes;
  *                       empty for other formats
+ * @param uncertaintySource where the curve's measurement uncertainty came from (a file column, replicates'
+ *                       spread, a stated instrument figure); null when the curve has none
  */
 public record FilePreview(String fileName, ImportFormat format, XUnit xUnit, YKind yKind, Curve curve,
                           double detectionLimit, Provenance provenance, Map<String, String> metadata,
-                          List<String> warnings, String sha256, KeptRange keptRange, List<FileBlock> blocks) {
+                          List<String> warnings, String sha256, KeptRange keptRange, List<FileBlock> blocks,
+                          String uncertaintySource) {
 
     /** A preview of a file kept whole (no keep range asked for, no noise region looked for), without blocks. */
     public FilePreview(String fileName, ImportFormat format, XUnit xUnit, YKind yKind, Curve curve,
                        double detectionLimit, Provenance provenance, Map<String, String> metadata,
                        List<String> warnings, String sha256) {
         this(fileName, format, xUnit, yKind, curve, detectionLimit, provenance, metadata, warnings, sha256,
-                KeptRange.whole(curve.wavelengthsNm()), List.of());
+                KeptRange.whole(curve.wavelengthsNm()), List.of(), null);
     }
 
     /** A preview without blocks (every format but JCAMP-DX). */
@@ -39,7 +42,13 @@ public record FilePreview(String fileName, ImportFormat format, XUnit xUnit, YKi
                        double detectionLimit, Provenance provenance, Map<String, String> metadata,
                        List<String> warnings, String sha256, KeptRange keptRange) {
         this(fileName, format, xUnit, yKind, curve, detectionLimit, provenance, metadata, warnings, sha256,
-                keptRange, List.of());
+                keptRange, List.of(), null);
+    }
+
+    /** This preview with the curve's uncertainty applied: the curve, its source and any warnings it raised. */
+    public FilePreview withUncertainty(MeasurementUncertainty.Applied applied, List<String> allWarnings) {
+        return new FilePreview(fileName, format, xUnit, yKind, applied.curve(), detectionLimit, provenance, metadata,
+                allWarnings, sha256, keptRange, blocks, applied.source().orElse(null));
     }
 
     public FilePreview {
@@ -57,7 +66,7 @@ public record FilePreview(String fileName, ImportFormat format, XUnit xUnit, YKi
         List<String> all = new java.util.ArrayList<>(warnings);
         all.addAll(moreWarnings);
         return new FilePreview(fileName, format, xUnit, yKind, curve, detectionLimit, provenance, metadata, all, sha256,
-                keptRange, list);
+                keptRange, list, uncertaintySource);
     }
 
     /** The block this preview's curve was read from; empty for a file without blocks. */

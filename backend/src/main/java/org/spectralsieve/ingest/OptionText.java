@@ -365,6 +365,29 @@ public final class OptionText {
                 + " (0, 1, 2, …)");
     }
 
+    /**
+     * An instrument's stated uncertainty (one standard deviation) as written: {@code 0.5%T}, {@code 0.5 %},
+     * {@code 0.01A}, {@code 0.01 abs}, {@code 0.01 OD}; the unit is required, since 0.5 %T and 0.5 A differ by
+     * far more than any typo should. Blank: none stated.
+     */
+    public static Optional<StatedUncertainty> statedUncertainty(String field, String s) {
+        if (blank(s)) {
+            return Optional.empty();
+        }
+        var m = STATED_UNCERTAINTY.matcher(s.strip().toLowerCase(Locale.ROOT));
+        if (!m.matches()) {
+            throw new ImportRequestException(field, "'" + s + "' is not an uncertainty like '0.5%T' (percent"
+                    + " transmittance) or '0.01A' (absorbance): a number and its unit");
+        }
+        double amount = Double.parseDouble(m.group(1).replace(',', '.'));
+        StatedUncertainty.Scale scale = m.group(2).startsWith("%") ? StatedUncertainty.Scale.PERCENT_T
+                : StatedUncertainty.Scale.ABSORBANCE;
+        return Optional.of(wrap(field, () -> new StatedUncertainty(amount, scale)));
+    }
+
+    private static final java.util.regex.Pattern STATED_UNCERTAINTY = java.util.regex.Pattern.compile(
+            "(?:±|\\+/-|\\+-)?\\s*([0-9]*[.,]?[0-9]+(?:e-?[0-9]+)?)\\s*(%\\s*t?|a|abs|absorbance|od)");
+
     private interface Parse<T> {
         T get();
     }

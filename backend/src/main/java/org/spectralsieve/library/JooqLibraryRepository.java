@@ -362,6 +362,7 @@ public class JooqLibraryRepository {
         curveRow.setTransmittance(PackedArrays.pack(curve.transmittances()));
         curveRow.setBelowDetection(PackedArrays.pack(curve.belowDetectionFlags()));
         curveRow.setDetectionLimits(perPointLimitsIfNeeded(curve, sample.detectionLimit()));
+        curveRow.setAbsorbanceUncertainty(curve.hasUncertainty() ? PackedArrays.pack(curve.absorbanceUncertainties()) : null);
         curveRow.setSourceFileName(sample.sourceFileName());
         curveRow.setSourceSha256(sample.sourceSha256());
         curveRow.store();
@@ -437,7 +438,18 @@ public class JooqLibraryRepository {
                 below[i] = below[i] || t[i] <= limits[i];
             }
         }
-        return Curve.of(nm, t, below, limits);
+        Curve curve = Curve.of(nm, t, below, limits);
+        if (c.getAbsorbanceUncertainty() == null) {
+            return curve;
+        }
+        // validated as the other arrays: the length by unpack, each value (finite and >= 0, or NaN) by the curve
+        double[] sigma = PackedArrays.unpackDoubles(c.getAbsorbanceUncertainty(), n, "curve.absorbance_uncertainty");
+        Curve checked = curve.withAbsorbanceUncertainty(sigma);
+        for (int i = 0; i < n; i++) {
+            // a point a corrected detection limit turned into a bound has no standard deviation any more
+            sigma[i] = below[i] ? Double.NaN : sigma[i];
+        }
+        return checked.withAbsorbanceUncertainty(sigma);
     }
 
     static void writeIndex(MaterialRecord row, RefractiveIndex index) {

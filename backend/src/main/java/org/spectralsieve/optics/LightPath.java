@@ -163,7 +163,35 @@ public final class LightPath {
             t[i] = chain(layerT, layerR);
             limits[i] = detectionLimit(onGrid, i, layerT, layerR);
         }
-        return Curve.of(nm, t, below, limits);
+        Curve path = Curve.of(nm, t, below, limits);
+        return withStackUncertainty(path, onGrid);
+    }
+
+    /**
+     * The stack's absorbance uncertainty: the layers' absorbances add (the interreflections between parts
+     * neglected, a relative change of order 2R², about 0.3 % for glass or plastic), and their measurement errors
+     * are taken as independent — each part was measured on its own — so their variances add:
+     * σ² = Σ σ_j² (GUM JCGM 100:2008, 5.1.2, uncorrelated inputs with unit sensitivity). Unknown where any
+     * layer's is unknown, or where the stack is only a bound; none when no layer carries one.
+     */
+    static Curve withStackUncertainty(Curve path, Curve[] onGrid) {
+        boolean any = false;
+        for (Curve layer : onGrid) {
+            any |= layer.hasUncertainty();
+        }
+        if (!any) {
+            return path;
+        }
+        double[] sigma = new double[path.size()];
+        for (int i = 0; i < sigma.length; i++) {
+            double variance = 0;
+            for (Curve layer : onGrid) {
+                double s = layer.absorbanceUncertainty(i);
+                variance += s * s; // NaN propagates: one unknown layer makes the sum unknown
+            }
+            sigma[i] = path.belowDetection(i) ? Double.NaN : Math.sqrt(variance);
+        }
+        return path.withAbsorbanceUncertainty(sigma);
     }
 
     private static double detectionLimit(Curve[] onGrid, int i, double[] layerT, double[] layerR) {

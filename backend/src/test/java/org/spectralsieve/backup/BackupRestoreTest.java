@@ -60,6 +60,29 @@ class BackupRestoreTest {
         }
     }
 
+    @Test
+    void aCurvesMeasurementUncertaintyIsRestoredBitForBit() throws Exception {
+        SourceLibrary source = SourceLibrary.get();
+        var sourceDb = source.context.getBean(DSLContext.class);
+        var withUncertainty = sourceDb.select(org.spectralsieve.library.db.Tables.CURVE.SAMPLE_ID,
+                        org.spectralsieve.library.db.Tables.CURVE.ABSORBANCE_UNCERTAINTY)
+                .from(org.spectralsieve.library.db.Tables.CURVE)
+                .where(org.spectralsieve.library.db.Tables.CURVE.ABSORBANCE_UNCERTAINTY.isNotNull()).fetch();
+        assertThat(withUncertainty).isNotEmpty(); // the source library imported one with a stated ±0.5 %T
+        try (ConfigurableApplicationContext target = LibraryApp.h2("target-uncertainty", false)) {
+            target.getBean(LibraryRestore.class).restore(source.archive);
+
+            var targetDb = target.getBean(DSLContext.class);
+            for (var row : withUncertainty) {
+                byte[] restored = targetDb.select(org.spectralsieve.library.db.Tables.CURVE.ABSORBANCE_UNCERTAINTY)
+                        .from(org.spectralsieve.library.db.Tables.CURVE)
+                        .where(org.spectralsieve.library.db.Tables.CURVE.SAMPLE_ID.eq(row.value1()))
+                        .fetchOne(org.spectralsieve.library.db.Tables.CURVE.ABSORBANCE_UNCERTAINTY);
+                assertThat(restored).isEqualTo(row.value2());
+            }
+        }
+    }
+
     /** Ids are never handed out again: the next sample and spectrum get ids above every restored id. */
     static void assertNewRowsGetUnusedIds(ConfigurableApplicationContext target, DSLContext source) throws ImportException {
         ImportResult added = target.getBean(ImportService.class).store("after-restore.csv",

@@ -65,7 +65,10 @@ public final class SourceLibrary {
         ConfigurableApplicationContext context = LibraryApp.h2("source", true);
         try {
             var imported = context.getBean(ImportService.class).store("workshop-sheet.csv",
-                    ImportFiles.percentCsv().getBytes(StandardCharsets.UTF_8), ImportOptions.defaults(),
+                    // with a stated ±0.5 %T, so the archive carries a curve's absorbance uncertainty (V8) too
+                    ImportFiles.percentCsv().getBytes(StandardCharsets.UTF_8), ImportOptions.defaults()
+                            .withStatedUncertainty(java.util.Optional.of(new org.spectralsieve.ingest.StatedUncertainty(
+                                    0.5, org.spectralsieve.ingest.StatedUncertainty.Scale.PERCENT_T))),
                     new ImportTarget.NewMaterial("Illustrative workshop cast sheet", MaterialClass.of("plastic sheet"),
                             Scaling.BULK, null, ""), SampleFields.thickness(3));
             // a corrected sample (two revision rows) and a retired material: the archive keeps both states

@@ -197,6 +197,22 @@ class SieveCliTest {
     }
 
     @Test
+    void exportedJcampDxReadsBackWithTheApisTransmittances() throws Exception {
+        long sampleId = JSON.readTree(cli("search", FUSED_SILICA_AT_254, "--limit", "1", "--json").out())
+                .path("results").get(0).path("sampleId").asLong();
+
+        Run run = cli("export", "--sample", String.valueOf(sampleId), "--format", "jdx");
+
+        assertThat(run.exitCode()).as(run.err()).isZero();
+        ParsedSpectrum parsed = new org.spectralsieve.importers.jcamp.JcampReader().read("export.jdx",
+                new StringReader(run.out()));
+        JsonNode apiCurve = get("/api/samples/" + sampleId + "/curve");
+        assertThat(parsed.size()).isEqualTo(apiCurve.path("transmittance").size());
+        assertThat(parsed.transmittanceFractions()[0]).isEqualTo(apiCurve.path("transmittance").get(0).asDouble());
+        assertThat(run.out()).contains("##$SIEVE SAMPLE ID= " + sampleId);
+    }
+
+    @Test
     void figuresPrintTheApisNumbersForTheChosenPairWithTheCaution() throws Exception {
         long sampleId = JSON.readTree(cli("search", FUSED_SILICA_AT_254, "--limit", "1", "--json").out())
                 .path("results").get(0).path("sampleId").asLong();

@@ -14,13 +14,17 @@ import java.util.regex.Pattern;
  * folding case, blanks, dots and underscores, a bracketed or trailing unit, and a replicate number:
  * {@code Wavelength [nm]}, {@code wavelength_nm}, {@code w.length.2}, {@code nm} are all wavelengths in nm;
  * {@code Transmittance (%)}, {@code %T}, {@code T%} are percent; {@code Abs}, {@code A}, {@code OD} absorbance.
+ * {@code StdDev}, {@code Std.Dev.}, {@code sd}, {@code sigma}, {@code uncertainty} name a standard-deviation
+ * column ({@link Kind#SPREAD}), which belongs to the value column before it and is in that column's unit,
+ * unless its name says otherwise: {@code absorbance_sd} or {@code sd (A)} is in absorbance, {@code sd (%)}
+ * in percent transmittance ({@code yKind} then holds that unit; null = the value column's).
  *
  * @param yKind       for value columns; a bare "transmittance" gets FRACTION with {@code scaleNamed} false
  * @param scaleNamed  true when the name itself says percent or fraction (or absorbance)
  */
 record ColumnRole(Kind kind, XUnit xUnit, YKind yKind, boolean scaleNamed) {
 
-    enum Kind { X, Y, OTHER }
+    enum Kind { X, Y, SPREAD, OTHER }
 
     static final ColumnRole OTHER = new ColumnRole(Kind.OTHER, null, null, false);
 
@@ -38,6 +42,12 @@ record ColumnRole(Kind kind, XUnit xUnit, YKind yKind, boolean scaleNamed) {
             "t_%", "%_t", "pct_t");
     private static final Set<String> A_BASES = Set.of("absorbance", "abs", "a", "od", "optical_density",
             "absorbance_od", "o_d");
+    /** Names of a standard-deviation column (after folding: "Std.Dev." is std_dev, "StdDev" stddev). */
+    static final Set<String> SPREAD_BASES = Set.of("sd", "s_d", "std", "stdev", "stddev", "std_dev", "st_dev",
+            "std_deviation", "standard_deviation", "stdv", "sigma", "σ", "uncertainty");
+    /** Standard deviations whose name says they are in absorbance, as the project's own CSV writes them. */
+    static final Set<String> ABSORBANCE_SPREAD_BASES = Set.of("absorbance_sd", "sd_absorbance", "absorbance_sigma",
+            "absorbance_uncertainty", "absorbance_std", "od_sd", "sd_od");
     private static final Map<String, XUnit> X_UNITS = Map.ofEntries(
             Map.entry("nm", XUnit.NANOMETRE), Map.entry("nanometre", XUnit.NANOMETRE),
             Map.entry("nanometres", XUnit.NANOMETRE), Map.entry("nanometer", XUnit.NANOMETRE),
@@ -94,6 +104,12 @@ record ColumnRole(Kind kind, XUnit xUnit, YKind yKind, boolean scaleNamed) {
         if (unit == null && X_UNITS.containsKey(base)) {
             return new ColumnRole(Kind.X, X_UNITS.get(base), null, false);
         }
+        if (ABSORBANCE_SPREAD_BASES.contains(base)) {
+            return new ColumnRole(Kind.SPREAD, null, YKind.ABSORBANCE, true);
+        }
+        if (SPREAD_BASES.contains(base)) {
+            return new ColumnRole(Kind.SPREAD, null, spreadUnit(unit), unit != null && spreadUnit(unit) != null);
+        }
         if (PERCENT_BASES.contains(base)) {
             return new ColumnRole(Kind.Y, null, YKind.TRANSMITTANCE_PERCENT, true);
         }
@@ -108,6 +124,21 @@ record ColumnRole(Kind kind, XUnit xUnit, YKind yKind, boolean scaleNamed) {
             return new ColumnRole(Kind.Y, null, YKind.TRANSMITTANCE_FRACTION, fraction);
         }
         return OTHER;
+    }
+
+    /** The unit a standard-deviation column's name gives; null = the value column's. */
+    private static YKind spreadUnit(String unit) {
+        if (unit == null) {
+            return null;
+        }
+        String u = unit.replace(" ", "");
+        if (A_BASES.contains(u) || u.equals("a")) {
+            return YKind.ABSORBANCE;
+        }
+        if (PERCENT_UNITS.contains(u) || PERCENT_BASES.contains(u)) {
+            return YKind.TRANSMITTANCE_PERCENT;
+        }
+        return FRACTION_UNITS.contains(u) ? YKind.TRANSMITTANCE_FRACTION : null;
     }
 
     private static XUnit xUnit(String raw, String unit) {
@@ -138,6 +169,10 @@ record ColumnRole(Kind kind, XUnit xUnit, YKind yKind, boolean scaleNamed) {
 
     boolean isY() {
         return kind == Kind.Y;
+    }
+
+    boolean isSpread() {
+        return kind == Kind.SPREAD;
     }
 
     Optional<YKind> namedKind() {

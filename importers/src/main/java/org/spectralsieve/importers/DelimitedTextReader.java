@@ -29,6 +29,11 @@ import java.util.Optional;
  *       exceed {@value #PERCENT_LOOKING} is percent (with a warning when the name said fraction or
  *       said nothing).</li>
  *   <li>A y value written {@code <0.001} is an upper bound ("at or below detection").</li>
+ *   <li>A standard-deviation column ({@code StdDev}, {@code Std.Dev.}, {@code sd}…, see {@link ColumnRole})
+ *       right after a value column is that column's per-point uncertainty, in its unit; with
+ *       {@link Replicates#MEAN} the spread of the replicates gives the mean's standard deviation instead
+ *       (s/√n, the experimental standard deviation of the mean). Either is returned in
+ *       {@link ParsedSpectrum#standardDeviations()}.</li>
  * </ul>
  *
  * Every refusal is an {@link ImportException} naming source, line and field. Instances hold no state
@@ -95,12 +100,22 @@ public final class DelimitedTextReader {
         }
         List<String> warnings = new ArrayList<>(s.warnings());
         warnings.add("the file holds " + all.size() + " replicates; this is the first (readAll returns all)");
-        return ParsedSpectrum.of(s.sourceName(), s.wavelengthsNm(), s.values(), s.upperBounds(), s.yKind(),
-                s.xUnit(), s.metadata(), warnings).withLines(s.lines());
+        return s.withWarnings(warnings);
     }
 
-    /** One x/y column pair; {@code role.yKind()} null when there is no header. */
-    record Series(int x, int y, String xName, String yName, XUnit unit, ColumnRole role) {
+    /**
+     * One x/y column pair; {@code role.yKind()} null when there is no header; {@code sd} the column of its
+     * standard deviations, -1 when there is none.
+     */
+    record Series(int x, int y, String xName, String yName, XUnit unit, ColumnRole role, int sd) {
+
+        Series(int x, int y, String xName, String yName, XUnit unit, ColumnRole role) {
+            this(x, y, xName, yName, unit, role, -1);
+        }
+
+        Series withSpread(int column) {
+            return new Series(x, y, xName, yName, unit, role, column);
+        }
     }
 
     /** Column roles, decided when the header is known. */
@@ -111,6 +126,8 @@ public final class DelimitedTextReader {
         private final List<Series> series = new ArrayList<>();
         private final List<String> notes = new ArrayList<>();
         private int[] parsed;
+        private List<String> names = List.of();
+        private ColumnRole[] roles = new ColumnRole[0];
         /** Set when the header has a wavelength column but no value column; raised after the x check. */
         private ImportException noValueColumn;
         private Series xOnly;
@@ -123,6 +140,7 @@ public final class DelimitedTextReader {
 
         TextTable.Selection choose(TextTable.Header header) throws ImportException {
             List<String> names = header.names() == null ? positionalNames(header.columnCount()) : header.names();
+            this.names = names;
             if (options.columnsChosen()) {
                 series.add(ChosenColumns.series(source, header, names, options, notes));
             } else if (header.names() == null) {
@@ -144,9 +162,15 @@ public final class DelimitedTextReader {
                 if (i == 0 || mode != Replicates.FIRST) {
                     addOnce(columns, s.x());
                     addOnce(columns, s.y());
+                    if (s.sd() >= 0) {
+                        addOnce(columns, s.sd());
+                    }
                 }
                 used[s.x()] = true;
                 used[s.y()] = true;
+                if (s.sd() >= 0) {
+                    used[s.sd()] = true;
+                }
             }
             List<String> ignored = new ArrayList<>();
             for (int c = 0; c < names.size(); c++) {
@@ -166,7 +190,9 @@ public final class DelimitedTextReader {
                         + "; set replicates MEAN or SEPARATE in the read options to use them");
             }
             parsed = columns.stream().mapToInt(Integer::intValue).toArray();
-            return new TextTable.Selection(parsed, names);
+            java.util.Set<Integer> spreads = new java.util.HashSet<>();
+            series.stream().filter(s -> s.sd() >= 0).forEach(s -> spreads.add(s.sd()));
+            return new TextTable.Selection(parsed, names, spreads);
         }
 
         /** The unit the read options force replaces the header's, with a note when they differ. */
@@ -208,7 +234,7 @@ public final class DelimitedTextReader {
             int currentX = -1;
             int firstX = -1;
             List<Integer> orphans = new ArrayList<>(); // value columns before any wavelength column
-            ColumnRole[] roles = new ColumnRole[names.size()];
+            roles = new ColumnRole[names.size()];
             for (int c = 0; c < names.size(); c++) {
                 try {
                     roles[c] = ColumnRole.of(names.get(c));
@@ -224,6 +250,8 @@ public final class DelimitedTextReader {
                     firstX = firstX < 0 ? c : firstX;
                 } else if (roles[c].isY() && currentX >= 0) {
                     series.add(series(names, roles, currentX, c));
+                } else if (roles[c].isSpread() && !series.isEmpty() && spreadFits(series.get(series.size() - 1), c)) {
+                    series.set(series.size() - 1, series.get(series.size() - 1).withSpread(c));
                 } else if (roles[c].isY()) {
                     orphans.add(c);
                 }
@@ -242,8 +270,21 @@ public final class DelimitedTextReader {
             }
         }
 
+        /** A standard deviation belongs to the value column right before it, when that one has none yet. */
+        private static boolean spreadFits(Series last, int column) {
+            return last.sd() < 0 && last.y() == column - 1;
+        }
+
         private static Series series(List<String> names, ColumnRole[] roles, int x, int y) {
             return new Series(x, y, names.get(x), names.get(y), roles[x].xUnit(), roles[y]);
+        }
+
+        ColumnRole roleOf(int column) {
+            return roles[column];
+        }
+
+        String namesOf(int column) {
+            return names.get(column);
         }
 
         int parsedIndex(int column) {
@@ -300,8 +341,15 @@ public final class DelimitedTextReader {
             return out;
         }
 
-        /** One series, in nm, increasing, with its y kind decided. */
+        /**
+         * One series, in nm, increasing, with its y kind decided; {@code ordered.values()[1]}, when present,
+         * its standard deviations.
+         */
         private record Curve(Series series, XOrder.Ordered ordered, YKind kind, List<String> notes) {
+
+            boolean hasSpread() {
+                return ordered.values().length > 1;
+            }
         }
 
         /** Refuses a wavelength column that changes direction, naming the first line where it turns. */
@@ -337,14 +385,33 @@ public final class DelimitedTextReader {
                 }
             }
             int yk = layout.parsedIndex(s.y());
-            XOrder.Ordered ordered = XOrder.order(source, s.xName(), x, new double[][] {table.column(yk)},
-                    new boolean[][] {table.bounds(yk)}, lines, options.mergeDuplicates());
+            double[][] columns = {table.column(yk)};
+            boolean[][] bounds = {table.bounds(yk)};
+            if (s.sd() >= 0) {
+                int sk = layout.parsedIndex(s.sd());
+                double[] sd = table.column(sk);
+                refuseNegativeSpread(s, sd, lines);
+                columns = new double[][] {columns[0], sd};
+                bounds = new boolean[][] {bounds[0], table.bounds(sk)};
+            }
+            XOrder.Ordered ordered = XOrder.order(source, s.xName(), x, columns, bounds, lines,
+                    options.mergeDuplicates());
             if (ordered.x().length < ParsedSpectrum.MIN_POINTS) {
                 throw ImportException.ofSource(source, "only 1 distinct wavelength after merging repeated rows");
             }
             List<String> notes = new ArrayList<>(ordered.notes());
             YKind kind = decideKind(s, ordered.values()[0], notes);
             return new Curve(s, ordered, kind, notes);
+        }
+
+        private void refuseNegativeSpread(Series s, double[] sd, int[] lines) throws ImportException {
+            String name = layout.namesOf(s.sd());
+            for (int i = 0; i < sd.length; i++) {
+                if (sd[i] < 0) {
+                    throw new ImportException(source, lines[i], name, "a standard deviation cannot be negative, was "
+                            + sd[i]);
+                }
+            }
         }
 
         private YKind decideKind(Series s, double[] values, List<String> notes) {
@@ -415,7 +482,29 @@ public final class DelimitedTextReader {
                     + " (an upper bound where any replicate was one)");
             XOrder.Ordered merged = new XOrder.Ordered(x, new double[][] {sum}, new boolean[][] {bound},
                     first.ordered().lines(), List.of());
-            return spectrum(new Curve(first.series(), merged, first.kind(), first.notes()), extra, notes);
+            ParsedSpectrum mean = spectrum(new Curve(first.series(), merged, first.kind(), first.notes()), extra, notes);
+            return mean.withStandardDeviations(spreadOfMean(curves, sum),
+                    "spread of " + curves.size() + " replicates " + names + " (standard deviation of their mean)");
+        }
+
+        /**
+         * The experimental standard deviation of the mean at each point, s/√n with s the sample standard
+         * deviation of the n replicates (divisor n − 1): the standard uncertainty of a mean of n independent
+         * readings (GUM, JCGM 100:2008, 4.2.2–4.2.3). The mean is what is stored, so its uncertainty is what
+         * a verdict on it needs; the spread of a single scan (s itself) would overstate it by √n.
+         */
+        private static double[] spreadOfMean(List<Curve> curves, double[] mean) {
+            int n = curves.size();
+            double[] sd = new double[mean.length];
+            for (int i = 0; i < mean.length; i++) {
+                double squares = 0;
+                for (Curve c : curves) {
+                    double d = c.ordered().values()[0][i] - mean[i];
+                    squares += d * d;
+                }
+                sd[i] = Math.sqrt(squares / (n - 1) / n);
+            }
+            return sd;
         }
 
         private ParsedSpectrum spectrum(Curve c, Map<String, String> extraMetadata, List<String> extraNotes) {
@@ -425,8 +514,15 @@ public final class DelimitedTextReader {
             warnings.addAll(layout.notes);
             warnings.addAll(c.notes());
             warnings.addAll(extraNotes);
-            return ParsedSpectrum.of(source, c.ordered().x(), c.ordered().values()[0], c.ordered().bounds()[0],
-                    c.kind(), c.series().unit(), metadata, warnings).withLines(c.ordered().lines());
+            ParsedSpectrum s = ParsedSpectrum.of(source, c.ordered().x(), c.ordered().values()[0],
+                    c.ordered().bounds()[0], c.kind(), c.series().unit(), metadata, warnings)
+                    .withLines(c.ordered().lines());
+            if (!c.hasSpread()) {
+                return s;
+            }
+            YKind named = layout.roleOf(c.series().sd()).yKind();
+            return s.withStandardDeviations(c.ordered().values()[1], named == null ? c.kind() : named,
+                    "column '" + layout.namesOf(c.series().sd()) + "'");
         }
     }
 }

@@ -21,12 +21,18 @@ import java.util.regex.Pattern;
  *
  * Numbers are written with {@link Double#toString(double)}, the shortest decimal that parses back to the
  * same double, so {@link DelimitedTextReader} restores every value bit for bit.
+ *
+ * <p>A curve with a measurement uncertainty gets a third column, {@value #SD_COLUMN}: one standard deviation
+ * in decadic absorbance per point (the unit the project keeps it in, so it reads back exactly, whatever the
+ * transmittance), empty where it is unknown.
  */
 public final class DelimitedTextWriter {
 
     /** First line of every sieve curve file; the reader recognises (but does not require) it. */
     public static final String FORMAT_LINE = "# Spectral Sieve curve v1";
     static final String HEADER = "wavelength_nm,transmittance";
+    /** The name of the uncertainty column; {@link ColumnRole} reads it as a standard deviation in absorbance. */
+    public static final String SD_COLUMN = "absorbance_sd";
 
     /** Keys the reader will read back as metadata: no separators, no comment or line breaks. */
     private static final Pattern KEY = Pattern.compile("[a-z][a-z0-9_.\\- ]*");
@@ -42,9 +48,18 @@ public final class DelimitedTextWriter {
      */
     public static String write(Map<String, String> metadata, double[] wavelengthsNm,
             double[] transmittanceFractions, boolean[] upperBounds) {
-        StringWriter out = new StringWriter(32 * wavelengthsNm.length + 256);
+        return write(metadata, wavelengthsNm, transmittanceFractions, upperBounds, (double[]) null);
+    }
+
+    /**
+     * @param absorbanceSd one standard deviation in absorbance per point, finite and &ge; 0 or NaN (unknown,
+     *                     written as an empty cell); null = no uncertainty column
+     */
+    public static String write(Map<String, String> metadata, double[] wavelengthsNm,
+            double[] transmittanceFractions, boolean[] upperBounds, double[] absorbanceSd) {
+        StringWriter out = new StringWriter(48 * wavelengthsNm.length + 256);
         try {
-            write(metadata, wavelengthsNm, transmittanceFractions, upperBounds, out);
+            write(metadata, wavelengthsNm, transmittanceFractions, upperBounds, absorbanceSd, out);
         } catch (IOException e) {
             throw new UncheckedIOException(e); // StringWriter never throws
         }
@@ -54,7 +69,15 @@ public final class DelimitedTextWriter {
     /** Streams the file to {@code out} (not closed, flushed), for curves too large to build as one string. */
     public static void write(Map<String, String> metadata, double[] wavelengthsNm,
             double[] transmittanceFractions, boolean[] upperBounds, Writer out) throws IOException {
+        write(metadata, wavelengthsNm, transmittanceFractions, upperBounds, null, out);
+    }
+
+    /** As {@link #write(Map, double[], double[], boolean[], Writer)}, with an uncertainty column when given. */
+    public static void write(Map<String, String> metadata, double[] wavelengthsNm,
+            double[] transmittanceFractions, boolean[] upperBounds, double[] absorbanceSd, Writer out)
+            throws IOException {
         check(wavelengthsNm, transmittanceFractions, upperBounds);
+        checkSd(wavelengthsNm, absorbanceSd);
         out.write(FORMAT_LINE);
         out.write('\n');
         if (metadata != null) {
@@ -62,7 +85,7 @@ public final class DelimitedTextWriter {
                 out.write("# " + key(e.getKey()) + ": " + value(e.getValue()) + "\n");
             }
         }
-        out.write(HEADER);
+        out.write(absorbanceSd == null ? HEADER : HEADER + "," + SD_COLUMN);
         out.write('\n');
         StringBuilder row = new StringBuilder(48);
         for (int i = 0; i < wavelengthsNm.length; i++) {
@@ -71,7 +94,14 @@ public final class DelimitedTextWriter {
             if (upperBounds != null && upperBounds[i]) {
                 row.append('<');
             }
-            row.append(Double.toString(transmittanceFractions[i])).append('\n');
+            row.append(Double.toString(transmittanceFractions[i]));
+            if (absorbanceSd != null) {
+                row.append(',');
+                if (!Double.isNaN(absorbanceSd[i])) {
+                    row.append(Double.toString(absorbanceSd[i]));
+                }
+            }
+            row.append('\n');
             out.append(row);
         }
         out.flush();
@@ -90,6 +120,22 @@ public final class DelimitedTextWriter {
             if (i > 0 && !(x[i] > x[i - 1])) {
                 throw new IllegalArgumentException("wavelengths not strictly increasing at index " + i + ": "
                         + x[i] + " nm follows " + x[i - 1] + " nm");
+            }
+        }
+    }
+
+    private static void checkSd(double[] x, double[] sd) {
+        if (sd == null) {
+            return;
+        }
+        if (sd.length != x.length) {
+            throw new IllegalArgumentException("lengths differ: " + x.length + " wavelengths, " + sd.length
+                    + " standard deviations");
+        }
+        for (int i = 0; i < sd.length; i++) {
+            if (!Double.isNaN(sd[i]) && !(Double.isFinite(sd[i]) && sd[i] >= 0)) {
+                throw new IllegalArgumentException("standard deviation at index " + i + " is " + sd[i]
+                        + ", must be finite and >= 0, or NaN (unknown)");
             }
         }
     }

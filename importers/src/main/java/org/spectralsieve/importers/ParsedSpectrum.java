@@ -7,6 +7,7 @@ import java.util.List;
 import java.util.Locale;
 import java.util.Map;
 import java.util.Objects;
+import java.util.Optional;
 
 /**
  * The neutral result of any importer: what the file said, before calibration or validation against a
@@ -15,6 +16,11 @@ import java.util.Objects;
  *
  * <p>Invariants (checked in {@link #of}): at least 2 points; all arrays of equal length; every number
  * finite; wavelengths strictly increasing. Arrays are copied in and out, so an instance never changes.
+ *
+ * <p>A spectrum may also carry one standard deviation per point ({@link #withStandardDeviations}), in the
+ * same unit as its values (a %T column's spread in %T, an absorbance column's in absorbance), NaN where the
+ * file gives none, with a note of where it came from: a standard-deviation column, or the spread of
+ * replicate columns. Turning it into an absorbance uncertainty is the backend's business.
  */
 public final class ParsedSpectrum {
 
@@ -29,11 +35,21 @@ public final class ParsedSpectrum {
     private final XUnit xUnit;
     private final Map<String, String> metadata;
     private final List<String> warnings;
-    /** File line of each point (1-based), in wavelength order; 0 where unknown. */
-    private int[] lines;
+    /** One standard deviation per point in the values' unit, NaN where unknown; null when the file gave none. */
+    private final double[] standardDeviations;
+    private final String standardDeviationOrigin;
+    /** The unit of the standard deviations: the values' kind unless the file said otherwise (e.g. "sd (A)"). */
+    private final YKind standardDeviationKind;
+    /** File line of each point (1-based), in wavelength order; null when the reader did not say. */
+    private final int[] lines;
 
     private ParsedSpectrum(String sourceName, double[] wavelengthsNm, double[] values, boolean[] upperBounds,
-            YKind yKind, XUnit xUnit, Map<String, String> metadata, List<String> warnings) {
+            YKind yKind, XUnit xUnit, Map<String, String> metadata, List<String> warnings,
+            double[] standardDeviations, String standardDeviationOrigin, YKind standardDeviationKind, int[] lines) {
+        this.lines = lines;
+        this.standardDeviationKind = standardDeviationKind;
+        this.standardDeviations = standardDeviations;
+        this.standardDeviationOrigin = standardDeviationOrigin;
         this.sourceName = sourceName;
         this.wavelengthsNm = wavelengthsNm;
         this.values = values;
@@ -73,7 +89,70 @@ public final class ParsedSpectrum {
         double[] y = values.clone();
         checkFiniteAndIncreasing(x, y);
         return new ParsedSpectrum(sourceName, x, y, bounds, yKind, xUnit, normalise(metadata),
-                warnings == null ? List.of() : List.copyOf(warnings));
+                warnings == null ? List.of() : List.copyOf(warnings), null, null, null, null);
+    }
+
+    /**
+     * This spectrum with one standard deviation per point, in the values' unit: finite and &ge; 0, or NaN
+     * where unknown; {@code origin} says where it came from (e.g. "column 'StdDev'"), for the preview.
+     *
+     * @throws IllegalArgumentException naming the bad index and value
+     */
+    public ParsedSpectrum withStandardDeviations(double[] sd, String origin) {
+        return withStandardDeviations(sd, yKind, origin);
+    }
+
+    /**
+     * As {@link #withStandardDeviations(double[], String)}, the standard deviations in {@code kind}'s unit
+     * (absorbance for a column named so, whatever the values are in).
+     */
+    public ParsedSpectrum withStandardDeviations(double[] sd, YKind kind, String origin) {
+        Objects.requireNonNull(kind, "kind");
+        Objects.requireNonNull(sd, "sd");
+        Objects.requireNonNull(origin, "origin");
+        if (sd.length != values.length) {
+            throw new IllegalArgumentException("lengths differ: " + values.length + " values, " + sd.length
+                    + " standard deviations");
+        }
+        for (int i = 0; i < sd.length; i++) {
+            if (!Double.isNaN(sd[i]) && !(Double.isFinite(sd[i]) && sd[i] >= 0)) {
+                throw new IllegalArgumentException("standard deviation at index " + i + " (" + wavelengthsNm[i]
+                        + " nm) is " + sd[i] + ", must be finite and >= 0");
+            }
+        }
+        return new ParsedSpectrum(sourceName, wavelengthsNm, values, upperBounds, yKind, xUnit, metadata, warnings,
+                sd.clone(), origin, kind, lines);
+    }
+
+    /** This spectrum with other warnings, everything else (standard deviations included) kept. */
+    public ParsedSpectrum withWarnings(List<String> newWarnings) {
+        return new ParsedSpectrum(sourceName, wavelengthsNm, values, upperBounds, yKind, xUnit, metadata,
+                List.copyOf(newWarnings), standardDeviations, standardDeviationOrigin, standardDeviationKind, lines);
+    }
+
+    /** True when the file gave a standard deviation (a column, or replicates' spread). */
+    public boolean hasStandardDeviations() {
+        return standardDeviations != null;
+    }
+
+    /** One standard deviation per point in the values' unit, NaN where unknown (a copy; all NaN when none). */
+    public double[] standardDeviations() {
+        if (standardDeviations == null) {
+            double[] none = new double[values.length];
+            Arrays.fill(none, Double.NaN);
+            return none;
+        }
+        return standardDeviations.clone();
+    }
+
+    /** The unit of {@link #standardDeviations()}: {@link #yKind()} unless the file named another. */
+    public YKind standardDeviationKind() {
+        return standardDeviationKind == null ? yKind : standardDeviationKind;
+    }
+
+    /** Where the standard deviations came from, for the preview; empty when there are none. */
+    public Optional<String> standardDeviationOrigin() {
+        return Optional.ofNullable(standardDeviationOrigin);
     }
 
     private static void checkFiniteAndIncreasing(double[] x, double[] y) {
@@ -145,10 +224,8 @@ public final class ParsedSpectrum {
         if (pointLines.length != values.length) {
             throw new IllegalArgumentException(pointLines.length + " line numbers for " + values.length + " points");
         }
-        ParsedSpectrum copy = new ParsedSpectrum(sourceName, wavelengthsNm, values, upperBounds, yKind, xUnit, metadata,
-                warnings);
-        copy.lines = pointLines.clone();
-        return copy;
+        return new ParsedSpectrum(sourceName, wavelengthsNm, values, upperBounds, yKind, xUnit, metadata, warnings,
+                standardDeviations, standardDeviationOrigin, standardDeviationKind, pointLines.clone());
     }
 
     /** File lines of all points (a copy; zeros when the reader did not say). */
@@ -188,7 +265,9 @@ public final class ParsedSpectrum {
         }
         return new ParsedSpectrum(sourceName, Arrays.copyOfRange(wavelengthsNm, from, to),
                 Arrays.copyOfRange(values, from, to), Arrays.copyOfRange(upperBounds, from, to), yKind, xUnit,
-                metadata, warnings);
+                metadata, warnings,
+                standardDeviations == null ? null : Arrays.copyOfRange(standardDeviations, from, to),
+                standardDeviationOrigin, standardDeviationKind, lines == null ? null : Arrays.copyOfRange(lines, from, to));
     }
 
     /** Values converted to transmittance fractions: %T / 100, or 10^−A for absorbance. */
@@ -210,7 +289,10 @@ public final class ParsedSpectrum {
                 && yKind == p.yKind
                 && xUnit == p.xUnit
                 && metadata.equals(p.metadata)
-                && warnings.equals(p.warnings);
+                && warnings.equals(p.warnings)
+                && Arrays.equals(standardDeviations, p.standardDeviations)
+                && Objects.equals(standardDeviationOrigin, p.standardDeviationOrigin)
+                && standardDeviationKind() == p.standardDeviationKind();
     }
 
     @Override

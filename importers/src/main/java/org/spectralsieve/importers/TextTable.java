@@ -36,11 +36,20 @@ final class TextTable {
         }
     }
 
-    /** The columns to parse, and the name of every column (used in messages). */
-    record Selection(int[] columns, List<String> names) {
+    /**
+     * The columns to parse, and the name of every column (used in messages); {@code unknownAllowed}: the
+     * columns where an empty cell or {@code NaN} means "not known" (read as NaN) rather than an error, such
+     * as a standard-deviation column (a point below detection has none).
+     */
+    record Selection(int[] columns, List<String> names, java.util.Set<Integer> unknownAllowed) {
         Selection {
             columns = columns.clone();
             names = List.copyOf(names);
+            unknownAllowed = java.util.Set.copyOf(unknownAllowed);
+        }
+
+        Selection(int[] columns, List<String> names) {
+            this(columns, names, java.util.Set.of());
         }
     }
 
@@ -262,6 +271,10 @@ final class TextTable {
             while (from < to && LineFields.isBlank(s.charAt(from))) {
                 from++;
             }
+        }
+        if (selection.unknownAllowed().contains(column)
+                && (from == to || s.substring(from, to).equalsIgnoreCase("nan"))) {
+            return Double.NaN;
         }
         if (from == to) {
             throw new ImportException(source, lineNo, name, "empty");

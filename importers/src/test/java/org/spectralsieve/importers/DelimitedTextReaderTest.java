@@ -168,10 +168,10 @@ class DelimitedTextReaderTest {
 
     @Test
     void unrecognisedExtraColumnsAreIgnoredWithAWarning() throws ImportException {
-        ParsedSpectrum s = read("Wavelength,Transmittance,StdDev\n300,0.1,0.01\n400,0.2,0.02\n");
+        ParsedSpectrum s = read("Wavelength,Transmittance,Temperature\n300,0.1,21\n400,0.2,22\n");
 
         assertThat(s.values()).containsExactly(0.1, 0.2);
-        assertThat(s.warnings()).singleElement().asString().contains("StdDev");
+        assertThat(s.warnings()).singleElement().asString().contains("Temperature");
     }
 
     @Test

@@ -38,7 +38,9 @@ class ReferenceDataReadTest {
         assertThat(t[400 - 190]).isCloseTo(91.01, within(0.005));
         assertThat(t[550 - 190]).isCloseTo(92.27, within(0.005));
         assertThat(s.yKind()).isEqualTo(YKind.TRANSMITTANCE_PERCENT);
-        assertThat(s.warnings()).anyMatch(w -> w.contains("StdDev"));
+        // the StdDev column is read as the values' standard deviation, no longer ignored
+        assertThat(s.standardDeviationOrigin()).contains("column 'StdDev'");
+        assertThat(s.warnings()).noneMatch(w -> w.contains("StdDev"));
     }
 
     @Test

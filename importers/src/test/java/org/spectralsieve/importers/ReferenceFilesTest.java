@@ -64,12 +64,14 @@ class ReferenceFilesTest {
     }
 
     @Test
-    void semicolonFilesAreDetectedAndTheirStdDevColumnIgnored() throws ImportException {
+    void semicolonFilesAreDetectedAndTheirStdDevColumnRead() throws ImportException {
         ParsedSpectrum s = reader.read(SharedFolder.measuredSheet("instrument-blank.csv"));
 
         // SOURCES.md §8: blank ≈100.03 throughout, up to 100.43
         assertThat(Arrays.stream(s.values()).max().orElseThrow()).isCloseTo(100.43, within(0.005));
-        assertThat(s.warnings()).anyMatch(w -> w.contains("Std.Dev."));
+        // its third column, "Std.Dev.", is the values' standard deviation: first row 190;99.9398…;0.0126220243469056
+        assertThat(s.standardDeviationOrigin()).contains("column 'Std.Dev.'");
+        assertThat(s.standardDeviations()[0]).isEqualTo(0.0126220243469056);
     }
 
     @Test

@@ -226,7 +226,8 @@ public final class JcampReader {
             for (int i = 0; i < lines.length; i++) {
                 lines[i] = block.pointLine(i);
             }
-            if (checkMonotonic(x) < 0) {
+            boolean reversed = checkMonotonic(x) < 0;
+            if (reversed) {
                 reverse(x);
                 reverse(y);
                 reverse(bounds);
@@ -234,7 +235,9 @@ public final class JcampReader {
             }
             warnAboutRanges(xUnit, yKind, block.x(), y);
             try {
-                return ParsedSpectrum.of(source, x, y, bounds, yKind, xUnit, metadata(), warnings).withLines(lines);
+                return AbsorbanceSd.attach(source, block,
+                        ParsedSpectrum.of(source, x, y, bounds, yKind, xUnit, metadata(), warnings).withLines(lines),
+                        reversed);
             } catch (IllegalArgumentException e) {
                 throw new ImportException(source, block.startLine(), block.dataLabel(), e.getMessage(), e);
             }
@@ -420,7 +423,8 @@ public final class JcampReader {
         private Map<String, String> metadata() {
             Map<String, String> m = new LinkedHashMap<>();
             for (Ldr l : block.ldrs()) {
-                if (!Labels.isDataTable(l.canonical()) && !l.canonical().equals(Labels.BELOW_DETECTION)) {
+                if (!Labels.isDataTable(l.canonical()) && !l.canonical().equals(Labels.BELOW_DETECTION)
+                        && !l.canonical().equals(Labels.ABSORBANCE_SD)) {
                     m.putIfAbsent(l.name(), l.value());
                 }
             }

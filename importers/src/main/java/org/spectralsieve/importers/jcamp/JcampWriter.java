@@ -19,7 +19,7 @@ public final class JcampWriter {
             Labels.XUNITS, Labels.YUNITS, Labels.XFACTOR, Labels.YFACTOR, Labels.FIRSTX, Labels.LASTX,
             Labels.DELTAX, Labels.NPOINTS, Labels.FIRSTY, Labels.MINY, Labels.MAXY, "MINX", "MAXX", "BLOCKS",
             "BLOCKID", "DATACLASS", "LASTY", Labels.XYDATA, Labels.XYPOINTS, Labels.PEAKTABLE, Labels.END,
-            Labels.BELOW_DETECTION, "JCAMPBLOCK");
+            Labels.BELOW_DETECTION, Labels.ABSORBANCE_SD, "JCAMPBLOCK");
     private static final int INDICES_PER_LINE = 12;
 
     private JcampWriter() {
@@ -35,6 +35,18 @@ public final class JcampWriter {
      */
     public static String write(Map<String, String> metadata, double[] wavelengthsNm,
             double[] transmittanceFractions, boolean[] upperBounds) {
+        return write(metadata, wavelengthsNm, transmittanceFractions, upperBounds, null);
+    }
+
+    /**
+     * As {@link #write(Map, double[], double[], boolean[])}, with the curve's measurement uncertainty in the
+     * private label {@code ##$SIEVE ABSORBANCE SD=} ({@link AbsorbanceSd}: why a label, not a second table).
+     *
+     * @param absorbanceSd one standard deviation in absorbance per point, finite and &ge; 0 or NaN (unknown);
+     *                     null = none, and no label
+     */
+    public static String write(Map<String, String> metadata, double[] wavelengthsNm,
+            double[] transmittanceFractions, boolean[] upperBounds, double[] absorbanceSd) {
         Objects.requireNonNull(wavelengthsNm, "wavelengthsNm");
         Objects.requireNonNull(transmittanceFractions, "transmittanceFractions");
         Map<String, String> meta = metadata == null ? Map.of() : metadata;
@@ -70,6 +82,10 @@ public final class JcampWriter {
         label(out, "MINY", Double.toString(min));
         label(out, "MAXY", Double.toString(max));
         belowDetection(out, upperBounds);
+        if (absorbanceSd != null) {
+            checkSd(absorbanceSd, n);
+            AbsorbanceSd.write(out, absorbanceSd);
+        }
         out.append("##XYPOINTS= (XY..XY)\n");
         for (int i = 0; i < n; i++) {
             out.append(wavelengthsNm[i]).append(", ").append(transmittanceFractions[i]).append('\n');
@@ -96,6 +112,18 @@ public final class JcampWriter {
         }
         if (onLine > 0) {
             out.append('\n');
+        }
+    }
+
+    private static void checkSd(double[] sd, int n) {
+        if (sd.length != n) {
+            throw new IllegalArgumentException("lengths differ: " + n + " points, " + sd.length + " standard deviations");
+        }
+        for (int i = 0; i < n; i++) {
+            if (!Double.isNaN(sd[i]) && !(Double.isFinite(sd[i]) && sd[i] >= 0)) {
+                throw new IllegalArgumentException("standard deviation at index " + i + " is " + sd[i]
+                        + ", must be finite and >= 0, or NaN (unknown)");
+            }
         }
     }
 

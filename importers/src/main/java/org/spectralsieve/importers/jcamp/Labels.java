@@ -25,6 +25,9 @@ final class Labels {
     /** The project's private label (JCAMP-DX private labels start with '$'). */
     static final String BELOW_DETECTION = "$SIEVEBELOWDETECTION";
     static final String BELOW_DETECTION_AS_WRITTEN = "$SIEVE BELOW DETECTION";
+    /** The project's private label for per-point absorbance standard deviations ({@link AbsorbanceSd}). */
+    static final String ABSORBANCE_SD = "$SIEVEABSORBANCESD";
+    static final String ABSORBANCE_SD_AS_WRITTEN = "$SIEVE ABSORBANCE SD";
 
     private Labels() {
     }
