@@ -43,6 +43,15 @@ public record ClauseResult(Clause clause, double value, double threshold, double
         this(clause, value, threshold, marginDecades, verdict, explanation, false);
     }
 
+    /**
+     * The confidence as shown beside the verdict: "97.3 % confidence it holds" (rounded down, never surer
+     * than computed), or "confidence unknown".
+     */
+    public String confidenceText() {
+        return confidence.isPresent() ? Wording.confidence(confidence.getAsDouble()) + " confidence it holds"
+                : "confidence unknown";
+    }
+
     /** Whether the data said nothing on this clause: no reading, no margin (see {@link #unjudgeable}). */
     public boolean unjudged() {
         return verdict == Verdict.UNVERIFIED && Double.isNaN(value) && Double.isNaN(marginDecades);
