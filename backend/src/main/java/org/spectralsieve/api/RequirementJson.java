@@ -307,7 +307,7 @@ public final class RequirementJson {
         }
         double percent = number(node, "confidencePercent", path);
         double fraction = java.math.BigDecimal.valueOf(percent).movePointLeft(2).doubleValue();
-        check(fraction, TransmittanceClause.allowedDemand(fraction), path + ".confidencePercent",
+        check(percent, TransmittanceClause.allowedDemand(fraction), path + ".confidencePercent",
                 "must be a number from 50 to 99.9 (under 50 a reading that misses could satisfy it; over 99.9 rests on"
                         + " the far tail of the error model)");
         return clause.withConfidenceDemand(fraction, text);
