@@ -106,6 +106,16 @@ class ClauseConfidenceTest {
     }
 
     @Test
+    void theBoundedCopiesOfACurveKeepItsUncertainty() {
+        // raising a below-detection point to its limit (or lowering it to 0) moves a value, not the measurement's σ
+        Curve c = Curve.of(new double[] {400, 405, 410}, new double[] {0.0005, 0.0002, 0.0005}, 0.001)
+                .withAbsorbanceUncertainty(new double[] {0.05, 0.07, Double.NaN});
+
+        assertThat(JudgedCurves.upperBounds(c).absorbanceUncertainties()).containsExactly(0.05, 0.07, Double.NaN);
+        assertThat(JudgedCurves.lowerBounds(c).absorbanceUncertainties()).containsExactly(0.05, 0.07, Double.NaN);
+    }
+
+    @Test
     void withoutAStoredUncertaintyTheConfidenceIsUnknownNotInvented() {
         Curve bare = Curve.of(new double[] {400, 410}, new double[] {0.5, 0.5}, 0);
         ClauseResult r = ClauseEvaluator.evaluate(pass(Band.at(405), Aggregate.EVERY_POINT, 0.10), bare);
