@@ -62,7 +62,7 @@ public final class ClauseEvaluator {
         Objects.requireNonNull(curve, "curve");
         CurveView view = new CurveView(curve);
         if (clause instanceof TransmittanceClause t) {
-            return demanded(t, t.aggregate() == Aggregate.MEAN ? mean(t, view) : everyPoint(t, view));
+            return demanded(t, t.aggregate() == Aggregate.MEAN ? mean(t, view) : everyPoint(t, view), view);
         }
         if (clause instanceof WeightedClause w) {
             return FigureClauses.weighted(w, curve);
@@ -140,7 +140,7 @@ public final class ClauseEvaluator {
      * surely as asked, which is neither a proof nor a proven miss. Misses and unverified results stand: a
      * value that misses has a confidence under 50 %, below every allowed demand.
      */
-    static ClauseResult demanded(TransmittanceClause clause, ClauseResult result) {
+    static ClauseResult demanded(TransmittanceClause clause, ClauseResult result, CurveView view) {
         if (clause.confidenceDemand().isEmpty() || result.verdict() != Verdict.MEETS) {
             return result;
         }
@@ -150,8 +150,9 @@ public final class ClauseEvaluator {
         Verdict verdict;
         if (result.confidence().isEmpty()) {
             verdict = Verdict.UNVERIFIED;
-            text = result.explanation() + "; " + asked + ", but " + (result.valueIsBound()
-                    ? "the value is a detection-limit bound, which has no stated uncertainty"
+            boolean onBound = view.readings(clause.band()).stream().anyMatch(Reading::bounded);
+            text = result.explanation() + "; " + asked + ", but " + (onBound
+                    ? "a reading is only a detection-limit bound, which has no stated uncertainty"
                     : "the curve carries no measurement uncertainty here") + ", so the confidence is unknown";
         } else if (result.confidence().getAsDouble() < demand) {
             verdict = Verdict.UNVERIFIED;

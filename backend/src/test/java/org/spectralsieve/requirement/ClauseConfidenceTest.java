@@ -193,6 +193,18 @@ class ClauseConfidenceTest {
     }
 
     @Test
+    void aBlockProvenOnlyByADetectionLimitCannotMeetAConfidenceDemand() {
+        // T at 405 nm is under the 0.1 % limit: the block under 1 % is proven, but no Gaussian says how surely
+        Curve c = Curve.of(new double[] {400, 405, 410}, new double[] {0.0005, 0.0002, 0.0005}, 0.001)
+                .withAbsorbanceUncertainty(new double[] {0.05, 0.05, 0.05});
+        ClauseResult r = ClauseEvaluator.evaluate(block(Band.at(405), 0.01).withConfidenceDemand(0.95, "illustrative"), c);
+
+        assertThat(r.verdict()).isEqualTo(Verdict.UNVERIFIED);
+        assertThat(r.explanation()).contains("95 % confidence asked, but a reading is only a detection-limit bound,"
+                + " which has no stated uncertainty, so the confidence is unknown");
+    }
+
+    @Test
     void aMissStaysAMissWhateverConfidenceIsAsked() {
         // A = 1.2 against A_t = 1: misses on the value, P = 0.1587 under every allowed demand
         Curve c = curve(new double[] {400, 410}, new double[] {Math.pow(10, -1.2), Math.pow(10, -1.2)},
