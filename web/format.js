@@ -96,12 +96,14 @@ export function clauseSummary(clause) {
   const mean = clause.aggregate === 'mean' ? 'mean ' : '';
   const where = band(clause.fromNm, clause.toNm);
   const t = clause.thresholdT;
+  // "… with 95% confidence": the clause meets only when that sure
+  const sure = Number.isFinite(clause.confidencePercent) ? ` with ≥ ${number(clause.confidencePercent, 1)} % confidence` : '';
   if (clause.unit === 'opticalDensity') {
     // Passing "to OD x" means absorbing at most that much; blocking means at least.
-    return `${mean}OD ${pass ? '≤' : '≥'} ${opticalDensity(t)} (T ${pass ? '≥' : '≤'} ${thresholdPercent(t)}) ${where}`;
+    return `${mean}OD ${pass ? '≤' : '≥'} ${opticalDensity(t)} (T ${pass ? '≥' : '≤'} ${thresholdPercent(t)}) ${where}${sure}`;
   }
   const threshold = clause.unit === 'fraction' ? number(t, 6) : thresholdPercent(t);
-  return `${mean}T ${pass ? '≥' : '≤'} ${threshold} ${where}`;
+  return `${mean}T ${pass ? '≥' : '≤'} ${threshold} ${where}${sure}`;
 }
 
 /** The thickness part of a requirement, always shown so the user sees what the search assumes. */
@@ -131,6 +133,20 @@ export function clauseValue(result, clause) {
   }
   const text = clause?.unit === 'fraction' ? number(v, 6) : percent(v);
   return bound ? `≤ ${text}` : text;
+}
+
+/**
+ * A clause's confidence (the probability, 0–1, that the true value meets the threshold) as shown beside
+ * its verdict: "97.3 % confidence it holds", rounded DOWN to 0.1 % so it never reads surer than the
+ * server computed (94.96 % is not shown as a met 95 % demand); "confidence unknown" for null.
+ */
+export function confidence(fraction) {
+  if (fraction === null || fraction === undefined || !Number.isFinite(fraction)) return 'confidence unknown';
+  let text;
+  if (fraction > 0.999) text = 'over 99.9';
+  else if (fraction < 0.001) text = 'under 0.1';
+  else text = String(Number((Math.floor(fraction * 1000 + 1e-9) / 10).toFixed(1)));
+  return `${text} % confidence it holds`;
 }
 
 /** A margin in decades with its sign always written: "+0.061", "−0.088". */

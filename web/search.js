@@ -360,7 +360,7 @@ export function initSearch(ui) {
         cell(clauseValue(c, requirement.clauses[i]), c.valueIsBound ? 'num bound' : 'num',
           c.valueIsBound ? 'at the detection limit: a bound, not a measurement' : ''),
         cell(fmt.signedDecades(c.marginDecades), 'num margin'),
-        verdictCell(c.verdict),
+        verdictCell(c.verdict, fmt.confidence(c.confidence)),
         cell(c.explanation, 'explanation'),
       );
       body.append(row);
@@ -470,7 +470,8 @@ function thicknessCell(result) {
   return td;
 }
 
-function verdictCell(verdict) {
+/** The verdict badge; `confidence`, when given, is the clause's confidence text shown beside it. */
+function verdictCell(verdict, confidence) {
   const known = VERDICTS[verdict] || { symbol: '•', word: verdict };
   const td = document.createElement('td');
   const badge = document.createElement('span');
@@ -482,6 +483,12 @@ function verdictCell(verdict) {
   symbol.textContent = known.symbol;
   badge.append(symbol, known.word);
   td.append(badge);
+  if (confidence) {
+    const sure = document.createElement('span');
+    sure.className = 'verdict-confidence';
+    sure.textContent = ` · ${confidence}`;
+    td.append(sure);
+  }
   return td;
 }
 

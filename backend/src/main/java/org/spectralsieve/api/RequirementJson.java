@@ -36,7 +36,8 @@ import tools.jackson.databind.JsonNode;
  *  "materialClass": "plastic sheet" | null, "geometry": "regular" | "total" | null,
  *  "layer": {"placement": "behind" | "on", "thicknessMm": 4, "material": "clear float glass", "text": "..."} | null,
  *  "clauses": [{"type": "transmittance", "direction": "pass" | "block", "aggregate": "everyPoint" | "mean",
- *               "fromNm": 365, "toNm": 365, "thresholdT": 0.8, "unit": "percent" | "fraction" | "opticalDensity", "text": "..."},
+ *               "fromNm": 365, "toNm": 365, "thresholdT": 0.8, "unit": "percent" | "fraction" | "opticalDensity",
+ *               "confidencePercent": 95 | null, "text": "..."},
  *              {"type": "cutoff", "levelT": 0.5, "fromNm": 380, "toNm": 395, "text": "..."},
  *              {"type": "weighted", "preset": "emitter" | "erythemal" | "uvHazard" | "luminous", "emitter": "led-365",
  *               "response": "erythema" | null, "direction": "pass" | "block", "thresholdT": 0.85, "unit": "percent",
@@ -102,6 +103,9 @@ public final class RequirementJson {
             json.put("toNm", t.band().toNm());
             json.put("thresholdT", t.thresholdT());
             json.put("unit", UNITS.get(t.unit()));
+            // "… with 95% confidence": the demand in percent, null when none
+            json.put("confidencePercent", t.confidenceDemand().isPresent()
+                    ? java.math.BigDecimal.valueOf(t.confidenceDemand().getAsDouble()).movePointRight(2).doubleValue() : null);
         } else if (clause instanceof WeightedClause w) {
             json.put("type", "weighted");
             if (w.weighting() instanceof Weighting.Spectral weighting) {
@@ -297,7 +301,16 @@ public final class RequirementJson {
         };
         Band band = band(node, path, aggregate == Aggregate.MEAN);
         Threshold threshold = threshold(node, path);
-        return new TransmittanceClause(direction, aggregate, band, threshold.t(), threshold.unit(), text);
+        TransmittanceClause clause = new TransmittanceClause(direction, aggregate, band, threshold.t(), threshold.unit(), text);
+        if (!node.hasNonNull("confidencePercent")) {
+            return clause;
+        }
+        double percent = number(node, "confidencePercent", path);
+        double fraction = java.math.BigDecimal.valueOf(percent).movePointLeft(2).doubleValue();
+        check(percent, TransmittanceClause.allowedDemand(fraction), path + ".confidencePercent",
+                "must be a number from 50 to 99.9 (under 50 a reading that misses could satisfy it; over 99.9 rests on"
+                        + " the far tail of the error model)");
+        return clause.withConfidenceDemand(fraction, text);
     }
 
     /** thresholdT, thresholdPercent or thresholdOd (exactly one), and the unit, defaulting to the one used. */

@@ -135,6 +135,8 @@ public final class ShortlistJson {
             clause.put("marginDecades", finiteOrNull(c.marginDecades()));
             clause.put("verdict", c.verdict().name().toLowerCase(Locale.ROOT));
             clause.put("explanation", c.explanation());
+            // the probability (0–1) that the true value meets the threshold; null when it cannot be said
+            clause.put("confidence", c.confidence().isPresent() ? c.confidence().getAsDouble() : null);
             clauses.add(clause);
         }
         json.put("clauses", clauses);

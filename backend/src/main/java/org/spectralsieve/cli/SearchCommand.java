@@ -171,7 +171,7 @@ final class SearchCommand implements Callable<Integer> {
             lines.add("stock: " + stock);
         }
         for (ClauseResult c : e.clauses()) {
-            lines.add(c.verdict().name().toLowerCase(Locale.ROOT) + ": " + c.explanation());
+            lines.add(c.verdict().name().toLowerCase(Locale.ROOT) + " · " + c.confidenceText() + ": " + c.explanation());
         }
         return lines;
     }

@@ -44,6 +44,11 @@ import org.spectralsieve.spectrum.Cutoffs;
  * window not wholly inside the measured range, or a walk stopped by an undetermined below-detection
  * point, is unverified with margin NaN.
  *
+ * <h2>Confidence</h2>
+ * Transmittance clauses also get a confidence ({@link ClauseConfidence}): the probability that the true
+ * value meets the threshold under a Gaussian error in absorbance; empty where it cannot be said. A clause
+ * asking "with N% confidence" meets only when the confidence reaches N % ({@link #demanded}).
+ *
  * <h2>Weighted and critical-wavelength clauses</h2>
  * See {@link FigureClauses}: the same verdict rules on an integrated figure.
  */
@@ -57,7 +62,7 @@ public final class ClauseEvaluator {
         Objects.requireNonNull(curve, "curve");
         CurveView view = new CurveView(curve);
         if (clause instanceof TransmittanceClause t) {
-            return t.aggregate() == Aggregate.MEAN ? mean(t, view) : everyPoint(t, view);
+            return demanded(t, t.aggregate() == Aggregate.MEAN ? mean(t, view) : everyPoint(t, view), view);
         }
         if (clause instanceof WeightedClause w) {
             return FigureClauses.weighted(w, curve);
@@ -103,8 +108,12 @@ public final class ClauseEvaluator {
         if (!covered) {
             text += "; the band reaches outside the measured range " + view.rangeText();
         }
+        // a band partly outside the range has unread points: how sure "all hold" is cannot be said
+        OptionalDouble confidence = covered
+                ? ClauseConfidence.everyPoint(clause.direction(), readings, clause.thresholdT())
+                : OptionalDouble.empty();
         return new ClauseResult(clause, worst.judged(), clause.thresholdT(), worstMargin, verdict, text,
-                worst.bounded());
+                worst.bounded(), confidence);
     }
 
     private static ClauseResult mean(TransmittanceClause clause, CurveView view) {
@@ -121,7 +130,41 @@ public final class ClauseEvaluator {
         double margin = Margins.of(clause.direction(), mean, clause.thresholdT());
         String text = explain("mean T over " + Wording.band(band), clause.direction(), bounded, mean,
                 clause.thresholdT(), verdict);
-        return new ClauseResult(clause, mean, clause.thresholdT(), margin, verdict, text, bounded);
+        return new ClauseResult(clause, mean, clause.thresholdT(), margin, verdict, text, bounded,
+                ClauseConfidence.mean(clause.direction(), readings, clause.thresholdT()));
+    }
+
+    /**
+     * A clause asking "with N% confidence" meets only when its confidence reaches N %. A met clause whose
+     * confidence is lower, or unknown, is UNVERIFIED with the reason: the reading does meet, but not as
+     * surely as asked, which is neither a proof nor a proven miss. Misses and unverified results stand: a
+     * value that misses has a confidence under 50 %, below every allowed demand.
+     */
+    static ClauseResult demanded(TransmittanceClause clause, ClauseResult result, CurveView view) {
+        if (clause.confidenceDemand().isEmpty() || result.verdict() != Verdict.MEETS) {
+            return result;
+        }
+        double demand = clause.confidenceDemand().getAsDouble();
+        String asked = Wording.confidence(demand) + " confidence asked";
+        String text;
+        Verdict verdict;
+        if (result.confidence().isEmpty()) {
+            verdict = Verdict.UNVERIFIED;
+            boolean onBound = view.readings(clause.band()).stream().anyMatch(Reading::bounded);
+            text = result.explanation() + "; " + asked + ", but " + (onBound
+                    ? "a reading is only a detection-limit bound, which has no stated uncertainty"
+                    : "the curve carries no measurement uncertainty here") + ", so the confidence is unknown";
+        } else if (result.confidence().getAsDouble() < demand) {
+            verdict = Verdict.UNVERIFIED;
+            text = result.explanation() + "; meets on the measured value, but only "
+                    + Wording.confidence(result.confidence().getAsDouble()) + " confident of it (" + asked + ")";
+        } else {
+            verdict = Verdict.MEETS;
+            text = result.explanation() + "; " + Wording.confidence(result.confidence().getAsDouble())
+                    + " confident (" + asked + ")";
+        }
+        return new ClauseResult(clause, result.value(), result.threshold(), result.marginDecades(), verdict, text,
+                result.valueIsBound(), result.confidence());
     }
 
     static String explain(String subject, Direction direction, boolean bounded, double t, double threshold,

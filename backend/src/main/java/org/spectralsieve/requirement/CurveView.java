@@ -7,7 +7,8 @@ import org.spectralsieve.spectrum.Curve;
 
 /**
  * Readings of a curve for judging clauses. Values come from {@link Curve#transmittanceAt} (absorbance
- * interpolation); the upper bound of an interpolated reading next to a below-detection point is the same
+ * interpolation), each with the curve's absorbance uncertainty there ({@link Curve#absorbanceUncertaintyAt},
+ * NaN where unknown) for {@link ClauseConfidence}; the upper bound of an interpolated reading next to a below-detection point is the same
  * absorbance interpolation applied to the neighbours' upper bounds, which bounds the interpolated true T
  * because the interpolation is increasing in each end value.
  */
@@ -51,7 +52,7 @@ final class CurveView {
     Reading atIndex(int i) {
         double t = curve.transmittance(i);
         boolean bounded = curve.belowDetection(i);
-        return new Reading(wavelengths[i], t, bounded, bounded ? upper(i) : t);
+        return new Reading(wavelengths[i], t, bounded, bounded ? upper(i) : t, curve.absorbanceUncertainty(i));
     }
 
     /** Reading at a covered wavelength. */
@@ -64,11 +65,12 @@ final class CurveView {
         int lo = hi - 1;
         double value = curve.transmittanceAt(nm).orElseThrow();
         boolean bounded = curve.belowDetectionAt(nm);
+        double sigma = curve.absorbanceUncertaintyAt(nm).orElse(Double.NaN);
         if (!bounded) {
-            return new Reading(nm, value, false, value);
+            return new Reading(nm, value, false, value, sigma);
         }
         double f = (nm - wavelengths[lo]) / (wavelengths[hi] - wavelengths[lo]);
-        return new Reading(nm, value, true, interpolate(upperOrValue(lo), upperOrValue(hi), f));
+        return new Reading(nm, value, true, interpolate(upperOrValue(lo), upperOrValue(hi), f), sigma);
     }
 
     /**

@@ -50,6 +50,14 @@ public record Requirement(List<Clause> clauses, ThicknessSpec thickness, Optiona
     }
 
     /**
+     * Whether a clause asks "with N% confidence": such a requirement is judged exactly on every sample, not
+     * picked by the store's margins, since a confidence demand can turn a wide margin into an unverified row.
+     */
+    public boolean asksConfidence() {
+        return clauses.stream().anyMatch(c -> c instanceof TransmittanceClause t && t.confidenceDemand().isPresent());
+    }
+
+    /**
      * Only transmittance and cutoff clauses on the candidate alone: what the in-memory store judges whole
      * and the closed-form thickness solver handles.
      */

@@ -16,6 +16,7 @@ import org.spectralsieve.weighting.SpectrumLookup;
  *
  * <pre>
  * requirement = item { ( "," [ "and" ] | "and" ) item }
+ * (a spectral item may end with "with" number "%" "confidence", see {@link ConfidenceDemandParser})
  * item        = transmittance | rating | cutoff | preset | critical        (SpectralClauseParser, FigureClauseParser)
  *             | thickness | class | geometry | layer
  * thickness   = "thickness" [ "at" ] ( "as" "measured" | amount | ( "between" mm [ "mm" ] "and" | "from" mm [ "mm" ] ( "to" | "-" ) ) mm "mm" )
@@ -139,6 +140,15 @@ public final class RequirementParser {
 
     private void item() {
         Token first = in.peek();
+        int before = clauses.size();
+        spectralOrFilter(first);
+        if (clauses.size() > before) {
+            // "… with 95% confidence" closes a spectral clause
+            clauses.set(before, ConfidenceDemandParser.attach(in, clauses.get(before), first));
+        }
+    }
+
+    private void spectralOrFilter(Token first) {
         String word = first.kind() == Kind.WORD ? first.lower() : "";
         switch (word) {
             case "passes", "pass", "blocks", "block", "transmits", "transmit", "transmittance", "t" ->

@@ -54,7 +54,8 @@ final class RequirementRenderer {
 
     private static String transmittance(TransmittanceClause t) {
         boolean mean = t.aggregate() == Aggregate.MEAN;
-        return (mean ? "mean " : "") + level(t.direction(), t.thresholdT(), t.unit(), !mean) + " " + band(t.band());
+        return (mean ? "mean " : "") + level(t.direction(), t.thresholdT(), t.unit(), !mean) + " " + band(t.band())
+                + ConfidenceDemandParser.render(t);
     }
 
     /**

@@ -2,6 +2,7 @@ package org.spectralsieve.requirement;
 
 import java.util.List;
 import java.util.Objects;
+import java.util.OptionalDouble;
 
 /**
  * The judgement of one sample against a whole requirement.
@@ -64,6 +65,14 @@ public record SampleEvaluation(long sampleId, double thicknessMm, ThicknessInter
     public SampleEvaluation withThicknessAdvice(ThicknessInterval feasible, StockAdvice advice) {
         return new SampleEvaluation(sampleId, thicknessMm, feasible, verdict, worstMarginDecades, bindingClauseIndex,
                 clauses, advice);
+    }
+
+    /**
+     * How sure the row's standing is, for ranking rows of equal margin: the confidence of the binding clause
+     * (the one whose margin is the row's), empty when there is none or it is unknown ({@link ClauseResult#confidence}).
+     */
+    public OptionalDouble confidence() {
+        return bindingClauseIndex < 0 ? OptionalDouble.empty() : clauses.get(bindingClauseIndex).confidence();
     }
 
     /**

@@ -159,9 +159,9 @@ final class SpectralClauseParser {
                 new Band(UV_RATING_FROM_NM, nm), read.thresholdT(), read.unit(), text));
     }
 
-    /** A separator or the end: a UV rating without its own level. */
+    /** A separator, the end or a confidence demand ("with 95% confidence"): a UV rating without its own level. */
     private static boolean endsClause(Token t) {
-        return t.kind() == Kind.END || t.kind() == Kind.COMMA || t.isWord("and");
+        return t.kind() == Kind.END || t.kind() == Kind.COMMA || t.isWord("and") || t.isWord("with");
     }
 
     /** "… of led 365 [weighted by erythema]": the emitter's light, weighted by the response if one is named. */

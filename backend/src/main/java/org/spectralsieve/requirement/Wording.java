@@ -44,6 +44,21 @@ final class Wording {
         return !(t < SMALLEST_STATED_T);
     }
 
+    /**
+     * A confidence as a percentage, rounded DOWN to 0.1 % so it never reads surer than it is (94.96 % is
+     * "94.9 %", which does not look like a met 95 % demand); "over 99.9 %" and "under 0.1 %" at the ends.
+     */
+    static String confidence(double p) {
+        if (p > 0.999) {
+            return "over 99.9 %";
+        }
+        if (p < 0.001) {
+            return "under 0.1 %";
+        }
+        double tenths = Math.floor(p * 1000 + 1e-9) / 10;
+        return BigDecimal.valueOf(tenths).setScale(1, RoundingMode.HALF_EVEN).stripTrailingZeros().toPlainString() + " %";
+    }
+
     static String nm(double nm) {
         return BigDecimal.valueOf(nm).setScale(1, RoundingMode.HALF_EVEN).stripTrailingZeros().toPlainString() + " nm";
     }

@@ -17,7 +17,10 @@
  * <ul>
  *   <li>{@link org.spectralsieve.requirement.ClauseEvaluator} judges one clause on one curve: worst point
  *       of a band, trapezoid mean, cutoff in a window; nothing extrapolated; bounds used as bounds. An
- *       unverified clause carries the margin computed from its bound, or NaN when nothing could be read.</li>
+ *       unverified clause carries the margin computed from its bound, or NaN when nothing could be read.
+ *       A transmittance clause also gets a confidence ({@link org.spectralsieve.requirement.ClauseConfidence}:
+ *       the probability that the true value meets the threshold, Gaussian in absorbance; empty when it cannot
+ *       be said), which "… with 95% confidence" can demand (docs/confidence.md).</li>
  *   <li>{@link org.spectralsieve.requirement.ThicknessSolver} treats thickness as a design variable for a
  *       bulk sample: the interval of thicknesses where every clause is proven to hold, and the thickness
  *       maximising the worst margin.</li>

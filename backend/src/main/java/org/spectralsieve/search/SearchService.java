@@ -115,7 +115,8 @@ public class SearchService {
     public Shortlist search(Requirement requirement, int limit) {
         long started = System.nanoTime();
         Snapshot s = current();
-        if (!requirement.plain()) {
+        // a confidence demand can make a wide margin unverified: the store's margins cannot pick those rows
+        if (!requirement.plain() || requirement.asksConfidence()) {
             return searchExactly(s, requirement, limit, started);
         }
         StoreResult picked = StoreSearch.search(s.store(), requirement, limit);

@@ -281,8 +281,15 @@ public final class StoreSearch {
             materials.sort(Comparator.<Integer>comparingInt(m -> -evaluations.get(bestCurveOfMaterial.get(m)).key())
                     .thenComparing(m -> store.materialAt(m).name())
                     .thenComparingLong(m -> store.sampleId(bestCurveOfMaterial.get(m))));
+            // materials tied with the last row's key come too: the exact ranking orders equal margins by
+            // confidence (RankingOrder), which the store does not see, so it must not choose among them
+            int end = Math.min(limit, materials.size());
+            while (end > 0 && end < materials.size() && evaluations.get(bestCurveOfMaterial.get(materials.get(end))).key()
+                    == evaluations.get(bestCurveOfMaterial.get(materials.get(end - 1))).key()) {
+                end++;
+            }
             List<StoreHit> hits = new ArrayList<>();
-            for (int m : materials.subList(0, Math.min(limit, materials.size()))) {
+            for (int m : materials.subList(0, end)) {
                 int curve = bestCurveOfMaterial.get(m);
                 Evaluation e = evaluations.get(curve);
                 hits.add(new StoreHit(curve, store.sampleId(curve), store.materialAt(m), e.verdict(), e.worstMargin(),

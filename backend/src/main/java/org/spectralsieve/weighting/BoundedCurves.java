@@ -28,7 +28,7 @@ public final class BoundedCurves {
                 t[i] = Math.max(t[i], curve.detectionLimit(i));
             }
         }
-        return Curve.of(curve.wavelengthsNm(), t, curve.belowDetectionFlags(), curve.detectionLimits());
+        return keepingUncertainty(curve, Curve.of(curve.wavelengthsNm(), t, curve.belowDetectionFlags(), curve.detectionLimits()));
     }
 
     /** The curve with each below-detection point at 0: the least the true curve can be. */
@@ -46,6 +46,11 @@ public final class BoundedCurves {
                 t[i] = 0;
             }
         }
-        return Curve.of(curve.wavelengthsNm(), t, curve.belowDetectionFlags(), curve.detectionLimits());
+        return keepingUncertainty(curve, Curve.of(curve.wavelengthsNm(), t, curve.belowDetectionFlags(), curve.detectionLimits()));
+    }
+
+    /** The bounded copy keeps the measurement's uncertainty: only below-detection values moved, the σ stays. */
+    private static Curve keepingUncertainty(Curve from, Curve bounded) {
+        return from.hasUncertainty() ? bounded.withAbsorbanceUncertainty(from.absorbanceUncertainties()) : bounded;
     }
 }

@@ -73,8 +73,9 @@ class SieveCliTest {
         assertThat(first[3]).isEqualTo("regular");
         assertThat(first[5]).isEqualTo("meets");
         assertThat(first[6]).matches("\\+\\d\\.\\d{3}");
-        // the clause's explanation sits indented under its row
-        assertThat(lines.get(3)).startsWith("      meets: ").contains("254 nm");
+        // the clause's explanation sits indented under its row, its confidence beside the verdict (the demo
+        // library's curves carry no measurement uncertainty, so it is unknown, never invented)
+        assertThat(lines.get(3)).startsWith("      meets · confidence unknown: ").contains("254 nm");
     }
 
     @Test

@@ -95,6 +95,8 @@ class RequirementSearchBrowserTest {
         WebElement explained = driver.findElement(By.cssSelector("#results-table tr.result-clauses"));
         wait.until(d -> explained.isDisplayed());
         assertThat(explained.getText()).contains("T at 254 nm is").contains("%");
+        // beside each clause verdict its confidence: the demo curves carry no measurement uncertainty
+        assertThat(explained.findElement(By.cssSelector(".verdict-confidence")).getText()).isEqualTo("· confidence unknown");
         screenshot("search-1-fused-silica");
 
         // Opening a result shows the existing material detail, the rescale box set to the thickness searched.
