@@ -1,6 +1,7 @@
 package org.spectralsieve.ingest;
 
 import java.util.ArrayList;
+import java.util.Arrays;
 import java.util.List;
 import java.util.Locale;
 import java.util.regex.Pattern;
@@ -32,6 +33,8 @@ final class CurveShapeCheck {
             "(?im)^\\s*-?\\s*type:\\s*(tabulated\\s+(nk|n|k)|formula\\s*\\d*)\\s*$");
     private static final Pattern PERCENT_MARK = Pattern.compile("(?i)%|percent|pct");
     private static final Pattern MICROMETRE_MARK = Pattern.compile("(?i)µm|μm|\\bum\\b|micro|_um\\b");
+    /** A column name that is the wavelength axis (as the delimited reader names it, shortened). */
+    private static final Pattern AXIS_NAME = Pattern.compile("wavelength|w\\.length|lambda|nm\\b");
     private static final Pattern WAVENUMBER_MARK = Pattern.compile("(?i)cm-1|cm⁻¹|1/cm|wavenumber");
 
     private static final String SPECTRUM_IMPORT = "if it is an emitter or illuminant spectrum or a detector or"
@@ -58,6 +61,7 @@ final class CurveShapeCheck {
         }
         List<double[]> rows = new ArrayList<>();
         StringBuilder header = new StringBuilder();
+        String columnNames = "";
         for (String raw : (Iterable<String>) text.lines()::iterator) {
             String line = raw.strip();
             if (line.isEmpty()) {
@@ -67,6 +71,7 @@ final class CurveShapeCheck {
             if (row == null) {
                 if (rows.isEmpty()) {
                     header.append(line).append('\n'); // comments and column names above the data
+                    columnNames = line.startsWith("#") ? columnNames : line;
                 }
                 continue;
             }
@@ -78,10 +83,29 @@ final class CurveShapeCheck {
         if (rows.size() < 3) {
             return; // too little to judge; the readers report it
         }
+        rows = fromAxisColumn(rows, columnNames);
         String head = header.toString();
         checkTristimulus(fileName, rows);
-        checkAxis(fileName, rows, head);
+        checkAxis(fileName, rows, head, columnNames);
         checkMagnitude(fileName, rows, head, options);
+    }
+
+    /**
+     * The rows from the wavelength column on: a capture export may put a pixel index before it
+     * ({@code Pixel,Wavelength,Intensity}), which is neither the axis nor a value.
+     */
+    private static List<double[]> fromAxisColumn(List<double[]> rows, String columnNames) {
+        String lower = columnNames.toLowerCase(Locale.ROOT);
+        String[] names = lower.split(lower.matches(".*[,;\\t].*") ? "[,;\\t]" : "\\s+");
+        int axis = 0;
+        while (axis < names.length && !AXIS_NAME.matcher(names[axis].strip().replaceAll("^\"|\"$", "")).lookingAt()) {
+            axis++;
+        }
+        if (axis == 0 || axis == names.length) {
+            return rows;
+        }
+        int from = axis;
+        return rows.stream().map(r -> r.length > from + 1 ? Arrays.copyOfRange(r, from, r.length) : r).toList();
     }
 
     /** Three value columns peaking at clearly different wavelengths and falling near zero at both ends. */
@@ -116,12 +140,16 @@ final class CurveShapeCheck {
         }
     }
 
-    /** The first column, read in the unit its header names, must reach into 100–25,000 nm. */
-    private static void checkAxis(String fileName, List<double[]> rows, String head) throws ImportException {
+    /**
+     * The first column, read in the unit its column names give, must reach into 100–25,000 nm. Only the
+     * column names count for micrometres: a comment such as {@code # film 50 um} gives a thickness.
+     */
+    private static void checkAxis(String fileName, List<double[]> rows, String head, String columnNames)
+            throws ImportException {
         if (WAVENUMBER_MARK.matcher(head).find()) {
             return;
         }
-        double scale = MICROMETRE_MARK.matcher(head).find() ? 1000 : 1;
+        double scale = MICROMETRE_MARK.matcher(columnNames).find() ? 1000 : 1;
         double min = Double.POSITIVE_INFINITY;
         double max = Double.NEGATIVE_INFINITY;
         for (double[] r : rows) {

@@ -94,6 +94,28 @@ class CurveShapeCheckTest {
                 .isInstanceOf(ImportException.class).hasMessageContaining("refractive-index");
     }
 
+    /** A film's thickness in a comment ("50 um") says nothing about the wavelength column's unit. */
+    @Test
+    void aThicknessInMicrometresInACommentDoesNotMakeTheAxisMicrometres() throws ImportException {
+        String text = "# illustrative film 50 um\nwavelength,transmittance_percent\n300,10\n350,50\n400,90\n";
+
+        FilePreview p = read("illustrative-film.txt", text);
+
+        assertThat(p.curve().minWavelengthNm()).isEqualTo(300.0);
+        assertThat(p.curve().maxWavelengthNm()).isEqualTo(400.0);
+    }
+
+    /** A capture export with a pixel index before its wavelengths, whose calibration turns back at line 5. */
+    @Test
+    void aPixelColumnBeforeTheWavelengthsIsNeitherAxisNorValueSoATurningAxisIsReportedAsSuch() {
+        String csv = "Pixel,Wavelength,Intensity\n0,354.5,0.0196\n1,354.0,0.0188\n2,353.5,0.0179\n3,360.0,0.0182\n"
+                + "4,365.0,0.0177\n";
+
+        assertThatThrownBy(() -> read("illustrative-capture.csv", csv)).isInstanceOf(ImportException.class)
+                .hasMessageContaining("goes up again from 353.5 nm to 360.0 nm at line 5")
+                .hasMessageNotContaining("far above any transmittance");
+    }
+
     private static double hump(double nm, double peak, double width) {
         double z = (nm - peak) / width;
         return Math.round(Math.exp(-z * z / 2) * 1e6) / 1e6;
