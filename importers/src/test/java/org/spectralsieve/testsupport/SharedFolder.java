@@ -1,10 +1,14 @@
 package org.spectralsieve.testsupport;
 
+import java.io.IOException;
+import java.io.UncheckedIOException;
 import java.lang.StackWalker.StackFrame;
 import java.lang.reflect.AnnotatedElement;
 import java.nio.file.Files;
 import java.nio.file.Path;
+import java.util.List;
 import java.util.Optional;
+import java.util.stream.Stream;
 import org.junit.jupiter.api.Assumptions;
 
 /**
@@ -65,6 +69,35 @@ public final class SharedFolder {
             }
         }
         return referenceFile(folder + "/" + name);
+    }
+
+    /**
+     * The one file of {@code reference-data/} with this name (e.g. {@code "dupinc1.jdx"}), in whichever of its
+     * folders it lies, so that tests name the data rather than the folder (some folders carry the name of
+     * who published the data); or the calling test is skipped. Two files of the same name are an error.
+     */
+    public static Path referenceFileNamed(String fileName) {
+        requireMarkedCaller(fileName);
+        List<Path> found = referenceFiles().stream().filter(p -> p.getFileName().toString().equals(fileName)).toList();
+        if (found.size() > 1) {
+            throw new IllegalStateException("more than one reference file is named " + fileName + ": " + found);
+        }
+        Assumptions.assumeTrue(found.size() == 1, () -> "shared file not present: no " + fileName + " under "
+                + root().resolve("reference-data") + "; skipping this check");
+        return found.get(0);
+    }
+
+    /** Every file under {@code reference-data/} (sorted), or the calling test is skipped when it is absent. */
+    public static List<Path> referenceFiles() {
+        requireMarkedCaller("reference-data/");
+        Path data = root().resolve("reference-data");
+        Assumptions.assumeTrue(Files.isDirectory(data), () -> "shared folder not present: no " + data
+                + " (../shared beside the repository, or -D" + PROPERTY + "=DIR); skipping this check");
+        try (Stream<Path> files = Files.walk(data)) {
+            return files.filter(Files::isRegularFile).sorted().toList();
+        } catch (IOException e) {
+            throw new UncheckedIOException("cannot list " + data, e);
+        }
     }
 
     /** A file of the shared folder (e.g. {@code "reference-data/cie-1nm/a.csv"}), or the calling test is skipped. */

@@ -40,6 +40,40 @@ class SharedFolderTest {
         return SharedFolder.referenceFile(relative);
     }
 
+    @ReadsSharedFolder
+    private static Path lookUpByName(String fileName) {
+        return SharedFolder.referenceFileNamed(fileName);
+    }
+
+    @Test
+    void aReferenceFileIsFoundByItsNameInWhicheverFolderItLies(@TempDir Path shared) throws IOException {
+        Path file = Files.createDirectories(shared.resolve("reference-data/some-collection")).resolve("series.jdx");
+        Files.writeString(file, "##TITLE=illustrative\n");
+        Files.writeString(Files.createDirectories(shared.resolve("reference-data/other")).resolve("b.csv"), "300,1\n");
+        System.setProperty(SharedFolder.PROPERTY, shared.toString());
+
+        assertThat(lookUpByName("series.jdx")).isEqualTo(file);
+    }
+
+    @Test
+    void aNameNoReferenceFileHasSkipsTheTestNamingIt(@TempDir Path shared) throws IOException {
+        Files.createDirectories(shared.resolve("reference-data/other"));
+        System.setProperty(SharedFolder.PROPERTY, shared.toString());
+
+        assertThatThrownBy(() -> lookUpByName("series.jdx")).isInstanceOf(TestAbortedException.class)
+                .hasMessageContaining("no series.jdx under " + shared.resolve("reference-data"));
+    }
+
+    @Test
+    void twoReferenceFilesOfOneNameAreAnErrorNotAGuess(@TempDir Path shared) throws IOException {
+        Files.writeString(Files.createDirectories(shared.resolve("reference-data/one")).resolve("a.csv"), "300,1\n");
+        Files.writeString(Files.createDirectories(shared.resolve("reference-data/two")).resolve("a.csv"), "300,2\n");
+        System.setProperty(SharedFolder.PROPERTY, shared.toString());
+
+        assertThatThrownBy(() -> lookUpByName("a.csv")).isInstanceOf(IllegalStateException.class)
+                .hasMessageContaining("more than one reference file is named a.csv");
+    }
+
     @Test
     void aReferenceFileInTheConfiguredFolderIsFound(@TempDir Path shared) throws IOException {
         Path file = Files.createDirectories(shared.resolve("reference-data/cie-1nm")).resolve("a.csv");
