@@ -83,29 +83,33 @@ final class CurveShapeCheck {
         if (rows.size() < 3) {
             return; // too little to judge; the readers report it
         }
-        rows = fromAxisColumn(rows, columnNames);
+        String lower = columnNames.toLowerCase(Locale.ROOT);
+        String[] names = lower.split(lower.matches(".*[,;\\t].*") ? "[,;\\t]" : "\\s+");
+        int axis = axisColumn(names);
+        if (axis > 0) {
+            // a capture export may put a pixel index before the wavelengths (Pixel,Wavelength,Intensity):
+            // neither the axis nor a value
+            rows = rows.stream().map(r -> r.length > axis + 1 ? Arrays.copyOfRange(r, axis, r.length) : r).toList();
+            names = Arrays.copyOfRange(names, axis, names.length);
+        }
         String head = header.toString();
         checkTristimulus(fileName, rows);
         checkAxis(fileName, rows, head, columnNames);
-        checkMagnitude(fileName, rows, head, options);
+        checkMagnitude(fileName, rows, head, names, options);
     }
 
-    /**
-     * The rows from the wavelength column on: a capture export may put a pixel index before it
-     * ({@code Pixel,Wavelength,Intensity}), which is neither the axis nor a value.
-     */
-    private static List<double[]> fromAxisColumn(List<double[]> rows, String columnNames) {
-        String lower = columnNames.toLowerCase(Locale.ROOT);
-        String[] names = lower.split(lower.matches(".*[,;\\t].*") ? "[,;\\t]" : "\\s+");
-        int axis = 0;
-        while (axis < names.length && !AXIS_NAME.matcher(names[axis].strip().replaceAll("^\"|\"$", "")).lookingAt()) {
-            axis++;
+    /** The first column named as a wavelength, or 0 when none is. */
+    private static int axisColumn(String[] names) {
+        for (int c = 0; c < names.length; c++) {
+            if (isAxisName(names[c])) {
+                return c;
+            }
         }
-        if (axis == 0 || axis == names.length) {
-            return rows;
-        }
-        int from = axis;
-        return rows.stream().map(r -> r.length > from + 1 ? Arrays.copyOfRange(r, from, r.length) : r).toList();
+        return 0;
+    }
+
+    private static boolean isAxisName(String name) {
+        return AXIS_NAME.matcher(name.strip().replaceAll("^\"|\"$", "")).lookingAt();
     }
 
     /** Three value columns peaking at clearly different wavelengths and falling near zero at both ends. */
@@ -169,8 +173,8 @@ final class CurveShapeCheck {
     }
 
     /** Values far above 100 with no percent unit are not transmittance; an emission spectrum is the usual case. */
-    private static void checkMagnitude(String fileName, List<double[]> rows, String head, ImportOptions options)
-            throws ImportException {
+    private static void checkMagnitude(String fileName, List<double[]> rows, String head, String[] names,
+                                       ImportOptions options) throws ImportException {
         if (options.yKind().isPresent() && options.yKind().get() == YKind.ABSORBANCE) {
             return;
         }
@@ -180,7 +184,9 @@ final class CurveShapeCheck {
         double max = Double.NEGATIVE_INFINITY;
         for (double[] r : rows) {
             for (int c = 1; c < r.length; c++) {
-                max = Math.max(max, r[c]);
+                // replicate pairs (w.length.1 T.1 w.length.2 T.2) repeat the axis: those are not values
+                boolean axis = names.length == r.length && isAxisName(names[c]);
+                max = axis ? max : Math.max(max, r[c]);
             }
         }
         if (max > PERCENT_CEILING) {

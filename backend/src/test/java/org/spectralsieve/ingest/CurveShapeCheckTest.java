@@ -116,6 +116,18 @@ class CurveShapeCheckTest {
                 .hasMessageNotContaining("far above any transmittance");
     }
 
+    /** Two replicate scans side by side repeat the wavelength column: it is not a value reaching 500. */
+    @Test
+    void replicatePairsRepeatingTheWavelengthColumnAreNotReadAsValuesFarAbove100() throws ImportException {
+        String text = "# illustrative film, two scans\nw.length.1 transmittance.1  w.length.2 transmittance.2\n"
+                + "300\t10\t300\t11\n400\t50\t400\t52\n500\t90\t500\t91\n";
+
+        FilePreview p = read("illustrative-replicates.txt", text);
+
+        assertThat(p.curve().size()).isEqualTo(3);
+        assertThat(p.curve().transmittance(1)).isEqualTo(0.5); // 50 %T, the first pair by default
+    }
+
     private static double hump(double nm, double peak, double width) {
         double z = (nm - peak) / width;
         return Math.round(Math.exp(-z * z / 2) * 1e6) / 1e6;
