@@ -4,8 +4,10 @@ import java.io.IOException;
 import java.io.UncheckedIOException;
 import java.lang.StackWalker.StackFrame;
 import java.lang.reflect.AnnotatedElement;
+import java.nio.file.FileSystems;
 import java.nio.file.Files;
 import java.nio.file.Path;
+import java.nio.file.PathMatcher;
 import java.util.List;
 import java.util.Optional;
 import java.util.stream.Stream;
@@ -85,6 +87,20 @@ public final class SharedFolder {
         Assumptions.assumeTrue(found.size() == 1, () -> "shared file not present: no " + fileName + " under "
                 + root().resolve("reference-data") + "; skipping this check");
         return found.get(0);
+    }
+
+    /**
+     * The files of {@code reference-data/} whose name matches a glob (e.g. {@code "*.yml"}), in any of its
+     * folders, sorted; or the calling test is skipped when there is none. A glob lets a test name a kind of
+     * file where the file names themselves are people's names (e.g. the authors of a table).
+     */
+    public static List<Path> referenceFilesNamed(String glob) {
+        requireMarkedCaller(glob);
+        PathMatcher matcher = FileSystems.getDefault().getPathMatcher("glob:" + glob);
+        List<Path> found = referenceFiles().stream().filter(p -> matcher.matches(p.getFileName())).toList();
+        Assumptions.assumeTrue(!found.isEmpty(), () -> "shared file not present: none named " + glob + " under "
+                + root().resolve("reference-data") + "; skipping this check");
+        return found;
     }
 
     /** Every file under {@code reference-data/} (sorted), or the calling test is skipped when it is absent. */

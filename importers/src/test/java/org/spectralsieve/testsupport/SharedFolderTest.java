@@ -64,6 +64,25 @@ class SharedFolderTest {
                 .hasMessageContaining("no series.jdx under " + shared.resolve("reference-data"));
     }
 
+    @ReadsSharedFolder
+    private static java.util.List<Path> lookUpByGlob(String glob) {
+        return SharedFolder.referenceFilesNamed(glob);
+    }
+
+    @Test
+    void aGlobFindsEveryReferenceFileOfItsKindInAnyFolder(@TempDir Path shared) throws IOException {
+        Path one = Files.createDirectories(shared.resolve("reference-data/tables/a")).resolve("first.yml");
+        Path two = Files.createDirectories(shared.resolve("reference-data/tables/b")).resolve("second.yml");
+        Files.writeString(one, "data: 1\n");
+        Files.writeString(two, "data: 2\n");
+        Files.writeString(shared.resolve("reference-data/tables/notes.md"), "# notes\n");
+        System.setProperty(SharedFolder.PROPERTY, shared.toString());
+
+        assertThat(lookUpByGlob("*.yml")).containsExactly(one, two);
+        assertThatThrownBy(() -> lookUpByGlob("*.jdx")).isInstanceOf(TestAbortedException.class)
+                .hasMessageContaining("none named *.jdx");
+    }
+
     @Test
     void twoReferenceFilesOfOneNameAreAnErrorNotAGuess(@TempDir Path shared) throws IOException {
         Files.writeString(Files.createDirectories(shared.resolve("reference-data/one")).resolve("a.csv"), "300,1\n");
