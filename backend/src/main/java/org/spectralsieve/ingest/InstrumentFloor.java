@@ -74,7 +74,9 @@ public record InstrumentFloor(double limit, int points, double fromNm, double to
         return String.format(Locale.ROOT, "%.4g", fraction * 100);
     }
 
+    /** Six significant digits: a wavenumber file's wavelengths (10⁷/ν̃) would otherwise print 16. */
     private static String number(double nm) {
-        return nm == Math.rint(nm) ? String.valueOf((long) nm) : String.valueOf(nm);
+        return nm == Math.rint(nm) ? String.valueOf((long) nm)
+                : String.format(Locale.ROOT, "%.6g", nm).replaceAll("(\\.\\d*?)0+$", "$1").replaceAll("\\.$", "");
     }
 }

@@ -261,7 +261,7 @@ class ReferenceFileOutcomesTest {
                         .points(440, 250.0, 469.5).absorbance(250, "1.1663").absorbance(469.5, "0.1626")
                         .absorbance(445.0, "3.3747"),
                 // §1: absorbance clipped at 3.000 is the instrument's floor T = 0.001
-                warns("fixinc2.jdx", "instrument floor: 10 points at 0.1000 %T")
+                warns("fixinc2.jdx", "instrument floor: 10 points at 0.1000 %T (12987–13927.6 nm)")
                         .points(3601, 2500, 25000).detectionLimit("0.001"),
                 warns("jtpolys.jdx", "369 readings above 100 %T (highest 102.3 %T)")
                         .points(1844, cm(4002.28), cm(447.48)).t(cm(447.48), "0.981633").t(cm(4002.28), "0.986610"),
