@@ -9,7 +9,7 @@ import java.util.Optional;
  * measure. Such points only say "T is at most this", so the floor is a detection limit even when the
  * file states none.
  *
- * <p>The rule: the curve's minimum is positive and at most {@value #MAX_FLOOR} (1 %T, OD 2), and at least
+ * <p>The rule: the curve's smallest positive reading is at most {@value #MAX_FLOOR} (1 %T, OD 2), and at least
  * {@value #MIN_POINTS} points sit at it (within a relative {@value #SAME_VALUE} of it, because exports
  * write the floor with varying last digits, e.g. 0.0100000219… and 0.0100000109… %T). Common practice,
  * no source: a noisy measurement of a real blocker does not repeat its lowest value five times to six
@@ -33,12 +33,14 @@ public record InstrumentFloor(double limit, int points, double fromNm, double to
 
     /** The floor of a curve in transmittance fractions, if it has one (wavelengths ascending). */
     public static Optional<InstrumentFloor> find(double[] wavelengthsNm, double[] transmittance) {
+        // the smallest positive reading: zero or negative noise beside a clamp must not hide the clamp (it is
+        // bounded by OutOfRangeReadings, at the floor once the floor is the limit)
         double min = Double.POSITIVE_INFINITY;
         for (double t : transmittance) {
-            min = Math.min(min, t);
+            min = t > 0 ? Math.min(min, t) : min;
         }
-        if (!(min > 0 && min <= MAX_FLOOR)) {
-            return Optional.empty(); // zero or negative points are below any limit already; none or clear: no floor
+        if (!(min <= MAX_FLOOR)) {
+            return Optional.empty(); // no positive reading at all, or a clear minimum: no floor
         }
         double top = min * (1 + SAME_VALUE);
         int count = 0;
@@ -46,7 +48,7 @@ public record InstrumentFloor(double limit, int points, double fromNm, double to
         double from = Double.NaN;
         double to = Double.NaN;
         for (int i = 0; i < transmittance.length; i++) {
-            if (transmittance[i] <= top) {
+            if (transmittance[i] > 0 && transmittance[i] <= top) {
                 count++;
                 limit = Math.max(limit, transmittance[i]);
                 from = Double.isNaN(from) ? wavelengthsNm[i] : Math.min(from, wavelengthsNm[i]);
@@ -72,7 +74,9 @@ public record InstrumentFloor(double limit, int points, double fromNm, double to
         return String.format(Locale.ROOT, "%.4g", fraction * 100);
     }
 
+    /** Six significant digits: a wavenumber file's wavelengths (10⁷/ν̃) would otherwise print 16. */
     private static String number(double nm) {
-        return nm == Math.rint(nm) ? String.valueOf((long) nm) : String.valueOf(nm);
+        return nm == Math.rint(nm) ? String.valueOf((long) nm)
+                : String.format(Locale.ROOT, "%.6g", nm).replaceAll("(\\.\\d*?)0+$", "$1").replaceAll("\\.$", "");
     }
 }

@@ -94,6 +94,40 @@ class CurveShapeCheckTest {
                 .isInstanceOf(ImportException.class).hasMessageContaining("refractive-index");
     }
 
+    /** A film's thickness in a comment ("50 um") says nothing about the wavelength column's unit. */
+    @Test
+    void aThicknessInMicrometresInACommentDoesNotMakeTheAxisMicrometres() throws ImportException {
+        String text = "# illustrative film 50 um\nwavelength,transmittance_percent\n300,10\n350,50\n400,90\n";
+
+        FilePreview p = read("illustrative-film.txt", text);
+
+        assertThat(p.curve().minWavelengthNm()).isEqualTo(300.0);
+        assertThat(p.curve().maxWavelengthNm()).isEqualTo(400.0);
+    }
+
+    /** A capture export with a pixel index before its wavelengths, whose calibration turns back at line 5. */
+    @Test
+    void aPixelColumnBeforeTheWavelengthsIsNeitherAxisNorValueSoATurningAxisIsReportedAsSuch() {
+        String csv = "Pixel,Wavelength,Intensity\n0,354.5,0.0196\n1,354.0,0.0188\n2,353.5,0.0179\n3,360.0,0.0182\n"
+                + "4,365.0,0.0177\n";
+
+        assertThatThrownBy(() -> read("illustrative-capture.csv", csv)).isInstanceOf(ImportException.class)
+                .hasMessageContaining("goes up again from 353.5 nm to 360.0 nm at line 5")
+                .hasMessageNotContaining("far above any transmittance");
+    }
+
+    /** Two replicate scans side by side repeat the wavelength column: it is not a value reaching 500. */
+    @Test
+    void replicatePairsRepeatingTheWavelengthColumnAreNotReadAsValuesFarAbove100() throws ImportException {
+        String text = "# illustrative film, two scans\nw.length.1 transmittance.1  w.length.2 transmittance.2\n"
+                + "300\t10\t300\t11\n400\t50\t400\t52\n500\t90\t500\t91\n";
+
+        FilePreview p = read("illustrative-replicates.txt", text);
+
+        assertThat(p.curve().size()).isEqualTo(3);
+        assertThat(p.curve().transmittance(1)).isEqualTo(0.5); // 50 %T, the first pair by default
+    }
+
     private static double hump(double nm, double peak, double width) {
         double z = (nm - peak) / width;
         return Math.round(Math.exp(-z * z / 2) * 1e6) / 1e6;

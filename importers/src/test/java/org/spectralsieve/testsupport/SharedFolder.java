@@ -1,10 +1,16 @@
 package org.spectralsieve.testsupport;
 
+import java.io.IOException;
+import java.io.UncheckedIOException;
 import java.lang.StackWalker.StackFrame;
 import java.lang.reflect.AnnotatedElement;
+import java.nio.file.FileSystems;
 import java.nio.file.Files;
 import java.nio.file.Path;
+import java.nio.file.PathMatcher;
+import java.util.List;
 import java.util.Optional;
+import java.util.stream.Stream;
 import org.junit.jupiter.api.Assumptions;
 
 /**
@@ -68,27 +74,46 @@ public final class SharedFolder {
     }
 
     /**
-     * The one file of {@code reference-data/} with this name, in whichever of its folders it lies, so that a
-     * test names the data and not a folder named after a person; or the calling test is skipped. Two files of
-     * that name are an error (the test would not know which it reads).
+     * The one file of {@code reference-data/} with this name (e.g. {@code "dupinc1.jdx"}), in whichever of its
+     * folders it lies, so that tests name the data rather than the folder (some folders carry the name of
+     * who published the data); or the calling test is skipped. Two files of the same name are an error.
      */
     public static Path referenceFileNamed(String fileName) {
         requireMarkedCaller(fileName);
-        Path data = root().resolve("reference-data");
-        java.util.List<Path> found = java.util.List.of();
-        if (Files.isDirectory(data)) {
-            try (java.util.stream.Stream<Path> files = Files.walk(data, 3)) {
-                found = files.filter(Files::isRegularFile).filter(f -> f.getFileName().toString().equals(fileName))
-                        .sorted().toList();
-            } catch (java.io.IOException e) {
-                throw new java.io.UncheckedIOException("cannot list " + data, e);
-            }
-        }
+        List<Path> found = referenceFiles().stream().filter(p -> p.getFileName().toString().equals(fileName)).toList();
         if (found.size() > 1) {
-            throw new IllegalStateException("reference-data holds " + found.size() + " files named " + fileName + ": "
-                    + found);
+            throw new IllegalStateException("more than one reference file is named " + fileName + ": " + found);
         }
-        return found.isEmpty() ? referenceFile(fileName) : found.get(0);
+        Assumptions.assumeTrue(found.size() == 1, () -> "shared file not present: no " + fileName + " under "
+                + root().resolve("reference-data") + "; skipping this check");
+        return found.get(0);
+    }
+
+    /**
+     * The files of {@code reference-data/} whose name matches a glob (e.g. {@code "*.yml"}), in any of its
+     * folders, sorted; or the calling test is skipped when there is none. A glob lets a test name a kind of
+     * file where the file names themselves are people's names (e.g. the authors of a table).
+     */
+    public static List<Path> referenceFilesNamed(String glob) {
+        requireMarkedCaller(glob);
+        PathMatcher matcher = FileSystems.getDefault().getPathMatcher("glob:" + glob);
+        List<Path> found = referenceFiles().stream().filter(p -> matcher.matches(p.getFileName())).toList();
+        Assumptions.assumeTrue(!found.isEmpty(), () -> "shared file not present: none named " + glob + " under "
+                + root().resolve("reference-data") + "; skipping this check");
+        return found;
+    }
+
+    /** Every file under {@code reference-data/} (sorted), or the calling test is skipped when it is absent. */
+    public static List<Path> referenceFiles() {
+        requireMarkedCaller("reference-data/");
+        Path data = root().resolve("reference-data");
+        Assumptions.assumeTrue(Files.isDirectory(data), () -> "shared folder not present: no " + data
+                + " (../shared beside the repository, or -D" + PROPERTY + "=DIR); skipping this check");
+        try (Stream<Path> files = Files.walk(data)) {
+            return files.filter(Files::isRegularFile).sorted().toList();
+        } catch (IOException e) {
+            throw new UncheckedIOException("cannot list " + data, e);
+        }
     }
 
     /** A file of the shared folder (e.g. {@code "reference-data/cie-1nm/a.csv"}), or the calling test is skipped. */

@@ -41,26 +41,56 @@ class SharedFolderTest {
     }
 
     @ReadsSharedFolder
-    private static Path lookUpNamed(String name) {
-        return SharedFolder.referenceFileNamed(name);
+    private static Path lookUpByName(String fileName) {
+        return SharedFolder.referenceFileNamed(fileName);
     }
 
     @Test
     void aReferenceFileIsFoundByItsNameInWhicheverFolderItLies(@TempDir Path shared) throws IOException {
         Path file = Files.createDirectories(shared.resolve("reference-data/some-collection")).resolve("series.jdx");
-        Files.writeString(file, "##TITLE= illustrative\n");
+        Files.writeString(file, "##TITLE=illustrative\n");
+        Files.writeString(Files.createDirectories(shared.resolve("reference-data/other")).resolve("b.csv"), "300,1\n");
         System.setProperty(SharedFolder.PROPERTY, shared.toString());
 
-        assertThat(lookUpNamed("series.jdx")).isEqualTo(file);
+        assertThat(lookUpByName("series.jdx")).isEqualTo(file);
     }
 
     @Test
-    void aFileNameFoundNowhereSkipsTheTestNamingTheFile(@TempDir Path shared) throws IOException {
-        Files.createDirectories(shared.resolve("reference-data/some-collection"));
+    void aNameNoReferenceFileHasSkipsTheTestNamingIt(@TempDir Path shared) throws IOException {
+        Files.createDirectories(shared.resolve("reference-data/other"));
         System.setProperty(SharedFolder.PROPERTY, shared.toString());
 
-        assertThatThrownBy(() -> lookUpNamed("series.jdx")).isInstanceOf(TestAbortedException.class)
-                .hasMessageContaining("series.jdx");
+        assertThatThrownBy(() -> lookUpByName("series.jdx")).isInstanceOf(TestAbortedException.class)
+                .hasMessageContaining("no series.jdx under " + shared.resolve("reference-data"));
+    }
+
+    @ReadsSharedFolder
+    private static java.util.List<Path> lookUpByGlob(String glob) {
+        return SharedFolder.referenceFilesNamed(glob);
+    }
+
+    @Test
+    void aGlobFindsEveryReferenceFileOfItsKindInAnyFolder(@TempDir Path shared) throws IOException {
+        Path one = Files.createDirectories(shared.resolve("reference-data/tables/a")).resolve("first.yml");
+        Path two = Files.createDirectories(shared.resolve("reference-data/tables/b")).resolve("second.yml");
+        Files.writeString(one, "data: 1\n");
+        Files.writeString(two, "data: 2\n");
+        Files.writeString(shared.resolve("reference-data/tables/notes.md"), "# notes\n");
+        System.setProperty(SharedFolder.PROPERTY, shared.toString());
+
+        assertThat(lookUpByGlob("*.yml")).containsExactly(one, two);
+        assertThatThrownBy(() -> lookUpByGlob("*.jdx")).isInstanceOf(TestAbortedException.class)
+                .hasMessageContaining("none named *.jdx");
+    }
+
+    @Test
+    void twoReferenceFilesOfOneNameAreAnErrorNotAGuess(@TempDir Path shared) throws IOException {
+        Files.writeString(Files.createDirectories(shared.resolve("reference-data/one")).resolve("a.csv"), "300,1\n");
+        Files.writeString(Files.createDirectories(shared.resolve("reference-data/two")).resolve("a.csv"), "300,2\n");
+        System.setProperty(SharedFolder.PROPERTY, shared.toString());
+
+        assertThatThrownBy(() -> lookUpByName("a.csv")).isInstanceOf(IllegalStateException.class)
+                .hasMessageContaining("more than one reference file is named a.csv");
     }
 
     @Test
