@@ -193,8 +193,10 @@ class ReferenceFileOutcomesTest {
             null, false, null, null, null);
 
     private static final String NOT_PERCENT_OR_FRACTION = "does not say percent or fraction";
-    private static final String STD_DEV_IGNORED = "columns ignored (not a wavelength or value column): [StdDev]";
-    private static final String STD_DEV_IGNORED_DOTTED = "columns ignored (not a wavelength or value column): [Std.Dev.]";
+    /** The measured sheets' standard-deviation column is read; where σ_T exceeds T/2 the absorbance σ is left unknown. */
+    private static String sdTooWide(int points, String range) {
+        return points + " points between " + range + " nm have a standard deviation above 50 % of their transmittance";
+    }
     private static final String Y_BAR = "values read from column 'column 3'; columns not read: [column 2, column 4]";
     private static final String NOT_A_CURVE_ABOVE_100 = "far above any transmittance (1, or 100 %T)";
 
@@ -244,10 +246,12 @@ class ReferenceFileOutcomesTest {
                 refused("jcamp-fix.dx", "the block has no ##XUNITS="),
                 refused("jcamp-packed.dx", "the block has no ##XUNITS="),
                 refused("jcamp-squeezed.dx", "the block has no ##XUNITS="),
-                // §2: absorbance; below 220 nm the diode array reads negative A (T up to 5.37, stored at the 1.5 ceiling)
-                warns("uv-link.jdx", "the file holds 2 spectra", "21 readings above 100 %T (highest 104.7 %T)",
-                        "15 readings above 105 %T (highest 536.7 %T)")
-                        .points(911, 190, 1100).absorbance(1100, "-0.0042925").t(190, "1.5"),
+                // §2: absorbance; below 220 nm the diode array reads negative A (T up to 5.37): that noise region is left out
+                warns("uv-link.jdx", "the file holds 2 spectra",
+                        "noise region at the short-wavelength end, 190–255 nm (66 points), left out",
+                        "20 readings above 100 %T (highest 104.7 %T) between 975 and 1100 nm",
+                        "1 readings above 105 %T (highest 106.6 %T) at 1090 nm")
+                        .points(845, 256, 1100).absorbance(1100, "-0.0042925"),
                 // §2: reflectance in percent, not transmittance; ReferenceFilePreviewTest reads it with a y kind chosen
                 refused("uv.jdx", "unknown y unit 'Reflectance'"),
                 // §2: nanometre data labelled 1/CM and ARBITRARY UNITS
@@ -295,26 +299,26 @@ class ReferenceFileOutcomesTest {
                 refused("*.yml", "looks like a refractive-index table"),
 
                 // §8: percent without a percent header; the instrument's clamp at 0.01 %T is its floor
-                warns("polycarbonate-sheet-3mm.csv", STD_DEV_IGNORED, NOT_PERCENT_OR_FRACTION,
+                warns("polycarbonate-sheet-3mm.csv", sdTooWide(24, "282.0 and 356.0"), NOT_PERCENT_OR_FRACTION,
                         "instrument floor: 127 points at 0.01000 %T (190–357 nm)")
                         .points(911, 190, 1100).percent(300, "0.01").percent(400, "53.09").percent(550, "87.24")
                         .detectionLimit("0.0001"),
-                warns("acrylic-clear-3mm.csv", STD_DEV_IGNORED, NOT_PERCENT_OR_FRACTION,
+                warns("acrylic-clear-3mm.csv", sdTooWide(8, "195.0 and 219.0"), NOT_PERCENT_OR_FRACTION,
                         "instrument floor: 34 points at 0.01000 %T (190–239 nm)")
                         .values("ReferenceFilePreviewTest"),
-                warns("acrylic-uv-absorbing-3mm.csv", STD_DEV_IGNORED, NOT_PERCENT_OR_FRACTION,
+                warns("acrylic-uv-absorbing-3mm.csv", sdTooWide(27, "254.0 and 347.0"), NOT_PERCENT_OR_FRACTION,
                         "instrument floor: 91 points at 0.01000 %T (190–335 nm)")
                         .values("MeasuredFloorTest"),
-                warns("glass-dish-cover.csv", STD_DEV_IGNORED_DOTTED, "instrument floor: 35 points at 0.01000 %T (198–264 nm)")
+                warns("glass-dish-cover.csv", sdTooWide(5, "197.0 and 223.0"), "instrument floor: 35 points at 0.01000 %T (198–264 nm)")
                         .points(911, 190, 1100).percent(300, "9.01").percent(400, "90.44").percent(550, "91.25"),
-                warns("longpass-filter-glass-295nm-2mm.csv", STD_DEV_IGNORED_DOTTED,
+                warns("longpass-filter-glass-295nm-2mm.csv", sdTooWide(4, "225.0 and 233.0"),
                         "instrument floor: 17 points at 0.01000 %T (200–238 nm)")
                         .points(911, 190, 1100).percent(300, "62.95").percent(400, "91.57").percent(550, "91.84"),
                 // §8: the empty beam, about 100 %T: reference drift of a few tenths of a percent
-                warns("instrument-blank.csv", STD_DEV_IGNORED_DOTTED, "869 readings above 100 %T (highest 100.4 %T)")
+                warns("instrument-blank.csv", "869 readings above 100 %T (highest 100.4 %T)")
                         .points(911, 190, 1100).percent(300, "100.03").percent(400, "100.02"),
                 // §8: the blocked beam sits on the floor nearly everywhere
-                warns("instrument-dark.csv", STD_DEV_IGNORED_DOTTED, "instrument floor: 609 points at 0.01000 %T")
+                warns("instrument-dark.csv", sdTooWide(276, "194.0 and 1100.0"), "instrument floor: 609 points at 0.01000 %T")
                         .points(911, 190, 1100).percent(300, "0.01").detectionLimit("0.0001"),
                 // §8: two replicate column pairs; the first is read (ReferenceFilesTest reads both)
                 warns("ldpe-film-50um.txt", "2 value columns found; only the first", NOT_PERCENT_OR_FRACTION)
