@@ -37,8 +37,12 @@ import picocli.CommandLine.Spec;
 final class PreviewCommand implements Callable<Integer> {
 
     /** The reader names HTTP form fields; the command line calls them by its option names. */
-    private static final Map<String, String> OPTION_OF_FIELD = Map.of("format", "--format", "yKind", "--y-kind",
-            "block", "--block", "eachBlock", "--each-block");
+    private static final Map<String, String> OPTION_OF_FIELD = Map.ofEntries(Map.entry("format", "--format"),
+            Map.entry("yKind", "--y-kind"), Map.entry("block", "--block"), Map.entry("eachBlock", "--each-block"),
+            Map.entry("from", "--from"), Map.entry("to", "--to"), Map.entry("xUnit", "--x-unit"),
+            Map.entry("xColumn", "--x-column"), Map.entry("yColumn", "--y-column"),
+            Map.entry("decimalMark", "--decimal-mark"), Map.entry("uncertainty", "--uncertainty"),
+            Map.entry("replicates", "--replicates"));
 
     @Spec
     CommandSpec spec;
@@ -57,6 +61,33 @@ final class PreviewCommand implements Callable<Integer> {
     @Option(names = "--each-block", description = "JCAMP-DX: show what storing every block as its own sample would do.")
     boolean eachBlock;
 
+    @Option(names = "--from", paramLabel = "NM", description = "Keep only wavelengths from NM up (default: the whole"
+            + " axis, less a noise region found at its short end).")
+    String from;
+
+    @Option(names = "--to", paramLabel = "NM", description = "Keep only wavelengths up to NM (default: the whole axis,"
+            + " less a noise region found at its long end).")
+    String to;
+
+    @Option(names = "--x-unit", paramLabel = "UNIT", description = "nm, um, angstrom or cm-1, whatever the file says.")
+    String xUnit;
+
+    @Option(names = "--x-column", paramLabel = "N", description = "The wavelength column, counted from 1.")
+    String xColumn;
+
+    @Option(names = "--y-column", paramLabel = "N", description = "The value column, counted from 1.")
+    String yColumn;
+
+    @Option(names = "--decimal-mark", paramLabel = "MARK", description = "point or comma instead of detecting it.")
+    String decimalMark;
+
+    @Option(names = "--replicates", paramLabel = "MODE", description = "Several value columns: first, mean or separate.")
+    String replicates;
+
+    @Option(names = "--uncertainty", paramLabel = "SD", description = "The instrument's stated uncertainty (one"
+            + " standard deviation) such as 0.5%T or 0.01A, for a file without a standard-deviation column.")
+    String uncertainty;
+
     @Parameters(index = "0", paramLabel = "FILE", description = "The curve file.")
     Path file;
 
@@ -67,8 +98,11 @@ final class PreviewCommand implements Callable<Integer> {
         }
         ImportOptions options;
         try {
-            options = OptionText.withBlocks(OptionText.options(format, yKind, null, null, null, null, null, null),
-                    "block", block, "eachBlock", String.valueOf(eachBlock));
+            options = OptionText.options(format, yKind, decimalMark, replicates, null, null, null, null)
+                    .withStatedUncertainty(OptionText.statedUncertainty("uncertainty", uncertainty));
+            options = OptionText.withBlocks(options, "block", block, "eachBlock", String.valueOf(eachBlock));
+            options = OptionText.keepRange(options, "from", from, "to", to);
+            options = OptionText.withAxes(options, "xUnit", xUnit, "xColumn", xColumn, "yColumn", yColumn);
         } catch (ImportRequestException e) {
             throw new ParameterException(spec.commandLine(), option(e));
         }
@@ -104,6 +138,13 @@ final class PreviewCommand implements Callable<Integer> {
         if (!p.blocks().isEmpty()) {
             blocks(p.blocks()).print(out);
         }
+        if (!p.keptRange().isWhole()) {
+            out.println("kept " + Numbers.mm(p.keptRange().keptFromNm()) + "–" + Numbers.mm(p.keptRange().keptToNm())
+                    + " nm of the file's " + Numbers.mm(p.keptRange().fileFromNm()) + "–"
+                    + Numbers.mm(p.keptRange().fileToNm()) + " nm (" + p.keptRange().leftOutBelow() + " points left out"
+                    + " below, " + p.keptRange().leftOutAbove() + " above)");
+        }
+        out.println("measurement uncertainty: " + (p.uncertaintySource() == null ? "none" : p.uncertaintySource()));
         p.warnings().forEach(w -> out.println("note: " + w));
         out.flush();
     }

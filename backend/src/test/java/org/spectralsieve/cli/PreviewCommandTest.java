@@ -96,4 +96,40 @@ class PreviewCommandTest {
         assertThat(run.out()).containsPattern("series\\.jdx\\s+stored\\s+illustrative-cli-amber-film\\s+\\d+,\\d+");
         assertThat(run.out()).contains("1 stored, 0 already stored, 0 refused");
     }
+
+    /** An illustrative capture of a workshop's amber film, %T with a header, 300–400 nm in 10 nm steps. */
+    private static Path capture(Path dir) throws Exception {
+        StringBuilder text = new StringBuilder("wavelength_nm,transmittance_percent\n");
+        for (int nm = 300; nm <= 400; nm += 10) {
+            text.append(nm).append(',').append(20 + (nm - 300) / 2).append('\n');
+        }
+        Path file = dir.resolve("amber-film.csv");
+        Files.writeString(file, text, StandardCharsets.UTF_8);
+        return file;
+    }
+
+    @Test
+    void theKeepRangeAndAStatedUncertaintyShowInThePreview(@TempDir Path dir) throws Exception {
+        Run run = cli("preview", "--from", "320", "--to", "380", "--uncertainty", "0.5%T", capture(dir).toString());
+
+        assertThat(run.exitCode()).as(run.err()).isEqualTo(SieveCli.OK);
+        // 300..400 in 10 nm steps is 11 points; keeping 320..380 leaves 7 and leaves out 2 on each side
+        assertThat(run.out()).contains("7 points, 320–380 nm", "kept 320–380 nm of the file's 300–400 nm",
+                "2 points left out below, 2 above", "measurement uncertainty: stated: ");
+    }
+
+    @Test
+    void aKeepRangeTheWrongWayRoundIsAUsageErrorNamingTheOption(@TempDir Path dir) throws Exception {
+        Run run = cli("preview", "--from", "380", "--to", "320", capture(dir).toString());
+
+        assertThat(run.exitCode()).isEqualTo(2);
+        assertThat(run.err()).contains("--from");
+    }
+
+    @Test
+    void aFileWithoutUncertaintySaysSo(@TempDir Path dir) throws Exception {
+        Run run = cli("preview", capture(dir).toString());
+
+        assertThat(run.out()).contains("measurement uncertainty: none");
+    }
 }

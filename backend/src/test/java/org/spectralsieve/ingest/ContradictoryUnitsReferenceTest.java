@@ -27,7 +27,15 @@ class ContradictoryUnitsReferenceTest {
     private final FileImport reader = new FileImport(ImportProperties.defaults().maxPoints());
 
     private FilePreview preview(ImportOptions options) throws Exception {
-        Path f = SharedFolder.referenceFile("jcamp-cheminfo/uv_ACD.jdx");
+        return preview(uvFile(), options);
+    }
+
+    /** Resolved outside any assertion's lambda, so that a missing ../shared skips the test instead of failing it. */
+    private static Path uvFile() {
+        return SharedFolder.referenceFile("jcamp-cheminfo/uv_ACD.jdx");
+    }
+
+    private FilePreview preview(Path f, ImportOptions options) throws Exception {
         return reader.read(f.getFileName().toString(), Files.readAllBytes(f), options);
     }
 
@@ -37,7 +45,8 @@ class ContradictoryUnitsReferenceTest {
 
     @Test
     void withoutOverridesTheRefusalSaysWhatContradictsWhatAndNamesBothOverrides() {
-        ImportException e = catchThrowableOfType(ImportException.class, () -> preview(ImportOptions.defaults()));
+        Path f = uvFile();
+        ImportException e = catchThrowableOfType(ImportException.class, () -> preview(f, ImportOptions.defaults()));
 
         assertThat(e.field()).isEqualTo("##YUNITS");
         assertThat(e.problem()).contains("'ARBITRARY UNITS'", "yKind", "XUNITS=1/CM contradicts the x values",
