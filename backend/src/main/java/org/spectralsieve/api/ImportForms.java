@@ -32,7 +32,7 @@ final class ImportForms {
      * @param block           JCAMP-DX: the block to read, numbered as the preview's block list (default: the first)
      * @param eachBlock       JCAMP-DX: true to store every block as its own sample (default false)
      * @param uncertainty     the instrument's stated uncertainty (one standard deviation), "0.5%T" or "0.01A",
-     *                        used where the file has no standard-deviation column of its own
+     *                        combined with a file's own standard deviations (root sum of squares)
      */
     record ReadForm(String format, String yKind, String decimalMark, String replicates, String mergeDuplicates,
                     String detectionLimit, String strayLightFloor, String fullScale, String block, String eachBlock,

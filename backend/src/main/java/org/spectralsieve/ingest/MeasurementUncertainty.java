@@ -18,8 +18,11 @@ import org.spectralsieve.spectrum.Curve;
  *       names another ({@code absorbance_sd} as the project's own CSV writes it, {@code sd (A)});</li>
  *   <li>the instrument uncertainty the user states ({@link StatedUncertainty}), in %T or absorbance.</li>
  * </ol>
- * A file's own figures win over a stated one: they were measured on this sample. When both are given, a
- * warning says the stated one was not used.
+ * When both are given they are combined as independent components, σ² = σ_file² + σ_stated² (GUM JCGM
+ * 100:2008, 5.1.2 with uncorrelated inputs): a file's standard deviation is the scatter of repeated scans
+ * (repeatability), while an instrument's stated figure is its photometric accuracy; a verdict needs both, and
+ * the repeatability alone (often a few hundredths of a %T) would make every confidence look surer than the
+ * instrument is.
  *
  * <p>Transmittance uncertainties are converted to absorbance to first order (the law of propagation of
  * uncertainty, GUM JCGM 100:2008, 5.1.2): A = −log10 T, so |dA/dT| = 1/(T·ln 10) and
@@ -52,8 +55,6 @@ public final class MeasurementUncertainty {
     public static Applied apply(ParsedSpectrum parsed, Curve curve, Optional<StatedUncertainty> stated,
                                 List<String> warnings) {
         if (parsed.hasStandardDeviations()) {
-            stated.ifPresent(s -> warnings.add("the stated uncertainty " + text(s) + " was not used: the file gives its"
-                    + " own (" + parsed.standardDeviationOrigin().orElse("standard deviations") + ")"));
             double[] sd = onCurvePoints(parsed, curve);
             YKind kind = parsed.standardDeviationKind();
             double[] sigma = new double[curve.size()];
@@ -69,22 +70,35 @@ public final class MeasurementUncertainty {
                 case TRANSMITTANCE_PERCENT -> "%T, converted to absorbance";
                 case TRANSMITTANCE_FRACTION -> "transmittance fraction, converted to absorbance";
             };
-            return applied(curve, sigma, "file: " + parsed.standardDeviationOrigin().orElse("standard deviations")
-                    + " (" + unit + ")");
+            String source = "file: " + parsed.standardDeviationOrigin().orElse("standard deviations") + " (" + unit + ")";
+            if (stated.isPresent()) {
+                double[] instrument = statedSigma(curve, stated.get(), new ArrayList<>());
+                for (int i = 0; i < sigma.length; i++) {
+                    // an unknown component leaves the total unknown: half an uncertainty is not an uncertainty
+                    sigma[i] = Math.hypot(sigma[i], instrument[i]);
+                }
+                source += " combined with the stated " + text(stated.get()) + " (root sum of squares)";
+            }
+            return applied(curve, sigma, source);
         }
         if (stated.isPresent()) {
-            StatedUncertainty s = stated.get();
-            double[] sigma = new double[curve.size()];
             List<Integer> tooWide = new ArrayList<>();
-            for (int i = 0; i < sigma.length; i++) {
-                sigma[i] = s.scale() == StatedUncertainty.Scale.ABSORBANCE
-                        ? (curve.belowDetection(i) ? Double.NaN : s.amount())
-                        : fromTransmittance(curve, i, s.amount() / 100, tooWide);
-            }
+            double[] sigma = statedSigma(curve, stated.get(), tooWide);
             warnTooWide(curve, tooWide, warnings);
-            return applied(curve, sigma, "stated: " + text(s) + " at every point");
+            return applied(curve, sigma, "stated: " + text(stated.get()) + " at every point");
         }
         return new Applied(curve, Optional.empty());
+    }
+
+    /** The stated uncertainty at every point in absorbance; NaN at bounds and where it is too wide to convert. */
+    private static double[] statedSigma(Curve curve, StatedUncertainty s, List<Integer> tooWide) {
+        double[] sigma = new double[curve.size()];
+        for (int i = 0; i < sigma.length; i++) {
+            sigma[i] = s.scale() == StatedUncertainty.Scale.ABSORBANCE
+                    ? (curve.belowDetection(i) ? Double.NaN : s.amount())
+                    : fromTransmittance(curve, i, s.amount() / 100, tooWide);
+        }
+        return sigma;
     }
 
     /**

@@ -2,7 +2,8 @@ package org.spectralsieve.ingest;
 
 /**
  * An instrument's stated measurement uncertainty (one standard deviation), applied to every point of a
- * file that carries no standard-deviation column of its own.
+ * file; where the file carries standard deviations of its own, the two are combined as independent
+ * components (root sum of squares).
  *
  * <p>Stated either in percent transmittance (a photometric accuracy, as spectrometer sheets give it) or in
  * absorbance (as absorbance-mode instruments give it); the import converts it to the absorbance

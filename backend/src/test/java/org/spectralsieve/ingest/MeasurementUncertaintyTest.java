@@ -66,12 +66,21 @@ class MeasurementUncertaintyTest {
     }
 
     @Test
-    void theFilesOwnColumnWinsOverAStatedUncertaintyWithAWarning() throws Exception {
+    void theFilesOwnColumnAndAStatedUncertaintyCombineAsIndependentComponents() throws Exception {
         FilePreview p = preview("wavelength,transmittance,sd\n400,0.4,0.002\n500,0.8,0.002\n", stated("0.5%T"));
 
-        // σ_A = 0.002/(0.4 · 2.302585) = 0.0021715, from the column, not the stated 0.5 %T
+        // GUM JCGM 100:2008, 5.1.2, uncorrelated inputs. At T = 0.4: file σ_A = 0.002/(0.4 · 2.302585) = 0.0021715,
+        // stated σ_A = 0.005/(0.4 · 2.302585) = 0.0054287; √(0.0021715² + 0.0054287²) = 0.0058469
+        assertThat(p.curve().absorbanceUncertainty(0)).isCloseTo(0.0058469, within(1e-7));
+        assertThat(p.uncertaintySource()).contains("combined with the stated ±0.5 %T");
+    }
+
+    @Test
+    void theFilesOwnColumnAloneIsTakenAsItIs() throws Exception {
+        FilePreview p = preview("wavelength,transmittance,sd\n400,0.4,0.002\n500,0.8,0.002\n", ImportOptions.defaults());
+
+        // σ_A = 0.002/(0.4 · 2.302585) = 0.0021715 (GUM 5.1.2, first order)
         assertThat(p.curve().absorbanceUncertainty(0)).isCloseTo(0.0021715, within(1e-7));
-        assertThat(p.warnings()).anySatisfy(w -> assertThat(w).contains("±0.5 %T was not used"));
     }
 
     @Test
