@@ -30,16 +30,22 @@ public final class SieveCli {
     public static final int FAILED = 1;
     public static final int USAGE = 2;
 
-    /** First arguments that mean "run the command line" rather than "start the web service". */
-    private static final Set<String> ENTRY_WORDS = Set.of("search", "export", "materials", "import", "import-spectrum", "figures",
-            "retire", "restore", "correct", "revisions", "backup", "restore-backup", "help",
-            "--help", "-h", "--version", "-V");
+    /** First arguments, besides a command's name, that mean "run the command line" rather than "start the web service". */
+    private static final Set<String> HELP_WORDS = Set.of("help", "--help", "-h", "--version", "-V");
 
     private SieveCli() {
     }
 
+    /**
+     * True when the first argument names a command (or asks for help): taken from the registered commands
+     * themselves, so that a new command can never start the web service instead by being left off a list.
+     */
     public static boolean handles(String[] args) {
-        return args.length > 0 && ENTRY_WORDS.contains(args[0]);
+        return args.length > 0 && (HELP_WORDS.contains(args[0]) || commandNames().contains(args[0]));
+    }
+
+    static Set<String> commandNames() {
+        return new CommandLine(new SieveCli()).getSubcommands().keySet();
     }
 
     /** Runs one command in this process: what it prints goes to {@code out} and {@code err}. */

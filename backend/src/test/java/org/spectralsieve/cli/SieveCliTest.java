@@ -311,6 +311,15 @@ class SieveCliTest {
         assertThat(SieveCli.handles(new String[0])).isFalse();
     }
 
+    @Test
+    void everyCommandRunsAsACommandNotAsTheWebService() {
+        // a command left off a hand-kept list once started the web service instead of printing its preview
+        assertThat(SieveCli.commandNames()).contains("preview", "import", "export", "backup", "restore-backup");
+        for (String name : SieveCli.commandNames()) {
+            assertThat(SieveCli.handles(new String[] {name, "x"})).as(name).isTrue();
+        }
+    }
+
     private JsonNode get(String path) throws Exception {
         HttpResponse<String> response = HttpClient.newHttpClient().send(
                 HttpRequest.newBuilder(URI.create("http://localhost:" + port + path)).GET().build(),
