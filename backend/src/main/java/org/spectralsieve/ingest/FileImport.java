@@ -237,12 +237,12 @@ public final class FileImport {
             FilePreview p = fromSpectrum(ImportFormat.JCAMP_DX, bytes,
                     reader.read(fileName, all, jcampOptions(o).withBlock(chosen.index())), o, warnings, text);
             Map<Integer, String> problems = problems(fileName, bytes, text, withData, chosen, o);
-            List<FileBlock> list = withData.stream().map(b -> FileBlock.of(BlockOutline.of(b), b == chosen,
+            List<FileBlock> list = withData.stream().map(b -> FileBlock.of(BlockOutline.of(b, o.xUnit()), b == chosen,
                     problems.get(b.index()))).toList();
             return p.withBlocks(list, List.of());
         }
         Map<Integer, String> problems = problems(fileName, bytes, text, withData, null, o);
-        List<FileBlock> list = withData.stream().map(b -> FileBlock.of(BlockOutline.of(b), true,
+        List<FileBlock> list = withData.stream().map(b -> FileBlock.of(BlockOutline.of(b, o.xUnit()), true,
                 problems.get(b.index()))).toList();
         JcampBlock first = withData.stream().filter(b -> !problems.containsKey(b.index())).findFirst()
                 .orElseThrow(() -> new ImportException(fileName, withData.get(0).startLine(), null,
@@ -251,7 +251,7 @@ public final class FileImport {
                 warnings, text);
         List<String> more = new ArrayList<>();
         more.add("each of the file's " + withData.size() + " blocks would be stored as its own sample of the material;"
-                + " this preview shows " + FileBlock.of(BlockOutline.of(first), true, null).label());
+                + " this preview shows " + FileBlock.of(BlockOutline.of(first, o.xUnit()), true, null).label());
         if (!problems.isEmpty()) {
             more.add("an import with eachBlock would be refused: " + eachBlockRefusal(list));
         }
@@ -295,7 +295,7 @@ public final class FileImport {
         if (withData.stream().noneMatch(b -> b.index() == wanted)) {
             StringBuilder there = new StringBuilder();
             for (JcampBlock b : withData) {
-                there.append(there.isEmpty() ? "" : ", ").append(FileBlock.of(BlockOutline.of(b), false, null).label());
+                there.append(there.isEmpty() ? "" : ", ").append(FileBlock.of(BlockOutline.of(b, o.xUnit()), false, null).label());
             }
             throw new ImportRequestException("block", "block " + wanted + " is not a spectrum of " + fileName + "; its "
                     + (withData.size() == 1 ? "only block with data is " : withData.size() + " blocks with data are ")

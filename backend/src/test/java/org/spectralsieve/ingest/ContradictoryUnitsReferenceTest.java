@@ -70,6 +70,11 @@ class ContradictoryUnitsReferenceTest {
         assertThat(p.pointCount()).isEqualTo(881);
         assertThat(p.curve().minWavelengthNm()).isEqualTo(210.0);
         assertThat(p.curve().maxWavelengthNm()).isEqualTo(650.0);
+        // the block list shows the range the import reads, not the one the contradictory label implies
+        assertThat(p.blocks()).singleElement().satisfies(b -> {
+            assertThat(b.fromNm()).isEqualTo(210.0);
+            assertThat(b.toNm()).isEqualTo(650.0);
+        });
         // A = 2.925 at 210 nm and 0.003 at 650 nm (SOURCES.md, rounded to 3 decimals); T = 10^−A (IUPAC Gold Book A00028)
         assertThat(p.curve().transmittance(0)).isCloseTo(Math.pow(10, -2.925), within(Math.pow(10, -2.925) * 0.0012));
         assertThat(p.curve().transmittance(880)).isCloseTo(Math.pow(10, -0.003), within(0.0012));

@@ -26,8 +26,17 @@ public record BlockOutline(int number, String title, int points, double fromNm, 
 
     /** The outline of a block with data; the x range converted to nm by its XUNITS where they are known. */
     public static BlockOutline of(JcampBlock block) {
+        return of(block, Optional.empty());
+    }
+
+    /**
+     * As {@link #of(JcampBlock)}, the range converted by {@code forcedUnit} when present: a user who overrides
+     * a contradictory XUNITS sees the range the import will read, not the one the file's label implies.
+     */
+    public static BlockOutline of(JcampBlock block, Optional<XUnit> forcedUnit) {
         double[] x = block.x();
-        Optional<XUnit> unit = block.label(Labels.XUNITS).flatMap(JcampUnits::xUnit);
+        Optional<XUnit> unit = forcedUnit.isPresent() ? forcedUnit
+                : block.label(Labels.XUNITS).flatMap(JcampUnits::xUnit);
         double lo = Double.NaN;
         double hi = Double.NaN;
         if (unit.isPresent() && x.length > 0) {
