@@ -40,7 +40,7 @@ class MeasuredFloorTest {
     void aBlockDeeperThanTheFloorIsUnverifiedAndOneAboveItIsMetAsABound() throws Exception {
         Path f = SharedFolder.measuredSheet("acrylic-uv-absorbing-3mm.csv");
         FilePreview p = reader.read(f.getFileName().toString(), Files.readAllBytes(f), ImportOptions.defaults());
-        // PMMA n(0.59 µm) = 1.485 (SOURCES.md, refractiveindex-info Zhang-Tomson); 3 mm as measured
+        // PMMA n(0.59 µm) = 1.485 (SOURCES.md, the refractiveindex-info PMMA table); 3 mm as measured
         Candidate sheet = new Candidate(1, 1, "UV-absorbing acrylic", p.curve(), 3.0, true, new ConstantIndex(1.485));
 
         // at 300 nm the sheet reads the floor, 0.01 %T (about OD 4): T is at most that, not equal to it
