@@ -1,0 +1,88 @@
+package org.spectralsieve.api;
+
+import java.util.LinkedHashSet;
+import java.util.List;
+import java.util.Set;
+import java.util.function.Function;
+import org.spectralsieve.library.Geometry;
+import org.spectralsieve.library.MaterialClass;
+import org.spectralsieve.library.Provenance;
+import org.spectralsieve.search.text.LibraryAnswer;
+import org.spectralsieve.search.text.LibraryQuery;
+import org.spectralsieve.search.text.LibraryTextSearch;
+import org.springframework.web.bind.annotation.GetMapping;
+import org.springframework.web.bind.annotation.RequestParam;
+import org.springframework.web.bind.annotation.RestController;
+
+/**
+ * Words and facets over the library ({@code GET /api/library}): the best materials for the typed words,
+ * narrowed by the facet values chosen, with every facet value's count (docs/library-search.md). A facet
+ * parameter may repeat ({@code class=film&class=plastic%20sheet}): the values are alternatives.
+ */
+@RestController
+class LibrarySearchController {
+
+    private final LibraryTextSearch search;
+
+    LibrarySearchController(LibraryTextSearch search) {
+        this.search = search;
+    }
+
+    @GetMapping("/api/library")
+    LibraryAnswer search(@RequestParam(name = "q", required = false) String words,
+                         @RequestParam(name = "class", required = false) List<String> classes,
+                         @RequestParam(name = "geometry", required = false) List<String> geometries,
+                         @RequestParam(name = "provenance", required = false) List<String> provenances,
+                         @RequestParam(name = "thickness", required = false) List<String> thicknessBands,
+                         @RequestParam(name = "limit", required = false) String limit) {
+        if (words != null && words.length() > LibraryQuery.MAX_WORDS_LENGTH) {
+            throw new BadParameterException("q", "at most " + LibraryQuery.MAX_WORDS_LENGTH + " characters, got "
+                    + words.length());
+        }
+        Set<String> bands = values("thickness", thicknessBands, band -> {
+            new LibraryQuery("", Set.of(), Set.of(), Set.of(), Set.of(band), 1); // refuses a band not in the list
+            return band;
+        });
+        return search.search(new LibraryQuery(words,
+                values("class", classes, label -> MaterialClass.of(label).label()),
+                values("geometry", geometries, Geometry::parse),
+                values("provenance", provenances, Provenance::parse),
+                bands, limit(limit)));
+    }
+
+    private static <T> Set<T> values(String parameter, List<String> given, Function<String, T> parse) {
+        if (given == null) {
+            return Set.of();
+        }
+        if (given.size() > LibraryQuery.MAX_VALUES) {
+            throw new BadParameterException(parameter, "at most " + LibraryQuery.MAX_VALUES + " values, got " + given.size());
+        }
+        Set<T> out = new LinkedHashSet<>();
+        for (String value : given) {
+            if (value == null || value.isBlank()) {
+                continue; // an empty choice (class=) chooses nothing, as an untouched facet panel does
+            }
+            try {
+                out.add(parse.apply(value));
+            } catch (IllegalArgumentException e) {
+                throw new BadParameterException(parameter, e.getMessage());
+            }
+        }
+        return out;
+    }
+
+    private static int limit(String text) {
+        if (text == null || text.isBlank()) {
+            return LibraryQuery.DEFAULT_LIMIT;
+        }
+        try {
+            int limit = Integer.parseInt(text.strip());
+            if (limit >= 1 && limit <= LibraryQuery.MAX_LIMIT) {
+                return limit;
+            }
+        } catch (NumberFormatException notANumber) {
+            // answered below like any other bad limit
+        }
+        throw new BadParameterException("limit", "a whole number from 1 to " + LibraryQuery.MAX_LIMIT + ", got '" + text + "'");
+    }
+}

@@ -1,0 +1,175 @@
+package org.spectralsieve.search.text;
+
+import java.util.Collection;
+import java.util.List;
+import java.util.Locale;
+import java.util.Set;
+import java.util.TreeSet;
+import org.apache.lucene.analysis.Analyzer;
+import org.apache.lucene.analysis.LowerCaseFilter;
+import org.apache.lucene.analysis.StopFilter;
+import org.apache.lucene.analysis.TokenStream;
+import org.apache.lucene.analysis.en.EnglishAnalyzer;
+import org.apache.lucene.analysis.miscellaneous.PerFieldAnalyzerWrapper;
+import org.apache.lucene.analysis.standard.StandardTokenizer;
+import org.apache.lucene.document.Document;
+import org.apache.lucene.document.Field;
+import org.apache.lucene.document.StoredField;
+import org.apache.lucene.document.TextField;
+import org.apache.lucene.facet.FacetsConfig;
+import org.apache.lucene.facet.sortedset.SortedSetDocValuesFacetField;
+import org.spectralsieve.library.Material;
+import org.spectralsieve.library.SampleInfo;
+
+/**
+ * The one place that says what the library's text index holds: one document per material in use, carrying
+ * its own words and the words of its samples in use. The index is derived from the database and holds
+ * nothing the database does not (docs/library-search.md).
+ *
+ * <p>Every word field is analysed as English (lower case, English stop words, Porter stems), so
+ * {@code sheets} finds {@code sheet}; {@link #TYPED} repeats all of them without stems so that a word still
+ * being typed matches as a prefix ({@code acryl} finds {@code acrylic}, {@code polycarb} finds
+ * {@code polycarbonate}), which a stem cannot promise.
+ */
+public final class LibraryIndexSchema {
+
+    /** Stored only: the hit names its material by id, and nothing searches by it (the database does). */
+    static final String ID = "id";
+    /** English text, boosted most: the words a user remembers a stock by. */
+    static final String NAME = "name";
+    /** English text, not a keyword: {@code glass} should find both "window glass" and "optical glass". */
+    static final String CLASS_WORDS = "class";
+    /** English text, one value per tag: tags are short user words, searched like any other word. */
+    static final String TAGS = "tags";
+    /** English text: free prose about the stock. */
+    static final String DESCRIPTION = "description";
+    /** English text, one value per sample: free prose about each measurement. */
+    static final String NOTES = "notes";
+    /** English text, one value per sample: "measured", "datasheet", "modelled" are words a user types too. */
+    static final String PROVENANCE_WORDS = "provenance";
+    /** English text, one value per sample: instrument names are several words ("bench spectrometer"). */
+    static final String INSTRUMENT = "instrument";
+    /** English text, one value per sample: a lot mark is split into its parts, so "2291" finds "L-2291". */
+    static final String LOT = "lot";
+    /**
+     * Text of the thicknesses ({@code 3 mm}), one value per sample and stated stock size: a user types
+     * "3 mm"; a number range is asked through the {@link #THICKNESS_FACET} bands instead.
+     */
+    static final String THICKNESS_WORDS = "thickness";
+    /** Every word field again, lower-cased but not stemmed: the field prefix queries run on. */
+    static final String TYPED = "typed";
+
+    /** The word fields a typed word is looked up in, each with its weight: the name counts most. */
+    static final List<WeightedField> WORD_FIELDS = List.of(
+            new WeightedField(NAME, 4f), new WeightedField(CLASS_WORDS, 2f), new WeightedField(TAGS, 2f),
+            new WeightedField(DESCRIPTION, 1f), new WeightedField(NOTES, 1f), new WeightedField(PROVENANCE_WORDS, 1f),
+            new WeightedField(INSTRUMENT, 1f), new WeightedField(LOT, 1f), new WeightedField(THICKNESS_WORDS, 1f));
+
+    /** Weight of a prefix match: below any whole word, so finished words rank above half-typed guesses. */
+    static final float PREFIX_WEIGHT = 0.5f;
+
+    /** Facet dimension, one value per material (sorted-set doc values: counted without a taxonomy index). */
+    public static final String CLASS_FACET = "class";
+    /** Facet dimension, one value per distinct sample geometry (multi-valued: a material may have both). */
+    public static final String GEOMETRY_FACET = "geometry";
+    /** Facet dimension, one value per distinct sample provenance (multi-valued). */
+    public static final String PROVENANCE_FACET = "provenance";
+    /** Facet dimension, one band per sample thickness and stated stock size (multi-valued). */
+    public static final String THICKNESS_FACET = "thickness";
+
+    public static final List<String> FACETS = List.of(CLASS_FACET, GEOMETRY_FACET, PROVENANCE_FACET, THICKNESS_FACET);
+
+    record WeightedField(String name, float weight) {
+    }
+
+    private LibraryIndexSchema() {
+    }
+
+    static FacetsConfig facetsConfig() {
+        FacetsConfig config = new FacetsConfig();
+        config.setMultiValued(GEOMETRY_FACET, true);
+        config.setMultiValued(PROVENANCE_FACET, true);
+        config.setMultiValued(THICKNESS_FACET, true);
+        return config;
+    }
+
+    /** English for the word fields, unstemmed words for {@link #TYPED}. */
+    static Analyzer analyzer() {
+        return new PerFieldAnalyzerWrapper(new EnglishAnalyzer(), java.util.Map.of(TYPED, typedWords()));
+    }
+
+    /** The same tokens and stop words as the English analyzer, without stems. */
+    static Analyzer typedWords() {
+        return new Analyzer() {
+            @Override
+            protected TokenStreamComponents createComponents(String fieldName) {
+                StandardTokenizer source = new StandardTokenizer();
+                TokenStream words = new StopFilter(new LowerCaseFilter(source), EnglishAnalyzer.ENGLISH_STOP_WORDS_SET);
+                return new TokenStreamComponents(source, words);
+            }
+        };
+    }
+
+    /**
+     * The thickness band a sheet falls in. The bands follow how a workshop shelves stock — films and foils
+     * under 1 mm, thin sheet, the common 3–6 mm sheet and glazing, thick plate (common practice, no source).
+     */
+    public static String thicknessBand(double mm) {
+        if (mm < 1) {
+            return "under 1 mm";
+        }
+        if (mm < 3) {
+            return "1-3 mm";
+        }
+        if (mm < 6) {
+            return "3-6 mm";
+        }
+        return "6 mm and over";
+    }
+
+    /** The bands in shelf order, the values {@link #THICKNESS_FACET} may take. */
+    public static final List<String> THICKNESS_BANDS = List.of("under 1 mm", "1-3 mm", "3-6 mm", "6 mm and over");
+
+    /** The material's document, before {@link FacetsConfig#build} turns its facet fields into doc values. */
+    static Document document(Material m) {
+        Document doc = new Document();
+        doc.add(new StoredField(ID, m.id()));
+        words(doc, NAME, List.of(m.name()));
+        words(doc, CLASS_WORDS, List.of(m.materialClass().label()));
+        words(doc, TAGS, m.tags());
+        words(doc, DESCRIPTION, List.of(m.description()));
+        List<SampleInfo> samples = m.samples();
+        words(doc, NOTES, samples.stream().map(SampleInfo::notes).toList());
+        words(doc, PROVENANCE_WORDS, samples.stream().map(s -> s.provenance().label()).distinct().toList());
+        words(doc, INSTRUMENT, samples.stream().map(SampleInfo::instrument).distinct().toList());
+        words(doc, LOT, samples.stream().map(SampleInfo::lot).distinct().toList());
+        Set<Double> thicknesses = new TreeSet<>(m.thicknesses().stockMm());
+        samples.forEach(s -> thicknesses.add(s.thicknessMm()));
+        words(doc, THICKNESS_WORDS, thicknesses.stream().map(LibraryIndexSchema::millimetres).toList());
+
+        doc.add(new SortedSetDocValuesFacetField(CLASS_FACET, m.materialClass().label()));
+        facets(doc, GEOMETRY_FACET, samples.stream().map(s -> s.geometry().label()).toList());
+        facets(doc, PROVENANCE_FACET, samples.stream().map(s -> s.provenance().label()).toList());
+        facets(doc, THICKNESS_FACET, thicknesses.stream().map(LibraryIndexSchema::thicknessBand).toList());
+        return doc;
+    }
+
+    /** 3.0 → "3 mm", 0.175 → "0.175 mm": the way a thickness is written and typed. */
+    static String millimetres(double mm) {
+        String number = mm == Math.rint(mm) ? Long.toString((long) mm) : String.format(Locale.ROOT, "%s", mm);
+        return number + " mm";
+    }
+
+    private static void words(Document doc, String field, Collection<String> values) {
+        for (String value : values) {
+            if (value != null && !value.isBlank()) {
+                doc.add(new TextField(field, value, Field.Store.NO));
+                doc.add(new TextField(TYPED, value, Field.Store.NO));
+            }
+        }
+    }
+
+    private static void facets(Document doc, String dimension, Collection<String> values) {
+        new TreeSet<>(values).forEach(v -> doc.add(new SortedSetDocValuesFacetField(dimension, v)));
+    }
+}
