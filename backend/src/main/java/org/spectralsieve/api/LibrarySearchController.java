@@ -8,6 +8,7 @@ import org.spectralsieve.library.Geometry;
 import org.spectralsieve.library.MaterialClass;
 import org.spectralsieve.library.Provenance;
 import org.spectralsieve.search.text.LibraryAnswer;
+import org.spectralsieve.search.text.LibraryIndexSchema;
 import org.spectralsieve.search.text.LibraryQuery;
 import org.spectralsieve.search.text.LibraryTextSearch;
 import org.springframework.web.bind.annotation.GetMapping;
@@ -39,15 +40,11 @@ class LibrarySearchController {
             throw new BadParameterException("q", "at most " + LibraryQuery.MAX_WORDS_LENGTH + " characters, got "
                     + words.length());
         }
-        Set<String> bands = values("thickness", thicknessBands, band -> {
-            new LibraryQuery("", Set.of(), Set.of(), Set.of(), Set.of(band), 1); // refuses a band not in the list
-            return band;
-        });
         return search.search(new LibraryQuery(words,
                 values("class", classes, label -> MaterialClass.of(label).label()),
                 values("geometry", geometries, Geometry::parse),
                 values("provenance", provenances, Provenance::parse),
-                bands, limit(limit)));
+                values("thickness", thicknessBands, LibraryIndexSchema::thicknessBandNamed), limit(limit)));
     }
 
     private static <T> Set<T> values(String parameter, List<String> given, Function<String, T> parse) {

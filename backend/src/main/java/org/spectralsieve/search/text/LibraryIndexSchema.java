@@ -130,6 +130,15 @@ public final class LibraryIndexSchema {
     /** The bands in shelf order, the values {@link #THICKNESS_FACET} may take. */
     public static final List<String> THICKNESS_BANDS = List.of("under 1 mm", "1-3 mm", "3-6 mm", "6 mm and over");
 
+    /** The band of that label, or a refusal naming the labels there are. */
+    public static String thicknessBandNamed(String label) {
+        String band = label.strip();
+        if (!THICKNESS_BANDS.contains(band)) {
+            throw new IllegalArgumentException("thickness band '" + label + "' is not one of " + THICKNESS_BANDS);
+        }
+        return band;
+    }
+
     /** The material's document, before {@link FacetsConfig#build} turns its facet fields into doc values. */
     static Document document(Material m) {
         Document doc = new Document();

@@ -34,12 +34,7 @@ public record LibraryQuery(String words, Set<String> classes, Set<Geometry> geom
         geometries = Set.copyOf(geometries);
         provenances = Set.copyOf(provenances);
         thicknessBands = Set.copyOf(thicknessBands);
-        for (String band : thicknessBands) {
-            if (!LibraryIndexSchema.THICKNESS_BANDS.contains(band)) {
-                throw new IllegalArgumentException("thickness band '" + band + "' is not one of "
-                        + LibraryIndexSchema.THICKNESS_BANDS);
-            }
-        }
+        thicknessBands.forEach(LibraryIndexSchema::thicknessBandNamed);
         if (limit < 1 || limit > MAX_LIMIT) {
             throw new IllegalArgumentException("limit must be 1 to " + MAX_LIMIT + ", got " + limit);
         }

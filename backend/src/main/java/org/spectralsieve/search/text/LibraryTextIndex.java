@@ -3,6 +3,8 @@ package org.spectralsieve.search.text;
 import java.io.IOException;
 import java.io.UncheckedIOException;
 import java.util.ArrayList;
+import java.util.Comparator;
+import java.util.Locale;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
@@ -24,6 +26,7 @@ import org.apache.lucene.index.Term;
 import org.apache.lucene.search.BooleanClause;
 import org.apache.lucene.search.BooleanQuery;
 import org.apache.lucene.search.BoostQuery;
+import org.apache.lucene.search.ConstantScoreQuery;
 import org.apache.lucene.search.DisjunctionMaxQuery;
 import org.apache.lucene.search.IndexSearcher;
 import org.apache.lucene.search.MatchAllDocsQuery;
@@ -61,8 +64,13 @@ final class LibraryTextIndex {
         this.generation = generation;
     }
 
-    /** Indexes the materials, read at {@code generation}, in the order given (ties in score keep it). */
-    static LibraryTextIndex build(List<Material> materials, long generation) {
+    /** Materials of equal score are listed in this order: by name as a reader sorts, whatever the database's collation. */
+    private static final Comparator<Material> BY_NAME = Comparator
+            .comparing((Material m) -> m.name().toLowerCase(Locale.ROOT)).thenComparingLong(Material::id);
+
+    /** Indexes the materials, read at {@code generation}; documents go in {@link #BY_NAME} order, which ties keep. */
+    static LibraryTextIndex build(List<Material> unordered, long generation) {
+        List<Material> materials = unordered.stream().sorted(BY_NAME).toList();
         try {
             ByteBuffersDirectory directory = new ByteBuffersDirectory();
             FacetsConfig config = LibraryIndexSchema.facetsConfig();
@@ -145,6 +153,10 @@ final class LibraryTextIndex {
     /**
      * Every typed word must match somewhere (each added word narrows): as a whole word, stemmed, in any
      * word field, or as the start of a word. Stop words are dropped; no words matches every material.
+     *
+     * <p>A word scores by where it is found (the field's weight), not by how rare it is there: the fields
+     * are a few words long and BM25's frequency and length statistics over them follow accidents of the
+     * library (a field only two materials fill looks "common"), so the ranking would not say why.
      */
     private Query wordsQuery(String words) throws IOException {
         List<String> tokens = tokens(typed, LibraryIndexSchema.TYPED, words);
@@ -156,7 +168,8 @@ final class LibraryTextIndex {
             List<Query> ways = new ArrayList<>();
             for (String stem : tokens(english, LibraryIndexSchema.NAME, token)) {
                 for (LibraryIndexSchema.WeightedField field : LibraryIndexSchema.WORD_FIELDS) {
-                    ways.add(new BoostQuery(new TermQuery(new Term(field.name(), stem)), field.weight()));
+                    ways.add(new BoostQuery(new ConstantScoreQuery(new TermQuery(new Term(field.name(), stem))),
+                            field.weight()));
                 }
             }
             ways.add(new BoostQuery(new PrefixQuery(new Term(LibraryIndexSchema.TYPED, token)),
