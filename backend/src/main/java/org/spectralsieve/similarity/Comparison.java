@@ -18,14 +18,15 @@ final class Comparison {
     Comparison(CurveSignature query, CurveSignature candidate) {
         this.query = query;
         this.candidate = candidate;
-        // per mm only when both are bulk; a fixed construction is compared as measured
-        boolean perMm = query.bulk() && candidate.bulk();
+        // one unit for every candidate of a ranking: absorbance at the query's thickness. A bulk candidate is
+        // brought there by Beer–Lambert (its A per mm times the query's thickness); a fixed one stays as measured
+        double candidateScale = candidate.bulk() ? query.thicknessMm() : 1;
         int n = 0;
         for (int i = 0; i < CurveSignature.DIMENSION; i++) {
             weight[i] = query.weight(i) * candidate.weight(i);
             if (weight[i] > 0) {
-                x[i] = perMm ? query.shape(i) : query.absorbance(i);
-                y[i] = perMm ? candidate.shape(i) : candidate.absorbance(i);
+                x[i] = query.absorbance(i);
+                y[i] = candidate.bulk() ? candidate.shape(i) * candidateScale : candidate.absorbance(i);
                 n++;
             }
         }

@@ -20,9 +20,11 @@ public enum ShapeMetric {
     CORRELATION,
 
     /**
-     * The weighted root-mean-square difference of the centred shapes, in absorbance per mm (both bulk) or
-     * absorbance (otherwise: a fixed construction is compared as measured). Blind to the offset only: a bulk
-     * material at another thickness still matches (per mm), while a paler or darker stock does not.
+     * The weighted root-mean-square difference of the centred curves, in absorbance at the query's thickness:
+     * a bulk candidate is brought to that thickness by Beer–Lambert (its A per mm times the query's thickness),
+     * a fixed construction is compared as measured. One unit for every candidate keeps the distances of one
+     * ranking comparable (per mm would inflate a thin film's numbers tenfold against a sheet's). Blind to the
+     * offset only: a bulk material at another thickness still matches, while a paler or darker stock does not.
      */
     CENTRED_EUCLIDEAN
 }
