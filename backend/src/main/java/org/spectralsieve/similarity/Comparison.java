@@ -8,6 +8,13 @@ final class Comparison {
     /** Below this spread (in the compared unit, squared and weighted) a shape counts as flat. */
     private static final double FLAT = 1e-12;
 
+    /**
+     * The least spread (standard deviation over the fitted points) of a candidate's absorbance from which a
+     * thickness is fitted: 0.01, about 2.3 % in T, roughly what a bench spectrophotometer repeats (common
+     * practice, no source). A flatter curve shows no absorption the data can scale — its loss may be all surface.
+     */
+    static final double MIN_SPREAD = 0.01;
+
     private final CurveSignature query;
     private final CurveSignature candidate;
     private final double[] weight = new double[CurveSignature.DIMENSION];
@@ -115,7 +122,8 @@ final class Comparison {
      * The thickness at which a bulk candidate best matches the query: the slope s of the query's absorbance on
      * the candidate's, fitted with an offset (the surface loss does not scale with thickness), times the
      * candidate's thickness — Beer–Lambert makes the internal absorbance proportional to the thickness. Only
-     * points resolved in both curves enter: a bound is no value to fit.
+     * points resolved in both curves enter: a bound is no value to fit. Empty when the candidate's absorbance
+     * is flatter than {@link #MIN_SPREAD} there.
      */
     OptionalDouble matchingThicknessMm() {
         if (!candidate.bulk()) {
@@ -147,7 +155,7 @@ final class Comparison {
                 var += dc * dc;
             }
         }
-        if (var <= FLAT || cov <= 0) {
+        if (var / sw < MIN_SPREAD * MIN_SPREAD || cov <= 0) {
             return OptionalDouble.empty();
         }
         return OptionalDouble.of(cov / var * candidate.thicknessMm());

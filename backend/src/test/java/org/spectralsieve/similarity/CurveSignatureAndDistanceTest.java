@@ -144,4 +144,58 @@ class CurveSignatureAndDistanceTest {
         assertThat(SimilarCurves.distance(stock, pale, ShapeMetric.CORRELATION)).isCloseTo(0, within(1e-3));
         assertThat(SimilarCurves.distance(stock, pale, ShapeMetric.CENTRED_EUCLIDEAN)).isGreaterThan(0.1);
     }
+    @Test
+    void euclideanDistanceOfZScoredCurvesIsTheCorrelationDistanceInDisguise() {
+        // with the same points and weights, |zx − zy|² / n = 2(1 − r): worked by expanding the square of
+        // standardised vectors (each has mean 0 and mean square 1); so a z-scored Euclidean ranks as correlation does
+        CurveSignature a = CurveSignature.of(sheet(1), 1, true);
+        CurveSignature b = CurveSignature.of(curveOfAbsorbance(nm -> EDGE_PER_MM.applyAsDouble(nm + 12), 200, 700), 1, true);
+        double[] x = new double[CurveSignature.DIMENSION];
+        double[] y = new double[CurveSignature.DIMENSION];
+        double[] w = new double[CurveSignature.DIMENSION];
+        for (int i = 0; i < x.length; i++) {
+            w[i] = a.weight(i) * b.weight(i);
+            x[i] = w[i] > 0 ? a.shape(i) : 0;
+            y[i] = w[i] > 0 ? b.shape(i) : 0;
+        }
+        double[] zx = zScored(x, w);
+        double[] zy = zScored(y, w);
+        double squared = 0;
+        double total = 0;
+        for (int i = 0; i < x.length; i++) {
+            squared += w[i] * (zx[i] - zy[i]) * (zx[i] - zy[i]);
+            total += w[i];
+        }
+        double r = 1 - SimilarCurves.distance(a, b, ShapeMetric.CORRELATION);
+        assertThat(squared / total).isCloseTo(2 * (1 - r), within(1e-9));
+    }
+
+    private static double[] zScored(double[] v, double[] w) {
+        double sum = 0;
+        double total = 0;
+        for (int i = 0; i < v.length; i++) {
+            sum += w[i] * v[i];
+            total += w[i];
+        }
+        double mean = sum / total;
+        double square = 0;
+        for (int i = 0; i < v.length; i++) {
+            square += w[i] * (v[i] - mean) * (v[i] - mean);
+        }
+        double sd = Math.sqrt(square / total);
+        double[] z = new double[v.length];
+        for (int i = 0; i < v.length; i++) {
+            z[i] = (v[i] - mean) / sd;
+        }
+        return z;
+    }
+    @Test
+    void aCandidateFlatterThanTheRepeatabilityNamesNoThickness() {
+        // A = 0.035 + 0.004·(λ − 200)/500: a spread of about 0.001, ten times under the 0.01 minimum
+        CurveSignature clear = CurveSignature.of(curveOfAbsorbance(nm -> 0.035 + 0.004 * (nm - 200) / 500, 200, 700), 1, true);
+        CurveSignature query = CurveSignature.of(curveOfAbsorbance(nm -> 0.035 + 0.008 * (nm - 200) / 500, 200, 700), 2, true);
+        SimilarHit hit = SimilarCurves.rank(query, List.of(new SimilarCurves.Candidate("clear", clear)),
+                ShapeMetric.CORRELATION, 1).get(0);
+        assertThat(hit.matchingThicknessMm()).isEmpty();
+    }
 }

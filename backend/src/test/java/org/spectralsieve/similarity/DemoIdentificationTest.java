@@ -115,6 +115,34 @@ class DemoIdentificationTest {
     }
 
     /**
+     * The thickness a hit names is the thickness the query was rescaled to: for every bulk demo sample rescaled
+     * by 1.6 (no noise), the sample itself, as a candidate, must best match at 1.6 times its thickness, within 2 %
+     * (the multiple reflections inside a slab bend absorbance from proportionality by at most 0.3 % at R = 0.04,
+     * ThicknessRescaler; the rest is rounding of the modelled files to six digits).
+     */
+    @Test
+    void aBulkSampleRescaledByAFactorReportsThatThicknessAsItsBestMatch() {
+        int checked = 0;
+        for (Entry e : demoLibrary()) {
+            if (!e.bulk()) {
+                continue;
+            }
+            double toMm = e.thicknessMm() * RESCALE_FACTOR;
+            Curve moved = ThicknessRescaler.rescale(e.curve(), e.thicknessMm(), toMm, e.material().index().toRefractiveIndex());
+            CurveSignature query = CurveSignature.of(moved, toMm, true);
+            SimilarCurves.Candidate itself = new SimilarCurves.Candidate(e.id(), CurveSignature.of(e.curve(), e.thicknessMm(), true));
+            SimilarHit hit = SimilarCurves.rank(query, List.of(itself), ShapeMetric.CORRELATION, 1).get(0);
+            if (hit.matchingThicknessMm().isEmpty()) {
+                continue; // a curve with no resolved shape in common (opaque or flat) names no thickness
+            }
+            assertThat(hit.matchingThicknessMm().getAsDouble()).as(e.id()).isCloseTo(toMm, org.assertj.core.api.Assertions.withinPercentage(2));
+            checked++;
+        }
+        System.out.printf("THICKNESS bulk samples whose best-match thickness was checked: %d%n", checked);
+        assertThat(checked).as("bulk samples with a thickness to check").isGreaterThan(20);
+    }
+
+    /**
      * Measured sheets (open data in ../shared, see its SOURCES.md §8; skipped when absent) should find demo
      * stock of the same kind among the three nearest materials: a clear acrylic sheet → an acrylic, a
      * polycarbonate sheet → a polycarbonate, a PET film → the polyester film. That a curve identifies the
