@@ -21,6 +21,7 @@ final class Comparison {
     private final double[] x = new double[CurveSignature.DIMENSION];
     private final double[] y = new double[CurveSignature.DIMENSION];
     private final int common;
+    private final int resolved;
 
     Comparison(CurveSignature query, CurveSignature candidate) {
         this.query = query;
@@ -29,8 +30,12 @@ final class Comparison {
         // brought there by Beer–Lambert (its A per mm times the query's thickness); a fixed one stays as measured
         double candidateScale = candidate.bulk() ? query.thicknessMm() : 1;
         int n = 0;
+        int both = 0;
         for (int i = 0; i < CurveSignature.DIMENSION; i++) {
             weight[i] = query.weight(i) * candidate.weight(i);
+            if (weight[i] == 1) {
+                both++;
+            }
             if (weight[i] > 0) {
                 x[i] = query.absorbance(i);
                 y[i] = candidate.bulk() ? candidate.shape(i) * candidateScale : candidate.absorbance(i);
@@ -38,12 +43,17 @@ final class Comparison {
             }
         }
         common = n;
+        resolved = both;
         centre(x);
         centre(y);
     }
 
     int commonPoints() {
         return common;
+    }
+
+    int resolvedPoints() {
+        return resolved;
     }
 
     private void centre(double[] v) {

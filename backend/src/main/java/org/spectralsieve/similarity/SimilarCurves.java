@@ -48,6 +48,7 @@ public final class SimilarCurves {
                 continue;
             }
             hits.add(new SimilarHit(c.id(), comparison.distance(metric), comparison.commonPoints(),
+                    comparison.resolvedPoints(),
                     comparison.bandDifferingMost(metric), comparison.matchingThicknessMm()));
         }
         hits.sort(Comparator.comparingDouble(SimilarHit::distance).thenComparing(SimilarHit::id));

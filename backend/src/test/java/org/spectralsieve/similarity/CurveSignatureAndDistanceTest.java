@@ -198,4 +198,20 @@ class CurveSignatureAndDistanceTest {
                 ShapeMetric.CORRELATION, 1).get(0);
         assertThat(hit.matchingThicknessMm()).isEmpty();
     }
+    @Test
+    void aHitSaysOnHowManyResolvedPointsItRests() {
+        // 4 mm of the edge: A = 4·EDGE_PER_MM exceeds the floor's A = 4 up to about 380 nm (1 − tanh(0) = 1 per mm),
+        // so the grid points from 200 to 380 nm are bounds and only those above are resolved in both
+        CurveSignature thick = CurveSignature.of(sheet(4), 4, true);
+        SimilarHit hit = SimilarCurves.rank(thick, List.of(new SimilarCurves.Candidate("same", thick)),
+                ShapeMetric.CORRELATION, 1).get(0);
+        assertThat(hit.pointsCompared()).isEqualTo(CurveSignature.DIMENSION);
+        int resolvedByHand = 0;
+        for (int i = 0; i < CurveSignature.DIMENSION; i++) {
+            if (4 * EDGE_PER_MM.applyAsDouble(CurveSignature.wavelengthNm(i)) < 4) {
+                resolvedByHand++;
+            }
+        }
+        assertThat(hit.resolvedPointsCompared()).isEqualTo(resolvedByHand).isBetween(60, 65);
+    }
 }
