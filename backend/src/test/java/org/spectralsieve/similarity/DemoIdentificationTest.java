@@ -102,7 +102,8 @@ class DemoIdentificationTest {
                 if (slugOf.get(first.id()).equals(e.slug())) {
                     found++;
                 } else {
-                    misses.add(e.id() + " → " + first.id());
+                    misses.add(e.id() + " → " + first.id() + " (" + first.resolvedPointsCompared() + " of "
+                            + first.pointsCompared() + " points resolved in both)");
                 }
             }
             double share = (double) found / library.size();
