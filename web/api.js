@@ -83,6 +83,22 @@ export function listMaterials({ text, materialClass } = {}) {
   return getJson(`${BASE}/materials${query({ q: text, class: materialClass })}`);
 }
 
+/**
+ * Words and facets over the library (docs/library-search.md): `{ total, hits, facets, generation }`.
+ * `facets` maps a dimension (class, geometry, provenance, thickness) to the values chosen; each value is
+ * sent as its own parameter, so values of one dimension are alternatives.
+ */
+export function searchLibrary({ text, facets = {}, limit } = {}) {
+  const search = new URLSearchParams();
+  if (text) search.set('q', text);
+  for (const [dimension, values] of Object.entries(facets)) {
+    for (const value of values || []) search.append(dimension, value);
+  }
+  if (limit) search.set('limit', limit);
+  const params = search.toString();
+  return getJson(`${BASE}/library${params ? `?${params}` : ''}`);
+}
+
 export function getMaterial(id) {
   return getJson(`${BASE}/materials/${encodeURIComponent(id)}`);
 }

@@ -6,17 +6,20 @@ import * as fmt from './format.js';
 import { drawCurves, followWidth } from './chart.js';
 import { initSearch } from './search.js';
 import { initFigures } from './figures.js';
+import { initFacets } from './facets.js';
 import { initCuration, renderMaterialRecord, renderRetiredSamples, sampleControls } from './curation.js';
 
 const SAMPLE_COLOURS = ['#1d6a86', '#8a5a2b', '#4d7a37', '#7a3e6e', '#3d4f9a', '#9c4545', '#3c7f7a', '#6b6b2a'];
 const RESCALED_COLOUR = '#c2700f';
 const FILTER_DELAY_MS = 250;
+// The most /api/library lists at once; a larger library shows the best ones and says how many match.
+const LIST_LIMIT = 200;
 
 const el = (id) => document.getElementById(id);
 const dom = {
   message: el('message'),
   filterText: el('filter-text'),
-  filterClass: el('filter-class'),
+  facets: el('facets'),
   count: el('material-count'),
   materialRows: el('material-table').tBodies[0],
   detail: el('material-detail'),
@@ -44,6 +47,7 @@ const state = {
   listRequest: 0,       // later answers win; an older answer arriving late is dropped
   detailRequest: 0,
   rescaleRequest: 0,
+  catalogue: null,      // Map id -> material (with samples) of the whole library, for the table's columns
   material: null,
   curves: [],           // measured curves of the shown material, in sample order
   rescaled: null,       // { curve, fromSample, thicknessMm } or null
@@ -87,20 +91,11 @@ function messageStartsWith(context) {
 }
 
 const figures = initFigures({ showProblem, clearMessage, messageStartsWith });
+const facets = initFacets(dom.facets, () => loadMaterials());
 
 // ---------- library table ----------
 
-function fillClassOptions(materials) {
-  const classes = [...new Set(materials.map((m) => m.materialClass).filter(Boolean))].sort();
-  for (const c of classes) {
-    const option = document.createElement('option');
-    option.value = c;
-    option.textContent = c;
-    dom.filterClass.append(option);
-  }
-}
-
-function renderMaterials(materials) {
+function renderMaterials(materials, total) {
   const rows = materials.map((m) => {
     const tr = document.createElement('tr');
     tr.dataset.materialId = m.id;
@@ -120,32 +115,41 @@ function renderMaterials(materials) {
   });
   dom.materialRows.replaceChildren(...rows);
   const n = materials.length;
-  dom.count.textContent = n === 1 ? '1 material' : `${n} materials`;
+  const count = total === 1 ? '1 material' : `${total} materials`;
+  dom.count.textContent = n < total ? `${count}, the best ${n} shown` : count;
   if (n === 0) {
     const tr = document.createElement('tr');
     const td = document.createElement('td');
     td.colSpan = 3;
     td.className = 'empty';
-    td.textContent = 'No material matches this filter.';
+    td.textContent = 'No material matches these words and ticks.';
     tr.append(td);
     dom.materialRows.append(tr);
   }
 }
 
-async function loadMaterials({ fillClasses = false } = {}) {
+/** The whole library with its samples: the table's thickness column and the figures' part pickers need it. */
+async function loadCatalogue() {
+  const materials = await api.listMaterials();
+  state.catalogue = new Map(materials.map((m) => [String(m.id), m]));
+  figures.offerParts(materials); // the whole library, before any words or ticks narrow the list
+}
+
+async function loadMaterials({ refresh = false } = {}) {
   const request = ++state.listRequest;
   dom.count.textContent = 'Loading…';
   try {
-    const materials = await api.listMaterials({
-      text: dom.filterText.value.trim(),
-      materialClass: dom.filterClass.value,
-    });
+    const [answer] = await Promise.all([
+      api.searchLibrary({ text: dom.filterText.value.trim(), facets: facets.chosen(), limit: LIST_LIMIT }),
+      refresh || !state.catalogue ? loadCatalogue() : null,
+    ]);
     if (request !== state.listRequest) return;
-    if (fillClasses) {
-      fillClassOptions(materials);
-      figures.offerParts(materials); // the whole library, before any filter narrows the list
-    }
-    renderMaterials(materials);
+    // The index follows the library's change counter; a hit newer than the catalogue means it moved.
+    if (answer.hits.some((h) => !state.catalogue.has(String(h.materialId)))) await loadCatalogue();
+    if (request !== state.listRequest) return;
+    const materials = answer.hits.map((h) => state.catalogue.get(String(h.materialId))).filter(Boolean);
+    facets.show(answer.facets);
+    renderMaterials(materials, answer.total);
   } catch (problem) {
     if (request !== state.listRequest) return;
     dom.count.textContent = 'The library could not be loaded.';
@@ -468,7 +472,6 @@ function materialIdFromHash() {
 
 function wire() {
   dom.filterText.addEventListener('input', scheduleFilter);
-  dom.filterClass.addEventListener('change', () => loadMaterials());
   dom.materialRows.addEventListener('click', (event) => {
     const row = event.target.closest('tr[data-material-id]');
     if (row) selectMaterial(row.dataset.materialId);
@@ -494,7 +497,7 @@ initCuration({
   showProblem,
   clearMessage,
   async reopen(id) {
-    await loadMaterials();
+    await loadMaterials({ refresh: true });
     await selectMaterial(id);
   },
 });
@@ -505,6 +508,6 @@ initSearch({
     selectMaterial(id, { ...rescaleTo, reveal: true });
   },
 });
-loadMaterials({ fillClasses: true });
+loadMaterials();
 const initial = materialIdFromHash();
 if (initial) selectMaterial(initial);

@@ -20,6 +20,8 @@ import org.openqa.selenium.StaleElementReferenceException;
 import org.openqa.selenium.TakesScreenshot;
 import org.openqa.selenium.WebDriver;
 import org.openqa.selenium.WebElement;
+import java.util.LinkedHashMap;
+import java.util.Map;
 import org.openqa.selenium.support.ui.Select;
 import org.openqa.selenium.support.ui.WebDriverWait;
 import org.springframework.boot.test.context.SpringBootTest;
@@ -28,7 +30,7 @@ import org.springframework.test.context.TestPropertySource;
 
 /**
  * The library page in a real headless Chromium against the whole application with its demo library:
- * list, filter, open a material, switch the axis to optical density, draw a rescaled curve.
+ * list, search by words, tick facet values, open a material, switch the axis to optical density, draw a rescaled curve.
  * Skipped (not failed) on machines without Chromium and its driver.
  */
 @SpringBootTest(webEnvironment = SpringBootTest.WebEnvironment.RANDOM_PORT)
@@ -78,17 +80,17 @@ class LibraryPageBrowserTest {
                 .contains("UV sources harm eyes and skin.");
         screenshot("1-library");
 
-        // Filtering by one class leaves fewer rows, all of that class.
-        Select classes = new Select(driver.findElement(By.id("filter-class")));
-        assertThat(classes.getOptions()).as("class drop-down filled from the data").hasSizeGreaterThan(2);
-        String chosenClass = classes.getOptions().get(1).getDomAttribute("value");
-        classes.selectByValue(chosenClass);
+        // Ticking one class leaves fewer rows, all of that class.
+        List<WebElement> classBoxes = facetBoxes("class");
+        assertThat(classBoxes).as("class group filled from the data").hasSizeGreaterThan(1);
+        String chosenClass = classBoxes.get(0).getDomAttribute("value");
+        classBoxes.get(0).click();
         int filtered = waitForRowCount(n -> n > 0 && n < all && allRowsHaveClass(chosenClass),
                 "fewer rows, all of class '" + chosenClass + "'");
         assertThat(filtered).isLessThan(all);
 
         // Back to the whole library, then open a bulk material (one that can be rescaled).
-        classes.selectByValue("");
+        facetBox("class", chosenClass).click();
         waitForRowCount(n -> n == all, "all " + all + " rows again");
         WebElement row = driver.findElement(By.cssSelector("#material-table tr[data-material-id][data-scaling='bulk']"));
         String materialName = row.findElement(By.cssSelector("td")).getText();
@@ -122,6 +124,43 @@ class LibraryPageBrowserTest {
     }
 
     @Test
+    void typedWordsNarrowTheListAndTickedValuesCountDrillSideways() throws IOException {
+        driver.get("http://localhost:" + port + "/");
+        int all = waitForRowCount(n -> n >= MIN_DEMO_MATERIALS, "at least " + MIN_DEMO_MATERIALS + " materials");
+
+        // A word still being typed finds what it begins (docs/library-search.md): acryl -> acrylic.
+        driver.findElement(By.id("filter-text")).sendKeys("acryl");
+        int hits = waitForRowCount(n -> n > 0 && n < all, "fewer rows for 'acryl'");
+        wait.until(d -> countLine().startsWith(hits + " material"));
+        assertThat(rows()).anyMatch(r -> r.findElement(By.cssSelector("td.name")).getText().toLowerCase().contains("acrylic"));
+
+        // Nothing ticked: each material has one class, so the class counts add up to the hits.
+        Map<String, Integer> classCounts = facetCounts("class");
+        assertThat(classCounts.values().stream().mapToInt(Integer::intValue).sum()).isEqualTo(hits);
+        assertThat(driver.findElement(By.cssSelector(".facet[data-dimension='class'] .facet-value")).getText())
+                .as("count shown beside the value").matches(".+ \\(\\d+\\)");
+        screenshot("6-words-acryl");
+
+        // Tick the class with the most hits: the list holds exactly its count, its own group keeps its
+        // counts (drill sideways), and no value of another group counts more than the list holds.
+        String biggest = classCounts.entrySet().stream().max(Map.Entry.comparingByValue()).orElseThrow().getKey();
+        int expected = classCounts.get(biggest);
+        facetBox("class", biggest).click();
+        waitForRowCount(n -> n == expected && allRowsHaveClass(biggest), expected + " rows of class '" + biggest + "'");
+        wait.until(d -> facetCounts("class").equals(classCounts));
+        for (String other : List.of("geometry", "provenance", "thickness")) {
+            assertThat(facetCounts(other).values()).as(other + " counts under the ticked class")
+                    .allMatch(count -> count <= expected);
+        }
+        assertThat(facetCounts("provenance").values()).as("some provenance counted").anyMatch(count -> count > 0);
+        assertThat(facetBox("class", biggest).isSelected()).isTrue();
+        screenshot("7-class-ticked");
+
+        WebElement message = driver.findElement(By.id("message"));
+        assertThat(message.isDisplayed()).as("error area stays hidden, but shows: %s", message.getText()).isFalse();
+    }
+
+    @Test
     void unknownMaterialShowsTheServersProblemDetailInTheMessageArea() throws IOException {
         driver.get("http://localhost:" + port + "/#material=987654321");
 
@@ -132,6 +171,29 @@ class LibraryPageBrowserTest {
         assertThat(message.getText()).contains("404").contains("987654321");
         assertThat(driver.findElement(By.id("material-detail")).isDisplayed()).isFalse();
         screenshot("5-unknown-material");
+    }
+
+    private List<WebElement> facetBoxes(String dimension) {
+        return driver.findElements(By.cssSelector(".facet[data-dimension='" + dimension + "'] input[type='checkbox']"));
+    }
+
+    private WebElement facetBox(String dimension, String value) {
+        return facetBoxes(dimension).stream().filter(b -> value.equals(b.getDomAttribute("value"))).findFirst()
+                .orElseThrow(() -> new AssertionError("no " + dimension + " box for '" + value + "'"));
+    }
+
+    /** Value -> the count shown beside it, as the user reads it: "plastic sheet (7)". */
+    private Map<String, Integer> facetCounts(String dimension) {
+        Map<String, Integer> counts = new LinkedHashMap<>();
+        for (WebElement label : driver.findElements(By.cssSelector(".facet[data-dimension='" + dimension + "'] .facet-value"))) {
+            String count = label.findElement(By.cssSelector(".facet-count")).getText();
+            counts.put(label.getDomAttribute("data-value"), Integer.parseInt(count.replaceAll("[()]", "")));
+        }
+        return counts;
+    }
+
+    private String countLine() {
+        return driver.findElement(By.id("material-count")).getText();
     }
 
     private int waitForRowCount(IntPredicate condition, String what) {

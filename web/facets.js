@@ -1,0 +1,82 @@
+// The library panel's facet groups: one fieldset of checkboxes per dimension of GET /api/library, each value
+// with its count. The server counts drill-sideways (docs/library-search.md), so ticking a value leaves the
+// other values of its own group with their counts and narrows the other groups; the page only shows them.
+
+/** Bands in the order a workshop shelves stock, not by count, so the list does not jump as counts change. */
+const THICKNESS_ORDER = ['under 1 mm', '1-3 mm', '3-6 mm', '6 mm and over'];
+
+export const DIMENSIONS = ['class', 'geometry', 'provenance', 'thickness'];
+
+/**
+ * @param {HTMLElement} root the element holding one `fieldset.facet[data-dimension]` per dimension
+ * @param {() => void} onChange called when a box is ticked or cleared
+ */
+export function initFacets(root, onChange) {
+  // Every value seen since the page opened, per dimension, in first-seen order: a value the current
+  // words leave no material for stays in place with "(0)" instead of vanishing under the pointer.
+  const known = Object.fromEntries(DIMENSIONS.map((d) => [d, []]));
+  const groups = Object.fromEntries(DIMENSIONS.map((d) => [d, root.querySelector(`fieldset[data-dimension="${d}"]`)]));
+
+  root.addEventListener('change', (event) => {
+    if (event.target.matches('input[type="checkbox"]')) onChange();
+  });
+
+  /** The ticked values, as { class: [...], geometry: [...], ... }. */
+  function chosen() {
+    return Object.fromEntries(DIMENSIONS.map((d) => [d,
+      [...groups[d].querySelectorAll('input:checked')].map((box) => box.value)]));
+  }
+
+  /** Shows the counts of one answer's `facets`; ticked boxes stay ticked. */
+  function show(facets) {
+    const picked = chosen();
+    for (const d of DIMENSIONS) {
+      const counts = new Map((facets?.[d] || []).map((f) => [f.value, f.count]));
+      for (const value of counts.keys()) if (!known[d].includes(value)) known[d].push(value);
+      if (d === 'thickness') known[d].sort((a, b) => rank(a) - rank(b));
+      renderGroup(d, counts, new Set(picked[d]));
+    }
+  }
+
+  function renderGroup(dimension, counts, picked) {
+    const list = groups[dimension].querySelector('.facet-values');
+    const focused = document.activeElement?.closest?.('.facet-values') === list ? document.activeElement.value : null;
+    const items = known[dimension].map((value) => {
+      const count = counts.get(value) ?? 0;
+      const label = document.createElement('label');
+      label.className = 'facet-value';
+      label.dataset.value = value;
+      const box = document.createElement('input');
+      box.type = 'checkbox';
+      box.name = dimension;
+      box.value = value;
+      box.checked = picked.has(value);
+      // A value nothing would match cannot narrow anything; it stays ticked-able only if ticked already.
+      box.disabled = count === 0 && !box.checked;
+      const name = document.createElement('span');
+      name.textContent = value;
+      const number = document.createElement('span');
+      number.className = 'facet-count';
+      number.textContent = `(${count})`;
+      label.append(box, ' ', name, ' ', number);
+      if (count === 0) label.classList.add('empty');
+      return label;
+    });
+    if (!items.length) {
+      const none = document.createElement('span');
+      none.className = 'facet-none';
+      none.textContent = 'none in the library';
+      items.push(none);
+    }
+    list.replaceChildren(...items);
+    // Re-rendering replaces the boxes; keep the keyboard where the user was.
+    if (focused !== null) list.querySelector(`input[value="${CSS.escape(focused)}"]`)?.focus();
+  }
+
+  return { chosen, show };
+}
+
+function rank(band) {
+  const i = THICKNESS_ORDER.indexOf(band);
+  return i < 0 ? THICKNESS_ORDER.length : i;
+}
