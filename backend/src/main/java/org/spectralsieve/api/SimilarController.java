@@ -1,7 +1,6 @@
 package org.spectralsieve.api;
 
 import java.util.List;
-import java.util.Locale;
 import org.spectralsieve.search.SimilarSamples;
 import org.spectralsieve.similarity.ShapeMetric;
 import org.spectralsieve.similarity.SimilarHit;
@@ -20,7 +19,7 @@ class SimilarController {
         this.similar = similar;
     }
 
-    /** @param metric {@link #METRIC_NAMES}; the sample itself is never among its hits */
+    /** @param metric {@link SimilarSamples#METRIC_NAMES}; the sample itself is never among its hits */
     @GetMapping("/api/samples/{id}/similar")
     SimilarResponse similar(@PathVariable("id") long id,
                             @RequestParam(name = "limit", required = false) String limit,
@@ -28,7 +27,7 @@ class SimilarController {
         ShapeMetric chosen = metric(metric);
         int n = limit(limit);
         List<HitJson> hits = similar.similarTo(id, chosen, n).stream().map(SimilarController::json).toList();
-        return new SimilarResponse(id, metricName(chosen), hits);
+        return new SimilarResponse(id, SimilarSamples.metricName(chosen), hits);
     }
 
     record SimilarResponse(long sampleId, String metric, List<HitJson> hits) {
@@ -42,24 +41,12 @@ class SimilarController {
     record BandJson(double fromNm, double toNm) {
     }
 
-    static final List<String> METRIC_NAMES = List.of("correlation", "centred-euclidean");
-
-    /** The metric's name in the API and on the command line. */
-    static String metricName(ShapeMetric metric) {
-        return metric.name().toLowerCase(Locale.ROOT).replace('_', '-');
-    }
-
-    static ShapeMetric metric(String name) {
+    private static ShapeMetric metric(String name) {
         if (name == null) {
             return SimilarSamples.DEFAULT_METRIC;
         }
-        for (ShapeMetric m : ShapeMetric.values()) {
-            if (metricName(m).equals(name.trim().toLowerCase(Locale.ROOT))) {
-                return m;
-            }
-        }
-        throw new BadParameterException("metric", "must be one of " + String.join(", ", METRIC_NAMES) + ", got '"
-                + name + "'");
+        return SimilarSamples.metricNamed(name).orElseThrow(() -> new BadParameterException("metric",
+                "must be one of " + String.join(", ", SimilarSamples.METRIC_NAMES) + ", got '" + name + "'"));
     }
 
     private static int limit(String text) {

@@ -35,6 +35,10 @@ public final class SimilarSamples {
      */
     public static final ShapeMetric DEFAULT_METRIC = ShapeMetric.CENTRED_EUCLIDEAN;
 
+    /** The metrics' names in the API and on the command line, {@link ShapeMetric} order. */
+    public static final List<String> METRIC_NAMES = java.util.Arrays.stream(ShapeMetric.values())
+            .map(SimilarSamples::metricName).toList();
+
     private final SearchService search;
     private final JooqLibraryRepository library;
     private final AtomicReference<Signed> signed = new AtomicReference<>();
@@ -42,6 +46,17 @@ public final class SimilarSamples {
     public SimilarSamples(SearchService search, JooqLibraryRepository library) {
         this.search = search;
         this.library = library;
+    }
+
+    /** "correlation", "centred-euclidean". */
+    public static String metricName(ShapeMetric metric) {
+        return metric.name().toLowerCase(java.util.Locale.ROOT).replace('_', '-');
+    }
+
+    /** The metric of that name (case and surrounding blanks ignored), or empty. */
+    public static java.util.Optional<ShapeMetric> metricNamed(String name) {
+        String wanted = name.trim().toLowerCase(java.util.Locale.ROOT);
+        return java.util.Arrays.stream(ShapeMetric.values()).filter(m -> metricName(m).equals(wanted)).findFirst();
     }
 
     /** One hit with what names it: the sample's material and thickness. */
