@@ -92,6 +92,27 @@ class SimilarCurvesApiTest {
         assertThat(sawFixed).as("a fixed construction among the 50 nearest").isTrue();
     }
 
+    /** Another two-thickness bulk stock (4 and 6 mm, invented, illustrative), retired from in this test only. */
+    @Test
+    void aRetiredSampleIsNoLongerAHitButCanStillBeAskedAbout() throws Exception {
+        JsonNode material = material("low-iron-float-glass");
+        long thin = sampleAt(material, 4);
+        long thick = sampleAt(material, 6);
+        assertThat(getJson("/api/samples/" + thin + "/similar", 200).path("hits").get(0).path("sampleId").asLong())
+                .isEqualTo(thick); // Beer–Lambert, as above
+
+        HttpResponse<String> retired = HTTP.send(HttpRequest.newBuilder(URI.create("http://localhost:" + port
+                + "/api/samples/" + thick + "/retire")).header("Content-Type", "application/json")
+                .POST(HttpRequest.BodyPublishers.ofString("")).build(), HttpResponse.BodyHandlers.ofString());
+        assertThat(retired.statusCode()).as(retired.body()).isEqualTo(200);
+
+        for (JsonNode hit : getJson("/api/samples/" + thin + "/similar?limit=50", 200).path("hits")) {
+            assertThat(hit.path("sampleId").asLong()).isNotEqualTo(thick);
+        }
+        JsonNode fromRetired = getJson("/api/samples/" + thick + "/similar", 200);
+        assertThat(fromRetired.path("hits").get(0).path("sampleId").asLong()).isEqualTo(thin);
+    }
+
     @Test
     void anUnknownSampleIsNotFoundAndABadParameterIsNamed() throws Exception {
         long query = sampleAt(material(TWO_THICKNESS_STOCK), 4);
