@@ -11,4 +11,9 @@ class SearchConfiguration {
     SearchService searchService(JooqLibraryRepository library) {
         return new SearchService(library);
     }
+
+    @Bean
+    SimilarSamples similarSamples(SearchService searchService, JooqLibraryRepository library) {
+        return new SimilarSamples(searchService, library);
+    }
 }

@@ -445,6 +445,14 @@ public class SearchService {
     }
 
     /**
+     * The current store (rebuilt first when the library changed): every curve in use, for searches that read
+     * all of them, such as {@link SimilarSamples}.
+     */
+    public SpectralStore store() {
+        return current().store();
+    }
+
+    /**
      * Marks the derived store stale; the next search rebuilds it from the database. Every write path raises
      * the database's change counter ({@link LibraryGeneration#bump}), which the next search notices anyway;
      * this is the in-process signal for a write that does not (yet) raise it.

@@ -1,0 +1,130 @@
+package org.spectralsieve.search;
+
+import java.util.ArrayList;
+import java.util.HashMap;
+import java.util.List;
+import java.util.Map;
+import java.util.concurrent.atomic.AtomicReference;
+import org.spectralsieve.library.JooqLibraryRepository;
+import org.spectralsieve.library.Material;
+import org.spectralsieve.library.NotFoundException;
+import org.spectralsieve.library.SampleInfo;
+import org.spectralsieve.library.SampleRescaling;
+import org.spectralsieve.similarity.CurveSignature;
+import org.spectralsieve.similarity.ShapeMetric;
+import org.spectralsieve.similarity.SimilarCurves;
+import org.spectralsieve.similarity.SimilarHit;
+import org.spectralsieve.spectrum.Curve;
+import org.spectralsieve.store.SpectralStore;
+import org.spectralsieve.store.StoredMaterial;
+
+/**
+ * The stored samples whose curves look most like one sample's, ranked exactly by brute force
+ * ({@link SimilarCurves}) over every curve in use (docs/similar-curves.md). The candidates are the search
+ * store's curves — the library as {@link SearchService} last read it, retired samples and materials excluded —
+ * and their signatures are computed once per store, not per request.
+ */
+public final class SimilarSamples {
+
+    public static final int DEFAULT_LIMIT = 10;
+    /** A ranking is read by a person: 50 rows are already more than one compares by eye. */
+    public static final int MAX_LIMIT = 50;
+    /**
+     * Centred Euclidean: a stored sample's thickness is known, and this metric also uses the magnitude, so it
+     * tells a paler stock of the same shape apart (86 of 88 against 85 of 88 in the identification test).
+     */
+    public static final ShapeMetric DEFAULT_METRIC = ShapeMetric.CENTRED_EUCLIDEAN;
+
+    /** The metrics' names in the API and on the command line, {@link ShapeMetric} order. */
+    public static final List<String> METRIC_NAMES = java.util.Arrays.stream(ShapeMetric.values())
+            .map(SimilarSamples::metricName).toList();
+
+    private final SearchService search;
+    private final JooqLibraryRepository library;
+    private final AtomicReference<Signed> signed = new AtomicReference<>();
+
+    public SimilarSamples(SearchService search, JooqLibraryRepository library) {
+        this.search = search;
+        this.library = library;
+    }
+
+    /** "correlation", "centred-euclidean". */
+    public static String metricName(ShapeMetric metric) {
+        return metric.name().toLowerCase(java.util.Locale.ROOT).replace('_', '-');
+    }
+
+    /** The metric of that name (case and surrounding blanks ignored), or empty. */
+    public static java.util.Optional<ShapeMetric> metricNamed(String name) {
+        String wanted = name.trim().toLowerCase(java.util.Locale.ROOT);
+        return java.util.Arrays.stream(ShapeMetric.values()).filter(m -> metricName(m).equals(wanted)).findFirst();
+    }
+
+    /** One hit with what names it: the sample's material and thickness. */
+    public record Hit(long materialId, String materialName, String materialClass, long sampleId, double thicknessMm,
+                      SimilarHit similarity) {
+    }
+
+    /** A store's curves as similarity candidates, by sample id. */
+    private record Signed(SpectralStore store, Map<Long, Integer> curveOfSample, List<SimilarCurves.Candidate> candidates) {
+    }
+
+    /**
+     * The {@code limit} samples nearest to sample {@code sampleId} by {@code metric}, nearest first; the
+     * sample itself is left out, the other samples of its material are not.
+     *
+     * @throws NotFoundException when no sample has that id
+     */
+    public List<Hit> similarTo(long sampleId, ShapeMetric metric, int limit) {
+        if (limit < 1 || limit > MAX_LIMIT) {
+            throw new IllegalArgumentException("limit must lie in [1, " + MAX_LIMIT + "], was " + limit);
+        }
+        Signed s = signed();
+        CurveSignature query = query(s, sampleId);
+        String own = String.valueOf(sampleId);
+        List<SimilarCurves.Candidate> others = s.candidates().stream().filter(c -> !c.id().equals(own)).toList();
+        List<Hit> hits = new ArrayList<>();
+        for (SimilarHit hit : SimilarCurves.rank(query, others, metric, limit)) {
+            int curve = s.curveOfSample().get(Long.parseLong(hit.id()));
+            StoredMaterial m = s.store().material(curve);
+            // the store keeps a float: read back through its shortest decimal, 0.1 mm stays 0.1
+            double mm = Double.parseDouble(Float.toString((float) s.store().thicknessMm(curve)));
+            hits.add(new Hit(m.id(), m.name(), m.materialClass(), s.store().sampleId(curve), mm, hit));
+        }
+        return hits;
+    }
+
+    /**
+     * The query's signature: from the store when the sample is in use, else (a retired sample, asked for by
+     * id as everything retired is) from its stored curve.
+     */
+    private CurveSignature query(Signed s, long sampleId) {
+        Integer curve = s.curveOfSample().get(sampleId);
+        if (curve != null) {
+            return s.candidates().get(curve).signature();
+        }
+        SampleInfo sample = library.findSample(sampleId).orElseThrow(() -> new NotFoundException("sample", sampleId));
+        Material material = library.findMaterial(sample.materialId())
+                .orElseThrow(() -> new NotFoundException("sample", sampleId));
+        Curve stored = library.findCurve(sampleId).orElseThrow(() -> new NotFoundException("sample", sampleId));
+        return CurveSignature.of(stored, sample.thicknessMm(), SampleRescaling.of(material, sample).rescalable());
+    }
+
+    /** The signatures of the current store, computed again only when the store was rebuilt. */
+    private Signed signed() {
+        SpectralStore store = search.store();
+        Signed s = signed.get();
+        if (s != null && s.store() == store) {
+            return s;
+        }
+        Map<Long, Integer> curveOfSample = new HashMap<>();
+        List<SimilarCurves.Candidate> candidates = new ArrayList<>(store.size());
+        for (int curve = 0; curve < store.size(); curve++) {
+            curveOfSample.put(store.sampleId(curve), curve);
+            candidates.add(new SimilarCurves.Candidate(String.valueOf(store.sampleId(curve)),
+                    CurveSignature.of(store.curve(curve), store.thicknessMm(curve), store.isBulk(curve))));
+        }
+        Signed built = new Signed(store, Map.copyOf(curveOfSample), List.copyOf(candidates));
+        signed.set(built);
+        return built;
+    }
+}
