@@ -187,24 +187,14 @@ public class JooqLibraryRepository {
         }
         return db.transactionResult(tx -> {
             DSLContext t = tx.dsl();
-            long materialId;
-            String slug;
+            Target target = target(t, existingMaterialId, newMaterial);
+            long materialId = target.materialId();
+            String slug = target.slug();
             if (existingMaterialId != null) {
-                materialId = existingMaterialId;
-                Record target = t.select(MATERIAL.SLUG, MATERIAL.RETIRED_AT).from(MATERIAL).where(MATERIAL.ID.eq(materialId))
-                        .fetchOptional().orElseThrow(() -> new NotFoundException("material", existingMaterialId));
-                if (target.get(MATERIAL.RETIRED_AT) != null) {
-                    throw new RetiredException("material", materialId, target.get(MATERIAL.RETIRED_AT).toInstant());
-                }
-                slug = target.get(MATERIAL.SLUG);
                 Optional<Long> same = findDuplicate(t, materialId, sample.sourceSha256(), sample.thicknessMm());
                 if (same.isPresent()) {
                     return new StoredImport(materialId, slug, same.get(), true, false);
                 }
-            } else {
-                NewMaterial unique = withUniqueSlug(t, newMaterial);
-                materialId = insertMaterialRow(t, unique);
-                slug = unique.slug();
             }
             long sampleId = insertSampleRows(t, materialId, sample);
             insertSourceFile(t, sampleId, file);
@@ -239,21 +229,9 @@ public class JooqLibraryRepository {
         }
         return db.transactionResult(tx -> {
             DSLContext t = tx.dsl();
-            long materialId;
-            String slug;
-            if (existingMaterialId != null) {
-                materialId = existingMaterialId;
-                Record target = t.select(MATERIAL.SLUG, MATERIAL.RETIRED_AT).from(MATERIAL).where(MATERIAL.ID.eq(materialId))
-                        .fetchOptional().orElseThrow(() -> new NotFoundException("material", existingMaterialId));
-                if (target.get(MATERIAL.RETIRED_AT) != null) {
-                    throw new RetiredException("material", materialId, target.get(MATERIAL.RETIRED_AT).toInstant());
-                }
-                slug = target.get(MATERIAL.SLUG);
-            } else {
-                NewMaterial unique = withUniqueSlug(t, newMaterial);
-                materialId = insertMaterialRow(t, unique);
-                slug = unique.slug();
-            }
+            Target target = target(t, existingMaterialId, newMaterial);
+            long materialId = target.materialId();
+            String slug = target.slug();
             // duplicates are matched against what was stored before this import, not against its own blocks
             List<Optional<Long>> before = new ArrayList<>();
             for (NewSample sample : samples) {
@@ -311,6 +289,23 @@ public class JooqLibraryRepository {
     public Optional<SourceFile> findSourceFile(long sampleId) {
         return db.selectFrom(SOURCE_FILE).where(SOURCE_FILE.SAMPLE_ID.eq(sampleId)).fetchOptional()
                 .map(r -> new SourceFile(r.getFileName(), r.getMediaType(), r.getFormat(), r.getBytes(), r.getSha256()));
+    }
+
+    /** The material an import stores under: an existing one (not retired), or the new one, inserted. */
+    private record Target(long materialId, String slug) {
+    }
+
+    private static Target target(DSLContext t, Long existingMaterialId, NewMaterial newMaterial) {
+        if (existingMaterialId == null) {
+            NewMaterial unique = withUniqueSlug(t, newMaterial);
+            return new Target(insertMaterialRow(t, unique), unique.slug());
+        }
+        Record row = t.select(MATERIAL.SLUG, MATERIAL.RETIRED_AT).from(MATERIAL).where(MATERIAL.ID.eq(existingMaterialId))
+                .fetchOptional().orElseThrow(() -> new NotFoundException("material", existingMaterialId));
+        if (row.get(MATERIAL.RETIRED_AT) != null) {
+            throw new RetiredException("material", existingMaterialId, row.get(MATERIAL.RETIRED_AT).toInstant());
+        }
+        return new Target(existingMaterialId, row.get(MATERIAL.SLUG));
     }
 
     private static NewMaterial withUniqueSlug(DSLContext t, NewMaterial m) {
