@@ -1,7 +1,10 @@
 package org.spectralsieve.api;
 
 import java.util.List;
+import java.util.Optional;
 import org.spectralsieve.search.SimilarSamples;
+import org.spectralsieve.similarity.ComparedBand;
+import org.spectralsieve.similarity.QueryQuality;
 import org.spectralsieve.similarity.ShapeMetric;
 import org.spectralsieve.similarity.SimilarHit;
 import org.springframework.web.bind.annotation.GetMapping;
@@ -19,18 +22,26 @@ class SimilarController {
         this.similar = similar;
     }
 
-    /** @param metric {@link SimilarSamples#METRIC_NAMES}; the sample itself is never among its hits */
+    /**
+     * @param metric {@link SimilarSamples#METRIC_NAMES}; the sample itself is never among its hits
+     * @param band   {@code FROM-TO} nm: compare only the grid points inside it (default the whole grid)
+     */
     @GetMapping("/api/samples/{id}/similar")
     SimilarResponse similar(@PathVariable("id") long id,
                             @RequestParam(name = "limit", required = false) String limit,
-                            @RequestParam(name = "metric", required = false) String metric) {
+                            @RequestParam(name = "metric", required = false) String metric,
+                            @RequestParam(name = "band", required = false) String band) {
         ShapeMetric chosen = metric(metric);
         int n = limit(limit);
-        List<HitJson> hits = similar.similarTo(id, chosen, n).stream().map(SimilarController::json).toList();
-        return new SimilarResponse(id, SimilarSamples.metricName(chosen), hits);
+        Optional<ComparedBand> asked = band(band);
+        ComparedBand compared = asked.orElse(ComparedBand.WHOLE_GRID);
+        List<HitJson> hits = similar.similarTo(id, chosen, compared, n).stream().map(SimilarController::json).toList();
+        List<String> warnings = QueryQuality.of(similar.signatureOf(id), compared).warnings();
+        return new SimilarResponse(id, SimilarSamples.metricName(chosen), BandJson.of(asked), warnings, hits);
     }
 
-    record SimilarResponse(long sampleId, String metric, List<HitJson> hits) {
+    /** @param band the compared band, null for the whole grid; @param warnings about the query (QueryQuality) */
+    record SimilarResponse(long sampleId, String metric, BandJson band, List<String> warnings, List<HitJson> hits) {
     }
 
     record HitJson(long materialId, String materialName, String materialClass, long sampleId, double thicknessMm,
@@ -39,9 +50,24 @@ class SimilarController {
     }
 
     record BandJson(double fromNm, double toNm) {
+        static BandJson of(Optional<ComparedBand> band) {
+            return band.map(b -> new BandJson(b.fromNm(), b.toNm())).orElse(null);
+        }
     }
 
-    private static ShapeMetric metric(String name) {
+    /** {@code FROM-TO} in nm inside the grid, or empty when not given (the whole grid). */
+    static Optional<ComparedBand> band(String text) {
+        if (text == null || text.isBlank()) {
+            return Optional.empty();
+        }
+        try {
+            return Optional.of(ComparedBand.parse(text));
+        } catch (IllegalArgumentException e) {
+            throw new BadParameterException("band", e.getMessage());
+        }
+    }
+
+    static ShapeMetric metric(String name) {
         if (name == null) {
             return SimilarSamples.DEFAULT_METRIC;
         }
@@ -49,7 +75,7 @@ class SimilarController {
                 "must be one of " + String.join(", ", SimilarSamples.METRIC_NAMES) + ", got '" + name + "'"));
     }
 
-    private static int limit(String text) {
+    static int limit(String text) {
         if (text == null) {
             return SimilarSamples.DEFAULT_LIMIT;
         }
@@ -65,7 +91,7 @@ class SimilarController {
                 + ", got '" + text + "'");
     }
 
-    private static HitJson json(SimilarSamples.Hit h) {
+    static HitJson json(SimilarSamples.Hit h) {
         SimilarHit s = h.similarity();
         return new HitJson(h.materialId(), h.materialName(), h.materialClass(), h.sampleId(), h.thicknessMm(),
                 s.distance(), s.pointsCompared(), s.resolvedPointsCompared(),

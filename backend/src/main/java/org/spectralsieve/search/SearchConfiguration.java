@@ -16,4 +16,9 @@ class SearchConfiguration {
     SimilarSamples similarSamples(SearchService searchService, JooqLibraryRepository library) {
         return new SimilarSamples(searchService, library);
     }
+
+    @Bean
+    SimilarQuestions similarQuestions(SimilarSamples similarSamples, SearchService searchService) {
+        return new SimilarQuestions(similarSamples, searchService);
+    }
 }

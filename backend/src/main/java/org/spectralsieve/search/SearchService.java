@@ -384,6 +384,37 @@ public class SearchService {
     }
 
     /**
+     * Each named material's row as {@link #search} would show it — its admitted samples judged exactly
+     * ({@link MaterialJudge}, at the requirement's thickness, behind its layer), the best kept by
+     * {@link Ranking} — for questions that judge a chosen few materials (similar curves filtered by a
+     * requirement, docs/similar-curves.md). A material with no admitted sample has no row; an unknown id is
+     * skipped.
+     *
+     * @throws LayerResolutionException when the requirement's layer names no single library sample
+     */
+    public Map<Long, SampleEvaluationRow> judgeMaterials(Requirement requirement, java.util.Collection<Long> materialIds) {
+        Snapshot s = current();
+        Optional<StackLayer> layer = requirement.layer().map(l -> resolveLayer(l, s));
+        boolean diffuseLayer = layer.map(l -> s.samples().get(l.sampleId()).geometry() == Geometry.TOTAL).orElse(false);
+        List<MaterialEvaluation> exact = new ArrayList<>();
+        for (long id : new LinkedHashSet<>(materialIds)) {
+            Material material = s.materials().get(id);
+            if (material != null) {
+                exact.addAll(judge(material, requirement, layer, diffuseLayer));
+            }
+        }
+        Map<Long, SampleEvaluationRow> out = new LinkedHashMap<>();
+        for (RankedRow row : Ranking.rank(exact, exact.size())) {
+            out.put(row.materialId(), new SampleEvaluationRow(row.materialId(), row.evaluation()));
+        }
+        return out;
+    }
+
+    /** One material's row: the sample that speaks for it and its evaluation. */
+    public record SampleEvaluationRow(long materialId, org.spectralsieve.requirement.SampleEvaluation evaluation) {
+    }
+
+    /**
      * A fixed layer resolved against the current library exactly as a requirement's layer is (same matching
      * rule, same sample choice, rescaled the same way), for figures of a sample seen through that part.
      *

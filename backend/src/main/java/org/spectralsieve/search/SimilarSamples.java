@@ -10,6 +10,7 @@ import org.spectralsieve.library.Material;
 import org.spectralsieve.library.NotFoundException;
 import org.spectralsieve.library.SampleInfo;
 import org.spectralsieve.library.SampleRescaling;
+import org.spectralsieve.similarity.ComparedBand;
 import org.spectralsieve.similarity.CurveSignature;
 import org.spectralsieve.similarity.ShapeMetric;
 import org.spectralsieve.similarity.SimilarCurves;
@@ -91,6 +92,58 @@ public final class SimilarSamples {
             hits.add(new Hit(m.id(), m.name(), m.materialClass(), s.store().sampleId(curve), mm, hit));
         }
         return hits;
+    }
+
+    /**
+     * As {@link #similarTo(long, ShapeMetric, int)}, compared only over the grid points inside {@code band}.
+     *
+     * @throws NotFoundException when no sample has that id
+     */
+    public List<Hit> similarTo(long sampleId, ShapeMetric metric, ComparedBand band, int limit) {
+        return similarTo(signatureOf(sampleId), java.util.OptionalLong.of(sampleId), metric, band, limit);
+    }
+
+    /**
+     * The {@code limit} stored samples nearest to {@code query} over {@code band}, nearest first, ranked
+     * exactly over every curve in use; {@code leaveOut} (a stored query's own sample) is never a hit. The
+     * query may be any curve — a stored sample's or an unsaved file's.
+     */
+    public List<Hit> similarTo(CurveSignature query, java.util.OptionalLong leaveOut, ShapeMetric metric,
+                               ComparedBand band, int limit) {
+        if (limit < 1) {
+            throw new IllegalArgumentException("limit must be at least 1, was " + limit);
+        }
+        Signed s = signed();
+        String own = leaveOut.isPresent() ? String.valueOf(leaveOut.getAsLong()) : null;
+        List<SimilarCurves.Candidate> others = own == null ? s.candidates()
+                : s.candidates().stream().filter(c -> !c.id().equals(own)).toList();
+        return named(s, SimilarCurves.rank(query, others, metric, band, limit));
+    }
+
+    /** The signature a stored sample is asked about with (see {@link #query}). */
+    public CurveSignature signatureOf(long sampleId) {
+        return query(signed(), sampleId);
+    }
+
+    /** The material a sample belongs to, retired or not. */
+    public long materialOf(long sampleId) {
+        Signed s = signed();
+        Integer curve = s.curveOfSample().get(sampleId);
+        if (curve != null) {
+            return s.store().material(curve).id();
+        }
+        return library.findSample(sampleId).orElseThrow(() -> new NotFoundException("sample", sampleId)).materialId();
+    }
+
+    private static List<Hit> named(Signed s, List<SimilarHit> ranked) {
+        List<Hit> hits = new ArrayList<>(ranked.size());
+        for (SimilarHit hit : ranked) {
+            int curve = s.curveOfSample().get(Long.parseLong(hit.id()));
+            StoredMaterial m = s.store().material(curve);
+            double mm = Double.parseDouble(Float.toString((float) s.store().thicknessMm(curve)));
+            hits.add(new Hit(m.id(), m.name(), m.materialClass(), s.store().sampleId(curve), mm, hit));
+        }
+        return List.copyOf(hits);
     }
 
     /**

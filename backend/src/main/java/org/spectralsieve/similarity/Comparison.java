@@ -22,17 +22,24 @@ final class Comparison {
     private final double[] y = new double[CurveSignature.DIMENSION];
     private final int common;
     private final int resolved;
+    private final ComparedBand band;
 
     Comparison(CurveSignature query, CurveSignature candidate) {
+        this(query, candidate, ComparedBand.WHOLE_GRID);
+    }
+
+    /** Compared only over the grid points inside {@code band}: every other point weighs 0, as a missing one does. */
+    Comparison(CurveSignature query, CurveSignature candidate, ComparedBand band) {
         this.query = query;
         this.candidate = candidate;
+        this.band = band;
         // one unit for every candidate of a ranking: absorbance at the query's thickness. A bulk candidate is
         // brought there by Beer–Lambert (its A per mm times the query's thickness); a fixed one stays as measured
         double candidateScale = candidate.bulk() ? query.thicknessMm() : 1;
         int n = 0;
         int both = 0;
         for (int i = 0; i < CurveSignature.DIMENSION; i++) {
-            weight[i] = query.weight(i) * candidate.weight(i);
+            weight[i] = band.holds(i) ? query.weight(i) * candidate.weight(i) : 0;
             if (weight[i] == 1) {
                 both++;
             }
@@ -107,13 +114,19 @@ final class Comparison {
         return variance <= FLAT ? 0 : 1 / Math.sqrt(variance);
     }
 
-    /** The window of {@link SimilarCurves#BAND_POINTS} grid points with the largest weighted squared difference. */
+    /**
+     * The window of {@link SimilarCurves#BAND_POINTS} grid points with the largest weighted squared difference,
+     * inside the compared band (a band holds at least {@link SimilarCurves#MIN_COMMON_POINTS} points, more than a window).
+     */
     SimilarHit.Band bandDifferingMost(ShapeMetric metric) {
         double[] r = residuals(metric);
         int width = SimilarCurves.BAND_POINTS;
-        int best = 0;
+        int best = -1;
         double bestScore = -1;
         for (int start = 0; start + width <= r.length; start++) {
+            if (!band.holds(start) || !band.holds(start + width - 1)) {
+                continue;
+            }
             double score = 0;
             for (int i = start; i < start + width; i++) {
                 score += weight[i] * r[i];
@@ -122,6 +135,9 @@ final class Comparison {
                 bestScore = score;
                 best = start;
             }
+        }
+        if (best < 0) {
+            throw new IllegalStateException("the band " + band + " holds no window of " + width + " grid points");
         }
         double half = CurveSignature.STEP_NM / 2;
         return new SimilarHit.Band(CurveSignature.wavelengthNm(best) - half,
@@ -132,8 +148,8 @@ final class Comparison {
      * The thickness at which a bulk candidate best matches the query: the slope s of the query's absorbance on
      * the candidate's, fitted with an offset (the surface loss does not scale with thickness), times the
      * candidate's thickness — Beer–Lambert makes the internal absorbance proportional to the thickness. Only
-     * points resolved in both curves enter: a bound is no value to fit. Empty when the candidate's absorbance
-     * is flatter than {@link #MIN_SPREAD} there.
+     * points resolved in both curves (and inside the compared band) enter: a bound is no value to fit. Empty
+     * when the candidate's absorbance is flatter than {@link #MIN_SPREAD} there.
      */
     OptionalDouble matchingThicknessMm() {
         if (!candidate.bulk()) {
@@ -144,7 +160,7 @@ final class Comparison {
         double sc = 0;
         int n = 0;
         for (int i = 0; i < CurveSignature.DIMENSION; i++) {
-            if (query.weight(i) == 1 && candidate.weight(i) == 1) {
+            if (weight[i] == 1) {
                 sw++;
                 sq += query.absorbance(i);
                 sc += candidate.absorbance(i);
@@ -159,7 +175,7 @@ final class Comparison {
         double cov = 0;
         double var = 0;
         for (int i = 0; i < CurveSignature.DIMENSION; i++) {
-            if (query.weight(i) == 1 && candidate.weight(i) == 1) {
+            if (weight[i] == 1) {
                 double dc = candidate.absorbance(i) - mc;
                 cov += (query.absorbance(i) - mq) * dc;
                 var += dc * dc;

@@ -35,7 +35,17 @@ public final class SimilarCurves {
     /** The {@code limit} nearest candidates, nearest first (ties by id, so the answer is repeatable). */
     public static List<SimilarHit> rank(CurveSignature query, Collection<Candidate> candidates, ShapeMetric metric,
             int limit) {
-        if (query == null || candidates == null || metric == null) {
+        return rank(query, candidates, metric, ComparedBand.WHOLE_GRID, limit);
+    }
+
+    /**
+     * The {@code limit} nearest candidates compared only over the grid points inside {@code band}, nearest
+     * first (ties by id): a candidate sharing fewer than {@link #MIN_COMMON_POINTS} points with the query
+     * there is left out.
+     */
+    public static List<SimilarHit> rank(CurveSignature query, Collection<Candidate> candidates, ShapeMetric metric,
+            ComparedBand band, int limit) {
+        if (query == null || candidates == null || metric == null || band == null) {
             throw new IllegalArgumentException("query, candidates and metric are required");
         }
         if (limit < 1) {
@@ -43,7 +53,7 @@ public final class SimilarCurves {
         }
         List<SimilarHit> hits = new ArrayList<>();
         for (Candidate c : candidates) {
-            Comparison comparison = new Comparison(query, c.signature());
+            Comparison comparison = new Comparison(query, c.signature(), band);
             if (comparison.commonPoints() < MIN_COMMON_POINTS) {
                 continue;
             }
@@ -57,7 +67,12 @@ public final class SimilarCurves {
 
     /** The distance between two signatures, or NaN when they share fewer than {@link #MIN_COMMON_POINTS}. */
     public static double distance(CurveSignature a, CurveSignature b, ShapeMetric metric) {
-        Comparison comparison = new Comparison(a, b);
+        return distance(a, b, metric, ComparedBand.WHOLE_GRID);
+    }
+
+    /** The distance over the grid points inside {@code band}, or NaN when they share fewer than {@link #MIN_COMMON_POINTS} there. */
+    public static double distance(CurveSignature a, CurveSignature b, ShapeMetric metric, ComparedBand band) {
+        Comparison comparison = new Comparison(a, b, band);
         return comparison.commonPoints() < MIN_COMMON_POINTS ? Double.NaN : comparison.distance(metric);
     }
 }
