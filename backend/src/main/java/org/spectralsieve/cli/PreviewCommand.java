@@ -6,7 +6,6 @@ import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.List;
 import java.util.Locale;
-import java.util.Map;
 import java.util.concurrent.Callable;
 import org.spectralsieve.importers.ImportException;
 import org.spectralsieve.ingest.FileBlock;
@@ -17,8 +16,8 @@ import org.spectralsieve.ingest.ImportOptions;
 import org.spectralsieve.ingest.ImportProperties;
 import org.spectralsieve.ingest.ImportRequestException;
 import org.spectralsieve.ingest.IngestException;
-import org.spectralsieve.ingest.OptionText;
 import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.ParameterException;
@@ -36,57 +35,14 @@ import picocli.CommandLine.Spec;
         + " range in nm, units) with the one(s) an import would take. Exit 1 when the file would be refused.")
 final class PreviewCommand implements Callable<Integer> {
 
-    /** The reader names HTTP form fields; the command line calls them by its option names. */
-    private static final Map<String, String> OPTION_OF_FIELD = Map.ofEntries(Map.entry("format", "--format"),
-            Map.entry("yKind", "--y-kind"), Map.entry("block", "--block"), Map.entry("eachBlock", "--each-block"),
-            Map.entry("from", "--from"), Map.entry("to", "--to"), Map.entry("xUnit", "--x-unit"),
-            Map.entry("xColumn", "--x-column"), Map.entry("yColumn", "--y-column"),
-            Map.entry("decimalMark", "--decimal-mark"), Map.entry("uncertainty", "--uncertainty"),
-            Map.entry("replicates", "--replicates"));
-
     @Spec
     CommandSpec spec;
 
-    @Option(names = "--format", paramLabel = "FORMAT",
-            description = "delimited, jcamp-dx, raw-counts or datasheet-points instead of detecting it.")
-    String format;
-
-    @Option(names = "--y-kind", paramLabel = "KIND", description = "percent, fraction or absorbance instead of detecting it.")
-    String yKind;
-
-    @Option(names = "--block", paramLabel = "N", description = "JCAMP-DX: the block to read, numbered as this listing"
-            + " numbers them (default the first with data).")
-    String block;
+    @Mixin
+    FileReadingOptions reading;
 
     @Option(names = "--each-block", description = "JCAMP-DX: show what storing every block as its own sample would do.")
     boolean eachBlock;
-
-    @Option(names = "--from", paramLabel = "NM", description = "Keep only wavelengths from NM up (default: the whole"
-            + " axis, less a noise region found at its short end).")
-    String from;
-
-    @Option(names = "--to", paramLabel = "NM", description = "Keep only wavelengths up to NM (default: the whole axis,"
-            + " less a noise region found at its long end).")
-    String to;
-
-    @Option(names = "--x-unit", paramLabel = "UNIT", description = "nm, um, angstrom or cm-1, whatever the file says.")
-    String xUnit;
-
-    @Option(names = "--x-column", paramLabel = "N", description = "The wavelength column, counted from 1.")
-    String xColumn;
-
-    @Option(names = "--y-column", paramLabel = "N", description = "The value column, counted from 1.")
-    String yColumn;
-
-    @Option(names = "--decimal-mark", paramLabel = "MARK", description = "point or comma instead of detecting it.")
-    String decimalMark;
-
-    @Option(names = "--replicates", paramLabel = "MODE", description = "Several value columns: first, mean or separate.")
-    String replicates;
-
-    @Option(names = "--uncertainty", paramLabel = "SD", description = "The instrument's stated uncertainty (one"
-            + " standard deviation) such as 0.5%T or 0.01A, for a file without a standard-deviation column.")
-    String uncertainty;
 
     @Parameters(index = "0", paramLabel = "FILE", description = "The curve file.")
     Path file;
@@ -98,13 +54,9 @@ final class PreviewCommand implements Callable<Integer> {
         }
         ImportOptions options;
         try {
-            options = OptionText.options(format, yKind, decimalMark, replicates, null, null, null, null)
-                    .withStatedUncertainty(OptionText.statedUncertainty("uncertainty", uncertainty));
-            options = OptionText.withBlocks(options, "block", block, "eachBlock", String.valueOf(eachBlock));
-            options = OptionText.keepRange(options, "from", from, "to", to);
-            options = OptionText.withAxes(options, "xUnit", xUnit, "xColumn", xColumn, "yColumn", yColumn);
+            options = reading.options(eachBlock);
         } catch (ImportRequestException e) {
-            throw new ParameterException(spec.commandLine(), option(e));
+            throw new ParameterException(spec.commandLine(), FileReadingOptions.option(e));
         }
         byte[] bytes;
         try {
@@ -119,15 +71,10 @@ final class PreviewCommand implements Callable<Integer> {
         } catch (ImportException | IngestException | ImportLimitException e) {
             throw new CliFailure(SieveCli.FAILED, "would be refused: " + e.getMessage());
         } catch (ImportRequestException e) {
-            throw new CliFailure(SieveCli.FAILED, "would be refused: " + option(e));
+            throw new CliFailure(SieveCli.FAILED, "would be refused: " + FileReadingOptions.option(e));
         }
         print(spec.commandLine().getOut(), p);
         return SieveCli.OK;
-    }
-
-    private static String option(ImportRequestException e) {
-        String option = OPTION_OF_FIELD.getOrDefault(e.field(), e.field());
-        return option + ": " + e.getMessage().substring(e.getMessage().indexOf(':') + 1).strip();
     }
 
     static void print(PrintWriter out, FilePreview p) {
