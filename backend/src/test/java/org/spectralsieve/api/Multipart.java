@@ -28,6 +28,11 @@ final class Multipart {
         return new Multipart(fileName, bytes);
     }
 
+    /** Text fields only, no file part (e.g. a question about a stored sample). */
+    static Multipart fields() {
+        return new Multipart(null, null);
+    }
+
     static Multipart file(String fileName, String text) {
         return file(fileName, text.getBytes(StandardCharsets.UTF_8));
     }
@@ -41,10 +46,13 @@ final class Multipart {
         ByteArrayOutputStream out = new ByteArrayOutputStream();
         fields.forEach((k, v) -> write(out, "--" + BOUNDARY + "\r\nContent-Disposition: form-data; name=\"" + k
                 + "\"\r\n\r\n" + v + "\r\n"));
-        write(out, "--" + BOUNDARY + "\r\nContent-Disposition: form-data; name=\"file\"; filename=\"" + fileName
-                + "\"\r\nContent-Type: application/octet-stream\r\n\r\n");
-        out.writeBytes(bytes);
-        write(out, "\r\n--" + BOUNDARY + "--\r\n");
+        if (fileName != null) {
+            write(out, "--" + BOUNDARY + "\r\nContent-Disposition: form-data; name=\"file\"; filename=\"" + fileName
+                    + "\"\r\nContent-Type: application/octet-stream\r\n\r\n");
+            out.writeBytes(bytes);
+            write(out, "\r\n");
+        }
+        write(out, "--" + BOUNDARY + "--\r\n");
         return out.toByteArray();
     }
 
