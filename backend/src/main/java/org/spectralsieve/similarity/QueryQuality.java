@@ -70,7 +70,7 @@ public record QueryQuality(ComparedBand band, int bandPoints, int coveredPoints,
     /** The warnings for the answer, most serious first; empty for a curve that covers the band and is resolved. */
     public List<String> warnings() {
         List<String> out = new ArrayList<>();
-        String where = band.wholeGrid() ? "the compared range (" + band + ")" : "the band " + band;
+        String where = band.wholeGrid() ? band + " (the whole grid)" : "the band " + band;
         if (coveredPoints < SimilarCurves.MIN_COMMON_POINTS) {
             out.add("this curve has readings at only " + coveredPoints + " of the " + bandPoints + " grid points of "
                     + where + "; at least " + SimilarCurves.MIN_COMMON_POINTS + " are needed, so no stored curve"
@@ -78,9 +78,9 @@ public record QueryQuality(ComparedBand band, int bandPoints, int coveredPoints,
             return out;
         }
         if (mostlyAtFloor()) {
-            out.add("most of this curve is at the detection limit (" + boundPoints() + " of its " + coveredPoints
-                    + " points in " + where + " are bounds); the ranking rests on " + resolvedPoints
-                    + " resolved points");
+            out.add("most of this curve is at the detection limit: " + boundPoints() + " of its " + coveredPoints
+                    + " points in " + where + " are bounds; the ranking rests on " + resolvedPoints + " resolved points"
+                    + (resolvedPoints == 0 ? ", so its order says nothing about the material" : ""));
         } else if (fewResolved()) {
             out.add("only " + resolvedPoints + " of this curve's " + coveredPoints + " points in " + where
                     + " are above the detection limit; the ranking rests on them and says little");

@@ -12,7 +12,17 @@ import java.nio.charset.StandardCharsets;
 import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.Map;
 import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+import org.spectralsieve.importers.DelimitedTextWriter;
+import org.spectralsieve.library.JooqLibraryRepository;
+import org.spectralsieve.optics.ConstantIndex;
+import org.spectralsieve.optics.ThicknessRescaler;
+import org.spectralsieve.spectrum.Curve;
+import org.springframework.beans.factory.annotation.Autowired;
 import org.springframework.boot.test.context.SpringBootTest;
 import org.springframework.boot.test.web.server.LocalServerPort;
 import org.springframework.test.context.TestPropertySource;
@@ -33,6 +43,9 @@ class SimilarCommandTest {
 
     @LocalServerPort
     int port;
+
+    @Autowired
+    JooqLibraryRepository library;
 
     private record Run(int exitCode, String out, String err) {
     }
@@ -92,6 +105,138 @@ class SimilarCommandTest {
     @Test
     void similarIsACommandLineEntryWord() {
         assertThat(SieveCli.handles(new String[] {"similar", "--sample", "1"})).isTrue();
+    }
+
+    /**
+     * The 4 mm bronze-tint sample (invented, illustrative; n = 1.52 in the demo catalogue) taken to 5 mm by the
+     * project's rescaler — Fresnel surfaces off, Beer–Lambert (absorbance proportional to the path, any optics
+     * handbook), surfaces on — and written out as a curve file: a piece of the stock the library does not hold.
+     */
+    private Path offcutAtFiveMillimetres(Path dir) throws Exception {
+        Curve stored = library.findCurve(firstSampleOf("bronze-tint-float-glass")).orElseThrow();
+        Curve rescaled = ThicknessRescaler.rescale(stored, 4, 5, new ConstantIndex(1.52));
+        boolean[] bounds = new boolean[rescaled.size()];
+        for (int i = 0; i < bounds.length; i++) {
+            bounds[i] = rescaled.belowDetection(i);
+        }
+        Path file = dir.resolve("offcut-5mm.csv");
+        Files.writeString(file, DelimitedTextWriter.write(Map.of("detection_limit", "0.001"), rescaled.wavelengthsNm(),
+                rescaled.transmittances(), bounds));
+        return file;
+    }
+
+    private static List<List<String>> rows(String out) {
+        List<List<String>> rows = new ArrayList<>();
+        for (String line : out.lines().skip(2).toList()) {
+            if (line.startsWith("requirement:") || line.startsWith("note:")) {
+                break;
+            }
+            rows.add(Arrays.asList(line.trim().split("\\s{2,}")));
+        }
+        return rows;
+    }
+
+    @Test
+    void anUnsavedFileFindsTheStockItWasCutFromAtTheThicknessItWasCut(@TempDir Path dir) throws Exception {
+        Path file = offcutAtFiveMillimetres(dir);
+        String stock = String.valueOf(materialId("bronze-tint-float-glass"));
+
+        Run run = cli("similar", "--file", file.toString(), "--thickness", "5", "--limit", "5");
+
+        assertThat(run.exitCode()).as(run.err()).isZero();
+        assertThat(run.out().lines().findFirst().orElseThrow()).isEqualTo("metric: centred-euclidean");
+        List<List<String>> rows = rows(run.out());
+        assertThat(rows).hasSize(5);
+        for (List<String> row : rows.subList(0, 2)) {
+            assertThat(row.get(0)).isEqualTo(stock);
+            // Beer–Lambert: both stored thicknesses match the piece best at 5 mm (2 %, the core's check)
+            assertThat(Double.parseDouble(row.get(9))).isCloseTo(5.0, org.assertj.core.api.Assertions.within(0.1));
+        }
+        assertThat(run.out()).doesNotContain("note:");
+
+        Run asMeasured = cli("similar", "--file", file.toString(), "--limit", "1");
+        assertThat(asMeasured.exitCode()).as(asMeasured.err()).isZero();
+        assertThat(asMeasured.out()).startsWith("metric: correlation"); // no thickness: compared as measured
+        assertThat(rows(asMeasured.out()).get(0).get(0)).isEqualTo(stock);
+    }
+
+    @Test
+    void aBandGivesTheApisHitsAndIsNamedOnTheFirstLine() throws Exception {
+        long query = firstSampleOf("bronze-tint-float-glass");
+        JsonNode api = getJson("/api/samples/" + query + "/similar?limit=5&band=300-400");
+
+        Run run = cli("similar", "--sample", String.valueOf(query), "--limit", "5", "--band", "300-400");
+
+        assertThat(run.exitCode()).as(run.err()).isZero();
+        assertThat(run.out().lines().findFirst().orElseThrow()).isEqualTo("metric: centred-euclidean, band: 300–400 nm");
+        List<List<String>> rows = rows(run.out());
+        assertThat(rows).hasSize(5);
+        for (int i = 0; i < rows.size(); i++) {
+            assertThat(rows.get(i).get(3)).isEqualTo(String.valueOf(api.path("hits").get(i).path("sampleId").asLong()));
+        }
+    }
+
+    @Test
+    void aRequirementKeepsOnlyOtherMaterialsAndSaysHowManyMetIt() throws Exception {
+        long query = firstSampleOf("bronze-tint-float-glass");
+        String stock = String.valueOf(materialId("bronze-tint-float-glass"));
+
+        Run run = cli("similar", "--sample", String.valueOf(query), "--limit", "3", "--requirement",
+                "passes over 70% from 400 to 450 nm");
+
+        assertThat(run.exitCode()).as(run.err()).isZero();
+        List<List<String>> rows = rows(run.out());
+        assertThat(rows).hasSize(3);
+        rows.forEach(row -> assertThat(row.get(0)).isNotEqualTo(stock));
+        assertThat(run.out()).containsPattern("requirement: \\d+ of the \\d+ nearest curves belong to a material that"
+                + " meets 'passes over 70% from 400 to 450 nm'");
+    }
+
+    @Test
+    void aCurveAtItsDetectionFloorCarriesTheWarning() {
+        Run run = cli("similar", "--sample", String.valueOf(firstSampleOfUnchecked("black-stencil-film")));
+        assertThat(run.exitCode()).as(run.err()).isZero();
+        assertThat(run.out()).contains("note: most of this curve is at the detection limit");
+    }
+
+    @Test
+    void aQuestionThatCannotBeAskedIsAUsageErrorNamingTheOption(@TempDir Path dir) throws Exception {
+        Path file = offcutAtFiveMillimetres(dir);
+        Run both = cli("similar", "--sample", "1", "--file", file.toString());
+        assertThat(both.exitCode()).isEqualTo(SieveCli.USAGE);
+        assertThat(both.err()).contains("--sample", "--file");
+        assertThat(cli("similar").exitCode()).isEqualTo(SieveCli.USAGE);
+        Run band = cli("similar", "--sample", "1", "--band", "150-300");
+        assertThat(band.exitCode()).isEqualTo(SieveCli.USAGE);
+        assertThat(band.err()).contains("--band", "200–700 nm");
+        Run thickness = cli("similar", "--sample", "1", "--thickness", "3");
+        assertThat(thickness.exitCode()).isEqualTo(SieveCli.USAGE);
+        assertThat(thickness.err()).contains("--thickness");
+        Run metric = cli("similar", "--file", file.toString(), "--metric", "centred-euclidean");
+        assertThat(metric.exitCode()).isEqualTo(SieveCli.USAGE);
+        assertThat(metric.err()).contains("--metric", "--thickness");
+        Run requirement = cli("similar", "--sample", "1", "--requirement", "passes over");
+        assertThat(requirement.exitCode()).isEqualTo(SieveCli.USAGE);
+        Run missing = cli("similar", "--file", dir.resolve("absent.csv").toString());
+        assertThat(missing.exitCode()).isEqualTo(SieveCli.USAGE);
+        assertThat(missing.err()).contains("--file");
+    }
+
+    private long materialId(String slug) throws Exception {
+        for (JsonNode m : getJson("/api/materials")) {
+            if (m.path("slug").asString().equals(slug)) {
+                return m.path("id").asLong();
+            }
+        }
+        throw new AssertionError("the demo library has no " + slug);
+    }
+
+    private long firstSampleOfUnchecked(String slug) {
+        try {
+            return firstSampleOf(slug);
+        } catch (Exception e) {
+            throw new AssertionError(e);
+        }
     }
 
     private long firstSampleOf(String slug) throws Exception {
