@@ -128,7 +128,7 @@ public final class SimilarQuestions {
         ComparedBand compared = band.orElse(ComparedBand.WHOLE_GRID);
         QueryQuality quality = QueryQuality.of(query.signature(), compared);
         List<String> warnings = new ArrayList<>(quality.warnings());
-        query.fileWarnings().forEach(w -> warnings.add("reading the file: " + w));
+        query.fileWarnings().forEach(w -> warnings.add("file (read as an import reads it; nothing is stored here): " + w));
         if (requirement.isEmpty()) {
             List<SimilarSamples.Hit> hits = similar.similarTo(query.signature(), query.sampleId(), metric, compared, limit);
             return new Answer(query, quality, metric, band, warnings, Optional.empty(), hits);
