@@ -32,8 +32,15 @@ import tools.jackson.databind.json.JsonMapper;
  * field is a problem naming it.
  */
 @SpringBootTest(webEnvironment = SpringBootTest.WebEnvironment.RANDOM_PORT)
-@TestPropertySource(properties = "spring.datasource.url=jdbc:h2:mem:similar-questions-api-test;DB_CLOSE_DELAY=-1")
+@TestPropertySource(properties = {
+        "spring.datasource.url=jdbc:h2:mem:similar-questions-api-test;DB_CLOSE_DELAY=-1",
+        "sieve.imports.max-file-bytes=" + SimilarQuestionsApiTest.MAX_BYTES,
+        "sieve.imports.max-points=" + SimilarQuestionsApiTest.MAX_POINTS})
 class SimilarQuestionsApiTest {
+
+    /** Small import limits, so that the caps can be reached cheaply (a demo curve has 911 points, ~30 kB). */
+    static final int MAX_BYTES = 200_000;
+    static final int MAX_POINTS = 5_000;
 
     private static final HttpClient HTTP = HttpClient.newHttpClient();
     private static final JsonMapper JSON = JsonMapper.builder().build();
@@ -211,6 +218,22 @@ class SimilarQuestionsApiTest {
         assertThat(JSON.readTree(unreadable.body()).path("file").asString()).isEqualTo("notes.csv");
         assertThat(get("/api/samples/987654321/similar?band=300-400", 404).path("status").asInt()).isEqualTo(404);
         assertThat(post(Multipart.fields().field("sampleId", 987654321), 404).path("status").asInt()).isEqualTo(404);
+    }
+
+    @Test
+    void theImportLimitsApplyToAnUploadedQuery() throws Exception {
+        StringBuilder csv = new StringBuilder("wavelength_nm,T\n");
+        for (int i = 0; i <= MAX_POINTS; i++) {
+            csv.append(200 + i * 0.1).append(",0.5\n");
+        }
+        assertThat(csv.length()).isLessThan(MAX_BYTES);
+        JsonNode points = post(Multipart.file("dense.csv", csv.toString()), 400);
+        assertThat(points.path("detail").asString()).contains("sieve.imports.max-points");
+
+        byte[] big = new byte[MAX_BYTES + 50_000];
+        java.util.Arrays.fill(big, (byte) '1');
+        JsonNode size = post(Multipart.file("huge.csv", big), 413);
+        assertThat(size.path("detail").asString()).contains("sieve.imports.max-file-bytes");
     }
 
     private Set<Long> meetingMaterials(String requirement) throws Exception {
