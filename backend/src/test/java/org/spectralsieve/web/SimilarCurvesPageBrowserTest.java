@@ -136,8 +136,15 @@ class SimilarCurvesPageBrowserTest {
                 .filter(r -> !r.getDomAttribute("data-material-id").equals(String.valueOf(material.path("id").asLong())))
                 .findFirst().orElseThrow();
         String otherName = other.findElement(By.cssSelector("button.open-hit")).getText();
+        String matching = other.findElement(By.cssSelector("td.matching")).getText();
         other.findElement(By.cssSelector("button.open-hit")).sendKeys(Keys.ENTER);
         wait.until(d -> otherName.equals(d.findElement(By.id("detail-name")).getText()));
+        if (!matching.equals("—")) {
+            // opened rescaled to the thickness at which it matches, through the page's own rescale box
+            waitForLegend(n -> legendLabels().stream().anyMatch(l -> l.startsWith("rescaled to ")), "the hit drawn at " + matching);
+            double boxMm = Double.parseDouble(driver.findElement(By.id("rescale-mm")).getDomProperty("value"));
+            assertThat(boxMm).isCloseTo(millimetres(matching), within(0.005)); // the table rounds to 0.01 mm
+        }
         // and its own look-alikes follow
         wait.until(d -> !hitRows().isEmpty() && !d.findElement(By.id("look-alike-status")).getText().startsWith("Comparing"));
         assertThat(status("look-alike")).contains("nearest first");
