@@ -203,6 +203,7 @@ export function initSimilar(ui) {
 
   function showMaterial(material, preferredSampleId) {
     state.material = material;
+    ++state.request;
     clearOverlays();
     near.sample.replaceChildren(...material.samples.map((s) => {
       const option = document.createElement('option');
@@ -293,11 +294,11 @@ export function initSimilar(ui) {
         + 'at once; press a pressed “Overlay” to take one off.' }, 'Overlaying a curve');
       return;
     }
-    const material = state.material;
+    const request = state.request; // a new comparison (or material) drops the hits this one belongs to
     button.disabled = true;
     try {
       const curve = await overlayCurve(hit);
-      if (material !== state.material) return;
+      if (request !== state.request) return;
       const colour = OVERLAY_COLOURS.find((c) => ![...state.overlays.values()].some((o) => o.color === c));
       state.overlays.set(key, { ...curve, color: colour, dash: [3, 3] });
       button.setAttribute('aria-pressed', 'true');
