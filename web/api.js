@@ -182,3 +182,26 @@ export function listRevisions(kinds, id) {
 export function listRetiredMaterials() {
   return getJson(`${BASE}/materials/retired`);
 }
+
+// ---------- curves shaped alike (docs/similar-curves.md, docs/similar-curves-page.md) ----------
+
+/**
+ * The stored samples whose curves look most like this sample's: `{ sampleId, metric, band?, warnings?, hits }`.
+ * `band` is "FROM-TO" in nm; a server that does not compare within a band answers without a `band` member.
+ */
+export function similarTo(sampleId, { limit, metric, band } = {}) {
+  return getJson(`${BASE}/samples/${encodeURIComponent(sampleId)}/similar${query({ limit, metric, band })}`);
+}
+
+/**
+ * An unsaved capture (a `File`) compared with the library: `{ query, metric, band, warnings, requirement, hits }`.
+ * Only the fields given are sent; the file is read for this answer and not stored.
+ */
+export function identifyCapture({ file, thicknessMm, bulk, band, metric, limit, requirement }) {
+  const form = new FormData();
+  form.set('file', file, file.name);
+  for (const [key, value] of Object.entries({ thicknessMm, bulk, band, metric, limit, requirement })) {
+    if (value !== undefined && value !== null && value !== '') form.set(key, String(value));
+  }
+  return getJson(`${BASE}/similar`, { method: 'POST', body: form });
+}

@@ -7,6 +7,7 @@ import { drawCurves, followWidth } from './chart.js';
 import { initSearch } from './search.js';
 import { initFigures } from './figures.js';
 import { initFacets } from './facets.js';
+import { initSimilar } from './similar.js';
 import { initCuration, renderMaterialRecord, renderRetiredSamples, sampleControls } from './curation.js';
 
 const SAMPLE_COLOURS = ['#1d6a86', '#8a5a2b', '#4d7a37', '#7a3e6e', '#3d4f9a', '#9c4545', '#3c7f7a', '#6b6b2a'];
@@ -51,6 +52,7 @@ const state = {
   material: null,
   curves: [],           // measured curves of the shown material, in sample order
   rescaled: null,       // { curve, fromSample, thicknessMm } or null
+  overlays: [],         // curves of look-alike hits drawn over the shown material's (similar.js)
   plot: null,
 };
 
@@ -92,6 +94,17 @@ function messageStartsWith(context) {
 
 const figures = initFigures({ showProblem, clearMessage, messageStartsWith });
 const facets = initFacets(dom.facets, () => loadMaterials());
+const similar = initSimilar({
+  showProblem,
+  clearMessage,
+  openMaterial(id, rescaleTo) {
+    selectMaterial(id, { ...rescaleTo, reveal: true });
+  },
+  setOverlays(curves) {
+    state.overlays = curves;
+    redraw();
+  },
+});
 
 // ---------- library table ----------
 
@@ -298,10 +311,12 @@ async function selectMaterial(id, rescaleTo = null) {
     state.material = material;
     state.rescaled = null;
     state.curves = [];
+    state.overlays = [];
     renderDetailHead(material);
     renderSamples(material);
     setupRescale(material);
     figures.showMaterial(material);
+    similar.showMaterial(material, rescaleTo?.sampleId);
     const prefilled = prefillRescale(material, rescaleTo);
     dom.placeholder.hidden = true;
     dom.detail.hidden = false;
@@ -338,6 +353,7 @@ function redraw() {
   if (state.plot) state.plot.destroy();
   const curves = [...state.curves];
   if (state.rescaled) curves.push(state.rescaled.curve);
+  curves.push(...state.overlays);
   state.plot = drawCurves(dom.chart, curves, dom.axisMode.value);
   dom.chart.dataset.axisMode = dom.axisMode.value; // lets readers and tests tell which axis is drawn
 }
