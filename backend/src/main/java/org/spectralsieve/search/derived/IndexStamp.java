@@ -28,7 +28,8 @@ public record IndexStamp(long generation, String libraryId, int schemaVersion) {
         }
     }
 
-    Map<String, String> userData() {
+    /** The commit user data this stamp is written as. */
+    public Map<String, String> userData() {
         return Map.of(GENERATION, Long.toString(generation), LIBRARY, libraryId, SCHEMA, Integer.toString(schemaVersion));
     }
 

@@ -199,6 +199,13 @@ public class LibraryTextSearch implements AutoCloseable {
         }
     }
 
+    /** Whether this process keeps its index in memory (no folder, or the folder is another process's). */
+    boolean inMemory() {
+        synchronized (building) {
+            return store == null || store.inMemory();
+        }
+    }
+
     /** Frees the folder's write lock (the application's shutdown); nothing uncommitted is pending. */
     @Override
     public void close() {
