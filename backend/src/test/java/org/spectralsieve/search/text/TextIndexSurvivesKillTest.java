@@ -27,7 +27,8 @@ import org.junit.jupiter.api.io.TempDir;
  *
  * <p>Run by the {@code crash} profile (a JVM start per round is too slow for the normal suite, which has the
  * in-process version in {@link TextIndexOnDiskTest}); {@code -Dsieve.crash.indexRounds=N},
- * {@code -Dsieve.crash.seed=N} (printed). Prints {@code BENCH index-kill rounds=… opened=… updated=… rebuilt=…}.
+ * {@code -Dsieve.crash.seed=N} (printed). Also here, because it starts a JVM too: a folder held by another
+ * process. Prints {@code BENCH index-kill rounds=… opened=… updated=… rebuilt=…}.
  */
 @Tag("crash")
 class TextIndexSurvivesKillTest {
@@ -78,14 +79,63 @@ class TextIndexSurvivesKillTest {
                 .isPositive();
     }
 
-    /** Starts the child, waits for {@code updates} committed updates and {@code pauseMs}, kills it; returns the count seen. */
-    private int runAndKill(String url, Path folder, long seed, int updates, int pauseMs) throws Exception {
+    /**
+     * Two processes on one database and one folder: the child holds the folder's write lock (an OS file lock),
+     * so this process keeps its own index in memory (and logs it) and still answers as a fresh rebuild, its own
+     * writes and the child's included. The database is shared over H2's automatic server mode.
+     */
+    @Test
+    void aFolderHeldByAnotherProcessIsLeftToItAndTheQueryStillAnswers() throws Exception {
+        String url = "jdbc:h2:file:" + work.resolve("shared/sieve") + ";AUTO_SERVER=TRUE;WRITE_DELAY=0";
+        Path folder = work.resolve("shared-index");
+        new TextIndexFixture(TextIndexFixture.migrated(url)).storeCorpus();
+        Process child = start(url, folder, 7, "3");
+        try {
+            List<String> log = awaitLine(child, "idle");
+            assertThat(log).as("the child holds the folder").anyMatch(l -> l.endsWith("in-memory=false"));
+
+            TextIndexFixture library = new TextIndexFixture(TextIndexFixture.migrated(url));
+            LibraryTextSearch search = new LibraryTextSearch(library.library(), folder);
+            try {
+                assertThat(TextIndexFixture.answers(search)).isEqualTo(library.freshAnswers());
+                assertThat(search.inMemory()).isTrue();
+                library.randomChange(new Random(8));
+                assertThat(TextIndexFixture.answers(search)).isEqualTo(library.freshAnswers());
+            } finally {
+                search.close();
+            }
+        } finally {
+            child.destroyForcibly();
+            child.waitFor(30, TimeUnit.SECONDS);
+        }
+    }
+
+    private static Process start(String url, Path folder, long seed, String... more) throws IOException {
         String java = Path.of(System.getProperty("java.home"), "bin", "java").toString();
         String classpath = System.getProperty("surefire.test.class.path", System.getProperty("java.class.path"));
-        Process child = new ProcessBuilder(java, "-Xmx256m", "-XX:+UseSerialGC", "-XX:TieredStopAtLevel=1",
+        List<String> command = new ArrayList<>(List.of(java, "-Xmx256m", "-XX:+UseSerialGC", "-XX:TieredStopAtLevel=1",
                 "-Dorg.jooq.no-logo=true", "-Dorg.jooq.no-tips=true", "-cp", classpath,
-                IndexUpdatingProcess.class.getName(), url, folder.toString(), Long.toString(seed))
-                .redirectErrorStream(true).start();
+                IndexUpdatingProcess.class.getName(), url, folder.toString(), Long.toString(seed)));
+        command.addAll(List.of(more));
+        return new ProcessBuilder(command).redirectErrorStream(true).start();
+    }
+
+    /** The child's output up to the line {@code wanted}. */
+    private static List<String> awaitLine(Process child, String wanted) throws IOException {
+        List<String> log = new ArrayList<>();
+        BufferedReader in = new BufferedReader(new InputStreamReader(child.getInputStream(), StandardCharsets.UTF_8));
+        for (String line; (line = in.readLine()) != null; ) {
+            log.add(line);
+            if (line.equals(wanted)) {
+                return log;
+            }
+        }
+        throw new IllegalStateException("the child ended before '" + wanted + "':\n" + String.join("\n", log));
+    }
+
+    /** Starts the child, waits for {@code updates} committed updates and {@code pauseMs}, kills it; returns the count seen. */
+    private int runAndKill(String url, Path folder, long seed, int updates, int pauseMs) throws Exception {
+        Process child = start(url, folder, seed);
         LinkedBlockingQueue<String> lines = new LinkedBlockingQueue<>();
         Thread reader = new Thread(() -> {
             try (BufferedReader in = new BufferedReader(new InputStreamReader(child.getInputStream(), StandardCharsets.UTF_8))) {
