@@ -24,6 +24,8 @@ final class IndexUpdatingProcess {
         int changes = args.length > 3 ? Integer.parseInt(args[3]) : Integer.MAX_VALUE;
         for (int i = 0; i < changes; i++) {
             String change = library.randomChange(random);
+            System.out.println("changed " + i); // the database has committed; the index has not yet
+            System.out.flush();
             TextIndexFixture.answers(search); // the update runs before these queries
             System.out.println("committed " + i + " " + change + " in-memory=" + search.inMemory());
             System.out.flush();
