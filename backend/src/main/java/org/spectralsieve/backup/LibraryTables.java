@@ -27,9 +27,11 @@ final class LibraryTables {
     /**
      * Tables a migration fills itself and whose rows are coordination state, not library content: the change
      * counter other processes compare their in-memory copies against. A restore raises it instead of copying
-     * it, so every running process notices the restored library.
+     * it, so every running process notices the restored library. The database's identity and the change log
+     * (V9) belong to the database, not to its content: a restored library gets an identity of its own, and the
+     * restore's raise has no log row, so every index on disk is rebuilt (docs/index-on-disk.md).
      */
-    static final Set<String> BOOKKEEPING = Set.of("library_generation");
+    static final Set<String> BOOKKEEPING = Set.of("library_generation", "library_identity", "library_change");
 
     private LibraryTables() {
     }

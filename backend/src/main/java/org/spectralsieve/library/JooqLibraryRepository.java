@@ -134,9 +134,37 @@ public class JooqLibraryRepository {
     public long insertMaterial(NewMaterial material) {
         return db.transactionResult(tx -> {
             long id = insertMaterialRow(tx.dsl(), material);
-            LibraryGeneration.bump(tx.dsl());
+            LibraryGeneration.bump(tx.dsl(), id);
             return id;
         });
+    }
+
+    /** This database's identity ({@link LibraryIdentity}), made on the first call when no process made it yet. */
+    public String libraryId() {
+        return LibraryIdentity.read(db);
+    }
+
+    /**
+     * The materials the changes after generation {@code after} up to {@code upTo} concerned, or empty when
+     * the change log cannot account for all of them ({@link LibraryChanges#materialsChanged}).
+     */
+    public Optional<java.util.Set<Long>> materialsChanged(long after, long upTo) {
+        return LibraryChanges.materialsChanged(db, after, upTo);
+    }
+
+    /** Those of the materials that are in use, with their samples in use; a retired or unknown id is left out. */
+    public List<Material> findMaterialsInUse(java.util.Collection<Long> ids) {
+        if (ids.isEmpty()) {
+            return List.of();
+        }
+        List<MaterialRecord> materials = db.selectFrom(MATERIAL).where(MATERIAL.RETIRED_AT.isNull())
+                .and(MATERIAL.ID.in(ids)).orderBy(MATERIAL.ID).fetch();
+        Map<Long, List<SampleInfo>> samples = samplesOf(materials.stream().map(MaterialRecord::getId).toList());
+        List<Material> out = new ArrayList<>();
+        for (MaterialRecord m : materials) {
+            readable(m, samples.getOrDefault(m.getId(), List.of())).ifPresent(out::add);
+        }
+        return out;
     }
 
     /** The library's change counter as committed now ({@link LibraryGeneration}): one primary-key read. */
@@ -148,7 +176,7 @@ public class JooqLibraryRepository {
     public long insertSample(long materialId, NewSample sample) {
         return db.transactionResult(tx -> {
             long id = insertSampleRows(tx.dsl(), materialId, sample);
-            LibraryGeneration.bump(tx.dsl());
+            LibraryGeneration.bump(tx.dsl(), materialId);
             return id;
         });
     }
@@ -161,7 +189,7 @@ public class JooqLibraryRepository {
         return db.transactionResult(tx -> {
             long id = insertSampleRows(tx.dsl(), materialId, sample);
             insertSourceFile(tx.dsl(), id, file);
-            LibraryGeneration.bump(tx.dsl());
+            LibraryGeneration.bump(tx.dsl(), materialId);
             return id;
         });
     }
@@ -198,7 +226,7 @@ public class JooqLibraryRepository {
             }
             long sampleId = insertSampleRows(t, materialId, sample);
             insertSourceFile(t, sampleId, file);
-            LibraryGeneration.bump(t);
+            LibraryGeneration.bump(t, materialId);
             return new StoredImport(materialId, slug, sampleId, false, existingMaterialId == null);
         });
     }
@@ -250,7 +278,7 @@ public class JooqLibraryRepository {
                 wrote = true;
             }
             if (wrote || existingMaterialId == null) {
-                LibraryGeneration.bump(t);
+                LibraryGeneration.bump(t, materialId);
             }
             return new StoredBlocks(materialId, slug, existingMaterialId == null, stored);
         });

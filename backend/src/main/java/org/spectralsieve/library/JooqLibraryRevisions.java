@@ -81,6 +81,7 @@ public class JooqLibraryRevisions {
                     return new Retirement(kind, id, JooqLibraryRepository.instant(row.getRetiredAt()), false);
                 }
                 t.update(SAMPLE).set(SAMPLE.RETIRED_AT, retire ? now : null).where(SAMPLE.ID.eq(id)).execute();
+                LibraryGeneration.bump(t, row.getMaterialId());
             } else {
                 MaterialRecord row = t.selectFrom(MATERIAL).where(MATERIAL.ID.eq(id)).forUpdate().fetchOptional()
                         .orElseThrow(() -> new NotFoundException("material", id));
@@ -88,8 +89,8 @@ public class JooqLibraryRevisions {
                     return new Retirement(kind, id, JooqLibraryRepository.instant(row.getRetiredAt()), false);
                 }
                 t.update(MATERIAL).set(MATERIAL.RETIRED_AT, retire ? now : null).where(MATERIAL.ID.eq(id)).execute();
+                LibraryGeneration.bump(t, id);
             }
-            LibraryGeneration.bump(t);
             return new Retirement(kind, id, retire ? now.toInstant() : null, true);
         });
     }
@@ -128,7 +129,7 @@ public class JooqLibraryRevisions {
                     .set(SAMPLE.DETECTION_LIMIT, next.detectionLimit())
                     .set(SAMPLE.REVISION, next.revision())
                     .where(SAMPLE.ID.eq(id)).execute();
-            LibraryGeneration.bump(t);
+            LibraryGeneration.bump(t, row.getMaterialId());
             return toRevision(next, correction.reason(), at.toInstant(), true);
         });
     }
@@ -179,7 +180,7 @@ public class JooqLibraryRevisions {
                     .set(MATERIAL.MADE_MAX_MM, update.getMadeMaxMm())
                     .set(MATERIAL.REVISION, next)
                     .where(MATERIAL.ID.eq(id)).execute();
-            LibraryGeneration.bump(t);
+            LibraryGeneration.bump(t, id);
             return toRevision(stored, true);
         });
     }

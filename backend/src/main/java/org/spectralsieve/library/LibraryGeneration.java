@@ -9,7 +9,9 @@ import org.jooq.DSLContext;
  * it, and every in-memory copy derived from the library remembers the number it was read at, so that a
  * copy older than the database is noticed with one primary-key read — also when another process wrote
  * (a command-line import while the server runs, another application node on PostgreSQL). See
- * docs/freshness.md.
+ * docs/freshness.md. The bare {@link #bump(DSLContext)} records nothing in the change log, so an index kept
+ * on disk rebuilds whole after it; the overloads that name the material let it re-index only that one
+ * (docs/index-on-disk.md).
  */
 public final class LibraryGeneration {
 
@@ -33,6 +35,33 @@ public final class LibraryGeneration {
         if (rows != 1) {
             throw new IllegalStateException("library_generation has no row " + ROW + "; the V7 migration puts it there");
         }
+    }
+
+    /**
+     * Raises the counter (as {@link #bump(DSLContext)}) and records in the change log that this write
+     * concerned {@code materialId} ({@link LibraryChanges}), so that indexes derived from the library
+     * re-index that material alone. Every write of one material's rows (the material, its samples, curves,
+     * files, retirement, revisions) calls this rather than the bare raise.
+     *
+     * @return the number the write's commit leaves
+     */
+    public static long bump(DSLContext tx, long materialId) {
+        return bumpAndRecord(tx, materialId);
+    }
+
+    /**
+     * Raises the counter and records that the write concerned no material (an imported emitter or response):
+     * indexes of materials then know they have nothing to redo.
+     */
+    public static long bumpConcerningNoMaterial(DSLContext tx) {
+        return bumpAndRecord(tx, null);
+    }
+
+    private static long bumpAndRecord(DSLContext tx, Long materialId) {
+        bump(tx);
+        long generation = read(tx); // the transaction sees its own raise
+        LibraryChanges.record(tx, generation, materialId);
+        return generation;
     }
 
     /** The committed number: one read of one row by its primary key. */

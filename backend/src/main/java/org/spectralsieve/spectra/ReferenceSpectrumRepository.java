@@ -60,7 +60,7 @@ public class ReferenceSpectrumRepository {
                     throw new SpectrumNameTakenException(s.kind(), s.name());
                 }
                 long stored = insertRow(t, s);
-                LibraryGeneration.bump(t);
+                LibraryGeneration.bumpConcerningNoMaterial(t);
                 return stored;
             });
             return find(s.kind(), s.name()).filter(r -> r.id() == id)
@@ -147,7 +147,7 @@ public class ReferenceSpectrumRepository {
                     .set(REFERENCE_SPECTRUM.RETIRED_KEY, i)
                     .where(REFERENCE_SPECTRUM.ID.eq(i)).execute());
             if (id.isPresent()) {
-                LibraryGeneration.bump(t);
+                LibraryGeneration.bumpConcerningNoMaterial(t);
             }
             return id;
         });
@@ -181,7 +181,7 @@ public class ReferenceSpectrumRepository {
                 }
                 t.update(REFERENCE_SPECTRUM).setNull(REFERENCE_SPECTRUM.RETIRED_AT).set(REFERENCE_SPECTRUM.RETIRED_KEY, 0L)
                         .where(REFERENCE_SPECTRUM.ID.eq(found.get())).execute();
-                LibraryGeneration.bump(t);
+                LibraryGeneration.bumpConcerningNoMaterial(t);
                 return found;
             });
             return restored.flatMap(i -> find(kind, name));

@@ -14,10 +14,15 @@ import org.apache.lucene.analysis.miscellaneous.PerFieldAnalyzerWrapper;
 import org.apache.lucene.analysis.standard.StandardTokenizer;
 import org.apache.lucene.document.Document;
 import org.apache.lucene.document.Field;
+import org.apache.lucene.document.NumericDocValuesField;
+import org.apache.lucene.document.SortedDocValuesField;
+import org.apache.lucene.document.StringField;
 import org.apache.lucene.document.StoredField;
 import org.apache.lucene.document.TextField;
 import org.apache.lucene.facet.FacetsConfig;
 import org.apache.lucene.facet.sortedset.SortedSetDocValuesFacetField;
+import org.apache.lucene.index.Term;
+import org.apache.lucene.util.BytesRef;
 import org.spectralsieve.library.Material;
 import org.spectralsieve.library.SampleInfo;
 
@@ -33,8 +38,27 @@ import org.spectralsieve.library.SampleInfo;
  */
 public final class LibraryIndexSchema {
 
+    /**
+     * The layout of the fields below. Raise it whenever a field is added, removed, renamed or analysed
+     * differently: an index on disk stamped with another version is rebuilt (docs/index-on-disk.md).
+     */
+    public static final int VERSION = 2;
+
     /** Stored only: the hit names its material by id, and nothing searches by it (the database does). */
     static final String ID = "id";
+    /** Indexed whole, not stored: an update deletes the material's document by this term. */
+    static final String ID_KEY = "id_key";
+    /** Sorted doc values, the name in lower case: ties in score are listed by name, however documents were added. */
+    static final String SORT_NAME = "sort_name";
+    /** Numeric doc values: the last tie-break, by id, so equal names keep a stable order too. */
+    static final String SORT_ID = "sort_id";
+    /** Stored only: the hit's name, so that an answer is read from the index alone (no database read per hit). */
+    static final String HIT_NAME = "hit_name";
+    /** Stored only: the hit's class label, for the same reason. */
+    static final String HIT_CLASS = "hit_class";
+    /** Stored only, one per sample in use: id, geometry, provenance and thickness, to list the samples a hit matches. */
+    static final String HIT_SAMPLE = "hit_sample";
+
     /** English text, boosted most: the words a user remembers a stock by. */
     static final String NAME = "name";
     /** English text, not a keyword: {@code glass} should find both "window glass" and "optical glass". */
@@ -143,6 +167,7 @@ public final class LibraryIndexSchema {
     static Document document(Material m) {
         Document doc = new Document();
         doc.add(new StoredField(ID, m.id()));
+        keyAndHitFields(doc, m);
         words(doc, NAME, List.of(m.name()));
         words(doc, CLASS_WORDS, List.of(m.materialClass().label()));
         words(doc, TAGS, m.tags());
@@ -161,6 +186,36 @@ public final class LibraryIndexSchema {
         facets(doc, PROVENANCE_FACET, samples.stream().map(s -> s.provenance().label()).toList());
         facets(doc, THICKNESS_FACET, thicknesses.stream().map(LibraryIndexSchema::thicknessBand).toList());
         return doc;
+    }
+
+    /** The term an update deletes the material's document by. */
+    static Term idTerm(long materialId) {
+        return new Term(ID_KEY, Long.toString(materialId));
+    }
+
+    private static void keyAndHitFields(Document doc, Material m) {
+        doc.add(new StringField(ID_KEY, Long.toString(m.id()), Field.Store.NO));
+        doc.add(new SortedDocValuesField(SORT_NAME, new BytesRef(m.name().toLowerCase(Locale.ROOT))));
+        doc.add(new NumericDocValuesField(SORT_ID, m.id()));
+        doc.add(new StoredField(HIT_NAME, m.name()));
+        doc.add(new StoredField(HIT_CLASS, m.materialClass().label()));
+        for (SampleInfo s : m.samples()) {
+            doc.add(new StoredField(HIT_SAMPLE, new StoredSample(s.id(), s.geometry().label(), s.provenance().label(),
+                    s.thicknessMm()).encoded()));
+        }
+    }
+
+    /** A sample in use as a hit lists it: what the sample facets are matched against. */
+    record StoredSample(long id, String geometry, String provenance, double thicknessMm) {
+
+        String encoded() {
+            return id + "\t" + geometry + "\t" + provenance + "\t" + thicknessMm;
+        }
+
+        static StoredSample decoded(String stored) {
+            String[] parts = stored.split("\t", -1);
+            return new StoredSample(Long.parseLong(parts[0]), parts[1], parts[2], Double.parseDouble(parts[3]));
+        }
     }
 
     /** 3.0 → "3 mm", 0.175 → "0.175 mm": the way a thickness is written and typed. */

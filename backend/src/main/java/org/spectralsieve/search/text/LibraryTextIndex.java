@@ -3,6 +3,7 @@ package org.spectralsieve.search.text;
 import java.io.IOException;
 import java.io.UncheckedIOException;
 import java.util.ArrayList;
+import java.util.Arrays;
 import java.util.Comparator;
 import java.util.Locale;
 import java.util.LinkedHashMap;
@@ -11,6 +12,7 @@ import java.util.Map;
 import org.apache.lucene.analysis.Analyzer;
 import org.apache.lucene.analysis.TokenStream;
 import org.apache.lucene.analysis.tokenattributes.CharTermAttribute;
+import org.apache.lucene.document.Document;
 import org.apache.lucene.facet.DrillDownQuery;
 import org.apache.lucene.facet.DrillSideways;
 import org.apache.lucene.facet.FacetResult;
@@ -22,6 +24,7 @@ import org.apache.lucene.facet.sortedset.SortedSetDocValuesReaderState;
 import org.apache.lucene.index.DirectoryReader;
 import org.apache.lucene.index.IndexWriter;
 import org.apache.lucene.index.IndexWriterConfig;
+import org.apache.lucene.index.StoredFields;
 import org.apache.lucene.index.Term;
 import org.apache.lucene.search.BooleanClause;
 import org.apache.lucene.search.BooleanQuery;
@@ -33,34 +36,49 @@ import org.apache.lucene.search.MatchAllDocsQuery;
 import org.apache.lucene.search.PrefixQuery;
 import org.apache.lucene.search.Query;
 import org.apache.lucene.search.ScoreDoc;
+import org.apache.lucene.search.Sort;
+import org.apache.lucene.search.SortField;
 import org.apache.lucene.search.TermQuery;
 import org.apache.lucene.store.ByteBuffersDirectory;
 import org.spectralsieve.library.Material;
-import org.spectralsieve.library.SampleInfo;
 
 /**
- * One built, read-only text index of the library as read at one {@code generation}: replaced whole when
- * the library changes, never updated in place, so a query never sees half a change. Held in memory
- * ({@link ByteBuffersDirectory}); an old one is left to the garbage collector rather than closed, because a
- * query that started on it may still be reading.
+ * One read-only view of the library's text index, as committed at one {@code generation}: a query never sees
+ * half a change, because {@link LibraryTextSearch} commits the documents of a change together with its number
+ * and only then opens a new view. The view's reader is counted: the view installed for new queries holds one
+ * reference, each query one more while it reads ({@link #tryAcquire}, {@link #release}), so a view replaced
+ * while a query reads it is closed when that query ends.
+ *
+ * <p>A hit is read from the index alone (stored fields), so a view answers for exactly the library it was
+ * built from, whether that was built by this process or found on disk at start.
  */
 final class LibraryTextIndex {
 
     /** Values counted per facet dimension: more than any dimension has (classes are the widest, a few dozen). */
     private static final int FACET_VALUES = 100;
 
+    /**
+     * Best score first; equal scores by name as a reader sorts, then id. Scores are constant per field
+     * (see {@link #wordsQuery}), so they do not depend on which documents share a segment, and an index
+     * updated change by change lists exactly what a fresh rebuild lists.
+     */
+    private static final Sort ORDER = new Sort(SortField.FIELD_SCORE,
+            new SortField(LibraryIndexSchema.SORT_NAME, SortField.Type.STRING),
+            new SortField(LibraryIndexSchema.SORT_ID, SortField.Type.LONG));
+
+    private final DirectoryReader reader;
     private final IndexSearcher searcher;
     private final SortedSetDocValuesReaderState facetState; // null while the library is empty: no facets to read
     private final FacetsConfig config = LibraryIndexSchema.facetsConfig();
     private final Analyzer english = LibraryIndexSchema.analyzer();
     private final Analyzer typed = LibraryIndexSchema.typedWords();
-    private final Map<Long, Material> materials;
     private final long generation;
 
-    private LibraryTextIndex(DirectoryReader reader, Map<Long, Material> materials, long generation) throws IOException {
+    /** Takes over the caller's reference to {@code reader}: released when this view is replaced and unused. */
+    LibraryTextIndex(DirectoryReader reader, long generation) throws IOException {
+        this.reader = reader;
         this.searcher = new IndexSearcher(reader);
         this.facetState = reader.numDocs() == 0 ? null : new DefaultSortedSetDocValuesReaderState(reader, config);
-        this.materials = materials;
         this.generation = generation;
     }
 
@@ -68,27 +86,59 @@ final class LibraryTextIndex {
     private static final Comparator<Material> BY_NAME = Comparator
             .comparing((Material m) -> m.name().toLowerCase(Locale.ROOT)).thenComparingLong(Material::id);
 
-    /** Indexes the materials, read at {@code generation}; documents go in {@link #BY_NAME} order, which ties keep. */
+    /** Indexes the materials, read at {@code generation}, in memory (a view of its own, nothing kept on disk). */
     static LibraryTextIndex build(List<Material> unordered, long generation) {
-        List<Material> materials = unordered.stream().sorted(BY_NAME).toList();
         try {
             ByteBuffersDirectory directory = new ByteBuffersDirectory();
-            FacetsConfig config = LibraryIndexSchema.facetsConfig();
-            Map<Long, Material> byId = new LinkedHashMap<>();
-            try (IndexWriter writer = new IndexWriter(directory, new IndexWriterConfig(LibraryIndexSchema.analyzer()))) {
-                for (Material m : materials) {
-                    writer.addDocument(config.build(LibraryIndexSchema.document(m)));
-                    byId.put(m.id(), m);
-                }
+            try (IndexWriter writer = new IndexWriter(directory, writerConfig())) {
+                addAll(writer, unordered);
             }
-            return new LibraryTextIndex(DirectoryReader.open(directory), Map.copyOf(byId), generation);
+            return new LibraryTextIndex(DirectoryReader.open(directory), generation);
         } catch (IOException e) {
             throw new UncheckedIOException("the in-memory text index could not be built", e);
         }
     }
 
+    /** The writer settings of the text index, on disk or in memory. */
+    static IndexWriterConfig writerConfig() {
+        return new IndexWriterConfig(LibraryIndexSchema.analyzer());
+    }
+
+    /** Adds one document per material (in {@link #BY_NAME} order, so a rebuilt index reads in name order). */
+    static void addAll(IndexWriter writer, List<Material> materials) throws IOException {
+        FacetsConfig config = LibraryIndexSchema.facetsConfig();
+        for (Material m : materials.stream().sorted(BY_NAME).toList()) {
+            writer.addDocument(config.build(LibraryIndexSchema.document(m)));
+        }
+    }
+
+    /**
+     * Replaces the documents of the changed materials: deleted, and added again for those still in use
+     * ({@code inUse}); uncommitted until the caller commits.
+     */
+    static void replace(IndexWriter writer, java.util.Collection<Long> changed, List<Material> inUse) throws IOException {
+        for (long id : changed) {
+            writer.deleteDocuments(LibraryIndexSchema.idTerm(id)); // applies to documents added before it only
+        }
+        addAll(writer, inUse);
+    }
+
     long generation() {
         return generation;
+    }
+
+    /** One more reference for a query, or false when this view was closed meanwhile (replaced and unused). */
+    boolean tryAcquire() {
+        return reader.tryIncRef();
+    }
+
+    /** Gives back a query's reference (or, once, the installed view's). */
+    void release() {
+        try {
+            reader.decRef();
+        } catch (IOException e) {
+            throw new UncheckedIOException("the text index view could not be closed", e);
+        }
     }
 
     LibraryAnswer search(LibraryQuery query) {
@@ -103,16 +153,18 @@ final class LibraryTextIndex {
                 }
             }
             DrillSideways sideways = new DrillSideways(searcher, config, facetState);
-            DrillSideways.DrillSidewaysResult result = sideways.search(drillDown, query.limit());
+            DrillSideways.DrillSidewaysResult result = sideways.search(drillDown, null, null, query.limit(), ORDER, true);
             List<LibraryAnswer.Hit> hits = new ArrayList<>();
+            StoredFields stored = searcher.storedFields();
             for (ScoreDoc sd : result.hits.scoreDocs) {
-                long id = searcher.storedFields().document(sd.doc).getField(LibraryIndexSchema.ID).numericValue().longValue();
-                Material m = materials.get(id);
-                hits.add(new LibraryAnswer.Hit(m.id(), m.name(), m.materialClass().label(), sd.score, matchingSamples(m, query)));
+                Document doc = stored.document(sd.doc);
+                hits.add(new LibraryAnswer.Hit(doc.getField(LibraryIndexSchema.ID).numericValue().longValue(),
+                        doc.get(LibraryIndexSchema.HIT_NAME), doc.get(LibraryIndexSchema.HIT_CLASS), sd.score,
+                        matchingSamples(doc.getValues(LibraryIndexSchema.HIT_SAMPLE), query)));
             }
             return new LibraryAnswer(searcher.count(drillDown), hits, counts(result.facets), generation);
         } catch (IOException e) {
-            throw new UncheckedIOException("the in-memory text index could not be read", e);
+            throw new UncheckedIOException("the text index could not be read", e);
         }
     }
 
@@ -140,13 +192,15 @@ final class LibraryTextIndex {
         }
     }
 
-    private static List<Long> matchingSamples(Material m, LibraryQuery query) {
-        return m.samples().stream()
-                .filter(s -> query.geometries().isEmpty() || query.geometries().contains(s.geometry()))
-                .filter(s -> query.provenances().isEmpty() || query.provenances().contains(s.provenance()))
+    private static List<Long> matchingSamples(String[] stored, LibraryQuery query) {
+        List<String> geometries = query.chosen(LibraryIndexSchema.GEOMETRY_FACET);
+        List<String> provenances = query.chosen(LibraryIndexSchema.PROVENANCE_FACET);
+        return Arrays.stream(stored).map(LibraryIndexSchema.StoredSample::decoded)
+                .filter(s -> geometries.isEmpty() || geometries.contains(s.geometry()))
+                .filter(s -> provenances.isEmpty() || provenances.contains(s.provenance()))
                 .filter(s -> query.thicknessBands().isEmpty()
                         || query.thicknessBands().contains(LibraryIndexSchema.thicknessBand(s.thicknessMm())))
-                .map(SampleInfo::id)
+                .map(LibraryIndexSchema.StoredSample::id)
                 .toList();
     }
 

@@ -1,14 +1,17 @@
 package org.spectralsieve.search.text;
 
+import java.nio.file.Path;
 import org.spectralsieve.library.JooqLibraryRepository;
+import org.springframework.beans.factory.annotation.Value;
 import org.springframework.context.annotation.Bean;
 import org.springframework.context.annotation.Configuration;
 
 @Configuration
 class TextSearchConfiguration {
 
-    @Bean
-    LibraryTextSearch libraryTextSearch(JooqLibraryRepository library) {
-        return new LibraryTextSearch(library);
+    /** {@code sieve.index.dir}: the folder of the text index; empty keeps it in memory (docs/index-on-disk.md). */
+    @Bean(destroyMethod = "close")
+    LibraryTextSearch libraryTextSearch(JooqLibraryRepository library, @Value("${sieve.index.dir:}") String folder) {
+        return new LibraryTextSearch(library, folder.isBlank() ? null : Path.of(folder.strip()).resolve("text"));
     }
 }

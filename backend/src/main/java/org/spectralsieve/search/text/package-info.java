@@ -1,9 +1,10 @@
 /**
  * Words and facets over the library: a Lucene index with one document per material in use
- * ({@link org.spectralsieve.search.text.LibraryIndexSchema} says what each field holds and why), built in
- * memory from the database and rebuilt when the library's change counter moves
- * ({@link org.spectralsieve.search.text.LibraryTextSearch}); facets are counted drill-sideways, so a value
- * chosen in one dimension leaves that dimension's other counts visible. An edge package: Lucene never
+ * ({@link org.spectralsieve.search.text.LibraryIndexSchema} says what each field holds and why), kept in a
+ * folder ({@code sieve.index.dir}) or in memory, and brought up to date from the database when the library's
+ * change counter moves ({@link org.spectralsieve.search.text.LibraryTextSearch}, docs/index-on-disk.md);
+ * facets are counted drill-sideways, so a value chosen in one dimension leaves that dimension's other counts
+ * visible. An edge package: Lucene never
  * enters the core. Detail: {@code docs/library-search.md}.
  */
 package org.spectralsieve.search.text;
