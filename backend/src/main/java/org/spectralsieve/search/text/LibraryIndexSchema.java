@@ -77,7 +77,23 @@ public final class LibraryIndexSchema {
     /** Facet dimension, one band per sample thickness and stated stock size (multi-valued). */
     public static final String THICKNESS_FACET = "thickness";
 
-    public static final List<String> FACETS = List.of(CLASS_FACET, GEOMETRY_FACET, PROVENANCE_FACET, THICKNESS_FACET);
+    /**
+     * Facet dimension, the band of each sample's UV edge (cutoff wavelength at 50 %) on its stored curve
+     * (multi-valued: samples at other thicknesses or of other lots differ); values {@link SpectralSummary#EDGE_BANDS}.
+     */
+    public static final String EDGE_FACET = "edge";
+    /** Facet dimension, the band of each sample's luminous transmittance τv (multi-valued, like the edge). */
+    public static final String LUMINOUS_FACET = "luminous";
+    /** Facet dimensions, whether each sample passes, partly passes or blocks 254 / 365 / 405 nm (multi-valued). */
+    public static final String AT_254_FACET = "at254";
+    public static final String AT_365_FACET = "at365";
+    public static final String AT_405_FACET = "at405";
+    /** The dimensions read from the samples' curves ({@link SpectralSummary}), in the order the page shows them. */
+    public static final List<String> SPECTRAL_FACETS = List.of(EDGE_FACET, LUMINOUS_FACET, AT_254_FACET, AT_365_FACET,
+            AT_405_FACET);
+
+    public static final List<String> FACETS = List.of(CLASS_FACET, GEOMETRY_FACET, PROVENANCE_FACET, THICKNESS_FACET,
+            EDGE_FACET, LUMINOUS_FACET, AT_254_FACET, AT_365_FACET, AT_405_FACET);
 
     record WeightedField(String name, float weight) {
     }
@@ -90,6 +106,7 @@ public final class LibraryIndexSchema {
         config.setMultiValued(GEOMETRY_FACET, true);
         config.setMultiValued(PROVENANCE_FACET, true);
         config.setMultiValued(THICKNESS_FACET, true);
+        SPECTRAL_FACETS.forEach(dimension -> config.setMultiValued(dimension, true));
         return config;
     }
 
@@ -139,8 +156,43 @@ public final class LibraryIndexSchema {
         return band;
     }
 
-    /** The material's document, before {@link FacetsConfig#build} turns its facet fields into doc values. */
-    static Document document(Material m) {
+    /** The values a spectral facet dimension may take, in the order the page lists them. */
+    public static List<String> spectralValues(String dimension) {
+        return switch (dimension) {
+            case EDGE_FACET -> SpectralSummary.EDGE_BANDS;
+            case LUMINOUS_FACET -> SpectralSummary.LUMINOUS_BANDS;
+            case AT_254_FACET, AT_365_FACET, AT_405_FACET -> SpectralSummary.AT_VALUES;
+            default -> throw new IllegalArgumentException("no spectral facet " + dimension);
+        };
+    }
+
+    /** The value of that spectral dimension, or a refusal naming the values there are. */
+    public static String spectralValueNamed(String dimension, String value) {
+        String v = value.strip();
+        if (!spectralValues(dimension).contains(v)) {
+            throw new IllegalArgumentException(dimension + " '" + value + "' is not one of " + spectralValues(dimension));
+        }
+        return v;
+    }
+
+    /** The value a sample's summary gives in a spectral dimension. */
+    static String spectralValue(SpectralSummary summary, String dimension) {
+        return switch (dimension) {
+            case EDGE_FACET -> summary.edge();
+            case LUMINOUS_FACET -> summary.luminous();
+            case AT_254_FACET -> summary.at254();
+            case AT_365_FACET -> summary.at365();
+            case AT_405_FACET -> summary.at405();
+            default -> throw new IllegalArgumentException("no spectral facet " + dimension);
+        };
+    }
+
+    /**
+     * The material's document, before {@link FacetsConfig#build} turns its facet fields into doc values: a
+     * function of its input alone (the material, and the summaries of its samples' curves).
+     */
+    static Document document(IndexedMaterial input) {
+        Material m = input.material();
         Document doc = new Document();
         doc.add(new StoredField(ID, m.id()));
         words(doc, NAME, List.of(m.name()));
@@ -160,6 +212,9 @@ public final class LibraryIndexSchema {
         facets(doc, GEOMETRY_FACET, samples.stream().map(s -> s.geometry().label()).toList());
         facets(doc, PROVENANCE_FACET, samples.stream().map(s -> s.provenance().label()).toList());
         facets(doc, THICKNESS_FACET, thicknesses.stream().map(LibraryIndexSchema::thicknessBand).toList());
+        for (String dimension : SPECTRAL_FACETS) {
+            facets(doc, dimension, input.summaries().values().stream().map(s -> spectralValue(s, dimension)).toList());
+        }
         return doc;
     }
 

@@ -54,10 +54,10 @@ final class LibraryTextIndex {
     private final FacetsConfig config = LibraryIndexSchema.facetsConfig();
     private final Analyzer english = LibraryIndexSchema.analyzer();
     private final Analyzer typed = LibraryIndexSchema.typedWords();
-    private final Map<Long, Material> materials;
+    private final Map<Long, IndexedMaterial> materials;
     private final long generation;
 
-    private LibraryTextIndex(DirectoryReader reader, Map<Long, Material> materials, long generation) throws IOException {
+    private LibraryTextIndex(DirectoryReader reader, Map<Long, IndexedMaterial> materials, long generation) throws IOException {
         this.searcher = new IndexSearcher(reader);
         this.facetState = reader.numDocs() == 0 ? null : new DefaultSortedSetDocValuesReaderState(reader, config);
         this.materials = materials;
@@ -65,20 +65,21 @@ final class LibraryTextIndex {
     }
 
     /** Materials of equal score are listed in this order: by name as a reader sorts, whatever the database's collation. */
-    private static final Comparator<Material> BY_NAME = Comparator
-            .comparing((Material m) -> m.name().toLowerCase(Locale.ROOT)).thenComparingLong(Material::id);
+    private static final Comparator<IndexedMaterial> BY_NAME = Comparator
+            .comparing((IndexedMaterial m) -> m.material().name().toLowerCase(Locale.ROOT))
+            .thenComparingLong(m -> m.material().id());
 
     /** Indexes the materials, read at {@code generation}; documents go in {@link #BY_NAME} order, which ties keep. */
-    static LibraryTextIndex build(List<Material> unordered, long generation) {
-        List<Material> materials = unordered.stream().sorted(BY_NAME).toList();
+    static LibraryTextIndex build(List<IndexedMaterial> unordered, long generation) {
+        List<IndexedMaterial> materials = unordered.stream().sorted(BY_NAME).toList();
         try {
             ByteBuffersDirectory directory = new ByteBuffersDirectory();
             FacetsConfig config = LibraryIndexSchema.facetsConfig();
-            Map<Long, Material> byId = new LinkedHashMap<>();
+            Map<Long, IndexedMaterial> byId = new LinkedHashMap<>();
             try (IndexWriter writer = new IndexWriter(directory, new IndexWriterConfig(LibraryIndexSchema.analyzer()))) {
-                for (Material m : materials) {
+                for (IndexedMaterial m : materials) {
                     writer.addDocument(config.build(LibraryIndexSchema.document(m)));
-                    byId.put(m.id(), m);
+                    byId.put(m.material().id(), m);
                 }
             }
             return new LibraryTextIndex(DirectoryReader.open(directory), Map.copyOf(byId), generation);
@@ -107,8 +108,10 @@ final class LibraryTextIndex {
             List<LibraryAnswer.Hit> hits = new ArrayList<>();
             for (ScoreDoc sd : result.hits.scoreDocs) {
                 long id = searcher.storedFields().document(sd.doc).getField(LibraryIndexSchema.ID).numericValue().longValue();
-                Material m = materials.get(id);
-                hits.add(new LibraryAnswer.Hit(m.id(), m.name(), m.materialClass().label(), sd.score, matchingSamples(m, query)));
+                IndexedMaterial indexed = materials.get(id);
+                Material m = indexed.material();
+                hits.add(new LibraryAnswer.Hit(m.id(), m.name(), m.materialClass().label(), sd.score,
+                        matchingSamples(indexed, query)));
             }
             return new LibraryAnswer(searcher.count(drillDown), hits, counts(result.facets), generation);
         } catch (IOException e) {
@@ -140,14 +143,26 @@ final class LibraryTextIndex {
         }
     }
 
-    private static List<Long> matchingSamples(Material m, LibraryQuery query) {
-        return m.samples().stream()
+    private static List<Long> matchingSamples(IndexedMaterial indexed, LibraryQuery query) {
+        return indexed.material().samples().stream()
                 .filter(s -> query.geometries().isEmpty() || query.geometries().contains(s.geometry()))
                 .filter(s -> query.provenances().isEmpty() || query.provenances().contains(s.provenance()))
                 .filter(s -> query.thicknessBands().isEmpty()
                         || query.thicknessBands().contains(LibraryIndexSchema.thicknessBand(s.thicknessMm())))
+                .filter(s -> meetsSpectralChoices(indexed.summary(s.id()), query))
                 .map(SampleInfo::id)
                 .toList();
+    }
+
+    /** Whether a sample's summary has a chosen value in every spectral dimension with a choice (none: no curve, no). */
+    private static boolean meetsSpectralChoices(SpectralSummary summary, LibraryQuery query) {
+        for (String dimension : LibraryIndexSchema.SPECTRAL_FACETS) {
+            if (!query.spectral(dimension).isEmpty()
+                    && (summary == null || !query.spectral(dimension).contains(LibraryIndexSchema.spectralValue(summary, dimension)))) {
+                return false;
+            }
+        }
+        return true;
     }
 
     /**

@@ -48,7 +48,8 @@ public class LibraryTextSearch {
             // the counter is read before the tables: a write committing meanwhile is either in what is read
             // or announced by a larger number at the next query (a rebuild too many, never a change missed)
             long readAt = library.generation();
-            LibraryTextIndex fresh = LibraryTextIndex.build(library.findMaterials(null, null), readAt);
+            LibraryTextIndex fresh = LibraryTextIndex.build(
+                    IndexedMaterial.of(library.findMaterials(null, null), library.findAllCurves()), readAt);
             onBuild.accept(readAt);
             index.set(fresh); // only the builder holding the lock installs, so never an older over a newer
             return fresh;
