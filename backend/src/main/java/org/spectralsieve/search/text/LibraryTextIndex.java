@@ -4,10 +4,12 @@ import java.io.IOException;
 import java.io.UncheckedIOException;
 import java.util.ArrayList;
 import java.util.Comparator;
+import java.util.HashSet;
 import java.util.Locale;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
+import java.util.Set;
 import org.apache.lucene.analysis.Analyzer;
 import org.apache.lucene.analysis.TokenStream;
 import org.apache.lucene.analysis.tokenattributes.CharTermAttribute;
@@ -90,6 +92,32 @@ final class LibraryTextIndex {
 
     long generation() {
         return generation;
+    }
+
+    /**
+     * The ids of every material the words and chosen facet values admit (no limit): the candidates a
+     * requirement written with words is judged on. Empty for an empty library.
+     */
+    Set<Long> admitted(LibraryQuery query) {
+        if (facetState == null) {
+            return Set.of();
+        }
+        try {
+            DrillDownQuery drillDown = new DrillDownQuery(config, wordsQuery(query.words()));
+            for (String dimension : LibraryIndexSchema.FACETS) {
+                for (String value : query.chosen(dimension)) {
+                    drillDown.add(dimension, value);
+                }
+            }
+            Set<Long> ids = new HashSet<>();
+            int all = Math.max(1, searcher.getIndexReader().maxDoc());
+            for (ScoreDoc sd : searcher.search(drillDown, all).scoreDocs) {
+                ids.add(searcher.storedFields().document(sd.doc).getField(LibraryIndexSchema.ID).numericValue().longValue());
+            }
+            return Set.copyOf(ids);
+        } catch (IOException e) {
+            throw new UncheckedIOException("the in-memory text index could not be read", e);
+        }
     }
 
     LibraryAnswer search(LibraryQuery query) {

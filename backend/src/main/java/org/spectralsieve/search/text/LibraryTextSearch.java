@@ -1,5 +1,6 @@
 package org.spectralsieve.search.text;
 
+import java.util.Set;
 import java.util.concurrent.atomic.AtomicReference;
 import java.util.function.LongConsumer;
 import org.spectralsieve.library.JooqLibraryRepository;
@@ -32,6 +33,11 @@ public class LibraryTextSearch {
 
     public LibraryAnswer search(LibraryQuery query) {
         return current().search(query);
+    }
+
+    /** The ids of every material the query's words and facet values admit, however many (its limit is ignored). */
+    public Set<Long> admitted(LibraryQuery query) {
+        return current().admitted(query);
     }
 
     private LibraryTextIndex current() {
