@@ -42,7 +42,10 @@ public record SpectralSummary(String edge, String luminous, String at254, String
     /** UV edge bands, short to long, then the curves whose edge cannot be placed. */
     public static final List<String> EDGE_BANDS = List.of("under 300 nm", "300-340 nm", "340-380 nm", "380-420 nm",
             "420 nm and over", NO_EDGE);
-    /** Band limits in nm between the {@link #EDGE_BANDS}: UV-C/B below 300, the UV-A thirds, violet, visible. */
+    /**
+     * Band limits in nm between the {@link #EDGE_BANDS}, 40 nm steps from 300 (our choice): they keep apart
+     * quartz and UV-transmitting stock, glass and PET, standard acrylic, UV-stabilised sheet, tinted stock.
+     */
     private static final double[] EDGE_LIMITS = {300, 340, 380, 420};
 
     /** τv bands, dark to clear, then what the curve cannot say. */
