@@ -87,13 +87,16 @@ export function initSearch(ui) {
     }
   }
 
-  function renderClauses(requirement) {
+  function renderClauses(requirement, words = requirement?.words) {
     if (!requirement) {
       dom.clauses.replaceChildren();
       dom.clauses.dataset.state = 'empty';
       return;
     }
     const items = [...requirement.clauses.map(clauseSummary), fmt.thicknessSummary(requirement.thickness)];
+    // words written before the clauses narrow the library first (docs/library-search.md)
+    if (words?.text) items.push(`words: “${words.text}”${wordsAdmitted(words)}`);
+    for (const p of words?.provenance || []) items.push(`provenance: ${p}`);
     if (requirement.materialClass) items.push(`class: ${requirement.materialClass}`);
     if (requirement.geometry) {
       items.push(requirement.geometry === 'any'
@@ -214,8 +217,8 @@ export function initSearch(ui) {
         state.messageIsOurs = false;
       }
       hideError();
-      renderClauses(answer.requirement);
-      renderResults(answer);
+      renderClauses(answer.requirement, answer.words);
+      renderResults(answer, text);
     } catch (problem) {
       if (request !== state.searchRequest) return;
       dom.summary.textContent = 'The search did not run.';
@@ -226,21 +229,37 @@ export function initSearch(ui) {
     }
   }
 
+  /** What the words and terms written before the clauses admitted, in the page's words. */
+  function wordsSummary(words) {
+    const terms = [words.text ? `words “${words.text}”` : null, ...(words.provenance || []).map((p) => `provenance ${p}`)]
+      .filter(Boolean).join(' and ');
+    const n = words.admitted === 1 ? '1 material' : `${words.admitted} materials`;
+    return words.admitted === 0 ? `${terms} admitted no material` : `${terms} admitted ${n}`;
+  }
+
   function showOurProblem(problem, context) {
     ui.showProblem(problem, context);
     state.messageIsOurs = true;
   }
 
-  function renderResults(answer) {
+  /** " (admit 7 materials)" once a search has counted them; nothing while only parsed. */
+  function wordsAdmitted(words) {
+    if (!Number.isInteger(words.admitted)) return '';
+    return ` (admit ${words.admitted === 1 ? '1 material' : `${words.admitted} materials`})`;
+  }
+
+  function renderResults(answer, asked) {
     const requirement = answer.requirement;
     dom.results.hidden = false;
     // the server adds a caution to answers with eye or skin safety figures; blocking light needs one too
     dom.caution.hidden = !(blocksLight(requirement) || typeof answer.caution === 'string');
-    dom.table.dataset.requirement = requirement.text;
+    // the text as typed: with words, the requirement's own text is only its clauses
+    dom.table.dataset.requirement = asked ?? requirement.text;
     const n = answer.results.length;
     dom.summary.textContent = `Evaluated ${answer.evaluatedSamples} samples in ${fmt.number(answer.tookMs, 1)} ms`
       + ` · ${n === 1 ? '1 result' : `${n} results`} for “${requirement.text}”`
-      + (answer.layer ? ` · ${answer.layer.explanation}` : '');
+      + (answer.layer ? ` · ${answer.layer.explanation}` : '')
+      + (answer.words ? ` · ${wordsSummary(answer.words)}` : '');
     // the rows come grouped (meets, unverified, misses, not judged); each group under the server's heading,
     // the same words the command line prints, so a row with nothing judged never reads as a candidate
     const headings = new Map((answer.groups || []).map((g) => [g.group, g.heading]));
@@ -258,7 +277,9 @@ export function initSearch(ui) {
       const td = document.createElement('td');
       td.colSpan = 8;
       td.className = 'empty';
-      td.textContent = 'No sample in the library can be judged against this requirement.';
+      td.textContent = answer.words?.admitted === 0
+        ? `The words admit no material of the library, so nothing was judged: ${wordsSummary(answer.words)}.`
+        : 'No sample in the library can be judged against this requirement.';
       tr.append(td);
       rows.push(tr);
     }

@@ -1,5 +1,6 @@
 package org.spectralsieve.api;
 
+import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.regex.Matcher;
@@ -8,9 +9,11 @@ import org.spectralsieve.requirement.FixedLayer;
 import org.spectralsieve.requirement.Requirement;
 import org.spectralsieve.requirement.RequirementParser;
 import org.spectralsieve.requirement.RequirementTooLargeException;
+import org.spectralsieve.requirement.RequirementWords;
 import org.spectralsieve.search.LayerResolutionException;
 import org.spectralsieve.search.SearchService;
-import org.spectralsieve.search.Shortlist;
+import org.spectralsieve.search.WordedSearch;
+import org.spectralsieve.search.text.LibraryTextSearch;
 import org.spectralsieve.weighting.SpectrumLookup;
 import org.springframework.web.bind.annotation.PostMapping;
 import org.springframework.web.bind.annotation.RequestBody;
@@ -31,28 +34,61 @@ class SearchController {
 
     private final SearchService search;
     private final SpectrumLookup spectra;
+    private final WordedSearch worded;
 
-    SearchController(SearchService search, SpectrumLookup spectra) {
+    SearchController(SearchService search, SpectrumLookup spectra, LibraryTextSearch text) {
         this.search = search;
         this.spectra = spectra;
+        this.worded = new WordedSearch(search, text);
     }
 
     @PostMapping("/requirements/parse")
     Map<String, Object> parse(@RequestBody JsonNode body) {
-        return RequirementJson.toJson(requirementOf(body, spectra, search.materialClasses()));
+        WordedSearch.Read read = worded(body);
+        if (read == null) {
+            return RequirementJson.toJson(requirementOf(body, spectra, search.materialClasses()));
+        }
+        if (!read.words().any()) {
+            return RequirementJson.toJson(read.requirement());
+        }
+        Map<String, Object> json = new LinkedHashMap<>(RequirementJson.toJson(read.requirement()));
+        json.put("words", Map.of("text", read.words().words(), "provenance", read.words().provenances()));
+        return json;
     }
 
     @PostMapping("/search")
     Map<String, Object> search(@RequestBody JsonNode body) {
-        Requirement requirement = requirementOf(body, spectra, search.materialClasses());
+        WordedSearch.Read read = worded(body);
+        Requirement requirement = read != null ? read.requirement() : requirementOf(body, spectra, search.materialClasses());
         int limit = limitOf(body);
-        Shortlist shortlist;
+        WordedSearch.Answer answer;
         try {
-            shortlist = search.search(requirement, limit);
+            answer = worded.search(read != null ? read : new WordedSearch.Read(requirement, NO_WORDS), limit);
         } catch (LayerResolutionException e) {
             throw located(e, body.get("requirement"), requirement);
         }
-        return ShortlistJson.toJson(shortlist);
+        if (answer.words().isEmpty()) {
+            return ShortlistJson.toJson(answer.shortlist());
+        }
+        WordedSearch.Words words = answer.words().get();
+        Map<String, Object> json = new LinkedHashMap<>(ShortlistJson.toJson(answer.shortlist()));
+        json.put("words", Map.of("text", words.text(), "provenance", words.provenances(), "admitted", words.admitted()));
+        return json;
+    }
+
+    private static final RequirementWords NO_WORDS = new RequirementWords("", List.of(), "", List.of());
+
+    /**
+     * A text requirement, read with any words or terms beside its clauses split off (a text without them is
+     * parsed exactly as before); null for any other body (a structured requirement, or none), which
+     * {@link #requirementOf} reads or refuses.
+     */
+    private WordedSearch.Read worded(JsonNode body) {
+        JsonNode node = body == null ? null : body.get("requirement");
+        if (node == null || !node.isString()) {
+            return null;
+        }
+        return worded.read(node.asString(), spectra, search.materialClasses());
     }
 
     /** Points a layer problem at the material words of a text requirement, so the page can mark them. */

@@ -1,24 +1,30 @@
 package org.spectralsieve.cli;
 
 import java.util.ArrayList;
+import java.util.Arrays;
+import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Locale;
+import java.util.Map;
 import java.util.concurrent.Callable;
 import org.spectralsieve.api.ShortlistJson;
+import org.spectralsieve.library.Provenance;
+import org.spectralsieve.library.UnusableRecordException;
+import org.spectralsieve.optics.UnusableIndexException;
 import org.spectralsieve.requirement.ClauseResult;
 import org.spectralsieve.requirement.RankedRow;
-import org.spectralsieve.requirement.Requirement;
 import org.spectralsieve.requirement.RequirementParser;
 import org.spectralsieve.requirement.RequirementSyntaxException;
 import org.spectralsieve.requirement.RequirementTooLargeException;
+import org.spectralsieve.requirement.RequirementWords;
 import org.spectralsieve.requirement.SampleEvaluation;
 import org.spectralsieve.requirement.Standing;
 import org.spectralsieve.requirement.ThicknessSpec;
 import org.spectralsieve.search.LayerResolutionException;
 import org.spectralsieve.search.SearchService;
-import org.spectralsieve.library.UnusableRecordException;
-import org.spectralsieve.optics.UnusableIndexException;
 import org.spectralsieve.search.Shortlist;
+import org.spectralsieve.search.WordedSearch;
+import org.spectralsieve.search.text.LibraryTextSearch;
 import org.spectralsieve.weighting.SpectrumLookup;
 import org.springframework.context.ConfigurableApplicationContext;
 import picocli.CommandLine.Command;
@@ -41,7 +47,8 @@ final class SearchCommand implements Callable<Integer> {
     @Mixin
     DatabaseOption database;
 
-    @Parameters(index = "0", paramLabel = "REQUIREMENT", description = "The requirement, quoted as one argument.")
+    @Parameters(index = "0", paramLabel = "REQUIREMENT", description = "The requirement, quoted as one argument; words"
+            + " about the stock may stand before its clauses ('acrylic passes over 80% at 400 nm').")
     String requirementText;
 
     @Option(names = "--limit", paramLabel = "N", defaultValue = "" + SearchService.DEFAULT_LIMIT,
@@ -61,13 +68,17 @@ final class SearchCommand implements Callable<Integer> {
         // spectra might supply waits for the library's own lookup
         preParse(requirementText);
         Shortlist shortlist;
+        WordedSearch.Words words = null;
         String jsonText = null;
         try (ConfigurableApplicationContext context = LibraryContext.start(database.url)) {
             SearchService search = context.getBean(SearchService.class);
-            Requirement requirement = parse(requirementText, context.getBean(SpectrumLookup.class),
+            WordedSearch worded = new WordedSearch(search, context.getBean(LibraryTextSearch.class));
+            WordedSearch.Read read = read(worded, requirementText, context.getBean(SpectrumLookup.class),
                     search.materialClasses());
             try {
-                shortlist = search.search(requirement, limit);
+                WordedSearch.Answer answer = worded.search(read, limit);
+                shortlist = answer.shortlist();
+                words = answer.words().orElse(null);
             } catch (LayerResolutionException e) {
                 throw new CliFailure(SieveCli.USAGE, layerProblem(e));
             } catch (UnusableRecordException | UnusableIndexException e) {
@@ -76,8 +87,12 @@ final class SearchCommand implements Callable<Integer> {
             }
             if (json) {
                 // the context's mapper, configured as the API's, so both print numbers and nulls alike
-                jsonText = context.getBean(JsonMapper.class).writerWithDefaultPrettyPrinter()
-                        .writeValueAsString(ShortlistJson.toJson(shortlist));
+                Map<String, Object> out = new LinkedHashMap<>(ShortlistJson.toJson(shortlist));
+                if (words != null) {
+                    out.put("words", Map.of("text", words.text(), "provenance", words.provenances(), "admitted",
+                            words.admitted()));
+                }
+                jsonText = context.getBean(JsonMapper.class).writerWithDefaultPrettyPrinter().writeValueAsString(out);
             }
         }
         if (json) {
@@ -85,6 +100,9 @@ final class SearchCommand implements Callable<Integer> {
             spec.commandLine().getOut().flush();
         } else {
             table(shortlist).print(spec.commandLine().getOut());
+            if (words != null) {
+                spec.commandLine().getOut().println(wordsNote(words));
+            }
             notes(shortlist).forEach(spec.commandLine().getOut()::println);
             spec.commandLine().getOut().flush();
         }
@@ -93,7 +111,9 @@ final class SearchCommand implements Callable<Integer> {
 
     private static void preParse(String text) {
         try {
-            RequirementParser.parse(text, SpectrumLookup.builtIn());
+            // words about the stock before the clauses are the library's to judge; the clauses are read here
+            RequirementWords words = RequirementWords.split(text, PROVENANCES);
+            RequirementParser.parse(words.any() ? words.maskedText() : text, SpectrumLookup.builtIn());
         } catch (RequirementTooLargeException e) {
             throw new CliFailure(SieveCli.USAGE, List.of("requirement not read: " + e.getMessage()));
         } catch (RequirementSyntaxException e) {
@@ -103,9 +123,22 @@ final class SearchCommand implements Callable<Integer> {
         }
     }
 
-    private static Requirement parse(String text, SpectrumLookup spectra, List<String> classes) {
+    private static final List<String> PROVENANCES = Arrays.stream(Provenance.values()).map(Provenance::label).toList();
+
+    /** "Words: “acrylic” admitted 7 materials; the clauses were judged on those alone." */
+    static String wordsNote(WordedSearch.Words words) {
+        String terms = words.text().isEmpty() ? "" : "“" + words.text() + "”";
+        for (String p : words.provenances()) {
+            terms += (terms.isEmpty() ? "" : " and ") + "provenance " + p;
+        }
+        return words.admitted() == 0 ? "Words: " + terms + " admitted no material of the library; nothing was judged."
+                : "Words: " + terms + " admitted " + words.admitted() + (words.admitted() == 1 ? " material" : " materials")
+                + "; the clauses were judged on those alone.";
+    }
+
+    private static WordedSearch.Read read(WordedSearch worded, String text, SpectrumLookup spectra, List<String> classes) {
         try {
-            return RequirementParser.parse(text, spectra, classes);
+            return worded.read(text, spectra, classes);
         } catch (RequirementSyntaxException e) {
             throw new CliFailure(SieveCli.USAGE, RequirementErrorReport.lines(text, e));
         }

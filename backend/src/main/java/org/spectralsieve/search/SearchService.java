@@ -117,7 +117,7 @@ public class SearchService {
         Snapshot s = current();
         // a confidence demand can make a wide margin unverified: the store's margins cannot pick those rows
         if (!requirement.plain() || requirement.asksConfidence()) {
-            return searchExactly(s, requirement, limit, started);
+            return searchExactly(s, requirement, limit, started, m -> true);
         }
         StoreResult picked = StoreSearch.search(s.store(), requirement, limit);
         Set<Long> materialIds = new LinkedHashSet<>();
@@ -133,6 +133,18 @@ public class SearchService {
         double tookMs = (System.nanoTime() - started) / 1e6;
         return new Shortlist(requirement, rows, picked.evaluatedSamples(), exact.size(), tookMs, Optional.empty(),
                 geometries(s, rows), revisions(s, rows));
+    }
+
+    /**
+     * The requirement judged on the given materials alone (those the library's text index admitted for words
+     * written with it, docs/library-search.md): every admitted sample of them judged exactly, ranked as
+     * {@link #search(Requirement, int)} ranks; a material id not in the library is ignored. The answer's rows
+     * are the rows the whole library's answer would give for these materials, in the same order.
+     */
+    public Shortlist search(Requirement requirement, int limit, Set<Long> withinMaterials) {
+        long started = System.nanoTime();
+        Set<Long> within = Set.copyOf(withinMaterials);
+        return searchExactly(current(), requirement, limit, started, m -> within.contains(m.id()));
     }
 
     /**
@@ -195,14 +207,16 @@ public class SearchService {
      * bound), so it is judged only while that could still beat the shortlist's last row. The answer is the
      * one judging every admitted sample would give.
      */
-    private Shortlist searchExactly(Snapshot s, Requirement requirement, int limit, long started) {
+    private Shortlist searchExactly(Snapshot s, Requirement requirement, int limit, long started,
+                                    java.util.function.Predicate<Material> within) {
         Optional<StackLayer> layer = requirement.layer().map(l -> resolveLayer(l, s));
         boolean diffuseLayer = layer.map(l -> s.samples().get(l.sampleId()).geometry() == Geometry.TOTAL).orElse(false);
         Map<Long, Double> provenMiss = provenMisses(s, requirement, layer);
         List<MaterialEvaluation> exact = new ArrayList<>();
         Map<Material, Double> held = new LinkedHashMap<>();
         int admitted = 0;
-        for (Material material : s.materials().values().stream().sorted(Comparator.comparingLong(Material::id)).toList()) {
+        for (Material material : s.materials().values().stream().sorted(Comparator.comparingLong(Material::id))
+                .filter(within).toList()) {
             double bound = Double.NEGATIVE_INFINITY;
             boolean allMiss = true;
             int count = 0;

@@ -93,6 +93,43 @@ class LibrarySearchApiTest {
         assertThat(problemParameter("/api/library?class=" + encode("Glass!"))).isEqualTo("class");
         assertThat(problemParameter("/api/library?q=" + "a".repeat(201))).isEqualTo("q");
         assertThat(problemParameter("/api/library?class=film" + "&class=x".repeat(21))).isEqualTo("class");
+        assertThat(problemParameter("/api/library?edge=violet")).isEqualTo("edge");
+        assertThat(problemParameter("/api/library?luminous=" + encode("90 %"))).isEqualTo("luminous");
+        assertThat(problemParameter("/api/library?at365=opaque")).isEqualTo("at365");
+    }
+
+    @Test
+    void spectralFacetsSortTheDemoShelfAsTheTradeExpects() throws Exception {
+        // quartz and fused silica sleeves pass about 95 % at 254 nm; soda-lime float glass has a strong cut-off
+        // below about 340 nm (../shared/PRACTICE.md §2, [S32] [S27]); the demo curves are modelled on those
+        List<String> at254 = names(getJson("/api/library?at254=passes&limit=200", 200));
+        assertThat(at254).contains("UV-grade synthetic fused silica windows")
+                .doesNotContain("Clear float glass, glazier offcuts");
+        // polycarbonate does not block 405 nm, and a UV-stabilised sheet stops 365 nm (PRACTICE.md §7 #2, [S14] [S29])
+        assertThat(names(getJson("/api/library?q=polycarbonate&at405=passes&at365=blocks&limit=200", 200)))
+                .contains("Clear polycarbonate sheet, UV-stabilised");
+        assertThat(names(getJson("/api/library?q=polycarbonate&at405=blocks&limit=200", 200)))
+                .doesNotContain("Clear polycarbonate sheet, UV-stabilised", "Clear polycarbonate sheet, food-contact grade");
+    }
+
+    @Test
+    void eachSpectralValuesCountIsTheTotalItsChoiceGives() throws Exception {
+        JsonNode all = getJson("/api/library", 200);
+        for (String dimension : List.of("edge", "luminous", "at254", "at365", "at405")) {
+            Map<String, Long> counts = counts(all, dimension);
+            assertThat(counts).as(dimension).isNotEmpty();
+            for (Map.Entry<String, Long> value : counts.entrySet()) {
+                JsonNode chosen = getJson("/api/library?" + dimension + "=" + encode(value.getKey()), 200);
+                assertThat(chosen.path("total").asLong()).as(dimension + "=" + value.getKey()).isEqualTo(value.getValue());
+                assertThat(counts(chosen, dimension)).as("sideways").isEqualTo(counts);
+            }
+        }
+    }
+
+    private static List<String> names(JsonNode answer) {
+        List<String> out = new ArrayList<>();
+        answer.path("hits").forEach(h -> out.add(h.path("name").asString()));
+        return out;
     }
 
     private String problemParameter(String path) throws Exception {

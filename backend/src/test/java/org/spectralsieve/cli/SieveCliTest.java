@@ -79,6 +79,16 @@ class SieveCliTest {
     }
 
     @Test
+    void wordsBeforeTheClausesNarrowTheTableAndSayHowManyTheyAdmitted() {
+        Run run = cli("search", "acrylic passes over 80% at 400 nm", "--limit", "50");
+
+        assertThat(run.exitCode()).as(run.err()).isZero();
+        List<String> rows = run.outLines().stream().filter(l -> l.matches("\\s*\\d+ {2,}.*")).toList();
+        assertThat(rows).isNotEmpty().anySatisfy(l -> assertThat(l.toLowerCase()).contains("acrylic"));
+        assertThat(run.out()).containsPattern("Words: “acrylic” admitted \\d+ materials; the clauses were judged on those alone.");
+    }
+
+    @Test
     void misspeltRequirementExitsTwoWithTheSuggestionAndACaretOnStderr() {
         Run run = cli("search", "passes ovr 80% at 365 nm");
 

@@ -153,6 +153,11 @@ class LibraryPageBrowserTest {
                     .allMatch(count -> count <= expected);
         }
         assertThat(facetCounts("provenance").values()).as("some provenance counted").anyMatch(count -> count > 0);
+        // the spectral-summary groups, read from the samples' curves, are counted beside the others
+        for (String spectral : List.of("edge", "luminous", "at254", "at365", "at405")) {
+            assertThat(facetCounts(spectral).values()).as(spectral + " counts under the ticked class")
+                    .isNotEmpty().allMatch(count -> count <= expected).anyMatch(count -> count > 0);
+        }
         assertThat(facetBox("class", biggest).isSelected()).isTrue();
         screenshot("7-class-ticked");
 

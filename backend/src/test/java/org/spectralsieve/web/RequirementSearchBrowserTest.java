@@ -204,6 +204,25 @@ class RequirementSearchBrowserTest {
         assertThat(waitForClauses(2)).containsExactly("T ≤ 1 % at 405 nm", "thickness: as measured");
     }
 
+    @Test
+    void wordsBeforeTheClausesAreShownAndTheSummarySaysHowManyMaterialsTheyAdmitted() throws IOException {
+        driver.get("http://localhost:" + port + "/");
+        WebElement text = driver.findElement(By.id("requirement-text"));
+
+        String requirement = "acrylic passes over 80% at 400 nm";
+        text.sendKeys(requirement);
+        assertThat(waitForClauses(3)).contains("T ≥ 80 % at 400 nm", "words: “acrylic”");
+
+        text.sendKeys(Keys.ENTER);
+        WebElement first = waitForResultsFor(requirement);
+        assertThat(first.findElements(By.tagName("td")).get(1).getText()).containsIgnoringCase("acrylic");
+        assertThat(driver.findElement(By.id("search-summary")).getText())
+                .matches("Evaluated \\d+ samples in .* ms.* · words “acrylic” admitted \\d+ materials");
+        assertThat(driver.findElement(By.id("search-results")).getDomAttribute("class")).as("results not marked stale")
+                .doesNotContain("stale");
+        screenshot("search-words-acrylic");
+    }
+
     private List<String> waitForClauses(int count) {
         wait.withMessage(() -> "waiting for " + count + " understood clauses; now: " + clauseTexts()
                 + "; error: " + driver.findElement(By.id("requirement-error")).getText());

@@ -42,7 +42,7 @@ public final class LibraryIndexSchema {
      * The layout of the fields below. Raise it whenever a field is added, removed, renamed or analysed
      * differently: an index on disk stamped with another version is rebuilt (docs/index-on-disk.md).
      */
-    public static final int VERSION = 2;
+    public static final int VERSION = 3;
 
     /** Stored only: the hit names its material by id, and nothing searches by it (the database does). */
     static final String ID = "id";
@@ -56,7 +56,10 @@ public final class LibraryIndexSchema {
     static final String HIT_NAME = "hit_name";
     /** Stored only: the hit's class label, for the same reason. */
     static final String HIT_CLASS = "hit_class";
-    /** Stored only, one per sample in use: id, geometry, provenance and thickness, to list the samples a hit matches. */
+    /**
+     * Stored only, one per sample in use: id, geometry, provenance, thickness and spectral-summary values, to
+     * list the samples a hit matches.
+     */
     static final String HIT_SAMPLE = "hit_sample";
 
     /** English text, boosted most: the words a user remembers a stock by. */
@@ -101,7 +104,23 @@ public final class LibraryIndexSchema {
     /** Facet dimension, one band per sample thickness and stated stock size (multi-valued). */
     public static final String THICKNESS_FACET = "thickness";
 
-    public static final List<String> FACETS = List.of(CLASS_FACET, GEOMETRY_FACET, PROVENANCE_FACET, THICKNESS_FACET);
+    /**
+     * Facet dimension, the band of each sample's UV edge (cutoff wavelength at 50 %) on its stored curve
+     * (multi-valued: samples at other thicknesses or of other lots differ); values {@link SpectralSummary#EDGE_BANDS}.
+     */
+    public static final String EDGE_FACET = "edge";
+    /** Facet dimension, the band of each sample's luminous transmittance τv (multi-valued, like the edge). */
+    public static final String LUMINOUS_FACET = "luminous";
+    /** Facet dimensions, whether each sample passes, partly passes or blocks 254 / 365 / 405 nm (multi-valued). */
+    public static final String AT_254_FACET = "at254";
+    public static final String AT_365_FACET = "at365";
+    public static final String AT_405_FACET = "at405";
+    /** The dimensions read from the samples' curves ({@link SpectralSummary}), in the order the page shows them. */
+    public static final List<String> SPECTRAL_FACETS = List.of(EDGE_FACET, LUMINOUS_FACET, AT_254_FACET, AT_365_FACET,
+            AT_405_FACET);
+
+    public static final List<String> FACETS = List.of(CLASS_FACET, GEOMETRY_FACET, PROVENANCE_FACET, THICKNESS_FACET,
+            EDGE_FACET, LUMINOUS_FACET, AT_254_FACET, AT_365_FACET, AT_405_FACET);
 
     record WeightedField(String name, float weight) {
     }
@@ -114,6 +133,7 @@ public final class LibraryIndexSchema {
         config.setMultiValued(GEOMETRY_FACET, true);
         config.setMultiValued(PROVENANCE_FACET, true);
         config.setMultiValued(THICKNESS_FACET, true);
+        SPECTRAL_FACETS.forEach(dimension -> config.setMultiValued(dimension, true));
         return config;
     }
 
@@ -163,11 +183,46 @@ public final class LibraryIndexSchema {
         return band;
     }
 
-    /** The material's document, before {@link FacetsConfig#build} turns its facet fields into doc values. */
-    static Document document(Material m) {
+    /** The values a spectral facet dimension may take, in the order the page lists them. */
+    public static List<String> spectralValues(String dimension) {
+        return switch (dimension) {
+            case EDGE_FACET -> SpectralSummary.EDGE_BANDS;
+            case LUMINOUS_FACET -> SpectralSummary.LUMINOUS_BANDS;
+            case AT_254_FACET, AT_365_FACET, AT_405_FACET -> SpectralSummary.AT_VALUES;
+            default -> throw new IllegalArgumentException("no spectral facet " + dimension);
+        };
+    }
+
+    /** The value of that spectral dimension, or a refusal naming the values there are. */
+    public static String spectralValueNamed(String dimension, String value) {
+        String v = value.strip();
+        if (!spectralValues(dimension).contains(v)) {
+            throw new IllegalArgumentException(dimension + " '" + value + "' is not one of " + spectralValues(dimension));
+        }
+        return v;
+    }
+
+    /** The value a sample's summary gives in a spectral dimension. */
+    static String spectralValue(SpectralSummary summary, String dimension) {
+        return switch (dimension) {
+            case EDGE_FACET -> summary.edge();
+            case LUMINOUS_FACET -> summary.luminous();
+            case AT_254_FACET -> summary.at254();
+            case AT_365_FACET -> summary.at365();
+            case AT_405_FACET -> summary.at405();
+            default -> throw new IllegalArgumentException("no spectral facet " + dimension);
+        };
+    }
+
+    /**
+     * The material's document, before {@link FacetsConfig#build} turns its facet fields into doc values: a
+     * function of its input alone (the material, and the summaries of its samples' curves).
+     */
+    static Document document(IndexedMaterial input) {
+        Material m = input.material();
         Document doc = new Document();
         doc.add(new StoredField(ID, m.id()));
-        keyAndHitFields(doc, m);
+        keyAndHitFields(doc, input);
         words(doc, NAME, List.of(m.name()));
         words(doc, CLASS_WORDS, List.of(m.materialClass().label()));
         words(doc, TAGS, m.tags());
@@ -185,6 +240,9 @@ public final class LibraryIndexSchema {
         facets(doc, GEOMETRY_FACET, samples.stream().map(s -> s.geometry().label()).toList());
         facets(doc, PROVENANCE_FACET, samples.stream().map(s -> s.provenance().label()).toList());
         facets(doc, THICKNESS_FACET, thicknesses.stream().map(LibraryIndexSchema::thicknessBand).toList());
+        for (String dimension : SPECTRAL_FACETS) {
+            facets(doc, dimension, input.summaries().values().stream().map(s -> spectralValue(s, dimension)).toList());
+        }
         return doc;
     }
 
@@ -193,28 +251,46 @@ public final class LibraryIndexSchema {
         return new Term(ID_KEY, Long.toString(materialId));
     }
 
-    private static void keyAndHitFields(Document doc, Material m) {
+    private static void keyAndHitFields(Document doc, IndexedMaterial input) {
+        Material m = input.material();
         doc.add(new StringField(ID_KEY, Long.toString(m.id()), Field.Store.NO));
         doc.add(new SortedDocValuesField(SORT_NAME, new BytesRef(m.name().toLowerCase(Locale.ROOT))));
         doc.add(new NumericDocValuesField(SORT_ID, m.id()));
         doc.add(new StoredField(HIT_NAME, m.name()));
         doc.add(new StoredField(HIT_CLASS, m.materialClass().label()));
         for (SampleInfo s : m.samples()) {
+            SpectralSummary summary = input.summary(s.id());
+            List<String> spectral = SPECTRAL_FACETS.stream()
+                    .map(dimension -> summary == null ? "" : spectralValue(summary, dimension)).toList();
             doc.add(new StoredField(HIT_SAMPLE, new StoredSample(s.id(), s.geometry().label(), s.provenance().label(),
-                    s.thicknessMm()).encoded()));
+                    s.thicknessMm(), spectral).encoded()));
         }
     }
 
-    /** A sample in use as a hit lists it: what the sample facets are matched against. */
-    record StoredSample(long id, String geometry, String provenance, double thicknessMm) {
+    /**
+     * A sample in use as a hit lists it: what the sample facets are matched against. {@code spectral} holds
+     * its value in each of {@link #SPECTRAL_FACETS}, in that order, or "" for each when its curve could not
+     * be read (it then matches no spectral choice).
+     */
+    record StoredSample(long id, String geometry, String provenance, double thicknessMm, List<String> spectral) {
+
+        StoredSample {
+            spectral = List.copyOf(spectral);
+        }
+
+        /** Its value in a spectral dimension ("" without a readable curve). */
+        String spectralValue(String dimension) {
+            return spectral.get(SPECTRAL_FACETS.indexOf(dimension));
+        }
 
         String encoded() {
-            return id + "\t" + geometry + "\t" + provenance + "\t" + thicknessMm;
+            return id + "\t" + geometry + "\t" + provenance + "\t" + thicknessMm + "\t" + String.join("\t", spectral);
         }
 
         static StoredSample decoded(String stored) {
             String[] parts = stored.split("\t", -1);
-            return new StoredSample(Long.parseLong(parts[0]), parts[1], parts[2], Double.parseDouble(parts[3]));
+            return new StoredSample(Long.parseLong(parts[0]), parts[1], parts[2], Double.parseDouble(parts[3]),
+                    List.of(parts).subList(4, parts.length));
         }
     }
 

@@ -1,8 +1,11 @@
 package org.spectralsieve.search.text;
 
+import java.util.Collections;
 import java.util.List;
+import java.util.Map;
 import java.util.Objects;
 import java.util.Set;
+import java.util.TreeMap;
 import org.spectralsieve.library.Geometry;
 import org.spectralsieve.library.Provenance;
 
@@ -14,9 +17,11 @@ import org.spectralsieve.library.Provenance;
  *
  * @param words     the typed words, "" for none (then every material matches, ordered by name)
  * @param classes   material class labels; an unknown but well-formed class simply matches nothing
+ * @param spectral  values chosen in the spectral-summary dimensions ({@link LibraryIndexSchema#SPECTRAL_FACETS}),
+ *                  by dimension; each value must be one the dimension has
  */
 public record LibraryQuery(String words, Set<String> classes, Set<Geometry> geometries, Set<Provenance> provenances,
-                           Set<String> thicknessBands, int limit) {
+                           Set<String> thicknessBands, Map<String, Set<String>> spectral, int limit) {
 
     public static final int DEFAULT_LIMIT = 20;
     public static final int MAX_LIMIT = 200;
@@ -35,9 +40,28 @@ public record LibraryQuery(String words, Set<String> classes, Set<Geometry> geom
         provenances = Set.copyOf(provenances);
         thicknessBands = Set.copyOf(thicknessBands);
         thicknessBands.forEach(LibraryIndexSchema::thicknessBandNamed);
+        Map<String, Set<String>> copied = new TreeMap<>();
+        for (Map.Entry<String, Set<String>> chosen : Objects.requireNonNullElse(spectral, Map.<String, Set<String>>of()).entrySet()) {
+            chosen.getValue().forEach(v -> LibraryIndexSchema.spectralValueNamed(chosen.getKey(), v));
+            if (!chosen.getValue().isEmpty()) {
+                copied.put(chosen.getKey(), Set.copyOf(chosen.getValue()));
+            }
+        }
+        spectral = Collections.unmodifiableMap(copied);
         if (limit < 1 || limit > MAX_LIMIT) {
             throw new IllegalArgumentException("limit must be 1 to " + MAX_LIMIT + ", got " + limit);
         }
+    }
+
+    /** No spectral-summary value chosen. */
+    public LibraryQuery(String words, Set<String> classes, Set<Geometry> geometries, Set<Provenance> provenances,
+                        Set<String> thicknessBands, int limit) {
+        this(words, classes, geometries, provenances, thicknessBands, Map.of(), limit);
+    }
+
+    /** The values chosen in a spectral-summary dimension (none when that dimension has no choice). */
+    public Set<String> spectral(String dimension) {
+        return spectral.getOrDefault(dimension, Set.of());
     }
 
     /** Words only, no facet chosen. */
@@ -51,6 +75,9 @@ public record LibraryQuery(String words, Set<String> classes, Set<Geometry> geom
             case LibraryIndexSchema.GEOMETRY_FACET -> geometries.stream().map(Geometry::label).sorted().toList();
             case LibraryIndexSchema.PROVENANCE_FACET -> provenances.stream().map(Provenance::label).sorted().toList();
             case LibraryIndexSchema.THICKNESS_FACET -> thicknessBands.stream().sorted().toList();
+            case LibraryIndexSchema.EDGE_FACET, LibraryIndexSchema.LUMINOUS_FACET, LibraryIndexSchema.AT_254_FACET,
+                 LibraryIndexSchema.AT_365_FACET, LibraryIndexSchema.AT_405_FACET ->
+                    spectral(dimension).stream().sorted().toList();
             default -> throw new IllegalArgumentException("no facet " + dimension);
         };
     }

@@ -5,10 +5,12 @@ import java.io.UncheckedIOException;
 import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.Comparator;
+import java.util.HashSet;
 import java.util.Locale;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
+import java.util.Set;
 import org.apache.lucene.analysis.Analyzer;
 import org.apache.lucene.analysis.TokenStream;
 import org.apache.lucene.analysis.tokenattributes.CharTermAttribute;
@@ -40,7 +42,6 @@ import org.apache.lucene.search.Sort;
 import org.apache.lucene.search.SortField;
 import org.apache.lucene.search.TermQuery;
 import org.apache.lucene.store.ByteBuffersDirectory;
-import org.spectralsieve.library.Material;
 
 /**
  * One read-only view of the library's text index, as committed at one {@code generation}: a query never sees
@@ -83,11 +84,12 @@ final class LibraryTextIndex {
     }
 
     /** Materials of equal score are listed in this order: by name as a reader sorts, whatever the database's collation. */
-    private static final Comparator<Material> BY_NAME = Comparator
-            .comparing((Material m) -> m.name().toLowerCase(Locale.ROOT)).thenComparingLong(Material::id);
+    private static final Comparator<IndexedMaterial> BY_NAME = Comparator
+            .comparing((IndexedMaterial m) -> m.material().name().toLowerCase(Locale.ROOT))
+            .thenComparingLong(m -> m.material().id());
 
     /** Indexes the materials, read at {@code generation}, in memory (a view of its own, nothing kept on disk). */
-    static LibraryTextIndex build(List<Material> unordered, long generation) {
+    static LibraryTextIndex build(List<IndexedMaterial> unordered, long generation) {
         try {
             ByteBuffersDirectory directory = new ByteBuffersDirectory();
             try (IndexWriter writer = new IndexWriter(directory, writerConfig())) {
@@ -105,9 +107,9 @@ final class LibraryTextIndex {
     }
 
     /** Adds one document per material (in {@link #BY_NAME} order, so a rebuilt index reads in name order). */
-    static void addAll(IndexWriter writer, List<Material> materials) throws IOException {
+    static void addAll(IndexWriter writer, List<IndexedMaterial> materials) throws IOException {
         FacetsConfig config = LibraryIndexSchema.facetsConfig();
-        for (Material m : materials.stream().sorted(BY_NAME).toList()) {
+        for (IndexedMaterial m : materials.stream().sorted(BY_NAME).toList()) {
             writer.addDocument(config.build(LibraryIndexSchema.document(m)));
         }
     }
@@ -116,7 +118,8 @@ final class LibraryTextIndex {
      * Replaces the documents of the changed materials: deleted, and added again for those still in use
      * ({@code inUse}); uncommitted until the caller commits.
      */
-    static void replace(IndexWriter writer, java.util.Collection<Long> changed, List<Material> inUse) throws IOException {
+    static void replace(IndexWriter writer, java.util.Collection<Long> changed, List<IndexedMaterial> inUse)
+            throws IOException {
         for (long id : changed) {
             writer.deleteDocuments(LibraryIndexSchema.idTerm(id)); // applies to documents added before it only
         }
@@ -138,6 +141,33 @@ final class LibraryTextIndex {
             reader.decRef();
         } catch (IOException e) {
             throw new UncheckedIOException("the text index view could not be closed", e);
+        }
+    }
+
+    /**
+     * The ids of every material the words and chosen facet values admit (no limit): the candidates a
+     * requirement written with words is judged on. Empty for an empty library.
+     */
+    Set<Long> admitted(LibraryQuery query) {
+        if (facetState == null) {
+            return Set.of();
+        }
+        try {
+            DrillDownQuery drillDown = new DrillDownQuery(config, wordsQuery(query.words()));
+            for (String dimension : LibraryIndexSchema.FACETS) {
+                for (String value : query.chosen(dimension)) {
+                    drillDown.add(dimension, value);
+                }
+            }
+            Set<Long> ids = new HashSet<>();
+            int all = Math.max(1, searcher.getIndexReader().maxDoc());
+            StoredFields stored = searcher.storedFields();
+            for (ScoreDoc sd : searcher.search(drillDown, all).scoreDocs) {
+                ids.add(stored.document(sd.doc).getField(LibraryIndexSchema.ID).numericValue().longValue());
+            }
+            return Set.copyOf(ids);
+        } catch (IOException e) {
+            throw new UncheckedIOException("the text index could not be read", e);
         }
     }
 
@@ -200,8 +230,19 @@ final class LibraryTextIndex {
                 .filter(s -> provenances.isEmpty() || provenances.contains(s.provenance()))
                 .filter(s -> query.thicknessBands().isEmpty()
                         || query.thicknessBands().contains(LibraryIndexSchema.thicknessBand(s.thicknessMm())))
+                .filter(s -> meetsSpectralChoices(s, query))
                 .map(LibraryIndexSchema.StoredSample::id)
                 .toList();
+    }
+
+    /** Whether a sample has a chosen value in every spectral dimension with a choice (no readable curve: no). */
+    private static boolean meetsSpectralChoices(LibraryIndexSchema.StoredSample sample, LibraryQuery query) {
+        for (String dimension : LibraryIndexSchema.SPECTRAL_FACETS) {
+            if (!query.spectral(dimension).isEmpty() && !query.spectral(dimension).contains(sample.spectralValue(dimension))) {
+                return false;
+            }
+        }
+        return true;
     }
 
     /**

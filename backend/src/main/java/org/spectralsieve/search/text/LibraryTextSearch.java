@@ -3,7 +3,9 @@ package org.spectralsieve.search.text;
 import java.io.IOException;
 import java.io.UncheckedIOException;
 import java.nio.file.Path;
+import java.util.HashMap;
 import java.util.List;
+import java.util.Map;
 import java.util.Optional;
 import java.util.Set;
 import java.util.concurrent.atomic.AtomicReference;
@@ -14,9 +16,11 @@ import org.slf4j.LoggerFactory;
 import org.spectralsieve.library.JooqLibraryRepository;
 import org.spectralsieve.library.LibraryGeneration;
 import org.spectralsieve.library.Material;
+import org.spectralsieve.library.SampleInfo;
 import org.spectralsieve.search.derived.DerivedIndexFolder;
 import org.spectralsieve.search.derived.IndexJudgement;
 import org.spectralsieve.search.derived.IndexStamp;
+import org.spectralsieve.spectrum.Curve;
 
 /**
  * Text and facet search over the library. The index is derived, never the truth: before each query the
@@ -93,6 +97,16 @@ public class LibraryTextSearch implements AutoCloseable {
         }
     }
 
+    /** The ids of every material the query's words and facet values admit, however many (its limit is ignored). */
+    public Set<Long> admitted(LibraryQuery query) {
+        LibraryTextIndex view = acquire();
+        try {
+            return view.admitted(query);
+        } finally {
+            view.release();
+        }
+    }
+
     /** A view at least as new as the counter read now, with one reference taken for the caller. */
     private LibraryTextIndex acquire() {
         long generation = library.generation();
@@ -142,7 +156,7 @@ public class LibraryTextSearch implements AutoCloseable {
             return rebuild(stamp, "the change log does not name every change after generation " + from);
         }
         try {
-            LibraryTextIndex.replace(store.writer(), changed.get(), library.findMaterialsInUse(changed.get()));
+            LibraryTextIndex.replace(store.writer(), changed.get(), withSummaries(library.findMaterialsInUse(changed.get())));
             store.commit(stamp);
             return new Refresh(How.UPDATED, stamp.generation(), changed.get().size() + " material(s) re-indexed");
         } catch (IOException | RuntimeException e) {
@@ -153,7 +167,7 @@ public class LibraryTextSearch implements AutoCloseable {
 
     private Refresh rebuild(IndexStamp stamp, String why) {
         LOG.info("Rebuilding the text index from the database at generation {}: {}.", stamp.generation(), why);
-        List<Material> materials = library.findMaterials(null, null);
+        List<IndexedMaterial> materials = IndexedMaterial.of(library.findMaterials(null, null), library.findAllCurves());
         try {
             writeAll(materials, stamp);
         } catch (IOException | RuntimeException failed) {
@@ -170,7 +184,27 @@ public class LibraryTextSearch implements AutoCloseable {
         return new Refresh(How.REBUILT, stamp.generation(), why);
     }
 
-    private void writeAll(List<Material> materials, IndexStamp stamp) throws IOException {
+    /**
+     * The changed materials with the spectral summaries of their samples' curves. A curve that cannot be read
+     * is left out as {@link JooqLibraryRepository#findAllCurves} leaves it out of a rebuild, so an update and
+     * a rebuild index the same.
+     */
+    private List<IndexedMaterial> withSummaries(List<Material> materials) {
+        Map<Long, Curve> curves = new HashMap<>();
+        for (Material m : materials) {
+            for (SampleInfo sample : m.samples()) {
+                try {
+                    library.findCurve(sample.id()).ifPresent(curve -> curves.put(sample.id(), curve));
+                } catch (RuntimeException unreadable) {
+                    LOG.warn("the curve of sample {} cannot be read and adds no spectral facet: {}", sample.id(),
+                            unreadable.getMessage());
+                }
+            }
+        }
+        return IndexedMaterial.of(materials, curves);
+    }
+
+    private void writeAll(List<IndexedMaterial> materials, IndexStamp stamp) throws IOException {
         store.writer().deleteAll();
         LibraryTextIndex.addAll(store.writer(), materials);
         store.commit(stamp);

@@ -44,6 +44,7 @@ class LibraryTextSearchTest {
     private LibraryTextSearch search;
     private final Map<String, Long> ids = new LinkedHashMap<>();
     private int files;
+    private final Map<String, byte[]> fileBytes = new LinkedHashMap<>();
 
     @BeforeEach
     void storeCorpus() {
@@ -55,21 +56,52 @@ class LibraryTextSearchTest {
         revisions = new JooqLibraryRevisions(DSL.using(dataSource, SQLDialect.H2));
         search = new LibraryTextSearch(library, generation -> builds.incrementAndGet());
 
+        // each sample's curve (wavelengths, then T) is chosen so that its spectral summary can be worked out
+        // by hand: the 50 % crossing, T at 254 / 365 / 405 nm, and whether 380-780 nm is covered for τv
         long acrylic = store(library, null, material("Fernhollow clear acrylic sheet", "plastic sheet",
                         "Cast acrylic for exposure-unit windows", List.of("cast", "glazing"), List.of(3.0, 6.0, 10.0)),
-                sample(3, Geometry.REGULAR, Provenance.MEASURED, "bench spectrometer", "L-2291", "")).materialId();
-        store(library, acrylic, null, sample(6, Geometry.REGULAR, Provenance.DATASHEET, "", "", "from the stock sheet"));
+                sample(3, Geometry.REGULAR, Provenance.MEASURED, "bench spectrometer", "L-2291", "",
+                        ACRYLIC_3_MM_NM, ACRYLIC_3_MM_T)).materialId();
+        store(library, acrylic, null, sample(6, Geometry.REGULAR, Provenance.DATASHEET, "", "", "from the stock sheet",
+                ACRYLIC_6_MM_NM, ACRYLIC_6_MM_T));
         ids.put("acrylic", acrylic);
         ids.put("polycarbonate", store(library, null, material("Fernhollow UV-blocking polycarbonate", "plastic sheet",
                         "Polycarbonate glazing for the finishing bench", List.of(), List.of()),
-                sample(4, Geometry.TOTAL, Provenance.MEASURED, "sphere spectrometer", "", "")).materialId());
+                sample(4, Geometry.TOTAL, Provenance.MEASURED, "sphere spectrometer", "", "",
+                        POLYCARBONATE_NM, POLYCARBONATE_T)).materialId());
         ids.put("film", store(library, null, material("Fernhollow polyester film", "film",
                         "Clear polyester (PET) film for masks", List.of("mask"), List.of()),
-                sample(0.1, Geometry.REGULAR, Provenance.MEASURED, "bench spectrometer", "", "slight haze")).materialId());
+                sample(0.1, Geometry.REGULAR, Provenance.MEASURED, "bench spectrometer", "", "slight haze",
+                        FILM_NM, FILM_T)).materialId());
         ids.put("glass", store(library, null, material("Fernhollow float glass", "window glass",
                         "Soda-lime float glass", List.of(), List.of()),
-                sample(4, Geometry.REGULAR, Provenance.MODELLED, "", "", "")).materialId());
+                sample(4, Geometry.REGULAR, Provenance.MODELLED, "", "", "", GLASS_NM, GLASS_T)).materialId());
     }
+
+    /*
+     * The corpus's curves (detection limit 0.1 %) and what they give; "50 %" is where T crosses 50 %,
+     * interpolated in absorbance between the two points around it (spectrum.Cutoffs):
+     * acrylic 3 mm: 50 % between 340 (20 %) and 360 nm (60 %), 356.7 nm → 340-380; T(254) 0.26 % → blocks;
+     *   T(365) > 60 % → passes; 405 → passes; τv ≈ 92 % → 80 % and over.
+     * acrylic 6 mm: 50 % between 380 (45 %) and 400 nm (85 %), 383.3 nm → 380-420; starts at 300 → 254 not
+     *   covered; T(365) 24.5 % → partly; 405 → passes; τv ≈ 90 % → 80 % and over.
+     * polycarbonate 4 mm: below detection (0.05 %) up to 380 nm, 60 % at 400 → 50 % at 399.4 nm → 380-420;
+     *   254 and 365 below detection under a 0.1 % limit → blocks; 405 → passes; τv ≈ 88 % → 80 % and over.
+     * film 0.1 mm: 50 % between 340 (40 %) and 360 nm (80 %), 346.4 nm → 340-380; 254 not covered; 365 and
+     *   405 pass; ends at 700 nm → τv not covered.
+     * glass 4 mm: 50 % between 310 (30 %) and 330 nm (80 %), 320.4 nm → 300-340; 254 not covered; 365 and 405
+     *   pass; T ≥ 80 % over 380-780 nm → 80 % and over.
+     */
+    private static final double[] ACRYLIC_3_MM_NM = {250, 300, 340, 360, 400, 800};
+    private static final double[] ACRYLIC_3_MM_T = {0.002, 0.05, 0.2, 0.6, 0.92, 0.92};
+    private static final double[] ACRYLIC_6_MM_NM = {300, 340, 360, 380, 400, 800};
+    private static final double[] ACRYLIC_6_MM_T = {0.003, 0.04, 0.2, 0.45, 0.85, 0.9};
+    private static final double[] POLYCARBONATE_NM = {250, 380, 400, 420, 800};
+    private static final double[] POLYCARBONATE_T = {0.0005, 0.0005, 0.6, 0.85, 0.88};
+    private static final double[] FILM_NM = {300, 320, 340, 360, 700};
+    private static final double[] FILM_T = {0.002, 0.01, 0.4, 0.8, 0.88};
+    private static final double[] GLASS_NM = {290, 310, 330, 800};
+    private static final double[] GLASS_T = {0.01, 0.3, 0.8, 0.9};
 
     private static NewMaterial material(String name, String materialClass, String description, List<String> tags,
                                         List<Double> stock) {
@@ -79,16 +111,25 @@ class LibraryTextSearchTest {
 
     private NewSample sample(double mm, Geometry geometry, Provenance provenance, String instrument, String lot,
                              String notes) {
+        return sample(mm, geometry, provenance, instrument, lot, notes, new double[] {300, 400}, new double[] {0.3, 0.8});
+    }
+
+    private NewSample sample(double mm, Geometry geometry, Provenance provenance, String instrument, String lot,
+                             String notes, double[] nm, double[] t) {
         files++;
-        byte[] bytes = ("wavelength_nm,T\n300,0.3\n400,0.8\n# file " + files + "\n").getBytes(StandardCharsets.UTF_8);
-        Curve curve = Curve.of(new double[] {300, 400}, new double[] {0.3, 0.8}, 1e-3);
-        return new NewSample(mm, geometry, provenance, instrument, null, lot, notes, 1e-3, curve,
+        StringBuilder csv = new StringBuilder("wavelength_nm,T\n");
+        for (int i = 0; i < nm.length; i++) {
+            csv.append(nm[i]).append(',').append(t[i]).append('\n');
+        }
+        byte[] bytes = csv.append("# file ").append(files).append('\n').toString().getBytes(StandardCharsets.UTF_8);
+        fileBytes.put("file" + files + ".csv", bytes);
+        return new NewSample(mm, geometry, provenance, instrument, null, lot, notes, 1e-3, Curve.of(nm, t, 1e-3),
                 "file" + files + ".csv", Checksums.sha256(bytes));
     }
 
     private org.spectralsieve.library.StoredImport store(JooqLibraryRepository into, Long materialId, NewMaterial m,
                                                           NewSample s) {
-        byte[] bytes = ("wavelength_nm,T\n300,0.3\n400,0.8\n# file " + files + "\n").getBytes(StandardCharsets.UTF_8);
+        byte[] bytes = fileBytes.get(s.sourceFileName());
         SourceFile file = new SourceFile(s.sourceFileName(), "text/csv", "delimited", bytes, Checksums.sha256(bytes));
         return into.storeImport(materialId, m, s, file);
     }
@@ -262,5 +303,93 @@ class LibraryTextSearchTest {
                 .isInstanceOf(IllegalArgumentException.class).hasMessageContaining("characters");
         assertThatThrownBy(() -> LibraryQuery.words("acryl", 0)).hasMessageContaining("limit");
         assertThatThrownBy(() -> LibraryQuery.words("acryl", LibraryQuery.MAX_LIMIT + 1)).hasMessageContaining("limit");
+    }
+
+    private static LibraryQuery spectral(String dimension, String... values) {
+        return new LibraryQuery("", Set.of(), Set.of(), Set.of(), Set.of(), Map.of(dimension, Set.of(values)), 20);
+    }
+
+    @Test
+    void spectralSummariesAreFacetsCountedOncePerMaterialEvenWhenItsSamplesDiffer() {
+        LibraryAnswer all = search.search(LibraryQuery.words("", 20));
+
+        // worked out by hand in the corpus comment; the acrylic's two samples differ, so it counts in two values
+        assertThat(counts(all, "edge")).containsExactlyInAnyOrderEntriesOf(
+                Map.of("300-340 nm", 1L, "340-380 nm", 2L, "380-420 nm", 2L));
+        assertThat(counts(all, "luminous")).containsExactlyInAnyOrderEntriesOf(
+                Map.of("80 % and over", 3L, "not covered", 1L));
+        assertThat(counts(all, "at254")).containsExactlyInAnyOrderEntriesOf(Map.of("blocks", 2L, "not covered", 3L));
+        assertThat(counts(all, "at365")).containsExactlyInAnyOrderEntriesOf(
+                Map.of("passes", 3L, "partly", 1L, "blocks", 1L));
+        assertThat(counts(all, "at405")).containsExactlyInAnyOrderEntriesOf(Map.of("passes", 4L));
+    }
+
+    @Test
+    void aCurveThatDoesNotReach254nmIsNotCoveredThereNeverBlocking() {
+        assertThat(names(search.search(spectral("at254", "blocks"))))
+                .containsExactly("Fernhollow clear acrylic sheet", "Fernhollow UV-blocking polycarbonate");
+        assertThat(names(search.search(spectral("at254", "not covered"))))
+                .containsExactly("Fernhollow clear acrylic sheet", "Fernhollow float glass", "Fernhollow polyester film");
+    }
+
+    @Test
+    void aChosenEdgeBandNarrowsTheOtherFacetsAndListsOnlyTheSamplesInIt() {
+        LibraryAnswer violet = search.search(spectral("edge", "380-420 nm"));
+
+        assertThat(names(violet)).containsExactly("Fernhollow clear acrylic sheet", "Fernhollow UV-blocking polycarbonate");
+        // sideways: the edge dimension is counted as if nothing were chosen in it
+        assertThat(counts(violet, "edge")).containsEntry("300-340 nm", 1L).containsEntry("340-380 nm", 2L);
+        // the other dimensions count the two materials: acrylic partly and passes, polycarbonate blocks at 365 nm
+        assertThat(counts(violet, "at365")).containsExactlyInAnyOrderEntriesOf(
+                Map.of("passes", 1L, "partly", 1L, "blocks", 1L));
+        long sixMm = library.findMaterial(ids.get("acrylic")).orElseThrow().samples().stream()
+                .filter(s -> s.thicknessMm() == 6).findFirst().orElseThrow().id();
+        assertThat(violet.hits().get(0).samples()).containsExactly(sixMm); // the 3 mm sample's edge is at 357 nm
+    }
+
+    @Test
+    void spectralChoicesInTwoDimensionsMustBothHold() {
+        LibraryQuery passesBoth = new LibraryQuery("", Set.of(), Set.of(), Set.of(), Set.of(),
+                Map.of("at365", Set.of("passes"), "luminous", Set.of("80 % and over")), 20);
+
+        // the film passes 365 nm but its curve stops at 700 nm: its τv is not covered
+        assertThat(names(search.search(passesBoth)))
+                .containsExactly("Fernhollow clear acrylic sheet", "Fernhollow float glass");
+    }
+
+    @Test
+    void edgesBelowTheRangeDarkSheetsAndOrangeLidsFallInTheirOwnValues() {
+        // a quartz sleeve over 50 % from 200 nm (edge below its range, which starts under 300 nm), a grey
+        // sheet at 3 % everywhere (never rises through 50 %), an orange lid below detection up to 540 nm
+        store(library, null, material("Fernhollow quartz sleeve", "optical glass", "", List.of(), List.of()),
+                sample(2, Geometry.REGULAR, Provenance.DATASHEET, "", "", "", new double[] {200, 250, 800},
+                        new double[] {0.7, 0.9, 0.93}));
+        store(library, null, material("Fernhollow grey viewing sheet", "plastic sheet", "", List.of(), List.of()),
+                sample(3, Geometry.REGULAR, Provenance.MEASURED, "", "", "", new double[] {300, 800},
+                        new double[] {0.03, 0.03}));
+        store(library, null, material("Fernhollow orange printer lid", "plastic sheet", "", List.of(), List.of()),
+                sample(3, Geometry.REGULAR, Provenance.MEASURED, "", "", "", new double[] {300, 540, 560, 800},
+                        new double[] {0.0005, 0.0005, 0.85, 0.88}));
+
+        LibraryAnswer all = search.search(LibraryQuery.words("", 20));
+
+        assertThat(counts(all, "edge")).containsExactlyInAnyOrderEntriesOf(Map.of("under 300 nm", 1L, "300-340 nm", 1L,
+                "340-380 nm", 2L, "380-420 nm", 2L, "420 nm and over", 1L, "no edge in range", 1L));
+        // τv is a weighted mean (ISO 8980-3): 3 % flat → under 10 %; the lid passes ≈ 86 % of only the light
+        // from 560 nm on, 48 % of the D65·V weight on the CIE 5 nm tables (summed by hand), so τv ≈ 42 %
+        assertThat(counts(all, "luminous")).containsExactlyInAnyOrderEntriesOf(
+                Map.of("80 % and over", 4L, "10-50 %", 1L, "under 10 %", 1L, "not covered", 1L));
+        assertThat(counts(all, "at254")).containsExactlyInAnyOrderEntriesOf(
+                Map.of("passes", 1L, "blocks", 2L, "not covered", 5L));
+        assertThat(counts(all, "at365")).containsExactlyInAnyOrderEntriesOf(
+                Map.of("passes", 4L, "partly", 2L, "blocks", 2L));
+        assertThat(counts(all, "at405")).containsExactlyInAnyOrderEntriesOf(
+                Map.of("passes", 5L, "partly", 1L, "blocks", 1L));
+    }
+
+    @Test
+    void anUnknownSpectralValueIsRefusedNamingTheValuesThereAre() {
+        assertThatThrownBy(() -> spectral("at365", "opaque")).isInstanceOf(IllegalArgumentException.class)
+                .hasMessageContaining("at365 'opaque'").hasMessageContaining("passes");
     }
 }
