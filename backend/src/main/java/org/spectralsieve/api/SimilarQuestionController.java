@@ -3,6 +3,7 @@ package org.spectralsieve.api;
 import java.io.IOException;
 import java.util.List;
 import java.util.Optional;
+import java.util.Set;
 import org.spectralsieve.api.ImportForms.AxisForm;
 import org.spectralsieve.api.ImportForms.KeepForm;
 import org.spectralsieve.api.ImportForms.ReadForm;
@@ -11,10 +12,11 @@ import org.spectralsieve.ingest.FilePreview;
 import org.spectralsieve.ingest.ImportService;
 import org.spectralsieve.ingest.OptionText;
 import org.spectralsieve.requirement.Requirement;
-import org.spectralsieve.requirement.RequirementParser;
 import org.spectralsieve.search.SearchService;
 import org.spectralsieve.search.SimilarQuestions;
 import org.spectralsieve.search.SimilarSamples;
+import org.spectralsieve.search.WordedSearch;
+import org.spectralsieve.search.text.LibraryTextSearch;
 import org.spectralsieve.similarity.ComparedBand;
 import org.spectralsieve.similarity.ShapeMetric;
 import org.spectralsieve.weighting.SpectrumLookup;
@@ -40,13 +42,15 @@ class SimilarQuestionController {
     private final ImportService imports;
     private final SearchService search;
     private final SpectrumLookup spectra;
+    private final WordedSearch worded;
 
     SimilarQuestionController(SimilarQuestions questions, ImportService imports, SearchService search,
-                              SpectrumLookup spectra) {
+                              SpectrumLookup spectra, LibraryTextSearch text) {
         this.questions = questions;
         this.imports = imports;
         this.search = search;
         this.spectra = spectra;
+        this.worded = new WordedSearch(search, text);
     }
 
     @PostMapping(path = "/api/similar", consumes = MediaType.MULTIPART_FORM_DATA_VALUE)
@@ -66,15 +70,19 @@ class SimilarQuestionController {
         ShapeMetric named = metric == null || metric.isBlank() ? null : SimilarController.metric(metric);
         Double thickness = OptionText.thicknessOrNull("thicknessMm", thicknessMm);
         Boolean isBulk = blank(bulk) ? null : OptionText.bool("bulk", bulk);
-        Optional<Requirement> wanted = requirement == null || requirement.isBlank() ? Optional.empty()
-                : Optional.of(RequirementParser.parse(requirement, spectra, search.materialClasses()));
+        // read as the requirement search reads it: words and terms about the stock beside the clauses
+        Optional<WordedSearch.Read> written = requirement == null || requirement.isBlank() ? Optional.empty()
+                : Optional.of(worded.read(requirement, spectra, search.materialClasses()));
+        Optional<Requirement> wanted = written.map(WordedSearch.Read::requirement);
+        Optional<Set<Long>> admitted = written.flatMap(worded::admitted);
         SimilarQuestions.Query query = query(file, sampleId, thickness, isBulk, read, keep, axes);
         ShapeMetric chosen = named == null ? SimilarQuestions.defaultMetric(query) : named;
         if (!SimilarQuestions.canRank(query, chosen)) {
             throw new BadParameterException("metric", SimilarSamples.metricName(chosen) + " compares absorbance at the"
                     + " query's thickness: give thicknessMm, or use correlation (blind to thickness)");
         }
-        return AnswerJson.of(questions.ask(query, chosen, asked, n, wanted, wanted.isPresent() ? requirement.strip() : null));
+        return AnswerJson.of(questions.ask(query, chosen, asked, n, wanted, wanted.isPresent() ? requirement.strip() : null,
+                admitted));
     }
 
     private SimilarQuestions.Query query(MultipartFile file, String sampleId, Double thickness, Boolean bulk,
@@ -121,7 +129,7 @@ class SimilarQuestionController {
             QueryJson query = new QueryJson(q.sampleId().isPresent() ? q.sampleId().getAsLong() : null, q.fileName(),
                     q.thicknessMm(), q.bulk(), a.quality().coveredPoints(), a.quality().resolvedPoints());
             RequirementCountJson requirement = a.requirement()
-                    .map(r -> new RequirementCountJson(r.text(), r.looked(), r.met())).orElse(null);
+                    .map(r -> new RequirementCountJson(r.text(), r.looked(), r.met(), r.admitted())).orElse(null);
             return new AnswerJson(query, SimilarSamples.metricName(a.metric()), SimilarController.BandJson.of(a.band()),
                     a.warnings(), requirement, a.hits().stream().map(SimilarController::json).toList());
         }
@@ -135,7 +143,11 @@ class SimilarQuestionController {
                      int pointsResolved) {
     }
 
-    /** @param looked the nearest curves looked at; @param met how many of them belong to a material meeting it */
-    record RequirementCountJson(String text, int looked, int met) {
+    /**
+     * @param looked   the nearest curves looked at
+     * @param met      how many of them belong to a material meeting it (and admitted by its words)
+     * @param admitted how many materials the requirement's words admitted; null when it has no words
+     */
+    record RequirementCountJson(String text, int looked, int met, Integer admitted) {
     }
 }

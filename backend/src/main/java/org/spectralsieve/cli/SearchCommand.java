@@ -109,7 +109,7 @@ final class SearchCommand implements Callable<Integer> {
         return SieveCli.OK;
     }
 
-    private static void preParse(String text) {
+    static void preParse(String text) {
         try {
             // words about the stock before the clauses are the library's to judge; the clauses are read here
             RequirementWords words = RequirementWords.split(text, PROVENANCES);

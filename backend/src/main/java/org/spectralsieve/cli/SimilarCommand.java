@@ -7,6 +7,7 @@ import java.nio.file.Path;
 import java.util.List;
 import java.util.Locale;
 import java.util.Optional;
+import java.util.Set;
 import java.util.concurrent.Callable;
 import org.spectralsieve.importers.ImportException;
 import org.spectralsieve.ingest.FilePreview;
@@ -18,13 +19,13 @@ import org.spectralsieve.ingest.IngestException;
 import org.spectralsieve.library.NotFoundException;
 import org.spectralsieve.optics.PhysicalRanges;
 import org.spectralsieve.requirement.Requirement;
-import org.spectralsieve.requirement.RequirementParser;
 import org.spectralsieve.requirement.RequirementSyntaxException;
-import org.spectralsieve.requirement.RequirementTooLargeException;
 import org.spectralsieve.search.LayerResolutionException;
 import org.spectralsieve.search.SearchService;
 import org.spectralsieve.search.SimilarQuestions;
 import org.spectralsieve.search.SimilarSamples;
+import org.spectralsieve.search.WordedSearch;
+import org.spectralsieve.search.text.LibraryTextSearch;
 import org.spectralsieve.similarity.ComparedBand;
 import org.spectralsieve.similarity.ShapeMetric;
 import org.spectralsieve.similarity.SimilarHit;
@@ -73,7 +74,7 @@ final class SimilarCommand implements Callable<Integer> {
     String band;
 
     @Option(names = "--requirement", paramLabel = "TEXT", description = "Find a substitute: keep only samples of"
-            + " materials that also meet this requirement (as search takes it), among the "
+            + " materials that also meet this requirement (as search takes it, words about the stock included), among the "
             + SimilarQuestions.SUBSTITUTE_POOL + " nearest curves.")
     String requirementText;
 
@@ -124,11 +125,16 @@ final class SimilarCommand implements Callable<Integer> {
                 throw usage("--metric: " + SimilarSamples.metricName(chosen) + " compares absorbance at the query's"
                         + " thickness: give --thickness, or use correlation");
             }
-            Optional<Requirement> requirement = requirementText == null || requirementText.isBlank() ? Optional.empty()
-                    : Optional.of(parse(requirementText, context.getBean(SpectrumLookup.class),
-                    context.getBean(SearchService.class).materialClasses()));
+            // read as search reads it: words and terms about the stock beside the clauses narrow the substitutes
+            SearchService search = context.getBean(SearchService.class);
+            WordedSearch worded = new WordedSearch(search, context.getBean(LibraryTextSearch.class));
+            Optional<WordedSearch.Read> read = requirementText == null || requirementText.isBlank() ? Optional.empty()
+                    : Optional.of(read(worded, requirementText, context.getBean(SpectrumLookup.class),
+                    search.materialClasses()));
+            Optional<Requirement> requirement = read.map(WordedSearch.Read::requirement);
+            Optional<Set<Long>> admitted = read.flatMap(worded::admitted);
             answer = questions.ask(query, chosen, asked, limit, requirement,
-                    requirement.isPresent() ? requirementText.strip() : null);
+                    requirement.isPresent() ? requirementText.strip() : null, admitted);
         } catch (NotFoundException e) {
             throw new CliFailure(SieveCli.FAILED, e.getMessage());
         } catch (LayerResolutionException e) {
@@ -186,28 +192,29 @@ final class SimilarCommand implements Callable<Integer> {
                 p.warnings());
     }
 
-    /** Read before the database opens, so a typo costs no start-up time (as search does). */
+    /** Read before the database opens, so a typo costs no start-up time (exactly as search does). */
     private static void preParse(String text) {
         if (text == null || text.isBlank()) {
             return;
         }
-        try {
-            RequirementParser.parse(text, SpectrumLookup.builtIn());
-        } catch (RequirementTooLargeException e) {
-            throw new CliFailure(SieveCli.USAGE, List.of("requirement not read: " + e.getMessage()));
-        } catch (RequirementSyntaxException e) {
-            if (!e.unknownSpectrum()) {
-                throw new CliFailure(SieveCli.USAGE, RequirementErrorReport.lines(text, e));
-            }
-        }
+        SearchCommand.preParse(text);
     }
 
-    private static Requirement parse(String text, SpectrumLookup spectra, List<String> classes) {
+    private static WordedSearch.Read read(WordedSearch worded, String text, SpectrumLookup spectra, List<String> classes) {
         try {
-            return RequirementParser.parse(text, spectra, classes);
+            return worded.read(text, spectra, classes);
         } catch (RequirementSyntaxException e) {
             throw new CliFailure(SieveCli.USAGE, RequirementErrorReport.lines(text, e));
         }
+    }
+
+    /** ", among the 7 materials its words admit" — nothing when the requirement has no words. */
+    private static String admittedNote(Integer admitted) {
+        if (admitted == null) {
+            return "";
+        }
+        return admitted == 0 ? ", among no material: its words admit none of the library"
+                : ", among the " + admitted + (admitted == 1 ? " material" : " materials") + " its words admit";
     }
 
     /**
@@ -229,7 +236,7 @@ final class SimilarCommand implements Callable<Integer> {
         }
         table.print(out);
         answer.requirement().ifPresent(r -> out.println("requirement: " + r.met() + " of the " + r.looked()
-                + " nearest curves belong to a material that meets '" + r.text() + "'"));
+                + " nearest curves belong to a material that meets '" + r.text() + "'" + admittedNote(r.admitted())));
         answer.warnings().forEach(w -> out.println("note: " + w));
         out.flush();
     }

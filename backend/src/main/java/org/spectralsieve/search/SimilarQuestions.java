@@ -63,8 +63,16 @@ public final class SimilarQuestions {
         }
     }
 
-    /** What the substitute filter looked at: the nearest {@code looked} curves, of which {@code met} meet the requirement. */
-    public record RequirementCount(String text, int looked, int met) {
+    /**
+     * What the substitute filter looked at: the nearest {@code looked} curves, of which {@code met} belong to a
+     * material that meets the requirement (and that its words admit, when it has words).
+     *
+     * @param admitted how many materials of the library the requirement's words admitted; null without words
+     */
+    public record RequirementCount(String text, int looked, int met, Integer admitted) {
+        public RequirementCount(String text, int looked, int met) {
+            this(text, looked, met, null);
+        }
     }
 
     /**
@@ -122,6 +130,18 @@ public final class SimilarQuestions {
      */
     public Answer ask(Query query, ShapeMetric metric, Optional<ComparedBand> band, int limit,
                       Optional<Requirement> requirement, String requirementText) {
+        return ask(query, metric, band, limit, requirement, requirementText, Optional.empty());
+    }
+
+    /**
+     * As {@link #ask(Query, ShapeMetric, Optional, int, Optional, String)}, for a requirement written with words
+     * about the stock: a substitute's material must also be one the words admit ({@link WordedSearch#admitted}),
+     * as the requirement search narrows its candidates.
+     *
+     * @param admitted the materials the words admit; empty when the requirement has no words (none is left out)
+     */
+    public Answer ask(Query query, ShapeMetric metric, Optional<ComparedBand> band, int limit,
+                      Optional<Requirement> requirement, String requirementText, Optional<Set<Long>> admitted) {
         if (!canRank(query, metric)) {
             throw new IllegalArgumentException(SimilarSamples.metricName(metric) + " needs the query's thickness");
         }
@@ -140,12 +160,16 @@ public final class SimilarQuestions {
                 ? OptionalLong.of(similar.materialOf(query.sampleId().getAsLong())) : OptionalLong.empty();
         List<SimilarSamples.Hit> looked = pool.stream()
                 .filter(h -> own.isEmpty() || h.materialId() != own.getAsLong()).toList();
+        // only materials the words admit are judged: the others cannot be substitutes whatever their curves
         Set<Long> materials = new LinkedHashSet<>();
-        looked.forEach(h -> materials.add(h.materialId()));
+        looked.stream().filter(h -> admitted.isEmpty() || admitted.get().contains(h.materialId()))
+                .forEach(h -> materials.add(h.materialId()));
         Map<Long, SearchService.SampleEvaluationRow> rows = search.judgeMaterials(requirement.get(), materials);
-        List<SimilarSamples.Hit> met = looked.stream().filter(h -> meets(rows.get(h.materialId()))).toList();
+        List<SimilarSamples.Hit> met = looked.stream()
+                .filter(h -> materials.contains(h.materialId()) && meets(rows.get(h.materialId()))).toList();
         return new Answer(query, quality, metric, band, warnings,
-                Optional.of(new RequirementCount(requirementText, looked.size(), met.size())),
+                Optional.of(new RequirementCount(requirementText, looked.size(), met.size(),
+                        admitted.map(Set::size).orElse(null))),
                 met.subList(0, Math.min(limit, met.size())));
     }
 

@@ -87,14 +87,30 @@ public class WordedSearch {
     public Answer search(Read read, int limit) {
         Requirement requirement = read.requirement();
         RequirementWords words = read.words();
-        if (!words.any()) {
+        Optional<Set<Long>> admittedByWords = admitted(read);
+        if (admittedByWords.isEmpty()) {
             return new Answer(search.search(requirement, limit), Optional.empty());
         }
-        Set<Long> admitted = text.admitted(new LibraryQuery(words.words(), requirement.materialClass().map(Set::of).orElse(Set.of()),
-                geometries(requirement), words.provenances().stream().map(Provenance::parse).collect(java.util.stream.Collectors.toSet()),
-                Set.of(), 1));
+        Set<Long> admitted = admittedByWords.get();
         Shortlist shortlist = search.search(requirement, limit, admitted);
         return new Answer(shortlist, Optional.of(new Words(words.words(), words.provenances(), admitted.size())));
+    }
+
+    /**
+     * The ids of the materials the words and terms admit (with the requirement's class and geometry, as the
+     * search narrows by them); empty when the text has no words, so the caller judges the whole library.
+     * Shared with "find a substitute", which filters similar curves by the same narrowing.
+     */
+    public Optional<Set<Long>> admitted(Read read) {
+        RequirementWords words = read.words();
+        if (!words.any()) {
+            return Optional.empty();
+        }
+        Requirement requirement = read.requirement();
+        return Optional.of(text.admitted(new LibraryQuery(words.words(),
+                requirement.materialClass().map(Set::of).orElse(Set.of()), geometries(requirement),
+                words.provenances().stream().map(Provenance::parse).collect(java.util.stream.Collectors.toSet()),
+                Set.of(), 1)));
     }
 
     /** The requirement's geometry filter as a facet choice: "any" or none chooses nothing. */

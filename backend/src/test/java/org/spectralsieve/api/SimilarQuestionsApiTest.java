@@ -177,6 +177,54 @@ class SimilarQuestionsApiTest {
     }
 
     @Test
+    void wordsBesideTheRequirementKeepExactlyTheSubstitutesWhoseMaterialTheWordsAdmit() throws Exception {
+        long sample = sampleAt(material(STOCK), 4);
+        JsonNode plain = post(Multipart.fields().field("sampleId", sample).field("requirement", VIOLET_REQUIREMENT)
+                .field("limit", 50), 200);
+        assertThat(plain.path("requirement").path("admitted").isNull()
+                || plain.path("requirement").path("admitted").isMissingNode())
+                .as("a requirement without words admits by no words").isTrue();
+
+        // leading words, as the requirement search takes them
+        String acrylic = "acrylic " + VIOLET_REQUIREMENT;
+        Set<Long> admittedAcrylic = libraryMaterials("q=acrylic");
+        JsonNode worded = post(Multipart.fields().field("sampleId", sample).field("requirement", acrylic)
+                .field("limit", 50), 200);
+        List<Long> expected = idsOfMaterials(plain, admittedAcrylic);
+        assertThat(expected).as("the words must leave some substitutes out and keep some").isNotEmpty()
+                .hasSizeLessThan(plain.path("hits").size());
+        assertThat(ids(worded)).isEqualTo(expected);
+        JsonNode counted = worded.path("requirement");
+        assertThat(counted.path("text").asString()).isEqualTo(acrylic);
+        assertThat(counted.path("looked").asInt()).isEqualTo(plain.path("requirement").path("looked").asInt());
+        assertThat(counted.path("met").asInt()).isEqualTo(expected.size());
+        assertThat(counted.path("admitted").asInt()).isEqualTo(admittedAcrylic.size());
+
+        // a provenance term narrows as the library's provenance facet does
+        String modelled = VIOLET_REQUIREMENT + " and provenance modelled";
+        Set<Long> admittedModelled = libraryMaterials("provenance=modelled");
+        JsonNode byProvenance = post(Multipart.fields().field("sampleId", sample).field("requirement", modelled)
+                .field("limit", 50), 200);
+        assertThat(ids(byProvenance)).isEqualTo(idsOfMaterials(plain, admittedModelled));
+        assertThat(byProvenance.path("requirement").path("admitted").asInt()).isEqualTo(admittedModelled.size());
+    }
+
+    @Test
+    void wordsThatAdmitNoMaterialLeaveNoSubstituteAndSaySo() throws Exception {
+        long sample = sampleAt(material(STOCK), 4);
+        JsonNode plain = post(Multipart.fields().field("sampleId", sample).field("requirement", VIOLET_REQUIREMENT)
+                .field("limit", 50), 200);
+        assertThat(libraryMaterials("q=unobtainium")).isEmpty();
+        JsonNode none = post(Multipart.fields().field("sampleId", sample)
+                .field("requirement", "unobtainium " + VIOLET_REQUIREMENT).field("limit", 50), 200);
+        assertThat(none.path("hits")).isEmpty();
+        assertThat(none.path("requirement").path("admitted").asInt()).isZero();
+        assertThat(none.path("requirement").path("admitted").isNumber()).isTrue();
+        assertThat(none.path("requirement").path("met").asInt()).isZero();
+        assertThat(none.path("requirement").path("looked").asInt()).isEqualTo(plain.path("requirement").path("looked").asInt());
+    }
+
+    @Test
     void aCurveAtItsDetectionFloorIsSaidToRestOnFewResolvedPoints() throws Exception {
         long film = material(BLACK_FILM).path("samples").get(0).path("id").asLong();
         JsonNode got = get("/api/samples/" + film + "/similar", 200);
@@ -210,6 +258,8 @@ class SimilarQuestionsApiTest {
         assertThat(problem(Multipart.file("a.csv", file).field("limit", 51))).isEqualTo("limit");
         assertThat(problem(Multipart.file("a.csv", file).field("band", "100-200"))).isEqualTo("band");
         assertThat(problem(Multipart.file("a.csv", file).field("requirement", "passes over"))).isEqualTo("requirement");
+        assertThat(problem(Multipart.file("a.csv", file).field("requirement", "acrylic provenance guessed and passes over"
+                + " 80% at 400 nm"))).isEqualTo("requirement"); // a provenance the library does not know
         assertThat(problem(Multipart.file("a.csv", file).field("yKind", "colour"))).isEqualTo("yKind");
         // a file that is no curve: the preview's own problem, naming the file
         HttpResponse<String> unreadable = Multipart.file("notes.csv", "wavelength,transmittance\nfoo,bar\n")
@@ -249,6 +299,21 @@ class SimilarQuestionsApiTest {
             }
         }
         return out;
+    }
+
+    /** The materials {@code GET /api/library} finds for a query, every one of them (the demo library is small). */
+    private Set<Long> libraryMaterials(String query) throws Exception {
+        JsonNode answer = get("/api/library?limit=200&" + query, 200);
+        assertThat(answer.path("total").asLong()).isLessThanOrEqualTo(200);
+        Set<Long> out = new HashSet<>();
+        answer.path("hits").forEach(h -> out.add(h.path("materialId").asLong()));
+        return out;
+    }
+
+    /** The sample ids of an answer's hits whose material is one of {@code materials}, in the answer's order. */
+    private static List<Long> idsOfMaterials(JsonNode answer, Set<Long> materials) {
+        return answer.path("hits").valueStream().filter(h -> materials.contains(h.path("materialId").asLong()))
+                .map(h -> h.path("sampleId").asLong()).toList();
     }
 
     private static List<Long> ids(JsonNode answer) {
