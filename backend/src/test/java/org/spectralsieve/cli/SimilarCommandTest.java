@@ -193,6 +193,39 @@ class SimilarCommandTest {
     }
 
     @Test
+    void wordsBesideTheRequirementKeepExactlyTheSubstitutesWhoseMaterialTheWordsAdmit() throws Exception {
+        String query = String.valueOf(firstSampleOf("bronze-tint-float-glass"));
+        String requirement = "passes over 70% from 400 to 450 nm";
+        Run plain = cli("similar", "--sample", query, "--limit", "50", "--requirement", requirement);
+        assertThat(plain.exitCode()).as(plain.err()).isZero();
+        assertThat(plain.out()).as("without words nothing is said about words").doesNotContain("its words admit");
+
+        Run worded = cli("similar", "--sample", query, "--limit", "50", "--requirement", "acrylic " + requirement);
+
+        assertThat(worded.exitCode()).as(worded.err()).isZero();
+        JsonNode library = getJson("/api/library?limit=200&q=acrylic");
+        List<String> admitted = library.path("hits").valueStream().map(h -> String.valueOf(h.path("materialId").asLong()))
+                .toList();
+        List<List<String>> expected = rows(plain.out()).stream().filter(row -> admitted.contains(row.get(0))).toList();
+        assertThat(expected).as("the words must leave some substitutes out and keep some").isNotEmpty()
+                .hasSizeLessThan(rows(plain.out()).size());
+        assertThat(rows(worded.out())).isEqualTo(expected);
+        assertThat(worded.out()).contains("requirement: " + expected.size() + " of the ", " nearest curves belong to a"
+                + " material that meets 'acrylic " + requirement + "', among the " + library.path("total").asLong()
+                + " materials its words admit");
+    }
+
+    @Test
+    void wordsThatAdmitNoMaterialLeaveAnEmptyTableNotAnError() {
+        Run run = cli("similar", "--sample", String.valueOf(firstSampleOfUnchecked("bronze-tint-float-glass")),
+                "--requirement", "unobtainium passes over 70% from 400 to 450 nm");
+        assertThat(run.exitCode()).as(run.err()).isZero();
+        assertThat(rows(run.out())).isEmpty();
+        assertThat(run.out()).containsPattern("requirement: 0 of the \\d+ nearest curves belong to a material that meets"
+                + " 'unobtainium passes over 70% from 400 to 450 nm', among no material: its words admit none of the library");
+    }
+
+    @Test
     void aCurveAtItsDetectionFloorCarriesTheWarning() {
         Run run = cli("similar", "--sample", String.valueOf(firstSampleOfUnchecked("black-stencil-film")));
         assertThat(run.exitCode()).as(run.err()).isZero();
