@@ -400,6 +400,10 @@ export function initSimilar(ui) {
     const r = answer.requirement;
     if (r && typeof r === 'object') {
       text += ` · “${r.text}”: ${r.looked} look-alike${r.looked === 1 ? '' : 's'} looked at, ${r.met} meet${r.met === 1 ? 's' : ''} it`;
+      if (Number.isFinite(r.admitted)) {
+        text += r.admitted === 0 ? ', its words admit no material of the library'
+          : `, among the ${r.admitted} material${r.admitted === 1 ? '' : 's'} its words admit`;
+      }
     } else if (askedRequirement) {
       text += ' · the requirement was not applied by this server';
     }
