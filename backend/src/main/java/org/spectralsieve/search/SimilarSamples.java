@@ -19,8 +19,9 @@ import org.spectralsieve.store.SpectralStore;
 import org.spectralsieve.store.StoredMaterial;
 
 /**
- * The stored samples whose curves look most like one sample's, ranked exactly by brute force
- * ({@link SimilarCurves}) over every curve in use (docs/similar-curves.md). The candidates are the search
+ * The stored samples whose curves look most like one sample's, ranked exactly ({@link SimilarCurves}) over
+ * every curve in use, or, in a library larger than {@link #EXACT_UP_TO}, over the candidates the vector index
+ * nominates (docs/similar-curves.md). The candidates are the search
  * store's curves — the library as {@link SearchService} last read it, retired samples and materials excluded —
  * and their signatures are computed once per store, not per request.
  */
@@ -39,13 +40,26 @@ public final class SimilarSamples {
     public static final List<String> METRIC_NAMES = java.util.Arrays.stream(ShapeMetric.values())
             .map(SimilarSamples::metricName).toList();
 
+    /**
+     * Up to this many curves every one is compared (exactly, a few milliseconds); above it the vector index
+     * nominates the candidates ({@link SimilarCandidates}). The demo library (about 90) stays exact.
+     */
+    public static final int EXACT_UP_TO = 2000;
+
     private final SearchService search;
     private final JooqLibraryRepository library;
+    private final int exactUpTo;
     private final AtomicReference<Signed> signed = new AtomicReference<>();
 
     public SimilarSamples(SearchService search, JooqLibraryRepository library) {
+        this(search, library, EXACT_UP_TO);
+    }
+
+    /** {@code exactUpTo}: the library size up to which no vector index is built (tests use 0). */
+    SimilarSamples(SearchService search, JooqLibraryRepository library, int exactUpTo) {
         this.search = search;
         this.library = library;
+        this.exactUpTo = exactUpTo;
     }
 
     /** "correlation", "centred-euclidean". */
@@ -65,7 +79,8 @@ public final class SimilarSamples {
     }
 
     /** A store's curves as similarity candidates, by sample id. */
-    private record Signed(SpectralStore store, Map<Long, Integer> curveOfSample, List<SimilarCurves.Candidate> candidates) {
+    private record Signed(SpectralStore store, Map<Long, Integer> curveOfSample, List<SimilarCurves.Candidate> candidates,
+                          SimilarCandidates vectors) {
     }
 
     /**
@@ -81,7 +96,9 @@ public final class SimilarSamples {
         Signed s = signed();
         CurveSignature query = query(s, sampleId);
         String own = String.valueOf(sampleId);
-        List<SimilarCurves.Candidate> others = s.candidates().stream().filter(c -> !c.id().equals(own)).toList();
+        List<SimilarCurves.Candidate> pool = s.vectors() == null ? s.candidates()
+                : s.vectors().nominate(query, limit + 1, s.candidates(), s.curveOfSample());
+        List<SimilarCurves.Candidate> others = pool.stream().filter(c -> !c.id().equals(own)).toList();
         List<Hit> hits = new ArrayList<>();
         for (SimilarHit hit : SimilarCurves.rank(query, others, metric, limit)) {
             int curve = s.curveOfSample().get(Long.parseLong(hit.id()));
@@ -123,7 +140,9 @@ public final class SimilarSamples {
             candidates.add(new SimilarCurves.Candidate(String.valueOf(store.sampleId(curve)),
                     CurveSignature.of(store.curve(curve), store.thicknessMm(curve), store.isBulk(curve))));
         }
-        Signed built = new Signed(store, Map.copyOf(curveOfSample), List.copyOf(candidates));
+        List<SimilarCurves.Candidate> all = List.copyOf(candidates);
+        SimilarCandidates vectors = store.size() > exactUpTo ? SimilarCandidates.build(store, all) : null;
+        Signed built = new Signed(store, Map.copyOf(curveOfSample), all, vectors);
         signed.set(built);
         return built;
     }
