@@ -4,7 +4,7 @@ import java.util.Random;
 import org.spectralsieve.similarity.CurveSignature;
 import org.spectralsieve.spectrum.Curve;
 import org.spectralsieve.store.SyntheticCurves;
-import org.spectralsieve.store.SpectralStore;
+import org.spectralsieve.spectrum.WavelengthGrid;
 
 /**
  * Plausible transmittance curves as similarity signatures, deterministic for a seed: the absorption edges,
@@ -24,15 +24,12 @@ public final class SyntheticSignatures {
         }
     }
 
-    private final SyntheticCurves curves;
-    private final Random noise;
-    private SyntheticCurves.Spec material;
-    private boolean fromUv;
+    private static final WavelengthGrid SPEC_GRID = new WavelengthGrid(200, 201, 1); // specs only, no codes
+    private final long seed;
     private int made;
 
     public SyntheticSignatures(long seed) {
-        this.curves = new SyntheticCurves(seed, SpectralStore.DEFAULT_GRID);
-        this.noise = new Random(seed ^ 0x5DEECE66DL);
+        this.seed = seed;
     }
 
     /** One generated sample: its material number, whether it is bulk, and its signature. */
@@ -48,16 +45,28 @@ public final class SyntheticSignatures {
 
     /** The next sample; every {@value #SAMPLES_PER_MATERIAL} share one material. */
     public Sample next() {
-        int index = made++;
-        if (index % SAMPLES_PER_MATERIAL == 0) {
-            material = curves.next();
-            fromUv = noise.nextDouble() >= 0.1;
-        }
+        return sample(made++);
+    }
+
+    /**
+     * Sample {@code index}, the same whenever asked (each material and each sample has its own seed), so a
+     * benchmark can re-create any of a million without holding them.
+     */
+    public Sample sample(int index) {
         int materialNumber = index / SAMPLES_PER_MATERIAL;
+        SyntheticCurves.Spec material = new SyntheticCurves(mix(seed, materialNumber), SPEC_GRID).next();
+        boolean fromUv = new Random(mix(seed, -1 - materialNumber)).nextDouble() >= 0.1;
+        Random noise = new Random(mix(seed ^ 0x5DEECE66DL, index));
         boolean bulk = materialNumber % 3 != 2;
         double thickness = 0.5 + noise.nextDouble() * 9.5;
         return new Sample(materialNumber, bulk, thickness, signature(material, thickness, fromUv, bulk, noise), material,
                 fromUv);
+    }
+
+    private static long mix(long seed, long n) {
+        long z = seed * 0x9E3779B97F4A7C15L + n;
+        z = (z ^ (z >>> 30)) * 0xBF58476D1CE4E5B9L;
+        return z ^ (z >>> 27);
     }
 
     /** Material {@code spec} at {@code thicknessMm}, with noise from {@code random}. */
