@@ -10,6 +10,7 @@ import org.spectralsieve.library.Material;
 import org.spectralsieve.library.NotFoundException;
 import org.spectralsieve.library.SampleInfo;
 import org.spectralsieve.library.SampleRescaling;
+import org.spectralsieve.search.vector.ExactReRank;
 import org.spectralsieve.similarity.CurveSignature;
 import org.spectralsieve.similarity.ShapeMetric;
 import org.spectralsieve.similarity.SimilarCurves;
@@ -100,7 +101,9 @@ public final class SimilarSamples {
                 : s.vectors().nominate(query, limit + 1, s.candidates(), s.curveOfSample());
         List<SimilarCurves.Candidate> others = pool.stream().filter(c -> !c.id().equals(own)).toList();
         List<Hit> hits = new ArrayList<>();
-        for (SimilarHit hit : SimilarCurves.rank(query, others, metric, limit)) {
+        List<SimilarHit> ranked = s.vectors() == null ? SimilarCurves.rank(query, others, metric, limit)
+                : ExactReRank.rank(query, others, metric, limit);
+        for (SimilarHit hit : ranked) {
             int curve = s.curveOfSample().get(Long.parseLong(hit.id()));
             StoredMaterial m = s.store().material(curve);
             // the store keeps a float: read back through its shortest decimal, 0.1 mm stays 0.1

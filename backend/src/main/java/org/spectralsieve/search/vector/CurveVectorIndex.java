@@ -1,6 +1,7 @@
 package org.spectralsieve.search.vector;
 
 import java.io.IOException;
+import java.util.concurrent.ExecutorService;
 import org.apache.lucene.codecs.Codec;
 import org.apache.lucene.codecs.KnnVectorsFormat;
 import org.apache.lucene.codecs.lucene912.Lucene912Codec;
@@ -66,9 +67,16 @@ public final class CurveVectorIndex {
     }
 
     public static IndexWriterConfig writerConfig(Storage storage, int maxConnections, int beamWidth) {
+        return writerConfig(storage, maxConnections, beamWidth, 1, null);
+    }
+
+    /** As above, merging graphs on {@code mergeWorkers} threads of {@code mergeExecutor} (null: the merging thread). */
+    public static IndexWriterConfig writerConfig(Storage storage, int maxConnections, int beamWidth, int mergeWorkers,
+            ExecutorService mergeExecutor) {
         KnnVectorsFormat format = storage == Storage.INT7
-                ? new Lucene99HnswScalarQuantizedVectorsFormat(maxConnections, beamWidth)
-                : new Lucene99HnswVectorsFormat(maxConnections, beamWidth);
+                ? new Lucene99HnswScalarQuantizedVectorsFormat(maxConnections, beamWidth, mergeWorkers, 7, false, null,
+                        mergeExecutor)
+                : new Lucene99HnswVectorsFormat(maxConnections, beamWidth, mergeWorkers, mergeExecutor);
         Codec codec = new Lucene912Codec() {
             @Override
             public KnnVectorsFormat getKnnVectorsFormatForField(String field) {
@@ -86,13 +94,18 @@ public final class CurveVectorIndex {
     }
 
     static Document document(Entry e) {
+        return document(e.sampleId(), CurveVectors.of(e.signature()), e.materialClass(), e.geometry(), e.provenance());
+    }
+
+    /** One sample's document from its {@link CurveVectors} vector already made (a benchmark streams them). */
+    public static Document document(long sampleId, float[] vector, String materialClass, String geometry, String provenance) {
         Document doc = new Document();
-        doc.add(new KnnFloatVectorField(VECTOR, CurveVectors.of(e.signature()), VectorSimilarityFunction.DOT_PRODUCT));
-        doc.add(new NumericDocValuesField(SAMPLE, e.sampleId()));
-        doc.add(new StringField(CLASS, e.materialClass(), Field.Store.NO));
-        doc.add(new StringField(GEOMETRY, e.geometry(), Field.Store.NO));
-        if (e.provenance() != null) {
-            doc.add(new StringField(PROVENANCE, e.provenance(), Field.Store.NO));
+        doc.add(new KnnFloatVectorField(VECTOR, vector, VectorSimilarityFunction.DOT_PRODUCT));
+        doc.add(new NumericDocValuesField(SAMPLE, sampleId));
+        doc.add(new StringField(CLASS, materialClass, Field.Store.NO));
+        doc.add(new StringField(GEOMETRY, geometry, Field.Store.NO));
+        if (provenance != null) {
+            doc.add(new StringField(PROVENANCE, provenance, Field.Store.NO));
         }
         return doc;
     }

@@ -123,6 +123,16 @@ class CurveVectorRecallTest {
     }
 
     @Test
+    void theTwoStepReRankingAnswersAsTheFullExactRankingOverTheSameCandidates() {
+        for (ShapeMetric metric : ShapeMetric.values()) {
+            for (CurveSignature q : queries.subList(0, 20)) {
+                List<SimilarCurves.Candidate> nominated = nominated(searcher.nearest(q, 200, VectorFilter.NONE));
+                assertThat(ExactReRank.rank(q, nominated, metric, 10)).isEqualTo(SimilarCurves.rank(q, nominated, metric, 10));
+            }
+        }
+    }
+
+    @Test
     void aFacetFilterAdmitsOnlyCurvesWithThatValue() {
         VectorFilter totalOnly = new VectorFilter(Set.of(), Set.of("total"), Set.of());
         for (CurveSignature q : queries.subList(0, 10)) {
