@@ -37,8 +37,8 @@ public final class CurveVectorSearcher {
     /**
      * How many candidates the exact ranking gets for {@code limit} hits: ten times the limit, at least 200.
      * The exact top ten is a dense neighbourhood (its 10th and 11th distances differ by a few per cent), and the
-     * vector orders it only roughly: 50 candidates held about three quarters of it, 200 about nine tenths
-     * (docs/similar-curves.md). 200 exact comparisons cost well under a millisecond.
+     * vector orders it only roughly: with 50 candidates markedly less of it was found than with 200
+     * (docs/similar-curves.md). 200 exact distances cost about a millisecond.
      */
     public static int candidatesFor(int limit) {
         return Math.max(200, 10 * limit);

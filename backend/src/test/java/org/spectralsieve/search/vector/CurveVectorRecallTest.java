@@ -31,8 +31,8 @@ class CurveVectorRecallTest {
     private static final int CURVES = 3000;
     private static final int QUERIES = 100;
     private static final double REQUIRED_RECALL = 0.95;
-    /** After the exact ranking of the 200 nominated candidates: measured 0.841 (correlation) and 0.795 (centred Euclidean) here; our floor below both. */
-    private static final double REQUIRED_EXACT_RECALL = 0.75;
+    /** After the exact ranking of the 200 nominated candidates: measured 0.977 (correlation) and 0.941 (centred Euclidean) here; our floor below both. */
+    private static final double REQUIRED_EXACT_RECALL = 0.9;
 
     private static List<SyntheticSignatures.Sample> corpus;
     private static List<SimilarCurves.Candidate> candidates;
