@@ -43,7 +43,7 @@ import org.spectralsieve.similarity.SimilarHit;
  * the exact brute-force ranking of the whole library (only up to {@code bench.similarExactUpTo}, it costs
  * minutes). Switches: {@code -Dbench.similarSizes=100000,1000000}, {@code -Dbench.similarQueries=100},
  * {@code -Dbench.similarM=16}, {@code -Dbench.similarBeam=100}, {@code -Dbench.similarStorage=FLOAT|INT7},
- * {@code -Dbench.similarExactUpTo=100000}, {@code -Dbench.similarBufferMb=2048}, {@code -Dbench.similarForceMerge=false}.
+ * {@code -Dbench.similarExactUpTo=100000}, {@code -Dbench.similarBufferMb=2048}, {@code -Dbench.similarForceMerge=false}, {@code -Dbench.similarCandidates=} (k′, default the service's).
  */
 class SimilarCurvesBenchmark {
 
@@ -117,7 +117,7 @@ class SimilarCurvesBenchmark {
             segments = reader.leaves().size();
         }
         System.out.printf("BENCH similar-settings curves=%d m=%d beam=%d storage=%s dims=%d candidates=%d segments=%d"
-                + " signature_seconds=%.1f%n", n, m, beam, storage, dim, CurveVectorSearcher.candidatesFor(K), segments,
+                + " signature_seconds=%.1f%n", n, m, beam, storage, dim, BenchStats.intProperty("bench.similarCandidates", CurveVectorSearcher.candidatesFor(K)), segments,
                 signatureSeconds);
 
         Random random = new Random(99);
@@ -128,7 +128,7 @@ class SimilarCurvesBenchmark {
         }
         try (FSDirectory directory = FSDirectory.open(dir); DirectoryReader reader = DirectoryReader.open(directory)) {
             CurveVectorSearcher searcher = new CurveVectorSearcher(reader);
-            int k = CurveVectorSearcher.candidatesFor(K);
+            int k = BenchStats.intProperty("bench.similarCandidates", CurveVectorSearcher.candidatesFor(K));
             for (int w = 0; w < 20; w++) {
                 searcher.nearest(queries.get(w % queryCount), k, VectorFilter.NONE); // warm-up: JIT, page cache
             }
