@@ -77,7 +77,7 @@ class SimilarCurvesBenchmark {
         ExecutorService mergers = Executors.newFixedThreadPool(2);
         long t0 = System.nanoTime();
         // a buffer that holds a million documents: each of the two threads fills its own segment and builds its
-        // graph, and no merge builds them again (a forced merge to one segment doubled the time at 100k)
+        // graph, and no merge builds them again (a forced merge to one segment took about three times as long at 100k)
         IndexWriterConfig config = CurveVectorIndex.writerConfig(storage, m, beam, 2, mergers)
                 .setRAMBufferSizeMB(BenchStats.intProperty("bench.similarBufferMb", 2048));
         try (FSDirectory directory = FSDirectory.open(dir); IndexWriter writer = new IndexWriter(directory, config)) {
