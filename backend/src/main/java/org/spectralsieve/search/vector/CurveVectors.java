@@ -35,23 +35,16 @@ public final class CurveVectors {
 
     /**
      * The unit vector of {@code signature}. A curve with no shape (flat, or fewer than two points) gets the
-     * constant unit vector over its points: orthogonal to every centred shape, and identical for all flat
+     * constant unit vector over its points: nearly orthogonal to every centred shape, and identical for all flat
      * curves, which the exact correlation also calls identical.
      */
     public static float[] of(CurveSignature signature) {
         return of(signature, STRIDE);
     }
 
+    /** The vector on every {@code stride}-th grid point from {@link #FIRST_POINT} (other strides: measured in a test). */
     static float[] of(CurveSignature signature, int stride) {
-        return of(signature, stride, 0, FIRST_POINT);
-    }
-
-    static float[] of(CurveSignature signature, int stride, double power) {
-        return of(signature, stride, power, FIRST_POINT);
-    }
-
-    /** {@code power}: each point counts its weight to this power (0: every point alike), kept for the measurement. */
-    static float[] of(CurveSignature signature, int stride, double power, int first) {
+        int first = FIRST_POINT;
         int dimension = (CurveSignature.DIMENSION - 1 - first) / stride + 1;
         double sum = 0;
         double total = 0;
@@ -59,8 +52,8 @@ public final class CurveVectors {
             int i = first + j * stride;
             double w = signature.weight(i);
             if (w > 0) {
-                sum += Math.pow(w, power) * signature.shape(i);
-                total += Math.pow(w, power);
+                sum += signature.shape(i);
+                total++;
             }
         }
         float[] v = new float[dimension];
@@ -74,7 +67,7 @@ public final class CurveVectors {
         for (int j = 0; j < dimension; j++) {
             int i = first + j * stride;
             double w = signature.weight(i);
-            u[j] = w > 0 ? Math.pow(w, power) * (signature.shape(i) - mean) : 0;
+            u[j] = w > 0 ? signature.shape(i) - mean : 0;
             norm += u[j] * u[j];
         }
         norm = Math.sqrt(norm);
