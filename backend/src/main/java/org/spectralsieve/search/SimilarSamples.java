@@ -10,6 +10,7 @@ import org.spectralsieve.library.Material;
 import org.spectralsieve.library.NotFoundException;
 import org.spectralsieve.library.SampleInfo;
 import org.spectralsieve.library.SampleRescaling;
+import org.spectralsieve.search.vector.ExactReRank;
 import org.spectralsieve.similarity.ComparedBand;
 import org.spectralsieve.similarity.CurveSignature;
 import org.spectralsieve.similarity.ShapeMetric;
@@ -20,8 +21,9 @@ import org.spectralsieve.store.SpectralStore;
 import org.spectralsieve.store.StoredMaterial;
 
 /**
- * The stored samples whose curves look most like one sample's, ranked exactly by brute force
- * ({@link SimilarCurves}) over every curve in use (docs/similar-curves.md). The candidates are the search
+ * The stored samples whose curves look most like one sample's, ranked exactly ({@link SimilarCurves}) over
+ * every curve in use, or, in a library larger than {@link #EXACT_UP_TO}, over the candidates the vector index
+ * nominates (docs/similar-curves.md). The candidates are the search
  * store's curves — the library as {@link SearchService} last read it, retired samples and materials excluded —
  * and their signatures are computed once per store, not per request.
  */
@@ -40,13 +42,26 @@ public final class SimilarSamples {
     public static final List<String> METRIC_NAMES = java.util.Arrays.stream(ShapeMetric.values())
             .map(SimilarSamples::metricName).toList();
 
+    /**
+     * Up to this many curves every one is compared (exactly, a few milliseconds); above it the vector index
+     * nominates the candidates ({@link SimilarCandidates}). The demo library (about 90) stays exact.
+     */
+    public static final int EXACT_UP_TO = 2000;
+
     private final SearchService search;
     private final JooqLibraryRepository library;
+    private final int exactUpTo;
     private final AtomicReference<Signed> signed = new AtomicReference<>();
 
     public SimilarSamples(SearchService search, JooqLibraryRepository library) {
+        this(search, library, EXACT_UP_TO);
+    }
+
+    /** {@code exactUpTo}: the library size up to which no vector index is built (tests use 0). */
+    SimilarSamples(SearchService search, JooqLibraryRepository library, int exactUpTo) {
         this.search = search;
         this.library = library;
+        this.exactUpTo = exactUpTo;
     }
 
     /** "correlation", "centred-euclidean". */
@@ -66,7 +81,8 @@ public final class SimilarSamples {
     }
 
     /** A store's curves as similarity candidates, by sample id. */
-    private record Signed(SpectralStore store, Map<Long, Integer> curveOfSample, List<SimilarCurves.Candidate> candidates) {
+    private record Signed(SpectralStore store, Map<Long, Integer> curveOfSample, List<SimilarCurves.Candidate> candidates,
+                          SimilarCandidates vectors) {
     }
 
     /**
@@ -79,19 +95,8 @@ public final class SimilarSamples {
         if (limit < 1 || limit > MAX_LIMIT) {
             throw new IllegalArgumentException("limit must lie in [1, " + MAX_LIMIT + "], was " + limit);
         }
-        Signed s = signed();
-        CurveSignature query = query(s, sampleId);
-        String own = String.valueOf(sampleId);
-        List<SimilarCurves.Candidate> others = s.candidates().stream().filter(c -> !c.id().equals(own)).toList();
-        List<Hit> hits = new ArrayList<>();
-        for (SimilarHit hit : SimilarCurves.rank(query, others, metric, limit)) {
-            int curve = s.curveOfSample().get(Long.parseLong(hit.id()));
-            StoredMaterial m = s.store().material(curve);
-            // the store keeps a float: read back through its shortest decimal, 0.1 mm stays 0.1
-            double mm = Double.parseDouble(Float.toString((float) s.store().thicknessMm(curve)));
-            hits.add(new Hit(m.id(), m.name(), m.materialClass(), s.store().sampleId(curve), mm, hit));
-        }
-        return hits;
+        return similarTo(signatureOf(sampleId), java.util.OptionalLong.of(sampleId), metric, ComparedBand.WHOLE_GRID,
+                limit);
     }
 
     /**
@@ -105,7 +110,8 @@ public final class SimilarSamples {
 
     /**
      * The {@code limit} stored samples nearest to {@code query} over {@code band}, nearest first, ranked
-     * exactly over every curve in use; {@code leaveOut} (a stored query's own sample) is never a hit. The
+     * exactly over every curve in use (in a library above {@link #EXACT_UP_TO} curves and over the whole grid:
+     * over the candidates the vector index nominates); {@code leaveOut} (a stored query's own sample) is never a hit. The
      * query may be any curve — a stored sample's or an unsaved file's.
      */
     public List<Hit> similarTo(CurveSignature query, java.util.OptionalLong leaveOut, ShapeMetric metric,
@@ -115,9 +121,14 @@ public final class SimilarSamples {
         }
         Signed s = signed();
         String own = leaveOut.isPresent() ? String.valueOf(leaveOut.getAsLong()) : null;
-        List<SimilarCurves.Candidate> others = own == null ? s.candidates()
-                : s.candidates().stream().filter(c -> !c.id().equals(own)).toList();
-        return named(s, SimilarCurves.rank(query, others, metric, band, limit));
+        // the vector index nominates for the whole grid only: its vectors hold 250-700 nm as one shape, so a
+        // question about one band is ranked exactly over every curve (slower, never a nearer curve missed)
+        boolean nominated = s.vectors() != null && band.equals(ComparedBand.WHOLE_GRID);
+        List<SimilarCurves.Candidate> pool = nominated
+                ? s.vectors().nominate(query, limit + 1, s.candidates(), s.curveOfSample()) : s.candidates();
+        List<SimilarCurves.Candidate> others = own == null ? pool
+                : pool.stream().filter(c -> !c.id().equals(own)).toList();
+        return named(s, ExactReRank.rank(query, others, metric, band, limit));
     }
 
     /** The signature a stored sample is asked about with (see {@link #query}). */
@@ -176,7 +187,9 @@ public final class SimilarSamples {
             candidates.add(new SimilarCurves.Candidate(String.valueOf(store.sampleId(curve)),
                     CurveSignature.of(store.curve(curve), store.thicknessMm(curve), store.isBulk(curve))));
         }
-        Signed built = new Signed(store, Map.copyOf(curveOfSample), List.copyOf(candidates));
+        List<SimilarCurves.Candidate> all = List.copyOf(candidates);
+        SimilarCandidates vectors = store.size() > exactUpTo ? SimilarCandidates.build(store, all) : null;
+        Signed built = new Signed(store, Map.copyOf(curveOfSample), all, vectors);
         signed.set(built);
         return built;
     }
