@@ -4,6 +4,7 @@ import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
 import java.util.Locale;
+import java.util.Map;
 import java.util.Random;
 import java.util.Set;
 import org.junit.jupiter.api.Test;
@@ -42,7 +43,7 @@ class TextSearchBenchmark {
         for (String size : System.getProperty("bench.textSizes", "100000,1000000").split(",")) {
             int curves = Integer.parseInt(size.trim());
             long t0 = System.nanoTime();
-            List<Material> materials = materials(curves, new Random(20261204L));
+            List<IndexedMaterial> materials = materials(curves, new Random(20261204L));
             LibraryTextIndex index = LibraryTextIndex.build(materials, 1);
             double buildSeconds = (System.nanoTime() - t0) / 1e9;
             materials = null;
@@ -69,24 +70,37 @@ class TextSearchBenchmark {
         }
     }
 
-    /** One or two words and one facet value, from any of the four facet dimensions. */
+    /** One or two words and one facet value, from any of the four sample facet dimensions or the UV edge band. */
     private static LibraryQuery query(Random random) {
         String words = QUERY_WORDS[random.nextInt(QUERY_WORDS.length)];
         Set<String> classes = Set.of();
         Set<Geometry> geometries = Set.of();
         Set<Provenance> provenances = Set.of();
         Set<String> bands = Set.of();
-        switch (random.nextInt(4)) {
+        Map<String, Set<String>> spectral = Map.of();
+        switch (random.nextInt(5)) {
             case 0 -> classes = Set.of(MaterialClass.KNOWN.get(random.nextInt(MaterialClass.KNOWN.size())));
             case 1 -> geometries = Set.of(Geometry.values()[random.nextInt(2)]);
             case 2 -> provenances = Set.of(Provenance.values()[random.nextInt(Provenance.values().length)]);
-            default -> bands = Set.of(LibraryIndexSchema.THICKNESS_BANDS.get(random.nextInt(4)));
+            case 3 -> bands = Set.of(LibraryIndexSchema.THICKNESS_BANDS.get(random.nextInt(4)));
+            default -> spectral = Map.of(LibraryIndexSchema.EDGE_FACET, Set.of(pick(SpectralSummary.EDGE_BANDS, random)));
         }
-        return new LibraryQuery(words, classes, geometries, provenances, bands, LibraryQuery.DEFAULT_LIMIT);
+        return new LibraryQuery(words, classes, geometries, provenances, bands, spectral, LibraryQuery.DEFAULT_LIMIT);
     }
 
-    private static List<Material> materials(int curves, Random random) {
-        List<Material> out = new ArrayList<>(curves / 3);
+    private static <T> T pick(List<T> values, Random random) {
+        return values.get(random.nextInt(values.size()));
+    }
+
+    /** Random summary values: the bench measures the index, not the summaries' computation. */
+    private static SpectralSummary summary(Random random) {
+        return new SpectralSummary(pick(SpectralSummary.EDGE_BANDS, random), pick(SpectralSummary.LUMINOUS_BANDS, random),
+                pick(SpectralSummary.AT_VALUES, random), pick(SpectralSummary.AT_VALUES, random),
+                pick(SpectralSummary.AT_VALUES, random));
+    }
+
+    private static List<IndexedMaterial> materials(int curves, Random random) {
+        List<IndexedMaterial> out = new ArrayList<>(curves / 3);
         long sampleId = 1;
         for (int m = 0; m < curves / 3; m++) {
             String look = LOOKS[random.nextInt(LOOKS.length)];
@@ -99,10 +113,12 @@ class TextSearchBenchmark {
                         Provenance.values()[random.nextInt(Provenance.values().length)], "bench spectrometer " + (1 + s),
                         null, "L-" + random.nextInt(10000), "illustrative " + look + " offcut", 1e-3));
             }
-            out.add(new Material(m + 1, "fh-" + m, name, MaterialClass.of(MaterialClass.KNOWN.get(random.nextInt(MaterialClass.KNOWN.size()))),
+            Map<Long, SpectralSummary> summaries = new java.util.HashMap<>();
+            samples.forEach(sample -> summaries.put(sample.id(), summary(random)));
+            out.add(new IndexedMaterial(new Material(m + 1, "fh-" + m, name, MaterialClass.of(MaterialClass.KNOWN.get(random.nextInt(MaterialClass.KNOWN.size()))),
                     "Illustrative " + kind + " kept at the Fernhollow Print & Cure Workshop.",
                     List.of(TAGS[random.nextInt(TAGS.length)], TAGS[random.nextInt(TAGS.length)]), Scaling.BULK,
-                    new ConstantIndex(1.49), samples));
+                    new ConstantIndex(1.49), samples), summaries));
         }
         return out;
     }
