@@ -73,7 +73,8 @@ class LibrarySearchController {
         return given == null ? List.of() : given;
     }
 
-    private static <T> Set<T> values(String parameter, List<String> given, Function<String, T> parse) {
+    /** A repeatable facet parameter's values, each parsed; a bad one is a problem naming the parameter. */
+    static <T> Set<T> values(String parameter, List<String> given, Function<String, T> parse) {
         if (given == null) {
             return Set.of();
         }

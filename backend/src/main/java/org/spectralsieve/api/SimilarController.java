@@ -2,8 +2,14 @@ package org.spectralsieve.api;
 
 import java.util.List;
 import java.util.Optional;
+import java.util.OptionalLong;
+import java.util.Set;
+import org.spectralsieve.library.Geometry;
+import org.spectralsieve.library.MaterialClass;
 import org.spectralsieve.search.SimilarSamples;
+import org.spectralsieve.search.vector.VectorFilter;
 import org.spectralsieve.similarity.ComparedBand;
+import org.spectralsieve.similarity.CurveSignature;
 import org.spectralsieve.similarity.QueryQuality;
 import org.spectralsieve.similarity.ShapeMetric;
 import org.spectralsieve.similarity.SimilarHit;
@@ -25,23 +31,47 @@ class SimilarController {
     /**
      * @param metric {@link SimilarSamples#METRIC_NAMES}; the sample itself is never among its hits
      * @param band   {@code FROM-TO} nm: compare only the grid points inside it (default the whole grid)
+     * @param classes    material classes the hits must be of (repeatable, alternatives; none: any), as in
+     *                   {@code GET /api/library}
+     * @param geometries sample geometries the hits must have ({@code regular}, {@code total}; none: any)
      */
     @GetMapping("/api/samples/{id}/similar")
     SimilarResponse similar(@PathVariable("id") long id,
                             @RequestParam(name = "limit", required = false) String limit,
                             @RequestParam(name = "metric", required = false) String metric,
-                            @RequestParam(name = "band", required = false) String band) {
+                            @RequestParam(name = "band", required = false) String band,
+                            @RequestParam(name = "class", required = false) List<String> classes,
+                            @RequestParam(name = "geometry", required = false) List<String> geometries) {
         ShapeMetric chosen = metric(metric);
         int n = limit(limit);
         Optional<ComparedBand> asked = band(band);
         ComparedBand compared = asked.orElse(ComparedBand.WHOLE_GRID);
-        List<HitJson> hits = similar.similarTo(id, chosen, compared, n).stream().map(SimilarController::json).toList();
-        List<String> warnings = QueryQuality.of(similar.signatureOf(id), compared).warnings();
-        return new SimilarResponse(id, SimilarSamples.metricName(chosen), BandJson.of(asked), warnings, hits);
+        VectorFilter narrowing = new VectorFilter(
+                LibrarySearchController.values("class", classes, label -> MaterialClass.of(label).label()),
+                LibrarySearchController.values("geometry", geometries, g -> Geometry.parse(g).label()), Set.of());
+        CurveSignature query = similar.signatureOf(id);
+        List<HitJson> hits = similar.similarTo(query, OptionalLong.of(id), chosen, compared, narrowing, n).stream()
+                .map(SimilarController::json).toList();
+        List<String> warnings = QueryQuality.of(query, compared).warnings();
+        return new SimilarResponse(id, SimilarSamples.metricName(chosen), BandJson.of(asked),
+                narrowing.isEmpty() ? null : new NarrowingJson(sorted(narrowing.classes()), sorted(narrowing.geometries())),
+                warnings, hits);
     }
 
-    /** @param band the compared band, null for the whole grid; @param warnings about the query (QueryQuality) */
-    record SimilarResponse(long sampleId, String metric, BandJson band, List<String> warnings, List<HitJson> hits) {
+    private static List<String> sorted(Set<String> values) {
+        return values.stream().sorted().toList();
+    }
+
+    /**
+     * @param band      the compared band, null for the whole grid
+     * @param narrowing the classes and geometries the hits were narrowed to, null when not narrowed
+     * @param warnings  about the query (QueryQuality)
+     */
+    record SimilarResponse(long sampleId, String metric, BandJson band, NarrowingJson narrowing, List<String> warnings,
+                           List<HitJson> hits) {
+    }
+
+    record NarrowingJson(List<String> classes, List<String> geometries) {
     }
 
     record HitJson(long materialId, String materialName, String materialClass, long sampleId, double thicknessMm,

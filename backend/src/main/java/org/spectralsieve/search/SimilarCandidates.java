@@ -9,6 +9,7 @@ import java.util.Map;
 import org.apache.lucene.index.DirectoryReader;
 import org.apache.lucene.index.IndexWriter;
 import org.apache.lucene.store.ByteBuffersDirectory;
+import org.spectralsieve.library.Geometry;
 import org.spectralsieve.search.vector.CurveVectorIndex;
 import org.spectralsieve.search.vector.CurveVectorSearcher;
 import org.spectralsieve.search.vector.VectorFilter;
@@ -36,7 +37,7 @@ final class SimilarCandidates {
             public CurveVectorIndex.Entry get(int curve) {
                 // provenance is not in the store: a provenance filter needs the database's index (later)
                 return new CurveVectorIndex.Entry(store.sampleId(curve), signed.get(curve).signature(),
-                        store.material(curve).materialClass(), store.isTotalGeometry(curve) ? "total" : "regular", null);
+                        store.material(curve).materialClass(), (store.isTotalGeometry(curve) ? Geometry.TOTAL : Geometry.REGULAR).label(), null);
             }
 
             @Override
@@ -58,7 +59,13 @@ final class SimilarCandidates {
     /** The nominated candidates for {@code limit} hits, nearest vector first. */
     List<SimilarCurves.Candidate> nominate(CurveSignature query, int limit, List<SimilarCurves.Candidate> signed,
             Map<Long, Integer> curveOfSample) {
-        long[] ids = searcher.nearest(query, CurveVectorSearcher.candidatesFor(limit), VectorFilter.NONE);
+        return nominate(query, limit, VectorFilter.NONE, signed, curveOfSample);
+    }
+
+    /** As above, among the curves {@code filter} admits only (Lucene filters the graph search itself). */
+    List<SimilarCurves.Candidate> nominate(CurveSignature query, int limit, VectorFilter filter,
+            List<SimilarCurves.Candidate> signed, Map<Long, Integer> curveOfSample) {
+        long[] ids = searcher.nearest(query, CurveVectorSearcher.candidatesFor(limit), filter);
         List<SimilarCurves.Candidate> out = new ArrayList<>(ids.length);
         for (long id : ids) {
             out.add(signed.get(curveOfSample.get(id)));

@@ -5,12 +5,14 @@ import java.util.HashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.concurrent.atomic.AtomicReference;
+import org.spectralsieve.library.Geometry;
 import org.spectralsieve.library.JooqLibraryRepository;
 import org.spectralsieve.library.Material;
 import org.spectralsieve.library.NotFoundException;
 import org.spectralsieve.library.SampleInfo;
 import org.spectralsieve.library.SampleRescaling;
 import org.spectralsieve.search.vector.ExactReRank;
+import org.spectralsieve.search.vector.VectorFilter;
 import org.spectralsieve.similarity.ComparedBand;
 import org.spectralsieve.similarity.CurveSignature;
 import org.spectralsieve.similarity.ShapeMetric;
@@ -116,6 +118,19 @@ public final class SimilarSamples {
      */
     public List<Hit> similarTo(CurveSignature query, java.util.OptionalLong leaveOut, ShapeMetric metric,
                                ComparedBand band, int limit) {
+        return similarTo(query, leaveOut, metric, band, VectorFilter.NONE, limit);
+    }
+
+    /**
+     * As above, among the stored curves whose material class and sample geometry {@code narrowing} admits
+     * (its provenance dimension must be empty: the store keeps no provenance). The same facets narrow the
+     * vector index's graph search and the exact ranking, so both paths answer alike.
+     */
+    public List<Hit> similarTo(CurveSignature query, java.util.OptionalLong leaveOut, ShapeMetric metric,
+                               ComparedBand band, VectorFilter narrowing, int limit) {
+        if (!narrowing.provenances().isEmpty()) {
+            throw new IllegalArgumentException("similar curves cannot be narrowed by provenance");
+        }
         if (limit < 1) {
             throw new IllegalArgumentException("limit must be at least 1, was " + limit);
         }
@@ -125,10 +140,23 @@ public final class SimilarSamples {
         // question about one band is ranked exactly over every curve (slower, never a nearer curve missed)
         boolean nominated = s.vectors() != null && band.equals(ComparedBand.WHOLE_GRID);
         List<SimilarCurves.Candidate> pool = nominated
-                ? s.vectors().nominate(query, limit + 1, s.candidates(), s.curveOfSample()) : s.candidates();
-        List<SimilarCurves.Candidate> others = own == null ? pool
-                : pool.stream().filter(c -> !c.id().equals(own)).toList();
+                ? s.vectors().nominate(query, limit + 1, narrowing, s.candidates(), s.curveOfSample()) : s.candidates();
+        List<SimilarCurves.Candidate> others = pool.stream()
+                .filter(c -> own == null || !c.id().equals(own))
+                .filter(c -> admits(s, narrowing, c))
+                .toList();
         return named(s, ExactReRank.rank(query, others, metric, band, limit));
+    }
+
+    /** Whether the candidate's material class and geometry are among those chosen (an empty choice admits all). */
+    private static boolean admits(Signed s, VectorFilter narrowing, SimilarCurves.Candidate c) {
+        if (narrowing.isEmpty()) {
+            return true;
+        }
+        int curve = s.curveOfSample().get(Long.parseLong(c.id()));
+        String geometry = s.store().isTotalGeometry(curve) ? Geometry.TOTAL.label() : Geometry.REGULAR.label();
+        return (narrowing.classes().isEmpty() || narrowing.classes().contains(s.store().material(curve).materialClass()))
+                && (narrowing.geometries().isEmpty() || narrowing.geometries().contains(geometry));
     }
 
     /** The signature a stored sample is asked about with (see {@link #query}). */

@@ -113,6 +113,49 @@ class SimilarCurvesApiTest {
         assertThat(fromRetired.path("hits").get(0).path("sampleId").asLong()).isEqualTo(thin);
     }
 
+    /**
+     * Narrowing by a facet keeps exactly the unnarrowed ranking's hits of that class and geometry, in its order:
+     * the narrowing chooses candidates, it never changes a distance.
+     */
+    @Test
+    void narrowingByClassAndGeometryKeepsTheWholeRankingsHitsOfThatKindInOrder() throws Exception {
+        long query = sampleAt(material(TWO_THICKNESS_STOCK), 4);
+        JsonNode all = getJson("/api/samples/" + query + "/similar?limit=50", 200);
+        assertThat(all.path("narrowing").isNull()).isTrue();
+        List<Long> wholeRanking = new ArrayList<>();
+        for (JsonNode hit : all.path("hits")) {
+            if (hit.path("materialClass").asString().equals("plastic sheet")) {
+                wholeRanking.add(hit.path("sampleId").asLong());
+            }
+        }
+        JsonNode narrowed = getJson("/api/samples/" + query + "/similar?limit=5&class=plastic%20sheet", 200);
+        assertThat(narrowed.path("narrowing").path("classes").get(0).asString()).isEqualTo("plastic sheet");
+        List<Long> narrowedIds = new ArrayList<>();
+        for (JsonNode hit : narrowed.path("hits")) {
+            assertThat(hit.path("materialClass").asString()).isEqualTo("plastic sheet");
+            narrowedIds.add(hit.path("sampleId").asLong());
+        }
+        assertThat(wholeRanking).as("plastic sheets among the 50 nearest").hasSizeGreaterThanOrEqualTo(5);
+        assertThat(narrowedIds).isEqualTo(wholeRanking.subList(0, 5));
+
+        List<Long> diffuse = new ArrayList<>();
+        for (JsonNode material : getJson("/api/materials", 200)) {
+            for (JsonNode sample : material.path("samples")) {
+                if (sample.path("geometry").asString().equals("total")) {
+                    diffuse.add(sample.path("id").asLong());
+                }
+            }
+        }
+        assertThat(diffuse).as("diffuse samples in the demo library").isNotEmpty();
+        JsonNode total = getJson("/api/samples/" + query + "/similar?limit=50&geometry=total", 200);
+        assertThat(total.path("hits").size()).as("every other diffuse demo sample").isEqualTo(diffuse.size());
+        assertThat(total.path("hits")).allSatisfy(hit -> assertThat(hit.path("sampleId").asLong()).isIn(diffuse));
+        assertThat(getJson("/api/samples/" + query + "/similar?class=window%20glass&class=optical%20glass", 200)
+                .path("hits")).allSatisfy(hit -> assertThat(hit.path("materialClass").asString())
+                        .isIn("window glass", "optical glass"));
+        assertThat(problemParameter("/api/samples/" + query + "/similar?geometry=oblique")).isEqualTo("geometry");
+    }
+
     @Test
     void anUnknownSampleIsNotFoundAndABadParameterIsNamed() throws Exception {
         long query = sampleAt(material(TWO_THICKNESS_STOCK), 4);

@@ -2,6 +2,8 @@ package org.spectralsieve.search;
 
 import static org.assertj.core.api.Assertions.assertThat;
 
+import java.util.OptionalLong;
+import java.util.Set;
 import java.util.UUID;
 import org.flywaydb.core.Flyway;
 import org.h2.jdbcx.JdbcDataSource;
@@ -11,6 +13,8 @@ import org.jooq.impl.DSL;
 import org.junit.jupiter.api.Test;
 import org.spectralsieve.library.JooqLibraryRepository;
 import org.spectralsieve.seed.DemoLibraryLoader;
+import org.spectralsieve.search.vector.VectorFilter;
+import org.spectralsieve.similarity.ComparedBand;
 import org.spectralsieve.similarity.ShapeMetric;
 import org.spectralsieve.store.SpectralStore;
 import org.springframework.core.io.DefaultResourceLoader;
@@ -22,6 +26,8 @@ import org.springframework.core.io.DefaultResourceLoader;
  * (CurveVectorRecallTest does that).
  */
 class SimilarSamplesThroughVectorIndexTest {
+
+    private static final VectorFilter FILMS = new VectorFilter(Set.of("film"), Set.of(), Set.of());
 
     @Test
     void everyDemoSampleGetsTheExactHitsThroughTheVectorIndex() {
@@ -42,6 +48,12 @@ class SimilarSamplesThroughVectorIndexTest {
                 assertThat(vector.similarTo(sample, metric, 10)).as("sample %d by %s", sample, metric)
                         .isEqualTo(exact.similarTo(sample, metric, 10))
                         .noneMatch(hit -> hit.sampleId() == sample);
+                // narrowed by a facet, the graph search is filtered as the exact ranking is
+                assertThat(vector.similarTo(vector.signatureOf(sample), OptionalLong.of(sample), metric,
+                        ComparedBand.WHOLE_GRID, FILMS, 5)).as("films like sample %d by %s", sample, metric)
+                        .isEqualTo(exact.similarTo(exact.signatureOf(sample), OptionalLong.of(sample), metric,
+                                ComparedBand.WHOLE_GRID, FILMS, 5))
+                        .allMatch(hit -> hit.materialClass().equals("film"));
             }
         }
     }
