@@ -1,5 +1,6 @@
 // Thin client for the backend's JSON API. Every failure becomes an ApiProblem carrying the
 // RFC 9457 fields (title, detail, status, instance), so the page can always show *why*.
+import { tidyNumbers } from './polish.js';
 
 export class ApiProblem extends Error {
   constructor({ status, title, detail, instance, type, properties }) {
@@ -62,8 +63,9 @@ async function problemFrom(response, path) {
   }
   return new ApiProblem({
     status: body?.status ?? response.status,
-    title: body?.title || response.statusText || `HTTP ${response.status}`,
-    detail: body?.detail || `The server answered ${response.status} for ${path}.`,
+    title: body?.title || response.statusText || 'The server refused the request',
+    // long floats in a server's words written as the page writes numbers (polish.js)
+    detail: tidyNumbers(body?.detail) || `The server could not answer ${path}.`,
     instance: body?.instance || path,
     type: body?.type,
     properties: body && typeof body === 'object' ? body : {},

@@ -4,6 +4,7 @@
 import * as api from './api.js';
 import * as fmt from './format.js';
 import { drawCurves, followWidth } from './chart.js';
+import { showRescaleProblem, clearRescaleProblem } from './polish.js';
 import { initSearch } from './search.js';
 import { initFigures } from './figures.js';
 import { initFacets } from './facets.js';
@@ -61,7 +62,7 @@ const state = {
 function showProblem(problem, context) {
   console.error(context, problem);
   const title = problem.title || 'Something went wrong';
-  const status = problem.status ? ` (${problem.status})` : '';
+  const status = ''; // HTTP status codes mean nothing to a reader; title and detail say what went wrong
   const detail = problem.detail || problem.message || '';
   dom.message.replaceChildren();
   const text = document.createElement('div');
@@ -315,6 +316,7 @@ async function selectMaterial(id, rescaleTo = null) {
     renderDetailHead(material);
     renderSamples(material);
     setupRescale(material);
+    clearRescaleProblem(); // a refusal belongs to the material it was asked for
     figures.showMaterial(material);
     similar.showMaterial(material, rescaleTo?.sampleId);
     const prefilled = prefillRescale(material, rescaleTo);
@@ -442,8 +444,7 @@ async function applyRescale() {
   }
   const thicknessMm = Number(raw);
   if (!Number.isFinite(thicknessMm) || thicknessMm <= 0) {
-    showProblem({ title: 'Invalid thickness', detail: `“${raw}” is not a positive number of millimetres.` },
-      'Rescaling');
+    showRescaleProblem({ title: 'Invalid thickness', detail: `“${raw}” is not a positive number of millimetres.` });
     return;
   }
   const sample = material.samples.find((s) => String(s.id) === dom.rescaleFrom.value) || material.samples[0];
@@ -462,16 +463,18 @@ async function applyRescale() {
         dash: [7, 4],
       },
     };
+    clearRescaleProblem();
     redraw();
     figures.showRescaled(state.rescaled);
   } catch (problem) {
     if (request !== state.rescaleRequest) return;
-    showProblem(problem, `Rescaling to ${fmt.number(thicknessMm)} mm`);
+    showRescaleProblem(problem);
   }
 }
 
 function clearRescale() {
   dom.rescaleMm.value = '';
+  clearRescaleProblem();
   if (state.rescaled) {
     state.rescaled = null;
     redraw();

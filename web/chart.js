@@ -12,12 +12,22 @@ const UV_BANDS = [
 
 
 const OD_VIEW_MAX = 10;
+// Room above the highest OD drawn, so a bound at the detection limit never lies on the frame.
+const OD_HEADROOM = 0.4;
+
+/** The linear axis' percent range: [0, 100] unless the user chose another (polish.js). */
+export const LINEAR_DEFAULT_RANGE = [0, 100];
+let linearRange = LINEAR_DEFAULT_RANGE;
+export function setLinearRange(range) {
+  linearRange = range;
+}
 
 export const AXIS_MODES = {
   linear: {
     label: 'Transmittance (%)',
     value: (t) => t * 100,
-    range: () => [0, 100],
+    range: () => [...linearRange],
+    legend: (v) => `${v.toFixed(1)} %`,
   },
   od: {
     label: 'Optical density (−log₁₀ T)',
@@ -25,7 +35,8 @@ export const AXIS_MODES = {
     value: (t) => (t > 0 ? -Math.log10(t) : null),
     // A rescaled bound can reach OD in the hundreds; the view stops at OD_VIEW_MAX so the curves that
     // matter stay readable. Values are not changed: the legend still reads them.
-    range: (u, min, max) => [0, Math.min(OD_VIEW_MAX, Math.max(1, Math.ceil(max ?? 1)))],
+    range: (u, min, max) => [0, Math.min(OD_VIEW_MAX, Math.max(1, Math.ceil(((max ?? 1) + OD_HEADROOM) * 2) / 2))],
+    legend: (v) => `OD ${v.toFixed(2)}`,
   },
 };
 
@@ -55,12 +66,13 @@ function seriesTable(curve, mode) {
 }
 
 function seriesOptions(curve, hasBound, modeKey) {
+  const unit = (AXIS_MODES[modeKey] || AXIS_MODES.linear).legend;
   const line = {
     label: curve.label,
     stroke: curve.color,
     width: curve.dash ? 2 : 1.75,
     dash: curve.dash || undefined,
-    value: (u, v) => (v == null ? '—' : v.toFixed(2)),
+    value: (u, v) => (v == null ? '—' : unit(v)),
   };
   if (!hasBound) return [line];
   return [line, {
@@ -69,7 +81,7 @@ function seriesOptions(curve, hasBound, modeKey) {
     width: 1,
     dash: [1, 4],
     points: { show: true, size: 3, stroke: curve.color, fill: '#fff' },
-    value: (u, v) => (v == null ? '—' : `${modeKey === 'od' ? '≥' : '≤'} ${v.toFixed(2)}`),
+    value: (u, v) => (v == null ? '—' : `${modeKey === 'od' ? '≥' : '≤'} ${unit(v)}`),
   }];
 }
 
@@ -77,6 +89,8 @@ function shadeBands(u) {
   const { ctx, bbox } = u;
   const [xMin, xMax] = [u.scales.x.min, u.scales.x.max];
   ctx.save();
+  ctx.font = `${Math.round(11 * devicePixelRatio)}px system-ui, sans-serif`;
+  const rowEnds = [-Infinity, -Infinity, -Infinity]; // right edge of the last label on each row
   for (const band of UV_BANDS) {
     const from = Math.max(band.from, xMin);
     const to = Math.min(band.to, xMax);
@@ -86,8 +100,13 @@ function shadeBands(u) {
     ctx.fillStyle = band.fill;
     ctx.fillRect(x0, bbox.top, x1 - x0, bbox.height);
     ctx.fillStyle = 'rgba(60, 56, 90, 0.55)';
-    ctx.font = `${Math.round(11 * devicePixelRatio)}px system-ui, sans-serif`;
-    ctx.fillText(band.label, x0 + 4 * devicePixelRatio, bbox.top + 14 * devicePixelRatio);
+    // A narrow band (UV-B on a wide axis) would print its label over its neighbour's: that label goes a
+    // row lower instead.
+    const x = x0 + 4 * devicePixelRatio;
+    let row = rowEnds.findIndex((end) => x >= end + 4 * devicePixelRatio);
+    if (row < 0) row = rowEnds.length - 1;
+    ctx.fillText(band.label, x, bbox.top + 14 * (row + 1) * devicePixelRatio);
+    rowEnds[row] = x + ctx.measureText(band.label).width;
   }
   ctx.restore();
 }

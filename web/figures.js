@@ -6,7 +6,9 @@ import * as api from './api.js';
 import * as fmt from './format.js';
 
 const DEFAULT_EMITTER = 'flat';
-const DEFAULT_RESPONSE = 'erythema';
+// Unweighted (radiometric) first: a curing designer wants the lamp's power passed; eye and skin weightings
+// are a choice away.
+const DEFAULT_RESPONSE = 'flat';
 const MESSAGE_CONTEXT = 'Computing weighted figures';
 // Shown when an answer comes without its own caution: safety figures never appear without one.
 const FALLBACK_CAUTION = 'Screening estimate from stored curves, not a certification; applicable standards, '
@@ -109,7 +111,8 @@ export function initFigures(ui) {
     status: el('figures-status'),
     table: el('figures-table'),
   };
-  const state = { request: 0, material: null, descriptions: new Map() };
+  // parts: lower-case material name -> slug, for the "seen behind" picker
+  const state = { request: 0, material: null, descriptions: new Map(), parts: new Map(), partSent: '{}' };
 
   // ---------- pickers ----------
 
@@ -140,8 +143,12 @@ export function initFigures(ui) {
     select.value = names.includes(previous) ? previous : names.includes(fallback) ? fallback : names[0] || '';
   }
 
-  /** Any emitter may serve as the reference solar spectrum; none is chosen until the user picks one. */
-  function fillSolarPicker(items) {
+  /**
+   * Only the spectra the server marks as sunlight (`solar`: daylight D65, imported solar tables); none is
+   * chosen until the user picks one.
+   */
+  function fillSolarPicker(all) {
+    const items = all.filter((item) => item.solar === true);
     const previous = dom.solar.value;
     const none = document.createElement('option');
     none.value = '';
@@ -279,6 +286,41 @@ export function initFigures(ui) {
     dom.status.textContent = reason;
   }
 
+  // ---------- the part the sample is seen behind ----------
+
+  /**
+   * The part as the API takes it: a material's name picked from the suggestions becomes its slug; other
+   * text goes as typed (the server reads words of a name). Both fields, or neither.
+   */
+  function partInFront() {
+    const typed = dom.behind.value.trim();
+    const mm = dom.behindMm.value.trim();
+    if (!typed || !mm) return { name: undefined, mm: undefined };
+    const known = state.parts.get(typed.toLowerCase());
+    return { name: known || typed, mm };
+  }
+
+  function partChanged() {
+    const inPair = document.activeElement === dom.behind || document.activeElement === dom.behindMm;
+    const typed = dom.behind.value.trim();
+    const mm = dom.behindMm.value.trim();
+    const problem = el('figure-behind-problem');
+    if (typed && !mm) {
+      if (inPair) return; // still filling the pair in
+      problem.textContent = 'Give the part’s thickness in mm; until then the figures leave the part out.';
+    } else if (!typed && mm) {
+      if (inPair) return;
+      problem.textContent = 'Name the part (a material of the library); until then the figures leave it out.';
+    } else if (mm && !(Number(mm) > 0)) {
+      problem.textContent = 'The part’s thickness must be a positive number of millimetres.';
+      return;
+    } else {
+      problem.textContent = '';
+    }
+    problem.hidden = !problem.textContent;
+    if (state.partSent !== JSON.stringify(partInFront())) refresh();
+  }
+
   // ---------- fetching: later answers win ----------
 
   async function refresh() {
@@ -288,6 +330,7 @@ export function initFigures(ui) {
       showNothing('No sample to compute figures for.', 'empty');
       return;
     }
+    const part = partInFront();
     const request = ++state.request;
     describeChoices();
     dom.table.setAttribute('aria-busy', 'true');
@@ -301,16 +344,19 @@ export function initFigures(ui) {
         convention: dom.convention.value || undefined,
         solar: dom.solar.value || undefined,
         // a part in front of the sample: both fields or neither (the server says which one is missing)
-        behind: dom.behind.value.trim() || undefined,
-        behindMm: dom.behindMm.value.trim() || undefined,
+        behind: part.name,
+        behindMm: part.mm,
       });
       if (request !== state.request) return;
+      state.partSent = JSON.stringify(part);
       if (ui.messageStartsWith(MESSAGE_CONTEXT)) ui.clearMessage();
       render(answer, choice);
     } catch (problem) {
       if (request !== state.request) return;
       showNothing(`No figures: ${problem.detail || problem.title || 'the server did not answer'}`, 'error');
-      ui.showProblem(problem, MESSAGE_CONTEXT);
+      // a refused choice is told once, in the section's status line beside the pickers
+      if (problem.status !== 400) ui.showProblem(problem, MESSAGE_CONTEXT);
+      else if (ui.messageStartsWith(MESSAGE_CONTEXT)) ui.clearMessage();
     } finally {
       if (request === state.request) dom.table.removeAttribute('aria-busy');
     }
@@ -353,18 +399,24 @@ export function initFigures(ui) {
 
   el('spectrum-import-form').addEventListener('submit', importSpectrum);
 
-  for (const select of [dom.sample, dom.emitter, dom.response, dom.convention, dom.solar, dom.behind, dom.behindMm]) {
+  for (const select of [dom.sample, dom.emitter, dom.response, dom.convention, dom.solar]) {
     select.addEventListener('change', refresh);
+  }
+  // The part and its thickness are one choice: judged when the user leaves the pair (change fires on
+  // leaving a field), not on each key, so typing the part first never flashes a missing thickness.
+  for (const field of [dom.behind, dom.behindMm]) {
+    field.addEventListener('change', () => setTimeout(partChanged, 0));
   }
   const catalogues = loadCatalogues();
 
   return {
-    /** Library slugs offered for the "seen behind" part. */
+    /** Material names offered for the "seen behind" part; the name chosen is sent as its slug. */
     offerParts(materials) {
-      el('figure-behind-choices').replaceChildren(...(materials || []).filter((m) => m.slug).map((m) => {
+      const named = (materials || []).filter((m) => m.slug && m.name);
+      state.parts = new Map(named.map((m) => [m.name.toLowerCase(), m.slug]));
+      el('figure-behind-choices').replaceChildren(...named.map((m) => {
         const o = document.createElement('option');
-        o.value = m.slug;
-        o.label = m.name;
+        o.value = m.name;
         return o;
       }));
     },

@@ -221,9 +221,15 @@ export function initSearch(ui) {
       renderResults(answer, text);
     } catch (problem) {
       if (request !== state.searchRequest) return;
-      dom.summary.textContent = 'The search did not run.';
-      if (problem.status === 400 && Number.isInteger(problem.properties.position)) showError(problem, text);
-      showOurProblem(problem, 'Searching');
+      dropResults(); // rows of an earlier requirement would pass for this one's
+      if (problem.status === 400 && Number.isInteger(problem.properties.position)) {
+        // shown once, beside the text it is about; a banner would only repeat it
+        showError(problem, text);
+        if (state.messageIsOurs) ui.clearMessage();
+        state.messageIsOurs = false;
+      } else {
+        showOurProblem(problem, 'Searching');
+      }
     } finally {
       if (request === state.searchRequest) dom.button.disabled = false;
     }
@@ -235,6 +241,16 @@ export function initSearch(ui) {
       .filter(Boolean).join(' and ');
     const n = words.admitted === 1 ? '1 material' : `${words.admitted} materials`;
     return words.admitted === 0 ? `${terms} admitted no material` : `${terms} admitted ${n}`;
+  }
+
+  /** After a failed search: no rows are left standing, and the summary says there are none. */
+  function dropResults() {
+    dom.rows.replaceChildren();
+    delete dom.table.dataset.requirement;
+    dom.results.classList.remove('stale');
+    dom.table.hidden = true;
+    dom.caution.hidden = true;
+    dom.summary.textContent = 'No results: the search did not run.';
   }
 
   function showOurProblem(problem, context) {
@@ -251,6 +267,7 @@ export function initSearch(ui) {
   function renderResults(answer, asked) {
     const requirement = answer.requirement;
     dom.results.hidden = false;
+    dom.table.hidden = false; // hidden by a failed search before
     // the server adds a caution to answers with eye or skin safety figures; blocking light needs one too
     dom.caution.hidden = !(blocksLight(requirement) || typeof answer.caution === 'string');
     // the text as typed: with words, the requirement's own text is only its clauses

@@ -44,14 +44,35 @@ class WeightingController {
         this.search = search;
     }
 
-    /** origin: "built-in" (a catalogue spectrum) or "imported" (see ReferenceSpectrumController). */
+    /**
+     * origin: "built-in" (a catalogue spectrum) or "imported" (see ReferenceSpectrumController). solar: whether
+     * the spectrum is offered as the UPF's reference solar spectrum ({@link #isSolar}).
+     */
     record EmitterJson(String name, String kind, Map<String, Double> parameters, double[] rangeNm,
-            double integrationStepNm, String description, String origin) {
+            double integrationStepNm, String description, String origin, boolean solar) {
 
         static EmitterJson of(Emitter e) {
             return new EmitterJson(e.name(), e.kind(), e.parameters(), new double[] {e.minNm(), e.maxNm()},
-                    e.stepNm(), e.description(), originOf(SpectrumLookup.builtIn().emitter(e.name()).isPresent()));
+                    e.stepNm(), e.description(), originOf(SpectrumLookup.builtIn().emitter(e.name()).isPresent()),
+                    isSolar(e));
         }
+    }
+
+    /** Words that mark an imported table as sunlight (ASTM G173 "AM1.5", "global tilt", …). */
+    private static final java.util.regex.Pattern SUNLIGHT =
+            java.util.regex.Pattern.compile("sun|solar|daylight|g173|am ?1\\.5|global tilt", java.util.regex.Pattern.CASE_INSENSITIVE);
+
+    /**
+     * A spectrum of daylight, offered as the UPF's reference: the CIE daylight illuminant D65, or a tabulated
+     * (imported) spectrum whose name or description speaks of the sun. LEDs, lamps, the equal-energy "flat"
+     * source and illuminant A are never offered; the {@code solar} parameter still takes any emitter by name.
+     */
+    static boolean isSolar(Emitter e) {
+        if ("d65".equals(e.name())) {
+            return true;
+        }
+        return "tabulated".equals(e.kind())
+                && (SUNLIGHT.matcher(e.name()).find() || SUNLIGHT.matcher(String.valueOf(e.description())).find());
     }
 
     record ResponseJson(String name, double[] rangeNm, String description, String origin) {

@@ -26,8 +26,8 @@ public final class UltravioletProtectionFactor {
 
     /** Not available: no reference solar spectrum was named. */
     public static Figure withoutSolarSpectrum() {
-        return Figure.unavailable(NAME, "1", "a reference solar spectrum must be named (e.g. solar=<emitter>);"
-                + " none ships, because no solar table with an open licence was found");
+        return Figure.unavailable(NAME, "1", "a reference solar spectrum must be named (a daylight or imported solar spectrum);"
+                + " no measured solar table ships, because no solar table with an open licence was found");
     }
 
     /** UPF under {@code solar}; a lower bound when a weighted point of the curve is below detection. */
