@@ -313,6 +313,7 @@ export function initFigures(ui) {
       problem.textContent = 'Name the part (a material of the library); until then the figures leave it out.';
     } else if (mm && !(Number(mm) > 0)) {
       problem.textContent = 'The part’s thickness must be a positive number of millimetres.';
+      problem.hidden = false;
       return;
     } else {
       problem.textContent = '';

@@ -138,7 +138,7 @@ export function initSearch(ui) {
       : typeof problem.properties.suggestion === 'string' ? [problem.properties.suggestion] : [];
     const detail = document.createElement('p');
     detail.className = 'error-detail';
-    detail.textContent = problem.detail || problem.title;
+    detail.textContent = conciseDetail(problem.detail || problem.title, suggestions.length > 0);
     const parts = [detail];
     if (position !== null) parts.push(markedText(text, position, length));
     if (suggestions.length && position !== null) {
@@ -541,6 +541,19 @@ function cell(text, className, title) {
 /** The `span` characters at `position` when the server named them, else the word there. */
 function spanAt(text, position, span) {
   return span ? text.slice(position, position + span) : wordAt(text, position);
+}
+
+/**
+ * The server's words without what the page already shows: the position (the text is marked), the "did you
+ * mean" (offered as buttons), and a list of more than three expected keywords (the found word is named).
+ */
+function conciseDetail(detail, suggestionsShown) {
+  let text = String(detail || '').replace(/^at position \d+:\s*/, '');
+  if (suggestionsShown) text = text.replace(/\s*—\s*did you mean .*\?$/s, '');
+  const m = /^expected (.*), found (.*)$/s.exec(text);
+  if (m && (m[1].match(/'[^']+'/g) || []).length > 3) return `Not understood here: found ${m[2]}.`;
+  if (m) return `Expected ${m[1]}, found ${m[2]}.`;
+  return text;
 }
 
 /** The word (letters, digits, "%" or ".") starting at `position`, or the one character there. */

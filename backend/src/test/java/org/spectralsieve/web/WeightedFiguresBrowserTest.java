@@ -82,10 +82,12 @@ class WeightedFiguresBrowserTest {
         loadPage();
         openMaterial(UV_TRANSMITTING);
 
-        // Defaults: the first sample at its measured thickness, flat source × erythema.
-        waitForStatus("flat × erythema");
+        // Defaults: the first sample at its measured thickness, flat source, unweighted (flat response).
+        waitForStatus("flat × flat");
         assertThat(new Select(driver.findElement(By.id("figure-sample"))).getFirstSelectedOption()
                 .getDomAttribute("value")).isEqualTo(String.valueOf(sampleId));
+        new Select(driver.findElement(By.id("figure-response"))).selectByValue("erythema");
+        waitForStatus("flat × erythema");
         JsonNode erythema = figures(sampleId, "emitter=flat&response=erythema");
         String erythemaShown = shownValue("effectiveTransmittance");
         assertThat(erythemaShown).isEqualTo(fractionAsShown(erythema.path("effectiveTransmittance")));
@@ -136,7 +138,7 @@ class WeightedFiguresBrowserTest {
         JsonNode dermatology = figures(sampleId, "emitter=flat&response=erythema&convention=dermatology");
         loadPage();
         openMaterial(UV_TRANSMITTING);
-        waitForStatus("flat × erythema");
+        waitForStatus("flat × flat");
         assertThat(driver.findElement(By.id("figures-table")).getText()).contains("UV-B 280-315 nm");
 
         // The luminous transmittance and the category it falls in, as the API gives them.
@@ -185,7 +187,7 @@ class WeightedFiguresBrowserTest {
 
         loadPage();
         openMaterial(UV_TRANSMITTING);
-        waitForStatus("flat × erythema");
+        waitForStatus("flat × flat");
         driver.findElement(By.cssSelector("#spectrum-import summary")).click();
         new Select(driver.findElement(By.id("spectrum-kind"))).selectByValue("responses");
         driver.findElement(By.id("spectrum-name")).sendKeys("page-flat-300-400");
@@ -211,14 +213,17 @@ class WeightedFiguresBrowserTest {
     void aPartNamedInFrontOfTheSampleGivesTheStacksFiguresAsTheApiDoes() throws Exception {
         JsonNode material = material(UV_TRANSMITTING);
         long sampleId = material.path("samples").get(0).path("id").asLong();
-        JsonNode stacked = figures(sampleId, "emitter=flat&response=erythema&behind=clear-float-glass&behindMm=4");
+        JsonNode stacked = figures(sampleId, "emitter=flat&response=flat&behind=clear-float-glass&behindMm=4");
         loadPage();
         openMaterial(UV_TRANSMITTING);
-        waitForStatus("flat × erythema");
+        waitForStatus("flat × flat");
         String alone = shownValue("luminousTransmittance");
 
-        driver.findElement(By.id("figure-behind")).sendKeys("clear-float-glass");
+        // the part by its name, as the suggestions offer it; the page sends its slug
+        driver.findElement(By.id("figure-behind")).sendKeys("Clear float glass, glazier offcuts", Keys.TAB);
         WebElement mm = driver.findElement(By.id("figure-behind-mm"));
+        assertThat(driver.findElement(By.id("figure-behind-problem")).isDisplayed())
+                .as("no complaint while the thickness is still to be typed").isFalse();
         mm.sendKeys("4", Keys.TAB);
         waitForStatus("clear-float-glass");
         assertThat(driver.findElement(By.id("figures-status")).getText()).contains(stacked.path("layer").asString());
@@ -226,11 +231,14 @@ class WeightedFiguresBrowserTest {
                 .isEqualTo(fractionAsShown(stacked.path("luminousTransmittance"))).isNotEqualTo(alone);
         assertThat(shownValue("effectiveTransmittance")).isEqualTo(fractionAsShown(stacked.path("effectiveTransmittance")));
 
-        // the thickness cleared: the server names the missing parameter, the page shows it
+        // the thickness cleared and left: said beside the fields, and the figures are the sample's alone again
         mm.clear();
         mm.sendKeys(Keys.TAB);
-        wait.until(d -> d.findElement(By.id("figures-status")).getText().contains("behindMm"));
-        assertThat(driver.findElement(By.id("message")).getText()).contains("behindMm");
+        wait.until(d -> d.findElement(By.id("figure-behind-problem")).getText().contains("thickness"));
+        wait.until(d -> !d.findElement(By.id("figures-status")).getText().contains("clear-float-glass"));
+        waitForStatus("flat × flat");
+        assertThat(shownValue("luminousTransmittance")).isEqualTo(alone);
+        assertNoMessage();
     }
 
     @Test
@@ -243,6 +251,8 @@ class WeightedFiguresBrowserTest {
 
         loadPage();
         openMaterial(STARTS_AT_250_NM);
+        waitForStatus("flat × flat");
+        new Select(driver.findElement(By.id("figure-response"))).selectByValue("erythema");
         waitForStatus("flat × erythema");
         WebElement row = row("actinicUvProtectionFactor");
         assertThat(row.getDomAttribute("class")).contains("unavailable");
@@ -257,7 +267,7 @@ class WeightedFiguresBrowserTest {
     }
 
     @Test
-    void aRefusedEmitterShowsTheServersProblemDetailInTheMessageArea() throws Exception {
+    void aRefusedEmitterIsExplainedOnceBesideThePickersWithoutAStatusCode() throws Exception {
         loadPage();
         openMaterial(UV_TRANSMITTING);
         waitForStatus("×");
@@ -269,18 +279,19 @@ class WeightedFiguresBrowserTest {
                         + " arguments[0].dispatchEvent(new Event('change'));", emitter);
 
         WebElement message = driver.findElement(By.id("message"));
-        wait.withMessage("waiting for the 400 problem detail in the message area");
-        wait.until(d -> message.isDisplayed());
-        assertThat(message.getText()).contains("400").contains("lamp-that-is-not-there").contains("known:");
-        assertThat(driver.findElement(By.id("figures-status")).getText())
-                .startsWith("No figures:").contains("lamp-that-is-not-there");
+        WebElement status = driver.findElement(By.id("figures-status"));
+        wait.withMessage("waiting for the problem detail in the figures' status line");
+        wait.until(d -> status.getText().startsWith("No figures:"));
+        assertThat(status.getText()).contains("lamp-that-is-not-there").contains("known:");
+        // told once, beside the pickers: no banner repeating it, no HTTP status code anywhere
+        assertThat(message.isDisplayed()).isFalse();
+        assertThat(driver.findElement(By.tagName("body")).getText()).doesNotContain("(400)");
         assertThat(driver.findElements(By.cssSelector("#figures-table tbody tr[data-figure]"))).isEmpty();
         screenshot("figures-4-refused");
 
         // A known emitter again: figures return and the message goes.
         new Select(emitter).selectByValue("led-365");
         waitForStatus("led-365 ×");
-        wait.until(d -> !message.isDisplayed());
         assertThat(shownValue("effectiveTransmittance")).endsWith("%");
     }
 
@@ -305,7 +316,7 @@ class WeightedFiguresBrowserTest {
                       { status: 200, headers: { 'Content-Type': 'application/json' } });
                 };""");
         openMaterial(UV_TRANSMITTING);
-        waitForStatus("flat × erythema");
+        waitForStatus("flat × flat");
 
         assertThat(driver.findElements(By.cssSelector("#figures-table tr[data-figure='criticalWavelength']"))).isEmpty();
         WebElement luminous = row("luminousTransmittance");
