@@ -5,7 +5,10 @@
 import * as api from './api.js';
 import * as fmt from './format.js';
 
-const DEFAULT_EMITTER = 'flat';
+// A 365 nm UV LED: unweighted, the equal-energy source would integrate 100-1100 nm, wider than most
+// stored curves, and leave the chosen pair "not available"; the curing lamp's share is what a rig designer
+// asks first. Any other source is one choice away.
+const DEFAULT_EMITTER = 'led-365';
 // Unweighted (radiometric) first: a curing designer wants the lamp's power passed; eye and skin weightings
 // are a choice away.
 const DEFAULT_RESPONSE = 'flat';

@@ -22,7 +22,9 @@ export function tidyNumbers(text) {
 export function showRescaleProblem(problem) {
   const box = el('rescale-error');
   if (!box) return;
-  box.textContent = `Not rescaled: ${tidyNumbers(problem.detail || problem.title || 'the server did not answer')}`;
+  // the API's parameter name means nothing beside the page's own "to … mm" box
+  const why = String(problem.detail || problem.title || 'the server did not answer').replace(/^parameter '[^']+':\s*/, '');
+  box.textContent = `Not rescaled: ${tidyNumbers(why)}`;
   box.hidden = false;
   el('rescale-mm')?.setAttribute('aria-invalid', 'true');
 }

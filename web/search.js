@@ -224,6 +224,7 @@ export function initSearch(ui) {
       dropResults(); // rows of an earlier requirement would pass for this one's
       if (problem.status === 400 && Number.isInteger(problem.properties.position)) {
         // shown once, beside the text it is about; a banner would only repeat it
+        renderClauses(null); // the reading shown was of an earlier text
         showError(problem, text);
         if (state.messageIsOurs) ui.clearMessage();
         state.messageIsOurs = false;

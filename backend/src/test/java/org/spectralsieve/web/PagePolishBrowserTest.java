@@ -71,9 +71,12 @@ class PagePolishBrowserTest {
         loadPage();
         openMaterial(ACRYLIC);
         WebElement status = driver.findElement(By.id("figures-status"));
-        wait.until(d -> status.getText().contains("flat × flat"));
+        wait.until(d -> status.getText().contains("led-365 × flat"));
         assertThat(new Select(driver.findElement(By.id("figure-response"))).getFirstSelectedOption()
                 .getDomAttribute("value")).isEqualTo("flat");
+        // the chosen pair has a number: the LED lies within the stored curve
+        assertThat(driver.findElement(By.cssSelector("#figures-table tr[data-figure='effectiveTransmittance'] td.value"))
+                .getText()).endsWith("%");
 
         // The picker offers exactly the emitters the server marks as sunlight, never an LED, lamp or "flat".
         List<String> solarFromApi = new ArrayList<>();
@@ -108,6 +111,7 @@ class PagePolishBrowserTest {
                 && d.findElement(By.id("search-summary")).getText().contains("did not run"));
         // once, beside its cause: no banner repeating it, the fix offered, no long list of keywords
         assertThat(driver.findElement(By.id("message")).isDisplayed()).isFalse();
+        assertThat(driver.findElements(By.cssSelector("#requirement-clauses li"))).as("no reading of an earlier text").isEmpty();
         assertThat(error.findElement(By.cssSelector(".marked-text mark")).getText()).isEqualTo("ovr");
         assertThat(error.findElement(By.cssSelector("button.suggestion")).getText()).isEqualTo("over");
         assertThat(error.findElement(By.cssSelector(".error-detail")).getText()).doesNotContain("at position")
@@ -128,7 +132,7 @@ class PagePolishBrowserTest {
         // beyond the largest thickness the server rescales to (1000 mm): refused by the server
         mm.sendKeys("5000", Keys.ENTER);
         wait.until(d -> error.isDisplayed());
-        assertThat(error.getText()).startsWith("Not rescaled:").contains("1000");
+        assertThat(error.getText()).startsWith("Not rescaled:").contains("1000").doesNotContain("thicknessMm");
         assertThat(driver.findElement(By.id("message")).isDisplayed()).as("no banner far from the button").isFalse();
         assertThat(driver.findElement(By.tagName("body")).getText()).doesNotContain("(400)");
         screenshot("polish-3-rescale-refused", "material-detail");

@@ -82,12 +82,11 @@ class WeightedFiguresBrowserTest {
         loadPage();
         openMaterial(UV_TRANSMITTING);
 
-        // Defaults: the first sample at its measured thickness, flat source, unweighted (flat response).
-        waitForStatus("flat × flat");
+        // Defaults: the first sample at its measured thickness, a 365 nm LED, unweighted (flat response).
+        waitForStatus("led-365 × flat");
         assertThat(new Select(driver.findElement(By.id("figure-sample"))).getFirstSelectedOption()
                 .getDomAttribute("value")).isEqualTo(String.valueOf(sampleId));
-        new Select(driver.findElement(By.id("figure-response"))).selectByValue("erythema");
-        waitForStatus("flat × erythema");
+        chooseFlatSourceAndErythema();
         JsonNode erythema = figures(sampleId, "emitter=flat&response=erythema");
         String erythemaShown = shownValue("effectiveTransmittance");
         assertThat(erythemaShown).isEqualTo(fractionAsShown(erythema.path("effectiveTransmittance")));
@@ -138,7 +137,7 @@ class WeightedFiguresBrowserTest {
         JsonNode dermatology = figures(sampleId, "emitter=flat&response=erythema&convention=dermatology");
         loadPage();
         openMaterial(UV_TRANSMITTING);
-        waitForStatus("flat × flat");
+        waitForStatus("led-365 × flat");
         assertThat(driver.findElement(By.id("figures-table")).getText()).contains("UV-B 280-315 nm");
 
         // The luminous transmittance and the category it falls in, as the API gives them.
@@ -187,16 +186,16 @@ class WeightedFiguresBrowserTest {
 
         loadPage();
         openMaterial(UV_TRANSMITTING);
-        waitForStatus("flat × flat");
+        waitForStatus("led-365 × flat");
         driver.findElement(By.cssSelector("#spectrum-import summary")).click();
         new Select(driver.findElement(By.id("spectrum-kind"))).selectByValue("responses");
         driver.findElement(By.id("spectrum-name")).sendKeys("page-flat-300-400");
         driver.findElement(By.id("spectrum-file")).sendKeys(good.toAbsolutePath().toString());
         driver.findElement(By.id("spectrum-import-button")).click();
-        waitForStatus("flat × page-flat-300-400");
+        waitForStatus("led-365 × page-flat-300-400");
         assertThat(driver.findElement(By.id("spectrum-import-status")).getText())
                 .startsWith("Imported response page-flat-300-400 (13 points");
-        JsonNode answer = figures(sampleId, "emitter=flat&response=page-flat-300-400");
+        JsonNode answer = figures(sampleId, "emitter=led-365&response=page-flat-300-400");
         assertThat(shownValue("effectiveTransmittance")).isEqualTo(fractionAsShown(answer.path("effectiveTransmittance")));
 
         new Select(driver.findElement(By.id("spectrum-kind"))).selectByValue("responses");
@@ -213,10 +212,10 @@ class WeightedFiguresBrowserTest {
     void aPartNamedInFrontOfTheSampleGivesTheStacksFiguresAsTheApiDoes() throws Exception {
         JsonNode material = material(UV_TRANSMITTING);
         long sampleId = material.path("samples").get(0).path("id").asLong();
-        JsonNode stacked = figures(sampleId, "emitter=flat&response=flat&behind=clear-float-glass&behindMm=4");
+        JsonNode stacked = figures(sampleId, "emitter=led-365&response=flat&behind=clear-float-glass&behindMm=4");
         loadPage();
         openMaterial(UV_TRANSMITTING);
-        waitForStatus("flat × flat");
+        waitForStatus("led-365 × flat");
         String alone = shownValue("luminousTransmittance");
 
         // the part by its name, as the suggestions offer it; the page sends its slug
@@ -236,7 +235,7 @@ class WeightedFiguresBrowserTest {
         mm.sendKeys(Keys.TAB);
         wait.until(d -> d.findElement(By.id("figure-behind-problem")).getText().contains("thickness"));
         wait.until(d -> !d.findElement(By.id("figures-status")).getText().contains("clear-float-glass"));
-        waitForStatus("flat × flat");
+        waitForStatus("led-365 × flat");
         assertThat(shownValue("luminousTransmittance")).isEqualTo(alone);
         assertNoMessage();
     }
@@ -251,9 +250,8 @@ class WeightedFiguresBrowserTest {
 
         loadPage();
         openMaterial(STARTS_AT_250_NM);
-        waitForStatus("flat × flat");
-        new Select(driver.findElement(By.id("figure-response"))).selectByValue("erythema");
-        waitForStatus("flat × erythema");
+        waitForStatus("led-365 × flat");
+        chooseFlatSourceAndErythema();
         WebElement row = row("actinicUvProtectionFactor");
         assertThat(row.getDomAttribute("class")).contains("unavailable");
         assertThat(row.findElement(By.cssSelector("td.value")).getText()).isEqualTo("not available");
@@ -316,7 +314,7 @@ class WeightedFiguresBrowserTest {
                       { status: 200, headers: { 'Content-Type': 'application/json' } });
                 };""");
         openMaterial(UV_TRANSMITTING);
-        waitForStatus("flat × flat");
+        waitForStatus("led-365 × flat");
 
         assertThat(driver.findElements(By.cssSelector("#figures-table tr[data-figure='criticalWavelength']"))).isEmpty();
         WebElement luminous = row("luminousTransmittance");
@@ -378,6 +376,14 @@ class WeightedFiguresBrowserTest {
                 .findFirst().orElse(null));
         row.click();
         wait.until(d -> d.findElement(By.id("detail-name")).getText().startsWith(nameStart));
+    }
+
+    /** From the page's defaults to the pair the API answers without parameters (flat × erythema). */
+    private void chooseFlatSourceAndErythema() {
+        new Select(driver.findElement(By.id("figure-emitter"))).selectByValue("flat");
+        waitForStatus("flat × flat");
+        new Select(driver.findElement(By.id("figure-response"))).selectByValue("erythema");
+        waitForStatus("flat × erythema");
     }
 
     private void waitForStatus(String part) {
