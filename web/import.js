@@ -21,6 +21,21 @@ const Y_KIND_WORDS = {
   transmittance_percent: 'transmittance (%)',
   absorbance: 'absorbance (−log₁₀ T)',
 };
+const X_UNIT_WORDS = {
+  nanometre: 'nm',
+  micrometre: 'µm (converted to nm)',
+  angstrom: 'Å (converted to nm)',
+  wavenumber_per_cm: 'wavenumber, cm⁻¹ (converted to nm)',
+};
+// The form's own words for the fields a problem may name (the API's parameter names mean nothing on the page).
+const FIELD_LABELS = {
+  materialId: 'Material', materialName: 'Name', materialClass: 'Class', scaling: 'Scaling', indexN: 'Refractive index',
+  description: 'Description', stockThicknesses: 'Stock thicknesses', madeRange: 'Stock thicknesses',
+  thicknessMm: 'Thickness', geometry: 'Geometry', provenance: 'Provenance', instrument: 'Instrument',
+  measuredOn: 'Measured on', lot: 'Lot', notes: 'Notes', format: 'Format', yKind: 'Values are',
+  xUnit: 'Wavelength unit', decimalMark: 'Decimal mark', block: 'JCAMP-DX block', eachBlock: 'Every block',
+  from: 'Keep from', to: 'Keep to', uncertainty: 'Instrument uncertainty',
+};
 const OUTCOME_WORDS = { STORED: 'stored', DUPLICATE: 'already stored', REFUSED: 'refused' };
 
 let nextCard = 0;
@@ -119,7 +134,7 @@ export function problemText(problem) {
   const where = [];
   if (Number.isFinite(p.line) && p.line > 0) where.push(`line ${p.line}`);
   if (p.field) where.push(`column “${p.field}”`);
-  if (p.parameter) where.push(`field “${p.parameter}”`);
+  if (p.parameter) where.push(`field “${FIELD_LABELS[p.parameter] || p.parameter}”`);
   let what = p.problem || problem?.detail || problem?.message || 'the server refused it';
   if (!p.problem && p.parameter) what = what.replace(/^parameter\s+\S+:?\s*/, '');
   return where.length ? `${capitalise(where.join(', '))}: ${what}` : capitalise(what);
@@ -232,6 +247,7 @@ export function initImport(ui) {
     const state = node('p', 'import-state');
     state.setAttribute('role', 'status');
     const problem = node('div', 'import-problem');
+    problem.id = `${id}-problem`;
     problem.setAttribute('role', 'alert');
     problem.hidden = true;
     const preview = node('div', 'import-preview');
@@ -313,7 +329,7 @@ export function initImport(ui) {
     const sample = node('fieldset', 'import-group');
     sample.append(node('legend', null, 'Sample'));
     sample.append(
-      field('Thickness (mm)', input('thicknessMm', { type: 'number', step: 'any', min: 0, size: 6,
+      field('Thickness (mm)', input('thicknessMm', { type: 'number', step: 'any', min: 0, size: 9,
         placeholder: 'from the file' })),
       field('Geometry', select('geometry', [['regular', 'regular (direct beam)'], ['total', 'total (scattered light included)']])),
       field('Provenance', select('provenance', [['', 'as the file says'], ['measured', 'measured'], ['datasheet', 'datasheet'],
@@ -348,12 +364,27 @@ export function initImport(ui) {
       problem.replaceChildren(node('p', null, problemText(p)));
       problem.hidden = false;
       card.classList.add('refused');
+      // The control the problem names is marked, so the message and its cause can be found together.
+      const named = p?.properties?.parameter === 'materialId' ? existingName
+        : form.elements.namedItem(p?.properties?.parameter || '');
+      if (named instanceof HTMLElement) {
+        named.setAttribute('aria-invalid', 'true');
+        named.setAttribute('aria-describedby', problem.id);
+      }
     }
 
     function clearProblem() {
       problem.hidden = true;
       problem.replaceChildren();
       card.classList.remove('refused');
+      for (const e of form.querySelectorAll('[aria-invalid]')) {
+        e.removeAttribute('aria-invalid');
+        e.removeAttribute('aria-describedby');
+      }
+    }
+
+    function localProblem(parameter, detail) {
+      return new ApiProblem({ title: 'Incomplete form', detail, properties: { parameter, problem: detail } });
     }
 
     async function runPreview() {
@@ -387,7 +418,7 @@ export function initImport(ui) {
       }], 'linear');
       const rows = [
         ['Format', answer.format],
-        ['Wavelength unit', answer.xUnit],
+        ['Wavelength unit', X_UNIT_WORDS[answer.xUnit] || answer.xUnit],
         ['Quantity', Y_KIND_WORDS[answer.yKind] || answer.yKind],
         ['Points', String(answer.pointCount)],
         ['Range kept', range(answer.keep?.keptRangeNm || answer.rangeNm)],
@@ -464,15 +495,20 @@ export function initImport(ui) {
         const typed = existingName.value.trim();
         const found = materials.byName.get(typed.toLocaleLowerCase());
         if (!found) {
-          showProblem(new ApiProblem({ title: 'No such material', detail: typed
+          showProblem(localProblem('materialId', typed
             ? `no material is named “${typed}”; choose one of the suggestions, or a new material`
-            : 'type the name of an existing material, or choose a new material' }));
+            : 'type the name of an existing material, or choose a new material'));
           existingName.focus();
           return;
         }
         values.materialId = String(found.id);
       } else {
         for (const k of NEW_MATERIAL_FIELDS) values[k] = value(k);
+        if (!values.materialName.trim()) {
+          showProblem(localProblem('materialName', 'name the new material, or choose an existing one'));
+          form.elements.namedItem('materialName').focus();
+          return;
+        }
       }
       store.disabled = true;
       state.textContent = 'Storing…';

@@ -126,7 +126,7 @@ class ImportPageBrowserTest {
         // And it opens from its card.
         card.findElement(By.cssSelector("button.open-stored")).click();
         wait.until(d -> name.equals(d.findElement(By.id("detail-name")).getText()));
-        assertThat(driver.findElements(By.cssSelector("#sample-table tbody tr"))).hasSize(1);
+        assertThat(driver.findElement(By.id("sample-table")).getText()).contains("2 mm").contains("measured");
         screenshot("import-3-opened", driver.findElement(By.id("material-detail")));
     }
 
@@ -153,11 +153,34 @@ class ImportPageBrowserTest {
         assertThat(goodCard.findElement(By.cssSelector(".import-problem")).isDisplayed()).isFalse();
         screenshot("import-4-refused", brokenCard);
 
-        // A form mistake is shown the same way, naming the field: store without thickness or material.
+        // A form mistake is shown the same way, naming the form's field: a new material without a name.
         goodCard.findElement(By.cssSelector("button[type=submit]")).click();
         WebElement formProblem = goodCard.findElement(By.cssSelector(".import-problem"));
         wait.until(d -> formProblem.isDisplayed());
-        assertThat(formProblem.getText()).startsWith("Field “materialId”").doesNotContainPattern("\\b4\\d\\d\\b");
+        assertThat(formProblem.getText()).startsWith("Field “Name”");
+        assertThat(goodCard.findElement(By.name("materialName")).getDomAttribute("aria-invalid")).isEqualTo("true");
+
+        // The server's refusal of a field names it too: a thickness of 0 mm into an existing material.
+        String existing = driver.findElement(By.cssSelector("#material-table tbody td.name")).getText();
+        goodCard.findElement(By.cssSelector("input[type=radio][value=existing]")).click();
+        goodCard.findElement(By.name("existingName")).sendKeys(existing);
+        goodCard.findElement(By.name("thicknessMm")).sendKeys("0");
+        goodCard.findElement(By.cssSelector("button[type=submit]")).click();
+        wait.withMessage(() -> "waiting for the thickness refusal; card says: " + goodCard.getText());
+        wait.until(d -> formProblem.getText().startsWith("Field “Thickness”"));
+        assertThat(formProblem.getText()).doesNotContainPattern("\\b4\\d\\d\\b");
+        screenshot("import-5-form-problem", goodCard);
+
+        // Corrected, it is stored into the existing material chosen by its name.
+        WebElement thickness = goodCard.findElement(By.name("thicknessMm"));
+        thickness.clear();
+        thickness.sendKeys("3");
+        goodCard.findElement(By.cssSelector("button[type=submit]")).click();
+        wait.withMessage(() -> "waiting for the stored sample; card says: " + goodCard.getText());
+        wait.until(d -> goodCard.findElement(By.cssSelector(".import-state")).getText().startsWith("Stored as sample"));
+        assertThat(formProblem.isDisplayed()).isFalse();
+        goodCard.findElement(By.cssSelector("button.open-stored")).click();
+        wait.until(d -> existing.equals(d.findElement(By.id("detail-name")).getText()));
     }
 
     @Test
@@ -170,7 +193,7 @@ class ImportPageBrowserTest {
         long overflow = (Long) ((JavascriptExecutor) driver).executeScript(
                 "return document.documentElement.scrollWidth - document.documentElement.clientWidth;");
         assertThat(overflow).as("page wider than the window by").isLessThanOrEqualTo(0);
-        screenshot("import-5-narrow", card);
+        screenshot("import-6-narrow", card);
     }
 
     // ---------- helpers ----------
