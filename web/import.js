@@ -600,8 +600,9 @@ export function initImport(ui) {
     function showReport(report) {
       const files = report.files || [];
       const done = files.filter((f) => f.outcome !== 'REFUSED').length;
+      // every row is answered at once: the bar is full, the line below says how many were stored
       progress.max = Math.max(1, files.length);
-      progress.value = done;
+      progress.value = files.length;
       const refused = files.length - done;
       const extra = report.notInManifest?.length ? ` Not in the manifest, so not imported: ${report.notInManifest.join(', ')}.` : '';
       state.textContent = `${done} of ${files.length} files in the library${refused ? `, ${refused} refused` : ''}.${extra}`;

@@ -7,6 +7,8 @@ import java.nio.file.Files;
 import java.nio.file.Path;
 import java.time.Duration;
 import java.util.List;
+import java.util.zip.ZipEntry;
+import java.util.zip.ZipOutputStream;
 import org.junit.jupiter.api.AfterAll;
 import org.junit.jupiter.api.AfterEach;
 import org.junit.jupiter.api.BeforeAll;
@@ -181,6 +183,39 @@ class ImportPageBrowserTest {
         assertThat(formProblem.isDisplayed()).isFalse();
         goodCard.findElement(By.cssSelector("button.open-stored")).click();
         wait.until(d -> existing.equals(d.findElement(By.id("detail-name")).getText()));
+    }
+
+    @Test
+    void aZipWithAManifestReportsEveryRowAndItsStoredMaterialAppearsInTheLibrary() throws Exception {
+        Path zip = temp.resolve("fernhollow-batch.zip");
+        try (ZipOutputStream out = new ZipOutputStream(Files.newOutputStream(zip))) {
+            entry(out, "manifest.csv", "file,material,class,scaling,thickness\n"
+                    + "good.csv,Fernhollow batch sheet (illustrative),plastic sheet,bulk,2\n"
+                    + "broken.csv,Fernhollow batch sheet (illustrative),plastic sheet,bulk,3\n");
+            entry(out, "good.csv", goodCsv());
+            entry(out, "broken.csv", "wavelength_nm,transmittance_percent\n300,12.5\n310,abc\n320,14.0\n");
+        }
+        openPage();
+        WebElement card = addFile(zip);
+        card.findElement(By.cssSelector(".import-actions button")).click();
+        wait.withMessage(() -> "waiting for the batch report; card says: " + card.getText());
+        wait.until(d -> !card.findElements(By.cssSelector(".import-batch-table tbody tr")).isEmpty());
+        List<WebElement> rows = card.findElements(By.cssSelector(".import-batch-table tbody tr"));
+        assertThat(rows).hasSize(2);
+        assertThat(rows.get(0).getText()).contains("good.csv").contains("stored");
+        assertThat(rows.get(1).getText()).contains("broken.csv").contains("refused").contains("3"); // the bad line
+        assertThat(card.findElement(By.cssSelector(".import-state")).getText()).startsWith("1 of 2 files in the library");
+        screenshot("import-7-batch", card);
+
+        driver.findElement(By.id("filter-text")).sendKeys("batch sheet");
+        wait.until(d -> d.findElements(By.cssSelector("#material-table tbody td.name")).stream()
+                .anyMatch(td -> td.getText().equals("Fernhollow batch sheet (illustrative)")));
+    }
+
+    private static void entry(ZipOutputStream out, String name, String text) throws IOException {
+        out.putNextEntry(new ZipEntry(name));
+        out.write(text.getBytes(java.nio.charset.StandardCharsets.UTF_8));
+        out.closeEntry();
     }
 
     @Test
