@@ -9,6 +9,7 @@ import { initSearch } from './search.js';
 import { initFigures } from './figures.js';
 import { initFacets } from './facets.js';
 import { initSimilar } from './similar.js';
+import { initImport } from './import.js';
 import { initCuration, renderMaterialRecord, renderRetiredSamples, sampleControls } from './curation.js';
 
 const SAMPLE_COLOURS = ['#1d6a86', '#8a5a2b', '#4d7a37', '#7a3e6e', '#3d4f9a', '#9c4545', '#3c7f7a', '#6b6b2a'];
@@ -525,6 +526,13 @@ initSearch({
   clearMessage,
   openMaterial(id, rescaleTo) {
     selectMaterial(id, { ...rescaleTo, reveal: true });
+  },
+});
+// Curve import (import.js): a stored file shows in the library at once and can be opened from its card.
+initImport({
+  libraryChanged: () => loadMaterials({ refresh: true }),
+  openMaterial(id) {
+    selectMaterial(id, { reveal: true });
   },
 });
 loadMaterials();
