@@ -11,6 +11,7 @@ import { initFacets } from './facets.js';
 import { initSimilar } from './similar.js';
 import { initImport } from './import.js';
 import { initCuration, renderMaterialRecord, renderRetiredSamples, sampleControls } from './curation.js';
+import { readAddress, writeAddress, onAddressChange } from './address.js';
 
 const SAMPLE_COLOURS = ['#1d6a86', '#8a5a2b', '#4d7a37', '#7a3e6e', '#3d4f9a', '#9c4545', '#3c7f7a', '#6b6b2a'];
 const RESCALED_COLOUR = '#c2700f';
@@ -58,6 +59,9 @@ const state = {
   plot: null,
 };
 
+let search = null;     // the requirement search's view (search.js), for the address
+let restoring = false; // true while a view is restored from the address: nothing is written back meanwhile
+
 // ---------- messages: every API failure is shown, never swallowed ----------
 
 function showProblem(problem, context) {
@@ -94,7 +98,7 @@ function messageStartsWith(context) {
   return !dom.message.hidden && dom.message.textContent.startsWith(context);
 }
 
-const figures = initFigures({ showProblem, clearMessage, messageStartsWith });
+const figures = initFigures({ showProblem, clearMessage, messageStartsWith, changed: () => rememberView() });
 const facets = initFacets(dom.facets, () => loadMaterials());
 const similar = initSimilar({
   showProblem,
@@ -323,7 +327,7 @@ async function selectMaterial(id, rescaleTo = null) {
     const prefilled = prefillRescale(material, rescaleTo);
     dom.placeholder.hidden = true;
     dom.detail.hidden = false;
-    history.replaceState(null, '', `#material=${encodeURIComponent(id)}`);
+    rememberView({ push: true }); // opening a material is a step Back returns from (address.js)
     if (rescaleTo?.reveal) dom.detail.scrollIntoView({ block: 'start' });
     await loadCurves(material, request);
     if (prefilled && request === state.detailRequest) await applyRescale();
@@ -466,6 +470,7 @@ async function applyRescale() {
     };
     clearRescaleProblem();
     redraw();
+    rememberView();
     figures.showRescaled(state.rescaled);
   } catch (problem) {
     if (request !== state.rescaleRequest) return;
@@ -479,16 +484,12 @@ function clearRescale() {
   if (state.rescaled) {
     state.rescaled = null;
     redraw();
+    rememberView();
     figures.showRescaled(null);
   }
 }
 
 // ---------- wiring ----------
-
-function materialIdFromHash() {
-  const match = /material=([^&]+)/.exec(location.hash);
-  return match ? decodeURIComponent(match[1]) : null;
-}
 
 function wire() {
   dom.filterText.addEventListener('input', scheduleFilter);
@@ -504,6 +505,9 @@ function wire() {
     }
   });
   dom.axisMode.addEventListener('change', redraw);
+  dom.axisMode.addEventListener('change', () => rememberView());
+  dom.filterText.addEventListener('input', () => rememberView());
+  dom.facets.addEventListener('change', () => rememberView());
   dom.rescaleForm.addEventListener('submit', (event) => {
     event.preventDefault();
     applyRescale();
@@ -521,12 +525,13 @@ initCuration({
     await selectMaterial(id);
   },
 });
-initSearch({
+search = initSearch({
   showProblem,
   clearMessage,
   openMaterial(id, rescaleTo) {
     selectMaterial(id, { ...rescaleTo, reveal: true });
   },
+  searched: () => rememberView({ push: true }), // a search run is a step Back returns from
 });
 // Curve import (import.js): a stored file shows in the library at once and can be opened from its card.
 initImport({
@@ -535,6 +540,81 @@ initImport({
     selectMaterial(id, { reveal: true });
   },
 });
-loadMaterials();
-const initial = materialIdFromHash();
-if (initial) selectMaterial(initial);
+restoreView(readAddress());
+onAddressChange(restoreView);
+
+// ---------- the address: the whole view as a link (address.js, docs/shareable-address.md) ----------
+
+/** The view as the address keeps it. */
+function captureView() {
+  return {
+    q: search?.searched() ?? null,
+    material: state.material ? String(state.material.id) : null,
+    from: state.rescaled ? String(state.rescaled.fromSample.id) : null,
+    mm: state.rescaled?.thicknessMm ?? null,
+    axis: dom.axisMode.value === dom.axisMode.options[0]?.value ? null : dom.axisMode.value,
+    words: dom.filterText.value.trim() || null,
+    facets: facets.chosen(),
+    figures: state.material ? figures.choices() : {},
+  };
+}
+
+/** Writes the view into the address; nothing while a view is being restored from it. */
+function rememberView({ push = false } = {}) {
+  if (restoring) return;
+  writeAddress(captureView(), { push });
+}
+
+/** Shows the view an address describes: on load (also an older `#material=ID` link) and on Back/Forward. */
+async function restoreView(view) {
+  restoring = true;
+  try {
+    const axis = view.axis ?? dom.axisMode.options[0]?.value;
+    if ([...dom.axisMode.options].some((o) => o.value === axis)) dom.axisMode.value = axis;
+    let listed = null;
+    if (!state.catalogue || listingKey(view.words, view.facets) !== listingKey(dom.filterText.value, facets.chosen())) {
+      dom.filterText.value = view.words ?? '';
+      facets.choose(view.facets);
+      listed = loadMaterials();
+    }
+    const searched = search.show(view.q);
+    if (view.material === null) {
+      closeMaterial();
+    } else if (isShown(view)) {
+      redraw();
+    } else {
+      await selectMaterial(view.material, view.mm ? { sampleId: view.from, thicknessMm: view.mm } : null);
+    }
+    if (view.material !== null && state.material && Object.keys(view.figures).length) {
+      await figures.choose(view.figures);
+    }
+    await Promise.allSettled([listed, searched]);
+  } finally {
+    restoring = false;
+  }
+  rememberView(); // an older `#material=` link now reads in the new form; no new history entry
+}
+
+/** Words and ticks as one comparable string: empty groups left out, groups and values in a fixed order. */
+function listingKey(words, chosen) {
+  const ticks = Object.entries(chosen || {}).filter(([, values]) => values?.length)
+    .map(([dimension, values]) => [dimension, [...values].sort()]).sort(([a], [b]) => a.localeCompare(b));
+  return JSON.stringify([(words ?? '').trim(), ticks]);
+}
+
+function isShown(view) {
+  return state.material && String(state.material.id) === String(view.material)
+    && (state.rescaled?.thicknessMm ?? null) === view.mm
+    && (view.mm === null || String(state.rescaled.fromSample.id) === String(view.from ?? state.rescaled.fromSample.id));
+}
+
+function closeMaterial() {
+  ++state.detailRequest;
+  state.material = null;
+  state.rescaled = null;
+  state.curves = [];
+  state.overlays = [];
+  dom.detail.hidden = true;
+  dom.placeholder.hidden = false;
+  markSelectedRow(null);
+}

@@ -127,7 +127,7 @@ export function drawCurves(container, curves, modeKey) {
   const series = [{ label: 'λ (nm)', value: (u, v) => (v == null ? '—' : `${v} nm`) }];
   tables.forEach((table, i) => series.push(...seriesOptions(curves[i], table.length === 3, modeKey)));
 
-  const width = Math.max(320, container.clientWidth || 720);
+  const width = Math.max(240, container.clientWidth || 720); // 240: a 360 px window's chart fits
   const options = {
     width,
     height: Math.round(Math.min(420, Math.max(260, width * 0.5))),

@@ -45,8 +45,12 @@ export function initFacets(root, onChange) {
     if (event.target.matches('input[type="checkbox"]')) onChange();
   });
 
+  // Ticks asked for by the address (address.js) before the boxes exist; the next answer's boxes take them.
+  let pending = null;
+
   /** The ticked values, as { class: [...], geometry: [...], ... }. */
   function chosen() {
+    if (pending) return Object.fromEntries(DIMENSIONS.map((d) => [d, [...(pending[d] || [])]]));
     return Object.fromEntries(DIMENSIONS.map((d) => [d,
       [...groups[d].querySelectorAll('input:checked')].map((box) => box.value)]));
   }
@@ -54,7 +58,9 @@ export function initFacets(root, onChange) {
   /** Shows the counts of one answer's `facets`; ticked boxes stay ticked. */
   function show(facets) {
     const picked = chosen();
+    pending = null;
     for (const d of DIMENSIONS) {
+      for (const value of picked[d]) if (!known[d].includes(value)) known[d].push(value);
       const counts = new Map((facets?.[d] || []).map((f) => [f.value, f.count]));
       for (const value of counts.keys()) if (!known[d].includes(value)) known[d].push(value);
       if (ORDER[d]) known[d].sort((a, b) => rank(d, a) - rank(d, b));
@@ -97,7 +103,12 @@ export function initFacets(root, onChange) {
     if (focused !== null) list.querySelector(`input[value="${CSS.escape(focused)}"]`)?.focus();
   }
 
-  return { chosen, show };
+  /** Ticks exactly these values ({ dimension: [values] }) with the next answer shown. */
+  function choose(values) {
+    pending = values || {};
+  }
+
+  return { chosen, show, choose };
 }
 
 function rank(dimension, value) {

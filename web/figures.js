@@ -411,9 +411,34 @@ export function initFigures(ui) {
   for (const field of [dom.behind, dom.behindMm]) {
     field.addEventListener('change', () => setTimeout(partChanged, 0));
   }
+  // the address keeps the choices (address.js); listened to apart from the refresh above
+  for (const control of [dom.sample, dom.emitter, dom.response, dom.convention, dom.solar, dom.behind, dom.behindMm]) {
+    control.addEventListener('change', () => ui.changed?.());
+  }
   const catalogues = loadCatalogues();
+  const addressControls = () => ({
+    sample: dom.sample, emitter: dom.emitter, response: dom.response, convention: dom.convention,
+    behind: dom.behind, behindMm: dom.behindMm, solar: dom.solar,
+  });
 
   return {
+    /** The choices as the address keeps them: { sample, emitter, … } (empty ones left out). */
+    choices() {
+      return Object.fromEntries(Object.entries(addressControls())
+        .map(([key, control]) => [key, control.value.trim()]).filter(([, value]) => value !== ''));
+    },
+
+    /** Restores choices read from an address; a value the picker does not offer is ignored. */
+    async choose(values) {
+      await catalogues;
+      for (const [key, control] of Object.entries(addressControls())) {
+        const value = values?.[key] ?? '';
+        if (control.tagName !== 'SELECT') control.value = value;
+        else if (value && [...control.options].some((o) => o.value === value)) control.value = value;
+      }
+      await refresh();
+    },
+
     /** Material names offered for the "seen behind" part; the name chosen is sent as its slug. */
     offerParts(materials) {
       const named = (materials || []).filter((m) => m.slug && m.name);

@@ -219,6 +219,7 @@ export function initSearch(ui) {
       hideError();
       renderClauses(answer.requirement, answer.words);
       renderResults(answer, text);
+      ui.searched?.(text); // the address keeps the requirement searched (address.js)
     } catch (problem) {
       if (request !== state.searchRequest) return;
       dropResults(); // rows of an earlier requirement would pass for this one's
@@ -434,6 +435,27 @@ export function initSearch(ui) {
     runSearch();
   });
   renderClauses(null);
+
+  return {
+    /** The requirement last searched, or null (for the address). */
+    searched: () => (dom.results.hidden ? null : dom.table.dataset.requirement ?? null),
+    /** Shows the view of an address: searches `text` unless already shown; null empties the search. */
+    async show(text) {
+      if (text === null || text === undefined) {
+        ++state.searchRequest;
+        dom.text.value = '';
+        dom.results.hidden = true;
+        delete dom.table.dataset.requirement;
+        dom.rows.replaceChildren();
+        hideError();
+        renderClauses(null);
+        return;
+      }
+      if (!dom.results.hidden && dom.table.dataset.requirement === text && dom.text.value === text) return;
+      dom.text.value = text;
+      await runSearch();
+    },
+  };
 }
 
 // ---------- clauses the shared formatter does not know: weighted figures, critical wavelength, layer ----------
