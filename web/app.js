@@ -8,6 +8,7 @@ import { initSearch } from './search.js';
 import { initFigures } from './figures.js';
 import { initFacets } from './facets.js';
 import { initSimilar } from './similar.js';
+import { initCompare } from './compare.js';
 import { initCuration, renderMaterialRecord, renderRetiredSamples, sampleControls } from './curation.js';
 
 const SAMPLE_COLOURS = ['#1d6a86', '#8a5a2b', '#4d7a37', '#7a3e6e', '#3d4f9a', '#9c4545', '#3c7f7a', '#6b6b2a'];
@@ -524,6 +525,7 @@ initSearch({
     selectMaterial(id, { ...rescaleTo, reveal: true });
   },
 });
+initCompare({ showProblem });
 loadMaterials();
 const initial = materialIdFromHash();
 if (initial) selectMaterial(initial);
