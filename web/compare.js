@@ -411,7 +411,9 @@ export function drawableClauses(requirement) {
 
 function clauseWords(c) {
   if (c.type === 'weighted') {
-    const name = c.preset || (c.response ? `${c.emitter} × ${c.response}` : c.emitter);
+    // a preset (erythemal, UV hazard, luminous) is named by itself; otherwise the emitter and response named
+    const named = { erythemal: 'erythemal', uvHazard: 'UV hazard', luminous: 'luminous' }[c.preset];
+    const name = named || (c.response ? `${c.emitter} × ${c.response}` : c.emitter);
     return `weighted T of ${name} ${c.direction === 'pass' ? '≥' : '≤'} ${fmt.number(c.thresholdT * 100, 4)} %`;
   }
   if (c.type === 'criticalWavelength') return `critical wavelength ${c.comparison === 'atLeast' ? '≥' : '≤'} ${fmt.number(c.nm, 1)} nm`;
@@ -453,7 +455,7 @@ function drawRequirement(u, clauses, modeKey) {
       ctx.fillStyle = EMITTER_FILL;
       ctx.fillRect(x0, bbox.top, x1 - x0, bbox.height);
       ctx.fillStyle = REQUIREMENT_INK;
-      ctx.fillText(`${tag} ${clause.emitter || clause.preset || ''}`, x0 + 3 * dpr, bbox.top + bbox.height - 6 * dpr);
+      ctx.fillText(`${tag} ${clause.emitter || ''}`, x0 + 3 * dpr, bbox.top + bbox.height - 6 * dpr);
     } else if (c.kind === 'critical') {
       if (clause.nm < xMin || clause.nm > xMax) continue;
       const x = xAt(clause.nm);
@@ -489,9 +491,10 @@ function drawRequirement(u, clauses, modeKey) {
         ctx.moveTo(x - half, y);
         ctx.lineTo(x + half, y);
         ctx.stroke();
-        arrow(ctx, x, y, mustBeAbove ? -1 : 1, dpr);
+        diamond(ctx, x, y, 4 * dpr);
+        arrow(ctx, x, y, mustBeAbove ? -1 : 1, dpr, bbox);
         ctx.lineWidth = 1.5 * dpr;
-        ctx.fillText(tag, x + half + 3 * dpr, y + (mustBeAbove ? 14 : -6) * dpr);
+        label(ctx, tag, x + half + 3 * dpr, y, bbox, dpr);
       } else {
         const from = Math.max(clause.fromNm, xMin);
         const to = Math.min(clause.toNm, xMax);
@@ -509,21 +512,27 @@ function drawRequirement(u, clauses, modeKey) {
         ctx.lineTo(x1, y);
         ctx.stroke();
         ctx.setLineDash([]);
-        arrow(ctx, (x0 + x1) / 2, y, mustBeAbove ? -1 : 1, dpr);
-        ctx.fillText(tag, x0 + 3 * dpr, y + (mustBeAbove ? -5 : 13) * dpr);
+        arrow(ctx, (x0 + x1) / 2, y, mustBeAbove ? -1 : 1, dpr, bbox);
+        label(ctx, tag, x0 + 3 * dpr, y, bbox, dpr);
       }
     }
   }
   ctx.restore();
 }
 
-/** An arrow from (x, y) 22 px up (sign −1) or down (+1) the page, with a filled head. */
-function arrow(ctx, x, y, sign, dpr) {
+/**
+ * An arrow pointing up (sign −1) or down (+1) the page from the threshold at (x, y). Where the plot ends
+ * within the arrow's length (a blocking threshold near T = 0), the arrow is drawn on the other side,
+ * pointing at the threshold: the same direction, still inside the frame.
+ */
+function arrow(ctx, x, y, sign, dpr, bbox) {
   const length = 22 * dpr;
   const head = 6 * dpr;
-  const tip = y + sign * length;
+  const roomy = sign < 0 ? y - length >= bbox.top : y + length <= bbox.top + bbox.height;
+  const tail = roomy ? y : y - sign * length;
+  const tip = roomy ? y + sign * length : y;
   ctx.beginPath();
-  ctx.moveTo(x, y);
+  ctx.moveTo(x, tail);
   ctx.lineTo(x, tip);
   ctx.stroke();
   ctx.beginPath();
@@ -532,6 +541,29 @@ function arrow(ctx, x, y, sign, dpr) {
   ctx.lineTo(x + head, tip - sign * head);
   ctx.closePath();
   ctx.fill();
+}
+
+function diamond(ctx, x, y, r) {
+  ctx.beginPath();
+  ctx.moveTo(x, y - r);
+  ctx.lineTo(x + r, y);
+  ctx.lineTo(x, y + r);
+  ctx.lineTo(x - r, y);
+  ctx.closePath();
+  ctx.fill();
+}
+
+/** The clause's tag beside its mark, above the line unless that leaves the frame, on a pale halo. */
+function label(ctx, text, x, y, bbox, dpr) {
+  const above = y - 16 * dpr >= bbox.top;
+  const baseline = above ? y - 5 * dpr : y + 14 * dpr;
+  ctx.save();
+  ctx.lineWidth = 3 * dpr;
+  ctx.strokeStyle = 'rgba(255, 255, 255, 0.85)';
+  ctx.setLineDash([]);
+  ctx.strokeText(text, x, baseline);
+  ctx.restore();
+  ctx.fillText(text, x, baseline);
 }
 
 /** A small inline drawing of the series' line: its colour and its dash, as in the chart. */

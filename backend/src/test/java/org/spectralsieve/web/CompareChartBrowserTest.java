@@ -111,6 +111,17 @@ class CompareChartBrowserTest {
     }
 
     @Test
+    void aWeightedClauseIsDrawnAsItsEmittersBand() throws IOException {
+        search("passes over 85% of led 395, thickness 1 to 6 mm", 10);
+        driver.findElement(By.id("compare-top3")).click();
+        waitForSeries(3);
+        List<WebElement> clauses = driver.findElements(By.cssSelector("#compare-clauses li"));
+        assertThat(clauses).extracting(c -> c.getDomAttribute("data-clause-kind")).containsExactly("weighted");
+        assertThat(clauses.get(0).getText()).contains("led-395").containsPattern("emitter band \\d+–\\d+ nm");
+        screenshotOf("compare-5-weighted");
+    }
+
+    @Test
     void twentyCurvesOverlaidStillDraw() throws IOException {
         search("passes over 1% at 600 nm", 20);
         // tick every row at once, then ask for one redraw (as a user's last tick would)
