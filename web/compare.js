@@ -253,7 +253,7 @@ export function initCompare(ui) {
       });
     });
     const width = Math.max(300, dom.chart.clientWidth || 720);
-    const clauses = requirement ? drawableClauses(requirement) : [];
+    const clauses = requirement ? drawableClauses(requirement, modeKey) : [];
     state.plot = new uPlot({
       width,
       height: Math.round(Math.min(440, Math.max(260, width * 0.5))),
@@ -388,7 +388,7 @@ function thicknessWords(d) {
  * curve must lie on, a band clause as its threshold over the band with the forbidden side shaded, a weighted
  * clause as its emitter's band, a cutoff as its window at its level, a critical wavelength as a line.
  */
-export function drawableClauses(requirement) {
+export function drawableClauses(requirement, modeKey = 'linear') {
   const out = [];
   (requirement.clauses || []).forEach((c, i) => {
     const base = { index: i + 1, summary: clauseWords(c), direction: c.direction, clause: c };
@@ -400,13 +400,18 @@ export function drawableClauses(requirement) {
       out.push({ ...base, kind: 'critical', drawnAs: `vertical line at ${fmt.number(c.nm, 1)} nm` });
     } else if (Number.isFinite(c.fromNm) && Number.isFinite(c.thresholdT)) {
       const point = !Number.isFinite(c.toNm) || c.toNm === c.fromNm;
-      const way = c.direction === 'pass' ? 'passes: curve must lie on or above' : 'blocks: curve must lie on or below';
+      const way = `${c.direction === 'pass' ? 'passes' : 'blocks'}: curve must lie on or ${pointsUp(c, modeKey) ? 'above' : 'below'}`;
       out.push(point
-        ? { ...base, kind: 'point', drawnAs: `marker at ${fmt.number(c.fromNm, 1)} nm with an arrow ${c.direction === 'pass' ? 'up' : 'down'} (on the transmittance axis; ${way})` }
+        ? { ...base, kind: 'point', drawnAs: `marker at ${fmt.number(c.fromNm, 1)} nm with an arrow ${pointsUp(c, modeKey) ? 'up' : 'down'} (${way})` }
         : { ...base, kind: 'band', drawnAs: `threshold over ${fmt.number(c.fromNm, 0)}–${fmt.number(c.toNm, 0)} nm, the side the curve must avoid shaded (${way})` });
     }
   });
   return out;
+}
+
+/** Up the page for "passes" on the transmittance axis; the OD axis runs the other way. */
+function pointsUp(clause, modeKey) {
+  return (clause.direction === 'pass') === (modeKey !== 'od');
 }
 
 function clauseWords(c) {
@@ -433,13 +438,14 @@ function drawRequirement(u, clauses, modeKey) {
     return Math.min(bbox.top + bbox.height, Math.max(bbox.top, u.valToPos(v, 'y', true)));
   };
   const xAt = (nm) => u.valToPos(nm, 'x', true);
-  // on the OD axis a higher T is lower down: "passes" then points down the page
-  const upIsMore = modeKey !== 'od';
   ctx.save();
   ctx.beginPath();
   ctx.rect(bbox.left, bbox.top, bbox.width, bbox.height);
   ctx.clip();
   ctx.font = `${Math.round(11 * dpr)}px system-ui, sans-serif`;
+  // uPlot leaves the alignment of its last axis label behind
+  ctx.textAlign = 'left';
+  ctx.textBaseline = 'alphabetic';
   ctx.lineWidth = 1.5 * dpr;
   for (const c of clauses) {
     const tag = `R${c.index}`;
@@ -481,7 +487,7 @@ function drawRequirement(u, clauses, modeKey) {
       ctx.fillText(tag, x0 + 3 * dpr, y - 6 * dpr);
     } else {
       const y = yAt(clause.thresholdT);
-      const mustBeAbove = (clause.direction === 'pass') === upIsMore;
+      const mustBeAbove = pointsUp(clause, modeKey);
       if (c.kind === 'point') {
         if (clause.fromNm < xMin || clause.fromNm > xMax) continue;
         const x = xAt(clause.fromNm);

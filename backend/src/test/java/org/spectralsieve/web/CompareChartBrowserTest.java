@@ -87,6 +87,9 @@ class CompareChartBrowserTest {
         new org.openqa.selenium.support.ui.Select(driver.findElement(By.id("compare-axis"))).selectByValue("od");
         wait.until(d -> "od".equals(d.findElement(By.id("compare-chart")).getDomAttribute("data-axis-mode")));
         waitForSeries(3);
+        // OD rises as T falls: "passes" (T at least) now points down the page, "blocks" up
+        wait.until(d -> d.findElements(By.cssSelector("#compare-clauses li")).get(0).getText().contains("arrow down"));
+        assertThat(texts("#compare-clauses li").get(1)).contains("arrow up");
         screenshotOf("compare-2-top-three-od");
     }
 
