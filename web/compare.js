@@ -176,7 +176,8 @@ export function initCompare(ui) {
   async function redraw() {
     const request = ++state.request;
     let chosen = candidates();
-    if (chosen.length > MAX_SERIES) chosen = chosen.slice(0, MAX_SERIES);
+    const left = Math.max(0, chosen.length - MAX_SERIES);
+    if (left) chosen = chosen.slice(0, MAX_SERIES);
     if (!chosen.length) {
       destroy();
       dom.chart.dataset.series = '0';
@@ -194,7 +195,8 @@ export function initCompare(ui) {
       ? drawn.push({ ...chosen[i], curve: f.curve, note: f.note, measuredMm: f.measuredMm ?? chosen[i].measuredMm })
       : problems.push(f)));
     draw(drawn);
-    const words = `${drawn.length === 1 ? '1 curve' : `${drawn.length} curves`} compared`;
+    const words = `${drawn.length === 1 ? '1 curve' : `${drawn.length} curves`} compared`
+      + (left ? ` (the first ${MAX_SERIES}; ${left} more ticked but not drawn)` : '');
     say(problems.length ? `${words}; not drawn: ${problems.map((p) => p.problem).join('; ')}` : words);
   }
 
