@@ -10,6 +10,7 @@ import { initFigures } from './figures.js';
 import { initFacets } from './facets.js';
 import { initSimilar } from './similar.js';
 import { initImport } from './import.js';
+import { initCompare } from './compare.js';
 import { initCuration, renderMaterialRecord, renderRetiredSamples, sampleControls } from './curation.js';
 import { readAddress, writeAddress, onAddressChange } from './address.js';
 
@@ -540,6 +541,8 @@ initImport({
     selectMaterial(id, { reveal: true });
   },
 });
+// Compare (compare.js): listens for each shortlist before a restored address runs a search.
+initCompare({ showProblem });
 restoreView(readAddress());
 onAddressChange(restoreView);
 
