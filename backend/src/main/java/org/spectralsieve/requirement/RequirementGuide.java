@@ -28,7 +28,7 @@ import org.spectralsieve.weighting.SpectrumLookup;
  * @param provenances     the values of a {@code provenance …} term
  * @param geometries      the values of a {@code geometry …} filter
  */
-public record RequirementGuide(List<Form> forms, List<Unit> units, String joining, List<String> comparisons,
+public record RequirementGuide(List<ClauseForm> forms, List<UnitRange> units, String joining, List<String> comparisons,
         List<String> materialClasses, List<String> emitters, String describedEmitters, List<String> responses,
         List<String> provenances, List<String> geometries) {
 
@@ -41,9 +41,9 @@ public record RequirementGuide(List<Form> forms, List<Unit> units, String joinin
      * @param meaning   how the example is read
      * @param words     whether the example carries words or provenance terms beside its clauses
      */
-    public record Form(String name, String example, String meaning, boolean words) {
+    public record ClauseForm(String name, String example, String meaning, boolean words) {
 
-        public Form {
+        public ClauseForm {
             Objects.requireNonNull(example, "example");
         }
     }
@@ -52,7 +52,7 @@ public record RequirementGuide(List<Form> forms, List<Unit> units, String joinin
      * @param range   what the parser accepts, as text
      * @param example a text the parser accepts that writes a number in this unit
      */
-    public record Unit(String quantity, String written, String range, String example) {
+    public record UnitRange(String quantity, String written, String range, String example) {
     }
 
     public RequirementGuide {
@@ -86,8 +86,8 @@ public record RequirementGuide(List<Form> forms, List<Unit> units, String joinin
      * The examples name only built-in spectra (led-365, erythema), which every lookup holds; the class and
      * provenance examples take the first value the library offers, and are left out when it offers none.
      */
-    private static List<Form> forms(List<String> classes, List<String> provenances) {
-        List<Form> forms = new ArrayList<>(List.of(
+    private static List<ClauseForm> forms(List<String> classes, List<String> provenances) {
+        List<ClauseForm> forms = new ArrayList<>(List.of(
                 form("Lets light through at a wavelength", "passes over 80% at 365 nm",
                         "transmittance at least 80 % at 365 nm"),
                 form("Keeps light out over a band", "blocks under 1% from 300 to 400 nm",
@@ -117,32 +117,32 @@ public record RequirementGuide(List<Form> forms, List<Unit> units, String joinin
             forms.add(form("Material class", "passes over 80% at 365 nm, class " + classes.get(0),
                     "only materials of that class (one of the library's classes)"));
         }
-        forms.add(new Form("Words beside the clauses", "clear sheet passes over 80% at 400 nm",
+        forms.add(new ClauseForm("Words beside the clauses", "clear sheet passes over 80% at 400 nm",
                 "the library's text index admits materials named by the leading words; the clauses judge those", true));
         if (!provenances.isEmpty()) {
-            forms.add(new Form("Provenance", "provenance " + provenances.get(0) + " and passes over 80% at 365 nm",
+            forms.add(new ClauseForm("Provenance", "provenance " + provenances.get(0) + " and passes over 80% at 365 nm",
                     "only samples of that provenance", true));
         }
         return forms;
     }
 
-    private static Form form(String name, String example, String meaning) {
-        return new Form(name, example, meaning, false);
+    private static ClauseForm form(String name, String example, String meaning) {
+        return new ClauseForm(name, example, meaning, false);
     }
 
-    private static List<Unit> unitList() {
+    private static List<UnitRange> unitList() {
         return List.of(
-                new Unit("wavelength", "nm or µm (um)", range(RequirementLimits.MIN_WAVELENGTH_NM) + " to "
+                new UnitRange("wavelength", "nm or µm (um)", range(RequirementLimits.MIN_WAVELENGTH_NM) + " to "
                         + range(RequirementLimits.MAX_WAVELENGTH_NM) + " nm", "passes over 80% at 0.365 µm"),
-                new Unit("level", "% or a fraction, or OD n", "0 to 100 % (0 to 1); OD above 0 up to "
+                new UnitRange("level", "% or a fraction, or OD n", "0 to 100 % (0 to 1); OD above 0 up to "
                         + range(RequirementLimits.MAX_OPTICAL_DENSITY), "passes over 0.8 at 365 nm"),
-                new Unit("thickness", "mm", "above 0 up to " + range(RequirementLimits.MAX_THICKNESS_MM) + " mm",
+                new UnitRange("thickness", "mm", "above 0 up to " + range(RequirementLimits.MAX_THICKNESS_MM) + " mm",
                         "passes over 80% at 365 nm, at 3 mm"),
-                new Unit("UV rating", "UV followed by nm", range(SpectralClauseParser.UV_RATING_MIN_NM) + " to "
+                new UnitRange("UV rating", "UV followed by nm", range(SpectralClauseParser.UV_RATING_MIN_NM) + " to "
                         + range(SpectralClauseParser.UV_RATING_MAX_NM), "UV420 under 0.5%"),
-                new Unit("confidence", "with N% confidence", percent(TransmittanceClause.MIN_CONFIDENCE) + " to "
+                new UnitRange("confidence", "with N% confidence", percent(TransmittanceClause.MIN_CONFIDENCE) + " to "
                         + percent(TransmittanceClause.MAX_CONFIDENCE) + " %", "UV400 with 99% confidence"),
-                new Unit("text", "characters, clauses", "at most " + RequirementLimits.MAX_TEXT_LENGTH + " characters and "
+                new UnitRange("text", "characters, clauses", "at most " + RequirementLimits.MAX_TEXT_LENGTH + " characters and "
                         + RequirementLimits.MAX_CLAUSES + " clauses", "passes over 80% at 365 nm and blocks under 1% at 405 nm"));
     }
 

@@ -25,14 +25,14 @@ class RequirementGuideTest {
     @Test
     void everyClauseExampleIsReadByTheParser() {
         assertThat(guide.forms()).hasSizeGreaterThan(15);
-        for (RequirementGuide.Form form : guide.forms()) {
+        for (RequirementGuide.ClauseForm form : guide.forms()) {
             assertThatCode(() -> read(form.example())).as(form.name() + ": " + form.example()).doesNotThrowAnyException();
         }
     }
 
     @Test
     void everyUnitExampleIsReadByTheParser() {
-        for (RequirementGuide.Unit unit : guide.units()) {
+        for (RequirementGuide.UnitRange unit : guide.units()) {
             assertThatCode(() -> read(unit.example())).as(unit.quantity() + ": " + unit.example()).doesNotThrowAnyException();
         }
     }
@@ -46,16 +46,16 @@ class RequirementGuideTest {
 
     @Test
     void wordsAndProvenanceExamplesCarryWhatTheSearchSplitsOff() {
-        List<RequirementGuide.Form> worded = guide.forms().stream().filter(RequirementGuide.Form::words).toList();
+        List<RequirementGuide.ClauseForm> worded = guide.forms().stream().filter(RequirementGuide.ClauseForm::words).toList();
         assertThat(worded).hasSize(2);
-        for (RequirementGuide.Form form : worded) {
+        for (RequirementGuide.ClauseForm form : worded) {
             assertThat(RequirementWords.split(form.example(), PROVENANCES).any()).as(form.example()).isTrue();
         }
     }
 
     @Test
     void theClassExampleNamesOneOfTheLibrarysClasses() {
-        RequirementGuide.Form classForm = guide.forms().stream().filter(f -> f.example().contains("class ")).findFirst()
+        RequirementGuide.ClauseForm classForm = guide.forms().stream().filter(f -> f.example().contains("class ")).findFirst()
                 .orElseThrow();
         assertThat(RequirementParser.parse(classForm.example(), SPECTRA, CLASSES).materialClass()).contains("plastic sheet");
         assertThat(guide.materialClasses()).isEqualTo(CLASSES);
@@ -71,7 +71,7 @@ class RequirementGuideTest {
     /** Common practice, no source: "blocks 99 %" keeps 99 % out, so at most 1 % gets through. */
     @Test
     void theShareKeptOutExampleReadsAsAtMostOnePercentThrough() {
-        RequirementGuide.Form share = guide.forms().stream().filter(f -> f.example().startsWith("blocks 99%"))
+        RequirementGuide.ClauseForm share = guide.forms().stream().filter(f -> f.example().startsWith("blocks 99%"))
                 .findFirst().orElseThrow();
         TransmittanceClause clause = (TransmittanceClause) RequirementParser.parse(share.example()).clauses().get(0);
         assertThat(clause.direction()).isEqualTo(Direction.BLOCK);
