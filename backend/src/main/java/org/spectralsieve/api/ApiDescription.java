@@ -89,6 +89,7 @@ class ApiDescription {
             openApi.getPaths().forEach((path, item) -> item.readOperationsMap().forEach((method, operation) -> {
                 addProblems(path, method, operation);
                 describeBody(path, operation);
+                describeDownload(path, operation);
             }));
         };
     }
@@ -168,6 +169,25 @@ class ApiDescription {
         body.setRequired(List.of("requirement"));
         operation.setRequestBody(new RequestBody().required(true).content(new Content().addMediaType(
                 org.springframework.http.MediaType.APPLICATION_JSON_VALUE, new MediaType().schema(body).example(example))));
+    }
+
+    /**
+     * The endpoints that answer a file, not JSON: springdoc sees only the Java type (bytes, a string, a
+     * stream), so the media type they send is named here.
+     */
+    private static void describeDownload(String path, Operation operation) {
+        String type = path.endsWith("/curve.csv") ? "text/csv"
+                : path.endsWith("/curve.jdx") ? "chemical/x-jcamp-dx"
+                : path.equals("/api/backup") ? "application/zip"
+                : path.endsWith("/source-file") ? "application/octet-stream" : null;
+        ApiResponse ok = operation.getResponses() == null ? null : operation.getResponses().get("200");
+        if (type == null || ok == null) {
+            return;
+        }
+        if (path.endsWith("/source-file")) {
+            ok.description("the file as imported, byte for byte, under the media type it was stored with");
+        }
+        ok.setContent(new Content().addMediaType(type, new MediaType().schema(new StringSchema().format("binary"))));
     }
 
     /** RFC 9457 §3.1 members, plus the extension members the API adds (parameter, file, line, position, …). */

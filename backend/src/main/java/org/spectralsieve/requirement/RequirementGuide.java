@@ -76,7 +76,7 @@ public record RequirementGuide(List<ClauseForm> forms, List<UnitRange> units, St
         List<String> classes = List.copyOf(materialClasses);
         List<String> comparisons = new ArrayList<>(SpectralClauseParser.HIGHER_WORDS);
         comparisons.addAll(SpectralClauseParser.LOWER_WORDS);
-        return new RequirementGuide(forms(classes, List.copyOf(provenances)), unitList(), "clauses are joined by 'and' or"
+        return new RequirementGuide(forms(classes, List.copyOf(provenances)), unitList(), "Clauses are joined by 'and' or"
                 + " commas; words are case-insensitive; '365nm' and '365 nm' are the same", comparisons, classes,
                 spectra.emitters().stream().map(Emitter::name).toList(), EmitterCatalogue.PARAMETRIC_FORMS,
                 spectra.responses().stream().map(Response::name).toList(), List.copyOf(provenances), List.of("regular", "total", Requirement.ANY_GEOMETRY));

@@ -129,6 +129,16 @@ class ApiDescriptionTest {
         assertThat(parsed.statusCode()).isEqualTo(200);
     }
 
+    @Test
+    void downloadsAreDescribedWithTheMediaTypeTheySend() {
+        assertThat(document.path("paths").path("/api/samples/{id}/curve.csv").path("get").path("responses").path("200")
+                .path("content").has("text/csv")).isTrue();
+        assertThat(document.path("paths").path("/api/samples/{id}/curve.jdx").path("get").path("responses").path("200")
+                .path("content").has("chemical/x-jcamp-dx")).isTrue();
+        assertThat(document.path("paths").path("/api/backup").path("get").path("responses").path("200")
+                .path("content").has("application/zip")).isTrue();
+    }
+
     /** GET is never a write, so the cross-site filter lets a page or a script on another origin read it. */
     @Test
     void theDocumentIsReadableWithTheHeadersABrowserSends() throws Exception {
