@@ -11,6 +11,7 @@ import { initFacets } from './facets.js';
 import { initSimilar } from './similar.js';
 import { initImport } from './import.js';
 import { initCompare } from './compare.js';
+import { showDownloads, initChartPng } from './export.js';
 import { initCuration, renderMaterialRecord, renderRetiredSamples, sampleControls } from './curation.js';
 import { readAddress, writeAddress, onAddressChange } from './address.js';
 
@@ -364,6 +365,7 @@ function redraw() {
   curves.push(...state.overlays);
   state.plot = drawCurves(dom.chart, curves, dom.axisMode.value);
   dom.chart.dataset.axisMode = dom.axisMode.value; // lets readers and tests tell which axis is drawn
+  showDownloads(state.material, state.rescaled); // export.js: a download per curve drawn
 }
 
 // ---------- rescaling ----------
@@ -543,6 +545,7 @@ initImport({
 });
 // Compare (compare.js): listens for each shortlist before a restored address runs a search.
 initCompare({ showProblem });
+initChartPng(dom.chart, () => state.material?.name); // export.js
 restoreView(readAddress());
 onAddressChange(restoreView);
 
