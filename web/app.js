@@ -366,6 +366,7 @@ function redraw() {
   state.plot = drawCurves(dom.chart, curves, dom.axisMode.value);
   dom.chart.dataset.axisMode = dom.axisMode.value; // lets readers and tests tell which axis is drawn
   showDownloads(state.material, state.rescaled); // export.js: a download per curve drawn
+  dom.detail.dispatchEvent(new CustomEvent('material-shown', { detail: { material: state.material, rescaled: state.rescaled } })); // print.js
 }
 
 // ---------- rescaling ----------
