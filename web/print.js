@@ -158,6 +158,7 @@ function resultsTable(answer) {
       r.worstMarginIsBound ? `≤ ${fmt.signedDecades(r.worstMarginDecades)}` : fmt.signedDecades(r.worstMarginDecades),
       r.bindingClause || '—',
     ]);
+    tr.children[6].className = 'print-value';
     tr.dataset.verdict = r.verdict;
     body.append(tr, spanningRow(clauseLines(r), 8, 'print-explanations'));
   }
@@ -240,11 +241,12 @@ function chartPart(material, rescaled) {
   }
   const axis = el('axis-mode');
   const caption = document.createElement('figcaption');
-  // the legend's first entry is the wavelength axis itself
-  const curves = [...el('curve-chart').querySelectorAll('.u-legend .u-series:not(:first-child) .u-label')]
-    .map((label) => label.textContent.trim()).filter(Boolean);
+  // the legend's first entry is the wavelength axis itself; each curve keeps its line's colour and dash
+  const curves = [...el('curve-chart').querySelectorAll('.u-legend .u-series:not(:first-child)')]
+    .map((series) => ({ text: series.querySelector('.u-label')?.textContent.trim(), marker: series.querySelector('.u-marker') }))
+    .filter((c) => c.text);
   caption.append(paragraph(`Axis: ${axis.options[axis.selectedIndex]?.textContent || axis.value} against wavelength (nm).`));
-  if (curves.length) caption.append(paragraph('Curves drawn:'), list(curves, 'print-curves'));
+  if (curves.length) caption.append(paragraph('Curves drawn:'), curveList(curves));
   figure.append(caption);
   out.push(figure);
   if (rescaled) {
@@ -273,12 +275,44 @@ function figuresPart() {
   copy.append(head(['Figure', 'Value', 'How it was obtained, or why it is not available']));
   const body = document.createElement('tbody');
   for (const tr of rows) {
-    const cells = [...tr.children].map((c) => c.textContent.replace(/\s+/g, ' ').trim());
-    body.append(tr.classList.contains('group') ? spanningRow(cells[0], 3, 'print-group', 'th') : row(cells));
+    if (tr.classList.contains('group')) {
+      body.append(spanningRow(tidy(tr.textContent), 3, 'print-group', 'th'));
+      continue;
+    }
+    const [name, value, how] = [...tr.children];
+    const tag = name.querySelector('.hazard-tag');
+    const label = tidy([...name.childNodes].filter((n) => n !== tag).map((n) => n.textContent).join(''));
+    const copied = row([tag ? `${label} (screening)` : label, tidy(value.textContent), tidy(how.textContent)]);
+    copied.children[1].className = 'print-value';
+    body.append(copied);
   }
   copy.append(body);
   out.push(copy);
   return out;
+}
+
+/** The curves named, each after a short line in its colour and dash, as the chart's legend draws it. */
+function curveList(curves) {
+  const ul = document.createElement('ul');
+  ul.className = 'print-curves';
+  for (const { text, marker } of curves) {
+    const li = document.createElement('li');
+    const swatch = document.createElement('span');
+    swatch.className = 'print-swatch';
+    swatch.setAttribute('aria-hidden', 'true');
+    if (marker) {
+      const style = getComputedStyle(marker);
+      swatch.style.borderTopColor = style.borderTopColor;
+      swatch.style.borderTopStyle = style.borderTopStyle;
+    }
+    li.append(swatch, text);
+    ul.append(li);
+  }
+  return ul;
+}
+
+function tidy(text) {
+  return text.replace(/\s+/g, ' ').trim();
 }
 
 // ---------- notes ----------

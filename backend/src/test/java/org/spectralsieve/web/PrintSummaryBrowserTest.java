@@ -136,7 +136,7 @@ class PrintSummaryBrowserTest {
         Path pdf = printPdf("print-shortlist");
         String text = pdfText(pdf);
         assertThat(text).contains(REQUIREMENT).contains("Provenance").contains("modelled").contains("Illustrative")
-                .contains("Caution").contains("meets").contains("?q=");
+                .contains("Caution").contains("meets").contains("q=blocks+under");
         pages(pdf);
     }
 
