@@ -69,6 +69,8 @@ class PrintSummaryBrowserTest {
     @Test
     void onPaperAShortlistShowsOnlyItsSummaryWithAddressVerdictWordsProvenanceAndNotes() throws IOException {
         List<String> ids = shortlistSummary();
+        assertThat(browser.driver().findElement(By.id("print-summary")).isDisplayed()).as("not on screen").isFalse();
+        browser.screenshot("print-shortlist-button", "search-summary");
 
         emulateMedia("print");
         WebElement summary = browser.driver().findElement(By.id("print-summary"));
@@ -106,6 +108,7 @@ class PrintSummaryBrowserTest {
     @Test
     void onPaperAMaterialShowsItsSamplesProvenanceChartFiguresAndTheRescalingNote() throws IOException {
         materialSummary();
+        browser.screenshot("print-material-button", "material-detail");
 
         emulateMedia("print");
         WebElement summary = browser.driver().findElement(By.id("print-summary"));
