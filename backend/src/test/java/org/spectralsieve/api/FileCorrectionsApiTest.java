@@ -2,13 +2,11 @@ package org.spectralsieve.api;
 
 import static org.assertj.core.api.Assertions.assertThat;
 
-import java.net.http.HttpResponse;
 import org.junit.jupiter.api.Test;
 import org.springframework.boot.test.context.SpringBootTest;
 import org.springframework.boot.test.web.server.LocalServerPort;
 import org.springframework.test.context.TestPropertySource;
 import tools.jackson.databind.JsonNode;
-import tools.jackson.databind.json.JsonMapper;
 
 /**
  * Corrections of what a file gets wrong, through a real server: the axis form fields (xUnit, xColumn,
@@ -19,7 +17,6 @@ import tools.jackson.databind.json.JsonMapper;
 @TestPropertySource(properties = "spring.datasource.url=jdbc:h2:mem:file-corrections-api-test;DB_CLOSE_DELAY=-1")
 class FileCorrectionsApiTest {
 
-    private static final JsonMapper JSON = JsonMapper.builder().build();
 
     /** Column 1 a pixel number, column 2 the wavelength in µm under a name the reader does not know. */
     private static final String DETECTOR_EXPORT = "pixel;cal;reading\n0;0,30;10,0\n1;0,35;50,0\n2;0,40;90,0\n";
@@ -28,9 +25,7 @@ class FileCorrectionsApiTest {
     int port;
 
     private JsonNode post(Multipart form, String path, int status) throws Exception {
-        HttpResponse<String> response = form.post(port, path);
-        assertThat(response.statusCode()).as(response.body()).isEqualTo(status);
-        return JSON.readTree(response.body());
+        return form.postExpecting(port, path, status);
     }
 
     @Test

@@ -40,9 +40,7 @@ class ImportApiTest {
     DSLContext db;
 
     private JsonNode post(Multipart form, String path, int status) throws Exception {
-        HttpResponse<String> response = form.post(port, path);
-        assertThat(response.statusCode()).as(response.body()).isEqualTo(status);
-        return JSON.readTree(response.body());
+        return form.postExpecting(port, path, status);
     }
 
     @Test

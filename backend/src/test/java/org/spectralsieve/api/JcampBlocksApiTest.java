@@ -27,9 +27,7 @@ class JcampBlocksApiTest {
     int port;
 
     private JsonNode post(Multipart form, String path, int status) throws Exception {
-        HttpResponse<String> response = form.post(port, path);
-        assertThat(response.statusCode()).as(response.body()).isEqualTo(status);
-        return JSON.readTree(response.body());
+        return form.postExpecting(port, path, status);
     }
 
     private static Multipart newFilm(String fileName, String text, String name) {

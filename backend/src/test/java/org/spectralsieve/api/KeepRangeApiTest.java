@@ -13,14 +13,12 @@ import org.springframework.boot.test.context.SpringBootTest;
 import org.springframework.boot.test.web.server.LocalServerPort;
 import org.springframework.test.context.TestPropertySource;
 import tools.jackson.databind.JsonNode;
-import tools.jackson.databind.json.JsonMapper;
 
 /** The {@code from}/{@code to} form fields and the preview's keep range, through a real server. */
 @SpringBootTest(webEnvironment = SpringBootTest.WebEnvironment.RANDOM_PORT)
 @TestPropertySource(properties = "spring.datasource.url=jdbc:h2:mem:keep-range-api-test;DB_CLOSE_DELAY=-1")
 class KeepRangeApiTest {
 
-    private static final JsonMapper JSON = JsonMapper.builder().build();
     /** 300–800 nm every 100 nm: six points of an invented sheet (illustrative). */
     private static final String SIX_POINTS = "wavelength_nm,T\n300,0.1\n400,0.5\n500,0.8\n600,0.85\n700,0.86\n800,0.87\n";
 
@@ -31,9 +29,7 @@ class KeepRangeApiTest {
     DSLContext db;
 
     private JsonNode post(Multipart form, String path, int status) throws Exception {
-        HttpResponse<String> response = form.post(port, path);
-        assertThat(response.statusCode()).as(response.body()).isEqualTo(status);
-        return JSON.readTree(response.body());
+        return form.postExpecting(port, path, status);
     }
 
     @Test

@@ -1,5 +1,7 @@
 package org.spectralsieve.api;
 
+import static org.assertj.core.api.Assertions.assertThat;
+
 import java.io.ByteArrayOutputStream;
 import java.net.URI;
 import java.net.http.HttpClient;
@@ -8,11 +10,14 @@ import java.net.http.HttpResponse;
 import java.nio.charset.StandardCharsets;
 import java.util.LinkedHashMap;
 import java.util.Map;
+import tools.jackson.databind.JsonNode;
+import tools.jackson.databind.json.JsonMapper;
 
 /** A multipart/form-data request body with one file part and text fields, for tests over real HTTP. */
 final class Multipart {
 
     private static final HttpClient HTTP = HttpClient.newHttpClient();
+    private static final JsonMapper JSON = JsonMapper.builder().build();
     static final String BOUNDARY = "----sieve-test-boundary-7f3a";
 
     private final String fileName;
@@ -71,5 +76,12 @@ final class Multipart {
 
     private static void write(ByteArrayOutputStream out, String s) {
         out.writeBytes(s.getBytes(StandardCharsets.UTF_8));
+    }
+
+    /** Posts the form; the answer must have {@code status} (else the failure shows it) and is read as JSON. */
+    JsonNode postExpecting(int port, String path, int status) throws Exception {
+        HttpResponse<String> response = post(port, path);
+        assertThat(response.statusCode()).as(response.body()).isEqualTo(status);
+        return JSON.readTree(response.body());
     }
 }

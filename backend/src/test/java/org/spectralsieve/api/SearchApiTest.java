@@ -1,12 +1,11 @@
 package org.spectralsieve.api;
 
 import static org.assertj.core.api.Assertions.assertThat;
+import static org.spectralsieve.api.SearchApiCalls.body;
 
-import java.net.URI;
-import java.net.http.HttpClient;
-import java.net.http.HttpRequest;
 import java.net.http.HttpResponse;
 import java.util.List;
+import org.junit.jupiter.api.BeforeEach;
 import org.junit.jupiter.api.Test;
 import org.springframework.boot.test.context.SpringBootTest;
 import org.springframework.boot.test.web.server.LocalServerPort;
@@ -20,17 +19,23 @@ import tools.jackson.databind.node.ObjectNode;
 @TestPropertySource(properties = "spring.datasource.url=jdbc:h2:mem:search-api-test;DB_CLOSE_DELAY=-1")
 class SearchApiTest {
 
-    private static final HttpClient HTTP = HttpClient.newHttpClient();
-    private static final JsonMapper JSON = JsonMapper.builder().build();
+    private static final JsonMapper JSON = SearchApiCalls.JSON;
 
     @LocalServerPort
     int port;
+
+    private SearchApiCalls api;
+
+    @BeforeEach
+    void callsThisServer() {
+        api = new SearchApiCalls(port);
+    }
 
     @Test
     void uvGradeFusedSilicaRanksFirstForPassingAt254nm() throws Exception {
         // common practice, no source: UV-grade fused silica is the window for 254 nm mercury lamps
         // a window is a plate: asked at a window thickness, thin films (FEP passes more at 50 µm) drop out
-        JsonNode result = search("passes over 80% at 254 nm, at 3 mm", 5);
+        JsonNode result = api.search("passes over 80% at 254 nm, at 3 mm", 5);
 
         JsonNode first = result.path("results").get(0);
         assertThat(first.path("materialName").asString().toLowerCase()).contains("fused silica").contains("uv");
@@ -41,7 +46,7 @@ class SearchApiTest {
     @Test
     void windowGlassNeverPassesHalfAt300nmAt4mm() throws Exception {
         // common practice, no source: soda-lime window glass blocks UVB
-        JsonNode result = search("passes over 50% at 300 nm, at 4 mm, class window glass", 50);
+        JsonNode result = api.search("passes over 50% at 300 nm, at 4 mm, class window glass", 50);
 
         assertThat(result.path("results").size()).isPositive();
         for (JsonNode row : result.path("results")) {
@@ -54,7 +59,7 @@ class SearchApiTest {
     @Test
     void aTintedResinTankSheetBlocks405nm() throws Exception {
         // common practice, no source: tinted resin-printer lids are chosen to block the 405 nm exposure light
-        JsonNode result = search("blocks under 1% at 405 nm, class resin-tank sheet", 10);
+        JsonNode result = api.search("blocks under 1% at 405 nm, class resin-tank sheet", 10);
 
         assertThat(result.path("results").get(0).path("verdict").asString()).isEqualTo("meets");
     }
@@ -64,7 +69,7 @@ class SearchApiTest {
         // the order is our own definition (docs/ranking.md): meets, unverified, misses (valued, then shown
         // only by a bound), not judged; at 254 nm glass and acrylic are under their detection limit
         List<String> order = List.of("meets", "unverified", "misses", "not-judged");
-        JsonNode answer = search("passes over 80% at 254 nm and passes over 80% at 365 nm, at 3 mm", 100);
+        JsonNode answer = api.search("passes over 80% at 254 nm and passes over 80% at 365 nm, at 3 mm", 100);
         int lastGroup = 0;
         boolean boundSeen = false;
         int bounded = 0;
@@ -102,13 +107,13 @@ class SearchApiTest {
                 "blocks under 1% from 350 to 405 nm, thickness 1 to 8 mm");
         int checked = 0;
         for (String text : requirements) {
-            for (JsonNode row : search(text, 50).path("results")) {
+            for (JsonNode row : api.search(text, 50).path("results")) {
                 if (!row.path("verdict").asString().equals("meets")) {
                     continue;
                 }
-                JsonNode curve = get("/api/samples/" + row.path("sampleId").asLong() + "/curve?thicknessMm="
+                JsonNode curve = api.get("/api/samples/" + row.path("sampleId").asLong() + "/curve?thicknessMm="
                         + row.path("thicknessMm").asDouble());
-                JsonNode requirement = post("/api/requirements/parse", body(text, 1));
+                JsonNode requirement = api.post("/api/requirements/parse", body(text, 1));
                 for (JsonNode clause : requirement.path("clauses")) {
                     assertThat(holds(clause, curve)).as(text + " / " + row.path("materialName").asString()).isTrue();
                 }
@@ -120,7 +125,7 @@ class SearchApiTest {
 
     @Test
     void parseReturnsTheStructuredForm() throws Exception {
-        JsonNode parsed = post("/api/requirements/parse", body("passes over 80% at 365 nm and blocks under 1% at 405 nm", 1));
+        JsonNode parsed = api.post("/api/requirements/parse", body("passes over 80% at 365 nm and blocks under 1% at 405 nm", 1));
 
         assertThat(parsed.path("clauses").size()).isEqualTo(2);
         assertThat(parsed.path("clauses").get(0).path("direction").asString()).isEqualTo("pass");
@@ -130,20 +135,20 @@ class SearchApiTest {
     @Test
     void structuredRequirementGivesTheSameShortlistAsItsText() throws Exception {
         String text = "passes over 80% at 365 nm and blocks under 1% at 405 nm, thickness 1 to 6 mm";
-        JsonNode structured = post("/api/requirements/parse", body(text, 1));
+        JsonNode structured = api.post("/api/requirements/parse", body(text, 1));
         ObjectNode request = JSON.createObjectNode();
         request.set("requirement", structured);
         request.put("limit", 10);
 
-        JsonNode fromJson = post("/api/search", request.toString());
-        JsonNode fromText = search(text, 10);
+        JsonNode fromJson = api.post("/api/search", request.toString());
+        JsonNode fromText = api.search(text, 10);
 
         assertThat(fromJson.path("results").toString()).isEqualTo(fromText.path("results").toString());
     }
 
     @Test
     void misspeltRequirementIsA400WithPositionAndSuggestion() throws Exception {
-        HttpResponse<String> response = send("/api/search", body("blocks undr 1% at 405 nm", 5));
+        HttpResponse<String> response = api.send("/api/search", body("blocks undr 1% at 405 nm", 5));
         JsonNode problem = JSON.readTree(response.body());
 
         assertThat(response.statusCode()).isEqualTo(400);
@@ -154,9 +159,9 @@ class SearchApiTest {
 
     @Test
     void badLimitAndMissingRequirementAreNamed() throws Exception {
-        HttpResponse<String> limit = send("/api/search", "{\"requirement\": \"passes over 80% at 365 nm\", \"limit\": 0}");
-        HttpResponse<String> missing = send("/api/search", "{\"limit\": 5}");
-        HttpResponse<String> broken = send("/api/search", "{not json");
+        HttpResponse<String> limit = api.send("/api/search", "{\"requirement\": \"passes over 80% at 365 nm\", \"limit\": 0}");
+        HttpResponse<String> missing = api.send("/api/search", "{\"limit\": 5}");
+        HttpResponse<String> broken = api.send("/api/search", "{not json");
 
         assertThat(limit.statusCode()).isEqualTo(400);
         assertThat(JSON.readTree(limit.body()).path("parameter").asString()).isEqualTo("limit");
@@ -169,7 +174,7 @@ class SearchApiTest {
     void aSheetBehindClearFloatGlassIsJudgedAsAStackAndTheAnswerNamesTheGlassSample() throws Exception {
         // the issue's case: which sheet, behind a given window, blocks 405 nm and keeps the view bright;
         // common practice, no source: tinted resin-printer lids block 405 nm and pass much of the visible
-        JsonNode answer = search("blocks under 1% at 405 nm and luminous over 70%, behind 4 mm clear float glass", 10);
+        JsonNode answer = api.search("blocks under 1% at 405 nm and luminous over 70%, behind 4 mm clear float glass", 10);
 
         JsonNode layer = answer.path("layer");
         assertThat(layer.path("materialSlug").asString()).isEqualTo("clear-float-glass");
@@ -192,8 +197,8 @@ class SearchApiTest {
     @Test
     void theStackIsDarkerThanTheSheetAlone() throws Exception {
         // a layer can only lower T (incoherent stack, T1·T2/(1 − R1·R2) ≤ T1): at 550 nm every sheet passes less behind glass
-        JsonNode alone = search("passes over 1% at 550 nm, class resin-tank sheet", 20);
-        JsonNode behind = search("passes over 1% at 550 nm, class resin-tank sheet, behind 4 mm clear float glass", 20);
+        JsonNode alone = api.search("passes over 1% at 550 nm, class resin-tank sheet", 20);
+        JsonNode behind = api.search("passes over 1% at 550 nm, class resin-tank sheet, behind 4 mm clear float glass", 20);
         java.util.Map<Long, Double> aloneBySample = new java.util.HashMap<>();
         alone.path("results").forEach(r -> aloneBySample.put(r.path("sampleId").asLong(),
                 r.path("clauses").get(0).path("value").asDouble()));
@@ -211,7 +216,7 @@ class SearchApiTest {
     @Test
     void aLayerNamingSeveralMaterialsIsA400ListingThemAndAskingForASlug() throws Exception {
         // "glass" alone: clear float, weathered float and dense flint glass are equally close, none plain stock
-        HttpResponse<String> response = send("/api/search", body("blocks under 1% at 405 nm, behind 4 mm glass", 5));
+        HttpResponse<String> response = api.send("/api/search", body("blocks under 1% at 405 nm, behind 4 mm glass", 5));
         JsonNode problem = JSON.readTree(response.body());
 
         assertThat(response.statusCode()).isEqualTo(400);
@@ -226,8 +231,8 @@ class SearchApiTest {
 
     @Test
     void theIssuesOwnWordingFloatGlassMeansTheOrdinaryClearFloatGlass() throws Exception {
-        JsonNode answer = search("blocks under 1% at 405 nm and luminous over 70%, behind 4 mm float glass", 5);
-        JsonNode plain = search("blocks under 1% at 405 nm and luminous over 70%, behind 4 mm clear-float-glass", 5);
+        JsonNode answer = api.search("blocks under 1% at 405 nm and luminous over 70%, behind 4 mm float glass", 5);
+        JsonNode plain = api.search("blocks under 1% at 405 nm and luminous over 70%, behind 4 mm clear-float-glass", 5);
         assertThat(answer.path("layer").path("materialSlug").asString()).isEqualTo("clear-float-glass");
         assertThat(answer.path("results").size()).isPositive();
         assertThat(answer.path("results").toString()).isEqualTo(plain.path("results").toString());
@@ -235,7 +240,7 @@ class SearchApiTest {
 
     @Test
     void anUnknownLayerIsA400WithSuggestionsAtItsWords() throws Exception {
-        HttpResponse<String> response = send("/api/search", body("blocks under 1% at 405 nm, behind 4 mm clear flaot glass", 5));
+        HttpResponse<String> response = api.send("/api/search", body("blocks under 1% at 405 nm, behind 4 mm clear flaot glass", 5));
         JsonNode problem = JSON.readTree(response.body());
 
         assertThat(response.statusCode()).isEqualTo(400);
@@ -247,7 +252,7 @@ class SearchApiTest {
 
     @Test
     void aFixedLayerAtAThicknessItWasNotMeasuredAtIsA400() throws Exception {
-        HttpResponse<String> response = send("/api/search", body("blocks under 1% at 405 nm, on 2 mm uv-coated-float-glass", 5));
+        HttpResponse<String> response = api.send("/api/search", body("blocks under 1% at 405 nm, on 2 mm uv-coated-float-glass", 5));
 
         assertThat(response.statusCode()).isEqualTo(400);
         assertThat(JSON.readTree(response.body()).path("detail").asString()).contains("4.005");
@@ -255,8 +260,8 @@ class SearchApiTest {
 
     @Test
     void erythemalFiguresCarryTheCautionAndPlainPassesDoNot() throws Exception {
-        JsonNode erythemal = search("erythemal under 1% and passes over 80% of led 405, thickness 1 to 6 mm", 5);
-        JsonNode plain = search("passes over 85% of led 365", 5);
+        JsonNode erythemal = api.search("erythemal under 1% and passes over 80% of led 405, thickness 1 to 6 mm", 5);
+        JsonNode plain = api.search("passes over 85% of led 365", 5);
 
         assertThat(erythemal.path("caution").asString()).contains("qualified safety professional");
         assertThat(erythemal.path("results").get(0).path("verdict").asString()).isEqualTo("meets");
@@ -282,7 +287,7 @@ class SearchApiTest {
 
     @Test
     void parseShowsWeightedClausesTheCriticalWavelengthAndTheLayer() throws Exception {
-        JsonNode parsed = post("/api/requirements/parse", body("passes over 60% of LED 395 weighted by blue-light and"
+        JsonNode parsed = api.post("/api/requirements/parse", body("passes over 60% of LED 395 weighted by blue-light and"
                 + " uv hazard under 0.1% and critical wavelength over 370 nm, on 3 mm fused silica", 1));
 
         JsonNode led = parsed.path("clauses").get(0);
@@ -298,7 +303,7 @@ class SearchApiTest {
 
     @Test
     void misspeltEmitterIsA400WithThePositionAndTheClosestNames() throws Exception {
-        HttpResponse<String> response = send("/api/requirements/parse", body("passes over 85% of led 356", 1));
+        HttpResponse<String> response = api.send("/api/requirements/parse", body("passes over 85% of led 356", 1));
         JsonNode problem = JSON.readTree(response.body());
 
         assertThat(response.statusCode()).isEqualTo(400);
@@ -311,7 +316,7 @@ class SearchApiTest {
     @Test
     void blocksNinetyNinePercentIsReadAsAtMostOnePercentThrough() throws Exception {
         // common practice, no source: "blocks 99 %" keeps 99 % out; read as T <= 99 % every film would meet
-        JsonNode parsed = post("/api/requirements/parse", body("blocks 99% at 405 nm", 1));
+        JsonNode parsed = api.post("/api/requirements/parse", body("blocks 99% at 405 nm", 1));
         JsonNode clause = parsed.path("clauses").get(0);
         assertThat(clause.path("direction").asString()).isEqualTo("block");
         assertThat(clause.path("thresholdT").asDouble()).isEqualTo(0.01);
@@ -319,7 +324,7 @@ class SearchApiTest {
 
     @Test
     void anAmbiguousBlockingLevelIsA400ShowingBothReadings() throws Exception {
-        HttpResponse<String> response = send("/api/requirements/parse", body("blocks 1% at 405 nm", 1));
+        HttpResponse<String> response = api.send("/api/requirements/parse", body("blocks 1% at 405 nm", 1));
         JsonNode problem = JSON.readTree(response.body());
 
         assertThat(response.statusCode()).isEqualTo(400);
@@ -333,7 +338,7 @@ class SearchApiTest {
     @Test
     void anUnknownClassIsA400ListingTheDemoLibrarysClasses() throws Exception {
         String text = "blocks under 1% at 405 nm and luminous over 70%, class plastic";
-        HttpResponse<String> response = send("/api/search", body(text, 5));
+        HttpResponse<String> response = api.send("/api/search", body(text, 5));
         JsonNode problem = JSON.readTree(response.body());
 
         assertThat(response.statusCode()).isEqualTo(400);
@@ -344,11 +349,11 @@ class SearchApiTest {
 
     @Test
     void anUnknownClassInTheStructuredFormIsA400NamingTheField() throws Exception {
-        JsonNode structured = post("/api/requirements/parse", body("passes over 80% at 365 nm", 1));
+        JsonNode structured = api.post("/api/requirements/parse", body("passes over 80% at 365 nm", 1));
         ((ObjectNode) structured).put("materialClass", "plastic");
         ObjectNode request = JSON.createObjectNode();
         request.set("requirement", structured);
-        HttpResponse<String> response = send("/api/search", request.toString());
+        HttpResponse<String> response = api.send("/api/search", request.toString());
         JsonNode problem = JSON.readTree(response.body());
 
         assertThat(response.statusCode()).isEqualTo(400);
@@ -358,8 +363,8 @@ class SearchApiTest {
 
     @Test
     void theTradesPhrasingSearchesLikeItsCanonicalForm() throws Exception {
-        JsonNode trade = search("UV400 and visible over 70%, 1 to 6 mm thick, class plastic sheet", 5);
-        JsonNode canonical = search("blocks under 1% from 290 to 400 nm and luminous over 70%, thickness 1 to 6 mm,"
+        JsonNode trade = api.search("UV400 and visible over 70%, 1 to 6 mm thick, class plastic sheet", 5);
+        JsonNode canonical = api.search("blocks under 1% from 290 to 400 nm and luminous over 70%, thickness 1 to 6 mm,"
                 + " class plastic sheet", 5);
         assertThat(trade.path("results").size()).isPositive();
         assertThat(rowsOf(trade)).isEqualTo(rowsOf(canonical));
@@ -379,11 +384,11 @@ class SearchApiTest {
     void structuredStackRequirementGivesTheSameShortlistAsItsText() throws Exception {
         String text = "blocks under 1% at 405 nm and luminous over 70%, thickness 1 to 6 mm, behind 4 mm clear float glass";
         ObjectNode request = JSON.createObjectNode();
-        request.set("requirement", post("/api/requirements/parse", body(text, 1)));
+        request.set("requirement", api.post("/api/requirements/parse", body(text, 1)));
         request.put("limit", 5);
 
-        JsonNode fromJson = post("/api/search", request.toString());
-        JsonNode fromText = search(text, 5);
+        JsonNode fromJson = api.post("/api/search", request.toString());
+        JsonNode fromText = api.search(text, 5);
 
         assertThat(fromJson.path("results").toString()).isEqualTo(fromText.path("results").toString());
         assertThat(fromJson.path("layer").path("sampleId").asLong()).isEqualTo(fromText.path("layer").path("sampleId").asLong());
@@ -398,7 +403,7 @@ class SearchApiTest {
                 .field("name", "cure-initiator").post(port, "/api/responses");
         assertThat(imported.statusCode()).as(imported.body()).isEqualTo(201);
 
-        JsonNode answer = search("passes over 80% of led 395 weighted by cure initiator, thickness 1 to 6 mm", 5);
+        JsonNode answer = api.search("passes over 80% of led 395 weighted by cure initiator, thickness 1 to 6 mm", 5);
 
         JsonNode clause = answer.path("requirement").path("clauses").get(0);
         assertThat(clause.path("response").asString()).isEqualTo("cure-initiator");
@@ -448,35 +453,5 @@ class SearchApiTest {
             }
         }
         throw new AssertionError(x + " nm outside the curve");
-    }
-
-    private JsonNode search(String text, int limit) throws Exception {
-        return post("/api/search", body(text, limit));
-    }
-
-    private static String body(String text, int limit) {
-        ObjectNode body = JSON.createObjectNode();
-        body.put("requirement", text);
-        body.put("limit", limit);
-        return body.toString();
-    }
-
-    private JsonNode post(String path, String body) throws Exception {
-        HttpResponse<String> response = send(path, body);
-        assertThat(response.statusCode()).as(path + " " + body + " -> " + response.body()).isEqualTo(200);
-        return JSON.readTree(response.body());
-    }
-
-    private HttpResponse<String> send(String path, String body) throws Exception {
-        return HTTP.send(HttpRequest.newBuilder(URI.create("http://localhost:" + port + path))
-                .header("Content-Type", "application/json").POST(HttpRequest.BodyPublishers.ofString(body)).build(),
-                HttpResponse.BodyHandlers.ofString());
-    }
-
-    private JsonNode get(String path) throws Exception {
-        HttpResponse<String> response = HTTP.send(HttpRequest.newBuilder(URI.create("http://localhost:" + port + path)).GET().build(),
-                HttpResponse.BodyHandlers.ofString());
-        assertThat(response.statusCode()).as(path + " -> " + response.body()).isEqualTo(200);
-        return JSON.readTree(response.body());
     }
 }

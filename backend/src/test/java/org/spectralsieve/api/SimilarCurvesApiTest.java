@@ -2,6 +2,7 @@ package org.spectralsieve.api;
 
 import static org.assertj.core.api.Assertions.assertThat;
 import static org.assertj.core.api.Assertions.within;
+import static org.spectralsieve.api.DemoMaterials.sampleAt;
 
 import java.net.URI;
 import java.net.http.HttpClient;
@@ -167,21 +168,7 @@ class SimilarCurvesApiTest {
     }
 
     private JsonNode material(String slug) throws Exception {
-        for (JsonNode m : getJson("/api/materials", 200)) {
-            if (m.path("slug").asString().equals(slug)) {
-                return m;
-            }
-        }
-        throw new AssertionError("the demo library has no " + slug);
-    }
-
-    private static long sampleAt(JsonNode material, double mm) {
-        for (JsonNode s : material.path("samples")) {
-            if (s.path("thicknessMm").asDouble() == mm) {
-                return s.path("id").asLong();
-            }
-        }
-        throw new AssertionError(material.path("slug").asString() + " has no sample at " + mm + " mm");
+        return DemoMaterials.bySlug(getJson("/api/materials", 200), slug);
     }
 
     private String problemParameter(String path) throws Exception {

@@ -35,9 +35,7 @@ class UncertaintyApiTest {
     int port;
 
     private JsonNode post(Multipart form, String path, int status) throws Exception {
-        HttpResponse<String> response = form.post(port, path);
-        assertThat(response.statusCode()).as(response.body()).isEqualTo(status);
-        return JSON.readTree(response.body());
+        return form.postExpecting(port, path, status);
     }
 
     private HttpResponse<String> get(String path) throws Exception {

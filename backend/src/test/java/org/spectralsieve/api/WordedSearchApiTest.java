@@ -1,24 +1,22 @@
 package org.spectralsieve.api;
 
 import static org.assertj.core.api.Assertions.assertThat;
+import static org.spectralsieve.api.SearchApiCalls.body;
 
-import java.net.URI;
 import java.net.URLEncoder;
-import java.net.http.HttpClient;
-import java.net.http.HttpRequest;
 import java.net.http.HttpResponse;
 import java.nio.charset.StandardCharsets;
 import java.util.ArrayList;
 import java.util.HashSet;
 import java.util.List;
 import java.util.Set;
+import org.junit.jupiter.api.BeforeEach;
 import org.junit.jupiter.api.Test;
 import org.springframework.boot.test.context.SpringBootTest;
 import org.springframework.boot.test.web.server.LocalServerPort;
 import org.springframework.test.context.TestPropertySource;
 import tools.jackson.databind.JsonNode;
 import tools.jackson.databind.json.JsonMapper;
-import tools.jackson.databind.node.ObjectNode;
 
 /**
  * Requirement search with words about the stock ({@code POST /api/search}) over the illustrative demo
@@ -29,69 +27,75 @@ import tools.jackson.databind.node.ObjectNode;
 @TestPropertySource(properties = "spring.datasource.url=jdbc:h2:mem:worded-search-api-test;DB_CLOSE_DELAY=-1")
 class WordedSearchApiTest {
 
-    private static final HttpClient HTTP = HttpClient.newHttpClient();
-    private static final JsonMapper JSON = JsonMapper.builder().build();
+    private static final JsonMapper JSON = SearchApiCalls.JSON;
     private static final int ALL = 500;
 
     @LocalServerPort
     int port;
 
+    private SearchApiCalls api;
+
+    @BeforeEach
+    void callsThisServer() {
+        api = new SearchApiCalls(port);
+    }
+
     @Test
     void wordsKeepTheClausesRowsForTheMaterialsTheyAdmitInTheSameOrder() throws Exception {
-        JsonNode worded = search("acrylic passes over 80% at 400 nm", ALL);
+        JsonNode worded = api.search("acrylic passes over 80% at 400 nm", ALL);
         Set<Long> admitted = admitted("acrylic");
 
         assertThat(admitted).hasSizeGreaterThanOrEqualTo(5); // the demo shelf holds several acrylics
         assertThat(worded.path("words").path("text").asString()).isEqualTo("acrylic");
         assertThat(worded.path("words").path("admitted").asInt()).isEqualTo(admitted.size());
         assertThat(worded.path("requirement").path("text").asString()).isEqualTo("passes over 80% at 400 nm");
-        List<String> expected = rows(search("passes over 80% at 400 nm", ALL), admitted);
+        List<String> expected = rows(api.search("passes over 80% at 400 nm", ALL), admitted);
         assertThat(rows(worded, null)).isNotEmpty().isEqualTo(expected);
         assertThat(rows(worded, null)).anyMatch(r -> r.startsWith("Clear cast acrylic sheet, general stock"));
     }
 
     @Test
     void aHalfTypedWordAdmitsWhatItBegins() throws Exception {
-        JsonNode worded = search("acryl passes over 80% at 400 nm", ALL);
+        JsonNode worded = api.search("acryl passes over 80% at 400 nm", ALL);
         Set<Long> admitted = admitted("acryl");
 
         assertThat(worded.path("words").path("admitted").asInt()).isEqualTo(admitted.size()).isPositive();
-        assertThat(rows(worded, null)).isEqualTo(rows(search("passes over 80% at 400 nm", ALL), admitted));
+        assertThat(rows(worded, null)).isEqualTo(rows(api.search("passes over 80% at 400 nm", ALL), admitted));
     }
 
     @Test
     void aClassTermNarrowsTheWordsToo() throws Exception {
-        JsonNode worded = search("clear class film and blocks under 1% at 405 nm", ALL);
+        JsonNode worded = api.search("clear class film and blocks under 1% at 405 nm", ALL);
         Set<Long> admitted = admitted("clear&class=film");
 
         assertThat(worded.path("words").path("admitted").asInt()).isEqualTo(admitted.size()).isPositive();
-        assertThat(rows(worded, null)).isEqualTo(rows(search("blocks under 1% at 405 nm, class film", ALL), admitted));
+        assertThat(rows(worded, null)).isEqualTo(rows(api.search("blocks under 1% at 405 nm, class film", ALL), admitted));
     }
 
     @Test
     void aRequirementWithoutWordsAnswersAsBeforeWithNoWordsInIt() throws Exception {
-        JsonNode plain = search("class film and blocks under 1% at 405 nm", ALL);
+        JsonNode plain = api.search("class film and blocks under 1% at 405 nm", ALL);
 
         assertThat(plain.has("words")).isFalse();
-        assertThat(rows(plain, null)).isEqualTo(rows(search("blocks under 1% at 405 nm, class film", ALL), null));
+        assertThat(rows(plain, null)).isEqualTo(rows(api.search("blocks under 1% at 405 nm, class film", ALL), null));
     }
 
     @Test
     void aProvenanceTermIsTheLibrarysProvenanceFacet() throws Exception {
         // every demo sample is modelled, so the term admits the whole library and changes no row
-        JsonNode worded = search("passes over 80% at 400 nm and provenance modelled", ALL);
+        JsonNode worded = api.search("passes over 80% at 400 nm and provenance modelled", ALL);
 
         assertThat(worded.path("words").path("admitted").asLong())
-                .isEqualTo(get("/api/library?provenance=modelled").path("total").asLong());
+                .isEqualTo(api.get("/api/library?provenance=modelled").path("total").asLong());
         assertThat(worded.path("words").path("provenance").get(0).asString()).isEqualTo("modelled");
-        assertThat(rows(worded, null)).isEqualTo(rows(search("passes over 80% at 400 nm", ALL), null));
-        assertThat(search("passes over 80% at 400 nm and provenance measured", ALL).path("words").path("admitted").asInt())
+        assertThat(rows(worded, null)).isEqualTo(rows(api.search("passes over 80% at 400 nm", ALL), null));
+        assertThat(api.search("passes over 80% at 400 nm and provenance measured", ALL).path("words").path("admitted").asInt())
                 .isZero();
     }
 
     @Test
     void wordsThatAdmitNothingGiveAnEmptyShortlistThatSaysSo() throws Exception {
-        JsonNode none = search("quartzite passes over 80% at 400 nm", 20);
+        JsonNode none = api.search("quartzite passes over 80% at 400 nm", 20);
 
         assertThat(none.path("words").path("admitted").asInt()).isZero();
         assertThat(none.path("results").size()).isZero();
@@ -101,7 +105,7 @@ class WordedSearchApiTest {
     @Test
     void anUnknownProvenanceIsAProblemNamingTheTerm() throws Exception {
         String text = "acrylic provenance guessed and passes over 80% at 400 nm";
-        HttpResponse<String> response = send("/api/search", body(text, 5));
+        HttpResponse<String> response = api.send("/api/search", body(text, 5));
         JsonNode problem = JSON.readTree(response.body());
 
         assertThat(response.statusCode()).isEqualTo(400);
@@ -112,7 +116,7 @@ class WordedSearchApiTest {
     @Test
     void aSlipInTheFirstKeywordIsStillCaughtAfterWords() throws Exception {
         String text = "acrylic pases over 80% at 400 nm";
-        HttpResponse<String> response = send("/api/search", body(text, 5));
+        HttpResponse<String> response = api.send("/api/search", body(text, 5));
         JsonNode problem = JSON.readTree(response.body());
 
         assertThat(response.statusCode()).as(response.body()).isEqualTo(400);
@@ -122,7 +126,7 @@ class WordedSearchApiTest {
 
     @Test
     void theParseAnswerShowsTheWordsBesideTheClauses() throws Exception {
-        JsonNode parsed = post("/api/requirements/parse", body("clear acrylic passes over 80% at 400 nm", 1));
+        JsonNode parsed = api.post("/api/requirements/parse", body("clear acrylic passes over 80% at 400 nm", 1));
 
         assertThat(parsed.path("words").path("text").asString()).isEqualTo("clear acrylic");
         assertThat(parsed.path("clauses").size()).isEqualTo(1);
@@ -131,7 +135,7 @@ class WordedSearchApiTest {
     /** The ids of every material /api/library admits for the words (and facet parameters after an "&"). */
     private Set<Long> admitted(String query) throws Exception {
         String[] parts = query.split("&", 2);
-        JsonNode answer = get("/api/library?limit=200&q=" + URLEncoder.encode(parts[0], StandardCharsets.UTF_8)
+        JsonNode answer = api.get("/api/library?limit=200&q=" + URLEncoder.encode(parts[0], StandardCharsets.UTF_8)
                 + (parts.length > 1 ? "&" + parts[1] : ""));
         assertThat(answer.path("total").asLong()).isLessThanOrEqualTo(200);
         Set<Long> ids = new HashSet<>();
@@ -149,35 +153,5 @@ class WordedSearchApiTest {
             }
         }
         return out;
-    }
-
-    private JsonNode search(String text, int limit) throws Exception {
-        return post("/api/search", body(text, limit));
-    }
-
-    private static String body(String text, int limit) {
-        ObjectNode body = JSON.createObjectNode();
-        body.put("requirement", text);
-        body.put("limit", limit);
-        return body.toString();
-    }
-
-    private JsonNode post(String path, String body) throws Exception {
-        HttpResponse<String> response = send(path, body);
-        assertThat(response.statusCode()).as(path + " " + body + " -> " + response.body()).isEqualTo(200);
-        return JSON.readTree(response.body());
-    }
-
-    private HttpResponse<String> send(String path, String body) throws Exception {
-        return HTTP.send(HttpRequest.newBuilder(URI.create("http://localhost:" + port + path))
-                .header("Content-Type", "application/json").POST(HttpRequest.BodyPublishers.ofString(body)).build(),
-                HttpResponse.BodyHandlers.ofString());
-    }
-
-    private JsonNode get(String path) throws Exception {
-        HttpResponse<String> response = HTTP.send(HttpRequest.newBuilder(URI.create("http://localhost:" + port + path))
-                .GET().build(), HttpResponse.BodyHandlers.ofString());
-        assertThat(response.statusCode()).as(path + " -> " + response.body()).isEqualTo(200);
-        return JSON.readTree(response.body());
     }
 }

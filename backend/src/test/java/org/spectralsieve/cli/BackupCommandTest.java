@@ -2,9 +2,6 @@ package org.spectralsieve.cli;
 
 import static org.assertj.core.api.Assertions.assertThat;
 
-import java.io.ByteArrayOutputStream;
-import java.io.PrintStream;
-import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import org.junit.jupiter.api.Test;
@@ -16,15 +13,8 @@ import org.junit.jupiter.api.io.TempDir;
  */
 class BackupCommandTest {
 
-    private record Run(int exitCode, String out, String err) {
-    }
-
-    private static Run cli(String... args) {
-        ByteArrayOutputStream out = new ByteArrayOutputStream();
-        ByteArrayOutputStream err = new ByteArrayOutputStream();
-        int code = SieveCli.run(args, new PrintStream(out, true, StandardCharsets.UTF_8),
-                new PrintStream(err, true, StandardCharsets.UTF_8));
-        return new Run(code, out.toString(StandardCharsets.UTF_8), err.toString(StandardCharsets.UTF_8));
+    private static CliRun cli(String... args) {
+        return CliRun.of(args);
     }
 
     @Test
@@ -34,7 +24,7 @@ class BackupCommandTest {
         String target = "jdbc:h2:file:" + dir.resolve("target/sieve");
         Path archive = dir.resolve("library.zip");
 
-        Run backup = cli("backup", "--db-url", source, "--to", archive.toString());
+        CliRun backup = cli("backup", "--db-url", source, "--to", archive.toString());
 
         assertThat(backup.exitCode()).as(backup.err()).isEqualTo(SieveCli.OK);
         assertThat(backup.out()).startsWith("wrote " + archive).contains("material: ").contains("curve: ");
@@ -43,20 +33,20 @@ class BackupCommandTest {
             assertThat(files.map(p -> p.getFileName().toString())).noneMatch(n -> n.endsWith(".partial"));
         }
 
-        Run restore = cli("restore-backup", "--db-url", target, "--from", archive.toString());
+        CliRun restore = cli("restore-backup", "--db-url", target, "--from", archive.toString());
 
         assertThat(restore.exitCode()).as(restore.err()).isEqualTo(SieveCli.OK);
         assertThat(restore.out()).startsWith("restored " + archive);
         String materials = backup.out().lines().filter(l -> l.strip().startsWith("material:")).findFirst().orElseThrow();
         assertThat(restore.out()).contains(materials);
 
-        Run again = cli("restore-backup", "--db-url", target, "--from", archive.toString());
+        CliRun again = cli("restore-backup", "--db-url", target, "--from", archive.toString());
 
         assertThat(again.exitCode()).isEqualTo(SieveCli.FAILED);
         assertThat(again.err()).contains("not restored: the library is not empty");
         assertThat(again.out()).isEmpty();
 
-        Run overwrite = cli("backup", "--db-url", target, "--to", archive.toString());
+        CliRun overwrite = cli("backup", "--db-url", target, "--to", archive.toString());
 
         assertThat(overwrite.exitCode()).isEqualTo(SieveCli.USAGE);
         assertThat(overwrite.err()).contains("exists");
@@ -67,7 +57,7 @@ class BackupCommandTest {
         Path junk = Files.writeString(dir.resolve("library.zip"), "just text");
         String target = "jdbc:h2:file:" + dir.resolve("target/sieve");
 
-        Run restore = cli("restore-backup", "--db-url", target, "--from", junk.toString());
+        CliRun restore = cli("restore-backup", "--db-url", target, "--from", junk.toString());
 
         assertThat(restore.exitCode()).isEqualTo(SieveCli.FAILED);
         assertThat(restore.err()).contains("not restored: not a readable zip archive");

@@ -2,8 +2,6 @@ package org.spectralsieve.cli;
 
 import static org.assertj.core.api.Assertions.assertThat;
 
-import java.io.ByteArrayOutputStream;
-import java.io.PrintStream;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
@@ -18,19 +16,8 @@ class ImportCommandTest {
     private static final String DB_URL = "jdbc:h2:mem:cli-import-test;DB_CLOSE_DELAY=-1";
     private static final String CURVE = "wavelength_nm,T\n300,0.3\n400,0.7\n";
 
-    private record Run(int exitCode, String out, String err) {
-    }
-
-    private static Run cli(String... args) {
-        ByteArrayOutputStream out = new ByteArrayOutputStream();
-        ByteArrayOutputStream err = new ByteArrayOutputStream();
-        String[] all = new String[args.length + 2];
-        System.arraycopy(args, 0, all, 0, args.length);
-        all[args.length] = "--db-url";
-        all[args.length + 1] = DB_URL;
-        int code = SieveCli.run(all, new PrintStream(out, true, StandardCharsets.UTF_8),
-                new PrintStream(err, true, StandardCharsets.UTF_8));
-        return new Run(code, out.toString(StandardCharsets.UTF_8), err.toString(StandardCharsets.UTF_8));
+    private static CliRun cli(String... args) {
+        return CliRun.against(DB_URL, args);
     }
 
     private static void write(Path dir, String name, String text) throws Exception {
@@ -49,7 +36,7 @@ class ImportCommandTest {
         write(dir, "sheet-4mm.csv", "wavelength_nm,T\n300,0.1\n400,0.5\n");
         write(dir, "broken.csv", "wavelength_nm,T\n300,0.1\n400,half\n");
 
-        Run first = cli("import", dir.toString());
+        CliRun first = cli("import", dir.toString());
 
         assertThat(first.exitCode()).as(first.err()).isEqualTo(SieveCli.FAILED);
         List<String> lines = first.out().lines().toList();
@@ -62,7 +49,7 @@ class ImportCommandTest {
         Files.delete(dir.resolve("broken.csv"));
         Files.writeString(dir.resolve("manifest.csv"), Files.readString(dir.resolve("manifest.csv")).replace(
                 "broken.csv,Illustrative folder sheet,5,,,,,,,\n", ""));
-        Run again = cli("import", dir.toString());
+        CliRun again = cli("import", dir.toString());
 
         assertThat(again.exitCode()).as(again.out() + again.err()).isEqualTo(SieveCli.OK);
         assertThat(again.out()).contains("0 stored, 2 already stored, 0 refused");
@@ -76,10 +63,10 @@ class ImportCommandTest {
                 """);
         write(dir, "film-50um.csv", CURVE);
 
-        Run imported = cli("import", dir.toString());
+        CliRun imported = cli("import", dir.toString());
         assertThat(imported.exitCode()).as(imported.out() + imported.err()).isEqualTo(SieveCli.OK);
 
-        Run listed = cli("materials", "--q", "Illustrative manifest film");
+        CliRun listed = cli("materials", "--q", "Illustrative manifest film");
         assertThat(listed.out()).contains("25–125 µm, stock 25, 50, 125 µm");
     }
 
@@ -88,7 +75,7 @@ class ImportCommandTest {
         Path zip = dir.resolve("slip.zip");
         Files.write(zip, Zips.of("manifest.csv", "file,material,thickness\n../evil.csv,x,1\n", "../evil.csv", CURVE));
 
-        Run run = cli("import", zip.toString());
+        CliRun run = cli("import", zip.toString());
 
         assertThat(run.exitCode()).isEqualTo(SieveCli.FAILED);
         assertThat(run.err()).contains("nothing imported").contains("../evil.csv");
@@ -97,7 +84,7 @@ class ImportCommandTest {
 
     @Test
     void pathThatIsNeitherFolderNorZipIsAUsageError(@TempDir Path dir) {
-        Run run = cli("import", dir.resolve("absent").toString());
+        CliRun run = cli("import", dir.resolve("absent").toString());
 
         assertThat(run.exitCode()).isEqualTo(SieveCli.USAGE);
         assertThat(run.err()).contains("neither a folder nor a .zip");

@@ -2,9 +2,6 @@ package org.spectralsieve.cli;
 
 import static org.assertj.core.api.Assertions.assertThat;
 
-import java.io.ByteArrayOutputStream;
-import java.io.PrintStream;
-import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import org.junit.jupiter.api.Test;
@@ -15,19 +12,8 @@ class ImportSpectrumCommandTest {
 
     private static final String DB_URL = "jdbc:h2:mem:cli-import-spectrum-test;DB_CLOSE_DELAY=-1";
 
-    private record Run(int exitCode, String out, String err) {
-    }
-
-    private static Run cli(String... args) {
-        ByteArrayOutputStream out = new ByteArrayOutputStream();
-        ByteArrayOutputStream err = new ByteArrayOutputStream();
-        String[] all = new String[args.length + 2];
-        System.arraycopy(args, 0, all, 0, args.length);
-        all[args.length] = "--db-url";
-        all[args.length + 1] = DB_URL;
-        int code = SieveCli.run(all, new PrintStream(out, true, StandardCharsets.UTF_8),
-                new PrintStream(err, true, StandardCharsets.UTF_8));
-        return new Run(code, out.toString(StandardCharsets.UTF_8), err.toString(StandardCharsets.UTF_8));
+    private static CliRun cli(String... args) {
+        return CliRun.against(DB_URL, args);
     }
 
     @Test
@@ -35,7 +21,7 @@ class ImportSpectrumCommandTest {
         Path file = dir.resolve("workshop-lamp.csv");
         Files.writeString(file, "wavelength,extraterrestrial,global\n380,1,0.5\n390,2,1\n400,1,0.25\n");
 
-        Run first = cli("import-spectrum", "--kind", "emitter", "--name", "workshop-lamp", "--value-column", "global",
+        CliRun first = cli("import-spectrum", "--kind", "emitter", "--name", "workshop-lamp", "--value-column", "global",
                 "--provenance", "illustrative bench capture", file.toString());
 
         assertThat(first.exitCode()).as(first.err()).isEqualTo(SieveCli.OK);
@@ -43,7 +29,7 @@ class ImportSpectrumCommandTest {
                 + " 3 points, 380–400 nm stored, 380–400 nm used");
         assertThat(first.out()).contains("note: values read from column 'global'; columns not read: [extraterrestrial]");
 
-        Run again = cli("import-spectrum", "--kind", "emitter", "--name", "workshop-lamp", "--value-column", "2",
+        CliRun again = cli("import-spectrum", "--kind", "emitter", "--name", "workshop-lamp", "--value-column", "2",
                 file.toString());
 
         assertThat(again.exitCode()).isEqualTo(SieveCli.FAILED);
@@ -56,7 +42,7 @@ class ImportSpectrumCommandTest {
         Path file = dir.resolve("resist.csv");
         Files.writeString(file, "nm,sensitivity\n350,0.5\n360,-0.1\n");
 
-        Run run = cli("import-spectrum", "--kind", "response", "--name", "resist-c", file.toString());
+        CliRun run = cli("import-spectrum", "--kind", "response", "--name", "resist-c", file.toString());
 
         assertThat(run.exitCode()).isEqualTo(SieveCli.FAILED);
         assertThat(run.err()).contains("not imported: resist.csv line 3, field 'sensitivity': negative value -0.1");
@@ -67,7 +53,7 @@ class ImportSpectrumCommandTest {
         Path file = dir.resolve("flat.csv");
         Files.writeString(file, "nm,weight\n350,1\n360,1\n");
 
-        Run run = cli("import-spectrum", "--kind", "response", "--name", "erythema", file.toString());
+        CliRun run = cli("import-spectrum", "--kind", "response", "--name", "erythema", file.toString());
 
         assertThat(run.exitCode()).isEqualTo(SieveCli.FAILED);
         assertThat(run.err()).contains("--name:").contains("built-in response");
@@ -78,9 +64,9 @@ class ImportSpectrumCommandTest {
         Path file = dir.resolve("lamp.csv");
         Files.writeString(file, "nm,power\n350,1\n360,1\n");
 
-        Run unit = cli("import-spectrum", "--kind", "emitter", "--name", "x-lamp", "--x-unit", "furlong", file.toString());
-        Run kind = cli("import-spectrum", "--kind", "lamp", "--name", "x-lamp", file.toString());
-        Run missing = cli("import-spectrum", "--kind", "emitter", "--name", "x-lamp", dir.resolve("none.csv").toString());
+        CliRun unit = cli("import-spectrum", "--kind", "emitter", "--name", "x-lamp", "--x-unit", "furlong", file.toString());
+        CliRun kind = cli("import-spectrum", "--kind", "lamp", "--name", "x-lamp", file.toString());
+        CliRun missing = cli("import-spectrum", "--kind", "emitter", "--name", "x-lamp", dir.resolve("none.csv").toString());
 
         assertThat(unit.exitCode()).isEqualTo(SieveCli.USAGE);
         assertThat(unit.err()).contains("--x-unit: 'furlong' is not one of nm, um, angstrom, cm-1");

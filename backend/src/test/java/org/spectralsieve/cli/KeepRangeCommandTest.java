@@ -2,9 +2,6 @@ package org.spectralsieve.cli;
 
 import static org.assertj.core.api.Assertions.assertThat;
 
-import java.io.ByteArrayOutputStream;
-import java.io.PrintStream;
-import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import org.junit.jupiter.api.Test;
@@ -17,19 +14,8 @@ class KeepRangeCommandTest {
     /** 300–800 nm every 100 nm: six points of an invented sheet (illustrative). */
     private static final String SIX_POINTS = "wavelength_nm,T\n300,0.1\n400,0.5\n500,0.8\n600,0.85\n700,0.86\n800,0.87\n";
 
-    private record Run(int exitCode, String out, String err) {
-    }
-
-    private static Run cli(String... args) {
-        ByteArrayOutputStream out = new ByteArrayOutputStream();
-        ByteArrayOutputStream err = new ByteArrayOutputStream();
-        String[] all = new String[args.length + 2];
-        System.arraycopy(args, 0, all, 0, args.length);
-        all[args.length] = "--db-url";
-        all[args.length + 1] = DB_URL;
-        int code = SieveCli.run(all, new PrintStream(out, true, StandardCharsets.UTF_8),
-                new PrintStream(err, true, StandardCharsets.UTF_8));
-        return new Run(code, out.toString(StandardCharsets.UTF_8), err.toString(StandardCharsets.UTF_8));
+    private static CliRun cli(String... args) {
+        return CliRun.against(DB_URL, args);
     }
 
     @Test
@@ -44,7 +30,7 @@ class KeepRangeCommandTest {
         Files.writeString(dir.resolve("cut-4mm.csv"), SIX_POINTS);
         Files.writeString(dir.resolve("bad-6mm.csv"), SIX_POINTS);
 
-        Run run = cli("import", dir.toString(), "--to", "700");
+        CliRun run = cli("import", dir.toString(), "--to", "700");
 
         assertThat(run.exitCode()).as(run.out() + run.err()).isEqualTo(SieveCli.FAILED);
         assertThat(run.out()).contains("from 400 nm: 1 point below it left out (at 300 nm)")
@@ -59,7 +45,7 @@ class KeepRangeCommandTest {
     void fromNotShorterThanToIsAUsageErrorBeforeAnythingIsRead(@TempDir Path dir) throws Exception {
         Files.writeString(dir.resolve("manifest.csv"), "file,material\n");
 
-        Run run = cli("import", dir.toString(), "--from", "500", "--to", "400");
+        CliRun run = cli("import", dir.toString(), "--from", "500", "--to", "400");
 
         assertThat(run.exitCode()).isEqualTo(SieveCli.USAGE);
         assertThat(run.err()).contains("--from must be shorter than to");

@@ -2,8 +2,6 @@ package org.spectralsieve.cli;
 
 import static org.assertj.core.api.Assertions.assertThat;
 
-import java.io.ByteArrayOutputStream;
-import java.io.PrintStream;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
@@ -20,15 +18,8 @@ class PreviewCommandTest {
 
     private static final String DB_URL = "jdbc:h2:mem:cli-preview-test;DB_CLOSE_DELAY=-1";
 
-    private record Run(int exitCode, String out, String err) {
-    }
-
-    private static Run cli(String... args) {
-        ByteArrayOutputStream out = new ByteArrayOutputStream();
-        ByteArrayOutputStream err = new ByteArrayOutputStream();
-        int code = SieveCli.run(args, new PrintStream(out, true, StandardCharsets.UTF_8),
-                new PrintStream(err, true, StandardCharsets.UTF_8));
-        return new Run(code, out.toString(StandardCharsets.UTF_8), err.toString(StandardCharsets.UTF_8));
+    private static CliRun cli(String... args) {
+        return CliRun.of(args);
     }
 
     private static Path series(Path dir, String text) throws Exception {
@@ -39,7 +30,7 @@ class PreviewCommandTest {
 
     @Test
     void thePreviewPrintsOneLinePerBlockWithTheTakenOneAndTheLeftOutWarning(@TempDir Path dir) throws Exception {
-        Run run = cli("preview", series(dir, JcampSeries.twoBlocks()).toString());
+        CliRun run = cli("preview", series(dir, JcampSeries.twoBlocks()).toString());
 
         assertThat(run.exitCode()).as(run.err()).isEqualTo(SieveCli.OK);
         List<String> lines = run.out().lines().toList();
@@ -56,7 +47,7 @@ class PreviewCommandTest {
     void eachBlockMarksEveryBlockTakenAndNamesABlockThatCannotBeStored(@TempDir Path dir) throws Exception {
         Path file = series(dir, JcampSeries.link(List.of(JcampSeries.unexposed(), JcampSeries.variance())));
 
-        Run run = cli("preview", "--each-block", file.toString());
+        CliRun run = cli("preview", "--each-block", file.toString());
 
         assertThat(run.exitCode()).as(run.err()).isEqualTo(SieveCli.OK);
         assertThat(run.out().lines().filter(l -> l.endsWith("taken"))).hasSize(2);
@@ -66,7 +57,7 @@ class PreviewCommandTest {
 
     @Test
     void anUnknownBlockExitsOneNamingTheOptionAndTheBlocks(@TempDir Path dir) throws Exception {
-        Run run = cli("preview", "--block", "5", series(dir, JcampSeries.twoBlocks()).toString());
+        CliRun run = cli("preview", "--block", "5", series(dir, JcampSeries.twoBlocks()).toString());
 
         assertThat(run.exitCode()).isEqualTo(SieveCli.FAILED);
         assertThat(run.err()).contains("would be refused: --block: block 5 is not a spectrum of series.jdx",
@@ -76,7 +67,7 @@ class PreviewCommandTest {
 
     @Test
     void aBlockNumberThatIsNoNumberIsAUsageError(@TempDir Path dir) throws Exception {
-        Run run = cli("preview", "--block", "first", series(dir, JcampSeries.twoBlocks()).toString());
+        CliRun run = cli("preview", "--block", "first", series(dir, JcampSeries.twoBlocks()).toString());
 
         assertThat(run.exitCode()).isEqualTo(SieveCli.USAGE);
         assertThat(run.err()).contains("--block:", "'first' is not a block number");
@@ -90,7 +81,7 @@ class PreviewCommandTest {
                 series.jdx,Illustrative CLI amber film,0.1,film,fixed,true
                 """, StandardCharsets.UTF_8);
 
-        Run run = cli("import", dir.toString(), "--db-url", DB_URL);
+        CliRun run = cli("import", dir.toString(), "--db-url", DB_URL);
 
         assertThat(run.exitCode()).as(run.out() + run.err()).isEqualTo(SieveCli.OK);
         assertThat(run.out()).containsPattern("series\\.jdx\\s+stored\\s+illustrative-cli-amber-film\\s+\\d+,\\d+");
@@ -110,7 +101,7 @@ class PreviewCommandTest {
 
     @Test
     void theKeepRangeAndAStatedUncertaintyShowInThePreview(@TempDir Path dir) throws Exception {
-        Run run = cli("preview", "--from", "320", "--to", "380", "--uncertainty", "0.5%T", capture(dir).toString());
+        CliRun run = cli("preview", "--from", "320", "--to", "380", "--uncertainty", "0.5%T", capture(dir).toString());
 
         assertThat(run.exitCode()).as(run.err()).isEqualTo(SieveCli.OK);
         // 300..400 in 10 nm steps is 11 points; keeping 320..380 leaves 7 and leaves out 2 on each side
@@ -120,7 +111,7 @@ class PreviewCommandTest {
 
     @Test
     void aKeepRangeTheWrongWayRoundIsAUsageErrorNamingTheOption(@TempDir Path dir) throws Exception {
-        Run run = cli("preview", "--from", "380", "--to", "320", capture(dir).toString());
+        CliRun run = cli("preview", "--from", "380", "--to", "320", capture(dir).toString());
 
         assertThat(run.exitCode()).isEqualTo(2);
         assertThat(run.err()).contains("--from");
@@ -128,7 +119,7 @@ class PreviewCommandTest {
 
     @Test
     void aFileWithoutUncertaintySaysSo(@TempDir Path dir) throws Exception {
-        Run run = cli("preview", capture(dir).toString());
+        CliRun run = cli("preview", capture(dir).toString());
 
         assertThat(run.out()).contains("measurement uncertainty: none");
     }

@@ -2,14 +2,11 @@ package org.spectralsieve.cli;
 
 import static org.assertj.core.api.Assertions.assertThat;
 
-import java.io.ByteArrayOutputStream;
-import java.io.PrintStream;
 import java.io.StringReader;
 import java.net.URI;
 import java.net.http.HttpClient;
 import java.net.http.HttpRequest;
 import java.net.http.HttpResponse;
-import java.nio.charset.StandardCharsets;
 import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
@@ -37,29 +34,19 @@ class SieveCliTest {
     @LocalServerPort
     int port;
 
-    private record Run(int exitCode, String out, String err) {
-        List<String> outLines() {
-            return out.lines().toList();
-        }
-    }
-
-    private static Run cli(String... args) {
-        ByteArrayOutputStream out = new ByteArrayOutputStream();
-        ByteArrayOutputStream err = new ByteArrayOutputStream();
+    private static CliRun cli(String... args) {
         List<String> all = new ArrayList<>(Arrays.asList(args));
         if (!all.isEmpty() && !all.get(0).equals("help")) {
             all.add("--db-url");
             all.add(DB_URL);
         }
-        int code = SieveCli.run(all.toArray(String[]::new), new PrintStream(out, true, StandardCharsets.UTF_8),
-                new PrintStream(err, true, StandardCharsets.UTF_8));
-        return new Run(code, out.toString(StandardCharsets.UTF_8), err.toString(StandardCharsets.UTF_8));
+        return CliRun.of(all.toArray(String[]::new));
     }
 
     @Test
     void uvGradeFusedSilicaHeadsTheTableForPassingAt254nmAt3mm() {
         // common practice, no source: UV-grade fused silica passes 254 nm
-        Run run = cli("search", FUSED_SILICA_AT_254, "--limit", "5");
+        CliRun run = cli("search", FUSED_SILICA_AT_254, "--limit", "5");
 
         assertThat(run.exitCode()).as(run.err()).isZero();
         List<String> lines = run.outLines();
@@ -80,7 +67,7 @@ class SieveCliTest {
 
     @Test
     void wordsBeforeTheClausesNarrowTheTableAndSayHowManyTheyAdmitted() {
-        Run run = cli("search", "acrylic passes over 80% at 400 nm", "--limit", "50");
+        CliRun run = cli("search", "acrylic passes over 80% at 400 nm", "--limit", "50");
 
         assertThat(run.exitCode()).as(run.err()).isZero();
         List<String> rows = run.outLines().stream().filter(l -> l.matches("\\s*\\d+ {2,}.*")).toList();
@@ -90,7 +77,7 @@ class SieveCliTest {
 
     @Test
     void misspeltRequirementExitsTwoWithTheSuggestionAndACaretOnStderr() {
-        Run run = cli("search", "passes ovr 80% at 365 nm");
+        CliRun run = cli("search", "passes ovr 80% at 365 nm");
 
         assertThat(run.exitCode()).isEqualTo(SieveCli.USAGE);
         assertThat(run.out()).isEmpty();
@@ -104,7 +91,7 @@ class SieveCliTest {
     void requirementBeyondTheLengthCapExitsTwoBeforeOpeningTheLibrary() {
         String text = "passes over 80% at 365 nm and ".repeat(100) + "blocks under 1% at 405 nm";
 
-        Run run = cli("search", text);
+        CliRun run = cli("search", text);
 
         assertThat(run.exitCode()).isEqualTo(SieveCli.USAGE);
         assertThat(run.out()).isEmpty();
@@ -114,7 +101,7 @@ class SieveCliTest {
 
     @Test
     void unknownOptionExitsTwoWithPicocliMessage() {
-        Run run = cli("search", FUSED_SILICA_AT_254, "--limti", "3");
+        CliRun run = cli("search", FUSED_SILICA_AT_254, "--limti", "3");
 
         assertThat(run.exitCode()).isEqualTo(SieveCli.USAGE);
         assertThat(run.err()).contains("--limti").contains("--limit");
@@ -122,7 +109,7 @@ class SieveCliTest {
 
     @Test
     void limitOutsideItsRangeExitsTwoNamingTheOption() {
-        Run run = cli("search", FUSED_SILICA_AT_254, "--limit", "0");
+        CliRun run = cli("search", FUSED_SILICA_AT_254, "--limit", "0");
 
         assertThat(run.exitCode()).isEqualTo(SieveCli.USAGE);
         assertThat(run.err()).contains("--limit must be from 1 to 500, got 0");
@@ -130,7 +117,7 @@ class SieveCliTest {
 
     @Test
     void aStackSearchPrintsTheLayerSampleAndTheCautionUnderTheTable() {
-        Run run = cli("search", "blocks under 1% at 405 nm and luminous over 70%, behind 4 mm clear float glass",
+        CliRun run = cli("search", "blocks under 1% at 405 nm and luminous over 70%, behind 4 mm clear float glass",
                 "--limit", "3");
 
         assertThat(run.exitCode()).as(run.err()).isZero();
@@ -146,7 +133,7 @@ class SieveCliTest {
 
     @Test
     void anAmbiguousLayerExitsTwoListingTheChoices() {
-        Run run = cli("search", "blocks under 1% at 405 nm, behind 4 mm glass");
+        CliRun run = cli("search", "blocks under 1% at 405 nm, behind 4 mm glass");
 
         assertThat(run.exitCode()).isEqualTo(SieveCli.USAGE);
         assertThat(run.err()).contains("layer not resolved").contains("write the slug")
@@ -155,7 +142,7 @@ class SieveCliTest {
 
     @Test
     void aMisspeltEmitterExitsTwoWithTheClosestName() {
-        Run run = cli("search", "passes over 85% of led 356");
+        CliRun run = cli("search", "passes over 85% of led 356");
 
         assertThat(run.exitCode()).isEqualTo(SieveCli.USAGE);
         assertThat(run.err()).contains("position 19").contains("did you mean 'led-365'");
@@ -163,7 +150,7 @@ class SieveCliTest {
 
     @Test
     void anUnknownClassExitsTwoListingTheLibrarysClasses() {
-        Run run = cli("search", "blocks under 1% at 405 nm, class plastic");
+        CliRun run = cli("search", "blocks under 1% at 405 nm, class plastic");
 
         assertThat(run.exitCode()).isEqualTo(SieveCli.USAGE);
         assertThat(run.out()).isEmpty();
@@ -175,7 +162,7 @@ class SieveCliTest {
 
     @Test
     void anAmbiguousBlockingLevelExitsTwoShowingBothReadings() {
-        Run run = cli("search", "blocks 1% at 405 nm");
+        CliRun run = cli("search", "blocks 1% at 405 nm");
 
         assertThat(run.exitCode()).isEqualTo(SieveCli.USAGE);
         assertThat(run.err()).contains("'blocks under 1%'").contains("'transmits under 99%'");
@@ -183,7 +170,7 @@ class SieveCliTest {
 
     @Test
     void jsonOutputParsesWithAResultsArrayLikeTheApi() {
-        Run run = cli("search", FUSED_SILICA_AT_254, "--limit", "3", "--json");
+        CliRun run = cli("search", FUSED_SILICA_AT_254, "--limit", "3", "--json");
 
         assertThat(run.exitCode()).as(run.err()).isZero();
         JsonNode json = JSON.readTree(run.out());
@@ -198,7 +185,7 @@ class SieveCliTest {
         long sampleId = JSON.readTree(cli("search", FUSED_SILICA_AT_254, "--limit", "1", "--json").out())
                 .path("results").get(0).path("sampleId").asLong();
 
-        Run run = cli("export", "--sample", String.valueOf(sampleId), "--thickness-mm", "5");
+        CliRun run = cli("export", "--sample", String.valueOf(sampleId), "--thickness-mm", "5");
 
         assertThat(run.exitCode()).as(run.err()).isZero();
         ParsedSpectrum parsed = new DelimitedTextReader().read("export.csv", new StringReader(run.out()));
@@ -212,7 +199,7 @@ class SieveCliTest {
         long sampleId = JSON.readTree(cli("search", FUSED_SILICA_AT_254, "--limit", "1", "--json").out())
                 .path("results").get(0).path("sampleId").asLong();
 
-        Run run = cli("export", "--sample", String.valueOf(sampleId), "--format", "jdx");
+        CliRun run = cli("export", "--sample", String.valueOf(sampleId), "--format", "jdx");
 
         assertThat(run.exitCode()).as(run.err()).isZero();
         ParsedSpectrum parsed = new org.spectralsieve.importers.jcamp.JcampReader().read("export.jdx",
@@ -228,7 +215,7 @@ class SieveCliTest {
         long sampleId = JSON.readTree(cli("search", FUSED_SILICA_AT_254, "--limit", "1", "--json").out())
                 .path("results").get(0).path("sampleId").asLong();
 
-        Run run = cli("figures", "--sample", String.valueOf(sampleId), "--thickness-mm", "5",
+        CliRun run = cli("figures", "--sample", String.valueOf(sampleId), "--thickness-mm", "5",
                 "--emitter", "led-365", "--response", "flat", "--bands", "dermatology");
 
         assertThat(run.exitCode()).as(run.err()).isZero();
@@ -251,7 +238,7 @@ class SieveCliTest {
         long sampleId = JSON.readTree(cli("search", "passes over 20% at 254 nm, geometry total", "--limit", "1", "--json")
                 .out()).path("results").get(0).path("sampleId").asLong();
 
-        Run run = cli("figures", "--sample", String.valueOf(sampleId), "--thickness-mm", "7");
+        CliRun run = cli("figures", "--sample", String.valueOf(sampleId), "--thickness-mm", "7");
 
         assertThat(run.exitCode()).isEqualTo(SieveCli.FAILED);
         assertThat(run.err()).contains("scatter is not absorption");
@@ -262,7 +249,7 @@ class SieveCliTest {
         long sampleId = JSON.readTree(cli("search", FUSED_SILICA_AT_254, "--limit", "1", "--json").out())
                 .path("results").get(0).path("sampleId").asLong();
 
-        Run run = cli("figures", "--sample", String.valueOf(sampleId), "--behind", "float glass", "--behind-mm", "4");
+        CliRun run = cli("figures", "--sample", String.valueOf(sampleId), "--behind", "float glass", "--behind-mm", "4");
 
         assertThat(run.exitCode()).as(run.err()).isZero();
         JsonNode api = get("/api/samples/" + sampleId + "/figures?behind=float%20glass&behindMm=4");
@@ -271,14 +258,14 @@ class SieveCliTest {
                 100 * api.path("luminousTransmittance").path("value").asDouble());
         assertThat(run.outLines()).anySatisfy(line -> assertThat(line).startsWith("luminousTransmittance")
                 .contains(expected));
-        Run missing = cli("figures", "--sample", String.valueOf(sampleId), "--behind", "float glass");
+        CliRun missing = cli("figures", "--sample", String.valueOf(sampleId), "--behind", "float glass");
         assertThat(missing.exitCode()).isEqualTo(SieveCli.USAGE);
         assertThat(missing.err()).contains("--behind-mm");
     }
 
     @Test
     void figuresWithAnUnknownResponseExitTwoListingTheKnownOnes() {
-        Run run = cli("figures", "--sample", "1", "--response", "erythemma");
+        CliRun run = cli("figures", "--sample", "1", "--response", "erythemma");
 
         assertThat(run.exitCode()).isEqualTo(SieveCli.USAGE);
         assertThat(run.err()).contains("--response").contains("erythemma").contains("erythema");
@@ -287,7 +274,7 @@ class SieveCliTest {
 
     @Test
     void exportOfAnUnknownSampleExitsOneNamingIt() {
-        Run run = cli("export", "--sample", "987654");
+        CliRun run = cli("export", "--sample", "987654");
 
         assertThat(run.exitCode()).isEqualTo(SieveCli.FAILED);
         assertThat(run.err()).contains("987654");
@@ -296,7 +283,7 @@ class SieveCliTest {
 
     @Test
     void materialsListsTheWholeDemoLibrary() {
-        Run run = cli("materials");
+        CliRun run = cli("materials");
 
         assertThat(run.exitCode()).as(run.err()).isZero();
         List<String> lines = run.outLines();
@@ -306,7 +293,7 @@ class SieveCliTest {
 
     @Test
     void materialsFilteredByClassShowOnlyThatClass() {
-        Run run = cli("materials", "--class", "plastic sheet");
+        CliRun run = cli("materials", "--class", "plastic sheet");
 
         assertThat(run.exitCode()).as(run.err()).isZero();
         List<String> rows = run.outLines().subList(1, run.outLines().size());

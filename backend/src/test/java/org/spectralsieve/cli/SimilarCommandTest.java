@@ -2,13 +2,10 @@ package org.spectralsieve.cli;
 
 import static org.assertj.core.api.Assertions.assertThat;
 
-import java.io.ByteArrayOutputStream;
-import java.io.PrintStream;
 import java.net.URI;
 import java.net.http.HttpClient;
 import java.net.http.HttpRequest;
 import java.net.http.HttpResponse;
-import java.nio.charset.StandardCharsets;
 import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
@@ -47,18 +44,8 @@ class SimilarCommandTest {
     @Autowired
     JooqLibraryRepository library;
 
-    private record Run(int exitCode, String out, String err) {
-    }
-
-    private static Run cli(String... args) {
-        ByteArrayOutputStream out = new ByteArrayOutputStream();
-        ByteArrayOutputStream err = new ByteArrayOutputStream();
-        List<String> all = new ArrayList<>(Arrays.asList(args));
-        all.add("--db-url");
-        all.add(DB_URL);
-        int code = SieveCli.run(all.toArray(String[]::new), new PrintStream(out, true, StandardCharsets.UTF_8),
-                new PrintStream(err, true, StandardCharsets.UTF_8));
-        return new Run(code, out.toString(StandardCharsets.UTF_8), err.toString(StandardCharsets.UTF_8));
+    private static CliRun cli(String... args) {
+        return CliRun.against(DB_URL, args);
     }
 
     @Test
@@ -66,7 +53,7 @@ class SimilarCommandTest {
         long query = firstSampleOf("bronze-tint-float-glass");
         JsonNode api = getJson("/api/samples/" + query + "/similar?limit=5&metric=correlation");
 
-        Run run = cli("similar", "--sample", String.valueOf(query), "--limit", "5", "--metric", "correlation");
+        CliRun run = cli("similar", "--sample", String.valueOf(query), "--limit", "5", "--metric", "correlation");
 
         assertThat(run.exitCode()).as(run.err()).isZero();
         List<String> lines = run.out().lines().toList();
@@ -88,15 +75,15 @@ class SimilarCommandTest {
 
     @Test
     void aBadMetricIsAUsageErrorAndAnUnknownSampleAFailureNamingIt() {
-        Run badMetric = cli("similar", "--sample", "1", "--metric", "cosine");
+        CliRun badMetric = cli("similar", "--sample", "1", "--metric", "cosine");
         assertThat(badMetric.exitCode()).isEqualTo(SieveCli.USAGE);
         assertThat(badMetric.err()).contains("--metric", "centred-euclidean");
 
-        Run badLimit = cli("similar", "--sample", "1", "--limit", "51");
+        CliRun badLimit = cli("similar", "--sample", "1", "--limit", "51");
         assertThat(badLimit.exitCode()).isEqualTo(SieveCli.USAGE);
         assertThat(badLimit.err()).contains("--limit");
 
-        Run unknown = cli("similar", "--sample", "987654");
+        CliRun unknown = cli("similar", "--sample", "987654");
         assertThat(unknown.exitCode()).isEqualTo(SieveCli.FAILED);
         assertThat(unknown.err()).contains("987654");
         assertThat(unknown.out()).isEmpty();
@@ -141,7 +128,7 @@ class SimilarCommandTest {
         Path file = offcutAtFiveMillimetres(dir);
         String stock = String.valueOf(materialId("bronze-tint-float-glass"));
 
-        Run run = cli("similar", "--file", file.toString(), "--thickness", "5", "--limit", "5");
+        CliRun run = cli("similar", "--file", file.toString(), "--thickness", "5", "--limit", "5");
 
         assertThat(run.exitCode()).as(run.err()).isZero();
         assertThat(run.out().lines().findFirst().orElseThrow()).isEqualTo("metric: centred-euclidean");
@@ -154,7 +141,7 @@ class SimilarCommandTest {
         }
         assertThat(run.out()).doesNotContain("note:");
 
-        Run asMeasured = cli("similar", "--file", file.toString(), "--limit", "1");
+        CliRun asMeasured = cli("similar", "--file", file.toString(), "--limit", "1");
         assertThat(asMeasured.exitCode()).as(asMeasured.err()).isZero();
         assertThat(asMeasured.out()).startsWith("metric: correlation"); // no thickness: compared as measured
         assertThat(rows(asMeasured.out()).get(0).get(0)).isEqualTo(stock);
@@ -165,7 +152,7 @@ class SimilarCommandTest {
         long query = firstSampleOf("bronze-tint-float-glass");
         JsonNode api = getJson("/api/samples/" + query + "/similar?limit=5&band=300-400");
 
-        Run run = cli("similar", "--sample", String.valueOf(query), "--limit", "5", "--band", "300-400");
+        CliRun run = cli("similar", "--sample", String.valueOf(query), "--limit", "5", "--band", "300-400");
 
         assertThat(run.exitCode()).as(run.err()).isZero();
         assertThat(run.out().lines().findFirst().orElseThrow()).isEqualTo("metric: centred-euclidean, band: 300–400 nm");
@@ -181,7 +168,7 @@ class SimilarCommandTest {
         long query = firstSampleOf("bronze-tint-float-glass");
         String stock = String.valueOf(materialId("bronze-tint-float-glass"));
 
-        Run run = cli("similar", "--sample", String.valueOf(query), "--limit", "3", "--requirement",
+        CliRun run = cli("similar", "--sample", String.valueOf(query), "--limit", "3", "--requirement",
                 "passes over 70% from 400 to 450 nm");
 
         assertThat(run.exitCode()).as(run.err()).isZero();
@@ -196,11 +183,11 @@ class SimilarCommandTest {
     void wordsBesideTheRequirementKeepExactlyTheSubstitutesWhoseMaterialTheWordsAdmit() throws Exception {
         String query = String.valueOf(firstSampleOf("bronze-tint-float-glass"));
         String requirement = "passes over 70% from 400 to 450 nm";
-        Run plain = cli("similar", "--sample", query, "--limit", "50", "--requirement", requirement);
+        CliRun plain = cli("similar", "--sample", query, "--limit", "50", "--requirement", requirement);
         assertThat(plain.exitCode()).as(plain.err()).isZero();
         assertThat(plain.out()).as("without words nothing is said about words").doesNotContain("its words admit");
 
-        Run worded = cli("similar", "--sample", query, "--limit", "50", "--requirement", "acrylic " + requirement);
+        CliRun worded = cli("similar", "--sample", query, "--limit", "50", "--requirement", "acrylic " + requirement);
 
         assertThat(worded.exitCode()).as(worded.err()).isZero();
         JsonNode library = getJson("/api/library?limit=200&q=acrylic");
@@ -217,7 +204,7 @@ class SimilarCommandTest {
 
     @Test
     void wordsThatAdmitNoMaterialLeaveAnEmptyTableNotAnError() {
-        Run run = cli("similar", "--sample", String.valueOf(firstSampleOfUnchecked("bronze-tint-float-glass")),
+        CliRun run = cli("similar", "--sample", String.valueOf(firstSampleOfUnchecked("bronze-tint-float-glass")),
                 "--requirement", "unobtainium passes over 70% from 400 to 450 nm");
         assertThat(run.exitCode()).as(run.err()).isZero();
         assertThat(rows(run.out())).isEmpty();
@@ -227,7 +214,7 @@ class SimilarCommandTest {
 
     @Test
     void aCurveAtItsDetectionFloorCarriesTheWarning() {
-        Run run = cli("similar", "--sample", String.valueOf(firstSampleOfUnchecked("black-stencil-film")));
+        CliRun run = cli("similar", "--sample", String.valueOf(firstSampleOfUnchecked("black-stencil-film")));
         assertThat(run.exitCode()).as(run.err()).isZero();
         assertThat(run.out()).contains("note: most of this curve is at the detection limit");
     }
@@ -235,22 +222,22 @@ class SimilarCommandTest {
     @Test
     void aQuestionThatCannotBeAskedIsAUsageErrorNamingTheOption(@TempDir Path dir) throws Exception {
         Path file = offcutAtFiveMillimetres(dir);
-        Run both = cli("similar", "--sample", "1", "--file", file.toString());
+        CliRun both = cli("similar", "--sample", "1", "--file", file.toString());
         assertThat(both.exitCode()).isEqualTo(SieveCli.USAGE);
         assertThat(both.err()).contains("--sample", "--file");
         assertThat(cli("similar").exitCode()).isEqualTo(SieveCli.USAGE);
-        Run band = cli("similar", "--sample", "1", "--band", "150-300");
+        CliRun band = cli("similar", "--sample", "1", "--band", "150-300");
         assertThat(band.exitCode()).isEqualTo(SieveCli.USAGE);
         assertThat(band.err()).contains("--band", "200–700 nm");
-        Run thickness = cli("similar", "--sample", "1", "--thickness", "3");
+        CliRun thickness = cli("similar", "--sample", "1", "--thickness", "3");
         assertThat(thickness.exitCode()).isEqualTo(SieveCli.USAGE);
         assertThat(thickness.err()).contains("--thickness");
-        Run metric = cli("similar", "--file", file.toString(), "--metric", "centred-euclidean");
+        CliRun metric = cli("similar", "--file", file.toString(), "--metric", "centred-euclidean");
         assertThat(metric.exitCode()).isEqualTo(SieveCli.USAGE);
         assertThat(metric.err()).contains("--metric", "--thickness");
-        Run requirement = cli("similar", "--sample", "1", "--requirement", "passes over");
+        CliRun requirement = cli("similar", "--sample", "1", "--requirement", "passes over");
         assertThat(requirement.exitCode()).isEqualTo(SieveCli.USAGE);
-        Run missing = cli("similar", "--file", dir.resolve("absent.csv").toString());
+        CliRun missing = cli("similar", "--file", dir.resolve("absent.csv").toString());
         assertThat(missing.exitCode()).isEqualTo(SieveCli.USAGE);
         assertThat(missing.err()).contains("--file");
     }

@@ -2,9 +2,6 @@ package org.spectralsieve.cli;
 
 import static org.assertj.core.api.Assertions.assertThat;
 
-import java.io.ByteArrayOutputStream;
-import java.io.PrintStream;
-import java.nio.charset.StandardCharsets;
 import java.sql.Connection;
 import java.sql.DriverManager;
 import java.sql.ResultSet;
@@ -18,19 +15,8 @@ class UndoCommandsTest {
 
     private static final String DB_URL = "jdbc:h2:mem:cli-undo-test;DB_CLOSE_DELAY=-1";
 
-    private record Run(int exitCode, String out, String err) {
-    }
-
-    private static Run cli(String... args) {
-        ByteArrayOutputStream out = new ByteArrayOutputStream();
-        ByteArrayOutputStream err = new ByteArrayOutputStream();
-        String[] all = new String[args.length + 2];
-        System.arraycopy(args, 0, all, 0, args.length);
-        all[args.length] = "--db-url";
-        all[args.length + 1] = DB_URL;
-        int code = SieveCli.run(all, new PrintStream(out, true, StandardCharsets.UTF_8),
-                new PrintStream(err, true, StandardCharsets.UTF_8));
-        return new Run(code, out.toString(StandardCharsets.UTF_8), err.toString(StandardCharsets.UTF_8));
+    private static CliRun cli(String... args) {
+        return CliRun.against(DB_URL, args);
     }
 
     @Test
@@ -38,14 +24,14 @@ class UndoCommandsTest {
         assertThat(cli("materials", "--q", "orange").exitCode()).isEqualTo(SieveCli.OK); // seeds the demo library
         long sampleId = thinnestSampleOf("resin-lid-orange");
 
-        Run retired = cli("retire", "sample", String.valueOf(sampleId));
-        Run listed = cli("materials", "--q", "orange");
-        Run restored = cli("restore", "sample", String.valueOf(sampleId));
-        Run relisted = cli("materials", "--q", "orange");
-        Run refused = cli("correct", "sample", String.valueOf(sampleId), "--thickness-mm", "-1", "--reason", "typo");
-        Run corrected = cli("correct", "sample", String.valueOf(sampleId), "--thickness-mm", "3.1",
+        CliRun retired = cli("retire", "sample", String.valueOf(sampleId));
+        CliRun listed = cli("materials", "--q", "orange");
+        CliRun restored = cli("restore", "sample", String.valueOf(sampleId));
+        CliRun relisted = cli("materials", "--q", "orange");
+        CliRun refused = cli("correct", "sample", String.valueOf(sampleId), "--thickness-mm", "-1", "--reason", "typo");
+        CliRun corrected = cli("correct", "sample", String.valueOf(sampleId), "--thickness-mm", "3.1",
                 "--reason", "caliper reading replaces the nominal thickness");
-        Run revisions = cli("revisions", "sample", String.valueOf(sampleId));
+        CliRun revisions = cli("revisions", "sample", String.valueOf(sampleId));
 
         assertThat(retired.exitCode()).as(retired.err()).isEqualTo(SieveCli.OK);
         assertThat(retired.out()).startsWith("retired sample " + sampleId);
@@ -62,8 +48,8 @@ class UndoCommandsTest {
 
     @Test
     void anUnknownKindIsAUsageErrorAndAMissingSampleExitsOne() {
-        Run kind = cli("retire", "lamp", "7");
-        Run missing = cli("restore", "sample", "999999");
+        CliRun kind = cli("retire", "lamp", "7");
+        CliRun missing = cli("restore", "sample", "999999");
 
         assertThat(kind.exitCode()).isEqualTo(SieveCli.USAGE);
         assertThat(kind.err()).contains("sample, material, emitter or response");

@@ -10,18 +10,14 @@ import static org.spectralsieve.library.db.Tables.SOURCE_FILE;
 import java.nio.charset.StandardCharsets;
 import java.util.List;
 import java.util.OptionalInt;
-import java.util.UUID;
 import java.util.concurrent.atomic.AtomicInteger;
-import org.flywaydb.core.Flyway;
-import org.h2.jdbcx.JdbcDataSource;
 import org.jooq.DSLContext;
-import org.jooq.SQLDialect;
-import org.jooq.impl.DSL;
 import org.junit.jupiter.api.BeforeEach;
 import org.junit.jupiter.api.Test;
 import org.spectralsieve.importers.ImportException;
 import org.spectralsieve.library.JooqLibraryRepository;
 import org.spectralsieve.library.MaterialClass;
+import org.spectralsieve.library.MigratedDatabase;
 import org.spectralsieve.library.Scaling;
 import org.spectralsieve.library.SourceFile;
 
@@ -34,10 +30,7 @@ class EachBlockImportTest {
 
     @BeforeEach
     void migrateFreshDatabase() {
-        JdbcDataSource ds = new JdbcDataSource();
-        ds.setURL("jdbc:h2:mem:" + UUID.randomUUID() + ";DB_CLOSE_DELAY=-1");
-        Flyway.configure().dataSource(ds).load().migrate();
-        db = DSL.using(ds, SQLDialect.H2);
+        db = MigratedDatabase.freshH2();
         library = new JooqLibraryRepository(db);
     }
 

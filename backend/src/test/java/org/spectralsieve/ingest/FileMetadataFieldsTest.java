@@ -8,15 +8,12 @@ import java.time.LocalDate;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.UUID;
-import org.flywaydb.core.Flyway;
-import org.h2.jdbcx.JdbcDataSource;
-import org.jooq.SQLDialect;
-import org.jooq.impl.DSL;
 import org.junit.jupiter.api.BeforeEach;
 import org.junit.jupiter.api.Test;
 import org.spectralsieve.importers.ImportException;
 import org.spectralsieve.library.JooqLibraryRepository;
 import org.spectralsieve.library.MaterialClass;
+import org.spectralsieve.library.MigratedDatabase;
 import org.spectralsieve.library.SampleInfo;
 import org.spectralsieve.library.Scaling;
 
@@ -33,10 +30,7 @@ class FileMetadataFieldsTest {
 
     @BeforeEach
     void freshLibrary() {
-        JdbcDataSource ds = new JdbcDataSource();
-        ds.setURL("jdbc:h2:mem:" + UUID.randomUUID() + ";DB_CLOSE_DELAY=-1");
-        Flyway.configure().dataSource(ds).load().migrate();
-        imports = new ImportService(new JooqLibraryRepository(DSL.using(ds, SQLDialect.H2)), () -> { },
+        imports = new ImportService(new JooqLibraryRepository(MigratedDatabase.freshH2()), () -> { },
                 ImportProperties.defaults());
     }
 

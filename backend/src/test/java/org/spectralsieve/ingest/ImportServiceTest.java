@@ -11,18 +11,14 @@ import java.nio.charset.StandardCharsets;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Random;
-import java.util.UUID;
 import java.util.concurrent.atomic.AtomicInteger;
-import org.flywaydb.core.Flyway;
-import org.h2.jdbcx.JdbcDataSource;
 import org.jooq.DSLContext;
-import org.jooq.SQLDialect;
-import org.jooq.impl.DSL;
 import org.junit.jupiter.api.BeforeEach;
 import org.junit.jupiter.api.Test;
 import org.spectralsieve.importers.ImportException;
 import org.spectralsieve.library.JooqLibraryRepository;
 import org.spectralsieve.library.MaterialClass;
+import org.spectralsieve.library.MigratedDatabase;
 import org.spectralsieve.library.Scaling;
 import org.spectralsieve.library.SourceFile;
 
@@ -34,10 +30,7 @@ class ImportServiceTest {
 
     @BeforeEach
     void migrateFreshDatabase() {
-        JdbcDataSource ds = new JdbcDataSource();
-        ds.setURL("jdbc:h2:mem:" + UUID.randomUUID() + ";DB_CLOSE_DELAY=-1");
-        Flyway.configure().dataSource(ds).load().migrate();
-        db = DSL.using(ds, SQLDialect.H2);
+        db = MigratedDatabase.freshH2();
     }
 
     private ImportService service(JooqLibraryRepository library) {

@@ -18,11 +18,7 @@ import java.util.TreeSet;
 import java.util.UUID;
 import java.util.stream.Collectors;
 import java.util.stream.Stream;
-import org.flywaydb.core.Flyway;
-import org.h2.jdbcx.JdbcDataSource;
 import org.jooq.DSLContext;
-import org.jooq.SQLDialect;
-import org.jooq.impl.DSL;
 import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.params.ParameterizedTest;
@@ -31,6 +27,7 @@ import org.spectralsieve.importers.ImportException;
 import org.spectralsieve.importers.YKind;
 import org.spectralsieve.library.JooqLibraryRepository;
 import org.spectralsieve.library.MaterialClass;
+import org.spectralsieve.library.MigratedDatabase;
 import org.spectralsieve.library.Scaling;
 import org.spectralsieve.optics.ConstantIndex;
 import org.spectralsieve.spectra.ImportedSpectrum;
@@ -337,10 +334,7 @@ class ReferenceFileOutcomesTest {
 
     @BeforeAll
     static void freshLibrary() {
-        JdbcDataSource ds = new JdbcDataSource();
-        ds.setURL("jdbc:h2:mem:" + UUID.randomUUID() + ";DB_CLOSE_DELAY=-1");
-        Flyway.configure().dataSource(ds).load().migrate();
-        DSLContext db = DSL.using(ds, SQLDialect.H2);
+        DSLContext db = MigratedDatabase.freshH2();
         imports = new ImportService(new JooqLibraryRepository(db), () -> { }, ImportProperties.defaults());
         ReferenceSpectrumRepository repository = new ReferenceSpectrumRepository(db);
         spectra = new SpectrumImportService(repository, new ImportedSpectrumLookup(repository, SpectrumLookup.builtIn()),

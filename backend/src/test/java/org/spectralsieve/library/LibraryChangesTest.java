@@ -7,12 +7,7 @@ import static org.spectralsieve.library.LibraryGenerationTest.sample;
 
 import java.util.List;
 import java.util.Set;
-import java.util.UUID;
-import org.flywaydb.core.Flyway;
-import org.h2.jdbcx.JdbcDataSource;
 import org.jooq.DSLContext;
-import org.jooq.SQLDialect;
-import org.jooq.impl.DSL;
 import org.junit.jupiter.api.BeforeEach;
 import org.junit.jupiter.api.Test;
 
@@ -28,10 +23,7 @@ class LibraryChangesTest {
 
     @BeforeEach
     void migrateFreshDatabase() {
-        JdbcDataSource ds = new JdbcDataSource();
-        ds.setURL("jdbc:h2:mem:" + UUID.randomUUID() + ";DB_CLOSE_DELAY=-1");
-        Flyway.configure().dataSource(ds).load().migrate();
-        db = DSL.using(ds, SQLDialect.H2);
+        db = MigratedDatabase.freshH2();
         library = new JooqLibraryRepository(db);
         revisions = new JooqLibraryRevisions(db);
     }

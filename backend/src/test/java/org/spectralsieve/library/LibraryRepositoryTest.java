@@ -8,12 +8,7 @@ import static org.spectralsieve.library.db.Tables.SAMPLE;
 import java.time.LocalDate;
 import java.util.List;
 import java.util.Random;
-import java.util.UUID;
-import org.flywaydb.core.Flyway;
-import org.h2.jdbcx.JdbcDataSource;
 import org.jooq.DSLContext;
-import org.jooq.SQLDialect;
-import org.jooq.impl.DSL;
 import org.junit.jupiter.api.BeforeEach;
 import org.junit.jupiter.api.Test;
 import org.spectralsieve.optics.ConstantIndex;
@@ -29,10 +24,7 @@ class LibraryRepositoryTest {
 
     @BeforeEach
     void migrateFreshDatabase() {
-        JdbcDataSource ds = new JdbcDataSource();
-        ds.setURL("jdbc:h2:mem:" + UUID.randomUUID() + ";DB_CLOSE_DELAY=-1");
-        Flyway.configure().dataSource(ds).load().migrate();
-        db = DSL.using(ds, SQLDialect.H2);
+        db = MigratedDatabase.freshH2();
         library = new JooqLibraryRepository(db);
     }
 

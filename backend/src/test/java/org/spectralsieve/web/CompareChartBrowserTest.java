@@ -3,18 +3,12 @@ package org.spectralsieve.web;
 import static org.assertj.core.api.Assertions.assertThat;
 
 import java.io.IOException;
-import java.nio.file.Files;
-import java.nio.file.Path;
-import java.time.Duration;
 import java.util.List;
 import org.junit.jupiter.api.AfterAll;
 import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
 import org.openqa.selenium.By;
 import org.openqa.selenium.JavascriptExecutor;
-import org.openqa.selenium.OutputType;
-import org.openqa.selenium.StaleElementReferenceException;
-import org.openqa.selenium.TakesScreenshot;
 import org.openqa.selenium.WebDriver;
 import org.openqa.selenium.WebElement;
 import org.openqa.selenium.support.ui.WebDriverWait;
@@ -31,9 +25,7 @@ import org.springframework.test.context.TestPropertySource;
 @TestPropertySource(properties = "spring.datasource.url=jdbc:h2:mem:browser-compare;DB_CLOSE_DELAY=-1")
 class CompareChartBrowserTest {
 
-    private static final Path OUTPUT = HeadlessChromium.OUTPUT;
-    private static final Duration PATIENCE = Duration.ofSeconds(30);
-
+    private static PageBrowser page;
     private static WebDriver driver;
     private static WebDriverWait wait;
 
@@ -42,16 +34,15 @@ class CompareChartBrowserTest {
 
     @BeforeAll
     static void startBrowser() throws IOException {
-        HeadlessChromium.assumeInstalled();
-        driver = HeadlessChromium.start();
-        wait = new WebDriverWait(driver, PATIENCE);
-        wait.ignoring(StaleElementReferenceException.class);
+        page = PageBrowser.startOrSkip();
+        driver = page.driver();
+        wait = page.waiting();
     }
 
     @AfterAll
     static void stopBrowser() {
-        if (driver != null) {
-            driver.quit();
+        if (page != null) {
+            page.close();
         }
     }
 
@@ -81,7 +72,7 @@ class CompareChartBrowserTest {
         assertThat(clauses).extracting(c -> c.getDomAttribute("data-direction")).containsExactly("pass", "block");
         assertThat(clauses.get(0).getText()).contains("365 nm").contains("arrow up");
         assertThat(clauses.get(1).getText()).contains("405 nm").contains("arrow down");
-        screenshotOf("compare-1-top-three");
+        page.screenshot("compare-1-top-three", "compare");
 
         // the OD axis redraws the same three curves
         new org.openqa.selenium.support.ui.Select(driver.findElement(By.id("compare-axis"))).selectByValue("od");
@@ -90,7 +81,7 @@ class CompareChartBrowserTest {
         // OD rises as T falls: "passes" (T at least) now points down the page, "blocks" up
         wait.until(d -> d.findElements(By.cssSelector("#compare-clauses li")).get(0).getText().contains("arrow down"));
         assertThat(texts("#compare-clauses li").get(1)).contains("arrow up");
-        screenshotOf("compare-2-top-three-od");
+        page.screenshot("compare-2-top-three-od", "compare");
     }
 
     @Test
@@ -110,7 +101,7 @@ class CompareChartBrowserTest {
         driver.findElement(By.id("compare-add")).click();
         waitForSeries(4);
         assertThat(texts("#compare-key li").get(3)).startsWith("4. " + name).contains("added");
-        screenshotOf("compare-3-band-and-added");
+        page.screenshot("compare-3-band-and-added", "compare");
     }
 
     @Test
@@ -121,7 +112,7 @@ class CompareChartBrowserTest {
         List<WebElement> clauses = driver.findElements(By.cssSelector("#compare-clauses li"));
         assertThat(clauses).extracting(c -> c.getDomAttribute("data-clause-kind")).containsExactly("weighted");
         assertThat(clauses.get(0).getText()).contains("led-395").containsPattern("emitter band \\d+–\\d+ nm");
-        screenshotOf("compare-5-weighted");
+        page.screenshot("compare-5-weighted", "compare");
     }
 
     @Test
@@ -137,11 +128,11 @@ class CompareChartBrowserTest {
         waitForSeries(20);
         assertThat(driver.findElements(By.cssSelector("#compare-chart .u-legend tr.u-series"))).hasSize(21);
         assertThat(texts("#compare-key li")).hasSize(20);
-        screenshotOf("compare-4-twenty-curves");
+        page.screenshot("compare-4-twenty-curves", "compare");
     }
 
     private void search(String requirement, int limit) {
-        driver.get("http://localhost:" + port + "/");
+        page.load(port, "/");
         WebElement text = driver.findElement(By.id("requirement-text"));
         WebElement limitBox = driver.findElement(By.id("search-limit"));
         limitBox.clear();
@@ -163,11 +154,5 @@ class CompareChartBrowserTest {
 
     private List<String> texts(String css) {
         return driver.findElements(By.cssSelector(css)).stream().map(WebElement::getText).toList();
-    }
-
-    private void screenshotOf(String name) throws IOException {
-        ((JavascriptExecutor) driver).executeScript("document.getElementById('compare').scrollIntoView({block: 'start'})");
-        byte[] png = ((TakesScreenshot) driver).getScreenshotAs(OutputType.BYTES);
-        Files.write(Files.createDirectories(OUTPUT).resolve(name + ".png"), png);
     }
 }

@@ -34,6 +34,7 @@ import org.springframework.test.context.TestPropertySource;
 @ExtendWith(OutputCaptureExtension.class)
 class CrossSiteWriteBrowserTest {
 
+    private static PageBrowser page;
     private static WebDriver driver;
     private static HttpServer otherSite;
 
@@ -45,8 +46,8 @@ class CrossSiteWriteBrowserTest {
 
     @BeforeAll
     static void start() throws IOException {
-        HeadlessChromium.assumeInstalled();
-        driver = HeadlessChromium.start();
+        page = PageBrowser.startOrSkip();
+        driver = page.driver();
         driver.manage().timeouts().scriptTimeout(Duration.ofSeconds(30));
         // another origin on this machine: 127.0.0.1 on its own port, while the tool is opened as localhost
         otherSite = HttpServer.create(new InetSocketAddress(InetAddress.getLoopbackAddress(), 0), 0);
@@ -62,8 +63,8 @@ class CrossSiteWriteBrowserTest {
 
     @AfterAll
     static void stop() {
-        if (driver != null) {
-            driver.quit();
+        if (page != null) {
+            page.close();
         }
         if (otherSite != null) {
             otherSite.stop(0);

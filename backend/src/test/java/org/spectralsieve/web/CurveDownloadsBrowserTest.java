@@ -3,16 +3,12 @@ package org.spectralsieve.web;
 import static org.assertj.core.api.Assertions.assertThat;
 
 import java.io.IOException;
-import java.nio.file.Files;
-import java.time.Duration;
 import java.util.List;
 import org.junit.jupiter.api.AfterAll;
 import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
 import org.openqa.selenium.By;
 import org.openqa.selenium.JavascriptExecutor;
-import org.openqa.selenium.OutputType;
-import org.openqa.selenium.StaleElementReferenceException;
 import org.openqa.selenium.WebDriver;
 import org.openqa.selenium.WebElement;
 import org.openqa.selenium.support.ui.WebDriverWait;
@@ -28,10 +24,10 @@ import org.springframework.test.context.TestPropertySource;
 @TestPropertySource(properties = "spring.datasource.url=jdbc:h2:mem:browser-downloads;DB_CLOSE_DELAY=-1")
 class CurveDownloadsBrowserTest {
 
-    private static final Duration PATIENCE = Duration.ofSeconds(30);
     /** A bulk plastic of the demo library, measured at two thicknesses: it can be rescaled. */
     private static final String ACRYLIC = "UV-transmitting cast acrylic, lamp-cover grade";
 
+    private static PageBrowser page;
     private static WebDriver driver;
     private static WebDriverWait wait;
 
@@ -40,27 +36,22 @@ class CurveDownloadsBrowserTest {
 
     @BeforeAll
     static void startBrowser() throws IOException {
-        HeadlessChromium.assumeInstalled();
-        driver = HeadlessChromium.start();
-        wait = new WebDriverWait(driver, PATIENCE);
-        wait.ignoring(StaleElementReferenceException.class);
+        page = PageBrowser.startOrSkip();
+        driver = page.driver();
+        wait = page.waiting();
     }
 
     @AfterAll
     static void stopBrowser() {
-        if (driver != null) {
-            driver.quit();
+        if (page != null) {
+            page.close();
         }
     }
 
     @Test
     void everyDrawnCurveDownloadsAsCsvAndJcampAndTheRescaledOneAtItsThickness() throws Exception {
-        driver.get("http://localhost:" + port + "/");
-        WebElement row = wait.until(d -> d.findElements(By.cssSelector("#material-table tr[data-material-id]"))
-                .stream().filter(r -> r.findElement(By.cssSelector("td")).getText().startsWith(ACRYLIC))
-                .findFirst().orElse(null));
-        row.click();
-        wait.until(d -> d.findElement(By.id("detail-name")).getText().startsWith(ACRYLIC));
+        page.open(port, "/");
+        page.openMaterialFromLibrary(ACRYLIC);
         int samples = wait.until(d -> {
             int n = d.findElements(By.cssSelector("#curve-downloads li")).size();
             return n > 0 ? n : null;
@@ -99,10 +90,7 @@ class CurveDownloadsBrowserTest {
         List<String> saved = (List<String>) wait.until(d -> js.executeScript("return window.__saved"));
         assertThat(saved.get(0)).endsWith(".png").startsWith("UV-transmitting-cast-acrylic");
         assertThat(saved.get(1)).startsWith("data:image/png;base64,");
-        WebElement chart = driver.findElement(By.id("curve-chart"));
-        js.executeScript("arguments[0].scrollIntoView({block: 'start'})", chart);
-        Files.write(Files.createDirectories(HeadlessChromium.OUTPUT).resolve("downloads-1-material.png"),
-                driver.findElement(By.cssSelector(".curve-downloads")).getScreenshotAs(OutputType.BYTES));
+        page.screenshotOfElement("downloads-1-material", driver.findElement(By.cssSelector(".curve-downloads")));
     }
 
     /** The body the page's link leads to, fetched by the page itself (same origin). */

@@ -5,7 +5,6 @@ import static org.assertj.core.api.Assertions.assertThat;
 import java.io.IOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
-import java.time.Duration;
 import java.util.List;
 import java.util.zip.ZipEntry;
 import java.util.zip.ZipOutputStream;
@@ -16,11 +15,7 @@ import org.junit.jupiter.api.BeforeEach;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.openqa.selenium.By;
-import org.openqa.selenium.Dimension;
 import org.openqa.selenium.JavascriptExecutor;
-import org.openqa.selenium.OutputType;
-import org.openqa.selenium.StaleElementReferenceException;
-import org.openqa.selenium.TakesScreenshot;
 import org.openqa.selenium.WebDriver;
 import org.openqa.selenium.WebElement;
 import org.openqa.selenium.support.ui.Select;
@@ -42,14 +37,13 @@ import org.springframework.test.context.TestPropertySource;
 @TestPropertySource(properties = "spring.datasource.url=jdbc:h2:mem:browser-import;DB_CLOSE_DELAY=-1")
 class ImportPageBrowserTest {
 
-    private static final Path OUTPUT = HeadlessChromium.OUTPUT;
-    private static final Duration PATIENCE = Duration.ofSeconds(30);
     /**
      * A measured 2 mm long-pass filter glass (reference-data SOURCES.md §8). ReferenceFileOutcomesTest lists it as
      * stored with warnings, among them the instrument floor at 0.01 %T, which the preview must show before storing.
      */
     private static final String MEASURED_SHEET = "longpass-filter-glass-295nm-2mm.csv";
 
+    private static PageBrowser page;
     private static WebDriver driver;
     private static WebDriverWait wait;
 
@@ -61,31 +55,26 @@ class ImportPageBrowserTest {
 
     @BeforeAll
     static void startBrowser() throws IOException {
-        HeadlessChromium.assumeInstalled();
-        driver = HeadlessChromium.start();
-        wait = new WebDriverWait(driver, PATIENCE);
-        wait.ignoring(StaleElementReferenceException.class);
+        page = PageBrowser.startOrSkip();
+        driver = page.driver();
+        wait = page.waiting();
     }
 
     @AfterAll
     static void stopBrowser() {
-        if (driver != null) {
-            driver.quit();
+        if (page != null) {
+            page.close();
         }
     }
 
     @BeforeEach
     void wideWindow() {
-        driver.manage().window().setSize(new Dimension(1280, 1300));
+        page.resize(1280, 1300);
     }
 
     @AfterEach
     void noPageWideMessage() {
-        List<WebElement> messages = driver.findElements(By.id("message"));
-        if (!messages.isEmpty()) {
-            assertThat(messages.get(0).isDisplayed()).as("page message stays hidden, but shows: %s",
-                    messages.get(0).getText()).isFalse();
-        }
+        page.assertNoPageMessage();
     }
 
     @Test
@@ -220,7 +209,7 @@ class ImportPageBrowserTest {
 
     @Test
     void atThreeHundredNinetyPixelsThePanelFitsWithoutSidewaysScrolling() throws Exception {
-        driver.manage().window().setSize(new Dimension(390, 1000));
+        page.resize(390, 1000);
         Path good = Files.writeString(temp.resolve("fernhollow-narrow.csv"), goodCsv());
         openPage();
         WebElement card = addFile(good);
@@ -245,7 +234,7 @@ class ImportPageBrowserTest {
 
     private void openPage() {
         driver.get("about:blank");
-        driver.get("http://localhost:" + port + "/");
+        page.load(port, "/");
         wait.until(d -> !d.findElement(By.id("material-count")).getText().equals("Loading…"));
     }
 
@@ -273,8 +262,7 @@ class ImportPageBrowserTest {
 
     /** The viewport only is captured; the element is brought into it first. */
     private void screenshot(String name, WebElement element) throws IOException {
-        ((JavascriptExecutor) driver).executeScript("arguments[0].scrollIntoView({block: 'start'})", element);
-        byte[] png = ((TakesScreenshot) driver).getScreenshotAs(OutputType.BYTES);
-        Files.write(Files.createDirectories(OUTPUT).resolve(name + ".png"), png);
+        page.script("arguments[0].scrollIntoView({block: 'start'})", element);
+        page.screenshot(name);
     }
 }

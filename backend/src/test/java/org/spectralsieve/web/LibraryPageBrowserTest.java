@@ -3,9 +3,6 @@ package org.spectralsieve.web;
 import static org.assertj.core.api.Assertions.assertThat;
 
 import java.io.IOException;
-import java.nio.file.Files;
-import java.nio.file.Path;
-import java.time.Duration;
 import java.util.List;
 import java.util.function.IntPredicate;
 import org.junit.jupiter.api.AfterEach;
@@ -13,11 +10,7 @@ import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.BeforeEach;
 import org.junit.jupiter.api.Test;
 import org.openqa.selenium.By;
-import org.openqa.selenium.JavascriptExecutor;
 import org.openqa.selenium.Keys;
-import org.openqa.selenium.OutputType;
-import org.openqa.selenium.StaleElementReferenceException;
-import org.openqa.selenium.TakesScreenshot;
 import org.openqa.selenium.WebDriver;
 import org.openqa.selenium.WebElement;
 import java.util.LinkedHashMap;
@@ -37,15 +30,13 @@ import org.springframework.test.context.TestPropertySource;
 @TestPropertySource(properties = "spring.datasource.url=jdbc:h2:mem:browser;DB_CLOSE_DELAY=-1")
 class LibraryPageBrowserTest {
 
-    private static final Path OUTPUT = HeadlessChromium.OUTPUT;
-
     /** The demo library holds more than this many materials; fewer means seeding did not happen. */
     private static final int MIN_DEMO_MATERIALS = 40;
-    private static final Duration PATIENCE = Duration.ofSeconds(30);
 
     @LocalServerPort
     private int port;
 
+    private PageBrowser page;
     private WebDriver driver;
     private WebDriverWait wait;
 
@@ -57,28 +48,27 @@ class LibraryPageBrowserTest {
 
     @BeforeEach
     void startBrowser() throws IOException {
-        driver = HeadlessChromium.start();
-        wait = new WebDriverWait(driver, PATIENCE);
-        // The page replaces table rows and the chart as answers arrive; a stale element means "look again".
-        wait.ignoring(StaleElementReferenceException.class);
+        page = PageBrowser.startOrSkip();
+        driver = page.driver();
+        wait = page.waiting();
     }
 
     @AfterEach
     void stopBrowser() {
-        if (driver != null) {
-            driver.quit();
+        if (page != null) {
+            page.close();
         }
     }
 
     @Test
     void libraryPageFiltersOpensAMaterialSwitchesToOpticalDensityAndDrawsARescaledCurve() throws IOException {
-        driver.get("http://localhost:" + port + "/");
+        page.load(port, "/");
 
         int all = waitForRowCount(n -> n >= MIN_DEMO_MATERIALS, "at least " + MIN_DEMO_MATERIALS + " materials");
         assertThat(all).isGreaterThanOrEqualTo(MIN_DEMO_MATERIALS);
         assertThat(driver.findElement(By.tagName("footer")).getText())
                 .contains("UV sources harm eyes and skin.");
-        screenshot("1-library");
+        page.screenshot("1-library", "curve-chart");
 
         // Ticking one class leaves fewer rows, all of that class.
         List<WebElement> classBoxes = facetBoxes("class");
@@ -101,23 +91,23 @@ class LibraryPageBrowserTest {
         assertThat(detail.findElements(By.cssSelector("#sample-table tbody tr"))).isNotEmpty();
         assertThat(detail.findElements(By.cssSelector("#sample-table a[href$='/curve.csv']"))).isNotEmpty();
         wait.until(d -> !d.findElements(By.cssSelector("#curve-chart canvas")).isEmpty());
-        int measuredSeries = waitForLegend(n -> n >= 1, "at least one curve in the legend").size();
-        screenshot("2-detail-linear");
+        int measuredSeries = page.waitForLegend(n -> n >= 1, "at least one curve in the legend").size();
+        page.screenshot("2-detail-linear", "curve-chart");
 
         // Optical density axis: the chart is drawn anew on the other scale.
         new Select(driver.findElement(By.id("axis-mode"))).selectByValue("od");
         wait.until(d -> "od".equals(d.findElement(By.id("curve-chart")).getDomAttribute("data-axis-mode")));
         assertThat(driver.findElements(By.cssSelector("#curve-chart canvas"))).isNotEmpty();
-        screenshot("3-detail-od");
+        page.screenshot("3-detail-od", "curve-chart");
 
         // Rescale: a further series appears, named for the new thickness, still on the OD axis.
         WebElement thickness = driver.findElement(By.id("rescale-mm"));
         assertThat(thickness.isEnabled()).as("rescale box enabled for a bulk material").isTrue();
         thickness.sendKeys("5", Keys.ENTER);
-        List<String> legend = waitForLegend(n -> n > measuredSeries, "a rescaled series added to the legend");
+        List<String> legend = page.waitForLegend(n -> n > measuredSeries, "a rescaled series added to the legend");
         assertThat(legend).anyMatch(label -> label.startsWith("rescaled to 5 mm"));
         assertThat(driver.findElement(By.id("curve-chart")).getDomAttribute("data-axis-mode")).isEqualTo("od");
-        screenshot("4-rescaled-od");
+        page.screenshot("4-rescaled-od", "curve-chart");
 
         WebElement message = driver.findElement(By.id("message"));
         assertThat(message.isDisplayed()).as("error area stays hidden, but shows: %s", message.getText()).isFalse();
@@ -125,7 +115,7 @@ class LibraryPageBrowserTest {
 
     @Test
     void typedWordsNarrowTheListAndTickedValuesCountDrillSideways() throws IOException {
-        driver.get("http://localhost:" + port + "/");
+        page.load(port, "/");
         int all = waitForRowCount(n -> n >= MIN_DEMO_MATERIALS, "at least " + MIN_DEMO_MATERIALS + " materials");
 
         // A word still being typed finds what it begins (docs/library-search.md): acryl -> acrylic.
@@ -139,7 +129,7 @@ class LibraryPageBrowserTest {
         assertThat(classCounts.values().stream().mapToInt(Integer::intValue).sum()).isEqualTo(hits);
         assertThat(driver.findElement(By.cssSelector(".facet[data-dimension='class'] .facet-value")).getText())
                 .as("count shown beside the value").matches(".+ \\(\\d+\\)");
-        screenshot("6-words-acryl");
+        page.screenshot("6-words-acryl", "curve-chart");
 
         // Tick the class with the most hits: the list holds exactly its count, its own group keeps its
         // counts (drill sideways), and no value of another group counts more than the list holds.
@@ -159,7 +149,7 @@ class LibraryPageBrowserTest {
                     .isNotEmpty().allMatch(count -> count <= expected).anyMatch(count -> count > 0);
         }
         assertThat(facetBox("class", biggest).isSelected()).isTrue();
-        screenshot("7-class-ticked");
+        page.screenshot("7-class-ticked", "curve-chart");
 
         WebElement message = driver.findElement(By.id("message"));
         assertThat(message.isDisplayed()).as("error area stays hidden, but shows: %s", message.getText()).isFalse();
@@ -167,7 +157,7 @@ class LibraryPageBrowserTest {
 
     @Test
     void unknownMaterialShowsTheServersProblemDetailInTheMessageArea() throws IOException {
-        driver.get("http://localhost:" + port + "/#material=987654321");
+        page.load(port, "/#material=987654321");
 
         WebElement message = driver.findElement(By.id("message"));
         wait.withMessage("waiting for the 404 problem detail to be shown");
@@ -175,7 +165,7 @@ class LibraryPageBrowserTest {
         // The page quotes the problem's detail, which names the missing id; no HTTP status code.
         assertThat(message.getText()).contains("987654321").doesNotContain("(404)");
         assertThat(driver.findElement(By.id("material-detail")).isDisplayed()).isFalse();
-        screenshot("5-unknown-material");
+        page.screenshot("5-unknown-material", "curve-chart");
     }
 
     private List<WebElement> facetBoxes(String dimension) {
@@ -214,28 +204,5 @@ class LibraryPageBrowserTest {
 
     private boolean allRowsHaveClass(String materialClass) {
         return rows().stream().allMatch(r -> materialClass.equals(r.findElements(By.tagName("td")).get(1).getText()));
-    }
-
-    /** Labels of the chart's data series (the wavelength column of the legend left out). */
-    private List<String> waitForLegend(IntPredicate condition, String what) {
-        wait.withMessage(() -> "waiting for " + what + "; legend now: " + legendLabels());
-        wait.until(d -> condition.test(legendLabels().size()));
-        return legendLabels();
-    }
-
-    private List<String> legendLabels() {
-        List<String> labels = driver.findElements(By.cssSelector("#curve-chart .u-legend .u-series .u-label"))
-                .stream().map(e -> e.getDomProperty("textContent")).toList();
-        return labels.isEmpty() ? labels : labels.subList(1, labels.size());
-    }
-
-    private void screenshot(String name) throws IOException {
-        List<WebElement> chart = driver.findElements(By.cssSelector("#curve-chart canvas"));
-        if (!chart.isEmpty() && chart.get(0).isDisplayed()) {
-            // Screenshots show the viewport only; bring the chart into it.
-            ((JavascriptExecutor) driver).executeScript("arguments[0].scrollIntoView({block: 'center'})", chart.get(0));
-        }
-        byte[] png = ((TakesScreenshot) driver).getScreenshotAs(OutputType.BYTES);
-        Files.write(Files.createDirectories(OUTPUT).resolve(name + ".png"), png);
     }
 }

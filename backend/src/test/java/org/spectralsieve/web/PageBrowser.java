@@ -13,6 +13,7 @@ import java.nio.file.Files;
 import java.nio.file.Path;
 import java.time.Duration;
 import java.util.List;
+import java.util.function.IntPredicate;
 import org.openqa.selenium.By;
 import org.openqa.selenium.Dimension;
 import org.openqa.selenium.JavascriptExecutor;
@@ -22,6 +23,8 @@ import org.openqa.selenium.TakesScreenshot;
 import org.openqa.selenium.WebDriver;
 import org.openqa.selenium.WebElement;
 import org.openqa.selenium.support.ui.WebDriverWait;
+import tools.jackson.databind.JsonNode;
+import tools.jackson.databind.json.JsonMapper;
 
 /**
  * One headless Chromium for a page test class, with the steps every page test takes: open the page, wait for the
@@ -35,6 +38,7 @@ final class PageBrowser implements AutoCloseable {
     /** Long enough for a cold server on a loaded two-core machine; a passing step returns at once. */
     static final Duration PATIENCE = Duration.ofSeconds(30);
     private static final HttpClient HTTP = HttpClient.newHttpClient();
+    private static final JsonMapper JSON = JsonMapper.builder().build();
 
     private final WebDriver driver;
     private final WebDriverWait wait;
@@ -190,5 +194,60 @@ final class PageBrowser implements AutoCloseable {
     @Override
     public void close() {
         driver.quit();
+    }
+
+    // ---------- steps several page tests share (moved here from the test classes) ----------
+
+    /** Goes to {@code pathAndQuery} on the test server and waits for nothing (the test waits for what it needs). */
+    void load(int port, String pathAndQuery) {
+        driver.get("http://localhost:" + port + pathAndQuery);
+    }
+
+    /** Labels of the material chart's data series (the legend's wavelength column left out). */
+    List<String> legendLabels() {
+        List<String> labels = driver.findElements(By.cssSelector("#curve-chart .u-legend .u-series .u-label"))
+                .stream().map(e -> e.getDomProperty("textContent")).toList();
+        return labels.isEmpty() ? labels : labels.subList(1, labels.size());
+    }
+
+    /** Waits until the number of the chart's data series satisfies {@code condition}; answers their labels. */
+    List<String> waitForLegend(IntPredicate condition, String what) {
+        wait.withMessage(() -> "waiting for " + what + "; legend now: " + legendLabels());
+        wait.until(d -> condition.test(legendLabels().size()));
+        return legendLabels();
+    }
+
+    /** The page-wide message area stays hidden; nothing to check when no page was opened (a skipped test). */
+    void assertNoPageMessage() {
+        List<WebElement> messages = driver.findElements(By.id("message"));
+        if (!messages.isEmpty()) {
+            assertThat(messages.get(0).isDisplayed()).as("page message stays hidden, but shows: %s",
+                    messages.get(0).getText()).isFalse();
+        }
+    }
+
+    /** Saves the viewport, scrolled to the top of the page, as {@code target/browser-test/<name>.png}. */
+    Path screenshotOfTop(String name) throws IOException {
+        script("window.scrollTo(0, 0)");
+        return screenshot(name);
+    }
+
+    /** Saves only {@code element} (brought into view first) as {@code target/browser-test/<name>.png}. */
+    Path screenshotOfElement(String name, WebElement element) throws IOException {
+        script("arguments[0].scrollIntoView({block: 'start'})", element);
+        byte[] png = element.getScreenshotAs(OutputType.BYTES);
+        return Files.write(Files.createDirectories(HeadlessChromium.OUTPUT).resolve(name + ".png"), png);
+    }
+
+    /** GETs {@code path} from the test server, which must answer 200 (else the failure shows the answer). */
+    static HttpResponse<String> getOk(int port, String path) throws IOException, InterruptedException {
+        HttpResponse<String> answer = get(port, path);
+        assertThat(answer.statusCode()).as(path + " -> " + answer.body()).isEqualTo(200);
+        return answer;
+    }
+
+    /** GETs {@code path} from the test server, which must answer 200, and reads the answer as JSON. */
+    static JsonNode getJson(int port, String path) throws IOException, InterruptedException {
+        return JSON.readTree(getOk(port, path).body());
     }
 }

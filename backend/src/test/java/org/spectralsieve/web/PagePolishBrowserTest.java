@@ -4,11 +4,7 @@ import static org.assertj.core.api.Assertions.assertThat;
 
 import java.io.IOException;
 import java.net.URI;
-import java.net.http.HttpClient;
-import java.net.http.HttpRequest;
 import java.net.http.HttpResponse;
-import java.nio.file.Files;
-import java.time.Duration;
 import java.util.ArrayList;
 import java.util.List;
 import org.junit.jupiter.api.AfterAll;
@@ -17,9 +13,6 @@ import org.junit.jupiter.api.Test;
 import org.openqa.selenium.By;
 import org.openqa.selenium.JavascriptExecutor;
 import org.openqa.selenium.Keys;
-import org.openqa.selenium.OutputType;
-import org.openqa.selenium.StaleElementReferenceException;
-import org.openqa.selenium.TakesScreenshot;
 import org.openqa.selenium.WebDriver;
 import org.openqa.selenium.WebElement;
 import org.openqa.selenium.support.ui.Select;
@@ -28,7 +21,6 @@ import org.springframework.boot.test.context.SpringBootTest;
 import org.springframework.boot.test.web.server.LocalServerPort;
 import org.springframework.test.context.TestPropertySource;
 import tools.jackson.databind.JsonNode;
-import tools.jackson.databind.json.JsonMapper;
 
 /**
  * The page's finish (docs/page-polish.md) in headless Chromium against the whole application and its
@@ -39,12 +31,10 @@ import tools.jackson.databind.json.JsonMapper;
 @TestPropertySource(properties = "spring.datasource.url=jdbc:h2:mem:browser-polish;DB_CLOSE_DELAY=-1")
 class PagePolishBrowserTest {
 
-    private static final Duration PATIENCE = Duration.ofSeconds(30);
-    private static final HttpClient HTTP = HttpClient.newHttpClient();
-    private static final JsonMapper JSON = JsonMapper.builder().build();
     /** A bulk plastic of the demo library: it can be rescaled. */
     private static final String ACRYLIC = "UV-transmitting cast acrylic, lamp-cover grade";
 
+    private static PageBrowser page;
     private static WebDriver driver;
     private static WebDriverWait wait;
 
@@ -53,23 +43,22 @@ class PagePolishBrowserTest {
 
     @BeforeAll
     static void startBrowser() throws IOException {
-        HeadlessChromium.assumeInstalled();
-        driver = HeadlessChromium.start();
-        wait = new WebDriverWait(driver, PATIENCE);
-        wait.ignoring(StaleElementReferenceException.class);
+        page = PageBrowser.startOrSkip();
+        driver = page.driver();
+        wait = page.waiting();
     }
 
     @AfterAll
     static void stopBrowser() {
-        if (driver != null) {
-            driver.quit();
+        if (page != null) {
+            page.close();
         }
     }
 
     @Test
     void figuresAreUnweightedByDefaultAndTheSolarListHoldsOnlySunlight() throws Exception {
-        loadPage();
-        openMaterial(ACRYLIC);
+        page.load(port, "/");
+        page.openMaterialFromLibrary(ACRYLIC);
         WebElement status = driver.findElement(By.id("figures-status"));
         wait.until(d -> status.getText().contains("led-365 × flat"));
         assertThat(new Select(driver.findElement(By.id("figure-response"))).getFirstSelectedOption()
@@ -80,7 +69,7 @@ class PagePolishBrowserTest {
 
         // The picker offers exactly the emitters the server marks as sunlight, never an LED, lamp or "flat".
         List<String> solarFromApi = new ArrayList<>();
-        for (JsonNode e : getJson("/api/emitters").path("emitters")) {
+        for (JsonNode e : PageBrowser.getJson(port, "/api/emitters").path("emitters")) {
             if (e.path("solar").asBoolean()) {
                 solarFromApi.add(e.path("name").asString());
             }
@@ -94,12 +83,12 @@ class PagePolishBrowserTest {
         // Without a solar spectrum the UPF says so in words, not in API syntax.
         String figures = driver.findElement(By.id("figures-table")).getText();
         assertThat(figures).contains("reference solar spectrum must be named").doesNotContain("solar=");
-        screenshot("polish-1-figures-defaults", "weighted-figures");
+        page.screenshotOfElement("polish-1-figures-defaults", driver.findElement(By.id("weighted-figures")));
     }
 
     @Test
     void aFailedSearchShowsOneMessageBesideTheTextAndNoEarlierResults() throws Exception {
-        loadPage();
+        page.load(port, "/");
         WebElement text = driver.findElement(By.id("requirement-text"));
         text.sendKeys("passes over 80% at 254 nm", Keys.ENTER);
         wait.until(d -> !d.findElements(By.cssSelector("#results-table tr[data-result-material-id]")).isEmpty());
@@ -120,13 +109,13 @@ class PagePolishBrowserTest {
         assertThat(driver.findElements(By.cssSelector("#results-table tr[data-result-material-id]"))).isEmpty();
         assertThat(driver.findElement(By.id("results-table")).isDisplayed()).isFalse();
         assertThat(driver.findElement(By.tagName("body")).getText()).doesNotContain("(400)");
-        screenshot("polish-2-failed-search", null);
+        page.screenshotOfTop("polish-2-failed-search");
     }
 
     @Test
     void aRefusedRescaleIsShownBesideItsButtonAndGoesAfterASuccess() throws Exception {
-        loadPage();
-        openMaterial(ACRYLIC);
+        page.load(port, "/");
+        page.openMaterialFromLibrary(ACRYLIC);
         WebElement mm = driver.findElement(By.id("rescale-mm"));
         WebElement error = driver.findElement(By.id("rescale-error"));
         // beyond the largest thickness the server rescales to (1000 mm): refused by the server
@@ -135,7 +124,7 @@ class PagePolishBrowserTest {
         assertThat(error.getText()).startsWith("Not rescaled:").contains("1000").doesNotContain("thicknessMm");
         assertThat(driver.findElement(By.id("message")).isDisplayed()).as("no banner far from the button").isFalse();
         assertThat(driver.findElement(By.tagName("body")).getText()).doesNotContain("(400)");
-        screenshot("polish-3-rescale-refused", "material-detail");
+        page.screenshotOfElement("polish-3-rescale-refused", driver.findElement(By.id("material-detail")));
 
         mm.clear();
         mm.sendKeys("5", Keys.ENTER);
@@ -147,8 +136,8 @@ class PagePolishBrowserTest {
 
     @Test
     void theChartOffersARangeAResetAndSaysHowToZoom() throws Exception {
-        loadPage();
-        openMaterial(ACRYLIC);
+        page.load(port, "/");
+        page.openMaterialFromLibrary(ACRYLIC);
         wait.until(d -> !d.findElements(By.cssSelector("#curve-chart canvas")).isEmpty());
         assertThat(driver.findElement(By.id("zoom-hint")).getText()).contains("Drag").contains("Reset view");
         driver.findElement(By.cssSelector("[data-range-preset='0-10']")).click();
@@ -158,7 +147,7 @@ class PagePolishBrowserTest {
         to.clear();
         to.sendKeys("0", Keys.TAB);
         wait.until(d -> d.findElement(By.id("range-error")).isDisplayed());
-        screenshot("polish-4-chart-range", "material-detail");
+        page.screenshotOfElement("polish-4-chart-range", driver.findElement(By.id("material-detail")));
         driver.findElement(By.id("chart-reset")).click();
         assertThat(driver.findElement(By.id("range-error")).isDisplayed()).isFalse();
         assertThat(to.getDomProperty("value")).isEmpty();
@@ -166,12 +155,12 @@ class PagePolishBrowserTest {
         new Select(driver.findElement(By.id("axis-mode"))).selectByValue("od");
         wait.until(d -> "od".equals(d.findElement(By.id("curve-chart")).getDomAttribute("data-axis-mode")));
         assertThat(driver.findElement(By.id("linear-range")).isDisplayed()).as("range is for the linear axis").isFalse();
-        screenshot("polish-5-chart-od", "material-detail");
+        page.screenshotOfElement("polish-5-chart-od", driver.findElement(By.id("material-detail")));
     }
 
     @Test
     void longFloatsInServerMessagesAreWrittenWithFourSignificantDigits() {
-        loadPage();
+        page.load(port, "/");
         Object tidy = ((JavascriptExecutor) driver).executeAsyncScript("""
                 const done = arguments[arguments.length - 1];
                 import('./polish.js').then((m) => done(m.tidyNumbers(
@@ -182,49 +171,12 @@ class PagePolishBrowserTest {
 
     @Test
     void theFaviconIsLinkedAndServed() throws Exception {
-        loadPage();
+        page.load(port, "/");
         WebElement icon = driver.findElement(By.cssSelector("link[rel='icon']"));
         String href = icon.getDomProperty("href");
-        HttpResponse<String> response = HTTP.send(HttpRequest.newBuilder(URI.create(href)).GET().build(),
-                HttpResponse.BodyHandlers.ofString());
+        HttpResponse<String> response = PageBrowser.get(port, URI.create(href).getRawPath());
         assertThat(response.statusCode()).isEqualTo(200);
         assertThat(response.headers().firstValue("content-type").orElse("")).contains("svg");
         assertThat(response.body()).contains("<svg");
-    }
-
-    // ---------- helpers ----------
-
-    private void loadPage() {
-        driver.get("http://localhost:" + port + "/");
-    }
-
-    private void openMaterial(String nameStart) {
-        wait.withMessage("waiting for the library row of " + nameStart);
-        WebElement row = wait.until(d -> d.findElements(By.cssSelector("#material-table tr[data-material-id]"))
-                .stream().filter(r -> r.findElement(By.cssSelector("td")).getText().startsWith(nameStart))
-                .findFirst().orElse(null));
-        row.click();
-        wait.until(d -> d.findElement(By.id("detail-name")).getText().startsWith(nameStart));
-    }
-
-    /** The element with this id (or the whole window when null), saved under target/browser-test/. */
-    private void screenshot(String name, String id) throws IOException {
-        byte[] png;
-        if (id == null) {
-            ((JavascriptExecutor) driver).executeScript("window.scrollTo(0, 0)");
-            png = ((TakesScreenshot) driver).getScreenshotAs(OutputType.BYTES);
-        } else {
-            WebElement element = driver.findElement(By.id(id));
-            ((JavascriptExecutor) driver).executeScript("arguments[0].scrollIntoView({block: 'start'})", element);
-            png = element.getScreenshotAs(OutputType.BYTES);
-        }
-        Files.write(Files.createDirectories(HeadlessChromium.OUTPUT).resolve(name + ".png"), png);
-    }
-
-    private JsonNode getJson(String path) throws Exception {
-        HttpResponse<String> response = HTTP.send(HttpRequest.newBuilder(URI.create("http://localhost:" + port + path))
-                .GET().build(), HttpResponse.BodyHandlers.ofString());
-        assertThat(response.statusCode()).as(path + " → " + response.body()).isEqualTo(200);
-        return JSON.readTree(response.body());
     }
 }

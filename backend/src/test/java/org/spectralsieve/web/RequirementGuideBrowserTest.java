@@ -3,15 +3,11 @@ package org.spectralsieve.web;
 import static org.assertj.core.api.Assertions.assertThat;
 
 import java.io.IOException;
-import java.nio.file.Files;
-import java.time.Duration;
 import java.util.List;
 import org.junit.jupiter.api.AfterAll;
 import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
 import org.openqa.selenium.By;
-import org.openqa.selenium.OutputType;
-import org.openqa.selenium.TakesScreenshot;
 import org.openqa.selenium.WebDriver;
 import org.openqa.selenium.WebElement;
 import org.openqa.selenium.support.ui.WebDriverWait;
@@ -28,6 +24,7 @@ import org.springframework.test.context.TestPropertySource;
 @TestPropertySource(properties = "spring.datasource.url=jdbc:h2:mem:api-description-test;DB_CLOSE_DELAY=-1")
 class RequirementGuideBrowserTest {
 
+    private static PageBrowser page;
     private static WebDriver driver;
     private static WebDriverWait wait;
 
@@ -36,21 +33,21 @@ class RequirementGuideBrowserTest {
 
     @BeforeAll
     static void startBrowser() throws IOException {
-        HeadlessChromium.assumeInstalled();
-        driver = HeadlessChromium.start();
-        wait = new WebDriverWait(driver, Duration.ofSeconds(30));
+        page = PageBrowser.startOrSkip();
+        driver = page.driver();
+        wait = page.waiting();
     }
 
     @AfterAll
     static void stopBrowser() {
-        if (driver != null) {
-            driver.quit();
+        if (page != null) {
+            page.close();
         }
     }
 
     @Test
     void openingTheGuideShowsItsExamplesAndTryPutsOneIntoTheRequirementBox() throws IOException {
-        driver.get("http://localhost:" + port + "/");
+        page.load(port, "/");
         WebElement summary = wait.until(d -> d.findElement(By.cssSelector("#requirement-guide > summary")));
         summary.click();
         List<WebElement> rows = wait.until(d -> {
@@ -63,7 +60,7 @@ class RequirementGuideBrowserTest {
                 "erythema");
         WebElement link = driver.findElement(By.cssSelector("#requirement-guide-body .guide-api a"));
         assertThat(link.getAttribute("href")).endsWith("/api/openapi.json");
-        screenshot("guide-1-open");
+        page.screenshot("guide-1-open");
 
         rows.get(1).findElement(By.cssSelector("button.guide-try")).click();
         WebElement box = driver.findElement(By.id("requirement-text"));
@@ -72,24 +69,18 @@ class RequirementGuideBrowserTest {
 
     @Test
     void aNarrowWindowKeepsTheOpenGuideWithoutSidewaysScrolling() throws IOException {
-        driver.manage().window().setSize(new org.openqa.selenium.Dimension(390, 900));
+        page.resize(390, 900);
         try {
-            driver.get("http://localhost:" + port + "/");
+            page.load(port, "/");
             wait.until(d -> d.findElement(By.cssSelector("#requirement-guide > summary"))).click();
             wait.until(d -> d.findElements(By.cssSelector("#requirement-guide-body .guide-forms tbody tr")).size() > 15);
-            screenshot("guide-2-narrow");
+            page.screenshot("guide-2-narrow");
             Object guideWidth = ((org.openqa.selenium.JavascriptExecutor) driver).executeScript(
                     "return document.getElementById('requirement-guide').scrollWidth"
                             + " - document.getElementById('requirement-guide').clientWidth");
             assertThat(((Number) guideWidth).intValue()).isLessThanOrEqualTo(0);
         } finally {
-            driver.manage().window().setSize(new org.openqa.selenium.Dimension(1400, 1300));
+            page.resize(1400, 1300);
         }
-    }
-
-    private static void screenshot(String name) throws IOException {
-        byte[] png = ((TakesScreenshot) driver).getScreenshotAs(OutputType.BYTES);
-        Files.createDirectories(HeadlessChromium.OUTPUT);
-        Files.write(HeadlessChromium.OUTPUT.resolve(name + ".png"), png);
     }
 }

@@ -3,19 +3,12 @@ package org.spectralsieve.web;
 import static org.assertj.core.api.Assertions.assertThat;
 
 import java.io.IOException;
-import java.nio.file.Files;
-import java.nio.file.Path;
-import java.time.Duration;
 import java.util.List;
 import org.junit.jupiter.api.AfterAll;
 import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
 import org.openqa.selenium.By;
-import org.openqa.selenium.JavascriptExecutor;
 import org.openqa.selenium.Keys;
-import org.openqa.selenium.OutputType;
-import org.openqa.selenium.StaleElementReferenceException;
-import org.openqa.selenium.TakesScreenshot;
 import org.openqa.selenium.WebDriver;
 import org.openqa.selenium.WebElement;
 import org.openqa.selenium.support.ui.WebDriverWait;
@@ -33,9 +26,7 @@ import org.springframework.test.context.TestPropertySource;
 @TestPropertySource(properties = "spring.datasource.url=jdbc:h2:mem:browser-search;DB_CLOSE_DELAY=-1")
 class RequirementSearchBrowserTest {
 
-    private static final Path OUTPUT = HeadlessChromium.OUTPUT;
-    private static final Duration PATIENCE = Duration.ofSeconds(30);
-
+    private static PageBrowser page;
     private static WebDriver driver;
     private static WebDriverWait wait;
 
@@ -44,25 +35,22 @@ class RequirementSearchBrowserTest {
 
     @BeforeAll
     static void startBrowser() throws IOException {
-        // Checked before the browser starts, so a machine without one pays nothing.
-        HeadlessChromium.assumeInstalled();
-        driver = HeadlessChromium.start();
-        wait = new WebDriverWait(driver, PATIENCE);
-        // The page replaces rows and lists as answers arrive; a stale element means "look again".
-        wait.ignoring(StaleElementReferenceException.class);
+        page = PageBrowser.startOrSkip();
+        driver = page.driver();
+        wait = page.waiting();
     }
 
     @AfterAll
     static void stopBrowser() {
-        if (driver != null) {
-            driver.quit();
+        if (page != null) {
+            page.close();
         }
     }
 
     @Test
     void searchShowsUnderstoodClausesRanksFusedSilicaFirstAtTwoFiftyFourAndFixesAMisspeltWordByOneClick()
             throws IOException {
-        driver.get("http://localhost:" + port + "/");
+        page.load(port, "/");
         WebElement text = driver.findElement(By.id("requirement-text"));
         assertThat(driver.findElements(By.cssSelector("#requirement-examples button.chip")))
                 .as("example requirements offered").isNotEmpty();
@@ -97,7 +85,7 @@ class RequirementSearchBrowserTest {
         assertThat(explained.getText()).contains("T at 254 nm is").contains("%");
         // beside each clause verdict its confidence: the demo curves carry no measurement uncertainty
         assertThat(explained.findElement(By.cssSelector(".verdict-confidence")).getText()).isEqualTo("· confidence unknown");
-        screenshot("search-1-fused-silica");
+        page.screenshotOfTop("search-1-fused-silica");
 
         // Opening a result shows the existing material detail, the rescale box set to the thickness searched.
         String silica = cells.get(1).getText();
@@ -118,7 +106,7 @@ class RequirementSearchBrowserTest {
         assertThat(error.findElement(By.cssSelector(".marked-text mark")).getText()).isEqualTo("undr");
         WebElement fix = error.findElement(By.cssSelector("button.suggestion"));
         assertThat(fix.getText()).isEqualTo("under");
-        screenshot("search-2-misspelt");
+        page.screenshotOfTop("search-2-misspelt");
 
         fix.click();
         assertThat(text.getDomProperty("value")).isEqualTo("blocks under 1% at 405 nm");
@@ -127,7 +115,7 @@ class RequirementSearchBrowserTest {
         assertThat(waitForClauses(2)).containsExactly("T ≤ 1 % at 405 nm", "thickness: as measured");
         assertThat(driver.findElement(By.id("search-caution")).getText())
                 .contains("Screening estimate from stored curves, not a certification");
-        screenshot("search-3-fixed-and-blocking");
+        page.screenshotOfTop("search-3-fixed-and-blocking");
 
         // An example written in optical density: its clause values are shown as OD, as it was written.
         String odExample = "blocks to OD 3 or more from 350 to 420 nm";
@@ -137,7 +125,7 @@ class RequirementSearchBrowserTest {
         odFirst.findElement(By.cssSelector("button.toggle")).click();
         WebElement odClause = driver.findElement(By.cssSelector("#results-table tr.result-clauses:not([hidden]) tbody td.num"));
         assertThat(odClause.getText()).startsWith("OD ");
-        screenshot("search-4-optical-density");
+        page.screenshotOfTop("search-4-optical-density");
 
         WebElement message = driver.findElement(By.id("message"));
         assertThat(message.isDisplayed()).as("error area stays hidden, but shows: %s", message.getText()).isFalse();
@@ -145,7 +133,7 @@ class RequirementSearchBrowserTest {
 
     @Test
     void aStackExampleShowsItsLayerAndAMisspeltLedNameIsReplacedWhole() throws IOException {
-        driver.get("http://localhost:" + port + "/");
+        page.load(port, "/");
         WebElement text = driver.findElement(By.id("requirement-text"));
 
         // The example for a film on a window: its clauses, the layer as a setting, the glass sample in the summary.
@@ -159,7 +147,7 @@ class RequirementSearchBrowserTest {
                 .contains("judged as a stack, behind 4 mm Clear float glass").contains("clear-float-glass, sample");
         assertThat(driver.findElement(By.id("search-caution")).isDisplayed())
                 .as("luminous transmittance is an eye-safety figure").isTrue();
-        screenshot("search-5-stack");
+        page.screenshotOfTop("search-5-stack");
 
         // A misspelt LED: both words are marked and the stored name replaces them in one click.
         text.sendKeys(Keys.chord(Keys.CONTROL, "a"), Keys.DELETE);
@@ -174,12 +162,12 @@ class RequirementSearchBrowserTest {
         assertThat(text.getDomProperty("value")).isEqualTo("passes over 85% of led-365");
         waitForResultsFor("passes over 85% of led-365");
         assertThat(waitForClauses(2).get(0)).isEqualTo("T of led-365 ≥ 85 % (329–401 nm)");
-        screenshot("search-6-led-fixed");
+        page.screenshotOfTop("search-6-led-fixed");
     }
 
     @Test
     void aBlockedShareIsShownAsItsCeilingAndAnAmbiguousOneOffersBothReadings() throws IOException {
-        driver.get("http://localhost:" + port + "/");
+        page.load(port, "/");
         WebElement text = driver.findElement(By.id("requirement-text"));
 
         // "blocks 99 %" keeps 99 % out (common practice, no source): the page shows the reading, T ≤ 1 %.
@@ -196,7 +184,7 @@ class RequirementSearchBrowserTest {
         assertThat(error.findElement(By.cssSelector(".marked-text mark")).getText()).isEqualTo("blocks 1%");
         List<WebElement> fixes = error.findElements(By.cssSelector("button.suggestion"));
         assertThat(fixes).extracting(WebElement::getText).containsExactly("blocks under 1%", "transmits under 99%");
-        screenshot("search-7-two-readings");
+        page.screenshotOfTop("search-7-two-readings");
 
         fixes.get(0).click();
         assertThat(text.getDomProperty("value")).isEqualTo("blocks under 1% at 405 nm");
@@ -206,7 +194,7 @@ class RequirementSearchBrowserTest {
 
     @Test
     void wordsBeforeTheClausesAreShownAndTheSummarySaysHowManyMaterialsTheyAdmitted() throws IOException {
-        driver.get("http://localhost:" + port + "/");
+        page.load(port, "/");
         WebElement text = driver.findElement(By.id("requirement-text"));
 
         String requirement = "acrylic passes over 80% at 400 nm";
@@ -220,7 +208,7 @@ class RequirementSearchBrowserTest {
                 .matches("Evaluated \\d+ samples in .* ms.* · words “acrylic” admitted \\d+ materials");
         assertThat(driver.findElement(By.id("search-results")).getDomAttribute("class")).as("results not marked stale")
                 .doesNotContain("stale");
-        screenshot("search-words-acrylic");
+        page.screenshotOfTop("search-words-acrylic");
     }
 
     private List<String> waitForClauses(int count) {
@@ -242,11 +230,5 @@ class RequirementSearchBrowserTest {
         wait.until(d -> requirement.equals(d.findElement(By.id("results-table")).getDomAttribute("data-requirement"))
                 && !d.findElements(By.cssSelector("#results-table tr[data-result-material-id]")).isEmpty());
         return driver.findElement(By.cssSelector("#results-table tr[data-result-material-id]"));
-    }
-
-    private void screenshot(String name) throws IOException {
-        ((JavascriptExecutor) driver).executeScript("window.scrollTo(0, 0)");
-        byte[] png = ((TakesScreenshot) driver).getScreenshotAs(OutputType.BYTES);
-        Files.write(Files.createDirectories(OUTPUT).resolve(name + ".png"), png);
     }
 }

@@ -12,21 +12,15 @@ import java.net.http.HttpResponse;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
-import java.time.Duration;
 import java.util.List;
-import java.util.function.IntPredicate;
 import org.junit.jupiter.api.AfterAll;
 import org.junit.jupiter.api.AfterEach;
 import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.BeforeEach;
 import org.junit.jupiter.api.Test;
 import org.openqa.selenium.By;
-import org.openqa.selenium.Dimension;
 import org.openqa.selenium.JavascriptExecutor;
 import org.openqa.selenium.Keys;
-import org.openqa.selenium.OutputType;
-import org.openqa.selenium.StaleElementReferenceException;
-import org.openqa.selenium.TakesScreenshot;
 import org.openqa.selenium.WebDriver;
 import org.openqa.selenium.WebElement;
 import org.openqa.selenium.support.ui.Select;
@@ -35,7 +29,6 @@ import org.springframework.boot.test.context.SpringBootTest;
 import org.springframework.boot.test.web.server.LocalServerPort;
 import org.springframework.test.context.TestPropertySource;
 import tools.jackson.databind.JsonNode;
-import tools.jackson.databind.json.JsonMapper;
 
 /**
  * "Curves shaped like this one" and "identify a measured curve" on the page, in a real headless Chromium against
@@ -48,9 +41,7 @@ import tools.jackson.databind.json.JsonMapper;
 class SimilarCurvesPageBrowserTest {
 
     private static final Path OUTPUT = HeadlessChromium.OUTPUT;
-    private static final Duration PATIENCE = Duration.ofSeconds(30);
     private static final HttpClient HTTP = HttpClient.newHttpClient();
-    private static final JsonMapper JSON = JsonMapper.builder().build();
     /**
      * Invented demo stock measured at 4 and 6 mm (illustrative). By Beer–Lambert (absorbance proportional to path
      * length, any optics handbook) its two samples share one absorbance per mm, so each is the other's nearest
@@ -58,6 +49,7 @@ class SimilarCurvesPageBrowserTest {
      */
     private static final String TWO_THICKNESS_STOCK = "bronze-tint-float-glass";
 
+    private static PageBrowser page;
     private static WebDriver driver;
     private static WebDriverWait wait;
 
@@ -66,33 +58,26 @@ class SimilarCurvesPageBrowserTest {
 
     @BeforeAll
     static void startBrowser() throws IOException {
-        HeadlessChromium.assumeInstalled();
-        driver = HeadlessChromium.start();
-        wait = new WebDriverWait(driver, PATIENCE);
-        // rows and the chart are replaced as answers arrive; a stale element means "look again"
-        wait.ignoring(StaleElementReferenceException.class);
+        page = PageBrowser.startOrSkip();
+        driver = page.driver();
+        wait = page.waiting();
     }
 
     @AfterAll
     static void stopBrowser() {
-        if (driver != null) {
-            driver.quit();
+        if (page != null) {
+            page.close();
         }
     }
 
     @BeforeEach
     void wideWindow() {
-        driver.manage().window().setSize(new Dimension(1280, 1300));
+        page.resize(1280, 1300);
     }
 
     @AfterEach
     void noUnexplainedPageMessage() {
-        List<WebElement> messages = driver.findElements(By.id("message"));
-        if (messages.isEmpty()) {
-            return; // the test skipped before any page was opened
-        }
-        WebElement message = messages.get(0);
-        assertThat(message.isDisplayed()).as("page message stays hidden, but shows: %s", message.getText()).isFalse();
+        page.assertNoPageMessage();
     }
 
     @Test
@@ -113,7 +98,7 @@ class SimilarCurvesPageBrowserTest {
         assertThat(driver.findElement(By.id("look-alike-table")).getDomAttribute("data-metric")).isEqualTo("centred-euclidean");
         assertThat(status("look-alike")).contains("shape and depth").contains("nearest first");
         assertThat(hitRows()).hasSize(10); // the API's default limit, shown in full
-        screenshot("similar-1-look-alikes", "look-alikes");
+        page.screenshot("similar-1-look-alikes", "look-alikes");
 
         // Shape only: asked anew, the answer says so, and the other thickness still comes first (either metric).
         new Select(driver.findElement(By.id("look-alike-metric"))).selectByValue("correlation");
@@ -123,13 +108,13 @@ class SimilarCurvesPageBrowserTest {
         assertThat(driver.findElement(By.id("look-alike-metric-about")).getText()).contains("1 − r");
 
         // Overlay: the hit's curve joins the chart, rescaled by the server to the matching thickness.
-        int before = waitForLegend(n -> n >= 1, "the measured curves").size();
+        int before = page.waitForLegend(n -> n >= 1, "the measured curves").size();
         hitRows().get(0).findElement(By.cssSelector("button.overlay-hit")).click();
-        List<String> legend = waitForLegend(n -> n > before, "the look-alike's curve");
+        List<String> legend = page.waitForLegend(n -> n > before, "the look-alike's curve");
         assertThat(legend).anyMatch(label -> label.startsWith("look-alike: " + name + " 6 mm rescaled to"));
         assertThat(hitRows().get(0).findElement(By.cssSelector("button.overlay-hit")).getDomAttribute("aria-pressed"))
                 .isEqualTo("true");
-        screenshot("similar-2-overlay", "curve-chart");
+        page.screenshot("similar-2-overlay", "curve-chart");
 
         // A hit of another material, opened from the keyboard: its detail replaces this one.
         WebElement other = hitRows().stream()
@@ -141,14 +126,14 @@ class SimilarCurvesPageBrowserTest {
         wait.until(d -> otherName.equals(d.findElement(By.id("detail-name")).getText()));
         if (!matching.equals("—")) {
             // opened rescaled to the thickness at which it matches, through the page's own rescale box
-            waitForLegend(n -> legendLabels().stream().anyMatch(l -> l.startsWith("rescaled to ")), "the hit drawn at " + matching);
+            page.waitForLegend(n -> page.legendLabels().stream().anyMatch(l -> l.startsWith("rescaled to ")), "the hit drawn at " + matching);
             double boxMm = Double.parseDouble(driver.findElement(By.id("rescale-mm")).getDomProperty("value"));
             assertThat(boxMm).isCloseTo(millimetres(matching), within(0.005)); // the table rounds to 0.01 mm
         }
         // and its own look-alikes follow
         wait.until(d -> !hitRows().isEmpty() && !d.findElement(By.id("look-alike-status")).getText().startsWith("Comparing"));
         assertThat(status("look-alike")).contains("nearest first");
-        screenshot("similar-3-opened-hit", "material-detail");
+        page.screenshot("similar-3-opened-hit", "material-detail");
     }
 
     @Test
@@ -170,13 +155,13 @@ class SimilarCurvesPageBrowserTest {
         WebElement problem = driver.findElement(By.id("look-alike-problem"));
         wait.until(d -> problem.isDisplayed());
         assertThat(problem.getText()).contains("Invalid band").contains("first below the second");
-        screenshot("similar-4-band-problem", "look-alikes");
+        page.screenshot("similar-4-band-problem", "look-alikes");
     }
 
     @Test
     void aFileTheServerCannotCompareShowsTheProblemAndItsDetail() throws Exception {
         driver.get("about:blank");
-        driver.get("http://localhost:" + port + "/");
+        page.load(port, "/");
         assertThat(driver.findElement(By.id("identify")).getText()).contains("not stored");
 
         // Nothing chosen: said on the page, nothing sent.
@@ -197,7 +182,7 @@ class SimilarCurvesPageBrowserTest {
         assertThat(lines[1]).isNotBlank();
         assertThat(driver.findElement(By.id("identify-results")).isDisplayed()).isFalse();
         assertThat(status("identify")).contains("not-a-curve.txt was not compared");
-        screenshot("similar-5-identify-problem", "identify");
+        page.screenshot("similar-5-identify-problem", "identify");
     }
 
     /** Runs once `POST /api/similar` exists (a later change); skipped on a server without it. */
@@ -207,10 +192,10 @@ class SimilarCurvesPageBrowserTest {
         JsonNode material = material(TWO_THICKNESS_STOCK);
         long thin = sampleAt(material, 4);
         Path capture = Files.createDirectories(OUTPUT).resolve("bronze-4mm-copy.csv");
-        Files.writeString(capture, get("/api/samples/" + thin + "/curve.csv").body(), StandardCharsets.UTF_8);
+        Files.writeString(capture, PageBrowser.getOk(port, "/api/samples/" + thin + "/curve.csv").body(), StandardCharsets.UTF_8);
 
         driver.get("about:blank");
-        driver.get("http://localhost:" + port + "/");
+        page.load(port, "/");
         driver.findElement(By.id("identify-file")).sendKeys(capture.toAbsolutePath().toString());
         driver.findElement(By.id("identify-mm")).sendKeys("4");
         driver.findElement(By.id("identify-button")).click();
@@ -222,7 +207,7 @@ class SimilarCurvesPageBrowserTest {
         assertThat(rows).isNotEmpty();
         assertThat(rows.get(0).getDomAttribute("data-material-id")).isEqualTo(String.valueOf(material.path("id").asLong()));
         assertThat(status("identify")).contains("bronze-4mm-copy.csv (not stored)");
-        screenshot("similar-6-identified", "identify");
+        page.screenshot("similar-6-identified", "identify");
 
         rows.get(0).findElement(By.cssSelector("button.open-hit")).click();
         wait.until(d -> material.path("name").asString().equals(d.findElement(By.id("detail-name")).getText()));
@@ -230,7 +215,7 @@ class SimilarCurvesPageBrowserTest {
 
     @Test
     void atANarrowWidthTheLookAlikesScrollInsideTheirBoxNotThePage() throws Exception {
-        driver.manage().window().setSize(new Dimension(420, 1100));
+        page.resize(420, 1100);
         openMaterial(material(TWO_THICKNESS_STOCK));
         wait.until(d -> !hitRows().isEmpty());
         WebElement button = hitRows().get(0).findElement(By.cssSelector("button.open-hit"));
@@ -238,10 +223,10 @@ class SimilarCurvesPageBrowserTest {
         long overflow = (Long) ((JavascriptExecutor) driver).executeScript(
                 "return document.documentElement.scrollWidth - document.documentElement.clientWidth;");
         assertThat(overflow).as("page wider than the window by").isLessThanOrEqualTo(0);
-        screenshot("similar-7-narrow", "look-alikes");
+        page.screenshot("similar-7-narrow", "look-alikes");
         driver.get("about:blank");
-        driver.get("http://localhost:" + port + "/");
-        screenshot("similar-8-narrow-identify", "identify");
+        page.load(port, "/");
+        page.screenshot("similar-8-narrow-identify", "identify");
     }
 
     // ---------- helpers ----------
@@ -250,7 +235,7 @@ class SimilarCurvesPageBrowserTest {
         // a fresh load: the page reads #material= when it loads, and a mere change of the hash is no load
         driver.get("about:blank");
         wait.withMessage("waiting for the material to open");
-        driver.get("http://localhost:" + port + "/#material=" + String.valueOf(material.path("id").asLong()));
+        page.load(port, "/#material=" + String.valueOf(material.path("id").asLong()));
         wait.until(d -> material.path("name").asString().equals(d.findElement(By.id("detail-name")).getText()));
     }
 
@@ -272,18 +257,6 @@ class SimilarCurvesPageBrowserTest {
         return Double.parseDouble(text.replace("mm", "").trim());
     }
 
-    private List<String> waitForLegend(IntPredicate condition, String what) {
-        wait.withMessage(() -> "waiting for " + what + "; legend now: " + legendLabels());
-        wait.until(d -> condition.test(legendLabels().size()));
-        return legendLabels();
-    }
-
-    private List<String> legendLabels() {
-        List<String> labels = driver.findElements(By.cssSelector("#curve-chart .u-legend .u-series .u-label"))
-                .stream().map(e -> e.getDomProperty("textContent")).toList();
-        return labels.isEmpty() ? labels : labels.subList(1, labels.size());
-    }
-
     private boolean identifyAvailable() throws Exception {
         HttpResponse<String> answer = HTTP.send(HttpRequest.newBuilder(URI.create("http://localhost:" + port + "/api/similar"))
                 .header("Accept", "application/json, application/problem+json")
@@ -292,7 +265,7 @@ class SimilarCurvesPageBrowserTest {
     }
 
     private JsonNode material(String slug) throws Exception {
-        for (JsonNode m : JSON.readTree(get("/api/materials").body())) {
+        for (JsonNode m : PageBrowser.getJson(port, "/api/materials")) {
             if (m.path("slug").asString().equals(slug)) {
                 return m;
             }
@@ -307,22 +280,5 @@ class SimilarCurvesPageBrowserTest {
             }
         }
         throw new AssertionError(material.path("slug").asString() + " has no sample at " + mm + " mm");
-    }
-
-    private HttpResponse<String> get(String path) throws Exception {
-        HttpResponse<String> answer = HTTP.send(HttpRequest.newBuilder(URI.create("http://localhost:" + port + path))
-                .GET().build(), HttpResponse.BodyHandlers.ofString());
-        assertThat(answer.statusCode()).as(path + ": " + answer.body()).isEqualTo(200);
-        return answer;
-    }
-
-    /** The viewport only is captured; the element named is brought into it first. */
-    private void screenshot(String name, String elementId) throws IOException {
-        List<WebElement> target = driver.findElements(By.id(elementId));
-        if (!target.isEmpty() && target.get(0).isDisplayed()) {
-            ((JavascriptExecutor) driver).executeScript("arguments[0].scrollIntoView({block: 'start'})", target.get(0));
-        }
-        byte[] png = ((TakesScreenshot) driver).getScreenshotAs(OutputType.BYTES);
-        Files.write(Files.createDirectories(OUTPUT).resolve(name + ".png"), png);
     }
 }

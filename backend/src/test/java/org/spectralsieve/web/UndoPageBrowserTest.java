@@ -5,8 +5,6 @@ import static org.spectralsieve.library.db.Tables.MATERIAL;
 import static org.spectralsieve.library.db.Tables.SAMPLE;
 
 import java.io.IOException;
-import java.nio.file.Files;
-import java.time.Duration;
 import java.util.List;
 import org.jooq.DSLContext;
 import org.junit.jupiter.api.AfterEach;
@@ -14,10 +12,6 @@ import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.BeforeEach;
 import org.junit.jupiter.api.Test;
 import org.openqa.selenium.By;
-import org.openqa.selenium.JavascriptExecutor;
-import org.openqa.selenium.OutputType;
-import org.openqa.selenium.StaleElementReferenceException;
-import org.openqa.selenium.TakesScreenshot;
 import org.openqa.selenium.WebDriver;
 import org.openqa.selenium.WebElement;
 import org.openqa.selenium.support.ui.WebDriverWait;
@@ -36,14 +30,13 @@ import org.springframework.test.context.TestPropertySource;
 @TestPropertySource(properties = "spring.datasource.url=jdbc:h2:mem:undo-browser;DB_CLOSE_DELAY=-1")
 class UndoPageBrowserTest {
 
-    private static final Duration PATIENCE = Duration.ofSeconds(30);
-
     @LocalServerPort
     private int port;
 
     @Autowired
     private DSLContext db;
 
+    private PageBrowser page;
     private WebDriver driver;
     private WebDriverWait wait;
 
@@ -54,15 +47,15 @@ class UndoPageBrowserTest {
 
     @BeforeEach
     void startBrowser() throws IOException {
-        driver = HeadlessChromium.start();
-        wait = new WebDriverWait(driver, PATIENCE);
-        wait.ignoring(StaleElementReferenceException.class);
+        page = PageBrowser.startOrSkip();
+        driver = page.driver();
+        wait = page.waiting();
     }
 
     @AfterEach
     void stopBrowser() {
-        if (driver != null) {
-            driver.quit();
+        if (page != null) {
+            page.close();
         }
     }
 
@@ -71,14 +64,14 @@ class UndoPageBrowserTest {
         long materialId = db.select(MATERIAL.ID).from(MATERIAL).where(MATERIAL.SLUG.eq("resin-lid-orange"))
                 .fetchSingle(MATERIAL.ID);
         int samples = db.fetchCount(SAMPLE, SAMPLE.MATERIAL_ID.eq(materialId));
-        driver.get("http://localhost:" + port + "/#material=" + materialId);
+        page.load(port, "/#material=" + materialId);
         wait.until(d -> sampleRows().size() == samples);
         assertThat(driver.findElement(By.id("detail-record")).getText()).contains("In use").contains("revision 1");
 
         sampleRows().get(0).findElement(By.xpath(".//button[text()='Retire']")).click();
         wait.until(d -> sampleRows().size() == samples - 1 && driver.findElement(By.id("retired-samples")).isDisplayed());
         assertThat(driver.findElement(By.id("retired-samples")).getText()).contains("3 mm").contains("retired");
-        screenshot("undo-1-retired-sample", "material-detail");
+        page.screenshot("undo-1-retired-sample", "material-detail");
 
         driver.findElement(By.cssSelector("#retired-samples button")).click();
         wait.until(d -> sampleRows().size() == samples && !driver.findElement(By.id("retired-samples")).isDisplayed());
@@ -91,24 +84,17 @@ class UndoPageBrowserTest {
         form.findElement(By.cssSelector("button[type=submit]")).click();
         wait.until(d -> driver.findElement(By.id("message")).isDisplayed());
         assertThat(driver.findElement(By.id("message")).getText()).contains("thicknessMm").contains("above 0");
-        screenshot("undo-2-refused-correction", "message");
+        page.screenshot("undo-2-refused-correction", "message");
 
         form.findElement(By.name("thicknessMm")).clear();
         form.findElement(By.name("thicknessMm")).sendKeys("3.1");
         form.findElement(By.cssSelector("button[type=submit]")).click();
         wait.until(d -> driver.findElement(By.id("sample-table")).getText().contains("rev. 2"));
         assertThat(driver.findElement(By.id("sample-table")).getText()).contains("3.1 mm");
-        screenshot("undo-3-corrected", "material-detail");
+        page.screenshot("undo-3-corrected", "material-detail");
     }
 
     private List<WebElement> sampleRows() {
         return driver.findElements(By.cssSelector("#sample-table tbody tr[data-sample-id]"));
-    }
-
-    private void screenshot(String name, String elementId) throws IOException {
-        ((JavascriptExecutor) driver).executeScript("document.getElementById(arguments[0]).scrollIntoView({block: 'start'})",
-                elementId);
-        byte[] png = ((TakesScreenshot) driver).getScreenshotAs(OutputType.BYTES);
-        Files.write(Files.createDirectories(HeadlessChromium.OUTPUT).resolve(name + ".png"), png);
     }
 }

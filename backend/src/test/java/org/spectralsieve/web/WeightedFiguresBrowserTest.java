@@ -6,23 +6,16 @@ import java.io.IOException;
 import java.math.BigDecimal;
 import java.math.MathContext;
 import java.math.RoundingMode;
-import java.net.URI;
 import java.net.URLEncoder;
-import java.net.http.HttpClient;
-import java.net.http.HttpRequest;
-import java.net.http.HttpResponse;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
-import java.time.Duration;
 import org.junit.jupiter.api.AfterAll;
 import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
 import org.openqa.selenium.By;
 import org.openqa.selenium.JavascriptExecutor;
 import org.openqa.selenium.Keys;
-import org.openqa.selenium.OutputType;
-import org.openqa.selenium.StaleElementReferenceException;
 import org.openqa.selenium.WebDriver;
 import org.openqa.selenium.WebElement;
 import org.openqa.selenium.support.ui.Select;
@@ -31,7 +24,6 @@ import org.springframework.boot.test.context.SpringBootTest;
 import org.springframework.boot.test.web.server.LocalServerPort;
 import org.springframework.test.context.TestPropertySource;
 import tools.jackson.databind.JsonNode;
-import tools.jackson.databind.json.JsonMapper;
 
 /**
  * The weighted-figures section of the material view, in a real headless Chromium against the whole
@@ -44,15 +36,13 @@ import tools.jackson.databind.json.JsonMapper;
 @TestPropertySource(properties = "spring.datasource.url=jdbc:h2:mem:browser-figures;DB_CLOSE_DELAY=-1")
 class WeightedFiguresBrowserTest {
 
-    private static final Duration PATIENCE = Duration.ofSeconds(30);
-    private static final HttpClient HTTP = HttpClient.newHttpClient();
-    private static final JsonMapper JSON = JsonMapper.builder().build();
 
     /** Passes much of the UV-A, so erythema and the actinic S(λ) (which weights UV-B/C far more) differ. */
     private static final String UV_TRANSMITTING = "UV-transmitting cast acrylic, lamp-cover grade";
     /** Its curves start at 250 nm: the actinic table needs 180 nm, so the flat × actinic factor is refused. */
     private static final String STARTS_AT_250_NM = "Borosilicate crown optical glass windows";
 
+    private static PageBrowser page;
     private static WebDriver driver;
     private static WebDriverWait wait;
 
@@ -61,17 +51,15 @@ class WeightedFiguresBrowserTest {
 
     @BeforeAll
     static void startBrowser() throws IOException {
-        HeadlessChromium.assumeInstalled();
-        driver = HeadlessChromium.start();
-        wait = new WebDriverWait(driver, PATIENCE);
-        // The page replaces the table as answers arrive; a stale element means "look again".
-        wait.ignoring(StaleElementReferenceException.class);
+        page = PageBrowser.startOrSkip();
+        driver = page.driver();
+        wait = page.waiting();
     }
 
     @AfterAll
     static void stopBrowser() {
-        if (driver != null) {
-            driver.quit();
+        if (page != null) {
+            page.close();
         }
     }
 
@@ -79,8 +67,8 @@ class WeightedFiguresBrowserTest {
     void figuresFollowTheChosenResponseAndTheRescaledThicknessAndMatchTheApi() throws Exception {
         JsonNode material = material(UV_TRANSMITTING);
         long sampleId = material.path("samples").get(0).path("id").asLong();
-        loadPage();
-        openMaterial(UV_TRANSMITTING);
+        page.load(port, "/");
+        page.openMaterialFromLibrary(UV_TRANSMITTING);
 
         // Defaults: the first sample at its measured thickness, a 365 nm LED, unweighted (flat response).
         waitForStatus("led-365 × flat");
@@ -126,7 +114,7 @@ class WeightedFiguresBrowserTest {
         waitForStatus("flat × actinic-uv");
         wait.until(d -> !d.findElement(By.id("figures-status")).getText().contains("rescaled"));
         assertThat(shownValue("effectiveTransmittance")).isEqualTo(actinicShown);
-        assertNoMessage();
+        page.assertNoPageMessage();
     }
 
     @Test
@@ -135,8 +123,8 @@ class WeightedFiguresBrowserTest {
         long sampleId = material.path("samples").get(0).path("id").asLong();
         JsonNode cie = figures(sampleId, "emitter=flat&response=erythema");
         JsonNode dermatology = figures(sampleId, "emitter=flat&response=erythema&convention=dermatology");
-        loadPage();
-        openMaterial(UV_TRANSMITTING);
+        page.load(port, "/");
+        page.openMaterialFromLibrary(UV_TRANSMITTING);
         waitForStatus("led-365 × flat");
         assertThat(driver.findElement(By.id("figures-table")).getText()).contains("UV-B 280-315 nm");
 
@@ -162,7 +150,7 @@ class WeightedFiguresBrowserTest {
         String uvbName = dermatologyUvb.path("name").asString();
         WebElement uvbRow = driver.findElement(By.cssSelector("#figures-table tr[data-name='" + uvbName + "']"));
         assertThat(uvbRow.findElement(By.cssSelector("td.value")).getText()).isEqualTo(fractionAsShown(dermatologyUvb));
-        assertNoMessage();
+        page.assertNoPageMessage();
     }
 
     @Test
@@ -184,8 +172,8 @@ class WeightedFiguresBrowserTest {
         JsonNode material = material(UV_TRANSMITTING);
         long sampleId = material.path("samples").get(0).path("id").asLong();
 
-        loadPage();
-        openMaterial(UV_TRANSMITTING);
+        page.load(port, "/");
+        page.openMaterialFromLibrary(UV_TRANSMITTING);
         waitForStatus("led-365 × flat");
         driver.findElement(By.cssSelector("#spectrum-import summary")).click();
         new Select(driver.findElement(By.id("spectrum-kind"))).selectByValue("responses");
@@ -205,7 +193,7 @@ class WeightedFiguresBrowserTest {
         WebElement status = driver.findElement(By.id("spectrum-import-status"));
         wait.until(d -> status.getText().startsWith("Not imported:"));
         assertThat(status.getText()).contains("3").containsIgnoringCase("negative");
-        assertThat(getJson("/api/responses").toString()).doesNotContain("page-negative");
+        assertThat(PageBrowser.getJson(port, "/api/responses").toString()).doesNotContain("page-negative");
     }
 
     @Test
@@ -213,8 +201,8 @@ class WeightedFiguresBrowserTest {
         JsonNode material = material(UV_TRANSMITTING);
         long sampleId = material.path("samples").get(0).path("id").asLong();
         JsonNode stacked = figures(sampleId, "emitter=led-365&response=flat&behind=clear-float-glass&behindMm=4");
-        loadPage();
-        openMaterial(UV_TRANSMITTING);
+        page.load(port, "/");
+        page.openMaterialFromLibrary(UV_TRANSMITTING);
         waitForStatus("led-365 × flat");
         String alone = shownValue("luminousTransmittance");
 
@@ -237,7 +225,7 @@ class WeightedFiguresBrowserTest {
         wait.until(d -> !d.findElement(By.id("figures-status")).getText().contains("clear-float-glass"));
         waitForStatus("led-365 × flat");
         assertThat(shownValue("luminousTransmittance")).isEqualTo(alone);
-        assertNoMessage();
+        page.assertNoPageMessage();
     }
 
     @Test
@@ -248,8 +236,8 @@ class WeightedFiguresBrowserTest {
         JsonNode refused = answer.path("actinicUvProtectionFactor");
         assertThat(refused.path("available").asBoolean()).as("API refuses it for a curve from 250 nm").isFalse();
 
-        loadPage();
-        openMaterial(STARTS_AT_250_NM);
+        page.load(port, "/");
+        page.openMaterialFromLibrary(STARTS_AT_250_NM);
         waitForStatus("led-365 × flat");
         chooseFlatSourceAndErythema();
         WebElement row = row("actinicUvProtectionFactor");
@@ -261,13 +249,13 @@ class WeightedFiguresBrowserTest {
         assertThat(shownValue("effectiveTransmittance"))
                 .isEqualTo(fractionAsShown(answer.path("effectiveTransmittance")));
         screenshot("figures-3-unavailable");
-        assertNoMessage();
+        page.assertNoPageMessage();
     }
 
     @Test
     void aRefusedEmitterIsExplainedOnceBesideThePickersWithoutAStatusCode() throws Exception {
-        loadPage();
-        openMaterial(UV_TRANSMITTING);
+        page.load(port, "/");
+        page.openMaterialFromLibrary(UV_TRANSMITTING);
         waitForStatus("×");
         // No picker offers an unknown name; put one in, as a stale page would after a catalogue change.
         WebElement emitter = driver.findElement(By.id("figure-emitter"));
@@ -299,7 +287,7 @@ class WeightedFiguresBrowserTest {
      */
     @Test
     void figuresThePageDoesNotKnowYetAreShownByNameAndAMissingOneIsLeftOut() throws Exception {
-        loadPage();
+        page.load(port, "/");
         ((JavascriptExecutor) driver).executeScript("""
                 const realFetch = window.fetch.bind(window);
                 window.fetch = async (url, init) => {
@@ -313,7 +301,7 @@ class WeightedFiguresBrowserTest {
                   return new Response(JSON.stringify(answer),
                       { status: 200, headers: { 'Content-Type': 'application/json' } });
                 };""");
-        openMaterial(UV_TRANSMITTING);
+        page.openMaterialFromLibrary(UV_TRANSMITTING);
         waitForStatus("led-365 × flat");
 
         assertThat(driver.findElements(By.cssSelector("#figures-table tr[data-figure='criticalWavelength']"))).isEmpty();
@@ -326,7 +314,7 @@ class WeightedFiguresBrowserTest {
         assertThat(shownValue("laterFigures")).isEqualTo("2.5 lm/W");
         assertThat(later.findElement(By.xpath("ancestor::tbody")).getDomAttribute("data-group")).isEqualTo("other");
         assertThat(shownValue("effectiveTransmittance")).endsWith("%");
-        assertNoMessage();
+        page.assertNoPageMessage();
     }
 
     // ---------- the page's rule for fractions, mirrored (format.js percentNumber) ----------
@@ -364,20 +352,6 @@ class WeightedFiguresBrowserTest {
 
     // ---------- page helpers ----------
 
-    private void loadPage() {
-        driver.get("http://localhost:" + port + "/");
-    }
-
-    /** Clicks the material's row in the library table of the page already loaded. */
-    private void openMaterial(String nameStart) {
-        wait.withMessage("waiting for the library row of " + nameStart);
-        WebElement row = wait.until(d -> d.findElements(By.cssSelector("#material-table tr[data-material-id]"))
-                .stream().filter(r -> r.findElement(By.cssSelector("td")).getText().startsWith(nameStart))
-                .findFirst().orElse(null));
-        row.click();
-        wait.until(d -> d.findElement(By.id("detail-name")).getText().startsWith(nameStart));
-    }
-
     /** From the page's defaults to the pair the API answers without parameters (flat × erythema). */
     private void chooseFlatSourceAndErythema() {
         new Select(driver.findElement(By.id("figure-emitter"))).selectByValue("flat");
@@ -402,22 +376,14 @@ class WeightedFiguresBrowserTest {
         return row(figureKey).findElement(By.cssSelector("td.value")).getText();
     }
 
-    private void assertNoMessage() {
-        WebElement message = driver.findElement(By.id("message"));
-        assertThat(message.isDisplayed()).as("message area stays hidden, but shows: %s", message.getText()).isFalse();
-    }
-
     private void screenshot(String name) throws IOException {
-        WebElement section = driver.findElement(By.id("weighted-figures"));
-        ((JavascriptExecutor) driver).executeScript("arguments[0].scrollIntoView({block: 'start'})", section);
-        byte[] png = section.getScreenshotAs(OutputType.BYTES);
-        Files.write(Files.createDirectories(HeadlessChromium.OUTPUT).resolve(name + ".png"), png);
+        page.screenshotOfElement(name, driver.findElement(By.id("weighted-figures")));
     }
 
     // ---------- API helpers ----------
 
     private JsonNode material(String nameStart) throws Exception {
-        JsonNode materials = getJson("/api/materials?q=" + URLEncoder.encode(nameStart, StandardCharsets.UTF_8));
+        JsonNode materials = PageBrowser.getJson(port, "/api/materials?q=" + URLEncoder.encode(nameStart, StandardCharsets.UTF_8));
         for (JsonNode m : materials) {
             if (m.path("name").asString().startsWith(nameStart)) {
                 return m;
@@ -427,13 +393,6 @@ class WeightedFiguresBrowserTest {
     }
 
     private JsonNode figures(long sampleId, String query) throws Exception {
-        return getJson("/api/samples/" + sampleId + "/figures?" + query);
-    }
-
-    private JsonNode getJson(String path) throws Exception {
-        HttpResponse<String> response = HTTP.send(HttpRequest.newBuilder(URI.create("http://localhost:" + port + path))
-                .GET().build(), HttpResponse.BodyHandlers.ofString());
-        assertThat(response.statusCode()).as(path + " → " + response.body()).isEqualTo(200);
-        return JSON.readTree(response.body());
+        return PageBrowser.getJson(port, "/api/samples/" + sampleId + "/figures?" + query);
     }
 }
