@@ -99,7 +99,7 @@ function shadeBands(u) {
     const x1 = u.valToPos(to, 'x', true);
     ctx.fillStyle = band.fill;
     ctx.fillRect(x0, bbox.top, x1 - x0, bbox.height);
-    ctx.fillStyle = 'rgba(60, 56, 90, 0.55)';
+    ctx.fillStyle = '#4f4a6e'; // band labels at 7:1 on their shading (WCAG AA, docs/accessibility.md)
     // A narrow band (UV-B on a wide axis) would print its label over its neighbour's: that label goes a
     // row lower instead.
     const x = x0 + 4 * devicePixelRatio;

@@ -32,7 +32,7 @@ function formsTable(forms, onTry) {
     example.appendChild(el('code', form.example));
     const tryIt = el('button', 'Try', 'guide-try');
     tryIt.type = 'button';
-    tryIt.setAttribute('aria-label', `Put “${form.example}” into the requirement box`);
+    tryIt.setAttribute('aria-label', `Try “${form.example}”: put it into the requirement box`); // the visible word first (WCAG 2.5.3)
     tryIt.addEventListener('click', () => onTry(form.example));
     example.appendChild(tryIt);
     row.appendChild(example);
