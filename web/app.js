@@ -558,7 +558,8 @@ onAddressChange(restoreView);
 function captureView() {
   return {
     q: search?.searched() ?? null,
-    cmp: compare?.chosenIds() ?? [],
+    cmp: compare?.chosen().cmp ?? [],
+    cmpAdd: compare?.chosen().added ?? [],
     cmpAxis: compare && compare.axis() !== 'linear' ? compare.axis() : null,
     material: state.material ? String(state.material.id) : null,
     from: state.rescaled ? String(state.rescaled.fromSample.id) : null,
@@ -600,7 +601,7 @@ async function restoreView(view) {
       await figures.choose(view.figures);
     }
     await Promise.allSettled([listed, searched]);
-    await compare.choose(view.q ? view.cmp : [], view.cmpAxis); // after the shortlist: it ticks its rows
+    await compare.choose(view.q ? view.cmp : [], view.q ? view.cmpAdd : [], view.cmpAxis); // after the shortlist: it ticks its rows
   } finally {
     restoring = false;
   }

@@ -200,16 +200,28 @@ export function initCompare(ui) {
     return candidates().map((c) => String(c.materialId));
   }
 
+  /** The overlay as the address keeps it: `cmp` the ticked rows' materials, `added` those added by name. */
+  function chosen() {
+    const all = candidates();
+    return {
+      cmp: all.filter((c) => c.origin !== 'added').map((c) => String(c.materialId)),
+      added: all.filter((c) => c.origin === 'added').map((c) => String(c.materialId)),
+    };
+  }
+
   /**
    * Shows the overlay an address names: ticks the shortlist rows of those materials, adds the others as by
    * name, and says once, beside the chart, which ids are not materials of the library (the rest are drawn).
    */
-  async function choose(ids, axis) {
-    const wanted = [...new Set((ids || []).map(String))];
+  async function choose(ids, addedIds, axis) {
+    const rowIds = [...new Set((ids || []).map(String))];
+    const added = [...new Set((addedIds || []).map(String))].filter((id) => !rowIds.includes(id));
+    const wanted = [...rowIds, ...added];
     const axisValue = axis === 'od' ? 'od' : 'linear';
     const axisChanged = dom.axis.value !== axisValue;
     dom.axis.value = axisValue;
-    if (sameList(chosenIds(), wanted)) {
+    const now = chosen();
+    if (sameList(now.cmp, rowIds) && sameList(now.added, added)) {
       if (axisChanged) await redraw();
       return;
     }
@@ -219,7 +231,8 @@ export function initCompare(ui) {
     state.picked = [];
     const unknown = [];
     for (const id of wanted) {
-      const i = rows.findIndex((r) => String(r.materialId) === id);
+      // a `cmp` id ticks its shortlist row; one added by name (or no longer in the shortlist) is added again
+      const i = added.includes(id) ? -1 : rows.findIndex((r) => String(r.materialId) === id);
       if (i >= 0 && boxes[i]) {
         boxes[i].checked = true;
         continue;
@@ -239,7 +252,8 @@ export function initCompare(ui) {
     }
     if (unknown.length) {
       dom.addressNote.textContent = `The link names ${unknown.length === 1 ? 'a material' : 'materials'} this library `
-        + `does not have (${unknown.join(', ')}); ${wanted.length > unknown.length ? 'the others are drawn' : 'nothing is drawn'}.`;
+        + `does not have (${unknown.join(', ')}); `
+        + `${{ 0: 'nothing is drawn', 1: 'the other one is drawn' }[wanted.length - unknown.length] ?? 'the others are drawn'}.`;
     }
     dom.addressNote.hidden = !unknown.length;
     if (state.picked.length) dom.section.hidden = false;
@@ -436,7 +450,7 @@ export function initCompare(ui) {
     }
   }).observe(dom.chart);
 
-  return { showShortlist, redraw, chosenIds, choose, axis: () => dom.axis.value };
+  return { showShortlist, redraw, chosen, choose, axis: () => dom.axis.value };
 }
 
 // ---------- curves ----------

@@ -61,21 +61,36 @@ class CompareLinkAndChartValuesBrowserTest {
         page.search(REQUIREMENT);
         page.driver().findElement(By.id("compare-top3")).click();
         waitForSeries(page, 3);
-        List<String> key = texts(page, "#compare-key li");
+        List<String> topThree = texts(page, "#compare-key li");
         String cmp = page.addressParameter("cmp");
         assertThat(cmp).as("the address names the three compared materials").matches("\\d+,\\d+,\\d+");
+        // a material added by name is kept apart: it is drawn as added (as measured), not as its shortlist row
+        WebElement pick = page.driver().findElement(By.id("compare-pick"));
+        pick.sendKeys(ACRYLIC);
+        page.driver().findElement(By.id("compare-add")).click();
+        waitForSeries(page, 4);
+        List<String> key = texts(page, "#compare-key li");
+        assertThat(key.get(3)).contains(ACRYLIC).contains("added");
+        assertThat(page.addressParameter("cmp")).isEqualTo(cmp);
+        assertThat(page.addressParameter("cmp.add")).matches("\\d+");
         String link = URI.create(page.driver().getCurrentUrl()).getRawPath() + "?"
                 + URI.create(page.driver().getCurrentUrl()).getRawQuery();
 
         try (PageBrowser fresh = PageBrowser.startOrSkip()) {
             fresh.open(port, link);
-            waitForSeries(fresh, 3);
+            waitForSeries(fresh, 4);
             fresh.waiting().until(d -> texts(fresh, "#compare-key li").equals(key));
             assertThat(texts(fresh, "#compare-key li")).as("same curves, same thicknesses, same order").isEqualTo(key);
             assertThat(fresh.addressParameter("cmp")).isEqualTo(cmp);
+            assertThat(fresh.addressParameter("cmp.add")).isEqualTo(page.addressParameter("cmp.add"));
             fresh.screenshot("compare-link-1-fresh-browser", "compare");
         }
 
+        // Back steps out of the added material, then out of the overlay
+        page.driver().navigate().back();
+        waitForSeries(page, 3);
+        page.waiting().until(d -> texts(page, "#compare-key li").equals(topThree));
+        assertThat(page.addressParameter("cmp.add")).isNull();
         page.driver().navigate().back();
         page.waiting().withMessage("Back leaves the overlay").until(d -> page.addressParameter("cmp") == null
                 && "0".equals(d.findElement(By.id("compare-chart")).getDomAttribute("data-series")));
@@ -84,7 +99,7 @@ class CompareLinkAndChartValuesBrowserTest {
 
         page.driver().navigate().forward();
         waitForSeries(page, 3);
-        page.waiting().until(d -> texts(page, "#compare-key li").equals(key));
+        page.waiting().until(d -> texts(page, "#compare-key li").equals(topThree));
         assertThat(page.addressParameter("cmp")).isEqualTo(cmp);
     }
 
@@ -98,7 +113,7 @@ class CompareLinkAndChartValuesBrowserTest {
             WebElement n = d.findElement(By.id("compare-address-note"));
             return n.isDisplayed() ? n : null;
         });
-        assertThat(note.getText()).contains("987654321", "abc").contains("the others are drawn");
+        assertThat(note.getText()).contains("987654321", "abc").contains("the other one is drawn");
         assertThat(page.driver().findElements(By.id("message")).get(0).isDisplayed())
                 .as("said once, beside the chart, not again in the page's message area").isFalse();
         page.waiting().until(d -> first.equals(page.addressParameter("cmp")));
@@ -143,6 +158,22 @@ class CompareLinkAndChartValuesBrowserTest {
         assertThat(saved.get(0)).isEqualTo("compared-3-curves.png");
         assertThat(saved.get(1)).startsWith("data:image/png;base64,");
         page.screenshot("compare-link-3-downloads", "compare-clauses");
+
+        // the values table lists each compared curve at the thickness drawn: the API's curve at that thickness
+        List<JsonNode> curves = new ArrayList<>();
+        for (WebElement row : rows) {
+            String csv = row.findElement(By.cssSelector("a[data-format='csv']")).getDomAttribute("href");
+            curves.add(json("/" + csv.replace("curve.csv", "curve")));
+        }
+        page.driver().findElement(By.cssSelector("#compare-values summary")).click();
+        WebElement table = page.waiting().until(d -> {
+            List<WebElement> t = d.findElements(By.cssSelector("#compare-values table.values-table"));
+            return t.isEmpty() ? null : t.get(0);
+        });
+        assertTableMatches(table, curves, false);
+        assertThat(page.driver().findElement(By.id("compare-chart")).getDomAttribute("aria-label"))
+                .startsWith("Chart of 3 curves").contains("Show values as a table");
+        page.screenshot("compare-link-4-values-table", "compare-values");
     }
 
     @Test
