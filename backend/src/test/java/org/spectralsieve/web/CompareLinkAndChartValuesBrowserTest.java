@@ -213,6 +213,28 @@ class CompareLinkAndChartValuesBrowserTest {
         page.assertNoSidewaysScrolling("values table open");
     }
 
+    @Test
+    void aPhoneWideWindowKeepsTheOpenValuesTablesAndCompareDownloadsInside() throws Exception {
+        page.resize(390, 844);
+        try {
+            page.open(port, "/");
+            page.search(REQUIREMENT);
+            page.driver().findElement(By.id("compare-top3")).click();
+            waitForSeries(page, 3);
+            page.driver().findElement(By.cssSelector("#compare-values summary")).click();
+            page.waiting().until(d -> !d.findElements(By.cssSelector("#compare-values table.values-table")).isEmpty());
+            page.assertNoSidewaysScrolling("compare values table open at 390 px");
+            page.screenshot("compare-link-5-narrow", "compare-values");
+            page.openMaterialFromLibrary(ACRYLIC);
+            page.waiting().until(d -> d.findElement(By.id("curve-values")).isDisplayed());
+            page.driver().findElement(By.cssSelector("#curve-values summary")).click();
+            page.waiting().until(d -> !d.findElements(By.cssSelector("#curve-values table.values-table")).isEmpty());
+            page.assertNoSidewaysScrolling("material values table open at 390 px");
+        } finally {
+            page.resize(1400, 1300);
+        }
+    }
+
     /** Headers name the unit of every drawn curve; each shown row holds the API's value (or bound) at that wavelength. */
     private static void assertTableMatches(WebElement table, List<JsonNode> curves, boolean od) {
         List<String> headers = table.findElements(By.cssSelector("thead th")).stream().map(WebElement::getText).toList();
