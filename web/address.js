@@ -4,7 +4,7 @@
 // what to do when the address changes under it (popstate).
 //
 // The address reads, for example:
-//   ?q=passes over 80% at 365 nm&material=12&from=31&mm=5&axis=od&fig.response=flat
+//   ?q=passes over 80% at 365 nm&cmp=12,15&cmp.add=31&cmp.axis=od&material=12&from=31&mm=5&axis=od&fig.response=flat
 //   &words=acryl&f.class=plastic sheet&f.class=film
 // Every key is optional; an absent key means the page's default. Older links of the form `#material=ID`
 // are read too, and rewritten to the form above once the page has opened them.
@@ -44,6 +44,10 @@ export function readAddress(where = window.location) {
     mm: Number.isFinite(mm) && mm > 0 ? mm : null,
     axis: text('axis'),
     words: text('words'),
+    // the compared materials (compare.js), ids in drawing order; validated by compare.js against the library
+    cmp: idList(text('cmp')),
+    cmpAdd: idList(text('cmp.add')),
+    cmpAxis: text('cmp.axis'),
     facets,
     figures,
   };
@@ -56,6 +60,12 @@ export function addressOf(state, where = window.location) {
     if (value !== null && value !== undefined && String(value).trim() !== '') params.append(key, String(value));
   };
   put('q', state.q);
+  // the overlay belongs to the shortlist of the requirement searched: without it, nothing to compare
+  if (state.q && (state.cmp?.length || state.cmpAdd?.length)) {
+    put('cmp', (state.cmp || []).join(','));
+    put('cmp.add', (state.cmpAdd || []).join(','));
+    put('cmp.axis', state.cmpAxis);
+  }
   put('material', state.material);
   if (state.material !== null && state.material !== undefined && state.mm) {
     put('from', state.from);
@@ -90,6 +100,11 @@ export function writeAddress(state, { push = false } = {}) {
 /** Calls `handler(state)` whenever Back or Forward changes the address. */
 export function onAddressChange(handler) {
   window.addEventListener('popstate', () => handler(readAddress()));
+}
+
+/** "12, 15,,31" → ["12", "15", "31"]: a comma-separated list of ids, blanks dropped (checked by compare.js). */
+function idList(value) {
+  return (value ?? '').split(',').map((id) => id.trim()).filter((id) => id !== '');
 }
 
 function legacyMaterial(hash) {

@@ -14,6 +14,7 @@ import { initCompare } from './compare.js';
 import { showDownloads, initChartPng } from './export.js';
 import { initCuration, renderMaterialRecord, renderRetiredSamples, sampleControls } from './curation.js';
 import { readAddress, writeAddress, onAddressChange } from './address.js';
+import { showChartValues } from './chart-values.js';
 
 const SAMPLE_COLOURS = ['#1d6a86', '#8a5a2b', '#4d7a37', '#7a3e6e', '#3d4f9a', '#9c4545', '#3c7f7a', '#6b6b2a'];
 const RESCALED_COLOUR = '#c2700f';
@@ -62,6 +63,7 @@ const state = {
 };
 
 let search = null;     // the requirement search's view (search.js), for the address
+let compare = null;    // the compare overlay (compare.js), for the address (cmp=)
 let restoring = false; // true while a view is restored from the address: nothing is written back meanwhile
 
 // ---------- messages: every API failure is shown, never swallowed ----------
@@ -365,6 +367,7 @@ function redraw() {
   curves.push(...state.overlays);
   state.plot = drawCurves(dom.chart, curves, dom.axisMode.value);
   dom.chart.dataset.axisMode = dom.axisMode.value; // lets readers and tests tell which axis is drawn
+  showChartValues(dom.chart, curves, dom.axisMode.value); // chart-values.js: the chart's text alternative
   showDownloads(state.material, state.rescaled); // export.js: a download per curve drawn
   dom.detail.dispatchEvent(new CustomEvent('material-shown', { detail: { material: state.material, rescaled: state.rescaled } })); // print.js
 }
@@ -545,7 +548,7 @@ initImport({
   },
 });
 // Compare (compare.js): listens for each shortlist before a restored address runs a search.
-initCompare({ showProblem });
+compare = initCompare({ showProblem, changed: (how) => rememberView(how) });
 initChartPng(dom.chart, () => state.material?.name); // export.js
 restoreView(readAddress());
 onAddressChange(restoreView);
@@ -556,6 +559,9 @@ onAddressChange(restoreView);
 function captureView() {
   return {
     q: search?.searched() ?? null,
+    cmp: compare?.chosen().cmp ?? [],
+    cmpAdd: compare?.chosen().added ?? [],
+    cmpAxis: compare && compare.axis() !== 'linear' ? compare.axis() : null,
     material: state.material ? String(state.material.id) : null,
     from: state.rescaled ? String(state.rescaled.fromSample.id) : null,
     mm: state.rescaled?.thicknessMm ?? null,
@@ -596,6 +602,7 @@ async function restoreView(view) {
       await figures.choose(view.figures);
     }
     await Promise.allSettled([listed, searched]);
+    await compare.choose(view.q ? view.cmp : [], view.q ? view.cmpAdd : [], view.cmpAxis); // after the shortlist: it ticks its rows
   } finally {
     restoring = false;
   }

@@ -5,6 +5,8 @@ import uPlot from './webjars/uplot/dist/uPlot.esm.js';
 import * as api from './api.js';
 import * as fmt from './format.js';
 import { AXIS_MODES } from './chart.js';
+import { downloadRow, saveChartPng } from './export.js';
+import { offerValues, describeChart } from './chart-values.js';
 
 /** More curves than this turn one chart into a tangle; the picker says so instead of adding more. */
 export const MAX_SERIES = 20;
@@ -60,6 +62,10 @@ export function initCompare(ui) {
     chart: el('compare-chart'),
     key: el('compare-key'),
     clauses: el('compare-clauses'),
+    downloads: el('compare-downloads'),
+    png: el('compare-png'),
+    values: el('compare-values'),
+    addressNote: el('compare-address-note'),
   };
   const state = {
     answer: null, // the search answer whose rows are offered
@@ -85,6 +91,7 @@ export function initCompare(ui) {
       box.value = String(i);
       box.dataset.sampleId = row.sampleId;
       box.addEventListener('change', redraw);
+      box.addEventListener('change', () => changed()); // a single tick replaces the address entry
       const text = document.createElement('span');
       text.textContent = `${row.rank}. ${row.materialName} · ${rowThickness(row, answer.requirement)} · ${row.verdict}`;
       label.append(box, text);
@@ -108,6 +115,7 @@ export function initCompare(ui) {
     // a row searched at a thickness is drawn at that thickness; "as measured" rows at their own
     const rescale = requirement.thickness?.kind !== 'asMeasured' && Number.isFinite(row.thicknessMm);
     return {
+      materialId: row.materialId,
       name: row.materialName,
       sampleId: row.sampleId,
       thicknessMm: rescale ? row.thicknessMm : null,
@@ -148,27 +156,108 @@ export function initCompare(ui) {
         return;
       }
       const material = await api.getMaterial(match.id);
-      const sample = preferredSample(material.samples || []);
-      if (!sample) {
+      const picked = pickedFrom(material);
+      if (!picked) {
         say(`${material.name} has no sample to draw.`);
         return;
       }
-      const fixed = state.answer?.requirement?.thickness?.kind === 'fixed' ? state.answer.requirement.thickness.mm : null;
-      state.picked.push({
-        name: material.name,
-        sampleId: sample.id,
-        // a picked material follows a fixed thickness the requirement names; otherwise as measured
-        thicknessMm: fixed,
-        geometry: sample.geometry,
-        measuredMm: Number.isFinite(sample.thicknessMm) ? sample.thicknessMm : null,
-        origin: 'added',
-      });
+      state.picked.push(picked);
       dom.pick.value = '';
       dom.section.hidden = false;
       redraw();
+      changed({ push: true }); // adding a material is a step Back returns from
     } catch (problem) {
       ui.showProblem(problem, 'Adding a material to the comparison');
     }
+  }
+
+  /** A material added by name (or by the address) as a curve to draw; null when it has no sample to draw. */
+  function pickedFrom(material) {
+    const sample = preferredSample(material.samples || []);
+    if (!sample) return null;
+    const fixed = state.answer?.requirement?.thickness?.kind === 'fixed' ? state.answer.requirement.thickness.mm : null;
+    return {
+      materialId: material.id,
+      name: material.name,
+      sampleId: sample.id,
+      // a picked material follows a fixed thickness the requirement names; otherwise as measured
+      thicknessMm: fixed,
+      geometry: sample.geometry,
+      measuredMm: Number.isFinite(sample.thicknessMm) ? sample.thicknessMm : null,
+      origin: 'added',
+    };
+  }
+
+  // ---------- the address (address.js: cmp=ID,ID,…, cmp.axis) ----------
+
+  function changed(how = {}) {
+    dom.addressNote.hidden = true; // a note about a link's unknown ids is about the view the link opened
+    ui.changed?.(how);
+  }
+
+  /** The compared materials' ids in drawing order (ticked rows in shortlist order, then those added). */
+  function chosenIds() {
+    return candidates().map((c) => String(c.materialId));
+  }
+
+  /** The overlay as the address keeps it: `cmp` the ticked rows' materials, `added` those added by name. */
+  function chosen() {
+    const all = candidates();
+    return {
+      cmp: all.filter((c) => c.origin !== 'added').map((c) => String(c.materialId)),
+      added: all.filter((c) => c.origin === 'added').map((c) => String(c.materialId)),
+    };
+  }
+
+  /**
+   * Shows the overlay an address names: ticks the shortlist rows of those materials, adds the others as by
+   * name, and says once, beside the chart, which ids are not materials of the library (the rest are drawn).
+   */
+  async function choose(ids, addedIds, axis) {
+    const rowIds = [...new Set((ids || []).map(String))];
+    const added = [...new Set((addedIds || []).map(String))].filter((id) => !rowIds.includes(id));
+    const wanted = [...rowIds, ...added];
+    const axisValue = axis === 'od' ? 'od' : 'linear';
+    const axisChanged = dom.axis.value !== axisValue;
+    dom.axis.value = axisValue;
+    const now = chosen();
+    if (sameList(now.cmp, rowIds) && sameList(now.added, added)) {
+      if (axisChanged) await redraw();
+      return;
+    }
+    const rows = state.answer ? state.answer.results.filter((r) => Number.isFinite(r.sampleId)) : [];
+    const boxes = [...dom.rows.querySelectorAll('input[type=checkbox]')];
+    boxes.forEach((box) => { box.checked = false; });
+    state.picked = [];
+    const unknown = [];
+    for (const id of wanted) {
+      // a `cmp` id ticks its shortlist row; one added by name (or no longer in the shortlist) is added again
+      const i = added.includes(id) ? -1 : rows.findIndex((r) => String(r.materialId) === id);
+      if (i >= 0 && boxes[i]) {
+        boxes[i].checked = true;
+        continue;
+      }
+      if (!/^[1-9][0-9]{0,17}$/.test(id)) {
+        unknown.push(id);
+        continue;
+      }
+      try {
+        const picked = pickedFrom(await api.getMaterial(id));
+        if (picked) state.picked.push(picked);
+        else unknown.push(id);
+      } catch (problem) {
+        if (problem.status === 404 || problem.status === 400) unknown.push(id);
+        else ui.showProblem(problem, 'Adding a material to the comparison');
+      }
+    }
+    if (unknown.length) {
+      dom.addressNote.textContent = `The link names ${unknown.length === 1 ? 'a material' : 'materials'} this library `
+        + `does not have (${unknown.join(', ')}); `
+        + `${{ 0: 'nothing is drawn', 1: 'the other one is drawn' }[wanted.length - unknown.length] ?? 'the others are drawn'}.`;
+    }
+    dom.addressNote.hidden = !unknown.length;
+    if (state.picked.length) dom.section.hidden = false;
+    await redraw();
   }
 
   // ---------- drawing ----------
@@ -182,6 +271,8 @@ export function initCompare(ui) {
       destroy();
       dom.chart.dataset.series = '0';
       dom.key.replaceChildren();
+      dom.downloads.replaceChildren();
+      offerValues(dom.values, [], 'linear');
       renderClauseList([]);
       say('Tick rows of the shortlist, or add a material, to compare their curves.');
       return;
@@ -273,6 +364,22 @@ export function initCompare(ui) {
     dom.chart.dataset.axisMode = modeKey;
     renderKey(drawn, tables);
     renderClauseList(clauses);
+    const shown = drawn.map((d, i) => ({ label: `${i + 1}. ${d.name}, ${fmt.number(d.curve.thicknessMm)} mm`, curve: d.curve }));
+    offerValues(dom.values, shown, modeKey);
+    describeChart(dom.chart, shown, modeKey);
+    renderDownloads(drawn);
+  }
+
+  /** A CSV and JCAMP-DX per curve drawn, at the thickness it is drawn at (export.js writes the row). */
+  function renderDownloads(drawn) {
+    dom.downloads.replaceChildren(...drawn.map((d, i) => {
+      const c = d.curve;
+      const li = downloadRow(`${i + 1}. ${d.name}, ${thicknessWords(d)}`, c.sampleId ?? d.sampleId,
+        c.rescaled ? c.thicknessMm : null);
+      li.dataset.sampleId = d.sampleId;
+      li.dataset.thicknessMm = String(c.thicknessMm);
+      return li;
+    }));
   }
 
   /** A text legend: each series' colour and dash by name, the thickness drawn and where it comes from. */
@@ -318,12 +425,15 @@ export function initCompare(ui) {
     const boxes = [...dom.rows.querySelectorAll('input[type=checkbox]')];
     boxes.forEach((box, i) => { box.checked = i < 3; });
     redraw();
+    changed({ push: true });
   });
   dom.none.addEventListener('click', () => {
     dom.rows.querySelectorAll('input[type=checkbox]').forEach((box) => { box.checked = false; });
     state.picked = [];
     redraw();
+    changed({ push: true });
   });
+  dom.png.addEventListener('click', () => saveChartPng(dom.chart, `compared-${chosenIds().length}-curves`));
   dom.add.addEventListener('click', addPicked);
   dom.pick.addEventListener('keydown', (event) => {
     if (event.key === 'Enter') {
@@ -333,13 +443,14 @@ export function initCompare(ui) {
   });
   dom.pick.addEventListener('focus', () => loadMaterialNames().catch((p) => ui.showProblem(p, 'Listing materials')), { once: true });
   dom.axis.addEventListener('change', redraw);
+  dom.axis.addEventListener('change', () => changed());
   new ResizeObserver(() => {
     if (state.plot && dom.chart.clientWidth > 0 && Math.abs(state.plot.width - dom.chart.clientWidth) > 4) {
       state.plot.setSize({ width: dom.chart.clientWidth, height: state.plot.height });
     }
   }).observe(dom.chart);
 
-  return { showShortlist, redraw };
+  return { showShortlist, redraw, chosen, choose, axis: () => dom.axis.value };
 }
 
 // ---------- curves ----------
@@ -361,6 +472,10 @@ function seriesColumns(curve, mode) {
     values[i] = Number.isFinite(t) ? mode.value(t) : null;
   }
   return { xs, values, boundPoints };
+}
+
+function sameList(a, b) {
+  return a.length === b.length && a.every((x, i) => x === b[i]);
 }
 
 function preferredSample(samples) {

@@ -23,6 +23,11 @@ export function showDownloads(material, rescaled) {
   list().replaceChildren(...rows);
 }
 
+/** One download row: `label: CSV · JCAMP-DX`, the server's files of the sample (at `thicknessMm` when not null). */
+export function downloadRow(label, sampleId, thicknessMm) {
+  return row(label, sampleId, thicknessMm);
+}
+
 function row(label, sampleId, thicknessMm) {
   const li = document.createElement('li');
   const name = document.createElement('span');
@@ -52,21 +57,24 @@ function number(value) {
  * image holds the curves and grid only, on white, with the material's name as its file name.
  */
 export function initChartPng(chartElement, fileStem) {
-  document.getElementById('chart-png').addEventListener('click', () => {
-    const canvas = chartElement.querySelector('canvas');
-    if (!canvas) return;
-    const white = document.createElement('canvas');
-    white.width = canvas.width;
-    white.height = canvas.height;
-    const context = white.getContext('2d');
-    context.fillStyle = '#ffffff';
-    context.fillRect(0, 0, white.width, white.height);
-    context.drawImage(canvas, 0, 0);
-    const a = document.createElement('a');
-    a.href = white.toDataURL('image/png');
-    a.download = `${(fileStem() || 'curves').replace(/[^A-Za-z0-9._-]+/g, '-').replace(/^-+|-+$/g, '')}.png`;
-    document.body.append(a);
-    a.click();
-    a.remove();
-  });
+  document.getElementById('chart-png').addEventListener('click', () => saveChartPng(chartElement, fileStem()));
+}
+
+/** Saves the series canvas of the uPlot chart in `chartElement` as `<fileStem>.png`, on white. */
+export function saveChartPng(chartElement, fileStem) {
+  const canvas = chartElement.querySelector('canvas');
+  if (!canvas) return;
+  const white = document.createElement('canvas');
+  white.width = canvas.width;
+  white.height = canvas.height;
+  const context = white.getContext('2d');
+  context.fillStyle = '#ffffff';
+  context.fillRect(0, 0, white.width, white.height);
+  context.drawImage(canvas, 0, 0);
+  const a = document.createElement('a');
+  a.href = white.toDataURL('image/png');
+  a.download = `${(fileStem || 'curves').replace(/[^A-Za-z0-9._-]+/g, '-').replace(/^-+|-+$/g, '')}.png`;
+  document.body.append(a);
+  a.click();
+  a.remove();
 }
