@@ -63,9 +63,12 @@ class ResultRowsBrowserTest {
         assertThat(used.getDomAttribute("data-rescaled")).isEqualTo("false");
         page.screenshot("rows-1-measured-at-row-thickness", "search-results");
 
+        String sampleId = row.getDomAttribute("data-sample-id");
         row.findElement(By.cssSelector("button.material-link")).click();
         page.waitForMaterial(TWO_THICKNESSES);
         page.waitForLegend(mm + " mm regular");
+        assertThat(page.driver().findElement(By.id("figure-sample")).getDomProperty("value"))
+                .as("the weighted figures are of the row's own sample").isEqualTo(sampleId);
         assertThat(legendLabels()).as("no curve rescaled onto a thickness that was measured")
                 .noneMatch(label -> label.startsWith("rescaled to"));
         assertThat(page.driver().findElement(By.id("rescale-mm")).getDomProperty("value")).isEmpty();
