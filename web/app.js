@@ -326,7 +326,7 @@ async function selectMaterial(id, rescaleTo = null) {
     renderSamples(material);
     setupRescale(material);
     clearRescaleProblem(); // a refusal belongs to the material it was asked for
-    figures.showMaterial(material);
+    figures.showMaterial(material, rescaleTo?.sampleId); // a shortlist row's own sample (docs/result-rows.md)
     similar.showMaterial(material, rescaleTo?.sampleId);
     const prefilled = prefillRescale(material, rescaleTo);
     dom.placeholder.hidden = true;

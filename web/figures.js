@@ -450,11 +450,16 @@ export function initFigures(ui) {
       }));
     },
 
-    /** A newly opened material: its samples in the picker, the first one chosen, figures fetched. */
-    async showMaterial(material) {
+    /**
+     * A newly opened material: its samples in the picker, the first one chosen (or `sampleId`, the sample a
+     * shortlist row was judged on, docs/result-rows.md), figures fetched.
+     */
+    async showMaterial(material, sampleId = null) {
       state.material = material;
       dom.sample.replaceChildren(...(material.samples || []).map(sampleOption));
       dom.sample.disabled = !material.samples?.length;
+      if (sampleId !== null && sampleId !== undefined
+        && material.samples?.some((s) => String(s.id) === String(sampleId))) dom.sample.value = choiceValue(sampleId);
       await catalogues; // the chosen emitter and response are known before the first fetch
       if (state.material === material) await refresh();
     },

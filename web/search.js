@@ -3,6 +3,7 @@
 // The page only formats; every number and every verdict comes from the API.
 import * as api from './api.js';
 import * as fmt from './format.js';
+import { bindingCell, rowRescaled, sampleUsedNote } from './rows.js';
 
 const PARSE_DELAY_MS = 300;
 
@@ -330,7 +331,9 @@ export function initSearch(ui) {
     open.type = 'button';
     open.className = 'link material-link';
     open.textContent = result.materialName;
-    const recommended = requirement.thickness.kind !== 'asMeasured' && Number.isFinite(result.thicknessMm);
+    // rescaled only when the server judged a rescaled curve: a sample measured at the row's thickness opens as measured
+    const recommended = requirement.thickness.kind !== 'asMeasured' && Number.isFinite(result.thicknessMm)
+      && rowRescaled(result) !== false;
     open.title = recommended
       ? `open this material, with the rescale box set to ${fmt.number(result.thicknessMm)} mm`
       : 'open this material';
@@ -375,7 +378,7 @@ export function initSearch(ui) {
         ? cell(`≤ ${fmt.signedDecades(result.worstMarginDecades)}`, 'num margin bound',
           'shown only by a detection limit: the true miss may be larger')
         : cell(fmt.signedDecades(result.worstMarginDecades), 'num margin'),
-      cell(result.bindingClause || '—', result.bindingClause ? 'binding' : 'muted'),
+      bindingCell(result),
       toggleCell,
     );
     return [tr, details];
@@ -521,6 +524,8 @@ function thicknessText(result) {
 /** The thickness judged, the feasible interval and, below them, which stock sizes to buy (server's words). */
 function thicknessCell(result) {
   const td = cell(thicknessText(result));
+  const used = sampleUsedNote(result); // rows.js: "measured at 3 mm" / "rescaled from 2 mm"
+  if (used) td.append(used);
   const stock = result.stockThicknesses;
   if (stock && stock.explanation) {
     const note = document.createElement('div');

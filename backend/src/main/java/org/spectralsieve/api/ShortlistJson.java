@@ -41,8 +41,8 @@ public final class ShortlistJson {
         json.put("requirement", RequirementJson.toJson(shortlist.requirement()));
         caution(shortlist.requirement()).ifPresent(c -> json.put("caution", c));
         shortlist.layer().ifPresent(layer -> json.put("layer", layer(layer)));
-        json.put("results", shortlist.rows().stream().map(r -> withRevisions(row(r, shortlist.geometry(r)),
-                shortlist.revisions(r))).toList());
+        json.put("results", shortlist.rows().stream().map(r -> withRevisions(withSampleUsed(row(r, shortlist.geometry(r)),
+                shortlist, r), shortlist.revisions(r))).toList());
         json.put("groups", groups(shortlist));
         json.put("evaluatedSamples", shortlist.evaluatedSamples());
         json.put("judgedExactly", shortlist.judgedExactly());
@@ -108,6 +108,24 @@ public final class ShortlistJson {
         return json;
     }
 
+    /**
+     * The sample behind the row, after its thickness (docs/result-rows.md): {@code measuredMm}, the thickness the
+     * row's sample was measured at (null when not recorded), and {@code rescaled}, true when the row was judged on
+     * that sample's curve rescaled to {@code thicknessMm}, false when on the measured curve itself, null when no
+     * clause could be judged (no curve stands behind the row) or a thickness is not recorded.
+     */
+    private static Map<String, Object> withSampleUsed(Map<String, Object> row, Shortlist shortlist, RankedRow r) {
+        Map<String, Object> json = new LinkedHashMap<>();
+        row.forEach((key, value) -> {
+            json.put(key, value);
+            if (key.equals("thicknessMm")) {
+                json.put("measuredMm", finiteOrNull(shortlist.measuredMm(r)));
+                json.put("rescaled", shortlist.rescaled(r).orElse(null));
+            }
+        });
+        return json;
+    }
+
     static Map<String, Object> row(RankedRow row, String geometry) {
         SampleEvaluation e = row.evaluation();
         Map<String, Object> json = new LinkedHashMap<>();
@@ -124,6 +142,8 @@ public final class ShortlistJson {
         json.put("worstMarginDecades", finiteOrNull(e.worstMarginDecades()));
         json.put("worstMarginIsBound", e.standing().marginIsBound());
         json.put("bindingClause", e.bindingClauseIndex() < 0 ? null : e.clauses().get(e.bindingClauseIndex()).clause().text());
+        // the binding clause's confidence (0–1), the row's own standing in one number; null when unknown
+        json.put("bindingClauseConfidence", e.confidence().isPresent() ? e.confidence().getAsDouble() : null);
         List<Map<String, Object>> clauses = new ArrayList<>();
         for (ClauseResult c : e.clauses()) {
             Map<String, Object> clause = new LinkedHashMap<>();

@@ -180,7 +180,9 @@ final class SearchCommand implements Callable<Integer> {
                 table.heading(Standing.heading(rowGroup));
                 group = rowGroup;
             }
-            table.add(cells(row, shortlist.geometry(row), solving), explanations(row.evaluation()));
+            List<String> lines = new ArrayList<>(explanations(row.evaluation()));
+            sampleUsed(shortlist, row).ifPresent(lines::add);
+            table.add(cells(row, shortlist.geometry(row), solving), lines);
         }
         return table;
     }
@@ -195,6 +197,13 @@ final class SearchCommand implements Callable<Integer> {
         }
         cells.add(e.bindingClauseIndex() < 0 ? Numbers.NONE : e.clauses().get(e.bindingClauseIndex()).clause().text());
         return cells;
+    }
+
+    /** "sample: measured at 3 mm" or "sample: rescaled from 2 mm" (the page's words); empty when it cannot be said. */
+    static java.util.Optional<String> sampleUsed(Shortlist shortlist, RankedRow row) {
+        double measured = shortlist.measuredMm(row);
+        return shortlist.rescaled(row).map(rescaled -> "sample: " + (rescaled ? "rescaled from " : "measured at ")
+                + Numbers.mm(measured) + " mm");
     }
 
     private static List<String> explanations(SampleEvaluation e) {

@@ -68,6 +68,20 @@ public record SampleEvaluation(long sampleId, double thicknessMm, ThicknessInter
     }
 
     /**
+     * Whether the clauses were judged on a curve rescaled from a sample measured at {@code measuredMm} (true),
+     * or on the measured curve itself (false); empty when that cannot be said: the thickness of either is not
+     * recorded, or no clause was judged at all ({@link Standing#NOT_JUDGED}: then no curve stands behind the
+     * row). A sample measured at the asked thickness ({@link NominalThickness}) is judged at its own measured
+     * thickness, so "the same thickness" here is the evaluator's numerical one ({@link SampleEvaluator#SAME_THICKNESS_MM}).
+     */
+    public java.util.Optional<Boolean> rescaledFrom(double measuredMm) {
+        if (!Double.isFinite(measuredMm) || !Double.isFinite(thicknessMm) || standing() == Standing.NOT_JUDGED) {
+            return java.util.Optional.empty();
+        }
+        return java.util.Optional.of(Math.abs(thicknessMm - measuredMm) > SampleEvaluator.SAME_THICKNESS_MM);
+    }
+
+    /**
      * How sure the row's standing is, for ranking rows of equal margin: the confidence of the binding clause
      * (the one whose margin is the row's), empty when there is none or it is unknown ({@link ClauseResult#confidence}).
      */

@@ -132,7 +132,7 @@ public class SearchService {
         List<RankedRow> rows = rank(s, requirement, exact, limit);
         double tookMs = (System.nanoTime() - started) / 1e6;
         return new Shortlist(requirement, rows, picked.evaluatedSamples(), exact.size(), tookMs, Optional.empty(),
-                geometries(s, rows), revisions(s, rows));
+                geometries(s, rows), revisions(s, rows), measured(s, rows));
     }
 
     /**
@@ -258,7 +258,7 @@ public class SearchService {
         }
         double tookMs = (System.nanoTime() - started) / 1e6;
         return new Shortlist(requirement, rows, admitted, exact.size(), tookMs, layer, geometries(s, rows),
-                revisions(s, rows));
+                revisions(s, rows), measured(s, rows));
     }
 
     /**
@@ -467,6 +467,18 @@ public class SearchService {
         for (RankedRow row : rows) {
             long id = row.evaluation().sampleId();
             out.put(id, s.samples().get(id).geometry().label());
+        }
+        return out;
+    }
+
+    /** Sample id → the thickness every row's sample was measured at, where recorded (docs/result-rows.md). */
+    private static Map<Long, Double> measured(Snapshot s, List<RankedRow> rows) {
+        Map<Long, Double> out = new HashMap<>();
+        for (RankedRow row : rows) {
+            SampleInfo sample = s.samples().get(row.evaluation().sampleId());
+            if (PhysicalRanges.isThicknessMm(sample.thicknessMm())) {
+                out.put(sample.id(), sample.thicknessMm());
+            }
         }
         return out;
     }

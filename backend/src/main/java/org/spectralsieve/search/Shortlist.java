@@ -15,11 +15,13 @@ import org.spectralsieve.requirement.StackLayer;
  * library sample that stood in every candidate's light path when the requirement names a fixed layer.
  * {@code sampleGeometry}: how each row's sample was measured ("regular" or "total"), keyed by sample id.
  * {@code revisions}: the revision of each row's sample and of its material the row was judged on, keyed by
- * sample id (docs/undo.md).
+ * sample id (docs/undo.md). {@code sampleMeasuredMm}: the thickness each row's sample was measured at, keyed by
+ * sample id (absent when not recorded), so a row can say whether its curve is the measured one or rescaled
+ * from it (docs/result-rows.md).
  */
 public record Shortlist(Requirement requirement, List<RankedRow> rows, int evaluatedSamples, int judgedExactly,
                         double tookMs, Optional<StackLayer> layer, Map<Long, String> sampleGeometry,
-                        Map<Long, Revisions> revisions) {
+                        Map<Long, Revisions> revisions, Map<Long, Double> sampleMeasuredMm) {
 
     /** Which revision of a row's sample and of its material the row was judged on. */
     public record Revisions(int sample, int material) {
@@ -30,11 +32,18 @@ public record Shortlist(Requirement requirement, List<RankedRow> rows, int evalu
         this(requirement, rows, evaluatedSamples, judgedExactly, tookMs, layer, sampleGeometry, Map.of());
     }
 
+    public Shortlist(Requirement requirement, List<RankedRow> rows, int evaluatedSamples, int judgedExactly,
+                     double tookMs, Optional<StackLayer> layer, Map<Long, String> sampleGeometry,
+                     Map<Long, Revisions> revisions) {
+        this(requirement, rows, evaluatedSamples, judgedExactly, tookMs, layer, sampleGeometry, revisions, Map.of());
+    }
+
     public Shortlist {
         rows = List.copyOf(rows);
         Objects.requireNonNull(layer, "layer");
         sampleGeometry = Map.copyOf(sampleGeometry);
         revisions = Map.copyOf(revisions);
+        sampleMeasuredMm = Map.copyOf(sampleMeasuredMm);
     }
 
     /** The revisions a row was judged on, or null when not known. */
@@ -45,5 +54,18 @@ public record Shortlist(Requirement requirement, List<RankedRow> rows, int evalu
     /** The geometry a row's sample was measured in: "regular", "total", or null when not known. */
     public String geometry(RankedRow row) {
         return sampleGeometry.get(row.evaluation().sampleId());
+    }
+
+    /** The thickness a row's sample was measured at, NaN when not recorded. */
+    public double measuredMm(RankedRow row) {
+        return sampleMeasuredMm.getOrDefault(row.evaluation().sampleId(), Double.NaN);
+    }
+
+    /**
+     * Whether the row was judged on its sample's curve rescaled from the measured thickness (true) or on the
+     * measured curve (false); empty when it cannot be said ({@link org.spectralsieve.requirement.SampleEvaluation#rescaledFrom}).
+     */
+    public Optional<Boolean> rescaled(RankedRow row) {
+        return row.evaluation().rescaledFrom(measuredMm(row));
     }
 }

@@ -317,6 +317,24 @@ class SieveCliTest {
         }
     }
 
+    @Test
+    void eachRowSaysWhetherItsSampleWasMeasuredAtTheThicknessOrRescaledFromAnother() {
+        // the same facts as the JSON's measuredMm and rescaled, in the page's words (docs/result-rows.md)
+        JsonNode json = JSON.readTree(cli("search", "passes over 50% at 365 nm, at 4 mm", "--limit", "5", "--json").out());
+        Run run = cli("search", "passes over 50% at 365 nm, at 4 mm", "--limit", "5");
+
+        assertThat(run.exitCode()).as(run.err()).isZero();
+        List<String> sampleLines = run.outLines().stream().filter(l -> l.trim().startsWith("sample: ")).toList();
+        assertThat(sampleLines).hasSize(json.path("results").size());
+        for (int i = 0; i < sampleLines.size(); i++) {
+            JsonNode row = json.path("results").get(i);
+            String measured = java.math.BigDecimal.valueOf(row.path("measuredMm").asDouble()).stripTrailingZeros()
+                    .toPlainString();
+            assertThat(sampleLines.get(i).trim()).isEqualTo("sample: "
+                    + (row.path("rescaled").asBoolean() ? "rescaled from " : "measured at ") + measured + " mm");
+        }
+    }
+
     private JsonNode get(String path) throws Exception {
         HttpResponse<String> response = HttpClient.newHttpClient().send(
                 HttpRequest.newBuilder(URI.create("http://localhost:" + port + path)).GET().build(),
