@@ -321,7 +321,7 @@ class SieveCliTest {
     void eachRowSaysWhetherItsSampleWasMeasuredAtTheThicknessOrRescaledFromAnother() {
         // the same facts as the JSON's measuredMm and rescaled, in the page's words (docs/result-rows.md)
         JsonNode json = JSON.readTree(cli("search", "passes over 50% at 365 nm, at 4 mm", "--limit", "5", "--json").out());
-        Run run = cli("search", "passes over 50% at 365 nm, at 4 mm", "--limit", "5");
+        CliRun run = cli("search", "passes over 50% at 365 nm, at 4 mm", "--limit", "5");
 
         assertThat(run.exitCode()).as(run.err()).isZero();
         List<String> sampleLines = run.outLines().stream().filter(l -> l.trim().startsWith("sample: ")).toList();
