@@ -255,6 +255,8 @@ export function initSearch(ui) {
     dom.table.hidden = true;
     dom.caution.hidden = true;
     dom.summary.textContent = 'No results: the search did not run.';
+    // the compare section offers the shortlist's rows: an empty answer takes the earlier ones away there too
+    dom.results.dispatchEvent(new CustomEvent('shortlist', { detail: { results: [], requirement: null } }));
   }
 
   function showOurProblem(problem, context) {

@@ -108,6 +108,9 @@ class PagePolishBrowserTest {
         // the rows of the earlier requirement are gone, not left standing as if they answered this one
         assertThat(driver.findElements(By.cssSelector("#results-table tr[data-result-material-id]"))).isEmpty();
         assertThat(driver.findElement(By.id("results-table")).isDisplayed()).isFalse();
+        // nor offered for comparison: the compare section listed the earlier shortlist's rows
+        assertThat(driver.findElement(By.id("compare")).isDisplayed()).as("compare section after a failed search").isFalse();
+        assertThat(driver.findElements(By.cssSelector("#compare input[type=checkbox]"))).isEmpty();
         assertThat(driver.findElement(By.tagName("body")).getText()).doesNotContain("(400)");
         page.screenshotOfTop("polish-2-failed-search");
     }
