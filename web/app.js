@@ -333,6 +333,7 @@ async function selectMaterial(id, rescaleTo = null) {
     if (rescaleTo?.reveal) dom.detail.scrollIntoView({ block: 'start' });
     await loadCurves(material, request);
     if (prefilled && request === state.detailRequest) await applyRescale();
+    if (request === state.detailRequest) performance.mark('sieve:material-shown'); // docs/page-speed.md
   } catch (problem) {
     if (request !== state.detailRequest) return;
     showProblem(problem, 'Loading the material');
