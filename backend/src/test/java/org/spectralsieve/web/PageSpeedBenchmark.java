@@ -78,6 +78,7 @@ class PageSpeedBenchmark {
     }
 
     @Test
+    @SuppressWarnings("unchecked")
     void searchToRowsToFirstResultsChart() {
         int warmup = intProperty("bench.pageWarmup", 3);
         int runs = intProperty("bench.pageRuns", 15);
@@ -93,17 +94,27 @@ class PageSpeedBenchmark {
                 timings.computeIfAbsent(requirement.getKey(), k -> new ArrayList<>()).add(findOnce(requirement.getValue()));
             }
         }
+        String profiled = System.getProperty("bench.pageProfile", "");
+        if (REQUIREMENTS.containsKey(profiled)) {
+            profile("page-find requirement=" + profiled, () -> findOnce(REQUIREMENTS.get(profiled)));
+        }
         timings.forEach((name, list) -> {
             Map<String, Object> first = list.get(0);
             System.out.printf(Locale.ROOT, "BENCH page-find requirement=%s rows=%s runs=%d"
                             + " end_to_end_p50_ms=%s end_to_end_p90_ms=%s"
-                            + " rows_p50_ms=%s rows_p90_ms=%s http_p50_ms=%s server_took_p50_ms=%s"
-                            + " chart_p50_ms=%s chart_p90_ms=%s first_draw_p50_ms=%s draws=%s text=\"%s\"%n",
+                            + " rows_p50_ms=%s rows_p90_ms=%s rows_frame_p50_ms=%s http_p50_ms=%s server_took_p50_ms=%s"
+                            + " chart_p50_ms=%s chart_p90_ms=%s first_draw_p50_ms=%s draws=%s load=%s text=\"%s\"%n",
                     name, first.get("rows"), list.size(),
                     p(list, "endToEndMs", 50), p(list, "endToEndMs", 90),
-                    p(list, "rowsMs", 50), p(list, "rowsMs", 90), p(list, "httpMs", 50), p(list, "tookMs", 50),
+                    p(list, "rowsMs", 50), p(list, "rowsMs", 90), p(list, "rowsFrameMs", 50), p(list, "httpMs", 50),
+                    p(list, "tookMs", 50),
                     p(list, "chartMs", 50), p(list, "chartMs", 90), p(list, "firstDrawMs", 50), first.get("draws"),
-                    REQUIREMENTS.get(name));
+                    loadAverage(), REQUIREMENTS.get(name));
+            // what opening the first result asked the server, in the last run: where the chart's time goes
+            for (Map<String, Object> request : (List<Map<String, Object>>) list.get(list.size() - 1).get("requests")) {
+                System.out.printf(Locale.ROOT, "BENCH page-find-request requirement=%s start_ms=%s end_ms=%s path=%s%n",
+                        name, ms(number(request, "startMs")), ms(number(request, "endMs")), request.get("path"));
+            }
         });
     }
 
@@ -129,6 +140,8 @@ class PageSpeedBenchmark {
                   const t0 = performance.now();
                   document.getElementById('search-button').click();
                   const rendered = await waitFor(() => marks('sieve:results-rendered', t0)[0]);
+                  // the frame after the rows: the task that rendered them (and told Compare and the address) is over
+                  const rowsFrameMs = (await nextFrame()) - t0;
                   const http = performance.getEntriesByType('resource').find((e) => /\\/api\\/search$/.test(e.name));
                   const open = document.querySelector('#results-table tbody tr[data-result-material-id] button.material-link');
                   const t1 = performance.now();
@@ -137,9 +150,12 @@ class PageSpeedBenchmark {
                   const draws = marks('sieve:chart-drawn', t1).filter((m) => m.startTime <= shown.startTime);
                   const rowsMs = rendered.startTime - t0;
                   const chartMs = draws[draws.length - 1].startTime - t1;
-                  done({ rowsMs, chartMs, endToEndMs: rowsMs + chartMs, firstDrawMs: draws[0].startTime - t1,
+                  done({ rowsMs, rowsFrameMs, chartMs, endToEndMs: rowsMs + chartMs, firstDrawMs: draws[0].startTime - t1,
                     draws: draws.length, httpMs: http ? http.responseEnd - http.startTime : -1,
                     tookMs: answer ? answer.tookMs : -1,
+                    requests: performance.getEntriesByType('resource').filter((e) => e.startTime >= t1)
+                      .map((e) => ({ path: new URL(e.name).pathname + new URL(e.name).search,
+                        startMs: e.startTime - t1, endMs: e.responseEnd - t1 })),
                     rows: document.querySelectorAll('#results-table tbody tr[data-result-material-id]').length });
                 })().catch((e) => done({ error: String(e) }));
                 """, requirement);
@@ -185,12 +201,13 @@ class PageSpeedBenchmark {
             System.out.printf(Locale.ROOT, "BENCH page-overlay curves=%d points_per_curve=%d runs=%d"
                             + " first_draw_p50_ms=%s first_draw_p90_ms=%s first_draw_cold_ms=%s"
                             + " frame_p50_ms=%s frame_p90_ms=%s frame_max_ms=%s frames=%d frames_over_50ms=%d"
-                            + " redraw_p50_ms=%s redraw_p90_ms=%s redraw_max_ms=%s redraws=%d%n",
+                            + " redraw_p50_ms=%s redraw_p90_ms=%s redraw_max_ms=%s redraws=%d load=%s%n",
                     n, OVERLAY_POINTS, list.size(), p(list, "firstDrawMs", 50), p(list, "firstDrawMs", 90),
                     n == OVERLAY_CURVES ? ms(number(cold, "firstDrawMs")) : "-",
                     ms(percentile(intervals, 50)), ms(percentile(intervals, 90)), ms(max(intervals)), intervals.length,
                     Arrays.stream(intervals).filter(v -> v > 50).count(),
-                    ms(percentile(redraws, 50)), ms(percentile(redraws, 90)), ms(max(redraws)), redraws.length);
+                    ms(percentile(redraws, 50)), ms(percentile(redraws, 90)), ms(max(redraws)), redraws.length,
+                    loadAverage());
         });
     }
 
@@ -256,6 +273,40 @@ class PageSpeedBenchmark {
             throw new IllegalStateException("asked for " + n + " curves, the chart drew " + result.get("series"));
         }
         return result;
+    }
+
+    /**
+     * Runs {@code step} under Chromium's JavaScript sampling profiler (DevTools protocol) and prints the twenty
+     * functions with the most self time: {@code BENCH page-profile of=<what> self_ms=<x> function=<name> at=<file:line>}.
+     * Layout, style and paint show as "(program)"; the profile finds where the page's own scripts spend the time.
+     */
+    @SuppressWarnings("unchecked")
+    private void profile(String what, Runnable step) {
+        org.openqa.selenium.chromium.HasCdp cdp = (org.openqa.selenium.chromium.HasCdp) browser.driver();
+        cdp.executeCdpCommand("Profiler.enable", Map.of());
+        cdp.executeCdpCommand("Profiler.setSamplingInterval", Map.of("interval", 100));
+        cdp.executeCdpCommand("Profiler.start", Map.of());
+        step.run();
+        Map<String, Object> profile = (Map<String, Object>) cdp.executeCdpCommand("Profiler.stop", Map.of()).get("profile");
+        cdp.executeCdpCommand("Profiler.disable", Map.of());
+        Map<Long, String> names = new java.util.HashMap<>();
+        for (Map<String, Object> node : (List<Map<String, Object>>) profile.get("nodes")) {
+            Map<String, Object> frame = (Map<String, Object>) node.get("callFrame");
+            String url = String.valueOf(frame.get("url"));
+            names.put(((Number) node.get("id")).longValue(), (String.valueOf(frame.get("functionName")).isEmpty()
+                    ? "(anonymous)" : frame.get("functionName")) + " at=" + url.substring(url.lastIndexOf('/') + 1)
+                    + ":" + (((Number) frame.get("lineNumber")).intValue() + 1));
+        }
+        List<Number> samples = (List<Number>) profile.get("samples");
+        List<Number> deltas = (List<Number>) profile.get("timeDeltas");
+        Map<String, Double> self = new java.util.HashMap<>();
+        for (int i = 0; i + 1 < samples.size(); i++) {
+            // a sample's time runs until the next sample
+            self.merge(names.get(samples.get(i).longValue()), deltas.get(i + 1).doubleValue() / 1000.0, Double::sum);
+        }
+        self.entrySet().stream().sorted(Map.Entry.<String, Double>comparingByValue().reversed()).limit(20)
+                .forEach(e -> System.out.printf(Locale.ROOT, "BENCH page-profile of=\"%s\" self_ms=%s function=%s%n",
+                        what, ms(e.getValue()), e.getKey()));
     }
 
     /** Helpers shared by the page scripts: marks after a time, a poll until something is there, the next frame. */
@@ -353,6 +404,15 @@ class PageSpeedBenchmark {
 
     private static String ms(double value) {
         return String.format(Locale.ROOT, "%.1f", value);
+    }
+
+    /** The machine's one-minute load average when the line is printed: these figures mean little without it. */
+    private static String loadAverage() {
+        try {
+            return java.nio.file.Files.readString(java.nio.file.Path.of("/proc/loadavg")).split(" ")[0];
+        } catch (IOException | RuntimeException e) {
+            return "unknown";
+        }
     }
 
     private static int intProperty(String name, int fallback) {
