@@ -37,7 +37,9 @@ import tools.jackson.databind.json.JsonMapper;
  * WebDriver's own round trips are not in the figures.
  *
  * <p>Switches: {@code -Dbench.pageRuns=15} (timed runs per requirement), {@code -Dbench.pageWarmup=3},
- * {@code -Dbench.overlayRuns=7} (draws per overlay size), {@code -Dbench.overlayFrames=240}.
+ * {@code -Dbench.overlayRuns=7} (draws per overlay size), {@code -Dbench.overlayFrames=240},
+ * {@code -Dbench.pageProfile=fixed|thickness|weighted} and {@code -Dbench.overlayProfile=true} (one more run under
+ * Chromium's JavaScript profiler, its top self times printed as {@code BENCH page-profile} lines).
  */
 @SpringBootTest(webEnvironment = SpringBootTest.WebEnvironment.RANDOM_PORT)
 @TestPropertySource(properties = "spring.datasource.url=jdbc:h2:mem:page-speed-bench;DB_CLOSE_DELAY=-1")
@@ -197,6 +199,9 @@ class PageSpeedBenchmark {
             for (int n : new int[] {1, OVERLAY_CURVES}) {
                 timings.computeIfAbsent(n, k -> new ArrayList<>()).add(overlayOnce(n, frames));
             }
+        }
+        if (Boolean.getBoolean("bench.overlayProfile")) {
+            profile("page-overlay curves=" + OVERLAY_CURVES, () -> overlayOnce(OVERLAY_CURVES, frames));
         }
         browser.screenshot("page-speed-overlay-20", "compare");
         timings.forEach((n, list) -> {
