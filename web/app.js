@@ -329,12 +329,14 @@ async function selectMaterial(id, rescaleTo = null) {
     figures.showMaterial(material, rescaleTo?.sampleId); // a shortlist row's own sample (docs/result-rows.md)
     similar.showMaterial(material, rescaleTo?.sampleId);
     const prefilled = prefillRescale(material, rescaleTo);
+    // curves (and the row's rescaled one) asked before the layout and the address below: the server works meanwhile
+    const curvesShown = Promise.all([loadCurves(material, request), prefilled ? applyRescale() : null]); // docs/page-speed.md
     dom.placeholder.hidden = true;
     dom.detail.hidden = false;
     rememberView({ push: true }); // opening a material is a step Back returns from (address.js)
     if (rescaleTo?.reveal) dom.detail.scrollIntoView({ block: 'start' });
-    await loadCurves(material, request);
-    if (prefilled && request === state.detailRequest) await applyRescale();
+    await curvesShown;
+    if (request === state.detailRequest) performance.mark('sieve:material-shown'); // docs/page-speed.md
   } catch (problem) {
     if (request !== state.detailRequest) return;
     showProblem(problem, 'Loading the material');

@@ -143,6 +143,7 @@ export function drawCurves(container, curves, modeKey) {
     cursor: { drag: { x: true, y: false } },
     hooks: { drawClear: [shadeBands] },
   };
+  options.hooks.draw = [() => performance.mark('sieve:chart-drawn')]; // page speed benchmark (docs/page-speed.md)
   const plot = new uPlot(options, data, container);
   let highest = -Infinity;
   for (const column of data.slice(1)) {

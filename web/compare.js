@@ -358,7 +358,7 @@ export function initCompare(ui) {
       series,
       cursor: { drag: { x: true, y: false } },
       // the requirement is drawn over the curves, so a marker stays visible where a curve crosses it
-      hooks: { draw: [(u) => drawRequirement(u, clauses, modeKey)] },
+      hooks: { draw: [(u) => drawRequirement(u, clauses, modeKey), () => performance.mark('sieve:compare-drawn')] },
     }, data, dom.chart);
     dom.chart.dataset.series = String(drawn.length);
     dom.chart.dataset.axisMode = modeKey;

@@ -220,6 +220,7 @@ export function initSearch(ui) {
       hideError();
       renderClauses(answer.requirement, answer.words);
       renderResults(answer, text);
+      performance.mark('sieve:results-rendered'); // timed by the page speed benchmark (docs/page-speed.md)
       dom.results.dispatchEvent(new CustomEvent('shortlist', { detail: answer })); // compare.js listens
       ui.searched?.(text); // the address keeps the requirement searched (address.js)
     } catch (problem) {
