@@ -546,6 +546,16 @@ public class SearchService {
         return current().store();
     }
 
+    /** The current snapshot's decoded curves: how many, their heap (estimate) and the budget (docs/curve-cache.md). */
+    public CurveCacheUse curveCacheUse() {
+        CurveCache cache = current().curves();
+        return new CurveCacheUse(cache.size(), cache.heapBytes(), cache.budgetBytes());
+    }
+
+    /** @param heapBytes estimated heap of the cached curves and the arrays they share */
+    public record CurveCacheUse(int curves, long heapBytes, long budgetBytes) {
+    }
+
     /**
      * Marks the derived store stale; the next search rebuilds it from the database. Every write path raises
      * the database's change counter ({@link LibraryGeneration#bump}), which the next search notices anyway;
