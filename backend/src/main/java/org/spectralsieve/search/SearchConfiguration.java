@@ -1,6 +1,7 @@
 package org.spectralsieve.search;
 
 import org.spectralsieve.library.JooqLibraryRepository;
+import org.springframework.beans.factory.annotation.Value;
 import org.springframework.context.annotation.Bean;
 import org.springframework.context.annotation.Configuration;
 
@@ -8,8 +9,13 @@ import org.springframework.context.annotation.Configuration;
 class SearchConfiguration {
 
     @Bean
-    SearchService searchService(JooqLibraryRepository library) {
-        return new SearchService(library);
+    SearchService searchService(JooqLibraryRepository library,
+                                @Value("${sieve.search.curve-cache-mb:128}") long curveCacheMb) {
+        if (curveCacheMb < 0) {
+            throw new IllegalArgumentException("sieve.search.curve-cache-mb must be >= 0 (0 reads every judged curve"
+                    + " from the database), was " + curveCacheMb);
+        }
+        return new SearchService(library, curveCacheMb << 20);
     }
 
     @Bean

@@ -76,6 +76,12 @@ public class SearchService {
     /** Shortlist length when the caller names none, and the most a caller may ask for (HTTP and command line). */
     public static final int DEFAULT_LIMIT = 20;
     public static final int MAX_LIMIT = 500;
+    /**
+     * Heap for decoded curves by default (setting {@code sieve.search.curve-cache-mb}): 128 MB holds about
+     * 15,000 curves of 911 points, so the demo library and a 10k library are judged from memory in a 512 MB
+     * heap (docs/curve-cache.md).
+     */
+    public static final long DEFAULT_CURVE_CACHE_BYTES = 128L << 20;
 
     private final JooqLibraryRepository library;
     private final AtomicReference<Snapshot> snapshot = new AtomicReference<>();
@@ -85,15 +91,30 @@ public class SearchService {
     private final Object building = new Object();
     /** Runs between reading the library and installing the snapshot: a seam for the race test, else nothing. */
     private final LongConsumer beforeInstall;
+    /** Heap for each snapshot's decoded curves ({@link CurveCache}); 0 reads every judged curve from the database. */
+    private final long curveCacheBytes;
 
     public SearchService(JooqLibraryRepository library) {
-        this(library, generation -> { });
+        this(library, DEFAULT_CURVE_CACHE_BYTES);
+    }
+
+    /**
+     * @param curveCacheBytes heap for decoded curves, so the exact judgement reads memory; 0 reads each judged
+     *                        curve from the database (the way before the cache, kept for the benchmark)
+     */
+    public SearchService(JooqLibraryRepository library, long curveCacheBytes) {
+        this(library, generation -> { }, curveCacheBytes);
     }
 
     /** @param beforeInstall called with the built snapshot's generation just before it is installed (tests) */
     SearchService(JooqLibraryRepository library, LongConsumer beforeInstall) {
+        this(library, beforeInstall, DEFAULT_CURVE_CACHE_BYTES);
+    }
+
+    private SearchService(JooqLibraryRepository library, LongConsumer beforeInstall, long curveCacheBytes) {
         this.library = library;
         this.beforeInstall = beforeInstall;
+        this.curveCacheBytes = curveCacheBytes;
     }
 
     /**
@@ -102,9 +123,10 @@ public class SearchService {
      * @param generation    the library's change counter read before any table was: the snapshot holds at
      *                      least every change committed up to that number (perhaps some later ones too)
      * @param invalidations {@link #invalidations} read at the same moment
+     * @param curves        the decoded curves the store was built from, as many as the budget holds
      */
     private record Snapshot(SpectralStore store, Map<Long, Material> materials, Map<Long, SampleInfo> samples,
-                            long generation, long invalidations) {
+                            long generation, long invalidations, CurveCache curves) {
 
         /** Read no earlier than {@code other}: both counters only grow, so a later read has both at least as large. */
         boolean notOlderThan(Snapshot other) {
@@ -127,7 +149,7 @@ public class SearchService {
         List<MaterialEvaluation> exact = new ArrayList<>();
         for (long materialId : materialIds) {
             Material material = s.materials().get(materialId);
-            exact.addAll(judge(material, requirement, Optional.empty(), false));
+            exact.addAll(judge(s, material, requirement, Optional.empty(), false));
         }
         List<RankedRow> rows = rank(s, requirement, exact, limit);
         double tookMs = (System.nanoTime() - started) / 1e6;
@@ -154,15 +176,15 @@ public class SearchService {
      * @param diffuseLayer the requirement's fixed layer was measured in total geometry, so the light of every
      *                     path includes scatter
      */
-    private List<MaterialEvaluation> judge(Material material, Requirement requirement, Optional<StackLayer> layer,
-                                           boolean diffuseLayer) {
+    private List<MaterialEvaluation> judge(Snapshot s, Material material, Requirement requirement,
+                                           Optional<StackLayer> layer, boolean diffuseLayer) {
         MadeThicknesses made = made(material);
         List<Candidate> candidates = new ArrayList<>();
         List<MaterialEvaluation> failed = new ArrayList<>();
         for (SampleInfo sample : material.samples()) {
             if (admits(requirement, material, sample)) {
                 try {
-                    Curve curve = library.findCurve(sample.id()).orElseThrow(
+                    Curve curve = curve(s, sample.id()).orElseThrow(
                             () -> new IllegalStateException("the sample has no readable curve"));
                     SampleRescaling rescaling = SampleRescaling.of(material, sample);
                     candidates.add(new Candidate(sample.id(), material.id(), material.name(), curve,
@@ -183,6 +205,21 @@ public class SearchService {
             }
         }
         return out;
+    }
+
+    /**
+     * The sample's decoded curve: from the snapshot's cache, else read from the database (and cached, the
+     * least recently judged making room). The cache is the snapshot's own, so a curve changed since is
+     * never served: the changed library has a new snapshot.
+     */
+    private Optional<Curve> curve(Snapshot s, long sampleId) {
+        Curve cached = s.curves().get(sampleId);
+        if (cached != null) {
+            return Optional.of(cached);
+        }
+        Optional<Curve> read = library.findCurve(sampleId);
+        read.ifPresent(c -> s.curves().put(sampleId, c));
+        return read;
     }
 
     /** An unverified row for a stored sample whose judgement failed, with the reason (docs/validation.md). */
@@ -235,7 +272,7 @@ public class SearchService {
             if (allMiss && madeFor(requirement.thickness(), material)) {
                 held.put(material, bound);
             } else {
-                exact.addAll(judge(material, requirement, layer, diffuseLayer));
+                exact.addAll(judge(s, material, requirement, layer, diffuseLayer));
             }
         }
         List<RankedRow> rows = rank(s, requirement, exact, limit);
@@ -253,7 +290,7 @@ public class SearchService {
                 }
                 break; // bounds only fall from here on
             }
-            exact.addAll(judge(entry.getKey(), requirement, layer, diffuseLayer));
+            exact.addAll(judge(s, entry.getKey(), requirement, layer, diffuseLayer));
             rows = rank(s, requirement, exact, limit);
         }
         double tookMs = (System.nanoTime() - started) / 1e6;
@@ -414,7 +451,7 @@ public class SearchService {
         for (long id : new LinkedHashSet<>(materialIds)) {
             Material material = s.materials().get(id);
             if (material != null) {
-                exact.addAll(judge(material, requirement, layer, diffuseLayer));
+                exact.addAll(judge(s, material, requirement, layer, diffuseLayer));
             }
         }
         Map<Long, SampleEvaluationRow> out = new LinkedHashMap<>();
@@ -450,7 +487,7 @@ public class SearchService {
             throw new UnusableRecordException("the part in front, sample " + sample.id() + " of '" + m.name() + "', "
                     + unusable.get());
         }
-        Curve curve = library.findCurve(sample.id()).orElseThrow(() -> new UnusableRecordException(
+        Curve curve = curve(s, sample.id()).orElseThrow(() -> new UnusableRecordException(
                 "the part in front, sample " + sample.id() + " of '" + m.name() + "', has no readable curve"));
         return StackLayer.of(layer, m.id(), m.name(), m.slug(), sample.id(), curve, sample.thicknessMm(),
                 SampleRescaling.of(m, sample).rescalable(), m.refractiveIndex());
@@ -507,6 +544,16 @@ public class SearchService {
      */
     public SpectralStore store() {
         return current().store();
+    }
+
+    /** The current snapshot's decoded curves: how many, their heap (estimate) and the budget (docs/curve-cache.md). */
+    public CurveCacheUse curveCacheUse() {
+        CurveCache cache = current().curves();
+        return new CurveCacheUse(cache.size(), cache.heapBytes(), cache.budgetBytes());
+    }
+
+    /** @param heapBytes estimated heap of the cached curves and the arrays they share */
+    public record CurveCacheUse(int curves, long heapBytes, long budgetBytes) {
     }
 
     /**
@@ -583,6 +630,7 @@ public class SearchService {
         SpectralStore.Builder builder = SpectralStore.builder(SpectralStore.DEFAULT_GRID, samples);
         Map<Long, Material> byId = new java.util.HashMap<>();
         Map<Long, SampleInfo> sampleById = new java.util.HashMap<>();
+        CurveCache cache = new CurveCache(curveCacheBytes);
         for (Material m : materials) {
             byId.put(m.id(), m);
             m.samples().forEach(sample -> sampleById.put(sample.id(), sample));
@@ -592,6 +640,7 @@ public class SearchService {
                 if (curve == null) {
                     continue; // unreadable (logged by the repository): judged only by the exact evaluator, which says why
                 }
+                cache.offer(sample.id(), curve);
                 // the store rescales exactly what the exact evaluator rescales: never a diffuse or scattering
                 // sample, nor one whose stored thickness or index fails today's checks (SampleRescaling.unusable):
                 // such a sample enters at a thickness and index the store can hold, never rescaled, and its
@@ -602,6 +651,6 @@ public class SearchService {
                         usable ? m.refractiveIndex() : ConstantIndex.WHEN_UNRECORDED, curve);
             }
         }
-        return new Snapshot(builder.build(), Map.copyOf(byId), Map.copyOf(sampleById), generation, invalidated);
+        return new Snapshot(builder.build(), Map.copyOf(byId), Map.copyOf(sampleById), generation, invalidated, cache);
     }
 }

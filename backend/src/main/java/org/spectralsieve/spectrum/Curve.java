@@ -373,6 +373,30 @@ public final class Curve {
         return minWavelengthNm() + ".." + maxWavelengthNm() + " nm";
     }
 
+    /**
+     * The same curve holding its wavelengths and detection limits in the pool's arrays where an equal one is
+     * pooled (or pooling its own), so curves measured alike keep one copy of them: for caches of decoded
+     * curves ({@link SharedCurveArrays}). Equal to this curve in every value.
+     */
+    public Curve sharingArraysWith(SharedCurveArrays pool) {
+        double[] nm = pool.canonical(wavelengthsNm);
+        double[] limits = pool.canonical(detectionLimits);
+        return nm == wavelengthsNm && limits == detectionLimits ? this
+                : new Curve(nm, transmittance, belowDetection, limits, absorbanceSigma);
+    }
+
+    /**
+     * The heap this curve holds apart from arrays held in the pool (an estimate for a 64-bit JVM with
+     * compressed references: object and array headers, 8 bytes a double, 1 a flag).
+     */
+    public long heapBytesBeside(SharedCurveArrays pool) {
+        int n = wavelengthsNm.length;
+        long own = 32 + SharedCurveArrays.arrayBytes(n) + 16L + n; // object, transmittances, flags
+        own += pool.holds(wavelengthsNm) ? 0 : SharedCurveArrays.arrayBytes(n);
+        own += pool.holds(detectionLimits) ? 0 : SharedCurveArrays.arrayBytes(n);
+        return own + (absorbanceSigma == null ? 0 : SharedCurveArrays.arrayBytes(n));
+    }
+
     @Override
     public boolean equals(Object o) {
         return o instanceof Curve other

@@ -1,0 +1,273 @@
+package org.spectralsieve.search;
+
+import static org.assertj.core.api.Assertions.assertThat;
+
+import java.util.ArrayList;
+import java.util.EnumMap;
+import java.util.HashSet;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+import java.util.Optional;
+import java.util.Random;
+import java.util.Set;
+import org.jooq.DSLContext;
+import org.junit.jupiter.api.BeforeAll;
+import org.junit.jupiter.api.Test;
+import org.spectralsieve.library.Geometry;
+import org.spectralsieve.library.JooqLibraryRepository;
+import org.spectralsieve.library.Material;
+import org.spectralsieve.library.MaterialClass;
+import org.spectralsieve.library.MigratedDatabase;
+import org.spectralsieve.library.NewMaterial;
+import org.spectralsieve.library.NewSample;
+import org.spectralsieve.library.Provenance;
+import org.spectralsieve.library.SampleInfo;
+import org.spectralsieve.library.SampleRescaling;
+import org.spectralsieve.library.Scaling;
+import org.spectralsieve.requirement.Candidate;
+import org.spectralsieve.requirement.MaterialEvaluation;
+import org.spectralsieve.requirement.MaterialJudge;
+import org.spectralsieve.requirement.RankedRow;
+import org.spectralsieve.requirement.Ranking;
+import org.spectralsieve.requirement.Requirement;
+import org.spectralsieve.requirement.RequirementParser;
+import org.spectralsieve.requirement.SeeThrough;
+import org.spectralsieve.requirement.StackLayer;
+import org.spectralsieve.seed.DemoLibraryLoader;
+import org.spectralsieve.spectrum.Curve;
+import org.spectralsieve.spectrum.WavelengthGrid;
+import org.spectralsieve.store.SyntheticCurves;
+import org.springframework.core.io.DefaultResourceLoader;
+
+/**
+ * Property: the search service's answer — the store's pick for plain requirements, exact judgement with
+ * the store's proven misses held back for the rest, curves read from the snapshot's cache — equals judging
+ * every admitted sample exactly and ranking the judgements: same rows, same order, same verdicts and values.
+ * For plain requirements (as measured, at a fixed thickness, thickness solved), weighted ones, behind a
+ * layer, and solved weighted ones, on the demo library plus random synthetic materials ({@link SyntheticCurves}:
+ * absorption edges, dye bands, Fresnel surfaces, detection floors) in a fresh database, fixed seed.
+ *
+ * <p>The reference is built from the public core only ({@link MaterialJudge}, {@link Ranking}) on curves read
+ * from the database, never through the service. The requirement wordings and their thresholds are drawn
+ * from the trade's usual ranges (common practice, no source). Three services answer each requirement: one
+ * whose cache holds the whole library, one whose budget holds a few curves (so curves are read, cached and
+ * evicted during the search), and one without a cache (every curve read from the database).
+ */
+class SearchEqualsExactJudgementPropertyTest {
+
+    private static final String[] LAYERS = {"behind 4 mm clear float glass", "on 3 mm fused silica",
+            "behind 0.112 mm amber masking film", "on 2 mm borosilicate"};
+    private static final String[] CLASSES = {"plastic sheet", "film", "window glass"};
+
+    private enum Kind { PLAIN_AS_MEASURED, PLAIN_FIXED, PLAIN_SOLVE, WEIGHTED, STACKED, SOLVED, STACKED_SOLVED }
+
+    private static JooqLibraryRepository library;
+    private static SearchService cached;
+    private static SearchService tinyCache;
+    private static SearchService uncached;
+
+    @BeforeAll
+    static void library() {
+        DSLContext db = MigratedDatabase.freshH2();
+        library = new JooqLibraryRepository(db);
+        new DemoLibraryLoader(library, db, new DefaultResourceLoader(), "classpath:seed-materials/").load();
+        addSyntheticMaterials(new Random(20261204L), 30);
+        cached = new SearchService(library);
+        tinyCache = new SearchService(library, 120_000); // about a dozen curves of 911 points
+        uncached = new SearchService(library, 0);
+    }
+
+    @Test
+    void everyKindOfSearchEqualsJudgingEverySampleExactly() {
+        Random random = new Random(20261204L);
+        List<Material> materials = library.findMaterials(null, null);
+        Map<Kind, Integer> nonEmpty = new EnumMap<>(Kind.class);
+        int held = 0;
+        for (int trial = 0; trial < 35; trial++) {
+            Kind kind = Kind.values()[trial % Kind.values().length];
+            String text = requirement(kind, random);
+            Requirement requirement = RequirementParser.parse(text);
+            int limit = new int[] {1, 3, 5, 10, 40}[random.nextInt(5)];
+
+            Shortlist answer = cached.search(requirement, limit);
+            List<RankedRow> expected = judgeEverySample(requirement, answer.layer(), materials, limit);
+
+            assertThat(answer.rows()).as(kind + ": " + text + " (limit " + limit + ")").containsExactlyElementsOf(expected);
+            assertThat(tinyCache.search(requirement, limit).rows()).as("few curves cached: " + text)
+                    .containsExactlyElementsOf(expected);
+            if (trial % 3 == 0) {
+                assertThat(uncached.search(requirement, limit).rows()).as("no cache: " + text)
+                        .containsExactlyElementsOf(expected);
+            }
+            assertThat(requirement.plain()).isEqualTo(kind.name().startsWith("PLAIN"));
+            nonEmpty.merge(kind, expected.isEmpty() ? 0 : 1, Integer::sum);
+            held += answer.judgedExactly() < answer.evaluatedSamples() ? 1 : 0;
+        }
+        // not vacuous: every kind found rows, and the store spared exact judgements in some searches
+        assertThat(nonEmpty.values()).allMatch(n -> n >= 3);
+        assertThat(held).isGreaterThan(5);
+    }
+
+    @Test
+    void theCacheIsReplacedWithTheSnapshotWhenACurveIsAdded() {
+        DSLContext db = MigratedDatabase.freshH2();
+        JooqLibraryRepository own = new JooqLibraryRepository(db);
+        addSynthetic(own, new Random(7), 0);
+        SearchService service = new SearchService(own);
+        Requirement requirement = RequirementParser.parse("passes over 50% of led 395");
+        int cachedBefore = service.curveCacheUse().curves();
+
+        addSynthetic(own, new Random(8), 1); // raises the library's change counter
+
+        Shortlist after = service.search(requirement, 40);
+        List<Material> materials = own.findMaterials(null, null);
+        assertThat(after.rows()).containsExactlyElementsOf(judgeEverySample(own, requirement, Optional.empty(), materials, 40));
+        int samples = materials.stream().mapToInt(m -> m.samples().size()).sum();
+        assertThat(service.curveCacheUse().curves()).isEqualTo(samples).isGreaterThan(cachedBefore);
+    }
+
+    private static String requirement(Kind kind, Random random) {
+        List<String> parts = new ArrayList<>();
+        boolean plain = kind.name().startsWith("PLAIN");
+        String clauses = plain ? plainClause(random) : weightedClause(random);
+        if (random.nextBoolean()) {
+            clauses += " and " + (plain ? plainClause(random) : random.nextBoolean() ? plainClause(random) : weightedClause(random));
+        }
+        parts.add(clauses);
+        switch (kind) {
+            case PLAIN_FIXED -> parts.add("at " + new String[] {"1", "2", "3", "4", "6"}[random.nextInt(5)] + " mm");
+            case PLAIN_SOLVE, SOLVED, STACKED_SOLVED -> parts.add("thickness "
+                    + new String[] {"1 to 6", "0.5 to 3", "2 to 10"}[random.nextInt(3)] + " mm");
+            default -> { }
+        }
+        if (kind == Kind.STACKED || kind == Kind.STACKED_SOLVED) {
+            parts.add(LAYERS[random.nextInt(LAYERS.length)]);
+        }
+        if (random.nextInt(6) == 0) {
+            parts.add("class " + CLASSES[random.nextInt(CLASSES.length)]);
+        }
+        return String.join(", ", parts);
+    }
+
+    private static String plainClause(Random random) {
+        int nm = 250 + 10 * random.nextInt(40);
+        return switch (random.nextInt(5)) {
+            case 0 -> "passes over " + percent(50 + 45 * random.nextDouble()) + " at " + nm + " nm";
+            case 1 -> "blocks under " + percent(Math.pow(10, 1 - 3 * random.nextDouble())) + " at " + nm + " nm";
+            case 2 -> "passes over " + percent(40 + 50 * random.nextDouble()) + " from " + nm + " to " + (nm + 30) + " nm";
+            case 3 -> "blocks under " + percent(Math.pow(10, 1 - 3 * random.nextDouble())) + " from " + nm + " to "
+                    + (nm + 20) + " nm";
+            default -> {
+                int from = 300 + 10 * random.nextInt(15);
+                yield "cutoff between " + from + " and " + (from + 10 + 10 * random.nextInt(5)) + " nm";
+            }
+        };
+    }
+
+    private static String weightedClause(Random random) {
+        String led = "led " + new String[] {"365", "385", "395", "405"}[random.nextInt(4)];
+        return switch (random.nextInt(6)) {
+            case 0 -> "passes over " + percent(50 + 45 * random.nextDouble()) + " of " + led;
+            case 1 -> "blocks under " + percent(Math.pow(10, 1 - 3 * random.nextDouble())) + " of " + led;
+            case 2 -> "erythemal under " + percent(Math.pow(10, 1 - 3 * random.nextDouble()));
+            case 3 -> "uv hazard under " + percent(Math.pow(10, 1 - 3 * random.nextDouble()));
+            case 4 -> "luminous over " + percent(20 + 70 * random.nextDouble());
+            default -> "critical wavelength over " + (340 + random.nextInt(50)) + " nm";
+        };
+    }
+
+    private static String percent(double p) {
+        return String.format(Locale.ROOT, "%.2f%%", p);
+    }
+
+    private static List<RankedRow> judgeEverySample(Requirement requirement, Optional<StackLayer> layer,
+                                                    List<Material> materials, int limit) {
+        return judgeEverySample(library, requirement, layer, materials, limit);
+    }
+
+    /** Every admitted sample judged with its material's others ({@link MaterialJudge}), ranked as documented. */
+    private static List<RankedRow> judgeEverySample(JooqLibraryRepository library, Requirement requirement,
+                                                    Optional<StackLayer> layer, List<Material> materials, int limit) {
+        boolean diffuseLayer = layer.map(l -> library.findSample(l.sampleId()).orElseThrow().geometry() == Geometry.TOTAL)
+                .orElse(false);
+        List<MaterialEvaluation> all = new ArrayList<>();
+        Set<Long> total = new HashSet<>();
+        for (Material m : materials) {
+            List<Candidate> admitted = new ArrayList<>();
+            for (SampleInfo s : m.samples()) {
+                if (requirement.materialClass().map(c -> c.equals(m.materialClass().label())).orElse(true)
+                        && requirement.admitsGeometry(s.geometry().label())) {
+                    SampleRescaling rescaling = SampleRescaling.of(m, s);
+                    admitted.add(new Candidate(s.id(), m.id(), m.name(), library.findCurve(s.id()).orElseThrow(),
+                            s.thicknessMm(), rescaling.rescalable(), m.refractiveIndex(), SearchService.made(m),
+                            s.geometry() == Geometry.TOTAL || diffuseLayer, rescaling.reason()));
+                    if (s.geometry() == Geometry.TOTAL) {
+                        total.add(s.id());
+                    }
+                }
+            }
+            if (!admitted.isEmpty()) {
+                all.addAll(MaterialJudge.evaluate(admitted, requirement, layer));
+            }
+        }
+        return diffuseLast(requirement, all, total, limit);
+    }
+
+    /**
+     * The documented order (docs/geometry-and-edges.md): with a see-through clause that does not accept total
+     * transmittance, the rows judged in regular geometry first, then the materials with none.
+     */
+    private static List<RankedRow> diffuseLast(Requirement requirement, List<MaterialEvaluation> all, Set<Long> total,
+                                               int limit) {
+        if (requirement.acceptsTotalTransmittance() || requirement.clauses().stream().noneMatch(SeeThrough::needsRegular)) {
+            return Ranking.rank(all, limit);
+        }
+        List<MaterialEvaluation> regular = all.stream().filter(e -> !total.contains(e.evaluation().sampleId())).toList();
+        List<RankedRow> rows = new ArrayList<>(Ranking.rank(regular, limit));
+        Set<Long> first = new HashSet<>();
+        regular.forEach(e -> first.add(e.materialId()));
+        List<MaterialEvaluation> rest = all.stream()
+                .filter(e -> !first.contains(e.materialId()) && total.contains(e.evaluation().sampleId())).toList();
+        for (RankedRow row : Ranking.rank(rest, limit - rows.size())) {
+            rows.add(new RankedRow(rows.size() + 1, row.materialId(), row.materialName(), row.evaluation()));
+        }
+        return rows;
+    }
+
+    private static void addSyntheticMaterials(Random random, int count) {
+        for (int i = 0; i < count; i++) {
+            addSynthetic(library, random, i);
+        }
+    }
+
+    /**
+     * One synthetic material with one to three samples at random thicknesses (illustrative, invented stock):
+     * curves of {@link SyntheticCurves} on a 2 nm grid from 250 to 800 nm, a fifth of the materials fixed
+     * parts, one sample in eight measured in total geometry.
+     */
+    private static void addSynthetic(JooqLibraryRepository into, Random random, int number) {
+        SyntheticCurves curves = new SyntheticCurves(random.nextLong(), new WavelengthGrid(250, 800, 2));
+        SyntheticCurves.Spec first = curves.next();
+        boolean fixed = random.nextInt(5) == 0;
+        long material = into.insertMaterial(new NewMaterial("synthetic-stock-" + number, "Synthetic stock " + number,
+                MaterialClass.of(CLASSES[random.nextInt(CLASSES.length)]), "illustrative, generated", List.of(),
+                fixed ? Scaling.FIXED : Scaling.BULK, SyntheticCurves.INDICES[first.index()]));
+        int samples = 1 + random.nextInt(3);
+        for (int s = 0; s < samples; s++) {
+            // the same substance at another thickness: only the thickness of the first spec changes
+            double mm = s == 0 ? first.thicknessMm() : 0.5 + random.nextDouble() * 9.5;
+            SyntheticCurves.Spec spec = new SyntheticCurves.Spec(first.edgeNm(), first.edgeWidthNm(), first.bandNm(),
+                    first.bandPeakPerMm(), first.bandWidthNm(), first.backgroundPerMm(), mm, first.index(), first.floor());
+            double[] nm = new WavelengthGrid(250, 800, 2).points();
+            double[] t = new double[nm.length];
+            for (int w = 0; w < nm.length; w++) {
+                t[w] = SyntheticCurves.transmittance(spec, nm[w]);
+            }
+            Geometry geometry = random.nextInt(8) == 0 ? Geometry.TOTAL : Geometry.REGULAR;
+            into.insertSample(material, new NewSample(mm, geometry, Provenance.MODELLED, "", null, "", "illustrative",
+                    spec.floor(), Curve.of(nm, t, spec.floor()), "synthetic-" + number + "-" + s + ".csv",
+                    String.format(Locale.ROOT, "%064x", (long) number * 16 + s)));
+        }
+    }
+}
