@@ -69,6 +69,8 @@ final class StoreRowSource {
                                 Map<Long, SampleInfo> previousSamples, long previousGeneration, long generation) {
         Optional<java.util.Set<Long>> changed = library.materialsChanged(previousGeneration, generation);
         if (changed.isEmpty()) {
+            LOG.info("search store read whole: the change log does not account for every change from generation {} to {}",
+                    previousGeneration, generation);
             return everything(library);
         }
         return new StoreRowSource(library, null, previous, previousSamples);
