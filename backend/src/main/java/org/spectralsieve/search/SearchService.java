@@ -582,7 +582,7 @@ public class SearchService {
             if (fresh(s, generation)) {
                 return s; // built by another search while this one waited
             }
-            Snapshot built = build();
+            Snapshot built = build(s);
             beforeInstall.accept(built.generation());
             install(built);
             // answer from what was just read even if a write landed meanwhile: it holds every change up to
@@ -621,11 +621,15 @@ public class SearchService {
      * commits after that read is either missing from the tables read (and the number says so: the next
      * search rebuilds) or already in them (a rebuild too many, never a change missed).
      */
-    private Snapshot build() {
+    private Snapshot build(Snapshot previous) {
         long invalidated = invalidations.get();
         long generation = library.generation();
         List<Material> materials = library.findMaterials(null, null);
-        Map<Long, Curve> curves = library.findAllCurves();
+        // an unchanged sample's row is carried over from the previous store (StoreRowSource says why that is
+        // sound); an invalidate() names no sample, so after one everything is read again
+        StoreRowSource curves = previous != null && previous.invalidations() == invalidated
+                ? StoreRowSource.after(library, previous.store(), previous.samples(), previous.generation(), generation)
+                : StoreRowSource.everything(library);
         int samples = materials.stream().mapToInt(m -> m.samples().size()).sum();
         SpectralStore.Builder builder = SpectralStore.builder(SpectralStore.DEFAULT_GRID, samples);
         Map<Long, Material> byId = new java.util.HashMap<>();
@@ -636,19 +640,22 @@ public class SearchService {
             m.samples().forEach(sample -> sampleById.put(sample.id(), sample));
             StoredMaterial stored = new StoredMaterial(m.id(), m.name(), m.materialClass().label(), made(m));
             for (SampleInfo sample : m.samples()) {
-                Curve curve = curves.get(sample.id());
-                if (curve == null) {
-                    continue; // unreadable (logged by the repository): judged only by the exact evaluator, which says why
-                }
-                cache.offer(sample.id(), curve);
                 // the store rescales exactly what the exact evaluator rescales: never a diffuse or scattering
                 // sample, nor one whose stored thickness or index fails today's checks (SampleRescaling.unusable):
                 // such a sample enters at a thickness and index the store can hold, never rescaled, and its
                 // exact row is unverified with the reason
                 boolean usable = SampleRescaling.unusable(m, sample).isEmpty();
-                builder.add(sample.id(), stored, usable ? sample.thicknessMm() : storableThickness(sample.thicknessMm()),
+                // no readable curve: left out (logged), judged only by the exact evaluator, which says why
+                Curve decoded = curves.add(builder, sample, stored,
+                        usable ? sample.thicknessMm() : storableThickness(sample.thicknessMm()),
                         SampleRescaling.of(m, sample).rescalable(), sample.geometry() == Geometry.TOTAL,
-                        usable ? m.refractiveIndex() : ConstantIndex.WHEN_UNRECORDED, curve);
+                        usable ? m.refractiveIndex() : ConstantIndex.WHEN_UNRECORDED);
+                // the exact judgement's copy: the curve just decoded, or the previous snapshot's (a stored curve
+                // row is never changed, only a sample's record: the same id keeps the same curve)
+                Curve kept = decoded != null ? decoded : previous == null ? null : previous.curves().get(sample.id());
+                if (kept != null) {
+                    cache.offer(sample.id(), kept);
+                }
             }
         }
         return new Snapshot(builder.build(), Map.copyOf(byId), Map.copyOf(sampleById), generation, invalidated, cache);

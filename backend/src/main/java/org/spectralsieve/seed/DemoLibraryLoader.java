@@ -52,13 +52,22 @@ public class DemoLibraryLoader {
         this.location = location.endsWith("/") ? location : location + "/";
     }
 
-    /** @return the number of samples stored */
+    /**
+     * Stores the whole catalogue in one transaction: one commit (one write of the H2 file) instead of one per
+     * material, and a start interrupted half way leaves an empty library, which the next start loads again
+     * (a partly loaded one would count as not empty and never be completed).
+     *
+     * @return the number of samples stored
+     */
     public int load() {
         JsonNode catalogue = readCatalogue();
-        int samples = 0;
-        for (JsonNode material : catalogue.path("materials")) {
-            samples += loadMaterial(material);
-        }
+        int samples = db.transactionResult(tx -> {
+            int stored = 0;
+            for (JsonNode material : catalogue.path("materials")) {
+                stored += loadMaterial(material);
+            }
+            return stored;
+        });
         log.info("Demo library loaded: {} materials, {} samples ({})", catalogue.path("materials").size(), samples,
                 catalogue.path("notice").asString(""));
         return samples;

@@ -176,6 +176,18 @@ public final class SpectralStore {
         return Curve.of(nm, t, below, limits);
     }
 
+    /**
+     * The curve's codes on the grid, one per grid wavelength (a copy), as {@link Builder#addEncoded} takes them:
+     * a rebuild carries an unchanged curve over without reading and encoding it again.
+     */
+    public short[] codes(int curve) {
+        short[] codes = new short[gridNm.length];
+        for (int w = 0; w < gridNm.length; w++) {
+            codes[w] = columns[w][curve];
+        }
+        return codes;
+    }
+
     /** Bytes the store's arrays take per curve (columns and per-curve fields; shared tables excluded). */
     public double bytesPerCurve() {
         long perCurve = (long) gridNm.length * Short.BYTES + Long.BYTES + Integer.BYTES + Float.BYTES + 1 + 1 + Short.BYTES;

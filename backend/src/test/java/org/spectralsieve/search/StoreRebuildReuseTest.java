@@ -1,0 +1,145 @@
+package org.spectralsieve.search;
+
+import static org.assertj.core.api.Assertions.assertThat;
+
+import java.nio.charset.StandardCharsets;
+import java.util.ArrayList;
+import java.util.Arrays;
+import java.util.List;
+import java.util.UUID;
+import org.flywaydb.core.Flyway;
+import org.h2.jdbcx.JdbcDataSource;
+import org.jooq.DSLContext;
+import org.jooq.SQLDialect;
+import org.jooq.impl.DSL;
+import org.junit.jupiter.api.BeforeEach;
+import org.junit.jupiter.api.Test;
+import org.spectralsieve.ingest.Checksums;
+import org.spectralsieve.library.Geometry;
+import org.spectralsieve.library.JooqLibraryRepository;
+import org.spectralsieve.library.JooqLibraryRevisions;
+import org.spectralsieve.library.Material;
+import org.spectralsieve.library.NewSample;
+import org.spectralsieve.library.Provenance;
+import org.spectralsieve.library.SampleCorrection;
+import org.spectralsieve.library.SampleInfo;
+import org.spectralsieve.library.SourceFile;
+import org.spectralsieve.requirement.Requirement;
+import org.spectralsieve.requirement.RequirementParser;
+import org.spectralsieve.seed.DemoLibraryLoader;
+import org.spectralsieve.spectrum.Curve;
+import org.spectralsieve.store.SpectralStore;
+import org.springframework.core.io.DefaultResourceLoader;
+
+/**
+ * A store rebuilt after writes by carrying unchanged rows over from the previous store (StoreRowSource) is
+ * row for row the store a fresh service builds from the whole database, and answers the same: checked on the
+ * illustrative demo library after an import into an existing material, a new material, a corrected sample
+ * and a retired one. The reference is the same code's whole build, read independently from the database.
+ */
+class StoreRebuildReuseTest {
+
+    private static final Requirement PLAIN = RequirementParser.parse("passes over 80% at 365 nm and blocks under 1% at 405 nm");
+    private static final Requirement SOLVED = RequirementParser.parse(
+            "passes over 80% at 365 nm and blocks under 1% at 405 nm, thickness 1 to 6 mm");
+
+    private JooqLibraryRepository library;
+    private JooqLibraryRevisions revisions;
+
+    @BeforeEach
+    void loadDemoLibrary() {
+        JdbcDataSource dataSource = new JdbcDataSource();
+        dataSource.setURL("jdbc:h2:mem:" + UUID.randomUUID() + ";DB_CLOSE_DELAY=-1");
+        Flyway.configure().dataSource(dataSource).load().migrate();
+        DSLContext db = DSL.using(dataSource, SQLDialect.H2);
+        library = new JooqLibraryRepository(db);
+        revisions = new JooqLibraryRevisions(db);
+        new DemoLibraryLoader(library, db, new DefaultResourceLoader(), "classpath:seed-materials/").load();
+    }
+
+    @Test
+    void aStoreRebuiltAfterWritesEqualsOneBuiltFromTheWholeDatabase() {
+        SearchService kept = new SearchService(library);
+        kept.search(PLAIN, 20); // the first build reads everything
+
+        Material first = library.findMaterials(null, null).get(0);
+        importInto(first.id(), 3.5, "one more");
+        assertSameStore(kept.store(), new SearchService(library).store());
+
+        Material other = library.findMaterials(null, null).get(3);
+        SampleInfo corrected = other.samples().get(0);
+        revisions.correctSample(corrected.id(), new SampleCorrection(corrected.thicknessMm() * 2, null, null, null, null,
+                null, null, "thickness was misread"), (now, next, perPoint) -> { });
+        SampleInfo retired = library.findMaterials(null, null).get(5).samples().get(0);
+        revisions.setRetired(JooqLibraryRevisions.Kind.SAMPLE, retired.id(), true);
+        importInto(first.id(), 0.7, "thinner still");
+
+        SpectralStore rebuilt = kept.store();
+        SpectralStore whole = new SearchService(library).store();
+        assertSameStore(rebuilt, whole);
+        assertThat(indexOf(rebuilt, retired.id())).isEqualTo(-1);
+        assertThat(rebuilt.thicknessMm(indexOf(rebuilt, corrected.id()))).isEqualTo((float) (corrected.thicknessMm() * 2));
+        for (Requirement r : List.of(PLAIN, SOLVED)) {
+            assertThat(kept.search(r, 20).rows()).isEqualTo(new SearchService(library).search(r, 20).rows());
+        }
+    }
+
+    @Test
+    void onlyNewAndChangedSamplesAreReadAgain() {
+        SpectralStore before = new SearchService(library).store();
+        long generation = library.generation();
+        java.util.Map<Long, SampleInfo> samples = new java.util.HashMap<>();
+        library.findMaterials(null, null).forEach(m -> m.samples().forEach(x -> samples.put(x.id(), x)));
+        Material first = library.findMaterials(null, null).get(0);
+        importInto(first.id(), 3.5, "one more");
+        SampleInfo corrected = library.findMaterials(null, null).get(3).samples().get(0);
+        revisions.correctSample(corrected.id(), new SampleCorrection(null, null, null, null, null, "re-measured",
+                null, "note added"), (now, next, perPoint) -> { });
+
+        StoreRowSource source = StoreRowSource.after(library, before, samples, generation, library.generation());
+        SpectralStore.Builder builder = SpectralStore.builder(SpectralStore.DEFAULT_GRID, 16);
+        int inUse = 0;
+        for (Material m : library.findMaterials(null, null)) {
+            for (SampleInfo x : m.samples()) {
+                source.add(builder, x, new org.spectralsieve.store.StoredMaterial(m.id(), m.name(), "film",
+                        SearchService.made(m)), 1, true, false, m.refractiveIndex());
+                inUse++;
+            }
+        }
+        assertThat(source.read()).isEqualTo(2); // the import and the corrected sample
+        assertThat(source.reused()).isEqualTo(inUse - 2);
+    }
+
+    private void importInto(long materialId, double thicknessMm, String note) {
+        byte[] bytes = ("wavelength_nm,T\n300,0.02\n350,0.6\n400,0.9\n# " + note + "\n").getBytes(StandardCharsets.UTF_8);
+        SourceFile file = new SourceFile(note + ".csv", "text/csv", "delimited", bytes, Checksums.sha256(bytes));
+        Curve curve = Curve.of(new double[] {300, 350, 400}, new double[] {0.02, 0.6, 0.9}, 1e-3);
+        library.storeImport(materialId, null, new NewSample(thicknessMm, Geometry.REGULAR, Provenance.MEASURED, "", null,
+                "", note, 1e-3, curve, file.fileName(), file.sha256()), file);
+    }
+
+    private static void assertSameStore(SpectralStore actual, SpectralStore expected) {
+        assertThat(actual.size()).isEqualTo(expected.size());
+        List<String> a = new ArrayList<>();
+        List<String> e = new ArrayList<>();
+        for (int i = 0; i < expected.size(); i++) {
+            a.add(row(actual, i));
+            e.add(row(expected, i));
+        }
+        assertThat(a).containsExactlyElementsOf(e);
+    }
+
+    private static String row(SpectralStore s, int i) {
+        return s.sampleId(i) + " " + s.material(i) + " " + s.thicknessMm(i) + " " + s.isBulk(i) + " "
+                + s.isTotalGeometry(i) + " " + Arrays.toString(s.codes(i));
+    }
+
+    private static int indexOf(SpectralStore s, long sampleId) {
+        for (int i = 0; i < s.size(); i++) {
+            if (s.sampleId(i) == sampleId) {
+                return i;
+            }
+        }
+        return -1;
+    }
+}
