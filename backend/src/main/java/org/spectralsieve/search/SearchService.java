@@ -85,9 +85,21 @@ public class SearchService {
     private final Object building = new Object();
     /** Runs between reading the library and installing the snapshot: a seam for the race test, else nothing. */
     private final LongConsumer beforeInstall;
+    /** Whether weighted clauses are screened by the store ({@link WeightedScreen}); off only to measure it. */
+    private boolean screenWeighted = true;
 
     public SearchService(JooqLibraryRepository library) {
         this(library, generation -> { });
+    }
+
+    /**
+     * A service that judges weighted clauses on every admitted sample, as before the store screened them:
+     * the same answers, slower; for benchmarks that time both side by side (docs/weighted-screening.md).
+     */
+    public static SearchService withoutWeightedScreen(JooqLibraryRepository library) {
+        SearchService service = new SearchService(library);
+        service.screenWeighted = false;
+        return service;
     }
 
     /** @param beforeInstall called with the built snapshot's generation just before it is installed (tests) */
@@ -212,6 +224,9 @@ public class SearchService {
         Optional<StackLayer> layer = requirement.layer().map(l -> resolveLayer(l, s));
         boolean diffuseLayer = layer.map(l -> s.samples().get(l.sampleId()).geometry() == Geometry.TOTAL).orElse(false);
         Map<Long, Double> provenMiss = provenMisses(s, requirement, layer);
+        if (screenWeighted) {
+            WeightedMisses.add(provenMiss, s.store(), requirement, layer);
+        }
         List<MaterialEvaluation> exact = new ArrayList<>();
         Map<Material, Double> held = new LinkedHashMap<>();
         int admitted = 0;
@@ -367,7 +382,7 @@ public class SearchService {
      * thickness and a block when judged at or below it; a fixed part only at its own thickness (elsewhere
      * it is unverified, not missed); so is a diffuse or scattering sample ({@link SampleRescaling}).
      */
-    private static boolean keepsProof(Direction direction, ThicknessSpec spec, double d0, boolean rescalable) {
+    static boolean keepsProof(Direction direction, ThicknessSpec spec, double d0, boolean rescalable) {
         if (spec.kind() == ThicknessSpec.Kind.AS_MEASURED) {
             return true;
         }
