@@ -17,12 +17,12 @@ import org.spectralsieve.weighting.WeightedFigures;
 /**
  * What the store can prove about weighted figures (an emitter's share that passes, erythemal, UV hazard,
  * luminous τv) without reading a curve: bounds on the exact figure of every curve as measured, for any
- * emitter × response, from 120 bytes per curve. See docs/weighted-screening.md.
+ * emitter × response, from 102 bytes per curve. See docs/weighted-screening.md.
  *
  * <p>Why it holds: every weighted figure the requirement judges is a ratio Σ aₙ·T(λₙ) / Σ aₙ with weights
  * aₙ ≥ 0 at fixed wavelengths λₙ (the figure's integration points, which depend only on the weighting and
  * on where the curve starts and ends), so it is a weighted mean of T and lies between the means of any
- * lower and upper envelopes of T. The store keeps, per curve and per 10 nm bin, the highest T of the curve
+ * lower and upper envelopes of T. The store keeps, per curve and per 12 nm bin, the highest T of the curve
  * with points below detection at their upper bounds and the lowest T with those points at 0 — over the
  * whole closed bin (the curve's own points inside it and its interpolated values at the bin's ends: between
  * points T is monotone, being linear in absorbance), so every integration point is covered, however finely
@@ -37,10 +37,10 @@ import org.spectralsieve.weighting.WeightedFigures;
  */
 public final class WeightedScreen {
 
-    /** The bins: 10 nm each over 190–790 nm (curves start at 190 nm at the earliest; τv ends at 780 nm). */
+    /** The bins: 12 nm each over 190–790 nm (curves start at 190 nm at the earliest; τv ends at 780 nm). */
     public static final double FIRST_NM = 190;
-    public static final double BIN_NM = 10;
-    public static final int BINS = 60;
+    public static final double BIN_NM = 12;
+    public static final int BINS = 50;
     /** Optical density per code step; code c stands for OD (c − {@link #OFFSET}) · STEP. */
     public static final double STEP = 0.02;
     static final int OFFSET = 9;
