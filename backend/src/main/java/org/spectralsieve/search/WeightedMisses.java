@@ -3,6 +3,8 @@ package org.spectralsieve.search;
 import java.util.Map;
 import java.util.Optional;
 import org.spectralsieve.requirement.Direction;
+import org.spectralsieve.requirement.NominalThickness;
+import org.spectralsieve.requirement.ThicknessSpec;
 import org.spectralsieve.requirement.Requirement;
 import org.spectralsieve.requirement.StackLayer;
 import org.spectralsieve.requirement.WeightedClause;
@@ -22,6 +24,11 @@ final class WeightedMisses {
     private WeightedMisses() {
     }
 
+    /** A fixed thickness the sample was measured at is judged on the measured curve, never rescaled. */
+    private static boolean judgedAsMeasured(ThicknessSpec spec, double d0) {
+        return spec.kind() == ThicknessSpec.Kind.FIXED && NominalThickness.same(d0, spec.minMm());
+    }
+
     /**
      * Lowers, or adds, each sample's bound on its exact worst margin where a weighted clause is proven
      * missed: every clause's bound is an upper bound on that clause's margin, so the smallest of them bounds
@@ -36,11 +43,17 @@ final class WeightedMisses {
                 continue;
             }
             double[] bounds = screen.marginBounds(w, layerRange);
+            ThicknessSpec spec = requirement.thickness();
+            double[] thinned = spec.kind() == ThicknessSpec.Kind.AS_MEASURED ? null
+                    : screen.marginBoundsThinned(store, w, layerRange, spec.minMm());
             for (int curve = 0; curve < store.size(); curve++) {
                 double bound = bounds[curve];
-                if (bound < 0 && SearchService.keepsProof(w.direction(), requirement.thickness(),
-                        store.thicknessMm(curve), store.isBulk(curve))) {
+                double d0 = store.thicknessMm(curve);
+                if (bound < 0 && SearchService.keepsProof(w.direction(), spec, d0, store.isBulk(curve))) {
                     provenMiss.merge(store.sampleId(curve), bound, Math::min);
+                } else if (thinned != null && thinned[curve] < 0 && !judgedAsMeasured(spec, d0)) {
+                    // a bulk sample judged thinner than measured: the pass bound thinned to the thinnest asked
+                    provenMiss.merge(store.sampleId(curve), thinned[curve], Math::min);
                 }
             }
         }

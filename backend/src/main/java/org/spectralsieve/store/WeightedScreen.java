@@ -123,6 +123,86 @@ public final class WeightedScreen {
     }
 
     /**
+     * An upper bound on the exact pass margin of every bulk curve judged at or above {@code thinnestMm}, for
+     * curves measured thicker than that (the others: +∞; {@link #marginBounds} serves them). Why: a thinner
+     * cut passes more, but a slab's T is at most its internal transmittance K ((1 − R)²K / (1 − R²K²) ≤ K),
+     * K0 ≤ T0 / (1 − R)² at the measured thickness, and K = K0^(d/d0); a reading the data cannot resolve keeps
+     * its T0 (flat in d), which is below that too. So each point thinned to d has T ≤ min(1, (T0 / (1 − R)²)^(d/d0)),
+     * rising in T0 and R: the brightest of a bin (which holds the points a value inside it interpolates from)
+     * and the largest R of the curve's index over its range bound every value of the thinned curve in the bin.
+     */
+    public double[] marginBoundsThinned(SpectralStore store, WeightedClause clause, Optional<double[]> layerRange,
+                                        double thinnestMm) {
+        int n = rangeOfCurve.length;
+        double[] out = new double[n];
+        Arrays.fill(out, Double.POSITIVE_INFINITY);
+        if (clause.direction() != Direction.PASS || !(thinnestMm > 0)) {
+            return out;
+        }
+        double threshold = clause.thresholdT();
+        double floor = Math.min(Curve.ABSORBANCE_FLOOR_T, threshold);
+        Map<Integer, double[]> sharesOfRange = new HashMap<>();
+        Map<List<Integer>, Double> surface = new HashMap<>();
+        for (int curve = 0; curve < n; curve++) {
+            int range = rangeOfCurve[curve];
+            double d0 = store.thicknessMm(curve);
+            if (range < 0 || !store.isBulk(curve) || !(d0 > thinnestMm)) {
+                continue;
+            }
+            double[] shares = sharesOfRange.computeIfAbsent(range,
+                    r -> binShares(clause.weighting(), ranges.get(r), layerRange));
+            if (shares.length == 0) {
+                continue;
+            }
+            int model = store.indexModelOf(curve);
+            double r = surface.computeIfAbsent(List.of(model, range),
+                    k -> largestReflectance(store.indexModel(model), ranges.get(range)));
+            if (!(r < 1)) {
+                continue;
+            }
+            double k = thinnestMm / d0;
+            double loss = (1 - r) * (1 - r);
+            double mean = 0;
+            boolean bounded = true;
+            for (int b = 0; b < BINS && bounded; b++) {
+                if (shares[b] > 0) {
+                    int code = brightest[b][curve] & 0xFF;
+                    bounded = code != 0;
+                    double t = Math.min(1, Math.pow(T_OF_CODE[code] * (1 + SLACK) / loss, k));
+                    mean += shares[b] * Math.max(t, Curve.ABSORBANCE_FLOOR_T);
+                }
+            }
+            if (bounded) {
+                out[curve] = Math.log10(Math.max(mean * (1 + SLACK), floor) / threshold);
+            }
+        }
+        return out;
+    }
+
+    /**
+     * The largest normal-incidence surface reflectance of the index over the curve's range (every 0.25 nm
+     * and both ends, n raised by 0.02 for what lies between the samples); 1 (no bound) when the index cannot
+     * give n there, where the exact rescaling fails too and says so (an unverified row, never a miss).
+     */
+    static double largestReflectance(org.spectralsieve.optics.RefractiveIndex index, double[] curveRange) {
+        double largest = 0;
+        try {
+            for (double nm = curveRange[0]; ; nm = Math.min(curveRange[1], nm + 0.25)) {
+                double n = index.at(nm);
+                if (!(n >= 1) || !Double.isFinite(n)) {
+                    return 1;
+                }
+                largest = Math.max(largest, org.spectralsieve.optics.Fresnel.reflectanceInAir(n + 0.02));
+                if (nm >= curveRange[1]) {
+                    return largest;
+                }
+            }
+        } catch (RuntimeException e) {
+            return 1;
+        }
+    }
+
+    /**
      * Each bin's share of the figure's weight for a curve spanning {min, max}; empty when the figure is not
      * available on such a curve (the exact judgement says unverified, which no bound may claim to be a miss),
      * when an integration point lies outside the bins, or when a layer would change the points.
@@ -264,6 +344,7 @@ public final class WeightedScreen {
                 if (bin < 0) {
                     continue;
                 }
+                bracket(highest, upper, i, bin);
                 // a point at T = 0 reads 0 but its neighbours interpolate from the absorbance floor
                 double hi = Math.max(upper.transmittance(i), Curve.ABSORBANCE_FLOOR_T);
                 double lo = lower.transmittance(i);
@@ -286,6 +367,23 @@ public final class WeightedScreen {
                 darkest[b][slot] = (byte) codeAtLeast(lowest[b]);
             }
             rangeOfCurve[slot] = (short) (int) range;
+        }
+
+        /**
+         * The brightest of a bin also holds the points just outside it that a value inside it interpolates
+         * from (the last point before the bin and the first after it), so that after a change of thickness,
+         * which moves every point but interpolates between the moved points, the bin's values still lie
+         * below the moved brightest ({@link #marginBoundsThinned}).
+         */
+        private static void bracket(double[] highest, Curve upper, int i, int bin) {
+            double lowEdge = FIRST_NM + bin * BIN_NM;
+            double highEdge = lowEdge + BIN_NM;
+            if (i > 0 && upper.wavelengthNm(i - 1) < lowEdge) {
+                highest[bin] = Math.max(highest[bin], Math.max(upper.transmittance(i - 1), Curve.ABSORBANCE_FLOOR_T));
+            }
+            if (i + 1 < upper.size() && upper.wavelengthNm(i + 1) > highEdge) {
+                highest[bin] = Math.max(highest[bin], Math.max(upper.transmittance(i + 1), Curve.ABSORBANCE_FLOOR_T));
+            }
         }
 
         private static void note(double[] highest, double[] lowest, int bin, double hi, double lo) {

@@ -8,6 +8,8 @@ import java.util.Optional;
 import java.util.Random;
 import org.junit.jupiter.api.Test;
 import org.spectralsieve.optics.ConstantIndex;
+import org.spectralsieve.optics.RefractiveIndex;
+import org.spectralsieve.optics.ThicknessRescaler;
 import org.spectralsieve.requirement.Direction;
 import org.spectralsieve.requirement.ThresholdUnit;
 import org.spectralsieve.requirement.WeightedClause;
@@ -79,6 +81,48 @@ class WeightedScreenTest {
         // not vacuous: most figures are bounded, and many passes at 50 % are proven missed
         assertThat(bounded).isGreaterThan(WEIGHTINGS.size() * curves.size() / 2);
         assertThat(proven).isGreaterThan(WEIGHTINGS.size() * curves.size() / 10);
+    }
+
+    @Test
+    void thinnedBoundsHoldTheExactFigureOfTheRescaledCurve() {
+        // the exact rescaling is ThicknessRescaler (Fresnel surfaces and Beer–Lambert, checked against
+        // REFERENCE §7 in its own tests); the bound is only arithmetic on it
+        Random random = new Random(20261206L);
+        List<Curve> curves = new ArrayList<>();
+        List<RefractiveIndex> indices = List.of(new ConstantIndex(1.49), new ConstantIndex(1.585), new ConstantIndex(1.46));
+        SpectralStore.Builder builder = SpectralStore.builder(SpectralStore.DEFAULT_GRID, 8);
+        StoredMaterial material = new StoredMaterial(1, "illustrative sheet", "plastic sheet", MadeThicknesses.of(
+                List.of(), Double.NaN, Double.NaN, List.of(4.0)));
+        for (int i = 0; i < 150; i++) {
+            Curve curve = randomCurve(random);
+            curves.add(curve);
+            builder.add(i + 1, material, 4.0, true, false, indices.get(i % 3), curve);
+        }
+        SpectralStore store = builder.build();
+        int proven = 0;
+        for (Weighting weighting : WEIGHTINGS) {
+            for (double thinnest : new double[] {0.5, 1, 3}) {
+                double[] pass = store.weightedScreen().marginBoundsThinned(store, new WeightedClause(Direction.PASS, 1,
+                        ThresholdUnit.FRACTION, weighting, "pass"), Optional.empty(), thinnest);
+                double[] passAtHalf = store.weightedScreen().marginBoundsThinned(store, new WeightedClause(Direction.PASS,
+                        0.5, ThresholdUnit.FRACTION, weighting, "pass half"), Optional.empty(), thinnest);
+                for (int i = 0; i < curves.size(); i++) {
+                    Curve thinned = ThicknessRescaler.rescale(curves.get(i), 4.0, thinnest, indices.get(i % 3));
+                    Figure upper = weighting.figure(BoundedCurves.upperBounds(thinned));
+                    if (!upper.available()) {
+                        continue;
+                    }
+                    double u = upper.value().getAsDouble();
+                    assertThat(pass[i]).as(weighting + " curve " + i + " at " + thinnest + " mm")
+                            .isGreaterThanOrEqualTo(Math.log10(Math.max(u, Curve.ABSORBANCE_FLOOR_T)));
+                    if (passAtHalf[i] < 0) {
+                        proven++;
+                        assertThat(u).isLessThan(0.5);
+                    }
+                }
+            }
+        }
+        assertThat(proven).as("not vacuous").isGreaterThan(WEIGHTINGS.size() * curves.size() / 10);
     }
 
     @Test
