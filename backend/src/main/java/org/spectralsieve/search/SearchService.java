@@ -257,19 +257,31 @@ public class SearchService {
         List<Map.Entry<Material, Double>> byBound = new ArrayList<>(held.entrySet());
         byBound.sort(Map.Entry.<Material, Double>comparingByValue().reversed());
         boolean grouped = diffuseLast(requirement);
+        // the top rows are kept up to date from themselves and each newly judged material (a top-k of a union
+        // is the top-k of the parts' top-k), not re-ranked from every judgement: that was quadratic
+        List<RankedRow> regularRows = grouped ? Ranking.rank(regularOnly(s, exact), limit) : List.of();
+        boolean judgedHeld = false;
         for (Map.Entry<Material, Double> entry : byBound) {
             // grouped: a material with a regular sample competes only with the regular rows, which come first
             boolean regular = grouped && entry.getKey().samples().stream()
                     .anyMatch(x -> admits(requirement, entry.getKey(), x) && x.geometry() == Geometry.REGULAR);
-            List<RankedRow> competing = regular ? Ranking.rank(regularOnly(s, exact), limit) : rows;
+            List<RankedRow> competing = regular ? regularRows : rows;
             if (!couldEnter(competing, limit, entry.getValue())) {
                 if (grouped) {
                     continue; // the two groups' bounds are not ordered together
                 }
                 break; // bounds only fall from here on
             }
-            exact.addAll(judge(entry.getKey(), requirement, layer, diffuseLayer));
-            rows = rank(s, requirement, exact, limit);
+            List<MaterialEvaluation> judged = judge(entry.getKey(), requirement, layer, diffuseLayer);
+            exact.addAll(judged);
+            judgedHeld = true;
+            rows = rank(s, requirement, withRows(rows, judged), limit);
+            if (grouped) {
+                regularRows = Ranking.rank(regularOnly(s, withRows(regularRows, judged)), limit);
+            }
+        }
+        if (judgedHeld) {
+            rows = rank(s, requirement, exact, limit); // once, from every judgement: the answer's own rows
         }
         double tookMs = (System.nanoTime() - started) / 1e6;
         return new Shortlist(requirement, rows, admitted, exact.size(), tookMs, layer, geometries(s, rows),
@@ -298,6 +310,16 @@ public class SearchService {
             }
         }
         return List.copyOf(rows);
+    }
+
+    /** The rows' own evaluations and the newly judged ones: all a top-k ranking of the union needs. */
+    private static List<MaterialEvaluation> withRows(List<RankedRow> rows, List<MaterialEvaluation> judged) {
+        List<MaterialEvaluation> out = new ArrayList<>(rows.size() + judged.size());
+        for (RankedRow row : rows) {
+            out.add(new MaterialEvaluation(row.materialId(), row.materialName(), row.evaluation()));
+        }
+        out.addAll(judged);
+        return out;
     }
 
     /** Whether total-geometry rows go after the regular ones (see {@link #rank}). */
