@@ -93,6 +93,8 @@ public class SearchService {
     private final LongConsumer beforeInstall;
     /** Heap for each snapshot's decoded curves ({@link CurveCache}); 0 reads every judged curve from the database. */
     private final long curveCacheBytes;
+    /** Whether weighted clauses are screened by the store ({@link WeightedScreen}); off only to measure it. */
+    private boolean screenWeighted = true;
 
     public SearchService(JooqLibraryRepository library) {
         this(library, DEFAULT_CURVE_CACHE_BYTES);
@@ -104,6 +106,16 @@ public class SearchService {
      */
     public SearchService(JooqLibraryRepository library, long curveCacheBytes) {
         this(library, generation -> { }, curveCacheBytes);
+    }
+
+    /**
+     * A service that judges weighted clauses on every admitted sample, as before the store screened them:
+     * the same answers, slower; for benchmarks that time both side by side (docs/weighted-screening.md).
+     */
+    public static SearchService withoutWeightedScreen(JooqLibraryRepository library) {
+        SearchService service = new SearchService(library);
+        service.screenWeighted = false;
+        return service;
     }
 
     /** @param beforeInstall called with the built snapshot's generation just before it is installed (tests) */
@@ -249,6 +261,9 @@ public class SearchService {
         Optional<StackLayer> layer = requirement.layer().map(l -> resolveLayer(l, s));
         boolean diffuseLayer = layer.map(l -> s.samples().get(l.sampleId()).geometry() == Geometry.TOTAL).orElse(false);
         Map<Long, Double> provenMiss = provenMisses(s, requirement, layer);
+        if (screenWeighted) {
+            WeightedMisses.add(provenMiss, s.store(), requirement, layer);
+        }
         List<MaterialEvaluation> exact = new ArrayList<>();
         Map<Material, Double> held = new LinkedHashMap<>();
         int admitted = 0;
@@ -279,19 +294,31 @@ public class SearchService {
         List<Map.Entry<Material, Double>> byBound = new ArrayList<>(held.entrySet());
         byBound.sort(Map.Entry.<Material, Double>comparingByValue().reversed());
         boolean grouped = diffuseLast(requirement);
+        // the top rows are kept up to date from themselves and each newly judged material (a top-k of a union
+        // is the top-k of the parts' top-k), not re-ranked from every judgement: that was quadratic
+        List<RankedRow> regularRows = grouped ? Ranking.rank(regularOnly(s, exact), limit) : List.of();
+        boolean judgedHeld = false;
         for (Map.Entry<Material, Double> entry : byBound) {
             // grouped: a material with a regular sample competes only with the regular rows, which come first
             boolean regular = grouped && entry.getKey().samples().stream()
                     .anyMatch(x -> admits(requirement, entry.getKey(), x) && x.geometry() == Geometry.REGULAR);
-            List<RankedRow> competing = regular ? Ranking.rank(regularOnly(s, exact), limit) : rows;
+            List<RankedRow> competing = regular ? regularRows : rows;
             if (!couldEnter(competing, limit, entry.getValue())) {
                 if (grouped) {
                     continue; // the two groups' bounds are not ordered together
                 }
                 break; // bounds only fall from here on
             }
-            exact.addAll(judge(s, entry.getKey(), requirement, layer, diffuseLayer));
-            rows = rank(s, requirement, exact, limit);
+            List<MaterialEvaluation> judged = judge(s, entry.getKey(), requirement, layer, diffuseLayer);
+            exact.addAll(judged);
+            judgedHeld = true;
+            rows = rank(s, requirement, withRows(rows, judged), limit);
+            if (grouped) {
+                regularRows = Ranking.rank(regularOnly(s, withRows(regularRows, judged)), limit);
+            }
+        }
+        if (judgedHeld) {
+            rows = rank(s, requirement, exact, limit); // once, from every judgement: the answer's own rows
         }
         double tookMs = (System.nanoTime() - started) / 1e6;
         return new Shortlist(requirement, rows, admitted, exact.size(), tookMs, layer, geometries(s, rows),
@@ -320,6 +347,16 @@ public class SearchService {
             }
         }
         return List.copyOf(rows);
+    }
+
+    /** The rows' own evaluations and the newly judged ones: all a top-k ranking of the union needs. */
+    private static List<MaterialEvaluation> withRows(List<RankedRow> rows, List<MaterialEvaluation> judged) {
+        List<MaterialEvaluation> out = new ArrayList<>(rows.size() + judged.size());
+        for (RankedRow row : rows) {
+            out.add(new MaterialEvaluation(row.materialId(), row.materialName(), row.evaluation()));
+        }
+        out.addAll(judged);
+        return out;
     }
 
     /** Whether total-geometry rows go after the regular ones (see {@link #rank}). */
@@ -404,7 +441,7 @@ public class SearchService {
      * thickness and a block when judged at or below it; a fixed part only at its own thickness (elsewhere
      * it is unverified, not missed); so is a diffuse or scattering sample ({@link SampleRescaling}).
      */
-    private static boolean keepsProof(Direction direction, ThicknessSpec spec, double d0, boolean rescalable) {
+    static boolean keepsProof(Direction direction, ThicknessSpec spec, double d0, boolean rescalable) {
         if (spec.kind() == ThicknessSpec.Kind.AS_MEASURED) {
             return true;
         }

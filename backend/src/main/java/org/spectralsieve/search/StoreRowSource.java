@@ -96,7 +96,7 @@ final class StoreRowSource {
         }
         Integer row = previousRow.get(sample.id());
         if (row != null && sample.equals(previousSamples.get(sample.id()))) {
-            builder.addEncoded(sample.id(), material, thicknessMm, bulk, totalGeometry, index, previous.codes(row));
+            builder.addCarried(sample.id(), material, thicknessMm, bulk, totalGeometry, index, previous, row);
             reused++;
             return null;
         }

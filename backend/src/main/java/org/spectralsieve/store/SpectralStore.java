@@ -30,6 +30,7 @@ public final class SpectralStore {
     private final short[] indexModelOfCurve;
     private final List<StoredMaterial> materials;
     private final List<RefractiveIndex> indexModels;
+    private final WeightedScreen weightedScreen;
 
     private SpectralStore(Builder b) {
         this.grid = b.grid;
@@ -50,6 +51,7 @@ public final class SpectralStore {
                 : Arrays.copyOf(b.indexModelOfCurve, size);
         this.materials = List.copyOf(b.materials);
         this.indexModels = List.copyOf(b.indexModels);
+        this.weightedScreen = b.weighted.build(size);
     }
 
     private static short[] trimmed(short[] column, int size) {
@@ -188,9 +190,15 @@ public final class SpectralStore {
         return codes;
     }
 
-    /** Bytes the store's arrays take per curve (columns and per-curve fields; shared tables excluded). */
+    /** Bounds on every curve's weighted figures as measured, for requirements with weighted clauses. */
+    public WeightedScreen weightedScreen() {
+        return weightedScreen;
+    }
+
+    /** Bytes the store's arrays take per curve (columns, per-curve fields, the weighted screen; shared tables excluded). */
     public double bytesPerCurve() {
-        long perCurve = (long) gridNm.length * Short.BYTES + Long.BYTES + Integer.BYTES + Float.BYTES + 1 + 1 + Short.BYTES;
+        long perCurve = (long) gridNm.length * Short.BYTES + Long.BYTES + Integer.BYTES + Float.BYTES + 1 + 1 + Short.BYTES
+                + WeightedScreen.BYTES_PER_CURVE;
         return size == 0 ? 0 : perCurve;
     }
 
@@ -210,6 +218,7 @@ public final class SpectralStore {
         private final Map<Long, Integer> materialIndexById = new HashMap<>();
         private final List<RefractiveIndex> indexModels = new ArrayList<>();
         private final Map<RefractiveIndex, Integer> indexModelIndex = new HashMap<>();
+        private final WeightedScreen.Builder weighted;
 
         private boolean built;
 
@@ -224,6 +233,7 @@ public final class SpectralStore {
             bulk = new boolean[capacity];
             totalGeometry = new boolean[capacity];
             indexModelOfCurve = new short[capacity];
+            weighted = WeightedScreen.builder(capacity);
         }
 
         /** Adds one sample's curve; grid points outside its measured range are stored as not measured. */
@@ -236,6 +246,7 @@ public final class SpectralStore {
                         ? OdCode.encode(curve.transmittanceAt(nm).getAsDouble(), curve.belowDetectionAt(nm))
                         : OdCode.NOT_MEASURED;
             }
+            weighted.add(i, curve);
             record(i, sampleId, material, thicknessMm, bulk, totalGeometry, index);
             return this;
         }
@@ -250,7 +261,22 @@ public final class SpectralStore {
             for (int w = 0; w < gridNm.length; w++) {
                 columns[w][i] = codesOnGrid[w];
             }
+            weighted.unknown(i);
             record(i, sampleId, material, thicknessMm, bulk, totalGeometry, index);
+            return this;
+        }
+
+        /**
+         * Adds row {@code row} of {@code previous} unchanged (same grid): its codes and its weighted screen, so a
+         * rebuild that carries an unchanged curve over keeps it screened (docs/start-and-load.md).
+         */
+        public Builder addCarried(long sampleId, StoredMaterial material, double thicknessMm, boolean bulk,
+                                  boolean totalGeometry, RefractiveIndex index, SpectralStore previous, int row) {
+            if (!Arrays.equals(previous.gridNm, gridNm)) {
+                throw new IllegalArgumentException("the previous store has another grid");
+            }
+            addEncoded(sampleId, material, thicknessMm, bulk, totalGeometry, index, previous.codes(row));
+            weighted.copy(size - 1, previous.weightedScreen, row);
             return this;
         }
 
@@ -293,6 +319,7 @@ public final class SpectralStore {
                 bulk = Arrays.copyOf(bulk, capacity);
                 totalGeometry = Arrays.copyOf(totalGeometry, capacity);
                 indexModelOfCurve = Arrays.copyOf(indexModelOfCurve, capacity);
+                weighted.grow(capacity);
             }
             return size;
         }

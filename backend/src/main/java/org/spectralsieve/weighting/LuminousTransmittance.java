@@ -40,6 +40,14 @@ public final class LuminousTransmittance {
         return new Tables(nm, d65, v, "the given tables").apply(curve);
     }
 
+    /**
+     * The rows {@link #of(Curve)} sums over and their weights S·V: {nm[], weight[]} (copies), for bounds on
+     * τv that never read the curve (store/WeightedScreen).
+     */
+    public static double[][] integrationNodes() {
+        return new double[][] {SHIPPED.nm.clone(), SHIPPED.weight.clone()};
+    }
+
     private static Tables shipped() {
         double[] nm = V.wavelengthsNm();
         double[] s = new double[nm.length];

@@ -168,6 +168,29 @@ public final class WeightedFigures {
         return new Covered(weight * step, passed * step, bound, step);
     }
 
+    /**
+     * The wavelengths at which {@link #effectiveTransmittance} reads T when the curve covers [from, to], and
+     * the weight of each (E·W times the trapezoid end weight; the common step cancels in the ratio), by the
+     * same arithmetic as the figure: {nm[], weight[]}, points of zero weight left out as the figure leaves
+     * them out. For bounds on the figure that never read the curve (store/WeightedScreen).
+     */
+    public static double[][] integrationNodes(Emitter emitter, Response response, double from, double to) {
+        int n = intervals(from, to, emitter.stepNm());
+        double step = (to - from) / n;
+        double[] nm = new double[n + 1];
+        double[] w = new double[n + 1];
+        int k = 0;
+        for (int i = 0; i <= n; i++) {
+            double at = i == n ? to : from + i * step;
+            double ew = emitter.powerAt(at) * response.weightAt(at) * trapezoidWeight(i, n);
+            if (ew > 0) {
+                nm[k] = at;
+                w[k++] = ew;
+            }
+        }
+        return new double[][] {java.util.Arrays.copyOf(nm, k), java.util.Arrays.copyOf(w, k)};
+    }
+
     /** Trapezoid ∫f over [from, to] on the largest uniform step not above maxStep; 0 for an empty interval. */
     private static double integrate(double from, double to, double maxStep, java.util.function.DoubleUnaryOperator f) {
         if (!(to > from)) {

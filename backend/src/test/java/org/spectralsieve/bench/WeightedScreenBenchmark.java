@@ -1,0 +1,140 @@
+package org.spectralsieve.bench;
+
+import static org.spectralsieve.bench.BenchStats.ms;
+import static org.spectralsieve.bench.BenchStats.percentile;
+
+import java.nio.charset.StandardCharsets;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+import java.util.UUID;
+import org.flywaydb.core.Flyway;
+import org.h2.jdbcx.JdbcDataSource;
+import org.jooq.DSLContext;
+import org.jooq.SQLDialect;
+import org.jooq.impl.DSL;
+import org.junit.jupiter.api.Test;
+import org.spectralsieve.ingest.Checksums;
+import org.spectralsieve.library.Geometry;
+import org.spectralsieve.library.JooqLibraryRepository;
+import org.spectralsieve.library.MaterialClass;
+import org.spectralsieve.library.NewMaterial;
+import org.spectralsieve.library.NewSample;
+import org.spectralsieve.library.Provenance;
+import org.spectralsieve.library.Scaling;
+import org.spectralsieve.library.StatedThicknesses;
+import org.spectralsieve.requirement.Requirement;
+import org.spectralsieve.requirement.RequirementParser;
+import org.spectralsieve.search.SearchService;
+import org.spectralsieve.search.Shortlist;
+import org.spectralsieve.seed.DemoLibraryLoader;
+import org.spectralsieve.store.SpectralStore;
+import org.spectralsieve.store.SyntheticCurves;
+import org.springframework.core.io.DefaultResourceLoader;
+
+/**
+ * Weighted requirements through the real {@link SearchService}, with the store's weighted screen
+ * ({@code store.WeightedScreen}) on and off, side by side in one run (interleaved: one search of each in
+ * turn, so a noisy neighbour hurts both alike). Prints {@code BENCH search-weighted ...} lines with the
+ * service's own {@code tookMs} (p50 / p95), the samples judged exactly and the store's bytes per curve;
+ * asserts nothing about time. Run by {@code mvn -B -q -Pbench -pl backend -am verify}.
+ *
+ * <p>Libraries: {@code demo} (the committed demo library, loaded by the application's loader into a fresh
+ * in-memory H2) and {@code synthetic-N} (the demo library plus N curves of {@link SyntheticCurves} as
+ * library samples, three per material, so the layer's glass resolves as in the demo). Variants of one
+ * requirement: {@code measured}, {@code solve} (thickness 1 to 6 mm), {@code layer} (behind 4 mm clear
+ * float glass). Switches: {@code -Dbench.screenSizes=10000} (empty: demo only), {@code -Dbench.screenRuns=21}
+ * (demo), {@code -Dbench.screenSyntheticRuns=5}, {@code -Dbench.limit=20}.
+ */
+class WeightedScreenBenchmark {
+
+    static final String WEIGHTED = "passes over 85% of led 365 and uv hazard under 0.1% and luminous over 70%";
+
+    @Test
+    void weightedSearchesWithAndWithoutTheScreen() {
+        int limit = BenchStats.intProperty("bench.limit", 20);
+        Map<String, Requirement> variants = new LinkedHashMap<>();
+        variants.put("measured", RequirementParser.parse(WEIGHTED));
+        variants.put("solve", RequirementParser.parse(WEIGHTED + ", thickness 1 to 6 mm"));
+        variants.put("layer", RequirementParser.parse(WEIGHTED + ", behind 4 mm clear float glass"));
+
+        time("demo", demoLibrary(), variants, limit, 2, BenchStats.intProperty("bench.screenRuns", 21));
+        for (int n : BenchStats.intList("bench.screenSizes", "10000")) {
+            JooqLibraryRepository library = demoLibrary();
+            addSynthetic(library, n, 20261202L);
+            time("synthetic-" + n, library, variants, limit, 1, BenchStats.intProperty("bench.screenSyntheticRuns", 5));
+        }
+    }
+
+    private static void time(String name, JooqLibraryRepository library, Map<String, Requirement> variants, int limit,
+                             int warmUps, int runs) {
+        Map<String, SearchService> services = new LinkedHashMap<>();
+        services.put("on", new SearchService(library));
+        services.put("off", SearchService.withoutWeightedScreen(library));
+        for (int i = 0; i < warmUps; i++) {
+            for (SearchService service : services.values()) {
+                variants.values().forEach(r -> service.search(r, limit)); // JIT, each service's store
+            }
+        }
+        Map<String, double[]> took = new LinkedHashMap<>();
+        Map<String, Shortlist> last = new LinkedHashMap<>();
+        for (int i = 0; i < runs; i++) {
+            for (Map.Entry<String, Requirement> variant : variants.entrySet()) {
+                for (Map.Entry<String, SearchService> service : services.entrySet()) {
+                    String key = variant.getKey() + " " + service.getKey();
+                    Shortlist answer = service.getValue().search(variant.getValue(), limit);
+                    took.computeIfAbsent(key, k -> new double[runs])[i] = answer.tookMs();
+                    last.put(key, answer);
+                }
+            }
+        }
+        SpectralStore store = services.get("on").store();
+        for (String variant : variants.keySet()) {
+            for (String screen : services.keySet()) {
+                String key = variant + " " + screen;
+                double[] m = took.get(key);
+                Shortlist answer = last.get(key);
+                boolean same = answer.rows().equals(last.get(variant + " on").rows());
+                System.out.printf("BENCH search-weighted library=%s curves=%d mode=%s screen=%s p50_ms=%s p95_ms=%s"
+                                + " judged=%d of=%d same_rows=%s bytes_per_curve=%.0f runs=%d%n",
+                        name, store.size(), variant, screen, ms(percentile(m, 50)), ms(percentile(m, 95)),
+                        answer.judgedExactly(), answer.evaluatedSamples(), same, store.bytesPerCurve(), runs);
+            }
+        }
+    }
+
+    /** The demo library in a freshly migrated in-memory H2, loaded by the application's loader. */
+    private static JooqLibraryRepository demoLibrary() {
+        JdbcDataSource ds = new JdbcDataSource();
+        ds.setURL("jdbc:h2:mem:bench-screen-" + UUID.randomUUID() + ";DB_CLOSE_DELAY=-1");
+        Flyway.configure().dataSource(ds).load().migrate();
+        DSLContext db = DSL.using(ds, SQLDialect.H2);
+        JooqLibraryRepository library = new JooqLibraryRepository(db);
+        new DemoLibraryLoader(library, db, new DefaultResourceLoader(), "classpath:seed-materials/").load();
+        return library;
+    }
+
+    /**
+     * N synthetic curves as library samples (illustrative stock of the invented Fernhollow workshop): the
+     * curves of {@link SearchBenchmark#syntheticStore} decoded from the store, three samples per material,
+     * two materials in three bulk (rescalable) and the third a fixed part, as there.
+     */
+    private static void addSynthetic(JooqLibraryRepository library, int n, long seed) {
+        SpectralStore store = SearchBenchmark.syntheticStore(n, seed);
+        SyntheticCurves specs = new SyntheticCurves(seed, SpectralStore.DEFAULT_GRID);
+        long material = 0;
+        for (int i = 0; i < n; i++) {
+            SyntheticCurves.Spec spec = specs.next();
+            if (i % 3 == 0) {
+                int m = i / 3;
+                material = library.insertMaterial(new NewMaterial("fernhollow-synthetic-" + m,
+                        "Fernhollow synthetic stock " + m, MaterialClass.of("plastic sheet"),
+                        "Illustrative synthetic stock", List.of(), m % 3 != 2 ? Scaling.BULK : Scaling.FIXED,
+                        SyntheticCurves.INDICES[spec.index()], new StatedThicknesses(List.of(), Double.NaN, Double.NaN)));
+            }
+            byte[] bytes = ("synthetic " + i).getBytes(StandardCharsets.UTF_8);
+            library.insertSample(material, new NewSample(store.thicknessMm(i), Geometry.REGULAR, Provenance.MODELLED,
+                    "", null, "", "", 1e-3, store.curve(i), "synthetic.csv", Checksums.sha256(bytes)));
+        }
+    }
+}

@@ -1,0 +1,174 @@
+package org.spectralsieve.search;
+
+import static org.assertj.core.api.Assertions.assertThat;
+
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Locale;
+import java.util.Optional;
+import java.util.Random;
+import org.junit.jupiter.api.Test;
+import org.spectralsieve.library.Geometry;
+import org.spectralsieve.library.JooqLibraryRepository;
+import org.spectralsieve.library.Material;
+import org.spectralsieve.library.SampleInfo;
+import org.spectralsieve.library.SampleRescaling;
+import org.spectralsieve.requirement.Candidate;
+import org.spectralsieve.requirement.MaterialEvaluation;
+import org.spectralsieve.requirement.MaterialJudge;
+import org.spectralsieve.requirement.RankedRow;
+import org.spectralsieve.requirement.Ranking;
+import org.spectralsieve.requirement.Requirement;
+import org.spectralsieve.requirement.RequirementParser;
+import org.spectralsieve.requirement.StackLayer;
+import org.springframework.beans.factory.annotation.Autowired;
+import org.springframework.boot.test.context.SpringBootTest;
+import org.springframework.test.context.TestPropertySource;
+
+/**
+ * Property: with weighted clauses screened by the store ({@link org.spectralsieve.store.WeightedScreen}),
+ * the search returns exactly what judging every admitted sample of the demo library exactly and ranking
+ * them returns (same rows, order, verdicts), for weighted requirements as measured, at a fixed thickness,
+ * with a thickness solved, and behind a fixed layer. The reference uses only the public core
+ * ({@link MaterialJudge}, {@link Ranking}), not the screen. Random requirements from the trade's wordings
+ * (common practice, no source), a fixed seed.
+ */
+@SpringBootTest(webEnvironment = SpringBootTest.WebEnvironment.NONE)
+@TestPropertySource(properties = "spring.datasource.url=jdbc:h2:mem:weighted-screen-property;DB_CLOSE_DELAY=-1")
+class WeightedScreenSearchPropertyTest {
+
+    private static final String[] LAYERS = {"behind 4 mm clear float glass", "on 3 mm fused silica",
+            "behind 0.112 mm amber masking film", "on 2 mm borosilicate"};
+
+    @Autowired
+    SearchService search;
+
+    @Autowired
+    JooqLibraryRepository library;
+
+    @Test
+    void screenedWeightedSearchEqualsExactJudgementOfEverySample() {
+        Random random = new Random(20261204L);
+        List<Material> materials = library.findMaterials(null, null);
+        SearchService unscreened = SearchService.withoutWeightedScreen(library);
+        int screenedFewer = 0;
+        int stacked = 0;
+        int solved = 0;
+        for (int trial = 0; trial < 40; trial++) {
+            String text = randomRequirement(random);
+            Requirement requirement = RequirementParser.parse(text);
+            int limit = new int[] {1, 3, 5, 10, 40}[random.nextInt(5)];
+            Shortlist answer = search.search(requirement, limit);
+            List<RankedRow> expected = judgeEverySample(requirement, answer.layer(), materials, limit);
+
+            assertThat(answer.rows()).as(text + " (limit " + limit + ")").containsExactlyElementsOf(expected);
+            Shortlist before = unscreened.search(requirement, limit);
+            assertThat(before.rows()).as(text + " unscreened").containsExactlyElementsOf(expected);
+            screenedFewer += answer.judgedExactly() < before.judgedExactly() ? 1 : 0;
+            stacked += answer.layer().isPresent() ? 1 : 0;
+            solved += text.contains("thickness") ? 1 : 0;
+        }
+        // not vacuous: the weighted screen held samples back in many searches, some stacked, some solved
+        assertThat(screenedFewer).isGreaterThan(15);
+        assertThat(stacked).isGreaterThan(8);
+        assertThat(solved).isGreaterThan(8);
+    }
+
+    @Test
+    void aWeightedPassHoldsBackSamplesThatCannotReachTheShortlist() {
+        // most of the demo library absorbs much of a 365 nm LED's light (common practice, no source:
+        // plastics and tinted sheets absorb in the near UV)
+        Requirement r = RequirementParser.parse("passes over 85% of led 365");
+        Shortlist answer = search.search(r, 3);
+        assertThat(answer.judgedExactly()).isLessThan(answer.evaluatedSamples() / 2);
+        assertThat(answer.rows()).containsExactlyElementsOf(
+                judgeEverySample(r, Optional.empty(), library.findMaterials(null, null), 3));
+    }
+
+    private List<RankedRow> judgeEverySample(Requirement requirement, Optional<StackLayer> layer, List<Material> materials,
+                                             int limit) {
+        List<MaterialEvaluation> all = new ArrayList<>();
+        for (Material m : materials) {
+            List<Candidate> admitted = new ArrayList<>();
+            for (SampleInfo s : m.samples()) {
+                if (requirement.materialClass().map(c -> c.equals(m.materialClass().label())).orElse(true)
+                        && requirement.admitsGeometry(s.geometry().label())) {
+                    // the shared rule: diffuse and scattering samples are held at their measured thickness
+                    SampleRescaling rescaling = SampleRescaling.of(m, s);
+                    boolean diffuseLayer = layer.map(l -> library.findSample(l.sampleId()).orElseThrow().geometry()
+                            == Geometry.TOTAL).orElse(false);
+                    admitted.add(new Candidate(s.id(), m.id(), m.name(), library.findCurve(s.id()).orElseThrow(),
+                            s.thicknessMm(), rescaling.rescalable(), m.refractiveIndex(), SearchService.made(m),
+                            s.geometry() == Geometry.TOTAL || diffuseLayer, rescaling.reason()));
+                }
+            }
+            // each material's samples judged together: the nearest measurement speaks for each thickness
+            if (!admitted.isEmpty()) {
+                all.addAll(MaterialJudge.evaluate(admitted, requirement, layer));
+            }
+        }
+        return groupDiffuseLast(requirement, all, limit);
+    }
+
+    /**
+     * The documented order (docs/geometry-and-edges.md): with a see-through clause not accepting total
+     * transmittance, materials with a regular-geometry sample rank first, the rest after them.
+     */
+    private List<RankedRow> groupDiffuseLast(Requirement requirement, List<MaterialEvaluation> all, int limit) {
+        boolean seeThrough = requirement.clauses().stream().anyMatch(c -> c.text().startsWith("luminous"));
+        if (!seeThrough || requirement.acceptsTotalTransmittance()) {
+            return Ranking.rank(all, limit);
+        }
+        List<MaterialEvaluation> regular = new ArrayList<>();
+        List<MaterialEvaluation> total = new ArrayList<>();
+        for (MaterialEvaluation e : all) {
+            boolean isTotal = library.findSample(e.evaluation().sampleId()).orElseThrow().geometry() == Geometry.TOTAL;
+            (isTotal ? total : regular).add(e);
+        }
+        List<RankedRow> rows = new ArrayList<>(Ranking.rank(regular, limit));
+        java.util.Set<Long> first = new java.util.HashSet<>();
+        regular.forEach(e -> first.add(e.materialId()));
+        for (RankedRow row : Ranking.rank(total.stream().filter(e -> !first.contains(e.materialId())).toList(),
+                limit - rows.size())) {
+            rows.add(new RankedRow(rows.size() + 1, row.materialId(), row.materialName(), row.evaluation()));
+        }
+        return rows;
+    }
+
+    private static String randomRequirement(Random random) {
+        List<String> clauses = new ArrayList<>();
+        int count = 1 + random.nextInt(3);
+        for (int i = 0; i < count; i++) {
+            clauses.add(weightedClause(random));
+        }
+        List<String> parts = new ArrayList<>(List.of(String.join(" and ", clauses)));
+        switch (random.nextInt(4)) {
+            case 1 -> parts.add("at " + new String[] {"2", "3", "4", "6"}[random.nextInt(4)] + " mm");
+            case 2, 3 -> parts.add("thickness " + new String[] {"1 to 6", "0.5 to 3", "2 to 10"}[random.nextInt(3)] + " mm");
+            default -> { }
+        }
+        if (random.nextInt(3) == 0) {
+            parts.add(LAYERS[random.nextInt(LAYERS.length)]);
+        }
+        if (random.nextInt(6) == 0) {
+            parts.add("class " + new String[] {"plastic sheet", "film", "window glass"}[random.nextInt(3)]);
+        }
+        return String.join(", ", parts);
+    }
+
+    private static String weightedClause(Random random) {
+        String led = "led " + new String[] {"365", "385", "395", "405"}[random.nextInt(4)];
+        return switch (random.nextInt(7)) {
+            case 0, 1 -> "passes over " + percent(50 + 45 * random.nextDouble()) + " of " + led;
+            case 2 -> "blocks under " + percent(Math.pow(10, 1 - 3 * random.nextDouble())) + " of " + led;
+            case 3 -> "erythemal under " + percent(Math.pow(10, 1 - 3 * random.nextDouble()));
+            case 4 -> "uv hazard under " + percent(Math.pow(10, 1 - 3 * random.nextDouble()));
+            case 5 -> "luminous over " + percent(20 + 70 * random.nextDouble());
+            default -> "passes over " + percent(40 + 50 * random.nextDouble()) + " of led 395 weighted by blue-light";
+        };
+    }
+
+    private static String percent(double p) {
+        return String.format(Locale.ROOT, "%.2f%%", p);
+    }
+}

@@ -1,0 +1,190 @@
+package org.spectralsieve.store;
+
+import static org.assertj.core.api.Assertions.assertThat;
+
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Optional;
+import java.util.Random;
+import org.junit.jupiter.api.Test;
+import org.spectralsieve.optics.ConstantIndex;
+import org.spectralsieve.optics.RefractiveIndex;
+import org.spectralsieve.optics.ThicknessRescaler;
+import org.spectralsieve.requirement.Direction;
+import org.spectralsieve.requirement.ThresholdUnit;
+import org.spectralsieve.requirement.WeightedClause;
+import org.spectralsieve.requirement.Weighting;
+import org.spectralsieve.requirement.MadeThicknesses;
+import org.spectralsieve.spectrum.Curve;
+import org.spectralsieve.weighting.BoundedCurves;
+import org.spectralsieve.weighting.EmitterCatalogue;
+import org.spectralsieve.weighting.Emitter;
+import org.spectralsieve.weighting.Figure;
+import org.spectralsieve.weighting.Response;
+import org.spectralsieve.weighting.SpectrumLookup;
+
+/**
+ * The weighted screen's bounds hold the exact figures: a weighted mean of T lies between the means of any
+ * envelopes of T (arithmetic, no source needed), so for every curve the store's bound on a pass margin is
+ * at least the exact margin on the figure's upper end U, and on a block margin at least the exact margin on
+ * its lower end L. The exact figures come from the weighting package ({@code WeightedFigures},
+ * {@code LuminousTransmittance}, checked there against ISO/CIE worked values). Random curves with a fixed
+ * seed: samplings finer and coarser than the store's grid and off it, points below detection, readings
+ * above T = 1 (noise) and at T = 0.
+ */
+class WeightedScreenTest {
+
+    private static final List<Weighting> WEIGHTINGS = weightings();
+
+    @Test
+    void boundsOnWeightedFiguresHoldTheExactFigureOfEveryCurve() {
+        Random random = new Random(20261204L);
+        List<Curve> curves = new ArrayList<>();
+        SpectralStore.Builder builder = SpectralStore.builder(SpectralStore.DEFAULT_GRID, 8);
+        StoredMaterial material = new StoredMaterial(1, "illustrative sheet", "plastic sheet", MadeThicknesses.of(
+                List.of(), Double.NaN, Double.NaN, List.of(2.0)));
+        for (int i = 0; i < 300; i++) {
+            Curve curve = randomCurve(random);
+            curves.add(curve);
+            builder.add(i + 1, material, 2.0, true, false, ConstantIndex.WHEN_UNRECORDED, curve);
+        }
+        WeightedScreen screen = builder.build().weightedScreen();
+        int bounded = 0;
+        int proven = 0;
+        for (Weighting weighting : WEIGHTINGS) {
+            double[] pass = screen.marginBounds(new WeightedClause(Direction.PASS, 1, ThresholdUnit.FRACTION, weighting,
+                    "pass"), Optional.empty());
+            double[] block = screen.marginBounds(new WeightedClause(Direction.BLOCK, 1e-6, ThresholdUnit.FRACTION,
+                    weighting, "block"), Optional.empty());
+            double[] passAtHalf = screen.marginBounds(new WeightedClause(Direction.PASS, 0.5, ThresholdUnit.FRACTION,
+                    weighting, "pass half"), Optional.empty());
+            for (int i = 0; i < curves.size(); i++) {
+                Figure upper = weighting.figure(BoundedCurves.upperBounds(curves.get(i)));
+                if (!upper.available()) {
+                    assertThat(pass[i]).as(weighting + " curve " + i).isInfinite();
+                    continue;
+                }
+                double u = upper.value().getAsDouble();
+                double l = weighting.figure(BoundedCurves.lowerBounds(curves.get(i))).value().orElse(0);
+                double floor = Curve.ABSORBANCE_FLOOR_T;
+                assertThat(pass[i]).as(weighting + " curve " + i + " pass").isGreaterThanOrEqualTo(
+                        Math.log10(Math.max(u, floor)));
+                assertThat(block[i]).as(weighting + " curve " + i + " block").isGreaterThanOrEqualTo(
+                        Math.log10(1e-6 / Math.max(l, Math.min(floor, 1e-6))));
+                bounded += Double.isFinite(pass[i]) ? 1 : 0;
+                proven += passAtHalf[i] < 0 ? 1 : 0;
+                if (passAtHalf[i] < 0) {
+                    assertThat(u).isLessThan(0.5);
+                }
+            }
+        }
+        // not vacuous: most figures are bounded, and many passes at 50 % are proven missed
+        assertThat(bounded).isGreaterThan(WEIGHTINGS.size() * curves.size() / 2);
+        assertThat(proven).isGreaterThan(WEIGHTINGS.size() * curves.size() / 10);
+    }
+
+    @Test
+    void thinnedBoundsHoldTheExactFigureOfTheRescaledCurve() {
+        // the exact rescaling is ThicknessRescaler (Fresnel surfaces and Beer–Lambert, checked against
+        // REFERENCE §7 in its own tests); the bound is only arithmetic on it
+        Random random = new Random(20261206L);
+        List<Curve> curves = new ArrayList<>();
+        List<RefractiveIndex> indices = List.of(new ConstantIndex(1.49), new ConstantIndex(1.585), new ConstantIndex(1.46));
+        SpectralStore.Builder builder = SpectralStore.builder(SpectralStore.DEFAULT_GRID, 8);
+        StoredMaterial material = new StoredMaterial(1, "illustrative sheet", "plastic sheet", MadeThicknesses.of(
+                List.of(), Double.NaN, Double.NaN, List.of(4.0)));
+        for (int i = 0; i < 150; i++) {
+            Curve curve = randomCurve(random);
+            curves.add(curve);
+            builder.add(i + 1, material, 4.0, true, false, indices.get(i % 3), curve);
+        }
+        SpectralStore store = builder.build();
+        int proven = 0;
+        for (Weighting weighting : WEIGHTINGS) {
+            for (double thinnest : new double[] {0.5, 1, 3}) {
+                double[] pass = store.weightedScreen().marginBoundsThinned(store, new WeightedClause(Direction.PASS, 1,
+                        ThresholdUnit.FRACTION, weighting, "pass"), Optional.empty(), thinnest);
+                double[] passAtHalf = store.weightedScreen().marginBoundsThinned(store, new WeightedClause(Direction.PASS,
+                        0.5, ThresholdUnit.FRACTION, weighting, "pass half"), Optional.empty(), thinnest);
+                for (int i = 0; i < curves.size(); i++) {
+                    Curve thinned = ThicknessRescaler.rescale(curves.get(i), 4.0, thinnest, indices.get(i % 3));
+                    Figure upper = weighting.figure(BoundedCurves.upperBounds(thinned));
+                    if (!upper.available()) {
+                        continue;
+                    }
+                    double u = upper.value().getAsDouble();
+                    assertThat(pass[i]).as(weighting + " curve " + i + " at " + thinnest + " mm")
+                            .isGreaterThanOrEqualTo(Math.log10(Math.max(u, Curve.ABSORBANCE_FLOOR_T)));
+                    if (passAtHalf[i] < 0) {
+                        proven++;
+                        assertThat(u).isLessThan(0.5);
+                    }
+                }
+            }
+        }
+        assertThat(proven).as("not vacuous").isGreaterThan(WEIGHTINGS.size() * curves.size() / 10);
+    }
+
+    @Test
+    void codesRoundTowardsTheSafeSide() {
+        for (double t : new double[] {1.2, 1.0, 0.85, 0.5, 0.01, 1e-4, 1e-5}) {
+            assertThat(WeightedScreen.transmittanceOf(WeightedScreen.codeAtMost(t))).isGreaterThanOrEqualTo(t);
+            assertThat(WeightedScreen.transmittanceOf(WeightedScreen.codeAtLeast(t))).isLessThanOrEqualTo(t);
+        }
+        assertThat(WeightedScreen.codeAtMost(2.0)).as("above the code's range: no bound").isZero();
+        assertThat(WeightedScreen.codeAtLeast(0)).as("T may be 0").isZero();
+    }
+
+    @Test
+    void curvesAddedOnTheGridAreNotScreened() {
+        SpectralStore.Builder builder = SpectralStore.builder(SpectralStore.DEFAULT_GRID, 1);
+        short[] codes = new short[SpectralStore.DEFAULT_GRID.size()];
+        StoredMaterial material = new StoredMaterial(1, "illustrative sheet", "plastic sheet", MadeThicknesses.of(
+                List.of(), Double.NaN, Double.NaN, List.of(2.0)));
+        java.util.Arrays.fill(codes, OdCode.encode(0.01, false));
+        builder.addEncoded(1, material, 2.0, true, false, ConstantIndex.WHEN_UNRECORDED, codes);
+        double[] bounds = builder.build().weightedScreen().marginBounds(new WeightedClause(Direction.PASS, 0.9,
+                ThresholdUnit.FRACTION, Weighting.luminous(), "luminous over 90%"), Optional.empty());
+        assertThat(bounds[0]).isInfinite();
+    }
+
+    private static List<Weighting> weightings() {
+        SpectrumLookup lookup = SpectrumLookup.builtIn();
+        List<Weighting> out = new ArrayList<>();
+        out.add(Weighting.luminous());
+        out.add(Weighting.erythemal(lookup));
+        out.add(Weighting.uvHazard(lookup));
+        for (Emitter emitter : EmitterCatalogue.all()) {
+            out.add(Weighting.of(emitter, Optional.empty()));
+            out.add(Weighting.of(emitter, Optional.of(Response.blueLight())));
+        }
+        return out;
+    }
+
+    /** A long-pass edge with ripple, sampled on a random step from a random start; some points bounded. */
+    private static Curve randomCurve(Random random) {
+        double step = new double[] {0.37, 0.5, 1, 2, 5}[random.nextInt(5)];
+        double start = 190 + random.nextInt(80) + (random.nextBoolean() ? 0.25 : 0);
+        double end = 700 + random.nextInt(400);
+        int n = (int) ((end - start) / step) + 1;
+        double edge = 250 + 300 * random.nextDouble();
+        double width = 2 + 30 * random.nextDouble();
+        double top = 0.3 + 0.75 * random.nextDouble();
+        double limit = random.nextBoolean() ? 1e-4 : 0;
+        double[] nm = new double[n];
+        double[] t = new double[n];
+        boolean[] below = new boolean[n];
+        double[] limits = new double[n];
+        for (int i = 0; i < n; i++) {
+            nm[i] = start + i * step;
+            double value = top / (1 + Math.exp(-(nm[i] - edge) / width)) * (1 + 0.03 * Math.sin(nm[i] / 3));
+            if (random.nextInt(200) == 0) {
+                value = 0;
+            }
+            below[i] = limit > 0 && value < limit;
+            t[i] = below[i] ? limit * random.nextDouble() : value;
+            limits[i] = below[i] ? limit : 0;
+        }
+        return Curve.of(nm, t, below, limits);
+    }
+}
