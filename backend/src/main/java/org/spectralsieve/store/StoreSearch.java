@@ -231,10 +231,19 @@ public final class StoreSearch {
             double value = (code & OdCode.LEVEL_MASK) * OdCode.STEP;
             double margin = pass ? threshold - value : value - threshold;
             lowest[j] = Math.min(lowest[j], margin);
-            int verdict = ProbeVerdict.of(margin, (code & OdCode.BOUND_BIT) != 0, pass);
-            bits[j] |= verdict;
-            if (verdict == ProbeVerdict.MISSES) {
-                lowestMiss[j] = Math.min(lowestMiss[j], margin);
+            if (margin < 0) {
+                // ProbeVerdict.of spelt out for a negative margin (the profile showed the call not inlined here):
+                // a miss, except a bound on a block, which is only unverified; a margin at or above 0 on a
+                // bound pass is unverified, otherwise it holds
+                boolean blockOnBound = !pass && (code & OdCode.BOUND_BIT) != 0;
+                if (blockOnBound) {
+                    bits[j] |= ProbeVerdict.UNVERIFIED;
+                } else {
+                    bits[j] |= ProbeVerdict.MISSES;
+                    lowestMiss[j] = Math.min(lowestMiss[j], margin);
+                }
+            } else if (pass && (code & OdCode.BOUND_BIT) != 0) {
+                bits[j] |= ProbeVerdict.UNVERIFIED;
             }
         }
     }
