@@ -103,7 +103,7 @@ public final class StoreSearch {
     /**
      * The reworked scan: pass one keeps each task's best bounds in its own small heap (merged afterwards,
      * so no sweep over every bound on one thread), and the curves whose bound still reaches the cut are
-     * collected in parallel too. Same bounds, same candidates, same refinement: the same answer.
+     * collected in one sweep. Same bounds, same candidates, same refinement: the same answer.
      */
     private StoreResult runScan(int limit, boolean exhaustive) {
         int n = store.size();

@@ -19,7 +19,7 @@ import org.spectralsieve.requirement.Requirement;
 import org.spectralsieve.requirement.ThicknessSpec;
 
 /**
- * The reworked scan (codes read in the margin loop, per-task top bounds merged, candidates and spans
+ * The reworked scan (codes read in the margin loop, per-task top bounds merged, spans
  * gathered in parallel, far thicknesses remembered) against the earlier scan kept as
  * {@link StoreSearch#searchReference}: on random synthetic stores and random plain requirements both
  * return the same rows in the same order with the same verdicts, margins, thicknesses and thickness ranges,
