@@ -4,7 +4,6 @@ import java.util.ArrayList;
 import java.util.Comparator;
 import java.util.List;
 import java.util.Optional;
-import java.util.TreeSet;
 
 /**
  * Judges one material's samples against a requirement, each sample only where it is the best evidence.
@@ -126,14 +125,23 @@ public final class MaterialJudge {
      * next thicker one (the whole axis at the ends). Closed at both ends: at a boundary both samples are judged.
      */
     public static ThicknessInterval span(double d0, double[] measured) {
-        TreeSet<Double> distinct = new TreeSet<>();
+        // the nearest measured thickness strictly below and strictly above d0, in Double.compare's order (what a
+        // sorted set's lower/higher gave): one pass, no set per sample (the store asks this for every curve)
+        boolean anyBelow = false;
+        boolean anyAbove = false;
+        double below = 0;
+        double above = 0;
         for (double d : measured) {
-            distinct.add(d);
+            if (Double.compare(d, d0) < 0 && (!anyBelow || Double.compare(d, below) > 0)) {
+                below = d;
+                anyBelow = true;
+            } else if (Double.compare(d, d0) > 0 && (!anyAbove || Double.compare(d, above) < 0)) {
+                above = d;
+                anyAbove = true;
+            }
         }
-        Double below = distinct.lower(d0);
-        Double above = distinct.higher(d0);
-        double lo = below == null ? Double.MIN_VALUE : Math.sqrt(below * d0);
-        double hi = above == null ? Double.MAX_VALUE : Math.sqrt(above * d0);
+        double lo = anyBelow ? Math.sqrt(below * d0) : Double.MIN_VALUE;
+        double hi = anyAbove ? Math.sqrt(above * d0) : Double.MAX_VALUE;
         return new ThicknessInterval(lo, hi);
     }
 

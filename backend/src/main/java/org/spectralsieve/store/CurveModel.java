@@ -182,8 +182,7 @@ final class CurveModel {
         pass[i] = isPass;
         bound[i] = isBound;
         // the far thickness is at least d0: only worth computing when the asked thicknesses reach past d0
-        farMm[i] = clear && plan.thickness.maxMm() > d0 ? StoreSearch.Plan.farMm(od0, surfaceLoss, d0)
-                : Double.POSITIVE_INFINITY;
+        farMm[i] = clear && plan.thickness.maxMm() > d0 ? farMmOf(od0, surfaceLoss, d0) : Double.POSITIVE_INFINITY;
         clauseOf[i] = loadingClause;
         if (isPass) {           // margin = thresholdOd − OD(d)
             intercept[i] = thresholdOd - base;
@@ -192,6 +191,28 @@ final class CurveModel {
             intercept[i] = base - thresholdOd;
             slope[i] = perMm;
         }
+    }
+
+    // far factors of clear readings, remembered per (OD, surface loss): a store holds few distinct quantized clear
+    // ODs per probe, and each factor costs two powers and a SlabReading; a direct-mapped table, one per model
+    // (one per thread), so no locking. The value equals Plan.farMm's: d0 times the same factor.
+    private static final int FAR_SLOTS = 1024;
+    private final double[] farKeyOd = new double[FAR_SLOTS];
+    private final double[] farKeyLoss = new double[FAR_SLOTS];
+    private final double[] farFactor = new double[FAR_SLOTS];
+
+    private double farMmOf(double od0, double surfaceLoss, double d0) {
+        if (plan.reference) {
+            return StoreSearch.Plan.farMm(od0, surfaceLoss, d0);
+        }
+        int slot = (Double.hashCode(od0) * 31 + Double.hashCode(surfaceLoss)) & (FAR_SLOTS - 1);
+        // a factor is at least 1, so an untouched slot (0) never matches
+        if (farFactor[slot] == 0 || farKeyOd[slot] != od0 || farKeyLoss[slot] != surfaceLoss) {
+            farKeyOd[slot] = od0;
+            farKeyLoss[slot] = surfaceLoss;
+            farFactor[slot] = StoreSearch.Plan.farFactor(od0, surfaceLoss);
+        }
+        return d0 * farFactor[slot];
     }
 
     /** The ranking key of the best this curve can do, without allocating. */

@@ -45,27 +45,339 @@ public final class StoreSearch {
     /** Curves per task of the first pass: small enough that a chunk's decoded probes stay in cache. */
     private static final int CHUNK = 2048;
 
+    /**
+     * Below this many curves a search runs on the caller's thread alone: handing chunks to the common pool
+     * costs more than it saves on a demo-sized library (and keeps its answer time free of pool wake-ups).
+     */
+    static final int PARALLEL_MIN_CURVES = 32_768;
+
     private final SpectralStore store;
     private final Plan plan;
+    /** The path as it was before the scan was reworked (see {@link #searchReference}). */
+    private final boolean reference;
 
-    private StoreSearch(SpectralStore store, Requirement requirement) {
+    private StoreSearch(SpectralStore store, Requirement requirement, boolean reference) {
+        this(store, requirement, reference, PARALLEL_MIN_CURVES);
+    }
+
+    private StoreSearch(SpectralStore store, Requirement requirement, boolean reference, int parallelMinCurves) {
         this.store = store;
-        this.plan = Plan.of(store, requirement);
+        this.reference = reference;
+        this.plan = Plan.of(store, requirement, reference, parallelMinCurves);
+    }
+
+    /** The reworked scan with its own size threshold for going parallel: lets tests split small stores over tasks. */
+    static StoreResult search(SpectralStore store, Requirement requirement, int limit, int parallelMinCurves) {
+        return new StoreSearch(store, requirement, false, parallelMinCurves).run(limit, false);
     }
 
     public static StoreResult search(SpectralStore store, Requirement requirement, int limit) {
         if (limit < 1) {
             throw new IllegalArgumentException("limit must be at least 1, got " + limit);
         }
-        return new StoreSearch(store, requirement).run(limit, false);
+        return new StoreSearch(store, requirement, false).run(limit, false);
+    }
+
+    /**
+     * The same search by the earlier scan (probes decoded to doubles chunk by chunk, one top-k selection
+     * and one candidate sweep on the caller's thread, spans built material by material with streams, far
+     * thicknesses recomputed per reading). Kept as the reference the reworked scan must equal
+     * ({@code StoreScanEquivalenceTest}) and as the "before" side of {@code SearchBenchmark}.
+     */
+    public static StoreResult searchReference(SpectralStore store, Requirement requirement, int limit) {
+        if (limit < 1) {
+            throw new IllegalArgumentException("limit must be at least 1, got " + limit);
+        }
+        return new StoreSearch(store, requirement, true).run(limit, false);
     }
 
     /** The same search with every probe of every curve evaluated: the reference the bounded search must equal. */
     static StoreResult searchExhaustively(SpectralStore store, Requirement requirement, int limit) {
-        return new StoreSearch(store, requirement).run(limit, true);
+        return new StoreSearch(store, requirement, false).run(limit, true);
     }
 
     private StoreResult run(int limit, boolean exhaustive) {
+        return reference ? runReference(limit, exhaustive) : runScan(limit, exhaustive);
+    }
+
+    /**
+     * The reworked scan: pass one keeps each task's best bounds in its own small heap (merged afterwards,
+     * so no sweep over every bound on one thread), and the curves whose bound still reaches the cut are
+     * collected in one sweep. Same bounds, same candidates, same refinement: the same answer.
+     */
+    private StoreResult runScan(int limit, boolean exhaustive) {
+        int n = store.size();
+        int[] bound = new int[n];
+        boolean[] eligible = new boolean[n];
+        int firstCut = limit * FIRST_CUT_FACTOR;
+        ScanPass pass = scanPass(bound, eligible, firstCut);
+
+        Refinement refinement = new Refinement();
+        CurveModel full = new CurveModel(plan, store, false);
+        for (int curve : pass.best) {
+            refinement.add(curve, full);
+        }
+        int cut = exhaustive ? Integer.MIN_VALUE : refinement.kthBestMaterialKey(limit);
+        for (int curve : reaching(bound, eligible, cut)) {
+            if (!refinement.evaluations.containsKey(curve)) {
+                refinement.add(curve, full);
+            }
+        }
+        return new StoreResult(refinement.topRows(limit), pass.eligibleCount, refinement.evaluations.size());
+    }
+
+    /** The first pass's count of admitted curves and its best {@code count} curves by bound. */
+    private record ScanPass(int eligibleCount, int[] best) {
+    }
+
+    private ScanPass scanPass(int[] bound, boolean[] eligible, int count) {
+        int n = store.size();
+        int chunks = (n + CHUNK - 1) / CHUNK;
+        int tasks = n < plan.parallelMinCurves ? 1
+                : Math.max(1, Math.min(chunks, 4 * Runtime.getRuntime().availableProcessors()));
+        ScanTask[] done = new ScanTask[tasks];
+        java.util.function.IntConsumer work = t -> {
+            ScanTask task = new ScanTask(new Buffers(plan.pointProbes.size()), new TopBounds(count));
+            for (int c = t; c < chunks; c += tasks) {
+                int from = c * CHUNK;
+                int to = Math.min(n, from + CHUNK);
+                task.count += scanChunk(from, to, task.buffers, bound, eligible);
+                task.top.offerAll(bound, eligible, from, to);
+            }
+            done[t] = task;
+        };
+        if (tasks == 1) {
+            work.accept(0);
+        } else {
+            IntStream.range(0, tasks).parallel().forEach(work);
+        }
+        TopBounds merged = new TopBounds(count);
+        int eligibleCount = 0;
+        for (ScanTask task : done) {
+            eligibleCount += task.count;
+            merged.offerAll(task.top);
+        }
+        return new ScanPass(eligibleCount, merged.curves());
+    }
+
+    /** One task's scratch space, running count of admitted curves and best bounds. */
+    private static final class ScanTask {
+        final Buffers buffers;
+        final TopBounds top;
+        int count;
+
+        ScanTask(Buffers buffers, TopBounds top) {
+            this.buffers = buffers;
+            this.top = top;
+        }
+    }
+
+    /**
+     * Pass one over one chunk: as {@link #boundChunk}, but at one thickness the probes' codes are read in
+     * the margin loop itself (no decoded copy of each column) and whether a curve is rescaled is settled
+     * once per curve, not once per probe.
+     */
+    private int scanChunk(int from, int to, Buffers b, int[] bound, boolean[] eligible) {
+        if (plan.thickness.kind() == ThicknessSpec.Kind.RANGE) {
+            return boundChunk(from, to, b, bound, eligible);
+        }
+        int len = to - from;
+        boolean fixed = plan.thickness.kind() == ThicknessSpec.Kind.FIXED;
+        boolean[] rescaled = b.rescaled;
+        boolean anyRescaled = false;
+        if (fixed) {
+            for (int j = 0; j < len; j++) {
+                rescaled[j] = plan.rescaledAt(store, from + j);
+                anyRescaled |= rescaled[j];
+            }
+        }
+        double[] lowest = b.lowest;
+        double[] lowestMiss = b.lowestMiss;
+        int[] bits = b.bits;
+        Arrays.fill(lowest, 0, len, Double.POSITIVE_INFINITY);
+        Arrays.fill(lowestMiss, 0, len, Double.POSITIVE_INFINITY);
+        Arrays.fill(bits, 0, len, 0);
+        for (int k = 0; k < plan.pointProbes.size(); k++) {
+            PointProbe probe = plan.pointProbes.get(k);
+            if (!probe.probe().onGrid()) {
+                for (int j = 0; j < len; j++) {
+                    bits[j] |= ProbeVerdict.UNVERIFIED;
+                }
+            } else if (anyRescaled || probe.probe().fractionHi() != 0) {
+                marginsDecoded(k, from, to, b, rescaled, anyRescaled);
+            } else {
+                marginsOnGridPoint(probe, store.column(probe.probe().lo()), from, len, b);
+            }
+        }
+        return settleBounds(from, to, b, bound, eligible, fixed);
+    }
+
+    /**
+     * A probe on a grid point of curves read as they are: the margin straight from the 16-bit code. The
+     * value is the decoder's ((1 − 0)·level + 0·level)·STEP = level·STEP, so margins are the same doubles.
+     */
+    private static void marginsOnGridPoint(PointProbe probe, short[] column, int from, int len, Buffers b) {
+        double threshold = probe.thresholdOd();
+        boolean pass = probe.pass();
+        double[] lowest = b.lowest;
+        double[] lowestMiss = b.lowestMiss;
+        int[] bits = b.bits;
+        for (int j = 0; j < len; j++) {
+            short code = column[from + j];
+            if (code == OdCode.NOT_MEASURED) {
+                bits[j] |= ProbeVerdict.UNVERIFIED;
+                continue;
+            }
+            double value = (code & OdCode.LEVEL_MASK) * OdCode.STEP;
+            double margin = pass ? threshold - value : value - threshold;
+            lowest[j] = Math.min(lowest[j], margin);
+            if (margin < 0) {
+                // ProbeVerdict.of spelt out for a negative margin (the profile showed the call not inlined here):
+                // a miss, except a bound on a block, which is only unverified; a margin at or above 0 on a
+                // bound pass is unverified, otherwise it holds
+                boolean blockOnBound = !pass && (code & OdCode.BOUND_BIT) != 0;
+                if (blockOnBound) {
+                    bits[j] |= ProbeVerdict.UNVERIFIED;
+                } else {
+                    bits[j] |= ProbeVerdict.MISSES;
+                    lowestMiss[j] = Math.min(lowestMiss[j], margin);
+                }
+            } else if (pass && (code & OdCode.BOUND_BIT) != 0) {
+                bits[j] |= ProbeVerdict.UNVERIFIED;
+            }
+        }
+    }
+
+    /** A probe between grid points, or at an asked thickness some curves are rescaled to: the general rule. */
+    private void marginsDecoded(int k, int from, int to, Buffers b, boolean[] rescaled, boolean anyRescaled) {
+        PointProbe probe = plan.pointProbes.get(k);
+        decode(probe.probe(), from, to, b.od[k], b.state[k]);
+        double threshold = probe.thresholdOd();
+        boolean pass = probe.pass();
+        double target = plan.thickness.minMm();
+        double[] values = b.od[k];
+        byte[] states = b.state[k];
+        for (int j = 0; j < to - from; j++) {
+            if (states[j] == CurveModel.UNMEASURED) {
+                b.bits[j] |= ProbeVerdict.UNVERIFIED;
+                continue;
+            }
+            double value = values[j];
+            int curve = from + j;
+            boolean isBound = states[j] == CurveModel.BOUND;
+            if (anyRescaled && rescaled[j]) {
+                int model = store.indexModelOf(curve);
+                double s = plan.pointProbeLoss[model][k];
+                if (value <= plan.pointProbeUnresolvedOd[model][k]) {
+                    double d0 = store.thicknessMm(curve);
+                    isBound |= target > d0 && target > Plan.farMm(value, s, d0); // never a bound when thinner
+                } else {
+                    value = s + Math.max(0, value - s) * target / store.thicknessMm(curve);
+                }
+            }
+            double margin = pass ? threshold - value : value - threshold;
+            b.lowest[j] = Math.min(b.lowest[j], margin);
+            int verdict = ProbeVerdict.of(margin, isBound, pass);
+            b.bits[j] |= verdict;
+            if (verdict == ProbeVerdict.MISSES) {
+                b.lowestMiss[j] = Math.min(b.lowestMiss[j], margin);
+            }
+        }
+    }
+
+    /** The curves of a chunk with their bounds from the combined probe bits: as in {@link #boundsAtOneThickness}. */
+    private int settleBounds(int from, int to, Buffers b, int[] bound, boolean[] eligible, boolean fixed) {
+        double target = plan.thickness.minMm();
+        int count = 0;
+        for (int j = 0; j < to - from; j++) {
+            int curve = from + j;
+            if (!plan.admits(store, curve)) {
+                continue;
+            }
+            count++;
+            if (!plan.judged(curve)) {
+                continue;
+            }
+            eligible[curve] = true;
+            if (fixed && !plan.judgeableAt(store, curve, target)) {
+                bound[curve] = Keys.of(Standing.NOT_JUDGED, Double.NaN);
+                continue;
+            }
+            Verdict verdict = ProbeVerdict.combine(b.bits[j]);
+            if (verdict == Verdict.MISSES) {
+                bound[curve] = Keys.of(Standing.MISSES, b.lowestMiss[j]);
+                continue;
+            }
+            double worst = b.lowest[j] == Double.POSITIVE_INFINITY ? Double.NaN : b.lowest[j];
+            bound[curve] = Keys.of(verdict == Verdict.MEETS ? Standing.MEETS : Standing.UNVERIFIED, worst);
+        }
+        return count;
+    }
+
+    /**
+     * The eligible curves whose bound reaches {@code cut}, in curve order: one plain sweep (a parallel stream
+     * filter measured slower here, its pipeline costing more than the two array reads per curve).
+     */
+    private static int[] reaching(int[] bound, boolean[] eligible, int cut) {
+        int[] found = new int[16];
+        int count = 0;
+        for (int c = 0; c < bound.length; c++) {
+            if (eligible[c] && bound[c] >= cut) {
+                if (count == found.length) {
+                    found = Arrays.copyOf(found, count * 2);
+                }
+                found[count++] = c;
+            }
+        }
+        return Arrays.copyOf(found, count);
+    }
+
+    /**
+     * The best {@code count} (bound, curve) pairs offered: a min-heap packed in longs as {@link #bestByBound},
+     * so per-task heaps merge into the same set one heap over every curve would hold (the order is total).
+     */
+    private static final class TopBounds {
+        final long[] heap;
+        int size;
+
+        TopBounds(int count) {
+            heap = new long[count];
+        }
+
+        void offerAll(int[] bound, boolean[] eligible, int from, int to) {
+            for (int curve = from; curve < to; curve++) {
+                if (eligible[curve]) {
+                    offer(((long) bound[curve] << 32) | (0xFFFFFFFFL & ~curve));
+                }
+            }
+        }
+
+        void offerAll(TopBounds other) {
+            for (int i = 0; i < other.size; i++) {
+                offer(other.heap[i]);
+            }
+        }
+
+        void offer(long packed) {
+            if (size < heap.length) {
+                heap[size] = packed;
+                siftUp(heap, size++);
+            } else if (packed > heap[0]) {
+                heap[0] = packed;
+                siftDown(heap, size);
+            }
+        }
+
+        int[] curves() {
+            int[] curves = new int[size];
+            for (int i = 0; i < size; i++) {
+                curves[i] = ~(int) heap[i];
+            }
+            return curves;
+        }
+    }
+
+    private StoreResult runReference(int limit, boolean exhaustive) {
         int n = store.size();
         int[] bound = new int[n];
         boolean[] eligible = new boolean[n];
@@ -116,6 +428,7 @@ public final class StoreSearch {
         final int[] bits = new int[CHUNK];
         final double[] curveOd;
         final byte[] curveState;
+        final boolean[] rescaled = new boolean[CHUNK];
         final CurveModel model = new CurveModel(plan, store, true);
 
         Buffers(int probes) {
@@ -420,6 +733,10 @@ public final class StoreSearch {
          */
         ThicknessInterval[] spans;
         final double[][] pointProbeUnresolvedOd;
+        /** Whether this plan serves the reference path (the earlier scan, kept for comparison). */
+        boolean reference;
+        /** From this many curves on, the scan and the spans run in parallel. */
+        int parallelMinCurves = PARALLEL_MIN_CURVES;
 
         private Plan(List<CompiledClause> clauses, ThicknessSpec thickness, String materialClass, Boolean total,
                      double[][][] surfaceLoss, double[][][] unresolvedOd) {
@@ -464,7 +781,7 @@ public final class StoreSearch {
             }
         }
 
-        static Plan of(SpectralStore store, Requirement r) {
+        static Plan of(SpectralStore store, Requirement r, boolean reference, int parallelMinCurves) {
             if (!r.plain()) {
                 throw new IllegalArgumentException("the store ranks transmittance and cutoff clauses on the candidate"
                         + " alone; '" + r.text() + "' has weighted clauses or a fixed layer (see MissScreen)");
@@ -492,7 +809,9 @@ public final class StoreSearch {
             Boolean total = r.admitsGeometry("regular") && r.admitsGeometry("total") ? null : !r.admitsGeometry("regular");
             Plan plan = new Plan(List.copyOf(clauses), r.thickness(), r.materialClass().orElse(null), total, loss,
                     unresolved);
-            plan.spans = plan.spans(store);
+            plan.reference = reference;
+            plan.parallelMinCurves = parallelMinCurves;
+            plan.spans = reference ? plan.spans(store) : plan.spansInParallel(store);
             return plan;
         }
 
@@ -515,6 +834,46 @@ public final class StoreSearch {
                 }
             }
             return out;
+        }
+
+        /**
+         * The same spans as {@link #spans}, material by material in parallel on a large store, with plain loops:
+         * the streams per material were most of a thickness-solved search's time at a million curves.
+         */
+        private ThicknessInterval[] spansInParallel(SpectralStore store) {
+            if (thickness.kind() == ThicknessSpec.Kind.AS_MEASURED) {
+                return null;
+            }
+            ThicknessInterval[] out = new ThicknessInterval[store.size()];
+            int[][] byMaterial = store.curvesByMaterial();
+            IntStream materials = IntStream.range(0, byMaterial.length);
+            if (store.size() >= parallelMinCurves) {
+                materials = materials.parallel();
+            }
+            materials.forEach(m -> spansOfMaterial(store, byMaterial[m], out));
+            return out;
+        }
+
+        private void spansOfMaterial(SpectralStore store, int[] curves, ThicknessInterval[] out) {
+            int admittedCount = 0;
+            int[] admitted = new int[curves.length];
+            for (int c : curves) {
+                if (admits(store, c)) {
+                    admitted[admittedCount++] = c;
+                }
+            }
+            if (admittedCount == 0) {
+                return;
+            }
+            double[] mm = new double[admittedCount];
+            for (int i = 0; i < admittedCount; i++) {
+                mm[i] = store.thicknessMm(admitted[i]);
+            }
+            MadeThicknesses made = store.material(admitted[0]).made();
+            ThicknessInterval[] spans = MaterialJudge.spans(mm, store.isBulk(admitted[0]), made, thickness);
+            for (int i = 0; i < admittedCount; i++) {
+                out[admitted[i]] = spans[i] == null ? null : judgedRange(spans[i], made);
+            }
         }
 
         /** For a range: the part of the span inside the asked range and the made thicknesses (the span itself when empty). */
@@ -572,6 +931,12 @@ public final class StoreSearch {
         static double farMm(double od0, double surfaceLoss, double d0) {
             double reflectance = 1 - Math.pow(10, -surfaceLoss / 2);
             return SlabReading.of(Math.pow(10, -od0), reflectance).farMm(d0);
+        }
+
+        /** {@link #farMm} divided by d0: the factor alone ({@link SlabReading#farFactor}), the same double. */
+        static double farFactor(double od0, double surfaceLoss) {
+            double reflectance = 1 - Math.pow(10, -surfaceLoss / 2);
+            return SlabReading.of(Math.pow(10, -od0), reflectance).farFactor();
         }
 
         boolean admits(SpectralStore store, int curve) {

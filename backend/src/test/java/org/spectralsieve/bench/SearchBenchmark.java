@@ -56,6 +56,8 @@ class SearchBenchmark {
 
             double fixedP50 = time(store, fixed, limit, runs, "fixed");
             time(store, solve, limit, runs, "solve");
+            compareScans(store, fixed, limit, runs, "fixed");
+            compareScans(store, solve, limit, runs, "solve");
             if (contains(sqlSizes, n)) {
                 double sqlP50 = sqlBaseline(n, 20261202L, BenchStats.intProperty("bench.sqlRuns", 5), limit);
                 System.out.printf("BENCH baseline-sql curves=%d p50_ms=%s ratio=%.0f%n", n, ms(sqlP50), sqlP50 / fixedP50);
@@ -84,6 +86,33 @@ class SearchBenchmark {
         System.out.printf("BENCH search curves=%d mode=%s p50_ms=%s p95_ms=%s store_p50_ms=%s refined=%d%n", store.size(),
                 mode, ms(percentile(ms, 50)), ms(percentile(ms, 95)), ms(percentile(storeMs, 50)), refined);
         return percentile(ms, 50);
+    }
+
+    /**
+     * The store's part alone by the earlier scan ({@code variant=before}, {@link StoreSearch#searchReference})
+     * and the reworked one ({@code variant=after}), run alternately in one loop so both see the same load.
+     */
+    private static void compareScans(SpectralStore store, Requirement requirement, int limit, int runs, String mode) {
+        for (int i = 0; i < 3; i++) {
+            StoreSearch.searchReference(store, requirement, limit);
+            StoreSearch.search(store, requirement, limit);
+        }
+        double[] before = new double[runs];
+        double[] after = new double[runs];
+        for (int i = 0; i < runs; i++) {
+            long t0 = System.nanoTime();
+            StoreSearch.searchReference(store, requirement, limit);
+            long t1 = System.nanoTime();
+            StoreSearch.search(store, requirement, limit);
+            long t2 = System.nanoTime();
+            before[i] = (t1 - t0) / 1e6;
+            after[i] = (t2 - t1) / 1e6;
+        }
+        for (String variant : new String[] {"before", "after"}) {
+            double[] ms = variant.equals("before") ? before : after;
+            System.out.printf("BENCH store-scan curves=%d mode=%s variant=%s p50_ms=%s p95_ms=%s%n", store.size(), mode,
+                    variant, ms(percentile(ms, 50)), ms(percentile(ms, 95)));
+        }
     }
 
     /** The service's path without the database: store search, then exact judgement of the returned rows. */

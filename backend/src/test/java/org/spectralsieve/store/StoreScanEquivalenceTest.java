@@ -1,0 +1,102 @@
+package org.spectralsieve.store;
+
+import static org.assertj.core.api.Assertions.assertThat;
+import static org.spectralsieve.store.StoreSearchTest.block;
+import static org.spectralsieve.store.StoreSearchTest.mean;
+import static org.spectralsieve.store.StoreSearchTest.pass;
+import static org.spectralsieve.store.StoreSearchTest.passBand;
+import static org.spectralsieve.store.StoreSearchTest.requirement;
+
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Random;
+import org.junit.jupiter.api.Test;
+import org.spectralsieve.requirement.Band;
+import org.spectralsieve.requirement.Clause;
+import org.spectralsieve.requirement.CutoffClause;
+import org.spectralsieve.requirement.Direction;
+import org.spectralsieve.requirement.Requirement;
+import org.spectralsieve.requirement.ThicknessSpec;
+
+/**
+ * The reworked scan (codes read in the margin loop, per-task top bounds merged, spans
+ * gathered in parallel, far thicknesses remembered) against the earlier scan kept as
+ * {@link StoreSearch#searchReference}: on random synthetic stores and random plain requirements both
+ * return the same rows in the same order with the same verdicts, margins, thicknesses and thickness ranges,
+ * and refine the same number of curves. The reworked scan is run both on one thread and split over tasks
+ * (a parallel threshold of one curve), so the merge of per-task results is exercised on small stores.
+ * The reference itself is checked against evaluating every probe of every curve in {@link StoreSearchTest}.
+ */
+class StoreScanEquivalenceTest {
+
+    /** Seeded, so a failure repeats; 3 stores × 40 requirements. */
+    private static final long SEED = 20261204L;
+
+    @Test
+    void theReworkedScanReturnsWhatTheEarlierScanReturnsOnRandomStoresAndRequirements() {
+        Random random = new Random(SEED);
+        for (int s = 0; s < 3; s++) {
+            // more than two chunks of 2,048 curves, so several tasks each keep their own best bounds
+            int curves = 4500 + random.nextInt(3000);
+            SpectralStore store = StoreSearchTest.randomStore(curves, 300 + random.nextInt(1500), random.nextLong());
+            for (int q = 0; q < 40; q++) {
+                Requirement r = randomRequirement(random);
+                int limit = 1 + random.nextInt(30);
+                StoreResult before = StoreSearch.searchReference(store, r, limit);
+                for (int parallelFrom : new int[] {Integer.MAX_VALUE, 1}) {
+                    StoreResult after = StoreSearch.search(store, r, limit, parallelFrom);
+
+                    assertThat(after.hits()).as("%s, limit %d, parallel from %d", r.text(), limit, parallelFrom)
+                            .usingRecursiveFieldByFieldElementComparator().containsExactlyElementsOf(before.hits());
+                    assertThat(after.evaluatedSamples()).isEqualTo(before.evaluatedSamples());
+                    assertThat(after.refinedSamples()).as(r.text()).isEqualTo(before.refinedSamples());
+                }
+            }
+        }
+    }
+
+    @Test
+    void theDefaultSearchTakesTheReworkedScan() {
+        SpectralStore store = StoreSearchTest.randomStore(3000, 700, 7);
+        Requirement r = requirement(ThicknessSpec.range(1, 6), pass(0.8, 365), block(0.01, 405));
+
+        assertThat(StoreSearch.search(store, r, 20).hits()).usingRecursiveFieldByFieldElementComparator()
+                .containsExactlyElementsOf(StoreSearch.searchReference(store, r, 20).hits());
+    }
+
+    private static Requirement randomRequirement(Random random) {
+        List<Clause> clauses = new ArrayList<>();
+        int count = 1 + random.nextInt(3);
+        for (int i = 0; i < count; i++) {
+            clauses.add(randomClause(random));
+        }
+        ThicknessSpec thickness = switch (random.nextInt(3)) {
+            case 0 -> ThicknessSpec.AS_MEASURED;
+            case 1 -> ThicknessSpec.at(pick(random, 0.5, 1, 2, 3, 4.5, 6, 10));
+            default -> {
+                double lo = pick(random, 0.3, 0.5, 1, 2);
+                yield ThicknessSpec.range(lo, lo + pick(random, 0.5, 2, 5, 10));
+            }
+        };
+        return requirement(thickness, clauses.toArray(Clause[]::new));
+    }
+
+    private static Clause randomClause(Random random) {
+        // wavelengths both on the 1 nm grid and between its points, thresholds from clear to dense
+        double nm = 250 + random.nextInt(300) + (random.nextBoolean() ? 0 : 0.5);
+        double t = pick(random, 0.0001, 0.001, 0.01, 0.1, 0.5, 0.7, 0.8, 0.9, 0.95);
+        double width = 2 + random.nextInt(40);
+        return switch (random.nextInt(6)) {
+            case 0 -> pass(t, nm);
+            case 1 -> block(t, nm);
+            case 2 -> passBand(t, nm, nm + width);
+            case 3 -> block(t, nm, nm + width);
+            case 4 -> mean(random.nextBoolean() ? Direction.PASS : Direction.BLOCK, t, nm, nm + width);
+            default -> new CutoffClause(pick(random, 0.1, 0.5), new Band(nm, nm + width), "cutoff");
+        };
+    }
+
+    private static double pick(Random random, double... values) {
+        return values[random.nextInt(values.length)];
+    }
+}
