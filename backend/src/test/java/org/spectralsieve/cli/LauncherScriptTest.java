@@ -77,13 +77,15 @@ class LauncherScriptTest {
     }
 
     @Test
-    void aBadRequirementStillExitsWithTwoThroughTheLauncher() {
+    void aBadRequirementStillExitsWithTwoThroughTheLauncherAndRecordsNoArchive() throws IOException {
         LauncherProcess.Result run = sieve.launcher("search", "passes over 80% at 254 nxm",
                 "--db-url", "jdbc:h2:file:" + tmp.resolve("db").resolve("sieve"));
 
         assertThat(run.exitCode()).isEqualTo(SieveCli.USAGE);
         assertThat(run.err()).contains("did you mean 'nm'");
         assertThat(run.out()).isEmpty();
+        // it stopped before opening the library: too few classes loaded to be worth an archive
+        assertThat(archives()).isEmpty();
     }
 
     @Test
