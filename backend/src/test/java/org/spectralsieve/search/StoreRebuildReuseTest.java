@@ -42,6 +42,8 @@ class StoreRebuildReuseTest {
     private static final Requirement PLAIN = RequirementParser.parse("passes over 80% at 365 nm and blocks under 1% at 405 nm");
     private static final Requirement SOLVED = RequirementParser.parse(
             "passes over 80% at 365 nm and blocks under 1% at 405 nm, thickness 1 to 6 mm");
+    /** A weighted clause: the store screens it with per-curve bounds, which a carried row must keep. */
+    private static final Requirement WEIGHTED = RequirementParser.parse("passes over 85% of led 365");
 
     private JooqLibraryRepository library;
     private JooqLibraryRevisions revisions;
@@ -79,7 +81,7 @@ class StoreRebuildReuseTest {
         assertSameStore(rebuilt, whole);
         assertThat(indexOf(rebuilt, retired.id())).isEqualTo(-1);
         assertThat(rebuilt.thicknessMm(indexOf(rebuilt, corrected.id()))).isEqualTo((float) (corrected.thicknessMm() * 2));
-        for (Requirement r : List.of(PLAIN, SOLVED)) {
+        for (Requirement r : List.of(PLAIN, SOLVED, WEIGHTED)) {
             assertThat(kept.search(r, 20).rows()).isEqualTo(new SearchService(library).search(r, 20).rows());
         }
     }
@@ -127,6 +129,11 @@ class StoreRebuildReuseTest {
             e.add(row(expected, i));
         }
         assertThat(a).containsExactlyElementsOf(e);
+        // the weighted screen too: a carried row keeps the bounds a fresh build computes from its curve
+        org.spectralsieve.requirement.WeightedClause clause =
+                (org.spectralsieve.requirement.WeightedClause) WEIGHTED.clauses().get(0);
+        assertThat(actual.weightedScreen().marginBounds(clause, java.util.Optional.empty()))
+                .containsExactly(expected.weightedScreen().marginBounds(clause, java.util.Optional.empty()));
     }
 
     private static String row(SpectralStore s, int i) {
