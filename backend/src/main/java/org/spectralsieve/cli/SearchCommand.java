@@ -48,7 +48,7 @@ final class SearchCommand implements Callable<Integer> {
     DatabaseOption database;
 
     @Parameters(index = "0", paramLabel = "REQUIREMENT", description = "The requirement, quoted as one argument; words"
-            + " about the stock may stand before its clauses ('acrylic passes over 80% at 400 nm').")
+            + " about the stock may stand before its clauses ('acrylic passes over 80%% at 400 nm').")
     String requirementText;
 
     @Option(names = "--limit", paramLabel = "N", defaultValue = "" + SearchService.DEFAULT_LIMIT,

@@ -309,6 +309,24 @@ class SieveCliTest {
     }
 
     @Test
+    void theSearchHelpPrintsItsPercentExamplesAsWritten() {
+        // picocli reads a description as a format string: a bare "%" once printed a "Could not format" warning
+        // warning, which picocli's tracer writes to the process's own standard error
+        java.io.PrintStream processErr = System.err;
+        java.io.ByteArrayOutputStream traced = new java.io.ByteArrayOutputStream();
+        CliRun run;
+        try {
+            System.setErr(new java.io.PrintStream(traced, true, java.nio.charset.StandardCharsets.UTF_8));
+            run = CliRun.of("search", "--help");
+        } finally {
+            System.setErr(processErr);
+        }
+        assertThat(run.out().replaceAll("\\s+", " "))
+                .contains("'acrylic passes over 80% at 400 nm'", "passes over 80% at 365 nm").doesNotContain("%%");
+        assertThat(traced.toString(java.nio.charset.StandardCharsets.UTF_8) + run.err()).doesNotContain("Could not format");
+    }
+
+    @Test
     void everyCommandRunsAsACommandNotAsTheWebService() {
         // a command left off a hand-kept list once started the web service instead of printing its preview
         assertThat(SieveCli.commandNames()).contains("preview", "import", "export", "backup", "restore-backup");
