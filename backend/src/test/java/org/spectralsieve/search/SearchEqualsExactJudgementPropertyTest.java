@@ -4,13 +4,11 @@ import static org.assertj.core.api.Assertions.assertThat;
 
 import java.util.ArrayList;
 import java.util.EnumMap;
-import java.util.HashSet;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
 import java.util.Optional;
 import java.util.Random;
-import java.util.Set;
 import org.jooq.DSLContext;
 import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
@@ -22,17 +20,12 @@ import org.spectralsieve.library.MigratedDatabase;
 import org.spectralsieve.library.NewMaterial;
 import org.spectralsieve.library.NewSample;
 import org.spectralsieve.library.Provenance;
-import org.spectralsieve.library.SampleInfo;
-import org.spectralsieve.library.SampleRescaling;
 import org.spectralsieve.library.Scaling;
-import org.spectralsieve.requirement.Candidate;
-import org.spectralsieve.requirement.MaterialEvaluation;
 import org.spectralsieve.requirement.MaterialJudge;
 import org.spectralsieve.requirement.RankedRow;
 import org.spectralsieve.requirement.Ranking;
 import org.spectralsieve.requirement.Requirement;
 import org.spectralsieve.requirement.RequirementParser;
-import org.spectralsieve.requirement.SeeThrough;
 import org.spectralsieve.requirement.StackLayer;
 import org.spectralsieve.seed.DemoLibraryLoader;
 import org.spectralsieve.spectrum.Curve;
@@ -186,53 +179,9 @@ class SearchEqualsExactJudgementPropertyTest {
         return judgeEverySample(library, requirement, layer, materials, limit);
     }
 
-    /** Every admitted sample judged with its material's others ({@link MaterialJudge}), ranked as documented. */
     private static List<RankedRow> judgeEverySample(JooqLibraryRepository library, Requirement requirement,
                                                     Optional<StackLayer> layer, List<Material> materials, int limit) {
-        boolean diffuseLayer = layer.map(l -> library.findSample(l.sampleId()).orElseThrow().geometry() == Geometry.TOTAL)
-                .orElse(false);
-        List<MaterialEvaluation> all = new ArrayList<>();
-        Set<Long> total = new HashSet<>();
-        for (Material m : materials) {
-            List<Candidate> admitted = new ArrayList<>();
-            for (SampleInfo s : m.samples()) {
-                if (requirement.materialClass().map(c -> c.equals(m.materialClass().label())).orElse(true)
-                        && requirement.admitsGeometry(s.geometry().label())) {
-                    SampleRescaling rescaling = SampleRescaling.of(m, s);
-                    admitted.add(new Candidate(s.id(), m.id(), m.name(), library.findCurve(s.id()).orElseThrow(),
-                            s.thicknessMm(), rescaling.rescalable(), m.refractiveIndex(), SearchService.made(m),
-                            s.geometry() == Geometry.TOTAL || diffuseLayer, rescaling.reason()));
-                    if (s.geometry() == Geometry.TOTAL) {
-                        total.add(s.id());
-                    }
-                }
-            }
-            if (!admitted.isEmpty()) {
-                all.addAll(MaterialJudge.evaluate(admitted, requirement, layer));
-            }
-        }
-        return diffuseLast(requirement, all, total, limit);
-    }
-
-    /**
-     * The documented order (docs/geometry-and-edges.md): with a see-through clause that does not accept total
-     * transmittance, the rows judged in regular geometry first, then the materials with none.
-     */
-    private static List<RankedRow> diffuseLast(Requirement requirement, List<MaterialEvaluation> all, Set<Long> total,
-                                               int limit) {
-        if (requirement.acceptsTotalTransmittance() || requirement.clauses().stream().noneMatch(SeeThrough::needsRegular)) {
-            return Ranking.rank(all, limit);
-        }
-        List<MaterialEvaluation> regular = all.stream().filter(e -> !total.contains(e.evaluation().sampleId())).toList();
-        List<RankedRow> rows = new ArrayList<>(Ranking.rank(regular, limit));
-        Set<Long> first = new HashSet<>();
-        regular.forEach(e -> first.add(e.materialId()));
-        List<MaterialEvaluation> rest = all.stream()
-                .filter(e -> !first.contains(e.materialId()) && total.contains(e.evaluation().sampleId())).toList();
-        for (RankedRow row : Ranking.rank(rest, limit - rows.size())) {
-            rows.add(new RankedRow(rows.size() + 1, row.materialId(), row.materialName(), row.evaluation()));
-        }
-        return rows;
+        return ExactReference.judgeEverySample(library, requirement, layer, materials, limit);
     }
 
     private static void addSyntheticMaterials(Random random, int count) {

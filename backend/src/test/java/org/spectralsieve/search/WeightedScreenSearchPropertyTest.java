@@ -8,13 +8,8 @@ import java.util.Locale;
 import java.util.Optional;
 import java.util.Random;
 import org.junit.jupiter.api.Test;
-import org.spectralsieve.library.Geometry;
 import org.spectralsieve.library.JooqLibraryRepository;
 import org.spectralsieve.library.Material;
-import org.spectralsieve.library.SampleInfo;
-import org.spectralsieve.library.SampleRescaling;
-import org.spectralsieve.requirement.Candidate;
-import org.spectralsieve.requirement.MaterialEvaluation;
 import org.spectralsieve.requirement.MaterialJudge;
 import org.spectralsieve.requirement.RankedRow;
 import org.spectralsieve.requirement.Ranking;
@@ -87,52 +82,7 @@ class WeightedScreenSearchPropertyTest {
 
     private List<RankedRow> judgeEverySample(Requirement requirement, Optional<StackLayer> layer, List<Material> materials,
                                              int limit) {
-        List<MaterialEvaluation> all = new ArrayList<>();
-        for (Material m : materials) {
-            List<Candidate> admitted = new ArrayList<>();
-            for (SampleInfo s : m.samples()) {
-                if (requirement.materialClass().map(c -> c.equals(m.materialClass().label())).orElse(true)
-                        && requirement.admitsGeometry(s.geometry().label())) {
-                    // the shared rule: diffuse and scattering samples are held at their measured thickness
-                    SampleRescaling rescaling = SampleRescaling.of(m, s);
-                    boolean diffuseLayer = layer.map(l -> library.findSample(l.sampleId()).orElseThrow().geometry()
-                            == Geometry.TOTAL).orElse(false);
-                    admitted.add(new Candidate(s.id(), m.id(), m.name(), library.findCurve(s.id()).orElseThrow(),
-                            s.thicknessMm(), rescaling.rescalable(), m.refractiveIndex(), SearchService.made(m),
-                            s.geometry() == Geometry.TOTAL || diffuseLayer, rescaling.reason()));
-                }
-            }
-            // each material's samples judged together: the nearest measurement speaks for each thickness
-            if (!admitted.isEmpty()) {
-                all.addAll(MaterialJudge.evaluate(admitted, requirement, layer));
-            }
-        }
-        return groupDiffuseLast(requirement, all, limit);
-    }
-
-    /**
-     * The documented order (docs/geometry-and-edges.md): with a see-through clause not accepting total
-     * transmittance, materials with a regular-geometry sample rank first, the rest after them.
-     */
-    private List<RankedRow> groupDiffuseLast(Requirement requirement, List<MaterialEvaluation> all, int limit) {
-        boolean seeThrough = requirement.clauses().stream().anyMatch(c -> c.text().startsWith("luminous"));
-        if (!seeThrough || requirement.acceptsTotalTransmittance()) {
-            return Ranking.rank(all, limit);
-        }
-        List<MaterialEvaluation> regular = new ArrayList<>();
-        List<MaterialEvaluation> total = new ArrayList<>();
-        for (MaterialEvaluation e : all) {
-            boolean isTotal = library.findSample(e.evaluation().sampleId()).orElseThrow().geometry() == Geometry.TOTAL;
-            (isTotal ? total : regular).add(e);
-        }
-        List<RankedRow> rows = new ArrayList<>(Ranking.rank(regular, limit));
-        java.util.Set<Long> first = new java.util.HashSet<>();
-        regular.forEach(e -> first.add(e.materialId()));
-        for (RankedRow row : Ranking.rank(total.stream().filter(e -> !first.contains(e.materialId())).toList(),
-                limit - rows.size())) {
-            rows.add(new RankedRow(rows.size() + 1, row.materialId(), row.materialName(), row.evaluation()));
-        }
-        return rows;
+        return ExactReference.judgeEverySample(library, requirement, layer, materials, limit);
     }
 
     private static String randomRequirement(Random random) {
