@@ -156,6 +156,8 @@ async function loadCatalogue() {
   const materials = await api.listMaterials();
   state.catalogue = new Map(materials.map((m) => [String(m.id), m]));
   figures.offerParts(materials); // the whole library, before any words or ticks narrow the list
+  // one request for the whole library, shared: print.js takes each sample's provenance from it
+  document.dispatchEvent(new CustomEvent('sieve:catalogue', { detail: materials }));
 }
 
 async function loadMaterials({ refresh = false } = {}) {

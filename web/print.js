@@ -54,22 +54,27 @@ function addButton(id, kind, title, place) {
 }
 
 /**
- * The rows carry only sample ids; the library list says each sample's provenance. Loaded at the start and again
- * for a row of a sample not seen yet (imported since); a summary already filled is filled again with it.
+ * The rows carry only sample ids; the library list says each sample's provenance. It comes with the page's own
+ * load of the whole library (app.js, `sieve:catalogue`), and is asked for again only for a row of a sample not
+ * seen yet (imported since, or a search answered first); a summary already filled is filled again with it.
  */
+function learnMaterials(materials) {
+  for (const material of materials) {
+    for (const s of material.samples || []) seen.samples.set(s.id, s);
+  }
+  if (seen.filled !== undefined) fill(seen.filled);
+}
+document.addEventListener('sieve:catalogue', (event) => learnMaterials(event.detail));
+
 async function learnSamples(answer) {
-  const unknown = !answer || (answer.results || []).some((r) => !seen.samples.has(r.sampleId));
+  const unknown = (answer?.results || []).some((r) => !seen.samples.has(r.sampleId));
   if (!unknown) return;
   try {
-    for (const material of await api.listMaterials()) {
-      for (const s of material.samples || []) seen.samples.set(s.id, s);
-    }
-    if (seen.filled !== undefined) fill(seen.filled);
+    learnMaterials(await api.listMaterials());
   } catch (problem) {
     console.error('Provenance for the printable summary', problem); // the summary then says "not known"
   }
 }
-learnSamples(null);
 
 /** Rebuilds #print-summary for `kind`, or for every view shown when no button chose one. */
 export function fill(kind = null) {
