@@ -1,6 +1,7 @@
 package org.spectralsieve.requirement;
 
 import org.spectralsieve.spectrum.Curve;
+import org.spectralsieve.weighting.BelowDetectionAs;
 import org.spectralsieve.weighting.Figure;
 import org.spectralsieve.weighting.FigureText;
 import org.spectralsieve.weighting.WeightedFigures;
@@ -53,7 +54,8 @@ final class FigureClauses {
 
     /** Null when the curve cannot give the figure; {@code why} then receives the reason. */
     static Span span(WeightedClause clause, Curve curve, StringBuilder why) {
-        Figure upper = clause.weighting().figure(JudgedCurves.upperBounds(curve));
+        // read on the bounded ends without building them (the same numbers as on JudgedCurves' curves)
+        Figure upper = clause.weighting().figure(curve, BelowDetectionAs.LIMIT);
         if (!upper.available()) {
             if (why != null) {
                 why.append(upper.note());
@@ -62,7 +64,7 @@ final class FigureClauses {
         }
         boolean bounded = upper.bound() == Figure.Bound.AT_MOST;
         double u = upper.value().getAsDouble();
-        double l = bounded ? clause.weighting().figure(JudgedCurves.lowerBounds(curve)).value().orElse(0) : u;
+        double l = bounded ? clause.weighting().figure(curve, BelowDetectionAs.ZERO).value().orElse(0) : u;
         return new Span(Math.min(l, u), u, bounded, upper.note());
     }
 

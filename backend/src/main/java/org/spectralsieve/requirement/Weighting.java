@@ -4,6 +4,7 @@ import java.util.Objects;
 import java.util.Optional;
 import java.util.Set;
 import org.spectralsieve.spectrum.Curve;
+import org.spectralsieve.weighting.BelowDetectionAs;
 import org.spectralsieve.weighting.Emitter;
 import org.spectralsieve.weighting.Figure;
 import org.spectralsieve.weighting.LuminousTransmittance;
@@ -18,7 +19,16 @@ import org.spectralsieve.weighting.WeightedFigures;
 public sealed interface Weighting permits Weighting.Spectral, Weighting.Luminous {
 
     /** The figure on a curve; the caller passes the curve with bounded points at their upper bounds. */
-    Figure figure(Curve curve);
+    default Figure figure(Curve curve) {
+        return figure(curve, BelowDetectionAs.STORED);
+    }
+
+    /**
+     * The figure on the curve with its below-detection points read as {@code as} says: the same as
+     * {@link #figure(Curve)} on the bounded curve ({@link org.spectralsieve.weighting.BoundedCurves}), without
+     * building it.
+     */
+    Figure figure(Curve curve, BelowDetectionAs as);
 
     /** How explanations name the figure: "effective T for led-365 (unweighted over its range 329–401 nm)". */
     String describe();
@@ -91,8 +101,8 @@ public sealed interface Weighting permits Weighting.Spectral, Weighting.Luminous
         }
 
         @Override
-        public Figure figure(Curve curve) {
-            return WeightedFigures.effectiveTransmittance(curve, emitter, effectiveResponse());
+        public Figure figure(Curve curve, BelowDetectionAs as) {
+            return WeightedFigures.effectiveTransmittance(curve, emitter, effectiveResponse(), as);
         }
 
         @Override
@@ -144,8 +154,8 @@ public sealed interface Weighting permits Weighting.Spectral, Weighting.Luminous
     record Luminous() implements Weighting {
 
         @Override
-        public Figure figure(Curve curve) {
-            return LuminousTransmittance.of(curve);
+        public Figure figure(Curve curve, BelowDetectionAs as) {
+            return LuminousTransmittance.of(curve, as);
         }
 
         @Override

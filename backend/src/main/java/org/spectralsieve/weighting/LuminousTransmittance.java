@@ -28,7 +28,24 @@ public final class LuminousTransmittance {
 
     /** τv on the shipped 5 nm D65 and V(λ) tables; an upper bound if any grid point is below detection. */
     public static Figure of(Curve curve) {
-        return SHIPPED.apply(curve);
+        return SHIPPED.apply(curve, BelowDetectionAs.STORED);
+    }
+
+    /**
+     * τv of the curve with its below-detection points read as {@code as} says: the same figure as on
+     * {@link BoundedCurves#upperBounds} ({@code LIMIT}) or {@link BoundedCurves#lowerBounds} ({@code ZERO})
+     * of the curve, without building that curve ({@link SortedReading}).
+     */
+    public static Figure of(Curve curve, BelowDetectionAs as) {
+        return SHIPPED.apply(curve, as);
+    }
+
+    /**
+     * τv as it was computed before {@link SortedReading}: T looked up at every row by
+     * {@link Curve#transmittanceAt}. The reference the fast figure is tested against; not used by answers.
+     */
+    static Figure ofByLookup(Curve curve) {
+        return SHIPPED.applyByLookup(curve);
     }
 
     /**
@@ -37,7 +54,7 @@ public final class LuminousTransmittance {
      * finite and not negative, with Σ S·V &gt; 0.
      */
     public static Figure of(Curve curve, double[] nm, double[] d65, double[] v) {
-        return new Tables(nm, d65, v, "the given tables").apply(curve);
+        return new Tables(nm, d65, v, "the given tables").apply(curve, BelowDetectionAs.STORED);
     }
 
     /**
@@ -107,11 +124,19 @@ public final class LuminousTransmittance {
                     + " from " + FROM_NM + " to " + TO_NM + " nm, T read at the rows";
         }
 
-        Figure apply(Curve curve) {
-            if (!(curve.covers(FROM_NM) && curve.covers(TO_NM))) {
-                return Figure.unavailable(NAME, "fraction", "curve covers " + curve.minWavelengthNm() + "-"
-                        + curve.maxWavelengthNm() + " nm; luminous transmittance needs " + FROM_NM + "-" + TO_NM
-                        + " nm and curves are never extrapolated");
+        Figure apply(Curve curve, BelowDetectionAs as) {
+            Figure gap = coverageGap(curve);
+            if (gap != null) {
+                return gap;
+            }
+            SortedReading.Sum sum = SortedReading.weightedSum(curve, nm, weight, nm.length, as);
+            return figure(sum.passed(), sum.bound());
+        }
+
+        Figure applyByLookup(Curve curve) {
+            Figure gap = coverageGap(curve);
+            if (gap != null) {
+                return gap;
             }
             double passed = 0;
             boolean bound = false;
@@ -119,9 +144,22 @@ public final class LuminousTransmittance {
                 passed += weight[i] * curve.transmittanceAt(nm[i]).orElseThrow();
                 bound |= curve.belowDetectionAt(nm[i]);
             }
+            return figure(passed, bound);
+        }
+
+        private Figure figure(double passed, boolean bound) {
             String text = note + (bound ? "; points below the detection limit enter with their stored T, so τv"
                     + " is at most this" : "");
             return Figure.of(NAME, passed / total, "fraction", bound ? Bound.AT_MOST : Bound.VALUE, text);
+        }
+
+        private static Figure coverageGap(Curve curve) {
+            if (!(curve.covers(FROM_NM) && curve.covers(TO_NM))) {
+                return Figure.unavailable(NAME, "fraction", "curve covers " + curve.minWavelengthNm() + "-"
+                        + curve.maxWavelengthNm() + " nm; luminous transmittance needs " + FROM_NM + "-" + TO_NM
+                        + " nm and curves are never extrapolated");
+            }
+            return null;
         }
     }
 }

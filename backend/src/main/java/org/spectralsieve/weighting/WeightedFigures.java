@@ -102,6 +102,36 @@ public final class WeightedFigures {
      * that the figure is not available and says why.
      */
     public static Figure effectiveTransmittance(Curve curve, Emitter emitter, Response response) {
+        return effectiveTransmittance(curve, emitter, response, BelowDetectionAs.STORED);
+    }
+
+    /**
+     * {@link #effectiveTransmittance(Curve, Emitter, Response)} of the curve with its below-detection points
+     * read as {@code as} says: the same figure as on {@link BoundedCurves#upperBounds} ({@code LIMIT}) or
+     * {@link BoundedCurves#lowerBounds} ({@code ZERO}) of the curve, without building that curve. The
+     * integration points and their weights are computed once per emitter, response and covered range
+     * ({@link IntegrationNodes}); T is read along them by one walk ({@link SortedReading}).
+     */
+    public static Figure effectiveTransmittance(Curve curve, Emitter emitter, Response response, BelowDetectionAs as) {
+        return effectiveTransmittance(curve, emitter, response,
+                (from, to) -> IntegrationNodes.covered(emitter, response, from, to).read(curve, as));
+    }
+
+    /**
+     * The figure as it was computed before {@link SortedReading}: every integration point's E·W and T looked
+     * up anew ({@link Curve#transmittanceAt}, a binary search each). Kept as the reference the fast figure
+     * is tested against (WeightedFiguresFastPathTest); not used by answers.
+     */
+    static Figure effectiveTransmittanceByLookup(Curve curve, Emitter emitter, Response response) {
+        return effectiveTransmittance(curve, emitter, response, (from, to) -> covered(curve, emitter, response, from, to));
+    }
+
+    /** The covered part of the integral over [from, to], which lies inside the curve. */
+    private interface Coverage {
+        Covered over(double from, double to);
+    }
+
+    private static Figure effectiveTransmittance(Curve curve, Emitter emitter, Response response, Coverage coverage) {
         String name = "effectiveTransmittance";
         double lo = Math.max(response.minNm(), emitter.minNm());
         double hi = Math.min(response.maxNm(), emitter.maxNm());
@@ -110,11 +140,9 @@ public final class WeightedFigures {
                     + emitter.maxNm() + " nm) has no power inside the range of response " + response.name() + " ("
                     + response.minNm() + "-" + response.maxNm() + " nm)");
         }
-        double step = emitter.stepNm();
-        double inside = integrate(lo, hi, step, nm -> emitter.powerAt(nm) * response.weightAt(nm));
-        double beyondResponse = response.zeroOutsideByDefinition() ? 0
-                : integrate(emitter.minNm(), lo, step, nm -> emitter.powerAt(nm) * response.weightAtNearestEnd(nm))
-                        + integrate(hi, emitter.maxNm(), step, nm -> emitter.powerAt(nm) * response.weightAtNearestEnd(nm));
+        double[] totals = IntegrationNodes.totals(emitter, response, lo, hi);
+        double inside = totals[0];
+        double beyondResponse = totals[1];
         double total = inside + beyondResponse;
         if (!(total > 0)) {
             return Figure.unavailable(name, "fraction", "emitter " + emitter.name() + " × response "
@@ -122,7 +150,7 @@ public final class WeightedFigures {
         }
         double from = Math.max(lo, curve.minWavelengthNm());
         double to = Math.min(hi, curve.maxWavelengthNm());
-        Covered covered = to > from ? covered(curve, emitter, response, from, to) : Covered.NONE;
+        Covered covered = to > from ? coverage.over(from, to) : Covered.NONE;
         double beyondCurve = Math.max(0, inside - covered.weight());
         // below 1e-12 the two integrals differ by rounding only: the same grid, the same terms
         double curveShare = beyondCurve / total < 1e-12 ? 0 : beyondCurve / total;
@@ -144,8 +172,21 @@ public final class WeightedFigures {
         return share > 0 ? figure.withOutsideShare(Math.min(1, share)) : figure;
     }
 
+    /**
+     * ∫E·W dλ over the response's range and the estimate of what lies beyond it ({@link #effectiveTransmittance}):
+     * {inside, beyondResponse}, computed by the same arithmetic wherever they are cached.
+     */
+    static double[] totals(Emitter emitter, Response response, double lo, double hi) {
+        double step = emitter.stepNm();
+        double inside = integrate(lo, hi, step, nm -> emitter.powerAt(nm) * response.weightAt(nm));
+        double beyondResponse = response.zeroOutsideByDefinition() ? 0
+                : integrate(emitter.minNm(), lo, step, nm -> emitter.powerAt(nm) * response.weightAtNearestEnd(nm))
+                        + integrate(hi, emitter.maxNm(), step, nm -> emitter.powerAt(nm) * response.weightAtNearestEnd(nm));
+        return new double[] {inside, beyondResponse};
+    }
+
     /** ∫E·W dλ, ∫E·W·T dλ and whether a weighted point is below detection, over [from, to] inside the curve. */
-    private record Covered(double weight, double passed, boolean bound, double stepNm) {
+    record Covered(double weight, double passed, boolean bound, double stepNm) {
         static final Covered NONE = new Covered(0, 0, false, 0);
     }
 
@@ -367,11 +408,11 @@ public final class WeightedFigures {
                 + lo + "-" + hi + " nm and curves are never extrapolated";
     }
 
-    private static int intervals(double lo, double hi, double maxStep) {
+    static int intervals(double lo, double hi, double maxStep) {
         return Math.max(1, (int) Math.ceil((hi - lo) / maxStep - 1e-9));
     }
 
-    private static double trapezoidWeight(int i, int n) {
+    static double trapezoidWeight(int i, int n) {
         return i == 0 || i == n ? 0.5 : 1.0;
     }
 }
