@@ -148,23 +148,51 @@ public final class LightPath {
      * the same arithmetic, number for number.
      */
     static Curve combine(double[] nm, Curve[] onGrid, double[][] reflectances) {
+        return combine(nm, onGrid, reflectances, new OpticalElement[onGrid.length][][]);
+    }
+
+    /**
+     * {@link #combine(double[], Curve[], double[][])} with some parts' slab elements already known:
+     * {@code known[j]} is null, or {@link #elements} of part j (computed once for a part that does not change
+     * from call to call, as a fixed layer behind a part swept through thicknesses). Each part's element of its
+     * T and of its detection limit is formed once per point and reused by the chain of T and by every chain
+     * of the detection limit; the chains fold the same elements in the same order as before, so the numbers
+     * are the same.
+     */
+    static Curve combine(double[] nm, Curve[] onGrid, double[][] reflectances, OpticalElement[][][] known) {
         int count = onGrid.length;
         double[] t = new double[nm.length];
         boolean[] below = new boolean[nm.length];
         double[] limits = new double[nm.length];
+        OpticalElement[] value = new OpticalElement[count];
+        OpticalElement[] atLimit = new OpticalElement[count];
         for (int i = 0; i < nm.length; i++) {
-            double[] layerT = new double[count];
-            double[] layerR = new double[count];
             for (int j = 0; j < count; j++) {
-                layerT[j] = onGrid[j].transmittance(i);
-                layerR[j] = reflectances[j][i];
+                if (known[j] != null) {
+                    value[j] = known[j][0][i];
+                    atLimit[j] = known[j][1][i];
+                } else {
+                    value[j] = element(onGrid[j].transmittance(i), reflectances[j][i]);
+                    atLimit[j] = element(onGrid[j].detectionLimit(i), reflectances[j][i]);
+                }
                 below[i] |= onGrid[j].belowDetection(i);
             }
-            t[i] = chain(layerT, layerR);
-            limits[i] = detectionLimit(onGrid, i, layerT, layerR);
+            t[i] = chain(value, -1, null);
+            limits[i] = detectionLimit(value, atLimit);
         }
         Curve path = Curve.of(nm, t, below, limits);
         return withStackUncertainty(path, onGrid);
+    }
+
+    /** Part j's slab elements at every point: {of its T, of its detection limit}, for {@link #combine}. */
+    static OpticalElement[][] elements(Curve onGrid, double[] reflectances) {
+        int n = onGrid.size();
+        OpticalElement[][] out = new OpticalElement[2][n];
+        for (int i = 0; i < n; i++) {
+            out[0][i] = element(onGrid.transmittance(i), reflectances[i]);
+            out[1][i] = element(onGrid.detectionLimit(i), reflectances[i]);
+        }
+        return out;
     }
 
     /**
@@ -194,21 +222,21 @@ public final class LightPath {
         return path.withAbsorbanceUncertainty(sigma);
     }
 
-    private static double detectionLimit(Curve[] onGrid, int i, double[] layerT, double[] layerR) {
+    /** The largest path T with one part at a time at its detection limit. */
+    private static double detectionLimit(OpticalElement[] value, OpticalElement[] atLimit) {
         double limit = 0;
-        for (int j = 0; j < onGrid.length; j++) {
-            double[] withLimit = layerT.clone();
-            withLimit[j] = onGrid[j].detectionLimit(i);
-            limit = Math.max(limit, chain(withLimit, layerR));
+        for (int j = 0; j < value.length; j++) {
+            limit = Math.max(limit, chain(value, j, atLimit[j]));
         }
         // a Curve's limit must stay under 1; only noisy T above the ceiling could get near it
         return Math.min(limit, Math.nextDown(1.0));
     }
 
-    private static double chain(double[] layerT, double[] layerR) {
-        OpticalElement path = element(layerT[0], layerR[0]);
-        for (int j = 1; j < layerT.length; j++) {
-            path = path.followedBy(element(layerT[j], layerR[j]));
+    /** T of the parts' elements in order, part {@code swapped} (if ≥ 0) replaced by {@code instead}. */
+    private static double chain(OpticalElement[] elements, int swapped, OpticalElement instead) {
+        OpticalElement path = swapped == 0 ? instead : elements[0];
+        for (int j = 1; j < elements.length; j++) {
+            path = path.followedBy(j == swapped ? instead : elements[j]);
         }
         return path.transmittance();
     }

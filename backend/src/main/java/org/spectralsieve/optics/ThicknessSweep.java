@@ -10,7 +10,8 @@ import org.spectralsieve.spectrum.Curve;
  * stored point's {@link SlabReading} (of T and of the detection limit), and
  * for a stack the shared wavelengths, the fixed parts' curves there and every part's reflectance there — so
  * a thickness costs one Beer–Lambert power and one slab formula per stored point, plus the chain per shared
- * point.
+ * point (the fixed parts' slab elements formed once, {@link LightPath#combine(double[], Curve[], double[][],
+ * OpticalElement[][][])}).
  *
  * <p>The numbers are those of the straightforward route, bit for bit: {@link #rescaled} equals
  * {@link ThicknessRescaler#rescale} (the same prepared readings, the same per-point rule), and {@link #path} equals {@code LightPath.of(Layer.fixed(rescaled(d), index),
@@ -27,7 +28,7 @@ public final class ThicknessSweep {
     private Stack stack;
 
     /** The fixed parts at the stack's shared wavelengths, with every part's reflectance there. */
-    private record Stack(double[] nm, Curve[] onShared, double[][] reflectances) {
+    private record Stack(double[] nm, Curve[] onShared, double[][] reflectances, OpticalElement[][][] fixedElements) {
     }
 
     /**
@@ -62,7 +63,7 @@ public final class ThicknessSweep {
         Stack s = stack();
         Curve[] onShared = s.onShared().clone();
         onShared[0] = alone.resampleAt(s.nm());
-        return LightPath.combine(s.nm().clone(), onShared, s.reflectances());
+        return LightPath.combine(s.nm().clone(), onShared, s.reflectances(), s.fixedElements());
     }
 
     private Stack stack() {
@@ -76,7 +77,13 @@ public final class ThicknessSweep {
             for (int j = 1; j < onShared.length; j++) {
                 onShared[j] = layers.get(j).transmittanceAt(nm);
             }
-            stack = new Stack(nm, onShared, LightPath.reflectances(layers, nm));
+            double[][] reflectances = LightPath.reflectances(layers, nm);
+            // the fixed parts' slab elements do not depend on the thickness: formed once, not per thickness
+            OpticalElement[][][] fixedElements = new OpticalElement[layers.size()][][];
+            for (int j = 1; j < fixedElements.length; j++) {
+                fixedElements[j] = LightPath.elements(onShared[j], reflectances[j]);
+            }
+            stack = new Stack(nm, onShared, reflectances, fixedElements);
         }
         return stack;
     }

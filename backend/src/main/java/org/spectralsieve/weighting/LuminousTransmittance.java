@@ -37,6 +37,9 @@ public final class LuminousTransmittance {
      * of the curve, without building that curve ({@link SortedReading}).
      */
     public static Figure of(Curve curve, BelowDetectionAs as) {
+        if (FigurePath.byLookup()) {
+            return SHIPPED.applyByLookup(FigurePath.bounded(curve, as));
+        }
         return SHIPPED.apply(curve, as);
     }
 

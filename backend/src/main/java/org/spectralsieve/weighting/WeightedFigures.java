@@ -113,6 +113,9 @@ public final class WeightedFigures {
      * ({@link IntegrationNodes}); T is read along them by one walk ({@link SortedReading}).
      */
     public static Figure effectiveTransmittance(Curve curve, Emitter emitter, Response response, BelowDetectionAs as) {
+        if (FigurePath.byLookup()) {
+            return effectiveTransmittanceByLookup(FigurePath.bounded(curve, as), emitter, response);
+        }
         return effectiveTransmittance(curve, emitter, response,
                 (from, to) -> IntegrationNodes.covered(emitter, response, from, to).read(curve, as));
     }

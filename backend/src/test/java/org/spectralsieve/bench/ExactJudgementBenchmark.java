@@ -24,6 +24,7 @@ import org.spectralsieve.seed.DemoLibraryLoader;
 import org.spectralsieve.spectrum.Curve;
 import org.spectralsieve.store.SpectralStore;
 import org.spectralsieve.store.SyntheticCurves;
+import org.spectralsieve.weighting.FigurePath;
 import org.springframework.core.io.DefaultResourceLoader;
 
 /**
@@ -60,6 +61,62 @@ class ExactJudgementBenchmark {
             System.out.printf(Locale.ROOT, "BENCH search-exact-setup library=demo+synthetic-%d inserted_s=%.1f%n", n,
                     (System.nanoTime() - t0) / 1e9);
             time("demo+synthetic-" + n, library, variants, BenchStats.intProperty("bench.exactSyntheticRuns", 3));
+        }
+    }
+
+    /**
+     * The exact judgement's weighted figures computed the earlier way ({@code variant=lookup}: a bounded curve
+     * built and a binary search per integration point) beside the fast way ({@code variant=walk}: cached
+     * integration points read by one walk, docs/exact-judgement-speed.md), the same service and library,
+     * interleaved run by run. Prints {@code BENCH exact-figures library=<l> curves=<n> mode=<m> variant=<v>
+     * p50_ms p95_ms judged runs}. Switches: {@code -Dbench.figureSizes=10000} (empty: demo only),
+     * {@code -Dbench.exactRuns=15} (demo), {@code -Dbench.exactSyntheticRuns=3}.
+     */
+    @Test
+    void weightedFiguresTheEarlierWayAndTheFastWay() {
+        Map<String, Requirement> variants = new LinkedHashMap<>();
+        variants.put("measured", RequirementParser.parse(WeightedSearchBenchmark.WEIGHTED));
+        variants.put("solve", RequirementParser.parse(WeightedSearchBenchmark.WEIGHTED + ", " + WeightedSearchBenchmark.RANGE));
+        variants.put("layer", RequirementParser.parse(WeightedSearchBenchmark.WEIGHTED + ", " + WeightedSearchBenchmark.LAYER));
+        try {
+            figures("demo", demoLibrary(), variants, BenchStats.intProperty("bench.exactRuns", 15));
+            for (int n : BenchStats.intList("bench.figureSizes", "10000")) {
+                JooqLibraryRepository library = demoLibrary();
+                addSynthetic(library, n, 20261204L);
+                figures("demo+synthetic-" + n, library, variants, BenchStats.intProperty("bench.exactSyntheticRuns", 3));
+            }
+        } finally {
+            FigurePath.useLookup(false);
+        }
+    }
+
+    private static void figures(String name, JooqLibraryRepository library, Map<String, Requirement> variants, int runs) {
+        SearchService service = new SearchService(library);
+        String[] ways = {"lookup", "walk"};
+        for (String way : ways) {
+            FigurePath.useLookup(way.equals("lookup"));
+            variants.values().forEach(r -> service.search(r, 20)); // warm-up: JIT
+        }
+        Map<String, double[]> took = new LinkedHashMap<>();
+        Map<String, Integer> judged = new LinkedHashMap<>();
+        for (int i = 0; i < runs; i++) {
+            for (Map.Entry<String, Requirement> variant : variants.entrySet()) {
+                for (String way : ways) {
+                    FigurePath.useLookup(way.equals("lookup"));
+                    String key = variant.getKey() + " " + way;
+                    var answer = service.search(variant.getValue(), 20);
+                    took.computeIfAbsent(key, k -> new double[runs])[i] = answer.tookMs();
+                    judged.put(key, answer.judgedExactly());
+                }
+            }
+        }
+        FigurePath.useLookup(false);
+        for (String key : took.keySet()) {
+            String[] modeAndWay = key.split(" ");
+            double[] t = took.get(key);
+            System.out.printf("BENCH exact-figures library=%s curves=%d mode=%s variant=%s p50_ms=%s p95_ms=%s judged=%d runs=%d%n",
+                    name, service.store().size(), modeAndWay[0], modeAndWay[1], ms(percentile(t, 50)),
+                    ms(percentile(t, 95)), judged.get(key), runs);
         }
     }
 
