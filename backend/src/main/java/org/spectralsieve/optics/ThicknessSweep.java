@@ -3,6 +3,7 @@ package org.spectralsieve.optics;
 import java.util.ArrayList;
 import java.util.List;
 import org.spectralsieve.spectrum.Curve;
+import org.spectralsieve.spectrum.PointReadings;
 
 /**
  * One bulk part read at many thicknesses, alone or in front of fixed parts: what a thickness solver asks for
@@ -42,6 +43,14 @@ public final class ThicknessSweep {
         this.index = index;
         this.fixed = List.copyOf(fixed);
         this.prepared = ThicknessRescaler.prepare(measured, index);
+    }
+
+    /**
+     * The bulk part alone at {@code toMm}, each point computed when it is read: the points of
+     * {@link #rescaled} (wavelengths, T, flags and limits; not the uncertainty), for figures that read few of them.
+     */
+    public PointReadings rescaledPoints(double toMm) {
+        return new RescaledPoints(prepared, measuredMm, toMm);
     }
 
     /** The bulk part alone at {@code toMm}: equal to {@link ThicknessRescaler#rescale}. */

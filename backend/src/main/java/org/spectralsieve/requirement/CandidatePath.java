@@ -11,6 +11,8 @@ import org.spectralsieve.optics.RefractiveIndex;
 import org.spectralsieve.optics.ThicknessRescaler;
 import org.spectralsieve.optics.ThicknessSweep;
 import org.spectralsieve.spectrum.Curve;
+import org.spectralsieve.spectrum.PointReadings;
+import org.spectralsieve.weighting.FigurePath;
 
 /**
  * The light path a requirement judges for one candidate: the candidate at a thickness d (rescaled when it
@@ -29,6 +31,7 @@ final class CandidatePath {
     private final Candidate candidate;
     private final Optional<StackLayer> layer;
     private final Map<Double, Curve> byThickness = new HashMap<>();
+    private final Map<Double, PointReadings> pointsByThickness = new HashMap<>();
     private ThicknessSweep sweep;
     private RescaledModel readings;
 
@@ -60,6 +63,31 @@ final class CandidatePath {
             return asMeasured();
         }
         return cached(d, () -> sweep().path(d));
+    }
+
+    /**
+     * The points of {@link #at}{@code (d)} for a figure that reads few of them: for a bulk candidate alone,
+     * computed only when read ({@link ThicknessSweep#rescaledPoints}; the same numbers), unless the curve at
+     * d is already built; otherwise the curve itself. Kept per d like the curves, so the conditions asking
+     * for the same thickness share the points computed.
+     */
+    PointReadings pointsAt(double d) {
+        if (!candidate.bulk() || stacked() || FigurePath.byLookup()) {
+            return at(d);
+        }
+        Curve built = byThickness.get(d);
+        if (built != null) {
+            return built;
+        }
+        PointReadings hit = pointsByThickness.get(d);
+        if (hit == null) {
+            if (pointsByThickness.size() >= CACHE_LIMIT) {
+                pointsByThickness.clear();
+            }
+            hit = sweep().rescaledPoints(d);
+            pointsByThickness.put(d, hit);
+        }
+        return hit;
     }
 
     /**

@@ -1,6 +1,7 @@
 package org.spectralsieve.requirement;
 
 import org.spectralsieve.spectrum.Curve;
+import org.spectralsieve.spectrum.PointReadings;
 import org.spectralsieve.weighting.BelowDetectionAs;
 import org.spectralsieve.weighting.Figure;
 import org.spectralsieve.weighting.FigureText;
@@ -53,7 +54,7 @@ final class FigureClauses {
     }
 
     /** Null when the curve cannot give the figure; {@code why} then receives the reason. */
-    static Span span(WeightedClause clause, Curve curve, StringBuilder why) {
+    static Span span(WeightedClause clause, PointReadings curve, StringBuilder why) {
         // read on the bounded ends without building them (the same numbers as on JudgedCurves' curves)
         Figure upper = clause.weighting().figure(curve, BelowDetectionAs.LIMIT);
         if (!upper.available()) {
@@ -122,7 +123,7 @@ final class FigureClauses {
      * The margin the thickness solver bisects, NaN when the figure is not available: a pass on L (where a
      * proof of the pass must come from), a block on U; both fall or rise with thickness like the figure.
      */
-    static double weightedMargin(WeightedClause clause, Curve curve) {
+    static double weightedMargin(WeightedClause clause, PointReadings curve) {
         Span span = span(clause, curve, null);
         return span == null ? Double.NaN : Margins.of(clause.direction(), span.provenFor(clause.direction()),
                 clause.thresholdT());

@@ -37,7 +37,7 @@ final class PathConstraints {
                 return false;
             }
             // provable either way: a pass on the figure's lower end, a block on its upper end
-            out.add(new OnPath(w.direction() == Direction.PASS, true, d -> FigureClauses.weightedMargin(w, path.at(d))));
+            out.add(new OnPath(w.direction() == Direction.PASS, true, d -> FigureClauses.weightedMargin(w, path.pointsAt(d))));
             return true;
         }
         CriticalWavelengthClause c = (CriticalWavelengthClause) clause;

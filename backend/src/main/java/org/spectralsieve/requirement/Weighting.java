@@ -4,6 +4,7 @@ import java.util.Objects;
 import java.util.Optional;
 import java.util.Set;
 import org.spectralsieve.spectrum.Curve;
+import org.spectralsieve.spectrum.PointReadings;
 import org.spectralsieve.weighting.BelowDetectionAs;
 import org.spectralsieve.weighting.Emitter;
 import org.spectralsieve.weighting.Figure;
@@ -28,7 +29,7 @@ public sealed interface Weighting permits Weighting.Spectral, Weighting.Luminous
      * {@link #figure(Curve)} on the bounded curve ({@link org.spectralsieve.weighting.BoundedCurves}), without
      * building it.
      */
-    Figure figure(Curve curve, BelowDetectionAs as);
+    Figure figure(PointReadings curve, BelowDetectionAs as);
 
     /** How explanations name the figure: "effective T for led-365 (unweighted over its range 329–401 nm)". */
     String describe();
@@ -101,7 +102,7 @@ public sealed interface Weighting permits Weighting.Spectral, Weighting.Luminous
         }
 
         @Override
-        public Figure figure(Curve curve, BelowDetectionAs as) {
+        public Figure figure(PointReadings curve, BelowDetectionAs as) {
             return WeightedFigures.effectiveTransmittance(curve, emitter, effectiveResponse(), as);
         }
 
@@ -154,7 +155,7 @@ public sealed interface Weighting permits Weighting.Spectral, Weighting.Luminous
     record Luminous() implements Weighting {
 
         @Override
-        public Figure figure(Curve curve, BelowDetectionAs as) {
+        public Figure figure(PointReadings curve, BelowDetectionAs as) {
             return LuminousTransmittance.of(curve, as);
         }
 

@@ -18,7 +18,7 @@ import java.util.OptionalDouble;
  * thickness just as the internal absorbance does. NaN at a point means "not known there"; a curve built
  * without uncertainties answers NaN everywhere.
  */
-public final class Curve {
+public final class Curve implements PointReadings {
 
     /** Upper end of accepted transmittance: noise on a clear sample reads slightly above 1, not 1.5. */
     public static final double MAX_TRANSMITTANCE = 1.5;

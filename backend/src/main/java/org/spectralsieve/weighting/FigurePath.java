@@ -19,7 +19,8 @@ public final class FigurePath {
         byLookup = lookup;
     }
 
-    static boolean byLookup() {
+    /** Whether weighted figures are computed the earlier way (a benchmark switched it). */
+    public static boolean byLookup() {
         return byLookup;
     }
 

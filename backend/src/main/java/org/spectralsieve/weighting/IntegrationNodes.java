@@ -2,7 +2,7 @@ package org.spectralsieve.weighting;
 
 import java.util.Map;
 import java.util.concurrent.ConcurrentHashMap;
-import org.spectralsieve.spectrum.Curve;
+import org.spectralsieve.spectrum.PointReadings;
 
 /**
  * The integration points of an effective transmittance over a covered range and their weights E·W·(trapezoid
@@ -80,7 +80,7 @@ final class IntegrationNodes {
     }
 
     /** ∫E·W dλ and ∫E·W·T dλ over the points, T read on the curve with below-detection points as {@code as}. */
-    WeightedFigures.Covered read(Curve curve, BelowDetectionAs as) {
+    WeightedFigures.Covered read(PointReadings curve, BelowDetectionAs as) {
         SortedReading.Sum sum = SortedReading.weightedSum(curve, nm, weight, count, as);
         return new WeightedFigures.Covered(weightSum * step, sum.passed() * step, sum.bound(), step);
     }

@@ -2,6 +2,7 @@ package org.spectralsieve.weighting;
 
 import java.util.Arrays;
 import org.spectralsieve.spectrum.Curve;
+import org.spectralsieve.spectrum.PointReadings;
 import org.spectralsieve.weighting.Figure.Bound;
 
 /**
@@ -36,9 +37,9 @@ public final class LuminousTransmittance {
      * {@link BoundedCurves#upperBounds} ({@code LIMIT}) or {@link BoundedCurves#lowerBounds} ({@code ZERO})
      * of the curve, without building that curve ({@link SortedReading}).
      */
-    public static Figure of(Curve curve, BelowDetectionAs as) {
-        if (FigurePath.byLookup()) {
-            return SHIPPED.applyByLookup(FigurePath.bounded(curve, as));
+    public static Figure of(PointReadings curve, BelowDetectionAs as) {
+        if (FigurePath.byLookup() && curve instanceof Curve built) {
+            return SHIPPED.applyByLookup(FigurePath.bounded(built, as));
         }
         return SHIPPED.apply(curve, as);
     }
@@ -127,7 +128,7 @@ public final class LuminousTransmittance {
                     + " from " + FROM_NM + " to " + TO_NM + " nm, T read at the rows";
         }
 
-        Figure apply(Curve curve, BelowDetectionAs as) {
+        Figure apply(PointReadings curve, BelowDetectionAs as) {
             Figure gap = coverageGap(curve);
             if (gap != null) {
                 return gap;
@@ -156,7 +157,7 @@ public final class LuminousTransmittance {
             return Figure.of(NAME, passed / total, "fraction", bound ? Bound.AT_MOST : Bound.VALUE, text);
         }
 
-        private static Figure coverageGap(Curve curve) {
+        private static Figure coverageGap(PointReadings curve) {
             if (!(curve.covers(FROM_NM) && curve.covers(TO_NM))) {
                 return Figure.unavailable(NAME, "fraction", "curve covers " + curve.minWavelengthNm() + "-"
                         + curve.maxWavelengthNm() + " nm; luminous transmittance needs " + FROM_NM + "-" + TO_NM

@@ -1,6 +1,7 @@
 package org.spectralsieve.weighting;
 
 import org.spectralsieve.spectrum.Curve;
+import org.spectralsieve.spectrum.PointReadings;
 
 /**
  * A weighted sum Σ wₖ·T(λₖ) over increasing wavelengths inside a curve's range, T read as
@@ -27,7 +28,7 @@ final class SortedReading {
      * @param w     the weight of each
      * @param count how many of nm and w to read
      */
-    static Sum weightedSum(Curve curve, double[] nm, double[] w, int count, BelowDetectionAs as) {
+    static Sum weightedSum(PointReadings curve, double[] nm, double[] w, int count, BelowDetectionAs as) {
         if (count == 0) {
             return new Sum(0, false);
         }
@@ -71,7 +72,7 @@ final class SortedReading {
     }
 
     /** The stored T of point i, or its bound when it is below detection. */
-    static double pointT(Curve curve, int i, BelowDetectionAs as) {
+    static double pointT(PointReadings curve, int i, BelowDetectionAs as) {
         double t = curve.transmittance(i);
         if (as == BelowDetectionAs.STORED || !curve.belowDetection(i)) {
             return t;
@@ -85,7 +86,7 @@ final class SortedReading {
     }
 
     /** {@link Arrays#binarySearch(double[], double)} over the curve's wavelengths, without copying them. */
-    private static int binarySearch(Curve curve, double key) {
+    private static int binarySearch(PointReadings curve, double key) {
         int low = 0;
         int high = curve.size() - 1;
         while (low <= high) {

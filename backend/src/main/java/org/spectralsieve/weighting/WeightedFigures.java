@@ -3,6 +3,7 @@ package org.spectralsieve.weighting;
 import java.util.ArrayList;
 import java.util.List;
 import org.spectralsieve.spectrum.Curve;
+import org.spectralsieve.spectrum.PointReadings;
 import org.spectralsieve.weighting.Figure.Bound;
 
 /**
@@ -112,9 +113,10 @@ public final class WeightedFigures {
      * integration points and their weights are computed once per emitter, response and covered range
      * ({@link IntegrationNodes}); T is read along them by one walk ({@link SortedReading}).
      */
-    public static Figure effectiveTransmittance(Curve curve, Emitter emitter, Response response, BelowDetectionAs as) {
-        if (FigurePath.byLookup()) {
-            return effectiveTransmittanceByLookup(FigurePath.bounded(curve, as), emitter, response);
+    public static Figure effectiveTransmittance(PointReadings curve, Emitter emitter, Response response,
+                                                BelowDetectionAs as) {
+        if (FigurePath.byLookup() && curve instanceof Curve built) {
+            return effectiveTransmittanceByLookup(FigurePath.bounded(built, as), emitter, response);
         }
         return effectiveTransmittance(curve, emitter, response,
                 (from, to) -> IntegrationNodes.covered(emitter, response, from, to).read(curve, as));
@@ -134,7 +136,8 @@ public final class WeightedFigures {
         Covered over(double from, double to);
     }
 
-    private static Figure effectiveTransmittance(Curve curve, Emitter emitter, Response response, Coverage coverage) {
+    private static Figure effectiveTransmittance(PointReadings curve, Emitter emitter, Response response,
+                                                 Coverage coverage) {
         String name = "effectiveTransmittance";
         double lo = Math.max(response.minNm(), emitter.minNm());
         double hi = Math.min(response.maxNm(), emitter.maxNm());
@@ -251,7 +254,7 @@ public final class WeightedFigures {
     }
 
     /** What lies where the figure cannot see, each with its share of the weighted power. */
-    private static List<String> gaps(Curve curve, Response response, Emitter emitter, double lo, double hi,
+    private static List<String> gaps(PointReadings curve, Response response, Emitter emitter, double lo, double hi,
             double curveShare, double responseShare) {
         List<String> gaps = new ArrayList<>();
         if (curveShare > 0) {

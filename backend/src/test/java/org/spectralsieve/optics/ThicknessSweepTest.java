@@ -87,11 +87,11 @@ class ThicknessSweepTest {
         return java.util.stream.Stream.concat(java.util.stream.Stream.of(first), rest.stream()).toList();
     }
 
-    private static double[] thicknesses(Random random, double d0) {
+    static double[] thicknesses(Random random, double d0) {
         return new double[] {d0, 0.1 + 12 * random.nextDouble(), 0.1 + 12 * random.nextDouble(), d0 * (1 + 1e-9)};
     }
 
-    private static RefractiveIndex randomIndex(Random random) {
+    static RefractiveIndex randomIndex(Random random) {
         return random.nextInt(3) == 0 ? SellmeierIndex.FUSED_SILICA : new ConstantIndex(1.4 + 0.3 * random.nextDouble());
     }
 
@@ -99,7 +99,7 @@ class ThicknessSweepTest {
      * Uneven wavelengths; T from fully dark (0) through tiny values to readings above the lossless ceiling
      * (noise); points below a varying detection limit flagged.
      */
-    private static Curve randomCurve(Random random, double fromNm) {
+    static Curve randomCurve(Random random, double fromNm) {
         int n = 2 + random.nextInt(80);
         double[] nm = new double[n];
         double[] t = new double[n];
