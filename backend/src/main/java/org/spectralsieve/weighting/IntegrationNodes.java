@@ -11,11 +11,13 @@ import org.spectralsieve.spectrum.PointReadings;
  * The numbers are those {@link WeightedFigures} computed per figure, by the same arithmetic in the same
  * order. Emitters and responses are immutable, so a cache keyed by the objects themselves (identity: neither
  * defines equals) can never hand out another spectrum's points; it is cleared when it grows past
- * {@link #LIMIT} entries (each range a curve covers is one entry; a library has few).
+ * {@link #LIMIT} entries (each range a curve covers is one entry; a library has few). Built-in emitters and
+ * responses are constants; a parametric or imported one is a new object per parsed requirement, so its entries
+ * serve one search and go at the next clearing (at most about 4 MB held: 256 ranges of at most ~1,000 points).
  */
 final class IntegrationNodes {
 
-    private static final int LIMIT = 1024;
+    private static final int LIMIT = 256;
     private static final Map<Key, IntegrationNodes> COVERED = new ConcurrentHashMap<>();
     private static final Map<Key, double[]> TOTALS = new ConcurrentHashMap<>();
 
