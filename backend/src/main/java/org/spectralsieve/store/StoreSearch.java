@@ -108,6 +108,17 @@ public final class StoreSearch {
         return new StoreSearch(store, requirement, true).run(limit, false);
     }
 
+    /**
+     * The reworked scan without reading one column first ({@link ColumnFirstScan}): every curve through the
+     * chunk scan, as before that step. For {@code SearchBenchmark}'s side-by-side rows only; same answers.
+     */
+    public static StoreResult searchByChunks(SpectralStore store, Requirement requirement, int limit) {
+        if (limit < 1) {
+            throw new IllegalArgumentException("limit must be at least 1, got " + limit);
+        }
+        return search(store, requirement, limit, PARALLEL_MIN_CURVES, Integer.MAX_VALUE);
+    }
+
     /** The same search with every probe of every curve evaluated: the reference the bounded search must equal. */
     static StoreResult searchExhaustively(SpectralStore store, Requirement requirement, int limit) {
         return new StoreSearch(store, requirement, false).run(limit, true);

@@ -96,30 +96,37 @@ class SearchBenchmark {
     }
 
     /**
-     * The store's part alone by the earlier scan ({@code variant=before}, {@link StoreSearch#searchReference})
-     * and the reworked one ({@code variant=after}), run alternately in one loop so both see the same load.
+     * The store's part alone by the earlier scan ({@code variant=before}, {@link StoreSearch#searchReference}),
+     * the chunk scan without reading one column first ({@code variant=chunks}, {@link StoreSearch#searchByChunks})
+     * and the default path ({@code variant=after}), run in turn in one loop so all see the same load.
      */
     private static void compareScans(SpectralStore store, Requirement requirement, int limit, int runs, String mode) {
+        String[] variants = {"before", "chunks", "after"};
         for (int i = 0; i < 3; i++) {
-            StoreSearch.searchReference(store, requirement, limit);
-            StoreSearch.search(store, requirement, limit);
+            for (String variant : variants) {
+                scan(variant, store, requirement, limit);
+            }
         }
-        double[] before = new double[runs];
-        double[] after = new double[runs];
+        double[][] ms = new double[variants.length][runs];
         for (int i = 0; i < runs; i++) {
-            long t0 = System.nanoTime();
-            StoreSearch.searchReference(store, requirement, limit);
-            long t1 = System.nanoTime();
-            StoreSearch.search(store, requirement, limit);
-            long t2 = System.nanoTime();
-            before[i] = (t1 - t0) / 1e6;
-            after[i] = (t2 - t1) / 1e6;
+            for (int v = 0; v < variants.length; v++) {
+                long t0 = System.nanoTime();
+                scan(variants[v], store, requirement, limit);
+                ms[v][i] = (System.nanoTime() - t0) / 1e6;
+            }
         }
-        for (String variant : new String[] {"before", "after"}) {
-            double[] ms = variant.equals("before") ? before : after;
+        for (int v = 0; v < variants.length; v++) {
             System.out.printf("BENCH store-scan curves=%d mode=%s variant=%s p50_ms=%s p95_ms=%s%n", store.size(), mode,
-                    variant, ms(percentile(ms, 50)), ms(percentile(ms, 95)));
+                    variants[v], ms(percentile(ms[v], 50)), ms(percentile(ms[v], 95)));
         }
+    }
+
+    private static StoreResult scan(String variant, SpectralStore store, Requirement requirement, int limit) {
+        return switch (variant) {
+            case "before" -> StoreSearch.searchReference(store, requirement, limit);
+            case "chunks" -> StoreSearch.searchByChunks(store, requirement, limit);
+            default -> StoreSearch.search(store, requirement, limit);
+        };
     }
 
     /** The service's path without the database: store search, then exact judgement of the returned rows. */
