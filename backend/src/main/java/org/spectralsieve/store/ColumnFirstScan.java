@@ -22,6 +22,9 @@ import org.spectralsieve.requirement.Verdict;
  * out reaches the cut. Where that does not hold, t is lowered and the column read again; the last resort
  * is the plain scan ({@code null}).
  *
+ * <p>The bound is at most the smallest cap of all one-column probes, so the curves the first column keeps
+ * are thinned by the other columns' thresholds (read for those curves only) before their bounds are taken.
+ *
  * <p>Bounds of kept curves come from {@link #boundOf}: the chunk scan's rules ({@code marginsOnGridPoint},
  * {@code marginsDecoded} without rescaling, {@code settleBounds}) per curve, in the same probe order, so
  * the same doubles and the same keys.
@@ -197,6 +200,22 @@ final class ColumnFirstScan {
                     curves[count++] = c;
                 }
             }
+        }
+        // the bound is at most every one-column probe's cap: the other columns rule out more, read only here
+        for (int k = 0; k < plan.pointProbes.size(); k++) {
+            StoreSearch.PointProbe other = plan.pointProbes.get(k);
+            if (k == probe || !other.probe().onGrid() || other.probe().fractionHi() != 0) {
+                continue;
+            }
+            Filter otherFilter = new Filter(other, t);
+            short[] otherColumn = store.column(other.probe().lo());
+            int left = 0;
+            for (int i = 0; i < count; i++) {
+                if (otherFilter.keeps(otherColumn[curves[i]])) {
+                    curves[left++] = curves[i];
+                }
+            }
+            count = left;
         }
         int[] bounds = new int[count];
         int admitted = 0;
