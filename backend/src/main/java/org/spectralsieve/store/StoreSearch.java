@@ -51,6 +51,12 @@ public final class StoreSearch {
      */
     static final int PARALLEL_MIN_CURVES = 32_768;
 
+    /**
+     * From this many curves on, a search judged as measured reads one column first: below it the chunk scan
+     * takes about a millisecond anyway, and the demo library keeps the path it has always taken.
+     */
+    static final int COLUMN_FIRST_MIN_CURVES = 32_768;
+
     private final SpectralStore store;
     private final Plan plan;
     /** The path as it was before the scan was reworked (see {@link #searchReference}). */
@@ -64,6 +70,17 @@ public final class StoreSearch {
         this.store = store;
         this.reference = reference;
         this.plan = Plan.of(store, requirement, reference, parallelMinCurves);
+    }
+
+    /**
+     * The reworked scan with its own size thresholds for going parallel and for reading one column first
+     * ({@link ColumnFirstScan}): lets tests take either path on small stores.
+     */
+    static StoreResult search(SpectralStore store, Requirement requirement, int limit, int parallelMinCurves,
+                              int columnFirstMinCurves) {
+        StoreSearch search = new StoreSearch(store, requirement, false, parallelMinCurves);
+        search.plan.columnFirstMinCurves = columnFirstMinCurves;
+        return search.run(limit, false);
     }
 
     /** The reworked scan with its own size threshold for going parallel: lets tests split small stores over tasks. */
@@ -91,6 +108,17 @@ public final class StoreSearch {
         return new StoreSearch(store, requirement, true).run(limit, false);
     }
 
+    /**
+     * The reworked scan without reading one column first ({@link ColumnFirstScan}): every curve through the
+     * chunk scan, as before that step. For {@code SearchBenchmark}'s side-by-side rows only; same answers.
+     */
+    public static StoreResult searchByChunks(SpectralStore store, Requirement requirement, int limit) {
+        if (limit < 1) {
+            throw new IllegalArgumentException("limit must be at least 1, got " + limit);
+        }
+        return search(store, requirement, limit, PARALLEL_MIN_CURVES, Integer.MAX_VALUE);
+    }
+
     /** The same search with every probe of every curve evaluated: the reference the bounded search must equal. */
     static StoreResult searchExhaustively(SpectralStore store, Requirement requirement, int limit) {
         return new StoreSearch(store, requirement, false).run(limit, true);
@@ -106,6 +134,12 @@ public final class StoreSearch {
      * collected in one sweep. Same bounds, same candidates, same refinement: the same answer.
      */
     private StoreResult runScan(int limit, boolean exhaustive) {
+        if (!exhaustive && store.size() >= plan.columnFirstMinCurves && ColumnFirstScan.applies(plan)) {
+            StoreResult byColumn = runColumnFirst(limit);
+            if (byColumn != null) {
+                return byColumn;
+            }
+        }
         int n = store.size();
         int[] bound = new int[n];
         boolean[] eligible = new boolean[n];
@@ -124,6 +158,30 @@ public final class StoreSearch {
             }
         }
         return new StoreResult(refinement.topRows(limit), pass.eligibleCount, refinement.evaluations.size());
+    }
+
+    /**
+     * As measured on a large store: one column read first, every probe only for the curves it cannot rule
+     * out ({@link ColumnFirstScan}); the same best curves, cut and candidates as the chunk scan. Null when
+     * that column cannot settle the best curves (the chunk scan runs instead).
+     */
+    private StoreResult runColumnFirst(int limit) {
+        ColumnFirstScan scan = new ColumnFirstScan(store, plan);
+        int[] best = scan.best(limit * FIRST_CUT_FACTOR);
+        if (best == null) {
+            return null;
+        }
+        Refinement refinement = new Refinement();
+        CurveModel full = new CurveModel(plan, store, false);
+        for (int curve : best) {
+            refinement.add(curve, full);
+        }
+        for (int curve : scan.reaching(refinement.kthBestMaterialKey(limit))) {
+            if (!refinement.evaluations.containsKey(curve)) {
+                refinement.add(curve, full);
+            }
+        }
+        return new StoreResult(refinement.topRows(limit), scan.eligibleCount(), refinement.evaluations.size());
     }
 
     /** The first pass's count of admitted curves and its best {@code count} curves by bound. */
@@ -737,6 +795,8 @@ public final class StoreSearch {
         boolean reference;
         /** From this many curves on, the scan and the spans run in parallel. */
         int parallelMinCurves = PARALLEL_MIN_CURVES;
+        /** From this many curves on, a search judged as measured reads one column first ({@link ColumnFirstScan}). */
+        int columnFirstMinCurves = COLUMN_FIRST_MIN_CURVES;
 
         private Plan(List<CompiledClause> clauses, ThicknessSpec thickness, String materialClass, Boolean total,
                      double[][][] surfaceLoss, double[][][] unresolvedOd) {

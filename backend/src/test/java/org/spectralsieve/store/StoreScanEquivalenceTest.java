@@ -9,6 +9,7 @@ import static org.spectralsieve.store.StoreSearchTest.requirement;
 
 import java.util.ArrayList;
 import java.util.List;
+import java.util.Optional;
 import java.util.Random;
 import org.junit.jupiter.api.Test;
 import org.spectralsieve.requirement.Band;
@@ -53,6 +54,67 @@ class StoreScanEquivalenceTest {
                 }
             }
         }
+    }
+
+    /**
+     * Reading one column first ({@link ColumnFirstScan}, forced on small stores by a threshold of zero curves)
+     * returns what the earlier scan returns, for searches as measured: single probes on and off the grid,
+     * bands, means, cutoffs, limits 1–60 (so the first cut is sometimes most of a material-poor store), with and
+     * without a material-class filter, on one thread and over tasks.
+     */
+    @Test
+    void readingOneColumnFirstReturnsWhatTheEarlierScanReturns() {
+        Random random = new Random(SEED + 1);
+        int columnFirstRuns = 0;
+        for (int s = 0; s < 4; s++) {
+            int curves = 3000 + random.nextInt(5000);
+            SpectralStore store = StoreSearchTest.randomStore(curves, 20 + random.nextInt(1500), random.nextLong());
+            for (int q = 0; q < 50; q++) {
+                Requirement drawn = randomRequirement(random);
+                Optional<String> materialClass = random.nextInt(4) == 0 ? Optional.of("film") : Optional.empty();
+                Requirement r = new Requirement(drawn.clauses(), ThicknessSpec.AS_MEASURED, materialClass,
+                        Optional.empty(), drawn.text() + materialClass.map(c -> " " + c).orElse(""));
+                int limit = 1 + random.nextInt(60);
+                StoreResult before = StoreSearch.searchReference(store, r, limit);
+                columnFirstRuns += ColumnFirstScan.applies(planOf(store, r)) ? 1 : 0;
+                for (int parallelFrom : new int[] {Integer.MAX_VALUE, 1}) {
+                    StoreResult after = StoreSearch.search(store, r, limit, parallelFrom, 0);
+
+                    assertThat(after.hits()).as("%s, limit %d", r.text(), limit)
+                            .usingRecursiveFieldByFieldElementComparator().containsExactlyElementsOf(before.hits());
+                    assertThat(after.evaluatedSamples()).isEqualTo(before.evaluatedSamples());
+                    assertThat(after.refinedSamples()).as(r.text()).isEqualTo(before.refinedSamples());
+                }
+            }
+        }
+        assertThat(columnFirstRuns).as("searches that took the column-first path").isGreaterThan(100);
+    }
+
+    /** A curve's cap from one probe's code is never below its bound from every probe (the rule that makes it safe). */
+    @Test
+    void oneProbesCapIsNeverBelowTheBoundFromEveryProbe() {
+        Random random = new Random(SEED + 2);
+        SpectralStore store = StoreSearchTest.randomStore(4000, 900, random.nextLong());
+        for (int q = 0; q < 40; q++) {
+            Requirement drawn = randomRequirement(random);
+            Requirement r = requirement(ThicknessSpec.AS_MEASURED, drawn.clauses().toArray(Clause[]::new));
+            StoreSearch.Plan plan = planOf(store, r);
+            ColumnFirstScan scan = new ColumnFirstScan(store, plan);
+            for (StoreSearch.PointProbe p : plan.pointProbes) {
+                if (!p.probe().onGrid() || p.probe().fractionHi() != 0) {
+                    continue;
+                }
+                short[] column = store.column(p.probe().lo());
+                for (int c = 0; c < store.size(); c++) {
+                    assertThat(ColumnFirstScan.capOf(p, column[c] & 0xFFFF)).as("%s curve %d", r.text(), c)
+                            .isGreaterThanOrEqualTo(scan.boundOf(c));
+                }
+            }
+        }
+    }
+
+    private static StoreSearch.Plan planOf(SpectralStore store, Requirement r) {
+        return StoreSearch.Plan.of(store, r, false, StoreSearch.PARALLEL_MIN_CURVES);
     }
 
     @Test

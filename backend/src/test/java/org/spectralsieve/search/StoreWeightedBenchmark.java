@@ -1,0 +1,257 @@
+package org.spectralsieve.search;
+
+import java.util.ArrayList;
+import java.util.Arrays;
+import java.util.HashMap;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+import java.util.Optional;
+import java.util.stream.IntStream;
+import org.junit.jupiter.api.Test;
+import org.spectralsieve.requirement.Candidate;
+import org.spectralsieve.requirement.MadeThicknesses;
+import org.spectralsieve.requirement.MaterialEvaluation;
+import org.spectralsieve.requirement.MaterialJudge;
+import org.spectralsieve.requirement.RankedRow;
+import org.spectralsieve.requirement.Ranking;
+import org.spectralsieve.requirement.Requirement;
+import org.spectralsieve.requirement.RequirementParser;
+import org.spectralsieve.requirement.Standing;
+import org.spectralsieve.spectrum.Curve;
+import org.spectralsieve.store.OdCode;
+import org.spectralsieve.store.SpectralStore;
+import org.spectralsieve.store.StoredMaterial;
+import org.spectralsieve.store.SyntheticCurves;
+
+/**
+ * Weighted requirements over a synthetic store of a million curves, without the database (which cannot hold
+ * a million samples in a benchmark's time): the steps {@link SearchService}'s weighted path takes, on the
+ * store's own curves. Step one is the store's screen ({@link WeightedMisses}: every weighted clause's bound
+ * per curve, kept where it proves a miss); step two judges exactly ({@link MaterialJudge}, curves decoded
+ * from the store) every material not wholly proven missed, then the held materials best bound first while
+ * they could still enter the shortlist, as {@code SearchService.searchExactly} does. Prints
+ * {@code BENCH store-weighted curves=<n> mode=measured|solve part=screen|whole p50_ms p95_ms proven judged runs}
+ * and the store's bytes per curve with the screen; asserts nothing about time. The store is built through
+ * {@code SpectralStore.Builder.add} so every curve carries its screen bins (as a loaded library's do).
+ * Switches: {@code -Dbench.storeWeightedSizes=10000,1000000}, {@code -Dbench.storeWeightedRuns=3},
+ * {@code -Dbench.storeWeightedBase=10000} (stores larger than this repeat its rows: screening a synthetic curve
+ * on insertion costs milliseconds), {@code -Dbench.storeWeightedWholeUpTo=30000} (the whole search, with the
+ * exact judgement, only up to this size: above it only {@code part=screen}, and {@code judged} counts the
+ * curves the screen leaves to judge), {@code -Dbench.limit=20}.
+ */
+class StoreWeightedBenchmark {
+
+    static final String WEIGHTED = "passes over 85% of led 365 and uv hazard under 0.1% and luminous over 70%";
+    private static final int BATCH = 8192;
+    /** Each synthetic curve's refractive index (the store keeps its own copy, not public): judged as stored. */
+    private static final Map<SpectralStore, byte[]> INDEX_OF_CURVE = new java.util.IdentityHashMap<>();
+
+    @Test
+    void weightedSearchesOverAMillionCurves() {
+        int limit = intProperty("bench.limit", 20);
+        int runs = intProperty("bench.storeWeightedRuns", 3);
+        // screening every curve of a synthetic library (Builder.add) takes milliseconds per curve: larger
+        // stores repeat the rows of one this size (codes and screen bins carried over, new materials)
+        int base = intProperty("bench.storeWeightedBase", 10_000);
+        // the exact judgement of what the screen leaves takes minutes per search at a million curves
+        int wholeUpTo = intProperty("bench.storeWeightedWholeUpTo", 30_000);
+        Map<String, Requirement> modes = new java.util.LinkedHashMap<>();
+        modes.put("measured", RequirementParser.parse(WEIGHTED));
+        modes.put("solve", RequirementParser.parse(WEIGHTED + ", thickness 1 to 6 mm"));
+        for (String size : System.getProperty("bench.storeWeightedSizes", "10000,1000000").split(",")) {
+            if (size.isBlank()) {
+                continue;
+            }
+            int n = Integer.parseInt(size.trim());
+            long t0 = System.nanoTime();
+            SpectralStore store = n <= base ? screenedStore(n, 20261202L) : repeated(screenedStore(base, 20261202L), n);
+            System.out.printf(Locale.ROOT, "BENCH store-weighted-setup curves=%d build_s=%.1f bytes_per_curve=%.0f%n", n,
+                    (System.nanoTime() - t0) / 1e9, store.bytesPerCurve());
+            for (Map.Entry<String, Requirement> mode : modes.entrySet()) {
+                boolean judge = n <= wholeUpTo;
+                search(store, mode.getValue(), limit, judge); // warm-up
+                double[] screen = new double[runs];
+                double[] whole = new double[runs];
+                Outcome last = null;
+                for (int r = 0; r < runs; r++) {
+                    last = search(store, mode.getValue(), limit, judge);
+                    screen[r] = last.screenMs;
+                    whole[r] = last.wholeMs;
+                }
+                Arrays.sort(screen);
+                Arrays.sort(whole);
+                for (String part : judge ? new String[] {"screen", "whole"} : new String[] {"screen"}) {
+                    double[] ms = part.equals("screen") ? screen : whole;
+                    System.out.printf(Locale.ROOT, "BENCH store-weighted curves=%d mode=%s part=%s p50_ms=%.1f p95_ms=%.1f"
+                                    + " proven=%d judged=%d runs=%d%n", n, mode.getKey(), part, ms[runs / 2],
+                            ms[Math.min(runs - 1, (int) Math.ceil(runs * 0.95) - 1)], last.proven, last.judged, runs);
+                }
+            }
+        }
+    }
+
+    private record Outcome(double screenMs, double wholeMs, int proven, int judged) {
+    }
+
+    /** One weighted search the service's way, on the store's curves. */
+    private static Outcome search(SpectralStore store, Requirement requirement, int limit, boolean judge) {
+        long t0 = System.nanoTime();
+        Map<Long, Double> proven = new HashMap<>();
+        WeightedMisses.add(proven, store, requirement, Optional.empty());
+        long t1 = System.nanoTime();
+        if (!judge) {
+            int left = 0;
+            for (int c = 0; c < store.size(); c++) {
+                left += proven.containsKey(store.sampleId(c)) ? 0 : 1;
+            }
+            return new Outcome((t1 - t0) / 1e6, Double.NaN, proven.size(), left);
+        }
+        List<MaterialEvaluation> exact = new ArrayList<>();
+        List<double[]> held = new ArrayList<>(); // {first curve, bound}
+        int judged = 0;
+        for (int first = 0; first < store.size(); first += 3) {
+            int end = Math.min(store.size(), first + 3);
+            double bound = Double.NEGATIVE_INFINITY;
+            boolean allMiss = true;
+            for (int c = first; c < end; c++) {
+                Double b = proven.get(store.sampleId(c));
+                allMiss &= b != null;
+                bound = b == null ? bound : Math.max(bound, b);
+            }
+            if (allMiss) {
+                held.add(new double[] {first, bound});
+            } else {
+                exact.addAll(judge(store, first, end, requirement));
+                judged += end - first;
+            }
+        }
+        List<RankedRow> rows = Ranking.rank(exact, limit);
+        held.sort((a, b) -> Double.compare(b[1], a[1]));
+        for (double[] h : held) {
+            if (!couldEnter(rows, limit, h[1])) {
+                break;
+            }
+            int first = (int) h[0];
+            List<MaterialEvaluation> more = judge(store, first, Math.min(store.size(), first + 3), requirement);
+            judged += more.size();
+            exact.addAll(more);
+            rows = Ranking.rank(exact, limit);
+        }
+        long t2 = System.nanoTime();
+        if (rows.isEmpty()) {
+            throw new IllegalStateException("no rows");
+        }
+        return new Outcome((t1 - t0) / 1e6, (t2 - t0) / 1e6, proven.size(), judged);
+    }
+
+    /** As {@code SearchService.couldEnter}: whether a held material whose bound is {@code bound} could still enter. */
+    private static boolean couldEnter(List<RankedRow> rows, int limit, double bound) {
+        if (rows.size() < limit) {
+            return true;
+        }
+        RankedRow last = rows.get(rows.size() - 1);
+        Standing standing = last.evaluation().standing();
+        if (standing.compareTo(Standing.MISSES) < 0) {
+            return false;
+        }
+        if (standing != Standing.MISSES) {
+            return true;
+        }
+        double margin = last.evaluation().worstMarginDecades();
+        return Double.isNaN(margin) || bound >= margin;
+    }
+
+    private static List<MaterialEvaluation> judge(SpectralStore store, int from, int to, Requirement requirement) {
+        byte[] index = INDEX_OF_CURVE.get(store);
+        List<Candidate> candidates = new ArrayList<>();
+        List<Double> measured = new ArrayList<>();
+        for (int c = from; c < to; c++) {
+            measured.add(store.thicknessMm(c));
+        }
+        MadeThicknesses made = MadeThicknesses.of(List.of(), Double.NaN, Double.NaN, measured);
+        for (int c = from; c < to; c++) {
+            StoredMaterial m = store.material(c);
+            candidates.add(new Candidate(store.sampleId(c), m.id(), m.name(), store.curve(c), store.thicknessMm(c),
+                    store.isBulk(c), SyntheticCurves.INDICES[index[c]], made));
+        }
+        return MaterialJudge.evaluate(candidates, requirement, Optional.empty());
+    }
+
+    /**
+     * The curves of {@code SearchBenchmark.syntheticStore} (same seed, same materials of three), added as
+     * curves so the store computes each one's weighted screen bins.
+     */
+    static SpectralStore screenedStore(int n, long seed) {
+        SyntheticCurves synthetic = new SyntheticCurves(seed, SpectralStore.DEFAULT_GRID);
+        double[] grid = SpectralStore.DEFAULT_GRID.points();
+        SpectralStore.Builder builder = SpectralStore.builder(SpectralStore.DEFAULT_GRID, n);
+        byte[] index = new byte[n];
+        for (int start = 0; start < n; start += BATCH) {
+            int count = Math.min(BATCH, n - start);
+            SyntheticCurves.Spec[] specs = new SyntheticCurves.Spec[count];
+            for (int k = 0; k < count; k++) {
+                specs[k] = synthetic.next();
+            }
+            Curve[] curves = new Curve[count];
+            IntStream.range(0, count).parallel().forEach(k -> curves[k] = curveOf(synthetic.codes(specs[k]), grid));
+            for (int k = 0; k < count; k++) {
+                int i = start + k;
+                int material = i / 3;
+                index[i] = (byte) specs[k].index();
+                builder.add(i + 1L, new StoredMaterial(material + 1L, "material " + material, "plastic sheet"),
+                        specs[k].thicknessMm(), material % 3 != 2, false, SyntheticCurves.INDICES[specs[k].index()], curves[k]);
+            }
+        }
+        SpectralStore store = builder.build();
+        INDEX_OF_CURVE.put(store, index);
+        return store;
+    }
+
+    /** n rows cycling over the base store's rows (codes and screen bins carried over), three per new material. */
+    private static SpectralStore repeated(SpectralStore base, int n) {
+        byte[] baseIndex = INDEX_OF_CURVE.get(base);
+        byte[] index = new byte[n];
+        SpectralStore.Builder builder = SpectralStore.builder(SpectralStore.DEFAULT_GRID, n);
+        for (int i = 0; i < n; i++) {
+            int row = i % base.size();
+            int material = i / 3;
+            index[i] = baseIndex[row];
+            builder.addCarried(i + 1L, new StoredMaterial(material + 1L, "material " + material, "plastic sheet"),
+                    base.thicknessMm(row), material % 3 != 2, false, SyntheticCurves.INDICES[index[i]], base, row);
+        }
+        SpectralStore store = builder.build();
+        INDEX_OF_CURVE.put(store, index);
+        return store;
+    }
+
+    /** The curve the codes stand for, as {@link SpectralStore#curve} decodes a stored row. */
+    private static Curve curveOf(short[] codes, double[] grid) {
+        int first = -1;
+        int last = -1;
+        for (int w = 0; w < codes.length; w++) {
+            if (OdCode.isMeasured(codes[w])) {
+                first = first < 0 ? w : first;
+                last = w;
+            }
+        }
+        int size = last - first + 1;
+        double[] nm = new double[size];
+        double[] t = new double[size];
+        boolean[] below = new boolean[size];
+        double[] limits = new double[size];
+        for (int k = 0; k < size; k++) {
+            short code = codes[first + k];
+            nm[k] = grid[first + k];
+            t[k] = OdCode.transmittance(code);
+            below[k] = OdCode.isBound(code);
+            limits[k] = below[k] ? t[k] : 0;
+        }
+        return Curve.of(nm, t, below, limits);
+    }
+
+    private static int intProperty(String name, int fallback) {
+        String value = System.getProperty(name);
+        return value == null || value.isBlank() ? fallback : Integer.parseInt(value.trim());
+    }
+}
