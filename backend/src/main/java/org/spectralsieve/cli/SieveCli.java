@@ -3,6 +3,7 @@ package org.spectralsieve.cli;
 import java.io.PrintStream;
 import java.io.PrintWriter;
 import java.nio.charset.StandardCharsets;
+import java.util.List;
 import java.util.Set;
 import org.spectralsieve.SpectralSieveApplication;
 import picocli.CommandLine;
@@ -41,7 +42,22 @@ public final class SieveCli {
      * themselves, so that a new command can never start the web service instead by being left off a list.
      */
     public static boolean handles(String[] args) {
-        return args.length > 0 && (HELP_WORDS.contains(args[0]) || commandNames().contains(args[0]));
+        return args.length > 0 && (HELP_WORDS.contains(args[0]) || declaredCommandNames().contains(args[0]));
+    }
+
+    /**
+     * The subcommands' names read from the annotations alone: what {@link #commandNames()} gives, without
+     * building picocli's whole model of every command and option, which {@link #run} builds anyway; deciding
+     * "command or server" was paying for that model twice on every call (docs/command-line-start-up.md).
+     */
+    static Set<String> declaredCommandNames() {
+        Set<String> names = new java.util.HashSet<>();
+        for (Class<?> sub : SieveCli.class.getAnnotation(Command.class).subcommands()) {
+            Command declared = sub.getAnnotation(Command.class);
+            names.add(declared.name());
+            names.addAll(List.of(declared.aliases()));
+        }
+        return names;
     }
 
     static Set<String> commandNames() {

@@ -19,6 +19,7 @@ import java.util.List;
 import java.util.Map;
 import java.util.stream.Stream;
 import org.junit.jupiter.api.Test;
+import org.spectralsieve.cli.LauncherProcess;
 
 /**
  * Start-up benchmark (run by {@code mvn -B -q -Pbench -pl backend -am verify}; not part of the test suite):
@@ -33,6 +34,12 @@ import org.junit.jupiter.api.Test;
  * default the module's own {@code target/backend-*.jar}, which needs an earlier {@code mvn package}: the bench
  * profile's tests run before this run's packaging). Switches: {@code -Dbench.startRuns=5},
  * {@code -Dbench.startHeap=512m}.
+ *
+ * <p>An entry written {@code launcher:a.jar} starts that jar through the repository's {@code spectral-sieve}
+ * script instead of {@code java -jar} (unpacked jar, the web service's own class-data archive;
+ * docs/start-and-load.md), with a private cache folder that one untimed start and stop fills first (the
+ * archive is recorded once per build, not per start). Its name in the BENCH line is {@code launcher:<jar>}.
+ * The default is the module's jar both ways, side by side.
  */
 class StartupBenchmark {
 
@@ -46,7 +53,7 @@ class StartupBenchmark {
 
     @Test
     void startsTheBuiltJar() throws Exception {
-        List<Path> jars = jars();
+        List<Started> jars = jars();
         if (jars.isEmpty()) {
             System.out.println("BENCH start skipped: no jar (run mvn package first or pass -Dbench.startJars=)");
             return;
@@ -54,19 +61,34 @@ class StartupBenchmark {
         int runs = BenchStats.intProperty("bench.startRuns", 5);
         String heap = System.getProperty("bench.startHeap", "512m");
         Map<String, Times> times = new LinkedHashMap<>();
+        for (Started jar : jars) {
+            if (jar.launcher()) {
+                Path dir = Files.createTempDirectory("sieve-start-recording");
+                try {
+                    start(jar, dir, heap); // untimed: unpacks the jar and records the service's archive
+                } finally {
+                    delete(dir);
+                }
+            }
+        }
         for (int run = 0; run < runs; run++) {
-            for (Path jar : jars) {
+            for (Started jar : jars) {
                 Path dir = Files.createTempDirectory("sieve-start");
                 try {
                     for (String mode : List.of("first", "restart")) {
                         double[] t = start(jar, dir, heap);
-                        Times tt = times.computeIfAbsent(jar.getFileName() + " " + mode, k -> new Times());
+                        Times tt = times.computeIfAbsent(jar.name() + " " + mode, k -> new Times());
                         tt.answer().add(t[0]);
                         tt.search().add(t[1]);
                     }
                 } finally {
                     delete(dir);
                 }
+            }
+        }
+        for (Started jar : jars) {
+            if (jar.launcher()) {
+                delete(jar.cache());
             }
         }
         for (Map.Entry<String, Times> e : times.entrySet()) {
@@ -80,7 +102,27 @@ class StartupBenchmark {
     }
 
     /** @return ms from launch to the first 200, and ms of the first search after it */
-    private static double[] start(Path jar, Path dir, String heap) throws Exception {
+    /** One way of starting a jar: plain {@code java -jar}, or the launcher script with its own cache folder. */
+    private record Started(Path jar, boolean launcher, Path root, Path cache) {
+        String name() {
+            return (launcher ? "launcher:" : "") + jar.getFileName();
+        }
+
+        ProcessBuilder process(String heap, int port) {
+            if (!launcher) {
+                return new ProcessBuilder(Path.of(System.getProperty("java.home"), "bin", "java").toString(),
+                        "-Xmx" + heap, "-jar", jar.toAbsolutePath().toString(), "--server.port=" + port);
+            }
+            ProcessBuilder builder = new ProcessBuilder("sh", root.resolve("spectral-sieve").toString(), "--server.port=" + port);
+            builder.environment().put("SIEVE_JAR", jar.toAbsolutePath().toString());
+            builder.environment().put("SIEVE_CACHE_DIR", cache.toString());
+            builder.environment().put("SIEVE_JAVA_OPTS", "-Xmx" + heap);
+            builder.environment().put("JAVA_HOME", System.getProperty("java.home"));
+            return builder;
+        }
+    }
+
+    private static double[] start(Started jar, Path dir, String heap) throws Exception {
         int port;
         try (ServerSocket free = new ServerSocket(0)) {
             port = free.getLocalPort();
@@ -88,8 +130,7 @@ class StartupBenchmark {
         String base = "http://127.0.0.1:" + port;
         HttpClient http = HttpClient.newBuilder().connectTimeout(Duration.ofSeconds(2)).build();
         long launched = System.nanoTime();
-        Process app = new ProcessBuilder(Path.of(System.getProperty("java.home"), "bin", "java").toString(),
-                "-Xmx" + heap, "-jar", jar.toAbsolutePath().toString(), "--server.port=" + port)
+        Process app = jar.process(heap, port)
                 .directory(dir.toFile()).redirectErrorStream(true).redirectOutput(dir.resolve("log.txt").toFile()).start();
         try {
             while (true) {
@@ -124,19 +165,34 @@ class StartupBenchmark {
         }
     }
 
-    private static List<Path> jars() throws IOException {
-        String named = System.getProperty("bench.startJars", "");
-        if (!named.isBlank()) {
-            return Stream.of(named.split(",")).map(String::trim).map(Path::of).toList();
+    private static List<Started> jars() throws IOException {
+        Path root = LauncherProcess.repositoryRoot().orElse(null);
+        List<String> named = new ArrayList<>();
+        String given = System.getProperty("bench.startJars", "");
+        if (!given.isBlank()) {
+            Stream.of(given.split(",")).map(String::trim).forEach(named::add);
+        } else {
+            Path target = Path.of("target");
+            if (!Files.isDirectory(target)) {
+                return List.of();
+            }
+            try (Stream<Path> files = Files.list(target)) {
+                files.filter(p -> p.getFileName().toString().matches("backend-.*\\.jar"))
+                        .sorted(Comparator.naturalOrder()).limit(1)
+                        .forEach(jar -> named.addAll(List.of(jar.toString(), "launcher:" + jar)));
+            }
         }
-        Path target = Path.of("target");
-        if (!Files.isDirectory(target)) {
-            return List.of();
+        List<Started> started = new ArrayList<>();
+        for (String entry : named) {
+            boolean launcher = entry.startsWith("launcher:");
+            if (launcher && root == null) {
+                System.out.println("BENCH start: no spectral-sieve launcher found; " + entry + " left out");
+                continue;
+            }
+            started.add(new Started(Path.of(launcher ? entry.substring("launcher:".length()) : entry), launcher, root,
+                    launcher ? Files.createTempDirectory("sieve-start-cache") : null));
         }
-        try (Stream<Path> files = Files.list(target)) {
-            return files.filter(p -> p.getFileName().toString().matches("backend-.*\\.jar"))
-                    .sorted(Comparator.naturalOrder()).limit(1).toList();
-        }
+        return started;
     }
 
     private static void delete(Path dir) throws IOException {

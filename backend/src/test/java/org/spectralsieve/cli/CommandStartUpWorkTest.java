@@ -45,6 +45,25 @@ class CommandStartUpWorkTest {
     }
 
     @Test
+    void aCommandStartsSpringWithoutTheBackgroundWarmUpThread() {
+        // the warm-up thread prepares a web server's first request; a command only shares the CPU with it
+        String before = System.getProperty(LibraryContext.IGNORE_BACKGROUND_PREINITIALISATION);
+        try {
+            System.clearProperty(LibraryContext.IGNORE_BACKGROUND_PREINITIALISATION);
+            CliRun materials = CliRun.against(DB_URL, "materials");
+
+            assertThat(materials.exitCode()).as(materials.err()).isZero();
+            assertThat(System.getProperty(LibraryContext.IGNORE_BACKGROUND_PREINITIALISATION)).isEqualTo("true");
+        } finally {
+            if (before == null) {
+                System.clearProperty(LibraryContext.IGNORE_BACKGROUND_PREINITIALISATION);
+            } else {
+                System.setProperty(LibraryContext.IGNORE_BACKGROUND_PREINITIALISATION, before);
+            }
+        }
+    }
+
+    @Test
     void aSearchWithWordsBuildsTheTextIndexItNeeds() {
         // the counterpart, so that the folder's absence above means something
         CliRun withWords = CliRun.against(DB_URL, "search", "acrylic passes over 80% at 365 nm");

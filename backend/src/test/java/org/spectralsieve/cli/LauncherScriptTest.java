@@ -104,6 +104,86 @@ class LauncherScriptTest {
         assertThat(Files.getLastModifiedTime(single(stamps()))).isNotEqualTo(firstUnpack);
     }
 
+    @Test
+    void theWebServiceRecordsItsOwnArchiveWhenStoppedAndStartsFromItNextTime() throws Exception {
+        Path folder = Files.createDirectories(tmp.resolve("service"));
+        Service recording = Service.start(root, cache, folder, tmp.resolve("service-db").resolve("sieve"));
+        String recorded = recording.firstAnswer();
+        int recordingExit = recording.stop();
+
+        assertThat(recordingExit).as(recording.log()).isIn(0, 130, 143);
+        assertThat(cacheFiles("server.jsa")).as("recorded when the service stopped").hasSize(1);
+        assertThat(archives()).as("the commands' archive is a different one").isEmpty();
+
+        Service mapped = Service.start(root, cache, folder, tmp.resolve("service-db").resolve("sieve"));
+        try {
+            assertThat(mapped.firstAnswer()).isEqualTo(recorded);
+            assertThat(mapped.commandLine()).contains("-XX:SharedArchiveFile=").contains("server.jsa");
+        } finally {
+            mapped.stop();
+        }
+        assertThat(mapped.log()).doesNotContainIgnoringCase("warning");
+    }
+
+    /** The web service started through the launcher with no command, on a free port, until stopped. */
+    private record Service(Process process, int port, Path logFile) {
+        static Service start(Path root, Path cache, Path folder, Path db) throws IOException {
+            int port;
+            try (java.net.ServerSocket free = new java.net.ServerSocket(0)) {
+                port = free.getLocalPort();
+            }
+            Path log = folder.resolve("log-" + port + ".txt");
+            ProcessBuilder builder = new ProcessBuilder("sh", root.resolve("spectral-sieve").toString(), "--server.port=" + port)
+                    .directory(folder.toFile()).redirectErrorStream(true).redirectOutput(log.toFile());
+            builder.environment().putAll(Map.of("SIEVE_CACHE_DIR", cache.toString(),
+                    "SIEVE_DB_URL", "jdbc:h2:file:" + db, "SIEVE_INDEX_DIR", folder.resolve("index").toString(),
+                    "SIEVE_SEED_LOADONEMPTY", "false", "JAVA_HOME", System.getProperty("java.home")));
+            return new Service(builder.start(), port, log);
+        }
+
+        /** The body of the first GET /api/materials answered 200. */
+        String firstAnswer() throws Exception {
+            java.net.http.HttpClient http = java.net.http.HttpClient.newHttpClient();
+            java.net.URI uri = java.net.URI.create("http://127.0.0.1:" + port + "/api/materials");
+            long deadline = System.nanoTime() + java.util.concurrent.TimeUnit.MINUTES.toNanos(5);
+            while (System.nanoTime() < deadline) {
+                assertThat(process.isAlive()).as("the service stopped:%n%s", log()).isTrue();
+                try {
+                    java.net.http.HttpResponse<String> r = http.send(java.net.http.HttpRequest.newBuilder(uri).build(),
+                            java.net.http.HttpResponse.BodyHandlers.ofString());
+                    if (r.statusCode() == 200) {
+                        return r.body();
+                    }
+                } catch (IOException notYet) {
+                    // not listening yet
+                }
+                Thread.sleep(100);
+            }
+            throw new AssertionError("no answer within 5 minutes:\n" + log());
+        }
+
+        String commandLine() {
+            return process.info().commandLine().orElse("");
+        }
+
+        /** SIGTERM, as a service manager or Ctrl-C stops it; @return the exit code */
+        int stop() throws InterruptedException {
+            process.destroy();
+            if (!process.waitFor(5, java.util.concurrent.TimeUnit.MINUTES)) {
+                process.destroyForcibly();
+            }
+            return process.exitValue();
+        }
+
+        String log() {
+            try {
+                return Files.readString(logFile);
+            } catch (IOException e) {
+                return "(no log: " + e + ")";
+            }
+        }
+    }
+
     private List<Path> archives() throws IOException {
         return cacheFiles("classes.jsa");
     }

@@ -336,6 +336,12 @@ class SieveCliTest {
     }
 
     @Test
+    void theQuickCommandOrServerDecisionKnowsTheSameNamesAsPicocliItself() {
+        // handles() reads the annotations instead of building picocli's model (start-up): the two must agree
+        assertThat(SieveCli.declaredCommandNames()).isEqualTo(SieveCli.commandNames());
+    }
+
+    @Test
     void eachRowSaysWhetherItsSampleWasMeasuredAtTheThicknessOrRescaledFromAnother() {
         // the same facts as the JSON's measuredMm and rescaled, in the page's words (docs/result-rows.md)
         JsonNode json = JSON.readTree(cli("search", "passes over 50% at 365 nm, at 4 mm", "--limit", "5", "--json").out());
