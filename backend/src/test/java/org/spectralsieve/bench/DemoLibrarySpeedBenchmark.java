@@ -1,0 +1,138 @@
+package org.spectralsieve.bench;
+
+import static org.spectralsieve.bench.BenchStats.ms;
+import static org.spectralsieve.bench.BenchStats.percentile;
+
+import java.io.IOException;
+import java.net.URI;
+import java.net.http.HttpClient;
+import java.net.http.HttpRequest;
+import java.net.http.HttpResponse;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.time.Duration;
+import java.util.Arrays;
+import java.util.Comparator;
+import java.util.LinkedHashMap;
+import java.util.Locale;
+import java.util.Map;
+import java.util.stream.Stream;
+import org.junit.jupiter.api.Test;
+import org.spectralsieve.SpectralSieveApplication;
+import org.springframework.boot.builder.SpringApplicationBuilder;
+import org.springframework.context.ConfigurableApplicationContext;
+import tools.jackson.databind.JsonNode;
+import tools.jackson.databind.json.JsonMapper;
+
+/**
+ * One search at a time on the demo library through the real service (issue 14's first two rows of targets):
+ * Spring Boot and Tomcat on loopback over an H2 <em>file</em> database in a temporary folder, the illustrative
+ * demo library loaded on first start, as {@code LoadBenchmark} runs it. After warm-up rounds (the first search
+ * builds the store; the JIT needs a few more), each round sends one search of every kind in turn, so a noisy
+ * neighbour hurts all kinds alike.
+ *
+ * <p>Prints {@code BENCH demo-search kind=<k> materials=<m> curves=<c> runs=<r> p50_ms p95_ms wall_p50_ms
+ * wall_p95_ms judged evaluated rows}: {@code p50_ms}/{@code p95_ms} are the service's own {@code tookMs} (what
+ * the targets are stated in), {@code wall_*} the client's time for the whole HTTP exchange (JSON, Tomcat,
+ * loopback). Kinds: {@code plain-fixed} ({@link SearchBenchmark#REQUIREMENT}), {@code plain-solve} (the same
+ * with {@code , thickness 1 to 6 mm}), {@code weighted-measured} ({@link WeightedScreenBenchmark#WEIGHTED}),
+ * {@code weighted-solve} and {@code weighted-layer} ({@code , behind 4 mm clear float glass}). Asserts nothing
+ * about time; fails only if a search is not answered 200. Switches: {@code -Dbench.demoRuns=31},
+ * {@code -Dbench.demoWarmups=5}, {@code -Dbench.limit=20}.
+ */
+class DemoLibrarySpeedBenchmark {
+
+    private static final JsonMapper JSON = JsonMapper.builder().build();
+
+    static Map<String, String> kinds() {
+        Map<String, String> kinds = new LinkedHashMap<>();
+        kinds.put("plain-fixed", SearchBenchmark.REQUIREMENT);
+        kinds.put("plain-solve", SearchBenchmark.REQUIREMENT + ", thickness 1 to 6 mm");
+        kinds.put("weighted-measured", WeightedScreenBenchmark.WEIGHTED);
+        kinds.put("weighted-solve", WeightedScreenBenchmark.WEIGHTED + ", thickness 1 to 6 mm");
+        kinds.put("weighted-layer", WeightedScreenBenchmark.WEIGHTED + ", behind 4 mm clear float glass");
+        return kinds;
+    }
+
+    private record Answer(double tookMs, double wallMs, int judged, int evaluated, int rows) {
+    }
+
+    @Test
+    void oneSearchAtATimeOnTheDemoLibrary() throws Exception {
+        int runs = BenchStats.intProperty("bench.demoRuns", 31);
+        int warmups = BenchStats.intProperty("bench.demoWarmups", 5);
+        int limit = BenchStats.intProperty("bench.limit", 20);
+        Path dir = Files.createTempDirectory("sieve-demo-speed-bench");
+        String dbUrl = "jdbc:h2:file:" + dir.resolve("sieve").toAbsolutePath() + ";AUTO_SERVER=FALSE";
+        HttpClient http = HttpClient.newBuilder().version(HttpClient.Version.HTTP_1_1)
+                .connectTimeout(Duration.ofSeconds(30)).build();
+        Map<String, String> kinds = kinds();
+        try (ConfigurableApplicationContext app = new SpringApplicationBuilder(SpectralSieveApplication.class).run(
+                "--server.port=0", "--server.address=127.0.0.1", "--spring.datasource.url=" + dbUrl,
+                "--sieve.index.dir=" + dir.resolve("index").toAbsolutePath(), "--logging.level.root=WARN")) {
+            String base = "http://127.0.0.1:" + app.getEnvironment().getProperty("local.server.port");
+            JsonNode materials = JSON.readTree(get(http, base + "/api/materials"));
+            int curves = 0;
+            for (JsonNode m : materials) {
+                curves += m.path("samples").size();
+            }
+            for (int i = 0; i < warmups; i++) {
+                for (String requirement : kinds.values()) {
+                    search(http, base, requirement, limit);
+                }
+            }
+            Map<String, Answer[]> answers = new LinkedHashMap<>();
+            for (int i = 0; i < runs; i++) {
+                for (Map.Entry<String, String> kind : kinds.entrySet()) {
+                    answers.computeIfAbsent(kind.getKey(), k -> new Answer[runs])[i] =
+                            search(http, base, kind.getValue(), limit);
+                }
+            }
+            for (Map.Entry<String, Answer[]> e : answers.entrySet()) {
+                Answer[] a = e.getValue();
+                double[] took = Arrays.stream(a).mapToDouble(Answer::tookMs).toArray();
+                double[] wall = Arrays.stream(a).mapToDouble(Answer::wallMs).toArray();
+                Answer last = a[a.length - 1];
+                System.out.printf(Locale.ROOT, "BENCH demo-search kind=%s materials=%d curves=%d runs=%d p50_ms=%s p95_ms=%s"
+                                + " wall_p50_ms=%s wall_p95_ms=%s judged=%d evaluated=%d rows=%d%n", e.getKey(),
+                        materials.size(), curves, runs, ms(percentile(took, 50)), ms(percentile(took, 95)),
+                        ms(percentile(wall, 50)), ms(percentile(wall, 95)), last.judged(), last.evaluated(), last.rows());
+            }
+        } finally {
+            delete(dir);
+        }
+    }
+
+    private static Answer search(HttpClient http, String base, String requirement, int limit) throws Exception {
+        String body = JSON.writeValueAsString(Map.of("requirement", requirement, "limit", limit));
+        long t0 = System.nanoTime();
+        HttpResponse<String> response = http.send(HttpRequest.newBuilder(URI.create(base + "/api/search"))
+                .header("Content-Type", "application/json").POST(HttpRequest.BodyPublishers.ofString(body)).build(),
+                HttpResponse.BodyHandlers.ofString());
+        double wallMs = (System.nanoTime() - t0) / 1e6;
+        if (response.statusCode() != 200) {
+            throw new IllegalStateException("search '" + requirement + "' answered " + response.statusCode() + ": "
+                    + response.body());
+        }
+        JsonNode answer = JSON.readTree(response.body());
+        return new Answer(answer.path("tookMs").asDouble(), wallMs, answer.path("judgedExactly").asInt(),
+                answer.path("evaluatedSamples").asInt(), answer.path("results").size());
+    }
+
+    private static void delete(Path dir) throws IOException {
+        try (Stream<Path> all = Files.walk(dir)) {
+            for (Path p : all.sorted(Comparator.reverseOrder()).toList()) {
+                Files.deleteIfExists(p);
+            }
+        }
+    }
+
+    private static String get(HttpClient http, String url) throws Exception {
+        HttpResponse<String> response = http.send(HttpRequest.newBuilder(URI.create(url)).build(),
+                HttpResponse.BodyHandlers.ofString());
+        if (response.statusCode() != 200) {
+            throw new IllegalStateException(url + " answered " + response.statusCode());
+        }
+        return response.body();
+    }
+}
