@@ -136,9 +136,10 @@ public class SearchService {
      *                      least every change committed up to that number (perhaps some later ones too)
      * @param invalidations {@link #invalidations} read at the same moment
      * @param curves        the decoded curves the store was built from, as many as the budget holds
+     * @param ordered       the materials in the order of the store's rows ({@link MaterialsRead#ORDER})
      */
     private record Snapshot(SpectralStore store, Map<Long, Material> materials, Map<Long, SampleInfo> samples,
-                            long generation, long invalidations, CurveCache curves) {
+                            long generation, long invalidations, CurveCache curves, List<Material> ordered) {
 
         /** Read no earlier than {@code other}: both counters only grow, so a later read has both at least as large. */
         boolean notOlderThan(Snapshot other) {
@@ -661,11 +662,20 @@ public class SearchService {
     private Snapshot build(Snapshot previous) {
         long invalidated = invalidations.get();
         long generation = library.generation();
-        List<Material> materials = library.findMaterials(null, null);
-        // an unchanged sample's row is carried over from the previous store (StoreRowSource says why that is
-        // sound); an invalidate() names no sample, so after one everything is read again
-        StoreRowSource curves = previous != null && previous.invalidations() == invalidated
-                ? StoreRowSource.after(library, previous.store(), previous.samples(), previous.generation(), generation)
+        // only the materials the change log names are read again, and an unchanged sample's row is carried
+        // over from the previous store (MaterialsRead and StoreRowSource say why that is sound); an
+        // invalidate() names no material, so after one everything is read again
+        Optional<List<Material>> partial = previous != null && previous.invalidations() == invalidated
+                ? MaterialsRead.after(library, previous.ordered(), previous.generation(), generation)
+                : Optional.empty();
+        if (partial.isPresent() && partial.get() == previous.ordered()) {
+            // no material changed (an imported emitter or response, say): the same store holds at the new number
+            return new Snapshot(previous.store(), previous.materials(), previous.samples(), generation, invalidated,
+                    previous.curves(), previous.ordered());
+        }
+        List<Material> materials = partial.orElseGet(() -> MaterialsRead.everything(library));
+        StoreRowSource curves = partial.isPresent()
+                ? StoreRowSource.carryingOver(library, previous.store(), previous.samples())
                 : StoreRowSource.everything(library);
         int samples = materials.stream().mapToInt(m -> m.samples().size()).sum();
         SpectralStore.Builder builder = SpectralStore.builder(SpectralStore.DEFAULT_GRID, samples);
@@ -695,6 +705,7 @@ public class SearchService {
                 }
             }
         }
-        return new Snapshot(builder.build(), Map.copyOf(byId), Map.copyOf(sampleById), generation, invalidated, cache);
+        return new Snapshot(builder.build(), Map.copyOf(byId), Map.copyOf(sampleById), generation, invalidated, cache,
+                materials);
     }
 }
