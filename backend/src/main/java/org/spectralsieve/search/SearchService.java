@@ -93,6 +93,8 @@ public class SearchService {
     private final LongConsumer beforeInstall;
     /** Heap for each snapshot's decoded curves ({@link CurveCache}); 0 reads every judged curve from the database. */
     private final long curveCacheBytes;
+    /** How many searches judge at once ({@link #limitConcurrentJudgements}); unbounded unless configured. */
+    private volatile JudgementLanes lanes = JudgementLanes.unbounded();
     /** Whether weighted clauses are screened by the store ({@link WeightedScreen}); off only to measure it. */
     private boolean screenWeighted = true;
 
@@ -116,6 +118,15 @@ public class SearchService {
         SearchService service = new SearchService(library);
         service.screenWeighted = false;
         return service;
+    }
+
+    /**
+     * At most {@code lanes} searches judge at once, the others wait their turn in arrival order; 0 puts no
+     * bound. The freshness check and a rebuild of the store run outside the lanes (docs/search-under-load.md).
+     */
+    public SearchService limitConcurrentJudgements(int lanes) {
+        this.lanes = JudgementLanes.of(lanes);
+        return this;
     }
 
     /** @param beforeInstall called with the built snapshot's generation just before it is installed (tests) */
@@ -150,6 +161,10 @@ public class SearchService {
     public Shortlist search(Requirement requirement, int limit) {
         long started = System.nanoTime();
         Snapshot s = current();
+        return lanes.run(() -> searchOn(s, requirement, limit, started));
+    }
+
+    private Shortlist searchOn(Snapshot s, Requirement requirement, int limit, long started) {
         // a confidence demand can make a wide margin unverified: the store's margins cannot pick those rows
         if (!requirement.plain() || requirement.asksConfidence()) {
             return searchExactly(s, requirement, limit, started, m -> true);
@@ -179,7 +194,8 @@ public class SearchService {
     public Shortlist search(Requirement requirement, int limit, Set<Long> withinMaterials) {
         long started = System.nanoTime();
         Set<Long> within = Set.copyOf(withinMaterials);
-        return searchExactly(current(), requirement, limit, started, m -> within.contains(m.id()));
+        Snapshot s = current();
+        return lanes.run(() -> searchExactly(s, requirement, limit, started, m -> within.contains(m.id())));
     }
 
     /**

@@ -162,7 +162,7 @@ class StoreRebuildReuseTest {
                 "", note, 1e-3, curve, file.fileName(), file.sha256()), file);
     }
 
-    private static void assertSameStore(SpectralStore actual, SpectralStore expected) {
+    static void assertSameStore(SpectralStore actual, SpectralStore expected) {
         assertThat(actual.size()).isEqualTo(expected.size());
         List<String> a = new ArrayList<>();
         List<String> e = new ArrayList<>();
@@ -183,7 +183,7 @@ class StoreRebuildReuseTest {
                 + s.isTotalGeometry(i) + " " + Arrays.toString(s.codes(i));
     }
 
-    private static int indexOf(SpectralStore s, long sampleId) {
+    static int indexOf(SpectralStore s, long sampleId) {
         for (int i = 0; i < s.size(); i++) {
             if (s.sampleId(i) == sampleId) {
                 return i;
