@@ -10,12 +10,15 @@ class SearchConfiguration {
 
     @Bean
     SearchService searchService(JooqLibraryRepository library,
-                                @Value("${sieve.search.curve-cache-mb:128}") long curveCacheMb) {
+                                @Value("${sieve.search.curve-cache-mb:128}") long curveCacheMb,
+                                @Value("${sieve.search.judgement-lanes:-1}") int judgementLanes) {
         if (curveCacheMb < 0) {
             throw new IllegalArgumentException("sieve.search.curve-cache-mb must be >= 0 (0 reads every judged curve"
                     + " from the database), was " + curveCacheMb);
         }
-        return new SearchService(library, curveCacheMb << 20);
+        // -1 (the default): one lane per core; 0: no bound (docs/search-under-load.md)
+        int lanes = judgementLanes < 0 ? Runtime.getRuntime().availableProcessors() : judgementLanes;
+        return new SearchService(library, curveCacheMb << 20).limitConcurrentJudgements(lanes);
     }
 
     @Bean

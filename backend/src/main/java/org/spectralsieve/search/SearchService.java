@@ -93,6 +93,8 @@ public class SearchService {
     private final LongConsumer beforeInstall;
     /** Heap for each snapshot's decoded curves ({@link CurveCache}); 0 reads every judged curve from the database. */
     private final long curveCacheBytes;
+    /** How many searches judge at once ({@link #limitConcurrentJudgements}); unbounded unless configured. */
+    private volatile JudgementLanes lanes = JudgementLanes.unbounded();
     /** Whether weighted clauses are screened by the store ({@link WeightedScreen}); off only to measure it. */
     private boolean screenWeighted = true;
 
@@ -118,6 +120,15 @@ public class SearchService {
         return service;
     }
 
+    /**
+     * At most {@code lanes} searches judge at once, the others wait their turn in arrival order; 0 puts no
+     * bound. The freshness check and a rebuild of the store run outside the lanes (docs/search-under-load.md).
+     */
+    public SearchService limitConcurrentJudgements(int lanes) {
+        this.lanes = JudgementLanes.of(lanes);
+        return this;
+    }
+
     /** @param beforeInstall called with the built snapshot's generation just before it is installed (tests) */
     SearchService(JooqLibraryRepository library, LongConsumer beforeInstall) {
         this(library, beforeInstall, DEFAULT_CURVE_CACHE_BYTES);
@@ -136,9 +147,10 @@ public class SearchService {
      *                      least every change committed up to that number (perhaps some later ones too)
      * @param invalidations {@link #invalidations} read at the same moment
      * @param curves        the decoded curves the store was built from, as many as the budget holds
+     * @param ordered       the materials in the order of the store's rows ({@link MaterialsRead#ORDER})
      */
     private record Snapshot(SpectralStore store, Map<Long, Material> materials, Map<Long, SampleInfo> samples,
-                            long generation, long invalidations, CurveCache curves) {
+                            long generation, long invalidations, CurveCache curves, List<Material> ordered) {
 
         /** Read no earlier than {@code other}: both counters only grow, so a later read has both at least as large. */
         boolean notOlderThan(Snapshot other) {
@@ -149,6 +161,10 @@ public class SearchService {
     public Shortlist search(Requirement requirement, int limit) {
         long started = System.nanoTime();
         Snapshot s = current();
+        return lanes.run(() -> searchOn(s, requirement, limit, started));
+    }
+
+    private Shortlist searchOn(Snapshot s, Requirement requirement, int limit, long started) {
         // a confidence demand can make a wide margin unverified: the store's margins cannot pick those rows
         if (!requirement.plain() || requirement.asksConfidence()) {
             return searchExactly(s, requirement, limit, started, m -> true);
@@ -178,7 +194,8 @@ public class SearchService {
     public Shortlist search(Requirement requirement, int limit, Set<Long> withinMaterials) {
         long started = System.nanoTime();
         Set<Long> within = Set.copyOf(withinMaterials);
-        return searchExactly(current(), requirement, limit, started, m -> within.contains(m.id()));
+        Snapshot s = current();
+        return lanes.run(() -> searchExactly(s, requirement, limit, started, m -> within.contains(m.id())));
     }
 
     /**
@@ -661,11 +678,20 @@ public class SearchService {
     private Snapshot build(Snapshot previous) {
         long invalidated = invalidations.get();
         long generation = library.generation();
-        List<Material> materials = library.findMaterials(null, null);
-        // an unchanged sample's row is carried over from the previous store (StoreRowSource says why that is
-        // sound); an invalidate() names no sample, so after one everything is read again
-        StoreRowSource curves = previous != null && previous.invalidations() == invalidated
-                ? StoreRowSource.after(library, previous.store(), previous.samples(), previous.generation(), generation)
+        // only the materials the change log names are read again, and an unchanged sample's row is carried
+        // over from the previous store (MaterialsRead and StoreRowSource say why that is sound); an
+        // invalidate() names no material, so after one everything is read again
+        Optional<List<Material>> partial = previous != null && previous.invalidations() == invalidated
+                ? MaterialsRead.after(library, previous.ordered(), previous.generation(), generation)
+                : Optional.empty();
+        if (partial.isPresent() && partial.get() == previous.ordered()) {
+            // no material changed (an imported emitter or response, say): the same store holds at the new number
+            return new Snapshot(previous.store(), previous.materials(), previous.samples(), generation, invalidated,
+                    previous.curves(), previous.ordered());
+        }
+        List<Material> materials = partial.orElseGet(() -> MaterialsRead.everything(library));
+        StoreRowSource curves = partial.isPresent()
+                ? StoreRowSource.carryingOver(library, previous.store(), previous.samples())
                 : StoreRowSource.everything(library);
         int samples = materials.stream().mapToInt(m -> m.samples().size()).sum();
         SpectralStore.Builder builder = SpectralStore.builder(SpectralStore.DEFAULT_GRID, samples);
@@ -695,6 +721,7 @@ public class SearchService {
                 }
             }
         }
-        return new Snapshot(builder.build(), Map.copyOf(byId), Map.copyOf(sampleById), generation, invalidated, cache);
+        return new Snapshot(builder.build(), Map.copyOf(byId), Map.copyOf(sampleById), generation, invalidated, cache,
+                materials);
     }
 }

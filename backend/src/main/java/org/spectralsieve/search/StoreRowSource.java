@@ -77,6 +77,15 @@ final class StoreRowSource {
     }
 
     /**
+     * Reuses the previous store's rows of unchanged samples; the caller has checked that the change log
+     * accounts for every change since it was built ({@link MaterialsRead#after}).
+     */
+    static StoreRowSource carryingOver(JooqLibraryRepository library, SpectralStore previous,
+                                       Map<Long, SampleInfo> previousSamples) {
+        return new StoreRowSource(library, null, previous, previousSamples);
+    }
+
+    /**
      * Adds the sample's row, or nothing when it has no readable curve (left out of the store as a whole build
      * leaves it out; the exact evaluator says why).
      *

@@ -134,7 +134,12 @@ class LoadBenchmark {
     private static ConfigurableApplicationContext start(String dbUrl) {
         return new SpringApplicationBuilder(SpectralSieveApplication.class).run(
                 "--server.port=0", "--server.address=127.0.0.1", "--spring.datasource.url=" + dbUrl,
-                "--logging.level.root=WARN");
+                "--logging.level.root=WARN", "--sieve.search.judgement-lanes=" + judgementLanes());
+    }
+
+    /** The switch {@code -Dbench.judgementLanes}: -1 the service's default (one per core), 0 no bound. */
+    private static int judgementLanes() {
+        return BenchStats.intProperty("bench.judgementLanes", -1);
     }
 
     /** The kinds in a fixed, shuffled order with the weights' shares: every run sends the same mix. */
@@ -195,8 +200,8 @@ class LoadBenchmark {
         long errors = outcomes.stream().filter(o -> o.failure() != null).count();
         long serverErrors = outcomes.stream().filter(o -> o.status() >= 500).count();
         System.out.printf(Locale.ROOT, "BENCH load clients=%d requests=%d errors=%d server_errors=%d imports_acknowledged=%d"
-                        + " lost=%d wall_s=%.1f throughput_per_s=%.1f%n", clients, outcomes.size(), errors, serverErrors,
-                acknowledged, lost, wallNanos / 1e9, outcomes.size() / (wallNanos / 1e9));
+                        + " lost=%d wall_s=%.1f throughput_per_s=%.1f judgement_lanes=%d%n", clients, outcomes.size(), errors,
+                serverErrors, acknowledged, lost, wallNanos / 1e9, outcomes.size() / (wallNanos / 1e9), judgementLanes());
         Map<Kind, List<Double>> byKind = new EnumMap<>(Kind.class);
         for (Outcome o : outcomes) {
             byKind.computeIfAbsent(o.kind(), k -> new ArrayList<>()).add(o.ms());

@@ -47,13 +47,14 @@ class StoreRebuildReuseTest {
 
     private JooqLibraryRepository library;
     private JooqLibraryRevisions revisions;
+    private DSLContext db;
 
     @BeforeEach
     void loadDemoLibrary() {
         JdbcDataSource dataSource = new JdbcDataSource();
         dataSource.setURL("jdbc:h2:mem:" + UUID.randomUUID() + ";DB_CLOSE_DELAY=-1");
         Flyway.configure().dataSource(dataSource).load().migrate();
-        DSLContext db = DSL.using(dataSource, SQLDialect.H2);
+        db = DSL.using(dataSource, SQLDialect.H2);
         library = new JooqLibraryRepository(db);
         revisions = new JooqLibraryRevisions(db);
         new DemoLibraryLoader(library, db, new DefaultResourceLoader(), "classpath:seed-materials/").load();
@@ -84,6 +85,47 @@ class StoreRebuildReuseTest {
         for (Requirement r : List.of(PLAIN, SOLVED, WEIGHTED)) {
             assertThat(kept.search(r, 20).rows()).isEqualTo(new SearchService(library).search(r, 20).rows());
         }
+    }
+
+    @Test
+    void aStoreRebuiltFromTheChangedMaterialsAloneEqualsOneBuiltFromTheWholeDatabase() {
+        SearchService kept = new SearchService(library);
+        kept.search(PLAIN, 20);
+
+        // a new material (named to sort between existing ones), a retired one, and one given a new sample
+        long added = library.insertMaterial(new org.spectralsieve.library.NewMaterial("m-clear-test", "M clear test sheet",
+                org.spectralsieve.library.MaterialClass.of("plastic sheet"), "illustrative", List.of(),
+                org.spectralsieve.library.Scaling.BULK, new org.spectralsieve.optics.ConstantIndex(1.49)));
+        importInto(added, 2.0, "first of a new material");
+        Material retired = library.findMaterials(null, null).get(7);
+        revisions.setRetired(JooqLibraryRevisions.Kind.MATERIAL, retired.id(), true);
+        Material grown = library.findMaterials(null, null).get(2);
+        importInto(grown.id(), 5.0, "thicker");
+
+        SpectralStore rebuilt = kept.store();
+        assertSameStore(rebuilt, new SearchService(library).store());
+        assertThat(retired.samples()).allSatisfy(x -> assertThat(indexOf(rebuilt, x.id())).isEqualTo(-1));
+        for (Requirement r : List.of(PLAIN, SOLVED, WEIGHTED)) {
+            assertThat(kept.search(r, 20).rows()).isEqualTo(new SearchService(library).search(r, 20).rows());
+        }
+        assertThat(kept.materialClasses()).isEqualTo(new SearchService(library).materialClasses());
+
+        // the material comes back: the change log names it, so it is read again
+        revisions.setRetired(JooqLibraryRevisions.Kind.MATERIAL, retired.id(), false);
+        assertSameStore(kept.store(), new SearchService(library).store());
+    }
+
+    @Test
+    void aChangeConcerningNoMaterialKeepsTheStoreAndStillCountsAsSeen() {
+        SearchService kept = new SearchService(library);
+        SpectralStore before = kept.store();
+        db.transaction(t -> { org.spectralsieve.library.LibraryGeneration.bumpConcerningNoMaterial(t.dsl()); });
+        assertThat(kept.store()).as("the same store, carried to the new number").isSameAs(before);
+
+        // a material change after it is still seen
+        importInto(library.findMaterials(null, null).get(0).id(), 3.5, "after the emitter");
+        assertSameStore(kept.store(), new SearchService(library).store());
+        assertThat(kept.store().size()).isEqualTo(before.size() + 1);
     }
 
     @Test
@@ -120,7 +162,7 @@ class StoreRebuildReuseTest {
                 "", note, 1e-3, curve, file.fileName(), file.sha256()), file);
     }
 
-    private static void assertSameStore(SpectralStore actual, SpectralStore expected) {
+    static void assertSameStore(SpectralStore actual, SpectralStore expected) {
         assertThat(actual.size()).isEqualTo(expected.size());
         List<String> a = new ArrayList<>();
         List<String> e = new ArrayList<>();
@@ -141,7 +183,7 @@ class StoreRebuildReuseTest {
                 + s.isTotalGeometry(i) + " " + Arrays.toString(s.codes(i));
     }
 
-    private static int indexOf(SpectralStore s, long sampleId) {
+    static int indexOf(SpectralStore s, long sampleId) {
         for (int i = 0; i < s.size(); i++) {
             if (s.sampleId(i) == sampleId) {
                 return i;
