@@ -45,8 +45,8 @@ class BenchTableScriptTest {
     @Test
     void colourCodesAndMavenPrefixesAreIgnoredAndARatioMustReachItsFloor() throws Exception {
         List<String> table = table(
-                "[INFO] \u001b[0mBENCH baseline-sql curves=10000 p50_ms=567.000 ratio=140",
-                "BENCH baseline-sql curves=100000 p50_ms=4100.000 ratio=90");
+                "[INFO] \u001b[0mBENCH sql-baseline curves=10000 p50_ms=567.000 ratio=140",
+                "BENCH sql-baseline curves=100000 p50_ms=4100.000 ratio=90");
         assertTrue(row(table, "ratio at 10k").contains("| ratio 140 |") && row(table, "ratio at 10k").endsWith("| met |"),
                 row(table, "ratio at 10k"));
         assertTrue(row(table, "ratio at 100k").endsWith("| not met |"), row(table, "ratio at 100k"));
