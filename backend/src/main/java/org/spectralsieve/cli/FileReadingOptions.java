@@ -56,7 +56,7 @@ final class FileReadingOptions {
     String replicates;
 
     @Option(names = "--uncertainty", paramLabel = "SD", description = "The instrument's stated uncertainty (one"
-            + " standard deviation) such as 0.5%T or 0.01A, for a file without a standard-deviation column.")
+            + " standard deviation) such as 0.5%%T or 0.01A, for a file without a standard-deviation column.")
     String uncertainty;
 
     /**

@@ -327,6 +327,26 @@ class SieveCliTest {
     }
 
     @Test
+    void noCommandsHelpLeavesAPercentSignUnformatted() {
+        // an option's description such as "0.5%T" is a format string to picocli: every command's help is
+        // printed here, and a bare "%" anywhere shows up as picocli's "Could not format" warning
+        java.io.PrintStream processErr = System.err;
+        java.io.ByteArrayOutputStream traced = new java.io.ByteArrayOutputStream();
+        StringBuilder printed = new StringBuilder();
+        try {
+            System.setErr(new java.io.PrintStream(traced, true, java.nio.charset.StandardCharsets.UTF_8));
+            for (String command : new java.util.TreeSet<>(SieveCli.commandNames())) {
+                CliRun run = CliRun.of(command, "--help");
+                printed.append(run.out()).append(run.err());
+            }
+        } finally {
+            System.setErr(processErr);
+        }
+        assertThat(printed.toString()).contains("0.5%T").doesNotContain("%%");
+        assertThat(traced.toString(java.nio.charset.StandardCharsets.UTF_8) + printed).doesNotContain("Could not format");
+    }
+
+    @Test
     void everyCommandRunsAsACommandNotAsTheWebService() {
         // a command left off a hand-kept list once started the web service instead of printing its preview
         assertThat(SieveCli.commandNames()).contains("preview", "import", "export", "backup", "restore-backup");
