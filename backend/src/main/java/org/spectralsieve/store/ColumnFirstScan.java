@@ -112,7 +112,7 @@ final class ColumnFirstScan {
             }
             keep(t);
             if (keptCount >= count && kthHighest(keptBound, keptCount, count) >= t) {
-                TopBounds top = new TopBounds(count);
+                StoreSearch.TopBounds top = new StoreSearch.TopBounds(count);
                 for (int i = 0; i < keptCount; i++) {
                     top.offer(((long) keptBound[i] << 32) | (0xFFFFFFFFL & ~kept[i]));
                 }
@@ -346,57 +346,6 @@ final class ColumnFirstScan {
                 }
             }
             return lo;
-        }
-    }
-
-    /** The best {@code count} (bound, curve) pairs, packed as in the chunk scan's per-task heaps. */
-    private static final class TopBounds {
-        final long[] heap;
-        int size;
-
-        TopBounds(int count) {
-            heap = new long[count];
-        }
-
-        void offer(long packed) {
-            if (size < heap.length) {
-                heap[size++] = packed;
-                if (size == heap.length) {
-                    Arrays.sort(heap); // a sorted array is a min-heap
-                }
-            } else if (packed > heap[0]) {
-                heap[0] = packed;
-                siftDown();
-            }
-        }
-
-        private void siftDown() {
-            int i = 0;
-            while (true) {
-                int left = 2 * i + 1;
-                int smallest = i;
-                if (left < size && heap[left] < heap[smallest]) {
-                    smallest = left;
-                }
-                if (left + 1 < size && heap[left + 1] < heap[smallest]) {
-                    smallest = left + 1;
-                }
-                if (smallest == i) {
-                    return;
-                }
-                long x = heap[smallest];
-                heap[smallest] = heap[i];
-                heap[i] = x;
-                i = smallest;
-            }
-        }
-
-        int[] curves() {
-            int[] curves = new int[size];
-            for (int i = 0; i < size; i++) {
-                curves[i] = ~(int) heap[i];
-            }
-            return curves;
         }
     }
 }

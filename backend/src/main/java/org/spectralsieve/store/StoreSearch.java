@@ -393,8 +393,9 @@ public final class StoreSearch {
     /**
      * The best {@code count} (bound, curve) pairs offered: a min-heap packed in longs as {@link #bestByBound},
      * so per-task heaps merge into the same set one heap over every curve would hold (the order is total).
+     * {@link ColumnFirstScan} keeps its best curves in one too.
      */
-    private static final class TopBounds {
+    static final class TopBounds {
         final long[] heap;
         int size;
 
