@@ -1,25 +1,38 @@
 package org.spectralsieve.search;
 
+import java.util.ArrayList;
+import java.util.List;
 import java.util.Map;
 import java.util.Optional;
 import org.spectralsieve.requirement.Direction;
 import org.spectralsieve.requirement.NominalThickness;
-import org.spectralsieve.requirement.ThicknessSpec;
 import org.spectralsieve.requirement.Requirement;
+import org.spectralsieve.requirement.SeeThrough;
 import org.spectralsieve.requirement.StackLayer;
+import org.spectralsieve.requirement.ThicknessSpec;
 import org.spectralsieve.requirement.WeightedClause;
 import org.spectralsieve.store.SpectralStore;
 import org.spectralsieve.store.WeightedScreen;
 
 /**
  * The store's proven misses of weighted clauses ({@link WeightedScreen}), added to those of the every-point
- * clauses under the same rules (docs/weighted-screening.md): a weighted figure is a weighted mean of T, so
- * it falls wherever T falls pointwise — as a bulk sample thickens (a pass missed as measured stays missed
- * at or above the measured thickness, a block at or below it: {@link SearchService#keepsProof}) and behind
- * a layer (the stack's T is at most the part's, so only passes, and only where the layer's curve spans the
- * figure's integration points, so the stack integrates over the same points).
+ * clauses (docs/weighted-screening.md, "Why a bound is a proof").
+ *
+ * <p>A sample judged on its measured curve (as measured, at its own thickness, or a part that is never
+ * rescaled) keeps the rules of {@link SearchService#keepsProof}. A bulk sample judged on its rescaled curve
+ * at a thickness d in [lo, hi] (one asked thickness: lo = hi; a solve: the asked range, which holds the
+ * solver's recommended thickness or best stock size wherever the sample's span cuts it) is bounded by two
+ * monotone families: P(x) bounds every pass margin at any judged d ≥ x (T only falls as the sample thickens;
+ * thinner than measured through {@link WeightedScreen.Query#thinned}), Q(x) every block margin at any judged
+ * d ≤ x ({@link WeightedScreen.Query#thickened}). For a split s in [lo, hi], every d in [lo, s] has worst
+ * margin ≤ min(P(lo), Q(s)) and every d in [s, hi] ≤ min(P(s), Q(hi)); so the larger of the two bounds the
+ * sample's exact worst margin wherever the judgement lands, and it is a proven miss when that is negative.
+ * Which split is tried changes only how often a miss is proven, never whether a proof is sound.
  */
 final class WeightedMisses {
+
+    /** Splits tried inside a solved range, geometric between its ends. */
+    private static final int SPLITS = 7;
 
     private WeightedMisses() {
     }
@@ -38,24 +51,121 @@ final class WeightedMisses {
                     Optional<StackLayer> layer) {
         Optional<double[]> layerRange = layer.map(l -> new double[] {l.curve().minWavelengthNm(), l.curve().maxWavelengthNm()});
         WeightedScreen screen = store.weightedScreen();
+        List<WeightedScreen.Query> queries = new ArrayList<>();
+        List<Boolean> seeThrough = new ArrayList<>();
         for (var clause : requirement.clauses()) {
-            if (!(clause instanceof WeightedClause w) || layer.isPresent() && w.direction() != Direction.PASS) {
-                continue;
+            if (clause instanceof WeightedClause w && (layer.isEmpty() || w.direction() == Direction.PASS)) {
+                queries.add(screen.query(store, w, layerRange));
+                // on a diffuse sample a see-through clause is unverified (SeeThrough), never a miss
+                seeThrough.add(SeeThrough.needsRegular(w) && !requirement.acceptsTotalTransmittance());
             }
-            double[] bounds = screen.marginBounds(w, layerRange);
-            ThicknessSpec spec = requirement.thickness();
-            double[] thinned = spec.kind() == ThicknessSpec.Kind.AS_MEASURED ? null
-                    : screen.marginBoundsThinned(store, w, layerRange, spec.minMm());
-            for (int curve = 0; curve < store.size(); curve++) {
-                double bound = bounds[curve];
-                double d0 = store.thicknessMm(curve);
-                if (bound < 0 && SearchService.keepsProof(w.direction(), spec, d0, store.isBulk(curve))) {
-                    provenMiss.merge(store.sampleId(curve), bound, Math::min);
-                } else if (thinned != null && thinned[curve] < 0 && !judgedAsMeasured(spec, d0)) {
-                    // a bulk sample judged thinner than measured: the pass bound thinned to the thinnest asked
-                    provenMiss.merge(store.sampleId(curve), thinned[curve], Math::min);
+        }
+        if (queries.isEmpty()) {
+            return;
+        }
+        ThicknessSpec spec = requirement.thickness();
+        Bounds bounds = new Bounds(queries, seeThrough);
+        for (int curve = 0; curve < store.size(); curve++) {
+            double d0 = store.thicknessMm(curve);
+            bounds.curve(curve, store.isTotalGeometry(curve));
+            double bound;
+            if (spec.kind() == ThicknessSpec.Kind.AS_MEASURED || judgedAsMeasured(spec, d0) || !store.isBulk(curve)
+                    || !(d0 > 0)) {
+                bound = bounds.onMeasuredCurve(spec, d0, store.isBulk(curve));
+            } else {
+                bound = bounds.rescaled(spec.minMm(), spec.kind() == ThicknessSpec.Kind.FIXED ? spec.minMm() : spec.maxMm());
+            }
+            if (bound < 0) {
+                provenMiss.merge(store.sampleId(curve), bound, Math::min);
+            }
+        }
+    }
+
+    /** The clauses' bounds for one curve at a time. */
+    private static final class Bounds {
+
+        private final List<WeightedScreen.Query> queries;
+        private final List<Boolean> seeThrough;
+        private int curve;
+        private boolean total;
+
+        Bounds(List<WeightedScreen.Query> queries, List<Boolean> seeThrough) {
+            this.queries = queries;
+            this.seeThrough = seeThrough;
+        }
+
+        void curve(int curve, boolean totalGeometry) {
+            this.curve = curve;
+            this.total = totalGeometry;
+        }
+
+        private boolean skipped(int i) {
+            return total && seeThrough.get(i);
+        }
+
+        /** Judged on the measured curve (or proofs that carry over to it, {@link SearchService#keepsProof}). */
+        double onMeasuredCurve(ThicknessSpec spec, double d0, boolean bulk) {
+            double bound = Double.POSITIVE_INFINITY;
+            for (int i = 0; i < queries.size(); i++) {
+                WeightedScreen.Query q = queries.get(i);
+                if (!skipped(i) && SearchService.keepsProof(q.passes() ? Direction.PASS : Direction.BLOCK, spec, d0, bulk)) {
+                    bound = Math.min(bound, q.asMeasured(curve));
                 }
             }
+            return bound;
+        }
+
+        /** P(x): an upper bound on every pass margin at any judged thickness ≥ x. */
+        private double pass(double x) {
+            double bound = Double.POSITIVE_INFINITY;
+            for (int i = 0; i < queries.size(); i++) {
+                WeightedScreen.Query q = queries.get(i);
+                if (q.passes() && !skipped(i)) {
+                    bound = Math.min(bound, Math.min(q.thinned(curve, x), q.asMeasuredIfNotThinner(curve, x)));
+                }
+            }
+            return bound;
+        }
+
+        /** Q(x): an upper bound on every block margin at any judged thickness ≤ x. */
+        private double block(double x) {
+            double bound = Double.POSITIVE_INFINITY;
+            for (int i = 0; i < queries.size(); i++) {
+                WeightedScreen.Query q = queries.get(i);
+                if (!q.passes() && !skipped(i)) {
+                    bound = Math.min(bound, q.thickened(curve, x));
+                }
+            }
+            return bound;
+        }
+
+        /** A bulk sample judged on its rescaled curve somewhere in [lo, hi]: see the class comment. */
+        double rescaled(double lo, double hi) {
+            double whole = Math.min(pass(lo), block(hi));
+            if (whole < 0 || !(hi > lo)) {
+                return whole;
+            }
+            // a split proves more only where both the pass is missed above it and the block below it
+            double passAtHi = pass(hi);
+            double blockAtLo = block(lo);
+            if (!(passAtHi < 0) || !(blockAtLo < 0)) {
+                return whole;
+            }
+            double passAtLo = pass(lo);
+            double blockAtHi = block(hi);
+            double ratio = hi / lo;
+            for (int j = 1; j <= SPLITS; j++) {
+                double s = lo * Math.pow(ratio, (double) j / (SPLITS + 1));
+                double left = Math.min(passAtLo, block(s));
+                if (!(left < 0)) {
+                    break; // the block side only weakens as the split moves up
+                }
+                double right = Math.min(pass(s), blockAtHi);
+                if (right < 0) {
+                    return Math.max(left, right);
+                }
+            }
+            return whole;
         }
     }
 }

@@ -50,10 +50,14 @@ public final class WeightedScreen {
     public static final int BYTES_PER_CURVE = 2 * BINS + Short.BYTES;
 
     private static final double[] T_OF_CODE = new double[256];
+    /** ln of {@link #T_OF_CODE} (−∞ for code 0), for powers of bin values. */
+    private static final double[] LN_T_OF_CODE = new double[256];
 
     static {
+        LN_T_OF_CODE[0] = Double.NEGATIVE_INFINITY;
         for (int c = 1; c < 256; c++) {
             T_OF_CODE[c] = Math.pow(10, -(c - OFFSET) * STEP);
+            LN_T_OF_CODE[c] = Math.log(T_OF_CODE[c]);
         }
     }
 
@@ -83,100 +87,260 @@ public final class WeightedScreen {
      *                   integrates over the same points (a pass only: the stack's T is at most the curve's)
      */
     public double[] marginBounds(WeightedClause clause, Optional<double[]> layerRange) {
-        int n = rangeOfCurve.length;
-        double[] out = new double[n];
-        Arrays.fill(out, Double.POSITIVE_INFINITY);
-        if (layerRange.isPresent() && clause.direction() != Direction.PASS) {
-            return out;
-        }
-        boolean pass = clause.direction() == Direction.PASS;
-        byte[][] codes = pass ? brightest : darkest;
-        double threshold = clause.thresholdT();
-        double floor = Math.min(Curve.ABSORBANCE_FLOOR_T, threshold);
-        Map<Integer, double[]> sharesOfRange = new HashMap<>();
-        for (int curve = 0; curve < n; curve++) {
-            int range = rangeOfCurve[curve];
-            if (range < 0) {
-                continue;
-            }
-            double[] shares = sharesOfRange.computeIfAbsent(range,
-                    r -> binShares(clause.weighting(), ranges.get(r), layerRange));
-            if (shares.length == 0) {
-                continue;
-            }
-            double mean = 0;
-            boolean bounded = true;
-            for (int b = 0; b < BINS && bounded; b++) {
-                if (shares[b] > 0) {
-                    int code = codes[b][curve] & 0xFF;
-                    bounded = code != 0 || !pass;
-                    mean += shares[b] * T_OF_CODE[code];
-                }
-            }
-            if (!bounded) {
-                continue;
-            }
-            out[curve] = pass ? Math.log10(Math.max(mean * (1 + SLACK), floor) / threshold)
-                    : Math.log10(threshold / Math.max(mean * (1 - SLACK), floor));
+        Query query = new Query(null, clause, layerRange);
+        double[] out = new double[rangeOfCurve.length];
+        for (int curve = 0; curve < out.length; curve++) {
+            out[curve] = query.asMeasured(curve);
         }
         return out;
     }
 
     /**
      * An upper bound on the exact pass margin of every bulk curve judged at or above {@code thinnestMm}, for
-     * curves measured thicker than that (the others: +∞; {@link #marginBounds} serves them). Why: a thinner
-     * cut passes more, but a slab's T is at most its internal transmittance K ((1 − R)²K / (1 − R²K²) ≤ K),
-     * K0 ≤ T0 / (1 − R)² at the measured thickness, and K = K0^(d/d0); a reading the data cannot resolve keeps
-     * its T0 (flat in d), which is below that too. So each point thinned to d has T ≤ min(1, (T0 / (1 − R)²)^(d/d0)),
-     * rising in T0 and R: the brightest of a bin (which holds the points a value inside it interpolates from)
-     * and the largest R of the curve's index over its range bound every value of the thinned curve in the bin.
+     * curves measured thicker than that (the others: +∞; {@link #marginBounds} serves them); see
+     * {@link Query#thinned}.
      */
     public double[] marginBoundsThinned(SpectralStore store, WeightedClause clause, Optional<double[]> layerRange,
                                         double thinnestMm) {
-        int n = rangeOfCurve.length;
-        double[] out = new double[n];
-        Arrays.fill(out, Double.POSITIVE_INFINITY);
-        if (clause.direction() != Direction.PASS || !(thinnestMm > 0)) {
-            return out;
+        Query query = new Query(store, clause, layerRange);
+        double[] out = new double[rangeOfCurve.length];
+        for (int curve = 0; curve < out.length; curve++) {
+            out[curve] = query.thinned(curve, thinnestMm);
         }
-        double threshold = clause.thresholdT();
-        double floor = Math.min(Curve.ABSORBANCE_FLOOR_T, threshold);
-        Map<Integer, double[]> sharesOfRange = new HashMap<>();
-        Map<List<Integer>, Double> surface = new HashMap<>();
-        for (int curve = 0; curve < n; curve++) {
+        return out;
+    }
+
+    /**
+     * An upper bound on the exact block margin of every bulk curve judged on its rescaled curve at or below
+     * {@code thickestMm} (other curves: +∞); see
+     * {@link Query#thickened}.
+     */
+    public double[] marginBoundsThickened(SpectralStore store, WeightedClause clause, double thickestMm) {
+        Query query = new Query(store, clause, Optional.empty());
+        double[] out = new double[rangeOfCurve.length];
+        for (int curve = 0; curve < out.length; curve++) {
+            out[curve] = query.thickened(curve, thickestMm);
+        }
+        return out;
+    }
+
+    /** One weighted clause prepared for screening curve by curve: bin shares per curve range, surfaces per index. */
+    public Query query(SpectralStore store, WeightedClause clause, Optional<double[]> layerRange) {
+        return new Query(store, clause, layerRange);
+    }
+
+    /**
+     * Bounds on one weighted clause's exact margin, curve by curve (docs/weighted-screening.md, "Why a bound is
+     * a proof"). Each method returns an upper bound on the exact margin, or +∞ where it can say nothing.
+     * Not thread-safe (it caches per range); one per search and clause.
+     */
+    public final class Query {
+
+        private static final double[] NOT_AVAILABLE = new double[0];
+
+        private final SpectralStore store;
+        private final WeightedClause clause;
+        private final Optional<double[]> layerRange;
+        private final boolean pass;
+        private final double threshold;
+        private final double floor;
+        private final double[][] sharesOfRange;
+        private final Map<Long, Double> largestR = new HashMap<>();
+
+        private Query(SpectralStore store, WeightedClause clause, Optional<double[]> layerRange) {
+            this.store = store;
+            this.clause = clause;
+            this.layerRange = layerRange;
+            this.pass = clause.direction() == Direction.PASS;
+            this.threshold = clause.thresholdT();
+            this.floor = Math.min(Curve.ABSORBANCE_FLOOR_T, threshold);
+            this.sharesOfRange = new double[ranges.size()][];
+        }
+
+        public boolean passes() {
+            return pass;
+        }
+
+        /** The bin shares of the figure for the curve's range; empty when the curve is not screened or the figure not bounded. */
+        private double[] shares(int curve) {
             int range = rangeOfCurve[curve];
-            double d0 = store.thicknessMm(curve);
-            if (range < 0 || !store.isBulk(curve) || !(d0 > thinnestMm)) {
-                continue;
+            if (range < 0) {
+                return NOT_AVAILABLE;
             }
-            double[] shares = sharesOfRange.computeIfAbsent(range,
-                    r -> binShares(clause.weighting(), ranges.get(r), layerRange));
+            double[] shares = sharesOfRange[range];
+            if (shares == null) {
+                shares = binShares(clause.weighting(), ranges.get(range), layerRange);
+                sharesOfRange[range] = shares;
+            }
+            return shares;
+        }
+
+        /**
+         * The curve as measured. Behind a layer a block has no bound (the layer may do the blocking). Pass:
+         * Σ share·brightest bounds U; block: Σ share·darkest bounds L.
+         */
+        public double asMeasured(int curve) {
+            if (layerRange.isPresent() && !pass) {
+                return Double.POSITIVE_INFINITY;
+            }
+            double[] shares = shares(curve);
             if (shares.length == 0) {
-                continue;
+                return Double.POSITIVE_INFINITY;
             }
-            int model = store.indexModelOf(curve);
-            double r = surface.computeIfAbsent(List.of(model, range),
-                    k -> largestReflectance(store.indexModel(model), ranges.get(range)));
+            byte[][] codes = pass ? brightest : darkest;
+            double mean = 0;
+            for (int b = 0; b < BINS; b++) {
+                if (shares[b] > 0) {
+                    int code = codes[b][curve] & 0xFF;
+                    if (code == 0 && pass) {
+                        return Double.POSITIVE_INFINITY;
+                    }
+                    mean += shares[b] * T_OF_CODE[code];
+                }
+            }
+            return pass ? Math.log10(Math.max(mean * (1 + SLACK), floor) / threshold)
+                    : Math.log10(threshold / Math.max(mean * (1 - SLACK), floor));
+        }
+
+        /** {@link #asMeasured} for a pass judged at or above {@code thinnestMm} where that is not thinner than measured (else +∞). */
+        public double asMeasuredIfNotThinner(int curve, double thinnestMm) {
+            return thinnestMm >= store.thicknessMm(curve) ? asMeasured(curve) : Double.POSITIVE_INFINITY;
+        }
+
+        /**
+         * A pass of a bulk curve judged at or above {@code thinnestMm}, for curves measured thicker than that
+         * (others: +∞). Why: a thinner cut passes more, but a slab's T is at most its internal transmittance K
+         * ((1 − R)²K / (1 − R²K²) ≤ K), K0 ≤ T0 / (1 − R)² at the measured thickness, and K = K0^(d/d0); a
+         * reading the data cannot resolve keeps its T0 (flat in d), which is below that too. So each point
+         * thinned to d has T ≤ min(1, (T0 / (1 − R)²)^(d/d0)), rising in T0 and R; the map is a power of T0, so
+         * it commutes with the absorbance interpolation between points: the bin's brightest bounds every value
+         * of the thinned curve in the bin.
+         */
+        public double thinned(int curve, double thinnestMm) {
+            double d0 = store.thicknessMm(curve);
+            if (!pass || !(thinnestMm > 0) || !store.isBulk(curve) || !(d0 > thinnestMm)) {
+                return Double.POSITIVE_INFINITY;
+            }
+            double[] shares = shares(curve);
+            double r = shares.length == 0 ? 1 : largestReflectance(curve);
             if (!(r < 1)) {
-                continue;
+                return Double.POSITIVE_INFINITY;
             }
             double k = thinnestMm / d0;
-            double loss = (1 - r) * (1 - r);
+            double logLoss = Math.log(((1 - r) * (1 - r)) / (1 + SLACK));
             double mean = 0;
-            boolean bounded = true;
-            for (int b = 0; b < BINS && bounded; b++) {
+            for (int b = 0; b < BINS; b++) {
                 if (shares[b] > 0) {
                     int code = brightest[b][curve] & 0xFF;
-                    bounded = code != 0;
-                    double t = Math.min(1, Math.pow(T_OF_CODE[code] * (1 + SLACK) / loss, k));
+                    if (code == 0) {
+                        return Double.POSITIVE_INFINITY;
+                    }
+                    double t = Math.min(1, Math.exp(k * (LN_T_OF_CODE[code] - logLoss)) * (1 + SLACK));
                     mean += shares[b] * Math.max(t, Curve.ABSORBANCE_FLOOR_T);
                 }
             }
-            if (bounded) {
-                out[curve] = Math.log10(Math.max(mean * (1 + SLACK), floor) / threshold);
-            }
+            return Math.log10(Math.max(mean * (1 + SLACK), floor) / threshold);
         }
-        return out;
+
+        /**
+         * A block of a bulk curve judged on its rescaled curve (the judgement always rescales a bulk sample it
+         * judges at an asked thickness, even at the measured one) at or below {@code thickestMm}, alone (no
+         * layer); below the measured thickness as at it (k = 1). Why, with k = d/d0 ≥ 1 and R ≤ R_max the surfaces' Fresnel
+         * reflectance: a resolved reading has T0 = (1 − R)²K0/(1 − R²K0²) ≤ K0(1 − R)/(1 + R), so
+         * K0 ≥ T0(1 + R)/(1 − R), and T(d) ≥ (1 − R)²K0^k ≥ (1 − R)²((1 + R)/(1 − R))^k·T0^k ≥ (1 − R²)·T0^k;
+         * a reading the data cannot resolve keeps min(T0, 1) while d stays within its far thickness, which is
+         * at least d0·{@link #leastFarFactor}(R_max) (beyond it the rescaled point is a bound, read as 0 by L).
+         * With B ≥ 1 and at least every reading involved ({@link #lnBrightestOfCurve}, so T0/B ≤ 1): T(d) ≥ c·(T0/B)^k,
+         * c = 1 − R_max², at every point, and as a power of T0 it commutes with the absorbance interpolation
+         * (floors included: c·(ε/B)^k ≤ ε), so every value of L at d in the bin is at least c·(darkest/B)^k.
+         * L only falls as d grows, so the bound holds for every thinner judged thickness too.
+         */
+        public double thickened(int curve, double thickestMm) {
+            double d0 = store.thicknessMm(curve);
+            if (pass || layerRange.isPresent() || !store.isBulk(curve) || !(d0 > 0) || !(thickestMm > 0)) {
+                return Double.POSITIVE_INFINITY;
+            }
+            double[] shares = shares(curve);
+            double r = shares.length == 0 ? 1 : largestReflectance(curve);
+            if (!(r < 1)) {
+                return Double.POSITIVE_INFINITY; // the exact rescaling fails on this index: unverified, never a miss
+            }
+            double k = Math.max(1, thickestMm / d0);
+            if (!(k <= leastFarFactor(r) * (1 - 1e-9))) {
+                return Double.POSITIVE_INFINITY; // a clear reading may have turned into a bound (L reads it as 0)
+            }
+            double lnB = lnBrightestOfCurve(curve);
+            if (Double.isNaN(lnB)) {
+                return Double.POSITIVE_INFINITY;
+            }
+            // at or below the measured thickness a resolved reading keeps T0 (the rescaled curve at d0 is the
+            // measured one, to rounding), so no surface factor; an unresolved one keeps min(T0, 1) ≥ T0/B
+            double c = k > 1 ? 1 - r * r : 1;
+            double mean = 0;
+            for (int b = 0; b < BINS; b++) {
+                if (shares[b] > 0) {
+                    int dark = darkest[b][curve] & 0xFF;
+                    if (dark != 0) {
+                        mean += shares[b] * c * Math.exp(k * (LN_T_OF_CODE[dark] - lnB));
+                    }
+                }
+            }
+            return Math.log10(threshold / Math.max(mean * (1 - SLACK), floor));
+        }
+
+        /**
+         * ln B, B = max(1, the brightest of every bin the curve's range meets): at least every reading of the
+         * curve a value inside the bins interpolates from (each such point lies in a bin or is the neighbour
+         * just outside the bin of the point next to it, which the brightest holds); NaN when a bin in range
+         * has no bound (a reading above the code's top).
+         */
+        private double lnBrightestOfCurve(int curve) {
+            double[] r = ranges.get(rangeOfCurve[curve]);
+            double ln = 0;
+            for (int b = 0; b < BINS; b++) {
+                double from = FIRST_NM + b * BIN_NM;
+                if (from > r[1] || from + BIN_NM < r[0]) {
+                    continue;
+                }
+                int code = brightest[b][curve] & 0xFF;
+                if (code == 0) {
+                    return Double.NaN;
+                }
+                ln = Math.max(ln, LN_T_OF_CODE[code]);
+            }
+            return ln;
+        }
+
+        private double largestReflectance(int curve) {
+            int model = store.indexModelOf(curve);
+            int range = rangeOfCurve[curve];
+            long key = ((long) model << 32) | range;
+            Double hit = largestR.get(key);
+            if (hit == null) {
+                hit = WeightedScreen.largestReflectance(store.indexModel(model), ranges.get(range));
+                largestR.put(key, hit);
+            }
+            return hit;
+        }
+    }
+
+    /**
+     * A lower bound on the far factor ({@link org.spectralsieve.optics.SlabReading#farFactor}) of every
+     * reading the data cannot resolve on surfaces of Fresnel reflectance at most {@code rMax}. Such a reading r
+     * is at least the lossless ceiling C = (1 − R)/(1 + R) ≥ (1 − R_max)/(1 + R_max) minus the reading's
+     * uncertainty u; its hidden internal transmittance is the slab inversion of r − u with the effective
+     * surface R' = (1 − r)/(1 + r), which is at least (r − u)(1 + R')/(1 − R') = 1 − u/r (the inversion's
+     * K ≥ T(1 + R)/(1 − R)); so its hidden absorption is at most −log10(1 − u/r) decades and its far factor at
+     * least {@link org.spectralsieve.optics.SlabReading#RESOLVABLE_DECADES} over that (and at least 1).
+     */
+    static double leastFarFactor(double rMax) {
+        double u = org.spectralsieve.optics.SlabReading.READING_UNCERTAINTY;
+        double least = (1 - rMax) / (1 + rMax) - u;
+        if (!(least > u)) {
+            return 1;
+        }
+        double hidden = -Math.log10(1 - u / least);
+        return Math.max(1, org.spectralsieve.optics.SlabReading.RESOLVABLE_DECADES / hidden);
     }
 
     /**
