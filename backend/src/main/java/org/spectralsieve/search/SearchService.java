@@ -97,6 +97,8 @@ public class SearchService {
     private volatile JudgementLanes lanes = JudgementLanes.unbounded();
     /** Whether weighted clauses are screened by the store ({@link WeightedScreen}); off only to measure it. */
     private boolean screenWeighted = true;
+    /** Whether the weighted screen uses its earlier, weaker rule ({@link WeightedMisses#addEarlier}); benchmarks only. */
+    private boolean earlierWeightedScreen;
 
     public SearchService(JooqLibraryRepository library) {
         this(library, DEFAULT_CURVE_CACHE_BYTES);
@@ -117,6 +119,17 @@ public class SearchService {
     public static SearchService withoutWeightedScreen(JooqLibraryRepository library) {
         SearchService service = new SearchService(library);
         service.screenWeighted = false;
+        return service;
+    }
+
+    /**
+     * A service whose weighted screen proves misses by the earlier rule (passes as measured, thinned and behind
+     * a layer; no block judged thicker than measured, no split of a solved range): the same answers; for
+     * benchmarks that time the rules side by side (docs/weighted-screening.md).
+     */
+    public static SearchService withEarlierWeightedScreen(JooqLibraryRepository library) {
+        SearchService service = new SearchService(library);
+        service.earlierWeightedScreen = true;
         return service;
     }
 
@@ -278,7 +291,9 @@ public class SearchService {
         Optional<StackLayer> layer = requirement.layer().map(l -> resolveLayer(l, s));
         boolean diffuseLayer = layer.map(l -> s.samples().get(l.sampleId()).geometry() == Geometry.TOTAL).orElse(false);
         Map<Long, Double> provenMiss = provenMisses(s, requirement, layer);
-        if (screenWeighted) {
+        if (screenWeighted && earlierWeightedScreen) {
+            WeightedMisses.addEarlier(provenMiss, s.store(), requirement, layer);
+        } else if (screenWeighted) {
             WeightedMisses.add(provenMiss, s.store(), requirement, layer);
         }
         List<MaterialEvaluation> exact = new ArrayList<>();

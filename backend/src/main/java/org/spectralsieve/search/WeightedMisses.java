@@ -81,6 +81,40 @@ final class WeightedMisses {
         }
     }
 
+    /**
+     * The rule before blocks were bounded thicker than measured and solved ranges were split: passes as
+     * measured, thinned and behind a layer, blocks only where the measured curve's proof carries over
+     * ({@link SearchService#keepsProof}). Kept so a benchmark can time both side by side
+     * ({@link SearchService#withEarlierWeightedScreen}); answers are the same, only fewer misses are proven.
+     */
+    static void addEarlier(Map<Long, Double> provenMiss, SpectralStore store, Requirement requirement,
+                           Optional<StackLayer> layer) {
+        Optional<double[]> layerRange = layer.map(l -> new double[] {l.curve().minWavelengthNm(), l.curve().maxWavelengthNm()});
+        WeightedScreen screen = store.weightedScreen();
+        for (var clause : requirement.clauses()) {
+            if (!(clause instanceof WeightedClause w) || layer.isPresent() && w.direction() != Direction.PASS) {
+                continue;
+            }
+            boolean seeThrough = SeeThrough.needsRegular(w) && !requirement.acceptsTotalTransmittance();
+            double[] bounds = screen.marginBounds(w, layerRange);
+            ThicknessSpec spec = requirement.thickness();
+            double[] thinned = spec.kind() == ThicknessSpec.Kind.AS_MEASURED ? null
+                    : screen.marginBoundsThinned(store, w, layerRange, spec.minMm());
+            for (int curve = 0; curve < store.size(); curve++) {
+                double bound = bounds[curve];
+                double d0 = store.thicknessMm(curve);
+                if (seeThrough && store.isTotalGeometry(curve)) {
+                    continue; // unverified on a diffuse sample (SeeThrough), never a miss
+                }
+                if (bound < 0 && SearchService.keepsProof(w.direction(), spec, d0, store.isBulk(curve))) {
+                    provenMiss.merge(store.sampleId(curve), bound, Math::min);
+                } else if (thinned != null && thinned[curve] < 0 && !judgedAsMeasured(spec, d0)) {
+                    provenMiss.merge(store.sampleId(curve), thinned[curve], Math::min);
+                }
+            }
+        }
+    }
+
     /** The clauses' bounds for one curve at a time. */
     private static final class Bounds {
 

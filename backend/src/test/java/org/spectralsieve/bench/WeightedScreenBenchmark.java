@@ -44,7 +44,10 @@ import org.springframework.core.io.DefaultResourceLoader;
  * library samples, three per material, so the layer's glass resolves as in the demo). Variants of one
  * requirement: {@code measured}, {@code solve} (thickness 1 to 6 mm), {@code layer} (behind 4 mm clear
  * float glass). Switches: {@code -Dbench.screenSizes=10000} (empty: demo only), {@code -Dbench.screenRuns=21}
- * (demo), {@code -Dbench.screenSyntheticRuns=5}, {@code -Dbench.limit=20}.
+ * (demo), {@code -Dbench.screenSyntheticRuns=5}, {@code -Dbench.limit=20}. Screens timed side by side, interleaved:
+ * {@code on} (the current rule), {@code earlier} (the rule before blocks were bounded thicker than measured and
+ * solved ranges split, {@link SearchService#withEarlierWeightedScreen}; {@code -Dbench.screenSkipEarlier=true}
+ * leaves it out) and {@code off} ({@code -Dbench.screenSkipOff=true} leaves it out).
  */
 class WeightedScreenBenchmark {
 
@@ -70,7 +73,12 @@ class WeightedScreenBenchmark {
                              int warmUps, int runs) {
         Map<String, SearchService> services = new LinkedHashMap<>();
         services.put("on", new SearchService(library));
-        services.put("off", SearchService.withoutWeightedScreen(library));
+        if (!Boolean.getBoolean("bench.screenSkipEarlier")) {
+            services.put("earlier", SearchService.withEarlierWeightedScreen(library));
+        }
+        if (!Boolean.getBoolean("bench.screenSkipOff")) {
+            services.put("off", SearchService.withoutWeightedScreen(library));
+        }
         for (int i = 0; i < warmUps; i++) {
             for (SearchService service : services.values()) {
                 variants.values().forEach(r -> service.search(r, limit)); // JIT, each service's store

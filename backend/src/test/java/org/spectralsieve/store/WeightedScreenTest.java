@@ -126,6 +126,96 @@ class WeightedScreenTest {
     }
 
     @Test
+    void thickenedBlockBoundsHoldTheExactLowerFigureOfTheRescaledCurve() {
+        // the exact rescaling is ThicknessRescaler (Fresnel surfaces and Beer–Lambert, checked against
+        // REFERENCE §7 in its own tests; readings at the ceiling per SlabReading); the bound is arithmetic on it.
+        // Random curves with zeros, points below detection and readings above 1, and clear curves at the
+        // lossless ceiling, which turn into bounds beyond their far thickness (read as 0 by the lower end)
+        Random random = new Random(20261207L);
+        List<Curve> curves = new ArrayList<>();
+        List<RefractiveIndex> indices = List.of(new ConstantIndex(1.49), new ConstantIndex(1.585), new ConstantIndex(1.46));
+        SpectralStore.Builder builder = SpectralStore.builder(SpectralStore.DEFAULT_GRID, 8);
+        StoredMaterial material = new StoredMaterial(1, "illustrative sheet", "plastic sheet", MadeThicknesses.of(
+                List.of(), Double.NaN, Double.NaN, List.of(2.0)));
+        for (int i = 0; i < 150; i++) {
+            Curve curve = i % 5 == 4 ? clearCurve(random) : randomCurve(random);
+            curves.add(curve);
+            builder.add(i + 1, material, 2.0, true, false, indices.get(i % 3), curve);
+        }
+        SpectralStore store = builder.build();
+        int proven = 0;
+        int bounded = 0;
+        for (Weighting weighting : WEIGHTINGS) {
+            for (double thickest : new double[] {1, 2, 3, 5, 8, 12}) {
+                double[] block = store.weightedScreen().marginBoundsThickened(store, new WeightedClause(Direction.BLOCK,
+                        1e-6, ThresholdUnit.FRACTION, weighting, "block"), thickest);
+                double[] blockAtTenth = store.weightedScreen().marginBoundsThickened(store, new WeightedClause(
+                        Direction.BLOCK, 0.1, ThresholdUnit.FRACTION, weighting, "block tenth"), thickest);
+                for (int i = 0; i < curves.size(); i++) {
+                    Curve rescaled = ThicknessRescaler.rescale(curves.get(i), 2.0, thickest, indices.get(i % 3));
+                    Figure upper = weighting.figure(BoundedCurves.upperBounds(rescaled));
+                    if (!upper.available()) {
+                        continue;
+                    }
+                    double l = weighting.figure(BoundedCurves.lowerBounds(rescaled)).value().orElse(0);
+                    assertThat(block[i]).as(weighting + " curve " + i + " at " + thickest + " mm")
+                            .isGreaterThanOrEqualTo(Math.log10(1e-6 / Math.max(l, Math.min(Curve.ABSORBANCE_FLOOR_T, 1e-6))));
+                    bounded += Double.isFinite(block[i]) ? 1 : 0;
+                    if (blockAtTenth[i] < 0) {
+                        proven++;
+                        assertThat(l).isGreaterThan(0.1);
+                    }
+                }
+            }
+        }
+        assertThat(bounded).as("not vacuous").isGreaterThan(WEIGHTINGS.size() * curves.size() * 3);
+        assertThat(proven).as("not vacuous").isGreaterThan(WEIGHTINGS.size() * curves.size() / 2);
+    }
+
+    @Test
+    void thickenedBoundsSayNothingOfPartsThatAreNeverRescaled() {
+        // films, coated parts and diffuse samples are judged only as measured (docs/geometry-and-edges.md)
+        SpectralStore.Builder builder = SpectralStore.builder(SpectralStore.DEFAULT_GRID, 2);
+        StoredMaterial material = new StoredMaterial(1, "illustrative film", "film", MadeThicknesses.of(
+                List.of(), Double.NaN, Double.NaN, List.of(0.1)));
+        Curve clear = clearCurve(new Random(3));
+        builder.add(1, material, 0.1, false, false, ConstantIndex.WHEN_UNRECORDED, clear);
+        builder.add(2, material, 0.1, false, true, ConstantIndex.WHEN_UNRECORDED, clear);
+        SpectralStore store = builder.build();
+        double[] block = store.weightedScreen().marginBoundsThickened(store, new WeightedClause(Direction.BLOCK, 0.01,
+                ThresholdUnit.FRACTION, Weighting.luminous(), "luminous under 1%"), 0.3);
+        assertThat(block).containsOnly(Double.POSITIVE_INFINITY);
+    }
+
+    @Test
+    void everyReadingTheDataCannotResolveStaysAValueUpToTheLeastFarFactor() {
+        // SlabReading's rule (docs/rescaling-model.md) on readings from just under the ceiling to 1.2 (noise)
+        Random random = new Random(20261208L);
+        for (int i = 0; i < 20_000; i++) {
+            double rMax = 0.02 + 0.1 * random.nextDouble();
+            double r = rMax * random.nextDouble();
+            double ceiling = (1 - r) / (1 + r) - org.spectralsieve.optics.SlabReading.READING_UNCERTAINTY;
+            double t = ceiling + (1.2 - ceiling) * random.nextDouble();
+            var reading = org.spectralsieve.optics.SlabReading.of(t, r);
+            assertThat(reading.farFactor()).as("t " + t + " r " + r).isGreaterThanOrEqualTo(WeightedScreen.leastFarFactor(rMax));
+        }
+        assertThat(WeightedScreen.leastFarFactor(0.04)).as("about four times the thickness (SlabReading's note)")
+                .isBetween(3.0, 6.0);
+    }
+
+    /** A clear sheet: readings at and around the lossless ceiling of n ≈ 1.5 (0.92), some above 1. */
+    private static Curve clearCurve(Random random) {
+        int n = 601;
+        double[] nm = new double[n];
+        double[] t = new double[n];
+        for (int i = 0; i < n; i++) {
+            nm[i] = 200 + i;
+            t[i] = 0.9 + 0.12 * random.nextDouble();
+        }
+        return Curve.of(nm, t, 0);
+    }
+
+    @Test
     void codesRoundTowardsTheSafeSide() {
         for (double t : new double[] {1.2, 1.0, 0.85, 0.5, 0.01, 1e-4, 1e-5}) {
             assertThat(WeightedScreen.transmittanceOf(WeightedScreen.codeAtMost(t))).isGreaterThanOrEqualTo(t);
