@@ -53,9 +53,11 @@ final class WeightedMisses {
         WeightedScreen screen = store.weightedScreen();
         List<WeightedScreen.Query> queries = new ArrayList<>();
         List<Boolean> seeThrough = new ArrayList<>();
+        // the layer's own bins, once per search (passes behind it: WeightedScreen.Query#behindLayer)
+        Optional<WeightedScreen.LayerBins> layerBins = layer.map(l -> WeightedScreen.LayerBins.of(l.curve(), l.index()));
         for (var clause : requirement.clauses()) {
             if (clause instanceof WeightedClause w && (layer.isEmpty() || w.direction() == Direction.PASS)) {
-                queries.add(screen.query(store, w, layerRange));
+                queries.add(layerBins.isPresent() ? screen.query(store, w, layerBins.get()) : screen.query(store, w, layerRange));
                 // on a diffuse sample a see-through clause is unverified (SeeThrough), never a miss
                 seeThrough.add(SeeThrough.needsRegular(w) && !requirement.acceptsTotalTransmittance());
             }
@@ -143,7 +145,7 @@ final class WeightedMisses {
             for (int i = 0; i < queries.size(); i++) {
                 WeightedScreen.Query q = queries.get(i);
                 if (!skipped(i) && SearchService.keepsProof(q.passes() ? Direction.PASS : Direction.BLOCK, spec, d0, bulk)) {
-                    bound = Math.min(bound, q.asMeasured(curve));
+                    bound = Math.min(bound, Math.min(q.asMeasured(curve), q.behindLayer(curve, d0)));
                 }
             }
             return bound;
@@ -155,7 +157,8 @@ final class WeightedMisses {
             for (int i = 0; i < queries.size(); i++) {
                 WeightedScreen.Query q = queries.get(i);
                 if (q.passes() && !skipped(i)) {
-                    bound = Math.min(bound, Math.min(q.thinned(curve, x), q.asMeasuredIfNotThinner(curve, x)));
+                    bound = Math.min(bound, Math.min(q.thinned(curve, x),
+                            Math.min(q.asMeasuredIfNotThinner(curve, x), q.behindLayer(curve, x))));
                 }
             }
             return bound;

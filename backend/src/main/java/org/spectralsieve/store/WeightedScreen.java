@@ -129,6 +129,70 @@ public final class WeightedScreen {
         return new Query(store, clause, layerRange);
     }
 
+    /** The same with the fixed layer's own bins, for {@link Query#behindLayer}. */
+    public Query query(SpectralStore store, WeightedClause clause, LayerBins layer) {
+        Query q = new Query(store, clause, Optional.of(new double[] {layer.fromNm, layer.toNm}));
+        q.layer = layer;
+        return q;
+    }
+
+    /**
+     * A fixed layer's brightest per bin, computed once per search from its curve as used: for each bin, the
+     * largest of max(T, limit) over both ends of every pair of neighbouring layer points whose interval meets
+     * the bin (NaN where none does), so every value the stack reads from the layer inside the bin — T
+     * interpolated in absorbance, limits linearly — is at most it; and the largest total reflectance the
+     * layer's slab elements can have.
+     */
+    public static final class LayerBins {
+        final double fromNm;
+        final double toNm;
+        final double[] brightest;
+        final double reflectance;
+
+        private LayerBins(double fromNm, double toNm, double[] brightest, double reflectance) {
+            this.fromNm = fromNm;
+            this.toNm = toNm;
+            this.brightest = brightest;
+            this.reflectance = reflectance;
+        }
+
+        public static LayerBins of(Curve layer, org.spectralsieve.optics.RefractiveIndex index) {
+            double[] brightest = new double[BINS];
+            Arrays.fill(brightest, Double.NaN);
+            for (int i = 0; i + 1 < layer.size(); i++) {
+                double hi = Math.max(Math.max(layer.transmittance(i), layer.detectionLimit(i)),
+                        Math.max(layer.transmittance(i + 1), layer.detectionLimit(i + 1)));
+                int first = Math.max(0, binOfClamped(layer.wavelengthNm(i)));
+                int last = Math.min(BINS - 1, binOfClamped(layer.wavelengthNm(i + 1)));
+                for (int b = first; b <= last; b++) {
+                    brightest[b] = Double.isNaN(brightest[b]) ? hi : Math.max(brightest[b], hi);
+                }
+            }
+            double r = largestReflectance(index, new double[] {layer.minWavelengthNm(), layer.maxWavelengthNm()});
+            return new LayerBins(layer.minWavelengthNm(), layer.maxWavelengthNm(), brightest, elementReflectance(r));
+        }
+    }
+
+    /** The bin of a wavelength, below 0 or above the last bin allowed (callers clamp). */
+    private static int binOfClamped(double nm) {
+        double x = Math.floor((nm - FIRST_NM) / BIN_NM);
+        return x < -1 ? -1 : x > BINS ? BINS : (int) x;
+    }
+
+    /**
+     * The largest total reflectance ρ of a slab element ({@code OpticalElement.slab} of a {@code SlabReading})
+     * whose surfaces reflect at most {@code rMax} (Fresnel): a resolved reading's R + (1 − R)²RK²/(1 − R²K²)
+     * rises with K to the lossless 2R/(1 + R); an unresolved one's element is lossless with the effective
+     * surface, ρ = 1 − min(T0, 1), and T0 ≥ (1 − R)/(1 + R) − u, so ρ ≤ 2R/(1 + R) + u. 1 (no bound) for
+     * rMax ≥ 1.
+     */
+    static double elementReflectance(double rMax) {
+        if (!(rMax < 1)) {
+            return 1;
+        }
+        return Math.min(1, 2 * rMax / (1 + rMax) + org.spectralsieve.optics.SlabReading.READING_UNCERTAINTY);
+    }
+
     /**
      * Bounds on one weighted clause's exact margin, curve by curve (docs/weighted-screening.md, "Why a bound is
      * a proof"). Each method returns an upper bound on the exact margin, or +∞ where it can say nothing.
@@ -146,6 +210,7 @@ public final class WeightedScreen {
         private final double floor;
         private final double[][] sharesOfRange;
         private final Map<Long, Double> largestR = new HashMap<>();
+        private LayerBins layer;
 
         private Query(SpectralStore store, WeightedClause clause, Optional<double[]> layerRange) {
             this.store = store;
@@ -202,6 +267,48 @@ public final class WeightedScreen {
                     : Math.log10(threshold / Math.max(mean * (1 - SLACK), floor));
         }
 
+        /**
+         * A pass behind the fixed layer ({@link #query(SpectralStore, WeightedClause, LayerBins)}), the candidate
+         * judged as measured or thicker (others: +∞). Why: at each wavelength p the stack combines (light path,
+         * incoherent reflections across the air gap) T = T₁T₂/(1 − ρ₁ρ₂), and its detection limit chains one
+         * part at a time at its limit, so the stack's upper reading is at most
+         * max(T₁, lim₁)·max(T₂, lim₂)/(1 − ρ₁ρ₂), ρ ≤ {@link #elementReflectance} of each part's largest Fresnel
+         * R (the candidate's index, or the n = 1.5 assumed for a part stored without one, whichever is larger).
+         * A value of the stack inside a bin is interpolated between two neighbouring stack points lying in one
+         * candidate interval and one layer interval that meet the bin, so it is at most the larger end, floored
+         * at the absorbance floor; for a regular curve ({@code Builder.regular}) the candidate's factor is at
+         * most the bin's brightest, the layer's at most its {@link LayerBins} value. The candidate thicker than
+         * measured only lowers every T and limit.
+         */
+        public double behindLayer(int curve, double judgedMm) {
+            double d0 = store.thicknessMm(curve);
+            if (!pass || layer == null || store.isBulk(curve) && !(judgedMm >= d0)) {
+                return Double.POSITIVE_INFINITY;
+            }
+            double[] shares = shares(curve);
+            if (shares.length == 0 || ranges.get(rangeOfCurve[curve])[2] != 1) {
+                return Double.POSITIVE_INFINITY;
+            }
+            double r = Math.max(largestReflectance(curve), org.spectralsieve.optics.Fresnel.reflectanceInAir(1.52));
+            double rho = elementReflectance(r);
+            if (!(rho < 1) || !(layer.reflectance < 1)) {
+                return Double.POSITIVE_INFINITY;
+            }
+            double gain = (1 + SLACK) / (1 - rho * layer.reflectance);
+            double mean = 0;
+            for (int b = 0; b < BINS; b++) {
+                if (shares[b] > 0) {
+                    int code = brightest[b][curve] & 0xFF;
+                    double second = layer.brightest[b];
+                    if (code == 0 || Double.isNaN(second)) {
+                        return Double.POSITIVE_INFINITY;
+                    }
+                    mean += shares[b] * Math.max(T_OF_CODE[code] * second * gain, Curve.ABSORBANCE_FLOOR_T);
+                }
+            }
+            return Math.log10(Math.max(mean * (1 + SLACK), floor) / threshold);
+        }
+
         /** {@link #asMeasured} for a pass judged at or above {@code thinnestMm} where that is not thinner than measured (else +∞). */
         public double asMeasuredIfNotThinner(int curve, double thinnestMm) {
             return thinnestMm >= store.thicknessMm(curve) ? asMeasured(curve) : Double.POSITIVE_INFINITY;
@@ -228,6 +335,10 @@ public final class WeightedScreen {
             }
             double k = thinnestMm / d0;
             double logLoss = Math.log(((1 - r) * (1 - r)) / (1 + SLACK));
+            // on a regular curve also the surfaces' own loss (see withSurfaces)
+            double rMin = ranges.get(rangeOfCurve[curve])[2] == 1 ? smallestReflectance(curve) : Double.NaN;
+            double ceiling = (1 - rMin) / (1 + rMin);
+            double lnH = Math.max(lnSurfaceFactor(rMin, k), lnSurfaceFactor(r, k));
             double mean = 0;
             for (int b = 0; b < BINS; b++) {
                 if (shares[b] > 0) {
@@ -236,10 +347,42 @@ public final class WeightedScreen {
                         return Double.POSITIVE_INFINITY;
                     }
                     double t = Math.min(1, Math.exp(k * (LN_T_OF_CODE[code] - logLoss)) * (1 + SLACK));
+                    if (rMin >= 0) {
+                        double resolved = Math.min(ceiling, Math.exp(lnH + k * LN_T_OF_CODE[code]));
+                        t = Math.min(t, Math.max(resolved, Math.min(1, T_OF_CODE[code])) * (1 + SLACK));
+                    }
                     mean += shares[b] * Math.max(t, Curve.ABSORBANCE_FLOOR_T);
                 }
             }
             return Math.log10(Math.max(mean * (1 + SLACK), floor) / threshold);
+        }
+
+        /*
+         * withSurfaces — the tighter thinned bound of a regular curve: a resolved reading thinned to d has
+         * T(d) = (1 − R)²K/(1 − R²K²) ≤ (1 − R)²K/(1 − R²) = K(1 − R)/(1 + R) with K = K0^k ≤ (T0/(1 − R)²)^k, so
+         * T(d) ≤ h(R)·T0^k, h(R) = (1 − R)^(1 − 2k)/(1 + R), whose logarithm is convex in R (decreasing for
+         * k ≤ 1/2), so its largest value over [R_min, R_max] is at an end; and T(d) ≤ (1 − R)/(1 + R) ≤ the
+         * ceiling at R_min. An unresolved reading keeps min(T0, 1). The larger of the two bounds every point
+         * (f rises with T0, for a point below detection read at its limit too), and a value of the thinned
+         * curve inside a bin is interpolated between two neighbours, at most the larger; on a regular curve both
+         * are the bin's points or the neighbours just outside it, which the bin's brightest holds.
+         */
+
+        /** ln h(R) = (1 − 2k)·ln(1 − R) − ln(1 + R); −∞ for NaN R (no surface bound). */
+        private static double lnSurfaceFactor(double r, double k) {
+            return Double.isNaN(r) ? Double.NEGATIVE_INFINITY : (1 - 2 * k) * Math.log(1 - r) - Math.log(1 + r);
+        }
+
+        private double smallestReflectance(int curve) {
+            int model = store.indexModelOf(curve);
+            int range = rangeOfCurve[curve];
+            long key = ~(((long) model << 32) | range);
+            Double hit = largestR.get(key);
+            if (hit == null) {
+                hit = WeightedScreen.smallestReflectance(store.indexModel(model), ranges.get(range));
+                largestR.put(key, hit);
+            }
+            return hit;
         }
 
         /**
@@ -363,6 +506,29 @@ public final class WeightedScreen {
             }
         } catch (RuntimeException e) {
             return 1;
+        }
+    }
+
+    /**
+     * The smallest normal-incidence surface reflectance of the index over the curve's range (every 0.25 nm
+     * and both ends, n lowered by 0.02 for what lies between the samples, not below 1); NaN (no bound) when the
+     * index cannot give n there.
+     */
+    static double smallestReflectance(org.spectralsieve.optics.RefractiveIndex index, double[] curveRange) {
+        double smallest = Double.POSITIVE_INFINITY;
+        try {
+            for (double nm = curveRange[0]; ; nm = Math.min(curveRange[1], nm + 0.25)) {
+                double n = index.at(nm);
+                if (!(n >= 1) || !Double.isFinite(n)) {
+                    return Double.NaN;
+                }
+                smallest = Math.min(smallest, org.spectralsieve.optics.Fresnel.reflectanceInAir(Math.max(1, n - 0.02)));
+                if (nm >= curveRange[1]) {
+                    return smallest;
+                }
+            }
+        } catch (RuntimeException e) {
+            return Double.NaN;
         }
     }
 
@@ -495,8 +661,8 @@ public final class WeightedScreen {
                 return; // not screened there either
             }
             double[] r = from.ranges.get(range);
-            Integer here = rangeIndex.computeIfAbsent(List.of(r[0], r[1]), k -> {
-                ranges.add(new double[] {r[0], r[1]});
+            Integer here = rangeIndex.computeIfAbsent(List.of(r[0], r[1], r[2]), k -> {
+                ranges.add(new double[] {r[0], r[1], r[2]});
                 return ranges.size() - 1;
             });
             if (here > Short.MAX_VALUE) {
@@ -514,8 +680,9 @@ public final class WeightedScreen {
             unknown(slot);
             double min = curve.minWavelengthNm();
             double max = curve.maxWavelengthNm();
-            Integer range = rangeIndex.computeIfAbsent(List.of(min, max), k -> {
-                ranges.add(new double[] {min, max});
+            double regular = regular(curve) ? 1 : 0;
+            Integer range = rangeIndex.computeIfAbsent(List.of(min, max, regular), k -> {
+                ranges.add(new double[] {min, max, regular});
                 return ranges.size() - 1;
             });
             if (range > Short.MAX_VALUE) {
@@ -556,6 +723,24 @@ public final class WeightedScreen {
                 darkest[b][slot] = (byte) codeAtLeast(lowest[b]);
             }
             rangeOfCurve[slot] = (short) (int) range;
+        }
+
+        /**
+         * Whether every bin the curve meets holds one of its points (no two neighbours more than a bin apart)
+         * and no point above detection has a limit above its T: then every stored point's upper reading
+         * max(T, limit) that any value inside a bin is read from — T interpolated in absorbance, limits
+         * linearly, between two neighbours — is held by that bin's brightest ({@link Query#behindLayer}).
+         */
+        private static boolean regular(Curve curve) {
+            for (int i = 0; i < curve.size(); i++) {
+                if (i > 0 && curve.wavelengthNm(i) - curve.wavelengthNm(i - 1) > BIN_NM) {
+                    return false;
+                }
+                if (!curve.belowDetection(i) && curve.detectionLimit(i) > curve.transmittance(i)) {
+                    return false;
+                }
+            }
+            return true;
         }
 
         /**

@@ -173,6 +173,91 @@ class WeightedScreenTest {
     }
 
     @Test
+    void layerBoundsHoldTheExactFigureOfTheStack() {
+        // the exact stack is optics.LightPath (Smith, Modern Optical Engineering, eq. 10.5 for each air gap,
+        // checked in its own tests); the bound is arithmetic on it. Candidates and layers are random curves
+        // (zeros, points below detection, readings above 1), clear sheets at the ceiling, and curves sampled
+        // coarser than a bin (no product bound for those)
+        Random random = new Random(20261210L);
+        List<Curve> curves = new ArrayList<>();
+        List<RefractiveIndex> indices = List.of(new ConstantIndex(1.49), new ConstantIndex(1.585), new ConstantIndex(1.46));
+        SpectralStore.Builder builder = SpectralStore.builder(SpectralStore.DEFAULT_GRID, 8);
+        StoredMaterial material = new StoredMaterial(1, "illustrative sheet", "plastic sheet", MadeThicknesses.of(
+                List.of(), Double.NaN, Double.NaN, List.of(2.0)));
+        for (int i = 0; i < 120; i++) {
+            Curve curve = i % 6 == 5 ? clearCurve(random) : i % 6 == 4 ? coarse(randomCurve(random)) : randomCurve(random);
+            curves.add(curve);
+            builder.add(i + 1, material, 2.0, i % 2 == 0, false, indices.get(i % 3), curve);
+        }
+        SpectralStore store = builder.build();
+        int proven = 0;
+        int bounded = 0;
+        for (int l = 0; l < 6; l++) {
+            Curve layerCurve = l % 3 == 2 ? clearCurve(random) : randomCurve(random);
+            RefractiveIndex layerIndex = indices.get(l % 3);
+            WeightedScreen.LayerBins bins = WeightedScreen.LayerBins.of(layerCurve, layerIndex);
+            for (Weighting weighting : WEIGHTINGS) {
+                WeightedScreen.Query pass = store.weightedScreen().query(store, new WeightedClause(Direction.PASS, 1,
+                        ThresholdUnit.FRACTION, weighting, "pass"), bins);
+                WeightedScreen.Query passAtHalf = store.weightedScreen().query(store, new WeightedClause(Direction.PASS,
+                        0.5, ThresholdUnit.FRACTION, weighting, "pass half"), bins);
+                for (int i = 0; i < curves.size(); i++) {
+                    double bound = pass.behindLayer(i, 2.0);
+                    Curve stack;
+                    try {
+                        stack = org.spectralsieve.optics.LightPath.of(
+                                org.spectralsieve.optics.Layer.fixed(curves.get(i), indices.get(i % 3)),
+                                org.spectralsieve.optics.Layer.fixed(layerCurve, layerIndex)).transmittance();
+                    } catch (org.spectralsieve.spectrum.CurveException e) {
+                        assertThat(bound).isInfinite(); // the ranges do not overlap: nothing to bound
+                        continue;
+                    }
+                    Figure upper = weighting.figure(BoundedCurves.upperBounds(stack));
+                    if (!upper.available()) {
+                        continue;
+                    }
+                    double u = upper.value().getAsDouble();
+                    assertThat(bound).as(weighting + " curve " + i + " behind layer " + l)
+                            .isGreaterThanOrEqualTo(Math.log10(Math.max(u, Curve.ABSORBANCE_FLOOR_T)));
+                    bounded += Double.isFinite(bound) ? 1 : 0;
+                    if (passAtHalf.behindLayer(i, 2.0) < 0) {
+                        proven++;
+                        assertThat(u).isLessThan(0.5);
+                    }
+                }
+            }
+        }
+        assertThat(bounded).as("not vacuous").isGreaterThan(WEIGHTINGS.size() * curves.size());
+        assertThat(proven).as("not vacuous").isGreaterThan(WEIGHTINGS.size() * curves.size() / 2);
+    }
+
+    /** Points of the curve kept 15 nm or more apart: coarser than a bin. */
+    private static Curve coarse(Curve curve) {
+        int n = 0;
+        List<Integer> kept = new ArrayList<>();
+        double last = Double.NEGATIVE_INFINITY;
+        for (int i = 0; i < curve.size(); i++) {
+            if (curve.wavelengthNm(i) - last >= 15 || i == curve.size() - 1) {
+                kept.add(i);
+                last = curve.wavelengthNm(i);
+            }
+        }
+        n = kept.size();
+        double[] nm = new double[n];
+        double[] t = new double[n];
+        boolean[] below = new boolean[n];
+        double[] limits = new double[n];
+        for (int k = 0; k < n; k++) {
+            int i = kept.get(k);
+            nm[k] = curve.wavelengthNm(i);
+            t[k] = curve.transmittance(i);
+            below[k] = curve.belowDetection(i);
+            limits[k] = curve.detectionLimit(i);
+        }
+        return Curve.of(nm, t, below, limits);
+    }
+
+    @Test
     void thickenedBoundsSayNothingOfPartsThatAreNeverRescaled() {
         // films, coated parts and diffuse samples are judged only as measured (docs/geometry-and-edges.md)
         SpectralStore.Builder builder = SpectralStore.builder(SpectralStore.DEFAULT_GRID, 2);
