@@ -249,7 +249,7 @@ public final class WeightedScreen {
                 return Double.POSITIVE_INFINITY;
             }
             double[] shares = shares(curve);
-            if (shares.length == 0) {
+            if (shares.length == 0 || layerRange.isPresent() && !regular(curve)) {
                 return Double.POSITIVE_INFINITY;
             }
             byte[][] codes = pass ? brightest : darkest;
@@ -286,7 +286,7 @@ public final class WeightedScreen {
                 return Double.POSITIVE_INFINITY;
             }
             double[] shares = shares(curve);
-            if (shares.length == 0 || ranges.get(rangeOfCurve[curve])[2] != 1) {
+            if (shares.length == 0 || !regular(curve)) {
                 return Double.POSITIVE_INFINITY;
             }
             double r = Math.max(largestReflectance(curve), org.spectralsieve.optics.Fresnel.reflectanceInAir(1.52));
@@ -329,14 +329,14 @@ public final class WeightedScreen {
                 return Double.POSITIVE_INFINITY;
             }
             double[] shares = shares(curve);
-            double r = shares.length == 0 ? 1 : largestReflectance(curve);
+            double r = shares.length == 0 || layerRange.isPresent() && !regular(curve) ? 1 : largestReflectance(curve);
             if (!(r < 1)) {
                 return Double.POSITIVE_INFINITY;
             }
             double k = thinnestMm / d0;
             double logLoss = Math.log(((1 - r) * (1 - r)) / (1 + SLACK));
             // on a regular curve also the surfaces' own loss (see withSurfaces)
-            double rMin = ranges.get(rangeOfCurve[curve])[2] == 1 ? smallestReflectance(curve) : Double.NaN;
+            double rMin = regular(curve) ? smallestReflectance(curve) : Double.NaN;
             double ceiling = (1 - rMin) / (1 + rMin);
             double lnH = Math.max(lnSurfaceFactor(rMin, k), lnSurfaceFactor(r, k));
             double mean = 0;
@@ -452,6 +452,16 @@ public final class WeightedScreen {
                 ln = Math.max(ln, LN_T_OF_CODE[code]);
             }
             return ln;
+        }
+
+        /**
+         * Whether the curve is regular ({@code Builder.regular}). Behind a layer only a regular curve is bounded:
+         * the stack's upper reading at a point between two of the candidate's points chains the candidate's
+         * limit interpolated linearly, which only a regular curve's bin brightest is sure to hold (the stack is
+         * at most each part, T₁T₂/(1 − ρ₁ρ₂) ≤ T₁ since T₂ + ρ₂ ≤ 1, and so is each chain of a limit).
+         */
+        private boolean regular(int curve) {
+            return ranges.get(rangeOfCurve[curve])[2] == 1;
         }
 
         private double largestReflectance(int curve) {
