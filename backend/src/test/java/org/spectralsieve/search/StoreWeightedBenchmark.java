@@ -38,7 +38,9 @@ import org.spectralsieve.store.SyntheticCurves;
  * {@code -Dbench.storeWeightedBase=10000} (stores larger than this repeat its rows: screening a synthetic curve
  * on insertion costs milliseconds), {@code -Dbench.storeWeightedWholeUpTo=30000} (the whole search, with the
  * exact judgement, only up to this size: above it only {@code part=screen}, and {@code judged} counts the
- * curves the screen leaves to judge), {@code -Dbench.limit=20}.
+ * curves the screen leaves to judge), {@code -Dbench.limit=20}. Each line names its {@code rule}: {@code current}
+ * ({@link WeightedMisses#add}) or {@code earlier} ({@link WeightedMisses#addEarlier}), alternated run by run;
+ * {@code -Dbench.storeWeightedSkipEarlier=true} leaves the earlier out.
  */
 class StoreWeightedBenchmark {
 
@@ -70,22 +72,32 @@ class StoreWeightedBenchmark {
                     (System.nanoTime() - t0) / 1e9, store.bytesPerCurve());
             for (Map.Entry<String, Requirement> mode : modes.entrySet()) {
                 boolean judge = n <= wholeUpTo;
-                search(store, mode.getValue(), limit, judge); // warm-up
-                double[] screen = new double[runs];
-                double[] whole = new double[runs];
-                Outcome last = null;
-                for (int r = 0; r < runs; r++) {
-                    last = search(store, mode.getValue(), limit, judge);
-                    screen[r] = last.screenMs;
-                    whole[r] = last.wholeMs;
+                // the current rule and the earlier one (WeightedMisses.addEarlier), alternated run by run
+                String[] rules = Boolean.getBoolean("bench.storeWeightedSkipEarlier") ? new String[] {"current"}
+                        : new String[] {"current", "earlier"};
+                for (String rule : rules) {
+                    search(store, mode.getValue(), limit, judge, rule.equals("earlier")); // warm-up
                 }
-                Arrays.sort(screen);
-                Arrays.sort(whole);
-                for (String part : judge ? new String[] {"screen", "whole"} : new String[] {"screen"}) {
-                    double[] ms = part.equals("screen") ? screen : whole;
-                    System.out.printf(Locale.ROOT, "BENCH store-weighted curves=%d mode=%s part=%s p50_ms=%.1f p95_ms=%.1f"
-                                    + " proven=%d judged=%d runs=%d%n", n, mode.getKey(), part, ms[runs / 2],
-                            ms[Math.min(runs - 1, (int) Math.ceil(runs * 0.95) - 1)], last.proven, last.judged, runs);
+                double[][] screen = new double[rules.length][runs];
+                double[][] whole = new double[rules.length][runs];
+                Outcome[] last = new Outcome[rules.length];
+                for (int r = 0; r < runs; r++) {
+                    for (int v = 0; v < rules.length; v++) {
+                        last[v] = search(store, mode.getValue(), limit, judge, rules[v].equals("earlier"));
+                        screen[v][r] = last[v].screenMs;
+                        whole[v][r] = last[v].wholeMs;
+                    }
+                }
+                for (int v = 0; v < rules.length; v++) {
+                    Arrays.sort(screen[v]);
+                    Arrays.sort(whole[v]);
+                    for (String part : judge ? new String[] {"screen", "whole"} : new String[] {"screen"}) {
+                        double[] ms = part.equals("screen") ? screen[v] : whole[v];
+                        System.out.printf(Locale.ROOT, "BENCH store-weighted curves=%d mode=%s part=%s p50_ms=%.1f p95_ms=%.1f"
+                                        + " proven=%d judged=%d runs=%d rule=%s%n", n, mode.getKey(), part, ms[runs / 2],
+                                ms[Math.min(runs - 1, (int) Math.ceil(runs * 0.95) - 1)], last[v].proven, last[v].judged,
+                                runs, rules[v]);
+                    }
                 }
             }
         }
@@ -95,10 +107,15 @@ class StoreWeightedBenchmark {
     }
 
     /** One weighted search the service's way, on the store's curves. */
-    private static Outcome search(SpectralStore store, Requirement requirement, int limit, boolean judge) {
+    private static Outcome search(SpectralStore store, Requirement requirement, int limit, boolean judge,
+                                  boolean earlierRule) {
         long t0 = System.nanoTime();
         Map<Long, Double> proven = new HashMap<>();
-        WeightedMisses.add(proven, store, requirement, Optional.empty());
+        if (earlierRule) {
+            WeightedMisses.addEarlier(proven, store, requirement, Optional.empty());
+        } else {
+            WeightedMisses.add(proven, store, requirement, Optional.empty());
+        }
         long t1 = System.nanoTime();
         if (!judge) {
             int left = 0;
