@@ -292,9 +292,9 @@ public class SearchService {
         boolean diffuseLayer = layer.map(l -> s.samples().get(l.sampleId()).geometry() == Geometry.TOTAL).orElse(false);
         Map<Long, Double> provenMiss = provenMisses(s, requirement, layer);
         if (screenWeighted && earlierWeightedScreen) {
-            WeightedMisses.addEarlier(provenMiss, s.store(), requirement, layer);
+            WeightedMisses.addEarlier(provenMiss, s.store(), requirement, layer, diffuseLayer);
         } else if (screenWeighted) {
-            WeightedMisses.add(provenMiss, s.store(), requirement, layer);
+            WeightedMisses.add(provenMiss, s.store(), requirement, layer, diffuseLayer);
         }
         List<MaterialEvaluation> exact = new ArrayList<>();
         Map<Material, Double> held = new LinkedHashMap<>();

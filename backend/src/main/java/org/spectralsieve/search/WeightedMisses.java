@@ -49,6 +49,15 @@ final class WeightedMisses {
      */
     static void add(Map<Long, Double> provenMiss, SpectralStore store, Requirement requirement,
                     Optional<StackLayer> layer) {
+        add(provenMiss, store, requirement, layer, false);
+    }
+
+    /**
+     * @param diffuseLayer the layer was measured in total geometry: every path then includes scatter, so a
+     *                     see-through clause is unverified on every candidate ({@code SeeThrough}), never a miss
+     */
+    static void add(Map<Long, Double> provenMiss, SpectralStore store, Requirement requirement,
+                    Optional<StackLayer> layer, boolean diffuseLayer) {
         Optional<double[]> layerRange = layer.map(l -> new double[] {l.curve().minWavelengthNm(), l.curve().maxWavelengthNm()});
         WeightedScreen screen = store.weightedScreen();
         List<WeightedScreen.Query> queries = new ArrayList<>();
@@ -69,7 +78,7 @@ final class WeightedMisses {
         Bounds bounds = new Bounds(queries, seeThrough);
         for (int curve = 0; curve < store.size(); curve++) {
             double d0 = store.thicknessMm(curve);
-            bounds.curve(curve, store.isTotalGeometry(curve));
+            bounds.curve(curve, store.isTotalGeometry(curve) || diffuseLayer);
             double bound;
             if (spec.kind() == ThicknessSpec.Kind.AS_MEASURED || judgedAsMeasured(spec, d0) || !store.isBulk(curve)
                     || !(d0 > 0)) {
@@ -91,6 +100,12 @@ final class WeightedMisses {
      */
     static void addEarlier(Map<Long, Double> provenMiss, SpectralStore store, Requirement requirement,
                            Optional<StackLayer> layer) {
+        addEarlier(provenMiss, store, requirement, layer, false);
+    }
+
+    /** {@link #addEarlier(Map, SpectralStore, Requirement, Optional)} behind a layer measured in total geometry or not. */
+    static void addEarlier(Map<Long, Double> provenMiss, SpectralStore store, Requirement requirement,
+                           Optional<StackLayer> layer, boolean diffuseLayer) {
         Optional<double[]> layerRange = layer.map(l -> new double[] {l.curve().minWavelengthNm(), l.curve().maxWavelengthNm()});
         WeightedScreen screen = store.weightedScreen();
         for (var clause : requirement.clauses()) {
@@ -105,7 +120,7 @@ final class WeightedMisses {
             for (int curve = 0; curve < store.size(); curve++) {
                 double bound = bounds[curve];
                 double d0 = store.thicknessMm(curve);
-                if (seeThrough && store.isTotalGeometry(curve)) {
+                if (seeThrough && (store.isTotalGeometry(curve) || diffuseLayer)) {
                     continue; // unverified on a diffuse sample (SeeThrough), never a miss
                 }
                 if (bound < 0 && SearchService.keepsProof(w.direction(), spec, d0, store.isBulk(curve))) {
