@@ -17,6 +17,7 @@ class CurationConfiguration {
 
     @Bean
     LibraryCuration libraryCuration(JooqLibraryRevisions revisions, SearchService search) {
-        return new LibraryCuration(revisions, search::invalidate);
+        // as after an import: each change raised the counter naming its material (docs/search-under-load.md)
+        return new LibraryCuration(revisions, search::refresh);
     }
 }

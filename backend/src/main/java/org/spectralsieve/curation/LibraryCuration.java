@@ -12,7 +12,7 @@ import org.spectralsieve.library.SampleRevision;
 
 /**
  * Retires, restores and corrects samples and materials; after each committed change it runs
- * {@code afterCommit} (the derived store's invalidation, as after an import), and never after a refused one.
+ * {@code afterCommit} (the search store's refresh, as after an import), and never after a refused one.
  */
 public class LibraryCuration {
 

@@ -11,7 +11,9 @@ class ImportConfiguration {
 
     @Bean
     ImportService importService(JooqLibraryRepository library, SearchService search, ImportProperties limits) {
-        return new ImportService(library, search::invalidate, limits);
+        // not invalidate(): the import raised the change counter naming its material, so the refresh reads only that
+        // material again; invalidate() would make it read the whole library (docs/search-under-load.md)
+        return new ImportService(library, search::refresh, limits);
     }
 
     @Bean

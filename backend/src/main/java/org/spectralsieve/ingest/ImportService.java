@@ -43,7 +43,7 @@ public final class ImportService {
     private final ImportProperties limits;
     private final FileImport reader;
 
-    /** @param afterCommit run after each committed import (the search service's invalidate) */
+    /** @param afterCommit run after each committed import (the search service's refresh) */
     public ImportService(JooqLibraryRepository library, Runnable afterCommit, ImportProperties limits) {
         this.library = Objects.requireNonNull(library, "library");
         this.afterCommit = Objects.requireNonNull(afterCommit, "afterCommit");

@@ -33,11 +33,55 @@ final class CurveCache {
     }
 
     CurveCache(long budgetBytes) {
+        this(budgetBytes, new SharedCurveArrays(budgetBytes / SHARED_SHARE));
+    }
+
+    private CurveCache(long budgetBytes, SharedCurveArrays shared) {
         if (budgetBytes < 0) {
             throw new IllegalArgumentException("the curve cache's budget must be >= 0 bytes, was " + budgetBytes);
         }
         this.budgetBytes = budgetBytes;
-        this.shared = new SharedCurveArrays(budgetBytes / SHARED_SHARE);
+        this.shared = shared;
+    }
+
+    /**
+     * An empty cache for the next snapshot of a partial rebuild, with this cache's budget and its pool of shared
+     * arrays, so that {@link #offerKept} can take this cache's curves as they are. The pool may then hold arrays
+     * of curves no longer in the library: it stays within its quarter of the budget, and a whole rebuild starts
+     * a new one.
+     */
+    CurveCache successor() {
+        return new CurveCache(budgetBytes, shared);
+    }
+
+    /**
+     * Offers {@code previous}'s curve of the sample as it is — already sharing the pool's arrays, its size already
+     * known — so a rebuild does not hash every curve's arrays again; a curve {@code previous} does not hold is
+     * not offered. Like {@link #offer}, adds only what fits without evicting. {@code previous} must be the cache
+     * this one is the {@link #successor} of (the pool is theirs together).
+     *
+     * @return whether it was added
+     */
+    boolean offerKept(CurveCache previous, long sampleId) {
+        if (previous.shared != shared) {
+            throw new IllegalArgumentException("not this cache's predecessor");
+        }
+        Entry kept = previous.entryOf(sampleId); // the predecessor's lock alone, then this one's: never both at once
+        if (kept == null) {
+            return false;
+        }
+        synchronized (this) {
+            if (budgetBytes == 0 || curves.containsKey(sampleId) || heapBytes() + kept.bytes() > budgetBytes) {
+                return false;
+            }
+            add(sampleId, kept);
+            return true;
+        }
+    }
+
+    /** The sample's entry, or null (the predecessor's access order moves; it is about to be dropped). */
+    private synchronized Entry entryOf(long sampleId) {
+        return curves.get(sampleId);
     }
 
     /** The cached curve of the sample, or null. */

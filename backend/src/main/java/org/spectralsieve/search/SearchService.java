@@ -73,6 +73,8 @@ import org.spectralsieve.store.StoredMaterial;
  */
 public class SearchService {
 
+    private static final org.slf4j.Logger LOG = org.slf4j.LoggerFactory.getLogger(SearchService.class);
+
     /** Shortlist length when the caller names none, and the most a caller may ask for (HTTP and command line). */
     public static final int DEFAULT_LIMIT = 20;
     public static final int MAX_LIMIT = 500;
@@ -88,7 +90,7 @@ public class SearchService {
     /** Raised by {@link #invalidate()}: a snapshot read before the last call is stale whatever its generation. */
     private final AtomicLong invalidations = new AtomicLong();
     /** One build at a time: concurrent searches that find the snapshot stale wait for one rebuild, not start many. */
-    private final Object building = new Object();
+    private final java.util.concurrent.locks.ReentrantLock building = new java.util.concurrent.locks.ReentrantLock();
     /** Runs between reading the library and installing the snapshot: a seam for the race test, else nothing. */
     private final LongConsumer beforeInstall;
     /** Heap for each snapshot's decoded curves ({@link CurveCache}); 0 reads every judged curve from the database. */
@@ -626,6 +628,32 @@ public class SearchService {
     }
 
     /**
+     * Brings the snapshot up to the library's change counter now, on the caller's thread: called after this
+     * process committed a write (an import, a retirement, a correction), so that the store is usually rebuilt
+     * before the next search asks for it. The write raised the counter naming its material, so the rebuild
+     * reads only that material again ({@link MaterialsRead}); freshness does not depend on this call (every
+     * search reads the counter first, docs/freshness.md). When another thread is rebuilding, this returns at
+     * once rather than queue behind it (a writer never waits for a rebuild; that rebuild, or the next search's,
+     * brings the store up). A failure is logged and left to the next search, which rebuilds (or fails) as it
+     * would have without this call: the write itself is committed.
+     */
+    public void refresh() {
+        try {
+            long generation = library.generation();
+            if (fresh(snapshot.get(), generation) || !building.tryLock()) {
+                return; // up to date, or another thread is rebuilding: that rebuild or the next search's brings it up
+            }
+            try {
+                rebuildUnlessFresh(generation);
+            } finally {
+                building.unlock();
+            }
+        } catch (RuntimeException e) {
+            LOG.warn("the search store could not be brought up to date after a write; the next search tries again", e);
+        }
+    }
+
+    /**
      * Marks the derived store stale; the next search rebuilds it from the database. Every write path raises
      * the database's change counter ({@link LibraryGeneration#bump}), which the next search notices anyway;
      * this is the in-process signal for a write that does not (yet) raise it.
@@ -646,18 +674,26 @@ public class SearchService {
         if (fresh(s, generation)) {
             return s;
         }
-        synchronized (building) {
-            s = snapshot.get();
-            if (fresh(s, generation)) {
-                return s; // built by another search while this one waited
-            }
-            Snapshot built = build(s);
-            beforeInstall.accept(built.generation());
-            install(built);
-            // answer from what was just read even if a write landed meanwhile: it holds every change up to
-            // the moment this search began, and the next search sees the newer number and rebuilds
-            return built;
+        building.lock();
+        try {
+            return rebuildUnlessFresh(generation);
+        } finally {
+            building.unlock();
         }
+    }
+
+    /** Under {@link #building}: the installed snapshot if it holds {@code generation}, else a new one built and installed. */
+    private Snapshot rebuildUnlessFresh(long generation) {
+        Snapshot s = snapshot.get();
+        if (fresh(s, generation)) {
+            return s; // built by another search while this one waited
+        }
+        Snapshot built = build(s);
+        beforeInstall.accept(built.generation());
+        install(built);
+        // answer from what was just read even if a write landed meanwhile: it holds every change up to
+        // the moment this search began, and the next search sees the newer number and rebuilds
+        return built;
     }
 
     private boolean fresh(Snapshot s, long generation) {
@@ -712,7 +748,8 @@ public class SearchService {
         SpectralStore.Builder builder = SpectralStore.builder(SpectralStore.DEFAULT_GRID, samples);
         Map<Long, Material> byId = new java.util.HashMap<>();
         Map<Long, SampleInfo> sampleById = new java.util.HashMap<>();
-        CurveCache cache = new CurveCache(curveCacheBytes);
+        // a partial rebuild takes the previous snapshot's decoded curves as they are (not hashed again)
+        CurveCache cache = partial.isPresent() ? previous.curves().successor() : new CurveCache(curveCacheBytes);
         for (Material m : materials) {
             byId.put(m.id(), m);
             m.samples().forEach(sample -> sampleById.put(sample.id(), sample));
@@ -730,9 +767,10 @@ public class SearchService {
                         usable ? m.refractiveIndex() : ConstantIndex.WHEN_UNRECORDED);
                 // the exact judgement's copy: the curve just decoded, or the previous snapshot's (a stored curve
                 // row is never changed, only a sample's record: the same id keeps the same curve)
-                Curve kept = decoded != null ? decoded : previous == null ? null : previous.curves().get(sample.id());
-                if (kept != null) {
-                    cache.offer(sample.id(), kept);
+                if (decoded != null) {
+                    cache.offer(sample.id(), decoded);
+                } else if (partial.isPresent()) {
+                    cache.offerKept(previous.curves(), sample.id());
                 }
             }
         }

@@ -221,6 +221,13 @@ public final class SpectralStore {
         private final WeightedScreen.Builder weighted;
 
         private boolean built;
+        /** The pending run of carried rows: {@code runLength} rows from {@code runFrom} of {@code runSource} to {@code runTo}. */
+        private SpectralStore runSource;
+        private int runFrom;
+        private int runTo;
+        private int runLength;
+        /** The previous store whose grid was found equal to this one's (checked once, not per carried row). */
+        private SpectralStore sameGridChecked;
 
         private Builder(WavelengthGrid grid, int expectedCurves) {
             this.grid = grid;
@@ -268,16 +275,46 @@ public final class SpectralStore {
 
         /**
          * Adds row {@code row} of {@code previous} unchanged (same grid): its codes and its weighted screen, so a
-         * rebuild that carries an unchanged curve over keeps it screened (docs/start-and-load.md).
+         * rebuild that carries an unchanged curve over keeps it screened (docs/start-and-load.md). Rows carried
+         * in the order they lie in {@code previous} are copied as one run per column ({@link #flushRun}), not
+         * cell by cell: after an import a rebuild copies a few runs of 911 columns instead of gathering and
+         * scattering every row (docs/search-under-load.md).
          */
         public Builder addCarried(long sampleId, StoredMaterial material, double thicknessMm, boolean bulk,
                                   boolean totalGeometry, RefractiveIndex index, SpectralStore previous, int row) {
-            if (!Arrays.equals(previous.gridNm, gridNm)) {
-                throw new IllegalArgumentException("the previous store has another grid");
+            if (previous != sameGridChecked) {
+                if (!Arrays.equals(previous.gridNm, gridNm)) {
+                    throw new IllegalArgumentException("the previous store has another grid");
+                }
+                sameGridChecked = previous;
             }
-            addEncoded(sampleId, material, thicknessMm, bulk, totalGeometry, index, previous.codes(row));
-            weighted.copy(size - 1, previous.weightedScreen, row);
+            if (row < 0 || row >= previous.size) {
+                throw new IndexOutOfBoundsException("row " + row + " of a store of " + previous.size);
+            }
+            int i = nextSlot();
+            if (runSource == previous && runFrom + runLength == row && runTo + runLength == i) {
+                runLength++;
+            } else {
+                flushRun();
+                runSource = previous;
+                runFrom = row;
+                runTo = i;
+                runLength = 1;
+            }
+            weighted.copy(i, previous.weightedScreen, row);
+            record(i, sampleId, material, thicknessMm, bulk, totalGeometry, index);
             return this;
+        }
+
+        /** Copies the pending run of carried rows into the columns: one array copy per grid wavelength. */
+        private void flushRun() {
+            if (runLength > 0) {
+                for (int w = 0; w < columns.length; w++) {
+                    System.arraycopy(runSource.columns[w], runFrom, columns[w], runTo, runLength);
+                }
+            }
+            runSource = null;
+            runLength = 0;
         }
 
         private void record(int i, long sampleId, StoredMaterial material, double thickness, boolean isBulk,
@@ -328,6 +365,7 @@ public final class SpectralStore {
             if (built) {
                 throw new IllegalStateException("this builder has already built its store");
             }
+            flushRun();
             built = true;
             SpectralStore store = new SpectralStore(this);
             columns = null; // handed over

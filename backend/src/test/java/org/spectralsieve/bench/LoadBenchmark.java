@@ -73,7 +73,8 @@ class LoadBenchmark {
             Kind.SEARCH_WEIGHTED, "passes over 85% of led 365 and uv hazard under 0.1% and luminous over 70%",
             Kind.SEARCH_BEHIND, "blocks under 1% at 405 nm and luminous over 70%, behind 4 mm clear float glass");
 
-    private record Outcome(Kind kind, int status, double ms, String failure) {
+    /** @param startMs when the request was sent, from the start of the run */
+    private record Outcome(Kind kind, int status, double ms, String failure, double startMs) {
     }
 
     /** An import the server answered 201 for: what was sent and the sample it names. */
@@ -103,7 +104,7 @@ class LoadBenchmark {
             for (int c = 0; c < clients; c++) {
                 pool.submit(() -> {
                     for (int i = next.getAndIncrement(); i < plan.length; i = next.getAndIncrement()) {
-                        done.add(send(http, base, library, plan[i], i, acknowledged));
+                        done.add(send(http, base, library, plan[i], i, acknowledged, t0));
                     }
                 });
             }
@@ -163,8 +164,9 @@ class LoadBenchmark {
     }
 
     private static Outcome send(HttpClient http, String base, Library library, Kind kind, int i,
-                                List<Acknowledged> acknowledged) {
+                                List<Acknowledged> acknowledged, long runStart) {
         long t0 = System.nanoTime();
+        double startMs = (t0 - runStart) / 1e6;
         try {
             HttpRequest request = library.request(base, kind, i);
             HttpResponse<String> response = http.send(request, HttpResponse.BodyHandlers.ofString());
@@ -175,9 +177,9 @@ class LoadBenchmark {
                 acknowledged.add(new Acknowledged(JSON.readTree(response.body()).path("sampleId").asLong(),
                         Checksums.sha256(Library.importFile(i))));
             }
-            return new Outcome(kind, status, ms, expected ? null : abbreviate(response.body()));
+            return new Outcome(kind, status, ms, expected ? null : abbreviate(response.body()), startMs);
         } catch (Exception e) {
-            return new Outcome(kind, -1, (System.nanoTime() - t0) / 1e6, e.toString());
+            return new Outcome(kind, -1, (System.nanoTime() - t0) / 1e6, e.toString(), startMs);
         }
     }
 
@@ -211,8 +213,32 @@ class LoadBenchmark {
             System.out.printf("BENCH load-kind kind=%s count=%d p50_ms=%s p95_ms=%s p99_ms=%s max_ms=%s%n", kind.label(),
                     t.length, ms(percentile(t, 50)), ms(percentile(t, 95)), ms(percentile(t, 99)), ms(percentile(t, 100)));
         });
+        phases(outcomes);
         outcomes.stream().filter(o -> o.failure() != null).limit(10).forEach(o -> System.out.printf(
                 "BENCH load-failure kind=%s status=%d %s%n", o.kind().label(), o.status(), o.failure()));
+    }
+
+    /**
+     * Searches and the other kinds by quarter of the run (by when each was sent): a tail made in the first
+     * quarter alone is the service warming up (its JIT compiling on the same two cores), not its steady state.
+     */
+    private static void phases(List<Outcome> outcomes) {
+        double end = outcomes.stream().mapToDouble(Outcome::startMs).max().orElse(0) + 1e-9;
+        for (int q = 0; q < 4; q++) {
+            double from = end * q / 4;
+            double to = end * (q + 1) / 4;
+            List<Outcome> in = outcomes.stream().filter(o -> o.startMs() >= from && o.startMs() < to).toList();
+            double[] searches = in.stream().filter(o -> o.kind().ordinal() <= Kind.SEARCH_BEHIND.ordinal())
+                    .mapToDouble(Outcome::ms).toArray();
+            double[] others = in.stream().filter(o -> o.kind().ordinal() > Kind.SEARCH_BEHIND.ordinal())
+                    .mapToDouble(Outcome::ms).toArray();
+            if (searches.length > 0 && others.length > 0) {
+                System.out.printf(Locale.ROOT, "BENCH load-phase quarter=%d search_count=%d search_p50_ms=%s search_p99_ms=%s"
+                                + " other_count=%d other_p50_ms=%s other_p99_ms=%s%n", q + 1, searches.length,
+                        ms(percentile(searches, 50)), ms(percentile(searches, 99)), others.length,
+                        ms(percentile(others, 50)), ms(percentile(others, 99)));
+            }
+        }
     }
 
     private static String abbreviate(String body) {

@@ -77,6 +77,38 @@ class CurveCacheTest {
     }
 
     @Test
+    void aSuccessorTakesItsPredecessorsCurvesAsTheyAreWithinTheSameBudget() {
+        long budget = 100_000;
+        CurveCache previous = new CurveCache(budget);
+        for (int id = 1; id <= 6; id++) {
+            previous.offer(id, curve(id / 10.0));
+        }
+        CurveCache next = previous.successor();
+        for (int id = 1; id <= 6; id++) {
+            assertThat(next.offerKept(previous, id)).isTrue();
+            // the very curve, not a copy decoded or compacted again
+            assertThat(next.get(id)).isSameAs(previous.get(id)).isEqualTo(curve(id / 10.0));
+        }
+        assertThat(next.offerKept(previous, 99)).as("a curve the predecessor does not hold").isFalse();
+        assertThat(next.heapBytes()).isEqualTo(previous.heapBytes());
+        // filled up to the budget like offer, never evicting
+        for (int id = 7; next.offer(id, curve(id / 100.0)); id++) {
+            assertThat(next.heapBytes()).isLessThanOrEqualTo(budget);
+        }
+        assertThat(next.get(1)).isNotNull();
+        CurveCache empty = new CurveCache(budget);
+        assertThat(empty.successor().offerKept(empty, 1)).as("nothing to take from an empty predecessor").isFalse();
+    }
+
+    @Test
+    void onlyASuccessorTakesCurvesFromACache() {
+        CurveCache previous = new CurveCache(100_000);
+        previous.offer(1, curve(0.5));
+        org.assertj.core.api.Assertions.assertThatThrownBy(() -> new CurveCache(100_000).offerKept(previous, 1))
+                .isInstanceOf(IllegalArgumentException.class);
+    }
+
+    @Test
     void aBudgetOfZeroCachesNothing() {
         CurveCache cache = new CurveCache(0);
         assertThat(cache.offer(1, curve(0.5))).isFalse();

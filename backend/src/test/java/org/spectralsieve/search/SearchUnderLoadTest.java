@@ -104,6 +104,9 @@ class SearchUnderLoadTest {
                 work.add(pool.submit(() -> {
                     for (int k = 0; k < 5; k++) {
                         long sampleId = importInto(library, materialId, 1 + writer + k * 0.1, "w" + writer + "-" + k);
+                        if (writer != 0) {
+                            kept.refresh(); // what the import service does after its commit (writer 0 leaves it to the search)
+                        }
                         // acknowledged: the very next search (store) of this process holds the sample
                         assertThat(StoreRebuildReuseTest.indexOf(kept.store(), sampleId)).isNotNegative();
                     }
@@ -121,6 +124,44 @@ class SearchUnderLoadTest {
         for (Requirement r : List.of(PLAIN, SOLVED)) {
             assertThat(kept.search(r, 20).rows()).isEqualTo(fresh.search(r, 20).rows());
         }
+    }
+
+    @Test
+    @org.junit.jupiter.api.Timeout(value = 120, unit = java.util.concurrent.TimeUnit.SECONDS) // a hang guard, not a speed check
+    void aWritersRefreshDoesNotQueueBehindARebuildInProgressAndTheNextSearchStillSeesItsWrite() throws Exception {
+        JooqLibraryRepository library = demoLibrary();
+        CountDownLatch paused = new CountDownLatch(1);
+        CountDownLatch release = new CountDownLatch(1);
+        AtomicInteger builds = new AtomicInteger();
+        SearchService kept = new SearchService(library, generation -> {
+            if (builds.incrementAndGet() == 2) { // the rebuild after the first import waits here, holding the build lock
+                paused.countDown();
+                try {
+                    release.await();
+                } catch (InterruptedException e) {
+                    Thread.currentThread().interrupt();
+                }
+            }
+        });
+        kept.search(PLAIN, 20);
+        long materialId = library.findMaterials(null, null).get(0).id();
+        long first = importInto(library, materialId, 2.0, "first");
+        ExecutorService searcher = Executors.newSingleThreadExecutor();
+        try {
+            Future<Integer> search = searcher.submit(() -> StoreRebuildReuseTest.indexOf(kept.store(), first));
+            paused.await();
+            long second = importInto(library, materialId, 3.0, "second");
+            kept.refresh(); // returns although the other rebuild holds the lock: it did not wait for it
+            assertThat(builds.get()).as("the refresh built nothing while the other rebuild ran").isEqualTo(2);
+            release.countDown();
+            assertThat(search.get()).as("the search that began after the first import holds it").isNotNegative();
+            assertThat(StoreRebuildReuseTest.indexOf(kept.store(), second)).as("the next search holds the second")
+                    .isNotNegative();
+        } finally {
+            release.countDown();
+            searcher.shutdownNow();
+        }
+        StoreRebuildReuseTest.assertSameStore(kept.store(), new SearchService(library).store());
     }
 
     private static JooqLibraryRepository demoLibrary() {

@@ -154,12 +154,135 @@ class StoreRebuildReuseTest {
         assertThat(source.reused()).isEqualTo(inUse - 2);
     }
 
+    @Test
+    void rowsCarriedInRunsAreTheRowsTheirCurvesGiveWhenAddedAgain() {
+        // curves of varied ranges, steps and detection limits (fixed seed), in a store grown from a small capacity
+        java.util.Random random = new java.util.Random(20261204L);
+        List<Curve> curves = new ArrayList<>();
+        for (int k = 0; k < 40; k++) {
+            curves.add(randomCurve(random));
+        }
+        org.spectralsieve.store.StoredMaterial[] materials = {
+                new org.spectralsieve.store.StoredMaterial(1, "A sheet", "plastic sheet", org.spectralsieve.requirement.MadeThicknesses.assumed(List.of(1.0, 2.0))),
+                new org.spectralsieve.store.StoredMaterial(2, "B film", "film", org.spectralsieve.requirement.MadeThicknesses.assumed(List.of(0.1)))};
+        org.spectralsieve.optics.ConstantIndex index = new org.spectralsieve.optics.ConstantIndex(1.5);
+        SpectralStore.Builder first = SpectralStore.builder(SpectralStore.DEFAULT_GRID, 3);
+        for (int k = 0; k < curves.size(); k++) {
+            first.add(100 + k, materials[k % 2], 1 + k % 4, k % 3 != 0, k % 5 == 0, index, curves.get(k));
+        }
+        SpectralStore previous = first.build();
+
+        // a rebuild's order: runs of consecutive rows, rows skipped (retired), a row moved (its material renamed),
+        // new curves between carried rows; built again with capacity 1 so the arrays grow while a run is pending
+        SpectralStore.Builder carried = SpectralStore.builder(SpectralStore.DEFAULT_GRID, 1);
+        SpectralStore.Builder reference = SpectralStore.builder(SpectralStore.DEFAULT_GRID, 1);
+        List<Curve> fresh = new ArrayList<>();
+        int[] order = new int[curves.size() + 8];
+        int n = 0;
+        for (int row = 0; row < curves.size(); row++) {
+            if (row == 7 || row == 21 || row == 22) {
+                continue; // retired
+            }
+            if (row == 30) {
+                order[n++] = -1; // a new curve between carried rows
+            }
+            order[n++] = row == 12 ? 35 : row == 35 ? 12 : row; // two rows swapped
+        }
+        order[n++] = -1;
+        for (int j = 0; j < n; j++) {
+            int row = order[j];
+            if (row < 0) {
+                Curve added = randomCurve(random);
+                fresh.add(added);
+                carried.add(900 + j, materials[0], 2.5, true, false, index, added);
+                reference.add(900 + j, materials[0], 2.5, true, false, index, added);
+            } else {
+                double mm = 1 + row % 4;
+                carried.addCarried(100 + row, materials[row % 2], mm, row % 3 != 0, row % 5 == 0, index, previous, row);
+                reference.add(100 + row, materials[row % 2], mm, row % 3 != 0, row % 5 == 0, index, curves.get(row));
+            }
+        }
+        assertThat(fresh).hasSize(2);
+        SpectralStore rebuilt = carried.build();
+        assertSameStore(rebuilt, reference.build());
+        assertThat(rebuilt.size()).isEqualTo(curves.size() - 3 + 2);
+    }
+
+    /** A curve over a random part of 200–1100 nm, random steps, T between 0 and 0.95, some points below detection. */
+    private static Curve randomCurve(java.util.Random random) {
+        double from = 200 + random.nextInt(200);
+        double to = 500 + random.nextInt(600);
+        double step = 0.5 + random.nextInt(8);
+        int points = (int) ((to - from) / step) + 1;
+        double[] nm = new double[points];
+        double[] t = new double[points];
+        boolean[] below = new boolean[points];
+        double[] limits = new double[points];
+        double edge = from + random.nextDouble() * (to - from);
+        for (int p = 0; p < points; p++) {
+            nm[p] = from + p * step;
+            t[p] = 0.95 / (1 + Math.exp(-(nm[p] - edge) / (2 + random.nextDouble() * 20)));
+            limits[p] = 1e-3;
+            if (t[p] < 1e-3) {
+                t[p] = 1e-3;
+                below[p] = true;
+            }
+        }
+        return Curve.of(nm, t, below, limits);
+    }
+
+    @Test
+    void aStoreRefreshedAfterEachWriteHoldsItBeforeTheNextSearchAndEqualsAWholeBuild() {
+        java.util.concurrent.atomic.AtomicInteger builds = new java.util.concurrent.atomic.AtomicInteger();
+        SearchService kept = new SearchService(library, generation -> builds.incrementAndGet());
+        kept.search(PLAIN, 20);
+        assertThat(builds.get()).isEqualTo(1);
+
+        // what the import and curation services do after each commit
+        Material first = library.findMaterials(null, null).get(0);
+        long imported = library.storeImport(first.id(), null, newSample(3.5, "refreshed"), file("refreshed")).sampleId();
+        kept.refresh();
+        assertThat(builds.get()).as("the writer's refresh rebuilt the store").isEqualTo(2);
+        assertThat(indexOf(kept.store(), imported)).isNotNegative();
+        assertThat(builds.get()).as("so the next search found it up to date").isEqualTo(2);
+        assertSameStore(kept.store(), new SearchService(library).store());
+
+        SampleInfo corrected = library.findMaterials(null, null).get(4).samples().get(0);
+        revisions.correctSample(corrected.id(), new SampleCorrection(corrected.thicknessMm() * 1.5, null, null, null, null,
+                null, null, "re-measured"), (now, next, perPoint) -> { });
+        kept.refresh();
+        Material retired = library.findMaterials(null, null).get(6);
+        revisions.setRetired(JooqLibraryRevisions.Kind.MATERIAL, retired.id(), true);
+        kept.refresh();
+        assertThat(builds.get()).isEqualTo(4);
+        assertSameStore(kept.store(), new SearchService(library).store());
+        revisions.setRetired(JooqLibraryRevisions.Kind.MATERIAL, retired.id(), false);
+        kept.refresh();
+        assertSameStore(kept.store(), new SearchService(library).store());
+        kept.refresh();
+        assertThat(builds.get()).as("nothing changed: no rebuild").isEqualTo(5);
+
+        SearchService fresh = new SearchService(library);
+        for (Requirement r : List.of(PLAIN, SOLVED, WEIGHTED)) {
+            assertThat(kept.search(r, 20).rows()).isEqualTo(fresh.search(r, 20).rows());
+        }
+        assertThat(kept.curveCacheUse().curves()).isEqualTo(fresh.curveCacheUse().curves());
+    }
+
     private void importInto(long materialId, double thicknessMm, String note) {
+        library.storeImport(materialId, null, newSample(thicknessMm, note), file(note));
+    }
+
+    private static SourceFile file(String note) {
         byte[] bytes = ("wavelength_nm,T\n300,0.02\n350,0.6\n400,0.9\n# " + note + "\n").getBytes(StandardCharsets.UTF_8);
-        SourceFile file = new SourceFile(note + ".csv", "text/csv", "delimited", bytes, Checksums.sha256(bytes));
+        return new SourceFile(note + ".csv", "text/csv", "delimited", bytes, Checksums.sha256(bytes));
+    }
+
+    private static NewSample newSample(double thicknessMm, String note) {
+        SourceFile file = file(note);
         Curve curve = Curve.of(new double[] {300, 350, 400}, new double[] {0.02, 0.6, 0.9}, 1e-3);
-        library.storeImport(materialId, null, new NewSample(thicknessMm, Geometry.REGULAR, Provenance.MEASURED, "", null,
-                "", note, 1e-3, curve, file.fileName(), file.sha256()), file);
+        return new NewSample(thicknessMm, Geometry.REGULAR, Provenance.MEASURED, "", null, "", note, 1e-3, curve,
+                file.fileName(), file.sha256());
     }
 
     static void assertSameStore(SpectralStore actual, SpectralStore expected) {
