@@ -5,6 +5,7 @@ import com.zaxxer.hikari.HikariDataSource;
 import java.sql.SQLException;
 import java.util.Arrays;
 import java.util.List;
+import java.util.Locale;
 import java.util.Optional;
 import org.flywaydb.core.Flyway;
 import org.flywaydb.core.api.MigrationState;
@@ -83,7 +84,7 @@ final class PlainLibraryServices implements LibraryServices {
             }
             PlainLibraryServices services = new PlainLibraryServices(dataSource, jooq(dataSource, dialect.get()), settings);
             if (settings.loadDemoLibraryWhenEmpty() && services.repository.countMaterials() == 0) {
-                dataSource.close();
+                services.close();
                 return Optional.empty();
             }
             return Optional.of(services);
@@ -102,7 +103,7 @@ final class PlainLibraryServices implements LibraryServices {
         logging.initialize(new LoggingInitializationContext(settings.environment()), null, null);
         for (String[] level : PlainWiringSettings.logLevels()) {
             String logger = level[0].equals("root") ? LoggingSystem.ROOT_LOGGER_NAME : level[0];
-            logging.setLogLevel(logger, LogLevel.valueOf(level[1].toUpperCase(java.util.Locale.ROOT)));
+            logging.setLogLevel(logger, LogLevel.valueOf(level[1].toUpperCase(Locale.ROOT)));
         }
     }
 
