@@ -8,10 +8,15 @@ import org.springframework.context.annotation.Configuration;
 
 /** The emitters and responses names resolve to: the built-in catalogues, then the imported spectra. */
 @Configuration
-class WeightingConfiguration {
+public class WeightingConfiguration {
 
     @Bean
     ImportedSpectrumLookup spectrumLookup(ReferenceSpectrumRepository importedSpectra) {
+        return newSpectrumLookup(importedSpectra);
+    }
+
+    /** Built-in names first, then the imported spectra: the bean above, and the command line's plain wiring. */
+    public static ImportedSpectrumLookup newSpectrumLookup(ReferenceSpectrumRepository importedSpectra) {
         return new ImportedSpectrumLookup(importedSpectra, SpectrumLookup.builtIn());
     }
 }

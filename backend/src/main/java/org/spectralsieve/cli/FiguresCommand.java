@@ -13,7 +13,6 @@ import org.spectralsieve.library.SampleCurve;
 import org.spectralsieve.library.SampleCurves;
 import org.spectralsieve.requirement.StackLayer;
 import org.spectralsieve.search.PartInFront;
-import org.spectralsieve.search.SearchService;
 import org.spectralsieve.spectrum.Curve;
 import org.spectralsieve.spectrum.Cutoffs;
 import org.spectralsieve.weighting.Emitter;
@@ -26,7 +25,6 @@ import org.spectralsieve.weighting.SafetyCaution;
 import org.spectralsieve.weighting.SpectrumLookup;
 import org.spectralsieve.weighting.SunglassCategory;
 import org.spectralsieve.weighting.UvBand;
-import org.springframework.context.ConfigurableApplicationContext;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
@@ -92,18 +90,18 @@ final class FiguresCommand implements Callable<Integer> {
                                 .map(UvBand.Convention::key).toList())));
         SampleCurve sample;
         FigureSheet sheet;
-        try (ConfigurableApplicationContext context = LibraryContext.start(database.url)) {
-            SpectrumLookup spectra = context.getBean(SpectrumLookup.class);
+        try (LibraryServices library = LibraryContext.open(database.url)) {
+            SpectrumLookup spectra = library.spectra();
             Emitter emitter = emitter(spectra, "--emitter", emitterName);
             Response response = spectra.response(responseName).orElseThrow(() -> new ParameterException(
                     spec.commandLine(), "--response: unknown response '" + responseName + "'; known: "
                             + String.join(", ", spectra.responses().stream().map(Response::name).toList())));
             Emitter solar = solarName == null ? null : emitter(spectra, "--solar", solarName);
-            sample = context.getBean(SampleCurves.class).get(sampleId, thicknessMm, null);
+            sample = library.sampleCurves().get(sampleId, thicknessMm, null);
             Curve seen = sample.curve();
             if (behind != null || behindMm != null) {
                 try {
-                    StackLayer part = PartInFront.resolve(context.getBean(SearchService.class), behind, behindMm);
+                    StackLayer part = PartInFront.resolve(library.search(), behind, behindMm);
                     seen = PartInFront.through(sample, part);
                     stackText = PartInFront.describe(part);
                 } catch (PartInFront.Refused e) {

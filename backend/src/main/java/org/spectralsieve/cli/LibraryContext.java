@@ -3,6 +3,7 @@ package org.spectralsieve.cli;
 import java.sql.SQLException;
 import java.util.ArrayList;
 import java.util.List;
+import java.util.Optional;
 import org.spectralsieve.SpectralSieveApplication;
 import org.springframework.boot.Banner;
 import org.springframework.boot.WebApplicationType;
@@ -24,7 +25,7 @@ final class LibraryContext {
      * only warnings pass, and the loggers that report a failed start are silenced: the command reports the
      * failure itself, in one line instead of a stack trace.
      */
-    private static final List<String> QUIET = List.of(
+    static final List<String> QUIET = List.of(
             "--logging.level.root=WARN",
             "--logging.level.org.springframework.boot.SpringApplication=OFF",
             "--logging.level.org.springframework.boot.diagnostics=OFF",
@@ -38,6 +39,24 @@ final class LibraryContext {
     private LibraryContext() {
     }
 
+    /**
+     * The services of a read-only command: the plain wiring when it is sure to answer as the Spring context
+     * would (see {@link PlainLibraryServices}), else the Spring context. The system property
+     * {@value PlainWiringSettings#WIRING}{@code =spring} always takes the context (the earlier way, kept for
+     * comparison in tests and the benchmark).
+     *
+     * @param dbUrl a JDBC URL, or null for the server's default (SIEVE_DB_URL, else the H2 file under ./data)
+     */
+    static LibraryServices open(String dbUrl) {
+        if (!"spring".equals(System.getProperty(PlainWiringSettings.WIRING))) {
+            Optional<LibraryServices> plain = PlainLibraryServices.open(settings(dbUrl, List.of()));
+            if (plain.isPresent()) {
+                return plain.get();
+            }
+        }
+        return new SpringLibraryServices(start(dbUrl));
+    }
+
     /** @param dbUrl a JDBC URL, or null for the server's default (SIEVE_DB_URL, else the H2 file under ./data) */
     static ConfigurableApplicationContext start(String dbUrl) {
         return start(dbUrl, List.of());
@@ -46,11 +65,7 @@ final class LibraryContext {
     /** @param settings further {@code --name=value} settings, e.g. to keep the demo library out of a restore's target */
     static ConfigurableApplicationContext start(String dbUrl, List<String> settings) {
         skipBackgroundPreinitialisation();
-        List<String> args = new ArrayList<>(QUIET);
-        args.addAll(settings);
-        if (dbUrl != null) {
-            args.add("--spring.datasource.url=" + dbUrl);
-        }
+        List<String> args = settings(dbUrl, settings);
         try {
             return new SpringApplicationBuilder(SpectralSieveApplication.class)
                     .web(WebApplicationType.NONE)
@@ -66,6 +81,16 @@ final class LibraryContext {
             }
             throw new CliFailure(SieveCli.FAILED, "cannot open the library: " + rootMessage(e));
         }
+    }
+
+    /** The command-line settings the context is started with: quiet logging, then {@code settings}, then the URL. */
+    private static List<String> settings(String dbUrl, List<String> settings) {
+        List<String> args = new ArrayList<>(QUIET);
+        args.addAll(settings);
+        if (dbUrl != null) {
+            args.add("--spring.datasource.url=" + dbUrl);
+        }
+        return args;
     }
 
     /**

@@ -3,10 +3,8 @@ package org.spectralsieve.cli;
 import java.util.List;
 import java.util.concurrent.Callable;
 import java.util.stream.Collectors;
-import org.spectralsieve.library.JooqLibraryRepository;
 import org.spectralsieve.library.Material;
 import org.spectralsieve.search.SearchService;
-import org.springframework.context.ConfigurableApplicationContext;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
@@ -43,8 +41,8 @@ final class MaterialsCommand implements Callable<Integer> {
             throw new ParameterException(spec.commandLine(), "--q: at most " + MAX_TEXT + " characters, got " + text.length());
         }
         List<Material> materials;
-        try (ConfigurableApplicationContext context = LibraryContext.start(database.url)) {
-            materials = context.getBean(JooqLibraryRepository.class).findMaterials(materialClass, text);
+        try (LibraryServices library = LibraryContext.open(database.url)) {
+            materials = library.repository().findMaterials(materialClass, text);
         }
         TextTable table = new TextTable(List.of(">id", "name", "class", "measured mm", "made in"));
         for (Material m : materials) {

@@ -24,9 +24,7 @@ import org.spectralsieve.search.LayerResolutionException;
 import org.spectralsieve.search.SearchService;
 import org.spectralsieve.search.Shortlist;
 import org.spectralsieve.search.WordedSearch;
-import org.spectralsieve.search.text.LibraryTextSearch;
 import org.spectralsieve.weighting.SpectrumLookup;
-import org.springframework.context.ConfigurableApplicationContext;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
@@ -70,10 +68,13 @@ final class SearchCommand implements Callable<Integer> {
         Shortlist shortlist;
         WordedSearch.Words words = null;
         String jsonText = null;
-        try (ConfigurableApplicationContext context = LibraryContext.start(database.url)) {
-            SearchService search = context.getBean(SearchService.class);
-            WordedSearch worded = new WordedSearch(search, context.getBean(LibraryTextSearch.class));
-            WordedSearch.Read read = read(worded, requirementText, context.getBean(SpectrumLookup.class),
+        // --json prints with the API's mapper, which only the Spring context configures (Jackson's modules and
+        // Spring Boot's settings), so it takes the context; the table needs no mapper and may take the plain wiring
+        SpringLibraryServices withMapper = json ? new SpringLibraryServices(LibraryContext.start(database.url)) : null;
+        try (LibraryServices library = withMapper != null ? withMapper : LibraryContext.open(database.url)) {
+            SearchService search = library.search();
+            WordedSearch worded = new WordedSearch(search, library.textSearch());
+            WordedSearch.Read read = read(worded, requirementText, library.spectra(),
                     search.materialClasses());
             try {
                 WordedSearch.Answer answer = worded.search(read, limit);
@@ -92,7 +93,7 @@ final class SearchCommand implements Callable<Integer> {
                     out.put("words", Map.of("text", words.text(), "provenance", words.provenances(), "admitted",
                             words.admitted()));
                 }
-                jsonText = context.getBean(JsonMapper.class).writerWithDefaultPrettyPrinter().writeValueAsString(out);
+                jsonText = withMapper.context().getBean(JsonMapper.class).writerWithDefaultPrettyPrinter().writeValueAsString(out);
             }
         }
         if (json) {

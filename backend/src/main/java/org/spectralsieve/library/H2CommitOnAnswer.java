@@ -31,7 +31,7 @@ import org.springframework.stereotype.Component;
  * in the database file, so it is set on every start rather than trusted from an earlier one.
  */
 @Component
-class H2CommitOnAnswer implements InitializingBean {
+public class H2CommitOnAnswer implements InitializingBean {
 
     private static final Logger LOG = LoggerFactory.getLogger(H2CommitOnAnswer.class);
     private static final Pattern WRITE_DELAY_IN_URL = Pattern.compile("(?i);\\s*WRITE_DELAY\\s*=\\s*(-?\\d+)");
@@ -50,6 +50,11 @@ class H2CommitOnAnswer implements InitializingBean {
 
     @Override
     public void afterPropertiesSet() throws SQLException {
+        makeCommitsDurable(dataSource, configuredUrl);
+    }
+
+    /** What the bean does at start, for a data source made without Spring (the command line's plain wiring). */
+    public static void makeCommitsDurable(DataSource dataSource, String configuredUrl) throws SQLException {
         try (Connection c = dataSource.getConnection()) {
             String url = c.getMetaData().getURL();
             if (!isH2FileDatabase(url)) {

@@ -8,7 +8,7 @@ import org.springframework.context.annotation.Configuration;
 
 /** Wires the persistence edge; the repository itself knows nothing of Spring. */
 @Configuration
-class LibraryConfiguration {
+public class LibraryConfiguration {
 
     /**
      * The generated classes come from H2, which stores unquoted names in upper case; PostgreSQL folds them
@@ -17,7 +17,12 @@ class LibraryConfiguration {
      */
     @Bean
     DefaultConfigurationCustomizer unquotedNames() {
-        return configuration -> configuration.settings().withRenderQuotedNames(RenderQuotedNames.NEVER);
+        return LibraryConfiguration::renderNamesUnquoted;
+    }
+
+    /** The same setting for a jOOQ configuration made without Spring (the command line's plain wiring). */
+    public static void renderNamesUnquoted(org.jooq.Configuration configuration) {
+        configuration.settings().withRenderQuotedNames(RenderQuotedNames.NEVER);
     }
 
     @Bean

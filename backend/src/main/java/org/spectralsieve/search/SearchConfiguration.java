@@ -6,12 +6,17 @@ import org.springframework.context.annotation.Bean;
 import org.springframework.context.annotation.Configuration;
 
 @Configuration
-class SearchConfiguration {
+public class SearchConfiguration {
 
     @Bean
     SearchService searchService(JooqLibraryRepository library,
                                 @Value("${sieve.search.curve-cache-mb:128}") long curveCacheMb,
                                 @Value("${sieve.search.judgement-lanes:-1}") int judgementLanes) {
+        return newSearchService(library, curveCacheMb, judgementLanes);
+    }
+
+    /** The search service from its two settings: the bean above, and the command line's plain wiring. */
+    public static SearchService newSearchService(JooqLibraryRepository library, long curveCacheMb, int judgementLanes) {
         if (curveCacheMb < 0) {
             throw new IllegalArgumentException("sieve.search.curve-cache-mb must be >= 0 (0 reads every judged curve"
                     + " from the database), was " + curveCacheMb);

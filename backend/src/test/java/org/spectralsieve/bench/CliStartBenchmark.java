@@ -19,9 +19,11 @@ import org.spectralsieve.cli.LauncherProcess;
  * One command-line call on an existing library, started as its own process, the old way and the new way
  * side by side (docs/command-line-start-up.md): {@code variant=plain} is {@code java -jar backend/target/backend-*.jar},
  * {@code variant=launcher} is the repository's {@code spectral-sieve} script (unpacked jar, class-data archive,
- * quick compiler) after its first run. Commands: {@code materials}, {@code search "passes over 80% at 254 nm, at 3 mm"}
+ * quick compiler) after its first run, whose read-only commands answer on the plain-Java wiring when they can;
+ * {@code variant=launcher-context} is the same launcher with {@code -Dsieve.cli.wiring=spring} (every command in
+ * the Spring context, the path before the plain wiring; its own cache folder and class archive). Commands: {@code materials}, {@code search "passes over 80% at 254 nm, at 3 mm"}
  * and {@code figures --sample ID} on the demo library in an H2 file database made once before timing. The
- * runs alternate plain / launcher so both see the same load. Each pair's answers must be identical.
+ * runs alternate plain / launcher / launcher-context so all see the same load. Each pair's answers must be identical.
  * {@code variant=launcher-first} is the one-off first call (unpacking and recording the archive).
  * Prints {@code BENCH cli-start command=<c> variant=<v> library=demo materials=<n> runs=<r> p50_ms p95_ms}.
  * Needs the built jar (the bench profile runs before packaging: build it first with
@@ -48,6 +50,12 @@ class CliStartBenchmark {
         LauncherProcess sieve = new LauncherProcess(root.get(), Map.of(
                 "SIEVE_CACHE_DIR", work.resolve("cache").toString(),
                 "SIEVE_INDEX_DIR", work.resolve("index").toString()));
+        // the earlier path kept behind its switch: every command in the Spring context, with a class archive of
+        // its own (recorded by its own first call), so that it maps the classes it loads as the plain wiring does
+        LauncherProcess inContext = new LauncherProcess(root.get(), Map.of(
+                "SIEVE_CACHE_DIR", work.resolve("cache-context").toString(),
+                "SIEVE_INDEX_DIR", work.resolve("index").toString(),
+                "SIEVE_JAVA_OPTS", "-Dsieve.cli.wiring=spring"));
 
         // the library is made (demo load on first open) and its size read before any timing
         LauncherProcess.Result made = sieve.plainJar(jar.get(), "materials", "--db-url", dbUrl);
@@ -55,6 +63,8 @@ class CliStartBenchmark {
         long materials = made.out().lines().count() - 1;
         LauncherProcess.Result first = sieve.launcher("materials", "--db-url", dbUrl);
         assertEquals(made.out(), first.out());
+        LauncherProcess.Result contextFirst = inContext.launcher("materials", "--db-url", dbUrl);
+        assertEquals(made.out(), contextFirst.out());
         long sample = firstSampleOf(sieve.plainJar(jar.get(), "search", REQUIREMENT, "--limit", "1", "--db-url", dbUrl));
 
         Map<String, String[]> commands = new LinkedHashMap<>();
@@ -64,12 +74,16 @@ class CliStartBenchmark {
 
         Map<String, List<Double>> plainMs = new LinkedHashMap<>();
         Map<String, List<Double>> launcherMs = new LinkedHashMap<>();
+        Map<String, List<Double>> contextMs = new LinkedHashMap<>();
         for (int run = 0; run < runs; run++) {
             for (Map.Entry<String, String[]> c : commands.entrySet()) {
                 LauncherProcess.Result plain = sieve.plainJar(jar.get(), c.getValue());
                 LauncherProcess.Result launched = sieve.launcher(c.getValue());
+                LauncherProcess.Result context = inContext.launcher(c.getValue());
                 assertEquals(0, plain.exitCode(), plain.err());
                 assertEquals(plain.out(), launched.out(), c.getKey() + ": the launcher must answer as the plain jar");
+                assertEquals(plain.out(), context.out(), c.getKey() + ": the Spring context must answer as the plain jar");
+                contextMs.computeIfAbsent(c.getKey(), k -> new ArrayList<>()).add(context.wallMs());
                 plainMs.computeIfAbsent(c.getKey(), k -> new ArrayList<>()).add(plain.wallMs());
                 launcherMs.computeIfAbsent(c.getKey(), k -> new ArrayList<>()).add(launched.wallMs());
             }
@@ -77,6 +91,7 @@ class CliStartBenchmark {
         print("materials", "launcher-first", materials, List.of(first.wallMs()));
         for (String command : commands.keySet()) {
             print(command, "plain", materials, plainMs.get(command));
+            print(command, "launcher-context", materials, contextMs.get(command));
             print(command, "launcher", materials, launcherMs.get(command));
         }
     }

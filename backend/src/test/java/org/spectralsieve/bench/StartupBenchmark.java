@@ -39,6 +39,8 @@ import org.spectralsieve.cli.LauncherProcess;
  * script instead of {@code java -jar} (unpacked jar, the web service's own class-data archive;
  * docs/start-and-load.md), with a private cache folder that one untimed start and stop fills first (the
  * archive is recorded once per build, not per start). Its name in the BENCH line is {@code launcher:<jar>}.
+ * {@code launcher-default-jit:a.jar} is the same with {@code SIEVE_SERVER_JIT=default}: the launcher's web
+ * service with the JVM's own compile thresholds, the way it started before the raised C2 thresholds.
  * The default is the module's jar both ways, side by side.
  */
 class StartupBenchmark {
@@ -103,9 +105,9 @@ class StartupBenchmark {
 
     /** @return ms from launch to the first 200, and ms of the first search after it */
     /** One way of starting a jar: plain {@code java -jar}, or the launcher script with its own cache folder. */
-    private record Started(Path jar, boolean launcher, Path root, Path cache) {
+    private record Started(Path jar, boolean launcher, boolean defaultJit, Path root, Path cache) {
         String name() {
-            return (launcher ? "launcher:" : "") + jar.getFileName();
+            return (launcher ? (defaultJit ? "launcher-default-jit:" : "launcher:") : "") + jar.getFileName();
         }
 
         ProcessBuilder process(String heap, int port) {
@@ -117,6 +119,9 @@ class StartupBenchmark {
             builder.environment().put("SIEVE_JAR", jar.toAbsolutePath().toString());
             builder.environment().put("SIEVE_CACHE_DIR", cache.toString());
             builder.environment().put("SIEVE_JAVA_OPTS", "-Xmx" + heap);
+            if (defaultJit) {
+                builder.environment().put("SIEVE_SERVER_JIT", "default");
+            }
             builder.environment().put("JAVA_HOME", System.getProperty("java.home"));
             return builder;
         }
@@ -184,12 +189,14 @@ class StartupBenchmark {
         }
         List<Started> started = new ArrayList<>();
         for (String entry : named) {
-            boolean launcher = entry.startsWith("launcher:");
+            boolean defaultJit = entry.startsWith("launcher-default-jit:");
+            boolean launcher = defaultJit || entry.startsWith("launcher:");
             if (launcher && root == null) {
                 System.out.println("BENCH start: no spectral-sieve launcher found; " + entry + " left out");
                 continue;
             }
-            started.add(new Started(Path.of(launcher ? entry.substring("launcher:".length()) : entry), launcher, root,
+            String jar = launcher ? entry.substring(entry.indexOf(':') + 1) : entry;
+            started.add(new Started(Path.of(jar), launcher, defaultJit, root,
                     launcher ? Files.createTempDirectory("sieve-start-cache") : null));
         }
         return started;

@@ -50,11 +50,14 @@ class CommandStartUpWorkTest {
         String before = System.getProperty(LibraryContext.IGNORE_BACKGROUND_PREINITIALISATION);
         try {
             System.clearProperty(LibraryContext.IGNORE_BACKGROUND_PREINITIALISATION);
+            // about the Spring context: a current library would otherwise be answered on the plain wiring
+            System.setProperty(PlainWiringSettings.WIRING, "spring");
             CliRun materials = CliRun.against(DB_URL, "materials");
 
             assertThat(materials.exitCode()).as(materials.err()).isZero();
             assertThat(System.getProperty(LibraryContext.IGNORE_BACKGROUND_PREINITIALISATION)).isEqualTo("true");
         } finally {
+            System.clearProperty(PlainWiringSettings.WIRING);
             if (before == null) {
                 System.clearProperty(LibraryContext.IGNORE_BACKGROUND_PREINITIALISATION);
             } else {
