@@ -71,9 +71,9 @@ final class RescaledPoints implements PointReadings {
         if (done[i]) {
             return;
         }
-        SlabReading value = prepared.value()[i];
+        SlabReading value = prepared.value(i);
         double ti = value.transmittance(fromMm, toMm);
-        double limit = prepared.limit()[i].transmittance(fromMm, toMm);
+        double limit = prepared.limit(i).transmittance(fromMm, toMm);
         boolean b = measured.belowDetection(i);
         if (value.boundAt(fromMm, toMm)) {
             b = true;

@@ -37,12 +37,42 @@ public final class ThicknessSweep {
      *              {@link Layer#transmittanceAt} gives
      */
     public ThicknessSweep(Curve measured, double measuredMm, RefractiveIndex index, List<Layer> fixed) {
+        this(measured, measuredMm, index, fixed, false);
+    }
+
+    /**
+     * @param formWhenRead form each point's {@link SlabReading}s only when a thickness first reads that point
+     *                     (the reflectances are still computed and checked for every point now, so a failing
+     *                     index fails here as before); false forms them all now, the earlier way
+     */
+    public ThicknessSweep(Curve measured, double measuredMm, RefractiveIndex index, List<Layer> fixed,
+                          boolean formWhenRead) {
         BeerLambert.requireThickness("measuredMm", measuredMm);
         this.measured = measured;
         this.measuredMm = measuredMm;
         this.index = index;
         this.fixed = List.copyOf(fixed);
-        this.prepared = ThicknessRescaler.prepare(measured, index);
+        this.prepared = formWhenRead ? ThicknessRescaler.prepareWhenRead(measured, index)
+                : ThicknessRescaler.prepare(measured, index);
+    }
+
+    /**
+     * Stored point i's reading as the rescaling uses it (the measured T with the Fresnel reflectance of the
+     * index there, {@link SlabReading#of}), so a model of the same part (the thickness solver's) forms each
+     * reading once, not once more for itself.
+     */
+    public SlabReading reading(int i) {
+        return prepared.value(i);
+    }
+
+    /** The part's curve as measured. */
+    public Curve measured() {
+        return measured;
+    }
+
+    /** The Fresnel reflectance in air of the part's index at stored point i. */
+    public double fresnelReflectance(int i) {
+        return prepared.fresnel(i);
     }
 
     /**
