@@ -5,6 +5,7 @@ import java.util.List;
 import java.util.Map;
 import java.util.Optional;
 import org.spectralsieve.optics.ConstantIndex;
+import org.spectralsieve.optics.FixedParts;
 import org.spectralsieve.optics.Layer;
 import org.spectralsieve.optics.LightPath;
 import org.spectralsieve.optics.RefractiveIndex;
@@ -161,7 +162,12 @@ final class CandidatePath {
 
     private Curve stack(Curve candidateCurve) {
         RefractiveIndex index = candidate.index() != null ? candidate.index() : DEFAULT_INDEX;
-        return LightPath.of(Layer.fixed(candidateCurve, index), layer.orElseThrow().asLayer()).transmittance();
+        StackLayer fixed = layer.orElseThrow();
+        if (earlier) {
+            return LightPath.of(Layer.fixed(candidateCurve, index), fixed.asLayer()).transmittance();
+        }
+        // the same path, with the layer's side formed once per search and candidate grid, not per candidate
+        return FixedParts.of(fixed.curve(), fixed.index()).behind(Layer.fixed(candidateCurve, index));
     }
 
     private Curve cached(double d, java.util.function.Supplier<Curve> compute) {
