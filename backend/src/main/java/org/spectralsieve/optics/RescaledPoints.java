@@ -5,7 +5,8 @@ import org.spectralsieve.spectrum.PointReadings;
 
 /**
  * A bulk part's curve rescaled to one thickness, each point computed only when it is read: the same numbers,
- * point for point, as the curve {@link ThicknessRescaler.Prepared#at} builds (the same prepared readings, the
+ * point for point, as the curve {@link ThicknessRescaler.Prepared#at} builds — T, flags, limits and absorbance
+ * uncertainties (the same prepared readings, the
  * same rule), without computing the points nobody reads. A weighted figure reads the points around its
  * integration points — a 365 nm LED's 72 nm of a curve of 900 points — and a thickness solve asks for dozens
  * of thicknesses per sample, so this is most of a solve's cost saved (docs/exact-judgement-speed.md).
@@ -64,6 +65,30 @@ final class RescaledPoints implements PointReadings {
     public double detectionLimit(int i) {
         compute(i);
         return limits[i];
+    }
+
+    @Override
+    public boolean hasUncertainty() {
+        return measured.hasUncertainty();
+    }
+
+    /**
+     * Point i's absorbance uncertainty as {@link ThicknessRescaler.Prepared#at} carries it: NaN at a bound
+     * (none is known) or where the measured one is unknown, else {@link ThicknessRescaler#rescaledUncertainty}.
+     */
+    @Override
+    public double absorbanceUncertainty(int i) {
+        if (!measured.hasUncertainty() || belowDetection(i)) {
+            return Double.NaN;
+        }
+        double sigma = ThicknessRescaler.rescaledUncertainty(measured.absorbanceUncertainty(i), prepared.value(i),
+                fromMm, toMm);
+        if (!Double.isNaN(sigma) && !(Double.isFinite(sigma) && sigma >= 0)) {
+            // what the built curve would refuse: build it, so the refusal is the same
+            prepared.at(fromMm, toMm);
+            throw new IllegalStateException("rescaled uncertainty at point " + i + " is " + sigma);
+        }
+        return sigma;
     }
 
     /** Point i as {@link ThicknessRescaler.Prepared#at} computes it. */

@@ -309,12 +309,16 @@ public final class SampleEvaluator {
     /**
      * One clause on the path at thickness d. A weighted clause reads its figure on the path's points at d
      * ({@link CandidatePath#pointsAt}: for a bulk candidate alone, only the points the figure reads, mostly
-     * already formed while solving), which are the points of {@link CandidatePath#at} — so the result is the
-     * one {@link ClauseEvaluator} gives on the built curve; every other clause is judged on the built curve.
+     * already formed while solving), and a transmittance clause reads its band there ({@link CurveView} on those
+     * points): they are the points of {@link CandidatePath#at}, so the result is the one {@link ClauseEvaluator}
+     * gives on the built curve. Cutoff and critical-wavelength clauses, which walk the curve, use the built curve.
      */
     private static ClauseResult evaluateAt(Clause clause, CandidatePath path, double d) {
         if (!path.earlier() && clause instanceof WeightedClause w) {
             return FigureClauses.weighted(w, path.pointsAt(d));
+        }
+        if (!path.earlier() && clause instanceof TransmittanceClause t) {
+            return ClauseEvaluator.transmittance(t, new CurveView(path.pointsAt(d)));
         }
         return ClauseEvaluator.evaluate(clause, path.at(d));
     }
