@@ -24,10 +24,14 @@ import org.spectralsieve.spectrum.CurveException;
  */
 public final class FixedParts {
 
-    /** Distinct fixed-part sets remembered (a search names one layer; a few searches at once name a few). */
-    private static final int SETS = 16;
-    /** Distinct front grids remembered per set (imported curves bring their own grids). */
-    private static final int GRIDS = 64;
+    /**
+     * Distinct fixed-part sets remembered (a search names one layer; a few searches at once name a few). With
+     * {@link #GRIDS} this bounds the memory held: about 130 kB per grid of 911 points (the layer's curve,
+     * reflectances and 2 × 911 slab elements), so at most 64 grids, about 8 MB, beside the 512 MB heap.
+     */
+    private static final int SETS = 4;
+    /** Distinct front grids remembered per set (imported curves bring their own grids; the demo library has few). */
+    private static final int GRIDS = 16;
     private static final Map<Identity, FixedParts> BY_PARTS = new ConcurrentHashMap<>();
 
     private final List<Layer> fixed;
