@@ -26,6 +26,7 @@ public final class ThicknessSweep {
     private final RefractiveIndex index;
     private final List<Layer> fixed;
     private final ThicknessRescaler.Prepared prepared;
+    private final boolean formWhenRead;
     private Stack stack;
 
     /** The fixed parts at the stack's shared wavelengths, with every part's reflectance there. */
@@ -52,6 +53,7 @@ public final class ThicknessSweep {
         this.measuredMm = measuredMm;
         this.index = index;
         this.fixed = List.copyOf(fixed);
+        this.formWhenRead = formWhenRead;
         this.prepared = formWhenRead ? ThicknessRescaler.prepareWhenRead(measured, index)
                 : ThicknessRescaler.prepare(measured, index);
     }
@@ -80,7 +82,7 @@ public final class ThicknessSweep {
      * {@link #rescaled} (wavelengths, T, flags and limits; not the uncertainty), for figures that read few of them.
      */
     public PointReadings rescaledPoints(double toMm) {
-        return new RescaledPoints(prepared, measuredMm, toMm);
+        return new RescaledPoints(prepared, measuredMm, toMm, formWhenRead);
     }
 
     /** The bulk part alone at {@code toMm}: equal to {@link ThicknessRescaler#rescale}. */
