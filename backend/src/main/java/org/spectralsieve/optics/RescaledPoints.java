@@ -5,7 +5,8 @@ import org.spectralsieve.spectrum.PointReadings;
 
 /**
  * A bulk part's curve rescaled to one thickness, each point computed only when it is read: the same numbers,
- * point for point, as the curve {@link ThicknessRescaler.Prepared#at} builds (the same prepared readings, the
+ * point for point, as the curve {@link ThicknessRescaler.Prepared#at} builds — T, flags, limits and absorbance
+ * uncertainties (the same prepared readings, the
  * same rule), without computing the points nobody reads. A weighted figure reads the points around its
  * integration points — a 365 nm LED's 72 nm of a curve of 900 points — and a thickness solve asks for dozens
  * of thicknesses per sample, so this is most of a solve's cost saved (docs/exact-judgement-speed.md).
@@ -23,8 +24,18 @@ final class RescaledPoints implements PointReadings {
     private final double[] limits;
     private final boolean[] below;
     private final boolean[] done;
+    private final boolean[] limitDone;
+    private final boolean limitsWhenRead;
 
     RescaledPoints(ThicknessRescaler.Prepared prepared, double fromMm, double toMm) {
+        this(prepared, fromMm, toMm, false);
+    }
+
+    /**
+     * @param limitsWhenRead form a point's detection limit only when it is read (the default of the judgement);
+     *                       false forms it with the point's T, the earlier way
+     */
+    RescaledPoints(ThicknessRescaler.Prepared prepared, double fromMm, double toMm, boolean limitsWhenRead) {
         BeerLambert.requireThickness("fromMm", fromMm);
         BeerLambert.requireThickness("toMm", toMm);
         this.prepared = prepared;
@@ -36,6 +47,8 @@ final class RescaledPoints implements PointReadings {
         this.limits = new double[n];
         this.below = new boolean[n];
         this.done = new boolean[n];
+        this.limitDone = new boolean[n];
+        this.limitsWhenRead = limitsWhenRead;
     }
 
     @Override
@@ -60,10 +73,52 @@ final class RescaledPoints implements PointReadings {
         return below[i];
     }
 
+    /**
+     * Formed only when asked: a figure reads a point's limit only where the point is below detection, so most
+     * points never need the second slab power.
+     */
     @Override
     public double detectionLimit(int i) {
         compute(i);
+        if (!limitDone[i]) {
+            double limit = prepared.limit(i).transmittance(fromMm, toMm);
+            if (prepared.value(i).boundAt(fromMm, toMm)) {
+                limit = Math.max(limit, Math.min(t[i], BELOW_ONE));
+            }
+            limit = Math.min(limit, BELOW_ONE);
+            if (!(limit >= 0)) {
+                // what the built curve would refuse: build it, so the refusal is the same
+                prepared.at(fromMm, toMm);
+                throw new IllegalStateException("rescaled limit " + i + " is " + limit);
+            }
+            limits[i] = limit;
+            limitDone[i] = true;
+        }
         return limits[i];
+    }
+
+    @Override
+    public boolean hasUncertainty() {
+        return measured.hasUncertainty();
+    }
+
+    /**
+     * Point i's absorbance uncertainty as {@link ThicknessRescaler.Prepared#at} carries it: NaN at a bound
+     * (none is known) or where the measured one is unknown, else {@link ThicknessRescaler#rescaledUncertainty}.
+     */
+    @Override
+    public double absorbanceUncertainty(int i) {
+        if (!measured.hasUncertainty() || belowDetection(i)) {
+            return Double.NaN;
+        }
+        double sigma = ThicknessRescaler.rescaledUncertainty(measured.absorbanceUncertainty(i), prepared.value(i),
+                fromMm, toMm);
+        if (!Double.isNaN(sigma) && !(Double.isFinite(sigma) && sigma >= 0)) {
+            // what the built curve would refuse: build it, so the refusal is the same
+            prepared.at(fromMm, toMm);
+            throw new IllegalStateException("rescaled uncertainty at point " + i + " is " + sigma);
+        }
+        return sigma;
     }
 
     /** Point i as {@link ThicknessRescaler.Prepared#at} computes it. */
@@ -71,23 +126,20 @@ final class RescaledPoints implements PointReadings {
         if (done[i]) {
             return;
         }
-        SlabReading value = prepared.value()[i];
+        SlabReading value = prepared.value(i);
         double ti = value.transmittance(fromMm, toMm);
-        double limit = prepared.limit()[i].transmittance(fromMm, toMm);
-        boolean b = measured.belowDetection(i);
-        if (value.boundAt(fromMm, toMm)) {
-            b = true;
-            limit = Math.max(limit, Math.min(ti, BELOW_ONE));
-        }
-        limit = Math.min(limit, BELOW_ONE);
-        if (!(Double.isFinite(ti) && ti >= 0 && ti <= Curve.MAX_TRANSMITTANCE && limit >= 0)) {
+        // the point's limit is formed when read (detectionLimit): the same rule, applied later
+        boolean b = measured.belowDetection(i) || value.boundAt(fromMm, toMm);
+        if (!(Double.isFinite(ti) && ti >= 0 && ti <= Curve.MAX_TRANSMITTANCE)) {
             // what the built curve would refuse: build it, so the refusal is the same
             prepared.at(fromMm, toMm);
-            throw new IllegalStateException("rescaled point " + i + " is " + ti + " (limit " + limit + ")");
+            throw new IllegalStateException("rescaled point " + i + " is " + ti);
         }
         t[i] = ti;
-        limits[i] = limit;
         below[i] = b;
         done[i] = true;
+        if (!limitsWhenRead) {
+            detectionLimit(i);
+        }
     }
 }

@@ -33,19 +33,77 @@ public final class ThicknessRescaler {
 
     /** Every point's reading and detection limit as {@link SlabReading}s: what does not depend on the thickness. */
     static Prepared prepare(Curve measured, RefractiveIndex index) {
-        int n = measured.size();
-        SlabReading[] value = new SlabReading[n];
-        SlabReading[] limit = new SlabReading[n];
-        for (int i = 0; i < n; i++) {
-            double r = Fresnel.reflectanceInAir(index.at(measured.wavelengthNm(i)));
-            value[i] = SlabReading.of(measured.transmittance(i), r);
-            limit[i] = SlabReading.of(measured.detectionLimit(i), r);
+        Prepared prepared = prepareWhenRead(measured, index);
+        for (int i = 0; i < measured.size(); i++) {
+            prepared.value(i);
+            prepared.limit(i);
         }
-        return new Prepared(measured, value, limit);
+        return prepared;
     }
 
-    /** A curve's points prepared for rescaling; {@link #at} is the rescaled curve. */
-    record Prepared(Curve measured, SlabReading[] value, SlabReading[] limit) {
+    /**
+     * The same readings, each formed the first time it is read: a solve that reads a few dozen of a curve's
+     * hundreds of points forms only those. The surface reflectances are computed and checked for every point
+     * now, in order, so a refractive index that fails fails here with the same exception as {@link #prepare}
+     * (given a finite T, {@link SlabReading#of} fails only on the reflectance).
+     */
+    static Prepared prepareWhenRead(Curve measured, RefractiveIndex index) {
+        int n = measured.size();
+        double[] fresnel = new double[n];
+        for (int i = 0; i < n; i++) {
+            double r = Fresnel.reflectanceInAir(index.at(measured.wavelengthNm(i)));
+            Slab.requireReflectance(r);
+            fresnel[i] = r;
+        }
+        return new Prepared(measured, fresnel, new SlabReading[n], new SlabReading[n]);
+    }
+
+    /**
+     * A curve's points prepared for rescaling; {@link #at} is the rescaled curve. Each point's readings are
+     * formed when first read and kept (the same numbers whenever formed); not shared between threads.
+     */
+    static final class Prepared {
+
+        private final Curve measured;
+        private final double[] fresnel;
+        private final SlabReading[] value;
+        private final SlabReading[] limit;
+
+        private Prepared(Curve measured, double[] fresnel, SlabReading[] value, SlabReading[] limit) {
+            this.measured = measured;
+            this.fresnel = fresnel;
+            this.value = value;
+            this.limit = limit;
+        }
+
+        Curve measured() {
+            return measured;
+        }
+
+        /** The Fresnel reflectance of point i's surfaces (from the index at its wavelength). */
+        double fresnel(int i) {
+            return fresnel[i];
+        }
+
+        /** Point i's reading T as a {@link SlabReading}. */
+        SlabReading value(int i) {
+            SlabReading v = value[i];
+            if (v == null) {
+                v = SlabReading.of(measured.transmittance(i), fresnel[i]);
+                value[i] = v;
+            }
+            return v;
+        }
+
+        /** Point i's detection limit as a {@link SlabReading}. */
+        SlabReading limit(int i) {
+            SlabReading v = limit[i];
+            if (v == null) {
+                v = SlabReading.of(measured.detectionLimit(i), fresnel[i]);
+                limit[i] = v;
+            }
+            return v;
+        }
 
         Curve at(double fromMm, double toMm) {
             BeerLambert.requireThickness("fromMm", fromMm);
@@ -56,10 +114,11 @@ public final class ThicknessRescaler {
             boolean[] below = new boolean[n];
             double[] sigma = new double[n];
             for (int i = 0; i < n; i++) {
-                t[i] = value[i].transmittance(fromMm, toMm);
-                limits[i] = limit[i].transmittance(fromMm, toMm);
+                SlabReading reading = value(i);
+                t[i] = reading.transmittance(fromMm, toMm);
+                limits[i] = limit(i).transmittance(fromMm, toMm);
                 below[i] = measured.belowDetection(i);
-                if (value[i].boundAt(fromMm, toMm)) {
+                if (reading.boundAt(fromMm, toMm)) {
                     // the rescaled value itself is the bound: the hidden absorption can only lower it
                     below[i] = true;
                     limits[i] = Math.max(limits[i], Math.min(t[i], Math.nextDown(1.0)));
@@ -67,7 +126,7 @@ public final class ThicknessRescaler {
                 limits[i] = Math.min(limits[i], Math.nextDown(1.0));
                 // a bound has no standard deviation: it says only how high the value can be
                 sigma[i] = below[i] ? Double.NaN
-                        : rescaledUncertainty(measured.absorbanceUncertainty(i), value[i], fromMm, toMm);
+                        : rescaledUncertainty(measured.absorbanceUncertainty(i), reading, fromMm, toMm);
             }
             Curve rescaled = Curve.of(measured.wavelengthsNm(), t, below, limits);
             return measured.hasUncertainty() ? rescaled.withAbsorbanceUncertainty(sigma) : rescaled;

@@ -26,6 +26,7 @@ public final class ThicknessSweep {
     private final RefractiveIndex index;
     private final List<Layer> fixed;
     private final ThicknessRescaler.Prepared prepared;
+    private final boolean formWhenRead;
     private Stack stack;
 
     /** The fixed parts at the stack's shared wavelengths, with every part's reflectance there. */
@@ -37,12 +38,43 @@ public final class ThicknessSweep {
      *              {@link Layer#transmittanceAt} gives
      */
     public ThicknessSweep(Curve measured, double measuredMm, RefractiveIndex index, List<Layer> fixed) {
+        this(measured, measuredMm, index, fixed, false);
+    }
+
+    /**
+     * @param formWhenRead form each point's {@link SlabReading}s only when a thickness first reads that point
+     *                     (the reflectances are still computed and checked for every point now, so a failing
+     *                     index fails here as before); false forms them all now, the earlier way
+     */
+    public ThicknessSweep(Curve measured, double measuredMm, RefractiveIndex index, List<Layer> fixed,
+                          boolean formWhenRead) {
         BeerLambert.requireThickness("measuredMm", measuredMm);
         this.measured = measured;
         this.measuredMm = measuredMm;
         this.index = index;
         this.fixed = List.copyOf(fixed);
-        this.prepared = ThicknessRescaler.prepare(measured, index);
+        this.formWhenRead = formWhenRead;
+        this.prepared = formWhenRead ? ThicknessRescaler.prepareWhenRead(measured, index)
+                : ThicknessRescaler.prepare(measured, index);
+    }
+
+    /**
+     * Stored point i's reading as the rescaling uses it (the measured T with the Fresnel reflectance of the
+     * index there, {@link SlabReading#of}), so a model of the same part (the thickness solver's) forms each
+     * reading once, not once more for itself.
+     */
+    public SlabReading reading(int i) {
+        return prepared.value(i);
+    }
+
+    /** The part's curve as measured. */
+    public Curve measured() {
+        return measured;
+    }
+
+    /** The Fresnel reflectance in air of the part's index at stored point i. */
+    public double fresnelReflectance(int i) {
+        return prepared.fresnel(i);
     }
 
     /**
@@ -50,7 +82,7 @@ public final class ThicknessSweep {
      * {@link #rescaled} (wavelengths, T, flags and limits; not the uncertainty), for figures that read few of them.
      */
     public PointReadings rescaledPoints(double toMm) {
-        return new RescaledPoints(prepared, measuredMm, toMm);
+        return new RescaledPoints(prepared, measuredMm, toMm, formWhenRead);
     }
 
     /** The bulk part alone at {@code toMm}: equal to {@link ThicknessRescaler#rescale}. */

@@ -5,6 +5,7 @@ import java.util.List;
 import java.util.Map;
 import java.util.Optional;
 import org.spectralsieve.optics.ConstantIndex;
+import org.spectralsieve.optics.FixedParts;
 import org.spectralsieve.optics.Layer;
 import org.spectralsieve.optics.LightPath;
 import org.spectralsieve.optics.RefractiveIndex;
@@ -34,6 +35,8 @@ final class CandidatePath {
     private final Map<Double, PointReadings> pointsByThickness = new HashMap<>();
     private ThicknessSweep sweep;
     private RescaledModel readings;
+    /** The way this candidate is judged, read once so a benchmark switching it never mixes the two in one judgement. */
+    private final boolean earlier = JudgementPath.reference();
 
     CandidatePath(Candidate candidate, Optional<StackLayer> layer) {
         this.candidate = candidate;
@@ -124,10 +127,25 @@ final class CandidatePath {
     }
 
     private double candidateFarMm(double nm) {
+        return candidate.measured().covers(nm) ? readings().farMmAt(nm) : Double.POSITIVE_INFINITY;
+    }
+
+    /** Whether this candidate is judged the earlier way ({@link JudgementPath}). */
+    boolean earlier() {
+        return earlier;
+    }
+
+    /**
+     * The bulk candidate's readings as functions of thickness, for the thickness solver: on the sweep's own
+     * readings, formed when read (so each is formed once for the solver, the rescaled points and the curves),
+     * or, the earlier way, every reading formed anew for the model alone.
+     */
+    RescaledModel readings() {
         if (readings == null) {
-            readings = new RescaledModel(candidate.measured(), candidate.thicknessMm(), candidate.index());
+            readings = earlier ? new RescaledModel(candidate.measured(), candidate.thicknessMm(), candidate.index())
+                    : new RescaledModel(sweep(), candidate.thicknessMm());
         }
-        return candidate.measured().covers(nm) ? readings.farMmAt(nm) : Double.POSITIVE_INFINITY;
+        return readings;
     }
 
     /**
@@ -137,14 +155,19 @@ final class CandidatePath {
     private ThicknessSweep sweep() {
         if (sweep == null) {
             List<Layer> fixed = layer.map(l -> List.<Layer>of(l.asLayer())).orElse(List.of());
-            sweep = new ThicknessSweep(candidate.measured(), candidate.thicknessMm(), candidate.index(), fixed);
+            sweep = new ThicknessSweep(candidate.measured(), candidate.thicknessMm(), candidate.index(), fixed, !earlier);
         }
         return sweep;
     }
 
     private Curve stack(Curve candidateCurve) {
         RefractiveIndex index = candidate.index() != null ? candidate.index() : DEFAULT_INDEX;
-        return LightPath.of(Layer.fixed(candidateCurve, index), layer.orElseThrow().asLayer()).transmittance();
+        StackLayer fixed = layer.orElseThrow();
+        if (earlier) {
+            return LightPath.of(Layer.fixed(candidateCurve, index), fixed.asLayer()).transmittance();
+        }
+        // the same path, with the layer's side formed once per search and candidate grid, not per candidate
+        return FixedParts.of(fixed.curve(), fixed.index()).behind(Layer.fixed(candidateCurve, index));
     }
 
     private Curve cached(double d, java.util.function.Supplier<Curve> compute) {

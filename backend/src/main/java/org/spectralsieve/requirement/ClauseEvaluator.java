@@ -62,7 +62,7 @@ public final class ClauseEvaluator {
         Objects.requireNonNull(curve, "curve");
         CurveView view = new CurveView(curve);
         if (clause instanceof TransmittanceClause t) {
-            return demanded(t, t.aggregate() == Aggregate.MEAN ? mean(t, view) : everyPoint(t, view), view);
+            return transmittance(t, view);
         }
         if (clause instanceof WeightedClause w) {
             return FigureClauses.weighted(w, curve);
@@ -71,6 +71,16 @@ public final class ClauseEvaluator {
             return FigureClauses.critical(c, curve);
         }
         return cutoff((CutoffClause) clause, view);
+    }
+
+    /**
+     * A transmittance clause on a view, which may be one on points formed only when read
+     * ({@link CurveView#CurveView(org.spectralsieve.spectrum.PointReadings)}): the result
+     * {@link #evaluate} gives on the built curve.
+     */
+    static ClauseResult transmittance(TransmittanceClause clause, CurveView view) {
+        return demanded(clause, clause.aggregate() == Aggregate.MEAN ? mean(clause, view) : everyPoint(clause, view),
+                view);
     }
 
     private static ClauseResult everyPoint(TransmittanceClause clause, CurveView view) {

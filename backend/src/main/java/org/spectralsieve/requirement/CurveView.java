@@ -4,6 +4,7 @@ import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
 import org.spectralsieve.spectrum.Curve;
+import org.spectralsieve.spectrum.PointReadings;
 
 /**
  * Readings of a curve for judging clauses. Values come from {@link Curve#transmittanceAt} (absorbance
@@ -14,33 +15,54 @@ import org.spectralsieve.spectrum.Curve;
  */
 final class CurveView {
 
+    /** The built curve, or null for a view on points formed when read ({@link #CurveView(PointReadings)}). */
     private final Curve curve;
+    private final PointReadings points;
     private final double[] wavelengths;
 
     CurveView(Curve curve) {
         this.curve = curve;
+        this.points = curve;
         this.wavelengths = curve.wavelengthsNm();
     }
 
+    /**
+     * A view on points that may be formed only when read (a rescaled curve's {@code optics.RescaledPoints}): the
+     * same readings as on the built curve, by the same arithmetic as {@link Curve#transmittanceAt},
+     * {@link Curve#belowDetectionAt} and {@link Curve#absorbanceUncertaintyAt}, reading only the points a band
+     * needs. For transmittance clauses; {@link #curve()} is then not available.
+     */
+    CurveView(PointReadings points) {
+        this.curve = points instanceof Curve built ? built : null;
+        this.points = points;
+        this.wavelengths = new double[points.size()];
+        for (int i = 0; i < wavelengths.length; i++) {
+            wavelengths[i] = points.wavelengthNm(i);
+        }
+    }
+
     Curve curve() {
+        if (curve == null) {
+            throw new IllegalStateException("a view on points formed when read has no built curve");
+        }
         return curve;
     }
 
     boolean covers(double nm) {
-        return curve.covers(nm);
+        return points.covers(nm);
     }
 
     boolean covers(Band band) {
-        return curve.covers(band.fromNm()) && curve.covers(band.toNm());
+        return points.covers(band.fromNm()) && points.covers(band.toNm());
     }
 
     /** Whether some of the band lies inside the measured range. */
     boolean overlaps(Band band) {
-        return band.fromNm() <= curve.maxWavelengthNm() && band.toNm() >= curve.minWavelengthNm();
+        return band.fromNm() <= points.maxWavelengthNm() && band.toNm() >= points.minWavelengthNm();
     }
 
     String rangeText() {
-        return Wording.span(curve.minWavelengthNm(), curve.maxWavelengthNm());
+        return Wording.span(points.minWavelengthNm(), points.maxWavelengthNm());
     }
 
     /** Stored index at exactly {@code nm}, or −1. */
@@ -50,27 +72,39 @@ final class CurveView {
     }
 
     Reading atIndex(int i) {
-        double t = curve.transmittance(i);
-        boolean bounded = curve.belowDetection(i);
-        return new Reading(wavelengths[i], t, bounded, bounded ? upper(i) : t, curve.absorbanceUncertainty(i));
+        double t = points.transmittance(i);
+        boolean bounded = points.belowDetection(i);
+        return new Reading(wavelengths[i], t, bounded, bounded ? upper(i) : t, points.absorbanceUncertainty(i));
     }
 
     /** Reading at a covered wavelength. */
     Reading at(double nm) {
+        if (!points.covers(nm)) {
+            // what Curve.transmittanceAt(nm).orElseThrow() threw here before
+            throw new java.util.NoSuchElementException("No value present");
+        }
         int hit = Arrays.binarySearch(wavelengths, nm);
         if (hit >= 0) {
             return atIndex(hit);
         }
         int hi = -hit - 1;
         int lo = hi - 1;
-        double value = curve.transmittanceAt(nm).orElseThrow();
-        boolean bounded = curve.belowDetectionAt(nm);
-        double sigma = curve.absorbanceUncertaintyAt(nm).orElse(Double.NaN);
+        double f = (nm - wavelengths[lo]) / (wavelengths[hi] - wavelengths[lo]);
+        double value = interpolate(points.transmittance(lo), points.transmittance(hi), f);
+        boolean bounded = points.belowDetection(lo) || points.belowDetection(hi);
+        double sigma = uncertaintyBetween(lo, hi, f);
         if (!bounded) {
             return new Reading(nm, value, false, value, sigma);
         }
-        double f = (nm - wavelengths[lo]) / (wavelengths[hi] - wavelengths[lo]);
         return new Reading(nm, value, true, interpolate(upperOrValue(lo), upperOrValue(hi), f), sigma);
+    }
+
+    /** As {@link Curve#absorbanceUncertaintyAt} between two stored points: linear, NaN where either is unknown. */
+    private double uncertaintyBetween(int lo, int hi, double f) {
+        if (!points.hasUncertainty()) {
+            return Double.NaN;
+        }
+        return points.absorbanceUncertainty(lo) * (1 - f) + points.absorbanceUncertainty(hi) * f;
     }
 
     /**
@@ -79,8 +113,8 @@ final class CurveView {
      */
     List<Reading> readings(Band band) {
         List<Reading> out = new ArrayList<>();
-        double from = Math.max(band.fromNm(), curve.minWavelengthNm());
-        double to = Math.min(band.toNm(), curve.maxWavelengthNm());
+        double from = Math.max(band.fromNm(), points.minWavelengthNm());
+        double to = Math.min(band.toNm(), points.maxWavelengthNm());
         if (from > to) {
             return out;
         }
@@ -88,21 +122,22 @@ final class CurveView {
         if (from == to) {
             return out;
         }
-        for (int i = 0; i < wavelengths.length; i++) {
-            if (wavelengths[i] > from && wavelengths[i] < to) {
-                out.add(atIndex(i));
-            }
+        // the stored points strictly inside, found by a search (the same points, in order, as a full walk)
+        int first = Arrays.binarySearch(wavelengths, from);
+        first = first >= 0 ? first + 1 : -first - 1;
+        for (int i = first; i < wavelengths.length && wavelengths[i] < to; i++) {
+            out.add(atIndex(i));
         }
         out.add(at(to));
         return out;
     }
 
     private double upper(int i) {
-        return Math.max(curve.transmittance(i), curve.detectionLimit(i));
+        return Math.max(points.transmittance(i), points.detectionLimit(i));
     }
 
     private double upperOrValue(int i) {
-        return curve.belowDetection(i) ? upper(i) : curve.transmittance(i);
+        return points.belowDetection(i) ? upper(i) : points.transmittance(i);
     }
 
     /** The same arithmetic as {@link Curve#transmittanceAt}, so bounds and values agree where both apply. */

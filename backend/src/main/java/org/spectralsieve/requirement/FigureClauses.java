@@ -55,8 +55,15 @@ final class FigureClauses {
 
     /** Null when the curve cannot give the figure; {@code why} then receives the reason. */
     static Span span(WeightedClause clause, PointReadings curve, StringBuilder why) {
+        return span(clause, curve, why, true);
+    }
+
+    /** @param explained false for a margin alone: the span's note may be left empty, its numbers are the same */
+    private static Span span(WeightedClause clause, PointReadings curve, StringBuilder why, boolean explained) {
+        Weighting weighting = clause.weighting();
         // read on the bounded ends without building them (the same numbers as on JudgedCurves' curves)
-        Figure upper = clause.weighting().figure(curve, BelowDetectionAs.LIMIT);
+        Figure upper = explained ? weighting.figure(curve, BelowDetectionAs.LIMIT)
+                : weighting.figureForMargin(curve, BelowDetectionAs.LIMIT);
         if (!upper.available()) {
             if (why != null) {
                 why.append(upper.note());
@@ -65,7 +72,8 @@ final class FigureClauses {
         }
         boolean bounded = upper.bound() == Figure.Bound.AT_MOST;
         double u = upper.value().getAsDouble();
-        double l = bounded ? clause.weighting().figure(curve, BelowDetectionAs.ZERO).value().orElse(0) : u;
+        double l = !bounded ? u : (explained ? weighting.figure(curve, BelowDetectionAs.ZERO)
+                : weighting.figureForMargin(curve, BelowDetectionAs.ZERO)).value().orElse(0);
         return new Span(Math.min(l, u), u, bounded, upper.note());
     }
 
@@ -78,7 +86,7 @@ final class FigureClauses {
                 + " at their limit)";
     }
 
-    static ClauseResult weighted(WeightedClause clause, Curve curve) {
+    static ClauseResult weighted(WeightedClause clause, PointReadings curve) {
         String subject = clause.weighting().describe();
         StringBuilder why = new StringBuilder();
         Span span = span(clause, curve, why);
@@ -124,7 +132,12 @@ final class FigureClauses {
      * proof of the pass must come from), a block on U; both fall or rise with thickness like the figure.
      */
     static double weightedMargin(WeightedClause clause, PointReadings curve) {
-        Span span = span(clause, curve, null);
+        return weightedMargin(clause, curve, true);
+    }
+
+    /** @param explained false: the figures' notes are not written (the earlier way wrote them; the margin is the same) */
+    static double weightedMargin(WeightedClause clause, PointReadings curve, boolean explained) {
+        Span span = span(clause, curve, null, explained);
         return span == null ? Double.NaN : Margins.of(clause.direction(), span.provenFor(clause.direction()),
                 clause.thresholdT());
     }

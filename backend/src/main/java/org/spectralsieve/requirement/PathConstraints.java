@@ -37,7 +37,9 @@ final class PathConstraints {
                 return false;
             }
             // provable either way: a pass on the figure's lower end, a block on its upper end
-            out.add(new OnPath(w.direction() == Direction.PASS, true, d -> FigureClauses.weightedMargin(w, path.pointsAt(d))));
+            boolean explained = path.earlier();
+            out.add(new OnPath(w.direction() == Direction.PASS, true,
+                    d -> FigureClauses.weightedMargin(w, path.pointsAt(d), explained)));
             return true;
         }
         CriticalWavelengthClause c = (CriticalWavelengthClause) clause;

@@ -4,6 +4,7 @@ import java.util.Arrays;
 import org.spectralsieve.optics.Fresnel;
 import org.spectralsieve.optics.RefractiveIndex;
 import org.spectralsieve.optics.SlabReading;
+import org.spectralsieve.optics.ThicknessSweep;
 import org.spectralsieve.spectrum.Curve;
 
 /**
@@ -23,11 +24,15 @@ final class RescaledModel {
     private final double d0;
     private final SlabReading[] value;
     private final SlabReading[] judged;
+    /** Where readings not yet formed come from; null when every reading was formed at construction. */
+    private final ThicknessSweep sweep;
 
+    /** Every reading formed now, from the index (the earlier way, kept as the reference). */
     RescaledModel(Curve curve, double d0, RefractiveIndex index) {
         this.curve = curve;
         this.wavelengths = curve.wavelengthsNm();
         this.d0 = d0;
+        this.sweep = null;
         int n = curve.size();
         value = new SlabReading[n];
         judged = new SlabReading[n];
@@ -37,6 +42,28 @@ final class RescaledModel {
             value[i] = SlabReading.of(t, r);
             judged[i] = curve.belowDetection(i) ? SlabReading.of(Math.max(t, curve.detectionLimit(i)), r) : value[i];
         }
+    }
+
+    /**
+     * The same model on a sweep's readings of the same curve, each formed when first read: the solver reads a
+     * few points of a band, and the readings it shares with the rescaled curves are formed once.
+     */
+    RescaledModel(ThicknessSweep sweep, double d0) {
+        this.curve = sweep.measured();
+        this.wavelengths = curve.wavelengthsNm();
+        this.d0 = d0;
+        this.sweep = sweep;
+        value = new SlabReading[curve.size()];
+        judged = new SlabReading[curve.size()];
+    }
+
+    private SlabReading value(int i) {
+        SlabReading v = value[i];
+        if (v == null) {
+            v = sweep.reading(i);
+            value[i] = v;
+        }
+        return v;
     }
 
     Curve curve() {
@@ -54,7 +81,15 @@ final class RescaledModel {
 
     /** The reading a verdict is based on at stored point i (of the bound when the point is below detection). */
     SlabReading judged(int i) {
-        return judged[i];
+        SlabReading j = judged[i];
+        if (j == null) {
+            // as the eager constructor forms it: the bound's reading below detection, else the value's
+            j = curve.belowDetection(i)
+                    ? SlabReading.of(Math.max(curve.transmittance(i), curve.detectionLimit(i)), sweep.fresnelReflectance(i))
+                    : value(i);
+            judged[i] = j;
+        }
+        return j;
     }
 
     /** Whether the measured reading at a covered wavelength is a bound (same rule as {@link Curve#belowDetectionAt}). */
@@ -70,10 +105,10 @@ final class RescaledModel {
     double farMmAt(double nm) {
         int hit = Arrays.binarySearch(wavelengths, nm);
         if (hit >= 0) {
-            return value[hit].farMm(d0);
+            return value(hit).farMm(d0);
         }
         int hi = -hit - 1;
-        return Math.min(value[hi - 1].farMm(d0), value[hi].farMm(d0));
+        return Math.min(value(hi - 1).farMm(d0), value(hi).farMm(d0));
     }
 
     /**
@@ -86,7 +121,7 @@ final class RescaledModel {
         double far = Double.POSITIVE_INFINITY;
         for (int i = 0; i < wavelengths.length; i++) {
             if (wavelengths[i] >= fromNm && wavelengths[i] <= toNm) {
-                far = Math.min(far, value[i].farMm(d0));
+                far = Math.min(far, value(i).farMm(d0));
             }
         }
         return Math.min(far, Math.min(farMmAt(fromNm), farMmAt(toNm)));
@@ -110,12 +145,12 @@ final class RescaledModel {
         int lo = hi - 1;
         double f = (nm - wavelengths[lo]) / (wavelengths[hi] - wavelengths[lo]);
         if (!curve.belowDetectionAt(nm)) {
-            return CurveView.interpolate(value[lo].transmittance(d0, d), value[hi].transmittance(d0, d), f);
+            return CurveView.interpolate(value(lo).transmittance(d0, d), value(hi).transmittance(d0, d), f);
         }
         return CurveView.interpolate(judgedAtIndex(lo, d), judgedAtIndex(hi, d), f);
     }
 
     double judgedAtIndex(int i, double d) {
-        return judged[i].transmittance(d0, d);
+        return judged(i).transmittance(d0, d);
     }
 }

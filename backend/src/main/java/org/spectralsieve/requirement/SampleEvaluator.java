@@ -146,7 +146,7 @@ public final class SampleEvaluator {
             return unverified(candidate.sampleId(), asked, clauses,
                     candidate.made().limitText() + ", not " + Wording.mm(asked));
         }
-        return judged(candidate.sampleId(), asked, null, clauses, path.at(asked));
+        return judgedAt(candidate.sampleId(), asked, null, clauses, path, asked);
     }
 
     /** "coated/laminated part, measured only at 2.013 mm; not rescalable": the reason a non-bulk part gives. */
@@ -184,7 +184,7 @@ public final class SampleEvaluator {
         SampleEvaluation solved = solved(path, requirement, lo, hi);
         List<StockAdvice.StockFit> fits = new ArrayList<>();
         for (double stock : made.stockWithin(lo, hi)) {
-            SampleEvaluation e = judged(candidate.sampleId(), stock, null, clauses, path.at(stock));
+            SampleEvaluation e = judgedAt(candidate.sampleId(), stock, null, clauses, path, stock);
             fits.add(new StockAdvice.StockFit(stock, e.verdict(), e.worstMarginDecades()));
         }
         StockAdvice advice = advise(fits, solved.feasibleMm());
@@ -193,7 +193,7 @@ public final class SampleEvaluator {
         }
         // only the stock sizes exist: the row is the best of them, the interval stays as information
         double best = fits.stream().min(STOCK_ORDER).orElseThrow().thicknessMm();
-        return judged(candidate.sampleId(), best, null, clauses, path.at(best))
+        return judgedAt(candidate.sampleId(), best, null, clauses, path, best)
                 .withThicknessAdvice(solved.feasibleMm(), advice);
     }
 
@@ -248,12 +248,13 @@ public final class SampleEvaluator {
         boolean onPath = !requirement.plain();
         ThicknessSolver.Solution solution = onPath
                 ? ThicknessSolver.solve(clauses, path, min, max)
-                : ThicknessSolver.solve(clauses, candidate.measured(), d0, candidate.index(), min, max);
+                : path.earlier() ? ThicknessSolver.solve(clauses, candidate.measured(), d0, candidate.index(), min, max)
+                : ThicknessSolver.solvePlain(clauses, path, min, max);
         double d = solution.recommendedMm();
-        SampleEvaluation evaluation = judged(candidate.sampleId(), d, solution.feasibleMm(), clauses, path.at(d));
+        SampleEvaluation evaluation = judgedAt(candidate.sampleId(), d, solution.feasibleMm(), clauses, path, d);
         ThicknessInterval feasible = evaluation.feasibleMm();
         boolean keep = feasible == null || evaluation.verdict() == Verdict.MEETS
-                && (!onPath || meets(clauses, path.at(feasible.loMm())) && meets(clauses, path.at(feasible.hiMm())));
+                && (!onPath || meets(clauses, path, feasible.loMm()) && meets(clauses, path, feasible.hiMm()));
         if (!keep) {
             return SampleEvaluation.of(candidate.sampleId(), d, null, evaluation.clauses());
         }
@@ -283,13 +284,43 @@ public final class SampleEvaluator {
         return changed ? SampleEvaluation.of(judged.sampleId(), judged.thicknessMm(), null, results) : judged;
     }
 
-    private static boolean meets(List<Clause> clauses, Curve curve) {
+    private static boolean meets(List<Clause> clauses, CandidatePath path, double d) {
         for (Clause clause : clauses) {
-            if (ClauseEvaluator.evaluate(clause, curve).verdict() != Verdict.MEETS) {
+            if (evaluateAt(clause, path, d).verdict() != Verdict.MEETS) {
                 return false;
             }
         }
         return true;
+    }
+
+    /** The clauses judged on the path at thickness d ({@link #evaluateAt}). */
+    private static SampleEvaluation judgedAt(long sampleId, double thicknessMm, ThicknessInterval feasible,
+                                             List<Clause> clauses, CandidatePath path, double d) {
+        if (path.earlier()) {
+            return judged(sampleId, thicknessMm, feasible, clauses, path.at(d));
+        }
+        List<ClauseResult> results = new ArrayList<>(clauses.size());
+        for (Clause clause : clauses) {
+            results.add(evaluateAt(clause, path, d));
+        }
+        return SampleEvaluation.of(sampleId, thicknessMm, feasible, results);
+    }
+
+    /**
+     * One clause on the path at thickness d. A weighted clause reads its figure on the path's points at d
+     * ({@link CandidatePath#pointsAt}: for a bulk candidate alone, only the points the figure reads, mostly
+     * already formed while solving), and a transmittance clause reads its band there ({@link CurveView} on those
+     * points): they are the points of {@link CandidatePath#at}, so the result is the one {@link ClauseEvaluator}
+     * gives on the built curve. Cutoff and critical-wavelength clauses, which walk the curve, use the built curve.
+     */
+    private static ClauseResult evaluateAt(Clause clause, CandidatePath path, double d) {
+        if (!path.earlier() && clause instanceof WeightedClause w) {
+            return FigureClauses.weighted(w, path.pointsAt(d));
+        }
+        if (!path.earlier() && clause instanceof TransmittanceClause t) {
+            return ClauseEvaluator.transmittance(t, new CurveView(path.pointsAt(d)));
+        }
+        return ClauseEvaluator.evaluate(clause, path.at(d));
     }
 
     private static SampleEvaluation judged(long sampleId, double thicknessMm, ThicknessInterval feasible,

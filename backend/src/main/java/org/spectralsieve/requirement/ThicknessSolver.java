@@ -63,8 +63,31 @@ public final class ThicknessSolver {
             throw new IllegalArgumentException("thickness range must be positive and ordered, got " + minMm + " to "
                     + maxMm + " mm");
         }
-        RescaledModel model = new RescaledModel(measured, measuredMm, index);
-        CurveView view = new CurveView(measured);
+        return solve(clauses, new RescaledModel(measured, measuredMm, index), minMm, maxMm);
+    }
+
+    /**
+     * {@link #solve(List, Curve, double, RefractiveIndex, double, double)} for a bulk candidate alone, on its
+     * path's readings ({@link CandidatePath#readings}: formed when read and shared with the curves it is
+     * judged on); the same checks in the same order.
+     */
+    static Solution solvePlain(List<Clause> clauses, CandidatePath path, double minMm, double maxMm) {
+        Objects.requireNonNull(path.candidate().measured(), "measured");
+        Objects.requireNonNull(path.candidate().index(), "index");
+        double measuredMm = path.candidate().thicknessMm();
+        if (!(measuredMm > 0) || !Double.isFinite(measuredMm)) {
+            throw new IllegalArgumentException("measuredMm must be a finite thickness > 0 mm, was " + measuredMm);
+        }
+        if (!(minMm > 0) || !Double.isFinite(maxMm) || !(maxMm >= minMm)) {
+            throw new IllegalArgumentException("thickness range must be positive and ordered, got " + minMm + " to "
+                    + maxMm + " mm");
+        }
+        return solve(clauses, path.readings(), minMm, maxMm);
+    }
+
+    private static Solution solve(List<Clause> clauses, RescaledModel model, double minMm, double maxMm) {
+        double measuredMm = model.measuredMm();
+        CurveView view = new CurveView(model.curve());
         List<ThicknessConstraint> constraints = new ArrayList<>();
         boolean provable = true;
         for (Clause clause : clauses) {
@@ -90,8 +113,7 @@ public final class ThicknessSolver {
             throw new IllegalArgumentException("thickness range must be positive and ordered, got " + minMm + " to "
                     + maxMm + " mm");
         }
-        RescaledModel model = path.stacked() ? null
-                : new RescaledModel(candidate.measured(), candidate.thicknessMm(), candidate.index());
+        RescaledModel model = path.stacked() ? null : path.readings();
         CurveView view = new CurveView(candidate.measured());
         // coverage and below-detection flags of the path do not depend on the candidate's thickness
         CurveView pathView = new CurveView(path.asMeasured());

@@ -31,6 +31,15 @@ public sealed interface Weighting permits Weighting.Spectral, Weighting.Luminous
      */
     Figure figure(PointReadings curve, BelowDetectionAs as);
 
+    /**
+     * {@link #figure(PointReadings, BelowDetectionAs)} for a margin only: the same value and bound, its note
+     * possibly left empty where writing it costs more than the figure (a thickness solver reads it dozens of
+     * times per sample).
+     */
+    default Figure figureForMargin(PointReadings curve, BelowDetectionAs as) {
+        return figure(curve, as);
+    }
+
     /** How explanations name the figure: "effective T for led-365 (unweighted over its range 329–401 nm)". */
     String describe();
 
@@ -104,6 +113,11 @@ public sealed interface Weighting permits Weighting.Spectral, Weighting.Luminous
         @Override
         public Figure figure(PointReadings curve, BelowDetectionAs as) {
             return WeightedFigures.effectiveTransmittance(curve, emitter, effectiveResponse(), as);
+        }
+
+        @Override
+        public Figure figureForMargin(PointReadings curve, BelowDetectionAs as) {
+            return WeightedFigures.effectiveTransmittanceUnexplained(curve, emitter, effectiveResponse(), as);
         }
 
         @Override

@@ -19,6 +19,16 @@ public interface PointReadings {
 
     double detectionLimit(int i);
 
+    /** One standard deviation in absorbance at point i; NaN when not known (the default: none is). */
+    default double absorbanceUncertainty(int i) {
+        return Double.NaN;
+    }
+
+    /** Whether any point may have a known uncertainty (false: {@link #absorbanceUncertainty} is NaN everywhere). */
+    default boolean hasUncertainty() {
+        return false;
+    }
+
     default double minWavelengthNm() {
         return wavelengthNm(0);
     }

@@ -119,7 +119,22 @@ public final class WeightedFigures {
             return effectiveTransmittanceByLookup(FigurePath.bounded(built, as), emitter, response);
         }
         return effectiveTransmittance(curve, emitter, response,
-                (from, to) -> IntegrationNodes.covered(emitter, response, from, to).read(curve, as));
+                (from, to) -> IntegrationNodes.covered(emitter, response, from, to).read(curve, as), true);
+    }
+
+    /**
+     * {@link #effectiveTransmittance(PointReadings, Emitter, Response, BelowDetectionAs)} without its note
+     * (empty, also when the figure is not available): the same value, bound and share left out, for a thickness
+     * solver's margins, read dozens of times per sample, where writing the note (three formatted percentages
+     * when a share is left out) cost more than the figure itself. Answers show figures with their notes.
+     */
+    public static Figure effectiveTransmittanceUnexplained(PointReadings curve, Emitter emitter, Response response,
+                                                           BelowDetectionAs as) {
+        if (FigurePath.byLookup() && curve instanceof Curve built) {
+            return effectiveTransmittanceByLookup(FigurePath.bounded(built, as), emitter, response);
+        }
+        return effectiveTransmittance(curve, emitter, response,
+                (from, to) -> IntegrationNodes.covered(emitter, response, from, to).read(curve, as), false);
     }
 
     /**
@@ -128,7 +143,8 @@ public final class WeightedFigures {
      * is tested against (WeightedFiguresFastPathTest); not used by answers.
      */
     static Figure effectiveTransmittanceByLookup(Curve curve, Emitter emitter, Response response) {
-        return effectiveTransmittance(curve, emitter, response, (from, to) -> covered(curve, emitter, response, from, to));
+        return effectiveTransmittance(curve, emitter, response, (from, to) -> covered(curve, emitter, response, from, to),
+                true);
     }
 
     /** The covered part of the integral over [from, to], which lies inside the curve. */
@@ -136,8 +152,9 @@ public final class WeightedFigures {
         Covered over(double from, double to);
     }
 
+    /** @param explained whether the figure carries its note (else an empty one: the numbers are the same) */
     private static Figure effectiveTransmittance(PointReadings curve, Emitter emitter, Response response,
-                                                 Coverage coverage) {
+                                                 Coverage coverage, boolean explained) {
         String name = "effectiveTransmittance";
         double lo = Math.max(response.minNm(), emitter.minNm());
         double hi = Math.min(response.maxNm(), emitter.maxNm());
@@ -163,8 +180,14 @@ public final class WeightedFigures {
         double responseShare = beyondResponse / total;
         double share = curveShare + responseShare;
         if (share > MAX_UNCOVERED_SHARE || !(covered.weight() > 0)) {
-            return Figure.unavailable(name, "fraction", String.join("; ", gaps(curve, response, emitter, lo, hi,
-                    curveShare, responseShare)) + " (at most " + percent(MAX_UNCOVERED_SHARE) + " may be left out)");
+            return Figure.unavailable(name, "fraction", !explained ? "" : String.join("; ", gaps(curve, response,
+                    emitter, lo, hi, curveShare, responseShare)) + " (at most " + percent(MAX_UNCOVERED_SHARE)
+                    + " may be left out)");
+        }
+        if (!explained) {
+            Figure figure = Figure.of(name, covered.passed() / covered.weight(), "fraction",
+                    covered.bound() ? Bound.AT_MOST : Bound.VALUE, "");
+            return share > 0 ? figure.withOutsideShare(Math.min(1, share)) : figure;
         }
         String note = emitter.name() + " × " + response.name() + ", " + from + "-" + to + " nm, trapezoid, step "
                 + covered.stepNm() + " nm";

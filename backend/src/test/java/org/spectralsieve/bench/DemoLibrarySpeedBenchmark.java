@@ -19,6 +19,7 @@ import java.util.Map;
 import java.util.stream.Stream;
 import org.junit.jupiter.api.Test;
 import org.spectralsieve.SpectralSieveApplication;
+import org.spectralsieve.requirement.JudgementPath;
 import org.springframework.boot.builder.SpringApplicationBuilder;
 import org.springframework.context.ConfigurableApplicationContext;
 import tools.jackson.databind.JsonNode;
@@ -38,7 +39,10 @@ import tools.jackson.databind.json.JsonMapper;
  * with {@code , thickness 1 to 6 mm}), {@code weighted-measured} ({@link WeightedScreenBenchmark#WEIGHTED}),
  * {@code weighted-solve} and {@code weighted-layer} ({@code , behind 4 mm clear float glass}). Asserts nothing
  * about time; fails only if a search is not answered 200. Switches: {@code -Dbench.demoRuns=31},
- * {@code -Dbench.demoWarmups=5}, {@code -Dbench.limit=20}.
+ * {@code -Dbench.demoWarmups=5}, {@code -Dbench.limit=20}; {@code -Dbench.demoPaths=true} also judges every
+ * search the earlier way ({@link JudgementPath}) just before the default one, round by round, and prints
+ * {@code BENCH demo-search-paths kind=<k> variant=earlier|formed-when-read …} for both side by side (the
+ * {@code demo-search} lines stay those of the default way).
  */
 class DemoLibrarySpeedBenchmark {
 
@@ -62,6 +66,7 @@ class DemoLibrarySpeedBenchmark {
         int runs = BenchStats.intProperty("bench.demoRuns", 31);
         int warmups = BenchStats.intProperty("bench.demoWarmups", 5);
         int limit = BenchStats.intProperty("bench.limit", 20);
+        boolean paths = Boolean.getBoolean("bench.demoPaths");
         Path dir = Files.createTempDirectory("sieve-demo-speed-bench");
         String dbUrl = "jdbc:h2:file:" + dir.resolve("sieve").toAbsolutePath() + ";AUTO_SERVER=FALSE";
         HttpClient http = HttpClient.newBuilder().version(HttpClient.Version.HTTP_1_1)
@@ -78,29 +83,61 @@ class DemoLibrarySpeedBenchmark {
             }
             for (int i = 0; i < warmups; i++) {
                 for (String requirement : kinds.values()) {
+                    if (paths) {
+                        JudgementPath.useReference(true);
+                        search(http, base, requirement, limit);
+                        JudgementPath.useReference(false);
+                    }
                     search(http, base, requirement, limit);
                 }
             }
             Map<String, Answer[]> answers = new LinkedHashMap<>();
+            Map<String, Answer[]> earlier = new LinkedHashMap<>();
             for (int i = 0; i < runs; i++) {
                 for (Map.Entry<String, String> kind : kinds.entrySet()) {
+                    if (paths) {
+                        // the earlier judgement just before the default one, so both meet the same neighbours
+                        JudgementPath.useReference(true);
+                        earlier.computeIfAbsent(kind.getKey(), k -> new Answer[runs])[i] =
+                                search(http, base, kind.getValue(), limit);
+                        JudgementPath.useReference(false);
+                    }
                     answers.computeIfAbsent(kind.getKey(), k -> new Answer[runs])[i] =
                             search(http, base, kind.getValue(), limit);
                 }
             }
+            if (paths) {
+                print("demo-search-paths", "earlier", earlier, materials.size(), curves, runs);
+                print("demo-search-paths", "formed-when-read", answers, materials.size(), curves, runs);
+            }
+            print("demo-search", null, answers, materials.size(), curves, runs);
+        } finally {
+            JudgementPath.useReference(false);
+            delete(dir);
+        }
+    }
+
+    private static void print(String key, String variant, Map<String, Answer[]> answers, int materials, int curves,
+                              int runs) {
+        {
             for (Map.Entry<String, Answer[]> e : answers.entrySet()) {
                 Answer[] a = e.getValue();
                 double[] took = Arrays.stream(a).mapToDouble(Answer::tookMs).toArray();
                 double[] wall = Arrays.stream(a).mapToDouble(Answer::wallMs).toArray();
                 Answer last = a[a.length - 1];
-                System.out.printf(Locale.ROOT, "BENCH demo-search kind=%s materials=%d curves=%d runs=%d p50_ms=%s p95_ms=%s"
-                                + " wall_p50_ms=%s wall_p95_ms=%s judged=%d evaluated=%d rows=%d%n", e.getKey(),
-                        materials.size(), curves, runs, ms(percentile(took, 50)), ms(percentile(took, 95)),
-                        ms(percentile(wall, 50)), ms(percentile(wall, 95)), last.judged(), last.evaluated(), last.rows());
+                System.out.printf(Locale.ROOT, "BENCH %s kind=%s%s materials=%d curves=%d runs=%d p50_ms=%s p95_ms=%s"
+                                + " wall_p50_ms=%s wall_p95_ms=%s judged=%d evaluated=%d rows=%d load_average=%s%n", key,
+                        e.getKey(), variant == null ? "" : " variant=" + variant, materials, curves, runs,
+                        ms(percentile(took, 50)), ms(percentile(took, 95)), ms(percentile(wall, 50)),
+                        ms(percentile(wall, 95)), last.judged(), last.evaluated(), last.rows(), loadAverage());
             }
-        } finally {
-            delete(dir);
         }
+    }
+
+    /** The one-minute load average at printing (the machine is shared: say how busy it was). */
+    private static String loadAverage() {
+        double load = java.lang.management.ManagementFactory.getOperatingSystemMXBean().getSystemLoadAverage();
+        return String.format(Locale.ROOT, "%.1f", load);
     }
 
     private static Answer search(HttpClient http, String base, String requirement, int limit) throws Exception {

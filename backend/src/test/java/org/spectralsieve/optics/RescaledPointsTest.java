@@ -40,6 +40,41 @@ class RescaledPointsTest {
         }
     }
 
+    @Test
+    void pointsFormedWhenReadWithTheirLimitsAndUncertaintiesAreThePointsOfTheRescaledCurve() {
+        // the judgement's default (JudgementPath): readings formed when read, limits only when asked
+        Random random = new Random(20261206L);
+        for (int trial = 0; trial < 300; trial++) {
+            Curve measured = ThicknessSweepTest.randomCurve(random, 300 + 200 * random.nextDouble());
+            if (random.nextBoolean()) {
+                double[] sigma = new double[measured.size()];
+                for (int i = 0; i < sigma.length; i++) {
+                    sigma[i] = random.nextInt(8) == 0 ? Double.NaN : 0.05 * random.nextDouble();
+                }
+                measured = measured.withAbsorbanceUncertainty(sigma);
+            }
+            RefractiveIndex index = ThicknessSweepTest.randomIndex(random);
+            double d0 = 0.2 + 8 * random.nextDouble();
+            ThicknessSweep sweep = new ThicknessSweep(measured, d0, index, List.of(), true);
+            for (double d : ThicknessSweepTest.thicknesses(random, d0)) {
+                Curve expected = ThicknessRescaler.rescale(measured, d0, d, index);
+                PointReadings points = sweep.rescaledPoints(d);
+                // a random order, a limit sometimes read before its T: the order of reading changes nothing
+                for (int k = 0; k < 2 * expected.size(); k++) {
+                    int i = random.nextInt(expected.size());
+                    String at = "trial " + trial + " at " + d + " mm, point " + i;
+                    if (random.nextBoolean()) {
+                        assertThat(Double.doubleToLongBits(points.detectionLimit(i))).as(at)
+                                .isEqualTo(Double.doubleToLongBits(expected.detectionLimit(i)));
+                    }
+                    assertThat(Double.doubleToLongBits(points.absorbanceUncertainty(i))).as(at)
+                            .isEqualTo(Double.doubleToLongBits(expected.absorbanceUncertainty(i)));
+                    assertPoint(points, expected, i, trial, d);
+                }
+            }
+        }
+    }
+
     private static void assertPoint(PointReadings points, Curve expected, int i, int trial, double d) {
         String at = "trial " + trial + " at " + d + " mm, point " + i;
         assertThat(points.wavelengthNm(i)).as(at).isEqualTo(expected.wavelengthNm(i));
