@@ -12,7 +12,10 @@ import java.util.Optional;
 import java.util.Set;
 import java.util.concurrent.atomic.AtomicLong;
 import java.util.concurrent.atomic.AtomicReference;
+import java.util.concurrent.locks.ReentrantLock;
 import java.util.function.LongConsumer;
+import org.slf4j.Logger;
+import org.slf4j.LoggerFactory;
 import org.spectralsieve.library.JooqLibraryRepository;
 import org.spectralsieve.library.Geometry;
 import org.spectralsieve.library.LibraryGeneration;
@@ -73,7 +76,7 @@ import org.spectralsieve.store.StoredMaterial;
  */
 public class SearchService {
 
-    private static final org.slf4j.Logger LOG = org.slf4j.LoggerFactory.getLogger(SearchService.class);
+    private static final Logger LOG = LoggerFactory.getLogger(SearchService.class);
 
     /** Shortlist length when the caller names none, and the most a caller may ask for (HTTP and command line). */
     public static final int DEFAULT_LIMIT = 20;
@@ -90,7 +93,7 @@ public class SearchService {
     /** Raised by {@link #invalidate()}: a snapshot read before the last call is stale whatever its generation. */
     private final AtomicLong invalidations = new AtomicLong();
     /** One build at a time: concurrent searches that find the snapshot stale wait for one rebuild, not start many. */
-    private final java.util.concurrent.locks.ReentrantLock building = new java.util.concurrent.locks.ReentrantLock();
+    private final ReentrantLock building = new ReentrantLock();
     /** Runs between reading the library and installing the snapshot: a seam for the race test, else nothing. */
     private final LongConsumer beforeInstall;
     /** Heap for each snapshot's decoded curves ({@link CurveCache}); 0 reads every judged curve from the database. */

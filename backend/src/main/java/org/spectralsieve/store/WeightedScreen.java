@@ -6,6 +6,9 @@ import java.util.HashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Optional;
+import org.spectralsieve.optics.Fresnel;
+import org.spectralsieve.optics.RefractiveIndex;
+import org.spectralsieve.optics.SlabReading;
 import org.spectralsieve.requirement.Direction;
 import org.spectralsieve.requirement.WeightedClause;
 import org.spectralsieve.requirement.Weighting;
@@ -156,7 +159,7 @@ public final class WeightedScreen {
             this.reflectance = reflectance;
         }
 
-        public static LayerBins of(Curve layer, org.spectralsieve.optics.RefractiveIndex index) {
+        public static LayerBins of(Curve layer, RefractiveIndex index) {
             double[] brightest = new double[BINS];
             Arrays.fill(brightest, Double.NaN);
             for (int i = 0; i + 1 < layer.size(); i++) {
@@ -190,7 +193,7 @@ public final class WeightedScreen {
         if (!(rMax < 1)) {
             return 1;
         }
-        return Math.min(1, 2 * rMax / (1 + rMax) + org.spectralsieve.optics.SlabReading.READING_UNCERTAINTY);
+        return Math.min(1, 2 * rMax / (1 + rMax) + SlabReading.READING_UNCERTAINTY);
     }
 
     /**
@@ -289,7 +292,7 @@ public final class WeightedScreen {
             if (shares.length == 0 || !regular(curve)) {
                 return Double.POSITIVE_INFINITY;
             }
-            double r = Math.max(largestReflectance(curve), org.spectralsieve.optics.Fresnel.reflectanceInAir(1.52));
+            double r = Math.max(largestReflectance(curve), Fresnel.reflectanceInAir(1.52));
             double rho = elementReflectance(r);
             if (!(rho < 1) || !(layer.reflectance < 1)) {
                 return Double.POSITIVE_INFINITY;
@@ -487,13 +490,13 @@ public final class WeightedScreen {
      * least {@link org.spectralsieve.optics.SlabReading#RESOLVABLE_DECADES} over that (and at least 1).
      */
     static double leastFarFactor(double rMax) {
-        double u = org.spectralsieve.optics.SlabReading.READING_UNCERTAINTY;
+        double u = SlabReading.READING_UNCERTAINTY;
         double least = (1 - rMax) / (1 + rMax) - u;
         if (!(least > u)) {
             return 1;
         }
         double hidden = -Math.log10(1 - u / least);
-        return Math.max(1, org.spectralsieve.optics.SlabReading.RESOLVABLE_DECADES / hidden);
+        return Math.max(1, SlabReading.RESOLVABLE_DECADES / hidden);
     }
 
     /**
@@ -501,7 +504,7 @@ public final class WeightedScreen {
      * and both ends, n raised by 0.02 for what lies between the samples); 1 (no bound) when the index cannot
      * give n there, where the exact rescaling fails too and says so (an unverified row, never a miss).
      */
-    static double largestReflectance(org.spectralsieve.optics.RefractiveIndex index, double[] curveRange) {
+    static double largestReflectance(RefractiveIndex index, double[] curveRange) {
         double largest = 0;
         try {
             for (double nm = curveRange[0]; ; nm = Math.min(curveRange[1], nm + 0.25)) {
@@ -509,7 +512,7 @@ public final class WeightedScreen {
                 if (!(n >= 1) || !Double.isFinite(n)) {
                     return 1;
                 }
-                largest = Math.max(largest, org.spectralsieve.optics.Fresnel.reflectanceInAir(n + 0.02));
+                largest = Math.max(largest, Fresnel.reflectanceInAir(n + 0.02));
                 if (nm >= curveRange[1]) {
                     return largest;
                 }
@@ -524,7 +527,7 @@ public final class WeightedScreen {
      * and both ends, n lowered by 0.02 for what lies between the samples, not below 1); NaN (no bound) when the
      * index cannot give n there.
      */
-    static double smallestReflectance(org.spectralsieve.optics.RefractiveIndex index, double[] curveRange) {
+    static double smallestReflectance(RefractiveIndex index, double[] curveRange) {
         double smallest = Double.POSITIVE_INFINITY;
         try {
             for (double nm = curveRange[0]; ; nm = Math.min(curveRange[1], nm + 0.25)) {
@@ -532,7 +535,7 @@ public final class WeightedScreen {
                 if (!(n >= 1) || !Double.isFinite(n)) {
                     return Double.NaN;
                 }
-                smallest = Math.min(smallest, org.spectralsieve.optics.Fresnel.reflectanceInAir(Math.max(1, n - 0.02)));
+                smallest = Math.min(smallest, Fresnel.reflectanceInAir(Math.max(1, n - 0.02)));
                 if (nm >= curveRange[1]) {
                     return smallest;
                 }
