@@ -202,7 +202,7 @@ final class ColumnFirstScan {
         // the bound is at most every one-column probe's cap: the other columns rule out more, read only here
         for (int k = 0; k < plan.pointProbes.size(); k++) {
             StoreSearch.PointProbe other = plan.pointProbes.get(k);
-            if (k == probe || !other.probe().onGrid() || other.probe().fractionHi() != 0) {
+            if (k == probe || rangeModel != null || !other.probe().onGrid() || other.probe().fractionHi() != 0) {
                 continue;
             }
             Reach reach = new Reach(k, t);
@@ -245,6 +245,23 @@ final class ColumnFirstScan {
         short[] column = store.column(p.probe().lo());
         int[] curves = new int[64];
         int count = 0;
+        if (rangeModel != null) {
+            int[] probes = oneColumnProbeIndices();
+            short[][] columns = new short[probes.length][];
+            for (int i = 0; i < probes.length; i++) {
+                columns[i] = store.column(plan.pointProbes.get(probes[i]).probe().lo());
+            }
+            for (int c = from; c < to; c++) {
+                if (jointCapOverRange(c, probes, columns) >= t) {
+                    if (count + 1 == curves.length) {
+                        curves = Arrays.copyOf(curves, curves.length * 2);
+                    }
+                    curves[++count] = c;
+                }
+            }
+            curves[0] = count;
+            return curves;
+        }
         if (!asMeasured) {
             Reach reach = new Reach(probe, t);
             for (int c = from; c < to; c++) {
@@ -379,6 +396,94 @@ final class ColumnFirstScan {
         }
         return rangeModel.loadDecoded(curve, probeOd, probeState).bestKey();
     }
+
+    /** The point probes that read one column (a grid point), in the plan's order. */
+    int[] oneColumnProbeIndices() {
+        int[] out = new int[plan.pointProbes.size()];
+        int count = 0;
+        for (int k = 0; k < plan.pointProbes.size(); k++) {
+            Probe p = plan.pointProbes.get(k).probe();
+            if (p.onGrid() && p.fractionHi() == 0) {
+                out[count++] = k;
+            }
+        }
+        return Arrays.copyOf(out, count);
+    }
+
+    /**
+     * Over a thickness range: a cap on the curve's bound from every one-column probe together. Each probe's
+     * margin is CurveModel's line in d (the same doubles); the curve is judged at one d in
+     * [min, max + 2·tolerance] (see {@link #marginCap}).
+     * <ul>
+     *   <li>If no d there lets every one of these probes escape a miss (pass lines fall below 0 after their
+     *       root, block lines rise above it after theirs; a block on a stored bound or on a clear reading,
+     *       which may turn into a bound, is never counted as a miss), the bound is a miss, whose margin in the
+     *       points-only model is the least over its lines of the line's larger end on [min, max] (films: the
+     *       least missing margin): at most that least over these probes' lines, the same expression on
+     *       fewer lines.</li>
+     *   <li>Otherwise the cap is "meets" with the least over these lines of each line's highest value on the
+     *       thicknesses above: the worst margin at any d is at most each line's value there.</li>
+     * </ul>
+     * The roots are widened by 1e-6 mm, so rounding can only keep more curves. {@link #KEEP_ALL} when the
+     * curve's thickness is unknown.
+     */
+    int jointCapOverRange(int curve, int[] probes, short[][] columns) {
+        boolean bulk = store.isBulk(curve);
+        double d0 = store.thicknessMm(curve);
+        if (bulk && (!(d0 > 0) || Double.isInfinite(d0))) {
+            return KEEP_ALL;
+        }
+        ThicknessSpec spec = plan.thickness;
+        double lo = spec.minMm();
+        double hi = spec.maxMm();
+        double highest = hi + 2 * NominalThickness.toleranceMm(hi);
+        int model = store.indexModelOf(curve);
+        double feasibleLo = lo;
+        double feasibleHi = highest;
+        boolean never = false;
+        double missCap = Double.POSITIVE_INFINITY;
+        double meetCap = Double.POSITIVE_INFINITY;
+        for (int i = 0; i < probes.length; i++) {
+            short code = columns[i][curve];
+            if (code == OdCode.NOT_MEASURED) {
+                continue; // unverified, no line: it neither misses nor lowers a margin
+            }
+            int k = probes[i];
+            StoreSearch.PointProbe p = plan.pointProbes.get(k);
+            boolean pass = p.pass();
+            boolean stored = (code & OdCode.BOUND_BIT) != 0;
+            double value = (code & OdCode.LEVEL_MASK) * OdCode.STEP;
+            // CurveModel.addDecoded's line
+            double s = plan.pointProbeLoss[model][k];
+            boolean clear = bulk && value <= plan.pointProbeUnresolvedOd[model][k];
+            double internal = Math.max(0, value - s);
+            double perMm = bulk && !clear ? internal / d0 : 0;
+            double base = bulk && !clear ? s : value;
+            double intercept = pass ? p.thresholdOd() - base : base - p.thresholdOd();
+            double slope = pass ? -perMm : perMm;
+            if (!(stored && !pass)) {
+                missCap = Math.min(missCap, Math.max(intercept + slope * lo, intercept + slope * hi));
+            }
+            meetCap = Math.min(meetCap, intercept + slope * (pass ? lo : highest));
+            if (!pass && (stored || clear)) {
+                continue; // a block on a bound is unverified, never a miss
+            }
+            if (slope == 0) {
+                never |= intercept < 0;
+            } else if (pass) {
+                feasibleHi = Math.min(feasibleHi, -intercept / slope + 1e-6);
+            } else {
+                feasibleLo = Math.max(feasibleLo, -intercept / slope - 1e-6);
+            }
+        }
+        if (!never && feasibleLo <= feasibleHi) {
+            return StoreSearch.Keys.of(Standing.MEETS, meetCap);
+        }
+        return StoreSearch.Keys.of(Standing.MISSES, missCap);
+    }
+
+    /** {@link #jointCapOverRange}'s answer when it works out no cap: above every key. */
+    static final int KEEP_ALL = Integer.MAX_VALUE;
 
     /**
      * "The curve's cap from one probe's code reaches t", for any thickness: as measured {@link #capOf}; at an

@@ -190,6 +190,44 @@ class StoreScanEquivalenceTest {
         assertThat(compared).isGreaterThan(10_000);
     }
 
+    /**
+     * Over a thickness range, the cap from every one-column probe together (a miss unless one thickness lets
+     * each of them escape a miss) is never below the bound from every probe, for every judged curve.
+     */
+    @Test
+    void theJointCapOverARangeIsNeverBelowTheBoundFromEveryProbe() {
+        Random random = new Random(SEED + 5);
+        SpectralStore store = StoreSearchTest.randomStore(4000, 900, random.nextLong());
+        int compared = 0;
+        int belowMeets = 0;
+        for (int q = 0; q < 60; q++) {
+            Requirement drawn = randomRequirement(random);
+            ThicknessSpec range = randomThickness(random);
+            if (range.kind() != ThicknessSpec.Kind.RANGE) {
+                continue;
+            }
+            Requirement r = requirement(range, drawn.clauses().toArray(Clause[]::new));
+            StoreSearch.Plan plan = planOf(store, r);
+            ColumnFirstScan scan = new ColumnFirstScan(store, plan);
+            int[] probes = scan.oneColumnProbeIndices();
+            short[][] columns = new short[probes.length][];
+            for (int i = 0; i < probes.length; i++) {
+                columns[i] = store.column(plan.pointProbes.get(probes[i]).probe().lo());
+            }
+            for (int c = 0; c < store.size(); c++) {
+                if (probes.length == 0 || !plan.judged(c)) {
+                    continue;
+                }
+                int cap = scan.jointCapOverRange(c, probes, columns);
+                assertThat(cap).as("%s curve %d", r.text(), c).isGreaterThanOrEqualTo(scan.boundOf(c));
+                belowMeets += cap < StoreSearch.Keys.of(org.spectralsieve.requirement.Standing.MEETS, Double.NaN) ? 1 : 0;
+                compared++;
+            }
+        }
+        assertThat(compared).isGreaterThan(10_000);
+        assertThat(belowMeets).as("curves the joint cap puts among the misses").isGreaterThan(1_000);
+    }
+
     /** One asked thickness or a range, some ending within the nominal tolerance short of a made range (0.5–4 mm). */
     private static ThicknessSpec randomThickness(Random random) {
         return switch (random.nextInt(4)) {
