@@ -251,8 +251,12 @@ final class ColumnFirstScan {
             for (int i = 0; i < probes.length; i++) {
                 columns[i] = store.column(plan.pointProbes.get(probes[i]).probe().lo());
             }
+            // the chosen column alone first (a few operations per curve), every one-column probe together
+            // only for the curves it keeps
+            Reach reach = new Reach(probe, t);
+            short[] first = store.column(p.probe().lo());
             for (int c = from; c < to; c++) {
-                if (jointCapOverRange(c, probes, columns) >= t) {
+                if (reach.keeps(c, first[c]) && jointCapOverRange(c, probes, columns) >= t) {
                     if (count + 1 == curves.length) {
                         curves = Arrays.copyOf(curves, curves.length * 2);
                     }
