@@ -1,6 +1,7 @@
 package org.spectralsieve.store;
 
 import java.util.Arrays;
+import org.spectralsieve.requirement.NominalThickness;
 import org.spectralsieve.requirement.Standing;
 import org.spectralsieve.requirement.ThicknessSpec;
 import org.spectralsieve.requirement.Verdict;
@@ -33,6 +34,8 @@ final class ColumnFirstScan {
 
     /** Curves sampled to pick the column and a first threshold: about this many. */
     private static final int SAMPLE = 16_384;
+    /** The same with a thickness asked or solved for. */
+    private static final int SAMPLE_WITH_THICKNESS = 4_096;
     /** Aim the first threshold at about this many times the curves asked for. */
     private static final int HEADROOM = 4;
     private static final int PLAIN_TOP = OdCode.LEVEL_MASK; // 0x7FFF: every level a code without the bound bit can hold
@@ -48,16 +51,25 @@ final class ColumnFirstScan {
     private int[] keptBound = new int[0];
     private int keptCount;
     private int threshold = Integer.MAX_VALUE;
+    private final boolean asMeasured;
+    /** Points-only model for bounds over a thickness range (as the chunk scan's {@code boundChunk}). */
+    private final CurveModel rangeModel;
+    private final double[] probeOd;
+    private final byte[] probeState;
 
     ColumnFirstScan(SpectralStore store, StoreSearch.Plan plan) {
         this.store = store;
         this.plan = plan;
         this.everyCurveAdmitted = plan.totalGeometry == null && plan.materialClass == null;
+        this.asMeasured = plan.thickness.kind() == ThicknessSpec.Kind.AS_MEASURED;
+        this.rangeModel = plan.thickness.kind() == ThicknessSpec.Kind.RANGE ? new CurveModel(plan, store, true) : null;
+        this.probeOd = new double[plan.pointProbes.size()];
+        this.probeState = new byte[plan.pointProbes.size()];
     }
 
-    /** Judged as measured (no thickness model, every curve judged) with at least one probe reading one column. */
+    /** At least one probe reads one column (a grid point): as measured, at an asked thickness or over a range. */
     static boolean applies(StoreSearch.Plan plan) {
-        return plan.thickness.kind() == ThicknessSpec.Kind.AS_MEASURED && oneColumnProbes(plan) > 0;
+        return oneColumnProbes(plan) > 0;
     }
 
     private static int oneColumnProbes(StoreSearch.Plan plan) {
@@ -90,11 +102,12 @@ final class ColumnFirstScan {
      */
     int[] best(int count) {
         int n = store.size();
-        int stride = Math.max(1, n / SAMPLE);
+        // with a thickness each sampled bound costs a span and a thickness model: a smaller sample
+        int stride = Math.max(1, n / (asMeasured ? SAMPLE : SAMPLE_WITH_THICKNESS));
         int[] sampled = new int[(n + stride - 1) / stride];
         int sampledCount = 0;
         for (int c = 0; c < n; c += stride) {
-            if (everyCurveAdmitted || plan.admits(store, c)) {
+            if (counted(c) && plan.judged(c)) {
                 sampled[sampledCount++] = c;
             }
         }
@@ -150,11 +163,11 @@ final class ColumnFirstScan {
             if (!p.probe().onGrid() || p.probe().fractionHi() != 0) {
                 continue;
             }
-            Filter filter = new Filter(p, t);
+            Reach reach = new Reach(k, t);
             short[] column = store.column(p.probe().lo());
             int keptHere = 0;
             for (int i = 0; i < sampledCount; i++) {
-                if (filter.keeps(column[sampled[i]])) {
+                if (reach.keeps(sampled[i], column[sampled[i]])) {
                     keptHere++;
                 }
             }
@@ -168,50 +181,35 @@ final class ColumnFirstScan {
 
     /** Reads the chosen column once: every admitted curve whose cap reaches t, with its bound. */
     private void keep(int t) {
-        StoreSearch.PointProbe p = plan.pointProbes.get(probe);
-        Filter filter = new Filter(p, t);
-        short[] column = store.column(p.probe().lo());
         int n = store.size();
-        int[] curves = new int[Math.max(16, keptCount)];
-        int count = 0;
-        int lp = filter.plainLimit;
-        int lb = filter.boundLimit;
-        boolean nm = filter.notMeasured;
-        if (p.pass()) {
-            for (int c = 0; c < n; c++) {
-                int u = column[c] & 0xFFFF;
-                // plain codes at or below lp, bound codes at or below lb, "not measured" if its cap reaches t
-                boolean keepIt = u < 0x8000 ? u <= lp : u == 0xFFFF ? nm : u - 0x8000 <= lb;
-                if (keepIt) {
-                    if (count == curves.length) {
-                        curves = Arrays.copyOf(curves, count * 2);
-                    }
-                    curves[count++] = c;
-                }
-            }
+        int[] curves;
+        int count;
+        if (n >= plan.parallelMinCurves) {
+            // the two halves of the column on two threads, joined in curve order
+            int half = n / 2;
+            int[][] parts = new int[2][];
+            java.util.stream.IntStream.range(0, 2).parallel()
+                    .forEach(h -> parts[h] = firstColumn(t, h == 0 ? 0 : half, h == 0 ? half : n));
+            count = parts[0][0] + parts[1][0];
+            curves = new int[Math.max(16, count)];
+            System.arraycopy(parts[0], 1, curves, 0, parts[0][0]);
+            System.arraycopy(parts[1], 1, curves, parts[0][0], parts[1][0]);
         } else {
-            for (int c = 0; c < n; c++) {
-                int u = column[c] & 0xFFFF;
-                boolean keepIt = u < 0x8000 ? u >= lp : u == 0xFFFF ? nm : u - 0x8000 >= lb;
-                if (keepIt) {
-                    if (count == curves.length) {
-                        curves = Arrays.copyOf(curves, count * 2);
-                    }
-                    curves[count++] = c;
-                }
-            }
+            int[] part = firstColumn(t, 0, n);
+            count = part[0];
+            curves = Arrays.copyOfRange(part, 1, Math.max(17, count + 1));
         }
         // the bound is at most every one-column probe's cap: the other columns rule out more, read only here
         for (int k = 0; k < plan.pointProbes.size(); k++) {
             StoreSearch.PointProbe other = plan.pointProbes.get(k);
-            if (k == probe || !other.probe().onGrid() || other.probe().fractionHi() != 0) {
+            if (k == probe || rangeModel != null || !other.probe().onGrid() || other.probe().fractionHi() != 0) {
                 continue;
             }
-            Filter otherFilter = new Filter(other, t);
+            Reach reach = new Reach(k, t);
             short[] otherColumn = store.column(other.probe().lo());
             int left = 0;
             for (int i = 0; i < count; i++) {
-                if (otherFilter.keeps(otherColumn[curves[i]])) {
+                if (reach.keeps(curves[i], otherColumn[curves[i]])) {
                     curves[left++] = curves[i];
                 }
             }
@@ -221,7 +219,7 @@ final class ColumnFirstScan {
         int admitted = 0;
         for (int i = 0; i < count; i++) {
             int c = curves[i];
-            if (everyCurveAdmitted || plan.admits(store, c)) {
+            if (counted(c) && plan.judged(c)) {
                 curves[admitted] = c;
                 bounds[admitted++] = boundOf(c);
             }
@@ -232,14 +230,108 @@ final class ColumnFirstScan {
         threshold = t;
     }
 
+    /** Admitted by the filters (the first pass's count). */
+    private boolean counted(int curve) {
+        return everyCurveAdmitted || plan.admits(store, curve);
+    }
+
+    /**
+     * The curves in [from, to) whose cap from the chosen column reaches t, in curve order: element 0 is the
+     * count, the curves follow. As measured the loop compares shorts only ({@link Filter}); with a thickness
+     * each curve's cap takes its thickness model ({@link Reach}).
+     */
+    private int[] firstColumn(int t, int from, int to) {
+        StoreSearch.PointProbe p = plan.pointProbes.get(probe);
+        short[] column = store.column(p.probe().lo());
+        int[] curves = new int[64];
+        int count = 0;
+        if (rangeModel != null) {
+            int[] probes = oneColumnProbeIndices();
+            short[][] columns = new short[probes.length][];
+            for (int i = 0; i < probes.length; i++) {
+                columns[i] = store.column(plan.pointProbes.get(probes[i]).probe().lo());
+            }
+            // the chosen column alone first (a few operations per curve), every one-column probe together
+            // only for the curves it keeps
+            Reach reach = new Reach(probe, t);
+            short[] first = store.column(p.probe().lo());
+            for (int c = from; c < to; c++) {
+                if (reach.keeps(c, first[c]) && jointCapOverRange(c, probes, columns) >= t) {
+                    if (count + 1 == curves.length) {
+                        curves = Arrays.copyOf(curves, curves.length * 2);
+                    }
+                    curves[++count] = c;
+                }
+            }
+            curves[0] = count;
+            return curves;
+        }
+        if (!asMeasured) {
+            Reach reach = new Reach(probe, t);
+            for (int c = from; c < to; c++) {
+                if (reach.keeps(c, column[c])) {
+                    if (count + 1 == curves.length) {
+                        curves = Arrays.copyOf(curves, curves.length * 2);
+                    }
+                    curves[++count] = c;
+                }
+            }
+            curves[0] = count;
+            return curves;
+        }
+        Filter filter = new Filter(p, t);
+        int lp = filter.plainLimit;
+        int lb = filter.boundLimit;
+        boolean nm = filter.notMeasured;
+        if (p.pass()) {
+            for (int c = from; c < to; c++) {
+                int u = column[c] & 0xFFFF;
+                // plain codes at or below lp, bound codes at or below lb, "not measured" if its cap reaches t
+                boolean keepIt = u < 0x8000 ? u <= lp : u == 0xFFFF ? nm : u - 0x8000 <= lb;
+                if (keepIt) {
+                    if (count + 1 == curves.length) {
+                        curves = Arrays.copyOf(curves, curves.length * 2);
+                    }
+                    curves[++count] = c;
+                }
+            }
+        } else {
+            for (int c = from; c < to; c++) {
+                int u = column[c] & 0xFFFF;
+                boolean keepIt = u < 0x8000 ? u >= lp : u == 0xFFFF ? nm : u - 0x8000 >= lb;
+                if (keepIt) {
+                    if (count + 1 == curves.length) {
+                        curves = Arrays.copyOf(curves, curves.length * 2);
+                    }
+                    curves[++count] = c;
+                }
+            }
+        }
+        curves[0] = count;
+        return curves;
+    }
+
     private static int kthHighest(int[] values, int count, int k) {
         int[] copy = Arrays.copyOf(values, count);
         Arrays.sort(copy);
         return copy[count - k];
     }
 
-    /** A curve's bound as measured: the chunk scan's rules for one curve, probe by probe in the same order. */
+    /**
+     * A curve's bound, by the chunk scan's rules for one curve, probe by probe in the same order: as measured
+     * and at an asked thickness those of {@code scanChunk} and {@code settleBounds}, over a range the
+     * points-only thickness model of {@code boundChunk}.
+     */
     int boundOf(int curve) {
+        if (rangeModel != null) {
+            return boundOverRange(curve);
+        }
+        double target = plan.thickness.minMm();
+        boolean fixed = plan.thickness.kind() == ThicknessSpec.Kind.FIXED;
+        if (fixed && !plan.judgeableAt(store, curve, target)) {
+            return StoreSearch.Keys.of(Standing.NOT_JUDGED, Double.NaN);
+        }
+        boolean rescaled = fixed && plan.rescaledAt(store, curve);
         int bits = 0;
         double lowest = Double.POSITIVE_INFINITY;
         double lowestMiss = Double.POSITIVE_INFINITY;
@@ -260,6 +352,17 @@ final class ColumnFirstScan {
             // the decoder's value; with f = 0 it is level·STEP, the on-grid loop's value, to the bit
             double value = ((1 - f) * (a & OdCode.LEVEL_MASK) + f * (b & OdCode.LEVEL_MASK)) * OdCode.STEP;
             boolean isBound = (a & OdCode.BOUND_BIT) != 0 || (f > 0 && (b & OdCode.BOUND_BIT) != 0);
+            if (rescaled) {
+                // marginsDecoded's rule for a curve read rescaled to the asked thickness, the same doubles
+                int model = store.indexModelOf(curve);
+                double s = plan.pointProbeLoss[model][k];
+                if (value <= plan.pointProbeUnresolvedOd[model][k]) {
+                    double d0 = store.thicknessMm(curve);
+                    isBound |= target > d0 && target > StoreSearch.Plan.farMm(value, s, d0);
+                } else {
+                    value = s + Math.max(0, value - s) * target / store.thicknessMm(curve);
+                }
+            }
             double margin = p.pass() ? p.thresholdOd() - value : value - p.thresholdOd();
             lowest = Math.min(lowest, margin);
             int verdict = ProbeVerdict.of(margin, isBound, p.pass());
@@ -274,6 +377,233 @@ final class ColumnFirstScan {
         }
         double worst = lowest == Double.POSITIVE_INFINITY ? Double.NaN : lowest;
         return StoreSearch.Keys.of(verdict == Verdict.MEETS ? Standing.MEETS : Standing.UNVERIFIED, worst);
+    }
+
+    /** Over a thickness range: the probes decoded as {@code decode} does, then the points-only model's best key. */
+    private int boundOverRange(int curve) {
+        for (int k = 0; k < plan.pointProbes.size(); k++) {
+            Probe p = plan.pointProbes.get(k).probe();
+            if (!p.onGrid()) {
+                probeState[k] = CurveModel.UNMEASURED;
+                continue;
+            }
+            short a = store.column(p.lo())[curve];
+            short b = store.column(p.hi())[curve];
+            if (a == OdCode.NOT_MEASURED || b == OdCode.NOT_MEASURED) {
+                probeState[k] = CurveModel.UNMEASURED;
+                continue;
+            }
+            double f = p.fractionHi();
+            probeOd[k] = ((1 - f) * (a & OdCode.LEVEL_MASK) + f * (b & OdCode.LEVEL_MASK)) * OdCode.STEP;
+            boolean isBound = (a & OdCode.BOUND_BIT) != 0 || (f > 0 && (b & OdCode.BOUND_BIT) != 0);
+            probeState[k] = isBound ? CurveModel.BOUND : CurveModel.READ;
+        }
+        return rangeModel.loadDecoded(curve, probeOd, probeState).bestKey();
+    }
+
+    /** The point probes that read one column (a grid point), in the plan's order. */
+    int[] oneColumnProbeIndices() {
+        int[] out = new int[plan.pointProbes.size()];
+        int count = 0;
+        for (int k = 0; k < plan.pointProbes.size(); k++) {
+            Probe p = plan.pointProbes.get(k).probe();
+            if (p.onGrid() && p.fractionHi() == 0) {
+                out[count++] = k;
+            }
+        }
+        return Arrays.copyOf(out, count);
+    }
+
+    /**
+     * Over a thickness range: a cap on the curve's bound from every one-column probe together. Each probe's
+     * margin is CurveModel's line in d (the same doubles); the curve is judged at one d in
+     * [min, max + 2·tolerance] (see {@link #marginCap}).
+     * <ul>
+     *   <li>If no d there lets every one of these probes escape a miss (pass lines fall below 0 after their
+     *       root, block lines rise above it after theirs; a block on a stored bound or on a clear reading,
+     *       which may turn into a bound, is never counted as a miss), the bound is a miss, whose margin in the
+     *       points-only model is the least over its lines of the line's larger end on [min, max] (films: the
+     *       least missing margin): at most that least over these probes' lines, the same expression on
+     *       fewer lines.</li>
+     *   <li>Otherwise the cap is "meets" with the least over these lines of each line's highest value on the
+     *       thicknesses above: the worst margin at any d is at most each line's value there.</li>
+     * </ul>
+     * The roots are widened by 1e-6 mm, so rounding can only keep more curves. {@link #KEEP_ALL} when the
+     * curve's thickness is unknown.
+     */
+    int jointCapOverRange(int curve, int[] probes, short[][] columns) {
+        boolean bulk = store.isBulk(curve);
+        double d0 = store.thicknessMm(curve);
+        if (bulk && (!(d0 > 0) || Double.isInfinite(d0))) {
+            return KEEP_ALL;
+        }
+        ThicknessSpec spec = plan.thickness;
+        double lo = spec.minMm();
+        double hi = spec.maxMm();
+        double highest = hi + 2 * NominalThickness.toleranceMm(hi);
+        int model = store.indexModelOf(curve);
+        double feasibleLo = lo;
+        double feasibleHi = highest;
+        boolean never = false;
+        double missCap = Double.POSITIVE_INFINITY;
+        double meetCap = Double.POSITIVE_INFINITY;
+        for (int i = 0; i < probes.length; i++) {
+            short code = columns[i][curve];
+            if (code == OdCode.NOT_MEASURED) {
+                continue; // unverified, no line: it neither misses nor lowers a margin
+            }
+            int k = probes[i];
+            StoreSearch.PointProbe p = plan.pointProbes.get(k);
+            boolean pass = p.pass();
+            boolean stored = (code & OdCode.BOUND_BIT) != 0;
+            double value = (code & OdCode.LEVEL_MASK) * OdCode.STEP;
+            // CurveModel.addDecoded's line
+            double s = plan.pointProbeLoss[model][k];
+            boolean clear = bulk && value <= plan.pointProbeUnresolvedOd[model][k];
+            double internal = Math.max(0, value - s);
+            double perMm = bulk && !clear ? internal / d0 : 0;
+            double base = bulk && !clear ? s : value;
+            double intercept = pass ? p.thresholdOd() - base : base - p.thresholdOd();
+            double slope = pass ? -perMm : perMm;
+            if (!(stored && !pass)) {
+                missCap = Math.min(missCap, Math.max(intercept + slope * lo, intercept + slope * hi));
+            }
+            meetCap = Math.min(meetCap, intercept + slope * (pass ? lo : highest));
+            if (!pass && (stored || clear)) {
+                continue; // a block on a bound is unverified, never a miss
+            }
+            if (slope == 0) {
+                never |= intercept < 0;
+            } else if (pass) {
+                feasibleHi = Math.min(feasibleHi, -intercept / slope + 1e-6);
+            } else {
+                feasibleLo = Math.max(feasibleLo, -intercept / slope - 1e-6);
+            }
+        }
+        if (!never && feasibleLo <= feasibleHi) {
+            return StoreSearch.Keys.of(Standing.MEETS, meetCap);
+        }
+        return StoreSearch.Keys.of(Standing.MISSES, missCap);
+    }
+
+    /** {@link #jointCapOverRange}'s answer when it works out no cap: above every key. */
+    static final int KEEP_ALL = Integer.MAX_VALUE;
+
+    /**
+     * "The curve's cap from one probe's code reaches t", for any thickness: as measured {@link #capOf}; at an
+     * asked thickness and over a range a cap that holds for every thickness the curve can be judged at
+     * ({@link #marginCap}). Compared as a margin against the least margin that reaches t in the cap's group
+     * ({@link #leastMargin}), loosened by far less than a key step, so it keeps at least what the key keeps.
+     */
+    final class Reach {
+        private final StoreSearch.PointProbe p;
+        private final int k;
+        /** Least margin per group (MEETS, UNVERIFIED, MISSES) whose key reaches t. */
+        private final double[] least = new double[3];
+
+        Reach(int k, int t) {
+            this.k = k;
+            this.p = plan.pointProbes.get(k);
+            for (int g = 0; g < least.length; g++) {
+                least[g] = leastMargin(Standing.values()[g], t);
+            }
+        }
+
+        boolean keeps(int curve, short code) {
+            long cap = marginCap(p, k, curve, code);
+            if (cap == KEEP) {
+                return true;
+            }
+            return Double.longBitsToDouble(cap >>> 2 << 2) >= least[(int) (cap & 3)];
+        }
+    }
+
+    /** {@link #marginCap}'s answer when no cap is worked out (the curve is kept). */
+    static final long KEEP = Long.MIN_VALUE + 1;
+
+    /**
+     * One probe's cap on a curve's bound, as a margin and its group (0 meets, 1 unverified, 2 misses) packed
+     * as the margin's bits with the group in the two lowest bits (truncating the margin there only lowers it
+     * by under 1e-15 of itself; {@link Reach} compares with a slack far above that), or {@link #KEEP}.
+     *
+     * <p>Why it is a cap on the bound (the chunk scan's rules): the curve's bound is at most this probe's
+     * group and margin at the thickness d the curve is judged at (its worst margin is the smallest over the
+     * probes; a missing probe makes it a miss no better than that margin). At one asked thickness d is that
+     * thickness for a curve read rescaled, and the margin is the rescaled one (a clear reading may turn into a
+     * bound beyond its far thickness: for a pass that only lowers the group, so it is left out; for a block it
+     * turns a miss into unverified, so it is assumed whenever d is above the measured thickness). Over a
+     * range, a bulk curve's margin is a straight line in d (pass: falling, block: rising) and d lies in
+     * [min, max + 2·tolerance] (the made range may start just beyond the asked end, {@code MadeThicknesses.within}):
+     * the cap takes the line at the end where it is highest, which also bounds the points-only model's miss
+     * margin (the line's larger end over [min, max]); a curve not read through the thickness model (films,
+     * coatings) is read as measured.
+     */
+    long marginCap(StoreSearch.PointProbe p, int k, int curve, short code) {
+        if (code == OdCode.NOT_MEASURED) {
+            return pack(Double.POSITIVE_INFINITY, 1);
+        }
+        boolean pass = p.pass();
+        boolean stored = (code & OdCode.BOUND_BIT) != 0;
+        double value = (code & OdCode.LEVEL_MASK) * OdCode.STEP;
+        ThicknessSpec spec = plan.thickness;
+        if (spec.kind() == ThicknessSpec.Kind.AS_MEASURED || !store.isBulk(curve)
+                || (spec.kind() == ThicknessSpec.Kind.FIXED && !plan.rescaledAt(store, curve))) {
+            double margin = pass ? p.thresholdOd() - value : value - p.thresholdOd();
+            return pack(margin, group(ProbeVerdict.of(margin, stored, pass)));
+        }
+        double d0 = store.thicknessMm(curve);
+        if (!(d0 > 0) || Double.isInfinite(d0)) {
+            return KEEP;
+        }
+        int model = store.indexModelOf(curve);
+        double s = plan.pointProbeLoss[model][k];
+        boolean clear = value <= plan.pointProbeUnresolvedOd[model][k];
+        if (spec.kind() == ThicknessSpec.Kind.FIXED) {
+            double target = spec.minMm();
+            boolean mayTurnBound = clear && target > d0;
+            if (!clear) {
+                value = s + Math.max(0, value - s) * target / d0;
+            }
+            double margin = pass ? p.thresholdOd() - value : value - p.thresholdOd();
+            return pack(margin, group(ProbeVerdict.of(margin, stored || (!pass && mayTurnBound), pass)));
+        }
+        // over a range: CurveModel.addDecoded's line, margin = intercept + slope·d
+        double internal = Math.max(0, value - s);
+        double perMm = !clear ? internal / d0 : 0;
+        double base = !clear ? s : value;
+        if (pass) {
+            double margin = (p.thresholdOd() - base) + (-perMm) * spec.minMm();
+            return pack(margin, margin < 0 ? 2 : stored ? 1 : 0);
+        }
+        double highest = spec.maxMm() + 2 * NominalThickness.toleranceMm(spec.maxMm());
+        double margin = (base - p.thresholdOd()) + perMm * highest;
+        return pack(margin, margin >= 0 ? 0 : stored || clear ? 1 : 2);
+    }
+
+    private static long pack(double margin, int group) {
+        return (Double.doubleToRawLongBits(margin) >>> 2 << 2) | group;
+    }
+
+    private static int group(int verdict) {
+        return verdict == ProbeVerdict.MISSES ? 2 : verdict == ProbeVerdict.UNVERIFIED ? 1 : 0;
+    }
+
+    /**
+     * The least margin whose key in {@code standing}'s group reaches t ({@link StoreSearch.Keys}: floor of the
+     * margin in 1e-4 decades), less 1e-6 decades so that rounding never drops a curve; −∞ when the whole
+     * group reaches t, +∞ when none of it does.
+     */
+    static double leastMargin(Standing standing, int t) {
+        int top = StoreSearch.Keys.of(standing, Double.POSITIVE_INFINITY);
+        int bottom = StoreSearch.Keys.of(standing, Double.NaN);
+        if (bottom >= t) {
+            return Double.NEGATIVE_INFINITY;
+        }
+        if (top < t) {
+            return Double.POSITIVE_INFINITY;
+        }
+        long steps = (long) t - StoreSearch.Keys.of(standing, 0.0);
+        return steps * 1e-4 - 1e-6;
     }
 
     /**

@@ -83,6 +83,16 @@ public final class StoreSearch {
         return search.run(limit, false);
     }
 
+    /**
+     * The column-first pass alone ({@link ColumnFirstScan}), null when it cannot settle the best curves and the
+     * chunk scan would run instead: lets tests see that the pass itself, not its fallback, gave the answer.
+     */
+    static StoreResult searchColumnFirstOnly(SpectralStore store, Requirement requirement, int limit,
+                                             int parallelMinCurves) {
+        StoreSearch search = new StoreSearch(store, requirement, false, parallelMinCurves);
+        return ColumnFirstScan.applies(search.plan) ? search.runColumnFirst(limit) : null;
+    }
+
     /** The reworked scan with its own size threshold for going parallel: lets tests split small stores over tasks. */
     static StoreResult search(SpectralStore store, Requirement requirement, int limit, int parallelMinCurves) {
         return new StoreSearch(store, requirement, false, parallelMinCurves).run(limit, false);
@@ -140,6 +150,7 @@ public final class StoreSearch {
                 return byColumn;
             }
         }
+        plan.allSpans();
         int n = store.size();
         int[] bound = new int[n];
         boolean[] eligible = new boolean[n];
@@ -791,6 +802,15 @@ public final class StoreSearch {
          * null as a whole when every curve is judged (as measured).
          */
         ThicknessInterval[] spans;
+        /**
+         * Spans worked out on demand, material by material, for the curves a column-first pass reads
+         * ({@link ColumnFirstScan}): at a million curves the spans of every curve cost more than the rest of
+         * that pass. Used while {@link #spans} is null and the thickness is asked; a curve not judged maps to
+         * {@link #NOT_JUDGED_SPAN}.
+         */
+        private final Map<Integer, ThicknessInterval> spansOnDemand = new HashMap<>();
+        private static final ThicknessInterval NOT_JUDGED_SPAN = new ThicknessInterval(1, 1); // compared by identity
+        private SpectralStore spanStore;
         final double[][] pointProbeUnresolvedOd;
         /** Whether this plan serves the reference path (the earlier scan, kept for comparison). */
         boolean reference;
@@ -872,8 +892,35 @@ public final class StoreSearch {
                     unresolved);
             plan.reference = reference;
             plan.parallelMinCurves = parallelMinCurves;
-            plan.spans = reference ? plan.spans(store) : plan.spansInParallel(store);
+            plan.spanStore = store;
+            // the reworked scan works spans out when it knows its path: all of them for the chunk scan
+            // (allSpans), only those of the curves it reads for the column-first pass (spanOf)
+            plan.spans = reference ? plan.spans(store) : null;
             return plan;
+        }
+
+        /** Every curve's span, in parallel on a large store: what the chunk scan reads. */
+        void allSpans() {
+            if (spans == null && thickness.kind() != ThicknessSpec.Kind.AS_MEASURED) {
+                spans = spansInParallel(spanStore);
+            }
+        }
+
+        /** A curve's judged span, null when it is not judged; worked out for its material on first use. */
+        ThicknessInterval spanOf(int curve) {
+            if (spans != null) {
+                return spans[curve];
+            }
+            ThicknessInterval known = spansOnDemand.get(curve);
+            if (known == null) {
+                int[] curves = spanStore.curvesByMaterial()[spanStore.materialIndex(curve)];
+                ThicknessInterval[] own = spansOfCurves(spanStore, curves);
+                for (int i = 0; i < curves.length; i++) {
+                    spansOnDemand.put(curves[i], own[i] == null ? NOT_JUDGED_SPAN : own[i]);
+                }
+                known = spansOnDemand.get(curve);
+            }
+            return known == NOT_JUDGED_SPAN ? null : known;
         }
 
         /** The judged span of every curve, material by material among its admitted curves (as {@link MaterialJudge}). */
@@ -916,15 +963,28 @@ public final class StoreSearch {
         }
 
         private void spansOfMaterial(SpectralStore store, int[] curves, ThicknessInterval[] out) {
+            ThicknessInterval[] own = spansOfCurves(store, curves);
+            for (int i = 0; i < curves.length; i++) {
+                if (own[i] != null) {
+                    out[curves[i]] = own[i];
+                }
+            }
+        }
+
+        /** The spans of one material's curves, aligned with {@code curves}; null where a curve is not judged. */
+        private ThicknessInterval[] spansOfCurves(SpectralStore store, int[] curves) {
+            ThicknessInterval[] out = new ThicknessInterval[curves.length];
             int admittedCount = 0;
+            int[] position = new int[curves.length];
             int[] admitted = new int[curves.length];
-            for (int c : curves) {
-                if (admits(store, c)) {
-                    admitted[admittedCount++] = c;
+            for (int i = 0; i < curves.length; i++) {
+                if (admits(store, curves[i])) {
+                    position[admittedCount] = i;
+                    admitted[admittedCount++] = curves[i];
                 }
             }
             if (admittedCount == 0) {
-                return;
+                return out;
             }
             double[] mm = new double[admittedCount];
             for (int i = 0; i < admittedCount; i++) {
@@ -933,8 +993,9 @@ public final class StoreSearch {
             MadeThicknesses made = store.material(admitted[0]).made();
             ThicknessInterval[] spans = MaterialJudge.spans(mm, store.isBulk(admitted[0]), made, thickness);
             for (int i = 0; i < admittedCount; i++) {
-                out[admitted[i]] = spans[i] == null ? null : judgedRange(spans[i], made);
+                out[position[i]] = spans[i] == null ? null : judgedRange(spans[i], made);
             }
+            return out;
         }
 
         /** For a range: the part of the span inside the asked range and the made thicknesses (the span itself when empty). */
@@ -952,12 +1013,12 @@ public final class StoreSearch {
         }
 
         boolean judged(int curve) {
-            return spans == null || spans[curve] != null;
+            return thickness.kind() == ThicknessSpec.Kind.AS_MEASURED || spanOf(curve) != null;
         }
 
         /** The thickness range a curve is solved over: the asked range cut to its span and the made thicknesses. */
         double[] rangeOf(int curve) {
-            ThicknessInterval s = spans == null ? null : spans[curve];
+            ThicknessInterval s = thickness.kind() == ThicknessSpec.Kind.AS_MEASURED ? null : spanOf(curve);
             return s == null || s == SampleEvaluator.WHOLE_AXIS ? new double[] {thickness.minMm(), thickness.maxMm()}
                     : new double[] {Math.max(thickness.minMm(), s.loMm()), Math.min(thickness.maxMm(), s.hiMm())};
         }

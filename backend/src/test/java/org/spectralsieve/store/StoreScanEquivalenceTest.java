@@ -113,6 +113,134 @@ class StoreScanEquivalenceTest {
         }
     }
 
+    /**
+     * Reading one column first with a thickness asked or solved for (forced on small stores by a threshold of
+     * zero curves) returns what the earlier scan returns: random plain requirements at one asked thickness
+     * and over ranges, including ranges that end just short of a material's made range (which then starts
+     * within the nominal tolerance beyond the asked end), with and without a material-class filter, limits
+     * 1–60, on one thread and with the column read in two halves.
+     */
+    @Test
+    void readingOneColumnFirstWithAThicknessReturnsWhatTheEarlierScanReturns() {
+        Random random = new Random(SEED + 3);
+        int columnFirstRuns = 0;
+        for (int s = 0; s < 4; s++) {
+            int curves = 3000 + random.nextInt(5000);
+            SpectralStore store = StoreSearchTest.randomStore(curves, 20 + random.nextInt(1500), random.nextLong());
+            for (int q = 0; q < 50; q++) {
+                Requirement drawn = randomRequirement(random);
+                Optional<String> materialClass = random.nextInt(4) == 0 ? Optional.of("film") : Optional.empty();
+                ThicknessSpec thickness = randomThickness(random);
+                Requirement r = new Requirement(drawn.clauses(), thickness, materialClass, Optional.empty(),
+                        drawn.text() + " " + thickness + materialClass.map(c -> " " + c).orElse(""));
+                int limit = 1 + random.nextInt(60);
+                StoreResult before = StoreSearch.searchReference(store, r, limit);
+                for (int parallelFrom : new int[] {Integer.MAX_VALUE, 1}) {
+                    StoreResult after = StoreSearch.search(store, r, limit, parallelFrom, 0);
+
+                    assertThat(after.hits()).as("%s, limit %d", r.text(), limit)
+                            .usingRecursiveFieldByFieldElementComparator().containsExactlyElementsOf(before.hits());
+                    assertThat(after.evaluatedSamples()).isEqualTo(before.evaluatedSamples());
+                    assertThat(after.refinedSamples()).as(r.text()).isEqualTo(before.refinedSamples());
+                    StoreResult alone = StoreSearch.searchColumnFirstOnly(store, r, limit, parallelFrom);
+                    if (alone != null) {
+                        assertThat(alone.hits()).usingRecursiveFieldByFieldElementComparator()
+                                .containsExactlyElementsOf(before.hits());
+                        assertThat(alone.refinedSamples()).isEqualTo(before.refinedSamples());
+                        columnFirstRuns++;
+                    }
+                }
+            }
+        }
+        // the pass settles most searches itself (the rest fall back to the chunk scan, also checked above)
+        assertThat(columnFirstRuns).as("searches the column-first pass settled").isGreaterThan(200);
+    }
+
+    /**
+     * With a thickness, a curve's cap from one probe's code (its margin and group at the thicknesses the curve
+     * can be judged at) is never below its bound from every probe, for every curve and one-column probe.
+     */
+    @Test
+    void oneProbesCapWithAThicknessIsNeverBelowTheBoundFromEveryProbe() {
+        Random random = new Random(SEED + 4);
+        SpectralStore store = StoreSearchTest.randomStore(4000, 900, random.nextLong());
+        int compared = 0;
+        for (int q = 0; q < 40; q++) {
+            Requirement drawn = randomRequirement(random);
+            Requirement r = requirement(randomThickness(random), drawn.clauses().toArray(Clause[]::new));
+            StoreSearch.Plan plan = planOf(store, r);
+            ColumnFirstScan scan = new ColumnFirstScan(store, plan);
+            for (int k = 0; k < plan.pointProbes.size(); k++) {
+                StoreSearch.PointProbe p = plan.pointProbes.get(k);
+                if (!p.probe().onGrid() || p.probe().fractionHi() != 0) {
+                    continue;
+                }
+                short[] column = store.column(p.probe().lo());
+                for (int c = 0; c < store.size(); c++) {
+                    if (!plan.judged(c)) {
+                        continue;
+                    }
+                    int bound = scan.boundOf(c);
+                    ColumnFirstScan.Reach reachesBound = scan.new Reach(k, bound);
+                    assertThat(reachesBound.keeps(c, column[c])).as("%s curve %d probe %d", r.text(), c, k).isTrue();
+                    compared++;
+                }
+            }
+        }
+        assertThat(compared).isGreaterThan(10_000);
+    }
+
+    /**
+     * Over a thickness range, the cap from every one-column probe together (a miss unless one thickness lets
+     * each of them escape a miss) is never below the bound from every probe, for every judged curve.
+     */
+    @Test
+    void theJointCapOverARangeIsNeverBelowTheBoundFromEveryProbe() {
+        Random random = new Random(SEED + 5);
+        SpectralStore store = StoreSearchTest.randomStore(4000, 900, random.nextLong());
+        int compared = 0;
+        int belowMeets = 0;
+        for (int q = 0; q < 60; q++) {
+            Requirement drawn = randomRequirement(random);
+            ThicknessSpec range = randomThickness(random);
+            if (range.kind() != ThicknessSpec.Kind.RANGE) {
+                continue;
+            }
+            Requirement r = requirement(range, drawn.clauses().toArray(Clause[]::new));
+            StoreSearch.Plan plan = planOf(store, r);
+            ColumnFirstScan scan = new ColumnFirstScan(store, plan);
+            int[] probes = scan.oneColumnProbeIndices();
+            short[][] columns = new short[probes.length][];
+            for (int i = 0; i < probes.length; i++) {
+                columns[i] = store.column(plan.pointProbes.get(probes[i]).probe().lo());
+            }
+            for (int c = 0; c < store.size(); c++) {
+                if (probes.length == 0 || !plan.judged(c)) {
+                    continue;
+                }
+                int cap = scan.jointCapOverRange(c, probes, columns);
+                assertThat(cap).as("%s curve %d", r.text(), c).isGreaterThanOrEqualTo(scan.boundOf(c));
+                belowMeets += cap < StoreSearch.Keys.of(org.spectralsieve.requirement.Standing.MEETS, Double.NaN) ? 1 : 0;
+                compared++;
+            }
+        }
+        assertThat(compared).isGreaterThan(10_000);
+        assertThat(belowMeets).as("curves the joint cap puts among the misses").isGreaterThan(1_000);
+    }
+
+    /** One asked thickness or a range, some ending within the nominal tolerance short of a made range (0.5–4 mm). */
+    private static ThicknessSpec randomThickness(Random random) {
+        return switch (random.nextInt(4)) {
+            case 0 -> ThicknessSpec.at(pick(random, 0.5, 1, 2, 3, 4.5, 6, 10, 0.495, 4.05));
+            case 1 -> ThicknessSpec.range(pick(random, 0.2, 0.3), pick(random, 0.495, 0.492));
+            case 2 -> ThicknessSpec.range(pick(random, 4.05, 4.07), pick(random, 6, 9));
+            default -> {
+                double lo = pick(random, 0.3, 0.5, 1, 2);
+                yield ThicknessSpec.range(lo, lo + pick(random, 0.5, 2, 5, 10));
+            }
+        };
+    }
+
     private static StoreSearch.Plan planOf(SpectralStore store, Requirement r) {
         return StoreSearch.Plan.of(store, r, false, StoreSearch.PARALLEL_MIN_CURVES);
     }
