@@ -55,6 +55,9 @@ final class ColumnFirstScan {
     private int threshold = Integer.MAX_VALUE;
     private final boolean asMeasured;
     private final boolean gatherOtherColumns;
+    /** Every one-column probe's levels at {@link #filtersT} (null elsewhere): worked out once per threshold. */
+    private Filter[] filters;
+    private int filtersT;
     /** Points-only model for bounds over a thickness range (as the chunk scan's {@code boundChunk}). */
     private final CurveModel rangeModel;
     private final double[] probeOd;
@@ -167,6 +170,26 @@ final class ColumnFirstScan {
         return Arrays.copyOf(found, count);
     }
 
+    /**
+     * Every one-column probe's levels at t, by probe index (null for other probes). Each is two binary
+     * searches over the key of a code, so they are worked out once per threshold and shared by the probe's
+     * choice and both halves of the column, before those halves start.
+     */
+    private Filter[] filtersAt(int t) {
+        if (filters == null || filtersT != t) {
+            Filter[] at = new Filter[plan.pointProbes.size()];
+            for (int k : oneColumnProbeIndices()) {
+                // the gathered pass (benchmark only) reads the chosen column alone by levels, as it did
+                if (!gatherOtherColumns || k == probe) {
+                    at[k] = new Filter(plan.pointProbes.get(k), t);
+                }
+            }
+            filters = at;
+            filtersT = t;
+        }
+        return filters;
+    }
+
     /** The one-column probe that keeps the fewest sampled curves at cap threshold t. */
     private int mostSelective(int[] sampled, int sampledCount, int t) {
         int bestProbe = -1;
@@ -180,7 +203,7 @@ final class ColumnFirstScan {
             int keptHere = 0;
             if (asMeasured && !gatherOtherColumns) {
                 // the integer levels firstColumn reads with (exactly "cap ≥ t"), not a margin per curve
-                Filter filter = new Filter(p, t);
+                Filter filter = filtersAt(t)[k];
                 for (int i = 0; i < sampledCount; i++) {
                     if (filter.keeps(column[sampled[i]])) {
                         keptHere++;
@@ -207,6 +230,9 @@ final class ColumnFirstScan {
         int n = store.size();
         int[] curves;
         int count;
+        if (asMeasured) {
+            filtersAt(t); // before the halves start: they only read it
+        }
         if (n >= plan.parallelMinCurves) {
             // the two halves of the column on two threads, joined in curve order
             int half = n / 2;
@@ -320,12 +346,13 @@ final class ColumnFirstScan {
         Filter[] filters = new Filter[probes.length];
         short[][] columns = new short[probes.length][];
         // the chosen probe first: it keeps the fewest, so the other columns are read for few curves
-        filters[0] = new Filter(plan.pointProbes.get(probe), t);
+        Filter[] at = filtersAt(t);
+        filters[0] = at[probe];
         columns[0] = store.column(plan.pointProbes.get(probe).probe().lo());
         int f = 1;
         for (int k : probes) {
             if (k != probe && !gatherOtherColumns) {
-                filters[f] = new Filter(plan.pointProbes.get(k), t);
+                filters[f] = at[k];
                 columns[f++] = store.column(plan.pointProbes.get(k).probe().lo());
             }
         }
