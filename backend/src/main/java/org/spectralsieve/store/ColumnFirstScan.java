@@ -38,6 +38,8 @@ final class ColumnFirstScan {
     private static final int SAMPLE_WITH_THICKNESS = 4_096;
     /** Aim the first threshold at about this many times the curves asked for. */
     private static final int HEADROOM = 4;
+    /** Curves screened together by every column as measured: a few kilobytes of each column stay in cache. */
+    private static final int BLOCK = 2_048;
     private static final int PLAIN_TOP = OdCode.LEVEL_MASK; // 0x7FFF: every level a code without the bound bit can hold
     private static final int BOUND_TOP = OdCode.MAX_LEVEL;
 
@@ -52,12 +54,26 @@ final class ColumnFirstScan {
     private int keptCount;
     private int threshold = Integer.MAX_VALUE;
     private final boolean asMeasured;
+    private final boolean gatherOtherColumns;
+    /** Every one-column probe's levels at {@link #filtersT} (null elsewhere): worked out once per threshold. */
+    private Filter[] filters;
+    private int filtersT;
     /** Points-only model for bounds over a thickness range (as the chunk scan's {@code boundChunk}). */
     private final CurveModel rangeModel;
     private final double[] probeOd;
     private final byte[] probeState;
 
     ColumnFirstScan(SpectralStore store, StoreSearch.Plan plan) {
+        this(store, plan, false);
+    }
+
+    /**
+     * {@code gatherOtherColumns}: as measured, screen by the chosen column alone and thin its survivors by
+     * the other columns gathered per curve (the pass before the block screen); for the benchmark's side by
+     * side only, same answers.
+     */
+    ColumnFirstScan(SpectralStore store, StoreSearch.Plan plan, boolean gatherOtherColumns) {
+        this.gatherOtherColumns = gatherOtherColumns;
         this.store = store;
         this.plan = plan;
         this.everyCurveAdmitted = plan.totalGeometry == null && plan.materialClass == null;
@@ -154,6 +170,26 @@ final class ColumnFirstScan {
         return Arrays.copyOf(found, count);
     }
 
+    /**
+     * Every one-column probe's levels at t, by probe index (null for other probes). Each is two binary
+     * searches over the key of a code, so they are worked out once per threshold and shared by the probe's
+     * choice and both halves of the column, before those halves start.
+     */
+    private Filter[] filtersAt(int t) {
+        if (filters == null || filtersT != t) {
+            Filter[] at = new Filter[plan.pointProbes.size()];
+            for (int k : oneColumnProbeIndices()) {
+                // the gathered pass (benchmark only) reads the chosen column alone by levels, as it did
+                if (!gatherOtherColumns || k == probe) {
+                    at[k] = new Filter(plan.pointProbes.get(k), t);
+                }
+            }
+            filters = at;
+            filtersT = t;
+        }
+        return filters;
+    }
+
     /** The one-column probe that keeps the fewest sampled curves at cap threshold t. */
     private int mostSelective(int[] sampled, int sampledCount, int t) {
         int bestProbe = -1;
@@ -163,12 +199,22 @@ final class ColumnFirstScan {
             if (!p.probe().onGrid() || p.probe().fractionHi() != 0) {
                 continue;
             }
-            Reach reach = new Reach(k, t);
             short[] column = store.column(p.probe().lo());
             int keptHere = 0;
-            for (int i = 0; i < sampledCount; i++) {
-                if (reach.keeps(sampled[i], column[sampled[i]])) {
-                    keptHere++;
+            if (asMeasured && !gatherOtherColumns) {
+                // the integer levels firstColumn reads with (exactly "cap ≥ t"), not a margin per curve
+                Filter filter = filtersAt(t)[k];
+                for (int i = 0; i < sampledCount; i++) {
+                    if (filter.keeps(column[sampled[i]])) {
+                        keptHere++;
+                    }
+                }
+            } else {
+                Reach reach = new Reach(k, t);
+                for (int i = 0; i < sampledCount; i++) {
+                    if (reach.keeps(sampled[i], column[sampled[i]])) {
+                        keptHere++;
+                    }
                 }
             }
             if (keptHere < fewest) {
@@ -184,6 +230,9 @@ final class ColumnFirstScan {
         int n = store.size();
         int[] curves;
         int count;
+        if (asMeasured) {
+            filtersAt(t); // before the halves start: they only read it
+        }
         if (n >= plan.parallelMinCurves) {
             // the two halves of the column on two threads, joined in curve order
             int half = n / 2;
@@ -200,9 +249,10 @@ final class ColumnFirstScan {
             curves = Arrays.copyOfRange(part, 1, Math.max(17, count + 1));
         }
         // the bound is at most every one-column probe's cap: the other columns rule out more, read only here
+        // (as measured firstColumn has already read them, block by block)
         for (int k = 0; k < plan.pointProbes.size(); k++) {
             StoreSearch.PointProbe other = plan.pointProbes.get(k);
-            if (k == probe || rangeModel != null || !other.probe().onGrid() || other.probe().fractionHi() != 0) {
+            if (k == probe || rangeModel != null || (asMeasured && !gatherOtherColumns) || !other.probe().onGrid() || other.probe().fractionHi() != 0) {
                 continue;
             }
             Reach reach = new Reach(k, t);
@@ -279,33 +329,47 @@ final class ColumnFirstScan {
             curves[0] = count;
             return curves;
         }
-        Filter filter = new Filter(p, t);
-        int lp = filter.plainLimit;
-        int lb = filter.boundLimit;
-        boolean nm = filter.notMeasured;
-        if (p.pass()) {
-            for (int c = from; c < to; c++) {
-                int u = column[c] & 0xFFFF;
-                // plain codes at or below lp, bound codes at or below lb, "not measured" if its cap reaches t
-                boolean keepIt = u < 0x8000 ? u <= lp : u == 0xFFFF ? nm : u - 0x8000 <= lb;
-                if (keepIt) {
-                    if (count + 1 == curves.length) {
-                        curves = Arrays.copyOf(curves, curves.length * 2);
-                    }
-                    curves[++count] = c;
-                }
+        return everyColumnByBlocks(t, from, to);
+    }
+
+    /**
+     * As measured: the curves in [from, to) whose cap reaches t in every one-column probe, block by block
+     * (element 0 is the count). The chosen column screens a block of {@link #BLOCK} curves by its two integer
+     * levels; the survivors are thinned by each other column's levels read in the same block, so every
+     * column is read in order (a few kilobytes at a time) and compared as shorts, instead of gathered per
+     * kept curve and compared as margins. {@link Filter} keeps exactly "cap ≥ t"; the bound is at most each
+     * cap, so no curve whose bound reaches t is dropped (the curves dropped here and kept by {@link Reach}'s
+     * looser margin test have bounds below t, which never enter the best or the candidates).
+     */
+    private int[] everyColumnByBlocks(int t, int from, int to) {
+        int[] probes = oneColumnProbeIndices();
+        Filter[] filters = new Filter[probes.length];
+        short[][] columns = new short[probes.length][];
+        // the chosen probe first: it keeps the fewest, so the other columns are read for few curves
+        Filter[] at = filtersAt(t);
+        filters[0] = at[probe];
+        columns[0] = store.column(plan.pointProbes.get(probe).probe().lo());
+        int f = 1;
+        for (int k : probes) {
+            if (k != probe && !gatherOtherColumns) {
+                filters[f] = at[k];
+                columns[f++] = store.column(plan.pointProbes.get(k).probe().lo());
             }
-        } else {
-            for (int c = from; c < to; c++) {
-                int u = column[c] & 0xFFFF;
-                boolean keepIt = u < 0x8000 ? u >= lp : u == 0xFFFF ? nm : u - 0x8000 >= lb;
-                if (keepIt) {
-                    if (count + 1 == curves.length) {
-                        curves = Arrays.copyOf(curves, curves.length * 2);
-                    }
-                    curves[++count] = c;
-                }
+        }
+        int[] curves = new int[64];
+        int count = 0;
+        int[] block = new int[BLOCK];
+        for (int start = from; start < to; start += BLOCK) {
+            int end = Math.min(to, start + BLOCK);
+            int left = filters[0].keepInto(columns[0], start, end, block);
+            for (int i = 1; i < f && left > 0; i++) {
+                left = filters[i].thin(columns[i], block, left);
             }
+            if (count + 1 + left > curves.length) {
+                curves = Arrays.copyOf(curves, Math.max(curves.length * 2, count + 1 + left));
+            }
+            System.arraycopy(block, 0, curves, count + 1, left);
+            count += left;
         }
         curves[0] = count;
         return curves;
@@ -647,6 +711,43 @@ final class ColumnFirstScan {
             int level = u & OdCode.LEVEL_MASK;
             int limit = u < 0x8000 ? plainLimit : boundLimit;
             return pass ? level <= limit : level >= limit;
+        }
+
+        /** The curves in [from, to) this filter keeps, written to {@code out} in curve order; their count. */
+        int keepInto(short[] column, int from, int to, int[] out) {
+            int lp = plainLimit;
+            int lb = boundLimit;
+            boolean nm = notMeasured;
+            int count = 0;
+            if (pass) {
+                for (int c = from; c < to; c++) {
+                    int u = column[c] & 0xFFFF;
+                    // plain codes at or below lp, bound codes at or below lb, "not measured" if its cap reaches t
+                    if (u < 0x8000 ? u <= lp : u == 0xFFFF ? nm : u - 0x8000 <= lb) {
+                        out[count++] = c;
+                    }
+                }
+            } else {
+                for (int c = from; c < to; c++) {
+                    int u = column[c] & 0xFFFF;
+                    if (u < 0x8000 ? u >= lp : u == 0xFFFF ? nm : u - 0x8000 >= lb) {
+                        out[count++] = c;
+                    }
+                }
+            }
+            return count;
+        }
+
+        /** Keeps, in place and in order, the first {@code count} curves of {@code curves} this filter keeps. */
+        int thin(short[] column, int[] curves, int count) {
+            int left = 0;
+            for (int i = 0; i < count; i++) {
+                int c = curves[i];
+                if (keeps(column[c])) {
+                    curves[left++] = c;
+                }
+            }
+            return left;
         }
 
         private static int limit(StoreSearch.PointProbe p, int t, int boundBit, int top) {

@@ -129,6 +129,21 @@ public final class StoreSearch {
         return search(store, requirement, limit, PARALLEL_MIN_CURVES, Integer.MAX_VALUE);
     }
 
+    /**
+     * The reworked scan with the column-first pass as it was before its block screen (as measured: the other
+     * columns gathered per curve the chosen column keeps, compared as margins). For {@code SearchBenchmark}'s
+     * side-by-side rows only; same answers.
+     */
+    public static StoreResult searchGatheringOtherColumns(SpectralStore store, Requirement requirement, int limit) {
+        if (limit < 1) {
+            throw new IllegalArgumentException("limit must be at least 1, got " + limit);
+        }
+        StoreSearch search = new StoreSearch(store, requirement, false);
+        StoreResult byColumn = store.size() >= search.plan.columnFirstMinCurves && ColumnFirstScan.applies(search.plan)
+                ? search.runColumnFirst(limit, true) : null;
+        return byColumn != null ? byColumn : search.run(limit, false);
+    }
+
     /** The same search with every probe of every curve evaluated: the reference the bounded search must equal. */
     static StoreResult searchExhaustively(SpectralStore store, Requirement requirement, int limit) {
         return new StoreSearch(store, requirement, false).run(limit, true);
@@ -177,7 +192,11 @@ public final class StoreSearch {
      * that column cannot settle the best curves (the chunk scan runs instead).
      */
     private StoreResult runColumnFirst(int limit) {
-        ColumnFirstScan scan = new ColumnFirstScan(store, plan);
+        return runColumnFirst(limit, false);
+    }
+
+    private StoreResult runColumnFirst(int limit, boolean gatherOtherColumns) {
+        ColumnFirstScan scan = new ColumnFirstScan(store, plan, gatherOtherColumns);
         int[] best = scan.best(limit * FIRST_CUT_FACTOR);
         if (best == null) {
             return null;

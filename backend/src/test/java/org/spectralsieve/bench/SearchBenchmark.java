@@ -98,10 +98,12 @@ class SearchBenchmark {
     /**
      * The store's part alone by the earlier scan ({@code variant=before}, {@link StoreSearch#searchReference}),
      * the chunk scan without reading one column first ({@code variant=chunks}, {@link StoreSearch#searchByChunks})
+     * the column-first pass as it was before its block screen ({@code variant=gathered},
+     * {@link StoreSearch#searchGatheringOtherColumns}: as measured, the other columns gathered per kept curve)
      * and the default path ({@code variant=after}), run in turn in one loop so all see the same load.
      */
     private static void compareScans(SpectralStore store, Requirement requirement, int limit, int runs, String mode) {
-        String[] variants = {"before", "chunks", "after"};
+        String[] variants = {"before", "chunks", "gathered", "after"};
         for (int i = 0; i < 3; i++) {
             for (String variant : variants) {
                 scan(variant, store, requirement, limit);
@@ -125,6 +127,7 @@ class SearchBenchmark {
         return switch (variant) {
             case "before" -> StoreSearch.searchReference(store, requirement, limit);
             case "chunks" -> StoreSearch.searchByChunks(store, requirement, limit);
+            case "gathered" -> StoreSearch.searchGatheringOtherColumns(store, requirement, limit);
             default -> StoreSearch.search(store, requirement, limit);
         };
     }
