@@ -1,10 +1,10 @@
 package org.spectralsieve.optics;
 
 import java.util.ArrayList;
-import java.util.Arrays;
 import java.util.List;
 import java.util.Map;
 import java.util.concurrent.ConcurrentHashMap;
+import org.spectralsieve.spectrum.ArrayContent;
 import org.spectralsieve.spectrum.Curve;
 import org.spectralsieve.spectrum.CurveException;
 
@@ -35,7 +35,7 @@ public final class FixedParts {
     private static final Map<Identity, FixedParts> BY_PARTS = new ConcurrentHashMap<>();
 
     private final List<Layer> fixed;
-    private final Map<Grid, OnGrid> byGrid = new ConcurrentHashMap<>();
+    private final Map<ArrayContent, OnGrid> byGrid = new ConcurrentHashMap<>();
 
     private FixedParts(List<Layer> fixed) {
         this.fixed = List.copyOf(fixed);
@@ -62,12 +62,12 @@ public final class FixedParts {
     /** The path of {@code front} followed by the fixed parts: equal to {@link LightPath#transmittance()} of them. */
     public Curve behind(Layer front) {
         double[] frontNm = front.measured().wavelengthsNm();
-        OnGrid on = byGrid.get(new Grid(frontNm));
+        OnGrid on = byGrid.get(new ArrayContent(frontNm));
         if (on == null) {
             List<Layer> layers = layers(front);
             Curve path = LightPath.of(layers).transmittance();
             // it succeeded: the fixed parts on this grid can be formed and kept
-            remember(new Grid(frontNm), layers);
+            remember(new ArrayContent(frontNm), layers);
             return path;
         }
         Curve[] onShared = on.onShared().clone();
@@ -88,7 +88,7 @@ public final class FixedParts {
         return layers;
     }
 
-    private void remember(Grid grid, List<Layer> layers) {
+    private void remember(ArrayContent grid, List<Layer> layers) {
         if (byGrid.size() >= GRIDS) {
             byGrid.clear();
         }
@@ -107,28 +107,6 @@ public final class FixedParts {
 
     /** The fixed parts on one front grid's shared wavelengths; index 0 (the front part) left empty. */
     private record OnGrid(double[] nm, Curve[] onShared, double[][] reflectances, OpticalElement[][][] elements) {
-    }
-
-    /** A front part's wavelengths, equal when every wavelength is. */
-    private static final class Grid {
-
-        private final double[] nm;
-        private final int hash;
-
-        Grid(double[] nm) {
-            this.nm = nm;
-            this.hash = Arrays.hashCode(nm);
-        }
-
-        @Override
-        public boolean equals(Object o) {
-            return o instanceof Grid other && hash == other.hash && Arrays.equals(nm, other.nm);
-        }
-
-        @Override
-        public int hashCode() {
-            return hash;
-        }
     }
 
     /** A fixed part's curve and index, by identity. */

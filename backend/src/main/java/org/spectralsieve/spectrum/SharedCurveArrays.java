@@ -1,6 +1,5 @@
 package org.spectralsieve.spectrum;
 
-import java.util.Arrays;
 import java.util.Collections;
 import java.util.HashMap;
 import java.util.IdentityHashMap;
@@ -19,7 +18,7 @@ import java.util.Set;
 public final class SharedCurveArrays {
 
     private final long maxBytes;
-    private final Map<Content, double[]> byContent = new HashMap<>();
+    private final Map<ArrayContent, double[]> byContent = new HashMap<>();
     private final Set<double[]> held = Collections.newSetFromMap(new IdentityHashMap<>());
     private long bytes;
 
@@ -48,7 +47,7 @@ public final class SharedCurveArrays {
 
     /** The pooled array equal to {@code array}; else {@code array} itself, pooled while there is room. */
     synchronized double[] canonical(double[] array) {
-        Content key = new Content(array);
+        ArrayContent key = new ArrayContent(array);
         double[] pooled = byContent.get(key);
         if (pooled != null) {
             return pooled;
@@ -64,26 +63,5 @@ public final class SharedCurveArrays {
 
     synchronized boolean holds(double[] array) {
         return held.contains(array);
-    }
-
-    /** An array as a map key by content. */
-    private static final class Content {
-        private final double[] values;
-        private final int hash;
-
-        Content(double[] values) {
-            this.values = values;
-            this.hash = Arrays.hashCode(values);
-        }
-
-        @Override
-        public boolean equals(Object o) {
-            return o instanceof Content other && hash == other.hash && Arrays.equals(values, other.values);
-        }
-
-        @Override
-        public int hashCode() {
-            return hash;
-        }
     }
 }
