@@ -45,6 +45,7 @@ import org.spectralsieve.requirement.StackLayer;
 import org.spectralsieve.requirement.ThicknessSpec;
 import org.spectralsieve.requirement.TransmittanceClause;
 import org.spectralsieve.spectrum.Curve;
+import org.spectralsieve.store.LayerBlockScreen;
 import org.spectralsieve.store.MissScreen;
 import org.spectralsieve.store.SpectralStore;
 import org.spectralsieve.store.StoreHit;
@@ -104,6 +105,11 @@ public class SearchService {
     private boolean screenWeighted = true;
     /** Whether the weighted screen uses its earlier, weaker rule ({@link WeightedMisses#addEarlier}); benchmarks only. */
     private boolean earlierWeightedScreen;
+    /**
+     * Whether blocks behind a fixed layer are screened ({@link LayerBlockScreen}); the system property
+     * {@code sieve.search.layer-block-screen=false} turns it off, only so a benchmark can time both ways.
+     */
+    private final boolean screenLayerBlocks = !"false".equals(System.getProperty("sieve.search.layer-block-screen"));
 
     public SearchService(JooqLibraryRepository library) {
         this(library, DEFAULT_CURVE_CACHE_BYTES);
@@ -296,6 +302,9 @@ public class SearchService {
         Optional<StackLayer> layer = requirement.layer().map(l -> resolveLayer(l, s));
         boolean diffuseLayer = layer.map(l -> s.samples().get(l.sampleId()).geometry() == Geometry.TOTAL).orElse(false);
         Map<Long, Double> provenMiss = provenMisses(s, requirement, layer);
+        if (screenLayerBlocks) {
+            layer.ifPresent(l -> addLayerBlockMisses(provenMiss, s.store(), requirement, l));
+        }
         if (screenWeighted && earlierWeightedScreen) {
             WeightedMisses.addEarlier(provenMiss, s.store(), requirement, layer, diffuseLayer);
         } else if (screenWeighted) {
@@ -466,6 +475,37 @@ public class SearchService {
             }
         }
         return out;
+    }
+
+    /**
+     * Lowers, or adds, the bound of each sample the store proves to miss an every-point block clause as measured
+     * behind the layer ({@link LayerBlockScreen}: the stack is never darker than its parts' product). Only as
+     * measured: at another thickness the candidate is rescaled before it is stacked, which this bound does not
+     * follow.
+     */
+    private static void addLayerBlockMisses(Map<Long, Double> provenMiss, SpectralStore store, Requirement requirement,
+                                            StackLayer layer) {
+        if (requirement.thickness().kind() != ThicknessSpec.Kind.AS_MEASURED) {
+            return;
+        }
+        List<TransmittanceClause> blocks = new ArrayList<>();
+        for (var clause : requirement.clauses()) {
+            if (clause instanceof TransmittanceClause t && t.aggregate() == Aggregate.EVERY_POINT
+                    && t.direction() == Direction.BLOCK) {
+                blocks.add(t);
+            }
+        }
+        if (blocks.isEmpty()) {
+            return;
+        }
+        double[][] bounds = LayerBlockScreen.marginBounds(store, blocks, layer.curve(), layer.index());
+        for (double[] clauseBounds : bounds) {
+            for (int curve = 0; curve < store.size(); curve++) {
+                if (clauseBounds[curve] < 0) {
+                    provenMiss.merge(store.sampleId(curve), clauseBounds[curve], Math::min);
+                }
+            }
+        }
     }
 
     private static boolean insideLayer(TransmittanceClause t, StackLayer layer) {
