@@ -88,6 +88,11 @@ public final class ImportGate {
         }
     }
 
+    /** Imports waiting for a turn now. */
+    public int waiting() {
+        return waiting.get();
+    }
+
     private Busy busy(String why) {
         // a turn takes seconds at most; suggest a wait that grows with what is already queued
         int retry = Math.max(1, (int) Math.min(60, 2L + waiting.get()));

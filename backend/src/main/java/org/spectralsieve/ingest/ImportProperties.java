@@ -15,7 +15,10 @@ import org.springframework.boot.context.properties.bind.DefaultValue;
  *                      3 to 30 times, a zip bomb about 1000 times, so 100 refuses the one and never the other
  * @param maxConcurrentImports imports (single files and batches) worked on at once; each holds at most its
  *                      upload and one inflated file of {@code maxFileBytes}, so this bounds their memory
- * @param maxQueuedImports imports that may wait for a turn; one more is answered 429 with Retry-After
+ * @param maxQueuedImports imports that may wait for a turn; one more is answered 429 with Retry-After. A waiting
+ *                      import has read none of its upload (the turn is taken before the body is read), so it
+ *                      costs no heap for it, only a request thread: 48 keeps at most a quarter of the
+ *                      container's 200 request threads waiting (docs/limits.md, "Imports")
  * @param queueWaitSeconds longest a waiting import waits before it is answered 429
  */
 @ConfigurationProperties("sieve.imports")
@@ -25,7 +28,7 @@ public record ImportProperties(@DefaultValue("20971520") long maxFileBytes,
                                @DefaultValue("209715200") long maxZipBytes,
                                @DefaultValue("100") int maxZipRatio,
                                @DefaultValue("2") int maxConcurrentImports,
-                               @DefaultValue("8") int maxQueuedImports,
+                               @DefaultValue("48") int maxQueuedImports,
                                @DefaultValue("30") int queueWaitSeconds) {
 
     public ImportProperties {
@@ -37,6 +40,6 @@ public record ImportProperties(@DefaultValue("20971520") long maxFileBytes,
     }
 
     public static ImportProperties defaults() {
-        return new ImportProperties(20_971_520L, 200_000, 1000, 209_715_200L, 100, 2, 8, 30);
+        return new ImportProperties(20_971_520L, 200_000, 1000, 209_715_200L, 100, 2, 48, 30);
     }
 }
