@@ -21,9 +21,11 @@ import org.spectralsieve.spectrum.Curve;
  * rounding) a resolved one, and min(T, 1) one at the lossless ceiling, so at every point of the stack (the
  * union of both parts' wavelengths) the floored absorbance Ā obeys Ā_S ≤ max(Ā₁, 0) + Ā₂ + rounding whenever
  * the layer's T there lies in [ε, 1] (for x, y in [0, 1], max(xy, ε) ≥ max(x, ε)·max(y, ε)). Since
- * max(Ā₁, 0) ≤ Ā₁ + log10(1.5) (no stored T exceeds {@link Curve#MAX_TRANSMITTANCE}), the right side is
- * linear between two neighbouring stack points, as Ā_S is, so it holds at any wavelength g between them:
- * Ā_S(g) ≤ Ā₁(g) + Ā₂(g) + log10(1.5) + rounding. The store's code at a grid wavelength g is Ā₁(g) to within
+ * max(Ā₁, 0) ≤ Ā₁ + log10 max(1, B), with B at least every T the candidate's points around g hold (its bin's
+ * brightest on a regular curve, {@link WeightedScreen#brightestAround}; else 1.5, the most a stored T may be),
+ * the right side is linear between two neighbouring stack points, as Ā_S is, so it holds at any wavelength g
+ * between them: Ā_S(g) ≤ Ā₁(g) + Ā₂(g) + log10 max(1, B) + rounding. The store's code at a grid wavelength g is
+ * Ā₁(g) to within
  * half a step ({@link MissScreen#SLACK_DECADES} covers it); Ā₂(g) is read from the layer's curve here. The
  * exact judgement reads the stack at every stack point inside the band and at the band's ends; two of those
  * readings enclose g on one straight piece of Ā_S, so one of them is at least as bright as S(g). That reading
@@ -39,9 +41,7 @@ import org.spectralsieve.spectrum.Curve;
  */
 public final class LayerBlockScreen {
 
-    /** log10 of the largest stored T: what capping a noisy reading at 1 may add to the candidate's absorbance. */
-    static final double ABOVE_ONE_DECADES = Math.log10(Curve.MAX_TRANSMITTANCE);
-    /** Room for the slab inversion and re-forming of each element and the chain's arithmetic. */
+        /** Room for the slab inversion and re-forming of each element and the chain's arithmetic. */
     static final double ROUNDING_DECADES = 1e-7;
 
     private LayerBlockScreen() {
@@ -79,7 +79,8 @@ public final class LayerBlockScreen {
     private static void bound(SpectralStore store, TransmittanceClause clause, Curve layer, double[] layerRange,
                               byte[] usableIndex, double[] out) {
         double thresholdLog = Math.log10(clause.thresholdT());
-        double slack = MissScreen.SLACK_DECADES + ABOVE_ONE_DECADES + ROUNDING_DECADES;
+        double slack = MissScreen.SLACK_DECADES + ROUNDING_DECADES;
+        WeightedScreen bins = store.weightedScreen();
         for (int w = 0; w < store.gridSize(); w++) {
             double nm = store.gridNm(w);
             if (!(nm >= clause.band().fromNm() && nm <= clause.band().toNm())) {
@@ -96,12 +97,21 @@ public final class LayerBlockScreen {
                 if (!OdCode.isMeasured(code) || OdCode.isBound(code)) {
                     continue;
                 }
-                double margin = base + OdCode.opticalDensity(code);
+                double margin = base + OdCode.opticalDensity(code) + aboveOne(bins, curve, nm);
                 if (margin < out[curve] && usable(store, curve, layerRange, usableIndex)) {
                     out[curve] = margin;
                 }
             }
         }
+    }
+
+    /**
+     * What capping the candidate's readings at 1 may add to its absorbance around {@code nm}: log10 of the
+     * largest T of the points a value there is read from, when above 1; log10 1.5 where nothing tighter is known.
+     */
+    private static double aboveOne(WeightedScreen bins, int curve, double nm) {
+        double brightest = bins.brightestAround(curve, nm);
+        return brightest > 1 ? Math.log10(brightest) : 0;
     }
 
     /**

@@ -598,6 +598,22 @@ public final class WeightedScreen {
         return shares;
     }
 
+    /**
+     * An upper bound on T at the curve's own points that a value at {@code nm} is interpolated from (for
+     * {@link LayerBlockScreen}): the brightest of the bin holding {@code nm}, which on a regular curve holds both
+     * neighbours of any value inside the bin (see {@link Query#behindLayer}); {@link Curve#MAX_TRANSMITTANCE}
+     * (no tighter bound) for a curve not screened or not regular, outside the bins, or a bin without a bound.
+     */
+    double brightestAround(int curve, double nm) {
+        int range = rangeOfCurve[curve];
+        int bin = binOf(nm);
+        if (range < 0 || bin < 0 || ranges.get(range)[2] != 1) {
+            return Curve.MAX_TRANSMITTANCE;
+        }
+        int code = brightest[bin][curve] & 0xFF;
+        return code == 0 ? Curve.MAX_TRANSMITTANCE : Math.min(Curve.MAX_TRANSMITTANCE, T_OF_CODE[code]);
+    }
+
     /** The bin whose closed interval holds the wavelength (the lower one on a shared edge); −1 outside. */
     private static int binOf(double nm) {
         if (!(nm >= FIRST_NM && nm <= FIRST_NM + BINS * BIN_NM)) {
