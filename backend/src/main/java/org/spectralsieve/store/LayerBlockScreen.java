@@ -52,8 +52,8 @@ public final class LayerBlockScreen {
      * @param layer      the layer's curve as the stack uses it
      * @param layerIndex the layer's refractive index
      * @return margins[clause][curve]: an upper bound on the exact margin of that clause on the curve as
-     *         measured behind the layer; +∞ where nothing is proven (no usable grid reading, an index that
-     *         fails)
+     *         measured behind the layer where it is negative (a proven miss); +∞ where nothing is proven (no
+     *         usable grid reading, an index that fails, no reading bright enough)
      */
     public static double[][] marginBounds(SpectralStore store, List<TransmittanceClause> blocks, Curve layer,
                                           RefractiveIndex layerIndex) {
@@ -98,7 +98,8 @@ public final class LayerBlockScreen {
                     continue;
                 }
                 double margin = base + OdCode.opticalDensity(code) + aboveOne(bins, curve, nm);
-                if (margin < out[curve] && usable(store, curve, layerRange, usableIndex)) {
+                // only a miss is worth the index check (a positive bound is never used)
+                if (margin < 0 && margin < out[curve] && usable(store, curve, layerRange, usableIndex)) {
                     out[curve] = margin;
                 }
             }
