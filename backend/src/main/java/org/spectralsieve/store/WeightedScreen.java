@@ -76,12 +76,25 @@ public final class WeightedScreen {
     private final byte[][] darkest;
     private final short[] rangeOfCurve;
     private final List<double[]> ranges;
+    /** Per range: whether its curves are regular ({@code Builder.regular}), read from an array, not the list. */
+    private final boolean[] regularOfRange;
+    /** Per range: the bins its wavelengths meet ({@code Query.lnBrightestOfCurve}). */
+    private final int[][] binsOfRange;
+    private static final int[] ALL_BINS = java.util.stream.IntStream.range(0, BINS).toArray();
 
     private WeightedScreen(byte[][] brightest, byte[][] darkest, short[] rangeOfCurve, List<double[]> ranges) {
         this.brightest = brightest;
         this.darkest = darkest;
         this.rangeOfCurve = rangeOfCurve;
         this.ranges = ranges;
+        this.regularOfRange = new boolean[ranges.size()];
+        this.binsOfRange = new int[ranges.size()][];
+        for (int i = 0; i < ranges.size(); i++) {
+            double[] r = ranges.get(i);
+            regularOfRange[i] = r[2] == 1;
+            binsOfRange[i] = java.util.stream.IntStream.range(0, BINS)
+                    .filter(b -> !(FIRST_NM + b * BIN_NM > r[1] || FIRST_NM + b * BIN_NM + BIN_NM < r[0])).toArray();
+        }
     }
 
     static Builder builder(int capacity) {
@@ -220,6 +233,8 @@ public final class WeightedScreen {
         private final double threshold;
         private final double floor;
         private final double[][] sharesOfRange;
+        /** Per range: the bins of positive share, in order (the sums skip the rest, as they did by testing). */
+        private final int[][] usedBinsOfRange;
         private final Map<Long, Double> largestR = new HashMap<>();
         /** Per range, per index model: the surfaces' figures, formed once (no boxed cache on the hot path). */
         private final Surfaces[][] surfacesOf;
@@ -237,6 +252,7 @@ public final class WeightedScreen {
             this.threshold = clause.thresholdT();
             this.floor = Math.min(Curve.ABSORBANCE_FLOOR_T, threshold);
             this.sharesOfRange = new double[ranges.size()][];
+            this.usedBinsOfRange = new int[ranges.size()][];
             this.surfacesOf = new Surfaces[ranges.size()][];
         }
 
@@ -262,9 +278,16 @@ public final class WeightedScreen {
             double[] shares = sharesOfRange[range];
             if (shares == null) {
                 shares = binShares(clause.weighting(), ranges.get(range), layerRange);
+                double[] formed = shares;
+                usedBinsOfRange[range] = java.util.stream.IntStream.range(0, formed.length).filter(b -> formed[b] > 0).toArray();
                 sharesOfRange[range] = shares;
             }
             return shares;
+        }
+
+        /** The bins a sum over the curve's shares visits (after {@link #shares}): those of positive share, or all before. */
+        private int[] usedBins(int curve) {
+            return reference ? ALL_BINS : usedBinsOfRange[rangeOfCurve[curve]];
         }
 
         /**
@@ -281,7 +304,7 @@ public final class WeightedScreen {
             }
             byte[][] codes = pass ? brightest : darkest;
             double mean = 0;
-            for (int b = 0; b < BINS; b++) {
+            for (int b : usedBins(curve)) {
                 if (shares[b] > 0) {
                     int code = codes[b][curve] & 0xFF;
                     if (code == 0 && pass) {
@@ -377,7 +400,7 @@ public final class WeightedScreen {
                     ? Math.exp(Math.max(surfaces.lnSmallestFactor(k), surfaces.lnLargestFactor(k))) * (1 + POWER_ROOM)
                     : Double.NaN;
             double mean = 0;
-            for (int b = 0; b < BINS; b++) {
+            for (int b : usedBins(curve)) {
                 if (shares[b] > 0) {
                     int code = brightest[b][curve] & 0xFF;
                     if (code == 0) {
@@ -501,7 +524,7 @@ public final class WeightedScreen {
             powers.of(k);
             double factor = c * Math.exp(-k * lnB) * (1 - POWER_ROOM);
             double mean = 0;
-            for (int b = 0; b < BINS; b++) {
+            for (int b : usedBins(curve)) {
                 if (shares[b] > 0) {
                     int dark = darkest[b][curve] & 0xFF;
                     if (dark != 0) {
@@ -555,7 +578,7 @@ public final class WeightedScreen {
         private double lnBrightestOfCurve(int curve) {
             double[] r = ranges.get(rangeOfCurve[curve]);
             double ln = 0;
-            for (int b = 0; b < BINS; b++) {
+            for (int b : reference ? ALL_BINS : binsOfRange[rangeOfCurve[curve]]) {
                 double from = FIRST_NM + b * BIN_NM;
                 if (from > r[1] || from + BIN_NM < r[0]) {
                     continue;
@@ -576,7 +599,7 @@ public final class WeightedScreen {
          * at most each part, T₁T₂/(1 − ρ₁ρ₂) ≤ T₁ since T₂ + ρ₂ ≤ 1, and so is each chain of a limit).
          */
         private boolean regular(int curve) {
-            return ranges.get(rangeOfCurve[curve])[2] == 1;
+            return reference ? ranges.get(rangeOfCurve[curve])[2] == 1 : regularOfRange[rangeOfCurve[curve]];
         }
 
         /** The surfaces' figures for the curve's index model over its range, formed once per pair. */

@@ -42,7 +42,8 @@ import org.spectralsieve.store.SyntheticCurves;
  * ({@link WeightedMisses#add}), {@code reference} (the same rule with the arithmetic before the power tables, on
  * one thread) or {@code earlier} ({@link WeightedMisses#addEarlier}), alternated run by run;
  * {@code -Dbench.storeWeightedRules=current,reference} chooses them, {@code -Dbench.storeWeightedSkipEarlier=true}
- * leaves the earlier out. The held materials are judged as the service does: the shortlist's top rows kept up
+ * leaves the earlier out, {@code -Dbench.storeWeightedWholeRules=current} runs the whole search for those rules
+ * only (the others time their screen alone; above the base size the warm-up screens only). The held materials are judged as the service does: the shortlist's top rows kept up
  * to date from themselves and each newly judged material, ranked once from every judgement at the end.
  */
 class StoreWeightedBenchmark {
@@ -81,15 +82,19 @@ class StoreWeightedBenchmark {
                                 .split(",")).map(String::trim)
                         .filter(r -> !(r.equals("earlier") && Boolean.getBoolean("bench.storeWeightedSkipEarlier")))
                         .toArray(String[]::new);
+                // the whole search only for these rules (the exact judgement is the same work whichever rule
+                // screened: the same misses are proven); the others time their screen alone
+                List<String> wholeRules = Arrays.asList(System.getProperty("bench.storeWeightedWholeRules",
+                        String.join(",", rules)).split(","));
                 for (String rule : rules) {
-                    search(store, mode.getValue(), limit, judge, rule); // warm-up
+                    search(store, mode.getValue(), limit, judge && n <= base, rule); // warm-up (the screen only above the base size)
                 }
                 double[][] screen = new double[rules.length][runs];
                 double[][] whole = new double[rules.length][runs];
                 Outcome[] last = new Outcome[rules.length];
                 for (int r = 0; r < runs; r++) {
                     for (int v = 0; v < rules.length; v++) {
-                        last[v] = search(store, mode.getValue(), limit, judge, rules[v]);
+                        last[v] = search(store, mode.getValue(), limit, judge && wholeRules.contains(rules[v]), rules[v]);
                         screen[v][r] = last[v].screenMs;
                         whole[v][r] = last[v].wholeMs;
                     }
@@ -97,7 +102,8 @@ class StoreWeightedBenchmark {
                 for (int v = 0; v < rules.length; v++) {
                     Arrays.sort(screen[v]);
                     Arrays.sort(whole[v]);
-                    for (String part : judge ? new String[] {"screen", "whole"} : new String[] {"screen"}) {
+                    boolean judged = judge && wholeRules.contains(rules[v]);
+                    for (String part : judged ? new String[] {"screen", "whole"} : new String[] {"screen"}) {
                         double[] ms = part.equals("screen") ? screen[v] : whole[v];
                         System.out.printf(Locale.ROOT, "BENCH store-weighted curves=%d mode=%s part=%s p50_ms=%.1f p95_ms=%.1f"
                                         + " proven=%d judged=%d runs=%d rule=%s%n", n, mode.getKey(), part, ms[runs / 2],
