@@ -4,6 +4,7 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.Map;
 import java.util.Optional;
+import java.util.stream.IntStream;
 import org.spectralsieve.requirement.Direction;
 import org.spectralsieve.requirement.NominalThickness;
 import org.spectralsieve.requirement.Requirement;
@@ -58,38 +59,64 @@ final class WeightedMisses {
      */
     static void add(Map<Long, Double> provenMiss, SpectralStore store, Requirement requirement,
                     Optional<StackLayer> layer, boolean diffuseLayer) {
+        add(provenMiss, store, requirement, layer, diffuseLayer, false);
+    }
+
+    /**
+     * @param reference the arithmetic before the per-curve power tables, on one thread
+     *                  ({@link WeightedScreen.Query#withReferenceArithmetic}): the same proofs to within 1e-12 of a
+     *                  margin, kept so a benchmark can time both side by side
+     */
+    static void add(Map<Long, Double> provenMiss, SpectralStore store, Requirement requirement,
+                    Optional<StackLayer> layer, boolean diffuseLayer, boolean reference) {
+        add(provenMiss, store, requirement, layer, diffuseLayer, reference, PARALLEL_FROM);
+    }
+
+    /** {@link #add(Map, SpectralStore, Requirement, Optional, boolean, boolean)} in parts from {@code parallelFrom} curves. */
+    static void add(Map<Long, Double> provenMiss, SpectralStore store, Requirement requirement,
+                    Optional<StackLayer> layer, boolean diffuseLayer, boolean reference, int parallelFrom) {
+        Optional<WeightedScreen.LayerBins> layerBins = layer.map(l -> WeightedScreen.LayerBins.of(l.curve(), l.index()));
+        if (bounds(store, requirement, layer, layerBins, diffuseLayer, reference, 0, 0) == null) {
+            return; // no weighted clause the screen can bound
+        }
+        int size = store.size();
+        // above PARALLEL_FROM curves, both halves at once; each part has its own queries (they cache), every
+        // curve's bound depends on that curve alone, and the merge below runs in curve order: the same map
+        int parts = reference || size < parallelFrom ? 1 : Math.max(1, Math.min(PARTS, Runtime.getRuntime().availableProcessors()));
+        double[] bound = new double[size];
+        IntStream.range(0, parts).parallel().forEach(p -> bounds(store, requirement, layer, layerBins, diffuseLayer,
+                reference, (int) ((long) size * p / parts), (int) ((long) size * (p + 1) / parts)).into(bound));
+        for (int curve = 0; curve < size; curve++) {
+            if (bound[curve] < 0) {
+                provenMiss.merge(store.sampleId(curve), bound[curve], Math::min);
+            }
+        }
+    }
+
+    /** Curves from which the screen runs on more than one thread. */
+    private static final int PARALLEL_FROM = 65_536;
+    /** At most this many parts (the service's machines have two cores; more parts only queue). */
+    private static final int PARTS = 2;
+
+    /** The clauses' queries for curves [from, to), or null when no weighted clause is screened. */
+    private static Bounds bounds(SpectralStore store, Requirement requirement, Optional<StackLayer> layer,
+                                 Optional<WeightedScreen.LayerBins> layerBins, boolean diffuseLayer, boolean reference,
+                                 int from, int to) {
         Optional<double[]> layerRange = layer.map(l -> new double[] {l.curve().minWavelengthNm(), l.curve().maxWavelengthNm()});
         WeightedScreen screen = store.weightedScreen();
         List<WeightedScreen.Query> queries = new ArrayList<>();
         List<Boolean> seeThrough = new ArrayList<>();
-        // the layer's own bins, once per search (passes behind it: WeightedScreen.Query#behindLayer)
-        Optional<WeightedScreen.LayerBins> layerBins = layer.map(l -> WeightedScreen.LayerBins.of(l.curve(), l.index()));
         for (var clause : requirement.clauses()) {
             if (clause instanceof WeightedClause w && (layer.isEmpty() || w.direction() == Direction.PASS)) {
-                queries.add(layerBins.isPresent() ? screen.query(store, w, layerBins.get()) : screen.query(store, w, layerRange));
+                WeightedScreen.Query q = layerBins.isPresent() ? screen.query(store, w, layerBins.get())
+                        : screen.query(store, w, layerRange);
+                queries.add(reference ? q.withReferenceArithmetic() : q);
                 // on a diffuse sample a see-through clause is unverified (SeeThrough), never a miss
                 seeThrough.add(SeeThrough.needsRegular(w) && !requirement.acceptsTotalTransmittance());
             }
         }
-        if (queries.isEmpty()) {
-            return;
-        }
-        ThicknessSpec spec = requirement.thickness();
-        Bounds bounds = new Bounds(queries, seeThrough);
-        for (int curve = 0; curve < store.size(); curve++) {
-            double d0 = store.thicknessMm(curve);
-            bounds.curve(curve, store.isTotalGeometry(curve) || diffuseLayer);
-            double bound;
-            if (spec.kind() == ThicknessSpec.Kind.AS_MEASURED || judgedAsMeasured(spec, d0) || !store.isBulk(curve)
-                    || !(d0 > 0)) {
-                bound = bounds.onMeasuredCurve(spec, d0, store.isBulk(curve));
-            } else {
-                bound = bounds.rescaled(spec.minMm(), spec.kind() == ThicknessSpec.Kind.FIXED ? spec.minMm() : spec.maxMm());
-            }
-            if (bound < 0) {
-                provenMiss.merge(store.sampleId(curve), bound, Math::min);
-            }
-        }
+        return queries.isEmpty() ? null
+                : new Bounds(store, requirement.thickness(), queries, seeThrough, diffuseLayer, reference, from, to);
     }
 
     /**
@@ -132,17 +159,44 @@ final class WeightedMisses {
         }
     }
 
-    /** The clauses' bounds for one curve at a time. */
+    /** The clauses' bounds for one curve at a time, over curves [from, to). */
     private static final class Bounds {
 
+        private final SpectralStore store;
+        private final ThicknessSpec spec;
         private final List<WeightedScreen.Query> queries;
         private final List<Boolean> seeThrough;
+        private final boolean diffuseLayer;
+        private final boolean reference;
+        private final int from;
+        private final int to;
         private int curve;
         private boolean total;
 
-        Bounds(List<WeightedScreen.Query> queries, List<Boolean> seeThrough) {
+        Bounds(SpectralStore store, ThicknessSpec spec, List<WeightedScreen.Query> queries, List<Boolean> seeThrough,
+               boolean diffuseLayer, boolean reference, int from, int to) {
+            this.store = store;
+            this.spec = spec;
             this.queries = queries;
             this.seeThrough = seeThrough;
+            this.diffuseLayer = diffuseLayer;
+            this.reference = reference;
+            this.from = from;
+            this.to = to;
+        }
+
+        /** Each curve's bound on its exact worst margin (+∞ or ≥ 0 where nothing is proven) into {@code out}. */
+        void into(double[] out) {
+            for (int c = from; c < to; c++) {
+                double d0 = store.thicknessMm(c);
+                curve(c, store.isTotalGeometry(c) || diffuseLayer);
+                if (spec.kind() == ThicknessSpec.Kind.AS_MEASURED || judgedAsMeasured(spec, d0) || !store.isBulk(c)
+                        || !(d0 > 0)) {
+                    out[c] = onMeasuredCurve(spec, d0, store.isBulk(c));
+                } else {
+                    out[c] = rescaled(spec.minMm(), spec.kind() == ThicknessSpec.Kind.FIXED ? spec.minMm() : spec.maxMm());
+                }
+            }
         }
 
         void curve(int curve, boolean totalGeometry) {
@@ -193,7 +247,9 @@ final class WeightedMisses {
 
         /** A bulk sample judged on its rescaled curve somewhere in [lo, hi]: see the class comment. */
         double rescaled(double lo, double hi) {
-            double whole = Math.min(pass(lo), block(hi));
+            double passAtLo = pass(lo);
+            double blockAtHi = block(hi);
+            double whole = Math.min(passAtLo, blockAtHi);
             if (whole < 0 || !(hi > lo)) {
                 return whole;
             }
@@ -203,8 +259,10 @@ final class WeightedMisses {
             if (!(passAtHi < 0) || !(blockAtLo < 0)) {
                 return whole;
             }
-            double passAtLo = pass(lo);
-            double blockAtHi = block(hi);
+            if (reference) { // the path before formed both ends' bounds twice
+                passAtLo = pass(lo);
+                blockAtHi = block(hi);
+            }
             double ratio = hi / lo;
             for (int j = 1; j <= SPLITS; j++) {
                 double s = lo * Math.pow(ratio, (double) j / (SPLITS + 1));

@@ -55,6 +55,14 @@ public final class WeightedScreen {
     private static final double[] T_OF_CODE = new double[256];
     /** ln of {@link #T_OF_CODE} (−∞ for code 0), for powers of bin values. */
     private static final double[] LN_T_OF_CODE = new double[256];
+    /** ln of the transmittance ratio of one code step: ln T(c + 1) − ln T(c) = −STEP·ln 10. */
+    private static final double LN_T_PER_CODE = -STEP * Math.log(10);
+    /**
+     * Relative room for the rounding of a power of a bin value formed from {@link Powers} (a few dozen
+     * roundings, under 1e-14) instead of one {@code Math.exp}: the power is moved this far to the safe side, so
+     * the bound is never tighter than the one formed with {@code exp} (checked by WeightedScreenTest).
+     */
+    static final double POWER_ROOM = 1e-12;
 
     static {
         LN_T_OF_CODE[0] = Double.NEGATIVE_INFINITY;
@@ -68,12 +76,25 @@ public final class WeightedScreen {
     private final byte[][] darkest;
     private final short[] rangeOfCurve;
     private final List<double[]> ranges;
+    /** Per range: whether its curves are regular ({@code Builder.regular}), read from an array, not the list. */
+    private final boolean[] regularOfRange;
+    /** Per range: the bins its wavelengths meet ({@code Query.lnBrightestOfCurve}). */
+    private final int[][] binsOfRange;
+    private static final int[] ALL_BINS = java.util.stream.IntStream.range(0, BINS).toArray();
 
     private WeightedScreen(byte[][] brightest, byte[][] darkest, short[] rangeOfCurve, List<double[]> ranges) {
         this.brightest = brightest;
         this.darkest = darkest;
         this.rangeOfCurve = rangeOfCurve;
         this.ranges = ranges;
+        this.regularOfRange = new boolean[ranges.size()];
+        this.binsOfRange = new int[ranges.size()][];
+        for (int i = 0; i < ranges.size(); i++) {
+            double[] r = ranges.get(i);
+            regularOfRange[i] = r[2] == 1;
+            binsOfRange[i] = java.util.stream.IntStream.range(0, BINS)
+                    .filter(b -> !(FIRST_NM + b * BIN_NM > r[1] || FIRST_NM + b * BIN_NM + BIN_NM < r[0])).toArray();
+        }
     }
 
     static Builder builder(int capacity) {
@@ -212,8 +233,16 @@ public final class WeightedScreen {
         private final double threshold;
         private final double floor;
         private final double[][] sharesOfRange;
+        /** Per range: the bins of positive share, in order (the sums skip the rest, as they did by testing). */
+        private final int[][] usedBinsOfRange;
         private final Map<Long, Double> largestR = new HashMap<>();
+        /** Per range, per index model: the surfaces' figures, formed once (no boxed cache on the hot path). */
+        private final Surfaces[][] surfacesOf;
+        private final Powers powers = new Powers();
         private LayerBins layer;
+        private boolean reference;
+        private int lnBCurve = -1;
+        private double lnBOfCurve;
 
         private Query(SpectralStore store, WeightedClause clause, Optional<double[]> layerRange) {
             this.store = store;
@@ -223,6 +252,17 @@ public final class WeightedScreen {
             this.threshold = clause.thresholdT();
             this.floor = Math.min(Curve.ABSORBANCE_FLOOR_T, threshold);
             this.sharesOfRange = new double[ranges.size()][];
+            this.usedBinsOfRange = new int[ranges.size()][];
+            this.surfacesOf = new Surfaces[ranges.size()][];
+        }
+
+        /**
+         * The arithmetic before the per-curve power tables: one {@code Math.exp} per bin and the reflectances
+         * from a boxed map, kept so a benchmark can time both side by side ({@code WeightedMisses}).
+         */
+        public Query withReferenceArithmetic() {
+            reference = true;
+            return this;
         }
 
         public boolean passes() {
@@ -238,9 +278,16 @@ public final class WeightedScreen {
             double[] shares = sharesOfRange[range];
             if (shares == null) {
                 shares = binShares(clause.weighting(), ranges.get(range), layerRange);
+                double[] formed = shares;
+                usedBinsOfRange[range] = java.util.stream.IntStream.range(0, formed.length).filter(b -> formed[b] > 0).toArray();
                 sharesOfRange[range] = shares;
             }
             return shares;
+        }
+
+        /** The bins a sum over the curve's shares visits (after {@link #shares}): those of positive share, or all before. */
+        private int[] usedBins(int curve) {
+            return reference ? ALL_BINS : usedBinsOfRange[rangeOfCurve[curve]];
         }
 
         /**
@@ -257,7 +304,7 @@ public final class WeightedScreen {
             }
             byte[][] codes = pass ? brightest : darkest;
             double mean = 0;
-            for (int b = 0; b < BINS; b++) {
+            for (int b : usedBins(curve)) {
                 if (shares[b] > 0) {
                     int code = codes[b][curve] & 0xFF;
                     if (code == 0 && pass) {
@@ -327,6 +374,52 @@ public final class WeightedScreen {
          * of the thinned curve in the bin.
          */
         public double thinned(int curve, double thinnestMm) {
+            if (reference) {
+                return thinnedReference(curve, thinnestMm);
+            }
+            double d0 = store.thicknessMm(curve);
+            if (!pass || !(thinnestMm > 0) || !store.isBulk(curve) || !(d0 > thinnestMm)) {
+                return Double.POSITIVE_INFINITY;
+            }
+            double[] shares = shares(curve);
+            if (shares.length == 0 || layerRange.isPresent() && !regular(curve)) {
+                return Double.POSITIVE_INFINITY;
+            }
+            Surfaces surfaces = surfaces(curve);
+            double r = surfaces.largest;
+            if (!(r < 1)) {
+                return Double.POSITIVE_INFINITY;
+            }
+            double k = thinnestMm / d0;
+            // T0^k of every code from two small tables (Powers) and one exp per factor, not one exp per bin
+            powers.of(k);
+            double lossFactor = Math.exp(-k * surfaces.logLoss) * (1 + POWER_ROOM) * (1 + SLACK);
+            boolean withSurfaces = regular(curve) && surfaces.smallest >= 0;
+            double ceiling = withSurfaces ? surfaces.ceiling : Double.NaN;
+            double surfaceFactor = withSurfaces
+                    ? Math.exp(Math.max(surfaces.lnSmallestFactor(k), surfaces.lnLargestFactor(k))) * (1 + POWER_ROOM)
+                    : Double.NaN;
+            double mean = 0;
+            for (int b : usedBins(curve)) {
+                if (shares[b] > 0) {
+                    int code = brightest[b][curve] & 0xFF;
+                    if (code == 0) {
+                        return Double.POSITIVE_INFINITY;
+                    }
+                    double power = powers.at(code);
+                    double t = Math.min(1, power * lossFactor);
+                    if (withSurfaces) {
+                        double resolved = Math.min(ceiling, power * surfaceFactor);
+                        t = Math.min(t, Math.max(resolved, Math.min(1, T_OF_CODE[code])) * (1 + SLACK));
+                    }
+                    mean += shares[b] * Math.max(t, Curve.ABSORBANCE_FLOOR_T);
+                }
+            }
+            return Math.log10(Math.max(mean * (1 + SLACK), floor) / threshold);
+        }
+
+        /** {@link #thinned} with one exp per bin and the boxed reflectance cache: the arithmetic before. */
+        private double thinnedReference(int curve, double thinnestMm) {
             double d0 = store.thicknessMm(curve);
             if (!pass || !(thinnestMm > 0) || !store.isBulk(curve) || !(d0 > thinnestMm)) {
                 return Double.POSITIVE_INFINITY;
@@ -402,6 +495,48 @@ public final class WeightedScreen {
          * L only falls as d grows, so the bound holds for every thinner judged thickness too.
          */
         public double thickened(int curve, double thickestMm) {
+            if (reference) {
+                return thickenedReference(curve, thickestMm);
+            }
+            double d0 = store.thicknessMm(curve);
+            if (pass || layerRange.isPresent() || !store.isBulk(curve) || !(d0 > 0) || !(thickestMm > 0)) {
+                return Double.POSITIVE_INFINITY;
+            }
+            double[] shares = shares(curve);
+            double r = shares.length == 0 ? 1 : surfaces(curve).largest;
+            if (!(r < 1)) {
+                return Double.POSITIVE_INFINITY; // the exact rescaling fails on this index: unverified, never a miss
+            }
+            double k = Math.max(1, thickestMm / d0);
+            if (!(k <= surfaces(curve).leastFarFactor * (1 - 1e-9))) {
+                return Double.POSITIVE_INFINITY; // a clear reading may have turned into a bound (L reads it as 0)
+            }
+            if (lnBCurve != curve) {
+                lnBOfCurve = lnBrightestOfCurve(curve); // the same for every thickness the splits try
+                lnBCurve = curve;
+            }
+            double lnB = lnBOfCurve;
+            if (Double.isNaN(lnB)) {
+                return Double.POSITIVE_INFINITY;
+            }
+            double c = k > 1 ? 1 - r * r : 1;
+            // (T/B)^k = T^k·e^(−k ln B), T^k from the tables: a lower bound, so moved down by the power's room
+            powers.of(k);
+            double factor = c * Math.exp(-k * lnB) * (1 - POWER_ROOM);
+            double mean = 0;
+            for (int b : usedBins(curve)) {
+                if (shares[b] > 0) {
+                    int dark = darkest[b][curve] & 0xFF;
+                    if (dark != 0) {
+                        mean += shares[b] * (powers.at(dark) * factor);
+                    }
+                }
+            }
+            return Math.log10(threshold / Math.max(mean * (1 - SLACK), floor));
+        }
+
+        /** {@link #thickened} with one exp per bin and the boxed reflectance cache: the arithmetic before. */
+        private double thickenedReference(int curve, double thickestMm) {
             double d0 = store.thicknessMm(curve);
             if (pass || layerRange.isPresent() || !store.isBulk(curve) || !(d0 > 0) || !(thickestMm > 0)) {
                 return Double.POSITIVE_INFINITY;
@@ -443,7 +578,7 @@ public final class WeightedScreen {
         private double lnBrightestOfCurve(int curve) {
             double[] r = ranges.get(rangeOfCurve[curve]);
             double ln = 0;
-            for (int b = 0; b < BINS; b++) {
+            for (int b : reference ? ALL_BINS : binsOfRange[rangeOfCurve[curve]]) {
                 double from = FIRST_NM + b * BIN_NM;
                 if (from > r[1] || from + BIN_NM < r[0]) {
                     continue;
@@ -464,7 +599,27 @@ public final class WeightedScreen {
          * at most each part, T₁T₂/(1 − ρ₁ρ₂) ≤ T₁ since T₂ + ρ₂ ≤ 1, and so is each chain of a limit).
          */
         private boolean regular(int curve) {
-            return ranges.get(rangeOfCurve[curve])[2] == 1;
+            return reference ? ranges.get(rangeOfCurve[curve])[2] == 1 : regularOfRange[rangeOfCurve[curve]];
+        }
+
+        /** The surfaces' figures for the curve's index model over its range, formed once per pair. */
+        private Surfaces surfaces(int curve) {
+            int range = rangeOfCurve[curve];
+            Surfaces[] ofModel = surfacesOf[range];
+            int model = store.indexModelOf(curve);
+            if (ofModel == null || ofModel.length <= model) {
+                ofModel = ofModel == null ? new Surfaces[store.indexModelCount()]
+                        : Arrays.copyOf(ofModel, store.indexModelCount());
+                surfacesOf[range] = ofModel;
+            }
+            Surfaces s = ofModel[model];
+            if (s == null) {
+                RefractiveIndex index = store.indexModel(model);
+                s = new Surfaces(WeightedScreen.largestReflectance(index, ranges.get(range)),
+                        WeightedScreen.smallestReflectance(index, ranges.get(range)));
+                ofModel[model] = s;
+            }
+            return s;
         }
 
         private double largestReflectance(int curve) {
@@ -477,6 +632,84 @@ public final class WeightedScreen {
                 largestR.put(key, hit);
             }
             return hit;
+        }
+    }
+
+    /**
+     * One index model's surfaces over one curve range, as {@code Query.thinned} and {@code Query.thickened}
+     * use them: R_max, R_min and the logarithms formed from them, the same expressions the per-bin arithmetic
+     * used to form on every call.
+     */
+    private static final class Surfaces {
+        final double largest;
+        final double smallest;
+        /** ln((1 − R_max)² / (1 + SLACK)): the thinned bound's loss through both surfaces. */
+        final double logLoss;
+        /** (1 − R_min) / (1 + R_min): the largest T a resolved reading can have. */
+        final double ceiling;
+        final double leastFarFactor;
+        private final double lnOneMinusLargest;
+        private final double lnOnePlusLargest;
+        private final double lnOneMinusSmallest;
+        private final double lnOnePlusSmallest;
+
+        Surfaces(double largest, double smallest) {
+            this.largest = largest;
+            this.smallest = smallest;
+            this.logLoss = Math.log(((1 - largest) * (1 - largest)) / (1 + SLACK));
+            this.ceiling = (1 - smallest) / (1 + smallest);
+            this.leastFarFactor = largest < 1 ? WeightedScreen.leastFarFactor(largest) : Double.NaN;
+            this.lnOneMinusLargest = Math.log(1 - largest);
+            this.lnOnePlusLargest = Math.log(1 + largest);
+            this.lnOneMinusSmallest = Math.log(1 - smallest);
+            this.lnOnePlusSmallest = Math.log(1 + smallest);
+        }
+
+        /** ln h(R_max) at k, as {@code lnSurfaceFactor}. */
+        double lnLargestFactor(double k) {
+            return (1 - 2 * k) * lnOneMinusLargest - lnOnePlusLargest;
+        }
+
+        /** ln h(R_min) at k; −∞ without a smallest reflectance. */
+        double lnSmallestFactor(double k) {
+            return Double.isNaN(smallest) ? Double.NEGATIVE_INFINITY : (1 - 2 * k) * lnOneMinusSmallest - lnOnePlusSmallest;
+        }
+    }
+
+    /**
+     * T(c)^k for every code c, for one exponent k at a time, without an exp per code: the codes' transmittances
+     * are a geometric sequence (each code step is {@link #STEP} decades), so T(c)^k = g^(c − OFFSET) with
+     * g = T(OFFSET + 1)^k, formed as g^(−OFFSET)·g^(c mod 16)·g^(16·(c div 16)) from two tables of 16 powers.
+     * Each entry is a product of at most 16 roundings, and the product of three more: under 1e-14 relative
+     * altogether, against {@link #POWER_ROOM} = 1e-12 the callers move it by. Not thread-safe.
+     */
+    static final class Powers {
+        private final double[] low = new double[16];
+        private final double[] high = new double[16];
+        private double k = Double.NaN;
+
+        /** Prepares the tables for exponent k (nothing to do when k is the last one). */
+        void of(double k) {
+            if (k == this.k) {
+                return;
+            }
+            this.k = k;
+            double g = Math.exp(k * LN_T_PER_CODE);
+            double shift = Math.exp(-OFFSET * k * LN_T_PER_CODE);
+            low[0] = shift;
+            for (int j = 1; j < 16; j++) {
+                low[j] = low[j - 1] * g;
+            }
+            double g16 = Math.exp(16 * k * LN_T_PER_CODE);
+            high[0] = 1;
+            for (int i = 1; i < 16; i++) {
+                high[i] = high[i - 1] * g16;
+            }
+        }
+
+        /** T(code)^k, to within {@link #POWER_ROOM}; code ≥ 1. */
+        double at(int code) {
+            return low[code & 15] * high[code >>> 4];
         }
     }
 

@@ -39,8 +39,12 @@ import org.spectralsieve.store.SyntheticCurves;
  * on insertion costs milliseconds), {@code -Dbench.storeWeightedWholeUpTo=30000} (the whole search, with the
  * exact judgement, only up to this size: above it only {@code part=screen}, and {@code judged} counts the
  * curves the screen leaves to judge), {@code -Dbench.limit=20}. Each line names its {@code rule}: {@code current}
- * ({@link WeightedMisses#add}) or {@code earlier} ({@link WeightedMisses#addEarlier}), alternated run by run;
- * {@code -Dbench.storeWeightedSkipEarlier=true} leaves the earlier out.
+ * ({@link WeightedMisses#add}), {@code reference} (the same rule with the arithmetic before the power tables, on
+ * one thread) or {@code earlier} ({@link WeightedMisses#addEarlier}), alternated run by run;
+ * {@code -Dbench.storeWeightedRules=current,reference} chooses them, {@code -Dbench.storeWeightedSkipEarlier=true}
+ * leaves the earlier out, {@code -Dbench.storeWeightedWholeRules=current} runs the whole search for those rules
+ * only (the others time their screen alone; above the base size the warm-up screens only). The held materials are judged as the service does: the shortlist's top rows kept up
+ * to date from themselves and each newly judged material, ranked once from every judgement at the end.
  */
 class StoreWeightedBenchmark {
 
@@ -72,18 +76,25 @@ class StoreWeightedBenchmark {
                     (System.nanoTime() - t0) / 1e9, store.bytesPerCurve());
             for (Map.Entry<String, Requirement> mode : modes.entrySet()) {
                 boolean judge = n <= wholeUpTo;
-                // the current rule and the earlier one (WeightedMisses.addEarlier), alternated run by run
-                String[] rules = Boolean.getBoolean("bench.storeWeightedSkipEarlier") ? new String[] {"current"}
-                        : new String[] {"current", "earlier"};
+                // the current rule, its arithmetic before the power tables (reference) and the earlier rule
+                // (WeightedMisses.addEarlier), alternated run by run
+                String[] rules = Arrays.stream(System.getProperty("bench.storeWeightedRules", "current,reference,earlier")
+                                .split(",")).map(String::trim)
+                        .filter(r -> !(r.equals("earlier") && Boolean.getBoolean("bench.storeWeightedSkipEarlier")))
+                        .toArray(String[]::new);
+                // the whole search only for these rules (the exact judgement is the same work whichever rule
+                // screened: the same misses are proven); the others time their screen alone
+                List<String> wholeRules = Arrays.asList(System.getProperty("bench.storeWeightedWholeRules",
+                        String.join(",", rules)).split(","));
                 for (String rule : rules) {
-                    search(store, mode.getValue(), limit, judge, rule.equals("earlier")); // warm-up
+                    search(store, mode.getValue(), limit, judge && n <= base, rule); // warm-up (the screen only above the base size)
                 }
                 double[][] screen = new double[rules.length][runs];
                 double[][] whole = new double[rules.length][runs];
                 Outcome[] last = new Outcome[rules.length];
                 for (int r = 0; r < runs; r++) {
                     for (int v = 0; v < rules.length; v++) {
-                        last[v] = search(store, mode.getValue(), limit, judge, rules[v].equals("earlier"));
+                        last[v] = search(store, mode.getValue(), limit, judge && wholeRules.contains(rules[v]), rules[v]);
                         screen[v][r] = last[v].screenMs;
                         whole[v][r] = last[v].wholeMs;
                     }
@@ -91,7 +102,8 @@ class StoreWeightedBenchmark {
                 for (int v = 0; v < rules.length; v++) {
                     Arrays.sort(screen[v]);
                     Arrays.sort(whole[v]);
-                    for (String part : judge ? new String[] {"screen", "whole"} : new String[] {"screen"}) {
+                    boolean judged = judge && wholeRules.contains(rules[v]);
+                    for (String part : judged ? new String[] {"screen", "whole"} : new String[] {"screen"}) {
                         double[] ms = part.equals("screen") ? screen[v] : whole[v];
                         System.out.printf(Locale.ROOT, "BENCH store-weighted curves=%d mode=%s part=%s p50_ms=%.1f p95_ms=%.1f"
                                         + " proven=%d judged=%d runs=%d rule=%s%n", n, mode.getKey(), part, ms[runs / 2],
@@ -108,13 +120,14 @@ class StoreWeightedBenchmark {
 
     /** One weighted search the service's way, on the store's curves. */
     private static Outcome search(SpectralStore store, Requirement requirement, int limit, boolean judge,
-                                  boolean earlierRule) {
+                                  String rule) {
         long t0 = System.nanoTime();
         Map<Long, Double> proven = new HashMap<>();
-        if (earlierRule) {
-            WeightedMisses.addEarlier(proven, store, requirement, Optional.empty());
-        } else {
-            WeightedMisses.add(proven, store, requirement, Optional.empty());
+        switch (rule) {
+            case "earlier" -> WeightedMisses.addEarlier(proven, store, requirement, Optional.empty());
+            case "reference" -> WeightedMisses.add(proven, store, requirement, Optional.empty(), false, true);
+            case "current" -> WeightedMisses.add(proven, store, requirement, Optional.empty());
+            default -> throw new IllegalArgumentException("rule " + rule);
         }
         long t1 = System.nanoTime();
         if (!judge) {
@@ -145,6 +158,7 @@ class StoreWeightedBenchmark {
         }
         List<RankedRow> rows = Ranking.rank(exact, limit);
         held.sort((a, b) -> Double.compare(b[1], a[1]));
+        boolean judgedHeld = false;
         for (double[] h : held) {
             if (!couldEnter(rows, limit, h[1])) {
                 break;
@@ -153,6 +167,14 @@ class StoreWeightedBenchmark {
             List<MaterialEvaluation> more = judge(store, first, Math.min(store.size(), first + 3), requirement);
             judged += more.size();
             exact.addAll(more);
+            judgedHeld = true;
+            // as the service: the top rows from themselves and the newly judged material, not every judgement
+            List<MaterialEvaluation> union = new ArrayList<>();
+            rows.forEach(row -> union.add(new MaterialEvaluation(row.materialId(), row.materialName(), row.evaluation())));
+            union.addAll(more);
+            rows = Ranking.rank(union, limit);
+        }
+        if (judgedHeld) {
             rows = Ranking.rank(exact, limit);
         }
         long t2 = System.nanoTime();
