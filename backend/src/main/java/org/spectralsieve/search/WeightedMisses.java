@@ -58,6 +58,25 @@ final class WeightedMisses {
      */
     static void add(Map<Long, Double> provenMiss, SpectralStore store, Requirement requirement,
                     Optional<StackLayer> layer, boolean diffuseLayer) {
+        double[] bounds = marginBounds(store, requirement, layer, diffuseLayer);
+        for (int curve = 0; curve < bounds.length; curve++) {
+            if (bounds[curve] < 0) {
+                provenMiss.merge(store.sampleId(curve), bounds[curve], Math::min);
+            }
+        }
+    }
+
+    /**
+     * Per store curve, an upper bound on the sample's exact worst margin wherever it is judged, of either
+     * sign: the smallest of its weighted clauses' bounds, {@code +∞} where no clause is bounded (empty when
+     * the requirement has no weighted clause the screen bounds). Negative: a proven miss (see {@link #add}).
+     * Non-negative: a row that meets has a worst margin at most this (every clause of a met row meets, and
+     * each clause's margin is at most its bound: a pass's on L or U ≤ Ū, a block's on U or L ≥ L̲), which
+     * lets {@code SearchService} leave out rows that cannot beat a full shortlist of met rows
+     * (docs/weighted-screening.md, "Bounds that rank").
+     */
+    static double[] marginBounds(SpectralStore store, Requirement requirement, Optional<StackLayer> layer,
+                                 boolean diffuseLayer) {
         Optional<double[]> layerRange = layer.map(l -> new double[] {l.curve().minWavelengthNm(), l.curve().maxWavelengthNm()});
         WeightedScreen screen = store.weightedScreen();
         List<WeightedScreen.Query> queries = new ArrayList<>();
@@ -72,10 +91,11 @@ final class WeightedMisses {
             }
         }
         if (queries.isEmpty()) {
-            return;
+            return new double[0];
         }
         ThicknessSpec spec = requirement.thickness();
         Bounds bounds = new Bounds(queries, seeThrough);
+        double[] out = new double[store.size()];
         for (int curve = 0; curve < store.size(); curve++) {
             double d0 = store.thicknessMm(curve);
             bounds.curve(curve, store.isTotalGeometry(curve) || diffuseLayer);
@@ -86,10 +106,9 @@ final class WeightedMisses {
             } else {
                 bound = bounds.rescaled(spec.minMm(), spec.kind() == ThicknessSpec.Kind.FIXED ? spec.minMm() : spec.maxMm());
             }
-            if (bound < 0) {
-                provenMiss.merge(store.sampleId(curve), bound, Math::min);
-            }
+            out[curve] = bound;
         }
+        return out;
     }
 
     /**
