@@ -16,7 +16,8 @@ import org.spectralsieve.requirement.Standing;
  * beat ({@link #couldEnter}). The answer is the top rows of every material's exact row, because a material
  * left out could not have been among them; which materials are judged changes only the work.
  *
- * <p>Judged in batches on the common fork-join pool and the caller's thread (in parallel when asked), each
+ * <p>Judged in batches on the common fork-join pool and the caller's thread (in parallel when asked; the
+ * search asks from {@value #PARALLEL_FROM} contenders on), each
  * batch's results taken in the contenders' order and ranked from every judgement at the end, so the rows,
  * their order included, do not depend on the threads. A batch is chosen against the rows known before it,
  * so a parallel search may judge a few materials that a one-thread search would have left out: more work,
@@ -26,6 +27,12 @@ final class BoundedJudgement {
 
     /** Materials judged between two looks at the rows when judging in parallel: enough to share, few to waste. */
     static final int PARALLEL_BATCH = 16;
+    /**
+     * Fewer contenders than this are judged on the caller's thread alone: on a small library (the demo's 50
+     * materials) handing batches to the pool costs more than it saves, and batches chosen against rows not
+     * yet full judge proven misses a one-thread loop leaves out.
+     */
+    static final int PARALLEL_FROM = 256;
 
     private BoundedJudgement() {
     }

@@ -120,6 +120,15 @@ public class SearchService {
         BOUNDED_PARALLEL
     }
 
+    /** Contenders from which the judgement runs in parallel ({@link BoundedJudgement#PARALLEL_FROM}; tests lower it). */
+    private int parallelFrom = BoundedJudgement.PARALLEL_FROM;
+
+    /** Judges in parallel from this many contenders on (tests: 0, so a small library exercises the parallel loop). */
+    SearchService parallelFrom(int contenders) {
+        this.parallelFrom = contenders;
+        return this;
+    }
+
     /** The same service judging the other way (benchmarks and equivalence tests; answers never depend on it). */
     public SearchService judging(Judging way) {
         this.judging = java.util.Objects.requireNonNull(way, "way");
@@ -410,7 +419,7 @@ public class SearchService {
                 m -> {
                     Prepared ready = prepared.get(m.id());
                     return ready != null ? ready.judge(requirement, layer) : judge(s, m, requirement, layer, diffuseLayer);
-                }, judging == Judging.BOUNDED_PARALLEL);
+                }, judging == Judging.BOUNDED_PARALLEL && contenders.size() >= parallelFrom);
         List<RankedRow> rows = rank(s, requirement, exact, limit); // once, from every judgement: the answer's own rows
         double tookMs = (System.nanoTime() - started) / 1e6;
         return new Shortlist(requirement, rows, admitted, exact.size(), tookMs, layer, geometries(s, rows),

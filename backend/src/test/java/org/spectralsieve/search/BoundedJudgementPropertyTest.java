@@ -64,7 +64,7 @@ class BoundedJudgementPropertyTest {
     void boundedJudgementGivesTheRowsOfJudgingEverySample() {
         Random random = new Random(20261214L);
         List<Material> materials = library.findMaterials(null, null);
-        SearchService parallel = new SearchService(library);
+        SearchService parallel = new SearchService(library).parallelFrom(0);
         SearchService oneThread = new SearchService(library).judging(SearchService.Judging.BOUNDED);
         SearchService earlier = new SearchService(library).judging(SearchService.Judging.EARLIER);
         int fewer = 0;
@@ -89,10 +89,19 @@ class BoundedJudgementPropertyTest {
     }
 
     @Test
+    void theRowsDoNotDependOnWhereTheParallelLoopStarts() {
+        Requirement requirement = RequirementParser.parse("passes over 70% of led 405 and luminous over 50%");
+        List<RankedRow> byDefault = new SearchService(library).search(requirement, 5).rows();
+        assertThat(new SearchService(library).parallelFrom(0).search(requirement, 5).rows()).containsExactlyElementsOf(byDefault);
+        assertThat(new SearchService(library).parallelFrom(Integer.MAX_VALUE).search(requirement, 5).rows())
+                .containsExactlyElementsOf(byDefault);
+    }
+
+    @Test
     void theSameAnswerWhateverTheThreadsAndHowOftenAsked() {
         Requirement requirement = RequirementParser.parse(
                 "passes over 80% of led 365 and uv hazard under 0.5% and luminous over 60%, thickness 1 to 6 mm");
-        SearchService parallel = new SearchService(library);
+        SearchService parallel = new SearchService(library).parallelFrom(0);
         List<RankedRow> first = parallel.search(requirement, 10).rows();
         for (int i = 0; i < 3; i++) {
             assertThat(parallel.search(requirement, 10).rows()).containsExactlyElementsOf(first);
