@@ -61,7 +61,9 @@ import org.spectralsieve.store.StoredMaterial;
  *
  * <p>Requirements the store cannot rank — weighted figures, a critical wavelength, a fixed layer — are
  * judged exactly on every admitted sample, except samples the store proves to miss ({@link MissScreen}):
- * those are judged only while their bound could still reach the shortlist. The screen uses the
+ * those are judged only while their bound could still reach the shortlist; and a material whose bound on a
+ * met row's margin is below the margins of a shortlist already full of met rows is not judged at all
+ * ({@link BoundedJudgement}, docs/weighted-screening.md, "Bounds that rank"). The screen uses the
  * requirement's every-point transmittance clauses that remain necessary conditions on the candidate
  * alone: without a layer, all of them (they are judged on the same curve); with a layer, only the passes,
  * and only over bands inside the layer's range, because a layer can only lower T (the stack's T is at most
