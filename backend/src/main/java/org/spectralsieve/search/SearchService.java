@@ -62,7 +62,9 @@ import org.spectralsieve.store.StoredMaterial;
  *
  * <p>Requirements the store cannot rank — weighted figures, a critical wavelength, a fixed layer — are
  * judged exactly on every admitted sample, except samples the store proves to miss ({@link MissScreen}):
- * those are judged only while their bound could still reach the shortlist. The screen uses the
+ * those are judged only while their bound could still reach the shortlist; and a material whose bound on a
+ * met row's margin is below the margins of a shortlist already full of met rows is not judged at all
+ * ({@link BoundedJudgement}, docs/weighted-screening.md, "Bounds that rank"). The screen uses the
  * requirement's every-point transmittance clauses that remain necessary conditions on the candidate
  * alone: without a layer, all of them (they are judged on the same curve); with a layer, only the passes,
  * and only over bands inside the layer's range, because a layer can only lower T (the stack's T is at most
@@ -110,6 +112,36 @@ public class SearchService {
      * {@code sieve.search.layer-block-screen=false} turns it off, only so a benchmark can time both ways.
      */
     private final boolean screenLayerBlocks = !"false".equals(System.getProperty("sieve.search.layer-block-screen"));
+    /** How requirements the store cannot rank are judged ({@link #searchExactly}); other ways for benchmarks and tests. */
+    private Judging judging = Judging.BOUNDED_PARALLEL;
+
+    /**
+     * How the exact judgement of a requirement the store cannot rank chooses and runs its materials; every way
+     * gives the same answer (docs/weighted-screening.md, "Bounds that rank").
+     */
+    public enum Judging {
+        /** Every material not proven to miss, in id order, then proven misses while they could enter; one thread. */
+        EARLIER,
+        /** Largest margin bound first, left out once the rows are full of rows it cannot beat ({@link BoundedJudgement}); one thread. */
+        BOUNDED,
+        /** {@link #BOUNDED}, each batch of materials judged on the common fork-join pool and the caller's thread. */
+        BOUNDED_PARALLEL
+    }
+
+    /** Contenders from which the judgement runs in parallel ({@link BoundedJudgement#PARALLEL_FROM}; tests lower it). */
+    private int parallelFrom = BoundedJudgement.PARALLEL_FROM;
+
+    /** Judges in parallel from this many contenders on (tests: 0, so a small library exercises the parallel loop). */
+    SearchService parallelFrom(int contenders) {
+        this.parallelFrom = contenders;
+        return this;
+    }
+
+    /** The same service judging the other way (benchmarks and equivalence tests; answers never depend on it). */
+    public SearchService judging(Judging way) {
+        this.judging = java.util.Objects.requireNonNull(way, "way");
+        return this;
+    }
 
     public SearchService(JooqLibraryRepository library) {
         this(library, DEFAULT_CURVE_CACHE_BYTES);
@@ -231,6 +263,41 @@ public class SearchService {
      */
     private List<MaterialEvaluation> judge(Snapshot s, Material material, Requirement requirement,
                                            Optional<StackLayer> layer, boolean diffuseLayer) {
+        return prepare(s, material, requirement, diffuseLayer).judge(requirement, layer);
+    }
+
+    /**
+     * A material's admitted samples made ready for {@link MaterialJudge}: the candidates, and a row saying why
+     * for each sample that could not become one.
+     */
+    private record Prepared(Material material, List<Candidate> candidates, List<MaterialEvaluation> failed) {
+
+        List<MaterialEvaluation> judge(Requirement requirement, Optional<StackLayer> layer) {
+            List<MaterialEvaluation> out = new ArrayList<>(failed);
+            if (!candidates.isEmpty()) {
+                try {
+                    out.addAll(MaterialJudge.evaluate(candidates, requirement, layer));
+                } catch (RuntimeException e) {
+                    // the material's samples are judged together: when that fails, each says why, the search goes on
+                    candidates.forEach(c -> out.add(notComputable(material, c.sampleId(), c.thicknessMm(), requirement, e)));
+                }
+            }
+            return out;
+        }
+
+        /** The samples {@link MaterialJudge} judges for the requirement's thickness (empty when that fails). */
+        Set<Long> judgedSamples(ThicknessSpec spec) {
+            Set<Long> out = new HashSet<>();
+            try {
+                MaterialJudge.choose(candidates, spec).forEach(j -> out.add(j.candidate().sampleId()));
+            } catch (RuntimeException e) {
+                return Set.of(); // judge() then fails the same way: every row says why, none meets
+            }
+            return out;
+        }
+    }
+
+    private Prepared prepare(Snapshot s, Material material, Requirement requirement, boolean diffuseLayer) {
         MadeThicknesses made = made(material);
         List<Candidate> candidates = new ArrayList<>();
         List<MaterialEvaluation> failed = new ArrayList<>();
@@ -248,16 +315,7 @@ public class SearchService {
                 }
             }
         }
-        List<MaterialEvaluation> out = new ArrayList<>(failed);
-        if (!candidates.isEmpty()) {
-            try {
-                out.addAll(MaterialJudge.evaluate(candidates, requirement, layer));
-            } catch (RuntimeException e) {
-                // the material's samples are judged together: when that fails, each says why, the search goes on
-                candidates.forEach(c -> out.add(notComputable(material, c.sampleId(), c.thicknessMm(), requirement, e)));
-            }
-        }
-        return out;
+        return new Prepared(material, candidates, failed);
     }
 
     /**
@@ -292,12 +350,101 @@ public class SearchService {
     }
 
     /**
+     * The exact evaluator on every admitted sample that could reach the rows ({@link BoundedJudgement}): each
+     * material comes with an upper bound on its row's margin from the store's screens, materials are judged
+     * from the largest bound down, and one is left out once the rows are full of rows it provably cannot beat
+     * (a proven miss behind rows better than its bound, or any material behind full rows of met rows whose
+     * margins exceed its bound). The answer is the one judging every admitted sample would give.
+     */
+    private Shortlist searchExactly(Snapshot s, Requirement requirement, int limit, long started,
+                                    java.util.function.Predicate<Material> within) {
+        if (judging == Judging.EARLIER) {
+            return searchExactlyTheEarlierWay(s, requirement, limit, started, within);
+        }
+        Optional<StackLayer> layer = requirement.layer().map(l -> resolveLayer(l, s));
+        boolean diffuseLayer = layer.map(l -> s.samples().get(l.sampleId()).geometry() == Geometry.TOTAL).orElse(false);
+        Map<Long, Double> provenMiss = provenMisses(s, requirement, layer);
+        if (screenLayerBlocks) {
+            layer.ifPresent(l -> addLayerBlockMisses(provenMiss, s.store(), requirement, l));
+        }
+        // an upper bound on each sample's margin of either sign, for rows that meet (WeightedMisses#marginBounds)
+        Map<Long, Double> marginBound = new HashMap<>();
+        if (screenWeighted && earlierWeightedScreen) {
+            WeightedMisses.addEarlier(provenMiss, s.store(), requirement, layer, diffuseLayer);
+        } else if (screenWeighted) {
+            double[] bounds = WeightedMisses.marginBounds(s.store(), requirement, layer, diffuseLayer);
+            for (int curve = 0; curve < bounds.length; curve++) {
+                if (bounds[curve] < 0) {
+                    provenMiss.merge(s.store().sampleId(curve), bounds[curve], Math::min);
+                }
+                if (bounds[curve] < Double.POSITIVE_INFINITY) {
+                    marginBound.merge(s.store().sampleId(curve), bounds[curve], Math::min);
+                }
+            }
+        }
+        boolean grouped = diffuseLast(requirement);
+        ThicknessSpec spec = requirement.thickness();
+        // at an asked thickness a material's samples are judged only where each is the nearest measurement: its
+        // bound is the largest over those alone, so the candidates are made first (and kept for the judgement)
+        boolean onlyJudgedSamples = spec.kind() != ThicknessSpec.Kind.AS_MEASURED && !marginBound.isEmpty();
+        Map<Long, Prepared> prepared = new HashMap<>();
+        List<BoundedJudgement.Contender> contenders = new ArrayList<>();
+        int admitted = 0;
+        for (Material material : s.materials().values().stream().sorted(Comparator.comparingLong(Material::id))
+                .filter(within).toList()) {
+            Set<Long> judgedSamples = null;
+            if (onlyJudgedSamples) {
+                Prepared p = prepare(s, material, requirement, diffuseLayer);
+                prepared.put(material.id(), p);
+                judgedSamples = p.judgedSamples(spec);
+            }
+            double bound = Double.NEGATIVE_INFINITY;
+            boolean allMiss = true;
+            boolean regular = false;
+            int count = 0;
+            for (SampleInfo sample : material.samples()) {
+                if (admits(requirement, material, sample)) {
+                    count++;
+                    Double miss = provenMiss.get(sample.id());
+                    allMiss &= miss != null;
+                    regular |= grouped && sample.geometry() == Geometry.REGULAR;
+                    if (judgedSamples == null || judgedSamples.contains(sample.id())) {
+                        // a sample not judged gives no row (or one that says why it could not be judged, which
+                        // never meets); for the others both bounds hold the same exact margin, the smaller too
+                        Double margin = marginBound.get(sample.id());
+                        bound = Math.max(bound, Math.min(miss == null ? Double.POSITIVE_INFINITY : miss,
+                                margin == null || Double.isNaN(margin) ? Double.POSITIVE_INFINITY : margin));
+                    }
+                }
+            }
+            admitted += count;
+            if (count > 0) {
+                contenders.add(new BoundedJudgement.Contender(material, bound,
+                        allMiss && madeFor(spec, material), regular));
+            }
+        }
+        BoundedJudgement.Ranker ranker = new BoundedJudgement.Ranker(list -> rank(s, requirement, list, limit),
+                grouped ? list -> Ranking.rank(regularOnly(s, list), limit) : null);
+        // the prepared map is complete before any judging thread reads it, and never written after
+        List<MaterialEvaluation> exact = BoundedJudgement.judge(contenders, limit, ranker,
+                m -> {
+                    Prepared ready = prepared.get(m.id());
+                    return ready != null ? ready.judge(requirement, layer) : judge(s, m, requirement, layer, diffuseLayer);
+                }, judging == Judging.BOUNDED_PARALLEL && contenders.size() >= parallelFrom);
+        List<RankedRow> rows = rank(s, requirement, exact, limit); // once, from every judgement: the answer's own rows
+        double tookMs = (System.nanoTime() - started) / 1e6;
+        return new Shortlist(requirement, rows, admitted, exact.size(), tookMs, layer, geometries(s, rows),
+                revisions(s, rows), measured(s, rows));
+    }
+
+    /**
      * The exact evaluator on every admitted sample, with the store's proven misses held back: a material all
      * of whose admitted samples are proven to miss has an exact result no better than (misses, its largest
      * bound), so it is judged only while that could still beat the shortlist's last row. The answer is the
-     * one judging every admitted sample would give.
+     * one judging every admitted sample would give. The judging loop before materials were ordered and left
+     * out by their bounds of either sign ({@link Judging#EARLIER}); benchmarks and tests only.
      */
-    private Shortlist searchExactly(Snapshot s, Requirement requirement, int limit, long started,
+    private Shortlist searchExactlyTheEarlierWay(Snapshot s, Requirement requirement, int limit, long started,
                                     java.util.function.Predicate<Material> within) {
         Optional<StackLayer> layer = requirement.layer().map(l -> resolveLayer(l, s));
         boolean diffuseLayer = layer.map(l -> s.samples().get(l.sampleId()).geometry() == Geometry.TOTAL).orElse(false);
@@ -349,7 +496,8 @@ public class SearchService {
             boolean regular = grouped && entry.getKey().samples().stream()
                     .anyMatch(x -> admits(requirement, entry.getKey(), x) && x.geometry() == Geometry.REGULAR);
             List<RankedRow> competing = regular ? regularRows : rows;
-            if (!couldEnter(competing, limit, entry.getValue())) {
+            if (!BoundedJudgement.couldEnter(competing, limit,
+                    new BoundedJudgement.Contender(entry.getKey(), entry.getValue(), true, regular))) {
                 if (grouped) {
                     continue; // the two groups' bounds are not ordered together
                 }
@@ -358,9 +506,9 @@ public class SearchService {
             List<MaterialEvaluation> judged = judge(s, entry.getKey(), requirement, layer, diffuseLayer);
             exact.addAll(judged);
             judgedHeld = true;
-            rows = rank(s, requirement, withRows(rows, judged), limit);
+            rows = rank(s, requirement, BoundedJudgement.withRows(rows, judged), limit);
             if (grouped) {
-                regularRows = Ranking.rank(regularOnly(s, withRows(regularRows, judged)), limit);
+                regularRows = Ranking.rank(regularOnly(s, BoundedJudgement.withRows(regularRows, judged)), limit);
             }
         }
         if (judgedHeld) {
@@ -395,16 +543,6 @@ public class SearchService {
         return List.copyOf(rows);
     }
 
-    /** The rows' own evaluations and the newly judged ones: all a top-k ranking of the union needs. */
-    private static List<MaterialEvaluation> withRows(List<RankedRow> rows, List<MaterialEvaluation> judged) {
-        List<MaterialEvaluation> out = new ArrayList<>(rows.size() + judged.size());
-        for (RankedRow row : rows) {
-            out.add(new MaterialEvaluation(row.materialId(), row.materialName(), row.evaluation()));
-        }
-        out.addAll(judged);
-        return out;
-    }
-
     /** Whether total-geometry rows go after the regular ones (see {@link #rank}). */
     private static boolean diffuseLast(Requirement requirement) {
         return !requirement.acceptsTotalTransmittance() && requirement.clauses().stream().anyMatch(SeeThrough::needsRegular);
@@ -416,29 +554,6 @@ public class SearchService {
 
     private static boolean isRegular(Snapshot s, MaterialEvaluation e) {
         return s.samples().get(e.evaluation().sampleId()).geometry() == Geometry.REGULAR;
-    }
-
-    /**
-     * Whether a material that misses with a worst margin of at most {@code bound} could take a place in the
-     * rows. Its best possible place is a miss read from a value with margin {@code bound}
-     * ({@link org.spectralsieve.requirement.Standing#MISSES}): the screen proves the miss on a reading above
-     * detection, so the row is never in a better group, and a worse group (a miss on a bound) only ranks lower.
-     */
-    private static boolean couldEnter(List<RankedRow> rows, int limit, double bound) {
-        if (rows.size() < limit) {
-            return true;
-        }
-        RankedRow last = rows.get(rows.size() - 1);
-        Standing standing = last.evaluation().standing();
-        if (standing.compareTo(Standing.MISSES) < 0) {
-            return false;
-        }
-        if (standing != Standing.MISSES) {
-            return true; // the last row is a bounded miss or not judged: any valued miss ranks above it
-        }
-        double margin = last.evaluation().worstMarginDecades();
-        // a NaN margin ranks after every number; an equal one is decided by name, so it could enter
-        return Double.isNaN(margin) || bound >= margin;
     }
 
     /**

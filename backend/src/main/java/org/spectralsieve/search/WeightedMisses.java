@@ -75,22 +75,42 @@ final class WeightedMisses {
     /** {@link #add(Map, SpectralStore, Requirement, Optional, boolean, boolean)} in parts from {@code parallelFrom} curves. */
     static void add(Map<Long, Double> provenMiss, SpectralStore store, Requirement requirement,
                     Optional<StackLayer> layer, boolean diffuseLayer, boolean reference, int parallelFrom) {
+        double[] bounds = marginBounds(store, requirement, layer, diffuseLayer, reference, parallelFrom);
+        for (int curve = 0; curve < bounds.length; curve++) {
+            if (bounds[curve] < 0) {
+                provenMiss.merge(store.sampleId(curve), bounds[curve], Math::min);
+            }
+        }
+    }
+
+    /**
+     * Per store curve, an upper bound on the sample's exact worst margin wherever it is judged, of either
+     * sign: the smallest of its weighted clauses' bounds, {@code +∞} where no clause is bounded (empty when
+     * the requirement has no weighted clause the screen bounds). Negative: a proven miss (see {@link #add}).
+     * Non-negative: a row that meets has a worst margin at most this (every clause of a met row meets, and
+     * each clause's margin is at most its bound: a pass's on L or U ≤ Ū, a block's on U or L ≥ L̲), which
+     * lets {@code SearchService} leave out rows that cannot beat a full shortlist of met rows
+     * (docs/weighted-screening.md, "Bounds that rank").
+     */
+    static double[] marginBounds(SpectralStore store, Requirement requirement, Optional<StackLayer> layer,
+                                 boolean diffuseLayer) {
+        return marginBounds(store, requirement, layer, diffuseLayer, false, PARALLEL_FROM);
+    }
+
+    private static double[] marginBounds(SpectralStore store, Requirement requirement, Optional<StackLayer> layer,
+                                         boolean diffuseLayer, boolean reference, int parallelFrom) {
         Optional<WeightedScreen.LayerBins> layerBins = layer.map(l -> WeightedScreen.LayerBins.of(l.curve(), l.index()));
         if (bounds(store, requirement, layer, layerBins, diffuseLayer, reference, 0, 0) == null) {
-            return; // no weighted clause the screen can bound
+            return new double[0]; // no weighted clause the screen can bound
         }
         int size = store.size();
         // above PARALLEL_FROM curves, both halves at once; each part has its own queries (they cache), every
-        // curve's bound depends on that curve alone, and the merge below runs in curve order: the same map
+        // curve's bound depends on that curve alone, so the array is the one a single thread fills
         int parts = reference || size < parallelFrom ? 1 : Math.max(1, Math.min(PARTS, Runtime.getRuntime().availableProcessors()));
         double[] bound = new double[size];
         IntStream.range(0, parts).parallel().forEach(p -> bounds(store, requirement, layer, layerBins, diffuseLayer,
                 reference, (int) ((long) size * p / parts), (int) ((long) size * (p + 1) / parts)).into(bound));
-        for (int curve = 0; curve < size; curve++) {
-            if (bound[curve] < 0) {
-                provenMiss.merge(store.sampleId(curve), bound[curve], Math::min);
-            }
-        }
+        return bound;
     }
 
     /** Curves from which the screen runs on more than one thread. */

@@ -28,6 +28,12 @@ final class BenchStats {
                 .filter(s -> !s.isEmpty()).mapToInt(Integer::parseInt).toArray();
     }
 
+    /** A comma-separated list of words, blanks dropped. */
+    static java.util.List<String> stringList(String name, String fallback) {
+        return Arrays.stream(System.getProperty(name, fallback).split(",")).map(String::trim)
+                .filter(s -> !s.isEmpty()).toList();
+    }
+
     static long usedHeapAfterGc() {
         Runtime runtime = Runtime.getRuntime();
         for (int i = 0; i < 3; i++) {

@@ -47,7 +47,10 @@ import org.springframework.core.io.DefaultResourceLoader;
  * (demo), {@code -Dbench.screenSyntheticRuns=5}, {@code -Dbench.limit=20}. Screens timed side by side, interleaved:
  * {@code on} (the current rule), {@code earlier} (the rule before blocks were bounded thicker than measured and
  * solved ranges split, {@link SearchService#withEarlierWeightedScreen}; {@code -Dbench.screenSkipEarlier=true}
- * leaves it out) and {@code off} ({@code -Dbench.screenSkipOff=true} leaves it out).
+ * leaves it out) and {@code off} ({@code -Dbench.screenSkipOff=true} leaves it out); and the judging loop
+ * ({@link SearchService.Judging}): {@code on} judges by bounds in parallel, {@code on-judging-earlier} the
+ * loop before that, {@code on-judging-bounded} by bounds on one thread ({@code -Dbench.screenJudging=earlier,bounded},
+ * empty: neither). {@code -Dbench.screenModes=measured,solve,layer} picks the variants.
  */
 class WeightedScreenBenchmark {
 
@@ -60,6 +63,8 @@ class WeightedScreenBenchmark {
         variants.put("measured", RequirementParser.parse(WEIGHTED));
         variants.put("solve", RequirementParser.parse(WEIGHTED + ", thickness 1 to 6 mm"));
         variants.put("layer", RequirementParser.parse(WEIGHTED + ", behind 4 mm clear float glass"));
+        List<String> modes = BenchStats.stringList("bench.screenModes", "measured,solve,layer");
+        variants.keySet().retainAll(modes);
 
         time("demo", demoLibrary(), variants, limit, 2, BenchStats.intProperty("bench.screenRuns", 21));
         for (int n : BenchStats.intList("bench.screenSizes", "10000")) {
@@ -73,6 +78,16 @@ class WeightedScreenBenchmark {
                              int warmUps, int runs) {
         Map<String, SearchService> services = new LinkedHashMap<>();
         services.put("on", new SearchService(library));
+        // the judging loop side by side (docs/weighted-screening.md, "Bounds that rank"): the earlier loop, and
+        // the bounded loop on one thread; the default ("on") is the bounded loop in parallel
+        for (String way : BenchStats.stringList("bench.screenJudging", "earlier,bounded")) {
+            SearchService.Judging judging = switch (way) {
+                case "earlier" -> SearchService.Judging.EARLIER;
+                case "bounded" -> SearchService.Judging.BOUNDED;
+                default -> throw new IllegalArgumentException("bench.screenJudging: earlier or bounded, not " + way);
+            };
+            services.put("on-judging-" + way, new SearchService(library).judging(judging));
+        }
         if (!Boolean.getBoolean("bench.screenSkipEarlier")) {
             services.put("earlier", SearchService.withEarlierWeightedScreen(library));
         }

@@ -1,0 +1,150 @@
+package org.spectralsieve.search;
+
+import java.util.ArrayList;
+import java.util.Comparator;
+import java.util.List;
+import java.util.function.Function;
+import org.spectralsieve.library.Material;
+import org.spectralsieve.requirement.MaterialEvaluation;
+import org.spectralsieve.requirement.RankedRow;
+import org.spectralsieve.requirement.Standing;
+
+/**
+ * The exact judgement of a search the store cannot rank (docs/weighted-screening.md, "Bounds that rank"):
+ * every material is a {@link Contender} with an upper bound on its row's margin, materials are judged from
+ * the largest bound down, and a material is left out once the shortlist is full of rows it provably cannot
+ * beat ({@link #couldEnter}). The answer is the top rows of every material's exact row, because a material
+ * left out could not have been among them; which materials are judged changes only the work.
+ *
+ * <p>Judged in batches on the common fork-join pool and the caller's thread (in parallel when asked; the
+ * search asks from {@value #PARALLEL_FROM} contenders on), each
+ * batch's results taken in the contenders' order and ranked from every judgement at the end, so the rows,
+ * their order included, do not depend on the threads. A batch is chosen against the rows known before it,
+ * so a parallel search may judge a few materials that a one-thread search would have left out: more work,
+ * never another answer.
+ */
+final class BoundedJudgement {
+
+    /** Materials judged between two looks at the rows when judging in parallel: enough to share, few to waste. */
+    static final int PARALLEL_BATCH = 16;
+    /**
+     * Fewer contenders than this are judged on the caller's thread alone: on a small library (the demo's 50
+     * materials) handing batches to the pool costs more than it saves, and batches chosen against rows not
+     * yet full judge proven misses a one-thread loop leaves out.
+     */
+    static final int PARALLEL_FROM = 256;
+
+    private BoundedJudgement() {
+    }
+
+    /**
+     * One material as the search sees it before judging it.
+     *
+     * @param bound        an upper bound on its row's worst margin when that row meets or misses on a value
+     *                     ({@code +∞} when nothing is known): the largest of its admitted samples' bounds
+     * @param provenToMiss every admitted sample is proven to miss and the material is made at the asked
+     *                     thickness, so its row is at best a miss read from a value ({@link Standing#MISSES})
+     * @param regular      it has a sample measured in regular geometry, so with diffuse rows ranked last it
+     *                     competes with the regular rows only
+     */
+    record Contender(Material material, double bound, boolean provenToMiss, boolean regular) {
+    }
+
+    /** Largest bound first (an unknown one counts as the largest), then by material id: the judging order. */
+    static final Comparator<Contender> ORDER = Comparator
+            .comparingDouble((Contender c) -> Double.isNaN(c.bound()) ? Double.POSITIVE_INFINITY : c.bound()).reversed()
+            .thenComparingLong(c -> c.material().id());
+
+    /**
+     * How the rows are ranked while judging.
+     *
+     * @param rows    the top rows of a list of evaluations (the search's own ranking, limit applied)
+     * @param regular the top rows of the regular-geometry evaluations alone when diffuse rows go last, else null
+     */
+    record Ranker(Function<List<MaterialEvaluation>, List<RankedRow>> rows,
+                  Function<List<MaterialEvaluation>, List<RankedRow>> regular) {
+
+        boolean grouped() {
+            return regular != null;
+        }
+    }
+
+    /**
+     * Judges the contenders that could reach the rows, largest bound first, and returns every evaluation made
+     * (in the contenders' order). {@code judge} must be safe to call from several threads when
+     * {@code parallel}.
+     */
+    static List<MaterialEvaluation> judge(List<Contender> contenders, int limit, Ranker ranker,
+                                          Function<Material, List<MaterialEvaluation>> judge, boolean parallel) {
+        List<Contender> ordered = new ArrayList<>(contenders);
+        ordered.sort(ORDER);
+        int batchSize = parallel ? PARALLEL_BATCH : 1;
+        List<MaterialEvaluation> exact = new ArrayList<>();
+        List<RankedRow> rows = List.of();
+        List<RankedRow> regularRows = List.of();
+        int next = 0;
+        while (next < ordered.size()) {
+            List<Material> batch = new ArrayList<>(batchSize);
+            while (next < ordered.size() && batch.size() < batchSize) {
+                Contender c = ordered.get(next++);
+                // grouped: a material with a regular sample competes only with the regular rows, which come first
+                if (couldEnter(c.regular() ? regularRows : rows, limit, c)) {
+                    batch.add(c.material());
+                }
+            }
+            if (batch.isEmpty()) {
+                continue;
+            }
+            List<MaterialEvaluation> judged = new ArrayList<>();
+            (batch.size() > 1 ? batch.parallelStream() : batch.stream()).map(judge).toList().forEach(judged::addAll);
+            exact.addAll(judged);
+            // the top rows are kept up to date from themselves and the newly judged (a top-k of a union is the
+            // top-k of the parts' top-k), not re-ranked from every judgement: that was quadratic
+            rows = ranker.rows().apply(withRows(rows, judged));
+            if (ranker.grouped()) {
+                regularRows = ranker.regular().apply(withRows(regularRows, judged));
+            }
+        }
+        return exact;
+    }
+
+    /**
+     * Whether the contender could take a place in the rows (full rows: {@code limit} of them, the last one
+     * deciding). A contender proven to miss is at best a miss read from a value with margin at most its
+     * bound: the screen proves the miss on a reading above detection, so the row is never in a better group,
+     * and a worse group (a miss on a bound, not judged) only ranks lower. Any other contender may meet, with
+     * a margin at most its bound, or be unverified, with any margin (the bounds say nothing about that group),
+     * so only full rows of met rows with a larger margin keep it out. A margin equal to the last row's could
+     * enter (confidence and name decide ties), and so could anything against a NaN margin, which ranks last.
+     */
+    static boolean couldEnter(List<RankedRow> rows, int limit, Contender contender) {
+        if (rows.size() < limit) {
+            return true;
+        }
+        RankedRow last = rows.get(rows.size() - 1);
+        Standing standing = last.evaluation().standing();
+        double margin = last.evaluation().worstMarginDecades();
+        double bound = contender.bound();
+        if (contender.provenToMiss()) {
+            if (standing.compareTo(Standing.MISSES) < 0) {
+                return false;
+            }
+            // the last row is a valued miss (by margin), or a bounded miss or not judged: any valued miss beats it
+            return standing != Standing.MISSES || Double.isNaN(margin) || !(bound < margin);
+        }
+        if (standing == Standing.MEETS) {
+            return Double.isNaN(margin) || !(bound < margin);
+        }
+        return true;
+    }
+
+    /** The rows' own evaluations and the newly judged ones: all a top-k ranking of the union needs. */
+    static List<MaterialEvaluation> withRows(List<RankedRow> rows, List<MaterialEvaluation> judged) {
+        List<MaterialEvaluation> out = new ArrayList<>(rows.size() + judged.size());
+        for (RankedRow row : rows) {
+            out.add(new MaterialEvaluation(row.materialId(), row.materialName(), row.evaluation()));
+        }
+        out.addAll(judged);
+        return out;
+    }
+}
