@@ -376,40 +376,44 @@ final class ColumnFirstScan {
     }
 
     /**
-     * The curves in [from, to) whose cap from the chosen column reaches t, in curve order: element 0 is the
-     * count, the curves follow. As measured the loop compares shorts only ({@link Filter}); with a thickness
-     * each curve's cap takes its thickness model ({@link Reach}).
+     * The curves in [from, to) whose cap from every one-column probe reaches t, in curve order: element 0 is
+     * the count, the curves follow. As measured the loops compare codes only ({@link Filter}, block by block);
+     * with a thickness each curve's cap takes its thickness model ({@link Reach}), and over a range the joint
+     * cap of every one-column probe follows ({@link #jointCapOverRange}).
      */
     private int[] firstColumn(int t, int from, int to) {
         StoreSearch.PointProbe p = plan.pointProbes.get(probe);
         short[] column = store.column(p.probe().lo());
         int[] curves = new int[64];
         int count = 0;
-        if (rangeModel != null) {
+        if (!asMeasured) {
             int[] probes = oneColumnProbeIndices();
             short[][] columns = new short[probes.length][];
             for (int i = 0; i < probes.length; i++) {
                 columns[i] = store.column(plan.pointProbes.get(probes[i]).probe().lo());
             }
-            // the chosen column alone first (a few operations per curve), every one-column probe together
-            // only for the curves it keeps
-            Reach reach = new Reach(probe, t);
-            short[] first = store.column(p.probe().lo());
-            for (int c = from; c < to; c++) {
-                if (reach.keeps(c, first[c]) && jointCapOverRange(c, probes, columns) >= t) {
-                    if (count + 1 == curves.length) {
-                        curves = Arrays.copyOf(curves, curves.length * 2);
-                    }
-                    curves[++count] = c;
+            // the chosen column first (it keeps the fewest), then each other one-column probe's cap alone (a
+            // few operations, the curve left at the first that falls below t), and over a range every
+            // one-column probe together, only for the curves all of them keep: the bound is at most each cap
+            Reach[] reaches = new Reach[probes.length];
+            short[][] otherColumns = new short[probes.length][];
+            int others = 0;
+            for (int i = 0; i < probes.length; i++) {
+                if (probes[i] != probe) {
+                    reaches[others] = new Reach(probes[i], t);
+                    otherColumns[others++] = columns[i];
                 }
             }
-            curves[0] = count;
-            return curves;
-        }
-        if (!asMeasured) {
             Reach reach = new Reach(probe, t);
             for (int c = from; c < to; c++) {
-                if (reach.keeps(c, column[c])) {
+                if (!reach.keeps(c, column[c])) {
+                    continue;
+                }
+                boolean kept = true;
+                for (int i = 0; i < others && kept; i++) {
+                    kept = reaches[i].keeps(c, otherColumns[i][c]);
+                }
+                if (kept && (rangeModel == null || jointCapOverRange(c, probes, columns) >= t)) {
                     if (count + 1 == curves.length) {
                         curves = Arrays.copyOf(curves, curves.length * 2);
                     }
