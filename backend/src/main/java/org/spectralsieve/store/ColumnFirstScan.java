@@ -54,12 +54,6 @@ final class ColumnFirstScan {
     private int[] kept = new int[0];
     private int[] keptBound = new int[0];
     private int keptCount;
-    /**
-     * Over a range: each kept curve's joint cap, and whether its bound is worked out yet (0), worked out (1) or
-     * the curve is not judged (2). Null otherwise (the bounds are worked out as the column is read).
-     */
-    private int[] keptCap;
-    private byte[] keptState;
     private int threshold = Integer.MAX_VALUE;
     private final boolean asMeasured;
     private final boolean gatherOtherColumns;
@@ -177,12 +171,7 @@ final class ColumnFirstScan {
                 probe = mostSelective(sampled, sampledCount, t);
             }
             keep(t);
-            if (keptCap != null) {
-                int[] top = bestByCaps(count, t);
-                if (top != null) {
-                    return top;
-                }
-            } else if (keptCount >= count && kthHighest(keptBound, keptCount, count) >= t) {
+            if (keptCount >= count && kthHighest(keptBound, keptCount, count) >= t) {
                 StoreSearch.TopBounds top = new StoreSearch.TopBounds(count);
                 for (int i = 0; i < keptCount; i++) {
                     top.offer(((long) keptBound[i] << 32) | (0xFFFFFFFFL & ~kept[i]));
@@ -197,47 +186,6 @@ final class ColumnFirstScan {
         return null;
     }
 
-    /**
-     * Over a range: the {@code count} best kept curves, bounds worked out in the order of the joint caps
-     * (highest first) and only until the next cap is below the count-th best bound so far: a curve's bound is
-     * at most its cap, and ties go to the lower curve, so a curve whose cap is below that bound cannot be among
-     * the best. At a million curves the joint cap keeps about 30k curves of which a few hundred are read
-     * this way (each bound takes the curve's span and the points-only thickness model). Null when fewer than
-     * {@code count} kept curves are judged or the count-th best bound is below t (as {@link #best}).
-     */
-    private int[] bestByCaps(int count, int t) {
-        long[] byCap = new long[keptCount];
-        for (int i = 0; i < keptCount; i++) {
-            byCap[i] = ((long) keptCap[i] << 32) | i;
-        }
-        Arrays.sort(byCap);
-        StoreSearch.TopBounds top = new StoreSearch.TopBounds(count);
-        for (int j = keptCount - 1; j >= 0; j--) {
-            int i = (int) byCap[j];
-            if (top.full() && (int) (byCap[j] >> 32) < (int) (top.lowest() >> 32)) {
-                break;
-            }
-            if (boundKnown(i)) {
-                top.offer(((long) keptBound[i] << 32) | (0xFFFFFFFFL & ~kept[i]));
-            }
-        }
-        return top.full() && (int) (top.lowest() >> 32) >= t ? top.curves() : null;
-    }
-
-    /** Over a range: works out kept curve i's bound on first use; false when the curve is not judged. */
-    private boolean boundKnown(int i) {
-        if (keptState[i] == 0) {
-            int c = kept[i];
-            if (plan.judged(c)) {
-                keptBound[i] = boundOf(c);
-                keptState[i] = 1;
-            } else {
-                keptState[i] = 2;
-            }
-        }
-        return keptState[i] == 1;
-    }
-
     /** The admitted curves whose bound reaches {@code cut}, in curve order (after {@link #best}). */
     int[] reaching(int cut) {
         if (cut < threshold) {
@@ -246,10 +194,6 @@ final class ColumnFirstScan {
         int[] found = new int[keptCount];
         int count = 0;
         for (int i = 0; i < keptCount; i++) {
-            // over a range a curve whose cap is below the cut cannot reach it: its bound is not needed
-            if (keptCap != null && (keptCap[i] < cut || !boundKnown(i))) {
-                continue;
-            }
             if (keptBound[i] >= cut) {
                 found[count++] = kept[i];
             }
@@ -346,43 +290,21 @@ final class ColumnFirstScan {
             at += part.count;
         }
         kept = curves;
+        keptBound = bounds;
         keptCount = count;
         threshold = t;
-        if (rangeModel != null) {
-            keptCap = bounds;
-            keptBound = new int[count];
-            keptState = new byte[count];
-        } else {
-            keptBound = bounds;
-        }
     }
 
-    /**
-     * Admitted curves of one part of the column whose caps reach t, in curve order: as measured and at an asked
-     * thickness the judged ones with their bounds; over a range all of them with their joint caps (bounds and
-     * whether judged worked out later, only as far as needed: {@link #bestByCaps}).
-     */
+    /** Admitted, judged curves of one part of the column whose caps reach t, in curve order, with their bounds. */
+    private record Kept(int[] curves, int[] bounds, int count) {
+    }
+
     private Kept keptWithBounds(int t, int from, int to, BoundScratch own) {
         int[] part = firstColumn(t, from, to);
         int count = part[0];
         int[] curves = new int[count];
         int[] bounds = new int[count];
         int admitted = 0;
-        if (rangeModel != null) {
-            int[] probes = oneColumnProbeIndices();
-            short[][] columns = new short[probes.length][];
-            for (int i = 0; i < probes.length; i++) {
-                columns[i] = store.column(plan.pointProbes.get(probes[i]).probe().lo());
-            }
-            for (int i = 1; i <= count; i++) {
-                int c = part[i];
-                if (counted(c)) {
-                    curves[admitted] = c;
-                    bounds[admitted++] = jointCapOverRange(c, probes, columns);
-                }
-            }
-            return new Kept(curves, bounds, admitted);
-        }
         for (int i = 1; i <= count; i++) {
             int c = part[i];
             if (counted(c) && plan.judged(c)) {
@@ -391,10 +313,6 @@ final class ColumnFirstScan {
             }
         }
         return new Kept(curves, bounds, admitted);
-    }
-
-    /** Curves of one part of the column in curve order, with their bounds (or, over a range, their joint caps). */
-    private record Kept(int[] curves, int[] bounds, int count) {
     }
 
     /**

@@ -447,16 +447,6 @@ public final class StoreSearch {
             }
         }
 
-        /** Whether it holds as many pairs as it keeps. */
-        boolean full() {
-            return size == heap.length;
-        }
-
-        /** The lowest pair held: once {@link #full}, the count-th best. */
-        long lowest() {
-            return heap[0];
-        }
-
         void offer(long packed) {
             if (size < heap.length) {
                 heap[size] = packed;
