@@ -36,6 +36,8 @@ final class ColumnFirstScan {
     private static final int SAMPLE = 16_384;
     /** The same with a thickness asked or solved for. */
     private static final int SAMPLE_WITH_THICKNESS = 4_096;
+    /** Neighbouring curves sampled together (see {@link #best}). */
+    private static final int SAMPLE_RUN = 64;
     /** Aim the first threshold at about this many times the curves asked for. */
     private static final int HEADROOM = 4;
     /** Curves screened together by every column as measured: a few kilobytes of each column stay in cache. */
@@ -58,10 +60,15 @@ final class ColumnFirstScan {
     /** Every one-column probe's levels at {@link #filtersT} (null elsewhere): worked out once per threshold. */
     private Filter[] filters;
     private int filtersT;
-    /** Points-only model for bounds over a thickness range (as the chunk scan's {@code boundChunk}). */
+    /** Over a thickness range (null otherwise): the points-only model's kind of bound is read. */
     private final CurveModel rangeModel;
-    private final double[] probeOd;
-    private final byte[] probeState;
+    /** The caller thread's scratch space for bounds; each half of the column has its own. */
+    private final BoundScratch scratch;
+    /** Each point probe's side (pass or block) and threshold OD, read per curve by the joint cap. */
+    private final boolean[] probePass;
+    private final double[] probeThresholdOd;
+    /** The thickest a curve can be judged at over the asked range (max + 2·tolerance), or NaN. */
+    private final double highestMm;
 
     ColumnFirstScan(SpectralStore store, StoreSearch.Plan plan) {
         this(store, plan, false);
@@ -79,8 +86,27 @@ final class ColumnFirstScan {
         this.everyCurveAdmitted = plan.totalGeometry == null && plan.materialClass == null;
         this.asMeasured = plan.thickness.kind() == ThicknessSpec.Kind.AS_MEASURED;
         this.rangeModel = plan.thickness.kind() == ThicknessSpec.Kind.RANGE ? new CurveModel(plan, store, true) : null;
-        this.probeOd = new double[plan.pointProbes.size()];
-        this.probeState = new byte[plan.pointProbes.size()];
+        this.scratch = new BoundScratch();
+        int probes = plan.pointProbes.size();
+        this.probePass = new boolean[probes];
+        this.probeThresholdOd = new double[probes];
+        for (int k = 0; k < probes; k++) {
+            probePass[k] = plan.pointProbes.get(k).pass();
+            probeThresholdOd[k] = plan.pointProbes.get(k).thresholdOd();
+        }
+        double hi = plan.thickness.maxMm();
+        this.highestMm = asMeasured ? Double.NaN : hi + 2 * NominalThickness.toleranceMm(hi);
+    }
+
+    /**
+     * One thread's space for working out bounds ({@link #boundOf}): the points-only model over a range and the
+     * decoded probes. The two halves of the column each take their own, so their bounds are worked out
+     * side by side.
+     */
+    private final class BoundScratch {
+        final CurveModel model = rangeModel != null ? new CurveModel(plan, store, true) : null;
+        final double[] probeOd = new double[plan.pointProbes.size()];
+        final byte[] probeState = new byte[plan.pointProbes.size()];
     }
 
     /** At least one probe reads one column (a grid point): as measured, at an asked thickness or over a range. */
@@ -120,11 +146,16 @@ final class ColumnFirstScan {
         int n = store.size();
         // with a thickness each sampled bound costs a span and a thickness model: a smaller sample
         int stride = Math.max(1, n / (asMeasured ? SAMPLE : SAMPLE_WITH_THICKNESS));
-        int[] sampled = new int[(n + stride - 1) / stride];
+        // one curve in stride, taken as runs of SAMPLE_RUN neighbours: each run reads a few whole cache lines
+        // of a column (and its curves' materials once), where single curves read one line per curve and column
+        long runStep = (long) stride * SAMPLE_RUN;
+        int[] sampled = new int[(int) Math.min(n, (n + runStep - 1) / runStep * SAMPLE_RUN)];
         int sampledCount = 0;
-        for (int c = 0; c < n; c += stride) {
-            if (counted(c) && plan.judged(c)) {
-                sampled[sampledCount++] = c;
+        for (long start = 0; start < n; start += runStep) {
+            for (int c = (int) start; c < Math.min(n, start + SAMPLE_RUN); c++) {
+                if (counted(c) && plan.judged(c)) {
+                    sampled[sampledCount++] = c;
+                }
             }
         }
         int[] sampledBound = new int[sampledCount];
@@ -227,14 +258,73 @@ final class ColumnFirstScan {
 
     /** Reads the chosen column once: every admitted curve whose cap reaches t, with its bound. */
     private void keep(int t) {
+        if (gatherOtherColumns) {
+            keepGathering(t);
+            return;
+        }
         int n = store.size();
-        int[] curves;
-        int count;
         if (asMeasured) {
             filtersAt(t); // before the halves start: they only read it
         }
+        Kept[] parts;
         if (n >= plan.parallelMinCurves) {
-            // the two halves of the column on two threads, joined in curve order
+            // the two halves of the column on two threads, each with the bounds of what it keeps (its own
+            // scratch space), joined in curve order: the same curves and bounds as one thread in one pass
+            int half = n / 2;
+            parts = new Kept[2];
+            java.util.stream.IntStream.range(0, 2).parallel().forEach(h -> parts[h] = h == 0
+                    ? keptWithBounds(t, 0, half, scratch) : keptWithBounds(t, half, n, new BoundScratch()));
+        } else {
+            parts = new Kept[] {keptWithBounds(t, 0, n, scratch)};
+        }
+        int count = 0;
+        for (Kept part : parts) {
+            count += part.count;
+        }
+        int[] curves = new int[count];
+        int[] bounds = new int[count];
+        int at = 0;
+        for (Kept part : parts) {
+            System.arraycopy(part.curves, 0, curves, at, part.count);
+            System.arraycopy(part.bounds, 0, bounds, at, part.count);
+            at += part.count;
+        }
+        kept = curves;
+        keptBound = bounds;
+        keptCount = count;
+        threshold = t;
+    }
+
+    /** Admitted, judged curves of one part of the column whose caps reach t, in curve order, with their bounds. */
+    private record Kept(int[] curves, int[] bounds, int count) {
+    }
+
+    private Kept keptWithBounds(int t, int from, int to, BoundScratch own) {
+        int[] part = firstColumn(t, from, to);
+        int count = part[0];
+        int[] curves = new int[count];
+        int[] bounds = new int[count];
+        int admitted = 0;
+        for (int i = 1; i <= count; i++) {
+            int c = part[i];
+            if (counted(c) && plan.judged(c)) {
+                curves[admitted] = c;
+                bounds[admitted++] = boundOf(c, own);
+            }
+        }
+        return new Kept(curves, bounds, admitted);
+    }
+
+    /**
+     * The pass before the block screen (benchmark only, as measured): the chosen column on two threads, its
+     * survivors thinned by the other columns gathered per curve and compared as margins, bounds on the
+     * caller's thread.
+     */
+    private void keepGathering(int t) {
+        int n = store.size();
+        int[] curves;
+        int count;
+        if (n >= plan.parallelMinCurves) {
             int half = n / 2;
             int[][] parts = new int[2][];
             java.util.stream.IntStream.range(0, 2).parallel()
@@ -252,7 +342,7 @@ final class ColumnFirstScan {
         // (as measured firstColumn has already read them, block by block)
         for (int k = 0; k < plan.pointProbes.size(); k++) {
             StoreSearch.PointProbe other = plan.pointProbes.get(k);
-            if (k == probe || rangeModel != null || (asMeasured && !gatherOtherColumns) || !other.probe().onGrid() || other.probe().fractionHi() != 0) {
+            if (k == probe || rangeModel != null || !other.probe().onGrid() || other.probe().fractionHi() != 0) {
                 continue;
             }
             Reach reach = new Reach(k, t);
@@ -286,40 +376,44 @@ final class ColumnFirstScan {
     }
 
     /**
-     * The curves in [from, to) whose cap from the chosen column reaches t, in curve order: element 0 is the
-     * count, the curves follow. As measured the loop compares shorts only ({@link Filter}); with a thickness
-     * each curve's cap takes its thickness model ({@link Reach}).
+     * The curves in [from, to) whose cap from every one-column probe reaches t, in curve order: element 0 is
+     * the count, the curves follow. As measured the loops compare codes only ({@link Filter}, block by block);
+     * with a thickness each curve's cap takes its thickness model ({@link Reach}), and over a range the joint
+     * cap of every one-column probe follows ({@link #jointCapOverRange}).
      */
     private int[] firstColumn(int t, int from, int to) {
         StoreSearch.PointProbe p = plan.pointProbes.get(probe);
         short[] column = store.column(p.probe().lo());
         int[] curves = new int[64];
         int count = 0;
-        if (rangeModel != null) {
+        if (!asMeasured) {
             int[] probes = oneColumnProbeIndices();
             short[][] columns = new short[probes.length][];
             for (int i = 0; i < probes.length; i++) {
                 columns[i] = store.column(plan.pointProbes.get(probes[i]).probe().lo());
             }
-            // the chosen column alone first (a few operations per curve), every one-column probe together
-            // only for the curves it keeps
-            Reach reach = new Reach(probe, t);
-            short[] first = store.column(p.probe().lo());
-            for (int c = from; c < to; c++) {
-                if (reach.keeps(c, first[c]) && jointCapOverRange(c, probes, columns) >= t) {
-                    if (count + 1 == curves.length) {
-                        curves = Arrays.copyOf(curves, curves.length * 2);
-                    }
-                    curves[++count] = c;
+            // the chosen column first (it keeps the fewest), then each other one-column probe's cap alone (a
+            // few operations, the curve left at the first that falls below t), and over a range every
+            // one-column probe together, only for the curves all of them keep: the bound is at most each cap
+            Reach[] reaches = new Reach[probes.length];
+            short[][] otherColumns = new short[probes.length][];
+            int others = 0;
+            for (int i = 0; i < probes.length; i++) {
+                if (probes[i] != probe) {
+                    reaches[others] = new Reach(probes[i], t);
+                    otherColumns[others++] = columns[i];
                 }
             }
-            curves[0] = count;
-            return curves;
-        }
-        if (!asMeasured) {
             Reach reach = new Reach(probe, t);
             for (int c = from; c < to; c++) {
-                if (reach.keeps(c, column[c])) {
+                if (!reach.keeps(c, column[c])) {
+                    continue;
+                }
+                boolean kept = true;
+                for (int i = 0; i < others && kept; i++) {
+                    kept = reaches[i].keeps(c, otherColumns[i][c]);
+                }
+                if (kept && (rangeModel == null || jointCapOverRange(c, probes, columns) >= t)) {
                     if (count + 1 == curves.length) {
                         curves = Arrays.copyOf(curves, curves.length * 2);
                     }
@@ -387,8 +481,12 @@ final class ColumnFirstScan {
      * points-only thickness model of {@code boundChunk}.
      */
     int boundOf(int curve) {
+        return boundOf(curve, scratch);
+    }
+
+    private int boundOf(int curve, BoundScratch own) {
         if (rangeModel != null) {
-            return boundOverRange(curve);
+            return boundOverRange(curve, own);
         }
         double target = plan.thickness.minMm();
         boolean fixed = plan.thickness.kind() == ThicknessSpec.Kind.FIXED;
@@ -444,7 +542,9 @@ final class ColumnFirstScan {
     }
 
     /** Over a thickness range: the probes decoded as {@code decode} does, then the points-only model's best key. */
-    private int boundOverRange(int curve) {
+    private int boundOverRange(int curve, BoundScratch own) {
+        double[] probeOd = own.probeOd;
+        byte[] probeState = own.probeState;
         for (int k = 0; k < plan.pointProbes.size(); k++) {
             Probe p = plan.pointProbes.get(k).probe();
             if (!p.onGrid()) {
@@ -462,7 +562,7 @@ final class ColumnFirstScan {
             boolean isBound = (a & OdCode.BOUND_BIT) != 0 || (f > 0 && (b & OdCode.BOUND_BIT) != 0);
             probeState[k] = isBound ? CurveModel.BOUND : CurveModel.READ;
         }
-        return rangeModel.loadDecoded(curve, probeOd, probeState).bestKey();
+        return own.model.loadDecoded(curve, probeOd, probeState).bestKey();
     }
 
     /** The point probes that read one column (a grid point), in the plan's order. */
@@ -504,8 +604,10 @@ final class ColumnFirstScan {
         ThicknessSpec spec = plan.thickness;
         double lo = spec.minMm();
         double hi = spec.maxMm();
-        double highest = hi + 2 * NominalThickness.toleranceMm(hi);
+        double highest = highestMm;
         int model = store.indexModelOf(curve);
+        double[] loss = plan.pointProbeLoss[model];
+        double[] unresolved = plan.pointProbeUnresolvedOd[model];
         double feasibleLo = lo;
         double feasibleHi = highest;
         boolean never = false;
@@ -517,17 +619,16 @@ final class ColumnFirstScan {
                 continue; // unverified, no line: it neither misses nor lowers a margin
             }
             int k = probes[i];
-            StoreSearch.PointProbe p = plan.pointProbes.get(k);
-            boolean pass = p.pass();
+            boolean pass = probePass[k];
             boolean stored = (code & OdCode.BOUND_BIT) != 0;
             double value = (code & OdCode.LEVEL_MASK) * OdCode.STEP;
             // CurveModel.addDecoded's line
-            double s = plan.pointProbeLoss[model][k];
-            boolean clear = bulk && value <= plan.pointProbeUnresolvedOd[model][k];
+            double s = loss[k];
+            boolean clear = bulk && value <= unresolved[k];
             double internal = Math.max(0, value - s);
             double perMm = bulk && !clear ? internal / d0 : 0;
             double base = bulk && !clear ? s : value;
-            double intercept = pass ? p.thresholdOd() - base : base - p.thresholdOd();
+            double intercept = pass ? probeThresholdOd[k] - base : base - probeThresholdOd[k];
             double slope = pass ? -perMm : perMm;
             if (!(stored && !pass)) {
                 missCap = Math.min(missCap, Math.max(intercept + slope * lo, intercept + slope * hi));
@@ -639,8 +740,7 @@ final class ColumnFirstScan {
             double margin = (p.thresholdOd() - base) + (-perMm) * spec.minMm();
             return pack(margin, margin < 0 ? 2 : stored ? 1 : 0);
         }
-        double highest = spec.maxMm() + 2 * NominalThickness.toleranceMm(spec.maxMm());
-        double margin = (base - p.thresholdOd()) + perMm * highest;
+        double margin = (base - p.thresholdOd()) + perMm * highestMm;
         return pack(margin, margin >= 0 ? 0 : stored || clear ? 1 : 2);
     }
 
@@ -695,12 +795,54 @@ final class ColumnFirstScan {
         final int boundLimit;
         final boolean notMeasured;
         private final boolean pass;
+        /**
+         * {@link #keeps} for every one of the 65,536 codes, one bit each (8 KB, in the first-level cache): the
+         * block loops test a code by a load, a shift and a mask, with no branch on the code. A third of the
+         * codes pass a typical first column at random, so the branches of the comparison were mispredicted
+         * about as often as not (JFR profile, docs/store-scan.md).
+         */
+        private final long[] keptCodes = new long[1 << 10];
 
         Filter(StoreSearch.PointProbe p, int t) {
             pass = p.pass();
             plainLimit = limit(p, t, 0, PLAIN_TOP);
             boundLimit = limit(p, t, OdCode.BOUND_BIT, BOUND_TOP);
             notMeasured = capOf(p, OdCode.NOT_MEASURED & 0xFFFF) >= t;
+            // the same comparisons as keeps, as ranges of codes: plain codes 0..0x7FFF, bounds 0x8000..0xFFFE
+            if (pass) {
+                setCodes(0, Math.min(plainLimit, PLAIN_TOP));
+                setCodes(OdCode.BOUND_BIT, OdCode.BOUND_BIT + Math.min(boundLimit, 0x7FFE));
+            } else {
+                setCodes(Math.max(plainLimit, 0), PLAIN_TOP);
+                setCodes(OdCode.BOUND_BIT + Math.max(boundLimit, 0), 0xFFFE);
+            }
+            if (notMeasured) {
+                setCodes(0xFFFF, 0xFFFF);
+            }
+        }
+
+        /** Marks the codes from {@code first} to {@code last} (both included; none when last < first) as kept. */
+        private void setCodes(int first, int last) {
+            if (last < first) {
+                return;
+            }
+            int firstWord = first >>> 6;
+            int lastWord = last >>> 6;
+            long fromFirst = -1L << first; // bits (first mod 64) to 63 of the first word
+            long toLast = -1L >>> (63 - (last & 63)); // bits 0 to (last mod 64) of the last word
+            if (firstWord == lastWord) {
+                keptCodes[firstWord] |= fromFirst & toLast;
+                return;
+            }
+            keptCodes[firstWord] |= fromFirst;
+            Arrays.fill(keptCodes, firstWord + 1, lastWord, -1L);
+            keptCodes[lastWord] |= toLast;
+        }
+
+        /** {@link #keeps} read from the table of codes: 1 when kept, 0 otherwise. */
+        int keptBit(short code) {
+            int u = code & 0xFFFF;
+            return (int) (keptCodes[u >>> 6] >>> u) & 1;
         }
 
         boolean keeps(short code) {
@@ -715,37 +857,26 @@ final class ColumnFirstScan {
 
         /** The curves in [from, to) this filter keeps, written to {@code out} in curve order; their count. */
         int keepInto(short[] column, int from, int to, int[] out) {
-            int lp = plainLimit;
-            int lb = boundLimit;
-            boolean nm = notMeasured;
+            long[] table = keptCodes;
             int count = 0;
-            if (pass) {
-                for (int c = from; c < to; c++) {
-                    int u = column[c] & 0xFFFF;
-                    // plain codes at or below lp, bound codes at or below lb, "not measured" if its cap reaches t
-                    if (u < 0x8000 ? u <= lp : u == 0xFFFF ? nm : u - 0x8000 <= lb) {
-                        out[count++] = c;
-                    }
-                }
-            } else {
-                for (int c = from; c < to; c++) {
-                    int u = column[c] & 0xFFFF;
-                    if (u < 0x8000 ? u >= lp : u == 0xFFFF ? nm : u - 0x8000 >= lb) {
-                        out[count++] = c;
-                    }
-                }
+            for (int c = from; c < to; c++) {
+                int u = column[c] & 0xFFFF;
+                // every curve is written; the count moves on only past a kept one (no branch on the code)
+                out[count] = c;
+                count += (int) (table[u >>> 6] >>> u) & 1;
             }
             return count;
         }
 
         /** Keeps, in place and in order, the first {@code count} curves of {@code curves} this filter keeps. */
         int thin(short[] column, int[] curves, int count) {
+            long[] table = keptCodes;
             int left = 0;
             for (int i = 0; i < count; i++) {
                 int c = curves[i];
-                if (keeps(column[c])) {
-                    curves[left++] = c;
-                }
+                int u = column[c] & 0xFFFF;
+                curves[left] = c;
+                left += (int) (table[u >>> 6] >>> u) & 1;
             }
             return left;
         }

@@ -824,10 +824,14 @@ public final class StoreSearch {
         /**
          * Spans worked out on demand, material by material, for the curves a column-first pass reads
          * ({@link ColumnFirstScan}): at a million curves the spans of every curve cost more than the rest of
-         * that pass. Used while {@link #spans} is null and the thickness is asked; a curve not judged maps to
-         * {@link #NOT_JUDGED_SPAN}.
+         * that pass. Used while {@link #spans} is null and the thickness is asked; a curve not judged holds
+         * {@link #NOT_JUDGED_SPAN}, one not yet worked out null. An array by curve, not a map: at a million
+         * curves the map's boxing and growth were half of a thickness-solved column-first pass (JFR profile,
+         * docs/store-scan.md). The halves of a column-first pass fill it from two threads: both may work out a
+         * material straddling their split, and write the same spans; an element read is null or a record whose
+         * fields are final, so a reader sees a whole span or works it out itself.
          */
-        private final Map<Integer, ThicknessInterval> spansOnDemand = new HashMap<>();
+        private ThicknessInterval[] spansOnDemand;
         private static final ThicknessInterval NOT_JUDGED_SPAN = new ThicknessInterval(1, 1); // compared by identity
         private SpectralStore spanStore;
         final double[][] pointProbeUnresolvedOd;
@@ -915,6 +919,9 @@ public final class StoreSearch {
             // the reworked scan works spans out when it knows its path: all of them for the chunk scan
             // (allSpans), only those of the curves it reads for the column-first pass (spanOf)
             plan.spans = reference ? plan.spans(store) : null;
+            if (!reference && r.thickness().kind() != ThicknessSpec.Kind.AS_MEASURED) {
+                plan.spansOnDemand = new ThicknessInterval[store.size()];
+            }
             return plan;
         }
 
@@ -930,14 +937,17 @@ public final class StoreSearch {
             if (spans != null) {
                 return spans[curve];
             }
-            ThicknessInterval known = spansOnDemand.get(curve);
+            ThicknessInterval known = spansOnDemand[curve];
             if (known == null) {
                 int[] curves = spanStore.curvesByMaterial()[spanStore.materialIndex(curve)];
                 ThicknessInterval[] own = spansOfCurves(spanStore, curves);
                 for (int i = 0; i < curves.length; i++) {
-                    spansOnDemand.put(curves[i], own[i] == null ? NOT_JUDGED_SPAN : own[i]);
+                    ThicknessInterval span = own[i] == null ? NOT_JUDGED_SPAN : own[i];
+                    spansOnDemand[curves[i]] = span;
+                    if (curves[i] == curve) {
+                        known = span;
+                    }
                 }
-                known = spansOnDemand.get(curve);
             }
             return known == NOT_JUDGED_SPAN ? null : known;
         }

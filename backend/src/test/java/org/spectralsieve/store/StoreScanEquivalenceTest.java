@@ -228,6 +228,61 @@ class StoreScanEquivalenceTest {
         assertThat(belowMeets).as("curves the joint cap puts among the misses").isGreaterThan(1_000);
     }
 
+    /**
+     * The block screen's table of codes (one bit per code, read without a branch) keeps exactly the codes
+     * {@code Filter.keeps} keeps, whose levels are "cap ≥ t": every one of the 65,536 codes, for the one-column
+     * probes of random requirements and thresholds drawn from real bounds, the keys' group edges and random
+     * keys; and the block loops keep, in order, the curves a plain loop over {@code keeps} keeps.
+     */
+    @Test
+    void theTableOfCodesKeepsExactlyWhatTheLevelsKeep() {
+        Random random = new Random(SEED + 6);
+        SpectralStore store = StoreSearchTest.randomStore(4000, 900, random.nextLong());
+        int checked = 0;
+        for (int q = 0; q < 30; q++) {
+            Requirement drawn = randomRequirement(random);
+            Requirement r = requirement(ThicknessSpec.AS_MEASURED, drawn.clauses().toArray(Clause[]::new));
+            StoreSearch.Plan plan = planOf(store, r);
+            ColumnFirstScan scan = new ColumnFirstScan(store, plan);
+            for (int k : scan.oneColumnProbeIndices()) {
+                StoreSearch.PointProbe p = plan.pointProbes.get(k);
+                short[] column = store.column(p.probe().lo());
+                int[] thresholds = {scan.boundOf(random.nextInt(store.size())), scan.boundOf(random.nextInt(store.size())),
+                    StoreSearch.Keys.of(org.spectralsieve.requirement.Standing.MEETS, Double.NaN),
+                    StoreSearch.Keys.of(org.spectralsieve.requirement.Standing.UNVERIFIED, Double.POSITIVE_INFINITY),
+                    StoreSearch.Keys.of(org.spectralsieve.requirement.Standing.MISSES, Double.NaN),
+                    Integer.MIN_VALUE, Integer.MAX_VALUE, random.nextInt() / 4};
+                for (int t : thresholds) {
+                    ColumnFirstScan.Filter filter = new ColumnFirstScan.Filter(p, t);
+                    for (int u = 0; u <= 0xFFFF; u++) {
+                        assertThat(filter.keptBit((short) u)).as("%s code %x t %d", r.text(), u, t)
+                                .isEqualTo(filter.keeps((short) u) ? 1 : 0);
+                    }
+                    int from = random.nextInt(store.size() / 2);
+                    int to = from + random.nextInt(Math.min(2048, store.size() - from) + 1);
+                    int[] expected = new int[to - from];
+                    int expectedCount = 0;
+                    for (int c = from; c < to; c++) {
+                        if (filter.keeps(column[c])) {
+                            expected[expectedCount++] = c;
+                        }
+                    }
+                    int[] block = new int[2048];
+                    int count = filter.keepInto(column, from, to, block);
+                    assertThat(java.util.Arrays.copyOf(block, count)).isEqualTo(java.util.Arrays.copyOf(expected, expectedCount));
+                    int[] all = new int[to - from];
+                    for (int c = from; c < to; c++) {
+                        all[c - from] = c;
+                    }
+                    int thinned = filter.thin(column, all, all.length);
+                    assertThat(java.util.Arrays.copyOf(all, thinned)).isEqualTo(java.util.Arrays.copyOf(expected, expectedCount));
+                    checked++;
+                }
+            }
+        }
+        assertThat(checked).isGreaterThan(100);
+    }
+
     /** One asked thickness or a range, some ending within the nominal tolerance short of a made range (0.5–4 mm). */
     private static ThicknessSpec randomThickness(Random random) {
         return switch (random.nextInt(4)) {
