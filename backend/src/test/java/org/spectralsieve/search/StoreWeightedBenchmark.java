@@ -18,6 +18,7 @@ import org.spectralsieve.requirement.Ranking;
 import org.spectralsieve.requirement.Requirement;
 import org.spectralsieve.requirement.RequirementParser;
 import org.spectralsieve.requirement.Standing;
+import org.spectralsieve.requirement.ThicknessSpec;
 import org.spectralsieve.spectrum.Curve;
 import org.spectralsieve.store.OdCode;
 import org.spectralsieve.store.SpectralStore;
@@ -42,7 +43,9 @@ import org.spectralsieve.store.SyntheticCurves;
  * ({@link WeightedMisses#add}), {@code reference} (the same rule with the arithmetic before the power tables, on
  * one thread) or {@code earlier} ({@link WeightedMisses#addEarlier}), alternated run by run;
  * {@code -Dbench.storeWeightedRules=current,reference} chooses them, {@code -Dbench.storeWeightedSkipEarlier=true}
- * leaves the earlier out, {@code -Dbench.storeWeightedWholeRules=current} runs the whole search for those rules
+ * leaves the earlier out, {@code -Dbench.storeWeightedJudging=bounded|earlier} the whole search's judging loop
+ * for the current rule (bounded, the service's: {@code BoundedJudgement}; earlier: held misses judged while they
+ * could enter), {@code -Dbench.storeWeightedWholeRules=current} runs the whole search for those rules
  * only (the others time their screen alone; above the base size the warm-up screens only). The held materials are judged as the service does: the shortlist's top rows kept up
  * to date from themselves and each newly judged material, ranked once from every judgement at the end.
  */
@@ -106,9 +109,10 @@ class StoreWeightedBenchmark {
                     for (String part : judged ? new String[] {"screen", "whole"} : new String[] {"screen"}) {
                         double[] ms = part.equals("screen") ? screen[v] : whole[v];
                         System.out.printf(Locale.ROOT, "BENCH store-weighted curves=%d mode=%s part=%s p50_ms=%.1f p95_ms=%.1f"
-                                        + " proven=%d judged=%d runs=%d rule=%s%n", n, mode.getKey(), part, ms[runs / 2],
+                                        + " proven=%d judged=%d runs=%d rule=%s judging=%s%n", n, mode.getKey(), part, ms[runs / 2],
                                 ms[Math.min(runs - 1, (int) Math.ceil(runs * 0.95) - 1)], last[v].proven, last[v].judged,
-                                runs, rules[v]);
+                                runs, rules[v], judged && rules[v].equals("current")
+                                        ? System.getProperty("bench.storeWeightedJudging", "bounded") : "earlier");
                     }
                 }
             }
@@ -122,6 +126,9 @@ class StoreWeightedBenchmark {
     private static Outcome search(SpectralStore store, Requirement requirement, int limit, boolean judge,
                                   String rule) {
         long t0 = System.nanoTime();
+        if (judge && rule.equals("current") && !"earlier".equals(System.getProperty("bench.storeWeightedJudging", "bounded"))) {
+            return searchBounded(store, requirement, limit, t0);
+        }
         Map<Long, Double> proven = new HashMap<>();
         switch (rule) {
             case "earlier" -> WeightedMisses.addEarlier(proven, store, requirement, Optional.empty());
@@ -182,6 +189,62 @@ class StoreWeightedBenchmark {
             throw new IllegalStateException("no rows");
         }
         return new Outcome((t1 - t0) / 1e6, (t2 - t0) / 1e6, proven.size(), judged);
+    }
+
+    /**
+     * The exact judgement the service's way since materials are ranked by their bounds
+     * ({@link BoundedJudgement}, {@code SearchService.searchExactly}): each material of three curves a contender
+     * whose bound is the largest of its curves' margin bounds ({@link WeightedMisses#marginBounds}, of either
+     * sign), judged from the largest bound down on both cores from {@link BoundedJudgement#PARALLEL_FROM}
+     * materials, left out once the rows are full of rows it cannot beat. The current rule's screen only
+     * ({@code -Dbench.storeWeightedJudging=earlier}: the loop before, held proven misses judged while they could enter).
+     */
+    private static Outcome searchBounded(SpectralStore store, Requirement requirement, int limit, long t0) {
+        // the screen: each curve's bound of either sign; a negative one is a proven miss (WeightedMisses.add)
+        double[] bounds = WeightedMisses.marginBounds(store, requirement, Optional.empty(), false);
+        long t1b = System.nanoTime();
+        int provenCount = 0;
+        ThicknessSpec spec = requirement.thickness();
+        List<BoundedJudgement.Contender> contenders = new ArrayList<>();
+        for (int first = 0; first < store.size(); first += 3) {
+            int end = Math.min(store.size(), first + 3);
+            double bound = Double.NEGATIVE_INFINITY;
+            boolean allMiss = true;
+            for (int c = first; c < end; c++) {
+                double margin = c < bounds.length && !Double.isNaN(bounds[c]) ? bounds[c] : Double.POSITIVE_INFINITY;
+                allMiss &= margin < 0;
+                provenCount += margin < 0 ? 1 : 0;
+                bound = Math.max(bound, margin);
+            }
+            StoredMaterial m = store.material(first);
+            // the synthetic materials state no made thicknesses (MadeThicknesses.of(List.of(), …) in judge), so a
+            // bulk one is made at an asked thickness only as measured: as the service's madeFor, a proven miss
+            // of a bulk material at a thickness is not "at best a valued miss"
+            boolean made = spec.kind() == ThicknessSpec.Kind.AS_MEASURED || !store.isBulk(first);
+            contenders.add(new BoundedJudgement.Contender(material(m, first), bound, allMiss && made, false));
+        }
+        java.util.concurrent.atomic.AtomicInteger judged = new java.util.concurrent.atomic.AtomicInteger();
+        List<MaterialEvaluation> exact = BoundedJudgement.judge(contenders, limit,
+                new BoundedJudgement.Ranker(list -> Ranking.rank(list, limit), null),
+                material -> {
+                    int first = (int) ((material.id() - 1) * 3);
+                    List<MaterialEvaluation> rows = judge(store, first, Math.min(store.size(), first + 3), requirement);
+                    judged.addAndGet(rows.size());
+                    return rows;
+                }, contenders.size() >= BoundedJudgement.PARALLEL_FROM);
+        List<RankedRow> rows = Ranking.rank(exact, limit);
+        long t2 = System.nanoTime();
+        if (rows.isEmpty()) {
+            throw new IllegalStateException("no rows");
+        }
+        return new Outcome((t1b - t0) / 1e6, (t2 - t0) / 1e6, provenCount, judged.get());
+    }
+
+    /** A material record for a synthetic material (its curves are read from the store by id, not from here). */
+    private static org.spectralsieve.library.Material material(StoredMaterial m, int firstCurve) {
+        return new org.spectralsieve.library.Material(m.id(), "synthetic-" + m.id(), m.name(),
+                org.spectralsieve.library.MaterialClass.of("plastic sheet"), "", List.of(),
+                org.spectralsieve.library.Scaling.BULK, SyntheticCurves.INDICES[0], List.of());
     }
 
     /** As {@code SearchService.couldEnter}: whether a held material whose bound is {@code bound} could still enter. */
