@@ -204,9 +204,13 @@ public class SearchService {
      * @param invalidations {@link #invalidations} read at the same moment
      * @param curves        the decoded curves the store was built from, as many as the budget holds
      * @param ordered       the materials in the order of the store's rows ({@link MaterialsRead#ORDER})
+     * @param unusable      the samples whose stored record fails today's checks ({@link SampleRescaling#unusable}):
+     *                      the store holds them at a storable thickness with an assumed index, so no screen's
+     *                      proof on them holds for the exact judgement (see {@link #searchExactly})
      */
     private record Snapshot(SpectralStore store, Map<Long, Material> materials, Map<Long, SampleInfo> samples,
-                            long generation, long invalidations, CurveCache curves, List<Material> ordered) {
+                            long generation, long invalidations, CurveCache curves, List<Material> ordered,
+                            Set<Long> unusable) {
 
         /** Read no earlier than {@code other}: both counters only grow, so a later read has both at least as large. */
         boolean notOlderThan(Snapshot other) {
@@ -457,6 +461,10 @@ public class SearchService {
         } else if (screenWeighted) {
             WeightedMisses.add(provenMiss, s.store(), requirement, layer, diffuseLayer);
         }
+        // the store holds a sample whose record fails today's checks at a storable thickness with n = 1.5, while
+        // the exact judgement reads its own record (a stack with the material's own index, say): a bound formed
+        // on the store's stand-in proves nothing about that row, so such a sample is always judged exactly
+        s.unusable().forEach(provenMiss::remove);
         List<MaterialEvaluation> exact = new ArrayList<>();
         Map<Material, Double> held = new LinkedHashMap<>();
         int admitted = 0;
@@ -896,7 +904,7 @@ public class SearchService {
         if (partial.isPresent() && partial.get() == previous.ordered()) {
             // no material changed (an imported emitter or response, say): the same store holds at the new number
             return new Snapshot(previous.store(), previous.materials(), previous.samples(), generation, invalidated,
-                    previous.curves(), previous.ordered());
+                    previous.curves(), previous.ordered(), previous.unusable());
         }
         List<Material> materials = partial.orElseGet(() -> MaterialsRead.everything(library));
         StoreRowSource curves = partial.isPresent()
@@ -906,6 +914,7 @@ public class SearchService {
         SpectralStore.Builder builder = SpectralStore.builder(SpectralStore.DEFAULT_GRID, samples);
         Map<Long, Material> byId = new java.util.HashMap<>();
         Map<Long, SampleInfo> sampleById = new java.util.HashMap<>();
+        Set<Long> unusable = new HashSet<>();
         // a partial rebuild takes the previous snapshot's decoded curves as they are (not hashed again)
         CurveCache cache = partial.isPresent() ? previous.curves().successor() : new CurveCache(curveCacheBytes);
         for (Material m : materials) {
@@ -918,6 +927,9 @@ public class SearchService {
                 // such a sample enters at a thickness and index the store can hold, never rescaled, and its
                 // exact row is unverified with the reason
                 boolean usable = SampleRescaling.unusable(m, sample).isEmpty();
+                if (!usable) {
+                    unusable.add(sample.id());
+                }
                 // no readable curve: left out (logged), judged only by the exact evaluator, which says why
                 Curve decoded = curves.add(builder, sample, stored,
                         usable ? sample.thicknessMm() : storableThickness(sample.thicknessMm()),
@@ -933,6 +945,6 @@ public class SearchService {
             }
         }
         return new Snapshot(builder.build(), Map.copyOf(byId), Map.copyOf(sampleById), generation, invalidated, cache,
-                materials);
+                materials, Set.copyOf(unusable));
     }
 }

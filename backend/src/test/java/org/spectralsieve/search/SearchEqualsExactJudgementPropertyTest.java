@@ -1,6 +1,8 @@
 package org.spectralsieve.search;
 
 import static org.assertj.core.api.Assertions.assertThat;
+import static org.spectralsieve.library.db.Tables.MATERIAL;
+import static org.spectralsieve.library.db.Tables.SAMPLE;
 
 import java.util.ArrayList;
 import java.util.EnumMap;
@@ -66,6 +68,7 @@ class SearchEqualsExactJudgementPropertyTest {
         library = new JooqLibraryRepository(db);
         new DemoLibraryLoader(library, db, new DefaultResourceLoader(), "classpath:seed-materials/").load();
         addSyntheticMaterials(new Random(20261204L), 30);
+        spoilSomeStoredRecords(db);
         cached = new SearchService(library);
         tinyCache = new SearchService(library, 120_000); // about a dozen curves of 911 points
         uncached = new SearchService(library, 0);
@@ -182,6 +185,22 @@ class SearchEqualsExactJudgementPropertyTest {
     private static List<RankedRow> judgeEverySample(JooqLibraryRepository library, Requirement requirement,
                                                     Optional<StackLayer> layer, List<Material> materials, int limit) {
         return ExactReference.judgeEverySample(library, requirement, layer, materials, limit);
+    }
+
+    /**
+     * Records today's checks refuse, written straight into the tables as an older database could hold them
+     * ({@code SampleRescaling.unusable}): an index refused on reading, thicknesses outside the physical range,
+     * one of them on a material of a valid but high index (the store holds all of these with n = 1.5).
+     */
+    private static void spoilSomeStoredRecords(DSLContext db) {
+        List<Long> synthetic = db.select(MATERIAL.ID).from(MATERIAL).where(MATERIAL.SLUG.like("synthetic-stock-%"))
+                .orderBy(MATERIAL.ID).fetch(MATERIAL.ID);
+        db.update(MATERIAL).set(MATERIAL.INDEX_KIND, "constant").set(MATERIAL.INDEX_N, 1e16)
+                .where(MATERIAL.ID.eq(synthetic.get(3))).execute();
+        db.update(MATERIAL).set(MATERIAL.INDEX_KIND, "constant").set(MATERIAL.INDEX_N, 3.9)
+                .where(MATERIAL.ID.eq(synthetic.get(7))).execute();
+        db.update(SAMPLE).set(SAMPLE.THICKNESS_MM, 1e308).where(SAMPLE.MATERIAL_ID.eq(synthetic.get(7))).execute();
+        db.update(SAMPLE).set(SAMPLE.THICKNESS_MM, 1e-300).where(SAMPLE.MATERIAL_ID.eq(synthetic.get(11))).execute();
     }
 
     private static void addSyntheticMaterials(Random random, int count) {
