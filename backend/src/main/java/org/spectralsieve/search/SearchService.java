@@ -386,6 +386,12 @@ public class SearchService {
                 }
             }
         }
+        // a sample whose stored record fails today's checks is held in the store at a thickness and index it can
+        // hold, not its own, so no screen's bound speaks for its exact row (UnusableRecordIsNeverHiddenTest)
+        s.unusable().forEach(id -> {
+            provenMiss.remove(id);
+            marginBound.remove(id);
+        });
         boolean grouped = diffuseLast(requirement);
         ThicknessSpec spec = requirement.thickness();
         // at an asked thickness a material's samples are judged only where each is the nearest measurement: its
