@@ -114,7 +114,7 @@ public class SearchService {
     private final boolean screenLayerBlocks = !"false".equals(System.getProperty("sieve.search.layer-block-screen"));
     /**
      * Whether weighted blocks behind a fixed layer are bounded ({@code WeightedScreen.Query#behindLayer}); off
-     * only so a benchmark can time the rule before them side by side ({@link #withoutWeightedLayerBlocks}).
+     * only so a benchmark can time the rule before them side by side ({@link #withEarlierLayerBounds}).
      */
     private boolean weightedLayerBlocks = true;
     /** How requirements the store cannot rank are judged ({@link #searchExactly}); other ways for benchmarks and tests. */
@@ -182,10 +182,11 @@ public class SearchService {
     }
 
     /**
-     * The same service without bounds on weighted blocks behind a fixed layer (the rule before them): the same
-     * answers, more samples judged; for benchmarks and tests that compare both side by side.
+     * The same service with the layer bounds before weighted blocks behind a layer were bounded and the layer
+     * was read per integration point ({@code WeightedScreen.Query#behindLayer}): the same answers, more samples
+     * judged; for benchmarks and tests that compare both side by side.
      */
-    public SearchService withoutWeightedLayerBlocks() {
+    public SearchService withEarlierLayerBounds() {
         this.weightedLayerBlocks = false;
         return this;
     }

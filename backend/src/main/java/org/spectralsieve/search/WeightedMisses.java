@@ -146,7 +146,7 @@ final class WeightedMisses {
             if (clause instanceof WeightedClause w && (layer.isEmpty() || w.direction() == Direction.PASS
                     || layerBlocks && layerBins.isPresent())) {
                 WeightedScreen.Query q = layerBins.isPresent()
-                        ? screen.query(store, w, layerBins.get()).blockBehindLayer(layerBlocks)
+                        ? screen.query(store, w, layerBins.get()).blockBehindLayer(layerBlocks).layerByPoint(layerBlocks)
                         : screen.query(store, w, layerRange);
                 queries.add(reference ? q.withReferenceArithmetic() : q);
                 // on a diffuse sample a see-through clause is unverified (SeeThrough), never a miss

@@ -184,8 +184,10 @@ public final class WeightedScreen {
          */
         final double[] darkest;
         final double reflectance;
+        final Curve curve;
 
-        private LayerBins(double fromNm, double toNm, double[] brightest, double[] darkest, double reflectance) {
+        private LayerBins(Curve curve, double fromNm, double toNm, double[] brightest, double[] darkest, double reflectance) {
+            this.curve = curve;
             this.fromNm = fromNm;
             this.toNm = toNm;
             this.brightest = brightest;
@@ -216,7 +218,7 @@ public final class WeightedScreen {
                 }
             }
             double r = largestReflectance(index, new double[] {layer.minWavelengthNm(), layer.maxWavelengthNm()});
-            return new LayerBins(layer.minWavelengthNm(), layer.maxWavelengthNm(), brightest, darkest, elementReflectance(r));
+            return new LayerBins(layer, layer.minWavelengthNm(), layer.maxWavelengthNm(), brightest, darkest, elementReflectance(r));
         }
 
         /** A layer point that may stand in the block bound: above detection, T in [ε, 1] (so min(T, 1) = T). */
@@ -275,6 +277,8 @@ public final class WeightedScreen {
         private final Powers powers = new Powers();
         private LayerBins layer;
         private boolean layerBlocks = true;
+        private boolean layerPoints = true;
+        private final double[][] layerSharesOfRange = new double[ranges.size()][];
         private boolean reference;
         private int lnBCurve = -1;
         private double lnBOfCurve;
@@ -383,7 +387,9 @@ public final class WeightedScreen {
                 return Double.POSITIVE_INFINITY;
             }
             double gain = (1 + SLACK) / (1 - rho * layer.reflectance);
+            double[] byPoint = layerPoints ? layerShares(curve) : NOT_AVAILABLE;
             double mean = 0;
+            double meanByPoint = 0;
             for (int b = 0; b < BINS; b++) {
                 if (shares[b] > 0) {
                     int code = brightest[b][curve] & 0xFF;
@@ -392,9 +398,39 @@ public final class WeightedScreen {
                         return Double.POSITIVE_INFINITY;
                     }
                     mean += shares[b] * Math.max(T_OF_CODE[code] * second * gain, Curve.ABSORBANCE_FLOOR_T);
+                    if (byPoint.length > 0) {
+                        meanByPoint += byPoint[b] * T_OF_CODE[code] * gain;
+                    }
                 }
             }
+            if (byPoint.length > 0) {
+                // the layer read at each integration point, not at its bin's largest: the smaller bound holds too
+                mean = Math.min(mean, meanByPoint + Curve.ABSORBANCE_FLOOR_T);
+            }
             return Math.log10(Math.max(mean * (1 + SLACK), floor) / threshold);
+        }
+
+        /**
+         * Per bin, Σ aₙ·layerUp(λₙ) / Σ aₙ over the figure's integration points λₙ in the bin, where layerUp(λ)
+         * is the largest max(T, limit) at the ends of the layer's intervals holding λ: the stack points a value at
+         * λ is interpolated from lie in one such interval, so the layer's factor there is at most layerUp(λ). Then
+         * Σₙ aₙ·max(Bₙ·layerUp(λₙ)·gain, ε)/Σ aₙ ≤ Σ_b brightest_b·gain·this_b + ε. Empty where a point has no
+         * layer value (outside the layer: {@link #binShares} gives no shares then either).
+         */
+        private double[] layerShares(int curve) {
+            int range = rangeOfCurve[curve];
+            double[] out = layerSharesOfRange[range];
+            if (out == null) {
+                out = WeightedScreen.layerShares(clause.weighting(), ranges.get(range), layer.curve);
+                layerSharesOfRange[range] = out;
+            }
+            return out;
+        }
+
+        /** Whether {@link #behindLayer} of a pass reads the layer per integration point (on by default; off for the rule before). */
+        public Query layerByPoint(boolean on) {
+            layerPoints = on;
+            return this;
         }
 
         /**
@@ -882,6 +918,66 @@ public final class WeightedScreen {
         } catch (RuntimeException e) {
             return Double.NaN;
         }
+    }
+
+    /**
+     * {@link #binShares} with each integration point's weight times the layer's largest upper reading around it
+     * ({@code Query#layerShares}); empty where {@link #binShares} is, or where a point lies outside the layer.
+     */
+    static double[] layerShares(Weighting weighting, double[] curveRange, Curve layer) {
+        double[][] nodes = integrationNodes(weighting, curveRange);
+        if (nodes == null || nodes[0].length == 0) {
+            return new double[0];
+        }
+        double[] nm = nodes[0];
+        double[] weight = nodes[1];
+        double[] wavelengths = layer.wavelengthsNm();
+        double[] out = new double[BINS];
+        double total = 0;
+        for (int i = 0; i < nm.length; i++) {
+            int bin = binOf(nm[i]);
+            if (bin < 0 || !layer.covers(nm[i])) {
+                return new double[0];
+            }
+            int hit = Arrays.binarySearch(wavelengths, nm[i]);
+            // the intervals holding the point: both around a stored point, else the one it lies in
+            int lo = hit >= 0 ? Math.max(0, hit - 1) : -hit - 2;
+            int hi = hit >= 0 ? Math.min(wavelengths.length - 1, hit + 1) : -hit - 1;
+            double up = 0;
+            for (int j = lo; j <= hi; j++) {
+                up = Math.max(up, Math.max(layer.transmittance(j), layer.detectionLimit(j)));
+            }
+            out[bin] += weight[i] * up;
+            total += weight[i];
+        }
+        if (!(total > 0)) {
+            return new double[0];
+        }
+        for (int b = 0; b < BINS; b++) {
+            out[b] /= total;
+        }
+        return out;
+    }
+
+    /** The figure's integration points {nm, weight} on a curve spanning the range, or null where not available. */
+    private static double[][] integrationNodes(Weighting weighting, double[] curveRange) {
+        double min = curveRange[0];
+        double max = curveRange[1];
+        if (weighting instanceof Weighting.Luminous) {
+            return min <= LuminousTransmittance.FROM_NM && max >= LuminousTransmittance.TO_NM
+                    ? LuminousTransmittance.integrationNodes() : null;
+        }
+        if (weighting instanceof Weighting.Spectral spectral) {
+            double[] span = spectral.rangeNm();
+            double from = Math.max(span[0], min);
+            double to = Math.min(span[1], max);
+            Curve flat = Curve.of(new double[] {min, max}, new double[] {1, 1}, 0);
+            if (!(to > from) || !spectral.figure(flat).available()) {
+                return null;
+            }
+            return WeightedFigures.integrationNodes(spectral.emitter(), spectral.effectiveResponse(), from, to);
+        }
+        return null;
     }
 
     /**
