@@ -50,7 +50,7 @@ import org.springframework.core.io.DefaultResourceLoader;
  * leaves it out) and {@code off} ({@code -Dbench.screenSkipOff=true} leaves it out); and the judging loop
  * ({@link SearchService.Judging}): {@code on} judges by bounds in parallel, {@code on-judging-earlier} the
  * loop before that, {@code on-judging-bounded} by bounds on one thread ({@code -Dbench.screenJudging=earlier,bounded},
- * empty: neither); {@code on-no-layer-blocks} without the bounds on weighted blocks behind a layer
+ * empty: neither); {@code on-earlier-layer-bounds} the layer bounds before weighted blocks behind a layer were bounded and the layer read per point
  * ({@link SearchService#withEarlierLayerBounds}; {@code -Dbench.screenSkipNoLayerBlocks=true} leaves it out).
  * {@code -Dbench.screenModes=measured,solve,layer} picks the variants.
  */
@@ -92,7 +92,7 @@ class WeightedScreenBenchmark {
         }
         if (!Boolean.getBoolean("bench.screenSkipNoLayerBlocks")) {
             // weighted blocks behind a layer not bounded: the rule before them, side by side
-            services.put("on-no-layer-blocks", new SearchService(library).withEarlierLayerBounds());
+            services.put("on-earlier-layer-bounds", new SearchService(library).withEarlierLayerBounds());
         }
         if (!Boolean.getBoolean("bench.screenSkipEarlier")) {
             services.put("earlier", SearchService.withEarlierWeightedScreen(library));

@@ -246,7 +246,7 @@ class WeightedScreenTest {
                 List.of(), Double.NaN, Double.NaN, List.of(2.0)));
         for (int i = 0; i < 150; i++) {
             Curve curve = i % 6 == 5 ? clearCurve(random) : i % 6 == 4 ? coarse(randomCurve(random))
-                    : i % 6 == 3 ? clearPlate(random) : randomCurve(random);
+                    : i % 6 == 3 ? clearPlate(random) : i % 6 == 2 ? withGap(clearPlate(random), random) : randomCurve(random);
             curves.add(curve);
             builder.add(i + 1, material, 2.0, i % 2 == 0, false, indices.get(i % 3), curve);
         }
@@ -255,7 +255,8 @@ class WeightedScreenTest {
         int bounded = 0;
         int checked = 0;
         for (int l = 0; l < 8; l++) {
-            Curve layerCurve = l % 4 == 3 ? clearCurve(random) : l % 4 == 2 ? clearPlate(random) : randomCurve(random);
+            Curve layerCurve = l % 4 == 3 ? clearCurve(random) : l % 4 == 2 ? clearPlate(random)
+                    : l % 4 == 1 ? withGap(clearPlate(random), random) : randomCurve(random);
             RefractiveIndex layerIndex = indices.get(l % 3);
             WeightedScreen.LayerBins bins = WeightedScreen.LayerBins.of(layerCurve, layerIndex);
             double[] thresholds = {1e-4, 0.01, 0.3};
@@ -310,6 +311,25 @@ class WeightedScreenTest {
         for (int i = 0; i < curves.size(); i++) {
             assertThat(off.behindLayer(i, 2.0)).isInfinite();
         }
+    }
+
+    /**
+     * The curve with a stretch of 40–200 points below detection at a high limit (a saturated detector, a gap in the
+     * data): the lower end L reads them at 0, though their stored T is large, so a bound that took them at T fails.
+     */
+    private static Curve withGap(Curve curve, Random random) {
+        int n = curve.size();
+        double[] t = curve.transmittances();
+        boolean[] below = new boolean[n];
+        double[] limits = new double[n];
+        int from = n / 4 + random.nextInt(n / 3);
+        int to = Math.min(n - 1, from + 40 + random.nextInt(160));
+        for (int i = from; i <= to; i++) {
+            below[i] = true;
+            limits[i] = 0.5;
+            t[i] = Math.min(t[i], 0.45);
+        }
+        return Curve.of(curve.wavelengthsNm(), t, below, limits);
     }
 
     /** A clear plate below the ceiling, every 1 nm over 200–900 nm (as a window glass is measured). */
