@@ -112,6 +112,11 @@ public class SearchService {
      * {@code sieve.search.layer-block-screen=false} turns it off, only so a benchmark can time both ways.
      */
     private final boolean screenLayerBlocks = !"false".equals(System.getProperty("sieve.search.layer-block-screen"));
+    /**
+     * Whether weighted blocks behind a fixed layer are bounded ({@code WeightedScreen.Query#behindLayer}); off
+     * only so a benchmark can time the rule before them side by side ({@link #withEarlierLayerBounds}).
+     */
+    private boolean weightedLayerBlocks = true;
     /** How requirements the store cannot rank are judged ({@link #searchExactly}); other ways for benchmarks and tests. */
     private Judging judging = Judging.BOUNDED_PARALLEL;
 
@@ -174,6 +179,16 @@ public class SearchService {
         SearchService service = new SearchService(library);
         service.earlierWeightedScreen = true;
         return service;
+    }
+
+    /**
+     * The same service with the layer bounds before weighted blocks behind a layer were bounded and the layer
+     * was read per integration point ({@code WeightedScreen.Query#behindLayer}): the same answers, more samples
+     * judged; for benchmarks and tests that compare both side by side.
+     */
+    public SearchService withEarlierLayerBounds() {
+        this.weightedLayerBlocks = false;
+        return this;
     }
 
     /**
@@ -376,7 +391,7 @@ public class SearchService {
         if (screenWeighted && earlierWeightedScreen) {
             WeightedMisses.addEarlier(provenMiss, s.store(), requirement, layer, diffuseLayer);
         } else if (screenWeighted) {
-            double[] bounds = WeightedMisses.marginBounds(s.store(), requirement, layer, diffuseLayer);
+            double[] bounds = WeightedMisses.marginBounds(s.store(), requirement, layer, diffuseLayer, weightedLayerBlocks);
             for (int curve = 0; curve < bounds.length; curve++) {
                 if (bounds[curve] < 0) {
                     provenMiss.merge(s.store().sampleId(curve), bounds[curve], Math::min);

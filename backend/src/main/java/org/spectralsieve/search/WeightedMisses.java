@@ -94,13 +94,28 @@ final class WeightedMisses {
      */
     static double[] marginBounds(SpectralStore store, Requirement requirement, Optional<StackLayer> layer,
                                  boolean diffuseLayer) {
-        return marginBounds(store, requirement, layer, diffuseLayer, false, PARALLEL_FROM);
+        return marginBounds(store, requirement, layer, diffuseLayer, true);
+    }
+
+    /**
+     * @param layerBlocks whether weighted blocks behind a fixed layer are bounded
+     *                    ({@code WeightedScreen.Query#behindLayer}); false only so a benchmark can time the rule
+     *                    before them side by side
+     */
+    static double[] marginBounds(SpectralStore store, Requirement requirement, Optional<StackLayer> layer,
+                                 boolean diffuseLayer, boolean layerBlocks) {
+        return marginBounds(store, requirement, layer, diffuseLayer, false, PARALLEL_FROM, layerBlocks);
     }
 
     private static double[] marginBounds(SpectralStore store, Requirement requirement, Optional<StackLayer> layer,
                                          boolean diffuseLayer, boolean reference, int parallelFrom) {
+        return marginBounds(store, requirement, layer, diffuseLayer, reference, parallelFrom, true);
+    }
+
+    private static double[] marginBounds(SpectralStore store, Requirement requirement, Optional<StackLayer> layer,
+                                         boolean diffuseLayer, boolean reference, int parallelFrom, boolean layerBlocks) {
         Optional<WeightedScreen.LayerBins> layerBins = layer.map(l -> WeightedScreen.LayerBins.of(l.curve(), l.index()));
-        if (bounds(store, requirement, layer, layerBins, diffuseLayer, reference, 0, 0) == null) {
+        if (bounds(store, requirement, layer, layerBins, diffuseLayer, reference, layerBlocks, 0, 0) == null) {
             return new double[0]; // no weighted clause the screen can bound
         }
         int size = store.size();
@@ -109,7 +124,7 @@ final class WeightedMisses {
         int parts = reference || size < parallelFrom ? 1 : Math.max(1, Math.min(PARTS, Runtime.getRuntime().availableProcessors()));
         double[] bound = new double[size];
         IntStream.range(0, parts).parallel().forEach(p -> bounds(store, requirement, layer, layerBins, diffuseLayer,
-                reference, (int) ((long) size * p / parts), (int) ((long) size * (p + 1) / parts)).into(bound));
+                reference, layerBlocks, (int) ((long) size * p / parts), (int) ((long) size * (p + 1) / parts)).into(bound));
         return bound;
     }
 
@@ -121,14 +136,17 @@ final class WeightedMisses {
     /** The clauses' queries for curves [from, to), or null when no weighted clause is screened. */
     private static Bounds bounds(SpectralStore store, Requirement requirement, Optional<StackLayer> layer,
                                  Optional<WeightedScreen.LayerBins> layerBins, boolean diffuseLayer, boolean reference,
-                                 int from, int to) {
+                                 boolean layerBlocks, int from, int to) {
         Optional<double[]> layerRange = layer.map(l -> new double[] {l.curve().minWavelengthNm(), l.curve().maxWavelengthNm()});
         WeightedScreen screen = store.weightedScreen();
         List<WeightedScreen.Query> queries = new ArrayList<>();
         List<Boolean> seeThrough = new ArrayList<>();
         for (var clause : requirement.clauses()) {
-            if (clause instanceof WeightedClause w && (layer.isEmpty() || w.direction() == Direction.PASS)) {
-                WeightedScreen.Query q = layerBins.isPresent() ? screen.query(store, w, layerBins.get())
+            // behind a layer a block is bounded only on the stack as measured (Query#behindLayer)
+            if (clause instanceof WeightedClause w && (layer.isEmpty() || w.direction() == Direction.PASS
+                    || layerBlocks && layerBins.isPresent())) {
+                WeightedScreen.Query q = layerBins.isPresent()
+                        ? screen.query(store, w, layerBins.get()).blockBehindLayer(layerBlocks).layerByPoint(layerBlocks)
                         : screen.query(store, w, layerRange);
                 queries.add(reference ? q.withReferenceArithmetic() : q);
                 // on a diffuse sample a see-through clause is unverified (SeeThrough), never a miss

@@ -63,6 +63,11 @@ public final class WeightedScreen {
      * the bound is never tighter than the one formed with {@code exp} (checked by WeightedScreenTest).
      */
     static final double POWER_ROOM = 1e-12;
+    /**
+     * Relative room for a stacked value below the product of its parts' readings: each slab element's inversion
+     * and re-forming, and the chain's arithmetic (10⁻⁶, far above the few roundings involved).
+     */
+    static final double STACK_ROUNDING = 1e-6;
 
     static {
         LN_T_OF_CODE[0] = Double.NEGATIVE_INFINITY;
@@ -171,29 +176,60 @@ public final class WeightedScreen {
         final double fromNm;
         final double toNm;
         final double[] brightest;
+        /**
+         * Per bin, the smallest T at both ends of every layer interval meeting it, so every value the stack reads
+         * from the layer inside the bin (T interpolated in absorbance) is at least it; 0 (no bound) where an end is
+         * below detection (the stack is then below detection there, read as 0 by the lower end L) or has T outside
+         * [ε, 1], or where no interval meets the bin ({@link Query#behindLayer} of a block).
+         */
+        final double[] darkest;
         final double reflectance;
+        final Curve curve;
 
-        private LayerBins(double fromNm, double toNm, double[] brightest, double reflectance) {
+        private LayerBins(Curve curve, double fromNm, double toNm, double[] brightest, double[] darkest, double reflectance) {
+            this.curve = curve;
             this.fromNm = fromNm;
             this.toNm = toNm;
             this.brightest = brightest;
+            this.darkest = darkest;
             this.reflectance = reflectance;
         }
 
         public static LayerBins of(Curve layer, RefractiveIndex index) {
             double[] brightest = new double[BINS];
+            double[] darkest = new double[BINS];
             Arrays.fill(brightest, Double.NaN);
+            Arrays.fill(darkest, Double.POSITIVE_INFINITY);
             for (int i = 0; i + 1 < layer.size(); i++) {
                 double hi = Math.max(Math.max(layer.transmittance(i), layer.detectionLimit(i)),
                         Math.max(layer.transmittance(i + 1), layer.detectionLimit(i + 1)));
+                double lo = usableForBlock(layer, i) && usableForBlock(layer, i + 1)
+                        ? Math.min(layer.transmittance(i), layer.transmittance(i + 1)) : 0;
                 int first = Math.max(0, binOfClamped(layer.wavelengthNm(i)));
                 int last = Math.min(BINS - 1, binOfClamped(layer.wavelengthNm(i + 1)));
                 for (int b = first; b <= last; b++) {
                     brightest[b] = Double.isNaN(brightest[b]) ? hi : Math.max(brightest[b], hi);
+                    darkest[b] = Math.min(darkest[b], lo);
+                }
+            }
+            for (int b = 0; b < BINS; b++) {
+                if (darkest[b] == Double.POSITIVE_INFINITY) {
+                    darkest[b] = 0; // no layer interval meets the bin
                 }
             }
             double r = largestReflectance(index, new double[] {layer.minWavelengthNm(), layer.maxWavelengthNm()});
-            return new LayerBins(layer.minWavelengthNm(), layer.maxWavelengthNm(), brightest, elementReflectance(r));
+            return new LayerBins(layer, layer.minWavelengthNm(), layer.maxWavelengthNm(), brightest, darkest, elementReflectance(r));
+        }
+
+        /** A layer point that may stand in the block bound: above detection, T in [ε, 1] (so min(T, 1) = T). */
+        private static boolean usableForBlock(Curve layer, int i) {
+            double t = layer.transmittance(i);
+            return !layer.belowDetection(i) && t >= Curve.ABSORBANCE_FLOOR_T && t <= 1;
+        }
+
+        /** The layer's smallest T per bin ({@link #darkest}), for tests. */
+        double darkest(int bin) {
+            return darkest[bin];
         }
     }
 
@@ -240,6 +276,9 @@ public final class WeightedScreen {
         private final Surfaces[][] surfacesOf;
         private final Powers powers = new Powers();
         private LayerBins layer;
+        private boolean layerBlocks = true;
+        private boolean layerPoints = true;
+        private final double[][] layerSharesOfRange = new double[ranges.size()][];
         private boolean reference;
         private int lnBCurve = -1;
         private double lnBOfCurve;
@@ -331,8 +370,11 @@ public final class WeightedScreen {
          * measured only lowers every T and limit.
          */
         public double behindLayer(int curve, double judgedMm) {
+            if (!pass) {
+                return blockBehindLayer(curve);
+            }
             double d0 = store.thicknessMm(curve);
-            if (!pass || layer == null || store.isBulk(curve) && !(judgedMm >= d0)) {
+            if (layer == null || store.isBulk(curve) && !(judgedMm >= d0)) {
                 return Double.POSITIVE_INFINITY;
             }
             double[] shares = shares(curve);
@@ -345,7 +387,9 @@ public final class WeightedScreen {
                 return Double.POSITIVE_INFINITY;
             }
             double gain = (1 + SLACK) / (1 - rho * layer.reflectance);
+            double[] byPoint = layerPoints ? layerShares(curve) : NOT_AVAILABLE;
             double mean = 0;
+            double meanByPoint = 0;
             for (int b = 0; b < BINS; b++) {
                 if (shares[b] > 0) {
                     int code = brightest[b][curve] & 0xFF;
@@ -354,9 +398,107 @@ public final class WeightedScreen {
                         return Double.POSITIVE_INFINITY;
                     }
                     mean += shares[b] * Math.max(T_OF_CODE[code] * second * gain, Curve.ABSORBANCE_FLOOR_T);
+                    if (byPoint.length > 0) {
+                        meanByPoint += byPoint[b] * T_OF_CODE[code] * gain;
+                    }
                 }
             }
+            if (byPoint.length > 0) {
+                // the layer read at each integration point, not at its bin's largest: the smaller bound holds too
+                mean = Math.min(mean, meanByPoint + Curve.ABSORBANCE_FLOOR_T);
+            }
             return Math.log10(Math.max(mean * (1 + SLACK), floor) / threshold);
+        }
+
+        /**
+         * Per bin, Σ aₙ·layerUp(λₙ) / Σ aₙ over the figure's integration points λₙ in the bin, where layerUp(λ)
+         * is the largest max(T, limit) at the ends of the layer's intervals holding λ: the stack points a value at
+         * λ is interpolated from lie in one such interval, so the layer's factor there is at most layerUp(λ). Then
+         * Σₙ aₙ·max(Bₙ·layerUp(λₙ)·gain, ε)/Σ aₙ ≤ Σ_b brightest_b·gain·this_b + ε. Empty where a point has no
+         * layer value (outside the layer: {@link #binShares} gives no shares then either).
+         */
+        private double[] layerShares(int curve) {
+            int range = rangeOfCurve[curve];
+            double[] out = layerSharesOfRange[range];
+            if (out == null) {
+                out = WeightedScreen.layerShares(clause.weighting(), ranges.get(range), layer.curve);
+                layerSharesOfRange[range] = out;
+            }
+            return out;
+        }
+
+        /** Whether {@link #behindLayer} of a pass reads the layer per integration point (on by default; off for the rule before). */
+        public Query layerByPoint(boolean on) {
+            layerPoints = on;
+            return this;
+        }
+
+        /**
+         * A block behind the fixed layer, the candidate judged on its measured curve (the caller's rule:
+         * {@code SearchService.keepsProof}, which routes only samples the judgement stacks as measured here), and
+         * only when {@link #blockBehindLayer(boolean) enabled}; +∞ otherwise. A lower bound on the stack's lower
+         * end L (docs/weighted-screening.md, "Weighted blocks behind a fixed layer"):
+         * Σ share_b · D_b · layer_b / max(1, B_b) · (1 − rounding), where D_b is the darkest of bins b − 1, b and
+         * b + 1 (0 when any is 0: a point below detection, a zero, or darker than the code, in the candidate
+         * interval around a value of bin b), B_b the bin's brightest (it holds both ends of that interval on a
+         * regular curve) and layer_b {@link LayerBins#darkest}.
+         */
+        private double blockBehindLayer(int curve) {
+            if (!layerBlocks || layer == null) {
+                return Double.POSITIVE_INFINITY;
+            }
+            double[] shares = shares(curve);
+            if (shares.length == 0 || !regular(curve) || !(layer.reflectance < 1) || !(surfaces(curve).largest < 1)) {
+                return Double.POSITIVE_INFINITY; // no stack the bound can follow, or none at all (an unverified row)
+            }
+            double[] range = ranges.get(rangeOfCurve[curve]);
+            double mean = 0;
+            for (int b : usedBins(curve)) {
+                if (!(shares[b] > 0)) {
+                    continue;
+                }
+                double second = layer.darkest[b];
+                int dark = darkestAround(curve, b, range);
+                if (dark == 0 || !(second > 0)) {
+                    continue; // this bin may read 0: it adds nothing to a lower bound
+                }
+                int bright = brightest[b][curve] & 0xFF;
+                double b1 = bright == 0 ? Curve.MAX_TRANSMITTANCE : Math.max(1, T_OF_CODE[bright]);
+                mean += shares[b] * (T_OF_CODE[dark] * second / b1) * (1 - STACK_ROUNDING);
+            }
+            return Math.log10(threshold / Math.max(mean * (1 - SLACK), floor));
+        }
+
+        /**
+         * The largest darkest code of bins b − 1, b and b + 1 (the darkest T of the three), or 0 (no bound) when
+         * one of them has none. A neighbour bin the curve's range does not meet holds no point and is skipped;
+         * past the first or last bin, the curve must not reach (its points there are in no bin).
+         */
+        private int darkestAround(int curve, int b, double[] range) {
+            int code = 0;
+            for (int n = b - 1; n <= b + 1; n++) {
+                if (n < 0 || n >= BINS) {
+                    if (n < 0 ? range[0] < FIRST_NM : range[1] > FIRST_NM + BINS * BIN_NM) {
+                        return 0;
+                    }
+                    continue;
+                }
+                if (FIRST_NM + n * BIN_NM > range[1] || FIRST_NM + n * BIN_NM + BIN_NM < range[0]) {
+                    continue;
+                }
+                int c = darkest[n][curve] & 0xFF;
+                if (c == 0) {
+                    return 0;
+                }
+                code = Math.max(code, c);
+            }
+            return code;
+        }
+
+        /** Whether {@link #behindLayer} bounds blocks too (on by default; off only to time the rule before). */
+        public Query blockBehindLayer(boolean on) {
+            layerBlocks = on;
+            return this;
         }
 
         /** {@link #asMeasured} for a pass judged at or above {@code thinnestMm} where that is not thinner than measured (else +∞). */
@@ -776,6 +918,66 @@ public final class WeightedScreen {
         } catch (RuntimeException e) {
             return Double.NaN;
         }
+    }
+
+    /**
+     * {@link #binShares} with each integration point's weight times the layer's largest upper reading around it
+     * ({@code Query#layerShares}); empty where {@link #binShares} is, or where a point lies outside the layer.
+     */
+    static double[] layerShares(Weighting weighting, double[] curveRange, Curve layer) {
+        double[][] nodes = integrationNodes(weighting, curveRange);
+        if (nodes == null || nodes[0].length == 0) {
+            return new double[0];
+        }
+        double[] nm = nodes[0];
+        double[] weight = nodes[1];
+        double[] wavelengths = layer.wavelengthsNm();
+        double[] out = new double[BINS];
+        double total = 0;
+        for (int i = 0; i < nm.length; i++) {
+            int bin = binOf(nm[i]);
+            if (bin < 0 || !layer.covers(nm[i])) {
+                return new double[0];
+            }
+            int hit = Arrays.binarySearch(wavelengths, nm[i]);
+            // the intervals holding the point: both around a stored point, else the one it lies in
+            int lo = hit >= 0 ? Math.max(0, hit - 1) : -hit - 2;
+            int hi = hit >= 0 ? Math.min(wavelengths.length - 1, hit + 1) : -hit - 1;
+            double up = 0;
+            for (int j = lo; j <= hi; j++) {
+                up = Math.max(up, Math.max(layer.transmittance(j), layer.detectionLimit(j)));
+            }
+            out[bin] += weight[i] * up;
+            total += weight[i];
+        }
+        if (!(total > 0)) {
+            return new double[0];
+        }
+        for (int b = 0; b < BINS; b++) {
+            out[b] /= total;
+        }
+        return out;
+    }
+
+    /** The figure's integration points {nm, weight} on a curve spanning the range, or null where not available. */
+    private static double[][] integrationNodes(Weighting weighting, double[] curveRange) {
+        double min = curveRange[0];
+        double max = curveRange[1];
+        if (weighting instanceof Weighting.Luminous) {
+            return min <= LuminousTransmittance.FROM_NM && max >= LuminousTransmittance.TO_NM
+                    ? LuminousTransmittance.integrationNodes() : null;
+        }
+        if (weighting instanceof Weighting.Spectral spectral) {
+            double[] span = spectral.rangeNm();
+            double from = Math.max(span[0], min);
+            double to = Math.min(span[1], max);
+            Curve flat = Curve.of(new double[] {min, max}, new double[] {1, 1}, 0);
+            if (!(to > from) || !spectral.figure(flat).available()) {
+                return null;
+            }
+            return WeightedFigures.integrationNodes(spectral.emitter(), spectral.effectiveResponse(), from, to);
+        }
+        return null;
     }
 
     /**

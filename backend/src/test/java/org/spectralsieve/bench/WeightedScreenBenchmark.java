@@ -50,7 +50,9 @@ import org.springframework.core.io.DefaultResourceLoader;
  * leaves it out) and {@code off} ({@code -Dbench.screenSkipOff=true} leaves it out); and the judging loop
  * ({@link SearchService.Judging}): {@code on} judges by bounds in parallel, {@code on-judging-earlier} the
  * loop before that, {@code on-judging-bounded} by bounds on one thread ({@code -Dbench.screenJudging=earlier,bounded},
- * empty: neither). {@code -Dbench.screenModes=measured,solve,layer} picks the variants.
+ * empty: neither); {@code on-earlier-layer-bounds} the layer bounds before weighted blocks behind a layer were bounded and the layer read per point
+ * ({@link SearchService#withEarlierLayerBounds}; {@code -Dbench.screenSkipNoLayerBlocks=true} leaves it out).
+ * {@code -Dbench.screenModes=measured,solve,layer} picks the variants.
  */
 class WeightedScreenBenchmark {
 
@@ -87,6 +89,10 @@ class WeightedScreenBenchmark {
                 default -> throw new IllegalArgumentException("bench.screenJudging: earlier or bounded, not " + way);
             };
             services.put("on-judging-" + way, new SearchService(library).judging(judging));
+        }
+        if (!Boolean.getBoolean("bench.screenSkipNoLayerBlocks")) {
+            // weighted blocks behind a layer not bounded: the rule before them, side by side
+            services.put("on-earlier-layer-bounds", new SearchService(library).withEarlierLayerBounds());
         }
         if (!Boolean.getBoolean("bench.screenSkipEarlier")) {
             services.put("earlier", SearchService.withEarlierWeightedScreen(library));

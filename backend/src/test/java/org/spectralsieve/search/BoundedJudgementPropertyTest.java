@@ -89,6 +89,39 @@ class BoundedJudgementPropertyTest {
     }
 
     @Test
+    void weightedBlocksBehindALayerLeaveOutOnlyMaterialsThatCannotEnter() {
+        // as measured behind the demo glass, where the weighted blocks' lower bound on the stack applies
+        // (docs/weighted-screening.md, "Weighted blocks behind a fixed layer"): the rows of judging every sample,
+        // with and without those bounds, in parallel and on one thread; and fewer samples judged with them
+        Random random = new Random(20261215L);
+        List<Material> materials = library.findMaterials(null, null);
+        SearchService parallel = new SearchService(library).parallelFrom(0);
+        SearchService oneThread = new SearchService(library).judging(SearchService.Judging.BOUNDED);
+        SearchService without = new SearchService(library).withEarlierLayerBounds();
+        int fewer = 0;
+        for (int trial = 0; trial < 10; trial++) {
+            String text = "passes over " + percent(40 + 50 * random.nextDouble()) + " of led "
+                    + new String[] {"365", "385", "405"}[random.nextInt(3)]
+                    + (random.nextBoolean() ? " and uv hazard under " + percent(Math.pow(10, 0.5 - 2.5 * random.nextDouble())) : "")
+                    + (random.nextBoolean() || trial % 3 == 0 ? " and erythemal under " + percent(Math.pow(10, 1 - 3 * random.nextDouble()))
+                    : " and uv hazard under " + percent(Math.pow(10, -1.5 * random.nextDouble())))
+                    + (random.nextBoolean() ? " and luminous over " + percent(30 + 50 * random.nextDouble()) : "")
+                    + ", behind 4 mm clear float glass" + (random.nextInt(4) == 0 ? ", geometry any" : "");
+            Requirement requirement = RequirementParser.parse(text);
+            int limit = new int[] {1, 3, 5, 10, 20}[random.nextInt(5)];
+            Shortlist answer = parallel.search(requirement, limit);
+            List<RankedRow> expected = ExactReference.judgeEverySample(library, requirement, answer.layer(), materials, limit);
+
+            assertThat(answer.rows()).as(text + " (limit " + limit + ")").containsExactlyElementsOf(expected);
+            assertThat(oneThread.search(requirement, limit).rows()).as(text + " one thread").containsExactlyElementsOf(expected);
+            Shortlist before = without.search(requirement, limit);
+            assertThat(before.rows()).as(text + " with the layer bounds before").containsExactlyElementsOf(expected);
+            fewer += answer.judgedExactly() < before.judgedExactly() ? 1 : 0;
+        }
+        assertThat(fewer).as("not vacuous: the bounds leave materials out").isGreaterThan(1);
+    }
+
+    @Test
     void theRowsDoNotDependOnWhereTheParallelLoopStarts() {
         Requirement requirement = RequirementParser.parse("passes over 70% of led 405 and luminous over 50%");
         List<RankedRow> byDefault = new SearchService(library).search(requirement, 5).rows();
