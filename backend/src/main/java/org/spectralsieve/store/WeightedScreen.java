@@ -1049,7 +1049,7 @@ public final class WeightedScreen {
         return code == 0 ? Curve.MAX_TRANSMITTANCE : Math.min(Curve.MAX_TRANSMITTANCE, T_OF_CODE[code]);
     }
 
-    /** The bin whose closed interval holds the wavelength (the lower one on a shared edge); −1 outside. */
+    /** The bin whose closed interval holds the wavelength (the upper one on a shared edge, the last bin at the range's end); −1 outside. */
     private static int binOf(double nm) {
         if (!(nm >= FIRST_NM && nm <= FIRST_NM + BINS * BIN_NM)) {
             return -1;

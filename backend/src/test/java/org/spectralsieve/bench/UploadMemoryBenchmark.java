@@ -146,7 +146,11 @@ class UploadMemoryBenchmark {
             Matcher m = GC_LINE.matcher(line);
             if (m.find()) {
                 before = Math.max(before, Integer.parseInt(m.group(1)));
-                after = Math.max(after, Integer.parseInt(m.group(2)));
+                // only a young collection's "after" is the live heap: G1's Remark and Cleanup pauses free
+                // nothing, so their "after" is the occupancy before, and would overstate the figure
+                if (line.contains("Pause Young")) {
+                    after = Math.max(after, Integer.parseInt(m.group(2)));
+                }
             }
         }
         return new int[] {before, after};
