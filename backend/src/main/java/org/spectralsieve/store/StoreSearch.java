@@ -33,7 +33,9 @@ import org.spectralsieve.requirement.Verdict;
  * <p>Thickness model: the OD of a bulk sample at thickness d is s + a0·d/d0, where s = −2·log10(1 − R)
  * is the loss at the two surfaces and a0 the internal absorbance at the measured thickness d0
  * (Beer–Lambert). This drops the multiple-reflection term of the slab formula, worth at most
- * −log10(1 − R²) (0.0016 decades for n ≤ 1.65); the returned rows are re-evaluated exactly by the caller.
+ * −log10(1 − R²) (0.0016 decades for n ≤ 1.65); the returned rows are re-evaluated exactly by the caller,
+ * and every material whose result could reach the limit-th within that error and the code rounding
+ * ({@link #modelErrorDecades}) is returned too, so the exact judgement makes the cut (docs/store.md).
  * The rule for readings at or near the lossless ceiling is the exact model's ({@link SlabReading}): a
  * reading with OD at most that of C − u keeps its own OD at every thickness, and is an upper bound beyond
  * its far thickness d0·{@link SlabReading#farFactor} (see {@link Plan#unresolvedOd}).
