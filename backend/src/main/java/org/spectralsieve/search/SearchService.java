@@ -255,6 +255,12 @@ public class SearchService {
             exact.addAll(judge(s, material, requirement, Optional.empty(), false));
         }
         List<RankedRow> rows = rank(s, requirement, exact, limit);
+        if (rows.size() >= limit && !picked.exactCutHolds(rows.get(limit - 1).evaluation().standing(),
+                rows.get(limit - 1).evaluation().worstMarginDecades())) {
+            // the store chose its hits assuming the limit-th exact row at least this good: it is not, so a
+            // material left out could rank above it (docs/store.md, "The store's error at the cut")
+            return searchExactly(s, requirement, limit, started, m -> true);
+        }
         double tookMs = (System.nanoTime() - started) / 1e6;
         return new Shortlist(requirement, rows, picked.evaluatedSamples(), exact.size(), tookMs, Optional.empty(),
                 geometries(s, rows), revisions(s, rows), measured(s, rows));

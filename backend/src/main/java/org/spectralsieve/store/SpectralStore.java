@@ -118,6 +118,28 @@ public final class SpectralStore {
 
     private volatile int[][] byMaterial;
 
+    /**
+     * Per material index, its thinnest measured bulk thickness (+∞ when it has no bulk curve): how far the store's
+     * thickness model can stretch one of its readings, which scales the model's error
+     * ({@code StoreSearch.modelErrorDecades}). Worked out once per store.
+     */
+    float[] thinnestBulkByMaterial() {
+        float[] cached = thinnestBulk;
+        if (cached == null) {
+            cached = new float[materials.size()];
+            Arrays.fill(cached, Float.POSITIVE_INFINITY);
+            for (int c = 0; c < size; c++) {
+                if (bulk[c]) {
+                    cached[materialOfCurve[c]] = Math.min(cached[materialOfCurve[c]], thicknessMm[c]);
+                }
+            }
+            thinnestBulk = cached;
+        }
+        return cached;
+    }
+
+    private volatile float[] thinnestBulk;
+
     public boolean isBulk(int curve) {
         return bulk[curve];
     }
