@@ -38,6 +38,7 @@ import org.spectralsieve.requirement.MaterialEvaluation;
 import org.spectralsieve.requirement.RankedRow;
 import org.spectralsieve.requirement.Ranking;
 import org.spectralsieve.requirement.Requirement;
+import org.spectralsieve.requirement.SampleEvaluation;
 import org.spectralsieve.requirement.SampleEvaluator;
 import org.spectralsieve.requirement.SeeThrough;
 import org.spectralsieve.requirement.Standing;
@@ -240,8 +241,10 @@ public class SearchService {
     }
 
     private Shortlist searchOn(Snapshot s, Requirement requirement, int limit, long started) {
-        // a confidence demand can make a wide margin unverified: the store's margins cannot pick those rows
-        if (!requirement.plain() || requirement.asksConfidence()) {
+        // a confidence demand can make a wide margin unverified: the store's margins cannot pick those rows; a
+        // mean over a band the store takes on its grid, the exact evaluator on the curve's own points, with no
+        // bound on the difference, so the store cannot pick those rows either (docs/store.md)
+        if (!requirement.plain() || requirement.asksConfidence() || hasMeanClause(requirement)) {
             return searchExactly(s, requirement, limit, started, m -> true);
         }
         StoreResult picked = StoreSearch.search(s.store(), requirement, limit);
@@ -249,21 +252,40 @@ public class SearchService {
         for (StoreHit hit : picked.hits()) {
             materialIds.add(hit.material().id());
         }
+        // the store holds an unusable sample at a thickness and index of its own: its store result bounds nothing
+        s.unusable().forEach(sampleId -> materialIds.add(s.samples().get(sampleId).materialId()));
         List<MaterialEvaluation> exact = new ArrayList<>();
-        for (long materialId : materialIds) {
-            Material material = s.materials().get(materialId);
-            exact.addAll(judge(s, material, requirement, Optional.empty(), false));
-        }
+        judgeInto(s, requirement, materialIds, exact);
         List<RankedRow> rows = rank(s, requirement, exact, limit);
-        if (rows.size() >= limit && !picked.exactCutHolds(rows.get(limit - 1).evaluation().standing(),
-                rows.get(limit - 1).evaluation().worstMarginDecades())) {
-            // the store chose its hits assuming the limit-th exact row at least this good: it is not, so a
-            // material left out could rank above it (docs/store.md, "The store's error at the cut")
-            return searchExactly(s, requirement, limit, started, m -> true);
+        if (rows.size() >= limit) {
+            // the store's margins are off by a little: every material whose store result could still reach the
+            // exact last row is judged too (docs/store.md, "The store's error at the cut")
+            SampleEvaluation last = rows.get(limit - 1).evaluation();
+            Set<Long> more = new LinkedHashSet<>();
+            for (StoreHit hit : picked.handOver().reaching(last.standing(), last.worstMarginDecades())) {
+                if (!materialIds.contains(hit.material().id())) {
+                    more.add(hit.material().id());
+                }
+            }
+            if (!more.isEmpty()) {
+                judgeInto(s, requirement, more, exact);
+                rows = rank(s, requirement, exact, limit);
+            }
         }
         double tookMs = (System.nanoTime() - started) / 1e6;
         return new Shortlist(requirement, rows, picked.evaluatedSamples(), exact.size(), tookMs, Optional.empty(),
                 geometries(s, rows), revisions(s, rows), measured(s, rows));
+    }
+
+    private void judgeInto(Snapshot s, Requirement requirement, Set<Long> materialIds, List<MaterialEvaluation> exact) {
+        for (long materialId : materialIds) {
+            exact.addAll(judge(s, s.materials().get(materialId), requirement, Optional.empty(), false));
+        }
+    }
+
+    private static boolean hasMeanClause(Requirement requirement) {
+        return requirement.clauses().stream()
+                .anyMatch(c -> c instanceof TransmittanceClause t && t.aggregate() == Aggregate.MEAN);
     }
 
     /**

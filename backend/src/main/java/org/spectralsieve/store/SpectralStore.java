@@ -119,18 +119,16 @@ public final class SpectralStore {
     private volatile int[][] byMaterial;
 
     /**
-     * Per material index, its thinnest measured bulk thickness (+∞ when it has no bulk curve): how far the store's
-     * thickness model can stretch one of its readings, which scales the model's error
-     * ({@code StoreSearch.modelErrorDecades}). Worked out once per store.
+     * The thinnest thickness of any bulk curve (+∞ when there is none): how far the store's thickness model can
+     * stretch a reading, which scales its error ({@link CutReach}). Worked out once per store.
      */
-    float[] thinnestBulkByMaterial() {
-        float[] cached = thinnestBulk;
-        if (cached == null) {
-            cached = new float[materials.size()];
-            Arrays.fill(cached, Float.POSITIVE_INFINITY);
+    double thinnestBulkMm() {
+        double cached = thinnestBulk;
+        if (Double.isNaN(cached)) {
+            cached = Double.POSITIVE_INFINITY;
             for (int c = 0; c < size; c++) {
                 if (bulk[c]) {
-                    cached[materialOfCurve[c]] = Math.min(cached[materialOfCurve[c]], thicknessMm[c]);
+                    cached = Math.min(cached, thicknessMm[c]);
                 }
             }
             thinnestBulk = cached;
@@ -138,7 +136,7 @@ public final class SpectralStore {
         return cached;
     }
 
-    private volatile float[] thinnestBulk;
+    private volatile double thinnestBulk = Double.NaN;
 
     public boolean isBulk(int curve) {
         return bulk[curve];

@@ -4,31 +4,35 @@ import java.util.List;
 import org.spectralsieve.requirement.Standing;
 
 /**
- * @param hits             the best materials by the store's model, as many as asked plus every other whose
- *                         store result could, within the store model's error, reach the last of them
- *                         (docs/store.md, "The store's error at the cut"); the exact judgement ranks and cuts them
+ * @param hits             the best materials by the store's model, as many as asked plus any tied with the
+ *                         last of them (the exact ranking breaks such ties by confidence, which the store
+ *                         does not see)
  * @param evaluatedSamples samples the requirement was evaluated on (after class and geometry filters)
  * @param refinedSamples   of those, how many needed the full evaluation of every probe (the rest were
- *                         ruled out by the bound from their point probes)
- * @param floorStanding    the least group the limit-th material's exact result was assumed to reach when the hits
- *                         were chosen; null when fewer materials than asked were found (every one is a hit)
- * @param floorMargin      with it, the least margin assumed (NaN: none)
+ *                         ruled out by the bound from their point probes) before any {@link HandOver}
+ * @param handOver         the materials beyond the hits that could still reach a given exact result
  */
-public record StoreResult(List<StoreHit> hits, int evaluatedSamples, int refinedSamples, Standing floorStanding,
-                          double floorMargin) {
+public record StoreResult(List<StoreHit> hits, int evaluatedSamples, int refinedSamples, HandOver handOver) {
 
     public StoreResult {
         hits = List.copyOf(hits);
     }
 
     /**
-     * Whether the exact limit-th row is at least the assumed floor: then no material left out can rank above it
-     * (its exact margin lies below the floor's). When not, the hits may miss a material: judge every sample.
+     * The store's margins are not the exact evaluator's (codes rounded; multiple reflections left out of its
+     * thickness model), so two materials nearer than that error can swap at the shortlist's last row. The caller
+     * judges the hits exactly and asks, with its {@code limit}-th exact row, for every further material whose
+     * store result could reach it within the error (docs/store.md, "The store's error at the cut"). Judging those
+     * too, the caller's top {@code limit} equals judging every sample. Called once, from one thread.
      */
-    public boolean exactCutHolds(Standing standing, double margin) {
-        if (floorStanding == null || standing.ordinal() < floorStanding.ordinal()) {
-            return true;
-        }
-        return standing == floorStanding && (Double.isNaN(floorMargin) || margin >= floorMargin);
+    public interface HandOver {
+
+        /**
+         * @param standing the group of the exact {@code limit}-th row
+         * @param margin   its worst margin in decades (NaN: none)
+         * @return materials not among the hits (nor an earlier answer) whose store result, raised by the store
+         *         model's error, reaches that row; in the store's material order
+         */
+        List<StoreHit> reaching(Standing standing, double margin);
     }
 }

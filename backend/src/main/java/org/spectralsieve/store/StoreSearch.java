@@ -4,6 +4,10 @@ import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.HashMap;
 import java.util.Map;
+import java.util.Set;
+import java.util.TreeSet;
+import java.util.HashSet;
+import java.util.function.IntFunction;
 import java.util.Comparator;
 import java.util.List;
 import java.util.stream.IntStream;
@@ -33,9 +37,7 @@ import org.spectralsieve.requirement.Verdict;
  * <p>Thickness model: the OD of a bulk sample at thickness d is s + a0·d/d0, where s = −2·log10(1 − R)
  * is the loss at the two surfaces and a0 the internal absorbance at the measured thickness d0
  * (Beer–Lambert). This drops the multiple-reflection term of the slab formula, worth at most
- * −log10(1 − R²) (0.0016 decades for n ≤ 1.65); the returned rows are re-evaluated exactly by the caller,
- * and every material whose result could reach the limit-th within that error and the code rounding
- * ({@link #modelErrorDecades}) is returned too, so the exact judgement makes the cut (docs/store.md).
+ * −log10(1 − R²) (0.0016 decades for n ≤ 1.65); the returned rows are re-evaluated exactly by the caller.
  * The rule for readings at or near the lossless ceiling is the exact model's ({@link SlabReading}): a
  * reading with OD at most that of C − u keeps its own OD at every thickness, and is an upper bound beyond
  * its far thickness d0·{@link SlabReading#farFactor} (see {@link Plan#unresolvedOd}).
@@ -179,8 +181,13 @@ public final class StoreSearch {
         for (int curve : pass.best) {
             refinement.add(curve, full);
         }
-        refineEveryReaching(refinement, limit, exhaustive, full, cut -> reaching(bound, eligible, cut));
-        return refinement.result(limit, pass.eligibleCount);
+        int cut = exhaustive ? Integer.MIN_VALUE : refinement.kthBestMaterialKey(limit);
+        for (int curve : reaching(bound, eligible, cut)) {
+            if (!refinement.evaluations.containsKey(curve)) {
+                refinement.add(curve, full);
+            }
+        }
+        return refinement.result(limit, pass.eligibleCount, full, at -> reaching(bound, eligible, at));
     }
 
     /**
@@ -203,8 +210,12 @@ public final class StoreSearch {
         for (int curve : best) {
             refinement.add(curve, full);
         }
-        refineEveryReaching(refinement, limit, false, full, scan::reaching);
-        return refinement.result(limit, scan.eligibleCount());
+        for (int curve : scan.reaching(refinement.kthBestMaterialKey(limit))) {
+            if (!refinement.evaluations.containsKey(curve)) {
+                refinement.add(curve, full);
+            }
+        }
+        return refinement.result(limit, scan.eligibleCount(), full, scan::reaching);
     }
 
     /** The first pass's count of admitted curves and its best {@code count} curves by bound. */
@@ -470,17 +481,13 @@ public final class StoreSearch {
         for (int curve : bestByBound(bound, eligible, limit * FIRST_CUT_FACTOR)) {
             refinement.add(curve, full);
         }
-        refineEveryReaching(refinement, limit, exhaustive, full, cut -> {
-            int[] found = new int[n];
-            int count = 0;
-            for (int curve = 0; curve < n; curve++) {
-                if (eligible[curve] && bound[curve] >= cut) {
-                    found[count++] = curve;
-                }
+        int cut = exhaustive ? Integer.MIN_VALUE : refinement.kthBestMaterialKey(limit);
+        for (int curve = 0; curve < n; curve++) {
+            if (eligible[curve] && bound[curve] >= cut && !refinement.evaluations.containsKey(curve)) {
+                refinement.add(curve, full);
             }
-            return Arrays.copyOf(found, count);
-        });
-        return refinement.result(limit, eligibleCount);
+        }
+        return refinement.result(limit, eligibleCount, full, at -> reaching(bound, eligible, at));
     }
 
     /**
@@ -653,93 +660,10 @@ public final class StoreSearch {
         }
     }
 
-    /**
-     * Evaluates every curve whose bound reaches the hand-over cut of the limit-th material so far, again while
-     * that cut falls (it may, when the limit-th result moves near a margin of 0, {@link Keys#lowestReaching}):
-     * afterwards every curve whose bound reaches the final cut is evaluated, so the hits are those of
-     * evaluating every curve.
-     */
-    private void refineEveryReaching(Refinement refinement, int limit, boolean exhaustive, CurveModel full,
-                                     java.util.function.IntFunction<int[]> reachingAt) {
-        int used = Integer.MAX_VALUE;
-        while (true) {
-            int cut = exhaustive ? Integer.MIN_VALUE : handOverCut(refinement.kthBestMaterialKey(limit));
-            if (cut >= used) {
-                return;
-            }
-            for (int curve : reachingAt.apply(cut)) {
-                if (!refinement.evaluations.containsKey(curve)) {
-                    refinement.add(curve, full);
-                }
-            }
-            used = cut;
-        }
-    }
-
-    /**
-     * The lowest store key a curve may have and still, within the store model's error, reach the exact margin the
-     * {@code limit}-th material could have ({@link Keys#lowestReaching}); {@code Integer.MIN_VALUE} stays.
-     */
-    private int handOverCut(int kthKey) {
-        return kthKey == Integer.MIN_VALUE ? kthKey
-                : Keys.lowestReaching(Keys.pessimistic(kthKey, plan.errorDecades).key(), plan.errorDecades);
-    }
-
-    /**
-     * The largest difference, in decades, between a margin in the store's model and the exact evaluator's on the
-     * same reading (proof in docs/store.md, "The store's error at the cut"): half an OD step of code rounding and
-     * the float thickness, plus, where a reading is taken to another thickness, the slab's multiple-reflection
-     * term −log10(1 − R²) at both thicknesses, all scaled by the largest stretch d/d0 a bulk curve can get.
-     */
-    static double modelErrorDecades(SpectralStore store, List<CompiledClause> clauses, double[][][] surfaceLoss,
-                                    ThicknessSpec thickness) {
-        double rounding = OdCode.STEP / 2 + 1e-6; // 1e-6: float thickness × at most 6.6 decades, with room
-        if (thickness.kind() == ThicknessSpec.Kind.AS_MEASURED) {
-            return rounding;
-        }
-        double reflections = 0;
-        for (double[][] model : surfaceLoss) {
-            for (double[] clause : model) {
-                for (double loss : clause) {
-                    double reflectance = 1 - Math.pow(10, -loss / 2);
-                    reflections = Math.max(reflections, -Math.log10(1 - reflectance * reflectance));
-                }
-            }
-        }
-        return (rounding + reflections) * largestStretch(store, thickness);
-    }
-
-    /**
-     * The largest d/d0 (at least 1) a bulk curve is read at: d the asked thickness, or over a range the farther
-     * end the material is judged at (the asked range cut to its made thicknesses, plus the nominal tolerance),
-     * d0 the material's thinnest bulk sample; materials not made there are not rescaled at all.
-     */
-    private static double largestStretch(SpectralStore store, ThicknessSpec thickness) {
-        float[] thinnest = store.thinnestBulkByMaterial();
-        double largest = 1;
-        for (int m = 0; m < thinnest.length; m++) {
-            if (thinnest[m] == Float.POSITIVE_INFINITY) {
-                continue;
-            }
-            MadeThicknesses made = store.materialAt(m).made();
-            double farthestMm;
-            if (thickness.kind() == ThicknessSpec.Kind.FIXED) {
-                farthestMm = made.makes(thickness.minMm()) ? thickness.minMm() : 0;
-            } else {
-                ThicknessInterval within = made.within(thickness.minMm(), thickness.maxMm());
-                farthestMm = within == null ? 0 : within.hiMm() + 2 * NominalThickness.toleranceMm(within.hiMm());
-            }
-            largest = Math.max(largest, farthestMm / thinnest[m]);
-        }
-        return largest;
-    }
-
     /** The curves evaluated on every probe, and the best of them per material. */
     private final class Refinement {
         final Map<Integer, Evaluation> evaluations = new HashMap<>();
         final Map<Integer, Integer> bestCurveOfMaterial = new HashMap<>();
-        /** The store key of the limit-th material, set by {@link #topRows}; null when there are fewer. */
-        Integer limitKey;
 
         void add(int curve, CurveModel full) {
             Evaluation e = full.load(curve).best();
@@ -757,12 +681,48 @@ public final class StoreSearch {
             return keys[keys.length - limit];
         }
 
-        StoreResult result(int limit, int eligibleCount) {
+        /**
+         * The top rows, and the hand-over the caller asks with its exact {@code limit}-th row ({@link CutReach}):
+         * every curve whose bound could reach that row within the largest error is evaluated, and a material is
+         * handed over when one of its evaluated curves reaches it within that curve's own error.
+         */
+        StoreResult result(int limit, int eligibleCount, CurveModel full, IntFunction<int[]> reachingAt) {
             List<StoreHit> rows = topRows(limit);
-            // the least the limit-th material's exact result can be, for SearchService to check (StoreResult)
-            Keys.Floor floor = limitKey == null ? null : Keys.pessimistic(limitKey, plan.errorDecades);
-            return new StoreResult(rows, eligibleCount, evaluations.size(), floor == null ? null : floor.standing(),
-                    floor == null ? Double.NaN : floor.margin());
+            int refined = evaluations.size();
+            Set<Integer> handed = new HashSet<>();
+            for (StoreHit hit : rows) {
+                handed.add(store.materialIndex(hit.curve()));
+            }
+            StoreResult.HandOver handOver = (standing, margin) -> {
+                int exactKey = Keys.of(standing, margin);
+                CutReach reach = CutReach.of(store, plan.surfaceLoss, plan.thickness);
+                for (int curve : reachingAt.apply(CutReach.lowestReachingKey(exactKey, reach.largestError()))) {
+                    if (!evaluations.containsKey(curve)) {
+                        add(curve, full);
+                    }
+                }
+                TreeSet<Integer> more = new TreeSet<>();
+                evaluations.forEach((curve, e) -> {
+                    int material = store.materialIndex(curve);
+                    if (!handed.contains(material) && CutReach.reaches(e.key(), reach.errorOf(curve), exactKey)) {
+                        more.add(material);
+                    }
+                });
+                handed.addAll(more);
+                List<StoreHit> hits = new ArrayList<>();
+                for (int material : more) {
+                    hits.add(hitOf(material));
+                }
+                return hits;
+            };
+            return new StoreResult(rows, eligibleCount, refined, handOver);
+        }
+
+        private StoreHit hitOf(int material) {
+            int curve = bestCurveOfMaterial.get(material);
+            Evaluation e = evaluations.get(curve);
+            return new StoreHit(curve, store.sampleId(curve), store.materialAt(material), e.verdict(), e.worstMargin(),
+                    e.thicknessMm(), e.thicknessRange());
         }
 
         List<StoreHit> topRows(int limit) {
@@ -771,23 +731,16 @@ public final class StoreSearch {
             materials.sort(Comparator.<Integer>comparingInt(m -> -evaluations.get(bestCurveOfMaterial.get(m)).key())
                     .thenComparing(m -> store.materialAt(m).name())
                     .thenComparingLong(m -> store.sampleId(bestCurveOfMaterial.get(m))));
-            // materials whose key could, within the store model's error, reach the limit-th material's exact
-            // margin come too: the exact judgement ranks and cuts them (this includes keys tied with the last
-            // row's: the exact ranking orders equal margins by confidence, which the store does not see)
+            // materials tied with the last row's key come too: the exact ranking orders equal margins by
+            // confidence (RankingOrder), which the store does not see, so it must not choose among them
             int end = Math.min(limit, materials.size());
-            limitKey = end < limit ? null : evaluations.get(bestCurveOfMaterial.get(materials.get(end - 1))).key();
-            int reach = end == 0 ? Integer.MAX_VALUE
-                    : handOverCut(evaluations.get(bestCurveOfMaterial.get(materials.get(end - 1))).key());
-            while (end > 0 && end < materials.size()
-                    && evaluations.get(bestCurveOfMaterial.get(materials.get(end))).key() >= reach) {
+            while (end > 0 && end < materials.size() && evaluations.get(bestCurveOfMaterial.get(materials.get(end))).key()
+                    == evaluations.get(bestCurveOfMaterial.get(materials.get(end - 1))).key()) {
                 end++;
             }
             List<StoreHit> hits = new ArrayList<>();
             for (int m : materials.subList(0, end)) {
-                int curve = bestCurveOfMaterial.get(m);
-                Evaluation e = evaluations.get(curve);
-                hits.add(new StoreHit(curve, store.sampleId(curve), store.materialAt(m), e.verdict(), e.worstMargin(),
-                        e.thicknessMm(), e.thicknessRange()));
+                hits.add(hitOf(m));
             }
             return hits;
         }
@@ -877,7 +830,7 @@ public final class StoreSearch {
      * {@link Standing} best first, then the margin in 1e-4 decades, NaN lowest within its group.
      */
     static final class Keys {
-        private static final double UNIT = 1e-4;
+        static final double UNIT = 1e-4;
         private static final int SPAN = 1 << 28;
         private static final int GROUPS = Standing.values().length;
 
@@ -896,75 +849,12 @@ public final class StoreSearch {
         }
 
         /** The key's margin unit k: its margins lie in [k·UNIT, (k + 1)·UNIT); the group's lowest unit holds NaN. */
-        private static int unitOf(int key) {
+        static int unitOf(int key) {
             return Math.floorMod(key + SPAN / 2, SPAN) - SPAN / 2;
         }
 
-        private static boolean marginUnknown(int key) {
+        static boolean marginUnknown(int key) {
             return unitOf(key) == -SPAN / 2;
-        }
-
-        /**
-         * The highest key the exact result can have when the store's is {@code key} and each margin is off by at
-         * most {@code error} decades: the same group, the margin raised by it. A result without a margin (not
-         * judged, NaN) is not moved: no reading decides it. A verdict that flips with its margin's sign is left
-         * to {@link #lowestReaching}. Rises with the key.
-         */
-        static int optimistic(int key, double error) {
-            Standing standing = standingOf(key);
-            if (marginUnknown(key) || standing == Standing.NOT_JUDGED) {
-                return key;
-            }
-            return of(standing, (unitOf(key) + 1) * UNIT + error);
-        }
-
-        /**
-         * The least exact result assumed for the store's {@code key}: the same group, the margin lowered by
-         * {@code error}. That the group holds is an assumption (a margin within the error of 0, or a reading at
-         * the clear-reading limit, may move it): {@code SearchService} checks it on the exact rows and judges
-         * every sample when it fails.
-         */
-        static Floor pessimistic(int key, double error) {
-            Standing standing = standingOf(key);
-            if (marginUnknown(key) || standing == Standing.NOT_JUDGED) {
-                return new Floor(standing, Double.NaN);
-            }
-            return new Floor(standing, unitOf(key) * UNIT - error);
-        }
-
-        /**
-         * The lowest key whose {@link #optimistic} result reaches {@code floorKey}: every store key from it up
-         * is handed over. Within the floor's group by a binary search ({@link #optimistic} keeps the group and
-         * rises with the key). When the floor meets (or is unverified) by less than the error, a miss within the
-         * error of 0 could meet exactly: then every key from the misses' near-zero margins up.
-         */
-        static int lowestReaching(int floorKey, double error) {
-            Standing standing = standingOf(floorKey);
-            if (marginUnknown(floorKey) || standing == Standing.NOT_JUDGED) {
-                return floorKey;
-            }
-            if ((standing == Standing.MEETS || standing == Standing.UNVERIFIED)
-                    && unitOf(floorKey) * UNIT <= error + UNIT) {
-                return of(Standing.MISSES_ON_BOUND, -error - UNIT);
-            }
-            int lo = of(standing, Double.NaN);
-            int hi = floorKey;
-            while (lo < hi) {
-                int mid = lo + (hi - lo) / 2;
-                if (optimistic(mid, error) >= floorKey) {
-                    hi = mid;
-                } else {
-                    lo = mid + 1;
-                }
-            }
-            return lo;
-        }
-
-        /** A result in the exact ranking's terms: a group and a margin (NaN: none). */
-        record Floor(Standing standing, double margin) {
-            int key() {
-                return of(standing, margin);
-            }
         }
     }
 
@@ -1006,8 +896,6 @@ public final class StoreSearch {
         final double[][] pointProbeUnresolvedOd;
         /** Whether this plan serves the reference path (the earlier scan, kept for comparison). */
         boolean reference;
-        /** {@link #modelErrorDecades} for this requirement and store. */
-        double errorDecades;
         /** From this many curves on, the scan and the spans run in parallel. */
         int parallelMinCurves = PARALLEL_MIN_CURVES;
         /** From this many curves on, a search judged as measured reads one column first ({@link ColumnFirstScan}). */
@@ -1085,7 +973,6 @@ public final class StoreSearch {
             Plan plan = new Plan(List.copyOf(clauses), r.thickness(), r.materialClass().orElse(null), total, loss,
                     unresolved);
             plan.reference = reference;
-            plan.errorDecades = modelErrorDecades(store, plan.clauses, loss, r.thickness());
             plan.parallelMinCurves = parallelMinCurves;
             plan.spanStore = store;
             // the reworked scan works spans out when it knows its path: all of them for the chunk scan

@@ -1,0 +1,156 @@
+package org.spectralsieve.store;
+
+import org.spectralsieve.requirement.NominalThickness;
+import org.spectralsieve.requirement.Standing;
+import org.spectralsieve.requirement.ThicknessSpec;
+import org.spectralsieve.store.StoreSearch.Keys;
+
+/**
+ * Which store results could still reach a given exact result, once the store model's error is allowed for
+ * (docs/store.md, "The store's error at the cut").
+ *
+ * <p>The store picks materials by its own margins, which differ from the exact evaluator's by a little: codes
+ * rounded to 2·10⁻⁴ decades, and where a reading is taken to another thickness the slab's multiple-reflection
+ * term, which the store's straight-line thickness model leaves out. The service judges the store's first picks
+ * exactly; the {@code limit}-th exact row is then a floor no material left out may reach. A material is left
+ * out only when none of its results, raised by its error, reaches that floor. Only this upper side of the error
+ * matters: the floor itself is an exact result, not an estimate.
+ */
+final class CutReach {
+
+    /** Half a code step (2·10⁻⁴ decades), plus the float thickness (relative 6·10⁻⁸ times at most 6.6 decades). */
+    static final double ROUNDING_DECADES = OdCode.STEP / 2 + 1e-6;
+
+    private final double perStretch;
+    private final double farMm;
+    private final boolean asMeasured;
+    private final SpectralStore store;
+
+    private CutReach(SpectralStore store, double perStretch, double farMm, boolean asMeasured) {
+        this.store = store;
+        this.perStretch = perStretch;
+        this.farMm = farMm;
+        this.asMeasured = asMeasured;
+    }
+
+    /**
+     * The error model of one search: the largest multiple-reflection term −log10(1 − R²) over every probe's
+     * surface reflectance in the store's index models, and the farthest thickness a reading may be taken to
+     * (the asked thickness, or the range's far end plus two nominal tolerances, as the solver may read there).
+     *
+     * @param surfaceLoss the plan's losses s = −2·log10(1 − R) per index model, clause and probe
+     */
+    static CutReach of(SpectralStore store, double[][][] surfaceLoss, ThicknessSpec thickness) {
+        boolean asMeasured = thickness.kind() == ThicknessSpec.Kind.AS_MEASURED;
+        double reflections = 0;
+        for (double[][] model : surfaceLoss) {
+            for (double[] clause : model) {
+                for (double loss : clause) {
+                    double reflectance = 1 - Math.pow(10, -loss / 2);
+                    reflections = Math.max(reflections, -Math.log10(1 - reflectance * reflectance));
+                }
+            }
+        }
+        double farMm = asMeasured ? 0
+                : thickness.kind() == ThicknessSpec.Kind.FIXED ? thickness.minMm()
+                : thickness.maxMm() + 2 * NominalThickness.toleranceMm(thickness.maxMm());
+        return new CutReach(store, ROUNDING_DECADES + reflections, farMm, asMeasured);
+    }
+
+    /**
+     * How far, in decades, the exact margin of this curve can lie above the store's: the rounding as measured or
+     * for a curve never rescaled; otherwise (rounding + reflections) · max(1, d/d0), d0 the curve's own thickness.
+     * Why the stretch: the store takes the internal absorbance a0 = OD0 − s from the rounded reading and scales it
+     * by d/d0, so both the rounding and the reflections left out of a0 are scaled with it.
+     */
+    double errorOf(int curve) {
+        if (asMeasured || !store.isBulk(curve)) {
+            return ROUNDING_DECADES;
+        }
+        return perStretch * Math.max(1, farMm / store.thicknessMm(curve));
+    }
+
+    /** The largest {@link #errorOf} any curve of the store can have (its thinnest bulk curve sets it). */
+    double largestError() {
+        if (asMeasured) {
+            return ROUNDING_DECADES;
+        }
+        return perStretch * Math.max(1, farMm / store.thinnestBulkMm());
+    }
+
+    /**
+     * Whether a store result could be, exactly, at least as good as {@code exactKey} when its margin may be up to
+     * {@code error} decades higher. Within a group the margin rises by the error. A result may also change group
+     * where a reading's margin crosses 0 within the error: a miss, or an unverified result whose margin is below 0
+     * (a block judged on a reading below the detection limit), may then meet. A result without a margin (NaN, not
+     * judged) stays as it is: no reading decides it.
+     */
+    static boolean reaches(int storeKey, double error, int exactKey) {
+        return raised(storeKey, error) >= exactKey;
+    }
+
+    /** The highest key the exact result can have when the store's is {@code key} (see {@link #reaches}). */
+    static int raised(int key, double error) {
+        Standing standing = Keys.standingOf(key);
+        if (Keys.marginUnknown(key) || standing == Standing.NOT_JUDGED) {
+            return key;
+        }
+        int unit = Keys.unitOf(key);
+        double highest = (unit + 1) * Keys.UNIT + error;
+        return switch (standing) {
+            case MEETS -> Keys.of(Standing.MEETS, highest);
+            case UNVERIFIED -> Keys.of(unit < 0 && highest >= 0 ? Standing.MEETS : Standing.UNVERIFIED, highest);
+            // a miss's worst margin is that of a reading that misses, below 0: only that much can be raised
+            case MISSES, MISSES_ON_BOUND -> {
+                double raisedMiss = Math.min(unit + 1, 0) * Keys.UNIT + error;
+                yield Keys.of(raisedMiss >= 0 ? Standing.MEETS : Standing.MISSES, raisedMiss);
+            }
+            case NOT_JUDGED -> key;
+        };
+    }
+
+    /**
+     * The lowest store key whose result, raised by at most {@code error}, could reach {@code exactKey}: every
+     * curve whose bound is below it is left out unseen. Worked out group by group, lowest group first: a group
+     * ranked above the exact result reaches whole; its own group from the margin {@code error} (and a unit) below;
+     * a lower group only by the change to "meets" near a margin of 0 ({@link #raised}).
+     */
+    static int lowestReachingKey(int exactKey, double error) {
+        Standing target = Keys.standingOf(exactKey);
+        double margin = Keys.marginUnknown(exactKey) ? Double.NaN : Keys.unitOf(exactKey) * Keys.UNIT;
+        int lowest = Integer.MAX_VALUE;
+        for (Standing group : Standing.values()) {
+            int from = lowestReachingIn(group, target, margin, error);
+            if (from != Integer.MAX_VALUE) {
+                lowest = Math.min(lowest, from);
+            }
+        }
+        return lowest;
+    }
+
+    private static int lowestReachingIn(Standing group, Standing target, double margin, double error) {
+        int targetRank = Keys.of(target, Double.NaN);
+        int nanKey = Keys.of(group, Double.NaN);
+        int lowestWithMargin = nanKey + 1;
+        // without a change of sign a miss of either kind rises at most to MISSES ({@link #raised})
+        int risesTo = Keys.of(group == Standing.MISSES_ON_BOUND ? Standing.MISSES : group, Double.NaN);
+        double below = error + 2 * Keys.UNIT; // the error, the key's unit, and a unit of floating-point room
+        if (risesTo > targetRank) {
+            // ranked above the exact result once raised: every result with a margin; the NaN one stays put
+            return nanKey > targetRank || (nanKey == targetRank) ? nanKey : lowestWithMargin;
+        }
+        if (risesTo == targetRank) {
+            if (Double.isNaN(margin)) {
+                return nanKey >= targetRank ? nanKey : lowestWithMargin;
+            }
+            return Math.max(lowestWithMargin, Keys.of(group, margin - below));
+        }
+        // ranked below: reaches only by turning into "meets" where its margin crosses 0 within the error
+        boolean mayMeet = group == Standing.UNVERIFIED || group == Standing.MISSES || group == Standing.MISSES_ON_BOUND;
+        double needed = target == Standing.MEETS && !Double.isNaN(margin) ? Math.max(0, margin) : 0;
+        if (!mayMeet || needed - below >= 0) {
+            return Integer.MAX_VALUE;
+        }
+        return Math.max(lowestWithMargin, Keys.of(group, needed - below));
+    }
+}
