@@ -110,16 +110,22 @@ final class CutReach {
     }
 
     /**
-     * The lowest store key whose result, raised by at most {@code error}, could reach {@code exactKey}: every
-     * curve whose bound is below it is left out unseen. Worked out group by group, lowest group first: a group
-     * ranked above the exact result reaches whole; its own group from the margin {@code error} (and a unit) below;
-     * a lower group only by the change to "meets" near a margin of 0 ({@link #raised}).
+     * The lowest first-pass bound whose curve could, raised by at most {@code error}, reach {@code exactKey}: every
+     * curve whose bound is below it is left out unseen. Why a bound may stand for the curve: the bound is the
+     * store's result over fewer readings (the point probes), so the exact result over all readings is at most the
+     * exact result over those, which is at most the bound raised by the error. A bound is never "misses on a bound"
+     * (the point probes alone give a plain miss, {@code CurveModel}), so that group is not searched: were it, its
+     * key would sit below every plain miss and the cut would take them all.
+     *
+     * <p>Worked out group by group: a group ranked above the exact result reaches whole; its own group from the
+     * margin {@code error} (and a unit) below; a lower group only by the change to "meets" near a margin of 0
+     * ({@link #raised}).
      */
     static int lowestReachingKey(int exactKey, double error) {
         Standing target = Keys.standingOf(exactKey);
         double margin = Keys.marginUnknown(exactKey) ? Double.NaN : Keys.unitOf(exactKey) * Keys.UNIT;
         int lowest = Integer.MAX_VALUE;
-        for (Standing group : Standing.values()) {
+        for (Standing group : new Standing[] {Standing.MEETS, Standing.UNVERIFIED, Standing.MISSES, Standing.NOT_JUDGED}) {
             int from = lowestReachingIn(group, target, margin, error);
             if (from != Integer.MAX_VALUE) {
                 lowest = Math.min(lowest, from);
@@ -132,8 +138,7 @@ final class CutReach {
         int targetRank = Keys.of(target, Double.NaN);
         int nanKey = Keys.of(group, Double.NaN);
         int lowestWithMargin = nanKey + 1;
-        // without a change of sign a miss of either kind rises at most to MISSES ({@link #raised})
-        int risesTo = Keys.of(group == Standing.MISSES_ON_BOUND ? Standing.MISSES : group, Double.NaN);
+        int risesTo = nanKey;
         double below = error + 2 * Keys.UNIT; // the error, the key's unit, and a unit of floating-point room
         if (risesTo > targetRank) {
             // ranked above the exact result once raised: every result with a margin; the NaN one stays put
@@ -146,7 +151,7 @@ final class CutReach {
             return Math.max(lowestWithMargin, Keys.of(group, margin - below));
         }
         // ranked below: reaches only by turning into "meets" where its margin crosses 0 within the error
-        boolean mayMeet = group == Standing.UNVERIFIED || group == Standing.MISSES || group == Standing.MISSES_ON_BOUND;
+        boolean mayMeet = group == Standing.UNVERIFIED || group == Standing.MISSES;
         double needed = target == Standing.MEETS && !Double.isNaN(margin) ? Math.max(0, margin) : 0;
         if (!mayMeet || needed - below >= 0) {
             return Integer.MAX_VALUE;

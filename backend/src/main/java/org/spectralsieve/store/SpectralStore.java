@@ -146,6 +146,11 @@ public final class SpectralStore {
         return totalGeometry[curve];
     }
 
+    /** The refractive index the curve's material is held with (the exact judgement's, unless the record is unusable). */
+    public RefractiveIndex indexOf(int curve) {
+        return indexModels.get(indexModelOfCurve[curve]);
+    }
+
     RefractiveIndex indexModel(int model) {
         return indexModels.get(model);
     }

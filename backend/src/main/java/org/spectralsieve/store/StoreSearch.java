@@ -2,14 +2,14 @@ package org.spectralsieve.store;
 
 import java.util.ArrayList;
 import java.util.Arrays;
+import java.util.Comparator;
 import java.util.HashMap;
+import java.util.HashSet;
+import java.util.List;
 import java.util.Map;
 import java.util.Set;
 import java.util.TreeSet;
-import java.util.HashSet;
 import java.util.function.IntFunction;
-import java.util.Comparator;
-import java.util.List;
 import java.util.stream.IntStream;
 import org.spectralsieve.optics.Fresnel;
 import org.spectralsieve.optics.Slab;
@@ -696,18 +696,21 @@ public final class StoreSearch {
             StoreResult.HandOver handOver = (standing, margin) -> {
                 int exactKey = Keys.of(standing, margin);
                 CutReach reach = CutReach.of(store, plan.surfaceLoss, plan.thickness);
-                for (int curve : reachingAt.apply(CutReach.lowestReachingKey(exactKey, reach.largestError()))) {
+                int[] inCut = reachingAt.apply(CutReach.lowestReachingKey(exactKey, reach.largestError()));
+                for (int curve : inCut) {
                     if (!evaluations.containsKey(curve)) {
                         add(curve, full);
                     }
                 }
+                // a curve outside the cut cannot reach: only those in it are looked at (all evaluated by now)
                 TreeSet<Integer> more = new TreeSet<>();
-                evaluations.forEach((curve, e) -> {
+                for (int curve : inCut) {
                     int material = store.materialIndex(curve);
-                    if (!handed.contains(material) && CutReach.reaches(e.key(), reach.errorOf(curve), exactKey)) {
+                    if (!handed.contains(material)
+                            && CutReach.reaches(evaluations.get(curve).key(), reach.errorOf(curve), exactKey)) {
                         more.add(material);
                     }
-                });
+                }
                 handed.addAll(more);
                 List<StoreHit> hits = new ArrayList<>();
                 for (int material : more) {

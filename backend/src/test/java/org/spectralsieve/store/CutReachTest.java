@@ -17,20 +17,35 @@ class CutReachTest {
     private static final double ERROR = -Math.log10(1 - Math.pow(Math.pow(0.65 / 2.65, 2), 2)) + CutReach.ROUNDING_DECADES;
 
     @Test
-    void theScanCutNeverHidesAResultThatCouldReachTheExactRow() {
+    void theScanCutNeverHidesABoundThatCouldReachTheExactRow() {
         Random random = new Random(20261205L);
         int reached = 0;
         for (int trial = 0; trial < 200_000; trial++) {
             int exactKey = randomKey(random);
             double error = random.nextDouble() * 0.05;
-            int storeKey = randomKey(random);
-            if (CutReach.reaches(storeKey, error, exactKey)) {
+            int bound = randomKey(random);
+            if (Keys.standingOf(bound) == Standing.MISSES_ON_BOUND) {
+                continue; // a first-pass bound is never a miss on a bound
+            }
+            if (CutReach.reaches(bound, error, exactKey)) {
                 reached++;
-                assertThat(storeKey).as("store %s, exact %s", describe(storeKey), describe(exactKey))
+                assertThat(bound).as("bound %s, exact %s", describe(bound), describe(exactKey))
                         .isGreaterThanOrEqualTo(CutReach.lowestReachingKey(exactKey, error));
             }
         }
         assertThat(reached).as("the trials reach often enough to mean something").isGreaterThan(10_000);
+    }
+
+    @Test
+    void aPlainMissBoundCoversAMissOnABoundOfNoHigherMargin() {
+        Random random = new Random(11L);
+        for (int trial = 0; trial < 100_000; trial++) {
+            double margin = -random.nextDouble() * 2;
+            double below = random.nextDouble() * 0.5;
+            double error = random.nextDouble() * 0.05;
+            assertThat(CutReach.raised(Keys.of(Standing.MISSES, margin), error))
+                    .isGreaterThanOrEqualTo(CutReach.raised(Keys.of(Standing.MISSES_ON_BOUND, margin - below), error));
+        }
     }
 
     @Test
