@@ -188,13 +188,18 @@ final class ColumnFirstScan {
 
     /** The admitted curves whose bound reaches {@code cut}, in curve order (after {@link #best}). */
     int[] reaching(int cut) {
+        return reaching(cut, (curve, bound) -> true);
+    }
+
+    /** As {@link #reaching(int)}, keeping only the curves whose bound also passes {@code test}. */
+    int[] reaching(int cut, StoreSearch.BoundTest test) {
         if (cut < threshold) {
             keep(cut);
         }
         int[] found = new int[keptCount];
         int count = 0;
         for (int i = 0; i < keptCount; i++) {
-            if (keptBound[i] >= cut) {
+            if (keptBound[i] >= cut && test.passes(kept[i], keptBound[i])) {
                 found[count++] = kept[i];
             }
         }

@@ -9,7 +9,6 @@ import java.util.List;
 import java.util.Map;
 import java.util.Set;
 import java.util.TreeSet;
-import java.util.function.IntFunction;
 import java.util.stream.IntStream;
 import org.spectralsieve.optics.Fresnel;
 import org.spectralsieve.optics.Slab;
@@ -187,7 +186,7 @@ public final class StoreSearch {
                 refinement.add(curve, full);
             }
         }
-        return refinement.result(limit, pass.eligibleCount, full, at -> reaching(bound, eligible, at));
+        return refinement.result(limit, pass.eligibleCount, full, (at, test) -> reaching(bound, eligible, at, test));
     }
 
     /**
@@ -411,10 +410,26 @@ public final class StoreSearch {
      * filter measured slower here, its pipeline costing more than the two array reads per curve).
      */
     private static int[] reaching(int[] bound, boolean[] eligible, int cut) {
+        return reaching(bound, eligible, cut, (curve, b) -> true);
+    }
+
+    /** A further test of a curve's first-pass bound, beyond reaching a cut. */
+    @FunctionalInterface
+    interface BoundTest {
+        boolean passes(int curve, int bound);
+    }
+
+    /** The curves where a {@link BoundTest} is passed by the first-pass bound too: curves in the hand-over's cut. */
+    @FunctionalInterface
+    interface Reaching {
+        int[] at(int cut, BoundTest test);
+    }
+
+    private static int[] reaching(int[] bound, boolean[] eligible, int cut, BoundTest test) {
         int[] found = new int[16];
         int count = 0;
         for (int c = 0; c < bound.length; c++) {
-            if (eligible[c] && bound[c] >= cut) {
+            if (eligible[c] && bound[c] >= cut && test.passes(c, bound[c])) {
                 if (count == found.length) {
                     found = Arrays.copyOf(found, count * 2);
                 }
@@ -487,7 +502,7 @@ public final class StoreSearch {
                 refinement.add(curve, full);
             }
         }
-        return refinement.result(limit, eligibleCount, full, at -> reaching(bound, eligible, at));
+        return refinement.result(limit, eligibleCount, full, (at, test) -> reaching(bound, eligible, at, test));
     }
 
     /**
@@ -686,7 +701,7 @@ public final class StoreSearch {
          * every curve whose bound could reach that row within the largest error is evaluated, and a material is
          * handed over when one of its evaluated curves reaches it within that curve's own error.
          */
-        StoreResult result(int limit, int eligibleCount, CurveModel full, IntFunction<int[]> reachingAt) {
+        StoreResult result(int limit, int eligibleCount, CurveModel full, Reaching reachingAt) {
             List<StoreHit> rows = topRows(limit);
             int refined = evaluations.size();
             Set<Integer> handed = new HashSet<>();
@@ -696,7 +711,10 @@ public final class StoreSearch {
             StoreResult.HandOver handOver = (standing, margin) -> {
                 int exactKey = Keys.of(standing, margin);
                 CutReach reach = CutReach.of(store, plan.surfaceLoss, plan.thickness);
-                int[] inCut = reachingAt.apply(CutReach.lowestReachingKey(exactKey, reach.largestError()));
+                // one int cut for the scan, then each bound raised by its own curve's error (a bound stands for
+                // its curve: docs/store.md); only curves that pass both are evaluated on every probe
+                int[] inCut = reachingAt.at(CutReach.lowestReachingKey(exactKey, reach.largestError()),
+                        (curve, bound) -> CutReach.reaches(bound, reach.errorOf(curve), exactKey));
                 for (int curve : inCut) {
                     if (!evaluations.containsKey(curve)) {
                         add(curve, full);
