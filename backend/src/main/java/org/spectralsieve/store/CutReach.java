@@ -1,7 +1,9 @@
 package org.spectralsieve.store;
 
 import org.spectralsieve.requirement.NominalThickness;
+import org.spectralsieve.requirement.SampleEvaluator;
 import org.spectralsieve.requirement.Standing;
+import org.spectralsieve.requirement.ThicknessInterval;
 import org.spectralsieve.requirement.ThicknessSpec;
 import org.spectralsieve.store.StoreSearch.Keys;
 
@@ -23,27 +25,24 @@ final class CutReach {
 
     private final double perStretch;
     private final double farMm;
-    private final boolean asMeasured;
     private final SpectralStore store;
+    private final StoreSearch.Plan plan;
 
-    private CutReach(SpectralStore store, double perStretch, double farMm, boolean asMeasured) {
+    private CutReach(SpectralStore store, StoreSearch.Plan plan, double perStretch, double farMm) {
         this.store = store;
+        this.plan = plan;
         this.perStretch = perStretch;
         this.farMm = farMm;
-        this.asMeasured = asMeasured;
     }
 
     /**
      * The error model of one search: the largest multiple-reflection term −log10(1 − R²) over every probe's
-     * surface reflectance in the store's index models, and the farthest thickness a reading may be taken to
+     * surface reflectance in the store's index models, and the farthest thickness any reading may be taken to
      * (the asked thickness, or the range's far end plus two nominal tolerances, as the solver may read there).
-     *
-     * @param surfaceLoss the plan's losses s = −2·log10(1 − R) per index model, clause and probe
      */
-    static CutReach of(SpectralStore store, double[][][] surfaceLoss, ThicknessSpec thickness) {
-        boolean asMeasured = thickness.kind() == ThicknessSpec.Kind.AS_MEASURED;
+    static CutReach of(SpectralStore store, StoreSearch.Plan plan) {
         double reflections = 0;
-        for (double[][] model : surfaceLoss) {
+        for (double[][] model : plan.surfaceLoss) {
             for (double[] clause : model) {
                 for (double loss : clause) {
                     double reflectance = 1 - Math.pow(10, -loss / 2);
@@ -51,28 +50,49 @@ final class CutReach {
                 }
             }
         }
-        double farMm = asMeasured ? 0
-                : thickness.kind() == ThicknessSpec.Kind.FIXED ? thickness.minMm()
-                : thickness.maxMm() + 2 * NominalThickness.toleranceMm(thickness.maxMm());
-        return new CutReach(store, ROUNDING_DECADES + reflections, farMm, asMeasured);
+        ThicknessSpec thickness = plan.thickness;
+        double farMm = thickness.kind() == ThicknessSpec.Kind.AS_MEASURED ? 0
+                : thickness.kind() == ThicknessSpec.Kind.FIXED ? thickness.minMm() : farEnd(thickness.maxMm());
+        return new CutReach(store, plan, ROUNDING_DECADES + reflections, farMm);
+    }
+
+    private static double farEnd(double mm) {
+        return mm + 2 * NominalThickness.toleranceMm(mm);
     }
 
     /**
      * How far, in decades, the exact margin of this curve can lie above the store's: the rounding as measured or
-     * for a curve never rescaled; otherwise (rounding + reflections) · max(1, d/d0), d0 the curve's own thickness.
-     * Why the stretch: the store takes the internal absorbance a0 = OD0 − s from the rounded reading and scales it
-     * by d/d0, so both the rounding and the reflections left out of a0 are scaled with it.
+     * for a curve never rescaled; otherwise (rounding + reflections) · max(1, d/d0), d0 the curve's own thickness
+     * and d the farthest it is read at: the asked thickness, or over a range the far end of the thicknesses it
+     * speaks for ({@code Plan.spanOf}: the asked range cut to the made thicknesses and the material's other
+     * samples) plus two nominal tolerances. Why the stretch: the store takes the internal absorbance a0 = OD0 − s
+     * from the rounded reading and scales it by d/d0, so both the rounding and the reflections left out of a0 are
+     * scaled with it.
      */
     double errorOf(int curve) {
-        if (asMeasured || !store.isBulk(curve)) {
+        ThicknessSpec thickness = plan.thickness;
+        if (thickness.kind() == ThicknessSpec.Kind.AS_MEASURED || !store.isBulk(curve)) {
             return ROUNDING_DECADES;
         }
-        return perStretch * Math.max(1, farMm / store.thicknessMm(curve));
+        double d;
+        if (thickness.kind() == ThicknessSpec.Kind.FIXED) {
+            if (!plan.rescaledAt(store, curve)) {
+                return ROUNDING_DECADES;
+            }
+            d = farMm;
+        } else {
+            ThicknessInterval span = plan.spanOf(curve);
+            if (span == null) {
+                return ROUNDING_DECADES; // not judged: its result has no margin to raise
+            }
+            d = span == SampleEvaluator.WHOLE_AXIS ? farMm : Math.min(farMm, farEnd(span.hiMm()));
+        }
+        return perStretch * Math.max(1, d / store.thicknessMm(curve));
     }
 
     /** The largest {@link #errorOf} any curve of the store can have (its thinnest bulk curve sets it). */
     double largestError() {
-        if (asMeasured) {
+        if (plan.thickness.kind() == ThicknessSpec.Kind.AS_MEASURED) {
             return ROUNDING_DECADES;
         }
         return perStretch * Math.max(1, farMm / store.thinnestBulkMm());

@@ -710,7 +710,7 @@ public final class StoreSearch {
             }
             StoreResult.HandOver handOver = (standing, margin) -> {
                 int exactKey = Keys.of(standing, margin);
-                CutReach reach = CutReach.of(store, plan.surfaceLoss, plan.thickness);
+                CutReach reach = CutReach.of(store, plan);
                 // one int cut for the scan, then each bound raised by its own curve's error (a bound stands for
                 // its curve: docs/store.md); only curves that pass both are evaluated on every probe
                 int[] inCut = reachingAt.at(CutReach.lowestReachingKey(exactKey, reach.largestError()),

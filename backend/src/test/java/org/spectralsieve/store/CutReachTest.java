@@ -100,22 +100,29 @@ class CutReachTest {
 
     @Test
     void theErrorGrowsWithHowFarACurveIsStretched() {
-        SpectralStore store = SpectralStore.builder(SpectralStore.DEFAULT_GRID, 2)
-                .addEncoded(1, new StoredMaterial(1, "thin sheet (illustrative)", "plastic sheet"), 0.5f, true, false,
+        SpectralStore store = SpectralStore.builder(SpectralStore.DEFAULT_GRID, 3)
+                .addEncoded(1, new StoredMaterial(1, "thin sheet (illustrative)", "plastic sheet"), 0.5, true, false,
                         SyntheticCurves.INDICES[0], clearCodes())
-                .addEncoded(2, new StoredMaterial(2, "film (illustrative)", "film"), 0.05f, false, false,
+                .addEncoded(2, new StoredMaterial(2, "film (illustrative)", "film"), 0.05, false, false,
+                        SyntheticCurves.INDICES[0], clearCodes())
+                .addEncoded(3, new StoredMaterial(3, "thick sheet (illustrative)", "plastic sheet"), 5.0, true, false,
                         SyntheticCurves.INDICES[0], clearCodes())
                 .build();
-        double[][][] loss = {{{0.035}}}; // s = −2·log10(1 − R) for R ≈ 0.04, n ≈ 1.5
-        CutReach solved = CutReach.of(store, loss,
-                org.spectralsieve.requirement.RequirementParser.parse("passes over 80% at 365 nm, thickness 1 to 6 mm").thickness());
-        CutReach measured = CutReach.of(store, loss,
-                org.spectralsieve.requirement.RequirementParser.parse("passes over 80% at 365 nm").thickness());
+        CutReach solved = reach(store, "passes over 80% at 365 nm, thickness 1 to 6 mm");
+        CutReach measured = reach(store, "passes over 80% at 365 nm");
+        CutReach atThree = reach(store, "passes over 80% at 365 nm, at 3 mm");
 
         assertThat(measured.errorOf(0)).isEqualTo(CutReach.ROUNDING_DECADES);
         assertThat(solved.errorOf(1)).as("a film is never rescaled").isEqualTo(CutReach.ROUNDING_DECADES);
         assertThat(solved.errorOf(0)).as("6 mm and two tolerances over 0.5 mm").isGreaterThan(12 * CutReach.ROUNDING_DECADES);
-        assertThat(solved.largestError()).isEqualTo(solved.errorOf(0));
+        assertThat(solved.errorOf(2)).as("a 5 mm sheet is stretched little").isLessThan(solved.errorOf(0) / 8);
+        assertThat(atThree.errorOf(0) / atThree.errorOf(2)).as("3 / 0.5 against 3 / 5 taken as 1").isCloseTo(6, org.assertj.core.data.Offset.offset(1e-9));
+        assertThat(solved.largestError()).isGreaterThanOrEqualTo(solved.errorOf(0));
+    }
+
+    private static CutReach reach(SpectralStore store, String requirement) {
+        return CutReach.of(store, StoreSearch.Plan.of(store,
+                org.spectralsieve.requirement.RequirementParser.parse(requirement), false, Integer.MAX_VALUE));
     }
 
     private static short[] clearCodes() {
