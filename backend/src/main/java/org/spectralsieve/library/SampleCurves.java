@@ -22,7 +22,8 @@ public class SampleCurves {
      */
     public SampleCurve get(long sampleId, Double thicknessMm, WavelengthGrid grid) {
         SampleInfo sample = library.findSample(sampleId).orElseThrow(() -> new NotFoundException("sample", sampleId));
-        Material material = library.findMaterial(sample.materialId())
+        // the material's own row is all a curve needs (scaling, index, tags, names): its samples are not read
+        Material material = library.findMaterialWithoutSamples(sample.materialId())
                 .orElseThrow(() -> new NotFoundException("material", sample.materialId()));
         Curve curve = library.findCurve(sampleId).orElseThrow(() -> new NotFoundException("curve of sample", sampleId));
 

@@ -101,6 +101,27 @@ class LibraryRepositoryTest {
     }
 
     @Test
+    void aMaterialReadWithoutItsSamplesIsTheWholeReadButForTheSamples() {
+        long materialId = library.insertMaterial(acrylic("many-samples"));
+        Curve curve = Curve.of(new double[] {300, 400, 500}, new double[] {0.01, 0.5, 0.9}, 0.001);
+        for (int i = 0; i < 5; i++) {
+            library.insertSample(materialId, sample(1.0 + i, curve, "sheet-" + i + ".csv"));
+        }
+        new JooqLibraryRevisions(db).setRetired(JooqLibraryRevisions.Kind.MATERIAL, materialId, true);
+
+        Material whole = library.findMaterial(materialId).orElseThrow();
+        Material alone = library.findMaterialWithoutSamples(materialId).orElseThrow();
+
+        assertThat(whole.samples()).hasSize(5);
+        assertThat(alone.samples()).isEmpty();
+        assertThat(alone.retired()).isTrue(); // retired or not, as findMaterial
+        assertThat(alone).isEqualTo(new Material(whole.id(), whole.slug(), whole.name(), whole.materialClass(),
+                whole.description(), whole.tags(), whole.scaling(), whole.refractiveIndex(), List.of(),
+                whole.thicknesses(), whole.revision(), whole.retiredAt()));
+        assertThat(library.findMaterialWithoutSamples(materialId + 1000)).isEmpty();
+    }
+
+    @Test
     void textFilterMatchesEveryWordInNameDescriptionOrTags() {
         library.insertMaterial(new NewMaterial("clear-sheet", "Clear sheet", MaterialClass.of("plastic sheet"),
                 "cast, passes 365 nm", List.of("window"), Scaling.BULK, new ConstantIndex(1.49)));
