@@ -109,6 +109,24 @@ public class JooqLibraryRepository {
         return db.selectFrom(SAMPLE).where(SAMPLE.ID.eq(id)).fetchOptional().map(JooqLibraryRepository::toSample);
     }
 
+    /** A sample (retired or not), its material's own row ({@link #findMaterialWithoutSamples}) and its curve, when stored. */
+    public record SampleWithCurve(SampleInfo sample, Material material, Optional<Curve> curve) {
+    }
+
+    /**
+     * What {@link #findSample}, {@link #findMaterialWithoutSamples} and {@link #findCurve} read for one
+     * sample, in one query instead of three (a curve or figures read asks for all three on every request).
+     * Each part is made from its rows exactly as those methods make it; empty when the sample does not exist.
+     */
+    public Optional<SampleWithCurve> findSampleWithCurve(long sampleId) {
+        return db.select(SAMPLE.fields()).select(MATERIAL.fields()).select(CURVE.fields())
+                .from(SAMPLE).join(MATERIAL).on(MATERIAL.ID.eq(SAMPLE.MATERIAL_ID))
+                .leftJoin(CURVE).on(CURVE.SAMPLE_ID.eq(SAMPLE.ID))
+                .where(SAMPLE.ID.eq(sampleId)).fetchOptional()
+                .map(r -> new SampleWithCurve(toSample(r.into(SAMPLE)), toMaterial(r.into(MATERIAL), List.of()),
+                        r.get(CURVE.SAMPLE_ID) == null ? Optional.empty() : Optional.of(toCurve(r))));
+    }
+
     public Optional<Curve> findCurve(long sampleId) {
         return db.select(CURVE.asterisk(), SAMPLE.DETECTION_LIMIT).from(CURVE).join(SAMPLE).on(SAMPLE.ID.eq(CURVE.SAMPLE_ID))
                 .where(CURVE.SAMPLE_ID.eq(sampleId)).fetchOptional()
