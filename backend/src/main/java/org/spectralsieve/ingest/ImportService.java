@@ -108,7 +108,9 @@ public final class ImportService {
 
     private Destination destination(ImportTarget target, List<String> warnings) {
         if (target instanceof ImportTarget.ExistingMaterial e) {
-            Material m = library.findMaterial(e.materialId()).orElseThrow(() -> new NotFoundException("material", e.materialId()));
+            // only its scaling is needed here: the material's samples are not read (an import's cost does not grow with them)
+            Material m = library.findMaterialWithoutSamples(e.materialId())
+                    .orElseThrow(() -> new NotFoundException("material", e.materialId()));
             return new Destination(m.id(), null, m.scaling());
         }
         ImportTarget.NewMaterial n = (ImportTarget.NewMaterial) target;

@@ -21,10 +21,12 @@ public class SampleCurves {
      * @param grid        the grid to resample onto, or null for the stored points
      */
     public SampleCurve get(long sampleId, Double thicknessMm, WavelengthGrid grid) {
-        SampleInfo sample = library.findSample(sampleId).orElseThrow(() -> new NotFoundException("sample", sampleId));
-        Material material = library.findMaterial(sample.materialId())
-                .orElseThrow(() -> new NotFoundException("material", sample.materialId()));
-        Curve curve = library.findCurve(sampleId).orElseThrow(() -> new NotFoundException("curve of sample", sampleId));
+        // the sample, its material's own row (scaling, index, tags, names; not its samples) and the curve, in one query
+        JooqLibraryRepository.SampleWithCurve read = library.findSampleWithCurve(sampleId)
+                .orElseThrow(() -> new NotFoundException("sample", sampleId));
+        SampleInfo sample = read.sample();
+        Material material = read.material();
+        Curve curve = read.curve().orElseThrow(() -> new NotFoundException("curve of sample", sampleId));
 
         boolean rescale = thicknessMm != null && thicknessMm != sample.thicknessMm();
         SampleRescaling rescaling = SampleRescaling.of(material, sample);

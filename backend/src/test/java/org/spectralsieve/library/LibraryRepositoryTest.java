@@ -101,6 +101,63 @@ class LibraryRepositoryTest {
     }
 
     @Test
+    void aMaterialReadWithoutItsSamplesIsTheWholeReadButForTheSamples() {
+        long materialId = library.insertMaterial(acrylic("many-samples"));
+        Curve curve = Curve.of(new double[] {300, 400, 500}, new double[] {0.01, 0.5, 0.9}, 0.001);
+        for (int i = 0; i < 5; i++) {
+            library.insertSample(materialId, sample(1.0 + i, curve, "sheet-" + i + ".csv"));
+        }
+        new JooqLibraryRevisions(db).setRetired(JooqLibraryRevisions.Kind.MATERIAL, materialId, true);
+
+        Material whole = library.findMaterial(materialId).orElseThrow();
+        Material alone = library.findMaterialWithoutSamples(materialId).orElseThrow();
+
+        assertThat(whole.samples()).hasSize(5);
+        assertThat(alone.samples()).isEmpty();
+        assertThat(alone.retired()).isTrue(); // retired or not, as findMaterial
+        assertThat(alone).isEqualTo(new Material(whole.id(), whole.slug(), whole.name(), whole.materialClass(),
+                whole.description(), whole.tags(), whole.scaling(), whole.refractiveIndex(), List.of(),
+                whole.thicknesses(), whole.revision(), whole.retiredAt()));
+        assertThat(library.findMaterialWithoutSamples(materialId + 1000)).isEmpty();
+    }
+
+    @Test
+    void aSampleReadWithItsMaterialAndCurveInOneQueryEqualsTheThreeReads() {
+        Random random = new Random(20261205);
+        long kept = library.insertMaterial(acrylic("kept"));
+        long retiredMaterial = library.insertMaterial(new NewMaterial("retired-film", "Retired film",
+                MaterialClass.of("film"), "", List.of("scattering"), Scaling.FIXED,
+                new TabulatedIndex(List.of(400.0, 700.0), List.of(1.52, 1.51))));
+        List<Long> samples = new java.util.ArrayList<>();
+        for (int i = 0; i < 6; i++) {
+            double[] nm = {300, 350, 400, 450, 500};
+            double[] t = new double[nm.length];
+            double[] limits = new double[nm.length];
+            boolean[] below = new boolean[nm.length];
+            for (int k = 0; k < nm.length; k++) {
+                t[k] = random.nextDouble();
+                limits[k] = i % 2 == 0 ? 0.001 : 0.001 * (1 + random.nextDouble()); // uniform and per-point limits
+                below[k] = t[k] <= limits[k];
+            }
+            long material = i < 4 ? kept : retiredMaterial;
+            samples.add(library.insertSample(material, sample(1.0 + i, Curve.of(nm, t, below, limits), "s" + i + ".csv")));
+        }
+        JooqLibraryRevisions revisions = new JooqLibraryRevisions(db);
+        revisions.setRetired(JooqLibraryRevisions.Kind.SAMPLE, samples.get(1), true);
+        revisions.setRetired(JooqLibraryRevisions.Kind.MATERIAL, retiredMaterial, true);
+
+        for (long id : samples) {
+            JooqLibraryRepository.SampleWithCurve read = library.findSampleWithCurve(id).orElseThrow();
+            SampleInfo sample = library.findSample(id).orElseThrow();
+            assertThat(read.sample()).isEqualTo(sample);
+            assertThat(read.material()).isEqualTo(library.findMaterialWithoutSamples(sample.materialId()).orElseThrow());
+            assertThat(read.curve()).isEqualTo(library.findCurve(id));
+        }
+        long missing = samples.get(samples.size() - 1) + 1000;
+        assertThat(library.findSampleWithCurve(missing)).isEmpty();
+    }
+
+    @Test
     void textFilterMatchesEveryWordInNameDescriptionOrTags() {
         library.insertMaterial(new NewMaterial("clear-sheet", "Clear sheet", MaterialClass.of("plastic sheet"),
                 "cast, passes 365 nm", List.of("window"), Scaling.BULK, new ConstantIndex(1.49)));
