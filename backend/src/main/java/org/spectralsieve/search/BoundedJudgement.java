@@ -4,6 +4,7 @@ import java.util.ArrayList;
 import java.util.Comparator;
 import java.util.List;
 import java.util.function.Function;
+import java.util.function.UnaryOperator;
 import org.spectralsieve.library.Material;
 import org.spectralsieve.requirement.MaterialEvaluation;
 import org.spectralsieve.requirement.RankedRow;
@@ -76,6 +77,19 @@ final class BoundedJudgement {
      */
     static List<MaterialEvaluation> judge(List<Contender> contenders, int limit, Ranker ranker,
                                           Function<Material, List<MaterialEvaluation>> judge, boolean parallel) {
+        return judge(contenders, limit, ranker, judge, parallel, UnaryOperator.identity());
+    }
+
+    /**
+     * {@link #judge(List, int, Ranker, Function, boolean)} with a second look before each judgement: a contender
+     * that could enter full rows by its first bound is {@code refine}d (a bound computed on its own curves, no
+     * larger than the first and as sound, docs/weighted-screening.md, "A second, exact-curve stage") and left out
+     * when that one says it cannot. The judging order stays the first bounds' (the second is formed only for the
+     * few contenders that reach it); the answer is the same, since a contender left out still could not enter.
+     */
+    static List<MaterialEvaluation> judge(List<Contender> contenders, int limit, Ranker ranker,
+                                          Function<Material, List<MaterialEvaluation>> judge, boolean parallel,
+                                          UnaryOperator<Contender> refine) {
         List<Contender> ordered = new ArrayList<>(contenders);
         ordered.sort(ORDER);
         int batchSize = parallel ? PARALLEL_BATCH : 1;
@@ -88,7 +102,8 @@ final class BoundedJudgement {
             while (next < ordered.size() && batch.size() < batchSize) {
                 Contender c = ordered.get(next++);
                 // grouped: a material with a regular sample competes only with the regular rows, which come first
-                if (couldEnter(c.regular() ? regularRows : rows, limit, c)) {
+                List<RankedRow> competing = c.regular() ? regularRows : rows;
+                if (couldEnter(competing, limit, c) && (competing.size() < limit || couldEnter(competing, limit, refine.apply(c)))) {
                     batch.add(c.material());
                 }
             }

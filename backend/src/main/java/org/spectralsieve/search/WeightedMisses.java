@@ -128,6 +128,29 @@ final class WeightedMisses {
         return bound;
     }
 
+    /**
+     * The second stage (docs/weighted-screening.md, "A second, exact-curve stage"): per sample, on its decoded
+     * curve, a bound on its exact worst margin that no bin or code rounding loosens, for a contender about to be
+     * judged; null when the requirement has no weighted clause the screen bounds. Not thread-safe (one per search,
+     * asked from the judging loop's own thread).
+     */
+    static SecondStage secondStage(SpectralStore store, Requirement requirement, Optional<StackLayer> layer,
+                                   boolean diffuseLayer, boolean layerBlocks) {
+        Optional<WeightedScreen.LayerBins> layerBins = layer.map(l -> WeightedScreen.LayerBins.of(l.curve(), l.index()));
+        Bounds bounds = bounds(store, requirement, layer, layerBins, diffuseLayer, false, layerBlocks, 0, store.size());
+        return bounds == null ? null : bounds::onCurve;
+    }
+
+    /** A bound on a sample's exact worst margin read on its decoded curve: +∞ where this stage proves nothing. */
+    @FunctionalInterface
+    interface SecondStage {
+        /**
+         * @param curve    the sample's store row
+         * @param measured the curve the store holds for it, as decoded for the judgement
+         */
+        double bound(int curve, org.spectralsieve.spectrum.Curve measured);
+    }
+
     /** Curves from which the screen runs on more than one thread. */
     private static final int PARALLEL_FROM = 65_536;
     /** At most this many parts (the service's machines have two cores; more parts only queue). */
@@ -253,6 +276,31 @@ final class WeightedMisses {
                 WeightedScreen.Query q = queries.get(i);
                 if (!skipped(i) && SearchService.keepsProof(q.passes() ? Direction.PASS : Direction.BLOCK, spec, d0, bulk)) {
                     bound = Math.min(bound, Math.min(q.asMeasured(curve), q.behindLayer(curve, d0)));
+                }
+            }
+            return bound;
+        }
+
+        /**
+         * The second stage on the decoded curve, routed as {@link #into}: judged on the measured curve, every
+         * clause whose proof carries over ({@link SearchService#keepsProof}) on the exact figure or, behind a
+         * layer, the stack's per-point product; judged rescaled in [lo, hi], the passes where lo is not thinner
+         * than measured (P(lo), T only falls as the sample thickens). Any clause left out only loosens the bound.
+         */
+        double onCurve(int c, org.spectralsieve.spectrum.Curve measured) {
+            double d0 = store.thicknessMm(c);
+            curve(c, store.isTotalGeometry(c) || diffuseLayer);
+            boolean onMeasured = spec.kind() == ThicknessSpec.Kind.AS_MEASURED || judgedAsMeasured(spec, d0)
+                    || !store.isBulk(c) || !(d0 > 0);
+            double judgedFrom = onMeasured ? d0 : spec.minMm();
+            double bound = Double.POSITIVE_INFINITY;
+            for (int i = 0; i < queries.size(); i++) {
+                WeightedScreen.Query q = queries.get(i);
+                Direction direction = q.passes() ? Direction.PASS : Direction.BLOCK;
+                boolean carries = onMeasured ? SearchService.keepsProof(direction, spec, d0, store.isBulk(c))
+                        : q.passes() && judgedFrom >= d0;
+                if (!skipped(i) && carries) {
+                    bound = Math.min(bound, Math.min(q.asMeasuredOnCurve(measured), q.behindLayerOnCurve(c, measured, judgedFrom)));
                 }
             }
             return bound;

@@ -13,6 +13,7 @@ import org.spectralsieve.requirement.Direction;
 import org.spectralsieve.requirement.WeightedClause;
 import org.spectralsieve.requirement.Weighting;
 import org.spectralsieve.spectrum.Curve;
+import org.spectralsieve.weighting.BelowDetectionAs;
 import org.spectralsieve.weighting.BoundedCurves;
 import org.spectralsieve.weighting.LuminousTransmittance;
 import org.spectralsieve.weighting.WeightedFigures;
@@ -279,6 +280,8 @@ public final class WeightedScreen {
         private boolean layerBlocks = true;
         private boolean layerPoints = true;
         private final double[][] layerSharesOfRange = new double[ranges.size()][];
+        /** Per range: {nm, weight, layerUp} of the figure's integration points ({@link #behindLayerOnCurve}). */
+        private final double[][][] layerNodesOfRange = new double[ranges.size()][][];
         private boolean reference;
         private int lnBCurve = -1;
         private double lnBOfCurve;
@@ -427,6 +430,70 @@ public final class WeightedScreen {
             return out;
         }
 
+        /**
+         * {@link #behindLayer} of a pass read on the candidate's own decoded curve instead of its bins: the second
+         * stage for a contender about to be judged (docs/weighted-screening.md, "A second, exact-curve stage").
+         * The proof is the one of {@link #behindLayer} with the bin's brightest replaced by candUp(λ), the largest
+         * max(T, limit) at the ends of the candidate's intervals holding λ (both around a stored point): the stack
+         * points a value at λ is read from lie in one candidate interval holding λ, and on a regular curve every
+         * upper reading inside that interval (T interpolated in absorbance, a limit linearly) is at most the
+         * larger end's. So U ≤ Σₙ aₙ·max(candUp(λₙ)·layerUp(λₙ)·gain, ε)/Σ aₙ. No rounding to codes, no 12 nm
+         * bin: the slack of the bins is gone, the preconditions are the same. {@code measured} must be the curve
+         * the store holds for {@code curve} (the one the judgement reads); +∞ wherever the bin bound is +∞, where
+         * the curve's range is not the stored one, or where the curve is not regular.
+         */
+        public double behindLayerOnCurve(int curve, Curve measured, double judgedMm) {
+            if (!pass || !layerPoints || !Double.isFinite(behindLayer(curve, judgedMm))) {
+                return Double.POSITIVE_INFINITY;
+            }
+            int range = rangeOfCurve[curve];
+            double[] r = ranges.get(range);
+            if (measured.minWavelengthNm() != r[0] || measured.maxWavelengthNm() != r[1] || !Builder.regular(measured)) {
+                return Double.POSITIVE_INFINITY;
+            }
+            double[][] nodes = layerNodes(range);
+            if (nodes == null) {
+                return Double.POSITIVE_INFINITY;
+            }
+            double rMax = Math.max(largestReflectance(curve), Fresnel.reflectanceInAir(1.52));
+            double gain = (1 + SLACK) / (1 - elementReflectance(rMax) * layer.reflectance);
+            double[] nm = nodes[0];
+            double[] weight = nodes[1];
+            double[] layerUp = nodes[2];
+            double[] wavelengths = measured.wavelengthsNm();
+            double sum = 0;
+            double total = 0;
+            int at = 0; // the walk along the candidate's points: the nodes increase
+            for (int i = 0; i < nm.length; i++) {
+                while (at + 1 < wavelengths.length && wavelengths[at + 1] <= nm[i]) {
+                    at++;
+                }
+                // the intervals holding the node: both around a stored point, else the one it lies in
+                int lo = wavelengths[at] == nm[i] ? Math.max(0, at - 1) : at;
+                int hi = Math.min(wavelengths.length - 1, at + 1);
+                double up = 0;
+                for (int j = lo; j <= hi; j++) {
+                    up = Math.max(up, Math.max(measured.transmittance(j), measured.detectionLimit(j)));
+                }
+                sum += weight[i] * Math.max(up * layerUp[i] * gain, Curve.ABSORBANCE_FLOOR_T);
+                total += weight[i];
+            }
+            if (!(total > 0)) {
+                return Double.POSITIVE_INFINITY;
+            }
+            return Math.log10(Math.max(sum / total * (1 + SLACK), floor) / threshold);
+        }
+
+        /** The range's integration points {nm, weight, layerUp}, formed once per range; null where not available. */
+        private double[][] layerNodes(int range) {
+            double[][] out = layerNodesOfRange[range];
+            if (out == null) {
+                out = WeightedScreen.layerNodes(clause.weighting(), ranges.get(range), layer.curve);
+                layerNodesOfRange[range] = out == null ? new double[0][] : out;
+            }
+            return out == null || out.length == 0 ? null : out;
+        }
+
         /** Whether {@link #behindLayer} of a pass reads the layer per integration point (on by default; off for the rule before). */
         public Query layerByPoint(boolean on) {
             layerPoints = on;
@@ -499,6 +566,34 @@ public final class WeightedScreen {
         public Query blockBehindLayer(boolean on) {
             layerBlocks = on;
             return this;
+        }
+
+        /**
+         * {@link #asMeasured} read on the curve itself: the exact figure's end the clause's margin can read at most
+         * (a pass: U, points below detection at their limit; a block: L, at 0), as the judgement computes it
+         * ({@code Weighting.figureForMargin}, the same arithmetic as the answer's figure), moved by {@link #SLACK}
+         * to the safe side. The second stage for a contender about to be judged (docs/weighted-screening.md, "A
+         * second, exact-curve stage"); its use at other thicknesses follows the same rules as {@link #asMeasured}
+         * (a weighted figure is a weighted mean of T and falls wherever T falls pointwise). +∞ behind a layer (the
+         * stack is judged, not the curve: {@link #behindLayerOnCurve}) and where the figure is not available (the
+         * judgement then says unverified, which no bound may call a miss).
+         */
+        public double asMeasuredOnCurve(Curve measured) {
+            if (layerRange.isPresent()) {
+                return Double.POSITIVE_INFINITY;
+            }
+            Weighting weighting = clause.weighting();
+            org.spectralsieve.weighting.Figure upper = weighting.figureForMargin(measured, BelowDetectionAs.LIMIT);
+            if (!upper.available()) {
+                return Double.POSITIVE_INFINITY;
+            }
+            double u = upper.value().getAsDouble();
+            if (pass) {
+                return Math.log10(Math.max(u * (1 + SLACK), floor) / threshold);
+            }
+            double l = upper.bound() != org.spectralsieve.weighting.Figure.Bound.AT_MOST ? u
+                    : weighting.figureForMargin(measured, BelowDetectionAs.ZERO).value().orElse(0);
+            return Math.log10(threshold / Math.max(Math.min(l, u) * (1 - SLACK), floor));
         }
 
         /** {@link #asMeasured} for a pass judged at or above {@code thinnestMm} where that is not thinner than measured (else +∞). */
@@ -957,6 +1052,32 @@ public final class WeightedScreen {
             out[b] /= total;
         }
         return out;
+    }
+
+    /**
+     * The figure's integration points on a curve spanning the range with, per point, the layer's largest upper
+     * reading around it (as {@link #layerShares}): {nm, weight, layerUp}; null where {@link #layerShares} is empty.
+     */
+    static double[][] layerNodes(Weighting weighting, double[] curveRange, Curve layer) {
+        double[][] nodes = integrationNodes(weighting, curveRange);
+        if (nodes == null || nodes[0].length == 0) {
+            return null;
+        }
+        double[] nm = nodes[0];
+        double[] wavelengths = layer.wavelengthsNm();
+        double[] up = new double[nm.length];
+        for (int i = 0; i < nm.length; i++) {
+            if (binOf(nm[i]) < 0 || !layer.covers(nm[i])) {
+                return null;
+            }
+            int hit = Arrays.binarySearch(wavelengths, nm[i]);
+            int lo = hit >= 0 ? Math.max(0, hit - 1) : -hit - 2;
+            int hi = hit >= 0 ? Math.min(wavelengths.length - 1, hit + 1) : -hit - 1;
+            for (int j = lo; j <= hi; j++) {
+                up[i] = Math.max(up[i], Math.max(layer.transmittance(j), layer.detectionLimit(j)));
+            }
+        }
+        return new double[][] {nm, nodes[1], up};
     }
 
     /** The figure's integration points {nm, weight} on a curve spanning the range, or null where not available. */
