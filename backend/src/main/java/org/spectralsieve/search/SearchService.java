@@ -474,8 +474,7 @@ public class SearchService {
                 grouped ? list -> Ranking.rank(regularOnly(s, list), limit) : null);
         WeightedMisses.SecondStage second = secondStage && screenWeighted && !earlierWeightedScreen && !rowOf.isEmpty()
                 ? WeightedMisses.secondStage(s.store(), requirement, layer, diffuseLayer, weightedLayerBlocks) : null;
-        java.util.function.UnaryOperator<BoundedJudgement.Contender> refine = second == null
-                ? java.util.function.UnaryOperator.identity()
+        java.util.function.UnaryOperator<BoundedJudgement.Contender> refine = second == null ? null
                 : c -> refined(s, c, requirement, provenMiss, marginBound, rowOf, judgedOf.get(c.material().id()), second);
         // the prepared map is complete before any judging thread reads it, and never written after
         List<MaterialEvaluation> exact = BoundedJudgement.judge(contenders, limit, ranker,
@@ -493,7 +492,9 @@ public class SearchService {
      * The contender again with each admitted sample's bound lowered by the second stage on its decoded curve
      * ({@link WeightedMisses#secondStage}): the same rule as the first bounds in {@link #searchExactly} (the
      * largest over the samples judged, proven to miss when every admitted sample's bound is negative and the
-     * material is made at the asked thickness), each sample's bound the smallest of its sound bounds.
+     * material is made at the asked thickness), each sample's bound the smallest of its sound bounds; and it
+     * cannot meet when every sample judged has a clause the second stage finds unverified on the very curve it
+     * is judged on.
      */
     private BoundedJudgement.Contender refined(Snapshot s, BoundedJudgement.Contender c, Requirement requirement,
                                                Map<Long, Double> provenMiss, Map<Long, Double> marginBound,
@@ -502,10 +503,12 @@ public class SearchService {
         Material material = c.material();
         double bound = Double.NEGATIVE_INFINITY;
         boolean allMiss = true;
+        boolean noneMeets = true;
         for (SampleInfo sample : material.samples()) {
             if (!admits(requirement, material, sample)) {
                 continue;
             }
+            boolean cannotMeet = false;
             Double miss = provenMiss.get(sample.id());
             Double margin = marginBound.get(sample.id());
             double b = Math.min(miss == null ? Double.POSITIVE_INFINITY : miss,
@@ -515,6 +518,7 @@ public class SearchService {
                 Optional<Curve> measured = curve(s, sample.id()); // the curve the judgement reads, cached for it
                 if (measured.isPresent()) {
                     double onCurve = second.bound(row, measured.get());
+                    cannotMeet = second.cannotMeet();
                     if (onCurve < b) {
                         b = onCurve;
                     }
@@ -523,10 +527,11 @@ public class SearchService {
             allMiss &= b < 0;
             if (judgedSamples == null || judgedSamples.contains(sample.id())) {
                 bound = Math.max(bound, b);
+                noneMeets &= cannotMeet;
             }
         }
         return new BoundedJudgement.Contender(material, bound, allMiss && madeFor(requirement.thickness(), material),
-                c.regular());
+                c.regular(), noneMeets);
     }
 
     /**

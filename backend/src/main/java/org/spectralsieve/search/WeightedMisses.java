@@ -138,17 +138,19 @@ final class WeightedMisses {
                                    boolean diffuseLayer, boolean layerBlocks) {
         Optional<WeightedScreen.LayerBins> layerBins = layer.map(l -> WeightedScreen.LayerBins.of(l.curve(), l.index()));
         Bounds bounds = bounds(store, requirement, layer, layerBins, diffuseLayer, false, layerBlocks, 0, store.size());
-        return bounds == null ? null : bounds::onCurve;
+        return bounds;
     }
 
     /** A bound on a sample's exact worst margin read on its decoded curve: +∞ where this stage proves nothing. */
-    @FunctionalInterface
     interface SecondStage {
         /**
          * @param curve    the sample's store row
          * @param measured the curve the store holds for it, as decoded for the judgement
          */
         double bound(int curve, org.spectralsieve.spectrum.Curve measured);
+
+        /** Whether the sample of the last {@link #bound} is judged on that curve with a clause unverified: its row cannot meet. */
+        boolean cannotMeet();
     }
 
     /** Curves from which the screen runs on more than one thread. */
@@ -221,7 +223,7 @@ final class WeightedMisses {
     }
 
     /** The clauses' bounds for one curve at a time, over curves [from, to). */
-    private static final class Bounds {
+    private static final class Bounds implements SecondStage {
 
         private final SpectralStore store;
         private final ThicknessSpec spec;
@@ -233,6 +235,9 @@ final class WeightedMisses {
         private final int to;
         private int curve;
         private boolean total;
+        private boolean cannotMeet;
+        /** The decoded curve while the second stage runs ({@link #bound}), else null: P(x) then reads it too. */
+        private org.spectralsieve.spectrum.Curve measured;
 
         Bounds(SpectralStore store, ThicknessSpec spec, List<WeightedScreen.Query> queries, List<Boolean> seeThrough,
                boolean diffuseLayer, boolean reference, int from, int to) {
@@ -284,26 +289,53 @@ final class WeightedMisses {
         /**
          * The second stage on the decoded curve, routed as {@link #into}: judged on the measured curve, every
          * clause whose proof carries over ({@link SearchService#keepsProof}) on the exact figure or, behind a
-         * layer, the stack's per-point product; judged rescaled in [lo, hi], the passes where lo is not thinner
-         * than measured (P(lo), T only falls as the sample thickens). Any clause left out only loosens the bound.
+         * layer, the stack's per-point product; judged rescaled in [lo, hi], the split rule of {@link #rescaled}
+         * with P(x) also read on the curve (as measured where x is not thinner than measured, else thinned; T only
+         * falls as the sample thickens) and Q(x) from the bins. Each bound is the smaller of two sound ones.
          */
-        double onCurve(int c, org.spectralsieve.spectrum.Curve measured) {
+        @Override
+        public boolean cannotMeet() {
+            return cannotMeet;
+        }
+
+        @Override
+        public double bound(int c, org.spectralsieve.spectrum.Curve curveToRead) {
+            cannotMeet = false;
             double d0 = store.thicknessMm(c);
             curve(c, store.isTotalGeometry(c) || diffuseLayer);
             boolean onMeasured = spec.kind() == ThicknessSpec.Kind.AS_MEASURED || judgedAsMeasured(spec, d0)
                     || !store.isBulk(c) || !(d0 > 0);
-            double judgedFrom = onMeasured ? d0 : spec.minMm();
+            if (!onMeasured) {
+                // rescaled somewhere in [lo, hi]: the split rule of rescaled(), its passes also read on the curve
+                measured = curveToRead;
+                try {
+                    return rescaled(spec.minMm(), spec.kind() == ThicknessSpec.Kind.FIXED ? spec.minMm() : spec.maxMm());
+                } finally {
+                    measured = null;
+                }
+            }
             double bound = Double.POSITIVE_INFINITY;
             for (int i = 0; i < queries.size(); i++) {
                 WeightedScreen.Query q = queries.get(i);
                 Direction direction = q.passes() ? Direction.PASS : Direction.BLOCK;
-                boolean carries = onMeasured ? SearchService.keepsProof(direction, spec, d0, store.isBulk(c))
-                        : q.passes() && judgedFrom >= d0;
-                if (!skipped(i) && carries) {
-                    bound = Math.min(bound, Math.min(q.asMeasuredOnCurve(measured), q.behindLayerOnCurve(c, measured, judgedFrom)));
+                if (!skipped(i) && SearchService.keepsProof(direction, spec, d0, store.isBulk(c))) {
+                    bound = Math.min(bound, Math.min(q.asMeasuredOnCurve(curveToRead), q.behindLayerOnCurve(c, curveToRead, d0)));
+                    // judged on this very curve (keepsProof on the measured curve): an unverified clause there stays so
+                    cannotMeet |= q.unverifiedOnCurve();
                 }
             }
             return bound;
+        }
+
+        /**
+         * A pass at any judged thickness ≥ x read on the decoded curve (the second stage): as measured for x ≥ d0
+         * (the exact figure, or behind a layer the stack's per-point product), thinned below.
+         */
+        private double passOnCurve(WeightedScreen.Query q, double x) {
+            if (x >= store.thicknessMm(curve)) {
+                return Math.min(q.asMeasuredOnCurve(measured), q.behindLayerOnCurve(curve, measured, x));
+            }
+            return q.thinnedOnCurve(curve, measured, x);
         }
 
         /** P(x): an upper bound on every pass margin at any judged thickness ≥ x. */
@@ -314,6 +346,9 @@ final class WeightedMisses {
                 if (q.passes() && !skipped(i)) {
                     bound = Math.min(bound, Math.min(q.thinned(curve, x),
                             Math.min(q.asMeasuredIfNotThinner(curve, x), q.behindLayer(curve, x))));
+                    if (measured != null) {
+                        bound = Math.min(bound, passOnCurve(q, x));
+                    }
                 }
             }
             return bound;

@@ -282,6 +282,9 @@ public final class WeightedScreen {
         private final double[][] layerSharesOfRange = new double[ranges.size()][];
         /** Per range: {nm, weight, layerUp} of the figure's integration points ({@link #behindLayerOnCurve}). */
         private final double[][][] layerNodesOfRange = new double[ranges.size()][][];
+        /** Per range: {nm, weight} of the figure's integration points ({@link #thinnedOnCurve}). */
+        private final double[][][] nodesOfRange = new double[ranges.size()][][];
+        private boolean unverifiedOnCurve;
         private boolean reference;
         private int lnBCurve = -1;
         private double lnBOfCurve;
@@ -569,8 +572,8 @@ public final class WeightedScreen {
         }
 
         /**
-         * {@link #asMeasured} read on the curve itself: the exact figure's end the clause's margin can read at most
-         * (a pass: U, points below detection at their limit; a block: L, at 0), as the judgement computes it
+         * {@link #asMeasured} read on the curve itself: the exact figure's ends U (points below detection at their
+         * limit) and L (at 0), as the judgement computes them, and the margin the clause's verdict reads from them
          * ({@code Weighting.figureForMargin}, the same arithmetic as the answer's figure), moved by {@link #SLACK}
          * to the safe side. The second stage for a contender about to be judged (docs/weighted-screening.md, "A
          * second, exact-curve stage"); its use at other thicknesses follows the same rules as {@link #asMeasured}
@@ -579,6 +582,7 @@ public final class WeightedScreen {
          * judgement then says unverified, which no bound may call a miss).
          */
         public double asMeasuredOnCurve(Curve measured) {
+            unverifiedOnCurve = false;
             if (layerRange.isPresent()) {
                 return Double.POSITIVE_INFINITY;
             }
@@ -588,12 +592,34 @@ public final class WeightedScreen {
                 return Double.POSITIVE_INFINITY;
             }
             double u = upper.value().getAsDouble();
-            if (pass) {
-                return Math.log10(Math.max(u * (1 + SLACK), floor) / threshold);
-            }
             double l = upper.bound() != org.spectralsieve.weighting.Figure.Bound.AT_MOST ? u
-                    : weighting.figureForMargin(measured, BelowDetectionAs.ZERO).value().orElse(0);
-            return Math.log10(threshold / Math.max(Math.min(l, u) * (1 - SLACK), floor));
+                    : Math.min(u, weighting.figureForMargin(measured, BelowDetectionAs.ZERO).value().orElse(0));
+            // the clause's verdict as the judgement forms it (FigureClauses.weighted): a pass meets on L ≥ threshold
+            // (margin on L), misses on U < threshold (margin on U), else unverified; a block meets on U ≤ threshold
+            // (margin on U), misses on L > threshold (margin on L). Each case used only where the slack cannot flip it.
+            double up = 1 + SLACK;
+            double down = 1 - SLACK;
+            if (pass) {
+                if (l * down >= threshold) {
+                    return Math.log10(Math.max(l * up, floor) / threshold); // meets, on L
+                }
+                unverifiedOnCurve = l * up < threshold && u * down >= threshold;
+                return Math.log10(Math.max(u * up, floor) / threshold);
+            }
+            if (u * up <= threshold) {
+                return Math.log10(threshold / Math.max(u * down, floor)); // meets, on U
+            }
+            unverifiedOnCurve = u * down > threshold && l * up <= threshold;
+            return Math.log10(threshold / Math.max(l * down, floor));
+        }
+
+        /**
+         * Whether the last {@link #asMeasuredOnCurve} found the clause unverified on the curve (L below a pass's
+         * threshold and U at or above it; U above a block's and L at or below it, each beyond the slack): the
+         * sample's row judged on that curve cannot meet, whatever its margin.
+         */
+        public boolean unverifiedOnCurve() {
+            return unverifiedOnCurve;
         }
 
         /** {@link #asMeasured} for a pass judged at or above {@code thinnestMm} where that is not thinner than measured (else +∞). */
@@ -653,6 +679,81 @@ public final class WeightedScreen {
                 }
             }
             return Math.log10(Math.max(mean * (1 + SLACK), floor) / threshold);
+        }
+
+        /**
+         * {@link #thinned} read on the curve itself (the second stage, docs/weighted-screening.md, "A second,
+         * exact-curve stage"): the same map f of a measured upper reading, T(d) ≤ f(T0) (f rising in T0), applied
+         * at each integration point λ to candUp(λ), the largest max(T, limit) at the ends of the curve's intervals
+         * holding λ, instead of the bin's brightest: a value of the thinned curve at λ is interpolated between two
+         * thinned points, at most the larger, and each is at most f of its measured upper reading, whichever way
+         * its flag goes (a limit rescales like a reading). +∞ wherever {@link #thinned} is, or where the curve's
+         * range is not the stored one. {@code measured} must be the curve the store holds for {@code curve}.
+         */
+        public double thinnedOnCurve(int curve, Curve measured, double thinnestMm) {
+            if (!Double.isFinite(thinned(curve, thinnestMm))) {
+                return Double.POSITIVE_INFINITY;
+            }
+            int range = rangeOfCurve[curve];
+            double[] r = ranges.get(range);
+            if (measured.minWavelengthNm() != r[0] || measured.maxWavelengthNm() != r[1]) {
+                return Double.POSITIVE_INFINITY;
+            }
+            double[][] nodes = nodes(range);
+            if (nodes == null) {
+                return Double.POSITIVE_INFINITY;
+            }
+            Surfaces surfaces = surfaces(curve);
+            double k = thinnestMm / store.thicknessMm(curve);
+            double logLoss = surfaces.logLoss;
+            boolean withSurfaces = regular(curve) && surfaces.smallest >= 0;
+            double ceiling = withSurfaces ? surfaces.ceiling : Double.NaN;
+            double lnH = withSurfaces ? Math.max(surfaces.lnSmallestFactor(k), surfaces.lnLargestFactor(k)) : Double.NaN;
+            double[] nm = nodes[0];
+            double[] weight = nodes[1];
+            double[] wavelengths = measured.wavelengthsNm();
+            double sum = 0;
+            double total = 0;
+            int at = 0;
+            double lastUp = Double.NaN;
+            double lastT = 0;
+            for (int i = 0; i < nm.length; i++) {
+                while (at + 1 < wavelengths.length && wavelengths[at + 1] <= nm[i]) {
+                    at++;
+                }
+                int lo = wavelengths[at] == nm[i] ? Math.max(0, at - 1) : at;
+                int hi = Math.min(wavelengths.length - 1, at + 1);
+                double up = 0;
+                for (int j = lo; j <= hi; j++) {
+                    up = Math.max(up, Math.max(measured.transmittance(j), measured.detectionLimit(j)));
+                }
+                if (up != lastUp) { // neighbouring nodes mostly share their interval: one power per interval
+                    double ln = Math.log(Math.max(up, Double.MIN_NORMAL));
+                    double t = Math.min(1, Math.exp(-k * logLoss + k * ln) * (1 + POWER_ROOM) * (1 + SLACK));
+                    if (withSurfaces) {
+                        double resolved = Math.min(ceiling, Math.exp(lnH + k * ln) * (1 + POWER_ROOM));
+                        t = Math.min(t, Math.max(resolved, Math.min(1, up)) * (1 + SLACK));
+                    }
+                    lastUp = up;
+                    lastT = Math.max(t, Curve.ABSORBANCE_FLOOR_T);
+                }
+                sum += weight[i] * lastT;
+                total += weight[i];
+            }
+            if (!(total > 0)) {
+                return Double.POSITIVE_INFINITY;
+            }
+            return Math.log10(Math.max(sum / total * (1 + SLACK), floor) / threshold);
+        }
+
+        /** The range's integration points {nm, weight}, formed once per range; null where not available. */
+        private double[][] nodes(int range) {
+            double[][] out = nodesOfRange[range];
+            if (out == null) {
+                out = WeightedScreen.integrationNodes(clause.weighting(), ranges.get(range));
+                nodesOfRange[range] = out == null || out[0].length == 0 ? new double[0][] : out;
+            }
+            return out == null || out.length == 0 || out[0].length == 0 ? null : out;
         }
 
         /** {@link #thinned} with one exp per bin and the boxed reflectance cache: the arithmetic before. */
