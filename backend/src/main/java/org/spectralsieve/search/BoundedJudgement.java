@@ -48,13 +48,16 @@ final class BoundedJudgement {
      *                     thickness, so its row is at best a miss read from a value ({@link Standing#MISSES})
      * @param regular      it has a sample measured in regular geometry, so with diffuse rows ranked last it
      *                     competes with the regular rows only
-     * @param cannotMeet   every sample judged for it has a clause that is unverified on the curve it is judged on
-     *                     (the second stage), so its row is not in the group of met rows, whatever its margin
+     * @param cannotMeet   every sample judged for it has a clause that is unverified on the curve it is judged on,
+     *                     or is proven to miss (the second stage), so its row is not in the group of met rows
+     * @param unverifiedBound an upper bound on its row's worst margin should that row be unverified ({@code +∞}
+     *                     when nothing is known; the second stage as measured without a layer)
      */
-    record Contender(Material material, double bound, boolean provenToMiss, boolean regular, boolean cannotMeet) {
+    record Contender(Material material, double bound, boolean provenToMiss, boolean regular, boolean cannotMeet,
+                     double unverifiedBound) {
 
         Contender(Material material, double bound, boolean provenToMiss, boolean regular) {
-            this(material, bound, provenToMiss, regular, false);
+            this(material, bound, provenToMiss, regular, false, Double.POSITIVE_INFINITY);
         }
     }
 
@@ -148,7 +151,9 @@ final class BoundedJudgement {
      * and a worse group (a miss on a bound, not judged) only ranks lower. Any other contender may meet, with
      * a margin at most its bound, or be unverified, with any margin (the bounds say nothing about that group),
      * so only full rows of met rows with a larger margin keep it out, or full rows of met rows at all when it
-     * cannot meet (the second stage found a clause unverified on every curve it is judged on). A margin equal to the last row's could
+     * cannot meet (the second stage found a clause unverified, or a miss, on every curve it is judged on); and,
+     * when it cannot meet, full rows ending in an unverified row with a margin larger than its bound for an
+     * unverified row. A margin equal to the last row's could
      * enter (confidence and name decide ties), and so could anything against a NaN margin, which ranks last.
      */
     static boolean couldEnter(List<RankedRow> rows, int limit, Contender contender) {
@@ -169,6 +174,10 @@ final class BoundedJudgement {
         if (standing == Standing.MEETS) {
             // a row that cannot meet is in a lower group than every met row
             return !contender.cannotMeet() && (Double.isNaN(margin) || !(bound < margin));
+        }
+        if (standing == Standing.UNVERIFIED && contender.cannotMeet()) {
+            // its row is unverified with a worst margin at most that bound (a NaN one ranks last), or a miss
+            return Double.isNaN(margin) || !(contender.unverifiedBound() < margin);
         }
         return true;
     }

@@ -494,7 +494,7 @@ public class SearchService {
      * largest over the samples judged, proven to miss when every admitted sample's bound is negative and the
      * material is made at the asked thickness), each sample's bound the smallest of its sound bounds; and it
      * cannot meet when every sample judged has a clause the second stage finds unverified on the very curve it
-     * is judged on.
+     * is judged on, or a negative bound.
      */
     private BoundedJudgement.Contender refined(Snapshot s, BoundedJudgement.Contender c, Requirement requirement,
                                                Map<Long, Double> provenMiss, Map<Long, Double> marginBound,
@@ -504,11 +504,13 @@ public class SearchService {
         double bound = Double.NEGATIVE_INFINITY;
         boolean allMiss = true;
         boolean noneMeets = true;
+        double unverifiedBound = Double.NEGATIVE_INFINITY;
         for (SampleInfo sample : material.samples()) {
             if (!admits(requirement, material, sample)) {
                 continue;
             }
             boolean cannotMeet = false;
+            double ifUnverified = Double.POSITIVE_INFINITY;
             Double miss = provenMiss.get(sample.id());
             Double margin = marginBound.get(sample.id());
             double b = Math.min(miss == null ? Double.POSITIVE_INFINITY : miss,
@@ -519,6 +521,7 @@ public class SearchService {
                 if (measured.isPresent()) {
                     double onCurve = second.bound(row, measured.get());
                     cannotMeet = second.cannotMeet();
+                    ifUnverified = second.unverifiedBound();
                     if (onCurve < b) {
                         b = onCurve;
                     }
@@ -527,11 +530,16 @@ public class SearchService {
             allMiss &= b < 0;
             if (judgedSamples == null || judgedSamples.contains(sample.id())) {
                 bound = Math.max(bound, b);
-                noneMeets &= cannotMeet;
+                // a negative bound proves a miss (a met row's every margin is at least 0): no met row either
+                noneMeets &= cannotMeet || b < 0;
+                unverifiedBound = Math.max(unverifiedBound, ifUnverified);
             }
         }
+        // as measured and without a layer each sample is judged on the very curve read here, so an unverified
+        // row's clauses read the margins the second stage found (docs/weighted-screening.md)
+        boolean onTheCurve = requirement.thickness().kind() == ThicknessSpec.Kind.AS_MEASURED && requirement.layer().isEmpty();
         return new BoundedJudgement.Contender(material, bound, allMiss && madeFor(requirement.thickness(), material),
-                c.regular(), noneMeets);
+                c.regular(), noneMeets, onTheCurve ? unverifiedBound : Double.POSITIVE_INFINITY);
     }
 
     /**

@@ -151,6 +151,12 @@ final class WeightedMisses {
 
         /** Whether the sample of the last {@link #bound} is judged on that curve with a clause unverified: its row cannot meet. */
         boolean cannotMeet();
+
+        /**
+         * After {@link #bound}: a bound on the worst margin of the sample's row should it be unverified (−∞: it
+         * cannot be, +∞: nothing known), from the clauses read on the very curve the sample is judged on.
+         */
+        double unverifiedBound();
     }
 
     /** Curves from which the screen runs on more than one thread. */
@@ -236,6 +242,7 @@ final class WeightedMisses {
         private int curve;
         private boolean total;
         private boolean cannotMeet;
+        private double unverifiedBound = Double.POSITIVE_INFINITY;
         /** The decoded curve while the second stage runs ({@link #bound}), else null: P(x) then reads it too. */
         private org.spectralsieve.spectrum.Curve measured;
 
@@ -299,8 +306,14 @@ final class WeightedMisses {
         }
 
         @Override
+        public double unverifiedBound() {
+            return unverifiedBound;
+        }
+
+        @Override
         public double bound(int c, org.spectralsieve.spectrum.Curve curveToRead) {
             cannotMeet = false;
+            unverifiedBound = Double.POSITIVE_INFINITY;
             double d0 = store.thicknessMm(c);
             curve(c, store.isTotalGeometry(c) || diffuseLayer);
             boolean onMeasured = spec.kind() == ThicknessSpec.Kind.AS_MEASURED || judgedAsMeasured(spec, d0)
@@ -322,6 +335,7 @@ final class WeightedMisses {
                     bound = Math.min(bound, Math.min(q.asMeasuredOnCurve(curveToRead), q.behindLayerOnCurve(c, curveToRead, d0)));
                     // judged on this very curve (keepsProof on the measured curve): an unverified clause there stays so
                     cannotMeet |= q.unverifiedOnCurve();
+                    unverifiedBound = Math.min(unverifiedBound, q.unverifiedMarginBound());
                 }
             }
             return bound;

@@ -285,6 +285,7 @@ public final class WeightedScreen {
         /** Per range: {nm, weight} of the figure's integration points ({@link #thinnedOnCurve}). */
         private final double[][][] nodesOfRange = new double[ranges.size()][][];
         private boolean unverifiedOnCurve;
+        private double unverifiedMarginBound = Double.POSITIVE_INFINITY;
         private boolean reference;
         private int lnBCurve = -1;
         private double lnBOfCurve;
@@ -583,6 +584,7 @@ public final class WeightedScreen {
          */
         public double asMeasuredOnCurve(Curve measured) {
             unverifiedOnCurve = false;
+            unverifiedMarginBound = Double.POSITIVE_INFINITY;
             if (layerRange.isPresent()) {
                 return Double.POSITIVE_INFINITY;
             }
@@ -599,18 +601,35 @@ public final class WeightedScreen {
             // (margin on U), misses on L > threshold (margin on L). Each case used only where the slack cannot flip it.
             double up = 1 + SLACK;
             double down = 1 - SLACK;
+            // an unverified clause reads its margin on U, as a pass that misses and a block that meets do
             if (pass) {
                 if (l * down >= threshold) {
-                    return Math.log10(Math.max(l * up, floor) / threshold); // meets, on L
+                    unverifiedMarginBound = Math.log10(Math.max(l * up, floor) / threshold);
+                    return unverifiedMarginBound; // meets, on L
                 }
                 unverifiedOnCurve = l * up < threshold && u * down >= threshold;
-                return Math.log10(Math.max(u * up, floor) / threshold);
+                double onU = Math.log10(Math.max(u * up, floor) / threshold);
+                unverifiedMarginBound = u * up < threshold ? Double.NEGATIVE_INFINITY : onU; // a sure miss: no unverified row
+                return onU;
             }
+            double onU = Math.log10(threshold / Math.max(u * down, floor));
             if (u * up <= threshold) {
-                return Math.log10(threshold / Math.max(u * down, floor)); // meets, on U
+                unverifiedMarginBound = onU;
+                return onU; // meets, on U
             }
             unverifiedOnCurve = u * down > threshold && l * up <= threshold;
+            unverifiedMarginBound = l * down > threshold ? Double.NEGATIVE_INFINITY : onU; // met or unverified: on U
             return Math.log10(threshold / Math.max(l * down, floor));
+        }
+
+        /**
+         * After {@link #asMeasuredOnCurve}: a bound on the clause's margin when the clause meets or is unverified
+         * (both read a block's margin on U; a pass's on L when it meets, on U when unverified), −∞ when it surely
+         * misses (the row is then a miss, never unverified), +∞ where nothing was read. An unverified row's worst
+         * margin is the smallest of its clauses' margins, so the smallest of these bounds it.
+         */
+        public double unverifiedMarginBound() {
+            return unverifiedMarginBound;
         }
 
         /**

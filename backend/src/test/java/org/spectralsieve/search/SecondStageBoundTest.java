@@ -40,7 +40,8 @@ import org.springframework.core.io.DefaultResourceLoader;
  * stage"): every sample's bound on its decoded curve ({@link WeightedMisses#secondStage}) is at least the exact
  * worst margin of the row the exact judgement ({@link MaterialJudge}) gives it, wherever it is judged (as
  * measured, at an asked thickness, over a solved range, behind the demo glass), for rows that meet or miss on a
- * value; a sample it says cannot meet never meets; and through the whole search the answer is the one of
+ * value; as measured without a layer, an unverified row's worst margin is at most the bound for unverified
+ * rows; a sample it says cannot meet never meets; and through the whole search the answer is the one of
  * judging every sample ({@link ExactReference}) with fewer samples judged than without the stage. The library
  * is the demo library plus illustrative synthetic stock (the invented Fernhollow workshop); requirements from
  * the trade's wordings (common practice, no source); a fixed seed (jqwik is not available offline).
@@ -67,6 +68,7 @@ class SecondStageBoundTest {
         int tighter = 0;
         int cannotMeet = 0;
         int caughtWhenTooTight = 0;
+        int unverifiedBounded = 0;
         for (int trial = 0; trial < 16; trial++) {
             String text = randomRequirement(random, trial);
             Requirement requirement = RequirementParser.parse(text);
@@ -86,10 +88,20 @@ class SecondStageBoundTest {
                 }
                 double bound = second.bound(curve, library.findCurve(store.sampleId(curve)).orElseThrow());
                 boolean noMeet = second.cannotMeet();
+                double ifUnverified = second.unverifiedBound();
                 String what = text + ", sample " + store.sampleId(curve) + " (" + row.standing() + ")";
                 if (noMeet) {
                     cannotMeet++;
                     assertThat(row.standing()).as(what + " said it cannot meet").isNotEqualTo(Standing.MEETS);
+                }
+                boolean onTheCurve = requirement.thickness().kind() == org.spectralsieve.requirement.ThicknessSpec.Kind.AS_MEASURED
+                        && layer.isEmpty();
+                if (onTheCurve && row.standing() == Standing.UNVERIFIED && !Double.isNaN(row.worstMarginDecades())) {
+                    assertThat(row.worstMarginDecades()).as(what + " if unverified").isLessThanOrEqualTo(ifUnverified);
+                    unverifiedBounded += ifUnverified < Double.POSITIVE_INFINITY ? 1 : 0;
+                }
+                if (onTheCurve && ifUnverified == Double.NEGATIVE_INFINITY) {
+                    assertThat(row.standing()).as(what + " said it cannot be unverified").isNotEqualTo(Standing.UNVERIFIED);
                 }
                 if (bound < Double.POSITIVE_INFINITY && holdsFor(row)) {
                     bounded++;
@@ -103,6 +115,7 @@ class SecondStageBoundTest {
         assertThat(bounded).as("not vacuous: rows bounded").isGreaterThan(1_000);
         assertThat(tighter).as("the second stage is tighter than the bins on many rows").isGreaterThan(300);
         assertThat(cannotMeet).as("unverified clauses found").isGreaterThan(20);
+        assertThat(unverifiedBounded).as("unverified rows bounded").isGreaterThan(20);
         assertThat(caughtWhenTooTight).as("a bound tighter by 0.002 decades would fail").isGreaterThan(50);
     }
 
