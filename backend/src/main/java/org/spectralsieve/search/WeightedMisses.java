@@ -298,7 +298,7 @@ final class WeightedMisses {
          * clause whose proof carries over ({@link SearchService#keepsProof}) on the exact figure or, behind a
          * layer, the stack's per-point product; judged rescaled in [lo, hi], the split rule of {@link #rescaled}
          * with P(x) also read on the curve (as measured where x is not thinner than measured, else thinned; T only
-         * falls as the sample thickens) and Q(x) from the bins. Each bound is the smaller of two sound ones.
+         * falls as the sample thickens) and Q(x) too (thickened). Each bound is the smaller of two sound ones.
          */
         @Override
         public boolean cannotMeet() {
@@ -375,6 +375,9 @@ final class WeightedMisses {
                 WeightedScreen.Query q = queries.get(i);
                 if (!q.passes() && !skipped(i)) {
                     bound = Math.min(bound, q.thickened(curve, x));
+                    if (measured != null) {
+                        bound = Math.min(bound, q.thickenedOnCurve(curve, measured, x));
+                    }
                 }
             }
             return bound;

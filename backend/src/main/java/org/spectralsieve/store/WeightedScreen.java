@@ -892,6 +892,67 @@ public final class WeightedScreen {
             return Math.log10(threshold / Math.max(mean * (1 - SLACK), floor));
         }
 
+        /**
+         * {@link #thickened} read on the curve itself (the second stage, docs/weighted-screening.md, "A second,
+         * exact-curve stage"): the same map g(t) = c·(max(t, ε)/B)^k, which every value of the lower end L at the
+         * judged thickness is at least (a power, so it commutes with the absorbance interpolation), applied at each
+         * integration point to L0(λ), the measured curve's own lower end there (points below detection at 0,
+         * absorbance interpolated between the two points around λ), instead of the bin's darkest, which is at most
+         * L0(λ). A stored point read at exactly 0 adds nothing. +∞ wherever {@link #thickened} is, or where the
+         * curve's range is not the stored one. {@code measured} must be the curve the store holds for {@code curve}.
+         */
+        public double thickenedOnCurve(int curve, Curve measured, double thickestMm) {
+            if (!Double.isFinite(thickened(curve, thickestMm))) {
+                return Double.POSITIVE_INFINITY;
+            }
+            int range = rangeOfCurve[curve];
+            double[] r = ranges.get(range);
+            if (measured.minWavelengthNm() != r[0] || measured.maxWavelengthNm() != r[1]) {
+                return Double.POSITIVE_INFINITY;
+            }
+            double[][] nodes = nodes(range);
+            if (nodes == null) {
+                return Double.POSITIVE_INFINITY;
+            }
+            double k = Math.max(1, thickestMm / store.thicknessMm(curve));
+            double c = k > 1 ? 1 - surfaces(curve).largest * surfaces(curve).largest : 1;
+            double lnFactor = Math.log(c) - k * lnBOfCurve; // thickened() formed lnBOfCurve for this curve
+            double[] nm = nodes[0];
+            double[] weight = nodes[1];
+            double[] wavelengths = measured.wavelengthsNm();
+            double sum = 0;
+            double total = 0;
+            int at = 0;
+            for (int i = 0; i < nm.length; i++) {
+                while (at + 1 < wavelengths.length && wavelengths[at + 1] <= nm[i]) {
+                    at++;
+                }
+                double lower = lowerAt(measured, at, nm[i]);
+                if (lower > 0) {
+                    double ln = Math.log(Math.max(lower, Curve.ABSORBANCE_FLOOR_T));
+                    sum += weight[i] * Math.exp(lnFactor + k * ln) * (1 - POWER_ROOM);
+                }
+                total += weight[i];
+            }
+            if (!(total > 0)) {
+                return Double.POSITIVE_INFINITY;
+            }
+            return Math.log10(threshold / Math.max(sum / total * (1 - SLACK), floor));
+        }
+
+        /** The measured lower end at nm (points below detection at 0), point {@code at} the last at or before it. */
+        private static double lowerAt(Curve measured, int at, double nm) {
+            double t0 = measured.belowDetection(at) ? 0 : measured.transmittance(at);
+            if (measured.wavelengthNm(at) == nm || at + 1 >= measured.size()) {
+                return t0;
+            }
+            double t1 = measured.belowDetection(at + 1) ? 0 : measured.transmittance(at + 1);
+            double f = (nm - measured.wavelengthNm(at)) / (measured.wavelengthNm(at + 1) - measured.wavelengthNm(at));
+            double a0 = -Math.log10(Math.max(t0, Curve.ABSORBANCE_FLOOR_T));
+            double a1 = -Math.log10(Math.max(t1, Curve.ABSORBANCE_FLOOR_T));
+            return Math.pow(10, -(a0 * (1 - f) + a1 * f));
+        }
+
         /** {@link #thickened} with one exp per bin and the boxed reflectance cache: the arithmetic before. */
         private double thickenedReference(int curve, double thickestMm) {
             double d0 = store.thicknessMm(curve);
