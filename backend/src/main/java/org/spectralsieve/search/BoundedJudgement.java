@@ -91,8 +91,8 @@ final class BoundedJudgement {
     }
 
     /**
-     * {@link #judge(List, int, Ranker, Function, boolean)} with a second look before each judgement
-     * (docs/weighted-screening.md, "A second, exact-curve stage"): the contender of largest bound is
+     * {@link #judge(List, int, Ranker, Function, boolean)} with a second look before each judgement once the rows
+     * are full (docs/weighted-screening.md, "A second, exact-curve stage"): the contender of largest bound is
      * {@code refine}d first (a bound on its own curves, sound as the first), put back by its second bound, and
      * judged only when it comes first again by that one; so materials are judged in the order of their second
      * bounds, and a second bound is formed only for contenders whose first bound reaches the rows. A contender
@@ -118,7 +118,8 @@ final class BoundedJudgement {
                 if (!couldEnter(competing, limit, p.contender())) {
                     continue;
                 }
-                if (p.refined()) {
+                if (p.refined() || competing.size() < limit) {
+                    // rows not yet full take anything: a second bound could not keep the contender out
                     batch.add(p.contender().material());
                 } else {
                     queue.add(new Pending(refine.apply(p.contender()), true));

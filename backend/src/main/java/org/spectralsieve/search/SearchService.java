@@ -472,10 +472,22 @@ public class SearchService {
         }
         BoundedJudgement.Ranker ranker = new BoundedJudgement.Ranker(list -> rank(s, requirement, list, limit),
                 grouped ? list -> Ranking.rank(regularOnly(s, list), limit) : null);
-        WeightedMisses.SecondStage second = secondStage && screenWeighted && !earlierWeightedScreen && !rowOf.isEmpty()
-                ? WeightedMisses.secondStage(s.store(), requirement, layer, diffuseLayer, weightedLayerBlocks) : null;
-        java.util.function.UnaryOperator<BoundedJudgement.Contender> refine = second == null ? null
-                : c -> refined(s, c, requirement, provenMiss, marginBound, rowOf, judgedOf.get(c.material().id()), second);
+        // formed at the first contender that reaches full rows (often none on a small library), on the loop's thread
+        java.util.function.Supplier<WeightedMisses.SecondStage> second = new java.util.function.Supplier<>() {
+            private WeightedMisses.SecondStage formed;
+
+            @Override
+            public WeightedMisses.SecondStage get() {
+                if (formed == null) {
+                    formed = WeightedMisses.secondStage(s.store(), requirement, layer, diffuseLayer, weightedLayerBlocks);
+                }
+                return formed;
+            }
+        };
+        java.util.function.UnaryOperator<BoundedJudgement.Contender> refine =
+                secondStage && screenWeighted && !earlierWeightedScreen && !rowOf.isEmpty()
+                ? c -> refined(s, c, requirement, provenMiss, marginBound, rowOf, judgedOf.get(c.material().id()), second.get())
+                : null;
         // the prepared map is complete before any judging thread reads it, and never written after
         List<MaterialEvaluation> exact = BoundedJudgement.judge(contenders, limit, ranker,
                 m -> {
@@ -515,7 +527,7 @@ public class SearchService {
             Double margin = marginBound.get(sample.id());
             double b = Math.min(miss == null ? Double.POSITIVE_INFINITY : miss,
                     margin == null || Double.isNaN(margin) ? Double.POSITIVE_INFINITY : margin);
-            Integer row = rowOf.get(sample.id());
+            Integer row = second == null ? null : rowOf.get(sample.id());
             if (row != null) {
                 Optional<Curve> measured = curve(s, sample.id()); // the curve the judgement reads, cached for it
                 if (measured.isPresent()) {
