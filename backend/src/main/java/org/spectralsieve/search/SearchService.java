@@ -406,10 +406,13 @@ public class SearchService {
         Map<Long, Double> marginBound = new HashMap<>();
         // the store row of each sample with a bound, for the second stage (only those: it only tightens a bound)
         Map<Long, Integer> rowOf = new HashMap<>();
+        WeightedMisses.SecondStage formedSecond = null;
         if (screenWeighted && earlierWeightedScreen) {
             WeightedMisses.addEarlier(provenMiss, s.store(), requirement, layer, diffuseLayer);
         } else if (screenWeighted) {
-            double[] bounds = WeightedMisses.marginBounds(s.store(), requirement, layer, diffuseLayer, weightedLayerBlocks);
+            WeightedMisses.Screen screen = WeightedMisses.screen(s.store(), requirement, layer, diffuseLayer, weightedLayerBlocks);
+            formedSecond = screen.secondStage();
+            double[] bounds = screen.bounds();
             for (int curve = 0; curve < bounds.length; curve++) {
                 if (bounds[curve] < 0) {
                     provenMiss.merge(s.store().sampleId(curve), bounds[curve], Math::min);
@@ -472,21 +475,10 @@ public class SearchService {
         }
         BoundedJudgement.Ranker ranker = new BoundedJudgement.Ranker(list -> rank(s, requirement, list, limit),
                 grouped ? list -> Ranking.rank(regularOnly(s, list), limit) : null);
-        // formed at the first contender that reaches full rows (often none on a small library), on the loop's thread
-        java.util.function.Supplier<WeightedMisses.SecondStage> second = new java.util.function.Supplier<>() {
-            private WeightedMisses.SecondStage formed;
-
-            @Override
-            public WeightedMisses.SecondStage get() {
-                if (formed == null) {
-                    formed = WeightedMisses.secondStage(s.store(), requirement, layer, diffuseLayer, weightedLayerBlocks);
-                }
-                return formed;
-            }
-        };
-        java.util.function.UnaryOperator<BoundedJudgement.Contender> refine =
-                secondStage && screenWeighted && !earlierWeightedScreen && !rowOf.isEmpty()
-                ? c -> refined(s, c, requirement, provenMiss, marginBound, rowOf, judgedOf.get(c.material().id()), second.get())
+        // the screen's own queries, asked only from the loop's thread once the rows are full
+        WeightedMisses.SecondStage second = formedSecond;
+        java.util.function.UnaryOperator<BoundedJudgement.Contender> refine = secondStage && second != null && !rowOf.isEmpty()
+                ? c -> refined(s, c, requirement, provenMiss, marginBound, rowOf, judgedOf.get(c.material().id()), second)
                 : null;
         // the prepared map is complete before any judging thread reads it, and never written after
         List<MaterialEvaluation> exact = BoundedJudgement.judge(contenders, limit, ranker,

@@ -159,6 +159,31 @@ final class WeightedMisses {
         double unverifiedBound();
     }
 
+    /**
+     * {@link #marginBounds(SpectralStore, Requirement, Optional, boolean, boolean)} and the second stage of the same
+     * search; below {@link #PARALLEL_FROM} curves the second stage is the very queries the bounds were formed with,
+     * so their per-range tables (shares, integration points, surfaces) are formed once per search.
+     */
+    static Screen screen(SpectralStore store, Requirement requirement, Optional<StackLayer> layer, boolean diffuseLayer,
+                         boolean layerBlocks) {
+        Optional<WeightedScreen.LayerBins> layerBins = layer.map(l -> WeightedScreen.LayerBins.of(l.curve(), l.index()));
+        int size = store.size();
+        Bounds whole = bounds(store, requirement, layer, layerBins, diffuseLayer, false, layerBlocks, 0, size);
+        if (whole == null) {
+            return new Screen(new double[0], null);
+        }
+        if (size >= PARALLEL_FROM) {
+            return new Screen(marginBounds(store, requirement, layer, diffuseLayer, false, PARALLEL_FROM, layerBlocks), whole);
+        }
+        double[] bound = new double[size];
+        whole.into(bound);
+        return new Screen(bound, whole);
+    }
+
+    /** Each curve's bound ({@link #marginBounds}) and the search's second stage (null when no clause is screened). */
+    record Screen(double[] bounds, SecondStage secondStage) {
+    }
+
     /** Curves from which the screen runs on more than one thread. */
     private static final int PARALLEL_FROM = 65_536;
     /** At most this many parts (the service's machines have two cores; more parts only queue). */
