@@ -3,7 +3,9 @@ package org.spectralsieve.search;
 import java.util.ArrayList;
 import java.util.Comparator;
 import java.util.List;
+import java.util.PriorityQueue;
 import java.util.function.Function;
+import java.util.function.UnaryOperator;
 import org.spectralsieve.library.Material;
 import org.spectralsieve.requirement.MaterialEvaluation;
 import org.spectralsieve.requirement.RankedRow;
@@ -46,8 +48,17 @@ final class BoundedJudgement {
      *                     thickness, so its row is at best a miss read from a value ({@link Standing#MISSES})
      * @param regular      it has a sample measured in regular geometry, so with diffuse rows ranked last it
      *                     competes with the regular rows only
+     * @param cannotMeet   every sample judged for it has a clause that is unverified on the curve it is judged on,
+     *                     or is proven to miss (the second stage), so its row is not in the group of met rows
+     * @param unverifiedBound an upper bound on its row's worst margin should that row be unverified ({@code +∞}
+     *                     when nothing is known; the second stage as measured without a layer)
      */
-    record Contender(Material material, double bound, boolean provenToMiss, boolean regular) {
+    record Contender(Material material, double bound, boolean provenToMiss, boolean regular, boolean cannotMeet,
+                     double unverifiedBound) {
+
+        Contender(Material material, double bound, boolean provenToMiss, boolean regular) {
+            this(material, bound, provenToMiss, regular, false, Double.POSITIVE_INFINITY);
+        }
     }
 
     /** Largest bound first (an unknown one counts as the largest), then by material id: the judging order. */
@@ -76,20 +87,42 @@ final class BoundedJudgement {
      */
     static List<MaterialEvaluation> judge(List<Contender> contenders, int limit, Ranker ranker,
                                           Function<Material, List<MaterialEvaluation>> judge, boolean parallel) {
-        List<Contender> ordered = new ArrayList<>(contenders);
-        ordered.sort(ORDER);
+        return judge(contenders, limit, ranker, judge, parallel, null);
+    }
+
+    /**
+     * {@link #judge(List, int, Ranker, Function, boolean)} with a second look before each judgement once the rows
+     * are full (docs/weighted-screening.md, "A second, exact-curve stage"): the contender of largest bound is
+     * {@code refine}d first (a bound on its own curves, sound as the first), put back by its second bound, and
+     * judged only when it comes first again by that one; so materials are judged in the order of their second
+     * bounds, and a second bound is formed only for contenders whose first bound reaches the rows. A contender
+     * left out by either bound could not enter, so the answer is the same; only the work changes. With
+     * {@code refine} null every first bound is taken as final (the loop before the second stage).
+     */
+    static List<MaterialEvaluation> judge(List<Contender> contenders, int limit, Ranker ranker,
+                                          Function<Material, List<MaterialEvaluation>> judge, boolean parallel,
+                                          UnaryOperator<Contender> refine) {
+        PriorityQueue<Pending> queue = new PriorityQueue<>(contenders.size() + 1,
+                Comparator.comparing(Pending::contender, ORDER));
+        contenders.forEach(c -> queue.add(new Pending(c, refine == null)));
         int batchSize = parallel ? PARALLEL_BATCH : 1;
         List<MaterialEvaluation> exact = new ArrayList<>();
         List<RankedRow> rows = List.of();
         List<RankedRow> regularRows = List.of();
-        int next = 0;
-        while (next < ordered.size()) {
+        while (!queue.isEmpty()) {
             List<Material> batch = new ArrayList<>(batchSize);
-            while (next < ordered.size() && batch.size() < batchSize) {
-                Contender c = ordered.get(next++);
+            while (!queue.isEmpty() && batch.size() < batchSize) {
+                Pending p = queue.poll();
                 // grouped: a material with a regular sample competes only with the regular rows, which come first
-                if (couldEnter(c.regular() ? regularRows : rows, limit, c)) {
-                    batch.add(c.material());
+                List<RankedRow> competing = p.contender().regular() ? regularRows : rows;
+                if (!couldEnter(competing, limit, p.contender())) {
+                    continue;
+                }
+                if (p.refined() || competing.size() < limit) {
+                    // rows not yet full take anything: a second bound could not keep the contender out
+                    batch.add(p.contender().material());
+                } else {
+                    queue.add(new Pending(refine.apply(p.contender()), true));
                 }
             }
             if (batch.isEmpty()) {
@@ -108,13 +141,20 @@ final class BoundedJudgement {
         return exact;
     }
 
+    /** A contender waiting in the judging order, and whether its bound is final (second stage formed or none). */
+    private record Pending(Contender contender, boolean refined) {
+    }
+
     /**
      * Whether the contender could take a place in the rows (full rows: {@code limit} of them, the last one
      * deciding). A contender proven to miss is at best a miss read from a value with margin at most its
      * bound: the screen proves the miss on a reading above detection, so the row is never in a better group,
      * and a worse group (a miss on a bound, not judged) only ranks lower. Any other contender may meet, with
      * a margin at most its bound, or be unverified, with any margin (the bounds say nothing about that group),
-     * so only full rows of met rows with a larger margin keep it out. A margin equal to the last row's could
+     * so only full rows of met rows with a larger margin keep it out, or full rows of met rows at all when it
+     * cannot meet (the second stage found a clause unverified, or a miss, on every curve it is judged on); and,
+     * when it cannot meet, full rows ending in an unverified row with a margin larger than its bound for an
+     * unverified row. A margin equal to the last row's could
      * enter (confidence and name decide ties), and so could anything against a NaN margin, which ranks last.
      */
     static boolean couldEnter(List<RankedRow> rows, int limit, Contender contender) {
@@ -133,7 +173,12 @@ final class BoundedJudgement {
             return standing != Standing.MISSES || Double.isNaN(margin) || !(bound < margin);
         }
         if (standing == Standing.MEETS) {
-            return Double.isNaN(margin) || !(bound < margin);
+            // a row that cannot meet is in a lower group than every met row
+            return !contender.cannotMeet() && (Double.isNaN(margin) || !(bound < margin));
+        }
+        if (standing == Standing.UNVERIFIED && contender.cannotMeet()) {
+            // its row is unverified with a worst margin at most that bound (a NaN one ranks last), or a miss
+            return Double.isNaN(margin) || !(contender.unverifiedBound() < margin);
         }
         return true;
     }

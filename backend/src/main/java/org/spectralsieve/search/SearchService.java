@@ -118,6 +118,12 @@ public class SearchService {
      * only so a benchmark can time the rule before them side by side ({@link #withEarlierLayerBounds}).
      */
     private boolean weightedLayerBlocks = true;
+    /**
+     * Whether a contender about to be judged gets a second bound on its own decoded curve
+     * ({@link WeightedMisses#secondStage}); off only so a benchmark and tests can compare both ways
+     * ({@link #withoutSecondStage}).
+     */
+    private boolean secondStage = true;
     /** How requirements the store cannot rank are judged ({@link #searchExactly}); other ways for benchmarks and tests. */
     private Judging judging = Judging.BOUNDED_PARALLEL;
 
@@ -189,6 +195,16 @@ public class SearchService {
      */
     public SearchService withEarlierLayerBounds() {
         this.weightedLayerBlocks = false;
+        return this;
+    }
+
+    /**
+     * The same service without the second, exact-curve stage of the bounded judging loop
+     * (docs/weighted-screening.md, "A second, exact-curve stage"): the same answers, more samples judged; for
+     * benchmarks and tests that compare both side by side.
+     */
+    public SearchService withoutSecondStage() {
+        this.secondStage = false;
         return this;
     }
 
@@ -416,16 +432,22 @@ public class SearchService {
         }
         // an upper bound on each sample's margin of either sign, for rows that meet (WeightedMisses#marginBounds)
         Map<Long, Double> marginBound = new HashMap<>();
+        // the store row of each sample with a bound, for the second stage (only those: it only tightens a bound)
+        Map<Long, Integer> rowOf = new HashMap<>();
+        WeightedMisses.SecondStage formedSecond = null;
         if (screenWeighted && earlierWeightedScreen) {
             WeightedMisses.addEarlier(provenMiss, s.store(), requirement, layer, diffuseLayer);
         } else if (screenWeighted) {
-            double[] bounds = WeightedMisses.marginBounds(s.store(), requirement, layer, diffuseLayer, weightedLayerBlocks);
+            WeightedMisses.Screen screen = WeightedMisses.screen(s.store(), requirement, layer, diffuseLayer, weightedLayerBlocks);
+            formedSecond = screen.secondStage();
+            double[] bounds = screen.bounds();
             for (int curve = 0; curve < bounds.length; curve++) {
                 if (bounds[curve] < 0) {
                     provenMiss.merge(s.store().sampleId(curve), bounds[curve], Math::min);
                 }
                 if (bounds[curve] < Double.POSITIVE_INFINITY) {
                     marginBound.merge(s.store().sampleId(curve), bounds[curve], Math::min);
+                    rowOf.put(s.store().sampleId(curve), curve);
                 }
             }
         }
@@ -434,6 +456,7 @@ public class SearchService {
         s.unusable().forEach(id -> {
             provenMiss.remove(id);
             marginBound.remove(id);
+            rowOf.remove(id);
         });
         boolean grouped = diffuseLast(requirement);
         ThicknessSpec spec = requirement.thickness();
@@ -441,6 +464,7 @@ public class SearchService {
         // bound is the largest over those alone, so the candidates are made first (and kept for the judgement)
         boolean onlyJudgedSamples = spec.kind() != ThicknessSpec.Kind.AS_MEASURED && !marginBound.isEmpty();
         Map<Long, Prepared> prepared = new HashMap<>();
+        Map<Long, Set<Long>> judgedOf = new HashMap<>();
         List<BoundedJudgement.Contender> contenders = new ArrayList<>();
         int admitted = 0;
         for (Material material : s.materials().values().stream().sorted(Comparator.comparingLong(Material::id))
@@ -450,6 +474,7 @@ public class SearchService {
                 Prepared p = prepare(s, material, requirement, diffuseLayer);
                 prepared.put(material.id(), p);
                 judgedSamples = p.judgedSamples(spec);
+                judgedOf.put(material.id(), judgedSamples);
             }
             double bound = Double.NEGATIVE_INFINITY;
             boolean allMiss = true;
@@ -478,16 +503,75 @@ public class SearchService {
         }
         BoundedJudgement.Ranker ranker = new BoundedJudgement.Ranker(list -> rank(s, requirement, list, limit),
                 grouped ? list -> Ranking.rank(regularOnly(s, list), limit) : null);
+        // the screen's own queries, asked only from the loop's thread once the rows are full
+        WeightedMisses.SecondStage second = formedSecond;
+        java.util.function.UnaryOperator<BoundedJudgement.Contender> refine = secondStage && second != null && !rowOf.isEmpty()
+                ? c -> refined(s, c, requirement, provenMiss, marginBound, rowOf, judgedOf.get(c.material().id()), second)
+                : null;
         // the prepared map is complete before any judging thread reads it, and never written after
         List<MaterialEvaluation> exact = BoundedJudgement.judge(contenders, limit, ranker,
                 m -> {
                     Prepared ready = prepared.get(m.id());
                     return ready != null ? ready.judge(requirement, layer) : judge(s, m, requirement, layer, diffuseLayer);
-                }, judging == Judging.BOUNDED_PARALLEL && contenders.size() >= parallelFrom);
+                }, judging == Judging.BOUNDED_PARALLEL && contenders.size() >= parallelFrom, refine);
         List<RankedRow> rows = rank(s, requirement, exact, limit); // once, from every judgement: the answer's own rows
         double tookMs = (System.nanoTime() - started) / 1e6;
         return new Shortlist(requirement, rows, admitted, exact.size(), tookMs, layer, geometries(s, rows),
                 revisions(s, rows), measured(s, rows));
+    }
+
+    /**
+     * The contender again with each admitted sample's bound lowered by the second stage on its decoded curve
+     * ({@link WeightedMisses#secondStage}): the same rule as the first bounds in {@link #searchExactly} (the
+     * largest over the samples judged, proven to miss when every admitted sample's bound is negative and the
+     * material is made at the asked thickness), each sample's bound the smallest of its sound bounds; and it
+     * cannot meet when every sample judged has a clause the second stage finds unverified on the very curve it
+     * is judged on, or a negative bound.
+     */
+    private BoundedJudgement.Contender refined(Snapshot s, BoundedJudgement.Contender c, Requirement requirement,
+                                               Map<Long, Double> provenMiss, Map<Long, Double> marginBound,
+                                               Map<Long, Integer> rowOf, Set<Long> judgedSamples,
+                                               WeightedMisses.SecondStage second) {
+        Material material = c.material();
+        double bound = Double.NEGATIVE_INFINITY;
+        boolean allMiss = true;
+        boolean noneMeets = true;
+        double unverifiedBound = Double.NEGATIVE_INFINITY;
+        for (SampleInfo sample : material.samples()) {
+            if (!admits(requirement, material, sample)) {
+                continue;
+            }
+            boolean cannotMeet = false;
+            double ifUnverified = Double.POSITIVE_INFINITY;
+            Double miss = provenMiss.get(sample.id());
+            Double margin = marginBound.get(sample.id());
+            double b = Math.min(miss == null ? Double.POSITIVE_INFINITY : miss,
+                    margin == null || Double.isNaN(margin) ? Double.POSITIVE_INFINITY : margin);
+            Integer row = second == null ? null : rowOf.get(sample.id());
+            if (row != null) {
+                Optional<Curve> measured = curve(s, sample.id()); // the curve the judgement reads, cached for it
+                if (measured.isPresent()) {
+                    double onCurve = second.bound(row, measured.get());
+                    cannotMeet = second.cannotMeet();
+                    ifUnverified = second.unverifiedBound();
+                    if (onCurve < b) {
+                        b = onCurve;
+                    }
+                }
+            }
+            allMiss &= b < 0;
+            if (judgedSamples == null || judgedSamples.contains(sample.id())) {
+                bound = Math.max(bound, b);
+                // a negative bound proves a miss (a met row's every margin is at least 0): no met row either
+                noneMeets &= cannotMeet || b < 0;
+                unverifiedBound = Math.max(unverifiedBound, ifUnverified);
+            }
+        }
+        // as measured and without a layer each sample is judged on the very curve read here, so an unverified
+        // row's clauses read the margins the second stage found (docs/weighted-screening.md)
+        boolean onTheCurve = requirement.thickness().kind() == ThicknessSpec.Kind.AS_MEASURED && requirement.layer().isEmpty();
+        return new BoundedJudgement.Contender(material, bound, allMiss && madeFor(requirement.thickness(), material),
+                c.regular(), noneMeets, onTheCurve ? unverifiedBound : Double.POSITIVE_INFINITY);
     }
 
     /**

@@ -128,6 +128,62 @@ final class WeightedMisses {
         return bound;
     }
 
+    /**
+     * The second stage (docs/weighted-screening.md, "A second, exact-curve stage"): per sample, on its decoded
+     * curve, a bound on its exact worst margin that no bin or code rounding loosens, for a contender about to be
+     * judged; null when the requirement has no weighted clause the screen bounds. Not thread-safe (one per search,
+     * asked from the judging loop's own thread).
+     */
+    static SecondStage secondStage(SpectralStore store, Requirement requirement, Optional<StackLayer> layer,
+                                   boolean diffuseLayer, boolean layerBlocks) {
+        Optional<WeightedScreen.LayerBins> layerBins = layer.map(l -> WeightedScreen.LayerBins.of(l.curve(), l.index()));
+        Bounds bounds = bounds(store, requirement, layer, layerBins, diffuseLayer, false, layerBlocks, 0, store.size());
+        return bounds;
+    }
+
+    /** A bound on a sample's exact worst margin read on its decoded curve: +∞ where this stage proves nothing. */
+    interface SecondStage {
+        /**
+         * @param curve    the sample's store row
+         * @param measured the curve the store holds for it, as decoded for the judgement
+         */
+        double bound(int curve, org.spectralsieve.spectrum.Curve measured);
+
+        /** Whether the sample of the last {@link #bound} is judged on that curve with a clause unverified: its row cannot meet. */
+        boolean cannotMeet();
+
+        /**
+         * After {@link #bound}: a bound on the worst margin of the sample's row should it be unverified (−∞: it
+         * cannot be, +∞: nothing known), from the clauses read on the very curve the sample is judged on.
+         */
+        double unverifiedBound();
+    }
+
+    /**
+     * {@link #marginBounds(SpectralStore, Requirement, Optional, boolean, boolean)} and the second stage of the same
+     * search; below {@link #PARALLEL_FROM} curves the second stage is the very queries the bounds were formed with,
+     * so their per-range tables (shares, integration points, surfaces) are formed once per search.
+     */
+    static Screen screen(SpectralStore store, Requirement requirement, Optional<StackLayer> layer, boolean diffuseLayer,
+                         boolean layerBlocks) {
+        Optional<WeightedScreen.LayerBins> layerBins = layer.map(l -> WeightedScreen.LayerBins.of(l.curve(), l.index()));
+        int size = store.size();
+        Bounds whole = bounds(store, requirement, layer, layerBins, diffuseLayer, false, layerBlocks, 0, size);
+        if (whole == null) {
+            return new Screen(new double[0], null);
+        }
+        if (size >= PARALLEL_FROM) {
+            return new Screen(marginBounds(store, requirement, layer, diffuseLayer, false, PARALLEL_FROM, layerBlocks), whole);
+        }
+        double[] bound = new double[size];
+        whole.into(bound);
+        return new Screen(bound, whole);
+    }
+
+    /** Each curve's bound ({@link #marginBounds}) and the search's second stage (null when no clause is screened). */
+    record Screen(double[] bounds, SecondStage secondStage) {
+    }
+
     /** Curves from which the screen runs on more than one thread. */
     private static final int PARALLEL_FROM = 65_536;
     /** At most this many parts (the service's machines have two cores; more parts only queue). */
@@ -198,7 +254,7 @@ final class WeightedMisses {
     }
 
     /** The clauses' bounds for one curve at a time, over curves [from, to). */
-    private static final class Bounds {
+    private static final class Bounds implements SecondStage {
 
         private final SpectralStore store;
         private final ThicknessSpec spec;
@@ -210,6 +266,10 @@ final class WeightedMisses {
         private final int to;
         private int curve;
         private boolean total;
+        private boolean cannotMeet;
+        private double unverifiedBound = Double.POSITIVE_INFINITY;
+        /** The decoded curve while the second stage runs ({@link #bound}), else null: P(x) then reads it too. */
+        private org.spectralsieve.spectrum.Curve measured;
 
         Bounds(SpectralStore store, ThicknessSpec spec, List<WeightedScreen.Query> queries, List<Boolean> seeThrough,
                boolean diffuseLayer, boolean reference, int from, int to) {
@@ -258,6 +318,65 @@ final class WeightedMisses {
             return bound;
         }
 
+        /**
+         * The second stage on the decoded curve, routed as {@link #into}: judged on the measured curve, every
+         * clause whose proof carries over ({@link SearchService#keepsProof}) on the exact figure or, behind a
+         * layer, the stack's per-point product; judged rescaled in [lo, hi], the split rule of {@link #rescaled}
+         * with P(x) also read on the curve (as measured where x is not thinner than measured, else thinned; T only
+         * falls as the sample thickens) and Q(x) too (thickened). Each bound is the smaller of two sound ones.
+         */
+        @Override
+        public boolean cannotMeet() {
+            return cannotMeet;
+        }
+
+        @Override
+        public double unverifiedBound() {
+            return unverifiedBound;
+        }
+
+        @Override
+        public double bound(int c, org.spectralsieve.spectrum.Curve curveToRead) {
+            cannotMeet = false;
+            unverifiedBound = Double.POSITIVE_INFINITY;
+            double d0 = store.thicknessMm(c);
+            curve(c, store.isTotalGeometry(c) || diffuseLayer);
+            boolean onMeasured = spec.kind() == ThicknessSpec.Kind.AS_MEASURED || judgedAsMeasured(spec, d0)
+                    || !store.isBulk(c) || !(d0 > 0);
+            if (!onMeasured) {
+                // rescaled somewhere in [lo, hi]: the split rule of rescaled(), its passes also read on the curve
+                measured = curveToRead;
+                try {
+                    return rescaled(spec.minMm(), spec.kind() == ThicknessSpec.Kind.FIXED ? spec.minMm() : spec.maxMm());
+                } finally {
+                    measured = null;
+                }
+            }
+            double bound = Double.POSITIVE_INFINITY;
+            for (int i = 0; i < queries.size(); i++) {
+                WeightedScreen.Query q = queries.get(i);
+                Direction direction = q.passes() ? Direction.PASS : Direction.BLOCK;
+                if (!skipped(i) && SearchService.keepsProof(direction, spec, d0, store.isBulk(c))) {
+                    bound = Math.min(bound, Math.min(q.asMeasuredOnCurve(curveToRead), q.behindLayerOnCurve(c, curveToRead, d0)));
+                    // judged on this very curve (keepsProof on the measured curve): an unverified clause there stays so
+                    cannotMeet |= q.unverifiedOnCurve();
+                    unverifiedBound = Math.min(unverifiedBound, q.unverifiedMarginBound());
+                }
+            }
+            return bound;
+        }
+
+        /**
+         * A pass at any judged thickness ≥ x read on the decoded curve (the second stage): as measured for x ≥ d0
+         * (the exact figure, or behind a layer the stack's per-point product), thinned below.
+         */
+        private double passOnCurve(WeightedScreen.Query q, double x) {
+            if (x >= store.thicknessMm(curve)) {
+                return Math.min(q.asMeasuredOnCurve(measured), q.behindLayerOnCurve(curve, measured, x));
+            }
+            return q.thinnedOnCurve(curve, measured, x);
+        }
+
         /** P(x): an upper bound on every pass margin at any judged thickness ≥ x. */
         private double pass(double x) {
             double bound = Double.POSITIVE_INFINITY;
@@ -266,6 +385,9 @@ final class WeightedMisses {
                 if (q.passes() && !skipped(i)) {
                     bound = Math.min(bound, Math.min(q.thinned(curve, x),
                             Math.min(q.asMeasuredIfNotThinner(curve, x), q.behindLayer(curve, x))));
+                    if (measured != null) {
+                        bound = Math.min(bound, passOnCurve(q, x));
+                    }
                 }
             }
             return bound;
@@ -278,6 +400,9 @@ final class WeightedMisses {
                 WeightedScreen.Query q = queries.get(i);
                 if (!q.passes() && !skipped(i)) {
                     bound = Math.min(bound, q.thickened(curve, x));
+                    if (measured != null) {
+                        bound = Math.min(bound, q.thickenedOnCurve(curve, measured, x));
+                    }
                 }
             }
             return bound;

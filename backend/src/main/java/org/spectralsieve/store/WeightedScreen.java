@@ -13,6 +13,7 @@ import org.spectralsieve.requirement.Direction;
 import org.spectralsieve.requirement.WeightedClause;
 import org.spectralsieve.requirement.Weighting;
 import org.spectralsieve.spectrum.Curve;
+import org.spectralsieve.weighting.BelowDetectionAs;
 import org.spectralsieve.weighting.BoundedCurves;
 import org.spectralsieve.weighting.LuminousTransmittance;
 import org.spectralsieve.weighting.WeightedFigures;
@@ -279,6 +280,12 @@ public final class WeightedScreen {
         private boolean layerBlocks = true;
         private boolean layerPoints = true;
         private final double[][] layerSharesOfRange = new double[ranges.size()][];
+        /** Per range: {nm, weight, layerUp} of the figure's integration points ({@link #behindLayerOnCurve}). */
+        private final double[][][] layerNodesOfRange = new double[ranges.size()][][];
+        /** Per range: {nm, weight} of the figure's integration points ({@link #thinnedOnCurve}). */
+        private final double[][][] nodesOfRange = new double[ranges.size()][][];
+        private boolean unverifiedOnCurve;
+        private double unverifiedMarginBound = Double.POSITIVE_INFINITY;
         private boolean reference;
         private int lnBCurve = -1;
         private double lnBOfCurve;
@@ -427,6 +434,70 @@ public final class WeightedScreen {
             return out;
         }
 
+        /**
+         * {@link #behindLayer} of a pass read on the candidate's own decoded curve instead of its bins: the second
+         * stage for a contender about to be judged (docs/weighted-screening.md, "A second, exact-curve stage").
+         * The proof is the one of {@link #behindLayer} with the bin's brightest replaced by candUp(λ), the largest
+         * max(T, limit) at the ends of the candidate's intervals holding λ (both around a stored point): the stack
+         * points a value at λ is read from lie in one candidate interval holding λ, and on a regular curve every
+         * upper reading inside that interval (T interpolated in absorbance, a limit linearly) is at most the
+         * larger end's. So U ≤ Σₙ aₙ·max(candUp(λₙ)·layerUp(λₙ)·gain, ε)/Σ aₙ. No rounding to codes, no 12 nm
+         * bin: the slack of the bins is gone, the preconditions are the same. {@code measured} must be the curve
+         * the store holds for {@code curve} (the one the judgement reads); +∞ wherever the bin bound is +∞, where
+         * the curve's range is not the stored one, or where the curve is not regular.
+         */
+        public double behindLayerOnCurve(int curve, Curve measured, double judgedMm) {
+            if (!pass || !layerPoints || !Double.isFinite(behindLayer(curve, judgedMm))) {
+                return Double.POSITIVE_INFINITY;
+            }
+            int range = rangeOfCurve[curve];
+            double[] r = ranges.get(range);
+            if (measured.minWavelengthNm() != r[0] || measured.maxWavelengthNm() != r[1] || !Builder.regular(measured)) {
+                return Double.POSITIVE_INFINITY;
+            }
+            double[][] nodes = layerNodes(range);
+            if (nodes == null) {
+                return Double.POSITIVE_INFINITY;
+            }
+            double rMax = Math.max(largestReflectance(curve), Fresnel.reflectanceInAir(1.52));
+            double gain = (1 + SLACK) / (1 - elementReflectance(rMax) * layer.reflectance);
+            double[] nm = nodes[0];
+            double[] weight = nodes[1];
+            double[] layerUp = nodes[2];
+            double[] wavelengths = measured.wavelengthsNm();
+            double sum = 0;
+            double total = 0;
+            int at = 0; // the walk along the candidate's points: the nodes increase
+            for (int i = 0; i < nm.length; i++) {
+                while (at + 1 < wavelengths.length && wavelengths[at + 1] <= nm[i]) {
+                    at++;
+                }
+                // the intervals holding the node: both around a stored point, else the one it lies in
+                int lo = wavelengths[at] == nm[i] ? Math.max(0, at - 1) : at;
+                int hi = Math.min(wavelengths.length - 1, at + 1);
+                double up = 0;
+                for (int j = lo; j <= hi; j++) {
+                    up = Math.max(up, Math.max(measured.transmittance(j), measured.detectionLimit(j)));
+                }
+                sum += weight[i] * Math.max(up * layerUp[i] * gain, Curve.ABSORBANCE_FLOOR_T);
+                total += weight[i];
+            }
+            if (!(total > 0)) {
+                return Double.POSITIVE_INFINITY;
+            }
+            return Math.log10(Math.max(sum / total * (1 + SLACK), floor) / threshold);
+        }
+
+        /** The range's integration points {nm, weight, layerUp}, formed once per range; null where not available. */
+        private double[][] layerNodes(int range) {
+            double[][] out = layerNodesOfRange[range];
+            if (out == null) {
+                out = WeightedScreen.layerNodes(clause.weighting(), ranges.get(range), layer.curve);
+                layerNodesOfRange[range] = out == null ? new double[0][] : out;
+            }
+            return out == null || out.length == 0 ? null : out;
+        }
+
         /** Whether {@link #behindLayer} of a pass reads the layer per integration point (on by default; off for the rule before). */
         public Query layerByPoint(boolean on) {
             layerPoints = on;
@@ -501,6 +572,75 @@ public final class WeightedScreen {
             return this;
         }
 
+        /**
+         * {@link #asMeasured} read on the curve itself: the exact figure's ends U (points below detection at their
+         * limit) and L (at 0), as the judgement computes them, and the margin the clause's verdict reads from them
+         * ({@code Weighting.figureForMargin}, the same arithmetic as the answer's figure), moved by {@link #SLACK}
+         * to the safe side. The second stage for a contender about to be judged (docs/weighted-screening.md, "A
+         * second, exact-curve stage"); its use at other thicknesses follows the same rules as {@link #asMeasured}
+         * (a weighted figure is a weighted mean of T and falls wherever T falls pointwise). +∞ behind a layer (the
+         * stack is judged, not the curve: {@link #behindLayerOnCurve}) and where the figure is not available (the
+         * judgement then says unverified, which no bound may call a miss).
+         */
+        public double asMeasuredOnCurve(Curve measured) {
+            unverifiedOnCurve = false;
+            unverifiedMarginBound = Double.POSITIVE_INFINITY;
+            if (layerRange.isPresent()) {
+                return Double.POSITIVE_INFINITY;
+            }
+            Weighting weighting = clause.weighting();
+            org.spectralsieve.weighting.Figure upper = weighting.figureForMargin(measured, BelowDetectionAs.LIMIT);
+            if (!upper.available()) {
+                return Double.POSITIVE_INFINITY;
+            }
+            double u = upper.value().getAsDouble();
+            double l = upper.bound() != org.spectralsieve.weighting.Figure.Bound.AT_MOST ? u
+                    : Math.min(u, weighting.figureForMargin(measured, BelowDetectionAs.ZERO).value().orElse(0));
+            // the clause's verdict as the judgement forms it (FigureClauses.weighted): a pass meets on L ≥ threshold
+            // (margin on L), misses on U < threshold (margin on U), else unverified; a block meets on U ≤ threshold
+            // (margin on U), misses on L > threshold (margin on L). Each case used only where the slack cannot flip it.
+            double up = 1 + SLACK;
+            double down = 1 - SLACK;
+            // an unverified clause reads its margin on U, as a pass that misses and a block that meets do
+            if (pass) {
+                if (l * down >= threshold) {
+                    unverifiedMarginBound = Math.log10(Math.max(l * up, floor) / threshold);
+                    return unverifiedMarginBound; // meets, on L
+                }
+                unverifiedOnCurve = l * up < threshold && u * down >= threshold;
+                double onU = Math.log10(Math.max(u * up, floor) / threshold);
+                unverifiedMarginBound = u * up < threshold ? Double.NEGATIVE_INFINITY : onU; // a sure miss: no unverified row
+                return onU;
+            }
+            double onU = Math.log10(threshold / Math.max(u * down, floor));
+            if (u * up <= threshold) {
+                unverifiedMarginBound = onU;
+                return onU; // meets, on U
+            }
+            unverifiedOnCurve = u * down > threshold && l * up <= threshold;
+            unverifiedMarginBound = l * down > threshold ? Double.NEGATIVE_INFINITY : onU; // met or unverified: on U
+            return Math.log10(threshold / Math.max(l * down, floor));
+        }
+
+        /**
+         * After {@link #asMeasuredOnCurve}: a bound on the clause's margin when the clause meets or is unverified
+         * (both read a block's margin on U; a pass's on L when it meets, on U when unverified), −∞ when it surely
+         * misses (the row is then a miss, never unverified), +∞ where nothing was read. An unverified row's worst
+         * margin is the smallest of its clauses' margins, so the smallest of these bounds it.
+         */
+        public double unverifiedMarginBound() {
+            return unverifiedMarginBound;
+        }
+
+        /**
+         * Whether the last {@link #asMeasuredOnCurve} found the clause unverified on the curve (L below a pass's
+         * threshold and U at or above it; U above a block's and L at or below it, each beyond the slack): the
+         * sample's row judged on that curve cannot meet, whatever its margin.
+         */
+        public boolean unverifiedOnCurve() {
+            return unverifiedOnCurve;
+        }
+
         /** {@link #asMeasured} for a pass judged at or above {@code thinnestMm} where that is not thinner than measured (else +∞). */
         public double asMeasuredIfNotThinner(int curve, double thinnestMm) {
             return thinnestMm >= store.thicknessMm(curve) ? asMeasured(curve) : Double.POSITIVE_INFINITY;
@@ -558,6 +698,81 @@ public final class WeightedScreen {
                 }
             }
             return Math.log10(Math.max(mean * (1 + SLACK), floor) / threshold);
+        }
+
+        /**
+         * {@link #thinned} read on the curve itself (the second stage, docs/weighted-screening.md, "A second,
+         * exact-curve stage"): the same map f of a measured upper reading, T(d) ≤ f(T0) (f rising in T0), applied
+         * at each integration point λ to candUp(λ), the largest max(T, limit) at the ends of the curve's intervals
+         * holding λ, instead of the bin's brightest: a value of the thinned curve at λ is interpolated between two
+         * thinned points, at most the larger, and each is at most f of its measured upper reading, whichever way
+         * its flag goes (a limit rescales like a reading). +∞ wherever {@link #thinned} is, or where the curve's
+         * range is not the stored one. {@code measured} must be the curve the store holds for {@code curve}.
+         */
+        public double thinnedOnCurve(int curve, Curve measured, double thinnestMm) {
+            if (!Double.isFinite(thinned(curve, thinnestMm))) {
+                return Double.POSITIVE_INFINITY;
+            }
+            int range = rangeOfCurve[curve];
+            double[] r = ranges.get(range);
+            if (measured.minWavelengthNm() != r[0] || measured.maxWavelengthNm() != r[1]) {
+                return Double.POSITIVE_INFINITY;
+            }
+            double[][] nodes = nodes(range);
+            if (nodes == null) {
+                return Double.POSITIVE_INFINITY;
+            }
+            Surfaces surfaces = surfaces(curve);
+            double k = thinnestMm / store.thicknessMm(curve);
+            double logLoss = surfaces.logLoss;
+            boolean withSurfaces = regular(curve) && surfaces.smallest >= 0;
+            double ceiling = withSurfaces ? surfaces.ceiling : Double.NaN;
+            double lnH = withSurfaces ? Math.max(surfaces.lnSmallestFactor(k), surfaces.lnLargestFactor(k)) : Double.NaN;
+            double[] nm = nodes[0];
+            double[] weight = nodes[1];
+            double[] wavelengths = measured.wavelengthsNm();
+            double sum = 0;
+            double total = 0;
+            int at = 0;
+            double lastUp = Double.NaN;
+            double lastT = 0;
+            for (int i = 0; i < nm.length; i++) {
+                while (at + 1 < wavelengths.length && wavelengths[at + 1] <= nm[i]) {
+                    at++;
+                }
+                int lo = wavelengths[at] == nm[i] ? Math.max(0, at - 1) : at;
+                int hi = Math.min(wavelengths.length - 1, at + 1);
+                double up = 0;
+                for (int j = lo; j <= hi; j++) {
+                    up = Math.max(up, Math.max(measured.transmittance(j), measured.detectionLimit(j)));
+                }
+                if (up != lastUp) { // neighbouring nodes mostly share their interval: one power per interval
+                    double ln = Math.log(Math.max(up, Double.MIN_NORMAL));
+                    double t = Math.min(1, Math.exp(-k * logLoss + k * ln) * (1 + POWER_ROOM) * (1 + SLACK));
+                    if (withSurfaces) {
+                        double resolved = Math.min(ceiling, Math.exp(lnH + k * ln) * (1 + POWER_ROOM));
+                        t = Math.min(t, Math.max(resolved, Math.min(1, up)) * (1 + SLACK));
+                    }
+                    lastUp = up;
+                    lastT = Math.max(t, Curve.ABSORBANCE_FLOOR_T);
+                }
+                sum += weight[i] * lastT;
+                total += weight[i];
+            }
+            if (!(total > 0)) {
+                return Double.POSITIVE_INFINITY;
+            }
+            return Math.log10(Math.max(sum / total * (1 + SLACK), floor) / threshold);
+        }
+
+        /** The range's integration points {nm, weight}, formed once per range; null where not available. */
+        private double[][] nodes(int range) {
+            double[][] out = nodesOfRange[range];
+            if (out == null) {
+                out = WeightedScreen.integrationNodes(clause.weighting(), ranges.get(range));
+                nodesOfRange[range] = out == null || out[0].length == 0 ? new double[0][] : out;
+            }
+            return out == null || out.length == 0 || out[0].length == 0 ? null : out;
         }
 
         /** {@link #thinned} with one exp per bin and the boxed reflectance cache: the arithmetic before. */
@@ -675,6 +890,67 @@ public final class WeightedScreen {
                 }
             }
             return Math.log10(threshold / Math.max(mean * (1 - SLACK), floor));
+        }
+
+        /**
+         * {@link #thickened} read on the curve itself (the second stage, docs/weighted-screening.md, "A second,
+         * exact-curve stage"): the same map g(t) = c·(max(t, ε)/B)^k, which every value of the lower end L at the
+         * judged thickness is at least (a power, so it commutes with the absorbance interpolation), applied at each
+         * integration point to L0(λ), the measured curve's own lower end there (points below detection at 0,
+         * absorbance interpolated between the two points around λ), instead of the bin's darkest, which is at most
+         * L0(λ). A stored point read at exactly 0 adds nothing. +∞ wherever {@link #thickened} is, or where the
+         * curve's range is not the stored one. {@code measured} must be the curve the store holds for {@code curve}.
+         */
+        public double thickenedOnCurve(int curve, Curve measured, double thickestMm) {
+            if (!Double.isFinite(thickened(curve, thickestMm))) {
+                return Double.POSITIVE_INFINITY;
+            }
+            int range = rangeOfCurve[curve];
+            double[] r = ranges.get(range);
+            if (measured.minWavelengthNm() != r[0] || measured.maxWavelengthNm() != r[1]) {
+                return Double.POSITIVE_INFINITY;
+            }
+            double[][] nodes = nodes(range);
+            if (nodes == null) {
+                return Double.POSITIVE_INFINITY;
+            }
+            double k = Math.max(1, thickestMm / store.thicknessMm(curve));
+            double c = k > 1 ? 1 - surfaces(curve).largest * surfaces(curve).largest : 1;
+            double lnFactor = Math.log(c) - k * lnBOfCurve; // thickened() formed lnBOfCurve for this curve
+            double[] nm = nodes[0];
+            double[] weight = nodes[1];
+            double[] wavelengths = measured.wavelengthsNm();
+            double sum = 0;
+            double total = 0;
+            int at = 0;
+            for (int i = 0; i < nm.length; i++) {
+                while (at + 1 < wavelengths.length && wavelengths[at + 1] <= nm[i]) {
+                    at++;
+                }
+                double lower = lowerAt(measured, at, nm[i]);
+                if (lower > 0) {
+                    double ln = Math.log(Math.max(lower, Curve.ABSORBANCE_FLOOR_T));
+                    sum += weight[i] * Math.exp(lnFactor + k * ln) * (1 - POWER_ROOM);
+                }
+                total += weight[i];
+            }
+            if (!(total > 0)) {
+                return Double.POSITIVE_INFINITY;
+            }
+            return Math.log10(threshold / Math.max(sum / total * (1 - SLACK), floor));
+        }
+
+        /** The measured lower end at nm (points below detection at 0), point {@code at} the last at or before it. */
+        private static double lowerAt(Curve measured, int at, double nm) {
+            double t0 = measured.belowDetection(at) ? 0 : measured.transmittance(at);
+            if (measured.wavelengthNm(at) == nm || at + 1 >= measured.size()) {
+                return t0;
+            }
+            double t1 = measured.belowDetection(at + 1) ? 0 : measured.transmittance(at + 1);
+            double f = (nm - measured.wavelengthNm(at)) / (measured.wavelengthNm(at + 1) - measured.wavelengthNm(at));
+            double a0 = -Math.log10(Math.max(t0, Curve.ABSORBANCE_FLOOR_T));
+            double a1 = -Math.log10(Math.max(t1, Curve.ABSORBANCE_FLOOR_T));
+            return Math.pow(10, -(a0 * (1 - f) + a1 * f));
         }
 
         /** {@link #thickened} with one exp per bin and the boxed reflectance cache: the arithmetic before. */
@@ -957,6 +1233,32 @@ public final class WeightedScreen {
             out[b] /= total;
         }
         return out;
+    }
+
+    /**
+     * The figure's integration points on a curve spanning the range with, per point, the layer's largest upper
+     * reading around it (as {@link #layerShares}): {nm, weight, layerUp}; null where {@link #layerShares} is empty.
+     */
+    static double[][] layerNodes(Weighting weighting, double[] curveRange, Curve layer) {
+        double[][] nodes = integrationNodes(weighting, curveRange);
+        if (nodes == null || nodes[0].length == 0) {
+            return null;
+        }
+        double[] nm = nodes[0];
+        double[] wavelengths = layer.wavelengthsNm();
+        double[] up = new double[nm.length];
+        for (int i = 0; i < nm.length; i++) {
+            if (binOf(nm[i]) < 0 || !layer.covers(nm[i])) {
+                return null;
+            }
+            int hit = Arrays.binarySearch(wavelengths, nm[i]);
+            int lo = hit >= 0 ? Math.max(0, hit - 1) : -hit - 2;
+            int hi = hit >= 0 ? Math.min(wavelengths.length - 1, hit + 1) : -hit - 1;
+            for (int j = lo; j <= hi; j++) {
+                up[i] = Math.max(up[i], Math.max(layer.transmittance(j), layer.detectionLimit(j)));
+            }
+        }
+        return new double[][] {nm, nodes[1], up};
     }
 
     /** The figure's integration points {nm, weight} on a curve spanning the range, or null where not available. */

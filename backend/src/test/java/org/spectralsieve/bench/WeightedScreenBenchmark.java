@@ -52,6 +52,8 @@ import org.springframework.core.io.DefaultResourceLoader;
  * loop before that, {@code on-judging-bounded} by bounds on one thread ({@code -Dbench.screenJudging=earlier,bounded},
  * empty: neither); {@code on-earlier-layer-bounds} the layer bounds before weighted blocks behind a layer were bounded and the layer read per point
  * ({@link SearchService#withEarlierLayerBounds}; {@code -Dbench.screenSkipNoLayerBlocks=true} leaves it out).
+ * {@code on-no-second-stage} the bounded loop without its second, exact-curve stage
+ * ({@link SearchService#withoutSecondStage}; {@code -Dbench.screenSkipNoSecondStage=true} leaves it out).
  * {@code -Dbench.screenModes=measured,solve,layer} picks the variants.
  */
 class WeightedScreenBenchmark {
@@ -89,6 +91,10 @@ class WeightedScreenBenchmark {
                 default -> throw new IllegalArgumentException("bench.screenJudging: earlier or bounded, not " + way);
             };
             services.put("on-judging-" + way, new SearchService(library).judging(judging));
+        }
+        if (!Boolean.getBoolean("bench.screenSkipNoSecondStage")) {
+            // the judging loop without its second, exact-curve stage: the rule before it, side by side
+            services.put("on-no-second-stage", new SearchService(library).withoutSecondStage());
         }
         if (!Boolean.getBoolean("bench.screenSkipNoLayerBlocks")) {
             // weighted blocks behind a layer not bounded: the rule before them, side by side

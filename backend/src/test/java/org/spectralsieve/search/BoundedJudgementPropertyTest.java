@@ -167,7 +167,7 @@ class BoundedJudgementPropertyTest {
     }
 
     /** Synthetic curves as library samples, three per material, two materials in three bulk, the third fixed. */
-    private static void addSynthetic(JooqLibraryRepository library, int n, long seed) {
+    static void addSynthetic(JooqLibraryRepository library, int n, long seed) {
         SyntheticCurves specs = new SyntheticCurves(seed, SpectralStore.DEFAULT_GRID);
         SpectralStore.Builder builder = SpectralStore.builder(SpectralStore.DEFAULT_GRID, n);
         SyntheticCurves.Spec[] all = new SyntheticCurves.Spec[n];
