@@ -101,6 +101,24 @@ public final class StoreSearch {
         return new StoreSearch(store, requirement, false, parallelMinCurves).run(limit, false);
     }
 
+    /**
+     * Whether the requirement reads the store between two grid wavelengths (a point, a band end or a cutoff edge at
+     * a fraction of the grid's step). There the store interpolates its grid readings while the exact evaluator
+     * interpolates the curve's own points, and nothing the store holds bounds the difference either way (a band
+     * end between grid points mixes in a reading from outside the band), so the pick cannot be made exact at the
+     * cut (docs/store.md, "The store's error at the cut"): the service judges such requirements on every sample.
+     */
+    public static boolean readsBetweenGridPoints(SpectralStore store, Requirement requirement) {
+        for (CompiledClause clause : Plan.of(store, requirement, false, PARALLEL_MIN_CURVES).clauses) {
+            for (Probe probe : clause.probes()) {
+                if (probe.onGrid() && probe.fractionHi() != 0) {
+                    return true;
+                }
+            }
+        }
+        return false;
+    }
+
     public static StoreResult search(SpectralStore store, Requirement requirement, int limit) {
         if (limit < 1) {
             throw new IllegalArgumentException("limit must be at least 1, got " + limit);

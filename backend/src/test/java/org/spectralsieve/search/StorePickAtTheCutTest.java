@@ -62,7 +62,8 @@ class StorePickAtTheCutTest {
         List<String> wordings = new ArrayList<>();
         for (String clause : List.of("blocks under 1% at 600 nm", "passes over 80% at 365 nm",
                 "blocks under 0.1% from 380 to 400 nm", "passes over 50% from 400 to 700 nm",
-                "cutoff between 380 and 420 nm", "passes mean over 50% from 400 to 700 nm")) {
+                "cutoff between 380 and 420 nm", "passes mean over 50% from 400 to 700 nm",
+                "passes over 60% from 380.5 to 450.5 nm")) {
             for (String thickness : List.of("", ", at 3 mm", ", thickness 0.5 to 3 mm", ", thickness 1 to 6 mm")) {
                 wordings.add(clause + thickness);
             }

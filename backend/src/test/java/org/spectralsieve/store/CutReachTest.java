@@ -120,6 +120,22 @@ class CutReachTest {
         assertThat(solved.largestError()).isGreaterThanOrEqualTo(solved.errorOf(0));
     }
 
+    @Test
+    void aReadingBetweenGridWavelengthsIsToldApart() {
+        SpectralStore store = SpectralStore.builder(SpectralStore.DEFAULT_GRID, 1)
+                .addEncoded(1, new StoredMaterial(1, "sheet (illustrative)", "plastic sheet"), 2.0, true, false,
+                        SyntheticCurves.INDICES[0], clearCodes())
+                .build();
+        assertThat(StoreSearch.readsBetweenGridPoints(store, parse("passes over 80% at 365 nm"))).isFalse();
+        assertThat(StoreSearch.readsBetweenGridPoints(store, parse("blocks under 1% from 380 to 400 nm"))).isFalse();
+        assertThat(StoreSearch.readsBetweenGridPoints(store, parse("passes over 80% at 365.5 nm"))).isTrue();
+        assertThat(StoreSearch.readsBetweenGridPoints(store, parse("blocks under 1% from 380.5 to 400 nm"))).isTrue();
+    }
+
+    private static org.spectralsieve.requirement.Requirement parse(String text) {
+        return org.spectralsieve.requirement.RequirementParser.parse(text);
+    }
+
     private static CutReach reach(SpectralStore store, String requirement) {
         return CutReach.of(store, StoreSearch.Plan.of(store,
                 org.spectralsieve.requirement.RequirementParser.parse(requirement), false, Integer.MAX_VALUE));
