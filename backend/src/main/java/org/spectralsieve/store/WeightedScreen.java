@@ -302,6 +302,16 @@ public final class WeightedScreen {
             this.surfacesOf = new Surfaces[ranges.size()][];
         }
 
+        /** A pass clause's margin bound from an upper bound on the weighted mean, moved by SLACK to the safe side. */
+        private double passMargin(double meanUp) {
+            return Math.log10(Math.max(meanUp * (1 + SLACK), floor) / threshold);
+        }
+
+        /** A block clause's margin bound from a lower bound on the weighted mean, moved by SLACK to the safe side. */
+        private double blockMargin(double meanDown) {
+            return Math.log10(threshold / Math.max(meanDown * (1 - SLACK), floor));
+        }
+
         /**
          * The arithmetic before the per-curve power tables: one {@code Math.exp} per bin and the reflectances
          * from a boxed map, kept so a benchmark can time both side by side ({@code WeightedMisses}).
@@ -359,8 +369,7 @@ public final class WeightedScreen {
                     mean += shares[b] * T_OF_CODE[code];
                 }
             }
-            return pass ? Math.log10(Math.max(mean * (1 + SLACK), floor) / threshold)
-                    : Math.log10(threshold / Math.max(mean * (1 - SLACK), floor));
+            return pass ? passMargin(mean) : blockMargin(mean);
         }
 
         /**
@@ -414,7 +423,7 @@ public final class WeightedScreen {
                 // the layer read at each integration point, not at its bin's largest: the smaller bound holds too
                 mean = Math.min(mean, meanByPoint + Curve.ABSORBANCE_FLOOR_T);
             }
-            return Math.log10(Math.max(mean * (1 + SLACK), floor) / threshold);
+            return passMargin(mean);
         }
 
         /**
@@ -485,7 +494,7 @@ public final class WeightedScreen {
             if (!(total > 0)) {
                 return Double.POSITIVE_INFINITY;
             }
-            return Math.log10(Math.max(sum / total * (1 + SLACK), floor) / threshold);
+            return passMargin(sum / total);
         }
 
         /** The range's integration points {nm, weight, layerUp}, formed once per range; null where not available. */
@@ -537,7 +546,7 @@ public final class WeightedScreen {
                 double b1 = bright == 0 ? Curve.MAX_TRANSMITTANCE : Math.max(1, T_OF_CODE[bright]);
                 mean += shares[b] * (T_OF_CODE[dark] * second / b1) * (1 - STACK_ROUNDING);
             }
-            return Math.log10(threshold / Math.max(mean * (1 - SLACK), floor));
+            return blockMargin(mean);
         }
 
         /**
@@ -697,7 +706,7 @@ public final class WeightedScreen {
                     mean += shares[b] * Math.max(t, Curve.ABSORBANCE_FLOOR_T);
                 }
             }
-            return Math.log10(Math.max(mean * (1 + SLACK), floor) / threshold);
+            return passMargin(mean);
         }
 
         /**
@@ -762,7 +771,7 @@ public final class WeightedScreen {
             if (!(total > 0)) {
                 return Double.POSITIVE_INFINITY;
             }
-            return Math.log10(Math.max(sum / total * (1 + SLACK), floor) / threshold);
+            return passMargin(sum / total);
         }
 
         /** The range's integration points {nm, weight}, formed once per range; null where not available. */
@@ -807,7 +816,7 @@ public final class WeightedScreen {
                     mean += shares[b] * Math.max(t, Curve.ABSORBANCE_FLOOR_T);
                 }
             }
-            return Math.log10(Math.max(mean * (1 + SLACK), floor) / threshold);
+            return passMargin(mean);
         }
 
         /*
@@ -889,7 +898,7 @@ public final class WeightedScreen {
                     }
                 }
             }
-            return Math.log10(threshold / Math.max(mean * (1 - SLACK), floor));
+            return blockMargin(mean);
         }
 
         /**
@@ -937,7 +946,7 @@ public final class WeightedScreen {
             if (!(total > 0)) {
                 return Double.POSITIVE_INFINITY;
             }
-            return Math.log10(threshold / Math.max(sum / total * (1 - SLACK), floor));
+            return blockMargin(sum / total);
         }
 
         /** The measured lower end at nm (points below detection at 0), point {@code at} the last at or before it. */
@@ -984,7 +993,7 @@ public final class WeightedScreen {
                     }
                 }
             }
-            return Math.log10(threshold / Math.max(mean * (1 - SLACK), floor));
+            return blockMargin(mean);
         }
 
         /**

@@ -6,17 +6,14 @@ import java.nio.charset.StandardCharsets;
 import java.util.List;
 import java.util.Locale;
 import java.util.Random;
-import java.util.UUID;
-import org.flywaydb.core.Flyway;
-import org.h2.jdbcx.JdbcDataSource;
 import org.jooq.DSLContext;
-import org.jooq.SQLDialect;
 import org.jooq.impl.DSL;
 import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
 import org.spectralsieve.ingest.Checksums;
 import org.spectralsieve.library.Geometry;
 import org.spectralsieve.library.JooqLibraryRepository;
+import org.spectralsieve.library.MigratedDatabase;
 import org.spectralsieve.library.Material;
 import org.spectralsieve.library.MaterialClass;
 import org.spectralsieve.library.NewMaterial;
@@ -51,10 +48,7 @@ class BoundedJudgementPropertyTest {
 
     @BeforeAll
     static void demoLibraryAndSyntheticStock() {
-        JdbcDataSource ds = new JdbcDataSource();
-        ds.setURL("jdbc:h2:mem:bounded-judgement-" + UUID.randomUUID() + ";DB_CLOSE_DELAY=-1");
-        Flyway.configure().dataSource(ds).load().migrate();
-        DSLContext db = DSL.using(ds, SQLDialect.H2);
+        DSLContext db = MigratedDatabase.freshH2();
         library = new JooqLibraryRepository(db);
         new DemoLibraryLoader(library, db, new DefaultResourceLoader(), "classpath:seed-materials/").load();
         addSynthetic(library, SYNTHETIC_CURVES, 20261204L);

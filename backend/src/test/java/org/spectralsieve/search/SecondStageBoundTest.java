@@ -9,16 +9,13 @@ import java.util.Locale;
 import java.util.Map;
 import java.util.Optional;
 import java.util.Random;
-import java.util.UUID;
-import org.flywaydb.core.Flyway;
-import org.h2.jdbcx.JdbcDataSource;
 import org.jooq.DSLContext;
-import org.jooq.SQLDialect;
 import org.jooq.impl.DSL;
 import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
 import org.spectralsieve.library.Geometry;
 import org.spectralsieve.library.JooqLibraryRepository;
+import org.spectralsieve.library.MigratedDatabase;
 import org.spectralsieve.library.Material;
 import org.spectralsieve.library.SampleInfo;
 import org.spectralsieve.library.SampleRescaling;
@@ -52,10 +49,7 @@ class SecondStageBoundTest {
 
     @BeforeAll
     static void demoLibraryAndSyntheticStock() {
-        JdbcDataSource ds = new JdbcDataSource();
-        ds.setURL("jdbc:h2:mem:second-stage-" + UUID.randomUUID() + ";DB_CLOSE_DELAY=-1");
-        Flyway.configure().dataSource(ds).load().migrate();
-        DSLContext db = DSL.using(ds, SQLDialect.H2);
+        DSLContext db = MigratedDatabase.freshH2();
         library = new JooqLibraryRepository(db);
         new DemoLibraryLoader(library, db, new DefaultResourceLoader(), "classpath:seed-materials/").load();
         BoundedJudgementPropertyTest.addSynthetic(library, 300, 20261205L);
