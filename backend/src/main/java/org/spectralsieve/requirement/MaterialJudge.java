@@ -157,8 +157,12 @@ public final class MaterialJudge {
         return new ThicknessInterval(lo, hi);
     }
 
-    /** Every evaluation gets the material's whole feasible interval around its own, and the gathered stock advice. */
-    private static List<MaterialEvaluation> merged(List<MaterialEvaluation> evaluations) {
+    /**
+     * Every evaluation gets the material's whole feasible interval around its own, and the gathered stock advice:
+     * what {@link #evaluate} does over a range. Public for a caller that judges only some of the chosen samples
+     * and has proven the others add no piece of interval and no stock size (docs/search-under-load.md).
+     */
+    public static List<MaterialEvaluation> merged(List<MaterialEvaluation> evaluations) {
         List<ThicknessInterval> pieces = evaluations.stream().map(e -> e.evaluation().feasibleMm())
                 .filter(java.util.Objects::nonNull).sorted(Comparator.comparingDouble(ThicknessInterval::loMm)).toList();
         List<ThicknessInterval> joined = new ArrayList<>();

@@ -48,6 +48,7 @@ import org.spectralsieve.requirement.TransmittanceClause;
 import org.spectralsieve.spectrum.Curve;
 import org.spectralsieve.store.LayerBlockScreen;
 import org.spectralsieve.store.MissScreen;
+import org.spectralsieve.store.SampleReach;
 import org.spectralsieve.store.SpectralStore;
 import org.spectralsieve.store.StoreHit;
 import org.spectralsieve.store.StoreResult;
@@ -124,6 +125,12 @@ public class SearchService {
      * ({@link #withoutSecondStage}).
      */
     private boolean secondStage = true;
+    /**
+     * Whether a picked material's samples are judged best store ceiling first, leaving out those that cannot change
+     * its row ({@link BestSampleFirst}); the system property {@code sieve.search.sample-bound=false} judges every
+     * sample, only so a benchmark can time both ways side by side (the answers are the same).
+     */
+    private boolean boundSamples = !"false".equals(System.getProperty("sieve.search.sample-bound"));
     /** How requirements the store cannot rank are judged ({@link #searchExactly}); other ways for benchmarks and tests. */
     private Judging judging = Judging.BOUNDED_PARALLEL;
 
@@ -146,6 +153,15 @@ public class SearchService {
     /** Judges in parallel from this many contenders on (tests: 0, so a small library exercises the parallel loop). */
     SearchService parallelFrom(int contenders) {
         this.parallelFrom = contenders;
+        return this;
+    }
+
+    /**
+     * The same service judging every sample of each material the store picks, as before {@link BestSampleFirst}:
+     * the same answers, more samples judged; for tests and benchmarks that compare both side by side.
+     */
+    public SearchService judgingEverySample() {
+        this.boundSamples = false;
         return this;
     }
 
@@ -266,27 +282,28 @@ public class SearchService {
             return searchExactly(s, requirement, limit, started, m -> true);
         }
         StoreResult picked = StoreSearch.search(s.store(), requirement, limit);
-        Set<Long> materialIds = new LinkedHashSet<>();
+        // material id → one of its store curves (to find its samples' ceilings), NO_CURVE: judged whole
+        Map<Long, Integer> materialIds = new LinkedHashMap<>();
         for (StoreHit hit : picked.hits()) {
-            materialIds.add(hit.material().id());
+            materialIds.put(hit.material().id(), hit.curve());
         }
         // the store holds an unusable sample at a thickness and index of its own: its store result bounds nothing
-        s.unusable().forEach(sampleId -> materialIds.add(s.samples().get(sampleId).materialId()));
+        s.unusable().forEach(sampleId -> materialIds.put(s.samples().get(sampleId).materialId(), NO_CURVE));
         List<MaterialEvaluation> exact = new ArrayList<>();
-        judgeInto(s, requirement, materialIds, exact);
+        judgeInto(s, requirement, materialIds, picked.sampleReach(), exact);
         List<RankedRow> rows = rank(s, requirement, exact, limit);
         if (rows.size() >= limit) {
             // the store's margins are off by a little: every material whose store result could still reach the
             // exact last row is judged too (docs/store.md, "The store's error at the cut")
             SampleEvaluation last = rows.get(limit - 1).evaluation();
-            Set<Long> more = new LinkedHashSet<>();
+            Map<Long, Integer> more = new LinkedHashMap<>();
             for (StoreHit hit : picked.handOver().reaching(last.standing(), last.worstMarginDecades())) {
-                if (!materialIds.contains(hit.material().id())) {
-                    more.add(hit.material().id());
+                if (!materialIds.containsKey(hit.material().id())) {
+                    more.put(hit.material().id(), hit.curve());
                 }
             }
             if (!more.isEmpty()) {
-                judgeInto(s, requirement, more, exact);
+                judgeInto(s, requirement, more, picked.sampleReach(), exact);
                 rows = rank(s, requirement, exact, limit);
             }
         }
@@ -295,10 +312,28 @@ public class SearchService {
                 geometries(s, rows), revisions(s, rows), measured(s, rows));
     }
 
-    private void judgeInto(Snapshot s, Requirement requirement, Set<Long> materialIds, List<MaterialEvaluation> exact) {
-        for (long materialId : materialIds) {
-            exact.addAll(judge(s, s.materials().get(materialId), requirement, Optional.empty(), false));
-        }
+    /** In {@link #searchOn}'s map of materials to judge: no store curve speaks for the material's samples. */
+    private static final int NO_CURVE = -1;
+
+    /**
+     * Judges the picked materials: each best sample first, leaving out samples whose store ceiling proves they
+     * cannot change the material's row ({@link BestSampleFirst}), unless a sample of the material has an unusable
+     * record (its store row bounds nothing, and it moves the others' spans) or the switch is off.
+     */
+    private void judgeInto(Snapshot s, Requirement requirement, Map<Long, Integer> curveOfMaterial, SampleReach reach,
+                           List<MaterialEvaluation> exact) {
+        boolean grouped = diffuseLast(requirement);
+        curveOfMaterial.forEach((materialId, curve) -> {
+            Material material = s.materials().get(materialId);
+            if (boundSamples && curve != NO_CURVE) {
+                Prepared p = prepare(s, material, requirement, false);
+                Optional<List<MaterialEvaluation>> bestFirst = BestSampleFirst.judge(p.candidates(), p.failed(), requirement, reach.curvesOfMaterialOf(curve),
+                        reach, id -> s.samples().get(id).geometry() == Geometry.REGULAR, grouped);
+                exact.addAll(bestFirst.orElseGet(() -> p.judge(requirement, Optional.empty())));
+            } else {
+                exact.addAll(judge(s, material, requirement, Optional.empty(), false));
+            }
+        });
     }
 
     private static boolean hasMeanClause(Requirement requirement) {

@@ -11,8 +11,11 @@ import org.spectralsieve.requirement.Standing;
  * @param refinedSamples   of those, how many needed the full evaluation of every probe (the rest were
  *                         ruled out by the bound from their point probes) before any {@link HandOver}
  * @param handOver         the materials beyond the hits that could still reach a given exact result
+ * @param sampleReach      how good each curve's exact result can be, for judging a picked material's samples
+ *                         best first ({@link SampleReach})
  */
-public record StoreResult(List<StoreHit> hits, int evaluatedSamples, int refinedSamples, HandOver handOver) {
+public record StoreResult(List<StoreHit> hits, int evaluatedSamples, int refinedSamples, HandOver handOver,
+                          SampleReach sampleReach) {
 
     public StoreResult {
         hits = List.copyOf(hits);

@@ -754,7 +754,7 @@ public final class StoreSearch {
                 }
                 return hits;
             };
-            return new StoreResult(rows, eligibleCount, refined, handOver);
+            return new StoreResult(rows, eligibleCount, refined, handOver, new SampleReach(store, plan));
         }
 
         private StoreHit hitOf(int material) {

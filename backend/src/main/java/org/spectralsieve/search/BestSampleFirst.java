@@ -1,0 +1,147 @@
+package org.spectralsieve.search;
+
+import java.util.ArrayList;
+import java.util.Comparator;
+import java.util.List;
+import java.util.Map;
+import java.util.Optional;
+import java.util.function.LongPredicate;
+import org.spectralsieve.requirement.Candidate;
+import org.spectralsieve.requirement.MadeThicknesses;
+import org.spectralsieve.requirement.MaterialEvaluation;
+import org.spectralsieve.requirement.MaterialJudge;
+import org.spectralsieve.requirement.RankingOrder;
+import org.spectralsieve.requirement.Requirement;
+import org.spectralsieve.requirement.SampleEvaluator;
+import org.spectralsieve.requirement.ThicknessSpec;
+import org.spectralsieve.store.SampleReach;
+
+/**
+ * One material picked by the store, judged best bound first: its chosen samples ({@link MaterialJudge#choose})
+ * in the order of their store ceilings ({@link SampleReach}), each judged exactly, and a sample left unjudged once
+ * its ceiling is strictly below the best exact result of its group so far — it cannot be the material's row — and,
+ * over a thickness range, it provably adds nothing to what the row shows of the others (docs/search-under-load.md,
+ * "Sixth pass"). The rows shown are those of judging every chosen sample ({@code BestSampleFirstPropertyTest}).
+ *
+ * <p>Why that is enough: a material's row is its best evaluation ({@code Ranking}); with see-through clauses
+ * judged in regular geometry first ({@code SearchService#rank}), its best regular evaluation when it has one,
+ * else its best total one, so the groups are bounded apart and a total sample of a material with a regular one
+ * never shows. As measured and at one thickness every sample is judged on its own. Over a range the material's
+ * feasible interval is the union of its samples' pieces and its stock advice is gathered from all of them
+ * ({@link MaterialJudge#merged}): a sample is left out there only when the material has no stock sizes (so it
+ * adds no stock fit) and its ceiling cannot meet (a piece is kept only by a judgement that meets), or it is not
+ * rescaled (judged as measured: no piece, no fit).
+ */
+final class BestSampleFirst {
+
+    private BestSampleFirst() {
+    }
+
+    /** A chosen sample, its span and its ceiling. */
+    private record Item(int position, MaterialJudge.Judged judged, int ceiling) {
+    }
+
+    /**
+     * The material's evaluations, those {@code failed} first; empty when {@link MaterialJudge#choose} fails, so the
+     * caller judges the material whole and fails it the same way.
+     *
+     * @param curveOfSample the store's curve of each of the material's samples (a sample without one is judged)
+     * @param regular       whether a sample was measured in regular geometry
+     * @param grouped       whether regular rows rank before every total one ({@code SearchService#diffuseLast})
+     */
+    static Optional<List<MaterialEvaluation>> judge(List<Candidate> candidates, List<MaterialEvaluation> failed,
+                                                    Requirement requirement, Map<Long, Integer> curveOfSample,
+                                                    SampleReach reach, LongPredicate regular, boolean grouped) {
+        ThicknessSpec spec = requirement.thickness();
+        List<MaterialJudge.Judged> chosen;
+        try {
+            chosen = MaterialJudge.choose(candidates, spec);
+        } catch (RuntimeException e) {
+            return Optional.empty();
+        }
+        boolean range = spec.kind() == ThicknessSpec.Kind.RANGE;
+        MadeThicknesses made = candidates.isEmpty() ? MadeThicknesses.UNLIMITED : candidates.get(0).made();
+        if (range && !made.stockMm().isEmpty()) {
+            return Optional.empty(); // every bulk sample adds its stock fits to the row's advice: none can be left out
+        }
+        List<Item> regularItems = new ArrayList<>();
+        List<Item> totalItems = new ArrayList<>();
+        for (int i = 0; i < chosen.size(); i++) {
+            MaterialJudge.Judged j = chosen.get(i);
+            Integer curve = curveOfSample.get(j.candidate().sampleId());
+            Item item = new Item(i, j, curve == null ? SampleReach.NONE : reach.ceiling(curve));
+            (grouped && !regular.test(j.candidate().sampleId()) ? totalItems : regularItems).add(item);
+        }
+        MaterialEvaluation[] judged = new MaterialEvaluation[chosen.size()];
+        List<MaterialEvaluation> failedRegular = failed.stream().filter(f -> !grouped || regular.test(f.evaluation().sampleId())).toList();
+        List<MaterialEvaluation> failedTotal = failed.stream().filter(f -> grouped && !regular.test(f.evaluation().sampleId())).toList();
+        boolean anyRegular = judgeGroup(regularItems, failedRegular, requirement, range, judged);
+        if (grouped && (anyRegular || !failedRegular.isEmpty())) {
+            // the material's row is a regular one: a total sample shows only through the merge over a range
+            judgeOnlyContributing(totalItems, requirement, range, judged);
+        } else {
+            judgeGroup(totalItems, failedTotal, requirement, range, judged);
+        }
+        List<MaterialEvaluation> evaluations = new ArrayList<>();
+        for (MaterialEvaluation e : judged) {
+            if (e != null) {
+                evaluations.add(e);
+            }
+        }
+        List<MaterialEvaluation> out = new ArrayList<>(failed);
+        try {
+            out.addAll(range && chosen.size() >= 2 ? MaterialJudge.merged(evaluations) : evaluations);
+        } catch (RuntimeException e) {
+            return Optional.empty(); // judged whole, the merge fails there as it would have (or succeeds on all)
+        }
+        return Optional.of(out);
+    }
+
+    /** Judges one group best ceiling first, skipping what cannot beat its best; whether it had any sample. */
+    private static boolean judgeGroup(List<Item> items, List<MaterialEvaluation> seeds, Requirement requirement,
+                                      boolean range, MaterialEvaluation[] judged) {
+        items.sort(Comparator.comparingInt(Item::ceiling).reversed().thenComparingInt(Item::position));
+        MaterialEvaluation best = null;
+        for (MaterialEvaluation seed : seeds) {
+            best = better(best, seed);
+        }
+        for (Item item : items) {
+            if (best != null && SampleReach.below(item.ceiling(), best.evaluation().standing(),
+                    best.evaluation().worstMarginDecades()) && addsNothingToMerge(item, range)) {
+                continue;
+            }
+            MaterialEvaluation e = evaluate(item, requirement);
+            judged[item.position()] = e;
+            best = better(best, e);
+        }
+        return !items.isEmpty();
+    }
+
+    /** A group that cannot hold the row: only what could change the merge over a range is judged. */
+    private static void judgeOnlyContributing(List<Item> items, Requirement requirement, boolean range,
+                                              MaterialEvaluation[] judged) {
+        for (Item item : items) {
+            if (!addsNothingToMerge(item, range)) {
+                judged[item.position()] = evaluate(item, requirement);
+            }
+        }
+    }
+
+    /**
+     * Whether leaving the sample out changes nothing of the others' rows: always at one thickness; over a range
+     * (no stock sizes, checked by the caller) when it is not rescaled or its ceiling cannot meet: then its exact
+     * judgement keeps no feasible piece ({@code SampleEvaluator}: a piece is kept only with a verdict that meets).
+     */
+    private static boolean addsNothingToMerge(Item item, boolean range) {
+        return !range || !item.judged().candidate().bulk() || SampleReach.cannotMeet(item.ceiling());
+    }
+
+    private static MaterialEvaluation evaluate(Item item, Requirement requirement) {
+        Candidate c = item.judged().candidate();
+        return MaterialEvaluation.of(c, SampleEvaluator.evaluate(c, requirement, Optional.empty(), item.judged().span()));
+    }
+
+    private static MaterialEvaluation better(MaterialEvaluation kept, MaterialEvaluation offered) {
+        return kept == null || RankingOrder.MATERIAL_EVALUATIONS.compare(offered, kept) < 0 ? offered : kept;
+    }
+}
