@@ -5,7 +5,6 @@ import java.util.Comparator;
 import java.util.List;
 import java.util.Map;
 import java.util.Optional;
-import java.util.function.LongPredicate;
 import org.spectralsieve.requirement.Candidate;
 import org.spectralsieve.requirement.MadeThicknesses;
 import org.spectralsieve.requirement.MaterialEvaluation;
@@ -19,18 +18,17 @@ import org.spectralsieve.store.SampleReach;
 /**
  * One material picked by the store, judged best bound first: its chosen samples ({@link MaterialJudge#choose})
  * in the order of their store ceilings ({@link SampleReach}), each judged exactly, and a sample left unjudged once
- * its ceiling is strictly below the best exact result of its group so far — it cannot be the material's row — and,
+ * its ceiling is strictly below the best exact result so far — it cannot be the material's row — and,
  * over a thickness range, it provably adds nothing to what the row shows of the others (docs/search-under-load.md,
  * "Sixth pass"). The rows shown are those of judging every chosen sample ({@code BestSampleFirstPropertyTest}).
  *
- * <p>Why that is enough: a material's row is its best evaluation ({@code Ranking}); with see-through clauses
- * judged in regular geometry first ({@code SearchService#rank}), its best regular evaluation when it has one,
- * else its best total one, so the groups are bounded apart and a total sample of a material with a regular one
- * never shows. As measured and at one thickness every sample is judged on its own. Over a range the material's
- * feasible interval is the union of its samples' pieces and its stock advice is gathered from all of them
- * ({@link MaterialJudge#merged}): a sample is left out there only when the material has no stock sizes (so it
- * adds no stock fit) and its ceiling cannot meet (a piece is kept only by a judgement that meets), or it is not
- * rescaled (judged as measured: no piece, no fit).
+ * <p>Why that is enough: a material's row is its best evaluation ({@code Ranking}). As measured and at one
+ * thickness every sample is judged on its own. Over a range the material's feasible interval is the union of its
+ * samples' pieces and its stock advice is gathered from all of them ({@link MaterialJudge#merged}): a sample is
+ * left out there only when the material has no stock sizes (so it adds no stock fit) and its ceiling cannot meet
+ * (a piece is kept only by a judgement that meets), or it is not rescaled (judged as measured: no piece, no fit).
+ * Where regular rows rank before every total one ({@code SearchService#rank}, a see-through clause, never in a
+ * requirement the store ranks) the material is judged whole.
  */
 final class BestSampleFirst {
 
@@ -42,46 +40,36 @@ final class BestSampleFirst {
     }
 
     /**
-     * The material's evaluations, those {@code failed} first; empty when {@link MaterialJudge#choose} fails, so the
-     * caller judges the material whole and fails it the same way.
+     * The material's evaluations, those {@code failed} first; empty when the material is to be judged whole:
+     * {@link MaterialJudge#choose} fails (the whole judgement fails it the same way), a range with stock sizes,
+     * or rows grouped by geometry.
      *
      * @param curveOfSample the store's curve of each of the material's samples (a sample without one is judged)
-     * @param regular       whether a sample was measured in regular geometry
      * @param grouped       whether regular rows rank before every total one ({@code SearchService#diffuseLast})
      */
     static Optional<List<MaterialEvaluation>> judge(List<Candidate> candidates, List<MaterialEvaluation> failed,
                                                     Requirement requirement, Map<Long, Integer> curveOfSample,
-                                                    SampleReach reach, LongPredicate regular, boolean grouped) {
+                                                    SampleReach reach, boolean grouped) {
         ThicknessSpec spec = requirement.thickness();
+        boolean range = spec.kind() == ThicknessSpec.Kind.RANGE;
+        MadeThicknesses made = candidates.isEmpty() ? MadeThicknesses.UNLIMITED : candidates.get(0).made();
+        if (grouped || range && !made.stockMm().isEmpty()) {
+            return Optional.empty(); // over a range every bulk sample adds its stock fits to the row's advice
+        }
         List<MaterialJudge.Judged> chosen;
         try {
             chosen = MaterialJudge.choose(candidates, spec);
         } catch (RuntimeException e) {
             return Optional.empty();
         }
-        boolean range = spec.kind() == ThicknessSpec.Kind.RANGE;
-        MadeThicknesses made = candidates.isEmpty() ? MadeThicknesses.UNLIMITED : candidates.get(0).made();
-        if (range && !made.stockMm().isEmpty()) {
-            return Optional.empty(); // every bulk sample adds its stock fits to the row's advice: none can be left out
-        }
-        List<Item> regularItems = new ArrayList<>();
-        List<Item> totalItems = new ArrayList<>();
+        List<Item> items = new ArrayList<>();
         for (int i = 0; i < chosen.size(); i++) {
             MaterialJudge.Judged j = chosen.get(i);
             Integer curve = curveOfSample.get(j.candidate().sampleId());
-            Item item = new Item(i, j, curve == null ? SampleReach.NONE : reach.ceiling(curve));
-            (grouped && !regular.test(j.candidate().sampleId()) ? totalItems : regularItems).add(item);
+            items.add(new Item(i, j, curve == null ? SampleReach.NONE : reach.ceiling(curve)));
         }
         MaterialEvaluation[] judged = new MaterialEvaluation[chosen.size()];
-        List<MaterialEvaluation> failedRegular = failed.stream().filter(f -> !grouped || regular.test(f.evaluation().sampleId())).toList();
-        List<MaterialEvaluation> failedTotal = failed.stream().filter(f -> grouped && !regular.test(f.evaluation().sampleId())).toList();
-        boolean anyRegular = judgeGroup(regularItems, failedRegular, requirement, range, judged);
-        if (grouped && (anyRegular || !failedRegular.isEmpty())) {
-            // the material's row is a regular one: a total sample shows only through the merge over a range
-            judgeOnlyContributing(totalItems, requirement, range, judged);
-        } else {
-            judgeGroup(totalItems, failedTotal, requirement, range, judged);
-        }
+        judgeBestFirst(items, failed, requirement, range, judged);
         List<MaterialEvaluation> evaluations = new ArrayList<>();
         for (MaterialEvaluation e : judged) {
             if (e != null) {
@@ -97,13 +85,16 @@ final class BestSampleFirst {
         return Optional.of(out);
     }
 
-    /** Judges one group best ceiling first, skipping what cannot beat its best; whether it had any sample. */
-    private static boolean judgeGroup(List<Item> items, List<MaterialEvaluation> seeds, Requirement requirement,
-                                      boolean range, MaterialEvaluation[] judged) {
+    /**
+     * Judges the samples best ceiling first (the store's order at equal ceilings), skipping each whose ceiling is
+     * strictly below the best exact result so far, failed rows included, and that adds nothing to a range's merge.
+     */
+    private static void judgeBestFirst(List<Item> items, List<MaterialEvaluation> failed, Requirement requirement,
+                                       boolean range, MaterialEvaluation[] judged) {
         items.sort(Comparator.comparingInt(Item::ceiling).reversed().thenComparingInt(Item::position));
         MaterialEvaluation best = null;
-        for (MaterialEvaluation seed : seeds) {
-            best = better(best, seed);
+        for (MaterialEvaluation f : failed) {
+            best = better(best, f);
         }
         for (Item item : items) {
             if (best != null && SampleReach.below(item.ceiling(), best.evaluation().standing(),
@@ -113,17 +104,6 @@ final class BestSampleFirst {
             MaterialEvaluation e = evaluate(item, requirement);
             judged[item.position()] = e;
             best = better(best, e);
-        }
-        return !items.isEmpty();
-    }
-
-    /** A group that cannot hold the row: only what could change the merge over a range is judged. */
-    private static void judgeOnlyContributing(List<Item> items, Requirement requirement, boolean range,
-                                              MaterialEvaluation[] judged) {
-        for (Item item : items) {
-            if (!addsNothingToMerge(item, range)) {
-                judged[item.position()] = evaluate(item, requirement);
-            }
         }
     }
 

@@ -328,7 +328,7 @@ public class SearchService {
             if (boundSamples && curve != NO_CURVE) {
                 Prepared p = prepare(s, material, requirement, false);
                 Optional<List<MaterialEvaluation>> bestFirst = BestSampleFirst.judge(p.candidates(), p.failed(), requirement, reach.curvesOfMaterialOf(curve),
-                        reach, id -> s.samples().get(id).geometry() == Geometry.REGULAR, grouped);
+                        reach, grouped);
                 exact.addAll(bestFirst.orElseGet(() -> p.judge(requirement, Optional.empty())));
             } else {
                 exact.addAll(judge(s, material, requirement, Optional.empty(), false));
