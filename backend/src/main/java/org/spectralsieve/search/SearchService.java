@@ -56,8 +56,9 @@ import org.spectralsieve.store.StoreSearch;
 import org.spectralsieve.store.StoredMaterial;
 
 /**
- * Answers requirements: the in-memory store picks the materials that can be in the shortlist, then every
- * sample of those materials is judged exactly on its stored curve, and the exact judgements are ranked.
+ * Answers requirements: the in-memory store picks the materials that can be in the shortlist, then the samples
+ * of those materials are judged exactly on their stored curves, best store ceiling first, leaving out those that
+ * provably cannot change a material's row ({@link BestSampleFirst}), and the exact judgements are ranked.
  * The store is derived from the database and rebuilt when the database changed, by this process or
  * another: before each answer the library's change counter ({@link LibraryGeneration}) is read, and a
  * snapshot read at an older number is rebuilt (see {@link #current()} and docs/freshness.md).
@@ -327,8 +328,8 @@ public class SearchService {
             Material material = s.materials().get(materialId);
             if (boundSamples && curve != NO_CURVE) {
                 Prepared p = prepare(s, material, requirement, false);
-                Optional<List<MaterialEvaluation>> bestFirst = BestSampleFirst.judge(p.candidates(), p.failed(), requirement, reach.curvesOfMaterialOf(curve),
-                        reach, grouped);
+                Optional<List<MaterialEvaluation>> bestFirst = BestSampleFirst.judge(p.candidates(), p.failed(),
+                        requirement, reach.curvesOfMaterialOf(curve), reach, grouped);
                 exact.addAll(bestFirst.orElseGet(() -> p.judge(requirement, Optional.empty())));
             } else {
                 exact.addAll(judge(s, material, requirement, Optional.empty(), false));
