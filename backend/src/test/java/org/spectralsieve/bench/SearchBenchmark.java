@@ -118,10 +118,12 @@ class SearchBenchmark {
      * the chunk scan without reading one column first ({@code variant=chunks}, {@link StoreSearch#searchByChunks})
      * the column-first pass as it was before its block screen ({@code variant=gathered},
      * {@link StoreSearch#searchGatheringOtherColumns}: as measured, the other columns gathered per kept curve)
-     * and the default path ({@code variant=after}), run in turn in one loop so all see the same load.
+     * the column-first pass over a range without its screen by levels ({@code variant=no-range-screen},
+     * {@link StoreSearch#searchWithoutRangeScreen}: every curve's exact caps) and the default path
+     * ({@code variant=after}), run in turn in one loop so all see the same load.
      */
     private static void compareScans(SpectralStore store, Requirement requirement, int limit, int runs, String mode) {
-        String[] variants = {"before", "chunks", "gathered", "after"};
+        String[] variants = {"before", "chunks", "gathered", "no-range-screen", "after"};
         for (int i = 0; i < 3; i++) {
             for (String variant : variants) {
                 scan(variant, store, requirement, limit);
@@ -146,6 +148,7 @@ class SearchBenchmark {
             case "before" -> StoreSearch.searchReference(store, requirement, limit);
             case "chunks" -> StoreSearch.searchByChunks(store, requirement, limit);
             case "gathered" -> StoreSearch.searchGatheringOtherColumns(store, requirement, limit);
+            case "no-range-screen" -> StoreSearch.searchWithoutRangeScreen(store, requirement, limit);
             default -> StoreSearch.search(store, requirement, limit);
         };
     }
