@@ -77,7 +77,9 @@ class SearchBenchmark {
     /**
      * The whole search with its hand-over (the line {@code BENCH search ...}, the row the issue's table reads), and
      * alternated with it in the same loop the same search judging the store's hits alone, as before the hand-over
-     * ({@code BENCH search-hand-over ... variant=hits-only|hand-over}): what the exact cut costs, side by side.
+     * ({@code BENCH search-hand-over ... variant=hits-only|hand-over}): what the exact cut costs, side by side; and
+     * the whole search without the integer screen over a range ({@code BENCH search-range-screen ...
+     * variant=no-range-screen|after}, store's part and whole, and whether both returned the same rows).
      */
     private static double time(SpectralStore store, Requirement requirement, int limit, int runs, String mode) {
         for (int i = 0; i < 5; i++) {
@@ -86,6 +88,9 @@ class SearchBenchmark {
         double[] ms = new double[runs];
         double[] hitsOnlyMs = new double[runs];
         double[] storeMs = new double[runs];
+        double[] noScreenMs = new double[runs];
+        double[] noScreenStoreMs = new double[runs];
+        boolean sameRows = true;
         int refined = 0;
         int handedOver = 0;
         for (int i = 0; i < runs; i++) {
@@ -100,6 +105,14 @@ class SearchBenchmark {
             long h0 = System.nanoTime();
             judgeHits(store, requirement, limit, StoreSearch.search(store, requirement, limit));
             hitsOnlyMs[i] = (System.nanoTime() - h0) / 1e6;
+
+            long u0 = System.nanoTime();
+            StoreResult unscreened = StoreSearch.searchWithoutRangeScreen(store, requirement, limit);
+            long u1 = System.nanoTime();
+            judgeExactly(store, requirement, limit, unscreened);
+            noScreenMs[i] = (System.nanoTime() - u0) / 1e6;
+            noScreenStoreMs[i] = (u1 - u0) / 1e6;
+            sameRows &= unscreened.hits().equals(picked.hits());
         }
         // p50/p95: the whole search; store_p50_ms: the store's pick alone; refined: curves evaluated on every probe
         // before the hand-over; handed_over: materials the hand-over added for the exact last row
@@ -110,6 +123,15 @@ class SearchBenchmark {
                 mode, ms(percentile(hitsOnlyMs, 50)), ms(percentile(hitsOnlyMs, 95)));
         System.out.printf("BENCH search-hand-over curves=%d mode=%s variant=hand-over p50_ms=%s p95_ms=%s%n", store.size(),
                 mode, ms(percentile(ms, 50)), ms(percentile(ms, 95)));
+        // the whole search (with its hand-over) without the integer screen over a range, alternated with the above
+        System.out.printf("BENCH search-range-screen curves=%d mode=%s variant=no-range-screen p50_ms=%s p95_ms=%s"
+                        + " store_p50_ms=%s store_p95_ms=%s same_rows=%s%n", store.size(), mode,
+                ms(percentile(noScreenMs, 50)), ms(percentile(noScreenMs, 95)), ms(percentile(noScreenStoreMs, 50)),
+                ms(percentile(noScreenStoreMs, 95)), sameRows);
+        System.out.printf("BENCH search-range-screen curves=%d mode=%s variant=after p50_ms=%s p95_ms=%s"
+                        + " store_p50_ms=%s store_p95_ms=%s same_rows=%s%n", store.size(), mode,
+                ms(percentile(ms, 50)), ms(percentile(ms, 95)), ms(percentile(storeMs, 50)),
+                ms(percentile(storeMs, 95)), sameRows);
         return percentile(ms, 50);
     }
 
