@@ -57,6 +57,7 @@ final class ColumnFirstScan {
     private int threshold = Integer.MAX_VALUE;
     private final boolean asMeasured;
     private final boolean gatherOtherColumns;
+    private final boolean screenByLevels;
     /** Every one-column probe's levels at {@link #filtersT} (null elsewhere): worked out once per threshold. */
     private Filter[] filters;
     private int filtersT;
@@ -80,6 +81,16 @@ final class ColumnFirstScan {
      * side only, same answers.
      */
     ColumnFirstScan(SpectralStore store, StoreSearch.Plan plan, boolean gatherOtherColumns) {
+        this(store, plan, gatherOtherColumns, true);
+    }
+
+    /**
+     * {@code screenByLevels}: over a range, screen every curve by {@link RangeLevelScreen} before its exact
+     * caps; false gives every curve the exact caps, as the pass before the screen (the benchmark's side by
+     * side only, same answers).
+     */
+    ColumnFirstScan(SpectralStore store, StoreSearch.Plan plan, boolean gatherOtherColumns, boolean screenByLevels) {
+        this.screenByLevels = screenByLevels;
         this.gatherOtherColumns = gatherOtherColumns;
         this.store = store;
         this.plan = plan;
@@ -410,6 +421,10 @@ final class ColumnFirstScan {
                 }
             }
             Reach reach = new Reach(probe, t);
+            ThicknessClasses classes = rangeModel != null && screenByLevels ? store.thicknessClasses() : null;
+            if (classes != null) {
+                return overRangeByLevels(t, from, to, probes, columns, reach, reaches, otherColumns, others, classes);
+            }
             for (int c = from; c < to; c++) {
                 if (!reach.keeps(c, column[c])) {
                     continue;
@@ -429,6 +444,69 @@ final class ColumnFirstScan {
             return curves;
         }
         return everyColumnByBlocks(t, from, to);
+    }
+
+    /**
+     * Over a range: the same curves as the exact caps keep (element 0 is the count), the exact caps worked out
+     * only for the curves every one-column probe's {@link RangeLevelScreen} keeps. A screen keeps every curve its
+     * probe's exact cap keeps, so the curves it drops would have been dropped by that cap; the survivors then
+     * take the exact caps and the joint cap in the order of before, so what is kept is exactly what was kept.
+     * Block by block: the chosen column's screen writes every curve and advances past the kept ones, and the
+     * other columns thin the block, each read for a few kilobytes at a time.
+     */
+    private int[] overRangeByLevels(int t, int from, int to, int[] probes, short[][] columns, Reach reach,
+                                    Reach[] reaches, short[][] otherColumns, int others, ThicknessClasses classes) {
+        RangeLevelScreen[] screens = new RangeLevelScreen[others + 1];
+        screens[0] = screenOf(probe, t, classes);
+        for (int i = 0; i < others; i++) {
+            screens[i + 1] = screenOf(reaches[i].k, t, classes);
+        }
+        short[] classOf = classes.classOfCurve();
+        short[] column = store.column(plan.pointProbes.get(probe).probe().lo());
+        int[] curves = new int[64];
+        int count = 0;
+        int[] block = new int[BLOCK];
+        for (int start = from; start < to; start += BLOCK) {
+            int end = Math.min(to, start + BLOCK);
+            int left = 0;
+            RangeLevelScreen first = screens[0];
+            for (int c = start; c < end; c++) {
+                block[left] = c;
+                left += first.keeps(column[c], classOf[c]) ? 1 : 0;
+            }
+            for (int i = 0; i < others && left > 0; i++) {
+                RangeLevelScreen screen = screens[i + 1];
+                short[] other = otherColumns[i];
+                int kept = 0;
+                for (int j = 0; j < left; j++) {
+                    int c = block[j];
+                    block[kept] = c;
+                    kept += screen.keeps(other[c], classOf[c]) ? 1 : 0;
+                }
+                left = kept;
+            }
+            for (int j = 0; j < left; j++) {
+                int c = block[j];
+                boolean kept = reach.keeps(c, column[c]);
+                for (int i = 0; i < others && kept; i++) {
+                    kept = reaches[i].keeps(c, otherColumns[i][c]);
+                }
+                if (kept && jointCapOverRange(c, probes, columns) >= t) {
+                    if (count + 1 == curves.length) {
+                        curves = Arrays.copyOf(curves, curves.length * 2);
+                    }
+                    curves[++count] = c;
+                }
+            }
+        }
+        curves[0] = count;
+        return curves;
+    }
+
+    /** Probe k's screen over the asked range at threshold t. */
+    RangeLevelScreen screenOf(int k, int t, ThicknessClasses classes) {
+        return new RangeLevelScreen(plan.pointProbes.get(k), k, t, plan.pointProbeLoss, plan.pointProbeUnresolvedOd,
+                plan.thickness.minMm(), highestMm, classes);
     }
 
     /**
@@ -667,7 +745,7 @@ final class ColumnFirstScan {
      */
     final class Reach {
         private final StoreSearch.PointProbe p;
-        private final int k;
+        final int k;
         /** Least margin per group (MEETS, UNVERIFIED, MISSES) whose key reaches t. */
         private final double[] least = new double[3];
 

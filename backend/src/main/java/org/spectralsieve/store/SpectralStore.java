@@ -138,6 +138,24 @@ public final class SpectralStore {
 
     private volatile double thinnestBulk = Double.NaN;
 
+    /**
+     * Each curve's class for the integer screen over a thickness range ({@link RangeLevelScreen}), worked out on
+     * the first search over a range; null when the store's models and thicknesses make too many classes. Two
+     * threads may work it out at once into equal objects; a reader sees null or a whole one.
+     */
+    ThicknessClasses thicknessClasses() {
+        ThicknessClasses cached = thicknessClasses;
+        if (cached == null && !thicknessClassesTried) {
+            cached = ThicknessClasses.of(bulk, thicknessMm, indexModelOfCurve, size, indexModels.size());
+            thicknessClasses = cached;
+            thicknessClassesTried = true;
+        }
+        return cached;
+    }
+
+    private volatile ThicknessClasses thicknessClasses;
+    private volatile boolean thicknessClassesTried;
+
     public boolean isBulk(int curve) {
         return bulk[curve];
     }
@@ -222,8 +240,9 @@ public final class SpectralStore {
 
     /** Bytes the store's arrays take per curve (columns, per-curve fields, the weighted screen; shared tables excluded). */
     public double bytesPerCurve() {
+        // the last Short.BYTES: the thickness classes of the screen over a range, once a range is searched
         long perCurve = (long) gridNm.length * Short.BYTES + Long.BYTES + Integer.BYTES + Float.BYTES + 1 + 1 + Short.BYTES
-                + WeightedScreen.BYTES_PER_CURVE;
+                + WeightedScreen.BYTES_PER_CURVE + Short.BYTES;
         return size == 0 ? 0 : perCurve;
     }
 

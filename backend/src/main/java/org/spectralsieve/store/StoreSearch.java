@@ -64,6 +64,8 @@ public final class StoreSearch {
     private final Plan plan;
     /** The path as it was before the scan was reworked (see {@link #searchReference}). */
     private final boolean reference;
+    /** Over a range, the column-first pass screens by levels before the exact caps ({@link RangeLevelScreen}). */
+    private boolean screenByLevels = true;
 
     private StoreSearch(SpectralStore store, Requirement requirement, boolean reference) {
         this(store, requirement, reference, PARALLEL_MIN_CURVES);
@@ -165,6 +167,27 @@ public final class StoreSearch {
         return byColumn != null ? byColumn : search.run(limit, false);
     }
 
+    /**
+     * The reworked scan with the column-first pass over a range as it was before its screen by levels
+     * ({@link RangeLevelScreen}): every curve's exact caps worked out. For {@code SearchBenchmark}'s side-by-side
+     * rows only; same answers.
+     */
+    public static StoreResult searchWithoutRangeScreen(SpectralStore store, Requirement requirement, int limit) {
+        if (limit < 1) {
+            throw new IllegalArgumentException("limit must be at least 1, got " + limit);
+        }
+        return search(store, requirement, limit, PARALLEL_MIN_CURVES, COLUMN_FIRST_MIN_CURVES, false);
+    }
+
+    /** As {@link #search(SpectralStore, Requirement, int, int, int)}, with or without the screen by levels over a range. */
+    static StoreResult search(SpectralStore store, Requirement requirement, int limit, int parallelMinCurves,
+                              int columnFirstMinCurves, boolean screenByLevels) {
+        StoreSearch search = new StoreSearch(store, requirement, false, parallelMinCurves);
+        search.plan.columnFirstMinCurves = columnFirstMinCurves;
+        search.screenByLevels = screenByLevels;
+        return search.run(limit, false);
+    }
+
     /** The same search with every probe of every curve evaluated: the reference the bounded search must equal. */
     static StoreResult searchExhaustively(SpectralStore store, Requirement requirement, int limit) {
         return new StoreSearch(store, requirement, false).run(limit, true);
@@ -217,7 +240,7 @@ public final class StoreSearch {
     }
 
     private StoreResult runColumnFirst(int limit, boolean gatherOtherColumns) {
-        ColumnFirstScan scan = new ColumnFirstScan(store, plan, gatherOtherColumns);
+        ColumnFirstScan scan = new ColumnFirstScan(store, plan, gatherOtherColumns, screenByLevels);
         int[] best = scan.best(limit * FIRST_CUT_FACTOR);
         if (best == null) {
             return null;

@@ -77,7 +77,9 @@ class SearchBenchmark {
     /**
      * The whole search with its hand-over (the line {@code BENCH search ...}, the row the issue's table reads), and
      * alternated with it in the same loop the same search judging the store's hits alone, as before the hand-over
-     * ({@code BENCH search-hand-over ... variant=hits-only|hand-over}): what the exact cut costs, side by side.
+     * ({@code BENCH search-hand-over ... variant=hits-only|hand-over}): what the exact cut costs, side by side; and
+     * the whole search without the integer screen over a range ({@code BENCH search-range-screen ...
+     * variant=no-range-screen|after}, store's part and whole, and whether both returned the same rows).
      */
     private static double time(SpectralStore store, Requirement requirement, int limit, int runs, String mode) {
         for (int i = 0; i < 5; i++) {
@@ -86,9 +88,16 @@ class SearchBenchmark {
         double[] ms = new double[runs];
         double[] hitsOnlyMs = new double[runs];
         double[] storeMs = new double[runs];
+        double[] noScreenMs = new double[runs];
+        double[] noScreenStoreMs = new double[runs];
+        boolean sameRows = true;
         int refined = 0;
         int handedOver = 0;
         for (int i = 0; i < runs; i++) {
+            // every other iteration the search without the screen goes first: the place in the loop alone moved
+            // the same code's figures by a third under load (as measured both variants take the same path)
+            StoreResult unscreened = i % 2 == 1 ? withoutRangeScreen(store, requirement, limit, i, noScreenMs,
+                    noScreenStoreMs) : null;
             long t0 = System.nanoTime();
             StoreResult picked = StoreSearch.search(store, requirement, limit);
             long t1 = System.nanoTime();
@@ -100,6 +109,11 @@ class SearchBenchmark {
             long h0 = System.nanoTime();
             judgeHits(store, requirement, limit, StoreSearch.search(store, requirement, limit));
             hitsOnlyMs[i] = (System.nanoTime() - h0) / 1e6;
+
+            if (unscreened == null) {
+                unscreened = withoutRangeScreen(store, requirement, limit, i, noScreenMs, noScreenStoreMs);
+            }
+            sameRows &= unscreened.hits().equals(picked.hits());
         }
         // p50/p95: the whole search; store_p50_ms: the store's pick alone; refined: curves evaluated on every probe
         // before the hand-over; handed_over: materials the hand-over added for the exact last row
@@ -110,7 +124,28 @@ class SearchBenchmark {
                 mode, ms(percentile(hitsOnlyMs, 50)), ms(percentile(hitsOnlyMs, 95)));
         System.out.printf("BENCH search-hand-over curves=%d mode=%s variant=hand-over p50_ms=%s p95_ms=%s%n", store.size(),
                 mode, ms(percentile(ms, 50)), ms(percentile(ms, 95)));
+        // the whole search (with its hand-over) without the integer screen over a range, alternated with the above
+        System.out.printf("BENCH search-range-screen curves=%d mode=%s variant=no-range-screen p50_ms=%s p95_ms=%s"
+                        + " store_p50_ms=%s store_p95_ms=%s same_rows=%s%n", store.size(), mode,
+                ms(percentile(noScreenMs, 50)), ms(percentile(noScreenMs, 95)), ms(percentile(noScreenStoreMs, 50)),
+                ms(percentile(noScreenStoreMs, 95)), sameRows);
+        System.out.printf("BENCH search-range-screen curves=%d mode=%s variant=after p50_ms=%s p95_ms=%s"
+                        + " store_p50_ms=%s store_p95_ms=%s same_rows=%s%n", store.size(), mode,
+                ms(percentile(ms, 50)), ms(percentile(ms, 95)), ms(percentile(storeMs, 50)),
+                ms(percentile(storeMs, 95)), sameRows);
         return percentile(ms, 50);
+    }
+
+    /** The whole search (with its hand-over) without the integer screen over a range, timed into run i. */
+    private static StoreResult withoutRangeScreen(SpectralStore store, Requirement requirement, int limit, int i,
+                                                  double[] wholeMs, double[] storeMs) {
+        long u0 = System.nanoTime();
+        StoreResult unscreened = StoreSearch.searchWithoutRangeScreen(store, requirement, limit);
+        long u1 = System.nanoTime();
+        judgeExactly(store, requirement, limit, unscreened);
+        wholeMs[i] = (System.nanoTime() - u0) / 1e6;
+        storeMs[i] = (u1 - u0) / 1e6;
+        return unscreened;
     }
 
     /**
@@ -118,10 +153,12 @@ class SearchBenchmark {
      * the chunk scan without reading one column first ({@code variant=chunks}, {@link StoreSearch#searchByChunks})
      * the column-first pass as it was before its block screen ({@code variant=gathered},
      * {@link StoreSearch#searchGatheringOtherColumns}: as measured, the other columns gathered per kept curve)
-     * and the default path ({@code variant=after}), run in turn in one loop so all see the same load.
+     * the column-first pass over a range without its screen by levels ({@code variant=no-range-screen},
+     * {@link StoreSearch#searchWithoutRangeScreen}: every curve's exact caps) and the default path
+     * ({@code variant=after}), run in turn in one loop so all see the same load.
      */
     private static void compareScans(SpectralStore store, Requirement requirement, int limit, int runs, String mode) {
-        String[] variants = {"before", "chunks", "gathered", "after"};
+        String[] variants = {"before", "chunks", "gathered", "no-range-screen", "after"};
         for (int i = 0; i < 3; i++) {
             for (String variant : variants) {
                 scan(variant, store, requirement, limit);
@@ -146,6 +183,7 @@ class SearchBenchmark {
             case "before" -> StoreSearch.searchReference(store, requirement, limit);
             case "chunks" -> StoreSearch.searchByChunks(store, requirement, limit);
             case "gathered" -> StoreSearch.searchGatheringOtherColumns(store, requirement, limit);
+            case "no-range-screen" -> StoreSearch.searchWithoutRangeScreen(store, requirement, limit);
             default -> StoreSearch.search(store, requirement, limit);
         };
     }

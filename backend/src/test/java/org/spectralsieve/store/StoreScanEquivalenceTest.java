@@ -283,6 +283,121 @@ class StoreScanEquivalenceTest {
         assertThat(checked).isGreaterThan(100);
     }
 
+    /**
+     * Over a range, the integer screen ({@link RangeLevelScreen}: a level limit by the curve's thickness class)
+     * keeps every curve the exact cap ({@link ColumnFirstScan.Reach}) keeps: for every one-column probe of random
+     * requirements over random ranges, at thresholds drawn from real bounds, the keys' group edges and random
+     * keys, for every curve with its own code, and for sampled curves with every one of the 65,536 codes. It is
+     * also tight (it keeps few curves the cap drops), and the comparison can fail: the same screen at a threshold
+     * far above catches curves the cap at t keeps.
+     */
+    @Test
+    void theScreenByLevelsOverARangeKeepsEveryCurveTheExactCapKeeps() {
+        Random random = new Random(SEED + 7);
+        SpectralStore store = StoreSearchTest.randomStore(4000, 900, random.nextLong());
+        ThicknessClasses classes = store.thicknessClasses();
+        assertThat(classes).isNotNull();
+        short[] classOf = classes.classOfCurve();
+        long exactKept = 0;
+        long screenKept = 0;
+        long codesChecked = 0;
+        int droppedAboveT = 0;
+        for (int q = 0; q < 24; q++) {
+            Requirement drawn = randomRequirement(random);
+            ThicknessSpec range = randomThickness(random);
+            if (range.kind() != ThicknessSpec.Kind.RANGE) {
+                q--;
+                continue;
+            }
+            Requirement r = requirement(range, drawn.clauses().toArray(Clause[]::new));
+            StoreSearch.Plan plan = planOf(store, r);
+            ColumnFirstScan scan = new ColumnFirstScan(store, plan);
+            for (int k : scan.oneColumnProbeIndices()) {
+                short[] column = store.column(plan.pointProbes.get(k).probe().lo());
+                int[] thresholds = {scan.boundOf(random.nextInt(store.size())), scan.boundOf(random.nextInt(store.size())),
+                    StoreSearch.Keys.of(org.spectralsieve.requirement.Standing.MEETS, Double.NaN),
+                    StoreSearch.Keys.of(org.spectralsieve.requirement.Standing.UNVERIFIED, Double.POSITIVE_INFINITY),
+                    StoreSearch.Keys.of(org.spectralsieve.requirement.Standing.MISSES, Double.NaN),
+                    StoreSearch.Keys.of(org.spectralsieve.requirement.Standing.MISSES, -0.5 * random.nextDouble()),
+                    Integer.MIN_VALUE, Integer.MAX_VALUE, random.nextInt() / 4};
+                for (int t : thresholds) {
+                    ColumnFirstScan.Reach exact = scan.new Reach(k, t);
+                    RangeLevelScreen screen = scan.screenOf(k, t, classes);
+                    RangeLevelScreen farAbove = scan.screenOf(k, t == Integer.MAX_VALUE ? t : t + 20_000, classes);
+                    for (int c = 0; c < store.size(); c++) {
+                        boolean capKeeps = exact.keeps(c, column[c]);
+                        boolean screenKeeps = screen.keeps(column[c], classOf[c]);
+                        if (capKeeps) {
+                            assertThat(screenKeeps).as("%s probe %d t %d curve %d code %x", r.text(), k, t, c,
+                                    column[c] & 0xFFFF).isTrue();
+                            droppedAboveT += farAbove.keeps(column[c], classOf[c]) ? 0 : 1;
+                        }
+                        exactKept += capKeeps ? 1 : 0;
+                        screenKept += screenKeeps ? 1 : 0;
+                    }
+                    for (int i = 0; i < 3; i++) {
+                        int c = random.nextInt(store.size());
+                        for (int u = 0; u <= 0xFFFF; u++) {
+                            if (exact.keeps(c, (short) u)) {
+                                assertThat(screen.keeps((short) u, classOf[c])).as("%s probe %d t %d curve %d code %x",
+                                        r.text(), k, t, c, u).isTrue();
+                            }
+                            codesChecked++;
+                        }
+                    }
+                }
+            }
+        }
+        assertThat(codesChecked).isGreaterThan(1_000_000);
+        // not a screen that keeps everything: within a few per cent of what the exact caps keep
+        assertThat(exactKept).isGreaterThan(100_000);
+        assertThat(screenKept).as("kept by the screen, %d by the caps", exactKept).isLessThan(exactKept + exactKept / 20);
+        // the comparison can fail: the screen at a threshold far above t drops curves the caps at t keep
+        assertThat(droppedAboveT).isGreaterThan(1_000);
+    }
+
+    /**
+     * Over a range on random stores, the column-first pass with its integer screen, without it (every curve's
+     * exact caps), and the earlier scan return the same rows, counts and refinements, on one thread and over
+     * tasks; the column-first pass alone (no fallback) with and without the screen too, where it settles.
+     */
+    @Test
+    void theScreenByLevelsLeavesTheSearchOverARangeUnchanged() {
+        Random random = new Random(SEED + 8);
+        int settled = 0;
+        for (int s = 0; s < 2; s++) {
+            SpectralStore store = StoreSearchTest.randomStore(3000 + random.nextInt(5000), 20 + random.nextInt(1500),
+                    random.nextLong());
+            for (int q = 0; q < 50; q++) {
+                Requirement drawn = randomRequirement(random);
+                ThicknessSpec range = randomThickness(random);
+                if (range.kind() != ThicknessSpec.Kind.RANGE) {
+                    q--;
+                    continue;
+                }
+                Requirement r = requirement(range, drawn.clauses().toArray(Clause[]::new));
+                int limit = 1 + random.nextInt(40);
+                StoreResult before = StoreSearch.searchReference(store, r, limit);
+                for (int parallelFrom : new int[] {Integer.MAX_VALUE, 1}) {
+                    for (boolean screen : new boolean[] {true, false}) {
+                        StoreResult after = StoreSearch.search(store, r, limit, parallelFrom, 0, screen);
+                        assertThat(after.hits()).as("%s, limit %d, screen %s", r.text(), limit, screen)
+                                .usingRecursiveFieldByFieldElementComparator().containsExactlyElementsOf(before.hits());
+                        assertThat(after.evaluatedSamples()).isEqualTo(before.evaluatedSamples());
+                        assertThat(after.refinedSamples()).as(r.text()).isEqualTo(before.refinedSamples());
+                    }
+                }
+                StoreResult alone = StoreSearch.searchColumnFirstOnly(store, r, limit, 1);
+                if (alone != null) {
+                    assertThat(alone.hits()).usingRecursiveFieldByFieldElementComparator()
+                            .containsExactlyElementsOf(before.hits());
+                    settled++;
+                }
+            }
+        }
+        assertThat(settled).as("searches the column-first pass settled").isGreaterThan(40);
+    }
+
     /** One asked thickness or a range, some ending within the nominal tolerance short of a made range (0.5–4 mm). */
     private static ThicknessSpec randomThickness(Random random) {
         return switch (random.nextInt(4)) {
