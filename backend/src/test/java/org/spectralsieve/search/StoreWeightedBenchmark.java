@@ -53,6 +53,9 @@ class StoreWeightedBenchmark {
 
     static final String WEIGHTED = "passes over 85% of led 365 and uv hazard under 0.1% and luminous over 70%";
     private static final int BATCH = 8192;
+    private static final java.util.concurrent.atomic.AtomicLong REFINE_NS = new java.util.concurrent.atomic.AtomicLong();
+    private static final java.util.concurrent.atomic.AtomicLong JUDGE_NS = new java.util.concurrent.atomic.AtomicLong();
+    private static final java.util.concurrent.atomic.AtomicLong REFINES = new java.util.concurrent.atomic.AtomicLong();
     /** Each synthetic curve's refractive index (the store keeps its own copy, not public): judged as stored. */
     private static final Map<SpectralStore, byte[]> INDEX_OF_CURVE = new java.util.IdentityHashMap<>();
 
@@ -200,8 +203,12 @@ class StoreWeightedBenchmark {
      * ({@code -Dbench.storeWeightedJudging=earlier}: the loop before, held proven misses judged while they could enter).
      */
     private static Outcome searchBounded(SpectralStore store, Requirement requirement, int limit, long t0) {
-        // the screen: each curve's bound of either sign; a negative one is a proven miss (WeightedMisses.add)
-        double[] bounds = WeightedMisses.marginBounds(store, requirement, Optional.empty(), false);
+        // the screen: each curve's bound of either sign; a negative one is a proven miss (WeightedMisses.add),
+        // and the second stage of the same search (its queries), as SearchService.searchExactly forms them
+        WeightedMisses.Screen screen = WeightedMisses.screen(store, requirement, Optional.empty(), false, true);
+        double[] bounds = screen.bounds();
+        WeightedMisses.SecondStage second = Boolean.parseBoolean(System.getProperty("bench.storeWeightedSecondStage", "true"))
+                ? screen.secondStage() : null;
         long t1b = System.nanoTime();
         int provenCount = 0;
         ThicknessSpec spec = requirement.thickness();
@@ -210,11 +217,14 @@ class StoreWeightedBenchmark {
             int end = Math.min(store.size(), first + 3);
             double bound = Double.NEGATIVE_INFINITY;
             boolean allMiss = true;
+            boolean[] judgedHere = judgedSamples(store, first, end, spec);
             for (int c = first; c < end; c++) {
                 double margin = c < bounds.length && !Double.isNaN(bounds[c]) ? bounds[c] : Double.POSITIVE_INFINITY;
                 allMiss &= margin < 0;
                 provenCount += margin < 0 ? 1 : 0;
-                bound = Math.max(bound, margin);
+                // as the service: the largest bound over the samples MaterialJudge judges (a sample not judged
+                // gives no row)
+                bound = judgedHere[c - first] ? Math.max(bound, margin) : bound;
             }
             StoredMaterial m = store.material(first);
             // the synthetic materials state no made thicknesses (MadeThicknesses.of(List.of(), …) in judge), so a
@@ -223,21 +233,91 @@ class StoreWeightedBenchmark {
             boolean made = spec.kind() == ThicknessSpec.Kind.AS_MEASURED || !store.isBulk(first);
             contenders.add(new BoundedJudgement.Contender(material(m, first), bound, allMiss && made, false));
         }
+        long tc = System.nanoTime();
         java.util.concurrent.atomic.AtomicInteger judged = new java.util.concurrent.atomic.AtomicInteger();
         List<MaterialEvaluation> exact = BoundedJudgement.judge(contenders, limit,
                 new BoundedJudgement.Ranker(list -> Ranking.rank(list, limit), null),
                 material -> {
                     int first = (int) ((material.id() - 1) * 3);
+                    long j0 = System.nanoTime();
                     List<MaterialEvaluation> rows = judge(store, first, Math.min(store.size(), first + 3), requirement);
+                    JUDGE_NS.addAndGet(System.nanoTime() - j0);
                     judged.addAndGet(rows.size());
                     return rows;
-                }, contenders.size() >= BoundedJudgement.PARALLEL_FROM);
+                }, contenders.size() >= BoundedJudgement.PARALLEL_FROM,
+                second == null ? null : c -> {
+                    long r0 = System.nanoTime();
+                    BoundedJudgement.Contender out = refined(store, c, bounds, second, spec);
+                    REFINE_NS.addAndGet(System.nanoTime() - r0);
+                    REFINES.incrementAndGet();
+                    return out;
+                });
         List<RankedRow> rows = Ranking.rank(exact, limit);
         long t2 = System.nanoTime();
         if (rows.isEmpty()) {
             throw new IllegalStateException("no rows");
         }
+        if (Boolean.getBoolean("bench.debug")) {
+            RankedRow lastRow = rows.get(rows.size() - 1);
+            java.util.Map<String, Integer> kinds = new java.util.TreeMap<>();
+            for (MaterialEvaluation e : exact) {
+                int c = (int) (e.evaluation().sampleId() - 1);
+                kinds.merge((store.isBulk(c) ? "bulk " : "fixed ") + e.evaluation().standing()
+                        + (bounds[c] < 0 ? " proven" : ""), 1, Integer::sum);
+            }
+            System.out.printf("DEBUG contenders=%d refines=%d refine_ms=%.1f judge_ms=%.1f t_contenders_ms=%.1f%n", contenders.size(),
+                    REFINES.getAndSet(0), REFINE_NS.getAndSet(0) / 1e6, JUDGE_NS.getAndSet(0) / 1e6, (tc - t1b) / 1e6);
+            System.out.println("DEBUG last=" + lastRow.evaluation().standing() + " " + lastRow.evaluation().worstMarginDecades()
+                    + " first=" + rows.get(0).evaluation().worstMarginDecades() + " kinds=" + kinds);
+        }
         return new Outcome((t1b - t0) / 1e6, (t2 - t0) / 1e6, provenCount, judged.get());
+    }
+
+    /**
+     * As {@code SearchService.refined}: each curve's bound lowered by the second stage on its decoded curve, the
+     * material's the largest over its three curves (every curve is judged as measured; in a solve the largest over
+     * all three holds the service's largest over the curves judged), proven to miss when every bound is negative and
+     * it is made at the asked thickness, unable to meet when each curve has a clause unverified on it or a negative
+     * bound.
+     */
+    private static BoundedJudgement.Contender refined(SpectralStore store, BoundedJudgement.Contender c, double[] bounds,
+                                                      WeightedMisses.SecondStage second, ThicknessSpec spec) {
+        int first = (int) ((c.material().id() - 1) * 3);
+        double bound = Double.NEGATIVE_INFINITY;
+        double unverifiedBound = Double.NEGATIVE_INFINITY;
+        boolean allMiss = true;
+        boolean noneMeets = true;
+        int end = Math.min(store.size(), first + 3);
+        boolean[] judgedHere = judgedSamples(store, first, end, spec);
+        for (int k = first; k < end; k++) {
+            double b = k < bounds.length && !Double.isNaN(bounds[k]) ? bounds[k] : Double.POSITIVE_INFINITY;
+            b = Math.min(b, second.bound(k, store.curve(k)));
+            allMiss &= b < 0;
+            if (judgedHere[k - first]) {
+                bound = Math.max(bound, b);
+                noneMeets &= second.cannotMeet() || b < 0;
+                unverifiedBound = Math.max(unverifiedBound, second.unverifiedBound());
+            }
+        }
+        boolean made = spec.kind() == ThicknessSpec.Kind.AS_MEASURED || !store.isBulk(first);
+        return new BoundedJudgement.Contender(c.material(), bound, allMiss && made, false, noneMeets,
+                spec.kind() == ThicknessSpec.Kind.AS_MEASURED ? unverifiedBound : Double.POSITIVE_INFINITY);
+    }
+
+    /** Which of the material's curves [from, to) {@link MaterialJudge#choose} judges, from their thicknesses alone. */
+    private static boolean[] judgedSamples(SpectralStore store, int from, int to, ThicknessSpec spec) {
+        double[] measured = new double[to - from];
+        for (int c = from; c < to; c++) {
+            measured[c - from] = store.thicknessMm(c);
+        }
+        MadeThicknesses made = MadeThicknesses.of(List.of(), Double.NaN, Double.NaN,
+                Arrays.stream(measured).boxed().toList());
+        var spans = MaterialJudge.spans(measured, store.isBulk(from), made, spec);
+        boolean[] out = new boolean[spans.length];
+        for (int i = 0; i < spans.length; i++) {
+            out[i] = spans[i] != null;
+        }
+        return out;
     }
 
     /** A material record for a synthetic material (its curves are read from the store by id, not from here). */
