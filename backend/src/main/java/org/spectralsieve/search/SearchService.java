@@ -126,7 +126,7 @@ public class SearchService {
     private boolean secondStage = true;
     /**
      * Whether, where a material's row is the best of its samples' rows each formed alone (as measured and at one
-     * asked thickness, diffuse rows not ranked apart), each sample is a contender of its own
+     * asked thickness; with diffuse rows ranked apart, a material of one geometry), each sample is a contender of its own
      * (docs/weighted-screening.md, "Samples as contenders"); off only so a benchmark and tests can compare both
      * ways ({@link #withMaterialsWhole}).
      */
@@ -510,8 +510,7 @@ public class SearchService {
         boolean onlyJudgedSamples = spec.kind() != ThicknessSpec.Kind.AS_MEASURED && !marginBound.isEmpty();
         // a sample is a contender of its own where its row is formed alone and the material's row is the best of
         // its samples' rows: ranking by material keeps that best, so a sample that cannot enter is never it
-        boolean bySample = samplesAsContenders && !marginBound.isEmpty() && !grouped
-                && spec.kind() != ThicknessSpec.Kind.RANGE;
+        boolean bySample = samplesAsContenders && !marginBound.isEmpty() && spec.kind() != ThicknessSpec.Kind.RANGE;
         Map<Long, Prepared> prepared = new HashMap<>();
         Map<Long, Set<Long>> judgedOf = new HashMap<>();
         List<BoundedJudgement.Contender> contenders = new ArrayList<>();
@@ -528,10 +527,12 @@ public class SearchService {
             double bound = Double.NEGATIVE_INFINITY;
             boolean allMiss = true;
             boolean regular = false;
+            boolean diffuse = false;
             int count = 0;
             for (SampleInfo sample : material.samples()) {
                 if (admits(requirement, material, sample)) {
                     count++;
+                    diffuse |= grouped && sample.geometry() != Geometry.REGULAR;
                     Double miss = provenMiss.get(sample.id());
                     allMiss &= miss != null;
                     regular |= grouped && sample.geometry() == Geometry.REGULAR;
@@ -545,10 +546,12 @@ public class SearchService {
                 }
             }
             admitted += count;
-            // a material whose choice of samples failed (none judged) is judged whole: every row then says why
-            if (count > 0 && bySample && (judgedSamples == null || !judgedSamples.isEmpty())) {
+            // judged whole: a material whose choice of samples failed (none judged; every row then says why), and,
+            // with diffuse rows ranked apart, one with samples of both geometries (its diffuse rows are shown only
+            // when it has no regular row at all, so its row is not simply the best of its samples' rows)
+            if (count > 0 && bySample && (judgedSamples == null || !judgedSamples.isEmpty()) && !(regular && diffuse)) {
                 addSampleContenders(contenders, s, material, requirement, judgedSamples, prepared.get(material.id()),
-                        provenMiss, marginBound);
+                        provenMiss, marginBound, regular);
             } else if (count > 0) {
                 contenders.add(new BoundedJudgement.Contender(material, bound,
                         allMiss && madeFor(spec, material), regular));
@@ -642,7 +645,7 @@ public class SearchService {
      */
     private void addSampleContenders(List<BoundedJudgement.Contender> contenders, Snapshot s, Material material,
                                      Requirement requirement, Set<Long> judgedSamples, Prepared prepared,
-                                     Map<Long, Double> provenMiss, Map<Long, Double> marginBound) {
+                                     Map<Long, Double> provenMiss, Map<Long, Double> marginBound, boolean regular) {
         Set<Long> failed = new HashSet<>();
         if (prepared != null) {
             prepared.failed().forEach(e -> failed.add(e.evaluation().sampleId()));
@@ -654,7 +657,7 @@ public class SearchService {
                 continue;
             }
             double b = sampleBound(provenMiss, marginBound, sample.id());
-            contenders.add(new BoundedJudgement.Contender(material, b, b < 0 && made, false, false,
+            contenders.add(new BoundedJudgement.Contender(material, b, b < 0 && made, regular, false,
                     Double.POSITIVE_INFINITY, sample.id()));
         }
     }

@@ -71,6 +71,8 @@ class StoreWeightedBenchmark {
         Map<String, Requirement> modes = new java.util.LinkedHashMap<>();
         modes.put("measured", RequirementParser.parse(WEIGHTED));
         modes.put("solve", RequirementParser.parse(WEIGHTED + ", thickness 1 to 6 mm"));
+        List<String> chosenModes = Arrays.asList(System.getProperty("bench.storeWeightedModes", "measured,solve").split(","));
+        modes.keySet().retainAll(chosenModes);
         for (String size : System.getProperty("bench.storeWeightedSizes", "10000,1000000").split(",")) {
             if (size.isBlank()) {
                 continue;
@@ -114,7 +116,7 @@ class StoreWeightedBenchmark {
                         System.out.printf(Locale.ROOT, "BENCH store-weighted curves=%d mode=%s part=%s p50_ms=%.1f p95_ms=%.1f"
                                         + " proven=%d judged=%d runs=%d rule=%s judging=%s%n", n, mode.getKey(), part, ms[runs / 2],
                                 ms[Math.min(runs - 1, (int) Math.ceil(runs * 0.95) - 1)], last[v].proven, last[v].judged,
-                                runs, rules[v], judged && rules[v].equals("current")
+                                runs, rules[v], judged && (rules[v].equals("current") || rules[v].equals("samples"))
                                         ? System.getProperty("bench.storeWeightedJudging", "bounded") : "earlier");
                     }
                 }
@@ -129,14 +131,15 @@ class StoreWeightedBenchmark {
     private static Outcome search(SpectralStore store, Requirement requirement, int limit, boolean judge,
                                   String rule) {
         long t0 = System.nanoTime();
-        if (judge && rule.equals("current") && !"earlier".equals(System.getProperty("bench.storeWeightedJudging", "bounded"))) {
-            return searchBounded(store, requirement, limit, t0);
+        if (judge && (rule.equals("current") || rule.equals("samples"))
+                && !"earlier".equals(System.getProperty("bench.storeWeightedJudging", "bounded"))) {
+            return searchBounded(store, requirement, limit, t0, rule.equals("samples"));
         }
         Map<Long, Double> proven = new HashMap<>();
         switch (rule) {
             case "earlier" -> WeightedMisses.addEarlier(proven, store, requirement, Optional.empty());
             case "reference" -> WeightedMisses.add(proven, store, requirement, Optional.empty(), false, true);
-            case "current" -> WeightedMisses.add(proven, store, requirement, Optional.empty());
+            case "current", "samples" -> WeightedMisses.add(proven, store, requirement, Optional.empty());
             default -> throw new IllegalArgumentException("rule " + rule);
         }
         long t1 = System.nanoTime();
@@ -202,7 +205,8 @@ class StoreWeightedBenchmark {
      * materials, left out once the rows are full of rows it cannot beat. The current rule's screen only
      * ({@code -Dbench.storeWeightedJudging=earlier}: the loop before, held proven misses judged while they could enter).
      */
-    private static Outcome searchBounded(SpectralStore store, Requirement requirement, int limit, long t0) {
+    private static Outcome searchBounded(SpectralStore store, Requirement requirement, int limit, long t0,
+                                         boolean samplesAsContenders) {
         // the screen: each curve's bound of either sign; a negative one is a proven miss (WeightedMisses.add),
         // and the second stage of the same search (its queries), as SearchService.searchExactly forms them
         WeightedMisses.Screen screen = WeightedMisses.screen(store, requirement, Optional.empty(), false, true);
@@ -212,6 +216,8 @@ class StoreWeightedBenchmark {
         long t1b = System.nanoTime();
         int provenCount = 0;
         ThicknessSpec spec = requirement.thickness();
+        // a solved range judges a material's samples together (their rows share its feasible interval and advice)
+        boolean bySample = samplesAsContenders && spec.kind() != ThicknessSpec.Kind.RANGE;
         List<BoundedJudgement.Contender> contenders = new ArrayList<>();
         for (int first = 0; first < store.size(); first += 3) {
             int end = Math.min(store.size(), first + 3);
@@ -231,23 +237,37 @@ class StoreWeightedBenchmark {
             // bulk one is made at an asked thickness only as measured: as the service's madeFor, a proven miss
             // of a bulk material at a thickness is not "at best a valued miss"
             boolean made = spec.kind() == ThicknessSpec.Kind.AS_MEASURED || !store.isBulk(first);
-            contenders.add(new BoundedJudgement.Contender(material(m, first), bound, allMiss && made, false));
+            if (bySample) {
+                // as SearchService: each sample the judgement picks a contender of its own, with its own bound
+                for (int c = first; c < end; c++) {
+                    double margin = c < bounds.length && !Double.isNaN(bounds[c]) ? bounds[c] : Double.POSITIVE_INFINITY;
+                    if (judgedHere[c - first]) {
+                        contenders.add(new BoundedJudgement.Contender(material(m, first), margin, margin < 0 && made,
+                                false, false, Double.POSITIVE_INFINITY, store.sampleId(c)));
+                    }
+                }
+            } else {
+                contenders.add(new BoundedJudgement.Contender(material(m, first), bound, allMiss && made, false));
+            }
         }
         long tc = System.nanoTime();
         java.util.concurrent.atomic.AtomicInteger judged = new java.util.concurrent.atomic.AtomicInteger();
-        List<MaterialEvaluation> exact = BoundedJudgement.judge(contenders, limit,
+        List<MaterialEvaluation> exact = BoundedJudgement.judgeContenders(contenders, limit,
                 new BoundedJudgement.Ranker(list -> Ranking.rank(list, limit), null),
-                material -> {
-                    int first = (int) ((material.id() - 1) * 3);
+                contender -> {
+                    int first = (int) ((contender.material().id() - 1) * 3);
                     long j0 = System.nanoTime();
-                    List<MaterialEvaluation> rows = judge(store, first, Math.min(store.size(), first + 3), requirement);
+                    List<MaterialEvaluation> rows = contender.oneSample()
+                            ? judgeOne(store, first, Math.min(store.size(), first + 3), requirement, contender.sampleId())
+                            : judge(store, first, Math.min(store.size(), first + 3), requirement);
                     JUDGE_NS.addAndGet(System.nanoTime() - j0);
                     judged.addAndGet(rows.size());
                     return rows;
                 }, contenders.size() >= BoundedJudgement.PARALLEL_FROM,
                 second == null ? null : c -> {
                     long r0 = System.nanoTime();
-                    BoundedJudgement.Contender out = refined(store, c, bounds, second, spec);
+                    BoundedJudgement.Contender out = c.oneSample() ? refinedSample(store, c, bounds, second, spec)
+                            : refined(store, c, bounds, second, spec);
                     REFINE_NS.addAndGet(System.nanoTime() - r0);
                     REFINES.incrementAndGet();
                     return out;
@@ -304,6 +324,25 @@ class StoreWeightedBenchmark {
                 spec.kind() == ThicknessSpec.Kind.AS_MEASURED ? unverifiedBound : Double.POSITIVE_INFINITY);
     }
 
+    /** As {@code SearchService.refinedSample}: one curve's bound lowered by the second stage on its decoded curve. */
+    private static BoundedJudgement.Contender refinedSample(SpectralStore store, BoundedJudgement.Contender c,
+                                                            double[] bounds, WeightedMisses.SecondStage second,
+                                                            ThicknessSpec spec) {
+        int k = (int) (c.sampleId() - 1);
+        double b = k < bounds.length && !Double.isNaN(bounds[k]) ? bounds[k] : Double.POSITIVE_INFINITY;
+        b = Math.min(b, second.bound(k, store.curve(k)));
+        boolean made = spec.kind() == ThicknessSpec.Kind.AS_MEASURED || !store.isBulk(k);
+        return new BoundedJudgement.Contender(c.material(), b, b < 0 && made, false, second.cannotMeet() || b < 0,
+                spec.kind() == ThicknessSpec.Kind.AS_MEASURED ? second.unverifiedBound() : Double.POSITIVE_INFINITY,
+                c.sampleId());
+    }
+
+    /** One curve of a material judged alone ({@link MaterialJudge#evaluateOne}), the others there for the choice. */
+    private static List<MaterialEvaluation> judgeOne(SpectralStore store, int from, int to, Requirement requirement,
+                                                     long sampleId) {
+        return MaterialJudge.evaluateOne(candidates(store, from, to), requirement, Optional.empty(), sampleId);
+    }
+
     /** Which of the material's curves [from, to) {@link MaterialJudge#choose} judges, from their thicknesses alone. */
     private static boolean[] judgedSamples(SpectralStore store, int from, int to, ThicknessSpec spec) {
         double[] measured = new double[to - from];
@@ -345,6 +384,10 @@ class StoreWeightedBenchmark {
     }
 
     private static List<MaterialEvaluation> judge(SpectralStore store, int from, int to, Requirement requirement) {
+        return MaterialJudge.evaluate(candidates(store, from, to), requirement, Optional.empty());
+    }
+
+    private static List<Candidate> candidates(SpectralStore store, int from, int to) {
         byte[] index = INDEX_OF_CURVE.get(store);
         List<Candidate> candidates = new ArrayList<>();
         List<Double> measured = new ArrayList<>();
@@ -357,7 +400,7 @@ class StoreWeightedBenchmark {
             candidates.add(new Candidate(store.sampleId(c), m.id(), m.name(), store.curve(c), store.thicknessMm(c),
                     store.isBulk(c), SyntheticCurves.INDICES[index[c]], made));
         }
-        return MaterialJudge.evaluate(candidates, requirement, Optional.empty());
+        return candidates;
     }
 
     /**
