@@ -126,7 +126,7 @@ public class SearchService {
     private boolean secondStage = true;
     /**
      * Whether, where a material's row is the best of its samples' rows each formed alone (as measured and at one
-     * asked thickness; with diffuse rows ranked apart, a material of one geometry), each sample is a contender of its own
+     * asked thickness), each sample is a contender of its own
      * (docs/weighted-screening.md, "Samples as contenders"); off only so a benchmark and tests can compare both
      * ways ({@link #withMaterialsWhole}).
      */
@@ -527,12 +527,10 @@ public class SearchService {
             double bound = Double.NEGATIVE_INFINITY;
             boolean allMiss = true;
             boolean regular = false;
-            boolean diffuse = false;
             int count = 0;
             for (SampleInfo sample : material.samples()) {
                 if (admits(requirement, material, sample)) {
                     count++;
-                    diffuse |= grouped && sample.geometry() != Geometry.REGULAR;
                     Double miss = provenMiss.get(sample.id());
                     allMiss &= miss != null;
                     regular |= grouped && sample.geometry() == Geometry.REGULAR;
@@ -546,10 +544,10 @@ public class SearchService {
                 }
             }
             admitted += count;
-            // judged whole: a material whose choice of samples failed (none judged; every row then says why), and,
-            // with diffuse rows ranked apart, one with samples of both geometries (its diffuse rows are shown only
-            // when it has no regular row at all, so its row is not simply the best of its samples' rows)
-            if (count > 0 && bySample && (judgedSamples == null || !judgedSamples.isEmpty()) && !(regular && diffuse)) {
+            // judged whole: a material whose choice of samples failed (none judged; every row then says why). With
+            // diffuse rows ranked apart, every sample of a material with a regular one competes with the regular rows
+            // (as the material did): it is left out only once they are full, and then no diffuse row is shown at all
+            if (count > 0 && bySample && (judgedSamples == null || !judgedSamples.isEmpty())) {
                 addSampleContenders(contenders, s, material, requirement, judgedSamples, prepared.get(material.id()),
                         provenMiss, marginBound, regular);
             } else if (count > 0) {

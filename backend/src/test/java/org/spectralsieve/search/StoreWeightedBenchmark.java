@@ -48,6 +48,12 @@ import org.spectralsieve.store.SyntheticCurves;
  * could enter), {@code -Dbench.storeWeightedWholeRules=current} runs the whole search for those rules
  * only (the others time their screen alone; above the base size the warm-up screens only). The held materials are judged as the service does: the shortlist's top rows kept up
  * to date from themselves and each newly judged material, ranked once from every judgement at the end.
+ * The bounded loop forms the second, exact-curve stage as the service does ({@code -Dbench.storeWeightedSecondStage=false}
+ * leaves it out) and takes each material's bound over the samples {@link MaterialJudge} picks; rule {@code samples}
+ * is the current screen with each sample a contender of its own where the service makes it one (not in a solved
+ * range), beside {@code current} (materials whole). {@code -Dbench.storeWeightedModes=measured,solve} chooses the
+ * requirements; {@code -Dbench.debug=true} prints, per whole search, the contenders, second bounds formed and the
+ * time in them and in the exact judgement, and the last row.
  */
 class StoreWeightedBenchmark {
 
