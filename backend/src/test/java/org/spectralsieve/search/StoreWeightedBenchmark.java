@@ -317,12 +317,14 @@ class StoreWeightedBenchmark {
         boolean[] judgedHere = judgedSamples(store, first, end, spec);
         for (int k = first; k < end; k++) {
             double b = k < bounds.length && !Double.isNaN(bounds[k]) ? bounds[k] : Double.POSITIVE_INFINITY;
-            b = Math.min(b, second.bound(k, store.curve(k)));
+            // as the service: the second stage only for a curve with a first bound (it only tightens one)
+            boolean formed = b < Double.POSITIVE_INFINITY;
+            b = formed ? Math.min(b, second.bound(k, store.curve(k))) : b;
             allMiss &= b < 0;
             if (judgedHere[k - first]) {
                 bound = Math.max(bound, b);
-                noneMeets &= second.cannotMeet() || b < 0;
-                unverifiedBound = Math.max(unverifiedBound, second.unverifiedBound());
+                noneMeets &= formed && second.cannotMeet() || b < 0;
+                unverifiedBound = Math.max(unverifiedBound, formed ? second.unverifiedBound() : Double.POSITIVE_INFINITY);
             }
         }
         boolean made = spec.kind() == ThicknessSpec.Kind.AS_MEASURED || !store.isBulk(first);
@@ -336,6 +338,9 @@ class StoreWeightedBenchmark {
                                                             ThicknessSpec spec) {
         int k = (int) (c.sampleId() - 1);
         double b = k < bounds.length && !Double.isNaN(bounds[k]) ? bounds[k] : Double.POSITIVE_INFINITY;
+        if (!(b < Double.POSITIVE_INFINITY)) {
+            return c; // as the service: nothing to tighten
+        }
         b = Math.min(b, second.bound(k, store.curve(k)));
         boolean made = spec.kind() == ThicknessSpec.Kind.AS_MEASURED || !store.isBulk(k);
         return new BoundedJudgement.Contender(c.material(), b, b < 0 && made, false, second.cannotMeet() || b < 0,
