@@ -115,7 +115,9 @@ final class BoundedJudgement {
      * judged only when it comes first again by that one; so materials are judged in the order of their second
      * bounds, and a second bound is formed only for contenders whose first bound reaches the rows. A contender
      * left out by either bound could not enter, so the answer is the same; only the work changes. With
-     * {@code refine} null every first bound is taken as final (the loop before the second stage).
+     * {@code refine} null every first bound is taken as final (the loop before the second stage). In parallel up to
+     * {@value #PARALLEL_BATCH} second bounds are formed at once, so {@code refine} must then be safe from several
+     * threads.
      */
     static List<MaterialEvaluation> judge(List<Contender> contenders, int limit, Ranker ranker,
                                           Function<Material, List<MaterialEvaluation>> judge, boolean parallel,
@@ -140,7 +142,8 @@ final class BoundedJudgement {
         List<RankedRow> regularRows = List.of();
         while (!queue.isEmpty()) {
             List<Contender> batch = new ArrayList<>(batchSize);
-            while (!queue.isEmpty() && batch.size() < batchSize) {
+            List<Contender> toRefine = new ArrayList<>(batchSize);
+            while (!queue.isEmpty() && batch.size() < batchSize && toRefine.size() < batchSize) {
                 if (noneCanEnter(queue.peek().contender(), rows, limit)
                         && (!ranker.grouped() || noneCanEnter(queue.peek().contender(), regularRows, limit))) {
                     queue.clear(); // every contender left has a bound no larger than the first's
@@ -156,8 +159,14 @@ final class BoundedJudgement {
                     // rows not yet full take anything: a second bound could not keep the contender out
                     batch.add(p.contender());
                 } else {
-                    queue.add(new Pending(refine.apply(p.contender()), true));
+                    toRefine.add(p.contender());
                 }
+            }
+            // second bounds on both cores too (refine must then be safe from several threads); each goes back
+            // in line by its own bound, so which are formed together changes only the work
+            if (!toRefine.isEmpty()) {
+                (toRefine.size() > 1 ? toRefine.parallelStream() : toRefine.stream()).map(refine).toList()
+                        .forEach(c -> queue.add(new Pending(c, true)));
             }
             if (batch.isEmpty()) {
                 continue;

@@ -557,11 +557,25 @@ public class SearchService {
         }
         BoundedJudgement.Ranker ranker = new BoundedJudgement.Ranker(list -> rank(s, requirement, list, limit),
                 grouped ? list -> Ranking.rank(regularOnly(s, list), limit) : null);
-        // the screen's own queries, asked only from the loop's thread once the rows are full
-        WeightedMisses.SecondStage second = formedSecond;
-        java.util.function.UnaryOperator<BoundedJudgement.Contender> refine = secondStage && second != null && !rowOf.isEmpty()
-                ? c -> c.oneSample() ? refinedSample(s, c, requirement, provenMiss, marginBound, rowOf, second)
-                        : refined(s, c, requirement, provenMiss, marginBound, rowOf, judgedOf.get(c.material().id()), second)
+        // once the rows are full: the screen's own queries, and for a second bound formed at the same time on another
+        // thread a second stage of its own (a stage keeps the curve it reads), kept for the rest of this search only
+        WeightedMisses.SecondStage formed = formedSecond;
+        java.util.Queue<WeightedMisses.SecondStage> idle = new java.util.concurrent.ConcurrentLinkedQueue<>();
+        if (formed != null) {
+            idle.add(formed);
+        }
+        java.util.function.UnaryOperator<BoundedJudgement.Contender> refine = secondStage && formed != null && !rowOf.isEmpty()
+                ? c -> {
+                    WeightedMisses.SecondStage stage = idle.poll();
+                    stage = stage != null ? stage
+                            : WeightedMisses.secondStage(s.store(), requirement, layer, diffuseLayer, weightedLayerBlocks);
+                    try {
+                        return c.oneSample() ? refinedSample(s, c, requirement, provenMiss, marginBound, rowOf, stage)
+                                : refined(s, c, requirement, provenMiss, marginBound, rowOf, judgedOf.get(c.material().id()), stage);
+                    } finally {
+                        idle.add(stage);
+                    }
+                }
                 : null;
         // the prepared map is complete before any judging thread reads it, and never written after
         List<MaterialEvaluation> exact = BoundedJudgement.judgeContenders(contenders, limit, ranker,

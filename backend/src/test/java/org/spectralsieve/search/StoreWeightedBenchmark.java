@@ -256,6 +256,10 @@ class StoreWeightedBenchmark {
                 contenders.add(new BoundedJudgement.Contender(material(m, first), bound, allMiss && made, false));
             }
         }
+        java.util.Queue<WeightedMisses.SecondStage> idle = new java.util.concurrent.ConcurrentLinkedQueue<>();
+        if (second != null) {
+            idle.add(second);
+        }
         long tc = System.nanoTime();
         java.util.concurrent.atomic.AtomicInteger judged = new java.util.concurrent.atomic.AtomicInteger();
         List<MaterialEvaluation> exact = BoundedJudgement.judgeContenders(contenders, limit,
@@ -272,8 +276,13 @@ class StoreWeightedBenchmark {
                 }, contenders.size() >= BoundedJudgement.PARALLEL_FROM,
                 second == null ? null : c -> {
                     long r0 = System.nanoTime();
-                    BoundedJudgement.Contender out = c.oneSample() ? refinedSample(store, c, bounds, second, spec)
-                            : refined(store, c, bounds, second, spec);
+                    // as the service: a second stage of its own for each second bound formed at the same time
+                    WeightedMisses.SecondStage stage = idle.poll();
+                    stage = stage != null ? stage
+                            : WeightedMisses.secondStage(store, requirement, Optional.empty(), false, true);
+                    BoundedJudgement.Contender out = c.oneSample() ? refinedSample(store, c, bounds, stage, spec)
+                            : refined(store, c, bounds, stage, spec);
+                    idle.add(stage);
                     REFINE_NS.addAndGet(System.nanoTime() - r0);
                     REFINES.incrementAndGet();
                     return out;
