@@ -137,13 +137,15 @@ final class BoundedJudgement {
         // built in one pass (a heap of n in O(n)) rather than n insertions: a million curves make 333k contenders
         PriorityQueue<Pending> queue = new PriorityQueue<>(waiting);
         int batchSize = parallel ? PARALLEL_BATCH : 1;
+        // -Dsieve.search.second-bounds-in-parallel=false: one second bound at a time, the loop before (benchmarks only)
+        int refineSize = "false".equals(System.getProperty("sieve.search.second-bounds-in-parallel")) ? 1 : batchSize;
         List<MaterialEvaluation> exact = new ArrayList<>();
         List<RankedRow> rows = List.of();
         List<RankedRow> regularRows = List.of();
         while (!queue.isEmpty()) {
             List<Contender> batch = new ArrayList<>(batchSize);
             List<Contender> toRefine = new ArrayList<>(batchSize);
-            while (!queue.isEmpty() && batch.size() < batchSize && toRefine.size() < batchSize) {
+            while (!queue.isEmpty() && batch.size() < batchSize && toRefine.size() < refineSize) {
                 if (noneCanEnter(queue.peek().contender(), rows, limit)
                         && (!ranker.grouped() || noneCanEnter(queue.peek().contender(), regularRows, limit))) {
                     queue.clear(); // every contender left has a bound no larger than the first's

@@ -51,7 +51,8 @@ import org.spectralsieve.store.SyntheticCurves;
  * The bounded loop forms the second, exact-curve stage as the service does ({@code -Dbench.storeWeightedSecondStage=false}
  * leaves it out) and takes each material's bound over the samples {@link MaterialJudge} picks; rule {@code samples}
  * is the current screen with each sample a contender of its own where the service makes it one (not in a solved
- * range), beside {@code current} (materials whole). {@code -Dbench.storeWeightedModes=measured,solve} chooses the
+ * range), beside {@code current} (materials whole) and {@code before} (materials whole, one second bound at a time:
+ * the loop before issue 14's sixth pass). {@code -Dbench.storeWeightedModes=measured,solve} chooses the
  * requirements; {@code -Dbench.debug=true} prints, per whole search, the contenders, second bounds formed and the
  * time in them and in the exact judgement, and the last row.
  */
@@ -122,7 +123,7 @@ class StoreWeightedBenchmark {
                         System.out.printf(Locale.ROOT, "BENCH store-weighted curves=%d mode=%s part=%s p50_ms=%.1f p95_ms=%.1f"
                                         + " proven=%d judged=%d runs=%d rule=%s judging=%s%n", n, mode.getKey(), part, ms[runs / 2],
                                 ms[Math.min(runs - 1, (int) Math.ceil(runs * 0.95) - 1)], last[v].proven, last[v].judged,
-                                runs, rules[v], judged && (rules[v].equals("current") || rules[v].equals("samples"))
+                                runs, rules[v], judged && List.of("current", "samples", "before").contains(rules[v])
                                         ? System.getProperty("bench.storeWeightedJudging", "bounded") : "earlier");
                     }
                 }
@@ -137,6 +138,15 @@ class StoreWeightedBenchmark {
     private static Outcome search(SpectralStore store, Requirement requirement, int limit, boolean judge,
                                   String rule) {
         long t0 = System.nanoTime();
+        if (judge && rule.equals("before") && !"earlier".equals(System.getProperty("bench.storeWeightedJudging", "bounded"))) {
+            // the loop before this pass: materials whole, one second bound at a time
+            System.setProperty("sieve.search.second-bounds-in-parallel", "false");
+            try {
+                return searchBounded(store, requirement, limit, t0, false);
+            } finally {
+                System.clearProperty("sieve.search.second-bounds-in-parallel");
+            }
+        }
         if (judge && (rule.equals("current") || rule.equals("samples"))
                 && !"earlier".equals(System.getProperty("bench.storeWeightedJudging", "bounded"))) {
             return searchBounded(store, requirement, limit, t0, rule.equals("samples"));
@@ -145,7 +155,7 @@ class StoreWeightedBenchmark {
         switch (rule) {
             case "earlier" -> WeightedMisses.addEarlier(proven, store, requirement, Optional.empty());
             case "reference" -> WeightedMisses.add(proven, store, requirement, Optional.empty(), false, true);
-            case "current", "samples" -> WeightedMisses.add(proven, store, requirement, Optional.empty());
+            case "current", "samples", "before" -> WeightedMisses.add(proven, store, requirement, Optional.empty());
             default -> throw new IllegalArgumentException("rule " + rule);
         }
         long t1 = System.nanoTime();
