@@ -45,6 +45,26 @@ public final class MaterialJudge {
         return merged(out);
     }
 
+    /**
+     * The row {@link #evaluate} forms for one of the material's samples, alone: empty when that sample is not
+     * judged for the requirement's thickness. Only where a sample's row does not depend on the others' rows
+     * (as measured and at one thickness; a solved range shares the material's feasible interval and stock
+     * advice among its rows); which samples are judged, and over what span, still depends on all of them.
+     */
+    public static List<MaterialEvaluation> evaluateOne(List<Candidate> samples, Requirement requirement,
+                                                       Optional<StackLayer> layer, long sampleId) {
+        if (requirement.thickness().kind() == ThicknessSpec.Kind.RANGE) {
+            throw new IllegalArgumentException("a solved range judges a material's samples together");
+        }
+        for (Judged j : choose(samples, requirement.thickness())) {
+            if (j.candidate().sampleId() == sampleId) {
+                return List.of(MaterialEvaluation.of(j.candidate(),
+                        SampleEvaluator.evaluate(j.candidate(), requirement, layer, j.span())));
+            }
+        }
+        return List.of();
+    }
+
     /** A sample to judge and the thicknesses it speaks for. */
     public record Judged(Candidate candidate, ThicknessInterval span) {
     }

@@ -52,19 +52,37 @@ final class BoundedJudgement {
      *                     or is proven to miss (the second stage), so its row is not in the group of met rows
      * @param unverifiedBound an upper bound on its row's worst margin should that row be unverified ({@code +∞}
      *                     when nothing is known; the second stage as measured without a layer)
+     * @param sampleId     {@link #WHOLE_MATERIAL}: the material is judged whole; else the one sample of it this
+     *                     contender stands for, judged alone (where a material's row is the best of its samples'
+     *                     rows, each formed alone: {@code SearchService}, docs/weighted-screening.md "Samples as
+     *                     contenders"), every bound and flag then that sample's own
      */
     record Contender(Material material, double bound, boolean provenToMiss, boolean regular, boolean cannotMeet,
-                     double unverifiedBound) {
+                     double unverifiedBound, long sampleId) {
 
         Contender(Material material, double bound, boolean provenToMiss, boolean regular) {
             this(material, bound, provenToMiss, regular, false, Double.POSITIVE_INFINITY);
         }
+
+        Contender(Material material, double bound, boolean provenToMiss, boolean regular, boolean cannotMeet,
+                  double unverifiedBound) {
+            this(material, bound, provenToMiss, regular, cannotMeet, unverifiedBound, WHOLE_MATERIAL);
+        }
+
+        /** Whether it stands for one sample of its material rather than the whole material. */
+        boolean oneSample() {
+            return sampleId != WHOLE_MATERIAL;
+        }
     }
 
-    /** Largest bound first (an unknown one counts as the largest), then by material id: the judging order. */
+    /** {@link Contender#sampleId} of a contender that stands for its whole material (no sample has id 0). */
+    static final long WHOLE_MATERIAL = 0;
+
+    /** Largest bound first (an unknown one counts as the largest), then by material id and sample: the judging order. */
     static final Comparator<Contender> ORDER = Comparator
             .comparingDouble((Contender c) -> Double.isNaN(c.bound()) ? Double.POSITIVE_INFINITY : c.bound()).reversed()
-            .thenComparingLong(c -> c.material().id());
+            .thenComparingLong(c -> c.material().id())
+            .thenComparingLong(Contender::sampleId);
 
     /**
      * How the rows are ranked while judging.
@@ -97,21 +115,42 @@ final class BoundedJudgement {
      * judged only when it comes first again by that one; so materials are judged in the order of their second
      * bounds, and a second bound is formed only for contenders whose first bound reaches the rows. A contender
      * left out by either bound could not enter, so the answer is the same; only the work changes. With
-     * {@code refine} null every first bound is taken as final (the loop before the second stage).
+     * {@code refine} null every first bound is taken as final (the loop before the second stage). In parallel up to
+     * {@value #PARALLEL_BATCH} second bounds are formed at once, so {@code refine} must then be safe from several
+     * threads.
      */
     static List<MaterialEvaluation> judge(List<Contender> contenders, int limit, Ranker ranker,
                                           Function<Material, List<MaterialEvaluation>> judge, boolean parallel,
                                           UnaryOperator<Contender> refine) {
-        PriorityQueue<Pending> queue = new PriorityQueue<>(contenders.size() + 1,
-                Comparator.comparing(Pending::contender, ORDER));
-        contenders.forEach(c -> queue.add(new Pending(c, refine == null)));
+        return judgeContenders(contenders, limit, ranker, c -> judge.apply(c.material()), parallel, refine);
+    }
+
+    /**
+     * {@link #judge(List, int, Ranker, Function, boolean, UnaryOperator)} with the contender handed to {@code judge}:
+     * a contender that stands for one sample ({@link Contender#oneSample}) is judged for that sample alone.
+     */
+    static List<MaterialEvaluation> judgeContenders(List<Contender> contenders, int limit, Ranker ranker,
+                                                    Function<Contender, List<MaterialEvaluation>> judge, boolean parallel,
+                                                    UnaryOperator<Contender> refine) {
+        List<Pending> waiting = new ArrayList<>(contenders.size() + 1);
+        contenders.forEach(c -> waiting.add(new Pending(c, refine == null)));
+        // built in one pass (a heap of n in O(n)) rather than n insertions: a million curves make 333k contenders
+        PriorityQueue<Pending> queue = new PriorityQueue<>(waiting);
         int batchSize = parallel ? PARALLEL_BATCH : 1;
+        // -Dsieve.search.second-bounds-in-parallel=false: one second bound at a time, the loop before (benchmarks only)
+        int refineSize = "false".equals(System.getProperty("sieve.search.second-bounds-in-parallel")) ? 1 : batchSize;
         List<MaterialEvaluation> exact = new ArrayList<>();
         List<RankedRow> rows = List.of();
         List<RankedRow> regularRows = List.of();
         while (!queue.isEmpty()) {
-            List<Material> batch = new ArrayList<>(batchSize);
-            while (!queue.isEmpty() && batch.size() < batchSize) {
+            List<Contender> batch = new ArrayList<>(batchSize);
+            List<Contender> toRefine = new ArrayList<>(batchSize);
+            while (!queue.isEmpty() && batch.size() < batchSize && toRefine.size() < refineSize) {
+                if (noneCanEnter(queue.peek().contender(), rows, limit)
+                        && (!ranker.grouped() || noneCanEnter(queue.peek().contender(), regularRows, limit))) {
+                    queue.clear(); // every contender left has a bound no larger than the first's
+                    break;
+                }
                 Pending p = queue.poll();
                 // grouped: a material with a regular sample competes only with the regular rows, which come first
                 List<RankedRow> competing = p.contender().regular() ? regularRows : rows;
@@ -120,10 +159,16 @@ final class BoundedJudgement {
                 }
                 if (p.refined() || competing.size() < limit) {
                     // rows not yet full take anything: a second bound could not keep the contender out
-                    batch.add(p.contender().material());
+                    batch.add(p.contender());
                 } else {
-                    queue.add(new Pending(refine.apply(p.contender()), true));
+                    toRefine.add(p.contender());
                 }
+            }
+            // second bounds on both cores too (refine must then be safe from several threads); each goes back
+            // in line by its own bound, so which are formed together changes only the work
+            if (!toRefine.isEmpty()) {
+                (toRefine.size() > 1 ? toRefine.parallelStream() : toRefine.stream()).map(refine).toList()
+                        .forEach(c -> queue.add(new Pending(c, true)));
             }
             if (batch.isEmpty()) {
                 continue;
@@ -142,7 +187,26 @@ final class BoundedJudgement {
     }
 
     /** A contender waiting in the judging order, and whether its bound is final (second stage formed or none). */
-    private record Pending(Contender contender, boolean refined) {
+    private record Pending(Contender contender, boolean refined) implements Comparable<Pending> {
+
+        @Override
+        public int compareTo(Pending other) {
+            return ORDER.compare(contender, other.contender);
+        }
+    }
+
+    /**
+     * Whether full rows ending in a met row keep out the first contender in the judging order and so every one
+     * after it: their bounds are no larger (a second bound only lowers one), and against a met last row a bound
+     * below its margin keeps any contender out whatever its flags ({@link #couldEnter}).
+     */
+    static boolean noneCanEnter(Contender first, List<RankedRow> rows, int limit) {
+        if (rows.size() < limit || limit == 0) {
+            return false;
+        }
+        RankedRow last = rows.get(rows.size() - 1);
+        double margin = last.evaluation().worstMarginDecades();
+        return last.evaluation().standing() == Standing.MEETS && !Double.isNaN(first.bound()) && first.bound() < margin;
     }
 
     /**

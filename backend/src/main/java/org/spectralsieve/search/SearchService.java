@@ -132,6 +132,13 @@ public class SearchService {
      * sample, only so a benchmark can time both ways side by side (the answers are the same).
      */
     private boolean boundSamples = !"false".equals(System.getProperty("sieve.search.sample-bound"));
+    /**
+     * Whether, where a material's row is the best of its samples' rows each formed alone (as measured and at one
+     * asked thickness), each sample is a contender of its own
+     * (docs/weighted-screening.md, "Samples as contenders"); off only so a benchmark and tests can compare both
+     * ways ({@link #withMaterialsWhole}).
+     */
+    private boolean samplesAsContenders = true;
     /** How requirements the store cannot rank are judged ({@link #searchExactly}); other ways for benchmarks and tests. */
     private Judging judging = Judging.BOUNDED_PARALLEL;
 
@@ -222,6 +229,16 @@ public class SearchService {
      */
     public SearchService withoutSecondStage() {
         this.secondStage = false;
+        return this;
+    }
+
+    /**
+     * The same service judging every material whole (the loop before samples became contenders of their own,
+     * docs/weighted-screening.md "Samples as contenders"): the same answers, more samples judged; for benchmarks
+     * and tests that compare both side by side.
+     */
+    public SearchService withMaterialsWhole() {
+        this.samplesAsContenders = false;
         return this;
     }
 
@@ -386,6 +403,24 @@ public class SearchService {
             return out;
         }
 
+        /**
+         * The row of one sample as {@link #judge} forms it, alone (never for a solved range): its failure row when
+         * it could not become a candidate; every row says why when the material's judgement fails, so this one does.
+         */
+        List<MaterialEvaluation> judgeOne(Requirement requirement, Optional<StackLayer> layer, long sampleId) {
+            for (MaterialEvaluation f : failed) {
+                if (f.evaluation().sampleId() == sampleId) {
+                    return List.of(f);
+                }
+            }
+            try {
+                return MaterialJudge.evaluateOne(candidates, requirement, layer, sampleId);
+            } catch (RuntimeException e) {
+                return candidates.stream().filter(c -> c.sampleId() == sampleId)
+                        .map(c -> notComputable(material, c.sampleId(), c.thicknessMm(), requirement, e)).toList();
+            }
+        }
+
         /** The samples {@link MaterialJudge} judges for the requirement's thickness (empty when that fails). */
         Set<Long> judgedSamples(ThicknessSpec spec) {
             Set<Long> out = new HashSet<>();
@@ -399,11 +434,19 @@ public class SearchService {
     }
 
     private Prepared prepare(Snapshot s, Material material, Requirement requirement, boolean diffuseLayer) {
+        return prepare(s, material, requirement, diffuseLayer, BoundedJudgement.WHOLE_MATERIAL);
+    }
+
+    /**
+     * @param only {@link BoundedJudgement#WHOLE_MATERIAL}, or the one sample to prepare (as measured a sample's row
+     *             needs no other sample's curve; the thicknesses the material is made in still come from all)
+     */
+    private Prepared prepare(Snapshot s, Material material, Requirement requirement, boolean diffuseLayer, long only) {
         MadeThicknesses made = made(material);
         List<Candidate> candidates = new ArrayList<>();
         List<MaterialEvaluation> failed = new ArrayList<>();
         for (SampleInfo sample : material.samples()) {
-            if (admits(requirement, material, sample)) {
+            if (admits(requirement, material, sample) && (only == BoundedJudgement.WHOLE_MATERIAL || sample.id() == only)) {
                 try {
                     Curve curve = curve(s, sample.id()).orElseThrow(
                             () -> new IllegalStateException("the sample has no readable curve"));
@@ -501,6 +544,9 @@ public class SearchService {
         // at an asked thickness a material's samples are judged only where each is the nearest measurement: its
         // bound is the largest over those alone, so the candidates are made first (and kept for the judgement)
         boolean onlyJudgedSamples = spec.kind() != ThicknessSpec.Kind.AS_MEASURED && !marginBound.isEmpty();
+        // a sample is a contender of its own where its row is formed alone and the material's row is the best of
+        // its samples' rows: ranking by material keeps that best, so a sample that cannot enter is never it
+        boolean bySample = samplesAsContenders && !marginBound.isEmpty() && spec.kind() != ThicknessSpec.Kind.RANGE;
         Map<Long, Prepared> prepared = new HashMap<>();
         Map<Long, Set<Long>> judgedOf = new HashMap<>();
         List<BoundedJudgement.Contender> contenders = new ArrayList<>();
@@ -534,22 +580,48 @@ public class SearchService {
                 }
             }
             admitted += count;
-            if (count > 0) {
+            // judged whole: a material whose choice of samples failed (none judged; every row then says why). With
+            // diffuse rows ranked apart, every sample of a material with a regular one competes with the regular rows
+            // (as the material did): it is left out only once they are full, and then no diffuse row is shown at all
+            if (count > 0 && bySample && (judgedSamples == null || !judgedSamples.isEmpty())) {
+                addSampleContenders(contenders, s, material, requirement, judgedSamples, prepared.get(material.id()),
+                        provenMiss, marginBound, regular);
+            } else if (count > 0) {
                 contenders.add(new BoundedJudgement.Contender(material, bound,
                         allMiss && madeFor(spec, material), regular));
             }
         }
         BoundedJudgement.Ranker ranker = new BoundedJudgement.Ranker(list -> rank(s, requirement, list, limit),
                 grouped ? list -> Ranking.rank(regularOnly(s, list), limit) : null);
-        // the screen's own queries, asked only from the loop's thread once the rows are full
-        WeightedMisses.SecondStage second = formedSecond;
-        java.util.function.UnaryOperator<BoundedJudgement.Contender> refine = secondStage && second != null && !rowOf.isEmpty()
-                ? c -> refined(s, c, requirement, provenMiss, marginBound, rowOf, judgedOf.get(c.material().id()), second)
+        // once the rows are full: the screen's own queries, and for a second bound formed at the same time on another
+        // thread a second stage of its own (a stage keeps the curve it reads), kept for the rest of this search only
+        WeightedMisses.SecondStage formed = formedSecond;
+        java.util.Queue<WeightedMisses.SecondStage> idle = new java.util.concurrent.ConcurrentLinkedQueue<>();
+        if (formed != null) {
+            idle.add(formed);
+        }
+        java.util.function.UnaryOperator<BoundedJudgement.Contender> refine = secondStage && formed != null && !rowOf.isEmpty()
+                ? c -> {
+                    WeightedMisses.SecondStage stage = idle.poll();
+                    stage = stage != null ? stage
+                            : WeightedMisses.secondStage(s.store(), requirement, layer, diffuseLayer, weightedLayerBlocks);
+                    try {
+                        return c.oneSample() ? refinedSample(s, c, requirement, provenMiss, marginBound, rowOf, stage)
+                                : refined(s, c, requirement, provenMiss, marginBound, rowOf, judgedOf.get(c.material().id()), stage);
+                    } finally {
+                        idle.add(stage);
+                    }
+                }
                 : null;
         // the prepared map is complete before any judging thread reads it, and never written after
-        List<MaterialEvaluation> exact = BoundedJudgement.judge(contenders, limit, ranker,
-                m -> {
+        List<MaterialEvaluation> exact = BoundedJudgement.judgeContenders(contenders, limit, ranker,
+                c -> {
+                    Material m = c.material();
                     Prepared ready = prepared.get(m.id());
+                    if (c.oneSample()) {
+                        Prepared p = ready != null ? ready : prepare(s, m, requirement, diffuseLayer, c.sampleId());
+                        return p.judgeOne(requirement, layer, c.sampleId());
+                    }
                     return ready != null ? ready.judge(requirement, layer) : judge(s, m, requirement, layer, diffuseLayer);
                 }, judging == Judging.BOUNDED_PARALLEL && contenders.size() >= parallelFrom, refine);
         List<RankedRow> rows = rank(s, requirement, exact, limit); // once, from every judgement: the answer's own rows
@@ -610,6 +682,66 @@ public class SearchService {
         boolean onTheCurve = requirement.thickness().kind() == ThicknessSpec.Kind.AS_MEASURED && requirement.layer().isEmpty();
         return new BoundedJudgement.Contender(material, bound, allMiss && madeFor(requirement.thickness(), material),
                 c.regular(), noneMeets, onTheCurve ? unverifiedBound : Double.POSITIVE_INFINITY);
+    }
+
+    /**
+     * One contender per sample of the material that gives a row (docs/weighted-screening.md, "Samples as
+     * contenders"): every admitted sample as measured; at an asked thickness those {@link MaterialJudge} judges and
+     * those that could not become a candidate (their rows say why). Each bound is the sample's own (the smaller of
+     * its sound bounds, {@code +∞} when none), proven to miss when it is negative and the material is made at the
+     * asked thickness.
+     */
+    private void addSampleContenders(List<BoundedJudgement.Contender> contenders, Snapshot s, Material material,
+                                     Requirement requirement, Set<Long> judgedSamples, Prepared prepared,
+                                     Map<Long, Double> provenMiss, Map<Long, Double> marginBound, boolean regular) {
+        Set<Long> failed = new HashSet<>();
+        if (prepared != null) {
+            prepared.failed().forEach(e -> failed.add(e.evaluation().sampleId()));
+        }
+        boolean made = madeFor(requirement.thickness(), material);
+        for (SampleInfo sample : material.samples()) {
+            if (!admits(requirement, material, sample)
+                    || judgedSamples != null && !judgedSamples.contains(sample.id()) && !failed.contains(sample.id())) {
+                continue;
+            }
+            double b = sampleBound(provenMiss, marginBound, sample.id());
+            contenders.add(new BoundedJudgement.Contender(material, b, b < 0 && made, regular, false,
+                    Double.POSITIVE_INFINITY, sample.id()));
+        }
+    }
+
+    /** The smaller of a sample's first bounds (proven miss, margin bound), {@code +∞} when it has none. */
+    private static double sampleBound(Map<Long, Double> provenMiss, Map<Long, Double> marginBound, long sampleId) {
+        Double miss = provenMiss.get(sampleId);
+        Double margin = marginBound.get(sampleId);
+        return Math.min(miss == null ? Double.POSITIVE_INFINITY : miss,
+                margin == null || Double.isNaN(margin) ? Double.POSITIVE_INFINITY : margin);
+    }
+
+    /**
+     * A sample's contender again with its bound lowered by the second stage on its decoded curve, as
+     * {@link #refined} does for each sample of a material: it cannot meet when a clause is unverified on the very
+     * curve it is judged on or its bound is negative; as measured without a layer, its bound for an unverified row.
+     */
+    private BoundedJudgement.Contender refinedSample(Snapshot s, BoundedJudgement.Contender c, Requirement requirement,
+                                                     Map<Long, Double> provenMiss, Map<Long, Double> marginBound,
+                                                     Map<Long, Integer> rowOf, WeightedMisses.SecondStage second) {
+        double b = sampleBound(provenMiss, marginBound, c.sampleId());
+        boolean cannotMeet = false;
+        double ifUnverified = Double.POSITIVE_INFINITY;
+        Integer row = rowOf.get(c.sampleId());
+        if (row != null) {
+            Optional<Curve> measured = curve(s, c.sampleId()); // the curve the judgement reads, cached for it
+            if (measured.isPresent()) {
+                double onCurve = second.bound(row, measured.get());
+                cannotMeet = second.cannotMeet();
+                ifUnverified = second.unverifiedBound();
+                b = Math.min(b, onCurve);
+            }
+        }
+        boolean onTheCurve = requirement.thickness().kind() == ThicknessSpec.Kind.AS_MEASURED && requirement.layer().isEmpty();
+        return new BoundedJudgement.Contender(c.material(), b, b < 0 && madeFor(requirement.thickness(), c.material()),
+                c.regular(), cannotMeet || b < 0, onTheCurve ? ifUnverified : Double.POSITIVE_INFINITY, c.sampleId());
     }
 
     /**

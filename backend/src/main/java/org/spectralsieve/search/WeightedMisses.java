@@ -131,8 +131,8 @@ final class WeightedMisses {
     /**
      * The second stage (docs/weighted-screening.md, "A second, exact-curve stage"): per sample, on its decoded
      * curve, a bound on its exact worst margin that no bin or code rounding loosens, for a contender about to be
-     * judged; null when the requirement has no weighted clause the screen bounds. Not thread-safe (one per search,
-     * asked from the judging loop's own thread).
+     * judged; null when the requirement has no weighted clause the screen bounds. Not thread-safe: one per thread
+     * at a time (a search forms one more for each second bound it forms at the same time as another).
      */
     static SecondStage secondStage(SpectralStore store, Requirement requirement, Optional<StackLayer> layer,
                                    boolean diffuseLayer, boolean layerBlocks) {

@@ -54,6 +54,8 @@ import org.springframework.core.io.DefaultResourceLoader;
  * ({@link SearchService#withEarlierLayerBounds}; {@code -Dbench.screenSkipNoLayerBlocks=true} leaves it out).
  * {@code on-no-second-stage} the bounded loop without its second, exact-curve stage
  * ({@link SearchService#withoutSecondStage}; {@code -Dbench.screenSkipNoSecondStage=true} leaves it out).
+ * {@code on-materials-whole} every material judged whole, no sample a contender of its own
+ * ({@link SearchService#withMaterialsWhole}; {@code -Dbench.screenSkipMaterialsWhole=true} leaves it out).
  * {@code -Dbench.screenModes=measured,solve,layer} picks the variants.
  */
 class WeightedScreenBenchmark {
@@ -95,6 +97,10 @@ class WeightedScreenBenchmark {
         if (!Boolean.getBoolean("bench.screenSkipNoSecondStage")) {
             // the judging loop without its second, exact-curve stage: the rule before it, side by side
             services.put("on-no-second-stage", new SearchService(library).withoutSecondStage());
+        }
+        if (!Boolean.getBoolean("bench.screenSkipMaterialsWhole")) {
+            // every material judged whole: the loop before samples were contenders of their own, side by side
+            services.put("on-materials-whole", new SearchService(library).withMaterialsWhole());
         }
         if (!Boolean.getBoolean("bench.screenSkipNoLayerBlocks")) {
             // weighted blocks behind a layer not bounded: the rule before them, side by side

@@ -48,11 +48,21 @@ import org.spectralsieve.store.SyntheticCurves;
  * could enter), {@code -Dbench.storeWeightedWholeRules=current} runs the whole search for those rules
  * only (the others time their screen alone; above the base size the warm-up screens only). The held materials are judged as the service does: the shortlist's top rows kept up
  * to date from themselves and each newly judged material, ranked once from every judgement at the end.
+ * The bounded loop forms the second, exact-curve stage as the service does ({@code -Dbench.storeWeightedSecondStage=false}
+ * leaves it out) and takes each material's bound over the samples {@link MaterialJudge} picks; rule {@code samples}
+ * is the current screen with each sample a contender of its own where the service makes it one (not in a solved
+ * range), beside {@code current} (materials whole) and {@code before} (materials whole, one second bound at a time:
+ * the loop before issue 14's sixth pass). {@code -Dbench.storeWeightedModes=measured,solve} chooses the
+ * requirements; {@code -Dbench.debug=true} prints, per whole search, the contenders, second bounds formed and the
+ * time in them and in the exact judgement, and the last row.
  */
 class StoreWeightedBenchmark {
 
     static final String WEIGHTED = "passes over 85% of led 365 and uv hazard under 0.1% and luminous over 70%";
     private static final int BATCH = 8192;
+    private static final java.util.concurrent.atomic.AtomicLong REFINE_NS = new java.util.concurrent.atomic.AtomicLong();
+    private static final java.util.concurrent.atomic.AtomicLong JUDGE_NS = new java.util.concurrent.atomic.AtomicLong();
+    private static final java.util.concurrent.atomic.AtomicLong REFINES = new java.util.concurrent.atomic.AtomicLong();
     /** Each synthetic curve's refractive index (the store keeps its own copy, not public): judged as stored. */
     private static final Map<SpectralStore, byte[]> INDEX_OF_CURVE = new java.util.IdentityHashMap<>();
 
@@ -68,6 +78,8 @@ class StoreWeightedBenchmark {
         Map<String, Requirement> modes = new java.util.LinkedHashMap<>();
         modes.put("measured", RequirementParser.parse(WEIGHTED));
         modes.put("solve", RequirementParser.parse(WEIGHTED + ", thickness 1 to 6 mm"));
+        List<String> chosenModes = Arrays.asList(System.getProperty("bench.storeWeightedModes", "measured,solve").split(","));
+        modes.keySet().retainAll(chosenModes);
         for (String size : System.getProperty("bench.storeWeightedSizes", "10000,1000000").split(",")) {
             if (size.isBlank()) {
                 continue;
@@ -111,7 +123,7 @@ class StoreWeightedBenchmark {
                         System.out.printf(Locale.ROOT, "BENCH store-weighted curves=%d mode=%s part=%s p50_ms=%.1f p95_ms=%.1f"
                                         + " proven=%d judged=%d runs=%d rule=%s judging=%s%n", n, mode.getKey(), part, ms[runs / 2],
                                 ms[Math.min(runs - 1, (int) Math.ceil(runs * 0.95) - 1)], last[v].proven, last[v].judged,
-                                runs, rules[v], judged && rules[v].equals("current")
+                                runs, rules[v], judged && List.of("current", "samples", "before").contains(rules[v])
                                         ? System.getProperty("bench.storeWeightedJudging", "bounded") : "earlier");
                     }
                 }
@@ -126,14 +138,24 @@ class StoreWeightedBenchmark {
     private static Outcome search(SpectralStore store, Requirement requirement, int limit, boolean judge,
                                   String rule) {
         long t0 = System.nanoTime();
-        if (judge && rule.equals("current") && !"earlier".equals(System.getProperty("bench.storeWeightedJudging", "bounded"))) {
-            return searchBounded(store, requirement, limit, t0);
+        if (judge && rule.equals("before") && !"earlier".equals(System.getProperty("bench.storeWeightedJudging", "bounded"))) {
+            // the loop before this pass: materials whole, one second bound at a time
+            System.setProperty("sieve.search.second-bounds-in-parallel", "false");
+            try {
+                return searchBounded(store, requirement, limit, t0, false);
+            } finally {
+                System.clearProperty("sieve.search.second-bounds-in-parallel");
+            }
+        }
+        if (judge && (rule.equals("current") || rule.equals("samples"))
+                && !"earlier".equals(System.getProperty("bench.storeWeightedJudging", "bounded"))) {
+            return searchBounded(store, requirement, limit, t0, rule.equals("samples"));
         }
         Map<Long, Double> proven = new HashMap<>();
         switch (rule) {
             case "earlier" -> WeightedMisses.addEarlier(proven, store, requirement, Optional.empty());
             case "reference" -> WeightedMisses.add(proven, store, requirement, Optional.empty(), false, true);
-            case "current" -> WeightedMisses.add(proven, store, requirement, Optional.empty());
+            case "current", "samples", "before" -> WeightedMisses.add(proven, store, requirement, Optional.empty());
             default -> throw new IllegalArgumentException("rule " + rule);
         }
         long t1 = System.nanoTime();
@@ -199,45 +221,172 @@ class StoreWeightedBenchmark {
      * materials, left out once the rows are full of rows it cannot beat. The current rule's screen only
      * ({@code -Dbench.storeWeightedJudging=earlier}: the loop before, held proven misses judged while they could enter).
      */
-    private static Outcome searchBounded(SpectralStore store, Requirement requirement, int limit, long t0) {
-        // the screen: each curve's bound of either sign; a negative one is a proven miss (WeightedMisses.add)
-        double[] bounds = WeightedMisses.marginBounds(store, requirement, Optional.empty(), false);
+    private static Outcome searchBounded(SpectralStore store, Requirement requirement, int limit, long t0,
+                                         boolean samplesAsContenders) {
+        // the screen: each curve's bound of either sign; a negative one is a proven miss (WeightedMisses.add),
+        // and the second stage of the same search (its queries), as SearchService.searchExactly forms them
+        WeightedMisses.Screen screen = WeightedMisses.screen(store, requirement, Optional.empty(), false, true);
+        double[] bounds = screen.bounds();
+        WeightedMisses.SecondStage second = Boolean.parseBoolean(System.getProperty("bench.storeWeightedSecondStage", "true"))
+                ? screen.secondStage() : null;
         long t1b = System.nanoTime();
         int provenCount = 0;
         ThicknessSpec spec = requirement.thickness();
+        // a solved range judges a material's samples together (their rows share its feasible interval and advice)
+        boolean bySample = samplesAsContenders && spec.kind() != ThicknessSpec.Kind.RANGE;
         List<BoundedJudgement.Contender> contenders = new ArrayList<>();
         for (int first = 0; first < store.size(); first += 3) {
             int end = Math.min(store.size(), first + 3);
             double bound = Double.NEGATIVE_INFINITY;
             boolean allMiss = true;
+            boolean[] judgedHere = judgedSamples(store, first, end, spec);
             for (int c = first; c < end; c++) {
                 double margin = c < bounds.length && !Double.isNaN(bounds[c]) ? bounds[c] : Double.POSITIVE_INFINITY;
                 allMiss &= margin < 0;
                 provenCount += margin < 0 ? 1 : 0;
-                bound = Math.max(bound, margin);
+                // as the service: the largest bound over the samples MaterialJudge judges (a sample not judged
+                // gives no row)
+                bound = judgedHere[c - first] ? Math.max(bound, margin) : bound;
             }
             StoredMaterial m = store.material(first);
             // the synthetic materials state no made thicknesses (MadeThicknesses.of(List.of(), …) in judge), so a
             // bulk one is made at an asked thickness only as measured: as the service's madeFor, a proven miss
             // of a bulk material at a thickness is not "at best a valued miss"
             boolean made = spec.kind() == ThicknessSpec.Kind.AS_MEASURED || !store.isBulk(first);
-            contenders.add(new BoundedJudgement.Contender(material(m, first), bound, allMiss && made, false));
+            if (bySample) {
+                // as SearchService: each sample the judgement picks a contender of its own, with its own bound
+                for (int c = first; c < end; c++) {
+                    double margin = c < bounds.length && !Double.isNaN(bounds[c]) ? bounds[c] : Double.POSITIVE_INFINITY;
+                    if (judgedHere[c - first]) {
+                        contenders.add(new BoundedJudgement.Contender(material(m, first), margin, margin < 0 && made,
+                                false, false, Double.POSITIVE_INFINITY, store.sampleId(c)));
+                    }
+                }
+            } else {
+                contenders.add(new BoundedJudgement.Contender(material(m, first), bound, allMiss && made, false));
+            }
         }
+        java.util.Queue<WeightedMisses.SecondStage> idle = new java.util.concurrent.ConcurrentLinkedQueue<>();
+        if (second != null) {
+            idle.add(second);
+        }
+        long tc = System.nanoTime();
         java.util.concurrent.atomic.AtomicInteger judged = new java.util.concurrent.atomic.AtomicInteger();
-        List<MaterialEvaluation> exact = BoundedJudgement.judge(contenders, limit,
+        List<MaterialEvaluation> exact = BoundedJudgement.judgeContenders(contenders, limit,
                 new BoundedJudgement.Ranker(list -> Ranking.rank(list, limit), null),
-                material -> {
-                    int first = (int) ((material.id() - 1) * 3);
-                    List<MaterialEvaluation> rows = judge(store, first, Math.min(store.size(), first + 3), requirement);
+                contender -> {
+                    int first = (int) ((contender.material().id() - 1) * 3);
+                    long j0 = System.nanoTime();
+                    List<MaterialEvaluation> rows = contender.oneSample()
+                            ? judgeOne(store, first, Math.min(store.size(), first + 3), requirement, contender.sampleId())
+                            : judge(store, first, Math.min(store.size(), first + 3), requirement);
+                    JUDGE_NS.addAndGet(System.nanoTime() - j0);
                     judged.addAndGet(rows.size());
                     return rows;
-                }, contenders.size() >= BoundedJudgement.PARALLEL_FROM);
+                }, contenders.size() >= BoundedJudgement.PARALLEL_FROM,
+                second == null ? null : c -> {
+                    long r0 = System.nanoTime();
+                    // as the service: a second stage of its own for each second bound formed at the same time
+                    WeightedMisses.SecondStage stage = idle.poll();
+                    stage = stage != null ? stage
+                            : WeightedMisses.secondStage(store, requirement, Optional.empty(), false, true);
+                    BoundedJudgement.Contender out = c.oneSample() ? refinedSample(store, c, bounds, stage, spec)
+                            : refined(store, c, bounds, stage, spec);
+                    idle.add(stage);
+                    REFINE_NS.addAndGet(System.nanoTime() - r0);
+                    REFINES.incrementAndGet();
+                    return out;
+                });
         List<RankedRow> rows = Ranking.rank(exact, limit);
         long t2 = System.nanoTime();
         if (rows.isEmpty()) {
             throw new IllegalStateException("no rows");
         }
+        if (Boolean.getBoolean("bench.debug")) {
+            RankedRow lastRow = rows.get(rows.size() - 1);
+            java.util.Map<String, Integer> kinds = new java.util.TreeMap<>();
+            for (MaterialEvaluation e : exact) {
+                int c = (int) (e.evaluation().sampleId() - 1);
+                kinds.merge((store.isBulk(c) ? "bulk " : "fixed ") + e.evaluation().standing()
+                        + (bounds[c] < 0 ? " proven" : ""), 1, Integer::sum);
+            }
+            System.out.printf("DEBUG contenders=%d refines=%d refine_ms=%.1f judge_ms=%.1f t_contenders_ms=%.1f%n", contenders.size(),
+                    REFINES.getAndSet(0), REFINE_NS.getAndSet(0) / 1e6, JUDGE_NS.getAndSet(0) / 1e6, (tc - t1b) / 1e6);
+            System.out.println("DEBUG last=" + lastRow.evaluation().standing() + " " + lastRow.evaluation().worstMarginDecades()
+                    + " first=" + rows.get(0).evaluation().worstMarginDecades() + " kinds=" + kinds);
+        }
         return new Outcome((t1b - t0) / 1e6, (t2 - t0) / 1e6, provenCount, judged.get());
+    }
+
+    /**
+     * As {@code SearchService.refined}: each curve's bound lowered by the second stage on its decoded curve, the
+     * material's the largest over its three curves (every curve is judged as measured; in a solve the largest over
+     * all three holds the service's largest over the curves judged), proven to miss when every bound is negative and
+     * it is made at the asked thickness, unable to meet when each curve has a clause unverified on it or a negative
+     * bound.
+     */
+    private static BoundedJudgement.Contender refined(SpectralStore store, BoundedJudgement.Contender c, double[] bounds,
+                                                      WeightedMisses.SecondStage second, ThicknessSpec spec) {
+        int first = (int) ((c.material().id() - 1) * 3);
+        double bound = Double.NEGATIVE_INFINITY;
+        double unverifiedBound = Double.NEGATIVE_INFINITY;
+        boolean allMiss = true;
+        boolean noneMeets = true;
+        int end = Math.min(store.size(), first + 3);
+        boolean[] judgedHere = judgedSamples(store, first, end, spec);
+        for (int k = first; k < end; k++) {
+            double b = k < bounds.length && !Double.isNaN(bounds[k]) ? bounds[k] : Double.POSITIVE_INFINITY;
+            // as the service: the second stage only for a curve with a first bound (it only tightens one)
+            boolean formed = b < Double.POSITIVE_INFINITY;
+            b = formed ? Math.min(b, second.bound(k, store.curve(k))) : b;
+            allMiss &= b < 0;
+            if (judgedHere[k - first]) {
+                bound = Math.max(bound, b);
+                noneMeets &= formed && second.cannotMeet() || b < 0;
+                unverifiedBound = Math.max(unverifiedBound, formed ? second.unverifiedBound() : Double.POSITIVE_INFINITY);
+            }
+        }
+        boolean made = spec.kind() == ThicknessSpec.Kind.AS_MEASURED || !store.isBulk(first);
+        return new BoundedJudgement.Contender(c.material(), bound, allMiss && made, false, noneMeets,
+                spec.kind() == ThicknessSpec.Kind.AS_MEASURED ? unverifiedBound : Double.POSITIVE_INFINITY);
+    }
+
+    /** As {@code SearchService.refinedSample}: one curve's bound lowered by the second stage on its decoded curve. */
+    private static BoundedJudgement.Contender refinedSample(SpectralStore store, BoundedJudgement.Contender c,
+                                                            double[] bounds, WeightedMisses.SecondStage second,
+                                                            ThicknessSpec spec) {
+        int k = (int) (c.sampleId() - 1);
+        double b = k < bounds.length && !Double.isNaN(bounds[k]) ? bounds[k] : Double.POSITIVE_INFINITY;
+        if (!(b < Double.POSITIVE_INFINITY)) {
+            return c; // as the service: nothing to tighten
+        }
+        b = Math.min(b, second.bound(k, store.curve(k)));
+        boolean made = spec.kind() == ThicknessSpec.Kind.AS_MEASURED || !store.isBulk(k);
+        return new BoundedJudgement.Contender(c.material(), b, b < 0 && made, false, second.cannotMeet() || b < 0,
+                spec.kind() == ThicknessSpec.Kind.AS_MEASURED ? second.unverifiedBound() : Double.POSITIVE_INFINITY,
+                c.sampleId());
+    }
+
+    /** One curve of a material judged alone ({@link MaterialJudge#evaluateOne}), the others there for the choice. */
+    private static List<MaterialEvaluation> judgeOne(SpectralStore store, int from, int to, Requirement requirement,
+                                                     long sampleId) {
+        return MaterialJudge.evaluateOne(candidates(store, from, to), requirement, Optional.empty(), sampleId);
+    }
+
+    /** Which of the material's curves [from, to) {@link MaterialJudge#choose} judges, from their thicknesses alone. */
+    private static boolean[] judgedSamples(SpectralStore store, int from, int to, ThicknessSpec spec) {
+        double[] measured = new double[to - from];
+        for (int c = from; c < to; c++) {
+            measured[c - from] = store.thicknessMm(c);
+        }
+        MadeThicknesses made = MadeThicknesses.of(List.of(), Double.NaN, Double.NaN,
+                Arrays.stream(measured).boxed().toList());
+        var spans = MaterialJudge.spans(measured, store.isBulk(from), made, spec);
+        boolean[] out = new boolean[spans.length];
+        for (int i = 0; i < spans.length; i++) {
+            out[i] = spans[i] != null;
+        }
+        return out;
     }
 
     /** A material record for a synthetic material (its curves are read from the store by id, not from here). */
@@ -265,6 +414,10 @@ class StoreWeightedBenchmark {
     }
 
     private static List<MaterialEvaluation> judge(SpectralStore store, int from, int to, Requirement requirement) {
+        return MaterialJudge.evaluate(candidates(store, from, to), requirement, Optional.empty());
+    }
+
+    private static List<Candidate> candidates(SpectralStore store, int from, int to) {
         byte[] index = INDEX_OF_CURVE.get(store);
         List<Candidate> candidates = new ArrayList<>();
         List<Double> measured = new ArrayList<>();
@@ -277,7 +430,7 @@ class StoreWeightedBenchmark {
             candidates.add(new Candidate(store.sampleId(c), m.id(), m.name(), store.curve(c), store.thicknessMm(c),
                     store.isBulk(c), SyntheticCurves.INDICES[index[c]], made));
         }
-        return MaterialJudge.evaluate(candidates, requirement, Optional.empty());
+        return candidates;
     }
 
     /**
