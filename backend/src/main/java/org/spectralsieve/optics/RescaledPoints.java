@@ -1,6 +1,7 @@
 package org.spectralsieve.optics;
 
 import org.spectralsieve.spectrum.Curve;
+import org.spectralsieve.spectrum.PerPointArithmetic;
 import org.spectralsieve.spectrum.PointReadings;
 
 /**
@@ -15,6 +16,7 @@ import org.spectralsieve.spectrum.PointReadings;
 final class RescaledPoints implements PointReadings {
 
     private static final double BELOW_ONE = Math.nextDown(1.0);
+    private static final long ONE_BITS = Double.doubleToRawLongBits(1.0);
 
     private final ThicknessRescaler.Prepared prepared;
     private final Curve measured;
@@ -26,6 +28,12 @@ final class RescaledPoints implements PointReadings {
     private final boolean[] done;
     private final boolean[] limitDone;
     private final boolean limitsWhenRead;
+    /** The lean arithmetic ({@link PerPointArithmetic}): K of a clear reading taken once, the slab formula reused. */
+    private final boolean lean = !PerPointArithmetic.earlier();
+    /** toMm / fromMm, the exponent {@link BeerLambert#scaleInternal} applies to every point's K0. */
+    private final double ratio;
+    /** K0^ratio for K0 = 1 (a clear reading), taken once for all such points; NaN until then. */
+    private double clearInternal = Double.NaN;
 
     RescaledPoints(ThicknessRescaler.Prepared prepared, double fromMm, double toMm) {
         this(prepared, fromMm, toMm, false);
@@ -49,6 +57,7 @@ final class RescaledPoints implements PointReadings {
         this.done = new boolean[n];
         this.limitDone = new boolean[n];
         this.limitsWhenRead = limitsWhenRead;
+        this.ratio = toMm / fromMm;
     }
 
     @Override
@@ -81,7 +90,8 @@ final class RescaledPoints implements PointReadings {
     public double detectionLimit(int i) {
         compute(i);
         if (!limitDone[i]) {
-            double limit = prepared.limit(i).transmittance(fromMm, toMm);
+            double limit = lean ? prepared.limitTransmittanceAt(i, internalAt(prepared.limit(i).internal()))
+                    : prepared.limit(i).transmittance(fromMm, toMm);
             if (prepared.value(i).boundAt(fromMm, toMm)) {
                 limit = Math.max(limit, Math.min(t[i], BELOW_ONE));
             }
@@ -121,13 +131,29 @@ final class RescaledPoints implements PointReadings {
         return sigma;
     }
 
+    /**
+     * {@link BeerLambert#scaleInternal}{@code (k0, fromMm, toMm)}: the same power of the same two numbers, its
+     * checks already passed (a reading's K0 is a fraction, the thicknesses were checked here), taken once for
+     * every clear reading (K0 = 1, bit for bit).
+     */
+    private double internalAt(double k0) {
+        if (Double.doubleToRawLongBits(k0) != ONE_BITS) {
+            return Math.pow(k0, ratio);
+        }
+        if (Double.isNaN(clearInternal)) {
+            clearInternal = Math.pow(1.0, ratio);
+        }
+        return clearInternal;
+    }
+
     /** Point i as {@link ThicknessRescaler.Prepared#at} computes it. */
     private void compute(int i) {
         if (done[i]) {
             return;
         }
         SlabReading value = prepared.value(i);
-        double ti = value.transmittance(fromMm, toMm);
+        double ti = lean ? prepared.valueTransmittanceAt(i, internalAt(value.internal()))
+                : value.transmittance(fromMm, toMm);
         // the point's limit is formed when read (detectionLimit): the same rule, applied later
         boolean b = measured.belowDetection(i) || value.boundAt(fromMm, toMm);
         if (!(Double.isFinite(ti) && ti >= 0 && ti <= Curve.MAX_TRANSMITTANCE)) {
