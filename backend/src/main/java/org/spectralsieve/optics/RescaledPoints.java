@@ -78,6 +78,11 @@ final class RescaledPoints implements PointReadings {
 
     @Override
     public boolean belowDetection(int i) {
+        if (lean && !done[i]) {
+            // the flag alone, by the rule compute applies: a figure's lower end reads a point below detection as
+            // 0 and never needs its T (SortedReading)
+            return measured.belowDetection(i) || prepared.value(i).boundAt(fromMm, toMm);
+        }
         compute(i);
         return below[i];
     }
@@ -90,8 +95,15 @@ final class RescaledPoints implements PointReadings {
     public double detectionLimit(int i) {
         compute(i);
         if (!limitDone[i]) {
-            double limit = lean ? prepared.limitTransmittanceAt(i, internalAt(prepared.limit(i).internal()))
-                    : prepared.limit(i).transmittance(fromMm, toMm);
+            double limit;
+            if (!lean) {
+                limit = prepared.limit(i).transmittance(fromMm, toMm);
+            } else if (prepared.limitIsValue(i)) {
+                // the limit stored as the point's T (a reading at the floor): the same reading, the same number
+                limit = t[i];
+            } else {
+                limit = prepared.limitTransmittanceAt(i, internalAt(prepared.limit(i).internal()));
+            }
             if (prepared.value(i).boundAt(fromMm, toMm)) {
                 limit = Math.max(limit, Math.min(t[i], BELOW_ONE));
             }

@@ -120,6 +120,16 @@ public final class ThicknessRescaler {
             return valueMemo.transmittance(i, internal, value(i).reflectance());
         }
 
+        /**
+         * Whether point i's detection limit is stored as the very number of its T (a point below detection kept
+         * at the floor): then its {@link #limit} reading is {@code SlabReading.of} of the same two numbers as its
+         * {@link #value}, and every thickness gives the limit the T's number.
+         */
+        boolean limitIsValue(int i) {
+            return Double.doubleToRawLongBits(measured.detectionLimit(i))
+                    == Double.doubleToRawLongBits(measured.transmittance(i));
+        }
+
         /** The same for point i's detection limit ({@code limit(i).transmittance(fromMm, toMm)}). */
         double limitTransmittanceAt(int i, double internal) {
             if (limitMemo == null) {
@@ -165,15 +175,14 @@ public final class ThicknessRescaler {
         SlabMemo(int n) {
             internalBits = new long[n];
             transmittance = new double[n];
-            // a NaN's bits: no K read from a valid reading has them
-            java.util.Arrays.fill(internalBits, 0x7ff8_0000_0000_0001L);
         }
 
         double transmittance(int i, double internal, double reflectance) {
-            long bits = Double.doubleToRawLongBits(internal);
-            if (internalBits[i] != bits) {
+            // K's bits plus one, so the array's initial 0 matches no K (the one K whose key is 0 is never kept)
+            long key = Double.doubleToRawLongBits(internal) + 1;
+            if (key == 0 || internalBits[i] != key) {
                 transmittance[i] = Slab.transmittance(internal, reflectance);
-                internalBits[i] = bits;
+                internalBits[i] = key;
             }
             return transmittance[i];
         }

@@ -28,6 +28,7 @@ import org.spectralsieve.requirement.RequirementParser;
 import org.spectralsieve.search.SearchService;
 import org.spectralsieve.search.Shortlist;
 import org.spectralsieve.seed.DemoLibraryLoader;
+import org.spectralsieve.spectrum.PerPointArithmetic;
 import org.spectralsieve.store.SpectralStore;
 import org.spectralsieve.store.SyntheticCurves;
 import org.springframework.core.io.DefaultResourceLoader;
@@ -54,9 +55,14 @@ import org.springframework.core.io.DefaultResourceLoader;
  * ({@link SearchService#withEarlierLayerBounds}; {@code -Dbench.screenSkipNoLayerBlocks=true} leaves it out).
  * {@code on-no-second-stage} the bounded loop without its second, exact-curve stage
  * ({@link SearchService#withoutSecondStage}; {@code -Dbench.screenSkipNoSecondStage=true} leaves it out).
+ * {@code on-earlier-arithmetic} the same service judging with the per-point arithmetic before the sixth pass
+ * ({@link PerPointArithmetic}; {@code -Dbench.screenArithmetic=earlier} adds it).
  * {@code -Dbench.screenModes=measured,solve,layer} picks the variants.
  */
 class WeightedScreenBenchmark {
+
+    /** The service judged with the per-point arithmetic before the sixth pass ({@code -Dbench.screenArithmetic=earlier}). */
+    private static final String EARLIER_ARITHMETIC = "on-earlier-arithmetic";
 
     static final String WEIGHTED = "passes over 85% of led 365 and uv hazard under 0.1% and luminous over 70%";
 
@@ -92,6 +98,10 @@ class WeightedScreenBenchmark {
             };
             services.put("on-judging-" + way, new SearchService(library).judging(judging));
         }
+        if (BenchStats.stringList("bench.screenArithmetic", "").contains("earlier")) {
+            // the per-point arithmetic before the sixth pass (PerPointArithmetic), the same service otherwise
+            services.put(EARLIER_ARITHMETIC, new SearchService(library));
+        }
         if (!Boolean.getBoolean("bench.screenSkipNoSecondStage")) {
             // the judging loop without its second, exact-curve stage: the rule before it, side by side
             services.put("on-no-second-stage", new SearchService(library).withoutSecondStage());
@@ -110,6 +120,11 @@ class WeightedScreenBenchmark {
             for (SearchService service : services.values()) {
                 variants.values().forEach(r -> service.search(r, limit)); // JIT, each service's store
             }
+            PerPointArithmetic.useEarlier(true);
+            if (services.containsKey(EARLIER_ARITHMETIC)) {
+                variants.values().forEach(r -> services.get(EARLIER_ARITHMETIC).search(r, limit));
+            }
+            PerPointArithmetic.useEarlier(false);
         }
         Map<String, double[]> took = new LinkedHashMap<>();
         Map<String, Shortlist> last = new LinkedHashMap<>();
@@ -117,7 +132,13 @@ class WeightedScreenBenchmark {
             for (Map.Entry<String, Requirement> variant : variants.entrySet()) {
                 for (Map.Entry<String, SearchService> service : services.entrySet()) {
                     String key = variant.getKey() + " " + service.getKey();
-                    Shortlist answer = service.getValue().search(variant.getValue(), limit);
+                    PerPointArithmetic.useEarlier(service.getKey().equals(EARLIER_ARITHMETIC));
+                    Shortlist answer;
+                    try {
+                        answer = service.getValue().search(variant.getValue(), limit);
+                    } finally {
+                        PerPointArithmetic.useEarlier(false);
+                    }
                     took.computeIfAbsent(key, k -> new double[runs])[i] = answer.tookMs();
                     last.put(key, answer);
                 }
