@@ -69,32 +69,74 @@ final class StackArithmetic {
         double[] limits = new double[nm.length];
         for (int i = 0; i < nm.length; i++) {
             for (int j = 0; j < parts; j++) {
-                if (known[j] != null) {
-                    take(known[j][0][i], valueT, valueRf, valueRb, j);
-                    take(known[j][1][i], limitT, limitRf, limitRb, j);
-                } else if (!formed(onGrid[j].transmittance(i), reflectances[j][i], valueT, valueRf, valueRb, j, 2 * j)
-                        || !formed(onGrid[j].detectionLimit(i), reflectances[j][i], limitT, limitRf, limitRb, j, 2 * j + 1)) {
+                if (!formPart(j, i, onGrid[j], reflectances[j], known[j])) {
                     return null;
                 }
                 below[i] |= onGrid[j].belowDetection(i);
             }
-            double pathT = chain(-1);
-            if (Double.isNaN(pathT)) {
+            if (!chainPoint()) {
                 return null;
             }
-            double limit = 0;
-            for (int j = 0; j < parts; j++) {
-                double swapped = chain(j);
-                if (Double.isNaN(swapped)) {
-                    return null;
-                }
-                limit = Math.max(limit, swapped);
-            }
-            t[i] = pathT;
-            limits[i] = Math.min(limit, BELOW_ONE);
+            t[i] = pointT;
+            limits[i] = pointLimit;
         }
         Curve path = Curve.of(nm, t, below, limits);
         return LightPath.withStackUncertainty(path, onGrid);
+    }
+
+    /** The stack's T at the point last formed ({@link #chainPoint}). */
+    private double pointT;
+    /** The stack's detection limit at the point last formed. */
+    private double pointLimit;
+
+    /** A stack of {@code parts} parts, to form point by point ({@link StackedPoints}). */
+    static StackArithmetic forParts(int parts) {
+        return new StackArithmetic(parts);
+    }
+
+    /** Part j's elements at point i: known ones taken, others formed from its curve there; false as {@link #formed}. */
+    boolean formPart(int j, int i, Curve onGrid, double[] reflectances, OpticalElement[][] known) {
+        if (known != null) {
+            take(known[0][i], valueT, valueRf, valueRb, j);
+            take(known[1][i], limitT, limitRf, limitRb, j);
+            return true;
+        }
+        return formPart(j, onGrid.transmittance(i), onGrid.detectionLimit(i), reflectances[i]);
+    }
+
+    /** Part j's elements of a reading, its detection limit and its surfaces' reflectance; false as {@link #formed}. */
+    boolean formPart(int j, double reading, double limit, double r) {
+        return formed(reading, r, valueT, valueRf, valueRb, j, 2 * j) && formed(limit, r, limitT, limitRf, limitRb, j, 2 * j + 1);
+    }
+
+    /**
+     * The chains of the parts formed: the stack's T ({@link #pointT}) and its detection limit ({@link #pointLimit}:
+     * the largest T with one part at a time at its limit, kept below 1); false where a record would refuse a T.
+     */
+    boolean chainPoint() {
+        double pathT = chain(-1);
+        if (Double.isNaN(pathT)) {
+            return false;
+        }
+        double limit = 0;
+        for (int j = 0; j < parts; j++) {
+            double swapped = chain(j);
+            if (Double.isNaN(swapped)) {
+                return false;
+            }
+            limit = Math.max(limit, swapped);
+        }
+        pointT = pathT;
+        pointLimit = Math.min(limit, BELOW_ONE);
+        return true;
+    }
+
+    double pointT() {
+        return pointT;
+    }
+
+    double pointLimit() {
+        return pointLimit;
     }
 
     private static void take(OpticalElement e, double[] t, double[] rf, double[] rb, int j) {

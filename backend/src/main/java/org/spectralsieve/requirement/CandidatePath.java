@@ -42,6 +42,8 @@ final class CandidatePath {
     /** The last thicknesses' points, the lean way ({@link PerPointArithmetic}). */
     private final RecentThicknesses<PointReadings> recentPoints = new RecentThicknesses<>(RECENT_POINTS);
     private final boolean earlierArithmetic = PerPointArithmetic.earlier();
+    /** The stack as measured, its points formed when read ({@link #asMeasuredPoints}); null until asked. */
+    private PointReadings stackedAsMeasured;
     private ThicknessSweep sweep;
     private RescaledModel readings;
     /** The way this candidate is judged, read once so a benchmark switching it never mixes the two in one judgement. */
@@ -63,6 +65,32 @@ final class CandidatePath {
     /** The path as measured: the measured curve, stacked when there is a layer. */
     Curve asMeasured() {
         return stacked() ? cached(Double.NaN, () -> stack(candidate.measured())) : candidate.measured();
+    }
+
+    /**
+     * The points of {@link #asMeasured} for clauses that read some of them (weighted figures, bands): behind a
+     * layer, each stacked point formed when read ({@link FixedParts#pointsBehind}; the same numbers), unless the
+     * curve is built already or only the built curve will do; otherwise the curve itself.
+     */
+    PointReadings asMeasuredPoints() {
+        if (!stacked() || earlier || earlierArithmetic || FigurePath.byLookup()) {
+            return asMeasured();
+        }
+        if (!byThickness.isEmpty()) {
+            Curve built = byThickness.get(Double.NaN);
+            if (built != null) {
+                return built;
+            }
+        }
+        if (stackedAsMeasured == null) {
+            StackLayer fixed = layer.orElseThrow();
+            stackedAsMeasured = FixedParts.of(fixed.curve(), fixed.index()).pointsBehind(Layer.fixed(candidate.measured(),
+                    candidate.index() != null ? candidate.index() : DEFAULT_INDEX));
+            if (stackedAsMeasured == null) {
+                return asMeasured();
+            }
+        }
+        return stackedAsMeasured;
     }
 
     /**

@@ -128,17 +128,22 @@ class WeightedScreenBenchmark {
         }
         Map<String, double[]> took = new LinkedHashMap<>();
         Map<String, Shortlist> last = new LinkedHashMap<>();
+        // the CPU the whole JVM spent per search (every thread, collector and compiler included): on a shared,
+        // loaded machine it moves less than the wall time, since waiting for a core is not counted
+        Map<String, double[]> cpu = new LinkedHashMap<>();
         for (int i = 0; i < runs; i++) {
             for (Map.Entry<String, Requirement> variant : variants.entrySet()) {
                 for (Map.Entry<String, SearchService> service : services.entrySet()) {
                     String key = variant.getKey() + " " + service.getKey();
                     PerPointArithmetic.useEarlier(service.getKey().equals(EARLIER_ARITHMETIC));
                     Shortlist answer;
+                    long cpuBefore = processCpuNanos();
                     try {
                         answer = service.getValue().search(variant.getValue(), limit);
                     } finally {
                         PerPointArithmetic.useEarlier(false);
                     }
+                    cpu.computeIfAbsent(key, k -> new double[runs])[i] = (processCpuNanos() - cpuBefore) / 1e6;
                     took.computeIfAbsent(key, k -> new double[runs])[i] = answer.tookMs();
                     last.put(key, answer);
                 }
@@ -152,11 +157,17 @@ class WeightedScreenBenchmark {
                 Shortlist answer = last.get(key);
                 boolean same = answer.rows().equals(last.get(variant + " on").rows());
                 System.out.printf("BENCH search-weighted library=%s curves=%d mode=%s screen=%s p50_ms=%s p95_ms=%s"
-                                + " judged=%d of=%d same_rows=%s bytes_per_curve=%.0f runs=%d%n",
+                                + " judged=%d of=%d same_rows=%s bytes_per_curve=%.0f runs=%d cpu_p50_ms=%s cpu_p95_ms=%s%n",
                         name, store.size(), variant, screen, ms(percentile(m, 50)), ms(percentile(m, 95)),
-                        answer.judgedExactly(), answer.evaluatedSamples(), same, store.bytesPerCurve(), runs);
+                        answer.judgedExactly(), answer.evaluatedSamples(), same, store.bytesPerCurve(), runs,
+                        ms(percentile(cpu.get(key), 50)), ms(percentile(cpu.get(key), 95)));
             }
         }
+    }
+
+    private static long processCpuNanos() {
+        return ((com.sun.management.OperatingSystemMXBean) java.lang.management.ManagementFactory
+                .getOperatingSystemMXBean()).getProcessCpuTime();
     }
 
     /** The demo library in a freshly migrated in-memory H2, loaded by the application's loader. */

@@ -94,6 +94,60 @@ class PerPointArithmeticEquivalenceTest {
     }
 
     @Test
+    void stackedPointsFormedWhenReadAreThePointsOfTheBuiltStack() {
+        Random random = new Random(20261209L);
+        int formed = 0;
+        for (int trial = 0; trial < 200; trial++) {
+            Curve layer = ThicknessSweepTest.randomCurve(random, 280 + 40 * random.nextDouble());
+            RefractiveIndex layerIndex = ThicknessSweepTest.randomIndex(random);
+            FixedParts parts = FixedParts.of(layer, layerIndex);
+            Curve first = ThicknessSweepTest.randomCurve(random, 300 + 20 * random.nextDouble());
+            for (int front = 0; front < 3; front++) {
+                // the same grid with other readings: the first is built (and its grid remembered), the others formed
+                Curve curve = front == 0 ? first : sameGrid(random, first);
+                Layer part = Layer.fixed(curve, ThicknessSweepTest.randomIndex(random));
+                Curve expected;
+                try {
+                    expected = LightPath.of(part, Layer.fixed(layer, layerIndex)).transmittance();
+                    parts.behind(part);
+                } catch (org.spectralsieve.spectrum.CurveException e) {
+                    break; // ranges that do not overlap: nothing to form
+                }
+                PointReadings points = parts.pointsBehind(part);
+                if (front == 0 && points == null) {
+                    continue;
+                }
+                assertThat(points).as("trial %d, front %d", trial, front).isNotNull();
+                assertThat(points.size()).isEqualTo(expected.size());
+                for (int read = 0; read < 2 * expected.size(); read++) {
+                    int i = random.nextInt(expected.size());
+                    assertThat(points.wavelengthNm(i)).isEqualTo(expected.wavelengthNm(i));
+                    assertSame(points.transmittance(i), expected.transmittance(i), trial, front, i);
+                    assertThat(points.belowDetection(i)).isEqualTo(expected.belowDetection(i));
+                    assertSame(points.detectionLimit(i), expected.detectionLimit(i), trial, front, i);
+                    formed++;
+                }
+            }
+        }
+        assertThat(formed).isGreaterThan(5_000);
+    }
+
+    /** Another curve on {@code like}'s wavelengths: its own readings and flags. */
+    private static Curve sameGrid(Random random, Curve like) {
+        Curve other = ThicknessSweepTest.randomCurve(random, 300);
+        double[] t = new double[like.size()];
+        boolean[] below = new boolean[like.size()];
+        double[] limits = new double[like.size()];
+        for (int i = 0; i < t.length; i++) {
+            int k = random.nextInt(other.size());
+            t[i] = other.transmittance(k);
+            below[i] = other.belowDetection(k);
+            limits[i] = other.detectionLimit(k);
+        }
+        return Curve.of(like.wavelengthsNm(), t, below, limits);
+    }
+
+    @Test
     void rescaledPointsWithTheSlabFormulaReusedGiveTheEarlierNumbers() {
         Random random = new Random(20261208L);
         int clear = 0;
