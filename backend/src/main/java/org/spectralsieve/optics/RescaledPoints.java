@@ -17,16 +17,24 @@ final class RescaledPoints implements PointReadings {
 
     private static final double BELOW_ONE = Math.nextDown(1.0);
     private static final long ONE_BITS = Double.doubleToRawLongBits(1.0);
+    /** Points added beyond a read that falls outside the span held, so a walk along the curve grows it rarely. */
+    private static final int SPAN_MARGIN = 64;
 
     private final ThicknessRescaler.Prepared prepared;
     private final Curve measured;
     private final double fromMm;
     private final double toMm;
-    private final double[] t;
-    private final double[] limits;
-    private final boolean[] below;
-    private final boolean[] done;
-    private final boolean[] limitDone;
+    /**
+     * Points offset … offset + t.length − 1 (every point the earlier way; the lean way only the span read so far,
+     * grown when a read falls outside it: a bisection step reads one figure's few dozen points, and a thickness
+     * solve forms a hundred thicknesses per sample, so whole-curve arrays were most of what it allocated).
+     */
+    private int offset;
+    private double[] t;
+    private double[] limits;
+    private boolean[] below;
+    private boolean[] done;
+    private boolean[] limitDone;
     private final boolean limitsWhenRead;
     /** The lean arithmetic ({@link PerPointArithmetic}): K of a clear reading taken once, the slab formula reused. */
     private final boolean lean = !PerPointArithmetic.earlier();
@@ -50,7 +58,7 @@ final class RescaledPoints implements PointReadings {
         this.measured = prepared.measured();
         this.fromMm = fromMm;
         this.toMm = toMm;
-        int n = measured.size();
+        int n = lean ? 0 : measured.size();
         this.t = new double[n];
         this.limits = new double[n];
         this.below = new boolean[n];
@@ -72,19 +80,21 @@ final class RescaledPoints implements PointReadings {
 
     @Override
     public double transmittance(int i) {
+        hold(i);
         compute(i);
-        return t[i];
+        return t[i - offset];
     }
 
     @Override
     public boolean belowDetection(int i) {
-        if (lean && !done[i]) {
+        hold(i);
+        if (lean && !done[i - offset]) {
             // the flag alone, by the rule compute applies: a figure's lower end reads a point below detection as
             // 0 and never needs its T (SortedReading)
             return measured.belowDetection(i) || prepared.value(i).boundAt(fromMm, toMm);
         }
         compute(i);
-        return below[i];
+        return below[i - offset];
     }
 
     /**
@@ -93,19 +103,20 @@ final class RescaledPoints implements PointReadings {
      */
     @Override
     public double detectionLimit(int i) {
+        hold(i);
         compute(i);
-        if (!limitDone[i]) {
+        if (!limitDone[i - offset]) {
             double limit;
             if (!lean) {
                 limit = prepared.limit(i).transmittance(fromMm, toMm);
             } else if (prepared.limitIsValue(i)) {
                 // the limit stored as the point's T (a reading at the floor): the same reading, the same number
-                limit = t[i];
+                limit = t[i - offset];
             } else {
                 limit = prepared.limitTransmittanceAt(i, internalAt(prepared.limit(i).internal()));
             }
             if (prepared.value(i).boundAt(fromMm, toMm)) {
-                limit = Math.max(limit, Math.min(t[i], BELOW_ONE));
+                limit = Math.max(limit, Math.min(t[i - offset], BELOW_ONE));
             }
             limit = Math.min(limit, BELOW_ONE);
             if (!(limit >= 0)) {
@@ -113,10 +124,10 @@ final class RescaledPoints implements PointReadings {
                 prepared.at(fromMm, toMm);
                 throw new IllegalStateException("rescaled limit " + i + " is " + limit);
             }
-            limits[i] = limit;
-            limitDone[i] = true;
+            limits[i - offset] = limit;
+            limitDone[i - offset] = true;
         }
-        return limits[i];
+        return limits[i - offset];
     }
 
     @Override
@@ -158,9 +169,34 @@ final class RescaledPoints implements PointReadings {
         return clearInternal;
     }
 
+    /** Makes room for point i: the arrays grown to span it (with a margin), what they held kept. */
+    private void hold(int i) {
+        if (i >= offset && i < offset + t.length) {
+            return;
+        }
+        int n = measured.size();
+        int from = t.length == 0 ? Math.max(0, i - SPAN_MARGIN) : Math.min(offset, Math.max(0, i - SPAN_MARGIN));
+        int to = t.length == 0 ? Math.min(n, i + 1 + SPAN_MARGIN)
+                : Math.max(offset + t.length, Math.min(n, i + 1 + SPAN_MARGIN));
+        t = spanned(t, new double[to - from], from);
+        limits = spanned(limits, new double[to - from], from);
+        below = spanned(below, new boolean[to - from], from);
+        done = spanned(done, new boolean[to - from], from);
+        limitDone = spanned(limitDone, new boolean[to - from], from);
+        offset = from;
+    }
+
+    private <A> A spanned(A old, A grown, int from) {
+        int length = java.lang.reflect.Array.getLength(old);
+        if (length > 0) {
+            System.arraycopy(old, 0, grown, offset - from, length);
+        }
+        return grown;
+    }
+
     /** Point i as {@link ThicknessRescaler.Prepared#at} computes it. */
     private void compute(int i) {
-        if (done[i]) {
+        if (done[i - offset]) {
             return;
         }
         SlabReading value = prepared.value(i);
@@ -173,9 +209,9 @@ final class RescaledPoints implements PointReadings {
             prepared.at(fromMm, toMm);
             throw new IllegalStateException("rescaled point " + i + " is " + ti);
         }
-        t[i] = ti;
-        below[i] = b;
-        done[i] = true;
+        t[i - offset] = ti;
+        below[i - offset] = b;
+        done[i - offset] = true;
         if (!limitsWhenRead) {
             detectionLimit(i);
         }
