@@ -17,24 +17,16 @@ final class RescaledPoints implements PointReadings {
 
     private static final double BELOW_ONE = Math.nextDown(1.0);
     private static final long ONE_BITS = Double.doubleToRawLongBits(1.0);
-    /** Points added beyond a read that falls outside the span held, so a walk along the curve grows it rarely. */
-    private static final int SPAN_MARGIN = 64;
 
     private final ThicknessRescaler.Prepared prepared;
     private final Curve measured;
     private final double fromMm;
     private final double toMm;
-    /**
-     * Points offset … offset + t.length − 1 (every point the earlier way; the lean way only the span read so far,
-     * grown when a read falls outside it: a bisection step reads one figure's few dozen points, and a thickness
-     * solve forms a hundred thicknesses per sample, so whole-curve arrays were most of what it allocated).
-     */
-    private int offset;
-    private double[] t;
-    private double[] limits;
-    private boolean[] below;
-    private boolean[] done;
-    private boolean[] limitDone;
+    private final double[] t;
+    private final double[] limits;
+    private final boolean[] below;
+    private final boolean[] done;
+    private final boolean[] limitDone;
     private final boolean limitsWhenRead;
     /** The lean arithmetic ({@link PerPointArithmetic}): K of a clear reading taken once, the slab formula reused. */
     private final boolean lean = !PerPointArithmetic.earlier();
@@ -58,7 +50,7 @@ final class RescaledPoints implements PointReadings {
         this.measured = prepared.measured();
         this.fromMm = fromMm;
         this.toMm = toMm;
-        int n = lean ? 0 : measured.size();
+        int n = measured.size();
         this.t = new double[n];
         this.limits = new double[n];
         this.below = new boolean[n];
@@ -80,21 +72,19 @@ final class RescaledPoints implements PointReadings {
 
     @Override
     public double transmittance(int i) {
-        hold(i);
         compute(i);
-        return t[i - offset];
+        return t[i];
     }
 
     @Override
     public boolean belowDetection(int i) {
-        hold(i);
-        if (lean && !done[i - offset]) {
+        if (lean && !done[i]) {
             // the flag alone, by the rule compute applies: a figure's lower end reads a point below detection as
             // 0 and never needs its T (SortedReading)
             return measured.belowDetection(i) || prepared.value(i).boundAt(fromMm, toMm);
         }
         compute(i);
-        return below[i - offset];
+        return below[i];
     }
 
     /**
@@ -103,20 +93,22 @@ final class RescaledPoints implements PointReadings {
      */
     @Override
     public double detectionLimit(int i) {
-        hold(i);
         compute(i);
-        if (!limitDone[i - offset]) {
+        if (!limitDone[i]) {
             double limit;
             if (!lean) {
                 limit = prepared.limit(i).transmittance(fromMm, toMm);
             } else if (prepared.limitIsValue(i)) {
                 // the limit stored as the point's T (a reading at the floor): the same reading, the same number
-                limit = t[i - offset];
+                limit = t[i];
             } else {
-                limit = prepared.limitTransmittanceAt(i, internalAt(prepared.limit(i).internal()));
+                SlabReading reading = prepared.limit(i);
+                limit = Double.doubleToRawLongBits(reading.internal()) == ONE_BITS
+                        ? prepared.limitTransmittanceAt(i, clearInternal())
+                        : Slab.transmittance(Math.pow(reading.internal(), ratio), reading.reflectance());
             }
             if (prepared.value(i).boundAt(fromMm, toMm)) {
-                limit = Math.max(limit, Math.min(t[i - offset], BELOW_ONE));
+                limit = Math.max(limit, Math.min(t[i], BELOW_ONE));
             }
             limit = Math.min(limit, BELOW_ONE);
             if (!(limit >= 0)) {
@@ -124,10 +116,10 @@ final class RescaledPoints implements PointReadings {
                 prepared.at(fromMm, toMm);
                 throw new IllegalStateException("rescaled limit " + i + " is " + limit);
             }
-            limits[i - offset] = limit;
-            limitDone[i - offset] = true;
+            limits[i] = limit;
+            limitDone[i] = true;
         }
-        return limits[i - offset];
+        return limits[i];
     }
 
     @Override
@@ -155,53 +147,32 @@ final class RescaledPoints implements PointReadings {
     }
 
     /**
-     * {@link BeerLambert#scaleInternal}{@code (k0, fromMm, toMm)}: the same power of the same two numbers, its
-     * checks already passed (a reading's K0 is a fraction, the thicknesses were checked here), taken once for
-     * every clear reading (K0 = 1, bit for bit).
+     * {@link BeerLambert#scaleInternal}{@code (1.0, fromMm, toMm)}, the internal transmittance of every clear
+     * reading (K0 = 1) at this thickness: the same power of the same two numbers, taken once.
      */
-    private double internalAt(double k0) {
-        if (Double.doubleToRawLongBits(k0) != ONE_BITS) {
-            return Math.pow(k0, ratio);
-        }
+    private double clearInternal() {
         if (Double.isNaN(clearInternal)) {
             clearInternal = Math.pow(1.0, ratio);
         }
         return clearInternal;
     }
 
-    /** Makes room for point i: the arrays grown to span it (with a margin), what they held kept. */
-    private void hold(int i) {
-        if (i >= offset && i < offset + t.length) {
-            return;
-        }
-        int n = measured.size();
-        int from = t.length == 0 ? Math.max(0, i - SPAN_MARGIN) : Math.min(offset, Math.max(0, i - SPAN_MARGIN));
-        int to = t.length == 0 ? Math.min(n, i + 1 + SPAN_MARGIN)
-                : Math.max(offset + t.length, Math.min(n, i + 1 + SPAN_MARGIN));
-        t = spanned(t, new double[to - from], from);
-        limits = spanned(limits, new double[to - from], from);
-        below = spanned(below, new boolean[to - from], from);
-        done = spanned(done, new boolean[to - from], from);
-        limitDone = spanned(limitDone, new boolean[to - from], from);
-        offset = from;
-    }
-
-    private <A> A spanned(A old, A grown, int from) {
-        int length = java.lang.reflect.Array.getLength(old);
-        if (length > 0) {
-            System.arraycopy(old, 0, grown, offset - from, length);
-        }
-        return grown;
-    }
-
     /** Point i as {@link ThicknessRescaler.Prepared#at} computes it. */
     private void compute(int i) {
-        if (done[i - offset]) {
+        if (done[i]) {
             return;
         }
         SlabReading value = prepared.value(i);
-        double ti = lean ? prepared.valueTransmittanceAt(i, internalAt(value.internal()))
-                : value.transmittance(fromMm, toMm);
+        double ti;
+        if (!lean) {
+            ti = value.transmittance(fromMm, toMm);
+        } else if (Double.doubleToRawLongBits(value.internal()) == ONE_BITS) {
+            // a clear reading: the same K at every thickness, so the slab formula's T is kept per point
+            ti = prepared.valueTransmittanceAt(i, clearInternal());
+        } else {
+            // SlabReading.transmittance with its checks already passed (K0 a fraction, thicknesses checked here)
+            ti = Slab.transmittance(Math.pow(value.internal(), ratio), value.reflectance());
+        }
         // the point's limit is formed when read (detectionLimit): the same rule, applied later
         boolean b = measured.belowDetection(i) || value.boundAt(fromMm, toMm);
         if (!(Double.isFinite(ti) && ti >= 0 && ti <= Curve.MAX_TRANSMITTANCE)) {
@@ -209,9 +180,9 @@ final class RescaledPoints implements PointReadings {
             prepared.at(fromMm, toMm);
             throw new IllegalStateException("rescaled point " + i + " is " + ti);
         }
-        t[i - offset] = ti;
-        below[i - offset] = b;
-        done[i - offset] = true;
+        t[i] = ti;
+        below[i] = b;
+        done[i] = true;
         if (!limitsWhenRead) {
             detectionLimit(i);
         }
