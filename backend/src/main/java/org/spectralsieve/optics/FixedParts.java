@@ -7,6 +7,7 @@ import java.util.concurrent.ConcurrentHashMap;
 import org.spectralsieve.spectrum.ArrayContent;
 import org.spectralsieve.spectrum.Curve;
 import org.spectralsieve.spectrum.CurveException;
+import org.spectralsieve.spectrum.PointReadings;
 
 /**
  * Fixed parts behind many different front parts: a requirement's layer ("behind 4 mm clear float glass")
@@ -102,11 +103,68 @@ public final class FixedParts {
         for (int j = 1; j < elements.length; j++) {
             elements[j] = LightPath.elements(onShared[j], reflectances[j]);
         }
-        byGrid.put(grid, new OnGrid(nm, onShared, reflectances, elements));
+        byGrid.put(grid, OnGrid.of(nm, onShared, reflectances, elements, layers.get(0).measured().wavelengthsNm()));
     }
 
-    /** The fixed parts on one front grid's shared wavelengths; index 0 (the front part) left empty. */
-    private record OnGrid(double[] nm, Curve[] onShared, double[][] reflectances, OpticalElement[][][] elements) {
+    /**
+     * The fixed parts on one front grid's shared wavelengths; index 0 (the front part) left empty. With, per shared
+     * wavelength, where the front grid reads it as {@code Curve.resampleAt} does: the first front point not below it
+     * ({@code frontUpper}), whether that point is the wavelength itself ({@code frontHit}), and else the fraction of
+     * the way from the point before ({@code frontFraction}, the expression of {@code Curve}): the same for every
+     * front part on this grid.
+     */
+    record OnGrid(double[] nm, Curve[] onShared, double[][] reflectances, OpticalElement[][][] elements,
+                  int[] frontUpper, boolean[] frontHit, double[] frontFraction) {
+
+        static OnGrid of(double[] nm, Curve[] onShared, double[][] reflectances, OpticalElement[][][] elements,
+                         double[] frontNm) {
+            int[] upper = new int[nm.length];
+            boolean[] hit = new boolean[nm.length];
+            double[] fraction = new double[nm.length];
+            int u = 0;
+            for (int i = 0; i < nm.length; i++) {
+                while (frontNm[u] < nm[i]) {
+                    u++;
+                }
+                upper[i] = u;
+                hit[i] = frontNm[u] == nm[i];
+                fraction[i] = hit[i] ? 0 : (nm[i] - frontNm[u - 1]) / (frontNm[u] - frontNm[u - 1]);
+            }
+            return new OnGrid(nm, onShared, reflectances, elements, upper, hit, fraction);
+        }
+
+        boolean anyUncertainty() {
+            for (int j = 1; j < onShared.length; j++) {
+                if (onShared[j].hasUncertainty()) {
+                    return true;
+                }
+            }
+            return false;
+        }
+    }
+
+    /**
+     * The points of {@link #behind}{@code (front)}, each formed when read ({@link StackedPoints}; the same numbers),
+     * or null where only the built curve will do: a grid not yet remembered (the straightforward route must
+     * succeed on it first), a front part that is not fixed or a part with an uncertainty (the stack's is summed
+     * over the whole curve), a shared wavelength outside the front's range (the route's own refusal).
+     */
+    public PointReadings pointsBehind(Layer front) {
+        if (!(front instanceof Layer.Fixed) || front.measured().hasUncertainty()) {
+            return null;
+        }
+        double[] frontNm = front.measured().wavelengthsNm();
+        OnGrid on = byGrid.get(new ArrayContent(frontNm));
+        if (on == null || on.anyUncertainty()) {
+            return null;
+        }
+        double[] nm = on.nm();
+        if (!(front.measured().covers(nm[0]) && front.measured().covers(nm[nm.length - 1]))) {
+            return null;
+        }
+        // computed for every point now, as behind does, so an index that fails fails here the same way
+        double[] frontReflectances = LightPath.reflectances(List.of(front), nm)[0];
+        return new StackedPoints(front.measured(), frontReflectances, on, () -> behind(front));
     }
 
     /** A fixed part's curve and index, by identity. */

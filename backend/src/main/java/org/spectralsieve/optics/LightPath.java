@@ -4,6 +4,7 @@ import java.util.Arrays;
 import java.util.List;
 import org.spectralsieve.spectrum.Curve;
 import org.spectralsieve.spectrum.CurveException;
+import org.spectralsieve.spectrum.PerPointArithmetic;
 import org.spectralsieve.spectrum.WavelengthGrid;
 
 /**
@@ -160,6 +161,18 @@ public final class LightPath {
      * are the same.
      */
     static Curve combine(double[] nm, Curve[] onGrid, double[][] reflectances, OpticalElement[][][] known) {
+        if (!PerPointArithmetic.earlier()) {
+            Curve lean = StackArithmetic.combine(nm, onGrid, reflectances, known);
+            if (lean != null) {
+                return lean;
+            }
+            // a number the elements' records would refuse: the earlier route below refuses it the same way
+        }
+        return combineByElements(nm, onGrid, reflectances, known);
+    }
+
+    /** {@link #combine(double[], Curve[], double[][], OpticalElement[][][])} with element records, the earlier way. */
+    static Curve combineByElements(double[] nm, Curve[] onGrid, double[][] reflectances, OpticalElement[][][] known) {
         int count = onGrid.length;
         double[] t = new double[nm.length];
         boolean[] below = new boolean[nm.length];

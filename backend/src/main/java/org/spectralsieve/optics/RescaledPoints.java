@@ -1,6 +1,7 @@
 package org.spectralsieve.optics;
 
 import org.spectralsieve.spectrum.Curve;
+import org.spectralsieve.spectrum.PerPointArithmetic;
 import org.spectralsieve.spectrum.PointReadings;
 
 /**
@@ -15,6 +16,7 @@ import org.spectralsieve.spectrum.PointReadings;
 final class RescaledPoints implements PointReadings {
 
     private static final double BELOW_ONE = Math.nextDown(1.0);
+    private static final long ONE_BITS = Double.doubleToRawLongBits(1.0);
 
     private final ThicknessRescaler.Prepared prepared;
     private final Curve measured;
@@ -26,6 +28,12 @@ final class RescaledPoints implements PointReadings {
     private final boolean[] done;
     private final boolean[] limitDone;
     private final boolean limitsWhenRead;
+    /** The lean arithmetic ({@link PerPointArithmetic}): K of a clear reading taken once, the slab formula reused. */
+    private final boolean lean = !PerPointArithmetic.earlier();
+    /** toMm / fromMm, the exponent {@link BeerLambert#scaleInternal} applies to every point's K0. */
+    private final double ratio;
+    /** K0^ratio for K0 = 1 (a clear reading), taken once for all such points; NaN until then. */
+    private double clearInternal = Double.NaN;
 
     RescaledPoints(ThicknessRescaler.Prepared prepared, double fromMm, double toMm) {
         this(prepared, fromMm, toMm, false);
@@ -49,6 +57,7 @@ final class RescaledPoints implements PointReadings {
         this.done = new boolean[n];
         this.limitDone = new boolean[n];
         this.limitsWhenRead = limitsWhenRead;
+        this.ratio = toMm / fromMm;
     }
 
     @Override
@@ -69,6 +78,11 @@ final class RescaledPoints implements PointReadings {
 
     @Override
     public boolean belowDetection(int i) {
+        if (lean && !done[i]) {
+            // the flag alone, by the rule compute applies: a figure's lower end reads a point below detection as
+            // 0 and never needs its T (SortedReading)
+            return measured.belowDetection(i) || prepared.value(i).boundAt(fromMm, toMm);
+        }
         compute(i);
         return below[i];
     }
@@ -81,7 +95,18 @@ final class RescaledPoints implements PointReadings {
     public double detectionLimit(int i) {
         compute(i);
         if (!limitDone[i]) {
-            double limit = prepared.limit(i).transmittance(fromMm, toMm);
+            double limit;
+            if (!lean) {
+                limit = prepared.limit(i).transmittance(fromMm, toMm);
+            } else if (prepared.limitIsValue(i)) {
+                // the limit stored as the point's T (a reading at the floor): the same reading, the same number
+                limit = t[i];
+            } else {
+                SlabReading reading = prepared.limit(i);
+                limit = Double.doubleToRawLongBits(reading.internal()) == ONE_BITS
+                        ? prepared.limitTransmittanceAt(i, clearInternal())
+                        : Slab.transmittance(Math.pow(reading.internal(), ratio), reading.reflectance());
+            }
             if (prepared.value(i).boundAt(fromMm, toMm)) {
                 limit = Math.max(limit, Math.min(t[i], BELOW_ONE));
             }
@@ -121,13 +146,33 @@ final class RescaledPoints implements PointReadings {
         return sigma;
     }
 
+    /**
+     * {@link BeerLambert#scaleInternal}{@code (1.0, fromMm, toMm)}, the internal transmittance of every clear
+     * reading (K0 = 1) at this thickness: the same power of the same two numbers, taken once.
+     */
+    private double clearInternal() {
+        if (Double.isNaN(clearInternal)) {
+            clearInternal = Math.pow(1.0, ratio);
+        }
+        return clearInternal;
+    }
+
     /** Point i as {@link ThicknessRescaler.Prepared#at} computes it. */
     private void compute(int i) {
         if (done[i]) {
             return;
         }
         SlabReading value = prepared.value(i);
-        double ti = value.transmittance(fromMm, toMm);
+        double ti;
+        if (!lean) {
+            ti = value.transmittance(fromMm, toMm);
+        } else if (Double.doubleToRawLongBits(value.internal()) == ONE_BITS) {
+            // a clear reading: the same K at every thickness, so the slab formula's T is kept per point
+            ti = prepared.valueTransmittanceAt(i, clearInternal());
+        } else {
+            // SlabReading.transmittance with its checks already passed (K0 a fraction, thicknesses checked here)
+            ti = Slab.transmittance(Math.pow(value.internal(), ratio), value.reflectance());
+        }
         // the point's limit is formed when read (detectionLimit): the same rule, applied later
         boolean b = measured.belowDetection(i) || value.boundAt(fromMm, toMm);
         if (!(Double.isFinite(ti) && ti >= 0 && ti <= Curve.MAX_TRANSMITTANCE)) {

@@ -68,6 +68,8 @@ public final class ThicknessRescaler {
         private final double[] fresnel;
         private final SlabReading[] value;
         private final SlabReading[] limit;
+        private SlabMemo valueMemo;
+        private SlabMemo limitMemo;
 
         private Prepared(Curve measured, double[] fresnel, SlabReading[] value, SlabReading[] limit) {
             this.measured = measured;
@@ -105,6 +107,37 @@ public final class ThicknessRescaler {
             return v;
         }
 
+        /**
+         * {@code value(i).transmittance(fromMm, toMm)} given K = K0^(toMm/fromMm) already taken
+         * ({@link RescaledPoints}): the slab formula of the reading's reflectance, reused while K repeats for the
+         * point (a clear reading has K0 = 1, so the same K at every thickness) — the same function of the same
+         * two numbers.
+         */
+        double valueTransmittanceAt(int i, double internal) {
+            if (valueMemo == null) {
+                valueMemo = new SlabMemo(measured.size());
+            }
+            return valueMemo.transmittance(i, internal, value(i).reflectance());
+        }
+
+        /**
+         * Whether point i's detection limit is stored as the very number of its T (a point below detection kept
+         * at the floor): then its {@link #limit} reading is {@code SlabReading.of} of the same two numbers as its
+         * {@link #value}, and every thickness gives the limit the T's number.
+         */
+        boolean limitIsValue(int i) {
+            return Double.doubleToRawLongBits(measured.detectionLimit(i))
+                    == Double.doubleToRawLongBits(measured.transmittance(i));
+        }
+
+        /** The same for point i's detection limit ({@code limit(i).transmittance(fromMm, toMm)}). */
+        double limitTransmittanceAt(int i, double internal) {
+            if (limitMemo == null) {
+                limitMemo = new SlabMemo(measured.size());
+            }
+            return limitMemo.transmittance(i, internal, limit(i).reflectance());
+        }
+
         Curve at(double fromMm, double toMm) {
             BeerLambert.requireThickness("fromMm", fromMm);
             BeerLambert.requireThickness("toMm", toMm);
@@ -130,6 +163,28 @@ public final class ThicknessRescaler {
             }
             Curve rescaled = Curve.of(measured.wavelengthsNm(), t, below, limits);
             return measured.hasUncertainty() ? rescaled.withAbsorbanceUncertainty(sigma) : rescaled;
+        }
+    }
+
+    /** Per point, the last K a slab formula was applied to and its T, for a part read at many thicknesses. */
+    private static final class SlabMemo {
+
+        private final long[] internalBits;
+        private final double[] transmittance;
+
+        SlabMemo(int n) {
+            internalBits = new long[n];
+            transmittance = new double[n];
+        }
+
+        double transmittance(int i, double internal, double reflectance) {
+            // K's bits plus one, so the array's initial 0 matches no K (the one K whose key is 0 is never kept)
+            long key = Double.doubleToRawLongBits(internal) + 1;
+            if (key == 0 || internalBits[i] != key) {
+                transmittance[i] = Slab.transmittance(internal, reflectance);
+                internalBits[i] = key;
+            }
+            return transmittance[i];
         }
     }
 

@@ -12,6 +12,7 @@ import org.spectralsieve.optics.RefractiveIndex;
 import org.spectralsieve.optics.ThicknessRescaler;
 import org.spectralsieve.optics.ThicknessSweep;
 import org.spectralsieve.spectrum.Curve;
+import org.spectralsieve.spectrum.PerPointArithmetic;
 import org.spectralsieve.spectrum.PointReadings;
 import org.spectralsieve.weighting.FigurePath;
 
@@ -28,11 +29,21 @@ final class CandidatePath {
     /** The index assumed for a non-bulk candidate stored without one: what import assumes too (n = 1.5). */
     static final RefractiveIndex DEFAULT_INDEX = ConstantIndex.WHEN_UNRECORDED;
     private static final int CACHE_LIMIT = 256;
+    /**
+     * Thicknesses whose points are kept for a weighted solve: the bisection's step (every condition at one
+     * midpoint) and the solve's ends; older ones are recomputed, the same numbers.
+     */
+    private static final int RECENT_POINTS = 32;
 
     private final Candidate candidate;
     private final Optional<StackLayer> layer;
     private final Map<Double, Curve> byThickness = new HashMap<>();
     private final Map<Double, PointReadings> pointsByThickness = new HashMap<>();
+    /** The last thicknesses' points, the lean way ({@link PerPointArithmetic}). */
+    private final RecentThicknesses<PointReadings> recentPoints = new RecentThicknesses<>(RECENT_POINTS);
+    private final boolean earlierArithmetic = PerPointArithmetic.earlier();
+    /** The stack as measured, its points formed when read ({@link #asMeasuredPoints}); null until asked. */
+    private PointReadings stackedAsMeasured;
     private ThicknessSweep sweep;
     private RescaledModel readings;
     /** The way this candidate is judged, read once so a benchmark switching it never mixes the two in one judgement. */
@@ -57,6 +68,32 @@ final class CandidatePath {
     }
 
     /**
+     * The points of {@link #asMeasured} for clauses that read some of them (weighted figures, bands): behind a
+     * layer, each stacked point formed when read ({@link FixedParts#pointsBehind}; the same numbers), unless the
+     * curve is built already or only the built curve will do; otherwise the curve itself.
+     */
+    PointReadings asMeasuredPoints() {
+        if (!stacked() || earlier || earlierArithmetic || FigurePath.byLookup()) {
+            return asMeasured();
+        }
+        if (!byThickness.isEmpty()) {
+            Curve built = byThickness.get(Double.NaN);
+            if (built != null) {
+                return built;
+            }
+        }
+        if (stackedAsMeasured == null) {
+            StackLayer fixed = layer.orElseThrow();
+            stackedAsMeasured = FixedParts.of(fixed.curve(), fixed.index()).pointsBehind(Layer.fixed(candidate.measured(),
+                    candidate.index() != null ? candidate.index() : DEFAULT_INDEX));
+            if (stackedAsMeasured == null) {
+                return asMeasured();
+            }
+        }
+        return stackedAsMeasured;
+    }
+
+    /**
      * The path with a bulk candidate rescaled to thickness d (always rescaled, as the solver's model is,
      * so a recommended thickness equal to the measured one reads the same curve as its neighbours); any
      * other candidate as measured.
@@ -78,6 +115,9 @@ final class CandidatePath {
         if (!candidate.bulk() || stacked() || FigurePath.byLookup()) {
             return at(d);
         }
+        if (!earlierArithmetic) {
+            return recentPointsAt(d);
+        }
         Curve built = byThickness.get(d);
         if (built != null) {
             return built;
@@ -89,6 +129,22 @@ final class CandidatePath {
             }
             hit = sweep().rescaledPoints(d);
             pointsByThickness.put(d, hit);
+        }
+        return hit;
+    }
+
+    /** {@link #pointsAt} without a boxed key: a built curve first (none while a solve bisects), then the recent points. */
+    private PointReadings recentPointsAt(double d) {
+        if (!byThickness.isEmpty()) {
+            Curve built = byThickness.get(d);
+            if (built != null) {
+                return built;
+            }
+        }
+        PointReadings hit = recentPoints.get(d);
+        if (hit == null) {
+            hit = sweep().rescaledPoints(d);
+            recentPoints.put(d, hit);
         }
         return hit;
     }

@@ -116,7 +116,8 @@ public final class SampleEvaluator {
         List<Clause> clauses = requirement.clauses();
         double d0 = candidate.thicknessMm();
         if (spec.kind() == ThicknessSpec.Kind.AS_MEASURED) {
-            return judged(candidate.sampleId(), d0, null, clauses, path.asMeasured());
+            return path.stacked() && !path.earlier() ? judgedAsMeasured(candidate.sampleId(), d0, clauses, path)
+                    : judged(candidate.sampleId(), d0, null, clauses, path.asMeasured());
         }
         if (!candidate.thicknessKnown()) {
             return unverified(candidate.sampleId(), d0, clauses,
@@ -291,6 +292,26 @@ public final class SampleEvaluator {
             }
         }
         return true;
+    }
+
+    /**
+     * The clauses judged on a stack as measured: weighted figures and bands on its points formed when read
+     * ({@link CandidatePath#asMeasuredPoints}), the way {@link #evaluateAt} reads a rescaled candidate's points, so
+     * the results are those {@link ClauseEvaluator} gives on the built curve; other clauses on the built curve.
+     */
+    private static SampleEvaluation judgedAsMeasured(long sampleId, double thicknessMm, List<Clause> clauses,
+                                                     CandidatePath path) {
+        List<ClauseResult> results = new ArrayList<>(clauses.size());
+        for (Clause clause : clauses) {
+            if (clause instanceof WeightedClause w) {
+                results.add(FigureClauses.weighted(w, path.asMeasuredPoints()));
+            } else if (clause instanceof TransmittanceClause t) {
+                results.add(ClauseEvaluator.transmittance(t, new CurveView(path.asMeasuredPoints())));
+            } else {
+                results.add(ClauseEvaluator.evaluate(clause, path.asMeasured()));
+            }
+        }
+        return SampleEvaluation.of(sampleId, thicknessMm, null, results);
     }
 
     /** The clauses judged on the path at thickness d ({@link #evaluateAt}). */

@@ -326,7 +326,58 @@ public final class Curve implements PointReadings {
                         + " nm) is not greater than the previous one (" + wavelengthsNm[i - 1] + " nm)");
             }
         }
-        return readAt(wavelengthsNm.clone());
+        return PerPointArithmetic.earlier() ? readAt(wavelengthsNm.clone()) : readAlong(wavelengthsNm.clone());
+    }
+
+    /**
+     * {@link #readAt} for increasing wavelengths inside the range, by one walk along the stored points instead of a
+     * binary search per wavelength, each stored absorbance taken once however many wavelengths interpolate from
+     * it: the same hit or bracketing pair (the first stored wavelength not below nm), the same expressions, so the
+     * same numbers. Why: a stack resamples every candidate onto the union of its grid and the layer's.
+     */
+    private Curve readAlong(double[] nm) {
+        int n = nm.length;
+        double[] t = new double[n];
+        boolean[] below = new boolean[n];
+        double[] limits = new double[n];
+        double[] sigma = absorbanceSigma == null ? null : new double[n];
+        int upper = 0;
+        int lowerTaken = -1;
+        double aLower = 0;
+        int upperTaken = -1;
+        double aUpper = 0;
+        for (int i = 0; i < n; i++) {
+            while (wavelengthsNm[upper] < nm[i]) {
+                upper++;
+            }
+            if (wavelengthsNm[upper] == nm[i]) {
+                t[i] = transmittance[upper];
+                below[i] = belowDetection[upper];
+                limits[i] = detectionLimits[upper];
+                if (sigma != null) {
+                    sigma[i] = absorbanceSigma[upper];
+                }
+                continue;
+            }
+            int lower = upper - 1;
+            if (lowerTaken != lower) {
+                aLower = lower == upperTaken ? aUpper : absorbance(transmittance[lower]);
+                lowerTaken = lower;
+            }
+            if (upperTaken != upper) {
+                aUpper = absorbance(transmittance[upper]);
+                upperTaken = upper;
+            }
+            double f = fraction(nm[i], lower, upper);
+            // interpolated(lower, upper, f) with the two absorbances already taken
+            t[i] = Math.pow(10.0, -(aLower * (1 - f) + aUpper * f));
+            below[i] = belowDetection[lower] || belowDetection[upper];
+            limits[i] = detectionLimits[lower] * (1 - f) + detectionLimits[upper] * f;
+            if (sigma != null) {
+                sigma[i] = absorbanceSigma[lower] * (1 - f) + absorbanceSigma[upper] * f;
+            }
+        }
+        return new Curve(nm, t, below, limits, sigma);
     }
 
     private Curve readAt(double[] nm) {

@@ -1,6 +1,7 @@
 package org.spectralsieve.weighting;
 
 import org.spectralsieve.spectrum.Curve;
+import org.spectralsieve.spectrum.PerPointArithmetic;
 import org.spectralsieve.spectrum.PointReadings;
 
 /**
@@ -33,6 +34,7 @@ final class SortedReading {
             return new Sum(0, false);
         }
         int size = curve.size();
+        boolean zeroFirst = !PerPointArithmetic.earlier();
         int j = binarySearch(curve, nm[0]);
         j = j >= 0 ? j : -j - 1;
         double passed = 0;
@@ -49,16 +51,17 @@ final class SortedReading {
             }
             double t;
             if (curve.wavelengthNm(j) == x) {
-                t = pointT(curve, j, as);
+                t = zeroFirst ? pointTZeroFirst(curve, j, as) : pointT(curve, j, as);
                 bound |= curve.belowDetection(j);
             } else {
                 int lower = j - 1;
                 if (lower != lowerIndex) {
-                    aLower = lower == upperIndex ? aUpper : absorbance(pointT(curve, lower, as));
+                    aLower = lower == upperIndex ? aUpper
+                            : absorbance(zeroFirst ? pointTZeroFirst(curve, lower, as) : pointT(curve, lower, as));
                     lowerIndex = lower;
                 }
                 if (j != upperIndex) {
-                    aUpper = absorbance(pointT(curve, j, as));
+                    aUpper = absorbance(zeroFirst ? pointTZeroFirst(curve, j, as) : pointT(curve, j, as));
                     upperIndex = j;
                 }
                 double lowerNm = curve.wavelengthNm(lower);
@@ -69,6 +72,17 @@ final class SortedReading {
             passed += w[k] * t;
         }
         return new Sum(passed, bound);
+    }
+
+    /**
+     * {@link #pointT} with a point below detection read as 0 before its T is asked for: the same number, and a
+     * curve that forms its points when read ({@code optics.RescaledPoints}) never forms a T nobody uses.
+     */
+    static double pointTZeroFirst(PointReadings curve, int i, BelowDetectionAs as) {
+        if (as == BelowDetectionAs.ZERO && curve.belowDetection(i)) {
+            return 0;
+        }
+        return pointT(curve, i, as);
     }
 
     /** The stored T of point i, or its bound when it is below detection. */

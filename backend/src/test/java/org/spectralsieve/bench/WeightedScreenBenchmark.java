@@ -28,6 +28,7 @@ import org.spectralsieve.requirement.RequirementParser;
 import org.spectralsieve.search.SearchService;
 import org.spectralsieve.search.Shortlist;
 import org.spectralsieve.seed.DemoLibraryLoader;
+import org.spectralsieve.spectrum.PerPointArithmetic;
 import org.spectralsieve.store.SpectralStore;
 import org.spectralsieve.store.SyntheticCurves;
 import org.springframework.core.io.DefaultResourceLoader;
@@ -56,9 +57,14 @@ import org.springframework.core.io.DefaultResourceLoader;
  * ({@link SearchService#withoutSecondStage}; {@code -Dbench.screenSkipNoSecondStage=true} leaves it out).
  * {@code on-materials-whole} every material judged whole, no sample a contender of its own
  * ({@link SearchService#withMaterialsWhole}; {@code -Dbench.screenSkipMaterialsWhole=true} leaves it out).
+ * {@code on-earlier-arithmetic} the same service judging with the per-point arithmetic before the sixth pass
+ * ({@link PerPointArithmetic}; {@code -Dbench.screenArithmetic=earlier} adds it).
  * {@code -Dbench.screenModes=measured,solve,layer} picks the variants.
  */
 class WeightedScreenBenchmark {
+
+    /** The service judged with the per-point arithmetic before the sixth pass ({@code -Dbench.screenArithmetic=earlier}). */
+    private static final String EARLIER_ARITHMETIC = "on-earlier-arithmetic";
 
     static final String WEIGHTED = "passes over 85% of led 365 and uv hazard under 0.1% and luminous over 70%";
 
@@ -94,6 +100,10 @@ class WeightedScreenBenchmark {
             };
             services.put("on-judging-" + way, new SearchService(library).judging(judging));
         }
+        if (BenchStats.stringList("bench.screenArithmetic", "").contains("earlier")) {
+            // the per-point arithmetic before the sixth pass (PerPointArithmetic), the same service otherwise
+            services.put(EARLIER_ARITHMETIC, new SearchService(library));
+        }
         if (!Boolean.getBoolean("bench.screenSkipNoSecondStage")) {
             // the judging loop without its second, exact-curve stage: the rule before it, side by side
             services.put("on-no-second-stage", new SearchService(library).withoutSecondStage());
@@ -116,14 +126,30 @@ class WeightedScreenBenchmark {
             for (SearchService service : services.values()) {
                 variants.values().forEach(r -> service.search(r, limit)); // JIT, each service's store
             }
+            PerPointArithmetic.useEarlier(true);
+            if (services.containsKey(EARLIER_ARITHMETIC)) {
+                variants.values().forEach(r -> services.get(EARLIER_ARITHMETIC).search(r, limit));
+            }
+            PerPointArithmetic.useEarlier(false);
         }
         Map<String, double[]> took = new LinkedHashMap<>();
         Map<String, Shortlist> last = new LinkedHashMap<>();
+        // the CPU the whole JVM spent per search (every thread, collector and compiler included): on a shared,
+        // loaded machine it moves less than the wall time, since waiting for a core is not counted
+        Map<String, double[]> cpu = new LinkedHashMap<>();
         for (int i = 0; i < runs; i++) {
             for (Map.Entry<String, Requirement> variant : variants.entrySet()) {
                 for (Map.Entry<String, SearchService> service : services.entrySet()) {
                     String key = variant.getKey() + " " + service.getKey();
-                    Shortlist answer = service.getValue().search(variant.getValue(), limit);
+                    PerPointArithmetic.useEarlier(service.getKey().equals(EARLIER_ARITHMETIC));
+                    Shortlist answer;
+                    long cpuBefore = processCpuNanos();
+                    try {
+                        answer = service.getValue().search(variant.getValue(), limit);
+                    } finally {
+                        PerPointArithmetic.useEarlier(false);
+                    }
+                    cpu.computeIfAbsent(key, k -> new double[runs])[i] = (processCpuNanos() - cpuBefore) / 1e6;
                     took.computeIfAbsent(key, k -> new double[runs])[i] = answer.tookMs();
                     last.put(key, answer);
                 }
@@ -137,11 +163,17 @@ class WeightedScreenBenchmark {
                 Shortlist answer = last.get(key);
                 boolean same = answer.rows().equals(last.get(variant + " on").rows());
                 System.out.printf("BENCH search-weighted library=%s curves=%d mode=%s screen=%s p50_ms=%s p95_ms=%s"
-                                + " judged=%d of=%d same_rows=%s bytes_per_curve=%.0f runs=%d%n",
+                                + " judged=%d of=%d same_rows=%s bytes_per_curve=%.0f runs=%d cpu_p50_ms=%s cpu_p95_ms=%s%n",
                         name, store.size(), variant, screen, ms(percentile(m, 50)), ms(percentile(m, 95)),
-                        answer.judgedExactly(), answer.evaluatedSamples(), same, store.bytesPerCurve(), runs);
+                        answer.judgedExactly(), answer.evaluatedSamples(), same, store.bytesPerCurve(), runs,
+                        ms(percentile(cpu.get(key), 50)), ms(percentile(cpu.get(key), 95)));
             }
         }
+    }
+
+    private static long processCpuNanos() {
+        return ((com.sun.management.OperatingSystemMXBean) java.lang.management.ManagementFactory
+                .getOperatingSystemMXBean()).getProcessCpuTime();
     }
 
     /** The demo library in a freshly migrated in-memory H2, loaded by the application's loader. */

@@ -51,7 +51,7 @@ class JudgementPathEquivalenceTest {
     private static List<Curve> demoCurves;
 
     /** Requirements of every kind the search answers; the demo library's own layer names resolve. */
-    private static final List<String> DEMO_REQUIREMENTS = List.of(
+    static final List<String> DEMO_REQUIREMENTS = List.of(
             "passes over 80% at 365 nm and blocks under 1% at 405 nm and passes at least 70% from 380 to 400 nm",
             "passes over 80% at 365 nm and blocks under 1% at 405 nm and passes at least 70% from 380 to 400 nm, thickness 1 to 6 mm",
             "passes over 85% of led 365 and uv hazard under 0.1% and luminous over 70%",
@@ -157,7 +157,7 @@ class JudgementPathEquivalenceTest {
     }
 
     /** One to three samples of one material at different thicknesses; stock sizes in a third of the materials. */
-    private static List<Candidate> randomMaterial(Random random, int trial) {
+    static List<Candidate> randomMaterial(Random random, int trial) {
         double step = 0.5 + random.nextInt(5);
         double start = 190 + 60 * random.nextDouble();
         int n = (int) Math.floor((1100 - start) / step) + 1;
@@ -204,7 +204,7 @@ class JudgementPathEquivalenceTest {
 
     private static final String[] LEDS = {"led 365", "led 385", "led 395", "led 405"};
 
-    private static String randomRequirement(Random random) {
+    static String randomRequirement(Random random) {
         List<String> clauses = new ArrayList<>();
         int count = 1 + random.nextInt(3);
         for (int j = 0; j < count; j++) {
@@ -230,7 +230,7 @@ class JudgementPathEquivalenceTest {
     }
 
     /** A clear plate with a UV edge, as the requirement's resolved fixed layer (illustrative). */
-    private static StackLayer plate(Random random, FixedLayer spec) {
+    static StackLayer plate(Random random, FixedLayer spec) {
         int n = 800;
         double[] nm = new double[n];
         double[] t = new double[n];
