@@ -268,14 +268,20 @@ public final class SpectralStore {
             weighted = WeightedScreen.builder(capacity);
         }
 
-        /** Adds one sample's curve; grid points outside its measured range are stored as not measured. */
+        /**
+         * Adds one sample's curve; grid points outside its measured range are stored as not measured. A reading below
+         * the detection limit is stored as the bound the exact judgement reads there (at least the limit,
+         * {@link Curve#judgedTransmittanceAt}), flagged: were it stored as the curve's own number (which can lie
+         * decades below the limit), a pass judged on it would miss in the store by decades more than exactly, and the
+         * store's margin would bound nothing (docs/store.md, "The store's error at the cut").
+         */
         public Builder add(long sampleId, StoredMaterial material, double thicknessMm, boolean bulk,
                            boolean totalGeometry, RefractiveIndex index, Curve curve) {
             int i = nextSlot();
             for (int w = 0; w < gridNm.length; w++) {
                 double nm = gridNm[w];
                 columns[w][i] = curve.covers(nm)
-                        ? OdCode.encode(curve.transmittanceAt(nm).getAsDouble(), curve.belowDetectionAt(nm))
+                        ? OdCode.encode(curve.judgedTransmittanceAt(nm).getAsDouble(), curve.belowDetectionAt(nm))
                         : OdCode.NOT_MEASURED;
             }
             weighted.add(i, curve);
