@@ -16,6 +16,7 @@ import org.spectralsieve.requirement.Ranking;
 import org.spectralsieve.requirement.Requirement;
 import org.spectralsieve.requirement.RequirementParser;
 import org.spectralsieve.requirement.SampleEvaluation;
+import org.spectralsieve.spectrum.Curve;
 
 /**
  * The store's pick of a plain requirement, followed as the service follows it (judge the hits exactly, then every
@@ -80,6 +81,118 @@ class StorePickEqualsExactJudgementTest {
         }
         assertThat(handedOver).as("materials handed over beyond the hits").isPositive();
         assertThat(wrongWithoutIt).as("searches the hits alone would have answered wrongly").isPositive();
+    }
+
+    /**
+     * The same, on curves measured on their own wavelengths (every 2.7 nm, so the store's grid readings are
+     * interpolated between them) whose readings fall under a detection limit that varies from point to point, with
+     * the clauses placed at and across the absorption edges, where readings under the limit sit beside readings of
+     * values; the exact evaluator reads the curves themselves, not the store's copy. Failed when the store held a
+     * reading under the limit as the curve's own number (down to 10⁻³⁰⁰) while the exact judgement reads the limit:
+     * a pass over such a reading missed in the store by decades more than exactly, and a material whose exact row
+     * was a plain miss on another clause was never handed over. Thresholds in the trades' usual ranges (common
+     * practice, no source); fixed seeds.
+     */
+    @Test
+    void readingsUnderTheDetectionLimitGiveTheRowsOfJudgingEverySample() {
+        SyntheticCurves synthetic = new SyntheticCurves(20261206L, SpectralStore.DEFAULT_GRID);
+        java.util.Random random = new java.util.Random(5122027L);
+        int n = 1_500;
+        Curve[] curves = new Curve[n];
+        SyntheticCurves.Spec[] specs = new SyntheticCurves.Spec[n];
+        SpectralStore.Builder builder = SpectralStore.builder(SpectralStore.DEFAULT_GRID, n);
+        for (int i = 0; i < n; i++) {
+            specs[i] = synthetic.next();
+            curves[i] = measuredWithLimits(specs[i], random);
+            int material = i / 3;
+            builder.add(i + 1L, new StoredMaterial(material + 1L, "limit-bound sheet " + material, "plastic sheet"),
+                    specs[i].thicknessMm(), material % 3 != 2, false, SyntheticCurves.INDICES[specs[i].index()], curves[i]);
+        }
+        SpectralStore store = builder.build();
+
+        int boundedRows = 0;
+        int handedOver = 0;
+        for (int trial = 0; trial < 24; trial++) {
+            Requirement requirement = RequirementParser.parse(edgeClauses(random)
+                    + THICKNESSES[trial % THICKNESSES.length]);
+            List<MaterialEvaluation> everySample = new ArrayList<>();
+            for (int m = 0; m < store.curvesByMaterial().length; m++) {
+                everySample.addAll(judgeMeasured(store, specs, curves, m, requirement));
+            }
+            for (int limit : new int[] {1, 3, 5, 10, 20, 40}) {
+                StoreResult picked = StoreSearch.search(store, requirement, limit);
+                Set<Integer> materials = new LinkedHashSet<>();
+                picked.hits().forEach(hit -> materials.add(store.materialIndex(hit.curve())));
+                List<RankedRow> rows = rankMeasured(store, specs, curves, materials, requirement, limit);
+                if (rows.size() >= limit) {
+                    SampleEvaluation last = rows.get(limit - 1).evaluation();
+                    List<StoreHit> more = picked.handOver().reaching(last.standing(), last.worstMarginDecades());
+                    handedOver += more.size();
+                    more.forEach(hit -> materials.add(store.materialIndex(hit.curve())));
+                    rows = rankMeasured(store, specs, curves, materials, requirement, limit);
+                }
+                List<RankedRow> exact = Ranking.rank(everySample, limit);
+                assertThat(rows).as(requirement + " (limit " + limit + ")").containsExactlyElementsOf(exact);
+                boundedRows += (int) exact.stream().filter(r -> r.evaluation().clauses().stream()
+                        .anyMatch(c -> c.valueIsBound())).count();
+            }
+        }
+        assertThat(boundedRows).as("rows with a clause judged on a reading under the detection limit").isGreaterThan(100);
+        assertThat(handedOver).as("materials handed over beyond the hits").isPositive();
+    }
+
+    /** A pass above or a block below the synthetic edges (220 to 480 nm), at a point or over a band; one or two. */
+    private static String edgeClauses(java.util.Random random) {
+        String clauses = edgeClause(random);
+        return random.nextBoolean() ? clauses + " and " + edgeClause(random) : clauses;
+    }
+
+    private static String edgeClause(java.util.Random random) {
+        int nm = 250 + 10 * random.nextInt(28);
+        return switch (random.nextInt(4)) {
+            case 0 -> String.format(java.util.Locale.ROOT, "passes over %.2f%% at %d nm", 30 + 60 * random.nextDouble(), nm);
+            case 1 -> String.format(java.util.Locale.ROOT, "blocks under %.2f%% at %d nm", Math.pow(10, 1 - 3 * random.nextDouble()), nm);
+            case 2 -> String.format(java.util.Locale.ROOT, "passes over %.2f%% from %d to %d nm", 20 + 60 * random.nextDouble(), nm, nm + 30);
+            default -> String.format(java.util.Locale.ROOT, "blocks under %.2f%% from %d to %d nm",
+                    Math.pow(10, 1 - 3 * random.nextDouble()), nm, nm + 20);
+        };
+    }
+
+    /** The sample read every 2.7 nm from 188.6 nm, each point with its own detection limit (the floor, ×0.5 to ×5). */
+    private static Curve measuredWithLimits(SyntheticCurves.Spec spec, java.util.Random random) {
+        int count = (int) ((1102 - 188.6) / 2.7) + 1;
+        double[] nm = new double[count];
+        double[] t = new double[count];
+        boolean[] below = new boolean[count];
+        double[] limits = new double[count];
+        for (int k = 0; k < count; k++) {
+            nm[k] = 188.6 + 2.7 * k;
+            t[k] = SyntheticCurves.transmittance(spec, nm[k]);
+            limits[k] = spec.floor() * (0.5 + 4.5 * random.nextDouble());
+            below[k] = t[k] <= limits[k];
+        }
+        return Curve.of(nm, t, below, limits);
+    }
+
+    private static List<RankedRow> rankMeasured(SpectralStore store, SyntheticCurves.Spec[] specs, Curve[] curves,
+                                                Set<Integer> materials, Requirement requirement, int limit) {
+        List<MaterialEvaluation> judged = new ArrayList<>();
+        for (int m : materials) {
+            judged.addAll(judgeMeasured(store, specs, curves, m, requirement));
+        }
+        return Ranking.rank(judged, limit);
+    }
+
+    /** Every sample of material {@code m}, judged exactly on its measured curve (not the store's copy). */
+    private static List<MaterialEvaluation> judgeMeasured(SpectralStore store, SyntheticCurves.Spec[] specs,
+                                                          Curve[] curves, int m, Requirement requirement) {
+        List<Candidate> samples = new ArrayList<>();
+        for (int curve : store.curvesByMaterial()[m]) {
+            StoredMaterial material = store.materialAt(m);
+            samples.add(new Candidate(store.sampleId(curve), material.id(), material.name(), curves[curve],
+                    specs[curve].thicknessMm(), store.isBulk(curve), SyntheticCurves.INDICES[specs[curve].index()]));
+        }
+        return MaterialJudge.evaluate(samples, requirement, Optional.empty());
     }
 
     private static List<RankedRow> rank(SpectralStore store, SyntheticCurves.Spec[] specs, Set<Integer> materials,
