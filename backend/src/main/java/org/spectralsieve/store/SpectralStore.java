@@ -280,9 +280,13 @@ public final class SpectralStore {
             int i = nextSlot();
             for (int w = 0; w < gridNm.length; w++) {
                 double nm = gridNm[w];
-                columns[w][i] = curve.covers(nm)
-                        ? OdCode.encode(curve.judgedTransmittanceAt(nm).getAsDouble(), curve.belowDetectionAt(nm))
-                        : OdCode.NOT_MEASURED;
+                if (!curve.covers(nm)) {
+                    columns[w][i] = OdCode.NOT_MEASURED;
+                } else if (curve.belowDetectionAt(nm)) {
+                    columns[w][i] = OdCode.encode(curve.judgedTransmittanceAt(nm).getAsDouble(), true);
+                } else {
+                    columns[w][i] = OdCode.encode(curve.transmittanceAt(nm).getAsDouble(), false);
+                }
             }
             weighted.add(i, curve);
             record(i, sampleId, material, thicknessMm, bulk, totalGeometry, index);
