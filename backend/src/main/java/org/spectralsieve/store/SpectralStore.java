@@ -21,6 +21,8 @@ public final class SpectralStore {
     private final WavelengthGrid grid;
     private final double[] gridNm;
     private final short[][] columns;
+    /** Per grid wavelength: whether some curve's code there is the code's ceiling (a reading at least that dark). */
+    private final boolean[] atCeiling;
     private final int size;
     private final long[] sampleIds;
     private final int[] materialOfCurve;
@@ -42,6 +44,7 @@ public final class SpectralStore {
         for (int w = 0; w < gridNm.length; w++) {
             columns[w] = trimmed(b.columns[w], size);
         }
+        this.atCeiling = b.atCeiling;
         this.sampleIds = b.sampleIds.length == size ? b.sampleIds : Arrays.copyOf(b.sampleIds, size);
         this.materialOfCurve = b.materialOfCurve.length == size ? b.materialOfCurve : Arrays.copyOf(b.materialOfCurve, size);
         this.thicknessMm = b.thicknessMm.length == size ? b.thicknessMm : Arrays.copyOf(b.thicknessMm, size);
@@ -171,6 +174,15 @@ public final class SpectralStore {
         return gridNm.length;
     }
 
+    /**
+     * Whether some curve's reading at grid wavelength w is held at the code's ceiling ({@link OdCode#MAX_LEVEL}, OD
+     * 6.55): there the store knows only that the judged reading is at least that dark, so a block judged on it may
+     * have any larger exact margin (docs/store.md, "The store's error at the cut").
+     */
+    boolean anyAtCeiling(int w) {
+        return atCeiling[w];
+    }
+
     /** The column of one grid wavelength: entry i belongs to curve i. Not copied: searches read it in place. */
     short[] column(int w) {
         return columns[w];
@@ -244,6 +256,7 @@ public final class SpectralStore {
         private final List<RefractiveIndex> indexModels = new ArrayList<>();
         private final Map<RefractiveIndex, Integer> indexModelIndex = new HashMap<>();
         private final WeightedScreen.Builder weighted;
+        private final boolean[] atCeiling;
 
         private boolean built;
         /** The pending run of carried rows: {@code runLength} rows from {@code runFrom} of {@code runSource} to {@code runTo}. */
@@ -259,6 +272,7 @@ public final class SpectralStore {
             this.gridNm = grid.points();
             int capacity = Math.max(16, expectedCurves);
             columns = new short[gridNm.length][capacity];
+            atCeiling = new boolean[gridNm.length];
             sampleIds = new long[capacity];
             materialOfCurve = new int[capacity];
             thicknessMm = new float[capacity];
@@ -287,6 +301,7 @@ public final class SpectralStore {
                 } else {
                     columns[w][i] = OdCode.encode(curve.transmittanceAt(nm).getAsDouble(), false);
                 }
+                noteCeiling(w, columns[w][i]);
             }
             weighted.add(i, curve);
             record(i, sampleId, material, thicknessMm, bulk, totalGeometry, index);
@@ -302,6 +317,7 @@ public final class SpectralStore {
             int i = nextSlot();
             for (int w = 0; w < gridNm.length; w++) {
                 columns[w][i] = codesOnGrid[w];
+                noteCeiling(w, codesOnGrid[w]);
             }
             weighted.unknown(i);
             record(i, sampleId, material, thicknessMm, bulk, totalGeometry, index);
@@ -341,11 +357,18 @@ public final class SpectralStore {
             return this;
         }
 
+        private void noteCeiling(int w, short code) {
+            if (OdCode.isMeasured(code) && OdCode.level(code) == OdCode.MAX_LEVEL) {
+                atCeiling[w] = true;
+            }
+        }
+
         /** Copies the pending run of carried rows into the columns: one array copy per grid wavelength. */
         private void flushRun() {
             if (runLength > 0) {
                 for (int w = 0; w < columns.length; w++) {
                     System.arraycopy(runSource.columns[w], runFrom, columns[w], runTo, runLength);
+                    atCeiling[w] |= runSource.atCeiling[w]; // the run's own rows may not be, but never less
                 }
             }
             runSource = null;

@@ -95,26 +95,80 @@ class StorePickEqualsExactJudgementTest {
      */
     @Test
     void readingsUnderTheDetectionLimitGiveTheRowsOfJudgingEverySample() {
-        SyntheticCurves synthetic = new SyntheticCurves(20261206L, SpectralStore.DEFAULT_GRID);
         java.util.Random random = new java.util.Random(5122027L);
+        Library library = measuredLibrary(20261206L, random, 1.0);
+        int boundedRows = 0;
+        int handedOver = 0;
+        for (int trial = 0; trial < 24; trial++) {
+            Requirement requirement = RequirementParser.parse(edgeClauses(random, false)
+                    + THICKNESSES[trial % THICKNESSES.length]);
+            assertThat(StoreSearch.blocksAtTheCodeCeiling(library.store(), requirement)).isFalse();
+            int[] counts = compareWithEverySample(library, requirement);
+            boundedRows += counts[0];
+            handedOver += counts[1];
+        }
+        assertThat(boundedRows).as("rows with a clause judged on a reading under the detection limit").isGreaterThan(100);
+        assertThat(handedOver).as("materials handed over beyond the hits").isPositive();
+    }
+
+    /**
+     * Readings darker than the store's code can hold (OD 6.55; detection limits near 10⁻¹²) under blocks of OD 5 to
+     * 9: the store holds them at its ceiling, a lower bound on their OD, so a block's store margin there lies below
+     * the exact one by any amount; the pick then left out the best material (a block of OD 6.46 over 340–360 nm, 1 to
+     * 6 mm, limit 1). The service judges every sample when a block reads a wavelength where some curve is at the
+     * ceiling ({@link StoreSearch#blocksAtTheCodeCeiling}); every other search here must give the exact rows.
+     */
+    @Test
+    void blocksOverReadingsAtTheCodeCeilingAreJudgedOnEverySample() {
+        java.util.Random random = new java.util.Random(5122028L);
+        Library library = measuredLibrary(20261207L, random, 1e-9);
+        int atCeiling = 0;
+        int compared = 0;
+        for (int trial = 0; trial < 48; trial++) {
+            Requirement requirement = RequirementParser.parse(edgeClauses(random, true)
+                    + THICKNESSES[trial % THICKNESSES.length]);
+            if (StoreSearch.blocksAtTheCodeCeiling(library.store(), requirement)) {
+                atCeiling++;
+                continue;
+            }
+            compareWithEverySample(library, requirement);
+            compared++;
+        }
+        assertThat(atCeiling).as("searches judged on every sample for a block at the code's ceiling").isPositive();
+        assertThat(compared).as("searches the store picked for").isPositive();
+    }
+
+    private record Library(SpectralStore store, SyntheticCurves.Spec[] specs, Curve[] curves) {
+    }
+
+    /** 1,500 curves (500 materials of three) on their own wavelengths, limits the floor × {@code limitScale}. */
+    private static Library measuredLibrary(long seed, java.util.Random random, double limitScale) {
+        SyntheticCurves synthetic = new SyntheticCurves(seed, SpectralStore.DEFAULT_GRID);
         int n = 1_500;
         Curve[] curves = new Curve[n];
         SyntheticCurves.Spec[] specs = new SyntheticCurves.Spec[n];
         SpectralStore.Builder builder = SpectralStore.builder(SpectralStore.DEFAULT_GRID, n);
         for (int i = 0; i < n; i++) {
             specs[i] = synthetic.next();
-            curves[i] = measuredWithLimits(specs[i], random);
+            curves[i] = measuredWithLimits(specs[i], random, limitScale);
             int material = i / 3;
             builder.add(i + 1L, new StoredMaterial(material + 1L, "limit-bound sheet " + material, "plastic sheet"),
                     specs[i].thicknessMm(), material % 3 != 2, false, SyntheticCurves.INDICES[specs[i].index()], curves[i]);
         }
-        SpectralStore store = builder.build();
+        return new Library(builder.build(), specs, curves);
+    }
 
+    /**
+     * The pick with its hand-over equals judging every sample, at limits 1 to 40; returns {rows with a clause on a
+     * detection-limit bound, materials handed over}.
+     */
+    private static int[] compareWithEverySample(Library library, Requirement requirement) {
+        SpectralStore store = library.store();
+        SyntheticCurves.Spec[] specs = library.specs();
+        Curve[] curves = library.curves();
         int boundedRows = 0;
         int handedOver = 0;
-        for (int trial = 0; trial < 24; trial++) {
-            Requirement requirement = RequirementParser.parse(edgeClauses(random)
-                    + THICKNESSES[trial % THICKNESSES.length]);
+        {
             List<MaterialEvaluation> everySample = new ArrayList<>();
             for (int m = 0; m < store.curvesByMaterial().length; m++) {
                 everySample.addAll(judgeMeasured(store, specs, curves, m, requirement));
@@ -137,18 +191,23 @@ class StorePickEqualsExactJudgementTest {
                         .anyMatch(c -> c.valueIsBound())).count();
             }
         }
-        assertThat(boundedRows).as("rows with a clause judged on a reading under the detection limit").isGreaterThan(100);
-        assertThat(handedOver).as("materials handed over beyond the hits").isPositive();
+        return new int[] {boundedRows, handedOver};
     }
 
     /** A pass above or a block below the synthetic edges (220 to 480 nm), at a point or over a band; one or two. */
-    private static String edgeClauses(java.util.Random random) {
-        String clauses = edgeClause(random);
-        return random.nextBoolean() ? clauses + " and " + edgeClause(random) : clauses;
+    private static String edgeClauses(java.util.Random random, boolean dense) {
+        String clauses = edgeClause(random, dense);
+        return random.nextBoolean() ? clauses + " and " + edgeClause(random, dense) : clauses;
     }
 
-    private static String edgeClause(java.util.Random random) {
+    /** With {@code dense}, blocks ask for OD 5 to 9 (a laser-safety kind of figure, common practice, no source). */
+    private static String edgeClause(java.util.Random random, boolean dense) {
         int nm = 250 + 10 * random.nextInt(28);
+        if (dense && random.nextBoolean()) {
+            return random.nextBoolean()
+                    ? String.format(java.util.Locale.ROOT, "blocks OD %.2f at %d nm", 5 + 4 * random.nextDouble(), nm)
+                    : String.format(java.util.Locale.ROOT, "blocks OD %.2f from %d to %d nm", 5 + 4 * random.nextDouble(), nm, nm + 20);
+        }
         return switch (random.nextInt(4)) {
             case 0 -> String.format(java.util.Locale.ROOT, "passes over %.2f%% at %d nm", 30 + 60 * random.nextDouble(), nm);
             case 1 -> String.format(java.util.Locale.ROOT, "blocks under %.2f%% at %d nm", Math.pow(10, 1 - 3 * random.nextDouble()), nm);
@@ -158,8 +217,11 @@ class StorePickEqualsExactJudgementTest {
         };
     }
 
-    /** The sample read every 2.7 nm from 188.6 nm, each point with its own detection limit (the floor, ×0.5 to ×5). */
-    private static Curve measuredWithLimits(SyntheticCurves.Spec spec, java.util.Random random) {
+    /**
+     * The sample read every 2.7 nm from 188.6 nm, each point with its own detection limit (the floor × {@code scale},
+     * ×0.5 to ×5).
+     */
+    private static Curve measuredWithLimits(SyntheticCurves.Spec spec, java.util.Random random, double scale) {
         int count = (int) ((1102 - 188.6) / 2.7) + 1;
         double[] nm = new double[count];
         double[] t = new double[count];
@@ -168,7 +230,7 @@ class StorePickEqualsExactJudgementTest {
         for (int k = 0; k < count; k++) {
             nm[k] = 188.6 + 2.7 * k;
             t[k] = SyntheticCurves.transmittance(spec, nm[k]);
-            limits[k] = spec.floor() * (0.5 + 4.5 * random.nextDouble());
+            limits[k] = spec.floor() * scale * (0.5 + 4.5 * random.nextDouble());
             below[k] = t[k] <= limits[k];
         }
         return Curve.of(nm, t, below, limits);
