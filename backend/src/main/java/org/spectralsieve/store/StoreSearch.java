@@ -127,7 +127,9 @@ public final class StoreSearch {
      * sample. A pass over such a reading is safe: the store's margin is then above the exact one.
      */
     public static boolean blocksAtTheCodeCeiling(SpectralStore store, Requirement requirement) {
-        for (CompiledClause clause : Plan.of(store, requirement, false, PARALLEL_MIN_CURVES).clauses) {
+        // the clauses alone, not a Plan: a plan allocates per-curve span slots for a thickness search
+        for (Clause c : requirement.clauses()) {
+            CompiledClause clause = CompiledClause.compile(store, c);
             List<Probe> probes = clause.probes();
             List<Probe> blocking = switch (clause.kind()) {
                 case EVERY_POINT_BLOCK, MEAN_BLOCK -> probes;
