@@ -294,9 +294,11 @@ public class SearchService {
         // a confidence demand can make a wide margin unverified: the store's margins cannot pick those rows; a
         // mean over a band, or a reading between grid wavelengths, the store takes on its grid and the exact
         // evaluator on the curve's own points, with no bound on the difference, so the store cannot pick those
-        // rows either (docs/store.md, "The store's error at the cut")
+        // rows either; nor a block over readings held at the store's OD ceiling (docs/store.md, "The store's error at
+        // the cut")
         if (!requirement.plain() || requirement.asksConfidence() || hasMeanClause(requirement)
-                || StoreSearch.readsBetweenGridPoints(s.store(), requirement)) {
+                || StoreSearch.readsBetweenGridPoints(s.store(), requirement)
+                || StoreSearch.blocksAtTheCodeCeiling(s.store(), requirement)) {
             return searchExactly(s, requirement, limit, started, m -> true);
         }
         StoreResult picked = StoreSearch.search(s.store(), requirement, limit);

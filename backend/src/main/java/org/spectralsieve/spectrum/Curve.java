@@ -269,6 +269,37 @@ public final class Curve implements PointReadings {
     }
 
     /**
+     * The number a verdict judges at {@code nm}: where the reading is below detection ({@link #belowDetectionAt}),
+     * the bound on the true T, else the value. A point's bound is the larger of its value and its limit; between
+     * points the neighbours' bounds (a neighbour above detection giving its value) are interpolated in absorbance
+     * as {@link #transmittanceAt} interpolates values, which bounds the interpolated true T because the
+     * interpolation rises with each end. The same reading as the exact judgement's ({@code requirement.CurveView}).
+     * Empty outside the measured range.
+     */
+    public OptionalDouble judgedTransmittanceAt(double nm) {
+        if (!covers(nm)) {
+            return OptionalDouble.empty();
+        }
+        int hit = Arrays.binarySearch(wavelengthsNm, nm);
+        if (hit >= 0) {
+            return OptionalDouble.of(judged(hit));
+        }
+        int upper = -hit - 1;
+        int lower = upper - 1;
+        if (!belowDetection[lower] && !belowDetection[upper]) {
+            return OptionalDouble.of(interpolated(lower, upper, fraction(nm, lower, upper)));
+        }
+        double f = fraction(nm, lower, upper);
+        double a = absorbance(judged(lower)) * (1 - f) + absorbance(judged(upper)) * f;
+        return OptionalDouble.of(Math.pow(10.0, -a));
+    }
+
+    /** Point i's judged number: its bound (the larger of value and limit) when below detection, else its value. */
+    private double judged(int i) {
+        return belowDetection[i] ? Math.max(transmittance[i], detectionLimits[i]) : transmittance[i];
+    }
+
+    /**
      * True if the point at {@code nm}, or either neighbour of an interpolated value, is below detection:
      * a value interpolated towards an upper bound is itself only a bound. False outside the range.
      */

@@ -16,7 +16,10 @@ import org.spectralsieve.store.StoreSearch.Keys;
  * term, which the store's straight-line thickness model leaves out. The service judges the store's first picks
  * exactly; the {@code limit}-th exact row is then a floor no material left out may reach. A material is left
  * out only when none of its results, raised by its error, reaches that floor. Only this upper side of the error
- * matters: the floor itself is an exact result, not an estimate.
+ * matters: the floor itself is an exact result, not an estimate. The claim needs the store's readings to be the
+ * exact evaluator's judged numbers: a reading under the detection limit is held as its bound
+ * ({@code SpectralStore.Builder.add}), and a block over a reading held at the code's ceiling is not picked by the store
+ * at all ({@link StoreSearch#blocksAtTheCodeCeiling}).
  */
 final class CutReach {
 

@@ -14,9 +14,9 @@ import org.spectralsieve.store.StoreSearch.Keys;
  * ({@link CutReach#raised}, {@link CutReach#errorOf}): the same per-curve claim the hand-over at the cut already
  * rests on (a material is left out there only when none of its curves, so raised, reaches the exact row), applied
  * to the curves of one material instead of to whole materials. A curve the store does not judge under the
- * requirement (not admitted, no span) has no bound: {@link #NONE}; nor has one whose store result rests on a
- * detection-limit bound or is unverified (see {@link #ceiling}): only results that meet, miss on a value, or are
- * not judged are taken as bounds.
+ * requirement (not admitted, no span) has no bound: {@link #NONE}. Results on detection-limit bounds (bounded
+ * misses, unverified results) are bounds like the rest since the store holds a reading under the limit as the
+ * bound the exact judgement reads (docs/store.md, "The store's error at the cut").
  *
  * <p>One per search ({@link StoreResult#sampleReach()}), used from one thread: its curve model is reused.
  */
@@ -57,12 +57,6 @@ public final class SampleReach {
             reach = CutReach.of(store, plan);
         }
         StoreSearch.Evaluation stored = model.load(curve).best();
-        if (stored.standing() == Standing.UNVERIFIED || stored.standing() == Standing.MISSES_ON_BOUND) {
-            // a reading below the detection limit is held as its own stored value, while the exact judgement reads
-            // the limit: the store's margin there can lie decades below the exact one (a bounded miss at −6.1
-            // judged exactly a plain miss at −3.1, BestSampleFirstPropertyTest), so it bounds nothing
-            return NONE;
-        }
         return CutReach.raised(stored.key(), reach.errorOf(curve));
     }
 

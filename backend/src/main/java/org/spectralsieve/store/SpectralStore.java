@@ -21,6 +21,8 @@ public final class SpectralStore {
     private final WavelengthGrid grid;
     private final double[] gridNm;
     private final short[][] columns;
+    /** Per grid wavelength: whether some curve's code there is the code's ceiling (a reading at least that dark). */
+    private final boolean[] atCeiling;
     private final int size;
     private final long[] sampleIds;
     private final int[] materialOfCurve;
@@ -42,6 +44,7 @@ public final class SpectralStore {
         for (int w = 0; w < gridNm.length; w++) {
             columns[w] = trimmed(b.columns[w], size);
         }
+        this.atCeiling = b.atCeiling;
         this.sampleIds = b.sampleIds.length == size ? b.sampleIds : Arrays.copyOf(b.sampleIds, size);
         this.materialOfCurve = b.materialOfCurve.length == size ? b.materialOfCurve : Arrays.copyOf(b.materialOfCurve, size);
         this.thicknessMm = b.thicknessMm.length == size ? b.thicknessMm : Arrays.copyOf(b.thicknessMm, size);
@@ -189,6 +192,15 @@ public final class SpectralStore {
         return gridNm.length;
     }
 
+    /**
+     * Whether some curve's reading at grid wavelength w is held at the code's ceiling ({@link OdCode#MAX_LEVEL}, OD
+     * 6.55): there the store knows only that the judged reading is at least that dark, so a block judged on it may
+     * have any larger exact margin (docs/store.md, "The store's error at the cut").
+     */
+    boolean anyAtCeiling(int w) {
+        return atCeiling[w];
+    }
+
     /** The column of one grid wavelength: entry i belongs to curve i. Not copied: searches read it in place. */
     short[] column(int w) {
         return columns[w];
@@ -263,6 +275,7 @@ public final class SpectralStore {
         private final List<RefractiveIndex> indexModels = new ArrayList<>();
         private final Map<RefractiveIndex, Integer> indexModelIndex = new HashMap<>();
         private final WeightedScreen.Builder weighted;
+        private final boolean[] atCeiling;
 
         private boolean built;
         /** The pending run of carried rows: {@code runLength} rows from {@code runFrom} of {@code runSource} to {@code runTo}. */
@@ -278,6 +291,7 @@ public final class SpectralStore {
             this.gridNm = grid.points();
             int capacity = Math.max(16, expectedCurves);
             columns = new short[gridNm.length][capacity];
+            atCeiling = new boolean[gridNm.length];
             sampleIds = new long[capacity];
             materialOfCurve = new int[capacity];
             thicknessMm = new float[capacity];
@@ -287,15 +301,26 @@ public final class SpectralStore {
             weighted = WeightedScreen.builder(capacity);
         }
 
-        /** Adds one sample's curve; grid points outside its measured range are stored as not measured. */
+        /**
+         * Adds one sample's curve; grid points outside its measured range are stored as not measured. A reading below
+         * the detection limit is stored as the bound the exact judgement reads there (at least the limit,
+         * {@link Curve#judgedTransmittanceAt}), flagged: were it stored as the curve's own number (which can lie
+         * decades below the limit), a pass judged on it would miss in the store by decades more than exactly, and the
+         * store's margin would bound nothing (docs/store.md, "The store's error at the cut").
+         */
         public Builder add(long sampleId, StoredMaterial material, double thicknessMm, boolean bulk,
                            boolean totalGeometry, RefractiveIndex index, Curve curve) {
             int i = nextSlot();
             for (int w = 0; w < gridNm.length; w++) {
                 double nm = gridNm[w];
-                columns[w][i] = curve.covers(nm)
-                        ? OdCode.encode(curve.transmittanceAt(nm).getAsDouble(), curve.belowDetectionAt(nm))
-                        : OdCode.NOT_MEASURED;
+                if (!curve.covers(nm)) {
+                    columns[w][i] = OdCode.NOT_MEASURED;
+                } else if (curve.belowDetectionAt(nm)) {
+                    columns[w][i] = OdCode.encode(curve.judgedTransmittanceAt(nm).getAsDouble(), true);
+                } else {
+                    columns[w][i] = OdCode.encode(curve.transmittanceAt(nm).getAsDouble(), false);
+                }
+                noteCeiling(w, columns[w][i]);
             }
             weighted.add(i, curve);
             record(i, sampleId, material, thicknessMm, bulk, totalGeometry, index);
@@ -311,6 +336,7 @@ public final class SpectralStore {
             int i = nextSlot();
             for (int w = 0; w < gridNm.length; w++) {
                 columns[w][i] = codesOnGrid[w];
+                noteCeiling(w, codesOnGrid[w]);
             }
             weighted.unknown(i);
             record(i, sampleId, material, thicknessMm, bulk, totalGeometry, index);
@@ -350,11 +376,18 @@ public final class SpectralStore {
             return this;
         }
 
+        private void noteCeiling(int w, short code) {
+            if (OdCode.isMeasured(code) && OdCode.level(code) == OdCode.MAX_LEVEL) {
+                atCeiling[w] = true;
+            }
+        }
+
         /** Copies the pending run of carried rows into the columns: one array copy per grid wavelength. */
         private void flushRun() {
             if (runLength > 0) {
                 for (int w = 0; w < columns.length; w++) {
                     System.arraycopy(runSource.columns[w], runFrom, columns[w], runTo, runLength);
+                    atCeiling[w] |= runSource.atCeiling[w]; // the run's own rows may not be, but never less
                 }
             }
             runSource = null;

@@ -121,6 +121,32 @@ public final class StoreSearch {
         return false;
     }
 
+    /**
+     * Whether a block (an every-point block, or a cutoff's blocking edge) reads a grid wavelength where some curve is
+     * held at the code's ceiling (OD 6.55, {@link SpectralStore#anyAtCeiling}). The store's OD there is only a lower
+     * bound on the judged one, so its block margin can lie any distance below the exact margin, the opposite of what
+     * the cut needs (docs/store.md, "The store's error at the cut"): the service judges such requirements on every
+     * sample. A pass over such a reading is safe: the store's margin is then above the exact one.
+     */
+    public static boolean blocksAtTheCodeCeiling(SpectralStore store, Requirement requirement) {
+        // the clauses alone, not a Plan: a plan allocates per-curve span slots for a thickness search
+        for (Clause c : requirement.clauses()) {
+            CompiledClause clause = CompiledClause.compile(store, c);
+            List<Probe> probes = clause.probes();
+            List<Probe> blocking = switch (clause.kind()) {
+                case EVERY_POINT_BLOCK, MEAN_BLOCK -> probes;
+                case CUTOFF -> probes.subList(0, 1);
+                default -> List.of();
+            };
+            for (Probe probe : blocking) {
+                if (probe.onGrid() && (store.anyAtCeiling(probe.lo()) || store.anyAtCeiling(probe.hi()))) {
+                    return true;
+                }
+            }
+        }
+        return false;
+    }
+
     public static StoreResult search(SpectralStore store, Requirement requirement, int limit) {
         if (limit < 1) {
             throw new IllegalArgumentException("limit must be at least 1, got " + limit);
