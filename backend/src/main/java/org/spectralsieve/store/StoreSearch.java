@@ -1137,7 +1137,10 @@ public final class StoreSearch {
             int from = table.start()[m];
             int to = table.start()[m + 1];
             int[] curves = table.curves();
-            ThicknessInterval[] own = spansOfCurves(spanStore, curves, from, to, table.made()[m]);
+            ThicknessInterval[] own = spansOverRangeAllAdmitted(spanStore, curves, from, to, table.made()[m]);
+            if (own == null) {
+                own = spansOfCurves(spanStore, curves, from, to, table.made()[m]);
+            }
             ThicknessInterval known = null;
             for (int i = from; i < to; i++) {
                 ThicknessInterval span = own[i - from] == null ? NOT_JUDGED_SPAN : own[i - from];
@@ -1147,6 +1150,50 @@ public final class StoreSearch {
                 }
             }
             return known;
+        }
+
+        /**
+         * Over a range with no filter, the spans of {@link #spansOfCurves} ({@link MaterialJudge#spans}, then
+         * {@link #judgedRange}) worked out in one loop: the same rule on the same doubles, but the made thicknesses
+         * inside the range are asked once per material (a pure function of the range) rather than twice per curve,
+         * and no intermediate arrays or intervals are made. About twenty small objects per material were most of
+         * the spans' time at a million curves. Null where this does not apply, and the general path runs: a
+         * filter, a curve of unknown thickness, or no curve speaking inside the range (MaterialJudge then names
+         * the nearest samples).
+         */
+        private ThicknessInterval[] spansOverRangeAllAdmitted(SpectralStore store, int[] curves, int from, int to,
+                                                              MadeThicknesses made) {
+            if (thickness.kind() != ThicknessSpec.Kind.RANGE || totalGeometry != null || materialClass != null) {
+                return null;
+            }
+            int length = to - from;
+            double[] known = new double[length];
+            for (int i = 0; i < length; i++) {
+                known[i] = store.thicknessMm(curves[from + i]);
+                if (Double.isNaN(known[i])) {
+                    return null;
+                }
+            }
+            double min = thickness.minMm();
+            double max = thickness.maxMm();
+            boolean bulk = store.isBulk(curves[from]);
+            ThicknessInterval inMade = made.within(min, max);
+            ThicknessInterval[] out = new ThicknessInterval[length];
+            boolean any = false;
+            for (int i = 0; i < length; i++) {
+                ThicknessInterval span = MaterialJudge.span(known[i], known);
+                double lo = inMade == null ? Double.NaN : Math.max(inMade.loMm(), span.loMm());
+                double hi = inMade == null ? Double.NaN : Math.min(inMade.hiMm(), span.hiMm());
+                boolean speaks = bulk
+                        ? inMade != null && lo <= hi && (made.continuous() || !made.stockWithin(lo, hi).isEmpty())
+                        : NominalThickness.within(known[i], min, max);
+                if (speaks) {
+                    // judgedRange: the span cut to the range's made part, the span itself when that is empty
+                    out[i] = inMade != null && lo <= hi ? new ThicknessInterval(lo, hi) : span;
+                    any = true;
+                }
+            }
+            return any ? out : null;
         }
 
         /** As {@link #spanOfMaterialFromTable}, by the material's curve array and object (the sixth pass's way). */
