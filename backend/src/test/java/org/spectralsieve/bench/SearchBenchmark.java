@@ -185,11 +185,13 @@ class SearchBenchmark {
      * the column-first pass as it was before its block screen ({@code variant=gathered},
      * {@link StoreSearch#searchGatheringOtherColumns}: as measured, the other columns gathered per kept curve)
      * the column-first pass over a range without its screen by levels ({@code variant=no-range-screen},
-     * {@link StoreSearch#searchWithoutRangeScreen}: every curve's exact caps) and the default path
+     * {@link StoreSearch#searchWithoutRangeScreen}: every curve's exact caps), the spans worked out from each
+     * material's curve array and object ({@code variant=spans-by-objects},
+     * {@link StoreSearch#searchWithSpansByMaterialObjects}: the sixth pass) and the default path
      * ({@code variant=after}), run in turn in one loop so all see the same load.
      */
     private static void compareScans(SpectralStore store, Requirement requirement, int limit, int runs, String mode) {
-        String[] variants = {"before", "chunks", "gathered", "no-range-screen", "after"};
+        String[] variants = {"before", "chunks", "gathered", "no-range-screen", "spans-by-objects", "after"};
         for (int i = 0; i < 3; i++) {
             for (String variant : variants) {
                 scan(variant, store, requirement, limit);
@@ -197,7 +199,9 @@ class SearchBenchmark {
         }
         double[][] ms = new double[variants.length][runs];
         for (int i = 0; i < runs; i++) {
-            for (int v = 0; v < variants.length; v++) {
+            for (int turn = 0; turn < variants.length; turn++) {
+                // the last two (the sixth pass's spans and the default) swap places every other iteration
+                int v = i % 2 == 1 && turn >= variants.length - 2 ? 2 * variants.length - 3 - turn : turn;
                 long t0 = System.nanoTime();
                 scan(variants[v], store, requirement, limit);
                 ms[v][i] = (System.nanoTime() - t0) / 1e6;
@@ -215,6 +219,7 @@ class SearchBenchmark {
             case "chunks" -> StoreSearch.searchByChunks(store, requirement, limit);
             case "gathered" -> StoreSearch.searchGatheringOtherColumns(store, requirement, limit);
             case "no-range-screen" -> StoreSearch.searchWithoutRangeScreen(store, requirement, limit);
+            case "spans-by-objects" -> StoreSearch.searchWithSpansByMaterialObjects(store, requirement, limit);
             default -> StoreSearch.search(store, requirement, limit);
         };
     }
