@@ -1137,6 +1137,13 @@ public final class StoreSearch {
             int from = table.start()[m];
             int to = table.start()[m + 1];
             int[] curves = table.curves();
+            ThicknessInterval alone = speakingSpanOverRangeAllAdmitted(spanStore, curves, from, to, table.made()[m],
+                    curve);
+            if (alone != null) {
+                // it speaks, so its span is settled whatever its material's other curves say; theirs wait until asked
+                spansOnDemand[curve] = alone;
+                return alone;
+            }
             ThicknessInterval[] own = spansOverRangeAllAdmitted(spanStore, curves, from, to, table.made()[m]);
             if (own == null) {
                 own = spansOfCurves(spanStore, curves, from, to, table.made()[m]);
@@ -1181,19 +1188,55 @@ public final class StoreSearch {
             ThicknessInterval[] out = new ThicknessInterval[length];
             boolean any = false;
             for (int i = 0; i < length; i++) {
-                ThicknessInterval span = MaterialJudge.span(known[i], known);
-                double lo = inMade == null ? Double.NaN : Math.max(inMade.loMm(), span.loMm());
-                double hi = inMade == null ? Double.NaN : Math.min(inMade.hiMm(), span.hiMm());
-                boolean speaks = bulk
-                        ? inMade != null && lo <= hi && (made.continuous() || !made.stockWithin(lo, hi).isEmpty())
-                        : NominalThickness.within(known[i], min, max);
-                if (speaks) {
-                    // judgedRange: the span cut to the range's made part, the span itself when that is empty
-                    out[i] = inMade != null && lo <= hi ? new ThicknessInterval(lo, hi) : span;
-                    any = true;
-                }
+                out[i] = speakingSpan(known, i, bulk, made, inMade, min, max);
+                any |= out[i] != null;
             }
             return any ? out : null;
+        }
+
+        /**
+         * As {@link #spansOverRangeAllAdmitted}, for one curve of the material: its judged span when it speaks
+         * inside the range (then nothing the other curves say changes it), null when it does not or the fast path
+         * does not apply (the whole material is then worked out).
+         */
+        private ThicknessInterval speakingSpanOverRangeAllAdmitted(SpectralStore store, int[] curves, int from, int to,
+                                                                   MadeThicknesses made, int curve) {
+            if (thickness.kind() != ThicknessSpec.Kind.RANGE || totalGeometry != null || materialClass != null) {
+                return null;
+            }
+            int length = to - from;
+            double[] known = new double[length];
+            int self = -1;
+            for (int i = 0; i < length; i++) {
+                known[i] = store.thicknessMm(curves[from + i]);
+                if (Double.isNaN(known[i])) {
+                    return null;
+                }
+                self = curves[from + i] == curve ? i : self;
+            }
+            double min = thickness.minMm();
+            double max = thickness.maxMm();
+            return speakingSpan(known, self, store.isBulk(curves[from]), made, made.within(min, max), min, max);
+        }
+
+        /**
+         * {@link MaterialJudge#spans}' rule for the sample of thickness {@code known[i]} over the asked range (the
+         * material's made part of it {@code inMade}), then {@link #judgedRange}: its judged span, null when it
+         * does not speak inside the range.
+         */
+        private static ThicknessInterval speakingSpan(double[] known, int i, boolean bulk, MadeThicknesses made,
+                                                      ThicknessInterval inMade, double min, double max) {
+            ThicknessInterval span = MaterialJudge.span(known[i], known);
+            double lo = inMade == null ? Double.NaN : Math.max(inMade.loMm(), span.loMm());
+            double hi = inMade == null ? Double.NaN : Math.min(inMade.hiMm(), span.hiMm());
+            boolean speaks = bulk
+                    ? inMade != null && lo <= hi && (made.continuous() || !made.stockWithin(lo, hi).isEmpty())
+                    : NominalThickness.within(known[i], min, max);
+            if (!speaks) {
+                return null;
+            }
+            // judgedRange: the span cut to the range's made part, the span itself when that is empty
+            return inMade != null && lo <= hi ? new ThicknessInterval(lo, hi) : span;
         }
 
         /** As {@link #spanOfMaterialFromTable}, by the material's curve array and object (the sixth pass's way). */
