@@ -994,9 +994,9 @@ public final class StoreSearch {
          */
         ThicknessInterval[] spans;
         /**
-         * Spans worked out on demand, material by material, for the curves a column-first pass reads
-         * ({@link ColumnFirstScan}): at a million curves the spans of every curve cost more than the rest of
-         * that pass. Used while {@link #spans} is null and the thickness is asked; a curve not judged holds
+         * Spans worked out on demand, material by material (over a range a curve that speaks alone), for the
+         * curves a column-first pass reads ({@link ColumnFirstScan}): at a million curves the spans of every curve
+         * cost more than the rest of that pass. Used while {@link #spans} is null and the thickness is asked; a curve not judged holds
          * {@link #NOT_JUDGED_SPAN}, one not yet worked out null. An array by curve, not a map: at a million
          * curves the map's boxing and growth were half of a thickness-solved column-first pass (JFR profile,
          * docs/store-scan.md). The halves of a column-first pass fill it from two threads: both may work out a
