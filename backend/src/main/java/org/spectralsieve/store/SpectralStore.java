@@ -122,6 +122,22 @@ public final class SpectralStore {
     private volatile int[][] byMaterial;
 
     /**
+     * Each material's curves in one flat array, and its made thicknesses, by material index: what a search over a
+     * thickness works a material's spans out from ({@code StoreSearch.Plan.spanOf}). The same curves, in the
+     * same order, as {@link #curvesByMaterial}; built once per store on first use.
+     */
+    MaterialTable materialTable() {
+        MaterialTable cached = materialTable;
+        if (cached == null) {
+            cached = MaterialTable.of(materialOfCurve, size, materials);
+            materialTable = cached;
+        }
+        return cached;
+    }
+
+    private volatile MaterialTable materialTable;
+
+    /**
      * The thinnest thickness of any bulk curve (+∞ when there is none): how far the store's thickness model can
      * stretch a reading, which scales its error ({@link CutReach}). Worked out once per store.
      */

@@ -205,6 +205,31 @@ public final class StoreSearch {
         return search(store, requirement, limit, PARALLEL_MIN_CURVES, COLUMN_FIRST_MIN_CURVES, false);
     }
 
+    /**
+     * The search with the spans worked out on demand as the sixth pass did, from each material's curve array and
+     * object rather than the store's flat {@link MaterialTable}. For {@code SearchBenchmark}'s side-by-side rows
+     * only; same answers.
+     */
+    public static StoreResult searchWithSpansByMaterialObjects(SpectralStore store, Requirement requirement, int limit) {
+        return search(store, requirement, limit, PARALLEL_MIN_CURVES, COLUMN_FIRST_MIN_CURVES, true, false);
+    }
+
+    /**
+     * As {@link #search(SpectralStore, Requirement, int, int, int, boolean)}, the spans from the store's flat table
+     * or from the material objects ({@code spansByTable}).
+     */
+    static StoreResult search(SpectralStore store, Requirement requirement, int limit, int parallelMinCurves,
+                              int columnFirstMinCurves, boolean screenByLevels, boolean spansByTable) {
+        if (limit < 1) {
+            throw new IllegalArgumentException("limit must be at least 1, got " + limit);
+        }
+        StoreSearch search = new StoreSearch(store, requirement, false, parallelMinCurves);
+        search.plan.columnFirstMinCurves = columnFirstMinCurves;
+        search.screenByLevels = screenByLevels;
+        search.plan.spansByTable = spansByTable;
+        return search.run(limit, false);
+    }
+
     /** As {@link #search(SpectralStore, Requirement, int, int, int)}, with or without the screen by levels over a range. */
     static StoreResult search(SpectralStore store, Requirement requirement, int limit, int parallelMinCurves,
                               int columnFirstMinCurves, boolean screenByLevels) {
@@ -969,9 +994,9 @@ public final class StoreSearch {
          */
         ThicknessInterval[] spans;
         /**
-         * Spans worked out on demand, material by material, for the curves a column-first pass reads
-         * ({@link ColumnFirstScan}): at a million curves the spans of every curve cost more than the rest of
-         * that pass. Used while {@link #spans} is null and the thickness is asked; a curve not judged holds
+         * Spans worked out on demand, material by material (over a range a curve that speaks alone), for the
+         * curves a column-first pass reads ({@link ColumnFirstScan}): at a million curves the spans of every curve
+         * cost more than the rest of that pass. Used while {@link #spans} is null and the thickness is asked; a curve not judged holds
          * {@link #NOT_JUDGED_SPAN}, one not yet worked out null. An array by curve, not a map: at a million
          * curves the map's boxing and growth were half of a thickness-solved column-first pass (JFR profile,
          * docs/store-scan.md). The halves of a column-first pass fill it from two threads: both may work out a
@@ -981,6 +1006,12 @@ public final class StoreSearch {
         private ThicknessInterval[] spansOnDemand;
         private static final ThicknessInterval NOT_JUDGED_SPAN = new ThicknessInterval(1, 1); // compared by identity
         private SpectralStore spanStore;
+        /**
+         * Spans on demand from the store's flat {@link MaterialTable} (true) or, as the sixth pass did, from each
+         * material's curve array and object (false: {@code SearchBenchmark}'s side by side only; same spans).
+         */
+        boolean spansByTable = true;
+        private MaterialTable materialTable;
         final double[][] pointProbeUnresolvedOd;
         /** Whether this plan serves the reference path (the earlier scan, kept for comparison). */
         boolean reference;
@@ -1086,17 +1117,141 @@ public final class StoreSearch {
             }
             ThicknessInterval known = spansOnDemand[curve];
             if (known == null) {
-                int[] curves = spanStore.curvesByMaterial()[spanStore.materialIndex(curve)];
-                ThicknessInterval[] own = spansOfCurves(spanStore, curves);
-                for (int i = 0; i < curves.length; i++) {
-                    ThicknessInterval span = own[i] == null ? NOT_JUDGED_SPAN : own[i];
-                    spansOnDemand[curves[i]] = span;
-                    if (curves[i] == curve) {
-                        known = span;
-                    }
-                }
+                known = spansByTable ? spanOfMaterialFromTable(curve) : spanOfMaterialFromObjects(curve);
             }
             return known == NOT_JUDGED_SPAN ? null : known;
+        }
+
+        /**
+         * Works out the spans of the curve's material from the store's flat {@link MaterialTable} and records
+         * them; the curve's own (or {@link #NOT_JUDGED_SPAN}). The same spans as
+         * {@link #spanOfMaterialFromObjects}: the same curves in the same order, the same made thicknesses.
+         */
+        private ThicknessInterval spanOfMaterialFromTable(int curve) {
+            MaterialTable table = materialTable;
+            if (table == null) {
+                table = spanStore.materialTable();
+                materialTable = table; // the halves of a pass may both fetch it: the store's one table either way
+            }
+            int m = spanStore.materialIndex(curve);
+            int from = table.start()[m];
+            int to = table.start()[m + 1];
+            int[] curves = table.curves();
+            ThicknessInterval alone = speakingSpanOverRangeAllAdmitted(spanStore, curves, from, to, table.made()[m],
+                    curve);
+            if (alone != null) {
+                // it speaks, so its span is settled whatever its material's other curves say; theirs wait until asked
+                spansOnDemand[curve] = alone;
+                return alone;
+            }
+            ThicknessInterval[] own = spansOverRangeAllAdmitted(spanStore, curves, from, to, table.made()[m]);
+            if (own == null) {
+                own = spansOfCurves(spanStore, curves, from, to, table.made()[m]);
+            }
+            ThicknessInterval known = null;
+            for (int i = from; i < to; i++) {
+                ThicknessInterval span = own[i - from] == null ? NOT_JUDGED_SPAN : own[i - from];
+                spansOnDemand[curves[i]] = span;
+                if (curves[i] == curve) {
+                    known = span;
+                }
+            }
+            return known;
+        }
+
+        /**
+         * Over a range with no filter, the spans of {@link #spansOfCurves} ({@link MaterialJudge#spans}, then
+         * {@link #judgedRange}) worked out in one loop: the same rule on the same doubles, but the made thicknesses
+         * inside the range are asked once per material (a pure function of the range) rather than twice per curve,
+         * and no intermediate arrays or intervals are made. About twenty small objects per material were most of
+         * the spans' time at a million curves. Null where this does not apply, and the general path runs: a
+         * filter, a curve of unknown thickness, or no curve speaking inside the range (MaterialJudge then names
+         * the nearest samples).
+         */
+        private ThicknessInterval[] spansOverRangeAllAdmitted(SpectralStore store, int[] curves, int from, int to,
+                                                              MadeThicknesses made) {
+            if (thickness.kind() != ThicknessSpec.Kind.RANGE || totalGeometry != null || materialClass != null) {
+                return null;
+            }
+            int length = to - from;
+            double[] known = new double[length];
+            for (int i = 0; i < length; i++) {
+                known[i] = store.thicknessMm(curves[from + i]);
+                if (Double.isNaN(known[i])) {
+                    return null;
+                }
+            }
+            double min = thickness.minMm();
+            double max = thickness.maxMm();
+            boolean bulk = store.isBulk(curves[from]);
+            ThicknessInterval inMade = made.within(min, max);
+            ThicknessInterval[] out = new ThicknessInterval[length];
+            boolean any = false;
+            for (int i = 0; i < length; i++) {
+                out[i] = speakingSpan(known, i, bulk, made, inMade, min, max);
+                any |= out[i] != null;
+            }
+            return any ? out : null;
+        }
+
+        /**
+         * As {@link #spansOverRangeAllAdmitted}, for one curve of the material: its judged span when it speaks
+         * inside the range (then nothing the other curves say changes it), null when it does not or the fast path
+         * does not apply (the whole material is then worked out).
+         */
+        private ThicknessInterval speakingSpanOverRangeAllAdmitted(SpectralStore store, int[] curves, int from, int to,
+                                                                   MadeThicknesses made, int curve) {
+            if (thickness.kind() != ThicknessSpec.Kind.RANGE || totalGeometry != null || materialClass != null) {
+                return null;
+            }
+            int length = to - from;
+            double[] known = new double[length];
+            int self = -1;
+            for (int i = 0; i < length; i++) {
+                known[i] = store.thicknessMm(curves[from + i]);
+                if (Double.isNaN(known[i])) {
+                    return null;
+                }
+                self = curves[from + i] == curve ? i : self;
+            }
+            double min = thickness.minMm();
+            double max = thickness.maxMm();
+            return speakingSpan(known, self, store.isBulk(curves[from]), made, made.within(min, max), min, max);
+        }
+
+        /**
+         * {@link MaterialJudge#spans}' rule for the sample of thickness {@code known[i]} over the asked range (the
+         * material's made part of it {@code inMade}), then {@link #judgedRange}: its judged span, null when it
+         * does not speak inside the range.
+         */
+        private static ThicknessInterval speakingSpan(double[] known, int i, boolean bulk, MadeThicknesses made,
+                                                      ThicknessInterval inMade, double min, double max) {
+            ThicknessInterval span = MaterialJudge.span(known[i], known);
+            double lo = inMade == null ? Double.NaN : Math.max(inMade.loMm(), span.loMm());
+            double hi = inMade == null ? Double.NaN : Math.min(inMade.hiMm(), span.hiMm());
+            boolean speaks = bulk
+                    ? inMade != null && lo <= hi && (made.continuous() || !made.stockWithin(lo, hi).isEmpty())
+                    : NominalThickness.within(known[i], min, max);
+            if (!speaks) {
+                return null;
+            }
+            // judgedRange: the span cut to the range's made part, the span itself when that is empty
+            return inMade != null && lo <= hi ? new ThicknessInterval(lo, hi) : span;
+        }
+
+        /** As {@link #spanOfMaterialFromTable}, by the material's curve array and object (the sixth pass's way). */
+        private ThicknessInterval spanOfMaterialFromObjects(int curve) {
+            int[] curves = spanStore.curvesByMaterial()[spanStore.materialIndex(curve)];
+            ThicknessInterval[] own = spansOfCurves(spanStore, curves);
+            ThicknessInterval known = null;
+            for (int i = 0; i < curves.length; i++) {
+                ThicknessInterval span = own[i] == null ? NOT_JUDGED_SPAN : own[i];
+                spansOnDemand[curves[i]] = span;
+                if (curves[i] == curve) {
+                    known = span;
+                }
+            }
+            return known;
         }
 
         /** The judged span of every curve, material by material among its admitted curves (as {@link MaterialJudge}). */
@@ -1149,14 +1304,25 @@ public final class StoreSearch {
 
         /** The spans of one material's curves, aligned with {@code curves}; null where a curve is not judged. */
         private ThicknessInterval[] spansOfCurves(SpectralStore store, int[] curves) {
-            ThicknessInterval[] out = new ThicknessInterval[curves.length];
+            return curves.length == 0 ? new ThicknessInterval[0]
+                    : spansOfCurves(store, curves, 0, curves.length, store.material(curves[0]).made());
+        }
+
+        /**
+         * The spans of one material's curves {@code curves[from..to)}, aligned with them; null where a curve is
+         * not judged. {@code made}: the material's made thicknesses.
+         */
+        private ThicknessInterval[] spansOfCurves(SpectralStore store, int[] curves, int from, int to,
+                                                  MadeThicknesses made) {
+            int length = to - from;
+            ThicknessInterval[] out = new ThicknessInterval[length];
             int admittedCount = 0;
-            int[] position = new int[curves.length];
-            int[] admitted = new int[curves.length];
-            for (int i = 0; i < curves.length; i++) {
-                if (admits(store, curves[i])) {
+            int[] position = new int[length];
+            int[] admitted = new int[length];
+            for (int i = 0; i < length; i++) {
+                if (admits(store, curves[from + i])) {
                     position[admittedCount] = i;
-                    admitted[admittedCount++] = curves[i];
+                    admitted[admittedCount++] = curves[from + i];
                 }
             }
             if (admittedCount == 0) {
@@ -1166,7 +1332,6 @@ public final class StoreSearch {
             for (int i = 0; i < admittedCount; i++) {
                 mm[i] = store.thicknessMm(admitted[i]);
             }
-            MadeThicknesses made = store.material(admitted[0]).made();
             ThicknessInterval[] spans = MaterialJudge.spans(mm, store.isBulk(admitted[0]), made, thickness);
             for (int i = 0; i < admittedCount; i++) {
                 out[position[i]] = spans[i] == null ? null : judgedRange(spans[i], made);

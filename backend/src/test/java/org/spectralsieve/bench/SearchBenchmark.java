@@ -90,7 +90,10 @@ class SearchBenchmark {
         double[] storeMs = new double[runs];
         double[] noScreenMs = new double[runs];
         double[] noScreenStoreMs = new double[runs];
+        double[] byObjectsMs = new double[runs];
+        double[] byObjectsStoreMs = new double[runs];
         boolean sameRows = true;
+        boolean sameRowsByObjects = true;
         int refined = 0;
         int handedOver = 0;
         for (int i = 0; i < runs; i++) {
@@ -98,6 +101,9 @@ class SearchBenchmark {
             // the same code's figures by a third under load (as measured both variants take the same path)
             StoreResult unscreened = i % 2 == 1 ? withoutRangeScreen(store, requirement, limit, i, noScreenMs,
                     noScreenStoreMs) : null;
+            // the same for the spans from the material objects (seventh pass's side by side), on the other turns
+            StoreResult byObjects = i % 2 == 0 ? spansByMaterialObjects(store, requirement, limit, i, byObjectsMs,
+                    byObjectsStoreMs) : null;
             long t0 = System.nanoTime();
             StoreResult picked = StoreSearch.search(store, requirement, limit);
             long t1 = System.nanoTime();
@@ -114,6 +120,10 @@ class SearchBenchmark {
                 unscreened = withoutRangeScreen(store, requirement, limit, i, noScreenMs, noScreenStoreMs);
             }
             sameRows &= unscreened.hits().equals(picked.hits());
+            if (byObjects == null) {
+                byObjects = spansByMaterialObjects(store, requirement, limit, i, byObjectsMs, byObjectsStoreMs);
+            }
+            sameRowsByObjects &= byObjects.hits().equals(picked.hits());
         }
         // p50/p95: the whole search; store_p50_ms: the store's pick alone; refined: curves evaluated on every probe
         // before the hand-over; handed_over: materials the hand-over added for the exact last row
@@ -133,7 +143,28 @@ class SearchBenchmark {
                         + " store_p50_ms=%s store_p95_ms=%s same_rows=%s%n", store.size(), mode,
                 ms(percentile(ms, 50)), ms(percentile(ms, 95)), ms(percentile(storeMs, 50)),
                 ms(percentile(storeMs, 95)), sameRows);
+        // the whole search (with its hand-over) with the spans from the material objects, alternated with the above
+        System.out.printf("BENCH search-spans curves=%d mode=%s variant=by-objects p50_ms=%s p95_ms=%s"
+                        + " store_p50_ms=%s store_p95_ms=%s same_rows=%s%n", store.size(), mode,
+                ms(percentile(byObjectsMs, 50)), ms(percentile(byObjectsMs, 95)), ms(percentile(byObjectsStoreMs, 50)),
+                ms(percentile(byObjectsStoreMs, 95)), sameRowsByObjects);
+        System.out.printf("BENCH search-spans curves=%d mode=%s variant=by-table p50_ms=%s p95_ms=%s"
+                        + " store_p50_ms=%s store_p95_ms=%s same_rows=%s%n", store.size(), mode,
+                ms(percentile(ms, 50)), ms(percentile(ms, 95)), ms(percentile(storeMs, 50)),
+                ms(percentile(storeMs, 95)), sameRowsByObjects);
         return percentile(ms, 50);
+    }
+
+    /** The whole search (with its hand-over) with the spans from each material's array and object, timed into run i. */
+    private static StoreResult spansByMaterialObjects(SpectralStore store, Requirement requirement, int limit, int i,
+                                                      double[] wholeMs, double[] storeMs) {
+        long u0 = System.nanoTime();
+        StoreResult result = StoreSearch.searchWithSpansByMaterialObjects(store, requirement, limit);
+        long u1 = System.nanoTime();
+        judgeExactly(store, requirement, limit, result);
+        wholeMs[i] = (System.nanoTime() - u0) / 1e6;
+        storeMs[i] = (u1 - u0) / 1e6;
+        return result;
     }
 
     /** The whole search (with its hand-over) without the integer screen over a range, timed into run i. */
@@ -154,11 +185,13 @@ class SearchBenchmark {
      * the column-first pass as it was before its block screen ({@code variant=gathered},
      * {@link StoreSearch#searchGatheringOtherColumns}: as measured, the other columns gathered per kept curve)
      * the column-first pass over a range without its screen by levels ({@code variant=no-range-screen},
-     * {@link StoreSearch#searchWithoutRangeScreen}: every curve's exact caps) and the default path
+     * {@link StoreSearch#searchWithoutRangeScreen}: every curve's exact caps), the spans worked out from each
+     * material's curve array and object ({@code variant=spans-by-objects},
+     * {@link StoreSearch#searchWithSpansByMaterialObjects}: the sixth pass) and the default path
      * ({@code variant=after}), run in turn in one loop so all see the same load.
      */
     private static void compareScans(SpectralStore store, Requirement requirement, int limit, int runs, String mode) {
-        String[] variants = {"before", "chunks", "gathered", "no-range-screen", "after"};
+        String[] variants = {"before", "chunks", "gathered", "no-range-screen", "spans-by-objects", "after"};
         for (int i = 0; i < 3; i++) {
             for (String variant : variants) {
                 scan(variant, store, requirement, limit);
@@ -166,7 +199,9 @@ class SearchBenchmark {
         }
         double[][] ms = new double[variants.length][runs];
         for (int i = 0; i < runs; i++) {
-            for (int v = 0; v < variants.length; v++) {
+            for (int turn = 0; turn < variants.length; turn++) {
+                // the last two (the sixth pass's spans and the default) swap places every other iteration
+                int v = i % 2 == 1 && turn >= variants.length - 2 ? 2 * variants.length - 3 - turn : turn;
                 long t0 = System.nanoTime();
                 scan(variants[v], store, requirement, limit);
                 ms[v][i] = (System.nanoTime() - t0) / 1e6;
@@ -184,6 +219,7 @@ class SearchBenchmark {
             case "chunks" -> StoreSearch.searchByChunks(store, requirement, limit);
             case "gathered" -> StoreSearch.searchGatheringOtherColumns(store, requirement, limit);
             case "no-range-screen" -> StoreSearch.searchWithoutRangeScreen(store, requirement, limit);
+            case "spans-by-objects" -> StoreSearch.searchWithSpansByMaterialObjects(store, requirement, limit);
             default -> StoreSearch.search(store, requirement, limit);
         };
     }

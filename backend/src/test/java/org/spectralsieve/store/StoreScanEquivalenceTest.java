@@ -17,6 +17,7 @@ import org.spectralsieve.requirement.Clause;
 import org.spectralsieve.requirement.CutoffClause;
 import org.spectralsieve.requirement.Direction;
 import org.spectralsieve.requirement.Requirement;
+import org.spectralsieve.requirement.ThicknessInterval;
 import org.spectralsieve.requirement.ThicknessSpec;
 
 /**
@@ -386,6 +387,11 @@ class StoreScanEquivalenceTest {
                         assertThat(after.evaluatedSamples()).isEqualTo(before.evaluatedSamples());
                         assertThat(after.refinedSamples()).as(r.text()).isEqualTo(before.refinedSamples());
                     }
+                    // the spans from the material objects, as the sixth pass worked them out
+                    StoreResult byObjects = StoreSearch.search(store, r, limit, parallelFrom, 0, true, false);
+                    assertThat(byObjects.hits()).as("%s, limit %d, spans by objects", r.text(), limit)
+                            .usingRecursiveFieldByFieldElementComparator().containsExactlyElementsOf(before.hits());
+                    assertThat(byObjects.refinedSamples()).as(r.text()).isEqualTo(before.refinedSamples());
                 }
                 StoreResult alone = StoreSearch.searchColumnFirstOnly(store, r, limit, 1);
                 if (alone != null) {
@@ -396,6 +402,67 @@ class StoreScanEquivalenceTest {
             }
         }
         assertThat(settled).as("searches the column-first pass settled").isGreaterThan(40);
+    }
+
+    /**
+     * The spans worked out on demand from the store's flat material table are those worked out from each
+     * material's curve array and object, for every curve of random stores (materials interleaved, a third made only
+     * 0.5–4 mm thick, some films) at random asked thicknesses and ranges, with and without a class filter, taken
+     * in random order (a material is worked out from whichever of its curves comes first). So the check can fail:
+     * the spans must differ between curves (a table off by one curve gives other spans) and some curves must be
+     * not judged.
+     */
+    @Test
+    void theSpansFromTheMaterialTableAreTheSpansFromTheMaterialObjects() {
+        Random random = new Random(SEED + 9);
+        int compared = 0;
+        int notJudged = 0;
+        int differingFromTheNextCurve = 0;
+        for (int s = 0; s < 3; s++) {
+            SpectralStore store = StoreSearchTest.randomStore(2000 + random.nextInt(3000), 20 + random.nextInt(900),
+                    random.nextLong());
+            for (int q = 0; q < 20; q++) {
+                Requirement drawn = randomRequirement(random);
+                Optional<String> materialClass = random.nextInt(4) == 0 ? Optional.of("film") : Optional.empty();
+                ThicknessSpec thickness = randomThickness(random);
+                Requirement r = new Requirement(drawn.clauses(), thickness, materialClass, Optional.empty(),
+                        drawn.text() + " " + thickness + materialClass.map(c -> " " + c).orElse(""));
+                StoreSearch.Plan byTable = planOf(store, r);
+                StoreSearch.Plan byObjects = planOf(store, r);
+                byObjects.spansByTable = false;
+                int[] order = shuffled(store.size(), random);
+                ThicknessInterval[] fromTable = new ThicknessInterval[store.size()];
+                for (int c : order) {
+                    fromTable[c] = byTable.spanOf(c);
+                }
+                for (int c : shuffled(store.size(), random)) {
+                    ThicknessInterval expected = byObjects.spanOf(c);
+                    assertThat(fromTable[c]).as("curve %d, %s", c, r.text()).isEqualTo(expected);
+                    compared++;
+                    notJudged += expected == null ? 1 : 0;
+                }
+                for (int c = 0; c + 1 < store.size(); c++) {
+                    differingFromTheNextCurve += java.util.Objects.equals(fromTable[c], fromTable[c + 1]) ? 0 : 1;
+                }
+            }
+        }
+        assertThat(compared).isGreaterThan(100_000);
+        assertThat(notJudged).as("curves not judged").isGreaterThan(1_000).isLessThan(compared);
+        assertThat(differingFromTheNextCurve).as("spans that differ from the next curve's").isGreaterThan(compared / 10);
+    }
+
+    private static int[] shuffled(int n, Random random) {
+        int[] out = new int[n];
+        for (int i = 0; i < n; i++) {
+            out[i] = i;
+        }
+        for (int i = n - 1; i > 0; i--) {
+            int j = random.nextInt(i + 1);
+            int swap = out[i];
+            out[i] = out[j];
+            out[j] = swap;
+        }
+        return out;
     }
 
     /** One asked thickness or a range, some ending within the nominal tolerance short of a made range (0.5–4 mm). */
