@@ -9,7 +9,9 @@ import java.util.LinkedHashSet;
 import java.util.List;
 import java.util.Map;
 import java.util.Optional;
+import java.util.Queue;
 import java.util.Set;
+import java.util.concurrent.ConcurrentLinkedQueue;
 import java.util.concurrent.atomic.AtomicLong;
 import java.util.concurrent.atomic.AtomicReference;
 import java.util.concurrent.locks.ReentrantLock;
@@ -598,7 +600,7 @@ public class SearchService {
         // once the rows are full: the screen's own queries, and for a second bound formed at the same time on another
         // thread a second stage of its own (a stage keeps the curve it reads), kept for the rest of this search only
         WeightedMisses.SecondStage formed = formedSecond;
-        java.util.Queue<WeightedMisses.SecondStage> idle = new java.util.concurrent.ConcurrentLinkedQueue<>();
+        Queue<WeightedMisses.SecondStage> idle = new ConcurrentLinkedQueue<>();
         if (formed != null) {
             idle.add(formed);
         }

@@ -1,5 +1,6 @@
 package org.spectralsieve.store;
 
+import java.util.Arrays;
 import java.util.List;
 import org.spectralsieve.requirement.MadeThicknesses;
 
@@ -24,7 +25,7 @@ record MaterialTable(int[] start, int[] curves, MadeThicknesses[] made) {
         for (int m = 0; m < count; m++) {
             start[m + 1] += start[m];
         }
-        int[] filled = java.util.Arrays.copyOf(start, count);
+        int[] filled = Arrays.copyOf(start, count);
         int[] curves = new int[size];
         for (int c = 0; c < size; c++) {
             curves[filled[materialOfCurve[c]]++] = c;

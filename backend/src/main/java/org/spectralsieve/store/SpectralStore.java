@@ -97,22 +97,18 @@ public final class SpectralStore {
         return thicknessMm[curve];
     }
 
-    /** The curve indices of each material, by material index: the samples the exact judgement weighs together. */
+    /**
+     * The curve indices of each material, by material index: the samples the exact judgement weighs together. The
+     * same grouping as {@link #materialTable}, one array per material (the layout the earlier spans read; kept so a
+     * benchmark can time both side by side).
+     */
     int[][] curvesByMaterial() {
         int[][] cached = byMaterial;
         if (cached == null) {
-            int[] counts = new int[materials.size()];
-            for (int c = 0; c < size; c++) {
-                counts[materialOfCurve[c]]++;
-            }
+            MaterialTable table = materialTable();
             cached = new int[materials.size()][];
             for (int m = 0; m < cached.length; m++) {
-                cached[m] = new int[counts[m]];
-            }
-            int[] filled = new int[materials.size()];
-            for (int c = 0; c < size; c++) {
-                int m = materialOfCurve[c];
-                cached[m][filled[m]++] = c;
+                cached[m] = Arrays.copyOfRange(table.curves(), table.start()[m], table.start()[m + 1]);
             }
             byMaterial = cached;
         }

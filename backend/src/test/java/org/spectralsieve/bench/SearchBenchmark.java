@@ -99,11 +99,11 @@ class SearchBenchmark {
         for (int i = 0; i < runs; i++) {
             // every other iteration the search without the screen goes first: the place in the loop alone moved
             // the same code's figures by a third under load (as measured both variants take the same path)
-            StoreResult unscreened = i % 2 == 1 ? withoutRangeScreen(store, requirement, limit, i, noScreenMs,
-                    noScreenStoreMs) : null;
+            StoreResult unscreened = i % 2 == 1 ? timedWhole(StoreSearch::searchWithoutRangeScreen, store, requirement,
+                    limit, i, noScreenMs, noScreenStoreMs) : null;
             // the same for the spans from the material objects (seventh pass's side by side), on the other turns
-            StoreResult byObjects = i % 2 == 0 ? spansByMaterialObjects(store, requirement, limit, i, byObjectsMs,
-                    byObjectsStoreMs) : null;
+            StoreResult byObjects = i % 2 == 0 ? timedWhole(StoreSearch::searchWithSpansByMaterialObjects, store,
+                    requirement, limit, i, byObjectsMs, byObjectsStoreMs) : null;
             long t0 = System.nanoTime();
             StoreResult picked = StoreSearch.search(store, requirement, limit);
             long t1 = System.nanoTime();
@@ -117,11 +117,13 @@ class SearchBenchmark {
             hitsOnlyMs[i] = (System.nanoTime() - h0) / 1e6;
 
             if (unscreened == null) {
-                unscreened = withoutRangeScreen(store, requirement, limit, i, noScreenMs, noScreenStoreMs);
+                unscreened = timedWhole(StoreSearch::searchWithoutRangeScreen, store, requirement, limit, i, noScreenMs,
+                        noScreenStoreMs);
             }
             sameRows &= unscreened.hits().equals(picked.hits());
             if (byObjects == null) {
-                byObjects = spansByMaterialObjects(store, requirement, limit, i, byObjectsMs, byObjectsStoreMs);
+                byObjects = timedWhole(StoreSearch::searchWithSpansByMaterialObjects, store, requirement, limit, i,
+                        byObjectsMs, byObjectsStoreMs);
             }
             sameRowsByObjects &= byObjects.hits().equals(picked.hits());
         }
@@ -155,28 +157,21 @@ class SearchBenchmark {
         return percentile(ms, 50);
     }
 
-    /** The whole search (with its hand-over) with the spans from each material's array and object, timed into run i. */
-    private static StoreResult spansByMaterialObjects(SpectralStore store, Requirement requirement, int limit, int i,
-                                                      double[] wholeMs, double[] storeMs) {
+    /** One way of the store's pick, for timing the whole search with it ({@link #timedWhole}). */
+    private interface StorePick {
+        StoreResult search(SpectralStore store, Requirement requirement, int limit);
+    }
+
+    /** The whole search (the store's pick by {@code pick}, then its rows judged with their hand-over), timed into run i. */
+    private static StoreResult timedWhole(StorePick pick, SpectralStore store, Requirement requirement, int limit, int i,
+                                          double[] wholeMs, double[] storeMs) {
         long u0 = System.nanoTime();
-        StoreResult result = StoreSearch.searchWithSpansByMaterialObjects(store, requirement, limit);
+        StoreResult result = pick.search(store, requirement, limit);
         long u1 = System.nanoTime();
         judgeExactly(store, requirement, limit, result);
         wholeMs[i] = (System.nanoTime() - u0) / 1e6;
         storeMs[i] = (u1 - u0) / 1e6;
         return result;
-    }
-
-    /** The whole search (with its hand-over) without the integer screen over a range, timed into run i. */
-    private static StoreResult withoutRangeScreen(SpectralStore store, Requirement requirement, int limit, int i,
-                                                  double[] wholeMs, double[] storeMs) {
-        long u0 = System.nanoTime();
-        StoreResult unscreened = StoreSearch.searchWithoutRangeScreen(store, requirement, limit);
-        long u1 = System.nanoTime();
-        judgeExactly(store, requirement, limit, unscreened);
-        wholeMs[i] = (System.nanoTime() - u0) / 1e6;
-        storeMs[i] = (u1 - u0) / 1e6;
-        return unscreened;
     }
 
     /**
