@@ -46,7 +46,7 @@ final class ColumnFirstScan {
     private static final int BOUND_TOP = OdCode.MAX_LEVEL;
 
     private final SpectralStore store;
-    private final StoreSearch.Plan plan;
+    private final SearchPlan plan;
     private final boolean everyCurveAdmitted;
     /** The probe whose column is read first. */
     private int probe = -1;
@@ -71,7 +71,7 @@ final class ColumnFirstScan {
     /** The thickest a curve can be judged at over the asked range (max + 2·tolerance), or NaN. */
     private final double highestMm;
 
-    ColumnFirstScan(SpectralStore store, StoreSearch.Plan plan) {
+    ColumnFirstScan(SpectralStore store, SearchPlan plan) {
         this(store, plan, false);
     }
 
@@ -80,7 +80,7 @@ final class ColumnFirstScan {
      * the other columns gathered per curve (the pass before the block screen); for the benchmark's side by
      * side only, same answers.
      */
-    ColumnFirstScan(SpectralStore store, StoreSearch.Plan plan, boolean gatherOtherColumns) {
+    ColumnFirstScan(SpectralStore store, SearchPlan plan, boolean gatherOtherColumns) {
         this(store, plan, gatherOtherColumns, true);
     }
 
@@ -89,7 +89,7 @@ final class ColumnFirstScan {
      * caps; false gives every curve the exact caps, as the pass before the screen (the benchmark's side by
      * side only, same answers).
      */
-    ColumnFirstScan(SpectralStore store, StoreSearch.Plan plan, boolean gatherOtherColumns, boolean screenByLevels) {
+    ColumnFirstScan(SpectralStore store, SearchPlan plan, boolean gatherOtherColumns, boolean screenByLevels) {
         this.screenByLevels = screenByLevels;
         this.gatherOtherColumns = gatherOtherColumns;
         this.store = store;
@@ -121,13 +121,13 @@ final class ColumnFirstScan {
     }
 
     /** At least one probe reads one column (a grid point): as measured, at an asked thickness or over a range. */
-    static boolean applies(StoreSearch.Plan plan) {
+    static boolean applies(SearchPlan plan) {
         return oneColumnProbes(plan) > 0;
     }
 
-    private static int oneColumnProbes(StoreSearch.Plan plan) {
+    private static int oneColumnProbes(SearchPlan plan) {
         int count = 0;
-        for (StoreSearch.PointProbe p : plan.pointProbes) {
+        for (PointProbe p : plan.pointProbes) {
             if (p.probe().onGrid() && p.probe().fractionHi() == 0) {
                 count++;
             }
@@ -242,7 +242,7 @@ final class ColumnFirstScan {
         int bestProbe = -1;
         int fewest = Integer.MAX_VALUE;
         for (int k = 0; k < plan.pointProbes.size(); k++) {
-            StoreSearch.PointProbe p = plan.pointProbes.get(k);
+            PointProbe p = plan.pointProbes.get(k);
             if (!p.probe().onGrid() || p.probe().fractionHi() != 0) {
                 continue;
             }
@@ -357,7 +357,7 @@ final class ColumnFirstScan {
         // the bound is at most every one-column probe's cap: the other columns rule out more, read only here
         // (as measured firstColumn has already read them, block by block)
         for (int k = 0; k < plan.pointProbes.size(); k++) {
-            StoreSearch.PointProbe other = plan.pointProbes.get(k);
+            PointProbe other = plan.pointProbes.get(k);
             if (k == probe || rangeModel != null || !other.probe().onGrid() || other.probe().fractionHi() != 0) {
                 continue;
             }
@@ -398,7 +398,7 @@ final class ColumnFirstScan {
      * cap of every one-column probe follows ({@link #jointCapOverRange}).
      */
     private int[] firstColumn(int t, int from, int to) {
-        StoreSearch.PointProbe p = plan.pointProbes.get(probe);
+        PointProbe p = plan.pointProbes.get(probe);
         short[] column = store.column(p.probe().lo());
         int[] curves = new int[64];
         int count = 0;
@@ -581,7 +581,7 @@ final class ColumnFirstScan {
         double lowest = Double.POSITIVE_INFINITY;
         double lowestMiss = Double.POSITIVE_INFINITY;
         for (int k = 0; k < plan.pointProbes.size(); k++) {
-            StoreSearch.PointProbe p = plan.pointProbes.get(k);
+            PointProbe p = plan.pointProbes.get(k);
             Probe probe = p.probe();
             if (!probe.onGrid()) {
                 bits |= ProbeVerdict.UNVERIFIED;
@@ -603,7 +603,7 @@ final class ColumnFirstScan {
                 double s = plan.pointProbeLoss[model][k];
                 if (value <= plan.pointProbeUnresolvedOd[model][k]) {
                     double d0 = store.thicknessMm(curve);
-                    isBound |= target > d0 && target > StoreSearch.Plan.farMm(value, s, d0);
+                    isBound |= target > d0 && target > SearchPlan.farMm(value, s, d0);
                 } else {
                     value = s + Math.max(0, value - s) * target / store.thicknessMm(curve);
                 }
@@ -744,7 +744,7 @@ final class ColumnFirstScan {
      * ({@link #leastMargin}), loosened by far less than a key step, so it keeps at least what the key keeps.
      */
     final class Reach {
-        private final StoreSearch.PointProbe p;
+        private final PointProbe p;
         final int k;
         /** Least margin per group (MEETS, UNVERIFIED, MISSES) whose key reaches t. */
         private final double[] least = new double[3];
@@ -786,7 +786,7 @@ final class ColumnFirstScan {
      * margin (the line's larger end over [min, max]); a curve not read through the thickness model (films,
      * coatings) is read as measured.
      */
-    long marginCap(StoreSearch.PointProbe p, int k, int curve, short code) {
+    long marginCap(PointProbe p, int k, int curve, short code) {
         if (code == OdCode.NOT_MEASURED) {
             return pack(Double.POSITIVE_INFINITY, 1);
         }
@@ -857,7 +857,7 @@ final class ColumnFirstScan {
      * The highest bound a curve can have given one probe's code alone (see the class comment); for a code
      * "not measured" the probe is unverified with no margin of its own.
      */
-    static int capOf(StoreSearch.PointProbe p, int code) {
+    static int capOf(PointProbe p, int code) {
         if ((short) code == OdCode.NOT_MEASURED) {
             return StoreSearch.Keys.of(Standing.UNVERIFIED, Double.POSITIVE_INFINITY);
         }
@@ -886,7 +886,7 @@ final class ColumnFirstScan {
          */
         private final long[] keptCodes = new long[1 << 10];
 
-        Filter(StoreSearch.PointProbe p, int t) {
+        Filter(PointProbe p, int t) {
             pass = p.pass();
             plainLimit = limit(p, t, 0, PLAIN_TOP);
             boundLimit = limit(p, t, OdCode.BOUND_BIT, BOUND_TOP);
@@ -964,7 +964,7 @@ final class ColumnFirstScan {
             return left;
         }
 
-        private static int limit(StoreSearch.PointProbe p, int t, int boundBit, int top) {
+        private static int limit(PointProbe p, int t, int boundBit, int top) {
             if (p.pass()) {
                 // largest level whose cap reaches t; caps fall with the level
                 int lo = -1;

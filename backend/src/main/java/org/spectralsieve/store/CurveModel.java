@@ -20,7 +20,7 @@ final class CurveModel {
     private static final double TOLERANCE_MM = 1e-6;
     private static final double SAME_THICKNESS_MM = 1e-9;
 
-    private final StoreSearch.Plan plan;
+    private final SearchPlan plan;
 
     // point conditions: margin(d) = intercept + slope·d
     private int points;
@@ -47,7 +47,7 @@ final class CurveModel {
     private int curve;
 
     /** One model per thread; {@link #load} points it at a curve without allocating, for the pass over every curve. */
-    CurveModel(StoreSearch.Plan plan, SpectralStore store, boolean pointsOnly) {
+    CurveModel(SearchPlan plan, SpectralStore store, boolean pointsOnly) {
         this.plan = plan;
         this.store = store;
         this.pointsOnly = pointsOnly;
@@ -135,7 +135,7 @@ final class CurveModel {
     /**
      * Points the model at a curve whose point probes were already decoded column by column (the fast pass):
      * {@code state[k]} is {@link #READ}, {@link #BOUND} or {@link #UNMEASURED} for point probe k of
-     * {@link StoreSearch.Plan#pointProbes}.
+     * {@link SearchPlan#pointProbes}.
      */
     CurveModel loadDecoded(int curve, double[] od0, byte[] state) {
         this.curve = curve;
@@ -145,12 +145,12 @@ final class CurveModel {
         anyUnmeasured = false;
         double[] loss = plan.pointProbeLoss[store.indexModelOf(curve)];
         double[] clear = plan.pointProbeUnresolvedOd[store.indexModelOf(curve)];
-        List<StoreSearch.PointProbe> probes = plan.pointProbes;
+        List<PointProbe> probes = plan.pointProbes;
         for (int k = 0; k < od0.length; k++) {
             if (state[k] == UNMEASURED) {
                 anyUnmeasured = true;
             } else {
-                StoreSearch.PointProbe probe = probes.get(k);
+                PointProbe probe = probes.get(k);
                 addDecoded(od0[k], state[k] == BOUND, loss[k], clear[k], probe.thresholdOd(), probe.pass());
             }
         }
@@ -203,14 +203,14 @@ final class CurveModel {
 
     private double farMmOf(double od0, double surfaceLoss, double d0) {
         if (plan.reference) {
-            return StoreSearch.Plan.farMm(od0, surfaceLoss, d0);
+            return SearchPlan.farMm(od0, surfaceLoss, d0);
         }
         int slot = (Double.hashCode(od0) * 31 + Double.hashCode(surfaceLoss)) & (FAR_SLOTS - 1);
         // a factor is at least 1, so an untouched slot (0) never matches
         if (farFactor[slot] == 0 || farKeyOd[slot] != od0 || farKeyLoss[slot] != surfaceLoss) {
             farKeyOd[slot] = od0;
             farKeyLoss[slot] = surfaceLoss;
-            farFactor[slot] = StoreSearch.Plan.farFactor(od0, surfaceLoss);
+            farFactor[slot] = SearchPlan.farFactor(od0, surfaceLoss);
         }
         return d0 * farFactor[slot];
     }

@@ -29,9 +29,9 @@ final class CutReach {
     private final double perStretch;
     private final double farMm;
     private final SpectralStore store;
-    private final StoreSearch.Plan plan;
+    private final SearchPlan plan;
 
-    private CutReach(SpectralStore store, StoreSearch.Plan plan, double perStretch, double farMm) {
+    private CutReach(SpectralStore store, SearchPlan plan, double perStretch, double farMm) {
         this.store = store;
         this.plan = plan;
         this.perStretch = perStretch;
@@ -43,7 +43,7 @@ final class CutReach {
      * surface reflectance in the store's index models, and the farthest thickness any reading may be taken to
      * (the asked thickness, or the range's far end plus two nominal tolerances, as the solver may read there).
      */
-    static CutReach of(SpectralStore store, StoreSearch.Plan plan) {
+    static CutReach of(SpectralStore store, SearchPlan plan) {
         double reflections = 0;
         for (double[][] model : plan.surfaceLoss) {
             for (double[] clause : model) {

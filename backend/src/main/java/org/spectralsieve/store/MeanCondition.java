@@ -32,7 +32,7 @@ final class MeanCondition {
         double far = Double.POSITIVE_INFINITY;
         for (int p = 0; p < od0.length; p++) {
             if (od0[p] <= unresolvedOd[p]) {
-                far = Math.min(far, StoreSearch.Plan.farMm(od0[p], surfaceLoss[p], d0));
+                far = Math.min(far, SearchPlan.farMm(od0[p], surfaceLoss[p], d0));
             }
         }
         this.farMm = far;

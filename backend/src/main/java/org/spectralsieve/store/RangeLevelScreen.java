@@ -41,7 +41,7 @@ final class RangeLevelScreen {
      */
     private final int[] ranges;
 
-    RangeLevelScreen(StoreSearch.PointProbe p, int k, int t, double[][] loss, double[][] unresolved, double minMm,
+    RangeLevelScreen(PointProbe p, int k, int t, double[][] loss, double[][] unresolved, double minMm,
                      double highestMm, ThicknessClasses classes) {
         this.pass = p.pass();
         double thr = p.thresholdOd();

@@ -26,11 +26,11 @@ public final class SampleReach {
     public static final int NONE = Integer.MAX_VALUE;
 
     private final SpectralStore store;
-    private final StoreSearch.Plan plan;
+    private final SearchPlan plan;
     private CurveModel model;
     private CutReach reach;
 
-    SampleReach(SpectralStore store, StoreSearch.Plan plan) {
+    SampleReach(SpectralStore store, SearchPlan plan) {
         this.store = store;
         this.plan = plan;
     }

@@ -119,7 +119,7 @@ public final class SpectralStore {
 
     /**
      * Each material's curves in one flat array, and its made thicknesses, by material index: what a search over a
-     * thickness works a material's spans out from ({@code StoreSearch.Plan.spanOf}). The same curves, in the
+     * thickness works a material's spans out from ({@code SearchPlan.spanOf}). The same curves, in the
      * same order, as {@link #curvesByMaterial}; built once per store on first use.
      */
     MaterialTable materialTable() {

@@ -137,7 +137,7 @@ class CutReachTest {
     }
 
     private static CutReach reach(SpectralStore store, String requirement) {
-        return CutReach.of(store, StoreSearch.Plan.of(store,
+        return CutReach.of(store, SearchPlan.of(store,
                 org.spectralsieve.requirement.RequirementParser.parse(requirement), false, Integer.MAX_VALUE));
     }
 

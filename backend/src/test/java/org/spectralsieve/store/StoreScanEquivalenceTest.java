@@ -99,9 +99,9 @@ class StoreScanEquivalenceTest {
         for (int q = 0; q < 40; q++) {
             Requirement drawn = randomRequirement(random);
             Requirement r = requirement(ThicknessSpec.AS_MEASURED, drawn.clauses().toArray(Clause[]::new));
-            StoreSearch.Plan plan = planOf(store, r);
+            SearchPlan plan = planOf(store, r);
             ColumnFirstScan scan = new ColumnFirstScan(store, plan);
-            for (StoreSearch.PointProbe p : plan.pointProbes) {
+            for (PointProbe p : plan.pointProbes) {
                 if (!p.probe().onGrid() || p.probe().fractionHi() != 0) {
                     continue;
                 }
@@ -169,10 +169,10 @@ class StoreScanEquivalenceTest {
         for (int q = 0; q < 40; q++) {
             Requirement drawn = randomRequirement(random);
             Requirement r = requirement(randomThickness(random), drawn.clauses().toArray(Clause[]::new));
-            StoreSearch.Plan plan = planOf(store, r);
+            SearchPlan plan = planOf(store, r);
             ColumnFirstScan scan = new ColumnFirstScan(store, plan);
             for (int k = 0; k < plan.pointProbes.size(); k++) {
-                StoreSearch.PointProbe p = plan.pointProbes.get(k);
+                PointProbe p = plan.pointProbes.get(k);
                 if (!p.probe().onGrid() || p.probe().fractionHi() != 0) {
                     continue;
                 }
@@ -208,7 +208,7 @@ class StoreScanEquivalenceTest {
                 continue;
             }
             Requirement r = requirement(range, drawn.clauses().toArray(Clause[]::new));
-            StoreSearch.Plan plan = planOf(store, r);
+            SearchPlan plan = planOf(store, r);
             ColumnFirstScan scan = new ColumnFirstScan(store, plan);
             int[] probes = scan.oneColumnProbeIndices();
             short[][] columns = new short[probes.length][];
@@ -243,10 +243,10 @@ class StoreScanEquivalenceTest {
         for (int q = 0; q < 30; q++) {
             Requirement drawn = randomRequirement(random);
             Requirement r = requirement(ThicknessSpec.AS_MEASURED, drawn.clauses().toArray(Clause[]::new));
-            StoreSearch.Plan plan = planOf(store, r);
+            SearchPlan plan = planOf(store, r);
             ColumnFirstScan scan = new ColumnFirstScan(store, plan);
             for (int k : scan.oneColumnProbeIndices()) {
-                StoreSearch.PointProbe p = plan.pointProbes.get(k);
+                PointProbe p = plan.pointProbes.get(k);
                 short[] column = store.column(p.probe().lo());
                 int[] thresholds = {scan.boundOf(random.nextInt(store.size())), scan.boundOf(random.nextInt(store.size())),
                     StoreSearch.Keys.of(org.spectralsieve.requirement.Standing.MEETS, Double.NaN),
@@ -311,7 +311,7 @@ class StoreScanEquivalenceTest {
                 continue;
             }
             Requirement r = requirement(range, drawn.clauses().toArray(Clause[]::new));
-            StoreSearch.Plan plan = planOf(store, r);
+            SearchPlan plan = planOf(store, r);
             ColumnFirstScan scan = new ColumnFirstScan(store, plan);
             for (int k : scan.oneColumnProbeIndices()) {
                 short[] column = store.column(plan.pointProbes.get(k).probe().lo());
@@ -427,8 +427,8 @@ class StoreScanEquivalenceTest {
                 ThicknessSpec thickness = randomThickness(random);
                 Requirement r = new Requirement(drawn.clauses(), thickness, materialClass, Optional.empty(),
                         drawn.text() + " " + thickness + materialClass.map(c -> " " + c).orElse(""));
-                StoreSearch.Plan byTable = planOf(store, r);
-                StoreSearch.Plan byObjects = planOf(store, r);
+                SearchPlan byTable = planOf(store, r);
+                SearchPlan byObjects = planOf(store, r);
                 byObjects.spansByTable = false;
                 int[] order = shuffled(store.size(), random);
                 ThicknessInterval[] fromTable = new ThicknessInterval[store.size()];
@@ -478,8 +478,8 @@ class StoreScanEquivalenceTest {
         };
     }
 
-    private static StoreSearch.Plan planOf(SpectralStore store, Requirement r) {
-        return StoreSearch.Plan.of(store, r, false, StoreSearch.PARALLEL_MIN_CURVES);
+    private static SearchPlan planOf(SpectralStore store, Requirement r) {
+        return SearchPlan.of(store, r, false, StoreSearch.PARALLEL_MIN_CURVES);
     }
 
     @Test
