@@ -56,7 +56,7 @@ abstract class ThicknessConstraint {
     /**
      * The crossing by {@link CrossingFinder} (bisection's worst case, fewer trials on a smooth margin): the
      * side of a trial thickness is {@code marginAt(d) >= 0} as before (a NaN margin fails), and the end kept
-     * is the one on the holding side.
+     * is the one on the holding side, with room from the crossing ({@link CrossingFinder.Keep}).
      */
     private double[] holdsWithinByBracketing(double min, double max) {
         if (falling) {
@@ -69,7 +69,7 @@ abstract class ThicknessConstraint {
                 return new double[] {min, max};
             }
             CrossingFinder.Bracket b = CrossingFinder.narrow(this::marginAt, m -> m >= 0, min, atMin, max, atMax,
-                    ThicknessSolver.TOLERANCE_MM);
+                    ThicknessSolver.TOLERANCE_MM, CrossingFinder.Keep.LEFT);
             return new double[] {min, b.left()};
         }
         double atMax = marginAt(max);
@@ -81,7 +81,7 @@ abstract class ThicknessConstraint {
             return new double[] {min, max};
         }
         CrossingFinder.Bracket b = CrossingFinder.narrow(this::marginAt, m -> !(m >= 0), min, atMin, max, atMax,
-                ThicknessSolver.TOLERANCE_MM);
+                ThicknessSolver.TOLERANCE_MM, CrossingFinder.Keep.RIGHT);
         return new double[] {b.right(), max};
     }
 

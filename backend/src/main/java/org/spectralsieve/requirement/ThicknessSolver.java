@@ -205,7 +205,7 @@ public final class ThicknessSolver {
         }
         // the side of a trial thickness is gap > 0 as before (a NaN gap is on the far side)
         CrossingFinder.Bracket bracket = CrossingFinder.narrow(d -> gap(falling, rising, d), g -> g > 0, lo, atLo,
-                hi, atHi, TOLERANCE_MM);
+                hi, atHi, TOLERANCE_MM, CrossingFinder.Keep.EITHER);
         double a = bracket.left();
         double b = bracket.right();
         // of the two ends of the final bracket, the one with the larger worst margin

@@ -54,13 +54,25 @@ class CrossingFinderPropertyTest {
             assertThat(Math.abs(end - trueEnd)).as(context + ": end " + end).isLessThanOrEqualTo(WIDTH + 1e-12);
 
             CrossingFinder.Side left = rising ? m -> !(m >= 0) : m -> m >= 0;
+            CrossingFinder.Keep keep = rising ? CrossingFinder.Keep.RIGHT : CrossingFinder.Keep.LEFT;
             CrossingFinder.Bracket itp = CrossingFinder.itp(margin, left, min, margin.applyAsDouble(min), max,
-                    margin.applyAsDouble(max), WIDTH);
+                    margin.applyAsDouble(max), WIDTH, keep);
             int bisection = CrossingFinder.bisect(margin, left, min, max, WIDTH).steps();
-            assertThat(itp.steps()).as(context).isLessThanOrEqualTo(bisection + CrossingFinder.SLACK_STEPS);
+            // ITP's bound (n½ + n0) for half the width, and the trial placing the end: bisection's count + n0 + 2
+            assertThat(itp.steps()).as(context).isLessThanOrEqualTo(bisection + CrossingFinder.SLACK_STEPS + 2);
+            assertThat(itp.steps()).as(context).isLessThanOrEqualTo(CrossingFinder.mostTrials(max - min, WIDTH, keep));
+            // the end with room from the crossing: a quarter of the width, less the rounding of the placed crossing
+            assertThat(Math.abs(end - trueEnd)).as(context + ": room").isGreaterThanOrEqualTo(0.25 * WIDTH - 1e-12);
+            // the recommendation's use (both ends, no room sought): bisection's count + n0
+            CrossingFinder.Bracket either = CrossingFinder.itp(margin, left, min, margin.applyAsDouble(min), max,
+                    margin.applyAsDouble(max), WIDTH, CrossingFinder.Keep.EITHER);
+            assertThat(either.steps()).as(context).isLessThanOrEqualTo(bisection + CrossingFinder.SLACK_STEPS);
+            assertThat(either.right() - either.left()).as(context).isLessThanOrEqualTo(WIDTH);
+            assertThat(either.left()).as(context).isLessThanOrEqualTo(rising ? trueEnd + 1e-12 : trueEnd + 1e-12);
             if (falling.smooth()) {
                 // not a bound of the method, a check that the interpolation is in use: on a smooth margin the
-                // steps converge superlinearly (about 7 where bisection takes about 27 with these brackets)
+                // steps converge superlinearly (about 9 where bisection takes about 27 with these brackets, 12 at
+                // most; regula falsi without the Illinois change took up to 21 on a crossing near one end)
                 smooth++;
                 assertThat(itp.steps()).as(context).isLessThan(bisection / 2);
             }
