@@ -6,7 +6,7 @@ import java.util.function.DoubleUnaryOperator;
 /**
  * Narrows a bracket [a, b] around the point where a monotone condition on the thickness switches side, to a
  * given width, never losing the bracket: the end that was on a's side stays on a's side, so the caller can
- * report the end that holds. The side of a trial point is decided only by {@code leftSide.test(f(x))}, exactly
+ * report the end that holds. The side of a trial point is decided only by {@code side.left(f(x))}, exactly
  * as plain bisection decides it, so a NaN, an infinity or a flat stretch of f is handled as bisection handles
  * it; the values of f only choose where to try next.
  *
@@ -29,7 +29,7 @@ import java.util.function.DoubleUnaryOperator;
  *
  * <p>{@code -Dsieve.solve.roots=bisection} (read once) makes every step the midpoint, bisection as before; a
  * benchmark switches it with {@link #useBisection} to time both side by side. Both keep the same contract, but
- * not the same last bits: the reported end differs by less than the width.
+ * not the same last bits: the two reported ends lie within the width of the same crossing.
  */
 public final class CrossingFinder {
 
