@@ -30,8 +30,8 @@ final class CandidatePath {
     static final RefractiveIndex DEFAULT_INDEX = ConstantIndex.WHEN_UNRECORDED;
     private static final int CACHE_LIMIT = 256;
     /**
-     * Thicknesses whose points are kept for a weighted solve: the bisection's step (every condition at one
-     * midpoint) and the solve's ends; older ones are recomputed, the same numbers.
+     * Thicknesses whose points are kept for a weighted solve: the recommendation's step (every condition at one
+     * trial thickness) and the solve's ends; older ones are recomputed, the same numbers.
      */
     private static final int RECENT_POINTS = 32;
 
@@ -133,7 +133,7 @@ final class CandidatePath {
         return hit;
     }
 
-    /** {@link #pointsAt} without a boxed key: a built curve first (none while a solve bisects), then the recent points. */
+    /** {@link #pointsAt} without a boxed key: a built curve first (none while a solve searches), then the recent points. */
     private PointReadings recentPointsAt(double d) {
         if (!byThickness.isEmpty()) {
             Curve built = byThickness.get(d);

@@ -128,7 +128,7 @@ final class FigureClauses {
     }
 
     /**
-     * The margin the thickness solver bisects, NaN when the figure is not available: a pass on L (where a
+     * The margin the thickness solver searches for its crossing, NaN when the figure is not available: a pass on L (where a
      * proof of the pass must come from), a block on U; both fall or rise with thickness like the figure.
      */
     static double weightedMargin(WeightedClause clause, PointReadings curve) {

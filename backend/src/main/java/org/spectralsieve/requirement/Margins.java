@@ -6,7 +6,7 @@ import org.spectralsieve.spectrum.Curve;
  * Margins in decades (optical-density units). PASS: log10(T / threshold); BLOCK: log10(threshold / T);
  * positive when the clause holds. T is floored at {@link Curve#ABSORBANCE_FLOOR_T} (or at the threshold,
  * if that is even smaller) so that a reading of exactly 0 gives a large finite margin rather than
- * infinity, which would break bisection and sorting; flooring at no more than the threshold keeps the
+ * infinity, which would break the root finder's interpolation and sorting; flooring at no more than the threshold keeps the
  * sign of the margin equal to whether the clause holds.
  */
 final class Margins {

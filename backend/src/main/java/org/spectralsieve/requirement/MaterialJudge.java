@@ -26,7 +26,7 @@ import java.util.Optional;
  */
 public final class MaterialJudge {
 
-    /** Pieces of feasible interval closer than this (mm) are one interval: the solver's bisection tolerance, twice. */
+    /** Pieces of feasible interval closer than this (mm) are one interval: the solver's root-finding tolerance, twice. */
     private static final double TOUCHING_MM = 2 * ThicknessSolver.TOLERANCE_MM;
 
     private MaterialJudge() {

@@ -4,7 +4,7 @@ package org.spectralsieve.requirement;
  * The last few thicknesses' points of one candidate, keyed by the thickness's bits (what {@code Double.equals}
  * compares, as the map it replaces did), found by a scan of a small primitive array and replaced oldest first.
  * Why not a map: a thickness solve asks for dozens of new thicknesses per sample and reads each again only
- * within the same step (every condition at the bisection's midpoint) or at the end (the recommended thickness,
+ * within the same step (every condition at the recommendation's trial thickness) or at the end (the recommended thickness,
  * the interval's ends); a boxed key and a map entry per thickness were about a seventh of a weighted solve
  * (docs/exact-judgement-speed.md, "One judgement cheaper"). A miss recomputes the same numbers, so the size only
  * changes the speed. Not shared between threads.

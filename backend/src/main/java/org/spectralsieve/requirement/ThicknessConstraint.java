@@ -41,55 +41,48 @@ abstract class ThicknessConstraint {
     }
 
     /**
-     * The sub-interval of [min, max] where the condition holds, as {lo, hi}, or null when nowhere. By
-     * bisection on the monotone margin to {@link ThicknessSolver#TOLERANCE_MM}, returning the end on the
-     * holding side so the reported interval never contains a thickness that fails.
+     * The sub-interval of [min, max] where the condition holds, as {lo, hi}, or null when nowhere. By a
+     * bracketing search on the monotone margin to {@link ThicknessSolver#TOLERANCE_MM}, returning the end on
+     * the holding side so the reported interval never contains a thickness that fails.
      */
     double[] holdsWithin(double min, double max) {
         double[] provableRange = provableWithin(min, max);
         if (provableRange == null) {
             return null;
         }
-        return holdsWithinByBisection(provableRange[0], provableRange[1]);
+        return holdsWithinByBracketing(provableRange[0], provableRange[1]);
     }
 
-    private double[] holdsWithinByBisection(double min, double max) {
+    /**
+     * The crossing by {@link CrossingFinder} (bisection's worst case, fewer trials on a smooth margin): the
+     * side of a trial thickness is {@code marginAt(d) >= 0} as before (a NaN margin fails), and the end kept
+     * is the one on the holding side, with room from the crossing ({@link CrossingFinder.Keep}).
+     */
+    private double[] holdsWithinByBracketing(double min, double max) {
         if (falling) {
-            if (marginAt(min) < 0) {
+            double atMin = marginAt(min);
+            if (atMin < 0) {
                 return null;
             }
-            if (marginAt(max) >= 0) {
+            double atMax = marginAt(max);
+            if (atMax >= 0) {
                 return new double[] {min, max};
             }
-            double ok = min;
-            double bad = max;
-            while (bad - ok > ThicknessSolver.TOLERANCE_MM) {
-                double mid = 0.5 * (ok + bad);
-                if (marginAt(mid) >= 0) {
-                    ok = mid;
-                } else {
-                    bad = mid;
-                }
-            }
-            return new double[] {min, ok};
+            CrossingFinder.Bracket b = CrossingFinder.narrow(this::marginAt, m -> m >= 0, min, atMin, max, atMax,
+                    ThicknessSolver.TOLERANCE_MM, CrossingFinder.Keep.LEFT);
+            return new double[] {min, b.left()};
         }
-        if (marginAt(max) < 0) {
+        double atMax = marginAt(max);
+        if (atMax < 0) {
             return null;
         }
-        if (marginAt(min) >= 0) {
+        double atMin = marginAt(min);
+        if (atMin >= 0) {
             return new double[] {min, max};
         }
-        double bad = min;
-        double ok = max;
-        while (ok - bad > ThicknessSolver.TOLERANCE_MM) {
-            double mid = 0.5 * (ok + bad);
-            if (marginAt(mid) >= 0) {
-                ok = mid;
-            } else {
-                bad = mid;
-            }
-        }
-        return new double[] {ok, max};
+        CrossingFinder.Bracket b = CrossingFinder.narrow(this::marginAt, m -> !(m >= 0), min, atMin, max, atMax,
+                ThicknessSolver.TOLERANCE_MM, CrossingFinder.Keep.RIGHT);
+        return new double[] {b.right(), max};
     }
 
     /** T at one wavelength against a threshold. */
@@ -120,7 +113,7 @@ abstract class ThicknessConstraint {
         }
 
         /**
-         * At a stored wavelength the root is closed-form; between stored points, bisection. Either way a
+         * At a stored wavelength the root is closed-form; between stored points, a bracketing search. Either way a
          * pass holds only up to the reading's far thickness ({@link #provableUpToMm}).
          */
         @Override

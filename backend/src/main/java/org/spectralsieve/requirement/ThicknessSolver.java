@@ -15,11 +15,12 @@ import org.spectralsieve.spectrum.Curve;
  * (T(hi) >= level) and a block condition at its short end (T(lo) <= level). At a stored wavelength the
  * bound is closed-form: K* = slab inversion of the threshold (Smith, Modern Optical Engineering, eq. 10.5
  * solved for K), K(d) = K0^(d/d0) (Beer–Lambert), so a pass needs d <= d0·ln(K*) / ln(K0) and a block
- * d >= d0·ln(K*) / ln(K0). Band ends between stored points and band means are solved by bisection to
+ * d >= d0·ln(K*) / ln(K0). Band ends between stored points and band means are solved by a bracketing
+ * search ({@link CrossingFinder}: bisection's worst case, superlinear on a smooth margin) to
  * {@link #TOLERANCE_MM}, keeping the holding side. A band is the intersection over its readings.
  *
  * <p>Recommendation: the worst margin is min(D(d), I(d)) with D the smallest falling (pass) margin and I
- * the smallest rising (block) margin, so it peaks where D = I; found by bisection on D − I to
+ * the smallest rising (block) margin, so it peaks where D = I; found by the same bracketing search on D − I to
  * {@link #TOLERANCE_MM}, at min when only pass conditions exist, at max when only block conditions exist.
  * Taken over the feasible interval when there is one, else over [min, max] (the best achievable). Clauses
  * that cannot be read at all (outside the measured range) do not vary with d and are left out of the
@@ -39,7 +40,7 @@ import org.spectralsieve.spectrum.Curve;
  */
 public final class ThicknessSolver {
 
-    /** Thicknesses from bisection are within this of the true crossing (mm). */
+    /** Thicknesses from the bracketing search are within this of the true crossing (mm), on the holding side. */
     public static final double TOLERANCE_MM = 1e-7;
 
     private ThicknessSolver() {
@@ -99,7 +100,7 @@ public final class ThicknessSolver {
     /**
      * The same for a requirement with weighted clauses or a fixed layer: plain clauses on the candidate
      * alone keep their closed-form conditions; every other clause, and every clause judged through a
-     * stack, becomes one condition on the whole path at d, solved by bisection to {@link #TOLERANCE_MM}.
+     * stack, becomes one condition on the whole path at d, solved by the bracketing search to {@link #TOLERANCE_MM}.
      * Those are monotone too: every T of the path falls as the candidate thickens (the stack's T rises with
      * each part's T), hence so do a band's worst point, its mean and any weighted figure; a cutoff again
      * splits into its two edges. The critical wavelength is not monotone in general (it follows the shape
@@ -194,22 +195,19 @@ public final class ThicknessSolver {
         if (falling.isEmpty()) {
             return hi;
         }
-        if (gap(falling, rising, lo) <= 0) {
+        double atLo = gap(falling, rising, lo);
+        if (atLo <= 0) {
             return lo;
         }
-        if (gap(falling, rising, hi) >= 0) {
+        double atHi = gap(falling, rising, hi);
+        if (atHi >= 0) {
             return hi;
         }
-        double a = lo;
-        double b = hi;
-        while (b - a > TOLERANCE_MM) {
-            double mid = 0.5 * (a + b);
-            if (gap(falling, rising, mid) > 0) {
-                a = mid;
-            } else {
-                b = mid;
-            }
-        }
+        // the side of a trial thickness is gap > 0 as before (a NaN gap is on the far side)
+        CrossingFinder.Bracket bracket = CrossingFinder.narrow(d -> gap(falling, rising, d), g -> g > 0, lo, atLo,
+                hi, atHi, TOLERANCE_MM, CrossingFinder.Keep.EITHER);
+        double a = bracket.left();
+        double b = bracket.right();
         // of the two ends of the final bracket, the one with the larger worst margin
         return worst(constraints, a) >= worst(constraints, b) ? a : b;
     }

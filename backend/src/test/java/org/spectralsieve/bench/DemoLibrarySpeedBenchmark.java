@@ -19,6 +19,7 @@ import java.util.Map;
 import java.util.stream.Stream;
 import org.junit.jupiter.api.Test;
 import org.spectralsieve.SpectralSieveApplication;
+import org.spectralsieve.requirement.CrossingFinder;
 import org.spectralsieve.requirement.JudgementPath;
 import org.springframework.boot.builder.SpringApplicationBuilder;
 import org.springframework.context.ConfigurableApplicationContext;
@@ -42,7 +43,9 @@ import tools.jackson.databind.json.JsonMapper;
  * {@code -Dbench.demoWarmups=5}, {@code -Dbench.limit=20}; {@code -Dbench.demoPaths=true} also judges every
  * search the earlier way ({@link JudgementPath}) just before the default one, round by round, and prints
  * {@code BENCH demo-search-paths kind=<k> variant=earlier|formed-when-read …} for both side by side (the
- * {@code demo-search} lines stay those of the default way).
+ * {@code demo-search} lines stay those of the default way). {@code -Dbench.demoRoots=true} likewise runs every
+ * search with the thickness solves by bisection ({@link CrossingFinder#useBisection}) just before the default
+ * (ITP) and prints {@code BENCH demo-search-roots kind=<k> variant=bisection|itp …}.
  */
 class DemoLibrarySpeedBenchmark {
 
@@ -67,6 +70,7 @@ class DemoLibrarySpeedBenchmark {
         int warmups = BenchStats.intProperty("bench.demoWarmups", 5);
         int limit = BenchStats.intProperty("bench.limit", 20);
         boolean paths = Boolean.getBoolean("bench.demoPaths");
+        boolean roots = Boolean.getBoolean("bench.demoRoots");
         Path dir = Files.createTempDirectory("sieve-demo-speed-bench");
         String dbUrl = "jdbc:h2:file:" + dir.resolve("sieve").toAbsolutePath() + ";AUTO_SERVER=FALSE";
         HttpClient http = HttpClient.newBuilder().version(HttpClient.Version.HTTP_1_1)
@@ -88,11 +92,17 @@ class DemoLibrarySpeedBenchmark {
                         search(http, base, requirement, limit);
                         JudgementPath.useReference(false);
                     }
+                    if (roots) {
+                        CrossingFinder.useBisection(true);
+                        search(http, base, requirement, limit);
+                        CrossingFinder.useBisection(false);
+                    }
                     search(http, base, requirement, limit);
                 }
             }
             Map<String, Answer[]> answers = new LinkedHashMap<>();
             Map<String, Answer[]> earlier = new LinkedHashMap<>();
+            Map<String, Answer[]> bisection = new LinkedHashMap<>();
             for (int i = 0; i < runs; i++) {
                 for (Map.Entry<String, String> kind : kinds.entrySet()) {
                     if (paths) {
@@ -102,6 +112,13 @@ class DemoLibrarySpeedBenchmark {
                                 search(http, base, kind.getValue(), limit);
                         JudgementPath.useReference(false);
                     }
+                    if (roots) {
+                        // thickness solves by bisection just before the default (ITP), the same neighbours
+                        CrossingFinder.useBisection(true);
+                        bisection.computeIfAbsent(kind.getKey(), k -> new Answer[runs])[i] =
+                                search(http, base, kind.getValue(), limit);
+                        CrossingFinder.useBisection(false);
+                    }
                     answers.computeIfAbsent(kind.getKey(), k -> new Answer[runs])[i] =
                             search(http, base, kind.getValue(), limit);
                 }
@@ -110,9 +127,14 @@ class DemoLibrarySpeedBenchmark {
                 print("demo-search-paths", "earlier", earlier, materials.size(), curves, runs);
                 print("demo-search-paths", "formed-when-read", answers, materials.size(), curves, runs);
             }
+            if (roots) {
+                print("demo-search-roots", "bisection", bisection, materials.size(), curves, runs);
+                print("demo-search-roots", "itp", answers, materials.size(), curves, runs);
+            }
             print("demo-search", null, answers, materials.size(), curves, runs);
         } finally {
             JudgementPath.useReference(false);
+            CrossingFinder.useBisection(false);
             delete(dir);
         }
     }

@@ -14,6 +14,7 @@ import java.util.List;
 import java.util.stream.IntStream;
 import org.junit.jupiter.api.Test;
 import org.spectralsieve.requirement.Candidate;
+import org.spectralsieve.requirement.CrossingFinder;
 import org.spectralsieve.requirement.MaterialEvaluation;
 import org.spectralsieve.requirement.RankedRow;
 import org.spectralsieve.requirement.Ranking;
@@ -35,7 +36,9 @@ import org.spectralsieve.store.WeightedScreen;
  *
  * <p>One search = the store's bounded pass over every curve plus the exact re-evaluation of the returned
  * rows, as the service does it. Switches: {@code -Dbench.sizes=10000,100000,1000000},
- * {@code -Dbench.sqlSizes=10000}, {@code -Dbench.runs=41}, {@code -Dbench.sqlRuns=5}, {@code -Dbench.limit=20}.
+ * {@code -Dbench.sqlSizes=10000}, {@code -Dbench.runs=41}, {@code -Dbench.sqlRuns=5}, {@code -Dbench.limit=20};
+ * {@code -Dbench.searchRoots=true} also times the service's path ({@link #search}) with the thickness solves by
+ * ITP and by bisection in turn ({@code BENCH search-roots ... variant=bisection|itp}).
  */
 class SearchBenchmark {
 
@@ -96,7 +99,14 @@ class SearchBenchmark {
         boolean sameRowsByObjects = true;
         int refined = 0;
         int handedOver = 0;
+        boolean roots = Boolean.getBoolean("bench.searchRoots");
+        double[] rootsMs = new double[runs];
+        double[] bisectionMs = new double[runs];
         for (int i = 0; i < runs; i++) {
+            if (roots) {
+                // the whole search with thickness solves by ITP (the default) and by bisection, in turn first
+                timedRoots(store, requirement, limit, i, i % 2 == 0, rootsMs, bisectionMs);
+            }
             // every other iteration the search without the screen goes first: the place in the loop alone moved
             // the same code's figures by a third under load (as measured both variants take the same path)
             StoreResult unscreened = i % 2 == 1 ? timedWhole(StoreSearch::searchWithoutRangeScreen, store, requirement,
@@ -154,7 +164,28 @@ class SearchBenchmark {
                         + " store_p50_ms=%s store_p95_ms=%s same_rows=%s%n", store.size(), mode,
                 ms(percentile(ms, 50)), ms(percentile(ms, 95)), ms(percentile(storeMs, 50)),
                 ms(percentile(storeMs, 95)), sameRowsByObjects);
+        if (roots) {
+            System.out.printf("BENCH search-roots curves=%d mode=%s variant=bisection p50_ms=%s p95_ms=%s%n", store.size(),
+                    mode, ms(percentile(bisectionMs, 50)), ms(percentile(bisectionMs, 95)));
+            System.out.printf("BENCH search-roots curves=%d mode=%s variant=itp p50_ms=%s p95_ms=%s%n", store.size(),
+                    mode, ms(percentile(rootsMs, 50)), ms(percentile(rootsMs, 95)));
+        }
         return percentile(ms, 50);
+    }
+
+    /** {@link #search} timed once each way ({@link CrossingFinder#useBisection}), bisection first when asked. */
+    private static void timedRoots(SpectralStore store, Requirement requirement, int limit, int i, boolean bisectionFirst,
+                                   double[] itpMs, double[] bisectionMs) {
+        for (boolean bisection : bisectionFirst ? new boolean[] {true, false} : new boolean[] {false, true}) {
+            CrossingFinder.useBisection(bisection);
+            try {
+                long t0 = System.nanoTime();
+                search(store, requirement, limit);
+                (bisection ? bisectionMs : itpMs)[i] = (System.nanoTime() - t0) / 1e6;
+            } finally {
+                CrossingFinder.useBisection(false);
+            }
+        }
     }
 
     /** One way of the store's pick, for timing the whole search with it ({@link #timedWhole}). */

@@ -23,6 +23,7 @@ import org.spectralsieve.library.NewSample;
 import org.spectralsieve.library.Provenance;
 import org.spectralsieve.library.Scaling;
 import org.spectralsieve.library.StatedThicknesses;
+import org.spectralsieve.requirement.CrossingFinder;
 import org.spectralsieve.requirement.Requirement;
 import org.spectralsieve.requirement.RequirementParser;
 import org.spectralsieve.search.SearchService;
@@ -59,12 +60,18 @@ import org.springframework.core.io.DefaultResourceLoader;
  * ({@link SearchService#withMaterialsWhole}; {@code -Dbench.screenSkipMaterialsWhole=true} leaves it out).
  * {@code on-earlier-arithmetic} the same service judging with the per-point arithmetic before the sixth pass
  * ({@link PerPointArithmetic}; {@code -Dbench.screenArithmetic=earlier} adds it).
+ * {@code on-bisection} the same service with its thickness solves by bisection, as before the seventh pass
+ * ({@link CrossingFinder#useBisection}; {@code -Dbench.screenRoots=bisection} adds it); for every line whose
+ * searches solved a thickness, a {@code DEBUG solve-trials} line gives the root finder's trial thicknesses per
+ * sample judged exactly.
  * {@code -Dbench.screenModes=measured,solve,layer} picks the variants.
  */
 class WeightedScreenBenchmark {
 
     /** The service judged with the per-point arithmetic before the sixth pass ({@code -Dbench.screenArithmetic=earlier}). */
     private static final String EARLIER_ARITHMETIC = "on-earlier-arithmetic";
+    /** The service with thickness solves by bisection, as before the seventh pass ({@code -Dbench.screenRoots=bisection}). */
+    private static final String BISECTION = "on-bisection";
 
     static final String WEIGHTED = "passes over 85% of led 365 and uv hazard under 0.1% and luminous over 70%";
 
@@ -104,6 +111,10 @@ class WeightedScreenBenchmark {
             // the per-point arithmetic before the sixth pass (PerPointArithmetic), the same service otherwise
             services.put(EARLIER_ARITHMETIC, new SearchService(library));
         }
+        if (BenchStats.stringList("bench.screenRoots", "").contains("bisection")) {
+            // thickness solves by bisection (CrossingFinder), the same service otherwise
+            services.put(BISECTION, new SearchService(library));
+        }
         if (!Boolean.getBoolean("bench.screenSkipNoSecondStage")) {
             // the judging loop without its second, exact-curve stage: the rule before it, side by side
             services.put("on-no-second-stage", new SearchService(library).withoutSecondStage());
@@ -131,24 +142,37 @@ class WeightedScreenBenchmark {
                 variants.values().forEach(r -> services.get(EARLIER_ARITHMETIC).search(r, limit));
             }
             PerPointArithmetic.useEarlier(false);
+            if (services.containsKey(BISECTION)) {
+                CrossingFinder.useBisection(true);
+                variants.values().forEach(r -> services.get(BISECTION).search(r, limit));
+                CrossingFinder.useBisection(false);
+            }
         }
         Map<String, double[]> took = new LinkedHashMap<>();
         Map<String, Shortlist> last = new LinkedHashMap<>();
         // the CPU the whole JVM spent per search (every thread, collector and compiler included): on a shared,
         // loaded machine it moves less than the wall time, since waiting for a core is not counted
         Map<String, double[]> cpu = new LinkedHashMap<>();
+        // the root finder's trials (thickness solves) per sample judged exactly, summed over the runs
+        Map<String, long[]> trials = new LinkedHashMap<>();
         for (int i = 0; i < runs; i++) {
             for (Map.Entry<String, Requirement> variant : variants.entrySet()) {
                 for (Map.Entry<String, SearchService> service : services.entrySet()) {
                     String key = variant.getKey() + " " + service.getKey();
                     PerPointArithmetic.useEarlier(service.getKey().equals(EARLIER_ARITHMETIC));
+                    CrossingFinder.useBisection(service.getKey().equals(BISECTION));
                     Shortlist answer;
                     long cpuBefore = processCpuNanos();
+                    long trialsBefore = CrossingFinder.steps();
                     try {
                         answer = service.getValue().search(variant.getValue(), limit);
                     } finally {
                         PerPointArithmetic.useEarlier(false);
+                        CrossingFinder.useBisection(false);
                     }
+                    long[] t = trials.computeIfAbsent(key, k -> new long[2]);
+                    t[0] += CrossingFinder.steps() - trialsBefore;
+                    t[1] += answer.judgedExactly();
                     cpu.computeIfAbsent(key, k -> new double[runs])[i] = (processCpuNanos() - cpuBefore) / 1e6;
                     took.computeIfAbsent(key, k -> new double[runs])[i] = answer.tookMs();
                     last.put(key, answer);
@@ -167,6 +191,12 @@ class WeightedScreenBenchmark {
                         name, store.size(), variant, screen, ms(percentile(m, 50)), ms(percentile(m, 95)),
                         answer.judgedExactly(), answer.evaluatedSamples(), same, store.bytesPerCurve(), runs,
                         ms(percentile(cpu.get(key), 50)), ms(percentile(cpu.get(key), 95)));
+                long[] t = trials.get(key);
+                if (t[0] > 0) {
+                    // a debug line, not a BENCH row: how many trial thicknesses the solves took per judged sample
+                    System.out.printf("DEBUG solve-trials library=%s mode=%s screen=%s trials_per_judged=%.1f"
+                            + " judged=%d runs=%d%n", name, variant, screen, (double) t[0] / Math.max(1, t[1]), t[1], runs);
+                }
             }
         }
     }
