@@ -40,6 +40,7 @@ import org.spectralsieve.requirement.MaterialEvaluation;
 import org.spectralsieve.requirement.RankedRow;
 import org.spectralsieve.requirement.Ranking;
 import org.spectralsieve.requirement.Requirement;
+import org.spectralsieve.requirement.SampleJudge;
 import org.spectralsieve.requirement.SampleEvaluation;
 import org.spectralsieve.requirement.SampleEvaluator;
 import org.spectralsieve.requirement.SeeThrough;
@@ -141,6 +142,13 @@ public class SearchService {
      * ways ({@link #withMaterialsWhole}).
      */
     private boolean samplesAsContenders = true;
+    /**
+     * Recent exact judgements of one sample, handed out again for the same arguments ({@link JudgementMemo},
+     * docs/judgement-memo.md); null judges every sample afresh ({@code -Dsieve.search.judgement-memo=false} or
+     * {@link #withoutJudgementMemo}), only so a benchmark and tests can compare both ways (the answers are the same).
+     */
+    private volatile JudgementMemo memo = JudgementMemo.enabledByDefault()
+            ? new JudgementMemo(JudgementMemo.entriesByDefault()) : null;
     /** How requirements the store cannot rank are judged ({@link #searchExactly}); other ways for benchmarks and tests. */
     private Judging judging = Judging.BOUNDED_PARALLEL;
 
@@ -173,6 +181,24 @@ public class SearchService {
     public SearchService judgingEverySample() {
         this.boundSamples = false;
         return this;
+    }
+
+    /** The same service judging every sample afresh, as before {@link JudgementMemo}: the same answers. */
+    public SearchService withoutJudgementMemo() {
+        this.memo = null;
+        return this;
+    }
+
+    /** The same service keeping its exact judgements in {@code kept} (tests: a small or a deliberately stale one). */
+    SearchService withJudgementMemo(JudgementMemo kept) {
+        this.memo = java.util.Objects.requireNonNull(kept, "kept");
+        return this;
+    }
+
+    /** The memo's hits, misses and entries (empty when the service keeps none): for the debug and BENCH lines. */
+    public Optional<JudgementMemo.Counts> judgementMemoCounts() {
+        JudgementMemo kept = memo;
+        return kept == null ? Optional.empty() : Optional.of(kept.counts());
     }
 
     /** The same service judging the other way (benchmarks and equivalence tests; answers never depend on it). */
@@ -350,7 +376,7 @@ public class SearchService {
             if (boundSamples && curve != NO_CURVE) {
                 Prepared p = prepare(s, material, requirement, false);
                 Optional<List<MaterialEvaluation>> bestFirst = BestSampleFirst.judge(p.candidates(), p.failed(),
-                        requirement, reach.curvesOfMaterialOf(curve), reach, grouped);
+                        requirement, reach.curvesOfMaterialOf(curve), reach, grouped, p.sampleJudge());
                 exact.addAll(bestFirst.orElseGet(() -> p.judge(requirement, Optional.empty())));
             } else {
                 exact.addAll(judge(s, material, requirement, Optional.empty(), false));
@@ -392,13 +418,14 @@ public class SearchService {
      * A material's admitted samples made ready for {@link MaterialJudge}: the candidates, and a row saying why
      * for each sample that could not become one.
      */
-    private record Prepared(Material material, List<Candidate> candidates, List<MaterialEvaluation> failed) {
+    private record Prepared(Material material, List<Candidate> candidates, List<MaterialEvaluation> failed,
+                            SampleJudge sampleJudge) {
 
         List<MaterialEvaluation> judge(Requirement requirement, Optional<StackLayer> layer) {
             List<MaterialEvaluation> out = new ArrayList<>(failed);
             if (!candidates.isEmpty()) {
                 try {
-                    out.addAll(MaterialJudge.evaluate(candidates, requirement, layer));
+                    out.addAll(MaterialJudge.evaluate(candidates, requirement, layer, sampleJudge));
                 } catch (RuntimeException e) {
                     // the material's samples are judged together: when that fails, each says why, the search goes on
                     candidates.forEach(c -> out.add(notComputable(material, c.sampleId(), c.thicknessMm(), requirement, e)));
@@ -418,7 +445,7 @@ public class SearchService {
                 }
             }
             try {
-                return MaterialJudge.evaluateOne(candidates, requirement, layer, sampleId);
+                return MaterialJudge.evaluateOne(candidates, requirement, layer, sampleId, sampleJudge);
             } catch (RuntimeException e) {
                 return candidates.stream().filter(c -> c.sampleId() == sampleId)
                         .map(c -> notComputable(material, c.sampleId(), c.thicknessMm(), requirement, e)).toList();
@@ -463,7 +490,7 @@ public class SearchService {
                 }
             }
         }
-        return new Prepared(material, candidates, failed);
+        return new Prepared(material, candidates, failed, memo != null ? memo : SampleJudge.EXACT);
     }
 
     /**
