@@ -142,15 +142,22 @@ public final class JudgementMemo implements SampleJudge {
         synchronized (entries) {
             size = entries.size();
         }
-        return new Counts(hits.sum(), misses.sum(), size, maxEntries);
+        int asked;
+        synchronized (questions) {
+            asked = questions.size();
+        }
+        return new Counts(hits.sum(), misses.sum(), size, maxEntries, asked);
     }
 
     public int maxEntries() {
         return maxEntries;
     }
 
-    /** @param hits judgements handed out again; {@code misses} judged now (and kept) */
-    public record Counts(long hits, long misses, int entries, int maxEntries) {
+    /**
+     * @param hits      judgements handed out again; {@code misses} judged now (and kept)
+     * @param questions distinct questions numbered now (at most {@value #QUESTIONS})
+     */
+    public record Counts(long hits, long misses, int entries, int maxEntries, int questions) {
 
         public double hitRate() {
             long all = hits + misses;
