@@ -129,11 +129,41 @@ public final class JudgementMemo implements SampleJudge {
         return judged;
     }
 
+    /**
+     * The question's number. A search passes the same requirement and layer objects for every sample it judges, so
+     * the last few are recognised by identity first (immutable records: the same objects are the same question,
+     * with the same switches): comparing a layer's curve by content for every sample cost as much as judging it.
+     */
     private long questionNumber(Requirement requirement, Optional<StackLayer> layer) {
-        Question q = Question.of(requirement, layer);
-        synchronized (questions) {
-            return questions.computeIfAbsent(q, x -> nextQuestion.getAndIncrement());
+        boolean reference = JudgementPath.reference();
+        boolean byLookup = FigurePath.byLookup();
+        boolean earlier = PerPointArithmetic.earlier();
+        Recent[] seen = recent;
+        for (Recent r : seen) {
+            if (r != null && r.requirement == requirement && r.layer == layer && r.reference == reference
+                    && r.byLookup == byLookup && r.earlier == earlier) {
+                return r.number;
+            }
         }
+        Question q = Question.of(requirement, layer, reference, byLookup, earlier);
+        long number;
+        synchronized (questions) {
+            number = questions.computeIfAbsent(q, x -> nextQuestion.getAndIncrement());
+        }
+        Recent[] next = new Recent[RECENT];
+        next[0] = new Recent(requirement, layer, reference, byLookup, earlier, number);
+        System.arraycopy(seen, 0, next, 1, RECENT - 1);
+        recent = next; // a lost race forgets one recent question: the next call finds it through the map
+        return number;
+    }
+
+    /** Questions recognised by identity before the map is asked. */
+    private static final int RECENT = 8;
+    private volatile Recent[] recent = new Recent[RECENT];
+
+    /** A recent question's objects, its switches and its number. */
+    private record Recent(Requirement requirement, Optional<StackLayer> layer, boolean reference, boolean byLookup,
+                          boolean earlier, long number) {
     }
 
     /** Hits and misses since the memo was made, and the entries kept now. */
@@ -172,7 +202,8 @@ public final class JudgementMemo implements SampleJudge {
     private record Question(Requirement requirement, Optional<StackLayer> layer, Identities spectra,
                             boolean referencePath, boolean figureByLookup, boolean earlierArithmetic) {
 
-        static Question of(Requirement requirement, Optional<StackLayer> layer) {
+        static Question of(Requirement requirement, Optional<StackLayer> layer, boolean referencePath,
+                           boolean figureByLookup, boolean earlierArithmetic) {
             List<Object> spectra = new ArrayList<>();
             for (Clause c : requirement.clauses()) {
                 if (c instanceof WeightedClause w && w.weighting() instanceof Weighting.Spectral s) {
@@ -180,8 +211,8 @@ public final class JudgementMemo implements SampleJudge {
                     spectra.add(s.response().orElse(null));
                 }
             }
-            return new Question(requirement, layer, new Identities(spectra.toArray()), JudgementPath.reference(),
-                    FigurePath.byLookup(), PerPointArithmetic.earlier());
+            return new Question(requirement, layer, new Identities(spectra.toArray()), referencePath, figureByLookup,
+                    earlierArithmetic);
         }
     }
 
