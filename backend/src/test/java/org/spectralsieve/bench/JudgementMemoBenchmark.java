@@ -32,9 +32,11 @@ import org.springframework.core.io.DefaultResourceLoader;
  * one illustrative material holding {@code -Dbench.memoSheets=150} sheets (ten copies of twenty edges, as the load
  * benchmark's imports make). One thread, no HTTP: each search's own {@code tookMs}.
  * <ul>
- *   <li>{@code BENCH judgement-memo-search kind=<k> memo=on|off p50_ms p95_ms judged runs}: the load benchmark's
- *       four requirements asked again and again, a service with the memo and one without, alternated search by
- *       search on the same library (the memo's first search of each kind is a miss and counted).</li>
+ *   <li>{@code BENCH judgement-memo-search kind=<k> requirements=fixed|varied memo=on|off p50_ms p95_ms judged runs}:
+ *       the load benchmark's four requirements asked again and again ({@code fixed}; the memo's first search of each
+ *       kind is a miss and counted), or with their numbers drawn per run ({@code varied}, almost every judgement a
+ *       miss: what the memo costs when it cannot help), a service with the memo and one without, alternated search
+ *       by search on the same library.</li>
  *   <li>{@code BENCH judgement-memo-memory entries bytes_per_entry}: the heap the memo holds, measured (used heap
  *       after collections with the memo full of the varied requirements' judgements, and again once the service
  *       dropped it), divided by its entries; curves are held weakly and not counted (the snapshot's cache holds
@@ -46,16 +48,28 @@ class JudgementMemoBenchmark {
 
     @Test
     void theLoadBenchmarksSearchesWithAndWithoutTheMemo() {
+        alternate(false);
+    }
+
+    /** The same with every search's numbers drawn per run ({@code LoadBenchmark.Varied}): almost every judgement a miss. */
+    @Test
+    void variedSearchesWithAndWithoutTheMemo() {
+        alternate(true);
+    }
+
+    private static void alternate(boolean varied) {
         JooqLibraryRepository library = library(BenchStats.intProperty("bench.memoSheets", 150));
         SearchService on = new SearchService(library);
         SearchService off = new SearchService(library).withoutJudgementMemo();
         int runs = BenchStats.intProperty("bench.memoRuns", 15);
+        String label = varied ? "varied" : "fixed";
         Map<LoadBenchmark.Kind, List<Double>> onMs = new EnumMap<>(LoadBenchmark.Kind.class);
         Map<LoadBenchmark.Kind, List<Double>> offMs = new EnumMap<>(LoadBenchmark.Kind.class);
         Map<LoadBenchmark.Kind, Integer> judged = new EnumMap<>(LoadBenchmark.Kind.class);
         for (int run = 0; run < runs; run++) {
             for (LoadBenchmark.Kind kind : searches()) {
-                var requirement = RequirementParser.parse(LoadBenchmark.requirementOf(kind));
+                var requirement = RequirementParser.parse(varied ? LoadBenchmark.Varied.requirement(kind, run)
+                        : LoadBenchmark.requirementOf(kind));
                 // alternate which goes first, so neither always finds the other's work warm in the caches
                 SearchService first = run % 2 == 0 ? on : off;
                 SearchService second = first == on ? off : on;
@@ -66,16 +80,16 @@ class JudgementMemoBenchmark {
                 }
                 (first == on ? onMs : offMs).computeIfAbsent(kind, k -> new ArrayList<>()).add(a.tookMs());
                 (first == on ? offMs : onMs).computeIfAbsent(kind, k -> new ArrayList<>()).add(b.tookMs());
-                judged.put(kind, a.judgedExactly());
+                judged.merge(kind, a.judgedExactly(), Integer::sum);
             }
         }
         for (LoadBenchmark.Kind kind : searches()) {
-            print(kind, "on", onMs.get(kind), judged.get(kind));
-            print(kind, "off", offMs.get(kind), judged.get(kind));
+            print(kind, label, "on", onMs.get(kind), judged.get(kind));
+            print(kind, label, "off", offMs.get(kind), judged.get(kind));
         }
         JudgementMemo.Counts counts = on.judgementMemoCounts().orElseThrow();
-        System.out.printf(Locale.ROOT, "BENCH judgement-memo-counts hits=%d misses=%d hit_rate=%.3f entries=%d%n",
-                counts.hits(), counts.misses(), counts.hitRate(), counts.entries());
+        System.out.printf(Locale.ROOT, "BENCH judgement-memo-counts requirements=%s hits=%d misses=%d hit_rate=%.3f entries=%d%n",
+                label, counts.hits(), counts.misses(), counts.hitRate(), counts.entries());
     }
 
     @Test
@@ -103,10 +117,11 @@ class JudgementMemoBenchmark {
                 LoadBenchmark.Kind.SEARCH_WEIGHTED, LoadBenchmark.Kind.SEARCH_BEHIND);
     }
 
-    private static void print(LoadBenchmark.Kind kind, String memo, List<Double> times, int judged) {
+    private static void print(LoadBenchmark.Kind kind, String requirements, String memo, List<Double> times, int judged) {
         double[] t = times.stream().mapToDouble(Double::doubleValue).toArray();
-        System.out.printf(Locale.ROOT, "BENCH judgement-memo-search kind=%s memo=%s p50_ms=%s p95_ms=%s judged=%d runs=%d%n",
-                kind.label(), memo, ms(percentile(t, 50)), ms(percentile(t, 95)), judged, t.length);
+        System.out.printf(Locale.ROOT, "BENCH judgement-memo-search kind=%s requirements=%s memo=%s p50_ms=%s p95_ms=%s"
+                        + " judged_mean=%.1f runs=%d%n", kind.label(), requirements, memo, ms(percentile(t, 50)),
+                ms(percentile(t, 95)), (double) judged / t.length, t.length);
     }
 
     /** The demo library and one bulk sheet material with {@code sheets} samples of the load benchmark's imports. */

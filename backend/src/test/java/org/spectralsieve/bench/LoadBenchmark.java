@@ -58,7 +58,8 @@ import tools.jackson.databind.json.JsonMapper;
  * {@code -Dbench.loadPasses=2} (1: the cold pass alone), {@code -Dbench.loadVaried=true} (each search's thresholds
  * drawn per request from a seeded set of 200 values per number, so few questions repeat: what a memo of
  * judgements cannot help), {@code -Dsieve.search.judgement-memo=false} (the service judges every sample afresh;
- * {@code BENCH load-memo} prints the memo's hits and misses of each pass when it is on).
+ * {@code BENCH load-memo} prints the memo's hits and misses of each pass when it is on),
+ * {@code -Dsieve.json.fast-doubles=false} (answers' doubles written by {@code Double.toString}, the way before).
  */
 class LoadBenchmark {
 
@@ -351,11 +352,12 @@ class LoadBenchmark {
         long serverErrors = outcomes.stream().filter(o -> o.status() >= 500).count();
         System.out.printf(Locale.ROOT, "BENCH load pass=%s clients=%d requests=%d errors=%d server_errors=%d"
                         + " imports_acknowledged=%d wall_s=%.1f throughput_per_s=%.1f judgement_lanes=%d judgement_memo=%s"
-                        + " requirements=%s%n", pass.label(),
+                        + " requirements=%s json_fast_doubles=%s%n", pass.label(),
                 clients, outcomes.size(), errors, serverErrors, acknowledged, wallNanos / 1e9,
                 outcomes.size() / (wallNanos / 1e9), judgementLanes(),
                 "false".equals(System.getProperty("sieve.search.judgement-memo")) ? "off" : "on",
-                varied() ? "varied" : "fixed");
+                varied() ? "varied" : "fixed",
+                "false".equals(System.getProperty("sieve.json.fast-doubles")) ? "off" : "on");
         Map<Kind, List<Double>> byKind = new EnumMap<>(Kind.class);
         for (Outcome o : outcomes) {
             byKind.computeIfAbsent(o.kind(), k -> new ArrayList<>()).add(o.ms());
