@@ -48,7 +48,8 @@ import org.spectralsieve.weighting.FigurePath;
  *       own tests, kept in the key all the same). Each distinct question gets a number never used again.</li>
  *   <li><b>Span</b>: the thicknesses the sample speaks for among its material's samples, by value.</li>
  * </ul>
- * A judgement that throws is not kept. Bounded: at most {@code maxEntries} judgements (least recently used
+ * Judgements are kept only for a question an earlier search asked too (admitted on the second ask): a new
+ * threshold every time would only churn the memo. A judgement that throws is not kept. Bounded: at most {@code maxEntries} judgements (least recently used
  * first out) and {@value #QUESTIONS} questions; thread-safe (one lock per map, held only to look up or put).
  */
 public final class JudgementMemo implements SampleJudge {
@@ -61,10 +62,11 @@ public final class JudgementMemo implements SampleJudge {
     private final int maxEntries;
     private final boolean keyOnSampleIdOnly;
     private final Map<SampleKey, SampleEvaluation> entries;
-    private final Map<Question, Long> questions;
+    private final Map<Question, Asked> questions;
     private final AtomicLong nextQuestion = new AtomicLong();
     private final LongAdder hits = new LongAdder();
     private final LongAdder misses = new LongAdder();
+    private final LongAdder unkept = new LongAdder();
 
     public JudgementMemo(int maxEntries) {
         this(maxEntries, false);
@@ -84,7 +86,7 @@ public final class JudgementMemo implements SampleJudge {
         };
         this.questions = new LinkedHashMap<>(16, 0.75f, true) {
             @Override
-            protected boolean removeEldestEntry(Map.Entry<Question, Long> eldest) {
+            protected boolean removeEldestEntry(Map.Entry<Question, Asked> eldest) {
                 return size() > QUESTIONS;
             }
         };
@@ -112,7 +114,14 @@ public final class JudgementMemo implements SampleJudge {
     @Override
     public SampleEvaluation evaluate(Candidate candidate, Requirement requirement, Optional<StackLayer> layer,
                                      ThicknessInterval span) {
-        SampleKey key = new SampleKey(questionNumber(requirement, layer), candidate, span, keyOnSampleIdOnly);
+        Asked asked = asked(requirement, layer);
+        if (!asked.again()) {
+            // a question seen once so far: judged and not kept (a shared lab repeats questions; a new threshold each
+            // time would only churn the memo, and its entries through the collector)
+            unkept.increment();
+            return SampleEvaluator.evaluate(candidate, requirement, layer, span);
+        }
+        SampleKey key = new SampleKey(asked.number(), candidate, span, keyOnSampleIdOnly);
         SampleEvaluation kept;
         synchronized (entries) {
             kept = entries.get(key);
@@ -130,11 +139,14 @@ public final class JudgementMemo implements SampleJudge {
     }
 
     /**
-     * The question's number. A search passes the same requirement and layer objects for every sample it judges, so
-     * the last few are recognised by identity first (immutable records: the same objects are the same question,
-     * with the same switches): comparing a layer's curve by content for every sample cost as much as judging it.
+     * The question's number, and whether it was asked before (by an earlier search). A search passes the same
+     * requirement and layer objects for every sample it judges, so the last few are recognised by identity first
+     * (immutable records: the same objects are the same question, with the same switches): comparing a layer's curve
+     * by content for every sample cost as much as judging it. A question not recognised so is counted as asked once
+     * more: once per search, or twice when two threads of one search both miss the recent ones (then kept one search
+     * early; only the speed depends on it).
      */
-    private long questionNumber(Requirement requirement, Optional<StackLayer> layer) {
+    private Asked asked(Requirement requirement, Optional<StackLayer> layer) {
         boolean reference = JudgementPath.reference();
         boolean byLookup = FigurePath.byLookup();
         boolean earlier = PerPointArithmetic.earlier();
@@ -142,28 +154,34 @@ public final class JudgementMemo implements SampleJudge {
         for (Recent r : seen) {
             if (r != null && r.requirement == requirement && r.layer == layer && r.reference == reference
                     && r.byLookup == byLookup && r.earlier == earlier) {
-                return r.number;
+                return r.asked;
             }
         }
         Question q = Question.of(requirement, layer, reference, byLookup, earlier);
-        long number;
+        Asked asked;
         synchronized (questions) {
-            number = questions.computeIfAbsent(q, x -> nextQuestion.getAndIncrement());
+            Asked before = questions.get(q);
+            asked = before == null ? new Asked(nextQuestion.getAndIncrement(), false) : new Asked(before.number(), true);
+            questions.put(q, asked);
         }
         Recent[] next = new Recent[RECENT];
-        next[0] = new Recent(requirement, layer, reference, byLookup, earlier, number);
+        next[0] = new Recent(requirement, layer, reference, byLookup, earlier, asked);
         System.arraycopy(seen, 0, next, 1, RECENT - 1);
         recent = next; // a lost race forgets one recent question: the next call finds it through the map
-        return number;
+        return asked;
+    }
+
+    /** A question's number, never reused, and whether an earlier search asked it too. */
+    private record Asked(long number, boolean again) {
     }
 
     /** Questions recognised by identity before the map is asked. */
     private static final int RECENT = 8;
     private volatile Recent[] recent = new Recent[RECENT];
 
-    /** A recent question's objects, its switches and its number. */
+    /** A recent question's objects, its switches and what the map said of it. */
     private record Recent(Requirement requirement, Optional<StackLayer> layer, boolean reference, boolean byLookup,
-                          boolean earlier, long number) {
+                          boolean earlier, Asked asked) {
     }
 
     /** Hits and misses since the memo was made, and the entries kept now. */
@@ -176,7 +194,7 @@ public final class JudgementMemo implements SampleJudge {
         synchronized (questions) {
             asked = questions.size();
         }
-        return new Counts(hits.sum(), misses.sum(), size, maxEntries, asked);
+        return new Counts(hits.sum(), misses.sum(), unkept.sum(), size, maxEntries, asked);
     }
 
     public int maxEntries() {
@@ -184,13 +202,14 @@ public final class JudgementMemo implements SampleJudge {
     }
 
     /**
-     * @param hits      judgements handed out again; {@code misses} judged now (and kept)
+     * @param hits      judgements handed out again; {@code misses} judged now and kept
+     * @param unkept    judged now and not kept: their question was asked for the first time
      * @param questions distinct questions numbered now (at most {@value #QUESTIONS})
      */
-    public record Counts(long hits, long misses, int entries, int maxEntries, int questions) {
+    public record Counts(long hits, long misses, long unkept, int entries, int maxEntries, int questions) {
 
         public double hitRate() {
-            long all = hits + misses;
+            long all = hits + misses + unkept;
             return all == 0 ? 0 : (double) hits / all;
         }
     }

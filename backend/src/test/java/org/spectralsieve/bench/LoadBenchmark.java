@@ -231,9 +231,11 @@ class LoadBenchmark {
         }
         long hits = after.get().hits() - before.get().hits();
         long misses = after.get().misses() - before.get().misses();
-        System.out.printf(Locale.ROOT, "BENCH load-memo pass=%s memo=on requirements=%s hits=%d misses=%d hit_rate=%.3f"
-                        + " entries=%d max_entries=%d questions=%d%n", pass.label(), varied() ? "varied" : "fixed", hits,
-                misses, hits + misses == 0 ? 0.0 : (double) hits / (hits + misses), after.get().entries(),
+        long unkept = after.get().unkept() - before.get().unkept();
+        long all = hits + misses + unkept;
+        System.out.printf(Locale.ROOT, "BENCH load-memo pass=%s memo=on requirements=%s hits=%d misses=%d unkept=%d"
+                        + " hit_rate=%.3f entries=%d max_entries=%d questions=%d%n", pass.label(), varied() ? "varied" : "fixed",
+                hits, misses, unkept, all == 0 ? 0.0 : (double) hits / all, after.get().entries(),
                 after.get().maxEntries(), after.get().questions());
     }
 
