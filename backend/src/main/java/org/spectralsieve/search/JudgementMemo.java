@@ -143,8 +143,8 @@ public final class JudgementMemo implements SampleJudge {
      * requirement and layer objects for every sample it judges, so the last few are recognised by identity first
      * (immutable records: the same objects are the same question, with the same switches): comparing a layer's curve
      * by content for every sample cost as much as judging it. A question not recognised so is counted as asked once
-     * more: once per search, or twice when two threads of one search both miss the recent ones (then kept one search
-     * early; only the speed depends on it).
+     * more: once per search ({@link #searchStarts} forgets the recent ones), more often when threads race or another
+     * search starts meanwhile (then kept a search early; only the speed depends on it).
      */
     private Asked asked(Requirement requirement, Optional<StackLayer> layer) {
         boolean reference = JudgementPath.reference();
@@ -169,6 +169,15 @@ public final class JudgementMemo implements SampleJudge {
         System.arraycopy(seen, 0, next, 1, RECENT - 1);
         recent = next; // a lost race forgets one recent question: the next call finds it through the map
         return asked;
+    }
+
+    /**
+     * A search begins: the recent questions are forgotten, so a caller that searches the same requirement object
+     * again is counted as asking again. A search in flight on another thread then finds its question through the
+     * map once more (counted as one more ask: kept a search early at most; only the speed depends on it).
+     */
+    void searchStarts() {
+        recent = new Recent[RECENT];
     }
 
     /** A question's number, never reused, and whether an earlier search asked it too. */

@@ -195,6 +195,14 @@ public class SearchService {
         return this;
     }
 
+    /** Tells the memo a search begins, so a requirement object searched again counts as asked again. */
+    private void startsASearch() {
+        JudgementMemo kept = memo;
+        if (kept != null) {
+            kept.searchStarts();
+        }
+    }
+
     /** The memo's hits, misses and entries (empty when the service keeps none): for the debug and BENCH lines. */
     public Optional<JudgementMemo.Counts> judgementMemoCounts() {
         JudgementMemo kept = memo;
@@ -315,7 +323,10 @@ public class SearchService {
     public Shortlist search(Requirement requirement, int limit) {
         long started = System.nanoTime();
         Snapshot s = current();
-        return lanes.run(() -> searchOn(s, requirement, limit, started));
+        return lanes.run(() -> {
+            startsASearch();
+            return searchOn(s, requirement, limit, started);
+        });
     }
 
     private Shortlist searchOn(Snapshot s, Requirement requirement, int limit, long started) {
@@ -399,7 +410,10 @@ public class SearchService {
         long started = System.nanoTime();
         Set<Long> within = Set.copyOf(withinMaterials);
         Snapshot s = current();
-        return lanes.run(() -> searchExactly(s, requirement, limit, started, m -> within.contains(m.id())));
+        return lanes.run(() -> {
+            startsASearch();
+            return searchExactly(s, requirement, limit, started, m -> within.contains(m.id()));
+        });
     }
 
     /**
