@@ -35,9 +35,15 @@ public final class MaterialJudge {
     /** The evaluations of the samples that speak for the requirement's thickness; all from one material. */
     public static List<MaterialEvaluation> evaluate(List<Candidate> samples, Requirement requirement,
                                                     Optional<StackLayer> layer) {
+        return evaluate(samples, requirement, layer, SampleJudge.EXACT);
+    }
+
+    /** {@link #evaluate(List, Requirement, Optional)} with each chosen sample judged by {@code judge}. */
+    public static List<MaterialEvaluation> evaluate(List<Candidate> samples, Requirement requirement,
+                                                    Optional<StackLayer> layer, SampleJudge judge) {
         List<MaterialEvaluation> out = new ArrayList<>();
         for (Judged j : choose(samples, requirement.thickness())) {
-            out.add(MaterialEvaluation.of(j.candidate(), SampleEvaluator.evaluate(j.candidate(), requirement, layer, j.span())));
+            out.add(MaterialEvaluation.of(j.candidate(), judge.evaluate(j.candidate(), requirement, layer, j.span())));
         }
         if (requirement.thickness().kind() != ThicknessSpec.Kind.RANGE || out.size() < 2) {
             return out;
@@ -53,13 +59,19 @@ public final class MaterialJudge {
      */
     public static List<MaterialEvaluation> evaluateOne(List<Candidate> samples, Requirement requirement,
                                                        Optional<StackLayer> layer, long sampleId) {
+        return evaluateOne(samples, requirement, layer, sampleId, SampleJudge.EXACT);
+    }
+
+    /** {@link #evaluateOne(List, Requirement, Optional, long)} with the sample judged by {@code judge}. */
+    public static List<MaterialEvaluation> evaluateOne(List<Candidate> samples, Requirement requirement,
+                                                       Optional<StackLayer> layer, long sampleId, SampleJudge judge) {
         if (requirement.thickness().kind() == ThicknessSpec.Kind.RANGE) {
             throw new IllegalArgumentException("a solved range judges a material's samples together");
         }
         for (Judged j : choose(samples, requirement.thickness())) {
             if (j.candidate().sampleId() == sampleId) {
                 return List.of(MaterialEvaluation.of(j.candidate(),
-                        SampleEvaluator.evaluate(j.candidate(), requirement, layer, j.span())));
+                        judge.evaluate(j.candidate(), requirement, layer, j.span())));
             }
         }
         return List.of();

@@ -11,7 +11,7 @@ import org.spectralsieve.requirement.MaterialEvaluation;
 import org.spectralsieve.requirement.MaterialJudge;
 import org.spectralsieve.requirement.RankingOrder;
 import org.spectralsieve.requirement.Requirement;
-import org.spectralsieve.requirement.SampleEvaluator;
+import org.spectralsieve.requirement.SampleJudge;
 import org.spectralsieve.requirement.ThicknessSpec;
 import org.spectralsieve.store.SampleReach;
 
@@ -46,10 +46,11 @@ final class BestSampleFirst {
      *
      * @param curveOfSample the store's curve of each of the material's samples (a sample without one is judged)
      * @param grouped       whether regular rows rank before every total one ({@code SearchService#diffuseLast})
+     * @param judge         how one sample is judged exactly ({@link SampleJudge#EXACT}, or the service's memo)
      */
     static Optional<List<MaterialEvaluation>> judge(List<Candidate> candidates, List<MaterialEvaluation> failed,
                                                     Requirement requirement, Map<Long, Integer> curveOfSample,
-                                                    SampleReach reach, boolean grouped) {
+                                                    SampleReach reach, boolean grouped, SampleJudge judge) {
         ThicknessSpec spec = requirement.thickness();
         boolean range = spec.kind() == ThicknessSpec.Kind.RANGE;
         MadeThicknesses made = candidates.isEmpty() ? MadeThicknesses.UNLIMITED : candidates.get(0).made();
@@ -69,7 +70,7 @@ final class BestSampleFirst {
             items.add(new Item(i, j, curve == null ? SampleReach.NONE : reach.ceiling(curve)));
         }
         MaterialEvaluation[] judged = new MaterialEvaluation[chosen.size()];
-        judgeBestFirst(items, failed, requirement, range, judged);
+        judgeBestFirst(items, failed, requirement, range, judged, judge);
         List<MaterialEvaluation> evaluations = new ArrayList<>();
         for (MaterialEvaluation e : judged) {
             if (e != null) {
@@ -90,7 +91,7 @@ final class BestSampleFirst {
      * strictly below the best exact result so far, failed rows included, and that adds nothing to a range's merge.
      */
     private static void judgeBestFirst(List<Item> items, List<MaterialEvaluation> failed, Requirement requirement,
-                                       boolean range, MaterialEvaluation[] judged) {
+                                       boolean range, MaterialEvaluation[] judged, SampleJudge judge) {
         items.sort(Comparator.comparingInt(Item::ceiling).reversed().thenComparingInt(Item::position));
         MaterialEvaluation best = null;
         for (MaterialEvaluation f : failed) {
@@ -101,7 +102,7 @@ final class BestSampleFirst {
                     best.evaluation().worstMarginDecades()) && addsNothingToMerge(item, range)) {
                 continue;
             }
-            MaterialEvaluation e = evaluate(item, requirement);
+            MaterialEvaluation e = evaluate(item, requirement, judge);
             judged[item.position()] = e;
             best = better(best, e);
         }
@@ -116,9 +117,9 @@ final class BestSampleFirst {
         return !range || !item.judged().candidate().bulk() || SampleReach.cannotMeet(item.ceiling());
     }
 
-    private static MaterialEvaluation evaluate(Item item, Requirement requirement) {
+    private static MaterialEvaluation evaluate(Item item, Requirement requirement, SampleJudge judge) {
         Candidate c = item.judged().candidate();
-        return MaterialEvaluation.of(c, SampleEvaluator.evaluate(c, requirement, Optional.empty(), item.judged().span()));
+        return MaterialEvaluation.of(c, judge.evaluate(c, requirement, Optional.empty(), item.judged().span()));
     }
 
     private static MaterialEvaluation better(MaterialEvaluation kept, MaterialEvaluation offered) {

@@ -40,6 +40,7 @@ import org.spectralsieve.requirement.MaterialEvaluation;
 import org.spectralsieve.requirement.RankedRow;
 import org.spectralsieve.requirement.Ranking;
 import org.spectralsieve.requirement.Requirement;
+import org.spectralsieve.requirement.SampleJudge;
 import org.spectralsieve.requirement.SampleEvaluation;
 import org.spectralsieve.requirement.SampleEvaluator;
 import org.spectralsieve.requirement.SeeThrough;
@@ -141,6 +142,13 @@ public class SearchService {
      * ways ({@link #withMaterialsWhole}).
      */
     private boolean samplesAsContenders = true;
+    /**
+     * Recent exact judgements of one sample, handed out again for the same arguments ({@link JudgementMemo},
+     * docs/judgement-memo.md); null judges every sample afresh ({@code -Dsieve.search.judgement-memo=false} or
+     * {@link #withoutJudgementMemo}), only so a benchmark and tests can compare both ways (the answers are the same).
+     */
+    private volatile JudgementMemo memo = JudgementMemo.enabledByDefault()
+            ? new JudgementMemo(JudgementMemo.entriesByDefault()) : null;
     /** How requirements the store cannot rank are judged ({@link #searchExactly}); other ways for benchmarks and tests. */
     private Judging judging = Judging.BOUNDED_PARALLEL;
 
@@ -173,6 +181,32 @@ public class SearchService {
     public SearchService judgingEverySample() {
         this.boundSamples = false;
         return this;
+    }
+
+    /** The same service judging every sample afresh, as before {@link JudgementMemo}: the same answers. */
+    public SearchService withoutJudgementMemo() {
+        this.memo = null;
+        return this;
+    }
+
+    /** The same service keeping its exact judgements in {@code kept} (tests: a small or a deliberately stale one). */
+    SearchService withJudgementMemo(JudgementMemo kept) {
+        this.memo = java.util.Objects.requireNonNull(kept, "kept");
+        return this;
+    }
+
+    /** Tells the memo a search begins, so a requirement object searched again counts as asked again. */
+    private void startsASearch() {
+        JudgementMemo kept = memo;
+        if (kept != null) {
+            kept.searchStarts();
+        }
+    }
+
+    /** The memo's hits, misses and entries (empty when the service keeps none): for the debug and BENCH lines. */
+    public Optional<JudgementMemo.Counts> judgementMemoCounts() {
+        JudgementMemo kept = memo;
+        return kept == null ? Optional.empty() : Optional.of(kept.counts());
     }
 
     /** The same service judging the other way (benchmarks and equivalence tests; answers never depend on it). */
@@ -289,7 +323,10 @@ public class SearchService {
     public Shortlist search(Requirement requirement, int limit) {
         long started = System.nanoTime();
         Snapshot s = current();
-        return lanes.run(() -> searchOn(s, requirement, limit, started));
+        return lanes.run(() -> {
+            startsASearch();
+            return searchOn(s, requirement, limit, started);
+        });
     }
 
     private Shortlist searchOn(Snapshot s, Requirement requirement, int limit, long started) {
@@ -350,7 +387,7 @@ public class SearchService {
             if (boundSamples && curve != NO_CURVE) {
                 Prepared p = prepare(s, material, requirement, false);
                 Optional<List<MaterialEvaluation>> bestFirst = BestSampleFirst.judge(p.candidates(), p.failed(),
-                        requirement, reach.curvesOfMaterialOf(curve), reach, grouped);
+                        requirement, reach.curvesOfMaterialOf(curve), reach, grouped, p.sampleJudge());
                 exact.addAll(bestFirst.orElseGet(() -> p.judge(requirement, Optional.empty())));
             } else {
                 exact.addAll(judge(s, material, requirement, Optional.empty(), false));
@@ -373,7 +410,10 @@ public class SearchService {
         long started = System.nanoTime();
         Set<Long> within = Set.copyOf(withinMaterials);
         Snapshot s = current();
-        return lanes.run(() -> searchExactly(s, requirement, limit, started, m -> within.contains(m.id())));
+        return lanes.run(() -> {
+            startsASearch();
+            return searchExactly(s, requirement, limit, started, m -> within.contains(m.id()));
+        });
     }
 
     /**
@@ -392,13 +432,14 @@ public class SearchService {
      * A material's admitted samples made ready for {@link MaterialJudge}: the candidates, and a row saying why
      * for each sample that could not become one.
      */
-    private record Prepared(Material material, List<Candidate> candidates, List<MaterialEvaluation> failed) {
+    private record Prepared(Material material, List<Candidate> candidates, List<MaterialEvaluation> failed,
+                            SampleJudge sampleJudge) {
 
         List<MaterialEvaluation> judge(Requirement requirement, Optional<StackLayer> layer) {
             List<MaterialEvaluation> out = new ArrayList<>(failed);
             if (!candidates.isEmpty()) {
                 try {
-                    out.addAll(MaterialJudge.evaluate(candidates, requirement, layer));
+                    out.addAll(MaterialJudge.evaluate(candidates, requirement, layer, sampleJudge));
                 } catch (RuntimeException e) {
                     // the material's samples are judged together: when that fails, each says why, the search goes on
                     candidates.forEach(c -> out.add(notComputable(material, c.sampleId(), c.thicknessMm(), requirement, e)));
@@ -418,7 +459,7 @@ public class SearchService {
                 }
             }
             try {
-                return MaterialJudge.evaluateOne(candidates, requirement, layer, sampleId);
+                return MaterialJudge.evaluateOne(candidates, requirement, layer, sampleId, sampleJudge);
             } catch (RuntimeException e) {
                 return candidates.stream().filter(c -> c.sampleId() == sampleId)
                         .map(c -> notComputable(material, c.sampleId(), c.thicknessMm(), requirement, e)).toList();
@@ -463,7 +504,7 @@ public class SearchService {
                 }
             }
         }
-        return new Prepared(material, candidates, failed);
+        return new Prepared(material, candidates, failed, memo != null ? memo : SampleJudge.EXACT);
     }
 
     /**

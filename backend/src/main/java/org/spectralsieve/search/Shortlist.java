@@ -11,7 +11,9 @@ import org.spectralsieve.requirement.StackLayer;
 /**
  * The ranked, explained answer to one requirement. {@code evaluatedSamples}: the samples the requirement
  * was evaluated on (after the class and geometry filters); {@code judgedExactly}: how many of them the
- * exact evaluator judged on their stored curves (the store ruled out the rest). {@code layer} is the
+ * exact evaluator judged on their stored curves (the store ruled out the rest); a judgement the service's memo
+ * handed out again ({@link JudgementMemo}) counts: it is the exact evaluator's result for exactly these arguments,
+ * made earlier (docs/judgement-memo.md). {@code layer} is the
  * library sample that stood in every candidate's light path when the requirement names a fixed layer.
  * {@code sampleGeometry}: how each row's sample was measured ("regular" or "total"), keyed by sample id.
  * {@code revisions}: the revision of each row's sample and of its material the row was judged on, keyed by

@@ -9,6 +9,11 @@
  * <p>{@link org.spectralsieve.search.LayerMatcher} resolves the words of a fixed layer ({@code behind 4 mm
  * clear float glass}) to one material by one deterministic rule, or refuses with the choices or
  * suggestions; {@link org.spectralsieve.search.PartInFront} does the same for the figures' {@code behind}.
+ *
+ * <p>{@link org.spectralsieve.search.JudgementMemo} keeps recent exact judgements of one sample, keyed on the
+ * judgement's own arguments (the candidate's record, its curve by identity, the requirement, layer and span), so a
+ * question asked again is answered with the exact evaluator's earlier result and never a stale one
+ * ({@code docs/judgement-memo.md}).
  * Detail: {@code docs/requirement-search.md} and {@code docs/store.md}.
  */
 package org.spectralsieve.search;

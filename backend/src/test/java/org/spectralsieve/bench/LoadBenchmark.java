@@ -18,6 +18,7 @@ import java.util.EnumMap;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
+import java.util.Optional;
 import java.util.Random;
 import java.util.concurrent.ConcurrentHashMap;
 import java.util.concurrent.ConcurrentLinkedQueue;
@@ -28,6 +29,8 @@ import java.util.concurrent.atomic.AtomicInteger;
 import org.junit.jupiter.api.Test;
 import org.spectralsieve.SpectralSieveApplication;
 import org.spectralsieve.ingest.Checksums;
+import org.spectralsieve.search.JudgementMemo;
+import org.spectralsieve.search.SearchService;
 import org.springframework.boot.builder.SpringApplicationBuilder;
 import org.springframework.context.ConfigurableApplicationContext;
 import tools.jackson.databind.JsonNode;
@@ -52,7 +55,11 @@ import tools.jackson.databind.json.JsonMapper;
  * benchmark fails only when answers are wrong.
  *
  * <p>Switches: {@code -Dbench.loadRequests=2000} (per pass), {@code -Dbench.loadClients=50},
- * {@code -Dbench.loadPasses=2} (1: the cold pass alone).
+ * {@code -Dbench.loadPasses=2} (1: the cold pass alone), {@code -Dbench.loadVaried=true} (each search's thresholds
+ * drawn per request from a seeded set of 200 values per number, so few questions repeat: what a memo of
+ * judgements cannot help), {@code -Dsieve.search.judgement-memo=false} (the service judges every sample afresh;
+ * {@code BENCH load-memo} prints the memo's hits and misses of each pass when it is on),
+ * {@code -Dsieve.json.fast-doubles=false} (answers' doubles written by {@code Double.toString}, the way before).
  */
 class LoadBenchmark {
 
@@ -92,6 +99,11 @@ class LoadBenchmark {
 
     private static final java.util.regex.Pattern JUDGED = java.util.regex.Pattern.compile("\"judgedExactly\"\\s*:\\s*(\\d+)");
 
+    /** The fixed requirement of a search kind (also {@link JudgementMemoBenchmark}'s). */
+    static String requirementOf(Kind kind) {
+        return REQUIREMENTS.get(kind);
+    }
+
     /** A search answer's {@code judgedExactly}, read without parsing the whole answer (the client shares the cores). */
     private static int judged(Kind kind, String body) {
         if (kind.ordinal() > Kind.SEARCH_BEHIND.ordinal()) {
@@ -99,6 +111,52 @@ class LoadBenchmark {
         }
         java.util.regex.Matcher m = JUDGED.matcher(body);
         return m.find() ? Integer.parseInt(m.group(1)) : -1;
+    }
+
+    /**
+     * The four requirements with their numbers drawn per request from a seeded set of 200 values each (pass and
+     * weighted-pass thresholds 60.00–89.85 %, block thresholds 0.500–1.495 %, the safety threshold 0.0500–0.1495 %),
+     * picked by a seeded hash of the request's number: the same plan sends the same texts every run, and one
+     * text comes back about once in 200 searches of its kind.
+     */
+    static final class Varied {
+        private static final int VALUES = 200;
+        private static final int[] ORDER = shuffled(new Random(20261205L));
+
+        private static int[] shuffled(Random random) {
+            List<Integer> order = new ArrayList<>();
+            for (int v = 0; v < VALUES; v++) {
+                order.add(v);
+            }
+            Collections.shuffle(order, random);
+            return order.stream().mapToInt(Integer::intValue).toArray();
+        }
+
+        /** The v-th value of the set, drawn for request i and number n of its text. */
+        private static int draw(int i, int n) {
+            return ORDER[Math.floorMod(i * 7907 + n * 104_729, VALUES)];
+        }
+
+        private static String pass(int i, int n) {
+            return String.format(Locale.ROOT, "%.2f%%", 60 + 0.15 * draw(i, n));
+        }
+
+        private static String block(int i, int n) {
+            return String.format(Locale.ROOT, "%.3f%%", 0.5 + 0.005 * draw(i, n));
+        }
+
+        static String requirement(Kind kind, int i) {
+            return switch (kind) {
+                case SEARCH_FIXED -> "passes over " + pass(i, 0) + " at 365 nm and blocks under " + block(i, 1) + " at 405 nm";
+                case SEARCH_THICKNESS -> "passes over " + pass(i, 0) + " at 365 nm and blocks under " + block(i, 1)
+                        + " at 405 nm, thickness 1 to 6 mm";
+                case SEARCH_WEIGHTED -> "passes over " + pass(i, 0) + " of led 365 and uv hazard under "
+                        + String.format(Locale.ROOT, "%.4f%%", 0.05 + 0.0005 * draw(i, 1)) + " and luminous over " + pass(i, 2);
+                case SEARCH_BEHIND -> "blocks under " + block(i, 0) + " at 405 nm and luminous over " + pass(i, 1)
+                        + ", behind 4 mm clear float glass";
+                default -> throw new IllegalArgumentException(kind + " is not a search");
+            };
+        }
     }
 
     /** An import the server answered 201 for: what was sent and the sample it names. */
@@ -120,12 +178,15 @@ class LoadBenchmark {
             String base = "http://127.0.0.1:" + app.getEnvironment().getProperty("local.server.port");
             Library library = Library.prepare(http, base);
             Kind[] plan = plan(requests, new Random(20261203L));
+            SearchService service = app.getBean(SearchService.class);
             for (int pass = 0; pass < passes(); pass++) {
                 // the cold pass starts with the service's first timed request; a warm pass sends the same plan
                 // again to the service the passes before it warmed (new import files: none is a duplicate)
                 Pass run = Pass.of(pass);
+                Optional<JudgementMemo.Counts> before = service.judgementMemoCounts();
                 List<Outcome> these = run(http, base, library, plan, clients, pass * requests, acknowledged, run);
                 outcomes.addAll(these);
+                memoLine(run, before, service.judgementMemoCounts());
             }
             int lostLive = lost(http, base, acknowledged);
             System.out.printf("BENCH load-live acknowledged=%d lost=%d%n", acknowledged.size(), lostLive);
@@ -160,6 +221,27 @@ class LoadBenchmark {
         String label() {
             return name().toLowerCase(Locale.ROOT);
         }
+    }
+
+    /** The memo's hits and misses during the pass, its entries and questions at the end ({@code memo=off}: none kept). */
+    private static void memoLine(Pass pass, Optional<JudgementMemo.Counts> before, Optional<JudgementMemo.Counts> after) {
+        if (after.isEmpty() || before.isEmpty()) {
+            System.out.printf("BENCH load-memo pass=%s memo=off requirements=%s%n", pass.label(), varied() ? "varied" : "fixed");
+            return;
+        }
+        long hits = after.get().hits() - before.get().hits();
+        long misses = after.get().misses() - before.get().misses();
+        long unkept = after.get().unkept() - before.get().unkept();
+        long all = hits + misses + unkept;
+        System.out.printf(Locale.ROOT, "BENCH load-memo pass=%s memo=on requirements=%s hits=%d misses=%d unkept=%d"
+                        + " hit_rate=%.3f entries=%d max_entries=%d questions=%d%n", pass.label(), varied() ? "varied" : "fixed",
+                hits, misses, unkept, all == 0 ? 0.0 : (double) hits / all, after.get().entries(),
+                after.get().maxEntries(), after.get().questions());
+    }
+
+    /** {@code -Dbench.loadVaried=true}: each search's numbers drawn per request from a seeded set (see {@link Varied}). */
+    private static boolean varied() {
+        return Boolean.getBoolean("bench.loadVaried");
     }
 
     /** {@code -Dbench.loadPasses}: 1 the cold pass alone, 2 (default) cold then warm. */
@@ -271,9 +353,13 @@ class LoadBenchmark {
         long errors = outcomes.stream().filter(o -> o.failure() != null).count();
         long serverErrors = outcomes.stream().filter(o -> o.status() >= 500).count();
         System.out.printf(Locale.ROOT, "BENCH load pass=%s clients=%d requests=%d errors=%d server_errors=%d"
-                        + " imports_acknowledged=%d wall_s=%.1f throughput_per_s=%.1f judgement_lanes=%d%n", pass.label(),
+                        + " imports_acknowledged=%d wall_s=%.1f throughput_per_s=%.1f judgement_lanes=%d judgement_memo=%s"
+                        + " requirements=%s json_fast_doubles=%s%n", pass.label(),
                 clients, outcomes.size(), errors, serverErrors, acknowledged, wallNanos / 1e9,
-                outcomes.size() / (wallNanos / 1e9), judgementLanes());
+                outcomes.size() / (wallNanos / 1e9), judgementLanes(),
+                "false".equals(System.getProperty("sieve.search.judgement-memo")) ? "off" : "on",
+                varied() ? "varied" : "fixed",
+                "false".equals(System.getProperty("sieve.json.fast-doubles")) ? "off" : "on");
         Map<Kind, List<Double>> byKind = new EnumMap<>(Kind.class);
         for (Outcome o : outcomes) {
             byKind.computeIfAbsent(o.kind(), k -> new ArrayList<>()).add(o.ms());
@@ -392,7 +478,8 @@ class LoadBenchmark {
             long scalable = rescalable.get(Math.floorMod(i * 104729, rescalable.size()));
             double mm = thicknessMm(i);
             return switch (kind) {
-                case SEARCH_FIXED, SEARCH_THICKNESS, SEARCH_WEIGHTED, SEARCH_BEHIND -> search(base, kind);
+                case SEARCH_FIXED, SEARCH_THICKNESS, SEARCH_WEIGHTED, SEARCH_BEHIND ->
+                        search(base, varied() ? Varied.requirement(kind, i) : REQUIREMENTS.get(kind));
                 case MATERIALS -> HttpRequest.newBuilder(URI.create(base + "/api/materials")).build();
                 case MATERIAL -> HttpRequest.newBuilder(URI.create(base + "/api/materials/"
                         + materials.get(Math.floorMod(i * 31, materials.size())))).build();
@@ -409,7 +496,11 @@ class LoadBenchmark {
         }
 
         private static HttpRequest search(String base, Kind kind) {
-            String body = "{\"requirement\": \"" + REQUIREMENTS.get(kind) + "\", \"limit\": 20}";
+            return search(base, REQUIREMENTS.get(kind));
+        }
+
+        private static HttpRequest search(String base, String requirement) {
+            String body = "{\"requirement\": \"" + requirement + "\", \"limit\": 20}";
             return HttpRequest.newBuilder(URI.create(base + "/api/search")).header("Content-Type", "application/json")
                     .POST(HttpRequest.BodyPublishers.ofString(body)).build();
         }
