@@ -43,7 +43,7 @@ public final class CrossingFinder {
      * κ1 times the starting bracket's width (κ1 scaled to the bracket so the rule does not depend on units):
      * the truncation δ starts at a fifth of the bracket and shrinks with its square. κ1 = 0.2/(b0 − a0) and
      * κ2 = 2 are the common choice (from memory of the paper's and libraries' defaults; any κ1 > 0 and
-     * κ2 in [1, 1.618) keeps the bound, only the average speed moves).
+     * κ2 in [1, 1 + φ) = [1, 2.618…), φ the golden ratio, keeps the bound, only the average speed moves).
      */
     private static final double TRUNCATION_SCALE = 0.2;
 
