@@ -56,9 +56,18 @@ final class BoundedJudgement {
      *                     contender stands for, judged alone (where a material's row is the best of its samples'
      *                     rows, each formed alone: {@code SearchService}, docs/weighted-screening.md "Samples as
      *                     contenders"), every bound and flag then that sample's own
+     * @param settledNotJudged every row the exact judgement forms for it is {@link Standing#NOT_JUDGED}, known from
+     *                     the thicknesses alone (a part that is never rescaled, measured outside the asked thickness:
+     *                     {@link SettledRows}); such a row enters full rows only behind a not-judged last row, so it
+     *                     waits behind every other contender and needs no second bound
      */
     record Contender(Material material, double bound, boolean provenToMiss, boolean regular, boolean cannotMeet,
-                     double unverifiedBound, long sampleId) {
+                     double unverifiedBound, long sampleId, boolean settledNotJudged) {
+
+        Contender(Material material, double bound, boolean provenToMiss, boolean regular, boolean cannotMeet,
+                  double unverifiedBound, long sampleId) {
+            this(material, bound, provenToMiss, regular, cannotMeet, unverifiedBound, sampleId, false);
+        }
 
         Contender(Material material, double bound, boolean provenToMiss, boolean regular) {
             this(material, bound, provenToMiss, regular, false, Double.POSITIVE_INFINITY);
@@ -78,9 +87,13 @@ final class BoundedJudgement {
     /** {@link Contender#sampleId} of a contender that stands for its whole material (no sample has id 0). */
     static final long WHOLE_MATERIAL = 0;
 
-    /** Largest bound first (an unknown one counts as the largest), then by material id and sample: the judging order. */
+    /**
+     * Settled not-judged contenders last, the others largest bound first (an unknown one counts as the largest), then
+     * by material id and sample: the judging order.
+     */
     static final Comparator<Contender> ORDER = Comparator
-            .comparingDouble((Contender c) -> Double.isNaN(c.bound()) ? Double.POSITIVE_INFINITY : c.bound()).reversed()
+            .comparing(Contender::settledNotJudged)
+            .thenComparing(Comparator.comparingDouble((Contender c) -> Double.isNaN(c.bound()) ? Double.POSITIVE_INFINITY : c.bound()).reversed())
             .thenComparingLong(c -> c.material().id())
             .thenComparingLong(Contender::sampleId);
 
@@ -133,7 +146,8 @@ final class BoundedJudgement {
                                                     Function<Contender, List<MaterialEvaluation>> judge, boolean parallel,
                                                     UnaryOperator<Contender> refine) {
         List<Pending> waiting = new ArrayList<>(contenders.size() + 1);
-        contenders.forEach(c -> waiting.add(new Pending(c, refine == null)));
+        // a settled contender's rows are known to be not judged: no second bound could say more
+        contenders.forEach(c -> waiting.add(new Pending(c, refine == null || c.settledNotJudged())));
         // built in one pass (a heap of n in O(n)) rather than n insertions: a million curves make 333k contenders
         PriorityQueue<Pending> queue = new PriorityQueue<>(waiting);
         int batchSize = parallel ? PARALLEL_BATCH : 1;
@@ -205,6 +219,10 @@ final class BoundedJudgement {
             return false;
         }
         RankedRow last = rows.get(rows.size() - 1);
+        if (first.settledNotJudged()) {
+            // only settled contenders are left (they wait last): not-judged rows enter only behind a not-judged row
+            return last.evaluation().standing() != Standing.NOT_JUDGED;
+        }
         double margin = last.evaluation().worstMarginDecades();
         return last.evaluation().standing() == Standing.MEETS && !Double.isNaN(first.bound()) && first.bound() < margin;
     }
@@ -227,6 +245,11 @@ final class BoundedJudgement {
         }
         RankedRow last = rows.get(rows.size() - 1);
         Standing standing = last.evaluation().standing();
+        if (contender.settledNotJudged()) {
+            // not judged is the last group: such a row enters full rows only behind another not-judged row, where
+            // confidence, name and sample id decide (RankingOrder), so it is judged then
+            return standing == Standing.NOT_JUDGED;
+        }
         double margin = last.evaluation().worstMarginDecades();
         double bound = contender.bound();
         if (contender.provenToMiss()) {

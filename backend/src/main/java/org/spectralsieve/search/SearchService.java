@@ -141,6 +141,8 @@ public class SearchService {
      * ways ({@link #withMaterialsWhole}).
      */
     private boolean samplesAsContenders = true;
+    /** Rows known to be "not judged" from thicknesses alone wait last ({@link SettledRows}); off: judged as any other. */
+    private boolean settledRows = true;
     /** How requirements the store cannot rank are judged ({@link #searchExactly}); other ways for benchmarks and tests. */
     private Judging judging = Judging.BOUNDED_PARALLEL;
 
@@ -241,6 +243,15 @@ public class SearchService {
      */
     public SearchService withMaterialsWhole() {
         this.samplesAsContenders = false;
+        return this;
+    }
+
+    /**
+     * The same service judging rows known to be "not judged" from their thicknesses as any other contender (the loop
+     * before {@link SettledRows}): the same answers, more samples judged; for benchmarks and tests side by side.
+     */
+    public SearchService withoutSettledRows() {
+        this.settledRows = false;
         return this;
     }
 
@@ -558,7 +569,10 @@ public class SearchService {
         for (Material material : s.materials().values().stream().sorted(Comparator.comparingLong(Material::id))
                 .filter(within).toList()) {
             Set<Long> judgedSamples = null;
-            if (onlyJudgedSamples) {
+            // over a range, a material whose every row is "not judged" from its thicknesses alone waits last and is
+            // left out once better rows fill the limit (SettledRows); no curve of it is read unless it is judged
+            boolean settled = settledRows && settledOverRange(material, requirement);
+            if (onlyJudgedSamples && !settled) {
                 Prepared p = prepare(s, material, requirement, diffuseLayer);
                 prepared.put(material.id(), p);
                 judgedSamples = p.judgedSamples(spec);
@@ -590,6 +604,9 @@ public class SearchService {
             if (count > 0 && bySample && (judgedSamples == null || !judgedSamples.isEmpty())) {
                 addSampleContenders(contenders, s, material, requirement, judgedSamples, prepared.get(material.id()),
                         provenMiss, marginBound, regular);
+            } else if (count > 0 && settled) {
+                contenders.add(new BoundedJudgement.Contender(material, Double.NEGATIVE_INFINITY, false, regular, true,
+                        Double.NEGATIVE_INFINITY, BoundedJudgement.WHOLE_MATERIAL, true));
             } else if (count > 0) {
                 contenders.add(new BoundedJudgement.Contender(material, bound,
                         allMiss && madeFor(spec, material), regular));
@@ -708,10 +725,44 @@ public class SearchService {
                     || judgedSamples != null && !judgedSamples.contains(sample.id()) && !failed.contains(sample.id())) {
                 continue;
             }
+            // a sample that could not become a candidate says why, and so does one never rescaled or not made at the
+            // asked thickness: rows not judged, known without reading the curve (SettledRows)
+            if (settledRows && (failed.contains(sample.id()) || settledAtThickness(material, sample, requirement))) {
+                contenders.add(new BoundedJudgement.Contender(material, Double.NEGATIVE_INFINITY, false, regular, true,
+                        Double.NEGATIVE_INFINITY, sample.id(), true));
+                continue;
+            }
             double b = sampleBound(provenMiss, marginBound, sample.id());
             contenders.add(new BoundedJudgement.Contender(material, b, b < 0 && made, regular, false,
                     Double.POSITIVE_INFINITY, sample.id()));
         }
+    }
+
+    /**
+     * Whether every row {@link MaterialJudge} forms for the material over the requirement's range is "not judged",
+     * from its admitted samples' thicknesses, rescaling and made thicknesses alone ({@link SettledRows#overRange}).
+     */
+    static boolean settledOverRange(Material material, Requirement requirement) {
+        if (requirement.thickness().kind() != ThicknessSpec.Kind.RANGE) {
+            return false;
+        }
+        List<SampleInfo> admitted = material.samples().stream().filter(x -> admits(requirement, material, x)).toList();
+        double[] thicknessMm = new double[admitted.size()];
+        boolean[] rescalable = new boolean[admitted.size()];
+        for (int i = 0; i < thicknessMm.length; i++) {
+            thicknessMm[i] = admitted.get(i).thicknessMm();
+            rescalable[i] = SampleRescaling.of(material, admitted.get(i)).rescalable();
+        }
+        return SettledRows.overRange(thicknessMm, rescalable, made(material), requirement.thickness());
+    }
+
+    /**
+     * Whether the row {@link MaterialJudge} forms for the sample alone at the requirement's one asked thickness is
+     * "not judged", from its thickness, rescaling and its material's made thicknesses ({@link SettledRows#atThickness}).
+     */
+    static boolean settledAtThickness(Material material, SampleInfo sample, Requirement requirement) {
+        return SettledRows.atThickness(sample.thicknessMm(), SampleRescaling.of(material, sample).rescalable(),
+                made(material), requirement.thickness());
     }
 
     /** The smaller of a sample's first bounds (proven miss, margin bound), {@code +∞} when it has none. */

@@ -52,7 +52,9 @@ import org.spectralsieve.store.SyntheticCurves;
  * leaves it out) and takes each material's bound over the samples {@link MaterialJudge} picks; rule {@code samples}
  * is the current screen with each sample a contender of its own where the service makes it one (not in a solved
  * range), beside {@code current} (materials whole) and {@code before} (materials whole, one second bound at a time:
- * the loop before issue 14's sixth pass). {@code -Dbench.storeWeightedModes=measured,solve} chooses the
+ * the loop before issue 14's sixth pass), {@code settled} is {@code samples} with the rows known to be "not judged"
+ * from their thicknesses waiting last ({@link SettledRows}). Each line's {@code same_rows} says whether that rule's
+ * rows equalled the first rule's in every run. {@code -Dbench.storeWeightedModes=measured,solve} chooses the
  * requirements; {@code -Dbench.debug=true} prints, per whole search, the contenders, second bounds formed and the
  * time in them and in the exact judgement, and the last row.
  */
@@ -107,9 +109,14 @@ class StoreWeightedBenchmark {
                 double[][] screen = new double[rules.length][runs];
                 double[][] whole = new double[rules.length][runs];
                 Outcome[] last = new Outcome[rules.length];
+                boolean[] sameRows = new boolean[rules.length];
+                Arrays.fill(sameRows, true);
                 for (int r = 0; r < runs; r++) {
                     for (int v = 0; v < rules.length; v++) {
                         last[v] = search(store, mode.getValue(), limit, judge && wholeRules.contains(rules[v]), rules[v]);
+                        // every rule's answer against the first rule's, run by run (only the work may differ)
+                        sameRows[v] &= last[v].rows().isEmpty() || last[0].rows().isEmpty()
+                                || last[v].rows().equals(last[0].rows());
                         screen[v][r] = last[v].screenMs;
                         whole[v][r] = last[v].wholeMs;
                     }
@@ -121,17 +128,27 @@ class StoreWeightedBenchmark {
                     for (String part : judged ? new String[] {"screen", "whole"} : new String[] {"screen"}) {
                         double[] ms = part.equals("screen") ? screen[v] : whole[v];
                         System.out.printf(Locale.ROOT, "BENCH store-weighted curves=%d mode=%s part=%s p50_ms=%.1f p95_ms=%.1f"
-                                        + " proven=%d judged=%d runs=%d rule=%s judging=%s%n", n, mode.getKey(), part, ms[runs / 2],
+                                        + " proven=%d judged=%d runs=%d rule=%s judging=%s same_rows=%s%n", n, mode.getKey(), part, ms[runs / 2],
                                 ms[Math.min(runs - 1, (int) Math.ceil(runs * 0.95) - 1)], last[v].proven, last[v].judged,
-                                runs, rules[v], judged && List.of("current", "samples", "before").contains(rules[v])
-                                        ? System.getProperty("bench.storeWeightedJudging", "bounded") : "earlier");
+                                runs, rules[v], judged && List.of("current", "samples", "before", "settled").contains(rules[v])
+                                        ? System.getProperty("bench.storeWeightedJudging", "bounded") : "earlier", sameRows[v]);
                     }
                 }
             }
         }
     }
 
-    private record Outcome(double screenMs, double wholeMs, int proven, int judged) {
+    /** @param rows the answer's rows (sample, standing, margin) when judged, for {@code same_rows}; empty otherwise */
+    private record Outcome(double screenMs, double wholeMs, int proven, int judged, List<String> rows) {
+
+        Outcome(double screenMs, double wholeMs, int proven, int judged) {
+            this(screenMs, wholeMs, proven, judged, List.of());
+        }
+    }
+
+    private static List<String> rowsOf(List<RankedRow> rows) {
+        return rows.stream().map(r -> r.evaluation().sampleId() + " " + r.evaluation().standing() + " "
+                + r.evaluation().worstMarginDecades()).toList();
     }
 
     /** One weighted search the service's way, on the store's curves. */
@@ -142,20 +159,20 @@ class StoreWeightedBenchmark {
             // the loop before this pass: materials whole, one second bound at a time
             System.setProperty("sieve.search.second-bounds-in-parallel", "false");
             try {
-                return searchBounded(store, requirement, limit, t0, false);
+                return searchBounded(store, requirement, limit, t0, false, false);
             } finally {
                 System.clearProperty("sieve.search.second-bounds-in-parallel");
             }
         }
-        if (judge && (rule.equals("current") || rule.equals("samples"))
+        if (judge && (rule.equals("current") || rule.equals("samples") || rule.equals("settled"))
                 && !"earlier".equals(System.getProperty("bench.storeWeightedJudging", "bounded"))) {
-            return searchBounded(store, requirement, limit, t0, rule.equals("samples"));
+            return searchBounded(store, requirement, limit, t0, !rule.equals("current"), rule.equals("settled"));
         }
         Map<Long, Double> proven = new HashMap<>();
         switch (rule) {
             case "earlier" -> WeightedMisses.addEarlier(proven, store, requirement, Optional.empty());
             case "reference" -> WeightedMisses.add(proven, store, requirement, Optional.empty(), false, true);
-            case "current", "samples", "before" -> WeightedMisses.add(proven, store, requirement, Optional.empty());
+            case "current", "samples", "before", "settled" -> WeightedMisses.add(proven, store, requirement, Optional.empty());
             default -> throw new IllegalArgumentException("rule " + rule);
         }
         long t1 = System.nanoTime();
@@ -210,7 +227,7 @@ class StoreWeightedBenchmark {
         if (rows.isEmpty()) {
             throw new IllegalStateException("no rows");
         }
-        return new Outcome((t1 - t0) / 1e6, (t2 - t0) / 1e6, proven.size(), judged);
+        return new Outcome((t1 - t0) / 1e6, (t2 - t0) / 1e6, proven.size(), judged, rowsOf(rows));
     }
 
     /**
@@ -222,7 +239,7 @@ class StoreWeightedBenchmark {
      * ({@code -Dbench.storeWeightedJudging=earlier}: the loop before, held proven misses judged while they could enter).
      */
     private static Outcome searchBounded(SpectralStore store, Requirement requirement, int limit, long t0,
-                                         boolean samplesAsContenders) {
+                                         boolean samplesAsContenders, boolean settledRows) {
         // the screen: each curve's bound of either sign; a negative one is a proven miss (WeightedMisses.add),
         // and the second stage of the same search (its queries), as SearchService.searchExactly forms them
         WeightedMisses.Screen screen = WeightedMisses.screen(store, requirement, Optional.empty(), false, true);
@@ -253,7 +270,11 @@ class StoreWeightedBenchmark {
             // bulk one is made at an asked thickness only as measured: as the service's madeFor, a proven miss
             // of a bulk material at a thickness is not "at best a valued miss"
             boolean made = spec.kind() == ThicknessSpec.Kind.AS_MEASURED || !store.isBulk(first);
-            if (bySample) {
+            if (settledRows && settledOverRange(store, first, end, spec)) {
+                // as SearchService: a material whose every row is "not judged" from its thicknesses waits last
+                contenders.add(new BoundedJudgement.Contender(material(m, first), Double.NEGATIVE_INFINITY, false, false,
+                        true, Double.NEGATIVE_INFINITY, BoundedJudgement.WHOLE_MATERIAL, true));
+            } else if (bySample) {
                 // as SearchService: each sample the judgement picks a contender of its own, with its own bound
                 for (int c = first; c < end; c++) {
                     double margin = c < bounds.length && !Double.isNaN(bounds[c]) ? bounds[c] : Double.POSITIVE_INFINITY;
@@ -315,7 +336,7 @@ class StoreWeightedBenchmark {
             System.out.println("DEBUG last=" + lastRow.evaluation().standing() + " " + lastRow.evaluation().worstMarginDecades()
                     + " first=" + rows.get(0).evaluation().worstMarginDecades() + " kinds=" + kinds);
         }
-        return new Outcome((t1b - t0) / 1e6, (t2 - t0) / 1e6, provenCount, judged.get());
+        return new Outcome((t1b - t0) / 1e6, (t2 - t0) / 1e6, provenCount, judged.get(), rowsOf(rows));
     }
 
     /**
@@ -371,6 +392,19 @@ class StoreWeightedBenchmark {
     private static List<MaterialEvaluation> judgeOne(SpectralStore store, int from, int to, Requirement requirement,
                                                      long sampleId) {
         return MaterialJudge.evaluateOne(candidates(store, from, to), requirement, Optional.empty(), sampleId);
+    }
+
+    /** As {@code SearchService.settledOverRange}: every row of the material's curves [from, to) is not judged. */
+    private static boolean settledOverRange(SpectralStore store, int from, int to, ThicknessSpec spec) {
+        double[] measured = new double[to - from];
+        boolean[] rescalable = new boolean[to - from];
+        for (int c = from; c < to; c++) {
+            measured[c - from] = store.thicknessMm(c);
+            rescalable[c - from] = store.isBulk(c);
+        }
+        MadeThicknesses made = MadeThicknesses.of(List.of(), Double.NaN, Double.NaN,
+                Arrays.stream(measured).boxed().toList());
+        return SettledRows.overRange(measured, rescalable, made, spec);
     }
 
     /** Which of the material's curves [from, to) {@link MaterialJudge#choose} judges, from their thicknesses alone. */
