@@ -135,7 +135,31 @@ final class BoundedJudgement {
     static List<MaterialEvaluation> judge(List<Contender> contenders, int limit, Ranker ranker,
                                           Function<Material, List<MaterialEvaluation>> judge, boolean parallel,
                                           UnaryOperator<Contender> refine) {
-        return judgeContenders(contenders, limit, ranker, c -> judge.apply(c.material()), parallel, refine);
+        return judgeContenders(contenders, limit, ranker, c -> judge.apply(c.material()), parallel,
+                refine == null ? null : (c, bar) -> refine.apply(c));
+    }
+
+    /**
+     * Forms a contender's second bound (docs/weighted-screening.md, "A second, exact-curve stage"), knowing the bar it
+     * must reach to enter: the margin of the full rows' last row when that row meets (a contender whose bound is
+     * below it cannot enter, {@link #couldEnter}), {@code -∞} otherwise (every bound and flag is wanted). A refiner
+     * may use the bar only to spare work — the second bounds of samples that cannot lift the contender's bound to
+     * the bar, or that are not needed once one sample reaches it ("Second bounds up to the bar") — never to form a
+     * bound that is not sound.
+     */
+    @FunctionalInterface
+    interface Refiner {
+        Contender refine(Contender contender, double bar);
+    }
+
+    /** The bar a contender must reach against these rows ({@link Refiner}): a met last row's margin, else {@code -∞}. */
+    static double bar(List<RankedRow> rows, int limit) {
+        if (rows.size() < limit || limit == 0) {
+            return Double.NEGATIVE_INFINITY;
+        }
+        RankedRow last = rows.get(rows.size() - 1);
+        double margin = last.evaluation().worstMarginDecades();
+        return last.evaluation().standing() == Standing.MEETS && !Double.isNaN(margin) ? margin : Double.NEGATIVE_INFINITY;
     }
 
     /**
@@ -144,7 +168,7 @@ final class BoundedJudgement {
      */
     static List<MaterialEvaluation> judgeContenders(List<Contender> contenders, int limit, Ranker ranker,
                                                     Function<Contender, List<MaterialEvaluation>> judge, boolean parallel,
-                                                    UnaryOperator<Contender> refine) {
+                                                    Refiner refine) {
         List<Pending> waiting = new ArrayList<>(contenders.size() + 1);
         // a settled contender's rows are known to be not judged: no second bound could say more
         contenders.forEach(c -> waiting.add(new Pending(c, refine == null || c.settledNotJudged())));
@@ -159,6 +183,7 @@ final class BoundedJudgement {
         while (!queue.isEmpty()) {
             List<Contender> batch = new ArrayList<>(batchSize);
             List<Contender> toRefine = new ArrayList<>(batchSize);
+            List<Double> bars = new ArrayList<>(batchSize);
             while (!queue.isEmpty() && batch.size() < batchSize && toRefine.size() < refineSize) {
                 if (noneCanEnter(queue.peek().contender(), rows, limit)
                         && (!ranker.grouped() || noneCanEnter(queue.peek().contender(), regularRows, limit))) {
@@ -176,12 +201,15 @@ final class BoundedJudgement {
                     batch.add(p.contender());
                 } else {
                     toRefine.add(p.contender());
+                    bars.add(bar(competing, limit));
                 }
             }
             // second bounds on both cores too (refine must then be safe from several threads); each goes back
             // in line by its own bound, so which are formed together changes only the work
             if (!toRefine.isEmpty()) {
-                (toRefine.size() > 1 ? toRefine.parallelStream() : toRefine.stream()).map(refine).toList()
+                java.util.stream.IntStream indices = java.util.stream.IntStream.range(0, toRefine.size());
+                (toRefine.size() > 1 ? indices.parallel() : indices)
+                        .mapToObj(i -> refine.refine(toRefine.get(i), bars.get(i))).toList()
                         .forEach(c -> queue.add(new Pending(c, true)));
             }
             if (batch.isEmpty()) {

@@ -143,6 +143,8 @@ public class SearchService {
     private boolean samplesAsContenders = true;
     /** Rows known to be "not judged" from thicknesses alone wait last ({@link SettledRows}); off: judged as any other. */
     private boolean settledRows = true;
+    /** A material's second bounds formed only up to the bar it must reach ({@link #refined}); off: every sample's. */
+    private boolean secondBoundsToTheBar = !"false".equals(System.getProperty("sieve.search.second-bounds-to-the-bar"));
     /** How requirements the store cannot rank are judged ({@link #searchExactly}); other ways for benchmarks and tests. */
     private Judging judging = Judging.BOUNDED_PARALLEL;
 
@@ -252,6 +254,15 @@ public class SearchService {
      */
     public SearchService withoutSettledRows() {
         this.settledRows = false;
+        return this;
+    }
+
+    /**
+     * The same service forming every admitted sample's second bound for a material contender (the loop before
+     * second bounds went up to the bar, docs/weighted-screening.md): the same answers; for benchmarks and tests.
+     */
+    public SearchService withEverySecondBound() {
+        this.secondBoundsToTheBar = false;
         return this;
     }
 
@@ -621,14 +632,15 @@ public class SearchService {
         if (formed != null) {
             idle.add(formed);
         }
-        java.util.function.UnaryOperator<BoundedJudgement.Contender> refine = secondStage && formed != null && !rowOf.isEmpty()
-                ? c -> {
+        BoundedJudgement.Refiner refine = secondStage && formed != null && !rowOf.isEmpty()
+                ? (c, bar) -> {
                     WeightedMisses.SecondStage stage = idle.poll();
                     stage = stage != null ? stage
                             : WeightedMisses.secondStage(s.store(), requirement, layer, diffuseLayer, weightedLayerBlocks);
                     try {
                         return c.oneSample() ? refinedSample(s, c, requirement, provenMiss, marginBound, rowOf, stage)
-                                : refined(s, c, requirement, provenMiss, marginBound, rowOf, judgedOf.get(c.material().id()), stage);
+                                : refined(s, c, requirement, provenMiss, marginBound, rowOf, judgedOf.get(c.material().id()), stage,
+                                        secondBoundsToTheBar ? bar : Double.NEGATIVE_INFINITY);
                     } finally {
                         idle.add(stage);
                     }
@@ -662,24 +674,42 @@ public class SearchService {
     private BoundedJudgement.Contender refined(Snapshot s, BoundedJudgement.Contender c, Requirement requirement,
                                                Map<Long, Double> provenMiss, Map<Long, Double> marginBound,
                                                Map<Long, Integer> rowOf, Set<Long> judgedSamples,
-                                               WeightedMisses.SecondStage second) {
+                                               WeightedMisses.SecondStage second, double bar) {
         Material material = c.material();
+        // every sample's: against a met last row (bar > -∞) the flags below are not read (couldEnter), only the bound
+        boolean everySample = !(bar > Double.NEGATIVE_INFINITY);
+        List<SampleInfo> admitted = new ArrayList<>();
+        for (SampleInfo sample : material.samples()) {
+            if (admits(requirement, material, sample)
+                    && (everySample || judgedSamples == null || judgedSamples.contains(sample.id()))) {
+                admitted.add(sample);
+            }
+        }
+        double[] first = new double[admitted.size()];
+        Integer[] order = new Integer[admitted.size()];
+        for (int i = 0; i < first.length; i++) {
+            first[i] = sampleBound(provenMiss, marginBound, admitted.get(i).id());
+            order[i] = i;
+        }
+        if (!everySample) {
+            // largest first bound first, so the loop below stops as soon as the bound is settled against the bar
+            java.util.Arrays.sort(order, (a, b) -> Double.compare(first[b], first[a]));
+        }
         double bound = Double.NEGATIVE_INFINITY;
         boolean allMiss = true;
         boolean noneMeets = true;
         double unverifiedBound = Double.NEGATIVE_INFINITY;
-        for (SampleInfo sample : material.samples()) {
-            if (!admits(requirement, material, sample)) {
-                continue;
-            }
+        boolean reached = false; // a sample's second bound reached the bar: the material is judged whatever the others'
+        for (int i : order) {
+            SampleInfo sample = admitted.get(i);
             boolean cannotMeet = false;
             double ifUnverified = Double.POSITIVE_INFINITY;
-            Double miss = provenMiss.get(sample.id());
-            Double margin = marginBound.get(sample.id());
-            double b = Math.min(miss == null ? Double.POSITIVE_INFINITY : miss,
-                    margin == null || Double.isNaN(margin) ? Double.POSITIVE_INFINITY : margin);
+            double b = first[i];
             Integer row = second == null ? null : rowOf.get(sample.id());
-            if (row != null) {
+            // up to the bar: a first bound below it cannot lift the material's bound to it, and once one sample's
+            // second bound reaches it no other second bound keeps the material out (docs/weighted-screening.md)
+            boolean form = everySample || !reached && !(b < bar);
+            if (row != null && form) {
                 Optional<Curve> measured = curve(s, sample.id()); // the curve the judgement reads, cached for it
                 if (measured.isPresent()) {
                     double onCurve = second.bound(row, measured.get());
@@ -693,6 +723,7 @@ public class SearchService {
             allMiss &= b < 0;
             if (judgedSamples == null || judgedSamples.contains(sample.id())) {
                 bound = Math.max(bound, b);
+                reached |= !(b < bar);
                 // a negative bound proves a miss (a met row's every margin is at least 0): no met row either
                 noneMeets &= cannotMeet || b < 0;
                 unverifiedBound = Math.max(unverifiedBound, ifUnverified);
@@ -701,7 +732,8 @@ public class SearchService {
         // as measured and without a layer each sample is judged on the very curve read here, so an unverified
         // row's clauses read the margins the second stage found (docs/weighted-screening.md)
         boolean onTheCurve = requirement.thickness().kind() == ThicknessSpec.Kind.AS_MEASURED && requirement.layer().isEmpty();
-        return new BoundedJudgement.Contender(material, bound, allMiss && madeFor(requirement.thickness(), material),
+        return new BoundedJudgement.Contender(material, bound,
+                everySample && allMiss && madeFor(requirement.thickness(), material),
                 c.regular(), noneMeets, onTheCurve ? unverifiedBound : Double.POSITIVE_INFINITY);
     }
 

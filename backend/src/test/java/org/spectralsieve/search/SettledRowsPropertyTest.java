@@ -117,6 +117,7 @@ class SettledRowsPropertyTest {
         SearchService parallel = new SearchService(library).parallelFrom(0);
         SearchService oneThread = new SearchService(library).judging(SearchService.Judging.BOUNDED);
         SearchService unsettled = new SearchService(library).withoutSettledRows().judging(SearchService.Judging.BOUNDED);
+        SearchService everySecond = new SearchService(library).withEverySecondBound().parallelFrom(0);
         int fewer = 0;
         int notJudgedEntered = 0;
         for (int trial = 0; trial < 14; trial++) {
@@ -132,6 +133,8 @@ class SettledRowsPropertyTest {
             assertThat(alone.rows()).as(text + " one thread").containsExactlyElementsOf(expected);
             Shortlist before = unsettled.search(requirement, limit);
             assertThat(before.rows()).as(text + " without settled rows").containsExactlyElementsOf(expected);
+            assertThat(everySecond.search(requirement, limit).rows()).as(text + " every second bound")
+                    .containsExactlyElementsOf(expected);
             fewer += alone.judgedExactly() < before.judgedExactly() ? 1 : 0;
             notJudgedEntered += expected.stream().anyMatch(r -> r.evaluation().standing() == Standing.NOT_JUDGED) ? 1 : 0;
         }

@@ -53,7 +53,8 @@ import org.spectralsieve.store.SyntheticCurves;
  * is the current screen with each sample a contender of its own where the service makes it one (not in a solved
  * range), beside {@code current} (materials whole) and {@code before} (materials whole, one second bound at a time:
  * the loop before issue 14's sixth pass), {@code settled} is {@code samples} with the rows known to be "not judged"
- * from their thicknesses waiting last ({@link SettledRows}). Each line's {@code same_rows} says whether that rule's
+ * from their thicknesses waiting last ({@link SettledRows}), {@code bar} is {@code settled} with a material's second
+ * bounds formed only up to the bar it must reach ({@link BoundedJudgement.Refiner}). Each line's {@code same_rows} says whether that rule's
  * rows equalled the first rule's in every run. {@code -Dbench.storeWeightedModes=measured,solve} chooses the
  * requirements; {@code -Dbench.debug=true} prints, per whole search, the contenders, second bounds formed and the
  * time in them and in the exact judgement, and the last row.
@@ -130,7 +131,7 @@ class StoreWeightedBenchmark {
                         System.out.printf(Locale.ROOT, "BENCH store-weighted curves=%d mode=%s part=%s p50_ms=%.1f p95_ms=%.1f"
                                         + " proven=%d judged=%d runs=%d rule=%s judging=%s same_rows=%s%n", n, mode.getKey(), part, ms[runs / 2],
                                 ms[Math.min(runs - 1, (int) Math.ceil(runs * 0.95) - 1)], last[v].proven, last[v].judged,
-                                runs, rules[v], judged && List.of("current", "samples", "before", "settled").contains(rules[v])
+                                runs, rules[v], judged && List.of("current", "samples", "before", "settled", "bar").contains(rules[v])
                                         ? System.getProperty("bench.storeWeightedJudging", "bounded") : "earlier", sameRows[v]);
                     }
                 }
@@ -159,20 +160,21 @@ class StoreWeightedBenchmark {
             // the loop before this pass: materials whole, one second bound at a time
             System.setProperty("sieve.search.second-bounds-in-parallel", "false");
             try {
-                return searchBounded(store, requirement, limit, t0, false, false);
+                return searchBounded(store, requirement, limit, t0, false, false, false);
             } finally {
                 System.clearProperty("sieve.search.second-bounds-in-parallel");
             }
         }
-        if (judge && (rule.equals("current") || rule.equals("samples") || rule.equals("settled"))
+        if (judge && (rule.equals("current") || rule.equals("samples") || rule.equals("settled") || rule.equals("bar"))
                 && !"earlier".equals(System.getProperty("bench.storeWeightedJudging", "bounded"))) {
-            return searchBounded(store, requirement, limit, t0, !rule.equals("current"), rule.equals("settled"));
+            return searchBounded(store, requirement, limit, t0, !rule.equals("current"),
+                    rule.equals("settled") || rule.equals("bar"), rule.equals("bar"));
         }
         Map<Long, Double> proven = new HashMap<>();
         switch (rule) {
             case "earlier" -> WeightedMisses.addEarlier(proven, store, requirement, Optional.empty());
             case "reference" -> WeightedMisses.add(proven, store, requirement, Optional.empty(), false, true);
-            case "current", "samples", "before", "settled" -> WeightedMisses.add(proven, store, requirement, Optional.empty());
+            case "current", "samples", "before", "settled", "bar" -> WeightedMisses.add(proven, store, requirement, Optional.empty());
             default -> throw new IllegalArgumentException("rule " + rule);
         }
         long t1 = System.nanoTime();
@@ -239,7 +241,7 @@ class StoreWeightedBenchmark {
      * ({@code -Dbench.storeWeightedJudging=earlier}: the loop before, held proven misses judged while they could enter).
      */
     private static Outcome searchBounded(SpectralStore store, Requirement requirement, int limit, long t0,
-                                         boolean samplesAsContenders, boolean settledRows) {
+                                         boolean samplesAsContenders, boolean settledRows, boolean toTheBar) {
         // the screen: each curve's bound of either sign; a negative one is a proven miss (WeightedMisses.add),
         // and the second stage of the same search (its queries), as SearchService.searchExactly forms them
         WeightedMisses.Screen screen = WeightedMisses.screen(store, requirement, Optional.empty(), false, true);
@@ -305,14 +307,14 @@ class StoreWeightedBenchmark {
                     judged.addAndGet(rows.size());
                     return rows;
                 }, contenders.size() >= BoundedJudgement.PARALLEL_FROM,
-                second == null ? null : c -> {
+                second == null ? null : (c, bar) -> {
                     long r0 = System.nanoTime();
                     // as the service: a second stage of its own for each second bound formed at the same time
                     WeightedMisses.SecondStage stage = idle.poll();
                     stage = stage != null ? stage
                             : WeightedMisses.secondStage(store, requirement, Optional.empty(), false, true);
                     BoundedJudgement.Contender out = c.oneSample() ? refinedSample(store, c, bounds, stage, spec)
-                            : refined(store, c, bounds, stage, spec);
+                            : refined(store, c, bounds, stage, spec, toTheBar ? bar : Double.NEGATIVE_INFINITY);
                     idle.add(stage);
                     REFINE_NS.addAndGet(System.nanoTime() - r0);
                     REFINES.incrementAndGet();
@@ -347,7 +349,7 @@ class StoreWeightedBenchmark {
      * bound.
      */
     private static BoundedJudgement.Contender refined(SpectralStore store, BoundedJudgement.Contender c, double[] bounds,
-                                                      WeightedMisses.SecondStage second, ThicknessSpec spec) {
+                                                      WeightedMisses.SecondStage second, ThicknessSpec spec, double bar) {
         int first = (int) ((c.material().id() - 1) * 3);
         double bound = Double.NEGATIVE_INFINITY;
         double unverifiedBound = Double.NEGATIVE_INFINITY;
@@ -355,21 +357,38 @@ class StoreWeightedBenchmark {
         boolean noneMeets = true;
         int end = Math.min(store.size(), first + 3);
         boolean[] judgedHere = judgedSamples(store, first, end, spec);
+        // as the service: against a met last row only the judged curves, largest first bound first, up to the bar
+        boolean everySample = !(bar > Double.NEGATIVE_INFINITY);
+        List<Integer> order = new ArrayList<>();
         for (int k = first; k < end; k++) {
-            double b = k < bounds.length && !Double.isNaN(bounds[k]) ? bounds[k] : Double.POSITIVE_INFINITY;
+            if (everySample || judgedHere[k - first]) {
+                order.add(k);
+            }
+        }
+        if (!everySample) {
+            order.sort((a, b) -> Double.compare(firstBound(bounds, b), firstBound(bounds, a)));
+        }
+        boolean reached = false;
+        for (int k : order) {
+            double b = firstBound(bounds, k);
             // as the service: the second stage only for a curve with a first bound (it only tightens one)
-            boolean formed = b < Double.POSITIVE_INFINITY;
+            boolean formed = b < Double.POSITIVE_INFINITY && (everySample || !reached && !(b < bar));
             b = formed ? Math.min(b, second.bound(k, store.curve(k))) : b;
             allMiss &= b < 0;
             if (judgedHere[k - first]) {
                 bound = Math.max(bound, b);
+                reached |= !(b < bar);
                 noneMeets &= formed && second.cannotMeet() || b < 0;
                 unverifiedBound = Math.max(unverifiedBound, formed ? second.unverifiedBound() : Double.POSITIVE_INFINITY);
             }
         }
         boolean made = spec.kind() == ThicknessSpec.Kind.AS_MEASURED || !store.isBulk(first);
-        return new BoundedJudgement.Contender(c.material(), bound, allMiss && made, false, noneMeets,
+        return new BoundedJudgement.Contender(c.material(), bound, everySample && allMiss && made, false, noneMeets,
                 spec.kind() == ThicknessSpec.Kind.AS_MEASURED ? unverifiedBound : Double.POSITIVE_INFINITY);
+    }
+
+    private static double firstBound(double[] bounds, int k) {
+        return k < bounds.length && !Double.isNaN(bounds[k]) ? bounds[k] : Double.POSITIVE_INFINITY;
     }
 
     /** As {@code SearchService.refinedSample}: one curve's bound lowered by the second stage on its decoded curve. */
