@@ -57,6 +57,9 @@ import org.springframework.core.io.DefaultResourceLoader;
  * ({@link SearchService#withoutSecondStage}; {@code -Dbench.screenSkipNoSecondStage=true} leaves it out).
  * {@code on-materials-whole} every material judged whole, no sample a contender of its own
  * ({@link SearchService#withMaterialsWhole}; {@code -Dbench.screenSkipMaterialsWhole=true} leaves it out).
+ * {@code on-sixth-pass-loop} the loop before rows settled by thickness and second bounds up to the bar
+ * ({@link SearchService#withoutSettledRows}, {@link SearchService#withEverySecondBound};
+ * {@code -Dbench.screenSkipSixthPassLoop=true} leaves it out).
  * {@code on-earlier-arithmetic} the same service judging with the per-point arithmetic before the sixth pass
  * ({@link PerPointArithmetic}; {@code -Dbench.screenArithmetic=earlier} adds it).
  * {@code -Dbench.screenModes=measured,solve,layer} picks the variants.
@@ -111,6 +114,10 @@ class WeightedScreenBenchmark {
         if (!Boolean.getBoolean("bench.screenSkipMaterialsWhole")) {
             // every material judged whole: the loop before samples were contenders of their own, side by side
             services.put("on-materials-whole", new SearchService(library).withMaterialsWhole());
+        }
+        if (!Boolean.getBoolean("bench.screenSkipSixthPassLoop")) {
+            // the loop of the sixth pass: rows settled by thickness judged as any other, every second bound formed
+            services.put("on-sixth-pass-loop", new SearchService(library).withoutSettledRows().withEverySecondBound());
         }
         if (!Boolean.getBoolean("bench.screenSkipNoLayerBlocks")) {
             // weighted blocks behind a layer not bounded: the rule before them, side by side
