@@ -66,6 +66,8 @@ class StoreWeightedBenchmark {
     private static final java.util.concurrent.atomic.AtomicLong REFINE_NS = new java.util.concurrent.atomic.AtomicLong();
     private static final java.util.concurrent.atomic.AtomicLong JUDGE_NS = new java.util.concurrent.atomic.AtomicLong();
     private static final java.util.concurrent.atomic.AtomicLong REFINES = new java.util.concurrent.atomic.AtomicLong();
+    /** Curves given a second bound (a material contender forms one per curve it refines). */
+    private static final java.util.concurrent.atomic.AtomicLong CURVES_REFINED = new java.util.concurrent.atomic.AtomicLong();
     /** Each synthetic curve's refractive index (the store keeps its own copy, not public): judged as stored. */
     private static final Map<SpectralStore, byte[]> INDEX_OF_CURVE = new java.util.IdentityHashMap<>();
 
@@ -333,8 +335,8 @@ class StoreWeightedBenchmark {
                 kinds.merge((store.isBulk(c) ? "bulk " : "fixed ") + e.evaluation().standing()
                         + (bounds[c] < 0 ? " proven" : ""), 1, Integer::sum);
             }
-            System.out.printf("DEBUG contenders=%d refines=%d refine_ms=%.1f judge_ms=%.1f t_contenders_ms=%.1f%n", contenders.size(),
-                    REFINES.getAndSet(0), REFINE_NS.getAndSet(0) / 1e6, JUDGE_NS.getAndSet(0) / 1e6, (tc - t1b) / 1e6);
+            System.out.printf("DEBUG contenders=%d refines=%d curves_refined=%d refine_ms=%.1f judge_ms=%.1f t_contenders_ms=%.1f%n",
+                    contenders.size(), REFINES.getAndSet(0), CURVES_REFINED.getAndSet(0), REFINE_NS.getAndSet(0) / 1e6, JUDGE_NS.getAndSet(0) / 1e6, (tc - t1b) / 1e6);
             System.out.println("DEBUG last=" + lastRow.evaluation().standing() + " " + lastRow.evaluation().worstMarginDecades()
                     + " first=" + rows.get(0).evaluation().worstMarginDecades() + " kinds=" + kinds);
         }
@@ -374,6 +376,7 @@ class StoreWeightedBenchmark {
             // as the service: the second stage only for a curve with a first bound (it only tightens one)
             boolean formed = b < Double.POSITIVE_INFINITY && (everySample || !reached && !(b < bar));
             b = formed ? Math.min(b, second.bound(k, store.curve(k))) : b;
+            CURVES_REFINED.addAndGet(formed ? 1 : 0);
             allMiss &= b < 0;
             if (judgedHere[k - first]) {
                 bound = Math.max(bound, b);
@@ -401,6 +404,7 @@ class StoreWeightedBenchmark {
             return c; // as the service: nothing to tighten
         }
         b = Math.min(b, second.bound(k, store.curve(k)));
+        CURVES_REFINED.incrementAndGet();
         boolean made = spec.kind() == ThicknessSpec.Kind.AS_MEASURED || !store.isBulk(k);
         return new BoundedJudgement.Contender(c.material(), b, b < 0 && made, false, second.cannotMeet() || b < 0,
                 spec.kind() == ThicknessSpec.Kind.AS_MEASURED ? second.unverifiedBound() : Double.POSITIVE_INFINITY,
