@@ -638,7 +638,8 @@ public class SearchService {
                     stage = stage != null ? stage
                             : WeightedMisses.secondStage(s.store(), requirement, layer, diffuseLayer, weightedLayerBlocks);
                     try {
-                        return c.oneSample() ? refinedSample(s, c, requirement, provenMiss, marginBound, rowOf, stage)
+                        return c.oneSample() ? refinedSample(s, c, requirement, provenMiss, marginBound, rowOf, stage,
+                                        secondBoundsToTheBar ? bar : Double.NEGATIVE_INFINITY)
                                 : refined(s, c, requirement, provenMiss, marginBound, rowOf, judgedOf.get(c.material().id()), stage,
                                         secondBoundsToTheBar ? bar : Double.NEGATIVE_INFINITY);
                     } finally {
@@ -712,7 +713,7 @@ public class SearchService {
             if (row != null && form) {
                 Optional<Curve> measured = curve(s, sample.id()); // the curve the judgement reads, cached for it
                 if (measured.isPresent()) {
-                    double onCurve = second.bound(row, measured.get());
+                    double onCurve = second.bound(row, measured.get(), bar);
                     cannotMeet = second.cannotMeet();
                     ifUnverified = second.unverifiedBound();
                     if (onCurve < b) {
@@ -812,7 +813,8 @@ public class SearchService {
      */
     private BoundedJudgement.Contender refinedSample(Snapshot s, BoundedJudgement.Contender c, Requirement requirement,
                                                      Map<Long, Double> provenMiss, Map<Long, Double> marginBound,
-                                                     Map<Long, Integer> rowOf, WeightedMisses.SecondStage second) {
+                                                     Map<Long, Integer> rowOf, WeightedMisses.SecondStage second,
+                                                     double bar) {
         double b = sampleBound(provenMiss, marginBound, c.sampleId());
         boolean cannotMeet = false;
         double ifUnverified = Double.POSITIVE_INFINITY;
@@ -820,7 +822,8 @@ public class SearchService {
         if (row != null) {
             Optional<Curve> measured = curve(s, c.sampleId()); // the curve the judgement reads, cached for it
             if (measured.isPresent()) {
-                double onCurve = second.bound(row, measured.get());
+                // against a met last row the clauses after one below the bar are not read (WeightedMisses.SecondStage)
+                double onCurve = second.bound(row, measured.get(), bar);
                 cannotMeet = second.cannotMeet();
                 ifUnverified = second.unverifiedBound();
                 b = Math.min(b, onCurve);

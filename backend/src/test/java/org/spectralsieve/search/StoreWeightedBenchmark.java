@@ -315,7 +315,8 @@ class StoreWeightedBenchmark {
                     WeightedMisses.SecondStage stage = idle.poll();
                     stage = stage != null ? stage
                             : WeightedMisses.secondStage(store, requirement, Optional.empty(), false, true);
-                    BoundedJudgement.Contender out = c.oneSample() ? refinedSample(store, c, bounds, stage, spec)
+                    BoundedJudgement.Contender out = c.oneSample()
+                            ? refinedSample(store, c, bounds, stage, spec, toTheBar ? bar : Double.NEGATIVE_INFINITY)
                             : refined(store, c, bounds, stage, spec, toTheBar ? bar : Double.NEGATIVE_INFINITY);
                     idle.add(stage);
                     REFINE_NS.addAndGet(System.nanoTime() - r0);
@@ -375,7 +376,7 @@ class StoreWeightedBenchmark {
             double b = firstBound(bounds, k);
             // as the service: the second stage only for a curve with a first bound (it only tightens one)
             boolean formed = b < Double.POSITIVE_INFINITY && (everySample || !reached && !(b < bar));
-            b = formed ? Math.min(b, second.bound(k, store.curve(k))) : b;
+            b = formed ? Math.min(b, second.bound(k, store.curve(k), bar)) : b;
             CURVES_REFINED.addAndGet(formed ? 1 : 0);
             allMiss &= b < 0;
             if (judgedHere[k - first]) {
@@ -397,13 +398,13 @@ class StoreWeightedBenchmark {
     /** As {@code SearchService.refinedSample}: one curve's bound lowered by the second stage on its decoded curve. */
     private static BoundedJudgement.Contender refinedSample(SpectralStore store, BoundedJudgement.Contender c,
                                                             double[] bounds, WeightedMisses.SecondStage second,
-                                                            ThicknessSpec spec) {
+                                                            ThicknessSpec spec, double bar) {
         int k = (int) (c.sampleId() - 1);
         double b = k < bounds.length && !Double.isNaN(bounds[k]) ? bounds[k] : Double.POSITIVE_INFINITY;
         if (!(b < Double.POSITIVE_INFINITY)) {
             return c; // as the service: nothing to tighten
         }
-        b = Math.min(b, second.bound(k, store.curve(k)));
+        b = Math.min(b, second.bound(k, store.curve(k), bar));
         CURVES_REFINED.incrementAndGet();
         boolean made = spec.kind() == ThicknessSpec.Kind.AS_MEASURED || !store.isBulk(k);
         return new BoundedJudgement.Contender(c.material(), b, b < 0 && made, false, second.cannotMeet() || b < 0,
