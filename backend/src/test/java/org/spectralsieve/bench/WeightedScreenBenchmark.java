@@ -62,7 +62,8 @@ import org.springframework.core.io.DefaultResourceLoader;
  * {@code -Dbench.screenSkipSixthPassLoop=true} leaves it out).
  * {@code on-earlier-arithmetic} the same service judging with the per-point arithmetic before the sixth pass
  * ({@link PerPointArithmetic}; {@code -Dbench.screenArithmetic=earlier} adds it).
- * {@code -Dbench.screenModes=measured,solve,layer} picks the variants.
+ * {@code -Dbench.screenModes=measured,solve,layer} picks the variants; {@code -Dbench.screenAlternateOrder=true} runs
+ * the services in reverse order every other run.
  */
 class WeightedScreenBenchmark {
 
@@ -145,8 +146,14 @@ class WeightedScreenBenchmark {
         // loaded machine it moves less than the wall time, since waiting for a core is not counted
         Map<String, double[]> cpu = new LinkedHashMap<>();
         for (int i = 0; i < runs; i++) {
+            // -Dbench.screenAlternateOrder=true: the services in reverse order every other run, so no service is
+            // always the first after another's search (an order effect of a few ms was seen at 10k under load)
+            List<Map.Entry<String, SearchService>> order = new java.util.ArrayList<>(services.entrySet());
+            if (Boolean.getBoolean("bench.screenAlternateOrder") && i % 2 == 1) {
+                java.util.Collections.reverse(order);
+            }
             for (Map.Entry<String, Requirement> variant : variants.entrySet()) {
-                for (Map.Entry<String, SearchService> service : services.entrySet()) {
+                for (Map.Entry<String, SearchService> service : order) {
                     String key = variant.getKey() + " " + service.getKey();
                     PerPointArithmetic.useEarlier(service.getKey().equals(EARLIER_ARITHMETIC));
                     Shortlist answer;
