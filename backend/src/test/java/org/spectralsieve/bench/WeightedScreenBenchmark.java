@@ -63,7 +63,8 @@ import org.springframework.core.io.DefaultResourceLoader;
  * {@code on-earlier-arithmetic} the same service judging with the per-point arithmetic before the sixth pass
  * ({@link PerPointArithmetic}; {@code -Dbench.screenArithmetic=earlier} adds it).
  * {@code -Dbench.screenModes=measured,solve,layer} picks the variants; {@code -Dbench.screenAlternateOrder=true} runs
- * the services in reverse order every other run.
+ * the services in reverse order every other run; {@code -Dbench.screenTwin=true} adds {@code on-twin}, a second
+ * default service, to show what two identical services differ by in the run.
  */
 class WeightedScreenBenchmark {
 
@@ -115,6 +116,10 @@ class WeightedScreenBenchmark {
         if (!Boolean.getBoolean("bench.screenSkipMaterialsWhole")) {
             // every material judged whole: the loop before samples were contenders of their own, side by side
             services.put("on-materials-whole", new SearchService(library).withMaterialsWhole());
+        }
+        if (Boolean.getBoolean("bench.screenTwin")) {
+            // a second default service: what two identical services differ by in this run (order, caches, the JIT)
+            services.put("on-twin", new SearchService(library));
         }
         if (!Boolean.getBoolean("bench.screenSkipSixthPassLoop")) {
             // the loop of the sixth pass: rows settled by thickness judged as any other, every second bound formed
