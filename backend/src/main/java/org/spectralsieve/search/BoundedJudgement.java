@@ -56,9 +56,18 @@ final class BoundedJudgement {
      *                     contender stands for, judged alone (where a material's row is the best of its samples'
      *                     rows, each formed alone: {@code SearchService}, docs/weighted-screening.md "Samples as
      *                     contenders"), every bound and flag then that sample's own
+     * @param settledNotJudged every row the exact judgement forms for it is {@link Standing#NOT_JUDGED}, known from
+     *                     the thicknesses alone (a part that is never rescaled, measured outside the asked thickness:
+     *                     {@link SettledRows}); such a row enters full rows only behind a not-judged last row, so it
+     *                     waits behind every other contender and needs no second bound
      */
     record Contender(Material material, double bound, boolean provenToMiss, boolean regular, boolean cannotMeet,
-                     double unverifiedBound, long sampleId) {
+                     double unverifiedBound, long sampleId, boolean settledNotJudged) {
+
+        Contender(Material material, double bound, boolean provenToMiss, boolean regular, boolean cannotMeet,
+                  double unverifiedBound, long sampleId) {
+            this(material, bound, provenToMiss, regular, cannotMeet, unverifiedBound, sampleId, false);
+        }
 
         Contender(Material material, double bound, boolean provenToMiss, boolean regular) {
             this(material, bound, provenToMiss, regular, false, Double.POSITIVE_INFINITY);
@@ -78,9 +87,13 @@ final class BoundedJudgement {
     /** {@link Contender#sampleId} of a contender that stands for its whole material (no sample has id 0). */
     static final long WHOLE_MATERIAL = 0;
 
-    /** Largest bound first (an unknown one counts as the largest), then by material id and sample: the judging order. */
+    /**
+     * Settled not-judged contenders last, the others largest bound first (an unknown one counts as the largest), then
+     * by material id and sample: the judging order.
+     */
     static final Comparator<Contender> ORDER = Comparator
-            .comparingDouble((Contender c) -> Double.isNaN(c.bound()) ? Double.POSITIVE_INFINITY : c.bound()).reversed()
+            .comparing(Contender::settledNotJudged)
+            .thenComparing(Comparator.comparingDouble((Contender c) -> Double.isNaN(c.bound()) ? Double.POSITIVE_INFINITY : c.bound()).reversed())
             .thenComparingLong(c -> c.material().id())
             .thenComparingLong(Contender::sampleId);
 
@@ -122,7 +135,31 @@ final class BoundedJudgement {
     static List<MaterialEvaluation> judge(List<Contender> contenders, int limit, Ranker ranker,
                                           Function<Material, List<MaterialEvaluation>> judge, boolean parallel,
                                           UnaryOperator<Contender> refine) {
-        return judgeContenders(contenders, limit, ranker, c -> judge.apply(c.material()), parallel, refine);
+        return judgeContenders(contenders, limit, ranker, c -> judge.apply(c.material()), parallel,
+                refine == null ? null : (c, bar) -> refine.apply(c));
+    }
+
+    /**
+     * Forms a contender's second bound (docs/weighted-screening.md, "A second, exact-curve stage"), knowing the bar it
+     * must reach to enter: the margin of the full rows' last row when that row meets (a contender whose bound is
+     * below it cannot enter, {@link #couldEnter}), {@code -∞} otherwise (every bound and flag is wanted). A refiner
+     * may use the bar only to spare work — the second bounds of samples that cannot lift the contender's bound to
+     * the bar, or that are not needed once one sample reaches it ("Second bounds up to the bar") — never to form a
+     * bound that is not sound.
+     */
+    @FunctionalInterface
+    interface Refiner {
+        Contender refine(Contender contender, double bar);
+    }
+
+    /** The bar a contender must reach against these rows ({@link Refiner}): a met last row's margin, else {@code -∞}. */
+    static double bar(List<RankedRow> rows, int limit) {
+        if (rows.size() < limit || limit == 0) {
+            return Double.NEGATIVE_INFINITY;
+        }
+        RankedRow last = rows.get(rows.size() - 1);
+        double margin = last.evaluation().worstMarginDecades();
+        return last.evaluation().standing() == Standing.MEETS && !Double.isNaN(margin) ? margin : Double.NEGATIVE_INFINITY;
     }
 
     /**
@@ -131,9 +168,10 @@ final class BoundedJudgement {
      */
     static List<MaterialEvaluation> judgeContenders(List<Contender> contenders, int limit, Ranker ranker,
                                                     Function<Contender, List<MaterialEvaluation>> judge, boolean parallel,
-                                                    UnaryOperator<Contender> refine) {
+                                                    Refiner refine) {
         List<Pending> waiting = new ArrayList<>(contenders.size() + 1);
-        contenders.forEach(c -> waiting.add(new Pending(c, refine == null)));
+        // a settled contender's rows are known to be not judged: no second bound could say more
+        contenders.forEach(c -> waiting.add(new Pending(c, refine == null || c.settledNotJudged())));
         // built in one pass (a heap of n in O(n)) rather than n insertions: a million curves make 333k contenders
         PriorityQueue<Pending> queue = new PriorityQueue<>(waiting);
         int batchSize = parallel ? PARALLEL_BATCH : 1;
@@ -145,6 +183,7 @@ final class BoundedJudgement {
         while (!queue.isEmpty()) {
             List<Contender> batch = new ArrayList<>(batchSize);
             List<Contender> toRefine = new ArrayList<>(batchSize);
+            List<Double> bars = new ArrayList<>(batchSize);
             while (!queue.isEmpty() && batch.size() < batchSize && toRefine.size() < refineSize) {
                 if (noneCanEnter(queue.peek().contender(), rows, limit)
                         && (!ranker.grouped() || noneCanEnter(queue.peek().contender(), regularRows, limit))) {
@@ -162,12 +201,15 @@ final class BoundedJudgement {
                     batch.add(p.contender());
                 } else {
                     toRefine.add(p.contender());
+                    bars.add(bar(competing, limit));
                 }
             }
             // second bounds on both cores too (refine must then be safe from several threads); each goes back
             // in line by its own bound, so which are formed together changes only the work
             if (!toRefine.isEmpty()) {
-                (toRefine.size() > 1 ? toRefine.parallelStream() : toRefine.stream()).map(refine).toList()
+                java.util.stream.IntStream indices = java.util.stream.IntStream.range(0, toRefine.size());
+                (toRefine.size() > 1 ? indices.parallel() : indices)
+                        .mapToObj(i -> refine.refine(toRefine.get(i), bars.get(i))).toList()
                         .forEach(c -> queue.add(new Pending(c, true)));
             }
             if (batch.isEmpty()) {
@@ -205,6 +247,10 @@ final class BoundedJudgement {
             return false;
         }
         RankedRow last = rows.get(rows.size() - 1);
+        if (first.settledNotJudged()) {
+            // only settled contenders are left (they wait last): not-judged rows enter only behind a not-judged row
+            return last.evaluation().standing() != Standing.NOT_JUDGED;
+        }
         double margin = last.evaluation().worstMarginDecades();
         return last.evaluation().standing() == Standing.MEETS && !Double.isNaN(first.bound()) && first.bound() < margin;
     }
@@ -227,6 +273,11 @@ final class BoundedJudgement {
         }
         RankedRow last = rows.get(rows.size() - 1);
         Standing standing = last.evaluation().standing();
+        if (contender.settledNotJudged()) {
+            // not judged is the last group: such a row enters full rows only behind another not-judged row, where
+            // confidence, name and sample id decide (RankingOrder), so it is judged then
+            return standing == Standing.NOT_JUDGED;
+        }
         double margin = last.evaluation().worstMarginDecades();
         double bound = contender.bound();
         if (contender.provenToMiss()) {

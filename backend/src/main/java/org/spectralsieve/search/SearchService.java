@@ -149,6 +149,10 @@ public class SearchService {
      */
     private volatile JudgementMemo memo = JudgementMemo.enabledByDefault()
             ? new JudgementMemo(JudgementMemo.entriesByDefault()) : null;
+    /** Rows known to be "not judged" from thicknesses alone wait last ({@link SettledRows}); off: judged as any other. */
+    private boolean settledRows = true;
+    /** A material's second bounds formed only up to the bar it must reach ({@link #refined}); off: every sample's. */
+    private boolean secondBoundsToTheBar = !"false".equals(System.getProperty("sieve.search.second-bounds-to-the-bar"));
     /** How requirements the store cannot rank are judged ({@link #searchExactly}); other ways for benchmarks and tests. */
     private Judging judging = Judging.BOUNDED_PARALLEL;
 
@@ -275,6 +279,24 @@ public class SearchService {
      */
     public SearchService withMaterialsWhole() {
         this.samplesAsContenders = false;
+        return this;
+    }
+
+    /**
+     * The same service judging rows known to be "not judged" from their thicknesses as any other contender (the loop
+     * before {@link SettledRows}): the same answers, more samples judged; for benchmarks and tests side by side.
+     */
+    public SearchService withoutSettledRows() {
+        this.settledRows = false;
+        return this;
+    }
+
+    /**
+     * The same service forming every admitted sample's second bound for a material contender (the loop before
+     * second bounds went up to the bar, docs/weighted-screening.md): the same answers; for benchmarks and tests.
+     */
+    public SearchService withEverySecondBound() {
+        this.secondBoundsToTheBar = false;
         return this;
     }
 
@@ -599,7 +621,10 @@ public class SearchService {
         for (Material material : s.materials().values().stream().sorted(Comparator.comparingLong(Material::id))
                 .filter(within).toList()) {
             Set<Long> judgedSamples = null;
-            if (onlyJudgedSamples) {
+            // over a range, a material whose every row is "not judged" from its thicknesses alone waits last and is
+            // left out once better rows fill the limit (SettledRows); no curve of it is read unless it is judged
+            boolean settled = settledRows && settledOverRange(material, requirement);
+            if (onlyJudgedSamples && !settled) {
                 Prepared p = prepare(s, material, requirement, diffuseLayer);
                 prepared.put(material.id(), p);
                 judgedSamples = p.judgedSamples(spec);
@@ -631,6 +656,9 @@ public class SearchService {
             if (count > 0 && bySample && (judgedSamples == null || !judgedSamples.isEmpty())) {
                 addSampleContenders(contenders, s, material, requirement, judgedSamples, prepared.get(material.id()),
                         provenMiss, marginBound, regular);
+            } else if (count > 0 && settled) {
+                contenders.add(new BoundedJudgement.Contender(material, Double.NEGATIVE_INFINITY, false, regular, true,
+                        Double.NEGATIVE_INFINITY, BoundedJudgement.WHOLE_MATERIAL, true));
             } else if (count > 0) {
                 contenders.add(new BoundedJudgement.Contender(material, bound,
                         allMiss && madeFor(spec, material), regular));
@@ -645,14 +673,16 @@ public class SearchService {
         if (formed != null) {
             idle.add(formed);
         }
-        java.util.function.UnaryOperator<BoundedJudgement.Contender> refine = secondStage && formed != null && !rowOf.isEmpty()
-                ? c -> {
+        BoundedJudgement.Refiner refine = secondStage && formed != null && !rowOf.isEmpty()
+                ? (c, bar) -> {
                     WeightedMisses.SecondStage stage = idle.poll();
                     stage = stage != null ? stage
                             : WeightedMisses.secondStage(s.store(), requirement, layer, diffuseLayer, weightedLayerBlocks);
                     try {
-                        return c.oneSample() ? refinedSample(s, c, requirement, provenMiss, marginBound, rowOf, stage)
-                                : refined(s, c, requirement, provenMiss, marginBound, rowOf, judgedOf.get(c.material().id()), stage);
+                        return c.oneSample() ? refinedSample(s, c, requirement, provenMiss, marginBound, rowOf, stage,
+                                        secondBoundsToTheBar ? bar : Double.NEGATIVE_INFINITY)
+                                : refined(s, c, requirement, provenMiss, marginBound, rowOf, judgedOf.get(c.material().id()), stage,
+                                        secondBoundsToTheBar ? bar : Double.NEGATIVE_INFINITY);
                     } finally {
                         idle.add(stage);
                     }
@@ -681,32 +711,52 @@ public class SearchService {
      * largest over the samples judged, proven to miss when every admitted sample's bound is negative and the
      * material is made at the asked thickness), each sample's bound the smallest of its sound bounds; and it
      * cannot meet when every sample judged has a clause the second stage finds unverified on the very curve it
-     * is judged on, or a negative bound.
+     * is judged on, or a negative bound. Against a met last row ({@code bar} its margin; {@code -∞} otherwise) only the
+     * judged samples, largest first bound first, and only until the bound is settled against the bar; "proven to miss"
+     * is then not claimed (docs/weighted-screening.md, "Second bounds up to the bar").
      */
     private BoundedJudgement.Contender refined(Snapshot s, BoundedJudgement.Contender c, Requirement requirement,
                                                Map<Long, Double> provenMiss, Map<Long, Double> marginBound,
                                                Map<Long, Integer> rowOf, Set<Long> judgedSamples,
-                                               WeightedMisses.SecondStage second) {
+                                               WeightedMisses.SecondStage second, double bar) {
         Material material = c.material();
+        // every sample's: against a met last row (bar > -∞) the flags below are not read (couldEnter), only the bound
+        boolean everySample = !(bar > Double.NEGATIVE_INFINITY);
+        List<SampleInfo> admitted = new ArrayList<>();
+        for (SampleInfo sample : material.samples()) {
+            if (admits(requirement, material, sample)
+                    && (everySample || judgedSamples == null || judgedSamples.contains(sample.id()))) {
+                admitted.add(sample);
+            }
+        }
+        double[] first = new double[admitted.size()];
+        Integer[] order = new Integer[admitted.size()];
+        for (int i = 0; i < first.length; i++) {
+            first[i] = sampleBound(provenMiss, marginBound, admitted.get(i).id());
+            order[i] = i;
+        }
+        if (!everySample) {
+            // largest first bound first, so the loop below stops as soon as the bound is settled against the bar
+            java.util.Arrays.sort(order, (a, b) -> Double.compare(first[b], first[a]));
+        }
         double bound = Double.NEGATIVE_INFINITY;
         boolean allMiss = true;
         boolean noneMeets = true;
         double unverifiedBound = Double.NEGATIVE_INFINITY;
-        for (SampleInfo sample : material.samples()) {
-            if (!admits(requirement, material, sample)) {
-                continue;
-            }
+        boolean reached = false; // a sample's second bound reached the bar: the material is judged whatever the others'
+        for (int i : order) {
+            SampleInfo sample = admitted.get(i);
             boolean cannotMeet = false;
             double ifUnverified = Double.POSITIVE_INFINITY;
-            Double miss = provenMiss.get(sample.id());
-            Double margin = marginBound.get(sample.id());
-            double b = Math.min(miss == null ? Double.POSITIVE_INFINITY : miss,
-                    margin == null || Double.isNaN(margin) ? Double.POSITIVE_INFINITY : margin);
+            double b = first[i];
             Integer row = second == null ? null : rowOf.get(sample.id());
-            if (row != null) {
+            // up to the bar: a first bound below it cannot lift the material's bound to it, and once one sample's
+            // second bound reaches it no other second bound keeps the material out (docs/weighted-screening.md)
+            boolean form = everySample || !reached && !(b < bar);
+            if (row != null && form) {
                 Optional<Curve> measured = curve(s, sample.id()); // the curve the judgement reads, cached for it
                 if (measured.isPresent()) {
-                    double onCurve = second.bound(row, measured.get());
+                    double onCurve = second.bound(row, measured.get(), bar);
                     cannotMeet = second.cannotMeet();
                     ifUnverified = second.unverifiedBound();
                     if (onCurve < b) {
@@ -717,6 +767,7 @@ public class SearchService {
             allMiss &= b < 0;
             if (judgedSamples == null || judgedSamples.contains(sample.id())) {
                 bound = Math.max(bound, b);
+                reached |= !(b < bar);
                 // a negative bound proves a miss (a met row's every margin is at least 0): no met row either
                 noneMeets &= cannotMeet || b < 0;
                 unverifiedBound = Math.max(unverifiedBound, ifUnverified);
@@ -725,7 +776,8 @@ public class SearchService {
         // as measured and without a layer each sample is judged on the very curve read here, so an unverified
         // row's clauses read the margins the second stage found (docs/weighted-screening.md)
         boolean onTheCurve = requirement.thickness().kind() == ThicknessSpec.Kind.AS_MEASURED && requirement.layer().isEmpty();
-        return new BoundedJudgement.Contender(material, bound, allMiss && madeFor(requirement.thickness(), material),
+        return new BoundedJudgement.Contender(material, bound,
+                everySample && allMiss && madeFor(requirement.thickness(), material),
                 c.regular(), noneMeets, onTheCurve ? unverifiedBound : Double.POSITIVE_INFINITY);
     }
 
@@ -749,10 +801,47 @@ public class SearchService {
                     || judgedSamples != null && !judgedSamples.contains(sample.id()) && !failed.contains(sample.id())) {
                 continue;
             }
+            // a sample that could not become a candidate says why, and so does one never rescaled or not made at the
+            // asked thickness: rows not judged, known without reading the curve (SettledRows)
+            if (settledRows && (failed.contains(sample.id()) || settledAtThickness(material, sample, requirement))) {
+                contenders.add(new BoundedJudgement.Contender(material, Double.NEGATIVE_INFINITY, false, regular, true,
+                        Double.NEGATIVE_INFINITY, sample.id(), true));
+                continue;
+            }
             double b = sampleBound(provenMiss, marginBound, sample.id());
             contenders.add(new BoundedJudgement.Contender(material, b, b < 0 && made, regular, false,
                     Double.POSITIVE_INFINITY, sample.id()));
         }
+    }
+
+    /**
+     * Whether every row {@link MaterialJudge} forms for the material over the requirement's range is "not judged",
+     * from its admitted samples' thicknesses, rescaling and made thicknesses alone ({@link SettledRows#overRange}).
+     */
+    static boolean settledOverRange(Material material, Requirement requirement) {
+        if (requirement.thickness().kind() != ThicknessSpec.Kind.RANGE) {
+            return false;
+        }
+        List<SampleInfo> admitted = material.samples().stream().filter(x -> admits(requirement, material, x)).toList();
+        double[] thicknessMm = new double[admitted.size()];
+        boolean[] rescalable = new boolean[admitted.size()];
+        for (int i = 0; i < thicknessMm.length; i++) {
+            thicknessMm[i] = admitted.get(i).thicknessMm();
+            rescalable[i] = SampleRescaling.of(material, admitted.get(i)).rescalable();
+        }
+        return SettledRows.overRange(thicknessMm, rescalable, made(material), requirement.thickness());
+    }
+
+    /**
+     * Whether the row {@link MaterialJudge} forms for the sample alone at the requirement's one asked thickness is
+     * "not judged", from its thickness, rescaling and its material's made thicknesses ({@link SettledRows#atThickness}).
+     */
+    static boolean settledAtThickness(Material material, SampleInfo sample, Requirement requirement) {
+        // only at one asked thickness: the rescaling rule and the made thicknesses are not formed for other searches
+        // (as measured this ran for every sample, a measurable part of a 10k search)
+        return requirement.thickness().kind() == ThicknessSpec.Kind.FIXED
+                && SettledRows.atThickness(sample.thicknessMm(), SampleRescaling.of(material, sample).rescalable(),
+                made(material), requirement.thickness());
     }
 
     /** The smaller of a sample's first bounds (proven miss, margin bound), {@code +∞} when it has none. */
@@ -770,7 +859,8 @@ public class SearchService {
      */
     private BoundedJudgement.Contender refinedSample(Snapshot s, BoundedJudgement.Contender c, Requirement requirement,
                                                      Map<Long, Double> provenMiss, Map<Long, Double> marginBound,
-                                                     Map<Long, Integer> rowOf, WeightedMisses.SecondStage second) {
+                                                     Map<Long, Integer> rowOf, WeightedMisses.SecondStage second,
+                                                     double bar) {
         double b = sampleBound(provenMiss, marginBound, c.sampleId());
         boolean cannotMeet = false;
         double ifUnverified = Double.POSITIVE_INFINITY;
@@ -778,7 +868,8 @@ public class SearchService {
         if (row != null) {
             Optional<Curve> measured = curve(s, c.sampleId()); // the curve the judgement reads, cached for it
             if (measured.isPresent()) {
-                double onCurve = second.bound(row, measured.get());
+                // against a met last row the clauses after one below the bar are not read (WeightedMisses.SecondStage)
+                double onCurve = second.bound(row, measured.get(), bar);
                 cannotMeet = second.cannotMeet();
                 ifUnverified = second.unverifiedBound();
                 b = Math.min(b, onCurve);

@@ -149,6 +149,17 @@ final class WeightedMisses {
          */
         double bound(int curve, org.spectralsieve.spectrum.Curve measured);
 
+        /**
+         * {@link #bound(int, org.spectralsieve.spectrum.Curve)} knowing the bar the contender must reach (a met last
+         * row's margin, ≥ 0; {@code -∞}: none, {@link BoundedJudgement.Refiner}): once a clause's bound falls below
+         * the bar the others are not read, so the bound returned is the smallest over the clauses read — sound, and
+         * below the bar exactly when the full one is. {@link #cannotMeet} and {@link #unverifiedBound} then cover the
+         * clauses read only (unknown for the others: false and +∞).
+         */
+        default double bound(int curve, org.spectralsieve.spectrum.Curve measured, double bar) {
+            return bound(curve, measured);
+        }
+
         /** Whether the sample of the last {@link #bound} is judged on that curve with a clause unverified: its row cannot meet. */
         boolean cannotMeet();
 
@@ -270,6 +281,8 @@ final class WeightedMisses {
         private double unverifiedBound = Double.POSITIVE_INFINITY;
         /** The decoded curve while the second stage runs ({@link #bound}), else null: P(x) then reads it too. */
         private org.spectralsieve.spectrum.Curve measured;
+        /** The bar of the second bound being formed ({@link SecondStage#bound(int, org.spectralsieve.spectrum.Curve, double)}), else -∞. */
+        private double bar = Double.NEGATIVE_INFINITY;
 
         Bounds(SpectralStore store, ThicknessSpec spec, List<WeightedScreen.Query> queries, List<Boolean> seeThrough,
                boolean diffuseLayer, boolean reference, int from, int to) {
@@ -336,6 +349,21 @@ final class WeightedMisses {
         }
 
         @Override
+        public double bound(int c, org.spectralsieve.spectrum.Curve curveToRead, double bar) {
+            this.bar = bar;
+            try {
+                return bound(c, curveToRead);
+            } finally {
+                this.bar = Double.NEGATIVE_INFINITY;
+            }
+        }
+
+        /** Whether a bound formed so far already lies below the bar: the clauses not yet read cannot change that. */
+        private boolean belowBar(double bound) {
+            return bound < bar;
+        }
+
+        @Override
         public double bound(int c, org.spectralsieve.spectrum.Curve curveToRead) {
             cannotMeet = false;
             unverifiedBound = Double.POSITIVE_INFINITY;
@@ -353,7 +381,7 @@ final class WeightedMisses {
                 }
             }
             double bound = Double.POSITIVE_INFINITY;
-            for (int i = 0; i < queries.size(); i++) {
+            for (int i = 0; i < queries.size() && !belowBar(bound); i++) {
                 WeightedScreen.Query q = queries.get(i);
                 Direction direction = q.passes() ? Direction.PASS : Direction.BLOCK;
                 if (!skipped(i) && SearchService.keepsProof(direction, spec, d0, store.isBulk(c))) {
@@ -380,7 +408,7 @@ final class WeightedMisses {
         /** P(x): an upper bound on every pass margin at any judged thickness ≥ x. */
         private double pass(double x) {
             double bound = Double.POSITIVE_INFINITY;
-            for (int i = 0; i < queries.size(); i++) {
+            for (int i = 0; i < queries.size() && !belowBar(bound); i++) {
                 WeightedScreen.Query q = queries.get(i);
                 if (q.passes() && !skipped(i)) {
                     bound = Math.min(bound, Math.min(q.thinned(curve, x),
@@ -396,7 +424,7 @@ final class WeightedMisses {
         /** Q(x): an upper bound on every block margin at any judged thickness ≤ x. */
         private double block(double x) {
             double bound = Double.POSITIVE_INFINITY;
-            for (int i = 0; i < queries.size(); i++) {
+            for (int i = 0; i < queries.size() && !belowBar(bound); i++) {
                 WeightedScreen.Query q = queries.get(i);
                 if (!q.passes() && !skipped(i)) {
                     bound = Math.min(bound, q.thickened(curve, x));
@@ -411,9 +439,10 @@ final class WeightedMisses {
         /** A bulk sample judged on its rescaled curve somewhere in [lo, hi]: see the class comment. */
         double rescaled(double lo, double hi) {
             double passAtLo = pass(lo);
-            double blockAtHi = block(hi);
+            // below the bar (a met row's margin, ≥ 0) already: the split rule only matters for proving a miss
+            double blockAtHi = belowBar(passAtLo) ? Double.POSITIVE_INFINITY : block(hi);
             double whole = Math.min(passAtLo, blockAtHi);
-            if (whole < 0 || !(hi > lo)) {
+            if (whole < 0 || !(hi > lo) || belowBar(whole)) {
                 return whole;
             }
             // a split proves more only where both the pass is missed above it and the block below it

@@ -58,13 +58,18 @@ import org.springframework.core.io.DefaultResourceLoader;
  * ({@link SearchService#withoutSecondStage}; {@code -Dbench.screenSkipNoSecondStage=true} leaves it out).
  * {@code on-materials-whole} every material judged whole, no sample a contender of its own
  * ({@link SearchService#withMaterialsWhole}; {@code -Dbench.screenSkipMaterialsWhole=true} leaves it out).
+ * {@code on-sixth-pass-loop} the loop before rows settled by thickness and second bounds up to the bar
+ * ({@link SearchService#withoutSettledRows}, {@link SearchService#withEverySecondBound};
+ * {@code -Dbench.screenSkipSixthPassLoop=true} leaves it out).
  * {@code on-earlier-arithmetic} the same service judging with the per-point arithmetic before the sixth pass
  * ({@link PerPointArithmetic}; {@code -Dbench.screenArithmetic=earlier} adds it).
  * {@code on-bisection} the same service with its thickness solves by bisection, as before the seventh pass
  * ({@link CrossingFinder#useBisection}; {@code -Dbench.screenRoots=bisection} adds it); for every line whose
  * searches solved a thickness, a {@code DEBUG solve-trials} line gives the root finder's trial thicknesses per
  * sample judged exactly.
- * {@code -Dbench.screenModes=measured,solve,layer} picks the variants.
+ * {@code -Dbench.screenModes=measured,solve,layer} picks the variants; {@code -Dbench.screenAlternateOrder=true} runs
+ * the services in reverse order every other run; {@code -Dbench.screenTwin=true} adds {@code on-twin}, a second
+ * default service, to show what two identical services differ by in the run.
  */
 class WeightedScreenBenchmark {
 
@@ -123,6 +128,14 @@ class WeightedScreenBenchmark {
             // every material judged whole: the loop before samples were contenders of their own, side by side
             services.put("on-materials-whole", new SearchService(library).withMaterialsWhole());
         }
+        if (Boolean.getBoolean("bench.screenTwin")) {
+            // a second default service: what two identical services differ by in this run (order, caches, the JIT)
+            services.put("on-twin", new SearchService(library));
+        }
+        if (!Boolean.getBoolean("bench.screenSkipSixthPassLoop")) {
+            // the loop of the sixth pass: rows settled by thickness judged as any other, every second bound formed
+            services.put("on-sixth-pass-loop", new SearchService(library).withoutSettledRows().withEverySecondBound());
+        }
         if (!Boolean.getBoolean("bench.screenSkipNoLayerBlocks")) {
             // weighted blocks behind a layer not bounded: the rule before them, side by side
             services.put("on-earlier-layer-bounds", new SearchService(library).withEarlierLayerBounds());
@@ -156,8 +169,14 @@ class WeightedScreenBenchmark {
         // the root finder's trials (thickness solves) per sample judged exactly, summed over the runs
         Map<String, long[]> trials = new LinkedHashMap<>();
         for (int i = 0; i < runs; i++) {
+            // -Dbench.screenAlternateOrder=true: the services in reverse order every other run, so no service is
+            // always the first after another's search (an order effect of a few ms was seen at 10k under load)
+            List<Map.Entry<String, SearchService>> order = new java.util.ArrayList<>(services.entrySet());
+            if (Boolean.getBoolean("bench.screenAlternateOrder") && i % 2 == 1) {
+                java.util.Collections.reverse(order);
+            }
             for (Map.Entry<String, Requirement> variant : variants.entrySet()) {
-                for (Map.Entry<String, SearchService> service : services.entrySet()) {
+                for (Map.Entry<String, SearchService> service : order) {
                     String key = variant.getKey() + " " + service.getKey();
                     PerPointArithmetic.useEarlier(service.getKey().equals(EARLIER_ARITHMETIC));
                     CrossingFinder.useBisection(service.getKey().equals(BISECTION));

@@ -63,6 +63,8 @@ class SecondStageBoundTest {
         int cannotMeet = 0;
         int caughtWhenTooTight = 0;
         int unverifiedBounded = 0;
+        int cutAtTheBar = 0;
+        Random bars = new Random(20261218L); // its own, so the requirements drawn stay those of the checks above
         for (int trial = 0; trial < 16; trial++) {
             String text = randomRequirement(random, trial);
             Requirement requirement = RequirementParser.parse(text);
@@ -97,6 +99,19 @@ class SecondStageBoundTest {
                 if (onTheCurve && ifUnverified == Double.NEGATIVE_INFINITY) {
                     assertThat(row.standing()).as(what + " said it cannot be unverified").isNotEqualTo(Standing.UNVERIFIED);
                 }
+                // with a bar (a met last row's margin): below it exactly when the full bound is, never tighter, and
+                // still a bound (docs/weighted-screening.md, "second bounds up to the bar")
+                double bar = 0.3 * bars.nextDouble();
+                double toTheBar = second.bound(curve, library.findCurve(store.sampleId(curve)).orElseThrow(), bar);
+                assertThat(toTheBar < bar).as(what + " below the bar " + bar).isEqualTo(bound < bar);
+                assertThat(toTheBar).as(what + " to the bar " + bar).isGreaterThanOrEqualTo(bound);
+                if (!(toTheBar < bar)) {
+                    assertThat(toTheBar).as(what + " at or above the bar " + bar).isEqualTo(bound);
+                }
+                cutAtTheBar += toTheBar > bound ? 1 : 0;
+                if (toTheBar < Double.POSITIVE_INFINITY && holdsFor(row)) {
+                    assertThat(row.worstMarginDecades()).as(what + " to the bar").isLessThanOrEqualTo(toTheBar);
+                }
                 if (bound < Double.POSITIVE_INFINITY && holdsFor(row)) {
                     bounded++;
                     assertThat(row.worstMarginDecades()).as(what).isLessThanOrEqualTo(bound);
@@ -111,6 +126,7 @@ class SecondStageBoundTest {
         assertThat(cannotMeet).as("unverified clauses found").isGreaterThan(20);
         assertThat(unverifiedBounded).as("unverified rows bounded").isGreaterThan(20);
         assertThat(caughtWhenTooTight).as("a bound tighter by 0.002 decades would fail").isGreaterThan(50);
+        assertThat(cutAtTheBar).as("second bounds cut short at the bar").isGreaterThan(50);
     }
 
     @Test

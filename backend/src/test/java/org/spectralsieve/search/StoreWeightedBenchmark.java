@@ -52,7 +52,10 @@ import org.spectralsieve.store.SyntheticCurves;
  * leaves it out) and takes each material's bound over the samples {@link MaterialJudge} picks; rule {@code samples}
  * is the current screen with each sample a contender of its own where the service makes it one (not in a solved
  * range), beside {@code current} (materials whole) and {@code before} (materials whole, one second bound at a time:
- * the loop before issue 14's sixth pass). {@code -Dbench.storeWeightedModes=measured,solve} chooses the
+ * the loop before issue 14's sixth pass), {@code settled} is {@code samples} with the rows known to be "not judged"
+ * from their thicknesses waiting last ({@link SettledRows}), {@code bar} is {@code settled} with a material's second
+ * bounds formed only up to the bar it must reach ({@link BoundedJudgement.Refiner}). Each line's {@code same_rows} says whether that rule's
+ * rows equalled the first rule's in every run. {@code -Dbench.storeWeightedModes=measured,solve} chooses the
  * requirements; {@code -Dbench.debug=true} prints, per whole search, the contenders, second bounds formed and the
  * time in them and in the exact judgement, and the last row.
  */
@@ -63,6 +66,8 @@ class StoreWeightedBenchmark {
     private static final java.util.concurrent.atomic.AtomicLong REFINE_NS = new java.util.concurrent.atomic.AtomicLong();
     private static final java.util.concurrent.atomic.AtomicLong JUDGE_NS = new java.util.concurrent.atomic.AtomicLong();
     private static final java.util.concurrent.atomic.AtomicLong REFINES = new java.util.concurrent.atomic.AtomicLong();
+    /** Curves given a second bound (a material contender forms one per curve it refines). */
+    private static final java.util.concurrent.atomic.AtomicLong CURVES_REFINED = new java.util.concurrent.atomic.AtomicLong();
     /** Each synthetic curve's refractive index (the store keeps its own copy, not public): judged as stored. */
     private static final Map<SpectralStore, byte[]> INDEX_OF_CURVE = new java.util.IdentityHashMap<>();
 
@@ -107,9 +112,14 @@ class StoreWeightedBenchmark {
                 double[][] screen = new double[rules.length][runs];
                 double[][] whole = new double[rules.length][runs];
                 Outcome[] last = new Outcome[rules.length];
+                boolean[] sameRows = new boolean[rules.length];
+                Arrays.fill(sameRows, true);
                 for (int r = 0; r < runs; r++) {
                     for (int v = 0; v < rules.length; v++) {
                         last[v] = search(store, mode.getValue(), limit, judge && wholeRules.contains(rules[v]), rules[v]);
+                        // every rule's answer against the first rule's, run by run (only the work may differ)
+                        sameRows[v] &= last[v].rows().isEmpty() || last[0].rows().isEmpty()
+                                || last[v].rows().equals(last[0].rows());
                         screen[v][r] = last[v].screenMs;
                         whole[v][r] = last[v].wholeMs;
                     }
@@ -121,17 +131,27 @@ class StoreWeightedBenchmark {
                     for (String part : judged ? new String[] {"screen", "whole"} : new String[] {"screen"}) {
                         double[] ms = part.equals("screen") ? screen[v] : whole[v];
                         System.out.printf(Locale.ROOT, "BENCH store-weighted curves=%d mode=%s part=%s p50_ms=%.1f p95_ms=%.1f"
-                                        + " proven=%d judged=%d runs=%d rule=%s judging=%s%n", n, mode.getKey(), part, ms[runs / 2],
+                                        + " proven=%d judged=%d runs=%d rule=%s judging=%s same_rows=%s%n", n, mode.getKey(), part, ms[runs / 2],
                                 ms[Math.min(runs - 1, (int) Math.ceil(runs * 0.95) - 1)], last[v].proven, last[v].judged,
-                                runs, rules[v], judged && List.of("current", "samples", "before").contains(rules[v])
-                                        ? System.getProperty("bench.storeWeightedJudging", "bounded") : "earlier");
+                                runs, rules[v], judged && List.of("current", "samples", "before", "settled", "bar").contains(rules[v])
+                                        ? System.getProperty("bench.storeWeightedJudging", "bounded") : "earlier", sameRows[v]);
                     }
                 }
             }
         }
     }
 
-    private record Outcome(double screenMs, double wholeMs, int proven, int judged) {
+    /** @param rows the answer's rows (sample, standing, margin) when judged, for {@code same_rows}; empty otherwise */
+    private record Outcome(double screenMs, double wholeMs, int proven, int judged, List<String> rows) {
+
+        Outcome(double screenMs, double wholeMs, int proven, int judged) {
+            this(screenMs, wholeMs, proven, judged, List.of());
+        }
+    }
+
+    private static List<String> rowsOf(List<RankedRow> rows) {
+        return rows.stream().map(r -> r.evaluation().sampleId() + " " + r.evaluation().standing() + " "
+                + r.evaluation().worstMarginDecades()).toList();
     }
 
     /** One weighted search the service's way, on the store's curves. */
@@ -142,20 +162,21 @@ class StoreWeightedBenchmark {
             // the loop before this pass: materials whole, one second bound at a time
             System.setProperty("sieve.search.second-bounds-in-parallel", "false");
             try {
-                return searchBounded(store, requirement, limit, t0, false);
+                return searchBounded(store, requirement, limit, t0, false, false, false);
             } finally {
                 System.clearProperty("sieve.search.second-bounds-in-parallel");
             }
         }
-        if (judge && (rule.equals("current") || rule.equals("samples"))
+        if (judge && (rule.equals("current") || rule.equals("samples") || rule.equals("settled") || rule.equals("bar"))
                 && !"earlier".equals(System.getProperty("bench.storeWeightedJudging", "bounded"))) {
-            return searchBounded(store, requirement, limit, t0, rule.equals("samples"));
+            return searchBounded(store, requirement, limit, t0, !rule.equals("current"),
+                    rule.equals("settled") || rule.equals("bar"), rule.equals("bar"));
         }
         Map<Long, Double> proven = new HashMap<>();
         switch (rule) {
             case "earlier" -> WeightedMisses.addEarlier(proven, store, requirement, Optional.empty());
             case "reference" -> WeightedMisses.add(proven, store, requirement, Optional.empty(), false, true);
-            case "current", "samples", "before" -> WeightedMisses.add(proven, store, requirement, Optional.empty());
+            case "current", "samples", "before", "settled", "bar" -> WeightedMisses.add(proven, store, requirement, Optional.empty());
             default -> throw new IllegalArgumentException("rule " + rule);
         }
         long t1 = System.nanoTime();
@@ -210,7 +231,7 @@ class StoreWeightedBenchmark {
         if (rows.isEmpty()) {
             throw new IllegalStateException("no rows");
         }
-        return new Outcome((t1 - t0) / 1e6, (t2 - t0) / 1e6, proven.size(), judged);
+        return new Outcome((t1 - t0) / 1e6, (t2 - t0) / 1e6, proven.size(), judged, rowsOf(rows));
     }
 
     /**
@@ -222,7 +243,7 @@ class StoreWeightedBenchmark {
      * ({@code -Dbench.storeWeightedJudging=earlier}: the loop before, held proven misses judged while they could enter).
      */
     private static Outcome searchBounded(SpectralStore store, Requirement requirement, int limit, long t0,
-                                         boolean samplesAsContenders) {
+                                         boolean samplesAsContenders, boolean settledRows, boolean toTheBar) {
         // the screen: each curve's bound of either sign; a negative one is a proven miss (WeightedMisses.add),
         // and the second stage of the same search (its queries), as SearchService.searchExactly forms them
         WeightedMisses.Screen screen = WeightedMisses.screen(store, requirement, Optional.empty(), false, true);
@@ -253,7 +274,11 @@ class StoreWeightedBenchmark {
             // bulk one is made at an asked thickness only as measured: as the service's madeFor, a proven miss
             // of a bulk material at a thickness is not "at best a valued miss"
             boolean made = spec.kind() == ThicknessSpec.Kind.AS_MEASURED || !store.isBulk(first);
-            if (bySample) {
+            if (settledRows && settledOverRange(store, first, end, spec)) {
+                // as SearchService: a material whose every row is "not judged" from its thicknesses waits last
+                contenders.add(new BoundedJudgement.Contender(material(m, first), Double.NEGATIVE_INFINITY, false, false,
+                        true, Double.NEGATIVE_INFINITY, BoundedJudgement.WHOLE_MATERIAL, true));
+            } else if (bySample) {
                 // as SearchService: each sample the judgement picks a contender of its own, with its own bound
                 for (int c = first; c < end; c++) {
                     double margin = c < bounds.length && !Double.isNaN(bounds[c]) ? bounds[c] : Double.POSITIVE_INFINITY;
@@ -284,14 +309,15 @@ class StoreWeightedBenchmark {
                     judged.addAndGet(rows.size());
                     return rows;
                 }, contenders.size() >= BoundedJudgement.PARALLEL_FROM,
-                second == null ? null : c -> {
+                second == null ? null : (c, bar) -> {
                     long r0 = System.nanoTime();
                     // as the service: a second stage of its own for each second bound formed at the same time
                     WeightedMisses.SecondStage stage = idle.poll();
                     stage = stage != null ? stage
                             : WeightedMisses.secondStage(store, requirement, Optional.empty(), false, true);
-                    BoundedJudgement.Contender out = c.oneSample() ? refinedSample(store, c, bounds, stage, spec)
-                            : refined(store, c, bounds, stage, spec);
+                    BoundedJudgement.Contender out = c.oneSample()
+                            ? refinedSample(store, c, bounds, stage, spec, toTheBar ? bar : Double.NEGATIVE_INFINITY)
+                            : refined(store, c, bounds, stage, spec, toTheBar ? bar : Double.NEGATIVE_INFINITY);
                     idle.add(stage);
                     REFINE_NS.addAndGet(System.nanoTime() - r0);
                     REFINES.incrementAndGet();
@@ -310,12 +336,12 @@ class StoreWeightedBenchmark {
                 kinds.merge((store.isBulk(c) ? "bulk " : "fixed ") + e.evaluation().standing()
                         + (bounds[c] < 0 ? " proven" : ""), 1, Integer::sum);
             }
-            System.out.printf("DEBUG contenders=%d refines=%d refine_ms=%.1f judge_ms=%.1f t_contenders_ms=%.1f%n", contenders.size(),
-                    REFINES.getAndSet(0), REFINE_NS.getAndSet(0) / 1e6, JUDGE_NS.getAndSet(0) / 1e6, (tc - t1b) / 1e6);
+            System.out.printf("DEBUG contenders=%d refines=%d curves_refined=%d refine_ms=%.1f judge_ms=%.1f t_contenders_ms=%.1f%n",
+                    contenders.size(), REFINES.getAndSet(0), CURVES_REFINED.getAndSet(0), REFINE_NS.getAndSet(0) / 1e6, JUDGE_NS.getAndSet(0) / 1e6, (tc - t1b) / 1e6);
             System.out.println("DEBUG last=" + lastRow.evaluation().standing() + " " + lastRow.evaluation().worstMarginDecades()
                     + " first=" + rows.get(0).evaluation().worstMarginDecades() + " kinds=" + kinds);
         }
-        return new Outcome((t1b - t0) / 1e6, (t2 - t0) / 1e6, provenCount, judged.get());
+        return new Outcome((t1b - t0) / 1e6, (t2 - t0) / 1e6, provenCount, judged.get(), rowsOf(rows));
     }
 
     /**
@@ -326,7 +352,7 @@ class StoreWeightedBenchmark {
      * bound.
      */
     private static BoundedJudgement.Contender refined(SpectralStore store, BoundedJudgement.Contender c, double[] bounds,
-                                                      WeightedMisses.SecondStage second, ThicknessSpec spec) {
+                                                      WeightedMisses.SecondStage second, ThicknessSpec spec, double bar) {
         int first = (int) ((c.material().id() - 1) * 3);
         double bound = Double.NEGATIVE_INFINITY;
         double unverifiedBound = Double.NEGATIVE_INFINITY;
@@ -334,33 +360,52 @@ class StoreWeightedBenchmark {
         boolean noneMeets = true;
         int end = Math.min(store.size(), first + 3);
         boolean[] judgedHere = judgedSamples(store, first, end, spec);
+        // as the service: against a met last row only the judged curves, largest first bound first, up to the bar
+        boolean everySample = !(bar > Double.NEGATIVE_INFINITY);
+        List<Integer> order = new ArrayList<>();
         for (int k = first; k < end; k++) {
-            double b = k < bounds.length && !Double.isNaN(bounds[k]) ? bounds[k] : Double.POSITIVE_INFINITY;
+            if (everySample || judgedHere[k - first]) {
+                order.add(k);
+            }
+        }
+        if (!everySample) {
+            order.sort((a, b) -> Double.compare(firstBound(bounds, b), firstBound(bounds, a)));
+        }
+        boolean reached = false;
+        for (int k : order) {
+            double b = firstBound(bounds, k);
             // as the service: the second stage only for a curve with a first bound (it only tightens one)
-            boolean formed = b < Double.POSITIVE_INFINITY;
-            b = formed ? Math.min(b, second.bound(k, store.curve(k))) : b;
+            boolean formed = b < Double.POSITIVE_INFINITY && (everySample || !reached && !(b < bar));
+            b = formed ? Math.min(b, second.bound(k, store.curve(k), bar)) : b;
+            CURVES_REFINED.addAndGet(formed ? 1 : 0);
             allMiss &= b < 0;
             if (judgedHere[k - first]) {
                 bound = Math.max(bound, b);
+                reached |= !(b < bar);
                 noneMeets &= formed && second.cannotMeet() || b < 0;
                 unverifiedBound = Math.max(unverifiedBound, formed ? second.unverifiedBound() : Double.POSITIVE_INFINITY);
             }
         }
         boolean made = spec.kind() == ThicknessSpec.Kind.AS_MEASURED || !store.isBulk(first);
-        return new BoundedJudgement.Contender(c.material(), bound, allMiss && made, false, noneMeets,
+        return new BoundedJudgement.Contender(c.material(), bound, everySample && allMiss && made, false, noneMeets,
                 spec.kind() == ThicknessSpec.Kind.AS_MEASURED ? unverifiedBound : Double.POSITIVE_INFINITY);
+    }
+
+    private static double firstBound(double[] bounds, int k) {
+        return k < bounds.length && !Double.isNaN(bounds[k]) ? bounds[k] : Double.POSITIVE_INFINITY;
     }
 
     /** As {@code SearchService.refinedSample}: one curve's bound lowered by the second stage on its decoded curve. */
     private static BoundedJudgement.Contender refinedSample(SpectralStore store, BoundedJudgement.Contender c,
                                                             double[] bounds, WeightedMisses.SecondStage second,
-                                                            ThicknessSpec spec) {
+                                                            ThicknessSpec spec, double bar) {
         int k = (int) (c.sampleId() - 1);
         double b = k < bounds.length && !Double.isNaN(bounds[k]) ? bounds[k] : Double.POSITIVE_INFINITY;
         if (!(b < Double.POSITIVE_INFINITY)) {
             return c; // as the service: nothing to tighten
         }
-        b = Math.min(b, second.bound(k, store.curve(k)));
+        b = Math.min(b, second.bound(k, store.curve(k), bar));
+        CURVES_REFINED.incrementAndGet();
         boolean made = spec.kind() == ThicknessSpec.Kind.AS_MEASURED || !store.isBulk(k);
         return new BoundedJudgement.Contender(c.material(), b, b < 0 && made, false, second.cannotMeet() || b < 0,
                 spec.kind() == ThicknessSpec.Kind.AS_MEASURED ? second.unverifiedBound() : Double.POSITIVE_INFINITY,
@@ -371,6 +416,19 @@ class StoreWeightedBenchmark {
     private static List<MaterialEvaluation> judgeOne(SpectralStore store, int from, int to, Requirement requirement,
                                                      long sampleId) {
         return MaterialJudge.evaluateOne(candidates(store, from, to), requirement, Optional.empty(), sampleId);
+    }
+
+    /** As {@code SearchService.settledOverRange}: every row of the material's curves [from, to) is not judged. */
+    private static boolean settledOverRange(SpectralStore store, int from, int to, ThicknessSpec spec) {
+        double[] measured = new double[to - from];
+        boolean[] rescalable = new boolean[to - from];
+        for (int c = from; c < to; c++) {
+            measured[c - from] = store.thicknessMm(c);
+            rescalable[c - from] = store.isBulk(c);
+        }
+        MadeThicknesses made = MadeThicknesses.of(List.of(), Double.NaN, Double.NaN,
+                Arrays.stream(measured).boxed().toList());
+        return SettledRows.overRange(measured, rescalable, made, spec);
     }
 
     /** Which of the material's curves [from, to) {@link MaterialJudge#choose} judges, from their thicknesses alone. */
