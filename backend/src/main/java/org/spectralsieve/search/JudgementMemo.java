@@ -13,6 +13,7 @@ import java.util.concurrent.atomic.LongAdder;
 import org.spectralsieve.optics.RefractiveIndex;
 import org.spectralsieve.requirement.Candidate;
 import org.spectralsieve.requirement.Clause;
+import org.spectralsieve.requirement.CrossingFinder;
 import org.spectralsieve.requirement.JudgementPath;
 import org.spectralsieve.requirement.MadeThicknesses;
 import org.spectralsieve.requirement.Requirement;
@@ -44,7 +45,7 @@ import org.spectralsieve.weighting.FigurePath;
  *   <li><b>Question</b>: the requirement by value, the resolved layer by value (its curve by content), and the
  *       emitter and response objects of weighted clauses by identity: {@link Weighting.Spectral} compares
  *       them by name only, and an imported spectrum deleted and imported again under the same name is another
- *       object. Also the process-wide benchmark switches of the evaluator's arithmetic (equal answers by their
+ *       object. Also the process-wide benchmark switches of the evaluator's arithmetic and of its thickness solves' root finder (equal answers by their
  *       own tests, kept in the key all the same). Each distinct question gets a number never used again.</li>
  *   <li><b>Span</b>: the thicknesses the sample speaks for among its material's samples, by value.</li>
  * </ul>
@@ -150,14 +151,15 @@ public final class JudgementMemo implements SampleJudge {
         boolean reference = JudgementPath.reference();
         boolean byLookup = FigurePath.byLookup();
         boolean earlier = PerPointArithmetic.earlier();
+        boolean bisection = CrossingFinder.bisection();
         Recent[] seen = recent;
         for (Recent r : seen) {
             if (r != null && r.requirement == requirement && r.layer == layer && r.reference == reference
-                    && r.byLookup == byLookup && r.earlier == earlier) {
+                    && r.byLookup == byLookup && r.earlier == earlier && r.bisection == bisection) {
                 return r.asked;
             }
         }
-        Question q = Question.of(requirement, layer, reference, byLookup, earlier);
+        Question q = Question.of(requirement, layer, reference, byLookup, earlier, bisection);
         Asked asked;
         synchronized (questions) {
             Asked before = questions.get(q);
@@ -165,7 +167,7 @@ public final class JudgementMemo implements SampleJudge {
             questions.put(q, asked);
         }
         Recent[] next = new Recent[RECENT];
-        next[0] = new Recent(requirement, layer, reference, byLookup, earlier, asked);
+        next[0] = new Recent(requirement, layer, reference, byLookup, earlier, bisection, asked);
         System.arraycopy(seen, 0, next, 1, RECENT - 1);
         recent = next; // a lost race forgets one recent question: the next call finds it through the map
         return asked;
@@ -190,7 +192,7 @@ public final class JudgementMemo implements SampleJudge {
 
     /** A recent question's objects, its switches and what the map said of it. */
     private record Recent(Requirement requirement, Optional<StackLayer> layer, boolean reference, boolean byLookup,
-                          boolean earlier, Asked asked) {
+                          boolean earlier, boolean bisection, Asked asked) {
     }
 
     /** Hits and misses since the memo was made, and the entries kept now. */
@@ -228,10 +230,11 @@ public final class JudgementMemo implements SampleJudge {
      * clauses integrate by identity (their equality is by name); the layer by value; the evaluator's switches.
      */
     private record Question(Requirement requirement, Optional<StackLayer> layer, Identities spectra,
-                            boolean referencePath, boolean figureByLookup, boolean earlierArithmetic) {
+                            boolean referencePath, boolean figureByLookup, boolean earlierArithmetic,
+                            boolean bisectionRoots) {
 
         static Question of(Requirement requirement, Optional<StackLayer> layer, boolean referencePath,
-                           boolean figureByLookup, boolean earlierArithmetic) {
+                           boolean figureByLookup, boolean earlierArithmetic, boolean bisectionRoots) {
             List<Object> spectra = new ArrayList<>();
             for (Clause c : requirement.clauses()) {
                 if (c instanceof WeightedClause w && w.weighting() instanceof Weighting.Spectral s) {
@@ -240,7 +243,7 @@ public final class JudgementMemo implements SampleJudge {
                 }
             }
             return new Question(requirement, layer, new Identities(spectra.toArray()), referencePath, figureByLookup,
-                    earlierArithmetic);
+                    earlierArithmetic, bisectionRoots);
         }
     }
 
