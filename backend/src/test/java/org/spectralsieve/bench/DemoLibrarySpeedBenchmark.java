@@ -148,12 +148,21 @@ class DemoLibrarySpeedBenchmark {
                 double[] wall = Arrays.stream(a).mapToDouble(Answer::wallMs).toArray();
                 Answer last = a[a.length - 1];
                 System.out.printf(Locale.ROOT, "BENCH %s kind=%s%s materials=%d curves=%d runs=%d p50_ms=%s p95_ms=%s"
-                                + " wall_p50_ms=%s wall_p95_ms=%s judged=%d evaluated=%d rows=%d load_average=%s%n", key,
+                                + " wall_p50_ms=%s wall_p95_ms=%s judged=%d evaluated=%d rows=%d load_average=%s judgement_memo=%s%n", key,
                         e.getKey(), variant == null ? "" : " variant=" + variant, materials, curves, runs,
                         ms(percentile(took, 50)), ms(percentile(took, 95)), ms(percentile(wall, 50)),
-                        ms(percentile(wall, 95)), last.judged(), last.evaluated(), last.rows(), loadAverage());
+                        ms(percentile(wall, 95)), last.judged(), last.evaluated(), last.rows(), loadAverage(), memo());
             }
         }
+    }
+
+    /**
+     * Whether the service remembers exact judgements ({@code search.JudgementMemo}): with it on, every run after the
+     * first asks a question already asked, so p50 is a repeated question's time; {@code
+     * -Dsieve.search.judgement-memo=false} gives a first ask's.
+     */
+    private static String memo() {
+        return "false".equals(System.getProperty("sieve.search.judgement-memo")) ? "off" : "on";
     }
 
     /** The one-minute load average at printing (the machine is shared: say how busy it was). */

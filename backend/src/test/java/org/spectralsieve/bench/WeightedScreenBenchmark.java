@@ -66,7 +66,9 @@ import org.springframework.core.io.DefaultResourceLoader;
  * {@code on-bisection} the same service with its thickness solves by bisection, as before the seventh pass
  * ({@link CrossingFinder#useBisection}; {@code -Dbench.screenRoots=bisection} adds it); for every line whose
  * searches solved a thickness, a {@code DEBUG solve-trials} line gives the root finder's trial thicknesses per
- * sample judged exactly.
+ * sample judged exactly. Its {@code same_rows} compares rows bit for bit, so it reads false where a solve's reported
+ * thicknesses differ in their last bits (both finders' ends lie within {@code ThicknessSolver.TOLERANCE_MM} of the same
+ * crossing; {@code RootFinderAgreementTest} checks that the rows agree within it).
  * {@code -Dbench.screenModes=measured,solve,layer} picks the variants; {@code -Dbench.screenAlternateOrder=true} runs
  * the services in reverse order every other run; {@code -Dbench.screenTwin=true} adds {@code on-twin}, a second
  * default service, to show what two identical services differ by in the run.
@@ -206,10 +208,12 @@ class WeightedScreenBenchmark {
                 Shortlist answer = last.get(key);
                 boolean same = answer.rows().equals(last.get(variant + " on").rows());
                 System.out.printf("BENCH search-weighted library=%s curves=%d mode=%s screen=%s p50_ms=%s p95_ms=%s"
-                                + " judged=%d of=%d same_rows=%s bytes_per_curve=%.0f runs=%d cpu_p50_ms=%s cpu_p95_ms=%s%n",
+                                + " judged=%d of=%d same_rows=%s bytes_per_curve=%.0f runs=%d cpu_p50_ms=%s cpu_p95_ms=%s judgement_memo=%s%n",
                         name, store.size(), variant, screen, ms(percentile(m, 50)), ms(percentile(m, 95)),
                         answer.judgedExactly(), answer.evaluatedSamples(), same, store.bytesPerCurve(), runs,
-                        ms(percentile(cpu.get(key), 50)), ms(percentile(cpu.get(key), 95)));
+                        ms(percentile(cpu.get(key), 50)), ms(percentile(cpu.get(key), 95)),
+                        // on: every run after the first repeats a question (remembered judgements); off: a first ask's time
+                        "false".equals(System.getProperty("sieve.search.judgement-memo")) ? "off" : "on");
                 long[] t = trials.get(key);
                 if (t[0] > 0) {
                     // a debug line, not a BENCH row: how many trial thicknesses the solves took per judged sample
