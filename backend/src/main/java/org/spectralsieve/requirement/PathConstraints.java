@@ -33,11 +33,13 @@ final class PathConstraints {
             return true;
         }
         if (clause instanceof WeightedClause w) {
-            if (Double.isNaN(FigureClauses.weightedMargin(w, asMeasured.curve()))) {
+            boolean explained = path.earlier();
+            // only whether the figure exists is read here: its note is not (an unexplained figure has the same value
+            // and availability, Weighting#figureForMargin), unless the rule before is asked for (MarginReuse)
+            if (Double.isNaN(FigureClauses.weightedMargin(w, asMeasured.curve(), explained || !MarginReuse.enabled()))) {
                 return false;
             }
             // provable either way: a pass on the figure's lower end, a block on its upper end
-            boolean explained = path.earlier();
             out.add(new OnPath(w.direction() == Direction.PASS, true,
                     d -> FigureClauses.weightedMargin(w, path.pointsAt(d), explained)));
             return true;
@@ -97,10 +99,15 @@ final class PathConstraints {
                 d -> Margins.of(direction, new CurveView(path.at(d)).at(nm).judged(), threshold));
     }
 
-    /** A condition whose margin is read on the path at d. */
+    /**
+     * A condition whose margin is read on the path at d; each thickness's margin once per solve
+     * ({@link RecentMargins}) unless {@link MarginReuse} is off.
+     */
     static final class OnPath extends ThicknessConstraint {
 
         private final DoubleUnaryOperator margin;
+        /** Null when every ask computes (the rule before, {@link MarginReuse}). */
+        private final RecentMargins recent;
 
         OnPath(boolean falling, boolean provable, DoubleUnaryOperator margin) {
             this(falling, provable, Double.POSITIVE_INFINITY, margin);
@@ -109,11 +116,12 @@ final class PathConstraints {
         OnPath(boolean falling, boolean provable, double provableUpToMm, DoubleUnaryOperator margin) {
             super(falling, provable, provableUpToMm);
             this.margin = margin;
+            this.recent = MarginReuse.enabled() ? new RecentMargins(margin) : null;
         }
 
         @Override
         double marginAt(double d) {
-            return margin.applyAsDouble(d);
+            return recent != null ? recent.at(d) : margin.applyAsDouble(d);
         }
     }
 }

@@ -299,7 +299,41 @@ public final class WeightedFigures {
         return gaps;
     }
 
+    /**
+     * Shares already written as text, by the share's bits. Why: a solved candidate's figures are explained at
+     * every thickness it is judged at, and the share of the weighted power a figure leaves out depends on the
+     * curve's wavelengths, the emitter and the response, not on the thickness, so the same few shares are written
+     * again and again; the formatter was about a tenth of a weighted solve (docs/exact-judgement-speed.md, "Margins
+     * read once per thickness"). The text is a function of the share alone, so a kept one is the one written anew.
+     * Bounded: emptied when full.
+     */
+    private static final java.util.Map<Long, String> PERCENT_TEXTS = new java.util.concurrent.ConcurrentHashMap<>();
+    private static final int PERCENT_TEXTS_LIMIT = 1024;
+    /** Off with {@code -Dsieve.solve.reuse-margins=false}, as the solve's reuse (requirement.MarginReuse). */
+    private static volatile boolean keepPercentTexts = !"false".equals(System.getProperty("sieve.solve.reuse-margins"));
+
+    /** For benchmarks and tests: false writes every share anew, as before (the same text). */
+    public static void keepPercentTexts(boolean keep) {
+        keepPercentTexts = keep;
+    }
+
     private static String percent(double share) {
+        if (!keepPercentTexts) {
+            return percentText(share);
+        }
+        Long key = Double.doubleToRawLongBits(share);
+        String kept = PERCENT_TEXTS.get(key);
+        if (kept == null) {
+            if (PERCENT_TEXTS.size() >= PERCENT_TEXTS_LIMIT) {
+                PERCENT_TEXTS.clear();
+            }
+            kept = percentText(share);
+            PERCENT_TEXTS.put(key, kept);
+        }
+        return kept;
+    }
+
+    private static String percentText(double share) {
         return String.format(java.util.Locale.ROOT, "%.2g %%", 100 * share);
     }
 

@@ -24,6 +24,7 @@ import org.spectralsieve.library.Provenance;
 import org.spectralsieve.library.Scaling;
 import org.spectralsieve.library.StatedThicknesses;
 import org.spectralsieve.requirement.CrossingFinder;
+import org.spectralsieve.requirement.MarginReuse;
 import org.spectralsieve.requirement.Requirement;
 import org.spectralsieve.requirement.RequirementParser;
 import org.spectralsieve.search.SearchService;
@@ -69,6 +70,9 @@ import org.springframework.core.io.DefaultResourceLoader;
  * sample judged exactly. Its {@code same_rows} compares rows bit for bit, so it reads false where a solve's reported
  * thicknesses differ in their last bits (both finders' ends lie within {@code ThicknessSolver.TOLERANCE_MM} of the same
  * crossing; {@code RootFinderAgreementTest} checks that the rows agree within it).
+ * {@code on-no-margin-reuse} the same service computing every margin a solve asks, as before the eighth pass
+ * ({@link MarginReuse#use}; {@code -Dbench.screenMarginReuse=off} adds it; its rows must equal the default's or the
+ * benchmark fails).
  * {@code -Dbench.screenModes=measured,solve,layer} picks the variants; {@code -Dbench.screenAlternateOrder=true} runs
  * the services in reverse order every other run; {@code -Dbench.screenTwin=true} adds {@code on-twin}, a second
  * default service, to show what two identical services differ by in the run.
@@ -79,6 +83,8 @@ class WeightedScreenBenchmark {
     private static final String EARLIER_ARITHMETIC = "on-earlier-arithmetic";
     /** The service with thickness solves by bisection, as before the seventh pass ({@code -Dbench.screenRoots=bisection}). */
     private static final String BISECTION = "on-bisection";
+    /** The service computing every margin a solve asks, as before the eighth pass ({@code -Dbench.screenMarginReuse=off}). */
+    private static final String NO_MARGIN_REUSE = "on-no-margin-reuse";
 
     static final String WEIGHTED = "passes over 85% of led 365 and uv hazard under 0.1% and luminous over 70%";
 
@@ -122,6 +128,10 @@ class WeightedScreenBenchmark {
             // thickness solves by bisection (CrossingFinder), the same service otherwise
             services.put(BISECTION, new SearchService(library));
         }
+        if (BenchStats.stringList("bench.screenMarginReuse", "").contains("off")) {
+            // every margin a solve asks computed anew, and the figure checks with their notes (MarginReuse)
+            services.put(NO_MARGIN_REUSE, new SearchService(library));
+        }
         if (!Boolean.getBoolean("bench.screenSkipNoSecondStage")) {
             // the judging loop without its second, exact-curve stage: the rule before it, side by side
             services.put("on-no-second-stage", new SearchService(library).withoutSecondStage());
@@ -162,6 +172,11 @@ class WeightedScreenBenchmark {
                 variants.values().forEach(r -> services.get(BISECTION).search(r, limit));
                 CrossingFinder.useBisection(false);
             }
+            if (services.containsKey(NO_MARGIN_REUSE)) {
+                MarginReuse.use(false);
+                variants.values().forEach(r -> services.get(NO_MARGIN_REUSE).search(r, limit));
+                MarginReuse.use(true);
+            }
         }
         Map<String, double[]> took = new LinkedHashMap<>();
         Map<String, Shortlist> last = new LinkedHashMap<>();
@@ -182,6 +197,7 @@ class WeightedScreenBenchmark {
                     String key = variant.getKey() + " " + service.getKey();
                     PerPointArithmetic.useEarlier(service.getKey().equals(EARLIER_ARITHMETIC));
                     CrossingFinder.useBisection(service.getKey().equals(BISECTION));
+                    MarginReuse.use(!service.getKey().equals(NO_MARGIN_REUSE));
                     Shortlist answer;
                     long cpuBefore = processCpuNanos();
                     long trialsBefore = CrossingFinder.steps();
@@ -190,6 +206,7 @@ class WeightedScreenBenchmark {
                     } finally {
                         PerPointArithmetic.useEarlier(false);
                         CrossingFinder.useBisection(false);
+                        MarginReuse.use(true);
                     }
                     long[] t = trials.computeIfAbsent(key, k -> new long[2]);
                     t[0] += CrossingFinder.steps() - trialsBefore;
@@ -207,6 +224,10 @@ class WeightedScreenBenchmark {
                 double[] m = took.get(key);
                 Shortlist answer = last.get(key);
                 boolean same = answer.rows().equals(last.get(variant + " on").rows());
+                if (screen.equals(NO_MARGIN_REUSE) && !same) {
+                    // reading a margin once per thickness must change no answer, bit for bit
+                    throw new AssertionError("margin reuse changed the rows of " + variant);
+                }
                 System.out.printf("BENCH search-weighted library=%s curves=%d mode=%s screen=%s p50_ms=%s p95_ms=%s"
                                 + " judged=%d of=%d same_rows=%s bytes_per_curve=%.0f runs=%d cpu_p50_ms=%s cpu_p95_ms=%s judgement_memo=%s%n",
                         name, store.size(), variant, screen, ms(percentile(m, 50)), ms(percentile(m, 95)),
