@@ -15,6 +15,7 @@ import org.spectralsieve.requirement.Candidate;
 import org.spectralsieve.requirement.Clause;
 import org.spectralsieve.requirement.CrossingFinder;
 import org.spectralsieve.requirement.JudgementPath;
+import org.spectralsieve.requirement.MarginReuse;
 import org.spectralsieve.requirement.MadeThicknesses;
 import org.spectralsieve.requirement.Requirement;
 import org.spectralsieve.requirement.SampleEvaluation;
@@ -45,7 +46,7 @@ import org.spectralsieve.weighting.FigurePath;
  *   <li><b>Question</b>: the requirement by value, the resolved layer by value (its curve by content), and the
  *       emitter and response objects of weighted clauses by identity: {@link Weighting.Spectral} compares
  *       them by name only, and an imported spectrum deleted and imported again under the same name is another
- *       object. Also the process-wide benchmark switches of the evaluator's arithmetic and of its thickness solves' root finder (equal answers by their
+ *       object. Also the process-wide benchmark switches of the evaluator's arithmetic and of its thickness solves (root finder, margins reused) (equal answers by their
  *       own tests, kept in the key all the same). Each distinct question gets a number never used again.</li>
  *   <li><b>Span</b>: the thicknesses the sample speaks for among its material's samples, by value.</li>
  * </ul>
@@ -151,15 +152,16 @@ public final class JudgementMemo implements SampleJudge {
         boolean reference = JudgementPath.reference();
         boolean byLookup = FigurePath.byLookup();
         boolean earlier = PerPointArithmetic.earlier();
-        boolean bisection = CrossingFinder.bisection();
+        // the thickness solves' switches as one number: root finder (bisection or ITP), margins reused or not
+        int solve = (CrossingFinder.bisection() ? 1 : 0) | (MarginReuse.enabled() ? 2 : 0);
         Recent[] seen = recent;
         for (Recent r : seen) {
             if (r != null && r.requirement == requirement && r.layer == layer && r.reference == reference
-                    && r.byLookup == byLookup && r.earlier == earlier && r.bisection == bisection) {
+                    && r.byLookup == byLookup && r.earlier == earlier && r.solve == solve) {
                 return r.asked;
             }
         }
-        Question q = Question.of(requirement, layer, reference, byLookup, earlier, bisection);
+        Question q = Question.of(requirement, layer, reference, byLookup, earlier, solve);
         Asked asked;
         synchronized (questions) {
             Asked before = questions.get(q);
@@ -167,7 +169,7 @@ public final class JudgementMemo implements SampleJudge {
             questions.put(q, asked);
         }
         Recent[] next = new Recent[RECENT];
-        next[0] = new Recent(requirement, layer, reference, byLookup, earlier, bisection, asked);
+        next[0] = new Recent(requirement, layer, reference, byLookup, earlier, solve, asked);
         System.arraycopy(seen, 0, next, 1, RECENT - 1);
         recent = next; // a lost race forgets one recent question: the next call finds it through the map
         return asked;
@@ -192,7 +194,7 @@ public final class JudgementMemo implements SampleJudge {
 
     /** A recent question's objects, its switches and what the map said of it. */
     private record Recent(Requirement requirement, Optional<StackLayer> layer, boolean reference, boolean byLookup,
-                          boolean earlier, boolean bisection, Asked asked) {
+                          boolean earlier, int solve, Asked asked) {
     }
 
     /** Hits and misses since the memo was made, and the entries kept now. */
@@ -231,10 +233,10 @@ public final class JudgementMemo implements SampleJudge {
      */
     private record Question(Requirement requirement, Optional<StackLayer> layer, Identities spectra,
                             boolean referencePath, boolean figureByLookup, boolean earlierArithmetic,
-                            boolean bisectionRoots) {
+                            int solveSwitches) {
 
         static Question of(Requirement requirement, Optional<StackLayer> layer, boolean referencePath,
-                           boolean figureByLookup, boolean earlierArithmetic, boolean bisectionRoots) {
+                           boolean figureByLookup, boolean earlierArithmetic, int solveSwitches) {
             List<Object> spectra = new ArrayList<>();
             for (Clause c : requirement.clauses()) {
                 if (c instanceof WeightedClause w && w.weighting() instanceof Weighting.Spectral s) {
@@ -243,7 +245,7 @@ public final class JudgementMemo implements SampleJudge {
                 }
             }
             return new Question(requirement, layer, new Identities(spectra.toArray()), referencePath, figureByLookup,
-                    earlierArithmetic, bisectionRoots);
+                    earlierArithmetic, solveSwitches);
         }
     }
 
