@@ -143,6 +143,12 @@ public class SearchService {
      */
     private boolean samplesAsContenders = true;
     /**
+     * Whether a sample prepared alone is found before the others are checked, and a material's made thicknesses are
+     * the snapshot's, formed once ({@link #madeOf}); {@code -Dsieve.search.prepared-once=false} forms them per sample
+     * and checks every sample, the way before, only so the load benchmark can time both ways (the same candidates).
+     */
+    private final boolean preparedOnce = !"false".equals(System.getProperty("sieve.search.prepared-once"));
+    /**
      * Recent exact judgements of one sample, handed out again for the same arguments ({@link JudgementMemo},
      * docs/judgement-memo.md); null judges every sample afresh ({@code -Dsieve.search.judgement-memo=false} or
      * {@link #withoutJudgementMemo}), only so a benchmark and tests can compare both ways (the answers are the same).
@@ -331,10 +337,11 @@ public class SearchService {
      * @param unusable      the samples whose stored record fails today's checks ({@link SampleRescaling#unusable}):
      *                      the store holds them at a storable thickness with an assumed index, so no screen's
      *                      proof on them holds for the exact judgement (see {@link #searchExactly})
+     * @param made          each material's made thicknesses ({@link #made}) as formed from these very objects
      */
     private record Snapshot(SpectralStore store, Map<Long, Material> materials, Map<Long, SampleInfo> samples,
                             long generation, long invalidations, CurveCache curves, List<Material> ordered,
-                            Set<Long> unusable) {
+                            Set<Long> unusable, Map<Long, MadeThicknesses> made) {
 
         /** Read no earlier than {@code other}: both counters only grow, so a later read has both at least as large. */
         boolean notOlderThan(Snapshot other) {
@@ -509,11 +516,12 @@ public class SearchService {
      *             needs no other sample's curve; the thicknesses the material is made in still come from all)
      */
     private Prepared prepare(Snapshot s, Material material, Requirement requirement, boolean diffuseLayer, long only) {
-        MadeThicknesses made = made(material);
+        MadeThicknesses made = preparedOnce ? madeOf(s, material) : made(material);
         List<Candidate> candidates = new ArrayList<>();
         List<MaterialEvaluation> failed = new ArrayList<>();
         for (SampleInfo sample : material.samples()) {
-            if (admits(requirement, material, sample) && (only == BoundedJudgement.WHOLE_MATERIAL || sample.id() == only)) {
+            if (preparedOnce ? (only == BoundedJudgement.WHOLE_MATERIAL || sample.id() == only) && admits(requirement, material, sample)
+                    : admits(requirement, material, sample) && (only == BoundedJudgement.WHOLE_MATERIAL || sample.id() == only)) {
                 try {
                     Curve curve = curve(s, sample.id()).orElseThrow(
                             () -> new IllegalStateException("the sample has no readable curve"));
@@ -549,6 +557,16 @@ public class SearchService {
                                                     Requirement requirement, RuntimeException e) {
         return new MaterialEvaluation(material.id(), material.name(), SampleEvaluator.notComputable(sampleId,
                 Double.isFinite(thicknessMm) && thicknessMm > 0 ? thicknessMm : Double.NaN, requirement.clauses(), e));
+    }
+
+    /**
+     * The material's made thicknesses as the snapshot formed them once, when {@code material} is the snapshot's own
+     * object (immutable: the same object gives the same {@link #made}); else formed now. A search prepares each sample
+     * of a grown material alone, and forming them for every one went over all its samples each time.
+     */
+    private static MadeThicknesses madeOf(Snapshot s, Material material) {
+        MadeThicknesses kept = s.made().get(material.id());
+        return kept != null && s.materials().get(material.id()) == material ? kept : made(material);
     }
 
     /** The thicknesses a library material exists in: as its record states, else the assumed rule on its samples. */
@@ -1343,7 +1361,7 @@ public class SearchService {
         if (partial.isPresent() && partial.get() == previous.ordered()) {
             // no material changed (an imported emitter or response, say): the same store holds at the new number
             return new Snapshot(previous.store(), previous.materials(), previous.samples(), generation, invalidated,
-                    previous.curves(), previous.ordered(), previous.unusable());
+                    previous.curves(), previous.ordered(), previous.unusable(), previous.made());
         }
         List<Material> materials = partial.orElseGet(() -> MaterialsRead.everything(library));
         StoreRowSource curves = partial.isPresent()
@@ -1353,13 +1371,16 @@ public class SearchService {
         SpectralStore.Builder builder = SpectralStore.builder(SpectralStore.DEFAULT_GRID, samples);
         Map<Long, Material> byId = new java.util.HashMap<>();
         Map<Long, SampleInfo> sampleById = new java.util.HashMap<>();
+        Map<Long, MadeThicknesses> madeById = new java.util.HashMap<>();
         Set<Long> unusable = new HashSet<>();
         // a partial rebuild takes the previous snapshot's decoded curves as they are (not hashed again)
         CurveCache cache = partial.isPresent() ? previous.curves().successor() : new CurveCache(curveCacheBytes);
         for (Material m : materials) {
             byId.put(m.id(), m);
             m.samples().forEach(sample -> sampleById.put(sample.id(), sample));
-            StoredMaterial stored = new StoredMaterial(m.id(), m.name(), m.materialClass().label(), made(m));
+            MadeThicknesses made = made(m);
+            madeById.put(m.id(), made);
+            StoredMaterial stored = new StoredMaterial(m.id(), m.name(), m.materialClass().label(), made);
             for (SampleInfo sample : m.samples()) {
                 // the store rescales exactly what the exact evaluator rescales: never a diffuse or scattering
                 // sample, nor one whose stored thickness or index fails today's checks (SampleRescaling.unusable):
@@ -1384,6 +1405,6 @@ public class SearchService {
             }
         }
         return new Snapshot(builder.build(), Map.copyOf(byId), Map.copyOf(sampleById), generation, invalidated, cache,
-                materials, Set.copyOf(unusable));
+                materials, Set.copyOf(unusable), Map.copyOf(madeById));
     }
 }
