@@ -6,6 +6,7 @@ import java.util.List;
 import java.util.PriorityQueue;
 import java.util.function.Function;
 import java.util.function.UnaryOperator;
+import java.util.stream.IntStream;
 import org.spectralsieve.library.Material;
 import org.spectralsieve.requirement.MaterialEvaluation;
 import org.spectralsieve.requirement.RankedRow;
@@ -207,7 +208,7 @@ final class BoundedJudgement {
             // second bounds on both cores too (refine must then be safe from several threads); each goes back
             // in line by its own bound, so which are formed together changes only the work
             if (!toRefine.isEmpty()) {
-                java.util.stream.IntStream indices = java.util.stream.IntStream.range(0, toRefine.size());
+                IntStream indices = IntStream.range(0, toRefine.size());
                 (toRefine.size() > 1 ? indices.parallel() : indices)
                         .mapToObj(i -> refine.refine(toRefine.get(i), bars.get(i))).toList()
                         .forEach(c -> queue.add(new Pending(c, true)));

@@ -1,6 +1,8 @@
 package org.spectralsieve.search;
 
 import java.util.ArrayList;
+import java.util.Arrays;
+import java.util.Collection;
 import java.util.Comparator;
 import java.util.HashMap;
 import java.util.HashSet;
@@ -8,6 +10,7 @@ import java.util.LinkedHashMap;
 import java.util.LinkedHashSet;
 import java.util.List;
 import java.util.Map;
+import java.util.Objects;
 import java.util.Optional;
 import java.util.Queue;
 import java.util.Set;
@@ -16,10 +19,11 @@ import java.util.concurrent.atomic.AtomicLong;
 import java.util.concurrent.atomic.AtomicReference;
 import java.util.concurrent.locks.ReentrantLock;
 import java.util.function.LongConsumer;
+import java.util.function.Predicate;
 import org.slf4j.Logger;
 import org.slf4j.LoggerFactory;
-import org.spectralsieve.library.JooqLibraryRepository;
 import org.spectralsieve.library.Geometry;
+import org.spectralsieve.library.JooqLibraryRepository;
 import org.spectralsieve.library.LibraryGeneration;
 import org.spectralsieve.library.Material;
 import org.spectralsieve.library.SampleInfo;
@@ -34,18 +38,18 @@ import org.spectralsieve.requirement.Candidate;
 import org.spectralsieve.requirement.Direction;
 import org.spectralsieve.requirement.FixedLayer;
 import org.spectralsieve.requirement.MadeThicknesses;
+import org.spectralsieve.requirement.MaterialEvaluation;
 import org.spectralsieve.requirement.MaterialJudge;
 import org.spectralsieve.requirement.NominalThickness;
-import org.spectralsieve.requirement.MaterialEvaluation;
 import org.spectralsieve.requirement.RankedRow;
 import org.spectralsieve.requirement.Ranking;
 import org.spectralsieve.requirement.Requirement;
-import org.spectralsieve.requirement.SampleJudge;
 import org.spectralsieve.requirement.SampleEvaluation;
 import org.spectralsieve.requirement.SampleEvaluator;
+import org.spectralsieve.requirement.SampleJudge;
 import org.spectralsieve.requirement.SeeThrough;
-import org.spectralsieve.requirement.Standing;
 import org.spectralsieve.requirement.StackLayer;
+import org.spectralsieve.requirement.Standing;
 import org.spectralsieve.requirement.ThicknessSpec;
 import org.spectralsieve.requirement.TransmittanceClause;
 import org.spectralsieve.spectrum.Curve;
@@ -201,7 +205,7 @@ public class SearchService {
 
     /** The same service keeping its exact judgements in {@code kept} (tests: a small or a deliberately stale one). */
     SearchService withJudgementMemo(JudgementMemo kept) {
-        this.memo = java.util.Objects.requireNonNull(kept, "kept");
+        this.memo = Objects.requireNonNull(kept, "kept");
         return this;
     }
 
@@ -221,7 +225,7 @@ public class SearchService {
 
     /** The same service judging the other way (benchmarks and equivalence tests; answers never depend on it). */
     public SearchService judging(Judging way) {
-        this.judging = java.util.Objects.requireNonNull(way, "way");
+        this.judging = Objects.requireNonNull(way, "way");
         return this;
     }
 
@@ -586,7 +590,7 @@ public class SearchService {
      * margins exceed its bound). The answer is the one judging every admitted sample would give.
      */
     private Shortlist searchExactly(Snapshot s, Requirement requirement, int limit, long started,
-                                    java.util.function.Predicate<Material> within) {
+                                    Predicate<Material> within) {
         if (judging == Judging.EARLIER) {
             return searchExactlyTheEarlierWay(s, requirement, limit, started, within);
         }
@@ -755,7 +759,7 @@ public class SearchService {
         }
         if (!everySample) {
             // largest first bound first, so the loop below stops as soon as the bound is settled against the bar
-            java.util.Arrays.sort(order, (a, b) -> Double.compare(first[b], first[a]));
+            Arrays.sort(order, (a, b) -> Double.compare(first[b], first[a]));
         }
         double bound = Double.NEGATIVE_INFINITY;
         boolean allMiss = true;
@@ -906,7 +910,7 @@ public class SearchService {
      * out by their bounds of either sign ({@link Judging#EARLIER}); benchmarks and tests only.
      */
     private Shortlist searchExactlyTheEarlierWay(Snapshot s, Requirement requirement, int limit, long started,
-                                    java.util.function.Predicate<Material> within) {
+                                    Predicate<Material> within) {
         Optional<StackLayer> layer = requirement.layer().map(l -> resolveLayer(l, s));
         boolean diffuseLayer = layer.map(l -> s.samples().get(l.sampleId()).geometry() == Geometry.TOTAL).orElse(false);
         Map<Long, Double> provenMiss = provenMisses(s, requirement, layer);
@@ -1137,7 +1141,7 @@ public class SearchService {
      *
      * @throws LayerResolutionException when the requirement's layer names no single library sample
      */
-    public Map<Long, SampleEvaluationRow> judgeMaterials(Requirement requirement, java.util.Collection<Long> materialIds) {
+    public Map<Long, SampleEvaluationRow> judgeMaterials(Requirement requirement, Collection<Long> materialIds) {
         Snapshot s = current();
         Optional<StackLayer> layer = requirement.layer().map(l -> resolveLayer(l, s));
         boolean diffuseLayer = layer.map(l -> s.samples().get(l.sampleId()).geometry() == Geometry.TOTAL).orElse(false);
@@ -1369,9 +1373,9 @@ public class SearchService {
                 : StoreRowSource.everything(library);
         int samples = materials.stream().mapToInt(m -> m.samples().size()).sum();
         SpectralStore.Builder builder = SpectralStore.builder(SpectralStore.DEFAULT_GRID, samples);
-        Map<Long, Material> byId = new java.util.HashMap<>();
-        Map<Long, SampleInfo> sampleById = new java.util.HashMap<>();
-        Map<Long, MadeThicknesses> madeById = new java.util.HashMap<>();
+        Map<Long, Material> byId = new HashMap<>();
+        Map<Long, SampleInfo> sampleById = new HashMap<>();
+        Map<Long, MadeThicknesses> madeById = new HashMap<>();
         Set<Long> unusable = new HashSet<>();
         // a partial rebuild takes the previous snapshot's decoded curves as they are (not hashed again)
         CurveCache cache = partial.isPresent() ? previous.curves().successor() : new CurveCache(curveCacheBytes);

@@ -1,7 +1,12 @@
 package org.spectralsieve.weighting;
 
 import java.util.ArrayList;
+import java.util.Arrays;
 import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+import java.util.concurrent.ConcurrentHashMap;
+import java.util.function.DoubleUnaryOperator;
 import org.spectralsieve.spectrum.Curve;
 import org.spectralsieve.spectrum.PointReadings;
 import org.spectralsieve.weighting.Figure.Bound;
@@ -258,11 +263,11 @@ public final class WeightedFigures {
                 w[k++] = ew;
             }
         }
-        return new double[][] {java.util.Arrays.copyOf(nm, k), java.util.Arrays.copyOf(w, k)};
+        return new double[][] {Arrays.copyOf(nm, k), Arrays.copyOf(w, k)};
     }
 
     /** Trapezoid ∫f over [from, to] on the largest uniform step not above maxStep; 0 for an empty interval. */
-    private static double integrate(double from, double to, double maxStep, java.util.function.DoubleUnaryOperator f) {
+    private static double integrate(double from, double to, double maxStep, DoubleUnaryOperator f) {
         if (!(to > from)) {
             return 0;
         }
@@ -307,7 +312,7 @@ public final class WeightedFigures {
      * read once per thickness"). The text is a function of the share alone, so a kept one is the one written anew.
      * Bounded: emptied when full.
      */
-    private static final java.util.Map<Long, String> PERCENT_TEXTS = new java.util.concurrent.ConcurrentHashMap<>();
+    private static final Map<Long, String> PERCENT_TEXTS = new ConcurrentHashMap<>();
     private static final int PERCENT_TEXTS_LIMIT = 1024;
     /** Off with {@code -Dsieve.solve.reuse-margins=false}, as the solve's reuse (requirement.MarginReuse). */
     private static volatile boolean keepPercentTexts = !"false".equals(System.getProperty("sieve.solve.reuse-margins"));
@@ -334,7 +339,7 @@ public final class WeightedFigures {
     }
 
     private static String percentText(double share) {
-        return String.format(java.util.Locale.ROOT, "%.2g %%", 100 * share);
+        return String.format(Locale.ROOT, "%.2g %%", 100 * share);
     }
 
     /** 1 / effective transmittance; a lower bound when the transmittance is an upper bound. */
