@@ -127,18 +127,10 @@ class JudgementPathEquivalenceTest {
         int meets = 0;
         int stocks = 0;
         for (int trial = 0; trial < 300; trial++) {
-            List<Candidate> samples = randomMaterial(random, trial);
-            Requirement requirement = RequirementParser.parse(randomRequirement(random));
-            Optional<StackLayer> layer = Optional.empty();
-            if (random.nextInt(4) == 0) {
-                requirement = RequirementParser.parse(requirement.text() + ", behind 3 mm synthetic plate");
-                layer = Optional.of(plate(random, requirement.layer().orElseThrow()));
-            }
-            Requirement asked = requirement;
-            Optional<StackLayer> resolved = layer;
-            List<MaterialEvaluation> earlier = both(() -> MaterialJudge.evaluate(samples, asked, resolved), true);
-            List<MaterialEvaluation> now = both(() -> MaterialJudge.evaluate(samples, asked, resolved), false);
-            assertThat(now).as("trial " + trial + ": " + asked.text()).isEqualTo(earlier);
+            RandomCase c = randomCase(random, trial);
+            List<MaterialEvaluation> earlier = both(c::judge, true);
+            List<MaterialEvaluation> now = both(c::judge, false);
+            assertThat(now).as("trial " + trial + ": " + c.requirement().text()).isEqualTo(earlier);
             meets += (int) now.stream().filter(e -> e.evaluation().verdict() == Verdict.MEETS).count();
             stocks += now.stream().mapToInt(e -> e.evaluation().stockAdvice().inside().size()).sum();
         }
@@ -154,6 +146,24 @@ class JudgementPathEquivalenceTest {
         } finally {
             JudgementPath.useReference(false);
         }
+    }
+
+    /** One seeded random case: a material's samples, a requirement, and the plate it is judged behind, if any. */
+    record RandomCase(List<Candidate> samples, Requirement requirement, Optional<StackLayer> layer) {
+        List<MaterialEvaluation> judge() {
+            return MaterialJudge.evaluate(samples, requirement, layer);
+        }
+    }
+
+    /** A random material and requirement; a quarter of them behind a random 3 mm plate. */
+    static RandomCase randomCase(Random random, int trial) {
+        List<Candidate> samples = randomMaterial(random, trial);
+        Requirement requirement = RequirementParser.parse(randomRequirement(random));
+        if (random.nextInt(4) != 0) {
+            return new RandomCase(samples, requirement, Optional.empty());
+        }
+        Requirement behind = RequirementParser.parse(requirement.text() + ", behind 3 mm synthetic plate");
+        return new RandomCase(samples, behind, Optional.of(plate(random, behind.layer().orElseThrow())));
     }
 
     /** One to three samples of one material at different thicknesses; stock sizes in a third of the materials. */

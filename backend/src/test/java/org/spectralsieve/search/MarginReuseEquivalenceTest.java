@@ -3,7 +3,6 @@ package org.spectralsieve.search;
 import static org.assertj.core.api.Assertions.assertThat;
 
 import java.util.List;
-import java.util.Optional;
 import java.util.Random;
 import java.util.function.Supplier;
 import org.jooq.DSLContext;
@@ -11,13 +10,11 @@ import org.junit.jupiter.api.AfterEach;
 import org.junit.jupiter.api.Test;
 import org.spectralsieve.library.JooqLibraryRepository;
 import org.spectralsieve.library.MigratedDatabase;
-import org.spectralsieve.requirement.Candidate;
 import org.spectralsieve.requirement.MarginReuse;
 import org.spectralsieve.requirement.MaterialEvaluation;
-import org.spectralsieve.requirement.MaterialJudge;
 import org.spectralsieve.requirement.Requirement;
 import org.spectralsieve.requirement.RequirementParser;
-import org.spectralsieve.requirement.StackLayer;
+import org.spectralsieve.requirement.ThicknessSpec;
 import org.spectralsieve.seed.DemoLibraryLoader;
 import org.springframework.core.io.DefaultResourceLoader;
 
@@ -59,19 +56,12 @@ class MarginReuseEquivalenceTest {
         Random random = new Random(20261205L);
         int weightedSolves = 0;
         for (int trial = 0; trial < 300; trial++) {
-            List<Candidate> samples = JudgementPathEquivalenceTest.randomMaterial(random, trial);
-            Requirement requirement = RequirementParser.parse(JudgementPathEquivalenceTest.randomRequirement(random));
-            Optional<StackLayer> layer = Optional.empty();
-            if (random.nextInt(4) == 0) {
-                requirement = RequirementParser.parse(requirement.text() + ", behind 3 mm synthetic plate");
-                layer = Optional.of(JudgementPathEquivalenceTest.plate(random, requirement.layer().orElseThrow()));
-            }
-            Requirement asked = requirement;
-            Optional<StackLayer> resolved = layer;
-            List<MaterialEvaluation> before = judgedWith(false, () -> MaterialJudge.evaluate(samples, asked, resolved));
-            List<MaterialEvaluation> now = judgedWith(true, () -> MaterialJudge.evaluate(samples, asked, resolved));
+            JudgementPathEquivalenceTest.RandomCase c = JudgementPathEquivalenceTest.randomCase(random, trial);
+            Requirement asked = c.requirement();
+            List<MaterialEvaluation> before = judgedWith(false, c::judge);
+            List<MaterialEvaluation> now = judgedWith(true, c::judge);
             assertThat(now).as("trial " + trial + ": " + asked.text()).isEqualTo(before);
-            if (!asked.plain() && asked.thickness().kind() == org.spectralsieve.requirement.ThicknessSpec.Kind.RANGE) {
+            if (!asked.plain() && asked.thickness().kind() == ThicknessSpec.Kind.RANGE) {
                 weightedSolves++;
             }
         }

@@ -3,7 +3,6 @@ package org.spectralsieve.search;
 import static org.assertj.core.api.Assertions.assertThat;
 
 import java.util.List;
-import java.util.Optional;
 import java.util.Random;
 import java.util.function.Supplier;
 import org.jooq.DSLContext;
@@ -11,12 +10,9 @@ import org.junit.jupiter.api.AfterEach;
 import org.junit.jupiter.api.Test;
 import org.spectralsieve.library.JooqLibraryRepository;
 import org.spectralsieve.library.MigratedDatabase;
-import org.spectralsieve.requirement.Candidate;
 import org.spectralsieve.requirement.MaterialEvaluation;
-import org.spectralsieve.requirement.MaterialJudge;
 import org.spectralsieve.requirement.Requirement;
 import org.spectralsieve.requirement.RequirementParser;
-import org.spectralsieve.requirement.StackLayer;
 import org.spectralsieve.requirement.Verdict;
 import org.spectralsieve.seed.DemoLibraryLoader;
 import org.spectralsieve.spectrum.PerPointArithmetic;
@@ -62,19 +58,13 @@ class PerPointArithmeticSearchEquivalenceTest {
         int meets = 0;
         int stacked = 0;
         for (int trial = 0; trial < 300; trial++) {
-            List<Candidate> samples = JudgementPathEquivalenceTest.randomMaterial(random, trial);
-            Requirement requirement = RequirementParser.parse(JudgementPathEquivalenceTest.randomRequirement(random));
-            Optional<StackLayer> layer = Optional.empty();
-            if (random.nextInt(4) == 0) {
-                requirement = RequirementParser.parse(requirement.text() + ", behind 3 mm synthetic plate");
-                layer = Optional.of(JudgementPathEquivalenceTest.plate(random, requirement.layer().orElseThrow()));
+            JudgementPathEquivalenceTest.RandomCase c = JudgementPathEquivalenceTest.randomCase(random, trial);
+            if (c.layer().isPresent()) {
                 stacked++;
             }
-            Requirement asked = requirement;
-            Optional<StackLayer> resolved = layer;
-            List<MaterialEvaluation> earlier = both(() -> MaterialJudge.evaluate(samples, asked, resolved), true);
-            List<MaterialEvaluation> lean = both(() -> MaterialJudge.evaluate(samples, asked, resolved), false);
-            assertThat(lean).as("trial " + trial + ": " + asked.text()).isEqualTo(earlier);
+            List<MaterialEvaluation> earlier = both(c::judge, true);
+            List<MaterialEvaluation> lean = both(c::judge, false);
+            assertThat(lean).as("trial " + trial + ": " + c.requirement().text()).isEqualTo(earlier);
             meets += (int) lean.stream().filter(e -> e.evaluation().verdict() == Verdict.MEETS).count();
         }
         assertThat(meets).isGreaterThan(20);

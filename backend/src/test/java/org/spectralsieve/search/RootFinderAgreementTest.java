@@ -4,7 +4,6 @@ import static org.assertj.core.api.Assertions.assertThat;
 import static org.assertj.core.api.Assertions.within;
 
 import java.util.List;
-import java.util.Optional;
 import java.util.Random;
 import java.util.function.Supplier;
 import org.jooq.DSLContext;
@@ -12,14 +11,11 @@ import org.junit.jupiter.api.AfterEach;
 import org.junit.jupiter.api.Test;
 import org.spectralsieve.library.JooqLibraryRepository;
 import org.spectralsieve.library.MigratedDatabase;
-import org.spectralsieve.requirement.Candidate;
 import org.spectralsieve.requirement.CrossingFinder;
 import org.spectralsieve.requirement.MaterialEvaluation;
-import org.spectralsieve.requirement.MaterialJudge;
 import org.spectralsieve.requirement.Requirement;
 import org.spectralsieve.requirement.RequirementParser;
 import org.spectralsieve.requirement.SampleEvaluation;
-import org.spectralsieve.requirement.StackLayer;
 import org.spectralsieve.requirement.ThicknessInterval;
 import org.spectralsieve.requirement.ThicknessSolver;
 import org.spectralsieve.seed.DemoLibraryLoader;
@@ -73,20 +69,12 @@ class RootFinderAgreementTest {
         Random random = new Random(20261205L);
         int solved = 0;
         for (int trial = 0; trial < 300; trial++) {
-            List<Candidate> samples = JudgementPathEquivalenceTest.randomMaterial(random, trial);
-            Requirement requirement = RequirementParser.parse(JudgementPathEquivalenceTest.randomRequirement(random));
-            Optional<StackLayer> layer = Optional.empty();
-            if (random.nextInt(4) == 0) {
-                requirement = RequirementParser.parse(requirement.text() + ", behind 3 mm synthetic plate");
-                layer = Optional.of(JudgementPathEquivalenceTest.plate(random, requirement.layer().orElseThrow()));
-            }
-            Requirement asked = requirement;
-            Optional<StackLayer> resolved = layer;
-            List<MaterialEvaluation> bisection = solvedBy(true, () -> MaterialJudge.evaluate(samples, asked, resolved));
-            List<MaterialEvaluation> itp = solvedBy(false, () -> MaterialJudge.evaluate(samples, asked, resolved));
+            JudgementPathEquivalenceTest.RandomCase c = JudgementPathEquivalenceTest.randomCase(random, trial);
+            List<MaterialEvaluation> bisection = solvedBy(true, c::judge);
+            List<MaterialEvaluation> itp = solvedBy(false, c::judge);
             assertThat(itp).hasSameSizeAs(bisection);
             for (int i = 0; i < itp.size(); i++) {
-                solved += agree("trial " + trial + ": " + asked.text(), itp.get(i).evaluation(),
+                solved += agree("trial " + trial + ": " + c.requirement().text(), itp.get(i).evaluation(),
                         bisection.get(i).evaluation());
             }
         }
