@@ -180,6 +180,24 @@ public class JooqLibraryRepository {
         return LibraryChanges.materialsChanged(db, after, upTo);
     }
 
+    /**
+     * What the changes after generation {@code after} up to {@code upTo} concerned, material by material (and, where
+     * a change named one, sample by sample), or empty when the change log cannot account for all of them
+     * ({@link LibraryChanges#since}).
+     */
+    public Optional<LibraryChanges.Changes> changesSince(long after, long upTo) {
+        return LibraryChanges.since(db, after, upTo);
+    }
+
+    /** The samples of these ids, retired or not, by id (as {@link #findSample} reads each); an unknown id is left out. */
+    public Map<Long, SampleInfo> findSamples(java.util.Collection<Long> ids) {
+        Map<Long, SampleInfo> out = new java.util.HashMap<>();
+        if (!ids.isEmpty()) {
+            db.selectFrom(SAMPLE).where(SAMPLE.ID.in(ids)).fetch().forEach(s -> out.put(s.getId(), toSample(s)));
+        }
+        return out;
+    }
+
     /** Those of the materials that are in use, with their samples in use; a retired or unknown id is left out. */
     public List<Material> findMaterialsInUse(java.util.Collection<Long> ids) {
         if (ids.isEmpty()) {
@@ -204,7 +222,7 @@ public class JooqLibraryRepository {
     public long insertSample(long materialId, NewSample sample) {
         return db.transactionResult(tx -> {
             long id = insertSampleRows(tx.dsl(), materialId, sample);
-            LibraryGeneration.bump(tx.dsl(), materialId);
+            LibraryGeneration.bumpConcerningSample(tx.dsl(), materialId, id);
             return id;
         });
     }
@@ -217,7 +235,7 @@ public class JooqLibraryRepository {
         return db.transactionResult(tx -> {
             long id = insertSampleRows(tx.dsl(), materialId, sample);
             insertSourceFile(tx.dsl(), id, file);
-            LibraryGeneration.bump(tx.dsl(), materialId);
+            LibraryGeneration.bumpConcerningSample(tx.dsl(), materialId, id);
             return id;
         });
     }
@@ -254,7 +272,11 @@ public class JooqLibraryRepository {
             }
             long sampleId = insertSampleRows(t, materialId, sample);
             insertSourceFile(t, sampleId, file);
-            LibraryGeneration.bump(t, materialId);
+            if (existingMaterialId != null) {
+                LibraryGeneration.bumpConcerningSample(t, materialId, sampleId); // the material's row is as it was
+            } else {
+                LibraryGeneration.bump(t, materialId); // a new material: its row too
+            }
             return new StoredImport(materialId, slug, sampleId, false, existingMaterialId == null);
         });
     }

@@ -81,7 +81,7 @@ public class JooqLibraryRevisions {
                     return new Retirement(kind, id, JooqLibraryRepository.instant(row.getRetiredAt()), false);
                 }
                 t.update(SAMPLE).set(SAMPLE.RETIRED_AT, retire ? now : null).where(SAMPLE.ID.eq(id)).execute();
-                LibraryGeneration.bump(t, row.getMaterialId());
+                LibraryGeneration.bumpConcerningSample(t, row.getMaterialId(), id);
             } else {
                 MaterialRecord row = t.selectFrom(MATERIAL).where(MATERIAL.ID.eq(id)).forUpdate().fetchOptional()
                         .orElseThrow(() -> new NotFoundException("material", id));
@@ -129,7 +129,7 @@ public class JooqLibraryRevisions {
                     .set(SAMPLE.DETECTION_LIMIT, next.detectionLimit())
                     .set(SAMPLE.REVISION, next.revision())
                     .where(SAMPLE.ID.eq(id)).execute();
-            LibraryGeneration.bump(t, row.getMaterialId());
+            LibraryGeneration.bumpConcerningSample(t, row.getMaterialId(), id);
             return toRevision(next, correction.reason(), at.toInstant(), true);
         });
     }

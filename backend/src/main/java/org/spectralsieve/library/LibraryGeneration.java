@@ -50,6 +50,21 @@ public final class LibraryGeneration {
     }
 
     /**
+     * Raises the counter and records that the write changed one sample of {@code materialId} and nothing else of
+     * that material: the sample's own rows (added, corrected, retired or restored), not the material's row nor
+     * another of its samples. The search store then reads that sample again rather than the whole material
+     * (docs/search-under-load.md, ninth pass); a write that changes more calls {@link #bump(DSLContext, long)}.
+     *
+     * @return the number the write's commit leaves
+     */
+    public static long bumpConcerningSample(DSLContext tx, long materialId, long sampleId) {
+        bump(tx);
+        long generation = read(tx);
+        LibraryChanges.record(tx, generation, materialId, sampleId);
+        return generation;
+    }
+
+    /**
      * Raises the counter and records that the write concerned no material (an imported emitter or response):
      * indexes of materials then know they have nothing to redo.
      */

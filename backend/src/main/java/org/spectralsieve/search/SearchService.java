@@ -153,6 +153,12 @@ public class SearchService {
      */
     private final boolean preparedOnce = !"false".equals(System.getProperty("sieve.search.prepared-once"));
     /**
+     * Whether a rebuild after writes that each changed one sample reads only those samples again, not their
+     * materials whole ({@link MaterialsRead#after}); {@code -Dsieve.search.named-samples=false} reads the changed
+     * materials whole, the way before, only so the load benchmark can time both ways (the same snapshot).
+     */
+    private final boolean namedSamplesOnly = !"false".equals(System.getProperty("sieve.search.named-samples"));
+    /**
      * Recent exact judgements of one sample, handed out again for the same arguments ({@link JudgementMemo},
      * docs/judgement-memo.md); null judges every sample afresh ({@code -Dsieve.search.judgement-memo=false} or
      * {@link #withoutJudgementMemo}), only so a benchmark and tests can compare both ways (the answers are the same).
@@ -1360,7 +1366,7 @@ public class SearchService {
         // over from the previous store (MaterialsRead and StoreRowSource say why that is sound); an
         // invalidate() names no material, so after one everything is read again
         Optional<List<Material>> partial = previous != null && previous.invalidations() == invalidated
-                ? MaterialsRead.after(library, previous.ordered(), previous.generation(), generation)
+                ? MaterialsRead.after(library, previous.ordered(), previous.generation(), generation, namedSamplesOnly)
                 : Optional.empty();
         if (partial.isPresent() && partial.get() == previous.ordered()) {
             // no material changed (an imported emitter or response, say): the same store holds at the new number
