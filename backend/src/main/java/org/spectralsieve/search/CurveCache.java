@@ -1,7 +1,9 @@
 package org.spectralsieve.search;
 
+import java.util.ArrayList;
 import java.util.Iterator;
 import java.util.LinkedHashMap;
+import java.util.List;
 import java.util.Map;
 import org.spectralsieve.spectrum.Curve;
 import org.spectralsieve.spectrum.SharedCurveArrays;
@@ -77,6 +79,41 @@ final class CurveCache {
             add(sampleId, kept);
             return true;
         }
+    }
+
+    /**
+     * {@link #offerKept(CurveCache, long)} for each sample in turn, in order, holding each cache's lock once rather
+     * than once per sample: what a rebuild does for a material it carries as a whole.
+     *
+     * @return how many were added
+     */
+    int offerKept(CurveCache previous, List<Long> sampleIds) {
+        if (previous.shared != shared) {
+            throw new IllegalArgumentException("not this cache's predecessor");
+        }
+        List<Entry> kept = previous.entriesOf(sampleIds); // the predecessor's lock alone, then this one's
+        int added = 0;
+        synchronized (this) {
+            for (int i = 0; i < kept.size(); i++) {
+                Entry e = kept.get(i);
+                long sampleId = sampleIds.get(i);
+                if (e == null || budgetBytes == 0 || curves.containsKey(sampleId) || heapBytes() + e.bytes() > budgetBytes) {
+                    continue;
+                }
+                add(sampleId, e);
+                added++;
+            }
+        }
+        return added;
+    }
+
+    /** The samples' entries (null where none), in order. */
+    private synchronized List<Entry> entriesOf(List<Long> sampleIds) {
+        List<Entry> out = new ArrayList<>(sampleIds.size());
+        for (Long id : sampleIds) {
+            out.add(curves.get(id));
+        }
+        return out;
     }
 
     /** The sample's entry, or null (the predecessor's access order moves; it is about to be dropped). */

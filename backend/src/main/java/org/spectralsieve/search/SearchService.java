@@ -153,11 +153,13 @@ public class SearchService {
      */
     private final boolean preparedOnce = !"false".equals(System.getProperty("sieve.search.prepared-once"));
     /**
-     * Whether a rebuild after writes that each changed one sample reads only those samples again, not their
-     * materials whole ({@link MaterialsRead#after}); {@code -Dsieve.search.named-samples=false} reads the changed
-     * materials whole, the way before, only so the load benchmark can time both ways (the same snapshot).
+     * Whether a partial rebuild works on what changed alone: after writes that each changed one sample it reads only
+     * those samples again, not their materials whole ({@link MaterialsRead#after}), and a material not read again
+     * keeps its rows, made thicknesses and cached curves as a whole ({@link StoreRowSource#carryMaterial});
+     * {@code -Dsieve.search.rebuild-what-changed=false} rebuilds the way before (changed materials read whole, every
+     * sample looked up one by one), only so the load benchmark can time both ways (the same snapshot).
      */
-    private final boolean namedSamplesOnly = !"false".equals(System.getProperty("sieve.search.named-samples"));
+    private boolean rebuildWhatChanged = !"false".equals(System.getProperty("sieve.search.rebuild-what-changed"));
     /**
      * Recent exact judgements of one sample, handed out again for the same arguments ({@link JudgementMemo},
      * docs/judgement-memo.md); null judges every sample afresh ({@code -Dsieve.search.judgement-memo=false} or
@@ -285,6 +287,16 @@ public class SearchService {
      */
     public SearchService withoutSecondStage() {
         this.secondStage = false;
+        return this;
+    }
+
+    /**
+     * The same service rebuilding the way before the ninth pass ({@link #rebuildWhatChanged} off): every changed
+     * material read whole, also where the change log names the samples that changed, and every sample's row looked
+     * up one by one; the same snapshot, more work; for benchmarks and tests that compare both side by side.
+     */
+    public SearchService withEarlierRebuild() {
+        this.rebuildWhatChanged = false;
         return this;
     }
 
@@ -1366,7 +1378,7 @@ public class SearchService {
         // over from the previous store (MaterialsRead and StoreRowSource say why that is sound); an
         // invalidate() names no material, so after one everything is read again
         Optional<List<Material>> partial = previous != null && previous.invalidations() == invalidated
-                ? MaterialsRead.after(library, previous.ordered(), previous.generation(), generation, namedSamplesOnly)
+                ? MaterialsRead.after(library, previous.ordered(), previous.generation(), generation, rebuildWhatChanged)
                 : Optional.empty();
         if (partial.isPresent() && partial.get() == previous.ordered()) {
             // no material changed (an imported emitter or response, say): the same store holds at the new number
@@ -1388,9 +1400,25 @@ public class SearchService {
         for (Material m : materials) {
             byId.put(m.id(), m);
             m.samples().forEach(sample -> sampleById.put(sample.id(), sample));
-            MadeThicknesses made = made(m);
+            // a material not read again is the previous snapshot's very record (MaterialsRead), and so is each of its
+            // samples: its made thicknesses, rows, unusable samples and cached curves are what the previous build
+            // formed from the same objects, so they are carried as a whole rather than formed sample by sample
+            boolean unchanged = rebuildWhatChanged && partial.isPresent() && previous.materials().get(m.id()) == m;
+            MadeThicknesses made = unchanged ? previous.made().get(m.id()) : made(m);
             madeById.put(m.id(), made);
             StoredMaterial stored = new StoredMaterial(m.id(), m.name(), m.materialClass().label(), made);
+            if (unchanged) {
+                curves.carryMaterial(builder, stored);
+                List<Long> ids = new ArrayList<>(m.samples().size());
+                for (SampleInfo sample : m.samples()) {
+                    ids.add(sample.id());
+                    if (previous.unusable().contains(sample.id())) {
+                        unusable.add(sample.id());
+                    }
+                }
+                cache.offerKept(previous.curves(), ids);
+                continue;
+            }
             for (SampleInfo sample : m.samples()) {
                 // the store rescales exactly what the exact evaluator rescales: never a diffuse or scattering
                 // sample, nor one whose stored thickness or index fails today's checks (SampleRescaling.unusable):

@@ -35,7 +35,10 @@ final class StoreRowSource {
     private final Map<Long, Curve> allCurves;
     private final SpectralStore previous;
     private final Map<Long, SampleInfo> previousSamples;
-    private final Map<Long, Integer> previousRow;
+    /** Each material's rows in the previous store, {first, past the last}: a build lays a material's rows out together. */
+    private final Map<Long, int[]> previousRows;
+    /** The previous store's row of each sample, for the materials read again only (formed when first asked). */
+    private final Map<Long, Map<Long, Integer>> previousRowOfSample = new HashMap<>();
     private int reused;
     private int read;
 
@@ -45,10 +48,18 @@ final class StoreRowSource {
         this.allCurves = allCurves;
         this.previous = previous;
         this.previousSamples = previousSamples;
-        this.previousRow = new HashMap<>();
+        this.previousRows = new HashMap<>();
         if (previous != null) {
             for (int i = 0; i < previous.size(); i++) {
-                previousRow.put(previous.sampleId(i), i);
+                long materialId = previous.material(i).id();
+                int[] rows = previousRows.get(materialId);
+                if (rows == null) {
+                    previousRows.put(materialId, new int[] {i, i + 1});
+                } else if (rows[1] == i) {
+                    rows[1] = i + 1;
+                } else {
+                    throw new IllegalStateException("the previous store holds material " + materialId + " apart");
+                }
             }
         }
     }
@@ -103,7 +114,7 @@ final class StoreRowSource {
         if (sample.retired()) {
             return null; // a whole build reads only the curves of samples in use
         }
-        Integer row = previousRow.get(sample.id());
+        Integer row = rowsOfSamples(material.id()).get(sample.id());
         if (row != null && sample.equals(previousSamples.get(sample.id()))) {
             builder.addCarried(sample.id(), material, thicknessMm, bulk, totalGeometry, index, previous, row);
             reused++;
@@ -121,6 +132,43 @@ final class StoreRowSource {
             read++;
         }
         return curve;
+    }
+
+    /**
+     * Adds every row the previous store holds for a material that was not read again (the previous snapshot's very
+     * record, so each of its samples is too): as they are, in their order, with their thickness, rescalability,
+     * geometry and index as the previous build formed them from those same records. What {@link #add} would do for
+     * each of its samples in turn, without looking each one up; only for a source {@link #carryingOver} a store.
+     *
+     * @return the rows added
+     */
+    int carryMaterial(SpectralStore.Builder builder, StoredMaterial material) {
+        if (previous == null) {
+            throw new IllegalStateException("a whole build has no previous rows to carry");
+        }
+        int[] rows = previousRows.get(material.id());
+        if (rows == null) {
+            return 0; // none of its samples has a readable curve
+        }
+        for (int r = rows[0]; r < rows[1]; r++) {
+            builder.addCarried(previous.sampleId(r), material, previous.thicknessMm(r), previous.isBulk(r),
+                    previous.isTotalGeometry(r), previous.indexOf(r), previous, r);
+        }
+        reused += rows[1] - rows[0];
+        return rows[1] - rows[0];
+    }
+
+    private Map<Long, Integer> rowsOfSamples(long materialId) {
+        return previousRowOfSample.computeIfAbsent(materialId, id -> {
+            int[] rows = previousRows.get(id);
+            Map<Long, Integer> bySample = new HashMap<>();
+            if (rows != null) {
+                for (int r = rows[0]; r < rows[1]; r++) {
+                    bySample.put(previous.sampleId(r), r);
+                }
+            }
+            return bySample;
+        });
     }
 
     /** Rows taken from the previous store (0 for a whole build). */

@@ -2,6 +2,8 @@ package org.spectralsieve.search;
 
 import static org.assertj.core.api.Assertions.assertThat;
 
+import java.util.ArrayList;
+import java.util.List;
 import org.junit.jupiter.api.Test;
 import org.spectralsieve.spectrum.Curve;
 import org.spectralsieve.spectrum.WavelengthGrid;
@@ -98,6 +100,38 @@ class CurveCacheTest {
         assertThat(next.get(1)).isNotNull();
         CurveCache empty = new CurveCache(budget);
         assertThat(empty.successor().offerKept(empty, 1)).as("nothing to take from an empty predecessor").isFalse();
+    }
+
+    @Test
+    void takingSeveralKeptCurvesAtOnceTakesWhatTakingThemOneByOneTakes() {
+        // new curves first, so the budget runs out part way; ids the predecessor lacks; one already taken: the same
+        // curves either way
+        CurveCache previous = new CurveCache(400_000);
+        for (int id = 1; id <= 40; id++) {
+            if (id % 7 != 0) {
+                previous.offer(id, curve(id / 100.0));
+            }
+        }
+        CurveCache oneByOne = previous.successor();
+        CurveCache atOnce = previous.successor();
+        for (int id = 100; id < 120; id++) {
+            oneByOne.offer(id, curve(id / 1000.0));
+            atOnce.offer(id, curve(id / 1000.0));
+        }
+        List<Long> ids = new ArrayList<>();
+        oneByOne.offerKept(previous, 3L);
+        atOnce.offerKept(previous, 3L);
+        for (long id = 1; id <= 45; id++) {
+            ids.add(id);
+            oneByOne.offerKept(previous, id);
+        }
+        int added = atOnce.offerKept(previous, ids);
+        assertThat(atOnce.size()).isEqualTo(oneByOne.size());
+        assertThat(added).isPositive().isLessThan(previous.size() - 1); // not vacuous: some taken, the budget stopped others
+        for (long id = 1; id <= 45; id++) {
+            assertThat(atOnce.get(id)).as("sample %d", id).isSameAs(oneByOne.get(id));
+        }
+        assertThat(atOnce.heapBytes()).isEqualTo(oneByOne.heapBytes());
     }
 
     @Test
