@@ -30,6 +30,9 @@ final class CurveShapeCheck {
     private static final double AXIS_MAX_NM = 25_000;
     private static final Pattern INDEX_TABLE = Pattern.compile(
             "(?im)^\\s*-?\\s*type:\\s*(tabulated\\s+(nk|n|k)|formula\\s*\\d*)\\s*$");
+    /** Cell separators of a numeric row (compiled once: {@code String.split} compiles them per line). */
+    private static final Pattern SEMICOLONS_OR_TABS = Pattern.compile("[;\\t]+");
+    private static final Pattern COMMAS_OR_SPACES = Pattern.compile("[,\\s]+");
     private static final Pattern PERCENT_MARK = Pattern.compile("(?i)%|percent|pct");
     private static final Pattern MICROMETRE_MARK = Pattern.compile("(?i)µm|μm|\\bum\\b|micro|_um\\b");
     /** Header names of axis columns: wavelength (also w.length, lambda, nm), wavenumber, pixel or index. */
@@ -223,7 +226,7 @@ final class CurveShapeCheck {
             return null;
         }
         boolean commaIsDecimal = line.contains(";") || line.contains("\t");
-        String[] tokens = line.split(commaIsDecimal ? "[;\\t]+" : "[,\\s]+");
+        String[] tokens = (commaIsDecimal ? SEMICOLONS_OR_TABS : COMMAS_OR_SPACES).split(line);
         double[] values = new double[tokens.length];
         for (int i = 0; i < tokens.length; i++) {
             String t = tokens[i].strip();
