@@ -1367,6 +1367,23 @@ public class SearchService {
     }
 
     /**
+     * Adds a material the rebuild did not read again as the previous build formed it from the same objects: its rows
+     * (copied), its unusable samples and its cached curves (taken under one lock hold), in the order of its samples.
+     */
+    private static void carryWhole(Material m, StoredMaterial stored, Snapshot previous, SpectralStore.Builder builder,
+                                   StoreRowSource curves, CurveCache cache, Set<Long> unusable) {
+        curves.carryMaterial(builder, stored);
+        List<Long> ids = new ArrayList<>(m.samples().size());
+        for (SampleInfo sample : m.samples()) {
+            ids.add(sample.id());
+            if (previous.unusable().contains(sample.id())) {
+                unusable.add(sample.id());
+            }
+        }
+        cache.offerKept(previous.curves(), ids);
+    }
+
+    /**
      * Reads the library into a new snapshot. The counters are read first, before any table: a write that
      * commits after that read is either missing from the tables read (and the number says so: the next
      * search rebuilds) or already in them (a rebuild too many, never a change missed).
@@ -1408,15 +1425,7 @@ public class SearchService {
             madeById.put(m.id(), made);
             StoredMaterial stored = new StoredMaterial(m.id(), m.name(), m.materialClass().label(), made);
             if (unchanged) {
-                curves.carryMaterial(builder, stored);
-                List<Long> ids = new ArrayList<>(m.samples().size());
-                for (SampleInfo sample : m.samples()) {
-                    ids.add(sample.id());
-                    if (previous.unusable().contains(sample.id())) {
-                        unusable.add(sample.id());
-                    }
-                }
-                cache.offerKept(previous.curves(), ids);
+                carryWhole(m, stored, previous, builder, curves, cache, unusable);
                 continue;
             }
             for (SampleInfo sample : m.samples()) {
