@@ -50,14 +50,15 @@ final class StoreRowSource {
         this.previousSamples = previousSamples;
         this.previousRows = new HashMap<>();
         if (previous != null) {
+            int[] rows = null; // the current material's run: looked up only where the material changes
             for (int i = 0; i < previous.size(); i++) {
                 long materialId = previous.material(i).id();
-                int[] rows = previousRows.get(materialId);
-                if (rows == null) {
-                    previousRows.put(materialId, new int[] {i, i + 1});
-                } else if (rows[1] == i) {
+                if (rows != null && previous.material(i - 1).id() == materialId) {
                     rows[1] = i + 1;
-                } else {
+                    continue;
+                }
+                rows = new int[] {i, i + 1};
+                if (previousRows.put(materialId, rows) != null) {
                     throw new IllegalStateException("the previous store holds material " + materialId + " apart");
                 }
             }
