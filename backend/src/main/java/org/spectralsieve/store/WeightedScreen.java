@@ -51,7 +51,7 @@ public final class WeightedScreen {
     /** Relative room for the exact figure's floating-point rounding, on the safe side of every bound. */
     static final double SLACK = 1e-6;
     /** Bytes per curve: two bin codes per bin and a short naming the curve's wavelength range. */
-    public static final int BYTES_PER_CURVE = 2 * BINS + Short.BYTES;
+    public static final int BYTES_PER_CURVE = 2 * BINS + Short.BYTES + FigureCodes.BYTES_PER_CURVE;
 
     private static final double[] T_OF_CODE = new double[256];
     /** ln of {@link #T_OF_CODE} (−∞ for code 0), for powers of bin values. */
@@ -88,7 +88,12 @@ public final class WeightedScreen {
     private final int[][] binsOfRange;
     private static final int[] ALL_BINS = java.util.stream.IntStream.range(0, BINS).toArray();
 
-    private WeightedScreen(byte[][] brightest, byte[][] darkest, short[] rangeOfCurve, List<double[]> ranges) {
+    /** Per curve, the exact figures of a few built-in weightings as codes (docs/weighted-screening.md, "Figures in the store"). */
+    private final FigureCodes figures;
+
+    private WeightedScreen(byte[][] brightest, byte[][] darkest, short[] rangeOfCurve, List<double[]> ranges,
+                           FigureCodes figures) {
+        this.figures = figures;
         this.brightest = brightest;
         this.darkest = darkest;
         this.rangeOfCurve = rangeOfCurve;
@@ -101,6 +106,19 @@ public final class WeightedScreen {
             binsOfRange[i] = java.util.stream.IntStream.range(0, BINS)
                     .filter(b -> !(FIRST_NM + b * BIN_NM > r[1] || FIRST_NM + b * BIN_NM + BIN_NM < r[0])).toArray();
         }
+    }
+
+    /**
+     * Whether queries read the store's figure codes: {@code -Dsieve.store.figure-codes=false} reads the bins alone,
+     * the screen before them (benchmarks only; read per query, so a benchmark can alternate both in one JVM).
+     */
+    static boolean figureCodesOn() {
+        return !"false".equals(System.getProperty("sieve.store.figure-codes"));
+    }
+
+    /** The store's figure codes (tests). */
+    FigureCodes figureCodes() {
+        return figures;
     }
 
     static Builder builder(int capacity) {
@@ -287,6 +305,8 @@ public final class WeightedScreen {
         private boolean unverifiedOnCurve;
         private double unverifiedMarginBound = Double.POSITIVE_INFINITY;
         private boolean reference;
+        /** The column of the clause's figure among the store's figure codes, or −1 (none kept, or codes switched off). */
+        private final int figure;
         private int lnBCurve = -1;
         private double lnBOfCurve;
 
@@ -300,6 +320,32 @@ public final class WeightedScreen {
             this.sharesOfRange = new double[ranges.size()][];
             this.usedBinsOfRange = new int[ranges.size()][];
             this.surfacesOf = new Surfaces[ranges.size()][];
+            this.figure = figureCodesOn() && layerRange.isEmpty() ? FigureCodes.figureOf(clause.weighting()) : -1;
+        }
+
+        /**
+         * The clause's margin bound as measured from the curve's figure code (no layer), NaN where the code says
+         * nothing: a pass reads U's upper bound (a met pass's margin is on L ≤ U, a missed one's on U); a block
+         * reads L's lower bound, which is U's when both ends are equal, or, when U surely meets the threshold (so
+         * the clause cannot miss), U's lower bound for the met margin. Both moved by {@link #SLACK} like the bins'.
+         */
+        private double fromFigureCode(int curve) {
+            int code = figures.code(figure, curve);
+            if (code == FigureCodes.NONE) {
+                return Double.NaN;
+            }
+            if (pass) {
+                return passMargin(FigureCodes.upperOf(code));
+            }
+            if (figures.endsEqual(figure, curve) || FigureCodes.upperOf(code) * (1 + SLACK) <= threshold) {
+                return blockMargin(FigureCodes.lowerOf(code));
+            }
+            return Double.NaN;
+        }
+
+        /** Whether this query reads the store's figure codes (the clause's figure is kept, no layer, not switched off). */
+        public boolean readsFigureCodes() {
+            return figure >= 0;
         }
 
         /** A pass clause's margin bound from an upper bound on the weighted mean, moved by SLACK to the safe side. */
@@ -353,6 +399,13 @@ public final class WeightedScreen {
         public double asMeasured(int curve) {
             if (layerRange.isPresent() && !pass) {
                 return Double.POSITIVE_INFINITY;
+            }
+            if (figure >= 0) {
+                // the exact figure to within two code steps: no bin can be tighter by more than that
+                double fromCode = fromFigureCode(curve);
+                if (!Double.isNaN(fromCode)) {
+                    return fromCode;
+                }
             }
             double[] shares = shares(curve);
             if (shares.length == 0 || layerRange.isPresent() && !regular(curve)) {
@@ -1398,8 +1451,10 @@ public final class WeightedScreen {
         private short[] rangeOfCurve;
         private final List<double[]> ranges = new ArrayList<>();
         private final Map<List<Double>, Integer> rangeIndex = new HashMap<>();
+        private final FigureCodes.Builder figures;
 
         private Builder(int capacity) {
+            figures = new FigureCodes.Builder(capacity);
             brightest = new byte[BINS][capacity];
             darkest = new byte[BINS][capacity];
             rangeOfCurve = new short[capacity];
@@ -1411,6 +1466,7 @@ public final class WeightedScreen {
                 brightest[b] = Arrays.copyOf(brightest[b], capacity);
                 darkest[b] = Arrays.copyOf(darkest[b], capacity);
             }
+            figures.grow(capacity);
             int old = rangeOfCurve.length;
             rangeOfCurve = Arrays.copyOf(rangeOfCurve, capacity);
             Arrays.fill(rangeOfCurve, old, capacity, (short) -1);
@@ -1423,6 +1479,7 @@ public final class WeightedScreen {
                 darkest[b][slot] = 0;
             }
             rangeOfCurve[slot] = -1;
+            figures.unknown(slot);
         }
 
         /**
@@ -1431,6 +1488,7 @@ public final class WeightedScreen {
          */
         void copy(int slot, WeightedScreen from, int fromSlot) {
             unknown(slot);
+            figures.copy(slot, from.figures, fromSlot);
             int range = from.rangeOfCurve[fromSlot];
             if (range < 0) {
                 return; // not screened there either
@@ -1453,6 +1511,7 @@ public final class WeightedScreen {
         /** The slot's bins from the curve the exact judgement reads. */
         void add(int slot, Curve curve) {
             unknown(slot);
+            figures.add(slot, curve);
             double min = curve.minWavelengthNm();
             double max = curve.maxWavelengthNm();
             double regular = regular(curve) ? 1 : 0;
@@ -1548,7 +1607,7 @@ public final class WeightedScreen {
                 d[i] = darkest[i].length == size ? darkest[i] : Arrays.copyOf(darkest[i], size);
             }
             short[] r = rangeOfCurve.length == size ? rangeOfCurve : Arrays.copyOf(rangeOfCurve, size);
-            return new WeightedScreen(b, d, r, List.copyOf(ranges));
+            return new WeightedScreen(b, d, r, List.copyOf(ranges), figures.build(size));
         }
     }
 }
