@@ -166,8 +166,9 @@ public class SearchService {
      * ({@link BoundedJudgement.Reserve}); {@code -Dsieve.search.contender-reserve=false} forms every contender first.
      */
     private boolean contenderReserve = !"false".equals(System.getProperty("sieve.search.contender-reserve"));
-    /** Contenders formed before the reserve, beyond four per row asked. */
+    /** Materials formed before the reserve, beyond four per row asked. */
     static final int RESERVE_AFTER = 256;
+    private int reserveAfter = RESERVE_AFTER;
     /** A material's second bounds formed only up to the bar it must reach ({@link #refined}); off: every sample's. */
     private boolean secondBoundsToTheBar = !"false".equals(System.getProperty("sieve.search.second-bounds-to-the-bar"));
     /** How requirements the store cannot rank are judged ({@link #searchExactly}); other ways for benchmarks and tests. */
@@ -305,6 +306,12 @@ public class SearchService {
      */
     public SearchService withoutContenderReserve() {
         this.contenderReserve = false;
+        return this;
+    }
+
+    /** The same service with a reserve after this many materials beyond four per row (tests: a small library's reserve). */
+    SearchService reserveAfter(int materials) {
+        this.reserveAfter = materials;
         return this;
     }
 
@@ -717,7 +724,7 @@ public class SearchService {
         if (!deferred.isEmpty()) {
             // materials above the cut are formed now, the others on demand: the cut leaves room for every row to be
             // judged several times over before the loop could reach the reserve
-            double cut = BoundedJudgement.kthLargest(deferredBound, deferred.size(), RESERVE_AFTER + 4 * limit);
+            double cut = BoundedJudgement.kthLargest(deferredBound, deferred.size(), reserveAfter + 4 * limit);
             List<Integer> later = new ArrayList<>();
             double reserveBound = Double.NEGATIVE_INFINITY;
             for (int i = 0; i < deferred.size(); i++) {

@@ -92,14 +92,36 @@ public final class FigureCodes {
         return (int) Math.min(BELOW, c);
     }
 
+    /** {@link #upperOf} of every code, formed once (a million curves read three codes each per search). */
+    private static final double[] UPPER = new double[BELOW + 1];
+    /** {@link #lowerOf} of every code. */
+    private static final double[] LOWER = new double[BELOW + 1];
+
+    static {
+        for (int c = 1; c <= BELOW; c++) {
+            UPPER[c] = Math.pow(10, -(TOP_OD + (c - 2) * STEP));
+            LOWER[c] = c == BELOW ? 0 : Math.pow(10, -(TOP_OD + c * STEP));
+        }
+    }
+
+    /** log10 of {@link #upperOf}: −(TOP_OD + (code − 2)·STEP), no logarithm to take per curve. */
+    static double log10UpperOf(int code) {
+        return -(TOP_OD + (code - 2) * STEP);
+    }
+
+    /** log10 of {@link #lowerOf} (−∞ for {@link #BELOW}). */
+    static double log10LowerOf(int code) {
+        return code == BELOW ? Double.NEGATIVE_INFINITY : -(TOP_OD + code * STEP);
+    }
+
     /** An upper bound on the figure a code holds (one whole step above its centre). */
     static double upperOf(int code) {
-        return Math.pow(10, -(TOP_OD + (code - 2) * STEP));
+        return UPPER[code];
     }
 
     /** A lower bound on the figure a code holds (one whole step below its centre); 0 for {@link #BELOW}. */
     static double lowerOf(int code) {
-        return code == BELOW ? 0 : Math.pow(10, -(TOP_OD + code * STEP));
+        return LOWER[code];
     }
 
     /** The figure's code of the curve ({@link #NONE}: no bound). */

@@ -50,6 +50,9 @@ public final class WeightedScreen {
     static final int OFFSET = 9;
     /** Relative room for the exact figure's floating-point rounding, on the safe side of every bound. */
     static final double SLACK = 1e-6;
+    /** log10(1 + SLACK) and log10(1 − SLACK): the slack in decades, for bounds formed from logarithms. */
+    private static final double LOG10_UP = Math.log10(1 + 1e-6);
+    private static final double LOG10_DOWN = Math.log10(1 - 1e-6);
     /** Bytes per curve: two bin codes per bin and a short naming the curve's wavelength range. */
     public static final int BYTES_PER_CURVE = 2 * BINS + Short.BYTES + FigureCodes.BYTES_PER_CURVE;
 
@@ -307,6 +310,8 @@ public final class WeightedScreen {
         private boolean reference;
         /** The column of the clause's figure among the store's figure codes, or −1 (none kept, or codes switched off). */
         private final int figure;
+        private final double log10Threshold;
+        private final double log10Floor;
         private int lnBCurve = -1;
         private double lnBOfCurve;
 
@@ -321,26 +326,46 @@ public final class WeightedScreen {
             this.usedBinsOfRange = new int[ranges.size()][];
             this.surfacesOf = new Surfaces[ranges.size()][];
             this.figure = figureCodesOn() && layerRange.isEmpty() ? FigureCodes.figureOf(clause.weighting()) : -1;
+            this.log10Threshold = Math.log10(threshold);
+            this.log10Floor = Math.log10(floor);
         }
 
         /**
-         * The clause's margin bound as measured from the curve's figure code (no layer), NaN where the code says
-         * nothing: a pass reads U's upper bound (a met pass's margin is on L ≤ U, a missed one's on U); a block
-         * reads L's lower bound, which is U's when both ends are equal, or, when U surely meets the threshold (so
-         * the clause cannot miss), U's lower bound for the met margin. Both moved by {@link #SLACK} like the bins'.
+         * The clause's margin bound as measured from the curve's figure code (no layer), for a row that meets or misses
+         * (docs/weighted-screening.md, "Figures in the store"); NaN where the code says nothing. With U in [u̲, ū]:
+         * <ul>
+         * <li>a pass meets on L ≥ t with margin log10(L/t) ≤ log10(ū/t) (L ≤ U), and misses on U &lt; t with margin
+         * log10(U/t) ≤ log10(ū/t): one bound for both;</li>
+         * <li>a block meets on U ≤ t with margin log10(t/U) ≤ log10(t/u̲), possible only where u̲ ≤ t; it misses on
+         * L &gt; t with a negative margin log10(t/L), possible only where ū &gt; t: at most log10(t/u̲) when both ends
+         * are equal (L = U), else at most 0 and at most the bins' bound on L. The bound is the larger of the two
+         * cases that can happen; so a block that cannot meet (u̲ above t) is bounded by 0 even where points below
+         * detection leave L unknown — a row that is unverified or misses, never above a met row.</li>
+         * </ul>
+         * Each end moved by {@link #SLACK} to the safe side, as the bins' are.
          */
         private double fromFigureCode(int curve) {
             int code = figures.code(figure, curve);
             if (code == FigureCodes.NONE) {
                 return Double.NaN;
             }
+            // in decades: passMargin(ū) and blockMargin(u̲) without a logarithm per curve (the same numbers to 1e-15
+            // decades, far inside the half step of room the code keeps beyond the figure's own rounding)
             if (pass) {
-                return passMargin(FigureCodes.upperOf(code));
+                return Math.max(FigureCodes.log10UpperOf(code) + LOG10_UP, log10Floor) - log10Threshold;
             }
-            if (figures.endsEqual(figure, curve) || FigureCodes.upperOf(code) * (1 + SLACK) <= threshold) {
-                return blockMargin(FigureCodes.lowerOf(code));
+            double downMargin = log10Threshold - Math.max(FigureCodes.log10LowerOf(code) + LOG10_DOWN, log10Floor);
+            if (figures.endsEqual(figure, curve)) {
+                return downMargin;
             }
-            return Double.NaN;
+            double up = FigureCodes.upperOf(code);
+            double down = FigureCodes.lowerOf(code);
+            double meets = down * (1 - SLACK) <= threshold ? downMargin : Double.NEGATIVE_INFINITY;
+            if (!(up * (1 + SLACK) > threshold)) {
+                return meets; // L ≤ U ≤ t: it cannot miss
+            }
+            double misses = Math.min(0, binsAsMeasured(curve));
+            return Math.max(meets, misses);
         }
 
         /** Whether this query reads the store's figure codes (the clause's figure is kept, no layer, not switched off). */
@@ -406,6 +431,14 @@ public final class WeightedScreen {
                 if (!Double.isNaN(fromCode)) {
                     return fromCode;
                 }
+            }
+            return binsAsMeasured(curve);
+        }
+
+        /** {@link #asMeasured} from the bins alone. */
+        private double binsAsMeasured(int curve) {
+            if (layerRange.isPresent() && !pass) {
+                return Double.POSITIVE_INFINITY;
             }
             double[] shares = shares(curve);
             if (shares.length == 0 || layerRange.isPresent() && !regular(curve)) {
