@@ -53,6 +53,8 @@ public final class WeightedScreen {
     /** log10(1 + SLACK) and log10(1 − SLACK): the slack in decades, for bounds formed from logarithms. */
     private static final double LOG10_UP = Math.log10(1 + 1e-6);
     private static final double LOG10_DOWN = Math.log10(1 - 1e-6);
+    /** Decades added to a bound formed from logarithms ({@code Query.fromFigureCode}): far above their rounding. */
+    private static final double LOG_ROOM = 1e-9;
     /** Bytes per curve: two bin codes per bin and a short naming the curve's wavelength range. */
     public static final int BYTES_PER_CURVE = 2 * BINS + Short.BYTES + FigureCodes.BYTES_PER_CURVE;
 
@@ -349,12 +351,13 @@ public final class WeightedScreen {
             if (code == FigureCodes.NONE) {
                 return Double.NaN;
             }
-            // in decades: passMargin(ū) and blockMargin(u̲) without a logarithm per curve (the same numbers to 1e-15
-            // decades, far inside the half step of room the code keeps beyond the figure's own rounding)
+            // in decades: passMargin(ū) and blockMargin(u̲) without a logarithm per curve; the same numbers to a few
+            // 1e-15 decades, so LOG_ROOM is added: at the floor, where the exact margin is the same number formed
+            // another way, the bound must not fall an ulp below it (a tie with the last row is judged)
             if (pass) {
-                return Math.max(FigureCodes.log10UpperOf(code) + LOG10_UP, log10Floor) - log10Threshold;
+                return Math.max(FigureCodes.log10UpperOf(code) + LOG10_UP, log10Floor) - log10Threshold + LOG_ROOM;
             }
-            double downMargin = log10Threshold - Math.max(FigureCodes.log10LowerOf(code) + LOG10_DOWN, log10Floor);
+            double downMargin = log10Threshold - Math.max(FigureCodes.log10LowerOf(code) + LOG10_DOWN, log10Floor) + LOG_ROOM;
             if (figures.endsEqual(figure, curve)) {
                 return downMargin;
             }
