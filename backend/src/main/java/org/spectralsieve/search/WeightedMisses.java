@@ -298,6 +298,16 @@ final class WeightedMisses {
 
         /** Each curve's bound on its exact worst margin (+∞ or ≥ 0 where nothing is proven) into {@code out}. */
         void into(double[] out) {
+            if (spec.kind() == ThicknessSpec.Kind.AS_MEASURED && !reference && !diffuseLayer
+                    && queries.stream().allMatch(WeightedScreen.Query::readsFigureCodes)) {
+                // as measured without a layer (the codes are read only then) a curve's bound is the smallest of its
+                // clauses' asMeasured (keepsProof holds, behindLayer is +∞): formed clause by clause, column-wise
+                java.util.Arrays.fill(out, from, to, Double.POSITIVE_INFINITY);
+                for (int i = 0; i < queries.size(); i++) {
+                    queries.get(i).asMeasuredInto(out, from, to, seeThrough.get(i));
+                }
+                return;
+            }
             for (int c = from; c < to; c++) {
                 double d0 = store.thicknessMm(c);
                 curve(c, store.isTotalGeometry(c) || diffuseLayer);

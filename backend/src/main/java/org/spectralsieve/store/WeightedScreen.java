@@ -371,6 +371,27 @@ public final class WeightedScreen {
             return Math.max(meets, misses);
         }
 
+        /**
+         * {@link #asMeasured} of curves [from, to) lowered into {@code out} (out[c] = min(out[c], bound)), one column at
+         * a time: the same numbers as curve by curve, read in one pass over the figure's codes (a million curves as
+         * measured). Curves in total geometry are left as they are when {@code skipTotal} (a see-through clause is
+         * unverified on them, never a bound).
+         */
+        public void asMeasuredInto(double[] out, int from, int to, boolean skipTotal) {
+            for (int c = from; c < to; c++) {
+                if (skipTotal && store.isTotalGeometry(c)) {
+                    continue;
+                }
+                double b = figure >= 0 ? fromFigureCode(c) : Double.NaN;
+                if (Double.isNaN(b)) {
+                    b = binsAsMeasured(c);
+                }
+                if (b < out[c]) {
+                    out[c] = b;
+                }
+            }
+        }
+
         /** Whether this query reads the store's figure codes (the clause's figure is kept, no layer, not switched off). */
         public boolean readsFigureCodes() {
             return figure >= 0;
