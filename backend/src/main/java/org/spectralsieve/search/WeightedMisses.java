@@ -302,9 +302,13 @@ final class WeightedMisses {
                     && queries.stream().allMatch(WeightedScreen.Query::readsFigureCodes)) {
                 // as measured without a layer (the codes are read only then) a curve's bound is the smallest of its
                 // clauses' asMeasured (keepsProof holds, behindLayer is +∞): formed clause by clause, column-wise
+                // (the bins of a block with an unknown lower end only where no clause has proven a miss already)
                 java.util.Arrays.fill(out, from, to, Double.POSITIVE_INFINITY);
                 for (int i = 0; i < queries.size(); i++) {
-                    queries.get(i).asMeasuredInto(out, from, to, seeThrough.get(i));
+                    queries.get(i).asMeasuredInto(out, from, to, seeThrough.get(i), false);
+                }
+                for (int i = 0; i < queries.size(); i++) {
+                    queries.get(i).binsForUnknownLowerEnds(out, from, to, seeThrough.get(i));
                 }
                 return;
             }

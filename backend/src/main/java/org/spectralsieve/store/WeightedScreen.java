@@ -347,6 +347,14 @@ public final class WeightedScreen {
          * Each end moved by {@link #SLACK} to the safe side, as the bins' are.
          */
         private double fromFigureCode(int curve) {
+            return fromFigureCode(curve, true);
+        }
+
+        /**
+         * {@link #fromFigureCode(int)}; without the bins ({@code withBins} false) a block that may miss on an unknown L
+         * takes 0 for the bins' bound on that miss: looser, as sound (a missed block's margin is negative).
+         */
+        private double fromFigureCode(int curve, boolean withBins) {
             int code = figures.code(figure, curve);
             if (code == FigureCodes.NONE) {
                 return Double.NaN;
@@ -367,7 +375,7 @@ public final class WeightedScreen {
             if (!(up * (1 + SLACK) > threshold)) {
                 return meets; // L ≤ U ≤ t: it cannot miss
             }
-            double misses = Math.min(0, binsAsMeasured(curve));
+            double misses = withBins ? Math.min(0, binsAsMeasured(curve)) : 0;
             return Math.max(meets, misses);
         }
 
@@ -378,16 +386,45 @@ public final class WeightedScreen {
          * unverified on them, never a bound).
          */
         public void asMeasuredInto(double[] out, int from, int to, boolean skipTotal) {
+            asMeasuredInto(out, from, to, skipTotal, true);
+        }
+
+        /**
+         * {@link #asMeasuredInto(double[], int, int, boolean)}, without the bins where a block may miss on an unknown L
+         * when {@code withBins} is false (a bound of 0 for that case; {@link #binsForUnknownLowerEnds} adds them later
+         * where they could still matter).
+         */
+        public void asMeasuredInto(double[] out, int from, int to, boolean skipTotal, boolean withBins) {
             for (int c = from; c < to; c++) {
                 if (skipTotal && store.isTotalGeometry(c)) {
                     continue;
                 }
-                double b = figure >= 0 ? fromFigureCode(c) : Double.NaN;
+                double b = figure >= 0 ? fromFigureCode(c, withBins) : Double.NaN;
                 if (Double.isNaN(b)) {
                     b = binsAsMeasured(c);
                 }
                 if (b < out[c]) {
                     out[c] = b;
+                }
+            }
+        }
+
+        /**
+         * After {@code asMeasuredInto(…, false)} for every clause: the bins' bound of a block whose code leaves L unknown,
+         * only on curves whose bound is not yet negative (a curve already proven to miss keeps a sound, if looser,
+         * bound on its margin: the bins could only lower it further).
+         */
+        public void binsForUnknownLowerEnds(double[] out, int from, int to, boolean skipTotal) {
+            if (figure < 0 || pass) {
+                return;
+            }
+            for (int c = from; c < to; c++) {
+                if (out[c] >= 0 && !(skipTotal && store.isTotalGeometry(c)) && figures.code(figure, c) != FigureCodes.NONE
+                        && !figures.endsEqual(figure, c)) {
+                    double b = fromFigureCode(c, true);
+                    if (b < out[c]) {
+                        out[c] = b;
+                    }
                 }
             }
         }
