@@ -410,7 +410,16 @@ public final class WeightedScreen {
         }
 
         /**
-         * After {@code asMeasuredInto(…, false)} for every clause: the bins' bound of a block whose code leaves L unknown,
+         * {@link #asMeasured} of one curve, without the bins where a block may miss on an unknown L (0 for that case,
+         * as {@code asMeasuredInto(…, false)}): what a pass over every clause of a curve reads.
+         */
+        public double asMeasuredWithoutBinsForL(int curve) {
+            double b = figure >= 0 ? fromFigureCode(curve, false) : Double.NaN;
+            return Double.isNaN(b) ? binsAsMeasured(curve) : b;
+        }
+
+        /**
+         * After {@code asMeasuredInto(…, false)} (or {@link #asMeasuredWithoutBinsForL}) for every clause: the bins' bound of a block whose code leaves L unknown,
          * only on curves whose bound is not yet negative (a curve already proven to miss keeps a sound, if looser,
          * bound on its margin: the bins could only lower it further).
          */
