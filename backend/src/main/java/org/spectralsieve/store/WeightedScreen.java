@@ -313,6 +313,10 @@ public final class WeightedScreen {
         /** The column of the clause's figure among the store's figure codes, or −1 (none kept, or codes switched off). */
         private final int figure;
         private final double log10Threshold;
+        /** Codes from this one on can meet a block (u̲·(1 − SLACK) ≤ t). */
+        private final int canMeetFrom;
+        /** Codes below this one can miss a block (ū·(1 + SLACK) &gt; t). */
+        private final int canMissBelow;
         private final double log10Floor;
         private int lnBCurve = -1;
         private double lnBOfCurve;
@@ -330,6 +334,9 @@ public final class WeightedScreen {
             this.figure = figureCodesOn() && layerRange.isEmpty() ? FigureCodes.figureOf(clause.weighting()) : -1;
             this.log10Threshold = Math.log10(threshold);
             this.log10Floor = Math.log10(floor);
+            // the first code whose u̲ can meet a block, and the first whose ū cannot miss it (the ends fall as codes rise)
+            this.canMeetFrom = firstCode(c -> FigureCodes.lowerOf(c) * (1 - SLACK) <= threshold);
+            this.canMissBelow = firstCode(c -> !(FigureCodes.upperOf(c) * (1 + SLACK) > threshold));
         }
 
         /**
@@ -369,10 +376,10 @@ public final class WeightedScreen {
             if (figures.endsEqual(figure, curve)) {
                 return downMargin;
             }
-            double up = FigureCodes.upperOf(code);
-            double down = FigureCodes.lowerOf(code);
-            double meets = down * (1 - SLACK) <= threshold ? downMargin : Double.NEGATIVE_INFINITY;
-            if (!(up * (1 + SLACK) > threshold)) {
+            // u̲·(1 − SLACK) ≤ t exactly for the codes from canMeetFrom on, ū·(1 + SLACK) > t below canMissBelow
+            // (both ends fall as the code rises): no table read per curve
+            double meets = code >= canMeetFrom ? downMargin : Double.NEGATIVE_INFINITY;
+            if (code >= canMissBelow) {
                 return meets; // L ≤ U ≤ t: it cannot miss
             }
             double misses = withBins ? Math.min(0, binsAsMeasured(curve)) : 0;
@@ -428,14 +435,32 @@ public final class WeightedScreen {
                 return;
             }
             for (int c = from; c < to; c++) {
-                if (out[c] >= 0 && !(skipTotal && store.isTotalGeometry(c)) && figures.code(figure, c) != FigureCodes.NONE
-                        && !figures.endsEqual(figure, c)) {
+                int code = figures.code(figure, c);
+                // only a block that cannot meet but may miss reads its bins: where it can meet, its bound is the met
+                // case's, at least 0, which the bins' part (at most 0) cannot lower
+                if (out[c] >= 0 && code != FigureCodes.NONE && code < canMeetFrom && code < canMissBelow
+                        && !figures.endsEqual(figure, c) && !(skipTotal && store.isTotalGeometry(c))) {
                     double b = fromFigureCode(c, true);
                     if (b < out[c]) {
                         out[c] = b;
                     }
                 }
             }
+        }
+
+        /** The first code in 1…{@link FigureCodes#BELOW} for which a property that holds from some code on holds (BELOW + 1: none). */
+        private static int firstCode(java.util.function.IntPredicate holds) {
+            int lo = 1;
+            int hi = FigureCodes.BELOW + 1;
+            while (lo < hi) {
+                int mid = (lo + hi) >>> 1;
+                if (holds.test(mid)) {
+                    hi = mid;
+                } else {
+                    lo = mid + 1;
+                }
+            }
+            return lo;
         }
 
         /** Whether this query reads the store's figure codes (the clause's figure is kept, no layer, not switched off). */
