@@ -180,6 +180,10 @@ final class BoundedJudgement {
      * {@code bound} (or none is left), so they enter the line before any contender they would have followed; and
      * never when full rows ending in a met row with a larger margin keep every one of them out.
      */
+    /** Reserves formed, and reserves the rows kept out whole, since the start (tests and benchmarks read them). */
+    static final java.util.concurrent.atomic.AtomicLong RESERVES_FORMED = new java.util.concurrent.atomic.AtomicLong();
+    static final java.util.concurrent.atomic.AtomicLong RESERVES_LEFT = new java.util.concurrent.atomic.AtomicLong();
+
     record Reserve(double bound, java.util.function.Supplier<List<Contender>> form) {
 
         Reserve {
@@ -221,6 +225,9 @@ final class BoundedJudgement {
                             || ranker.grouped() && !keepsOut(regularRows, limit, reserve.bound())) {
                         boolean refineNone = refine == null;
                         reserve.form().get().forEach(c -> queue.add(new Pending(c, refineNone || c.settledNotJudged())));
+                        RESERVES_FORMED.incrementAndGet();
+                    } else {
+                        RESERVES_LEFT.incrementAndGet();
                     }
                     reserve = null;
                 }

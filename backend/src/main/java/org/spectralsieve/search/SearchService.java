@@ -315,6 +315,14 @@ public class SearchService {
         return this;
     }
 
+    /** The same service forming only this many materials before the reserve, whatever the limit (tests). */
+    SearchService reserveCut(int materials) {
+        this.reserveCut = materials;
+        return this;
+    }
+
+    private int reserveCut = -1;
+
     /**
      * The same service judging rows known to be "not judged" from their thicknesses as any other contender (the loop
      * before {@link SettledRows}): the same answers, more samples judged; for benchmarks and tests side by side.
@@ -724,7 +732,8 @@ public class SearchService {
         if (!deferred.isEmpty()) {
             // materials above the cut are formed now, the others on demand: the cut leaves room for every row to be
             // judged several times over before the loop could reach the reserve
-            double cut = BoundedJudgement.kthLargest(deferredBound, deferred.size(), reserveAfter + 4 * limit);
+            double cut = BoundedJudgement.kthLargest(deferredBound, deferred.size(),
+                    reserveCut > 0 ? reserveCut : reserveAfter + 4 * limit);
             List<Integer> later = new ArrayList<>();
             double reserveBound = Double.NEGATIVE_INFINITY;
             for (int i = 0; i < deferred.size(); i++) {

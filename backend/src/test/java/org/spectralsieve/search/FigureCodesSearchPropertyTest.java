@@ -74,11 +74,19 @@ class FigureCodesSearchPropertyTest {
         // a reserve after 4 materials per row asked (reserveAfter(0)): this small library's reserve is reached often
         SearchService parallel = new SearchService(library).reserveAfter(0).parallelFrom(0);
         SearchService oneThread = new SearchService(library).reserveAfter(0).judging(SearchService.Judging.BOUNDED);
+        // one material formed before the reserve: the loop reaches it in nearly every search
+        SearchService tinyCut = new SearchService(library).reserveCut(1).judging(SearchService.Judging.BOUNDED);
         SearchService everyContender = new SearchService(library).withoutContenderReserve()
                 .judging(SearchService.Judging.BOUNDED);
         SearchService binsOnly = new SearchService(library).judging(SearchService.Judging.BOUNDED);
+        // with the bins' looser bounds the reserve is reached against full rows more often
+        SearchService binsTinyCut = new SearchService(library).reserveCut(1).judging(SearchService.Judging.BOUNDED);
+        SearchService binsFormedFirst = new SearchService(library).withoutContenderReserve()
+                .judging(SearchService.Judging.BOUNDED);
         // the first bounds alone (no second stage, which reads the exact figures on the curve either way): like with like
         SearchService firstOnly = new SearchService(library).withoutSecondStage().judging(SearchService.Judging.BOUNDED);
+        long formedBefore = BoundedJudgement.RESERVES_FORMED.get();
+        long leftBefore = BoundedJudgement.RESERVES_LEFT.get();
         int fewer = 0;
         int more = 0;
         int fullOfMet = 0;
@@ -97,8 +105,16 @@ class FigureCodesSearchPropertyTest {
             assertThat(formedFirst.rows()).as(text + " every contender formed first").containsExactlyElementsOf(expected);
             assertThat(alone.judgedExactly()).as(text + ": the reserve changes no judgement")
                     .isEqualTo(formedFirst.judgedExactly());
+            Shortlist tiny = tinyCut.search(requirement, limit);
+            assertThat(tiny.rows()).as(text + " one material before the reserve").containsExactlyElementsOf(expected);
+            assertThat(tiny.judgedExactly()).as(text + ": a reserve after one material changes no judgement")
+                    .isEqualTo(formedFirst.judgedExactly());
             Shortlist bins = withoutFigureCodes(() -> binsOnly.search(requirement, limit));
             assertThat(bins.rows()).as(text + " bins alone").containsExactlyElementsOf(expected);
+            Shortlist binsTiny = withoutFigureCodes(() -> binsTinyCut.search(requirement, limit));
+            assertThat(binsTiny.rows()).as(text + " bins, one material before the reserve").containsExactlyElementsOf(expected);
+            assertThat(binsTiny.judgedExactly()).as(text + ": bins, the reserve changes no judgement")
+                    .isEqualTo(withoutFigureCodes(() -> binsFormedFirst.search(requirement, limit)).judgedExactly());
             Shortlist codesFirst = firstOnly.search(requirement, limit);
             Shortlist binsFirst = withoutFigureCodes(() -> firstOnly.search(requirement, limit));
             assertThat(codesFirst.rows()).as(text + " codes, first bounds alone").containsExactlyElementsOf(expected);
@@ -108,6 +124,9 @@ class FigureCodesSearchPropertyTest {
             fullOfMet += expected.size() == limit && expected.get(limit - 1).evaluation().standing() == Standing.MEETS ? 1 : 0;
         }
         assertThat(fullOfMet).as("trials whose rows are full of met rows").isGreaterThan(4);
+        // not vacuous: the loop both reached a reserve and formed it, and kept one out whole
+        assertThat(BoundedJudgement.RESERVES_FORMED.get() - formedBefore).as("reserves formed").isGreaterThan(2);
+        assertThat(BoundedJudgement.RESERVES_LEFT.get() - leftBefore).as("reserves kept out").isGreaterThan(2);
         assertThat(fewer).as("trials where the codes judge fewer than the bins").isGreaterThan(5);
         assertThat(more).as("trials where they judge more").isLessThan(fewer);
     }
