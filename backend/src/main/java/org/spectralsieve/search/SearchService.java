@@ -671,8 +671,9 @@ public class SearchService {
         Map<Long, Set<Long>> judgedOf = new HashMap<>();
         List<BoundedJudgement.Contender> contenders = new ArrayList<>();
         // as measured each sample's contender is formed from its bounds alone: a material all of whose samples' bounds
-        // lie below the cut waits in a reserve, formed only if the judging loop reaches it (BoundedJudgement.Reserve)
-        boolean deferrable = bySample && spec.kind() == ThicknessSpec.Kind.AS_MEASURED && contenderReserve;
+        // lie below the cut waits in a reserve, formed only if the judging loop reaches it (BoundedJudgement.Reserve).
+        // Not behind a layer: there the figure codes are not read, and the bins' looser bounds mostly reach the reserve
+        boolean deferrable = bySample && spec.kind() == ThicknessSpec.Kind.AS_MEASURED && layer.isEmpty() && contenderReserve;
         List<Material> deferred = new ArrayList<>();
         List<Boolean> deferredRegular = new ArrayList<>();
         double[] deferredBound = deferrable ? new double[s.materials().size()] : null;
