@@ -387,38 +387,8 @@ public final class WeightedScreen {
         }
 
         /**
-         * {@link #asMeasured} of curves [from, to) lowered into {@code out} (out[c] = min(out[c], bound)), one column at
-         * a time: the same numbers as curve by curve, read in one pass over the figure's codes (a million curves as
-         * measured). Curves in total geometry are left as they are when {@code skipTotal} (a see-through clause is
-         * unverified on them, never a bound).
-         */
-        public void asMeasuredInto(double[] out, int from, int to, boolean skipTotal) {
-            asMeasuredInto(out, from, to, skipTotal, true);
-        }
-
-        /**
-         * {@link #asMeasuredInto(double[], int, int, boolean)}, without the bins where a block may miss on an unknown L
-         * when {@code withBins} is false (a bound of 0 for that case; {@link #binsForUnknownLowerEnds} adds them later
-         * where they could still matter).
-         */
-        public void asMeasuredInto(double[] out, int from, int to, boolean skipTotal, boolean withBins) {
-            for (int c = from; c < to; c++) {
-                if (skipTotal && store.isTotalGeometry(c)) {
-                    continue;
-                }
-                double b = figure >= 0 ? fromFigureCode(c, withBins) : Double.NaN;
-                if (Double.isNaN(b)) {
-                    b = binsAsMeasured(c);
-                }
-                if (b < out[c]) {
-                    out[c] = b;
-                }
-            }
-        }
-
-        /**
-         * {@link #asMeasured} of one curve, without the bins where a block may miss on an unknown L (0 for that case,
-         * as {@code asMeasuredInto(…, false)}): what a pass over every clause of a curve reads.
+         * {@link #asMeasured} of one curve, without the bins where a block may miss on an unknown L (0 for that case, a
+         * looser bound as sound: a missed block's margin is negative): what the screen's pass over every clause reads.
          */
         public double asMeasuredWithoutBinsForL(int curve) {
             double b = figure >= 0 ? fromFigureCode(curve, false) : Double.NaN;
@@ -426,7 +396,7 @@ public final class WeightedScreen {
         }
 
         /**
-         * After {@code asMeasuredInto(…, false)} (or {@link #asMeasuredWithoutBinsForL}) for every clause: the bins' bound of a block whose code leaves L unknown,
+         * After {@link #asMeasuredWithoutBinsForL} for every clause: the bins' bound of a block whose code leaves L unknown,
          * only on curves whose bound is not yet negative (a curve already proven to miss keeps a sound, if looser,
          * bound on its margin: the bins could only lower it further).
          */
