@@ -170,6 +170,38 @@ final class BoundedJudgement {
     static List<MaterialEvaluation> judgeContenders(List<Contender> contenders, int limit, Ranker ranker,
                                                     Function<Contender, List<MaterialEvaluation>> judge, boolean parallel,
                                                     Refiner refine) {
+        return judgeContenders(contenders, null, limit, ranker, judge, parallel, refine);
+    }
+
+    /**
+     * Contenders not yet formed (docs/weighted-screening.md, "Figures in the store"): every one of them has a bound
+     * at most {@code bound} (a number, not NaN) and is not {@link Contender#settledNotJudged}; {@code form} makes
+     * them, in any order. The loop forms them only when the first in line has a bound no larger than
+     * {@code bound} (or none is left), so they enter the line before any contender they would have followed; and
+     * never when full rows ending in a met row with a larger margin keep every one of them out.
+     */
+    /** Reserves formed, and reserves the rows kept out whole, since the start (tests and benchmarks read them). */
+    static final java.util.concurrent.atomic.AtomicLong RESERVES_FORMED = new java.util.concurrent.atomic.AtomicLong();
+    static final java.util.concurrent.atomic.AtomicLong RESERVES_LEFT = new java.util.concurrent.atomic.AtomicLong();
+
+    record Reserve(double bound, java.util.function.Supplier<List<Contender>> form) {
+
+        Reserve {
+            if (Double.isNaN(bound)) {
+                throw new IllegalArgumentException("a reserve's bound must be a number");
+            }
+        }
+    }
+
+    /**
+     * {@link #judgeContenders(List, int, Ranker, Function, boolean, Refiner)} with a {@link Reserve} of contenders
+     * formed only if the loop reaches their bound: the same contenders are judged, in the same order, as with every
+     * contender formed at the start (the reserve's enter the line before any of theirs could be first in it), so
+     * the answer and the work of judging are the same; only the contenders that cannot enter are never made.
+     */
+    static List<MaterialEvaluation> judgeContenders(List<Contender> contenders, Reserve reserve, int limit,
+                                                    Ranker ranker, Function<Contender, List<MaterialEvaluation>> judge,
+                                                    boolean parallel, Refiner refine) {
         List<Pending> waiting = new ArrayList<>(contenders.size() + 1);
         // a settled contender's rows are known to be not judged: no second bound could say more
         contenders.forEach(c -> waiting.add(new Pending(c, refine == null || c.settledNotJudged())));
@@ -181,11 +213,27 @@ final class BoundedJudgement {
         List<MaterialEvaluation> exact = new ArrayList<>();
         List<RankedRow> rows = List.of();
         List<RankedRow> regularRows = List.of();
-        while (!queue.isEmpty()) {
+        while (!queue.isEmpty() || reserve != null) {
             List<Contender> batch = new ArrayList<>(batchSize);
             List<Contender> toRefine = new ArrayList<>(batchSize);
             List<Double> bars = new ArrayList<>(batchSize);
-            while (!queue.isEmpty() && batch.size() < batchSize && toRefine.size() < refineSize) {
+            while (batch.size() < batchSize && toRefine.size() < refineSize) {
+                if (reserve != null && (queue.isEmpty() || !(queue.peek().contender().bound() > reserve.bound()))) {
+                    // the reserve's contenders could be first in line now: form them, unless full met rows keep
+                    // every one out (none has a bound above the reserve's)
+                    if (!keepsOut(rows, limit, reserve.bound())
+                            || ranker.grouped() && !keepsOut(regularRows, limit, reserve.bound())) {
+                        boolean refineNone = refine == null;
+                        reserve.form().get().forEach(c -> queue.add(new Pending(c, refineNone || c.settledNotJudged())));
+                        RESERVES_FORMED.incrementAndGet();
+                    } else {
+                        RESERVES_LEFT.incrementAndGet();
+                    }
+                    reserve = null;
+                }
+                if (queue.isEmpty()) {
+                    break;
+                }
                 if (noneCanEnter(queue.peek().contender(), rows, limit)
                         && (!ranker.grouped() || noneCanEnter(queue.peek().contender(), regularRows, limit))) {
                     queue.clear(); // every contender left has a bound no larger than the first's
@@ -236,6 +284,58 @@ final class BoundedJudgement {
         public int compareTo(Pending other) {
             return ORDER.compare(contender, other.contender);
         }
+    }
+
+    /**
+     * The {@code k}-th largest of the numbers that are finite (−∞ when there are fewer): a cut for a {@link Reserve},
+     * found with a heap of {@code k} (one pass, no sort of a million bounds).
+     */
+    static double kthLargest(double[] values, int count, int k) {
+        double[] heap = new double[Math.max(1, k)]; // a min-heap of the k largest so far
+        int size = 0;
+        for (int i = 0; i < count; i++) {
+            double v = values[i];
+            if (!Double.isFinite(v)) {
+                continue;
+            }
+            if (size < k) {
+                int at = size++;
+                heap[at] = v;
+                while (at > 0 && heap[(at - 1) / 2] > heap[at]) {
+                    double t = heap[at];
+                    heap[at] = heap[(at - 1) / 2];
+                    heap[(at - 1) / 2] = t;
+                    at = (at - 1) / 2;
+                }
+            } else if (k > 0 && v > heap[0]) {
+                heap[0] = v;
+                int at = 0;
+                while (true) {
+                    int least = at;
+                    int l = 2 * at + 1;
+                    int r = l + 1;
+                    if (l < size && heap[l] < heap[least]) {
+                        least = l;
+                    }
+                    if (r < size && heap[r] < heap[least]) {
+                        least = r;
+                    }
+                    if (least == at) {
+                        break;
+                    }
+                    double t = heap[at];
+                    heap[at] = heap[least];
+                    heap[least] = t;
+                    at = least;
+                }
+            }
+        }
+        return size < k || k == 0 ? Double.NEGATIVE_INFINITY : heap[0];
+    }
+
+    /** Whether full rows ending in a met row whose margin exceeds {@code bound} keep out any contender of at most that bound. */
+    private static boolean keepsOut(List<RankedRow> rows, int limit, double bound) {
+        return bar(rows, limit) > bound;
     }
 
     /**

@@ -169,6 +169,14 @@ public class SearchService {
             ? new JudgementMemo(JudgementMemo.entriesByDefault()) : null;
     /** Rows known to be "not judged" from thicknesses alone wait last ({@link SettledRows}); off: judged as any other. */
     private boolean settledRows = true;
+    /**
+     * Whether, as measured, materials whose bounds lie below a cut wait in a reserve formed on demand
+     * ({@link BoundedJudgement.Reserve}); {@code -Dsieve.search.contender-reserve=false} forms every contender first.
+     */
+    private boolean contenderReserve = !"false".equals(System.getProperty("sieve.search.contender-reserve"));
+    /** Materials formed before the reserve, beyond four per row asked. */
+    static final int RESERVE_AFTER = 256;
+    private int reserveAfter = RESERVE_AFTER;
     /** A material's second bounds formed only up to the bar it must reach ({@link #refined}); off: every sample's. */
     private boolean secondBoundsToTheBar = !"false".equals(System.getProperty("sieve.search.second-bounds-to-the-bar"));
     /** How requirements the store cannot rank are judged ({@link #searchExactly}); other ways for benchmarks and tests. */
@@ -309,6 +317,29 @@ public class SearchService {
         this.samplesAsContenders = false;
         return this;
     }
+
+    /**
+     * The same service forming every contender before judging (no {@link BoundedJudgement.Reserve}): the same
+     * answers and the same judgements; for benchmarks and tests side by side.
+     */
+    public SearchService withoutContenderReserve() {
+        this.contenderReserve = false;
+        return this;
+    }
+
+    /** The same service with a reserve after this many materials beyond four per row (tests: a small library's reserve). */
+    SearchService reserveAfter(int materials) {
+        this.reserveAfter = materials;
+        return this;
+    }
+
+    /** The same service forming only this many materials before the reserve, whatever the limit (tests). */
+    SearchService reserveCut(int materials) {
+        this.reserveCut = materials;
+        return this;
+    }
+
+    private int reserveCut = -1;
 
     /**
      * The same service judging rows known to be "not judged" from their thicknesses as any other contender (the loop
@@ -657,6 +688,13 @@ public class SearchService {
         Map<Long, Prepared> prepared = new HashMap<>();
         Map<Long, Set<Long>> judgedOf = new HashMap<>();
         List<BoundedJudgement.Contender> contenders = new ArrayList<>();
+        // as measured each sample's contender is formed from its bounds alone: a material all of whose samples' bounds
+        // lie below the cut waits in a reserve, formed only if the judging loop reaches it (BoundedJudgement.Reserve).
+        // Not behind a layer: there the figure codes are not read, and the bins' looser bounds mostly reach the reserve
+        boolean deferrable = bySample && spec.kind() == ThicknessSpec.Kind.AS_MEASURED && layer.isEmpty() && contenderReserve;
+        List<Material> deferred = new ArrayList<>();
+        List<Boolean> deferredRegular = new ArrayList<>();
+        double[] deferredBound = deferrable ? new double[s.materials().size()] : null;
         int admitted = 0;
         for (Material material : s.materials().values().stream().sorted(Comparator.comparingLong(Material::id))
                 .filter(within).toList()) {
@@ -693,7 +731,11 @@ public class SearchService {
             // judged whole: a material whose choice of samples failed (none judged; every row then says why). With
             // diffuse rows ranked apart, every sample of a material with a regular one competes with the regular rows
             // (as the material did): it is left out only once they are full, and then no diffuse row is shown at all
-            if (count > 0 && bySample && (judgedSamples == null || !judgedSamples.isEmpty())) {
+            if (count > 0 && deferrable && !(bound == Double.POSITIVE_INFINITY)) {
+                deferredBound[deferred.size()] = bound; // at least each of its samples' contender bounds
+                deferred.add(material);
+                deferredRegular.add(regular);
+            } else if (count > 0 && bySample && (judgedSamples == null || !judgedSamples.isEmpty())) {
                 addSampleContenders(contenders, s, material, requirement, judgedSamples, prepared.get(material.id()),
                         provenMiss, marginBound, regular);
             } else if (count > 0 && settled) {
@@ -702,6 +744,35 @@ public class SearchService {
             } else if (count > 0) {
                 contenders.add(new BoundedJudgement.Contender(material, bound,
                         allMiss && madeFor(spec, material), regular));
+            }
+        }
+        BoundedJudgement.Reserve reserve = null;
+        int inReserve = 0;
+        if (!deferred.isEmpty()) {
+            // materials above the cut are formed now, the others on demand: the cut leaves room for every row to be
+            // judged several times over before the loop could reach the reserve
+            double cut = BoundedJudgement.kthLargest(deferredBound, deferred.size(),
+                    reserveCut > 0 ? reserveCut : reserveAfter + 4 * limit);
+            List<Integer> later = new ArrayList<>();
+            double reserveBound = Double.NEGATIVE_INFINITY;
+            for (int i = 0; i < deferred.size(); i++) {
+                if (deferredBound[i] >= cut || Double.isNaN(deferredBound[i])) {
+                    addSampleContenders(contenders, s, deferred.get(i), requirement, null, null, provenMiss, marginBound,
+                            deferredRegular.get(i));
+                } else {
+                    later.add(i);
+                    reserveBound = Math.max(reserveBound, deferredBound[i]);
+                }
+            }
+            inReserve = later.size();
+            if (!later.isEmpty()) {
+                double reserveAt = reserveBound;
+                reserve = new BoundedJudgement.Reserve(reserveAt, () -> {
+                    List<BoundedJudgement.Contender> formed = new ArrayList<>();
+                    later.forEach(i -> addSampleContenders(formed, s, deferred.get(i), requirement, null, null,
+                            provenMiss, marginBound, deferredRegular.get(i)));
+                    return formed;
+                });
             }
         }
         BoundedJudgement.Ranker ranker = new BoundedJudgement.Ranker(list -> rank(s, requirement, list, limit),
@@ -729,7 +800,7 @@ public class SearchService {
                 }
                 : null;
         // the prepared map is complete before any judging thread reads it, and never written after
-        List<MaterialEvaluation> exact = BoundedJudgement.judgeContenders(contenders, limit, ranker,
+        List<MaterialEvaluation> exact = BoundedJudgement.judgeContenders(contenders, reserve, limit, ranker,
                 c -> {
                     Material m = c.material();
                     Prepared ready = prepared.get(m.id());
@@ -738,7 +809,7 @@ public class SearchService {
                         return p.judgeOne(requirement, layer, c.sampleId());
                     }
                     return ready != null ? ready.judge(requirement, layer) : judge(s, m, requirement, layer, diffuseLayer);
-                }, judging == Judging.BOUNDED_PARALLEL && contenders.size() >= parallelFrom, refine);
+                }, judging == Judging.BOUNDED_PARALLEL && contenders.size() + inReserve >= parallelFrom, refine);
         List<RankedRow> rows = rank(s, requirement, exact, limit); // once, from every judgement: the answer's own rows
         double tookMs = (System.nanoTime() - started) / 1e6;
         return new Shortlist(requirement, rows, admitted, exact.size(), tookMs, layer, geometries(s, rows),

@@ -298,6 +298,37 @@ final class WeightedMisses {
 
         /** Each curve's bound on its exact worst margin (+∞ or ≥ 0 where nothing is proven) into {@code out}. */
         void into(double[] out) {
+            if (spec.kind() == ThicknessSpec.Kind.AS_MEASURED && !reference && !diffuseLayer
+                    && queries.stream().allMatch(WeightedScreen.Query::readsFigureCodes)) {
+                // as measured without a layer (the codes are read only then) a curve's bound is the smallest of its
+                // clauses' asMeasured (keepsProof holds, behindLayer is +∞): formed clause by clause, column-wise
+                // (the bins of a block with an unknown lower end only where no clause has proven a miss already)
+                WeightedScreen.Query[] q = queries.toArray(new WeightedScreen.Query[0]);
+                boolean[] skipTotal = new boolean[q.length];
+                boolean anySkip = false;
+                for (int i = 0; i < q.length; i++) {
+                    skipTotal[i] = seeThrough.get(i);
+                    anySkip |= skipTotal[i];
+                }
+                // one pass over the curves, every clause's code read in it (the same numbers as clause by clause)
+                for (int c = from; c < to; c++) {
+                    boolean total = anySkip && store.isTotalGeometry(c);
+                    double bound = Double.POSITIVE_INFINITY;
+                    for (int i = 0; i < q.length; i++) {
+                        if (!(total && skipTotal[i])) {
+                            double b = q[i].asMeasuredWithoutBinsForL(c);
+                            if (b < bound) {
+                                bound = b;
+                            }
+                        }
+                    }
+                    out[c] = bound;
+                }
+                for (int i = 0; i < queries.size(); i++) {
+                    queries.get(i).binsForUnknownLowerEnds(out, from, to, seeThrough.get(i));
+                }
+                return;
+            }
             for (int c = from; c < to; c++) {
                 double d0 = store.thicknessMm(c);
                 curve(c, store.isTotalGeometry(c) || diffuseLayer);

@@ -50,8 +50,13 @@ public final class WeightedScreen {
     static final int OFFSET = 9;
     /** Relative room for the exact figure's floating-point rounding, on the safe side of every bound. */
     static final double SLACK = 1e-6;
+    /** log10(1 + SLACK) and log10(1 − SLACK): the slack in decades, for bounds formed from logarithms. */
+    private static final double LOG10_UP = Math.log10(1 + 1e-6);
+    private static final double LOG10_DOWN = Math.log10(1 - 1e-6);
+    /** Decades added to a bound formed from logarithms ({@code Query.fromFigureCode}): far above their rounding. */
+    private static final double LOG_ROOM = 1e-9;
     /** Bytes per curve: two bin codes per bin and a short naming the curve's wavelength range. */
-    public static final int BYTES_PER_CURVE = 2 * BINS + Short.BYTES;
+    public static final int BYTES_PER_CURVE = 2 * BINS + Short.BYTES + FigureCodes.BYTES_PER_CURVE;
 
     private static final double[] T_OF_CODE = new double[256];
     /** ln of {@link #T_OF_CODE} (−∞ for code 0), for powers of bin values. */
@@ -88,7 +93,12 @@ public final class WeightedScreen {
     private final int[][] binsOfRange;
     private static final int[] ALL_BINS = java.util.stream.IntStream.range(0, BINS).toArray();
 
-    private WeightedScreen(byte[][] brightest, byte[][] darkest, short[] rangeOfCurve, List<double[]> ranges) {
+    /** Per curve, the exact figures of a few built-in weightings as codes (docs/weighted-screening.md, "Figures in the store"). */
+    private final FigureCodes figures;
+
+    private WeightedScreen(byte[][] brightest, byte[][] darkest, short[] rangeOfCurve, List<double[]> ranges,
+                           FigureCodes figures) {
+        this.figures = figures;
         this.brightest = brightest;
         this.darkest = darkest;
         this.rangeOfCurve = rangeOfCurve;
@@ -101,6 +111,19 @@ public final class WeightedScreen {
             binsOfRange[i] = java.util.stream.IntStream.range(0, BINS)
                     .filter(b -> !(FIRST_NM + b * BIN_NM > r[1] || FIRST_NM + b * BIN_NM + BIN_NM < r[0])).toArray();
         }
+    }
+
+    /**
+     * Whether queries read the store's figure codes: {@code -Dsieve.store.figure-codes=false} reads the bins alone,
+     * the screen before them (benchmarks only; read per query, so a benchmark can alternate both in one JVM).
+     */
+    static boolean figureCodesOn() {
+        return !"false".equals(System.getProperty("sieve.store.figure-codes"));
+    }
+
+    /** The store's figure codes (tests). */
+    FigureCodes figureCodes() {
+        return figures;
     }
 
     static Builder builder(int capacity) {
@@ -287,6 +310,14 @@ public final class WeightedScreen {
         private boolean unverifiedOnCurve;
         private double unverifiedMarginBound = Double.POSITIVE_INFINITY;
         private boolean reference;
+        /** The column of the clause's figure among the store's figure codes, or −1 (none kept, or codes switched off). */
+        private final int figure;
+        private final double log10Threshold;
+        /** Codes from this one on can meet a block (u̲·(1 − SLACK) ≤ t). */
+        private final int canMeetFrom;
+        /** Codes below this one can miss a block (ū·(1 + SLACK) &gt; t). */
+        private final int canMissBelow;
+        private final double log10Floor;
         private int lnBCurve = -1;
         private double lnBOfCurve;
 
@@ -300,6 +331,111 @@ public final class WeightedScreen {
             this.sharesOfRange = new double[ranges.size()][];
             this.usedBinsOfRange = new int[ranges.size()][];
             this.surfacesOf = new Surfaces[ranges.size()][];
+            this.figure = figureCodesOn() && layerRange.isEmpty() ? FigureCodes.figureOf(clause.weighting()) : -1;
+            this.log10Threshold = Math.log10(threshold);
+            this.log10Floor = Math.log10(floor);
+            // the first code whose u̲ can meet a block, and the first whose ū cannot miss it (the ends fall as codes rise)
+            this.canMeetFrom = firstCode(c -> FigureCodes.lowerOf(c) * (1 - SLACK) <= threshold);
+            this.canMissBelow = firstCode(c -> !(FigureCodes.upperOf(c) * (1 + SLACK) > threshold));
+        }
+
+        /**
+         * The clause's margin bound as measured from the curve's figure code (no layer), for a row that meets or misses
+         * (docs/weighted-screening.md, "Figures in the store"); NaN where the code says nothing. With U in [u̲, ū]:
+         * <ul>
+         * <li>a pass meets on L ≥ t with margin log10(L/t) ≤ log10(ū/t) (L ≤ U), and misses on U &lt; t with margin
+         * log10(U/t) ≤ log10(ū/t): one bound for both;</li>
+         * <li>a block meets on U ≤ t with margin log10(t/U) ≤ log10(t/u̲), possible only where u̲ ≤ t; it misses on
+         * L &gt; t with a negative margin log10(t/L), possible only where ū &gt; t: at most log10(t/u̲) when both ends
+         * are equal (L = U), else at most 0 and at most the bins' bound on L. The bound is the larger of the two
+         * cases that can happen; so a block that cannot meet (u̲ above t) is bounded by 0 even where points below
+         * detection leave L unknown — a row that is unverified or misses, never above a met row.</li>
+         * </ul>
+         * Each end moved by {@link #SLACK} to the safe side, as the bins' are.
+         */
+        private double fromFigureCode(int curve) {
+            return fromFigureCode(curve, true);
+        }
+
+        /**
+         * {@link #fromFigureCode(int)}; without the bins ({@code withBins} false) a block that may miss on an unknown L
+         * takes 0 for the bins' bound on that miss: looser, as sound (a missed block's margin is negative).
+         */
+        private double fromFigureCode(int curve, boolean withBins) {
+            int code = figures.code(figure, curve);
+            if (code == FigureCodes.NONE) {
+                return Double.NaN;
+            }
+            // in decades: passMargin(ū) and blockMargin(u̲) without a logarithm per curve; the same numbers to a few
+            // 1e-15 decades, so LOG_ROOM is added: at the floor, where the exact margin is the same number formed
+            // another way, the bound must not fall an ulp below it (a tie with the last row is judged)
+            if (pass) {
+                return Math.max(FigureCodes.log10UpperOf(code) + LOG10_UP, log10Floor) - log10Threshold + LOG_ROOM;
+            }
+            double downMargin = log10Threshold - Math.max(FigureCodes.log10LowerOf(code) + LOG10_DOWN, log10Floor) + LOG_ROOM;
+            if (figures.endsEqual(figure, curve)) {
+                return downMargin;
+            }
+            // u̲·(1 − SLACK) ≤ t exactly for the codes from canMeetFrom on, ū·(1 + SLACK) > t below canMissBelow
+            // (both ends fall as the code rises): no table read per curve
+            double meets = code >= canMeetFrom ? downMargin : Double.NEGATIVE_INFINITY;
+            if (code >= canMissBelow) {
+                return meets; // L ≤ U ≤ t: it cannot miss
+            }
+            double misses = withBins ? Math.min(0, binsAsMeasured(curve)) : 0;
+            return Math.max(meets, misses);
+        }
+
+        /**
+         * {@link #asMeasured} of one curve, without the bins where a block may miss on an unknown L (0 for that case, a
+         * looser bound as sound: a missed block's margin is negative): what the screen's pass over every clause reads.
+         */
+        public double asMeasuredWithoutBinsForL(int curve) {
+            double b = figure >= 0 ? fromFigureCode(curve, false) : Double.NaN;
+            return Double.isNaN(b) ? binsAsMeasured(curve) : b;
+        }
+
+        /**
+         * After {@link #asMeasuredWithoutBinsForL} for every clause: the bins' bound of a block whose code leaves L unknown,
+         * only on curves whose bound is not yet negative (a curve already proven to miss keeps a sound, if looser,
+         * bound on its margin: the bins could only lower it further).
+         */
+        public void binsForUnknownLowerEnds(double[] out, int from, int to, boolean skipTotal) {
+            if (figure < 0 || pass) {
+                return;
+            }
+            for (int c = from; c < to; c++) {
+                int code = figures.code(figure, c);
+                // only a block that cannot meet but may miss reads its bins: where it can meet, its bound is the met
+                // case's, at least 0, which the bins' part (at most 0) cannot lower
+                if (out[c] >= 0 && code != FigureCodes.NONE && code < canMeetFrom && code < canMissBelow
+                        && !figures.endsEqual(figure, c) && !(skipTotal && store.isTotalGeometry(c))) {
+                    double b = fromFigureCode(c, true);
+                    if (b < out[c]) {
+                        out[c] = b;
+                    }
+                }
+            }
+        }
+
+        /** The first code in 1…{@link FigureCodes#BELOW} for which a property that holds from some code on holds (BELOW + 1: none). */
+        private static int firstCode(java.util.function.IntPredicate holds) {
+            int lo = 1;
+            int hi = FigureCodes.BELOW + 1;
+            while (lo < hi) {
+                int mid = (lo + hi) >>> 1;
+                if (holds.test(mid)) {
+                    hi = mid;
+                } else {
+                    lo = mid + 1;
+                }
+            }
+            return lo;
+        }
+
+        /** Whether this query reads the store's figure codes (the clause's figure is kept, no layer, not switched off). */
+        public boolean readsFigureCodes() {
+            return figure >= 0;
         }
 
         /** A pass clause's margin bound from an upper bound on the weighted mean, moved by SLACK to the safe side. */
@@ -351,6 +487,21 @@ public final class WeightedScreen {
          * Σ share·brightest bounds U; block: Σ share·darkest bounds L.
          */
         public double asMeasured(int curve) {
+            if (layerRange.isPresent() && !pass) {
+                return Double.POSITIVE_INFINITY;
+            }
+            if (figure >= 0) {
+                // the exact figure to within two code steps: no bin can be tighter by more than that
+                double fromCode = fromFigureCode(curve);
+                if (!Double.isNaN(fromCode)) {
+                    return fromCode;
+                }
+            }
+            return binsAsMeasured(curve);
+        }
+
+        /** {@link #asMeasured} from the bins alone. */
+        private double binsAsMeasured(int curve) {
             if (layerRange.isPresent() && !pass) {
                 return Double.POSITIVE_INFINITY;
             }
@@ -1398,8 +1549,10 @@ public final class WeightedScreen {
         private short[] rangeOfCurve;
         private final List<double[]> ranges = new ArrayList<>();
         private final Map<List<Double>, Integer> rangeIndex = new HashMap<>();
+        private final FigureCodes.Builder figures;
 
         private Builder(int capacity) {
+            figures = new FigureCodes.Builder(capacity);
             brightest = new byte[BINS][capacity];
             darkest = new byte[BINS][capacity];
             rangeOfCurve = new short[capacity];
@@ -1411,6 +1564,7 @@ public final class WeightedScreen {
                 brightest[b] = Arrays.copyOf(brightest[b], capacity);
                 darkest[b] = Arrays.copyOf(darkest[b], capacity);
             }
+            figures.grow(capacity);
             int old = rangeOfCurve.length;
             rangeOfCurve = Arrays.copyOf(rangeOfCurve, capacity);
             Arrays.fill(rangeOfCurve, old, capacity, (short) -1);
@@ -1423,6 +1577,7 @@ public final class WeightedScreen {
                 darkest[b][slot] = 0;
             }
             rangeOfCurve[slot] = -1;
+            figures.unknown(slot);
         }
 
         /**
@@ -1431,6 +1586,7 @@ public final class WeightedScreen {
          */
         void copy(int slot, WeightedScreen from, int fromSlot) {
             unknown(slot);
+            figures.copy(slot, from.figures, fromSlot);
             int range = from.rangeOfCurve[fromSlot];
             if (range < 0) {
                 return; // not screened there either
@@ -1453,6 +1609,7 @@ public final class WeightedScreen {
         /** The slot's bins from the curve the exact judgement reads. */
         void add(int slot, Curve curve) {
             unknown(slot);
+            figures.add(slot, curve);
             double min = curve.minWavelengthNm();
             double max = curve.maxWavelengthNm();
             double regular = regular(curve) ? 1 : 0;
@@ -1548,7 +1705,7 @@ public final class WeightedScreen {
                 d[i] = darkest[i].length == size ? darkest[i] : Arrays.copyOf(darkest[i], size);
             }
             short[] r = rangeOfCurve.length == size ? rangeOfCurve : Arrays.copyOf(rangeOfCurve, size);
-            return new WeightedScreen(b, d, r, List.copyOf(ranges));
+            return new WeightedScreen(b, d, r, List.copyOf(ranges), figures.build(size));
         }
     }
 }

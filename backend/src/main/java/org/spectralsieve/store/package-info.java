@@ -8,5 +8,10 @@
  * below the detection limit, where the entry is that bound, the larger of value and limit, as the exact
  * judgement reads it; or beyond the code's range). The store is rebuilt from the database,
  * which stays the single source of truth; final answers are re-evaluated exactly on stored curves.
+ *
+ * <p>Beside the columns, per curve: the weighted screen's bins ({@link org.spectralsieve.store.WeightedScreen}) and
+ * the exact figures as measured of seven built-in weightings as 16-bit log codes ({@link
+ * org.spectralsieve.store.FigureCodes}), computed once from the curve the exact judgement reads; each code holds its
+ * figure within one step of 2·10⁻⁴ decades either side (docs/weighted-screening.md, "Figures in the store").
  */
 package org.spectralsieve.store;

@@ -70,6 +70,8 @@ import org.springframework.core.io.DefaultResourceLoader;
  * sample judged exactly. Its {@code same_rows} compares rows bit for bit, so it reads false where a solve's reported
  * thicknesses differ in their last bits (both finders' ends lie within {@code ThicknessSolver.TOLERANCE_MM} of the same
  * crossing; {@code RootFinderAgreementTest} checks that the rows agree within it).
+ * {@code on-no-figure-codes} the service before the ninth pass: the screen's bins alone, every contender formed first
+ * ({@code -Dbench.screenSkipNoFigureCodes=true} leaves it out).
  * {@code on-no-margin-reuse} the same service computing every margin a solve asks, as before the eighth pass
  * ({@link MarginReuse#use}; {@code -Dbench.screenMarginReuse=off} adds it; its rows must equal the default's or the
  * benchmark fails).
@@ -85,6 +87,11 @@ class WeightedScreenBenchmark {
     private static final String BISECTION = "on-bisection";
     /** The service computing every margin a solve asks, as before the eighth pass ({@code -Dbench.screenMarginReuse=off}). */
     private static final String NO_MARGIN_REUSE = "on-no-margin-reuse";
+    /**
+     * The service before the ninth pass: the screen's bins alone ({@code -Dsieve.store.figure-codes=false}, set around
+     * its searches only) and every contender formed first; {@code -Dbench.screenSkipNoFigureCodes=true} leaves it out.
+     */
+    private static final String NO_FIGURE_CODES = "on-no-figure-codes";
 
     static final String WEIGHTED = "passes over 85% of led 365 and uv hazard under 0.1% and luminous over 70%";
 
@@ -132,6 +139,9 @@ class WeightedScreenBenchmark {
             // every margin a solve asks computed anew, and the figure checks with their notes (MarginReuse)
             services.put(NO_MARGIN_REUSE, new SearchService(library));
         }
+        if (!Boolean.getBoolean("bench.screenSkipNoFigureCodes")) {
+            services.put(NO_FIGURE_CODES, new SearchService(library).withoutContenderReserve());
+        }
         if (!Boolean.getBoolean("bench.screenSkipNoSecondStage")) {
             // the judging loop without its second, exact-curve stage: the rule before it, side by side
             services.put("on-no-second-stage", new SearchService(library).withoutSecondStage());
@@ -159,8 +169,10 @@ class WeightedScreenBenchmark {
             services.put("off", SearchService.withoutWeightedScreen(library));
         }
         for (int i = 0; i < warmUps; i++) {
-            for (SearchService service : services.values()) {
-                variants.values().forEach(r -> service.search(r, limit)); // JIT, each service's store
+            for (Map.Entry<String, SearchService> service : services.entrySet()) {
+                figureCodes(!service.getKey().equals(NO_FIGURE_CODES));
+                variants.values().forEach(r -> service.getValue().search(r, limit)); // JIT, each service's store
+                figureCodes(true);
             }
             PerPointArithmetic.useEarlier(true);
             if (services.containsKey(EARLIER_ARITHMETIC)) {
@@ -198,6 +210,7 @@ class WeightedScreenBenchmark {
                     PerPointArithmetic.useEarlier(service.getKey().equals(EARLIER_ARITHMETIC));
                     CrossingFinder.useBisection(service.getKey().equals(BISECTION));
                     MarginReuse.use(!service.getKey().equals(NO_MARGIN_REUSE));
+                    figureCodes(!service.getKey().equals(NO_FIGURE_CODES));
                     Shortlist answer;
                     long cpuBefore = processCpuNanos();
                     long trialsBefore = CrossingFinder.steps();
@@ -207,6 +220,7 @@ class WeightedScreenBenchmark {
                         PerPointArithmetic.useEarlier(false);
                         CrossingFinder.useBisection(false);
                         MarginReuse.use(true);
+                        figureCodes(true);
                     }
                     long[] t = trials.computeIfAbsent(key, k -> new long[2]);
                     t[0] += CrossingFinder.steps() - trialsBefore;
@@ -242,6 +256,15 @@ class WeightedScreenBenchmark {
                             + " judged=%d runs=%d%n", name, variant, screen, (double) t[0] / Math.max(1, t[1]), t[1], runs);
                 }
             }
+        }
+    }
+
+    /** The store's figure codes read by the screen or not (read per query: docs/weighted-screening.md). */
+    private static void figureCodes(boolean on) {
+        if (on) {
+            System.clearProperty("sieve.store.figure-codes");
+        } else {
+            System.setProperty("sieve.store.figure-codes", "false");
         }
     }
 

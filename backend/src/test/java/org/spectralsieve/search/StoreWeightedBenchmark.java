@@ -68,6 +68,8 @@ class StoreWeightedBenchmark {
     private static final java.util.concurrent.atomic.AtomicLong REFINES = new java.util.concurrent.atomic.AtomicLong();
     /** Curves given a second bound (a material contender forms one per curve it refines). */
     private static final java.util.concurrent.atomic.AtomicLong CURVES_REFINED = new java.util.concurrent.atomic.AtomicLong();
+    /** Reserves of contenders the judging loop reached and formed (rule {@code codes}). */
+    private static final java.util.concurrent.atomic.AtomicLong RESERVES_FORMED = new java.util.concurrent.atomic.AtomicLong();
     /** Each synthetic curve's refractive index (the store keeps its own copy, not public): judged as stored. */
     private static final Map<SpectralStore, byte[]> INDEX_OF_CURVE = new java.util.IdentityHashMap<>();
 
@@ -133,7 +135,7 @@ class StoreWeightedBenchmark {
                         System.out.printf(Locale.ROOT, "BENCH store-weighted curves=%d mode=%s part=%s p50_ms=%.1f p95_ms=%.1f"
                                         + " proven=%d judged=%d runs=%d rule=%s judging=%s same_rows=%s%n", n, mode.getKey(), part, ms[runs / 2],
                                 ms[Math.min(runs - 1, (int) Math.ceil(runs * 0.95) - 1)], last[v].proven, last[v].judged,
-                                runs, rules[v], judged && List.of("current", "samples", "before", "settled", "bar").contains(rules[v])
+                                runs, rules[v], judged && List.of("current", "samples", "before", "settled", "bar", "codes").contains(rules[v])
                                         ? System.getProperty("bench.storeWeightedJudging", "bounded") : "earlier", sameRows[v]);
                     }
                 }
@@ -162,21 +164,38 @@ class StoreWeightedBenchmark {
             // the loop before this pass: materials whole, one second bound at a time
             System.setProperty("sieve.search.second-bounds-in-parallel", "false");
             try {
-                return searchBounded(store, requirement, limit, t0, false, false, false);
+                return searchBounded(store, requirement, limit, t0, false, false, false, false);
             } finally {
                 System.clearProperty("sieve.search.second-bounds-in-parallel");
             }
         }
+        if (judge && rule.equals("codes") && !"earlier".equals(System.getProperty("bench.storeWeightedJudging", "bounded"))) {
+            // the ninth pass: the store's figure codes and the contenders below the cut formed on demand
+            return searchBounded(store, requirement, limit, t0, true, true, true, true);
+        }
+        if (!rule.equals("codes")) {
+            // every rule before the ninth pass screens with the bins alone (WeightedScreen.figureCodesOn)
+            System.setProperty("sieve.store.figure-codes", "false");
+        }
+        try {
+            return searchBefore(store, requirement, limit, judge, rule, t0);
+        } finally {
+            System.clearProperty("sieve.store.figure-codes");
+        }
+    }
+
+    private static Outcome searchBefore(SpectralStore store, Requirement requirement, int limit, boolean judge,
+                                        String rule, long t0) {
         if (judge && (rule.equals("current") || rule.equals("samples") || rule.equals("settled") || rule.equals("bar"))
                 && !"earlier".equals(System.getProperty("bench.storeWeightedJudging", "bounded"))) {
             return searchBounded(store, requirement, limit, t0, !rule.equals("current"),
-                    rule.equals("settled") || rule.equals("bar"), rule.equals("bar"));
+                    rule.equals("settled") || rule.equals("bar"), rule.equals("bar"), false);
         }
         Map<Long, Double> proven = new HashMap<>();
         switch (rule) {
             case "earlier" -> WeightedMisses.addEarlier(proven, store, requirement, Optional.empty());
             case "reference" -> WeightedMisses.add(proven, store, requirement, Optional.empty(), false, true);
-            case "current", "samples", "before", "settled", "bar" -> WeightedMisses.add(proven, store, requirement, Optional.empty());
+            case "current", "samples", "before", "settled", "bar", "codes" -> WeightedMisses.add(proven, store, requirement, Optional.empty());
             default -> throw new IllegalArgumentException("rule " + rule);
         }
         long t1 = System.nanoTime();
@@ -243,7 +262,8 @@ class StoreWeightedBenchmark {
      * ({@code -Dbench.storeWeightedJudging=earlier}: the loop before, held proven misses judged while they could enter).
      */
     private static Outcome searchBounded(SpectralStore store, Requirement requirement, int limit, long t0,
-                                         boolean samplesAsContenders, boolean settledRows, boolean toTheBar) {
+                                         boolean samplesAsContenders, boolean settledRows, boolean toTheBar,
+                                         boolean reserve) {
         // the screen: each curve's bound of either sign; a negative one is a proven miss (WeightedMisses.add),
         // and the second stage of the same search (its queries), as SearchService.searchExactly forms them
         WeightedMisses.Screen screen = WeightedMisses.screen(store, requirement, Optional.empty(), false, true);
@@ -256,7 +276,42 @@ class StoreWeightedBenchmark {
         // a solved range judges a material's samples together (their rows share its feasible interval and advice)
         boolean bySample = samplesAsContenders && spec.kind() != ThicknessSpec.Kind.RANGE;
         List<BoundedJudgement.Contender> contenders = new ArrayList<>();
-        for (int first = 0; first < store.size(); first += 3) {
+        BoundedJudgement.Reserve later = null;
+        boolean lazy = reserve && bySample && spec.kind() == ThicknessSpec.Kind.AS_MEASURED;
+        if (lazy) {
+            // as SearchService: each material's largest sample bound; those below the cut wait in a reserve
+            int materials = (store.size() + 2) / 3;
+            double[] materialBound = new double[materials];
+            for (int m = 0; m < materials; m++) {
+                double bound = Double.NEGATIVE_INFINITY;
+                for (int c = 3 * m; c < Math.min(store.size(), 3 * m + 3); c++) {
+                    double margin = c < bounds.length && !Double.isNaN(bounds[c]) ? bounds[c] : Double.POSITIVE_INFINITY;
+                    provenCount += margin < 0 ? 1 : 0;
+                    bound = Math.max(bound, margin);
+                }
+                materialBound[m] = bound;
+            }
+            double cut = BoundedJudgement.kthLargest(materialBound, materials, SearchService.RESERVE_AFTER + 4 * limit);
+            List<Integer> rest = new ArrayList<>();
+            double restBound = Double.NEGATIVE_INFINITY;
+            for (int m = 0; m < materials; m++) {
+                if (materialBound[m] >= cut) {
+                    addSampleContenders(contenders, store, 3 * m, Math.min(store.size(), 3 * m + 3), bounds, spec);
+                } else {
+                    rest.add(m);
+                    restBound = Math.max(restBound, materialBound[m]);
+                }
+            }
+            if (!rest.isEmpty()) {
+                later = new BoundedJudgement.Reserve(restBound, () -> {
+                    RESERVES_FORMED.incrementAndGet();
+                    List<BoundedJudgement.Contender> formed = new ArrayList<>();
+                    rest.forEach(m -> addSampleContenders(formed, store, 3 * m, Math.min(store.size(), 3 * m + 3), bounds, spec));
+                    return formed;
+                });
+            }
+        }
+        for (int first = 0; first < (lazy ? 0 : store.size()); first += 3) {
             int end = Math.min(store.size(), first + 3);
             double bound = Double.NEGATIVE_INFINITY;
             boolean allMiss = true;
@@ -297,7 +352,7 @@ class StoreWeightedBenchmark {
         }
         long tc = System.nanoTime();
         java.util.concurrent.atomic.AtomicInteger judged = new java.util.concurrent.atomic.AtomicInteger();
-        List<MaterialEvaluation> exact = BoundedJudgement.judgeContenders(contenders, limit,
+        List<MaterialEvaluation> exact = BoundedJudgement.judgeContenders(contenders, later, limit,
                 new BoundedJudgement.Ranker(list -> Ranking.rank(list, limit), null),
                 contender -> {
                     int first = (int) ((contender.material().id() - 1) * 3);
@@ -308,7 +363,7 @@ class StoreWeightedBenchmark {
                     JUDGE_NS.addAndGet(System.nanoTime() - j0);
                     judged.addAndGet(rows.size());
                     return rows;
-                }, contenders.size() >= BoundedJudgement.PARALLEL_FROM,
+                }, contenders.size() + (later == null ? 0 : store.size()) >= BoundedJudgement.PARALLEL_FROM,
                 second == null ? null : (c, bar) -> {
                     long r0 = System.nanoTime();
                     // as the service: a second stage of its own for each second bound formed at the same time
@@ -336,6 +391,7 @@ class StoreWeightedBenchmark {
                 kinds.merge((store.isBulk(c) ? "bulk " : "fixed ") + e.evaluation().standing()
                         + (bounds[c] < 0 ? " proven" : ""), 1, Integer::sum);
             }
+            System.out.printf("DEBUG reserves_formed=%d%n", RESERVES_FORMED.getAndSet(0));
             System.out.printf("DEBUG contenders=%d refines=%d curves_refined=%d refine_ms=%.1f judge_ms=%.1f t_contenders_ms=%.1f%n",
                     contenders.size(), REFINES.getAndSet(0), CURVES_REFINED.getAndSet(0), REFINE_NS.getAndSet(0) / 1e6, JUDGE_NS.getAndSet(0) / 1e6, (tc - t1b) / 1e6);
             System.out.println("DEBUG last=" + lastRow.evaluation().standing() + " " + lastRow.evaluation().worstMarginDecades()
@@ -389,6 +445,18 @@ class StoreWeightedBenchmark {
         boolean made = spec.kind() == ThicknessSpec.Kind.AS_MEASURED || !store.isBulk(first);
         return new BoundedJudgement.Contender(c.material(), bound, everySample && allMiss && made, false, noneMeets,
                 spec.kind() == ThicknessSpec.Kind.AS_MEASURED ? unverifiedBound : Double.POSITIVE_INFINITY);
+    }
+
+    /** As the by-sample branch of the contender loop: each curve of the material a contender of its own (as measured). */
+    private static void addSampleContenders(List<BoundedJudgement.Contender> out, SpectralStore store, int first, int end,
+                                            double[] bounds, ThicknessSpec spec) {
+        StoredMaterial m = store.material(first);
+        boolean made = spec.kind() == ThicknessSpec.Kind.AS_MEASURED || !store.isBulk(first);
+        for (int c = first; c < end; c++) {
+            double margin = c < bounds.length && !Double.isNaN(bounds[c]) ? bounds[c] : Double.POSITIVE_INFINITY;
+            out.add(new BoundedJudgement.Contender(material(m, first), margin, margin < 0 && made,
+                    false, false, Double.POSITIVE_INFINITY, store.sampleId(c)));
+        }
     }
 
     private static double firstBound(double[] bounds, int k) {

@@ -25,9 +25,21 @@ import org.spectralsieve.store.WeightedScreen;
  * against the exact figures {@code store.WeightedScreenTest} checks, and the search's answers stay those of
  * the exact judgement ({@code WeightedScreenSearchPropertyTest}, {@code SearchEqualsExactJudgementPropertyTest}).
  * Synthetic curves of {@link StoreWeightedBenchmark#screenedStore} (thicknesses 0.5–10 mm, three indices);
- * random requirements in the trade's wordings (common practice, no source), fixed seeds.
+ * random requirements in the trade's wordings (common practice, no source), fixed seeds. The bins' arithmetic
+ * alone: the store's figure codes (a bound of their own, checked by {@code FigureCodesTest} and
+ * {@code FigureCodesSearchPropertyTest}) are switched off here.
  */
 class WeightedScreenArithmeticEquivalenceTest {
+
+    @org.junit.jupiter.api.BeforeEach
+    void binsAlone() {
+        System.setProperty("sieve.store.figure-codes", "false");
+    }
+
+    @org.junit.jupiter.api.AfterEach
+    void codesAgain() {
+        System.clearProperty("sieve.store.figure-codes");
+    }
 
     private static SpectralStore store;
 

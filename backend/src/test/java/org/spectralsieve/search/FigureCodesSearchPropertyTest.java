@@ -1,0 +1,193 @@
+package org.spectralsieve.search;
+
+import static org.assertj.core.api.Assertions.assertThat;
+
+import java.nio.charset.StandardCharsets;
+import java.util.List;
+import java.util.Locale;
+import java.util.Random;
+import java.util.function.Supplier;
+import org.jooq.DSLContext;
+import org.junit.jupiter.api.BeforeAll;
+import org.junit.jupiter.api.Test;
+import org.spectralsieve.ingest.Checksums;
+import org.spectralsieve.library.Geometry;
+import org.spectralsieve.library.JooqLibraryRepository;
+import org.spectralsieve.library.Material;
+import org.spectralsieve.library.MaterialClass;
+import org.spectralsieve.library.MigratedDatabase;
+import org.spectralsieve.library.NewMaterial;
+import org.spectralsieve.library.NewSample;
+import org.spectralsieve.library.Provenance;
+import org.spectralsieve.library.Scaling;
+import org.spectralsieve.library.StatedThicknesses;
+import org.spectralsieve.optics.ConstantIndex;
+import org.spectralsieve.requirement.RankedRow;
+import org.spectralsieve.requirement.Requirement;
+import org.spectralsieve.requirement.RequirementParser;
+import org.spectralsieve.requirement.Standing;
+import org.spectralsieve.seed.DemoLibraryLoader;
+import org.spectralsieve.spectrum.Curve;
+import org.springframework.core.io.DefaultResourceLoader;
+
+/**
+ * Property (docs/weighted-screening.md, "Figures in the store"): as measured, the search with the store's figure codes
+ * and the contenders below the cut formed on demand gives exactly the rows of judging every admitted sample
+ * ({@link ExactReference}), order included, in parallel and on one thread; the reserve changes no judgement (the
+ * same number of samples judged on one thread as with every contender formed first); and with the first bounds alone
+ * the codes judge fewer samples than the bins in many trials. The library: the demo library plus the invented Larkspur Lane film and
+ * sheet shop (illustrative): 160 materials of one to three samples whose curves start at 190–430 nm and end at
+ * 600–1100 nm (so figures are often unavailable or cut to the curve's span), with stretches below detection at limits
+ * up to 5 % (so the two ends of a figure differ), points at 0, readings up to 1.5 and some samples in total geometry.
+ * Random weighted requirements from the trade's wordings (common practice, no source), some on figures the store
+ * keeps no code for; a fixed seed (jqwik is not available offline).
+ */
+class FigureCodesSearchPropertyTest {
+
+    private static JooqLibraryRepository library;
+
+    @BeforeAll
+    static void demoLibraryAndRandomStock() {
+        DSLContext db = MigratedDatabase.freshH2();
+        library = new JooqLibraryRepository(db);
+        new DemoLibraryLoader(library, db, new DefaultResourceLoader(), "classpath:seed-materials/").load();
+        Random random = new Random(20261207L);
+        for (int m = 0; m < 160; m++) {
+            long material = library.insertMaterial(new NewMaterial("larkspur-" + m, "Larkspur Lane stock " + m,
+                    MaterialClass.of("plastic sheet"), "Illustrative random stock", List.of(),
+                    m % 4 == 3 ? Scaling.FIXED : Scaling.BULK, new ConstantIndex(1.45 + 0.15 * random.nextDouble()),
+                    new StatedThicknesses(List.of(), Double.NaN, Double.NaN)));
+            int samples = 1 + random.nextInt(3);
+            for (int k = 0; k < samples; k++) {
+                byte[] bytes = ("larkspur " + m + " " + k).getBytes(StandardCharsets.UTF_8);
+                library.insertSample(material, new NewSample(0.5 + 9.5 * random.nextDouble(),
+                        random.nextInt(8) == 0 ? Geometry.TOTAL : Geometry.REGULAR, Provenance.MODELLED, "", null, "",
+                        "", 1e-3, randomCurve(random), "larkspur.csv", Checksums.sha256(bytes)));
+            }
+        }
+    }
+
+    @Test
+    void asMeasuredTheCodesGiveTheRowsOfJudgingEverySampleAndJudgeFewer() {
+        Random random = new Random(20261208L);
+        List<Material> materials = library.findMaterials(null, null);
+        // a reserve after 4 materials per row asked (reserveAfter(0)): this small library's reserve is reached often
+        SearchService parallel = new SearchService(library).reserveAfter(0).parallelFrom(0);
+        SearchService oneThread = new SearchService(library).reserveAfter(0).judging(SearchService.Judging.BOUNDED);
+        // one material formed before the reserve: the loop reaches it in nearly every search
+        SearchService tinyCut = new SearchService(library).reserveCut(1).judging(SearchService.Judging.BOUNDED);
+        SearchService everyContender = new SearchService(library).withoutContenderReserve()
+                .judging(SearchService.Judging.BOUNDED);
+        SearchService binsOnly = new SearchService(library).judging(SearchService.Judging.BOUNDED);
+        // with the bins' looser bounds the reserve is reached against full rows more often
+        SearchService binsTinyCut = new SearchService(library).reserveCut(1).judging(SearchService.Judging.BOUNDED);
+        SearchService binsFormedFirst = new SearchService(library).withoutContenderReserve()
+                .judging(SearchService.Judging.BOUNDED);
+        // the first bounds alone (no second stage, which reads the exact figures on the curve either way): like with like
+        SearchService firstOnly = new SearchService(library).withoutSecondStage().judging(SearchService.Judging.BOUNDED);
+        long formedBefore = BoundedJudgement.RESERVES_FORMED.get();
+        long leftBefore = BoundedJudgement.RESERVES_LEFT.get();
+        int fewer = 0;
+        int more = 0;
+        int fullOfMet = 0;
+        for (int trial = 0; trial < 24; trial++) {
+            String text = randomRequirement(random);
+            Requirement requirement = RequirementParser.parse(text);
+            int limit = new int[] {1, 3, 5, 10, 20}[random.nextInt(5)];
+            List<RankedRow> expected = ExactReference.judgeEverySample(library, requirement, java.util.Optional.empty(),
+                    materials, limit);
+
+            assertThat(parallel.search(requirement, limit).rows()).as(text + " (limit " + limit + ")")
+                    .containsExactlyElementsOf(expected);
+            Shortlist alone = oneThread.search(requirement, limit);
+            assertThat(alone.rows()).as(text + " one thread").containsExactlyElementsOf(expected);
+            Shortlist formedFirst = everyContender.search(requirement, limit);
+            assertThat(formedFirst.rows()).as(text + " every contender formed first").containsExactlyElementsOf(expected);
+            assertThat(alone.judgedExactly()).as(text + ": the reserve changes no judgement")
+                    .isEqualTo(formedFirst.judgedExactly());
+            Shortlist tiny = tinyCut.search(requirement, limit);
+            assertThat(tiny.rows()).as(text + " one material before the reserve").containsExactlyElementsOf(expected);
+            assertThat(tiny.judgedExactly()).as(text + ": a reserve after one material changes no judgement")
+                    .isEqualTo(formedFirst.judgedExactly());
+            Shortlist bins = withoutFigureCodes(() -> binsOnly.search(requirement, limit));
+            assertThat(bins.rows()).as(text + " bins alone").containsExactlyElementsOf(expected);
+            Shortlist binsTiny = withoutFigureCodes(() -> binsTinyCut.search(requirement, limit));
+            assertThat(binsTiny.rows()).as(text + " bins, one material before the reserve").containsExactlyElementsOf(expected);
+            assertThat(binsTiny.judgedExactly()).as(text + ": bins, the reserve changes no judgement")
+                    .isEqualTo(withoutFigureCodes(() -> binsFormedFirst.search(requirement, limit)).judgedExactly());
+            Shortlist codesFirst = firstOnly.search(requirement, limit);
+            Shortlist binsFirst = withoutFigureCodes(() -> firstOnly.search(requirement, limit));
+            assertThat(codesFirst.rows()).as(text + " codes, first bounds alone").containsExactlyElementsOf(expected);
+            assertThat(binsFirst.rows()).as(text + " bins, first bounds alone").containsExactlyElementsOf(expected);
+            fewer += codesFirst.judgedExactly() < binsFirst.judgedExactly() ? 1 : 0;
+            more += codesFirst.judgedExactly() > binsFirst.judgedExactly() ? 1 : 0;
+            fullOfMet += expected.size() == limit && expected.get(limit - 1).evaluation().standing() == Standing.MEETS ? 1 : 0;
+        }
+        assertThat(fullOfMet).as("trials whose rows are full of met rows").isGreaterThan(4);
+        // not vacuous: the loop both reached a reserve and formed it, and kept one out whole
+        assertThat(BoundedJudgement.RESERVES_FORMED.get() - formedBefore).as("reserves formed").isGreaterThan(2);
+        assertThat(BoundedJudgement.RESERVES_LEFT.get() - leftBefore).as("reserves kept out").isGreaterThan(2);
+        assertThat(fewer).as("trials where the codes judge fewer than the bins").isGreaterThan(5);
+        assertThat(more).as("trials where they judge more").isLessThan(fewer);
+    }
+
+    /** The search with the screen reading its bins alone ({@code -Dsieve.store.figure-codes=false}, read per query). */
+    private static Shortlist withoutFigureCodes(Supplier<Shortlist> search) {
+        System.setProperty("sieve.store.figure-codes", "false");
+        try {
+            return search.get();
+        } finally {
+            System.clearProperty("sieve.store.figure-codes");
+        }
+    }
+
+    /** As measured: kept figures (LEDs, erythemal, UV hazard, τv) and, sometimes, one without a code. */
+    private static String randomRequirement(Random random) {
+        String clauses = "passes over " + percent(40 + 50 * random.nextDouble()) + " of led "
+                + new String[] {"365", "385", "395", "405"}[random.nextInt(4)];
+        if (random.nextInt(3) > 0) {
+            clauses += " and uv hazard under " + percent(Math.pow(10, 0.5 - 2.5 * random.nextDouble()));
+        }
+        if (random.nextBoolean()) {
+            clauses += " and luminous over " + percent(20 + 60 * random.nextDouble());
+        }
+        if (random.nextInt(4) == 0) {
+            clauses += " and erythemal under " + percent(Math.pow(10, 1 - 2 * random.nextDouble()));
+        }
+        if (random.nextInt(5) == 0) {
+            clauses += " and passes over " + percent(20 + 40 * random.nextDouble()) + " of led 395 weighted by blue-light";
+        }
+        return clauses + (random.nextInt(4) == 0 ? ", geometry any" : "");
+    }
+
+    private static String percent(double p) {
+        return String.format(Locale.ROOT, "%.2f%%", p);
+    }
+
+    /** An edge with ripple from a random start to a random end; stretches below detection, zeros, readings above 1. */
+    private static Curve randomCurve(Random random) {
+        double step = new double[] {0.5, 1, 2, 5}[random.nextInt(4)];
+        double start = 190 + random.nextInt(240);
+        double end = 600 + random.nextInt(500);
+        int n = (int) ((end - start) / step) + 1;
+        double edge = 250 + 250 * random.nextDouble();
+        double width = 2 + 30 * random.nextDouble();
+        double top = 0.5 + 0.6 * random.nextDouble();
+        double limit = new double[] {0, 1e-4, 1e-3, 0.05}[random.nextInt(4)];
+        double[] nm = new double[n];
+        double[] t = new double[n];
+        boolean[] below = new boolean[n];
+        double[] limits = new double[n];
+        for (int i = 0; i < n; i++) {
+            nm[i] = start + i * step;
+            double value = Math.min(1.5, top / (1 + Math.exp(-(nm[i] - edge) / width)) * (1 + 0.03 * Math.sin(nm[i] / 3)));
+            if (random.nextInt(300) == 0) {
+                value = 0;
+            }
+            below[i] = limit > 0 && value < limit;
+            t[i] = below[i] ? limit * random.nextDouble() : value;
+            limits[i] = below[i] ? limit : 0;
+        }
+        return Curve.of(nm, t, below, limits);
+    }
+}
