@@ -54,7 +54,10 @@ import org.spectralsieve.store.SyntheticCurves;
  * range), beside {@code current} (materials whole) and {@code before} (materials whole, one second bound at a time:
  * the loop before issue 14's sixth pass), {@code settled} is {@code samples} with the rows known to be "not judged"
  * from their thicknesses waiting last ({@link SettledRows}), {@code bar} is {@code settled} with a material's second
- * bounds formed only up to the bar it must reach ({@link BoundedJudgement.Refiner}). Each line's {@code same_rows} says whether that rule's
+ * bounds formed only up to the bar it must reach ({@link BoundedJudgement.Refiner}), {@code codes} is {@code bar}
+ * reading the store's figure codes with the contenders below the cut in a reserve, and {@code decoded} is {@code codes}
+ * with each curve decoded once per search (the second bound and the judgement share it) and a sample judged alone
+ * decoding only its own curve, as the service does (its snapshot's curve cache; {@code prepare(…, only)}). Each line's {@code same_rows} says whether that rule's
  * rows equalled the first rule's in every run. {@code -Dbench.storeWeightedModes=measured,solve} chooses the
  * requirements; {@code -Dbench.debug=true} prints, per whole search, the contenders, second bounds formed and the
  * time in them and in the exact judgement, and the last row.
@@ -135,7 +138,7 @@ class StoreWeightedBenchmark {
                         System.out.printf(Locale.ROOT, "BENCH store-weighted curves=%d mode=%s part=%s p50_ms=%.1f p95_ms=%.1f"
                                         + " proven=%d judged=%d runs=%d rule=%s judging=%s same_rows=%s%n", n, mode.getKey(), part, ms[runs / 2],
                                 ms[Math.min(runs - 1, (int) Math.ceil(runs * 0.95) - 1)], last[v].proven, last[v].judged,
-                                runs, rules[v], judged && List.of("current", "samples", "before", "settled", "bar", "codes").contains(rules[v])
+                                runs, rules[v], judged && List.of("current", "samples", "before", "settled", "bar", "codes", "decoded").contains(rules[v])
                                         ? System.getProperty("bench.storeWeightedJudging", "bounded") : "earlier", sameRows[v]);
                     }
                 }
@@ -164,16 +167,21 @@ class StoreWeightedBenchmark {
             // the loop before this pass: materials whole, one second bound at a time
             System.setProperty("sieve.search.second-bounds-in-parallel", "false");
             try {
-                return searchBounded(store, requirement, limit, t0, false, false, false, false);
+                return searchBounded(store, requirement, limit, t0, false, false, false, false, false);
             } finally {
                 System.clearProperty("sieve.search.second-bounds-in-parallel");
             }
         }
         if (judge && rule.equals("codes") && !"earlier".equals(System.getProperty("bench.storeWeightedJudging", "bounded"))) {
             // the ninth pass: the store's figure codes and the contenders below the cut formed on demand
-            return searchBounded(store, requirement, limit, t0, true, true, true, true);
+            return searchBounded(store, requirement, limit, t0, true, true, true, true, false);
         }
-        if (!rule.equals("codes")) {
+        if (judge && rule.equals("decoded") && !"earlier".equals(System.getProperty("bench.storeWeightedJudging", "bounded"))) {
+            // the tenth pass: rule codes with each curve decoded once per search, and a sample judged alone
+            // decoding only its own curve, as the service does (its snapshot's curve cache, prepare(…, only))
+            return searchBounded(store, requirement, limit, t0, true, true, true, true, true);
+        }
+        if (!rule.equals("codes") && !rule.equals("decoded")) {
             // every rule before the ninth pass screens with the bins alone (WeightedScreen.figureCodesOn)
             System.setProperty("sieve.store.figure-codes", "false");
         }
@@ -189,13 +197,13 @@ class StoreWeightedBenchmark {
         if (judge && (rule.equals("current") || rule.equals("samples") || rule.equals("settled") || rule.equals("bar"))
                 && !"earlier".equals(System.getProperty("bench.storeWeightedJudging", "bounded"))) {
             return searchBounded(store, requirement, limit, t0, !rule.equals("current"),
-                    rule.equals("settled") || rule.equals("bar"), rule.equals("bar"), false);
+                    rule.equals("settled") || rule.equals("bar"), rule.equals("bar"), false, false);
         }
         Map<Long, Double> proven = new HashMap<>();
         switch (rule) {
             case "earlier" -> WeightedMisses.addEarlier(proven, store, requirement, Optional.empty());
             case "reference" -> WeightedMisses.add(proven, store, requirement, Optional.empty(), false, true);
-            case "current", "samples", "before", "settled", "bar", "codes" -> WeightedMisses.add(proven, store, requirement, Optional.empty());
+            case "current", "samples", "before", "settled", "bar", "codes", "decoded" -> WeightedMisses.add(proven, store, requirement, Optional.empty());
             default -> throw new IllegalArgumentException("rule " + rule);
         }
         long t1 = System.nanoTime();
@@ -263,7 +271,11 @@ class StoreWeightedBenchmark {
      */
     private static Outcome searchBounded(SpectralStore store, Requirement requirement, int limit, long t0,
                                          boolean samplesAsContenders, boolean settledRows, boolean toTheBar,
-                                         boolean reserve) {
+                                         boolean reserve, boolean decodeOnce) {
+        // the curves this search decodes: once each, shared by the second bound and the judgement (the service's
+        // snapshot keeps a cache of the curves it judged), or decoded at each use as before the tenth pass
+        java.util.concurrent.ConcurrentHashMap<Integer, Curve> decoded = new java.util.concurrent.ConcurrentHashMap<>();
+        java.util.function.IntFunction<Curve> curves = decodeOnce ? c -> decoded.computeIfAbsent(c, store::curve) : store::curve;
         // the screen: each curve's bound of either sign; a negative one is a proven miss (WeightedMisses.add),
         // and the second stage of the same search (its queries), as SearchService.searchExactly forms them
         WeightedMisses.Screen screen = WeightedMisses.screen(store, requirement, Optional.empty(), false, true);
@@ -358,7 +370,8 @@ class StoreWeightedBenchmark {
                     int first = (int) ((contender.material().id() - 1) * 3);
                     long j0 = System.nanoTime();
                     List<MaterialEvaluation> rows = contender.oneSample()
-                            ? judgeOne(store, first, Math.min(store.size(), first + 3), requirement, contender.sampleId())
+                            ? judgeOne(store, first, Math.min(store.size(), first + 3), requirement, contender.sampleId(),
+                                    curves, decodeOnce)
                             : judge(store, first, Math.min(store.size(), first + 3), requirement);
                     JUDGE_NS.addAndGet(System.nanoTime() - j0);
                     judged.addAndGet(rows.size());
@@ -371,8 +384,8 @@ class StoreWeightedBenchmark {
                     stage = stage != null ? stage
                             : WeightedMisses.secondStage(store, requirement, Optional.empty(), false, true);
                     BoundedJudgement.Contender out = c.oneSample()
-                            ? refinedSample(store, c, bounds, stage, spec, toTheBar ? bar : Double.NEGATIVE_INFINITY)
-                            : refined(store, c, bounds, stage, spec, toTheBar ? bar : Double.NEGATIVE_INFINITY);
+                            ? refinedSample(store, c, bounds, stage, spec, toTheBar ? bar : Double.NEGATIVE_INFINITY, curves)
+                            : refined(store, c, bounds, stage, spec, toTheBar ? bar : Double.NEGATIVE_INFINITY, curves);
                     idle.add(stage);
                     REFINE_NS.addAndGet(System.nanoTime() - r0);
                     REFINES.incrementAndGet();
@@ -408,7 +421,8 @@ class StoreWeightedBenchmark {
      * bound.
      */
     private static BoundedJudgement.Contender refined(SpectralStore store, BoundedJudgement.Contender c, double[] bounds,
-                                                      WeightedMisses.SecondStage second, ThicknessSpec spec, double bar) {
+                                                      WeightedMisses.SecondStage second, ThicknessSpec spec, double bar,
+                                                      java.util.function.IntFunction<Curve> curves) {
         int first = (int) ((c.material().id() - 1) * 3);
         double bound = Double.NEGATIVE_INFINITY;
         double unverifiedBound = Double.NEGATIVE_INFINITY;
@@ -432,7 +446,7 @@ class StoreWeightedBenchmark {
             double b = firstBound(bounds, k);
             // as the service: the second stage only for a curve with a first bound (it only tightens one)
             boolean formed = b < Double.POSITIVE_INFINITY && (everySample || !reached && !(b < bar));
-            b = formed ? Math.min(b, second.bound(k, store.curve(k), bar)) : b;
+            b = formed ? Math.min(b, second.bound(k, curves.apply(k), bar)) : b;
             CURVES_REFINED.addAndGet(formed ? 1 : 0);
             allMiss &= b < 0;
             if (judgedHere[k - first]) {
@@ -466,13 +480,14 @@ class StoreWeightedBenchmark {
     /** As {@code SearchService.refinedSample}: one curve's bound lowered by the second stage on its decoded curve. */
     private static BoundedJudgement.Contender refinedSample(SpectralStore store, BoundedJudgement.Contender c,
                                                             double[] bounds, WeightedMisses.SecondStage second,
-                                                            ThicknessSpec spec, double bar) {
+                                                            ThicknessSpec spec, double bar,
+                                                            java.util.function.IntFunction<Curve> curves) {
         int k = (int) (c.sampleId() - 1);
         double b = k < bounds.length && !Double.isNaN(bounds[k]) ? bounds[k] : Double.POSITIVE_INFINITY;
         if (!(b < Double.POSITIVE_INFINITY)) {
             return c; // as the service: nothing to tighten
         }
-        b = Math.min(b, second.bound(k, store.curve(k), bar));
+        b = Math.min(b, second.bound(k, curves.apply(k), bar));
         CURVES_REFINED.incrementAndGet();
         boolean made = spec.kind() == ThicknessSpec.Kind.AS_MEASURED || !store.isBulk(k);
         return new BoundedJudgement.Contender(c.material(), b, b < 0 && made, false, second.cannotMeet() || b < 0,
@@ -480,10 +495,16 @@ class StoreWeightedBenchmark {
                 c.sampleId());
     }
 
-    /** One curve of a material judged alone ({@link MaterialJudge#evaluateOne}), the others there for the choice. */
+    /**
+     * One curve of a material judged alone ({@link MaterialJudge#evaluateOne}). {@code onlyItsCurve}: as the service's
+     * {@code prepare(…, only)}, the one sample a candidate (the made thicknesses still from all), its curve from
+     * {@code curves}; else (before the tenth pass) every curve of the material decoded, the others there for the choice.
+     */
     private static List<MaterialEvaluation> judgeOne(SpectralStore store, int from, int to, Requirement requirement,
-                                                     long sampleId) {
-        return MaterialJudge.evaluateOne(candidates(store, from, to), requirement, Optional.empty(), sampleId);
+                                                     long sampleId, java.util.function.IntFunction<Curve> curves,
+                                                     boolean onlyItsCurve) {
+        return MaterialJudge.evaluateOne(onlyItsCurve ? candidates(store, from, to, sampleId, curves)
+                : candidates(store, from, to), requirement, Optional.empty(), sampleId);
     }
 
     /** As {@code SearchService.settledOverRange}: every row of the material's curves [from, to) is not judged. */
@@ -544,6 +565,12 @@ class StoreWeightedBenchmark {
     }
 
     private static List<Candidate> candidates(SpectralStore store, int from, int to) {
+        return candidates(store, from, to, BoundedJudgement.WHOLE_MATERIAL, store::curve);
+    }
+
+    /** The material's curves [from, to) as candidates, or only sample {@code only}'s (made thicknesses from all). */
+    private static List<Candidate> candidates(SpectralStore store, int from, int to, long only,
+                                              java.util.function.IntFunction<Curve> curves) {
         byte[] index = INDEX_OF_CURVE.get(store);
         List<Candidate> candidates = new ArrayList<>();
         List<Double> measured = new ArrayList<>();
@@ -552,8 +579,11 @@ class StoreWeightedBenchmark {
         }
         MadeThicknesses made = MadeThicknesses.of(List.of(), Double.NaN, Double.NaN, measured);
         for (int c = from; c < to; c++) {
+            if (only != BoundedJudgement.WHOLE_MATERIAL && store.sampleId(c) != only) {
+                continue;
+            }
             StoredMaterial m = store.material(c);
-            candidates.add(new Candidate(store.sampleId(c), m.id(), m.name(), store.curve(c), store.thicknessMm(c),
+            candidates.add(new Candidate(store.sampleId(c), m.id(), m.name(), curves.apply(c), store.thicknessMm(c),
                     store.isBulk(c), SyntheticCurves.INDICES[index[c]], made));
         }
         return candidates;
