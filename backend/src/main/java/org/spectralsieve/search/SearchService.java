@@ -753,24 +753,29 @@ public class SearchService {
             // judged several times over before the loop could reach the reserve
             double cut = BoundedJudgement.kthLargest(deferredBound, deferred.size(),
                     reserveCut > 0 ? reserveCut : reserveAfter + 4 * limit);
-            List<Integer> later = new ArrayList<>();
+            // the deferred materials below the cut by index, in a plain array: at a million curves a third of a
+            // million of them, one boxed number each before
+            int[] later = new int[deferred.size()];
             double reserveBound = Double.NEGATIVE_INFINITY;
             for (int i = 0; i < deferred.size(); i++) {
                 if (deferredBound[i] >= cut || Double.isNaN(deferredBound[i])) {
                     addSampleContenders(contenders, s, deferred.get(i), requirement, null, null, provenMiss, marginBound,
                             deferredRegular.get(i));
                 } else {
-                    later.add(i);
+                    later[inReserve++] = i;
                     reserveBound = Math.max(reserveBound, deferredBound[i]);
                 }
             }
-            inReserve = later.size();
-            if (!later.isEmpty()) {
+            if (inReserve > 0) {
                 double reserveAt = reserveBound;
+                int waiting = inReserve;
                 reserve = new BoundedJudgement.Reserve(reserveAt, () -> {
                     List<BoundedJudgement.Contender> formed = new ArrayList<>();
-                    later.forEach(i -> addSampleContenders(formed, s, deferred.get(i), requirement, null, null,
-                            provenMiss, marginBound, deferredRegular.get(i)));
+                    for (int k = 0; k < waiting; k++) {
+                        int i = later[k];
+                        addSampleContenders(formed, s, deferred.get(i), requirement, null, null,
+                                provenMiss, marginBound, deferredRegular.get(i));
+                    }
                     return formed;
                 });
             }

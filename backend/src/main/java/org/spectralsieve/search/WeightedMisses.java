@@ -195,6 +195,15 @@ final class WeightedMisses {
     record Screen(double[] bounds, SecondStage secondStage) {
     }
 
+    /**
+     * Whether the screen's pass over the figure codes reads the bins of a block's unknown lower end in the same pass
+     * (the tenth pass of issue 14), or in a pass of their own after it, block by block ({@code
+     * -Dsieve.store.bins-in-the-code-pass=false}, read per search: benchmarks and tests). The same numbers either way.
+     */
+    static boolean binsInTheCodePass() {
+        return !"false".equals(System.getProperty("sieve.store.bins-in-the-code-pass"));
+    }
+
     /** Curves from which the screen runs on more than one thread. */
     private static final int PARALLEL_FROM = 65_536;
     /** At most this many parts (the service's machines have two cores; more parts only queue). */
@@ -310,6 +319,9 @@ final class WeightedMisses {
                     skipTotal[i] = seeThrough.get(i);
                     anySkip |= skipTotal[i];
                 }
+                // the blocks whose bins are read where their codes leave L unknown (in clause order, as a pass each)
+                int[] withBins = IntStream.range(0, q.length).filter(i -> q[i].readsBinsForUnknownLowerEnds()).toArray();
+                boolean binsInThePass = binsInTheCodePass();
                 // one pass over the curves, every clause's code read in it (the same numbers as clause by clause)
                 for (int c = from; c < to; c++) {
                     boolean total = anySkip && store.isTotalGeometry(c);
@@ -322,10 +334,15 @@ final class WeightedMisses {
                             }
                         }
                     }
+                    // the bins of an unknown lower end while the curve's columns are still in the cache: clause after
+                    // clause on this curve, as the passes below do curve after curve (the same numbers)
+                    for (int k = 0; binsInThePass && k < withBins.length; k++) {
+                        bound = q[withBins[k]].binsForUnknownLowerEnd(c, bound, skipTotal[withBins[k]]);
+                    }
                     out[c] = bound;
                 }
-                for (int i = 0; i < queries.size(); i++) {
-                    queries.get(i).binsForUnknownLowerEnds(out, from, to, seeThrough.get(i));
+                for (int k = 0; !binsInThePass && k < withBins.length; k++) {
+                    q[withBins[k]].binsForUnknownLowerEnds(out, from, to, skipTotal[withBins[k]]);
                 }
                 return;
             }

@@ -405,17 +405,33 @@ public final class WeightedScreen {
                 return;
             }
             for (int c = from; c < to; c++) {
+                out[c] = binsForUnknownLowerEnd(c, out[c], skipTotal);
+            }
+        }
+
+        /** Whether {@link #binsForUnknownLowerEnd} can read bins at all: a block whose figure codes are read. */
+        public boolean readsBinsForUnknownLowerEnds() {
+            return figure >= 0 && !pass;
+        }
+
+        /**
+         * {@link #binsForUnknownLowerEnds} for one curve whose bound so far is {@code bound}: the bound after it, so the
+         * screen's pass over the curves can apply it in the same pass, clause after clause (the same numbers).
+         */
+        public double binsForUnknownLowerEnd(int c, double bound, boolean skipTotal) {
+            // only a block that cannot meet but may miss reads its bins: where it can meet, its bound is the met
+            // case's, at least 0, which the bins' part (at most 0) cannot lower
+            if (bound >= 0) {
                 int code = figures.code(figure, c);
-                // only a block that cannot meet but may miss reads its bins: where it can meet, its bound is the met
-                // case's, at least 0, which the bins' part (at most 0) cannot lower
-                if (out[c] >= 0 && code != FigureCodes.NONE && code < canMeetFrom && code < canMissBelow
+                if (code != FigureCodes.NONE && code < canMeetFrom && code < canMissBelow
                         && !figures.endsEqual(figure, c) && !(skipTotal && store.isTotalGeometry(c))) {
                     double b = fromFigureCode(c, true);
-                    if (b < out[c]) {
-                        out[c] = b;
+                    if (b < bound) {
+                        return b;
                     }
                 }
             }
+            return bound;
         }
 
         /** The first code in 1…{@link FigureCodes#BELOW} for which a property that holds from some code on holds (BELOW + 1: none). */

@@ -57,7 +57,10 @@ import org.spectralsieve.store.SyntheticCurves;
  * bounds formed only up to the bar it must reach ({@link BoundedJudgement.Refiner}), {@code codes} is {@code bar}
  * reading the store's figure codes with the contenders below the cut in a reserve, and {@code decoded} is {@code codes}
  * with each curve decoded once per search (the second bound and the judgement share it) and a sample judged alone
- * decoding only its own curve, as the service does (its snapshot's curve cache; {@code prepare(…, only)}). Each line's {@code same_rows} says whether that rule's
+ * decoding only its own curve, as the service does (its snapshot's curve cache; {@code prepare(…, only)}); {@code codes}
+ * and {@code decoded} read the bins of a block's unknown lower end in a pass of their own
+ * ({@code -Dsieve.store.bins-in-the-code-pass=false} around their searches), {@code tenth} is {@code decoded} with them
+ * read in the screen's pass over the codes. Each line's {@code same_rows} says whether that rule's
  * rows equalled the first rule's in every run. {@code -Dbench.storeWeightedModes=measured,solve} chooses the
  * requirements; {@code -Dbench.debug=true} prints, per whole search, the contenders, second bounds formed and the
  * time in them and in the exact judgement, and the last row.
@@ -138,7 +141,7 @@ class StoreWeightedBenchmark {
                         System.out.printf(Locale.ROOT, "BENCH store-weighted curves=%d mode=%s part=%s p50_ms=%.1f p95_ms=%.1f"
                                         + " proven=%d judged=%d runs=%d rule=%s judging=%s same_rows=%s%n", n, mode.getKey(), part, ms[runs / 2],
                                 ms[Math.min(runs - 1, (int) Math.ceil(runs * 0.95) - 1)], last[v].proven, last[v].judged,
-                                runs, rules[v], judged && List.of("current", "samples", "before", "settled", "bar", "codes", "decoded").contains(rules[v])
+                                runs, rules[v], judged && List.of("current", "samples", "before", "settled", "bar", "codes", "decoded", "tenth").contains(rules[v])
                                         ? System.getProperty("bench.storeWeightedJudging", "bounded") : "earlier", sameRows[v]);
                     }
                 }
@@ -174,14 +177,28 @@ class StoreWeightedBenchmark {
         }
         if (judge && rule.equals("codes") && !"earlier".equals(System.getProperty("bench.storeWeightedJudging", "bounded"))) {
             // the ninth pass: the store's figure codes and the contenders below the cut formed on demand
-            return searchBounded(store, requirement, limit, t0, true, true, true, true, false);
+            System.setProperty("sieve.store.bins-in-the-code-pass", "false");
+            try {
+                return searchBounded(store, requirement, limit, t0, true, true, true, true, false);
+            } finally {
+                System.clearProperty("sieve.store.bins-in-the-code-pass");
+            }
         }
         if (judge && rule.equals("decoded") && !"earlier".equals(System.getProperty("bench.storeWeightedJudging", "bounded"))) {
             // the tenth pass: rule codes with each curve decoded once per search, and a sample judged alone
             // decoding only its own curve, as the service does (its snapshot's curve cache, prepare(…, only))
+            System.setProperty("sieve.store.bins-in-the-code-pass", "false");
+            try {
+                return searchBounded(store, requirement, limit, t0, true, true, true, true, true);
+            } finally {
+                System.clearProperty("sieve.store.bins-in-the-code-pass");
+            }
+        }
+        if (judge && rule.equals("tenth") && !"earlier".equals(System.getProperty("bench.storeWeightedJudging", "bounded"))) {
+            // rule decoded with the bins of a block's unknown lower end read in the screen's pass over the codes
             return searchBounded(store, requirement, limit, t0, true, true, true, true, true);
         }
-        if (!rule.equals("codes") && !rule.equals("decoded")) {
+        if (!rule.equals("codes") && !rule.equals("decoded") && !rule.equals("tenth")) {
             // every rule before the ninth pass screens with the bins alone (WeightedScreen.figureCodesOn)
             System.setProperty("sieve.store.figure-codes", "false");
         }
@@ -203,7 +220,7 @@ class StoreWeightedBenchmark {
         switch (rule) {
             case "earlier" -> WeightedMisses.addEarlier(proven, store, requirement, Optional.empty());
             case "reference" -> WeightedMisses.add(proven, store, requirement, Optional.empty(), false, true);
-            case "current", "samples", "before", "settled", "bar", "codes", "decoded" -> WeightedMisses.add(proven, store, requirement, Optional.empty());
+            case "current", "samples", "before", "settled", "bar", "codes", "decoded", "tenth" -> WeightedMisses.add(proven, store, requirement, Optional.empty());
             default -> throw new IllegalArgumentException("rule " + rule);
         }
         long t1 = System.nanoTime();
@@ -304,21 +321,27 @@ class StoreWeightedBenchmark {
                 materialBound[m] = bound;
             }
             double cut = BoundedJudgement.kthLargest(materialBound, materials, SearchService.RESERVE_AFTER + 4 * limit);
-            List<Integer> rest = new ArrayList<>();
+            // as SearchService: the materials below the cut by index in a plain array (not one boxed number each)
+            int[] rest = new int[materials];
+            int restCount = 0;
             double restBound = Double.NEGATIVE_INFINITY;
             for (int m = 0; m < materials; m++) {
                 if (materialBound[m] >= cut) {
                     addSampleContenders(contenders, store, 3 * m, Math.min(store.size(), 3 * m + 3), bounds, spec);
                 } else {
-                    rest.add(m);
+                    rest[restCount++] = m;
                     restBound = Math.max(restBound, materialBound[m]);
                 }
             }
-            if (!rest.isEmpty()) {
+            int inRest = restCount;
+            if (inRest > 0) {
                 later = new BoundedJudgement.Reserve(restBound, () -> {
                     RESERVES_FORMED.incrementAndGet();
                     List<BoundedJudgement.Contender> formed = new ArrayList<>();
-                    rest.forEach(m -> addSampleContenders(formed, store, 3 * m, Math.min(store.size(), 3 * m + 3), bounds, spec));
+                    for (int i = 0; i < inRest; i++) {
+                        int m = rest[i];
+                        addSampleContenders(formed, store, 3 * m, Math.min(store.size(), 3 * m + 3), bounds, spec);
+                    }
                     return formed;
                 });
             }
