@@ -196,13 +196,17 @@ final class WeightedMisses {
     }
 
     /**
-     * Whether the screen's pass over the figure codes reads the bins of a block's unknown lower end in the same pass
-     * (the tenth pass of issue 14), or in a pass of their own after it, block by block ({@code
+     * Whether the screen's pass over the figure codes goes in blocks of curves, clause after clause, with the bins of a
+     * block's unknown lower end in the same block (the tenth pass of issue 14), or curve after curve with those bins in
+     * a pass of their own after it, block by block (the ninth pass: {@code
      * -Dsieve.store.bins-in-the-code-pass=false}, read per search: benchmarks and tests). The same numbers either way.
      */
     static boolean binsInTheCodePass() {
         return !"false".equals(System.getProperty("sieve.store.bins-in-the-code-pass"));
     }
+
+    /** Curves the screen's code pass forms at a time, clause after clause (their bounds, codes and bins stay in the cache). */
+    private static final int CURVES_PER_BLOCK = 2048;
 
     /** Curves from which the screen runs on more than one thread. */
     private static final int PARALLEL_FROM = 65_536;
@@ -321,8 +325,24 @@ final class WeightedMisses {
                 }
                 // the blocks whose bins are read where their codes leave L unknown (in clause order, as a pass each)
                 int[] withBins = IntStream.range(0, q.length).filter(i -> q[i].readsBinsForUnknownLowerEnds()).toArray();
-                boolean binsInThePass = binsInTheCodePass();
-                // one pass over the curves, every clause's code read in it (the same numbers as clause by clause)
+                if (binsInTheCodePass()) {
+                    // in blocks of curves, clause after clause (each clause's loop a tight one over its own column, its
+                    // fields read once), the bins of an unknown lower end in the same block while its bounds are in the
+                    // cache: per curve the same operations in the same order as the pass below, so the same numbers
+                    for (int start = from; start < to; start += CURVES_PER_BLOCK) {
+                        int end = Math.min(to, start + CURVES_PER_BLOCK);
+                        java.util.Arrays.fill(out, start, end, Double.POSITIVE_INFINITY);
+                        for (int i = 0; i < q.length; i++) {
+                            q[i].lowerToCodeBounds(out, start, end, skipTotal[i]);
+                        }
+                        for (int i : withBins) {
+                            q[i].binsForUnknownLowerEnds(out, start, end, skipTotal[i]);
+                        }
+                    }
+                    return;
+                }
+                // the ninth pass's way: one pass over the curves, every clause's code read in it, then the bins of an
+                // unknown lower end in a pass of their own, block by block
                 for (int c = from; c < to; c++) {
                     boolean total = anySkip && store.isTotalGeometry(c);
                     double bound = Double.POSITIVE_INFINITY;
@@ -334,15 +354,10 @@ final class WeightedMisses {
                             }
                         }
                     }
-                    // the bins of an unknown lower end while the curve's columns are still in the cache: clause after
-                    // clause on this curve, as the passes below do curve after curve (the same numbers)
-                    for (int k = 0; binsInThePass && k < withBins.length; k++) {
-                        bound = q[withBins[k]].binsForUnknownLowerEnd(c, bound, skipTotal[withBins[k]]);
-                    }
                     out[c] = bound;
                 }
-                for (int k = 0; !binsInThePass && k < withBins.length; k++) {
-                    q[withBins[k]].binsForUnknownLowerEnds(out, from, to, skipTotal[withBins[k]]);
+                for (int i : withBins) {
+                    q[i].binsForUnknownLowerEnds(out, from, to, skipTotal[i]);
                 }
                 return;
             }

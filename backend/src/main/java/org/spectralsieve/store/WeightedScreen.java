@@ -409,6 +409,22 @@ public final class WeightedScreen {
             }
         }
 
+        /**
+         * Each curve's bound in {@code out[from, to)} lowered to this clause's {@link #asMeasuredWithoutBinsForL} where that
+         * is smaller (skipped on curves in total geometry when {@code skipTotal}): one clause over a block of curves, in a
+         * loop of its own so its fields and column are read once per block.
+         */
+        public void lowerToCodeBounds(double[] out, int from, int to, boolean skipTotal) {
+            for (int c = from; c < to; c++) {
+                if (!(skipTotal && store.isTotalGeometry(c))) {
+                    double b = asMeasuredWithoutBinsForL(c);
+                    if (b < out[c]) {
+                        out[c] = b;
+                    }
+                }
+            }
+        }
+
         /** Whether {@link #binsForUnknownLowerEnd} can read bins at all: a block whose figure codes are read. */
         public boolean readsBinsForUnknownLowerEnds() {
             return figure >= 0 && !pass;

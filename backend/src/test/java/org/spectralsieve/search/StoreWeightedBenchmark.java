@@ -58,9 +58,9 @@ import org.spectralsieve.store.SyntheticCurves;
  * reading the store's figure codes with the contenders below the cut in a reserve, and {@code decoded} is {@code codes}
  * with each curve decoded once per search (the second bound and the judgement share it) and a sample judged alone
  * decoding only its own curve, as the service does (its snapshot's curve cache; {@code prepare(…, only)}); {@code codes}
- * and {@code decoded} read the bins of a block's unknown lower end in a pass of their own
- * ({@code -Dsieve.store.bins-in-the-code-pass=false} around their searches), {@code tenth} is {@code decoded} with them
- * read in the screen's pass over the codes. Each line's {@code same_rows} says whether that rule's
+ * and {@code decoded} (and every earlier rule) screen as the ninth pass did ({@code -Dsieve.store.bins-in-the-code-pass=false}
+ * around their searches), {@code tenth} is {@code decoded} with the tenth pass's screen (the code pass in blocks of
+ * curves, clause after clause, with the bins of an unknown lower end in the same block). Each line's {@code same_rows} says whether that rule's
  * rows equalled the first rule's in every run. {@code -Dbench.storeWeightedModes=measured,solve} chooses the
  * requirements; {@code -Dbench.debug=true} prints, per whole search, the contenders, second bounds formed and the
  * time in them and in the exact judgement, and the last row.
@@ -177,21 +177,21 @@ class StoreWeightedBenchmark {
         }
         if (judge && rule.equals("codes") && !"earlier".equals(System.getProperty("bench.storeWeightedJudging", "bounded"))) {
             // the ninth pass: the store's figure codes and the contenders below the cut formed on demand
-            System.setProperty("sieve.store.bins-in-the-code-pass", "false");
+            ninthPassScreen(true);
             try {
                 return searchBounded(store, requirement, limit, t0, true, true, true, true, false);
             } finally {
-                System.clearProperty("sieve.store.bins-in-the-code-pass");
+                ninthPassScreen(false);
             }
         }
         if (judge && rule.equals("decoded") && !"earlier".equals(System.getProperty("bench.storeWeightedJudging", "bounded"))) {
             // the tenth pass: rule codes with each curve decoded once per search, and a sample judged alone
             // decoding only its own curve, as the service does (its snapshot's curve cache, prepare(…, only))
-            System.setProperty("sieve.store.bins-in-the-code-pass", "false");
+            ninthPassScreen(true);
             try {
                 return searchBounded(store, requirement, limit, t0, true, true, true, true, true);
             } finally {
-                System.clearProperty("sieve.store.bins-in-the-code-pass");
+                ninthPassScreen(false);
             }
         }
         if (judge && rule.equals("tenth") && !"earlier".equals(System.getProperty("bench.storeWeightedJudging", "bounded"))) {
@@ -202,10 +202,26 @@ class StoreWeightedBenchmark {
             // every rule before the ninth pass screens with the bins alone (WeightedScreen.figureCodesOn)
             System.setProperty("sieve.store.figure-codes", "false");
         }
+        ninthPassScreen(true);
         try {
             return searchBefore(store, requirement, limit, judge, rule, t0);
         } finally {
             System.clearProperty("sieve.store.figure-codes");
+            ninthPassScreen(false);
+        }
+    }
+
+    /**
+     * The screen as before the tenth pass (on) or the default (off): the code pass curve by curve with the bins of an
+     * unknown lower end in a pass of their own.
+     */
+    private static void ninthPassScreen(boolean on) {
+        for (String p : List.of("sieve.store.bins-in-the-code-pass")) {
+            if (on) {
+                System.setProperty(p, "false");
+            } else {
+                System.clearProperty(p);
+            }
         }
     }
 
