@@ -306,9 +306,12 @@ class StoreWeightedBenchmark {
                                          boolean samplesAsContenders, boolean settledRows, boolean toTheBar,
                                          boolean reserve, boolean decodeOnce) {
         // the curves this search decodes: once each, shared by the second bound and the judgement (the service's
-        // snapshot keeps a cache of the curves it judged), or decoded at each use as before the tenth pass
+        // snapshot keeps a cache of the curves it judged), or decoded at each use as before the tenth pass. Only as
+        // measured: a solve refines tens of thousands of curves, more than the service's bounded cache would keep
+        // (here unbounded, ~23 KB a decoded curve), and judges whole materials
         java.util.concurrent.ConcurrentHashMap<Integer, Curve> decoded = new java.util.concurrent.ConcurrentHashMap<>();
-        java.util.function.IntFunction<Curve> curves = decodeOnce ? c -> decoded.computeIfAbsent(c, store::curve) : store::curve;
+        java.util.function.IntFunction<Curve> curves = decodeOnce && requirement.thickness().kind() == ThicknessSpec.Kind.AS_MEASURED
+                ? c -> decoded.computeIfAbsent(c, store::curve) : store::curve;
         // the screen: each curve's bound of either sign; a negative one is a proven miss (WeightedMisses.add),
         // and the second stage of the same search (its queries), as SearchService.searchExactly forms them
         WeightedMisses.Screen screen = WeightedMisses.screen(store, requirement, Optional.empty(), false, true);
