@@ -26,7 +26,7 @@ import org.spectralsieve.library.SampleInfo;
  * now is not returned by {@link JooqLibraryRepository#findMaterialsInUse} and so drops out; a restored or new
  * one comes back in. A changed material whose every change named one sample keeps the previous record with only
  * those samples read again ({@link #withSamples}). Every other material is the very record the previous snapshot
- * read, which {@code SearchService.build} relies on to carry it as a whole.
+ * read, which {@link SnapshotReader#read} relies on to carry it as a whole.
  *
  * <p>Both ways give the same order (name, then id, compared in Java), so a partial rebuild lays the store's
  * rows out exactly as a whole one does.

@@ -31,7 +31,6 @@ import org.spectralsieve.library.SampleRescaling;
 import org.spectralsieve.library.Scaling;
 import org.spectralsieve.library.StatedThicknesses;
 import org.spectralsieve.library.UnusableRecordException;
-import org.spectralsieve.optics.ConstantIndex;
 import org.spectralsieve.optics.PhysicalRanges;
 import org.spectralsieve.requirement.Aggregate;
 import org.spectralsieve.requirement.Candidate;
@@ -49,7 +48,6 @@ import org.spectralsieve.requirement.SampleEvaluator;
 import org.spectralsieve.requirement.SampleJudge;
 import org.spectralsieve.requirement.SeeThrough;
 import org.spectralsieve.requirement.StackLayer;
-import org.spectralsieve.requirement.Standing;
 import org.spectralsieve.requirement.ThicknessSpec;
 import org.spectralsieve.requirement.TransmittanceClause;
 import org.spectralsieve.spectrum.Curve;
@@ -60,7 +58,6 @@ import org.spectralsieve.store.SpectralStore;
 import org.spectralsieve.store.StoreHit;
 import org.spectralsieve.store.StoreResult;
 import org.spectralsieve.store.StoreSearch;
-import org.spectralsieve.store.StoredMaterial;
 
 /**
  * Answers requirements: the in-memory store picks the materials that can be in the shortlist, then the samples
@@ -379,28 +376,6 @@ public class SearchService {
         this.curveCacheBytes = curveCacheBytes;
     }
 
-    /**
-     * The store and the library it was built from, replaced whole so a search never sees half an update.
-     *
-     * @param generation    the library's change counter read before any table was: the snapshot holds at
-     *                      least every change committed up to that number (perhaps some later ones too)
-     * @param invalidations {@link #invalidations} read at the same moment
-     * @param curves        the decoded curves the store was built from, as many as the budget holds
-     * @param ordered       the materials in the order of the store's rows ({@link MaterialsRead#ORDER})
-     * @param unusable      the samples whose stored record fails today's checks ({@link SampleRescaling#unusable}):
-     *                      the store holds them at a storable thickness with an assumed index, so no screen's
-     *                      proof on them holds for the exact judgement (see {@link #searchExactly})
-     * @param made          each material's made thicknesses ({@link #made}) as formed from these very objects
-     */
-    private record Snapshot(SpectralStore store, Map<Long, Material> materials, Map<Long, SampleInfo> samples,
-                            long generation, long invalidations, CurveCache curves, List<Material> ordered,
-                            Set<Long> unusable, Map<Long, MadeThicknesses> made) {
-
-        /** Read no earlier than {@code other}: both counters only grow, so a later read has both at least as large. */
-        boolean notOlderThan(Snapshot other) {
-            return generation >= other.generation && invalidations >= other.invalidations;
-        }
-    }
 
     public Shortlist search(Requirement requirement, int limit) {
         long started = System.nanoTime();
@@ -1403,13 +1378,18 @@ public class SearchService {
         }
     }
 
+    /** Reads snapshots with this service's cache budget and rebuild rule (a copy made by a {@code with…} call keeps its own). */
+    private SnapshotReader reader() {
+        return new SnapshotReader(library, curveCacheBytes, rebuildWhatChanged);
+    }
+
     /** Under {@link #building}: the installed snapshot if it holds {@code generation}, else a new one built and installed. */
     private Snapshot rebuildUnlessFresh(long generation) {
         Snapshot s = snapshot.get();
         if (fresh(s, generation)) {
             return s; // built by another search while this one waited
         }
-        Snapshot built = build(s);
+        Snapshot built = reader().read(s, invalidations.get());
         beforeInstall.accept(built.generation());
         install(built);
         // answer from what was just read even if a write landed meanwhile: it holds every change up to
@@ -1435,99 +1415,5 @@ public class SearchService {
                 return;
             }
         }
-    }
-
-    /** The nearest thickness inside the physical range, for a stored one outside it (never rescaled). */
-    private static double storableThickness(double mm) {
-        return mm > PhysicalRanges.MIN_THICKNESS_MM ? Math.min(mm, PhysicalRanges.MAX_THICKNESS_MM) : PhysicalRanges.MIN_THICKNESS_MM;
-    }
-
-    /**
-     * Adds a material the rebuild did not read again as the previous build formed it from the same objects: its rows
-     * (copied), its unusable samples and its cached curves (taken under one lock hold), in the order of its samples.
-     */
-    private static void carryWhole(Material m, StoredMaterial stored, Snapshot previous, SpectralStore.Builder builder,
-                                   StoreRowSource curves, CurveCache cache, Set<Long> unusable) {
-        curves.carryMaterial(builder, stored);
-        List<Long> ids = new ArrayList<>(m.samples().size());
-        for (SampleInfo sample : m.samples()) {
-            ids.add(sample.id());
-            if (previous.unusable().contains(sample.id())) {
-                unusable.add(sample.id());
-            }
-        }
-        cache.offerKept(previous.curves(), ids);
-    }
-
-    /**
-     * Reads the library into a new snapshot. The counters are read first, before any table: a write that
-     * commits after that read is either missing from the tables read (and the number says so: the next
-     * search rebuilds) or already in them (a rebuild too many, never a change missed).
-     */
-    private Snapshot build(Snapshot previous) {
-        long invalidated = invalidations.get();
-        long generation = library.generation();
-        // only the materials the change log names are read again, and an unchanged sample's row is carried
-        // over from the previous store (MaterialsRead and StoreRowSource say why that is sound); an
-        // invalidate() names no material, so after one everything is read again
-        Optional<List<Material>> partial = previous != null && previous.invalidations() == invalidated
-                ? MaterialsRead.after(library, previous.ordered(), previous.generation(), generation, rebuildWhatChanged)
-                : Optional.empty();
-        if (partial.isPresent() && partial.get() == previous.ordered()) {
-            // no material changed (an imported emitter or response, say): the same store holds at the new number
-            return new Snapshot(previous.store(), previous.materials(), previous.samples(), generation, invalidated,
-                    previous.curves(), previous.ordered(), previous.unusable(), previous.made());
-        }
-        List<Material> materials = partial.orElseGet(() -> MaterialsRead.everything(library));
-        StoreRowSource curves = partial.isPresent()
-                ? StoreRowSource.carryingOver(library, previous.store(), previous.samples())
-                : StoreRowSource.everything(library);
-        int samples = materials.stream().mapToInt(m -> m.samples().size()).sum();
-        SpectralStore.Builder builder = SpectralStore.builder(SpectralStore.DEFAULT_GRID, samples);
-        Map<Long, Material> byId = new HashMap<>();
-        Map<Long, SampleInfo> sampleById = new HashMap<>();
-        Map<Long, MadeThicknesses> madeById = new HashMap<>();
-        Set<Long> unusable = new HashSet<>();
-        // a partial rebuild takes the previous snapshot's decoded curves as they are (not hashed again)
-        CurveCache cache = partial.isPresent() ? previous.curves().successor() : new CurveCache(curveCacheBytes);
-        for (Material m : materials) {
-            byId.put(m.id(), m);
-            m.samples().forEach(sample -> sampleById.put(sample.id(), sample));
-            // a material not read again is the previous snapshot's very record (MaterialsRead), and so is each of its
-            // samples: its made thicknesses, rows, unusable samples and cached curves are what the previous build
-            // formed from the same objects, so they are carried as a whole rather than formed sample by sample
-            boolean unchanged = rebuildWhatChanged && partial.isPresent() && previous.materials().get(m.id()) == m;
-            MadeThicknesses made = unchanged ? previous.made().get(m.id()) : made(m);
-            madeById.put(m.id(), made);
-            StoredMaterial stored = new StoredMaterial(m.id(), m.name(), m.materialClass().label(), made);
-            if (unchanged) {
-                carryWhole(m, stored, previous, builder, curves, cache, unusable);
-                continue;
-            }
-            for (SampleInfo sample : m.samples()) {
-                // the store rescales exactly what the exact evaluator rescales: never a diffuse or scattering
-                // sample, nor one whose stored thickness or index fails today's checks (SampleRescaling.unusable):
-                // such a sample enters at a thickness and index the store can hold, never rescaled, and its
-                // exact row is unverified with the reason
-                boolean usable = SampleRescaling.unusable(m, sample).isEmpty();
-                if (!usable) {
-                    unusable.add(sample.id());
-                }
-                // no readable curve: left out (logged), judged only by the exact evaluator, which says why
-                Curve decoded = curves.add(builder, sample, stored,
-                        usable ? sample.thicknessMm() : storableThickness(sample.thicknessMm()),
-                        SampleRescaling.of(m, sample).rescalable(), sample.geometry() == Geometry.TOTAL,
-                        usable ? m.refractiveIndex() : ConstantIndex.WHEN_UNRECORDED);
-                // the exact judgement's copy: the curve just decoded, or the previous snapshot's (a stored curve
-                // row is never changed, only a sample's record: the same id keeps the same curve)
-                if (decoded != null) {
-                    cache.offer(sample.id(), decoded);
-                } else if (partial.isPresent()) {
-                    cache.offerKept(previous.curves(), sample.id());
-                }
-            }
-        }
-        return new Snapshot(builder.build(), Map.copyOf(byId), Map.copyOf(sampleById), generation, invalidated, cache,
-                materials, Set.copyOf(unusable), Map.copyOf(madeById));
     }
 }
