@@ -7,6 +7,7 @@ import java.nio.charset.CodingErrorAction;
 import java.nio.charset.StandardCharsets;
 import java.util.ArrayList;
 import java.util.Arrays;
+import java.util.HashMap;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
@@ -312,7 +313,7 @@ public final class FileImport {
     /** Why each block other than {@code skip} cannot be a transmittance curve, by block number; readable ones are absent. */
     private Map<Integer, String> problems(String fileName, byte[] bytes, String text, List<JcampBlock> blocks, JcampBlock skip,
                                           ImportOptions o) {
-        Map<Integer, String> problems = new java.util.HashMap<>();
+        Map<Integer, String> problems = new HashMap<>();
         if (blocks.size() < 2 && skip != null) {
             return problems;
         }

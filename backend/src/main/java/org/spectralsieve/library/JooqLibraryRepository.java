@@ -7,11 +7,14 @@ import static org.spectralsieve.library.db.Tables.SOURCE_FILE;
 
 import java.util.ArrayList;
 import java.util.Arrays;
+import java.util.Collection;
+import java.util.HashMap;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
 import java.util.Optional;
+import java.util.Set;
 import org.slf4j.Logger;
 import org.slf4j.LoggerFactory;
 import org.jooq.Condition;
@@ -176,7 +179,7 @@ public class JooqLibraryRepository {
      * The materials the changes after generation {@code after} up to {@code upTo} concerned, or empty when
      * the change log cannot account for all of them ({@link LibraryChanges#materialsChanged}).
      */
-    public Optional<java.util.Set<Long>> materialsChanged(long after, long upTo) {
+    public Optional<Set<Long>> materialsChanged(long after, long upTo) {
         return LibraryChanges.materialsChanged(db, after, upTo);
     }
 
@@ -190,8 +193,8 @@ public class JooqLibraryRepository {
     }
 
     /** The samples of these ids, retired or not, by id (as {@link #findSample} reads each); an unknown id is left out. */
-    public Map<Long, SampleInfo> findSamples(java.util.Collection<Long> ids) {
-        Map<Long, SampleInfo> out = new java.util.HashMap<>();
+    public Map<Long, SampleInfo> findSamples(Collection<Long> ids) {
+        Map<Long, SampleInfo> out = new HashMap<>();
         if (!ids.isEmpty()) {
             db.selectFrom(SAMPLE).where(SAMPLE.ID.in(ids)).fetch().forEach(s -> out.put(s.getId(), toSample(s)));
         }
@@ -199,7 +202,7 @@ public class JooqLibraryRepository {
     }
 
     /** Those of the materials that are in use, with their samples in use; a retired or unknown id is left out. */
-    public List<Material> findMaterialsInUse(java.util.Collection<Long> ids) {
+    public List<Material> findMaterialsInUse(Collection<Long> ids) {
         if (ids.isEmpty()) {
             return List.of();
         }

@@ -4,7 +4,9 @@ import java.util.ArrayList;
 import java.util.Comparator;
 import java.util.List;
 import java.util.PriorityQueue;
+import java.util.concurrent.atomic.AtomicLong;
 import java.util.function.Function;
+import java.util.function.Supplier;
 import java.util.function.UnaryOperator;
 import java.util.stream.IntStream;
 import org.spectralsieve.library.Material;
@@ -173,6 +175,10 @@ final class BoundedJudgement {
         return judgeContenders(contenders, null, limit, ranker, judge, parallel, refine);
     }
 
+    /** Reserves formed, and reserves the rows kept out whole, since the start (tests and benchmarks read them). */
+    static final AtomicLong RESERVES_FORMED = new AtomicLong();
+    static final AtomicLong RESERVES_LEFT = new AtomicLong();
+
     /**
      * Contenders not yet formed (docs/weighted-screening.md, "Figures in the store"): every one of them has a bound
      * at most {@code bound} (a number, not NaN) and is not {@link Contender#settledNotJudged}; {@code form} makes
@@ -180,11 +186,7 @@ final class BoundedJudgement {
      * {@code bound} (or none is left), so they enter the line before any contender they would have followed; and
      * never when full rows ending in a met row with a larger margin keep every one of them out.
      */
-    /** Reserves formed, and reserves the rows kept out whole, since the start (tests and benchmarks read them). */
-    static final java.util.concurrent.atomic.AtomicLong RESERVES_FORMED = new java.util.concurrent.atomic.AtomicLong();
-    static final java.util.concurrent.atomic.AtomicLong RESERVES_LEFT = new java.util.concurrent.atomic.AtomicLong();
-
-    record Reserve(double bound, java.util.function.Supplier<List<Contender>> form) {
+    record Reserve(double bound, Supplier<List<Contender>> form) {
 
         Reserve {
             if (Double.isNaN(bound)) {

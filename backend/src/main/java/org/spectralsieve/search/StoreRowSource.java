@@ -3,6 +3,7 @@ package org.spectralsieve.search;
 import java.util.HashMap;
 import java.util.Map;
 import java.util.Optional;
+import java.util.Set;
 import org.slf4j.Logger;
 import org.slf4j.LoggerFactory;
 import org.spectralsieve.library.JooqLibraryRepository;
@@ -79,7 +80,7 @@ final class StoreRowSource {
      */
     static StoreRowSource after(JooqLibraryRepository library, SpectralStore previous,
                                 Map<Long, SampleInfo> previousSamples, long previousGeneration, long generation) {
-        Optional<java.util.Set<Long>> changed = library.materialsChanged(previousGeneration, generation);
+        Optional<Set<Long>> changed = library.materialsChanged(previousGeneration, generation);
         if (changed.isEmpty()) {
             LOG.info("search store read whole: the change log does not account for every change from generation {} to {}",
                     previousGeneration, generation);

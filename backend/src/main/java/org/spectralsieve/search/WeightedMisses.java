@@ -1,6 +1,7 @@
 package org.spectralsieve.search;
 
 import java.util.ArrayList;
+import java.util.Arrays;
 import java.util.List;
 import java.util.Map;
 import java.util.Optional;
@@ -331,7 +332,7 @@ final class WeightedMisses {
                     // cache: per curve the same operations in the same order as the pass below, so the same numbers
                     for (int start = from; start < to; start += CURVES_PER_BLOCK) {
                         int end = Math.min(to, start + CURVES_PER_BLOCK);
-                        java.util.Arrays.fill(out, start, end, Double.POSITIVE_INFINITY);
+                        Arrays.fill(out, start, end, Double.POSITIVE_INFINITY);
                         for (int i = 0; i < q.length; i++) {
                             q[i].lowerToCodeBounds(out, start, end, skipTotal[i]);
                         }

@@ -6,6 +6,7 @@ import java.util.HashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Optional;
+import java.util.function.IntPredicate;
 import org.spectralsieve.optics.Fresnel;
 import org.spectralsieve.optics.RefractiveIndex;
 import org.spectralsieve.optics.SlabReading;
@@ -451,7 +452,7 @@ public final class WeightedScreen {
         }
 
         /** The first code in 1…{@link FigureCodes#BELOW} for which a property that holds from some code on holds (BELOW + 1: none). */
-        private static int firstCode(java.util.function.IntPredicate holds) {
+        private static int firstCode(IntPredicate holds) {
             int lo = 1;
             int hi = FigureCodes.BELOW + 1;
             while (lo < hi) {
