@@ -3,7 +3,12 @@ package org.spectralsieve.search;
 import static org.assertj.core.api.Assertions.assertThat;
 
 import java.nio.charset.StandardCharsets;
+import java.util.ArrayList;
 import java.util.List;
+import java.util.Map;
+import java.util.Objects;
+import java.util.Optional;
+import java.util.TreeMap;
 import java.util.Locale;
 import java.util.Random;
 import java.util.function.Supplier;
@@ -23,11 +28,15 @@ import org.spectralsieve.library.Scaling;
 import org.spectralsieve.library.StatedThicknesses;
 import org.spectralsieve.optics.ConstantIndex;
 import org.spectralsieve.requirement.RankedRow;
+import org.spectralsieve.requirement.Weighting;
 import org.spectralsieve.requirement.Requirement;
 import org.spectralsieve.requirement.RequirementParser;
 import org.spectralsieve.requirement.Standing;
 import org.spectralsieve.seed.DemoLibraryLoader;
 import org.spectralsieve.spectrum.Curve;
+import org.spectralsieve.weighting.BelowDetectionAs;
+import org.spectralsieve.weighting.EmitterCatalogue;
+import org.spectralsieve.weighting.Figure;
 import org.springframework.core.io.DefaultResourceLoader;
 
 /**
@@ -129,6 +138,69 @@ class FigureCodesSearchPropertyTest {
         assertThat(BoundedJudgement.RESERVES_LEFT.get() - leftBefore).as("reserves kept out").isGreaterThan(2);
         assertThat(fewer).as("trials where the codes judge fewer than the bins").isGreaterThan(5);
         assertThat(more).as("trials where they judge more").isLessThan(fewer);
+    }
+
+    /**
+     * Property: thresholds a hair from a stored curve's own figure (2·10⁻⁵ relative, under 10⁻⁵ decades: a tenth of one
+     * code step) still give the rows of judging every sample. The threshold sits just under or just over one
+     * material's largest figure for a built-in LED, so that material's row meets or misses by that hair, and a bound
+     * on the code that is tighter than the code's proven step (one whole step either side) wrongly proves it missed.
+     * Without the second stage too, which would read the exact figure on the curve and so hide a first bound's error.
+     */
+    @Test
+    void thresholdsAHairFromAStoredFigureGiveTheRowsOfJudgingEverySample() {
+        Random random = new Random(20261209L);
+        List<Material> materials = library.findMaterials(null, null);
+        Map<Long, Curve> curves = new TreeMap<>(library.findAllCurves());
+        SearchService bounded = new SearchService(library).judging(SearchService.Judging.BOUNDED);
+        SearchService firstBoundsAlone = new SearchService(library).withoutSecondStage()
+                .judging(SearchService.Judging.BOUNDED);
+        int byAHair = 0;
+        for (int trial = 0; trial < 16; trial++) {
+            String led = new String[] {"365", "385", "395", "405"}[random.nextInt(4)];
+            Weighting weighting = Weighting.of(EmitterCatalogue.named("led-" + led).orElseThrow(), Optional.empty());
+            // each material's largest figure (the one its row reads when that sample is admitted), one of them picked
+            List<Double> ownBest = new ArrayList<>();
+            for (Material m : materials) {
+                m.samples().stream()
+                        .map(sample -> curves.get(sample.id()))
+                        .filter(Objects::nonNull)
+                        .map(c -> weighting.figureForMargin(c, BelowDetectionAs.LIMIT))
+                        .filter(Figure::available)
+                        .mapToDouble(f -> f.value().getAsDouble())
+                        .max()
+                        .ifPresent(f -> {
+                            if (f > 0.01 && f < 0.99) {
+                                ownBest.add(f);
+                            }
+                        });
+            }
+            double best = ownBest.get(random.nextInt(ownBest.size()));
+            boolean meets = random.nextBoolean();
+            double threshold = best * (meets ? 1 - 2e-5 : 1 + 2e-5);
+            String text = String.format(Locale.ROOT, "passes over %.9f%% of led %s", 100 * threshold, led)
+                    + (random.nextBoolean() ? ", geometry any" : "");
+            Requirement requirement = RequirementParser.parse(text);
+            // the shortlist ends at the picked material's row (or one after it): there a wrong proof of a miss would
+            // drop it, where a longer list would judge every row anyway
+            List<RankedRow> all = ExactReference.judgeEverySample(library, requirement, Optional.empty(), materials,
+                    SearchService.MAX_LIMIT);
+            int hair = 0;
+            while (hair < all.size() - 1 && !(Math.abs(all.get(hair).evaluation().worstMarginDecades()) < 1e-4)) {
+                hair++;
+            }
+            int limit = hair + 1 + random.nextInt(2);
+            List<RankedRow> expected = ExactReference.judgeEverySample(library, requirement, Optional.empty(),
+                    materials, limit);
+
+            assertThat(bounded.search(requirement, limit).rows()).as(text + " (limit " + limit + ")")
+                    .containsExactlyElementsOf(expected);
+            assertThat(firstBoundsAlone.search(requirement, limit).rows()).as(text + ", first bounds alone")
+                    .containsExactlyElementsOf(expected);
+            byAHair += expected.stream().anyMatch(r -> Math.abs(r.evaluation().worstMarginDecades()) < 1e-4) ? 1 : 0;
+        }
+        // not vacuous: the picked material's row met or missed by under a code step in most trials
+        assertThat(byAHair).as("trials whose rows hold a margin under 1e-4 decades").isGreaterThan(8);
     }
 
     /**
