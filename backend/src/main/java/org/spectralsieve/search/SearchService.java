@@ -19,6 +19,7 @@ import java.util.concurrent.atomic.AtomicLong;
 import java.util.concurrent.atomic.AtomicReference;
 import java.util.concurrent.locks.ReentrantLock;
 import java.util.function.LongConsumer;
+import java.util.function.LongFunction;
 import java.util.function.Predicate;
 import org.slf4j.Logger;
 import org.slf4j.LoggerFactory;
@@ -98,7 +99,10 @@ public class SearchService {
      */
     public static final long DEFAULT_CURVE_CACHE_BYTES = 128L << 20;
 
+    /** Null only for a service over a fixed snapshot ({@link #over}). */
     private final JooqLibraryRepository library;
+    /** Where a curve the snapshot's cache does not hold is read from: the database, or a fixed snapshot's source. */
+    private final LongFunction<Optional<Curve>> readCurve;
     private final AtomicReference<Snapshot> snapshot = new AtomicReference<>();
     /** Raised by {@link #invalidate()}: a snapshot read before the last call is stale whatever its generation. */
     private final AtomicLong invalidations = new AtomicLong();
@@ -176,6 +180,12 @@ public class SearchService {
     private int reserveAfter = RESERVE_AFTER;
     /** A material's second bounds formed only up to the bar it must reach ({@link #refined}); off: every sample's. */
     private boolean secondBoundsToTheBar = !"false".equals(System.getProperty("sieve.search.second-bounds-to-the-bar"));
+    /**
+     * Whether {@link #searchExactly} keeps each sample's first bounds, store row and judged flag in arrays indexed by
+     * the store's row, formed once per search ({@link RowBounds}); {@code -Dsieve.search.row-arrays=false} keeps them
+     * in maps keyed by sample id, the way before, only so a benchmark can time both ways (the same answers).
+     */
+    private boolean rowArrays = !"false".equals(System.getProperty("sieve.search.row-arrays"));
     /** How requirements the store cannot rank are judged ({@link #searchExactly}); other ways for benchmarks and tests. */
     private Judging judging = Judging.BOUNDED_PARALLEL;
 
@@ -324,6 +334,12 @@ public class SearchService {
         return this;
     }
 
+    /** The same service with its per-search bounds in row arrays (true) or in maps keyed by sample id (benchmarks, tests). */
+    SearchService withRowArrays(boolean on) {
+        this.rowArrays = on;
+        return this;
+    }
+
     /** The same service with a reserve after this many materials beyond four per row (tests: a small library's reserve). */
     SearchService reserveAfter(int materials) {
         this.reserveAfter = materials;
@@ -374,6 +390,24 @@ public class SearchService {
         this.library = library;
         this.beforeInstall = beforeInstall;
         this.curveCacheBytes = curveCacheBytes;
+        this.readCurve = library::findCurve;
+    }
+
+    private SearchService(Snapshot fixed, LongFunction<Optional<Curve>> readCurve) {
+        this.library = null;
+        this.beforeInstall = generation -> { };
+        this.curveCacheBytes = 0;
+        this.readCurve = Objects.requireNonNull(readCurve, "readCurve");
+        this.snapshot.set(Objects.requireNonNull(fixed, "fixed"));
+    }
+
+    /**
+     * A service answering from one snapshot formed without a database ({@link SnapshotReader#ofRecords}), reading a
+     * curve its cache does not hold from {@code readCurve}: for the benchmark at a million curves, which no database
+     * is filled with in a benchmark's time. Only searches: it never rebuilds (there is no change counter to read).
+     */
+    static SearchService over(Snapshot fixed, LongFunction<Optional<Curve>> readCurve) {
+        return new SearchService(fixed, readCurve);
     }
 
 
@@ -575,7 +609,7 @@ public class SearchService {
         if (cached != null) {
             return Optional.of(cached);
         }
-        Optional<Curve> read = library.findCurve(sampleId);
+        Optional<Curve> read = readCurve.apply(sampleId);
         read.ifPresent(c -> s.curves().put(sampleId, c));
         return read;
     }
@@ -620,46 +654,18 @@ public class SearchService {
         }
         Optional<StackLayer> layer = requirement.layer().map(l -> resolveLayer(l, s));
         boolean diffuseLayer = layer.map(l -> s.samples().get(l.sampleId()).geometry() == Geometry.TOTAL).orElse(false);
-        Map<Long, Double> provenMiss = provenMisses(s, requirement, layer);
-        if (screenLayerBlocks) {
-            layer.ifPresent(l -> addLayerBlockMisses(provenMiss, s.store(), requirement, l));
-        }
-        // an upper bound on each sample's margin of either sign, for rows that meet (WeightedMisses#marginBounds)
-        Map<Long, Double> marginBound = new HashMap<>();
-        // the store row of each sample with a bound, for the second stage (only those: it only tightens a bound)
-        Map<Long, Integer> rowOf = new HashMap<>();
-        WeightedMisses.SecondStage formedSecond = null;
-        if (screenWeighted && earlierWeightedScreen) {
-            WeightedMisses.addEarlier(provenMiss, s.store(), requirement, layer, diffuseLayer);
-        } else if (screenWeighted) {
-            WeightedMisses.Screen screen = WeightedMisses.screen(s.store(), requirement, layer, diffuseLayer, weightedLayerBlocks);
-            formedSecond = screen.secondStage();
-            double[] bounds = screen.bounds();
-            for (int curve = 0; curve < bounds.length; curve++) {
-                if (bounds[curve] < 0) {
-                    provenMiss.merge(s.store().sampleId(curve), bounds[curve], Math::min);
-                }
-                if (bounds[curve] < Double.POSITIVE_INFINITY) {
-                    marginBound.merge(s.store().sampleId(curve), bounds[curve], Math::min);
-                    rowOf.put(s.store().sampleId(curve), curve);
-                }
-            }
-        }
-        // a sample whose stored record fails today's checks is held in the store at a thickness and index it can
-        // hold, not its own, so no screen's bound speaks for its exact row (UnusableRecordIsNeverHiddenTest)
-        s.unusable().forEach(id -> {
-            provenMiss.remove(id);
-            marginBound.remove(id);
-            rowOf.remove(id);
-        });
+        WeightedMisses.SecondStage[] formedSecondOut = new WeightedMisses.SecondStage[1];
+        FirstBounds firstBounds = rowArrays ? boundsByRow(s, requirement, layer, diffuseLayer, formedSecondOut)
+                : boundsBySampleId(s, requirement, layer, diffuseLayer, formedSecondOut);
+        WeightedMisses.SecondStage formedSecond = formedSecondOut[0];
         boolean grouped = diffuseLast(requirement);
         ThicknessSpec spec = requirement.thickness();
         // at an asked thickness a material's samples are judged only where each is the nearest measurement: its
         // bound is the largest over those alone, so the candidates are made first (and kept for the judgement)
-        boolean onlyJudgedSamples = spec.kind() != ThicknessSpec.Kind.AS_MEASURED && !marginBound.isEmpty();
+        boolean onlyJudgedSamples = spec.kind() != ThicknessSpec.Kind.AS_MEASURED && firstBounds.anyMargin();
         // a sample is a contender of its own where its row is formed alone and the material's row is the best of
         // its samples' rows: ranking by material keeps that best, so a sample that cannot enter is never it
-        boolean bySample = samplesAsContenders && !marginBound.isEmpty() && spec.kind() != ThicknessSpec.Kind.RANGE;
+        boolean bySample = samplesAsContenders && firstBounds.anyMargin() && spec.kind() != ThicknessSpec.Kind.RANGE;
         Map<Long, Prepared> prepared = new HashMap<>();
         Map<Long, Set<Long>> judgedOf = new HashMap<>();
         List<BoundedJudgement.Contender> contenders = new ArrayList<>();
@@ -670,13 +676,23 @@ public class SearchService {
         List<Material> deferred = new ArrayList<>();
         List<Boolean> deferredRegular = new ArrayList<>();
         double[] deferredBound = deferrable ? new double[s.materials().size()] : null;
+        // each deferred material's first slot in the snapshot's index (by row only: the maps read no rows)
+        int[] deferredSlot = deferrable ? new int[s.materials().size()] : null;
         int admitted = 0;
-        for (Material material : s.materials().values().stream().sorted(Comparator.comparingLong(Material::id))
-                .filter(within).toList()) {
+        // by row: the snapshot's materials in id order, sorted once per snapshot; by sample id: sorted per search, as before
+        List<Material> inIdOrder = rowArrays ? s.index().materialsById()
+                : s.materials().values().stream().sorted(Comparator.comparingLong(Material::id)).toList();
+        for (int mi = 0; mi < inIdOrder.size(); mi++) {
+            Material material = inIdOrder.get(mi);
+            if (!within.test(material)) {
+                continue;
+            }
+            int firstSlot = firstBounds.readsRows() ? s.index().firstSlot(mi) : -1;
             Set<Long> judgedSamples = null;
             // over a range, a material whose every row is "not judged" from its thicknesses alone waits last and is
             // left out once better rows fill the limit (SettledRows); no curve of it is read unless it is judged
-            boolean settled = settledRows && settledOverRange(material, requirement);
+            boolean settled = settledRows && (rowArrays ? settledOverRange(material, requirement, madeOf(s, material))
+                    : settledOverRange(material, requirement));
             if (onlyJudgedSamples && !settled) {
                 Prepared p = prepare(s, material, requirement, diffuseLayer);
                 prepared.put(material.id(), p);
@@ -687,18 +703,18 @@ public class SearchService {
             boolean allMiss = true;
             boolean regular = false;
             int count = 0;
-            for (SampleInfo sample : material.samples()) {
+            List<SampleInfo> samples = material.samples();
+            for (int k = 0; k < samples.size(); k++) {
+                SampleInfo sample = samples.get(k);
                 if (admits(requirement, material, sample)) {
                     count++;
-                    Double miss = provenMiss.get(sample.id());
-                    allMiss &= miss != null;
+                    int row = firstSlot < 0 ? -1 : s.index().row(firstSlot + k);
+                    allMiss &= !Double.isNaN(firstBounds.miss(sample.id(), row));
                     regular |= grouped && sample.geometry() == Geometry.REGULAR;
                     if (judgedSamples == null || judgedSamples.contains(sample.id())) {
                         // a sample not judged gives no row (or one that says why it could not be judged, which
                         // never meets); for the others both bounds hold the same exact margin, the smaller too
-                        Double margin = marginBound.get(sample.id());
-                        bound = Math.max(bound, Math.min(miss == null ? Double.POSITIVE_INFINITY : miss,
-                                margin == null || Double.isNaN(margin) ? Double.POSITIVE_INFINITY : margin));
+                        bound = Math.max(bound, firstBounds.bound(sample.id(), row));
                     }
                 }
             }
@@ -708,17 +724,18 @@ public class SearchService {
             // (as the material did): it is left out only once they are full, and then no diffuse row is shown at all
             if (count > 0 && deferrable && !(bound == Double.POSITIVE_INFINITY)) {
                 deferredBound[deferred.size()] = bound; // at least each of its samples' contender bounds
+                deferredSlot[deferred.size()] = firstSlot;
                 deferred.add(material);
                 deferredRegular.add(regular);
             } else if (count > 0 && bySample && (judgedSamples == null || !judgedSamples.isEmpty())) {
                 addSampleContenders(contenders, s, material, requirement, judgedSamples, prepared.get(material.id()),
-                        provenMiss, marginBound, regular);
+                        firstBounds, firstSlot, regular);
             } else if (count > 0 && settled) {
                 contenders.add(new BoundedJudgement.Contender(material, Double.NEGATIVE_INFINITY, false, regular, true,
                         Double.NEGATIVE_INFINITY, BoundedJudgement.WHOLE_MATERIAL, true));
             } else if (count > 0) {
                 contenders.add(new BoundedJudgement.Contender(material, bound,
-                        allMiss && madeFor(spec, material), regular));
+                        allMiss && madeFor(s, spec, material), regular));
             }
         }
         BoundedJudgement.Reserve reserve = null;
@@ -734,8 +751,8 @@ public class SearchService {
             double reserveBound = Double.NEGATIVE_INFINITY;
             for (int i = 0; i < deferred.size(); i++) {
                 if (deferredBound[i] >= cut || Double.isNaN(deferredBound[i])) {
-                    addSampleContenders(contenders, s, deferred.get(i), requirement, null, null, provenMiss, marginBound,
-                            deferredRegular.get(i));
+                    addSampleContenders(contenders, s, deferred.get(i), requirement, null, null, firstBounds,
+                            deferredSlot[i], deferredRegular.get(i));
                 } else {
                     later[inReserve++] = i;
                     reserveBound = Math.max(reserveBound, deferredBound[i]);
@@ -749,7 +766,7 @@ public class SearchService {
                     for (int k = 0; k < waiting; k++) {
                         int i = later[k];
                         addSampleContenders(formed, s, deferred.get(i), requirement, null, null,
-                                provenMiss, marginBound, deferredRegular.get(i));
+                                firstBounds, deferredSlot[i], deferredRegular.get(i));
                     }
                     return formed;
                 });
@@ -764,15 +781,15 @@ public class SearchService {
         if (formed != null) {
             idle.add(formed);
         }
-        BoundedJudgement.Refiner refine = secondStage && formed != null && !rowOf.isEmpty()
+        BoundedJudgement.Refiner refine = secondStage && formed != null && firstBounds.anyMargin()
                 ? (c, bar) -> {
                     WeightedMisses.SecondStage stage = idle.poll();
                     stage = stage != null ? stage
                             : WeightedMisses.secondStage(s.store(), requirement, layer, diffuseLayer, weightedLayerBlocks);
                     try {
-                        return c.oneSample() ? refinedSample(s, c, requirement, provenMiss, marginBound, rowOf, stage,
+                        return c.oneSample() ? refinedSample(s, c, requirement, firstBounds, stage,
                                         secondBoundsToTheBar ? bar : Double.NEGATIVE_INFINITY)
-                                : refined(s, c, requirement, provenMiss, marginBound, rowOf, judgedOf.get(c.material().id()), stage,
+                                : refined(s, c, requirement, firstBounds, judgedOf.get(c.material().id()), stage,
                                         secondBoundsToTheBar ? bar : Double.NEGATIVE_INFINITY);
                     } finally {
                         idle.add(stage);
@@ -797,6 +814,112 @@ public class SearchService {
     }
 
     /**
+     * The search's first bounds kept in maps keyed by sample id, the way before the eleventh pass
+     * ({@code -Dsieve.search.row-arrays=false}): the same values as {@link #boundsByRow}.
+     *
+     * @param second receives the weighted screen's second stage, when it ran
+     */
+    private FirstBounds boundsBySampleId(Snapshot s, Requirement requirement, Optional<StackLayer> layer,
+                                         boolean diffuseLayer, WeightedMisses.SecondStage[] second) {
+        Map<Long, Double> provenMiss = provenMisses(s, requirement, layer);
+        if (screenLayerBlocks) {
+            layer.ifPresent(l -> addLayerBlockMisses(provenMiss, s.store(), requirement, l));
+        }
+        // an upper bound on each sample's margin of either sign, for rows that meet (WeightedMisses#marginBounds)
+        Map<Long, Double> marginBound = new HashMap<>();
+        // the store row of each sample with a bound, for the second stage (only those: it only tightens a bound)
+        Map<Long, Integer> rowOf = new HashMap<>();
+        if (screenWeighted && earlierWeightedScreen) {
+            WeightedMisses.addEarlier(provenMiss, s.store(), requirement, layer, diffuseLayer);
+        } else if (screenWeighted) {
+            WeightedMisses.Screen screen = WeightedMisses.screen(s.store(), requirement, layer, diffuseLayer, weightedLayerBlocks);
+            second[0] = screen.secondStage();
+            double[] bounds = screen.bounds();
+            for (int curve = 0; curve < bounds.length; curve++) {
+                if (bounds[curve] < 0) {
+                    provenMiss.merge(s.store().sampleId(curve), bounds[curve], Math::min);
+                }
+                if (bounds[curve] < Double.POSITIVE_INFINITY) {
+                    marginBound.merge(s.store().sampleId(curve), bounds[curve], Math::min);
+                    rowOf.put(s.store().sampleId(curve), curve);
+                }
+            }
+        }
+        // a sample whose stored record fails today's checks is held in the store at a thickness and index it can
+        // hold, not its own, so no screen's bound speaks for its exact row (UnusableRecordIsNeverHiddenTest)
+        s.unusable().forEach(id -> {
+            provenMiss.remove(id);
+            marginBound.remove(id);
+            rowOf.remove(id);
+        });
+        return FirstBounds.bySampleId(provenMiss, marginBound, rowOf);
+    }
+
+    /**
+     * The search's first bounds in arrays indexed by the store's row, filled in the store's row order from the same
+     * screens as {@link #boundsBySampleId} (a store holds each sample once, so a row's bounds are its sample's):
+     * no boxed entry per sample (docs/weighted-screening.md, "The service at a million curves").
+     *
+     * @param second receives the weighted screen's second stage, when it ran
+     */
+    private FirstBounds boundsByRow(Snapshot s, Requirement requirement, Optional<StackLayer> layer,
+                                    boolean diffuseLayer, WeightedMisses.SecondStage[] second) {
+        SpectralStore store = s.store();
+        double[] miss = new double[store.size()];
+        Arrays.fill(miss, Double.NaN);
+        RowBound lower = (curve, bound) -> miss[curve] = Double.isNaN(miss[curve]) ? bound : Math.min(miss[curve], bound);
+        provenMisses(s, requirement, layer, lower);
+        if (screenLayerBlocks) {
+            layer.ifPresent(l -> addLayerBlockMisses(store, requirement, l, lower));
+        }
+        double[] margin = null;
+        if (screenWeighted && earlierWeightedScreen) {
+            // the earlier rule keeps its maps (benchmarks only): its misses are carried over to the rows
+            Map<Long, Double> earlier = new HashMap<>();
+            WeightedMisses.addEarlier(earlier, store, requirement, layer, diffuseLayer);
+            for (int curve = 0; curve < store.size() && !earlier.isEmpty(); curve++) {
+                Double b = earlier.get(store.sampleId(curve));
+                if (b != null) {
+                    lower.at(curve, b);
+                }
+            }
+        } else if (screenWeighted) {
+            WeightedMisses.Screen screen = WeightedMisses.screen(store, requirement, layer, diffuseLayer, weightedLayerBlocks);
+            second[0] = screen.secondStage();
+            double[] bounds = screen.bounds();
+            margin = new double[store.size()];
+            Arrays.fill(margin, Double.NaN);
+            for (int curve = 0; curve < bounds.length; curve++) {
+                if (bounds[curve] < 0) {
+                    lower.at(curve, bounds[curve]);
+                }
+                if (bounds[curve] < Double.POSITIVE_INFINITY) {
+                    margin[curve] = bounds[curve];
+                }
+            }
+        }
+        // a sample whose stored record fails today's checks: no screen's bound speaks for its exact row (as by id)
+        for (long id : s.unusable()) {
+            SampleInfo sample = s.samples().get(id);
+            Material material = sample == null ? null : s.materials().get(sample.materialId());
+            int row = material == null ? -1 : s.index().rowOf(material, id);
+            if (row >= 0) {
+                miss[row] = Double.NaN;
+                if (margin != null) {
+                    margin[row] = Double.NaN;
+                }
+            }
+        }
+        int margins = 0;
+        if (margin != null) {
+            for (double b : margin) {
+                margins += Double.isNaN(b) ? 0 : 1;
+            }
+        }
+        return FirstBounds.byRow(miss, margin, margins);
+    }
+
+    /**
      * The contender again with each admitted sample's bound lowered by the second stage on its decoded curve
      * ({@link WeightedMisses#secondStage}): the same rule as the first bounds in {@link #searchExactly} (the
      * largest over the samples judged, proven to miss when every admitted sample's bound is negative and the
@@ -807,8 +930,7 @@ public class SearchService {
      * is then not claimed (docs/weighted-screening.md, "Second bounds up to the bar").
      */
     private BoundedJudgement.Contender refined(Snapshot s, BoundedJudgement.Contender c, Requirement requirement,
-                                               Map<Long, Double> provenMiss, Map<Long, Double> marginBound,
-                                               Map<Long, Integer> rowOf, Set<Long> judgedSamples,
+                                               FirstBounds firstBounds, Set<Long> judgedSamples,
                                                WeightedMisses.SecondStage second, double bar) {
         Material material = c.material();
         // every sample's: against a met last row (bar > -∞) the flags below are not read (couldEnter), only the bound
@@ -821,9 +943,12 @@ public class SearchService {
             }
         }
         double[] first = new double[admitted.size()];
+        int[] rows = new int[admitted.size()];
         Integer[] order = new Integer[admitted.size()];
         for (int i = 0; i < first.length; i++) {
-            first[i] = sampleBound(provenMiss, marginBound, admitted.get(i).id());
+            long id = admitted.get(i).id();
+            rows[i] = firstBounds.readsRows() ? s.index().rowOf(material, id) : -1;
+            first[i] = firstBounds.bound(id, rows[i]);
             order[i] = i;
         }
         if (!everySample) {
@@ -840,11 +965,11 @@ public class SearchService {
             boolean cannotMeet = false;
             double ifUnverified = Double.POSITIVE_INFINITY;
             double b = first[i];
-            Integer row = second == null ? null : rowOf.get(sample.id());
+            int row = second == null ? -1 : firstBounds.secondStageRow(sample.id(), rows[i]);
             // up to the bar: a first bound below it cannot lift the material's bound to it, and once one sample's
             // second bound reaches it no other second bound keeps the material out (docs/weighted-screening.md)
             boolean form = everySample || !reached && !(b < bar);
-            if (row != null && form) {
+            if (row >= 0 && form) {
                 Optional<Curve> measured = curve(s, sample.id()); // the curve the judgement reads, cached for it
                 if (measured.isPresent()) {
                     double onCurve = second.bound(row, measured.get(), bar);
@@ -868,7 +993,7 @@ public class SearchService {
         // row's clauses read the margins the second stage found (docs/weighted-screening.md)
         boolean onTheCurve = requirement.thickness().kind() == ThicknessSpec.Kind.AS_MEASURED && requirement.layer().isEmpty();
         return new BoundedJudgement.Contender(material, bound,
-                everySample && allMiss && madeFor(requirement.thickness(), material),
+                everySample && allMiss && madeFor(s, requirement.thickness(), material),
                 c.regular(), noneMeets, onTheCurve ? unverifiedBound : Double.POSITIVE_INFINITY);
     }
 
@@ -881,13 +1006,16 @@ public class SearchService {
      */
     private void addSampleContenders(List<BoundedJudgement.Contender> contenders, Snapshot s, Material material,
                                      Requirement requirement, Set<Long> judgedSamples, Prepared prepared,
-                                     Map<Long, Double> provenMiss, Map<Long, Double> marginBound, boolean regular) {
-        Set<Long> failed = new HashSet<>();
+                                     FirstBounds firstBounds, int firstSlot, boolean regular) {
+        // by row: no set per material when none failed (at a million curves a third of a million sets per search)
+        Set<Long> failed = rowArrays && (prepared == null || prepared.failed().isEmpty()) ? Set.of() : new HashSet<>();
         if (prepared != null) {
             prepared.failed().forEach(e -> failed.add(e.evaluation().sampleId()));
         }
-        boolean made = madeFor(requirement.thickness(), material);
-        for (SampleInfo sample : material.samples()) {
+        boolean made = madeFor(s, requirement.thickness(), material);
+        List<SampleInfo> samples = material.samples();
+        for (int k = 0; k < samples.size(); k++) {
+            SampleInfo sample = samples.get(k);
             if (!admits(requirement, material, sample)
                     || judgedSamples != null && !judgedSamples.contains(sample.id()) && !failed.contains(sample.id())) {
                 continue;
@@ -899,7 +1027,7 @@ public class SearchService {
                         Double.NEGATIVE_INFINITY, sample.id(), true));
                 continue;
             }
-            double b = sampleBound(provenMiss, marginBound, sample.id());
+            double b = firstBounds.bound(sample.id(), firstSlot < 0 ? -1 : s.index().row(firstSlot + k));
             contenders.add(new BoundedJudgement.Contender(material, b, b < 0 && made, regular, false,
                     Double.POSITIVE_INFINITY, sample.id()));
         }
@@ -910,6 +1038,11 @@ public class SearchService {
      * from its admitted samples' thicknesses, rescaling and made thicknesses alone ({@link SettledRows#overRange}).
      */
     static boolean settledOverRange(Material material, Requirement requirement) {
+        return settledOverRange(material, requirement, null);
+    }
+
+    /** {@link #settledOverRange(Material, Requirement)} with the material's made thicknesses, or null to form them. */
+    private static boolean settledOverRange(Material material, Requirement requirement, MadeThicknesses madeOrNull) {
         if (requirement.thickness().kind() != ThicknessSpec.Kind.RANGE) {
             return false;
         }
@@ -920,7 +1053,8 @@ public class SearchService {
             thicknessMm[i] = admitted.get(i).thicknessMm();
             rescalable[i] = SampleRescaling.of(material, admitted.get(i)).rescalable();
         }
-        return SettledRows.overRange(thicknessMm, rescalable, made(material), requirement.thickness());
+        return SettledRows.overRange(thicknessMm, rescalable, madeOrNull != null ? madeOrNull : made(material),
+                requirement.thickness());
     }
 
     /**
@@ -935,28 +1069,20 @@ public class SearchService {
                 made(material), requirement.thickness());
     }
 
-    /** The smaller of a sample's first bounds (proven miss, margin bound), {@code +∞} when it has none. */
-    private static double sampleBound(Map<Long, Double> provenMiss, Map<Long, Double> marginBound, long sampleId) {
-        Double miss = provenMiss.get(sampleId);
-        Double margin = marginBound.get(sampleId);
-        return Math.min(miss == null ? Double.POSITIVE_INFINITY : miss,
-                margin == null || Double.isNaN(margin) ? Double.POSITIVE_INFINITY : margin);
-    }
-
     /**
      * A sample's contender again with its bound lowered by the second stage on its decoded curve, as
      * {@link #refined} does for each sample of a material: it cannot meet when a clause is unverified on the very
      * curve it is judged on or its bound is negative; as measured without a layer, its bound for an unverified row.
      */
     private BoundedJudgement.Contender refinedSample(Snapshot s, BoundedJudgement.Contender c, Requirement requirement,
-                                                     Map<Long, Double> provenMiss, Map<Long, Double> marginBound,
-                                                     Map<Long, Integer> rowOf, WeightedMisses.SecondStage second,
+                                                     FirstBounds firstBounds, WeightedMisses.SecondStage second,
                                                      double bar) {
-        double b = sampleBound(provenMiss, marginBound, c.sampleId());
+        int storeRow = firstBounds.readsRows() ? s.index().rowOf(c.material(), c.sampleId()) : -1;
+        double b = firstBounds.bound(c.sampleId(), storeRow);
         boolean cannotMeet = false;
         double ifUnverified = Double.POSITIVE_INFINITY;
-        Integer row = rowOf.get(c.sampleId());
-        if (row != null) {
+        int row = firstBounds.secondStageRow(c.sampleId(), storeRow);
+        if (row >= 0) {
             Optional<Curve> measured = curve(s, c.sampleId()); // the curve the judgement reads, cached for it
             if (measured.isPresent()) {
                 // against a met last row the clauses after one below the bar are not read (WeightedMisses.SecondStage)
@@ -967,7 +1093,7 @@ public class SearchService {
             }
         }
         boolean onTheCurve = requirement.thickness().kind() == ThicknessSpec.Kind.AS_MEASURED && requirement.layer().isEmpty();
-        return new BoundedJudgement.Contender(c.material(), b, b < 0 && madeFor(requirement.thickness(), c.material()),
+        return new BoundedJudgement.Contender(c.material(), b, b < 0 && madeFor(s, requirement.thickness(), c.material()),
                 c.regular(), cannotMeet || b < 0, onTheCurve ? ifUnverified : Double.POSITIVE_INFINITY, c.sampleId());
     }
 
@@ -1015,7 +1141,7 @@ public class SearchService {
             if (count == 0) {
                 continue;
             }
-            if (allMiss && madeFor(requirement.thickness(), material)) {
+            if (allMiss && madeFor(requirement.thickness(), material, made(material))) {
                 held.put(material, bound);
             } else {
                 exact.addAll(judge(s, material, requirement, layer, diffuseLayer));
@@ -1099,6 +1225,19 @@ public class SearchService {
      * one of the requirement's screenable clauses (see the class comment).
      */
     private static Map<Long, Double> provenMisses(Snapshot s, Requirement requirement, Optional<StackLayer> layer) {
+        Map<Long, Double> out = new HashMap<>();
+        provenMisses(s, requirement, layer, (curve, bound) -> out.put(s.store().sampleId(curve), bound));
+        return out;
+    }
+
+    /** A bound for a store row, handed to whoever keeps a search's first bounds (by row or by sample id). */
+    @FunctionalInterface
+    private interface RowBound {
+        void at(int curve, double bound);
+    }
+
+    /** Each store row the every-point screen proves to miss, with its bound (see {@link #provenMisses(Snapshot, Requirement, Optional)}). */
+    private static void provenMisses(Snapshot s, Requirement requirement, Optional<StackLayer> layer, RowBound out) {
         List<TransmittanceClause> screened = new ArrayList<>();
         for (var clause : requirement.clauses()) {
             if (clause instanceof TransmittanceClause t && t.aggregate() == Aggregate.EVERY_POINT
@@ -1106,14 +1245,12 @@ public class SearchService {
                 screened.add(t);
             }
         }
-        Map<Long, Double> out = new HashMap<>();
         if (screened.isEmpty()) {
-            return out;
+            return;
         }
         SpectralStore store = s.store();
         double[][] bounds = MissScreen.marginBounds(store, screened);
         for (int curve = 0; curve < store.size(); curve++) {
-            long sampleId = store.sampleId(curve);
             double d0 = store.thicknessMm(curve);
             // the store was built with SampleRescaling's answer for every curve: no need to ask it again per clause
             boolean rescalable = store.isBulk(curve);
@@ -1124,10 +1261,9 @@ public class SearchService {
                 }
             }
             if (bound < 0) {
-                out.put(sampleId, bound);
+                out.at(curve, bound);
             }
         }
-        return out;
     }
 
     /**
@@ -1138,6 +1274,12 @@ public class SearchService {
      */
     private static void addLayerBlockMisses(Map<Long, Double> provenMiss, SpectralStore store, Requirement requirement,
                                             StackLayer layer) {
+        addLayerBlockMisses(store, requirement, layer,
+                (curve, bound) -> provenMiss.merge(store.sampleId(curve), bound, Math::min));
+    }
+
+    /** Each store row {@link #addLayerBlockMisses(Map, SpectralStore, Requirement, StackLayer)} bounds, to {@code out}. */
+    private static void addLayerBlockMisses(SpectralStore store, Requirement requirement, StackLayer layer, RowBound out) {
         if (requirement.thickness().kind() != ThicknessSpec.Kind.AS_MEASURED) {
             return;
         }
@@ -1155,7 +1297,7 @@ public class SearchService {
         for (double[] clauseBounds : bounds) {
             for (int curve = 0; curve < store.size(); curve++) {
                 if (clauseBounds[curve] < 0) {
-                    provenMiss.merge(store.sampleId(curve), clauseBounds[curve], Math::min);
+                    out.at(curve, clauseBounds[curve]);
                 }
             }
         }
@@ -1192,8 +1334,12 @@ public class SearchService {
      * Whether the material can be judged at the asked thickness at all: where it is not made, its rows are
      * unverified (which ranks above a miss), so a proven miss on its curves says nothing about its row.
      */
-    private static boolean madeFor(ThicknessSpec spec, Material material) {
-        MadeThicknesses made = made(material);
+    private boolean madeFor(Snapshot s, ThicknessSpec spec, Material material) {
+        // by row: the snapshot's made thicknesses, formed once (the same object gives the same); else formed per call
+        return madeFor(spec, material, rowArrays ? madeOf(s, material) : made(material));
+    }
+
+    private static boolean madeFor(ThicknessSpec spec, Material material, MadeThicknesses made) {
         return switch (spec.kind()) {
             case AS_MEASURED -> true;
             case FIXED -> material.scaling() != Scaling.BULK || made.makes(spec.minMm());
@@ -1365,6 +1511,9 @@ public class SearchService {
      * change committed by any process before this call is in the answer.
      */
     private Snapshot current() {
+        if (library == null) {
+            return snapshot.get(); // a fixed snapshot (over): nothing to rebuild from
+        }
         long generation = library.generation();
         Snapshot s = snapshot.get();
         if (fresh(s, generation)) {

@@ -21,10 +21,18 @@ import org.spectralsieve.store.SpectralStore;
  *                      the store holds them at a storable thickness with an assumed index, so no screen's
  *                      proof on them holds for the exact judgement (see {@code SearchService.searchExactly})
  * @param made          each material's made thicknesses ({@link SearchService#made}) as formed from these very objects
+ * @param index         what searches ask of this store and these materials, formed once when first asked
  */
 record Snapshot(SpectralStore store, Map<Long, Material> materials, Map<Long, SampleInfo> samples,
                         long generation, long invalidations, CurveCache curves, List<Material> ordered,
-                        Set<Long> unusable, Map<Long, MadeThicknesses> made) {
+                        Set<Long> unusable, Map<Long, MadeThicknesses> made, SnapshotIndex index) {
+
+    Snapshot(SpectralStore store, Map<Long, Material> materials, Map<Long, SampleInfo> samples,
+             long generation, long invalidations, CurveCache curves, List<Material> ordered,
+             Set<Long> unusable, Map<Long, MadeThicknesses> made) {
+        this(store, materials, samples, generation, invalidations, curves, ordered, unusable, made,
+                new SnapshotIndex(store, materials.values()));
+    }
 
     /** Read no earlier than {@code other}: both counters only grow, so a later read has both at least as large. */
     boolean notOlderThan(Snapshot other) {

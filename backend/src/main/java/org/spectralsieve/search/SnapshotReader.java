@@ -14,6 +14,7 @@ import org.spectralsieve.library.SampleInfo;
 import org.spectralsieve.library.SampleRescaling;
 import org.spectralsieve.optics.ConstantIndex;
 import org.spectralsieve.optics.PhysicalRanges;
+import org.spectralsieve.optics.RefractiveIndex;
 import org.spectralsieve.requirement.MadeThicknesses;
 import org.spectralsieve.spectrum.Curve;
 import org.spectralsieve.store.SpectralStore;
@@ -78,32 +79,63 @@ final class SnapshotReader {
         if (partial.isPresent() && partial.get() == previous.ordered()) {
             // no material changed (an imported emitter or response, say): the same store holds at the new number
             return new Snapshot(previous.store(), previous.materials(), previous.samples(), generation, invalidated,
-                    previous.curves(), previous.ordered(), previous.unusable(), previous.made());
+                    previous.curves(), previous.ordered(), previous.unusable(), previous.made(), previous.index());
         }
         List<Material> materials = partial.orElseGet(() -> MaterialsRead.everything(library));
         StoreRowSource curves = partial.isPresent()
                 ? StoreRowSource.carryingOver(library, previous.store(), previous.samples())
                 : StoreRowSource.everything(library);
+        // a partial rebuild takes the previous snapshot's decoded curves as they are (not hashed again)
+        CurveCache cache = partial.isPresent() ? previous.curves().successor() : new CurveCache(curveCacheBytes);
+        return formed(materials, partial.isPresent() ? previous : null, curves, curves::add, cache, generation, invalidated);
+    }
+
+    /**
+     * Where a row of the store comes from while a snapshot is formed: {@link StoreRowSource#add} for a library read
+     * from the database; a benchmark without a database gives rows of its own ({@link #ofRecords}).
+     */
+    @FunctionalInterface
+    interface RowSource {
+        /** Adds the sample's row, or nothing; returns the curve decoded for it, null when none was. */
+        Curve add(SpectralStore.Builder builder, SampleInfo sample, StoredMaterial material, double thicknessMm,
+                  boolean bulk, boolean totalGeometry, RefractiveIndex index);
+    }
+
+    /**
+     * A snapshot of these material records formed as a whole build forms it from the database, each row from
+     * {@code rows}; the snapshot's generation is 0. For the service's benchmark at a million curves, which no database
+     * can be filled with in a benchmark's time (docs/weighted-screening.md, "The service at a million curves").
+     */
+    static Snapshot ofRecords(List<Material> materials, RowSource rows, long curveCacheBytes) {
+        return new SnapshotReader(null, curveCacheBytes, true).formed(materials, null, null, rows,
+                new CurveCache(curveCacheBytes), 0, 0);
+    }
+
+    /**
+     * The snapshot of {@code materials}: a partial rebuild when {@code previous} is given (its unchanged materials
+     * carried whole through {@code carrier}), else a whole build; every other row from {@code rows}.
+     */
+    private Snapshot formed(List<Material> materials, Snapshot previous, StoreRowSource carrier, RowSource rows,
+                            CurveCache cache, long generation, long invalidated) {
+        boolean partial = previous != null;
         int samples = materials.stream().mapToInt(m -> m.samples().size()).sum();
         SpectralStore.Builder builder = SpectralStore.builder(SpectralStore.DEFAULT_GRID, samples);
         Map<Long, Material> byId = new HashMap<>();
         Map<Long, SampleInfo> sampleById = new HashMap<>();
         Map<Long, MadeThicknesses> madeById = new HashMap<>();
         Set<Long> unusable = new HashSet<>();
-        // a partial rebuild takes the previous snapshot's decoded curves as they are (not hashed again)
-        CurveCache cache = partial.isPresent() ? previous.curves().successor() : new CurveCache(curveCacheBytes);
         for (Material m : materials) {
             byId.put(m.id(), m);
             m.samples().forEach(sample -> sampleById.put(sample.id(), sample));
             // a material not read again is the previous snapshot's very record (MaterialsRead), and so is each of its
             // samples: its made thicknesses, rows, unusable samples and cached curves are what the previous build
             // formed from the same objects, so they are carried as a whole rather than formed sample by sample
-            boolean unchanged = rebuildWhatChanged && partial.isPresent() && previous.materials().get(m.id()) == m;
+            boolean unchanged = rebuildWhatChanged && partial && previous.materials().get(m.id()) == m;
             MadeThicknesses made = unchanged ? previous.made().get(m.id()) : SearchService.made(m);
             madeById.put(m.id(), made);
             StoredMaterial stored = new StoredMaterial(m.id(), m.name(), m.materialClass().label(), made);
             if (unchanged) {
-                carryWhole(m, stored, previous, builder, curves, cache, unusable);
+                carryWhole(m, stored, previous, builder, carrier, cache, unusable);
                 continue;
             }
             for (SampleInfo sample : m.samples()) {
@@ -116,7 +148,7 @@ final class SnapshotReader {
                     unusable.add(sample.id());
                 }
                 // no readable curve: left out (logged), judged only by the exact evaluator, which says why
-                Curve decoded = curves.add(builder, sample, stored,
+                Curve decoded = rows.add(builder, sample, stored,
                         usable ? sample.thicknessMm() : storableThickness(sample.thicknessMm()),
                         SampleRescaling.of(m, sample).rescalable(), sample.geometry() == Geometry.TOTAL,
                         usable ? m.refractiveIndex() : ConstantIndex.WHEN_UNRECORDED);
@@ -124,7 +156,7 @@ final class SnapshotReader {
                 // row is never changed, only a sample's record: the same id keeps the same curve)
                 if (decoded != null) {
                     cache.offer(sample.id(), decoded);
-                } else if (partial.isPresent()) {
+                } else if (partial) {
                     cache.offerKept(previous.curves(), sample.id());
                 }
             }

@@ -1,0 +1,131 @@
+package org.spectralsieve.search;
+
+import java.util.Map;
+
+/**
+ * Each sample's first bounds in one exact search ({@code SearchService.searchExactly}): the proven-miss bound
+ * (negative; from the every-point, layer-block and weighted screens) and the weighted screen's margin bound of either
+ * sign, and the store row its second stage refines (only where it has a margin bound: the second stage only tightens
+ * one). Two forms, the same values: arrays indexed by the store's row, filled once per search in the store's row order
+ * ({@link #byRow}); and the maps keyed by sample id kept from before ({@link #bySampleId},
+ * {@code -Dsieve.search.row-arrays=false}), whose million boxed entries per search at a million curves cost more than
+ * the search's judgement (docs/weighted-screening.md, "The service at a million curves"). Callers give both the sample
+ * id and its store row ({@code -1} when it has none, or when the bounds are kept by id and the row is not looked up).
+ */
+abstract class FirstBounds {
+
+    /** The proven-miss bound (negative), NaN when the sample has none. */
+    abstract double miss(long sampleId, int row);
+
+    /** The margin bound, NaN when the sample has none. */
+    abstract double margin(long sampleId, int row);
+
+    /** The store row the second stage refines for the sample, {@code -1} when it has no margin bound. */
+    abstract int secondStageRow(long sampleId, int row);
+
+    /** Whether any sample has a margin bound (the weighted screen ran and bounded something). */
+    abstract boolean anyMargin();
+
+    /** Whether the bounds are read by store row: callers then give each sample's row, else {@code -1} will do. */
+    abstract boolean readsRows();
+
+    /** The smaller of the sample's first bounds, {@code +∞} when it has none. */
+    final double bound(long sampleId, int row) {
+        double miss = miss(sampleId, row);
+        double margin = margin(sampleId, row);
+        return Math.min(Double.isNaN(miss) ? Double.POSITIVE_INFINITY : miss,
+                Double.isNaN(margin) ? Double.POSITIVE_INFINITY : margin);
+    }
+
+    /**
+     * @param miss    by store row, the proven-miss bound or NaN
+     * @param margin  by store row, the margin bound or NaN; null when the weighted screen did not run
+     * @param margins how many rows of {@code margin} hold a bound
+     */
+    static FirstBounds byRow(double[] miss, double[] margin, int margins) {
+        return new ByRow(miss, margin, margins);
+    }
+
+    static FirstBounds bySampleId(Map<Long, Double> provenMiss, Map<Long, Double> marginBound, Map<Long, Integer> rowOf) {
+        return new BySampleId(provenMiss, marginBound, rowOf);
+    }
+
+    private static final class ByRow extends FirstBounds {
+
+        private final double[] miss;
+        private final double[] margin;
+        private final int margins;
+
+        ByRow(double[] miss, double[] margin, int margins) {
+            this.miss = miss;
+            this.margin = margin;
+            this.margins = margins;
+        }
+
+        @Override
+        double miss(long sampleId, int row) {
+            return row < 0 ? Double.NaN : miss[row];
+        }
+
+        @Override
+        double margin(long sampleId, int row) {
+            return row < 0 || margin == null ? Double.NaN : margin[row];
+        }
+
+        @Override
+        int secondStageRow(long sampleId, int row) {
+            return Double.isNaN(margin(sampleId, row)) ? -1 : row;
+        }
+
+        @Override
+        boolean anyMargin() {
+            return margins > 0;
+        }
+
+        @Override
+        boolean readsRows() {
+            return true;
+        }
+    }
+
+    private static final class BySampleId extends FirstBounds {
+
+        private final Map<Long, Double> provenMiss;
+        private final Map<Long, Double> marginBound;
+        private final Map<Long, Integer> rowOf;
+
+        BySampleId(Map<Long, Double> provenMiss, Map<Long, Double> marginBound, Map<Long, Integer> rowOf) {
+            this.provenMiss = provenMiss;
+            this.marginBound = marginBound;
+            this.rowOf = rowOf;
+        }
+
+        @Override
+        double miss(long sampleId, int row) {
+            Double b = provenMiss.get(sampleId);
+            return b == null ? Double.NaN : b;
+        }
+
+        @Override
+        double margin(long sampleId, int row) {
+            Double b = marginBound.get(sampleId);
+            return b == null ? Double.NaN : b;
+        }
+
+        @Override
+        int secondStageRow(long sampleId, int row) {
+            Integer r = rowOf.get(sampleId);
+            return r == null ? -1 : r;
+        }
+
+        @Override
+        boolean anyMargin() {
+            return !marginBound.isEmpty();
+        }
+
+        @Override
+        boolean readsRows() {
+            return false;
+        }
+    }
+}
