@@ -676,10 +676,13 @@ public class SearchService {
         List<Material> deferred = new ArrayList<>();
         List<Boolean> deferredRegular = new ArrayList<>();
         double[] deferredBound = deferrable ? new double[s.materials().size()] : null;
+        // by row: each deferred material's made thicknesses, as the snapshot formed them
+        MadeThicknesses[] deferredMade = deferrable ? new MadeThicknesses[s.materials().size()] : null;
         // each deferred material's first slot in the snapshot's index (by row only: the maps read no rows)
         int[] deferredSlot = deferrable ? new int[s.materials().size()] : null;
         int admitted = 0;
         // by row: the snapshot's materials in id order, sorted once per snapshot; by sample id: sorted per search, as before
+        Admission admission = new Admission(requirement);
         List<Material> inIdOrder = rowArrays ? s.index().materialsById()
                 : s.materials().values().stream().sorted(Comparator.comparingLong(Material::id)).toList();
         for (int mi = 0; mi < inIdOrder.size(); mi++) {
@@ -688,12 +691,21 @@ public class SearchService {
                 continue;
             }
             int firstSlot = firstBounds.readsRows() ? s.index().firstSlot(mi) : -1;
+            // by row: the class compared once per material, the geometry read from a table formed once per search
+            boolean classAdmits = !rowArrays || admission.material(material);
+            MadeThicknesses madeOfMaterial = rowArrays ? s.index().made(mi) : null;
             Set<Long> judgedSamples = null;
             // over a range, a material whose every row is "not judged" from its thicknesses alone waits last and is
             // left out once better rows fill the limit (SettledRows); no curve of it is read unless it is judged
-            boolean settled = settledRows && (rowArrays ? settledOverRange(material, requirement, madeOf(s, material))
+            boolean settled = settledRows && (rowArrays ? settledOverRange(material, requirement, madeOfMaterial)
                     : settledOverRange(material, requirement));
-            if (onlyJudgedSamples && !settled) {
+            // by row: the choice from the records where every admitted sample becomes a candidate, no curve read
+            Optional<Set<Long>> chosen = onlyJudgedSamples && !settled && rowArrays
+                    ? judgedFromRecords(s, material, spec, firstSlot, madeOfMaterial, admission) : Optional.empty();
+            if (chosen.isPresent()) {
+                judgedSamples = chosen.get();
+                judgedOf.put(material.id(), judgedSamples);
+            } else if (onlyJudgedSamples && !settled) {
                 Prepared p = prepare(s, material, requirement, diffuseLayer);
                 prepared.put(material.id(), p);
                 judgedSamples = p.judgedSamples(spec);
@@ -706,7 +718,7 @@ public class SearchService {
             List<SampleInfo> samples = material.samples();
             for (int k = 0; k < samples.size(); k++) {
                 SampleInfo sample = samples.get(k);
-                if (admits(requirement, material, sample)) {
+                if (rowArrays ? classAdmits && admission.geometry(sample) : admits(requirement, material, sample)) {
                     count++;
                     int row = firstSlot < 0 ? -1 : s.index().row(firstSlot + k);
                     allMiss &= !Double.isNaN(firstBounds.miss(sample.id(), row));
@@ -725,11 +737,12 @@ public class SearchService {
             if (count > 0 && deferrable && !(bound == Double.POSITIVE_INFINITY)) {
                 deferredBound[deferred.size()] = bound; // at least each of its samples' contender bounds
                 deferredSlot[deferred.size()] = firstSlot;
+                deferredMade[deferred.size()] = madeOfMaterial;
                 deferred.add(material);
                 deferredRegular.add(regular);
             } else if (count > 0 && bySample && (judgedSamples == null || !judgedSamples.isEmpty())) {
                 addSampleContenders(contenders, s, material, requirement, judgedSamples, prepared.get(material.id()),
-                        firstBounds, firstSlot, regular);
+                        firstBounds, firstSlot, regular, madeOfMaterial);
             } else if (count > 0 && settled) {
                 contenders.add(new BoundedJudgement.Contender(material, Double.NEGATIVE_INFINITY, false, regular, true,
                         Double.NEGATIVE_INFINITY, BoundedJudgement.WHOLE_MATERIAL, true));
@@ -752,7 +765,7 @@ public class SearchService {
             for (int i = 0; i < deferred.size(); i++) {
                 if (deferredBound[i] >= cut || Double.isNaN(deferredBound[i])) {
                     addSampleContenders(contenders, s, deferred.get(i), requirement, null, null, firstBounds,
-                            deferredSlot[i], deferredRegular.get(i));
+                            deferredSlot[i], deferredRegular.get(i), deferredMade[i]);
                 } else {
                     later[inReserve++] = i;
                     reserveBound = Math.max(reserveBound, deferredBound[i]);
@@ -766,7 +779,7 @@ public class SearchService {
                     for (int k = 0; k < waiting; k++) {
                         int i = later[k];
                         addSampleContenders(formed, s, deferred.get(i), requirement, null, null,
-                                firstBounds, deferredSlot[i], deferredRegular.get(i));
+                                firstBounds, deferredSlot[i], deferredRegular.get(i), deferredMade[i]);
                     }
                     return formed;
                 });
@@ -802,7 +815,11 @@ public class SearchService {
                     Material m = c.material();
                     Prepared ready = prepared.get(m.id());
                     if (c.oneSample()) {
-                        Prepared p = ready != null ? ready : prepare(s, m, requirement, diffuseLayer, c.sampleId());
+                        // alone only as measured: at one thickness which samples are judged, and over what span, still
+                        // depends on all of them (MaterialJudge.evaluateOne), so the material is prepared whole
+                        Prepared p = ready != null ? ready : spec.kind() == ThicknessSpec.Kind.AS_MEASURED
+                                ? prepare(s, m, requirement, diffuseLayer, c.sampleId())
+                                : prepare(s, m, requirement, diffuseLayer);
                         return p.judgeOne(requirement, layer, c.sampleId());
                     }
                     return ready != null ? ready.judge(requirement, layer) : judge(s, m, requirement, layer, diffuseLayer);
@@ -811,6 +828,59 @@ public class SearchService {
         double tookMs = (System.nanoTime() - started) / 1e6;
         return new Shortlist(requirement, rows, admitted, exact.size(), tookMs, layer, geometries(s, rows),
                 revisions(s, rows), measured(s, rows));
+    }
+
+    /**
+     * The samples {@link MaterialJudge#choose} judges at the asked thickness, from the material's records alone —
+     * their thicknesses, the first one's rescaling and the made thicknesses, the very numbers the choice reads of the
+     * candidates ({@link MaterialJudge#spans}) — where every admitted sample would become a candidate: its record is
+     * usable ({@link SampleRescaling#unusable}: a thickness in range, so a candidate's checks hold) and the store holds
+     * its row (its curve was read for this snapshot, and a curve row is never changed). Else empty: the material is
+     * prepared, its curves read, as before. Forming the candidates of every material read every curve of the library
+     * per search, a million at a million curves (docs/weighted-screening.md, "The service at a million curves").
+     */
+    private static Optional<Set<Long>> judgedFromRecords(Snapshot s, Material material, ThicknessSpec spec, int firstSlot,
+                                                         MadeThicknesses made, Admission admission) {
+        List<SampleInfo> samples = material.samples();
+        double[] thicknessMm = new double[samples.size()];
+        long[] ids = new long[samples.size()];
+        int n = 0;
+        boolean classAdmits = admission.material(material);
+        for (int k = 0; k < samples.size(); k++) {
+            SampleInfo sample = samples.get(k);
+            if (!(classAdmits && admission.geometry(sample))) {
+                continue;
+            }
+            if (s.index().row(firstSlot + k) < 0 || SampleRescaling.unusable(material, sample).isPresent()) {
+                return Optional.empty();
+            }
+            thicknessMm[n] = sample.thicknessMm();
+            ids[n++] = sample.id();
+        }
+        if (n == 0) {
+            return Optional.of(Set.of()); // no candidate: nothing is chosen
+        }
+        SampleInfo first = null;
+        for (SampleInfo sample : samples) {
+            if (sample.id() == ids[0]) {
+                first = sample;
+                break;
+            }
+        }
+        boolean bulk = SampleRescaling.of(material, first).rescalable();
+        try {
+            var spans = MaterialJudge.spans(Arrays.copyOf(thicknessMm, n), bulk, made, spec);
+            Long[] judged = new Long[n];
+            int count = 0;
+            for (int i = 0; i < n; i++) {
+                if (spans[i] != null) {
+                    judged[count++] = ids[i];
+                }
+            }
+            return Optional.of(Set.of(Arrays.copyOf(judged, count)));
+        } catch (RuntimeException e) {
+            return Optional.empty(); // prepared as before: its choice fails the same way there
+        }
     }
 
     /**
@@ -1006,13 +1076,14 @@ public class SearchService {
      */
     private void addSampleContenders(List<BoundedJudgement.Contender> contenders, Snapshot s, Material material,
                                      Requirement requirement, Set<Long> judgedSamples, Prepared prepared,
-                                     FirstBounds firstBounds, int firstSlot, boolean regular) {
+                                     FirstBounds firstBounds, int firstSlot, boolean regular, MadeThicknesses madeOrNull) {
         // by row: no set per material when none failed (at a million curves a third of a million sets per search)
         Set<Long> failed = rowArrays && (prepared == null || prepared.failed().isEmpty()) ? Set.of() : new HashSet<>();
         if (prepared != null) {
             prepared.failed().forEach(e -> failed.add(e.evaluation().sampleId()));
         }
-        boolean made = madeFor(s, requirement.thickness(), material);
+        boolean made = madeOrNull != null ? madeFor(requirement.thickness(), material, madeOrNull)
+                : madeFor(s, requirement.thickness(), material);
         List<SampleInfo> samples = material.samples();
         for (int k = 0; k < samples.size(); k++) {
             SampleInfo sample = samples.get(k);
@@ -1404,6 +1475,33 @@ public class SearchService {
                 "the part in front, sample " + sample.id() + " of '" + m.name() + "', has no readable curve"));
         return StackLayer.of(layer, m.id(), m.name(), m.slug(), sample.id(), curve, sample.thicknessMm(),
                 SampleRescaling.of(m, sample).rescalable(), m.refractiveIndex());
+    }
+
+    /**
+     * {@link #admits} for one search, split so a loop over a million samples reads a table: the material's class
+     * compared once per material, each geometry's admission formed once (its label is formed per call).
+     */
+    private static final class Admission {
+
+        private final Requirement requirement;
+        private final boolean[] byGeometry = new boolean[Geometry.values().length];
+
+        Admission(Requirement requirement) {
+            this.requirement = requirement;
+            for (Geometry g : Geometry.values()) {
+                byGeometry[g.ordinal()] = requirement.admitsGeometry(g.label());
+            }
+        }
+
+        /** The material's part of {@link #admits}. */
+        boolean material(Material m) {
+            return requirement.materialClass().map(c -> c.equals(m.materialClass().label())).orElse(true);
+        }
+
+        /** The sample's part of {@link #admits}. */
+        boolean geometry(SampleInfo s) {
+            return byGeometry[s.geometry().ordinal()];
+        }
     }
 
     private static boolean admits(Requirement r, Material m, SampleInfo s) {

@@ -5,8 +5,11 @@ import java.util.Arrays;
 import java.util.Collection;
 import java.util.Comparator;
 import java.util.List;
+import java.util.Map;
+import java.util.Objects;
 import org.spectralsieve.library.Material;
 import org.spectralsieve.library.SampleInfo;
+import org.spectralsieve.requirement.MadeThicknesses;
 import org.spectralsieve.store.SpectralStore;
 
 /**
@@ -25,11 +28,14 @@ final class SnapshotIndex {
 
     private final SpectralStore store;
     private final Collection<Material> materials;
+    private final Map<Long, MadeThicknesses> made;
     private volatile Slots slots;
 
-    SnapshotIndex(SpectralStore store, Collection<Material> materials) {
+    /** @param made each material's made thicknesses as the snapshot formed them (by material id) */
+    SnapshotIndex(SpectralStore store, Collection<Material> materials, Map<Long, MadeThicknesses> made) {
         this.store = store;
         this.materials = materials;
+        this.made = made;
     }
 
     /** The snapshot's materials in id order, sorted once. */
@@ -40,6 +46,11 @@ final class SnapshotIndex {
     /** The first slot of material {@code i} of {@link #materialsById}; its samples take the slots after it. */
     int firstSlot(int i) {
         return slots().firstSlot[i];
+    }
+
+    /** The made thicknesses of material {@code i} of {@link #materialsById}, as the snapshot formed them. */
+    MadeThicknesses made(int i) {
+        return slots().made[i];
     }
 
     /** The store row of the sample in {@code slot}, or -1 when the store holds none for it. */
@@ -70,7 +81,7 @@ final class SnapshotIndex {
     private Slots slots() {
         Slots formed = slots;
         if (formed == null) {
-            formed = new Slots(store, materials); // two searches may both form it: the same content, one kept
+            formed = new Slots(store, materials, made); // two searches may both form it: the same content, one kept
             slots = formed;
         }
         return formed;
@@ -83,15 +94,18 @@ final class SnapshotIndex {
         final long[] materialIds;
         final int[] firstSlot;
         final int[] rowBySlot;
+        final MadeThicknesses[] made;
 
-        Slots(SpectralStore store, Collection<Material> materials) {
+        Slots(SpectralStore store, Collection<Material> materials, Map<Long, MadeThicknesses> madeById) {
             List<Material> sorted = new ArrayList<>(materials);
             sorted.sort(Comparator.comparingLong(Material::id));
             byId = List.copyOf(sorted);
             materialIds = new long[byId.size()];
+            made = new MadeThicknesses[byId.size()];
             firstSlot = new int[byId.size() + 1];
             for (int i = 0; i < byId.size(); i++) {
                 materialIds[i] = byId.get(i).id();
+                made[i] = Objects.requireNonNull(madeById.get(materialIds[i]), "the snapshot's made thicknesses");
                 firstSlot[i + 1] = firstSlot[i] + byId.get(i).samples().size();
             }
             rowBySlot = new int[firstSlot[byId.size()]];
