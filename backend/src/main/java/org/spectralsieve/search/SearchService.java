@@ -697,7 +697,8 @@ public class SearchService {
             Set<Long> judgedSamples = null;
             // over a range, a material whose every row is "not judged" from its thicknesses alone waits last and is
             // left out once better rows fill the limit (SettledRows); no curve of it is read unless it is judged
-            boolean settled = settledRows && (rowArrays ? settledOverRange(material, requirement, madeOfMaterial)
+            boolean settled = settledRows && (rowArrays
+                    ? settledOverRangeByRow(s, material, requirement, firstSlot, madeOfMaterial, admission)
                     : settledOverRange(material, requirement));
             // by row: the choice from the records where every admitted sample becomes a candidate, no curve read
             Optional<Set<Long>> chosen = onlyJudgedSamples && !settled && rowArrays
@@ -845,6 +846,7 @@ public class SearchService {
         double[] thicknessMm = new double[samples.size()];
         long[] ids = new long[samples.size()];
         int n = 0;
+        int firstRow = -1;
         boolean classAdmits = admission.material(material);
         for (int k = 0; k < samples.size(); k++) {
             SampleInfo sample = samples.get(k);
@@ -854,20 +856,15 @@ public class SearchService {
             if (s.index().row(firstSlot + k) < 0 || SampleRescaling.unusable(material, sample).isPresent()) {
                 return Optional.empty();
             }
+            firstRow = n == 0 ? s.index().row(firstSlot + k) : firstRow;
             thicknessMm[n] = sample.thicknessMm();
             ids[n++] = sample.id();
         }
         if (n == 0) {
             return Optional.of(Set.of()); // no candidate: nothing is chosen
         }
-        SampleInfo first = null;
-        for (SampleInfo sample : samples) {
-            if (sample.id() == ids[0]) {
-                first = sample;
-                break;
-            }
-        }
-        boolean bulk = SampleRescaling.of(material, first).rescalable();
+        // the first candidate's rescaling, as its store row was formed with it (SampleRescaling.of of these records)
+        boolean bulk = s.store().isBulk(firstRow);
         try {
             var spans = MaterialJudge.spans(Arrays.copyOf(thicknessMm, n), bulk, made, spec);
             Long[] judged = new Long[n];
@@ -1110,6 +1107,33 @@ public class SearchService {
      */
     static boolean settledOverRange(Material material, Requirement requirement) {
         return settledOverRange(material, requirement, null);
+    }
+
+    /**
+     * {@link #settledOverRange(Material, Requirement)} in a loop over a million samples: no stream, the admission from
+     * its table, the made thicknesses the snapshot formed, and each sample's rescaling read from its store row where it
+     * has one (the row was formed with {@link SampleRescaling#of} of these very records, {@link SnapshotReader}).
+     */
+    private static boolean settledOverRangeByRow(Snapshot s, Material material, Requirement requirement, int firstSlot,
+                                                 MadeThicknesses made, Admission admission) {
+        if (requirement.thickness().kind() != ThicknessSpec.Kind.RANGE) {
+            return false;
+        }
+        List<SampleInfo> samples = material.samples();
+        double[] thicknessMm = new double[samples.size()];
+        boolean[] rescalable = new boolean[samples.size()];
+        int n = 0;
+        boolean classAdmits = admission.material(material);
+        for (int k = 0; k < samples.size(); k++) {
+            SampleInfo sample = samples.get(k);
+            if (classAdmits && admission.geometry(sample)) {
+                int row = s.index().row(firstSlot + k);
+                thicknessMm[n] = sample.thicknessMm();
+                rescalable[n++] = row >= 0 ? s.store().isBulk(row) : SampleRescaling.of(material, sample).rescalable();
+            }
+        }
+        return SettledRows.overRange(n == thicknessMm.length ? thicknessMm : Arrays.copyOf(thicknessMm, n),
+                n == rescalable.length ? rescalable : Arrays.copyOf(rescalable, n), made, requirement.thickness());
     }
 
     /** {@link #settledOverRange(Material, Requirement)} with the material's made thicknesses, or null to form them. */
