@@ -673,8 +673,10 @@ public class SearchService {
         // lie below the cut waits in a reserve, formed only if the judging loop reaches it (BoundedJudgement.Reserve).
         // Not behind a layer: there the figure codes are not read, and the bins' looser bounds mostly reach the reserve
         boolean deferrable = bySample && spec.kind() == ThicknessSpec.Kind.AS_MEASURED && layer.isEmpty() && contenderReserve;
-        List<Material> deferred = new ArrayList<>();
-        List<Boolean> deferredRegular = new ArrayList<>();
+        // by row sized for every material at once: at a million curves a third of a million are deferred, and growing
+        // the lists copied them over and over
+        List<Material> deferred = new ArrayList<>(rowArrays && deferrable ? s.materials().size() : 10);
+        List<Boolean> deferredRegular = new ArrayList<>(rowArrays && deferrable ? s.materials().size() : 10);
         double[] deferredBound = deferrable ? new double[s.materials().size()] : null;
         // by row: each deferred material's made thicknesses, as the snapshot formed them
         MadeThicknesses[] deferredMade = deferrable ? new MadeThicknesses[s.materials().size()] : null;
@@ -1507,11 +1509,12 @@ public class SearchService {
      */
     private static final class Admission {
 
-        private final Requirement requirement;
+        /** The asked class label, null when any class is admitted. */
+        private final String materialClass;
         private final boolean[] byGeometry = new boolean[Geometry.values().length];
 
         Admission(Requirement requirement) {
-            this.requirement = requirement;
+            this.materialClass = requirement.materialClass().orElse(null);
             for (Geometry g : Geometry.values()) {
                 byGeometry[g.ordinal()] = requirement.admitsGeometry(g.label());
             }
@@ -1519,7 +1522,7 @@ public class SearchService {
 
         /** The material's part of {@link #admits}. */
         boolean material(Material m) {
-            return requirement.materialClass().map(c -> c.equals(m.materialClass().label())).orElse(true);
+            return materialClass == null || materialClass.equals(m.materialClass().label());
         }
 
         /** The sample's part of {@link #admits}. */
