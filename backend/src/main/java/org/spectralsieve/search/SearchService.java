@@ -683,19 +683,23 @@ public class SearchService {
         // each deferred material's first slot in the snapshot's index (by row only: the maps read no rows)
         int[] deferredSlot = deferrable ? new int[s.materials().size()] : null;
         int admitted = 0;
-        // by row: the snapshot's materials in id order, sorted once per snapshot; by sample id: sorted per search, as before
+        // by row: the snapshot's materials in the order of the store's rows, so the bounds by row are read nearly in
+        // sequence; by sample id: sorted by id per search, as before. The order contenders are formed in does not
+        // matter: they are judged in BoundedJudgement.ORDER (bound, then material id and sample: a total order), and
+        // the cut and the reserve's bound are a k-th largest and a maximum
         Admission admission = new Admission(requirement);
-        List<Material> inIdOrder = rowArrays ? s.index().materialsById()
+        SnapshotIndex.Slots slots = rowArrays ? s.index().slots() : null;
+        List<Material> inOrder = rowArrays ? slots.materials
                 : s.materials().values().stream().sorted(Comparator.comparingLong(Material::id)).toList();
-        for (int mi = 0; mi < inIdOrder.size(); mi++) {
-            Material material = inIdOrder.get(mi);
+        for (int mi = 0; mi < inOrder.size(); mi++) {
+            Material material = inOrder.get(mi);
             if (!within.test(material)) {
                 continue;
             }
-            int firstSlot = firstBounds.readsRows() ? s.index().firstSlot(mi) : -1;
+            int firstSlot = rowArrays ? slots.firstSlot[mi] : -1;
             // by row: the class compared once per material, the geometry read from a table formed once per search
             boolean classAdmits = !rowArrays || admission.material(material);
-            MadeThicknesses madeOfMaterial = rowArrays ? s.index().made(mi) : null;
+            MadeThicknesses madeOfMaterial = rowArrays ? slots.made[mi] : null;
             Set<Long> judgedSamples = null;
             // over a range, a material whose every row is "not judged" from its thicknesses alone waits last and is
             // left out once better rows fill the limit (SettledRows); no curve of it is read unless it is judged
@@ -718,18 +722,21 @@ public class SearchService {
             boolean allMiss = true;
             boolean regular = false;
             int count = 0;
-            List<SampleInfo> samples = material.samples();
-            for (int k = 0; k < samples.size(); k++) {
-                SampleInfo sample = samples.get(k);
-                if (rowArrays ? classAdmits && admission.geometry(sample) : admits(requirement, material, sample)) {
+            // by row: each sample's id, geometry and row from the index's arrays, its record not read
+            List<SampleInfo> samples = rowArrays ? null : material.samples();
+            int sampleCount = rowArrays ? slots.firstSlot[mi + 1] - firstSlot : samples.size();
+            for (int k = 0; k < sampleCount; k++) {
+                long sampleId = rowArrays ? slots.sampleIdBySlot[firstSlot + k] : samples.get(k).id();
+                Geometry geometry = rowArrays ? slots.geometryBySlot[firstSlot + k] : samples.get(k).geometry();
+                if (rowArrays ? classAdmits && admission.geometry(geometry) : admits(requirement, material, samples.get(k))) {
                     count++;
-                    int row = firstSlot < 0 ? -1 : s.index().row(firstSlot + k);
-                    allMiss &= !Double.isNaN(firstBounds.miss(sample.id(), row));
-                    regular |= grouped && sample.geometry() == Geometry.REGULAR;
-                    if (judgedSamples == null || judgedSamples.contains(sample.id())) {
+                    int row = rowArrays ? slots.rowBySlot[firstSlot + k] : -1;
+                    allMiss &= !Double.isNaN(firstBounds.miss(sampleId, row));
+                    regular |= grouped && geometry == Geometry.REGULAR;
+                    if (judgedSamples == null || judgedSamples.contains(sampleId)) {
                         // a sample not judged gives no row (or one that says why it could not be judged, which
                         // never meets); for the others both bounds hold the same exact margin, the smaller too
-                        bound = Math.max(bound, firstBounds.bound(sample.id(), row));
+                        bound = Math.max(bound, firstBounds.bound(sampleId, row));
                     }
                 }
             }
@@ -1527,7 +1534,12 @@ public class SearchService {
 
         /** The sample's part of {@link #admits}. */
         boolean geometry(SampleInfo s) {
-            return byGeometry[s.geometry().ordinal()];
+            return geometry(s.geometry());
+        }
+
+        /** The sample's part of {@link #admits}, from its geometry. */
+        boolean geometry(Geometry g) {
+            return byGeometry[g.ordinal()];
         }
     }
 

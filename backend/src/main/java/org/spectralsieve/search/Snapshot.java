@@ -31,7 +31,7 @@ record Snapshot(SpectralStore store, Map<Long, Material> materials, Map<Long, Sa
              long generation, long invalidations, CurveCache curves, List<Material> ordered,
              Set<Long> unusable, Map<Long, MadeThicknesses> made) {
         this(store, materials, samples, generation, invalidations, curves, ordered, unusable, made,
-                new SnapshotIndex(store, materials.values(), made));
+                new SnapshotIndex(store, ordered, made));
     }
 
     /** Read no earlier than {@code other}: both counters only grow, so a later read has both at least as large. */

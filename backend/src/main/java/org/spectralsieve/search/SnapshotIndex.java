@@ -1,12 +1,11 @@
 package org.spectralsieve.search;
 
-import java.util.ArrayList;
 import java.util.Arrays;
-import java.util.Collection;
 import java.util.Comparator;
 import java.util.List;
 import java.util.Map;
 import java.util.Objects;
+import org.spectralsieve.library.Geometry;
 import org.spectralsieve.library.Material;
 import org.spectralsieve.library.SampleInfo;
 import org.spectralsieve.requirement.MadeThicknesses;
@@ -14,46 +13,36 @@ import org.spectralsieve.store.SpectralStore;
 
 /**
  * What every search that judges the whole library exactly asks of a snapshot and that depends on the snapshot
- * alone: its materials in id order (the order {@code SearchService.searchExactly} forms contenders in) and the store
- * row of each of their samples, by slot: material {@code i}'s samples (in the order of {@link Material#samples}) take
- * slots {@code firstSlot(i)} on, so a loop over the materials in id order finds each sample's row without a lookup. Formed on the first search that asks, once per snapshot, not per search: at a million curves
- * sorting a third of a million materials and boxing a million sample ids cost a search more than its judgement
- * (docs/weighted-screening.md, "The service at a million curves"). Immutable once formed; safe to share between
- * searches on other threads (each part is published through a volatile field).
+ * alone: its materials in the order of the store's rows (the snapshot's {@code ordered}) with each sample's store row,
+ * id and geometry by slot — material {@code i}'s samples (in the order of {@link Material#samples}) take slots
+ * {@code firstSlot[i]} on — so a loop over every material reads plain arrays, and the per-search bounds indexed by row
+ * nearly in sequence, instead of each record (scattered over the heap) and a lookup per sample. Formed on the first
+ * search that asks, once per snapshot, not per search: at a million curves sorting a third of a million materials,
+ * boxing a million sample ids and reading the bounds in id order (a cache miss per sample) cost a search more than its
+ * judgement (docs/weighted-screening.md, "The service at a million curves"). Immutable once formed; safe to share
+ * between searches on other threads (published through a volatile field, its arrays final).
  */
 final class SnapshotIndex {
 
-    /** A slot of {@link #ids} no sample id takes (ids are positive). */
+    /** A slot of {@link Rows} no sample id takes (ids are positive). */
     private static final long EMPTY = 0;
 
     private final SpectralStore store;
-    private final Collection<Material> materials;
+    private final List<Material> ordered;
     private final Map<Long, MadeThicknesses> made;
     private volatile Slots slots;
 
-    /** @param made each material's made thicknesses as the snapshot formed them (by material id) */
-    SnapshotIndex(SpectralStore store, Collection<Material> materials, Map<Long, MadeThicknesses> made) {
+    /**
+     * @param ordered the snapshot's materials in the order of the store's rows
+     * @param made    each material's made thicknesses as the snapshot formed them (by material id)
+     */
+    SnapshotIndex(SpectralStore store, List<Material> ordered, Map<Long, MadeThicknesses> made) {
         this.store = store;
-        this.materials = materials;
+        this.ordered = ordered;
         this.made = made;
     }
 
-    /** The snapshot's materials in id order, sorted once. */
-    List<Material> materialsById() {
-        return slots().byId;
-    }
-
-    /** The first slot of material {@code i} of {@link #materialsById}; its samples take the slots after it. */
-    int firstSlot(int i) {
-        return slots().firstSlot[i];
-    }
-
-    /** The made thicknesses of material {@code i} of {@link #materialsById}, as the snapshot formed them. */
-    MadeThicknesses made(int i) {
-        return slots().made[i];
-    }
-
-    /** The store row of the sample in {@code slot}, or -1 when the store holds none for it. */
+    /** The store row of the sample in {@code slot} (see {@link Slots}), or -1 when the store holds none for it. */
     int row(int slot) {
         return slots().rowBySlot[slot];
     }
@@ -65,56 +54,77 @@ final class SnapshotIndex {
      */
     int rowOf(Material material, long sampleId) {
         Slots formed = slots();
-        int i = Arrays.binarySearch(formed.materialIds, material.id());
-        if (i < 0) {
+        int j = Arrays.binarySearch(formed.sortedIds, material.id());
+        if (j < 0) {
             return -1;
         }
-        List<SampleInfo> samples = formed.byId.get(i).samples();
-        for (int k = 0; k < samples.size(); k++) {
-            if (samples.get(k).id() == sampleId) {
-                return formed.rowBySlot[formed.firstSlot[i] + k];
+        int i = formed.indexOfSorted[j];
+        for (int slot = formed.firstSlot[i]; slot < formed.firstSlot[i + 1]; slot++) {
+            if (formed.sampleIdBySlot[slot] == sampleId) {
+                return formed.rowBySlot[slot];
             }
         }
         return -1;
     }
 
-    private Slots slots() {
+    /** The formed index itself, for a loop over every material that reads its arrays without a call per sample. */
+    Slots slots() {
         Slots formed = slots;
         if (formed == null) {
-            formed = new Slots(store, materials, made); // two searches may both form it: the same content, one kept
+            formed = new Slots(store, ordered, made); // two searches may both form it: the same content, one kept
             slots = formed;
         }
         return formed;
     }
 
-    /** The materials in id order and their samples' rows, formed together. */
-    private static final class Slots {
+    /** The materials in the store's order and their samples' rows, ids and geometries by slot, formed together. */
+    static final class Slots {
 
-        final List<Material> byId;
-        final long[] materialIds;
+        /** The snapshot's materials in the order of the store's rows. */
+        final List<Material> materials;
+        /** Material {@code i}'s samples take slots {@code firstSlot[i]} up to {@code firstSlot[i + 1]}. */
         final int[] firstSlot;
         final int[] rowBySlot;
+        final long[] sampleIdBySlot;
+        final Geometry[] geometryBySlot;
         final MadeThicknesses[] made;
+        /** The material ids sorted, and the index in {@link #materials} of each. */
+        final long[] sortedIds;
+        final int[] indexOfSorted;
 
-        Slots(SpectralStore store, Collection<Material> materials, Map<Long, MadeThicknesses> madeById) {
-            List<Material> sorted = new ArrayList<>(materials);
-            sorted.sort(Comparator.comparingLong(Material::id));
-            byId = List.copyOf(sorted);
-            materialIds = new long[byId.size()];
-            made = new MadeThicknesses[byId.size()];
-            firstSlot = new int[byId.size() + 1];
-            for (int i = 0; i < byId.size(); i++) {
-                materialIds[i] = byId.get(i).id();
-                made[i] = Objects.requireNonNull(madeById.get(materialIds[i]), "the snapshot's made thicknesses");
-                firstSlot[i + 1] = firstSlot[i] + byId.get(i).samples().size();
+        Slots(SpectralStore store, List<Material> ordered, Map<Long, MadeThicknesses> madeById) {
+            materials = List.copyOf(ordered);
+            int n = materials.size();
+            firstSlot = new int[n + 1];
+            made = new MadeThicknesses[n];
+            for (int i = 0; i < n; i++) {
+                Material m = materials.get(i);
+                firstSlot[i + 1] = firstSlot[i] + m.samples().size();
+                made[i] = Objects.requireNonNull(madeById.get(m.id()), "the snapshot's made thicknesses");
             }
-            rowBySlot = new int[firstSlot[byId.size()]];
+            rowBySlot = new int[firstSlot[n]];
+            sampleIdBySlot = new long[rowBySlot.length];
+            geometryBySlot = new Geometry[rowBySlot.length];
             Rows rows = new Rows(store);
-            for (int i = 0; i < byId.size(); i++) {
-                List<SampleInfo> samples = byId.get(i).samples();
+            for (int i = 0; i < n; i++) {
+                List<SampleInfo> samples = materials.get(i).samples();
                 for (int k = 0; k < samples.size(); k++) {
-                    rowBySlot[firstSlot[i] + k] = rows.rowOf(samples.get(k).id());
+                    SampleInfo sample = samples.get(k);
+                    rowBySlot[firstSlot[i] + k] = rows.rowOf(sample.id());
+                    sampleIdBySlot[firstSlot[i] + k] = sample.id();
+                    geometryBySlot[firstSlot[i] + k] = sample.geometry();
                 }
+            }
+            Integer[] byId = new Integer[n];
+            for (int i = 0; i < n; i++) {
+                byId[i] = i;
+            }
+            Arrays.sort(byId, Comparator.comparingLong(i -> materials.get(i).id()));
+            sortedIds = new long[n];
+            indexOfSorted = new int[n];
+            for (int j = 0; j < n; j++) {
+                indexOfSorted[j] = byId[j];
+                sortedIds[j] = materials.get(byId[j]).id();
             }
         }
     }
