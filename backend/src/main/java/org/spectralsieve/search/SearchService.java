@@ -181,9 +181,11 @@ public class SearchService {
     /** A material's second bounds formed only up to the bar it must reach ({@link #refined}); off: every sample's. */
     private boolean secondBoundsToTheBar = !"false".equals(System.getProperty("sieve.search.second-bounds-to-the-bar"));
     /**
-     * Whether {@link #searchExactly} keeps each sample's first bounds, store row and judged flag in arrays indexed by
-     * the store's row, formed once per search ({@link RowBounds}); {@code -Dsieve.search.row-arrays=false} keeps them
-     * in maps keyed by sample id, the way before, only so a benchmark can time both ways (the same answers).
+     * Whether {@link #searchExactly} keeps each sample's first bounds in arrays indexed by the store's row, formed once
+     * per search ({@link FirstBounds#byRow}), walks the materials in the store's order over the snapshot's index
+     * ({@link SnapshotIndex}) and chooses the samples judged at an asked thickness from the records
+     * ({@link #judgedFromRecords}); {@code -Dsieve.search.row-arrays=false} keeps the maps keyed by sample id and the
+     * rest the way before, only so a benchmark can time both ways (the same answers; docs/weighted-screening.md).
      */
     private boolean rowArrays = !"false".equals(System.getProperty("sieve.search.row-arrays"));
     /** How requirements the store cannot rank are judged ({@link #searchExactly}); other ways for benchmarks and tests. */
