@@ -35,6 +35,8 @@ final class WeightedMisses {
 
     /** Splits tried inside a solved range, geometric between its ends. */
     private static final int SPLITS = 7;
+    /** Bisection steps for the crossing of the figure codes' P and Q in a solved range ({@code Bounds#aroundTheCrossing}). */
+    private static final int CROSSING_STEPS = 10;
 
     private WeightedMisses() {
     }
@@ -297,6 +299,8 @@ final class WeightedMisses {
         private org.spectralsieve.spectrum.Curve measured;
         /** The bar of the second bound being formed ({@link SecondStage#bound(int, org.spectralsieve.spectrum.Curve, double)}), else -∞. */
         private double bar = Double.NEGATIVE_INFINITY;
+        /** Whether some clause reads the figure codes' bounds over thickness ({@link WeightedScreen.Query#solvesFromCode}). */
+        private final boolean solvesFromCodes;
 
         Bounds(SpectralStore store, ThicknessSpec spec, List<WeightedScreen.Query> queries, List<Boolean> seeThrough,
                boolean diffuseLayer, boolean reference, int from, int to) {
@@ -308,6 +312,7 @@ final class WeightedMisses {
             this.reference = reference;
             this.from = from;
             this.to = to;
+            this.solvesFromCodes = !reference && queries.stream().anyMatch(WeightedScreen.Query::solvesFromCode);
         }
 
         /** Each curve's bound on its exact worst margin (+∞ or ≥ 0 where nothing is proven) into {@code out}. */
@@ -509,6 +514,13 @@ final class WeightedMisses {
             if (whole < 0 || !(hi > lo) || belowBar(whole)) {
                 return whole;
             }
+            if (solvesFromCodes) {
+                // the figure codes' bounds over thickness, split around the crossing of P and Q (never above whole)
+                whole = Math.min(whole, aroundTheCrossing(lo, hi, passAtLo, blockAtHi));
+                if (whole < 0 || belowBar(whole)) {
+                    return whole;
+                }
+            }
             // a split proves more only where both the pass is missed above it and the block below it
             double passAtHi = pass(hi);
             double blockAtLo = block(lo);
@@ -528,10 +540,69 @@ final class WeightedMisses {
                 }
                 double right = Math.min(pass(s), blockAtHi);
                 if (right < 0) {
-                    return Math.max(left, right);
+                    return Math.min(whole, Math.max(left, right));
                 }
             }
             return whole;
+        }
+
+        /**
+         * The sample's bound over [lo, hi] from three splits placed around the crossing of the figure codes' P and Q
+         * (docs/weighted-screening.md, "Bounds over thickness from the figure codes"): for any lo ≤ a ≤ b ≤ hi every
+         * judged d lies in [lo, a], [a, b] or [b, hi], where its worst margin is at most min(P(lo), Q(a)),
+         * min(P(a), Q(b)) or min(P(b), Q(hi)) (P(x) bounds every pass margin at d ≥ x, Q(x) every block margin at
+         * d ≤ x); so the largest of the three bounds it wherever the judgement lands, sound whichever a and b are
+         * taken. They are found by bisecting P − Q on the codes' closed forms ({@link WeightedScreen.Query#thinnedFromCode},
+         * {@link WeightedScreen.Query#thickenedFromCode}, a few flops each), each capped by the whole range's
+         * P(lo) and Q(hi) (which bound every smaller range's too); in the second stage P and Q at a and b are also
+         * read on the curve.
+         */
+        private double aroundTheCrossing(double lo, double hi, double passAtLo, double blockAtHi) {
+            double a = lo;
+            double b = hi;
+            for (int i = 0; i < CROSSING_STEPS; i++) {
+                double m = 0.5 * (a + b);
+                if (passFromCodes(m, passAtLo) > blockFromCodes(m, blockAtHi)) {
+                    a = m; // the pass side still above: the crossing lies above m
+                } else {
+                    b = m;
+                }
+            }
+            double passAtA = passFromCodes(a, passAtLo);
+            double passAtB = passFromCodes(b, passAtLo);
+            double blockAtA = blockFromCodes(a, blockAtHi);
+            double blockAtB = blockFromCodes(b, blockAtHi);
+            if (measured != null) { // the second stage: the curve's own bounds at the two splits as well
+                passAtA = Math.min(passAtA, pass(a));
+                passAtB = Math.min(passAtB, pass(b));
+                blockAtA = Math.min(blockAtA, block(a));
+                blockAtB = Math.min(blockAtB, block(b));
+            }
+            return Math.max(Math.min(passAtLo, blockAtA), Math.max(Math.min(passAtA, blockAtB), Math.min(passAtB, blockAtHi)));
+        }
+
+        /** P(x) from the figure codes alone, capped by {@code cap} (a P at a thinner x): every pass margin at d ≥ x. */
+        private double passFromCodes(double x, double cap) {
+            double bound = cap;
+            for (int i = 0; i < queries.size(); i++) {
+                WeightedScreen.Query q = queries.get(i);
+                if (q.passes() && !skipped(i)) {
+                    bound = Math.min(bound, q.thinnedFromCode(curve, x));
+                }
+            }
+            return bound;
+        }
+
+        /** Q(x) from the figure codes alone, capped by {@code cap} (a Q at a thicker x): every block margin at d ≤ x. */
+        private double blockFromCodes(double x, double cap) {
+            double bound = cap;
+            for (int i = 0; i < queries.size(); i++) {
+                WeightedScreen.Query q = queries.get(i);
+                if (!q.passes() && !skipped(i)) {
+                    bound = Math.min(bound, q.thickenedFromCode(curve, x));
+                }
+            }
+            return bound;
         }
     }
 }
