@@ -301,6 +301,10 @@ final class WeightedMisses {
         private double bar = Double.NEGATIVE_INFINITY;
         /** Whether some clause reads the figure codes' bounds over thickness ({@link WeightedScreen.Query#solvesFromCode}). */
         private final boolean solvesFromCodes;
+        /** Whether some block clause reads the figure codes' bounds over thickness. */
+        private final boolean blocksFromCodes;
+        /** {@link #codesFirst()}, read once per search. */
+        private final boolean codesFirst = codesFirst();
 
         Bounds(SpectralStore store, ThicknessSpec spec, List<WeightedScreen.Query> queries, List<Boolean> seeThrough,
                boolean diffuseLayer, boolean reference, int from, int to) {
@@ -313,6 +317,7 @@ final class WeightedMisses {
             this.from = from;
             this.to = to;
             this.solvesFromCodes = !reference && queries.stream().anyMatch(WeightedScreen.Query::solvesFromCode);
+            this.blocksFromCodes = solvesFromCodes && queries.stream().anyMatch(q -> !q.passes() && q.solvesFromCode());
         }
 
         /** Each curve's bound on its exact worst margin (+∞ or ≥ 0 where nothing is proven) into {@code out}. */
@@ -507,15 +512,33 @@ final class WeightedMisses {
 
         /** A bulk sample judged on its rescaled curve somewhere in [lo, hi]: see the class comment. */
         double rescaled(double lo, double hi) {
-            double passAtLo = pass(lo);
+            double passCodes = Double.POSITIVE_INFINITY;
+            double blockCodes = Double.POSITIVE_INFINITY;
+            if (solvesFromCodes) {
+                // the codes' P(lo) and Q(hi), a few flops each. In the first stage, where they already prove a miss the
+                // bins are not read: they could only lower a proven miss's bound further, which proves nothing more
+                // (Q(hi) is formed only where P(lo) proves nothing: it reads B over the curve's bins)
+                boolean first = measured == null && codesFirst;
+                passCodes = passFromCodes(lo, Double.POSITIVE_INFINITY);
+                if (first && passCodes < 0) {
+                    return passCodes;
+                }
+                blockCodes = blockFromCodes(hi, Double.POSITIVE_INFINITY);
+                if (first && blockCodes < 0) {
+                    return Math.min(passCodes, blockCodes);
+                }
+            }
+            double passAtLo = Math.min(passCodes, pass(lo));
             // below the bar (a met row's margin, ≥ 0) already: the split rule only matters for proving a miss
-            double blockAtHi = belowBar(passAtLo) ? Double.POSITIVE_INFINITY : block(hi);
+            double blockAtHi = belowBar(passAtLo) ? Double.POSITIVE_INFINITY : Math.min(blockCodes, block(hi));
             double whole = Math.min(passAtLo, blockAtHi);
             if (whole < 0 || !(hi > lo) || belowBar(whole)) {
                 return whole;
             }
-            if (solvesFromCodes) {
-                // the figure codes' bounds over thickness, split around the crossing of P and Q (never above whole)
+            if (solvesFromCodes && (measured != null || Double.isFinite(passCodes) && blocksFromCodes)) {
+                // split around the crossing (never above whole): in the first stage only where the codes bound a pass
+                // and some block reads codes (without either the splits give the whole range's bound back); in the
+                // second stage always, as P and Q are then also read on the curve at the splits
                 whole = Math.min(whole, aroundTheCrossing(lo, hi, passAtLo, blockAtHi));
                 if (whole < 0 || belowBar(whole)) {
                     return whole;
@@ -579,6 +602,14 @@ final class WeightedMisses {
                 blockAtB = Math.min(blockAtB, block(b));
             }
             return Math.max(Math.min(passAtLo, blockAtA), Math.max(Math.min(passAtA, blockAtB), Math.min(passAtB, blockAtHi)));
+        }
+
+        /**
+         * Whether the first stage of a solve reads the codes' bounds first and skips the bins where they prove a miss
+         * ({@code -Dsieve.store.solve-codes-first=false}: the bins on every curve, for benchmarks and tests).
+         */
+        private static boolean codesFirst() {
+            return !"false".equals(System.getProperty("sieve.store.solve-codes-first"));
         }
 
         /** P(x) from the figure codes alone, capped by {@code cap} (a P at a thinner x): every pass margin at d ≥ x. */
