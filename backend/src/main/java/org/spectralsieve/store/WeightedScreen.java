@@ -1225,8 +1225,7 @@ public final class WeightedScreen {
             }
             double lnF = lnFigureOf(curve);
             double k = Math.max(1, thickestMm / store.thicknessMm(curve));
-            double r = surfaces(curve).largest;
-            double lnC = k > 1 ? Math.log(1 - r * r) : 0;
+            double lnC = k > 1 ? surfaces(curve).lnContrast : 0;
             // log10 of c·(F/B)^k·(1 − POWER_ROOM)(1 − SLACK)², the floor as blockMargin takes it
             double log10Mean = (lnC + k * (lnF - lnBOfCurve)) / LN_10 + LOG10_POWER_DOWN + LOG10_DOWN;
             double bound = log10Threshold - Math.max(log10Mean, log10Floor) + LOG_ROOM;
@@ -1407,6 +1406,8 @@ public final class WeightedScreen {
         /** (1 − R_min) / (1 + R_min): the largest T a resolved reading can have. */
         final double ceiling;
         final double leastFarFactor;
+        /** ln(1 − R_max²): the thickened bound's factor c, formed once ({@code Query.thickenedFromCode} reads it per split). */
+        final double lnContrast;
         private final double lnOneMinusLargest;
         private final double lnOnePlusLargest;
         private final double lnOneMinusSmallest;
@@ -1418,6 +1419,7 @@ public final class WeightedScreen {
             this.logLoss = Math.log(((1 - largest) * (1 - largest)) / (1 + SLACK));
             this.ceiling = (1 - smallest) / (1 + smallest);
             this.leastFarFactor = largest < 1 ? WeightedScreen.leastFarFactor(largest) : Double.NaN;
+            this.lnContrast = Math.log(1 - largest * largest);
             this.lnOneMinusLargest = Math.log(1 - largest);
             this.lnOnePlusLargest = Math.log(1 + largest);
             this.lnOneMinusSmallest = Math.log(1 - smallest);
