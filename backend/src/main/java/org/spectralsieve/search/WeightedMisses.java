@@ -35,6 +35,8 @@ final class WeightedMisses {
 
     /** Splits tried inside a solved range, geometric between its ends. */
     private static final int SPLITS = 7;
+    /** Bisection steps for the crossing of the figure codes' P and Q in a solved range ({@code Bounds#aroundTheCrossing}). */
+    private static final int CROSSING_STEPS = 10;
 
     private WeightedMisses() {
     }
@@ -297,6 +299,12 @@ final class WeightedMisses {
         private org.spectralsieve.spectrum.Curve measured;
         /** The bar of the second bound being formed ({@link SecondStage#bound(int, org.spectralsieve.spectrum.Curve, double)}), else -∞. */
         private double bar = Double.NEGATIVE_INFINITY;
+        /** Whether some clause reads the figure codes' bounds over thickness ({@link WeightedScreen.Query#solvesFromCode}). */
+        private final boolean solvesFromCodes;
+        /** Whether some block clause reads the figure codes' bounds over thickness. */
+        private final boolean blocksFromCodes;
+        /** {@link #codesFirst()}, read once per search. */
+        private final boolean codesFirst = codesFirst();
 
         Bounds(SpectralStore store, ThicknessSpec spec, List<WeightedScreen.Query> queries, List<Boolean> seeThrough,
                boolean diffuseLayer, boolean reference, int from, int to) {
@@ -308,6 +316,8 @@ final class WeightedMisses {
             this.reference = reference;
             this.from = from;
             this.to = to;
+            this.solvesFromCodes = !reference && queries.stream().anyMatch(WeightedScreen.Query::solvesFromCode);
+            this.blocksFromCodes = solvesFromCodes && queries.stream().anyMatch(q -> !q.passes() && q.solvesFromCode());
         }
 
         /** Each curve's bound on its exact worst margin (+∞ or ≥ 0 where nothing is proven) into {@code out}. */
@@ -502,12 +512,37 @@ final class WeightedMisses {
 
         /** A bulk sample judged on its rescaled curve somewhere in [lo, hi]: see the class comment. */
         double rescaled(double lo, double hi) {
-            double passAtLo = pass(lo);
+            double passCodes = Double.POSITIVE_INFINITY;
+            double blockCodes = Double.POSITIVE_INFINITY;
+            if (solvesFromCodes) {
+                // the codes' P(lo) and Q(hi), a few flops each. In the first stage, where they already prove a miss the
+                // bins are not read: they could only lower a proven miss's bound further, which proves nothing more
+                // (Q(hi) is formed only where P(lo) proves nothing: it reads B over the curve's bins)
+                boolean first = measured == null && codesFirst;
+                passCodes = passFromCodes(lo, Double.POSITIVE_INFINITY);
+                if (first && passCodes < 0) {
+                    return passCodes;
+                }
+                blockCodes = blockFromCodes(hi, Double.POSITIVE_INFINITY);
+                if (first && blockCodes < 0) {
+                    return Math.min(passCodes, blockCodes);
+                }
+            }
+            double passAtLo = Math.min(passCodes, pass(lo));
             // below the bar (a met row's margin, ≥ 0) already: the split rule only matters for proving a miss
-            double blockAtHi = belowBar(passAtLo) ? Double.POSITIVE_INFINITY : block(hi);
+            double blockAtHi = belowBar(passAtLo) ? Double.POSITIVE_INFINITY : Math.min(blockCodes, block(hi));
             double whole = Math.min(passAtLo, blockAtHi);
             if (whole < 0 || !(hi > lo) || belowBar(whole)) {
                 return whole;
+            }
+            if (solvesFromCodes && (measured != null || Double.isFinite(passCodes) && blocksFromCodes)) {
+                // split around the crossing (never above whole): in the first stage only where the codes bound a pass
+                // and some block reads codes (without either the splits give the whole range's bound back); in the
+                // second stage always, as P and Q are then also read on the curve at the splits
+                whole = Math.min(whole, aroundTheCrossing(lo, hi, passAtLo, blockAtHi));
+                if (whole < 0 || belowBar(whole)) {
+                    return whole;
+                }
             }
             // a split proves more only where both the pass is missed above it and the block below it
             double passAtHi = pass(hi);
@@ -528,10 +563,77 @@ final class WeightedMisses {
                 }
                 double right = Math.min(pass(s), blockAtHi);
                 if (right < 0) {
-                    return Math.max(left, right);
+                    return Math.min(whole, Math.max(left, right));
                 }
             }
             return whole;
+        }
+
+        /**
+         * The sample's bound over [lo, hi] from three splits placed around the crossing of the figure codes' P and Q
+         * (docs/weighted-screening.md, "Bounds over thickness from the figure codes"): for any lo ≤ a ≤ b ≤ hi every
+         * judged d lies in [lo, a], [a, b] or [b, hi], where its worst margin is at most min(P(lo), Q(a)),
+         * min(P(a), Q(b)) or min(P(b), Q(hi)) (P(x) bounds every pass margin at d ≥ x, Q(x) every block margin at
+         * d ≤ x); so the largest of the three bounds it wherever the judgement lands, sound whichever a and b are
+         * taken. They are found by bisecting P − Q on the codes' closed forms ({@link WeightedScreen.Query#thinnedFromCode},
+         * {@link WeightedScreen.Query#thickenedFromCode}, a few flops each), each capped by the whole range's
+         * P(lo) and Q(hi) (which bound every smaller range's too); in the second stage P and Q at a and b are also
+         * read on the curve.
+         */
+        private double aroundTheCrossing(double lo, double hi, double passAtLo, double blockAtHi) {
+            double a = lo;
+            double b = hi;
+            for (int i = 0; i < CROSSING_STEPS; i++) {
+                double m = 0.5 * (a + b);
+                if (passFromCodes(m, passAtLo) > blockFromCodes(m, blockAtHi)) {
+                    a = m; // the pass side still above: the crossing lies above m
+                } else {
+                    b = m;
+                }
+            }
+            double passAtA = passFromCodes(a, passAtLo);
+            double passAtB = passFromCodes(b, passAtLo);
+            double blockAtA = blockFromCodes(a, blockAtHi);
+            double blockAtB = blockFromCodes(b, blockAtHi);
+            if (measured != null) { // the second stage: the curve's own bounds at the two splits as well
+                passAtA = Math.min(passAtA, pass(a));
+                passAtB = Math.min(passAtB, pass(b));
+                blockAtA = Math.min(blockAtA, block(a));
+                blockAtB = Math.min(blockAtB, block(b));
+            }
+            return Math.max(Math.min(passAtLo, blockAtA), Math.max(Math.min(passAtA, blockAtB), Math.min(passAtB, blockAtHi)));
+        }
+
+        /**
+         * Whether the first stage of a solve reads the codes' bounds first and skips the bins where they prove a miss
+         * ({@code -Dsieve.store.solve-codes-first=false}: the bins on every curve, for benchmarks and tests).
+         */
+        private static boolean codesFirst() {
+            return !"false".equals(System.getProperty("sieve.store.solve-codes-first"));
+        }
+
+        /** P(x) from the figure codes alone, capped by {@code cap} (a P at a thinner x): every pass margin at d ≥ x. */
+        private double passFromCodes(double x, double cap) {
+            double bound = cap;
+            for (int i = 0; i < queries.size(); i++) {
+                WeightedScreen.Query q = queries.get(i);
+                if (q.passes() && !skipped(i)) {
+                    bound = Math.min(bound, q.thinnedFromCode(curve, x));
+                }
+            }
+            return bound;
+        }
+
+        /** Q(x) from the figure codes alone, capped by {@code cap} (a Q at a thicker x): every block margin at d ≤ x. */
+        private double blockFromCodes(double x, double cap) {
+            double bound = cap;
+            for (int i = 0; i < queries.size(); i++) {
+                WeightedScreen.Query q = queries.get(i);
+                if (!q.passes() && !skipped(i)) {
+                    bound = Math.min(bound, q.thickenedFromCode(curve, x));
+                }
+            }
+            return bound;
         }
     }
 }

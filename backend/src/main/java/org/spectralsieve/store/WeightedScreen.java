@@ -56,6 +56,10 @@ public final class WeightedScreen {
     private static final double LOG10_DOWN = Math.log10(1 - 1e-6);
     /** Decades added to a bound formed from logarithms ({@code Query.fromFigureCode}): far above their rounding. */
     private static final double LOG_ROOM = 1e-9;
+    private static final double LN_10 = Math.log(10);
+    /** log10(1 ± POWER_ROOM): the room of a power formed from logarithms, in decades. */
+    private static final double LOG10_POWER_UP = Math.log10(1 + 1e-12);
+    private static final double LOG10_POWER_DOWN = Math.log10(1 - 1e-12);
     /** Bytes per curve: two bin codes per bin and a short naming the curve's wavelength range. */
     public static final int BYTES_PER_CURVE = 2 * BINS + Short.BYTES + FigureCodes.BYTES_PER_CURVE;
 
@@ -120,6 +124,16 @@ public final class WeightedScreen {
      */
     static boolean figureCodesOn() {
         return !"false".equals(System.getProperty("sieve.store.figure-codes"));
+    }
+
+    /**
+     * Whether a solve's P(x) and Q(x) also read the bounds over thickness from the figure codes
+     * ({@link Query#thinnedFromCode}, {@link Query#thickenedFromCode}; docs/weighted-screening.md, "Bounds over
+     * thickness from the figure codes"): {@code -Dsieve.store.solve-from-codes=false} reads the bins alone there
+     * (benchmarks and tests; read per query, so a benchmark can alternate both in one JVM).
+     */
+    public static boolean solveFromCodesOn() {
+        return !"false".equals(System.getProperty("sieve.store.solve-from-codes"));
     }
 
     /** The store's figure codes (tests). */
@@ -321,6 +335,11 @@ public final class WeightedScreen {
         private final double log10Floor;
         private int lnBCurve = -1;
         private double lnBOfCurve;
+        /** Whether P(x) and Q(x) read the figure code's bounds over thickness ({@link #solveFromCodesOn}). */
+        private final boolean solveFromCodes;
+        private int lnFCurve = -1;
+        /** ln of the code's upper (pass) or lower (block, both ends equal) figure of {@link #lnFCurve}, slack included; NaN: none. */
+        private double lnFOfCurve;
 
         private Query(SpectralStore store, WeightedClause clause, Optional<double[]> layerRange) {
             this.store = store;
@@ -338,6 +357,7 @@ public final class WeightedScreen {
             // the first code whose u̲ can meet a block, and the first whose ū cannot miss it (the ends fall as codes rise)
             this.canMeetFrom = firstCode(c -> FigureCodes.lowerOf(c) * (1 - SLACK) <= threshold);
             this.canMissBelow = firstCode(c -> !(FigureCodes.upperOf(c) * (1 + SLACK) > threshold));
+            this.solveFromCodes = figure >= 0 && solveFromCodesOn();
         }
 
         /**
@@ -1133,6 +1153,133 @@ public final class WeightedScreen {
             return blockMargin(sum / total);
         }
 
+        /**
+         * Whether {@link #thinnedFromCode} or {@link #thickenedFromCode} can say anything on this query (the clause's
+         * figure is kept, no layer, not switched off): the split rule of a solve then looks for the crossing.
+         */
+        public boolean solvesFromCode() {
+            return solveFromCodes;
+        }
+
+        /**
+         * A pass of a bulk curve judged at any thickness ≥ {@code thinnestMm} (docs/weighted-screening.md, "Bounds over
+         * thickness from the figure codes"), from the curve's figure code alone: +∞ where {@link #thinned} is, where the
+         * code says nothing, or with the codes switched off. For x ≥ d0 the code's as-measured bound (T only falls as
+         * the sample thickens). For x &lt; d0, k = x/d0: at every integration point λ the thinned curve's upper value is
+         * at most A·max(U0(λ), ε)^k (A = (1 − R_max)^(−2k), or on a regular curve with a smallest reflectance the
+         * smaller max(1, h_max(k)) of {@link #thinned}'s surface bound; both powers of the measured upper value, so
+         * they commute with the absorbance interpolation, and an unresolved reading min(T0, 1) lies below them); the
+         * figure is a weighted mean Σ ŵ·U(λ) with ŵ ≥ 0, Σ ŵ = 1, and x ↦ x^k is concave for k ≤ 1, so
+         * Σ ŵ·A·max(U0, ε)^k ≤ A·(Σ ŵ·max(U0, ε))^k ≤ A·(U0 figure + ε)^k, with the figure at most the code's
+         * {@link FigureCodes#upperOf}. In decades the bound is linear in k: no curve read, no power formed.
+         */
+        public double thinnedFromCode(int curve, double thinnestMm) {
+            if (!solveFromCodes || !pass || !(thinnestMm > 0) || !store.isBulk(curve) || layerRange.isPresent()) {
+                return Double.POSITIVE_INFINITY;
+            }
+            double d0 = store.thicknessMm(curve);
+            if (!(d0 > 0)) {
+                return Double.POSITIVE_INFINITY;
+            }
+            if (thinnestMm >= d0) {
+                double b = fromFigureCode(curve);
+                return Double.isNaN(b) ? Double.POSITIVE_INFINITY : b;
+            }
+            double lnF = lnFigureOf(curve);
+            if (Double.isNaN(lnF) || shares(curve).length == 0) {
+                return Double.POSITIVE_INFINITY;
+            }
+            Surfaces surfaces = surfaces(curve);
+            if (!(surfaces.largest < 1)) {
+                return Double.POSITIVE_INFINITY;
+            }
+            double k = thinnestMm / d0;
+            double lnA = -k * surfaces.logLoss; // (1 − R_max)^(−2k), the slack once more
+            if (regular(curve) && surfaces.smallest >= 0) {
+                lnA = Math.min(lnA, Math.max(0, Math.max(surfaces.lnSmallestFactor(k), surfaces.lnLargestFactor(k))));
+            }
+            // log10 of A·F^k·(1 + POWER_ROOM)(1 + SLACK)², the floor as passMargin takes it
+            // every thinned value is at most 1 (a slab's T is below its lossless ceiling, an unresolved reading keeps
+            // min(T0, 1)), so the figure is too
+            double log10Mean = Math.min(0, (lnA + k * lnF) / LN_10) + LOG10_POWER_UP + 2 * LOG10_UP;
+            return Math.max(log10Mean, log10Floor) - log10Threshold + LOG_ROOM;
+        }
+
+        /**
+         * A block of a bulk curve judged at any thickness ≤ {@code thickestMm} (docs/weighted-screening.md, "Bounds over
+         * thickness from the figure codes"), from the curve's figure code alone where its two ends are equal (the code
+         * then bounds the lower figure L0 from below): +∞ where {@link #thickened} is, where the ends differ or the code
+         * says nothing, or with the codes switched off. With k = max(1, x/d0), c and B as in {@link #thickened}: every
+         * value of the thickened lower end at an integration point is at least c·(L0(λ)/B)^k (the pointwise bound
+         * {@link #thickenedOnCurve} reads), and x ↦ x^k is convex for k ≥ 1, so the figure Σ ŵ·L(λ) is at least
+         * c·(Σ ŵ·L0(λ)/B)^k = c·(L0 figure/B)^k, the figure at least the code's {@link FigureCodes#lowerOf}. Linear
+         * in k in decades.
+         */
+        public double thickenedFromCode(int curve, double thickestMm) {
+            if (!solveFromCodes || !thickenable(curve, thickestMm)) {
+                return Double.POSITIVE_INFINITY;
+            }
+            int code = figures.code(figure, curve);
+            if (code == FigureCodes.NONE || code == FigureCodes.BELOW) {
+                return Double.POSITIVE_INFINITY;
+            }
+            double lnF = lnFigureOf(curve);
+            double k = Math.max(1, thickestMm / store.thicknessMm(curve));
+            double lnC = k > 1 ? surfaces(curve).lnContrast : 0;
+            // log10 of c·(F/B)^k·(1 − POWER_ROOM)(1 − SLACK)², the floor as blockMargin takes it
+            double log10Mean = (lnC + k * (lnF - lnBOfCurve)) / LN_10 + LOG10_POWER_DOWN + LOG10_DOWN;
+            double bound = log10Threshold - Math.max(log10Mean, log10Floor) + LOG_ROOM;
+            if (figures.endsEqual(figure, curve)) {
+                return bound; // L0 = U0: a met block's margin (on U) and a missed one's (on L) are both at most this
+            }
+            // L0 unknown: the same bound holds the upper figure U at d (points below detection read at their limit,
+            // which rescales like a reading), so a met block's margin log10(t/U) is at most it; a missed one's is
+            // negative. Where it is negative the block cannot meet at any d ≤ x: 0 bounds a met or missed row's margin
+            return Math.max(0, bound);
+        }
+
+        /**
+         * {@link #thickened}'s preconditions without its bins' sum: a bulk block without a layer, an index that gives
+         * R_max &lt; 1, k within the least far factor, and B known (formed into {@link #lnBOfCurve}).
+         */
+        private boolean thickenable(int curve, double thickestMm) {
+            double d0 = store.thicknessMm(curve);
+            if (pass || layerRange.isPresent() || !store.isBulk(curve) || !(d0 > 0) || !(thickestMm > 0)
+                    || shares(curve).length == 0) {
+                return false;
+            }
+            Surfaces surfaces = surfaces(curve);
+            double k = Math.max(1, thickestMm / d0);
+            if (!(surfaces.largest < 1) || !(k <= surfaces.leastFarFactor * (1 - 1e-9))) {
+                return false;
+            }
+            if (lnBCurve != curve) {
+                lnBOfCurve = lnBrightestOfCurve(curve);
+                lnBCurve = curve;
+            }
+            return !Double.isNaN(lnBOfCurve);
+        }
+
+        /**
+         * ln of the code's figure bound for the curve, formed once per curve: for a pass ln(ū·(1 + SLACK) + ε) (ε the
+         * absorbance floor, for the floored values the pointwise bound reads), for a block ln(u̲·(1 − SLACK)); NaN
+         * where the code says nothing.
+         */
+        private double lnFigureOf(int curve) {
+            if (lnFCurve != curve) {
+                int code = figures.code(figure, curve);
+                if (code == FigureCodes.NONE) {
+                    lnFOfCurve = Double.NaN;
+                } else if (pass) {
+                    lnFOfCurve = Math.log(FigureCodes.upperOf(code) * (1 + SLACK) + Curve.ABSORBANCE_FLOOR_T);
+                } else {
+                    lnFOfCurve = Math.log(FigureCodes.lowerOf(code) * (1 - SLACK));
+                }
+                lnFCurve = curve;
+            }
+            return lnFOfCurve;
+        }
+
         /** The measured lower end at nm (points below detection at 0), point {@code at} the last at or before it. */
         private static double lowerAt(Curve measured, int at, double nm) {
             double t0 = measured.belowDetection(at) ? 0 : measured.transmittance(at);
@@ -1259,6 +1406,8 @@ public final class WeightedScreen {
         /** (1 − R_min) / (1 + R_min): the largest T a resolved reading can have. */
         final double ceiling;
         final double leastFarFactor;
+        /** ln(1 − R_max²): the thickened bound's factor c, formed once ({@code Query.thickenedFromCode} reads it per split). */
+        final double lnContrast;
         private final double lnOneMinusLargest;
         private final double lnOnePlusLargest;
         private final double lnOneMinusSmallest;
@@ -1270,6 +1419,7 @@ public final class WeightedScreen {
             this.logLoss = Math.log(((1 - largest) * (1 - largest)) / (1 + SLACK));
             this.ceiling = (1 - smallest) / (1 + smallest);
             this.leastFarFactor = largest < 1 ? WeightedScreen.leastFarFactor(largest) : Double.NaN;
+            this.lnContrast = Math.log(1 - largest * largest);
             this.lnOneMinusLargest = Math.log(1 - largest);
             this.lnOnePlusLargest = Math.log(1 + largest);
             this.lnOneMinusSmallest = Math.log(1 - smallest);

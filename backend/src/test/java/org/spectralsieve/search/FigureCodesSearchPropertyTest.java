@@ -141,6 +141,58 @@ class FigureCodesSearchPropertyTest {
     }
 
     /**
+     * Property (docs/weighted-screening.md, "Bounds over thickness from the figure codes"): solved over a range, the
+     * search whose P(x) and Q(x) also read the figure codes' bounds over thickness, split around their crossing, gives
+     * exactly the rows of judging every admitted sample ({@link ExactReference}), in parallel, on one thread, with the
+     * first bounds alone and with those bounds switched off ({@code -Dsieve.store.solve-from-codes=false}); with the
+     * first bounds alone the codes judge fewer samples than without them in several trials and more in none.
+     */
+    @Test
+    void solvedOverARangeTheCodesBoundsOverThicknessGiveTheRowsOfJudgingEverySample() {
+        Random random = new Random(20261213L);
+        List<Material> materials = library.findMaterials(null, null);
+        SearchService parallel = new SearchService(library).parallelFrom(0);
+        SearchService oneThread = new SearchService(library).judging(SearchService.Judging.BOUNDED);
+        SearchService firstOnly = new SearchService(library).withoutSecondStage().judging(SearchService.Judging.BOUNDED);
+        int fewer = 0;
+        int more = 0;
+        for (int trial = 0; trial < 16; trial++) {
+            double lo = 0.4 + 3 * random.nextDouble();
+            double hi = lo * (1 + 6 * random.nextDouble());
+            String text = randomRequirement(random) + String.format(Locale.ROOT, ", thickness %.2f to %.2f mm", lo, hi);
+            Requirement requirement = RequirementParser.parse(text);
+            int limit = new int[] {1, 3, 5, 10, 20}[random.nextInt(5)];
+            List<RankedRow> expected = ExactReference.judgeEverySample(library, requirement, Optional.empty(),
+                    materials, limit);
+
+            assertThat(parallel.search(requirement, limit).rows()).as(text + " (limit " + limit + ")")
+                    .containsExactlyElementsOf(expected);
+            assertThat(oneThread.search(requirement, limit).rows()).as(text + " one thread")
+                    .containsExactlyElementsOf(expected);
+            Shortlist codesFirst = firstOnly.search(requirement, limit);
+            Shortlist binsFirst = withoutSolveFromCodes(() -> firstOnly.search(requirement, limit));
+            assertThat(codesFirst.rows()).as(text + " first bounds alone").containsExactlyElementsOf(expected);
+            assertThat(binsFirst.rows()).as(text + " first bounds alone, no bounds over thickness from the codes")
+                    .containsExactlyElementsOf(expected);
+            assertThat(withoutSolveFromCodes(() -> oneThread.search(requirement, limit)).rows())
+                    .as(text + " no bounds over thickness from the codes").containsExactlyElementsOf(expected);
+            fewer += codesFirst.judgedExactly() < binsFirst.judgedExactly() ? 1 : 0;
+            more += codesFirst.judgedExactly() > binsFirst.judgedExactly() ? 1 : 0;
+        }
+        assertThat(fewer).as("trials where the codes' bounds over thickness judge fewer").isGreaterThan(2);
+        assertThat(more).as("trials where they judge more").isZero();
+    }
+
+    private static Shortlist withoutSolveFromCodes(Supplier<Shortlist> search) {
+        System.setProperty("sieve.store.solve-from-codes", "false");
+        try {
+            return search.get();
+        } finally {
+            System.clearProperty("sieve.store.solve-from-codes");
+        }
+    }
+
+    /**
      * Property: thresholds a hair from a stored curve's own figure (2·10⁻⁵ relative, under 10⁻⁵ decades: a tenth of one
      * code step) still give the rows of judging every sample. The threshold sits just under or just over one
      * material's largest figure for a built-in LED, so that material's row meets or misses by that hair, and a bound

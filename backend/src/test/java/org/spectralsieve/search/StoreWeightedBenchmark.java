@@ -60,7 +60,11 @@ import org.spectralsieve.store.SyntheticCurves;
  * decoding only its own curve, as the service does (its snapshot's curve cache; {@code prepare(…, only)}); {@code codes}
  * and {@code decoded} (and every earlier rule) screen as the ninth pass did ({@code -Dsieve.store.bins-in-the-code-pass=false}
  * around their searches), {@code tenth} is {@code decoded} with the tenth pass's screen (the code pass in blocks of
- * curves, clause after clause, with the bins of an unknown lower end in the same block). Each line's {@code same_rows} says whether that rule's
+ * curves, clause after clause, with the bins of an unknown lower end in the same block) and a solve's P(x) and Q(x) from
+ * the bins alone ({@code -Dsieve.store.solve-from-codes=false} around its searches), {@code eleventh} is {@code tenth}
+ * with a solve's bounds over thickness from the figure codes, split around their crossing, the bins of the first stage
+ * read only where the codes prove no miss (the eleventh pass), {@code crossing} is {@code eleventh} with the bins read on
+ * every curve ({@code -Dsieve.store.solve-codes-first=false}). Each line's {@code same_rows} says whether that rule's
  * rows equalled the first rule's in every run. {@code -Dbench.storeWeightedModes=measured,solve} chooses the
  * requirements; {@code -Dbench.debug=true} prints, per whole search, the contenders, second bounds formed and the
  * time in them and in the exact judgement, and the last row.
@@ -141,7 +145,7 @@ class StoreWeightedBenchmark {
                         System.out.printf(Locale.ROOT, "BENCH store-weighted curves=%d mode=%s part=%s p50_ms=%.1f p95_ms=%.1f"
                                         + " proven=%d judged=%d runs=%d rule=%s judging=%s same_rows=%s%n", n, mode.getKey(), part, ms[runs / 2],
                                 ms[Math.min(runs - 1, (int) Math.ceil(runs * 0.95) - 1)], last[v].proven, last[v].judged,
-                                runs, rules[v], judged && List.of("current", "samples", "before", "settled", "bar", "codes", "decoded", "tenth").contains(rules[v])
+                                runs, rules[v], judged && List.of("current", "samples", "before", "settled", "bar", "codes", "decoded", "tenth", "eleventh", "crossing").contains(rules[v])
                                         ? System.getProperty("bench.storeWeightedJudging", "bounded") : "earlier", sameRows[v]);
                     }
                 }
@@ -195,10 +199,30 @@ class StoreWeightedBenchmark {
             }
         }
         if (judge && rule.equals("tenth") && !"earlier".equals(System.getProperty("bench.storeWeightedJudging", "bounded"))) {
-            // rule decoded with the bins of a block's unknown lower end read in the screen's pass over the codes
+            // rule decoded with the bins of a block's unknown lower end read in the screen's pass over the codes; a
+            // solve's P(x) and Q(x) from the bins alone, as before the eleventh pass
+            System.setProperty("sieve.store.solve-from-codes", "false");
+            try {
+                return searchBounded(store, requirement, limit, t0, true, true, true, true, true);
+            } finally {
+                System.clearProperty("sieve.store.solve-from-codes");
+            }
+        }
+        if (judge && rule.equals("eleventh") && !"earlier".equals(System.getProperty("bench.storeWeightedJudging", "bounded"))) {
+            // rule tenth with a solve's bounds over thickness from the figure codes, split around their crossing
             return searchBounded(store, requirement, limit, t0, true, true, true, true, true);
         }
-        if (!rule.equals("codes") && !rule.equals("decoded") && !rule.equals("tenth")) {
+        if (judge && rule.equals("crossing") && !"earlier".equals(System.getProperty("bench.storeWeightedJudging", "bounded"))) {
+            // rule eleventh with the bins read on every curve of a solve's first stage, even where the codes prove a miss
+            System.setProperty("sieve.store.solve-codes-first", "false");
+            try {
+                return searchBounded(store, requirement, limit, t0, true, true, true, true, true);
+            } finally {
+                System.clearProperty("sieve.store.solve-codes-first");
+            }
+        }
+        if (!rule.equals("codes") && !rule.equals("decoded") && !rule.equals("tenth") && !rule.equals("eleventh")
+                && !rule.equals("crossing")) {
             // every rule before the ninth pass screens with the bins alone (WeightedScreen.figureCodesOn)
             System.setProperty("sieve.store.figure-codes", "false");
         }
@@ -236,7 +260,7 @@ class StoreWeightedBenchmark {
         switch (rule) {
             case "earlier" -> WeightedMisses.addEarlier(proven, store, requirement, Optional.empty());
             case "reference" -> WeightedMisses.add(proven, store, requirement, Optional.empty(), false, true);
-            case "current", "samples", "before", "settled", "bar", "codes", "decoded", "tenth" -> WeightedMisses.add(proven, store, requirement, Optional.empty());
+            case "current", "samples", "before", "settled", "bar", "codes", "decoded", "tenth", "eleventh", "crossing" -> WeightedMisses.add(proven, store, requirement, Optional.empty());
             default -> throw new IllegalArgumentException("rule " + rule);
         }
         long t1 = System.nanoTime();
@@ -578,10 +602,17 @@ class StoreWeightedBenchmark {
         return out;
     }
 
+    /**
+     * The class of every synthetic material, parsed once: the service reads its materials' records as loaded, so a
+     * class parsed per material per search (a regular expression each) timed the benchmark, not the service.
+     */
+    private static final org.spectralsieve.library.MaterialClass PLASTIC_SHEET =
+            org.spectralsieve.library.MaterialClass.of("plastic sheet");
+
     /** A material record for a synthetic material (its curves are read from the store by id, not from here). */
     private static org.spectralsieve.library.Material material(StoredMaterial m, int firstCurve) {
         return new org.spectralsieve.library.Material(m.id(), "synthetic-" + m.id(), m.name(),
-                org.spectralsieve.library.MaterialClass.of("plastic sheet"), "", List.of(),
+                PLASTIC_SHEET, "", List.of(),
                 org.spectralsieve.library.Scaling.BULK, SyntheticCurves.INDICES[0], List.of());
     }
 
