@@ -1,5 +1,12 @@
 package org.spectralsieve.search;
 
+import static org.spectralsieve.search.DiffuseLastRanking.diffuseLast;
+import static org.spectralsieve.search.DiffuseLastRanking.rank;
+import static org.spectralsieve.search.DiffuseLastRanking.regularOnly;
+import static org.spectralsieve.search.RowDecoration.geometries;
+import static org.spectralsieve.search.RowDecoration.measured;
+import static org.spectralsieve.search.RowDecoration.revisions;
+
 import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.Collection;
@@ -1290,43 +1297,6 @@ public class SearchService {
     }
 
     /**
-     * The ranked rows. When the requirement has a see-through clause and does not accept total transmittance
-     * ({@link SeeThrough}), samples measured in total geometry cannot show what it asks: their rows follow
-     * every row judged in regular geometry, so a diffuser that misses a block clause by less never heads a
-     * list of sheets to see through. Otherwise one ranking ({@link Ranking}).
-     */
-    private static List<RankedRow> rank(Snapshot s, Requirement requirement, List<MaterialEvaluation> exact, int limit) {
-        if (!diffuseLast(requirement)) {
-            return Ranking.rank(exact, limit);
-        }
-        List<MaterialEvaluation> regular = regularOnly(s, exact);
-        List<RankedRow> rows = new ArrayList<>(Ranking.rank(regular, limit));
-        if (rows.size() < limit) {
-            Set<Long> ranked = new HashSet<>();
-            regular.forEach(e -> ranked.add(e.materialId()));
-            List<MaterialEvaluation> diffuse = exact.stream()
-                    .filter(e -> !ranked.contains(e.materialId()) && !isRegular(s, e)).toList();
-            for (RankedRow row : Ranking.rank(diffuse, limit - rows.size())) {
-                rows.add(new RankedRow(rows.size() + 1, row.materialId(), row.materialName(), row.evaluation()));
-            }
-        }
-        return List.copyOf(rows);
-    }
-
-    /** Whether total-geometry rows go after the regular ones (see {@link #rank}). */
-    private static boolean diffuseLast(Requirement requirement) {
-        return !requirement.acceptsTotalTransmittance() && requirement.clauses().stream().anyMatch(SeeThrough::needsRegular);
-    }
-
-    private static List<MaterialEvaluation> regularOnly(Snapshot s, List<MaterialEvaluation> exact) {
-        return exact.stream().filter(e -> isRegular(s, e)).toList();
-    }
-
-    private static boolean isRegular(Snapshot s, MaterialEvaluation e) {
-        return s.samples().get(e.evaluation().sampleId()).geometry() == Geometry.REGULAR;
-    }
-
-    /**
      * Sample id → an upper bound (negative) on its exact worst margin, for samples the store proves to miss
      * one of the requirement's screenable clauses (see the class comment).
      */
@@ -1548,38 +1518,6 @@ public class SearchService {
     private static boolean admits(Requirement r, Material m, SampleInfo s) {
         return r.materialClass().map(c -> c.equals(m.materialClass().label())).orElse(true)
                 && r.admitsGeometry(s.geometry().label());
-    }
-
-    /** Sample id → geometry label ("regular" or "total") of every row's sample, for the answer to show. */
-    private static Map<Long, String> geometries(Snapshot s, List<RankedRow> rows) {
-        Map<Long, String> out = new HashMap<>();
-        for (RankedRow row : rows) {
-            long id = row.evaluation().sampleId();
-            out.put(id, s.samples().get(id).geometry().label());
-        }
-        return out;
-    }
-
-    /** Sample id → the thickness every row's sample was measured at, where recorded (docs/result-rows.md). */
-    private static Map<Long, Double> measured(Snapshot s, List<RankedRow> rows) {
-        Map<Long, Double> out = new HashMap<>();
-        for (RankedRow row : rows) {
-            SampleInfo sample = s.samples().get(row.evaluation().sampleId());
-            if (PhysicalRanges.isThicknessMm(sample.thicknessMm())) {
-                out.put(sample.id(), sample.thicknessMm());
-            }
-        }
-        return out;
-    }
-
-    /** Sample id → the revisions of every row's sample and material the row was judged on (docs/undo.md). */
-    private static Map<Long, Shortlist.Revisions> revisions(Snapshot s, List<RankedRow> rows) {
-        Map<Long, Shortlist.Revisions> out = new HashMap<>();
-        for (RankedRow row : rows) {
-            SampleInfo sample = s.samples().get(row.evaluation().sampleId());
-            out.put(sample.id(), new Shortlist.Revisions(sample.revision(), s.materials().get(sample.materialId()).revision()));
-        }
-        return out;
     }
 
     /**
