@@ -1,5 +1,6 @@
 package org.spectralsieve.search;
 
+import static org.spectralsieve.search.Admission.admits;
 import static org.spectralsieve.search.DiffuseLastRanking.diffuseLast;
 import static org.spectralsieve.search.DiffuseLastRanking.rank;
 import static org.spectralsieve.search.DiffuseLastRanking.regularOnly;
@@ -42,7 +43,6 @@ import org.spectralsieve.requirement.FixedLayer;
 import org.spectralsieve.requirement.MadeThicknesses;
 import org.spectralsieve.requirement.MaterialEvaluation;
 import org.spectralsieve.requirement.MaterialJudge;
-import org.spectralsieve.requirement.NominalThickness;
 import org.spectralsieve.requirement.RankedRow;
 import org.spectralsieve.requirement.Ranking;
 import org.spectralsieve.requirement.Requirement;
@@ -53,7 +53,6 @@ import org.spectralsieve.requirement.StackLayer;
 import org.spectralsieve.requirement.ThicknessSpec;
 import org.spectralsieve.requirement.TransmittanceClause;
 import org.spectralsieve.spectrum.Curve;
-import org.spectralsieve.store.LayerBlockScreen;
 import org.spectralsieve.store.MissScreen;
 import org.spectralsieve.store.SampleReach;
 import org.spectralsieve.store.SpectralStore;
@@ -104,20 +103,8 @@ public class SearchService {
     private final LongFunction<Optional<Curve>> readCurve;
     /** How many searches judge at once ({@link #limitConcurrentJudgements}); unbounded unless configured. */
     private volatile JudgementLanes lanes = JudgementLanes.unbounded();
-    /** Whether weighted clauses are screened by the store ({@link WeightedScreen}); off only to measure it. */
-    private boolean screenWeighted = true;
-    /** Whether the weighted screen uses its earlier, weaker rule ({@link WeightedMisses#addEarlier}); benchmarks only. */
-    private boolean earlierWeightedScreen;
-    /**
-     * Whether blocks behind a fixed layer are screened ({@link LayerBlockScreen}); the system property
-     * {@code sieve.search.layer-block-screen=false} turns it off, only so a benchmark can time both ways.
-     */
-    private final boolean screenLayerBlocks = !"false".equals(System.getProperty("sieve.search.layer-block-screen"));
-    /**
-     * Whether weighted blocks behind a fixed layer are bounded ({@code WeightedScreen.Query#behindLayer}); off
-     * only so a benchmark can time the rule before them side by side ({@link #withEarlierLayerBounds}).
-     */
-    private boolean weightedLayerBlocks = true;
+    /** The store's screens giving each search its first bounds, with their switches. */
+    private final FirstBoundScreens screens = new FirstBoundScreens();
     /**
      * Whether a contender about to be judged gets a second bound on its own decoded curve
      * ({@link WeightedMisses#secondStage}); off only so a benchmark and tests can compare both ways
@@ -254,7 +241,7 @@ public class SearchService {
      */
     public static SearchService withoutWeightedScreen(JooqLibraryRepository library) {
         SearchService service = new SearchService(library);
-        service.screenWeighted = false;
+        service.screens.screenWeighted = false;
         return service;
     }
 
@@ -265,7 +252,7 @@ public class SearchService {
      */
     public static SearchService withEarlierWeightedScreen(JooqLibraryRepository library) {
         SearchService service = new SearchService(library);
-        service.earlierWeightedScreen = true;
+        service.screens.earlierWeightedScreen = true;
         return service;
     }
 
@@ -275,7 +262,7 @@ public class SearchService {
      * judged; for benchmarks and tests that compare both side by side.
      */
     public SearchService withEarlierLayerBounds() {
-        this.weightedLayerBlocks = false;
+        screens.weightedLayerBlocks = false;
         return this;
     }
 
@@ -634,8 +621,8 @@ public class SearchService {
         Optional<StackLayer> layer = requirement.layer().map(l -> resolveLayer(l, s));
         boolean diffuseLayer = layer.map(l -> s.samples().get(l.sampleId()).geometry() == Geometry.TOTAL).orElse(false);
         WeightedMisses.SecondStage[] formedSecondOut = new WeightedMisses.SecondStage[1];
-        FirstBounds firstBounds = rowArrays ? boundsByRow(s, requirement, layer, diffuseLayer, formedSecondOut)
-                : boundsBySampleId(s, requirement, layer, diffuseLayer, formedSecondOut);
+        FirstBounds firstBounds = rowArrays ? screens.boundsByRow(s, requirement, layer, diffuseLayer, formedSecondOut)
+                : screens.boundsBySampleId(s, requirement, layer, diffuseLayer, formedSecondOut);
         WeightedMisses.SecondStage formedSecond = formedSecondOut[0];
         boolean grouped = diffuseLast(requirement);
         ThicknessSpec spec = requirement.thickness();
@@ -787,7 +774,7 @@ public class SearchService {
                 ? (c, bar) -> {
                     WeightedMisses.SecondStage stage = idle.poll();
                     stage = stage != null ? stage
-                            : WeightedMisses.secondStage(s.store(), requirement, layer, diffuseLayer, weightedLayerBlocks);
+                            : WeightedMisses.secondStage(s.store(), requirement, layer, diffuseLayer, screens.weightedLayerBlocks);
                     try {
                         return c.oneSample() ? refinedSample(s, c, requirement, firstBounds, stage,
                                         secondBoundsToTheBar ? bar : Double.NEGATIVE_INFINITY)
@@ -866,112 +853,6 @@ public class SearchService {
         } catch (RuntimeException e) {
             return Optional.empty(); // prepared as before: its choice fails the same way there
         }
-    }
-
-    /**
-     * The search's first bounds kept in maps keyed by sample id, the way before the eleventh pass
-     * ({@code -Dsieve.search.row-arrays=false}): the same values as {@link #boundsByRow}.
-     *
-     * @param second receives the weighted screen's second stage, when it ran
-     */
-    private FirstBounds boundsBySampleId(Snapshot s, Requirement requirement, Optional<StackLayer> layer,
-                                         boolean diffuseLayer, WeightedMisses.SecondStage[] second) {
-        Map<Long, Double> provenMiss = provenMisses(s, requirement, layer);
-        if (screenLayerBlocks) {
-            layer.ifPresent(l -> addLayerBlockMisses(provenMiss, s.store(), requirement, l));
-        }
-        // an upper bound on each sample's margin of either sign, for rows that meet (WeightedMisses#marginBounds)
-        Map<Long, Double> marginBound = new HashMap<>();
-        // the store row of each sample with a bound, for the second stage (only those: it only tightens a bound)
-        Map<Long, Integer> rowOf = new HashMap<>();
-        if (screenWeighted && earlierWeightedScreen) {
-            WeightedMisses.addEarlier(provenMiss, s.store(), requirement, layer, diffuseLayer);
-        } else if (screenWeighted) {
-            WeightedMisses.Screen screen = WeightedMisses.screen(s.store(), requirement, layer, diffuseLayer, weightedLayerBlocks);
-            second[0] = screen.secondStage();
-            double[] bounds = screen.bounds();
-            for (int curve = 0; curve < bounds.length; curve++) {
-                if (bounds[curve] < 0) {
-                    provenMiss.merge(s.store().sampleId(curve), bounds[curve], Math::min);
-                }
-                if (bounds[curve] < Double.POSITIVE_INFINITY) {
-                    marginBound.merge(s.store().sampleId(curve), bounds[curve], Math::min);
-                    rowOf.put(s.store().sampleId(curve), curve);
-                }
-            }
-        }
-        // a sample whose stored record fails today's checks is held in the store at a thickness and index it can
-        // hold, not its own, so no screen's bound speaks for its exact row (UnusableRecordIsNeverHiddenTest)
-        s.unusable().forEach(id -> {
-            provenMiss.remove(id);
-            marginBound.remove(id);
-            rowOf.remove(id);
-        });
-        return FirstBounds.bySampleId(provenMiss, marginBound, rowOf);
-    }
-
-    /**
-     * The search's first bounds in arrays indexed by the store's row, filled in the store's row order from the same
-     * screens as {@link #boundsBySampleId} (a store holds each sample once, so a row's bounds are its sample's):
-     * no boxed entry per sample (docs/weighted-screening.md, "The service at a million curves").
-     *
-     * @param second receives the weighted screen's second stage, when it ran
-     */
-    private FirstBounds boundsByRow(Snapshot s, Requirement requirement, Optional<StackLayer> layer,
-                                    boolean diffuseLayer, WeightedMisses.SecondStage[] second) {
-        SpectralStore store = s.store();
-        double[] miss = new double[store.size()];
-        Arrays.fill(miss, Double.NaN);
-        RowBound lower = (curve, bound) -> miss[curve] = Double.isNaN(miss[curve]) ? bound : Math.min(miss[curve], bound);
-        provenMisses(s, requirement, layer, lower);
-        if (screenLayerBlocks) {
-            layer.ifPresent(l -> addLayerBlockMisses(store, requirement, l, lower));
-        }
-        double[] margin = null;
-        if (screenWeighted && earlierWeightedScreen) {
-            // the earlier rule keeps its maps (benchmarks only): its misses are carried over to the rows
-            Map<Long, Double> earlier = new HashMap<>();
-            WeightedMisses.addEarlier(earlier, store, requirement, layer, diffuseLayer);
-            for (int curve = 0; curve < store.size() && !earlier.isEmpty(); curve++) {
-                Double b = earlier.get(store.sampleId(curve));
-                if (b != null) {
-                    lower.at(curve, b);
-                }
-            }
-        } else if (screenWeighted) {
-            WeightedMisses.Screen screen = WeightedMisses.screen(store, requirement, layer, diffuseLayer, weightedLayerBlocks);
-            second[0] = screen.secondStage();
-            double[] bounds = screen.bounds();
-            margin = new double[store.size()];
-            Arrays.fill(margin, Double.NaN);
-            for (int curve = 0; curve < bounds.length; curve++) {
-                if (bounds[curve] < 0) {
-                    lower.at(curve, bounds[curve]);
-                }
-                if (bounds[curve] < Double.POSITIVE_INFINITY) {
-                    margin[curve] = bounds[curve];
-                }
-            }
-        }
-        // a sample whose stored record fails today's checks: no screen's bound speaks for its exact row (as by id)
-        for (long id : s.unusable()) {
-            SampleInfo sample = s.samples().get(id);
-            Material material = sample == null ? null : s.materials().get(sample.materialId());
-            int row = material == null ? -1 : s.index().rowOf(material, id);
-            if (row >= 0) {
-                miss[row] = Double.NaN;
-                if (margin != null) {
-                    margin[row] = Double.NaN;
-                }
-            }
-        }
-        int margins = 0;
-        if (margin != null) {
-            for (double b : margin) {
-                margins += Double.isNaN(b) ? 0 : 1;
-            }
-        }
-        return FirstBounds.byRow(miss, margin, margins);
     }
 
     /**
@@ -1191,13 +1072,13 @@ public class SearchService {
                                     Predicate<Material> within) {
         Optional<StackLayer> layer = requirement.layer().map(l -> resolveLayer(l, s));
         boolean diffuseLayer = layer.map(l -> s.samples().get(l.sampleId()).geometry() == Geometry.TOTAL).orElse(false);
-        Map<Long, Double> provenMiss = provenMisses(s, requirement, layer);
-        if (screenLayerBlocks) {
-            layer.ifPresent(l -> addLayerBlockMisses(provenMiss, s.store(), requirement, l));
+        Map<Long, Double> provenMiss = FirstBoundScreens.provenMisses(s, requirement, layer);
+        if (screens.screenLayerBlocks) {
+            layer.ifPresent(l -> FirstBoundScreens.addLayerBlockMisses(provenMiss, s.store(), requirement, l));
         }
-        if (screenWeighted && earlierWeightedScreen) {
+        if (screens.screenWeighted && screens.earlierWeightedScreen) {
             WeightedMisses.addEarlier(provenMiss, s.store(), requirement, layer, diffuseLayer);
-        } else if (screenWeighted) {
+        } else if (screens.screenWeighted) {
             WeightedMisses.add(provenMiss, s.store(), requirement, layer, diffuseLayer);
         }
         // the store holds a sample whose record fails today's checks at a storable thickness with n = 1.5, while
@@ -1264,116 +1145,6 @@ public class SearchService {
         double tookMs = (System.nanoTime() - started) / 1e6;
         return new Shortlist(requirement, rows, admitted, exact.size(), tookMs, layer, geometries(s, rows),
                 revisions(s, rows), measured(s, rows));
-    }
-
-    /**
-     * Sample id → an upper bound (negative) on its exact worst margin, for samples the store proves to miss
-     * one of the requirement's screenable clauses (see the class comment).
-     */
-    private static Map<Long, Double> provenMisses(Snapshot s, Requirement requirement, Optional<StackLayer> layer) {
-        Map<Long, Double> out = new HashMap<>();
-        provenMisses(s, requirement, layer, (curve, bound) -> out.put(s.store().sampleId(curve), bound));
-        return out;
-    }
-
-    /** A bound for a store row, handed to whoever keeps a search's first bounds (by row or by sample id). */
-    @FunctionalInterface
-    private interface RowBound {
-        void at(int curve, double bound);
-    }
-
-    /** Each store row the every-point screen proves to miss, with its bound (see {@link #provenMisses(Snapshot, Requirement, Optional)}). */
-    private static void provenMisses(Snapshot s, Requirement requirement, Optional<StackLayer> layer, RowBound out) {
-        List<TransmittanceClause> screened = new ArrayList<>();
-        for (var clause : requirement.clauses()) {
-            if (clause instanceof TransmittanceClause t && t.aggregate() == Aggregate.EVERY_POINT
-                    && (layer.isEmpty() || t.direction() == Direction.PASS && insideLayer(t, layer.get()))) {
-                screened.add(t);
-            }
-        }
-        if (screened.isEmpty()) {
-            return;
-        }
-        SpectralStore store = s.store();
-        double[][] bounds = MissScreen.marginBounds(store, screened);
-        for (int curve = 0; curve < store.size(); curve++) {
-            double d0 = store.thicknessMm(curve);
-            // the store was built with SampleRescaling's answer for every curve: no need to ask it again per clause
-            boolean rescalable = store.isBulk(curve);
-            double bound = Double.POSITIVE_INFINITY;
-            for (int c = 0; c < screened.size(); c++) {
-                if (keepsProof(screened.get(c).direction(), requirement.thickness(), d0, rescalable)) {
-                    bound = Math.min(bound, bounds[c][curve]);
-                }
-            }
-            if (bound < 0) {
-                out.at(curve, bound);
-            }
-        }
-    }
-
-    /**
-     * Lowers, or adds, the bound of each sample the store proves to miss an every-point block clause as measured
-     * behind the layer ({@link LayerBlockScreen}: the stack is never darker than its parts' product). Only as
-     * measured: at another thickness the candidate is rescaled before it is stacked, which this bound does not
-     * follow.
-     */
-    private static void addLayerBlockMisses(Map<Long, Double> provenMiss, SpectralStore store, Requirement requirement,
-                                            StackLayer layer) {
-        addLayerBlockMisses(store, requirement, layer,
-                (curve, bound) -> provenMiss.merge(store.sampleId(curve), bound, Math::min));
-    }
-
-    /** Each store row {@link #addLayerBlockMisses(Map, SpectralStore, Requirement, StackLayer)} bounds, to {@code out}. */
-    private static void addLayerBlockMisses(SpectralStore store, Requirement requirement, StackLayer layer, RowBound out) {
-        if (requirement.thickness().kind() != ThicknessSpec.Kind.AS_MEASURED) {
-            return;
-        }
-        List<TransmittanceClause> blocks = new ArrayList<>();
-        for (var clause : requirement.clauses()) {
-            if (clause instanceof TransmittanceClause t && t.aggregate() == Aggregate.EVERY_POINT
-                    && t.direction() == Direction.BLOCK) {
-                blocks.add(t);
-            }
-        }
-        if (blocks.isEmpty()) {
-            return;
-        }
-        double[][] bounds = LayerBlockScreen.marginBounds(store, blocks, layer.curve(), layer.index());
-        for (double[] clauseBounds : bounds) {
-            for (int curve = 0; curve < store.size(); curve++) {
-                if (clauseBounds[curve] < 0) {
-                    out.at(curve, clauseBounds[curve]);
-                }
-            }
-        }
-    }
-
-    private static boolean insideLayer(TransmittanceClause t, StackLayer layer) {
-        return layer.curve().covers(t.band().fromNm()) && layer.curve().covers(t.band().toNm());
-    }
-
-    /**
-     * Whether a miss proven on the measured curve stays proven at the thickness the sample is judged at:
-     * T falls as a bulk sample thickens, so a pass stays missed when judged at or above the measured
-     * thickness and a block when judged at or below it; a fixed part only at its own thickness (elsewhere
-     * it is unverified, not missed); so is a diffuse or scattering sample ({@link SampleRescaling}).
-     */
-    static boolean keepsProof(Direction direction, ThicknessSpec spec, double d0, boolean rescalable) {
-        if (spec.kind() == ThicknessSpec.Kind.AS_MEASURED) {
-            return true;
-        }
-        if (!(d0 > 0)) {
-            return false;
-        }
-        if (spec.kind() == ThicknessSpec.Kind.FIXED && NominalThickness.same(d0, spec.minMm())) {
-            return true; // judged as measured
-        }
-        if (!rescalable) {
-            // a coated part, or a diffuse or scattering sample: judged only at its own thickness
-            return spec.kind() == ThicknessSpec.Kind.RANGE && NominalThickness.within(d0, spec.minMm(), spec.maxMm());
-        }
-        return direction == Direction.PASS ? spec.minMm() >= d0 : spec.maxMm() <= d0;
     }
 
     /**
@@ -1453,44 +1224,6 @@ public class SearchService {
     }
 
     /**
-     * {@link #admits} for one search, split so a loop over a million samples reads a table: the material's class
-     * compared once per material, each geometry's admission formed once (its label is formed per call).
-     */
-    private static final class Admission {
-
-        /** The asked class label, null when any class is admitted. */
-        private final String materialClass;
-        private final boolean[] byGeometry = new boolean[Geometry.values().length];
-
-        Admission(Requirement requirement) {
-            this.materialClass = requirement.materialClass().orElse(null);
-            for (Geometry g : Geometry.values()) {
-                byGeometry[g.ordinal()] = requirement.admitsGeometry(g.label());
-            }
-        }
-
-        /** The material's part of {@link #admits}. */
-        boolean material(Material m) {
-            return materialClass == null || materialClass.equals(m.materialClass().label());
-        }
-
-        /** The sample's part of {@link #admits}. */
-        boolean geometry(SampleInfo s) {
-            return geometry(s.geometry());
-        }
-
-        /** The sample's part of {@link #admits}, from its geometry. */
-        boolean geometry(Geometry g) {
-            return byGeometry[g.ordinal()];
-        }
-    }
-
-    private static boolean admits(Requirement r, Material m, SampleInfo s) {
-        return r.materialClass().map(c -> c.equals(m.materialClass().label())).orElse(true)
-                && r.admitsGeometry(s.geometry().label());
-    }
-
-    /**
      * The class labels the library's materials are filed under, sorted: the classes a requirement's class
      * filter may name (any other would search nothing).
      */
@@ -1533,5 +1266,13 @@ public class SearchService {
     /** The snapshot to answer from, rebuilt first when the library changed ({@link SnapshotHolder#current}). */
     private Snapshot current() {
         return snapshots.current();
+    }
+
+    /**
+     * Whether a miss proven on the measured curve stays proven at the thickness the sample is judged at
+     * ({@link FirstBoundScreens#keepsProof}; the weighted screen's proofs follow the same rule).
+     */
+    static boolean keepsProof(Direction direction, ThicknessSpec spec, double d0, boolean rescalable) {
+        return FirstBoundScreens.keepsProof(direction, spec, d0, rescalable);
     }
 }
