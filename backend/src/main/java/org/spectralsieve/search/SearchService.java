@@ -37,7 +37,6 @@ import org.spectralsieve.library.StatedThicknesses;
 import org.spectralsieve.library.UnusableRecordException;
 import org.spectralsieve.optics.PhysicalRanges;
 import org.spectralsieve.requirement.Aggregate;
-import org.spectralsieve.requirement.Candidate;
 import org.spectralsieve.requirement.Direction;
 import org.spectralsieve.requirement.FixedLayer;
 import org.spectralsieve.requirement.MadeThicknesses;
@@ -47,11 +46,10 @@ import org.spectralsieve.requirement.RankedRow;
 import org.spectralsieve.requirement.Ranking;
 import org.spectralsieve.requirement.Requirement;
 import org.spectralsieve.requirement.SampleEvaluation;
-import org.spectralsieve.requirement.SampleEvaluator;
-import org.spectralsieve.requirement.SampleJudge;
 import org.spectralsieve.requirement.StackLayer;
 import org.spectralsieve.requirement.ThicknessSpec;
 import org.spectralsieve.requirement.TransmittanceClause;
+import org.spectralsieve.search.MaterialCandidates.Prepared;
 import org.spectralsieve.spectrum.Curve;
 import org.spectralsieve.store.MissScreen;
 import org.spectralsieve.store.SampleReach;
@@ -99,8 +97,8 @@ public class SearchService {
 
     /** The snapshot answered from, rebuilt when the library changed. */
     private final SnapshotHolder snapshots;
-    /** Where a curve the snapshot's cache does not hold is read from: the database, or a fixed snapshot's source. */
-    private final LongFunction<Optional<Curve>> readCurve;
+    /** A material's samples made ready for the exact judgement, their curves read through the snapshot's cache. */
+    private final MaterialCandidates candidates;
     /** How many searches judge at once ({@link #limitConcurrentJudgements}); unbounded unless configured. */
     private volatile JudgementLanes lanes = JudgementLanes.unbounded();
     /** The store's screens giving each search its first bounds, with their switches. */
@@ -124,19 +122,6 @@ public class SearchService {
      * ways ({@link #withMaterialsWhole}).
      */
     private boolean samplesAsContenders = true;
-    /**
-     * Whether a sample prepared alone is found before the others are checked, and a material's made thicknesses are
-     * the snapshot's, formed once ({@link #madeOf}); {@code -Dsieve.search.prepared-once=false} forms them per sample
-     * and checks every sample, the way before, only so the load benchmark can time both ways (the same candidates).
-     */
-    private final boolean preparedOnce = !"false".equals(System.getProperty("sieve.search.prepared-once"));
-    /**
-     * Recent exact judgements of one sample, handed out again for the same arguments ({@link JudgementMemo},
-     * docs/judgement-memo.md); null judges every sample afresh ({@code -Dsieve.search.judgement-memo=false} or
-     * {@link #withoutJudgementMemo}), only so a benchmark and tests can compare both ways (the answers are the same).
-     */
-    private volatile JudgementMemo memo = JudgementMemo.enabledByDefault()
-            ? new JudgementMemo(JudgementMemo.entriesByDefault()) : null;
     /** Rows known to be "not judged" from thicknesses alone wait last ({@link SettledRows}); off: judged as any other. */
     private boolean settledRows = true;
     /**
@@ -193,19 +178,19 @@ public class SearchService {
 
     /** The same service judging every sample afresh, as before {@link JudgementMemo}: the same answers. */
     public SearchService withoutJudgementMemo() {
-        this.memo = null;
+        candidates.memo = null;
         return this;
     }
 
     /** The same service keeping its exact judgements in {@code kept} (tests: a small or a deliberately stale one). */
     SearchService withJudgementMemo(JudgementMemo kept) {
-        this.memo = Objects.requireNonNull(kept, "kept");
+        candidates.memo = Objects.requireNonNull(kept, "kept");
         return this;
     }
 
     /** Tells the memo a search begins, so a requirement object searched again counts as asked again. */
     private void startsASearch() {
-        JudgementMemo kept = memo;
+        JudgementMemo kept = candidates.memo;
         if (kept != null) {
             kept.searchStarts();
         }
@@ -213,7 +198,7 @@ public class SearchService {
 
     /** The memo's hits, misses and entries (empty when the service keeps none): for the debug and BENCH lines. */
     public Optional<JudgementMemo.Counts> judgementMemoCounts() {
-        JudgementMemo kept = memo;
+        JudgementMemo kept = candidates.memo;
         return kept == null ? Optional.empty() : Optional.of(kept.counts());
     }
 
@@ -359,11 +344,11 @@ public class SearchService {
 
     private SearchService(JooqLibraryRepository library, LongConsumer beforeInstall, long curveCacheBytes) {
         this.snapshots = new SnapshotHolder(library, beforeInstall, curveCacheBytes);
-        this.readCurve = library::findCurve;
+        this.candidates = new MaterialCandidates(library::findCurve);
     }
 
     private SearchService(Snapshot fixed, LongFunction<Optional<Curve>> readCurve) {
-        this.readCurve = Objects.requireNonNull(readCurve, "readCurve");
+        this.candidates = new MaterialCandidates(readCurve);
         this.snapshots = new SnapshotHolder(fixed);
     }
 
@@ -442,12 +427,12 @@ public class SearchService {
         curveOfMaterial.forEach((materialId, curve) -> {
             Material material = s.materials().get(materialId);
             if (boundSamples && curve != NO_CURVE) {
-                Prepared p = prepare(s, material, requirement, false);
+                Prepared p = candidates.prepare(s, material, requirement, false);
                 Optional<List<MaterialEvaluation>> bestFirst = BestSampleFirst.judge(p.candidates(), p.failed(),
                         requirement, reach.curvesOfMaterialOf(curve), reach, grouped, p.sampleJudge());
                 exact.addAll(bestFirst.orElseGet(() -> p.judge(requirement, Optional.empty())));
             } else {
-                exact.addAll(judge(s, material, requirement, Optional.empty(), false));
+                exact.addAll(candidates.judge(s, material, requirement, Optional.empty(), false));
             }
         });
     }
@@ -471,130 +456,6 @@ public class SearchService {
             startsASearch();
             return searchExactly(s, requirement, limit, started, m -> within.contains(m.id()));
         });
-    }
-
-    /**
-     * The material's admitted samples, judged exactly on their stored curves (not the store's quantized
-     * copy), each where it is the nearest measurement ({@link MaterialJudge}).
-     *
-     * @param diffuseLayer the requirement's fixed layer was measured in total geometry, so the light of every
-     *                     path includes scatter
-     */
-    private List<MaterialEvaluation> judge(Snapshot s, Material material, Requirement requirement,
-                                           Optional<StackLayer> layer, boolean diffuseLayer) {
-        return prepare(s, material, requirement, diffuseLayer).judge(requirement, layer);
-    }
-
-    /**
-     * A material's admitted samples made ready for {@link MaterialJudge}: the candidates, and a row saying why
-     * for each sample that could not become one.
-     */
-    private record Prepared(Material material, List<Candidate> candidates, List<MaterialEvaluation> failed,
-                            SampleJudge sampleJudge) {
-
-        List<MaterialEvaluation> judge(Requirement requirement, Optional<StackLayer> layer) {
-            List<MaterialEvaluation> out = new ArrayList<>(failed);
-            if (!candidates.isEmpty()) {
-                try {
-                    out.addAll(MaterialJudge.evaluate(candidates, requirement, layer, sampleJudge));
-                } catch (RuntimeException e) {
-                    // the material's samples are judged together: when that fails, each says why, the search goes on
-                    candidates.forEach(c -> out.add(notComputable(material, c.sampleId(), c.thicknessMm(), requirement, e)));
-                }
-            }
-            return out;
-        }
-
-        /**
-         * The row of one sample as {@link #judge} forms it, alone (never for a solved range): its failure row when
-         * it could not become a candidate; every row says why when the material's judgement fails, so this one does.
-         */
-        List<MaterialEvaluation> judgeOne(Requirement requirement, Optional<StackLayer> layer, long sampleId) {
-            for (MaterialEvaluation f : failed) {
-                if (f.evaluation().sampleId() == sampleId) {
-                    return List.of(f);
-                }
-            }
-            try {
-                return MaterialJudge.evaluateOne(candidates, requirement, layer, sampleId, sampleJudge);
-            } catch (RuntimeException e) {
-                return candidates.stream().filter(c -> c.sampleId() == sampleId)
-                        .map(c -> notComputable(material, c.sampleId(), c.thicknessMm(), requirement, e)).toList();
-            }
-        }
-
-        /** The samples {@link MaterialJudge} judges for the requirement's thickness (empty when that fails). */
-        Set<Long> judgedSamples(ThicknessSpec spec) {
-            Set<Long> out = new HashSet<>();
-            try {
-                MaterialJudge.choose(candidates, spec).forEach(j -> out.add(j.candidate().sampleId()));
-            } catch (RuntimeException e) {
-                return Set.of(); // judge() then fails the same way: every row says why, none meets
-            }
-            return out;
-        }
-    }
-
-    private Prepared prepare(Snapshot s, Material material, Requirement requirement, boolean diffuseLayer) {
-        return prepare(s, material, requirement, diffuseLayer, BoundedJudgement.WHOLE_MATERIAL);
-    }
-
-    /**
-     * @param only {@link BoundedJudgement#WHOLE_MATERIAL}, or the one sample to prepare (as measured a sample's row
-     *             needs no other sample's curve; the thicknesses the material is made in still come from all)
-     */
-    private Prepared prepare(Snapshot s, Material material, Requirement requirement, boolean diffuseLayer, long only) {
-        MadeThicknesses made = preparedOnce ? madeOf(s, material) : made(material);
-        List<Candidate> candidates = new ArrayList<>();
-        List<MaterialEvaluation> failed = new ArrayList<>();
-        for (SampleInfo sample : material.samples()) {
-            if (preparedOnce ? (only == BoundedJudgement.WHOLE_MATERIAL || sample.id() == only) && admits(requirement, material, sample)
-                    : admits(requirement, material, sample) && (only == BoundedJudgement.WHOLE_MATERIAL || sample.id() == only)) {
-                try {
-                    Curve curve = curve(s, sample.id()).orElseThrow(
-                            () -> new IllegalStateException("the sample has no readable curve"));
-                    SampleRescaling rescaling = SampleRescaling.of(material, sample);
-                    candidates.add(new Candidate(sample.id(), material.id(), material.name(), curve,
-                            sample.thicknessMm(), rescaling.rescalable(), material.refractiveIndex(), made,
-                            sample.geometry() == Geometry.TOTAL || diffuseLayer, rescaling.reason()));
-                } catch (RuntimeException e) {
-                    failed.add(notComputable(material, sample.id(), sample.thicknessMm(), requirement, e));
-                }
-            }
-        }
-        return new Prepared(material, candidates, failed, memo != null ? memo : SampleJudge.EXACT);
-    }
-
-    /**
-     * The sample's decoded curve: from the snapshot's cache, else read from the database (and cached, the
-     * least recently judged making room). The cache is the snapshot's own, so a curve changed since is
-     * never served: the changed library has a new snapshot.
-     */
-    private Optional<Curve> curve(Snapshot s, long sampleId) {
-        Curve cached = s.curves().get(sampleId);
-        if (cached != null) {
-            return Optional.of(cached);
-        }
-        Optional<Curve> read = readCurve.apply(sampleId);
-        read.ifPresent(c -> s.curves().put(sampleId, c));
-        return read;
-    }
-
-    /** An unverified row for a stored sample whose judgement failed, with the reason (docs/validation.md). */
-    private static MaterialEvaluation notComputable(Material material, long sampleId, double thicknessMm,
-                                                    Requirement requirement, RuntimeException e) {
-        return new MaterialEvaluation(material.id(), material.name(), SampleEvaluator.notComputable(sampleId,
-                Double.isFinite(thicknessMm) && thicknessMm > 0 ? thicknessMm : Double.NaN, requirement.clauses(), e));
-    }
-
-    /**
-     * The material's made thicknesses as the snapshot formed them once, when {@code material} is the snapshot's own
-     * object (immutable: the same object gives the same {@link #made}); else formed now. A search prepares each sample
-     * of a grown material alone, and forming them for every one went over all its samples each time.
-     */
-    private static MadeThicknesses madeOf(Snapshot s, Material material) {
-        MadeThicknesses kept = s.made().get(material.id());
-        return kept != null && s.materials().get(material.id()) == material ? kept : made(material);
     }
 
     /** The thicknesses a library material exists in: as its record states, else the assumed rule on its samples. */
@@ -679,7 +540,7 @@ public class SearchService {
                 judgedSamples = chosen.get();
                 judgedOf.put(material.id(), judgedSamples);
             } else if (onlyJudgedSamples && !settled) {
-                Prepared p = prepare(s, material, requirement, diffuseLayer);
+                Prepared p = candidates.prepare(s, material, requirement, diffuseLayer);
                 prepared.put(material.id(), p);
                 judgedSamples = p.judgedSamples(spec);
                 judgedOf.put(material.id(), judgedSamples);
@@ -794,11 +655,11 @@ public class SearchService {
                         // alone only as measured: at one thickness which samples are judged, and over what span, still
                         // depends on all of them (MaterialJudge.evaluateOne), so the material is prepared whole
                         Prepared p = ready != null ? ready : spec.kind() == ThicknessSpec.Kind.AS_MEASURED
-                                ? prepare(s, m, requirement, diffuseLayer, c.sampleId())
-                                : prepare(s, m, requirement, diffuseLayer);
+                                ? candidates.prepare(s, m, requirement, diffuseLayer, c.sampleId())
+                                : candidates.prepare(s, m, requirement, diffuseLayer);
                         return p.judgeOne(requirement, layer, c.sampleId());
                     }
-                    return ready != null ? ready.judge(requirement, layer) : judge(s, m, requirement, layer, diffuseLayer);
+                    return ready != null ? ready.judge(requirement, layer) : candidates.judge(s, m, requirement, layer, diffuseLayer);
                 }, judging == Judging.BOUNDED_PARALLEL && contenders.size() + inReserve >= parallelFrom, refine);
         List<RankedRow> rows = rank(s, requirement, exact, limit); // once, from every judgement: the answer's own rows
         double tookMs = (System.nanoTime() - started) / 1e6;
@@ -906,7 +767,7 @@ public class SearchService {
             // second bound reaches it no other second bound keeps the material out (docs/weighted-screening.md)
             boolean form = everySample || !reached && !(b < bar);
             if (row >= 0 && form) {
-                Optional<Curve> measured = curve(s, sample.id()); // the curve the judgement reads, cached for it
+                Optional<Curve> measured = candidates.curve(s, sample.id()); // the curve the judgement reads, cached for it
                 if (measured.isPresent()) {
                     double onCurve = second.bound(row, measured.get(), bar);
                     cannotMeet = second.cannotMeet();
@@ -1047,7 +908,7 @@ public class SearchService {
         double ifUnverified = Double.POSITIVE_INFINITY;
         int row = firstBounds.secondStageRow(c.sampleId(), storeRow);
         if (row >= 0) {
-            Optional<Curve> measured = curve(s, c.sampleId()); // the curve the judgement reads, cached for it
+            Optional<Curve> measured = candidates.curve(s, c.sampleId()); // the curve the judgement reads, cached for it
             if (measured.isPresent()) {
                 // against a met last row the clauses after one below the bar are not read (WeightedMisses.SecondStage)
                 double onCurve = second.bound(row, measured.get(), bar);
@@ -1108,7 +969,7 @@ public class SearchService {
             if (allMiss && madeFor(requirement.thickness(), material, made(material))) {
                 held.put(material, bound);
             } else {
-                exact.addAll(judge(s, material, requirement, layer, diffuseLayer));
+                exact.addAll(candidates.judge(s, material, requirement, layer, diffuseLayer));
             }
         }
         List<RankedRow> rows = rank(s, requirement, exact, limit);
@@ -1131,7 +992,7 @@ public class SearchService {
                 }
                 break; // bounds only fall from here on
             }
-            List<MaterialEvaluation> judged = judge(s, entry.getKey(), requirement, layer, diffuseLayer);
+            List<MaterialEvaluation> judged = candidates.judge(s, entry.getKey(), requirement, layer, diffuseLayer);
             exact.addAll(judged);
             judgedHeld = true;
             rows = rank(s, requirement, BoundedJudgement.withRows(rows, judged), limit);
@@ -1153,7 +1014,7 @@ public class SearchService {
      */
     private boolean madeFor(Snapshot s, ThicknessSpec spec, Material material) {
         // by row: the snapshot's made thicknesses, formed once (the same object gives the same); else formed per call
-        return madeFor(spec, material, rowArrays ? madeOf(s, material) : made(material));
+        return madeFor(spec, material, rowArrays ? MaterialCandidates.madeOf(s, material) : made(material));
     }
 
     private static boolean madeFor(ThicknessSpec spec, Material material, MadeThicknesses made) {
@@ -1181,7 +1042,7 @@ public class SearchService {
         for (long id : new LinkedHashSet<>(materialIds)) {
             Material material = s.materials().get(id);
             if (material != null) {
-                exact.addAll(judge(s, material, requirement, layer, diffuseLayer));
+                exact.addAll(candidates.judge(s, material, requirement, layer, diffuseLayer));
             }
         }
         Map<Long, SampleEvaluationRow> out = new LinkedHashMap<>();
@@ -1217,7 +1078,7 @@ public class SearchService {
             throw new UnusableRecordException("the part in front, sample " + sample.id() + " of '" + m.name() + "', "
                     + unusable.get());
         }
-        Curve curve = curve(s, sample.id()).orElseThrow(() -> new UnusableRecordException(
+        Curve curve = candidates.curve(s, sample.id()).orElseThrow(() -> new UnusableRecordException(
                 "the part in front, sample " + sample.id() + " of '" + m.name() + "', has no readable curve"));
         return StackLayer.of(layer, m.id(), m.name(), m.slug(), sample.id(), curve, sample.thicknessMm(),
                 SampleRescaling.of(m, sample).rescalable(), m.refractiveIndex());
