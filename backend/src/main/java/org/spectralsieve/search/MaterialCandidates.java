@@ -4,6 +4,7 @@ import static org.spectralsieve.search.Admission.admits;
 import static org.spectralsieve.search.SearchService.made;
 
 import java.util.ArrayList;
+import java.util.Comparator;
 import java.util.HashSet;
 import java.util.List;
 import java.util.Objects;
@@ -14,7 +15,9 @@ import org.spectralsieve.library.Geometry;
 import org.spectralsieve.library.Material;
 import org.spectralsieve.library.SampleInfo;
 import org.spectralsieve.library.SampleRescaling;
+import org.spectralsieve.library.UnusableRecordException;
 import org.spectralsieve.requirement.Candidate;
+import org.spectralsieve.requirement.FixedLayer;
 import org.spectralsieve.requirement.MadeThicknesses;
 import org.spectralsieve.requirement.MaterialEvaluation;
 import org.spectralsieve.requirement.MaterialJudge;
@@ -29,7 +32,8 @@ import org.spectralsieve.spectrum.Curve;
  * A material's admitted samples made ready for the exact judgement ({@link MaterialJudge}): each sample's decoded
  * curve (from the snapshot's cache, else read and cached), its rescaling and the thicknesses the material is made in,
  * a row saying why for each sample that could not become a candidate, and the judgement itself, through the memo of
- * recent judgements when the service keeps one ({@link JudgementMemo}).
+ * recent judgements when the service keeps one ({@link JudgementMemo}); and a requirement's fixed layer, the part in
+ * front, resolved to a library sample and its curve the same way ({@link #resolveLayer}).
  */
 final class MaterialCandidates {
 
@@ -175,5 +179,22 @@ final class MaterialCandidates {
     static MadeThicknesses madeOf(Snapshot s, Material material) {
         MadeThicknesses kept = s.made().get(material.id());
         return kept != null && s.materials().get(material.id()) == material ? kept : made(material);
+    }
+
+    /** The fixed layer's material and sample from the library, the curve as the layer will be used. */
+    StackLayer resolveLayer(FixedLayer layer, Snapshot s) {
+        List<Material> materials = s.materials().values().stream().sorted(Comparator.comparingLong(Material::id)).toList();
+        LayerMatcher.Match match = LayerMatcher.resolve(layer, materials);
+        Material m = match.material();
+        SampleInfo sample = match.sample();
+        Optional<String> unusable = SampleRescaling.unusable(m, sample);
+        if (unusable.isPresent()) {
+            throw new UnusableRecordException("the part in front, sample " + sample.id() + " of '" + m.name() + "', "
+                    + unusable.get());
+        }
+        Curve curve = curve(s, sample.id()).orElseThrow(() -> new UnusableRecordException(
+                "the part in front, sample " + sample.id() + " of '" + m.name() + "', has no readable curve"));
+        return StackLayer.of(layer, m.id(), m.name(), m.slug(), sample.id(), curve, sample.thicknessMm(),
+                SampleRescaling.of(m, sample).rescalable(), m.refractiveIndex());
     }
 }
