@@ -8,6 +8,9 @@ import static org.spectralsieve.search.RowDecoration.geometries;
 import static org.spectralsieve.search.RowDecoration.measured;
 import static org.spectralsieve.search.RowDecoration.revisions;
 import static org.spectralsieve.search.SearchService.made;
+import static org.spectralsieve.search.SettledRows.settledAtThickness;
+import static org.spectralsieve.search.SettledRows.settledOverRange;
+import static org.spectralsieve.search.SettledRows.settledOverRangeByRow;
 
 import java.util.ArrayList;
 import java.util.Arrays;
@@ -461,69 +464,6 @@ final class BoundedExactSearch {
             contenders.add(new BoundedJudgement.Contender(material, b, b < 0 && made, regular, false,
                     Double.POSITIVE_INFINITY, sample.id()));
         }
-    }
-
-    /**
-     * Whether every row {@link MaterialJudge} forms for the material over the requirement's range is "not judged",
-     * from its admitted samples' thicknesses, rescaling and made thicknesses alone ({@link SettledRows#overRange}).
-     */
-    static boolean settledOverRange(Material material, Requirement requirement) {
-        return settledOverRange(material, requirement, null);
-    }
-
-    /**
-     * {@link #settledOverRange(Material, Requirement)} in a loop over a million samples: no stream, the admission from
-     * its table, the made thicknesses the snapshot formed, and each sample's rescaling read from its store row where it
-     * has one (the row was formed with {@link SampleRescaling#of} of these very records, {@link SnapshotReader}).
-     */
-    private static boolean settledOverRangeByRow(Snapshot s, Material material, Requirement requirement, int firstSlot,
-                                                 MadeThicknesses made, Admission admission) {
-        if (requirement.thickness().kind() != ThicknessSpec.Kind.RANGE) {
-            return false;
-        }
-        List<SampleInfo> samples = material.samples();
-        double[] thicknessMm = new double[samples.size()];
-        boolean[] rescalable = new boolean[samples.size()];
-        int n = 0;
-        boolean classAdmits = admission.material(material);
-        for (int k = 0; k < samples.size(); k++) {
-            SampleInfo sample = samples.get(k);
-            if (classAdmits && admission.geometry(sample)) {
-                int row = s.index().row(firstSlot + k);
-                thicknessMm[n] = sample.thicknessMm();
-                rescalable[n++] = row >= 0 ? s.store().isBulk(row) : SampleRescaling.of(material, sample).rescalable();
-            }
-        }
-        return SettledRows.overRange(n == thicknessMm.length ? thicknessMm : Arrays.copyOf(thicknessMm, n),
-                n == rescalable.length ? rescalable : Arrays.copyOf(rescalable, n), made, requirement.thickness());
-    }
-
-    /** {@link #settledOverRange(Material, Requirement)} with the material's made thicknesses, or null to form them. */
-    private static boolean settledOverRange(Material material, Requirement requirement, MadeThicknesses madeOrNull) {
-        if (requirement.thickness().kind() != ThicknessSpec.Kind.RANGE) {
-            return false;
-        }
-        List<SampleInfo> admitted = material.samples().stream().filter(x -> admits(requirement, material, x)).toList();
-        double[] thicknessMm = new double[admitted.size()];
-        boolean[] rescalable = new boolean[admitted.size()];
-        for (int i = 0; i < thicknessMm.length; i++) {
-            thicknessMm[i] = admitted.get(i).thicknessMm();
-            rescalable[i] = SampleRescaling.of(material, admitted.get(i)).rescalable();
-        }
-        return SettledRows.overRange(thicknessMm, rescalable, madeOrNull != null ? madeOrNull : made(material),
-                requirement.thickness());
-    }
-
-    /**
-     * Whether the row {@link MaterialJudge} forms for the sample alone at the requirement's one asked thickness is
-     * "not judged", from its thickness, rescaling and its material's made thicknesses ({@link SettledRows#atThickness}).
-     */
-    static boolean settledAtThickness(Material material, SampleInfo sample, Requirement requirement) {
-        // only at one asked thickness: the rescaling rule and the made thicknesses are not formed for other searches
-        // (as measured this ran for every sample, a measurable part of a 10k search)
-        return requirement.thickness().kind() == ThicknessSpec.Kind.FIXED
-                && SettledRows.atThickness(sample.thicknessMm(), SampleRescaling.of(material, sample).rescalable(),
-                made(material), requirement.thickness());
     }
 
     /**
