@@ -24,9 +24,21 @@ import org.spectralsieve.store.SpectralStore;
  * A search's first bounds from the store's screens, before any curve is read ({@link FirstBounds}): the every-point
  * screen's proven misses ({@link MissScreen}), the blocks behind a fixed layer ({@link LayerBlockScreen}) and the
  * weighted screen's bounds of either sign ({@link WeightedMisses}), kept by the store's row or, the way before, by
- * sample id. A sample whose stored record fails today's checks gets no bound. The rules for which clauses are
- * screened, and why a proof survives the asked thickness, are in {@link SearchService}'s class comment and
- * {@link #keepsProof}.
+ * sample id. A sample whose stored record fails today's checks gets no bound.
+ *
+ * <p>Requirements the store cannot rank — weighted figures, a critical wavelength, a fixed layer — are
+ * judged exactly on every admitted sample, except samples the store proves to miss ({@link MissScreen}):
+ * those are judged only while their bound could still reach the shortlist; and a material whose bound on a
+ * met row's margin is below the margins of a shortlist already full of met rows is not judged at all
+ * ({@link BoundedJudgement}, docs/weighted-screening.md, "Bounds that rank"). The screen uses the
+ * requirement's every-point transmittance clauses that remain necessary conditions on the candidate
+ * alone: without a layer, all of them (they are judged on the same curve); with a layer, only the passes,
+ * and only over bands inside the layer's range, because a layer can only lower T (the stack's T is at most
+ * each part's, T₁T₂/(1 − R₁R₂) ≤ T₁ since T₂ + R₂ ≤ 1), so a candidate too dark alone is too dark in the
+ * stack, while one too bright alone may be dark enough behind the layer. Thickness keeps the proof where
+ * T can only fall: a pass judged at or above the measured thickness, a block at or below it, any clause on
+ * a sample measured at the asked thickness; and a material is held back only where the asked thickness can
+ * be made for it (elsewhere its row is unverified, which ranks above a miss).
  */
 final class FirstBoundScreens {
 

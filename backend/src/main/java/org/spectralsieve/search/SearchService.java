@@ -1,10 +1,7 @@
 package org.spectralsieve.search;
 
-import static org.spectralsieve.search.DiffuseLastRanking.diffuseLast;
 import static org.spectralsieve.search.DiffuseLastRanking.rank;
-import static org.spectralsieve.search.RowDecoration.geometries;
 import static org.spectralsieve.search.RowDecoration.measured;
-import static org.spectralsieve.search.RowDecoration.revisions;
 
 import java.util.ArrayList;
 import java.util.Collection;
@@ -24,7 +21,6 @@ import org.spectralsieve.library.Material;
 import org.spectralsieve.library.SampleInfo;
 import org.spectralsieve.library.StatedThicknesses;
 import org.spectralsieve.optics.PhysicalRanges;
-import org.spectralsieve.requirement.Aggregate;
 import org.spectralsieve.requirement.Direction;
 import org.spectralsieve.requirement.FixedLayer;
 import org.spectralsieve.requirement.MadeThicknesses;
@@ -36,15 +32,8 @@ import org.spectralsieve.requirement.Requirement;
 import org.spectralsieve.requirement.SampleEvaluation;
 import org.spectralsieve.requirement.StackLayer;
 import org.spectralsieve.requirement.ThicknessSpec;
-import org.spectralsieve.requirement.TransmittanceClause;
-import org.spectralsieve.search.MaterialCandidates.Prepared;
 import org.spectralsieve.spectrum.Curve;
-import org.spectralsieve.store.MissScreen;
-import org.spectralsieve.store.SampleReach;
 import org.spectralsieve.store.SpectralStore;
-import org.spectralsieve.store.StoreHit;
-import org.spectralsieve.store.StoreResult;
-import org.spectralsieve.store.StoreSearch;
 
 /**
  * Answers requirements: the in-memory store picks the materials that can be in the shortlist, then the samples
@@ -54,19 +43,13 @@ import org.spectralsieve.store.StoreSearch;
  * another: before each answer the library's change counter ({@link LibraryGeneration}) is read, and a
  * snapshot read at an older number is rebuilt (see {@link #current()} and docs/freshness.md).
  *
- * <p>Requirements the store cannot rank — weighted figures, a critical wavelength, a fixed layer — are
- * judged exactly on every admitted sample, except samples the store proves to miss ({@link MissScreen}):
- * those are judged only while their bound could still reach the shortlist; and a material whose bound on a
- * met row's margin is below the margins of a shortlist already full of met rows is not judged at all
- * ({@link BoundedJudgement}, docs/weighted-screening.md, "Bounds that rank"). The screen uses the
- * requirement's every-point transmittance clauses that remain necessary conditions on the candidate
- * alone: without a layer, all of them (they are judged on the same curve); with a layer, only the passes,
- * and only over bands inside the layer's range, because a layer can only lower T (the stack's T is at most
- * each part's, T₁T₂/(1 − R₁R₂) ≤ T₁ since T₂ + R₂ ≤ 1), so a candidate too dark alone is too dark in the
- * stack, while one too bright alone may be dark enough behind the layer. Thickness keeps the proof where
- * T can only fall: a pass judged at or above the measured thickness, a block at or below it, any clause on
- * a sample measured at the asked thickness; and a material is held back only where the asked thickness can
- * be made for it (elsewhere its row is unverified, which ranks above a miss).
+ * <p>Requirements the store cannot rank — weighted figures, a critical wavelength, a fixed layer — are judged by
+ * {@link BoundedExactSearch}, bounded by the store's screens ({@link FirstBoundScreens}, whose comment says which
+ * clauses are screened and why a proof holds). The parts, one capability each: {@link SnapshotHolder} (the snapshot
+ * and its freshness), {@link StorePickedSearch} (requirements the store ranks), {@link BoundedExactSearch} and
+ * {@link EarlierExactSearch} (the others), {@link MaterialCandidates} (samples made ready for the exact judgement,
+ * the fixed layer resolved), {@link DiffuseLastRanking} and {@link RowDecoration} (the answer's rows); this class
+ * keeps the public methods and the switches tests and benchmarks set.
  *
  * <p>Each material's samples are judged together ({@link MaterialJudge}): the nearest measurement speaks
  * for each thickness, and rescaling stays inside the thicknesses the material is made in ({@link #made}).
@@ -95,12 +78,8 @@ public class SearchService {
     private final BoundedExactSearch exact;
     /** How many searches judge at once ({@link #limitConcurrentJudgements}); unbounded unless configured. */
     private volatile JudgementLanes lanes = JudgementLanes.unbounded();
-    /**
-     * Whether a picked material's samples are judged best store ceiling first, leaving out those that cannot change
-     * its row ({@link BestSampleFirst}); the system property {@code sieve.search.sample-bound=false} judges every
-     * sample, only so a benchmark can time both ways side by side (the answers are the same).
-     */
-    private boolean boundSamples = !"false".equals(System.getProperty("sieve.search.sample-bound"));
+    /** The search of requirements the store can rank (it hands the others to {@link #exact}). */
+    private final StorePickedSearch picked;
 
     /**
      * How the exact judgement of a requirement the store cannot rank chooses and runs its materials; every way
@@ -126,7 +105,7 @@ public class SearchService {
      * the same answers, more samples judged; for tests and benchmarks that compare both side by side.
      */
     public SearchService judgingEverySample() {
-        this.boundSamples = false;
+        picked.boundSamples = false;
         return this;
     }
 
@@ -298,11 +277,13 @@ public class SearchService {
         this.snapshots = new SnapshotHolder(library, beforeInstall, curveCacheBytes);
         this.candidates = new MaterialCandidates(library::findCurve);
         this.exact = new BoundedExactSearch(candidates, screens);
+        this.picked = new StorePickedSearch(candidates, exact);
     }
 
     private SearchService(Snapshot fixed, LongFunction<Optional<Curve>> readCurve) {
         this.candidates = new MaterialCandidates(readCurve);
         this.exact = new BoundedExactSearch(candidates, screens);
+        this.picked = new StorePickedSearch(candidates, exact);
         this.snapshots = new SnapshotHolder(fixed);
     }
 
@@ -320,79 +301,8 @@ public class SearchService {
         Snapshot s = current();
         return lanes.run(() -> {
             startsASearch();
-            return searchOn(s, requirement, limit, started);
+            return picked.searchOn(s, requirement, limit, started);
         });
-    }
-
-    private Shortlist searchOn(Snapshot s, Requirement requirement, int limit, long started) {
-        // a confidence demand can make a wide margin unverified: the store's margins cannot pick those rows; a
-        // mean over a band, or a reading between grid wavelengths, the store takes on its grid and the exact
-        // evaluator on the curve's own points, with no bound on the difference, so the store cannot pick those
-        // rows either; nor a block over readings held at the store's OD ceiling (docs/store.md, "The store's error at
-        // the cut")
-        if (!requirement.plain() || requirement.asksConfidence() || hasMeanClause(requirement)
-                || StoreSearch.readsBetweenGridPoints(s.store(), requirement)
-                || StoreSearch.blocksAtTheCodeCeiling(s.store(), requirement)) {
-            return exact.searchExactly(s, requirement, limit, started, m -> true);
-        }
-        StoreResult picked = StoreSearch.search(s.store(), requirement, limit);
-        // material id → one of its store curves (to find its samples' ceilings), NO_CURVE: judged whole
-        Map<Long, Integer> materialIds = new LinkedHashMap<>();
-        for (StoreHit hit : picked.hits()) {
-            materialIds.put(hit.material().id(), hit.curve());
-        }
-        // the store holds an unusable sample at a thickness and index of its own: its store result bounds nothing
-        s.unusable().forEach(sampleId -> materialIds.put(s.samples().get(sampleId).materialId(), NO_CURVE));
-        List<MaterialEvaluation> exact = new ArrayList<>();
-        judgeInto(s, requirement, materialIds, picked.sampleReach(), exact);
-        List<RankedRow> rows = rank(s, requirement, exact, limit);
-        if (rows.size() >= limit) {
-            // the store's margins are off by a little: every material whose store result could still reach the
-            // exact last row is judged too (docs/store.md, "The store's error at the cut")
-            SampleEvaluation last = rows.get(limit - 1).evaluation();
-            Map<Long, Integer> more = new LinkedHashMap<>();
-            for (StoreHit hit : picked.handOver().reaching(last.standing(), last.worstMarginDecades())) {
-                if (!materialIds.containsKey(hit.material().id())) {
-                    more.put(hit.material().id(), hit.curve());
-                }
-            }
-            if (!more.isEmpty()) {
-                judgeInto(s, requirement, more, picked.sampleReach(), exact);
-                rows = rank(s, requirement, exact, limit);
-            }
-        }
-        double tookMs = (System.nanoTime() - started) / 1e6;
-        return new Shortlist(requirement, rows, picked.evaluatedSamples(), exact.size(), tookMs, Optional.empty(),
-                geometries(s, rows), revisions(s, rows), measured(s, rows));
-    }
-
-    /** In {@link #searchOn}'s map of materials to judge: no store curve speaks for the material's samples. */
-    private static final int NO_CURVE = -1;
-
-    /**
-     * Judges the picked materials: each best sample first, leaving out samples whose store ceiling proves they
-     * cannot change the material's row ({@link BestSampleFirst}), unless a sample of the material has an unusable
-     * record (its store row bounds nothing, and it moves the others' spans) or the switch is off.
-     */
-    private void judgeInto(Snapshot s, Requirement requirement, Map<Long, Integer> curveOfMaterial, SampleReach reach,
-                           List<MaterialEvaluation> exact) {
-        boolean grouped = diffuseLast(requirement);
-        curveOfMaterial.forEach((materialId, curve) -> {
-            Material material = s.materials().get(materialId);
-            if (boundSamples && curve != NO_CURVE) {
-                Prepared p = candidates.prepare(s, material, requirement, false);
-                Optional<List<MaterialEvaluation>> bestFirst = BestSampleFirst.judge(p.candidates(), p.failed(),
-                        requirement, reach.curvesOfMaterialOf(curve), reach, grouped, p.sampleJudge());
-                exact.addAll(bestFirst.orElseGet(() -> p.judge(requirement, Optional.empty())));
-            } else {
-                exact.addAll(candidates.judge(s, material, requirement, Optional.empty(), false));
-            }
-        });
-    }
-
-    private static boolean hasMeanClause(Requirement requirement) {
-        return requirement.clauses().stream()
-                .anyMatch(c -> c instanceof TransmittanceClause t && t.aggregate() == Aggregate.MEAN);
     }
 
     /**
