@@ -9,6 +9,8 @@
  * <p>What is where in the service (one capability per class; {@code SearchService} is the public face, holds the
  * switches tests and benchmarks use, answers the requirements the store can rank and delegates the rest):
  * <ul>
+ * <li>{@link org.spectralsieve.search.StorePickedSearch}: requirements the store can rank — the store picks, each
+ * picked material's samples judged best store ceiling first, the materials that could still reach the cut;</li>
  * <li>{@link org.spectralsieve.search.SnapshotHolder}: the snapshot answered from, its freshness against the change
  * counter, one rebuild at a time, installed never older than the one it replaces;</li>
  * <li>{@link org.spectralsieve.search.MaterialCandidates}: a material's admitted samples made ready for the exact
@@ -19,7 +21,9 @@
  * the asked thickness; {@link org.spectralsieve.search.Admission}: which samples a requirement admits;</li>
  * <li>{@link org.spectralsieve.search.BoundedExactSearch}: the exact judgement of requirements the store cannot rank,
  * bounded by those first bounds (contenders, settled rows, the reserve, second bounds on a contender's own curve;
- * the earlier loop beside it), over {@link org.spectralsieve.search.BoundedJudgement}'s loop;</li>
+ * the rows settled by thickness in {@link org.spectralsieve.search.SettledRows}), over
+ * {@link org.spectralsieve.search.BoundedJudgement}'s loop; {@link org.spectralsieve.search.EarlierExactSearch}: the
+ * loop before it, the reference benchmarks and equivalence tests run beside it;</li>
  * <li>{@link org.spectralsieve.search.DiffuseLastRanking}: the ranking with total-geometry rows after the regular
  * ones where a see-through clause asks; {@link org.spectralsieve.search.RowDecoration}: the geometry, measured
  * thickness and revisions shown beside each row.</li>
