@@ -7,7 +7,7 @@
  * before every search, raised by every write of any process on the database): see {@code docs/freshness.md}.
  *
  * <p>What is where in the service (one capability per class; {@code SearchService} is the public face, holds the
- * switches tests and benchmarks use, answers the requirements the store can rank and delegates the rest):
+ * switches tests and benchmarks use and delegates to the rest):
  * <ul>
  * <li>{@link org.spectralsieve.search.StorePickedSearch}: requirements the store can rank — the store picks, each
  * picked material's samples judged best store ceiling first, the materials that could still reach the cut;</li>
