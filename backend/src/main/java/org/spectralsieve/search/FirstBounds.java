@@ -3,7 +3,7 @@ package org.spectralsieve.search;
 import java.util.Map;
 
 /**
- * Each sample's first bounds in one exact search ({@code SearchService.searchExactly}): the proven-miss bound
+ * Each sample's first bounds in one exact search ({@code BoundedExactSearch.searchExactly}): the proven-miss bound
  * (negative; from the every-point, layer-block and weighted screens) and the weighted screen's margin bound of either
  * sign, and the store row its second stage refines (only where it has a margin bound: the second stage only tightens
  * one). Two forms, the same values: arrays indexed by the store's row, filled once per search in the store's row order

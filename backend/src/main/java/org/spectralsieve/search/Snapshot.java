@@ -19,7 +19,7 @@ import org.spectralsieve.store.SpectralStore;
  * @param ordered       the materials in the order of the store's rows ({@link MaterialsRead#ORDER})
  * @param unusable      the samples whose stored record fails today's checks ({@link SampleRescaling#unusable}):
  *                      the store holds them at a storable thickness with an assumed index, so no screen's
- *                      proof on them holds for the exact judgement (see {@code SearchService.searchExactly})
+ *                      proof on them holds for the exact judgement (see {@code BoundedExactSearch.searchExactly})
  * @param made          each material's made thicknesses ({@link SearchService#made}) as formed from these very objects
  * @param index         what searches ask of this store and these materials, formed once when first asked
  */

@@ -6,6 +6,29 @@
  * search and rebuilt when the library's change counter has moved since ({@code library_generation}, read
  * before every search, raised by every write of any process on the database): see {@code docs/freshness.md}.
  *
+ * <p>What is where in the service (one capability per class; {@code SearchService} is the public face, holds the
+ * switches tests and benchmarks use and delegates to the rest):
+ * <ul>
+ * <li>{@link org.spectralsieve.search.StorePickedSearch}: requirements the store can rank — the store picks, each
+ * picked material's samples judged best store ceiling first, the materials that could still reach the cut;</li>
+ * <li>{@link org.spectralsieve.search.SnapshotHolder}: the snapshot answered from, its freshness against the change
+ * counter, one rebuild at a time, installed never older than the one it replaces;</li>
+ * <li>{@link org.spectralsieve.search.MaterialCandidates}: a material's admitted samples made ready for the exact
+ * judgement (curves through the snapshot's cache, rescaling, made thicknesses, the memo) and a fixed layer resolved
+ * to its library sample;</li>
+ * <li>{@link org.spectralsieve.search.FirstBoundScreens}: a search's first bounds from the store's screens (proven
+ * misses, blocks behind a layer, weighted bounds), by row or by sample id, and the rule by which a proof survives
+ * the asked thickness; {@link org.spectralsieve.search.Admission}: which samples a requirement admits;</li>
+ * <li>{@link org.spectralsieve.search.BoundedExactSearch}: the exact judgement of requirements the store cannot rank,
+ * bounded by those first bounds (contenders, settled rows, the reserve, second bounds on a contender's own curve;
+ * the rows settled by thickness in {@link org.spectralsieve.search.SettledRows}), over
+ * {@link org.spectralsieve.search.BoundedJudgement}'s loop; {@link org.spectralsieve.search.EarlierExactSearch}: the
+ * loop before it, the reference benchmarks and equivalence tests run beside it;</li>
+ * <li>{@link org.spectralsieve.search.DiffuseLastRanking}: the ranking with total-geometry rows after the regular
+ * ones where a see-through clause asks; {@link org.spectralsieve.search.RowDecoration}: the geometry, measured
+ * thickness and revisions shown beside each row.</li>
+ * </ul>
+ *
  * <p>{@link org.spectralsieve.search.LayerMatcher} resolves the words of a fixed layer ({@code behind 4 mm
  * clear float glass}) to one material by one deterministic rule, or refuses with the choices or
  * suggestions; {@link org.spectralsieve.search.PartInFront} does the same for the figures' {@code behind}.

@@ -45,7 +45,7 @@ import org.springframework.core.io.DefaultResourceLoader;
  *       search builds its store, which the warm-up absorbs). Curves are read from the database per search, as
  *       in the service.</li>
  *   <li>{@code synthetic-N}: N curves from {@link SyntheticCurves} (three samples per material, two thirds
- *       bulk), judged by the same steps as {@code SearchService.searchExactly} for these requirements: no
+ *       bulk), judged by the same steps as {@code BoundedExactSearch.searchExactly} for these requirements: no
  *       every-point transmittance clause, so the store proves no miss and every sample is judged by
  *       {@link SampleEvaluator} with the layer the demo search resolved, then {@link Ranking#rank}. Curves are
  *       decoded from the store once, before timing (the service reads them from the database instead).</li>

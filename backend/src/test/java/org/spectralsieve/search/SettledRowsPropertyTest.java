@@ -80,7 +80,7 @@ class SettledRowsPropertyTest {
                 if (candidates.isEmpty()) {
                     continue;
                 }
-                if (SearchService.settledOverRange(m, requirement)) {
+                if (SettledRows.settledOverRange(m, requirement)) {
                     List<MaterialEvaluation> rows = MaterialJudge.evaluate(candidates, requirement, Optional.empty());
                     assertThat(rows).as(m.name() + thickness).isNotEmpty()
                             .allSatisfy(e -> assertThat(e.evaluation().standing()).as(m.name() + thickness)
@@ -93,7 +93,7 @@ class SettledRowsPropertyTest {
                 for (MaterialJudge.Judged j : MaterialJudge.choose(candidates, requirement.thickness())) {
                     SampleInfo sample = m.samples().stream().filter(x -> x.id() == j.candidate().sampleId()).findFirst()
                             .orElseThrow();
-                    if (SearchService.settledAtThickness(m, sample, requirement)) {
+                    if (SettledRows.settledAtThickness(m, sample, requirement)) {
                         List<MaterialEvaluation> one = MaterialJudge.evaluateOne(candidates, requirement, Optional.empty(),
                                 sample.id());
                         assertThat(one).as(m.name() + " sample " + sample.id() + thickness).hasSize(1);
