@@ -286,7 +286,7 @@ public final class SpectralStore {
         private final Map<Long, Integer> materialIndexById = new HashMap<>();
         private final List<RefractiveIndex> indexModels = new ArrayList<>();
         private final Map<RefractiveIndex, Integer> indexModelIndex = new HashMap<>();
-        private final WeightedScreen.Builder weighted;
+        private final WeightedBinsBuilder weighted;
         private final boolean[] atCeiling;
 
         private boolean built;

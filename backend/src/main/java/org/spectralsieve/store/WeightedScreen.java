@@ -88,20 +88,20 @@ public final class WeightedScreen {
         }
     }
 
-    private final byte[][] brightest;
-    private final byte[][] darkest;
-    private final short[] rangeOfCurve;
-    private final List<double[]> ranges;
-    /** Per range: whether its curves are regular ({@code Builder.regular}), read from an array, not the list. */
+    final byte[][] brightest;
+    final byte[][] darkest;
+    final short[] rangeOfCurve;
+    final List<double[]> ranges;
+    /** Per range: whether its curves are regular ({@code WeightedBinsBuilder.regular}), read from an array, not the list. */
     private final boolean[] regularOfRange;
     /** Per range: the bins its wavelengths meet ({@code Query.lnBrightestOfCurve}). */
     private final int[][] binsOfRange;
     private static final int[] ALL_BINS = java.util.stream.IntStream.range(0, BINS).toArray();
 
     /** Per curve, the exact figures of a few built-in weightings as codes (docs/weighted-screening.md, "Figures in the store"). */
-    private final FigureCodes figures;
+    final FigureCodes figures;
 
-    private WeightedScreen(byte[][] brightest, byte[][] darkest, short[] rangeOfCurve, List<double[]> ranges,
+    WeightedScreen(byte[][] brightest, byte[][] darkest, short[] rangeOfCurve, List<double[]> ranges,
                            FigureCodes figures) {
         this.figures = figures;
         this.brightest = brightest;
@@ -141,8 +141,8 @@ public final class WeightedScreen {
         return figures;
     }
 
-    static Builder builder(int capacity) {
-        return new Builder(capacity);
+    static WeightedBinsBuilder builder(int capacity) {
+        return new WeightedBinsBuilder(capacity);
     }
 
     /**
@@ -585,7 +585,7 @@ public final class WeightedScreen {
          * R (the candidate's index, or the n = 1.5 assumed for a part stored without one, whichever is larger).
          * A value of the stack inside a bin is interpolated between two neighbouring stack points lying in one
          * candidate interval and one layer interval that meet the bin, so it is at most the larger end, floored
-         * at the absorbance floor; for a regular curve ({@code Builder.regular}) the candidate's factor is at
+         * at the absorbance floor; for a regular curve ({@code WeightedBinsBuilder.regular}) the candidate's factor is at
          * most the bin's brightest, the layer's at most its {@link LayerBins} value. The candidate thicker than
          * measured only lowers every T and limit.
          */
@@ -665,7 +665,7 @@ public final class WeightedScreen {
             }
             int range = rangeOfCurve[curve];
             double[] r = ranges.get(range);
-            if (measured.minWavelengthNm() != r[0] || measured.maxWavelengthNm() != r[1] || !Builder.regular(measured)) {
+            if (measured.minWavelengthNm() != r[0] || measured.maxWavelengthNm() != r[1] || !WeightedBinsBuilder.regular(measured)) {
                 return Double.POSITIVE_INFINITY;
             }
             double[][] nodes = layerNodes(range);
@@ -1351,7 +1351,7 @@ public final class WeightedScreen {
         }
 
         /**
-         * Whether the curve is regular ({@code Builder.regular}). Behind a layer only a regular curve is bounded:
+         * Whether the curve is regular ({@code WeightedBinsBuilder.regular}). Behind a layer only a regular curve is bounded:
          * the stack's upper reading at a point between two of the candidate's points chains the candidate's
          * limit interpolated linearly, which only a regular curve's bin brightest is sure to hold (the stack is
          * at most each part, T₁T₂/(1 − ρ₁ρ₂) ≤ T₁ since T₂ + ρ₂ ≤ 1, and so is each chain of a limit).
@@ -1695,7 +1695,7 @@ public final class WeightedScreen {
     }
 
     /** The bin whose closed interval holds the wavelength (the upper one on a shared edge, the last bin at the range's end); −1 outside. */
-    private static int binOf(double nm) {
+    static int binOf(double nm) {
         if (!(nm >= FIRST_NM && nm <= FIRST_NM + BINS * BIN_NM)) {
             return -1;
         }
@@ -1723,172 +1723,5 @@ public final class WeightedScreen {
     /** The transmittance a code stands for (0 for code 0). */
     static double transmittanceOf(int code) {
         return T_OF_CODE[code];
-    }
-
-    /** Collects the bins of each curve slot; arrays grow with the store's. */
-    static final class Builder {
-        private byte[][] brightest;
-        private byte[][] darkest;
-        private short[] rangeOfCurve;
-        private final List<double[]> ranges = new ArrayList<>();
-        private final Map<List<Double>, Integer> rangeIndex = new HashMap<>();
-        private final FigureCodes.Builder figures;
-
-        private Builder(int capacity) {
-            figures = new FigureCodes.Builder(capacity);
-            brightest = new byte[BINS][capacity];
-            darkest = new byte[BINS][capacity];
-            rangeOfCurve = new short[capacity];
-            Arrays.fill(rangeOfCurve, (short) -1);
-        }
-
-        void grow(int capacity) {
-            for (int b = 0; b < BINS; b++) {
-                brightest[b] = Arrays.copyOf(brightest[b], capacity);
-                darkest[b] = Arrays.copyOf(darkest[b], capacity);
-            }
-            figures.grow(capacity);
-            int old = rangeOfCurve.length;
-            rangeOfCurve = Arrays.copyOf(rangeOfCurve, capacity);
-            Arrays.fill(rangeOfCurve, old, capacity, (short) -1);
-        }
-
-        /** The slot holds no bound (a curve added already on the grid: its exact curve is not known here). */
-        void unknown(int slot) {
-            for (int b = 0; b < BINS; b++) {
-                brightest[b][slot] = 0;
-                darkest[b][slot] = 0;
-            }
-            rangeOfCurve[slot] = -1;
-            figures.unknown(slot);
-        }
-
-        /**
-         * The slot's bins carried over from another store's screen (a rebuild reusing an unchanged curve's row):
-         * the same bytes {@link #add} wrote for that curve, so the carried row is screened as a fresh one is.
-         */
-        void copy(int slot, WeightedScreen from, int fromSlot) {
-            unknown(slot);
-            figures.copy(slot, from.figures, fromSlot);
-            int range = from.rangeOfCurve[fromSlot];
-            if (range < 0) {
-                return; // not screened there either
-            }
-            double[] r = from.ranges.get(range);
-            Integer here = rangeIndex.computeIfAbsent(List.of(r[0], r[1], r[2]), k -> {
-                ranges.add(new double[] {r[0], r[1], r[2]});
-                return ranges.size() - 1;
-            });
-            if (here > Short.MAX_VALUE) {
-                return;
-            }
-            for (int b = 0; b < BINS; b++) {
-                brightest[b][slot] = from.brightest[b][fromSlot];
-                darkest[b][slot] = from.darkest[b][fromSlot];
-            }
-            rangeOfCurve[slot] = (short) (int) here;
-        }
-
-        /** The slot's bins from the curve the exact judgement reads. */
-        void add(int slot, Curve curve) {
-            unknown(slot);
-            figures.add(slot, curve);
-            double min = curve.minWavelengthNm();
-            double max = curve.maxWavelengthNm();
-            double regular = regular(curve) ? 1 : 0;
-            Integer range = rangeIndex.computeIfAbsent(List.of(min, max, regular), k -> {
-                ranges.add(new double[] {min, max, regular});
-                return ranges.size() - 1;
-            });
-            if (range > Short.MAX_VALUE) {
-                return; // more distinct ranges than a short names: this curve is not screened
-            }
-            Curve upper = BoundedCurves.upperBounds(curve);
-            Curve lower = BoundedCurves.lowerBounds(curve);
-            double[] highest = new double[BINS];
-            double[] lowest = new double[BINS];
-            Arrays.fill(highest, Double.NEGATIVE_INFINITY);
-            Arrays.fill(lowest, Double.POSITIVE_INFINITY);
-            for (int i = 0; i < curve.size(); i++) {
-                double nm = curve.wavelengthNm(i);
-                int bin = binOf(nm);
-                if (bin < 0) {
-                    continue;
-                }
-                bracket(highest, upper, i, bin);
-                // a point at T = 0 reads 0 but its neighbours interpolate from the absorbance floor
-                double hi = Math.max(upper.transmittance(i), Curve.ABSORBANCE_FLOOR_T);
-                double lo = lower.transmittance(i);
-                note(highest, lowest, bin, hi, lo);
-                if (bin > 0 && nm == FIRST_NM + bin * BIN_NM) {
-                    note(highest, lowest, bin - 1, hi, lo); // on the shared edge: in both closed bins
-                }
-            }
-            for (int b = 0; b < BINS; b++) {
-                double from = Math.max(FIRST_NM + b * BIN_NM, min);
-                double to = Math.min(FIRST_NM + (b + 1) * BIN_NM, max);
-                if (from > to) {
-                    continue;
-                }
-                for (double end : new double[] {from, to}) {
-                    note(highest, lowest, b, Math.max(upper.transmittanceAt(end).orElseThrow(), Curve.ABSORBANCE_FLOOR_T),
-                            lower.transmittanceAt(end).orElseThrow());
-                }
-                brightest[b][slot] = (byte) codeAtMost(highest[b]);
-                darkest[b][slot] = (byte) codeAtLeast(lowest[b]);
-            }
-            rangeOfCurve[slot] = (short) (int) range;
-        }
-
-        /**
-         * Whether every bin the curve meets holds one of its points (no two neighbours more than a bin apart)
-         * and no point above detection has a limit above its T: then every stored point's upper reading
-         * max(T, limit) that any value inside a bin is read from — T interpolated in absorbance, limits
-         * linearly, between two neighbours — is held by that bin's brightest ({@link Query#behindLayer}).
-         */
-        private static boolean regular(Curve curve) {
-            for (int i = 0; i < curve.size(); i++) {
-                if (i > 0 && curve.wavelengthNm(i) - curve.wavelengthNm(i - 1) > BIN_NM) {
-                    return false;
-                }
-                if (!curve.belowDetection(i) && curve.detectionLimit(i) > curve.transmittance(i)) {
-                    return false;
-                }
-            }
-            return true;
-        }
-
-        /**
-         * The brightest of a bin also holds the points just outside it that a value inside it interpolates
-         * from (the last point before the bin and the first after it), so that after a change of thickness,
-         * which moves every point but interpolates between the moved points, the bin's values still lie
-         * below the moved brightest ({@link #marginBoundsThinned}).
-         */
-        private static void bracket(double[] highest, Curve upper, int i, int bin) {
-            double lowEdge = FIRST_NM + bin * BIN_NM;
-            double highEdge = lowEdge + BIN_NM;
-            if (i > 0 && upper.wavelengthNm(i - 1) < lowEdge) {
-                highest[bin] = Math.max(highest[bin], Math.max(upper.transmittance(i - 1), Curve.ABSORBANCE_FLOOR_T));
-            }
-            if (i + 1 < upper.size() && upper.wavelengthNm(i + 1) > highEdge) {
-                highest[bin] = Math.max(highest[bin], Math.max(upper.transmittance(i + 1), Curve.ABSORBANCE_FLOOR_T));
-            }
-        }
-
-        private static void note(double[] highest, double[] lowest, int bin, double hi, double lo) {
-            highest[bin] = Math.max(highest[bin], hi);
-            lowest[bin] = Math.min(lowest[bin], lo);
-        }
-
-        WeightedScreen build(int size) {
-            byte[][] b = new byte[BINS][];
-            byte[][] d = new byte[BINS][];
-            for (int i = 0; i < BINS; i++) {
-                b[i] = brightest[i].length == size ? brightest[i] : Arrays.copyOf(brightest[i], size);
-                d[i] = darkest[i].length == size ? darkest[i] : Arrays.copyOf(darkest[i], size);
-            }
-            short[] r = rangeOfCurve.length == size ? rangeOfCurve : Arrays.copyOf(rangeOfCurve, size);
-            return new WeightedScreen(b, d, r, List.copyOf(ranges), figures.build(size));
-        }
     }
 }

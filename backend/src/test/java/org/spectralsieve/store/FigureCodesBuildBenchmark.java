@@ -10,7 +10,7 @@ import org.spectralsieve.spectrum.Curve;
  * What the figure codes add to a curve's entry into the store ({@code SpectralStore.Builder.add}): the seven exact
  * figures (and their lower ends where points below detection weigh in) beside the weighted screen's bins, per curve,
  * on the random curves of {@link FigureCodesTest} (steps 0.5–5 nm). Alternated run by run in one JVM: {@code part=bins}
- * (the screen's bins alone, {@code WeightedScreen.Builder.add} before the codes) and {@code part=codes}
+ * (the screen's bins alone, {@code WeightedBinsBuilder.add} before the codes) and {@code part=codes}
  * ({@link FigureCodes.Builder#add} alone). Prints {@code BENCH store-figure-codes-build part=… curves=… p50_us_per_curve
  * p95_us_per_curve runs}; asserts nothing about time. {@code -Dbench.figureCodesBuildCurves=2000},
  * {@code -Dbench.figureCodesBuildRuns=7}.
@@ -35,7 +35,7 @@ class FigureCodesBuildBenchmark {
                 figures.add(i, curves[i]);
             }
             long t1 = System.nanoTime();
-            WeightedScreen.Builder bins = WeightedScreen.builder(n);
+            WeightedBinsBuilder bins = WeightedScreen.builder(n);
             for (int i = 0; i < n; i++) {
                 bins.add(i, curves[i]); // bins and codes together: the entry as it is now
             }
