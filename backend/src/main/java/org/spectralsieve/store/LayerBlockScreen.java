@@ -62,7 +62,7 @@ public final class LayerBlockScreen {
             Arrays.fill(row, Double.POSITIVE_INFINITY);
         }
         double[] layerRange = {layer.minWavelengthNm(), layer.maxWavelengthNm()};
-        if (!(WeightedScreen.largestReflectance(layerIndex, layerRange) < 1)) {
+        if (!(SurfaceBounds.largestReflectance(layerIndex, layerRange) < 1)) {
             return out; // no stack can be formed: every row is unverified
         }
         byte[] usableIndex = new byte[store.indexModelCount()]; // 0 unknown, 1 usable, 2 not
@@ -142,7 +142,7 @@ public final class LayerBlockScreen {
         int model = store.indexModelOf(curve);
         if (usableIndex[model] == 0) {
             RefractiveIndex index = store.indexModel(model);
-            usableIndex[model] = index == null || WeightedScreen.largestReflectance(index, layerRange) < 1 ? (byte) 1 : 2;
+            usableIndex[model] = index == null || SurfaceBounds.largestReflectance(index, layerRange) < 1 ? (byte) 1 : 2;
         }
         return usableIndex[model] == 1;
     }

@@ -1,6 +1,5 @@
 package org.spectralsieve.store;
 
-import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.HashMap;
 import java.util.List;
@@ -9,13 +8,12 @@ import java.util.Optional;
 import java.util.function.IntPredicate;
 import org.spectralsieve.optics.Fresnel;
 import org.spectralsieve.optics.RefractiveIndex;
-import org.spectralsieve.optics.SlabReading;
+import org.spectralsieve.store.SurfaceBounds.Surfaces;
 import org.spectralsieve.requirement.Direction;
 import org.spectralsieve.requirement.WeightedClause;
 import org.spectralsieve.requirement.Weighting;
 import org.spectralsieve.spectrum.Curve;
 import org.spectralsieve.weighting.BelowDetectionAs;
-import org.spectralsieve.weighting.BoundedCurves;
 import org.spectralsieve.weighting.LuminousTransmittance;
 import org.spectralsieve.weighting.WeightedFigures;
 
@@ -256,8 +254,8 @@ public final class WeightedScreen {
                     darkest[b] = 0; // no layer interval meets the bin
                 }
             }
-            double r = largestReflectance(index, new double[] {layer.minWavelengthNm(), layer.maxWavelengthNm()});
-            return new LayerBins(layer, layer.minWavelengthNm(), layer.maxWavelengthNm(), brightest, darkest, elementReflectance(r));
+            double r = SurfaceBounds.largestReflectance(index, new double[] {layer.minWavelengthNm(), layer.maxWavelengthNm()});
+            return new LayerBins(layer, layer.minWavelengthNm(), layer.maxWavelengthNm(), brightest, darkest, SurfaceBounds.elementReflectance(r));
         }
 
         /** A layer point that may stand in the block bound: above detection, T in [ε, 1] (so min(T, 1) = T). */
@@ -276,20 +274,6 @@ public final class WeightedScreen {
     private static int binOfClamped(double nm) {
         double x = Math.floor((nm - FIRST_NM) / BIN_NM);
         return x < -1 ? -1 : x > BINS ? BINS : (int) x;
-    }
-
-    /**
-     * The largest total reflectance ρ of a slab element ({@code OpticalElement.slab} of a {@code SlabReading})
-     * whose surfaces reflect at most {@code rMax} (Fresnel): a resolved reading's R + (1 − R)²RK²/(1 − R²K²)
-     * rises with K to the lossless 2R/(1 + R); an unresolved one's element is lossless with the effective
-     * surface, ρ = 1 − min(T0, 1), and T0 ≥ (1 − R)/(1 + R) − u, so ρ ≤ 2R/(1 + R) + u. 1 (no bound) for
-     * rMax ≥ 1.
-     */
-    static double elementReflectance(double rMax) {
-        if (!(rMax < 1)) {
-            return 1;
-        }
-        return Math.min(1, 2 * rMax / (1 + rMax) + SlabReading.READING_UNCERTAINTY);
     }
 
     /**
@@ -581,7 +565,7 @@ public final class WeightedScreen {
          * judged as measured or thicker (others: +∞). Why: at each wavelength p the stack combines (light path,
          * incoherent reflections across the air gap) T = T₁T₂/(1 − ρ₁ρ₂), and its detection limit chains one
          * part at a time at its limit, so the stack's upper reading is at most
-         * max(T₁, lim₁)·max(T₂, lim₂)/(1 − ρ₁ρ₂), ρ ≤ {@link #elementReflectance} of each part's largest Fresnel
+         * max(T₁, lim₁)·max(T₂, lim₂)/(1 − ρ₁ρ₂), ρ ≤ {@link SurfaceBounds#elementReflectance} of each part's largest Fresnel
          * R (the candidate's index, or the n = 1.5 assumed for a part stored without one, whichever is larger).
          * A value of the stack inside a bin is interpolated between two neighbouring stack points lying in one
          * candidate interval and one layer interval that meet the bin, so it is at most the larger end, floored
@@ -602,7 +586,7 @@ public final class WeightedScreen {
                 return Double.POSITIVE_INFINITY;
             }
             double r = Math.max(largestReflectance(curve), Fresnel.reflectanceInAir(1.52));
-            double rho = elementReflectance(r);
+            double rho = SurfaceBounds.elementReflectance(r);
             if (!(rho < 1) || !(layer.reflectance < 1)) {
                 return Double.POSITIVE_INFINITY;
             }
@@ -673,7 +657,7 @@ public final class WeightedScreen {
                 return Double.POSITIVE_INFINITY;
             }
             double rMax = Math.max(largestReflectance(curve), Fresnel.reflectanceInAir(1.52));
-            double gain = (1 + SLACK) / (1 - elementReflectance(rMax) * layer.reflectance);
+            double gain = (1 + SLACK) / (1 - SurfaceBounds.elementReflectance(rMax) * layer.reflectance);
             double[] nm = nodes[0];
             double[] weight = nodes[1];
             double[] layerUp = nodes[2];
@@ -1045,7 +1029,7 @@ public final class WeightedScreen {
             long key = ~(((long) model << 32) | range);
             Double hit = largestR.get(key);
             if (hit == null) {
-                hit = WeightedScreen.smallestReflectance(store.indexModel(model), ranges.get(range));
+                hit = SurfaceBounds.smallestReflectance(store.indexModel(model), ranges.get(range));
                 largestR.put(key, hit);
             }
             return hit;
@@ -1058,7 +1042,7 @@ public final class WeightedScreen {
          * reflectance: a resolved reading has T0 = (1 − R)²K0/(1 − R²K0²) ≤ K0(1 − R)/(1 + R), so
          * K0 ≥ T0(1 + R)/(1 − R), and T(d) ≥ (1 − R)²K0^k ≥ (1 − R)²((1 + R)/(1 − R))^k·T0^k ≥ (1 − R²)·T0^k;
          * a reading the data cannot resolve keeps min(T0, 1) while d stays within its far thickness, which is
-         * at least d0·{@link #leastFarFactor}(R_max) (beyond it the rescaled point is a bound, read as 0 by L).
+         * at least d0·{@link SurfaceBounds#leastFarFactor}(R_max) (beyond it the rescaled point is a bound, read as 0 by L).
          * With B ≥ 1 and at least every reading involved ({@link #lnBrightestOfCurve}, so T0/B ≤ 1): T(d) ≥ c·(T0/B)^k,
          * c = 1 − R_max², at every point, and as a power of T0 it commutes with the absorbance interpolation
          * (floors included: c·(ε/B)^k ≤ ε), so every value of L at d in the bin is at least c·(darkest/B)^k.
@@ -1305,7 +1289,7 @@ public final class WeightedScreen {
                 return Double.POSITIVE_INFINITY; // the exact rescaling fails on this index: unverified, never a miss
             }
             double k = Math.max(1, thickestMm / d0);
-            if (!(k <= leastFarFactor(r) * (1 - 1e-9))) {
+            if (!(k <= SurfaceBounds.leastFarFactor(r) * (1 - 1e-9))) {
                 return Double.POSITIVE_INFINITY; // a clear reading may have turned into a bound (L reads it as 0)
             }
             double lnB = lnBrightestOfCurve(curve);
@@ -1373,8 +1357,8 @@ public final class WeightedScreen {
             Surfaces s = ofModel[model];
             if (s == null) {
                 RefractiveIndex index = store.indexModel(model);
-                s = new Surfaces(WeightedScreen.largestReflectance(index, ranges.get(range)),
-                        WeightedScreen.smallestReflectance(index, ranges.get(range)));
+                s = new Surfaces(SurfaceBounds.largestReflectance(index, ranges.get(range)),
+                        SurfaceBounds.smallestReflectance(index, ranges.get(range)));
                 ofModel[model] = s;
             }
             return s;
@@ -1386,54 +1370,10 @@ public final class WeightedScreen {
             long key = ((long) model << 32) | range;
             Double hit = largestR.get(key);
             if (hit == null) {
-                hit = WeightedScreen.largestReflectance(store.indexModel(model), ranges.get(range));
+                hit = SurfaceBounds.largestReflectance(store.indexModel(model), ranges.get(range));
                 largestR.put(key, hit);
             }
             return hit;
-        }
-    }
-
-    /**
-     * One index model's surfaces over one curve range, as {@code Query.thinned} and {@code Query.thickened}
-     * use them: R_max, R_min and the logarithms formed from them, the same expressions the per-bin arithmetic
-     * used to form on every call.
-     */
-    private static final class Surfaces {
-        final double largest;
-        final double smallest;
-        /** ln((1 − R_max)² / (1 + SLACK)): the thinned bound's loss through both surfaces. */
-        final double logLoss;
-        /** (1 − R_min) / (1 + R_min): the largest T a resolved reading can have. */
-        final double ceiling;
-        final double leastFarFactor;
-        /** ln(1 − R_max²): the thickened bound's factor c, formed once ({@code Query.thickenedFromCode} reads it per split). */
-        final double lnContrast;
-        private final double lnOneMinusLargest;
-        private final double lnOnePlusLargest;
-        private final double lnOneMinusSmallest;
-        private final double lnOnePlusSmallest;
-
-        Surfaces(double largest, double smallest) {
-            this.largest = largest;
-            this.smallest = smallest;
-            this.logLoss = Math.log(((1 - largest) * (1 - largest)) / (1 + SLACK));
-            this.ceiling = (1 - smallest) / (1 + smallest);
-            this.leastFarFactor = largest < 1 ? WeightedScreen.leastFarFactor(largest) : Double.NaN;
-            this.lnContrast = Math.log(1 - largest * largest);
-            this.lnOneMinusLargest = Math.log(1 - largest);
-            this.lnOnePlusLargest = Math.log(1 + largest);
-            this.lnOneMinusSmallest = Math.log(1 - smallest);
-            this.lnOnePlusSmallest = Math.log(1 + smallest);
-        }
-
-        /** ln h(R_max) at k, as {@code lnSurfaceFactor}. */
-        double lnLargestFactor(double k) {
-            return (1 - 2 * k) * lnOneMinusLargest - lnOnePlusLargest;
-        }
-
-        /** ln h(R_min) at k; −∞ without a smallest reflectance. */
-        double lnSmallestFactor(double k) {
-            return Double.isNaN(smallest) ? Double.NEGATIVE_INFINITY : (1 - 2 * k) * lnOneMinusSmallest - lnOnePlusSmallest;
         }
     }
 
@@ -1471,71 +1411,6 @@ public final class WeightedScreen {
         /** T(code)^k, to within {@link #POWER_ROOM}; code ≥ 1. */
         double at(int code) {
             return low[code & 15] * high[code >>> 4];
-        }
-    }
-
-    /**
-     * A lower bound on the far factor ({@link org.spectralsieve.optics.SlabReading#farFactor}) of every
-     * reading the data cannot resolve on surfaces of Fresnel reflectance at most {@code rMax}. Such a reading r
-     * is at least the lossless ceiling C = (1 − R)/(1 + R) ≥ (1 − R_max)/(1 + R_max) minus the reading's
-     * uncertainty u; its hidden internal transmittance is the slab inversion of r − u with the effective
-     * surface R' = (1 − r)/(1 + r), which is at least (r − u)(1 + R')/(1 − R') = 1 − u/r (the inversion's
-     * K ≥ T(1 + R)/(1 − R)); so its hidden absorption is at most −log10(1 − u/r) decades and its far factor at
-     * least {@link org.spectralsieve.optics.SlabReading#RESOLVABLE_DECADES} over that (and at least 1).
-     */
-    static double leastFarFactor(double rMax) {
-        double u = SlabReading.READING_UNCERTAINTY;
-        double least = (1 - rMax) / (1 + rMax) - u;
-        if (!(least > u)) {
-            return 1;
-        }
-        double hidden = -Math.log10(1 - u / least);
-        return Math.max(1, SlabReading.RESOLVABLE_DECADES / hidden);
-    }
-
-    /**
-     * The largest normal-incidence surface reflectance of the index over the curve's range (every 0.25 nm
-     * and both ends, n raised by 0.02 for what lies between the samples); 1 (no bound) when the index cannot
-     * give n there, where the exact rescaling fails too and says so (an unverified row, never a miss).
-     */
-    static double largestReflectance(RefractiveIndex index, double[] curveRange) {
-        double largest = 0;
-        try {
-            for (double nm = curveRange[0]; ; nm = Math.min(curveRange[1], nm + 0.25)) {
-                double n = index.at(nm);
-                if (!(n >= 1) || !Double.isFinite(n)) {
-                    return 1;
-                }
-                largest = Math.max(largest, Fresnel.reflectanceInAir(n + 0.02));
-                if (nm >= curveRange[1]) {
-                    return largest;
-                }
-            }
-        } catch (RuntimeException e) {
-            return 1;
-        }
-    }
-
-    /**
-     * The smallest normal-incidence surface reflectance of the index over the curve's range (every 0.25 nm
-     * and both ends, n lowered by 0.02 for what lies between the samples, not below 1); NaN (no bound) when the
-     * index cannot give n there.
-     */
-    static double smallestReflectance(RefractiveIndex index, double[] curveRange) {
-        double smallest = Double.POSITIVE_INFINITY;
-        try {
-            for (double nm = curveRange[0]; ; nm = Math.min(curveRange[1], nm + 0.25)) {
-                double n = index.at(nm);
-                if (!(n >= 1) || !Double.isFinite(n)) {
-                    return Double.NaN;
-                }
-                smallest = Math.min(smallest, Fresnel.reflectanceInAir(Math.max(1, n - 0.02)));
-                if (nm >= curveRange[1]) {
-                    return smallest;
-                }
-            }
-        } catch (RuntimeException e) {
-            return Double.NaN;
         }
     }
 

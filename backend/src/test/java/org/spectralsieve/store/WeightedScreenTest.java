@@ -407,9 +407,9 @@ class WeightedScreenTest {
             double ceiling = (1 - r) / (1 + r) - org.spectralsieve.optics.SlabReading.READING_UNCERTAINTY;
             double t = ceiling + (1.2 - ceiling) * random.nextDouble();
             var reading = org.spectralsieve.optics.SlabReading.of(t, r);
-            assertThat(reading.farFactor()).as("t " + t + " r " + r).isGreaterThanOrEqualTo(WeightedScreen.leastFarFactor(rMax));
+            assertThat(reading.farFactor()).as("t " + t + " r " + r).isGreaterThanOrEqualTo(SurfaceBounds.leastFarFactor(rMax));
         }
-        assertThat(WeightedScreen.leastFarFactor(0.04)).as("about four times the thickness (SlabReading's note)")
+        assertThat(SurfaceBounds.leastFarFactor(0.04)).as("about four times the thickness (SlabReading's note)")
                 .isBetween(3.0, 6.0);
     }
 
