@@ -14,8 +14,6 @@ import org.spectralsieve.requirement.WeightedClause;
 import org.spectralsieve.requirement.Weighting;
 import org.spectralsieve.spectrum.Curve;
 import org.spectralsieve.weighting.BelowDetectionAs;
-import org.spectralsieve.weighting.LuminousTransmittance;
-import org.spectralsieve.weighting.WeightedFigures;
 
 /**
  * What the store can prove about weighted figures (an emitter's share that passes, erythemal, UV hazard,
@@ -506,7 +504,7 @@ public final class WeightedScreen {
             }
             double[] shares = sharesOfRange[range];
             if (shares == null) {
-                shares = binShares(clause.weighting(), ranges.get(range), layerRange);
+                shares = BinShares.binShares(clause.weighting(), ranges.get(range), layerRange);
                 double[] formed = shares;
                 usedBinsOfRange[range] = java.util.stream.IntStream.range(0, formed.length).filter(b -> formed[b] > 0).toArray();
                 sharesOfRange[range] = shares;
@@ -619,13 +617,13 @@ public final class WeightedScreen {
          * is the largest max(T, limit) at the ends of the layer's intervals holding λ: the stack points a value at
          * λ is interpolated from lie in one such interval, so the layer's factor there is at most layerUp(λ). Then
          * Σₙ aₙ·max(Bₙ·layerUp(λₙ)·gain, ε)/Σ aₙ ≤ Σ_b brightest_b·gain·this_b + ε. Empty where a point has no
-         * layer value (outside the layer: {@link #binShares} gives no shares then either).
+         * layer value (outside the layer: {@link BinShares#binShares} gives no shares then either).
          */
         private double[] layerShares(int curve) {
             int range = rangeOfCurve[curve];
             double[] out = layerSharesOfRange[range];
             if (out == null) {
-                out = WeightedScreen.layerShares(clause.weighting(), ranges.get(range), layer.curve);
+                out = BinShares.layerShares(clause.weighting(), ranges.get(range), layer.curve);
                 layerSharesOfRange[range] = out;
             }
             return out;
@@ -689,7 +687,7 @@ public final class WeightedScreen {
         private double[][] layerNodes(int range) {
             double[][] out = layerNodesOfRange[range];
             if (out == null) {
-                out = WeightedScreen.layerNodes(clause.weighting(), ranges.get(range), layer.curve);
+                out = BinShares.layerNodes(clause.weighting(), ranges.get(range), layer.curve);
                 layerNodesOfRange[range] = out == null ? new double[0][] : out;
             }
             return out == null || out.length == 0 ? null : out;
@@ -966,7 +964,7 @@ public final class WeightedScreen {
         private double[][] nodes(int range) {
             double[][] out = nodesOfRange[range];
             if (out == null) {
-                out = WeightedScreen.integrationNodes(clause.weighting(), ranges.get(range));
+                out = BinShares.integrationNodes(clause.weighting(), ranges.get(range));
                 nodesOfRange[range] = out == null || out[0].length == 0 ? new double[0][] : out;
             }
             return out == null || out.length == 0 || out[0].length == 0 ? null : out;
@@ -1412,145 +1410,6 @@ public final class WeightedScreen {
         double at(int code) {
             return low[code & 15] * high[code >>> 4];
         }
-    }
-
-    /**
-     * {@link #binShares} with each integration point's weight times the layer's largest upper reading around it
-     * ({@code Query#layerShares}); empty where {@link #binShares} is, or where a point lies outside the layer.
-     */
-    static double[] layerShares(Weighting weighting, double[] curveRange, Curve layer) {
-        double[][] nodes = integrationNodes(weighting, curveRange);
-        if (nodes == null || nodes[0].length == 0) {
-            return new double[0];
-        }
-        double[] nm = nodes[0];
-        double[] weight = nodes[1];
-        double[] wavelengths = layer.wavelengthsNm();
-        double[] out = new double[BINS];
-        double total = 0;
-        for (int i = 0; i < nm.length; i++) {
-            int bin = binOf(nm[i]);
-            if (bin < 0 || !layer.covers(nm[i])) {
-                return new double[0];
-            }
-            int hit = Arrays.binarySearch(wavelengths, nm[i]);
-            // the intervals holding the point: both around a stored point, else the one it lies in
-            int lo = hit >= 0 ? Math.max(0, hit - 1) : -hit - 2;
-            int hi = hit >= 0 ? Math.min(wavelengths.length - 1, hit + 1) : -hit - 1;
-            double up = 0;
-            for (int j = lo; j <= hi; j++) {
-                up = Math.max(up, Math.max(layer.transmittance(j), layer.detectionLimit(j)));
-            }
-            out[bin] += weight[i] * up;
-            total += weight[i];
-        }
-        if (!(total > 0)) {
-            return new double[0];
-        }
-        for (int b = 0; b < BINS; b++) {
-            out[b] /= total;
-        }
-        return out;
-    }
-
-    /**
-     * The figure's integration points on a curve spanning the range with, per point, the layer's largest upper
-     * reading around it (as {@link #layerShares}): {nm, weight, layerUp}; null where {@link #layerShares} is empty.
-     */
-    static double[][] layerNodes(Weighting weighting, double[] curveRange, Curve layer) {
-        double[][] nodes = integrationNodes(weighting, curveRange);
-        if (nodes == null || nodes[0].length == 0) {
-            return null;
-        }
-        double[] nm = nodes[0];
-        double[] wavelengths = layer.wavelengthsNm();
-        double[] up = new double[nm.length];
-        for (int i = 0; i < nm.length; i++) {
-            if (binOf(nm[i]) < 0 || !layer.covers(nm[i])) {
-                return null;
-            }
-            int hit = Arrays.binarySearch(wavelengths, nm[i]);
-            int lo = hit >= 0 ? Math.max(0, hit - 1) : -hit - 2;
-            int hi = hit >= 0 ? Math.min(wavelengths.length - 1, hit + 1) : -hit - 1;
-            for (int j = lo; j <= hi; j++) {
-                up[i] = Math.max(up[i], Math.max(layer.transmittance(j), layer.detectionLimit(j)));
-            }
-        }
-        return new double[][] {nm, nodes[1], up};
-    }
-
-    /** The figure's integration points {nm, weight} on a curve spanning the range, or null where not available. */
-    private static double[][] integrationNodes(Weighting weighting, double[] curveRange) {
-        double min = curveRange[0];
-        double max = curveRange[1];
-        if (weighting instanceof Weighting.Luminous) {
-            return min <= LuminousTransmittance.FROM_NM && max >= LuminousTransmittance.TO_NM
-                    ? LuminousTransmittance.integrationNodes() : null;
-        }
-        if (weighting instanceof Weighting.Spectral spectral) {
-            double[] span = spectral.rangeNm();
-            double from = Math.max(span[0], min);
-            double to = Math.min(span[1], max);
-            Curve flat = Curve.of(new double[] {min, max}, new double[] {1, 1}, 0);
-            if (!(to > from) || !spectral.figure(flat).available()) {
-                return null;
-            }
-            return WeightedFigures.integrationNodes(spectral.emitter(), spectral.effectiveResponse(), from, to);
-        }
-        return null;
-    }
-
-    /**
-     * Each bin's share of the figure's weight for a curve spanning {min, max}; empty when the figure is not
-     * available on such a curve (the exact judgement says unverified, which no bound may claim to be a miss),
-     * when an integration point lies outside the bins, or when a layer would change the points.
-     */
-    static double[] binShares(Weighting weighting, double[] curveRange, Optional<double[]> layerRange) {
-        double min = curveRange[0];
-        double max = curveRange[1];
-        double[][] nodes;
-        if (weighting instanceof Weighting.Luminous) {
-            if (!(min <= LuminousTransmittance.FROM_NM && max >= LuminousTransmittance.TO_NM)) {
-                return new double[0];
-            }
-            nodes = LuminousTransmittance.integrationNodes();
-        } else if (weighting instanceof Weighting.Spectral spectral) {
-            double[] span = spectral.rangeNm();
-            double from = Math.max(span[0], min);
-            double to = Math.min(span[1], max);
-            Curve flat = Curve.of(new double[] {min, max}, new double[] {1, 1}, 0);
-            if (!(to > from) || !spectral.figure(flat).available()) {
-                return new double[0];
-            }
-            nodes = WeightedFigures.integrationNodes(spectral.emitter(), spectral.effectiveResponse(), from, to);
-        } else {
-            return new double[0];
-        }
-        double[] nm = nodes[0];
-        double[] weight = nodes[1];
-        if (nm.length == 0) {
-            return new double[0];
-        }
-        if (layerRange.isPresent() && !(layerRange.get()[0] <= nm[0] && layerRange.get()[1] >= nm[nm.length - 1])) {
-            return new double[0];
-        }
-        double[] shares = new double[BINS];
-        double total = 0;
-        for (int i = 0; i < nm.length; i++) {
-            int bin = binOf(nm[i]);
-            if (bin < 0) {
-                return new double[0];
-            }
-            shares[bin] += weight[i];
-            total += weight[i];
-        }
-        if (!(total > 0)) {
-            return new double[0];
-        }
-        for (int b = 0; b < BINS; b++) {
-            shares[b] /= total;
-        }
-        return shares;
     }
 
     /**
