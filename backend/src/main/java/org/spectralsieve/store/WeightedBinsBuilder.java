@@ -4,8 +4,8 @@ import static org.spectralsieve.store.WeightedScreen.BINS;
 import static org.spectralsieve.store.WeightedScreen.BIN_NM;
 import static org.spectralsieve.store.WeightedScreen.FIRST_NM;
 import static org.spectralsieve.store.WeightedScreen.binOf;
-import static org.spectralsieve.store.WeightedScreen.codeAtLeast;
-import static org.spectralsieve.store.WeightedScreen.codeAtMost;
+import static org.spectralsieve.store.BinCodes.codeAtLeast;
+import static org.spectralsieve.store.BinCodes.codeAtMost;
 
 import java.util.ArrayList;
 import java.util.Arrays;

@@ -1,5 +1,8 @@
 package org.spectralsieve.store;
 
+import static org.spectralsieve.store.BinCodes.LN_T_OF_CODE;
+import static org.spectralsieve.store.BinCodes.T_OF_CODE;
+
 import java.util.Arrays;
 import java.util.HashMap;
 import java.util.List;
@@ -8,6 +11,7 @@ import java.util.Optional;
 import java.util.function.IntPredicate;
 import org.spectralsieve.optics.Fresnel;
 import org.spectralsieve.optics.RefractiveIndex;
+import org.spectralsieve.store.BinCodes.Powers;
 import org.spectralsieve.store.SurfaceBounds.Surfaces;
 import org.spectralsieve.requirement.Direction;
 import org.spectralsieve.requirement.WeightedClause;
@@ -59,11 +63,6 @@ public final class WeightedScreen {
     /** Bytes per curve: two bin codes per bin and a short naming the curve's wavelength range. */
     public static final int BYTES_PER_CURVE = 2 * BINS + Short.BYTES + FigureCodes.BYTES_PER_CURVE;
 
-    private static final double[] T_OF_CODE = new double[256];
-    /** ln of {@link #T_OF_CODE} (−∞ for code 0), for powers of bin values. */
-    private static final double[] LN_T_OF_CODE = new double[256];
-    /** ln of the transmittance ratio of one code step: ln T(c + 1) − ln T(c) = −STEP·ln 10. */
-    private static final double LN_T_PER_CODE = -STEP * Math.log(10);
     /**
      * Relative room for the rounding of a power of a bin value formed from {@link Powers} (a few dozen
      * roundings, under 1e-14) instead of one {@code Math.exp}: the power is moved this far to the safe side, so
@@ -75,14 +74,6 @@ public final class WeightedScreen {
      * and re-forming, and the chain's arithmetic (10⁻⁶, far above the few roundings involved).
      */
     static final double STACK_ROUNDING = 1e-6;
-
-    static {
-        LN_T_OF_CODE[0] = Double.NEGATIVE_INFINITY;
-        for (int c = 1; c < 256; c++) {
-            T_OF_CODE[c] = Math.pow(10, -(c - OFFSET) * STEP);
-            LN_T_OF_CODE[c] = Math.log(T_OF_CODE[c]);
-        }
-    }
 
     final byte[][] brightest;
     final byte[][] darkest;
@@ -1376,43 +1367,6 @@ public final class WeightedScreen {
     }
 
     /**
-     * T(c)^k for every code c, for one exponent k at a time, without an exp per code: the codes' transmittances
-     * are a geometric sequence (each code step is {@link #STEP} decades), so T(c)^k = g^(c − OFFSET) with
-     * g = T(OFFSET + 1)^k, formed as g^(−OFFSET)·g^(c mod 16)·g^(16·(c div 16)) from two tables of 16 powers.
-     * Each entry is a product of at most 16 roundings, and the product of three more: under 1e-14 relative
-     * altogether, against {@link #POWER_ROOM} = 1e-12 the callers move it by. Not thread-safe.
-     */
-    static final class Powers {
-        private final double[] low = new double[16];
-        private final double[] high = new double[16];
-        private double k = Double.NaN;
-
-        /** Prepares the tables for exponent k (nothing to do when k is the last one). */
-        void of(double k) {
-            if (k == this.k) {
-                return;
-            }
-            this.k = k;
-            double g = Math.exp(k * LN_T_PER_CODE);
-            double shift = Math.exp(-OFFSET * k * LN_T_PER_CODE);
-            low[0] = shift;
-            for (int j = 1; j < 16; j++) {
-                low[j] = low[j - 1] * g;
-            }
-            double g16 = Math.exp(16 * k * LN_T_PER_CODE);
-            high[0] = 1;
-            for (int i = 1; i < 16; i++) {
-                high[i] = high[i - 1] * g16;
-            }
-        }
-
-        /** T(code)^k, to within {@link #POWER_ROOM}; code ≥ 1. */
-        double at(int code) {
-            return low[code & 15] * high[code >>> 4];
-        }
-    }
-
-    /**
      * An upper bound on T at the curve's own points that a value at {@code nm} is interpolated from (for
      * {@link LayerBlockScreen}): the brightest of the bin holding {@code nm}, which on a regular curve holds both
      * neighbours of any value inside the bin (see {@link Query#behindLayer}); {@link Curve#MAX_TRANSMITTANCE}
@@ -1436,26 +1390,4 @@ public final class WeightedScreen {
         return Math.min(BINS - 1, (int) Math.floor((nm - FIRST_NM) / BIN_NM));
     }
 
-    /** Code of an upper bound on T: OD rounded down; 0 (no bound) above T = 10^(OFFSET·STEP). */
-    static int codeAtMost(double t) {
-        if (!(t > 0)) {
-            return 255;
-        }
-        long c = (long) Math.floor(-Math.log10(t) / STEP - 1e-6) + OFFSET;
-        return c < 1 ? 0 : (int) Math.min(255, c);
-    }
-
-    /** Code of a lower bound on T: OD rounded up; 0 (T may be 0) where the OD is beyond the code. */
-    static int codeAtLeast(double t) {
-        if (!(t > 0)) {
-            return 0;
-        }
-        long c = (long) Math.ceil(-Math.log10(t) / STEP + 1e-6) + OFFSET;
-        return c > 255 ? 0 : (int) Math.max(1, c);
-    }
-
-    /** The transmittance a code stands for (0 for code 0). */
-    static double transmittanceOf(int code) {
-        return T_OF_CODE[code];
-    }
 }

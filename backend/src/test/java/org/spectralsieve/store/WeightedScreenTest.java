@@ -428,11 +428,11 @@ class WeightedScreenTest {
     @Test
     void codesRoundTowardsTheSafeSide() {
         for (double t : new double[] {1.2, 1.0, 0.85, 0.5, 0.01, 1e-4, 1e-5}) {
-            assertThat(WeightedScreen.transmittanceOf(WeightedScreen.codeAtMost(t))).isGreaterThanOrEqualTo(t);
-            assertThat(WeightedScreen.transmittanceOf(WeightedScreen.codeAtLeast(t))).isLessThanOrEqualTo(t);
+            assertThat(BinCodes.transmittanceOf(BinCodes.codeAtMost(t))).isGreaterThanOrEqualTo(t);
+            assertThat(BinCodes.transmittanceOf(BinCodes.codeAtLeast(t))).isLessThanOrEqualTo(t);
         }
-        assertThat(WeightedScreen.codeAtMost(2.0)).as("above the code's range: no bound").isZero();
-        assertThat(WeightedScreen.codeAtLeast(0)).as("T may be 0").isZero();
+        assertThat(BinCodes.codeAtMost(2.0)).as("above the code's range: no bound").isZero();
+        assertThat(BinCodes.codeAtLeast(0)).as("T may be 0").isZero();
     }
 
     @Test
