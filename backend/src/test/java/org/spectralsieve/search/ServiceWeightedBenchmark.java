@@ -42,6 +42,11 @@ import org.spectralsieve.store.SyntheticCurves;
  * {@code -Dbench.serviceWeightedSizes=100000,1000000}, {@code -Dbench.serviceWeightedRuns=5},
  * {@code -Dbench.serviceWeightedModes=measured,solve}, {@code -Dbench.serviceWeightedVariants=row-arrays,maps},
  * {@code -Dbench.limit=20}.
+ *
+ * <p>Its {@code judged} counts what {@link StoreWeightedBenchmark}'s does (rows judged exactly), but the libraries
+ * differ: that one repeats 10,000 rows by default (triples shifted by a row from copy to copy, an index per curve), so
+ * the counts are comparable only with {@code -Dbench.storeWeightedBase=9999} there (docs/benchmarks.md, "why the
+ * service's 1M solve judges 4,264 samples").
  */
 class ServiceWeightedBenchmark {
 

@@ -67,7 +67,10 @@ import org.spectralsieve.store.SyntheticCurves;
  * every curve ({@code -Dsieve.store.solve-codes-first=false}). Each line's {@code same_rows} says whether that rule's
  * rows equalled the first rule's in every run. {@code -Dbench.storeWeightedModes=measured,solve} chooses the
  * requirements; {@code -Dbench.debug=true} prints, per whole search, the contenders, second bounds formed and the
- * time in them and in the exact judgement, and the last row.
+ * time in them and in the exact judgement, and the last row. The default base of 10,000 rows is not a multiple of three:
+ * each copy above it groups the rows into materials shifted by one row, so its library is not
+ * {@link ServiceWeightedBenchmark}'s (100 exact copies of 9,999 curves at 1M); {@code -Dbench.storeWeightedBase=9999}
+ * makes it that library (save one index per curve here) and the two {@code judged} counts comparable.
  */
 class StoreWeightedBenchmark {
 
