@@ -48,10 +48,16 @@ class BoundedJudgementPropertyTest {
 
     @BeforeAll
     static void demoLibraryAndSyntheticStock() {
+        library = demoLibraryWithSyntheticStock(SYNTHETIC_CURVES, 20261204L);
+    }
+
+    /** A fresh in-memory database holding the demo library and {@link #addSynthetic} stock of this many curves. */
+    static JooqLibraryRepository demoLibraryWithSyntheticStock(int curves, long seed) {
         DSLContext db = MigratedDatabase.freshH2();
-        library = new JooqLibraryRepository(db);
-        new DemoLibraryLoader(library, db, new DefaultResourceLoader(), "classpath:seed-materials/").load();
-        addSynthetic(library, SYNTHETIC_CURVES, 20261204L);
+        JooqLibraryRepository repository = new JooqLibraryRepository(db);
+        new DemoLibraryLoader(repository, db, new DefaultResourceLoader(), "classpath:seed-materials/").load();
+        addSynthetic(repository, curves, seed);
+        return repository;
     }
 
     @Test

@@ -5,17 +5,13 @@ import static org.assertj.core.api.Assertions.assertThat;
 import java.util.List;
 import java.util.Locale;
 import java.util.Random;
-import org.jooq.DSLContext;
 import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
 import org.spectralsieve.library.JooqLibraryRepository;
 import org.spectralsieve.library.Material;
-import org.spectralsieve.library.MigratedDatabase;
 import org.spectralsieve.requirement.RankedRow;
 import org.spectralsieve.requirement.Requirement;
 import org.spectralsieve.requirement.RequirementParser;
-import org.spectralsieve.seed.DemoLibraryLoader;
-import org.springframework.core.io.DefaultResourceLoader;
 
 /**
  * Property: a search's first bounds kept in arrays by store row ({@link FirstBounds#byRow}, the default) and in the
@@ -36,10 +32,7 @@ class RowArraysEquivalenceTest {
 
     @BeforeAll
     static void demoLibraryAndSyntheticStock() {
-        DSLContext db = MigratedDatabase.freshH2();
-        library = new JooqLibraryRepository(db);
-        new DemoLibraryLoader(library, db, new DefaultResourceLoader(), "classpath:seed-materials/").load();
-        BoundedJudgementPropertyTest.addSynthetic(library, SYNTHETIC_CURVES, 20261205L);
+        library = BoundedJudgementPropertyTest.demoLibraryWithSyntheticStock(SYNTHETIC_CURVES, 20261205L);
     }
 
     @Test

@@ -9,13 +9,10 @@ import java.util.Locale;
 import java.util.Map;
 import java.util.Optional;
 import java.util.Random;
-import org.jooq.DSLContext;
-import org.jooq.impl.DSL;
 import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
 import org.spectralsieve.library.Geometry;
 import org.spectralsieve.library.JooqLibraryRepository;
-import org.spectralsieve.library.MigratedDatabase;
 import org.spectralsieve.library.Material;
 import org.spectralsieve.library.SampleInfo;
 import org.spectralsieve.library.SampleRescaling;
@@ -28,9 +25,7 @@ import org.spectralsieve.requirement.RequirementParser;
 import org.spectralsieve.requirement.SampleEvaluation;
 import org.spectralsieve.requirement.StackLayer;
 import org.spectralsieve.requirement.Standing;
-import org.spectralsieve.seed.DemoLibraryLoader;
 import org.spectralsieve.store.SpectralStore;
-import org.springframework.core.io.DefaultResourceLoader;
 
 /**
  * The second, exact-curve stage of the bounded judging loop (docs/weighted-screening.md, "A second, exact-curve
@@ -49,10 +44,7 @@ class SecondStageBoundTest {
 
     @BeforeAll
     static void demoLibraryAndSyntheticStock() {
-        DSLContext db = MigratedDatabase.freshH2();
-        library = new JooqLibraryRepository(db);
-        new DemoLibraryLoader(library, db, new DefaultResourceLoader(), "classpath:seed-materials/").load();
-        BoundedJudgementPropertyTest.addSynthetic(library, 300, 20261205L);
+        library = BoundedJudgementPropertyTest.demoLibraryWithSyntheticStock(300, 20261205L);
     }
 
     @Test

@@ -19,7 +19,6 @@ import org.spectralsieve.requirement.RankedRow;
 import org.spectralsieve.requirement.Requirement;
 import org.spectralsieve.requirement.RequirementParser;
 import org.spectralsieve.spectrum.Curve;
-import org.spectralsieve.store.OdCode;
 import org.spectralsieve.store.SpectralStore;
 import org.spectralsieve.store.SyntheticCurves;
 
@@ -54,9 +53,9 @@ class ServiceWeightedBenchmark {
 
     @Test
     void theServicesWeightedSearchOverAMillionCurves() {
-        int limit = intProperty("bench.limit", 20);
-        int runs = intProperty("bench.serviceWeightedRuns", 5);
-        int base = intProperty("bench.serviceWeightedBase", 9999);
+        int limit = StoreWeightedBenchmark.intProperty("bench.limit", 20);
+        int runs = StoreWeightedBenchmark.intProperty("bench.serviceWeightedRuns", 5);
+        int base = StoreWeightedBenchmark.intProperty("bench.serviceWeightedBase", 9999);
         if (base % 3 != 0) {
             throw new IllegalArgumentException("the base must be a multiple of three (whole materials), got " + base);
         }
@@ -146,7 +145,7 @@ class ServiceWeightedBenchmark {
             for (int k = 0; k < count; k++) {
                 specs[from + k] = synthetic.next();
             }
-            IntStream.range(0, count).parallel().forEach(k -> curves[from + k] = curveOf(synthetic.codes(specs[from + k]), grid));
+            IntStream.range(0, count).parallel().forEach(k -> curves[from + k] = StoreWeightedBenchmark.curveOf(synthetic.codes(specs[from + k]), grid));
         }
         List<Material> materials = new ArrayList<>();
         for (int m = 0; m < n / 3; m++) {
@@ -194,35 +193,5 @@ class ServiceWeightedBenchmark {
         }
         return new Material(m + 1L, "synthetic-" + (m + 1), "synthetic sheet " + (m + 1), MaterialClass.of("plastic sheet"),
                 "", List.of(), scaling, index, samples);
-    }
-
-    /** The curve the codes stand for, as {@link SpectralStore#curve} decodes a stored row. */
-    private static Curve curveOf(short[] codes, double[] grid) {
-        int first = -1;
-        int last = -1;
-        for (int w = 0; w < codes.length; w++) {
-            if (OdCode.isMeasured(codes[w])) {
-                first = first < 0 ? w : first;
-                last = w;
-            }
-        }
-        int size = last - first + 1;
-        double[] nm = new double[size];
-        double[] t = new double[size];
-        boolean[] below = new boolean[size];
-        double[] limits = new double[size];
-        for (int k = 0; k < size; k++) {
-            short code = codes[first + k];
-            nm[k] = grid[first + k];
-            t[k] = OdCode.transmittance(code);
-            below[k] = OdCode.isBound(code);
-            limits[k] = below[k] ? t[k] : 0;
-        }
-        return Curve.of(nm, t, below, limits);
-    }
-
-    private static int intProperty(String name, int fallback) {
-        String value = System.getProperty(name);
-        return value == null || value.isBlank() ? fallback : Integer.parseInt(value.trim());
     }
 }

@@ -713,7 +713,7 @@ class StoreWeightedBenchmark {
     }
 
     /** The curve the codes stand for, as {@link SpectralStore#curve} decodes a stored row. */
-    private static Curve curveOf(short[] codes, double[] grid) {
+    static Curve curveOf(short[] codes, double[] grid) {
         int first = -1;
         int last = -1;
         for (int w = 0; w < codes.length; w++) {
@@ -737,7 +737,7 @@ class StoreWeightedBenchmark {
         return Curve.of(nm, t, below, limits);
     }
 
-    private static int intProperty(String name, int fallback) {
+    static int intProperty(String name, int fallback) {
         String value = System.getProperty(name);
         return value == null || value.isBlank() ? fallback : Integer.parseInt(value.trim());
     }
