@@ -34,6 +34,7 @@ import org.spectralsieve.requirement.RequirementParser;
 import org.spectralsieve.requirement.Standing;
 import org.spectralsieve.seed.DemoLibraryLoader;
 import org.spectralsieve.spectrum.Curve;
+import org.spectralsieve.spectrum.RandomEdgeCurves;
 import org.spectralsieve.weighting.BelowDetectionAs;
 import org.spectralsieve.weighting.EmitterCatalogue;
 import org.spectralsieve.weighting.Figure;
@@ -354,20 +355,6 @@ class FigureCodesSearchPropertyTest {
         double width = 2 + 30 * random.nextDouble();
         double top = 0.5 + 0.6 * random.nextDouble();
         double limit = new double[] {0, 1e-4, 1e-3, 0.05}[random.nextInt(4)];
-        double[] nm = new double[n];
-        double[] t = new double[n];
-        boolean[] below = new boolean[n];
-        double[] limits = new double[n];
-        for (int i = 0; i < n; i++) {
-            nm[i] = start + i * step;
-            double value = Math.min(1.5, top / (1 + Math.exp(-(nm[i] - edge) / width)) * (1 + 0.03 * Math.sin(nm[i] / 3)));
-            if (random.nextInt(300) == 0) {
-                value = 0;
-            }
-            below[i] = limit > 0 && value < limit;
-            t[i] = below[i] ? limit * random.nextDouble() : value;
-            limits[i] = below[i] ? limit : 0;
-        }
-        return Curve.of(nm, t, below, limits);
+        return RandomEdgeCurves.edge(random, start, step, n, edge, width, top, limit, 1.5, 300);
     }
 }

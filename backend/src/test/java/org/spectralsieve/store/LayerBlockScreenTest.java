@@ -25,6 +25,7 @@ import org.spectralsieve.requirement.ThresholdUnit;
 import org.spectralsieve.requirement.TransmittanceClause;
 import org.spectralsieve.requirement.Verdict;
 import org.spectralsieve.spectrum.Curve;
+import org.spectralsieve.spectrum.RandomEdgeCurves;
 
 /**
  * The block bound behind a fixed layer holds the exact judgement: wherever {@link LayerBlockScreen} says a
@@ -139,22 +140,7 @@ class LayerBlockScreenTest {
         double width = 2 + 30 * random.nextDouble();
         double top = 0.3 + 0.75 * random.nextDouble();
         double limit = random.nextBoolean() ? 1e-4 : 0;
-        double[] nm = new double[n];
-        double[] t = new double[n];
-        boolean[] below = new boolean[n];
-        double[] limits = new double[n];
-        for (int i = 0; i < n; i++) {
-            nm[i] = start + i * step;
-            double value = Math.min(Curve.MAX_TRANSMITTANCE,
-                    top / (1 + Math.exp(-(nm[i] - edge) / width)) * (1 + 0.03 * Math.sin(nm[i] / 3)));
-            if (random.nextInt(200) == 0) {
-                value = 0;
-            }
-            below[i] = limit > 0 && value < limit;
-            t[i] = below[i] ? limit * random.nextDouble() : value;
-            limits[i] = below[i] ? limit : 0;
-        }
-        return Curve.of(nm, t, below, limits);
+        return RandomEdgeCurves.edge(random, start, step, n, edge, width, top, limit, Curve.MAX_TRANSMITTANCE, 200);
     }
 
     /** A clear sheet at or just under the lossless ceiling of n ≈ 1.5, with noise. */

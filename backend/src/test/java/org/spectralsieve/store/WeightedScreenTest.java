@@ -16,6 +16,7 @@ import org.spectralsieve.requirement.WeightedClause;
 import org.spectralsieve.requirement.Weighting;
 import org.spectralsieve.requirement.MadeThicknesses;
 import org.spectralsieve.spectrum.Curve;
+import org.spectralsieve.spectrum.RandomEdgeCurves;
 import org.spectralsieve.weighting.BoundedCurves;
 import org.spectralsieve.weighting.EmitterCatalogue;
 import org.spectralsieve.weighting.Emitter;
@@ -471,20 +472,6 @@ class WeightedScreenTest {
         double width = 2 + 30 * random.nextDouble();
         double top = 0.3 + 0.75 * random.nextDouble();
         double limit = random.nextBoolean() ? 1e-4 : 0;
-        double[] nm = new double[n];
-        double[] t = new double[n];
-        boolean[] below = new boolean[n];
-        double[] limits = new double[n];
-        for (int i = 0; i < n; i++) {
-            nm[i] = start + i * step;
-            double value = top / (1 + Math.exp(-(nm[i] - edge) / width)) * (1 + 0.03 * Math.sin(nm[i] / 3));
-            if (random.nextInt(200) == 0) {
-                value = 0;
-            }
-            below[i] = limit > 0 && value < limit;
-            t[i] = below[i] ? limit * random.nextDouble() : value;
-            limits[i] = below[i] ? limit : 0;
-        }
-        return Curve.of(nm, t, below, limits);
+        return RandomEdgeCurves.edge(random, start, step, n, edge, width, top, limit, Double.POSITIVE_INFINITY, 200);
     }
 }
