@@ -176,6 +176,7 @@ public final class ShortlistJson {
         json.put("meeting", advice.inside().stream().map(ShortlistJson::fit).toList());
         json.put("closestMiss", advice.closestMiss() == null ? null : fit(advice.closestMiss()));
         json.put("closestMissOutsideMm", finiteOrNull(advice.missMm()));
+        json.put("otherSamplesFeasibleMm", advice.elsewhere().stream().map(p -> List.of(p.loMm(), p.hiMm())).toList());
         json.put("explanation", advice.describe());
         return json;
     }

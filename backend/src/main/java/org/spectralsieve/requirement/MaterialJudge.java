@@ -220,8 +220,11 @@ public final class MaterialJudge {
             ThicknessInterval whole = own == null ? null : joined.stream()
                     .filter(j -> j.loMm() <= own.loMm() && j.hiMm() >= own.hiMm()).findFirst().orElse(own);
             ThicknessInterval nearest = whole != null ? whole : joined.isEmpty() ? null : joined.get(0);
+            // the pieces other samples give: a stock size met on one of them lies outside this row's interval
+            List<ThicknessInterval> elsewhere = joined.stream().filter(j -> !j.equals(whole)).toList();
+            StockAdvice advice = SampleEvaluator.advise(fits, nearest).withElsewhere(elsewhere);
             out.add(new MaterialEvaluation(e.materialId(), e.materialName(),
-                    e.evaluation().withThicknessAdvice(whole, SampleEvaluator.advise(fits, nearest))));
+                    e.evaluation().withThicknessAdvice(whole, advice)));
         }
         return out;
     }

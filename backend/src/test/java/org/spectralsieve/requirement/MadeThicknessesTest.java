@@ -158,6 +158,45 @@ class MadeThicknessesTest {
     }
 
     @Test
+    void aStockSizeMetOnAnotherSampleIsExplainedByThatSamplesPieceOfTheInterval() {
+        // two measurements of one material that disagree (T = 0.80 at 2 mm and at 8 mm: batches of different
+        // clarity, illustrative): over 76 % holds on the 2 mm sample only up to ~2.7 mm (T(5 mm) = 0.645573 for
+        // that absorber, REFERENCE §7), on the 8 mm sample over its whole span from √(2·8) = 4 mm to past 8 mm;
+        // the 6 mm stock size meets on the 8 mm sample, outside the 2 mm sample's interval
+        MadeThicknesses made = range(1, 12, 6.0, 11.0);
+        Curve eightAtEight = Curve.of(new double[] {400, 410}, new double[] {0.8, 0.8}, 0);
+        List<MaterialEvaluation> rows = MaterialJudge.evaluate(
+                List.of(sample(1, EIGHTY, 2, made), sample(2, eightAtEight, 8, made)),
+                require(ThicknessSpec.range(1, 12), pass(0.76)), Optional.empty());
+        SampleEvaluation thin = rows.stream().map(MaterialEvaluation::evaluation).filter(e -> e.sampleId() == 1)
+                .findFirst().orElseThrow();
+        SampleEvaluation thick = rows.stream().map(MaterialEvaluation::evaluation).filter(e -> e.sampleId() == 2)
+                .findFirst().orElseThrow();
+        assertThat(thin.feasibleMm().hiMm()).isBetween(2.0, 3.0);
+        assertThat(thin.stockAdvice().inside()).extracting(StockAdvice.StockFit::thicknessMm).containsExactly(6.0);
+        assertThat(thin.stockAdvice().elsewhere()).singleElement()
+                .satisfies(piece -> assertThat(piece.contains(6)).isTrue())
+                .satisfies(piece -> assertThat(piece.loMm()).isCloseTo(4, within(1e-6)));
+        assertThat(thin.stockAdvice().describe())
+                .startsWith("stock sizes that meet, best margin first: 6 mm")
+                .contains("; the material's other samples meet at 4–");
+        // and the other way round: the thick sample's row names the thin sample's piece
+        assertThat(thick.stockAdvice().elsewhere()).singleElement()
+                .satisfies(piece -> assertThat(piece).isEqualTo(thin.feasibleMm()));
+    }
+
+    @Test
+    void anUnverifiedClosestStockSizeIsNotWordedAsANearMeet() {
+        StockAdvice advice = new StockAdvice(List.of(),
+                new StockAdvice.StockFit(2, Verdict.UNVERIFIED, 0.03004), Double.NaN);
+        assertThat(advice.describe()).isEqualTo("no stock size is proven to meet; 2 mm comes closest: unverified there "
+                + "(no clause fails, but the data cannot show every clause; worst margin 0.03004 decades on what they show)");
+        StockAdvice missed = new StockAdvice(List.of(), new StockAdvice.StockFit(2, Verdict.MISSES, -0.12), 0.35);
+        assertThat(missed.describe()).isEqualTo("no stock size meets; 2 mm comes closest: worst margin -0.12 decades, "
+                + "0.35 mm outside the feasible interval");
+    }
+
+    @Test
     void theFeasibleIntervalSpansTheSamplesThatSpeakForItsParts() {
         // two measurements of one Beer–Lambert absorber (T = 0.80 at 2 mm, 0.645573 at 5 mm, REFERENCE §7):
         // judged piecewise, each over its own span, the joined interval is what one sample alone gives
