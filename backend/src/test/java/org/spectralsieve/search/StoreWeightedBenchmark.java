@@ -151,7 +151,7 @@ class StoreWeightedBenchmark {
                         System.out.printf(Locale.ROOT, "BENCH store-weighted curves=%d mode=%s part=%s p50_ms=%.1f p95_ms=%.1f"
                                         + " proven=%d judged=%d runs=%d rule=%s judging=%s same_rows=%s%n", n, mode.getKey(), part, ms[runs / 2],
                                 ms[Math.min(runs - 1, (int) Math.ceil(runs * 0.95) - 1)], last[v].proven, last[v].judged,
-                                runs, rules[v], judged && List.of("current", "samples", "before", "settled", "bar", "codes", "decoded", "tenth", "eleventh", "crossing", "twelfth").contains(rules[v])
+                                runs, rules[v], judged && List.of("current", "samples", "before", "settled", "bar", "codes", "decoded", "tenth", "eleventh", "crossing", "twelfth", "arrays").contains(rules[v])
                                         ? System.getProperty("bench.storeWeightedJudging", "bounded") : "earlier", sameRows[v]);
                     }
                 }
@@ -172,9 +172,33 @@ class StoreWeightedBenchmark {
                 + r.evaluation().worstMarginDecades()).toList();
     }
 
-    /** One weighted search the service's way, on the store's curves. */
+    /** Rule {@code arrays}: the twelfth pass's contenders over a screen that reads the bins on every curve. */
+    private static final ThreadLocal<Boolean> NO_DEFERRED_BINS = ThreadLocal.withInitial(() -> false);
+
+    /** The switches of the twelfth pass's screen, set off around every earlier rule's search. */
+    private static final List<String> TWELFTH_SCREEN = List.of("sieve.store.stored-brightest");
+
+    /**
+     * One weighted search the service's way, on the store's curves; every rule before {@code twelfth} with the twelfth
+     * pass's screen switched off (B read over the bins).
+     */
     private static Outcome search(SpectralStore store, Requirement requirement, int limit, boolean judge,
                                   String rule) {
+        boolean before = !rule.equals("twelfth") && !rule.equals("arrays");
+        if (before) {
+            TWELFTH_SCREEN.forEach(p -> System.setProperty(p, "false"));
+        }
+        try {
+            return searchOnce(store, requirement, limit, judge, rule);
+        } finally {
+            if (before) {
+                TWELFTH_SCREEN.forEach(System::clearProperty);
+            }
+        }
+    }
+
+    private static Outcome searchOnce(SpectralStore store, Requirement requirement, int limit, boolean judge,
+                                      String rule) {
         long t0 = System.nanoTime();
         if (judge && rule.equals("before") && !"earlier".equals(System.getProperty("bench.storeWeightedJudging", "bounded"))) {
             // the loop before this pass: materials whole, one second bound at a time
@@ -223,6 +247,16 @@ class StoreWeightedBenchmark {
             // in a reserve formed only if the judging loop reaches them (the twelfth pass)
             return searchBounded(store, requirement, limit, t0, true, true, true, true, true, true);
         }
+        if (judge && rule.equals("arrays") && !"earlier".equals(System.getProperty("bench.storeWeightedJudging", "bounded"))) {
+            // rule twelfth with the bins read on every curve the codes prove no miss on (the screen of the eleventh
+            // pass, B from the stored byte): isolates the deferred bins
+            NO_DEFERRED_BINS.set(true);
+            try {
+                return searchBounded(store, requirement, limit, t0, true, true, true, true, true, true);
+            } finally {
+                NO_DEFERRED_BINS.set(false);
+            }
+        }
         if (judge && rule.equals("crossing") && !"earlier".equals(System.getProperty("bench.storeWeightedJudging", "bounded"))) {
             // rule eleventh with the bins read on every curve of a solve's first stage, even where the codes prove a miss
             System.setProperty("sieve.store.solve-codes-first", "false");
@@ -233,7 +267,7 @@ class StoreWeightedBenchmark {
             }
         }
         if (!rule.equals("codes") && !rule.equals("decoded") && !rule.equals("tenth") && !rule.equals("eleventh")
-                && !rule.equals("crossing") && !rule.equals("twelfth")) {
+                && !rule.equals("crossing") && !rule.equals("twelfth") && !rule.equals("arrays")) {
             // every rule before the ninth pass screens with the bins alone (WeightedScreen.figureCodesOn)
             System.setProperty("sieve.store.figure-codes", "false");
         }
@@ -271,7 +305,7 @@ class StoreWeightedBenchmark {
         switch (rule) {
             case "earlier" -> WeightedMisses.addEarlier(proven, store, requirement, Optional.empty());
             case "reference" -> WeightedMisses.add(proven, store, requirement, Optional.empty(), false, true);
-            case "current", "samples", "before", "settled", "bar", "codes", "decoded", "tenth", "eleventh", "crossing", "twelfth" -> WeightedMisses.add(proven, store, requirement, Optional.empty());
+            case "current", "samples", "before", "settled", "bar", "codes", "decoded", "tenth", "eleventh", "crossing", "twelfth", "arrays" -> WeightedMisses.add(proven, store, requirement, Optional.empty());
             default -> throw new IllegalArgumentException("rule " + rule);
         }
         long t1 = System.nanoTime();
@@ -361,13 +395,19 @@ class StoreWeightedBenchmark {
                 ? c -> decoded.computeIfAbsent(c, store::curve) : store::curve;
         // the screen: each curve's bound of either sign; a negative one is a proven miss (WeightedMisses.add),
         // and the second stage of the same search (its queries), as SearchService.searchExactly forms them
-        WeightedMisses.Screen screen = WeightedMisses.screen(store, requirement, Optional.empty(), false, true);
+        ThicknessSpec spec = requirement.thickness();
+        boolean fromArrays = solveReserve && settledRows && spec.kind() == ThicknessSpec.Kind.RANGE;
+        // the twelfth pass: a solve's first stage stops at the codes' bound where they prove no miss; the bins are read
+        // only for the curves of materials that could reach the rows (solveContenders)
+        WeightedMisses.DeferredBins deferredBins = fromArrays
+                ? WeightedMisses.screenWithBinsDeferred(store, requirement, !NO_DEFERRED_BINS.get()) : null;
+        WeightedMisses.Screen screen = deferredBins != null ? new WeightedMisses.Screen(deferredBins.bounds(), deferredBins.secondStage())
+                : WeightedMisses.screen(store, requirement, Optional.empty(), false, true);
         double[] bounds = screen.bounds();
         WeightedMisses.SecondStage second = Boolean.parseBoolean(System.getProperty("bench.storeWeightedSecondStage", "true"))
                 ? screen.secondStage() : null;
         long t1b = System.nanoTime();
         int provenCount = 0;
-        ThicknessSpec spec = requirement.thickness();
         // a solved range judges a material's samples together (their rows share its feasible interval and advice)
         boolean bySample = samplesAsContenders && spec.kind() != ThicknessSpec.Kind.RANGE;
         List<BoundedJudgement.Contender> contenders = new ArrayList<>();
@@ -412,9 +452,8 @@ class StoreWeightedBenchmark {
                 });
             }
         }
-        boolean fromArrays = solveReserve && settledRows && spec.kind() == ThicknessSpec.Kind.RANGE;
         if (fromArrays) {
-            SolveContenders formed = solveContenders(store, bounds, spec, limit);
+            SolveContenders formed = solveContenders(store, deferredBins, spec, limit);
             contenders = formed.now();
             later = formed.later();
             provenCount = formed.proven();
@@ -564,22 +603,65 @@ class StoreWeightedBenchmark {
      * ending in a met row, which keep out every settled contender as well ({@link BoundedJudgement#noneCanEnter}; the
      * rows only improve). So the loop judges the same contenders in the same order as with every one formed first.
      */
-    private static SolveContenders solveContenders(SpectralStore store, double[] bounds, ThicknessSpec spec, int limit) {
+    private static SolveContenders solveContenders(SpectralStore store, WeightedMisses.DeferredBins deferredBins,
+                                                   ThicknessSpec spec, int limit) {
         Snapshot snapshot = snapshotOf(store);
+        double[] bounds = deferredBins.bounds();
         int size = store.size();
         int materials = (size + 2) / 3;
         double[] largest = new double[materials];
-        int proven = 0;
         for (int m = 0; m < materials; m++) {
             double bound = Double.NEGATIVE_INFINITY;
             for (int c = 3 * m; c < Math.min(size, 3 * m + 3); c++) {
-                double margin = firstBound(bounds, c);
-                proven += margin < 0 ? 1 : 0;
-                bound = Math.max(bound, margin);
+                bound = Math.max(bound, firstBound(bounds, c));
             }
             largest[m] = bound;
         }
-        double cut = BoundedJudgement.kthLargest(largest, materials, SOLVE_RESERVE_AFTER + 4 * limit);
+        // the largest over the codes' bounds where the bins were left unread: at least the full bounds' largest, so a
+        // material below the cut may wait in the reserve, its bins read only if the loop reaches it. The cut is found
+        // again once the bins of the materials above it are read (their bounds only fall), until every material at or
+        // above it has its full bounds: so the reserve's bound lies below the contenders formed now
+        int k = SOLVE_RESERVE_AFTER + 4 * limit;
+        boolean[] full = new boolean[materials];
+        int[] above = new int[3 * materials];
+        long r0 = System.nanoTime();
+        int readNow = readLargestFirst(deferredBins, largest, full, k);
+        int rounds = 0;
+        double cut;
+        // what is left above the cut, until none is (a safety net: the pass above leaves none but the materials
+        // without a finite bound, whose rows' bins are not deferred)
+        while (true) {
+            rounds++;
+            cut = BoundedJudgement.kthLargest(largest, materials, k);
+            int aboveCount = 0;
+            for (int m = 0; m < materials; m++) {
+                if (!full[m] && (largest[m] >= cut || Double.isNaN(largest[m]))) {
+                    for (int c = 3 * m; c < Math.min(size, 3 * m + 3); c++) {
+                        above[aboveCount++] = c;
+                    }
+                }
+            }
+            if (aboveCount == 0) {
+                break;
+            }
+            readNow += deferredBins.readInFull(above, aboveCount);
+            for (int i = 0; i < aboveCount; i++) {
+                int m = above[i] / 3;
+                if (!full[m]) {
+                    full[m] = true;
+                    double bound = Double.NEGATIVE_INFINITY;
+                    for (int c = 3 * m; c < Math.min(size, 3 * m + 3); c++) {
+                        bound = Math.max(bound, firstBound(bounds, c));
+                    }
+                    largest[m] = bound;
+                }
+            }
+        }
+        double roundsMs = (System.nanoTime() - r0) / 1e6;
+        int proven = 0;
+        for (double b : bounds) {
+            proven += b < 0 ? 1 : 0;
+        }
         List<BoundedJudgement.Contender> now = new ArrayList<>();
         int[] rest = new int[materials];
         int restCount = 0;
@@ -603,8 +685,8 @@ class StoreWeightedBenchmark {
             }
         }
         if (Boolean.getBoolean("bench.debug")) {
-            System.out.printf(Locale.ROOT, "DEBUG solve_cut=%.6f formed_now=%d formed_into_reserve=%d reserve_unformed=%d%n",
-                    cut, now.size(), formedBelow.size(), restCount);
+            System.out.printf(Locale.ROOT, "DEBUG solve_cut=%.6f formed_now=%d formed_into_reserve=%d reserve_unformed=%d"
+                    + " bins_read_now=%d rounds=%d rounds_ms=%.1f%n", cut, now.size(), formedBelow.size(), restCount, readNow, rounds, roundsMs);
         }
         if (restCount == 0 && formedBelow.isEmpty()) {
             return new SolveContenders(now, null, proven);
@@ -612,6 +694,15 @@ class StoreWeightedBenchmark {
         int waiting = restCount;
         BoundedJudgement.Reserve later = new BoundedJudgement.Reserve(restBound, () -> {
             RESERVES_FORMED.incrementAndGet();
+            // their bins first: the contenders then carry the bounds the screen would have formed
+            int[] curves = new int[3 * waiting];
+            int count = 0;
+            for (int i = 0; i < waiting; i++) {
+                for (int c = 3 * rest[i]; c < Math.min(size, 3 * rest[i] + 3); c++) {
+                    curves[count++] = c;
+                }
+            }
+            deferredBins.readInFull(curves, count);
             List<BoundedJudgement.Contender> formed = new ArrayList<>(waiting + formedBelow.size());
             for (int i = 0; i < waiting; i++) {
                 formed.add(materialContender(store, snapshot, rest[i], bounds, spec));
@@ -620,6 +711,89 @@ class StoreWeightedBenchmark {
             return formed;
         });
         return new SolveContenders(now, later, proven);
+    }
+
+    /**
+     * Reads the bins of the materials whose codes' bound is among the largest 4·k, then 8·k, 16·k, … (each time only
+     * those not read yet, in the order of the store's rows: read in that order a curve's bins share cache lines with
+     * its neighbours', where the order of the bounds reads them at random), until the k-th largest full bound exceeds
+     * the codes' bound of every material not read: then none of them can reach the cut. Marks each material read in
+     * {@code full} and sets its {@code largest} to its full bounds' largest; the caller's loop reads whatever is left
+     * above the cut (the materials without a finite bound).
+     */
+    private static int readLargestFirst(WeightedMisses.DeferredBins deferredBins, double[] largest, boolean[] full, int k) {
+        int materials = largest.length;
+        double[] bounds = deferredBins.bounds();
+        int size = bounds.length;
+        double[] codes = largest.clone(); // the codes' bounds, as the screen left them
+        int[] curves = new int[size];
+        int read = 0;
+        for (int many = 4 * k; ; many *= 2) {
+            double from = BoundedJudgement.kthLargest(codes, materials, Math.min(many, materials));
+            int n = 0;
+            for (int m = 0; m < materials; m++) {
+                if (!full[m] && Double.isFinite(codes[m]) && codes[m] >= from) {
+                    for (int c = 3 * m; c < Math.min(size, 3 * m + 3); c++) {
+                        curves[n++] = c;
+                    }
+                }
+            }
+            read += deferredBins.readInFull(curves, n);
+            for (int i = 0; i < n; i++) {
+                int m = curves[i] / 3;
+                if (!full[m]) {
+                    full[m] = true;
+                    double bound = Double.NEGATIVE_INFINITY;
+                    for (int c = 3 * m; c < Math.min(size, 3 * m + 3); c++) {
+                        bound = Math.max(bound, firstBound(bounds, c));
+                    }
+                    largest[m] = bound;
+                }
+            }
+            // every material not read has a codes' bound below `from` (or none finite): done once the k-th largest
+            // full bound is at least that, or when every finite bound has been read
+            if (BoundedJudgement.kthLargest(largest, materials, k) >= from || many >= materials) {
+                return read;
+            }
+        }
+    }
+
+    /** Adds v to a min-heap of at most heap.length values (keeping the largest); returns its new size. */
+    private static int offer(double[] heap, int size, double v) {
+        if (size < heap.length) {
+            int at = size++;
+            heap[at] = v;
+            while (at > 0 && heap[(at - 1) / 2] > heap[at]) {
+                double t = heap[at];
+                heap[at] = heap[(at - 1) / 2];
+                heap[(at - 1) / 2] = t;
+                at = (at - 1) / 2;
+            }
+            return size;
+        }
+        if (size > 0 && v > heap[0]) {
+            heap[0] = v;
+            int at = 0;
+            while (true) {
+                int least = at;
+                int l = 2 * at + 1;
+                int r = l + 1;
+                if (l < size && heap[l] < heap[least]) {
+                    least = l;
+                }
+                if (r < size && heap[r] < heap[least]) {
+                    least = r;
+                }
+                if (least == at) {
+                    break;
+                }
+                double t = heap[at];
+                heap[at] = heap[least];
+                heap[least] = t;
+                at = least;
+            }
+        }
+        return size;
     }
 
     /** One material's contender over a range, as the loop before formed it, from the snapshot's made thicknesses. */
