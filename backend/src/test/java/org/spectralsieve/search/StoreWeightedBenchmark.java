@@ -714,86 +714,58 @@ class StoreWeightedBenchmark {
     }
 
     /**
-     * Reads the bins of the materials whose codes' bound is among the largest 4·k, then 8·k, 16·k, … (each time only
-     * those not read yet, in the order of the store's rows: read in that order a curve's bins share cache lines with
-     * its neighbours', where the order of the bounds reads them at random), until the k-th largest full bound exceeds
-     * the codes' bound of every material not read: then none of them can reach the cut. Marks each material read in
-     * {@code full} and sets its {@code largest} to its full bounds' largest; the caller's loop reads whatever is left
-     * above the cut (the materials without a finite bound).
+     * Reads the bins of the materials whose codes' bound could reach the cut, in two sets, each in the order of the
+     * store's rows (read in that order a curve's bins share cache lines with its neighbours'; in the order of the bounds
+     * each curve's bins were a cache miss apiece): first the materials whose codes' bound is among the largest 4·k;
+     * then every other whose codes' bound is at least F, the k-th largest full bound among those read. The cut (the
+     * k-th largest full bound of all) is at least F, as more materials only raise a k-th largest, so a material whose
+     * codes' bound lies below F — at least its full bounds' largest — is below the cut and need not be read. Marks each
+     * material read in {@code full} and sets its {@code largest} to its full bounds' largest; the caller's loop reads
+     * whatever else is at or above the cut (the materials without a finite bound, whose rows' bins are not deferred).
      */
     private static int readLargestFirst(WeightedMisses.DeferredBins deferredBins, double[] largest, boolean[] full, int k) {
         int materials = largest.length;
-        double[] bounds = deferredBins.bounds();
-        int size = bounds.length;
         double[] codes = largest.clone(); // the codes' bounds, as the screen left them
-        int[] curves = new int[size];
-        int read = 0;
-        for (int many = 4 * k; ; many *= 2) {
-            double from = BoundedJudgement.kthLargest(codes, materials, Math.min(many, materials));
-            int n = 0;
-            for (int m = 0; m < materials; m++) {
-                if (!full[m] && Double.isFinite(codes[m]) && codes[m] >= from) {
-                    for (int c = 3 * m; c < Math.min(size, 3 * m + 3); c++) {
-                        curves[n++] = c;
-                    }
-                }
-            }
-            read += deferredBins.readInFull(curves, n);
-            for (int i = 0; i < n; i++) {
-                int m = curves[i] / 3;
-                if (!full[m]) {
-                    full[m] = true;
-                    double bound = Double.NEGATIVE_INFINITY;
-                    for (int c = 3 * m; c < Math.min(size, 3 * m + 3); c++) {
-                        bound = Math.max(bound, firstBound(bounds, c));
-                    }
-                    largest[m] = bound;
-                }
-            }
-            // every material not read has a codes' bound below `from` (or none finite): done once the k-th largest
-            // full bound is at least that, or when every finite bound has been read
-            if (BoundedJudgement.kthLargest(largest, materials, k) >= from || many >= materials) {
-                return read;
+        int[] curves = new int[deferredBins.bounds().length];
+        double firstSet = BoundedJudgement.kthLargest(codes, materials, Math.min(4 * k, materials));
+        int read = readAtLeast(deferredBins, codes, firstSet, largest, full, curves);
+        double[] readBounds = new double[materials];
+        int n = 0;
+        for (int m = 0; m < materials; m++) {
+            if (full[m]) {
+                readBounds[n++] = largest[m];
             }
         }
+        double lowest = BoundedJudgement.kthLargest(readBounds, n, k);
+        return read + readAtLeast(deferredBins, codes, lowest, largest, full, curves);
     }
 
-    /** Adds v to a min-heap of at most heap.length values (keeping the largest); returns its new size. */
-    private static int offer(double[] heap, int size, double v) {
-        if (size < heap.length) {
-            int at = size++;
-            heap[at] = v;
-            while (at > 0 && heap[(at - 1) / 2] > heap[at]) {
-                double t = heap[at];
-                heap[at] = heap[(at - 1) / 2];
-                heap[(at - 1) / 2] = t;
-                at = (at - 1) / 2;
-            }
-            return size;
-        }
-        if (size > 0 && v > heap[0]) {
-            heap[0] = v;
-            int at = 0;
-            while (true) {
-                int least = at;
-                int l = 2 * at + 1;
-                int r = l + 1;
-                if (l < size && heap[l] < heap[least]) {
-                    least = l;
+    /** Reads in full the materials not yet read whose finite codes' bound is at least {@code from}, in row order. */
+    private static int readAtLeast(WeightedMisses.DeferredBins deferredBins, double[] codes, double from,
+                                   double[] largest, boolean[] full, int[] curves) {
+        double[] bounds = deferredBins.bounds();
+        int size = bounds.length;
+        int n = 0;
+        for (int m = 0; m < codes.length; m++) {
+            if (!full[m] && Double.isFinite(codes[m]) && codes[m] >= from) {
+                for (int c = 3 * m; c < Math.min(size, 3 * m + 3); c++) {
+                    curves[n++] = c;
                 }
-                if (r < size && heap[r] < heap[least]) {
-                    least = r;
-                }
-                if (least == at) {
-                    break;
-                }
-                double t = heap[at];
-                heap[at] = heap[least];
-                heap[least] = t;
-                at = least;
             }
         }
-        return size;
+        int read = deferredBins.readInFull(curves, n);
+        for (int i = 0; i < n; i++) {
+            int m = curves[i] / 3;
+            if (!full[m]) {
+                full[m] = true;
+                double bound = Double.NEGATIVE_INFINITY;
+                for (int c = 3 * m; c < Math.min(size, 3 * m + 3); c++) {
+                    bound = Math.max(bound, firstBound(bounds, c));
+                }
+                largest[m] = bound;
+            }
+        }
+        return read;
     }
 
     /** One material's contender over a range, as the loop before formed it, from the snapshot's made thicknesses. */
