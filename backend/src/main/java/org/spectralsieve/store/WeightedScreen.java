@@ -60,11 +60,8 @@ public final class WeightedScreen {
     /** log10(1 ± POWER_ROOM): the room of a power formed from logarithms, in decades. */
     private static final double LOG10_POWER_UP = Math.log10(1 + 1e-12);
     private static final double LOG10_POWER_DOWN = Math.log10(1 - 1e-12);
-    /**
-     * Bytes per curve: two bin codes per bin, a short naming the curve's wavelength range, the figure codes and the
-     * code of the curve's brightest bin ({@link #brightestCodeOfCurve}).
-     */
-    public static final int BYTES_PER_CURVE = 2 * BINS + Short.BYTES + FigureCodes.BYTES_PER_CURVE + 1;
+    /** Bytes per curve: two bin codes per bin and a short naming the curve's wavelength range. */
+    public static final int BYTES_PER_CURVE = 2 * BINS + Short.BYTES + FigureCodes.BYTES_PER_CURVE;
 
     /**
      * Relative room for the rounding of a power of a bin value formed from {@link Powers} (a few dozen
@@ -91,17 +88,6 @@ public final class WeightedScreen {
     /** Per curve, the exact figures of a few built-in weightings as codes (docs/weighted-screening.md, "Figures in the store"). */
     final FigureCodes figures;
 
-    /**
-     * Per curve, the smallest (brightest) bin code over every bin its range meets, formed once when the store is built
-     * (issue 14, twelfth pass): ln B = max(0, ln T of it) is then {@code Query.lnBrightestOfCurve} read from one byte
-     * instead of every bin's (a solve's first stage forms B on about a quarter of a million curves). 0 where a bin in
-     * range has no bound (B unknown), {@value #NO_BIN_IN_RANGE} where no bin is in range (ln T of it is below 0, so
-     * B = 1 as the bins' loop gives).
-     */
-    private final byte[] brightestCodeOfCurve;
-    /** {@link #brightestCodeOfCurve} of a curve without a bin in range: the darkest code, ln T below 0. */
-    private static final int NO_BIN_IN_RANGE = 255;
-
     WeightedScreen(byte[][] brightest, byte[][] darkest, short[] rangeOfCurve, List<double[]> ranges,
                            FigureCodes figures) {
         this.figures = figures;
@@ -117,47 +103,6 @@ public final class WeightedScreen {
             binsOfRange[i] = java.util.stream.IntStream.range(0, BINS)
                     .filter(b -> !(FIRST_NM + b * BIN_NM > r[1] || FIRST_NM + b * BIN_NM + BIN_NM < r[0])).toArray();
         }
-        this.brightestCodeOfCurve = brightestCodes(brightest, rangeOfCurve, binsOfRange);
-    }
-
-    /**
-     * Each curve's brightest code over the bins of its range, 0 where one of them has none (see
-     * {@link #brightestCodeOfCurve}); bin by bin, so each bin's column is read in order.
-     */
-    private static byte[] brightestCodes(byte[][] brightest, short[] rangeOfCurve, int[][] binsOfRange) {
-        int curves = rangeOfCurve.length;
-        byte[] out = new byte[curves];
-        java.util.Arrays.fill(out, (byte) NO_BIN_IN_RANGE);
-        boolean[][] inRange = new boolean[binsOfRange.length][BINS];
-        for (int r = 0; r < binsOfRange.length; r++) {
-            for (int b : binsOfRange[r]) {
-                inRange[r][b] = true;
-            }
-        }
-        for (int b = 0; b < BINS; b++) {
-            byte[] column = brightest[b];
-            for (int c = 0; c < curves; c++) {
-                int range = rangeOfCurve[c];
-                if (range < 0 || range >= inRange.length || !inRange[range][b]) {
-                    continue;
-                }
-                int now = out[c] & 0xFF;
-                int code = column[c] & 0xFF;
-                if (now != 0 && code < now) {
-                    out[c] = (byte) code; // 0 (no bound) stays: B is unknown whatever the other bins hold
-                }
-            }
-        }
-        return out;
-    }
-
-    /**
-     * Whether {@code Query.lnBrightestOfCurve} reads the curve's stored brightest code (else every bin of its range, as
-     * before the twelfth pass): {@code -Dsieve.store.stored-brightest=false}, read per query (benchmarks and tests).
-     * The same number either way.
-     */
-    static boolean storedBrightestOn() {
-        return !"false".equals(System.getProperty("sieve.store.stored-brightest"));
     }
 
     /**
@@ -362,8 +307,6 @@ public final class WeightedScreen {
         private final int canMissBelow;
         private final double log10Floor;
         private int lnBCurve = -1;
-        /** Whether B is read from the curve's stored brightest code ({@link #storedBrightestOn}). */
-        private final boolean storedBrightest;
         private double lnBOfCurve;
         /** Whether P(x) and Q(x) read the figure code's bounds over thickness ({@link #solveFromCodesOn}). */
         private final boolean solveFromCodes;
@@ -388,7 +331,6 @@ public final class WeightedScreen {
             this.canMeetFrom = firstCode(c -> FigureCodes.lowerOf(c) * (1 - SLACK) <= threshold);
             this.canMissBelow = firstCode(c -> !(FigureCodes.upperOf(c) * (1 + SLACK) > threshold));
             this.solveFromCodes = figure >= 0 && solveFromCodesOn();
-            this.storedBrightest = storedBrightestOn();
         }
 
         /**
@@ -1365,11 +1307,6 @@ public final class WeightedScreen {
          * has no bound (a reading above the code's top).
          */
         private double lnBrightestOfCurve(int curve) {
-            if (storedBrightest && !reference) {
-                // the same maximum, formed once at build: max(0, ln T of the brightest code), NaN where a bin has none
-                int code = brightestCodeOfCurve[curve] & 0xFF;
-                return code == 0 ? Double.NaN : Math.max(0, LN_T_OF_CODE[code]);
-            }
             double[] r = ranges.get(rangeOfCurve[curve]);
             double ln = 0;
             for (int b : reference ? ALL_BINS : binsOfRange[rangeOfCurve[curve]]) {

@@ -66,8 +66,10 @@ import org.spectralsieve.store.SyntheticCurves;
  * read only where the codes prove no miss (the eleventh pass), {@code crossing} is {@code eleventh} with the bins read on
  * every curve ({@code -Dsieve.store.solve-codes-first=false}), {@code twelfth} is {@code eleventh} with a solve's contenders
  * formed from the snapshot's per-material arrays (made thicknesses and records formed once per store, as the service's
- * snapshot holds them) and only for the materials whose largest first bound reaches a cut, the rest in a reserve
- * ({@link #solveContenders}; the twelfth pass). Each line's {@code same_rows} says whether that rule's
+ * snapshot holds them) and only for the materials whose largest first bound reaches a cut, the rest in a reserve, over
+ * a first stage that leaves the bins unread where the codes prove no miss and reads them only for the materials that
+ * could reach the cut ({@link #solveContenders}, {@code WeightedMisses.screenWithBinsDeferred}; the twelfth pass), and
+ * {@code arrays} is {@code twelfth} with the bins read on every curve (the eleventh pass's screen). Each line's {@code same_rows} says whether that rule's
  * rows equalled the first rule's in every run. {@code -Dbench.storeWeightedModes=measured,solve} chooses the
  * requirements; {@code -Dbench.debug=true} prints, per whole search, the contenders, second bounds formed and the
  * time in them and in the exact judgement, and the last row. The default base of 10,000 rows is not a multiple of three:
@@ -175,26 +177,10 @@ class StoreWeightedBenchmark {
     /** Rule {@code arrays}: the twelfth pass's contenders over a screen that reads the bins on every curve. */
     private static final ThreadLocal<Boolean> NO_DEFERRED_BINS = ThreadLocal.withInitial(() -> false);
 
-    /** The switches of the twelfth pass's screen, set off around every earlier rule's search. */
-    private static final List<String> TWELFTH_SCREEN = List.of("sieve.store.stored-brightest");
-
-    /**
-     * One weighted search the service's way, on the store's curves; every rule before {@code twelfth} with the twelfth
-     * pass's screen switched off (B read over the bins).
-     */
+    /** One weighted search the service's way, on the store's curves. */
     private static Outcome search(SpectralStore store, Requirement requirement, int limit, boolean judge,
                                   String rule) {
-        boolean before = !rule.equals("twelfth") && !rule.equals("arrays");
-        if (before) {
-            TWELFTH_SCREEN.forEach(p -> System.setProperty(p, "false"));
-        }
-        try {
-            return searchOnce(store, requirement, limit, judge, rule);
-        } finally {
-            if (before) {
-                TWELFTH_SCREEN.forEach(System::clearProperty);
-            }
-        }
+        return searchOnce(store, requirement, limit, judge, rule);
     }
 
     private static Outcome searchOnce(SpectralStore store, Requirement requirement, int limit, boolean judge,
@@ -249,7 +235,7 @@ class StoreWeightedBenchmark {
         }
         if (judge && rule.equals("arrays") && !"earlier".equals(System.getProperty("bench.storeWeightedJudging", "bounded"))) {
             // rule twelfth with the bins read on every curve the codes prove no miss on (the screen of the eleventh
-            // pass, B from the stored byte): isolates the deferred bins
+            // pass): isolates the deferred bins
             NO_DEFERRED_BINS.set(true);
             try {
                 return searchBounded(store, requirement, limit, t0, true, true, true, true, true, true);
