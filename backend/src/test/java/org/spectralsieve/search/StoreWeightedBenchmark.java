@@ -385,8 +385,11 @@ class StoreWeightedBenchmark {
         boolean fromArrays = solveReserve && settledRows && spec.kind() == ThicknessSpec.Kind.RANGE;
         // the twelfth pass: a solve's first stage stops at the codes' bound where they prove no miss; the bins are read
         // only for the curves of materials that could reach the rows (solveContenders)
+        // deferred only where the first set read in full (the largest 4·k materials' codes' bounds) leaves materials
+        // unread: on a smaller store every bin would be read all the same, after a pass over the codes more
+        boolean deferring = !NO_DEFERRED_BINS.get() && (store.size() + 2) / 3 > 4 * (SOLVE_RESERVE_AFTER + 4 * limit);
         WeightedMisses.DeferredBins deferredBins = fromArrays
-                ? WeightedMisses.screenWithBinsDeferred(store, requirement, !NO_DEFERRED_BINS.get()) : null;
+                ? WeightedMisses.screenWithBinsDeferred(store, requirement, deferring) : null;
         WeightedMisses.Screen screen = deferredBins != null ? new WeightedMisses.Screen(deferredBins.bounds(), deferredBins.secondStage())
                 : WeightedMisses.screen(store, requirement, Optional.empty(), false, true);
         double[] bounds = screen.bounds();
