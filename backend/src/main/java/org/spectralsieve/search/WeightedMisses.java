@@ -199,6 +199,116 @@ final class WeightedMisses {
     }
 
     /**
+     * {@link #screen} for a solve without a layer whose first stage stops at the figure codes' whole-range bound
+     * min(P(lo), Q(hi)) on the curves the codes do not prove missed (issue 14, twelfth pass: there the bins' thinned
+     * bound at lo, B, Q(hi) from the bins and the split rule cost most of the screen, and only the curves of contenders
+     * that could reach the rows need them). Every bound is sound (the codes' P(lo) and Q(hi) bound every pass and block
+     * margin over the range); {@code deferred} marks the curves whose bound is only the codes' one, which
+     * {@link DeferredBins#readInFull} replaces by the bound {@link #screen} forms, bit for bit. Elsewhere (as measured,
+     * at one thickness, behind a layer, the codes switched off) this is {@link #screen} with nothing deferred.
+     */
+    static DeferredBins screenWithBinsDeferred(SpectralStore store, Requirement requirement) {
+        return screenWithBinsDeferred(store, requirement, true);
+    }
+
+    /** @param deferring false: nothing deferred, every bound {@link #screen}'s (benchmarks: the same work side by side) */
+    static DeferredBins screenWithBinsDeferred(SpectralStore store, Requirement requirement, boolean deferring) {
+        int size = store.size();
+        Bounds whole = bounds(store, requirement, Optional.empty(), Optional.empty(), false, false, true, 0, size);
+        boolean[] deferred = new boolean[size];
+        if (whole == null) {
+            return new DeferredBins(new double[0], deferred, null, store, requirement);
+        }
+        boolean defer = deferring && requirement.thickness().kind() == ThicknessSpec.Kind.RANGE && requirement.layer().isEmpty();
+        double[] bound = new double[size];
+        int parts = size < PARALLEL_FROM ? 1 : Math.max(1, Math.min(PARTS, Runtime.getRuntime().availableProcessors()));
+        IntStream.range(0, parts).parallel().forEach(p -> {
+            Bounds b = bounds(store, requirement, Optional.empty(), Optional.empty(), false, false, true,
+                    (int) ((long) size * p / parts), (int) ((long) size * (p + 1) / parts));
+            b.deferBins = defer;
+            b.deferredOut = deferred;
+            b.into(bound);
+        });
+        return new DeferredBins(bound, deferred, whole, store, requirement);
+    }
+
+    /**
+     * A screen whose solve left some curves' bins unread ({@link #screenWithBinsDeferred}): each curve's bound
+     * ({@link #bounds}), which curves carry the codes' bound only ({@link #deferred}), and the second stage (null when
+     * no clause is screened).
+     */
+    static final class DeferredBins {
+        private final double[] bounds;
+        private final boolean[] deferred;
+        private final SecondStage secondStage;
+        private final SpectralStore store;
+        private final Requirement requirement;
+        /** One reader per part, kept across calls: a query forms its per-range tables (shares, surfaces) once. */
+        private final Bounds[] readers = new Bounds[PARTS];
+
+        DeferredBins(double[] bounds, boolean[] deferred, SecondStage secondStage, SpectralStore store,
+                     Requirement requirement) {
+            this.bounds = bounds;
+            this.deferred = deferred;
+            this.secondStage = secondStage;
+            this.store = store;
+            this.requirement = requirement;
+        }
+
+        double[] bounds() {
+            return bounds;
+        }
+
+        boolean[] deferred() {
+            return deferred;
+        }
+
+        SecondStage secondStage() {
+            return secondStage;
+        }
+
+        /**
+         * Replaces the bound of each deferred curve among {@code curves[0, count)} by the full first-stage bound
+         * (the one {@link #screen} forms, bit for bit) and clears its mark; on both cores from
+         * {@link #PARALLEL_FROM_DEFERRED} curves. Not to be called from two threads at once, nor while another thread
+         * reads these curves' bounds.
+         *
+         * @return how many bounds were read in full
+         */
+        int readInFull(int[] curves, int count) {
+            if (bounds.length == 0) {
+                return 0;
+            }
+            int parts = count < PARALLEL_FROM_DEFERRED ? 1
+                    : Math.max(1, Math.min(PARTS, Runtime.getRuntime().availableProcessors()));
+            for (int p = 0; p < parts; p++) {
+                if (readers[p] == null) {
+                    readers[p] = WeightedMisses.bounds(store, requirement, Optional.empty(), Optional.empty(), false,
+                            false, true, 0, store.size());
+                }
+            }
+            java.util.concurrent.atomic.AtomicInteger read = new java.util.concurrent.atomic.AtomicInteger();
+            IntStream.range(0, parts).parallel().forEach(p -> {
+                Bounds b = readers[p];
+                int n = 0;
+                for (int i = (int) ((long) count * p / parts); i < (int) ((long) count * (p + 1) / parts); i++) {
+                    int c = curves[i];
+                    if (deferred[c]) {
+                        bounds[c] = b.readInFull(c);
+                        deferred[c] = false;
+                        n++;
+                    }
+                }
+                read.addAndGet(n);
+            });
+            return read.get();
+        }
+    }
+
+    /** Curves from which {@link DeferredBins#readInFull} runs on both cores. */
+    private static final int PARALLEL_FROM_DEFERRED = 4096;
+
+    /**
      * Whether the screen's pass over the figure codes goes in blocks of curves, clause after clause, with the bins of a
      * block's unknown lower end in the same block (the tenth pass of issue 14), or curve after curve with those bins in
      * a pass of their own after it, block by block (the ninth pass: {@code
@@ -305,6 +415,15 @@ final class WeightedMisses {
         private final boolean blocksFromCodes;
         /** {@link #codesFirst()}, read once per search. */
         private final boolean codesFirst = codesFirst();
+        /**
+         * Where the first stage of a solve records a curve whose bins it left unread ({@link #screenWithBinsDeferred}),
+         * null when it reads them on every curve.
+         */
+        private boolean[] deferredOut;
+        /** Whether the first stage of a solve stops at the codes' bound ({@link #screenWithBinsDeferred}). */
+        private boolean deferBins;
+        /** Whether the last {@link #rescaled} stopped at the codes' bound. */
+        private boolean deferredNow;
 
         Bounds(SpectralStore store, ThicknessSpec spec, List<WeightedScreen.Query> queries, List<Boolean> seeThrough,
                boolean diffuseLayer, boolean reference, int from, int to) {
@@ -379,8 +498,28 @@ final class WeightedMisses {
                         || !(d0 > 0)) {
                     out[c] = onMeasuredCurve(spec, d0, store.isBulk(c));
                 } else {
+                    deferredNow = false;
                     out[c] = rescaled(spec.minMm(), spec.kind() == ThicknessSpec.Kind.FIXED ? spec.minMm() : spec.maxMm());
+                    if (deferredNow) {
+                        deferredOut[c] = true;
+                    }
                 }
+            }
+        }
+
+        /**
+         * The first stage's bound of a bulk curve judged rescaled, read in full (bins included) for a curve whose bins
+         * {@link #into} left unread: the very bound it forms when it reads them ({@link #rescaled}, same operations in
+         * the same order).
+         */
+        double readInFull(int c) {
+            boolean was = deferBins;
+            deferBins = false;
+            try {
+                curve(c, store.isTotalGeometry(c) || diffuseLayer);
+                return rescaled(spec.minMm(), spec.kind() == ThicknessSpec.Kind.FIXED ? spec.minMm() : spec.maxMm());
+            } finally {
+                deferBins = was;
             }
         }
 
@@ -525,6 +664,12 @@ final class WeightedMisses {
                 }
                 blockCodes = blockFromCodes(hi, Double.POSITIVE_INFINITY);
                 if (first && blockCodes < 0) {
+                    return Math.min(passCodes, blockCodes);
+                }
+                if (first && deferBins) {
+                    // the whole range's bound from the codes alone (P(lo) and Q(hi) bound every judged d in it): sound,
+                    // never below the full one; the bins are read later only if this could still reach the rows
+                    deferredNow = true;
                     return Math.min(passCodes, blockCodes);
                 }
             }

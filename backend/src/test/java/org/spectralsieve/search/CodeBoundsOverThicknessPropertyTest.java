@@ -177,6 +177,63 @@ class CodeBoundsOverThicknessPropertyTest {
         assertThat(tighter).isGreaterThan(10);
     }
 
+    /**
+     * The twelfth pass (docs/weighted-screening.md, "The solve at a million curves"): a solve's first stage that leaves
+     * the bins unread where the codes prove no miss ({@code WeightedMisses.screenWithBinsDeferred}) gives, on every
+     * deferred curve, a bound never below the full one and still at least the exact worst margin at every thickness of
+     * the range (the codes' P(lo) and Q(hi) alone, Jensen's inequality as above), and the very full bound elsewhere;
+     * read in full it gives back the screen's bounds bit for bit.
+     */
+    @Test
+    void aSolveWithItsBinsDeferredIsSoundAndReadInFullGivesTheScreensBoundsBitForBit() {
+        Random random = new Random(20261205L);
+        Stock stock = randomStock(random, 150);
+        SpectralStore store = stock.store();
+        int deferred = 0;
+        int looser = 0;
+        int checked = 0;
+        for (int trial = 0; trial < 10; trial++) {
+            double lo = 0.3 + 3 * random.nextDouble();
+            double hi = lo * (1 + 8 * random.nextDouble());
+            Requirement requirement = RequirementParser.parse(randomRequirement(random)
+                    + String.format(Locale.ROOT, ", thickness %.3f to %.3f mm", lo, hi));
+            double[] full = WeightedMisses.marginBounds(store, requirement, Optional.empty(), false);
+            WeightedMisses.DeferredBins lazy = WeightedMisses.screenWithBinsDeferred(store, requirement);
+            double[] codesOnly = lazy.bounds().clone();
+            boolean[] wasDeferred = lazy.deferred().clone();
+            for (int c = 0; c < stock.curves().size(); c++) {
+                String what = requirement + " curve " + c + " (measured " + stock.thicknesses().get(c) + ")";
+                if (!wasDeferred[c]) {
+                    assertThat(Double.compare(codesOnly[c], full[c])).as("not deferred, " + what).isZero();
+                    continue;
+                }
+                deferred++;
+                looser += codesOnly[c] > full[c] + 1e-3 ? 1 : 0;
+                assertThat(codesOnly[c]).as("deferred, never below the full bound, " + what).isGreaterThanOrEqualTo(full[c]);
+                double lnLo = Math.log(lo);
+                double lnHi = Math.log(hi);
+                for (int j = 0; j <= 12; j++) {
+                    double d = Math.exp(lnLo + (lnHi - lnLo) * j / 12);
+                    double worst = exactWorstMargin(stock, c, d, requirement);
+                    if (!Double.isNaN(worst)) {
+                        assertThat(codesOnly[c]).as("deferred, at " + d + " mm, " + what).isGreaterThanOrEqualTo(worst);
+                        checked++;
+                    }
+                }
+            }
+            int[] every = java.util.stream.IntStream.range(0, store.size()).toArray();
+            lazy.readInFull(every, every.length);
+            for (int c = 0; c < stock.curves().size(); c++) {
+                assertThat(Double.compare(lazy.bounds()[c], full[c])).as("read in full, curve " + c + ", " + requirement).isZero();
+                assertThat(lazy.deferred()[c]).isFalse();
+            }
+        }
+        // not vacuous: curves were deferred, the bins tighten some of them, and the exact margins were compared
+        assertThat(deferred).isGreaterThan(100);
+        assertThat(looser).isGreaterThan(10);
+        assertThat(checked).isGreaterThan(1_000);
+    }
+
     private static double[] withoutCodes(java.util.function.Supplier<double[]> bounds) {
         System.setProperty("sieve.store.solve-from-codes", "false");
         try {

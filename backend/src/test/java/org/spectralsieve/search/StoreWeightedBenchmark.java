@@ -64,7 +64,12 @@ import org.spectralsieve.store.SyntheticCurves;
  * the bins alone ({@code -Dsieve.store.solve-from-codes=false} around its searches), {@code eleventh} is {@code tenth}
  * with a solve's bounds over thickness from the figure codes, split around their crossing, the bins of the first stage
  * read only where the codes prove no miss (the eleventh pass), {@code crossing} is {@code eleventh} with the bins read on
- * every curve ({@code -Dsieve.store.solve-codes-first=false}). Each line's {@code same_rows} says whether that rule's
+ * every curve ({@code -Dsieve.store.solve-codes-first=false}), {@code twelfth} is {@code eleventh} with a solve's contenders
+ * formed from the snapshot's per-material arrays (made thicknesses and records formed once per store, as the service's
+ * snapshot holds them) and only for the materials whose largest first bound reaches a cut, the rest in a reserve, over
+ * a first stage that leaves the bins unread where the codes prove no miss and reads them only for the materials that
+ * could reach the cut ({@link #solveContenders}, {@code WeightedMisses.screenWithBinsDeferred}; the twelfth pass), and
+ * {@code arrays} is {@code twelfth} with the bins read on every curve (the eleventh pass's screen). Each line's {@code same_rows} says whether that rule's
  * rows equalled the first rule's in every run. {@code -Dbench.storeWeightedModes=measured,solve} chooses the
  * requirements; {@code -Dbench.debug=true} prints, per whole search, the contenders, second bounds formed and the
  * time in them and in the exact judgement, and the last row. The default base of 10,000 rows is not a multiple of three:
@@ -148,7 +153,7 @@ class StoreWeightedBenchmark {
                         System.out.printf(Locale.ROOT, "BENCH store-weighted curves=%d mode=%s part=%s p50_ms=%.1f p95_ms=%.1f"
                                         + " proven=%d judged=%d runs=%d rule=%s judging=%s same_rows=%s%n", n, mode.getKey(), part, ms[runs / 2],
                                 ms[Math.min(runs - 1, (int) Math.ceil(runs * 0.95) - 1)], last[v].proven, last[v].judged,
-                                runs, rules[v], judged && List.of("current", "samples", "before", "settled", "bar", "codes", "decoded", "tenth", "eleventh", "crossing").contains(rules[v])
+                                runs, rules[v], judged && List.of("current", "samples", "before", "settled", "bar", "codes", "decoded", "tenth", "eleventh", "crossing", "twelfth", "arrays").contains(rules[v])
                                         ? System.getProperty("bench.storeWeightedJudging", "bounded") : "earlier", sameRows[v]);
                     }
                 }
@@ -169,9 +174,17 @@ class StoreWeightedBenchmark {
                 + r.evaluation().worstMarginDecades()).toList();
     }
 
+    /** Rule {@code arrays}: the twelfth pass's contenders over a screen that reads the bins on every curve. */
+    private static final ThreadLocal<Boolean> NO_DEFERRED_BINS = ThreadLocal.withInitial(() -> false);
+
     /** One weighted search the service's way, on the store's curves. */
     private static Outcome search(SpectralStore store, Requirement requirement, int limit, boolean judge,
                                   String rule) {
+        return searchOnce(store, requirement, limit, judge, rule);
+    }
+
+    private static Outcome searchOnce(SpectralStore store, Requirement requirement, int limit, boolean judge,
+                                      String rule) {
         long t0 = System.nanoTime();
         if (judge && rule.equals("before") && !"earlier".equals(System.getProperty("bench.storeWeightedJudging", "bounded"))) {
             // the loop before this pass: materials whole, one second bound at a time
@@ -215,6 +228,21 @@ class StoreWeightedBenchmark {
             // rule tenth with a solve's bounds over thickness from the figure codes, split around their crossing
             return searchBounded(store, requirement, limit, t0, true, true, true, true, true);
         }
+        if (judge && rule.equals("twelfth") && !"earlier".equals(System.getProperty("bench.storeWeightedJudging", "bounded"))) {
+            // rule eleventh with a solve's contenders formed from the snapshot's per-material arrays, those below a cut
+            // in a reserve formed only if the judging loop reaches them (the twelfth pass)
+            return searchBounded(store, requirement, limit, t0, true, true, true, true, true, true);
+        }
+        if (judge && rule.equals("arrays") && !"earlier".equals(System.getProperty("bench.storeWeightedJudging", "bounded"))) {
+            // rule twelfth with the bins read on every curve the codes prove no miss on (the screen of the eleventh
+            // pass): isolates the deferred bins
+            NO_DEFERRED_BINS.set(true);
+            try {
+                return searchBounded(store, requirement, limit, t0, true, true, true, true, true, true);
+            } finally {
+                NO_DEFERRED_BINS.set(false);
+            }
+        }
         if (judge && rule.equals("crossing") && !"earlier".equals(System.getProperty("bench.storeWeightedJudging", "bounded"))) {
             // rule eleventh with the bins read on every curve of a solve's first stage, even where the codes prove a miss
             System.setProperty("sieve.store.solve-codes-first", "false");
@@ -225,7 +253,7 @@ class StoreWeightedBenchmark {
             }
         }
         if (!rule.equals("codes") && !rule.equals("decoded") && !rule.equals("tenth") && !rule.equals("eleventh")
-                && !rule.equals("crossing")) {
+                && !rule.equals("crossing") && !rule.equals("twelfth") && !rule.equals("arrays")) {
             // every rule before the ninth pass screens with the bins alone (WeightedScreen.figureCodesOn)
             System.setProperty("sieve.store.figure-codes", "false");
         }
@@ -263,7 +291,7 @@ class StoreWeightedBenchmark {
         switch (rule) {
             case "earlier" -> WeightedMisses.addEarlier(proven, store, requirement, Optional.empty());
             case "reference" -> WeightedMisses.add(proven, store, requirement, Optional.empty(), false, true);
-            case "current", "samples", "before", "settled", "bar", "codes", "decoded", "tenth", "eleventh", "crossing" -> WeightedMisses.add(proven, store, requirement, Optional.empty());
+            case "current", "samples", "before", "settled", "bar", "codes", "decoded", "tenth", "eleventh", "crossing", "twelfth", "arrays" -> WeightedMisses.add(proven, store, requirement, Optional.empty());
             default -> throw new IllegalArgumentException("rule " + rule);
         }
         long t1 = System.nanoTime();
@@ -332,6 +360,18 @@ class StoreWeightedBenchmark {
     private static Outcome searchBounded(SpectralStore store, Requirement requirement, int limit, long t0,
                                          boolean samplesAsContenders, boolean settledRows, boolean toTheBar,
                                          boolean reserve, boolean decodeOnce) {
+        return searchBounded(store, requirement, limit, t0, samplesAsContenders, settledRows, toTheBar, reserve,
+                decodeOnce, false);
+    }
+
+    /**
+     * @param solveReserve over a range, the materials' contenders formed from the snapshot's per-material arrays
+     *                     ({@link Snapshot}), and only for the materials whose largest first bound over every row
+     *                     reaches a cut; the others wait in a {@link BoundedJudgement.Reserve} ({@link #solveContenders})
+     */
+    private static Outcome searchBounded(SpectralStore store, Requirement requirement, int limit, long t0,
+                                         boolean samplesAsContenders, boolean settledRows, boolean toTheBar,
+                                         boolean reserve, boolean decodeOnce, boolean solveReserve) {
         // the curves this search decodes: once each, shared by the second bound and the judgement (the service's
         // snapshot keeps a cache of the curves it judged), or decoded at each use as before the tenth pass. Only as
         // measured: a solve refines tens of thousands of curves, more than the service's bounded cache would keep
@@ -341,13 +381,22 @@ class StoreWeightedBenchmark {
                 ? c -> decoded.computeIfAbsent(c, store::curve) : store::curve;
         // the screen: each curve's bound of either sign; a negative one is a proven miss (WeightedMisses.add),
         // and the second stage of the same search (its queries), as SearchService.searchExactly forms them
-        WeightedMisses.Screen screen = WeightedMisses.screen(store, requirement, Optional.empty(), false, true);
+        ThicknessSpec spec = requirement.thickness();
+        boolean fromArrays = solveReserve && settledRows && spec.kind() == ThicknessSpec.Kind.RANGE;
+        // the twelfth pass: a solve's first stage stops at the codes' bound where they prove no miss; the bins are read
+        // only for the curves of materials that could reach the rows (solveContenders)
+        // deferred only where the first set read in full (the largest 4·k materials' codes' bounds) leaves materials
+        // unread: on a smaller store every bin would be read all the same, after a pass over the codes more
+        boolean deferring = !NO_DEFERRED_BINS.get() && (store.size() + 2) / 3 > 4 * (SOLVE_RESERVE_AFTER + 4 * limit);
+        WeightedMisses.DeferredBins deferredBins = fromArrays
+                ? WeightedMisses.screenWithBinsDeferred(store, requirement, deferring) : null;
+        WeightedMisses.Screen screen = deferredBins != null ? new WeightedMisses.Screen(deferredBins.bounds(), deferredBins.secondStage())
+                : WeightedMisses.screen(store, requirement, Optional.empty(), false, true);
         double[] bounds = screen.bounds();
         WeightedMisses.SecondStage second = Boolean.parseBoolean(System.getProperty("bench.storeWeightedSecondStage", "true"))
                 ? screen.secondStage() : null;
         long t1b = System.nanoTime();
         int provenCount = 0;
-        ThicknessSpec spec = requirement.thickness();
         // a solved range judges a material's samples together (their rows share its feasible interval and advice)
         boolean bySample = samplesAsContenders && spec.kind() != ThicknessSpec.Kind.RANGE;
         List<BoundedJudgement.Contender> contenders = new ArrayList<>();
@@ -392,7 +441,13 @@ class StoreWeightedBenchmark {
                 });
             }
         }
-        for (int first = 0; first < (lazy ? 0 : store.size()); first += 3) {
+        if (fromArrays) {
+            SolveContenders formed = solveContenders(store, deferredBins, spec, limit);
+            contenders = formed.now();
+            later = formed.later();
+            provenCount = formed.proven();
+        }
+        for (int first = 0; first < (lazy || fromArrays ? 0 : store.size()); first += 3) {
             int end = Math.min(store.size(), first + 3);
             double bound = Double.NEGATIVE_INFINITY;
             boolean allMiss = true;
@@ -480,6 +535,249 @@ class StoreWeightedBenchmark {
                     + " first=" + rows.get(0).evaluation().worstMarginDecades() + " kinds=" + kinds);
         }
         return new Outcome((t1b - t0) / 1e6, (t2 - t0) / 1e6, provenCount, judged.get(), rowsOf(rows));
+    }
+
+    /**
+     * What the service's snapshot holds per material, formed once per store (the first search forms it, as a snapshot
+     * is formed once per library generation): each material's made thicknesses ({@code SnapshotIndex.Slots#made}) and
+     * record. Before the twelfth pass the benchmark formed both per material per search (a boxed list and a stream
+     * pipeline each, twice per material), which the service never did.
+     */
+    private record Snapshot(MadeThicknesses[] made, org.spectralsieve.library.Material[] records) {
+
+        static Snapshot of(SpectralStore store) {
+            int materials = (store.size() + 2) / 3;
+            MadeThicknesses[] made = new MadeThicknesses[materials];
+            org.spectralsieve.library.Material[] records = new org.spectralsieve.library.Material[materials];
+            for (int m = 0; m < materials; m++) {
+                int first = 3 * m;
+                List<Double> measured = new ArrayList<>(3);
+                for (int c = first; c < Math.min(store.size(), first + 3); c++) {
+                    measured.add(store.thicknessMm(c));
+                }
+                made[m] = MadeThicknesses.of(List.of(), Double.NaN, Double.NaN, measured);
+                records[m] = material(store.material(first), first);
+            }
+            return new Snapshot(made, records);
+        }
+    }
+
+    private static final Map<SpectralStore, Snapshot> SNAPSHOTS = new java.util.IdentityHashMap<>();
+
+    private static synchronized Snapshot snapshotOf(SpectralStore store) {
+        return SNAPSHOTS.computeIfAbsent(store, Snapshot::of);
+    }
+
+    /**
+     * Materials formed at the start of a solve, before the others wait in the reserve: the service's as-measured cut
+     * (256 + 4·limit) is too tight here, as a solve's loop forms ~1,500 second bounds before its rows end in a bar the
+     * rest cannot reach, and a reserve the loop reaches is formed whole (then nothing is saved). Any cut gives the
+     * same contenders in the same order (BoundedJudgement.Reserve); this one only changes how much is formed.
+     */
+    static final int SOLVE_RESERVE_AFTER = 4096;
+
+    /** The contenders formed at once, the reserve (null: none) and the count of proven misses among the rows. */
+    private record SolveContenders(List<BoundedJudgement.Contender> now, BoundedJudgement.Reserve later, int proven) {
+    }
+
+    /**
+     * A solve's contenders (the twelfth pass) from plain arrays: first each material's largest first bound over
+     * <em>every</em> row (one pass over the bounds, no object per material), at least the contender's own bound (the
+     * largest over the rows {@link MaterialJudge} judges), so a material whose largest lies below the cut can wait in
+     * a reserve whose bound is the largest of theirs ({@link BoundedJudgement.Reserve}: every contender in it has a
+     * bound no larger). Only the materials at or above the cut (or without a finite bound) are formed now, with the
+     * snapshot's made thicknesses, as the loop before formed every one. A material settled "not judged" can wait in
+     * the reserve too, although the reserve's contract names none: such a contender waits behind every other in
+     * {@link BoundedJudgement#ORDER} whenever it is formed, and a reserve the loop keeps out is kept out by full rows
+     * ending in a met row, which keep out every settled contender as well ({@link BoundedJudgement#noneCanEnter}; the
+     * rows only improve). So the loop judges the same contenders in the same order as with every one formed first.
+     */
+    private static SolveContenders solveContenders(SpectralStore store, WeightedMisses.DeferredBins deferredBins,
+                                                   ThicknessSpec spec, int limit) {
+        Snapshot snapshot = snapshotOf(store);
+        double[] bounds = deferredBins.bounds();
+        int size = store.size();
+        int materials = (size + 2) / 3;
+        double[] largest = new double[materials];
+        for (int m = 0; m < materials; m++) {
+            double bound = Double.NEGATIVE_INFINITY;
+            for (int c = 3 * m; c < Math.min(size, 3 * m + 3); c++) {
+                bound = Math.max(bound, firstBound(bounds, c));
+            }
+            largest[m] = bound;
+        }
+        // the largest over the codes' bounds where the bins were left unread: at least the full bounds' largest, so a
+        // material below the cut may wait in the reserve, its bins read only if the loop reaches it. The cut is found
+        // again once the bins of the materials above it are read (their bounds only fall), until every material at or
+        // above it has its full bounds: so the reserve's bound lies below the contenders formed now
+        int k = SOLVE_RESERVE_AFTER + 4 * limit;
+        boolean[] full = new boolean[materials];
+        int[] above = new int[3 * materials];
+        long r0 = System.nanoTime();
+        int readNow = readLargestFirst(deferredBins, largest, full, k);
+        int rounds = 0;
+        double cut;
+        // what is left above the cut, until none is (a safety net: the pass above leaves none but the materials
+        // without a finite bound, whose rows' bins are not deferred)
+        while (true) {
+            rounds++;
+            cut = BoundedJudgement.kthLargest(largest, materials, k);
+            int aboveCount = 0;
+            for (int m = 0; m < materials; m++) {
+                if (!full[m] && (largest[m] >= cut || Double.isNaN(largest[m]))) {
+                    for (int c = 3 * m; c < Math.min(size, 3 * m + 3); c++) {
+                        above[aboveCount++] = c;
+                    }
+                }
+            }
+            if (aboveCount == 0) {
+                break;
+            }
+            readNow += deferredBins.readInFull(above, aboveCount);
+            for (int i = 0; i < aboveCount; i++) {
+                int m = above[i] / 3;
+                if (!full[m]) {
+                    full[m] = true;
+                    double bound = Double.NEGATIVE_INFINITY;
+                    for (int c = 3 * m; c < Math.min(size, 3 * m + 3); c++) {
+                        bound = Math.max(bound, firstBound(bounds, c));
+                    }
+                    largest[m] = bound;
+                }
+            }
+        }
+        double roundsMs = (System.nanoTime() - r0) / 1e6;
+        int proven = 0;
+        for (double b : bounds) {
+            proven += b < 0 ? 1 : 0;
+        }
+        List<BoundedJudgement.Contender> now = new ArrayList<>();
+        int[] rest = new int[materials];
+        int restCount = 0;
+        double restBound = Double.NEGATIVE_INFINITY;
+        // a material formed because a row reaches the cut waits in the reserve all the same when its contender's own
+        // bound does not (the rows it judges lie below it; a fixed part's rows measured outside the range have no
+        // bound, +∞, and give no row), or when it is settled (bound -∞ whatever its rows' first bounds)
+        List<BoundedJudgement.Contender> formedBelow = new ArrayList<>();
+        for (int m = 0; m < materials; m++) {
+            if (largest[m] >= cut || Double.isNaN(largest[m])) {
+                BoundedJudgement.Contender c = materialContender(store, snapshot, m, bounds, spec);
+                if (c.settledNotJudged() || c.bound() < cut) {
+                    formedBelow.add(c);
+                    restBound = c.settledNotJudged() ? restBound : Math.max(restBound, c.bound());
+                } else {
+                    now.add(c);
+                }
+            } else {
+                rest[restCount++] = m;
+                restBound = Math.max(restBound, largest[m]);
+            }
+        }
+        if (Boolean.getBoolean("bench.debug")) {
+            System.out.printf(Locale.ROOT, "DEBUG solve_cut=%.6f formed_now=%d formed_into_reserve=%d reserve_unformed=%d"
+                    + " bins_read_now=%d rounds=%d rounds_ms=%.1f%n", cut, now.size(), formedBelow.size(), restCount, readNow, rounds, roundsMs);
+        }
+        if (restCount == 0 && formedBelow.isEmpty()) {
+            return new SolveContenders(now, null, proven);
+        }
+        int waiting = restCount;
+        BoundedJudgement.Reserve later = new BoundedJudgement.Reserve(restBound, () -> {
+            RESERVES_FORMED.incrementAndGet();
+            // their bins first: the contenders then carry the bounds the screen would have formed
+            int[] curves = new int[3 * waiting];
+            int count = 0;
+            for (int i = 0; i < waiting; i++) {
+                for (int c = 3 * rest[i]; c < Math.min(size, 3 * rest[i] + 3); c++) {
+                    curves[count++] = c;
+                }
+            }
+            deferredBins.readInFull(curves, count);
+            List<BoundedJudgement.Contender> formed = new ArrayList<>(waiting + formedBelow.size());
+            for (int i = 0; i < waiting; i++) {
+                formed.add(materialContender(store, snapshot, rest[i], bounds, spec));
+            }
+            formed.addAll(formedBelow);
+            return formed;
+        });
+        return new SolveContenders(now, later, proven);
+    }
+
+    /**
+     * Reads the bins of the materials whose codes' bound could reach the cut, in two sets, each in the order of the
+     * store's rows (read in that order a curve's bins share cache lines with its neighbours'; in the order of the bounds
+     * each curve's bins were a cache miss apiece): first the materials whose codes' bound is among the largest 4·k;
+     * then every other whose codes' bound is at least F, the k-th largest full bound among those read. The cut (the
+     * k-th largest full bound of all) is at least F, as more materials only raise a k-th largest, so a material whose
+     * codes' bound lies below F — at least its full bounds' largest — is below the cut and need not be read. Marks each
+     * material read in {@code full} and sets its {@code largest} to its full bounds' largest; the caller's loop reads
+     * whatever else is at or above the cut (the materials without a finite bound, whose rows' bins are not deferred).
+     */
+    private static int readLargestFirst(WeightedMisses.DeferredBins deferredBins, double[] largest, boolean[] full, int k) {
+        int materials = largest.length;
+        double[] codes = largest.clone(); // the codes' bounds, as the screen left them
+        int[] curves = new int[deferredBins.bounds().length];
+        double firstSet = BoundedJudgement.kthLargest(codes, materials, Math.min(4 * k, materials));
+        int read = readAtLeast(deferredBins, codes, firstSet, largest, full, curves);
+        double[] readBounds = new double[materials];
+        int n = 0;
+        for (int m = 0; m < materials; m++) {
+            if (full[m]) {
+                readBounds[n++] = largest[m];
+            }
+        }
+        double lowest = BoundedJudgement.kthLargest(readBounds, n, k);
+        return read + readAtLeast(deferredBins, codes, lowest, largest, full, curves);
+    }
+
+    /** Reads in full the materials not yet read whose finite codes' bound is at least {@code from}, in row order. */
+    private static int readAtLeast(WeightedMisses.DeferredBins deferredBins, double[] codes, double from,
+                                   double[] largest, boolean[] full, int[] curves) {
+        double[] bounds = deferredBins.bounds();
+        int size = bounds.length;
+        int n = 0;
+        for (int m = 0; m < codes.length; m++) {
+            if (!full[m] && Double.isFinite(codes[m]) && codes[m] >= from) {
+                for (int c = 3 * m; c < Math.min(size, 3 * m + 3); c++) {
+                    curves[n++] = c;
+                }
+            }
+        }
+        int read = deferredBins.readInFull(curves, n);
+        for (int i = 0; i < n; i++) {
+            int m = curves[i] / 3;
+            if (!full[m]) {
+                full[m] = true;
+                double bound = Double.NEGATIVE_INFINITY;
+                for (int c = 3 * m; c < Math.min(size, 3 * m + 3); c++) {
+                    bound = Math.max(bound, firstBound(bounds, c));
+                }
+                largest[m] = bound;
+            }
+        }
+        return read;
+    }
+
+    /** One material's contender over a range, as the loop before formed it, from the snapshot's made thicknesses. */
+    private static BoundedJudgement.Contender materialContender(SpectralStore store, Snapshot snapshot, int m,
+                                                               double[] bounds, ThicknessSpec spec) {
+        int first = 3 * m;
+        int end = Math.min(store.size(), first + 3);
+        MadeThicknesses made = snapshot.made()[m];
+        org.spectralsieve.library.Material record = snapshot.records()[m];
+        if (settledOverRange(store, first, end, spec, made)) {
+            return new BoundedJudgement.Contender(record, Double.NEGATIVE_INFINITY, false, false,
+                    true, Double.NEGATIVE_INFINITY, BoundedJudgement.WHOLE_MATERIAL, true);
+        }
+        boolean[] judgedHere = judgedSamples(store, first, end, spec, made);
+        double bound = Double.NEGATIVE_INFINITY;
+        boolean allMiss = true;
+        for (int c = first; c < end; c++) {
+            double margin = firstBound(bounds, c);
+            allMiss &= margin < 0;
+            bound = judgedHere[c - first] ? Math.max(bound, margin) : bound;
+        }
+        boolean madeThere = spec.kind() == ThicknessSpec.Kind.AS_MEASURED || !store.isBulk(first);
+        return new BoundedJudgement.Contender(record, bound, allMiss && madeThere, false);
     }
 
     /**
@@ -578,24 +876,34 @@ class StoreWeightedBenchmark {
 
     /** As {@code SearchService.settledOverRange}: every row of the material's curves [from, to) is not judged. */
     private static boolean settledOverRange(SpectralStore store, int from, int to, ThicknessSpec spec) {
+        return settledOverRange(store, from, to, spec, null);
+    }
+
+    /** {@link #settledOverRange(SpectralStore, int, int, ThicknessSpec)} with the made thicknesses known (null: formed here). */
+    private static boolean settledOverRange(SpectralStore store, int from, int to, ThicknessSpec spec, MadeThicknesses known) {
         double[] measured = new double[to - from];
         boolean[] rescalable = new boolean[to - from];
         for (int c = from; c < to; c++) {
             measured[c - from] = store.thicknessMm(c);
             rescalable[c - from] = store.isBulk(c);
         }
-        MadeThicknesses made = MadeThicknesses.of(List.of(), Double.NaN, Double.NaN,
+        MadeThicknesses made = known != null ? known : MadeThicknesses.of(List.of(), Double.NaN, Double.NaN,
                 Arrays.stream(measured).boxed().toList());
         return SettledRows.overRange(measured, rescalable, made, spec);
     }
 
     /** Which of the material's curves [from, to) {@link MaterialJudge#choose} judges, from their thicknesses alone. */
     private static boolean[] judgedSamples(SpectralStore store, int from, int to, ThicknessSpec spec) {
+        return judgedSamples(store, from, to, spec, null);
+    }
+
+    /** {@link #judgedSamples(SpectralStore, int, int, ThicknessSpec)} with the made thicknesses known (null: formed here). */
+    private static boolean[] judgedSamples(SpectralStore store, int from, int to, ThicknessSpec spec, MadeThicknesses known) {
         double[] measured = new double[to - from];
         for (int c = from; c < to; c++) {
             measured[c - from] = store.thicknessMm(c);
         }
-        MadeThicknesses made = MadeThicknesses.of(List.of(), Double.NaN, Double.NaN,
+        MadeThicknesses made = known != null ? known : MadeThicknesses.of(List.of(), Double.NaN, Double.NaN,
                 Arrays.stream(measured).boxed().toList());
         var spans = MaterialJudge.spans(measured, store.isBulk(from), made, spec);
         boolean[] out = new boolean[spans.length];
