@@ -65,6 +65,58 @@ class RowArraysEquivalenceTest {
         assertThat(judgedSome).isGreaterThan(8);
     }
 
+    /**
+     * Property: as measured over the whole library, the sweep over the snapshot index's slots with the screen's bounds
+     * read in place ({@link SlotSweep}, {@link FirstBounds#screenAlone}: the default) forms the same contenders and
+     * reserve as the eleventh pass's loop ({@code -Dsieve.search.slot-sweep=false}): the same rows as judging every
+     * admitted sample, the same admitted count, the same count of judged samples on one thread (a contender or
+     * reserve bound that differed would change which samples are judged), also with the sweep in two halves on two
+     * threads. Random weighted requirements as measured — some with an every-point clause (the bounds then copied by
+     * row), a class of the demo library, geometry any (diffuse rows then compete: the regular flags), a small reserve
+     * cut (the reserve is formed or left out) — on the demo library plus the illustrative Fernhollow stock.
+     */
+    @Test
+    void theSlotSweepFormsTheContendersOfTheLoopBeforeIt() {
+        Random random = new Random(20261206L);
+        List<Material> materials = library.findMaterials(null, null);
+        SearchService sweep = new SearchService(library).withSlotSweep(true)
+                .judging(SearchService.Judging.BOUNDED).reserveAfter(4);
+        SearchService loop = new SearchService(library).withSlotSweep(false)
+                .judging(SearchService.Judging.BOUNDED).reserveAfter(4);
+        SearchService sweepInTwo = new SearchService(library).withSlotSweep(true).parallelFrom(0).sweepInTwoFrom(0)
+                .reserveAfter(4);
+        String[] classes = {"plastic sheet", "window glass", "film", "fused silica"};
+        long sweeps = SlotSweep.SWEEPS.get();
+        long inTwo = SlotSweep.SWEEPS_IN_TWO.get();
+        long reserves = BoundedJudgement.RESERVES_FORMED.get() + BoundedJudgement.RESERVES_LEFT.get();
+        int leftOut = 0;
+        for (int trial = 0; trial < 30; trial++) {
+            String text = randomRequirement(random, 0).replace(", geometry any", "")
+                    + (random.nextInt(4) == 0 ? ", class " + classes[random.nextInt(classes.length)] : "")
+                    + (random.nextInt(3) == 0 ? ", geometry any" : "");
+            text = text.replace(", behind 4 mm clear float glass", ""); // as measured without a layer: the sweep's case
+            Requirement requirement = RequirementParser.parse(text);
+            int limit = new int[] {1, 3, 5, 10, 20}[random.nextInt(5)];
+            Shortlist swept = sweep.search(requirement, limit);
+            Shortlist before = loop.search(requirement, limit);
+            List<RankedRow> expected = ExactReference.judgeEverySample(library, requirement, swept.layer(), materials, limit);
+
+            assertThat(swept.rows()).as(text + " swept (limit " + limit + ")").containsExactlyElementsOf(expected);
+            assertThat(before.rows()).as(text + " the loop before").containsExactlyElementsOf(expected);
+            assertThat(swept.evaluatedSamples()).as(text + ": the same admitted samples").isEqualTo(before.evaluatedSamples());
+            assertThat(swept.judgedExactly()).as(text + ": the same contenders judge the same samples")
+                    .isEqualTo(before.judgedExactly());
+            assertThat(sweepInTwo.search(requirement, limit).rows()).as(text + " swept in two halves")
+                    .containsExactlyElementsOf(expected);
+            leftOut += swept.judgedExactly() < swept.evaluatedSamples() ? 1 : 0;
+        }
+        // not vacuous: the sweep served every search, in two halves too, reserves were reached, and samples left out
+        assertThat(SlotSweep.SWEEPS.get() - sweeps).isGreaterThanOrEqualTo(60);
+        assertThat(SlotSweep.SWEEPS_IN_TWO.get() - inTwo).isGreaterThanOrEqualTo(30);
+        assertThat(BoundedJudgement.RESERVES_FORMED.get() + BoundedJudgement.RESERVES_LEFT.get() - reserves).isGreaterThan(10);
+        assertThat(leftOut).isGreaterThan(15);
+    }
+
     private static String randomRequirement(Random random, int trial) {
         String clauses = "passes over " + percent(55 + 35 * random.nextDouble()) + " of led "
                 + new String[] {"365", "385", "405"}[random.nextInt(3)];
