@@ -174,9 +174,7 @@ final class BoundedExactSearch {
         if (swept) {
             SlotSweep.Formed formed = SlotSweep.form(slots, firstBounds, admission, grouped,
                     reserveCut > 0 ? reserveCut : reserveAfter + 4 * limit,
-                    judging == Judging.BOUNDED_PARALLEL ? sweepInTwoFrom : Integer.MAX_VALUE,
-                    (out, m, firstSlot, regular, made) -> addSampleContenders(out, s, m, requirement, null, null,
-                            firstBounds, firstSlot, regular, made));
+                    judging == Judging.BOUNDED_PARALLEL ? sweepInTwoFrom : Integer.MAX_VALUE);
             contenders.addAll(formed.contenders());
             reserve = formed.reserve();
             inReserve = formed.inReserve();

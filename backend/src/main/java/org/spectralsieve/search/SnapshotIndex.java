@@ -93,6 +93,10 @@ final class SnapshotIndex {
         /** Material {@code i}'s class as an index into {@link #classLabels} (a library holds a handful of classes). */
         final int[] classOf;
         final String[] classLabels;
+        /** Whether material {@code i} has a sample measured in regular geometry. */
+        final boolean[] hasRegular;
+        /** Whether every slot's store row is the slot itself (the store holds the samples in the materials' order). */
+        final boolean slotIsRow;
         final MadeThicknesses[] made;
         /** The material ids sorted, and the index in {@link #materials} of each. */
         final long[] sortedIds;
@@ -129,6 +133,17 @@ final class SnapshotIndex {
                 classOf[i] = classes.computeIfAbsent(materials.get(i).materialClass().label(), label -> classes.size());
             }
             classLabels = classes.keySet().toArray(new String[0]);
+            hasRegular = new boolean[n];
+            for (int i = 0; i < n; i++) {
+                for (int slot = firstSlot[i]; slot < firstSlot[i + 1]; slot++) {
+                    hasRegular[i] |= geometryBySlot[slot] == Geometry.REGULAR;
+                }
+            }
+            boolean inOrder = true;
+            for (int slot = 0; slot < rowBySlot.length && inOrder; slot++) {
+                inOrder = rowBySlot[slot] == slot;
+            }
+            slotIsRow = inOrder;
             Integer[] byId = new Integer[n];
             for (int i = 0; i < n; i++) {
                 byId[i] = i;
