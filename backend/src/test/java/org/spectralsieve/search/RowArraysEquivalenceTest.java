@@ -117,6 +117,52 @@ class RowArraysEquivalenceTest {
         assertThat(leftOut).isGreaterThan(15);
     }
 
+    /**
+     * Property: the same as {@link #theSlotSweepFormsTheContendersOfTheLoopBeforeIt} where diffuse rows are ranked apart
+     * and decide the answer: the demo library plus the illustrative Fernhollow stock with every other synthetic
+     * material measured in total geometry, and requirements with a luminous clause (a see-through figure: total rows
+     * go after the regular ones), so whether a swept material has a regular sample decides which rows it competes
+     * with: the same rows as judging every sample and, on one thread, the same judged count as the loop before.
+     */
+    @Test
+    void theSlotSweepKeepsWhichMaterialsCompeteWithTheRegularRows() {
+        JooqLibraryRepository mixed = demoLibraryWithDiffuseStock();
+        Random random = new Random(20261208L);
+        List<Material> materials = mixed.findMaterials(null, null);
+        SearchService sweep = new SearchService(mixed).withSlotSweep(true)
+                .judging(SearchService.Judging.BOUNDED).reserveAfter(4);
+        SearchService loop = new SearchService(mixed).withSlotSweep(false)
+                .judging(SearchService.Judging.BOUNDED).reserveAfter(4);
+        int leftOut = 0;
+        for (int trial = 0; trial < 20; trial++) {
+            String text = "passes over " + percent(40 + 45 * random.nextDouble()) + " of led "
+                    + new String[] {"365", "385", "405"}[random.nextInt(3)] + " and luminous over "
+                    + percent(10 + 60 * random.nextDouble());
+            Requirement requirement = RequirementParser.parse(text);
+            int limit = new int[] {5, 10, 20, 40}[random.nextInt(4)];
+            Shortlist swept = sweep.search(requirement, limit);
+            List<RankedRow> expected = ExactReference.judgeEverySample(mixed, requirement, swept.layer(), materials, limit);
+
+            Shortlist before = loop.search(requirement, limit);
+            assertThat(swept.rows()).as(text + " swept (limit " + limit + ")").containsExactlyElementsOf(expected);
+            assertThat(before.rows()).as(text + " the loop before").containsExactlyElementsOf(expected);
+            assertThat(swept.judgedExactly()).as(text + ": the same contenders judge the same samples")
+                    .isEqualTo(before.judgedExactly());
+            leftOut += swept.judgedExactly() < swept.evaluatedSamples() ? 1 : 0;
+        }
+        // not vacuous: the bounds left samples out, so which rows a contender competes with decided work
+        assertThat(leftOut).isGreaterThan(10);
+    }
+
+    private static JooqLibraryRepository demoLibraryWithDiffuseStock() {
+        org.jooq.DSLContext db = org.spectralsieve.library.MigratedDatabase.freshH2();
+        JooqLibraryRepository repository = new JooqLibraryRepository(db);
+        new org.spectralsieve.seed.DemoLibraryLoader(repository, db, new org.springframework.core.io.DefaultResourceLoader(),
+                "classpath:seed-materials/").load();
+        BoundedJudgementPropertyTest.addSynthetic(repository, SYNTHETIC_CURVES, 20261208L, m -> m % 2 == 1);
+        return repository;
+    }
+
     private static String randomRequirement(Random random, int trial) {
         String clauses = "passes over " + percent(55 + 35 * random.nextDouble()) + " of led "
                 + new String[] {"365", "385", "405"}[random.nextInt(3)];
