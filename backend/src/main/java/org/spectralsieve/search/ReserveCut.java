@@ -138,12 +138,10 @@ final class ReserveCut {
             }
             formed = append(formed, formedCount, Arrays.copyOf(mine, n));
             formedCount += n;
-            // below the cut and not kept: at most the least kept (a full heap), or -∞ (not full: every finite one kept)
-            int outside = waiting[h] - l.size;
+            // the half's others wait too (counted below): each at most the least kept when the kept ones are full (so
+            // at most belowCut), else -∞ (every finite one was kept), which leaves the reserve's bound as it is
             if (anyBelow) {
                 reserveBound = Math.max(reserveBound, belowCut);
-            } else if (outside > 0) {
-                reserveBound = Math.max(reserveBound, Double.NEGATIVE_INFINITY); // only -∞ bounds lie outside
             }
         }
         int[] chosen = Arrays.copyOf(formed, formedCount);
