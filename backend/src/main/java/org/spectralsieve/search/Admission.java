@@ -27,6 +27,20 @@ final class Admission {
         return materialClass == null || materialClass.equals(m.materialClass().label());
     }
 
+    /** The material's part of {@link #admits} for each class label, in the labels' order. */
+    boolean[] classes(String[] labels) {
+        boolean[] out = new boolean[labels.length];
+        for (int c = 0; c < labels.length; c++) {
+            out[c] = materialClass == null || materialClass.equals(labels[c]);
+        }
+        return out;
+    }
+
+    /** The sample's part of {@link #admits}, by its geometry's ordinal. */
+    boolean geometry(int ordinal) {
+        return byGeometry[ordinal];
+    }
+
     /** The sample's part of {@link #admits}. */
     boolean geometry(SampleInfo s) {
         return geometry(s.geometry());

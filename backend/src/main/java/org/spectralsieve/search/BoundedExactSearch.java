@@ -89,6 +89,18 @@ final class BoundedExactSearch {
      * rest the way before, only so a benchmark can time both ways (the same answers; docs/weighted-screening.md).
      */
     boolean rowArrays = !"false".equals(System.getProperty("sieve.search.row-arrays"));
+    /**
+     * Whether, as measured without a layer over the whole library, the contenders and the reserve are formed by the
+     * sweep over the snapshot index's slots ({@link SlotSweep}) and the first bounds read in the weighted screen's own
+     * array where no other screen bounded anything ({@link FirstBounds#screenAlone});
+     * {@code -Dsieve.search.slot-sweep=false} keeps the eleventh pass's loop and arrays, only so a benchmark can time
+     * both ways (the same answers; docs/weighted-screening.md, "The service as measured at a million curves").
+     */
+    boolean slotSweep = !"false".equals(System.getProperty("sieve.search.slot-sweep"));
+    /** Materials from which the sweep runs in two halves when judging in parallel ({@link SlotSweep#PARALLEL_FROM}; tests lower it). */
+    int sweepInTwoFrom = SlotSweep.PARALLEL_FROM;
+    /** {@link #searchExactly}'s {@code within} for the whole library: the sweep serves only it. */
+    static final Predicate<Material> EVERY_MATERIAL = m -> true;
     /** How requirements the store cannot rank are judged ({@link #searchExactly}); other ways for benchmarks and tests. */
     Judging judging = Judging.BOUNDED_PARALLEL;
     /** Contenders from which the judgement runs in parallel ({@link BoundedJudgement#PARALLEL_FROM}; tests lower it). */
@@ -135,15 +147,19 @@ final class BoundedExactSearch {
         // lie below the cut waits in a reserve, formed only if the judging loop reaches it (BoundedJudgement.Reserve).
         // Not behind a layer: there the figure codes are not read, and the bins' looser bounds mostly reach the reserve
         boolean deferrable = bySample && spec.kind() == ThicknessSpec.Kind.AS_MEASURED && layer.isEmpty() && contenderReserve;
+        // over the whole library the sweep over the index's slots forms the same contenders and reserve without a
+        // record or an object per material (SlotSweep); else the loop below, the eleventh pass's
+        boolean swept = slotSweep && rowArrays && deferrable && within == EVERY_MATERIAL;
+        int deferring = deferrable && !swept ? s.materials().size() : 0;
         // by row sized for every material at once: at a million curves a third of a million are deferred, and growing
         // the lists copied them over and over
-        List<Material> deferred = new ArrayList<>(rowArrays && deferrable ? s.materials().size() : 10);
-        List<Boolean> deferredRegular = new ArrayList<>(rowArrays && deferrable ? s.materials().size() : 10);
-        double[] deferredBound = deferrable ? new double[s.materials().size()] : null;
+        List<Material> deferred = new ArrayList<>(rowArrays && deferring > 0 ? deferring : 10);
+        List<Boolean> deferredRegular = new ArrayList<>(rowArrays && deferring > 0 ? deferring : 10);
+        double[] deferredBound = deferrable ? new double[deferring] : null;
         // by row: each deferred material's made thicknesses, as the snapshot formed them
-        MadeThicknesses[] deferredMade = deferrable ? new MadeThicknesses[s.materials().size()] : null;
+        MadeThicknesses[] deferredMade = deferrable ? new MadeThicknesses[deferring] : null;
         // each deferred material's first slot in the snapshot's index (by row only: the maps read no rows)
-        int[] deferredSlot = deferrable ? new int[s.materials().size()] : null;
+        int[] deferredSlot = deferrable ? new int[deferring] : null;
         int admitted = 0;
         // by row: the snapshot's materials in the order of the store's rows, so the bounds by row are read nearly in
         // sequence; by sample id: sorted by id per search, as before. The order contenders are formed in does not
@@ -153,7 +169,18 @@ final class BoundedExactSearch {
         SnapshotIndex.Slots slots = rowArrays ? s.index().slots() : null;
         List<Material> inOrder = rowArrays ? slots.materials
                 : s.materials().values().stream().sorted(Comparator.comparingLong(Material::id)).toList();
-        for (int mi = 0; mi < inOrder.size(); mi++) {
+        BoundedJudgement.Reserve reserve = null;
+        int inReserve = 0;
+        if (swept) {
+            SlotSweep.Formed formed = SlotSweep.form(slots, firstBounds, admission, grouped,
+                    reserveCut > 0 ? reserveCut : reserveAfter + 4 * limit,
+                    judging == Judging.BOUNDED_PARALLEL ? sweepInTwoFrom : Integer.MAX_VALUE);
+            contenders.addAll(formed.contenders());
+            reserve = formed.reserve();
+            inReserve = formed.inReserve();
+            admitted = formed.admitted();
+        }
+        for (int mi = 0; !swept && mi < inOrder.size(); mi++) {
             Material material = inOrder.get(mi);
             if (!within.test(material)) {
                 continue;
@@ -223,8 +250,6 @@ final class BoundedExactSearch {
                         allMiss && madeFor(s, spec, material), regular));
             }
         }
-        BoundedJudgement.Reserve reserve = null;
-        int inReserve = 0;
         if (!deferred.isEmpty()) {
             // materials above the cut are formed now, the others on demand: the cut leaves room for every row to be
             // judged several times over before the loop could reach the reserve

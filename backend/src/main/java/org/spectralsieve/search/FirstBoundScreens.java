@@ -56,6 +56,13 @@ final class FirstBoundScreens {
      * only so a benchmark can time the rule before them side by side ({@link SearchService#withEarlierLayerBounds}).
      */
     boolean weightedLayerBlocks = true;
+    /**
+     * Whether {@link #boundsByRow} reads the weighted screen's array in place where no other screen bounded anything
+     * ({@link FirstBounds#screenAlone}); off: copied into the two arrays of {@link FirstBounds#byRow}, the eleventh
+     * pass's way ({@code -Dsieve.search.slot-sweep=false}, with the slot sweep: {@link SearchService#withSlotSweep});
+     * the same values either way.
+     */
+    boolean screenAloneInPlace = !"false".equals(System.getProperty("sieve.search.slot-sweep"));
 
     /**
      * The search's first bounds kept in maps keyed by sample id, the way before the eleventh pass
@@ -108,6 +115,87 @@ final class FirstBoundScreens {
      */
     FirstBounds boundsByRow(Snapshot s, Requirement requirement, Optional<StackLayer> layer,
                                     boolean diffuseLayer, WeightedMisses.SecondStage[] second) {
+        if (screenAloneInPlace && screenWeighted && !earlierWeightedScreen) {
+            return boundsInPlace(s, requirement, layer, diffuseLayer, second);
+        }
+        return boundsCopiedByRow(s, requirement, layer, diffuseLayer, second);
+    }
+
+    /**
+     * {@link #boundsByRow} where the weighted screen runs: the every-point and layer-block screens first, into a
+     * proven-miss array formed only when one of them bounds a row; when none did, the weighted screen's own array read
+     * in place ({@link FirstBounds#screenAlone}), else the same two arrays as {@link #boundsCopiedByRow} with the same
+     * values (the minimum of the same bounds, taken in the same order).
+     */
+    private FirstBounds boundsInPlace(Snapshot s, Requirement requirement, Optional<StackLayer> layer,
+                                      boolean diffuseLayer, WeightedMisses.SecondStage[] second) {
+        SpectralStore store = s.store();
+        double[][] missOrNull = new double[1][];
+        RowBound lower = (curve, bound) -> {
+            double[] miss = missOrNull[0];
+            if (miss == null) {
+                miss = new double[store.size()];
+                Arrays.fill(miss, Double.NaN);
+                missOrNull[0] = miss;
+            }
+            miss[curve] = Double.isNaN(miss[curve]) ? bound : Math.min(miss[curve], bound);
+        };
+        provenMisses(s, requirement, layer, lower);
+        if (screenLayerBlocks) {
+            layer.ifPresent(l -> addLayerBlockMisses(store, requirement, l, lower));
+        }
+        WeightedMisses.Screen screen = WeightedMisses.screen(store, requirement, layer, diffuseLayer, weightedLayerBlocks);
+        second[0] = screen.secondStage();
+        double[] bounds = screen.bounds();
+        int[] unusableRows = unusableRows(s);
+        if (missOrNull[0] == null && bounds.length == store.size()) {
+            return FirstBounds.screenAlone(bounds, unusableRows);
+        }
+        double[] miss = missOrNull[0];
+        if (miss == null) {
+            miss = new double[store.size()];
+            Arrays.fill(miss, Double.NaN);
+        }
+        double[] margin = new double[store.size()];
+        Arrays.fill(margin, Double.NaN);
+        int margins = 0;
+        for (int curve = 0; curve < bounds.length; curve++) {
+            double b = bounds[curve];
+            if (b < 0) {
+                miss[curve] = Double.isNaN(miss[curve]) ? b : Math.min(miss[curve], b);
+            }
+            if (b < Double.POSITIVE_INFINITY) {
+                margin[curve] = b;
+            }
+        }
+        for (int row : unusableRows) {
+            miss[row] = Double.NaN;
+            margin[row] = Double.NaN;
+        }
+        for (double b : margin) {
+            margins += Double.isNaN(b) ? 0 : 1;
+        }
+        return FirstBounds.byRow(miss, margin, margins);
+    }
+
+    /** The store rows of the snapshot's samples whose records fail today's checks (no screen's bound speaks for them). */
+    private static int[] unusableRows(Snapshot s) {
+        int[] rows = new int[s.unusable().size()];
+        int n = 0;
+        for (long id : s.unusable()) {
+            SampleInfo sample = s.samples().get(id);
+            Material material = sample == null ? null : s.materials().get(sample.materialId());
+            int row = material == null ? -1 : s.index().rowOf(material, id);
+            if (row >= 0) {
+                rows[n++] = row;
+            }
+        }
+        return Arrays.copyOf(rows, n);
+    }
+
+    /** {@link #boundsByRow} the eleventh pass's way: every bound copied into two arrays by row. */
+    private FirstBounds boundsCopiedByRow(Snapshot s, Requirement requirement, Optional<StackLayer> layer,
+                                          boolean diffuseLayer, WeightedMisses.SecondStage[] second) {
         SpectralStore store = s.store();
         double[] miss = new double[store.size()];
         Arrays.fill(miss, Double.NaN);

@@ -229,6 +229,23 @@ public class SearchService {
         return this;
     }
 
+    /**
+     * The same service with the twelfth pass's sweep over the index's slots and the screen's bounds read in place
+     * ({@code on}, the default) or the eleventh pass's loop and arrays: benchmarks and tests
+     * ({@code -Dsieve.search.slot-sweep=false}; docs/weighted-screening.md, "The service as measured at a million curves").
+     */
+    SearchService withSlotSweep(boolean on) {
+        exact.slotSweep = on;
+        screens.screenAloneInPlace = on;
+        return this;
+    }
+
+    /** The same service sweeping the slots in two halves from this many materials on (tests: a small library's). */
+    SearchService sweepInTwoFrom(int materials) {
+        exact.sweepInTwoFrom = materials;
+        return this;
+    }
+
     /** The same service with a reserve after this many materials beyond four per row (tests: a small library's reserve). */
     SearchService reserveAfter(int materials) {
         exact.reserveAfter = materials;

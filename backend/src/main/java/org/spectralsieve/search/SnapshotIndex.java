@@ -2,6 +2,7 @@ package org.spectralsieve.search;
 
 import java.util.Arrays;
 import java.util.Comparator;
+import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Objects;
@@ -87,6 +88,15 @@ final class SnapshotIndex {
         final int[] rowBySlot;
         final long[] sampleIdBySlot;
         final Geometry[] geometryBySlot;
+        /** Each slot's geometry as its ordinal, for a sweep over every slot that reads a byte, not a reference. */
+        final byte[] geometryOrdinalBySlot;
+        /** Material {@code i}'s class as an index into {@link #classLabels} (a library holds a handful of classes). */
+        final int[] classOf;
+        final String[] classLabels;
+        /** Whether material {@code i} has a sample measured in regular geometry. */
+        final boolean[] hasRegular;
+        /** Whether every slot's store row is the slot itself (the store holds the samples in the materials' order). */
+        final boolean slotIsRow;
         final MadeThicknesses[] made;
         /** The material ids sorted, and the index in {@link #materials} of each. */
         final long[] sortedIds;
@@ -105,6 +115,7 @@ final class SnapshotIndex {
             rowBySlot = new int[firstSlot[n]];
             sampleIdBySlot = new long[rowBySlot.length];
             geometryBySlot = new Geometry[rowBySlot.length];
+            geometryOrdinalBySlot = new byte[rowBySlot.length];
             Rows rows = new Rows(store);
             for (int i = 0; i < n; i++) {
                 List<SampleInfo> samples = materials.get(i).samples();
@@ -113,8 +124,26 @@ final class SnapshotIndex {
                     rowBySlot[firstSlot[i] + k] = rows.rowOf(sample.id());
                     sampleIdBySlot[firstSlot[i] + k] = sample.id();
                     geometryBySlot[firstSlot[i] + k] = sample.geometry();
+                    geometryOrdinalBySlot[firstSlot[i] + k] = (byte) sample.geometry().ordinal();
                 }
             }
+            classOf = new int[n];
+            Map<String, Integer> classes = new LinkedHashMap<>();
+            for (int i = 0; i < n; i++) {
+                classOf[i] = classes.computeIfAbsent(materials.get(i).materialClass().label(), label -> classes.size());
+            }
+            classLabels = classes.keySet().toArray(new String[0]);
+            hasRegular = new boolean[n];
+            for (int i = 0; i < n; i++) {
+                for (int slot = firstSlot[i]; slot < firstSlot[i + 1]; slot++) {
+                    hasRegular[i] |= geometryBySlot[slot] == Geometry.REGULAR;
+                }
+            }
+            boolean inOrder = true;
+            for (int slot = 0; slot < rowBySlot.length && inOrder; slot++) {
+                inOrder = rowBySlot[slot] == slot;
+            }
+            slotIsRow = inOrder;
             Integer[] byId = new Integer[n];
             for (int i = 0; i < n; i++) {
                 byId[i] = i;

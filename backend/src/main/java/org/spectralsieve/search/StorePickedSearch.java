@@ -55,7 +55,7 @@ final class StorePickedSearch {
         if (!requirement.plain() || requirement.asksConfidence() || hasMeanClause(requirement)
                 || StoreSearch.readsBetweenGridPoints(s.store(), requirement)
                 || StoreSearch.blocksAtTheCodeCeiling(s.store(), requirement)) {
-            return exact.searchExactly(s, requirement, limit, started, m -> true);
+            return exact.searchExactly(s, requirement, limit, started, BoundedExactSearch.EVERY_MATERIAL);
         }
         StoreResult picked = StoreSearch.search(s.store(), requirement, limit);
         // material id → one of its store curves (to find its samples' ceilings), NO_CURVE: judged whole

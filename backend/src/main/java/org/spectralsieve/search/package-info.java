@@ -23,7 +23,9 @@
  * bounded by those first bounds (contenders, settled rows, the reserve, second bounds on a contender's own curve;
  * the rows settled by thickness in {@link org.spectralsieve.search.SettledRows}), over
  * {@link org.spectralsieve.search.BoundedJudgement}'s loop; {@link org.spectralsieve.search.EarlierExactSearch}: the
- * loop before it, the reference benchmarks and equivalence tests run beside it;</li>
+ * loop before it, the reference benchmarks and equivalence tests run beside it; as measured over the whole library
+ * the contenders and the reserve come from {@link org.spectralsieve.search.SlotSweep}, a sweep over the snapshot
+ * index's slots, with {@link org.spectralsieve.search.ReserveCut} choosing what is formed before the reserve;</li>
  * <li>{@link org.spectralsieve.search.DiffuseLastRanking}: the ranking with total-geometry rows after the regular
  * ones where a see-through clause asks; {@link org.spectralsieve.search.RowDecoration}: the geometry, measured
  * thickness and revisions shown beside each row.</li>

@@ -168,6 +168,11 @@ class BoundedJudgementPropertyTest {
 
     /** Synthetic curves as library samples, three per material, two materials in three bulk, the third fixed. */
     static void addSynthetic(JooqLibraryRepository library, int n, long seed) {
+        addSynthetic(library, n, seed, m -> false);
+    }
+
+    /** {@link #addSynthetic(JooqLibraryRepository, int, long)} with the samples of material m in total geometry where asked. */
+    static void addSynthetic(JooqLibraryRepository library, int n, long seed, java.util.function.IntPredicate totalGeometry) {
         SyntheticCurves specs = new SyntheticCurves(seed, SpectralStore.DEFAULT_GRID);
         SpectralStore.Builder builder = SpectralStore.builder(SpectralStore.DEFAULT_GRID, n);
         SyntheticCurves.Spec[] all = new SyntheticCurves.Spec[n];
@@ -188,7 +193,8 @@ class BoundedJudgementPropertyTest {
                         new StatedThicknesses(List.of(), Double.NaN, Double.NaN)));
             }
             byte[] bytes = ("bounded synthetic " + i).getBytes(StandardCharsets.UTF_8);
-            library.insertSample(material, new NewSample(store.thicknessMm(i), Geometry.REGULAR, Provenance.MODELLED,
+            library.insertSample(material, new NewSample(store.thicknessMm(i),
+                    totalGeometry.test(i / 3) ? Geometry.TOTAL : Geometry.REGULAR, Provenance.MODELLED,
                     "", null, "", "", 1e-3, store.curve(i), "synthetic.csv", Checksums.sha256(bytes)));
         }
     }

@@ -65,6 +65,104 @@ class RowArraysEquivalenceTest {
         assertThat(judgedSome).isGreaterThan(8);
     }
 
+    /**
+     * Property: as measured over the whole library, the sweep over the snapshot index's slots with the screen's bounds
+     * read in place ({@link SlotSweep}, {@link FirstBounds#screenAlone}: the default) forms the same contenders and
+     * reserve as the eleventh pass's loop ({@code -Dsieve.search.slot-sweep=false}): the same rows as judging every
+     * admitted sample, the same admitted count, the same count of judged samples on one thread (a contender or
+     * reserve bound that differed would change which samples are judged), also with the sweep in two halves on two
+     * threads. Random weighted requirements as measured — some with an every-point clause (the bounds then copied by
+     * row), a class of the demo library, geometry any (diffuse rows then compete: the regular flags), a small reserve
+     * cut (the reserve is formed or left out) — on the demo library plus the illustrative Fernhollow stock.
+     */
+    @Test
+    void theSlotSweepFormsTheContendersOfTheLoopBeforeIt() {
+        Random random = new Random(20261206L);
+        List<Material> materials = library.findMaterials(null, null);
+        SearchService sweep = new SearchService(library).withSlotSweep(true)
+                .judging(SearchService.Judging.BOUNDED).reserveAfter(4);
+        SearchService loop = new SearchService(library).withSlotSweep(false)
+                .judging(SearchService.Judging.BOUNDED).reserveAfter(4);
+        SearchService sweepInTwo = new SearchService(library).withSlotSweep(true).parallelFrom(0).sweepInTwoFrom(0)
+                .reserveAfter(4);
+        String[] classes = {"plastic sheet", "window glass", "film", "fused silica"};
+        long sweeps = SlotSweep.SWEEPS.get();
+        long inTwo = SlotSweep.SWEEPS_IN_TWO.get();
+        long reserves = BoundedJudgement.RESERVES_FORMED.get() + BoundedJudgement.RESERVES_LEFT.get();
+        int leftOut = 0;
+        for (int trial = 0; trial < 30; trial++) {
+            String text = randomRequirement(random, 0).replace(", geometry any", "")
+                    + (random.nextInt(4) == 0 ? ", class " + classes[random.nextInt(classes.length)] : "")
+                    + (random.nextInt(3) == 0 ? ", geometry any" : "");
+            text = text.replace(", behind 4 mm clear float glass", ""); // as measured without a layer: the sweep's case
+            Requirement requirement = RequirementParser.parse(text);
+            int limit = new int[] {1, 3, 5, 10, 20}[random.nextInt(5)];
+            Shortlist swept = sweep.search(requirement, limit);
+            Shortlist before = loop.search(requirement, limit);
+            List<RankedRow> expected = ExactReference.judgeEverySample(library, requirement, swept.layer(), materials, limit);
+
+            assertThat(swept.rows()).as(text + " swept (limit " + limit + ")").containsExactlyElementsOf(expected);
+            assertThat(before.rows()).as(text + " the loop before").containsExactlyElementsOf(expected);
+            assertThat(swept.evaluatedSamples()).as(text + ": the same admitted samples").isEqualTo(before.evaluatedSamples());
+            assertThat(swept.judgedExactly()).as(text + ": the same contenders judge the same samples")
+                    .isEqualTo(before.judgedExactly());
+            assertThat(sweepInTwo.search(requirement, limit).rows()).as(text + " swept in two halves")
+                    .containsExactlyElementsOf(expected);
+            leftOut += swept.judgedExactly() < swept.evaluatedSamples() ? 1 : 0;
+        }
+        // not vacuous: the sweep served every search, in two halves too, reserves were reached, and samples left out
+        assertThat(SlotSweep.SWEEPS.get() - sweeps).isGreaterThanOrEqualTo(60);
+        assertThat(SlotSweep.SWEEPS_IN_TWO.get() - inTwo).isGreaterThanOrEqualTo(30);
+        assertThat(BoundedJudgement.RESERVES_FORMED.get() + BoundedJudgement.RESERVES_LEFT.get() - reserves).isGreaterThan(10);
+        assertThat(leftOut).isGreaterThan(15);
+    }
+
+    /**
+     * Property: the same as {@link #theSlotSweepFormsTheContendersOfTheLoopBeforeIt} where diffuse rows are ranked apart
+     * and decide the answer: the demo library plus the illustrative Fernhollow stock with every other synthetic
+     * material measured in total geometry, and requirements with a luminous clause (a see-through figure: total rows
+     * go after the regular ones), so whether a swept material has a regular sample decides which rows it competes
+     * with: the same rows as judging every sample and, on one thread, the same judged count as the loop before.
+     */
+    @Test
+    void theSlotSweepKeepsWhichMaterialsCompeteWithTheRegularRows() {
+        JooqLibraryRepository mixed = demoLibraryWithDiffuseStock();
+        Random random = new Random(20261208L);
+        List<Material> materials = mixed.findMaterials(null, null);
+        SearchService sweep = new SearchService(mixed).withSlotSweep(true)
+                .judging(SearchService.Judging.BOUNDED).reserveAfter(4);
+        SearchService loop = new SearchService(mixed).withSlotSweep(false)
+                .judging(SearchService.Judging.BOUNDED).reserveAfter(4);
+        int leftOut = 0;
+        for (int trial = 0; trial < 20; trial++) {
+            String text = "passes over " + percent(40 + 45 * random.nextDouble()) + " of led "
+                    + new String[] {"365", "385", "405"}[random.nextInt(3)] + " and luminous over "
+                    + percent(10 + 60 * random.nextDouble());
+            Requirement requirement = RequirementParser.parse(text);
+            int limit = new int[] {5, 10, 20, 40}[random.nextInt(4)];
+            Shortlist swept = sweep.search(requirement, limit);
+            List<RankedRow> expected = ExactReference.judgeEverySample(mixed, requirement, swept.layer(), materials, limit);
+
+            Shortlist before = loop.search(requirement, limit);
+            assertThat(swept.rows()).as(text + " swept (limit " + limit + ")").containsExactlyElementsOf(expected);
+            assertThat(before.rows()).as(text + " the loop before").containsExactlyElementsOf(expected);
+            assertThat(swept.judgedExactly()).as(text + ": the same contenders judge the same samples")
+                    .isEqualTo(before.judgedExactly());
+            leftOut += swept.judgedExactly() < swept.evaluatedSamples() ? 1 : 0;
+        }
+        // not vacuous: the bounds left samples out, so which rows a contender competes with decided work
+        assertThat(leftOut).isGreaterThan(10);
+    }
+
+    private static JooqLibraryRepository demoLibraryWithDiffuseStock() {
+        org.jooq.DSLContext db = org.spectralsieve.library.MigratedDatabase.freshH2();
+        JooqLibraryRepository repository = new JooqLibraryRepository(db);
+        new org.spectralsieve.seed.DemoLibraryLoader(repository, db, new org.springframework.core.io.DefaultResourceLoader(),
+                "classpath:seed-materials/").load();
+        BoundedJudgementPropertyTest.addSynthetic(repository, SYNTHETIC_CURVES, 20261208L, m -> m % 2 == 1);
+        return repository;
+    }
+
     private static String randomRequirement(Random random, int trial) {
         String clauses = "passes over " + percent(55 + 35 * random.nextDouble()) + " of led "
                 + new String[] {"365", "385", "405"}[random.nextInt(3)];
