@@ -139,6 +139,14 @@ class CodeBoundsOverThicknessPropertyTest {
         assertThat(checked).isGreaterThan(10_000);
     }
 
+    /** A random requirement solved over a random range from 0.3–3.3 mm up to nine times its lower end. */
+    private static Requirement randomSolvedRequirement(Random random) {
+        double lo = 0.3 + 3 * random.nextDouble();
+        double hi = lo * (1 + 8 * random.nextDouble());
+        return RequirementParser.parse(randomRequirement(random)
+                + String.format(Locale.ROOT, ", thickness %.3f to %.3f mm", lo, hi));
+    }
+
     @Test
     void aSolvedSampleBoundHoldsItsExactWorstMarginAtEveryThicknessOfTheRange() {
         Random random = new Random(20261212L);
@@ -147,10 +155,7 @@ class CodeBoundsOverThicknessPropertyTest {
         int checked = 0;
         int tighter = 0;
         for (int trial = 0; trial < 14; trial++) {
-            double lo = 0.3 + 3 * random.nextDouble();
-            double hi = lo * (1 + 8 * random.nextDouble());
-            Requirement requirement = RequirementParser.parse(randomRequirement(random)
-                    + String.format(Locale.ROOT, ", thickness %.3f to %.3f mm", lo, hi));
+            Requirement requirement = randomSolvedRequirement(random);
             double[] first = WeightedMisses.marginBounds(store, requirement, Optional.empty(), false);
             double[] before = withoutCodes(() -> WeightedMisses.marginBounds(store, requirement, Optional.empty(), false));
             WeightedMisses.SecondStage second = WeightedMisses.secondStage(store, requirement, Optional.empty(), false, true);
@@ -193,10 +198,7 @@ class CodeBoundsOverThicknessPropertyTest {
         int looser = 0;
         int checked = 0;
         for (int trial = 0; trial < 10; trial++) {
-            double lo = 0.3 + 3 * random.nextDouble();
-            double hi = lo * (1 + 8 * random.nextDouble());
-            Requirement requirement = RequirementParser.parse(randomRequirement(random)
-                    + String.format(Locale.ROOT, ", thickness %.3f to %.3f mm", lo, hi));
+            Requirement requirement = randomSolvedRequirement(random);
             double[] full = WeightedMisses.marginBounds(store, requirement, Optional.empty(), false);
             WeightedMisses.DeferredBins lazy = WeightedMisses.screenWithBinsDeferred(store, requirement);
             double[] codesOnly = lazy.bounds().clone();
@@ -210,8 +212,8 @@ class CodeBoundsOverThicknessPropertyTest {
                 deferred++;
                 looser += codesOnly[c] > full[c] + 1e-3 ? 1 : 0;
                 assertThat(codesOnly[c]).as("deferred, never below the full bound, " + what).isGreaterThanOrEqualTo(full[c]);
-                double lnLo = Math.log(lo);
-                double lnHi = Math.log(hi);
+                double lnLo = Math.log(requirement.thickness().minMm());
+                double lnHi = Math.log(requirement.thickness().maxMm());
                 for (int j = 0; j <= 12; j++) {
                     double d = Math.exp(lnLo + (lnHi - lnLo) * j / 12);
                     double worst = exactWorstMargin(stock, c, d, requirement);

@@ -634,17 +634,7 @@ class StoreWeightedBenchmark {
                 break;
             }
             readNow += deferredBins.readInFull(above, aboveCount);
-            for (int i = 0; i < aboveCount; i++) {
-                int m = above[i] / 3;
-                if (!full[m]) {
-                    full[m] = true;
-                    double bound = Double.NEGATIVE_INFINITY;
-                    for (int c = 3 * m; c < Math.min(size, 3 * m + 3); c++) {
-                        bound = Math.max(bound, firstBound(bounds, c));
-                    }
-                    largest[m] = bound;
-                }
-            }
+            markReadInFull(above, aboveCount, full, largest, bounds, size);
         }
         double roundsMs = (System.nanoTime() - r0) / 1e6;
         int proven = 0;
@@ -743,17 +733,7 @@ class StoreWeightedBenchmark {
             }
         }
         int read = deferredBins.readInFull(curves, n);
-        for (int i = 0; i < n; i++) {
-            int m = curves[i] / 3;
-            if (!full[m]) {
-                full[m] = true;
-                double bound = Double.NEGATIVE_INFINITY;
-                for (int c = 3 * m; c < Math.min(size, 3 * m + 3); c++) {
-                    bound = Math.max(bound, firstBound(bounds, c));
-                }
-                largest[m] = bound;
-            }
-        }
+        markReadInFull(curves, n, full, largest, bounds, size);
         return read;
     }
 
@@ -837,6 +817,24 @@ class StoreWeightedBenchmark {
             double margin = c < bounds.length && !Double.isNaN(bounds[c]) ? bounds[c] : Double.POSITIVE_INFINITY;
             out.add(new BoundedJudgement.Contender(material(m, first), margin, margin < 0 && made,
                     false, false, Double.POSITIVE_INFINITY, store.sampleId(c)));
+        }
+    }
+
+    /**
+     * After {@code curves[0, n)} were read in full: each of their materials (rows of three) not yet marked gets the
+     * largest of its rows' full bounds and is marked.
+     */
+    private static void markReadInFull(int[] curves, int n, boolean[] full, double[] largest, double[] bounds, int size) {
+        for (int i = 0; i < n; i++) {
+            int m = curves[i] / 3;
+            if (!full[m]) {
+                full[m] = true;
+                double bound = Double.NEGATIVE_INFINITY;
+                for (int c = 3 * m; c < Math.min(size, 3 * m + 3); c++) {
+                    bound = Math.max(bound, firstBound(bounds, c));
+                }
+                largest[m] = bound;
+            }
         }
     }
 
