@@ -215,14 +215,19 @@ public final class MaterialJudge {
             }
         }
         List<MaterialEvaluation> out = new ArrayList<>();
+        // the advice depends on the row only through its interval: formed once per interval, not once per sample (a
+        // material grown to hundreds of samples would otherwise gather every stock fit once per sample)
+        java.util.Map<java.util.Optional<ThicknessInterval>, StockAdvice> adviceByWhole = new java.util.HashMap<>();
         for (MaterialEvaluation e : evaluations) {
             ThicknessInterval own = e.evaluation().feasibleMm();
             ThicknessInterval whole = own == null ? null : joined.stream()
                     .filter(j -> j.loMm() <= own.loMm() && j.hiMm() >= own.hiMm()).findFirst().orElse(own);
-            ThicknessInterval nearest = whole != null ? whole : joined.isEmpty() ? null : joined.get(0);
-            // the pieces other samples give: a stock size met on one of them lies outside this row's interval
-            List<ThicknessInterval> elsewhere = joined.stream().filter(j -> !j.equals(whole)).toList();
-            StockAdvice advice = SampleEvaluator.advise(fits, nearest).withElsewhere(elsewhere);
+            StockAdvice advice = adviceByWhole.computeIfAbsent(java.util.Optional.ofNullable(whole), w -> {
+                ThicknessInterval nearest = whole != null ? whole : joined.isEmpty() ? null : joined.get(0);
+                // the pieces other samples give: a stock size met on one of them lies outside this row's interval
+                List<ThicknessInterval> elsewhere = joined.stream().filter(j -> !j.equals(whole)).toList();
+                return SampleEvaluator.advise(fits, nearest).withElsewhere(elsewhere);
+            });
             out.add(new MaterialEvaluation(e.materialId(), e.materialName(),
                     e.evaluation().withThicknessAdvice(whole, advice)));
         }
