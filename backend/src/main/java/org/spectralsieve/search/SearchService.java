@@ -240,6 +240,16 @@ public class SearchService {
         return this;
     }
 
+    /**
+     * The same service with a solve's bins left unread where the figure codes prove no miss, read in full for the
+     * contenders formed ({@code on}, the default), or every curve's bins read by the screen: benchmarks and tests
+     * ({@code -Dsieve.search.deferred-bins=false}; docs/weighted-screening.md, "Wired into the service").
+     */
+    SearchService withDeferredBins(boolean on) {
+        screens.deferredBins = on;
+        return this;
+    }
+
     /** The same service sweeping the slots in two halves from this many materials on (tests: a small library's). */
     SearchService sweepInTwoFrom(int materials) {
         exact.sweepInTwoFrom = materials;
