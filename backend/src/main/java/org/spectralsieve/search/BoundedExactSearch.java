@@ -370,8 +370,9 @@ final class BoundedExactSearch {
     /**
      * The contenders of a solve's materials whose rows the screen left partly unread ({@link BinsDeferred}), each with
      * the very bound and proven-miss flag the screen read in full gives it (docs/weighted-screening.md, "Wired into the
-     * service"): F is the {@code cut}-th largest bound of the contenders formed so far (full bounds); a material whose
-     * codes' bound (at least its full one) reaches F, or is no number, is read in full and formed now, the others wait
+     * service"): the materials with the {@code 4·cut} largest codes' bounds (or no number) are read in full and formed
+     * first; F is then the {@code cut}-th largest bound of every contender formed (full bounds); a material whose
+     * codes' bound (at least its full one) reaches F is read in full and formed now, the others wait
      * in a {@link BoundedJudgement.Reserve} whose bound is the largest of their codes' bounds and which reads them in
      * full only if the loop forms it. The reserve's contract makes the judged contenders and their order those of every
      * contender formed at the start with its full bound, whatever F is; F only chooses how many are read now.
@@ -383,6 +384,19 @@ final class BoundedExactSearch {
                                                       Map<Long, Set<Long>> judgedOf, Admission admission,
                                                       boolean grouped, List<BoundedJudgement.Contender> contenders,
                                                       int cut) {
+        // first the 4·cut largest codes' bounds, read in full: their full bounds can only raise F, so fewer are read
+        // after (a k-th largest of more numbers is no smaller)
+        double firstAt = BoundedJudgement.kthLargest(waiting.codesBound, waiting.count, 4 * cut);
+        int[] first = new int[waiting.count];
+        int firstCount = 0;
+        for (int i = 0; i < waiting.count; i++) {
+            double b = waiting.codesBound[i];
+            if (!Double.isFinite(b) || b >= firstAt) {
+                first[firstCount++] = i;
+            }
+        }
+        contenders.addAll(readInFullAndForm(s, requirement, waiting, first, firstCount, unread, firstBounds, judgedOf,
+                admission));
         double[] formedBounds = new double[contenders.size()];
         for (int i = 0; i < formedBounds.length; i++) {
             formedBounds[i] = contenders.get(i).bound();
@@ -394,7 +408,10 @@ final class BoundedExactSearch {
         double reserveBound = Double.NEGATIVE_INFINITY;
         for (int i = 0; i < waiting.count; i++) {
             double b = waiting.codesBound[i];
-            if (!Double.isFinite(b) || b >= atLeast) {
+            if (!Double.isFinite(b) || b >= firstAt) {
+                continue; // formed above
+            }
+            if (b >= atLeast) {
                 now[nowCount++] = i;
             } else {
                 later[waiting.inReserve++] = i;
