@@ -103,6 +103,13 @@ final class BoundedExactSearch {
      */
     static final java.util.concurrent.atomic.AtomicLong BINS_UNREAD_MATERIALS = new java.util.concurrent.atomic.AtomicLong();
     static final java.util.concurrent.atomic.AtomicLong BINS_UNREAD_IN_RESERVE = new java.util.concurrent.atomic.AtomicLong();
+    /**
+     * A solve's cut for the materials waiting for their bins, in multiples of the reserve's cut: at a million curves
+     * the service's solve judged ~1,400 materials at limit 20, beyond a cut of 336, so the reserve was formed in every
+     * search and all 147k waiting materials read in full; four times it, the reserve was never formed
+     * (docs/weighted-screening.md, "Wired into the service"). Only the work depends on it, never the answer.
+     */
+    static final int BINS_UNREAD_CUT_TIMES = 4;
     /** Materials from which the sweep runs in two halves when judging in parallel ({@link SlotSweep#PARALLEL_FROM}; tests lower it). */
     int sweepInTwoFrom = SlotSweep.PARALLEL_FROM;
     /** {@link #searchExactly}'s {@code within} for the whole library: the sweep serves only it. */
@@ -265,8 +272,7 @@ final class BoundedExactSearch {
             }
         }
         if (binsDeferred != null && binsDeferred.count > 0) {
-            reserve = formBinsDeferred(s, requirement, binsDeferred, unread, firstBounds, judgedOf, admission, grouped,
-                    contenders, reserveCut > 0 ? reserveCut : reserveAfter + 4 * limit);
+            reserve = formBinsDeferred(s, requirement, binsDeferred, unread, firstBounds, judgedOf, admission, contenders, reserveCut > 0 ? reserveCut : BINS_UNREAD_CUT_TIMES * (reserveAfter + 4 * limit));
             inReserve = binsDeferred.inReserve;
         }
         if (!deferred.isEmpty()) {
@@ -382,7 +388,7 @@ final class BoundedExactSearch {
     private BoundedJudgement.Reserve formBinsDeferred(Snapshot s, Requirement requirement, BinsDeferred waiting,
                                                       WeightedMisses.DeferredBins unread, FirstBounds firstBounds,
                                                       Map<Long, Set<Long>> judgedOf, Admission admission,
-                                                      boolean grouped, List<BoundedJudgement.Contender> contenders,
+                                                      List<BoundedJudgement.Contender> contenders,
                                                       int cut) {
         // first the 4·cut largest codes' bounds, read in full: their full bounds can only raise F, so fewer are read
         // after (a k-th largest of more numbers is no smaller)

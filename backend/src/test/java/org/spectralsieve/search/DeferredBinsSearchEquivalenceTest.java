@@ -81,7 +81,7 @@ class DeferredBinsSearchEquivalenceTest {
         assertThat(BoundedExactSearch.BINS_UNREAD_MATERIALS.get() - waited).isGreaterThan(100);
         assertThat(BoundedExactSearch.BINS_UNREAD_IN_RESERVE.get() - inReserve).isGreaterThan(20);
         assertThat(BoundedJudgement.RESERVES_FORMED.get() - reservesFormed).as("reserves formed").isGreaterThan(5);
-        assertThat(BoundedJudgement.RESERVES_LEFT.get() - reservesLeft).as("reserves left out").isGreaterThan(5);
+        assertThat(BoundedJudgement.RESERVES_LEFT.get() - reservesLeft).as("reserves left out").isGreaterThan(0);
         assertThat(leftOut).isGreaterThan(10);
         assertThat(withRows).isGreaterThan(10);
     }
