@@ -71,6 +71,13 @@ final class FirstBoundScreens {
      * docs/weighted-screening.md, "Wired into the service").
      */
     boolean deferredBins = !"false".equals(System.getProperty("sieve.search.deferred-bins"));
+    /**
+     * Curves from which a solve defers its bins: below it the screen is cheap and reading the waiting curves' bins a
+     * second time, with their per-range tables formed again per search, cost as much as it saved (the demo library and
+     * 10k, docs/benchmarks.md, "Service weighted solve with deferred bins"); 0 with {@link SearchService#withDeferredBins}.
+     */
+    int deferredBinsFrom = DEFERRED_BINS_FROM;
+    static final int DEFERRED_BINS_FROM = 100_000;
 
     /**
      * The search's first bounds kept in maps keyed by sample id, the way before the eleventh pass
@@ -152,7 +159,7 @@ final class FirstBoundScreens {
         if (screenLayerBlocks) {
             layer.ifPresent(l -> addLayerBlockMisses(store, requirement, l, lower));
         }
-        boolean deferring = deferredBins && layer.isEmpty() && missOrNull[0] == null
+        boolean deferring = deferredBins && store.size() >= deferredBinsFrom && layer.isEmpty() && missOrNull[0] == null
                 && requirement.thickness().kind() == ThicknessSpec.Kind.RANGE;
         WeightedMisses.DeferredBins deferredScreen = deferring ? WeightedMisses.screenWithBinsDeferred(store, requirement) : null;
         WeightedMisses.Screen screen = deferring ? null
