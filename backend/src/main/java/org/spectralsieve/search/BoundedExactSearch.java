@@ -272,7 +272,10 @@ final class BoundedExactSearch {
             }
         }
         if (binsDeferred != null && binsDeferred.count > 0) {
-            reserve = formBinsDeferred(s, requirement, binsDeferred, unread, firstBounds, judgedOf, admission, contenders, reserveCut > 0 ? reserveCut : BINS_UNREAD_CUT_TIMES * (reserveAfter + 4 * limit));
+            // a solve over a range: never with the as-measured reserve above (both cannot be formed in one search)
+            int binsCut = reserveCut > 0 ? reserveCut : BINS_UNREAD_CUT_TIMES * (reserveAfter + 4 * limit);
+            reserve = formBinsDeferred(s, requirement, binsDeferred, unread, firstBounds, judgedOf, admission, contenders,
+                    binsCut);
             inReserve = binsDeferred.inReserve;
         }
         if (!deferred.isEmpty()) {
