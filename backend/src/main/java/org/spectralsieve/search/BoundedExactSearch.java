@@ -97,6 +97,19 @@ final class BoundedExactSearch {
      * both ways (the same answers; docs/weighted-screening.md, "The service as measured at a million curves").
      */
     boolean slotSweep = !"false".equals(System.getProperty("sieve.search.slot-sweep"));
+    /**
+     * Materials of a solve that waited for their unread bins, and of those the ones put in a reserve
+     * ({@link #formBinsDeferred}), since the start (tests and benchmarks read them).
+     */
+    static final java.util.concurrent.atomic.AtomicLong BINS_UNREAD_MATERIALS = new java.util.concurrent.atomic.AtomicLong();
+    static final java.util.concurrent.atomic.AtomicLong BINS_UNREAD_IN_RESERVE = new java.util.concurrent.atomic.AtomicLong();
+    /**
+     * A solve's cut for the materials waiting for their bins, in multiples of the reserve's cut: at a million curves
+     * the service's solve judged ~1,400 materials at limit 20, beyond a cut of 336, so the reserve was formed in every
+     * search and all 147k waiting materials read in full; four times it, the reserve was never formed
+     * (docs/weighted-screening.md, "Wired into the service"). Only the work depends on it, never the answer.
+     */
+    static final int BINS_UNREAD_CUT_TIMES = 4;
     /** Materials from which the sweep runs in two halves when judging in parallel ({@link SlotSweep#PARALLEL_FROM}; tests lower it). */
     int sweepInTwoFrom = SlotSweep.PARALLEL_FROM;
     /** {@link #searchExactly}'s {@code within} for the whole library: the sweep serves only it. */
@@ -171,6 +184,10 @@ final class BoundedExactSearch {
                 : s.materials().values().stream().sorted(Comparator.comparingLong(Material::id)).toList();
         BoundedJudgement.Reserve reserve = null;
         int inReserve = 0;
+        // a solve whose screen left bins unread: materials with such a row wait here, by their codes' bound, until
+        // their rows are read in full (formBinsDeferred); none otherwise
+        WeightedMisses.DeferredBins unread = rowArrays ? firstBounds.deferredBins() : null;
+        BinsDeferred binsDeferred = unread == null ? null : new BinsDeferred(s.materials().size());
         if (swept) {
             SlotSweep.Formed formed = SlotSweep.form(slots, firstBounds, admission, grouped,
                     reserveCut > 0 ? reserveCut : reserveAfter + 4 * limit,
@@ -210,6 +227,7 @@ final class BoundedExactSearch {
             double bound = Double.NEGATIVE_INFINITY;
             boolean allMiss = true;
             boolean regular = false;
+            boolean anyUnread = false;
             int count = 0;
             // by row: each sample's id, geometry and row from the index's arrays, its record not read
             List<SampleInfo> samples = rowArrays ? null : material.samples();
@@ -220,6 +238,7 @@ final class BoundedExactSearch {
                 if (rowArrays ? classAdmits && admission.geometry(geometry) : admits(requirement, material, samples.get(k))) {
                     count++;
                     int row = rowArrays ? slots.rowBySlot[firstSlot + k] : -1;
+                    anyUnread |= unread != null && row >= 0 && unread.deferred()[row];
                     allMiss &= !Double.isNaN(firstBounds.miss(sampleId, row));
                     regular |= grouped && geometry == Geometry.REGULAR;
                     if (judgedSamples == null || judgedSamples.contains(sampleId)) {
@@ -245,10 +264,19 @@ final class BoundedExactSearch {
             } else if (count > 0 && settled) {
                 contenders.add(new BoundedJudgement.Contender(material, Double.NEGATIVE_INFINITY, false, regular, true,
                         Double.NEGATIVE_INFINITY, BoundedJudgement.WHOLE_MATERIAL, true));
+            } else if (count > 0 && anyUnread) {
+                binsDeferred.add(mi, bound, regular); // at least the bound its rows read in full give
             } else if (count > 0) {
                 contenders.add(new BoundedJudgement.Contender(material, bound,
                         allMiss && madeFor(s, spec, material), regular));
             }
+        }
+        if (binsDeferred != null && binsDeferred.count > 0) {
+            // a solve over a range: never with the as-measured reserve above (both cannot be formed in one search)
+            int binsCut = reserveCut > 0 ? reserveCut : BINS_UNREAD_CUT_TIMES * (reserveAfter + 4 * limit);
+            reserve = formBinsDeferred(s, requirement, binsDeferred, unread, firstBounds, judgedOf, admission, contenders,
+                    binsCut);
+            inReserve = binsDeferred.inReserve;
         }
         if (!deferred.isEmpty()) {
             // materials above the cut are formed now, the others on demand: the cut leaves room for every row to be
@@ -325,6 +353,140 @@ final class BoundedExactSearch {
         double tookMs = (System.nanoTime() - started) / 1e6;
         return new Shortlist(requirement, rows, admitted, exact.size(), tookMs, layer, geometries(s, rows),
                 revisions(s, rows), measured(s, rows));
+    }
+
+    /** The materials of a solve with a row whose bins the screen left unread, by index in the snapshot's slots. */
+    private static final class BinsDeferred {
+        final int[] material;
+        final double[] codesBound;
+        final boolean[] regular;
+        int count;
+        int inReserve;
+
+        BinsDeferred(int materials) {
+            material = new int[materials];
+            codesBound = new double[materials];
+            regular = new boolean[materials];
+        }
+
+        void add(int mi, double bound, boolean isRegular) {
+            material[count] = mi;
+            codesBound[count] = bound;
+            regular[count++] = isRegular;
+        }
+    }
+
+    /**
+     * The contenders of a solve's materials whose rows the screen left partly unread ({@link BinsDeferred}), each with
+     * the very bound and proven-miss flag the screen read in full gives it (docs/weighted-screening.md, "Wired into the
+     * service"): the materials with the {@code 4·cut} largest codes' bounds (or no number) are read in full and formed
+     * first; F is then the {@code cut}-th largest bound of every contender formed (full bounds); a material whose
+     * codes' bound (at least its full one) reaches F is read in full and formed now, the others wait
+     * in a {@link BoundedJudgement.Reserve} whose bound is the largest of their codes' bounds and which reads them in
+     * full only if the loop forms it. The reserve's contract makes the judged contenders and their order those of every
+     * contender formed at the start with its full bound, whatever F is; F only chooses how many are read now.
+     *
+     * @return the reserve, or null when every material was formed now
+     */
+    private BoundedJudgement.Reserve formBinsDeferred(Snapshot s, Requirement requirement, BinsDeferred waiting,
+                                                      WeightedMisses.DeferredBins unread, FirstBounds firstBounds,
+                                                      Map<Long, Set<Long>> judgedOf, Admission admission,
+                                                      List<BoundedJudgement.Contender> contenders,
+                                                      int cut) {
+        // first the 4·cut largest codes' bounds, read in full: their full bounds can only raise F, so fewer are read
+        // after (a k-th largest of more numbers is no smaller)
+        double firstAt = BoundedJudgement.kthLargest(waiting.codesBound, waiting.count, 4 * cut);
+        int[] first = new int[waiting.count];
+        int firstCount = 0;
+        for (int i = 0; i < waiting.count; i++) {
+            double b = waiting.codesBound[i];
+            if (!Double.isFinite(b) || b >= firstAt) {
+                first[firstCount++] = i;
+            }
+        }
+        contenders.addAll(readInFullAndForm(s, requirement, waiting, first, firstCount, unread, firstBounds, judgedOf,
+                admission));
+        double[] formedBounds = new double[contenders.size()];
+        for (int i = 0; i < formedBounds.length; i++) {
+            formedBounds[i] = contenders.get(i).bound();
+        }
+        double atLeast = BoundedJudgement.kthLargest(formedBounds, formedBounds.length, cut);
+        int[] now = new int[waiting.count];
+        int[] later = new int[waiting.count];
+        int nowCount = 0;
+        double reserveBound = Double.NEGATIVE_INFINITY;
+        for (int i = 0; i < waiting.count; i++) {
+            double b = waiting.codesBound[i];
+            if (!Double.isFinite(b) || b >= firstAt) {
+                continue; // formed above
+            }
+            if (b >= atLeast) {
+                now[nowCount++] = i;
+            } else {
+                later[waiting.inReserve++] = i;
+                reserveBound = Math.max(reserveBound, b);
+            }
+        }
+        contenders.addAll(readInFullAndForm(s, requirement, waiting, now, nowCount, unread, firstBounds, judgedOf,
+                admission));
+        BINS_UNREAD_MATERIALS.addAndGet(waiting.count);
+        BINS_UNREAD_IN_RESERVE.addAndGet(waiting.inReserve);
+        if (waiting.inReserve == 0) {
+            return null;
+        }
+        int inReserve = waiting.inReserve;
+        return new BoundedJudgement.Reserve(reserveBound, () -> readInFullAndForm(s, requirement, waiting, later,
+                inReserve, unread, firstBounds, judgedOf, admission));
+    }
+
+    /** Reads in full the unread rows of the listed waiting materials, then forms their contenders as the loop does. */
+    private List<BoundedJudgement.Contender> readInFullAndForm(Snapshot s, Requirement requirement, BinsDeferred waiting,
+                                                               int[] which, int count,
+                                                               WeightedMisses.DeferredBins unread,
+                                                               FirstBounds firstBounds, Map<Long, Set<Long>> judgedOf,
+                                                               Admission admission) {
+        SnapshotIndex.Slots slots = s.index().slots();
+        int rowCount = 0;
+        for (int i = 0; i < count; i++) {
+            int mi = waiting.material[which[i]];
+            rowCount += slots.firstSlot[mi + 1] - slots.firstSlot[mi];
+        }
+        int[] rows = new int[rowCount];
+        int n = 0;
+        for (int i = 0; i < count; i++) {
+            int mi = waiting.material[which[i]];
+            for (int slot = slots.firstSlot[mi]; slot < slots.firstSlot[mi + 1]; slot++) {
+                int row = slots.rowBySlot[slot];
+                if (row >= 0 && unread.deferred()[row]) {
+                    rows[n++] = row;
+                }
+            }
+        }
+        unread.readInFull(rows, n);
+        List<BoundedJudgement.Contender> formed = new ArrayList<>(count);
+        ThicknessSpec spec = requirement.thickness();
+        for (int i = 0; i < count; i++) {
+            int mi = waiting.material[which[i]];
+            Material material = slots.materials.get(mi);
+            Set<Long> judgedSamples = judgedOf.get(material.id());
+            boolean classAdmits = admission.material(material);
+            double bound = Double.NEGATIVE_INFINITY;
+            boolean allMiss = true;
+            // the same bound and flag as the loop of searchExactly, over the same admitted samples
+            for (int slot = slots.firstSlot[mi]; slot < slots.firstSlot[mi + 1]; slot++) {
+                if (classAdmits && admission.geometry(slots.geometryBySlot[slot])) {
+                    long sampleId = slots.sampleIdBySlot[slot];
+                    int row = slots.rowBySlot[slot];
+                    allMiss &= !Double.isNaN(firstBounds.miss(sampleId, row));
+                    if (judgedSamples == null || judgedSamples.contains(sampleId)) {
+                        bound = Math.max(bound, firstBounds.bound(sampleId, row));
+                    }
+                }
+            }
+            formed.add(new BoundedJudgement.Contender(material, bound, allMiss && madeFor(s, spec, material),
+                    waiting.regular[which[i]]));
+        }
+        return formed;
     }
 
     /**

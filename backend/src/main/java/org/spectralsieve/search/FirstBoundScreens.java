@@ -63,6 +63,21 @@ final class FirstBoundScreens {
      * the same values either way.
      */
     boolean screenAloneInPlace = !"false".equals(System.getProperty("sieve.search.slot-sweep"));
+    /**
+     * Whether a solve over a range without a layer, its weighted screen alone read in place, leaves the bins unread
+     * where the figure codes prove no miss ({@link WeightedMisses#screenWithBinsDeferred}; the caller reads in full
+     * the rows of every contender it forms, {@link FirstBounds#deferredBins}); {@code -Dsieve.search.deferred-bins=false}
+     * reads every curve's bins, the pass before, only so a benchmark can time both ways (the same answers;
+     * docs/weighted-screening.md, "Wired into the service").
+     */
+    boolean deferredBins = !"false".equals(System.getProperty("sieve.search.deferred-bins"));
+    /**
+     * Curves from which a solve defers its bins: below it the screen is cheap and reading the waiting curves' bins a
+     * second time, with their per-range tables formed again per search, cost as much as it saved (the demo library and
+     * 10k, docs/benchmarks.md, "Service weighted solve with deferred bins"); 0 with {@link SearchService#withDeferredBins}.
+     */
+    int deferredBinsFrom = DEFERRED_BINS_FROM;
+    static final int DEFERRED_BINS_FROM = 100_000;
 
     /**
      * The search's first bounds kept in maps keyed by sample id, the way before the eleventh pass
@@ -144,12 +159,17 @@ final class FirstBoundScreens {
         if (screenLayerBlocks) {
             layer.ifPresent(l -> addLayerBlockMisses(store, requirement, l, lower));
         }
-        WeightedMisses.Screen screen = WeightedMisses.screen(store, requirement, layer, diffuseLayer, weightedLayerBlocks);
-        second[0] = screen.secondStage();
-        double[] bounds = screen.bounds();
+        boolean deferring = deferredBins && store.size() >= deferredBinsFrom && layer.isEmpty() && missOrNull[0] == null
+                && requirement.thickness().kind() == ThicknessSpec.Kind.RANGE;
+        WeightedMisses.DeferredBins deferredScreen = deferring ? WeightedMisses.screenWithBinsDeferred(store, requirement) : null;
+        WeightedMisses.Screen screen = deferring ? null
+                : WeightedMisses.screen(store, requirement, layer, diffuseLayer, weightedLayerBlocks);
+        second[0] = deferring ? deferredScreen.secondStage() : screen.secondStage();
+        double[] bounds = deferring ? deferredScreen.bounds() : screen.bounds();
         int[] unusableRows = unusableRows(s);
         if (missOrNull[0] == null && bounds.length == store.size()) {
-            return FirstBounds.screenAlone(bounds, unusableRows);
+            return deferring ? FirstBounds.screenAlone(deferredScreen, unusableRows)
+                    : FirstBounds.screenAlone(bounds, unusableRows);
         }
         double[] miss = missOrNull[0];
         if (miss == null) {

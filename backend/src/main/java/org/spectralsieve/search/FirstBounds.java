@@ -30,6 +30,15 @@ abstract class FirstBounds {
     /** Whether the bounds are read by store row: callers then give each sample's row, else {@code -1} will do. */
     abstract boolean readsRows();
 
+    /**
+     * The screen of a solve whose bins were left unread on some curves ({@link WeightedMisses#screenWithBinsDeferred}),
+     * whose bounds this reads in place; null when every bound is the full one. The caller reads in full
+     * ({@link WeightedMisses.DeferredBins#readInFull}) every deferred row of a contender before it is formed.
+     */
+    WeightedMisses.DeferredBins deferredBins() {
+        return null;
+    }
+
     /** The smaller of the sample's first bounds, {@code +∞} when it has none. */
     double bound(long sampleId, int row) {
         double miss = miss(sampleId, row);
@@ -64,7 +73,18 @@ abstract class FirstBounds {
      * {@code clearedRows}, the rows of samples whose records fail today's checks, are cleared in it.
      */
     static FirstBounds screenAlone(double[] screenBounds, int[] clearedRows) {
-        return new ScreenAlone(screenBounds, clearedRows);
+        return new ScreenAlone(screenBounds, clearedRows, null);
+    }
+
+    /**
+     * {@link #screenAlone} over the bounds of a solve's screen with some bins left unread ({@link #deferredBins}): a
+     * cleared row is no longer deferred (reading it in full would give it a bound again).
+     */
+    static FirstBounds screenAlone(WeightedMisses.DeferredBins screen, int[] clearedRows) {
+        for (int row : clearedRows) {
+            screen.deferred()[row] = false;
+        }
+        return new ScreenAlone(screen.bounds(), clearedRows, screen);
     }
 
     static FirstBounds bySampleId(Map<Long, Double> provenMiss, Map<Long, Double> marginBound, Map<Long, Integer> rowOf) {
@@ -121,9 +141,11 @@ abstract class FirstBounds {
 
         private final double[] bounds;
         private final boolean anyMargin;
+        private final WeightedMisses.DeferredBins deferredBins;
 
-        ScreenAlone(double[] bounds, int[] clearedRows) {
+        ScreenAlone(double[] bounds, int[] clearedRows, WeightedMisses.DeferredBins deferredBins) {
             this.bounds = bounds;
+            this.deferredBins = deferredBins;
             for (int row : clearedRows) {
                 bounds[row] = Double.NaN; // neither bound, as byRow leaves such a row
             }
@@ -132,6 +154,11 @@ abstract class FirstBounds {
                 found = bounds[row] < Double.POSITIVE_INFINITY;
             }
             this.anyMargin = found;
+        }
+
+        @Override
+        WeightedMisses.DeferredBins deferredBins() {
+            return deferredBins;
         }
 
         @Override

@@ -240,6 +240,18 @@ public class SearchService {
         return this;
     }
 
+    /**
+     * The same service with a solve's bins left unread where the figure codes prove no miss, read in full for the
+     * contenders formed ({@code on}, the default from 100,000 curves; here at any size), or every curve's bins read by
+     * the screen: benchmarks and tests
+     * ({@code -Dsieve.search.deferred-bins=false}; docs/weighted-screening.md, "Wired into the service").
+     */
+    SearchService withDeferredBins(boolean on) {
+        screens.deferredBins = on;
+        screens.deferredBinsFrom = 0; // whatever the library's size: tests and benchmarks
+        return this;
+    }
+
     /** The same service sweeping the slots in two halves from this many materials on (tests: a small library's). */
     SearchService sweepInTwoFrom(int materials) {
         exact.sweepInTwoFrom = materials;

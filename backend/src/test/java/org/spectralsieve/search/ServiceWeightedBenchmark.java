@@ -34,15 +34,18 @@ import org.spectralsieve.store.SyntheticCurves;
  * row carried from the base store with its screen ({@code SpectralStore.Builder.addCarried}), as
  * {@link StoreWeightedBenchmark} does (screening a synthetic curve on insertion costs milliseconds).
  *
- * <p>Prints {@code BENCH service-weighted curves=<n> mode=measured|solve variant=slot-sweep|row-arrays|maps p50_ms
- * p95_ms judged runs same_rows}: {@code slot-sweep} is the default (the twelfth pass: as measured, the sweep over the
- * snapshot index's slots and the screen's bounds read in place), {@code row-arrays} the eleventh pass's per-sample
+ * <p>Prints {@code BENCH service-weighted curves=<n> mode=measured|solve variant=deferred-bins|slot-sweep|row-arrays|maps
+ * p50_ms p95_ms judged runs same_rows}: {@code deferred-bins} is the default (a solve's bins left unread where the
+ * figure codes prove no miss, read in full for the contenders formed; as measured the same as {@code slot-sweep}),
+ * {@code slot-sweep} the twelfth pass before it, every bin read ({@code -Dsieve.search.deferred-bins=false}; as
+ * measured, the sweep over the snapshot index's slots and the screen's bounds read in place), {@code row-arrays} and
+ * {@code maps} every bin read too; {@code row-arrays} the eleventh pass's per-sample
  * bounds in arrays indexed by the store's row ({@code -Dsieve.search.slot-sweep=false}), {@code maps} the boxed maps
  * keyed by sample id before ({@code -Dsieve.search.row-arrays=false}), alternated run by run in one JVM;
  * {@code judged} is the answer's count of exact judgements. Asserts nothing about time. Switches:
  * {@code -Dbench.serviceWeightedSizes=100000,1000000}, {@code -Dbench.serviceWeightedRuns=5},
  * {@code -Dbench.serviceWeightedModes=measured,solve},
- * {@code -Dbench.serviceWeightedVariants=slot-sweep,row-arrays,maps},
+ * {@code -Dbench.serviceWeightedVariants=deferred-bins,slot-sweep,row-arrays,maps},
  * {@code -Dbench.limit=20}.
  *
  * <p>Its {@code judged} counts what {@link StoreWeightedBenchmark}'s does (rows judged exactly), but the libraries
@@ -66,7 +69,7 @@ class ServiceWeightedBenchmark {
         modes.put("measured", RequirementParser.parse(StoreWeightedBenchmark.WEIGHTED));
         modes.put("solve", RequirementParser.parse(StoreWeightedBenchmark.WEIGHTED + ", thickness 1 to 6 mm"));
         modes.keySet().retainAll(Arrays.asList(System.getProperty("bench.serviceWeightedModes", "measured,solve").split(",")));
-        String[] variants = System.getProperty("bench.serviceWeightedVariants", "slot-sweep,row-arrays,maps").split(",");
+        String[] variants = System.getProperty("bench.serviceWeightedVariants", "deferred-bins,slot-sweep,row-arrays,maps").split(",");
         long t0 = System.nanoTime();
         Base synthetic = base(base, 20261202L);
         System.out.printf(Locale.ROOT, "BENCH service-weighted-setup base=%d build_s=%.1f%n", base, (System.nanoTime() - t0) / 1e9);
@@ -83,7 +86,8 @@ class ServiceWeightedBenchmark {
             for (String variant : variants) {
                 services.put(variant.trim(), SearchService.over(snapshot, id -> Optional.of(synthetic.curveOf(id)))
                         .withRowArrays(!variant.trim().equals("maps"))
-                        .withSlotSweep(variant.trim().equals("slot-sweep")));
+                        .withSlotSweep(variant.trim().equals("slot-sweep") || variant.trim().equals("deferred-bins"))
+                        .withDeferredBins(variant.trim().equals("deferred-bins")));
             }
             for (Map.Entry<String, Requirement> mode : modes.entrySet()) {
                 services.values().forEach(service -> service.search(mode.getValue(), limit)); // warm-up
