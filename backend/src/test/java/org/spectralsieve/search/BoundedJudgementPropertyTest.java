@@ -4,7 +4,6 @@ import static org.assertj.core.api.Assertions.assertThat;
 
 import java.nio.charset.StandardCharsets;
 import java.util.List;
-import java.util.Locale;
 import java.util.Random;
 import org.jooq.DSLContext;
 import org.jooq.impl.DSL;
@@ -100,12 +99,12 @@ class BoundedJudgementPropertyTest {
         SearchService without = new SearchService(library).withEarlierLayerBounds();
         int fewer = 0;
         for (int trial = 0; trial < 10; trial++) {
-            String text = "passes over " + percent(40 + 50 * random.nextDouble()) + " of led "
+            String text = "passes over " + RandomWeightedClauses.percent(40 + 50 * random.nextDouble()) + " of led "
                     + new String[] {"365", "385", "405"}[random.nextInt(3)]
-                    + (random.nextBoolean() ? " and uv hazard under " + percent(Math.pow(10, 0.5 - 2.5 * random.nextDouble())) : "")
-                    + (random.nextBoolean() || trial % 3 == 0 ? " and erythemal under " + percent(Math.pow(10, 1 - 3 * random.nextDouble()))
-                    : " and uv hazard under " + percent(Math.pow(10, -1.5 * random.nextDouble())))
-                    + (random.nextBoolean() ? " and luminous over " + percent(30 + 50 * random.nextDouble()) : "")
+                    + (random.nextBoolean() ? " and uv hazard under " + RandomWeightedClauses.percent(Math.pow(10, 0.5 - 2.5 * random.nextDouble())) : "")
+                    + (random.nextBoolean() || trial % 3 == 0 ? " and erythemal under " + RandomWeightedClauses.percent(Math.pow(10, 1 - 3 * random.nextDouble()))
+                    : " and uv hazard under " + RandomWeightedClauses.percent(Math.pow(10, -1.5 * random.nextDouble())))
+                    + (random.nextBoolean() ? " and luminous over " + RandomWeightedClauses.percent(30 + 50 * random.nextDouble()) : "")
                     + ", behind 4 mm clear float glass" + (random.nextInt(4) == 0 ? ", geometry any" : "");
             Requirement requirement = RequirementParser.parse(text);
             int limit = new int[] {1, 3, 5, 10, 20}[random.nextInt(5)];
@@ -144,16 +143,9 @@ class BoundedJudgementPropertyTest {
     }
 
     private static String randomRequirement(Random random) {
-        String clauses = "passes over " + percent(55 + 35 * random.nextDouble()) + " of led "
-                + new String[] {"365", "385", "405"}[random.nextInt(3)];
-        if (random.nextInt(3) > 0) {
-            clauses += " and uv hazard under " + percent(Math.pow(10, 0.5 - 2 * random.nextDouble()));
-        }
-        if (random.nextBoolean()) {
-            clauses += " and luminous over " + percent(30 + 50 * random.nextDouble());
-        }
+        String clauses = RandomWeightedClauses.ledPassHazardLuminous(random);
         if (random.nextInt(4) == 0) {
-            clauses += " and erythemal under " + percent(Math.pow(10, 1 - 2 * random.nextDouble()));
+            clauses += " and erythemal under " + RandomWeightedClauses.percent(Math.pow(10, 1 - 2 * random.nextDouble()));
         }
         String thickness = new String[] {"", ", at 3 mm", ", thickness 1 to 6 mm", ", thickness 0.5 to 3 mm",
                 ", thickness 2 to 10 mm"}[random.nextInt(5)];
@@ -162,9 +154,6 @@ class BoundedJudgementPropertyTest {
         return clauses + thickness + layer + geometry;
     }
 
-    private static String percent(double p) {
-        return String.format(Locale.ROOT, "%.2f%%", p);
-    }
 
     /** Synthetic curves as library samples, three per material, two materials in three bulk, the third fixed. */
     static void addSynthetic(JooqLibraryRepository library, int n, long seed) {

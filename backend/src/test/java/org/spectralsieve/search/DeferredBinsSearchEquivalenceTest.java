@@ -3,7 +3,6 @@ package org.spectralsieve.search;
 import static org.assertj.core.api.Assertions.assertThat;
 
 import java.util.List;
-import java.util.Locale;
 import java.util.Random;
 import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
@@ -87,14 +86,7 @@ class DeferredBinsSearchEquivalenceTest {
     }
 
     private static String randomSolve(Random random) {
-        String clauses = "passes over " + percent(55 + 35 * random.nextDouble()) + " of led "
-                + new String[] {"365", "385", "405"}[random.nextInt(3)];
-        if (random.nextInt(3) > 0) {
-            clauses += " and uv hazard under " + percent(Math.pow(10, 0.5 - 2 * random.nextDouble()));
-        }
-        if (random.nextBoolean()) {
-            clauses += " and luminous over " + percent(30 + 50 * random.nextDouble());
-        }
+        String clauses = RandomWeightedClauses.ledPassHazardLuminous(random);
         String range = new String[] {", thickness 1 to 6 mm", ", thickness 2 to 4 mm", ", thickness 0.5 to 3 mm",
                 ", thickness 3 to 10 mm"}[random.nextInt(4)];
         String[] classes = {"plastic sheet", "window glass", "film"};
@@ -103,7 +95,4 @@ class DeferredBinsSearchEquivalenceTest {
         return clauses + range + extra;
     }
 
-    private static String percent(double p) {
-        return String.format(Locale.ROOT, "%.2f%%", p);
-    }
 }

@@ -3,7 +3,6 @@ package org.spectralsieve.search;
 import static org.assertj.core.api.Assertions.assertThat;
 
 import java.util.List;
-import java.util.Locale;
 import java.util.Random;
 import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
@@ -135,9 +134,9 @@ class RowArraysEquivalenceTest {
                 .judging(SearchService.Judging.BOUNDED).reserveAfter(4);
         int leftOut = 0;
         for (int trial = 0; trial < 20; trial++) {
-            String text = "passes over " + percent(40 + 45 * random.nextDouble()) + " of led "
+            String text = "passes over " + RandomWeightedClauses.percent(40 + 45 * random.nextDouble()) + " of led "
                     + new String[] {"365", "385", "405"}[random.nextInt(3)] + " and luminous over "
-                    + percent(10 + 60 * random.nextDouble());
+                    + RandomWeightedClauses.percent(10 + 60 * random.nextDouble());
             Requirement requirement = RequirementParser.parse(text);
             int limit = new int[] {5, 10, 20, 40}[random.nextInt(4)];
             Shortlist swept = sweep.search(requirement, limit);
@@ -164,16 +163,9 @@ class RowArraysEquivalenceTest {
     }
 
     private static String randomRequirement(Random random, int trial) {
-        String clauses = "passes over " + percent(55 + 35 * random.nextDouble()) + " of led "
-                + new String[] {"365", "385", "405"}[random.nextInt(3)];
-        if (random.nextInt(3) > 0) {
-            clauses += " and uv hazard under " + percent(Math.pow(10, 0.5 - 2 * random.nextDouble()));
-        }
-        if (random.nextBoolean()) {
-            clauses += " and luminous over " + percent(30 + 50 * random.nextDouble());
-        }
+        String clauses = RandomWeightedClauses.ledPassHazardLuminous(random);
         if (random.nextInt(3) == 0) {
-            clauses += " and blocks under " + percent(Math.pow(10, 1 - 2 * random.nextDouble())) + " at "
+            clauses += " and blocks under " + RandomWeightedClauses.percent(Math.pow(10, 1 - 2 * random.nextDouble())) + " at "
                     + new String[] {"300", "320", "350"}[random.nextInt(3)] + " nm";
         }
         String thickness = switch (trial % 3) {
@@ -186,7 +178,4 @@ class RowArraysEquivalenceTest {
         return clauses + thickness + layer + geometry;
     }
 
-    private static String percent(double p) {
-        return String.format(Locale.ROOT, "%.2f%%", p);
-    }
 }

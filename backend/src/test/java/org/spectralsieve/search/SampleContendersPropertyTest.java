@@ -3,7 +3,6 @@ package org.spectralsieve.search;
 import static org.assertj.core.api.Assertions.assertThat;
 
 import java.util.List;
-import java.util.Locale;
 import java.util.Random;
 import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
@@ -78,16 +77,9 @@ class SampleContendersPropertyTest {
 
     /** As measured or at one asked thickness (where samples are contenders), sometimes behind the demo glass. */
     private static String randomRequirement(Random random, int trial) {
-        String clauses = "passes over " + percent(55 + 35 * random.nextDouble()) + " of led "
-                + new String[] {"365", "385", "405"}[random.nextInt(3)];
-        if (random.nextInt(3) > 0) {
-            clauses += " and uv hazard under " + percent(Math.pow(10, 0.5 - 2 * random.nextDouble()));
-        }
-        if (random.nextBoolean()) {
-            clauses += " and luminous over " + percent(30 + 50 * random.nextDouble());
-        }
+        String clauses = RandomWeightedClauses.ledPassHazardLuminous(random);
         if (random.nextInt(4) == 0) {
-            clauses += " and erythemal under " + percent(Math.pow(10, 1 - 2 * random.nextDouble()));
+            clauses += " and erythemal under " + RandomWeightedClauses.percent(Math.pow(10, 1 - 2 * random.nextDouble()));
         }
         String thickness = trial % 2 == 0 ? "" : new String[] {", at 3 mm", ", at 1.5 mm", ", at 6 mm"}[random.nextInt(3)];
         String layer = random.nextInt(5) == 0 ? ", behind 4 mm clear float glass" : "";
@@ -96,7 +88,4 @@ class SampleContendersPropertyTest {
         return clauses + thickness + layer + geometry;
     }
 
-    private static String percent(double p) {
-        return String.format(Locale.ROOT, "%.2f%%", p);
-    }
 }

@@ -5,7 +5,6 @@ import static org.assertj.core.api.Assertions.assertThat;
 import java.util.ArrayList;
 import java.util.HashMap;
 import java.util.List;
-import java.util.Locale;
 import java.util.Map;
 import java.util.Optional;
 import java.util.Random;
@@ -176,16 +175,9 @@ class SecondStageBoundTest {
 
     /** Passes, blocks and τv as measured, at 3 mm, solved, and behind the demo glass; sometimes any geometry. */
     private static String randomRequirement(Random random, int trial) {
-        String clauses = "passes over " + percent(55 + 35 * random.nextDouble()) + " of led "
-                + new String[] {"365", "385", "405"}[random.nextInt(3)];
-        if (random.nextInt(3) > 0) {
-            clauses += " and uv hazard under " + percent(Math.pow(10, 0.5 - 2 * random.nextDouble()));
-        }
-        if (random.nextBoolean()) {
-            clauses += " and luminous over " + percent(30 + 50 * random.nextDouble());
-        }
+        String clauses = RandomWeightedClauses.ledPassHazardLuminous(random);
         if (random.nextInt(4) == 0) {
-            clauses += " and erythemal under " + percent(Math.pow(10, 1 - 2 * random.nextDouble()));
+            clauses += " and erythemal under " + RandomWeightedClauses.percent(Math.pow(10, 1 - 2 * random.nextDouble()));
         }
         String thickness = new String[] {"", "", ", at 3 mm", ", thickness 1 to 6 mm", ", thickness 0.5 to 3 mm",
                 ", thickness 2 to 10 mm"}[trial % 6];
@@ -194,7 +186,4 @@ class SecondStageBoundTest {
         return clauses + thickness + layer + geometry;
     }
 
-    private static String percent(double p) {
-        return String.format(Locale.ROOT, "%.2f%%", p);
-    }
 }
