@@ -20,12 +20,27 @@ export class ApiProblem extends Error {
 // Relative URLs keep the page working when the app is served under a context path.
 const BASE = 'api';
 
+/**
+ * In server mode (docs/accounts-and-roles.md) the server sets the XSRF-TOKEN cookie and refuses a change sent
+ * with the session unless the same token comes back in this header. The embedded tool sets no such cookie,
+ * and then nothing is added.
+ */
+export function csrfHeaders() {
+  const cookie = document.cookie.split('; ').find((c) => c.startsWith('XSRF-TOKEN='));
+  return cookie ? { 'X-XSRF-TOKEN': decodeURIComponent(cookie.slice('XSRF-TOKEN='.length)) } : {};
+}
+
 async function getJson(path, init = {}) {
   let response;
+  const changes = init.method && init.method !== 'GET' && init.method !== 'HEAD';
   try {
     response = await fetch(path, {
       ...init,
-      headers: { Accept: 'application/json, application/problem+json', ...(init.headers || {}) },
+      headers: {
+        Accept: 'application/json, application/problem+json',
+        ...(changes ? csrfHeaders() : {}),
+        ...(init.headers || {}),
+      },
     });
   } catch (networkError) {
     throw new ApiProblem({

@@ -15,8 +15,15 @@ export function initCuration(deps) {
   });
 }
 
+// In server mode, the role each control needs (docs/accounts-and-roles.md); accounts.css hides the control from
+// a role below it. Opening a retired material is reading, so that button needs nothing.
+const NEEDS = {
+  Retire: 'editor', 'Retire material': 'editor', 'Correct…': 'editor', Restore: 'admin', 'Restore material': 'admin',
+};
+
 function button(text, title, onClick, className = 'quiet small') {
   const b = document.createElement('button');
+  if (NEEDS[text]) b.dataset.needs = NEEDS[text];
   b.type = 'button';
   b.className = className;
   b.textContent = text;

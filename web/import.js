@@ -3,7 +3,7 @@
 // was detected, every warning — beside a form for what the file cannot say (material, thickness, …); only
 // "Store" keeps it (POST /api/imports). A zip with a manifest.csv goes whole to POST /api/imports/batch.
 // Every name, note and message is set as text, never as HTML.
-import { ApiProblem, listMaterials } from './api.js';
+import { ApiProblem, csrfHeaders, listMaterials } from './api.js';
 import * as fmt from './format.js';
 import { drawCurves, followWidth } from './chart.js';
 
@@ -46,7 +46,7 @@ async function postForm(path, form) {
   let response;
   try {
     response = await fetch(`${BASE}/${path}`, {
-      method: 'POST', body: form, headers: { Accept: 'application/json, application/problem+json' },
+      method: 'POST', body: form, headers: { Accept: 'application/json, application/problem+json', ...csrfHeaders() },
     });
   } catch (networkError) {
     throw new ApiProblem({ status: 0, title: 'Server not reachable', detail: networkError.message });

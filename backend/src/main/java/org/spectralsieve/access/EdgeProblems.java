@@ -12,7 +12,7 @@ import tools.jackson.databind.json.JsonMapper;
  * Writes an RFC 9457 problem detail from a servlet filter, where the MVC exception handlers do not reach
  * (the request is refused before the dispatcher sees it).
  */
-final class EdgeProblems {
+public final class EdgeProblems {
 
     private static final JsonMapper JSON = JsonMapper.builder().build();
 
@@ -20,7 +20,7 @@ final class EdgeProblems {
     }
 
     /** {@code extra} adds extension members (e.g. which header refused the request). */
-    static void write(HttpServletRequest request, HttpServletResponse response, int status, String type, String title,
+    public static void write(HttpServletRequest request, HttpServletResponse response, int status, String type, String title,
                       String detail, Map<String, Object> extra) throws IOException {
         Map<String, Object> problem = new LinkedHashMap<>();
         problem.put("type", "/problems/" + type);

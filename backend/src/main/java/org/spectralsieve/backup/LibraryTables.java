@@ -33,6 +33,13 @@ final class LibraryTables {
      */
     static final Set<String> BOOKKEEPING = Set.of("library_generation", "library_identity", "library_change");
 
+    /**
+     * Server mode's accounts and API tokens (V11): who may use this server, not what the library holds. A backup
+     * carries no password hashes or token hashes, and a restore leaves the target's accounts as they are
+     * (docs/accounts-and-roles.md).
+     */
+    static final Set<String> SERVER_ACCOUNTS = Set.of("account", "api_token");
+
     private LibraryTables() {
     }
 
@@ -44,7 +51,7 @@ final class LibraryTables {
     static List<Table<?>> inDependencyOrder(Schema schema) {
         Map<String, Table<?>> remaining = new LinkedHashMap<>();
         schema.getTables().stream()
-                .filter(t -> !BOOKKEEPING.contains(name(t)))
+                .filter(t -> !BOOKKEEPING.contains(name(t)) && !SERVER_ACCOUNTS.contains(name(t)))
                 .sorted(Comparator.comparing(LibraryTables::name))
                 .forEach(t -> remaining.put(name(t), t));
         List<Table<?>> ordered = new ArrayList<>();

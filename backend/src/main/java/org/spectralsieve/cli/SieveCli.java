@@ -14,11 +14,11 @@ import picocli.CommandLine.Command;
         versionProvider = SieveCli.Version.class,
         description = "Search the transmittance library by requirement, list its materials, export a curve, compute a"
                 + " sample's weighted figures, import files and emitter or response spectra, retire, restore and correct"
-                + " them, back the library up to one archive and load it into an empty library.",
+                + " them, back the library up to one archive and load it into an empty library, and create server-mode accounts.",
         subcommands = {SearchCommand.class, ExportCommand.class, MaterialsCommand.class, ImportCommand.class, PreviewCommand.class,
                 ImportSpectrumCommand.class, FiguresCommand.class, SimilarCommand.class,
                 RetireCommand.class, RestoreCommand.class, CorrectCommand.class, RevisionsCommand.class,
-                BackupCommand.class, RestoreBackupCommand.class,
+                BackupCommand.class, RestoreBackupCommand.class, AddAccountCommand.class,
                 CommandLine.HelpCommand.class},
         exitCodeListHeading = "%nExit codes:%n",
         exitCodeList = {

@@ -73,6 +73,11 @@ class BadStoredRowIsolationTest {
         search.invalidate();
     }
 
+    /** The embedded tool needs no sign-in; the shared-server run (server mode) adds a viewer's token. */
+    HttpRequest.Builder signedIn(HttpRequest.Builder request) {
+        return request;
+    }
+
     /** NUL, BEL and a right-to-left override; a database that cannot hold NUL (PostgreSQL) gets the other two. */
     String controlCharacters() {
         return "\u0000\u0007\u202e";
@@ -194,7 +199,7 @@ class BadStoredRowIsolationTest {
         ObjectNode body = JSON.createObjectNode();
         body.put("requirement", text);
         body.put("limit", 500);
-        HttpResponse<String> response = HTTP.send(HttpRequest.newBuilder(URI.create("http://localhost:" + port + "/api/search"))
+        HttpResponse<String> response = HTTP.send(signedIn(HttpRequest.newBuilder(URI.create("http://localhost:" + port + "/api/search")))
                 .header("Content-Type", "application/json").POST(HttpRequest.BodyPublishers.ofString(body.toString())).build(),
                 HttpResponse.BodyHandlers.ofString());
         assertThat(response.statusCode()).as(text + " -> " + response.body()).isEqualTo(200);
@@ -202,7 +207,7 @@ class BadStoredRowIsolationTest {
     }
 
     private HttpResponse<String> get(String path) throws Exception {
-        return HTTP.send(HttpRequest.newBuilder(URI.create("http://localhost:" + port + path)).GET().build(),
+        return HTTP.send(signedIn(HttpRequest.newBuilder(URI.create("http://localhost:" + port + path))).GET().build(),
                 HttpResponse.BodyHandlers.ofString());
     }
 }
