@@ -16,8 +16,9 @@ class AccessConfiguration {
     }
 
     @Bean
-    ListeningAddressReport listeningAddressReport(ListeningAddress address) {
-        return new ListeningAddressReport(address);
+    ListeningAddressReport listeningAddressReport(ListeningAddress address,
+                                                  @Value("${sieve.server-mode:false}") boolean serverMode) {
+        return new ListeningAddressReport(address, serverMode);
     }
 
     @Bean

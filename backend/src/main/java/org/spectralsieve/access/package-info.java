@@ -5,6 +5,7 @@
  * state-changing requests sent by another site's page ({@link CrossSiteWriteFilter}). Both filters stand
  * at the servlet edge, before any body is read, and answer with an RFC 9457 problem detail
  * ({@link EdgeProblems}). Why Origin and {@code Sec-Fetch-Site} rather than a CSRF token: see
- * docs/privacy-of-the-local-tool.md.
+ * docs/privacy-of-the-local-tool.md. A shared library runs in server mode instead, with accounts and a CSRF
+ * token for its sessions (package {@code accounts}); these filters stay in place there too.
  */
 package org.spectralsieve.access;
