@@ -76,12 +76,25 @@ final class PlainWiringSettings {
             boolean variables = source instanceof SystemEnvironmentPropertySource;
             for (String name : names.getPropertyNames()) {
                 String property = variables ? name.toLowerCase(Locale.ROOT).replace('_', '.') : name;
-                if (actedOnBySpring(property) && !honoured(property)) {
+                if (actedOnBySpring(property) && !honoured(property) && !excludesOnlySecurity(property, names.getProperty(name))) {
                     found.add(name);
                 }
             }
         }
         return found;
+    }
+
+    /**
+     * application.properties excludes Spring Boot's security set-up (server mode installs its own, in the web
+     * server only): the plain wiring builds no auto-configuration at all, so leaving those out changes nothing
+     * for it. Any other exclusion still sends the command to the Spring context.
+     */
+    private static boolean excludesOnlySecurity(String property, Object value) {
+        if (!canonical(property).equals(canonical("spring.autoconfigure.exclude")) || value == null) {
+            return false;
+        }
+        return java.util.Arrays.stream(value.toString().split(",")).map(String::strip)
+                .allMatch(c -> c.startsWith("org.springframework.boot.security.autoconfigure."));
     }
 
     private static boolean actedOnBySpring(String property) {
