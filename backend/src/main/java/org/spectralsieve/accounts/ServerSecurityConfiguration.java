@@ -28,7 +28,6 @@ import org.springframework.security.web.authentication.UsernamePasswordAuthentic
 import org.springframework.security.web.authentication.www.BasicAuthenticationFilter;
 import org.springframework.security.web.csrf.CookieCsrfTokenRepository;
 import org.springframework.security.web.csrf.CsrfFilter;
-import org.springframework.security.web.csrf.CsrfTokenRequestAttributeHandler;
 import org.springframework.security.web.firewall.HttpStatusRequestRejectedHandler;
 
 /**
@@ -107,11 +106,9 @@ class ServerSecurityConfiguration {
         SignInResponses signIn = new SignInResponses(limits, store);
         DaoAuthenticationProvider provider = new DaoAuthenticationProvider(userDetails(store));
         provider.setPasswordEncoder(passwords);
-        CsrfTokenRequestAttributeHandler plainToken = new CsrfTokenRequestAttributeHandler();
-        plainToken.setCsrfRequestAttributeName(null); // load the token on every request (CsrfCookieFilter)
         http.authenticationManager(new ProviderManager(provider))
                 .csrf(csrf -> csrf.csrfTokenRepository(CookieCsrfTokenRepository.withHttpOnlyFalse())
-                        .csrfTokenRequestHandler(plainToken))
+                        .csrfTokenRequestHandler(new HeaderCsrfToken()))
                 .addFilterAfter(new CsrfCookieFilter(), CsrfFilter.class)
                 .addFilterBefore(new SignInLimitFilter(limits), UsernamePasswordAuthenticationFilter.class)
                 .addFilterBefore(new CurrentRoleFilter(store), AuthorizationFilter.class)

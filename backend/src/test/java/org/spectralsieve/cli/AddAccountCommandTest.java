@@ -8,9 +8,12 @@ import java.io.InputStream;
 import java.nio.charset.StandardCharsets;
 import org.jooq.DSLContext;
 import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.extension.ExtendWith;
 import org.spectralsieve.SpectralSieveApplication;
 import org.spectralsieve.accounts.ServerHttp;
 import org.springframework.boot.builder.SpringApplicationBuilder;
+import org.springframework.boot.test.system.CapturedOutput;
+import org.springframework.boot.test.system.OutputCaptureExtension;
 import org.springframework.boot.web.server.context.WebServerApplicationContext;
 import org.springframework.context.ConfigurableApplicationContext;
 
@@ -18,6 +21,7 @@ import org.springframework.context.ConfigurableApplicationContext;
  * {@code add-account}: the first admin comes from the command line, with a password of at least 12
  * characters read from standard input (never from the command line); a new server has no account at all.
  */
+@ExtendWith(OutputCaptureExtension.class)
 class AddAccountCommandTest {
 
     private static final String DB_URL = "jdbc:h2:mem:cli-add-account-test;DB_CLOSE_DELAY=-1";
@@ -38,13 +42,15 @@ class AddAccountCommandTest {
     }
 
     @Test
-    void createsAnAdminWhoCanSignInToTheServerWhichHadNoAccountBefore() throws Exception {
+    void createsAnAdminWhoCanSignInToTheServerWhichHadNoAccountBefore(CapturedOutput log) throws Exception {
         String fresh = "jdbc:h2:mem:cli-add-first-admin-test;DB_CLOSE_DELAY=-1";
         try (ConfigurableApplicationContext server = new SpringApplicationBuilder(SpectralSieveApplication.class).run(
                 "--server.port=0", "--sieve.server-mode=true", "--sieve.seed.load-on-empty=false", "--sieve.index.dir=",
                 "--spring.datasource.url=" + fresh)) {
             int port = ((WebServerApplicationContext) server).getWebServer().getPort();
             assertThat(server.getBean(DSLContext.class).fetchCount(ACCOUNT)).as("no default account").isZero();
+            assertThat(log.getOut()).as("the server says how to create the first admin")
+                    .contains("add-account --name NAME --role admin");
             assertThat(ServerHttp.anonymous(port).signIn("admin", "admin").status()).isEqualTo(401);
 
             CliRun run = withStdinAgainst(fresh, PASSWORD + "\n", "add-account", "--name", "juniper-admin", "--role", "admin",
