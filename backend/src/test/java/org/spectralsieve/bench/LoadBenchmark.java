@@ -28,6 +28,9 @@ import java.util.concurrent.TimeUnit;
 import java.util.concurrent.atomic.AtomicInteger;
 import org.junit.jupiter.api.Test;
 import org.spectralsieve.SpectralSieveApplication;
+import org.spectralsieve.accounts.Account;
+import org.spectralsieve.accounts.AccountAdministration;
+import org.spectralsieve.accounts.Role;
 import org.spectralsieve.ingest.Checksums;
 import org.spectralsieve.search.JudgementMemo;
 import org.spectralsieve.search.SearchService;
@@ -59,11 +62,27 @@ import tools.jackson.databind.json.JsonMapper;
  * drawn per request from a seeded set of 200 values per number, so few questions repeat: what a memo of
  * judgements cannot help), {@code -Dsieve.search.judgement-memo=false} (the service judges every sample afresh;
  * {@code BENCH load-memo} prints the memo's hits and misses of each pass when it is on),
- * {@code -Dsieve.json.fast-doubles=false} (answers' doubles written by {@code Double.toString}, the way before).
+ * {@code -Dsieve.json.fast-doubles=false} (answers' doubles written by {@code Double.toString}, the way before),
+ * {@code -Dbench.loadMode=server} (server mode: every request carries an editor's API token, and the pass line
+ * reads {@code BENCH load mode=server auth=token pass=…}; docs/accounts-and-roles.md).
  */
 class LoadBenchmark {
 
     private static final JsonMapper JSON = JsonMapper.builder().build();
+
+    /** In server mode ({@code -Dbench.loadMode=server}): an editor's API token sent with every request. */
+    private static volatile String bearer;
+
+    /** {@code -Dbench.loadMode=server}: the service in server mode, every request with a bearer token. */
+    private static boolean serverMode() {
+        return "server".equals(System.getProperty("bench.loadMode"));
+    }
+
+    /** A request to the service, with the token in server mode (its check is part of what is measured). */
+    private static HttpRequest.Builder withToken(URI uri) {
+        HttpRequest.Builder builder = HttpRequest.newBuilder(uri);
+        return bearer == null ? builder : builder.header("Authorization", "Bearer " + bearer);
+    }
 
     enum Kind {
         SEARCH_FIXED(14), SEARCH_THICKNESS(8), SEARCH_WEIGHTED(6), SEARCH_BEHIND(4),
@@ -176,6 +195,12 @@ class LoadBenchmark {
         List<Outcome> outcomes = new ArrayList<>();
         try (ConfigurableApplicationContext app = start(dbUrl)) {
             String base = "http://127.0.0.1:" + app.getEnvironment().getProperty("local.server.port");
+            if (serverMode()) {
+                // an editor may import; the token stays valid across the restart below (same database)
+                AccountAdministration accounts = app.getBean(AccountAdministration.class);
+                Account editor = accounts.createAccount("fernhollow-load", Role.EDITOR, "larkspur-lane-bench-7");
+                bearer = accounts.createToken(editor, "load benchmark").secret();
+            }
             Library library = Library.prepare(http, base);
             Kind[] plan = plan(requests, new Random(20261203L));
             SearchService service = app.getBean(SearchService.class);
@@ -280,7 +305,8 @@ class LoadBenchmark {
     private static ConfigurableApplicationContext start(String dbUrl) {
         return new SpringApplicationBuilder(SpectralSieveApplication.class).run(
                 "--server.port=0", "--server.address=127.0.0.1", "--spring.datasource.url=" + dbUrl,
-                "--logging.level.root=WARN", "--sieve.search.judgement-lanes=" + judgementLanes());
+                "--logging.level.root=WARN", "--sieve.search.judgement-lanes=" + judgementLanes(),
+                "--sieve.server-mode=" + serverMode());
     }
 
     /** The switch {@code -Dbench.judgementLanes}: -1 the service's default (one per core), 0 no bound. */
@@ -333,9 +359,9 @@ class LoadBenchmark {
     private static int lost(HttpClient http, String base, List<Acknowledged> acknowledged) throws Exception {
         int lost = 0;
         for (Acknowledged a : List.copyOf(acknowledged)) {
-            HttpResponse<byte[]> file = http.send(HttpRequest.newBuilder(URI.create(base + "/api/samples/" + a.sampleId()
+            HttpResponse<byte[]> file = http.send(withToken(URI.create(base + "/api/samples/" + a.sampleId()
                     + "/source-file")).build(), HttpResponse.BodyHandlers.ofByteArray());
-            HttpResponse<String> curve = http.send(HttpRequest.newBuilder(URI.create(base + "/api/samples/" + a.sampleId()
+            HttpResponse<String> curve = http.send(withToken(URI.create(base + "/api/samples/" + a.sampleId()
                     + "/curve")).build(), HttpResponse.BodyHandlers.ofString());
             if (file.statusCode() != 200 || !Checksums.sha256(file.body()).equals(a.sha256()) || curve.statusCode() != 200) {
                 lost++;
@@ -352,7 +378,8 @@ class LoadBenchmark {
         long acknowledged = outcomes.stream().filter(o -> o.kind() == Kind.IMPORT && o.status() == 201).count();
         long errors = outcomes.stream().filter(o -> o.failure() != null).count();
         long serverErrors = outcomes.stream().filter(o -> o.status() >= 500).count();
-        System.out.printf(Locale.ROOT, "BENCH load pass=%s clients=%d requests=%d errors=%d server_errors=%d"
+        System.out.printf(Locale.ROOT, "BENCH load " + (serverMode() ? "mode=server auth=token " : "")
+                        + "pass=%s clients=%d requests=%d errors=%d server_errors=%d"
                         + " imports_acknowledged=%d wall_s=%.1f throughput_per_s=%.1f judgement_lanes=%d judgement_memo=%s"
                         + " requirements=%s json_fast_doubles=%s%n", pass.label(),
                 clients, outcomes.size(), errors, serverErrors, acknowledged, wallNanos / 1e9,
@@ -480,15 +507,15 @@ class LoadBenchmark {
             return switch (kind) {
                 case SEARCH_FIXED, SEARCH_THICKNESS, SEARCH_WEIGHTED, SEARCH_BEHIND ->
                         search(base, varied() ? Varied.requirement(kind, i) : REQUIREMENTS.get(kind));
-                case MATERIALS -> HttpRequest.newBuilder(URI.create(base + "/api/materials")).build();
-                case MATERIAL -> HttpRequest.newBuilder(URI.create(base + "/api/materials/"
+                case MATERIALS -> withToken(URI.create(base + "/api/materials")).build();
+                case MATERIAL -> withToken(URI.create(base + "/api/materials/"
                         + materials.get(Math.floorMod(i * 31, materials.size())))).build();
-                case CURVE -> HttpRequest.newBuilder(URI.create(base + "/api/samples/" + sample + "/curve")).build();
-                case CURVE_RESCALED -> HttpRequest.newBuilder(URI.create(base + "/api/samples/" + scalable
+                case CURVE -> withToken(URI.create(base + "/api/samples/" + sample + "/curve")).build();
+                case CURVE_RESCALED -> withToken(URI.create(base + "/api/samples/" + scalable
                         + "/curve?thicknessMm=" + mm)).build();
-                case FIGURES -> HttpRequest.newBuilder(URI.create(base + "/api/samples/" + scalable
+                case FIGURES -> withToken(URI.create(base + "/api/samples/" + scalable
                         + "/figures?emitter=led-365&response=actinic-uv")).build();
-                case FIGURES_RESCALED -> HttpRequest.newBuilder(URI.create(base + "/api/samples/" + scalable
+                case FIGURES_RESCALED -> withToken(URI.create(base + "/api/samples/" + scalable
                         + "/figures?emitter=led-365&thicknessMm=" + mm)).build();
                 case IMPORT -> multipart(base, Map.of("materialId", String.valueOf(importMaterial),
                         "thicknessMm", String.valueOf(mm)), importFile(i));
@@ -501,7 +528,7 @@ class LoadBenchmark {
 
         private static HttpRequest search(String base, String requirement) {
             String body = "{\"requirement\": \"" + requirement + "\", \"limit\": 20}";
-            return HttpRequest.newBuilder(URI.create(base + "/api/search")).header("Content-Type", "application/json")
+            return withToken(URI.create(base + "/api/search")).header("Content-Type", "application/json")
                     .POST(HttpRequest.BodyPublishers.ofString(body)).build();
         }
 
@@ -530,13 +557,13 @@ class LoadBenchmark {
                     + "\r\nContent-Type: text/csv\r\n\r\n").getBytes(StandardCharsets.UTF_8));
             out.writeBytes(file);
             out.writeBytes(("\r\n--" + BOUNDARY + "--\r\n").getBytes(StandardCharsets.UTF_8));
-            return HttpRequest.newBuilder(URI.create(base + "/api/imports"))
+            return withToken(URI.create(base + "/api/imports"))
                     .header("Content-Type", "multipart/form-data; boundary=" + BOUNDARY)
                     .POST(HttpRequest.BodyPublishers.ofByteArray(out.toByteArray())).build();
         }
 
         private static String get(HttpClient http, String url) throws Exception {
-            HttpResponse<String> r = http.send(HttpRequest.newBuilder(URI.create(url)).build(),
+            HttpResponse<String> r = http.send(withToken(URI.create(url)).build(),
                     HttpResponse.BodyHandlers.ofString());
             if (r.statusCode() != 200) {
                 throw new IllegalStateException(url + " answered " + r.statusCode() + ": " + r.body());
@@ -545,7 +572,7 @@ class LoadBenchmark {
         }
 
         private static int status(HttpClient http, String url) throws Exception {
-            return http.send(HttpRequest.newBuilder(URI.create(url)).build(), HttpResponse.BodyHandlers.discarding())
+            return http.send(withToken(URI.create(url)).build(), HttpResponse.BodyHandlers.discarding())
                     .statusCode();
         }
     }
