@@ -281,11 +281,11 @@ export function initSearch(ui) {
     dom.table.dataset.requirement = asked ?? requirement.text;
     const n = answer.results.length;
     dom.summary.textContent = `Evaluated ${answer.evaluatedSamples} samples in ${fmt.number(answer.tookMs, 1)} ms`
+      // with each row's revisions, what the answer was computed from, to reproduce it later (docs/audit.md)
+      + (Number.isInteger(answer.libraryGeneration) ? ` (library generation ${answer.libraryGeneration})` : '')
       + ` · ${n === 1 ? '1 result' : `${n} results`} for “${requirement.text}”`
       + (answer.layer ? ` · ${answer.layer.explanation}` : '')
-      + (answer.words ? ` · ${wordsSummary(answer.words)}` : '')
-      // with each row's revisions, what the answer was computed from, to reproduce it later (docs/audit.md)
-      + (Number.isInteger(answer.libraryGeneration) ? ` · library generation ${answer.libraryGeneration}` : '');
+      + (answer.words ? ` · ${wordsSummary(answer.words)}` : '');
     // the rows come grouped (meets, unverified, misses, not judged); each group under the server's heading,
     // the same words the command line prints, so a row with nothing judged never reads as a candidate
     const headings = new Map((answer.groups || []).map((g) => [g.group, g.heading]));
