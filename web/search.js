@@ -281,6 +281,8 @@ export function initSearch(ui) {
     dom.table.dataset.requirement = asked ?? requirement.text;
     const n = answer.results.length;
     dom.summary.textContent = `Evaluated ${answer.evaluatedSamples} samples in ${fmt.number(answer.tookMs, 1)} ms`
+      // with each row's revisions, what the answer was computed from, to reproduce it later (docs/audit.md)
+      + (Number.isInteger(answer.libraryGeneration) ? ` (library generation ${answer.libraryGeneration})` : '')
       + ` · ${n === 1 ? '1 result' : `${n} results`} for “${requirement.text}”`
       + (answer.layer ? ` · ${answer.layer.explanation}` : '')
       + (answer.words ? ` · ${wordsSummary(answer.words)}` : '');
@@ -329,6 +331,9 @@ export function initSearch(ui) {
     tr.dataset.sampleId = result.sampleId;
     tr.dataset.verdict = result.verdict;
     tr.dataset.group = result.group || '';
+    // the revisions the row was judged on, always named (docs/audit.md); shown in the row once corrected
+    if (Number.isInteger(result.sampleRevision)) tr.dataset.sampleRevision = result.sampleRevision;
+    if (Number.isInteger(result.materialRevision)) tr.dataset.materialRevision = result.materialRevision;
 
     const open = document.createElement('button');
     open.type = 'button';
@@ -347,6 +352,10 @@ export function initSearch(ui) {
     const material = document.createElement('td');
     material.className = 'name';
     material.append(open);
+    if (Number.isInteger(result.sampleRevision)) {
+      material.title = `sample ${result.sampleId}, revision ${result.sampleRevision}; `
+        + `material revision ${result.materialRevision}`;
+    }
     if (result.sampleRevision > 1 || result.materialRevision > 1) {
       // the row was judged on corrected metadata: say which revision (docs/undo.md)
       const revision = document.createElement('span');

@@ -30,6 +30,8 @@ import org.spectralsieve.search.Shortlist;
  * judged at the asked thickness or on the measured range) and {@code worstMarginIsBound} marks a miss
  * shown only by a detection-limit bound, whose margin is an upper bound (the true miss may be larger).
  * A transmittance under OD 12 is given as the bound 1e-12 ({@code valueIsBound}), never as 1e-236 or 0.
+ * Each row names the {@code sampleRevision} and {@code materialRevision} it was judged on, and the answer the
+ * {@code libraryGeneration} it was computed at, so a result can be reproduced later (docs/audit.md).
  */
 public final class ShortlistJson {
 
@@ -46,6 +48,9 @@ public final class ShortlistJson {
         json.put("groups", groups(shortlist));
         json.put("evaluatedSamples", shortlist.evaluatedSamples());
         json.put("judgedExactly", shortlist.judgedExactly());
+        // with each row's sampleRevision and materialRevision, what the answer was computed from (docs/audit.md)
+        json.put("libraryGeneration", shortlist.libraryGeneration() == Shortlist.UNKNOWN_GENERATION ? null
+                : shortlist.libraryGeneration());
         json.put("tookMs", Math.round(shortlist.tookMs() * 1000) / 1000.0);
         return json;
     }

@@ -4,6 +4,7 @@ import java.util.function.Supplier;
 import org.flywaydb.core.Flyway;
 import org.flywaydb.core.api.MigrationInfo;
 import org.jooq.DSLContext;
+import org.spectralsieve.audit.ActingUser;
 import org.spectralsieve.SpectralSieveApplication;
 import org.spectralsieve.search.SearchService;
 import org.spectralsieve.spectra.ImportedSpectrumLookup;
@@ -21,11 +22,12 @@ class BackupConfiguration {
 
     /** After a restore the search store and the imported spectra are read again from the database. */
     @Bean
-    LibraryRestore libraryRestore(DSLContext db, Flyway flyway, SearchService search, ImportedSpectrumLookup spectra) {
+    LibraryRestore libraryRestore(DSLContext db, Flyway flyway, SearchService search, ImportedSpectrumLookup spectra,
+                                  ActingUser actor) {
         return new LibraryRestore(db, schemaVersion(flyway), () -> {
             search.invalidate();
             spectra.refresh();
-        });
+        }, actor);
     }
 
     /** The version of the last migration applied: an archive goes back only into a database at the same one. */

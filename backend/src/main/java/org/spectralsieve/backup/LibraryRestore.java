@@ -24,6 +24,9 @@ import org.jooq.Field;
 import org.jooq.Identity;
 import org.jooq.Table;
 import org.jooq.impl.DSL;
+import org.spectralsieve.audit.ActingUser;
+import org.spectralsieve.audit.AuditEntry;
+import org.spectralsieve.audit.AuditTrail;
 import org.spectralsieve.backup.ArchiveManifest.CurveChecksum;
 import org.spectralsieve.backup.ArchiveManifest.TableEntry;
 import org.spectralsieve.library.db.Tables;
@@ -41,7 +44,8 @@ import tools.jackson.databind.JsonNode;
  *       (on H2 this is a statement that commits on its own, which is why it comes before the rows: on an
  *       empty table it changes nothing but the next id);</li>
  *   <li>insert every row in one transaction, parents first, re-check every curve as the database now holds
- *       it, raise the library's change counter when the schema has one, and commit — or roll back all.</li>
+ *       it, raise the library's change counter when the schema has one, record the restore as one audit entry
+ *       after the archive's own (its id follows theirs), and commit — or roll back all.</li>
  * </ol>
  * The archive is read twice (check, then write) from the file, never held in memory.
  */
@@ -53,12 +57,19 @@ public class LibraryRestore {
     private final DSLContext db;
     private final Supplier<String> schemaVersion;
     private final Runnable afterCommit;
+    private final ActingUser actor;
 
     /** @param afterCommit run once the restored library is committed (drop derived in-memory copies) */
     public LibraryRestore(DSLContext db, Supplier<String> schemaVersion, Runnable afterCommit) {
+        this(db, schemaVersion, afterCommit, ActingUser.LOCAL);
+    }
+
+    /** @param actor who restores, recorded in the restore's audit entry */
+    public LibraryRestore(DSLContext db, Supplier<String> schemaVersion, Runnable afterCommit, ActingUser actor) {
         this.db = db;
         this.schemaVersion = schemaVersion;
         this.afterCommit = afterCommit;
+        this.actor = java.util.Objects.requireNonNull(actor, "actor");
     }
 
     public record Summary(String schemaVersion, Map<String, Long> rowsByTable, int curves) {
@@ -334,9 +345,14 @@ public class LibraryRestore {
             rows.put(pair.getKey().table(), insertRows(tx, zip, pair.getKey(), pair.getValue()));
         }
         recheckCurves(tx, manifest);
+        Summary summary = new Summary(manifest.schemaVersion(), rows, manifest.curves().size());
+        long total = rows.values().stream().mapToLong(Long::longValue).sum();
+        AuditTrail.record(tx, AuditEntry.by(actor, AuditEntry.ACTION_RESTORE_BACKUP, AuditEntry.SUBJECT_LIBRARY, null,
+                null, "restored the library from a backup written " + manifest.createdAt() + " by "
+                        + manifest.application() + ": " + total + " rows, " + summary.curves() + " curves", null, summary));
         LibraryTables.bookkeeping("library_generation")
                 .ifPresent(generation -> tx.execute("UPDATE {0} SET n = n + 1", generation));
-        return new Summary(manifest.schemaVersion(), rows, manifest.curves().size());
+        return summary;
     }
 
     private static long insertRows(DSLContext tx, ZipFile zip, TableEntry entry, Table<?> table) throws IOException {

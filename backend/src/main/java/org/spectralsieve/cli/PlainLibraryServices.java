@@ -15,6 +15,7 @@ import org.jooq.impl.DSL;
 import org.jooq.impl.DataSourceConnectionProvider;
 import org.jooq.impl.DefaultConfiguration;
 import org.spectralsieve.api.WeightingConfiguration;
+import org.spectralsieve.audit.ActingUser;
 import org.spectralsieve.library.H2CommitOnAnswer;
 import org.spectralsieve.library.JooqLibraryRepository;
 import org.spectralsieve.library.LibraryConfiguration;
@@ -59,9 +60,9 @@ final class PlainLibraryServices implements LibraryServices {
     /** Made at once, as the context makes its beans, so that a bad setting is refused before any answer. */
     private PlainLibraryServices(HikariDataSource dataSource, DSLContext db, PlainWiringSettings settings) {
         this.dataSource = dataSource;
-        this.repository = new JooqLibraryRepository(db);
+        this.repository = new JooqLibraryRepository(db, ActingUser.commandLine()); // read-only commands: none writes
         this.search = SearchConfiguration.newSearchService(repository, settings.curveCacheMb(), settings.judgementLanes());
-        this.spectra = WeightingConfiguration.newSpectrumLookup(new ReferenceSpectrumRepository(db));
+        this.spectra = WeightingConfiguration.newSpectrumLookup(new ReferenceSpectrumRepository(db, ActingUser.commandLine()));
         this.textSearch = TextSearchConfiguration.newTextSearch(repository, settings.indexFolder());
     }
 

@@ -154,11 +154,19 @@ final class SearchCommand implements Callable<Integer> {
         return lines;
     }
 
-    /** Under the table: the sample used as the fixed layer, and the caution for safety figures. */
+    /**
+     * Under the table: the sample used as the fixed layer, the library generation the answer was computed at, and the
+     * caution for safety figures.
+     */
     static List<String> notes(Shortlist shortlist) {
         List<String> lines = new ArrayList<>();
         shortlist.layer().ifPresent(layer -> lines.add("Light path: every result is judged as a stack, "
                 + layer.describe() + "."));
+        if (shortlist.libraryGeneration() != Shortlist.UNKNOWN_GENERATION) {
+            lines.add("Library generation " + shortlist.libraryGeneration() + ": each row names the sample and material"
+                    + " revisions it was judged on (docs/audit.md).");
+        }
+        // the caution stays the last line, where a reader's eye ends
         ShortlistJson.caution(shortlist.requirement()).ifPresent(c -> lines.add("Caution: " + c));
         return lines;
     }
@@ -183,6 +191,7 @@ final class SearchCommand implements Callable<Integer> {
             }
             List<String> lines = new ArrayList<>(explanations(row.evaluation()));
             sampleUsed(shortlist, row).ifPresent(lines::add);
+            revisionsUsed(shortlist, row).ifPresent(lines::add);
             table.add(cells(row, shortlist.geometry(row), solving), lines);
         }
         return table;
@@ -205,6 +214,13 @@ final class SearchCommand implements Callable<Integer> {
         double measured = shortlist.measuredMm(row);
         return shortlist.rescaled(row).map(rescaled -> "sample: " + (rescaled ? "rescaled from " : "measured at ")
                 + Numbers.mm(measured) + " mm");
+    }
+
+    /** "revisions: sample 2, material 1": what the row was judged on, to reproduce it later; empty when not known. */
+    static java.util.Optional<String> revisionsUsed(Shortlist shortlist, RankedRow row) {
+        Shortlist.Revisions r = shortlist.revisions(row);
+        return r == null ? java.util.Optional.empty()
+                : java.util.Optional.of("revisions: sample " + r.sample() + ", material " + r.material());
     }
 
     private static List<String> explanations(SampleEvaluation e) {

@@ -1,6 +1,7 @@
 package org.spectralsieve.curation;
 
 import org.jooq.DSLContext;
+import org.spectralsieve.audit.ActingUser;
 import org.spectralsieve.library.JooqLibraryRevisions;
 import org.spectralsieve.search.SearchService;
 import org.springframework.context.annotation.Bean;
@@ -11,8 +12,8 @@ import org.springframework.context.annotation.Configuration;
 class CurationConfiguration {
 
     @Bean
-    JooqLibraryRevisions libraryRevisions(DSLContext db) {
-        return new JooqLibraryRevisions(db);
+    JooqLibraryRevisions libraryRevisions(DSLContext db, ActingUser actor) {
+        return new JooqLibraryRevisions(db, actor);
     }
 
     @Bean

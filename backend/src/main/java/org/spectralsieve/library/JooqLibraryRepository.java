@@ -21,6 +21,12 @@ import org.jooq.Condition;
 import org.jooq.DSLContext;
 import org.jooq.Record;
 import org.jooq.impl.DSL;
+import org.spectralsieve.audit.ActingUser;
+import org.spectralsieve.audit.AuditEntry;
+import org.spectralsieve.audit.AuditTrail;
+import org.spectralsieve.library.AuditedValues.ImportedSample;
+import org.spectralsieve.library.AuditedValues.MaterialValues;
+import org.spectralsieve.library.AuditedValues.SampleValues;
 import org.spectralsieve.library.db.tables.records.CurveRecord;
 import org.spectralsieve.library.db.tables.records.MaterialRecord;
 import org.spectralsieve.library.db.tables.records.SampleRecord;
@@ -34,16 +40,25 @@ import org.spectralsieve.spectrum.Curve;
 
 /**
  * The library in the database. All SQL goes through jOOQ; callers only ever see the library's own
- * records and core types, never generated jOOQ records.
+ * records and core types, never generated jOOQ records. Every write records itself in the audit trail in its own
+ * transaction ({@link AuditTrail}), naming whoever the {@link ActingUser} says makes it.
  */
 public class JooqLibraryRepository {
 
     private static final Logger LOG = LoggerFactory.getLogger(JooqLibraryRepository.class);
 
     private final DSLContext db;
+    private final ActingUser actor;
 
+    /** Writes are recorded as the embedded single user's ({@link ActingUser#LOCAL}): for tests and tools. */
     public JooqLibraryRepository(DSLContext db) {
+        this(db, ActingUser.LOCAL);
+    }
+
+    /** @param actor who makes each write, asked inside the write's transaction */
+    public JooqLibraryRepository(DSLContext db, ActingUser actor) {
         this.db = db;
+        this.actor = java.util.Objects.requireNonNull(actor, "actor");
     }
 
     public long countMaterials() {
@@ -165,6 +180,8 @@ public class JooqLibraryRepository {
     public long insertMaterial(NewMaterial material) {
         return db.transactionResult(tx -> {
             long id = insertMaterialRow(tx.dsl(), material);
+            AuditTrail.record(tx.dsl(), AuditEntry.by(actor, AuditEntry.ACTION_IMPORT, AuditEntry.SUBJECT_MATERIAL, id, id,
+                    "added material " + id + " '" + material.name() + "'", null, MaterialValues.created(id, material)));
             LibraryGeneration.bump(tx.dsl(), id);
             return id;
         });
@@ -225,6 +242,7 @@ public class JooqLibraryRepository {
     public long insertSample(long materialId, NewSample sample) {
         return db.transactionResult(tx -> {
             long id = insertSampleRows(tx.dsl(), materialId, sample);
+            recordImport(tx.dsl(), materialId, null, id, sample, null);
             LibraryGeneration.bumpConcerningSample(tx.dsl(), materialId, id);
             return id;
         });
@@ -238,6 +256,7 @@ public class JooqLibraryRepository {
         return db.transactionResult(tx -> {
             long id = insertSampleRows(tx.dsl(), materialId, sample);
             insertSourceFile(tx.dsl(), id, file);
+            recordImport(tx.dsl(), materialId, null, id, sample, null);
             LibraryGeneration.bumpConcerningSample(tx.dsl(), materialId, id);
             return id;
         });
@@ -275,6 +294,7 @@ public class JooqLibraryRepository {
             }
             long sampleId = insertSampleRows(t, materialId, sample);
             insertSourceFile(t, sampleId, file);
+            recordImport(t, materialId, slug, sampleId, sample, target.created());
             if (existingMaterialId != null) {
                 LibraryGeneration.bumpConcerningSample(t, materialId, sampleId); // the material's row is as it was
             } else {
@@ -327,6 +347,8 @@ public class JooqLibraryRepository {
                 }
                 long sampleId = insertSampleRows(t, materialId, samples.get(i));
                 insertSourceFile(t, sampleId, file);
+                // the first sample stored names the material it made; the others go into it
+                recordImport(t, materialId, slug, sampleId, samples.get(i), wrote ? null : target.created());
                 stored.add(new StoredBlocks.Stored(sampleId, false));
                 wrote = true;
             }
@@ -372,21 +394,45 @@ public class JooqLibraryRepository {
                 .map(r -> new SourceFile(r.getFileName(), r.getMediaType(), r.getFormat(), r.getBytes(), r.getSha256()));
     }
 
-    /** The material an import stores under: an existing one (not retired), or the new one, inserted. */
-    private record Target(long materialId, String slug) {
+    /**
+     * The audit entry of one sample an import stored ({@link AuditEntry#ACTION_IMPORT}), in the import's transaction.
+     *
+     * @param materialSlug for the summary; null to name the material by id
+     * @param newMaterial  the material the import made for it, or null when it went into an existing one
+     */
+    private void recordImport(DSLContext t, long materialId, String materialSlug, long sampleId, NewSample sample,
+                              MaterialValues newMaterial) {
+        String file = sample.sourceFileName() == null || sample.sourceFileName().isBlank() ? ""
+                : " from " + sample.sourceFileName();
+        String into = (newMaterial != null ? "new material " : "material ")
+                + (materialSlug != null ? "'" + materialSlug + "' (" + materialId + ")" : String.valueOf(materialId));
+        ImportedSample after = new ImportedSample(SampleValues.imported(sampleId, materialId, sample),
+                sample.sourceFileName(), sample.sourceSha256(), sample.curve().size(), newMaterial);
+        AuditTrail.record(t, AuditEntry.by(actor, AuditEntry.ACTION_IMPORT, AuditEntry.SUBJECT_SAMPLE, sampleId,
+                materialId, "imported sample " + sampleId + " (" + sample.thicknessMm() + " mm, "
+                        + sample.geometry().label() + ") into " + into + file, null, after));
+    }
+
+    /**
+     * The material an import stores under: an existing one (not retired), or the new one, inserted.
+     *
+     * @param created the material as inserted when the import made it, else null
+     */
+    private record Target(long materialId, String slug, MaterialValues created) {
     }
 
     private static Target target(DSLContext t, Long existingMaterialId, NewMaterial newMaterial) {
         if (existingMaterialId == null) {
             NewMaterial unique = withUniqueSlug(t, newMaterial);
-            return new Target(insertMaterialRow(t, unique), unique.slug());
+            long id = insertMaterialRow(t, unique);
+            return new Target(id, unique.slug(), MaterialValues.created(id, unique));
         }
         Record row = t.select(MATERIAL.SLUG, MATERIAL.RETIRED_AT).from(MATERIAL).where(MATERIAL.ID.eq(existingMaterialId))
                 .fetchOptional().orElseThrow(() -> new NotFoundException("material", existingMaterialId));
         if (row.get(MATERIAL.RETIRED_AT) != null) {
             throw new RetiredException("material", existingMaterialId, row.get(MATERIAL.RETIRED_AT).toInstant());
         }
-        return new Target(existingMaterialId, row.get(MATERIAL.SLUG));
+        return new Target(existingMaterialId, row.get(MATERIAL.SLUG), null);
     }
 
     private static NewMaterial withUniqueSlug(DSLContext t, NewMaterial m) {

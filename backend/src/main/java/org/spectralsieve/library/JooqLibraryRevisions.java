@@ -15,6 +15,11 @@ import java.util.List;
 import java.util.Optional;
 import java.util.function.Consumer;
 import org.jooq.DSLContext;
+import org.spectralsieve.audit.ActingUser;
+import org.spectralsieve.audit.AuditEntry;
+import org.spectralsieve.audit.AuditTrail;
+import org.spectralsieve.library.AuditedValues.MaterialValues;
+import org.spectralsieve.library.AuditedValues.SampleValues;
 import org.spectralsieve.library.db.tables.records.MaterialRecord;
 import org.spectralsieve.library.db.tables.records.MaterialRevisionRecord;
 import org.spectralsieve.library.db.tables.records.SampleRecord;
@@ -30,6 +35,9 @@ import org.spectralsieve.library.db.tables.records.SampleRevisionRecord;
  * join); the revision tables hold every revision of a corrected row, revision 1 copied from the row by the
  * first correction in the same transaction. A row never corrected has no revision rows: it is its own
  * revision 1.
+ *
+ * <p>Each of the three writes records itself in the audit trail in its transaction, with the values before and after
+ * ({@link AuditTrail}); a refused correction and a retire or restore that finds nothing to change record nothing.
  */
 public class JooqLibraryRevisions {
 
@@ -58,9 +66,17 @@ public class JooqLibraryRevisions {
     }
 
     private final DSLContext db;
+    private final ActingUser actor;
 
+    /** Changes are recorded as the embedded single user's ({@link ActingUser#LOCAL}): for tests and tools. */
     public JooqLibraryRevisions(DSLContext db) {
+        this(db, ActingUser.LOCAL);
+    }
+
+    /** @param actor who makes each change, asked inside the change's transaction */
+    public JooqLibraryRevisions(DSLContext db, ActingUser actor) {
         this.db = db;
+        this.actor = java.util.Objects.requireNonNull(actor, "actor");
     }
 
     /**
@@ -81,6 +97,11 @@ public class JooqLibraryRevisions {
                     return new Retirement(kind, id, JooqLibraryRepository.instant(row.getRetiredAt()), false);
                 }
                 t.update(SAMPLE).set(SAMPLE.RETIRED_AT, retire ? now : null).where(SAMPLE.ID.eq(id)).execute();
+                SampleValues before = SampleValues.of(JooqLibraryRepository.toSample(row));
+                AuditTrail.record(t, AuditEntry.by(actor, retire ? AuditEntry.ACTION_RETIRE : AuditEntry.ACTION_RESTORE,
+                        AuditEntry.SUBJECT_SAMPLE, id, row.getMaterialId(), (retire ? "retired" : "restored")
+                                + " sample " + id + " (" + row.getThicknessMm() + " mm) of material " + row.getMaterialId(),
+                        before, before.withRetiredAt(retire ? now.toInstant() : null)));
                 LibraryGeneration.bumpConcerningSample(t, row.getMaterialId(), id);
             } else {
                 MaterialRecord row = t.selectFrom(MATERIAL).where(MATERIAL.ID.eq(id)).forUpdate().fetchOptional()
@@ -89,6 +110,10 @@ public class JooqLibraryRevisions {
                     return new Retirement(kind, id, JooqLibraryRepository.instant(row.getRetiredAt()), false);
                 }
                 t.update(MATERIAL).set(MATERIAL.RETIRED_AT, retire ? now : null).where(MATERIAL.ID.eq(id)).execute();
+                MaterialValues before = MaterialValues.of(JooqLibraryRepository.toMaterial(row, List.of()));
+                AuditTrail.record(t, AuditEntry.by(actor, retire ? AuditEntry.ACTION_RETIRE : AuditEntry.ACTION_RESTORE,
+                        AuditEntry.SUBJECT_MATERIAL, id, id, (retire ? "retired" : "restored") + " material " + id
+                                + " '" + row.getName() + "'", before, before.withRetiredAt(retire ? now.toInstant() : null)));
                 LibraryGeneration.bump(t, id);
             }
             return new Retirement(kind, id, retire ? now.toInstant() : null, true);
@@ -129,6 +154,10 @@ public class JooqLibraryRevisions {
                     .set(SAMPLE.DETECTION_LIMIT, next.detectionLimit())
                     .set(SAMPLE.REVISION, next.revision())
                     .where(SAMPLE.ID.eq(id)).execute();
+            AuditTrail.record(t, AuditEntry.by(actor, AuditEntry.ACTION_CORRECT, AuditEntry.SUBJECT_SAMPLE, id,
+                    row.getMaterialId(), "corrected sample " + id + ": revision " + now.revision() + " to "
+                            + next.revision() + reasonText(correction.reason()),
+                    SampleValues.of(now), SampleValues.of(next)));
             LibraryGeneration.bumpConcerningSample(t, row.getMaterialId(), id);
             return toRevision(next, correction.reason(), at.toInstant(), true);
         });
@@ -180,6 +209,11 @@ public class JooqLibraryRevisions {
                     .set(MATERIAL.MADE_MAX_MM, update.getMadeMaxMm())
                     .set(MATERIAL.REVISION, next)
                     .where(MATERIAL.ID.eq(id)).execute();
+            Material after = JooqLibraryRepository.toMaterial(t.selectFrom(MATERIAL).where(MATERIAL.ID.eq(id)).fetchSingle(),
+                    List.of());
+            AuditTrail.record(t, AuditEntry.by(actor, AuditEntry.ACTION_CORRECT, AuditEntry.SUBJECT_MATERIAL, id, id,
+                    "corrected material " + id + " '" + row.getName() + "': revision " + now.revision() + " to " + next
+                            + reasonText(correction.reason()), MaterialValues.of(now), MaterialValues.of(after)));
             LibraryGeneration.bump(t, id);
             return toRevision(stored, true);
         });
@@ -235,6 +269,10 @@ public class JooqLibraryRevisions {
     public List<SampleInfo> retiredSamplesOf(long materialId) {
         return db.selectFrom(SAMPLE).where(SAMPLE.MATERIAL_ID.eq(materialId)).and(SAMPLE.RETIRED_AT.isNotNull())
                 .orderBy(SAMPLE.THICKNESS_MM, SAMPLE.ID).fetch().stream().map(JooqLibraryRepository::toSample).toList();
+    }
+
+    private static String reasonText(String reason) {
+        return reason == null || reason.isBlank() ? "" : " (" + reason.strip() + ")";
     }
 
     /** Now, to the microsecond both H2 and PostgreSQL keep, so the answer shows the instant stored. */

@@ -1,6 +1,7 @@
 package org.spectralsieve.library;
 
 import org.jooq.DSLContext;
+import org.spectralsieve.audit.ActingUser;
 import org.jooq.conf.RenderQuotedNames;
 import org.springframework.boot.jooq.autoconfigure.DefaultConfigurationCustomizer;
 import org.springframework.context.annotation.Bean;
@@ -26,8 +27,8 @@ public class LibraryConfiguration {
     }
 
     @Bean
-    JooqLibraryRepository libraryRepository(DSLContext db) {
-        return new JooqLibraryRepository(db);
+    JooqLibraryRepository libraryRepository(DSLContext db, ActingUser actor) {
+        return new JooqLibraryRepository(db, actor);
     }
 
     @Bean

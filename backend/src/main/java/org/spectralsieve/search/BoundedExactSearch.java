@@ -352,7 +352,7 @@ final class BoundedExactSearch {
         List<RankedRow> rows = rank(s, requirement, exact, limit); // once, from every judgement: the answer's own rows
         double tookMs = (System.nanoTime() - started) / 1e6;
         return new Shortlist(requirement, rows, admitted, exact.size(), tookMs, layer, geometries(s, rows),
-                revisions(s, rows), measured(s, rows));
+                revisions(s, rows), measured(s, rows), s.generation());
     }
 
     /** The materials of a solve with a row whose bins the screen left unread, by index in the snapshot's slots. */

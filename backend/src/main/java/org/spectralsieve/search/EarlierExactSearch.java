@@ -125,6 +125,6 @@ final class EarlierExactSearch {
         }
         double tookMs = (System.nanoTime() - started) / 1e6;
         return new Shortlist(requirement, rows, admitted, exact.size(), tookMs, layer, geometries(s, rows),
-                revisions(s, rows), measured(s, rows));
+                revisions(s, rows), measured(s, rows), s.generation());
     }
 }

@@ -19,11 +19,16 @@ import org.spectralsieve.requirement.StackLayer;
  * {@code revisions}: the revision of each row's sample and of its material the row was judged on, keyed by
  * sample id (docs/undo.md). {@code sampleMeasuredMm}: the thickness each row's sample was measured at, keyed by
  * sample id (absent when not recorded), so a row can say whether its curve is the measured one or rescaled
- * from it (docs/result-rows.md).
+ * from it (docs/result-rows.md). {@code libraryGeneration}: the library's change counter the answer was computed at
+ * (its snapshot holds every change committed up to that number; {@link #UNKNOWN_GENERATION} when not known), so that
+ * with each row's revisions a result can be traced and reproduced later (docs/audit.md).
  */
 public record Shortlist(Requirement requirement, List<RankedRow> rows, int evaluatedSamples, int judgedExactly,
                         double tookMs, Optional<StackLayer> layer, Map<Long, String> sampleGeometry,
-                        Map<Long, Revisions> revisions, Map<Long, Double> sampleMeasuredMm) {
+                        Map<Long, Revisions> revisions, Map<Long, Double> sampleMeasuredMm, long libraryGeneration) {
+
+    /** {@link #libraryGeneration()} of an answer not computed from a snapshot of the library. */
+    public static final long UNKNOWN_GENERATION = -1;
 
     /** Which revision of a row's sample and of its material the row was judged on. */
     public record Revisions(int sample, int material) {
@@ -38,6 +43,13 @@ public record Shortlist(Requirement requirement, List<RankedRow> rows, int evalu
                      double tookMs, Optional<StackLayer> layer, Map<Long, String> sampleGeometry,
                      Map<Long, Revisions> revisions) {
         this(requirement, rows, evaluatedSamples, judgedExactly, tookMs, layer, sampleGeometry, revisions, Map.of());
+    }
+
+    public Shortlist(Requirement requirement, List<RankedRow> rows, int evaluatedSamples, int judgedExactly,
+                     double tookMs, Optional<StackLayer> layer, Map<Long, String> sampleGeometry,
+                     Map<Long, Revisions> revisions, Map<Long, Double> sampleMeasuredMm) {
+        this(requirement, rows, evaluatedSamples, judgedExactly, tookMs, layer, sampleGeometry, revisions,
+                sampleMeasuredMm, UNKNOWN_GENERATION);
     }
 
     public Shortlist {

@@ -85,7 +85,7 @@ final class StorePickedSearch {
         }
         double tookMs = (System.nanoTime() - started) / 1e6;
         return new Shortlist(requirement, rows, picked.evaluatedSamples(), exact.size(), tookMs, Optional.empty(),
-                geometries(s, rows), revisions(s, rows), measured(s, rows));
+                geometries(s, rows), revisions(s, rows), measured(s, rows), s.generation());
     }
 
     /** In {@link #searchOn}'s map of materials to judge: no store curve speaks for the material's samples. */

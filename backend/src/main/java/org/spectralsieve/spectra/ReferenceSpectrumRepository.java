@@ -12,6 +12,9 @@ import org.jooq.Condition;
 import org.jooq.DSLContext;
 import org.jooq.Record;
 import org.jooq.SelectField;
+import org.spectralsieve.audit.ActingUser;
+import org.spectralsieve.audit.AuditEntry;
+import org.spectralsieve.audit.AuditTrail;
 import org.spectralsieve.importers.SpectrumValues;
 import org.spectralsieve.library.LibraryGeneration;
 import org.spectralsieve.library.PackedArrays;
@@ -22,7 +25,8 @@ import org.spectralsieve.library.db.tables.records.ReferenceSpectrumRecord;
  * Imported reference spectra in the database (table {@code reference_spectrum}). All SQL goes through
  * jOOQ; callers see {@link ReferenceSpectrum} and {@link SourceFile}, never generated records. Rows are
  * inserted, then only ever retired or restored (docs/undo.md): every read but the retired listing sees the
- * spectra in use, and no ordinary path deletes a row.
+ * spectra in use, and no ordinary path deletes a row. Each import, retirement and restoration records itself in the
+ * audit trail in its transaction ({@link AuditTrail}; subject kind {@code emitter} or {@code response}).
  */
 public class ReferenceSpectrumRepository {
 
@@ -40,9 +44,40 @@ public class ReferenceSpectrumRepository {
     private static final Condition IN_USE = REFERENCE_SPECTRUM.RETIRED_KEY.eq(0L);
 
     private final DSLContext db;
+    private final ActingUser actor;
 
+    /** Changes are recorded as the embedded single user's ({@link ActingUser#LOCAL}): for tests and tools. */
     public ReferenceSpectrumRepository(DSLContext db) {
+        this(db, ActingUser.LOCAL);
+    }
+
+    /** @param actor who makes each change, asked inside the change's transaction */
+    public ReferenceSpectrumRepository(DSLContext db, ActingUser actor) {
         this.db = Objects.requireNonNull(db, "db");
+        this.actor = Objects.requireNonNull(actor, "actor");
+    }
+
+    /** An imported spectrum as the audit trail records it: what names and traces it, not its points. */
+    public record AuditedSpectrum(long id, String kind, String name, String description, String provenanceNote,
+                                  String valueColumn, int points, String sourceFileName, String sourceSha256,
+                                  OffsetDateTime retiredAt) {
+    }
+
+    private static AuditedSpectrum audited(DSLContext t, long id) {
+        return t.select(REFERENCE_SPECTRUM.ID, REFERENCE_SPECTRUM.KIND, REFERENCE_SPECTRUM.NAME,
+                        REFERENCE_SPECTRUM.DESCRIPTION, REFERENCE_SPECTRUM.PROVENANCE_NOTE, REFERENCE_SPECTRUM.VALUE_COLUMN,
+                        REFERENCE_SPECTRUM.POINT_COUNT, REFERENCE_SPECTRUM.SOURCE_FILE_NAME,
+                        REFERENCE_SPECTRUM.SOURCE_SHA256, REFERENCE_SPECTRUM.RETIRED_AT)
+                .from(REFERENCE_SPECTRUM).where(REFERENCE_SPECTRUM.ID.eq(id))
+                .fetchSingle(r -> new AuditedSpectrum(r.value1(), r.value2(), r.value3(), r.value4(), r.value5(),
+                        r.value6(), r.value7(), r.value8(), r.value9(), r.value10()));
+    }
+
+    /** One audit entry of a change of spectrum {@code id}, in the change's transaction. */
+    private void record(DSLContext t, String action, String verb, AuditedSpectrum before, long id) {
+        AuditedSpectrum after = audited(t, id);
+        AuditTrail.record(t, AuditEntry.by(actor, action, after.kind(), id, null,
+                verb + " " + after.kind() + " " + id + " '" + after.name() + "'", before, after));
     }
 
     /**
@@ -60,6 +95,7 @@ public class ReferenceSpectrumRepository {
                     throw new SpectrumNameTakenException(s.kind(), s.name());
                 }
                 long stored = insertRow(t, s);
+                record(t, AuditEntry.ACTION_IMPORT, "imported", null, stored);
                 LibraryGeneration.bumpConcerningNoMaterial(t);
                 return stored;
             });
@@ -142,11 +178,13 @@ public class ReferenceSpectrumRepository {
             Optional<Long> id = t.select(REFERENCE_SPECTRUM.ID).from(REFERENCE_SPECTRUM)
                     .where(REFERENCE_SPECTRUM.KIND.eq(kind.label()).and(REFERENCE_SPECTRUM.NAME.eq(name)).and(IN_USE))
                     .forUpdate().fetchOptional(REFERENCE_SPECTRUM.ID);
+            AuditedSpectrum before = id.map(i -> audited(t, i)).orElse(null);
             id.ifPresent(i -> t.update(REFERENCE_SPECTRUM)
                     .set(REFERENCE_SPECTRUM.RETIRED_AT, OffsetDateTime.now(ZoneOffset.UTC).truncatedTo(java.time.temporal.ChronoUnit.MICROS))
                     .set(REFERENCE_SPECTRUM.RETIRED_KEY, i)
                     .where(REFERENCE_SPECTRUM.ID.eq(i)).execute());
             if (id.isPresent()) {
+                record(t, AuditEntry.ACTION_RETIRE, "retired", before, id.get());
                 LibraryGeneration.bumpConcerningNoMaterial(t);
             }
             return id;
@@ -179,8 +217,10 @@ public class ReferenceSpectrumRepository {
                         .and(REFERENCE_SPECTRUM.NAME.eq(name)).and(IN_USE))) {
                     throw new SpectrumNameTakenException(kind, name);
                 }
+                AuditedSpectrum before = audited(t, found.get());
                 t.update(REFERENCE_SPECTRUM).setNull(REFERENCE_SPECTRUM.RETIRED_AT).set(REFERENCE_SPECTRUM.RETIRED_KEY, 0L)
                         .where(REFERENCE_SPECTRUM.ID.eq(found.get())).execute();
+                record(t, AuditEntry.ACTION_RESTORE, "restored", before, found.get());
                 LibraryGeneration.bumpConcerningNoMaterial(t);
                 return found;
             });

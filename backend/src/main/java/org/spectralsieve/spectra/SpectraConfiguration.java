@@ -1,6 +1,7 @@
 package org.spectralsieve.spectra;
 
 import org.jooq.DSLContext;
+import org.spectralsieve.audit.ActingUser;
 import org.spectralsieve.ingest.ImportProperties;
 import org.springframework.context.annotation.Bean;
 import org.springframework.context.annotation.Configuration;
@@ -10,8 +11,8 @@ import org.springframework.context.annotation.Configuration;
 class SpectraConfiguration {
 
     @Bean
-    ReferenceSpectrumRepository referenceSpectrumRepository(DSLContext db) {
-        return new ReferenceSpectrumRepository(db);
+    ReferenceSpectrumRepository referenceSpectrumRepository(DSLContext db, ActingUser actor) {
+        return new ReferenceSpectrumRepository(db, actor);
     }
 
     @Bean

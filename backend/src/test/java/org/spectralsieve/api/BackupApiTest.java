@@ -65,17 +65,28 @@ class BackupApiTest {
         assertThat(backup.headers().firstValue("Content-Type").orElse("")).startsWith("application/zip");
         assertThat(backup.headers().firstValue("Content-Disposition").orElse(""))
                 .matches("attachment; filename=\"spectral-sieve-backup-\\d{8}T\\d{6}Z\\.zip\"");
-        assertThat(tableEntries(backup.body())).isEqualTo(tableEntries(archive));
+        // the same rows byte for byte, but for the audit trail: the archive's entries and then the restore's own
+        Map<String, String> after = tableEntries(backup.body(), "sha256");
+        Map<String, String> before = tableEntries(archive, "sha256");
+        String audit = before.keySet().stream().filter(k -> k.endsWith("-audit_entry.jsonl")).findFirst().orElseThrow();
+        assertThat(Long.parseLong(tableEntries(backup.body(), "rows").get(audit)))
+                .isEqualTo(Long.parseLong(tableEntries(archive, "rows").get(audit)) + 1);
+        after.remove(audit);
+        before.remove(audit);
+        assertThat(after).isEqualTo(before);
     }
 
-    /** Each table entry's SHA-256 as the manifest gives it: equal means the same rows, byte for byte. */
-    private static Map<String, String> tableEntries(byte[] archive) throws Exception {
+    /**
+     * Each table entry's {@code field} as the manifest gives it ({@code sha256}: equal means the same rows, byte for
+     * byte; {@code rows}: how many).
+     */
+    private static Map<String, String> tableEntries(byte[] archive, String field) throws Exception {
         try (ZipInputStream zip = new ZipInputStream(new ByteArrayInputStream(archive))) {
             for (ZipEntry e = zip.getNextEntry(); e != null; e = zip.getNextEntry()) {
                 if (e.getName().equals("manifest.json")) {
                     Map<String, String> entries = new LinkedHashMap<>();
                     JSON.readTree(zip.readAllBytes()).path("tables")
-                            .forEach(t -> entries.put(t.path("entry").asString(), t.path("sha256").asString()));
+                            .forEach(t -> entries.put(t.path("entry").asString(), t.path(field).asString()));
                     return entries;
                 }
             }

@@ -22,10 +22,14 @@ import org.spectralsieve.library.PackedArrays;
  */
 final class CrashedFileCheck {
 
-    /** Row counts of the copy: what must never fall from one crash to the next. */
-    record Counts(long materials, long samples, long spectra) {
+    /**
+     * Row counts of the copy: what must never fall from one crash to the next. The audit trail's highest id must not
+     * fall either: with its rows never lost and its ids a primary key, an id handed out again would have to collide.
+     */
+    record Counts(long materials, long samples, long spectra, long auditEntries, long highestAuditId) {
         boolean below(Counts earlier) {
-            return materials < earlier.materials || samples < earlier.samples || spectra < earlier.spectra;
+            return materials < earlier.materials || samples < earlier.samples || spectra < earlier.spectra
+                    || auditEntries < earlier.auditEntries || highestAuditId < earlier.highestAuditId;
         }
     }
 
@@ -153,6 +157,16 @@ final class CrashedFileCheck {
         query(db, "SELECT c.sample_id FROM curve c JOIN source_file f ON f.sample_id = c.sample_id"
                         + " WHERE c.source_sha256 <> f.sha256 OR f.size_bytes <> OCTET_LENGTH(f.bytes)",
                 r -> "sample " + r.getLong(1) + ": its curve and its source file disagree", found);
+        // the audit entry is written in the import's transaction: a stored sample or spectrum without one is half a change
+        query(db, "SELECT id FROM sample s WHERE NOT EXISTS (SELECT 1 FROM audit_entry a WHERE a.subject_kind = 'sample'"
+                        + " AND a.subject_id = s.id AND a.action = 'import')",
+                r -> "sample " + r.getLong(1) + " has no import entry in the audit trail", found);
+        query(db, "SELECT kind, name FROM reference_spectrum r WHERE NOT EXISTS (SELECT 1 FROM audit_entry a"
+                        + " WHERE a.subject_kind = r.kind AND a.subject_id = r.id AND a.action = 'import')",
+                r -> r.getString(1) + " " + r.getString(2) + " has no import entry in the audit trail", found);
+        query(db, "SELECT a.id FROM audit_entry a WHERE a.subject_kind = 'sample' AND a.action = 'import'"
+                        + " AND NOT EXISTS (SELECT 1 FROM sample s WHERE s.id = a.subject_id)",
+                r -> "audit entry " + r.getLong(1) + " records an import whose sample is not stored", found);
         query(db, "SELECT kind, name FROM reference_spectrum WHERE OCTET_LENGTH(wavelengths_nm) <> 8 * point_count"
                         + " OR OCTET_LENGTH(relative_values) <> 8 * point_count",
                 r -> r.getString(1) + " " + r.getString(2) + " has a cut array", found);
@@ -161,7 +175,8 @@ final class CrashedFileCheck {
 
     private static Counts counts(Connection db) throws SQLException {
         return new Counts(single(db, "SELECT COUNT(*) FROM material"), single(db, "SELECT COUNT(*) FROM sample"),
-                single(db, "SELECT COUNT(*) FROM reference_spectrum"));
+                single(db, "SELECT COUNT(*) FROM reference_spectrum"), single(db, "SELECT COUNT(*) FROM audit_entry"),
+                single(db, "SELECT COALESCE(MAX(id), 0) FROM audit_entry"));
     }
 
     private interface Row {

@@ -2,6 +2,7 @@ package org.spectralsieve.ingest;
 
 import static org.assertj.core.api.Assertions.assertThat;
 import static org.assertj.core.api.Assertions.assertThatThrownBy;
+import static org.spectralsieve.library.db.Tables.AUDIT_ENTRY;
 import static org.spectralsieve.library.db.Tables.CURVE;
 import static org.spectralsieve.library.db.Tables.MATERIAL;
 import static org.spectralsieve.library.db.Tables.SAMPLE;
@@ -59,7 +60,8 @@ class EachBlockImportTest {
     }
 
     private List<Integer> rowCounts() {
-        return List.of(db.fetchCount(MATERIAL), db.fetchCount(SAMPLE), db.fetchCount(CURVE), db.fetchCount(SOURCE_FILE));
+        return List.of(db.fetchCount(MATERIAL), db.fetchCount(SAMPLE), db.fetchCount(CURVE), db.fetchCount(SOURCE_FILE),
+                db.fetchCount(AUDIT_ENTRY)); // one audit entry per stored sample, none for a refused import
     }
 
     @Test
@@ -78,7 +80,7 @@ class EachBlockImportTest {
         // each stored curve is its block's: A = 2 at 300 nm in block 2 is T = 10^-2 (IUPAC Gold Book A00028)
         assertThat(library.findCurve(r.blocks().get(1).sample().id()).orElseThrow().transmittance(0)).isEqualTo(0.01);
         assertThat(r.warnings()).noneMatch(w -> w.contains("left out"));
-        assertThat(rowCounts()).containsExactly(1, 2, 2, 2);
+        assertThat(rowCounts()).containsExactly(1, 2, 2, 2, 2);
         assertThat(invalidations.get()).as("one commit, one invalidation").isEqualTo(1);
     }
 
@@ -99,7 +101,7 @@ class EachBlockImportTest {
         assertThatThrownBy(() -> service(library).store("series.jdx", file, each(), amberFilm(), thin(null)))
                 .isInstanceOf(ImportException.class).hasMessageContaining("eachBlock stores every block or none");
 
-        assertThat(rowCounts()).containsExactly(0, 0, 0, 0);
+        assertThat(rowCounts()).containsExactly(0, 0, 0, 0, 0);
         assertThat(invalidations.get()).isZero();
     }
 
@@ -119,7 +121,7 @@ class EachBlockImportTest {
         assertThatThrownBy(() -> service(failing).store("series.jdx", series(), each(), amberFilm(), thin(null)))
                 .hasMessageContaining("forced failure");
 
-        assertThat(rowCounts()).containsExactly(0, 0, 0, 0);
+        assertThat(rowCounts()).containsExactly(0, 0, 0, 0, 0);
     }
 
     @Test
@@ -134,7 +136,7 @@ class EachBlockImportTest {
         assertThat(again.sampleIds()).isEqualTo(first.sampleIds());
         assertThat(again.warnings()).anySatisfy(w -> assertThat(w).contains("block 2 'amber film, 10 min under the 365 nm"
                 + " lamp' of this file", "already stored", "as sample " + first.sampleIds().get(1)));
-        assertThat(rowCounts()).containsExactly(1, 2, 2, 2);
+        assertThat(rowCounts()).containsExactly(1, 2, 2, 2, 2);
         assertThat(invalidations.get()).isEqualTo(1);
     }
 
@@ -150,7 +152,7 @@ class EachBlockImportTest {
         assertThat(two.sampleId()).isNotEqualTo(one.sampleId());
         assertThat(one.warnings()).anySatisfy(w -> assertThat(w).contains("Imported block 1 only", "left out"));
         assertThat(two.sample().notes()).startsWith("JCAMP-DX block 2 of the 2 spectra");
-        assertThat(rowCounts()).containsExactly(1, 2, 2, 2);
+        assertThat(rowCounts()).containsExactly(1, 2, 2, 2, 2);
     }
 
     @Test
@@ -164,7 +166,7 @@ class EachBlockImportTest {
         assertThat(all.duplicate()).isFalse();
         assertThat(all.blocks()).extracting(ImportResult.BlockSample::duplicate).containsExactly(false, true);
         assertThat(all.blocks().get(1).sample().id()).isEqualTo(two.sampleId());
-        assertThat(rowCounts()).containsExactly(1, 2, 2, 2);
+        assertThat(rowCounts()).containsExactly(1, 2, 2, 2, 2);
     }
 
     @Test
@@ -176,6 +178,6 @@ class EachBlockImportTest {
                 new ImportTarget.ExistingMaterial(thin.materialId()), SampleFields.thickness(0.2));
 
         assertThat(thick.duplicate()).isFalse();
-        assertThat(rowCounts()).containsExactly(1, 2, 2, 2);
+        assertThat(rowCounts()).containsExactly(1, 2, 2, 2, 2);
     }
 }

@@ -2,6 +2,7 @@ package org.spectralsieve.ingest;
 
 import static org.assertj.core.api.Assertions.assertThat;
 import static org.assertj.core.api.Assertions.assertThatThrownBy;
+import static org.spectralsieve.library.db.Tables.AUDIT_ENTRY;
 import static org.spectralsieve.library.db.Tables.CURVE;
 import static org.spectralsieve.library.db.Tables.MATERIAL;
 import static org.spectralsieve.library.db.Tables.SAMPLE;
@@ -42,7 +43,8 @@ class ImportServiceTest {
     }
 
     private List<Integer> rowCounts() {
-        return List.of(db.fetchCount(MATERIAL), db.fetchCount(SAMPLE), db.fetchCount(CURVE), db.fetchCount(SOURCE_FILE));
+        return List.of(db.fetchCount(MATERIAL), db.fetchCount(SAMPLE), db.fetchCount(CURVE), db.fetchCount(SOURCE_FILE),
+                db.fetchCount(AUDIT_ENTRY)); // one audit entry per stored sample, none for a refused import
     }
 
     @Test
@@ -60,7 +62,7 @@ class ImportServiceTest {
         assertThatThrownBy(() -> service(failing).store("sheet.csv", bytes, ImportOptions.defaults(), newSheet("Illustrative atomic"),
                 SampleFields.thickness(3))).hasMessageContaining("forced failure");
 
-        assertThat(rowCounts()).containsExactly(0, 0, 0, 0);
+        assertThat(rowCounts()).containsExactly(0, 0, 0, 0, 0);
         assertThat(invalidations.get()).isZero();
     }
 
@@ -77,7 +79,7 @@ class ImportServiceTest {
         assertThat(again.duplicate()).isTrue();
         assertThat(again.sampleId()).isEqualTo(first.sampleId());
         assertThat(invalidations.get()).isEqualTo(1);
-        assertThat(rowCounts()).containsExactly(1, 1, 1, 1);
+        assertThat(rowCounts()).containsExactly(1, 1, 1, 1, 1);
     }
 
     @Test
