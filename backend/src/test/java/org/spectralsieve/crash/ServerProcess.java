@@ -79,6 +79,16 @@ public final class ServerProcess implements AutoCloseable {
         return server;
     }
 
+    /**
+     * The extra arguments that put the service on a PostgreSQL database (the {@code postgres} profile): every
+     * process the tests start on PostgreSQL, a crash-test server or an application node, is told this and only
+     * this about the database.
+     */
+    public static List<String> postgresArguments(String jdbcUrl, String user, String password) {
+        return List.of("--spring.profiles.active=postgres", "--spring.datasource.url=" + jdbcUrl,
+                "--spring.datasource.username=" + user, "--spring.datasource.password=" + password);
+    }
+
     public int port() {
         return port;
     }

@@ -82,9 +82,7 @@ class TwoNodesOnOnePostgresTest {
 
     /** Everything a node is told about the shared database, in one place. */
     private static List<String> nodeArguments(String databaseUrl) {
-        return List.of("--spring.profiles.active=postgres", "--spring.datasource.url=" + databaseUrl,
-                "--spring.datasource.username=" + TestPostgres.user(),
-                "--spring.datasource.password=" + TestPostgres.password());
+        return ServerProcess.postgresArguments(databaseUrl, TestPostgres.user(), TestPostgres.password());
     }
 
     @Test
