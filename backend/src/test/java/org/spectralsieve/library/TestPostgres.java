@@ -25,8 +25,20 @@ public final class TestPostgres {
     /** Points the application's data source at that database. */
     public static void register(DynamicPropertyRegistry registry) {
         registry.add("spring.datasource.url", TestPostgres::url);
+        credentialsAndSmallPool(registry);
+    }
+
+    /**
+     * The test's user, and a pool that gives its connections back when idle: Spring keeps every test context
+     * of a run open (its context cache), and a dozen contexts holding the default ten connections each would
+     * take most of a PostgreSQL server's hundred, which the tests of a shared machine share.
+     */
+    private static void credentialsAndSmallPool(DynamicPropertyRegistry registry) {
         registry.add("spring.datasource.username", TestPostgres::user);
         registry.add("spring.datasource.password", TestPostgres::password);
+        registry.add("spring.datasource.hikari.maximum-pool-size", () -> "4");
+        registry.add("spring.datasource.hikari.minimum-idle", () -> "0");
+        registry.add("spring.datasource.hikari.idle-timeout", () -> "10000");
     }
 
     /**
@@ -37,8 +49,7 @@ public final class TestPostgres {
     public static void registerFreshSchema(DynamicPropertyRegistry registry, String prefix) {
         String url = freshSchema(prefix);
         registry.add("spring.datasource.url", () -> url);
-        registry.add("spring.datasource.username", TestPostgres::user);
-        registry.add("spring.datasource.password", TestPostgres::password);
+        credentialsAndSmallPool(registry);
     }
 
     /**
