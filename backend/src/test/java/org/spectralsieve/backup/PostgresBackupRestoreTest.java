@@ -2,16 +2,22 @@ package org.spectralsieve.backup;
 
 import static org.assertj.core.api.Assertions.assertThat;
 
+import java.io.InputStream;
+import java.io.OutputStream;
+import java.nio.file.Files;
+import java.nio.file.Path;
 import java.sql.Connection;
 import java.sql.DriverManager;
 import java.sql.SQLException;
 import java.sql.Statement;
 import java.util.List;
+import java.util.zip.ZipFile;
 import org.jooq.DSLContext;
 import org.junit.jupiter.api.AfterEach;
 import org.junit.jupiter.api.BeforeEach;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.condition.EnabledIfEnvironmentVariable;
+import org.junit.jupiter.api.io.TempDir;
 import org.spectralsieve.library.TestPostgres;
 import org.springframework.context.ConfigurableApplicationContext;
 
@@ -47,6 +53,59 @@ class PostgresBackupRestoreTest {
 
             RestoredLibrary.assertSameAs(source.context, target);
             BackupRestoreTest.assertNewRowsGetUnusedIds(target, source.context.getBean(DSLContext.class));
+        }
+    }
+
+    /**
+     * H2 → PostgreSQL → H2: the archive PostgreSQL writes back is, table by table, the very bytes the H2 archive
+     * held (each entry's SHA-256 in the manifests, for every table the archive lists, whatever migrations added),
+     * and the H2 library restored from it is row for row and in its shortlists the original.
+     */
+    @Test
+    void aLibraryTakenH2ToPostgresAndBackToH2KeepsEveryTablesChecksumAndItsShortlists(@TempDir Path dir) throws Exception {
+        SourceLibrary source = SourceLibrary.get();
+        Path fromPostgres = dir.resolve("from-postgres.zip");
+        Path fromH2Again = dir.resolve("from-h2-again.zip");
+        try (ConfigurableApplicationContext postgres = postgres()) {
+            postgres.getBean(LibraryRestore.class).restore(source.archive);
+            write(postgres, fromPostgres);
+        }
+        try (ConfigurableApplicationContext h2 = LibraryApp.h2("back-from-postgres", false)) {
+            h2.getBean(LibraryRestore.class).restore(fromPostgres);
+            RestoredLibrary.assertSameAs(source.context, h2);
+            write(h2, fromH2Again);
+        }
+
+        ArchiveManifest original = manifest(source.archive);
+        assertThat(original.tables().stream().map(ArchiveManifest.TableEntry::table).toList())
+                .as("the archive lists every library table of the generated schema")
+                .containsExactlyInAnyOrderElementsOf(LibraryTables.inDependencyOrder().stream().map(LibraryTables::name).toList());
+        assertThat(original.tables()).allMatch(t -> t.rows() >= 0);
+        for (Path back : List.of(fromPostgres, fromH2Again)) {
+            ArchiveManifest again = manifest(back);
+            assertThat(checksums(again)).as("per-table checksums of %s", back.getFileName()).isEqualTo(checksums(original));
+            assertThat(again.curves()).as("curve checksums of %s", back.getFileName()).isEqualTo(original.curves());
+            assertThat(again.schemaVersion()).isEqualTo(original.schemaVersion());
+        }
+        assertThat(manifest(fromPostgres).sourceDatabase()).as("the middle archive came from PostgreSQL").containsIgnoringCase("postgres");
+    }
+
+    /** Table name → entry name, rows, bytes and SHA-256, in archive order. */
+    private static List<String> checksums(ArchiveManifest manifest) {
+        return manifest.tables().stream()
+                .map(t -> t.table() + " " + t.entry() + " rows=" + t.rows() + " bytes=" + t.bytes() + " sha256=" + t.sha256())
+                .toList();
+    }
+
+    private static ArchiveManifest manifest(Path archive) throws Exception {
+        try (ZipFile zip = new ZipFile(archive.toFile()); InputStream in = zip.getInputStream(zip.getEntry(ArchiveManifest.ENTRY))) {
+            return ArchiveManifest.fromJson(RowCodec.JSON.readTree(in.readAllBytes()));
+        }
+    }
+
+    private static void write(ConfigurableApplicationContext context, Path archive) throws Exception {
+        try (OutputStream out = Files.newOutputStream(archive)) {
+            context.getBean(LibraryBackup.class).write(out);
         }
     }
 

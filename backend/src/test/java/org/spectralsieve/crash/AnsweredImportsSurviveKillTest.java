@@ -1,6 +1,7 @@
 package org.spectralsieve.crash;
 
 import static org.assertj.core.api.Assertions.assertThat;
+import static org.junit.jupiter.api.Assumptions.assumeTrue;
 
 import java.io.IOException;
 import java.net.http.HttpResponse;
@@ -25,6 +26,7 @@ import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.spectralsieve.crash.CrashedFileCheck.Counts;
 import org.spectralsieve.crash.CrashedFileCheck.Findings;
+import org.spectralsieve.library.TestPostgres;
 import tools.jackson.databind.JsonNode;
 import tools.jackson.databind.node.ObjectNode;
 
@@ -48,7 +50,10 @@ import tools.jackson.databind.node.ObjectNode;
  * {@code -Dsieve.crash.rounds=20}, {@code -Dsieve.crash.seed=N} (printed on every run, to replay the same
  * choices; the threads' interleaving and the kill's exact moment still vary) and
  * {@code -Dsieve.crash.writeDelay=500} (starts the service with H2's old write delay, to show the test
- * catching the loss). Prints {@code BENCH crash rounds=… acknowledged=… lost=… partial=…}.
+ * catching the loss), {@code -Dsieve.crash.db=postgres} (the service on PostgreSQL instead, in an empty schema of
+ * the database {@code SIEVE_TEST_POSTGRES_URL} names; the killed process is the application, the database server
+ * lives on and is checked as it stands after each kill). Prints {@code BENCH crash db=… rounds=… acknowledged=…
+ * lost=… partial=…}.
  */
 @Tag("crash")
 class AnsweredImportsSurviveKillTest {
@@ -75,9 +80,18 @@ class AnsweredImportsSurviveKillTest {
         int rounds = Integer.getInteger("sieve.crash.rounds", 20);
         long seed = Long.getLong("sieve.crash.seed", System.nanoTime());
         String writeDelay = System.getProperty("sieve.crash.writeDelay", "");
-        System.out.println("crash test: seed=" + seed + " rounds=" + rounds + " write_delay="
+        String database = System.getProperty("sieve.crash.db", "h2");
+        boolean postgres = database.equals("postgres");
+        if (postgres) {
+            assumeTrue(System.getenv(TestPostgres.URL_VARIABLE) != null && !System.getenv(TestPostgres.URL_VARIABLE).isBlank(),
+                    "-Dsieve.crash.db=postgres needs a PostgreSQL database named by " + TestPostgres.URL_VARIABLE);
+        }
+        System.out.println("crash test: db=" + database + " seed=" + seed + " rounds=" + rounds + " write_delay="
                 + (writeDelay.isBlank() ? "default-url" : writeDelay) + " (replay with -Dsieve.crash.seed=" + seed + ")");
-        List<String> extraArgs = writeDelay.isBlank() ? List.of()
+        // on PostgreSQL an empty schema of its own, which the database server keeps across the kills
+        String postgresUrl = postgres ? TestPostgres.freshSchema("crash") : null;
+        List<String> extraArgs = postgres ? ServerProcess.postgresArguments(postgresUrl, TestPostgres.user(), TestPostgres.password())
+                : writeDelay.isBlank() ? List.of()
                 : List.of("--spring.datasource.url=jdbc:h2:file:./data/sieve;AUTO_SERVER=FALSE;WRITE_DELAY=" + writeDelay);
 
         Random random = new Random(seed);
@@ -111,7 +125,8 @@ class AnsweredImportsSurviveKillTest {
                 singleMs.addAll(client.singleMs);
                 batchFileMs.addAll(client.batchFileMs);
             }
-            Findings f = CrashedFileCheck.check(copyOfCrashedFile(round), answered);
+            Findings f = postgres ? CrashedFileCheck.checkPostgres(postgresUrl, TestPostgres.user(), TestPostgres.password(), answered)
+                    : CrashedFileCheck.check(copyOfCrashedFile(round), answered);
             if (f.counts().below(lastCounts)) {
                 problems.add("round " + round + ": counts fell from " + lastCounts + " to " + f.counts());
             }
@@ -127,11 +142,11 @@ class AnsweredImportsSurviveKillTest {
 
         List<String> reused = answered.reused();
         problems.addAll(reused);
-        System.out.printf(Locale.ROOT, "BENCH crash rounds=%d acknowledged=%d lost=%d partial=%d reused=%d unanswered=%d"
+        System.out.printf(Locale.ROOT, "BENCH crash db=%s rounds=%d acknowledged=%d lost=%d partial=%d reused=%d unanswered=%d"
                         + " samples=%d spectra=%d write_delay=%s single_import_p50_ms=%.1f batch_file_p50_ms=%.1f"
                         + " start_p50_ms=%.0f seed=%d%n",
-                rounds, answered.count(), lost.size(), partial.size(), reused.size(), unanswered, answered.samples().size(),
-                answered.spectra().size(), writeDelay.isBlank() ? "default-url" : writeDelay, median(singleMs),
+                database, rounds, answered.count(), lost.size(), partial.size(), reused.size(), unanswered, answered.samples().size(),
+                answered.spectra().size(), postgres ? "n/a" : writeDelay.isBlank() ? "default-url" : writeDelay, median(singleMs),
                 median(batchFileMs), median(startMs), seed);
         problems.stream().limit(30).forEach(p -> System.out.println("  " + p));
 

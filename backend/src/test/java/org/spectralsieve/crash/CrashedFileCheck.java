@@ -16,7 +16,8 @@ import org.spectralsieve.crash.CrashFiles.SentFile;
 import org.spectralsieve.library.PackedArrays;
 
 /**
- * Reads a copy of the database file as the kill left it, before the service opens the original again: every
+ * Reads a copy of the database file as the kill left it, before the service opens the original again (on
+ * PostgreSQL, the database itself, which the kill does not touch): every
  * acknowledged import must be there whole and bit-identical, and nothing partial may exist. Reading a copy
  * leaves the crashed file itself untouched, so the restart that follows still has to open it unaided.
  */
@@ -45,21 +46,35 @@ final class CrashedFileCheck {
 
     static Findings check(Path copyWithoutExtension, Answered answered) throws SQLException {
         try (Connection db = DriverManager.getConnection("jdbc:h2:file:" + copyWithoutExtension, "sa", "")) {
-            Map<String, String> lost = new TreeMap<>();
-            for (Answered.Sample s : answered.samples()) {
-                String problem = sampleProblem(db, s);
-                if (problem != null) {
-                    lost.put("sample:" + s.sampleId(), problem);
-                }
-            }
-            for (Answered.Spectrum s : answered.spectra()) {
-                String problem = spectrumProblem(db, s);
-                if (problem != null) {
-                    lost.put(s.kind() + "/" + s.name(), problem);
-                }
-            }
-            return new Findings(counts(db), lost, partial(db));
+            return check(db, answered);
         }
+    }
+
+    /**
+     * The same checks on a PostgreSQL database the killed service wrote: the database server outlives the
+     * application process, so it is read as it is, with no copy (nothing else writes it between kill and restart).
+     */
+    static Findings checkPostgres(String jdbcUrl, String user, String password, Answered answered) throws SQLException {
+        try (Connection db = DriverManager.getConnection(jdbcUrl, user, password)) {
+            return check(db, answered);
+        }
+    }
+
+    private static Findings check(Connection db, Answered answered) throws SQLException {
+        Map<String, String> lost = new TreeMap<>();
+        for (Answered.Sample s : answered.samples()) {
+            String problem = sampleProblem(db, s);
+            if (problem != null) {
+                lost.put("sample:" + s.sampleId(), problem);
+            }
+        }
+        for (Answered.Spectrum s : answered.spectra()) {
+            String problem = spectrumProblem(db, s);
+            if (problem != null) {
+                lost.put(s.kind() + "/" + s.name(), problem);
+            }
+        }
+        return new Findings(counts(db), lost, partial(db));
     }
 
     private static String sampleProblem(Connection db, Answered.Sample s) throws SQLException {

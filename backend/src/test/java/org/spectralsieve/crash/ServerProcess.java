@@ -26,8 +26,11 @@ import java.util.stream.Collectors;
  * {@code java.class.path}) less the test classes: the freshly compiled classes of this build with every
  * dependency, so the test needs no packaged jar (none is built by {@code mvn test}) and always runs the code
  * under test.
+ *
+ * <p>Also the application node of the several-nodes test ({@code nodes.TwoNodesOnOnePostgresTest}): there the
+ * extra arguments name the PostgreSQL database, and each node's working directory holds its own text index.
  */
-final class ServerProcess implements AutoCloseable {
+public final class ServerProcess implements AutoCloseable {
 
     private static final Duration START_TIMEOUT = Duration.ofSeconds(180);
 
@@ -49,7 +52,7 @@ final class ServerProcess implements AutoCloseable {
      *
      * @param extraArgs more Spring arguments, e.g. a database URL that states another write delay
      */
-    static ServerProcess start(Path workDir, Path log, List<String> extraArgs) throws IOException, InterruptedException {
+    public static ServerProcess start(Path workDir, Path log, List<String> extraArgs) throws IOException, InterruptedException {
         int port = freePort();
         String java = Path.of(System.getProperty("java.home"), "bin", "java").toString();
         // without the test classes: the application's component scan must see only the application
@@ -76,23 +79,33 @@ final class ServerProcess implements AutoCloseable {
         return server;
     }
 
-    int port() {
+    /**
+     * The extra arguments that put the service on a PostgreSQL database (the {@code postgres} profile): every
+     * process the tests start on PostgreSQL, a crash-test server or an application node, is told this and only
+     * this about the database.
+     */
+    public static List<String> postgresArguments(String jdbcUrl, String user, String password) {
+        return List.of("--spring.profiles.active=postgres", "--spring.datasource.url=" + jdbcUrl,
+                "--spring.datasource.username=" + user, "--spring.datasource.password=" + password);
+    }
+
+    public int port() {
         return port;
     }
 
-    URI uri(String path) {
+    public URI uri(String path) {
         return URI.create("http://127.0.0.1:" + port + path);
     }
 
     /** SIGKILL on Linux (Process.destroyForcibly): no shutdown hook, no H2 close, no flush. */
-    void kill() throws InterruptedException {
+    public void kill() throws InterruptedException {
         process.destroyForcibly();
         if (!process.waitFor(30, TimeUnit.SECONDS)) {
             throw new IllegalStateException("the killed server process " + process.pid() + " did not end");
         }
     }
 
-    boolean alive() {
+    public boolean alive() {
         return process.isAlive();
     }
 
@@ -130,7 +143,7 @@ final class ServerProcess implements AutoCloseable {
         throw new IllegalStateException("the server did not answer within " + START_TIMEOUT + "; its log:\n" + tail());
     }
 
-    String tail() {
+    public String tail() {
         try {
             List<String> lines = Files.readAllLines(log);
             return String.join("\n", lines.subList(Math.max(0, lines.size() - 40), lines.size()));

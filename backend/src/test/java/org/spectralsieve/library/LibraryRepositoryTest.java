@@ -24,8 +24,13 @@ class LibraryRepositoryTest {
 
     @BeforeEach
     void migrateFreshDatabase() {
-        db = MigratedDatabase.freshH2();
+        db = freshDatabase();
         library = new JooqLibraryRepository(db);
+    }
+
+    /** A migrated, empty database per test; {@link PostgresLibraryRepositoryTest} gives one on PostgreSQL. */
+    DSLContext freshDatabase() {
+        return MigratedDatabase.freshH2();
     }
 
     @Test

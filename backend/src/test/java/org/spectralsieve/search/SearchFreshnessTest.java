@@ -14,6 +14,7 @@ import java.util.concurrent.atomic.AtomicBoolean;
 import java.util.concurrent.atomic.AtomicInteger;
 import org.flywaydb.core.Flyway;
 import org.h2.jdbcx.JdbcDataSource;
+import org.jooq.DSLContext;
 import org.jooq.SQLDialect;
 import org.jooq.impl.DSL;
 import org.junit.jupiter.api.AfterEach;
@@ -44,19 +45,24 @@ class SearchFreshnessTest {
     /** Every stored sheet passes this (T = 0.55 at 350 nm on the line 0.3 → 0.8): the list names them all. */
     private static final Requirement ANY = RequirementParser.parse("passes over 10% at 350 nm");
 
-    private JdbcDataSource dataSource;
     private JooqLibraryRepository library;
     private JooqLibraryRepository otherProcess;
     private final ExecutorService pool = Executors.newSingleThreadExecutor();
 
     @BeforeEach
     void migrateFreshDatabase() {
-        dataSource = new JdbcDataSource();
+        DSLContext db = freshDatabase();
+        library = new JooqLibraryRepository(db);
+        otherProcess = new JooqLibraryRepository(db);
+        store(library, "first sheet", "plastic sheet");
+    }
+
+    /** A migrated, empty database per test; {@link PostgresSearchFreshnessTest} gives one on PostgreSQL. */
+    DSLContext freshDatabase() {
+        JdbcDataSource dataSource = new JdbcDataSource();
         dataSource.setURL("jdbc:h2:mem:" + UUID.randomUUID() + ";DB_CLOSE_DELAY=-1");
         Flyway.configure().dataSource(dataSource).load().migrate();
-        library = new JooqLibraryRepository(DSL.using(dataSource, SQLDialect.H2));
-        otherProcess = new JooqLibraryRepository(DSL.using(dataSource, SQLDialect.H2));
-        store(library, "first sheet", "plastic sheet");
+        return DSL.using(dataSource, SQLDialect.H2);
     }
 
     @AfterEach
