@@ -25,6 +25,11 @@ public class AccountStore {
         this.db = db;
     }
 
+    /** The same store on a transaction's context: a change and its audit entry commit together. */
+    AccountStore within(DSLContext tx) {
+        return new AccountStore(tx);
+    }
+
     /** A stored account with the hash its password is checked against. */
     record Credentials(Account account, String passwordHash) {
     }

@@ -1,6 +1,7 @@
 package org.spectralsieve.accounts;
 
 import org.jooq.DSLContext;
+import org.spectralsieve.audit.ActingUser;
 import org.springframework.context.annotation.Bean;
 import org.springframework.context.annotation.Configuration;
 import org.springframework.security.crypto.bcrypt.BCryptPasswordEncoder;
@@ -28,7 +29,8 @@ class AccountsConfiguration {
     }
 
     @Bean
-    AccountAdministration accountAdministration(AccountStore store, PasswordEncoder passwords) {
-        return new AccountAdministration(store, passwords);
+    AccountAdministration accountAdministration(AccountStore store, PasswordEncoder passwords, DSLContext db,
+                                                ActingUser actor) {
+        return new AccountAdministration(store, passwords, db, actor);
     }
 }

@@ -1,5 +1,8 @@
 package org.spectralsieve.backup;
 
+import static org.spectralsieve.library.db.Tables.ACCOUNT;
+import static org.spectralsieve.library.db.Tables.AUDIT_ENTRY;
+
 import java.io.BufferedInputStream;
 import java.io.IOException;
 import java.io.InputStream;
@@ -37,7 +40,10 @@ import tools.jackson.databind.JsonNode;
  * Loads an archive written by {@link LibraryBackup} into an empty library, in this order:
  * <ol>
  *   <li>read the manifest; refuse another format, a newer format version or another schema version;</li>
- *   <li>refuse a library that holds any row;</li>
+ *   <li>refuse a library that holds any row, except a server's own accounts, their tokens and the audit entries
+ *       about them (a server in server mode has them as soon as its first admin exists): then the archive's
+ *       accounts and tokens are left out, the server's own stand, and the archive's audit entries follow the
+ *       server's own, their ids moved up by the server's highest (their order kept);</li>
  *   <li>check every entry before writing anything: its SHA-256, its row count, that every row reads as the
  *       target's columns, and every curve's checksums against the manifest;</li>
  *   <li>move each table's id counter past the highest id in the archive, so ids are never handed out again
@@ -99,9 +105,10 @@ public class LibraryRestore {
             Map<TableEntry, Table<?>> tables = match(manifest);
             checkEntriesListed(zip, manifest);
             refuseUnlessEmpty(db);
+            ServerOwn own = serverOwn(db);
             Map<Table<?>, Long> highestIds = verify(zip, manifest, tables);
-            raiseIdCounters(highestIds);
-            Summary summary = db.transactionResult(tx -> write(tx.dsl(), zip, manifest, tables));
+            raiseIdCounters(highestIds, own);
+            Summary summary = db.transactionResult(tx -> write(tx.dsl(), zip, manifest, tables, own));
             afterCommit.run();
             return summary;
         } catch (ZipException e) {
@@ -190,14 +197,37 @@ public class LibraryRestore {
         }
     }
 
+    /**
+     * What a server holds of its own before a restore: whether it has accounts (then the archive's are left out), and
+     * its highest audit id (the archive's entries are moved past it; 0 on an empty database, where ids are kept).
+     */
+    record ServerOwn(boolean hasAccounts, long auditIdOffset) {
+        boolean skips(Table<?> table) {
+            return hasAccounts && LibraryTables.SERVER_ACCOUNTS.contains(LibraryTables.name(table));
+        }
+
+        long idOffset(Table<?> table) {
+            return LibraryTables.AUDIT.equals(LibraryTables.name(table)) ? auditIdOffset : 0;
+        }
+    }
+
+    private static ServerOwn serverOwn(DSLContext db) {
+        Long highestAudit = db.select(DSL.max(AUDIT_ENTRY.ID)).from(AUDIT_ENTRY).fetchOne(0, Long.class);
+        return new ServerOwn(db.fetchCount(ACCOUNT) > 0, highestAudit == null ? 0 : highestAudit);
+    }
+
     private static void refuseUnlessEmpty(DSLContext db) {
-        Map<String, Long> counts = rowCounts(db);
         Map<String, Long> held = new LinkedHashMap<>();
-        counts.forEach((table, rows) -> {
+        for (Table<?> table : LibraryTables.inDependencyOrder()) {
+            String name = LibraryTables.name(table);
+            long rows = LibraryTables.SERVER_ACCOUNTS.contains(name) ? 0
+                    : LibraryTables.AUDIT.equals(name)
+                    ? db.fetchCount(AUDIT_ENTRY, AUDIT_ENTRY.SUBJECT_KIND.ne(AuditEntry.SUBJECT_ACCOUNT))
+                    : db.fetchCount(table);
             if (rows > 0) {
-                held.put(table, rows);
+                held.put(name, rows);
             }
-        });
+        }
         if (!held.isEmpty()) {
             throw new LibraryNotEmptyException(held);
         }
@@ -328,40 +358,52 @@ public class LibraryRestore {
      * The next id of every identity column is set past the archive's highest, in statements of their own
      * (each commits on H2). The same statement restarts an identity on H2 and on PostgreSQL.
      */
-    private void raiseIdCounters(Map<Table<?>, Long> highestIds) {
+    private void raiseIdCounters(Map<Table<?>, Long> highestIds, ServerOwn own) {
         highestIds.forEach((table, highest) -> {
-            if (highest > 0) {
+            if (highest > 0 && !own.skips(table)) {
                 db.execute("ALTER TABLE {0} ALTER COLUMN {1} RESTART WITH {2}", table,
-                        DSL.name(table.getIdentity().getField().getName()), DSL.inline(highest + 1));
+                        DSL.name(table.getIdentity().getField().getName()), DSL.inline(highest + own.idOffset(table) + 1));
             }
         });
     }
 
-    private Summary write(DSLContext tx, ZipFile zip, ArchiveManifest manifest, Map<TableEntry, Table<?>> tables)
-            throws IOException {
+    private Summary write(DSLContext tx, ZipFile zip, ArchiveManifest manifest, Map<TableEntry, Table<?>> tables,
+                          ServerOwn own) throws IOException {
         refuseUnlessEmpty(tx); // again, inside the transaction: another restore may have won the race
         Map<String, Long> rows = new LinkedHashMap<>();
         for (Map.Entry<TableEntry, Table<?>> pair : tables.entrySet()) {
-            rows.put(pair.getKey().table(), insertRows(tx, zip, pair.getKey(), pair.getValue()));
+            if (own.skips(pair.getValue())) {
+                rows.put(pair.getKey().table(), 0L); // the server's own accounts stand
+                continue;
+            }
+            rows.put(pair.getKey().table(), insertRows(tx, zip, pair.getKey(), pair.getValue(), own.idOffset(pair.getValue())));
         }
         recheckCurves(tx, manifest);
         Summary summary = new Summary(manifest.schemaVersion(), rows, manifest.curves().size());
         long total = rows.values().stream().mapToLong(Long::longValue).sum();
         AuditTrail.record(tx, AuditEntry.by(actor, AuditEntry.ACTION_RESTORE_BACKUP, AuditEntry.SUBJECT_LIBRARY, null,
                 null, "restored the library from a backup written " + manifest.createdAt() + " by "
-                        + manifest.application() + ": " + total + " rows, " + summary.curves() + " curves", null, summary));
+                        + manifest.application() + ": " + total + " rows, " + summary.curves() + " curves"
+                        + (own.hasAccounts() ? "; this server's own accounts kept, the archive's left out" : "")
+                        + (own.auditIdOffset() > 0 ? "; the archive's audit entries follow this server's own, ids moved up by "
+                        + own.auditIdOffset() : ""), null, summary));
         LibraryTables.bookkeeping("library_generation")
                 .ifPresent(generation -> tx.execute("UPDATE {0} SET n = n + 1", generation));
         return summary;
     }
 
-    private static long insertRows(DSLContext tx, ZipFile zip, TableEntry entry, Table<?> table) throws IOException {
+    private static long insertRows(DSLContext tx, ZipFile zip, TableEntry entry, Table<?> table, long idOffset)
+            throws IOException {
         List<Field<?>> fields = fieldsInArchiveOrder(entry, table);
         RowCodec codec = new RowCodec(fields);
+        int identityIndex = idOffset == 0 ? -1 : identityIndex(entry, table);
         try (InputStream in = new BufferedInputStream(zip.getInputStream(zip.getEntry(entry.entry())))) {
             BoundedLines lines = new BoundedLines(in, BoundedLines.MAX_LINE_BYTES);
             for (String line = lines.next(); line != null; line = lines.next()) {
                 Object[] values = decode(codec, entry, lines.lineNumber(), line);
+                if (identityIndex >= 0) {
+                    values[identityIndex] = ((Number) values[identityIndex]).longValue() + idOffset;
+                }
                 try {
                     tx.insertInto(table, fields).values(values).execute();
                 } catch (RuntimeException e) { // jOOQ's or, under Spring, Spring's translation of it

@@ -34,11 +34,15 @@ final class LibraryTables {
     static final Set<String> BOOKKEEPING = Set.of("library_generation", "library_identity", "library_change");
 
     /**
-     * Server mode's accounts and API tokens (V11): who may use this server, not what the library holds. A backup
-     * carries no password hashes or token hashes, and a restore leaves the target's accounts as they are
-     * (docs/accounts-and-roles.md).
+     * Server mode's accounts and API tokens (V11). An archive carries them (a password's bcrypt hash and a token's
+     * SHA-256, never a password or a token), so that a library moved to another database keeps who may use it. A
+     * restore into a server that already has accounts keeps that server's own and leaves the archive's out
+     * ({@link LibraryRestore}; docs/backup.md).
      */
     static final Set<String> SERVER_ACCOUNTS = Set.of("account", "api_token");
+
+    /** The audit trail (V12): library content, appended after a target's own entries about its accounts. */
+    static final String AUDIT = "audit_entry";
 
     private LibraryTables() {
     }
@@ -51,7 +55,7 @@ final class LibraryTables {
     static List<Table<?>> inDependencyOrder(Schema schema) {
         Map<String, Table<?>> remaining = new LinkedHashMap<>();
         schema.getTables().stream()
-                .filter(t -> !BOOKKEEPING.contains(name(t)) && !SERVER_ACCOUNTS.contains(name(t)))
+                .filter(t -> !BOOKKEEPING.contains(name(t)))
                 .sorted(Comparator.comparing(LibraryTables::name))
                 .forEach(t -> remaining.put(name(t), t));
         List<Table<?>> ordered = new ArrayList<>();

@@ -1,18 +1,22 @@
 package org.spectralsieve.api;
 
 import org.junit.jupiter.api.condition.EnabledIfEnvironmentVariable;
+import org.spectralsieve.accounts.AdminTokenOnEveryRequest;
 import org.spectralsieve.library.TestPostgres;
+import org.springframework.context.annotation.Import;
 import org.springframework.test.context.ActiveProfiles;
 import org.springframework.test.context.DynamicPropertyRegistry;
 import org.springframework.test.context.DynamicPropertySource;
 
 /**
  * {@link UndoApiTest} (retire, restore and revisions through the API) once more on PostgreSQL, in a schema of its own
- * (docs/shared-server.md, "Tests that run twice"); skipped where {@code SIEVE_TEST_POSTGRES_URL} names none.
+ * (docs/shared-server.md, "Tests that run twice"), in server mode as the postgres profile has it, each request
+ * signed with an admin's token ({@link AdminTokenOnEveryRequest}); skipped where {@code SIEVE_TEST_POSTGRES_URL} names none.
  */
 @EnabledIfEnvironmentVariable(named = TestPostgres.URL_VARIABLE, matches = ".+",
         disabledReason = "no PostgreSQL for tests: set SIEVE_TEST_POSTGRES_URL (and SIEVE_TEST_POSTGRES_USER/_PASSWORD)")
 @ActiveProfiles("postgres")
+@Import(AdminTokenOnEveryRequest.class)
 class PostgresUndoApiTest extends UndoApiTest {
 
     @DynamicPropertySource

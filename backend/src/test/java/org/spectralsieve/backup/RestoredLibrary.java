@@ -47,18 +47,27 @@ final class RestoredLibrary {
 
     /** Every table row for row, every curve bit for bit, the same shortlists, the same imported spectra. */
     static void assertSameAs(ConfigurableApplicationContext source, ConfigurableApplicationContext restored) {
+        assertSameAs(source, restored, 1);
+    }
+
+    /**
+     * The same, for a library restored {@code restores} times in a row from archives of archives (H2 → PostgreSQL →
+     * H2): the audit trail holds the source's entries, ids kept, then one entry of each restore.
+     */
+    static void assertSameAs(ConfigurableApplicationContext source, ConfigurableApplicationContext restored, int restores) {
         DSLContext from = source.getBean(DSLContext.class);
         DSLContext to = restored.getBean(DSLContext.class);
         for (Table<?> table : LibraryTables.inDependencyOrder()) {
             List<List<Object>> expected = rows(from, table);
             List<List<Object>> actual = rows(to, table);
             if (table.equals(Tables.AUDIT_ENTRY)) {
-                // the archive's trail, ids kept, then the restore's own entry, whose id follows the archive's highest
-                assertThat(actual).as("audit_entry").hasSize(expected.size() + 1);
-                List<Object> restore = actual.get(actual.size() - 1);
-                assertThat(restore.get(0)).as("the restore's entry id").isEqualTo(expected.isEmpty() ? 1L
-                        : (Long) expected.get(expected.size() - 1).get(0) + 1);
-                assertThat(restore).as("the restore's entry").contains("restore-backup", "library");
+                // the archive's trail, ids kept, then each restore's own entry, whose id follows the highest before it
+                assertThat(actual).as("audit_entry").hasSize(expected.size() + restores);
+                long lastId = expected.isEmpty() ? 0L : (Long) expected.get(expected.size() - 1).get(0);
+                for (List<Object> restore : actual.subList(expected.size(), actual.size())) {
+                    assertThat(restore.get(0)).as("a restore's entry id").isEqualTo(++lastId);
+                    assertThat(restore).as("a restore's entry").contains("restore-backup", "library");
+                }
                 actual = actual.subList(0, expected.size());
             }
             assertThat(actual).as(table.getName()).isEqualTo(expected);

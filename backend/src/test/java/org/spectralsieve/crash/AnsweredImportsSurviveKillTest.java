@@ -26,6 +26,7 @@ import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.spectralsieve.crash.CrashedFileCheck.Counts;
 import org.spectralsieve.crash.CrashedFileCheck.Findings;
+import org.spectralsieve.accounts.TestTokens;
 import org.spectralsieve.library.TestPostgres;
 import tools.jackson.databind.JsonNode;
 import tools.jackson.databind.node.ObjectNode;
@@ -94,6 +95,7 @@ class AnsweredImportsSurviveKillTest {
                 : writeDelay.isBlank() ? List.of()
                 : List.of("--spring.datasource.url=jdbc:h2:file:./data/sieve;AUTO_SERVER=FALSE;WRITE_DELAY=" + writeDelay);
 
+        String token = null;
         Random random = new Random(seed);
         Answered answered = new Answered();
         AtomicInteger names = new AtomicInteger();
@@ -111,6 +113,11 @@ class AnsweredImportsSurviveKillTest {
             long t0 = System.nanoTime();
             try (ServerProcess server = ServerProcess.start(work, log, extraArgs)) {
                 startMs.add((System.nanoTime() - t0) / 1e6);
+                if (postgres) {
+                    // server mode (the postgres profile): an admin's token, made once the first start has migrated
+                    token = token != null ? token : TestTokens.adminToken(postgresUrl, TestPostgres.user(), TestPostgres.password());
+                    server.signRequestsWith(token);
+                }
                 CrashClient client = new CrashClient(server, answered, names, round);
                 if (round > 0) {
                     checkRestarted(client, answered, lastCounts, lost, searchBeforeKill, random);

@@ -132,22 +132,22 @@ final class CrashClient {
     /** The answer to one search, or null when the server gave none (killed). */
     JsonNode search(String requirement, int limit) throws InterruptedException {
         String json = JSON.writeValueAsString(Map.of("requirement", requirement, "limit", limit));
-        return send(HttpRequest.newBuilder(server.uri("/api/search")).header("Content-Type", "application/json")
+        return send(server.request("/api/search").header("Content-Type", "application/json")
                 .POST(HttpRequest.BodyPublishers.ofString(json)), "POST /api/search");
     }
 
     JsonNode get(String path) throws InterruptedException {
-        return send(HttpRequest.newBuilder(server.uri(path)).GET(), "GET " + path);
+        return send(server.request(path).GET(), "GET " + path);
     }
 
     HttpResponse<byte[]> getBytes(String path) throws IOException, InterruptedException {
-        return http.send(HttpRequest.newBuilder(server.uri(path)).timeout(Duration.ofSeconds(60)).GET().build(),
+        return http.send(server.request(path).timeout(Duration.ofSeconds(60)).GET().build(),
                 HttpResponse.BodyHandlers.ofByteArray());
     }
 
     /** The JSON answer of a 2xx; null when the connection broke (the kill); a 4xx or 5xx is a test failure. */
     private JsonNode post(String path, Map<String, String> fields, SentFile file) throws InterruptedException {
-        return send(HttpRequest.newBuilder(server.uri(path))
+        return send(server.request(path)
                 .header("Content-Type", "multipart/form-data; boundary=" + BOUNDARY)
                 .POST(HttpRequest.BodyPublishers.ofByteArray(multipart(fields, file))), "POST " + path + " " + file.name());
     }

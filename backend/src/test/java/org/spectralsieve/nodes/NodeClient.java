@@ -3,7 +3,6 @@ package org.spectralsieve.nodes;
 import java.io.ByteArrayOutputStream;
 import java.io.IOException;
 import java.io.UncheckedIOException;
-import java.net.URI;
 import java.net.URLEncoder;
 import java.net.http.HttpClient;
 import java.net.http.HttpRequest;
@@ -26,17 +25,17 @@ final class NodeClient {
     private static final String BOUNDARY = "----node-test-boundary-7e4a";
 
     private final String name;
-    private final Function<String, URI> address;
+    private final Function<String, HttpRequest.Builder> requests;
     private final HttpClient http = HttpClient.newBuilder().version(HttpClient.Version.HTTP_1_1)
             .connectTimeout(Duration.ofSeconds(5)).build();
 
     /**
      * @param name    how failures name the node ("node 1")
-     * @param address the node's absolute address for a path
+     * @param requests a request to the node for a path, signed with the node's API token
      */
-    NodeClient(String name, Function<String, URI> address) {
+    NodeClient(String name, Function<String, HttpRequest.Builder> requests) {
         this.name = name;
-        this.address = address;
+        this.requests = requests;
     }
 
     String name() {
@@ -45,7 +44,7 @@ final class NodeClient {
 
     /** Every request to the node starts here. */
     private HttpRequest.Builder request(String path) {
-        return HttpRequest.newBuilder(address.apply(path)).timeout(Duration.ofSeconds(120));
+        return requests.apply(path).timeout(Duration.ofSeconds(120));
     }
 
     /** One curve as a new material through {@code POST /api/imports}; the answer names sampleId and materialId. */

@@ -23,6 +23,7 @@ import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.condition.EnabledIfEnvironmentVariable;
 import org.junit.jupiter.api.io.TempDir;
 import org.spectralsieve.crash.ServerProcess;
+import org.spectralsieve.accounts.TestTokens;
 import org.spectralsieve.library.TestPostgres;
 import tools.jackson.databind.JsonNode;
 import tools.jackson.databind.node.ObjectNode;
@@ -60,8 +61,12 @@ class TwoNodesOnOnePostgresTest {
         // one after the other: the first migrates the empty schema, the second finds it migrated
         first = start("node1", schemaUrl);
         second = start("node2", schemaUrl);
-        node1 = new NodeClient("node 1", first::uri);
-        node2 = new NodeClient("node 2", second::uri);
+        // the postgres profile runs in server mode: both clients sign with one admin's API token
+        String token = TestTokens.adminToken(schemaUrl, TestPostgres.user(), TestPostgres.password());
+        first.signRequestsWith(token);
+        second.signRequestsWith(token);
+        node1 = new NodeClient("node 1", first::request);
+        node2 = new NodeClient("node 2", second::request);
     }
 
     @AfterAll
