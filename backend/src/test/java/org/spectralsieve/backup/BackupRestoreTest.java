@@ -4,15 +4,20 @@ import static org.assertj.core.api.Assertions.assertThat;
 import static org.assertj.core.api.Assertions.assertThatThrownBy;
 
 import java.io.IOException;
+import java.io.OutputStream;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import org.jooq.DSLContext;
+import org.jooq.impl.DSL;
 import org.junit.jupiter.api.AfterAll;
 import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.TestInstance;
 import org.junit.jupiter.api.io.TempDir;
+import org.spectralsieve.accounts.Account;
+import org.spectralsieve.accounts.AccountAdministration;
+import org.spectralsieve.accounts.Role;
 import org.spectralsieve.importers.ImportException;
 import org.spectralsieve.ingest.ImportFiles;
 import org.spectralsieve.ingest.ImportOptions;
@@ -27,6 +32,7 @@ import org.spectralsieve.spectra.SpectrumImportOptions;
 import org.spectralsieve.spectra.SpectrumImportService;
 import org.spectralsieve.spectra.SpectrumKind;
 import org.springframework.context.ConfigurableApplicationContext;
+import org.springframework.security.crypto.password.PasswordEncoder;
 
 /** Backup of an H2 library restored into another H2 library, and the archives and targets a restore refuses. */
 @TestInstance(TestInstance.Lifecycle.PER_CLASS)
@@ -80,6 +86,57 @@ class BackupRestoreTest {
                         .fetchOne(org.spectralsieve.library.db.Tables.CURVE.ABSORBANCE_UNCERTAINTY);
                 assertThat(restored).isEqualTo(row.value2());
             }
+        }
+    }
+
+    /**
+     * Accounts travel with the library (docs/backup.md): restored into an empty database, the archive's accounts,
+     * tokens and audit entries come back with their ids and the account's password still signs in; restored into a
+     * server that already has its own admin (server mode, where the first admin exists before any restore), that
+     * server's accounts stand, the archive's are left out, and the archive's audit entries follow the server's own
+     * in their order, ids moved up by the server's highest.
+     */
+    @Test
+    void accountsTravelWithTheArchiveAndAServerWithItsOwnAdminKeepsItsOwnAndAppendsTheArchivesAuditEntries()
+            throws Exception {
+        Path archive = folder.resolve("with-accounts.zip");
+        try (ConfigurableApplicationContext source = LibraryApp.h2("with-accounts", false)) {
+            AccountAdministration accounts = source.getBean(AccountAdministration.class);
+            Account wren = accounts.createAccount("wren", Role.EDITOR, "larkspur-lane-bench-7");
+            accounts.createToken(wren, "fernhollow plate script");
+            try (OutputStream out = Files.newOutputStream(archive)) {
+                source.getBean(LibraryBackup.class).write(out);
+            }
+        }
+
+        try (ConfigurableApplicationContext fresh = LibraryApp.h2("accounts-fresh", false)) {
+            fresh.getBean(LibraryRestore.class).restore(archive);
+            DSLContext db = fresh.getBean(DSLContext.class);
+            assertThat(db.select(Tables.ACCOUNT.NAME).from(Tables.ACCOUNT).fetch(Tables.ACCOUNT.NAME)).containsExactly("wren");
+            assertThat(db.fetchCount(Tables.API_TOKEN)).isEqualTo(1);
+            String hash = db.select(Tables.ACCOUNT.PASSWORD_HASH).from(Tables.ACCOUNT).fetchOne(Tables.ACCOUNT.PASSWORD_HASH);
+            assertThat(fresh.getBean(PasswordEncoder.class).matches("larkspur-lane-bench-7", hash)).isTrue();
+            // account-create (1), token-create (2), then the restore's own (3)
+            assertThat(db.select(Tables.AUDIT_ENTRY.ID, Tables.AUDIT_ENTRY.ACTION).from(Tables.AUDIT_ENTRY)
+                    .orderBy(Tables.AUDIT_ENTRY.ID).fetch().map(r -> r.value1() + " " + r.value2()))
+                    .containsExactly("1 account-create", "2 token-create", "3 restore-backup");
+        }
+
+        try (ConfigurableApplicationContext server = LibraryApp.h2("accounts-own-admin", false)) {
+            server.getBean(AccountAdministration.class).createAccount("juniper-admin", Role.ADMIN, "fernhollow-ledger-42");
+            server.getBean(LibraryRestore.class).restore(archive);
+            DSLContext db = server.getBean(DSLContext.class);
+            assertThat(db.select(Tables.ACCOUNT.NAME).from(Tables.ACCOUNT).fetch(Tables.ACCOUNT.NAME))
+                    .containsExactly("juniper-admin");
+            assertThat(db.fetchCount(Tables.API_TOKEN)).isZero();
+            assertThat(db.select(Tables.AUDIT_ENTRY.ID, Tables.AUDIT_ENTRY.ACTION).from(Tables.AUDIT_ENTRY)
+                    .orderBy(Tables.AUDIT_ENTRY.ID).fetch().map(r -> r.value1() + " " + r.value2()))
+                    .containsExactly("1 account-create", "2 account-create", "3 token-create", "4 restore-backup");
+            assertThat(db.select(Tables.AUDIT_ENTRY.SUMMARY).from(Tables.AUDIT_ENTRY).where(Tables.AUDIT_ENTRY.ID.eq(4L))
+                    .fetchOne(Tables.AUDIT_ENTRY.SUMMARY)).contains("own accounts kept").contains("ids moved up by 1");
+            // the next change gets an id past all of them
+            server.getBean(AccountAdministration.class).createAccount("hazel", Role.VIEWER, "fernhollow-ledger-43");
+            assertThat(db.select(DSL.max(Tables.AUDIT_ENTRY.ID)).from(Tables.AUDIT_ENTRY).fetchOne(0, Long.class)).isEqualTo(5L);
         }
     }
 
