@@ -3,6 +3,8 @@ package org.spectralsieve.accounts;
 import static org.assertj.core.api.Assertions.assertThat;
 import static org.assertj.core.api.Assertions.assertThatThrownBy;
 
+import java.util.ArrayList;
+import java.util.Collections;
 import java.util.List;
 import org.junit.jupiter.api.Test;
 import org.spectralsieve.audit.AuditTrail;
@@ -35,7 +37,8 @@ class AccountAuditTest {
         accounts.revokeToken(wren, token.token().id());
         accounts.disable(wren.id());
 
-        List<AuditTrail.Stored> entries = trail.page(new AuditTrail.Query(null, 6, null, null)).reversed();
+        List<AuditTrail.Stored> entries = new ArrayList<>(trail.page(new AuditTrail.Query(null, 6, null, null)));
+        Collections.reverse(entries); // oldest first
         assertThat(entries).extracting(AuditTrail.Stored::action).containsExactly("account-create", "account-create",
                 "account-role", "token-create", "token-revoke", "account-disable");
         assertThat(entries).allSatisfy(e -> {
