@@ -21,11 +21,18 @@ class AccessConfiguration {
         return new ListeningAddressReport(address, serverMode);
     }
 
+    /**
+     * Only for the embedded tool on loopback. Opened to the network, its names are not known. In server mode every
+     * request needs a signed-in session or a token, which a page under another name cannot present (cookies belong
+     * to the name the browser used), so the check has nothing left to guard; and a node behind a reverse proxy on
+     * the same machine listens on loopback while the proxy passes on the public host name (docs/shared-server.md).
+     */
     @Bean
-    FilterRegistrationBean<LoopbackHostFilter> loopbackHostFilter(ListeningAddress address) {
+    FilterRegistrationBean<LoopbackHostFilter> loopbackHostFilter(ListeningAddress address,
+                                                                  @Value("${sieve.server-mode:false}") boolean serverMode) {
         FilterRegistrationBean<LoopbackHostFilter> registration = new FilterRegistrationBean<>(new LoopbackHostFilter());
         registration.setOrder(Ordered.HIGHEST_PRECEDENCE);
-        registration.setEnabled(address.isLoopback()); // opened to the network: its names are not known
+        registration.setEnabled(address.isLoopback() && !serverMode);
         return registration;
     }
 

@@ -327,4 +327,17 @@ class ServerModeAccessTest {
         administration.disable(wren.id());
         assertThat(browser.signIn(wren.name(), TestAccounts.PASSWORD).status()).isEqualTo(401);
     }
+    /**
+     * A node behind a reverse proxy on the same machine listens on loopback and gets the public host name: server
+     * mode answers it (the sign-in decides), where the embedded tool refuses any name but a loopback one.
+     */
+    @Test
+    void aPublicHostNameFromASameMachineProxyIsAnsweredBySignInNotRefusedByName() throws Exception {
+        try (java.net.Socket socket = new java.net.Socket("127.0.0.1", port)) {
+            socket.getOutputStream().write(("GET /api/materials HTTP/1.1\r\nHost: sieve.fernhollow.lab\r\n"
+                    + "Connection: close\r\n\r\n").getBytes(java.nio.charset.StandardCharsets.US_ASCII));
+            String answer = new String(socket.getInputStream().readAllBytes(), java.nio.charset.StandardCharsets.UTF_8);
+            assertThat(answer).startsWith("HTTP/1.1 401").contains("sign-in-needed").doesNotContain("foreign-host");
+        }
+    }
 }
