@@ -11,7 +11,7 @@ import org.springframework.web.util.pattern.PathPatternParser;
  * Which role each API request needs in server mode: one table, read both to decide and to say in a refusal
  * which role was missing. Reading (GET, HEAD) needs a viewer. A request that changes anything needs an admin
  * unless the table says less, so an endpoint added later is closed until someone decides who may use it
- * (AccountsEndpointCoverageTest lists every mapping against this table).
+ * (ServerModeAccessTest checks every mapping against this table).
  */
 public final class EndpointRoles {
 
