@@ -1,6 +1,8 @@
 package org.spectralsieve.requirement;
 
+import java.util.List;
 import java.util.Objects;
+import org.spectralsieve.states.StateCurve;
 import org.spectralsieve.optics.RefractiveIndex;
 import org.spectralsieve.spectrum.Curve;
 
@@ -17,11 +19,26 @@ import org.spectralsieve.spectrum.Curve;
  * cannot be judged on it unless the requirement accepts total transmittance. {@code notRescaledReason}:
  * why a sample of an otherwise rescalable material is held at its measured thickness (diffuse or scattering
  * samples: scatter is not absorption); null for the ordinary cases, where {@code bulk} alone decides. A
- * sample with a reason is never bulk.
+ * sample with a reason is never bulk. {@code states}: the sample's curves in other states (aged, printed; see
+ * {@link org.spectralsieve.states}); {@code measured} is its as-supplied curve.
  */
 public record Candidate(long sampleId, long materialId, String materialName, Curve measured, double thicknessMm,
                         boolean bulk, RefractiveIndex index, MadeThicknesses made, boolean totalTransmittance,
-                        String notRescaledReason) {
+                        String notRescaledReason, List<StateCurve> states) {
+
+    /** A sample without curves in other states (its own curve is its as-supplied state). */
+    public Candidate(long sampleId, long materialId, String materialName, Curve measured, double thicknessMm,
+                     boolean bulk, RefractiveIndex index, MadeThicknesses made, boolean totalTransmittance,
+                     String notRescaledReason) {
+        this(sampleId, materialId, materialName, measured, thicknessMm, bulk, index, made, totalTransmittance,
+                notRescaledReason, List.of());
+    }
+
+    /** The same sample with its curves in other states (aged, printed), which state clauses read. */
+    public Candidate withStates(List<StateCurve> stateCurves) {
+        return new Candidate(sampleId, materialId, materialName, measured, thicknessMm, bulk, index, made,
+                totalTransmittance, notRescaledReason, stateCurves);
+    }
 
     /** A curve judged without a material record: no limit on thickness ({@link MadeThicknesses#UNLIMITED}). */
     public Candidate(long sampleId, long materialId, String materialName, Curve measured, double thicknessMm,
@@ -46,6 +63,7 @@ public record Candidate(long sampleId, long materialId, String materialName, Cur
         Objects.requireNonNull(materialName, "materialName");
         Objects.requireNonNull(measured, "measured");
         Objects.requireNonNull(made, "made");
+        states = List.copyOf(Objects.requireNonNull(states, "states"));
         if (!Double.isNaN(thicknessMm) && !(thicknessMm > 0 && Double.isFinite(thicknessMm))) {
             throw new IllegalArgumentException("thicknessMm of sample " + sampleId
                     + " must be a finite thickness > 0 mm or NaN (not recorded), was " + thicknessMm);

@@ -12,4 +12,9 @@ public sealed interface Clause permits TransmittanceClause, CutoffClause, Weight
     default boolean plain() {
         return this instanceof TransmittanceClause || this instanceof CutoffClause;
     }
+
+    /** Whether the clause reads a curve of another state than the sample's own (aged, printed black). */
+    default boolean readsStates() {
+        return false;
+    }
 }

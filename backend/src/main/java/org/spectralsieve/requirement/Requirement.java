@@ -64,4 +64,9 @@ public record Requirement(List<Clause> clauses, ThicknessSpec thickness, Optiona
     public boolean plain() {
         return layer.isEmpty() && clauses.stream().allMatch(Clause::plain);
     }
+
+    /** Whether a clause reads a curve of another state than as supplied (aged, printed), so candidates need them. */
+    public boolean namesStates() {
+        return clauses.stream().anyMatch(Clause::readsStates);
+    }
 }

@@ -116,6 +116,12 @@ public final class JudgementMemo implements SampleJudge {
     @Override
     public SampleEvaluation evaluate(Candidate candidate, Requirement requirement, Optional<StackLayer> layer,
                                      ThicknessInterval span) {
+        if (!candidate.states().isEmpty()) {
+            // curves in other states (aged, printed) are read from the database per search and are not part of the
+            // key: such a judgement is made afresh each time (few samples have them)
+            unkept.increment();
+            return SampleEvaluator.evaluate(candidate, requirement, layer, span);
+        }
         Asked asked = asked(requirement, layer);
         if (!asked.again()) {
             // a question seen once so far: judged and not kept (a shared lab repeats questions; a new threshold each

@@ -9,6 +9,7 @@ import java.util.HashSet;
 import java.util.List;
 import java.util.Objects;
 import java.util.Optional;
+import org.spectralsieve.states.StateCurve;
 import java.util.Set;
 import java.util.function.LongFunction;
 import org.spectralsieve.library.Geometry;
@@ -52,6 +53,12 @@ final class MaterialCandidates {
      */
     volatile JudgementMemo memo = JudgementMemo.enabledByDefault()
             ? new JudgementMemo(JudgementMemo.entriesByDefault()) : null;
+
+    /**
+     * Where a sample's curves in other states (aged, printed) are read from, only for a requirement that names a state
+     * ({@link Requirement#namesStates}); none by default (a snapshot formed without a database).
+     */
+    volatile LongFunction<List<StateCurve>> readStates = sampleId -> List.of();
 
     MaterialCandidates(LongFunction<Optional<Curve>> readCurve) {
         this.readCurve = Objects.requireNonNull(readCurve, "readCurve");
@@ -138,9 +145,11 @@ final class MaterialCandidates {
                     Curve curve = curve(s, sample.id()).orElseThrow(
                             () -> new IllegalStateException("the sample has no readable curve"));
                     SampleRescaling rescaling = SampleRescaling.of(material, sample);
-                    candidates.add(new Candidate(sample.id(), material.id(), material.name(), curve,
+                    Candidate candidate = new Candidate(sample.id(), material.id(), material.name(), curve,
                             sample.thicknessMm(), rescaling.rescalable(), material.refractiveIndex(), made,
-                            sample.geometry() == Geometry.TOTAL || diffuseLayer, rescaling.reason()));
+                            sample.geometry() == Geometry.TOTAL || diffuseLayer, rescaling.reason());
+                    candidates.add(requirement.namesStates()
+                            ? candidate.withStates(readStates.apply(sample.id())) : candidate);
                 } catch (RuntimeException e) {
                     failed.add(notComputable(material, sample.id(), sample.thicknessMm(), requirement, e));
                 }

@@ -18,7 +18,7 @@ import org.junit.jupiter.api.Test;
  * ArchUnit JUnit engine, so it does not depend on that engine matching the platform version.
  *
  * <p>Which packages are which, by what they import: the core (spectrum, optics, weighting, requirement,
- * store, similarity) uses nothing but the JDK and itself. export and seedmodel are plain-Java tools at the edge: they
+ * store, similarity, states) uses nothing but the JDK and itself. export and seedmodel are plain-Java tools at the edge: they
  * read the library's records, write with the importers' writer or Jackson, and must not pull in Spring,
  * jOOQ, Lucene or Jakarta either. Every other package is an edge that may.
  */
@@ -28,7 +28,7 @@ class CoreIsFrameworkFreeTest {
             .withImportOption(ImportOption.Predefined.DO_NOT_INCLUDE_TESTS)
             .importPackages("org.spectralsieve");
 
-    private static final String[] CORE = {"spectrum", "optics", "weighting", "requirement", "store", "similarity"};
+    private static final String[] CORE = {"spectrum", "optics", "weighting", "requirement", "store", "similarity", "states"};
 
     private static final String[] PLAIN_TOOLS = {"export", "seedmodel"};
 
