@@ -11,6 +11,10 @@ import org.spectralsieve.requirement.Clause;
 import org.spectralsieve.requirement.Comparison;
 import org.spectralsieve.requirement.CriticalWavelengthClause;
 import org.spectralsieve.requirement.CutoffClause;
+import org.spectralsieve.requirement.RelativeClause;
+import org.spectralsieve.requirement.StateAsked;
+import org.spectralsieve.requirement.StateClause;
+import org.spectralsieve.states.StateKind;
 import org.spectralsieve.requirement.Direction;
 import org.spectralsieve.requirement.FixedLayer;
 import org.spectralsieve.requirement.MaterialClassNames;
@@ -42,7 +46,11 @@ import tools.jackson.databind.JsonNode;
  *              {"type": "weighted", "preset": "emitter" | "erythemal" | "uvHazard" | "luminous", "emitter": "led-365",
  *               "response": "erythema" | null, "direction": "pass" | "block", "thresholdT": 0.85, "unit": "percent",
  *               "rangeNm": [329, 401], "safetyFigure": false, "text": "..."},
- *              {"type": "criticalWavelength", "comparison": "atLeast" | "atMost", "nm": 370, "text": "..."}]}
+ *              {"type": "criticalWavelength", "comparison": "atLeast" | "atMost", "nm": 370, "text": "..."},
+ *              {"type": "relative", "direction": "block" | "pass", "fromNm": 380, "toNm": 380, "share": 0.01,
+ *               "referenceNm": 550 | null, "state": STATE, "referenceState": STATE, "text": "..."},
+ *              {"type": "inState", "state": STATE, "clause": {a transmittance, cutoff, weighted or critical clause}}]}
+ * STATE = {"kind": "asSupplied" | "printed" | "aged", "hours": 1000 | null, "doseJPerCm2": null, "doseNm": null} | null
  * </pre>
  *
  * On reading, a transmittance or weighted clause may give its threshold as {@code thresholdPercent} or
@@ -127,6 +135,19 @@ public final class RequirementJson {
             json.put("type", "criticalWavelength");
             json.put("comparison", c.comparison() == Comparison.AT_LEAST ? "atLeast" : "atMost");
             json.put("nm", c.nm());
+        } else if (clause instanceof RelativeClause r) {
+            json.put("type", "relative");
+            json.put("direction", r.direction() == Direction.PASS ? "pass" : "block");
+            json.put("fromNm", r.band().fromNm());
+            json.put("toNm", r.band().toNm());
+            json.put("share", r.fraction());
+            json.put("referenceNm", r.ownWavelength() ? r.referenceNm() : null);
+            json.put("state", state(r.state()));
+            json.put("referenceState", state(r.referenceState()));
+        } else if (clause instanceof StateClause s) {
+            json.put("type", "inState");
+            json.put("state", state(s.state()));
+            json.put("clause", clause(s.inner()));
         } else {
             CutoffClause c = (CutoffClause) clause;
             json.put("type", "cutoff");
@@ -136,6 +157,81 @@ public final class RequirementJson {
         }
         json.put("text", clause.text());
         return json;
+    }
+
+    /** {"kind": "asSupplied" | "printed" | "aged", "hours": 1000 | null, "doseJPerCm2": null, "doseNm": null}. */
+    private static Map<String, Object> state(StateAsked s) {
+        Map<String, Object> json = new LinkedHashMap<>();
+        json.put("kind", switch (s.kind()) {
+            case AS_SUPPLIED -> "asSupplied";
+            case PRINTED -> "printed";
+            case AGED -> "aged";
+        });
+        boolean aged = s.kind() == StateKind.AGED;
+        json.put("hours", aged && s.inHours() ? s.amount() : null);
+        json.put("doseJPerCm2", aged && !s.inHours() ? s.amount() : null);
+        json.put("doseNm", aged && !s.inHours() ? s.doseNm() : null);
+        return json;
+    }
+
+    private static StateAsked state(JsonNode node, String path) {
+        if (node == null || node.isNull()) {
+            return StateAsked.AS_SUPPLIED;
+        }
+        if (!node.isObject()) {
+            throw bad(path, "must be an object with 'kind' ('asSupplied', 'printed' or 'aged'), or null");
+        }
+        return switch (requiredString(node, "kind", path)) {
+            case "asSupplied" -> StateAsked.AS_SUPPLIED;
+            case "printed" -> StateAsked.PRINTED;
+            case "aged" -> {
+                boolean hours = node.hasNonNull("hours");
+                if (hours == node.hasNonNull("doseJPerCm2")) {
+                    throw bad(path + ".hours", "an aged state gives 'hours', or 'doseJPerCm2' with 'doseNm': exactly one");
+                }
+                try {
+                    yield hours ? StateAsked.afterHours(number(node, "hours", path))
+                            : StateAsked.afterDose(number(node, "doseJPerCm2", path), number(node, "doseNm", path));
+                } catch (IllegalArgumentException e) {
+                    throw bad(path + (hours ? ".hours" : ".doseJPerCm2"), e.getMessage());
+                }
+            }
+            default -> throw bad(path + ".kind", "must be 'asSupplied', 'printed' or 'aged'");
+        };
+    }
+
+    private static RelativeClause relative(JsonNode node, String path, String text) {
+        Direction direction = direction(node, path);
+        Band band = band(node, path, false);
+        double share = number(node, "share", path);
+        check(share, share > 0 && share <= 1, path + ".share", "must be a fraction above 0 and at most 1");
+        StateAsked state = state(node.get("state"), path + ".state");
+        double referenceNm = node.hasNonNull("referenceNm") ? number(node, "referenceNm", path) : Double.NaN;
+        if (!Double.isNaN(referenceNm)) {
+            check(referenceNm, RequirementLimits.isWavelength(referenceNm), path + ".referenceNm",
+                    "must be a wavelength from " + RequirementLimits.MIN_WAVELENGTH_NM + " to "
+                            + RequirementLimits.MAX_WAVELENGTH_NM + " nm");
+        }
+        StateAsked reference = Double.isNaN(referenceNm) ? state(node.get("referenceState"), path + ".referenceState")
+                : state;
+        try {
+            return new RelativeClause(direction, band, share, referenceNm, state, reference, text);
+        } catch (IllegalArgumentException e) {
+            throw bad(path, e.getMessage() + " (give 'referenceNm', or a 'referenceState' other than 'state')");
+        }
+    }
+
+    private static StateClause inState(JsonNode node, String path, String text, SpectrumLookup spectra) {
+        StateAsked state = state(node.get("state"), path + ".state");
+        if (state.kind() == StateKind.AS_SUPPLIED) {
+            throw bad(path + ".state", "an 'inState' clause names 'printed' or 'aged'; the as-supplied state is the"
+                    + " clause itself");
+        }
+        Clause inner = clause(node.get("clause"), path + ".clause", spectra);
+        if (inner instanceof StateClause || inner instanceof RelativeClause) {
+            throw bad(path + ".clause", "must be a transmittance, cutoff, weighted or criticalWavelength clause");
+        }
+        return new StateClause(state, inner, text);
     }
 
     private static final Map<ThresholdUnit, String> UNITS = Map.of(ThresholdUnit.PERCENT, "percent",
@@ -254,8 +350,10 @@ public final class RequirementJson {
                         "must be a wavelength from 290 to 400 nm (a critical wavelength always lies there)");
                 yield new CriticalWavelengthClause(comparison, nm, text);
             }
+            case "relative" -> relative(node, path, text);
+            case "inState" -> inState(node, path, text, spectra);
             default -> throw bad(path + ".type", "'" + type + "' is not one of [transmittance, cutoff, weighted,"
-                    + " criticalWavelength]");
+                    + " criticalWavelength, relative, inState]");
         };
     }
 

@@ -1,7 +1,8 @@
 package org.spectralsieve.requirement;
 
 /** One spectral condition of a requirement. {@code text} is the clause as the user wrote it (or a canonical rendering). */
-public sealed interface Clause permits TransmittanceClause, CutoffClause, WeightedClause, CriticalWavelengthClause {
+public sealed interface Clause permits TransmittanceClause, CutoffClause, WeightedClause, CriticalWavelengthClause,
+        RelativeClause, StateClause {
 
     String text();
 

@@ -70,6 +70,14 @@ public final class ClauseEvaluator {
         if (clause instanceof CriticalWavelengthClause c) {
             return FigureClauses.critical(c, curve);
         }
+        if (clause instanceof RelativeClause r && !r.readsStates()) {
+            return RelativeClauses.evaluate(r, view);
+        }
+        if (clause.readsStates()) {
+            // another state's curve belongs to the sample, not to this curve: StateJudge reads it
+            throw new IllegalArgumentException("'" + clause.text() + "' reads a curve in another state; judge it on"
+                    + " the sample (SampleEvaluator)");
+        }
         return cutoff((CutoffClause) clause, view);
     }
 

@@ -44,6 +44,9 @@ final class PathConstraints {
                     d -> FigureClauses.weightedMargin(w, path.pointsAt(d), explained)));
             return true;
         }
+        if (clause instanceof RelativeClause r) {
+            return relative(r, path, asMeasured, minMm, maxMm, out);
+        }
         CriticalWavelengthClause c = (CriticalWavelengthClause) clause;
         DoubleUnaryOperator margin = d -> FigureClauses.criticalMargin(c, JudgedCurves.upperBounds(path.at(d)));
         double atMin = margin.applyAsDouble(minMm);
@@ -52,6 +55,28 @@ final class PathConstraints {
             return false;
         }
         boolean provable = FigureClauses.criticalProvable(asMeasured.curve());
+        out.add(new OnPath(atMax <= atMin, provable, margin));
+        return provable;
+    }
+
+    /**
+     * A ratio of T at two wavelengths of a bulk slab: the internal part is exp(-(α1 - α2)·d), monotone in d, and the
+     * surface terms change little; so, as for λc, the direction is the one its margins at both ends show, and the
+     * solver narrows the crossing by bracketing (ITP, {@link CrossingFinder}); SampleEvaluator keeps an interval
+     * only when both its ends and the recommendation meet on the real curves. Provable unless a reading it needs is
+     * a bound of the wrong kind (a reference at its detection limit, or a numerator there for "over").
+     */
+    private static boolean relative(RelativeClause r, CandidatePath path, CurveView asMeasured, double minMm,
+                                    double maxMm, List<ThicknessConstraint> out) {
+        DoubleUnaryOperator margin = d -> RelativeClauses.evaluate(r, new CurveView(path.at(d))).marginDecades();
+        double atMin = margin.applyAsDouble(minMm);
+        double atMax = margin.applyAsDouble(maxMm);
+        if (Double.isNaN(atMin) || Double.isNaN(atMax)) {
+            return false;
+        }
+        boolean referenceBounded = asMeasured.covers(r.referenceNm()) && asMeasured.at(r.referenceNm()).bounded();
+        boolean numeratorBounded = asMeasured.readings(r.band()).stream().anyMatch(Reading::bounded);
+        boolean provable = !referenceBounded && (r.direction() == Direction.BLOCK || !numeratorBounded);
         out.add(new OnPath(atMax <= atMin, provable, margin));
         return provable;
     }

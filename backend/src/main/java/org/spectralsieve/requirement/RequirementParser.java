@@ -40,13 +40,15 @@ public final class RequirementParser {
     private static final String EXAMPLE = "'passes over 80% at 365 nm'";
     private static final Expected ITEM = Expected.keywords("passes", "blocks", "transmits", "T", "mean", "OD",
             "cutoff", "over", "under", "UV400", "erythemal", "uv hazard", "luminous", "visible", "critical wavelength",
-            "thickness", "at", "class", "geometry", "behind", "on").because("to start a clause");
+            "thickness", "at", "from", "after", "printed", "base", "class", "geometry", "behind", "on")
+            .because("to start a clause");
     /** How many class labels an error lists before "…". */
     private static final int LISTED_CLASSES = 12;
 
     private final TokenCursor in;
     private final SpectralClauseParser spectral;
     private final FigureClauseParser figures;
+    private final StateClauseParser states;
     /** The class labels a class filter may name, or null when the caller has no library to check against. */
     private final List<String> knownClasses;
     private final List<Clause> clauses = new ArrayList<>();
@@ -63,6 +65,7 @@ public final class RequirementParser {
         this.in = new TokenCursor(text);
         this.spectral = new SpectralClauseParser(in, new SpectrumNames(in, spectra));
         this.figures = new FigureClauseParser(in, spectral, spectra);
+        this.states = new StateClauseParser(in, spectral);
     }
 
     /**
@@ -149,6 +152,27 @@ public final class RequirementParser {
     }
 
     private void spectralOrFilter(Token first) {
+        if (states.atState()) {
+            StateAsked state = states.state();
+            Token clauseStart = in.peek();
+            int before = clauses.size();
+            if (states.atRelative()) {
+                clauses.add(states.relative(clauseStart, state));
+            } else {
+                spectralOrFilter(clauseStart);
+            }
+            if (clauses.size() != before + 1) {
+                throw new RequirementSyntaxException(clauseStart.start(), "a spectral clause after '"
+                        + in.slice(first.start(), clauseStart.start()).strip() + "'", "'"
+                        + in.slice(clauseStart.start(), in.previous().end()) + "'", null);
+            }
+            clauses.set(before, states.stated(first, state, clauses.get(before)));
+            return;
+        }
+        if ((first.isWord("at") || first.isWord("from") || first.isWord("between")) && states.atRelative()) {
+            clauses.add(states.relative(first));
+            return;
+        }
         String word = first.kind() == Kind.WORD ? first.lower() : "";
         switch (word) {
             case "passes", "pass", "blocks", "block", "transmits", "transmit", "transmittance", "t" ->

@@ -42,9 +42,34 @@ final class RequirementRenderer {
             return "critical wavelength " + (c.comparison() == Comparison.AT_LEAST ? "at least " : "at most ")
                     + number(c.nm()) + " nm";
         }
+        if (clause instanceof RelativeClause r) {
+            return relative(r);
+        }
+        if (clause instanceof StateClause s) {
+            return state(s.state()) + " " + clause(s.inner());
+        }
         CutoffClause c = (CutoffClause) clause;
         return (c.levelT() == 0.5 ? "cutoff " : "cutoff at " + percent(c.levelT()) + " ")
                 + "between " + number(c.window().fromNm()) + " and " + number(c.window().toNm()) + " nm";
+    }
+
+    /** "at 380 nm at most 1% of its 550 nm value", "from 350 to 420 nm printed black at most 0.1% of the base". */
+    private static String relative(RelativeClause r) {
+        String level = (r.direction() == Direction.PASS ? "at least " : "at most ") + percent(r.fraction()) + " of ";
+        if (r.ownWavelength()) {
+            String prefix = r.state().kind() == org.spectralsieve.states.StateKind.AS_SUPPLIED ? "" : state(r.state()) + " ";
+            return prefix + band(r.band()) + " " + level + "its " + number(r.referenceNm()) + " nm value";
+        }
+        return band(r.band()) + " the " + state(r.state()) + " " + level + "the " + state(r.referenceState());
+    }
+
+    private static String state(StateAsked s) {
+        return switch (s.kind()) {
+            case AS_SUPPLIED -> "base";
+            case PRINTED -> "printed black";
+            case AGED -> "after " + number(s.amount()) + (s.inHours() ? " h"
+                    : " J/cm² at " + number(s.doseNm()) + " nm");
+        };
     }
 
     static String layer(FixedLayer layer) {

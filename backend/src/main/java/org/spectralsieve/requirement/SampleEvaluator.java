@@ -78,6 +78,9 @@ public final class SampleEvaluator {
                     ? "the requirement names a fixed layer ('" + requirement.layer().get().text() + "'); resolve it to a sample first"
                     : "a resolved layer was given for a requirement without one");
         }
+        if (requirement.namesStates()) {
+            return StateJudge.evaluate(candidate, requirement, layer, span);
+        }
         try {
             CandidatePath path = new CandidatePath(candidate, layer);
             try {
@@ -371,6 +374,12 @@ public final class SampleEvaluator {
         }
         if (clause instanceof CriticalWavelengthClause c) {
             return c.nm();
+        }
+        if (clause instanceof RelativeClause r) {
+            return r.fraction();
+        }
+        if (clause instanceof StateClause s) {
+            return threshold(s.inner());
         }
         return ((CutoffClause) clause).levelT();
     }

@@ -384,7 +384,7 @@ final class SpectralClauseParser {
         }
     }
 
-    private Sense comparisonWord(Token t) {
+    Sense comparisonWord(Token t) {
         switch (t.lower()) {
             case "over", "above" -> {
                 in.next();

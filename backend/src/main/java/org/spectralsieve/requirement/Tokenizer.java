@@ -68,6 +68,11 @@ final class Tokenizer {
                 break;
             }
         }
+        // the one unit with a slash: "J/cm²" (or "J/cm2") is one word, a dose
+        if (pos - start == 1 && (text.charAt(start) == 'J' || text.charAt(start) == 'j')
+                && text.startsWith("/cm", pos) && (charAt(pos + 3) == '²' || charAt(pos + 3) == '2')) {
+            pos += 4;
+        }
         add(Kind.WORD, start);
     }
 

@@ -37,7 +37,11 @@ class RequirementJsonTest {
             "passes over 85% of led 365 and passes over 60% of led 395 weighted by erythema, thickness 1 to 6 mm",
             "erythemal under 1% and uv hazard OD 3 or more and luminous over 40% and critical wavelength over 370 nm",
             "blocks under 1% at 405 nm and luminous at least 0.7, behind 4 mm clear float glass",
-            "on 0.112 mm amber-masking-film and passes over 50% at 600 nm"})
+            "on 0.112 mm amber-masking-film and passes over 50% at 600 nm",
+            "at 380 nm under 1% of its 550 nm value and at 400 nm under half of its 550 nm value, thickness 1 to 6 mm",
+            "after 1000 h passes over 80% at 365 nm and after 50 J/cm² at 365 nm at 320 nm over 10% of its 550 nm value",
+            "printed black blocks to OD 3 or more from 350 to 420 nm and base passes over 80% from 350 to 420 nm",
+            "from 350 to 420 nm the printed black under 0.1% of the base and after 2000 h luminous over 40%"})
     void jsonRoundTripGivesBackTheSameRequirement(String text) {
         Requirement requirement = RequirementParser.parse(text);
         assertThat(RequirementJson.fromJson(tree(RequirementJson.toJson(requirement)))).isEqualTo(requirement);
@@ -105,6 +109,12 @@ class RequirementJsonTest {
             {"clauses": [{"type": "cutoff", "fromNm": 380, "toNm": 395}], "layer": {"placement": "under", "thicknessMm": 4, "material": "glass"}} | layer.placement must be
             {"clauses": [{"type": "cutoff", "fromNm": 380, "toNm": 395}], "layer": {"thicknessMm": 4, "material": "glass, tinted"}} | layer.material must be a slug
             {"clauses": [{"type": "cutoff", "fromNm": 380, "toNm": 395}], "layer": "glass"}   | layer must be an object
+            {"clauses": [{"type": "relative", "direction": "block", "fromNm": 380, "toNm": 380, "share": 2, "referenceNm": 550}]} | clauses[0].share must be a fraction
+            {"clauses": [{"type": "relative", "direction": "block", "fromNm": 380, "toNm": 380, "share": 0.01}]} | clauses[0] a curve relative to itself
+            {"clauses": [{"type": "inState", "state": {"kind": "aged"}, "clause": {"type": "cutoff", "fromNm": 380, "toNm": 395}}]} | clauses[0].state.hours an aged state gives
+            {"clauses": [{"type": "inState", "state": {"kind": "aged", "hours": -5}, "clause": {"type": "cutoff", "fromNm": 380, "toNm": 395}}]} | clauses[0].state.hours exposure hours must lie above 0
+            {"clauses": [{"type": "inState", "state": {"kind": "worn"}, "clause": {"type": "cutoff", "fromNm": 380, "toNm": 395}}]} | clauses[0].state.kind must be
+            {"clauses": [{"type": "inState", "state": {"kind": "printed"}}]} | clauses[0].clause must be an object
             """)
     void badFieldIsNamedByItsJsonPath(String json, String message) {
         assertThatThrownBy(() -> RequirementJson.fromJson(MAPPER.readTree(json)))
