@@ -87,8 +87,30 @@ function opticalDensity(t) {
   return number(-Math.log10(t), 2);
 }
 
+/** A material state as the requirement names it: "as supplied", "printed black", "after 1000 h". */
+export function stateWords(state) {
+  if (!state || state.kind === 'asSupplied') return 'as supplied';
+  if (state.kind === 'printed') return 'printed black';
+  return Number.isFinite(state.hours) ? `after ${number(state.hours)} h`
+    : `after ${number(state.doseJPerCm2)} J/cm² at ${number(state.doseNm, 1)} nm`;
+}
+
+/** A level relative to the same candidate: "T(380 nm) ≤ 1 % of T(550 nm)", "printed black ≤ 0.1 % of as supplied, 350–420 nm". */
+function relativeSummary(clause) {
+  const side = clause.direction === 'pass' ? '≥' : '≤';
+  const share = thresholdPercent(clause.share);
+  if (Number.isFinite(clause.referenceNm)) {
+    const state = clause.state?.kind === 'asSupplied' ? '' : `${stateWords(clause.state)}: `;
+    const at = clause.fromNm === clause.toNm ? `T(${number(clause.fromNm, 1)} nm)` : `T ${band(clause.fromNm, clause.toNm)}`;
+    return `${state}${at} ${side} ${share} of T(${number(clause.referenceNm, 1)} nm)`;
+  }
+  return `${stateWords(clause.state)} ${side} ${share} of ${stateWords(clause.referenceState)} ${band(clause.fromNm, clause.toNm)}`;
+}
+
 /** One structured clause as the server understood it: "T ≥ 80 % at 365 nm", "OD ≥ 3 (T ≤ 0.1 %) over …". */
 export function clauseSummary(clause) {
+  if (clause.type === 'relative') return relativeSummary(clause);
+  if (clause.type === 'inState') return `${stateWords(clause.state)}: ${clauseSummary(clause.clause)}`;
   if (clause.type === 'cutoff') {
     return `cutoff (T = ${thresholdPercent(clause.levelT)}) within ${number(clause.fromNm, 1)}–${number(clause.toNm, 1)} nm`;
   }
@@ -126,7 +148,9 @@ export function clauseValue(result, clause) {
   const v = result.value;
   if (v === null || v === undefined || !Number.isFinite(v)) return DASH;
   if (clause?.type === 'cutoff') return `${number(v, 1)} nm`;
+  if (clause?.type === 'inState') return clauseValue(result, clause.clause);
   const bound = result.valueIsBound;
+  if (clause?.type === 'relative') return `${bound ? '≤ ' : ''}${percent(v)} of the reference`;
   if (clause?.unit === 'opticalDensity') {
     if (v <= 0) return 'T = 0';
     return `OD ${bound ? '≥ ' : ''}${opticalDensity(v)}`;

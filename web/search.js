@@ -485,6 +485,9 @@ function weightedName(clause) {
 
 /** "T of led-365 ≥ 85 %", "erythemal T ≤ 1 %", "λc ≥ 370 nm"; other clauses as the shared formatter writes them. */
 function clauseSummary(clause) {
+  if (clause.type === 'inState' && (clause.clause.type === 'weighted' || clause.clause.type === 'criticalWavelength')) {
+    return `${fmt.stateWords(clause.state)}: ${clauseSummary(clause.clause)}`;
+  }
   if (clause.type === 'criticalWavelength') {
     return `critical wavelength λc ${clause.comparison === 'atLeast' ? '≥' : '≤'} ${fmt.number(clause.nm, 1)} nm`;
   }
@@ -499,6 +502,7 @@ function clauseSummary(clause) {
 }
 
 function clauseValue(result, clause) {
+  if (clause?.type === 'inState') return clauseValue(result, clause.clause);
   if (clause?.type === 'criticalWavelength') {
     return Number.isFinite(result.value) ? `${fmt.number(result.value, 1)} nm` : '—';
   }

@@ -5,7 +5,10 @@ import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
+import org.spectralsieve.requirement.Clause;
 import org.spectralsieve.requirement.ClauseResult;
+import org.spectralsieve.requirement.RelativeClause;
+import org.spectralsieve.requirement.StateClause;
 import org.spectralsieve.requirement.RankedRow;
 import org.spectralsieve.requirement.Requirement;
 import org.spectralsieve.requirement.SampleEvaluation;
@@ -78,6 +81,7 @@ public final class ShortlistJson {
     /** The screening caution, when the requirement asks for an eye or skin safety figure. */
     public static java.util.Optional<String> caution(Requirement requirement) {
         boolean safety = requirement.clauses().stream()
+                .map(c -> c instanceof StateClause s ? s.inner() : c)
                 .anyMatch(c -> c instanceof WeightedClause w && w.weighting().safetyFigure());
         return safety ? java.util.Optional.of(WeightingController.CAUTION) : java.util.Optional.empty();
     }
@@ -196,7 +200,9 @@ public final class ShortlistJson {
 
     /** Whether the clause's value is a transmittance (not a wavelength in nm). */
     private static boolean isTransmittance(ClauseResult c) {
-        return c.clause() instanceof TransmittanceClause || c.clause() instanceof WeightedClause;
+        Clause clause = c.clause() instanceof StateClause s ? s.inner() : c.clause();
+        return clause instanceof TransmittanceClause || clause instanceof WeightedClause
+                || clause instanceof RelativeClause;
     }
 
     private static Double finiteOrNull(double value) {

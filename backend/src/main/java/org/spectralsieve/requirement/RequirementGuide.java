@@ -105,6 +105,16 @@ public record RequirementGuide(List<ClauseForm> forms, List<UnitRange> units, St
                 form("Preset weighted figure", "erythemal under 1%", "erythemally weighted transmittance at most 1 %"),
                 form("Visible (luminous) transmittance", "visible over 70%", "luminous transmittance (D65, V(lambda)) at least 70 %"),
                 form("Critical wavelength", "critical wavelength over 370 nm", "the critical wavelength (290-400 nm) at least 370 nm"),
+                form("Relative to its own value", "at 380 nm under 1% of its 550 nm value",
+                        "T at 380 nm at most 1 % of the same curve's T at 550 nm ('half' also reads as a share)"),
+                form("After ageing", "after 1000 h passes over 80% at 365 nm",
+                        "judged on the sample's aged curves (hours, or 'after 50 J/cm² at 365 nm'); between two stored"
+                                + " exposures it must hold on both, past the last it is unverified"),
+                form("Printed black and clear base", "printed black blocks to OD 3 or more from 350 to 420 nm and base"
+                                + " passes over 80% from 350 to 420 nm",
+                        "a film's printed-black curve and its own unprinted curve"),
+                form("One state against another", "from 350 to 420 nm the printed black under 0.1% of the base",
+                        "at every wavelength of the band, the printed black at most 0.1 % of the base"),
                 form("Confidence demand", "passes over 80% at 365 nm with 95% confidence",
                         "meets only when at least 95 % likely to hold"),
                 form("Thickness range to solve for", "passes over 80% at 365 nm, thickness 1 to 6 mm",
@@ -140,6 +150,10 @@ public record RequirementGuide(List<ClauseForm> forms, List<UnitRange> units, St
                         "passes over 80% at 365 nm, at 3 mm"),
                 new UnitRange("UV rating", "UV followed by nm", range(SpectralClauseParser.UV_RATING_MIN_NM) + " to "
                         + range(SpectralClauseParser.UV_RATING_MAX_NM), "UV420 under 0.5%"),
+                new UnitRange("exposure", "h, or J/cm² at a wavelength", "above 0 up to 1000000",
+                        "after 2000 h passes over 70% at 320 nm"),
+                new UnitRange("share of another value", "% or a fraction, or 'half'", "above 0 up to 100 %",
+                        "at 400 nm under half of its 550 nm value"),
                 new UnitRange("confidence", "with N% confidence", percent(TransmittanceClause.MIN_CONFIDENCE) + " to "
                         + percent(TransmittanceClause.MAX_CONFIDENCE) + " %", "UV400 with 99% confidence"),
                 new UnitRange("text", "characters, clauses", "at most " + RequirementLimits.MAX_TEXT_LENGTH + " characters and "

@@ -50,9 +50,10 @@ public record RequirementWords(String words, List<String> provenances, String ma
     static final Set<String> ITEM_STARTS = Set.of("passes", "pass", "blocks", "block", "transmits", "transmit",
             "transmittance", "t", "mean", "od", "over", "above", "under", "below", "more", "less", "cutoff", "cut-off",
             "erythemal", "uv", "uv-hazard", "luminous", "visible", "vlt", "critical", "behind", "on", "thickness",
-            "class", "material", "geometry", "at");
+            "class", "material", "geometry", "at", "from", "between", "after", "printed", "base", "unprinted", "as");
     /** Keywords a slip is looked for against: the longer clause words (a slip for "t" or "on" is just a word). */
     private static final List<String> SLIP_KEYWORDS = Arrays.asList("passes", "blocks", "transmits", "transmittance",
+            "printed",
             "cutoff", "erythemal", "luminous", "visible", "critical", "thickness", "geometry", "behind", "under", "over",
             "below", "above");
     static final String PROVENANCE = "provenance";

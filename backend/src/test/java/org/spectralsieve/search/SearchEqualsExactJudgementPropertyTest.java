@@ -55,7 +55,8 @@ class SearchEqualsExactJudgementPropertyTest {
             "behind 0.112 mm amber masking film", "on 2 mm borosilicate"};
     private static final String[] CLASSES = {"plastic sheet", "film", "window glass"};
 
-    private enum Kind { PLAIN_AS_MEASURED, PLAIN_FIXED, PLAIN_SOLVE, WEIGHTED, STACKED, SOLVED, STACKED_SOLVED }
+    private enum Kind { PLAIN_AS_MEASURED, PLAIN_FIXED, PLAIN_SOLVE, WEIGHTED, STACKED, SOLVED, STACKED_SOLVED, RELATIVE,
+        RELATIVE_SOLVED }
 
     private static JooqLibraryRepository library;
     private static SearchService cached;
@@ -80,7 +81,7 @@ class SearchEqualsExactJudgementPropertyTest {
         List<Material> materials = library.findMaterials(null, null);
         Map<Kind, Integer> nonEmpty = new EnumMap<>(Kind.class);
         int held = 0;
-        for (int trial = 0; trial < 35; trial++) {
+        for (int trial = 0; trial < 45; trial++) {
             Kind kind = Kind.values()[trial % Kind.values().length];
             String text = requirement(kind, random);
             Requirement requirement = RequirementParser.parse(text);
@@ -126,14 +127,15 @@ class SearchEqualsExactJudgementPropertyTest {
     private static String requirement(Kind kind, Random random) {
         List<String> parts = new ArrayList<>();
         boolean plain = kind.name().startsWith("PLAIN");
-        String clauses = plain ? plainClause(random) : weightedClause(random);
+        boolean relative = kind.name().startsWith("RELATIVE");
+        String clauses = plain ? plainClause(random) : relative ? relativeClause(random) : weightedClause(random);
         if (random.nextBoolean()) {
             clauses += " and " + (plain ? plainClause(random) : random.nextBoolean() ? plainClause(random) : weightedClause(random));
         }
         parts.add(clauses);
         switch (kind) {
             case PLAIN_FIXED -> parts.add("at " + new String[] {"1", "2", "3", "4", "6"}[random.nextInt(5)] + " mm");
-            case PLAIN_SOLVE, SOLVED, STACKED_SOLVED -> parts.add("thickness "
+            case PLAIN_SOLVE, SOLVED, STACKED_SOLVED, RELATIVE_SOLVED -> parts.add("thickness "
                     + new String[] {"1 to 6", "0.5 to 3", "2 to 10"}[random.nextInt(3)] + " mm");
             default -> { }
         }
@@ -158,6 +160,21 @@ class SearchEqualsExactJudgementPropertyTest {
                 int from = 300 + 10 * random.nextInt(15);
                 yield "cutoff between " + from + " and " + (from + 10 + 10 * random.nextInt(5)) + " nm";
             }
+        };
+    }
+
+    /** Levels relative to the same curve: the archival-glazing shapes of PRACTICE.md §5 (19), thresholds varied. */
+    private static String relativeClause(Random random) {
+        int nm = 300 + 10 * random.nextInt(13);
+        String reference = new String[] {"550", "600", "500"}[random.nextInt(3)];
+        return switch (random.nextInt(4)) {
+            case 0 -> "at " + nm + " nm under " + percent(Math.pow(10, 1 - 2 * random.nextDouble())) + " of its "
+                    + reference + " nm value";
+            case 1 -> "at " + (nm + 60) + " nm over " + percent(30 + 60 * random.nextDouble()) + " of its " + reference
+                    + " nm value";
+            case 2 -> "from " + nm + " to " + (nm + 30) + " nm under half of its " + reference + " nm value";
+            default -> "at " + nm + " nm under " + percent(Math.pow(10, 1 - 2 * random.nextDouble())) + " of its "
+                    + reference + " nm value and " + plainClause(random);
         };
     }
 
