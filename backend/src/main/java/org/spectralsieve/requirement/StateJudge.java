@@ -30,8 +30,9 @@ import org.spectralsieve.states.StateKind;
  *       otherwise. Past the last curve: unverified, not extrapolated. Several sources: each series that reaches the
  *       asked exposure is judged and the worst answer stands.</li>
  * </ul>
- * The clause's feasible thickness interval is not kept when a state clause is present: state curves speak for their
- * own thickness only.
+ * The feasible thickness interval is not kept when a state clause is present: state curves speak for their own
+ * thickness only. For the same reason a thickness range that holds the sample's measured thickness (where its state
+ * curves were measured) is judged at that thickness.
  */
 final class StateJudge {
 
@@ -44,7 +45,8 @@ final class StateJudge {
         Map<Clause, ClauseResult> judged = new LinkedHashMap<>();
         double d;
         if (!own.isEmpty()) {
-            Requirement ownOnly = new Requirement(own, requirement.thickness(), requirement.materialClass(),
+            Requirement ownOnly = new Requirement(own, ownThickness(candidate, requirement.thickness()),
+                    requirement.materialClass(),
                     requirement.geometry(), requirement.layer(), requirement.text());
             SampleEvaluation base = SampleEvaluator.evaluate(candidate, ownOnly, layer, span);
             for (ClauseResult r : base.clauses()) {
@@ -69,6 +71,19 @@ final class StateJudge {
             }
         }
         return SampleEvaluation.of(candidate.sampleId(), d, null, results);
+    }
+
+    /**
+     * A thickness range that holds the sample's measured thickness is judged there, where its state curves were
+     * measured, rather than at the thickness the own clauses alone would recommend (where the state clauses could
+     * only be unverified); any other thickness statement stands.
+     */
+    private static ThicknessSpec ownThickness(Candidate candidate, ThicknessSpec spec) {
+        boolean statesHere = candidate.states().stream().anyMatch(s -> Double.isNaN(s.thicknessMm())
+                || NominalThickness.same(s.thicknessMm(), candidate.thicknessMm()));
+        return spec.kind() == ThicknessSpec.Kind.RANGE && candidate.thicknessKnown() && statesHere
+                && NominalThickness.within(candidate.thicknessMm(), spec.minMm(), spec.maxMm())
+                ? ThicknessSpec.at(candidate.thicknessMm()) : spec;
     }
 
     /**

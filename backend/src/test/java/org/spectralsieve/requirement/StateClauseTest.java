@@ -110,6 +110,20 @@ class StateClauseTest {
     }
 
     @Test
+    void aThicknessRangeHoldingTheMeasuredThicknessIsJudgedWhereTheStateCurvesWereMeasured() {
+        Candidate c = lampCover(List.of(aged(1, 2000, "lamp bank A", AFTER_2000)));
+        SampleEvaluation e = judge("passes over 50% at 365 nm and after 2000 h passes over 80% at 365 nm,"
+                + " thickness 1 to 6 mm", c);
+        assertThat(e.thicknessMm()).isEqualTo(3);
+        assertThat(e.verdict()).isEqualTo(Verdict.MEETS);
+        assertThat(e.feasibleMm()).isNull();
+        // a range that leaves the measured thickness out: the state clause cannot be judged there
+        SampleEvaluation thick = judge("passes over 50% at 365 nm and after 2000 h passes over 80% at 365 nm,"
+                + " thickness 4 to 6 mm", c);
+        assertThat(thick.clauses().get(1).verdict()).isEqualTo(Verdict.UNVERIFIED);
+    }
+
+    @Test
     void aPrintedBlackIsJudgedOnItsHeaviestPrintAndAgainstItsBase() {
         double[] nm = {350, 385, 420, 550};
         Curve base = Curve.of(nm, new double[] {0.84, 0.86, 0.87, 0.88}, 0);
