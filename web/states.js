@@ -66,10 +66,11 @@ export function initStates(ui) {
       st.sourceFileName && `from ${st.sourceFileName}`,
     ].filter(Boolean).join(' · ');
     if (facts) text.append(node('span', 'state-facts', ` (${facts})`));
+    // a toggle button: its name stays "Plot …" and aria-pressed says whether the curve is drawn
     const plot = node('button', 'quiet state-plot', 'Plot');
     plot.type = 'button';
     plot.setAttribute('aria-pressed', 'false');
-    plot.setAttribute('aria-label', `Plot ${label} beside the sample's own curve`);
+    plot.append(node('span', 'visually-hidden', ` ${label} beside the sample’s own curve`));
     plot.addEventListener('click', () => toggle(sample, st, label, dash, plot));
     li.append(swatch, text, plot);
     return li;
@@ -79,7 +80,6 @@ export function initStates(ui) {
     if (shown.has(st.id)) {
       shown.delete(st.id);
       button.setAttribute('aria-pressed', 'false');
-      button.textContent = 'Plot';
       ui.changed(drawn());
       return;
     }
@@ -90,7 +90,6 @@ export function initStates(ui) {
       if (mine !== request) return;
       shown.set(st.id, { ...curve, label, color: ui.sampleColour(sample), dash });
       button.setAttribute('aria-pressed', 'true');
-      button.textContent = 'Hide';
       ui.changed(drawn());
     } catch (problem) {
       ui.problem(problem, `Loading the curve ${label}`);

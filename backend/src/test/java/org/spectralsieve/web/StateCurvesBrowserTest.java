@@ -3,13 +3,17 @@ package org.spectralsieve.web;
 import static org.assertj.core.api.Assertions.assertThat;
 
 import java.io.IOException;
+import java.nio.file.Files;
+import java.nio.file.Path;
 import java.util.List;
 import org.junit.jupiter.api.AfterAll;
 import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
 import org.openqa.selenium.By;
 import org.openqa.selenium.WebDriver;
 import org.openqa.selenium.WebElement;
+import org.openqa.selenium.support.ui.Select;
 import org.openqa.selenium.support.ui.WebDriverWait;
 import org.springframework.boot.test.context.SpringBootTest;
 import org.springframework.boot.test.web.server.LocalServerPort;
@@ -73,6 +77,43 @@ class StateCurvesBrowserTest {
         plot.click();
         wait.until(d -> page.legendLabels().stream().noneMatch(l -> l.contains("aged 2000 h")));
         assertThat(plot.getDomAttribute("aria-pressed")).isEqualTo("false");
+    }
+
+    @Test
+    void importPageStoresAFileAsAStateOfSampleNAndNamesAMissingFieldNextToIt(@TempDir Path temp) throws Exception {
+        long materialId = PageBrowser.getJson(port, "/api/materials?q=fep").findValues("id").get(0).asLong();
+        long sampleId = PageBrowser.getJson(port, "/api/materials/" + materialId).path("samples").get(0).path("id").asLong();
+        Path file = Files.writeString(temp.resolve("vat-film-after-use.csv"),
+                "wavelength_nm,transmittance\n300,0.60\n350,0.70\n405,0.75\n450,0.78\n600,0.82\n");
+        page.load(port, "/");
+        wait.until(d -> !d.findElement(By.id("material-count")).getText().equals("Loading…"));
+        driver.findElement(By.id("import-files-input")).sendKeys(file.toAbsolutePath().toString());
+        WebElement card = wait.until(d -> d.findElements(By.cssSelector("#import-list > li")).stream().findFirst().orElse(null));
+        wait.until(d -> card.findElement(By.cssSelector(".import-state")).getText().contains("Nothing is stored yet"));
+
+        card.findElement(By.cssSelector("input[type=radio][value=state]")).click();
+        assertThat(card.findElement(By.name("geometry")).isDisplayed()).isFalse(); // the sample's own, not the state's
+        card.findElement(By.name("stateSample")).sendKeys(String.valueOf(sampleId));
+        new Select(card.findElement(By.name("state"))).selectByValue("printed");
+        card.findElement(By.cssSelector("button[type=submit]")).click();
+        WebElement problem = wait.until(d -> {
+            WebElement p = card.findElement(By.cssSelector(".import-problem"));
+            return p.isDisplayed() ? p : null;
+        });
+        assertThat(problem.getText()).contains("Ink load (%)");
+        assertThat(card.findElement(By.name("inkLoadPercent")).getDomAttribute("aria-invalid")).isEqualTo("true");
+
+        new Select(card.findElement(By.name("state"))).selectByValue("aged");
+        card.findElement(By.name("hours")).sendKeys("600");
+        card.findElement(By.name("source")).sendKeys("bench resin printer (illustrative)");
+        card.findElement(By.cssSelector("button[type=submit]")).click();
+        wait.withMessage(() -> "waiting for the stored state; card says: " + card.getText())
+                .until(d -> card.findElement(By.cssSelector(".import-state")).getText().startsWith("Stored as state curve"));
+        assertThat(card.findElement(By.cssSelector(".import-state")).getText())
+                .contains("of sample " + sampleId).contains("aged 600 h under bench resin printer (illustrative)");
+        page.screenshotOfElement("states-2-imported", card);
+        assertThat(PageBrowser.getJson(port, "/api/samples/" + sampleId).path("states").toString())
+                .contains("aged 600 h under bench resin printer");
     }
 
     @Test
