@@ -124,6 +124,11 @@ export function getCurve(sampleId, thicknessMm) {
   return getJson(`${BASE}/samples/${encodeURIComponent(sampleId)}/curve${query({ thicknessMm })}`);
 }
 
+/** One of a sample's curves in another state (aged, printed): its points, never rescaled (docs/material-states.md). */
+export function getStateCurve(sampleId, stateId) {
+  return getJson(`${BASE}/samples/${encodeURIComponent(sampleId)}/states/${encodeURIComponent(stateId)}`);
+}
+
 export function curveCsvUrl(sampleId) {
   return `${BASE}/samples/${encodeURIComponent(sampleId)}/curve.csv`;
 }

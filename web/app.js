@@ -15,6 +15,7 @@ import { showDownloads, initChartPng } from './export.js';
 import { initCuration, renderMaterialRecord, renderRetiredSamples, sampleControls } from './curation.js';
 import { readAddress, writeAddress, onAddressChange } from './address.js';
 import { showChartValues } from './chart-values.js';
+import { initStates } from './states.js';
 
 const SAMPLE_COLOURS = ['#1d6a86', '#8a5a2b', '#4d7a37', '#7a3e6e', '#3d4f9a', '#9c4545', '#3c7f7a', '#6b6b2a'];
 const RESCALED_COLOUR = '#c2700f';
@@ -59,6 +60,7 @@ const state = {
   curves: [],           // measured curves of the shown material, in sample order
   rescaled: null,       // { curve, fromSample, thicknessMm } or null
   overlays: [],         // curves of look-alike hits drawn over the shown material's (similar.js)
+  stateCurves: [],      // a sample's curves in other states plotted beside its own (states.js)
   plot: null,
 };
 
@@ -102,6 +104,17 @@ function messageStartsWith(context) {
   return !dom.message.hidden && dom.message.textContent.startsWith(context);
 }
 
+// A sample's curves in other states (aged, printed) listed under the sample table and plotted on demand (states.js).
+const states = initStates({
+  container: el('state-curves'),
+  sampleLabel,
+  sampleColour: (sample) => SAMPLE_COLOURS[Math.max(0, state.material?.samples.indexOf(sample) ?? 0) % SAMPLE_COLOURS.length],
+  changed(curves) {
+    state.stateCurves = curves;
+    redraw();
+  },
+  problem: (p, context) => showProblem(p, context),
+});
 const figures = initFigures({ showProblem, clearMessage, messageStartsWith, changed: () => rememberView() });
 const facets = initFacets(dom.facets, () => loadMaterials());
 const similar = initSimilar({
@@ -324,8 +337,10 @@ async function selectMaterial(id, rescaleTo = null) {
     state.rescaled = null;
     state.curves = [];
     state.overlays = [];
+    state.stateCurves = [];
     renderDetailHead(material);
     renderSamples(material);
+    states.showMaterial(material);
     setupRescale(material);
     clearRescaleProblem(); // a refusal belongs to the material it was asked for
     figures.showMaterial(material, rescaleTo?.sampleId); // a shortlist row's own sample (docs/result-rows.md)
@@ -367,6 +382,7 @@ async function loadCurves(material, request) {
 function redraw() {
   if (state.plot) state.plot.destroy();
   const curves = [...state.curves];
+  curves.push(...state.stateCurves); // beside their samples' own curves, before a rescaled one or overlays
   if (state.rescaled) curves.push(state.rescaled.curve);
   curves.push(...state.overlays);
   state.plot = drawCurves(dom.chart, curves, dom.axisMode.value);
@@ -632,6 +648,7 @@ function closeMaterial() {
   state.rescaled = null;
   state.curves = [];
   state.overlays = [];
+  state.stateCurves = [];
   dom.detail.hidden = true;
   dom.placeholder.hidden = false;
   markSelectedRow(null);

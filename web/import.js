@@ -16,6 +16,10 @@ const READ_FIELDS = ['format', 'yKind', 'xUnit', 'decimalMark', 'block', 'from',
 // What the import adds (StoreForm), sent only when filled.
 const STORE_FIELDS = ['thicknessMm', 'geometry', 'provenance', 'instrument', 'measuredOn', 'lot', 'notes'];
 const NEW_MATERIAL_FIELDS = ['materialName', 'materialClass', 'scaling', 'indexN', 'description', 'stockThicknesses'];
+// A file stored as a sample's curve in another state (POST /api/samples/{id}/states, docs/material-states.md):
+// the state's fields, and of the sample fields only the thickness and notes.
+const STATE_FIELDS = ['state', 'hours', 'source', 'doseJPerCm2', 'doseNm', 'inkLoadPercent', 'statedDensity'];
+const STATE_SAMPLE_FIELDS = ['thicknessMm', 'notes'];
 const Y_KIND_WORDS = {
   transmittance_fraction: 'transmittance (fraction)',
   transmittance_percent: 'transmittance (%)',
@@ -35,6 +39,8 @@ const FIELD_LABELS = {
   measuredOn: 'Measured on', lot: 'Lot', notes: 'Notes', format: 'Format', yKind: 'Values are',
   xUnit: 'Wavelength unit', decimalMark: 'Decimal mark', block: 'JCAMP-DX block', eachBlock: 'Every block',
   from: 'Keep from', to: 'Keep to', uncertainty: 'Instrument uncertainty',
+  stateSample: 'Sample', state: 'State', hours: 'Hours', source: 'Under', doseJPerCm2: 'Dose (J/cm²)', doseNm: 'at (nm)',
+  inkLoadPercent: 'Ink load (%)', statedDensity: 'Stated density',
 };
 const OUTCOME_WORDS = { STORED: 'stored', DUPLICATE: 'already stored', REFUSED: 'refused' };
 
@@ -294,7 +300,8 @@ export function initImport(ui) {
     target.append(node('legend', null, 'Material'));
     const choice = node('div', 'import-choice');
     const radios = {};
-    for (const [value, label] of [['new', 'a new material'], ['existing', 'an existing material']]) {
+    for (const [value, label] of [['new', 'a new material'], ['existing', 'an existing material'],
+      ['state', 'a state of a stored sample (aged or printed)']]) {
       const r = input(`${id}-target`, { type: 'radio' });
       r.value = value;
       r.checked = value === 'new';
@@ -318,25 +325,59 @@ export function initImport(ui) {
     );
     existing.hidden = true;
     const showTarget = () => {
+      const asState = radios.state?.checked === true;
       existing.hidden = !radios.existing.checked;
-      fresh.hidden = radios.existing.checked;
+      fresh.hidden = radios.existing.checked || asState;
+      stateRow.hidden = !asState;
+      // a state curve takes the sample's own geometry, provenance and the rest; only its thickness and notes are its own
+      for (const f of sampleOnlyFields) f.hidden = asState;
+      const thicknessBox = form.elements.namedItem('thicknessMm');
+      thicknessBox.placeholder = asState ? 'the sample’s own' : 'from the file';
+      store.textContent = asState ? 'Store as a state of the sample' : 'Store in library';
     };
+    // This file is a state of sample N: the sample's own curve is its as-supplied state (docs/material-states.md).
+    const stateRow = node('div', 'import-row import-state-row');
+    const stateSample = input('stateSample', { type: 'number', step: '1', min: 1, size: 8, placeholder: 'sample id' });
+    const stateKind = select('state', [['aged', 'aged (after an exposure)'], ['printed', 'printed black (a film)']]);
+    const agedFields = [
+      field('Hours', input('hours', { type: 'number', step: 'any', min: 0, size: 7, placeholder: 'e.g. 2000' })),
+      field('Under', input('source', { placeholder: 'e.g. lamp bank A', size: 18 })),
+      field('or dose (J/cm²)', input('doseJPerCm2', { type: 'number', step: 'any', min: 0, size: 7 })),
+      field('at (nm)', input('doseNm', { type: 'number', step: 'any', min: 0, size: 6 })),
+    ];
+    const printedFields = [
+      field('Ink load (%)', input('inkLoadPercent', { type: 'number', step: 'any', min: 0, size: 6, placeholder: 'e.g. 100' })),
+      field('Stated density', input('statedDensity', { type: 'number', step: 'any', min: 0, size: 6, placeholder: 'optional' })),
+    ];
+    stateRow.append(field('This file is a state of sample', stateSample), field('State', stateKind), ...agedFields,
+      ...printedFields);
+    const showStateFields = () => {
+      for (const f of agedFields) f.hidden = stateKind.value !== 'aged';
+      for (const f of printedFields) f.hidden = stateKind.value !== 'printed';
+    };
+    stateKind.addEventListener('change', showStateFields);
+    showStateFields();
+    stateRow.hidden = true;
     radios.new.addEventListener('change', showTarget);
     radios.existing.addEventListener('change', showTarget);
-    target.append(choice, fresh, existing);
+    radios.state.addEventListener('change', showTarget);
+    target.append(choice, fresh, existing, stateRow);
 
     // What the sample is.
     const sample = node('fieldset', 'import-group');
     sample.append(node('legend', null, 'Sample'));
-    sample.append(
-      field('Thickness (mm)', input('thicknessMm', { type: 'number', step: 'any', min: 0, size: 9,
-        placeholder: 'from the file' })),
+    const sampleOnlyFields = [
       field('Geometry', select('geometry', [['regular', 'regular (direct beam)'], ['total', 'total (scattered light included)']])),
       field('Provenance', select('provenance', [['', 'as the file says'], ['measured', 'measured'], ['datasheet', 'datasheet'],
         ['modelled', 'modelled']])),
       field('Instrument', input('instrument', { placeholder: 'optional', size: 16 })),
       field('Measured on', input('measuredOn', { type: 'date' })),
       field('Lot', input('lot', { placeholder: 'optional', size: 10 })),
+    ];
+    sample.append(
+      field('Thickness (mm)', input('thicknessMm', { type: 'number', step: 'any', min: 0, size: 9,
+        placeholder: 'from the file' })),
+      ...sampleOnlyFields,
       field('Notes', input('notes', { placeholder: 'optional', size: 28 }), { wide: true }),
     );
 
@@ -366,7 +407,8 @@ export function initImport(ui) {
       card.classList.add('refused');
       // The control the problem names is marked, so the message and its cause can be found together.
       const named = p?.properties?.parameter === 'materialId' ? existingName
-        : form.elements.namedItem(p?.properties?.parameter || '');
+        : radios.state.checked && p?.properties?.resource === 'sample' ? stateSample
+          : form.elements.namedItem(p?.properties?.parameter || '');
       if (named instanceof HTMLElement) {
         named.setAttribute('aria-invalid', 'true');
         named.setAttribute('aria-describedby', problem.id);
@@ -484,9 +526,54 @@ export function initImport(ui) {
       blocks.append(scroll);
     }
 
+    async function runStoreAsState() {
+      const values = { ...readValues() };
+      for (const k of [...STATE_FIELDS, ...STATE_SAMPLE_FIELDS]) values[k] = value(k);
+      for (const k of (stateKind.value === 'aged' ? ['inkLoadPercent', 'statedDensity']
+        : ['hours', 'source', 'doseJPerCm2', 'doseNm'])) delete values[k]; // hidden fields of the other state
+      const sampleId = stateSample.value.trim();
+      if (!/^[1-9][0-9]*$/.test(sampleId)) {
+        showProblem(localProblem('stateSample', sampleId ? `“${sampleId}” is not a sample id (a whole number)`
+          : 'give the id of the sample this file is a state of'));
+        stateSample.focus();
+        return;
+      }
+      store.disabled = true;
+      state.textContent = 'Storing…';
+      try {
+        const answer = await postForm(`samples/${encodeURIComponent(sampleId)}/states`, formWith(file, values));
+        showStoredState(answer);
+        await afterStore();
+      } catch (p) {
+        state.textContent = 'Not stored; see why below.';
+        showProblem(p);
+        store.disabled = false;
+      }
+    }
+
+    function showStoredState(answer) {
+      card.classList.add('stored');
+      state.textContent = answer.duplicate
+        ? `Already in the library as state curve ${answer.state.id} of sample ${answer.sampleId} (${answer.state.description}).`
+        : `Stored as state curve ${answer.state.id} of sample ${answer.sampleId}: ${answer.state.description}.`;
+      const notes = node('ul', 'import-warnings');
+      notes.replaceChildren(...(answer.warnings || []).map((w) => node('li', null, w)));
+      notes.hidden = !(answer.warnings || []).length;
+      const open = node('button', 'open-stored', 'Open the material');
+      open.type = 'button';
+      open.addEventListener('click', () => ui.openMaterial(String(answer.materialId)));
+      outcome.replaceChildren(open, notes);
+      for (const e of form.elements) e.disabled = true;
+      open.disabled = false;
+    }
+
     async function runStore() {
       clearProblem();
       outcome.replaceChildren();
+      if (radios.state.checked) {
+        await runStoreAsState();
+        return;
+      }
       const values = { ...readValues() };
       for (const k of STORE_FIELDS) values[k] = value(k);
       if (eachBlock.checked && !eachBlockField.hidden) values.eachBlock = 'true';

@@ -42,7 +42,8 @@ public final class EndpointRoles {
             // editors: import, correct, retire
             rule(Set.of("POST"), "/api/imports", Role.EDITOR),
             rule(Set.of("POST"), "/api/imports/batch", Role.EDITOR),
-            rule(Set.of("POST"), "/api/{kinds:samples|materials}/{id}/retire", Role.EDITOR),
+            rule(Set.of("POST"), "/api/samples/{id}/states", Role.EDITOR),
+            rule(Set.of("POST"), "/api/{kinds:samples|materials|state-curves}/{id}/retire", Role.EDITOR),
             rule(Set.of("POST"), "/api/{kinds:samples|materials}/{id}/revisions", Role.EDITOR),
             rule(Set.of("POST"), "/api/{kinds:emitters|responses}", Role.EDITOR),
             rule(Set.of("DELETE"), "/api/{kinds:emitters|responses}/{name}", Role.EDITOR));

@@ -120,7 +120,8 @@ class ApiDescription {
                     "import-limit", "Upload too large", "the upload is larger than the 20971520 bytes allowed"
                             + " (sieve.imports.max-file-bytes)");
         }
-        if (path.startsWith("/api/imports")) {
+        // a state curve's import takes a turn from the same gate (RequestBudgetFilter)
+        if (path.startsWith("/api/imports") || path.matches("/api/samples/\\{[^}]+}/states")) {
             problem(responses, "429", "Too many imports at once; try again shortly", "imports-busy",
                     "Too many imports at once", "another import is running");
         }

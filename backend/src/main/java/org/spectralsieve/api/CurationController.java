@@ -63,9 +63,13 @@ class CurationController {
     record RetirementJson(String kind, long id, String retiredAt, boolean inUse, boolean changed, String note) {
     }
 
-    /** A sample read by id: its current revision, and whether it or its material is retired. */
+    /**
+     * A sample read by id: its current revision, and whether it or its material is retired. {@code states}: its curves
+     * in other states in use (as in {@code sample.states}), {@code retiredStates} those retired (docs/material-states.md).
+     */
     record SampleJson(long materialId, String materialName, int materialRevision, String materialRetiredAt,
-                      boolean inUse, SampleDetail sample) {
+                      boolean inUse, SampleDetail sample, List<StateResponses.StateSummary> states,
+                      List<StateResponses.StateSummary> retiredStates) {
     }
 
     /** A material's revision: its index and made thicknesses as that revision states them. */
@@ -97,8 +101,12 @@ class CurationController {
         SampleInfo s = library.findSample(id).orElseThrow(() -> new NotFoundException("sample", id));
         Material m = library.findMaterial(s.materialId()).orElseThrow(() -> new NotFoundException("material", s.materialId()));
         Curve curve = library.findCurve(id).orElseThrow(() -> new NotFoundException("curve of sample", id));
+        List<org.spectralsieve.library.StoredStateCurve> all = library.findStoredStateCurves(id, true);
+        var inUse = all.stream().filter(c -> !c.retired()).toList();
+        SampleDetail detail = SampleDetail.of(s, curve, SampleRescaling.of(m, s), inUse);
         return new SampleJson(m.id(), m.name(), m.revision(), MaterialResponses.instant(m.retiredAt()),
-                !s.retired() && !m.retired(), SampleDetail.of(s, curve, SampleRescaling.of(m, s)));
+                !s.retired() && !m.retired(), detail, detail.states(),
+                all.stream().filter(c -> c.retired()).map(StateResponses.StateSummary::of).toList());
     }
 
     @PostMapping("/api/{kinds:samples|materials}/{id}/retire")

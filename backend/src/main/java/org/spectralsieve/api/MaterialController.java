@@ -41,9 +41,11 @@ class MaterialController {
     @GetMapping("/{id}")
     MaterialDetail one(@PathVariable("id") long id) {
         Material material = library.findMaterial(id).orElseThrow(() -> new NotFoundException("material", id));
+        // every sample's state curves in one query, not one per sample
+        var states = library.findStoredStateCurves(material.samples().stream().map(s -> s.id()).toList());
         List<SampleDetail> samples = material.samples().stream().map(s -> {
             Curve curve = library.findCurve(s.id()).orElseThrow(() -> new NotFoundException("curve of sample", s.id()));
-            return SampleDetail.of(s, curve, SampleRescaling.of(material, s));
+            return SampleDetail.of(s, curve, SampleRescaling.of(material, s), states.getOrDefault(s.id(), List.of()));
         }).toList();
         return MaterialDetail.of(material, samples, revisions.retiredSamplesOf(id));
     }

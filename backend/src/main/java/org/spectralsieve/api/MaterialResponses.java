@@ -66,14 +66,22 @@ final class MaterialResponses {
      * be rescaled to another thickness; {@code notRescaledReason} says why not for a sample of a bulk
      * material (a diffuse or scattering sample, {@link SampleRescaling}). {@code revision}: the revision
      * of its metadata shown; {@code retiredAt}: when it was retired, null while in use (docs/undo.md).
+     * {@code states}: its curves in other states (aged, printed) in use, each with its own figures and a link to its
+     * points; its own curve is always its as-supplied state (docs/material-states.md).
      */
     record SampleDetail(long id, int revision, String retiredAt, double thicknessMm, String geometry, String provenance, String instrument,
                         String measuredOn, String lot, String notes, double detectionLimit, List<Double> rangeNm,
                         Map<String, Double> cutoffsNm, Map<String, Double> passBandEndsNm,
                         Map<String, Double> transmittanceAt, Map<String, Boolean> belowDetectionAt,
-                        boolean rescalable, String notRescaledReason) {
+                        boolean rescalable, String notRescaledReason, List<StateResponses.StateSummary> states) {
 
         static SampleDetail of(SampleInfo s, Curve curve, SampleRescaling rescaling) {
+            return of(s, curve, rescaling, List.of());
+        }
+
+        /** @param states the sample's curves in other states that are in use (docs/material-states.md) */
+        static SampleDetail of(SampleInfo s, Curve curve, SampleRescaling rescaling,
+                               List<org.spectralsieve.library.StoredStateCurve> states) {
             Map<String, Double> cutoffs = new LinkedHashMap<>();
             Map<String, Double> bandEnds = new LinkedHashMap<>();
             for (int level : CUTOFF_LEVELS_PERCENT) {
@@ -91,7 +99,8 @@ final class MaterialResponses {
             return new SampleDetail(s.id(), s.revision(), instant(s.retiredAt()), s.thicknessMm(), s.geometry().label(), s.provenance().label(),
                     s.instrument(), s.measuredOn() == null ? null : s.measuredOn().toString(), s.lot(), s.notes(),
                     s.detectionLimit(), List.of(curve.minWavelengthNm(), curve.maxWavelengthNm()), cutoffs, bandEnds, at,
-                    below, rescaling.rescalable(), rescaling.reason());
+                    below, rescaling.rescalable(), rescaling.reason(),
+                    states.stream().map(StateResponses.StateSummary::of).toList());
         }
     }
 

@@ -32,6 +32,8 @@ class RequestBudgetFilter extends OncePerRequestFilter {
     static final long MAX_JSON_BYTES = 64 * 1024;
     private static final Set<String> IMPORT_PATHS = Set.of("/api/imports", "/api/imports/preview",
             "/api/imports/batch", "/api/emitters", "/api/responses");
+    /** A file stored as a sample's curve in another state (docs/material-states.md): an import like the others. */
+    private static final java.util.regex.Pattern STATE_IMPORT_PATH = java.util.regex.Pattern.compile("/api/samples/[^/]+/states");
     private static final JsonMapper JSON = JsonMapper.builder().build();
 
     private final ImportGate gate;
@@ -61,7 +63,8 @@ class RequestBudgetFilter extends OncePerRequestFilter {
             chain.doFilter(new CappedBodyRequest(request, MAX_JSON_BYTES), response);
             return;
         }
-        if (!IMPORT_PATHS.contains(request.getRequestURI())) {
+        if (!IMPORT_PATHS.contains(request.getRequestURI())
+                && !STATE_IMPORT_PATH.matcher(request.getRequestURI()).matches()) {
             chain.doFilter(request, response);
             return;
         }

@@ -27,6 +27,8 @@ public record AuditEntry(String actor, String action, String subjectKind, Long s
     public static final String SUBJECT_MATERIAL = "material";
     public static final String SUBJECT_LIBRARY = "library";
     public static final String SUBJECT_ACCOUNT = "account";
+    /** A sample's curve in another state (aged, printed): {@code sample_state_curve}, docs/material-states.md. */
+    public static final String SUBJECT_STATE_CURVE = "state-curve";
 
     static final int MAX_ACTOR = 200;
     static final int MAX_NAME = 40;

@@ -40,6 +40,7 @@ final class RevisionsCommand implements Callable<Integer> {
         }
         long id = kind.id(key);
         TextTable table;
+        java.io.StringWriter states = new java.io.StringWriter();
         try (ConfigurableApplicationContext context = LibraryContext.start(database.url)) {
             JooqLibraryRevisions revisions = context.getBean(JooqLibraryRevisions.class);
             if (kind == Curated.SAMPLE) {
@@ -50,6 +51,10 @@ final class RevisionsCommand implements Callable<Integer> {
                             Numbers.mm(r.thicknessMm()), r.geometry().label(), String.valueOf(r.detectionLimit()),
                             r.instrument(), r.lot(), r.measuredOn() == null ? "" : r.measuredOn().toString(), r.reason()));
                 }
+                // its curves in other states are not revisions (each is a curve of its own), but belong with its details
+                java.io.PrintWriter w = new java.io.PrintWriter(states);
+                ImportStateCommand.printStates(w, context.getBean(org.spectralsieve.library.JooqLibraryRepository.class), id);
+                w.flush();
             } else {
                 table = new TextTable(List.of(">rev", "revised at", "refractive index", "made in", "reason"));
                 for (MaterialRevision r : revisions.materialRevisions(id)) {
@@ -61,6 +66,8 @@ final class RevisionsCommand implements Callable<Integer> {
             throw new CliFailure(SieveCli.FAILED, e.getMessage());
         }
         table.print(spec.commandLine().getOut());
+        spec.commandLine().getOut().print(states);
+        spec.commandLine().getOut().flush();
         return SieveCli.OK;
     }
 

@@ -15,7 +15,7 @@ import picocli.CommandLine.Command;
         description = "Search the transmittance library by requirement, list its materials, export a curve, compute a"
                 + " sample's weighted figures, import files and emitter or response spectra, retire, restore and correct"
                 + " them, back the library up to one archive and load it into an empty library, and create server-mode accounts.",
-        subcommands = {SearchCommand.class, ExportCommand.class, MaterialsCommand.class, ImportCommand.class, PreviewCommand.class,
+        subcommands = {SearchCommand.class, ExportCommand.class, MaterialsCommand.class, ImportCommand.class, ImportStateCommand.class, PreviewCommand.class,
                 ImportSpectrumCommand.class, FiguresCommand.class, SimilarCommand.class,
                 RetireCommand.class, RestoreCommand.class, CorrectCommand.class, RevisionsCommand.class,
                 BackupCommand.class, RestoreBackupCommand.class, AddAccountCommand.class,

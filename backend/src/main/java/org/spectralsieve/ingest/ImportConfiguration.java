@@ -27,6 +27,12 @@ class ImportConfiguration {
         return new BackgroundRefresh(search::refresh);
     }
 
+    /** State curves refresh the search store as an import does: on the changing thread, naming the sample. */
+    @Bean
+    StateCurveService stateCurveService(ImportService imports, JooqLibraryRepository library, SearchService search) {
+        return new StateCurveService(imports, library, search::refresh);
+    }
+
     @Bean
     BatchImport batchImport(ImportService imports, JooqLibraryRepository library, ImportProperties limits) {
         return new BatchImport(imports, library, limits);

@@ -170,6 +170,72 @@ public class JooqLibraryRepository {
         return curves;
     }
 
+    /**
+     * Stores a sample's curve in another state (aged, printed) in one transaction: the row, its audit entry and, last,
+     * the change counter's raise (docs/material-states.md).
+     *
+     * @return the new state curve's id (from the identity, never reused)
+     * @throws NotFoundException when there is no such sample
+     * @throws RetiredException  when the sample or its material is retired
+     */
+    public long storeStateCurve(long sampleId, NewStateCurve stateCurve) {
+        return db.transactionResult(tx -> {
+            long[] idAndMaterial = StateCurveRows.insert(tx.dsl(), actor, sampleId, stateCurve);
+            LibraryGeneration.bumpConcerningSample(tx.dsl(), idAndMaterial[1], sampleId);
+            return idAndMaterial[0];
+        });
+    }
+
+    /**
+     * The sample's curves in other states that are in use, ordered by id: what a requirement naming a state is judged
+     * on ({@code search.MaterialCandidates#readStates}). Empty for a sample without any, or unknown.
+     */
+    public List<org.spectralsieve.states.StateCurve> findStateCurves(long sampleId) {
+        return StateCurveRows.ofSample(db, sampleId, true).stream().map(StoredStateCurve::stateCurve).toList();
+    }
+
+    /** The sample's state curves with where they came from, ordered by id; retired ones too when {@code withRetired}. */
+    public List<StoredStateCurve> findStoredStateCurves(long sampleId, boolean withRetired) {
+        return StateCurveRows.ofSample(db, sampleId, !withRetired);
+    }
+
+    /** The state curves in use of these samples, by sample id (a sample without any is left out). */
+    public Map<Long, List<StoredStateCurve>> findStoredStateCurves(Collection<Long> sampleIds) {
+        return StateCurveRows.ofSamples(db, sampleIds);
+    }
+
+    /** One state curve, retired or not. */
+    public Optional<StoredStateCurve> findStateCurve(long stateCurveId) {
+        return StateCurveRows.byId(db, stateCurveId);
+    }
+
+    /** The file a state curve was read from; empty when it was stored without one. */
+    public Optional<SourceFile> findStateCurveSourceFile(long stateCurveId) {
+        return StateCurveRows.sourceFile(db, stateCurveId);
+    }
+
+    /**
+     * Retires ({@code retire}) or restores one state curve in one transaction, with its audit entry and the change
+     * counter's raise; nothing is written when it already was so.
+     *
+     * @return the state afterwards: when it was retired (null in use), and whether this call changed it
+     * @throws NotFoundException when there is no such state curve
+     */
+    public StateCurveRetirement setStateCurveRetired(long stateCurveId, boolean retire) {
+        return db.transactionResult(tx -> {
+            StateCurveRows.Retirement r = StateCurveRows.setRetired(tx.dsl(), actor, stateCurveId, retire);
+            if (r.changed()) {
+                LibraryGeneration.bumpConcerningSample(tx.dsl(), StateCurveRows.materialOf(tx.dsl(), r.sampleId()),
+                        r.sampleId());
+            }
+            return new StateCurveRetirement(r.id(), r.sampleId(), instant(r.retiredAt()), r.changed());
+        });
+    }
+
+    /** The state of a state curve after {@link #setStateCurveRetired}; {@code changed} false when it already was so. */
+    public record StateCurveRetirement(long id, long sampleId, java.time.Instant retiredAt, boolean changed) {
+    }
+
     /** The material in use whose name equals {@code name} ignoring case (the oldest when several do). */
     public Optional<Long> findMaterialIdByName(String name) {
         return db.select(MATERIAL.ID).from(MATERIAL).where(DSL.lower(MATERIAL.NAME).eq(name.trim().toLowerCase(Locale.ROOT)))

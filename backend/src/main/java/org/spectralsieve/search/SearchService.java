@@ -305,6 +305,7 @@ public class SearchService {
     private SearchService(JooqLibraryRepository library, LongConsumer beforeInstall, long curveCacheBytes) {
         this.snapshots = new SnapshotHolder(library, beforeInstall, curveCacheBytes);
         this.candidates = new MaterialCandidates(library::findCurve);
+        this.candidates.readStates = library::findStateCurves;
         this.exact = new BoundedExactSearch(candidates, screens);
         this.picked = new StorePickedSearch(candidates, exact);
     }

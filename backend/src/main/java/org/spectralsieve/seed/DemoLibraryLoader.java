@@ -16,16 +16,20 @@ import org.spectralsieve.importers.ImportException;
 import org.spectralsieve.importers.ParsedSpectrum;
 import org.spectralsieve.ingest.Checksums;
 import org.spectralsieve.ingest.CurveIngest;
+import org.spectralsieve.ingest.ImportRequestException;
+import org.spectralsieve.ingest.StateFields;
 import org.spectralsieve.library.Geometry;
 import org.spectralsieve.library.JooqLibraryRepository;
 import org.spectralsieve.library.MaterialClass;
 import org.spectralsieve.library.NewMaterial;
 import org.spectralsieve.library.NewSample;
+import org.spectralsieve.library.NewStateCurve;
 import org.spectralsieve.library.Provenance;
 import org.spectralsieve.library.RefractiveIndexJson;
-import org.spectralsieve.library.StatedThicknessesJson;
 import org.spectralsieve.library.Scaling;
 import org.spectralsieve.library.SourceFile;
+import org.spectralsieve.library.StatedThicknessesJson;
+import org.spectralsieve.states.MaterialState;
 import org.springframework.core.io.Resource;
 import org.springframework.core.io.ResourceLoader;
 import tools.jackson.databind.JsonNode;
@@ -98,16 +102,59 @@ public class DemoLibraryLoader {
         }
         db.transaction(tx -> {
             long id = library.insertMaterial(material);
-            samples.forEach(s -> library.insertSample(id, s.sample(), s.file()));
+            for (SeedSample s : samples) {
+                long sampleId = library.insertSample(id, s.sample(), s.file());
+                s.states().forEach(state -> library.storeStateCurve(sampleId, state));
+            }
         });
         return samples.size();
     }
 
-    /** A catalogue sample with the bytes of its curve file, kept like an imported file's. */
-    private record SeedSample(NewSample sample, SourceFile file) {
+    /**
+     * A catalogue sample with the bytes of its curve file, kept like an imported file's, and its curves in other
+     * states (docs/material-states.md).
+     */
+    private record SeedSample(NewSample sample, SourceFile file, List<NewStateCurve> states) {
     }
 
     private SeedSample sample(JsonNode s) {
+        SeedSample own = ownCurve(s);
+        List<NewStateCurve> states = new ArrayList<>();
+        for (JsonNode st : s.path("states")) {
+            states.add(stateCurve(st));
+        }
+        return new SeedSample(own.sample(), own.file(), states);
+    }
+
+    /** A state curve of a catalogue sample, its file read as the sample's is and kept with it. */
+    private NewStateCurve stateCurve(JsonNode st) {
+        String file = st.path("file").asString("");
+        byte[] bytes = bytes(file);
+        ParsedSpectrum parsed;
+        try {
+            parsed = new DelimitedTextReader().read(file, new StringReader(new String(bytes, StandardCharsets.UTF_8)));
+        } catch (ImportException e) {
+            throw new IllegalArgumentException(e.getMessage(), e);
+        }
+        double limit = st.path("detectionLimit").asDouble(0);
+        try {
+            MaterialState state = StateFields.parse(st.path("state").asString(""), text(st, "hours"), text(st, "source"),
+                    text(st, "doseJPerCm2"), text(st, "doseNm"), text(st, "inkLoadPercent"), text(st, "statedDensity"));
+            String sha256 = Checksums.sha256(bytes);
+            return NewStateCurve.fromFile(state, CurveIngest.toCurve(parsed, limit),
+                    st.path("thicknessMm").asDouble(Double.NaN), limit, st.path("notes").asString(""),
+                    new SourceFile(file, "text/csv", "delimited", bytes, sha256));
+        } catch (IllegalArgumentException | ImportRequestException e) {
+            throw new IllegalArgumentException("state curve " + file + ": " + e.getMessage(), e);
+        }
+    }
+
+    private static String text(JsonNode node, String field) {
+        JsonNode v = node.get(field);
+        return v == null || v.isNull() ? null : v.isNumber() ? v.asString() : v.asString("");
+    }
+
+    private SeedSample ownCurve(JsonNode s) {
         String file = s.path("file").asString("");
         byte[] bytes = bytes(file);
         ParsedSpectrum parsed;
@@ -127,7 +174,7 @@ public class DemoLibraryLoader {
         } catch (IllegalArgumentException e) {
             throw new IllegalArgumentException("sample " + file + ": " + e.getMessage(), e);
         }
-        return new SeedSample(sample, new SourceFile(file, "text/csv", "delimited", bytes, sha256));
+        return new SeedSample(sample, new SourceFile(file, "text/csv", "delimited", bytes, sha256), List.of());
     }
 
     private byte[] bytes(String file) {

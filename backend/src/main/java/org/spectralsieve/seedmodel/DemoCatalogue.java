@@ -22,6 +22,43 @@ public final class DemoCatalogue {
     private DemoCatalogue() {
     }
 
+    /**
+     * The modelled curves of demo samples in other states (aged, printed), each naming a catalogue material and one
+     * of its samples by thickness (docs/material-states.md).
+     *
+     * @throws IllegalStateException when a state names no catalogue sample
+     */
+    public static List<StateSpec> states() {
+        List<StateSpec> all = new ArrayList<>();
+        all.addAll(PlasticStock.states());
+        all.addAll(FilmStock.states());
+        for (StateSpec s : all) {
+            sampleOf(s);
+        }
+        return List.copyOf(all);
+    }
+
+    /** The catalogue material and sample a state curve belongs to. */
+    static java.util.Map.Entry<MaterialSpec, SampleSpec> sampleOf(StateSpec state) {
+        for (MaterialSpec m : materials()) {
+            if (m.slug().equals(state.materialSlug())) {
+                for (SampleSpec s : m.samples()) {
+                    if (s.thicknessMm() == state.sampleThicknessMm()) {
+                        return java.util.Map.entry(m, s);
+                    }
+                }
+            }
+        }
+        throw new IllegalStateException("state " + state.fileTag() + " names no sample " + state.materialSlug() + " at "
+                + state.sampleThicknessMm() + " mm");
+    }
+
+    /** The state curves of one catalogue sample, in catalogue order. */
+    public static List<StateSpec> statesOf(MaterialSpec material, SampleSpec sample) {
+        return states().stream().filter(s -> s.materialSlug().equals(material.slug())
+                && s.sampleThicknessMm() == sample.thicknessMm()).toList();
+    }
+
     /** All materials in catalogue order; slugs are unique. */
     public static List<MaterialSpec> materials() {
         List<MaterialSpec> all = new ArrayList<>();

@@ -6,6 +6,7 @@ import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.LinkedHashMap;
+import java.util.List;
 import java.util.Map;
 import java.util.SortedMap;
 import java.util.TreeMap;
@@ -49,6 +50,9 @@ public final class DemoLibraryWriter {
             materials.add(materialNode(material));
             for (SampleSpec sample : material.samples()) {
                 files.put(material.curveFile(sample), curveFile(material, sample));
+                for (StateSpec state : DemoCatalogue.statesOf(material, sample)) {
+                    files.put(state.curveFile(material, sample), stateCurveFile(material, state));
+                }
             }
         }
         files.put(CATALOGUE_FILE, JSON.writeValueAsString(root) + "\n");
@@ -81,6 +85,37 @@ public final class DemoLibraryWriter {
         meta.put("detection_limit", Double.toString(sample.detectionLimit()));
         meta.put("note", DemoCatalogue.NOTICE);
         return DelimitedTextWriter.write(meta, curve.wavelengthsNm(), curve.transmittances(), curve.upperBounds());
+    }
+
+    /** A state curve's file: as a sample's, its metadata naming the state as well. */
+    static String stateCurveFile(MaterialSpec material, StateSpec state) {
+        SampleSpec modelled = state.modelled();
+        ModelledCurve curve = SampleModeller.model(material.index(), modelled);
+        Map<String, String> meta = new LinkedHashMap<>();
+        meta.put("material", material.slug());
+        meta.put("thickness_mm", modelled.thicknessLabel());
+        meta.put("state", state.state());
+        if (state.hours() != null) {
+            meta.put("exposure_hours", plain(state.hours()));
+            meta.put("exposure_source", state.source());
+        }
+        if (state.inkLoadPercent() != null) {
+            meta.put("ink_load_percent", plain(state.inkLoadPercent()));
+        }
+        if (state.statedDensity() != null) {
+            meta.put("stated_density", plain(state.statedDensity()));
+        }
+        meta.put("geometry", modelled.geometry().label());
+        meta.put("provenance", "modelled");
+        meta.put("instrument", DemoCatalogue.INSTRUMENT);
+        meta.put("lot", modelled.lot());
+        meta.put("detection_limit", Double.toString(modelled.detectionLimit()));
+        meta.put("note", DemoCatalogue.NOTICE);
+        return DelimitedTextWriter.write(meta, curve.wavelengthsNm(), curve.transmittances(), curve.upperBounds());
+    }
+
+    private static String plain(double v) {
+        return java.math.BigDecimal.valueOf(v).stripTrailingZeros().toPlainString();
     }
 
     /** {"unit": "um", "stock": [25, 50], "range": [25, 125]}: the shape StatedThicknessesJson reads. */
@@ -119,6 +154,28 @@ public final class DemoLibraryWriter {
             sample.put("lot", s.lot());
             sample.put("notes", DemoCatalogue.NOTICE);
             sample.put("detectionLimit", s.detectionLimit());
+            List<StateSpec> states = DemoCatalogue.statesOf(m, s);
+            if (!states.isEmpty()) {
+                ArrayNode list = sample.putArray("states");
+                for (StateSpec st : states) {
+                    ObjectNode entry = list.addObject();
+                    entry.put("file", st.curveFile(m, s));
+                    entry.put("state", st.state());
+                    if (st.hours() != null) {
+                        entry.put("hours", st.hours());
+                        entry.put("source", st.source());
+                    }
+                    if (st.inkLoadPercent() != null) {
+                        entry.put("inkLoadPercent", st.inkLoadPercent());
+                    }
+                    if (st.statedDensity() != null) {
+                        entry.put("statedDensity", st.statedDensity());
+                    }
+                    entry.put("thicknessMm", st.modelled().thicknessMm());
+                    entry.put("detectionLimit", st.modelled().detectionLimit());
+                    entry.put("notes", DemoCatalogue.NOTICE + "; " + st.why());
+                }
+            }
         }
         return node;
     }

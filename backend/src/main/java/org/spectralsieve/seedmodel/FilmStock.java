@@ -36,14 +36,13 @@ final class FilmStock {
                         "Clear FEP fluoropolymer film: over 92 % from the UV-A through the visible, still high at "
                                 + "254 nm, falling towards 190 nm. Modelled new condition.",
                         List.of("FEP", "fluoropolymer", "resin vat", "LED cover", "254 nm"), new IndexSpec.Constant(1.34),
-                        Absorption.of(new UrbachEdge(190, 4.0, 0.7), new FlatBackground(0.1)), 0.05, 0.127, 0.25),
+                        FEP, 0.05, 0.127, 0.25),
                 // WHY: vat FEP fogs with use [S40]; fog is scatter, so it costs most in the violet and UV.
                 Stock.bulk("fep-film-fogged", "FEP film, ex-vat (fogged by use)", FILM,
                         "The FEP stock after many prints: scatter haze lowers the direct beam, most of all at short "
                                 + "wavelengths. Regular geometry. Modelled ageing.",
                         List.of("FEP", "fluoropolymer", "resin vat", "aged", "scattering"), new IndexSpec.Constant(1.34),
-                        Absorption.of(new UrbachEdge(190, 4.0, 0.7), new FlatBackground(0.1), new ScatterLoss(1.2, 1.5)),
-                        0.127),
+                        FEP_FOGGED, 0.127),
                 // WHY: polyimide film is amber: opaque through the UV and violet, and its charge-transfer edge is
                 // a broad Urbach tail, so even thin film still absorbs at 500–550 nm; 50 % near 505 nm at 25 µm and
                 // near 555 nm at 125 µm (from memory of published film curves, no stored source); n ≈ 1.70 from memory.
@@ -107,6 +106,45 @@ final class FilmStock {
                         List.of("transparency", "toner", "film positive", "screen printing"), PET_INDEX,
                         List.of(Stock.stack(petBase(),
                                 new Layer("toner layer", 0.008, Absorption.of(new FlatBackground(575)))))));
+    }
+
+    /** The resin printer the demo vat film fogged in (invented, Fernhollow workshop). */
+    static final String VAT_PRINTER = "Fernhollow resin printer's 405 nm LED array";
+
+    /** FEP as supplied: the fluoropolymer's edge towards 190 nm and a trace background [S39][S40]. */
+    private static final Absorption FEP = Absorption.of(new UrbachEdge(190, 4.0, 0.7), new FlatBackground(0.1));
+
+    /** The same film fogged by use: scatter haze out of the direct beam, heavier at short wavelengths [S40]. */
+    private static final Absorption FEP_FOGGED = Absorption.of(new UrbachEdge(190, 4.0, 0.7), new FlatBackground(0.1),
+            new ScatterLoss(1.2, 1.5));
+
+    /**
+     * An inkjet dye black at full (100 %) ink load, 5 µm: OD about 4 through 350–420 nm, falling through the visible
+     * (about OD 2.6 at 550 nm, 1.1 at 600 nm) so the print still shows some red; dye blacks leak towards the red (PRACTICE.md §2: a
+     * black should reach OD 3, ideally 4, over 350–420 nm [S3]; the visible leak is common practice, no source).
+     */
+    private static Layer inkjetBlack(double inkLoadPercent) {
+        double load = inkLoadPercent / 100;
+        return new Layer("printed black ink, " + inkLoadPercent + " % load", 0.005,
+                Absorption.of(new LogisticEdge(630, 2000 * load, 30 * load, 40)));
+    }
+
+    /** The curves of demo film samples in other states (docs/material-states.md). */
+    static List<StateSpec> states() {
+        return List.of(
+                StateSpec.printed("inkjet-film-clear", 0.12, 100, 4.0,
+                        Stock.stack(petBase(), receptiveCoating(), inkjetBlack(100)).withDetectionLimit(1e-5)
+                                .withLot(Stock.lot("inkjet-film-clear", 0.12)),
+                        "printed solid black at full ink load: OD about 4 over 350–420 nm, some red still passes"
+                                + " (PRACTICE.md §2)"),
+                StateSpec.printed("inkjet-film-clear", 0.12, 50, null,
+                        Stock.stack(petBase(), receptiveCoating(), inkjetBlack(50)).withDetectionLimit(1e-5)
+                                .withLot(Stock.lot("inkjet-film-clear", 0.12)),
+                        "a lighter print at half the ink load: about half the density, short of OD 3 (PRACTICE.md §2)"),
+                StateSpec.aged("fep-film", 0.127, 600, VAT_PRINTER,
+                        SampleSpec.bulk(0.127, FEP_FOGGED, Stock.lot("fep-film", 0.127)),
+                        "the vat film after 600 h of printing: haze lowers the direct beam across the band, a little"
+                                + " more towards the UV (PRACTICE.md §1, [S40])"));
     }
 
     /** Ink-receptive coating: a little absorption and haze, heavier towards the UV. */

@@ -21,6 +21,29 @@ final class PlasticStock {
     private PlasticStock() {
     }
 
+    /** UVT acrylic as supplied: no UV absorber, only the polymer's own edge [S26]. */
+    private static final Absorption UVT_ACRYLIC = Absorption.of(new LogisticEdge(280, 50, 0.0015, 30));
+
+    /**
+     * The same sheet after about 2,000 h under lamps: colour centres absorbing most on the UV-B side (300 nm) and a
+     * weaker, broad yellowing band reaching into the violet (360 nm), so the loss is largest near the cut-off, the
+     * cut-off moves to longer wavelengths and the visible barely changes (PRACTICE.md §1 "Solarization / yellowing",
+     * [S22][S24]; the band sizes are a modelled illustration, not a dose law).
+     */
+    private static final Absorption UVT_ACRYLIC_AGED = Absorption.of(new LogisticEdge(280, 50, 0.0015, 30),
+            new GaussianBand(300, 0.10, 60), new GaussianBand(360, 0.02, 80));
+
+    /** The lamp bank the demo lamp cover aged under (invented, Fernhollow workshop). */
+    static final String TUNNEL_LAMP_BANK = "Fernhollow curing-tunnel lamp bank A (medium-pressure mercury)";
+
+    /** The curves of demo plastic samples in other states (docs/material-states.md). */
+    static List<StateSpec> states() {
+        return List.of(StateSpec.aged("uvt-acrylic", 6, 2000, TUNNEL_LAMP_BANK,
+                SampleSpec.bulk(6, UVT_ACRYLIC_AGED, Stock.lot("uvt-acrylic", 6)),
+                "the lamp cover after 2,000 h: UV-B lost first, the cut-off moved longer, the visible nearly unchanged"
+                        + " (PRACTICE.md §1, common practice)"));
+    }
+
     static List<MaterialSpec> materials() {
         return List.of(
                 // WHY: standard acrylic passes little below 345 nm, thickness-dependent 345–395 nm, ~92 % above
@@ -43,16 +66,13 @@ final class PlasticStock {
                 Stock.bulk("uvt-acrylic", "UV-transmitting cast acrylic, lamp-cover grade", PLASTIC_SHEET,
                         "Cast PMMA without UV absorber: transmission from about 250 nm, around 80 % at 300 nm; "
                                 + "little thickness effect above 320 nm. Modelled.",
-                        List.of("acrylic", "PMMA", "UVT", "UV-B", "lamp cover"), PMMA_INDEX,
-                        Absorption.of(new LogisticEdge(280, 50, 0.0015, 30)), 3, 6),
+                        List.of("acrylic", "PMMA", "UVT", "UV-B", "lamp cover"), PMMA_INDEX, UVT_ACRYLIC, 3, 6),
                 // WHY: UVT sheet degrades over 2,000–5,000 h, UV-B lost before UV-A; thick sheet grows a
                 // "yellow core" [S22][S24].
                 Stock.bulk("uvt-acrylic-aged", "UV-transmitting acrylic, ex-lamp cover (about 2,000 h)", PLASTIC_SHEET,
                         "The UVT grade after long lamp exposure: UV-B loss first, a yellowing tail into the violet. "
                                 + "Modelled ageing, not a dose law.",
-                        List.of("acrylic", "PMMA", "UVT", "aged", "solarised"), PMMA_INDEX,
-                        Absorption.of(new LogisticEdge(280, 50, 0.0015, 30), new GaussianBand(300, 0.10, 60),
-                                new GaussianBand(360, 0.02, 80)), 6),
+                        List.of("acrylic", "PMMA", "UVT", "aged", "solarised"), PMMA_INDEX, UVT_ACRYLIC_AGED, 6),
                 // WHY: UV-filtering acrylic absorbs ~98 % of UV and cuts at 390–400 nm [S25][S27]; measured
                 // UV-absorbing sheet (3 mm) reaches 50 % near 389 nm over a 12 nm 1 %→50 % rise and is clear from
                 // 420 nm, so the blue tail [S27] mentions is left out (calibrated, docs/demo-library.md).

@@ -8,6 +8,7 @@ import java.io.OutputStream;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
+import java.util.List;
 import org.jooq.DSLContext;
 import org.jooq.impl.DSL;
 import org.junit.jupiter.api.AfterAll;
@@ -86,6 +87,46 @@ class BackupRestoreTest {
                         .fetchOne(org.spectralsieve.library.db.Tables.CURVE.ABSORBANCE_UNCERTAINTY);
                 assertThat(restored).isEqualTo(row.value2());
             }
+        }
+    }
+
+    @Test
+    void stateCurvesComeBackWithTheirStateCurveFileAndRetirementAndNewOnesTakeUnusedIds() throws Exception {
+        SourceLibrary source = SourceLibrary.get();
+        var from = source.context.getBean(org.spectralsieve.library.JooqLibraryRepository.class);
+        var sourceDb = source.context.getBean(DSLContext.class);
+        var table = org.spectralsieve.library.db.Tables.SAMPLE_STATE_CURVE;
+        List<Long> sampleIds = sourceDb.selectDistinct(table.SAMPLE_ID).from(table).orderBy(table.SAMPLE_ID)
+                .fetch(table.SAMPLE_ID);
+        assertThat(sourceDb.fetchCount(table, table.RETIRED_AT.isNotNull())).isPositive(); // one retired, one with a file
+        assertThat(sourceDb.fetchCount(table, table.SOURCE_FILE_NAME.eq("workshop-sheet-aged.csv"))).isEqualTo(1);
+        try (ConfigurableApplicationContext target = LibraryApp.h2("target-states", false)) {
+            target.getBean(LibraryRestore.class).restore(source.archive);
+
+            var to = target.getBean(org.spectralsieve.library.JooqLibraryRepository.class);
+            long highest = 0;
+            for (long sampleId : sampleIds) {
+                var before = from.findStoredStateCurves(sampleId, true);
+                var after = to.findStoredStateCurves(sampleId, true);
+                assertThat(after).hasSameSizeAs(before);
+                for (int i = 0; i < before.size(); i++) {
+                    var b = before.get(i);
+                    var a = after.get(i);
+                    assertThat(a.id()).isEqualTo(b.id());
+                    assertThat(a.stateCurve().state()).isEqualTo(b.stateCurve().state());
+                    assertThat(a.retiredAt()).isEqualTo(b.retiredAt());
+                    assertThat(a.stateCurve().curve().transmittances()).isEqualTo(b.stateCurve().curve().transmittances());
+                    assertThat(a.stateCurve().curve().belowDetectionFlags())
+                            .isEqualTo(b.stateCurve().curve().belowDetectionFlags());
+                    assertThat(to.findStateCurveSourceFile(a.id())).isEqualTo(from.findStateCurveSourceFile(b.id()));
+                    highest = Math.max(highest, b.id());
+                }
+            }
+            long fresh = to.storeStateCurve(sampleIds.get(0), new org.spectralsieve.library.NewStateCurve(
+                    org.spectralsieve.states.MaterialState.printed(new org.spectralsieve.states.Printing(100, Double.NaN)),
+                    org.spectralsieve.spectrum.Curve.of(new double[] {350, 400}, new double[] {0.001, 0.002}, 0.0001),
+                    Double.NaN, 0.0001, "", null, "modelled", "b".repeat(64)));
+            assertThat(fresh).isGreaterThan(highest);
         }
     }
 

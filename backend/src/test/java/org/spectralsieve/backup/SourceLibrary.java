@@ -78,6 +78,18 @@ public final class SourceLibrary {
             curation.correct(imported.materialId(), new MaterialCorrection(new ConstantIndex(1.49), null, "index stated"));
             curation.retire(JooqLibraryRevisions.Kind.MATERIAL, imported.materialId());
             curation.restore(JooqLibraryRevisions.Kind.MATERIAL, imported.materialId());
+            // a state curve read from a file (its bytes kept) and a demo state curve retired: the archive keeps both (V13)
+            var states = context.getBean(org.spectralsieve.ingest.StateCurveService.class);
+            states.store(imported.sample().id(), "workshop-sheet-aged.csv",
+                    "wavelength_nm,transmittance\n350,0.0004\n365,0.08\n380,0.4\n400,0.85\n450,0.9\n"
+                            .getBytes(StandardCharsets.UTF_8), ImportOptions.defaults(),
+                    org.spectralsieve.states.MaterialState.aged(org.spectralsieve.states.Exposure.hours(500,
+                            "illustrative bench lamp")), null, "invented");
+            JooqLibraryRepository repository = context.getBean(JooqLibraryRepository.class);
+            long demoCover = repository.findMaterialIdBySlug("uvt-acrylic").orElseThrow();
+            long demoCoverSample = repository.findMaterial(demoCover).orElseThrow().samples().stream()
+                    .filter(x -> x.thicknessMm() == 6).findFirst().orElseThrow().id();
+            states.setRetired(repository.findStateCurves(demoCoverSample).get(0).id(), true);
             long retiredDemoMaterial = context.getBean(JooqLibraryRepository.class).findMaterials(null, null).get(0).id();
             curation.retire(JooqLibraryRevisions.Kind.MATERIAL, retiredDemoMaterial);
             SpectrumImportService spectra = context.getBean(SpectrumImportService.class);
