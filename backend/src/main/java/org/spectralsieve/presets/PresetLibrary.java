@@ -27,6 +27,11 @@ public final class PresetLibrary {
         this.reader = reader;
     }
 
+    /** A built-in preset by name, without the library (its names are never a stored preset's). */
+    public static Optional<PresetView> builtIn(String name) {
+        return name == null ? Optional.empty() : PresetCatalogue.builtIn().find(name).map(PresetView::of);
+    }
+
     public PresetCatalogue catalogue() {
         return catalogue;
     }

@@ -138,19 +138,18 @@ class PresetCatalogueTest {
     }
 
     @Test
-    void aMaskFilmBaseIsClearInkjetFilm() {
-        // common practice, no source: an unprinted positive film passes the emulsion band
+    void aMaskFilmBaseIsClearPolyesterNotAmberPolyimide() {
+        // common practice, no source: a clear polyester base ([S4]: 4-mil polyester) passes the emulsion band
         Shortlist s = run("mask-film-base");
-        assertMeeting(s, "Inkjet positive film, unprinted");
+        assertMeeting(s, "Clear polyester film");
         assertNotMeeting(s, "Amber polyimide film");
     }
 
     @Test
-    void printedBlackIsDarkEnoughOnlyWhenSolid() {
-        // [S3]: Dmax of OD 3 or more across 350-420 nm
+    void printedBlackIsNeverMetByAClearFilm() {
+        // [S3]: Dmax of OD 3 or more across 350-420 nm; a clear film has no printed black to judge
         Shortlist s = run("mask-film-printed-black");
-        assertMeeting(s, "Inkjet positive film, printed solid black");
-        assertNotMeeting(s, "Inkjet positive film, unprinted", "Clear polyester film");
+        assertNotMeeting(s, "Inkjet positive film, unprinted", "Clear polyester film", "FEP film, resin-vat");
     }
 
     @Test
@@ -227,10 +226,11 @@ class PresetCatalogueTest {
     }
 
     @Test
-    void archivalGlazingFindsUvFilteringAcrylicNotPlainFloatGlass() {
-        // [S28]: T(380), T(320) under 1% of T(550), T(400) under half of it; plain float passes 380 nm ([S27])
+    void archivalGlazingIsMetByASheetThatStops400nmNotByPlainFloatGlass() {
+        // [S28]: T(380), T(320) under 1% of T(550), T(400) under half of it; plain float passes 380 nm ([S27]).
+        // The demo's yellow sheet passes nothing at 400 nm and ~91% at 550 nm (its curve file), so it meets.
         Shortlist s = run("archival-glazing");
-        assertMeeting(s, "UV-filtering acrylic");
+        assertMeeting(s, "Yellow resin-printer lid sheet");
         assertNotMeeting(s, "Clear float glass, glazier offcuts", "Clear cast acrylic");
     }
 
