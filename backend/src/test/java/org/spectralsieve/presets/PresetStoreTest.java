@@ -78,7 +78,7 @@ class PresetStoreTest {
     @Test
     void anEditKeepsTheValuesBeforeAndAfterInTheAuditTrail() {
         SavedPreset p = store.create(null, draft("Vat film", "passes over 90% from 365 to 405 nm"));
-        SavedPreset edited = store.edit(p.id(), draft("Vat film, new stock", "passes over 92% from 365 to 405 nm"));
+        SavedPreset edited = store.edit(p.id(), draft("Vat film - new stock", "passes over 92% from 365 to 405 nm"));
 
         assertThat(edited.id()).isEqualTo(p.id());
         assertThat(edited.text()).isEqualTo("passes over 92% from 365 to 405 nm");
@@ -87,7 +87,7 @@ class PresetStoreTest {
         assertThat(entry.getActor()).isEqualTo("wren");
         assertThat(entry.getSubjectId()).isEqualTo(p.id());
         assertThat(entry.getBeforeJson()).contains("90%").contains("\"Vat film\"");
-        assertThat(entry.getAfterJson()).contains("92%").contains("Vat film, new stock");
+        assertThat(entry.getAfterJson()).contains("92%").contains("Vat film - new stock");
     }
 
     @Test
