@@ -74,10 +74,16 @@ class PresetController {
     @PutMapping("/{key}")
     Map<String, Object> edit(@PathVariable String key, @RequestBody PresetBody body) {
         PresetBody b = bodyOrRefuse(body);
-        if (b.shared() != null) {
-            throw new BadParameterException("shared", "who a preset belongs to is set when it is saved; save a copy instead");
+        PresetCaller caller = caller();
+        if (b.shared() != null && !caller.embedded()) {
+            // found first, so someone else's private preset is "not found" here too, whatever the body says
+            boolean shared = PresetView.SHARED.equals(presets.find(caller, key).origin());
+            if (b.shared() != shared) {
+                throw new BadParameterException("shared", "who a preset belongs to is set when it is saved; save a"
+                        + " copy instead");
+            }
         }
-        return json(presets.edit(caller(), key, new PresetDraft(b.name(), b.text(), b.note())));
+        return json(presets.edit(caller, key, new PresetDraft(b.name(), b.text(), b.note())));
     }
 
     /** Deleting retires: gone from every list, kept in the library (nothing is hard-deleted). */
