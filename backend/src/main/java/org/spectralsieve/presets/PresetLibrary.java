@@ -119,7 +119,13 @@ public final class PresetLibrary {
         return p;
     }
 
+    /** Words of the API's own paths under /api/presets: a preset so named could not be read by name there. */
+    private static final java.util.Set<String> RESERVED = java.util.Set.of("export", "import");
+
     private PresetDraft notBuiltIn(PresetDraft draft, String field) {
+        if (RESERVED.contains(PresetDraft.nameKey(draft.name()))) {
+            throw new FieldException(field, "'" + draft.name() + "' is reserved for the API's own addresses; choose another");
+        }
         if (catalogue.holds(draft.name())) {
             throw new FieldException(field, "'" + draft.name() + "' is the name of a built-in preset; choose another");
         }

@@ -121,6 +121,8 @@ class PresetApiTest {
         Answer builtIn = send("POST", "/api/presets", preset("led-395-window", "passes over 80% at 365 nm"));
         assertThat(builtIn.status()).isEqualTo(400);
         assertThat(builtIn.json().path("parameter").asString()).isEqualTo("name");
+        assertThat(send("POST", "/api/presets", preset("Export", "passes over 80% at 365 nm")).json().path("parameter").asString())
+                .as("a name the API's own paths use").isEqualTo("name");
         assertThat(send("POST", "/api/presets", "not json").status()).isEqualTo(400);
     }
 
