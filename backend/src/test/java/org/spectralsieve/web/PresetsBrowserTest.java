@@ -85,6 +85,19 @@ class PresetsBrowserTest {
     }
 
     @Test
+    void thePresetsBoxWithASafetyPresetAndTheSaveFormOpenMeetsWcagAA() throws IOException {
+        AxeCore axe = AxeCore.loadOrSkip();
+        page.load(port, "/");
+        picker().selectByValue("blue-curing-eye-protector");
+        driver.findElement(By.id("preset-save-open")).click();
+        assertThat(driver.findElement(By.id("preset-form")).isDisplayed()).isTrue();
+        page.screenshot("a11y-presets", "presets");
+        List<String> found = axe.violations(driver);
+        assertThat(found).withFailMessage("axe-core %s found on the presets box:%n  %s", axe.version(driver),
+                String.join("\n  ", found)).isEmpty();
+    }
+
+    @Test
     void theBoxSavedAsMyPresetIsListedAndItsLinkOpensItAndSearches() throws IOException {
         page.load(port, "/");
         picker();
