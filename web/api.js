@@ -227,3 +227,35 @@ export function identifyCapture({ file, thicknessMm, bulk, band, metric, limit, 
   }
   return getJson(`${BASE}/similar`, { method: 'POST', body: form });
 }
+
+// ---------- requirement presets (presets.js, docs/presets.md) ----------
+
+export function listPresets() {
+  return getJson(`${BASE}/presets`);
+}
+
+export function getPreset(key) {
+  return getJson(`${BASE}/presets/${encodeURIComponent(key)}`);
+}
+
+function presetChange(method, path, body) {
+  return getJson(path, { method, headers: { 'Content-Type': 'application/json' }, body: JSON.stringify(body) });
+}
+
+export function savePreset({ name, text, note }) {
+  return presetChange('POST', `${BASE}/presets`, { name, text, note });
+}
+
+export function editPreset(key, { name, text, note }) {
+  return presetChange('PUT', `${BASE}/presets/${encodeURIComponent(key)}`, { name, text, note });
+}
+
+export function deletePreset(key) {
+  return getJson(`${BASE}/presets/${encodeURIComponent(key)}`, { method: 'DELETE' });
+}
+
+export function importPresets(file) {
+  return presetChange('POST', `${BASE}/presets/import`, file);
+}
+
+export const PRESETS_EXPORT_URL = `${BASE}/presets/export`;

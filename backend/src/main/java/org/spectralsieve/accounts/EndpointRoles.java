@@ -34,6 +34,10 @@ public final class EndpointRoles {
             // anyone signed in: their own session and their own tokens
             rule(Set.of(), "/api/session", Role.VIEWER),
             rule(Set.of(), "/api/tokens/**", Role.VIEWER),
+            // requirement presets: anyone signed in keeps their own; PresetCaller refuses shared ones to all but admins
+            rule(Set.of("POST"), "/api/presets", Role.VIEWER),
+            rule(Set.of("POST"), "/api/presets/import", Role.VIEWER),
+            rule(Set.of("PUT", "DELETE"), "/api/presets/{key}", Role.VIEWER),
             // POSTs that only compute an answer, changing nothing
             rule(Set.of("POST"), "/api/search", Role.VIEWER),
             rule(Set.of("POST"), "/api/requirements/parse", Role.VIEWER),

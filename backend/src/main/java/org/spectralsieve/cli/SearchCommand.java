@@ -11,6 +11,7 @@ import org.spectralsieve.api.ShortlistJson;
 import org.spectralsieve.library.Provenance;
 import org.spectralsieve.library.UnusableRecordException;
 import org.spectralsieve.optics.UnusableIndexException;
+import org.spectralsieve.presets.PresetView;
 import org.spectralsieve.requirement.ClauseResult;
 import org.spectralsieve.requirement.RankedRow;
 import org.spectralsieve.requirement.RequirementParser;
@@ -45,9 +46,14 @@ final class SearchCommand implements Callable<Integer> {
     @Mixin
     DatabaseOption database;
 
-    @Parameters(index = "0", paramLabel = "REQUIREMENT", description = "The requirement, quoted as one argument; words"
-            + " about the stock may stand before its clauses ('acrylic passes over 80%% at 400 nm').")
+    @Parameters(index = "0", arity = "0..1", paramLabel = "REQUIREMENT", description = "The requirement, quoted as one"
+            + " argument; words about the stock may stand before its clauses ('acrylic passes over 80%% at 400 nm')."
+            + " With --preset: further clauses or settings added to the preset's ('thickness 1 to 6 mm').")
     String requirementText;
+
+    @Option(names = "--preset", paramLabel = "NAME", description = "Run a requirement preset (see: presets list);"
+            + " a REQUIREMENT given too is added to its text after a comma.")
+    String preset;
 
     @Option(names = "--limit", paramLabel = "N", defaultValue = "" + SearchService.DEFAULT_LIMIT,
             description = "Materials in the shortlist, 1 to " + SearchService.MAX_LIMIT + " (default: ${DEFAULT-VALUE}).")
@@ -61,6 +67,17 @@ final class SearchCommand implements Callable<Integer> {
         if (limit < 1 || limit > SearchService.MAX_LIMIT) {
             throw new ParameterException(spec.commandLine(),
                     "--limit must be from 1 to " + SearchService.MAX_LIMIT + ", got " + limit);
+        }
+        String caution = null;
+        if (preset != null) {
+            PresetView chosen = PresetsCommand.find(database.url, preset);
+            caution = chosen.caution();
+            requirementText = combined(chosen.text(), requirementText);
+            if (!json) {
+                spec.commandLine().getOut().println("Preset " + chosen.name() + ": " + requirementText);
+            }
+        } else if (requirementText == null || requirementText.isBlank()) {
+            throw new ParameterException(spec.commandLine(), "give a REQUIREMENT, or --preset NAME");
         }
         // read before the database opens, so a typo costs no start-up time; only a name that imported
         // spectra might supply waits for the library's own lookup
@@ -89,6 +106,9 @@ final class SearchCommand implements Callable<Integer> {
             if (json) {
                 // the context's mapper, configured as the API's, so both print numbers and nulls alike
                 Map<String, Object> out = new LinkedHashMap<>(ShortlistJson.toJson(shortlist));
+                if (caution != null) {
+                    out.putIfAbsent("caution", caution);
+                }
                 if (words != null) {
                     out.put("words", Map.of("text", words.text(), "provenance", words.provenances(), "admitted",
                             words.admitted()));
@@ -105,9 +125,21 @@ final class SearchCommand implements Callable<Integer> {
                 spec.commandLine().getOut().println(wordsNote(words));
             }
             notes(shortlist).forEach(spec.commandLine().getOut()::println);
+            if (caution != null && ShortlistJson.caution(shortlist.requirement()).isEmpty()) {
+                // a safety preset (eyewear, viewing window, enclosure) carries the caution whatever its clauses
+                spec.commandLine().getOut().println("Caution: " + caution);
+            }
             spec.commandLine().getOut().flush();
         }
         return SieveCli.OK;
+    }
+
+    /**
+     * The preset's text with the user's extra clauses or settings after a comma: simple, and what the language
+     * joins clauses and settings with; words about the stock must stand first, so they cannot be added here.
+     */
+    static String combined(String presetText, String extra) {
+        return extra == null || extra.isBlank() ? presetText : presetText + ", " + extra.strip();
     }
 
     static void preParse(String text) {

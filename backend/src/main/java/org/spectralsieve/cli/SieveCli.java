@@ -18,7 +18,7 @@ import picocli.CommandLine.Command;
         subcommands = {SearchCommand.class, ExportCommand.class, MaterialsCommand.class, ImportCommand.class, ImportStateCommand.class, PreviewCommand.class,
                 ImportSpectrumCommand.class, FiguresCommand.class, SimilarCommand.class,
                 RetireCommand.class, RestoreCommand.class, CorrectCommand.class, RevisionsCommand.class,
-                BackupCommand.class, RestoreBackupCommand.class, AddAccountCommand.class,
+                BackupCommand.class, RestoreBackupCommand.class, AddAccountCommand.class, PresetsCommand.class,
                 CommandLine.HelpCommand.class},
         exitCodeListHeading = "%nExit codes:%n",
         exitCodeList = {

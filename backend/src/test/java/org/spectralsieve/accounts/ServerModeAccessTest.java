@@ -32,10 +32,12 @@ import org.springframework.web.servlet.mvc.method.annotation.RequestMappingHandl
         "spring.datasource.url=jdbc:h2:mem:server-mode-access-test;DB_CLOSE_DELAY=-1"})
 class ServerModeAccessTest {
 
-    /** POSTs that only compute an answer or touch the caller's own tokens: a viewer may send them. */
+    /** POSTs that only compute an answer or touch the caller's own tokens or presets: a viewer may send them. */
     private static final Set<String> VIEWER_CHANGES = Set.of(
             "POST /api/search", "POST /api/requirements/parse", "POST /api/similar", "POST /api/imports/preview",
-            "POST /api/tokens", "POST /api/tokens/{id}/revoke");
+            "POST /api/tokens", "POST /api/tokens/{id}/revoke",
+            // a viewer's own presets (a shared one is refused by the controller unless the caller is an admin)
+            "POST /api/presets", "POST /api/presets/import", "PUT /api/presets/{key}", "DELETE /api/presets/{key}");
 
     /** Admin's alone: accounts, restoring a backup or a retired item. */
     private static final List<Pattern> ADMIN_ONLY = List.of(
