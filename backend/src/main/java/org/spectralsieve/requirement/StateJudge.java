@@ -18,8 +18,9 @@ import org.spectralsieve.states.StateKind;
  * <ul>
  *   <li>The sample's own clauses are judged as always ({@link SampleEvaluator}), which fixes the row's thickness;
  *       the state clauses are then judged at that thickness. A state curve is never rescaled (ageing is not uniform
- *       through the depth, ink is a layer): a row judged at another thickness than the state curve's gets the state
- *       clause unverified, with why. Nor is it combined with a fixed layer in front.</li>
+ *       through the depth, ink is a layer): it belongs to the sample as measured (a printed film is a little thicker
+ *       than its base, by the ink), so a row judged at another thickness than the sample's measured one gets the
+ *       state clause unverified, with why. Nor is it combined with a fixed layer in front.</li>
  *   <li>No curve in the asked state: unverified, never a guess.</li>
  *   <li>Printed black: the heaviest print stored (highest ink load, then highest stated density), named.</li>
  *   <li>After an exposure: the aged curves on the same scale (hours under one source, or doses at one wavelength),
@@ -79,9 +80,7 @@ final class StateJudge {
      * only be unverified); any other thickness statement stands.
      */
     private static ThicknessSpec ownThickness(Candidate candidate, ThicknessSpec spec) {
-        boolean statesHere = candidate.states().stream().anyMatch(s -> Double.isNaN(s.thicknessMm())
-                || NominalThickness.same(s.thicknessMm(), candidate.thicknessMm()));
-        return spec.kind() == ThicknessSpec.Kind.RANGE && candidate.thicknessKnown() && statesHere
+        return spec.kind() == ThicknessSpec.Kind.RANGE && candidate.thicknessKnown() && !candidate.states().isEmpty()
                 && NominalThickness.within(candidate.thicknessMm(), spec.minMm(), spec.maxMm())
                 ? ThicknessSpec.at(candidate.thicknessMm()) : spec;
     }
@@ -205,33 +204,26 @@ final class StateJudge {
         String asSupplied = "as supplied";
         if (state.kind() == StateKind.AS_SUPPLIED) {
             if (candidate.thicknessKnown() && !Double.isNaN(d) && !NominalThickness.same(candidate.thicknessMm(), d)) {
-                return List.of(Picked.none("compared with a curve in another state, the as-supplied curve is taken as measured at "
-                        + Wording.mm(candidate.thicknessMm()) + ", not rescaled to " + Wording.mm(d)));
+                return List.of(Picked.none("compared with a curve in another state, the as-supplied curve is taken as"
+                        + " measured at " + Wording.mm(candidate.thicknessMm()) + ", not rescaled to " + Wording.mm(d)));
             }
             return List.of(Picked.one(asSupplied, candidate.measured()));
         }
-        List<StateCurve> usable = new ArrayList<>();
-        String elsewhere = null;
-        for (StateCurve s : candidate.states()) {
-            if (s.state().kind() != state.kind()) {
-                continue;
-            }
-            double at = Double.isNaN(s.thicknessMm()) ? candidate.thicknessMm() : s.thicknessMm();
-            if (!Double.isNaN(at) && !Double.isNaN(d) && !NominalThickness.same(at, d)) {
-                elsewhere = "the " + s.state().describe() + " curve was measured at " + Wording.mm(at)
-                        + "; curves in other states are not rescaled (ageing is not uniform through the depth, ink is"
-                        + " a layer), so it says nothing at " + Wording.mm(d);
-                continue;
-            }
-            usable.add(s);
+        // a state curve belongs to the specimen as measured (a printed film is a little thicker than its base, by
+        // the ink): it speaks for the row only when the row stands at the sample's own measured thickness
+        if (candidate.thicknessKnown() && !Double.isNaN(d) && !NominalThickness.same(candidate.thicknessMm(), d)) {
+            return List.of(Picked.none("curves in other states are not rescaled (ageing is not uniform through the"
+                    + " depth, ink is a layer): they belong to the sample as measured at "
+                    + Wording.mm(candidate.thicknessMm()) + " and say nothing at " + Wording.mm(d)));
         }
+        List<StateCurve> usable = candidate.states().stream().filter(s -> s.state().kind() == state.kind()).toList();
         if (state.kind() == StateKind.PRINTED) {
-            String none = elsewhere != null ? elsewhere : "no printed-black curve is stored for this sample";
+            String none = "no printed-black curve is stored for this sample";
             return List.of(usable.stream().max(HEAVIEST_PRINT)
                     .map(s -> Picked.one(s.state().describe(), s.curve()))
                     .orElseGet(() -> Picked.none(none)));
         }
-        return aged(state, candidate, usable, elsewhere);
+        return aged(state, candidate, usable);
     }
 
     /** Ink load first, then stated density; an unstated number counts as the least. */
@@ -244,7 +236,7 @@ final class StateJudge {
         return Double.isNaN(v) ? Double.NEGATIVE_INFINITY : v;
     }
 
-    private static List<Picked> aged(StateAsked state, Candidate candidate, List<StateCurve> usable, String elsewhere) {
+    private static List<Picked> aged(StateAsked state, Candidate candidate, List<StateCurve> usable) {
         Map<String, List<StateCurve>> series = new LinkedHashMap<>();
         for (StateCurve s : usable) {
             Exposure e = s.state().exposure();
@@ -254,7 +246,7 @@ final class StateJudge {
             }
         }
         if (series.isEmpty()) {
-            return List.of(Picked.none(elsewhere != null ? elsewhere : "no aged curve " + (state.inHours()
+            return List.of(Picked.none("no aged curve " + (state.inHours()
                     ? "in hours of exposure" : "after a dose at " + Wording.nm(state.doseNm()))
                     + " is stored for this sample"));
         }
