@@ -57,7 +57,9 @@ final class StateJudge {
         } else {
             d = candidate.thicknessMm();
         }
-        String notHere = own.isEmpty() ? thicknessProblem(candidate, requirement.thickness()) : null;
+        // a sample without curves in other states is answered "none stored", whatever the thickness
+        String notHere = own.isEmpty() && !candidate.states().isEmpty()
+                ? thicknessProblem(candidate, requirement.thickness()) : null;
         List<ClauseResult> results = new ArrayList<>(requirement.clauses().size());
         for (Clause clause : requirement.clauses()) {
             if (!clause.readsStates()) {
