@@ -57,9 +57,9 @@ final class StateJudge {
         } else {
             d = candidate.thicknessMm();
         }
-        // a sample without curves in other states is answered "none stored", whatever the thickness
-        String notHere = own.isEmpty() && !candidate.states().isEmpty()
-                ? thicknessProblem(candidate, requirement.thickness()) : null;
+        // a sample without curves in other states is answered "none stored", whatever the thickness; one with them is
+        // judged only where the requirement admits its measured thickness (the only one its state curves speak for)
+        String notHere = candidate.states().isEmpty() ? null : thicknessProblem(candidate, requirement.thickness());
         List<ClauseResult> results = new ArrayList<>(requirement.clauses().size());
         for (Clause clause : requirement.clauses()) {
             if (!clause.readsStates()) {
@@ -88,8 +88,8 @@ final class StateJudge {
     }
 
     /**
-     * With only state clauses the row stands at the sample's measured thickness: why that is not the asked one, or
-     * null when it is (or the requirement leaves thickness as measured).
+     * State curves speak for the sample's measured thickness only: why the requirement's thickness does not admit it,
+     * or null when it does (or leaves thickness as measured).
      */
     private static String thicknessProblem(Candidate candidate, ThicknessSpec spec) {
         double d0 = candidate.thicknessMm();
