@@ -41,9 +41,11 @@ final class ExactReference {
                         && requirement.admitsGeometry(s.geometry().label())) {
                     // the shared rule: diffuse and scattering samples are held at their measured thickness
                     SampleRescaling rescaling = SampleRescaling.of(m, s);
-                    admitted.add(new Candidate(s.id(), m.id(), m.name(), library.findCurve(s.id()).orElseThrow(),
+                    Candidate candidate = new Candidate(s.id(), m.id(), m.name(), library.findCurve(s.id()).orElseThrow(),
                             s.thicknessMm(), rescaling.rescalable(), m.refractiveIndex(), SearchService.made(m),
-                            s.geometry() == Geometry.TOTAL || diffuseLayer, rescaling.reason()));
+                            s.geometry() == Geometry.TOTAL || diffuseLayer, rescaling.reason());
+                    // the sample's curves in other states, read straight from the database
+                    admitted.add(candidate.withStates(library.findStateCurves(s.id())));
                     if (s.geometry() == Geometry.TOTAL) {
                         total.add(s.id());
                     }

@@ -21,6 +21,7 @@ import org.spectralsieve.library.MaterialClass;
 import org.spectralsieve.library.MigratedDatabase;
 import org.spectralsieve.library.NewMaterial;
 import org.spectralsieve.library.NewSample;
+import org.spectralsieve.library.NewStateCurve;
 import org.spectralsieve.library.Provenance;
 import org.spectralsieve.library.Scaling;
 import org.spectralsieve.requirement.MaterialJudge;
@@ -32,6 +33,9 @@ import org.spectralsieve.requirement.StackLayer;
 import org.spectralsieve.seed.DemoLibraryLoader;
 import org.spectralsieve.spectrum.Curve;
 import org.spectralsieve.spectrum.WavelengthGrid;
+import org.spectralsieve.states.Exposure;
+import org.spectralsieve.states.MaterialState;
+import org.spectralsieve.states.Printing;
 import org.spectralsieve.store.SyntheticCurves;
 import org.springframework.core.io.DefaultResourceLoader;
 
@@ -56,7 +60,7 @@ class SearchEqualsExactJudgementPropertyTest {
     private static final String[] CLASSES = {"plastic sheet", "film", "window glass"};
 
     private enum Kind { PLAIN_AS_MEASURED, PLAIN_FIXED, PLAIN_SOLVE, WEIGHTED, STACKED, SOLVED, STACKED_SOLVED, RELATIVE,
-        RELATIVE_SOLVED }
+        RELATIVE_SOLVED, STATE, STATE_SOLVED }
 
     private static JooqLibraryRepository library;
     private static SearchService cached;
@@ -81,7 +85,8 @@ class SearchEqualsExactJudgementPropertyTest {
         List<Material> materials = library.findMaterials(null, null);
         Map<Kind, Integer> nonEmpty = new EnumMap<>(Kind.class);
         int held = 0;
-        for (int trial = 0; trial < 45; trial++) {
+        int stateJudged = 0;
+        for (int trial = 0; trial < 55; trial++) {
             Kind kind = Kind.values()[trial % Kind.values().length];
             String text = requirement(kind, random);
             Requirement requirement = RequirementParser.parse(text);
@@ -99,11 +104,16 @@ class SearchEqualsExactJudgementPropertyTest {
             }
             assertThat(requirement.plain()).isEqualTo(kind.name().startsWith("PLAIN"));
             nonEmpty.merge(kind, expected.isEmpty() ? 0 : 1, Integer::sum);
+            stateJudged += (int) expected.stream().flatMap(row -> row.evaluation().clauses().stream())
+                    .filter(c -> c.clause().readsStates() && c.verdict() != org.spectralsieve.requirement.Verdict.UNVERIFIED)
+                    .count();
             held += answer.judgedExactly() < answer.evaluatedSamples() ? 1 : 0;
         }
         // not vacuous: every kind found rows, and the store spared exact judgements in some searches
         assertThat(nonEmpty.values()).allMatch(n -> n >= 3);
         assertThat(held).isGreaterThan(5);
+        // and state clauses were decided on stored state curves, not only left unverified
+        assertThat(stateJudged).isGreaterThan(3);
     }
 
     @Test
@@ -128,14 +138,16 @@ class SearchEqualsExactJudgementPropertyTest {
         List<String> parts = new ArrayList<>();
         boolean plain = kind.name().startsWith("PLAIN");
         boolean relative = kind.name().startsWith("RELATIVE");
-        String clauses = plain ? plainClause(random) : relative ? relativeClause(random) : weightedClause(random);
+        boolean state = kind.name().startsWith("STATE");
+        String clauses = plain ? plainClause(random) : relative ? relativeClause(random)
+                : state ? stateClause(random) : weightedClause(random);
         if (random.nextBoolean()) {
             clauses += " and " + (plain ? plainClause(random) : random.nextBoolean() ? plainClause(random) : weightedClause(random));
         }
         parts.add(clauses);
         switch (kind) {
             case PLAIN_FIXED -> parts.add("at " + new String[] {"1", "2", "3", "4", "6"}[random.nextInt(5)] + " mm");
-            case PLAIN_SOLVE, SOLVED, STACKED_SOLVED, RELATIVE_SOLVED -> parts.add("thickness "
+            case PLAIN_SOLVE, SOLVED, STACKED_SOLVED, RELATIVE_SOLVED, STATE_SOLVED -> parts.add("thickness "
                     + new String[] {"1 to 6", "0.5 to 3", "2 to 10"}[random.nextInt(3)] + " mm");
             default -> { }
         }
@@ -178,6 +190,23 @@ class SearchEqualsExactJudgementPropertyTest {
         };
     }
 
+    /** Clauses naming a state (docs/requirement-language.md), on the synthetic aged and printed curves. */
+    private static String stateClause(Random random) {
+        int nm = 300 + 10 * random.nextInt(20);
+        String hours = new String[] {"500", "1000", "2000", "3000"}[random.nextInt(4)];
+        return switch (random.nextInt(5)) {
+            case 0 -> "after " + hours + " h passes over " + percent(40 + 50 * random.nextDouble()) + " at " + nm + " nm";
+            case 1 -> "after " + hours + " h blocks under " + percent(Math.pow(10, 1 - 3 * random.nextDouble()))
+                    + " from " + nm + " to " + (nm + 20) + " nm";
+            case 2 -> "printed black blocks under " + smallPercent(Math.pow(10, -1 - 2 * random.nextDouble())) + " from "
+                    + nm + " to " + (nm + 40) + " nm";
+            case 3 -> "from " + nm + " to " + (nm + 40) + " nm the printed black under "
+                    + smallPercent(Math.pow(10, -1 - 2 * random.nextDouble())) + " of the base";
+            default -> "after " + hours + " h at " + nm + " nm under " + percent(Math.pow(10, 1.5 - 2 * random.nextDouble()))
+                    + " of its 600 nm value and " + plainClause(random);
+        };
+    }
+
     private static String weightedClause(Random random) {
         String led = "led " + new String[] {"365", "385", "395", "405"}[random.nextInt(4)];
         return switch (random.nextInt(6)) {
@@ -188,6 +217,11 @@ class SearchEqualsExactJudgementPropertyTest {
             case 4 -> "luminous over " + percent(20 + 70 * random.nextDouble());
             default -> "critical wavelength over " + (340 + random.nextInt(50)) + " nm";
         };
+    }
+
+    /** Down to 0.001 %: the levels a printed black is asked for. */
+    private static String smallPercent(double p) {
+        return String.format(Locale.ROOT, "%.4f%%", p);
     }
 
     private static String percent(double p) {
@@ -202,6 +236,33 @@ class SearchEqualsExactJudgementPropertyTest {
     private static List<RankedRow> judgeEverySample(JooqLibraryRepository library, Requirement requirement,
                                                     Optional<StackLayer> layer, List<Material> materials, int limit) {
         return ExactReference.judgeEverySample(library, requirement, layer, materials, limit);
+    }
+
+    /**
+     * Curves in other states for a synthetic sample (illustrative): aged after 1000 and 2500 h under a synthetic lamp,
+     * losing most towards short wavelengths (the direction of PRACTICE.md §1, common practice), and a printed black
+     * two to four decades below the base, at the sample's thickness (a printed one a little thicker, by the ink).
+     */
+    private static void addStates(JooqLibraryRepository into, Random random, long sample, int number, int s,
+                                  double[] nm, double[] t, double mm, double floor) {
+        double loss = 0.2 + 0.6 * random.nextDouble();
+        for (double hours : new double[] {1000, 2500}) {
+            double[] aged = new double[nm.length];
+            for (int w = 0; w < nm.length; w++) {
+                aged[w] = t[w] * (1 - loss * hours / 2500 * Math.exp(-(nm[w] - 250) / 80));
+            }
+            into.storeStateCurve(sample, new NewStateCurve(MaterialState.aged(Exposure.hours(hours, "synthetic lamp")),
+                    Curve.of(nm, aged, floor), mm, floor, "illustrative", null, "synthetic-aged.csv",
+                    String.format(Locale.ROOT, "%064x", (long) number * 16 + s + 4096 + (long) hours)));
+        }
+        double decades = 2 + 2 * random.nextDouble();
+        double[] printed = new double[nm.length];
+        for (int w = 0; w < nm.length; w++) {
+            printed[w] = t[w] * Math.pow(10, -decades * (nm[w] < 600 ? 1 : 0.3));
+        }
+        into.storeStateCurve(sample, new NewStateCurve(MaterialState.printed(new Printing(100, Double.NaN)),
+                Curve.of(nm, printed, floor), mm * 1.04, floor, "illustrative", null, "synthetic-printed.csv",
+                String.format(Locale.ROOT, "%064x", (long) number * 16 + s + 8192)));
     }
 
     /**
@@ -250,9 +311,12 @@ class SearchEqualsExactJudgementPropertyTest {
                 t[w] = SyntheticCurves.transmittance(spec, nm[w]);
             }
             Geometry geometry = random.nextInt(8) == 0 ? Geometry.TOTAL : Geometry.REGULAR;
-            into.insertSample(material, new NewSample(mm, geometry, Provenance.MODELLED, "", null, "", "illustrative",
+            long sample = into.insertSample(material, new NewSample(mm, geometry, Provenance.MODELLED, "", null, "", "illustrative",
                     spec.floor(), Curve.of(nm, t, spec.floor()), "synthetic-" + number + "-" + s + ".csv",
                     String.format(Locale.ROOT, "%064x", (long) number * 16 + s)));
+            if (random.nextInt(3) == 0) {
+                addStates(into, random, sample, number, s, nm, t, mm, spec.floor());
+            }
         }
     }
 }
