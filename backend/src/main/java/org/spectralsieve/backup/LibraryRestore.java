@@ -209,6 +209,44 @@ public class LibraryRestore {
         long idOffset(Table<?> table) {
             return LibraryTables.AUDIT.equals(LibraryTables.name(table)) ? auditIdOffset : 0;
         }
+
+        /**
+         * A private requirement preset of the archive (V14), restored into a server that keeps its own accounts: its
+         * owner is one of the archive's accounts, left out, and the same id may be another person here. So the row is
+         * kept but belongs to nobody and is retired (docs/presets.md): never shown to a stranger, nothing lost.
+         */
+        void unownPrivatePreset(Table<?> table, List<Field<?>> fields, Object[] values) {
+            if (!hasAccounts || !LibraryTables.PRESETS.equals(LibraryTables.name(table))) {
+                return;
+            }
+            int owner = index(fields, "owner_account_id");
+            if (owner < 0 || values[owner] == null) {
+                return;
+            }
+            values[owner] = null;
+            set(fields, values, "owner_key", 0L);
+            set(fields, values, "live_name", null);
+            int retired = index(fields, "retired_at");
+            if (retired >= 0 && values[retired] == null) {
+                values[retired] = java.time.OffsetDateTime.now(java.time.ZoneOffset.UTC).truncatedTo(java.time.temporal.ChronoUnit.MICROS);
+            }
+        }
+
+        private static int index(List<Field<?>> fields, String name) {
+            for (int i = 0; i < fields.size(); i++) {
+                if (fields.get(i).getName().equalsIgnoreCase(name)) {
+                    return i;
+                }
+            }
+            return -1;
+        }
+
+        private static void set(List<Field<?>> fields, Object[] values, String name, Object value) {
+            int i = index(fields, name);
+            if (i >= 0) {
+                values[i] = value;
+            }
+        }
     }
 
     private static ServerOwn serverOwn(DSLContext db) {
@@ -376,7 +414,7 @@ public class LibraryRestore {
                 rows.put(pair.getKey().table(), 0L); // the server's own accounts stand
                 continue;
             }
-            rows.put(pair.getKey().table(), insertRows(tx, zip, pair.getKey(), pair.getValue(), own.idOffset(pair.getValue())));
+            rows.put(pair.getKey().table(), insertRows(tx, zip, pair.getKey(), pair.getValue(), own));
         }
         recheckCurves(tx, manifest);
         Summary summary = new Summary(manifest.schemaVersion(), rows, manifest.curves().size());
@@ -384,7 +422,8 @@ public class LibraryRestore {
         AuditTrail.record(tx, AuditEntry.by(actor, AuditEntry.ACTION_RESTORE_BACKUP, AuditEntry.SUBJECT_LIBRARY, null,
                 null, "restored the library from a backup written " + manifest.createdAt() + " by "
                         + manifest.application() + ": " + total + " rows, " + summary.curves() + " curves"
-                        + (own.hasAccounts() ? "; this server's own accounts kept, the archive's left out" : "")
+                        + (own.hasAccounts() ? "; this server's own accounts kept, the archive's left out (with their"
+                        + " private presets: kept retired, owned by nobody)" : "")
                         + (own.auditIdOffset() > 0 ? "; the archive's audit entries follow this server's own, ids moved up by "
                         + own.auditIdOffset() : ""), null, summary));
         LibraryTables.bookkeeping("library_generation")
@@ -392,8 +431,9 @@ public class LibraryRestore {
         return summary;
     }
 
-    private static long insertRows(DSLContext tx, ZipFile zip, TableEntry entry, Table<?> table, long idOffset)
+    private static long insertRows(DSLContext tx, ZipFile zip, TableEntry entry, Table<?> table, ServerOwn own)
             throws IOException {
+        long idOffset = own.idOffset(table);
         List<Field<?>> fields = fieldsInArchiveOrder(entry, table);
         RowCodec codec = new RowCodec(fields);
         int identityIndex = idOffset == 0 ? -1 : identityIndex(entry, table);
@@ -404,6 +444,7 @@ public class LibraryRestore {
                 if (identityIndex >= 0) {
                     values[identityIndex] = ((Number) values[identityIndex]).longValue() + idOffset;
                 }
+                own.unownPrivatePreset(table, fields, values);
                 try {
                     tx.insertInto(table, fields).values(values).execute();
                 } catch (RuntimeException e) { // jOOQ's or, under Spring, Spring's translation of it

@@ -41,6 +41,9 @@ final class LibraryTables {
      */
     static final Set<String> SERVER_ACCOUNTS = Set.of("account", "api_token");
 
+    /** Requirement presets (V14): library content; a private one's owner is an account (see LibraryRestore). */
+    static final String PRESETS = "requirement_preset";
+
     /** The audit trail (V12): library content, appended after a target's own entries about its accounts. */
     static final String AUDIT = "audit_entry";
 
