@@ -123,10 +123,17 @@ class PresetCatalogueTest {
     }
 
     @Test
-    void aCoverAfter1000LampHoursIsNotMetByUvFilteringAcrylic() {
-        // [S21][S22][S24]: judged on the aged curve; a UV-filtering grade never passed 365 nm to begin with
+    void aCoverAfter1000LampHoursIsJudgedBetweenItsNewAndAgedCurvesNotGuessed() {
+        // [S21][S22][S24]: judged on the aged curves. The demo lamp cover has a curve as supplied and one after
+        // 2,000 h; 1,000 h lies between them and is not interpolated: where the two disagree about 80 % at 365 nm
+        // the answer is unverified. A grade without aged curves is never said to meet.
         Shortlist s = run("lamp-cover-after-1000-h");
+        RankedRow cover = row(s, "UV-transmitting cast acrylic, lamp-cover grade");
+        assertThat(cover.evaluation().standing()).isEqualTo(Standing.UNVERIFIED);
+        assertThat(cover.evaluation().clauses().get(0).explanation()).contains("not interpolated")
+                .contains("as supplied").contains("aged 2000 h");
         assertNotMeeting(s, "UV-filtering acrylic", "Clear polycarbonate sheet, UV-stabilised");
+        assertThat(meeting(s)).isEmpty();
     }
 
     @Test
@@ -146,10 +153,16 @@ class PresetCatalogueTest {
     }
 
     @Test
-    void printedBlackIsNeverMetByAClearFilm() {
-        // [S3]: Dmax of OD 3 or more across 350-420 nm; a clear film has no printed black to judge
+    void printedBlackIsMetByTheInkjetFilmsStoredPrintAndNeverByAFilmWithoutOne() {
+        // [S3]: Dmax of OD 3 or more across 350-420 nm. The demo inkjet film has a printed-black curve at 100 % ink
+        // (the heaviest print is judged); clear films without a printed curve are unverified, never guessed
         Shortlist s = run("mask-film-printed-black");
-        assertNotMeeting(s, "Inkjet positive film, unprinted", "Clear polyester film", "FEP film, resin-vat");
+        RankedRow inkjet = row(s, "Inkjet positive film, unprinted");
+        assertThat(inkjet.evaluation().standing()).isEqualTo(Standing.MEETS);
+        assertThat(inkjet.evaluation().clauses().get(0).explanation()).startsWith("printed black, 100 % ink");
+        RankedRow polyester = row(s, "Clear polyester film");
+        assertThat(polyester.evaluation().standing()).isNotEqualTo(Standing.MEETS);
+        assertThat(polyester.evaluation().clauses().get(0).explanation()).contains("no printed-black curve");
     }
 
     @Test
@@ -252,6 +265,11 @@ class PresetCatalogueTest {
         CataloguePreset p = preset(name);
         return search.search(RequirementParser.parse(p.text(), SpectrumLookup.builtIn(), search.materialClasses()),
                 SearchService.MAX_LIMIT);
+    }
+
+    private static RankedRow row(Shortlist s, String nameStart) {
+        return s.rows().stream().filter(r -> r.materialName().startsWith(nameStart)).findFirst()
+                .orElseThrow(() -> new AssertionError(nameStart + " is not in the shortlist of " + s.requirement().text()));
     }
 
     private static List<String> meeting(Shortlist s) {
