@@ -78,6 +78,10 @@ final class CorrectCommand implements Callable<Integer> {
             throw new CliFailure(SieveCli.USAGE, "an imported " + what + " is not corrected: retire it and import the"
                     + " right file under its name");
         }
+        if (kind == Curated.STATE_CURVE) {
+            throw new CliFailure(SieveCli.USAGE, "a state curve is not corrected: retire it (retire state-curve ID) and"
+                    + " store the right file with import-state");
+        }
         long id = kind.id(key);
         Map<String, String> fields = new LinkedHashMap<>();
         fields.put("reason", reason);

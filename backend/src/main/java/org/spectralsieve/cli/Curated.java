@@ -11,7 +11,9 @@ import org.spectralsieve.spectra.SpectrumKind;
  * first word names it, and how their refusals read on the command line (docs/undo.md).
  */
 enum Curated {
-    SAMPLE, MATERIAL, EMITTER, RESPONSE;
+    SAMPLE, MATERIAL, EMITTER, RESPONSE,
+    /** A sample's curve in another state (docs/material-states.md): retired and restored, never corrected. */
+    STATE_CURVE;
 
     static final String WORDS = "sample, material, emitter or response";
 
@@ -25,9 +27,10 @@ enum Curated {
 
     static Curated parse(String word) {
         try {
-            return valueOf(word.strip().toUpperCase(Locale.ROOT));
+            return valueOf(word.strip().toUpperCase(Locale.ROOT).replace('-', '_'));
         } catch (IllegalArgumentException e) {
-            throw new CliFailure(SieveCli.USAGE, "'" + word + "' is not one of " + WORDS);
+            throw new CliFailure(SieveCli.USAGE, "'" + word + "' is not one of " + WORDS
+                    + " (retire and restore also take state-curve)");
         }
     }
 
@@ -40,7 +43,7 @@ enum Curated {
     }
 
     JooqLibraryRevisions.Kind libraryKind() {
-        if (spectrum()) {
+        if (spectrum() || this == STATE_CURVE) {
             throw new IllegalStateException(this + " is not a library record");
         }
         return this == SAMPLE ? JooqLibraryRevisions.Kind.SAMPLE : JooqLibraryRevisions.Kind.MATERIAL;
@@ -50,7 +53,8 @@ enum Curated {
         try {
             return Long.parseLong(text.strip());
         } catch (NumberFormatException e) {
-            throw new CliFailure(SieveCli.USAGE, name().toLowerCase(Locale.ROOT) + " id '" + text + "' is not a whole number");
+            throw new CliFailure(SieveCli.USAGE, name().toLowerCase(Locale.ROOT).replace('_', ' ') + " id '" + text
+                    + "' is not a whole number");
         }
     }
 

@@ -30,7 +30,7 @@ final class RestoreCommand implements Callable<Integer> {
     @Mixin
     DatabaseOption database;
 
-    @Parameters(index = "0", paramLabel = "WHAT", description = "sample, material, emitter or response")
+    @Parameters(index = "0", paramLabel = "WHAT", description = "sample, material, state-curve, emitter or response")
     String what;
 
     @Parameters(index = "1", paramLabel = "ID-OR-NAME", description = "the sample's or material's id; the spectrum's name")
@@ -47,6 +47,12 @@ final class RestoreCommand implements Callable<Integer> {
             if (kind.spectrum()) {
                 ReferenceSpectrum s = context.getBean(SpectrumImportService.class).restore(kind.spectrumKind(), key, spectrumId);
                 spec.commandLine().getOut().println("restored " + s.kind().label() + " '" + s.name() + "' (id " + s.id() + ")");
+                return SieveCli.OK;
+            }
+            if (kind == Curated.STATE_CURVE) {
+                var r = context.getBean(org.spectralsieve.ingest.StateCurveService.class).setRetired(kind.id(key), false);
+                spec.commandLine().getOut().println((r.changed() ? "restored " : "already in use: ") + "state curve "
+                        + r.id() + " of sample " + r.sampleId());
                 return SieveCli.OK;
             }
             Retirement r = context.getBean(LibraryCuration.class).restore(kind.libraryKind(), kind.id(key));

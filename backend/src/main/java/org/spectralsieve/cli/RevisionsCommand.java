@@ -38,6 +38,10 @@ final class RevisionsCommand implements Callable<Integer> {
             throw new CliFailure(SieveCli.USAGE, "an imported " + what + " has no revisions; see its retired ones with"
                     + " GET /api/" + kind.spectrumKind().plural() + "/retired");
         }
+        if (kind == Curated.STATE_CURVE) {
+            throw new CliFailure(SieveCli.USAGE, "a state curve has no revisions; 'revisions sample ID' lists its sample's"
+                    + " revisions and state curves");
+        }
         long id = kind.id(key);
         TextTable table;
         java.io.StringWriter states = new java.io.StringWriter();

@@ -39,6 +39,29 @@ class ImportStateCommandTest {
     }
 
     @Test
+    void stateCurveIsRetiredAndRestoredByItsIdAndIsNeverCorrected(@TempDir Path dir) throws Exception {
+        assertThat(cli("materials", "--q", "orange").exitCode()).isEqualTo(SieveCli.OK); // seeds the demo library
+        long sampleId = thinnestSampleOf("resin-lid-amber");
+        Path file = dir.resolve("amber-aged.csv");
+        Files.writeString(file, "wavelength_nm,transmittance\n400,0.001\n500,0.2\n600,0.8\n");
+        CliRun stored = cli("import-state", "--sample", String.valueOf(sampleId), "--state", "aged", "--dose", "50",
+                "--dose-nm", "365", file.toString());
+        String id = stored.out().replaceFirst("(?s)^stored state curve (\\d+) .*", "$1");
+
+        CliRun retired = cli("retire", "state-curve", id);
+        CliRun listed = cli("revisions", "sample", String.valueOf(sampleId));
+        CliRun restored = cli("restore", "state-curve", id);
+        CliRun corrected = cli("correct", "state-curve", id, "--reason", "typo");
+
+        assertThat(retired.exitCode()).as(retired.err()).isEqualTo(SieveCli.OK);
+        assertThat(retired.out()).startsWith("retired state curve " + id + " of sample " + sampleId);
+        assertThat(listed.out()).contains("aged 50 J/cm² at 365 nm").contains("retired ");
+        assertThat(restored.out()).startsWith("restored state curve " + id);
+        assertThat(corrected.exitCode()).isEqualTo(SieveCli.USAGE);
+        assertThat(corrected.err()).contains("a state curve is not corrected");
+    }
+
+    @Test
     void badValuesAreRefusedByTheirOptionAndAnUnknownSampleExitsOne(@TempDir Path dir) throws Exception {
         Path file = dir.resolve("print.csv");
         Files.writeString(file, "wavelength_nm,transmittance\n350,0.0001\n400,0.0002\n500,0.01\n");

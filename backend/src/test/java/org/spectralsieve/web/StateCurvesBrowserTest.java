@@ -117,6 +117,20 @@ class StateCurvesBrowserTest {
     }
 
     @Test
+    void materialViewWithAStatePlottedMeetsWcagAA() throws IOException {
+        AxeCore axe = AxeCore.loadOrSkip();
+        page.open(port, "/");
+        page.openMaterialFromLibrary(LAMP_COVER);
+        wait.until(d -> !d.findElements(By.cssSelector("#state-curves button.state-plot")).isEmpty());
+        driver.findElement(By.cssSelector("#state-curves button.state-plot")).click();
+        page.waitForLegend("6 mm regular: aged 2000 h under");
+
+        List<String> found = axe.violations(driver);
+        assertThat(found).withFailMessage("axe-core, WCAG rules %s:%n  %s", AxeCore.TAGS, String.join("\n  ", found))
+                .isEmpty();
+    }
+
+    @Test
     void materialWithoutStatesShowsNoStateList() {
         page.open(port, "/");
         page.openMaterialFromLibrary("Clear float glass");
