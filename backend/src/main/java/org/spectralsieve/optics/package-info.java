@@ -1,5 +1,7 @@
 /**
- * Optics of plane parallel parts in air at normal incidence, framework-free.
+ * Optics of plane parallel parts in air at normal incidence, framework-free; light at an angle and spread beams in
+ * {@link org.spectralsieve.optics.ObliqueIncidence} and {@link org.spectralsieve.optics.BeamSpread}
+ * (docs/oblique-incidence.md).
  *
  * <p>Units and invariants:
  * <ul>
