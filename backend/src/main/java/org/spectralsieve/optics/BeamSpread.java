@@ -26,6 +26,9 @@ public final class BeamSpread {
     /** Gauss–Legendre nodes of the reported integral; the estimate uses twice as many. */
     public static final int NODES = 24;
 
+    /** The share of an LED's power the integral may leave out at wide angles (see {@link #led}). */
+    static final double NEGLIGIBLE = 1e-12;
+
     private final double fromCos;
     private final double exponent;
     private final double onlyAngleRad;
@@ -62,7 +65,11 @@ public final class BeamSpread {
                     + degrees(halfIntensityRad) + "°");
         }
         double m = Math.log(0.5) / Math.log(Math.cos(halfIntensityRad));
-        return new BeamSpread(0, m, Double.NaN, "LED with half intensity at ±" + degrees(halfIntensityRad)
+        // a narrow LED's cos^m θ is all but zero away from the axis: integrate only where u^m exceeds
+        // NEGLIGIBLE, so the nodes sit where the light is; the power left out is below NEGLIGIBLE of the total
+        // (∫₀^u₀ u^m du / ∫₀¹ u^m du = u₀^(m+1) < u₀^m = NEGLIGIBLE)
+        double from = Math.pow(NEGLIGIBLE, 1 / m);
+        return new BeamSpread(from, m, Double.NaN, "LED with half intensity at ±" + degrees(halfIntensityRad)
                 + "° (cos^" + round(m) + " θ)");
     }
 
@@ -90,19 +97,40 @@ public final class BeamSpread {
     }
 
     private double integrate(DoubleUnaryOperator transmittanceAt, int nodes) {
-        double[][] rule = GaussLegendre.rule(nodes);
+        double[][] rule = nodes(nodes);
+        double weighted = 0;
+        for (int i = 0; i < rule[0].length; i++) {
+            weighted += rule[1][i] * transmittanceAt.applyAsDouble(rule[0][i]);
+        }
+        return weighted;
+    }
+
+    /**
+     * The angles (radians) and weights, summing to 1, with which T_eff = Σ w T(θ): Gauss–Legendre with
+     * {@code count} nodes in u = cos θ, each node's weight times the intensity there, normalised; a collimated
+     * beam's one angle with weight 1.
+     */
+    public double[][] nodes(int count) {
+        if (!Double.isNaN(onlyAngleRad)) {
+            return new double[][] {{onlyAngleRad}, {1}};
+        }
+        double[][] rule = GaussLegendre.rule(count);
         double half = (1 - fromCos) / 2;
         double mid = (1 + fromCos) / 2;
-        double weighted = 0;
+        double[] angles = new double[count];
+        double[] weights = new double[count];
         double total = 0;
-        for (int i = 0; i < nodes; i++) {
+        for (int i = 0; i < count; i++) {
             double u = mid + half * rule[0][i];
-            double intensity = exponent == 0 ? 1 : Math.pow(u, exponent);
-            double w = rule[1][i] * intensity;
-            weighted += w * transmittanceAt.applyAsDouble(Math.acos(u));
+            double w = rule[1][i] * (exponent == 0 ? 1 : Math.pow(u, exponent));
+            angles[i] = Math.acos(u);
+            weights[i] = w;
             total += w;
         }
-        return weighted / total;
+        for (int i = 0; i < count; i++) {
+            weights[i] /= total;
+        }
+        return new double[][] {angles, weights};
     }
 
     private static String degrees(double rad) {

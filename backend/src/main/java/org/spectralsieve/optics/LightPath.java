@@ -89,6 +89,57 @@ public final class LightPath {
         return combine(wavelengthsNm.clone(), onPoints, reflectances(layers, wavelengthsNm));
     }
 
+    /**
+     * Transmittance of the whole path at the layers' own wavelengths ({@link #sharedWavelengths}) for light
+     * arriving as {@code light} says; normal incidence is {@link #transmittance()}, number for number. At an
+     * angle see {@link ObliquePath}; a bulk layer's point is a bound also where the layer rescaled along the
+     * longest slant the light takes through it would be one (its hidden absorption grows with the path).
+     */
+    public Curve transmittance(Illumination light) {
+        return light.normal() ? transmittance() : transmittance(prepare(light));
+    }
+
+    /**
+     * What an oblique path at {@link #sharedWavelengths} needs that depends only on the wavelengths, the indices
+     * and the light: computed once, and reused for the same parts at other thicknesses (the shared wavelengths do
+     * not change with thickness), {@link #transmittance(ObliquePath)}.
+     */
+    public ObliquePath prepare(Illumination light) {
+        int count = layers.size();
+        RefractiveIndex[] indexes = new RefractiveIndex[count];
+        for (int j = 0; j < count; j++) {
+            indexes[j] = layers.get(j).index();
+        }
+        return ObliquePath.prepare(sharedWavelengths(), indexes, light);
+    }
+
+    /** Transmittance under the light {@code prepared} for a path of these layers' wavelengths and indices. */
+    public Curve transmittance(ObliquePath prepared) {
+        double[] points = prepared.wavelengthsNm();
+        int count = layers.size();
+        Curve[] onPoints = new Curve[count];
+        for (int j = 0; j < count; j++) {
+            try {
+                onPoints[j] = layers.get(j).transmittanceAt(points);
+            } catch (CurveException e) {
+                throw new CurveException("layer " + j + ": " + e.getMessage());
+            }
+        }
+        return prepared.transmittance(onPoints, alongLongestSlant(layers, points, prepared.longestSlant()));
+    }
+
+    /** Each bulk layer rescaled to its thickness times {@code slant} at the points (null for a fixed layer). */
+    static Curve[] alongLongestSlant(List<Layer> layers, double[] points, double slant) {
+        Curve[] out = new Curve[layers.size()];
+        for (int j = 0; j < out.length; j++) {
+            if (layers.get(j) instanceof Layer.Bulk b && slant > 1) {
+                out[j] = Layer.bulk(b.measured(), b.measuredThicknessMm(), b.targetThicknessMm() * slant, b.index())
+                        .transmittanceAt(points);
+            }
+        }
+        return out;
+    }
+
     /** The union of the layers' stored wavelengths inside the range they all cover, with its ends. */
     public double[] sharedWavelengths() {
         double from = Double.NEGATIVE_INFINITY;

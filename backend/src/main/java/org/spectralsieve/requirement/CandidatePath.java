@@ -6,8 +6,10 @@ import java.util.Map;
 import java.util.Optional;
 import org.spectralsieve.optics.ConstantIndex;
 import org.spectralsieve.optics.FixedParts;
+import org.spectralsieve.optics.Illumination;
 import org.spectralsieve.optics.Layer;
 import org.spectralsieve.optics.LightPath;
+import org.spectralsieve.optics.ObliquePath;
 import org.spectralsieve.optics.RefractiveIndex;
 import org.spectralsieve.optics.ThicknessRescaler;
 import org.spectralsieve.optics.ThicknessSweep;
@@ -49,9 +51,52 @@ final class CandidatePath {
     /** The way this candidate is judged, read once so a benchmark switching it never mixes the two in one judgement. */
     private final boolean earlier = JudgementPath.reference();
 
+    /** How the light arrives; at an angle every curve below is the oblique path's ({@link #oblique}). */
+    private final Illumination light;
+    /** The oblique path's angle tables, prepared on first use (they do not depend on thickness). */
+    private ObliquePath prepared;
+
     CandidatePath(Candidate candidate, Optional<StackLayer> layer) {
+        this(candidate, layer, Illumination.NORMAL);
+    }
+
+    CandidatePath(Candidate candidate, Optional<StackLayer> layer, Illumination light) {
         this.candidate = candidate;
         this.layer = layer;
+        this.light = light;
+    }
+
+    /** Whether the light arrives at an angle (then the lean routes below give way to the whole oblique curve). */
+    boolean oblique() {
+        return !light.normal();
+    }
+
+    /**
+     * The path at thickness d (NaN: as measured) for light at an angle: the candidate (rescaled when bulk and d is
+     * a number) and the fixed layer as a {@link LightPath} under {@link #light}.
+     */
+    private Curve oblique(double d) {
+        RefractiveIndex index = candidate.index() != null ? candidate.index() : DEFAULT_INDEX;
+        // a bulk part as measured is a bulk layer at its own thickness, so its slant bounds are checked too
+        Layer part = !candidate.bulk() || !candidate.thicknessKnown() ? Layer.fixed(candidate.measured(), index)
+                : Layer.bulk(candidate.measured(), candidate.thicknessMm(), Double.isNaN(d) ? candidate.thicknessMm() : d,
+                index);
+        LightPath path = layer.isPresent() ? LightPath.of(part, layer.get().asLayer()) : LightPath.of(part);
+        if (prepared == null) {
+            prepared = path.prepare(light);
+        }
+        return path.transmittance(prepared);
+    }
+
+    /** The longest slant factor 1/cos θt of the light in the path (1 at normal incidence). */
+    private double longestSlant() {
+        if (!oblique()) {
+            return 1;
+        }
+        if (prepared == null) {
+            asMeasured();
+        }
+        return prepared.longestSlant();
     }
 
     boolean stacked() {
@@ -64,6 +109,9 @@ final class CandidatePath {
 
     /** The path as measured: the measured curve, stacked when there is a layer. */
     Curve asMeasured() {
+        if (oblique()) {
+            return cached(Double.NaN, () -> oblique(Double.NaN));
+        }
         return stacked() ? cached(Double.NaN, () -> stack(candidate.measured())) : candidate.measured();
     }
 
@@ -73,7 +121,7 @@ final class CandidatePath {
      * curve is built already or only the built curve will do; otherwise the curve itself.
      */
     PointReadings asMeasuredPoints() {
-        if (!stacked() || earlier || earlierArithmetic || FigurePath.byLookup()) {
+        if (!stacked() || oblique() || earlier || earlierArithmetic || FigurePath.byLookup()) {
             return asMeasured();
         }
         if (!byThickness.isEmpty()) {
@@ -102,6 +150,9 @@ final class CandidatePath {
         if (!candidate.bulk()) {
             return asMeasured();
         }
+        if (oblique()) {
+            return cached(d, () -> oblique(d));
+        }
         return cached(d, () -> sweep().path(d));
     }
 
@@ -112,7 +163,7 @@ final class CandidatePath {
      * for the same thickness share the points computed.
      */
     PointReadings pointsAt(double d) {
-        if (!candidate.bulk() || stacked() || FigurePath.byLookup()) {
+        if (!candidate.bulk() || stacked() || oblique() || FigurePath.byLookup()) {
             return at(d);
         }
         if (!earlierArithmetic) {
@@ -182,8 +233,9 @@ final class CandidatePath {
         return far;
     }
 
+    /** At an angle the light's longest path through the candidate is d·slant: its far thickness comes slant times sooner. */
     private double candidateFarMm(double nm) {
-        return candidate.measured().covers(nm) ? readings().farMmAt(nm) : Double.POSITIVE_INFINITY;
+        return candidate.measured().covers(nm) ? readings().farMmAt(nm) / longestSlant() : Double.POSITIVE_INFINITY;
     }
 
     /** Whether this candidate is judged the earlier way ({@link JudgementPath}). */

@@ -3,6 +3,7 @@ package org.spectralsieve.requirement;
 import java.util.List;
 import java.util.Objects;
 import java.util.Optional;
+import org.spectralsieve.optics.Illumination;
 
 /**
  * What the light path must do: spectral clauses (all must hold), what is said about thickness, filters on
@@ -10,9 +11,11 @@ import java.util.Optional;
  * {@code materialClass} is a class label as stored ("plastic sheet"); {@code geometry} is "regular" or
  * "total" (only samples measured so) or "any" (both, with total transmittance accepted for see-through
  * clauses, see {@link SeeThrough}); the thickness statement concerns the candidate, never the fixed layer.
+ * {@code light} is how the light meets the path ({@link Illumination}): normal incidence unless the text says
+ * "at 30° incidence", "over a 60° beam" or "under an LED with 120° beam angle".
  */
 public record Requirement(List<Clause> clauses, ThicknessSpec thickness, Optional<String> materialClass,
-                          Optional<String> geometry, Optional<FixedLayer> layer, String text) {
+                          Optional<String> geometry, Optional<FixedLayer> layer, String text, Illumination light) {
 
     public Requirement {
         clauses = List.copyOf(clauses);
@@ -25,6 +28,23 @@ public record Requirement(List<Clause> clauses, ThicknessSpec thickness, Optiona
         Objects.requireNonNull(geometry, "geometry");
         Objects.requireNonNull(layer, "layer");
         text = Objects.requireNonNullElse(text, "");
+        Objects.requireNonNull(light, "light");
+    }
+
+    /** A requirement for light at normal incidence. */
+    public Requirement(List<Clause> clauses, ThicknessSpec thickness, Optional<String> materialClass,
+                       Optional<String> geometry, Optional<FixedLayer> layer, String text) {
+        this(clauses, thickness, materialClass, geometry, layer, text, Illumination.NORMAL);
+    }
+
+    /** The same requirement for light arriving as {@code light} says. */
+    public Requirement withLight(Illumination light) {
+        return new Requirement(clauses, thickness, materialClass, geometry, layer, text, light);
+    }
+
+    /** Whether the light is not square to the surface: then every figure is computed at its angles. */
+    public boolean oblique() {
+        return !light.normal();
     }
 
     /** A requirement without a fixed layer. */
@@ -62,7 +82,8 @@ public record Requirement(List<Clause> clauses, ThicknessSpec thickness, Optiona
      * and the closed-form thickness solver handles.
      */
     public boolean plain() {
-        return layer.isEmpty() && clauses.stream().allMatch(Clause::plain);
+        // at an angle the store's normal-incidence margins bound nothing: such requirements are judged exactly
+        return layer.isEmpty() && light.normal() && clauses.stream().allMatch(Clause::plain);
     }
 
     /** Whether a clause reads a curve of another state than as supplied (aged, printed), so candidates need them. */

@@ -7,6 +7,7 @@ import java.util.List;
 import java.util.Locale;
 import java.util.Objects;
 import java.util.Optional;
+import org.spectralsieve.optics.Illumination;
 import org.spectralsieve.requirement.Token.Kind;
 import org.spectralsieve.weighting.SpectrumLookup;
 
@@ -49,6 +50,9 @@ public final class RequirementParser {
     private final SpectralClauseParser spectral;
     private final FigureClauseParser figures;
     private final StateClauseParser states;
+    private final LightParser lights;
+    private Illumination light = Illumination.NORMAL;
+    private String lightText;
     /** The class labels a class filter may name, or null when the caller has no library to check against. */
     private final List<String> knownClasses;
     private final List<Clause> clauses = new ArrayList<>();
@@ -66,6 +70,7 @@ public final class RequirementParser {
         this.spectral = new SpectralClauseParser(in, new SpectrumNames(in, spectra));
         this.figures = new FigureClauseParser(in, spectral, spectra);
         this.states = new StateClauseParser(in, spectral);
+        this.lights = new LightParser(in);
     }
 
     /**
@@ -129,7 +134,8 @@ public final class RequirementParser {
         }
         String text = in.slice(0, in.text().length());
         return TokenCursor.build(in.peek(), () -> new Requirement(clauses, thickness,
-                Optional.ofNullable(materialClass), Optional.ofNullable(geometry), Optional.ofNullable(layer), text));
+                Optional.ofNullable(materialClass), Optional.ofNullable(geometry), Optional.ofNullable(layer), text,
+                light));
     }
 
     private boolean separator() {
@@ -152,6 +158,15 @@ public final class RequirementParser {
     }
 
     private void spectralOrFilter(Token first) {
+        if (lights.atLight()) {
+            Illumination read = lights.light();
+            if (lightText != null) {
+                throw duplicate(first, "statement of how the light arrives", lightText);
+            }
+            light = read;
+            lightText = in.slice(first.start(), in.previous().end());
+            return;
+        }
         if (states.atState()) {
             StateAsked state = states.state();
             Token clauseStart = in.peek();

@@ -27,6 +27,9 @@ final class RequirementRenderer {
         }
         requirement.materialClass().ifPresent(label -> parts.add("class " + label));
         requirement.geometry().ifPresent(geometry -> parts.add("geometry " + geometry));
+        if (requirement.oblique()) {
+            parts.add(requirement.light().words());
+        }
         requirement.layer().ifPresent(layer -> parts.add(layer(layer)));
         return String.join(", ", parts);
     }

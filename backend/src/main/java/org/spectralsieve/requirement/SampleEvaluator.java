@@ -81,8 +81,12 @@ public final class SampleEvaluator {
         if (requirement.namesStates()) {
             return StateJudge.evaluate(candidate, requirement, layer, span);
         }
+        if (requirement.oblique() && !candidate.bulk()) {
+            return unverified(candidate.sampleId(), candidate.thicknessMm(), requirement.clauses(),
+                    notAtAngle(candidate, requirement.light()));
+        }
         try {
-            CandidatePath path = new CandidatePath(candidate, layer);
+            CandidatePath path = new CandidatePath(candidate, layer, requirement.light());
             try {
                 return seenThrough(candidate, requirement, evaluate(path, requirement, span));
             } catch (CurveException e) {
@@ -153,7 +157,19 @@ public final class SampleEvaluator {
         return judgedAt(candidate.sampleId(), asked, null, clauses, path, asked);
     }
 
-    /** "coated/laminated part, measured only at 2.013 mm; not rescalable": the reason a non-bulk part gives. */
+    /**
+     * Why a part that is not a homogeneous absorber is not judged at an angle: scatter is not absorption, so the
+     * slant path's Beer–Lambert does not hold; a coating's spectrum shifts with angle (interference) in a way a
+     * normal-incidence curve cannot show.
+     */
+    static String notAtAngle(Candidate candidate, org.spectralsieve.optics.Illumination light) {
+        String why = candidate.notRescaledReason() != null
+                ? candidate.notRescaledReason() + ": scattered light does not follow the slant path's Beer–Lambert law"
+                : "coated/laminated part: a coating's spectrum shifts with angle, which its normal-incidence curve"
+                        + " cannot show";
+        return why + "; not judged for " + light.describe();
+    }
+
     /** Why a non-bulk candidate stays at its measured thickness: a diffuse sample's reason, or a coated part. */
     static String notRescalable(Candidate candidate) {
         String measured = Wording.mm(candidate.thicknessMm());

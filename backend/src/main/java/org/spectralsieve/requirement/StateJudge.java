@@ -6,6 +6,9 @@ import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Optional;
+import org.spectralsieve.optics.Illumination;
+import org.spectralsieve.optics.Layer;
+import org.spectralsieve.optics.LightPath;
 import org.spectralsieve.spectrum.Curve;
 import org.spectralsieve.states.Exposure;
 import org.spectralsieve.states.StateCurve;
@@ -48,7 +51,7 @@ final class StateJudge {
         if (!own.isEmpty()) {
             Requirement ownOnly = new Requirement(own, ownThickness(candidate, requirement.thickness()),
                     requirement.materialClass(),
-                    requirement.geometry(), requirement.layer(), requirement.text());
+                    requirement.geometry(), requirement.layer(), requirement.text(), requirement.light());
             SampleEvaluation base = SampleEvaluator.evaluate(candidate, ownOnly, layer, span);
             for (ClauseResult r : base.clauses()) {
                 judged.putIfAbsent(r.clause(), r);
@@ -70,7 +73,7 @@ final class StateJudge {
             } else if (notHere != null) {
                 results.add(ClauseResult.unjudgeable(clause, SampleEvaluator.threshold(clause), notHere));
             } else {
-                results.add(judge(clause, candidate, d));
+                results.add(judge(clause, candidate, d, requirement.light()));
             }
         }
         return SampleEvaluation.of(candidate.sampleId(), d, null, results);
@@ -107,15 +110,19 @@ final class StateJudge {
                 : Wording.mmSpan(spec.minMm(), spec.maxMm()));
     }
 
-    /** One state-reading clause on the candidate judged at thickness d. */
-    static ClauseResult judge(Clause clause, Candidate candidate, double d) {
+    /**
+     * One state-reading clause on the candidate judged at thickness d, with its state curves seen under the light
+     * ({@link #underLight}).
+     */
+    static ClauseResult judge(Clause clause, Candidate candidate, double d, Illumination light) {
         if (clause instanceof StateClause s) {
-            return onState(clause, s.state(), candidate, d, curve -> ClauseEvaluator.evaluate(s.inner(), curve));
+            return onState(clause, s.state(), candidate, d,
+                    curve -> ClauseEvaluator.evaluate(s.inner(), underLight(curve, candidate, light)));
         }
         RelativeClause r = (RelativeClause) clause;
         if (r.ownWavelength()) {
             return onState(clause, r.state(), candidate, d,
-                    curve -> RelativeClauses.evaluate(r, new CurveView(curve)));
+                    curve -> RelativeClauses.evaluate(r, new CurveView(underLight(curve, candidate, light))));
         }
         // two states at the same wavelength: the reference state's single curve, the numerator's as asked
         List<Picked> references = pick(r.referenceState(), candidate, d);
@@ -129,8 +136,23 @@ final class StateJudge {
                     + " has no curve at exactly that exposure, and a ratio is not taken between two curves");
         }
         Labelled ref = reference.curves.get(0);
-        return onState(clause, r.state(), candidate, d, curve -> RelativeClauses.evaluate(r, new CurveView(curve),
-                new CurveView(ref.curve)), " against " + ref.label);
+        Curve refSeen = underLight(ref.curve, candidate, light);
+        return onState(clause, r.state(), candidate, d, curve -> RelativeClauses.evaluate(r,
+                new CurveView(underLight(curve, candidate, light)), new CurveView(refSeen)), " against " + ref.label);
+    }
+
+    /**
+     * A state curve (measured at the sample's thickness, never rescaled) as the light sees it: itself at normal
+     * incidence, else the one-part oblique path of it ({@link LightPath#transmittance(Illumination)}). The state
+     * is taken as the same homogeneous slab, absorbing more or less: a printed layer's own angle dependence is not
+     * modelled (docs/oblique-incidence.md).
+     */
+    static Curve underLight(Curve curve, Candidate candidate, Illumination light) {
+        if (light.normal()) {
+            return curve;
+        }
+        return LightPath.of(Layer.fixed(curve, candidate.index() != null ? candidate.index()
+                : CandidatePath.DEFAULT_INDEX)).transmittance(light);
     }
 
     private static ClauseResult onState(Clause clause, StateAsked state, Candidate candidate, double d,

@@ -83,6 +83,7 @@ final class Tokenizer {
             case ',' -> single(Kind.COMMA);
             case '-', '–' -> single(Kind.DASH);
             case '≥' -> single(Kind.AT_LEAST);
+            case '°' -> single(Kind.WORD); // the degree sign is a unit word: "30°"
             case '≤' -> single(Kind.AT_MOST);
             case '>', '<' -> {
                 pos += charAt(pos + 1) == '=' ? 2 : 1;

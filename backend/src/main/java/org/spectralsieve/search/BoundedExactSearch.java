@@ -142,7 +142,9 @@ final class BoundedExactSearch {
         Optional<StackLayer> layer = requirement.layer().map(l -> candidates.resolveLayer(l, s));
         boolean diffuseLayer = layer.map(l -> s.samples().get(l.sampleId()).geometry() == Geometry.TOTAL).orElse(false);
         WeightedMisses.SecondStage[] formedSecondOut = new WeightedMisses.SecondStage[1];
-        FirstBounds firstBounds = rowArrays ? screens.boundsByRow(s, requirement, layer, diffuseLayer, formedSecondOut)
+        // the store's curves are at normal incidence: for light at an angle no screen bounds a row, every one is judged
+        FirstBounds firstBounds = requirement.oblique() ? FirstBounds.bySampleId(new HashMap<>(), new HashMap<>(), new HashMap<>())
+                : rowArrays ? screens.boundsByRow(s, requirement, layer, diffuseLayer, formedSecondOut)
                 : screens.boundsBySampleId(s, requirement, layer, diffuseLayer, formedSecondOut);
         WeightedMisses.SecondStage formedSecond = formedSecondOut[0];
         boolean grouped = diffuseLast(requirement);

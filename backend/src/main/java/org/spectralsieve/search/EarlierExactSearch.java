@@ -53,14 +53,18 @@ final class EarlierExactSearch {
                                     Predicate<Material> within) {
         Optional<StackLayer> layer = requirement.layer().map(l -> candidates.resolveLayer(l, s));
         boolean diffuseLayer = layer.map(l -> s.samples().get(l.sampleId()).geometry() == Geometry.TOTAL).orElse(false);
-        Map<Long, Double> provenMiss = FirstBoundScreens.provenMisses(s, requirement, layer);
-        if (screens.screenLayerBlocks) {
-            layer.ifPresent(l -> FirstBoundScreens.addLayerBlockMisses(provenMiss, s.store(), requirement, l));
-        }
-        if (screens.screenWeighted && screens.earlierWeightedScreen) {
-            WeightedMisses.addEarlier(provenMiss, s.store(), requirement, layer, diffuseLayer);
-        } else if (screens.screenWeighted) {
-            WeightedMisses.add(provenMiss, s.store(), requirement, layer, diffuseLayer);
+        Map<Long, Double> provenMiss = new java.util.HashMap<>();
+        // the store's curves are at normal incidence: for light at an angle no screen bounds a row
+        if (!requirement.oblique()) {
+            provenMiss.putAll(FirstBoundScreens.provenMisses(s, requirement, layer));
+            if (screens.screenLayerBlocks) {
+                layer.ifPresent(l -> FirstBoundScreens.addLayerBlockMisses(provenMiss, s.store(), requirement, l));
+            }
+            if (screens.screenWeighted && screens.earlierWeightedScreen) {
+                WeightedMisses.addEarlier(provenMiss, s.store(), requirement, layer, diffuseLayer);
+            } else if (screens.screenWeighted) {
+                WeightedMisses.add(provenMiss, s.store(), requirement, layer, diffuseLayer);
+            }
         }
         // the store holds a sample whose record fails today's checks at a storable thickness with n = 1.5, while
         // the exact judgement reads its own record (a stack with the material's own index, say): a bound formed
