@@ -5,6 +5,7 @@ import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Optional;
+import org.spectralsieve.optics.Illumination;
 import org.spectralsieve.requirement.Aggregate;
 import org.spectralsieve.requirement.Band;
 import org.spectralsieve.requirement.Clause;
@@ -71,6 +72,7 @@ public final class RequirementJson {
         json.put("materialClass", requirement.materialClass().orElse(null));
         json.put("geometry", requirement.geometry().orElse(null));
         json.put("layer", requirement.layer().map(RequirementJson::layer).orElse(null));
+        json.put("light", light(requirement.light()));
         json.put("clauses", requirement.clauses().stream().map(RequirementJson::clause).toList());
         return json;
     }
@@ -285,7 +287,64 @@ public final class RequirementJson {
                         "must be one of " + RequirementLimits.GEOMETRIES + " or null"));
         String text = optionalString(node, "text", "(root)").orElse("");
         Optional<FixedLayer> layer = layer(node.get("layer"));
-        return new Requirement(clauses, thickness, materialClass, geometry, layer, text);
+        return new Requirement(clauses, thickness, materialClass, geometry, layer, text, light(node.get("light")));
+    }
+
+    /**
+     * {"kind": "normal"} | {"kind": "incidence", "angleDeg": 30} | {"kind": "beam", "fullAngleDeg": 60} |
+     * {"kind": "led", "beamAngleDeg": 120} | {"kind": "lambertian"}, with {@code description} and
+     * {@code integration} written for the reader (ignored on reading).
+     */
+    static Map<String, Object> light(Illumination light) {
+        Map<String, Object> json = new LinkedHashMap<>();
+        switch (light.kind()) {
+            case NORMAL -> json.put("kind", "normal");
+            case INCIDENCE -> {
+                json.put("kind", "incidence");
+                json.put("angleDeg", light.angleDeg());
+            }
+            case CONE -> {
+                json.put("kind", "beam");
+                json.put("fullAngleDeg", 2 * light.angleDeg());
+            }
+            case LED -> {
+                json.put("kind", "led");
+                json.put("beamAngleDeg", 2 * light.angleDeg());
+            }
+            case LAMBERTIAN -> json.put("kind", "lambertian");
+        }
+        json.put("description", light.describe());
+        json.put("integration", light.integration().isEmpty() ? null : light.integration());
+        return json;
+    }
+
+    private static Illumination light(JsonNode node) {
+        if (node == null || node.isNull()) {
+            return Illumination.NORMAL;
+        }
+        if (!node.isObject()) {
+            throw bad("light", "must be an object with a 'kind', or null for normal incidence");
+        }
+        String kind = requiredString(node, "kind", "light");
+        String field = switch (kind) {
+            case "normal", "lambertian" -> null;
+            case "incidence" -> "angleDeg";
+            case "beam" -> "fullAngleDeg";
+            case "led" -> "beamAngleDeg";
+            default -> throw bad("light.kind", "must be 'normal', 'incidence', 'beam', 'led' or 'lambertian', got " + kind);
+        };
+        double deg = field == null ? Double.NaN : number(node, field, "light");
+        try {
+            return switch (kind) {
+                case "incidence" -> Illumination.atIncidence(deg);
+                case "beam" -> Illumination.beam(deg);
+                case "led" -> Illumination.led(deg);
+                case "lambertian" -> Illumination.lambertian();
+                default -> Illumination.NORMAL;
+            };
+        } catch (IllegalArgumentException e) {
+            throw bad("light." + field, e.getMessage());
+        }
     }
 
     /** A class the library files no material under would search nothing: name the library's, and the close ones. */

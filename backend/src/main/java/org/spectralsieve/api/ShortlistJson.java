@@ -44,6 +44,8 @@ public final class ShortlistJson {
     public static Map<String, Object> toJson(Shortlist shortlist) {
         Map<String, Object> json = new LinkedHashMap<>();
         json.put("requirement", RequirementJson.toJson(shortlist.requirement()));
+        // every answer says how it took the light to arrive (normal incidence unless the requirement said otherwise)
+        json.put("assumedLight", shortlist.requirement().light().describe());
         caution(shortlist.requirement()).ifPresent(c -> json.put("caution", c));
         shortlist.layer().ifPresent(layer -> json.put("layer", layer(layer)));
         json.put("results", shortlist.rows().stream().map(r -> withRevisions(withSampleUsed(row(r, shortlist.geometry(r)),

@@ -113,6 +113,29 @@ public final class RequirementParser {
         return new RequirementParser(text, Objects.requireNonNull(spectra, "spectra"), knownClasses).requirement();
     }
 
+    /**
+     * Reads a statement of how the light arrives on its own, for a request parameter: "normal" (or blank),
+     * "at 30° incidence", "over a 60° beam", "under an LED with 120° beam angle", "under a Lambertian source".
+     *
+     * @throws RequirementSyntaxException naming what fits where the text goes wrong
+     */
+    public static Illumination parseLight(String text) {
+        if (text == null || text.isBlank() || text.strip().equalsIgnoreCase("normal")) {
+            return Illumination.NORMAL;
+        }
+        RequirementLimits.checkTextLength(text);
+        TokenCursor in = new TokenCursor(text);
+        LightParser lights = new LightParser(in);
+        if (!lights.atLight()) {
+            throw in.error(Expected.described("'normal', " + LightParser.examples()));
+        }
+        Illumination light = lights.light();
+        if (!in.at(Kind.END)) {
+            throw in.error(Expected.described("end of text").because("after the light"));
+        }
+        return light;
+    }
+
     /** The canonical text of a requirement; {@code parse(render(r))} equals r apart from the text fields. */
     public static String render(Requirement requirement) {
         return RequirementRenderer.render(requirement);
