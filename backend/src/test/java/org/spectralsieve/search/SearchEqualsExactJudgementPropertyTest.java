@@ -60,7 +60,11 @@ class SearchEqualsExactJudgementPropertyTest {
     private static final String[] CLASSES = {"plastic sheet", "film", "window glass"};
 
     private enum Kind { PLAIN_AS_MEASURED, PLAIN_FIXED, PLAIN_SOLVE, WEIGHTED, STACKED, SOLVED, STACKED_SOLVED, RELATIVE,
-        RELATIVE_SOLVED, STATE, STATE_SOLVED }
+        RELATIVE_SOLVED, STATE, STATE_SOLVED, ANGLED, ANGLED_SOLVED, ANGLED_STACKED }
+
+    /** How the light arrives (docs/oblique-incidence.md): angles and beams a curing rig or a tilted window sees. */
+    private static final String[] LIGHTS = {"at 30° incidence", "at 60° incidence", "over a 60° beam",
+            "under an LED with 120° beam angle", "under a Lambertian source", "at 45 deg incidence"};
 
     private static JooqLibraryRepository library;
     private static SearchService cached;
@@ -86,7 +90,7 @@ class SearchEqualsExactJudgementPropertyTest {
         Map<Kind, Integer> nonEmpty = new EnumMap<>(Kind.class);
         int held = 0;
         int stateJudged = 0;
-        for (int trial = 0; trial < 55; trial++) {
+        for (int trial = 0; trial < 70; trial++) {
             Kind kind = Kind.values()[trial % Kind.values().length];
             String text = requirement(kind, random);
             Requirement requirement = RequirementParser.parse(text);
@@ -139,7 +143,8 @@ class SearchEqualsExactJudgementPropertyTest {
         boolean plain = kind.name().startsWith("PLAIN");
         boolean relative = kind.name().startsWith("RELATIVE");
         boolean state = kind.name().startsWith("STATE");
-        String clauses = plain ? plainClause(random) : relative ? relativeClause(random)
+        boolean angled = kind.name().startsWith("ANGLED");
+        String clauses = plain || angled && random.nextBoolean() ? plainClause(random) : relative ? relativeClause(random)
                 : state ? stateClause(random) : weightedClause(random);
         if (random.nextBoolean()) {
             clauses += " and " + (plain ? plainClause(random) : random.nextBoolean() ? plainClause(random) : weightedClause(random));
@@ -147,12 +152,17 @@ class SearchEqualsExactJudgementPropertyTest {
         parts.add(clauses);
         switch (kind) {
             case PLAIN_FIXED -> parts.add("at " + new String[] {"1", "2", "3", "4", "6"}[random.nextInt(5)] + " mm");
-            case PLAIN_SOLVE, SOLVED, STACKED_SOLVED, RELATIVE_SOLVED, STATE_SOLVED -> parts.add("thickness "
+            case ANGLED -> parts.add(random.nextBoolean() ? "at " + new String[] {"1", "3", "6"}[random.nextInt(3)]
+                    + " mm" : "thickness as measured");
+            case PLAIN_SOLVE, SOLVED, STACKED_SOLVED, RELATIVE_SOLVED, STATE_SOLVED, ANGLED_SOLVED -> parts.add("thickness "
                     + new String[] {"1 to 6", "0.5 to 3", "2 to 10"}[random.nextInt(3)] + " mm");
             default -> { }
         }
-        if (kind == Kind.STACKED || kind == Kind.STACKED_SOLVED) {
+        if (kind == Kind.STACKED || kind == Kind.STACKED_SOLVED || kind == Kind.ANGLED_STACKED) {
             parts.add(LAYERS[random.nextInt(LAYERS.length)]);
+        }
+        if (angled) {
+            parts.add(LIGHTS[random.nextInt(LIGHTS.length)]);
         }
         if (random.nextInt(6) == 0) {
             parts.add("class " + CLASSES[random.nextInt(CLASSES.length)]);
