@@ -114,7 +114,8 @@ public final class ThicknessSolver {
             throw new IllegalArgumentException("thickness range must be positive and ordered, got " + minMm + " to "
                     + maxMm + " mm");
         }
-        RescaledModel model = path.stacked() ? null : path.readings();
+        // the closed form is the normal-incidence slab: at an angle every clause is solved on the oblique path
+        RescaledModel model = path.stacked() || path.oblique() ? null : path.readings();
         CurveView view = new CurveView(candidate.measured());
         // coverage and below-detection flags of the path do not depend on the candidate's thickness
         CurveView pathView = new CurveView(path.asMeasured());
