@@ -192,6 +192,9 @@ final class SearchCommand implements Callable<Integer> {
      */
     static List<String> notes(Shortlist shortlist) {
         List<String> lines = new ArrayList<>();
+        // every answer names the light it assumed (docs/oblique-incidence.md)
+        String integration = shortlist.requirement().light().integration();
+        lines.add("Light: " + shortlist.requirement().light().describe() + (integration.isEmpty() ? "" : "; " + integration) + ".");
         shortlist.layer().ifPresent(layer -> lines.add("Light path: every result is judged as a stack, "
                 + layer.describe() + "."));
         if (shortlist.libraryGeneration() != Shortlist.UNKNOWN_GENERATION) {

@@ -1,6 +1,7 @@
 package org.spectralsieve.optics;
 
 import org.spectralsieve.spectrum.Curve;
+import org.spectralsieve.spectrum.PointReadings;
 
 /**
  * A light path's transmittance when the light arrives at an angle or spread over angles ({@link Illumination}),
@@ -46,6 +47,7 @@ public final class ObliquePath {
     private final double[] anglesRad;
     /** [point]: the largest 1/cos θt over the parts at the largest angle, for the uncertainty. */
     private final double[] longestSlant;
+    private final double mostSlant;
     private final Illumination light;
     private final RefractiveIndex[] indexes;
 
@@ -57,26 +59,49 @@ public final class ObliquePath {
         this.anglesRad = anglesRad;
         this.weights = weights;
         int points = nm.length;
-        int angles = anglesRad.length;
-        normalR = new double[points][parts];
-        rs = new double[points][parts][angles];
-        rp = new double[points][parts][angles];
-        slant = new double[points][parts][angles];
+        normalR = new double[points][];
+        rs = new double[points][][];
+        rp = new double[points][][];
+        slant = new double[points][][];
         longestSlant = new double[points];
-        double thetaMax = Math.min(light.maxAngleRad(), Math.nextDown(Math.PI / 2));
+        // the largest slant over the path, for the bounds and the uncertainty: from the smallest index met
+        // (1/cos θt = n / √(n² − sin² θ) falls as n rises), read at every point once: cheap beside the tables
+        double sinMax = Math.sin(Math.min(light.maxAngleRad(), Math.nextDown(Math.PI / 2)));
+        double most = 1;
         for (int i = 0; i < points; i++) {
-            for (int j = 0; j < parts; j++) {
-                double n = indexes[j].at(nm[i]);
-                normalR[i][j] = Fresnel.reflectanceInAir(n);
-                for (int k = 0; k < angles; k++) {
-                    ObliqueIncidence.Surface s = ObliqueIncidence.surface(n, anglesRad[k]);
-                    rs[i][j][k] = s.rs();
-                    rp[i][j][k] = s.rp();
-                    slant[i][j][k] = 1 / s.cosRefracted();
-                }
-                longestSlant[i] = Math.max(longestSlant[i], 1 / ObliqueIncidence.surface(n, thetaMax).cosRefracted());
+            for (RefractiveIndex index : indexes) {
+                double n = index.at(nm[i]);
+                longestSlant[i] = Math.max(longestSlant[i], n / Math.sqrt(n * n - sinMax * sinMax));
+            }
+            most = Math.max(most, longestSlant[i]);
+        }
+        this.mostSlant = most;
+    }
+
+    /** Point i's angle tables, formed when the point is first read (a clause reads few of a curve's points). */
+    private void tables(int i) {
+        if (rs[i] != null) {
+            return;
+        }
+        int angles = anglesRad.length;
+        double[] r0 = new double[parts];
+        double[][] s = new double[parts][angles];
+        double[][] p = new double[parts][angles];
+        double[][] sl = new double[parts][angles];
+        for (int j = 0; j < parts; j++) {
+            double n = indexes[j].at(nm[i]);
+            r0[j] = Fresnel.reflectanceInAir(n);
+            for (int k = 0; k < angles; k++) {
+                ObliqueIncidence.Surface surface = ObliqueIncidence.surface(n, anglesRad[k]);
+                s[j][k] = surface.rs();
+                p[j][k] = surface.rp();
+                sl[j][k] = 1 / surface.cosRefracted();
             }
         }
+        normalR[i] = r0;
+        rp[i] = p;
+        slant[i] = sl;
+        rs[i] = s; // last: it marks the point ready
     }
 
     /**
@@ -105,11 +130,80 @@ public final class ObliquePath {
 
     /** The largest 1/cos θt the light reaches in any part at any of the wavelengths (≥ 1). */
     public double longestSlant() {
-        double most = 1;
-        for (double s : longestSlant) {
-            most = Math.max(most, s);
+        return mostSlant;
+    }
+
+    /** The largest 1/cos θt the light reaches in any part at point i. */
+    double longestSlant(int i) {
+        return longestSlant[i];
+    }
+
+    /**
+     * The path's points under this light, each formed when read ({@link ObliquePoints}): the same numbers as
+     * {@link #transmittance(Curve[], Curve[])} at the points read.
+     */
+    public PointReadings points(PointReadings[] onPoints, PointReadings[] boundedAlso) {
+        return new ObliquePoints(this, onPoints, boundedAlso);
+    }
+
+    int size() {
+        return nm.length;
+    }
+
+    double wavelengthNm(int i) {
+        return nm[i];
+    }
+
+    /** T of the path at point i from the parts' readings there. */
+    double transmittanceAt(int i, PointReadings[] onPoints) {
+        tables(i);
+        double[] excess = new double[parts];
+        double[] lnK = new double[parts];
+        for (int j = 0; j < parts; j++) {
+            read(onPoints[j].transmittance(i), normalR[i][j], excess, lnK, j);
         }
-        return most;
+        return Math.min(averaged(i, excess, lnK, -1, 0, 0), 1.0);
+    }
+
+    /** The path's detection limit at point i: the largest T with one part at a time at its own limit. */
+    double detectionLimitAt(int i, PointReadings[] onPoints) {
+        tables(i);
+        double[] excess = new double[parts];
+        double[] lnK = new double[parts];
+        double[] limitExcess = new double[parts];
+        double[] limitLnK = new double[parts];
+        for (int j = 0; j < parts; j++) {
+            read(onPoints[j].transmittance(i), normalR[i][j], excess, lnK, j);
+            read(onPoints[j].detectionLimit(i), normalR[i][j], limitExcess, limitLnK, j);
+        }
+        double limit = 0;
+        for (int j = 0; j < parts; j++) {
+            limit = Math.max(limit, averaged(i, excess, lnK, j, limitExcess[j], limitLnK[j]));
+        }
+        return Math.min(limit, Math.nextDown(1.0));
+    }
+
+    /** Whether point i is a bound: below detection in any part, or in a part's reading along the longest slant. */
+    static boolean belowAt(int i, PointReadings[] onPoints, PointReadings[] boundedAlso) {
+        for (int j = 0; j < onPoints.length; j++) {
+            if (onPoints[j].belowDetection(i) || boundedAlso != null && boundedAlso[j] != null && boundedAlso[j].belowDetection(i)) {
+                return true;
+            }
+        }
+        return false;
+    }
+
+    /** The path's absorbance uncertainty at point i: the parts' in quadrature, times the longest slant; NaN if unknown. */
+    double absorbanceUncertaintyAt(int i, PointReadings[] onPoints, boolean bound) {
+        if (bound) {
+            return Double.NaN;
+        }
+        double variance = 0;
+        for (PointReadings part : onPoints) {
+            double s = part.absorbanceUncertainty(i);
+            variance += s * s;
+        }
+        return Math.sqrt(variance) * longestSlant[i];
     }
 
     /**
@@ -126,34 +220,21 @@ public final class ObliquePath {
         double[] t = new double[points];
         boolean[] below = new boolean[points];
         double[] limits = new double[points];
-        double[] reflect = new double[parts];
-        double[] lnK = new double[parts];
-        double[] limitReflect = new double[parts];
-        double[] limitLnK = new double[parts];
+        boolean anyUncertainty = false;
+        for (Curve part : onPoints) {
+            anyUncertainty |= part.hasUncertainty();
+        }
+        double[] sigma = anyUncertainty ? new double[points] : null;
         for (int i = 0; i < points; i++) {
-            for (int j = 0; j < parts; j++) {
-                read(onPoints[j].transmittance(i), normalR[i][j], reflect, lnK, j);
-                read(onPoints[j].detectionLimit(i), normalR[i][j], limitReflect, limitLnK, j);
-                below[i] |= onPoints[j].belowDetection(i)
-                        || boundedAlso != null && boundedAlso[j] != null && boundedAlso[j].belowDetection(i);
+            t[i] = transmittanceAt(i, onPoints);
+            limits[i] = detectionLimitAt(i, onPoints);
+            below[i] = belowAt(i, onPoints, boundedAlso);
+            if (sigma != null) {
+                sigma[i] = absorbanceUncertaintyAt(i, onPoints, below[i]);
             }
-            t[i] = Math.min(averaged(i, reflect, lnK, -1, 0, 0), 1.0);
-            double limit = 0;
-            for (int j = 0; j < parts; j++) {
-                limit = Math.max(limit, averaged(i, reflect, lnK, j, limitReflect[j], limitLnK[j]));
-            }
-            limits[i] = Math.min(limit, Math.nextDown(1.0));
         }
         Curve path = Curve.of(nm.clone(), t, below, limits);
-        Curve normalUncertainty = LightPath.withStackUncertainty(path, onPoints);
-        if (!normalUncertainty.hasUncertainty()) {
-            return path;
-        }
-        double[] sigma = new double[points];
-        for (int i = 0; i < points; i++) {
-            sigma[i] = normalUncertainty.absorbanceUncertainty(i) * longestSlant[i];
-        }
-        return path.withAbsorbanceUncertainty(sigma);
+        return sigma == null ? path : path.withAbsorbanceUncertainty(sigma);
     }
 
     /** The integration error estimate at each point: |T(ANGLES) − T(ANGLES / 2)| (0 for a collimated beam). */

@@ -82,10 +82,46 @@ final class CandidatePath {
                 : Layer.bulk(candidate.measured(), candidate.thicknessMm(), Double.isNaN(d) ? candidate.thicknessMm() : d,
                 index);
         LightPath path = layer.isPresent() ? LightPath.of(part, layer.get().asLayer()) : LightPath.of(part);
-        if (prepared == null) {
-            prepared = path.prepare(light);
+        // the angle tables depend on the wavelengths and indices only, the same for every thickness
+        return path.transmittance(prepared());
+    }
+
+    /** A bulk candidate of known thickness alone at an angle: its points can be formed when read. */
+    private boolean obliqueAlone() {
+        return oblique() && !stacked() && candidate.bulk() && candidate.thicknessKnown();
+    }
+
+    /**
+     * The oblique path's points at d, formed when read ({@link ObliquePath#points}) on the sweep's rescaled points
+     * (the same numbers as {@link #at}'s curve: the rescaled part at the measured wavelengths), with the part along
+     * the longest slant for the bounds; kept for the recent thicknesses like the normal-incidence points.
+     */
+    private PointReadings obliquePointsAt(double d) {
+        if (!byThickness.isEmpty()) {
+            Curve built = byThickness.get(d);
+            if (built != null) {
+                return built;
+            }
         }
-        return path.transmittance(prepared);
+        PointReadings hit = recentPoints.get(d);
+        if (hit == null) {
+            ObliquePath oblique = prepared();
+            double slant = oblique.longestSlant();
+            PointReadings part = sweep().rescaledPoints(d);
+            PointReadings along = slant > 1 ? sweep().rescaledPoints(d * slant) : null;
+            hit = oblique.points(new PointReadings[] {part}, new PointReadings[] {along});
+            recentPoints.put(d, hit);
+        }
+        return hit;
+    }
+
+    private ObliquePath prepared() {
+        if (prepared == null) {
+            RefractiveIndex index = candidate.index() != null ? candidate.index() : DEFAULT_INDEX;
+            Layer part = Layer.bulk(candidate.measured(), candidate.thicknessMm(), candidate.thicknessMm(), index);
+            prepared = (layer.isPresent() ? LightPath.of(part, layer.get().asLayer()) : LightPath.of(part)).prepare(light);
+        }
+        return prepared;
     }
 
     /** The longest slant factor 1/cos θt of the light in the path (1 at normal incidence). */
@@ -93,10 +129,7 @@ final class CandidatePath {
         if (!oblique()) {
             return 1;
         }
-        if (prepared == null) {
-            asMeasured();
-        }
-        return prepared.longestSlant();
+        return prepared().longestSlant();
     }
 
     boolean stacked() {
@@ -121,6 +154,9 @@ final class CandidatePath {
      * curve is built already or only the built curve will do; otherwise the curve itself.
      */
     PointReadings asMeasuredPoints() {
+        if (obliqueAlone()) {
+            return pointsAt(candidate.thicknessMm());
+        }
         if (!stacked() || oblique() || earlier || earlierArithmetic || FigurePath.byLookup()) {
             return asMeasured();
         }
@@ -163,6 +199,9 @@ final class CandidatePath {
      * for the same thickness share the points computed.
      */
     PointReadings pointsAt(double d) {
+        if (obliqueAlone() && !earlier && !FigurePath.byLookup()) {
+            return obliquePointsAt(d);
+        }
         if (!candidate.bulk() || stacked() || oblique() || FigurePath.byLookup()) {
             return at(d);
         }

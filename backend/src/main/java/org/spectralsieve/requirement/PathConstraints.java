@@ -1,6 +1,7 @@
 package org.spectralsieve.requirement;
 
 import java.util.List;
+import org.spectralsieve.spectrum.PointReadings;
 import java.util.function.DoubleUnaryOperator;
 
 /**
@@ -36,7 +37,8 @@ final class PathConstraints {
             boolean explained = path.earlier();
             // only whether the figure exists is read here: its note is not (an unexplained figure has the same value
             // and availability, Weighting#figureForMargin), unless the rule before is asked for (MarginReuse)
-            if (Double.isNaN(FigureClauses.weightedMargin(w, asMeasured.curve(), explained || !MarginReuse.enabled()))) {
+            PointReadings measured = path.oblique() ? path.asMeasuredPoints() : asMeasured.curve();
+            if (Double.isNaN(FigureClauses.weightedMargin(w, measured, explained || !MarginReuse.enabled()))) {
                 return false;
             }
             // provable either way: a pass on the figure's lower end, a block on its upper end
@@ -54,7 +56,7 @@ final class PathConstraints {
         if (Double.isNaN(atMin) || Double.isNaN(atMax)) {
             return false;
         }
-        boolean provable = FigureClauses.criticalProvable(asMeasured.curve());
+        boolean provable = FigureClauses.criticalProvable(path.oblique() ? path.asMeasured() : asMeasured.curve());
         out.add(new OnPath(atMax <= atMin, provable, margin));
         return provable;
     }
@@ -68,7 +70,7 @@ final class PathConstraints {
      */
     private static boolean relative(RelativeClause r, CandidatePath path, CurveView asMeasured, double minMm,
                                     double maxMm, List<ThicknessConstraint> out) {
-        DoubleUnaryOperator margin = d -> RelativeClauses.evaluate(r, new CurveView(path.at(d))).marginDecades();
+        DoubleUnaryOperator margin = d -> RelativeClauses.evaluate(r, view(path, d)).marginDecades();
         double atMin = margin.applyAsDouble(minMm);
         double atMax = margin.applyAsDouble(maxMm);
         if (Double.isNaN(atMin) || Double.isNaN(atMax)) {
@@ -92,7 +94,7 @@ final class PathConstraints {
         if (t.aggregate() == Aggregate.MEAN) {
             if (covered) {
                 out.add(new OnPath(pass, provable, far, d -> {
-                    List<Reading> now = new CurveView(path.at(d)).readings(t.band());
+                    List<Reading> now = view(path, d).readings(t.band());
                     return Margins.of(t.direction(), CurveView.trapezoidMean(now), t.thresholdT());
                 }));
             }
@@ -101,7 +103,7 @@ final class PathConstraints {
         // the covered part of a partly covered band can still prove a miss, so it guides the choice
         if (nms.length > 0) {
             out.add(new OnPath(pass, provable, far, d -> {
-                CurveView view = new CurveView(path.at(d));
+                CurveView view = view(path, d);
                 double worst = Double.POSITIVE_INFINITY;
                 for (double nm : nms) {
                     worst = Math.min(worst, Margins.of(t.direction(), view.at(nm).judged(), t.thresholdT()));
@@ -121,7 +123,7 @@ final class PathConstraints {
                                              CurveView asMeasured, double provableUpToMm) {
         boolean provable = direction == Direction.BLOCK || !asMeasured.at(nm).bounded();
         return new OnPath(direction == Direction.PASS, provable, provableUpToMm,
-                d -> Margins.of(direction, new CurveView(path.at(d)).at(nm).judged(), threshold));
+                d -> Margins.of(direction, view(path, d).at(nm).judged(), threshold));
     }
 
     /**
@@ -148,5 +150,10 @@ final class PathConstraints {
         double marginAt(double d) {
             return recent != null ? recent.at(d) : margin.applyAsDouble(d);
         }
+    }
+
+    /** The path at d as a clause reads it: at an angle on its points formed when read, else its curve. */
+    private static CurveView view(CandidatePath path, double d) {
+        return path.oblique() ? new CurveView(path.pointsAt(d)) : new CurveView(path.at(d));
     }
 }

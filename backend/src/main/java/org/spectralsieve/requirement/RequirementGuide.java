@@ -122,7 +122,14 @@ public record RequirementGuide(List<ClauseForm> forms, List<UnitRange> units, St
                 form("One thickness", "blocks under 1% at 405 nm, 3 mm thick", "judged at 3 mm"),
                 form("Geometry", "passes over 80% at 365 nm, geometry total", "only samples measured with total geometry"),
                 form("Fixed part in the light path", "passes over 80% at 365 nm, behind 4 mm clear float glass",
-                        "judged behind that part (its material is looked up in the library)")));
+                        "judged behind that part (its material is looked up in the library)"),
+                form("Light at an angle", "passes over 80% at 365 nm, at 30° incidence",
+                        "a collimated beam 30° from the normal ('30 deg' also reads); without it, normal incidence"),
+                form("Light spread over a beam", "passes over 80% at 365 nm, over a 60° beam",
+                        "uniform light within ±30°, the figure averaged over angle"),
+                form("Under an LED", "passes over 80% at 365 nm, under an LED with 120° beam angle",
+                        "cos^m intensity with half intensity at ±60° ('under a Lambertian source': cos over ±90°);"
+                                + " coated and scattering parts are not judged at an angle")));
         if (!classes.isEmpty()) {
             forms.add(form("Material class", "passes over 80% at 365 nm, class " + classes.get(0),
                     "only materials of that class (one of the library's classes)"));
@@ -154,6 +161,8 @@ public record RequirementGuide(List<ClauseForm> forms, List<UnitRange> units, St
                         "after 2000 h passes over 70% at 320 nm"),
                 new UnitRange("share of another value", "% or a fraction, or 'half'", "above 0 up to 100 %",
                         "at 400 nm under half of its 550 nm value"),
+                new UnitRange("angle", "° or deg", "incidence 0 to 89°; a beam's full angle above 0 up to 180°; an"
+                        + " LED's beam angle above 0 up to 178°", "passes over 80% at 365 nm, over a 90° beam"),
                 new UnitRange("confidence", "with N% confidence", percent(TransmittanceClause.MIN_CONFIDENCE) + " to "
                         + percent(TransmittanceClause.MAX_CONFIDENCE) + " %", "UV400 with 99% confidence"),
                 new UnitRange("text", "characters, clauses", "at most " + RequirementLimits.MAX_TEXT_LENGTH + " characters and "

@@ -123,7 +123,7 @@ public final class SampleEvaluator {
         List<Clause> clauses = requirement.clauses();
         double d0 = candidate.thicknessMm();
         if (spec.kind() == ThicknessSpec.Kind.AS_MEASURED) {
-            return path.stacked() && !path.earlier() ? judgedAsMeasured(candidate.sampleId(), d0, clauses, path)
+            return (path.stacked() || path.oblique()) && !path.earlier() ? judgedAsMeasured(candidate.sampleId(), d0, clauses, path)
                     : judged(candidate.sampleId(), d0, null, clauses, path.asMeasured());
         }
         if (!candidate.thicknessKnown()) {
@@ -145,7 +145,8 @@ public final class SampleEvaluator {
         Candidate candidate = path.candidate();
         double d0 = candidate.thicknessMm();
         if (NominalThickness.same(d0, asked)) {
-            return judged(candidate.sampleId(), d0, null, clauses, path.asMeasured());
+            return path.oblique() && !path.earlier() ? judgedAsMeasured(candidate.sampleId(), d0, clauses, path)
+                    : judged(candidate.sampleId(), d0, null, clauses, path.asMeasured());
         }
         if (!candidate.bulk()) {
             return unverified(candidate.sampleId(), d0, clauses, notRescalable(candidate) + " to " + Wording.mm(asked));

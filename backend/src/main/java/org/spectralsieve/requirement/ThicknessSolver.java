@@ -118,7 +118,8 @@ public final class ThicknessSolver {
         RescaledModel model = path.stacked() || path.oblique() ? null : path.readings();
         CurveView view = new CurveView(candidate.measured());
         // coverage and below-detection flags of the path do not depend on the candidate's thickness
-        CurveView pathView = new CurveView(path.asMeasured());
+        // at an angle on points formed when read: a full oblique curve costs every point's angles
+        CurveView pathView = path.oblique() ? new CurveView(path.asMeasuredPoints()) : new CurveView(path.asMeasured());
         List<ThicknessConstraint> constraints = new ArrayList<>();
         boolean provable = true;
         for (Clause clause : clauses) {

@@ -101,4 +101,37 @@ class ObliqueEvaluationTest {
         assertThat(at20).isCloseTo(expected(0.5, 2, 2, 20), within(1e-12));
         assertThat(lambertian).isLessThan(at20);
     }
+
+    @Test
+    void thePointsFormedWhenReadAreTheObliqueCurvesNumbers() {
+        // a clause reads the oblique path's points one by one; the built curve (cutoffs, critical wavelength) must
+        // say the same at every point, bound flags and limits included, for every light and thickness
+        Curve dim = Curve.of(NM, IntStream.rangeClosed(0, 40).mapToDouble(i -> i < 5 ? 1e-5 : 0.01 + 0.022 * i).toArray(),
+                below(5),
+                IntStream.rangeClosed(0, 40).mapToDouble(i -> 1e-3).toArray());
+        Candidate sheet = new Candidate(4, 40, "illustrative dim sheet", dim, 2, true, new ConstantIndex(N));
+        for (org.spectralsieve.optics.Illumination light : new org.spectralsieve.optics.Illumination[] {
+                org.spectralsieve.optics.Illumination.atIncidence(50), org.spectralsieve.optics.Illumination.beam(120),
+                org.spectralsieve.optics.Illumination.led(40)}) {
+            for (double d : new double[] {0.5, 2, 7}) {
+                CandidatePath path = new CandidatePath(sheet, java.util.Optional.empty(), light);
+                org.spectralsieve.spectrum.PointReadings points = path.pointsAt(d);
+                Curve built = new CandidatePath(sheet, java.util.Optional.empty(), light).at(d);
+                assertThat(points.size()).isEqualTo(built.size());
+                for (int i = points.size() - 1; i >= 0; i--) {
+                    assertThat(points.transmittance(i)).as(light + " " + d + " " + i).isEqualTo(built.transmittance(i));
+                    assertThat(points.detectionLimit(i)).isEqualTo(built.detectionLimit(i));
+                    assertThat(points.belowDetection(i)).isEqualTo(built.belowDetection(i));
+                }
+            }
+        }
+    }
+
+    private static boolean[] below(int first) {
+        boolean[] out = new boolean[NM.length];
+        for (int i = 0; i < first; i++) {
+            out[i] = true;
+        }
+        return out;
+    }
 }
