@@ -134,7 +134,7 @@ class ServiceWeightedBenchmark {
      * The base library: its material records, its snapshot (each curve added through {@code Builder.add}, so the
      * store screens it as a loaded library's) and the decoded curve of each sample, by row.
      */
-    private record Base(List<Material> materials, Snapshot snapshot, Curve[] curves) {
+    record Base(List<Material> materials, Snapshot snapshot, Curve[] curves) {
 
         /** The stored curve of a sample of the base or of a library repeating it (sample id i + 1 is row i). */
         Curve curveOf(long sampleId) {
@@ -142,7 +142,7 @@ class ServiceWeightedBenchmark {
         }
     }
 
-    private static Base base(int n, long seed) {
+    static Base base(int n, long seed) {
         SyntheticCurves synthetic = new SyntheticCurves(seed, SpectralStore.DEFAULT_GRID);
         double[] grid = SpectralStore.DEFAULT_GRID.points();
         Curve[] curves = new Curve[n];
