@@ -262,29 +262,33 @@ public final class ObliquePath {
 
     /** T at point i averaged over the angles and the two polarisations; part {@code swapped} (if ≥ 0) replaced. */
     private double averaged(int i, double[] excess, double[] lnK, int swapped, double swappedExcess, double swappedLnK) {
+        double[] internal = new double[parts];
         double sum = 0;
         for (int k = 0; k < weights.length; k++) {
-            double ts = chain(i, k, rs[i], excess, lnK, swapped, swappedExcess, swappedLnK);
-            double tp = chain(i, k, rp[i], excess, lnK, swapped, swappedExcess, swappedLnK);
+            // the slant path's K of each part, shared by the two polarisations
+            for (int j = 0; j < parts; j++) {
+                double logK = j == swapped ? swappedLnK : lnK[j];
+                internal[j] = logK == Double.NEGATIVE_INFINITY ? 0 : Math.exp(logK * slant[i][j][k]);
+            }
+            double ts = chain(k, rs[i], excess, internal, swapped, swappedExcess);
+            double tp = chain(k, rp[i], excess, internal, swapped, swappedExcess);
             sum += weights[k] * (ts + tp) / 2;
         }
         return sum;
     }
 
     /** One polarisation at one angle: the parts' slabs chained across air gaps (Smith eq. 10.5, as OpticalElement). */
-    private double chain(int i, int k, double[][] fresnel, double[] excess, double[] lnK, int swapped,
-                         double swappedExcess, double swappedLnK) {
+    private double chain(int k, double[][] fresnel, double[] excess, double[] internal, int swapped, double swappedExcess) {
         double t = 1;
         double rb = 0;
         for (int j = 0; j < parts; j++) {
             double extra = j == swapped ? swappedExcess : excess[j];
-            double logK = j == swapped ? swappedLnK : lnK[j];
             double r = Math.min(fresnel[j][k] + extra, Math.nextDown(1.0));
-            double internal = logK == Double.NEGATIVE_INFINITY ? 0 : Math.exp(logK * slant[i][j][k]);
+            double kj = internal[j];
             double oneMinusR = 1 - r;
-            double k2 = internal * internal;
+            double k2 = kj * kj;
             double denominatorSlab = 1 - r * r * k2;
-            double te = oneMinusR * oneMinusR * internal / denominatorSlab;
+            double te = oneMinusR * oneMinusR * kj / denominatorSlab;
             double re = r + oneMinusR * oneMinusR * r * k2 / denominatorSlab;
             if (j == 0) {
                 t = te;

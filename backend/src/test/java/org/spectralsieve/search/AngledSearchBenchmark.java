@@ -30,7 +30,9 @@ import org.springframework.core.io.DefaultResourceLoader;
  * <p>Prints {@code BENCH angled-integration light=… angles=… points=… us_per_curve=… ns_per_point_angle=…} (one
  * curve of the store's grid through the oblique path, every point and its detection limit formed), and
  * {@code BENCH angled-search library=demo|synthetic-10k mode=measured|solve light=… p50_ms p95_ms judged evaluated
- * runs}. Asserts nothing about time. Switches: {@code -Dbench.angledRuns=5}, {@code -Dbench.angledSolveRuns=3},
+ * runs}, the services without their judgement memo (every search judges anew). Asserts nothing about time. Switches: {@code -Dbench.angledRuns=5}, {@code -Dbench.angledSolveRuns=1} (the synthetic
+ * library's solve; the demo's takes {@code angledRuns}), {@code -Dbench.angledSolveLights=,under an LED with 120° beam
+ * angle} (the lights of the synthetic solve, comma-separated, empty for normal incidence),
  * {@code -Dbench.angledBase=9999} (0 skips the synthetic library), {@code -Dbench.limit=20}.
  */
 class AngledSearchBenchmark {
@@ -41,20 +43,26 @@ class AngledSearchBenchmark {
     void lightAtAnAngleInTheWeightedSearch() {
         integrationCost();
         int runs = StoreWeightedBenchmark.intProperty("bench.angledRuns", 5);
-        int solveRuns = StoreWeightedBenchmark.intProperty("bench.angledSolveRuns", 3);
+        int solveRuns = StoreWeightedBenchmark.intProperty("bench.angledSolveRuns", 1);
         int limit = StoreWeightedBenchmark.intProperty("bench.limit", 20);
 
         DSLContext db = MigratedDatabase.freshH2();
         JooqLibraryRepository library = new JooqLibraryRepository(db);
         new DemoLibraryLoader(library, db, new DefaultResourceLoader(), "classpath:seed-materials/").load();
-        SearchService demo = new SearchService(library);
-        searches("demo", demo, limit, runs, runs);
+        // without the judgement memo: a search asked again would be handed its earlier judgements (docs/judgement-memo.md)
+        SearchService demo = new SearchService(library).withoutJudgementMemo();
+        searches("demo", demo, limit, runs, runs, List.of(LIGHTS), true);
 
         int base = StoreWeightedBenchmark.intProperty("bench.angledBase", 9999);
         if (base > 0) {
             ServiceWeightedBenchmark.Base synthetic = ServiceWeightedBenchmark.base(base, 20261202L);
-            SearchService service = SearchService.over(synthetic.snapshot(), id -> Optional.of(synthetic.curveOf(id)));
-            searches("synthetic-" + (base + 1) / 1000 + "k", service, limit, runs, solveRuns);
+            SearchService service = SearchService.over(synthetic.snapshot(), id -> Optional.of(synthetic.curveOf(id)))
+                    .withoutJudgementMemo();
+            // a solve at an angle judges every row at dozens of thicknesses: at 10k, one run of the heaviest light beside
+            // normal incidence, after the measured mode has warmed the same code
+            searches("synthetic-" + (base + 1) / 1000 + "k", service, limit, runs, solveRuns,
+                    List.of(System.getProperty("bench.angledSolveLights", ",under an LED with 120° beam angle").split(",", -1)),
+                    false);
         }
     }
 
@@ -71,6 +79,9 @@ class AngledSearchBenchmark {
             int angles = light.normal() ? 0 : light.spread().nodes(org.spectralsieve.optics.ObliquePath.ANGLES)[0].length;
             int reps = 40;
             double[] us = new double[reps];
+            for (int r = 0; r < 20; r++) {
+                path.transmittance(light); // warm-up
+            }
             for (int r = 0; r < reps; r++) {
                 long t0 = System.nanoTime();
                 Curve seen = path.transmittance(light);
@@ -87,18 +98,22 @@ class AngledSearchBenchmark {
         }
     }
 
-    private static void searches(String libraryName, SearchService service, int limit, int runs, int solveRuns) {
+    private static void searches(String libraryName, SearchService service, int limit, int runs, int solveRuns,
+                                 List<String> solveLights, boolean warmSolve) {
         Map<String, String> modes = new LinkedHashMap<>();
         modes.put("measured", StoreWeightedBenchmark.WEIGHTED);
         modes.put("solve", StoreWeightedBenchmark.WEIGHTED + ", thickness 1 to 6 mm");
         for (Map.Entry<String, String> mode : modes.entrySet()) {
             int n = mode.getKey().equals("solve") ? solveRuns : runs;
             Map<String, Requirement> byLight = new LinkedHashMap<>();
-            for (String words : LIGHTS) {
+            boolean solve = mode.getKey().equals("solve");
+            for (String words : solve ? solveLights.toArray(String[]::new) : LIGHTS) {
                 byLight.put(words.isEmpty() ? "normal" : words,
                         RequirementParser.parse(mode.getValue() + (words.isEmpty() ? "" : ", " + words)));
             }
-            byLight.values().forEach(r -> service.search(r, limit)); // warm-up
+            if (!solve || warmSolve) {
+                byLight.values().forEach(r -> service.search(r, limit)); // warm-up
+            }
             Map<String, double[]> ms = new LinkedHashMap<>();
             Map<String, Shortlist> last = new LinkedHashMap<>();
             byLight.keySet().forEach(k -> ms.put(k, new double[n]));
