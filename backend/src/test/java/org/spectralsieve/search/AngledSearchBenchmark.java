@@ -74,24 +74,30 @@ class AngledSearchBenchmark {
             t[i] = 0.05 + 0.85 / (1 + Math.exp(-(grid[i] - 360) / 8)); // an illustrative absorption edge at 360 nm
         }
         LightPath path = LightPath.of(Layer.bulk(Curve.of(grid, t, 1e-4), 3, 4, new ConstantIndex(1.49)));
-        for (String words : LIGHTS) {
-            Illumination light = words.isEmpty() ? Illumination.NORMAL : RequirementParser.parseLight(words);
-            int angles = light.normal() ? 0 : light.spread().nodes(org.spectralsieve.optics.ObliquePath.ANGLES)[0].length;
-            int reps = 40;
-            double[] us = new double[reps];
-            for (int r = 0; r < 20; r++) {
-                path.transmittance(light); // warm-up
-            }
-            for (int r = 0; r < reps; r++) {
+        Illumination[] lights = new Illumination[LIGHTS.length];
+        for (int l = 0; l < lights.length; l++) {
+            lights[l] = LIGHTS[l].isEmpty() ? Illumination.NORMAL : RequirementParser.parseLight(LIGHTS[l]);
+        }
+        int reps = 60;
+        double[][] us = new double[lights.length][reps];
+        for (int r = -30; r < reps; r++) { // the first 30 rounds warm up; the lights alternate round by round
+            for (int l = 0; l < lights.length; l++) {
                 long t0 = System.nanoTime();
-                Curve seen = path.transmittance(light);
-                us[r] = (System.nanoTime() - t0) / 1e3;
+                Curve seen = path.transmittance(lights[l]);
                 if (seen.size() != grid.length) {
                     throw new IllegalStateException("the path lost points");
                 }
+                if (r >= 0) {
+                    us[l][r] = (System.nanoTime() - t0) / 1e3;
+                }
             }
-            Arrays.sort(us);
-            double median = us[reps / 2];
+        }
+        for (int l = 0; l < lights.length; l++) {
+            Illumination light = lights[l];
+            int angles = light.normal() ? 0 : light.spread().nodes(org.spectralsieve.optics.ObliquePath.ANGLES)[0].length;
+            double[] sorted = us[l].clone();
+            Arrays.sort(sorted);
+            double median = sorted[reps / 2];
             System.out.printf(Locale.ROOT, "BENCH angled-integration light=\"%s\" angles=%d points=%d us_per_curve=%.0f"
                             + " ns_per_point_angle=%s%n", light.words().isEmpty() ? "normal" : light.words(), angles, grid.length,
                     median, angles == 0 ? "-" : String.format(Locale.ROOT, "%.1f", median * 1e3 / grid.length / angles));
