@@ -23,7 +23,8 @@ import org.spectralsieve.spectrum.Curve;
  *   <li>References: a uniform 60° beam, an LED of 120° beam angle and a Lambertian source, each with its
  *       integration error estimate ({@link ObliquePath#integrationError}).</li>
  * </ul>
- * Bounded work: {@value #ANGLES} angles and three references at one wavelength, whatever the curve's length.
+ * Bounded work: {@value #ANGLES} angles and three references at the two stored wavelengths around the asked one,
+ * each part cut to its stored points there, whatever the curves' length.
  */
 public final class AngleSweep {
 
@@ -82,6 +83,9 @@ public final class AngleSweep {
         // the path at the two shared wavelengths around nm, then read at nm as the path's whole curve would be
         // (Curve interpolates between neighbours only): the numbers the figures and the search read there
         double[] points = bracket(path.sharedWavelengths(), nm);
+        // each part cut to its stored points around the two: rescaling and resampling work point by point and
+        // between neighbours, so the numbers there are the same, and the work does not grow with the curve
+        path = around(path, points[0], points[1]);
         List<Layer> layers = path.layers();
         RefractiveIndex[] indexes = new RefractiveIndex[layers.size()];
         Curve[] onPoints = new Curve[layers.size()];
@@ -130,6 +134,47 @@ public final class AngleSweep {
         int hit = java.util.Arrays.binarySearch(shared, nm);
         int upper = hit >= 0 ? Math.max(1, hit) : -hit - 1;
         return new double[] {shared[upper - 1], shared[upper]};
+    }
+
+    /** The path with each part's curve cut to the stored points from the last at or below lo to the first at or above hi. */
+    private static LightPath around(LightPath path, double lo, double hi) {
+        List<Layer> cut = new ArrayList<>();
+        for (Layer layer : path.layers()) {
+            Curve part = cut(layer.measured(), lo, hi);
+            cut.add(layer instanceof Layer.Bulk b
+                    ? Layer.bulk(part, b.measuredThicknessMm(), b.targetThicknessMm(), b.index())
+                    : Layer.fixed(part, layer.index()));
+        }
+        return LightPath.of(cut);
+    }
+
+    private static Curve cut(Curve curve, double lo, double hi) {
+        double[] nm = curve.wavelengthsNm();
+        int hitLo = java.util.Arrays.binarySearch(nm, lo);
+        int from = hitLo >= 0 ? hitLo : Math.max(0, -hitLo - 2);
+        int hitHi = java.util.Arrays.binarySearch(nm, hi);
+        int to = hitHi >= 0 ? hitHi : Math.min(nm.length - 1, -hitHi - 1);
+        if (to == from) {
+            to = Math.min(nm.length - 1, from + 1);
+            from = to - 1;
+        }
+        int n = to - from + 1;
+        double[] wavelengths = new double[n];
+        double[] t = new double[n];
+        boolean[] below = new boolean[n];
+        double[] limits = new double[n];
+        double[] sigma = curve.hasUncertainty() ? new double[n] : null;
+        for (int i = 0; i < n; i++) {
+            wavelengths[i] = curve.wavelengthNm(from + i);
+            t[i] = curve.transmittance(from + i);
+            below[i] = curve.belowDetection(from + i);
+            limits[i] = curve.detectionLimit(from + i);
+            if (sigma != null) {
+                sigma[i] = curve.absorbanceUncertainty(from + i);
+            }
+        }
+        Curve part = Curve.of(wavelengths, t, below, limits);
+        return sigma == null ? part : part.withAbsorbanceUncertainty(sigma);
     }
 
     /** Values at the two points read at nm as {@link Curve#transmittanceAt} reads a curve (linear in absorbance). */

@@ -88,6 +88,32 @@ class AngleSweepTest {
         assertThat(sweep.unpolarised()[30]).isCloseTo(at30, within(1e-12));
     }
 
+    /** The sweep reads only the stored points around the wavelength: the same numbers as the whole path's curve. */
+    @Test
+    void aLongCurveGivesTheWholePathsNumbersAtTheWavelength() {
+        int n = 401;
+        double[] nm = new double[n];
+        double[] t = new double[n];
+        double[] sigma = new double[n];
+        for (int i = 0; i < n; i++) {
+            nm[i] = 250 + i * 0.75;
+            t[i] = 0.02 + 0.88 / (1 + Math.exp(-(nm[i] - 330) / 12)); // an absorption edge near 330 nm
+            sigma[i] = 0.002;
+        }
+        Curve sheet = Curve.of(nm, t, 0.0001).withAbsorbanceUncertainty(sigma);
+        Curve cover = Curve.of(new double[] {240, 333.3, 420, 600}, new double[] {0.8, 0.85, 0.9, 0.91}, 0.0001);
+        // an index that changes with wavelength, so each point's surfaces differ
+        LightPath path = LightPath.of(Layer.bulk(sheet, 3, 4.5, SellmeierIndex.PMMA), Layer.fixed(cover, GLASS));
+        for (double at : new double[] {300.2, 333.3, 365, 549.25}) {
+            AngleSweep.Result sweep = AngleSweep.at(path, at);
+            assertThat(sweep.unpolarised()[0]).isEqualTo(path.transmittance().transmittanceAt(at).getAsDouble());
+            assertThat(sweep.unpolarised()[40]).as(at + " nm at 40°").isCloseTo(
+                    path.transmittance(Illumination.atIncidence(40)).transmittanceAt(at).getAsDouble(), within(1e-12));
+            assertThat(sweep.references().get(2).transmittance()).as(at + " nm, Lambertian").isCloseTo(
+                    path.transmittance(Illumination.lambertian()).transmittanceAt(at).getAsDouble(), within(1e-12));
+        }
+    }
+
     @Test
     void transmittanceFallsTowardsGrazingAndPPeaksAtBrewstersAngle() {
         AngleSweep.Result sweep = AngleSweep.at(absorbingSheet(0.91), 400);
