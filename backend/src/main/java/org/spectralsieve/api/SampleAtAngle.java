@@ -63,6 +63,24 @@ final class SampleAtAngle {
     }
 
     /**
+     * The most wavelengths × parts a figure at an angle is computed over. {@code ObliquePath} keeps three tables of
+     * [wavelength][part][angle] with 48 angles for a spread source, about 1.2 kB per wavelength and part: about
+     * 60 MB here, an eighth of the 512 MB heap the service runs in. The demo curves have about a thousand points and
+     * a spectrometer's array gives a few thousand (common practice, no source).
+     */
+    static final int MAX_POINTS_AT_ANGLE = 50_000;
+
+    /** Refuses (naming {@code light}) a path too long to compute at an angle within {@link #MAX_POINTS_AT_ANGLE}. */
+    static void requireBounded(LightPath path) {
+        long cells = (long) path.sharedWavelengths().length * path.layers().size();
+        if (cells > MAX_POINTS_AT_ANGLE) {
+            throw new NotAtAngleException("light", "the light path has " + cells + " wavelength points (counted once"
+                    + " per part); light at an angle is computed over at most " + MAX_POINTS_AT_ANGLE
+                    + " (each point adds tables for every angle); figures at normal incidence are available");
+        }
+    }
+
+    /**
      * The sample as a bulk layer at the asked thickness (its measured curve read again when {@code sample} was
      * rescaled), followed by the part in front as a fixed layer when one is given.
      */

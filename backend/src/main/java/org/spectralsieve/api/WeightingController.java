@@ -8,6 +8,7 @@ import java.util.stream.Collectors;
 import org.spectralsieve.library.SampleCurve;
 import org.spectralsieve.library.SampleCurves;
 import org.spectralsieve.optics.Illumination;
+import org.spectralsieve.optics.LightPath;
 import org.spectralsieve.requirement.StackLayer;
 import org.spectralsieve.search.PartInFront;
 import org.spectralsieve.search.SearchService;
@@ -203,7 +204,9 @@ class WeightingController {
             // at an angle: the sample at its thickness (and the part in front) as one path under the light;
             // at normal incidence the curve above, today's numbers unchanged
             try {
-                seen = SampleAtAngle.path(curves, sample, part).transmittance(light);
+                LightPath path = SampleAtAngle.path(curves, sample, part);
+                SampleAtAngle.requireBounded(path);
+                seen = path.transmittance(light);
             } catch (CurveException e) {
                 if (part == null) {
                     throw e;
