@@ -10,7 +10,7 @@
 // are read too, and rewritten to the form above once the page has opened them.
 
 /** The weighted-figures choices kept in the address, by key (after the `fig.` prefix). */
-export const FIGURE_KEYS = ['sample', 'emitter', 'response', 'convention', 'behind', 'behindMm', 'solar'];
+export const FIGURE_KEYS = ['sample', 'emitter', 'response', 'convention', 'behind', 'behindMm', 'solar', 'light'];
 
 const FIGURE_PREFIX = 'fig.';
 const FACET_PREFIX = 'f.';

@@ -163,12 +163,21 @@ export function listResponses() {
 
 /**
  * A sample's weighted figures under one emitter × response, at `thicknessMm` when given (rescaled by the
- * server), else at the measured thickness.
+ * server), else at the measured thickness; `light` a statement of how the light arrives ("at 30° incidence",
+ * "over a 60° beam"), normal incidence when left out.
  */
-export function getFigures(sampleId, { thicknessMm, emitter, response, convention, solar, behind, behindMm } = {}) {
+export function getFigures(sampleId, { thicknessMm, emitter, response, convention, solar, behind, behindMm, light } = {}) {
   return getJson(`${BASE}/samples/${encodeURIComponent(sampleId)}/figures${query({
-    thicknessMm, emitter, response, convention, solar, behind, behindMm,
+    thicknessMm, emitter, response, convention, solar, behind, behindMm, light,
   })}`);
+}
+
+/**
+ * A sample's transmittance against the angle of incidence at `nm` (0° to 89°, unpolarised, s and p), with the
+ * effective transmittance under three spread sources and the Brewster angle (docs/oblique-incidence.md).
+ */
+export function getAngles(sampleId, { nm, thicknessMm } = {}) {
+  return getJson(`${BASE}/samples/${encodeURIComponent(sampleId)}/angles${query({ nm, thicknessMm })}`);
 }
 
 /** Imports a source (kind "emitters") or response ("responses") spectrum from a file; answers the stored spectrum. */

@@ -16,6 +16,7 @@ import { initCuration, renderMaterialRecord, renderRetiredSamples, sampleControl
 import { readAddress, writeAddress, onAddressChange } from './address.js';
 import { showChartValues } from './chart-values.js';
 import { initStates } from './states.js';
+import { initAngles } from './angles.js';
 
 const SAMPLE_COLOURS = ['#1d6a86', '#8a5a2b', '#4d7a37', '#7a3e6e', '#3d4f9a', '#9c4545', '#3c7f7a', '#6b6b2a'];
 const RESCALED_COLOUR = '#c2700f';
@@ -117,6 +118,8 @@ const states = initStates({
 });
 const figures = initFigures({ showProblem, clearMessage, messageStartsWith, changed: () => rememberView() });
 const facets = initFacets(dom.facets, () => loadMaterials());
+// T against the angle of incidence at one wavelength, for the shown material (angles.js)
+const angles = initAngles({ showProblem });
 const similar = initSimilar({
   showProblem,
   clearMessage,
@@ -345,6 +348,7 @@ async function selectMaterial(id, rescaleTo = null) {
     clearRescaleProblem(); // a refusal belongs to the material it was asked for
     figures.showMaterial(material, rescaleTo?.sampleId); // a shortlist row's own sample (docs/result-rows.md)
     similar.showMaterial(material, rescaleTo?.sampleId);
+    angles.showMaterial(material);
     const prefilled = prefillRescale(material, rescaleTo);
     // curves (and the row's rescaled one) asked before the layout and the address below: the server works meanwhile
     const curvesShown = Promise.all([loadCurves(material, request), prefilled ? applyRescale() : null]); // docs/page-speed.md

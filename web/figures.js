@@ -13,6 +13,8 @@ const DEFAULT_EMITTER = 'led-365';
 // are a choice away.
 const DEFAULT_RESPONSE = 'flat';
 const MESSAGE_CONTEXT = 'Computing weighted figures';
+// The light choice whose phrase is typed in the text field beside it.
+const LIGHT_IN_WORDS = 'in-words';
 // Shown when an answer comes without its own caution: safety figures never appear without one.
 const FALLBACK_CAUTION = 'Screening estimate from stored curves, not a certification; applicable standards, '
   + 'local codes and qualified safety professionals decide.';
@@ -107,6 +109,9 @@ export function initFigures(ui) {
     solar: el('figure-solar'),
     behind: el('figure-behind'),
     behindMm: el('figure-behind-mm'),
+    light: el('figure-light'),
+    lightText: el('figure-light-text'),
+    lightTextField: el('figure-light-text-field'),
     emitterAbout: el('figure-emitter-about'),
     responseAbout: el('figure-response-about'),
     caution: el('figures-caution'),
@@ -272,10 +277,13 @@ export function initFigures(ui) {
     const thickness = Number.isFinite(answer.thicknessMm) ? `${fmt.number(answer.thicknessMm)} mm` : 'the sample';
     const how = (answer.rescaled ? ` (rescaled from the ${sampleThickness(choice)} sample)` : '')
       + (answer.layer ? `; ${answer.layer}` : '');
+    // the light is named every time, normal incidence included: every figure assumes one
+    const light = answer.light?.description ? `; light: ${answer.light.description}` : '';
     dom.status.textContent = figures.length
       ? `${figures.length} figure${figures.length === 1 ? '' : 's'} for ${thickness}${how}, ${answer.emitter || dom.emitter.value} × `
-        + `${answer.response || dom.response.value}.`
+        + `${answer.response || dom.response.value}${light}.`
       : 'The server sent no figures for this sample.';
+    dom.section.dataset.light = answer.light?.kind || '';
   }
 
   function sampleThickness(choice) {
@@ -325,6 +333,27 @@ export function initFigures(ui) {
     if (state.partSent !== JSON.stringify(partInFront())) refresh();
   }
 
+  // ---------- how the light arrives ----------
+
+  /**
+   * The light as the API takes it: the chosen phrase, or the one typed when "described in words" is chosen
+   * (the server reads it; empty means normal incidence).
+   */
+  function lightPhrase() {
+    if (dom.light.value !== LIGHT_IN_WORDS) return dom.light.value || undefined;
+    return dom.lightText.value.trim() || undefined;
+  }
+
+  function lightChanged() {
+    const inWords = dom.light.value === LIGHT_IN_WORDS;
+    dom.lightTextField.hidden = !inWords;
+    if (inWords && !dom.lightText.value.trim()) {
+      dom.lightText.focus();
+      return; // nothing to send until a phrase is typed
+    }
+    refresh();
+  }
+
   // ---------- fetching: later answers win ----------
 
   async function refresh() {
@@ -350,6 +379,7 @@ export function initFigures(ui) {
         // a part in front of the sample: both fields or neither (the server says which one is missing)
         behind: part.name,
         behindMm: part.mm,
+        light: lightPhrase(),
       });
       if (request !== state.request) return;
       state.partSent = JSON.stringify(part);
@@ -359,7 +389,7 @@ export function initFigures(ui) {
       if (request !== state.request) return;
       showNothing(`No figures: ${problem.detail || problem.title || 'the server did not answer'}`, 'error');
       // a refused choice is told once, in the section's status line beside the pickers
-      if (problem.status !== 400) ui.showProblem(problem, MESSAGE_CONTEXT);
+      if (problem.status !== 400 && problem.status !== 422) ui.showProblem(problem, MESSAGE_CONTEXT);
       else if (ui.messageStartsWith(MESSAGE_CONTEXT)) ui.clearMessage();
     } finally {
       if (request === state.request) dom.table.removeAttribute('aria-busy');
@@ -406,13 +436,17 @@ export function initFigures(ui) {
   for (const select of [dom.sample, dom.emitter, dom.response, dom.convention, dom.solar]) {
     select.addEventListener('change', refresh);
   }
+  dom.light.addEventListener('change', lightChanged);
+  // a typed phrase is sent when the field is left or Enter is pressed, not on each key
+  dom.lightText.addEventListener('change', refresh);
   // The part and its thickness are one choice: judged when the user leaves the pair (change fires on
   // leaving a field), not on each key, so typing the part first never flashes a missing thickness.
   for (const field of [dom.behind, dom.behindMm]) {
     field.addEventListener('change', () => setTimeout(partChanged, 0));
   }
   // the address keeps the choices (address.js); listened to apart from the refresh above
-  for (const control of [dom.sample, dom.emitter, dom.response, dom.convention, dom.solar, dom.behind, dom.behindMm]) {
+  for (const control of [dom.sample, dom.emitter, dom.response, dom.convention, dom.solar, dom.behind, dom.behindMm,
+    dom.light, dom.lightText]) {
     control.addEventListener('change', () => ui.changed?.());
   }
   const catalogues = loadCatalogues();
@@ -422,10 +456,11 @@ export function initFigures(ui) {
   });
 
   return {
-    /** The choices as the address keeps them: { sample, emitter, … } (empty ones left out). */
+    /** The choices as the address keeps them: { sample, emitter, …, light } (empty ones left out). */
     choices() {
-      return Object.fromEntries(Object.entries(addressControls())
-        .map(([key, control]) => [key, control.value.trim()]).filter(([, value]) => value !== ''));
+      return Object.fromEntries([...Object.entries(addressControls())
+        .map(([key, control]) => [key, control.value.trim()]), ['light', lightPhrase() || '']]
+        .filter(([, value]) => value !== ''));
     },
 
     /** Restores choices read from an address; a value the picker does not offer is ignored. */
@@ -436,6 +471,12 @@ export function initFigures(ui) {
         if (control.tagName !== 'SELECT') control.value = value;
         else if (value && [...control.options].some((o) => o.value === value)) control.value = value;
       }
+      // the light: one of the offered phrases, else typed in words
+      const light = values?.light ?? '';
+      const offered = [...dom.light.options].some((o) => o.value === light && o.value !== LIGHT_IN_WORDS);
+      dom.light.value = offered ? light : LIGHT_IN_WORDS;
+      dom.lightText.value = offered ? '' : light;
+      dom.lightTextField.hidden = offered;
       await refresh();
     },
 

@@ -50,6 +50,7 @@ export function initSearch(ui) {
     results: el('search-results'),
     caution: el('search-caution'),
     summary: el('search-summary'),
+    light: el('search-light'),
     table: el('results-table'),
     rows: el('results-table').tBodies[0],
   };
@@ -256,6 +257,7 @@ export function initSearch(ui) {
     dom.table.hidden = true;
     dom.caution.hidden = true;
     dom.summary.textContent = 'No results: the search did not run.';
+    dom.light.hidden = true;
     // the compare section offers the shortlist's rows: an empty answer takes the earlier ones away there too
     dom.results.dispatchEvent(new CustomEvent('shortlist', { detail: { results: [], requirement: null } }));
   }
@@ -286,6 +288,9 @@ export function initSearch(ui) {
       + ` · ${n === 1 ? '1 result' : `${n} results`} for “${requirement.text}”`
       + (answer.layer ? ` · ${answer.layer.explanation}` : '')
       + (answer.words ? ` · ${wordsSummary(answer.words)}` : '');
+    // every figure of the answer assumes a light; named every time, normal incidence included
+    dom.light.textContent = answer.assumedLight ? `Light: ${answer.assumedLight}` : '';
+    dom.light.hidden = !answer.assumedLight;
     // the rows come grouped (meets, unverified, misses, not judged); each group under the server's heading,
     // the same words the command line prints, so a row with nothing judged never reads as a candidate
     const headings = new Map((answer.groups || []).map((g) => [g.group, g.heading]));

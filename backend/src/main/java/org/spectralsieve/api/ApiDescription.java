@@ -58,6 +58,7 @@ class ApiDescription {
         types.put("404", List.of("not-found"));
         types.put("409", List.of("retired", "stored-record-unusable", "library-not-empty"));
         types.put("413", List.of("import-limit", "request-too-large"));
+        types.put("422", List.of("not-at-angle"));
         types.put("429", List.of("imports-busy"));
         types.put("500", List.of("internal"));
         return types;
@@ -119,6 +120,13 @@ class ApiDescription {
             problem(responses, "413", "Body or upload larger than the configured limit (the problem names the setting)",
                     "import-limit", "Upload too large", "the upload is larger than the 20971520 bytes allowed"
                             + " (sieve.imports.max-file-bytes)");
+        }
+        // light at an angle asked of a coated, laminated, diffuse or scattering sample (NotAtAngleException)
+        if (path.matches("/api/samples/\\{[^}]+}/(figures|angles)")) {
+            problem(responses, "422", "The sample has no figure at an angle (coated or laminated, diffuse or"
+                    + " scattering); says why and names the parameter that asked for the angle", "not-at-angle",
+                    "Not computed at an angle", "coated/laminated part: a coating's spectrum shifts with angle, which"
+                            + " its normal-incidence curve cannot show; not computed for collimated light at 45° incidence");
         }
         // a state curve's import takes a turn from the same gate (RequestBudgetFilter)
         if (path.startsWith("/api/imports") || path.matches("/api/samples/\\{[^}]+}/states")) {

@@ -115,6 +115,14 @@ class ApiProblems extends ResponseEntityExceptionHandler {
         return problem;
     }
 
+    /** Light at an angle asked of a sample whose normal-incidence curve cannot say how it behaves there. */
+    @ExceptionHandler(NotAtAngleException.class)
+    ProblemDetail notAtAngle(NotAtAngleException e) {
+        ProblemDetail problem = problem(HttpStatus.valueOf(422), "Not computed at an angle", e.getMessage(), "not-at-angle");
+        problem.setProperty("parameter", e.parameter());
+        return problem;
+    }
+
     @ExceptionHandler(NotRescalableException.class)
     ProblemDetail notRescalable(NotRescalableException e) {
         ProblemDetail problem = problem(HttpStatus.BAD_REQUEST, "Sample cannot be rescaled", e.getMessage(), "not-rescalable");

@@ -7,10 +7,13 @@ import java.util.Map;
 import java.util.stream.Collectors;
 import org.spectralsieve.library.SampleCurve;
 import org.spectralsieve.library.SampleCurves;
+import org.spectralsieve.optics.Illumination;
+import org.spectralsieve.optics.LightPath;
 import org.spectralsieve.requirement.StackLayer;
 import org.spectralsieve.search.PartInFront;
 import org.spectralsieve.search.SearchService;
 import org.spectralsieve.spectrum.Curve;
+import org.spectralsieve.spectrum.CurveException;
 import org.spectralsieve.weighting.Emitter;
 import org.spectralsieve.weighting.EmitterCatalogue;
 import org.spectralsieve.weighting.Figure;
@@ -128,13 +131,17 @@ class WeightingController {
         }
     }
 
-    /** {@code sampleRevision}, {@code materialRevision}: the revisions the figures were computed with (docs/undo.md). */
+    /**
+     * {@code sampleRevision}, {@code materialRevision}: the revisions the figures were computed with (docs/undo.md).
+     * {@code light}: how the light met the sample (the {@code light} parameter; normal incidence unless asked),
+     * named in every answer, as the requirement JSON names it.
+     */
     record FiguresJson(long sampleId, int sampleRevision, int materialRevision, double thicknessMm, boolean rescaled, String emitter, String response,
             String solar, FigureJson effectiveTransmittance, FigureJson protectionFactor,
             FigureJson erythemalProtectionFactor, FigureJson actinicUvProtectionFactor, FigureJson upf,
             String bandConvention, List<FigureJson> bandMeans, FigureJson criticalWavelength,
             List<FigureJson> opticalDensities, FigureJson luminousTransmittance,
-            SunglassCategoryJson sunglassCategory, String layer, String caution) {
+            SunglassCategoryJson sunglassCategory, String layer, Map<String, Object> light, String caution) {
     }
 
     @GetMapping("/api/emitters")
@@ -155,7 +162,9 @@ class WeightingController {
                         @RequestParam(name = "convention", required = false, defaultValue = "cie") String conventionName,
                         @RequestParam(name = "solar", required = false) String solarName,
                         @RequestParam(name = "behind", required = false) String behind,
-                        @RequestParam(name = "behindMm", required = false) Double behindMm) {
+                        @RequestParam(name = "behindMm", required = false) Double behindMm,
+                        @RequestParam(name = "light", required = false) String lightText) {
+        Illumination light = SampleAtAngle.light(lightText);
         if (thicknessMm != null && !(thicknessMm > 0 && thicknessMm <= SampleCurves.MAX_THICKNESS_MM)) {
             throw new BadParameterException("thicknessMm", "must be above 0 and at most "
                     + SampleCurves.MAX_THICKNESS_MM + " mm, got " + thicknessMm);
@@ -174,15 +183,36 @@ class WeightingController {
                 new BadParameterException("solar", "unknown emitter '" + solarName + "' as reference solar spectrum;"
                         + " known: " + names(spectra.emitters().stream().map(Emitter::name).toList())));
         SampleCurve sample = curves.get(id, thicknessMm, null);
+        if (!light.normal()) {
+            SampleAtAngle.requireAtAngle(sample, "light", light.describe());
+        }
         Curve seen = sample.curve();
         String layerText = null;
+        StackLayer part = null;
         if (behind != null || behindMm != null) {
             try {
-                StackLayer part = PartInFront.resolve(search, behind, behindMm);
-                seen = PartInFront.through(sample, part);
+                part = PartInFront.resolve(search, behind, behindMm);
+                if (light.normal()) {
+                    seen = PartInFront.through(sample, part);
+                }
                 layerText = PartInFront.describe(part);
             } catch (PartInFront.Refused e) {
                 throw new BadParameterException(e.aboutThickness() ? "behindMm" : "behind", e.getMessage());
+            }
+        }
+        if (!light.normal()) {
+            // at an angle: the sample at its thickness (and the part in front) as one path under the light;
+            // at normal incidence the curve above, today's numbers unchanged
+            try {
+                LightPath path = SampleAtAngle.path(curves, sample, part);
+                SampleAtAngle.requireBounded(path);
+                seen = path.transmittance(light);
+            } catch (CurveException e) {
+                if (part == null) {
+                    throw e;
+                }
+                throw new BadParameterException("behind", "the sample and " + part.materialSlug()
+                        + " share no wavelength range: " + e.getMessage());
             }
         }
         FigureSheet sheet = FigureSheet.of(seen, emitter, response, convention, solar);
@@ -194,7 +224,7 @@ class WeightingController {
                 FigureJson.of(sheet.upf()), convention.description(), FigureJson.all(r.bandMeans()),
                 FigureJson.of(r.criticalWavelength()), FigureJson.all(r.opticalDensities()),
                 FigureJson.of(sheet.luminousTransmittance()), SunglassCategoryJson.of(sheet.sunglassCategory()),
-                layerText, CAUTION);
+                layerText, RequirementJson.light(light), CAUTION);
     }
 
     private static String names(List<String> names) {
