@@ -44,14 +44,11 @@ final class SampleAtAngle {
         if (rescaling.rescalable()) {
             return null;
         }
-        if (rescaling.reason() == null) {
-            return "coated/laminated part: a coating's spectrum shifts with angle, which its normal-incidence curve"
-                    + " cannot show";
-        }
-        if (rescaling.reason().startsWith(SampleRescaling.NOT_COMPUTABLE)) {
+        if (rescaling.reason() != null && rescaling.reason().startsWith(SampleRescaling.NOT_COMPUTABLE)) {
             return rescaling.reason();
         }
-        return rescaling.reason() + ": scattered light does not follow the slant path's Beer–Lambert law";
+        // the search rows' own wording (SampleEvaluator), so a row and a figure give the same reason
+        return org.spectralsieve.requirement.SampleEvaluator.whyNotAtAngle(rescaling.reason());
     }
 
     /** Refuses a sample {@link #whyNot} names, naming {@code parameter} (what asked for the angle). */
@@ -63,10 +60,10 @@ final class SampleAtAngle {
     }
 
     /**
-     * The most wavelengths × parts a figure at an angle is computed over. {@code ObliquePath} keeps three tables of
-     * [wavelength][part][angle] with 48 angles for a spread source, about 1.2 kB per wavelength and part: about
-     * 60 MB here, an eighth of the 512 MB heap the service runs in. The demo curves have about a thousand points and
-     * a spectrometer's array gives a few thousand (common practice, no source).
+     * The most wavelengths × parts a figure at an angle is computed over: the angle work grows with the points (about
+     * 43 ns per point and angle, 48 angles under a spread source, docs/benchmarks.md), so a few hundred milliseconds at
+     * most; {@code ObliquePath} keeps its angle tables only for curves of up to 4,096 points. The demo curves have
+     * about a thousand points and a spectrometer's array gives a few thousand (common practice, no source).
      */
     static final int MAX_POINTS_AT_ANGLE = 50_000;
 

@@ -198,7 +198,7 @@ public final class AngleSweep {
             double internal = reading.internal() == 0 ? 0 : Math.pow(reading.internal(), 1 / surface.cosRefracted());
             double[] fresnel = {surface.rs(), surface.rp()};
             for (int pol = 0; pol < 2; pol++) {
-                double r = Math.min(fresnel[pol] + excess, Math.nextDown(1.0));
+                double r = Math.min(Math.max(fresnel[pol] + excess, 0), Math.nextDown(1.0));
                 double k2 = internal * internal;
                 double denominatorSlab = 1 - r * r * k2;
                 double te = (1 - r) * (1 - r) * internal / denominatorSlab;

@@ -28,8 +28,17 @@ import org.spectralsieve.spectrum.PointReadings;
  *       factor, so the figure errs wide).</li>
  * </ul>
  * Normal incidence never comes here: {@link LightPath#transmittance(Illumination)} keeps today's arithmetic for it.
+ * Each point's angle tables are formed when the point is first read ({@link #KEPT_TABLES_UP_TO}). Not shared between
+ * threads.
  */
 public final class ObliquePath {
+
+    /**
+     * Curves of up to this many points keep each point's angle tables once formed (a solve reads the same points at
+     * dozens of thicknesses): about 1.2 kB per point and part under a spread source, so at most about 5 MB per part.
+     * A longer curve forms them anew at each read and keeps none, so memory stays bounded whatever the curve.
+     */
+    static final int KEPT_TABLES_UP_TO = 4096;
 
     /** Angles the reported integral uses (Gauss–Legendre nodes in cos θ); one for a collimated beam. */
     public static final int ANGLES = 2 * BeamSpread.NODES;
@@ -162,7 +171,19 @@ public final class ObliquePath {
         for (int j = 0; j < parts; j++) {
             read(onPoints[j].transmittance(i), normalR[i][j], excess, lnK, j);
         }
-        return Math.min(averaged(i, excess, lnK, -1, 0, 0), 1.0);
+        double t = Math.min(averaged(i, excess, lnK, -1, 0, 0), 1.0);
+        release(i);
+        return t;
+    }
+
+    /** Drops point i's tables on a curve too long to keep them ({@link #KEPT_TABLES_UP_TO}). */
+    private void release(int i) {
+        if (nm.length > KEPT_TABLES_UP_TO) {
+            rs[i] = null;
+            rp[i] = null;
+            slant[i] = null;
+            normalR[i] = null;
+        }
     }
 
     /** The path's detection limit at point i: the largest T with one part at a time at its own limit. */
@@ -180,6 +201,7 @@ public final class ObliquePath {
         for (int j = 0; j < parts; j++) {
             limit = Math.max(limit, averaged(i, excess, lnK, j, limitExcess[j], limitLnK[j]));
         }
+        release(i);
         return Math.min(limit, Math.nextDown(1.0));
     }
 
@@ -283,7 +305,9 @@ public final class ObliquePath {
         double rb = 0;
         for (int j = 0; j < parts; j++) {
             double extra = j == swapped ? swappedExcess : excess[j];
-            double r = Math.min(fresnel[j][k] + extra, Math.nextDown(1.0));
+            // a reading above the lossless ceiling (noise, a low index guess) has a negative excess: near Brewster's
+            // angle R_p + excess would fall below 0, which no surface reflects, so it is held at 0
+            double r = Math.min(Math.max(fresnel[j][k] + extra, 0), Math.nextDown(1.0));
             double kj = internal[j];
             double oneMinusR = 1 - r;
             double k2 = kj * kj;

@@ -164,11 +164,19 @@ public final class SampleEvaluator {
      * normal-incidence curve cannot show.
      */
     static String notAtAngle(Candidate candidate, org.spectralsieve.optics.Illumination light) {
-        String why = candidate.notRescaledReason() != null
-                ? candidate.notRescaledReason() + ": scattered light does not follow the slant path's Beer–Lambert law"
+        return whyNotAtAngle(candidate.notRescaledReason()) + "; not judged for " + light.describe();
+    }
+
+    /**
+     * The reason a part that is not bulk has no figure at an angle, for the search rows and the figures alike.
+     *
+     * @param notRescaledReason the diffuse or scattering sample's reason, or null for a coated or laminated part
+     */
+    public static String whyNotAtAngle(String notRescaledReason) {
+        return notRescaledReason != null
+                ? notRescaledReason + ": scattered light does not follow the slant path's Beer–Lambert law"
                 : "coated/laminated part: a coating's spectrum shifts with angle, which its normal-incidence curve"
                         + " cannot show";
-        return why + "; not judged for " + light.describe();
     }
 
     /** Why a non-bulk candidate stays at its measured thickness: a diffuse sample's reason, or a coated part. */

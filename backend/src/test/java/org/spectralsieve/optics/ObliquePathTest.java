@@ -160,4 +160,36 @@ class ObliquePathTest {
         assertThat(LightPath.of(part).transmittance().belowDetection(1)).isFalse();
         assertThat(LightPath.of(part).transmittance(Illumination.lambertian()).belowDetection(1)).isTrue();
     }
+
+    @Test
+    void aReadingAboveTheLosslessCeilingStaysAValidTransmittanceAtBrewstersAngle() {
+        // 0.95 is above a glass plate's ceiling of 0.923 (noise or a low index guess): its unplaced surface loss is
+        // negative, and at Brewster's angle R_p plus it would be below 0 without the floor
+        Curve bright = flat(0.95);
+        double brewster = Math.toDegrees(ObliqueIncidence.brewsterRad(1.5));
+        Curve seen = LightPath.of(Layer.fixed(bright, GLASS)).transmittance(Illumination.atIncidence(brewster));
+        double excess = (1 - 0.95) / (1 + 0.95) - 0.04; // R' − R of the clear reading (SlabReading), negative here
+        double sOnly = Slab.transmittance(1, rs(1.5, Math.toRadians(brewster)) + excess);
+        double pHeldAtZero = Slab.transmittance(1, 0);
+        assertThat(seen.transmittance(1)).isCloseTo((sOnly + pHeldAtZero) / 2, within(1e-9)).isLessThan(0.95);
+    }
+
+    @Test
+    void aLongCurveGivesTheSameNumbersWithoutKeepingItsAngleTables() {
+        int n = ObliquePath.KEPT_TABLES_UP_TO + 1;
+        double[] nm = new double[n];
+        double[] t = new double[n];
+        for (int i = 0; i < n; i++) {
+            nm[i] = 250 + i * 0.1;
+            t[i] = 0.2 + 0.6 * i / n;
+        }
+        Curve longCurve = Curve.of(nm, t, 1e-4);
+        Curve shortCurve = Curve.of(java.util.Arrays.copyOfRange(nm, 0, 100), java.util.Arrays.copyOfRange(t, 0, 100), 1e-4);
+        Curve longSeen = LightPath.of(Layer.fixed(longCurve, GLASS)).transmittance(Illumination.lambertian());
+        Curve shortSeen = LightPath.of(Layer.fixed(shortCurve, GLASS)).transmittance(Illumination.lambertian());
+        for (int i = 1; i < 99; i++) {
+            assertThat(longSeen.transmittance(i)).isEqualTo(shortSeen.transmittance(i));
+            assertThat(longSeen.detectionLimit(i)).isEqualTo(shortSeen.detectionLimit(i));
+        }
+    }
 }
