@@ -96,6 +96,8 @@ export function initSearch(ui) {
       return;
     }
     const items = [...requirement.clauses.map(clauseSummary), fmt.thicknessSummary(requirement.thickness)];
+    // light at an angle changes every figure: shown beside the thickness (normal incidence stays on the light line)
+    if (requirement.light && requirement.light.kind !== 'normal') items.push(`light: ${requirement.light.description}`);
     // words written before the clauses narrow the library first (docs/library-search.md)
     if (words?.text) items.push(`words: “${words.text}”${wordsAdmitted(words)}`);
     for (const p of words?.provenance || []) items.push(`provenance: ${p}`);

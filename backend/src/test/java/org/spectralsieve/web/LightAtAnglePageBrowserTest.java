@@ -123,8 +123,12 @@ class LightAtAnglePageBrowserTest {
         WebElement light = driver.findElement(By.id("search-light"));
         assertThat(light.isDisplayed()).isTrue();
         assertThat(light.getText()).isEqualTo("Light: normal incidence (light square to the surface)");
+        assertThat(driver.findElement(By.id("requirement-clauses")).getText()).doesNotContain("light:");
         page.search("passes over 80% at 365 nm, at 30° incidence");
         wait.until(d -> light.getText().contains("30° incidence"));
+        // and the requirement as understood says it beside the thickness
+        assertThat(driver.findElement(By.id("requirement-clauses")).getText())
+                .contains("light: collimated light at 30° incidence");
     }
 
     private static String capitalised(String text) {
