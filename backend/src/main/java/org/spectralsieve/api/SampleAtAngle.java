@@ -21,7 +21,7 @@ import org.spectralsieve.requirement.StackLayer;
  * figure at an angle: a coating's spectrum shifts with angle in a way its normal-incidence curve cannot show, and
  * scatter does not follow the slant path's Beer–Lambert law.
  */
-final class SampleAtAngle {
+public final class SampleAtAngle {
 
     private SampleAtAngle() {
     }
@@ -39,7 +39,7 @@ final class SampleAtAngle {
      * Why the sample has no figure at an angle, or null when it has one. The same wording as the search's rows
      * ({@code SampleEvaluator.notAtAngle}), so the page and the shortlist say the same thing.
      */
-    static String whyNot(SampleCurve sample) {
+    public static String whyNot(SampleCurve sample) {
         SampleRescaling rescaling = SampleRescaling.of(sample.material(), sample.sample());
         if (rescaling.rescalable()) {
             return null;
@@ -65,7 +65,7 @@ final class SampleAtAngle {
      * most; {@code ObliquePath} keeps its angle tables only for curves of up to 4,096 points. The demo curves have
      * about a thousand points and a spectrometer's array gives a few thousand (common practice, no source).
      */
-    static final int MAX_POINTS_AT_ANGLE = 50_000;
+    public static final int MAX_POINTS_AT_ANGLE = 50_000;
 
     /** Refuses (naming {@code light}) a path too long to compute at an angle within {@link #MAX_POINTS_AT_ANGLE}. */
     static void requireBounded(LightPath path) {
@@ -81,7 +81,7 @@ final class SampleAtAngle {
      * The sample as a bulk layer at the asked thickness (its measured curve read again when {@code sample} was
      * rescaled), followed by the part in front as a fixed layer when one is given.
      */
-    static LightPath path(SampleCurves curves, SampleCurve sample, StackLayer part) {
+    public static LightPath path(SampleCurves curves, SampleCurve sample, StackLayer part) {
         SampleCurve measured = sample.rescaled() ? curves.get(sample.sample().id(), null, null) : sample;
         RefractiveIndex index = sample.material().refractiveIndex() == null ? ConstantIndex.WHEN_UNRECORDED
                 : sample.material().refractiveIndex();

@@ -12,6 +12,12 @@ import org.spectralsieve.library.NotRescalableException;
 import org.spectralsieve.library.SampleCurve;
 import org.spectralsieve.library.SampleCurves;
 import org.spectralsieve.requirement.StackLayer;
+import org.spectralsieve.api.SampleAtAngle;
+import org.spectralsieve.optics.Illumination;
+import org.spectralsieve.optics.LightPath;
+import org.spectralsieve.requirement.RequirementParser;
+import org.spectralsieve.requirement.RequirementSyntaxException;
+import org.spectralsieve.requirement.RequirementTooLargeException;
 import org.spectralsieve.search.PartInFront;
 import org.spectralsieve.spectrum.Curve;
 import org.spectralsieve.spectrum.Cutoffs;
@@ -72,6 +78,13 @@ final class FiguresCommand implements Callable<Integer> {
     @Option(names = "--behind-mm", paramLabel = "MM", description = "Thickness of the --behind part.")
     Double behindMm;
 
+    @Option(names = "--light", paramLabel = "WORDS", description = "How the light arrives, in the requirement's words:"
+            + " 'at 30° incidence', 'over a 60° beam', 'under an LED with 120° beam angle', 'under a Lambertian source'"
+            + " (default: normal incidence).")
+    String lightText;
+
+    private Illumination light = Illumination.NORMAL;
+
     @Option(names = "--solar", paramLabel = "NAME", description = "Emitter to use as the reference solar spectrum for the UPF.")
     String solarName;
 
@@ -88,6 +101,11 @@ final class FiguresCommand implements Callable<Integer> {
                 new ParameterException(spec.commandLine(), "--bands: unknown convention '" + conventionName
                         + "'; known: " + String.join(", ", Arrays.stream(UvBand.Convention.values())
                                 .map(UvBand.Convention::key).toList())));
+        try {
+            light = RequirementParser.parseLight(lightText);
+        } catch (RequirementSyntaxException | RequirementTooLargeException e) {
+            throw new ParameterException(spec.commandLine(), "--light: " + e.getMessage());
+        }
         SampleCurve sample;
         FigureSheet sheet;
         try (LibraryServices library = LibraryContext.open(database.url)) {
@@ -99,15 +117,29 @@ final class FiguresCommand implements Callable<Integer> {
             Emitter solar = solarName == null ? null : emitter(spectra, "--solar", solarName);
             sample = library.sampleCurves().get(sampleId, thicknessMm, null);
             Curve seen = sample.curve();
+            StackLayer part = null;
             if (behind != null || behindMm != null) {
                 try {
-                    StackLayer part = PartInFront.resolve(library.search(), behind, behindMm);
+                    part = PartInFront.resolve(library.search(), behind, behindMm);
                     seen = PartInFront.through(sample, part);
                     stackText = PartInFront.describe(part);
                 } catch (PartInFront.Refused e) {
                     throw new ParameterException(spec.commandLine(), (e.aboutThickness() ? "--behind-mm: " : "--behind: ")
                             + e.getMessage());
                 }
+            }
+            if (!light.normal()) {
+                // the figures endpoint's rule and path (docs/oblique-incidence.md): coated and scattering parts refused
+                String why = SampleAtAngle.whyNot(sample);
+                if (why != null) {
+                    throw new CliFailure(SieveCli.FAILED, why + "; not computed for " + light.describe());
+                }
+                LightPath path = SampleAtAngle.path(library.sampleCurves(), sample, part);
+                if ((long) path.sharedWavelengths().length * path.layers().size() > SampleAtAngle.MAX_POINTS_AT_ANGLE) {
+                    throw new CliFailure(SieveCli.FAILED, "the light path has more than " + SampleAtAngle.MAX_POINTS_AT_ANGLE
+                            + " wavelength points; light at an angle is not computed for it");
+                }
+                seen = path.transmittance(light);
             }
             sheet = FigureSheet.of(seen, emitter, response, convention, solar);
             seenCurve = seen;
@@ -133,6 +165,8 @@ final class FiguresCommand implements Callable<Integer> {
         if (stackText != null) {
             out.println(stackText);
         }
+        // every figure names the light it assumed, normal incidence included
+        out.println("Light: " + light.describe() + (light.integration().isEmpty() ? "" : "; " + light.integration()));
         TextTable table = new TextTable(List.of("figure", ">value", "how"));
         for (Figure f : sheet.figures()) {
             table.add(List.of(f.name(), value(f), f.note()));

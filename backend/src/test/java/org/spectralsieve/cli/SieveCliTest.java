@@ -264,6 +264,39 @@ class SieveCliTest {
     }
 
     @Test
+    void figuresUnderAnLedMatchTheApiAndNameTheLight() throws Exception {
+        long sampleId = JSON.readTree(cli("search", FUSED_SILICA_AT_254, "--limit", "1", "--json").out())
+                .path("results").get(0).path("sampleId").asLong();
+
+        CliRun run = cli("figures", "--sample", String.valueOf(sampleId), "--emitter", "led-365", "--response", "flat",
+                "--light", "under an LED with 120° beam angle");
+
+        assertThat(run.exitCode()).as(run.err()).isZero();
+        JsonNode api = get("/api/samples/" + sampleId + "/figures?emitter=led-365&response=flat&light="
+                + java.net.URLEncoder.encode("under an LED with 120° beam angle", java.nio.charset.StandardCharsets.UTF_8));
+        String expected = String.format(java.util.Locale.ROOT, "%.3g %%",
+                100 * api.path("effectiveTransmittance").path("value").asDouble());
+        assertThat(run.outLines()).anySatisfy(line -> assertThat(line).startsWith("effectiveTransmittance").contains(expected));
+        assertThat(run.out()).contains("Light: an LED with 120° beam angle").contains("48 angles");
+        assertThat(cli("figures", "--sample", String.valueOf(sampleId)).out()).contains("Light: normal incidence");
+
+        CliRun bad = cli("figures", "--sample", String.valueOf(sampleId), "--light", "sideways");
+        assertThat(bad.exitCode()).isEqualTo(SieveCli.USAGE);
+        assertThat(bad.err()).contains("--light").contains("at 30° incidence");
+    }
+
+    @Test
+    void figuresAtAnAngleRefuseAScatteringSampleAndSayWhy() throws Exception {
+        long sampleId = JSON.readTree(cli("search", "passes over 20% at 254 nm, geometry total", "--limit", "1", "--json")
+                .out()).path("results").get(0).path("sampleId").asLong();
+
+        CliRun run = cli("figures", "--sample", String.valueOf(sampleId), "--light", "at 30° incidence");
+
+        assertThat(run.exitCode()).isEqualTo(SieveCli.FAILED);
+        assertThat(run.err()).contains("scattered light does not follow").contains("30° incidence");
+    }
+
+    @Test
     void figuresWithAnUnknownResponseExitTwoListingTheKnownOnes() {
         CliRun run = cli("figures", "--sample", "1", "--response", "erythemma");
 
