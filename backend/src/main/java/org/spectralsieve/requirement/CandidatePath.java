@@ -117,8 +117,9 @@ final class CandidatePath {
 
     private ObliquePath prepared() {
         if (prepared == null) {
+            // the tables depend on the wavelengths and the indices alone: the measured part stands for every thickness
             RefractiveIndex index = candidate.index() != null ? candidate.index() : DEFAULT_INDEX;
-            Layer part = Layer.bulk(candidate.measured(), candidate.thicknessMm(), candidate.thicknessMm(), index);
+            Layer part = Layer.fixed(candidate.measured(), index);
             prepared = (layer.isPresent() ? LightPath.of(part, layer.get().asLayer()) : LightPath.of(part)).prepare(light);
         }
         return prepared;

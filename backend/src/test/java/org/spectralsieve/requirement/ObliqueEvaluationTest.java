@@ -73,6 +73,15 @@ class ObliqueEvaluationTest {
     }
 
     @Test
+    void aSheetWithoutARecordedThicknessIsStillJudgedAsMeasuredAtAnAngle() {
+        Candidate unknown = new Candidate(5, 50, "illustrative sheet, thickness not recorded", SHEET, Double.NaN, true,
+                new ConstantIndex(N));
+        SampleEvaluation e = SampleEvaluator.evaluate(unknown, RequirementParser.parse("passes over 20% at 400 nm, at 30° incidence"));
+        assertThat(e.verdict()).isEqualTo(Verdict.MEETS);
+        assertThat(e.clauses().get(0).value()).isCloseTo(expected(0.5, 2, 2, 30), within(1e-12));
+    }
+
+    @Test
     void aCoatedPartIsNotJudgedAtAnAngle() {
         Candidate coated = new Candidate(2, 20, "illustrative coated window", SHEET, 2, false, new ConstantIndex(N));
         SampleEvaluation e = SampleEvaluator.evaluate(coated, RequirementParser.parse("passes over 20% at 400 nm, at 30° incidence"));
