@@ -49,6 +49,11 @@ class ObliquePathTest {
         for (int i = 0; i < NM.length; i++) {
             assertThat(at45.transmittance(i)).isCloseTo(expected, within(1e-12)).isCloseTo(0.9073, within(1e-4));
         }
+        // the tabulated lossless n = 1.5 slab (Fresnel per Born & Wolf §1.5.2 and Hecht §4.6, incoherent slab per
+        // polarisation): 0.907344 at 45° and 0.848128 at 60°, to the table's six digits
+        assertThat(at45.transmittance(1)).isCloseTo(0.907344, within(1e-6));
+        Curve at60 = LightPath.of(Layer.fixed(flat(lossless), GLASS)).transmittance(Illumination.atIncidence(60));
+        assertThat(at60.transmittance(1)).isCloseTo(0.848128, within(1e-6));
     }
 
     @Test
