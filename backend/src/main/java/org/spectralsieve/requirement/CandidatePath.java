@@ -97,22 +97,13 @@ final class CandidatePath {
      * the longest slant for the bounds; kept for the recent thicknesses like the normal-incidence points.
      */
     private PointReadings obliquePointsAt(double d) {
-        if (!byThickness.isEmpty()) {
-            Curve built = byThickness.get(d);
-            if (built != null) {
-                return built;
-            }
-        }
-        PointReadings hit = recentPoints.get(d);
-        if (hit == null) {
+        return recentPointsAt(d, () -> {
             ObliquePath oblique = prepared();
             double slant = oblique.longestSlant();
             PointReadings part = sweep().rescaledPoints(d);
             PointReadings along = slant > 1 ? sweep().rescaledPoints(d * slant) : null;
-            hit = oblique.points(new PointReadings[] {part}, new PointReadings[] {along});
-            recentPoints.put(d, hit);
-        }
-        return hit;
+            return oblique.points(new PointReadings[] {part}, new PointReadings[] {along});
+        });
     }
 
     private ObliquePath prepared() {
@@ -226,6 +217,11 @@ final class CandidatePath {
 
     /** {@link #pointsAt} without a boxed key: a built curve first (none while a solve searches), then the recent points. */
     private PointReadings recentPointsAt(double d) {
+        return recentPointsAt(d, () -> sweep().rescaledPoints(d));
+    }
+
+    /** A built curve at d first, then the recent points at d, else {@code form}'s points, kept as recent. */
+    private PointReadings recentPointsAt(double d, java.util.function.Supplier<PointReadings> form) {
         if (!byThickness.isEmpty()) {
             Curve built = byThickness.get(d);
             if (built != null) {
@@ -234,7 +230,7 @@ final class CandidatePath {
         }
         PointReadings hit = recentPoints.get(d);
         if (hit == null) {
-            hit = sweep().rescaledPoints(d);
+            hit = form.get();
             recentPoints.put(d, hit);
         }
         return hit;

@@ -18,18 +18,6 @@ class AngleSweepTest {
     private static final double[] NM = {300, 350, 400, 450};
     private static final RefractiveIndex GLASS = new ConstantIndex(1.5);
 
-    private static double rsByAngles(double n, double theta) {
-        double t = Math.asin(Math.sin(theta) / n);
-        double a = Math.sin(theta - t) / Math.sin(theta + t);
-        return a * a;
-    }
-
-    private static double rpByAngles(double n, double theta) {
-        double t = Math.asin(Math.sin(theta) / n);
-        double a = Math.tan(theta - t) / Math.tan(theta + t);
-        return a * a;
-    }
-
     /** Smith eq. 10.5 with both faces reflecting r. */
     private static double slab(double k, double r) {
         return (1 - r) * (1 - r) * k / (1 - r * r * k * k);
@@ -50,8 +38,8 @@ class AngleSweepTest {
             double theta = Math.toRadians(deg);
             double cosT = Math.sqrt(1 - Math.pow(Math.sin(theta) / 1.5, 2));
             double inside = Math.pow(k, 1 / cosT);
-            double ts = deg == 0 ? slab(k, r) : slab(inside, rsByAngles(1.5, theta));
-            double tp = deg == 0 ? slab(k, r) : slab(inside, rpByAngles(1.5, theta));
+            double ts = deg == 0 ? slab(k, r) : slab(inside, FresnelByAngles.rs(1.5, theta));
+            double tp = deg == 0 ? slab(k, r) : slab(inside, FresnelByAngles.rp(1.5, theta));
             assertThat(sweep.anglesDeg()[deg]).isEqualTo(deg);
             assertThat(sweep.s()[deg]).as("s at " + deg + "°").isCloseTo(ts, within(1e-12));
             assertThat(sweep.p()[deg]).as("p at " + deg + "°").isCloseTo(tp, within(1e-12));

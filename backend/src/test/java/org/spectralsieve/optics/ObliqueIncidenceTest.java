@@ -13,25 +13,13 @@ import org.junit.jupiter.api.Test;
  */
 class ObliqueIncidenceTest {
 
-    private static double rsByAngles(double n, double theta) {
-        double t = Math.asin(Math.sin(theta) / n);
-        double a = Math.sin(theta - t) / Math.sin(theta + t);
-        return a * a;
-    }
-
-    private static double rpByAngles(double n, double theta) {
-        double t = Math.asin(Math.sin(theta) / n);
-        double a = Math.tan(theta - t) / Math.tan(theta + t);
-        return a * a;
-    }
-
     @Test
     void brewstersAngleForGlassOfIndexOnePointFiveIs56Point31DegreesWithNoPReflection() {
         // tan θB = n: 56.31° for n = 1.5 (Hecht, Optics, §4.6.3; the textbook value)
         double brewster = ObliqueIncidence.brewsterRad(1.5);
         assertThat(Math.toDegrees(brewster)).isCloseTo(56.31, within(0.005));
         assertThat(ObliqueIncidence.surface(1.5, brewster).rp()).isLessThan(1e-30);
-        assertThat(ObliqueIncidence.surface(1.5, brewster).rs()).isCloseTo(rsByAngles(1.5, brewster), within(1e-15));
+        assertThat(ObliqueIncidence.surface(1.5, brewster).rs()).isCloseTo(FresnelByAngles.rs(1.5, brewster), within(1e-15));
     }
 
     @Test
@@ -39,8 +27,8 @@ class ObliqueIncidenceTest {
         // Rs ≈ 0.092 and Rp ≈ 0.0085 for n = 1.5 at 45° (the figures, from the textbook curves); the exact
         // numbers from the sin/tan forms: 0.092013 and 0.008466
         ObliqueIncidence.Surface s = ObliqueIncidence.surface(1.5, Math.toRadians(45));
-        assertThat(s.rs()).isCloseTo(rsByAngles(1.5, Math.toRadians(45)), within(1e-15)).isCloseTo(0.092013, within(1e-6));
-        assertThat(s.rp()).isCloseTo(rpByAngles(1.5, Math.toRadians(45)), within(1e-15)).isCloseTo(0.008466, within(1e-6));
+        assertThat(s.rs()).isCloseTo(FresnelByAngles.rs(1.5, Math.toRadians(45)), within(1e-15)).isCloseTo(0.092013, within(1e-6));
+        assertThat(s.rp()).isCloseTo(FresnelByAngles.rp(1.5, Math.toRadians(45)), within(1e-15)).isCloseTo(0.008466, within(1e-6));
         assertThat(s.unpolarised()).isCloseTo((0.092013 + 0.008466) / 2, within(1e-6));
     }
 
@@ -50,8 +38,8 @@ class ObliqueIncidenceTest {
             for (int deg = 1; deg < 90; deg++) {
                 double theta = Math.toRadians(deg);
                 ObliqueIncidence.Surface s = ObliqueIncidence.surface(n, theta);
-                assertThat(s.rs()).as(n + " at " + deg + "°").isCloseTo(rsByAngles(n, theta), within(1e-12));
-                assertThat(s.rp()).as(n + " at " + deg + "°").isCloseTo(rpByAngles(n, theta), within(1e-12));
+                assertThat(s.rs()).as(n + " at " + deg + "°").isCloseTo(FresnelByAngles.rs(n, theta), within(1e-12));
+                assertThat(s.rp()).as(n + " at " + deg + "°").isCloseTo(FresnelByAngles.rp(n, theta), within(1e-12));
             }
         }
     }
@@ -76,8 +64,8 @@ class ObliqueIncidenceTest {
         double cosT = Math.sqrt(1 - 1.0 / 9);
         double k = Math.pow(0.5, 1 / cosT);
         assertThat(k).isCloseTo(0.479413, within(1e-6));
-        double rs = rsByAngles(1.5, theta);
-        double rp = rpByAngles(1.5, theta);
+        double rs = FresnelByAngles.rs(1.5, theta);
+        double rp = FresnelByAngles.rp(1.5, theta);
         double expected = (Slab.transmittance(k, rs) + Slab.transmittance(k, rp)) / 2;
         assertThat(ObliqueIncidence.slabTransmittance(0.5, 1.5, theta)).isCloseTo(expected, within(1e-14));
         assertThat(ObliqueIncidence.slabTransmittance(0.5, 1.5, theta))
@@ -98,8 +86,8 @@ class ObliqueIncidenceTest {
         for (int i = 0; i <= steps; i++) {
             double theta = Math.min(i * h, Math.PI / 2 - 1e-12);
             double w = (i == 0 || i == steps ? 0.5 : 1) * Math.cos(theta) * Math.sin(theta);
-            double rs = i == 0 ? Fresnel.reflectanceInAir(1.5) : rsByAngles(1.5, theta);
-            double rp = i == 0 ? Fresnel.reflectanceInAir(1.5) : rpByAngles(1.5, theta);
+            double rs = i == 0 ? Fresnel.reflectanceInAir(1.5) : FresnelByAngles.rs(1.5, theta);
+            double rp = i == 0 ? Fresnel.reflectanceInAir(1.5) : FresnelByAngles.rp(1.5, theta);
             double t = ((1 - rs) / (1 + rs) + (1 - rp) / (1 + rp)) / 2;
             num += w * t;
             den += w;

@@ -2,6 +2,9 @@ package org.spectralsieve.optics;
 
 import static org.assertj.core.api.Assertions.assertThat;
 import static org.assertj.core.api.Assertions.within;
+import static org.spectralsieve.optics.FresnelByAngles.cosRefracted;
+import static org.spectralsieve.optics.FresnelByAngles.rp;
+import static org.spectralsieve.optics.FresnelByAngles.rs;
 
 import org.junit.jupiter.api.Test;
 import org.spectralsieve.spectrum.Curve;
@@ -19,23 +22,6 @@ class ObliquePathTest {
 
     private static Curve flat(double t) {
         return Curve.of(NM, new double[] {t, t, t, t}, 1e-4);
-    }
-
-    private static double rs(double n, double theta) {
-        double t = Math.asin(Math.sin(theta) / n);
-        double a = Math.sin(theta - t) / Math.sin(theta + t);
-        return a * a;
-    }
-
-    private static double rp(double n, double theta) {
-        double t = Math.asin(Math.sin(theta) / n);
-        double a = Math.tan(theta - t) / Math.tan(theta + t);
-        return a * a;
-    }
-
-    private static double cosRefracted(double n, double theta) {
-        double s = Math.sin(theta) / n;
-        return Math.sqrt(1 - s * s);
     }
 
     @Test
