@@ -80,7 +80,7 @@ public class WordedSearch {
         Requirement masked = RequirementParser.parse(words.maskedText(), spectra, materialClasses);
         String clauses = words.maskedText().strip().replaceAll("\\s+", " ");
         return new Read(new Requirement(masked.clauses(), masked.thickness(), masked.materialClass(), masked.geometry(),
-                masked.layer(), clauses), words);
+                masked.layer(), clauses, masked.light()), words);
     }
 
     /** The requirement judged on the materials its words admit, or on the whole library when it has none. */

@@ -55,6 +55,28 @@ class WordedSearchApiTest {
     }
 
     @Test
+    void wordsKeepTheLightTheRequirementStates() throws Exception {
+        JsonNode worded = api.search("acrylic passes over 80% at 400 nm, under an LED with 120° beam angle", ALL);
+
+        assertThat(worded.path("assumedLight").asString()).contains("LED with 120° beam angle");
+        assertThat(worded.path("requirement").path("light").path("kind").asString()).isEqualTo("led");
+        // the admitted materials' rows are those the same requirement gives on the whole library, light and all
+        Set<Long> admitted = admitted("acrylic");
+        assertThat(rows(worded, null)).isEqualTo(rows(api.search("passes over 80% at 400 nm, under an LED with 120° beam"
+                + " angle", ALL), admitted));
+        assertThat(values(worded)).isNotEqualTo(values(api.search("acrylic passes over 80% at 400 nm", ALL)));
+    }
+
+    /** Each row's first clause value: the figures themselves, which the light changes. */
+    private static List<Double> values(JsonNode answer) {
+        List<Double> out = new ArrayList<>();
+        for (JsonNode row : answer.path("results")) {
+            out.add(row.path("clauses").get(0).path("value").asDouble());
+        }
+        return out;
+    }
+
+    @Test
     void aHalfTypedWordAdmitsWhatItBegins() throws Exception {
         JsonNode worded = api.search("acryl passes over 80% at 400 nm", ALL);
         Set<Long> admitted = admitted("acryl");
