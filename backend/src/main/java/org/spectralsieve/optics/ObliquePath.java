@@ -129,10 +129,6 @@ public final class ObliquePath {
         return new ObliquePath(nm, indexes.clone(), light, nodes[0], nodes[1]);
     }
 
-    public Illumination light() {
-        return light;
-    }
-
     public double[] wavelengthsNm() {
         return nm.clone();
     }

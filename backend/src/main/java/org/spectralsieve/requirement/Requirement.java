@@ -37,11 +37,6 @@ public record Requirement(List<Clause> clauses, ThicknessSpec thickness, Optiona
         this(clauses, thickness, materialClass, geometry, layer, text, Illumination.NORMAL);
     }
 
-    /** The same requirement for light arriving as {@code light} says. */
-    public Requirement withLight(Illumination light) {
-        return new Requirement(clauses, thickness, materialClass, geometry, layer, text, light);
-    }
-
     /** Whether the light is not square to the surface: then every figure is computed at its angles. */
     public boolean oblique() {
         return !light.normal();
