@@ -69,12 +69,18 @@ public final class SampleAtAngle {
 
     /** Refuses (naming {@code light}) a path too long to compute at an angle within {@link #MAX_POINTS_AT_ANGLE}. */
     static void requireBounded(LightPath path) {
-        long cells = (long) path.sharedWavelengths().length * path.layers().size();
-        if (cells > MAX_POINTS_AT_ANGLE) {
-            throw new NotAtAngleException("light", "the light path has " + cells + " wavelength points (counted once"
-                    + " per part); light at an angle is computed over at most " + MAX_POINTS_AT_ANGLE
-                    + " (each point adds tables for every angle); figures at normal incidence are available");
+        String why = tooLong(path);
+        if (why != null) {
+            throw new NotAtAngleException("light", why);
         }
+    }
+
+    /** Why the path is too long to compute at an angle ({@link #MAX_POINTS_AT_ANGLE}), or null when it is not. */
+    public static String tooLong(LightPath path) {
+        long cells = (long) path.sharedWavelengths().length * path.layers().size();
+        return cells <= MAX_POINTS_AT_ANGLE ? null : "the light path has " + cells + " wavelength points (counted once"
+                + " per part); light at an angle is computed over at most " + MAX_POINTS_AT_ANGLE
+                + " (each point adds tables for every angle); figures at normal incidence are available";
     }
 
     /**

@@ -135,9 +135,9 @@ final class FiguresCommand implements Callable<Integer> {
                     throw new CliFailure(SieveCli.FAILED, why + "; not computed for " + light.describe());
                 }
                 LightPath path = SampleAtAngle.path(library.sampleCurves(), sample, part);
-                if ((long) path.sharedWavelengths().length * path.layers().size() > SampleAtAngle.MAX_POINTS_AT_ANGLE) {
-                    throw new CliFailure(SieveCli.FAILED, "the light path has more than " + SampleAtAngle.MAX_POINTS_AT_ANGLE
-                            + " wavelength points; light at an angle is not computed for it");
+                String tooLong = SampleAtAngle.tooLong(path);
+                if (tooLong != null) {
+                    throw new CliFailure(SieveCli.FAILED, tooLong);
                 }
                 seen = path.transmittance(light);
             }

@@ -183,37 +183,24 @@ public final class AngleSweep {
     }
 
     /**
-     * {T_s, T_p} of the chained parts at angle θ, point {@code at} of each part's curve: the arithmetic of
-     * {@link ObliquePath}'s chain for one polarisation (its effective reflectance unclamped below, as there).
+     * {T_s, T_p} of the chained parts at angle θ, point {@code at} of each part's curve: each part read as
+     * {@link ObliquePath} reads it, chained by its arithmetic ({@link ObliquePath#surface}, {@link ObliquePath#chain}).
      */
     private static double[] polarised(Curve[] onPoints, RefractiveIndex[] indexes, int at, double nm, double theta) {
-        double[] t = {1, 1};
-        double[] rb = {0, 0};
-        for (int j = 0; j < onPoints.length; j++) {
+        int parts = onPoints.length;
+        double[] s = new double[parts];
+        double[] p = new double[parts];
+        double[] internal = new double[parts];
+        for (int j = 0; j < parts; j++) {
             double n = indexes[j].at(nm);
             double normalR = Fresnel.reflectanceInAir(n);
             SlabReading reading = SlabReading.of(onPoints[j].transmittance(at), normalR);
             double excess = reading.reflectance() - normalR; // surface loss the index does not explain (0 when resolved)
             ObliqueIncidence.Surface surface = ObliqueIncidence.surface(n, theta);
-            double internal = reading.internal() == 0 ? 0 : Math.pow(reading.internal(), 1 / surface.cosRefracted());
-            double[] fresnel = {surface.rs(), surface.rp()};
-            for (int pol = 0; pol < 2; pol++) {
-                double r = Math.min(Math.max(fresnel[pol] + excess, 0), Math.nextDown(1.0));
-                double k2 = internal * internal;
-                double denominatorSlab = 1 - r * r * k2;
-                double te = (1 - r) * (1 - r) * internal / denominatorSlab;
-                double re = r + (1 - r) * (1 - r) * r * k2 / denominatorSlab;
-                if (j == 0) {
-                    t[pol] = te;
-                    rb[pol] = re;
-                } else {
-                    double denominator = 1 - rb[pol] * re;
-                    double next = t[pol] * te / denominator;
-                    rb[pol] = re + te * te * rb[pol] / denominator;
-                    t[pol] = next;
-                }
-            }
+            internal[j] = reading.internal() == 0 ? 0 : Math.pow(reading.internal(), 1 / surface.cosRefracted());
+            s[j] = ObliquePath.surface(surface.rs(), excess);
+            p[j] = ObliquePath.surface(surface.rp(), excess);
         }
-        return new double[] {Math.min(t[0], 1.0), Math.min(t[1], 1.0)};
+        return new double[] {Math.min(ObliquePath.chain(s, internal), 1.0), Math.min(ObliquePath.chain(p, internal), 1.0)};
     }
 }

@@ -281,6 +281,7 @@ public final class ObliquePath {
     /** T at point i averaged over the angles and the two polarisations; part {@code swapped} (if ≥ 0) replaced. */
     private double averaged(int i, double[] excess, double[] lnK, int swapped, double swappedExcess, double swappedLnK) {
         double[] internal = new double[parts];
+        double[] r = new double[parts];
         double sum = 0;
         for (int k = 0; k < weights.length; k++) {
             // the slant path's K of each part, shared by the two polarisations
@@ -288,28 +289,44 @@ public final class ObliquePath {
                 double logK = j == swapped ? swappedLnK : lnK[j];
                 internal[j] = logK == Double.NEGATIVE_INFINITY ? 0 : Math.exp(logK * slant[i][j][k]);
             }
-            double ts = chain(k, rs[i], excess, internal, swapped, swappedExcess);
-            double tp = chain(k, rp[i], excess, internal, swapped, swappedExcess);
+            double ts = chain(surfaces(k, rs[i], excess, swapped, swappedExcess, r), internal);
+            double tp = chain(surfaces(k, rp[i], excess, swapped, swappedExcess, r), internal);
             sum += weights[k] * (ts + tp) / 2;
         }
         return sum;
     }
 
-    /** One polarisation at one angle: the parts' slabs chained across air gaps (Smith eq. 10.5, as OpticalElement). */
-    private double chain(int k, double[][] fresnel, double[] excess, double[] internal, int swapped, double swappedExcess) {
+    /** Each part's surface reflectance for one polarisation at angle k, into {@code out}. */
+    private double[] surfaces(int k, double[][] fresnel, double[] excess, int swapped, double swappedExcess, double[] out) {
+        for (int j = 0; j < parts; j++) {
+            out[j] = surface(fresnel[j][k], j == swapped ? swappedExcess : excess[j]);
+        }
+        return out;
+    }
+
+    /**
+     * A part's surface reflectance for one polarisation: Fresnel's plus the unplaced surface loss of its reading. A
+     * reading above the lossless ceiling (noise, a low index guess) has a negative excess: near Brewster's angle R_p
+     * plus it would fall below 0, which no surface reflects, so it is held at 0.
+     */
+    static double surface(double fresnel, double excess) {
+        return Math.min(Math.max(fresnel + excess, 0), Math.nextDown(1.0));
+    }
+
+    /**
+     * T of symmetric slabs (surface reflectance r[j], internal transmittance internal[j]) one after another across air
+     * gaps, for one polarisation (Smith eq. 10.5, as {@link OpticalElement#followedBy}).
+     */
+    static double chain(double[] r, double[] internal) {
         double t = 1;
         double rb = 0;
-        for (int j = 0; j < parts; j++) {
-            double extra = j == swapped ? swappedExcess : excess[j];
-            // a reading above the lossless ceiling (noise, a low index guess) has a negative excess: near Brewster's
-            // angle R_p + excess would fall below 0, which no surface reflects, so it is held at 0
-            double r = Math.min(Math.max(fresnel[j][k] + extra, 0), Math.nextDown(1.0));
+        for (int j = 0; j < r.length; j++) {
             double kj = internal[j];
-            double oneMinusR = 1 - r;
+            double oneMinusR = 1 - r[j];
             double k2 = kj * kj;
-            double denominatorSlab = 1 - r * r * k2;
+            double denominatorSlab = 1 - r[j] * r[j] * k2;
             double te = oneMinusR * oneMinusR * kj / denominatorSlab;
-            double re = r + oneMinusR * oneMinusR * r * k2 / denominatorSlab;
+            double re = r[j] + oneMinusR * oneMinusR * r[j] * k2 / denominatorSlab;
             if (j == 0) {
                 t = te;
                 rb = re;
